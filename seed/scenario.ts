@@ -1,0 +1,31 @@
+// The invented demo scenario. Every name here is made up: the contractor, the coast, the
+// vessels and the people do not exist. The data point's coordinates are an arbitrary open-sea
+// position chosen for the demo, not a real installation.
+
+export const DEMO_PASSWORD = 'lullwatch-demo';
+
+export const DEMO_USERS = [
+  { key: 'admin', email: 'admin@example.com', name: 'Demo Administrator', globalRole: 'admin' as const },
+  { key: 'coordinator', email: 'coordinator@example.com', name: 'Demo Coordinator', globalRole: 'user' as const },
+  { key: 'skipper', email: 'skipper@example.com', name: 'Demo Skipper', globalRole: 'user' as const },
+  { key: 'client', email: 'client@example.com', name: 'Demo Client', globalRole: 'user' as const },
+] as const;
+
+export const DEMO_PROJECT = {
+  name: 'Varrow Reach export cable and landfall',
+  description:
+    'Invented demo campaign: Saltmarrow Marine Works lays a 33 kV export cable from an offshore ' +
+    'substation to a landfall on the fictional Varrow coast, with a rock berm, a diver-assisted ' +
+    'duct pull-in and daily crew transfers by the CTV Sable Wren.',
+  dataPointName: 'Varrow offshore point',
+  dataPointLatitude: 52.38,
+  dataPointLongitude: -5.62,
+  dataPointDepthM: 42,
+  forecastSource: 'service' as const,
+};
+
+/** A second, smaller project that the demo client does not belong to (shows per-project access). */
+export const DEMO_SECOND_PROJECT = {
+  name: 'Harl Sound pontoon renewal',
+  description: 'Invented demo: replacing two floating pontoons inside a sheltered sound.',
+};

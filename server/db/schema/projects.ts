@@ -1,0 +1,41 @@
+import { sql } from 'drizzle-orm';
+import { pgTable, text, timestamp, uuid, unique, index, doublePrecision } from 'drizzle-orm/pg-core';
+import { PROJECT_ROLES } from '../../../shared/auth/roles';
+import { user } from './auth';
+
+export const project = pgTable('project', {
+  id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+  name: text().notNull(),
+  description: text().notNull().default(''),
+  /** The offshore data point whose sea states feed the project's worksites. */
+  dataPointName: text().notNull().default(''),
+  dataPointLatitude: doublePrecision(),
+  dataPointLongitude: doublePrecision(),
+  /** Water depth at the data point in metres; null means deep water (DOMAIN Convention 1). */
+  dataPointDepthM: doublePrecision(),
+  /** 'service' fetches forecasts from the forecast provider; 'uploads' only takes uploaded files. */
+  forecastSource: text({ enum: ['service', 'uploads'] }).notNull().default('uploads'),
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});
+
+/**
+ * Per-project roles. A membership table of our own rather than the auth library's organization
+ * plugin: a project is not an "active organization" the user switches into, and one user holds
+ * different roles in several projects at once.
+ */
+export const projectMember = pgTable(
+  'project_member',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    userId: text()
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    role: text({ enum: PROJECT_ROLES }).notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique().on(t.projectId, t.userId), index().on(t.userId)],
+);

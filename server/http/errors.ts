@@ -1,0 +1,83 @@
+import type { ErrorRequestHandler } from 'express';
+import { z } from 'zod';
+
+export type ErrorCode =
+  | 'validation'
+  | 'unauthenticated'
+  | 'forbidden'
+  | 'not_found'
+  | 'conflict'
+  | 'too_large'
+  | 'bad_file'
+  | 'rate_limited'
+  | 'unavailable'
+  | 'internal';
+
+const STATUS: Record<ErrorCode, number> = {
+  validation: 400,
+  bad_file: 400,
+  unauthenticated: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  too_large: 413,
+  rate_limited: 429,
+  unavailable: 503,
+  internal: 500,
+};
+
+/** An error with a status and a message meant for the user. Thrown by guards and services. */
+export class HttpError extends Error {
+  readonly status: number;
+  constructor(
+    readonly code: ErrorCode,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message);
+    this.status = STATUS[code];
+  }
+}
+
+export const notFound = (what: string) => new HttpError('not_found', `${what} not found`);
+
+/** zod issues as `{ field, message }`, the field as a dotted path. */
+export function zodDetails(error: z.ZodError): { field: string; message: string }[] {
+  return error.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message }));
+}
+
+/** Parses with a schema, throwing a 400 that names every failing field. */
+export function parseInput<S extends z.ZodType>(schema: S, value: unknown, where = 'body'): z.infer<S> {
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    const details = zodDetails(result.error);
+    const first = details[0];
+    throw new HttpError('validation', `Invalid ${where}: ${first.field}: ${first.message}`, details);
+  }
+  return result.data;
+}
+
+/** The one error handler: JSON `{ error: { code, message, details } }`, no stack traces outside development. */
+export function errorHandler(options: { exposeStack: boolean; log: (err: unknown) => void }): ErrorRequestHandler {
+  return (err, _req, res, _next) => {
+    let httpError: HttpError;
+    if (err instanceof HttpError) {
+      httpError = err;
+    } else if (err && typeof err === 'object' && 'type' in err && err.type === 'entity.too.large') {
+      httpError = new HttpError('too_large', 'Request body too large');
+    } else if (err && typeof err === 'object' && 'type' in err && err.type === 'entity.parse.failed') {
+      httpError = new HttpError('validation', 'Request body is not valid JSON');
+    } else if (err && typeof err === 'object' && 'code' in err && err.code === 'LIMIT_FILE_SIZE') {
+      httpError = new HttpError('too_large', (err as Error).message);
+    } else {
+      options.log(err);
+      httpError = new HttpError('internal', 'Internal server error');
+    }
+    if (res.headersSent) return;
+    const body: { error: { code: string; message: string; details?: unknown; stack?: string } } = {
+      error: { code: httpError.code, message: httpError.message, details: httpError.details ?? null },
+    };
+    if (options.exposeStack && httpError.code === 'internal' && err instanceof Error) body.error.stack = err.stack;
+    res.status(httpError.status).json(body);
+  };
+}

@@ -1,0 +1,17 @@
+import { Router } from 'express';
+import { sql } from 'drizzle-orm';
+import type { AppDeps } from '../deps';
+
+export function healthRoutes({ db }: AppDeps): Router {
+  const router = Router();
+  /** GET /api/health: `{ ok: true }` when the database answers. */
+  router.get('/health', async (_req, res) => {
+    try {
+      await db.execute(sql`select 1`);
+      res.json({ ok: true });
+    } catch {
+      res.status(503).json({ ok: false, error: { code: 'unavailable', message: 'Database unreachable', details: null } });
+    }
+  });
+  return router;
+}

@@ -1,0 +1,43 @@
+// Response shapes shared by the API and the client.
+import type { GlobalRole, ProjectRole } from './auth/roles';
+
+export interface ApiErrorBody {
+  error: { code: string; message: string; details: unknown };
+}
+
+export interface MeResponse {
+  id: string;
+  name: string;
+  email: string;
+  globalRole: GlobalRole;
+  projects: { id: string; name: string; role: ProjectRole }[];
+}
+
+/** 'admin' appears for administrators looking at a project they are not a member of. */
+export type ProjectAccessRole = ProjectRole | 'admin';
+
+export interface ProjectSummary {
+  id: string;
+  name: string;
+  role: ProjectAccessRole;
+}
+
+export interface ProjectDetail extends ProjectSummary {
+  description: string;
+  dataPointName: string;
+  dataPointLatitude: number | null;
+  dataPointLongitude: number | null;
+  dataPointDepthM: number | null;
+  forecastSource: 'service' | 'uploads';
+  createdAt: string;
+}
+
+export interface AdminUser {
+  id: string;
+  name: string;
+  email: string;
+  globalRole: GlobalRole;
+  active: boolean;
+  createdAt: string;
+  projects: { projectId: string; projectName: string; role: ProjectRole }[];
+}

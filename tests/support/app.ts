@@ -1,0 +1,70 @@
+import request from 'supertest';
+import type { Express } from 'express';
+import { createApp } from '../../server/app';
+import { createAuth } from '../../server/auth';
+import type { Database } from '../../server/db/client';
+import { silentLogger, type AppDeps } from '../../server/deps';
+import { seedDemo, type DemoIds } from '../../seed/demo';
+import { DEMO_PASSWORD } from '../../seed/scenario';
+import { createTestDatabase } from './db';
+
+export const TEST_ORIGIN = 'http://localhost:3000';
+
+export interface TestApp {
+  app: Express;
+  deps: AppDeps;
+  database: Database;
+  demo: DemoIds;
+  close(): Promise<void>;
+}
+
+export interface TestAppOptions {
+  clock?: () => Date;
+  signInPerMinute?: number;
+  enforceOriginCheck?: boolean;
+  secureCookies?: boolean;
+}
+
+/** The real app on a fresh in-memory database with the demo scenario seeded. */
+export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  const deps: AppDeps = {
+    db: database.db,
+    auth: createAuth(database.db, {
+      secret: 'test-secret-test-secret-test-secret-0123',
+      baseURL: TEST_ORIGIN,
+      trustedOrigins: [TEST_ORIGIN],
+      secureCookies: options.secureCookies ?? false,
+      signInPerMinute: options.signInPerMinute ?? 1000,
+      enforceOriginCheckInTests: options.enforceOriginCheck,
+    }),
+    clock: options.clock ?? (() => new Date()),
+    log: silentLogger,
+  };
+  const demo = await seedDemo(deps);
+  const app = createApp(deps);
+  return { app, deps, database, demo, close: () => database.close() };
+}
+
+export type Agent = ReturnType<typeof request.agent>;
+
+/** A supertest agent that keeps the session cookie of a signed-in user. */
+export async function signIn(app: Express, email: string, password = DEMO_PASSWORD): Promise<Agent> {
+  const agent = request.agent(app);
+  const res = await agent
+    .post('/api/auth/sign-in/email')
+    .set('Origin', TEST_ORIGIN)
+    .send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${res.text}`);
+  return agent;
+}
+
+export async function signInAll(app: Express) {
+  const [admin, coordinator, skipper, client] = await Promise.all([
+    signIn(app, 'admin@example.com'),
+    signIn(app, 'coordinator@example.com'),
+    signIn(app, 'skipper@example.com'),
+    signIn(app, 'client@example.com'),
+  ]);
+  return { admin, coordinator, skipper, client };
+}

@@ -1,0 +1,14 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['tests/**/*.test.ts'],
+    environment: 'node',
+    // A fresh PGlite per test file starts in about a second from a dumped template.
+    hookTimeout: 60_000,
+    testTimeout: 60_000,
+    globalSetup: ['tests/support/global-setup.ts'],
+    pool: 'forks',
+    maxWorkers: 2,
+  },
+});
