@@ -45,15 +45,17 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     throw new Error(`Invalid environment:\n${lines.join('\n')}`);
   }
   const env = parsed.data;
-  if (env.NODE_ENV === 'production' && !env.BETTER_AUTH_SECRET) {
-    throw new Error('Invalid environment:\n  BETTER_AUTH_SECRET: required in production (at least 32 characters)');
+  // On a PostgreSQL server several instances must share one secret, so it must be given; the
+  // embedded database is one machine, where a generated secret kept beside the data is enough.
+  if (env.NODE_ENV === 'production' && env.DATABASE_URL && !env.BETTER_AUTH_SECRET) {
+    throw new Error('Invalid environment:\n  BETTER_AUTH_SECRET: required with DATABASE_URL in production (at least 32 characters)');
   }
   return env;
 }
 
 /**
- * Outside production, a missing secret is generated once and kept beside the embedded
- * database, so sessions survive restarts on a developer's machine.
+ * On the embedded database a missing secret is generated once and kept (mode 600) beside the
+ * data, so sessions survive restarts.
  */
 export function resolveAuthSecret(env: Env): string {
   if (env.BETTER_AUTH_SECRET) return env.BETTER_AUTH_SECRET;

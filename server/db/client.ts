@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import path from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
 import { drizzle as drizzlePglite } from 'drizzle-orm/pglite';
@@ -36,6 +37,7 @@ export async function openDatabase(config: DatabaseConfig): Promise<Database> {
     return { db, kind: 'postgres', close: () => pool.end() };
   }
   const dataDir = config.dataDir && config.dataDir !== 'memory://' ? path.resolve(config.dataDir) : undefined;
+  if (dataDir) fs.mkdirSync(dataDir, { recursive: true });
   const pglite = new PGlite({ dataDir, loadDataDir: config.loadDataDir });
   await pglite.waitReady;
   const db = drizzlePglite({ client: pglite, schema, casing: 'snake_case' }) as unknown as Db;

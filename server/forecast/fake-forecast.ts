@@ -1,0 +1,162 @@
+/**
+ * The invented forecasts the local fake service answers: synthetic "truth" from
+ * {@link generateSyntheticSea} plus a forecast error that grows with lead time and changes a
+ * little from one issue to the next, so successive forecasts agree near their start and drift
+ * apart further out, and windows open, close and move between issues as they do with a real
+ * forecast. Pure: the same (seed, position, issue time, horizon) always gives the same answer.
+ *
+ * Error model (our own choice, of the order of published wave-forecast skill: a few percent on
+ * Hs at analysis time, some 20-30 % scatter at 10 days, much of it from the timing of systems):
+ * - timing: the forecast at valid time t shows the truth at t + dt, with dt a smooth function of t
+ *   of amplitude 1 h + 1.2 h per day of lead (13 h at 10 days, 20 h at 16 days);
+ * - amplitude: Hs and wind multiplied by exp(e), |e| <= 0.03 + 0.035 per day of lead
+ *   (wind 0.04 + 0.035 per day); Tp by exp(e/2); directions shifted by up to 4 deg + 3 deg per day.
+ * The error fields are value noise in valid time (30-40 h lattices) blended over a 24-hour lattice
+ * of issues, so two issues 6 h apart share most of their error.
+ */
+import type { ForecastResponse } from './forecast-schema';
+import { mix32, seed32, smoothNoise } from './seeded-noise';
+import { generateSyntheticSea, type SeaClimate } from './synthetic-sea';
+
+const MS_PER_HOUR = 3_600_000;
+/** Issues are made every 6 hours, at 00, 06, 12 and 18 UTC. */
+export const ISSUE_CYCLE_HOURS = 6;
+/** The fake's model grid, deg: positions snap to the nearest node. */
+export const FAKE_GRID_DEG = 0.25;
+/** Steepness bound kept after the error is applied: Hs/L0 <= 1/16 (see synthetic-sea.ts). */
+const L0_PER_TP2 = 9.81 / (2 * Math.PI);
+const MAX_STEEPNESS = 1 / 16;
+const ISSUE_LATTICE = 4; // issues per node of the issue lattice (24 h)
+
+/** Snaps a coordinate to the fake's grid; result rounded to 1e-6 deg to avoid float noise. */
+export function snapToGrid(deg: number): number {
+  return Math.round(Math.round(deg / FAKE_GRID_DEG) * FAKE_GRID_DEG * 1e6) / 1e6;
+}
+
+/**
+ * Seed of the synthetic truth at a grid node: the service seed mixed with the node's indices.
+ * @param seed the service seed (any finite number)
+ * @param latitude deg north; @param longitude deg east (snapped to the grid here)
+ */
+export function truthSeedForPosition(seed: number, latitude: number, longitude: number): number {
+  const i = Math.round(latitude / FAKE_GRID_DEG);
+  const j = Math.round((((longitude % 360) + 540) % 360 - 180) / FAKE_GRID_DEG);
+  return mix32(seed32(seed) ^ mix32(Math.imul(i, 0x2c1b3c6d) ^ mix32(j ^ 0x297a2d39)));
+}
+
+/**
+ * Climate at a position: seasons follow the hemisphere (roughest mid-January north, mid-July
+ * south). Only the season flips: the prevailing direction and the clockwise veering through
+ * systems stay those of a northern-hemisphere west coast everywhere (an invented sea, not a model).
+ */
+export function climateForPosition(latitude: number): Partial<SeaClimate> {
+  return latitude < 0 ? { roughestDayOfYear: 197 } : {};
+}
+
+/** Latest issue time at or before `nowMs - delayHours`, on the 00/06/12/18 UTC cycle, ms. */
+export function latestIssueTimeMs(nowMs: number, delayHours = 0): number {
+  const cycleMs = ISSUE_CYCLE_HOURS * MS_PER_HOUR;
+  return Math.floor((nowMs - delayHours * MS_PER_HOUR) / cycleMs) * cycleMs;
+}
+
+export interface FakeForecastRequest {
+  /** Service seed. */
+  seed: number;
+  /** Requested position, deg north / deg east; the answer is for the nearest grid node. */
+  latitude: number;
+  longitude: number;
+  /** Issue time, ms UTC; must be on the 6-hour cycle. */
+  issuedAtMs: number;
+  /** Forecast length in days, 1-16 (hourly values: horizonDays * 24). */
+  horizonDays: number;
+}
+
+/** ISO 8601 UTC with `Z`, whole seconds. */
+function iso(ms: number): string {
+  return new Date(ms).toISOString().replace('.000Z', 'Z');
+}
+
+/** Smooth error field in [-1, 1] over valid time, blended over the issue lattice. */
+function errorField(seed: number, channel: number, issueIndex: number, tH: number, periodH: number): number {
+  const x = issueIndex / ISSUE_LATTICE;
+  const q = Math.floor(x);
+  let f = x - q;
+  f = f * f * (3 - 2 * f);
+  const a = smoothNoise(mix32(seed ^ mix32(q)), channel, tH, periodH);
+  const b = smoothNoise(mix32(seed ^ mix32(q + 1)), channel, tH, periodH);
+  return a + (b - a) * f;
+}
+
+function wrap360(deg: number): number {
+  const r = deg % 360;
+  return r < 0 ? r + 360 : r;
+}
+
+/**
+ * Builds one invented forecast answer in the service's wire format.
+ * @throws RangeError for an issue time off the 6-hour cycle or a horizon outside 1-16 days
+ */
+export function buildFakeForecast(request: FakeForecastRequest): ForecastResponse {
+  const { issuedAtMs, horizonDays } = request;
+  const cycleMs = ISSUE_CYCLE_HOURS * MS_PER_HOUR;
+  if (!Number.isFinite(issuedAtMs) || issuedAtMs % cycleMs !== 0) throw new RangeError('issuedAtMs must be on the 00/06/12/18 UTC cycle');
+  if (!(Number.isInteger(horizonDays) && horizonDays >= 1 && horizonDays <= 16)) throw new RangeError(`horizonDays must be an integer within 1-16, got ${horizonDays}`);
+  const latitude = snapToGrid(request.latitude);
+  const longitude = snapToGrid(request.longitude);
+  const truthSeed = truthSeedForPosition(request.seed, latitude, longitude);
+  const errSeed = mix32(truthSeed ^ 0x5bd1e995);
+  const issueIndex = Math.round(issuedAtMs / cycleMs);
+  const n = horizonDays * 24;
+
+  // Truth over the forecast period with a margin for the timing error (at most 20.2 h).
+  const marginH = 24;
+  const truth = generateSyntheticSea({
+    startMs: issuedAtMs - marginH * MS_PER_HOUR,
+    hours: n + 2 * marginH,
+    seed: truthSeed,
+    climate: climateForPosition(latitude),
+  });
+
+  const hourly: ForecastResponse['hourly'] = {
+    time: new Array<string>(n),
+    waveHeightM: new Array<number | null>(n),
+    peakPeriodS: new Array<number | null>(n),
+    waveDirectionDeg: new Array<number | null>(n),
+    windSpeedMps: new Array<number | null>(n),
+    windDirectionDeg: new Array<number | null>(n),
+  };
+  const last = truth.hsM.length - 1;
+  for (let h = 0; h < n; h++) {
+    const tMs = issuedAtMs + h * MS_PER_HOUR;
+    const tH = tMs / MS_PER_HOUR;
+    const leadDays = h / 24;
+    // Timing error: sample the truth at a shifted time (linear interpolation for Hs and wind,
+    // nearest record for period and directions, which do not average well).
+    const shiftH = (1 + 1.2 * leadDays) * errorField(errSeed, 1, issueIndex, tH, 36);
+    const x = Math.min(last, Math.max(0, h + marginH + shiftH));
+    const i0 = Math.min(last - 1, Math.floor(x));
+    const f = x - i0;
+    const near = f < 0.5 ? i0 : i0 + 1;
+    const hsTrue = truth.hsM[i0] * (1 - f) + truth.hsM[i0 + 1] * f;
+    const windTrue = truth.windMps[i0] * (1 - f) + truth.windMps[i0 + 1] * f;
+
+    const eHs = (0.03 + 0.035 * leadDays) * errorField(errSeed, 2, issueIndex, tH, 30);
+    const eWind = (0.04 + 0.035 * leadDays) * errorField(errSeed, 3, issueIndex, tH, 30);
+    const eTp = 0.5 * (0.03 + 0.035 * leadDays) * errorField(errSeed, 4, issueIndex, tH, 40);
+    const eDir = (4 + 3 * leadDays) * errorField(errSeed, 5, issueIndex, tH, 30);
+
+    const hs = Math.min(25, Math.max(0.05, Math.round(hsTrue * Math.exp(eHs) * 100) / 100));
+    let tp = truth.tpS[near] * Math.exp(eTp);
+    tp = Math.max(tp, Math.sqrt(hs / (L0_PER_TP2 * MAX_STEEPNESS)));
+    tp = Math.min(40, Math.max(0.5, Math.round(tp * 10) / 10));
+    const wind = Math.min(99.9, Math.max(0, Math.round(windTrue * Math.exp(eWind) * 10) / 10));
+
+    hourly.time[h] = iso(tMs);
+    hourly.waveHeightM[h] = hs;
+    hourly.peakPeriodS[h] = tp;
+    hourly.waveDirectionDeg[h] = Math.round(wrap360(truth.dirDeg[near] + eDir)) % 360;
+    hourly.windSpeedMps[h] = wind;
+    hourly.windDirectionDeg[h] = Math.round(wrap360(truth.windDirDeg[near] + 1.5 * eDir)) % 360;
+  }
+  return { latitude, longitude, issuedAt: iso(issuedAtMs), stepMinutes: 60, hourly };
+}

@@ -1,0 +1,57 @@
+import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { useMe } from '../../features/auth/api/get-me';
+import { useSignOut } from '../../features/auth/api/sign-in';
+import { Caution } from '../../components/caution';
+import { Logo } from '../../components/logo';
+import { ThemeToggle } from '../../components/theme-toggle';
+import { APP_SECTIONS } from '../sections';
+
+const navClass = ({ isActive }: { isActive: boolean }) =>
+  `inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold ${isActive ? 'bg-white/15 text-white' : 'text-white/80 hover:bg-white/10'}`;
+
+export function AppLayout() {
+  const me = useMe();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const user = me.data;
+  const sections = APP_SECTIONS.filter((s) => !s.adminOnly || user?.globalRole === 'admin');
+
+  return (
+    <div className="flex min-h-screen flex-col">
+      <header className="no-print bg-deep text-white">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-2 px-3 py-2 sm:px-5">
+          <Link to="/" className="mr-2 flex min-h-11 items-center gap-2 font-bold tracking-tight">
+            <Logo className="size-8" />
+            <span className="text-lg">Lullwatch</span>
+          </Link>
+          <nav className="flex flex-wrap gap-1" aria-label="Main">
+            {sections.map((s) => (
+              <NavLink key={s.path} to={s.path} className={navClass} end={s.path === '/'}>
+                {s.label}
+              </NavLink>
+            ))}
+          </nav>
+          <div className="ml-auto flex items-center gap-1">
+            <span className="hidden text-sm text-white/80 sm:inline" data-testid="signed-in-as">
+              {user?.name}
+            </span>
+            <ThemeToggle />
+            <button
+              type="button"
+              className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-white/90 hover:bg-white/10"
+              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
+            >
+              Sign out
+            </button>
+          </div>
+        </div>
+      </header>
+      <main className="mx-auto w-full max-w-7xl flex-1 px-3 py-5 sm:px-5">
+        <Outlet />
+      </main>
+      <footer className="border-t border-line px-4 py-4">
+        <Caution />
+      </footer>
+    </div>
+  );
+}

@@ -1,0 +1,57 @@
+import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router-dom';
+import { queryClient } from './query-client';
+import { meQueryOptions } from '../features/auth/api/get-me';
+import { projectQueryOptions } from '../features/projects/api/get-projects';
+import { AppLayout } from './layouts/app-layout';
+import { ProjectLayout } from './layouts/project-layout';
+import { SignInPage } from '../features/auth/components/sign-in-page';
+import { ProjectsPage } from '../features/projects/components/projects-page';
+import { ProjectOverviewPage } from '../features/projects/components/project-overview-page';
+import { ProjectSettingsPage } from '../features/projects/components/project-settings-page';
+import { PeoplePage } from '../features/admin/components/people-page';
+import { NotFound, RouteError } from './route-error';
+
+/** Signed-in pages: the loader sends anonymous visitors to the sign-in page. */
+async function requireSignedIn({ request }: LoaderFunctionArgs) {
+  const me = await queryClient.ensureQueryData(meQueryOptions());
+  if (!me) {
+    const from = new URL(request.url).pathname;
+    throw redirect(`/sign-in${from !== '/' ? `?from=${encodeURIComponent(from)}` : ''}`);
+  }
+  return null;
+}
+
+async function requireAdmin(args: LoaderFunctionArgs) {
+  await requireSignedIn(args);
+  const me = await queryClient.ensureQueryData(meQueryOptions());
+  if (me?.globalRole !== 'admin') throw redirect('/');
+  return null;
+}
+
+export const router = createBrowserRouter([
+  { path: '/sign-in', element: <SignInPage /> },
+  {
+    path: '/',
+    element: <AppLayout />,
+    loader: requireSignedIn,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, element: <ProjectsPage /> },
+      { path: 'admin/people', element: <PeoplePage />, loader: requireAdmin },
+      { path: 'projects', loader: () => redirect('/') },
+      {
+        path: 'projects/:projectId',
+        element: <ProjectLayout />,
+        loader: async ({ params }) => {
+          await queryClient.ensureQueryData(projectQueryOptions(params.projectId ?? '')).catch(() => null);
+          return null;
+        },
+        children: [
+          { index: true, element: <ProjectOverviewPage /> },
+          { path: 'settings', element: <ProjectSettingsPage /> },
+        ],
+      },
+      { path: '*', element: <NotFound /> },
+    ],
+  },
+]);

@@ -1,0 +1,13 @@
+import type { ProjectAccessRole } from '../../shared/api-types';
+
+/** Top-level sections; the list grows as features land. */
+export const APP_SECTIONS: { path: string; label: string; adminOnly?: boolean }[] = [
+  { path: '/', label: 'Projects' },
+  { path: '/admin/people', label: 'People & access', adminOnly: true },
+];
+
+/** Sections inside a project, with the roles that see them. */
+export const PROJECT_SECTIONS: { path: string; label: string; roles: ProjectAccessRole[] }[] = [
+  { path: '', label: 'Overview', roles: ['admin', 'coordinator', 'skipper', 'client'] },
+  { path: 'settings', label: 'Settings', roles: ['admin', 'coordinator'] },
+];

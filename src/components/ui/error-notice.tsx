@@ -1,0 +1,27 @@
+import { ApiError } from '../../lib/api';
+import { Notice } from './card';
+
+/** Shows an API error in words, with the fields or lines it names. */
+export function ErrorNotice({ error }: { error: unknown }) {
+  if (!error) return null;
+  const message = error instanceof Error ? error.message : String(error);
+  const details = error instanceof ApiError && error.details ? error.details.slice(0, 20) : [];
+  return (
+    <Notice tone="error">
+      <p className="font-semibold">{message}</p>
+      {details.length > 0 ? (
+        <ul className="mt-2 list-disc pl-5">
+          {details.map((d, i) => (
+            <li key={i}>
+              {d.line !== undefined ? `Line ${d.line}` : null}
+              {d.column ? `, column ${d.column}` : null}
+              {d.value !== undefined ? ` (“${d.value}”)` : null}
+              {d.field ? `${d.field}: ` : null}
+              {d.message ?? (d.reason ? `: ${d.reason}` : null)}
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </Notice>
+  );
+}

@@ -1,0 +1,51 @@
+import { forwardRef, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+
+const control =
+  'w-full min-h-11 rounded-lg border border-line bg-surface px-3 text-base text-ink placeholder:text-ink-soft/70 focus:border-accent aria-[invalid=true]:border-danger';
+
+interface FieldShellProps {
+  label: string;
+  htmlFor: string;
+  hint?: ReactNode;
+  error?: string;
+  unit?: string;
+  children: ReactNode;
+}
+
+/** A labelled form control with its unit, hint and error message. */
+export function FieldShell({ label, htmlFor, hint, error, unit, children }: FieldShellProps) {
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={htmlFor} className="text-sm font-semibold text-ink">
+        {label}
+        {unit ? <span className="ml-1 font-normal text-ink-soft">({unit})</span> : null}
+      </label>
+      {children}
+      {error ? (
+        <p role="alert" className="text-sm text-danger" id={`${htmlFor}-error`}>
+          {error}
+        </p>
+      ) : hint ? (
+        <p className="text-xs text-ink-soft">{hint}</p>
+      ) : null}
+    </div>
+  );
+}
+
+export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputElement> & { invalid?: boolean }>(
+  function Input({ invalid, className = '', ...props }, ref) {
+    return <input ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
+  },
+);
+
+export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement> & { invalid?: boolean }>(
+  function Select({ invalid, className = '', ...props }, ref) {
+    return <select ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
+  },
+);
+
+export const TextArea = forwardRef<HTMLTextAreaElement, TextareaHTMLAttributes<HTMLTextAreaElement> & { invalid?: boolean }>(
+  function TextArea({ invalid, className = '', ...props }, ref) {
+    return <textarea ref={ref} aria-invalid={invalid || undefined} className={`${control} py-2 ${className}`} {...props} />;
+  },
+);

@@ -1,0 +1,147 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { CreateUserInput } from '../../../../shared/schemas/projects';
+import { PROJECT_ROLES, PROJECT_ROLE_LABELS, type ProjectRole } from '../../../../shared/auth/roles';
+import type { AdminUser, ProjectSummary } from '../../../../shared/api-types';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { useProjects } from '../../projects/api/get-projects';
+import { useAdminUsers, useCreateUser, useSetMembership, useUpdateUser } from '../api/users';
+
+export function PeoplePage() {
+  const users = useAdminUsers();
+  const projects = useProjects();
+  return (
+    <div>
+      <PageHeader title="People & access" subtitle="Create accounts, give project roles, and deactivate people who have left." />
+      <CreateUserCard />
+      {users.isPending || projects.isPending ? <Spinner /> : null}
+      {users.error ? <ErrorNotice error={users.error} /> : null}
+      <div className="mt-5 grid gap-3">
+        {users.data?.map((u) => <UserCard key={u.id} user={u} projects={projects.data ?? []} />)}
+      </div>
+    </div>
+  );
+}
+
+function CreateUserCard() {
+  const create = useCreateUser();
+  const [shown, setShown] = useState<{ email: string; password: string } | null>(null);
+  const form = useForm({ resolver: zodResolver(CreateUserInput), defaultValues: { name: '', email: '', globalRole: 'user' as const } });
+  return (
+    <Card>
+      <h2 className="mb-3 text-lg font-bold">New user</h2>
+      <form
+        className="grid gap-3 md:grid-cols-[1fr_1fr_auto_auto] md:items-end"
+        onSubmit={form.handleSubmit((v) =>
+          create.mutate(v, {
+            onSuccess: (r) => {
+              setShown({ email: r.user.email, password: r.temporaryPassword });
+              form.reset();
+            },
+          }),
+        )}
+        noValidate
+      >
+        <FieldShell label="Name" htmlFor="new-name" error={form.formState.errors.name?.message}>
+          <Input id="new-name" {...form.register('name')} invalid={!!form.formState.errors.name} />
+        </FieldShell>
+        <FieldShell label="E-mail" htmlFor="new-email" error={form.formState.errors.email?.message}>
+          <Input id="new-email" type="email" {...form.register('email')} invalid={!!form.formState.errors.email} />
+        </FieldShell>
+        <FieldShell label="Global role" htmlFor="new-role">
+          <Select id="new-role" {...form.register('globalRole')}>
+            <option value="user">User</option>
+            <option value="admin">Administrator</option>
+          </Select>
+        </FieldShell>
+        <Button type="submit" disabled={create.isPending}>Create user</Button>
+      </form>
+      {create.error ? <div className="mt-3"><ErrorNotice error={create.error} /></div> : null}
+      {shown ? (
+        <div className="mt-3">
+          <Notice tone="success">
+            <p>
+              Temporary password for <strong>{shown.email}</strong>, shown only now:{' '}
+              <code className="rounded bg-surface px-2 py-1 font-mono text-base" data-testid="temporary-password">{shown.password}</code>
+            </p>
+            <p className="mt-1 text-xs">Pass it on by a safe channel. It cannot be shown again.</p>
+          </Notice>
+        </div>
+      ) : null}
+    </Card>
+  );
+}
+
+function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummary[] }) {
+  const update = useUpdateUser();
+  const membership = useSetMembership();
+  const [projectId, setProjectId] = useState('');
+  const [role, setRole] = useState<ProjectRole>('skipper');
+  const unassigned = projects.filter((p) => !user.projects.some((m) => m.projectId === p.id));
+
+  return (
+    <Card className={user.active ? '' : 'opacity-70'}>
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <p className="font-bold">
+            {user.name} {user.globalRole === 'admin' ? <span className="ml-2 text-xs font-semibold text-accent">Administrator</span> : null}
+            {!user.active ? <span className="ml-2 text-xs font-semibold text-danger">Deactivated</span> : null}
+          </p>
+          <p className="text-sm text-ink-soft">{user.email}</p>
+        </div>
+        <Button
+          variant={user.active ? 'secondary' : 'primary'}
+          onClick={() => update.mutate({ userId: user.id, active: !user.active })}
+          disabled={update.isPending}
+        >
+          {user.active ? 'Deactivate' : 'Reactivate'}
+        </Button>
+      </div>
+      {update.error ? <div className="mt-2"><ErrorNotice error={update.error} /></div> : null}
+      <ul className="mt-3 grid gap-2">
+        {user.projects.map((m) => (
+          <li key={m.projectId} className="flex flex-wrap items-center gap-2 text-sm">
+            <span className="min-w-48 font-semibold">{m.projectName}</span>
+            <Select
+              aria-label={`Role of ${user.name} in ${m.projectName}`}
+              className="max-w-56"
+              value={m.role}
+              onChange={(e) => membership.mutate({ userId: user.id, projectId: m.projectId, role: e.target.value as ProjectRole })}
+            >
+              {PROJECT_ROLES.map((r) => (
+                <option key={r} value={r}>{PROJECT_ROLE_LABELS[r]}</option>
+              ))}
+            </Select>
+            <Button variant="ghost" onClick={() => membership.mutate({ userId: user.id, projectId: m.projectId, role: null })}>
+              Remove
+            </Button>
+          </li>
+        ))}
+      </ul>
+      {unassigned.length > 0 ? (
+        <div className="mt-3 flex flex-wrap items-end gap-2">
+          <Select aria-label={`Project to add ${user.name} to`} className="max-w-72" value={projectId} onChange={(e) => setProjectId(e.target.value)}>
+            <option value="">Add to project…</option>
+            {unassigned.map((p) => (
+              <option key={p.id} value={p.id}>{p.name}</option>
+            ))}
+          </Select>
+          <Select aria-label="Role" className="max-w-56" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
+            {PROJECT_ROLES.map((r) => (
+              <option key={r} value={r}>{PROJECT_ROLE_LABELS[r]}</option>
+            ))}
+          </Select>
+          <Button
+            variant="secondary"
+            disabled={!projectId || membership.isPending}
+            onClick={() => membership.mutate({ userId: user.id, projectId, role }, { onSuccess: () => setProjectId('') })}
+          >
+            Add
+          </Button>
+        </div>
+      ) : null}
+      {membership.error ? <div className="mt-2"><ErrorNotice error={membership.error} /></div> : null}
+    </Card>
+  );
+}

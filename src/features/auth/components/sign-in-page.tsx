@@ -1,0 +1,64 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { Button, ErrorNotice, FieldShell, Input } from '../../../components/ui';
+import { useMe } from '../api/get-me';
+import { useSignIn } from '../api/sign-in';
+import { Caution } from '../../../components/caution';
+import { Logo } from '../../../components/logo';
+
+const SignInForm = z.object({
+  email: z.string().trim().email('Enter your e-mail address'),
+  password: z.string().min(1, 'Enter your password'),
+});
+
+export function SignInPage() {
+  const me = useMe();
+  const navigate = useNavigate();
+  const [params] = useSearchParams();
+  const signIn = useSignIn();
+  const form = useForm({ resolver: zodResolver(SignInForm), defaultValues: { email: '', password: '' } });
+  const requested = params.get('from') ?? '/';
+  // Only same-site paths: never send the user on to another address after sign-in.
+  const from = requested.startsWith('/') && !requested.startsWith('//') ? requested : '/';
+
+  if (me.data) return <Navigate to={from} replace />;
+
+  return (
+    <div className="flex min-h-screen flex-col bg-deep text-white">
+      <main className="mx-auto flex w-full max-w-md flex-1 flex-col justify-center px-5 py-10">
+        <div className="mb-8 flex items-center gap-3">
+          <Logo className="size-11" />
+          <div>
+            <p className="text-2xl font-bold tracking-tight">Lullwatch</p>
+            <p className="text-sm text-white/70">Weather windows for marine work</p>
+          </div>
+        </div>
+        <form
+          className="flex flex-col gap-4 rounded-[var(--radius-card)] bg-surface p-6 text-ink shadow-xl"
+          onSubmit={form.handleSubmit((values) =>
+            signIn.mutate(values, { onSuccess: () => navigate(from, { replace: true }) }),
+          )}
+          noValidate
+        >
+          <h1 className="text-xl font-bold">Sign in</h1>
+          <FieldShell label="E-mail" htmlFor="email" error={form.formState.errors.email?.message}>
+            <Input id="email" type="email" autoComplete="username" {...form.register('email')} invalid={!!form.formState.errors.email} />
+          </FieldShell>
+          <FieldShell label="Password" htmlFor="password" error={form.formState.errors.password?.message}>
+            <Input id="password" type="password" autoComplete="current-password" {...form.register('password')} invalid={!!form.formState.errors.password} />
+          </FieldShell>
+          {signIn.error ? <ErrorNotice error={signIn.error} /> : null}
+          <Button type="submit" disabled={signIn.isPending}>
+            {signIn.isPending ? 'Signing in…' : 'Sign in'}
+          </Button>
+          <p className="text-xs text-ink-soft">Accounts are created by your administrator.</p>
+        </form>
+      </main>
+      <footer className="px-5 pb-6">
+        <Caution inverted />
+      </footer>
+    </div>
+  );
+}
