@@ -1,0 +1,38 @@
+/**
+ * Wave physics core: linear (Airy) wave theory, sea states and the transformation of sea states
+ * from a data point to a worksite. Pure TypeScript, SI units (see ../DOMAIN.md).
+ */
+
+// Constants and numerics
+export * from './constants';
+export * from './hyperbolic';
+export * from './angles';
+export { FloatKeyIndex } from './float-key-index';
+
+// One regular wave
+export * from './wave-number';
+export * from './celerity';
+export * from './regular-wave';
+export * from './wave-table';
+
+// Sea states
+export * from './period-conversion';
+export * from './sea-state';
+
+// Data point to worksite
+export * from './transfer-table';
+export {
+  TRANSFORM_FLAG,
+  createSiteSeries,
+  transformFlagNames,
+  transformOne,
+  transformToSite,
+  type SeaRecordInput,
+  type SeaSeriesInput,
+  type SiteGeometry,
+  type SiteSeries,
+  type SourcePoint,
+  type TransformChain,
+  type TransformFlagName,
+  type TransformOptions,
+} from './transform';

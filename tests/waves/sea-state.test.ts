@@ -1,0 +1,145 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  bedVelocityLinear,
+  bedVelocitySoulsby,
+  regularWave,
+  seaState,
+  seaStateEnergy,
+  seaStatePower,
+} from '../../shared/waves';
+import { refCg, refK, relClose } from './reference-dispersion';
+
+const G = 9.81;
+const RHO = 1025;
+
+describe('sea-state energy and power (DOMAIN.md "Sea states")', () => {
+  it('E = rho g Hs^2 / 16', () => {
+    expect(seaStateEnergy(2)).toBeCloseTo((RHO * G * 4) / 16, 9);
+    expect(seaStateEnergy(2, { rhoKgM3: 1000, g: 9.8 })).toBeCloseTo((1000 * 9.8 * 4) / 16, 9);
+    expect(seaStateEnergy(0)).toBe(0);
+  });
+
+  it('P = rho g Hs^2 Cg(Te, d) / 16 at any depth (bisection oracle for Cg)', () => {
+    for (const [hs, te, d] of [
+      [1.5, 7, 12],
+      [3, 11, 40],
+      [0.8, 5, 2],
+    ]) {
+      expect(relClose(seaStatePower(hs, te, d), (RHO * G * hs * hs * refCg(te, d)) / 16, 1e-11)).toBe(true);
+    }
+  });
+
+  it('deep water: P = rho g^2 Hs^2 Te / (64 pi), about 0.49 Hs^2 Te kW/m (common practice, no source)', () => {
+    for (const [hs, te] of [
+      [1, 10],
+      [2.5, 8],
+      [6, 13.5],
+    ]) {
+      const p = seaStatePower(hs, te, Infinity);
+      expect(relClose(p, (RHO * G * G * hs * hs * te) / (64 * Math.PI), 1e-13)).toBe(true);
+      expect(relClose(p / 1000, 0.49 * hs * hs * te, 0.005)).toBe(true);
+    }
+  });
+
+  it('throws RangeError for negative Hs, bad periods, bad depth', () => {
+    expect(() => seaStateEnergy(-1)).toThrow(RangeError);
+    expect(() => seaStateEnergy(NaN)).toThrow(RangeError);
+    expect(() => seaStatePower(1, 0, 10)).toThrow(RangeError);
+    expect(() => seaStatePower(1, 8, 0)).toThrow(RangeError);
+    expect(() => seaStatePower(1, 8, NaN)).toThrow(RangeError);
+  });
+});
+
+describe('bedVelocityLinear: u_bs = pi Hs / (Tp sinh(k_p d)) (DOMAIN.md method 1, common practice)', () => {
+  it('equals the written-out formula and the regular-wave bed velocity with H = Hs', () => {
+    const k = refK(10, 10);
+    expect(relClose(bedVelocityLinear(2, 10, 10), (Math.PI * 2) / (10 * Math.sinh(k * 10)), 1e-12)).toBe(true);
+    expect(bedVelocityLinear(2, 10, 10)).toBe(regularWave({ heightM: 2, periodS: 10, depthM: 10 }).bedVelocityMps);
+  });
+
+  it('-> 0 in deep water, -> (Hs/2) sqrt(g/d) in shallow water', () => {
+    expect(bedVelocityLinear(3, 6, 300)).toBeLessThan(1e-12);
+    expect(bedVelocityLinear(3, 6, Infinity)).toBe(0);
+    expect(relClose(bedVelocityLinear(0.3, 25, 0.5), 0.15 * Math.sqrt(G / 0.5), 0.002)).toBe(true);
+  });
+});
+
+describe('bedVelocitySoulsby: Soulsby (2006), HR Wallingford TR 155 (formula from DOMAIN.md, from memory)', () => {
+  it('Hs = 2 m, Tz = 6 s, d = 10 m: U_s = 0.4914 m/s (computed by hand below)', () => {
+    // By hand (g = 9.81):
+    // Tn = sqrt(10/9.81) = sqrt(1.019368) = 1.009638 s;  t = Tn/Tz = 1.009638/6 = 0.168273
+    // 0.56 + 15.54 t = 0.56 + 2.614963 = 3.174963;  3.174963^2 = 10.080390;  ^6 = 10.080390^3 = 1024.31
+    // A = (6500 + 1024.31)^(1/6) = 7524.31^(1/6) = exp(ln(7524.31)/6) = exp(8.92589/6) = 4.4267
+    // A t^2 = 4.4267 * 0.0283158 = 0.125345;  (1.125345)^3 = 1.42514
+    // U_rms = (2/(4*1.009638)) / 1.42514 = 0.495227/1.42514 = 0.347494 m/s
+    // U_s = sqrt(2) * 0.347494 = 0.49143 m/s
+    expect(Math.abs(bedVelocitySoulsby(2, 6, 10) - 0.49143)).toBeLessThan(5e-5);
+  });
+
+  it('shallow-water limit: U_s -> (sqrt(2)/4) Hs sqrt(g/d), the same order as linear theory ((Hs/2) sqrt(g/d))', () => {
+    const hs = 0.2;
+    const d = 0.1;
+    const us = bedVelocitySoulsby(hs, 12, d);
+    expect(relClose(us, (Math.SQRT2 / 4) * hs * Math.sqrt(G / d), 0.003)).toBe(true);
+    const ratio = us / bedVelocityLinear(hs, 12 / 0.7777, d);
+    expect(ratio).toBeGreaterThan(0.5);
+    expect(ratio).toBeLessThan(1.2);
+  });
+
+  it('deep water: -> 0 (and exactly 0 for depth Infinity)', () => {
+    expect(bedVelocitySoulsby(2, 6, 500)).toBeLessThan(1e-3);
+    expect(bedVelocitySoulsby(2, 6, 5000)).toBeLessThan(1e-7);
+    expect(bedVelocitySoulsby(2, 6, Infinity)).toBe(0);
+  });
+
+  it('is finite, non-negative, proportional to Hs and falls with depth (fast-check)', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0.01, max: 15, noNaN: true }),
+        fc.double({ min: 1, max: 25, noNaN: true }),
+        fc.double({ min: Math.log(0.05), max: Math.log(6000), noNaN: true }).map(Math.exp),
+        (hs, tz, d) => {
+          const u = bedVelocitySoulsby(hs, tz, d);
+          return (
+            Number.isFinite(u) &&
+            u >= 0 &&
+            Math.abs(bedVelocitySoulsby(2 * hs, tz, d) - 2 * u) <= 1e-12 * u &&
+            bedVelocitySoulsby(hs, tz, d * 1.3) <= u
+          );
+        },
+      ),
+      { numRuns: 2000 },
+    );
+  });
+
+  it('throws RangeError for bad inputs', () => {
+    expect(() => bedVelocitySoulsby(-1, 6, 10)).toThrow(RangeError);
+    expect(() => bedVelocitySoulsby(1, 0, 10)).toThrow(RangeError);
+    expect(() => bedVelocitySoulsby(1, 6, -2)).toThrow(RangeError);
+  });
+});
+
+describe('seaState bundle', () => {
+  it('completes the periods and computes energy, power at Te and both bed velocities', () => {
+    const s = seaState({ hsM: 2, tpS: 10, depthM: 20 });
+    expect(s.periods.sources).toEqual({ tp: 'given', tz: 'tp', te: 'tp' });
+    expect(s.periods.teS).toBeCloseTo(9, 12);
+    expect(s.energyJPerM2).toBeCloseTo((RHO * G * 4) / 16, 9);
+    expect(relClose(s.powerWPerM, (RHO * G * 4 * refCg(9, 20)) / 16, 1e-11)).toBe(true);
+    expect(s.bedVelocityLinearMps).toBe(bedVelocityLinear(2, 10, 20));
+    expect(s.bedVelocitySoulsbyMps).toBe(bedVelocitySoulsby(2, s.periods.tzS, 20));
+    expect(relClose(s.peakWavelengthM, (2 * Math.PI) / refK(10, 20), 1e-12)).toBe(true);
+  });
+
+  it('uses given Tz and Te as they are', () => {
+    const s = seaState({ hsM: 1, tpS: 8, tzS: 6, teS: 7.5, depthM: 15, gamma: 2 });
+    expect(s.bedVelocitySoulsbyMps).toBe(bedVelocitySoulsby(1, 6, 15));
+    expect(s.powerWPerM).toBe(seaStatePower(1, 7.5, 15));
+    expect(s.periods.gamma).toBe(2);
+  });
+
+  it('throws RangeError when no period is given', () => {
+    expect(() => seaState({ hsM: 1, depthM: 10 })).toThrow(RangeError);
+  });
+});
