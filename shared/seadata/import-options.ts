@@ -1,0 +1,120 @@
+/**
+ * The dataset upload form (`POST /api/projects/:projectId/datasets`, multipart), one zod schema
+ * for the browser form and the server route.
+ *
+ * Multipart fields arrive as strings: numbers are parsed strictly, structured fields (`columns`,
+ * `units`, `missingCodes`) are JSON strings, and an empty string means "not given" for every
+ * optional field. The schema also accepts the already-structured values (numbers, objects,
+ * arrays), so the browser can validate its form state before serialising it.
+ */
+import { z } from 'zod';
+import { ColumnMappingSchema } from './csv-columns';
+import { CSV_DELIMITERS, type CsvTextParserOptions } from './csv-text-parser';
+import type { NdbcParserOptions } from './ndbc';
+import { parseDecimal } from './parse-decimal';
+import { DATE_ORDERS } from './timestamp-parser';
+import { isValidTimeZone } from './time-zone';
+import { SeaUnitsSchema } from './units';
+import { BAD_ROW_MODES } from './validate';
+
+/** Kinds of dataset. */
+export const DATASET_KINDS = ['hindcast', 'forecast', 'observation'] as const;
+export type DatasetKind = (typeof DATASET_KINDS)[number];
+
+/** File formats of an upload; 'auto' looks at the first lines (`detectFormat`). */
+export const IMPORT_FORMATS = ['auto', 'csv', 'ndbc'] as const;
+export type ImportFormat = (typeof IMPORT_FORMATS)[number];
+
+/** Deepest accepted data-point depth, m (the deepest ocean trench is about 11 km). */
+export const MAX_DEPTH_M = 11_000;
+
+const emptyToUndefined = (v: unknown): unknown => (v === '' || v === null ? undefined : v);
+
+/** An optional field sent as a JSON string (or as the value itself). */
+function jsonField<T extends z.ZodType>(schema: T) {
+  return z.preprocess((v, ctx) => {
+    if (v === '' || v === null || v === undefined) return undefined;
+    if (typeof v !== 'string') return v;
+    try {
+      return JSON.parse(v) as unknown;
+    } catch {
+      ctx.addIssue({ code: 'custom', message: 'must be valid JSON', input: v });
+      return z.NEVER;
+    }
+  }, schema.optional());
+}
+
+/** A positive number of metres sent as text or number, parsed strictly ('12abc' is refused). */
+const positiveMetres = (max: number) =>
+  z.union([z.number(), z.string()]).transform((v, ctx) => {
+    const x = typeof v === 'number' ? v : parseDecimal(v);
+    if (!(x > 0) || x > max) {
+      ctx.addIssue({ code: 'custom', message: `must be a number of metres above 0 and at most ${max}`, input: v });
+      return z.NEVER;
+    }
+    return x;
+  });
+
+/** The upload form's fields (besides the file). */
+export const ImportFormSchema = z.object({
+  /** Dataset name. */
+  name: z.string().trim().min(1, 'a name is required').max(120),
+  /** Dataset kind. */
+  kind: z.enum(DATASET_KINDS),
+  /** File format; default 'auto'. */
+  format: z.preprocess(emptyToUndefined, z.enum(IMPORT_FORMATS).default('auto')),
+  /** Water depth at the data point: metres (> 0) or 'deep'. */
+  dataPointDepth: z.preprocess(
+    (v) => (typeof v === 'string' && v.trim().toLowerCase() === 'deep' ? 'deep' : v),
+    z.union([z.literal('deep'), positiveMetres(MAX_DEPTH_M)]),
+  ),
+  /** IANA zone of timestamps without an offset (CSV); default UTC. */
+  timeZone: z.preprocess(
+    emptyToUndefined,
+    z.string().refine(isValidTimeZone, 'unknown time zone (use an IANA name such as Europe/Oslo)').optional(),
+  ),
+  /** Bad rows: refuse the file (default) or skip them. */
+  onBadRows: z.preprocess(emptyToUndefined, z.enum(BAD_ROW_MODES).default('refuse')),
+  /** CSV column mapping, as JSON. */
+  columns: jsonField(ColumnMappingSchema),
+  /** CSV units, as JSON (`{"height":"ft","speed":"kn"}`); missing keys are SI. */
+  units: jsonField(SeaUnitsSchema),
+  /** CSV missing-value codes, as a JSON array of strings; replaces the defaults. */
+  missingCodes: jsonField(z.array(z.string().max(32)).max(64)),
+  /** CSV day order of DD/MM/YYYY-like dates. */
+  dateOrder: z.preprocess(emptyToUndefined, z.enum(DATE_ORDERS).optional()),
+  /** CSV delimiter; default detected. */
+  delimiter: z.preprocess(emptyToUndefined, z.enum(CSV_DELIMITERS).optional()),
+  /** CSV decimal comma ('true'/'false'); default: on for ';' files. */
+  decimalComma: z.preprocess(
+    (v) => (v === 'true' ? true : v === 'false' ? false : emptyToUndefined(v)),
+    z.boolean().optional(),
+  ),
+  /** Anemometer height above sea level, m; when given, wind is corrected to 10 m (1/7 power law). */
+  anemometerHeightM: z.preprocess(emptyToUndefined, positiveMetres(1000).optional()),
+});
+
+/** The form as sent (strings). */
+export type ImportFormInput = z.input<typeof ImportFormSchema>;
+/** The form after parsing. */
+export type ImportForm = z.output<typeof ImportFormSchema>;
+
+/** Reader options for a CSV upload from the parsed form. */
+export function csvOptionsFromForm(form: ImportForm): CsvTextParserOptions {
+  return {
+    mapping: form.columns,
+    units: form.units,
+    timeZone: form.timeZone,
+    dateOrder: form.dateOrder,
+    missingCodes: form.missingCodes,
+    delimiter: form.delimiter,
+    decimalComma: form.decimalComma,
+    onBadRows: form.onBadRows,
+    anemometerHeightM: form.anemometerHeightM,
+  };
+}
+
+/** Reader options for an NDBC upload from the parsed form. */
+export function ndbcOptionsFromForm(form: ImportForm): NdbcParserOptions {
+  return { onBadRows: form.onBadRows, anemometerHeightM: form.anemometerHeightM };
+}
