@@ -1,0 +1,230 @@
+import { compileLimits } from './compiled-limits';
+import { LIMIT, STATUS, type AlphaTable, type HourlyEvaluation, type OperationSpec, type SiteSeries } from './types';
+
+/** Options of {@link evaluateHours}. */
+export interface EvaluateOptions {
+  /** Apply alpha (OPWF = alpha * OPLIM on the Hs limits). Default true; false plans on OPLIM (Convention 14). */
+  alpha?: boolean;
+  /** The project's alpha table (see DEFAULT_ALPHA_TABLE). */
+  alphaTable: AlphaTable;
+  /** Buffers to write into (reused between calls); each must have the series' length. */
+  out?: HourlyEvaluation;
+}
+
+/**
+ * Checks that every array of a series has the length of its time axis.
+ * @throws RangeError naming the first array of another length.
+ */
+export function assertSeriesLengths(series: SiteSeries): void {
+  const n = series.timeMs.length;
+  for (const key of ['hsM', 'tpS', 'bedVelocityLinearMps', 'bedVelocitySoulsbyMps', 'windMps'] as const) {
+    if (series[key].length !== n) throw new RangeError(`series.${key} has ${series[key].length} values for ${n} times`);
+  }
+}
+
+/**
+ * Hourly go/no-go status of an operation for every record of a worksite series
+ * (DOMAIN.md, "Operations and limits", Conventions 5-7).
+ *
+ * Per record:
+ * - no data (STATUS.NO_DATA) when any value the limits need is NaN (Convention 7: Hs for Hs max,
+ *   the curve and bed velocity; Tp for the curve, Tp limits, bands and bed velocity; the bed
+ *   velocity of the limit's method; wind for a wind limit). No data wins over a broken limit.
+ * - each limit is met (inclusive, Convention 6), met at OPLIM only (Hs limits between
+ *   alpha * OPLIM and OPLIM: marginal), or broken. Outside the Hs-Tp curve's closed Tp range the
+ *   curve is broken; inside, its Hs limit is interpolated linearly and alpha is looked up at that
+ *   value (Convention 5). A Tp inside a closed excluded band, edges included, breaks the band.
+ * - status: not workable if any limit is broken, else marginal if an Hs limit is met only at
+ *   OPLIM, else workable.
+ *
+ * Relative margin per limit (dimensionless, negative when not met):
+ * Hs max (OPWF - Hs)/OPWF; curve (OPWF(Tp) - Hs)/OPWF(Tp), or outside its Tp range minus the Tp
+ * distance to the range over the nearest end's Tp; Tp min (Tp - min)/min; Tp max (max - Tp)/max;
+ * bands (distance to the nearest edge)/edge, negative inside; bed velocity and wind (max - value)/max.
+ * OPWF = OPLIM when alpha does not apply.
+ *
+ * Limiting factor: among the limits that decide the status (the broken ones for not workable, the
+ * Hs limits missed at OPWF for marginal, all for workable), the one with the smallest relative
+ * margin; ties go to the first in LIMIT order. LIMIT.NONE and NaN margin for no data.
+ *
+ * Cost: one pass, no allocation per record. 263k records take a few ms.
+ *
+ * @returns status (STATUS codes), limiting (LIMIT codes), marginRel (Float32) per record
+ * @throws RangeError for invalid limits (see compileLimits), arrays of unequal length, or `out`
+ *   buffers of the wrong length.
+ */
+export function evaluateHours(series: SiteSeries, op: OperationSpec, options: EvaluateOptions): HourlyEvaluation {
+  assertSeriesLengths(series);
+  const c = compileLimits(op, options.alphaTable, options.alpha !== false);
+  const n = series.timeMs.length;
+  const out = options.out ?? { status: new Uint8Array(n), limiting: new Uint8Array(n), marginRel: new Float32Array(n) };
+  if (out.status.length !== n || out.limiting.length !== n || out.marginRel.length !== n) {
+    throw new RangeError('evaluateHours: out buffers must have the series length');
+  }
+  const { status, limiting, marginRel } = out;
+  const hsArr = series.hsM;
+  const tpArr = series.tpS;
+  const bedArr = c.bedSoulsby ? series.bedVelocitySoulsbyMps : series.bedVelocityLinearMps;
+  const windArr = series.windMps;
+
+  const { needHs, needTp, needBed, needWind, hsMax, hsMaxOpwf, tpMin, tpMax, bedMax, windMax } = c;
+  const hasHs = hsMax === hsMax;
+  const hasCurve = c.curveTp.length >= 2;
+  const curveTp0 = hasCurve ? c.curveTp[0] : NaN;
+  const curveTpN = hasCurve ? c.curveTp[c.curveTp.length - 1] : NaN;
+  const hasTpMin = tpMin === tpMin;
+  const hasTpMax = tpMax === tpMax;
+  const hasBands = c.bandFrom.length > 0;
+  const hasBed = needBed;
+  const hasWind = needWind;
+  // Reciprocals of the limits: one multiplication per record instead of a division.
+  const invHs = 1 / hsMaxOpwf;
+  const invCurve0 = 1 / curveTp0;
+  const invCurveN = 1 / curveTpN;
+  const invTpMin = 1 / tpMin;
+  const invTpMax = 1 / tpMax;
+  const invBed = 1 / bedMax;
+  const invWind = 1 / windMax;
+  const NO_DATA: number = STATUS.NO_DATA;
+  const NONE: number = LIMIT.NONE;
+  const CLASS_STATUS = Uint8Array.of(STATUS.WORKABLE, STATUS.MARGINAL, STATUS.NOT_WORKABLE);
+  // Curve segments and alpha columns with their slopes, for inline interpolation (kept in step
+  // with evaluateStatus).
+  const cTp = c.curveTp;
+  const cHs = c.curveHs;
+  const cSlope = c.curveSlope;
+  const nSeg = cSlope.length;
+  const aRow = c.alphaRow;
+  const aCols = c.alphaCols;
+  const aSlope = c.alphaSlope;
+  const nA = aRow === null ? 0 : aCols.length;
+  const aFirstCol = aCols[0];
+  const aLastCol = aCols[aCols.length - 1];
+  const aFirst = aRow !== null ? aRow[0] : 1;
+  const aLast = aRow !== null ? aRow[nA - 1] : 1;
+  const bandFrom = c.bandFrom;
+  const bandTo = c.bandTo;
+  const nBands = bandFrom.length;
+
+  for (let i = 0; i < n; i++) {
+    const hs = needHs ? hsArr[i] : 0;
+    const tp = needTp ? tpArr[i] : 0;
+    const bed = hasBed ? bedArr[i] : 0;
+    const wind = hasWind ? windArr[i] : 0;
+    if (hs !== hs || tp !== tp || bed !== bed || wind !== wind) {
+      status[i] = NO_DATA;
+      limiting[i] = NONE;
+      marginRel[i] = NaN;
+      continue;
+    }
+    // Class: 0 met, 1 met at OPLIM only (marginal), 2 broken. Keep the highest class, and within
+    // it the smallest relative margin; ties keep the earlier limit in LIMIT order.
+    let bestCls = -1;
+    let bestRel = Infinity;
+    let bestLim = NONE;
+    let cls: number;
+    let rel: number;
+
+    if (hasHs) {
+      bestCls = (hs > hsMaxOpwf ? 1 : 0) + (hs > hsMax ? 1 : 0);
+      bestRel = (hsMaxOpwf - hs) * invHs;
+      bestLim = LIMIT.HS;
+    }
+    if (hasCurve) {
+      if (tp < curveTp0) {
+        cls = 2;
+        rel = (tp - curveTp0) * invCurve0;
+      } else if (tp > curveTpN) {
+        cls = 2;
+        rel = (curveTpN - tp) * invCurveN;
+      } else {
+        // Curve Hs limit at Tp (linear between points), then alpha at that limit (linear between
+        // the table's Hs columns, end columns outside).
+        let k = 0;
+        while (k < nSeg - 1 && cTp[k + 1] < tp) k++;
+        const lim = cHs[k] + cSlope[k] * (tp - cTp[k]);
+        let alpha = 1;
+        if (nA > 0) {
+          if (lim <= aFirstCol) alpha = aFirst;
+          else if (lim >= aLastCol) alpha = aLast;
+          else {
+            let j = 0;
+            while (aCols[j + 1] < lim) j++;
+            alpha = (aRow as Float64Array)[j] + aSlope[j] * (lim - aCols[j]);
+          }
+        }
+        const opwf = lim * alpha;
+        cls = (hs > opwf ? 1 : 0) + (hs > lim ? 1 : 0);
+        rel = opwf > 0 ? (opwf - hs) / opwf : hs <= 0 ? 0 : -Infinity;
+      }
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.HS_TP_CURVE;
+      }
+    }
+    if (hasTpMin) {
+      cls = tp < tpMin ? 2 : 0;
+      rel = (tp - tpMin) * invTpMin;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.TP_MIN;
+      }
+    }
+    if (hasTpMax) {
+      cls = tp > tpMax ? 2 : 0;
+      rel = (tpMax - tp) * invTpMax;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.TP_MAX;
+      }
+    }
+    if (hasBands) {
+      // Closed bands (Convention 6): inside, edges included, is broken; the relative margin is the
+      // distance to the nearest edge over that edge's Tp, negative inside.
+      cls = 0;
+      rel = Infinity;
+      for (let b = 0; b < nBands; b++) {
+        const lo = bandFrom[b];
+        const hi = bandTo[b];
+        let r: number;
+        if (tp < lo) r = (lo - tp) / lo;
+        else if (tp > hi) r = (tp - hi) / hi;
+        else {
+          cls = 2;
+          r = tp - lo <= hi - tp ? (lo - tp) / lo : (tp - hi) / hi;
+        }
+        if (r < rel) rel = r;
+      }
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.TP_BAND;
+      }
+    }
+    if (hasBed) {
+      cls = bed > bedMax ? 2 : 0;
+      rel = (bedMax - bed) * invBed;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.BED_VELOCITY;
+      }
+    }
+    if (hasWind) {
+      cls = wind > windMax ? 2 : 0;
+      rel = (windMax - wind) * invWind;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.WIND;
+      }
+    }
+    status[i] = CLASS_STATUS[bestCls];
+    limiting[i] = bestLim;
+    marginRel[i] = bestRel;
+  }
+  return out;
+}

@@ -1,0 +1,155 @@
+import { compileLimits, type CompiledLimits } from './compiled-limits';
+import { assertSeriesLengths } from './evaluate-hours';
+import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './types';
+
+/** Options of {@link evaluateStatus}. */
+export interface EvaluateStatusOptions {
+  /** Apply alpha (OPWF = alpha * OPLIM on the Hs limits). Default true; false plans on OPLIM (Convention 14). */
+  alpha?: boolean;
+  alphaTable: AlphaTable;
+  /** Buffer to write into, at least as long as the series (its first n entries are written). */
+  out?: Uint8Array;
+}
+
+/** Class codes while the passes run: 0 met, 1 met at OPLIM only, 2 broken, NO_DATA_CLASS no data. */
+const NO_DATA_CLASS = 255;
+
+/** Class -> STATUS code. */
+const CLASS_TO_STATUS = (() => {
+  const map = new Uint8Array(256);
+  map[0] = STATUS.WORKABLE;
+  map[1] = STATUS.MARGINAL;
+  map[2] = STATUS.NOT_WORKABLE;
+  map[NO_DATA_CLASS] = STATUS.NO_DATA;
+  return map;
+})();
+
+/**
+ * Hourly status only (no limiting factor, no margin): the same status as evaluateHours
+ * (DOMAIN.md, "Operations and limits", Conventions 5-7), faster, for hindcast statistics where
+ * only workable / marginal / not workable / no data counts.
+ *
+ * Method: one small pass over the records per limit, each raising a per-record class (0 met,
+ * 1 marginal, 2 broken) in the output buffer, after a pass that marks records missing a needed
+ * value (Convention 7, no data wins); a last pass maps classes to STATUS codes. Every pass is a
+ * short loop of one kind, so the JIT compiles each once for all operations (one loop with a branch
+ * per limit type is recompiled whenever an operation with a new mix of limits comes along).
+ *
+ * @returns STATUS code per record (the `out` buffer, or a view of its first n entries, when given)
+ * @throws RangeError for invalid limits, arrays of unequal length or a short `out` buffer.
+ */
+export function evaluateStatus(series: SiteSeries, op: OperationSpec, options: EvaluateStatusOptions): Uint8Array {
+  assertSeriesLengths(series);
+  const c = compileLimits(op, options.alphaTable, options.alpha !== false);
+  const n = series.timeMs.length;
+  const out = options.out ?? new Uint8Array(n);
+  if (out.length < n) throw new RangeError('evaluateStatus: out buffer shorter than the series');
+  const cls = out.length === n ? out : out.subarray(0, n);
+  const bed = c.bedSoulsby ? series.bedVelocitySoulsbyMps : series.bedVelocityLinearMps;
+
+  cls.fill(0);
+  if (c.needHs) markMissing(series.hsM, cls);
+  if (c.needTp) markMissing(series.tpS, cls);
+  if (c.needBed) markMissing(bed, cls);
+  if (c.needWind) markMissing(series.windMps, cls);
+
+  if (c.hsMax === c.hsMax) raiseHs(series.hsM, c.hsMaxOpwf, c.hsMax, cls);
+  if (c.curveTp.length >= 2) raiseCurve(series.hsM, series.tpS, c, cls);
+  if (c.tpMin === c.tpMin) breakBelow(series.tpS, c.tpMin, cls);
+  if (c.tpMax === c.tpMax) breakAbove(series.tpS, c.tpMax, cls);
+  for (let b = 0; b < c.bandFrom.length; b++) breakInside(series.tpS, c.bandFrom[b], c.bandTo[b], cls);
+  if (c.needBed) breakAbove(bed, c.bedMax, cls);
+  if (c.needWind) breakAbove(series.windMps, c.windMax, cls);
+
+  for (let i = 0; i < n; i++) cls[i] = CLASS_TO_STATUS[cls[i]];
+  return cls;
+}
+
+/** No data: a needed value is NaN. */
+function markMissing(v: Float64Array, cls: Uint8Array): void {
+  for (let i = 0; i < cls.length; i++) if (v[i] !== v[i]) cls[i] = NO_DATA_CLASS;
+}
+
+/** Hs max: above OPWF marginal, above OPLIM broken (inclusive limits). */
+function raiseHs(hs: Float64Array, opwf: number, oplim: number, cls: Uint8Array): void {
+  for (let i = 0; i < cls.length; i++) {
+    const h = hs[i];
+    const k = (h > opwf ? 1 : 0) + (h > oplim ? 1 : 0);
+    if (k > cls[i]) cls[i] = k;
+  }
+}
+
+/** A maximum: above it broken. NaN never compares, and no data (255) stays. */
+function breakAbove(v: Float64Array, max: number, cls: Uint8Array): void {
+  for (let i = 0; i < cls.length; i++) if (v[i] > max && cls[i] < 2) cls[i] = 2;
+}
+
+/** A minimum: below it broken. */
+function breakBelow(v: Float64Array, min: number, cls: Uint8Array): void {
+  for (let i = 0; i < cls.length; i++) if (v[i] < min && cls[i] < 2) cls[i] = 2;
+}
+
+/** A closed excluded band [from, to]: inside, edges included, broken (Convention 6). */
+function breakInside(v: Float64Array, from: number, to: number, cls: Uint8Array): void {
+  for (let i = 0; i < cls.length; i++) {
+    const x = v[i];
+    if (x >= from && x <= to && cls[i] < 2) cls[i] = 2;
+  }
+}
+
+/**
+ * Hs-Tp curve: outside its closed Tp range broken; inside, OPLIM by linear interpolation and
+ * OPWF = alpha(OPLIM) * OPLIM (Convention 5). Hs at or below (lowest curve Hs) * (lowest alpha)
+ * meets OPWF anywhere and Hs above the highest curve Hs breaks OPLIM anywhere, so only the records
+ * in between need the interpolation.
+ */
+function raiseCurve(hs: Float64Array, tp: Float64Array, c: CompiledLimits, cls: Uint8Array): void {
+  const cTp = c.curveTp;
+  const cHs = c.curveHs;
+  const cSlope = c.curveSlope;
+  const nSeg = cSlope.length;
+  const tp0 = cTp[0];
+  const tpN = cTp[nSeg];
+  const aRow = c.alphaRow;
+  const aCols = c.alphaCols;
+  const aSlope = c.alphaSlope;
+  const nA = aRow === null ? 0 : aCols.length;
+  const aFirstCol = aCols[0];
+  const aLastCol = aCols[aCols.length - 1];
+  const aFirst = aRow !== null ? aRow[0] : 1;
+  const aLast = aRow !== null ? aRow[nA - 1] : 1;
+  let hsMin = Infinity;
+  let hsMax = -Infinity;
+  for (let k = 0; k < cHs.length; k++) {
+    if (cHs[k] < hsMin) hsMin = cHs[k];
+    if (cHs[k] > hsMax) hsMax = cHs[k];
+  }
+  let alphaMin = 1;
+  if (aRow !== null) for (let k = 0; k < aRow.length; k++) if (aRow[k] < alphaMin) alphaMin = aRow[k];
+  const sureOk = hsMin * alphaMin;
+
+  for (let i = 0; i < cls.length; i++) {
+    const h = hs[i];
+    const t = tp[i];
+    let k: number;
+    if (t < tp0 || t > tpN || h > hsMax) k = 2;
+    else if (h <= sureOk) k = 0;
+    else {
+      let s = 0;
+      while (s < nSeg - 1 && cTp[s + 1] < t) s++;
+      const lim = cHs[s] + cSlope[s] * (t - cTp[s]);
+      let alpha = 1;
+      if (nA > 0) {
+        if (lim <= aFirstCol) alpha = aFirst;
+        else if (lim >= aLastCol) alpha = aLast;
+        else {
+          let j = 0;
+          while (aCols[j + 1] < lim) j++;
+          alpha = (aRow as Float64Array)[j] + aSlope[j] * (lim - aCols[j]);
+        }
+      }
+      k = (h > lim * alpha ? 1 : 0) + (h > lim ? 1 : 0);
+    }
+    if (k > cls[i]) cls[i] = k;
+  }
+}

@@ -1,0 +1,114 @@
+import { alphaFor } from './alpha-factor';
+import type { AlphaTable, LimitName, OperationSpec } from './types';
+
+/** One limit tested against one hour: the values behind the "chain" view of the board. */
+export interface LimitCheck {
+  limit: LimitName;
+  /** Plain-words label, e.g. "Hs max". */
+  label: string;
+  unit: 'm' | 's' | 'm/s';
+  /** The hour's value of the limited quantity (null when missing). */
+  value: number | null;
+  /** The operation limit OPLIM (for a band: its nearer edge). */
+  oplim: number | null;
+  /** The forecast limit OPWF = alpha*OPLIM (Hs limits only; else null). */
+  opwf: number | null;
+  alpha: number | null;
+  /** Distance to the limit that decides (OPWF for Hs), in the unit; negative when broken. */
+  margin: number | null;
+  /** Met at the limit that decides; null = no data. */
+  met: boolean | null;
+  /** Met at OPLIM (differs from `met` only for Hs limits). */
+  metAtOplim: boolean | null;
+}
+
+export interface HourValues {
+  hsM: number;
+  tpS: number;
+  bedVelocityLinearMps: number;
+  bedVelocitySoulsbyMps: number;
+  windMps: number;
+}
+
+export type HourStatus = 'workable' | 'marginal' | 'not_workable' | 'no_data';
+
+const ok = (x: number) => !Number.isNaN(x);
+
+/** Linear interpolation of the Hs-Tp curve at tp; null outside its (closed) Tp range. */
+function curveAt(curve: [number, number][], tp: number): number | null {
+  if (tp < curve[0][0] || tp > curve[curve.length - 1][0]) return null;
+  for (let i = 1; i < curve.length; i++) {
+    const [t0, h0] = curve[i - 1];
+    const [t1, h1] = curve[i];
+    if (tp <= t1) return h0 + ((h1 - h0) * (tp - t0)) / (t1 - t0);
+  }
+  return curve[curve.length - 1][1];
+}
+
+/**
+ * Every limit of an operation tested against one hour, written plainly (one limit at a time) so
+ * the board can show the chain behind a status: value, OPLIM, OPWF = alpha*OPLIM, margin.
+ * Follows DOMAIN.md Conventions 5-7 (alpha on Hs limits only; inclusive limits; closed bands;
+ * outside the curve's Tp range is not workable; no data wins).
+ */
+export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaTable, options: { alpha?: boolean } = {}): { status: HourStatus; checks: LimitCheck[] } {
+  const useAlpha = options.alpha !== false;
+  const l = op.limits;
+  const tr = op.tpopH + op.tcH;
+  const alphaAt = (hsLimit: number) => (useAlpha ? alphaFor(alphaTable, op.tpopH, hsLimit, tr, op.weatherRestricted) : 1);
+  const checks: LimitCheck[] = [];
+  const push = (c: Omit<LimitCheck, 'metAtOplim'> & { metAtOplim?: boolean | null }) => checks.push({ metAtOplim: c.met, ...c });
+
+  if (l.hsMax != null) {
+    const a = alphaAt(l.hsMax);
+    const opwf = a * l.hsMax;
+    push({
+      limit: 'hs', label: 'Hs max', unit: 'm', value: ok(v.hsM) ? v.hsM : null, oplim: l.hsMax, opwf, alpha: a,
+      margin: ok(v.hsM) ? opwf - v.hsM : null, met: ok(v.hsM) ? v.hsM <= opwf : null, metAtOplim: ok(v.hsM) ? v.hsM <= l.hsMax : null,
+    });
+  }
+  if (l.hsTpCurve && l.hsTpCurve.length >= 2) {
+    const has = ok(v.hsM) && ok(v.tpS);
+    const oplim = has ? curveAt(l.hsTpCurve, v.tpS) : null;
+    const a = oplim !== null ? alphaAt(oplim) : null;
+    const opwf = oplim !== null && a !== null ? a * oplim : null;
+    push({
+      limit: 'hsTpCurve', label: 'Hs-Tp curve', unit: 'm', value: ok(v.hsM) ? v.hsM : null, oplim, opwf, alpha: a,
+      margin: has && opwf !== null ? opwf - v.hsM : null,
+      met: !has ? null : opwf === null ? false : v.hsM <= opwf,
+      metAtOplim: !has ? null : oplim === null ? false : v.hsM <= oplim,
+    });
+  }
+  const tp = ok(v.tpS) ? v.tpS : null;
+  if (l.tpMin != null) push({ limit: 'tpMin', label: 'Tp min', unit: 's', value: tp, oplim: l.tpMin, opwf: null, alpha: null, margin: tp === null ? null : tp - l.tpMin, met: tp === null ? null : tp >= l.tpMin });
+  if (l.tpMax != null) push({ limit: 'tpMax', label: 'Tp max', unit: 's', value: tp, oplim: l.tpMax, opwf: null, alpha: null, margin: tp === null ? null : l.tpMax - tp, met: tp === null ? null : tp <= l.tpMax });
+  for (const [from, to] of l.tpExcluded ?? []) {
+    const inside = tp !== null && tp >= from && tp <= to;
+    const edge = tp === null ? null : Math.abs(tp - from) <= Math.abs(tp - to) ? from : to;
+    push({
+      limit: 'tpBand', label: `Excluded Tp ${from}-${to} s`, unit: 's', value: tp, oplim: edge, opwf: null, alpha: null,
+      margin: tp === null ? null : inside ? -Math.min(tp - from, to - tp) : Math.min(Math.abs(tp - from), Math.abs(tp - to)),
+      met: tp === null ? null : !inside,
+    });
+  }
+  if (l.bedVelocityMax != null) {
+    const soulsby = l.bedVelocityMethod === 'soulsby';
+    const u = soulsby ? v.bedVelocitySoulsbyMps : v.bedVelocityLinearMps;
+    const has = ok(u) && ok(v.hsM) && ok(v.tpS);
+    push({
+      limit: 'bedVelocity', label: `Bed velocity max (${soulsby ? 'Soulsby 2006' : 'linear'})`, unit: 'm/s', value: has ? u : null,
+      oplim: l.bedVelocityMax, opwf: null, alpha: null, margin: has ? l.bedVelocityMax - u : null, met: has ? u <= l.bedVelocityMax : null,
+    });
+  }
+  if (l.windMax != null) {
+    const w = ok(v.windMps) ? v.windMps : null;
+    push({ limit: 'wind', label: 'Wind max', unit: 'm/s', value: w, oplim: l.windMax, opwf: null, alpha: null, margin: w === null ? null : l.windMax - w, met: w === null ? null : w <= l.windMax });
+  }
+
+  let status: HourStatus;
+  if (checks.some((c) => c.met === null)) status = 'no_data';
+  else if (checks.every((c) => c.met)) status = 'workable';
+  else if (checks.every((c) => c.metAtOplim)) status = 'marginal';
+  else status = 'not_workable';
+  return { status, checks };
+}

@@ -1,0 +1,504 @@
+import type { CalendarIndex } from './calendar-index';
+import { quantileR7Upper } from './quantile-r7';
+import { STATUS } from './types';
+import { MS_PER_HOUR, assertStep, recordsForTr } from './workable-runs';
+
+/** Statistics of one group of records (a calendar month over all years, or one year-month). */
+export interface MonthStatisticsBase {
+  /** Calendar month, 1-12, in the worksite's time zone. */
+  month: number;
+  /** Records in the group (all statuses; absent rows are not records). */
+  records: number;
+  /** Records whose status is not "no data" (Convention 13). */
+  recordsWithData: number;
+  /** Workable records / records with data, 0-1; null without data. */
+  workability: number | null;
+  /** Go-start records / records with data, 0-1; null without data. */
+  goStartShare: number | null;
+  /** Mean waiting on weather over the non-censored records, h; null when all are censored. */
+  wowMeanHours: number | null;
+  /** 90th percentile (Hyndman & Fan type 7) of waiting on weather, h; null when all are censored. */
+  wowP90Hours: number | null;
+  /** Records with no go-start at or after them before the series ends (excluded from WoW). */
+  censored: number;
+  /** Usable windows whose first record is in the group. */
+  windows: number;
+  /** Usable windows per month: windows / years with records in the month; null without records. */
+  windowsPerMonth: number | null;
+  /** Mean length of those windows (count * dt), h; null without windows. */
+  meanWindowHours: number | null;
+}
+
+/** Statistics of a calendar month over all years of the series. */
+export interface MonthStatistics extends MonthStatisticsBase {
+  /** Years that have records in this month. */
+  years: number;
+}
+
+/** Statistics of one year and month (for heat maps); windowsPerMonth equals windows. */
+export interface YearMonthStatistics extends MonthStatisticsBase {
+  year: number;
+}
+
+/** Result of {@link monthlyStatistics}. */
+export interface MonthlyStatistics {
+  /** Twelve entries, January (month 1) to December. */
+  months: MonthStatistics[];
+  /** One entry per year-month with records, in year-month order. */
+  yearMonths: YearMonthStatistics[];
+}
+
+/** Reusable scratch buffers for {@link monthlyStatistics}. */
+export interface StatisticsScratch {
+  wowMs: Float64Array;
+  byMonth: Float64Array;
+  /** Work space of the percentile selection. */
+  tmp: Float64Array;
+}
+
+/** Scratch buffers for series of up to `length` records. */
+export function createStatisticsScratch(length: number): StatisticsScratch {
+  return { wowMs: new Float64Array(length), byMonth: new Float64Array(length), tmp: new Float64Array(length) };
+}
+
+/** Type-7 90th percentile of buf[from, to), ms; the slice is left unchanged. */
+function p90Ms(buf: Float64Array, from: number, to: number, tmp: Float64Array): number {
+  return quantileR7Upper(buf, from, to, 0.9, tmp);
+}
+
+/**
+ * Record groups of a calendar: the records of each year-month, listed contiguously in `order`
+ * (the identity when the calendar ascends, as calendarIndex's does). Computed once per calendar
+ * and shared by every operation at the worksite.
+ */
+interface CalendarGroups {
+  ymMin: number;
+  /** Number of year-months from the first to the last, K. */
+  K: number;
+  /** Record indices grouped by year-month; null means the identity (ascending calendar). */
+  order: Int32Array | null;
+  /** Group g holds order positions [start[g], start[g + 1]). */
+  start: Int32Array;
+}
+
+const groupCache = new WeakMap<Int32Array, CalendarGroups>();
+
+function calendarGroups(ym: Int32Array): CalendarGroups {
+  const cached = groupCache.get(ym);
+  if (cached) return cached;
+  const n = ym.length;
+  let ymMin = ym[0];
+  let ymMax = ym[0];
+  let ascending = true;
+  for (let i = 1; i < n; i++) {
+    const v = ym[i];
+    if (v < ym[i - 1]) ascending = false;
+    if (v < ymMin) ymMin = v;
+    if (v > ymMax) ymMax = v;
+  }
+  const K = ymMax - ymMin + 1;
+  const start = new Int32Array(K + 1);
+  for (let i = 0; i < n; i++) start[ym[i] - ymMin + 1]++;
+  for (let g = 0; g < K; g++) start[g + 1] += start[g];
+  let order: Int32Array | null = null;
+  if (!ascending) {
+    order = new Int32Array(n);
+    const fill = start.slice(0, K);
+    for (let i = 0; i < n; i++) order[fill[ym[i] - ymMin]++] = i;
+  }
+  const groups = { ymMin, K, order, start };
+  groupCache.set(ym, groups);
+  return groups;
+}
+
+/**
+ * Hindcast statistics per calendar month and per year-month (DOMAIN.md, "Hindcast statistics";
+ * Conventions 9-14):
+ * - workability W = workable records / records with data (only STATUS.WORKABLE counts; pass
+ *   statuses computed with alpha: false for "without alpha", Convention 14);
+ * - go-start share = go-start records / records with data;
+ * - waiting on weather (WoW) for every record, no-data records included: the next go-start's time
+ *   minus the record's time in real hours (gaps included), 0 at a go-start; censored, and counted as
+ *   such, when there is no go-start at or after it (Convention 12); mean and type-7 90th percentile
+ *   over the non-censored records;
+ * - usable windows (workable runs of at least ceil(TR / dt) records; a gap over 1.5 * dt breaks a
+ *   run) counted in the month of their first record; per calendar month divided by the number of
+ *   years with records in that month (Convention 11); their mean length count * dt.
+ *
+ * Cost: for an ascending calendar (calendarIndex's), one backward pass over the records does the
+ * WoW, the windows and every per-year-month sum; the percentiles take O(n) selection (see
+ * quantileR7Upper). Nothing is allocated per record, and nothing proportional to n when `scratch` is
+ * given. The calendar's grouping is cached per calendar array, which must not change afterwards
+ * (reuse one calendarIndex for every operation at a worksite). Any other calendar (for example
+ * hand-made groups) is handled too, through an index permutation.
+ *
+ * @param timeMs record times, UTC epoch ms, ascending
+ * @param status STATUS code per record
+ * @param goStart go-start flags for TR (see goStarts)
+ * @param stepMs dt, ms
+ * @param calendar calendar months of the records in the worksite's time zone (see calendarIndex)
+ * @param trH reference period TR = TPOP + TC, h: sets the usable window length
+ * @param scratch optional reusable buffers
+ * @throws RangeError for arrays of unequal length or a non-positive dt or TR.
+ */
+export function monthlyStatistics(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  goStart: Uint8Array,
+  stepMs: number,
+  calendar: CalendarIndex,
+  trH: number,
+  scratch?: StatisticsScratch,
+): MonthlyStatistics {
+  return statisticsCore(timeMs, status, goStart, false, stepMs, calendar, trH, scratch);
+}
+
+/**
+ * monthlyStatistics that also finds the go-starts (written into `goStart`) in its backward pass,
+ * saving a pass over the records. Same results as goStarts followed by monthlyStatistics; for
+ * operationStatistics.
+ */
+export function monthlyStatisticsWithGoStarts(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  goStartOut: Uint8Array,
+  stepMs: number,
+  calendar: CalendarIndex,
+  trH: number,
+  scratch?: StatisticsScratch,
+): MonthlyStatistics {
+  return statisticsCore(timeMs, status, goStartOut, true, stepMs, calendar, trH, scratch);
+}
+
+function statisticsCore(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  goStart: Uint8Array,
+  findGoStarts: boolean,
+  stepMs: number,
+  calendar: CalendarIndex,
+  trH: number,
+  scratch: StatisticsScratch | undefined,
+): MonthlyStatistics {
+  assertStep(stepMs);
+  const need = recordsForTr(trH, stepMs);
+  const n = timeMs.length;
+  const ymArr = calendar.yearMonth;
+  if (status.length !== n || goStart.length !== n || ymArr.length !== n) {
+    throw new RangeError('monthlyStatistics: times, status, go-starts and calendar must have the same length');
+  }
+  const months: MonthStatistics[] = Array.from({ length: 12 }, (_, m) => emptyMonth(m + 1));
+  if (n === 0) return { months, yearMonths: [] };
+
+  const s = scratch && scratch.wowMs.length >= n && scratch.byMonth.length >= n && scratch.tmp.length >= n ? scratch : createStatisticsScratch(n);
+  const wow = s.wowMs;
+  const { ymMin, K, order, start } = calendarGroups(ymArr);
+  const records = new Int32Array(K);
+  const withData = new Int32Array(K);
+  const workable = new Int32Array(K);
+  const starts = new Int32Array(K);
+  const censored = new Int32Array(K);
+  const wowCount = new Int32Array(K);
+  const wowSumMs = new Float64Array(K);
+  const windows = new Int32Array(K);
+  const windowRecords = new Float64Array(K);
+  const acc: Accumulators = { withData, workable, starts, wowSumMs, windows, windowRecords };
+  for (let g = 0; g < K; g++) records[g] = start[g + 1] - start[g];
+  let firstCensored: number;
+  if (order === null) {
+    // Ascending calendar: one backward pass, year-month by year-month, does everything.
+    firstCensored = backwardPassGrouped(timeMs, status, goStart, findGoStarts, start, 1.5 * stepMs, need, wow, acc);
+  } else {
+    firstCensored = backwardPass(timeMs, status, goStart, findGoStarts, ymArr, ymMin, 1.5 * stepMs, need, wow, windows, windowRecords);
+    const sums = new Float64Array(4);
+    for (let g = 0; g < K; g++) {
+      if (records[g] === 0) continue;
+      groupSumsOrdered(status, goStart, wow, order, start[g], start[g + 1], sums);
+      withData[g] = sums[0];
+      workable[g] = sums[1];
+      starts[g] = sums[2];
+      wowSumMs[g] = sums[3];
+    }
+  }
+  // WoW counts per year-month and the calendar-month layout of `byMonth`.
+  const monthStart = new Int32Array(13);
+  for (let g = 0; g < K; g++) {
+    const a = start[g];
+    const b = start[g + 1];
+    const c = order === null ? Math.max(0, b - Math.max(a, firstCensored)) : countCensoredOrdered(order, a, b, firstCensored);
+    censored[g] = c;
+    wowCount[g] = b - a - c;
+    monthStart[((g + ymMin) % 12) + 1] += wowCount[g];
+  }
+  for (let m = 0; m < 12; m++) monthStart[m + 1] += monthStart[m];
+  const byMonth = s.byMonth;
+  const monthFill = monthStart.slice(0, 12);
+  // Grouped WoW values of a year-month: contiguous in `wow` for an ascending calendar (censored
+  // records are the series' tail), else gathered through `order` into the calendar-month buffer.
+  for (let g = 0; g < K; g++) {
+    if (wowCount[g] === 0) continue;
+    const m = (g + ymMin) % 12;
+    if (order === null) byMonth.set(wow.subarray(start[g], start[g] + wowCount[g]), monthFill[m]);
+    else gatherOrdered(wow, order, start[g], start[g + 1], firstCensored, byMonth, monthFill[m]);
+    monthFill[m] += wowCount[g];
+  }
+
+  const yearMonths: YearMonthStatistics[] = [];
+  const mAcc = new Float64Array(12 * 10);
+  for (let g = 0; g < K; g++) {
+    if (records[g] === 0) continue;
+    const m = (g + ymMin) % 12;
+    const o = m * 10;
+    mAcc[o] += records[g];
+    mAcc[o + 1] += withData[g];
+    mAcc[o + 2] += workable[g];
+    mAcc[o + 3] += starts[g];
+    mAcc[o + 4] += wowCount[g];
+    mAcc[o + 5] += wowSumMs[g];
+    mAcc[o + 6] += censored[g];
+    mAcc[o + 7] += windows[g];
+    mAcc[o + 8] += windowRecords[g];
+    mAcc[o + 9] += 1;
+    let p90: number | null = null;
+    if (wowCount[g] > 0) {
+      // The year-month's values: a slice of `wow` (ascending calendar) or its part of `byMonth`.
+      if (order === null) p90 = p90Ms(wow, start[g], start[g] + wowCount[g], s.tmp) / MS_PER_HOUR;
+      else {
+        const at = yearMonthOffsetInMonth(g, ymMin, wowCount, monthStart);
+        p90 = p90Ms(byMonth, at, at + wowCount[g], s.tmp) / MS_PER_HOUR;
+      }
+    }
+    yearMonths.push({
+      year: Math.floor((g + ymMin) / 12),
+      ...summarise(m + 1, records[g], withData[g], workable[g], starts[g], wowCount[g], wowSumMs[g], p90, censored[g], windows[g], windowRecords[g], 1, stepMs),
+    });
+  }
+  for (let m = 0; m < 12; m++) {
+    const o = m * 10;
+    if (mAcc[o] === 0) continue;
+    const p90 = mAcc[o + 4] > 0 ? p90Ms(byMonth, monthStart[m], monthStart[m + 1], s.tmp) / MS_PER_HOUR : null;
+    months[m] = {
+      ...summarise(m + 1, mAcc[o], mAcc[o + 1], mAcc[o + 2], mAcc[o + 3], mAcc[o + 4], mAcc[o + 5], p90, mAcc[o + 6], mAcc[o + 7], mAcc[o + 8], mAcc[o + 9], stepMs),
+      years: mAcc[o + 9],
+    };
+  }
+  return { months, yearMonths };
+}
+
+// The passes are separate small functions so that the JIT optimizes each loop on its own type
+// feedback (one large function with several long loops deoptimizes between them).
+
+interface Accumulators {
+  withData: Int32Array;
+  workable: Int32Array;
+  starts: Int32Array;
+  wowSumMs: Float64Array;
+  windows: Int32Array;
+  windowRecords: Float64Array;
+}
+
+/**
+ * Backward pass over an ascending calendar, year-month by year-month (group g holds records
+ * [start[g], start[g + 1])): go-starts (read, or found from the run length when `findGoStarts`),
+ * waiting on weather per record (ms; NaN = censored), usable windows counted in the year-month of
+ * their first record, and the per-year-month sums. Returns the index of the first censored
+ * record: every record after the last go-start (n when none is censored, 0 when all are).
+ */
+function backwardPassGrouped(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  goStart: Uint8Array,
+  findGoStarts: boolean,
+  start: Int32Array,
+  maxGapMs: number,
+  need: number,
+  wow: Float64Array,
+  acc: Accumulators,
+): number {
+  const WORKABLE: number = STATUS.WORKABLE;
+  const NO_DATA: number = STATUS.NO_DATA;
+  const n = timeMs.length;
+  let nextT = NaN;
+  let firstCensored = n;
+  let run = 0;
+  for (let g = start.length - 2; g >= 0; g--) {
+    let withData = 0;
+    let workable = 0;
+    let starts = 0;
+    let wowSum = 0;
+    for (let i = start[g + 1] - 1; i >= start[g]; i--) {
+      const t = timeMs[i];
+      const st = status[i];
+      let go: boolean;
+      if (st === WORKABLE) {
+        workable++;
+        run++;
+        go = findGoStarts ? run >= need : goStart[i] !== 0;
+        // i starts its run when the record before it does not continue the run.
+        if (i === 0 || status[i - 1] !== WORKABLE || t - timeMs[i - 1] > maxGapMs) {
+          if (run >= need) {
+            acc.windows[g]++;
+            acc.windowRecords[g] += run;
+          }
+          run = 0;
+        }
+      } else {
+        run = 0;
+        go = !findGoStarts && goStart[i] !== 0;
+      }
+      if (findGoStarts) goStart[i] = go ? 1 : 0;
+      if (st !== NO_DATA) withData++;
+      if (go) {
+        starts++;
+        if (nextT !== nextT) firstCensored = i + 1;
+        nextT = t;
+      }
+      const w = nextT - t;
+      wow[i] = w;
+      if (w === w) wowSum += w;
+    }
+    acc.withData[g] = withData;
+    acc.workable[g] = workable;
+    acc.starts[g] = starts;
+    acc.wowSumMs[g] = wowSum;
+  }
+  return nextT !== nextT ? 0 : firstCensored;
+}
+
+/** backwardPassGrouped for any calendar: WoW and windows only, windows by their first record's year-month. */
+function backwardPass(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  goStart: Uint8Array,
+  findGoStarts: boolean,
+  ymArr: Int32Array,
+  ymMin: number,
+  maxGapMs: number,
+  need: number,
+  wow: Float64Array,
+  windows: Int32Array,
+  windowRecords: Float64Array,
+): number {
+  const n = timeMs.length;
+  const WORKABLE: number = STATUS.WORKABLE;
+  let nextT = NaN;
+  let firstCensored = n;
+  let run = 0;
+  for (let i = n - 1; i >= 0; i--) {
+    const t = timeMs[i];
+    let go: boolean;
+    if (status[i] === WORKABLE) {
+      run++;
+      go = findGoStarts ? run >= need : goStart[i] !== 0;
+      if (i === 0 || status[i - 1] !== WORKABLE || t - timeMs[i - 1] > maxGapMs) {
+        if (run >= need) {
+          const g = ymArr[i] - ymMin;
+          windows[g]++;
+          windowRecords[g] += run;
+        }
+        run = 0;
+      }
+    } else {
+      run = 0;
+      go = !findGoStarts && goStart[i] !== 0;
+    }
+    if (findGoStarts) goStart[i] = go ? 1 : 0;
+    if (go) {
+      if (nextT !== nextT) firstCensored = i + 1;
+      nextT = t;
+    }
+    wow[i] = nextT - t;
+  }
+  return nextT !== nextT ? 0 : firstCensored;
+}
+
+function groupSumsOrdered(status: Uint8Array, goStart: Uint8Array, wow: Float64Array, order: Int32Array, a: number, b: number, out: Float64Array): void {
+  let withData = 0;
+  let workable = 0;
+  let starts = 0;
+  let wowSum = 0;
+  const NO_DATA: number = STATUS.NO_DATA;
+  const WORKABLE: number = STATUS.WORKABLE;
+  for (let k = a; k < b; k++) {
+    const i = order[k];
+    const st = status[i];
+    withData += st !== NO_DATA ? 1 : 0;
+    workable += st === WORKABLE ? 1 : 0;
+    starts += goStart[i] !== 0 ? 1 : 0;
+    const w = wow[i];
+    if (w === w) wowSum += w;
+  }
+  out[0] = withData;
+  out[1] = workable;
+  out[2] = starts;
+  out[3] = wowSum;
+}
+
+function countCensoredOrdered(order: Int32Array, a: number, b: number, firstCensored: number): number {
+  let c = 0;
+  for (let k = a; k < b; k++) if (order[k] >= firstCensored) c++;
+  return c;
+}
+
+function gatherOrdered(wow: Float64Array, order: Int32Array, a: number, b: number, firstCensored: number, dest: Float64Array, at: number): void {
+  let p = at;
+  for (let k = a; k < b; k++) {
+    const i = order[k];
+    if (i < firstCensored) dest[p++] = wow[i];
+  }
+}
+
+/** Offset of year-month g's values inside its calendar month's slice of `byMonth`. */
+function yearMonthOffsetInMonth(g: number, ymMin: number, wowCount: Int32Array, monthStart: Int32Array): number {
+  const m = (g + ymMin) % 12;
+  let at = monthStart[m];
+  for (let h = g - 12; h >= 0; h -= 12) at += wowCount[h];
+  return at;
+}
+
+function emptyMonth(month: number): MonthStatistics {
+  return {
+    month,
+    records: 0,
+    recordsWithData: 0,
+    workability: null,
+    goStartShare: null,
+    wowMeanHours: null,
+    wowP90Hours: null,
+    censored: 0,
+    windows: 0,
+    windowsPerMonth: null,
+    meanWindowHours: null,
+    years: 0,
+  };
+}
+
+function summarise(
+  month: number,
+  records: number,
+  withData: number,
+  workable: number,
+  starts: number,
+  wowCount: number,
+  wowSumMs: number,
+  wowP90Hours: number | null,
+  censored: number,
+  windows: number,
+  windowRecords: number,
+  years: number,
+  stepMs: number,
+): MonthStatisticsBase {
+  return {
+    month,
+    records,
+    recordsWithData: withData,
+    workability: withData > 0 ? workable / withData : null,
+    goStartShare: withData > 0 ? starts / withData : null,
+    wowMeanHours: wowCount > 0 ? wowSumMs / wowCount / MS_PER_HOUR : null,
+    wowP90Hours,
+    censored,
+    windows,
+    windowsPerMonth: years > 0 ? windows / years : null,
+    meanWindowHours: windows > 0 ? (windowRecords * stepMs) / windows / MS_PER_HOUR : null,
+  };
+}

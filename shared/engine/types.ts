@@ -1,0 +1,125 @@
+/**
+ * Types and codes of the go/no-go engine.
+ *
+ * The engine takes worksite series that are already transformed to the worksite depth (see
+ * `shared/waves`) and tests every record against an operation's limits, as defined in DOMAIN.md,
+ * "Operations and limits", "Weather windows" and "Hindcast statistics", Conventions 5-16.
+ */
+
+/**
+ * Worksite sea-state series, one entry per record, all arrays of the same length.
+ * NaN marks a missing value. Times are UTC epoch milliseconds, strictly ascending.
+ */
+export interface SiteSeries {
+  /** Record start times, UTC epoch ms, strictly ascending. Each record stands for [t, t + dt). */
+  timeMs: Float64Array;
+  /** Significant wave height Hm0 at the worksite, m. */
+  hsM: Float64Array;
+  /** Peak period, s. */
+  tpS: Float64Array;
+  /** Significant near-bed orbital velocity, linear method (pi*Hs/(Tp*sinh(k_p*d))), m/s. */
+  bedVelocityLinearMps: Float64Array;
+  /** Significant near-bed orbital velocity, Soulsby (2006) method, m/s. */
+  bedVelocitySoulsbyMps: Float64Array;
+  /** Wind speed at 10 m, m/s. */
+  windMps: Float64Array;
+}
+
+/** Near-bed orbital velocity method named by a bed-velocity limit. */
+export type BedVelocityMethod = 'linear' | 'soulsby';
+
+/**
+ * Limits of one operation. Every limit is optional (absent, undefined or null), but at least one
+ * must be set. All limits are inclusive (Convention 6).
+ */
+export interface OperationLimits {
+  /** Hs max at OPLIM, m. */
+  hsMax?: number | null;
+  /** Hs-Tp limit curve: points [Tp s, Hs max m], Tp strictly ascending, at least two points. */
+  hsTpCurve?: [number, number][] | null;
+  /** Tp min, s. */
+  tpMin?: number | null;
+  /** Tp max, s. */
+  tpMax?: number | null;
+  /** Excluded Tp bands [from s, to s], closed at both edges. */
+  tpExcluded?: [number, number][] | null;
+  /** Near-bed orbital velocity max, m/s. */
+  bedVelocityMax?: number | null;
+  /** Method of the bed velocity the limit is compared with; 'linear' when not given. */
+  bedVelocityMethod?: BedVelocityMethod;
+  /** Wind speed max at 10 m, m/s. */
+  windMax?: number | null;
+}
+
+/** An operation as the engine needs it. */
+export interface OperationSpec {
+  /** Planned operation duration TPOP, h. */
+  tpopH: number;
+  /** Contingency time TC, h. The reference period is TR = TPOP + TC. */
+  tcH: number;
+  /** Weather-restricted operation (planned on a forecast with OPWF = alpha * OPLIM). */
+  weatherRestricted: boolean;
+  limits: OperationLimits;
+}
+
+/**
+ * Alpha-factor table: `values[row][column]` for the row's TPOP bound (h, ascending) and the
+ * column's Hs limit (m, ascending).
+ */
+export interface AlphaTable {
+  tpopBoundsH: number[];
+  hsColumnsM: number[];
+  values: number[][];
+}
+
+/** Hourly status codes (Uint8Array values). */
+export const STATUS = { NO_DATA: 0, NOT_WORKABLE: 1, MARGINAL: 2, WORKABLE: 3 } as const;
+export type StatusCode = (typeof STATUS)[keyof typeof STATUS];
+
+/** Limiting-factor codes (Uint8Array values). NONE for no-data records. */
+export const LIMIT = { NONE: 0, HS: 1, HS_TP_CURVE: 2, TP_MIN: 3, TP_MAX: 4, TP_BAND: 5, BED_VELOCITY: 6, WIND: 7 } as const;
+export type LimitCode = (typeof LIMIT)[keyof typeof LIMIT];
+
+/** Names of the limits, used as keys of per-limit margins. */
+export type LimitName = 'hs' | 'hsTpCurve' | 'tpMin' | 'tpMax' | 'tpBand' | 'bedVelocity' | 'wind';
+
+/** Name of each limit code, indexed by code; `LIMIT_NAMES[LIMIT.NONE]` is null. */
+export const LIMIT_NAMES: readonly (LimitName | null)[] = [null, 'hs', 'hsTpCurve', 'tpMin', 'tpMax', 'tpBand', 'bedVelocity', 'wind'];
+
+/** Hourly evaluation of one operation over a series. */
+export interface HourlyEvaluation {
+  /** STATUS code per record. */
+  status: Uint8Array;
+  /** LIMIT code of the limiting factor per record (LIMIT.NONE for no data). */
+  limiting: Uint8Array;
+  /**
+   * Relative margin of the limiting factor per record (dimensionless; (limit - value) / limit,
+   * negative when broken); NaN for no data.
+   */
+  marginRel: Float32Array;
+}
+
+/** Smallest margins of a window (Convention 16). */
+export interface WindowMargin {
+  /** Per limit: min over the window of (limit - value) in the limit's unit (m, s, m/s). */
+  perLimit: Partial<Record<LimitName, number>>;
+  /** Min over the window and the limits of margin / limit (dimensionless). */
+  relative: number;
+}
+
+/** A usable weather window (Conventions 10 and 16). */
+export interface UsableWindow {
+  /** Index of the window's first record. */
+  startIndex: number;
+  /** Number of records in the window. */
+  count: number;
+  /** Start, UTC epoch ms (the first record's time). */
+  startMs: number;
+  /** Exclusive end, UTC epoch ms: start + count * dt. */
+  endMs: number;
+  /** Length count * dt, h. */
+  hours: number;
+  minMargin: WindowMargin;
+}
+
+export { DEFAULT_ALPHA_TABLE } from './default-alpha-table';

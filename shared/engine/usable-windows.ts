@@ -1,0 +1,86 @@
+import { alphaAt, bandDistance, compileLimits, curveHsAt } from './compiled-limits';
+import { assertSeriesLengths } from './evaluate-hours';
+import type { AlphaTable, LimitName, OperationSpec, SiteSeries, UsableWindow } from './types';
+import { MS_PER_HOUR, recordsForTr, runRemaining } from './workable-runs';
+
+/** Options of {@link usableWindows}: the same as were used for the statuses. */
+export interface WindowOptions {
+  /** Alpha applied when the statuses were computed. Default true. */
+  alpha?: boolean;
+  alphaTable: AlphaTable;
+}
+
+/**
+ * Usable weather windows: workable runs at least TR long, that is of at least ceil(TR / dt)
+ * records (DOMAIN.md, "Weather windows"; Conventions 9-10), each with its smallest margins
+ * (Convention 16).
+ *
+ * Margins, per limit, the minimum over the window's records of (limit - value) in the limit's
+ * unit: Hs max and curve against OPWF, m; Tp min (Tp - min) and Tp max (max - Tp), s; excluded
+ * bands, the distance to the nearest band edge, s; bed velocity, m/s; wind, m/s. `relative` is the
+ * minimum over the records and limits of margin / limit (dimensionless; for a band, over its
+ * nearest edge's Tp), the same figure as evaluateHours' marginRel.
+ *
+ * @param series the worksite series the statuses were computed from
+ * @param op the operation
+ * @param status STATUS codes from evaluateHours with the same alpha option
+ * @param stepMs dt, ms
+ * @returns windows in time order; end exclusive (start + count * dt)
+ * @throws RangeError as evaluateHours and goStarts do.
+ */
+export function usableWindows(series: SiteSeries, op: OperationSpec, status: Uint8Array, stepMs: number, options: WindowOptions): UsableWindow[] {
+  assertSeriesLengths(series);
+  const c = compileLimits(op, options.alphaTable, options.alpha !== false);
+  const need = recordsForTr(c.trH, stepMs);
+  const timeMs = series.timeMs;
+  const rem = runRemaining(timeMs, status, stepMs);
+  const bedArr = c.bedSoulsby ? series.bedVelocitySoulsbyMps : series.bedVelocityLinearMps;
+  const relOut = new Float64Array(1);
+  const windows: UsableWindow[] = [];
+
+  for (let i = 0; i < rem.length; ) {
+    const count = rem[i];
+    if (count === 0) {
+      i++;
+      continue;
+    }
+    if (count >= need) {
+      const perLimit: Partial<Record<LimitName, number>> = {};
+      let relative = Infinity;
+      const low = (name: LimitName, margin: number, rel: number): void => {
+        const prev = perLimit[name];
+        if (prev === undefined || margin < prev) perLimit[name] = margin;
+        if (rel < relative) relative = rel;
+      };
+      for (let k = i; k < i + count; k++) {
+        const hs = series.hsM[k];
+        const tp = series.tpS[k];
+        if (c.hsMax === c.hsMax) low('hs', c.hsMaxOpwf - hs, (c.hsMaxOpwf - hs) / c.hsMaxOpwf);
+        if (c.curveTp.length >= 2) {
+          const lim = curveHsAt(c, tp);
+          const opwf = lim * alphaAt(c, lim);
+          low('hsTpCurve', opwf - hs, opwf > 0 ? (opwf - hs) / opwf : 0);
+        }
+        if (c.tpMin === c.tpMin) low('tpMin', tp - c.tpMin, (tp - c.tpMin) / c.tpMin);
+        if (c.tpMax === c.tpMax) low('tpMax', c.tpMax - tp, (c.tpMax - tp) / c.tpMax);
+        if (c.bandFrom.length > 0) {
+          const d = bandDistance(c, tp, relOut);
+          low('tpBand', d, relOut[0]);
+        }
+        if (c.needBed) low('bedVelocity', c.bedMax - bedArr[k], (c.bedMax - bedArr[k]) / c.bedMax);
+        if (c.needWind) low('wind', c.windMax - series.windMps[k], (c.windMax - series.windMps[k]) / c.windMax);
+      }
+      const startMs = timeMs[i];
+      windows.push({
+        startIndex: i,
+        count,
+        startMs,
+        endMs: startMs + count * stepMs,
+        hours: (count * stepMs) / MS_PER_HOUR,
+        minMargin: { perLimit, relative },
+      });
+    }
+    i += count;
+  }
+  return windows;
+}

@@ -1,0 +1,88 @@
+import { STATUS } from './types';
+
+/** A maximal run of consecutive workable records. */
+export interface WorkableRun {
+  /** Index of the first record. */
+  startIndex: number;
+  /** Number of records. */
+  count: number;
+  /** Start, UTC epoch ms. */
+  startMs: number;
+  /** Exclusive end, UTC epoch ms: start + count * dt (Convention 10). */
+  endMs: number;
+  /** Length count * dt, h. */
+  hours: number;
+}
+
+/** Milliseconds per hour. */
+export const MS_PER_HOUR = 3_600_000;
+
+/**
+ * Records needed for a go-start: ceil(TR / dt), at least 1 (Convention 10). A relative tolerance of
+ * 1e-9 keeps a TR that is a whole number of steps from rounding up by floating-point noise.
+ *
+ * @param trH reference period TR, h (> 0)
+ * @param stepMs time step dt, ms (> 0)
+ * @throws RangeError for a non-positive or non-finite TR or dt.
+ */
+export function recordsForTr(trH: number, stepMs: number): number {
+  if (!(trH > 0 && Number.isFinite(trH))) throw new RangeError(`TR ${trH} h must be finite and positive`);
+  assertStep(stepMs);
+  return Math.max(1, Math.ceil((trH * MS_PER_HOUR) / stepMs - 1e-9));
+}
+
+/** @throws RangeError unless dt is finite and positive. */
+export function assertStep(stepMs: number): void {
+  if (!(stepMs > 0 && Number.isFinite(stepMs))) throw new RangeError(`time step ${stepMs} ms must be finite and positive`);
+}
+
+/**
+ * Remaining run length: for each record, the number of consecutive workable records starting at
+ * it (0 when it is not workable). A record continues the one before it when they are at most
+ * 1.5 * dt apart (Convention 9); a longer gap breaks the run. One backward pass.
+ *
+ * @param stepMs dt, ms
+ * @param out optional buffer of the series' length to write into
+ * @returns Int32Array of run lengths, records
+ */
+export function runRemaining(timeMs: Float64Array, status: Uint8Array, stepMs: number, out?: Int32Array): Int32Array {
+  assertStep(stepMs);
+  const n = timeMs.length;
+  if (status.length !== n) throw new RangeError('status and times must have the same length');
+  const rem = out ?? new Int32Array(n);
+  if (rem.length !== n) throw new RangeError('runRemaining: out buffer must have the series length');
+  const maxGap = 1.5 * stepMs;
+  let next = 0;
+  for (let i = n - 1; i >= 0; i--) {
+    if (status[i] !== STATUS.WORKABLE) next = 0;
+    else if (i === n - 1 || timeMs[i + 1] - timeMs[i] > maxGap) next = 1;
+    else next = next + 1;
+    rem[i] = next;
+  }
+  return rem;
+}
+
+/**
+ * Maximal runs of consecutive workable records (DOMAIN.md, "Weather windows"; Conventions 9-10).
+ * Only STATUS.WORKABLE counts: marginal, not workable and no data end a run, and so does a gap
+ * longer than 1.5 * dt.
+ *
+ * @param timeMs record times, UTC epoch ms, ascending
+ * @param status STATUS code per record
+ * @param stepMs dt, ms
+ */
+export function workableRuns(timeMs: Float64Array, status: Uint8Array, stepMs: number): WorkableRun[] {
+  const rem = runRemaining(timeMs, status, stepMs);
+  const runs: WorkableRun[] = [];
+  for (let i = 0; i < rem.length; ) {
+    const count = rem[i];
+    if (count === 0) {
+      i++;
+      continue;
+    }
+    const startMs = timeMs[i];
+    runs.push({ startIndex: i, count, startMs, endMs: startMs + count * stepMs, hours: (count * stepMs) / MS_PER_HOUR });
+    i += count;
+  }
+  return runs;
+}

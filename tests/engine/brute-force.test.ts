@@ -1,0 +1,269 @@
+// Cross-check of go-starts, windows and monthly statistics against a brute-force implementation
+// written here independently (naive loops, months from Date / TZDate objects, percentiles from
+// d3-array's quantile, a general-purpose reference library), over random series with gaps and
+// missing values (fast-check).
+import { TZDate } from '@date-fns/tz';
+import { quantile } from 'd3-array';
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { STATUS, calendarIndex, goStarts, monthlyStatistics, workableRuns, type MonthStatisticsBase } from '../../shared/engine';
+import { monthlyStatisticsWithGoStarts } from '../../shared/engine/monthly-statistics';
+
+const MIN = 60_000;
+const HOUR = 60 * MIN;
+
+interface Sample {
+  times: number[];
+  status: number[];
+  dtMs: number;
+  trMin: number;
+}
+
+/**
+ * Random series: a regular step with a few 1.5-step spacings (still consecutive), longer gaps
+ * (break runs) and long gaps of days to months (so several months and years are covered);
+ * statuses drawn with workable most likely, plus marginal, not workable and no data.
+ */
+function sampleArb(dtMs: number, maxLength: number, longGapDays: number): fc.Arbitrary<Sample> {
+  const spacing = fc.oneof(
+    { weight: 30, arbitrary: fc.constant(1) },
+    { weight: 2, arbitrary: fc.constant(1.5) },
+    { weight: 2, arbitrary: fc.constant(2) },
+    { weight: 1, arbitrary: fc.integer({ min: 3, max: 30 }) },
+    { weight: 1, arbitrary: fc.integer({ min: 1, max: longGapDays }).map((d) => (d * 24 * HOUR) / dtMs) },
+  );
+  const status = fc.oneof(
+    { weight: 8, arbitrary: fc.constant(STATUS.WORKABLE) },
+    { weight: 2, arbitrary: fc.constant(STATUS.NOT_WORKABLE) },
+    { weight: 1, arbitrary: fc.constant(STATUS.MARGINAL) },
+    { weight: 1, arbitrary: fc.constant(STATUS.NO_DATA) },
+  );
+  return fc
+    .record({
+      start: fc.integer({ min: 0, max: 365 * 24 * 6 }).map((k) => Date.UTC(2001, 0, 1) + k * 10 * MIN),
+      rows: fc.array(fc.tuple(spacing, status), { minLength: 1, maxLength }),
+      trMin: fc.integer({ min: 10, max: (8 * dtMs) / MIN }),
+    })
+    .map(({ start, rows, trMin }) => {
+      const times: number[] = [];
+      let t = start;
+      for (const [k] of rows) {
+        times.push(t);
+        t += k * dtMs;
+      }
+      return { times, status: rows.map((r) => r[1]), dtMs, trMin };
+    });
+}
+
+/** Records needed for TR, in integer arithmetic: ceil(trMs / dtMs). */
+function needOf(s: Sample): number {
+  const trMs = s.trMin * MIN;
+  return Math.max(1, Math.floor((trMs + s.dtMs - 1) / s.dtMs));
+}
+
+function consecutive(s: Sample, i: number): boolean {
+  // Record i continues record i - 1: at most 1.5 dt apart (Convention 9).
+  return s.times[i] - s.times[i - 1] <= 1.5 * s.dtMs;
+}
+
+function bruteGoStarts(s: Sample): number[] {
+  const need = needOf(s);
+  return s.times.map((_, i) => {
+    if (i + need > s.times.length) return 0;
+    for (let k = 0; k < need; k++) {
+      if (s.status[i + k] !== STATUS.WORKABLE) return 0;
+      if (k > 0 && !consecutive(s, i + k)) return 0;
+    }
+    return 1;
+  });
+}
+
+interface BruteWindow {
+  start: number;
+  count: number;
+}
+
+function bruteRuns(s: Sample): BruteWindow[] {
+  const runs: BruteWindow[] = [];
+  let i = 0;
+  while (i < s.times.length) {
+    if (s.status[i] !== STATUS.WORKABLE) {
+      i++;
+      continue;
+    }
+    let j = i + 1;
+    while (j < s.times.length && s.status[j] === STATUS.WORKABLE && consecutive(s, j)) j++;
+    runs.push({ start: i, count: j - i });
+    i = j;
+  }
+  return runs;
+}
+
+/** Year and month (1-12) of record i. */
+type Key = (s: Sample, i: number) => { year: number; month: number };
+
+function bruteMonthly(s: Sample, keyOf: Key) {
+  const starts = bruteGoStarts(s);
+  const need = needOf(s);
+  const windows = bruteRuns(s).filter((r) => r.count >= need);
+  const groups = new Map<string, { year: number; month: number; idx: number[] }>();
+  s.times.forEach((_, i) => {
+    const { year, month } = keyOf(s, i);
+    const k = `${year}-${month}`;
+    if (!groups.has(k)) groups.set(k, { year, month, idx: [] });
+    groups.get(k)!.idx.push(i);
+  });
+  const wowOf = (i: number): number | null => {
+    for (let j = i; j < s.times.length; j++) if (starts[j]) return (s.times[j] - s.times[i]) / HOUR;
+    return null;
+  };
+  const summarise = (idx: number[], wins: BruteWindow[], years: number) => {
+    const withData = idx.filter((i) => s.status[i] !== STATUS.NO_DATA).length;
+    const workable = idx.filter((i) => s.status[i] === STATUS.WORKABLE).length;
+    const goStartCount = idx.filter((i) => starts[i] === 1).length;
+    const wows = idx.map(wowOf);
+    const ok = wows.filter((w): w is number => w !== null);
+    return {
+      records: idx.length,
+      recordsWithData: withData,
+      workability: withData ? workable / withData : null,
+      goStartShare: withData ? goStartCount / withData : null,
+      wowMeanHours: ok.length ? ok.reduce((a, b) => a + b, 0) / ok.length : null,
+      wowP90Hours: ok.length ? (quantile(ok, 0.9) as number) : null,
+      censored: wows.length - ok.length,
+      windows: wins.length,
+      windowsPerMonth: years ? wins.length / years : null,
+      meanWindowHours: wins.length ? wins.reduce((a, w) => a + (w.count * s.dtMs) / HOUR, 0) / wins.length : null,
+    };
+  };
+  const yearMonths = [...groups.values()].sort((a, b) => a.year * 12 + a.month - (b.year * 12 + b.month)).map((g) => ({
+    year: g.year,
+    month: g.month,
+    ...summarise(
+      g.idx,
+      windows.filter((w) => {
+        const k = keyOf(s, w.start);
+        return k.year === g.year && k.month === g.month;
+      }),
+      1,
+    ),
+  }));
+  const months = Array.from({ length: 12 }, (_, m0) => {
+    const month = m0 + 1;
+    const idx = s.times.map((_, i) => i).filter((i) => keyOf(s, i).month === month);
+    const years = new Set(idx.map((i) => keyOf(s, i).year)).size;
+    return { month, years, ...summarise(idx, windows.filter((w) => keyOf(s, w.start).month === month), years) };
+  });
+  return { months, yearMonths };
+}
+
+const utcKey: Key = (s, i) => {
+  const d = new Date(s.times[i]);
+  return { year: d.getUTCFullYear(), month: d.getUTCMonth() + 1 };
+};
+const osloKey: Key = (s, i) => {
+  const d = new TZDate(s.times[i], 'Europe/Oslo');
+  return { year: d.getFullYear(), month: d.getMonth() + 1 };
+};
+
+function expectStatsClose(got: MonthStatisticsBase, want: Omit<MonthStatisticsBase, 'month'> & { month: number }): void {
+  for (const k of ['month', 'records', 'recordsWithData', 'censored', 'windows'] as const) expect(got[k], k).toBe(want[k]);
+  for (const k of ['workability', 'goStartShare', 'wowMeanHours', 'wowP90Hours', 'windowsPerMonth', 'meanWindowHours'] as const) {
+    if (want[k] === null) expect(got[k], k).toBeNull();
+    else expect(got[k], k).toBeCloseTo(want[k] as number, 9);
+  }
+}
+
+describe('go-starts and workable runs against brute force', () => {
+  it('hourly series with gaps, any TR', () => {
+    fc.assert(
+      fc.property(sampleArb(HOUR, 120, 3), (s) => {
+        const times = Float64Array.from(s.times);
+        const status = Uint8Array.from(s.status);
+        expect(Array.from(goStarts(times, status, s.dtMs, s.trMin / 60))).toEqual(bruteGoStarts(s));
+        expect(workableRuns(times, status, s.dtMs).map((r) => ({ start: r.startIndex, count: r.count }))).toEqual(bruteRuns(s));
+        for (const r of workableRuns(times, status, s.dtMs)) expect(r.endMs).toBe(s.times[r.startIndex] + r.count * s.dtMs);
+      }),
+      { numRuns: 400 },
+    );
+  });
+
+  it('10-minute series', () => {
+    fc.assert(
+      fc.property(sampleArb(10 * MIN, 120, 1), (s) => {
+        expect(Array.from(goStarts(Float64Array.from(s.times), Uint8Array.from(s.status), s.dtMs, s.trMin / 60))).toEqual(bruteGoStarts(s));
+      }),
+      { numRuns: 200 },
+    );
+  });
+});
+
+describe('monthlyStatistics against brute force', () => {
+  for (const [zone, keyOf] of [['UTC', utcKey], ['Europe/Oslo', osloKey]] as const) {
+    it(`6-hourly series over months and years, months in ${zone}`, () => {
+      fc.assert(
+        fc.property(sampleArb(6 * HOUR, 500, 120), (s) => {
+          const times = Float64Array.from(s.times);
+          const status = Uint8Array.from(s.status);
+          const trH = s.trMin / 60;
+          const gs = goStarts(times, status, s.dtMs, trH);
+          const calendar = calendarIndex(times, zone);
+          const got = monthlyStatistics(times, status, gs, s.dtMs, calendar, trH);
+          const want = bruteMonthly(s, keyOf);
+          // The fused variant finds the go-starts itself and must agree everywhere.
+          const found = new Uint8Array(times.length).fill(9);
+          expect(monthlyStatisticsWithGoStarts(times, status, found, s.dtMs, calendar, trH)).toEqual(got);
+          expect(Array.from(found)).toEqual(bruteGoStarts(s));
+          expect(got.months).toHaveLength(12);
+          got.months.forEach((m, i) => {
+            expectStatsClose(m, want.months[i]);
+            expect(m.years).toBe(want.months[i].years);
+          });
+          expect(got.yearMonths.map((y) => [y.year, y.month])).toEqual(want.yearMonths.map((y) => [y.year, y.month]));
+          got.yearMonths.forEach((y, i) => expectStatsClose(y, want.yearMonths[i]));
+        }),
+        { numRuns: 150 },
+      );
+    });
+  }
+
+  it('hourly series with long runs (several windows a month)', () => {
+    fc.assert(
+      fc.property(sampleArb(HOUR, 1500, 20), (s) => {
+        const times = Float64Array.from(s.times);
+        const status = Uint8Array.from(s.status);
+        const trH = s.trMin / 60;
+        const got = monthlyStatistics(times, status, goStarts(times, status, s.dtMs, trH), s.dtMs, calendarIndex(times, 'UTC'), trH);
+        const want = bruteMonthly(s, utcKey);
+        got.months.forEach((m, i) => expectStatsClose(m, want.months[i]));
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('any calendar, also one that does not ascend with time (hand-made groups)', () => {
+    fc.assert(
+      fc.property(
+        sampleArb(HOUR, 300, 2).chain((s) =>
+          fc.tuple(fc.constant(s), fc.array(fc.integer({ min: 2001 * 12, max: 2001 * 12 + 30 }), { minLength: s.times.length, maxLength: s.times.length })),
+        ),
+        ([s, yms]) => {
+          const times = Float64Array.from(s.times);
+          const status = Uint8Array.from(s.status);
+          const trH = s.trMin / 60;
+          const calendar = { timeZone: 'UTC', yearMonth: Int32Array.from(yms), month: Uint8Array.from(yms, (v) => v % 12) };
+          const got = monthlyStatistics(times, status, goStarts(times, status, s.dtMs, trH), s.dtMs, calendar, trH);
+          const found = new Uint8Array(times.length);
+          expect(monthlyStatisticsWithGoStarts(times, status, found, s.dtMs, calendar, trH)).toEqual(got);
+          expect(Array.from(found)).toEqual(bruteGoStarts(s));
+          const key: Key = (_, i) => ({ year: Math.floor(yms[i] / 12), month: (yms[i] % 12) + 1 });
+          const want = bruteMonthly(s, key);
+          got.months.forEach((m, i) => expectStatsClose(m, want.months[i]));
+          expect(got.yearMonths.map((y) => [y.year, y.month])).toEqual(want.yearMonths.map((y) => [y.year, y.month]));
+          got.yearMonths.forEach((y, i) => expectStatsClose(y, want.yearMonths[i]));
+        },
+      ),
+      { numRuns: 100 },
+    );
+  });
+});

@@ -1,0 +1,144 @@
+// evaluateHours and evaluateStatus against a naive per-record implementation written here from
+// DOMAIN.md ("Operations and limits", Conventions 5-7), over random limits and random records,
+// with values drawn on the limits themselves to hit the inclusive edges.
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { DEFAULT_ALPHA_TABLE, STATUS, evaluateHours, evaluateStatus, type AlphaTable, type OperationLimits, type OperationSpec } from '../../shared/engine';
+import { makeSeries } from './series-factory';
+
+/** Alpha by the rule of Convention 5, looked up naively. */
+function naiveAlpha(table: AlphaTable, op: OperationSpec, hsLimit: number, useAlpha: boolean): number {
+  const tr = op.tpopH + op.tcH;
+  if (!useAlpha || !op.weatherRestricted || tr > 72 || op.tpopH > 72) return 1;
+  const row = table.tpopBoundsH.findIndex((b) => op.tpopH <= b);
+  if (row < 0) return 1;
+  const cols = table.hsColumnsM;
+  const vals = table.values[row];
+  if (hsLimit <= cols[0]) return vals[0];
+  if (hsLimit >= cols[cols.length - 1]) return vals[vals.length - 1];
+  for (let j = 1; j < cols.length; j++) {
+    if (hsLimit <= cols[j]) return vals[j - 1] + ((vals[j] - vals[j - 1]) * (hsLimit - cols[j - 1])) / (cols[j] - cols[j - 1]);
+  }
+  throw new Error('unreachable');
+}
+
+interface Rec {
+  hs: number;
+  tp: number;
+  lin: number;
+  soul: number;
+  wind: number;
+}
+
+function naiveStatus(r: Rec, op: OperationSpec, useAlpha: boolean): number {
+  const L = op.limits;
+  const curve = L.hsTpCurve ?? [];
+  const bands = L.tpExcluded ?? [];
+  const bedV = L.bedVelocityMethod === 'soulsby' ? r.soul : r.lin;
+  const needHs = L.hsMax != null || curve.length > 0 || L.bedVelocityMax != null;
+  const needTp = curve.length > 0 || L.tpMin != null || L.tpMax != null || bands.length > 0 || L.bedVelocityMax != null;
+  if ((needHs && Number.isNaN(r.hs)) || (needTp && Number.isNaN(r.tp))) return STATUS.NO_DATA;
+  if (L.bedVelocityMax != null && Number.isNaN(bedV)) return STATUS.NO_DATA;
+  if (L.windMax != null && Number.isNaN(r.wind)) return STATUS.NO_DATA;
+  let broken = false;
+  let marginal = false;
+  const hsCheck = (limit: number) => {
+    const opwf = limit * naiveAlpha(DEFAULT_ALPHA_TABLE, op, limit, useAlpha);
+    if (r.hs > limit) broken = true;
+    else if (r.hs > opwf) marginal = true;
+  };
+  if (L.hsMax != null) hsCheck(L.hsMax);
+  if (curve.length > 0) {
+    if (r.tp < curve[0][0] || r.tp > curve[curve.length - 1][0]) broken = true;
+    else {
+      let j = 1;
+      while (curve[j][0] < r.tp) j++;
+      const [t0, h0] = curve[j - 1];
+      const [t1, h1] = curve[j];
+      hsCheck(h0 + ((h1 - h0) * (r.tp - t0)) / (t1 - t0));
+    }
+  }
+  if (L.tpMin != null && r.tp < L.tpMin) broken = true;
+  if (L.tpMax != null && r.tp > L.tpMax) broken = true;
+  for (const [a, b] of bands) if (r.tp >= a && r.tp <= b) broken = true;
+  if (L.bedVelocityMax != null && bedV > L.bedVelocityMax) broken = true;
+  if (L.windMax != null && r.wind > L.windMax) broken = true;
+  return broken ? STATUS.NOT_WORKABLE : marginal ? STATUS.MARGINAL : STATUS.WORKABLE;
+}
+
+const round2 = (x: number) => Math.round(x * 100) / 100;
+
+const limitsArb: fc.Arbitrary<OperationLimits> = fc
+  .record(
+    {
+      hsMax: fc.double({ min: 0.5, max: 6, noNaN: true }).map(round2),
+      hsTpCurve: fc
+        .uniqueArray(fc.integer({ min: 3, max: 20 }), { minLength: 2, maxLength: 5 })
+        .chain((tps) => fc.tuple(...tps.sort((a, b) => a - b).map((tp) => fc.double({ min: 0.3, max: 5, noNaN: true }).map((hs) => [tp, round2(hs)] as [number, number])))),
+      tpMin: fc.integer({ min: 3, max: 8 }),
+      tpMax: fc.integer({ min: 9, max: 18 }),
+      tpExcluded: fc.array(fc.tuple(fc.integer({ min: 4, max: 16 }), fc.integer({ min: 1, max: 3 })).map(([a, w]) => [a, a + w] as [number, number]), { minLength: 1, maxLength: 2 }),
+      bedVelocityMax: fc.constantFrom(0.2, 0.35, 0.5),
+      bedVelocityMethod: fc.constantFrom('linear' as const, 'soulsby' as const),
+      windMax: fc.constantFrom(8, 12, 15),
+    },
+    { requiredKeys: [] },
+  )
+  .filter((l) => l.hsMax != null || l.hsTpCurve != null || l.tpMin != null || l.tpMax != null || l.tpExcluded != null || l.bedVelocityMax != null || l.windMax != null);
+
+const opArb: fc.Arbitrary<OperationSpec> = fc.record({
+  tpopH: fc.constantFrom(3, 12, 20, 36, 48, 60, 72, 80),
+  tcH: fc.constantFrom(0, 6, 24),
+  weatherRestricted: fc.boolean(),
+  limits: limitsArb,
+});
+
+/** Records with values drawn from the limits themselves (edges), near them, anywhere, or missing. */
+function recordsArb(op: OperationSpec): fc.Arbitrary<Rec[]> {
+  const L = op.limits;
+  const hsEdges = [L.hsMax ?? 1, ...(L.hsTpCurve ?? []).map((p) => p[1])];
+  const tpEdges = [L.tpMin ?? 6, L.tpMax ?? 12, ...(L.hsTpCurve ?? []).map((p) => p[0]), ...(L.tpExcluded ?? []).flat()];
+  const around = (edges: number[], lo: number, hi: number) =>
+    fc.oneof(
+      { weight: 3, arbitrary: fc.constantFrom(...edges) },
+      { weight: 3, arbitrary: fc.tuple(fc.constantFrom(...edges), fc.constantFrom(-0.01, 0.01, -0.3, 0.3)).map(([e, d]) => e + d) },
+      { weight: 4, arbitrary: fc.double({ min: lo, max: hi, noNaN: true }) },
+      { weight: 1, arbitrary: fc.constant(NaN) },
+    );
+  const vel = fc.oneof(fc.constantFrom(0.2, 0.35, 0.5), fc.double({ min: 0, max: 1, noNaN: true }), fc.constant(NaN));
+  return fc.array(
+    fc.record({ hs: around(hsEdges, 0, 7), tp: around(tpEdges, 2, 22), lin: vel, soul: vel, wind: fc.oneof(fc.constantFrom(8, 12, 15), fc.double({ min: 0, max: 20, noNaN: true }), fc.constant(NaN)) }),
+    { minLength: 1, maxLength: 60 },
+  );
+}
+
+describe('hourly status against a naive implementation of DOMAIN.md', () => {
+  it('evaluateHours and evaluateStatus, with and without alpha', () => {
+    fc.assert(
+      fc.property(
+        opArb.chain((op) => fc.tuple(fc.constant(op), recordsArb(op), fc.boolean())),
+        ([op, recs, useAlpha]) => {
+          const series = makeSeries({
+            hsM: recs.map((r) => r.hs),
+            tpS: recs.map((r) => r.tp),
+            bedVelocityLinearMps: recs.map((r) => r.lin),
+            bedVelocitySoulsbyMps: recs.map((r) => r.soul),
+            windMps: recs.map((r) => r.wind),
+          });
+          const want = recs.map((r) => naiveStatus(r, op, useAlpha));
+          const full = evaluateHours(series, op, { alpha: useAlpha, alphaTable: DEFAULT_ALPHA_TABLE });
+          expect(Array.from(full.status)).toEqual(want);
+          expect(Array.from(evaluateStatus(series, op, { alpha: useAlpha, alphaTable: DEFAULT_ALPHA_TABLE }))).toEqual(want);
+          // Limiting factor present exactly when there is data; margin negative exactly when not workable
+          // at OPWF, i.e. for marginal and not workable hours (an Hs-band edge can give -0).
+          full.status.forEach((st, i) => {
+            expect(full.limiting[i] === 0).toBe(st === STATUS.NO_DATA);
+            if (st === STATUS.WORKABLE) expect(full.marginRel[i]).toBeGreaterThanOrEqual(0);
+            if (st === STATUS.MARGINAL) expect(full.marginRel[i]).toBeLessThan(0);
+          });
+        },
+      ),
+      { numRuns: 600 },
+    );
+  });
+});
