@@ -1,18 +1,39 @@
-import { eq } from 'drizzle-orm';
 import type { AppDeps } from '../server/deps';
-import { project, projectMember } from '../server/db/schema';
+import { operation, project, projectMember, worksite } from '../server/db/schema';
 import { createUser } from '../server/services/users';
+import { createDataset } from '../server/services/datasets';
+import { fetchLatestForecast } from '../server/services/forecasts';
+import { toSeaSeries } from '../server/services/sea-series';
+import { generateSyntheticSea, truthSeedForPosition, climateForPosition } from '../server/forecast';
+import { recurrenceText } from '../shared/recurrence';
 import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
+import { DEMO_OPERATIONS, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
+
+/** Seed of the fake forecast service; the demo hindcast uses the same invented sea. */
+export const DEMO_SEA_SEED = 20261201;
 
 export interface DemoIds {
   users: Record<(typeof DEMO_USERS)[number]['key'], string>;
   projectId: string;
   secondProjectId: string;
+  siteIds: Record<(typeof DEMO_SITES)[number]['key'], string>;
+  operationIds: string[];
+  hindcastId: string | null;
+  forecastId: string | null;
+}
+
+export interface SeedOptions {
+  /** Years of invented hourly hindcast (0 = none). */
+  hindcastYears?: number;
+  /** Fetch a current forecast from the (fake) forecast service. */
+  forecast?: boolean;
 }
 
 /** Seeds the invented demo scenario into an empty database. */
-export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log'>): Promise<DemoIds> {
+export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'forecast' | 'clock'>, options: SeedOptions = {}): Promise<DemoIds> {
   const { db, auth } = deps;
+  const hindcastYears = options.hindcastYears ?? 20;
+
   const users = {} as DemoIds['users'];
   for (const u of DEMO_USERS) {
     const created = await createUser(auth, { name: u.name, email: u.email, globalRole: u.globalRole }, DEMO_PASSWORD);
@@ -27,7 +48,85 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log'>): Prom
     { projectId: second.id, userId: users.coordinator, role: 'coordinator' },
     { projectId: second.id, userId: users.skipper, role: 'client' },
   ]);
-  const [check] = await db.select({ id: project.id }).from(project).where(eq(project.id, main.id));
-  deps.log.info('Demo scenario seeded', { project: check.id });
-  return { users, projectId: main.id, secondProjectId: second.id };
+
+  const siteIds = {} as DemoIds['siteIds'];
+  for (const s of DEMO_SITES) {
+    const [row] = await db
+      .insert(worksite)
+      .values({
+        projectId: main.id,
+        name: s.name,
+        depthM: s.depthM,
+        shoreNormalDeg: s.shoreNormalDeg,
+        breakerIndex: s.breakerIndex,
+        latitude: s.latitude,
+        longitude: s.longitude,
+        timeZone: DEMO_TIME_ZONE,
+      })
+      .returning({ id: worksite.id });
+    siteIds[s.key] = row.id;
+  }
+  const operationIds: string[] = [];
+  for (const o of DEMO_OPERATIONS) {
+    const [row] = await db
+      .insert(operation)
+      .values({
+        projectId: main.id,
+        name: o.name,
+        description: o.description,
+        tpopH: o.tpopH,
+        tcH: o.tcH,
+        weatherRestricted: o.weatherRestricted,
+        limits: o.limits,
+        siteIds: o.sites.map((k) => siteIds[k]),
+        skipperIds: o.skipper ? [users.skipper] : [],
+        recurrence: o.recurrence ? { ...o.recurrence, text: recurrenceText(o.recurrence) } : null,
+      })
+      .returning({ id: operation.id });
+    operationIds.push(row.id);
+  }
+
+  let hindcastId: string | null = null;
+  if (hindcastYears > 0) {
+    const endYear = deps.clock().getUTCFullYear() - 1;
+    const startMs = Date.UTC(endYear - hindcastYears + 1, 0, 1);
+    const hours = (Date.UTC(endYear + 1, 0, 1) - startMs) / 3_600_000;
+    const sea = generateSyntheticSea({
+      startMs,
+      hours,
+      seed: truthSeedForPosition(DEMO_SEA_SEED, DEMO_PROJECT.dataPointLatitude, DEMO_PROJECT.dataPointLongitude),
+      climate: climateForPosition(DEMO_PROJECT.dataPointLatitude),
+    });
+    const series = toSeaSeries({ timeMs: sea.timeMs, hs: sea.hsM, tp: sea.tpS, dir: sea.dirDeg, wind: sea.windMps, windDir: sea.windDirDeg });
+    const row = await createDataset(
+      db,
+      {
+        projectId: main.id,
+        createdBy: users.coordinator,
+        name: `Varrow offshore hindcast ${endYear - hindcastYears + 1}-${endYear} (invented)`,
+        kind: 'hindcast',
+        dataPointName: DEMO_PROJECT.dataPointName,
+        dataPointLatitude: DEMO_PROJECT.dataPointLatitude,
+        dataPointLongitude: DEMO_PROJECT.dataPointLongitude,
+        dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
+        sourceKind: 'upload',
+        originalFileName: null,
+        format: 'generated (demo)',
+      },
+      series,
+      { note: 'Invented demo hindcast from a deterministic generator (seasons and passing storms); not measured data.' },
+    );
+    hindcastId = row.id;
+  }
+
+  let forecastId: string | null = null;
+  if (options.forecast ?? true) {
+    try {
+      forecastId = (await fetchLatestForecast(db, deps.forecast, main.id, users.coordinator)).datasetId;
+    } catch (err) {
+      deps.log.warn('Demo forecast not fetched', { err: err instanceof Error ? err.message : String(err) });
+    }
+  }
+  deps.log.info('Demo scenario seeded', { project: main.id });
+  return { users, projectId: main.id, secondProjectId: second.id, siteIds, operationIds, hindcastId, forecastId };
 }

@@ -7,10 +7,7 @@ import { CLIENT_IP_HEADER } from './auth';
 import type { AppDeps } from './deps';
 import { readSessionUser, setRequestUser } from './http/context';
 import { errorHandler, HttpError } from './http/errors';
-import { healthRoutes } from './routes/health';
-import { meRoutes } from './routes/me';
-import { projectRoutes } from './routes/projects';
-import { adminUserRoutes } from './routes/admin-users';
+import { API_ROUTERS } from './routes';
 
 export interface AppOptions {
   /** Built client (vite build output) to serve; omitted in API-only tests. */
@@ -62,7 +59,7 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   });
 
   const api = express.Router();
-  for (const routes of [healthRoutes, meRoutes, projectRoutes, adminUserRoutes]) api.use(routes(deps));
+  for (const routes of API_ROUTERS) api.use(routes(deps));
   app.use('/api', api);
   app.use('/api', (req) => {
     throw new HttpError('not_found', `No API route ${req.method} ${req.originalUrl.split('?')[0]}`);

@@ -1,5 +1,8 @@
 import type { Db } from './db/client';
 import type { Auth } from './auth';
+import type { ForecastProvider } from './forecast';
+import type { Mailer } from './mail/mailer';
+import type { Database } from './db/client';
 
 /** What the app is built from; tests build one on an in-memory database. */
 export interface AppDeps {
@@ -8,6 +11,26 @@ export interface AppDeps {
   /** The current time; tests pin it. */
   clock: () => Date;
   log: Logger;
+  /** The marine forecast service (or its local fake). */
+  forecast: ForecastProvider;
+  /** E-mail (SMTP, or the local mail catcher). */
+  mailer: Mailer;
+  /** The database handle (driver kind, advisory locks). */
+  database: Database;
+  config: AppConfig;
+}
+
+export interface AppConfig {
+  /** Public address of the app, for links in e-mails and calendar feeds. */
+  baseUrl: string;
+  /** Secret that signs unsubscribe links. */
+  linkSecret: string;
+  /** An earliest start that moves by more than this many hours is an alert. */
+  earliestMoveAlertHours: number;
+  /** Delivery attempts before an e-mail is marked failed. */
+  mailMaxAttempts: number;
+  /** Secret that `npm run plan:once` presents to ask this running server to plan (embedded database). */
+  jobToken?: string;
 }
 
 export interface Logger {

@@ -26,8 +26,17 @@ const EnvSchema = z.object({
   FORECAST_API_KEY: z.string().optional(),
   /** Cron expression (UTC) of the planning job. */
   PLAN_CRON: z.string().default('15 */6 * * *'),
+  /** An earliest start moving by more than this many hours is an alert. */
+  ALERT_EARLIEST_MOVE_HOURS: z.coerce.number().min(0).max(240).default(6),
+  /** Run the scheduled planning and mail delivery in this process (default on). */
+  JOBS_ENABLED: z
+    .enum(['true', 'false'])
+    .default('true')
+    .transform((v) => v === 'true'),
   /** Express "trust proxy" setting when behind a reverse proxy (e.g. 1, or loopback). */
   TRUST_PROXY: z.string().optional(),
+  /** Years of invented hourly hindcast in the demo seed. */
+  DEMO_HINDCAST_YEARS: z.coerce.number().int().min(0).max(60).default(20),
   /** Seed the invented demo scenario into an empty database (default on). */
   SEED_DEMO: z
     .enum(['true', 'false'])

@@ -1,3 +1,5 @@
+import crypto from 'node:crypto';
+import fs from 'node:fs';
 import http from 'node:http';
 import path from 'node:path';
 import { count } from 'drizzle-orm';
@@ -9,6 +11,9 @@ import { createAuth } from './auth';
 import { createApp } from './app';
 import { consoleLogger, type AppDeps, type Logger } from './deps';
 import { seedDemo } from '../seed/demo';
+import { createForecastProvider } from './forecast';
+import { createMailer } from './mail/mailer';
+import { startPlanningSchedule } from '../jobs/schedule';
 
 export interface Running {
   url: string;
@@ -24,25 +29,37 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
   const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: path.join(env.DATA_DIR, 'db') });
   await migrateDatabase(database);
 
+  const forecast = await createForecastProvider({ forecastUrl: env.FORECAST_URL, forecastApiKey: env.FORECAST_API_KEY });
+  if (forecast.fake) log.info(`No FORECAST_URL: local fake forecast service at ${forecast.fake.url}`);
+
+  const mailer = await createMailer({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM });
+  if (mailer.fake) log.info(`No SMTP_URL: local mail catcher on port ${mailer.fake.port} (see the Mailbox page)`);
+
   const port = env.PORT;
   const provisionalBase = env.BASE_URL ?? `http://localhost:${port || 3000}`;
+  const secret = resolveAuthSecret(env);
+  const jobToken = crypto.randomBytes(24).toString('base64url');
   const makeDeps = (baseURL: string): AppDeps => ({
     db: database.db,
+    database,
     auth: createAuth(database.db, {
-      secret: resolveAuthSecret(env),
+      secret,
       baseURL,
       trustedOrigins: trustedOrigins(baseURL),
       secureCookies: baseURL.startsWith('https://'),
     }),
     clock: () => new Date(),
     log,
+    forecast: forecast.provider,
+    mailer,
+    config: { baseUrl: baseURL, linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6, jobToken },
   });
 
   const deps = makeDeps(provisionalBase);
   const [{ n }] = await database.db.select({ n: count() }).from(user);
   if (n === 0 && env.SEED_DEMO) {
     log.info('Empty database: seeding the invented demo scenario');
-    await seedDemo(deps);
+    await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS });
   }
 
   const app = createApp(deps, {
@@ -50,6 +67,7 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
     trustProxy: parseTrustProxy(env.TRUST_PROXY),
     exposeStack: env.NODE_ENV === 'development',
   });
+  const schedule = startPlanningSchedule(deps, { planCron: env.PLAN_CRON, enabled: env.JOBS_ENABLED });
   const server = http.createServer(app);
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
@@ -57,6 +75,11 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
   });
   const actualPort = (server.address() as { port: number }).port;
   const url = env.BASE_URL ?? `http://localhost:${actualPort}`;
+  // Tell `npm run plan:once` that this process holds the embedded database, and how to reach it.
+  const serverFile = path.join(path.resolve(env.DATA_DIR), 'server.json');
+  if (database.kind === 'pglite') {
+    fs.writeFileSync(serverFile, JSON.stringify({ pid: process.pid, port: actualPort, jobToken }), { mode: 0o600 });
+  }
   log.info(`Lullwatch is running at ${url} (${database.kind === 'pglite' ? `embedded database in ${path.resolve(env.DATA_DIR)}` : 'PostgreSQL server'})`);
 
   return {
@@ -64,8 +87,13 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
     port: actualPort,
     database,
     async close() {
+      schedule.stop();
+      if (database.kind === 'pglite') fs.rmSync(serverFile, { force: true });
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
+      await schedule.idle();
+      await forecast.close();
+      await mailer.close();
       await database.close();
     },
   };

@@ -7,6 +7,8 @@ import { silentLogger, type AppDeps } from '../../server/deps';
 import { seedDemo, type DemoIds } from '../../seed/demo';
 import { DEMO_PASSWORD } from '../../seed/scenario';
 import { createTestDatabase } from './db';
+import { createForecastProvider, type ForecastSetup } from '../../server/forecast';
+import { createMailer, type Mailer } from '../../server/mail/mailer';
 
 export const TEST_ORIGIN = 'http://localhost:3000';
 
@@ -15,6 +17,8 @@ export interface TestApp {
   deps: AppDeps;
   database: Database;
   demo: DemoIds;
+  forecast: ForecastSetup;
+  mailer: Mailer;
   close(): Promise<void>;
 }
 
@@ -23,11 +27,18 @@ export interface TestAppOptions {
   signInPerMinute?: number;
   enforceOriginCheck?: boolean;
   secureCookies?: boolean;
+  /** Years of invented hindcast to seed (default none: fast). */
+  hindcastYears?: number;
+  /** Seed a forecast from the fake service (default no). */
+  forecast?: boolean;
 }
 
 /** The real app on a fresh in-memory database with the demo scenario seeded. */
 export async function createTestApp(options: TestAppOptions = {}): Promise<TestApp> {
   const database = await createTestDatabase();
+  const clock = options.clock ?? (() => new Date());
+  const forecast = await createForecastProvider({ timeoutMs: 2000, fake: { clock: () => clock().getTime() } });
+  const mailer = await createMailer({ from: 'Lullwatch tests <alerts@lullwatch.invalid>' });
   const deps: AppDeps = {
     db: database.db,
     auth: createAuth(database.db, {
@@ -38,12 +49,28 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
       signInPerMinute: options.signInPerMinute ?? 1000,
       enforceOriginCheckInTests: options.enforceOriginCheck,
     }),
-    clock: options.clock ?? (() => new Date()),
+    clock,
     log: silentLogger,
+    forecast: forecast.provider,
+    mailer,
+    database,
+    config: { baseUrl: TEST_ORIGIN, linkSecret: 'test-link-secret', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
   };
-  const demo = await seedDemo(deps);
+  const demo = await seedDemo(deps, { hindcastYears: options.hindcastYears ?? 0, forecast: options.forecast ?? false });
   const app = createApp(deps);
-  return { app, deps, database, demo, close: () => database.close() };
+  return {
+    app,
+    deps,
+    database,
+    demo,
+    forecast,
+    mailer,
+    async close() {
+      await forecast.close();
+      await mailer.close();
+      await database.close();
+    },
+  };
 }
 
 export type Agent = ReturnType<typeof request.agent>;

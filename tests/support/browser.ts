@@ -38,7 +38,7 @@ export async function startServer(env: Record<string, string> = {}): Promise<Run
   let out = '';
   const child = spawn(path.join(ROOT, 'node_modules/.bin/tsx'), ['server/index.ts'], {
     cwd: ROOT,
-    env: { ...process.env, NODE_ENV: 'production', PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dataDir, BASE_URL: `http://127.0.0.1:${port}`, ...env },
+    env: { ...process.env, NODE_ENV: 'production', PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dataDir, BASE_URL: `http://127.0.0.1:${port}`, DEMO_HINDCAST_YEARS: '5', JOBS_ENABLED: 'false', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   child.stdout!.on('data', (d) => (out += d));

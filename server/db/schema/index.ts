@@ -1,2 +1,6 @@
 export * from './auth';
 export * from './projects';
+export * from './datasets';
+export * from './sites';
+export * from './downtime';
+export * from './alerts';

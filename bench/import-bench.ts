@@ -1,0 +1,98 @@
+// Import bench (issue 4): a generated 30-year hourly CSV imported end to end through the API
+// (multipart upload, streaming parse, derivation, one transaction into an on-disk PGlite), then
+// read back into typed arrays. Prints both times.
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import request from 'supertest';
+import { createApp } from '../server/app';
+import { createAuth } from '../server/auth';
+import { openDatabase } from '../server/db/client';
+import { migrateDatabase } from '../server/db/migrate';
+import { silentLogger } from '../server/deps';
+import { createForecastProvider } from '../server/forecast';
+import { createMailer } from '../server/mail/mailer';
+import { readSeries } from '../server/services/series-store';
+import { seedDemo } from '../seed/demo';
+
+const RECORDS = 262_968; // 1996-01-01 to 2025-12-31 hourly
+
+function writeCsv(file: string): number {
+  const out = fs.openSync(file, 'w');
+  const t0 = Date.UTC(1996, 0, 1);
+  let buf = 'time,hs,tp,tz,dir,wind_speed,wind_dir\n';
+  for (let i = 0; i < RECORDS; i++) {
+    const hs = 1.2 + 0.8 * Math.sin(i / 700) + ((i * 7919) % 100) / 200;
+    buf += `${new Date(t0 + i * 3_600_000).toISOString()},${hs.toFixed(2)},${(8 + hs).toFixed(1)},${(5.5 + hs * 0.6).toFixed(1)},${(200 + (i % 90)).toFixed(0)},${(4 + hs * 3).toFixed(1)},${(210 + (i % 80)).toFixed(0)}\n`;
+    if (buf.length > 1 << 20) {
+      fs.writeSync(out, buf);
+      buf = '';
+    }
+  }
+  fs.writeSync(out, buf);
+  fs.closeSync(out);
+  return fs.statSync(file).size;
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor((xs.length - 1) / 2)];
+
+export async function runImportBench(): Promise<{ importMs: number; readBackMedianMs: number; bytes: number }> {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-bench-'));
+  const csv = path.join(dir, 'hindcast-30y.csv');
+  const bytes = writeCsv(csv);
+  const database = await openDatabase({ dataDir: path.join(dir, 'db') });
+  await migrateDatabase(database);
+  const forecast = await createForecastProvider();
+  const mailer = await createMailer({ from: 'bench@lullwatch.invalid' });
+  const origin = 'http://localhost:3000';
+  const deps = {
+    db: database.db,
+    database,
+    auth: createAuth(database.db, { secret: 'bench-secret-bench-secret-bench-secret', baseURL: origin, trustedOrigins: [origin], secureCookies: false }),
+    clock: () => new Date(),
+    log: silentLogger,
+    forecast: forecast.provider,
+    mailer,
+    config: { baseUrl: origin, linkSecret: 'bench', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
+  };
+  const demo = await seedDemo(deps, { hindcastYears: 0, forecast: false });
+  const app = createApp(deps);
+  const agent = request.agent(app);
+  await agent.post('/api/auth/sign-in/email').set('Origin', origin).send({ email: 'coordinator@example.com', password: 'lullwatch-demo' });
+
+  const t0 = performance.now();
+  const res = await agent
+    .post(`/api/projects/${demo.projectId}/datasets`)
+    .field('name', '30-year bench hindcast')
+    .field('kind', 'hindcast')
+    .field('dataPointDepth', 'deep')
+    .attach('file', csv);
+  const importMs = performance.now() - t0;
+  if (res.status !== 201 || res.body.records !== RECORDS) throw new Error(`import failed: ${res.status} ${res.text.slice(0, 300)}`);
+
+  const reads: number[] = [];
+  for (let i = 0; i < 5; i++) {
+    const r0 = performance.now();
+    const s = await readSeries(database.db, res.body.id);
+    reads.push(performance.now() - r0);
+    if (s.timeMs.length !== RECORDS) throw new Error('read-back length mismatch');
+  }
+  await forecast.close();
+  await mailer.close();
+  await database.close();
+  fs.rmSync(dir, { recursive: true, force: true });
+  const result = { importMs, readBackMedianMs: median(reads), bytes };
+  console.log(
+    `import: 30-year hourly CSV (${RECORDS} records, ${(bytes / 1e6).toFixed(1)} MB) through the API into an on-disk database: ${importMs.toFixed(0)} ms\n` +
+      `  read back into typed arrays: median ${result.readBackMedianMs.toFixed(0)} ms of 5 (${reads.map((x) => x.toFixed(0)).join(', ')} ms)`,
+  );
+  return result;
+}
+
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  runImportBench().catch((error: unknown) => {
+    console.error(error);
+    process.exitCode = 1;
+  });
+}

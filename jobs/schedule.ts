@@ -1,0 +1,49 @@
+import cron from 'node-cron';
+import type { AppDeps } from '../server/deps';
+import { deliverDueMail } from '../server/services/outbox';
+import { runPlanningJob } from './plan-job';
+import { queueDigests } from './digest';
+
+export interface Schedule {
+  stop(): void;
+  /** Resolves when no scheduled work is running. */
+  idle(): Promise<void>;
+}
+
+/**
+ * The scheduled work of one app instance (node-cron, UTC): the planning job on `planCron`
+ * (default every 6 hours at minute 15), e-mail delivery every minute, daily digests every 15
+ * minutes. `noOverlap` keeps one run of each at a time in this process; the planning job also
+ * takes a database advisory lock per project against other instances.
+ */
+export function startPlanningSchedule(deps: AppDeps, options: { planCron: string; enabled: boolean }): Schedule {
+  if (!options.enabled) return { stop: () => {}, idle: async () => {} };
+  const running = new Set<Promise<unknown>>();
+  const track = (p: Promise<unknown>) => {
+    running.add(p);
+    void p.finally(() => running.delete(p));
+    return p;
+  };
+  const guard = (name: string, fn: () => Promise<unknown>) => () =>
+    track(
+      fn().catch((err: unknown) => deps.log.error(`${name} failed`, { error: err instanceof Error ? err.message : String(err) })),
+    );
+  const tasks = [
+    cron.createTask(options.planCron, guard('Planning job', () => runPlanningJob(deps, { trigger: 'schedule' })), { name: 'plan', noOverlap: true, timezone: 'UTC' }),
+    cron.createTask('* * * * *', guard('Mail delivery', () => deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log })), {
+      name: 'mail',
+      noOverlap: true,
+      timezone: 'UTC',
+    }),
+    cron.createTask('*/15 * * * *', guard('Daily digests', () => queueDigests(deps)), { name: 'digest', noOverlap: true, timezone: 'UTC' }),
+  ];
+  for (const t of tasks) void t.start();
+  return {
+    stop: () => {
+      for (const t of tasks) void t.destroy();
+    },
+    idle: async () => {
+      await Promise.allSettled([...running]);
+    },
+  };
+}

@@ -1,0 +1,79 @@
+// Invented worksites and operations of the demo campaign. The limits are plausible figures for
+// the kind of work (common practice, no source); a real project takes them from its vessels'
+// and contractors' method statements and the marine warranty surveyor.
+
+export const DEMO_SITES = [
+  { key: 'cofferdam', name: 'Landfall cofferdam', depthM: 3.5, shoreNormalDeg: 250, breakerIndex: 0.6, latitude: 52.412, longitude: -5.301 },
+  { key: 'trench', name: 'Nearshore trench KP 0.8', depthM: 8, shoreNormalDeg: 248, breakerIndex: 0.6, latitude: 52.409, longitude: -5.313 },
+  { key: 'route', name: 'Cable route KP 4.5', depthM: 19, shoreNormalDeg: 245, breakerIndex: 0.6, latitude: 52.398, longitude: -5.366 },
+  { key: 'substation', name: 'Offshore substation approach', depthM: 38, shoreNormalDeg: null, breakerIndex: 0.6, latitude: 52.385, longitude: -5.56 },
+] as const;
+
+export const DEMO_TIME_ZONE = 'Europe/London';
+
+type SiteKey = (typeof DEMO_SITES)[number]['key'];
+
+export const DEMO_OPERATIONS: {
+  name: string;
+  description: string;
+  tpopH: number;
+  tcH: number;
+  weatherRestricted: boolean;
+  limits: Record<string, unknown>;
+  sites: SiteKey[];
+  skipper: boolean;
+  recurrence?: { start: string; timeZone: string; rule: string };
+}[] = [
+  {
+    name: 'Cable pull-in at landfall',
+    description: 'Winch the cable end through the duct into the cofferdam; divers on the bell mouth.',
+    tpopH: 18,
+    tcH: 6,
+    weatherRestricted: true,
+    limits: { hsMax: 1.0, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' },
+    sites: ['cofferdam', 'trench'],
+    skipper: false,
+  },
+  {
+    name: 'Cable lay, nearshore section',
+    description: 'Lay from the trench to KP 4.5 with the lay barge on anchors.',
+    tpopH: 36,
+    tcH: 12,
+    weatherRestricted: true,
+    limits: { hsTpCurve: [[4, 1.8], [8, 1.5], [12, 1.2], [16, 1.0]], windMax: 15 },
+    sites: ['trench', 'route'],
+    skipper: false,
+  },
+  {
+    name: 'Rock berm placement',
+    description: 'Fall-pipe placement over the cable crossing; the vessel rolls badly in 13-15 s swell.',
+    tpopH: 10,
+    tcH: 4,
+    weatherRestricted: true,
+    limits: { hsMax: 1.5, tpExcluded: [[13, 15]], windMax: 16 },
+    sites: ['route'],
+    skipper: true,
+  },
+  {
+    name: 'ROV burial survey',
+    description: 'Work-class ROV survey of burial depth; limited by near-bed orbital velocity at the route.',
+    tpopH: 8,
+    tcH: 4,
+    weatherRestricted: true,
+    limits: { hsMax: 2.0, bedVelocityMax: 0.35, bedVelocityMethod: 'soulsby' },
+    sites: ['route', 'substation'],
+    skipper: true,
+  },
+  {
+    name: 'Crew transfer (CTV Sable Wren)',
+    description: 'Bow-on transfer to the substation boat landing.',
+    tpopH: 2,
+    tcH: 1,
+    weatherRestricted: true,
+    limits: { hsMax: 1.5, tpMin: 3, windMax: 14 },
+    sites: ['substation'],
+    skipper: true,
+    // Crew change every Monday, Wednesday and Friday at 06:00 worksite time.
+    recurrence: { start: '2026-01-05T06:00', timeZone: 'Europe/London', rule: 'FREQ=WEEKLY;BYDAY=MO,WE,FR' },
+  },
+];

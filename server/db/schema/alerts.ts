@@ -1,0 +1,105 @@
+import { sql } from 'drizzle-orm';
+import { boolean, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { user } from './auth';
+import { project } from './projects';
+import { dataset } from './datasets';
+
+/** One run of the planning job for one project. */
+export const planRun = pgTable(
+  'plan_run',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    datasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
+    trigger: text({ enum: ['schedule', 'manual', 'cli'] }).notNull(),
+    status: text({ enum: ['running', 'ok', 'failed'] }).notNull(),
+    startedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    finishedAt: timestamp({ withTimezone: true }),
+    /** Per operation and worksite: windows, earliest start, may-start-now, occurrences. */
+    plans: jsonb().$type<unknown[]>(),
+    error: text(),
+  },
+  (t) => [index().on(t.projectId, t.startedAt)],
+);
+
+/** A change between two plans that people hear about. */
+export const alert = pgTable(
+  'alert',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    planRunId: uuid()
+      .notNull()
+      .references(() => planRun.id, { onDelete: 'cascade' }),
+    operationId: uuid().notNull(),
+    siteId: uuid().notNull(),
+    kind: text().notNull(),
+    /** Stable key of the change within the run (for idempotency). */
+    changeKey: text().notNull(),
+    message: text().notNull(),
+    details: jsonb().notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index().on(t.projectId, t.createdAt)],
+);
+
+/** Every e-mail is written here first, then sent; the key makes re-runs send nothing twice. */
+export const outbox = pgTable(
+  'outbox',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    idempotencyKey: text().notNull().unique(),
+    projectId: uuid().references(() => project.id, { onDelete: 'cascade' }),
+    userId: text().references(() => user.id, { onDelete: 'set null' }),
+    toEmail: text().notNull(),
+    subject: text().notNull(),
+    text: text().notNull(),
+    html: text().notNull(),
+    status: text({ enum: ['pending', 'sent', 'failed'] }).notNull().default('pending'),
+    attempts: integer().notNull().default(0),
+    nextAttemptAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    lastError: text(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    sentAt: timestamp({ withTimezone: true }),
+  },
+  (t) => [index().on(t.status, t.nextAttemptAt)],
+);
+
+/** What a user hears about: operations and worksites of a project (null = all), how and when. */
+export const subscription = pgTable(
+  'subscription',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    userId: text()
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    operationIds: jsonb().$type<string[]>().notNull().default([]),
+    siteIds: jsonb().$type<string[]>().notNull().default([]),
+    immediate: boolean().notNull().default(true),
+    digest: boolean().notNull().default(false),
+    /** Local time of the daily digest, HH:MM, in digestTimeZone. */
+    digestTime: text().notNull().default('06:00'),
+    digestTimeZone: text().notNull().default('UTC'),
+    lastDigestAt: timestamp({ withTimezone: true }),
+    active: boolean().notNull().default(true),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique().on(t.userId, t.projectId)],
+);
+
+/** Per-user secret token of the calendar feed (revocable). */
+export const calendarToken = pgTable('calendar_token', {
+  userId: text()
+    .primaryKey()
+    .references(() => user.id, { onDelete: 'cascade' }),
+  token: text().notNull().unique(),
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});

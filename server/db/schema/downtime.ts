@@ -1,0 +1,70 @@
+import { sql } from 'drizzle-orm';
+import { doublePrecision, index, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { user } from './auth';
+import { project } from './projects';
+import { operation, worksite } from './sites';
+import { dataset } from './datasets';
+
+/** An ordered list of steps (operation at worksite) with a planned start. */
+export const campaign = pgTable(
+  'campaign',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    name: text().notNull(),
+    steps: jsonb().$type<{ operationId: string; siteId: string }[]>().notNull(),
+    plannedStart: timestamp({ withTimezone: true }),
+    /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (DOMAIN Convention 15). */
+    timeZone: text().notNull().default('UTC'),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index().on(t.projectId)],
+);
+
+/** One day of one operation at one worksite: hours planned and lost to weather. */
+export const ledgerDay = pgTable(
+  'ledger_day',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    operationId: uuid()
+      .notNull()
+      .references(() => operation.id, { onDelete: 'cascade' }),
+    siteId: uuid()
+      .notNull()
+      .references(() => worksite.id, { onDelete: 'cascade' }),
+    /** Calendar day in the worksite's time zone, YYYY-MM-DD. */
+    day: text().notNull(),
+    plannedHours: doublePrecision().notNull(),
+    /** Proposed by the system from the statuses. */
+    proposedLostHours: doublePrecision().notNull(),
+    proposedLimiting: text(),
+    /** As confirmed or corrected by the coordinator (null until then). */
+    lostHours: doublePrecision(),
+    limiting: text(),
+    note: text().notNull().default(''),
+    source: text({ enum: ['observation', 'forecast'] }).notNull(),
+    datasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
+    status: text({ enum: ['proposed', 'confirmed'] }).notNull().default('proposed'),
+    confirmedBy: text().references(() => user.id, { onDelete: 'set null' }),
+    confirmedAt: timestamp({ withTimezone: true }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique().on(t.projectId, t.operationId, t.siteId, t.day), index().on(t.projectId, t.day)],
+);
+
+/** Cached hindcast statistics, keyed by dataset, a version of the limits and the alpha switch. */
+export const statsCache = pgTable('stats_cache', {
+  key: text().primaryKey(),
+  projectId: uuid()
+    .notNull()
+    .references(() => project.id, { onDelete: 'cascade' }),
+  value: jsonb().notNull(),
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});

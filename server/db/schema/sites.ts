@@ -1,0 +1,87 @@
+import { sql } from 'drizzle-orm';
+import { boolean, doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { user } from './auth';
+import { project } from './projects';
+import { dataset } from './datasets';
+
+/** A place where work happens, with the depth the sea states are transformed to. */
+export const worksite = pgTable(
+  'worksite',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    name: text().notNull(),
+    latitude: doublePrecision(),
+    longitude: doublePrecision(),
+    depthM: doublePrecision().notNull(),
+    /** Coming-from direction of waves that cross the depth contours head-on; null = no refraction. */
+    shoreNormalDeg: doublePrecision(),
+    breakerIndex: doublePrecision().notNull().default(0.6),
+    timeZone: text().notNull().default('UTC'),
+    /** A specific hindcast for statistics; null = the project's newest hindcast. */
+    hindcastDatasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
+    /** Optional site-specific transfer table (direction sector × Tp band → Hs factor). */
+    transferTable: jsonb().$type<{ directionSectorsDeg: [number, number][]; tpBandsS: [number, number][]; factors: number[][] } | null>(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index().on(t.projectId)],
+);
+
+/** A marine operation with its limits (OPLIM), durations and optional recurrence. */
+export const operation = pgTable(
+  'operation',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    name: text().notNull(),
+    description: text().notNull().default(''),
+    tpopH: doublePrecision().notNull(),
+    tcH: doublePrecision().notNull().default(0),
+    weatherRestricted: boolean().notNull().default(true),
+    limits: jsonb().$type<Record<string, unknown>>().notNull(),
+    /** Worksites the operation happens at; empty = every worksite of the project. */
+    siteIds: jsonb().$type<string[]>().notNull().default([]),
+    /** Skippers assigned to the operation (user ids). */
+    skipperIds: jsonb().$type<string[]>().notNull().default([]),
+    /** iCalendar RRULE (with DTSTART in the first worksite's zone) for recurring operations. */
+    recurrence: jsonb().$type<Record<string, unknown> | null>(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index().on(t.projectId)],
+);
+
+/** The project's alpha table (null rows = the default table). */
+export const projectAlpha = pgTable('project_alpha', {
+  projectId: uuid()
+    .primaryKey()
+    .references(() => project.id, { onDelete: 'cascade' }),
+  table: jsonb().$type<{ tpopBoundsH: number[]; hsColumnsM: number[]; values: number[][] }>().notNull(),
+  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Who changed a limit, a worksite's depth or the alpha table, when, before and after. Append-only. */
+export const auditEntry = pgTable(
+  'audit_entry',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    userId: text().references(() => user.id, { onDelete: 'set null' }),
+    userName: text().notNull(),
+    at: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    entity: text({ enum: ['operation', 'worksite', 'alpha', 'project'] }).notNull(),
+    entityId: text(),
+    entityName: text().notNull().default(''),
+    action: text({ enum: ['create', 'update', 'delete', 'import'] }).notNull(),
+    before: jsonb(),
+    after: jsonb(),
+  },
+  (t) => [index().on(t.projectId, t.at)],
+);

@@ -1,0 +1,81 @@
+import { SMTPServer } from 'smtp-server';
+import { simpleParser } from 'mailparser';
+
+/** A message the local fake SMTP server caught. */
+export interface CaughtMessage {
+  id: number;
+  from: string;
+  to: string[];
+  subject: string;
+  text: string;
+  html: string;
+  receivedAt: string;
+}
+
+export interface FakeSmtp {
+  host: string;
+  port: number;
+  messages: CaughtMessage[];
+  /** Refuse (or accept again) every message: for the "SMTP down" tests. */
+  setDown(down: boolean): void;
+  close(): Promise<void>;
+}
+
+/**
+ * A local SMTP server that catches what the app sends (development and tests, when no SMTP_URL
+ * is configured). smtp-server receives, mailparser parses; nothing leaves the machine.
+ */
+export async function startFakeSmtp(options: { port?: number; host?: string; keep?: number } = {}): Promise<FakeSmtp> {
+  const messages: CaughtMessage[] = [];
+  const keep = options.keep ?? 500;
+  let down = false;
+  let nextId = 1;
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['AUTH', 'STARTTLS'],
+    banner: 'Lullwatch local mail catcher',
+    logger: false,
+    onData(stream, session, callback) {
+      if (down) {
+        stream.resume();
+        stream.on('end', () => {
+          const err = new Error('Mail catcher is down (test switch)') as Error & { responseCode: number };
+          err.responseCode = 451;
+          callback(err);
+        });
+        return;
+      }
+      simpleParser(stream)
+        .then((mail) => {
+          messages.push({
+            id: nextId++,
+            from: mail.from?.text ?? '',
+            to: session.envelope.rcptTo.map((r) => r.address),
+            subject: mail.subject ?? '',
+            text: mail.text ?? '',
+            html: typeof mail.html === 'string' ? mail.html : '',
+            receivedAt: new Date().toISOString(),
+          });
+          if (messages.length > keep) messages.splice(0, messages.length - keep);
+          callback();
+        })
+        .catch((err: Error) => callback(err));
+    },
+  });
+  const host = options.host ?? '127.0.0.1';
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(options.port ?? 0, host, () => resolve());
+  });
+  const address = server.server.address();
+  const port = typeof address === 'object' && address ? address.port : 0;
+  return {
+    host,
+    port,
+    messages,
+    setDown: (d) => {
+      down = d;
+    },
+    close: () => new Promise<void>((resolve) => server.close(() => resolve())),
+  };
+}

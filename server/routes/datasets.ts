@@ -1,0 +1,144 @@
+import os from 'node:os';
+import path from 'node:path';
+import fs from 'node:fs';
+import { Router, type Request, type Response } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import type { AppDeps } from '../deps';
+import { HttpError, parseInput } from '../http/errors';
+import { requireCoordinator, requireProjectMember } from '../services/project-access';
+import {
+  deleteDataset,
+  getDataset,
+  getDatasetRow,
+  listDatasets,
+  monthlySummary,
+  readDatasetSeries,
+  seriesCsv,
+  toRecordsAnswer,
+} from '../services/datasets';
+import { importUploadedFile, MAX_UPLOAD_BYTES, safeFileName } from '../services/dataset-import';
+
+const UPLOAD_DIR = path.join(os.tmpdir(), 'lullwatch-uploads');
+
+const upload = multer({
+  dest: UPLOAD_DIR,
+  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 20, fieldSize: 64 * 1024 },
+}).single('file');
+
+/** Runs multer after the role check, so refused callers never send their file to disk. */
+function receiveUpload(req: Request, res: Response): Promise<void> {
+  fs.mkdirSync(UPLOAD_DIR, { recursive: true });
+  return new Promise((resolve, reject) =>
+    upload(req, res, (err: unknown) => {
+      if (!err) return resolve();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE') {
+          return reject(new HttpError('too_large', `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`));
+        }
+        return reject(new HttpError('validation', `Upload refused: ${err.message}`, [{ field: err.field ?? 'file', message: err.message }]));
+      }
+      reject(err);
+    }),
+  );
+}
+
+const RecordsQuery = z.object({
+  from: z.iso.datetime({ offset: true }).optional(),
+  to: z.iso.datetime({ offset: true }).optional(),
+});
+
+export function datasetsRoutes({ db }: AppDeps): Router {
+  const router = Router();
+
+  /** GET /api/projects/:projectId/datasets: every dataset of the project, newest first. */
+  router.get('/projects/:projectId/datasets', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    res.json(await listDatasets(db, access.projectId));
+  });
+
+  /**
+   * POST /api/projects/:projectId/datasets (multipart: file, name, kind, format, dataPointDepth,
+   * timeZone?, onBadRows?, columns?, units?, missingCodes?...): imports a file all-or-nothing.
+   * With `Accept: application/x-ndjson` the answer streams progress lines, then the result.
+   */
+  router.post('/projects/:projectId/datasets', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    await receiveUpload(req, res);
+    const file = req.file;
+    try {
+      if (!file) {
+        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [{ field: 'file', message: 'is required' }]);
+      }
+      const streamProgress = (req.headers.accept ?? '').includes('application/x-ndjson');
+      const args = {
+        projectId: access.projectId,
+        userId: access.user.id,
+        file: { path: file.path, originalName: safeFileName(file.originalname), size: file.size },
+        fields: req.body ?? {},
+      };
+      if (!streamProgress) {
+        res.status(201).json(await importUploadedFile(db, args));
+        return;
+      }
+      res.status(200).setHeader('content-type', 'application/x-ndjson');
+      const line = (o: unknown) => res.write(`${JSON.stringify(o)}\n`);
+      try {
+        const result = await importUploadedFile(db, { ...args, onProgress: (p) => line({ progress: p }) });
+        line({ status: 201, result });
+      } catch (err) {
+        const e = err instanceof HttpError ? err : new HttpError('internal', 'Internal server error');
+        line({ status: e.status, error: { code: e.code, message: e.message, details: e.details ?? null } });
+      }
+      res.end();
+    } finally {
+      if (file) fs.rm(file.path, { force: true }, () => {});
+    }
+  });
+
+  /** GET /api/projects/:projectId/datasets/:datasetId: metadata, coverage and the import report. */
+  router.get('/projects/:projectId/datasets/:datasetId', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    res.json(await getDataset(db, access.projectId, req.params.datasetId));
+  });
+
+  /** GET .../datasets/:datasetId/records?from=&to=: columnar arrays (ISO UTC times, SI units, null = missing). */
+  router.get('/projects/:projectId/datasets/:datasetId/records', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const q = parseInput(RecordsQuery, req.query, 'query');
+    const row = await getDatasetRow(db, access.projectId, req.params.datasetId);
+    const series = await readDatasetSeries(db, row.id, {
+      fromMs: q.from ? Date.parse(q.from) : undefined,
+      toMs: q.to ? Date.parse(q.to) : undefined,
+    });
+    res.json(toRecordsAnswer(series));
+  });
+
+  /** GET .../datasets/:datasetId/monthly: mean and 90th percentile Hs and coverage per month (UTC). */
+  router.get('/projects/:projectId/datasets/:datasetId/monthly', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const row = await getDatasetRow(db, access.projectId, req.params.datasetId);
+    res.json(monthlySummary(await readDatasetSeries(db, row.id), row.stepMinutes));
+  });
+
+  /** GET .../datasets/:datasetId/csv: the records as a CSV download (UTC, SI units). */
+  router.get('/projects/:projectId/datasets/:datasetId/csv', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const row = await getDatasetRow(db, access.projectId, req.params.datasetId);
+    const series = await readDatasetSeries(db, row.id);
+    const name = row.name.replace(/[^A-Za-z0-9._-]+/g, '-').slice(0, 80) || 'dataset';
+    res.setHeader('content-type', 'text/csv; charset=utf-8');
+    res.setHeader('content-disposition', `attachment; filename="${name}.csv"`);
+    for (const part of seriesCsv(series)) res.write(part);
+    res.end();
+  });
+
+  /** DELETE .../datasets/:datasetId (coordinators). */
+  router.delete('/projects/:projectId/datasets/:datasetId', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    await deleteDataset(db, access.projectId, req.params.datasetId);
+    res.status(204).end();
+  });
+
+  return router;
+}

@@ -1,0 +1,57 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { LedgerConfirmInput, LedgerRangeQuery, isoDay } from '../../shared/schemas/downtime';
+import type { AppDeps } from '../deps';
+import { parseInput } from '../http/errors';
+import { confirmLedger, ledgerMonthly, listLedger, proposeLedger } from '../services/ledger';
+import { requireCoordinator, requireProjectMember } from '../services/project-access';
+
+const MonthlyQuery = z.object({ dataset: z.string().uuid('must be a dataset id').optional(), from: isoDay.optional(), to: isoDay.optional() });
+
+/** The downtime ledger: every member reads (clients the confirmed days only), coordinators propose and confirm. */
+export function ledgerRoutes({ db }: AppDeps): Router {
+  const router = Router();
+
+  /**
+   * POST /api/projects/:projectId/ledger/propose?from=YYYY-MM-DD&to=YYYY-MM-DD: proposes each day
+   * (worksite time zone) for every operation at each of its worksites from the newest observation
+   * that covers the day, else the newest forecast; planned hours, hours lost at OPLIM, limiting
+   * factor. Updates proposed rows, never confirmed ones. → `{ written, keptConfirmed, uncovered, sources }`.
+   */
+  router.post('/projects/:projectId/ledger/propose', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    const q = parseInput(LedgerRangeQuery, req.query, 'query');
+    res.json(await proposeLedger(db, access.projectId, q));
+  });
+
+  /** GET /api/projects/:projectId/ledger?from=&to=: ledger days by day, operation and worksite (clients: confirmed only). */
+  router.get('/projects/:projectId/ledger', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const q = parseInput(LedgerRangeQuery, req.query, 'query');
+    res.json(await listLedger(db, access.projectId, q, access.role));
+  });
+
+  /**
+   * GET /api/projects/:projectId/ledger/monthly?dataset=&from=&to=: per month and operation at a
+   * worksite, confirmed lost hours against the hindcast expectation (P50/P90 of the month's lost
+   * hours at OPLIM over the hindcast years; default the newest hindcast).
+   */
+  router.get('/projects/:projectId/ledger/monthly', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const q = parseInput(MonthlyQuery, req.query, 'query');
+    res.json(await ledgerMonthly(db, access.projectId, { datasetId: q.dataset, from: q.from, to: q.to, role: access.role }));
+  });
+
+  /**
+   * POST /api/projects/:projectId/ledger/:entryId/confirm `{ lostHours?, limiting?, note }`:
+   * confirms the day (a corrected value needs a note) and locks it; 409 when already confirmed.
+   * Written to the audit trail.
+   */
+  router.post('/projects/:projectId/ledger/:entryId/confirm', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    const input = parseInput(LedgerConfirmInput, req.body ?? {});
+    res.json(await confirmLedger(db, access.projectId, access.user, req.params.entryId, input));
+  });
+
+  return router;
+}

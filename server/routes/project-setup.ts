@@ -1,0 +1,33 @@
+import { Router } from 'express';
+import { ImportQuery, ProjectSetupDocument } from '../../shared/schemas/sites';
+import type { AppDeps } from '../deps';
+import { parseInput } from '../http/errors';
+import { requireCoordinator, requireProjectMember } from '../services/project-access';
+import { exportSetup, importSetup, setupFileName } from '../services/project-setup';
+
+/** Export (any member) and import (coordinators) of the whole project setup as one JSON document. */
+export function projectSetupRoutes({ db, clock }: AppDeps): Router {
+  const router = Router();
+
+  /** GET /api/projects/:projectId/export: the setup document as a JSON attachment. */
+  router.get('/projects/:projectId/export', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const doc = await exportSetup(db, access.projectId, clock());
+    res.setHeader('Content-Disposition', `attachment; filename="${setupFileName(doc.project.name)}"`);
+    res.setHeader('Cache-Control', 'no-store');
+    res.json(doc);
+  });
+
+  /**
+   * POST /api/projects/:projectId/import?mode=merge|replace: body = the setup document.
+   * 400 naming each bad field path; 409 in merge mode when names clash; nothing changes on error.
+   */
+  router.post('/projects/:projectId/import', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    const { mode } = parseInput(ImportQuery, req.query, 'query');
+    const doc = parseInput(ProjectSetupDocument, req.body);
+    res.json(await importSetup(db, access.projectId, access.user, doc, mode));
+  });
+
+  return router;
+}

@@ -1,0 +1,50 @@
+import { Router } from 'express';
+import { RegularWaveQuery, SeaStateQuery, WaveTableQuery } from '../../shared/schemas/wave';
+import type { AppDeps } from '../deps';
+import { requireUser } from '../http/context';
+import { HttpError, parseInput } from '../http/errors';
+import { regularWaveAnswer, regularWaveProfile, seaStateAnswer, waveTableAnswer } from '../services/wave-calculator';
+
+/** Turns the physics core's RangeErrors into 400s naming what is out of range. */
+function physics<T>(fn: () => T): T {
+  try {
+    return fn();
+  } catch (err) {
+    if (err instanceof RangeError) throw new HttpError('validation', err.message);
+    throw err;
+  }
+}
+
+export function waveRoutes(_deps: AppDeps): Router {
+  const router = Router();
+
+  /** GET /api/wave/regular?period=&height=&depth=&z=: one regular wave by linear theory (SI units). */
+  router.get('/wave/regular', (req, res) => {
+    requireUser(req);
+    const q = parseInput(RegularWaveQuery, req.query, 'query');
+    res.json(physics(() => regularWaveAnswer(q)));
+  });
+
+  /** GET /api/wave/profile?period=&height=&depth=: u(z), w(z), Kp(z) from the bed (or L/2) to the surface. */
+  router.get('/wave/profile', (req, res) => {
+    requireUser(req);
+    const q = parseInput(RegularWaveQuery, req.query, 'query');
+    res.json(physics(() => regularWaveProfile(q)));
+  });
+
+  /** GET /api/wave/table?from=&to=&step=: wave table rows by d/L0 (at most 2,000). */
+  router.get('/wave/table', (req, res) => {
+    requireUser(req);
+    const q = parseInput(WaveTableQuery, req.query, 'query');
+    res.json(physics(() => waveTableAnswer(q)));
+  });
+
+  /** GET /api/wave/sea-state?hs=&tp=&depth= (tz, te, gamma optional): periods, energy, power, bed velocity both ways. */
+  router.get('/wave/sea-state', (req, res) => {
+    requireUser(req);
+    const q = parseInput(SeaStateQuery, req.query, 'query');
+    res.json(physics(() => seaStateAnswer(q)));
+  });
+
+  return router;
+}

@@ -1,0 +1,92 @@
+import crypto from 'node:crypto';
+import { format } from 'date-fns';
+import { TZDate } from '@date-fns/tz';
+import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
+import { CAUTION_LINE } from '../../shared/caution';
+
+const LIMIT_WORDS: Record<string, string> = {
+  hs: 'wave height (Hs)',
+  hsTpCurve: 'the Hs-Tp limit curve',
+  tpMin: 'a peak period below the minimum',
+  tpMax: 'a peak period above the maximum',
+  tpBand: 'a peak period in an excluded band',
+  bedVelocity: 'near-bed orbital velocity',
+  wind: 'wind speed',
+};
+
+export const limitWords = (name: string | null | undefined) => (name ? (LIMIT_WORDS[name] ?? name) : null);
+
+/** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
+export function localTime(iso: string, timeZone: string): string {
+  return format(new TZDate(Date.parse(iso), timeZone), 'EEE d MMM HH:mm');
+}
+
+export interface ChangeWithReason extends PlanChange {
+  /** The limit that decides in the new plan (window lost, occurrence no-go). */
+  reason?: string | null;
+}
+
+export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
+  const z = p.timeZone;
+  const span = c.start && c.end ? `${localTime(c.start, z)} to ${localTime(c.end, z)} (${c.hours} h)` : '';
+  const why = c.reason ? `, limited by ${limitWords(c.reason)}` : '';
+  switch (c.kind) {
+    case 'window_opened':
+      return `New window: ${span}. TR is ${p.tr} h.`;
+    case 'window_lost':
+      return `Window lost: ${span} is no longer workable for ${p.tr} h${why}.`;
+    case 'earliest_moved':
+      return `Earliest start moved from ${localTime(c.previous!, z)} to ${localTime(c.start!, z)}.`;
+    case 'start_now_changed':
+      return c.startNow ? 'May start now: the next TR hours are workable.' : `May no longer start now${why}.`;
+    case 'occurrence_no_go':
+      return `No-go for the ${localTime(c.start!, z)} occurrence (TR ${p.tr} h)${why}.`;
+  }
+}
+
+/** Signed unsubscribe link: HMAC-SHA256 over the user and project. */
+export function unsubscribeToken(secret: string, userId: string, projectId: string): string {
+  return crypto.createHmac('sha256', secret).update(`unsubscribe:${userId}:${projectId}`).digest('base64url');
+}
+
+export function verifyUnsubscribe(secret: string, userId: string, projectId: string, sig: string): boolean {
+  const expected = Buffer.from(unsubscribeToken(secret, userId, projectId));
+  const given = Buffer.from(sig);
+  return expected.length === given.length && crypto.timingSafeEqual(expected, given);
+}
+
+const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+/** One e-mail for one recipient about one operation at one worksite. */
+export function alertEmail(args: {
+  plan: PlanSummary;
+  changes: ChangeWithReason[];
+  projectName: string;
+  boardUrl: string;
+  unsubscribeUrl: string;
+}): { subject: string; text: string; html: string } {
+  const { plan, changes } = args;
+  const lines = changes.map((c) => describeChange(c, plan));
+  const headline = changes.length === 1 ? lines[0].split(':')[0] : `${changes.length} changes`;
+  const subject = `${plan.operationName} at ${plan.siteName}: ${headline}`;
+  const text = [
+    `${plan.operationName} at ${plan.siteName} (${args.projectName})`,
+    `Times are ${plan.timeZone}.`,
+    '',
+    ...lines.map((l) => `- ${l}`),
+    '',
+    `Board: ${args.boardUrl}`,
+    '',
+    CAUTION_LINE,
+    `Stop these e-mails: ${args.unsubscribeUrl}`,
+  ].join('\n');
+  const html = `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;color:#10222c;max-width:560px">
+<p style="font-size:16px;font-weight:700;margin:0 0 4px">${esc(plan.operationName)} at ${esc(plan.siteName)}</p>
+<p style="font-size:13px;color:#4a5d66;margin:0 0 12px">${esc(args.projectName)} · times are ${esc(plan.timeZone)}</p>
+<ul style="font-size:15px;padding-left:18px">${lines.map((l) => `<li style="margin-bottom:6px">${esc(l)}</li>`).join('')}</ul>
+<p><a href="${esc(args.boardUrl)}" style="display:inline-block;background:#0b7a72;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Open the watch board</a></p>
+<p style="font-size:12px;color:#4a5d66">${esc(CAUTION_LINE)}</p>
+<p style="font-size:12px"><a href="${esc(args.unsubscribeUrl)}">Stop these e-mails</a></p>
+</body></html>`;
+  return { subject, text, html };
+}

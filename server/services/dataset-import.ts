@@ -1,0 +1,135 @@
+import fs from 'node:fs';
+import { eq } from 'drizzle-orm';
+import {
+  CsvTextParser,
+  ImportError,
+  ImportFormSchema,
+  NdbcParser,
+  csvOptionsFromForm,
+  detectFormat,
+  ndbcOptionsFromForm,
+  type ImportResult,
+} from '../../shared/seadata';
+import type { ImportAnswer } from '../../shared/api-types-datasets';
+import type { Db } from '../db/client';
+import { project } from '../db/schema';
+import { HttpError, parseInput } from '../http/errors';
+import { createDataset } from './datasets';
+import { toSeaSeries } from './sea-series';
+
+export const MAX_UPLOAD_BYTES = 100 * 1024 * 1024;
+
+export interface UploadedFile {
+  path: string;
+  originalName: string;
+  size: number;
+}
+
+export interface ImportProgress {
+  phase: 'parsing' | 'saving';
+  bytesRead: number;
+  totalBytes: number;
+  rows: number;
+}
+
+/** A file name as shown back to users: no folders, no control characters, at most 200 characters. */
+export function safeFileName(name: string): string {
+  const base = name.split(/[\\/]/).pop() ?? '';
+  // eslint-disable-next-line no-control-regex
+  const clean = base.replace(/[\u0000-\u001f\u007f]/g, '').trim().slice(0, 200);
+  return clean || 'upload';
+}
+
+/**
+ * Imports an uploaded sea-state file: validates the form, streams the file through the CSV or
+ * NDBC reader (never one string in memory), derives missing periods, and stores the dataset in
+ * one transaction. A bad file throws a 400 listing line, column, value and reason; nothing is
+ * stored unless everything is.
+ */
+export async function importUploadedFile(
+  db: Db,
+  args: { projectId: string; userId: string; file: UploadedFile; fields: unknown; onProgress?: (p: ImportProgress) => void },
+): Promise<ImportAnswer> {
+  const form = parseInput(ImportFormSchema, args.fields, 'form');
+  const [p] = await db.select().from(project).where(eq(project.id, args.projectId));
+  if (!p) throw new HttpError('not_found', 'Project not found');
+
+  const head = await readHead(args.file.path, 64 * 1024);
+  if (head.includes('\u0000')) {
+    throw new HttpError('bad_file', 'This is not a text file: it holds binary data. Upload CSV or NDBC text.', [
+      { line: 0, column: '', value: '', reason: 'binary content (NUL bytes)' },
+    ]);
+  }
+  const format = form.format === 'auto' ? detectFormat(head) : form.format;
+  const parser = format === 'ndbc' ? new NdbcParser(ndbcOptionsFromForm(form)) : new CsvTextParser(csvOptionsFromForm(form));
+
+  let result: ImportResult;
+  try {
+    let bytesRead = 0;
+    let lastReport = 0;
+    const stream = fs.createReadStream(args.file.path, { encoding: 'utf8', highWaterMark: 1 << 20 });
+    for await (const chunk of stream as AsyncIterable<string>) {
+      bytesRead += Buffer.byteLength(chunk, 'utf8');
+      parser.push(chunk);
+      if (args.onProgress && bytesRead - lastReport > 2 << 20) {
+        lastReport = bytesRead;
+        args.onProgress({ phase: 'parsing', bytesRead, totalBytes: args.file.size, rows: linesOf(parser) });
+      }
+    }
+    result = parser.end();
+  } catch (err) {
+    if (err instanceof ImportError) {
+      throw new HttpError('bad_file', `${err.message}`, err.issues);
+    }
+    if (err instanceof RangeError) throw new HttpError('validation', err.message);
+    throw err;
+  }
+
+  args.onProgress?.({ phase: 'saving', bytesRead: args.file.size, totalBytes: args.file.size, rows: result.report.rowsRead });
+  const series = toSeaSeries(result.records);
+  const row = await createDataset(
+    db,
+    {
+      projectId: args.projectId,
+      createdBy: args.userId,
+      name: form.name,
+      kind: form.kind,
+      dataPointName: p.dataPointName,
+      dataPointLatitude: p.dataPointLatitude,
+      dataPointLongitude: p.dataPointLongitude,
+      dataPointDepthM: form.dataPointDepth === 'deep' ? null : form.dataPointDepth,
+      sourceKind: 'upload',
+      originalFileName: safeFileName(args.file.originalName),
+      format,
+      issuedAt: form.kind === 'forecast' ? new Date(result.records.timeMs[0]) : null,
+    },
+    series,
+    { ...result.report, timeZone: form.timeZone ?? 'UTC', originalFileName: safeFileName(args.file.originalName) },
+  );
+  return {
+    id: row.id,
+    records: row.recordCount,
+    start: row.startAt.toISOString(),
+    end: row.endAt.toISOString(),
+    stepMinutes: row.stepMinutes,
+    variables: row.variables,
+    missing: row.missing,
+    skipped: result.report.rowsSkipped,
+  };
+}
+
+function linesOf(parser: CsvTextParser | NdbcParser): number {
+  const maybe = parser as unknown as { linesRead?: number };
+  return typeof maybe.linesRead === 'number' ? maybe.linesRead : 0;
+}
+
+async function readHead(path: string, bytes: number): Promise<string> {
+  const handle = await fs.promises.open(path, 'r');
+  try {
+    const buf = Buffer.alloc(bytes);
+    const { bytesRead } = await handle.read(buf, 0, bytes, 0);
+    return buf.subarray(0, bytesRead).toString('utf8');
+  } finally {
+    await handle.close();
+  }
+}

@@ -1,0 +1,226 @@
+/**
+ * Operations of a project with their limits (OPLIM): CRUD in transactions, each change written to
+ * the audit trail with the operation's fields (limits, durations, worksites) before and after.
+ */
+import { and, asc, eq, inArray } from 'drizzle-orm';
+import type { OperationResponse } from '../../shared/api-types-sites';
+import type { OperationLimits } from '../../shared/engine/types';
+import { idParam } from '../../shared/schemas/common';
+import { nameKey, OperationInput, type OperationPatchInput } from '../../shared/schemas/sites';
+import type { Db } from '../db/client';
+import { operation, projectMember, worksite } from '../db/schema';
+import type { SessionUser } from '../http/context';
+import { HttpError, notFound, parseInput } from '../http/errors';
+import { recordAudit } from './audit';
+
+type OperationRow = typeof operation.$inferSelect;
+
+/**
+ * Limits as stored and answered: unset limits (null, undefined, an empty band list) left out, keys
+ * in a fixed order, and `bedVelocityMethod` kept only beside a bed-velocity limit, 'linear' when
+ * not given (the engine's default, DOMAIN.md "Sea states").
+ */
+export function normalizeLimits(limits: OperationLimits): OperationLimits {
+  const out: OperationLimits = {};
+  if (limits.hsMax != null) out.hsMax = limits.hsMax;
+  if (limits.hsTpCurve != null && limits.hsTpCurve.length > 0) out.hsTpCurve = limits.hsTpCurve.map(([tp, hs]) => [tp, hs]);
+  if (limits.tpMin != null) out.tpMin = limits.tpMin;
+  if (limits.tpMax != null) out.tpMax = limits.tpMax;
+  if (limits.tpExcluded != null && limits.tpExcluded.length > 0) out.tpExcluded = limits.tpExcluded.map(([a, b]) => [a, b]);
+  if (limits.bedVelocityMax != null) {
+    out.bedVelocityMax = limits.bedVelocityMax;
+    out.bedVelocityMethod = limits.bedVelocityMethod ?? 'linear';
+  }
+  if (limits.windMax != null) out.windMax = limits.windMax;
+  return out;
+}
+
+export function toOperationResponse(row: OperationRow): OperationResponse {
+  return {
+    id: row.id,
+    name: row.name,
+    description: row.description,
+    tpop: row.tpopH,
+    tc: row.tcH,
+    tr: row.tpopH + row.tcH,
+    weatherRestricted: row.weatherRestricted,
+    limits: normalizeLimits(row.limits as OperationLimits),
+    siteIds: [...row.siteIds],
+    skipperIds: [...row.skipperIds],
+    recurrence: row.recurrence ?? null,
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+/** The audited fields of an operation (everything but id, recurrence and timestamps). */
+export function auditedOperation(op: OperationResponse): Omit<OperationResponse, 'id' | 'updatedAt' | 'recurrence'> {
+  const { id: _id, updatedAt: _updatedAt, recurrence: _recurrence, ...rest } = op;
+  return rest;
+}
+
+/** Column values of a parsed operation. */
+export function operationColumns(input: OperationInput) {
+  return {
+    name: input.name,
+    description: input.description,
+    tpopH: input.tpop,
+    tcH: input.tc,
+    weatherRestricted: input.weatherRestricted,
+    limits: normalizeLimits(input.limits) as Record<string, unknown>,
+    siteIds: input.siteIds,
+    skipperIds: input.skipperIds,
+  };
+}
+
+function fieldError(field: string, message: string): HttpError {
+  return new HttpError('validation', `Invalid body: ${field}: ${message}`, [{ field, message }]);
+}
+
+export async function listOperations(db: Db, projectId: string): Promise<OperationResponse[]> {
+  const rows = await db
+    .select()
+    .from(operation)
+    .where(eq(operation.projectId, projectId))
+    .orderBy(asc(operation.name), asc(operation.id));
+  return rows.map(toOperationResponse);
+}
+
+/** The operation row, or 404 for a malformed id, an unknown id or another project's operation. */
+async function operationRow(db: Db, projectId: string, operationId: string): Promise<OperationRow> {
+  if (!idParam.safeParse(operationId).success) throw notFound('Operation');
+  const [row] = await db
+    .select()
+    .from(operation)
+    .where(and(eq(operation.projectId, projectId), eq(operation.id, operationId)));
+  if (!row) throw notFound('Operation');
+  return row;
+}
+
+export async function getOperation(db: Db, projectId: string, operationId: string): Promise<OperationResponse> {
+  return toOperationResponse(await operationRow(db, projectId, operationId));
+}
+
+/** 409 when another operation of the project has the same name (compared by {@link nameKey}). */
+async function assertOperationNameFree(db: Db, projectId: string, name: string, exceptId?: string): Promise<void> {
+  const key = nameKey(name);
+  const rows = await db.select({ id: operation.id, name: operation.name }).from(operation).where(eq(operation.projectId, projectId));
+  if (rows.some((r) => r.id !== exceptId && nameKey(r.name) === key)) {
+    throw new HttpError('conflict', `An operation named "${name}" already exists in this project`, [{ field: 'name', message: 'already used' }]);
+  }
+}
+
+/**
+ * 400 naming the first id that is not a worksite of the project, or not a skipper of the project.
+ * Only ids in `fresh` are checked: ids kept from before stay even when the skipper has since left
+ * the project, so an unrelated change does not fail on them.
+ */
+async function assertReferences(
+  db: Db,
+  projectId: string,
+  input: Pick<OperationInput, 'siteIds' | 'skipperIds'>,
+  previous?: Pick<OperationInput, 'siteIds' | 'skipperIds'>,
+): Promise<void> {
+  const newSites = input.siteIds.filter((id) => !previous?.siteIds.includes(id));
+  if (newSites.length > 0) {
+    const rows = await db
+      .select({ id: worksite.id })
+      .from(worksite)
+      .where(and(eq(worksite.projectId, projectId), inArray(worksite.id, newSites)));
+    const known = new Set(rows.map((r) => r.id));
+    const i = input.siteIds.findIndex((id) => newSites.includes(id) && !known.has(id));
+    if (i >= 0) throw fieldError(`siteIds.${i}`, 'No worksite with this id in the project');
+  }
+  const newSkippers = input.skipperIds.filter((id) => !previous?.skipperIds.includes(id));
+  if (newSkippers.length > 0) {
+    const rows = await db
+      .select({ userId: projectMember.userId })
+      .from(projectMember)
+      .where(and(eq(projectMember.projectId, projectId), eq(projectMember.role, 'skipper'), inArray(projectMember.userId, newSkippers)));
+    const known = new Set(rows.map((r) => r.userId));
+    const i = input.skipperIds.findIndex((id) => newSkippers.includes(id) && !known.has(id));
+    if (i >= 0) throw fieldError(`skipperIds.${i}`, 'Not a skipper of this project');
+  }
+}
+
+export async function createOperation(db: Db, projectId: string, user: SessionUser, input: OperationInput): Promise<OperationResponse> {
+  return db.transaction(async (tx) => {
+    await assertOperationNameFree(tx, projectId, input.name);
+    await assertReferences(tx, projectId, input);
+    const [row] = await tx
+      .insert(operation)
+      .values({ projectId, ...operationColumns(input) })
+      .returning();
+    const op = toOperationResponse(row);
+    await recordAudit(tx, {
+      projectId,
+      user,
+      entity: 'operation',
+      entityId: op.id,
+      entityName: op.name,
+      action: 'create',
+      before: null,
+      after: auditedOperation(op),
+    });
+    return op;
+  });
+}
+
+/**
+ * Changes some fields of an operation (`limits`, `siteIds`, `skipperIds` are replaced as a whole).
+ * The merged record is checked again with the full {@link OperationInput} schema, so e.g. raising
+ * TPOP of a weather-restricted operation past TR = 72 h is refused; an entry is written when an
+ * audited field changed.
+ */
+export async function updateOperation(
+  db: Db,
+  projectId: string,
+  user: SessionUser,
+  operationId: string,
+  patch: OperationPatchInput,
+): Promise<OperationResponse> {
+  return db.transaction(async (tx) => {
+    const row = await operationRow(tx, projectId, operationId);
+    const before = toOperationResponse(row);
+    const { tr: _tr, ...current } = auditedOperation(before);
+    const changes = Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined));
+    const merged = parseInput(OperationInput, { ...current, ...changes });
+    if (patch.name !== undefined) await assertOperationNameFree(tx, projectId, merged.name, operationId);
+    await assertReferences(tx, projectId, merged, before);
+    const [updated] = await tx
+      .update(operation)
+      .set({ ...operationColumns(merged), updatedAt: new Date() })
+      .where(and(eq(operation.projectId, projectId), eq(operation.id, operationId)))
+      .returning();
+    const after = toOperationResponse(updated);
+    if (JSON.stringify(auditedOperation(before)) !== JSON.stringify(auditedOperation(after))) {
+      await recordAudit(tx, {
+        projectId,
+        user,
+        entity: 'operation',
+        entityId: operationId,
+        entityName: after.name,
+        action: 'update',
+        before: auditedOperation(before),
+        after: auditedOperation(after),
+      });
+    }
+    return after;
+  });
+}
+
+export async function deleteOperation(db: Db, projectId: string, user: SessionUser, operationId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const row = await operationRow(tx, projectId, operationId);
+    await tx.delete(operation).where(and(eq(operation.projectId, projectId), eq(operation.id, operationId)));
+    await recordAudit(tx, {
+      projectId,
+      user,
+      entity: 'operation',
+      entityId: operationId,
+      entityName: row.name,
+      action: 'delete',
+      before: auditedOperation(toOperationResponse(row)),
+      after: null,
+    });
+  });
+}

@@ -1,0 +1,65 @@
+import { completePeriodSeries } from '../../shared/waves';
+import type { SeaSeries } from './series-store';
+
+/** Raw columns as read from a file or a service; NaN = missing; any period may be absent. */
+export interface RawSeaColumns {
+  timeMs: Float64Array;
+  hs: Float64Array;
+  tp?: Float64Array | null;
+  tz?: Float64Array | null;
+  te?: Float64Array | null;
+  dir?: Float64Array | null;
+  wind?: Float64Array | null;
+  windDir?: Float64Array | null;
+}
+
+/**
+ * Completes the periods per DOMAIN.md (JONSWAP ratios, gamma 3.3) and keeps which were given.
+ * Missing columns become all-NaN.
+ */
+export function toSeaSeries(raw: RawSeaColumns): SeaSeries {
+  const n = raw.timeMs.length;
+  const nan = () => new Float64Array(n).fill(NaN);
+  const periods = completePeriodSeries(raw.tp ?? nan(), raw.tz ?? null, raw.te ?? null);
+  return {
+    timeMs: raw.timeMs,
+    hs: raw.hs,
+    tp: periods.tpS,
+    tz: periods.tzS,
+    te: periods.teS,
+    dir: raw.dir ?? nan(),
+    wind: raw.wind ?? nan(),
+    windDir: raw.windDir ?? nan(),
+    givenPeriods: periods.givenMask,
+  };
+}
+
+export const SERIES_VARIABLES = ['hs', 'tp', 'tz', 'te', 'dir', 'wind', 'windDir'] as const;
+
+/** Coverage figures of a series: step (median spacing), variables present, missing counts, derived periods. */
+export function describeSeries(s: SeaSeries) {
+  const n = s.timeMs.length;
+  const spacings = new Float64Array(Math.max(0, n - 1));
+  for (let i = 1; i < n; i++) spacings[i - 1] = s.timeMs[i] - s.timeMs[i - 1];
+  spacings.sort();
+  const stepMinutes = spacings.length ? spacings[Math.floor((spacings.length - 1) / 2)] / 60_000 : 60;
+  const missing: Record<string, number> = {};
+  const variables: string[] = [];
+  for (const v of SERIES_VARIABLES) {
+    let m = 0;
+    const a = s[v];
+    for (let i = 0; i < n; i++) if (Number.isNaN(a[i])) m++;
+    missing[v] = m;
+    if (m < n) variables.push(v);
+  }
+  const derived = { tp: 0, tz: 0, te: 0 };
+  for (let i = 0; i < n; i++) {
+    const g = s.givenPeriods[i];
+    if (!Number.isNaN(s.tp[i])) {
+      if (!(g & 1)) derived.tp++;
+      if (!(g & 2)) derived.tz++;
+      if (!(g & 4)) derived.te++;
+    }
+  }
+  return { records: n, stepMinutes, variables, missing, derived };
+}

@@ -1,0 +1,220 @@
+/**
+ * Worksites of a project: CRUD in transactions, each change written to the audit trail with the
+ * worksite's depth and geometry before and after.
+ */
+import { and, asc, eq } from 'drizzle-orm';
+import type { SiteResponse } from '../../shared/api-types-sites';
+import { idParam } from '../../shared/schemas/common';
+import { nameKey, WorksiteInput, type WorksitePatchInput } from '../../shared/schemas/sites';
+import type { Db } from '../db/client';
+import { dataset, operation, worksite } from '../db/schema';
+import type { SessionUser } from '../http/context';
+import { HttpError, notFound, parseInput } from '../http/errors';
+import { recordAudit } from './audit';
+import { auditedOperation, toOperationResponse } from './operations';
+
+type WorksiteRow = typeof worksite.$inferSelect;
+
+export function toSiteResponse(row: WorksiteRow): SiteResponse {
+  return {
+    id: row.id,
+    name: row.name,
+    latitude: row.latitude,
+    longitude: row.longitude,
+    depth: row.depthM,
+    shoreNormal: row.shoreNormalDeg,
+    breakerIndex: row.breakerIndex,
+    timeZone: row.timeZone,
+    hindcastDatasetId: row.hindcastDatasetId,
+    transferTable: row.transferTable ?? null,
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+/** The audited fields of a worksite (everything but id and timestamps). */
+export function auditedSite(site: SiteResponse): Omit<SiteResponse, 'id' | 'updatedAt'> {
+  const { id: _id, updatedAt: _updatedAt, ...rest } = site;
+  return rest;
+}
+
+/** Column values of a parsed worksite. */
+export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { hindcastDatasetId?: string | null }) {
+  return {
+    name: input.name,
+    latitude: input.latitude ?? null,
+    longitude: input.longitude ?? null,
+    depthM: input.depth,
+    shoreNormalDeg: input.shoreNormal ?? null,
+    breakerIndex: input.breakerIndex,
+    timeZone: input.timeZone,
+    hindcastDatasetId: input.hindcastDatasetId ?? null,
+    transferTable: input.transferTable ?? null,
+  };
+}
+
+/** A 400 naming one field, shaped like {@link parseInput}'s. */
+export function fieldError(field: string, message: string): HttpError {
+  return new HttpError('validation', `Invalid body: ${field}: ${message}`, [{ field, message }]);
+}
+
+export async function listSites(db: Db, projectId: string): Promise<SiteResponse[]> {
+  const rows = await db.select().from(worksite).where(eq(worksite.projectId, projectId)).orderBy(asc(worksite.name), asc(worksite.id));
+  return rows.map(toSiteResponse);
+}
+
+/** The worksite row, or 404 for a malformed id, an unknown id or another project's worksite. */
+async function siteRow(db: Db, projectId: string, siteId: string): Promise<WorksiteRow> {
+  if (!idParam.safeParse(siteId).success) throw notFound('Worksite');
+  const [row] = await db
+    .select()
+    .from(worksite)
+    .where(and(eq(worksite.projectId, projectId), eq(worksite.id, siteId)));
+  if (!row) throw notFound('Worksite');
+  return row;
+}
+
+export async function getSite(db: Db, projectId: string, siteId: string): Promise<SiteResponse> {
+  return toSiteResponse(await siteRow(db, projectId, siteId));
+}
+
+/** 409 when another worksite of the project has the same name (compared by {@link nameKey}). */
+async function assertSiteNameFree(db: Db, projectId: string, name: string, exceptId?: string): Promise<void> {
+  const key = nameKey(name);
+  const rows = await db.select({ id: worksite.id, name: worksite.name }).from(worksite).where(eq(worksite.projectId, projectId));
+  if (rows.some((r) => r.id !== exceptId && nameKey(r.name) === key)) {
+    throw new HttpError('conflict', `A worksite named "${name}" already exists in this project`, [{ field: 'name', message: 'already used' }]);
+  }
+}
+
+/** 400 unless the dataset is a hindcast of the same project. */
+async function assertHindcast(db: Db, projectId: string, datasetId: string | null): Promise<void> {
+  if (datasetId === null) return;
+  const [row] = await db
+    .select({ kind: dataset.kind })
+    .from(dataset)
+    .where(and(eq(dataset.projectId, projectId), eq(dataset.id, datasetId)));
+  if (!row) throw fieldError('hindcastDatasetId', 'No dataset with this id in the project');
+  if (row.kind !== 'hindcast') throw fieldError('hindcastDatasetId', `The dataset is a ${row.kind}, not a hindcast`);
+}
+
+export async function createSite(db: Db, projectId: string, user: SessionUser, input: WorksiteInput): Promise<SiteResponse> {
+  return db.transaction(async (tx) => {
+    await assertSiteNameFree(tx, projectId, input.name);
+    await assertHindcast(tx, projectId, input.hindcastDatasetId);
+    const [row] = await tx
+      .insert(worksite)
+      .values({ projectId, ...siteColumns(input) })
+      .returning();
+    const site = toSiteResponse(row);
+    await recordAudit(tx, {
+      projectId,
+      user,
+      entity: 'worksite',
+      entityId: site.id,
+      entityName: site.name,
+      action: 'create',
+      before: null,
+      after: auditedSite(site),
+    });
+    return site;
+  });
+}
+
+/**
+ * Changes some fields of a worksite. The merged record is checked again with the full
+ * {@link WorksiteInput} schema; an entry is written when an audited field changed.
+ */
+export async function updateSite(
+  db: Db,
+  projectId: string,
+  user: SessionUser,
+  siteId: string,
+  patch: WorksitePatchInput,
+): Promise<SiteResponse> {
+  return db.transaction(async (tx) => {
+    const row = await siteRow(tx, projectId, siteId);
+    const before = toSiteResponse(row);
+    const merged = parseInput(WorksiteInput, { ...auditedSite(before), ...definedOnly(patch) });
+    if (patch.name !== undefined) await assertSiteNameFree(tx, projectId, merged.name, siteId);
+    if (patch.hindcastDatasetId !== undefined) await assertHindcast(tx, projectId, merged.hindcastDatasetId);
+    const [updated] = await tx
+      .update(worksite)
+      .set({ ...siteColumns(merged), updatedAt: new Date() })
+      .where(and(eq(worksite.projectId, projectId), eq(worksite.id, siteId)))
+      .returning();
+    const after = toSiteResponse(updated);
+    if (JSON.stringify(auditedSite(before)) !== JSON.stringify(auditedSite(after))) {
+      await recordAudit(tx, {
+        projectId,
+        user,
+        entity: 'worksite',
+        entityId: siteId,
+        entityName: after.name,
+        action: 'update',
+        before: auditedSite(before),
+        after: auditedSite(after),
+      });
+    }
+    return after;
+  });
+}
+
+/**
+ * Deletes a worksite and takes its id out of every operation's `siteIds` (each such operation
+ * change is audited too). Note: an operation left with no worksite then applies to every
+ * worksite of the project (empty `siteIds` means all).
+ */
+export async function deleteSite(db: Db, projectId: string, user: SessionUser, siteId: string): Promise<void> {
+  await db.transaction(async (tx) => {
+    const row = await siteRow(tx, projectId, siteId);
+    await removeSiteFromOperations(tx, projectId, user, siteId);
+    await tx.delete(worksite).where(and(eq(worksite.projectId, projectId), eq(worksite.id, siteId)));
+    await recordAudit(tx, {
+      projectId,
+      user,
+      entity: 'worksite',
+      entityId: siteId,
+      entityName: row.name,
+      action: 'delete',
+      before: auditedSite(toSiteResponse(row)),
+      after: null,
+    });
+  });
+}
+
+async function removeSiteFromOperations(tx: Db, projectId: string, user: SessionUser, siteId: string): Promise<void> {
+  const ops = await tx.select().from(operation).where(eq(operation.projectId, projectId));
+  // An operation at this worksite only would be left with no worksite, which means "every
+  // worksite": refuse rather than silently widen it.
+  const stranded = ops.filter((op) => op.siteIds.length === 1 && op.siteIds[0] === siteId);
+  if (stranded.length > 0) {
+    throw new HttpError(
+      'conflict',
+      `Move or delete the operations that happen only at this worksite first: ${stranded.map((o) => o.name).join(', ')}`,
+      stranded.map((o) => ({ field: 'operations', message: o.name })),
+    );
+  }
+  for (const op of ops) {
+    if (!op.siteIds.includes(siteId)) continue;
+    const [updated] = await tx
+      .update(operation)
+      .set({ siteIds: op.siteIds.filter((id) => id !== siteId), updatedAt: new Date() })
+      .where(eq(operation.id, op.id))
+      .returning();
+    await recordAudit(tx, {
+      projectId,
+      user,
+      entity: 'operation',
+      entityId: op.id,
+      entityName: op.name,
+      action: 'update',
+      before: auditedOperation(toOperationResponse(op)),
+      after: auditedOperation(toOperationResponse(updated)),
+    });
+  }
+}
+
+/** The keys of an object whose value is not undefined. */
+export function definedOnly<T extends object>(o: T): Partial<T> {
+  return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Partial<T>;
+}

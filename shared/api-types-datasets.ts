@@ -1,0 +1,57 @@
+// Dataset answers shared by the API and the client.
+export interface DatasetSummary {
+  id: string;
+  name: string;
+  kind: 'hindcast' | 'forecast' | 'observation';
+  dataPoint: { name: string; latitude: number | null; longitude: number | null; depthM: number | null };
+  source: { kind: 'upload' | 'service'; fileName: string | null; format: string | null; issuedAt: string | null };
+  stepMinutes: number;
+  start: string;
+  end: string;
+  records: number;
+  variables: string[];
+  missing: Record<string, number>;
+  derived: Record<string, number>;
+  /** Share of records missing Hs, 0-1. */
+  missingShare: number;
+  createdAt: string;
+}
+
+export interface DatasetDetail extends DatasetSummary {
+  importReport: Record<string, unknown>;
+}
+
+/** 201 answer of an import. */
+export interface ImportAnswer {
+  id: string;
+  records: number;
+  start: string;
+  end: string;
+  stepMinutes: number;
+  variables: string[];
+  missing: Record<string, number>;
+  skipped: number;
+}
+
+/** Records as columnar arrays; times ISO UTC; null = missing. */
+export interface RecordsAnswer {
+  time: string[];
+  hs: (number | null)[];
+  tp: (number | null)[];
+  tz: (number | null)[];
+  te: (number | null)[];
+  dir: (number | null)[];
+  wind: (number | null)[];
+  windDir: (number | null)[];
+  /** Per record: which periods were given in the source (the rest derived). */
+  given: { tp: boolean[]; tz: boolean[]; te: boolean[] };
+}
+
+export interface MonthlySummaryRow {
+  year: number;
+  month: number;
+  records: number;
+  coverage: number;
+  hsMean: number | null;
+  hsP90: number | null;
+}

@@ -1,0 +1,70 @@
+// Plan answers shared by the API and the client.
+import type { HourStatus, LimitCheck } from './engine/explain-hour';
+import type { TransformChain } from './waves';
+
+export type { HourStatus, LimitCheck };
+
+export interface PlanWindow {
+  start: string;
+  end: string;
+  hours: number;
+  minMargin: { perLimit: Record<string, number>; relative: number };
+}
+
+export interface OperationSitePlan {
+  operationId: string;
+  operationName: string;
+  siteId: string;
+  siteName: string;
+  timeZone: string;
+  tpop: number;
+  tc: number;
+  tr: number;
+  weatherRestricted: boolean;
+  skipperIds: string[];
+  windows: PlanWindow[];
+  earliestStart: string | null;
+  startNow: boolean;
+  /** Hourly statuses from `times[0]`; `times` are ISO UTC record starts. */
+  times: string[];
+  status: HourStatus[];
+  /** The deciding limit per hour (null when none, e.g. no limit broken and margins equal). */
+  limiting: (string | null)[];
+  /** Smallest relative margin per hour (limit - value)/limit; null = no data. */
+  marginRel: (number | null)[];
+  /** Occurrences of a recurring operation in the horizon, judged on [start, start + TR). */
+  occurrences: { start: string; status: 'go' | 'marginal' | 'no_go' | 'no_data' }[];
+}
+
+export interface PlanAnswer {
+  dataset: { id: string; name: string; kind: string; issuedAt: string | null; start: string; end: string } | null;
+  generatedAt: string;
+  alpha: boolean;
+  stepMinutes: number;
+  plans: OperationSitePlan[];
+}
+
+export interface HourChainAnswer {
+  time: string;
+  operationId: string;
+  siteId: string;
+  dataPoint: { depthM: number | null; hs: number | null; tp: number | null; tz: number | null; dir: number | null; wind: number | null };
+  transform: TransformChain;
+  site: { depthM: number; hs: number | null; bedVelocityLinear: number | null; bedVelocitySoulsby: number | null; wind: number | null };
+  status: HourStatus;
+  checks: LimitCheck[];
+}
+
+export interface ConditionsAnswer {
+  siteId: string;
+  timeZone: string;
+  times: string[];
+  hs: (number | null)[];
+  tp: (number | null)[];
+  dir: (number | null)[];
+  wind: (number | null)[];
+  bedVelocityLinear: (number | null)[];
+  bedVelocitySoulsby: (number | null)[];
+  flags: number[];
+  operations: { id: string; name: string; hsMax: number | null; hsMaxForecast: number | null; windMax: number | null; bedVelocityMax: number | null; bedVelocityMethod: string | null }[];
+}

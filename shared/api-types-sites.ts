@@ -1,0 +1,92 @@
+// Response shapes of the worksite, operation, alpha-table, setup and audit routes.
+import type { AlphaTable, OperationLimits } from './engine/types';
+import type { AuditAction, AuditEntity, ImportMode, TransferTableInput } from './schemas/sites';
+
+/** A worksite. Depth in m, bearings in degrees "coming from", times ISO 8601 UTC. */
+export interface SiteResponse {
+  id: string;
+  name: string;
+  /** degrees north, or null */
+  latitude: number | null;
+  /** degrees east, or null */
+  longitude: number | null;
+  /** water depth d_site, m */
+  depth: number;
+  /** shore-normal bearing beta, degrees in [0, 360); null = no refraction */
+  shoreNormal: number | null;
+  /** breaker index gamma_b (Hs/d) */
+  breakerIndex: number;
+  /** IANA time zone the worksite's hours are shown in */
+  timeZone: string;
+  /** hindcast dataset used for statistics; null = the project's newest */
+  hindcastDatasetId: string | null;
+  transferTable: TransferTableInput | null;
+  updatedAt: string;
+}
+
+/** An operation with its limits (OPLIM). */
+export interface OperationResponse {
+  id: string;
+  name: string;
+  description: string;
+  /** planned duration TPOP, h */
+  tpop: number;
+  /** contingency TC, h */
+  tc: number;
+  /** reference period TR = TPOP + TC, h */
+  tr: number;
+  weatherRestricted: boolean;
+  limits: OperationLimits;
+  /** worksite ids; empty = every worksite of the project */
+  siteIds: string[];
+  /** user ids of the assigned skippers */
+  skipperIds: string[];
+  /** recurrence rule, when set (another route owns it); null otherwise */
+  recurrence: Record<string, unknown> | null;
+  updatedAt: string;
+}
+
+/** The note shown beside the alpha table. */
+export const ALPHA_NOTE = 'Defaults from memory of DNV-ST-N001 base case; check against the current standard.';
+
+/** GET/PUT/DELETE /api/projects/:projectId/alpha */
+export interface AlphaResponse {
+  table: AlphaTable;
+  /** true when the project has no table of its own and the default applies */
+  isDefault: boolean;
+  note: typeof ALPHA_NOTE;
+  /** when the project's own table was last saved; null for the default */
+  updatedAt: string | null;
+}
+
+/** One audit-trail entry: who changed what, when, before and after. */
+export interface AuditEntryResponse {
+  id: string;
+  at: string;
+  /** null when the user has since been deleted */
+  userId: string | null;
+  userName: string;
+  entity: AuditEntity;
+  entityId: string | null;
+  entityName: string;
+  action: AuditAction;
+  /** the audited fields before the change; null on create/import */
+  before: unknown;
+  /** the audited fields after the change; null on delete */
+  after: unknown;
+}
+
+/** POST /api/projects/:projectId/import */
+export interface ImportResultResponse {
+  mode: ImportMode;
+  worksites: { created: number; deleted: number };
+  operations: { created: number; deleted: number };
+  /** what happened to the alpha table: set from the document, reset to the default, or kept */
+  alphaTable: 'set' | 'default' | 'kept';
+}
+
+/** The 409 details of a merge import that clashes with existing names. */
+export interface ImportClashDetails {
+  worksites: string[];
+  operations: string[];
+}

@@ -1,0 +1,23 @@
+import { z } from 'zod';
+
+export const SubscriptionInput = z.object({
+  /** Operations to hear about; empty = all of the project's. */
+  operationIds: z.array(z.string().uuid()).max(200),
+  /** Worksites to hear about; empty = all. */
+  siteIds: z.array(z.string().uuid()).max(200),
+  immediate: z.boolean(),
+  digest: z.boolean(),
+  digestTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'must be a local time HH:MM'),
+  digestTimeZone: z.string().refine((zone) => {
+    try {
+      new Intl.DateTimeFormat('en', { timeZone: zone });
+      return true;
+    } catch {
+      return false;
+    }
+  }, 'unknown time zone'),
+  active: z.boolean(),
+});
+export type SubscriptionInput = z.infer<typeof SubscriptionInput>;
+
+export const PlanJobInput = z.object({ projectId: z.string().uuid().optional() }).default({});

@@ -1,0 +1,189 @@
+import path from 'node:path';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, signInAll, type TestApp } from '../support/app';
+
+// Real NDBC buoy data (public domain, NOAA NDBC), kept beside the repo in ../shared/data/ndbc.
+const NDBC_DIR = path.resolve(import.meta.dirname, '../../../shared/data/ndbc');
+
+let t: TestApp;
+let as: Awaited<ReturnType<typeof signInAll>>;
+let base: string;
+
+beforeAll(async () => {
+  t = await createTestApp();
+  as = await signInAll(t.app);
+  base = `/api/projects/${t.demo.projectId}/datasets`;
+});
+afterAll(async () => {
+  await t.close();
+});
+
+async function datasetCount(): Promise<number> {
+  return (await as.coordinator.get(base)).body.length;
+}
+
+describe('importing sea-state files', () => {
+  it('imports a real NDBC historical file and reads it back as columns', async () => {
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Buoy 46026, 2016')
+      .field('kind', 'observation')
+      .field('format', 'auto')
+      .field('dataPointDepth', 'deep')
+      .attach('file', path.join(NDBC_DIR, '46026h2016.txt'));
+    expect(res.status, res.text).toBe(201);
+    // README of ../shared/data/ndbc: 8655 data rows, 2015-12-31 23:50 to 2016-12-31 22:50 UTC.
+    expect(res.body.records).toBe(8655);
+    expect(res.body.start).toBe('2015-12-31T23:50:00.000Z');
+    expect(res.body.end).toBe('2016-12-31T22:50:00.000Z');
+    expect(res.body.stepMinutes).toBe(60);
+
+    const recs = await as.client.get(`${base}/${res.body.id}/records?from=2016-01-01T00:00:00Z&to=2016-01-01T01:59:00Z`);
+    expect(recs.status).toBe(200);
+    // Raw lines: "2016 01 01 00 50 100  1.3  2.0  1.21 13.79  8.40 276 ..." and
+    //            "2016 01 01 01 50  43  1.8  2.5  1.18 10.81  8.49 274 ..."
+    expect(recs.body.time).toEqual(['2016-01-01T00:50:00.000Z', '2016-01-01T01:50:00.000Z']);
+    expect(recs.body.hs).toEqual([1.21, 1.18]);
+    expect(recs.body.tp).toEqual([13.79, 10.81]);
+    expect(recs.body.tz).toEqual([8.4, 8.49]);
+    expect(recs.body.dir).toEqual([276, 274]);
+    expect(recs.body.windDir).toEqual([100, 43]);
+    expect(recs.body.given.tp).toEqual([true, true]);
+    expect(recs.body.given.te).toEqual([false, false]); // Te derived from Tp (DOMAIN Convention 8)
+    expect(recs.body.te[0]).toBeCloseTo(0.9 * 13.79, 1);
+
+    const detail = await as.skipper.get(`${base}/${res.body.id}`);
+    expect(detail.body.source).toMatchObject({ kind: 'upload', fileName: '46026h2016.txt', format: 'ndbc' });
+    expect(detail.body.dataPoint.depthM).toBeNull();
+  });
+
+  it('imports a CSV with the mapping, units and time zone given', async () => {
+    const csv = '\uFEFFDate;Hm0 [ft];Tp;Wind speed (kn)\r\n2026-03-29 00:00;3,28084;8,0;10\r\n2026-03-29 03:00;6,56168;9,5;20\r\n';
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Consultant extract')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', '35')
+      .field('timeZone', 'Europe/Oslo')
+      .field('units', JSON.stringify({ height: 'ft', speed: 'kn' }))
+      .attach('file', Buffer.from(csv, 'utf8'), 'extract.csv');
+    expect(res.status, res.text).toBe(201);
+    expect(res.body.records).toBe(2);
+    // 00:00 in Oslo on 29 March 2026 is still winter time (UTC+1); 03:00 is after the change (UTC+2).
+    expect(res.body.start).toBe('2026-03-28T23:00:00.000Z');
+    expect(res.body.end).toBe('2026-03-29T01:00:00.000Z');
+    const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
+    // 1 ft = 0.3048 m exactly; 1 kn = 1852/3600 m/s exactly (international definitions).
+    expect(recs.body.hs[0]).toBeCloseTo(1.0, 5);
+    expect(recs.body.hs[1]).toBeCloseTo(2.0, 5);
+    expect(recs.body.wind[1]).toBeCloseTo((20 * 1852) / 3600, 6);
+  });
+
+  it('refuses a bad file whole, naming the line, and stores nothing', async () => {
+    const before = await datasetCount();
+    const csv = 'time,hs,tp\n2026-01-01T00:00Z,1.0,8\n2026-01-01T01:00Z,-1.0,8\n2026-01-01T02:00Z,1.0,80\n';
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Bad')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', Buffer.from(csv), 'bad.csv');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('bad_file');
+    const lines = res.body.error.details.map((d: { line: number }) => d.line);
+    expect(lines).toContain(3); // negative Hs
+    expect(lines).toContain(4); // period outside 0.5-40 s
+    expect(await datasetCount()).toBe(before);
+  });
+
+  it('skips bad rows when asked and lists them in the import report', async () => {
+    const csv = 'time,hs,tp\n2026-01-01T00:00Z,1.0,8\n2026-01-01T01:00Z,-1.0,8\n2026-01-01T02:00Z,1.2,8\n';
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Skipping')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .field('onBadRows', 'skip')
+      .attach('file', Buffer.from(csv), 'skip.csv');
+    expect(res.status, res.text).toBe(201);
+    expect(res.body.records).toBe(2);
+    expect(res.body.skipped).toBe(1);
+    const detail = await as.coordinator.get(`${base}/${res.body.id}`);
+    expect(detail.body.importReport.issues[0]).toMatchObject({ line: 3 });
+  });
+
+  it('refuses binary content and a missing file with a clear message', async () => {
+    const before = await datasetCount();
+    const bin = await as.coordinator
+      .post(base)
+      .field('name', 'Binary')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', Buffer.from([0x50, 0x4b, 0x03, 0x04, 0, 0, 0, 1, 2, 3]), '../../etc/passwd.csv');
+    expect(bin.status).toBe(400);
+    expect(bin.body.error.message).toMatch(/binary/);
+    const none = await as.coordinator.post(base).field('name', 'Nothing').field('kind', 'hindcast').field('dataPointDepth', 'deep');
+    expect(none.status).toBe(400);
+    expect(none.body.error.details[0].field).toBe('file');
+    expect(await datasetCount()).toBe(before);
+  });
+
+  it('refuses a file over 100 MB with 413 and the limit stated', async () => {
+    const big = Buffer.alloc(100 * 1024 * 1024 + 10, 0x31);
+    const res = await as.coordinator.post(base).field('name', 'Huge').field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', big, 'huge.csv');
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toMatch(/100 MB/);
+  });
+
+  it('lets only coordinators import or delete, and keeps other projects out', async () => {
+    for (const agent of [as.skipper, as.client]) {
+      const res = await agent.post(base).field('name', 'x').field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', Buffer.from('time,hs\n'), 'x.csv');
+      expect(res.status).toBe(403);
+    }
+    const list = await as.coordinator.get(base);
+    const id = list.body[0].id;
+    expect((await as.client.delete(`${base}/${id}`)).status).toBe(403);
+    expect((await request(t.app).get(base)).status).toBe(401);
+    // The dataset belongs to project A: under project B's address it does not exist.
+    expect((await as.coordinator.get(`/api/projects/${t.demo.secondProjectId}/datasets/${id}`)).status).toBe(404);
+    expect((await as.coordinator.get(`${base}/not-an-id`)).status).toBe(404);
+    expect((await as.coordinator.get(`${base}/00000000-0000-4000-8000-000000000000/records`)).status).toBe(404);
+  });
+
+  it('downloads the records as CSV and deletes a dataset', async () => {
+    const list = await as.coordinator.get(base);
+    const target = list.body.find((d: { name: string }) => d.name === 'Skipping');
+    const csv = await as.client.get(`${base}/${target.id}/csv`);
+    expect(csv.status).toBe(200);
+    expect(csv.text.split('\n')[1]).toMatch(/^2026-01-01T00:00:00.000Z,1.000,8.00,/);
+    const del = await as.coordinator.delete(`${base}/${target.id}`);
+    expect(del.status).toBe(204);
+    expect((await as.coordinator.get(`${base}/${target.id}`)).status).toBe(404);
+  });
+});
+
+describe('fetching forecasts', () => {
+  it('stores a forecast issue from the service, and not twice', async () => {
+    const url = `/api/projects/${t.demo.projectId}/forecasts/fetch`;
+    const first = await as.coordinator.post(url).send({});
+    expect(first.status, first.text).toBe(201);
+    expect(first.body.records).toBeGreaterThanOrEqual(7 * 24);
+    const again = await as.coordinator.post(url).send({});
+    expect(again.status).toBe(200);
+    expect(again.body.isNew).toBe(false);
+    expect((await as.skipper.post(url).send({})).status).toBe(403);
+  });
+
+  it('keeps the previous forecast when the service fails', async () => {
+    const before = await datasetCount();
+    t.forecast.fake!.setFailure('http500', 1);
+    const res = await as.coordinator.post(`/api/projects/${t.demo.projectId}/forecasts/fetch`).send({});
+    expect(res.status).toBe(503);
+    expect(res.body.error.message).toMatch(/previous forecast is kept/);
+    t.forecast.fake!.setFailure('malformed', 1);
+    const bad = await as.coordinator.post(`/api/projects/${t.demo.projectId}/forecasts/fetch`).send({});
+    expect(bad.status).toBe(503);
+    expect(await datasetCount()).toBe(before);
+  });
+});

@@ -1,0 +1,108 @@
+import request from 'supertest';
+import ICAL from 'ical.js';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, signInAll, type TestApp } from '../support/app';
+
+let t: TestApp;
+let as: Awaited<ReturnType<typeof signInAll>>;
+let base: string;
+// A fixed clock in a winter month, so the invented forecast has passing weather systems.
+const NOW = new Date('2026-12-01T07:30:00Z');
+
+beforeAll(async () => {
+  t = await createTestApp({ clock: () => NOW, forecast: true });
+  as = await signInAll(t.app);
+  base = `/api/projects/${t.demo.projectId}`;
+});
+afterAll(async () => {
+  await t.close();
+});
+
+describe('the forecast plan', () => {
+  it('answers per operation and worksite with statuses, windows and go-starts', async () => {
+    const res = await as.skipper.get(`${base}/plan`);
+    expect(res.status, res.text).toBe(200);
+    expect(res.body.dataset.kind).toBe('forecast');
+    // Every operation at each of its worksites: seed/scenario-sites.ts gives 2 + 2 + 1 + 2 + 1 pairs.
+    expect(res.body.plans).toHaveLength(8);
+    for (const p of res.body.plans) {
+      expect(p.status).toHaveLength(p.times.length);
+      expect(p.times.length).toBeGreaterThanOrEqual(7 * 24);
+      for (const s of p.status) expect(['workable', 'marginal', 'not_workable', 'no_data']).toContain(s);
+      // A usable window is at least TR long and wholly workable (DOMAIN.md "Weather windows").
+      for (const w of p.windows) {
+        expect(w.hours).toBeGreaterThanOrEqual(p.tr);
+        const i0 = p.times.indexOf(w.start);
+        for (let i = i0; i < i0 + w.hours; i++) expect(p.status[i]).toBe('workable');
+      }
+      if (p.earliestStart) {
+        // The earliest go-start has TR workable hours from it.
+        const i0 = p.times.indexOf(p.earliestStart);
+        for (let i = i0; i < i0 + p.tr; i++) expect(p.status[i]).toBe('workable');
+      }
+    }
+  });
+
+  it('plans on OPLIM with alpha=false: never fewer workable hours', async () => {
+    const withAlpha = (await as.coordinator.get(`${base}/plan`)).body;
+    const without = (await as.coordinator.get(`${base}/plan?alpha=false`)).body;
+    for (let k = 0; k < withAlpha.plans.length; k++) {
+      const a = withAlpha.plans[k].status.filter((s: string) => s === 'workable').length;
+      const b = without.plans[k].status.filter((s: string) => s === 'workable').length;
+      expect(b).toBeGreaterThanOrEqual(a);
+      expect(without.plans[k].status).not.toContain('marginal');
+    }
+  });
+
+  it('explains an hour: data point → Ks, Kr → worksite → each limit', async () => {
+    const plan = (await as.client.get(`${base}/plan`)).body;
+    const p = plan.plans[0];
+    const hour = p.times[5];
+    const res = await as.client.get(`${base}/plan/chain`).query({ operationId: p.operationId, siteId: p.siteId, time: hour });
+    expect(res.status, res.text).toBe(200);
+    expect(res.body.time).toBe(hour);
+    expect(res.body.status).toBe(p.status[5]);
+    const { transform, site, dataPoint } = res.body;
+    // Hs at the site = Hs at the data point × Ks × Kr, unless capped by the depth limit.
+    if (!(transform.flags & 2)) expect(site.hs).toBeCloseTo(dataPoint.hs * transform.ks * transform.kr, 6);
+    expect(res.body.checks.length).toBeGreaterThan(0);
+  });
+
+  it('exports the usable windows as iCalendar that a general-purpose parser reads', async () => {
+    const plan = (await as.coordinator.get(`${base}/plan?alpha=false`)).body;
+    const withWindows = plan.plans.find((p: { windows: unknown[] }) => p.windows.length > 0);
+    expect(withWindows, 'the invented forecast should open at least one window').toBeTruthy();
+    const res = await as.coordinator
+      .get(`${base}/plan/windows.ics`)
+      .query({ operationId: withWindows.operationId, siteId: withWindows.siteId, alpha: 'false' })
+      .buffer(true)
+      .parse((r, cb) => {
+        let s = '';
+        r.on('data', (c: Buffer) => (s += c));
+        r.on('end', () => cb(null, s));
+      });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/calendar/);
+    // ical.js (an RFC 5545 parser from npm) reads it back.
+    const comp = new ICAL.Component(ICAL.parse(res.body as string));
+    const events = comp.getAllSubcomponents('vevent').map((e) => new ICAL.Event(e));
+    expect(events).toHaveLength(withWindows.windows.length);
+    expect(events[0].startDate.toJSDate().toISOString()).toBe(withWindows.windows[0].start);
+    expect(events[0].endDate.toJSDate().toISOString()).toBe(withWindows.windows[0].end);
+  });
+
+  it('draws worksite conditions with each operation’s limits', async () => {
+    const res = await as.client.get(`${base}/conditions/${t.demo.siteIds.route}`);
+    expect(res.status).toBe(200);
+    expect(res.body.hs.length).toBe(res.body.times.length);
+    expect(res.body.operations.map((o: { name: string }) => o.name)).toContain('Rock berm placement');
+  });
+
+  it('keeps the plan to members', async () => {
+    expect((await request(t.app).get(`${base}/plan`)).status).toBe(401);
+    const other = await as.client.get(`/api/projects/${t.demo.secondProjectId}/plan`);
+    expect(other.status).toBe(404);
+    expect((await as.client.get(`${base}/plan?dataset=nope`)).status).toBe(400);
+    expect((await as.client.get(`${base}/plan?dataset=00000000-0000-4000-8000-000000000000`)).status).toBe(404);
+  });
+});

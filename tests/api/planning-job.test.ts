@@ -1,0 +1,193 @@
+import request from 'supertest';
+import ICAL from 'ical.js';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { runPlanningJob } from '../../jobs/plan-job';
+import { createTestApp, signInAll, TEST_ORIGIN, type TestApp } from '../support/app';
+import { deliverDueMail } from '../../server/services/outbox';
+
+let t: TestApp;
+let as: Awaited<ReturnType<typeof signInAll>>;
+let now = new Date('2026-12-01T06:20:00Z');
+const SKIPPER_OPS = ['Rock berm placement', 'ROV burial survey', 'Crew transfer (CTV Sable Wren)'];
+
+beforeAll(async () => {
+  t = await createTestApp({ clock: () => now });
+  as = await signInAll(t.app);
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const inbox = () => t.mailer.fake!.messages;
+
+describe('the planning job with the fake forecast service and the fake SMTP server', () => {
+  let firstCount = 0;
+
+  it('plans, queues alerts and e-mails the right people', async () => {
+    const res = await as.admin.post('/api/admin/jobs/plan').send({ projectId: t.demo.projectId });
+    expect(res.status, res.text).toBe(200);
+    const [p] = res.body.projects;
+    expect(p.status).toBe('planned');
+    expect(p.forecast.isNew).toBe(true);
+    expect(p.queued).toBeGreaterThan(0);
+    expect(res.body.mail.sent).toBe(p.queued);
+    firstCount = inbox().length;
+    expect(firstCount).toBe(p.queued);
+    for (const m of inbox()) {
+      // Only the skipper is subscribed (by default, to the operations assigned to them).
+      expect(m.to).toEqual(['skipper@example.com']);
+      expect(SKIPPER_OPS.some((name) => m.subject.startsWith(name))).toBe(true);
+      expect(m.text).toMatch(/Decision support only/);
+      expect(m.text).toContain(`/projects/${t.demo.projectId}/board`);
+      expect(m.html).toContain('<ul');
+    }
+    // Window times in the e-mail are in the worksite's zone: Europe/London keeps GMT (UTC+0) in
+    // December, so the local clock time equals the UTC one.
+    const plan = (await as.skipper.get(`/api/projects/${t.demo.projectId}/plan`)).body;
+    const berm = plan.plans.find((x: { operationName: string }) => x.operationName === 'Rock berm placement');
+    if (berm.windows.length > 0) {
+      const mail = inbox().find((m) => m.subject.startsWith('Rock berm placement'))!;
+      expect(mail.text).toContain(berm.windows[0].start.slice(11, 16));
+    }
+  });
+
+  it('sends nothing when run again on the same forecast', async () => {
+    const res = await as.admin.post('/api/admin/jobs/plan').send({ projectId: t.demo.projectId });
+    expect(res.body.projects[0].status).toBe('planned');
+    expect(res.body.projects[0].forecast.isNew).toBe(false);
+    expect(res.body.projects[0].queued).toBe(0);
+    expect(inbox().length).toBe(firstCount);
+  });
+
+  it('sends only the changes when a new forecast comes in', async () => {
+    now = new Date('2026-12-01T12:20:00Z'); // next forecast cycle of the fake service
+    const res = await as.coordinator.post(`/api/projects/${t.demo.projectId}/replan`).send({});
+    const [p] = res.body.projects;
+    expect(p.forecast.isNew).toBe(true);
+    const newMessages = inbox().slice(firstCount);
+    expect(newMessages.length).toBe(p.queued);
+    // Every e-mail is about an operation with an alert in this run.
+    const opsWithAlerts = new Set(p.alerts.map((a: { operationId: string }) => a.operationId));
+    const ops = (await as.coordinator.get(`/api/projects/${t.demo.projectId}/operations`)).body as { id: string; name: string }[];
+    for (const m of newMessages) {
+      const op = ops.find((o) => m.subject.startsWith(o.name))!;
+      expect(opsWithAlerts.has(op.id)).toBe(true);
+    }
+    firstCount = inbox().length;
+  });
+
+  it('keeps e-mails in the outbox while SMTP is down and sends each once when it is back', async () => {
+    t.mailer.fake!.setDown(true);
+    now = new Date('2026-12-01T18:20:00Z');
+    // Make sure this run has something to say: the skipper now hears about every operation.
+    await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
+      operationIds: [], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'Europe/London', active: true,
+    });
+    const res = await as.admin.post('/api/admin/jobs/plan').send({ projectId: t.demo.projectId });
+    const [p] = res.body.projects;
+    expect(p.status).toBe('planned');
+    expect(inbox().length).toBe(firstCount);
+    const outbox = (await as.coordinator.get(`/api/projects/${t.demo.projectId}/outbox`)).body as { status: string; attempts: number }[];
+    const waiting = outbox.filter((m) => m.status === 'pending');
+    expect(waiting.length).toBe(p.queued);
+    expect(waiting.every((m) => m.attempts === 1)).toBe(true);
+
+    t.mailer.fake!.setDown(false);
+    // Not due yet: the first retry waits a minute.
+    await deliverDueMail(t.deps.db, t.deps.mailer, now, { maxAttempts: 3, log: t.deps.log });
+    expect(inbox().length).toBe(firstCount);
+    const later = new Date(now.getTime() + 2 * 60_000);
+    const delivered = await deliverDueMail(t.deps.db, t.deps.mailer, later, { maxAttempts: 3, log: t.deps.log });
+    expect(delivered.sent).toBe(p.queued);
+    expect(inbox().length).toBe(firstCount + p.queued);
+    // Nothing doubled: another delivery round sends nothing more.
+    await deliverDueMail(t.deps.db, t.deps.mailer, new Date(later.getTime() + 3_600_000), { maxAttempts: 3, log: t.deps.log });
+    expect(inbox().length).toBe(firstCount + p.queued);
+    const keys = inbox().map((m) => `${m.to}|${m.subject}|${m.text}`);
+    expect(new Set(keys).size).toBe(keys.length);
+    firstCount = inbox().length;
+  });
+
+  it('lets only one of two instances plan a project at a time', async () => {
+    now = new Date('2026-12-02T00:20:00Z');
+    const secondInstance = { ...t.deps }; // another app instance on the same database
+    const [a, b] = await Promise.all([
+      runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'schedule' }),
+      runPlanningJob(secondInstance, { projectId: t.demo.projectId, trigger: 'schedule' }),
+    ]);
+    const statuses = [a.projects[0].status, b.projects[0].status].sort();
+    expect(statuses).toEqual(['planned', 'skipped']);
+  });
+
+  it('keeps the last plan when the forecast service fails', async () => {
+    const before = (await as.coordinator.get(`/api/projects/${t.demo.projectId}/plan`)).body.dataset.id;
+    now = new Date('2026-12-02T06:20:00Z');
+    t.forecast.fake!.setFailure('http500', 1);
+    const res = await as.admin.post('/api/admin/jobs/plan').send({ projectId: t.demo.projectId });
+    expect(res.body.projects[0].status).toBe('failed');
+    expect(res.body.projects[0].reason).toMatch(/forecast service/i);
+    expect((await as.coordinator.get(`/api/projects/${t.demo.projectId}/plan`)).body.dataset.id).toBe(before);
+  });
+
+  it('unsubscribes by the signed link in the e-mail, and refuses a forged one', async () => {
+    const link = inbox().at(-1)!.text.match(/Stop these e-mails: (\S+)/)![1];
+    const path = link.replace(TEST_ORIGIN, '');
+    const forged = path.replace(/sig=[^&]+/, 'sig=forged');
+    expect((await request(t.app).get(forged)).status).toBe(400);
+    const ok = await request(t.app).get(path);
+    expect(ok.status).toBe(200);
+    expect(ok.text).toContain('Unsubscribed');
+    const sub = (await as.skipper.get(`/api/projects/${t.demo.projectId}/subscription`)).body;
+    expect(sub.active).toBe(false);
+  });
+
+  it('shows the caught mail to admins only, as JSON', async () => {
+    const res = await as.admin.get('/api/dev/mailbox');
+    expect(res.status).toBe(200);
+    expect(res.body[0]).toEqual(expect.objectContaining({ to: expect.any(Array), subject: expect.any(String), text: expect.any(String), html: expect.any(String), receivedAt: expect.any(String) }));
+    expect((await as.coordinator.get('/api/dev/mailbox')).status).toBe(403);
+    expect((await as.coordinator.post('/api/admin/jobs/plan').send({})).status).toBe(403);
+    expect((await as.skipper.post(`/api/projects/${t.demo.projectId}/replan`).send({})).status).toBe(403);
+  });
+});
+
+describe('the calendar feed', () => {
+  it('serves windows and recurring occurrences that ical.js parses, and stops when revoked', async () => {
+    const ops = (await as.coordinator.get(`/api/projects/${t.demo.projectId}/operations`)).body as { id: string; name: string }[];
+    const ctv = ops.find((o) => o.name.startsWith('Crew transfer'))!;
+    const rec = await as.coordinator
+      .put(`/api/projects/${t.demo.projectId}/operations/${ctv.id}/recurrence`)
+      .send({ start: '2026-11-30T06:00', timeZone: 'Europe/London', rule: 'FREQ=WEEKLY;BYDAY=MO,WE,FR' });
+    expect(rec.status, rec.text).toBe(200);
+    expect((await as.client.put(`/api/projects/${t.demo.projectId}/operations/${ctv.id}/recurrence`).send({})).status).toBe(403);
+
+    await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
+      operationIds: [ctv.id], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'Europe/London', active: true,
+    });
+    const created = await as.skipper.post('/api/me/calendar').send({});
+    expect(created.status).toBe(201);
+    const path = new URL(created.body.url).pathname;
+    const feed = await request(t.app).get(path).buffer(true).parse((r, cb) => {
+      let s = '';
+      r.on('data', (c: Buffer) => (s += c));
+      r.on('end', () => cb(null, s));
+    });
+    expect(feed.status).toBe(200);
+    const comp = new ICAL.Component(ICAL.parse(feed.body as string));
+    const events = comp.getAllSubcomponents('vevent').map((e) => new ICAL.Event(e));
+    const plan = (await as.skipper.get(`/api/projects/${t.demo.projectId}/plan`)).body;
+    const ctvPlan = plan.plans.find((p: { operationId: string }) => p.operationId === ctv.id);
+    expect(ctvPlan.occurrences.length).toBeGreaterThan(0);
+    expect(events.length).toBe(ctvPlan.windows.length + ctvPlan.occurrences.length);
+    const occurrenceStarts = events.filter((e) => !e.summary.startsWith('Window')).map((e) => e.startDate.toJSDate().toISOString());
+    expect(occurrenceStarts.sort()).toEqual(ctvPlan.occurrences.map((o: { start: string }) => o.start).sort());
+    // Mondays, Wednesdays and Fridays at 06:00 London time (GMT in December).
+    for (const s of occurrenceStarts) {
+      expect(s.slice(11, 16)).toBe('06:00');
+      expect([1, 3, 5]).toContain(new Date(s).getUTCDay());
+    }
+
+    expect((await as.skipper.delete('/api/me/calendar')).status).toBe(204);
+    expect((await request(t.app).get(path)).status).toBe(404);
+  });
+});
