@@ -6,7 +6,7 @@ const VARIANTS: Record<Variant, string> = {
   primary: 'bg-accent text-accent-ink hover:brightness-110',
   secondary: 'bg-surface-2 text-ink border border-line hover:border-accent',
   ghost: 'text-ink hover:bg-surface-2',
-  danger: 'bg-danger text-white hover:brightness-110',
+  danger: 'bg-danger text-danger-ink hover:brightness-110',
 };
 
 /** Buttons are at least 44 px tall: usable with gloves on a moving deck. */

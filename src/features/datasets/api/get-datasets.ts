@@ -1,0 +1,12 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { DatasetSummary } from '../../../../shared/api-types-datasets';
+import { api } from '../../../lib/api';
+
+/** `GET /api/projects/:projectId/datasets`: every dataset of the project, newest first. */
+export const getDatasets = (projectId: string) => api<DatasetSummary[]>(`/api/projects/${projectId}/datasets`);
+
+/** Owner key of everything under a project's datasets (list, detail, records, monthly). */
+export const datasetsQueryOptions = (projectId: string) =>
+  queryOptions({ queryKey: ['projects', projectId, 'datasets'], queryFn: () => getDatasets(projectId) });
+
+export const useDatasets = (projectId: string) => useQuery(datasetsQueryOptions(projectId));

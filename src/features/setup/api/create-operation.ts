@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { OperationResponse } from '../../../../shared/api-types-sites';
+import type { OperationInput } from '../../../../shared/schemas/sites';
+import { api } from '../../../lib/api';
+import { invalidateProjectSetup } from './invalidate-project-setup';
+
+/** `POST /api/projects/:projectId/operations` (coordinators and admins): 201 with the new operation. */
+export const createOperation = (projectId: string, input: OperationInput) =>
+  api<OperationResponse>(`/api/projects/${projectId}/operations`, { method: 'POST', json: input });
+
+export function useCreateOperation(projectId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: OperationInput) => createOperation(projectId, input),
+    onSuccess: () => invalidateProjectSetup(qc, projectId),
+  });
+}

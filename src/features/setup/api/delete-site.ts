@@ -1,0 +1,18 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api';
+import { invalidateProjectSetup } from './invalidate-project-setup';
+
+/**
+ * `DELETE /api/projects/:projectId/sites/:siteId` (coordinators and admins), 204. Answers 409 when
+ * an operation happens only at this worksite (its message names them).
+ */
+export const deleteSite = (projectId: string, siteId: string) =>
+  api<void>(`/api/projects/${projectId}/sites/${siteId}`, { method: 'DELETE' });
+
+export function useDeleteSite(projectId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (siteId: string) => deleteSite(projectId, siteId),
+    onSuccess: () => invalidateProjectSetup(qc, projectId),
+  });
+}

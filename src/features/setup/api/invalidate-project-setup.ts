@@ -1,0 +1,12 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { projectRoleQueryOptions } from './get-project-role';
+
+/**
+ * After any change to worksites, operations, limits or the alpha table: everything cached under
+ * the project may depend on it (the lists here, the audit trail, and other pages' plans and
+ * statistics), so the whole project subtree is marked stale. Only queries on screen refetch now;
+ * the others refetch when next shown.
+ */
+export function invalidateProjectSetup(qc: QueryClient, projectId: string): Promise<void> {
+  return qc.invalidateQueries({ queryKey: projectRoleQueryOptions(projectId).queryKey });
+}

@@ -1,0 +1,21 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { AlphaResponse } from '../../../../shared/api-types-sites';
+import type { AlphaTableInput } from '../../../../shared/schemas/sites';
+import { api } from '../../../lib/api';
+import { alphaQueryOptions } from './get-alpha';
+import { invalidateProjectSetup } from './invalidate-project-setup';
+
+/** `PUT /api/projects/:projectId/alpha` (coordinators and admins): saves the project's own table. */
+export const saveAlpha = (projectId: string, table: AlphaTableInput) =>
+  api<AlphaResponse>(`/api/projects/${projectId}/alpha`, { method: 'PUT', json: table });
+
+export function useSaveAlpha(projectId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (table: AlphaTableInput) => saveAlpha(projectId, table),
+    onSuccess: (data) => {
+      qc.setQueryData(alphaQueryOptions(projectId).queryKey, data);
+      return invalidateProjectSetup(qc, projectId);
+    },
+  });
+}

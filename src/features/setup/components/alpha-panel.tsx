@@ -1,0 +1,271 @@
+import { useState } from 'react';
+import { format } from 'date-fns';
+import { useForm, useWatch, type FieldErrors } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import type { AlphaResponse } from '../../../../shared/api-types-sites';
+import { LIMIT_RANGES } from '../../../../shared/engine/schemas';
+import { AlphaTableInput } from '../../../../shared/schemas/sites';
+import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
+import { useAlpha } from '../api/get-alpha';
+import { useResetAlpha } from '../api/reset-alpha';
+import { useSaveAlpha } from '../api/save-alpha';
+import { applyServerErrors, blankAware, CellInput, errorAt, GridErrors, Tag } from './form-bits';
+import { fmt } from './format';
+import { numberFromText, textFromNumber } from './number-text';
+
+/** The alpha table as typed: the body's field names, numbers as text. */
+const AlphaText = z.object({
+  tpopBoundsH: z.array(z.string()),
+  hsColumnsM: z.array(z.string()),
+  values: z.array(z.array(z.string())),
+});
+type AlphaText = z.infer<typeof AlphaText>;
+
+/** Text to numbers, then the shared {@link AlphaTableInput} schema (the server's checks and words). */
+const AlphaFormSchema = AlphaText.transform((t) => ({
+  tpopBoundsH: t.tpopBoundsH.map(numberFromText),
+  hsColumnsM: t.hsColumnsM.map(numberFromText),
+  values: t.values.map((row) => row.map(numberFromText)),
+})).pipe(AlphaTableInput);
+
+function toText(a: AlphaResponse): AlphaText {
+  return {
+    tpopBoundsH: a.table.tpopBoundsH.map(textFromNumber),
+    hsColumnsM: a.table.hsColumnsM.map(textFromNumber),
+    values: a.table.values.map((row) => row.map(textFromNumber)),
+  };
+}
+
+/** The project's alpha table: OPWF = α·OPLIM for weather-restricted operations planned on a forecast. */
+export function AlphaPanel({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
+  const alpha = useAlpha(projectId);
+  const [done, setDone] = useState<string | null>(null);
+  if (alpha.isPending) return <Spinner label="Loading the alpha table" />;
+  if (alpha.error) return <ErrorNotice error={alpha.error} />;
+  const a = alpha.data;
+  return (
+    <div className="flex flex-col gap-4">
+      <div className="flex flex-col gap-2">
+        <p className="max-w-3xl text-sm text-ink-soft">
+          Weather-restricted operations (TR up to 72 h) are planned on a forecast with the forecast limit OPWF = α·OPLIM on their Hs
+          limits. α comes from the first row whose TPOP bound is not exceeded, interpolated linearly between the Hs columns (the end
+          column outside them). It never applies to Tp, bed velocity or wind limits.
+        </p>
+        <div className="flex flex-wrap items-center gap-2">
+          {a.isDefault ? (
+            <Tag tone="warn">This project uses the default table</Tag>
+          ) : (
+            <Tag tone="accent">This project’s own table{a.updatedAt ? `, saved ${format(new Date(a.updatedAt), 'd MMM yyyy, HH:mm')}` : ''}</Tag>
+          )}
+        </div>
+        <Notice>
+          <span className="font-semibold">Check before relying on it:</span> {a.note} Only the project’s marine warranty surveyor and
+          the current edition of the standard decide the factors that apply.
+        </Notice>
+      </div>
+      {done ? <Notice tone="success">{done}</Notice> : null}
+      {canEdit ? (
+        <AlphaEditor key={`${a.updatedAt ?? 'default'}`} projectId={projectId} alpha={a} onDone={setDone} />
+      ) : (
+        <AlphaView alpha={a} />
+      )}
+    </div>
+  );
+}
+
+function AlphaView({ alpha }: { alpha: AlphaResponse }) {
+  const t = alpha.table;
+  return (
+    <Card className="overflow-x-auto !p-0">
+      <table className="w-full text-sm tabular-nums">
+        <caption className="sr-only">Alpha factors by TPOP and Hs limit</caption>
+        <thead className="border-b border-line bg-surface-2">
+          <tr>
+            <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">TPOP up to</th>
+            {t.hsColumnsM.map((hs, j) => (
+              <th key={j} className="px-3 py-2 text-right text-xs font-semibold text-ink-soft">
+                Hs {fmt(hs)} m
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {t.tpopBoundsH.map((h, i) => (
+            <tr key={i} className="border-b border-line last:border-0">
+              <th scope="row" className="px-3 py-2 text-left font-semibold">
+                {fmt(h)} h
+              </th>
+              {t.values[i]?.map((v, j) => (
+                <td key={j} className="px-3 py-2 text-right">
+                  {fmt(v, 3)}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </Card>
+  );
+}
+
+function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: AlphaResponse; onDone: (message: string | null) => void }) {
+  const save = useSaveAlpha(projectId);
+  const reset = useResetAlpha(projectId);
+  const [asking, setAsking] = useState(false);
+  const form = useForm<z.input<typeof AlphaFormSchema>, unknown, z.output<typeof AlphaFormSchema>>({
+    resolver: blankAware(zodResolver(AlphaFormSchema)),
+    defaultValues: toText(alpha),
+  });
+  const errors = form.formState.errors as FieldErrors;
+  const [tpopBoundsH, hsColumnsM, values] = useWatch({ control: form.control, name: ['tpopBoundsH', 'hsColumnsM', 'values'] });
+  const t: AlphaText = { tpopBoundsH, hsColumnsM, values };
+  const revalidate = form.formState.isSubmitted;
+  const put = (next: AlphaText) => {
+    form.setValue('tpopBoundsH', next.tpopBoundsH, { shouldDirty: true, shouldValidate: revalidate });
+    form.setValue('hsColumnsM', next.hsColumnsM, { shouldDirty: true, shouldValidate: revalidate });
+    form.setValue('values', next.values, { shouldDirty: true, shouldValidate: revalidate });
+    onDone(null);
+  };
+  const setBound = (i: number, text: string) => put({ ...t, tpopBoundsH: t.tpopBoundsH.map((x, r) => (r === i ? text : x)) });
+  const setColumn = (j: number, text: string) => put({ ...t, hsColumnsM: t.hsColumnsM.map((x, c) => (c === j ? text : x)) });
+  const setValue = (i: number, j: number, text: string) =>
+    put({ ...t, values: t.values.map((row, r) => (r === i ? row.map((x, c) => (c === j ? text : x)) : row)) });
+  const addRow = () => put({ ...t, tpopBoundsH: [...t.tpopBoundsH, ''], values: [...t.values, t.hsColumnsM.map(() => '')] });
+  const removeRow = (i: number) => put({ ...t, tpopBoundsH: t.tpopBoundsH.filter((_, r) => r !== i), values: t.values.filter((_, r) => r !== i) });
+  const addColumn = () => put({ ...t, hsColumnsM: [...t.hsColumnsM, ''], values: t.values.map((row) => [...row, '']) });
+  const removeColumn = (j: number) =>
+    put({ ...t, hsColumnsM: t.hsColumnsM.filter((_, c) => c !== j), values: t.values.map((row) => row.filter((_, c) => c !== j)) });
+
+  const onSubmit = form.handleSubmit((table) => {
+    save.mutate(table, {
+      onSuccess: () => onDone('Alpha table saved. Plans and statistics use it from now on.'),
+      onError: (e) => applyServerErrors(e, form.setError),
+    });
+  });
+
+  const messages: { where: string; message: string }[] = [];
+  const push = (where: string, path: string) => {
+    const m = errorAt(errors, path);
+    if (m) messages.push({ where, message: m });
+  };
+  push('TPOP rows', 'tpopBoundsH');
+  push('Hs columns', 'hsColumnsM');
+  push('Values', 'values');
+  t.tpopBoundsH.forEach((_, i) => push(`TPOP row ${i + 1}`, `tpopBoundsH.${i}`));
+  t.hsColumnsM.forEach((_, j) => push(`Hs column ${j + 1}`, `hsColumnsM.${j}`));
+  t.values.forEach((row, i) => {
+    push(`Row ${i + 1}`, `values.${i}`);
+    row.forEach((_, j) => push(`α at row ${i + 1}, column ${j + 1}`, `values.${i}.${j}`));
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Alpha table">
+      <Card className="!p-0">
+        <div className="overflow-x-auto">
+          <table className="text-sm">
+            <caption className="sr-only">Alpha factors by TPOP bound (rows) and Hs limit (columns), editable</caption>
+            <thead className="border-b border-line bg-surface-2">
+              <tr>
+                <th scope="col" className="sticky left-0 z-10 bg-surface-2 px-3 py-2 text-left align-bottom text-xs font-semibold text-ink-soft">
+                  TPOP up to (h) ↓ · Hs limit (m) →
+                </th>
+                {t.hsColumnsM.map((hs, j) => (
+                  <th key={j} scope="col" className="px-1 py-2 align-bottom">
+                    <CellInput label={`Hs column ${j + 1}, m`} value={hs} onValue={(v) => setColumn(j, v)} error={errorAt(errors, `hsColumnsM.${j}`)} className="w-20" />
+                    <Button variant="ghost" className="mt-1 w-full !px-2 text-xs text-ink-soft" onClick={() => removeColumn(j)} disabled={t.hsColumnsM.length <= 1} aria-label={`Remove Hs column ${j + 1}`}>
+                      Remove
+                    </Button>
+                  </th>
+                ))}
+                <th scope="col" className="px-2 py-2 align-bottom">
+                  <Button variant="secondary" onClick={addColumn} className="whitespace-nowrap">
+                    + Hs column
+                  </Button>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {t.tpopBoundsH.map((h, i) => (
+                <tr key={i} className="border-b border-line last:border-0">
+                  <th scope="row" className="sticky left-0 z-10 bg-surface px-2 py-1">
+                    <div className="flex items-center gap-1">
+                      <CellInput label={`TPOP row ${i + 1} bound, h`} value={h} onValue={(v) => setBound(i, v)} error={errorAt(errors, `tpopBoundsH.${i}`)} className="w-20" />
+                      <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => removeRow(i)} disabled={t.tpopBoundsH.length <= 1} aria-label={`Remove TPOP row ${i + 1}`} title="Remove this row">
+                        Remove
+                      </Button>
+                    </div>
+                  </th>
+                  {t.values[i]?.map((v, j) => (
+                    <td key={j} className="px-1 py-1">
+                      <CellInput
+                        label={`Alpha for TPOP up to ${h || '?'} h and Hs ${t.hsColumnsM[j] || '?'} m`}
+                        value={v}
+                        onValue={(x) => setValue(i, j, x)}
+                        error={errorAt(errors, `values.${i}.${j}`)}
+                        className="w-20"
+                      />
+                    </td>
+                  ))}
+                  <td />
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+        <div className="flex flex-wrap items-center gap-3 border-t border-line p-3">
+          <Button variant="secondary" onClick={addRow}>
+            + TPOP row
+          </Button>
+          <p className="text-xs text-ink-soft">
+            Values above 0 and at most 1; TPOP bounds and Hs columns strictly ascending (TPOP {LIMIT_RANGES.tpopH.min}–
+            {LIMIT_RANGES.tpopH.max} h, Hs {LIMIT_RANGES.hsM.min}–{LIMIT_RANGES.hsM.max} m). TPOP above the last bound gives α = 1.
+          </p>
+        </div>
+      </Card>
+      <GridErrors messages={messages} />
+      {save.error ? <ErrorNotice error={save.error} /> : null}
+      {reset.error ? <ErrorNotice error={reset.error} /> : null}
+      <div className="flex flex-wrap items-center gap-2">
+        <Button type="submit" disabled={save.isPending}>
+          {save.isPending ? 'Saving…' : 'Save'}
+        </Button>
+        <Button variant="ghost" onClick={() => form.reset(toText(alpha))} disabled={!form.formState.isDirty}>
+          Undo changes
+        </Button>
+        {!alpha.isDefault && !asking ? (
+          <Button variant="secondary" onClick={() => setAsking(true)}>
+            Reset to default
+          </Button>
+        ) : null}
+      </div>
+      {asking ? (
+        <div role="group" aria-label="Confirm reset" className="flex flex-col gap-2 rounded-lg border border-line bg-surface-2 p-3 text-sm">
+          <p>
+            <span className="font-semibold">Go back to the default table?</span> The project’s own factors are replaced by the defaults; the
+            change is kept in the audit trail.
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <Button
+              variant="danger"
+              disabled={reset.isPending}
+              onClick={() =>
+                reset.mutate(undefined, {
+                  onSuccess: () => {
+                    setAsking(false);
+                    onDone('Back to the default table.');
+                  },
+                })
+              }
+            >
+              {reset.isPending ? 'Resetting…' : 'Yes, reset to default'}
+            </Button>
+            <Button variant="secondary" onClick={() => setAsking(false)}>
+              Keep this table
+            </Button>
+          </div>
+        </div>
+      ) : null}
+    </form>
+  );
+}

@@ -1,0 +1,497 @@
+import { useId } from 'react';
+import { useForm, useWatch, type FieldErrors } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
+import { alphaFor, WEATHER_RESTRICTED_MAX_TR_H } from '../../../../shared/engine/alpha-factor';
+import { BED_VELOCITY_METHODS, LIMIT_RANGES } from '../../../../shared/engine/schemas';
+import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
+import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
+import { Button, ErrorNotice, FieldShell, Input, Select, TextArea } from '../../../components/ui';
+import { useCreateOperation } from '../api/create-operation';
+import { useUpdateOperation } from '../api/update-operation';
+import { applyServerErrors, blankAware, withSubject, CellInput, errorAt, FormSection, GridErrors } from './form-bits';
+import { fmt } from './format';
+import { HsTpPlot } from './hs-tp-plot';
+import { BED_VELOCITY_METHOD_LABEL } from './limits-summary';
+import { numberFromText, numberOrNull, textFromNumber } from './number-text';
+
+const pairText = z.tuple([z.string(), z.string()]);
+
+/** The operation form as typed: the request body's field names, numbers as text. */
+const OperationText = z.object({
+  name: z.string(),
+  description: z.string(),
+  tpop: z.string(),
+  tc: z.string(),
+  weatherRestricted: z.boolean(),
+  siteIds: z.array(z.string()),
+  limits: z.object({
+    hsMax: z.string(),
+    hsTpCurve: z.array(pairText),
+    tpMin: z.string(),
+    tpMax: z.string(),
+    tpExcluded: z.array(pairText),
+    bedVelocityMax: z.string(),
+    bedVelocityMethod: z.enum(BED_VELOCITY_METHODS),
+    windMax: z.string(),
+  }),
+});
+type OperationText = z.infer<typeof OperationText>;
+type LimitsText = OperationText['limits'];
+
+const pairNumbers = ([a, b]: [string, string]): [number, number] => [numberFromText(a), numberFromText(b)];
+
+/** Typed limits to the body's: blank = not set, an empty curve or band list = not set. */
+function limitsFromText(l: LimitsText): OperationLimits {
+  const bedVelocityMax = numberOrNull(l.bedVelocityMax);
+  return {
+    hsMax: numberOrNull(l.hsMax),
+    hsTpCurve: l.hsTpCurve.length > 0 ? l.hsTpCurve.map(pairNumbers) : null,
+    tpMin: numberOrNull(l.tpMin),
+    tpMax: numberOrNull(l.tpMax),
+    tpExcluded: l.tpExcluded.length > 0 ? l.tpExcluded.map(pairNumbers) : null,
+    bedVelocityMax,
+    bedVelocityMethod: bedVelocityMax !== null ? l.bedVelocityMethod : undefined,
+    windMax: numberOrNull(l.windMax),
+  };
+}
+
+/**
+ * Text to the request body, then the shared {@link OperationInput} schema (limits with
+ * `operationLimitsSchema`, TR ≤ 72 h for weather-restricted operations): the server's checks and
+ * words, on the same field paths.
+ */
+const OperationFormSchema = OperationText.transform(
+  (v): OperationFormValues => ({
+    name: v.name,
+    description: v.description,
+    tpop: numberFromText(v.tpop),
+    tc: numberFromText(v.tc),
+    weatherRestricted: v.weatherRestricted,
+    siteIds: v.siteIds,
+    limits: limitsFromText(v.limits),
+  }),
+).pipe(OperationInput);
+
+const pairText2 = ([a, b]: [number, number]): [string, string] => [textFromNumber(a), textFromNumber(b)];
+
+function initialValues(op: OperationResponse | null): OperationText {
+  const l = op?.limits ?? {};
+  return {
+    name: op?.name ?? '',
+    description: op?.description ?? '',
+    tpop: textFromNumber(op?.tpop),
+    tc: textFromNumber(op?.tc),
+    weatherRestricted: op?.weatherRestricted ?? true,
+    siteIds: op?.siteIds ?? [],
+    limits: {
+      hsMax: textFromNumber(l.hsMax),
+      hsTpCurve: (l.hsTpCurve ?? []).map(pairText2),
+      tpMin: textFromNumber(l.tpMin),
+      tpMax: textFromNumber(l.tpMax),
+      tpExcluded: (l.tpExcluded ?? []).map(pairText2),
+      bedVelocityMax: textFromNumber(l.bedVelocityMax),
+      bedVelocityMethod: l.bedVelocityMethod ?? 'linear',
+      windMax: textFromNumber(l.windMax),
+    },
+  };
+}
+
+const R = LIMIT_RANGES;
+const rangeHint = (r: { min: number; max: number }, unit: string) => `${r.min}–${r.max} ${unit}`;
+
+/** Add or edit an operation with its limits. `op` null adds one. */
+export function OperationForm({
+  projectId,
+  op,
+  sites,
+  alphaTable,
+  onDone,
+}: {
+  projectId: string;
+  op: OperationResponse | null;
+  sites: SiteResponse[];
+  alphaTable: AlphaTable | undefined;
+  onDone: (saved: OperationResponse | null) => void;
+}) {
+  const id = useId();
+  const create = useCreateOperation(projectId);
+  const update = useUpdateOperation(projectId);
+  const mutation = op ? update : create;
+  const form = useForm<z.input<typeof OperationFormSchema>, unknown, z.output<typeof OperationFormSchema>>({
+    resolver: blankAware(zodResolver(OperationFormSchema)),
+    defaultValues: initialValues(op),
+  });
+  const errors = form.formState.errors;
+  const [tpopText, tcText, weatherRestricted, siteIds, limitsText] = useWatch({
+    control: form.control,
+    name: ['tpop', 'tc', 'weatherRestricted', 'siteIds', 'limits'],
+  });
+  const revalidate = form.formState.isSubmitted;
+
+  const setLimitList = (key: 'hsTpCurve' | 'tpExcluded', next: [string, string][]) =>
+    form.setValue(`limits.${key}`, next, { shouldDirty: true, shouldValidate: revalidate });
+  const setSiteIds = (next: string[]) => form.setValue('siteIds', next, { shouldDirty: true, shouldValidate: revalidate });
+
+  const onSubmit = form.handleSubmit((input) => {
+    const done = {
+      onSuccess: (saved: OperationResponse) => onDone(saved),
+      onError: (e: unknown) => applyServerErrors(e, form.setError),
+    };
+    if (op) {
+      // Skipper assignments are left as they are (not edited here).
+      const { skipperIds: _skippers, ...patch } = input;
+      update.mutate({ operationId: op.id, patch }, done);
+    } else {
+      create.mutate(input, done);
+    }
+  });
+
+  // Live figures: TR, alpha and the plot follow the inputs as typed.
+  const tpop = numberFromText(tpopText);
+  const tc = numberFromText(tcText);
+  const tr = tpop + tc;
+  const trKnown = Number.isFinite(tr);
+  const liveLimits = limitsFromText(limitsText);
+  const alphaApplies =
+    weatherRestricted && trKnown && tpop >= 0 && tr >= 0 && tr <= WEATHER_RESTRICTED_MAX_TR_H && alphaTable !== undefined;
+  const alphaAt = alphaApplies
+    ? (hsM: number) => {
+        try {
+          return alphaFor(alphaTable, tpop, hsM, tr, true);
+        } catch {
+          return 1;
+        }
+      }
+    : null;
+  const hsMaxLive = liveLimits.hsMax;
+
+  const f = (name: string) => `${id}-${name}`;
+  const err = (path: string) => errorAt(errors as FieldErrors, path);
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label={op ? `Edit operation ${op.name}` : 'New operation'}>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <FieldShell label="Name" htmlFor={f('name')} error={withSubject('Name', errors.name?.message)}>
+          <Input id={f('name')} autoComplete="off" {...form.register('name')} invalid={!!errors.name} />
+        </FieldShell>
+        <FieldShell label="Description" htmlFor={f('desc')} error={withSubject('Description', errors.description?.message)} hint="Optional: vessel, method, what limits it.">
+          <TextArea id={f('desc')} rows={2} {...form.register('description')} invalid={!!errors.description} />
+        </FieldShell>
+      </div>
+
+      <FormSection id={f('time')} title="Duration">
+        <div className="grid gap-4 sm:grid-cols-3">
+          <FieldShell
+            label="Planned duration TPOP"
+            unit="h"
+            htmlFor={f('tpop')}
+            error={errors.tpop?.message}
+            hint={`Time the operation takes in workable weather, ${rangeHint(R.tpopH, 'h')}.`}
+          >
+            <Input id={f('tpop')} inputMode="decimal" {...form.register('tpop')} invalid={!!errors.tpop} />
+          </FieldShell>
+          <FieldShell
+            label="Contingency TC"
+            unit="h"
+            htmlFor={f('tc')}
+            error={errors.tc?.message}
+            hint={`Allowance for delays and uncertainty in TPOP, ${rangeHint(R.tcH, 'h')}.`}
+          >
+            <Input id={f('tc')} inputMode="decimal" {...form.register('tc')} invalid={!!errors.tc} />
+          </FieldShell>
+          <div className="flex flex-col gap-1">
+            <span className="text-sm font-semibold">
+              Reference period TR <span className="font-normal text-ink-soft">(h)</span>
+            </span>
+            <output htmlFor={`${f('tpop')} ${f('tc')}`} className="flex min-h-11 items-center rounded-lg border border-dashed border-line bg-surface-2 px-3 text-base tabular-nums" aria-live="polite">
+              {trKnown ? `${fmt(tpop)} + ${fmt(tc)} = ${fmt(tr)} h` : 'TPOP + TC'}
+            </output>
+            <p className="text-xs text-ink-soft">A go-start needs TR of workable weather in a row.</p>
+          </div>
+        </div>
+        <div className="flex flex-col gap-1">
+          <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
+            <input type="checkbox" className="size-5 accent-[var(--color-accent)]" {...form.register('weatherRestricted')} />
+            Weather-restricted operation
+          </label>
+          {errors.weatherRestricted?.message ? (
+            <p role="alert" className="text-sm text-danger">
+              {errors.weatherRestricted.message}
+            </p>
+          ) : null}
+          <p className="text-xs text-ink-soft">
+            Planned on a weather forecast, so the Hs limits are reduced to the forecast limit OPWF = α·OPLIM, α from the project’s
+            alpha table by TPOP and Hs limit. Only for TR up to {WEATHER_RESTRICTED_MAX_TR_H} h: a longer operation cannot rest on a
+            forecast and is planned unrestricted, at OPLIM (α = 1).
+          </p>
+          {weatherRestricted && trKnown && tr > WEATHER_RESTRICTED_MAX_TR_H ? (
+            <p className="text-sm font-semibold text-danger">
+              TR is {fmt(tr)} h, above {WEATHER_RESTRICTED_MAX_TR_H} h: shorten TPOP or TC, or untick weather-restricted.
+            </p>
+          ) : null}
+          {alphaAt && hsMaxLive !== null && hsMaxLive !== undefined && Number.isFinite(hsMaxLive) ? (
+            <p className="text-sm" aria-live="polite">
+              With this TPOP, Hs max {fmt(hsMaxLive)} m becomes a forecast limit of {fmt(alphaAt(hsMaxLive), 3)} × {fmt(hsMaxLive)} ={' '}
+              <span className="font-semibold">{fmt(alphaAt(hsMaxLive) * hsMaxLive)} m</span>.
+            </p>
+          ) : null}
+        </div>
+      </FormSection>
+
+      <FormSection
+        id={f('sites')}
+        title="Worksites"
+        hint="Tick where the operation happens; none ticked means every worksite of the project."
+        error={err('siteIds')}
+      >
+        {sites.length === 0 ? (
+          <p className="text-sm text-ink-soft">No worksites yet: the operation will apply to every worksite added later.</p>
+        ) : (
+          <div className="grid gap-x-4 sm:grid-cols-2">
+            {sites.map((s) => {
+              const checked = siteIds.includes(s.id);
+              return (
+                <label key={s.id} className="flex min-h-11 items-center gap-3 text-sm">
+                  <input
+                    type="checkbox"
+                    className="size-5 accent-[var(--color-accent)]"
+                    checked={checked}
+                    onChange={(e) => setSiteIds(e.target.checked ? [...siteIds, s.id] : siteIds.filter((x) => x !== s.id))}
+                  />
+                  {s.name} <span className="text-ink-soft">({fmt(s.depth)} m)</span>
+                </label>
+              );
+            })}
+          </div>
+        )}
+      </FormSection>
+
+      <FormSection
+        id={f('limits')}
+        title="Limits (OPLIM)"
+        hint="Set at least one. Limits are inclusive: a value equal to a maximum or minimum meets it."
+        error={err('limits')}
+      >
+        <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+          <div className="flex min-w-0 flex-col gap-4">
+            <FieldShell label="Hs max" unit="m" htmlFor={f('hsmax')} error={err('limits.hsMax')} hint={`Significant wave height at the worksite, ${rangeHint(R.hsM, 'm')}.`}>
+              <Input id={f('hsmax')} inputMode="decimal" {...form.register('limits.hsMax')} invalid={!!err('limits.hsMax')} />
+            </FieldShell>
+            <CurveEditor
+              curve={limitsText.hsTpCurve}
+              onChange={(next) => setLimitList('hsTpCurve', next)}
+              errorOf={(p) => err(`limits.hsTpCurve${p}`)}
+            />
+          </div>
+          <HsTpPlot
+            limits={{
+              hsMax: liveLimits.hsMax ?? null,
+              curve: liveLimits.hsTpCurve ?? [],
+              tpMin: liveLimits.tpMin ?? null,
+              tpMax: liveLimits.tpMax ?? null,
+              bands: liveLimits.tpExcluded ?? [],
+            }}
+            alphaAt={alphaAt}
+          />
+        </div>
+        <div className="grid gap-4 sm:grid-cols-2">
+          <FieldShell label="Tp min" unit="s" htmlFor={f('tpmin')} error={err('limits.tpMin')} hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}>
+            <Input id={f('tpmin')} inputMode="decimal" {...form.register('limits.tpMin')} invalid={!!err('limits.tpMin')} />
+          </FieldShell>
+          <FieldShell label="Tp max" unit="s" htmlFor={f('tpmax')} error={err('limits.tpMax')} hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}>
+            <Input id={f('tpmax')} inputMode="decimal" {...form.register('limits.tpMax')} invalid={!!err('limits.tpMax')} />
+          </FieldShell>
+        </div>
+        <BandsEditor bands={limitsText.tpExcluded} onChange={(next) => setLimitList('tpExcluded', next)} errorOf={(p) => err(`limits.tpExcluded${p}`)} />
+        <div className="grid gap-4 sm:grid-cols-3">
+          <FieldShell
+            label="Near-bed orbital velocity max"
+            unit="m/s"
+            htmlFor={f('ub')}
+            error={err('limits.bedVelocityMax')}
+            hint={`Significant amplitude at the seabed, ${rangeHint(R.bedVelocityMps, 'm/s')}.`}
+          >
+            <Input id={f('ub')} inputMode="decimal" {...form.register('limits.bedVelocityMax')} invalid={!!err('limits.bedVelocityMax')} />
+          </FieldShell>
+          <FieldShell
+            label="Bed velocity method"
+            htmlFor={f('ubm')}
+            error={err('limits.bedVelocityMethod')}
+            hint="Linear: π·Hs/(Tp·sinh(k·d)) at Tp. Soulsby (2006): from Tz over a JONSWAP-type spectrum."
+          >
+            <Select id={f('ubm')} {...form.register('limits.bedVelocityMethod')}>
+              {BED_VELOCITY_METHODS.map((m) => (
+                <option key={m} value={m}>
+                  {BED_VELOCITY_METHOD_LABEL[m]}
+                </option>
+              ))}
+            </Select>
+          </FieldShell>
+          <FieldShell label="Wind max" unit="m/s" htmlFor={f('wind')} error={err('limits.windMax')} hint={`Mean wind speed at 10 m, ${rangeHint(R.windMps, 'm/s')}.`}>
+            <Input id={f('wind')} inputMode="decimal" {...form.register('limits.windMax')} invalid={!!err('limits.windMax')} />
+          </FieldShell>
+        </div>
+      </FormSection>
+
+      {mutation.error ? <ErrorNotice error={mutation.error} /> : null}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={mutation.isPending}>
+          {mutation.isPending ? 'Saving…' : op ? 'Save operation' : 'Add operation'}
+        </Button>
+        <Button variant="secondary" onClick={() => onDone(null)} disabled={mutation.isPending}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+/** The Hs–Tp limit curve as an editable point table. */
+function CurveEditor({
+  curve,
+  onChange,
+  errorOf,
+}: {
+  curve: [string, string][];
+  onChange: (next: [string, string][]) => void;
+  errorOf: (suffix: string) => string | undefined;
+}) {
+  const set = (i: number, k: 0 | 1, text: string) => onChange(curve.map((p, r) => (r === i ? (k === 0 ? [text, p[1]] : [p[0], text]) : p)));
+  const add = () => {
+    const last = curve[curve.length - 1];
+    const tp = last ? numberFromText(last[0]) : Number.NaN;
+    onChange([...curve, [Number.isFinite(tp) ? String(tp + 2) : '', last?.[1] ?? '']]);
+  };
+  if (curve.length === 0) {
+    return (
+      <div className="flex flex-col gap-1">
+        <span className="text-sm font-semibold">Hs–Tp limit curve</span>
+        <p className="text-xs text-ink-soft">Hs max that changes with the peak period, e.g. from a vessel’s motion analysis. No-go outside its Tp range.</p>
+        <div>
+          <Button
+            variant="secondary"
+            onClick={() =>
+              onChange([
+                ['6', ''],
+                ['10', ''],
+              ])
+            }
+          >
+            + Hs–Tp curve
+          </Button>
+        </div>
+      </div>
+    );
+  }
+  const messages: { where: string; message: string }[] = [];
+  const root = errorOf('');
+  if (root) messages.push({ where: 'Curve', message: root });
+  curve.forEach((_, i) => {
+    const a = errorOf(`.${i}.0`);
+    const b = errorOf(`.${i}.1`);
+    if (a) messages.push({ where: `Point ${i + 1} Tp`, message: a });
+    if (b) messages.push({ where: `Point ${i + 1} Hs`, message: b });
+  });
+  return (
+    <div className="flex flex-col gap-2">
+      <span className="text-sm font-semibold">Hs–Tp limit curve</span>
+      <p className="text-xs text-ink-soft">
+        Points by ascending Tp, joined by straight lines; no-go outside the first and last Tp. Tp {rangeHint(R.tpS, 's')}, Hs{' '}
+        {rangeHint(R.hsM, 'm')}. Where Hs max is also set, the lower of the two applies.
+      </p>
+      <table className="w-full max-w-sm text-sm">
+        <thead>
+          <tr className="text-left text-xs text-ink-soft">
+            <th className="w-8 py-1 font-semibold">#</th>
+            <th className="py-1 font-semibold">Tp (s)</th>
+            <th className="py-1 font-semibold">Hs max (m)</th>
+            <th>
+              <span className="sr-only">Remove</span>
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {curve.map((p, i) => (
+            <tr key={i}>
+              <td className="py-1 text-ink-soft tabular-nums">{i + 1}</td>
+              <td className="py-1 pr-2">
+                <CellInput label={`Curve point ${i + 1} Tp, s`} value={p[0]} onValue={(t) => set(i, 0, t)} error={errorOf(`.${i}.0`)} className="!w-full" />
+              </td>
+              <td className="py-1 pr-2">
+                <CellInput label={`Curve point ${i + 1} Hs max, m`} value={p[1]} onValue={(t) => set(i, 1, t)} error={errorOf(`.${i}.1`)} className="!w-full" />
+              </td>
+              <td className="py-1">
+                <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => onChange(curve.filter((_, r) => r !== i))} aria-label={`Remove curve point ${i + 1}`} title="Remove this point">
+                  Remove
+                </Button>
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <div className="flex flex-wrap gap-2">
+        <Button variant="secondary" onClick={add}>
+          + Point
+        </Button>
+        <Button variant="ghost" onClick={() => onChange([])}>
+          Remove the curve
+        </Button>
+      </div>
+      <GridErrors messages={messages} />
+    </div>
+  );
+}
+
+/** Excluded Tp bands (closed: both edges excluded), e.g. a vessel's roll resonance. */
+function BandsEditor({
+  bands,
+  onChange,
+  errorOf,
+}: {
+  bands: [string, string][];
+  onChange: (next: [string, string][]) => void;
+  errorOf: (suffix: string) => string | undefined;
+}) {
+  const set = (i: number, k: 0 | 1, text: string) => onChange(bands.map((p, r) => (r === i ? (k === 0 ? [text, p[1]] : [p[0], text]) : p)));
+  const messages: { where: string; message: string }[] = [];
+  bands.forEach((_, i) => {
+    for (const [suffix, where] of [
+      [`.${i}`, `Band ${i + 1}`],
+      [`.${i}.0`, `Band ${i + 1} from`],
+      [`.${i}.1`, `Band ${i + 1} to`],
+    ] as const) {
+      const m = errorOf(suffix);
+      if (m) messages.push({ where, message: m });
+    }
+  });
+  return (
+    <div className="flex flex-col gap-2">
+      <span className="text-sm font-semibold">Excluded Tp bands</span>
+      <p className="text-xs text-ink-soft">No-go when Tp is inside a band, both edges included, e.g. a vessel’s roll resonance.</p>
+      {bands.length > 0 ? (
+        <ul className="flex flex-col gap-2">
+          {bands.map((b, i) => (
+            <li key={i} className="flex flex-wrap items-center gap-2 text-sm">
+              <span className="w-14 text-ink-soft">Band {i + 1}</span>
+              <CellInput label={`Excluded band ${i + 1} from, s`} value={b[0]} onValue={(t) => set(i, 0, t)} error={errorOf(`.${i}.0`) ?? errorOf(`.${i}`)} className="!w-20" />
+              <span aria-hidden>–</span>
+              <CellInput label={`Excluded band ${i + 1} to, s`} value={b[1]} onValue={(t) => set(i, 1, t)} error={errorOf(`.${i}.1`) ?? errorOf(`.${i}`)} className="!w-20" />
+              <span className="text-ink-soft">s</span>
+              <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => onChange(bands.filter((_, r) => r !== i))} aria-label={`Remove excluded band ${i + 1}`} title="Remove this band">
+                Remove
+              </Button>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <div>
+        <Button variant="secondary" onClick={() => onChange([...bands, ['', '']])}>
+          + Excluded band
+        </Button>
+      </div>
+      <GridErrors messages={messages} />
+    </div>
+  );
+}

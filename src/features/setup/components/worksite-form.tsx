@@ -1,0 +1,209 @@
+import { useId } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import type { SiteResponse } from '../../../../shared/api-types-sites';
+import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
+import { BREAKER_INDEX_RANGE, SITE_DEPTH_RANGE_M, WorksiteInput, type WorksiteFormValues } from '../../../../shared/schemas/sites';
+import { Button, ErrorNotice, FieldShell, Input, Select } from '../../../components/ui';
+import { useCreateSite } from '../api/create-site';
+import { useHindcasts } from '../api/get-hindcasts';
+import { useUpdateSite } from '../api/update-site';
+import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
+import { numberFromText, numberOrNull, textFromNumber } from './number-text';
+import { COMMON_TIME_ZONES } from './time-zones';
+import { starterTransferTable, TransferTableEditor, transferTableFromText, transferTableToText, type TransferTableText } from './transfer-table-editor';
+
+const pairText = z.tuple([z.string(), z.string()]);
+
+/** The worksite form as typed: the request body's field names, numbers as text. */
+const WorksiteText = z.object({
+  name: z.string(),
+  latitude: z.string(),
+  longitude: z.string(),
+  depth: z.string(),
+  shoreNormal: z.string(),
+  breakerIndex: z.string(),
+  timeZone: z.string(),
+  hindcastDatasetId: z.string(),
+  transferTable: z.object({ directionSectorsDeg: z.array(pairText), tpBandsS: z.array(pairText), factors: z.array(z.array(z.string())) }).nullable(),
+});
+type WorksiteText = z.infer<typeof WorksiteText>;
+
+/**
+ * Text to the request body, then the shared {@link WorksiteInput} schema: the same checks and
+ * messages as the server, on the same field paths.
+ */
+const WorksiteFormSchema = WorksiteText.transform(
+  (v): WorksiteFormValues => ({
+    name: v.name,
+    latitude: numberOrNull(v.latitude),
+    longitude: numberOrNull(v.longitude),
+    depth: numberFromText(v.depth),
+    shoreNormal: numberOrNull(v.shoreNormal),
+    breakerIndex: numberFromText(v.breakerIndex),
+    timeZone: v.timeZone,
+    hindcastDatasetId: v.hindcastDatasetId === '' ? null : v.hindcastDatasetId,
+    transferTable: v.transferTable ? transferTableFromText(v.transferTable) : null,
+  }),
+).pipe(WorksiteInput);
+
+function initialValues(site: SiteResponse | null, defaultZone: string): WorksiteText {
+  return {
+    name: site?.name ?? '',
+    latitude: textFromNumber(site?.latitude),
+    longitude: textFromNumber(site?.longitude),
+    depth: textFromNumber(site?.depth),
+    shoreNormal: textFromNumber(site?.shoreNormal),
+    breakerIndex: textFromNumber(site?.breakerIndex ?? BREAKER_INDEX_RANGE.default),
+    timeZone: site?.timeZone ?? defaultZone,
+    hindcastDatasetId: site?.hindcastDatasetId ?? '',
+    transferTable: site?.transferTable ? transferTableToText(site.transferTable) : null,
+  };
+}
+
+/**
+ * Add or edit a worksite. `site` null adds one; `defaultZone` starts a new worksite in the zone
+ * of the project's other worksites (else the browser's own).
+ */
+export function WorksiteForm({
+  projectId,
+  site,
+  defaultZone,
+  onDone,
+}: {
+  projectId: string;
+  site: SiteResponse | null;
+  defaultZone: string;
+  onDone: (saved: SiteResponse | null) => void;
+}) {
+  const id = useId();
+  const create = useCreateSite(projectId);
+  const update = useUpdateSite(projectId);
+  const hindcasts = useHindcasts(projectId);
+  const mutation = site ? update : create;
+  const form = useForm<z.input<typeof WorksiteFormSchema>, unknown, z.output<typeof WorksiteFormSchema>>({
+    resolver: blankAware(zodResolver(WorksiteFormSchema)),
+    defaultValues: initialValues(site, defaultZone),
+  });
+  const errors = form.formState.errors;
+  const table = useWatch({ control: form.control, name: 'transferTable' }) as TransferTableText | null;
+
+  const setTable = (next: TransferTableText | null) =>
+    form.setValue('transferTable', next, { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
+
+  const onSubmit = form.handleSubmit((input) => {
+    const done = { onSuccess: (saved: SiteResponse) => onDone(saved), onError: (e: unknown) => applyServerErrors(e, form.setError) };
+    if (site) update.mutate({ siteId: site.id, patch: input }, done);
+    else create.mutate(input, done);
+  });
+
+  const f = (name: string) => `${id}-${name}`;
+  const hindcastList = hindcasts.data ?? [];
+  const knownHindcast = !site?.hindcastDatasetId || hindcastList.some((d) => d.id === site.hindcastDatasetId);
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label={site ? `Edit worksite ${site.name}` : 'New worksite'}>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <FieldShell label="Name" htmlFor={f('name')} error={withSubject('Name', errors.name?.message)}>
+          <Input id={f('name')} autoComplete="off" {...form.register('name')} invalid={!!errors.name} />
+        </FieldShell>
+        <FieldShell
+          label="Time zone"
+          htmlFor={f('tz')}
+          error={errors.timeZone?.message}
+          hint="IANA name; the worksite's hours, days and months are shown in it, with its daylight-saving rules."
+        >
+          <Input id={f('tz')} list={f('tz-list')} autoComplete="off" spellCheck={false} {...form.register('timeZone')} invalid={!!errors.timeZone} />
+          <datalist id={f('tz-list')}>
+            {COMMON_TIME_ZONES.map((z) => (
+              <option key={z} value={z} />
+            ))}
+          </datalist>
+        </FieldShell>
+      </div>
+      <div className="grid gap-4 sm:grid-cols-3">
+        <FieldShell
+          label="Water depth"
+          unit="m"
+          htmlFor={f('depth')}
+          error={errors.depth?.message}
+          hint={`Still-water depth d at the worksite, ${SITE_DEPTH_RANGE_M.min}–${SITE_DEPTH_RANGE_M.max} m.`}
+        >
+          <Input id={f('depth')} inputMode="decimal" {...form.register('depth')} invalid={!!errors.depth} />
+        </FieldShell>
+        <FieldShell
+          label="Shore normal"
+          unit="° from true north"
+          htmlFor={f('shore')}
+          error={errors.shoreNormal?.message}
+          hint="Coming-from direction of waves that cross the depth contours head-on; leave empty for no refraction."
+        >
+          <Input id={f('shore')} inputMode="decimal" {...form.register('shoreNormal')} invalid={!!errors.shoreNormal} />
+        </FieldShell>
+        <FieldShell
+          label="Breaker index γb"
+          unit="Hs/d"
+          htmlFor={f('gamma')}
+          error={errors.breakerIndex?.message}
+          hint={`Depth limit Hs ≤ γb·d; ${BREAKER_INDEX_RANGE.default} is common practice (${BREAKER_INDEX_RANGE.min}–${BREAKER_INDEX_RANGE.max}).`}
+        >
+          <Input id={f('gamma')} inputMode="decimal" {...form.register('breakerIndex')} invalid={!!errors.breakerIndex} />
+        </FieldShell>
+      </div>
+      <div className="grid gap-4 sm:grid-cols-3">
+        <FieldShell label="Latitude" unit="° north, negative south" htmlFor={f('lat')} error={errors.latitude?.message} hint="Optional.">
+          <Input id={f('lat')} inputMode="decimal" {...form.register('latitude')} invalid={!!errors.latitude} />
+        </FieldShell>
+        <FieldShell label="Longitude" unit="° east, negative west" htmlFor={f('lon')} error={errors.longitude?.message} hint="Optional.">
+          <Input id={f('lon')} inputMode="decimal" {...form.register('longitude')} invalid={!!errors.longitude} />
+        </FieldShell>
+        <FieldShell
+          label="Hindcast for statistics"
+          htmlFor={f('hindcast')}
+          error={errors.hindcastDatasetId?.message}
+          hint={hindcasts.isPending ? 'Loading the project’s hindcasts…' : 'Downtime statistics of this worksite are computed from it.'}
+        >
+          <Select id={f('hindcast')} {...form.register('hindcastDatasetId')} invalid={!!errors.hindcastDatasetId}>
+            <option value="">The project’s newest hindcast</option>
+            {hindcastList.map((d) => (
+              <option key={d.id} value={d.id}>
+                {d.name} ({d.start.slice(0, 4)}–{d.end.slice(0, 4)})
+              </option>
+            ))}
+            {!knownHindcast && site?.hindcastDatasetId ? <option value={site.hindcastDatasetId}>A dataset no longer listed</option> : null}
+          </Select>
+        </FieldShell>
+      </div>
+      <p className="text-xs text-ink-soft">{TRANSFORMATION_CAUTION}</p>
+
+      <FormSection
+        id={f('transfer')}
+        title="Transfer table (optional)"
+        hint="From a site-specific wave model study: Hs at the worksite ÷ Hs at the data point, by direction sector and Tp band. Where set, it replaces refraction and shoaling; the depth limit still applies."
+        error={errorAt(errors, 'transferTable')}
+      >
+        <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
+          <input
+            type="checkbox"
+            className="size-5 accent-[var(--color-accent)]"
+            checked={table !== null}
+            onChange={(e) => setTable(e.target.checked ? (site?.transferTable ? transferTableToText(site.transferTable) : starterTransferTable()) : null)}
+          />
+          Use a transfer table for this worksite
+        </label>
+        {table ? <TransferTableEditor value={table} onChange={setTable} errors={errors} /> : null}
+      </FormSection>
+
+      {mutation.error ? <ErrorNotice error={mutation.error} /> : null}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={mutation.isPending}>
+          {mutation.isPending ? 'Saving…' : site ? 'Save worksite' : 'Add worksite'}
+        </Button>
+        <Button variant="secondary" onClick={() => onDone(null)} disabled={mutation.isPending}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,41 @@
+import { keepPreviousData, queryOptions, skipToken, useQuery } from '@tanstack/react-query';
+import type { SeaStateQuery } from '../../../../shared/schemas/wave';
+import type { CompletedPeriods } from '../../../../shared/waves/period-conversion';
+import { api } from '../../../lib/api';
+import { waveQueryString } from './query-string';
+
+/** Answer of GET /api/wave/sea-state, SI units. */
+export interface SeaStateAnswer {
+  /** Hs, m. */
+  hs: number;
+  /** d, m. */
+  depth: number;
+  /** Tp, Tz, Te (s), which were given and which derived, and the gamma used. */
+  periods: CompletedPeriods;
+  /** E = rho*g*Hs^2/16, J/m2. */
+  energy: number;
+  /** P = E*Cg(Te, d), W/m. */
+  power: number;
+  /** Linear wavelength at Tp and depth d, m. */
+  peakWavelength: number;
+  /** Linear significant bed velocity at Tp, m/s. */
+  bedVelocityLinear: number;
+  /** Soulsby (2006) significant bed velocity at Tz, m/s. */
+  bedVelocitySoulsby: number;
+}
+
+export function getSeaState(q: SeaStateQuery, signal?: AbortSignal): Promise<SeaStateAnswer> {
+  const qs = waveQueryString({ hs: q.hs, tp: q.tp, tz: q.tz, te: q.te, gamma: q.gamma, depth: q.depth });
+  return api<SeaStateAnswer>(`/api/wave/sea-state?${qs}`, { signal });
+}
+
+/** One sea state; `null` skips the request and keeps the last answer on screen. */
+export const seaStateQueryOptions = (q: SeaStateQuery | null) =>
+  queryOptions({
+    queryKey: ['wave', 'sea-state', q],
+    queryFn: q ? ({ signal }) => getSeaState(q, signal) : skipToken,
+    placeholderData: keepPreviousData,
+    staleTime: Infinity,
+  });
+
+export const useSeaState = (q: SeaStateQuery | null) => useQuery(seaStateQueryOptions(q));

@@ -1,0 +1,34 @@
+import type { ReactNode } from 'react';
+import { FieldShell, Input } from '../../../components/ui';
+
+interface NumberFieldProps {
+  id: string;
+  label: string;
+  unit?: string;
+  value: string;
+  onChange: (text: string) => void;
+  error?: string;
+  hint?: ReactNode;
+  placeholder?: string;
+}
+
+/** A decimal input (text, so a half-typed "0." or "1,5" is kept as typed) with unit, hint and error. */
+export function NumberField({ id, label, unit, value, onChange, error, hint, placeholder }: NumberFieldProps) {
+  return (
+    <FieldShell label={label} htmlFor={id} unit={unit} error={error} hint={hint}>
+      <Input
+        id={id}
+        type="text"
+        inputMode="decimal"
+        autoComplete="off"
+        spellCheck={false}
+        className="tabular-nums"
+        value={value}
+        placeholder={placeholder}
+        onChange={(e) => onChange(e.target.value)}
+        invalid={!!error}
+        aria-describedby={error ? `${id}-error` : undefined}
+      />
+    </FieldShell>
+  );
+}

@@ -1,0 +1,221 @@
+import { lazy, Suspense, useMemo } from 'react';
+import { RegularWaveQuery } from '../../../../shared/schemas/wave';
+import type { DepthClass } from '../../../../shared/waves/regular-wave';
+import { Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
+import { useRegularWave, type RegularWaveAnswer } from '../api/get-regular-wave';
+import { useWaveProfile } from '../api/get-wave-profile';
+import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { breakingCheck } from '../utils/breaking-check';
+import { formatSig } from '../utils/format-number';
+import { serverFieldErrors } from '../utils/server-field-errors';
+import { validateFields, type RawFields } from '../utils/validate-fields';
+import { LinearTheoryCaution, ResultStatus } from './result-status';
+import { NumberField } from './number-field';
+import { QuantityList } from './quantity-list';
+
+// The chart library is large: it arrives in its own chunk when the first result is drawn.
+const ProfileChart = lazy(() => import('./profile-chart'));
+
+export type RegularFields = RawFields<'period' | 'height' | 'depth' | 'z'>;
+
+/** A 10 s swell, 2 m high, in 10 m of water: the example the handbooks like. */
+export const DEFAULT_REGULAR_FIELDS: RegularFields = { period: '10', height: '2', depth: '10', z: '' };
+
+const REQUIRED = { period: 'Enter the wave period', height: 'Enter the wave height', depth: 'Enter the water depth' } as const;
+
+/** Debounce of the inputs before a request, ms: results follow typing without a request per key. */
+export const TYPING_DEBOUNCE_MS = 250;
+
+const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
+  deep: 'Deep water',
+  intermediate: 'Intermediate depth',
+  shallow: 'Shallow water',
+};
+
+/** Regular-wave mode: inputs, every linear-theory quantity with its unit, and u, w, Kp over depth. */
+export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; onChange: (fields: RegularFields) => void }) {
+  const debounced = useDebouncedValue(fields, TYPING_DEBOUNCE_MS);
+  const check = useMemo(() => validateFields(RegularWaveQuery, debounced, REQUIRED), [debounced]);
+  const wave = useRegularWave(check.data);
+  const profile = useWaveProfile(check.data ? { period: check.data.period, height: check.data.height, depth: check.data.depth } : null);
+  const serverErrors = serverFieldErrors(wave.error);
+  const errors = { ...serverErrors, ...check.errors };
+  const set = (key: keyof RegularFields) => (text: string) => onChange({ ...fields, [key]: text });
+  const a = wave.data;
+  const typing = debounced !== fields;
+  const stale = !check.data || wave.isPlaceholderData;
+
+  return (
+    <div className="grid grid-cols-1 gap-4">
+      <Card aria-labelledby="regular-inputs-title">
+        <h2 id="regular-inputs-title" className="sr-only">
+          Regular wave inputs
+        </h2>
+        <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+          <NumberField id="rw-period" label="Wave period T" unit="s" value={fields.period} onChange={set('period')} error={errors.period} hint="0.5 to 30 s" />
+          <NumberField id="rw-height" label="Wave height H" unit="m" value={fields.height} onChange={set('height')} error={errors.height} hint="Crest to trough, 0 to 40 m" />
+          <NumberField id="rw-depth" label="Water depth d" unit="m" value={fields.depth} onChange={set('depth')} error={errors.depth} hint="Still-water depth, 0.05 to 6000 m" />
+          <NumberField
+            id="rw-z"
+            label="Elevation z"
+            unit="m"
+            value={fields.z}
+            onChange={set('z')}
+            error={errors.z}
+            placeholder="optional"
+            hint="Up from still water: 0 at the surface, −d at the bed"
+          />
+        </div>
+      </Card>
+
+      {wave.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={wave.error} /> : null}
+      {!a && wave.isFetching ? <Spinner label="Computing" /> : null}
+
+      {a ? (
+        <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">
+          <Card aria-labelledby="regular-results-title" className={stale && !typing ? 'opacity-80' : ''}>
+            <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
+              <h2 id="regular-results-title" className="text-lg font-bold">
+                Results
+              </h2>
+              <ResultStatus
+                updating={typing || wave.isFetching}
+                lastValid={!check.data}
+                caption={`T = ${formatSig(a.period)} s · H = ${formatSig(a.height)} m · d = ${formatSig(a.depth)} m`}
+              />
+            </div>
+            <DepthClassBanner answer={a} />
+            <div className="mt-4 grid gap-5">
+              <WaveResults answer={a} />
+            </div>
+            <SteepnessNote answer={a} />
+            <LinearTheoryCaution />
+          </Card>
+
+          <Card aria-labelledby="profile-title" className={`self-start lg:sticky lg:top-4 ${stale && !typing ? 'opacity-80' : ''}`}>
+            <h2 id="profile-title" className="text-lg font-bold">
+              Orbital motion over depth
+            </h2>
+            <p className="mb-3 text-sm text-ink-soft">
+              Amplitudes of the horizontal and vertical orbital velocity, u(z) and w(z), and the pressure response factor Kp(z), from
+              the bed up to still water level.
+            </p>
+            {profile.data ? (
+              <Suspense fallback={<div className="h-80 animate-pulse rounded-lg bg-surface-2" aria-hidden />}>
+                <ProfileChart points={profile.data} depthM={a.depth} wavelengthM={a.wavelength} zM={a.z} />
+              </Suspense>
+            ) : profile.error ? (
+              <ErrorNotice error={profile.error} />
+            ) : (
+              <Spinner label="Drawing the profile" />
+            )}
+          </Card>
+        </div>
+      ) : null}
+
+      <TheoryNote />
+    </div>
+  );
+}
+
+function DepthClassBanner({ answer: a }: { answer: RegularWaveAnswer }) {
+  return (
+    <div className="rounded-lg border border-line bg-surface-2 px-4 py-3" data-testid="depth-class">
+      <p className="text-base font-bold">{DEPTH_CLASS_WORDS[a.depthClass]}</p>
+      <p className="text-sm text-ink-soft">
+        <span className="tabular-nums">
+          <i className="font-serif">d/L</i> = {formatSig(a.depthOverWavelength)}
+        </span>
+        {' · '}deep water above 0.5, shallow water below 0.05 (common practice)
+      </p>
+    </div>
+  );
+}
+
+function WaveResults({ answer: a }: { answer: RegularWaveAnswer }) {
+  const hasZ = a.z !== undefined && a.horizontalVelocity !== undefined;
+  return (
+    <>
+      <QuantityList
+        title="The wave at this depth"
+        items={[
+          { id: 'wavelength', label: 'Wavelength', symbol: 'L', value: a.wavelength, unit: 'm' },
+          { id: 'celerity', label: 'Celerity (phase speed)', symbol: 'C', value: a.celerity, unit: 'm/s' },
+          { id: 'group-celerity', label: 'Group celerity', symbol: <>C<sub>g</sub></>, value: a.groupCelerity, unit: 'm/s' },
+          { id: 'n', label: 'Group to phase speed', symbol: <>n = C<sub>g</sub>/C</>, value: a.n, unit: '–' },
+          { id: 'wave-number', label: 'Wavenumber', symbol: 'k', value: a.waveNumber, unit: 'rad/m' },
+        ]}
+      />
+      <QuantityList
+        title="Deep water, same period"
+        items={[
+          { id: 'deep-water-wavelength', label: 'Deep-water wavelength', symbol: <>L<sub>0</sub></>, value: a.deepWaterWavelength, unit: 'm' },
+          { id: 'deep-water-celerity', label: 'Deep-water celerity', symbol: <>C<sub>0</sub></>, value: a.deepWaterCelerity, unit: 'm/s' },
+          {
+            id: 'shoaling-coefficient',
+            label: 'Shoaling coefficient',
+            symbol: <>K<sub>s</sub></>,
+            value: a.shoalingCoefficient,
+            unit: '–',
+            note: <>From deep water: H/H<sub>0</sub> = √(C<sub>g0</sub>/C<sub>g</sub>)</>,
+          },
+        ]}
+      />
+      <QuantityList
+        title="At the seabed"
+        items={[
+          { id: 'bed-velocity', label: 'Orbital velocity amplitude', symbol: <>u<sub>b</sub></>, value: a.bedVelocity, unit: 'm/s' },
+          { id: 'bed-excursion', label: 'Orbital excursion amplitude', symbol: <>A<sub>b</sub></>, value: a.bedExcursion, unit: 'm' },
+        ]}
+      />
+      <QuantityList
+        title="Energy"
+        items={[
+          { id: 'energy-density', label: 'Energy density', symbol: <>E = ρgH²/8</>, value: a.energyDensity, unit: 'J/m²' },
+          { id: 'power', label: 'Power per metre of crest', symbol: <>P = E C<sub>g</sub></>, value: a.power / 1000, unit: 'kW/m' },
+        ]}
+      />
+      {hasZ ? (
+        <QuantityList
+          title={<>At elevation z = {formatSig(a.z)} m</>}
+          items={[
+            { id: 'horizontal-velocity', label: 'Horizontal velocity amplitude', symbol: 'u(z)', value: a.horizontalVelocity, unit: 'm/s' },
+            { id: 'vertical-velocity', label: 'Vertical velocity amplitude', symbol: 'w(z)', value: a.verticalVelocity, unit: 'm/s' },
+            { id: 'pressure-factor', label: 'Pressure response factor', symbol: <>K<sub>p</sub>(z)</>, value: a.pressureFactor, unit: '–' },
+          ]}
+        />
+      ) : (
+        <p className="text-sm text-ink-soft">Give an elevation z to see u(z), w(z) and Kp(z) at that level.</p>
+      )}
+    </>
+  );
+}
+
+function SteepnessNote({ answer: a }: { answer: RegularWaveAnswer }) {
+  if (a.height === 0) return null;
+  const { steepness, limit, breaking } = breakingCheck(a.height, a.wavelength, a.waveNumber, a.depth);
+  const text = (
+    <>
+      Steepness H/L = {formatSig(steepness, 3, true)}; a wave breaks above H/L = 0.142 tanh(kd) = {formatSig(limit, 3, true)} (Miche).
+    </>
+  );
+  return (
+    <div className="mt-4" data-testid="steepness">
+      {breaking ? (
+        <Notice tone="error">{text} This wave is too steep to exist: the figures above are not meaningful for it.</Notice>
+      ) : (
+        <p className="text-sm text-ink-soft">{text}</p>
+      )}
+    </div>
+  );
+}
+
+function TheoryNote() {
+  return (
+    <p className="text-xs text-ink-soft" data-testid="theory-note">
+      Linear (Airy) wave theory as in the Shore Protection Manual (1984) and the Coastal Engineering Manual (EM 1110-2-1100, Part
+      II-1); the wavenumber solves ω² = gk tanh(kd), started from the explicit formula of Fenton &amp; McKee (1990) and refined by
+      Newton steps. g = 9.81 m/s², seawater ρ = 1025 kg/m³.
+    </p>
+  );
+}

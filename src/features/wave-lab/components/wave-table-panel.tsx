@@ -1,0 +1,179 @@
+import { useMemo, type ReactNode } from 'react';
+import { createColumnHelper, createSortedRowModel, rowSortingFeature, tableFeatures, useTable } from '@tanstack/react-table';
+import { WaveTableQuery } from '../../../../shared/schemas/wave';
+import { Button, Card, ErrorNotice, Spinner } from '../../../components/ui';
+import { useWaveTable, type WaveTableRow } from '../api/get-wave-table';
+import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { formatSig } from '../utils/format-number';
+import { serverFieldErrors } from '../utils/server-field-errors';
+import { validateFields } from '../utils/validate-fields';
+import { downloadText, waveTableCsv } from '../utils/wave-table-csv';
+import { NumberField } from './number-field';
+import { TYPING_DEBOUNCE_MS } from './regular-wave-panel';
+import { ResultStatus } from './result-status';
+import type { TableFields } from './wave-table-fields';
+
+const REQUIRED = { from: 'Enter the first d/L0', to: 'Enter the last d/L0', step: 'Enter the step of d/L0' } as const;
+
+const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
+const helper = createColumnHelper<typeof features, WaveTableRow>();
+
+/** Header, and the line of the key below the table, of every column in handbook order. */
+const COLUMN_TEXT: { key: keyof WaveTableRow; header: ReactNode; meaning: ReactNode }[] = [
+  { key: 'dOverL0', header: <>d/L<sub>0</sub></>, meaning: <>depth over the deep-water wavelength L<sub>0</sub> = gT²/2π</> },
+  { key: 'dOverL', header: 'd/L', meaning: 'depth over the local wavelength' },
+  { key: 'lOverL0', header: <>L/L<sub>0</sub></>, meaning: <>local over deep-water wavelength, = C/C<sub>0</sub> = tanh kd</> },
+  { key: 'kd', header: 'kd', meaning: 'relative depth 2πd/L' },
+  { key: 'tanhKd', header: 'tanh kd', meaning: null },
+  { key: 'sinhKd', header: 'sinh kd', meaning: null },
+  { key: 'coshKd', header: 'cosh kd', meaning: null },
+  { key: 'n', header: 'n', meaning: <>group over phase speed C<sub>g</sub>/C = ½(1 + 2kd/sinh 2kd)</> },
+  { key: 'cgOverC0', header: <>C<sub>g</sub>/C<sub>0</sub></>, meaning: <>group celerity over deep-water celerity, = n tanh kd</> },
+  { key: 'shoalingCoefficient', header: <>K<sub>s</sub></>, meaning: <>shoaling coefficient H/H<sub>0</sub>′ = √(C<sub>g0</sub>/C<sub>g</sub>)</> },
+  { key: 'bedPressureFactor', header: <>K<sub>p</sub> bed</>, meaning: <>pressure response factor at the bed, 1/cosh kd</> },
+];
+
+const columns = helper.columns(
+  COLUMN_TEXT.map((c) =>
+    helper.accessor(c.key, {
+      id: c.key,
+      header: () => c.header,
+      // d/L0 is the chosen grid: show it as typed; the rest to 5 significant figures, zeros kept.
+      cell: (info) => formatSig(info.getValue(), 5, c.key !== 'dOverL0'),
+    }),
+  ),
+);
+
+/** Wave-table mode: d/L0 range and step, a sortable table of the handbook columns, CSV download. Lazy-loaded. */
+export default function WaveTablePanel({ fields, onChange }: { fields: TableFields; onChange: (fields: TableFields) => void }) {
+  const debounced = useDebouncedValue(fields, TYPING_DEBOUNCE_MS);
+  const check = useMemo(() => validateFields(WaveTableQuery, debounced, REQUIRED), [debounced]);
+  const query = useWaveTable(check.data);
+  const serverErrors = serverFieldErrors(query.error);
+  const errors = { ...serverErrors, ...check.errors };
+  const set = (key: keyof TableFields) => (text: string) => onChange({ ...fields, [key]: text });
+  const rows = query.data;
+  const typing = debounced !== fields;
+
+  return (
+    <div className="grid grid-cols-1 gap-4">
+      <Card aria-labelledby="table-inputs-title">
+        <h2 id="table-inputs-title" className="sr-only">
+          Wave table range
+        </h2>
+        <div className="grid gap-3 sm:grid-cols-3">
+          <NumberField id="wt-from" label="From d/L0" value={fields.from} onChange={set('from')} error={errors.from} hint="0.0001 to 100" />
+          <NumberField id="wt-to" label="To d/L0" value={fields.to} onChange={set('to')} error={errors.to} hint="Included when on the step grid" />
+          <NumberField id="wt-step" label="Step of d/L0" value={fields.step} onChange={set('step')} error={errors.step} hint="At most 2,000 rows" />
+        </div>
+      </Card>
+      {query.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={query.error} /> : null}
+      {!rows && query.isFetching ? <Spinner label="Computing the table" /> : null}
+      {rows ? <WaveTable rows={rows} typing={typing} fetching={query.isFetching} lastValid={!check.data} /> : null}
+    </div>
+  );
+}
+
+function WaveTable({ rows, typing, fetching, lastValid }: { rows: WaveTableRow[]; typing: boolean; fetching: boolean; lastValid: boolean }) {
+  const table = useTable({
+    features,
+    columns,
+    data: rows,
+    sortDescFirst: false,
+    enableSortingRemoval: false,
+    initialState: { sorting: [{ id: 'dOverL0', desc: false }] },
+  });
+  const shown = table.getRowModel().rows;
+  const first = rows[0]?.dOverL0;
+  const last = rows[rows.length - 1]?.dOverL0;
+  const download = () => {
+    const step = rows.length > 1 ? rows[1].dOverL0 - rows[0].dOverL0 : 0;
+    const name = `wave-table_dL0_${first}-${last}${rows.length > 1 ? `_step-${Number(step.toPrecision(6))}` : ''}.csv`;
+    downloadText(name, waveTableCsv(shown.map((r) => r.original)));
+  };
+
+  return (
+    <Card aria-labelledby="wave-table-title" className={lastValid && !typing ? 'opacity-80' : ''}>
+      <div className="mb-3 flex flex-wrap items-center justify-between gap-3">
+        <div>
+          <h2 id="wave-table-title" className="text-lg font-bold">
+            Wave table
+          </h2>
+          <ResultStatus
+            updating={typing || fetching}
+            lastValid={lastValid}
+            caption={`${rows.length} ${rows.length === 1 ? 'row' : 'rows'}, d/L0 from ${formatSig(first, 5)} to ${formatSig(last, 5)}`}
+          />
+        </div>
+        <Button variant="secondary" onClick={download} title="The rows in the order shown, full precision">
+          Download CSV
+        </Button>
+      </div>
+      <div className="max-h-[70vh] overflow-auto rounded-lg border border-line" tabIndex={0} aria-label="Wave table, scrolls both ways">
+        <table className="min-w-full border-separate border-spacing-0 text-sm tabular-nums" data-testid="wave-table">
+          <thead>
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header, i) => {
+                  const sorted = header.column.getIsSorted();
+                  return (
+                    <th
+                      key={header.id}
+                      scope="col"
+                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none'}
+                      className={`sticky top-0 border-b border-line bg-surface-2 p-0 text-right font-semibold whitespace-nowrap ${i === 0 ? 'left-0 z-20' : 'z-10'}`}
+                    >
+                      <button
+                        type="button"
+                        onClick={header.column.getToggleSortingHandler()}
+                        className={`inline-flex min-h-11 w-full items-center justify-end gap-1 px-3 font-serif italic hover:text-accent ${sorted ? 'text-accent' : ''}`}
+                        title="Sort by this column"
+                      >
+                        <span>
+                          <table.FlexRender header={header} />
+                        </span>
+                        <span aria-hidden className="w-3 font-sans text-xs not-italic text-ink-soft">
+                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}
+                        </span>
+                      </button>
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {shown.map((row) => (
+              <tr key={row.id} className="group">
+                {row.getAllCells().map((cell, i) => (
+                  <td
+                    key={cell.id}
+                    className={`border-b border-line/60 px-3 py-1.5 text-right whitespace-nowrap group-odd:bg-surface group-even:bg-canvas group-hover:bg-ok-soft ${
+                      i === 0 ? 'sticky left-0 font-semibold' : ''
+                    }`}
+                  >
+                    <table.FlexRender cell={cell} />
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <div className="mt-3 grid gap-2 text-xs text-ink-soft">
+        <p>
+          Columns as in the classic handbook tables (Shore Protection Manual 1984, Appendix C; Coastal Engineering Manual EM
+          1110-2-1100, Part II-1), by linear theory. Every column is dimensionless. Click a heading to sort.
+        </p>
+        <dl className="grid gap-x-4 gap-y-0.5 sm:grid-cols-2">
+          {COLUMN_TEXT.filter((c) => c.meaning).map((c) => (
+            <div key={c.key}>
+              <dt className="inline font-serif font-semibold text-ink italic">{c.header}</dt>
+              <dd className="inline">: {c.meaning}</dd>
+            </div>
+          ))}
+        </dl>
+      </div>
+    </Card>
+  );
+}

@@ -1,0 +1,105 @@
+// Sea data in the browser: a coordinator imports a real NDBC buoy file through the import page;
+// a client reads the list and the dataset but sees no import, fetch or delete controls.
+// Needs the built client (`npx vite build`).
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+
+// NOAA NDBC station 44014, 2017 historical stdmet file (public domain), kept in the shared test data.
+const NDBC_FILE = path.resolve(import.meta.dirname, '../../../shared/data/ndbc/44014h2017.txt');
+// Data rows of that file: 8654, from the table in ../shared/data/ndbc/README.md (two header lines
+// excluded); every row there has a time and a wave height, so every row is a record.
+const NDBC_ROWS = '8,654';
+
+let server: RunningServer;
+let browser: Browser;
+let seaDataPath = '';
+let datasetPath = '';
+
+beforeAll(async () => {
+  server = await startServer();
+  browser = await openBrowser();
+}, 120_000);
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+describe('sea data pages', () => {
+  it('lets the coordinator import an NDBC file with a progress bar and opens the new dataset', async () => {
+    const { page } = browser;
+    await signInAs(page, server.baseUrl, 'coordinator@example.com');
+    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
+    await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Sea data' }).click();
+    await page.getByRole('heading', { name: 'Sea data' }).waitFor();
+    seaDataPath = new URL(page.url()).pathname;
+
+    await page.getByRole('link', { name: 'Import a file' }).click();
+    await page.getByRole('heading', { name: 'Import sea data' }).waitFor();
+    await page.locator('#file').setInputFiles(NDBC_FILE);
+    // Detected as NDBC in the browser; the preview shows the first record of the file's first row
+    // ("2016 12 31 23 50 205  9.9 11.5  1.38  5.00  4.22 198 ...": WVHT 1.38 m, DPD 5.00 s, APD 4.22 s).
+    const preview = page.getByTestId('ndbc-preview');
+    await preview.waitFor();
+    const firstRow = (await preview.locator('tbody tr').first().innerText()).replace(/\s+/g, ' ');
+    expect(firstRow).toContain('2016-12-31 23:50');
+    expect(firstRow).toContain('1.38');
+    expect(firstRow).toContain('5.00');
+    expect(firstRow).toContain('4.22');
+    expect(await page.locator('#name').inputValue()).toBe('44014h2017');
+    expect(await page.locator('#kind').inputValue()).toBe('observation');
+
+    // Record what the progress view shows, however fast the upload is.
+    await page.evaluate(() => {
+      const seen = { shown: false, maxSentPct: 0 };
+      (window as unknown as { __progress: typeof seen }).__progress = seen;
+      new MutationObserver(() => {
+        const el = document.querySelector('[data-testid=upload-progress]');
+        if (!el) return;
+        seen.shown = true;
+        const bar = el.querySelector('[role=progressbar][aria-label="Sending the file"]');
+        seen.maxSentPct = Math.max(seen.maxSentPct, Number(bar?.getAttribute('aria-valuenow') ?? 0));
+      }).observe(document.body, { subtree: true, childList: true, attributes: true });
+    });
+    await page.getByRole('button', { name: 'Import the file' }).click();
+    await page.waitForURL(/\/sea-data\/[0-9a-f-]{36}$/, { timeout: 60_000 });
+    datasetPath = new URL(page.url()).pathname;
+    const progress = await page.evaluate(() => (window as unknown as { __progress: { shown: boolean; maxSentPct: number } }).__progress);
+    expect(progress.shown).toBe(true);
+    expect(progress.maxSentPct).toBe(100);
+
+    await page.getByRole('heading', { name: '44014h2017' }).waitFor();
+    expect(await page.getByText(`Imported ${NDBC_ROWS} records`).isVisible()).toBe(true);
+    expect(await page.getByText(`${NDBC_ROWS}, every 1 h`).isVisible()).toBe(true);
+    expect(await page.getByText('44014h2017.txt (NDBC text)').first().isVisible()).toBe(true);
+    // The lazily loaded chart and the monthly summary appear.
+    await page.getByTestId('series-chart').waitFor({ timeout: 30_000 });
+    await page.getByTestId('monthly-table').waitFor();
+    expect(await page.getByRole('link', { name: 'Download CSV' }).getAttribute('href')).toMatch(/\/csv$/);
+    expect(await page.getByRole('button', { name: 'Delete…' }).count()).toBe(1);
+    await screenshot(page, 'sea-data-imported-ndbc');
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+  });
+
+  it('shows the client the datasets but no import, fetch or delete controls', async () => {
+    const { page } = browser;
+    expect(seaDataPath).not.toBe('');
+    await signInAs(page, server.baseUrl, 'client@example.com');
+    await page.goto(`${server.baseUrl}${seaDataPath}`);
+    await page.getByRole('heading', { name: 'Sea data' }).waitFor();
+    await page.getByRole('link', { name: '44014h2017' }).waitFor();
+    expect(await page.getByRole('link', { name: 'Import a file' }).count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Fetch latest forecast' }).count()).toBe(0);
+    await screenshot(page, 'sea-data-client-list');
+
+    await page.goto(`${server.baseUrl}${datasetPath}`);
+    await page.getByRole('heading', { name: '44014h2017' }).waitFor();
+    expect(await page.getByRole('link', { name: 'Download CSV' }).count()).toBe(1);
+    expect(await page.getByRole('button', { name: /Delete/ }).count()).toBe(0);
+
+    await page.goto(`${server.baseUrl}${seaDataPath}/import`);
+    await page.getByRole('heading', { name: /Importing sea data is for marine coordinators/ }).waitFor();
+    expect(await page.locator('input[type=file]').count()).toBe(0);
+  });
+});
