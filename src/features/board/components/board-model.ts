@@ -1,0 +1,114 @@
+// Pure helpers that turn a plan answer into what the board draws: the visible hours, the day
+// runs of the header, the window boxes, and the start of a row in words.
+import type { OperationSitePlan, PlanWindow } from '../../../../shared/api-types-plan';
+import { dayKey, formatHours, formatIn, formatStart } from './board-format';
+
+/** The hours on screen: indices [from, to) into the plan's `times`. */
+export interface VisibleRange {
+  from: number;
+  to: number;
+  /** The forecast has ended before now: the board shows it whole, for reference. */
+  ended: boolean;
+}
+
+/**
+ * From the record that covers now (each record stands for [t, t + dt), DOMAIN.md Convention 9)
+ * for `days` days; the whole forecast from its first record when `days` is null (past hours
+ * included, for review). Before the forecast starts, from its first record; after it ends, the
+ * whole forecast flagged `ended`.
+ */
+export function visibleRange(timesMs: number[], stepMs: number, nowMs: number, days: number | null): VisibleRange {
+  const n = timesMs.length;
+  if (n === 0) return { from: 0, to: 0, ended: false };
+  if (nowMs >= timesMs[n - 1] + stepMs) return { from: 0, to: n, ended: true };
+  if (days === null) return { from: 0, to: n, ended: false };
+  let from = 0;
+  while (from < n - 1 && timesMs[from + 1] <= nowMs) from++;
+  const endMs = timesMs[from] + days * 86_400_000;
+  let to = from;
+  while (to < n && timesMs[to] < endMs) to++;
+  return { from, to, ended: false };
+}
+
+/** A calendar day of the worksite on the header: its label and the hours it spans on screen. */
+export interface DayRun {
+  key: string;
+  label: string;
+  /** Index into `times` of its first hour on screen. */
+  start: number;
+  count: number;
+}
+
+export function dayRuns(timesMs: number[], range: VisibleRange, zone: string): DayRun[] {
+  const runs: DayRun[] = [];
+  for (let i = range.from; i < range.to; i++) {
+    const key = dayKey(timesMs[i], zone);
+    const last = runs[runs.length - 1];
+    if (last && last.key === key) last.count++;
+    else runs.push({ key, label: formatIn(timesMs[i], zone, 'EEE d MMM'), start: i, count: 1 });
+  }
+  return runs;
+}
+
+/** A usable window clipped to the screen: first index and number of hours drawn. */
+export interface WindowBox {
+  window: PlanWindow;
+  start: number;
+  count: number;
+}
+
+export function windowBoxes(windows: PlanWindow[], timesMs: number[], stepMs: number, range: VisibleRange): WindowBox[] {
+  if (timesMs.length === 0) return [];
+  const t0 = timesMs[0];
+  const boxes: WindowBox[] = [];
+  for (const w of windows) {
+    const s = Math.round((Date.parse(w.start) - t0) / stepMs);
+    const e = Math.round((Date.parse(w.end) - t0) / stepMs);
+    const start = Math.max(s, range.from);
+    const end = Math.min(e, range.to);
+    if (end > start) boxes.push({ window: w, start, count: end - start });
+  }
+  return boxes;
+}
+
+/** The window that holds an instant, if any (end exclusive). */
+export function windowAt(windows: PlanWindow[], ms: number): PlanWindow | undefined {
+  return windows.find((w) => Date.parse(w.start) <= ms && ms < Date.parse(w.end));
+}
+
+/** The start of a row in words: "May start now", "Earliest start: ...", or no window. */
+export interface StartWords {
+  tone: 'now' | 'later' | 'none';
+  text: string;
+  /** Longer form for screen readers and tooltips (full date and zone). */
+  detail: string;
+}
+
+export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
+  const zone = plan.timeZone;
+  if (plan.startNow) {
+    const w = windowAt(plan.windows, nowMs) ?? plan.windows[0];
+    // What is left of the window matters on deck, not its whole length (which began earlier).
+    const leftH = w ? Math.floor((Date.parse(w.end) - nowMs) / 3_600_000) : 0;
+    const until = w ? `, window until ${formatStart(w.end, zone, nowMs)} (local), ${formatHours(leftH)} left` : '';
+    return {
+      tone: 'now',
+      text: `May start now${until}`,
+      detail: `May start now${w ? `: the window runs until ${formatIn(w.end, zone)} ${zone}, ${formatHours(w.hours)} long in all` : ''}.`,
+    };
+  }
+  if (plan.earliestStart) {
+    const ms = Date.parse(plan.earliestStart);
+    const w = windowAt(plan.windows, ms);
+    return {
+      tone: 'later',
+      text: `Earliest start: ${formatStart(ms, zone, nowMs)} (local)${w ? `, window ${formatHours(w.hours)}` : ''}`,
+      detail: `Earliest go-start ${formatIn(ms, zone)} ${zone}${w ? `, in a window of ${formatHours(w.hours)}` : ''}.`,
+    };
+  }
+  return {
+    tone: 'none',
+    text: 'No window in this forecast',
+    detail: `No run of workable hours at least TR = ${plan.tr} h long in this forecast.`,
+  };
+}

@@ -1,0 +1,301 @@
+// Charts of one worksite over the forecast: Hs with each operation's limit (OPLIM, solid) and
+// forecast limit (OPWF, dashed), Tp with Tp limits and excluded bands, bed velocity by both
+// methods with the bed-velocity limits, and wind with the wind limits. Time runs on a linear
+// axis of UTC milliseconds whose ticks sit on the worksite's midnights (found with @date-fns/tz)
+// and are labelled in its zone. Loaded lazily: the chart library is large. The sea is drawn in
+// teal and slate; the numbered operation colours are kept for limits only.
+import { createContext, useContext, useEffect, useMemo, useRef, useState } from 'react';
+import { ResponsiveLine, type LineCustomSvgLayerProps, type SliceTooltipProps } from '@nivo/line';
+import type { CartesianMarkerProps } from '@nivo/core';
+import { addDays, startOfDay } from 'date-fns';
+import { tz } from '@date-fns/tz';
+import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
+import { fmt, formatIn, zoneShort } from './board-format';
+import { operationColour, useDarkMode } from './operation-colours';
+
+/** An operation at the worksite with the limits the charts draw, numbered for the key. */
+export interface ChartOperation {
+  n: number;
+  id: string;
+  name: string;
+  hsMax: number | null;
+  hsMaxForecast: number | null;
+  windMax: number | null;
+  bedVelocityMax: number | null;
+  bedVelocityMethod: string | null;
+  tpMin: number | null;
+  tpMax: number | null;
+  tpExcluded: [number, number][];
+  hasCurve: boolean;
+}
+
+export interface ConditionsChartsProps {
+  conditions: ConditionsAnswer;
+  operations: ChartOperation[];
+  nowMs: number;
+}
+
+type Pt = { x: number; y: number | null };
+type Series = { id: string; data: Pt[] };
+
+function useWidth<T extends HTMLElement>() {
+  const ref = useRef<T>(null);
+  const [width, setWidth] = useState(0);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const ro = new ResizeObserver((entries) => setWidth(entries[0].contentRect.width));
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+  return [ref, width] as const;
+}
+
+/** Midnights of the worksite's days from `fromMs` to `toMs`, every `stepDays` days, UTC ms. */
+function localMidnights(fromMs: number, toMs: number, zone: string, stepDays: number): number[] {
+  const inZone = { in: tz(zone) };
+  const out: number[] = [];
+  let d = startOfDay(fromMs, inZone);
+  if (d.getTime() < fromMs) d = addDays(d, 1, inZone);
+  while (d.getTime() <= toMs) {
+    out.push(d.getTime());
+    d = addDays(d, stepDays, inZone);
+  }
+  return out;
+}
+
+const TooltipContext = createContext<{ zone: string; unit: string; decimals: number; names: Record<string, string> }>({ zone: 'UTC', unit: '', decimals: 2, names: {} });
+
+function SliceTip({ slice }: SliceTooltipProps<Series>) {
+  const { zone, unit, decimals, names } = useContext(TooltipContext);
+  const x = slice.points[0]?.data.x as number;
+  return (
+    <div className="rounded-lg border border-line bg-surface px-3 py-2 text-xs text-ink shadow-lg">
+      <strong>
+        {formatIn(x, zone)} {zoneShort(x, zone)}
+      </strong>
+      {slice.points.map((p) => (
+        <span key={p.id} className="mt-0.5 flex items-center gap-2">
+          <span className="inline-block h-1 w-3 rounded" style={{ background: p.seriesColor }} aria-hidden />
+          {names[String(p.seriesId)] ?? String(p.seriesId)}: {fmt(p.data.y as number | null, decimals, unit)}
+        </span>
+      ))}
+    </div>
+  );
+}
+
+const LABEL_POSITIONS = ['bottom-right', 'top-right', 'bottom', 'top'] as const;
+
+interface PanelSpec {
+  key: string;
+  title: string;
+  unit: string;
+  decimals: number;
+  series: { id: string; name: string; values: (number | null)[]; light: string; dark: string; dashed?: boolean }[];
+  markers: (dark: boolean) => CartesianMarkerProps[];
+  limitValues: number[];
+  bands?: { from: number; to: number; n: number }[];
+  note?: string;
+}
+
+export default function ConditionsCharts({ conditions, operations, nowMs }: ConditionsChartsProps) {
+  const dark = useDarkMode();
+  const [ref, width] = useWidth<HTMLDivElement>();
+  const zone = conditions.timeZone;
+  const timesMs = useMemo(() => conditions.times.map((t) => Date.parse(t)), [conditions.times]);
+  const fromMs = timesMs[0];
+  const toMs = timesMs[timesMs.length - 1];
+  const spanDays = (toMs - fromMs) / 86_400_000;
+  const most = Math.max(2, Math.floor((width - 60) / 60));
+  const stepDays = Math.max(1, Math.ceil(spanDays / most));
+  const ticks = useMemo(() => localMidnights(fromMs, toMs, zone, stepDays), [fromMs, toMs, zone, stepDays]);
+  const allMidnights = useMemo(() => localMidnights(fromMs, toMs, zone, 1), [fromMs, toMs, zone]);
+
+  const palette = dark
+    ? { text: '#9fb4bc', line: '#24485a', ink: '#e6eef0', now: '#f2c46d' }
+    : { text: '#4a5d66', line: '#cfd9d8', ink: '#10222c', now: '#b7791f' };
+  const theme = {
+    text: { fill: palette.text, fontSize: 11, fontFamily: 'inherit' },
+    axis: {
+      domain: { line: { stroke: palette.line, strokeWidth: 1 } },
+      ticks: { line: { stroke: palette.line, strokeWidth: 1 }, text: { fill: palette.text, fontSize: 11 } },
+    },
+    grid: { line: { stroke: palette.line, strokeWidth: 1, strokeOpacity: 0.7 } },
+    crosshair: { line: { stroke: palette.ink, strokeWidth: 1, strokeOpacity: 0.5 } },
+  };
+
+  const limitMarker = (value: number, n: number, legend: string, dashed: boolean, isDark: boolean): CartesianMarkerProps => ({
+    axis: 'y',
+    value,
+    legend,
+    lineStyle: { stroke: operationColour(n, isDark), strokeWidth: 2, strokeDasharray: dashed ? '6 4' : undefined },
+    textStyle: { fill: operationColour(n, isDark), fontSize: 10, fontWeight: 700 },
+  });
+
+  const panels: PanelSpec[] = [
+    {
+      key: 'hs',
+      title: 'Hs at the worksite',
+      unit: 'm',
+      decimals: 2,
+      series: [{ id: 'hs', name: 'Hs at the worksite', values: conditions.hs, light: '#0b7a72', dark: '#49c2b3' }],
+      markers: (d) =>
+        operations.flatMap((o) => [
+          ...(o.hsMax !== null ? [limitMarker(o.hsMax, o.n, `${o.n} OPLIM ${fmt(o.hsMax, 2, 'm')}`, false, d)] : []),
+          ...(o.hsMaxForecast !== null && o.hsMaxForecast !== o.hsMax ? [limitMarker(o.hsMaxForecast, o.n, `${o.n} OPWF ${fmt(o.hsMaxForecast, 2, 'm')}`, true, d)] : []),
+        ]),
+      limitValues: operations.flatMap((o) => [o.hsMax, o.hsMaxForecast].filter((v): v is number => v !== null)),
+      note: operations.some((o) => o.hasCurve) ? 'Hs-Tp curve limits change with Tp from hour to hour and are not drawn here: open an hour on the board to see them.' : undefined,
+    },
+    {
+      key: 'tp',
+      title: 'Tp, peak period',
+      unit: 's',
+      decimals: 1,
+      series: [{ id: 'tp', name: 'Tp', values: conditions.tp, light: '#334155', dark: '#cbd5e1' }],
+      markers: (d) =>
+        operations.flatMap((o) => [
+          ...(o.tpMin !== null ? [limitMarker(o.tpMin, o.n, `${o.n} Tp min ${fmt(o.tpMin, 1, 's')}`, false, d)] : []),
+          ...(o.tpMax !== null ? [limitMarker(o.tpMax, o.n, `${o.n} Tp max ${fmt(o.tpMax, 1, 's')}`, false, d)] : []),
+        ]),
+      limitValues: operations.flatMap((o) => [o.tpMin, o.tpMax, ...o.tpExcluded.flat()].filter((v): v is number => v !== null)),
+      bands: operations.flatMap((o) => o.tpExcluded.map(([from, to]) => ({ from, to, n: o.n }))),
+    },
+    {
+      key: 'bed',
+      title: 'Near-bed orbital velocity (significant)',
+      unit: 'm/s',
+      decimals: 2,
+      series: [
+        { id: 'linear', name: 'Linear (Airy)', values: conditions.bedVelocityLinear, light: '#0b7a72', dark: '#49c2b3' },
+        { id: 'soulsby', name: 'Soulsby (2006)', values: conditions.bedVelocitySoulsby, light: '#475569', dark: '#cbd5e1', dashed: true },
+      ],
+      markers: (d) =>
+        operations
+          .filter((o) => o.bedVelocityMax !== null)
+          .map((o) => limitMarker(o.bedVelocityMax!, o.n, `${o.n} max ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`, false, d)),
+      limitValues: operations.flatMap((o) => (o.bedVelocityMax !== null ? [o.bedVelocityMax] : [])),
+    },
+    {
+      key: 'wind',
+      title: 'Wind speed at 10 m',
+      unit: 'm/s',
+      decimals: 1,
+      series: [{ id: 'wind', name: 'Wind', values: conditions.wind, light: '#334155', dark: '#cbd5e1' }],
+      markers: (d) => operations.filter((o) => o.windMax !== null).map((o) => limitMarker(o.windMax!, o.n, `${o.n} max ${fmt(o.windMax, 1, 'm/s')}`, false, d)),
+      limitValues: operations.flatMap((o) => (o.windMax !== null ? [o.windMax] : [])),
+    },
+  ];
+
+  return (
+    <div ref={ref} className="flex flex-col gap-5" data-testid="conditions-charts">
+      {panels.map((p) => {
+        const data: Series[] = p.series.map((s) => ({ id: s.id, data: timesMs.map((x, i) => ({ x, y: s.values[i] })) }));
+        let peak = -Infinity;
+        for (const s of p.series) for (const v of s.values) if (v !== null && v > peak) peak = v;
+        const top = Math.max(peak, ...p.limitValues, 0) * 1.12 || 1;
+        const empty = !Number.isFinite(peak);
+        const colours = p.series.map((s) => (dark ? s.dark : s.light));
+        const names = Object.fromEntries(p.series.map((s) => [s.id, s.name]));
+        // Limit labels alternate above and below their lines, and between the right end and the
+        // middle, in order of value, so two close limits do not print over each other.
+        const placed = [...p.markers(dark)]
+          .sort((a, b) => Number(a.value) - Number(b.value))
+          .map((m, i) => ({ ...m, legendPosition: LABEL_POSITIONS[i % LABEL_POSITIONS.length] }));
+        const markers: CartesianMarkerProps[] = [
+          ...placed,
+          ...(nowMs >= fromMs && nowMs <= toMs
+            ? [{ axis: 'x' as const, value: nowMs, legend: 'now', legendPosition: 'top-left' as const, lineStyle: { stroke: palette.now, strokeWidth: 2 }, textStyle: { fill: palette.now, fontSize: 10, fontWeight: 700 } }]
+            : []),
+        ];
+        const bands = p.bands ?? [];
+        const BandLayer = ({ yScale, innerWidth }: LineCustomSvgLayerProps<Series>) => (
+          <g>
+            {bands.map((b, i) => {
+              const y1 = (yScale as (v: number) => number)(b.to);
+              const y0 = (yScale as (v: number) => number)(b.from);
+              return (
+                <g key={i}>
+                  <rect x={0} width={innerWidth} y={y1} height={Math.max(1, y0 - y1)} fill={operationColour(b.n, dark)} fillOpacity={0.16} />
+                  <text x={4} y={y1 + 11} fontSize={10} fontWeight={700} fill={operationColour(b.n, dark)}>
+                    {b.n} excluded {b.from}–{b.to} s
+                  </text>
+                </g>
+              );
+            })}
+          </g>
+        );
+        const dashedIds = new Set(p.series.filter((s) => s.dashed).map((s) => s.id));
+        // The lines, drawn here rather than by the library so a second method can be dashed.
+        const LinesLayer = ({ series, lineGenerator }: LineCustomSvgLayerProps<Series>) => (
+          <g>
+            {series.map((s) => (
+              <path
+                key={s.id}
+                d={lineGenerator(s.data.map((d) => d.position)) ?? undefined}
+                fill="none"
+                stroke={s.color}
+                strokeWidth={2}
+                strokeDasharray={dashedIds.has(s.id) ? '6 4' : undefined}
+              />
+            ))}
+          </g>
+        );
+        const summary = empty ? 'no values in this forecast' : `highest ${fmt(peak, p.decimals, p.unit)}`;
+        return (
+          <figure key={p.key} className="m-0">
+            <figcaption className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm font-semibold">
+              <span>
+                {p.title} ({p.unit})
+              </span>
+              {p.series.length > 1
+                ? p.series.map((s) => (
+                    <span key={s.id} className="inline-flex items-center gap-1 text-xs font-normal text-ink-soft">
+                      <svg width="20" height="6" aria-hidden>
+                        <line x1="0" y1="3" x2="20" y2="3" stroke={dark ? s.dark : s.light} strokeWidth="2" strokeDasharray={s.dashed ? '4 3' : undefined} />
+                      </svg>
+                      {s.name}
+                    </span>
+                  ))
+                : null}
+              <span className="text-xs font-normal text-ink-soft">{summary}</span>
+            </figcaption>
+            <div className="h-56" role="img" aria-label={`${p.title} over the forecast at the worksite, ${summary}; times in ${zone}.`}>
+              {empty ? (
+                <div className="flex h-full items-center justify-center rounded-lg border border-dashed border-line text-sm text-ink-soft">Not in this forecast.</div>
+              ) : (
+                <TooltipContext.Provider value={{ zone, unit: p.unit, decimals: p.decimals, names }}>
+                  <ResponsiveLine<Series>
+                    data={data}
+                    xScale={{ type: 'linear', min: fromMs, max: toMs, nice: false }}
+                    yScale={{ type: 'linear', min: 0, max: top, nice: true }}
+                    margin={{ top: 10, right: 12, bottom: 28, left: 44 }}
+                    colors={colours}
+                    lineWidth={2}
+                    curve="linear"
+                    enablePoints={false}
+                    enableArea={p.key === 'hs'}
+                    areaOpacity={0.12}
+                    enableGridX
+                    gridXValues={allMidnights}
+                    gridYValues={4}
+                    axisLeft={{ tickValues: 4, tickSize: 0, tickPadding: 6 }}
+                    axisBottom={{ tickValues: ticks, format: (d: number) => formatIn(d, zone, 'EEE d'), tickSize: 4 }}
+                    markers={markers}
+                    layers={['grid', BandLayer, 'markers', 'axes', 'areas', LinesLayer, 'crosshair', 'slices']}
+                    enableSlices="x"
+                    sliceTooltip={SliceTip}
+                    theme={theme}
+                    animate={false}
+                    role="presentation"
+                  />
+                </TooltipContext.Provider>
+              )}
+            </div>
+            {p.note ? <p className="mt-1 text-xs text-ink-soft">{p.note}</p> : null}
+          </figure>
+        );
+      })}
+    </div>
+  );
+}

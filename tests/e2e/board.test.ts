@@ -1,0 +1,135 @@
+// The watch board in a real browser against the built app and the seeded demo project (a forecast
+// from the local fake service): the skipper opens the chain behind an hour, and a lower Hs limit
+// set by the coordinator leaves fewer workable hours on the board.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import type { PlanAnswer } from '../../shared/api-types-plan';
+import type { OperationResponse } from '../../shared/api-types-sites';
+import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+
+let server: RunningServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startServer();
+  browser = await openBrowser();
+}, 120_000);
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+async function demoProjectId(page: Page): Promise<string> {
+  const res = await page.request.get(`${server.baseUrl}/api/projects`);
+  expect(res.ok()).toBe(true);
+  const projects = (await res.json()) as { id: string; name: string }[];
+  const demo = projects.find((p) => /Varrow Reach/.test(p.name));
+  expect(demo).toBeDefined();
+  return demo!.id;
+}
+
+async function openBoard(page: Page, projectId: string, query = ''): Promise<void> {
+  await page.goto(`${server.baseUrl}/projects/${projectId}/board${query}`);
+  await waitForCells(page);
+}
+
+/** Waits for the board's hour buttons; on failure keeps a screenshot and says what the page showed. */
+async function waitForCells(page: Page): Promise<void> {
+  try {
+    await page.getByTestId('hour-cell').first().waitFor({ timeout: 30_000 });
+  } catch (err) {
+    await screenshot(page, 'board-failure');
+    const shown = ((await page.locator('main').textContent().catch(() => '')) ?? '').slice(0, 600);
+    throw new Error(`No hour cells on ${page.url()}: ${shown}`, { cause: err });
+  }
+}
+
+/** Workable hour buttons in the rows of one operation (every worksite it is planned at). */
+const workableCells = (page: Page, operationId: string) =>
+  page.locator(`[data-testid="board-row"][data-operation-id="${operationId}"] [data-testid="hour-cell"][data-status="workable"]`).count();
+
+describe('the watch board', () => {
+  it('lets the skipper open the chain behind an hour', async () => {
+    const { page, context } = browser;
+    await context.clearCookies();
+    await signInAs(page, server.baseUrl, 'skipper@example.com');
+    const projectId = await demoProjectId(page);
+    await openBoard(page, projectId);
+
+    // A skipper starts on their own operations, and never sees the forecast fetch.
+    await expect(page.getByTestId('mine-switch').getAttribute('aria-checked')).resolves.toBe('true');
+    expect(await page.getByRole('button', { name: 'Fetch latest forecast' }).count()).toBe(0);
+    expect(await page.getByTestId('forecast-info').textContent()).toMatch(/Issued .* ago/);
+    expect(await page.getByTestId('alpha-note').textContent()).toMatch(/OPWF = α × OPLIM/);
+
+    // Every row says when the operation may start, in words.
+    const words = await page.getByTestId('start-words').allTextContents();
+    expect(words.length).toBeGreaterThan(0);
+    for (const w of words) expect(w).toMatch(/^(▶ )?(May start now|Earliest start: .* \(local\)|No window in this forecast)/);
+
+    const cell = page.getByTestId('hour-cell').first();
+    const label = await cell.getAttribute('aria-label');
+    expect(label).toMatch(/^(Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2} \d{2}:\d{2}, (workable|marginal|not workable|no data)/);
+    await cell.click();
+
+    const panel = page.getByTestId('chain-panel');
+    await panel.getByTestId('limit-check').first().waitFor();
+    const text = (await panel.textContent()) ?? '';
+    expect(text).toContain('Ks');
+    expect(text).toContain('Kr');
+    expect(text).toMatch(/OPLIM/);
+    // The Ks figure is a number, and each limit row names a value and a verdict.
+    expect(await panel.getByTestId('chain-ks').textContent()).toMatch(/^\d+\.\d{3}$/);
+    const limitRow = (await panel.getByTestId('limit-check').first().textContent()) ?? '';
+    expect(limitRow).toMatch(/Value/);
+    expect(limitRow).toMatch(/met|broken|no data/);
+    // The panel speaks of the same hour as the cell that opened it.
+    expect(await panel.getByRole('heading', { level: 2 }).textContent()).toContain(label!.split(',')[0]);
+    await screenshot(page, 'board-skipper-chain');
+
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.waitForTimeout(300);
+    await screenshot(page, 'board-skipper-chain-phone');
+    await page.getByRole('button', { name: 'Close the hour’s details' }).click();
+    expect(await page.getByTestId('chain-panel').count()).toBe(0);
+    await screenshot(page, 'board-skipper-phone');
+    await page.setViewportSize({ width: 1280, height: 860 });
+  });
+
+  it('shows fewer workable hours after the coordinator lowers an Hs limit', async () => {
+    const { page, context } = browser;
+    await context.clearCookies();
+    await signInAs(page, server.baseUrl, 'coordinator@example.com');
+    const projectId = await demoProjectId(page);
+    const opsRes = await page.request.get(`${server.baseUrl}/api/projects/${projectId}/operations`);
+    expect(opsRes.ok()).toBe(true);
+    const op = ((await opsRes.json()) as OperationResponse[]).find((o) => o.name === 'ROV burial survey');
+    expect(op?.limits.hsMax).toBe(2);
+
+    // The whole forecast on screen, so the board's cells are all of the plan's hours.
+    await openBoard(page, projectId, '?days=all');
+    expect(await page.getByRole('button', { name: 'Fetch latest forecast' }).count()).toBe(1);
+    const before = await workableCells(page, op!.id);
+    expect(before).toBeGreaterThan(0);
+
+    // The board draws what the plan says: the same count of workable hours as the API.
+    const planRes = await page.request.get(`${server.baseUrl}/api/projects/${projectId}/plan?alpha=true`);
+    const plan = (await planRes.json()) as PlanAnswer;
+    const apiWorkable = plan.plans.filter((p) => p.operationId === op!.id).reduce((n, p) => n + p.status.filter((s) => s === 'workable').length, 0);
+    expect(before).toBe(apiWorkable);
+    await screenshot(page, 'board-coordinator-before');
+
+    const patch = await page.request.patch(`${server.baseUrl}/api/projects/${projectId}/operations/${op!.id}`, {
+      data: { limits: { ...op!.limits, hsMax: 0.8 } },
+      headers: { origin: server.baseUrl },
+    });
+    expect(patch.status()).toBe(200);
+    expect(((await patch.json()) as OperationResponse).limits.hsMax).toBe(0.8);
+
+    await page.reload();
+    await waitForCells(page);
+    const after = await workableCells(page, op!.id);
+    expect(after).toBeLessThan(before);
+    await screenshot(page, 'board-coordinator-after');
+  });
+});
