@@ -4,7 +4,7 @@ import type { AppDeps } from '../deps';
 import { requireUser } from '../http/context';
 import { parseInput } from '../http/errors';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
-import { createProject, getProject, listProjects, updateProjectSettings } from '../services/projects';
+import { createProject, getProject, listMembers, listProjects, updateProjectSettings } from '../services/projects';
 
 export function projectRoutes({ db }: AppDeps): Router {
   const router = Router();
@@ -33,6 +33,12 @@ export function projectRoutes({ db }: AppDeps): Router {
     const input = parseInput(ProjectSettingsInput, req.body);
     await updateProjectSettings(db, access.projectId, input);
     res.json(await getProject(db, access.projectId, access.role));
+  });
+
+  /** GET /api/projects/:projectId/members (coordinators): members with their roles, e.g. to assign skippers. */
+  router.get('/projects/:projectId/members', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    res.json(await listMembers(db, access.projectId));
   });
 
   return router;

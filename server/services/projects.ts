@@ -2,7 +2,7 @@ import { and, asc, eq, inArray } from 'drizzle-orm';
 import type { ProjectDetail, ProjectSummary } from '../../shared/api-types';
 import type { CreateProjectInput, ProjectSettingsInput } from '../../shared/schemas/projects';
 import type { Db } from '../db/client';
-import { project, projectMember } from '../db/schema';
+import { project, projectMember, user } from '../db/schema';
 import { HttpError } from '../http/errors';
 import type { SessionUser } from '../http/context';
 import type { ProjectAccessRole } from '../../shared/api-types';
@@ -71,4 +71,15 @@ export async function projectNames(db: Db, ids: string[]): Promise<Map<string, s
   if (ids.length === 0) return new Map();
   const rows = await db.select({ id: project.id, name: project.name }).from(project).where(inArray(project.id, ids));
   return new Map(rows.map((r) => [r.id, r.name]));
+}
+
+/** Active members of a project with their roles. */
+export async function listMembers(db: Db, projectId: string) {
+  const rows = await db
+    .select({ userId: user.id, name: user.name, email: user.email, role: projectMember.role, banned: user.banned })
+    .from(projectMember)
+    .innerJoin(user, eq(user.id, projectMember.userId))
+    .where(eq(projectMember.projectId, projectId))
+    .orderBy(asc(user.name));
+  return rows.filter((r) => !r.banned).map(({ banned: _b, ...r }) => r);
 }

@@ -726,3 +726,15 @@ describe('deleting the only worksite of an operation', () => {
     expect((await as.coordinator.get(`/api/projects/${A}/sites/${site.id}`)).status).toBe(200);
   });
 });
+
+describe('project members for skipper assignment', () => {
+  it('lists members with roles to coordinators only', async () => {
+    const res = await as.coordinator.get(`/api/projects/${A}/members`);
+    expect(res.status).toBe(200);
+    const roles = Object.fromEntries(res.body.map((m: { email: string; role: string }) => [m.email, m.role]));
+    expect(roles['skipper@example.com']).toBe('skipper');
+    expect(roles['client@example.com']).toBe('client');
+    expect((await as.client.get(`/api/projects/${A}/members`)).status).toBe(403);
+    expect((await as.skipper.get(`/api/projects/${A}/members`)).status).toBe(403);
+  });
+});

@@ -10,6 +10,7 @@ import { OperationInput, type OperationFormValues } from '../../../../shared/sch
 import { Button, ErrorNotice, FieldShell, Input, Select, TextArea } from '../../../components/ui';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
+import { useMembers } from '../api/get-members';
 import { applyServerErrors, blankAware, withSubject, CellInput, errorAt, FormSection, GridErrors } from './form-bits';
 import { fmt } from './format';
 import { HsTpPlot } from './hs-tp-plot';
@@ -26,6 +27,7 @@ const OperationText = z.object({
   tc: z.string(),
   weatherRestricted: z.boolean(),
   siteIds: z.array(z.string()),
+  skipperIds: z.array(z.string()),
   limits: z.object({
     hsMax: z.string(),
     hsTpCurve: z.array(pairText),
@@ -70,6 +72,7 @@ const OperationFormSchema = OperationText.transform(
     tc: numberFromText(v.tc),
     weatherRestricted: v.weatherRestricted,
     siteIds: v.siteIds,
+    skipperIds: v.skipperIds,
     limits: limitsFromText(v.limits),
   }),
 ).pipe(OperationInput);
@@ -85,6 +88,7 @@ function initialValues(op: OperationResponse | null): OperationText {
     tc: textFromNumber(op?.tc),
     weatherRestricted: op?.weatherRestricted ?? true,
     siteIds: op?.siteIds ?? [],
+    skipperIds: op?.skipperIds ?? [],
     limits: {
       hsMax: textFromNumber(l.hsMax),
       hsTpCurve: (l.hsTpCurve ?? []).map(pairText2),
@@ -124,10 +128,13 @@ export function OperationForm({
     defaultValues: initialValues(op),
   });
   const errors = form.formState.errors;
-  const [tpopText, tcText, weatherRestricted, siteIds, limitsText] = useWatch({
+  const [tpopText, tcText, weatherRestricted, siteIds, limitsText, skipperIds] = useWatch({
     control: form.control,
-    name: ['tpop', 'tc', 'weatherRestricted', 'siteIds', 'limits'],
+    name: ['tpop', 'tc', 'weatherRestricted', 'siteIds', 'limits', 'skipperIds'],
   });
+  const members = useMembers(projectId).data;
+  const skippers = (members ?? []).filter((m) => m.role === 'skipper');
+  const setSkipperIds = (next: string[]) => form.setValue('skipperIds', next, { shouldDirty: true, shouldValidate: revalidate });
   const revalidate = form.formState.isSubmitted;
 
   const setLimitList = (key: 'hsTpCurve' | 'tpExcluded', next: [string, string][]) =>
@@ -140,9 +147,9 @@ export function OperationForm({
       onError: (e: unknown) => applyServerErrors(e, form.setError),
     };
     if (op) {
-      // Skipper assignments are left as they are (not edited here).
-      const { skipperIds: _skippers, ...patch } = input;
-      update.mutate({ operationId: op.id, patch }, done);
+      // Without the members list (it is for coordinators) skipper assignments are left as they are.
+      const { skipperIds, ...rest } = input;
+      update.mutate({ operationId: op.id, patch: members ? { ...rest, skipperIds } : rest }, done);
     } else {
       create.mutate(input, done);
     }
@@ -264,6 +271,31 @@ export function OperationForm({
                 </label>
               );
             })}
+          </div>
+        )}
+      </FormSection>
+
+      <FormSection
+        id={f('skippers')}
+        title="Skippers"
+        hint="Assigned skippers hear about this operation's windows by default (they can change that on the Alerts page)."
+        error={err('skipperIds')}
+      >
+        {skippers.length === 0 ? (
+          <p className="text-sm text-ink-soft">No skippers in this project yet: an administrator adds people on the People &amp; access page.</p>
+        ) : (
+          <div className="grid gap-x-4 sm:grid-cols-2">
+            {skippers.map((m) => (
+              <label key={m.userId} className="flex min-h-11 items-center gap-3 text-sm">
+                <input
+                  type="checkbox"
+                  className="size-5 accent-[var(--color-accent)]"
+                  checked={skipperIds.includes(m.userId)}
+                  onChange={(e) => setSkipperIds(e.target.checked ? [...skipperIds, m.userId] : skipperIds.filter((x) => x !== m.userId))}
+                />
+                {m.name} <span className="text-ink-soft">({m.email})</span>
+              </label>
+            ))}
           </div>
         )}
       </FormSection>
