@@ -3,18 +3,8 @@ import { format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
 import { CAUTION_LINE } from '../../shared/caution';
+import { limitWords } from '../../shared/limit-words';
 
-const LIMIT_WORDS: Record<string, string> = {
-  hs: 'wave height (Hs)',
-  hsTpCurve: 'the Hs-Tp limit curve',
-  tpMin: 'a peak period below the minimum',
-  tpMax: 'a peak period above the maximum',
-  tpBand: 'a peak period in an excluded band',
-  bedVelocity: 'near-bed orbital velocity',
-  wind: 'wind speed',
-};
-
-export const limitWords = (name: string | null | undefined) => (name ? (LIMIT_WORDS[name] ?? name) : null);
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
 export function localTime(iso: string, timeZone: string): string {

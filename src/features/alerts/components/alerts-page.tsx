@@ -1,0 +1,51 @@
+// `/projects/:projectId/alerts`: what the caller hears about (subscription), their calendar feed,
+// and the recent alerts of the planning job, for every member. Coordinators and admins also
+// re-plan now, read the outbox, and set which operations recur.
+import { useParams } from 'react-router-dom';
+import { ErrorNotice, PageHeader, Spinner } from '../../../components/ui';
+import { useAlertsAccess } from '../api/get-project-role';
+import { useOperations } from '../api/get-operations';
+import { useSites } from '../api/get-sites';
+import { CalendarSection } from './calendar-section';
+import { OutboxSection } from './outbox-section';
+import { RecentAlertsSection } from './recent-alerts-section';
+import { RecurrenceSection } from './recurrence-section';
+import { ReplanSection } from './replan-section';
+import { SubscriptionSection } from './subscription-section';
+
+export function AlertsPage() {
+  const { projectId = '' } = useParams();
+  const access = useAlertsAccess(projectId);
+  const operations = useOperations(projectId);
+  const sites = useSites(projectId);
+
+  if (access.isPending || operations.isPending || sites.isPending) return <Spinner label="Opening alerts" />;
+  const error = access.error ?? operations.error ?? sites.error;
+  if (error) return <ErrorNotice error={error} />;
+  const ops = operations.data ?? [];
+  const sitesList = sites.data ?? [];
+
+  return (
+    // Native controls (tick boxes, date and time pickers) follow the dark theme too.
+    <div className="flex flex-col gap-5 dark:scheme-dark">
+      <PageHeader
+        title="Alerts"
+        subtitle="A new forecast can open, shorten or close a weather window. Choose what you hear about by e-mail and in your calendar."
+      />
+      <div className="grid items-start gap-5 lg:grid-cols-2">
+        <SubscriptionSection projectId={projectId} role={access.role} operations={ops} sites={sitesList} />
+        <div className="flex flex-col gap-5">
+          <CalendarSection />
+          {access.canEdit ? <ReplanSection projectId={projectId} operations={ops} sites={sitesList} /> : null}
+        </div>
+      </div>
+      <RecentAlertsSection projectId={projectId} operations={ops} sites={sitesList} />
+      {access.canEdit ? (
+        <>
+          <OutboxSection projectId={projectId} />
+          <RecurrenceSection projectId={projectId} operations={ops} sites={sitesList} />
+        </>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,76 @@
+// One e-mail opened: its header lines, and its body as plain text or as HTML. The HTML is shown
+// in an iframe with an empty sandbox (no scripts, no forms, no same-origin access, links inert),
+// so a message can never act inside the app.
+import { useEffect, useRef, useState, type ReactNode } from 'react';
+import { Button } from '../../../components/ui';
+
+interface Props {
+  subject: string;
+  /** header lines shown under the subject: label and value */
+  meta: { label: string; value: ReactNode }[];
+  text: string;
+  html: string | null;
+  onClose: () => void;
+}
+
+export function MessageView({ subject, meta, text, html, onClose }: Props) {
+  const hasHtml = !!html && html.trim().length > 0;
+  const [tab, setTab] = useState<'text' | 'html'>(hasHtml ? 'html' : 'text');
+  const heading = useRef<HTMLHeadingElement>(null);
+  useEffect(() => {
+    heading.current?.focus();
+    heading.current?.scrollIntoView({ block: 'nearest', behavior: 'smooth' });
+  }, [subject]);
+  const shown = tab === 'html' && hasHtml ? 'html' : 'text';
+
+  return (
+    <section className="rounded-[var(--radius-card)] border border-accent bg-surface p-4" aria-label="Opened e-mail" data-testid="message-view">
+      <div className="flex flex-wrap items-start justify-between gap-2">
+        <h3 ref={heading} tabIndex={-1} className="min-w-0 break-words text-base font-bold outline-none">
+          {subject || '(no subject)'}
+        </h3>
+        <Button variant="secondary" onClick={onClose}>
+          Close
+        </Button>
+      </div>
+      <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
+        {meta.map((m) => (
+          <div key={m.label} className="contents">
+            <dt className="text-ink-soft">{m.label}</dt>
+            <dd className="min-w-0 break-words">{m.value}</dd>
+          </div>
+        ))}
+      </dl>
+      <div className="mt-3 flex gap-1" role="tablist" aria-label="Message body">
+        {(['html', 'text'] as const).map((t) => (
+          <button
+            key={t}
+            type="button"
+            role="tab"
+            aria-selected={shown === t}
+            disabled={t === 'html' && !hasHtml}
+            onClick={() => setTab(t)}
+            className={`min-h-11 rounded-lg px-4 text-sm font-semibold disabled:opacity-40 ${shown === t ? 'bg-accent text-accent-ink' : 'bg-surface-2 text-ink hover:brightness-95'}`}
+          >
+            {t === 'html' ? (hasHtml ? 'HTML' : 'No HTML part') : 'Plain text'}
+          </button>
+        ))}
+      </div>
+      <div className="mt-3" role="tabpanel">
+        {shown === 'html' ? (
+          <iframe
+            title={`HTML of “${subject}”`}
+            sandbox=""
+            srcDoc={html ?? ''}
+            referrerPolicy="no-referrer"
+            className="h-[28rem] w-full rounded-lg border border-line bg-white"
+          />
+        ) : (
+          <pre className="max-h-[28rem] overflow-auto whitespace-pre-wrap break-words rounded-lg border border-line bg-surface-2 p-3 font-mono text-sm">
+            {text || '(no plain-text part)'}
+          </pre>
+        )}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,181 @@
+// "What I hear about": the caller's subscription in this project. Operations and worksites to hear
+// about (none ticked = all), immediate e-mails and/or a daily digest at a local time, and a master
+// switch. Without a stored choice the default applies: skippers hear about their assigned operations.
+import { Controller, useForm, useWatch } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { SubscriptionInput } from '../../../../shared/schemas/alerts';
+import type { ProjectAccessRole } from '../../../../shared/api-types';
+import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { useSubscription } from '../api/get-subscription';
+import { useSaveSubscription } from '../api/save-subscription';
+import type { SubscriptionResponse } from '../api/types';
+import { timeZoneList } from './format';
+import { CheckRow, Toggle } from './toggle';
+
+interface Props {
+  projectId: string;
+  role: ProjectAccessRole | undefined;
+  operations: OperationResponse[];
+  sites: SiteResponse[];
+}
+
+export function SubscriptionSection({ projectId, role, operations, sites }: Props) {
+  const sub = useSubscription(projectId);
+  return (
+    <Card aria-labelledby="sub-title">
+      <h2 id="sub-title" className="text-lg font-bold">What I hear about</h2>
+      <p className="mt-1 text-sm text-ink-soft">
+        When a new forecast opens, shortens or closes a weather window, or moves the earliest start, Lullwatch can e-mail you. Choose what
+        concerns you; the calendar feed below follows the same choice.
+      </p>
+      <div className="mt-4">
+        {sub.isPending ? <Spinner label="Reading your alert choices" /> : null}
+        {sub.error ? <ErrorNotice error={sub.error} /> : null}
+        {sub.data ? <SubscriptionForm projectId={projectId} role={role} operations={operations} sites={sites} initial={sub.data} /> : null}
+      </div>
+    </Card>
+  );
+}
+
+function SubscriptionForm({ projectId, role, operations, sites, initial }: Props & { initial: SubscriptionResponse }) {
+  const save = useSaveSubscription(projectId);
+  const firstZone = sites[0]?.timeZone ?? 'UTC';
+  const { stored, ...values } = initial;
+  const form = useForm<SubscriptionInput>({
+    resolver: zodResolver(SubscriptionInput),
+    // A first choice gets the first worksite's zone for the digest rather than the server's UTC default.
+    defaultValues: { ...values, digestTimeZone: !stored && values.digestTimeZone === 'UTC' ? firstZone : values.digestTimeZone },
+  });
+  const v = useWatch({ control: form.control });
+  const errors = form.formState.errors;
+  const zones = timeZoneList(v.digestTimeZone ?? 'UTC', ...sites.map((s) => s.timeZone));
+  const quiet = v.active && !v.immediate && !v.digest;
+
+  const toggleId = (list: string[], id: string, on: boolean) => (on ? [...new Set([...list, id])] : list.filter((x) => x !== id));
+
+  return (
+    <form
+      noValidate
+      className="flex flex-col gap-4"
+      data-testid="subscription-form"
+      onSubmit={form.handleSubmit((input) => save.mutate(input, { onSuccess: () => form.reset(input) }))}
+    >
+      {!stored ? (
+        <Notice>
+          {role === 'skipper' ? (
+            <>
+              You have not made a choice here yet, so the default applies: <strong>as a skipper you get an e-mail at once about the operations you
+              are assigned to</strong> (ticked below), at every worksite. Save to make the choice your own.
+            </>
+          ) : (
+            <>
+              You have not made a choice here yet. Skippers hear about their assigned operations by default; other roles hear nothing until they
+              switch alerts on and save.
+            </>
+          )}
+        </Notice>
+      ) : null}
+
+      <Controller
+        control={form.control}
+        name="active"
+        render={({ field }) => (
+          <Toggle
+            id="sub-active"
+            on={field.value}
+            onChange={field.onChange}
+            label="Alerts for this project"
+            hint={field.value ? 'E-mails and the calendar feed follow the choices below.' : 'Nothing is sent and the calendar feed leaves this project out.'}
+          />
+        )}
+      />
+
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 text-sm font-semibold">Operations</legend>
+        <p className="text-xs text-ink-soft">None ticked means every operation, including ones added later.</p>
+        {operations.length === 0 ? <p className="text-sm text-ink-soft">This project has no operations yet.</p> : null}
+        <Controller
+          control={form.control}
+          name="operationIds"
+          render={({ field }) => (
+            <div className="grid gap-2 sm:grid-cols-2">
+              {operations.map((o) => (
+                <CheckRow key={o.id} checked={field.value.includes(o.id)} onChange={(on) => field.onChange(toggleId(field.value, o.id, on))}>
+                  {o.name}
+                  <span className="ml-1 text-xs text-ink-soft">TR {o.tr} h</span>
+                </CheckRow>
+              ))}
+            </div>
+          )}
+        />
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 text-sm font-semibold">Worksites</legend>
+        <p className="text-xs text-ink-soft">None ticked means every worksite.</p>
+        {sites.length === 0 ? <p className="text-sm text-ink-soft">This project has no worksites yet.</p> : null}
+        <Controller
+          control={form.control}
+          name="siteIds"
+          render={({ field }) => (
+            <div className="grid gap-2 sm:grid-cols-2">
+              {sites.map((s) => (
+                <CheckRow key={s.id} checked={field.value.includes(s.id)} onChange={(on) => field.onChange(toggleId(field.value, s.id, on))}>
+                  {s.name}
+                  <span className="ml-1 text-xs text-ink-soft">{s.timeZone}</span>
+                </CheckRow>
+              ))}
+            </div>
+          )}
+        />
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 text-sm font-semibold">How</legend>
+        <Controller
+          control={form.control}
+          name="immediate"
+          render={({ field }) => (
+            <Toggle id="sub-immediate" on={field.value} onChange={field.onChange} label="Immediate alerts" hint="An e-mail as soon as a planning run finds a change." />
+          )}
+        />
+        <Controller
+          control={form.control}
+          name="digest"
+          render={({ field }) => (
+            <Toggle id="sub-digest" on={field.value} onChange={field.onChange} label="Daily digest" hint="One e-mail a day with the windows ahead." />
+          )}
+        />
+        {v.digest ? (
+          <div className="grid gap-3 sm:grid-cols-[10rem_1fr]">
+            <FieldShell label="Digest time" htmlFor="sub-digest-time" unit="local, HH:MM" error={errors.digestTime?.message}>
+              <Input id="sub-digest-time" type="time" step={60} {...form.register('digestTime')} invalid={!!errors.digestTime} />
+            </FieldShell>
+            <FieldShell label="Time zone of the digest" htmlFor="sub-digest-zone" error={errors.digestTimeZone?.message} hint="The worksites' zones are in this list too.">
+              <Select id="sub-digest-zone" {...form.register('digestTimeZone')} invalid={!!errors.digestTimeZone}>
+                {zones.map((z) => (
+                  <option key={z} value={z}>{z}</option>
+                ))}
+              </Select>
+            </FieldShell>
+          </div>
+        ) : null}
+      </fieldset>
+
+      {quiet ? <Notice>With neither immediate alerts nor a digest no e-mail is sent; the calendar feed still follows these choices.</Notice> : null}
+      {save.error ? <ErrorNotice error={save.error} /> : null}
+      {save.isSuccess && !form.formState.isDirty ? <Notice tone="success">Saved. Your choice applies from the next planning run.</Notice> : null}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" disabled={save.isPending || (stored && !form.formState.isDirty)}>
+          {save.isPending ? 'Saving…' : 'Save my choice'}
+        </Button>
+        {form.formState.isDirty ? (
+          <Button variant="ghost" onClick={() => form.reset()}>
+            Undo changes
+          </Button>
+        ) : null}
+      </div>
+    </form>
+  );
+}
