@@ -1,0 +1,198 @@
+/**
+ * Campaigns: an ordered list of steps (an operation at one of its worksites), and their simulated
+ * duration through every hindcast year for each start month (DOMAIN.md "Hindcast statistics",
+ * Convention 15).
+ */
+import { and, asc, eq } from 'drizzle-orm';
+import { evaluateStatus, goStarts, simulateCampaign, zonedMonthStartMs, zoneOffsetMs, type CampaignStep } from '../../shared/engine';
+import type { CampaignMonthAnswer, CampaignResponse, CampaignSimulation } from '../../shared/api-types-downtime';
+import type { CampaignInput, CampaignPatchInput, CampaignStepInput } from '../../shared/schemas/downtime';
+import { idParam } from '../../shared/schemas/common';
+import type { Db } from '../db/client';
+import { campaign } from '../db/schema';
+import { HttpError, notFound } from '../http/errors';
+import { loadProjectSetup, sitesOf, type ProjectSetup } from './site-context';
+import { datasetSeries, forEachOperationSite, statisticsDataset } from './workability';
+
+type CampaignRow = typeof campaign.$inferSelect;
+
+const MS_PER_HOUR = 3_600_000;
+
+export function toCampaignResponse(row: CampaignRow): CampaignResponse {
+  return {
+    id: row.id,
+    name: row.name,
+    steps: row.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId })),
+    plannedStart: row.plannedStart?.toISOString() ?? null,
+    timeZone: row.timeZone,
+    createdAt: row.createdAt.toISOString(),
+    updatedAt: row.updatedAt.toISOString(),
+  };
+}
+
+/**
+ * Checks every step against the project: the operation is one of the project's, the worksite too,
+ * and the operation happens at that worksite (its worksite list, empty = all).
+ * @throws HttpError naming the first failing step field (`steps.i.operationId` / `steps.i.siteId`):
+ *   400 for an input, 409 (`code` 'conflict') for a stored campaign the project has since changed under.
+ */
+export function assertSteps(setup: ProjectSetup, steps: CampaignStepInput[], code: 'validation' | 'conflict' = 'validation'): void {
+  const ops = new Map(setup.operations.map((o) => [o.id, o]));
+  const sites = new Map(setup.sites.map((s) => [s.id, s]));
+  steps.forEach((step, i) => {
+    const fail = (field: string, message: string) => {
+      const where = code === 'validation' ? 'Invalid body: ' : `Step ${i + 1} no longer fits the project: `;
+      return new HttpError(code, `${where}steps.${i}.${field}: ${message}`, [{ field: `steps.${i}.${field}`, message }]);
+    };
+    const op = ops.get(step.operationId);
+    if (!op) throw fail('operationId', 'No operation with this id in the project');
+    const site = sites.get(step.siteId);
+    if (!site) throw fail('siteId', 'No worksite with this id in the project');
+    if (!sitesOf(op, setup.sites).some((s) => s.id === site.id)) throw fail('siteId', `${op.name} does not happen at ${site.name}`);
+  });
+}
+
+export async function listCampaigns(db: Db, projectId: string): Promise<CampaignResponse[]> {
+  const rows = await db.select().from(campaign).where(eq(campaign.projectId, projectId)).orderBy(asc(campaign.name), asc(campaign.createdAt));
+  return rows.map(toCampaignResponse);
+}
+
+async function campaignRow(db: Db, projectId: string, campaignId: string): Promise<CampaignRow> {
+  if (!idParam.safeParse(campaignId).success) throw notFound('Campaign');
+  const [row] = await db
+    .select()
+    .from(campaign)
+    .where(and(eq(campaign.projectId, projectId), eq(campaign.id, campaignId)));
+  if (!row) throw notFound('Campaign');
+  return row;
+}
+
+export async function getCampaign(db: Db, projectId: string, campaignId: string): Promise<CampaignResponse> {
+  return toCampaignResponse(await campaignRow(db, projectId, campaignId));
+}
+
+export async function createCampaign(db: Db, projectId: string, input: CampaignInput): Promise<CampaignResponse> {
+  assertSteps(await loadProjectSetup(db, projectId), input.steps);
+  const [row] = await db
+    .insert(campaign)
+    .values({
+      projectId,
+      name: input.name,
+      steps: input.steps,
+      plannedStart: input.plannedStart ? new Date(input.plannedStart) : null,
+      timeZone: input.timeZone,
+    })
+    .returning();
+  return toCampaignResponse(row);
+}
+
+/** Changes some fields; `steps` replaces the whole list (adding, reordering and removing steps). */
+export async function updateCampaign(db: Db, projectId: string, campaignId: string, patch: CampaignPatchInput): Promise<CampaignResponse> {
+  await campaignRow(db, projectId, campaignId);
+  if (patch.steps) assertSteps(await loadProjectSetup(db, projectId), patch.steps);
+  const [row] = await db
+    .update(campaign)
+    .set({
+      ...(patch.name !== undefined ? { name: patch.name } : {}),
+      ...(patch.steps !== undefined ? { steps: patch.steps } : {}),
+      ...(patch.plannedStart !== undefined ? { plannedStart: patch.plannedStart ? new Date(patch.plannedStart) : null } : {}),
+      ...(patch.timeZone !== undefined ? { timeZone: patch.timeZone } : {}),
+      updatedAt: new Date(),
+    })
+    .where(and(eq(campaign.projectId, projectId), eq(campaign.id, campaignId)))
+    .returning();
+  return toCampaignResponse(row);
+}
+
+export async function deleteCampaign(db: Db, projectId: string, campaignId: string): Promise<void> {
+  await campaignRow(db, projectId, campaignId);
+  await db.delete(campaign).where(and(eq(campaign.projectId, projectId), eq(campaign.id, campaignId)));
+}
+
+/**
+ * The next start date of a month: the 1st at 00:00 in `timeZone` of the first year in which it is
+ * on or after `notBeforeMs`, UTC ms.
+ */
+export function nextMonthStartMs(month: number, notBeforeMs: number, timeZone: string): number {
+  let year = new Date(notBeforeMs + zoneOffsetMs(timeZone, notBeforeMs)).getUTCFullYear();
+  let t = zonedMonthStartMs(year, month, timeZone);
+  while (t < notBeforeMs) t = zonedMonthStartMs(++year, month, timeZone);
+  return t;
+}
+
+/**
+ * Simulates a campaign through every hindcast year for each start month 1-12 (DOMAIN.md
+ * "Hindcast statistics", Convention 15): runs start on the 1st at 00:00 in the campaign's time
+ * zone; each step waits for its first go-start (TR = TPOP + TC wholly workable, with or without
+ * alpha) and then takes TPOP. P50/P90 (type 7) of duration and waiting on weather over the years
+ * that finish; a year that reaches the data end first is censored and listed.
+ *
+ * Finish dates: each start month's next start date (on or after the 1st of the planned start's
+ * month when the campaign has a planned start, else on or after `now`) plus the P50 / P90 duration.
+ *
+ * @throws HttpError 404 without a hindcast, 409 when a step no longer fits the project.
+ */
+export async function simulateProjectCampaign(
+  db: Db,
+  projectId: string,
+  campaignId: string,
+  options: { datasetId?: string; alpha: boolean; now: Date },
+): Promise<CampaignSimulation> {
+  const c = toCampaignResponse(await campaignRow(db, projectId, campaignId));
+  const [row, setup] = await Promise.all([statisticsDataset(db, projectId, options.datasetId), loadProjectSetup(db, projectId)]);
+  if (!row) throw new HttpError('not_found', 'No hindcast to simulate on: import one under Sea data');
+  assertSteps(setup, c.steps, 'conflict');
+  const series = await datasetSeries(db, row.id);
+  const stepMs = row.stepMinutes * 60_000;
+
+  // Go-start flags of each distinct (operation, worksite) step, on the transformed series.
+  const key = (opId: string, siteId: string) => `${opId}|${siteId}`;
+  const wanted = new Set(c.steps.map((s) => key(s.operationId, s.siteId)));
+  const flags = new Map<string, Uint8Array>();
+  forEachOperationSite(
+    series,
+    row,
+    setup,
+    ({ op, spec, site, engine, workspace }) => {
+      const status = evaluateStatus(engine, spec, { alpha: options.alpha, alphaTable: setup.alphaTable, out: workspace.status });
+      flags.set(key(op.id, site.id), goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
+    },
+    (opId, siteId) => wanted.has(key(opId, siteId)),
+  );
+  const ops = new Map(setup.operations.map((o) => [o.id, o]));
+  const steps: CampaignStep[] = c.steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: ops.get(s.operationId)!.tpopH }));
+  const results = simulateCampaign(series.timeMs, stepMs, steps, { timeZone: c.timeZone });
+
+  const plannedMs = c.plannedStart ? Date.parse(c.plannedStart) : null;
+  const notBeforeMs =
+    plannedMs === null
+      ? options.now.getTime()
+      : (() => {
+          const local = new Date(plannedMs + zoneOffsetMs(c.timeZone, plannedMs));
+          return zonedMonthStartMs(local.getUTCFullYear(), local.getUTCMonth() + 1, c.timeZone);
+        })();
+  const iso = (ms: number) => new Date(ms).toISOString();
+  const months: CampaignMonthAnswer[] = results.map((r) => {
+    const startMs = nextMonthStartMs(r.startMonth, notBeforeMs, c.timeZone);
+    return {
+      startMonth: r.startMonth,
+      years: r.years,
+      censoredYears: r.censoredYears,
+      p50Hours: r.p50Hours,
+      p90Hours: r.p90Hours,
+      wowP50Hours: r.wowP50Hours,
+      wowP90Hours: r.wowP90Hours,
+      startDate: iso(startMs),
+      p50Finish: r.p50Hours === null ? null : iso(startMs + r.p50Hours * MS_PER_HOUR),
+      p90Finish: r.p90Hours === null ? null : iso(startMs + r.p90Hours * MS_PER_HOUR),
+    };
+  });
+  return {
+    campaignId: c.id,
+    dataset: { id: row.id, name: row.name, start: row.startAt.toISOString(), end: row.endAt.toISOString() },
+    alpha: options.alpha,
+    timeZone: c.timeZone,
+    sumTpopHours: c.steps.reduce((a, s) => a + ops.get(s.operationId)!.tpopH, 0),
+    months,
+  };
+}

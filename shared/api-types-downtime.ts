@@ -1,0 +1,177 @@
+// Answers of the downtime-schedule routes (workability, campaigns, ledger), shared by the API and
+// the client. Shares are fractions 0-1, durations in hours, times ISO 8601 UTC with `Z`, days
+// YYYY-MM-DD in the worksite's time zone.
+import type { LedgerLimiting } from './schemas/downtime';
+
+export type { LedgerLimiting };
+
+/** Statistics of one calendar month over the hindcast years (DOMAIN.md "Hindcast statistics"). */
+export interface WorkabilityMonth {
+  /** Calendar month 1-12 in the worksite's time zone. */
+  month: number;
+  /** Records in the month, all years (absent rows are not records). */
+  records: number;
+  /** Records whose status is not "no data" (Convention 13). */
+  recordsWithData: number;
+  /** Workable records / records with data, 0-1; null without data. */
+  workability: number | null;
+  /** Go-start records / records with data, 0-1; null without data. */
+  goStartShare: number | null;
+  /** Mean waiting on weather over the non-censored records, h; null when all are censored. */
+  wowMeanHours: number | null;
+  /** 90th percentile (Hyndman & Fan type 7) of waiting on weather, h. */
+  wowP90Hours: number | null;
+  /** Records with no go-start at or after them before the data end (left out of WoW). */
+  censored: number;
+  /** Usable windows starting in the month. */
+  windows: number;
+  /** Usable windows per month: windows / years with records in the month. */
+  windowsPerMonth: number | null;
+  /** Mean length of those windows, h. */
+  meanWindowHours: number | null;
+}
+
+/** A calendar month over all years: also how many years have records in it. */
+export interface WorkabilityCalendarMonth extends WorkabilityMonth {
+  years: number;
+}
+
+/** One year and month (for the year-by-year heat map); windowsPerMonth equals windows. */
+export interface WorkabilityYearMonth extends WorkabilityMonth {
+  year: number;
+}
+
+/** GET /api/projects/:projectId/workability: one entry per operation at each of its worksites. */
+export interface WorkabilityEntry {
+  operationId: string;
+  operationName: string;
+  siteId: string;
+  siteName: string;
+  /** IANA zone the months are taken in (the worksite's). */
+  timeZone: string;
+  /** TPOP and TC, h; TR = TPOP + TC sets go-starts and usable windows. */
+  tpopHours: number;
+  tcHours: number;
+  /** Twelve entries, January to December. */
+  months: WorkabilityCalendarMonth[];
+  /** Every year-month with records, in order. */
+  yearMonths: WorkabilityYearMonth[];
+}
+
+/** A campaign: ordered steps, each an operation at one of its worksites. */
+export interface CampaignResponse {
+  id: string;
+  name: string;
+  steps: { operationId: string; siteId: string }[];
+  /** Planned start, ISO UTC; null = none (the finish estimates then start from today). */
+  plannedStart: string | null;
+  /** Zone of the simulated start dates (the 1st at 00:00). */
+  timeZone: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** Simulated duration for one start month (DOMAIN.md "Hindcast statistics", Convention 15). */
+export interface CampaignMonthAnswer {
+  /** 1-12: runs start on the 1st at 00:00 in the campaign's time zone, every hindcast year. */
+  startMonth: number;
+  /** Hindcast years simulated for this start month (censored ones included). */
+  years: number;
+  /** Calendar years whose run reached the data end before finishing (left out of the percentiles). */
+  censoredYears: number[];
+  /** Type-7 percentiles of the duration D over the years that finished, h; null when none did. */
+  p50Hours: number | null;
+  p90Hours: number | null;
+  /** Type-7 percentiles of waiting on weather D - sum of TPOP, h. */
+  wowP50Hours: number | null;
+  wowP90Hours: number | null;
+  /** The next start date for this month (the 1st at 00:00 in the campaign's zone, on or after the planned start or today), ISO UTC. */
+  startDate: string;
+  /** startDate + P50 / P90 duration, ISO UTC; null with no percentile. */
+  p50Finish: string | null;
+  p90Finish: string | null;
+}
+
+/** POST /api/projects/:projectId/campaigns/:campaignId/simulate */
+export interface CampaignSimulation {
+  campaignId: string;
+  dataset: { id: string; name: string; start: string; end: string };
+  alpha: boolean;
+  timeZone: string;
+  /** Sum of the steps' TPOP, h: the duration of a campaign that never waits. */
+  sumTpopHours: number;
+  months: CampaignMonthAnswer[];
+}
+
+/** One day of one operation at one worksite in the downtime ledger. */
+export interface LedgerEntry {
+  id: string;
+  operationId: string;
+  operationName: string;
+  siteId: string;
+  siteName: string;
+  /** Calendar day in the worksite's time zone. */
+  day: string;
+  /** Hours planned: the day's real length in the worksite's zone (24 h; 23 or 25 h on clock-change days). */
+  plannedHours: number;
+  /** As proposed from the data: planned hours not workable at OPLIM (no data counts as lost). */
+  proposedLostHours: number;
+  proposedLimiting: LedgerLimiting | null;
+  /** As confirmed (or corrected) by the coordinator; null while proposed. */
+  lostHours: number | null;
+  limiting: LedgerLimiting | null;
+  note: string;
+  /** Where the proposal came from: an observation dataset, else a forecast. */
+  source: 'observation' | 'forecast';
+  datasetId: string | null;
+  datasetName: string | null;
+  status: 'proposed' | 'confirmed';
+  confirmedBy: string | null;
+  confirmedAt: string | null;
+}
+
+/** POST /api/projects/:projectId/ledger/propose */
+export interface LedgerProposeAnswer {
+  /** Rows written or updated (proposed ones only). */
+  written: number;
+  /** Confirmed rows left untouched. */
+  keptConfirmed: number;
+  /** Days (per worksite) that no observation or forecast dataset covered: nothing proposed. */
+  uncovered: { siteId: string; days: string[] }[];
+  /** Datasets the proposals came from. */
+  sources: { id: string; name: string; kind: 'observation' | 'forecast' }[];
+}
+
+/** GET /api/projects/:projectId/ledger/monthly: one row per month and operation at a worksite. */
+export interface LedgerMonthRow {
+  /** YYYY-MM in the worksite's time zone. */
+  month: string;
+  operationId: string;
+  operationName: string;
+  siteId: string;
+  siteName: string;
+  /** Ledger days in the month, and how many of them are confirmed. */
+  days: number;
+  confirmedDays: number;
+  /** Planned and lost hours over the confirmed days. */
+  confirmedPlannedHours: number;
+  confirmedLostHours: number;
+  /** Lost hours still only proposed (not shown to clients). */
+  proposedLostHours: number | null;
+  /** Hours in the whole calendar month in the worksite's zone. */
+  monthHours: number;
+  /**
+   * Hindcast expectation for this calendar month: P50 and P90 (type 7) over the hindcast years of
+   * the month's lost hours (hours not workable at OPLIM); null without a hindcast.
+   */
+  expectedP50Hours: number | null;
+  expectedP90Hours: number | null;
+  /** Hindcast years the expectation is taken over. */
+  hindcastYears: number;
+}
+
+/** GET /api/projects/:projectId/ledger/monthly */
+export interface LedgerMonthlyAnswer {
+  hindcast: { id: string; name: string } | null;
+  rows: LedgerMonthRow[];
+}

@@ -1,0 +1,21 @@
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { LedgerMonthlyAnswer } from '../../../../shared/api-types-downtime';
+import { api } from '../../../lib/api';
+import { ledgerKey, type LedgerRange } from './get-ledger';
+
+export type LedgerMonthlyParams = LedgerRange & { datasetId: string };
+
+/** `GET /api/projects/:projectId/ledger/monthly?dataset=&from=&to=`: monthly totals against the hindcast expectation. */
+export const getLedgerMonthly = (projectId: string, p: LedgerMonthlyParams) =>
+  api<LedgerMonthlyAnswer>(
+    `/api/projects/${projectId}/ledger/monthly?${new URLSearchParams({ from: p.from, to: p.to, ...(p.datasetId ? { dataset: p.datasetId } : {}) })}`,
+  );
+
+export const ledgerMonthlyQueryOptions = (projectId: string, p: LedgerMonthlyParams) =>
+  queryOptions({
+    queryKey: [...ledgerKey(projectId), 'monthly', { from: p.from, to: p.to, datasetId: p.datasetId }],
+    queryFn: () => getLedgerMonthly(projectId, p),
+  });
+
+export const useLedgerMonthly = (projectId: string, p: LedgerMonthlyParams) =>
+  useQuery({ ...ledgerMonthlyQueryOptions(projectId, p), placeholderData: keepPreviousData });

@@ -1,0 +1,33 @@
+// CSV built in the browser for every table of the page ("Download CSV").
+
+/** One CSV field: quoted when needed; a leading =, +, - or @ is defused for spreadsheets. */
+export function csvField(v: string | number | boolean | null | undefined): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '';
+  if (typeof v === 'boolean') return v ? 'yes' : 'no';
+  let s = /^[=+\-@\t\r]/.test(v) ? `'${v}` : v;
+  if (/[",\r\n]/.test(s)) s = `"${s.replace(/"/g, '""')}"`;
+  return s;
+}
+
+/** A CSV document (CRLF line ends, RFC 4180) from a header and rows. */
+export function toCsv(header: string[], rows: (string | number | boolean | null | undefined)[][]): string {
+  return [header, ...rows].map((r) => r.map(csvField).join(',')).join('\r\n') + '\r\n';
+}
+
+/** Hands a CSV document to the browser as a download. */
+export function downloadCsv(fileName: string, text: string): void {
+  const url = URL.createObjectURL(new Blob([text], { type: 'text/csv;charset=utf-8' }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = fileName;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+/** A file-name-safe slug of a name. */
+export function slug(name: string): string {
+  return name.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'export';
+}

@@ -1,0 +1,143 @@
+// `/projects/:projectId/downtime`: the downtime schedule. Expected weather downtime by month from
+// a hindcast (heat map and table), campaign durations by start month, and the downtime ledger with
+// its monthly totals against the expectation; CSV of every table and a printable report. Every
+// member reads; coordinators (and admins) edit campaigns and propose/confirm the ledger.
+// The choices live in the address (?dataset=&alpha=off&campaign=&month=) so a view can be shared.
+import { useParams, useSearchParams } from 'react-router-dom';
+import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { useDowntimeAccess } from '../api/get-project-role';
+import { useHindcasts } from '../api/get-datasets';
+import { useOperations } from '../api/get-operations';
+import { useSites } from '../api/get-sites';
+import { useWorkability } from '../api/get-workability';
+import { useLedger } from '../api/get-ledger';
+import { CampaignSection } from './campaign-section';
+import { dateIn, monthRange, thisMonth } from './format';
+import { LedgerSection } from './ledger-section';
+import { PrintReport } from './print-report';
+import { WorkabilitySection } from './workability-section';
+
+function AlphaSwitch({ on, onToggle }: { on: boolean; onToggle: () => void }) {
+  return (
+    <button
+      type="button"
+      role="switch"
+      aria-checked={on}
+      onClick={onToggle}
+      data-testid="alpha-switch"
+      className="inline-flex min-h-11 items-center gap-3 rounded-lg border border-line bg-surface px-3 text-left text-sm font-semibold hover:border-accent"
+    >
+      <span className={`relative inline-flex h-6 w-10 shrink-0 items-center rounded-full transition ${on ? 'bg-accent' : 'bg-st-nodata'}`} aria-hidden>
+        <span className={`absolute size-5 rounded-full bg-white shadow transition-all ${on ? 'left-[1.15rem]' : 'left-0.5'}`} />
+      </span>
+      <span>
+        Forecast limits (α)<span className="ml-1 font-normal text-ink-soft">{on ? 'on' : 'off'}</span>
+      </span>
+    </button>
+  );
+}
+
+export function DowntimePage() {
+  const { projectId = '' } = useParams();
+  const [params, setParams] = useSearchParams();
+  const access = useDowntimeAccess(projectId);
+  const hindcasts = useHindcasts(projectId);
+  const operations = useOperations(projectId);
+  const sites = useSites(projectId);
+
+  const list = hindcasts.data ?? [];
+  const asked = params.get('dataset');
+  const datasetId = asked && list.some((d) => d.id === asked) ? asked : (list[0]?.id ?? '');
+  const hindcast = list.find((d) => d.id === datasetId);
+  const alpha = params.get('alpha') !== 'off';
+  const monthParam = params.get('month');
+  const month = monthParam && /^\d{4}-\d{2}$/.test(monthParam) ? monthParam : thisMonth();
+  const campaignId = params.get('campaign') ?? '';
+
+  const workability = useWorkability(projectId, datasetId ? { datasetId, alpha } : null);
+  // The same query as the ledger section (one cache entry): its sources go into the printed report.
+  const ledger = useLedger(projectId, monthRange(month));
+
+  const set = (key: string, value: string | null) =>
+    setParams(
+      (prev) => {
+        const next = new URLSearchParams(prev);
+        if (value === null || value === '') next.delete(key);
+        else next.set(key, value);
+        return next;
+      },
+      { replace: true },
+    );
+
+  if (access.isPending || hindcasts.isPending) return <Spinner label="Opening the downtime schedule" />;
+  if (access.error) return <ErrorNotice error={access.error} />;
+  const project = access.data;
+  const ledgerSources = [...new Set((ledger.data ?? []).map((r) => `${r.datasetName ?? 'a removed dataset'} (${r.source})`))];
+
+  return (
+    <div className="flex flex-col gap-5">
+      <PrintReport
+        projectName={project.name}
+        hindcast={hindcast}
+        ledgerSources={ledgerSources}
+        alpha={alpha}
+        operations={operations.data ?? []}
+        sites={sites.data ?? []}
+      />
+      <div className="no-print">
+        <PageHeader
+          title="Downtime schedule"
+          subtitle="How much of each month the weather takes, how long a campaign really lasts, and what was lost."
+          actions={
+            <Button variant="secondary" onClick={() => window.print()}>
+              Print report
+            </Button>
+          }
+        />
+      </div>
+
+      <Card className="no-print flex flex-wrap items-end gap-3">
+        <div className="min-w-64 flex-1 sm:max-w-lg">
+          <FieldShell
+            label="Hindcast"
+            htmlFor="downtime-dataset"
+            hint={hindcast ? `${dateIn(hindcast.start, 'UTC')} to ${dateIn(hindcast.end, 'UTC')}, ${hindcast.records.toLocaleString('en-GB')} records, every ${hindcast.stepMinutes} min` : undefined}
+          >
+            <Select id="downtime-dataset" value={datasetId} onChange={(e) => set('dataset', e.target.value)} disabled={list.length === 0}>
+              {list.length === 0 ? <option value="">No hindcast yet</option> : null}
+              {list.map((d) => (
+                <option key={d.id} value={d.id}>
+                  {d.name}
+                </option>
+              ))}
+            </Select>
+          </FieldShell>
+        </div>
+        <AlphaSwitch on={alpha} onToggle={() => set('alpha', alpha ? 'off' : null)} />
+      </Card>
+      {hindcasts.error ? <ErrorNotice error={hindcasts.error} /> : null}
+
+      {list.length === 0 ? (
+        <Notice>
+          No hindcast in this project yet, so there is no expected downtime and no campaign simulation.{' '}
+          {access.canEdit ? 'Import a multi-year hindcast under Sea data.' : 'The coordinator imports one under Sea data.'}
+        </Notice>
+      ) : (
+        <WorkabilitySection entries={workability.data} isFetching={workability.isFetching} error={workability.error} alpha={alpha} datasetName={hindcast?.name ?? ''} />
+      )}
+
+      <CampaignSection
+        projectId={projectId}
+        canEdit={access.canEdit}
+        datasetId={datasetId}
+        alpha={alpha}
+        operations={operations.data ?? []}
+        sites={sites.data ?? []}
+        selectedId={campaignId}
+        onSelect={(id) => set('campaign', id)}
+      />
+
+      <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} />
+    </div>
+  );
+}

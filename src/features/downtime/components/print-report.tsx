@@ -1,0 +1,71 @@
+// The head of the printed downtime report: shown only on paper (and in a print-to-PDF), above the
+// page's own sections, which print without their controls (`no-print`).
+import type { DatasetSummary } from '../../../../shared/api-types-datasets';
+import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
+import { CAUTION_LINE, TRANSFORMATION_CAUTION } from '../../../../shared/caution';
+import { dateIn } from './format';
+import { limitsInWords } from './limits-words';
+
+interface Props {
+  projectName: string;
+  hindcast: DatasetSummary | undefined;
+  ledgerSources: string[];
+  alpha: boolean;
+  operations: OperationResponse[];
+  sites: SiteResponse[];
+}
+
+export function PrintReport({ projectName, hindcast, ledgerSources, alpha, operations, sites }: Props) {
+  const siteName = new Map(sites.map((s) => [s.id, s.name]));
+  return (
+    <section className="hidden text-sm text-black print:block" data-testid="print-report" aria-label="Report header">
+      <h1 className="text-2xl font-bold">Downtime schedule: {projectName}</h1>
+      <p className="mt-1">Printed {dateIn(new Date().toISOString(), Intl.DateTimeFormat().resolvedOptions().timeZone, 'd MMM yyyy HH:mm')} (local time).</p>
+
+      <h2 className="mt-4 text-base font-bold">Data sources</h2>
+      <ul className="ml-5 list-disc">
+        <li>
+          Hindcast:{' '}
+          {hindcast
+            ? `${hindcast.name}, ${dateIn(hindcast.start, 'UTC')} to ${dateIn(hindcast.end, 'UTC')} (UTC), ${hindcast.records.toLocaleString('en-GB')} records every ${hindcast.stepMinutes} min, at ${hindcast.dataPoint.name || 'the data point'} (${hindcast.dataPoint.depthM === null ? 'deep water' : `${hindcast.dataPoint.depthM} m deep`}).`
+            : 'none.'}
+        </li>
+        <li>Downtime ledger: {ledgerSources.length > 0 ? ledgerSources.join('; ') : 'no proposed or confirmed day in the month shown.'}</li>
+      </ul>
+
+      <h2 className="mt-4 text-base font-bold">Limits used (OPLIM)</h2>
+      <ul className="ml-5 list-disc">
+        {operations.map((o) => (
+          <li key={o.id}>
+            <span className="font-semibold">{o.name}</span>: TPOP {o.tpop} h, TC {o.tc} h (TR {o.tr} h){o.weatherRestricted ? ', weather-restricted' : ''}; {limitsInWords(o.limits)}; at{' '}
+            {o.siteIds.length === 0 ? 'every worksite' : o.siteIds.map((id) => siteName.get(id) ?? 'a removed worksite').join(', ')}.
+          </li>
+        ))}
+      </ul>
+      <h2 className="mt-4 text-base font-bold">Worksites</h2>
+      <ul className="ml-5 list-disc">
+        {sites.map((s) => (
+          <li key={s.id}>
+            {s.name}: {s.depth} m deep, {s.shoreNormal === null ? 'no refraction' : `shore normal ${s.shoreNormal}°`}, breaker index {s.breakerIndex}
+            {s.transferTable ? ', site transfer table' : ''}, time zone {s.timeZone}.
+          </li>
+        ))}
+      </ul>
+
+      <h2 className="mt-4 text-base font-bold">Assumptions</h2>
+      <ul className="ml-5 list-disc">
+        <li>
+          {alpha
+            ? 'α on: an hour is workable when Hs meets the forecast limit OPWF = α × OPLIM (α from the project’s table by TPOP and Hs limit); other limits at OPLIM.'
+            : 'α off: every limit at OPLIM.'}
+        </li>
+        <li>Workability = workable hours / hours with data; months are calendar months in each worksite’s time zone.</li>
+        <li>A go-start needs TR = TPOP + TC wholly workable; waiting on weather runs to the next go-start; a usable window is a workable run of at least TR.</li>
+        <li>Campaigns start on the 1st of each month at 00:00 in every hindcast year; P50/P90 by linear interpolation between order statistics (Hyndman &amp; Fan type 7); a year that runs past the end of the data is censored and left out.</li>
+        <li>Ledger: all hours of a day are planned; hours not workable at OPLIM or without data count as lost. The expectation is the month’s lost hours over the hindcast years (P50/P90).</li>
+        <li>{TRANSFORMATION_CAUTION}</li>
+      </ul>
+      <p className="mt-4 border-t border-black/30 pt-2 font-semibold">{CAUTION_LINE}</p>
+    </section>
+  );
+}

@@ -1,0 +1,266 @@
+import { lazy, Suspense, useMemo, useState } from 'react';
+import type { WorkabilityEntry } from '../../../../shared/api-types-downtime';
+import { Button, Card, ErrorNotice, Notice, Select, Spinner } from '../../../components/ui';
+import { downloadCsv, toCsv } from './csv';
+import { hours, MONTH_LONG, MONTH_SHORT, num, pct } from './format';
+import type { HeatRow } from './downtime-heatmap';
+
+// The chart library is large: load it only when the heat map is shown.
+const DowntimeHeatmap = lazy(() => import('./downtime-heatmap'));
+
+const th = 'sticky top-0 z-10 bg-surface-2 px-2 py-2 text-xs font-semibold text-ink-soft';
+const td = 'px-2 py-1 text-right tabular-nums whitespace-nowrap';
+
+const pairLabel = (e: WorkabilityEntry) => `${e.operationName} · ${e.siteName}`;
+
+/**
+ * Expected weather downtime by month for every operation at each worksite: a heat map of
+ * 100 - workability (%) and a plain table with the same numbers and the rest of the statistics,
+ * each downloadable as CSV; and a year-by-year heat map of one operation at one worksite.
+ */
+export function WorkabilitySection({ entries, isFetching, error, alpha, datasetName }: { entries: WorkabilityEntry[] | undefined; isFetching: boolean; error: unknown; alpha: boolean; datasetName: string }) {
+  const [pick, setPick] = useState(0);
+  const rows: HeatRow[] = useMemo(
+    () =>
+      (entries ?? []).map((e) => ({
+        id: pairLabel(e),
+        data: e.months.map((m) => ({ x: MONTH_SHORT[m.month - 1], y: m.workability === null ? null : (1 - m.workability) * 100 })),
+      })),
+    [entries],
+  );
+  const chosen = entries?.[Math.min(pick, (entries?.length ?? 1) - 1)];
+  const yearRows: HeatRow[] = useMemo(() => {
+    if (!chosen) return [];
+    const years = [...new Set(chosen.yearMonths.map((m) => m.year))].sort((a, b) => a - b);
+    return years.map((y) => ({
+      id: String(y),
+      data: MONTH_SHORT.map((label, k) => {
+        const m = chosen.yearMonths.find((v) => v.year === y && v.month === k + 1);
+        return { x: label, y: m && m.workability !== null ? (1 - m.workability) * 100 : null };
+      }),
+    }));
+  }, [chosen]);
+
+  function downloadMonths() {
+    if (!entries) return;
+    downloadCsv(
+      `expected-downtime-${alpha ? 'alpha' : 'oplim'}.csv`,
+      toCsv(
+        ['operation', 'worksite', 'time_zone', 'month', 'downtime_pct', 'workability_pct', 'go_start_share_pct', 'wow_mean_h', 'wow_p90_h', 'windows_per_month', 'mean_window_h', 'censored_records', 'years'],
+        entries.flatMap((e) =>
+          e.months.map((m) => [
+            e.operationName,
+            e.siteName,
+            e.timeZone,
+            m.month,
+            m.workability === null ? null : round((1 - m.workability) * 100, 2),
+            m.workability === null ? null : round(m.workability * 100, 2),
+            m.goStartShare === null ? null : round(m.goStartShare * 100, 2),
+            m.wowMeanHours,
+            m.wowP90Hours,
+            m.windowsPerMonth,
+            m.meanWindowHours,
+            m.censored,
+            m.years,
+          ]),
+        ),
+      ),
+    );
+  }
+
+  function downloadYears() {
+    if (!chosen) return;
+    downloadCsv(
+      `downtime-by-year-${alpha ? 'alpha' : 'oplim'}.csv`,
+      toCsv(
+        ['operation', 'worksite', 'year', 'month', 'downtime_pct', 'workability_pct', 'go_start_share_pct', 'wow_mean_h', 'wow_p90_h', 'windows', 'mean_window_h', 'censored_records'],
+        chosen.yearMonths.map((m) => [
+          chosen.operationName,
+          chosen.siteName,
+          m.year,
+          m.month,
+          m.workability === null ? null : round((1 - m.workability) * 100, 2),
+          m.workability === null ? null : round(m.workability * 100, 2),
+          m.goStartShare === null ? null : round(m.goStartShare * 100, 2),
+          m.wowMeanHours,
+          m.wowP90Hours,
+          m.windows,
+          m.meanWindowHours,
+          m.censored,
+        ]),
+      ),
+    );
+  }
+
+  return (
+    <Card className="flex flex-col gap-4" aria-labelledby="expected-downtime-title">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h2 id="expected-downtime-title" className="text-lg font-bold">
+            Expected weather downtime by month
+          </h2>
+          <p className="mt-1 max-w-3xl text-sm text-ink-soft">
+            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months in each worksite’s time zone,{' '}
+            {alpha ? 'with the forecast limit OPWF = α × OPLIM on Hs.' : 'at OPLIM (no α).'}
+          </p>
+        </div>
+        <Button variant="secondary" className="no-print" onClick={downloadMonths} disabled={!entries || entries.length === 0}>
+          Download CSV
+        </Button>
+      </div>
+      {error ? <ErrorNotice error={error} /> : null}
+      {!entries && !error ? <Spinner label="Working through the hindcast" /> : null}
+      {entries && entries.length === 0 ? <Notice>No operation takes place at a worksite yet: add them under Sites &amp; limits.</Notice> : null}
+      {entries && entries.length > 0 ? (
+        <div className={isFetching ? 'opacity-60 transition-opacity' : 'transition-opacity'}>
+          <figure className="overflow-x-auto" data-testid="downtime-heatmap">
+            <Suspense fallback={<Spinner label="Drawing the heat map" />}>
+              <DowntimeHeatmap rows={rows} label="Expected weather downtime by month, percent of hours, for each operation at each worksite" />
+            </Suspense>
+            <figcaption className="mt-1 text-xs text-ink-soft">Numbers in the cells: downtime in % of the month’s hours with data. Grey: no data.</figcaption>
+          </figure>
+          <MonthlyTable entries={entries} />
+        </div>
+      ) : null}
+      {chosen ? (
+        <div className="flex flex-col gap-3 border-t border-line pt-4 print:break-before-page">
+          <div className="flex flex-wrap items-end justify-between gap-3">
+            <div className="flex flex-col gap-1">
+              <h3 className="text-base font-bold">Year by year</h3>
+              <label className="text-sm text-ink-soft" htmlFor="year-pair">
+                Downtime (%) of one operation at one worksite in every hindcast year
+              </label>
+              <Select id="year-pair" className="no-print max-w-md" value={String(Math.min(pick, entries!.length - 1))} onChange={(e) => setPick(Number(e.target.value))}>
+                {entries!.map((e, i) => (
+                  <option key={`${e.operationId}-${e.siteId}`} value={i}>
+                    {pairLabel(e)}
+                  </option>
+                ))}
+              </Select>
+              <p className="hidden text-sm font-semibold print:block">{pairLabel(chosen)}</p>
+            </div>
+            <Button variant="secondary" className="no-print" onClick={downloadYears}>
+              Download CSV
+            </Button>
+          </div>
+          <figure className="overflow-x-auto" data-testid="downtime-by-year">
+            <Suspense fallback={<Spinner label="Drawing the heat map" />}>
+              <DowntimeHeatmap rows={yearRows} labelWidth={64} label={`Weather downtime by year and month, percent of hours, ${pairLabel(chosen)}`} />
+            </Suspense>
+          </figure>
+          <YearTable entry={chosen} />
+        </div>
+      ) : null}
+    </Card>
+  );
+}
+
+const round = (x: number, d: number) => Math.round(x * 10 ** d) / 10 ** d;
+
+/** The same numbers as the heat map, and the other statistics, one row group per operation at a worksite. */
+function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
+  return (
+    <div className="mt-4 max-h-[36rem] overflow-auto rounded-lg border border-line print:max-h-none print:overflow-visible">
+      <table className="w-full min-w-[52rem] text-sm" data-testid="workability-table">
+        <caption className="sr-only">Expected weather downtime and workability statistics by month for each operation at each worksite</caption>
+        <thead>
+          <tr>
+            <th scope="col" className={`${th} text-left`}>
+              Month
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              Downtime
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              Workability
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              Go-start share
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              WoW mean
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              WoW P90
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              Windows per month
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              Mean window
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              Censored (records)
+            </th>
+          </tr>
+        </thead>
+        {entries.map((e) => (
+          <tbody key={`${e.operationId}-${e.siteId}`} className="break-inside-avoid">
+            <tr className="border-t border-line bg-surface-2/60">
+              <th scope="rowgroup" colSpan={9} className="px-2 py-2 text-left text-sm font-semibold">
+                {e.operationName} <span className="font-normal text-ink-soft">at {e.siteName}</span>
+                <span className="ml-2 text-xs font-normal text-ink-soft">
+                  TPOP {e.tpopHours} h, TR {e.tpopHours + e.tcHours} h, {e.timeZone}
+                </span>
+              </th>
+            </tr>
+            {e.months.map((m) => (
+              <tr key={m.month} className="border-t border-line/60">
+                <th scope="row" className="px-2 py-1 text-left font-normal whitespace-nowrap">
+                  {MONTH_LONG[m.month - 1]}
+                </th>
+                <td className={`${td} font-semibold`}>{m.workability === null ? '–' : pct(1 - m.workability)}</td>
+                <td className={td}>{pct(m.workability)}</td>
+                <td className={td}>{pct(m.goStartShare)}</td>
+                <td className={td}>{hours(m.wowMeanHours)}</td>
+                <td className={td}>{hours(m.wowP90Hours)}</td>
+                <td className={td}>{num(m.windowsPerMonth, 2)}</td>
+                <td className={td}>{hours(m.meanWindowHours)}</td>
+                <td className={td}>{m.censored}</td>
+              </tr>
+            ))}
+          </tbody>
+        ))}
+      </table>
+    </div>
+  );
+}
+
+/** Year-by-year numbers of one operation at one worksite. */
+function YearTable({ entry }: { entry: WorkabilityEntry }) {
+  return (
+    <details className="rounded-lg border border-line print:hidden">
+      <summary className="flex min-h-11 cursor-pointer items-center px-3 text-sm font-semibold">Year-by-year table ({entry.yearMonths.length} months)</summary>
+      <div className="max-h-[28rem] overflow-auto">
+        <table className="w-full min-w-[44rem] text-sm">
+          <caption className="sr-only">Weather downtime by year and month, {pairLabel(entry)}</caption>
+          <thead>
+            <tr>
+              {['Month', 'Downtime', 'Workability', 'Go-start share', 'WoW mean', 'WoW P90', 'Windows', 'Mean window'].map((h, i) => (
+                <th key={h} scope="col" className={`${th} ${i === 0 ? 'text-left' : 'text-right'}`}>
+                  {h}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {entry.yearMonths.map((m) => (
+              <tr key={`${m.year}-${m.month}`} className="border-t border-line/60">
+                <th scope="row" className="px-2 py-1 text-left font-normal whitespace-nowrap">
+                  {MONTH_SHORT[m.month - 1]} {m.year}
+                </th>
+                <td className={`${td} font-semibold`}>{m.workability === null ? '–' : pct(1 - m.workability)}</td>
+                <td className={td}>{pct(m.workability)}</td>
+                <td className={td}>{pct(m.goStartShare)}</td>
+                <td className={td}>{hours(m.wowMeanHours)}</td>
+                <td className={td}>{hours(m.wowP90Hours)}</td>
+                <td className={td}>{m.windows}</td>
+                <td className={td}>{hours(m.meanWindowHours)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </details>
+  );
+}

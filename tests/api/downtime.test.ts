@@ -1,0 +1,620 @@
+import request from 'supertest';
+import Papa from 'papaparse';
+import { quantile } from 'd3-array';
+import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { calendarIndex, evaluateHours, evaluateStatus, goStarts, LIMIT, monthlyStatistics, STATUS } from '../../shared/engine';
+import type { CampaignSimulation, LedgerEntry, LedgerMonthlyAnswer, LedgerProposeAnswer, WorkabilityEntry } from '../../shared/api-types-downtime';
+import { readSeries } from '../../server/services/series-store';
+import { loadProjectSetup, operationSpec, transformForSite } from '../../server/services/site-context';
+import { createDataset } from '../../server/services/datasets';
+import { toSeaSeries } from '../../server/services/sea-series';
+import { tallyDay, yearMonthLostHours, zonedDayMs } from '../../server/services/ledger';
+import { statsCache } from '../../server/db/schema';
+import { clearStatsMemo, settleStatsCache } from '../../server/services/workability';
+
+let t: TestApp;
+let as: Awaited<ReturnType<typeof signInAll>>;
+let base: string;
+// A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC and covers the next days; the
+// three-year invented hindcast covers 2023-2025.
+const NOW = new Date('2026-12-01T07:30:00Z');
+const HOUR = 3_600_000;
+
+beforeAll(async () => {
+  t = await createTestApp({ hindcastYears: 3, forecast: true, clock: () => NOW });
+  as = await signInAll(t.app);
+  base = `/api/projects/${t.demo.projectId}`;
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const inUnit = (x: number | null) => x === null || (x >= 0 && x <= 1);
+
+async function createOperation(body: Record<string, unknown>): Promise<string> {
+  const res = await as.coordinator.post(`${base}/operations`).send({ description: '', weatherRestricted: true, skipperIds: [], tc: 0, ...body });
+  expect(res.status, res.text).toBe(201);
+  return res.body.id;
+}
+
+describe('workability statistics', () => {
+  it('answers every operation at each of its worksites, per month and year-month, shares in [0, 1]', async () => {
+    const res = await as.client.get(`${base}/workability`);
+    expect(res.status, res.text).toBe(200);
+    expect(res.headers['x-dataset-id']).toBe(t.demo.hindcastId);
+    const entries = res.body as WorkabilityEntry[];
+    // seed/scenario-sites.ts: 2 + 2 + 1 + 2 + 1 operation-worksite pairs.
+    expect(entries).toHaveLength(8);
+    for (const e of entries) {
+      expect(e.months.map((m) => m.month)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12]);
+      // Three whole years, hourly, in Europe/London: 36 year-months (2023-01 to 2025-12).
+      expect(e.yearMonths).toHaveLength(36);
+      for (const m of [...e.months, ...e.yearMonths]) {
+        expect(inUnit(m.workability) && inUnit(m.goStartShare)).toBe(true);
+        // A go-start is a workable record: the share can not exceed workability.
+        if (m.workability !== null && m.goStartShare !== null) expect(m.goStartShare).toBeLessThanOrEqual(m.workability + 1e-9);
+        for (const k of ['wowMeanHours', 'wowP90Hours', 'windowsPerMonth', 'meanWindowHours'] as const) {
+          const v = m[k];
+          expect(v === null || (Number.isFinite(v) && v >= 0)).toBe(true);
+        }
+        if (m.meanWindowHours !== null) expect(m.meanWindowHours).toBeGreaterThanOrEqual(e.tpopHours + e.tcHours);
+        expect(m.censored).toBeGreaterThanOrEqual(0);
+      }
+      for (const m of e.months) expect(m.years).toBe(3);
+    }
+  });
+
+  it('equals the engine run step by step on the same transformed series (one operation)', async () => {
+    const entries = (await as.skipper.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+    const e = entries.find((x) => x.operationName === 'Rock berm placement')!;
+    const op = setup.operations.find((o) => o.id === e.operationId)!;
+    const site = setup.sites.find((s) => s.id === e.siteId)!;
+    const series = await readSeries(t.database.db, t.demo.hindcastId!);
+    // Transformed with the hindcast's own data point depth, as the service does.
+    const engineWithDepth = transformForSite(series, await datasetDepth(), site).engine;
+    const spec = operationSpec(op);
+    const status = evaluateStatus(engineWithDepth, spec, { alpha: true, alphaTable: setup.alphaTable });
+    const flags = goStarts(engineWithDepth.timeMs, status, HOUR, spec.tpopH + spec.tcH);
+    const stats = monthlyStatistics(engineWithDepth.timeMs, status, flags, HOUR, calendarIndex(engineWithDepth.timeMs, site.timeZone), spec.tpopH + spec.tcH);
+    for (let k = 0; k < 12; k++) {
+      const a = e.months[k];
+      const b = stats.months[k];
+      expect(a.records).toBe(b.records);
+      expect(a.workability).toBeCloseTo(b.workability!, 5);
+      expect(a.goStartShare).toBeCloseTo(b.goStartShare!, 5);
+      expect(a.censored).toBe(b.censored);
+      if (b.wowMeanHours === null) expect(a.wowMeanHours).toBeNull();
+      else expect(a.wowMeanHours).toBeCloseTo(b.wowMeanHours, 3);
+      if (b.wowP90Hours === null) expect(a.wowP90Hours).toBeNull();
+      else expect(a.wowP90Hours).toBeCloseTo(b.wowP90Hours, 3);
+      expect(a.windows).toBe(b.windows);
+    }
+  });
+
+  it('never shows less workability without alpha (Convention 14)', async () => {
+    const withAlpha = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const without = (await as.client.get(`${base}/workability?alpha=false`)).body as WorkabilityEntry[];
+    expect(without).toHaveLength(withAlpha.length);
+    let larger = 0;
+    withAlpha.forEach((e, i) => {
+      e.months.forEach((m, k) => {
+        const w = without[i].months[k].workability!;
+        expect(w).toBeGreaterThanOrEqual(m.workability! - 1e-9);
+        if (w > m.workability! + 1e-6) larger++;
+      });
+    });
+    expect(larger, 'alpha < 1 should cost some hours somewhere').toBeGreaterThan(0);
+  });
+
+  it('caches by dataset and limits version: a repeat answers the same, a limit change recomputes', async () => {
+    const first = await as.coordinator.get(`${base}/workability`);
+    const again = await as.coordinator.get(`${base}/workability`);
+    expect(again.body).toEqual(first.body);
+    const keys = async () => {
+      await settleStatsCache();
+      return (await t.database.db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).map((r) => r.key);
+    };
+    const before = (await keys()).filter((k) => k.startsWith(`${t.demo.hindcastId}:`) && k.endsWith(':true'));
+    expect(before).toHaveLength(1);
+
+    const entries = first.body as WorkabilityEntry[];
+    const pull = entries.find((e) => e.operationName === 'Cable pull-in at landfall')!;
+    const patch = await as.coordinator.patch(`${base}/operations/${pull.operationId}`).send({ limits: { hsMax: 0.5, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
+    expect(patch.status, patch.text).toBe(200);
+    const after = (await as.coordinator.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const changed = after.find((e) => e.operationId === pull.operationId && e.siteId === pull.siteId)!;
+    // A lower Hs limit: never more workable, and less in some month.
+    let lower = 0;
+    changed.months.forEach((m, k) => {
+      expect(m.workability!).toBeLessThanOrEqual(pull.months[k].workability! + 1e-9);
+      if (m.workability! < pull.months[k].workability! - 1e-6) lower++;
+    });
+    expect(lower).toBeGreaterThan(0);
+    // Other operations keep their numbers.
+    const other = after.find((e) => e.operationName === 'Rock berm placement')!;
+    expect(other.months).toEqual(entries.find((e) => e.operationName === 'Rock berm placement')!.months);
+    // One entry per dataset and variant: the old version is gone.
+    const now = (await keys()).filter((k) => k.startsWith(`${t.demo.hindcastId}:`) && k.endsWith(':true'));
+    expect(now).toHaveLength(1);
+    expect(now[0]).not.toBe(before[0]);
+    // Back as seeded.
+    await as.coordinator.patch(`${base}/operations/${pull.operationId}`).send({ limits: { hsMax: 1.0, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
+    const restored = (await as.coordinator.get(`${base}/workability`)).body as WorkabilityEntry[];
+    expect(restored).toEqual(entries);
+  });
+
+  it('answers a repeat from the stats_cache table when the process has not seen it', async () => {
+    const first = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    await settleStatsCache();
+    // Mark the stored answer, forget the in-process memo: the marked value comes back.
+    const db = t.database.db;
+    const [row] = (await db.select().from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).filter((r) => r.key.startsWith(`${t.demo.hindcastId}:`) && r.key.endsWith(':true'));
+    const stored = row.value as WorkabilityEntry[];
+    const mark = stored.find((e) => e.operationId === first[0].operationId && e.siteId === first[0].siteId)!;
+    mark.months[0].workability = 0.123456;
+    await db.update(statsCache).set({ value: stored }).where(eq(statsCache.key, row.key));
+    clearStatsMemo(db);
+    const again = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    expect(again[0].months[0].workability).toBe(0.123456);
+    // Put it back as computed.
+    mark.months[0].workability = first[0].months[0].workability;
+    await db.update(statsCache).set({ value: stored }).where(eq(statsCache.key, row.key));
+    clearStatsMemo(db);
+    expect((await as.client.get(`${base}/workability`)).body).toEqual(first);
+  });
+
+  it('downloads the same numbers as CSV', async () => {
+    const json = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const res = await as.client.get(`${base}/workability.csv`).buffer(true).parse((r, cb) => {
+      let s = '';
+      r.on('data', (c: Buffer) => (s += c));
+      r.on('end', () => cb(null, s));
+    });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/text\/csv/);
+    // papaparse (a general-purpose CSV parser from npm) reads it back.
+    const parsed = Papa.parse<Record<string, string>>(res.body as string, { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    const monthRows = parsed.data.filter((r) => r.scope === 'month');
+    expect(monthRows).toHaveLength(json.length * 12);
+    expect(parsed.data.length).toBe(json.length * 12 + json.reduce((a, e) => a + e.yearMonths.length, 0));
+    const first = monthRows[0];
+    expect(first.operation).toBe(json[0].operationName);
+    expect(Number(first.workability)).toBeCloseTo(json[0].months[0].workability!, 6);
+  });
+
+  it('refuses a forecast as the statistics dataset and unknown datasets', async () => {
+    expect((await as.client.get(`${base}/workability?dataset=${t.demo.forecastId}`)).status).toBe(400);
+    expect((await as.client.get(`${base}/workability?dataset=00000000-0000-4000-8000-000000000000`)).status).toBe(404);
+    expect((await as.client.get(`${base}/workability?alpha=maybe`)).status).toBe(400);
+  });
+});
+
+async function datasetDepth(): Promise<number | null> {
+  const res = await as.coordinator.get(`${base}/datasets/${t.demo.hindcastId}`);
+  return res.body.dataPoint.depthM;
+}
+
+describe('campaigns', () => {
+  let calmA: string;
+  let calmB: string;
+  let never: string;
+
+  beforeAll(async () => {
+    // Limits so loose that every hour of the invented hindcast is workable.
+    calmA = await createOperation({ name: 'Calm step A', tpop: 10, tc: 2, limits: { hsMax: 20, windMax: 60 }, siteIds: [t.demo.siteIds.route] });
+    calmB = await createOperation({ name: 'Calm step B', tpop: 6, tc: 0, limits: { hsMax: 20, windMax: 60 }, siteIds: [t.demo.siteIds.substation] });
+    // A Tp window no sea of the invented climate reaches.
+    never = await createOperation({ name: 'Never goes', tpop: 4, tc: 0, limits: { tpMin: 39, tpMax: 40 }, siteIds: [t.demo.siteIds.route] });
+  });
+
+  it('creates, lists, reorders and deletes a campaign; validates its steps', async () => {
+    const steps = [
+      { operationId: calmA, siteId: t.demo.siteIds.route },
+      { operationId: calmB, siteId: t.demo.siteIds.substation },
+    ];
+    const created = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Export cable nearshore', steps });
+    expect(created.status, created.text).toBe(201);
+    expect(created.body.id).toMatch(/^[0-9a-f-]{36}$/);
+    expect(created.body.timeZone).toBe('UTC');
+    const id = created.body.id;
+    const list = await as.client.get(`${base}/campaigns`);
+    expect(list.body.map((c: { id: string }) => c.id)).toContain(id);
+
+    const reordered = await as.coordinator.patch(`${base}/campaigns/${id}`).send({ steps: [steps[1], steps[0], steps[1]], timeZone: 'europe/london' });
+    expect(reordered.status, reordered.text).toBe(200);
+    expect(reordered.body.steps).toEqual([steps[1], steps[0], steps[1]]);
+    expect(reordered.body.timeZone).toBe('Europe/London');
+    expect((await as.client.get(`${base}/campaigns/${id}`)).body.steps).toEqual([steps[1], steps[0], steps[1]]);
+
+    // An operation at a worksite where it does not happen, an unknown one, no steps, too many.
+    const wrongSite = await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: [{ operationId: calmA, siteId: t.demo.siteIds.cofferdam }] });
+    expect(wrongSite.status).toBe(400);
+    expect(wrongSite.body.error.details[0].field).toBe('steps.0.siteId');
+    const unknown = await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: [{ operationId: '00000000-0000-4000-8000-000000000000', siteId: t.demo.siteIds.route }] });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.details[0].field).toBe('steps.0.operationId');
+    expect((await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: [] })).status).toBe(400);
+    expect((await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: Array(51).fill(steps[0]) })).status).toBe(400);
+    expect((await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps, timeZone: 'Mars/Olympus' })).status).toBe(400);
+    expect((await as.coordinator.patch(`${base}/campaigns/${id}`).send({})).status).toBe(400);
+
+    expect((await as.coordinator.delete(`${base}/campaigns/${id}`)).status).toBe(204);
+    expect((await as.client.get(`${base}/campaigns/${id}`)).status).toBe(404);
+  });
+
+  it('simulates: shape per start month, P50 <= P90, WoW = duration - sum of TPOP', async () => {
+    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+    const lay = setup.operations.find((o) => o.name === 'Cable lay, nearshore section')!;
+    const berm = setup.operations.find((o) => o.name === 'Rock berm placement')!;
+    const c = await as.coordinator.post(`${base}/campaigns`).send({
+      name: 'Lay and protect',
+      steps: [
+        { operationId: lay.id, siteId: t.demo.siteIds.route },
+        { operationId: berm.id, siteId: t.demo.siteIds.route },
+      ],
+    });
+    const res = await as.client.post(`${base}/campaigns/${c.body.id}/simulate`);
+    expect(res.status, res.text).toBe(200);
+    const sim = res.body as CampaignSimulation;
+    expect(sim.dataset.id).toBe(t.demo.hindcastId);
+    expect(sim.sumTpopHours).toBe(lay.tpopH + berm.tpopH);
+    expect(sim.months.map((m) => m.startMonth)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12]);
+    for (const m of sim.months) {
+      expect(m.years).toBe(3);
+      if (m.p50Hours === null) {
+        expect(m.censoredYears).toHaveLength(3);
+        continue;
+      }
+      expect(m.p50Hours).toBeGreaterThanOrEqual(sim.sumTpopHours);
+      expect(m.p90Hours!).toBeGreaterThanOrEqual(m.p50Hours);
+      expect(m.wowP50Hours!).toBeCloseTo(m.p50Hours - sim.sumTpopHours, 9);
+      expect(m.wowP90Hours!).toBeCloseTo(m.p90Hours! - sim.sumTpopHours, 9);
+      // Finish dates: the next 1st of the month at 00:00 UTC on or after now, plus the duration.
+      const start = Date.parse(m.startDate);
+      expect(new Date(start).getUTCDate()).toBe(1);
+      expect(new Date(start).getUTCMonth() + 1).toBe(m.startMonth);
+      expect(start).toBeGreaterThanOrEqual(NOW.getTime());
+      expect(start - NOW.getTime()).toBeLessThan(366 * 24 * HOUR);
+      expect(Date.parse(m.p50Finish!) - start).toBeCloseTo(m.p50Hours * HOUR, -1);
+    }
+    // Without alpha the lay is no slower (OPLIM >= OPWF).
+    const without = (await as.client.post(`${base}/campaigns/${c.body.id}/simulate?alpha=false`)).body as CampaignSimulation;
+    sim.months.forEach((m, k) => {
+      if (m.p50Hours !== null && without.months[k].p50Hours !== null) expect(without.months[k].p50Hours!).toBeLessThanOrEqual(m.p50Hours + 1e-9);
+    });
+  });
+
+  it('hand case: in a sea where every hour is workable the campaign takes the sum of TPOP, WoW 0', async () => {
+    const c = await as.coordinator.post(`${base}/campaigns`).send({
+      name: 'Calm campaign',
+      steps: [
+        { operationId: calmA, siteId: t.demo.siteIds.route },
+        { operationId: calmB, siteId: t.demo.siteIds.substation },
+        { operationId: calmA, siteId: t.demo.siteIds.route },
+      ],
+      plannedStart: '2027-04-15T00:00:00Z',
+    });
+    expect(c.status, c.text).toBe(201);
+    const sim = (await as.client.post(`${base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
+    // Hand sum: 10 + 6 + 10 = 26 h.
+    expect(sim.sumTpopHours).toBe(26);
+    for (const m of sim.months) {
+      expect(m.censoredYears).toEqual([]);
+      expect(m.p50Hours).toBe(26);
+      expect(m.p90Hours).toBe(26);
+      expect(m.wowP50Hours).toBe(0);
+      expect(m.wowP90Hours).toBe(0);
+    }
+    // With a planned start the finish dates count from the 1st of its month: April 2027 onwards.
+    const april = sim.months[3];
+    expect(april.startDate).toBe('2027-04-01T00:00:00.000Z');
+    expect(april.p50Finish).toBe('2027-04-02T02:00:00.000Z');
+    expect(sim.months[2].startDate).toBe('2028-03-01T00:00:00.000Z');
+  });
+
+  it('hand case: a step that never gets a go-start censors every year', async () => {
+    const c = await as.coordinator.post(`${base}/campaigns`).send({
+      name: 'Hopeless',
+      steps: [
+        { operationId: calmA, siteId: t.demo.siteIds.route },
+        { operationId: never, siteId: t.demo.siteIds.route },
+      ],
+    });
+    const sim = (await as.client.post(`${base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
+    for (const m of sim.months) {
+      expect(m.years).toBe(3);
+      expect(m.censoredYears).toEqual([2023, 2024, 2025]);
+      expect(m.p50Hours).toBeNull();
+      expect(m.p90Hours).toBeNull();
+      expect(m.p50Finish).toBeNull();
+    }
+  });
+
+  it('answers 409 when a stored step no longer fits the project', async () => {
+    const c = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Moves', steps: [{ operationId: calmB, siteId: t.demo.siteIds.substation }] });
+    await as.coordinator.patch(`${base}/operations/${calmB}`).send({ siteIds: [t.demo.siteIds.route] });
+    const res = await as.client.post(`${base}/campaigns/${c.body.id}/simulate`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.details[0].field).toBe('steps.0.siteId');
+    await as.coordinator.patch(`${base}/operations/${calmB}`).send({ siteIds: [t.demo.siteIds.substation] });
+  });
+});
+
+describe('the downtime ledger', () => {
+  let proposed: LedgerProposeAnswer;
+  let obsId: string;
+
+  beforeAll(async () => {
+    // A short calm observation record over 3 December 2026 (UTC = London time in winter): every
+    // operation is workable, and it must win over the forecast for that day.
+    const start = Date.UTC(2026, 11, 3);
+    const n = 24;
+    const timeMs = Float64Array.from({ length: n }, (_, i) => start + i * HOUR);
+    const obs = await createDataset(
+      t.database.db,
+      {
+        projectId: t.demo.projectId,
+        createdBy: t.demo.users.coordinator,
+        name: 'Calm buoy day (test)',
+        kind: 'observation',
+        dataPointName: 'test buoy',
+        dataPointLatitude: null,
+        dataPointLongitude: null,
+        dataPointDepthM: null,
+        sourceKind: 'upload',
+      },
+      toSeaSeries({ timeMs, hs: new Float64Array(n).fill(0.2), tp: new Float64Array(n).fill(6), dir: new Float64Array(n).fill(250), wind: new Float64Array(n).fill(3) }),
+      {},
+    );
+    obsId = obs.id;
+  });
+
+  it('proposes days from the data, observation first, then the forecast', async () => {
+    const res = await as.coordinator.post(`${base}/ledger/propose?from=2026-12-01&to=2026-12-31`);
+    expect(res.status, res.text).toBe(200);
+    proposed = res.body;
+    // The forecast starts at its issue time (06:00 UTC on 1 December): that day is not spanned.
+    for (const u of proposed.uncovered) expect(u.days).toContain('2026-12-01');
+    expect(proposed.sources.map((s) => s.kind).sort()).toEqual(['forecast', 'observation']);
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body as LedgerEntry[];
+    expect(rows.length).toBe(proposed.written);
+    expect(rows.length).toBeGreaterThan(0);
+    for (const r of rows) {
+      expect(r.status).toBe('proposed');
+      expect(r.plannedHours).toBe(24);
+      expect(r.proposedLostHours).toBeGreaterThanOrEqual(0);
+      expect(r.proposedLostHours).toBeLessThanOrEqual(24);
+      if (r.proposedLostHours === 0) expect(r.proposedLimiting).toBeNull();
+      else expect(r.proposedLimiting).not.toBeNull();
+    }
+    const dec3 = rows.filter((r) => r.day === '2026-12-03');
+    expect(dec3.length).toBe(await pairCount());
+    for (const r of dec3) {
+      expect(r.source).toBe('observation');
+      expect(r.datasetId).toBe(obsId);
+      // Hs 0.2 m, Tp 6 s, wind 3 m/s meet every seeded limit; the Tp 39-40 s operation never goes.
+      if (r.operationName === 'Never goes') expect(r).toMatchObject({ proposedLostHours: 24, proposedLimiting: 'tpMin' });
+      else expect(r).toMatchObject({ proposedLostHours: 0, proposedLimiting: null });
+    }
+  });
+
+  it('counts a forecast day as planned hours minus workable hours at OPLIM (checked hour by hour)', async () => {
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-04`)).body as LedgerEntry[];
+    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+    const series = await readSeries(t.database.db, t.demo.forecastId!);
+    const depth = (await as.coordinator.get(`${base}/datasets/${t.demo.forecastId}`)).body.dataPoint.depthM;
+    for (const r of rows) {
+      expect(r.source).toBe('forecast');
+      const site = setup.sites.find((s) => s.id === r.siteId)!;
+      const op = setup.operations.find((o) => o.id === r.operationId)!;
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      // 4 December 2026 in Europe/London (GMT): 00:00Z to 24:00Z.
+      let workable = 0;
+      const from = Date.UTC(2026, 11, 4);
+      for (let i = 0; i < series.timeMs.length; i++) {
+        if (series.timeMs[i] >= from && series.timeMs[i] < from + 24 * HOUR && ev.status[i] === STATUS.WORKABLE) workable++;
+      }
+      expect(r.proposedLostHours).toBe(24 - workable);
+    }
+  });
+
+  it('confirms a day as proposed or corrected with a note, locks it and audits it', async () => {
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-05`)).body as LedgerEntry[];
+    const [a, b] = rows;
+    // A correction without a note is refused; so are hours above the planned ones.
+    const noNote = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: (a.proposedLostHours + 3) % 24 });
+    expect(noNote.status).toBe(400);
+    expect(noNote.body.error.details[0].field).toBe('note');
+    expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: 25, note: 'x' })).status).toBe(400);
+    expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: -1, note: 'x' })).status).toBe(400);
+
+    const corrected = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: 6, limiting: 'wind', note: 'Crew change, spread stood down at noon' });
+    expect(corrected.status, corrected.text).toBe(200);
+    expect(corrected.body).toMatchObject({ status: 'confirmed', lostHours: 6, limiting: 'wind', note: 'Crew change, spread stood down at noon', confirmedBy: expect.any(String) });
+    const asIs = await as.coordinator.post(`${base}/ledger/${b.id}/confirm`).send({});
+    expect(asIs.status, asIs.text).toBe(200);
+    expect(asIs.body.lostHours).toBe(b.proposedLostHours);
+    expect(asIs.body.limiting).toBe(b.proposedLimiting);
+
+    // Locked: a second confirmation is refused.
+    expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ note: 'again' })).status).toBe(409);
+    // A new proposal leaves confirmed rows as they are.
+    const again = (await as.coordinator.post(`${base}/ledger/propose?from=2026-12-04&to=2026-12-05`)).body as LedgerProposeAnswer;
+    expect(again.keptConfirmed).toBe(2);
+    const still = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-04`)).body as LedgerEntry[];
+    expect(still.find((r) => r.id === a.id)).toMatchObject({ status: 'confirmed', lostHours: 6 });
+
+    const audit = await as.coordinator.get(`${base}/audit?entity=project`);
+    expect(audit.status).toBe(200);
+    const entry = audit.body.find((e: { entityId: string }) => e.entityId === a.id);
+    expect(entry).toMatchObject({ action: 'update', before: { status: 'proposed', lostHours: a.proposedLostHours }, after: { status: 'confirmed', lostHours: 6, corrected: true } });
+  });
+
+  it('shows clients the confirmed days only', async () => {
+    const rows = (await as.client.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body as LedgerEntry[];
+    expect(rows).toHaveLength(2);
+    for (const r of rows) expect(r.status).toBe('confirmed');
+    const monthly = (await as.client.get(`${base}/ledger/monthly`)).body as LedgerMonthlyAnswer;
+    for (const r of monthly.rows) expect(r.proposedLostHours).toBeNull();
+  });
+
+  it('totals each month against the hindcast expectation: P50/P90 as d3-array quantile (R-7)', async () => {
+    const res = await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`);
+    expect(res.status, res.text).toBe(200);
+    const answer = res.body as LedgerMonthlyAnswer;
+    expect(answer.hindcast?.id).toBe(t.demo.hindcastId);
+    expect(answer.rows).toHaveLength(await pairCount());
+    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+    const series = await readSeries(t.database.db, t.demo.hindcastId!);
+    const depth = await datasetDepth();
+    let confirmedTotal = 0;
+    for (const r of answer.rows) {
+      expect(r.month).toBe('2026-12');
+      expect(r.monthHours).toBe(744);
+      confirmedTotal += r.confirmedLostHours;
+      // Independent expectation: December lost hours in 2023, 2024, 2025 (London = UTC in
+      // December), 744 h minus the workable hours at OPLIM, then d3-array's quantile, which uses
+      // the R-7 method (a general-purpose reference library).
+      const site = setup.sites.find((s) => s.id === r.siteId)!;
+      const op = setup.operations.find((o) => o.id === r.operationId)!;
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      const lost = [2023, 2024, 2025].map((y) => {
+        const a = Date.UTC(y, 11, 1);
+        const b = Date.UTC(y + 1, 0, 1);
+        let workable = 0;
+        for (let i = 0; i < series.timeMs.length; i++) if (series.timeMs[i] >= a && series.timeMs[i] < b && ev.status[i] === STATUS.WORKABLE) workable++;
+        return 744 - workable;
+      });
+      expect(r.hindcastYears).toBe(3);
+      expect(Math.abs(r.expectedP50Hours! - quantile(lost, 0.5)!)).toBeLessThanOrEqual(0.005);
+      expect(Math.abs(r.expectedP90Hours! - quantile(lost, 0.9)!)).toBeLessThanOrEqual(0.005);
+    }
+    const confirmed = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body.filter((r: LedgerEntry) => r.status === 'confirmed');
+    expect(confirmedTotal).toBeCloseTo(confirmed.reduce((s: number, r: LedgerEntry) => s + r.lostHours!, 0), 6);
+  });
+
+  it('takes the real length of months on clock-change dates (Europe/London March: 743 h)', () => {
+    // Hourly from 2024-01-01 00:00Z to 2025-12-30 23:00Z; workable only for the first 100 records
+    // of March 2024.
+    const start = Date.UTC(2024, 0, 1);
+    const n = 8784 + 8760 - 24;
+    const timeMs = Float64Array.from({ length: n }, (_, i) => start + i * HOUR);
+    const status = new Uint8Array(n).fill(STATUS.NOT_WORKABLE);
+    const march = zonedIndex(timeMs, Date.UTC(2024, 2, 1));
+    for (let i = march; i < march + 100; i++) status[i] = STATUS.WORKABLE;
+    const cal = calendarIndex(timeMs, 'Europe/London');
+    const lost = new Map(yearMonthLostHours(timeMs, status, cal.yearMonth, HOUR, 'Europe/London'));
+    // 31 days less the hour skipped on the last Sunday of March (31 March 2024), minus 100 workable.
+    expect(lost.get(2024 * 12 + 2)).toBe(743 - 100);
+    expect(lost.get(2024 * 12 + 9)).toBe(745); // October: the hour repeated on 27 October 2024
+    // December 2025 ends after the data (last record 2025-12-30 23:00Z + 1 h): left out.
+    expect(lost.has(2025 * 12 + 11)).toBe(false);
+  });
+});
+
+/** Operation-worksite pairs of the project now (the campaign tests add three operations). */
+async function pairCount(): Promise<number> {
+  const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+  return setup.operations.reduce((a, o) => a + (o.siteIds.length === 0 ? setup.sites.length : o.siteIds.length), 0);
+}
+
+describe('ledger day arithmetic (hand cases)', () => {
+  it('takes the real length of a day in the worksite zone', () => {
+    // Europe/London: clocks go forward on 29 March 2026 and back on 25 October 2026.
+    const spring = zonedDayMs('2026-03-29', 'Europe/London');
+    expect(spring).toEqual({ startMs: Date.UTC(2026, 2, 29, 0), endMs: Date.UTC(2026, 2, 29, 23) });
+    const autumn = zonedDayMs('2026-10-25', 'Europe/London');
+    expect((autumn.endMs - autumn.startMs) / HOUR).toBe(25);
+    // Australia/Sydney in January is UTC+11: local midnight is 13:00 UTC the day before.
+    expect(zonedDayMs('2027-01-10', 'Australia/Sydney').startMs).toBe(Date.UTC(2027, 0, 9, 13));
+  });
+
+  it('counts lost hours as planned minus workable, with gaps and no data lost, and the dominant limit', () => {
+    const day = Date.UTC(2026, 5, 1);
+    // 20 hourly records from 00:00 (hours 20-23 absent): 10 workable, 6 broken by wind, 3 by Hs, 1 no data.
+    const timeMs = Float64Array.from({ length: 20 }, (_, i) => day + i * HOUR);
+    const status = new Uint8Array(20);
+    const limiting = new Uint8Array(20);
+    for (let i = 0; i < 20; i++) {
+      if (i < 10) status[i] = STATUS.WORKABLE;
+      else if (i < 16) [status[i], limiting[i]] = [STATUS.NOT_WORKABLE, LIMIT.WIND];
+      else if (i < 19) [status[i], limiting[i]] = [STATUS.NOT_WORKABLE, LIMIT.HS];
+      else status[i] = STATUS.NO_DATA;
+    }
+    // Hand count: 24 planned - 10 workable = 14 lost; wind 6 h beats no data 1 + 4 absent = 5 h and Hs 3 h.
+    expect(tallyDay(timeMs, status, limiting, HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 14, limiting: 'wind' });
+    // Two more hours of no data and no data leads (7 h > 6 h).
+    status[9] = STATUS.NO_DATA;
+    status[8] = STATUS.NO_DATA;
+    expect(tallyDay(timeMs, status, limiting, HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 16, limiting: 'noData' });
+    // A wholly workable day loses nothing and names no limit; records of the next day do not count.
+    const calm = Float64Array.from({ length: 48 }, (_, i) => day + i * HOUR);
+    expect(tallyDay(calm, new Uint8Array(48).fill(STATUS.WORKABLE), new Uint8Array(48), HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 0, limiting: null });
+    // Three-hourly records stand for three hours each.
+    const coarse = Float64Array.from({ length: 8 }, (_, i) => day + i * 3 * HOUR);
+    const st = Uint8Array.from([3, 3, 1, 1, 3, 3, 3, 3]);
+    expect(tallyDay(coarse, st, Uint8Array.from([0, 0, 7, 7, 0, 0, 0, 0]), 3 * HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 6, limiting: 'wind' });
+  });
+});
+
+function zonedIndex(timeMs: Float64Array, t: number): number {
+  return timeMs.findIndex((x) => x >= t);
+}
+
+describe('who may do what', () => {
+  it('lets clients read workability, campaigns and the ledger, and nothing more', async () => {
+    const c = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Role check', steps: [{ operationId: t.demo.operationIds[0], siteId: t.demo.siteIds.cofferdam }] });
+    expect(c.status, c.text).toBe(201);
+    const id = c.body.id;
+    for (const who of [as.client, as.skipper]) {
+      expect((await who.get(`${base}/workability`)).status).toBe(200);
+      expect((await who.get(`${base}/campaigns`)).status).toBe(200);
+      expect((await who.get(`${base}/campaigns/${id}`)).status).toBe(200);
+      expect((await who.post(`${base}/campaigns/${id}/simulate`)).status).toBe(200);
+      expect((await who.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).status).toBe(200);
+      expect((await who.get(`${base}/ledger/monthly`)).status).toBe(200);
+      expect((await who.post(`${base}/campaigns`).send({ name: 'No', steps: c.body.steps })).status).toBe(403);
+      expect((await who.patch(`${base}/campaigns/${id}`).send({ name: 'No' })).status).toBe(403);
+      expect((await who.delete(`${base}/campaigns/${id}`)).status).toBe(403);
+      expect((await who.post(`${base}/ledger/propose?from=2026-12-01&to=2026-12-02`)).status).toBe(403);
+    }
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-06&to=2026-12-06`)).body as LedgerEntry[];
+    expect((await as.client.post(`${base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(403);
+    expect((await as.skipper.post(`${base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(403);
+    // Administrators act as coordinators.
+    expect((await as.admin.post(`${base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(200);
+  });
+
+  it('answers 401 to anonymous callers', async () => {
+    const anon = request(t.app);
+    expect((await anon.get(`${base}/workability`)).status).toBe(401);
+    expect((await anon.get(`${base}/workability.csv`)).status).toBe(401);
+    expect((await anon.get(`${base}/campaigns`)).status).toBe(401);
+    expect((await anon.post(`${base}/campaigns`).send({})).status).toBe(401);
+    expect((await anon.get(`${base}/ledger?from=2026-12-01&to=2026-12-02`)).status).toBe(401);
+    expect((await anon.post(`${base}/ledger/propose?from=2026-12-01&to=2026-12-02`)).status).toBe(401);
+  });
+
+  it('answers 404 for another project and for ids of this project asked through another', async () => {
+    const other = `/api/projects/${t.demo.secondProjectId}`;
+    // The client is not a member of the second project.
+    expect((await as.client.get(`${other}/workability`)).status).toBe(404);
+    expect((await as.client.get(`${other}/campaigns`)).status).toBe(404);
+    expect((await as.client.get(`${other}/ledger?from=2026-12-01&to=2026-12-02`)).status).toBe(404);
+    // The coordinator is, but this project's campaign and ledger entry are not the second's.
+    const list = (await as.coordinator.get(`${base}/campaigns`)).body;
+    expect((await as.coordinator.get(`${other}/campaigns/${list[0].id}`)).status).toBe(404);
+    expect((await as.coordinator.post(`${other}/campaigns/${list[0].id}/simulate`)).status).toBe(404);
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-07&to=2026-12-07`)).body as LedgerEntry[];
+    expect((await as.coordinator.post(`${other}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(404);
+    expect((await as.coordinator.post(`${base}/ledger/not-an-id/confirm`).send({})).status).toBe(404);
+    // Ranges are checked.
+    expect((await as.coordinator.get(`${base}/ledger?from=2026-12-05&to=2026-12-01`)).status).toBe(400);
+    expect((await as.coordinator.get(`${base}/ledger?from=2026-01-01&to=2026-12-31`)).status).toBe(400);
+    expect((await as.coordinator.get(`${base}/ledger?from=2026-02-30&to=2026-03-01`)).status).toBe(400);
+  });
+});

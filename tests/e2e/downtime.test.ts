@@ -1,0 +1,78 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+
+let server: RunningServer;
+let browser: Browser;
+
+// The first start seeds the demo with a 20-year invented hindcast: allow for it.
+beforeAll(async () => {
+  server = await startServer();
+  browser = await openBrowser();
+}, 180_000);
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+/** A month the demo forecast covers: the fake service's forecast runs from its issue time for days ahead. */
+const coveredMonth = () => new Date(Date.now() + 2 * 86_400_000).toISOString().slice(0, 7);
+
+async function openDowntime(email: string): Promise<void> {
+  const { page } = browser;
+  await signInAs(page, server.baseUrl, email);
+  await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
+  await page.getByRole('navigation', { name: 'Project' }).waitFor();
+  await page.getByRole('link', { name: 'Downtime' }).click();
+  await page.getByRole('heading', { name: 'Downtime schedule' }).waitFor();
+  await page.goto(`${page.url().split('?')[0]}?month=${coveredMonth()}`);
+}
+
+async function signOut(): Promise<void> {
+  const { page } = browser;
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await page.getByRole('button', { name: 'Sign in' }).waitFor();
+}
+
+describe('the downtime schedule in the browser', () => {
+  it('lets the coordinator propose the ledger for a month and confirm a day', async () => {
+    const { page } = browser;
+    await openDowntime('coordinator@example.com');
+    await page.getByRole('button', { name: 'Propose from data' }).click();
+    await page.getByText(/days? proposed/).waitFor({ timeout: 60_000 });
+    const confirm = page.getByRole('button', { name: /^Confirm \d{4}-\d{2}-\d{2},/ }).first();
+    await confirm.waitFor();
+    const label = (await confirm.getAttribute('aria-label'))!;
+    await confirm.click();
+    await page.getByRole('form', { name: label }).waitFor();
+    await page.getByRole('button', { name: 'Confirm day' }).click();
+    await page.getByRole('form', { name: label }).waitFor({ state: 'detached' });
+    const table = page.getByTestId('ledger-table');
+    await table.getByText(/Confirmed/).first().waitFor();
+    expect(await table.getByText(/Confirmed/).count()).toBe(1);
+    // The monthly totals count the confirmed day.
+    expect(await page.getByTestId('ledger-monthly-table').getByText('1 of', { exact: false }).count()).toBe(1);
+    await screenshot(page, 'downtime-coordinator-ledger');
+    await signOut();
+  }, 150_000);
+
+  it('shows the client the heat map, the table and the confirmed ledger, without edit controls', async () => {
+    const { page } = browser;
+    await openDowntime('client@example.com');
+    // The first statistics of the 20-year hindcast are computed cold on this request.
+    const heatmap = page.getByTestId('downtime-heatmap');
+    await heatmap.locator('svg').first().waitFor({ timeout: 90_000 });
+    // Every operation at each worksite has a row of 12 month cells with their values written in.
+    expect(await heatmap.locator('svg text').filter({ hasText: /^\d{1,3}$/ }).count()).toBeGreaterThanOrEqual(8 * 12);
+    const table = page.getByTestId('workability-table');
+    await table.waitFor();
+    expect(await table.getByRole('row', { name: /^January/ }).count()).toBe(8);
+    expect(await page.getByRole('button', { name: /Propose|New campaign|Edit campaign|Delete|^Confirm/ }).count()).toBe(0);
+    // The day the coordinator confirmed; nothing merely proposed.
+    const ledger = page.getByTestId('ledger-table');
+    await ledger.waitFor();
+    expect(await ledger.getByText('Confirmed').count()).toBe(1);
+    expect(await ledger.getByText('Proposed').count()).toBe(0);
+    await screenshot(page, 'downtime-client');
+    await signOut();
+  }, 150_000);
+});
