@@ -3,8 +3,7 @@
 // reads what the run did; the skipper (subscribed to their operations by default) is e-mailed, and
 // the administrator reads that e-mail in the Mailbox. Clients see no coordinator tools.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
 
 let server: RunningServer;
 let browser: Browser;
@@ -19,21 +18,13 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function demoProjectId(page: Page): Promise<string> {
-  const res = await page.request.get(`${server.baseUrl}/api/projects`);
-  expect(res.ok()).toBe(true);
-  const projects = (await res.json()) as { id: string; name: string }[];
-  const demo = projects.find((p) => /Varrow Reach/.test(p.name));
-  expect(demo).toBeDefined();
-  return demo!.id;
-}
 
 describe('alerts', () => {
   it('lets the coordinator re-plan now and see what the run did', async () => {
     const { page, context } = browser;
     await context.clearCookies();
     await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page);
+    const projectId = await demoProjectId(page, server.baseUrl);
     await page.goto(`${server.baseUrl}/projects/${projectId}/alerts`);
     await page.getByRole('heading', { name: 'What I hear about' }).waitFor({ timeout: 30_000 });
 
@@ -88,7 +79,7 @@ describe('alerts', () => {
     const { page, context } = browser;
     await context.clearCookies();
     await signInAs(page, server.baseUrl, 'client@example.com');
-    const projectId = await demoProjectId(page);
+    const projectId = await demoProjectId(page, server.baseUrl);
     await page.goto(`${server.baseUrl}/projects/${projectId}/alerts`);
     await page.getByTestId('subscription-form').waitFor({ timeout: 30_000 });
     await page.getByRole('heading', { name: 'Recent alerts' }).waitFor();

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { PlanAnswer } from '../../shared/api-types-plan';
 import type { OperationResponse } from '../../shared/api-types-sites';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
 
 let server: RunningServer;
 let browser: Browser;
@@ -19,14 +19,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function demoProjectId(page: Page): Promise<string> {
-  const res = await page.request.get(`${server.baseUrl}/api/projects`);
-  expect(res.ok()).toBe(true);
-  const projects = (await res.json()) as { id: string; name: string }[];
-  const demo = projects.find((p) => /Varrow Reach/.test(p.name));
-  expect(demo).toBeDefined();
-  return demo!.id;
-}
 
 async function openBoard(page: Page, projectId: string, query = ''): Promise<void> {
   await page.goto(`${server.baseUrl}/projects/${projectId}/board${query}`);
@@ -53,7 +45,7 @@ describe('the watch board', () => {
     const { page, context } = browser;
     await context.clearCookies();
     await signInAs(page, server.baseUrl, 'skipper@example.com');
-    const projectId = await demoProjectId(page);
+    const projectId = await demoProjectId(page, server.baseUrl);
     await openBoard(page, projectId);
 
     // A skipper starts on their own operations, and never sees the forecast fetch.
@@ -100,7 +92,7 @@ describe('the watch board', () => {
     const { page, context } = browser;
     await context.clearCookies();
     await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page);
+    const projectId = await demoProjectId(page, server.baseUrl);
     const opsRes = await page.request.get(`${server.baseUrl}/api/projects/${projectId}/operations`);
     expect(opsRes.ok()).toBe(true);
     const op = ((await opsRes.json()) as OperationResponse[]).find((o) => o.name === 'ROV burial survey');

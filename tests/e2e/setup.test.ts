@@ -8,7 +8,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { AuditEntryResponse, OperationResponse } from '../../shared/api-types-sites';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
 
 let server: RunningServer;
 let browser: Browser;
@@ -22,14 +22,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-async function demoProjectId(page: Page): Promise<string> {
-  const res = await page.request.get(`${server.baseUrl}/api/projects`);
-  expect(res.ok()).toBe(true);
-  const projects = (await res.json()) as { id: string; name: string }[];
-  const demo = projects.find((p) => /Varrow Reach/.test(p.name));
-  expect(demo).toBeDefined();
-  return demo!.id;
-}
 
 async function openTab(page: Page, projectId: string, tab: string): Promise<void> {
   await page.goto(`${server.baseUrl}/projects/${projectId}/setup?tab=${tab}`);
@@ -43,7 +35,7 @@ describe('sites & limits', () => {
     const { page, context } = browser;
     await context.clearCookies();
     await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page);
+    const projectId = await demoProjectId(page, server.baseUrl);
     await openTab(page, projectId, 'operations');
 
     const card = page.getByTestId('operation-card').filter({ hasText: OPERATION });
@@ -98,7 +90,7 @@ describe('sites & limits', () => {
     const { page, context } = browser;
     await context.clearCookies();
     await signInAs(page, server.baseUrl, 'client@example.com');
-    const projectId = await demoProjectId(page);
+    const projectId = await demoProjectId(page, server.baseUrl);
     const noEditing = /^(Edit|Add|Delete|Save|Reset|Import|Replace|Remove|\+)/;
 
     await openTab(page, projectId, 'operations');

@@ -119,3 +119,13 @@ export async function signInAs(page: Page, baseUrl: string, email: string, passw
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByTestId('signed-in-as').waitFor();
 }
+
+/** The demo project's id, read through the signed-in page's own session. */
+export async function demoProjectId(page: Page, baseUrl: string): Promise<string> {
+  const res = await page.request.get(`${baseUrl}/api/projects`);
+  if (!res.ok()) throw new Error(`GET /api/projects answered ${res.status()}`);
+  const projects = (await res.json()) as { id: string; name: string }[];
+  const demo = projects.find((p) => /Varrow Reach/.test(p.name));
+  if (!demo) throw new Error('the demo project is not in the list');
+  return demo.id;
+}
