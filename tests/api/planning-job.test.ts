@@ -191,3 +191,28 @@ describe('the calendar feed', () => {
     expect((await request(t.app).get(path)).status).toBe(404);
   });
 });
+
+describe('the daily digest', () => {
+  it('goes once per local day, at or after the chosen local time', async () => {
+    const { queueDigests } = await import('../../jobs/digest');
+    await as.client.put(`/api/projects/${t.demo.projectId}/subscription`).send({
+      operationIds: [], siteIds: [], immediate: false, digest: true, digestTime: '07:30', digestTimeZone: 'Europe/Oslo', active: true,
+    });
+    const clientMails = () => inbox().filter((m) => m.to.includes('client@example.com'));
+    const before = clientMails().length;
+    // Europe/Oslo is UTC+1 in December: 07:30 local is 06:30 UTC.
+    now = new Date('2026-12-03T06:20:00Z');
+    expect(await queueDigests(t.deps)).toBe(0);
+    now = new Date('2026-12-03T06:40:00Z');
+    expect(await queueDigests(t.deps)).toBe(1);
+    expect(await queueDigests(t.deps)).toBe(0);
+    await deliverDueMail(t.deps.db, t.deps.mailer, now, { maxAttempts: 3, log: t.deps.log });
+    const digest = clientMails().slice(before);
+    expect(digest).toHaveLength(1);
+    expect(digest[0].subject).toMatch(/windows for Thu 3 Dec/);
+    expect(digest[0].text).toMatch(/Decision support only/);
+    // Next local day: another one.
+    now = new Date('2026-12-04T07:00:00Z');
+    expect(await queueDigests(t.deps)).toBe(1);
+  });
+});
