@@ -1,11 +1,11 @@
 // `npm run bench`: speed figures of the hot paths, printed, never asserted in unit tests.
 import os from 'node:os';
-import { runTransformBench } from './transform-bench';
+import { describeTransformBench, runTransformBench } from './transform-bench';
 import { runEngineBench } from './engine-bench';
 import { runImportBench } from './import-bench';
 
 console.log(`Lullwatch bench on ${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}\n`);
-await runTransformBench();
+console.log(describeTransformBench(await runTransformBench()));
 console.log('');
 await runEngineBench();
 console.log('');

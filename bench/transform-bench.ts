@@ -172,16 +172,19 @@ export async function runTransformBench(): Promise<TransformBenchResult> {
   };
 }
 
+/** One line of the figures, printed by `npm run bench` and when this file is run directly. */
+export function describeTransformBench(r: TransformBenchResult): string {
+  return (
+    `transform: ${BENCH_RECORDS} hourly records x ${BENCH_SITES.length} worksites, median of ${BENCH_RUNS} runs: ` +
+    `${r.medianMs.toFixed(1)} ms, ${(r.recordsPerSecond / 1e6).toFixed(1)} million record-transforms/s (one core, ` +
+    `output arrays reused); fresh output arrays: ${r.allocatingMedianMs.toFixed(1)} ms, ` +
+    `${(r.allocatingRecordsPerSecond / 1e6).toFixed(1)} million/s; fastest pass ${r.bestMs.toFixed(1)} ms ` +
+    `(${((BENCH_RECORDS * BENCH_SITES.length) / r.bestMs / 1e3).toFixed(1)} million/s); median CPU time ` +
+    `${r.medianCpuMs.toFixed(1)} ms (${((BENCH_RECORDS * BENCH_SITES.length) / r.medianCpuMs / 1e3).toFixed(1)} million/s per core)`
+  );
+}
+
 const invokedDirectly = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
 if (invokedDirectly) {
-  void runTransformBench().then((r) => {
-    console.log(
-      `transform: ${BENCH_RECORDS} hourly records x ${BENCH_SITES.length} worksites, median of ${BENCH_RUNS} runs: ` +
-        `${r.medianMs.toFixed(1)} ms, ${(r.recordsPerSecond / 1e6).toFixed(1)} million record-transforms/s (one core, ` +
-        `output arrays reused); fresh output arrays: ${r.allocatingMedianMs.toFixed(1)} ms, ` +
-        `${(r.allocatingRecordsPerSecond / 1e6).toFixed(1)} million/s; fastest pass ${r.bestMs.toFixed(1)} ms ` +
-        `(${((BENCH_RECORDS * BENCH_SITES.length) / r.bestMs / 1e3).toFixed(1)} million/s); median CPU time ` +
-        `${r.medianCpuMs.toFixed(1)} ms (${((BENCH_RECORDS * BENCH_SITES.length) / r.medianCpuMs / 1e3).toFixed(1)} million/s per core)`,
-    );
-  });
+  void runTransformBench().then((r) => console.log(describeTransformBench(r)));
 }
