@@ -1,5 +1,5 @@
 import type { AppDeps } from '../server/deps';
-import { operation, project, projectMember, worksite } from '../server/db/schema';
+import { campaign, operation, project, projectMember, worksite } from '../server/db/schema';
 import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
@@ -85,6 +85,20 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
       .returning({ id: operation.id });
     operationIds.push(row.id);
   }
+
+  // The campaign the client asks about: lay the nearshore section, place the rock berm, pull in.
+  const opId = (name: string) => operationIds[DEMO_OPERATIONS.findIndex((o) => o.name === name)];
+  await db.insert(campaign).values({
+    projectId: main.id,
+    name: 'Nearshore campaign: lay, berm, pull-in',
+    steps: [
+      { operationId: opId('Cable lay, nearshore section'), siteId: siteIds.route },
+      { operationId: opId('Rock berm placement'), siteId: siteIds.route },
+      { operationId: opId('Cable pull-in at landfall'), siteId: siteIds.cofferdam },
+    ],
+    plannedStart: new Date(Date.UTC(deps.clock().getUTCFullYear() + 1, 3, 1)),
+    timeZone: DEMO_TIME_ZONE,
+  });
 
   let hindcastId: string | null = null;
   if (hindcastYears > 0) {

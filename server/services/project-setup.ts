@@ -23,7 +23,7 @@ import {
   type SetupWorksite,
 } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
-import { operation, project, worksite } from '../db/schema';
+import { campaign, operation, project, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, notFound } from '../http/errors';
 import { getAlpha, writeAlpha } from './alpha';
@@ -41,6 +41,7 @@ export async function exportSetup(db: Db, projectId: string, now: Date): Promise
   );
   const alpha = await getAlpha(db, projectId);
   const siteName = new Map(sites.map((s) => [s.id, s.name]));
+  const campaigns = await db.select().from(campaign).where(eq(campaign.projectId, projectId)).orderBy(asc(campaign.name));
 
   const worksites: SetupWorksite[] = sites.map((s) => ({
     name: s.name,
@@ -76,6 +77,14 @@ export async function exportSetup(db: Db, projectId: string, now: Date): Promise
     alphaTable: alpha.isDefault ? null : alpha.table,
     worksites,
     operations,
+    campaigns: campaigns.map((c) => ({
+      name: c.name,
+      steps: c.steps
+        .map((st) => ({ operationName: ops.find((o) => o.id === st.operationId)?.name, siteName: siteName.get(st.siteId) }))
+        .filter((st): st is { operationName: string; siteName: string } => !!st.operationName && !!st.siteName),
+      plannedStart: c.plannedStart?.toISOString() ?? null,
+      timeZone: c.timeZone,
+    })),
   };
 }
 
@@ -187,6 +196,7 @@ export async function importSetup(
       });
     }
 
+    const opIdByKey = new Map<string, string>();
     for (const o of doc.operations) {
       const siteIds = o.siteNames.map((n) => siteIdByKey.get(nameKey(n))!);
       const [row] = await tx
@@ -194,6 +204,7 @@ export async function importSetup(
         .values({ projectId, ...operationColumns({ ...o, siteIds, skipperIds: [] }) })
         .returning();
       const op = toOperationResponse(row);
+      opIdByKey.set(nameKey(o.name), op.id);
       await recordAudit(tx, {
         projectId,
         user,
@@ -203,6 +214,19 @@ export async function importSetup(
         action: 'import',
         before: null,
         after: auditedOperation(op),
+      });
+    }
+
+    // Campaigns follow their operations and worksites: replace mode drops the old ones (their steps
+    // pointed at deleted rows); merge mode adds the document's, which only name imported rows.
+    if (mode === 'replace') await tx.delete(campaign).where(eq(campaign.projectId, projectId));
+    for (const c of doc.campaigns ?? []) {
+      await tx.insert(campaign).values({
+        projectId,
+        name: c.name,
+        steps: c.steps.map((st) => ({ operationId: opIdByKey.get(nameKey(st.operationName))!, siteId: siteIdByKey.get(nameKey(st.siteName))! })),
+        plannedStart: c.plannedStart ? new Date(c.plannedStart) : null,
+        timeZone: c.timeZone,
       });
     }
 

@@ -520,10 +520,20 @@ export const SetupProject = z.object({
  *
  * - `alphaTable`: the project's table, or null for the default table; when the key is absent an
  *   import leaves the target's table as it is.
- * - `campaigns`: reserved for campaigns; accepted and not yet read.
+ * - `campaigns`: ordered steps by operation and worksite name; every step must name an operation
+ *   and a worksite of the document.
  * - Names of worksites and of operations must be unique (by {@link nameKey}); every `siteNames`
  *   entry must name a worksite of the document.
  */
+/** A campaign in a setup document: its steps by operation and worksite name. */
+export const SetupCampaign = z.object({
+  name: z.string().trim().min(1, 'A campaign needs a name').max(120),
+  steps: z.array(z.object({ operationName: z.string().trim().min(1), siteName: z.string().trim().min(1) })).min(1).max(50),
+  plannedStart: z.iso.datetime({ offset: true }).nullish(),
+  timeZone: z.string().default('UTC'),
+});
+export type SetupCampaign = z.infer<typeof SetupCampaign>;
+
 export const ProjectSetupDocument = z
   .object({
     format: z.literal(SETUP_FORMAT, { error: `format must be "${SETUP_FORMAT}"` }),
@@ -533,7 +543,7 @@ export const ProjectSetupDocument = z
     alphaTable: alphaTableSchema.nullish(),
     worksites: z.array(SetupWorksite).max(500, 'At most 500 worksites'),
     operations: z.array(SetupOperation).max(1000, 'At most 1000 operations'),
-    campaigns: z.array(z.unknown()).optional(),
+    campaigns: z.array(SetupCampaign).max(200, 'At most 200 campaigns').optional(),
   })
   .superRefine((doc, ctx) => {
     const sites = new Set<string>();
@@ -553,6 +563,16 @@ export const ProjectSetupDocument = z
         }
       });
     });
+    (doc.campaigns ?? []).forEach((c, i) =>
+      c.steps.forEach((step, j) => {
+        if (!ops.has(nameKey(step.operationName))) {
+          ctx.addIssue({ code: 'custom', path: ['campaigns', i, 'steps', j, 'operationName'], message: `No operation named "${step.operationName}" in the document` });
+        }
+        if (!sites.has(nameKey(step.siteName))) {
+          ctx.addIssue({ code: 'custom', path: ['campaigns', i, 'steps', j, 'siteName'], message: `No worksite named "${step.siteName}" in the document` });
+        }
+      }),
+    );
   });
 export type ProjectSetupDocument = z.infer<typeof ProjectSetupDocument>;
 

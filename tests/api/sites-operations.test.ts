@@ -560,6 +560,16 @@ describe('setup export and import', () => {
     expect(opB.siteIds.sort()).toEqual([northB.id, sitesB.find((s) => s.name === south.name)!.id].sort());
     expect(opB.skipperIds).toEqual([]);
 
+    // Campaigns travel by name: the demo's campaign arrives with B's own operation and site ids.
+    expect(doc.campaigns.map((c: { name: string }) => c.name)).toEqual(['Nearshore campaign: lay, berm, pull-in']);
+    const campaignsB = (await as.coordinator.get(`/api/projects/${B}/campaigns`)).body as { name: string; steps: { operationId: string; siteId: string }[] }[];
+    expect(campaignsB.map((c) => c.name)).toEqual(['Nearshore campaign: lay, berm, pull-in']);
+    const idsB = new Set([...opsB.map((o) => o.id), ...sitesB.map((s) => s.id)]);
+    for (const st of campaignsB[0].steps) expect(idsB.has(st.operationId) && idsB.has(st.siteId)).toBe(true);
+    expect(campaignsB[0].steps.map((st) => opsB.find((o) => o.id === st.operationId)!.name)).toEqual(
+      doc.campaigns[0].steps.map((st: { operationName: string }) => st.operationName),
+    );
+
     const audit = await as.coordinator.get(`/api/projects/${B}/audit?entity=project&limit=1`);
     expect(audit.body[0]).toMatchObject({ action: 'import', userName: 'Demo Coordinator' });
 
@@ -606,12 +616,14 @@ describe('setup export and import', () => {
     doc.worksites[0].timeZone = 'Atlantis/Capital';
     doc.operations[1].limits = { hsMax: -1 };
     doc.operations[0].siteNames = ['No such berth'];
-    doc.campaigns = [{ name: 'later' }]; // tolerated, not used
+    doc.campaigns = [{ name: 'Later', steps: [{ operationName: 'No such operation', siteName: doc.worksites[1].name }] }];
 
     const before = await rowCounts(B);
     const res = await as.coordinator.post(`/api/projects/${B}/import?mode=replace`).send(doc);
     expect(res.status).toBe(400);
-    expect(fields(res)).toEqual(expect.arrayContaining(['worksites.0.timeZone', 'operations.1.limits.hsMax', 'operations.0.siteNames.0']));
+    expect(fields(res)).toEqual(
+      expect.arrayContaining(['worksites.0.timeZone', 'operations.1.limits.hsMax', 'operations.0.siteNames.0', 'campaigns.0.steps.0.operationName']),
+    );
     expect(await rowCounts(B)).toEqual(before);
 
     for (const bad of [{ ...exported.body, format: 'other' }, { ...exported.body, version: 2 }, {}]) {
