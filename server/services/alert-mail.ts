@@ -34,6 +34,22 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
   }
 }
 
+/** A change in a few words, for the subject line a phone shows. */
+export function shortChange(c: ChangeWithReason, timeZone: string): string {
+  switch (c.kind) {
+    case 'window_opened':
+      return `new window from ${localTime(c.start!, timeZone)}`;
+    case 'window_lost':
+      return `window lost (${localTime(c.start!, timeZone)})`;
+    case 'earliest_moved':
+      return `earliest start now ${localTime(c.start!, timeZone)}`;
+    case 'start_now_changed':
+      return c.startNow ? 'may start now' : 'may no longer start now';
+    case 'occurrence_no_go':
+      return `no-go at ${localTime(c.start!, timeZone)}`;
+  }
+}
+
 /** Signed unsubscribe link: HMAC-SHA256 over the user and project. */
 export function unsubscribeToken(secret: string, userId: string, projectId: string): string {
   return crypto.createHmac('sha256', secret).update(`unsubscribe:${userId}:${projectId}`).digest('base64url');
@@ -57,7 +73,8 @@ export function alertEmail(args: {
 }): { subject: string; text: string; html: string } {
   const { plan, changes } = args;
   const lines = changes.map((c) => describeChange(c, plan));
-  const headline = changes.length === 1 ? lines[0].split(':')[0] : `${changes.length} changes`;
+  const more = changes.length > 1 ? ` (+${changes.length - 1} more)` : '';
+  const headline = `${shortChange(changes[0], plan.timeZone)}${more}`;
   const subject = `${plan.operationName} at ${plan.siteName}: ${headline}`;
   const text = [
     `${plan.operationName} at ${plan.siteName} (${args.projectName})`,
