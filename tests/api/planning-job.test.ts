@@ -37,6 +37,8 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
       // Only the skipper is subscribed (by default, to the operations assigned to them).
       expect(m.to).toEqual(['skipper@example.com']);
       expect(SKIPPER_OPS.some((name) => m.subject.startsWith(name))).toBe(true);
+      // The subject says what changed, readable on a phone's lock screen.
+      expect(m.subject).toMatch(/: (new window from|window lost|earliest start now|may start now|may no longer start now|no-go at)( |$)/);
       expect(m.text).toMatch(/Decision support only/);
       expect(m.text).toContain(`/projects/${t.demo.projectId}/board`);
       expect(m.html).toContain('<ul');
