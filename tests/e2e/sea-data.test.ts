@@ -69,9 +69,9 @@ describe('sea data pages', () => {
     expect(progress.maxSentPct).toBe(100);
 
     await page.getByRole('heading', { name: '44014h2017' }).waitFor();
-    expect(await page.getByText(`Imported ${NDBC_ROWS} records`).isVisible()).toBe(true);
-    expect(await page.getByText(`${NDBC_ROWS}, every 1 h`).isVisible()).toBe(true);
-    expect(await page.getByText('44014h2017.txt (NDBC text)').first().isVisible()).toBe(true);
+    await page.getByText(`Imported ${NDBC_ROWS} records`).waitFor(); // fails the test if it never appears
+    await page.getByText(`${NDBC_ROWS}, every 1 h`).waitFor(); // fails the test if it never appears
+    await page.getByText('44014h2017.txt (NDBC text)').first().waitFor(); // fails the test if it never appears
     // The lazily loaded chart and the monthly summary appear.
     await page.getByTestId('series-chart').waitFor({ timeout: 30_000 });
     await page.getByTestId('monthly-table').waitFor();

@@ -82,7 +82,7 @@ describe('wave lab in the browser', () => {
     expect(Math.abs(shownC - celerity) / celerity).toBeLessThan(1e-4);
     // d/L = 10/92.4 = 0.108: intermediate depth (shallow below 1/20, deep above 1/2; common practice).
     expect(await page.getByTestId('depth-class').textContent()).toMatch(/Intermediate depth/);
-    expect(await page.getByTestId('linear-caution').isVisible()).toBe(true);
+    await page.getByTestId('linear-caution').waitFor(); // fails the test if it never appears
     await page.locator('figure svg').first().waitFor(); // the lazily loaded profile chart
     await screenshot(page, 'wave-lab-regular');
 
