@@ -10,7 +10,7 @@ import { useCreateCampaign } from '../api/create-campaign';
 import { useUpdateCampaign } from '../api/update-campaign';
 import { useDeleteCampaign } from '../api/delete-campaign';
 import { useSimulation } from '../api/simulate-campaign';
-import { downloadCsv, slug, toCsv } from './csv';
+import { downloadCsv, slug, toCsv } from '../../../lib/csv';
 import { dateIn, days, hours, MONTH_LONG } from './format';
 
 const th = 'sticky top-0 bg-surface-2 px-2 py-2 text-xs font-semibold text-ink-soft';

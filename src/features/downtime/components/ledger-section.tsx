@@ -7,7 +7,7 @@ import { useLedger } from '../api/get-ledger';
 import { useLedgerMonthly } from '../api/get-ledger-monthly';
 import { useProposeLedger } from '../api/propose-ledger';
 import { useConfirmLedger } from '../api/confirm-ledger';
-import { downloadCsv, toCsv } from './csv';
+import { downloadCsv, toCsv } from '../../../lib/csv';
 import { dayWords, hours, monthRange, monthWords } from './format';
 
 const th = 'sticky top-0 bg-surface-2 px-2 py-2 text-xs font-semibold text-ink-soft';

@@ -1,7 +1,7 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
 import type { WorkabilityEntry } from '../../../../shared/api-types-downtime';
 import { Button, Card, ErrorNotice, Notice, Select, Spinner } from '../../../components/ui';
-import { downloadCsv, toCsv } from './csv';
+import { downloadCsv, toCsv } from '../../../lib/csv';
 import { hours, MONTH_LONG, MONTH_SHORT, num, pct } from './format';
 import type { HeatRow } from './downtime-heatmap';
 

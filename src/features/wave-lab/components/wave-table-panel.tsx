@@ -7,7 +7,8 @@ import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { formatSig } from '../utils/format-number';
 import { serverFieldErrors } from '../utils/server-field-errors';
 import { validateFields } from '../utils/validate-fields';
-import { downloadText, waveTableCsv } from '../utils/wave-table-csv';
+import { waveTableCsv } from '../utils/wave-table-csv';
+import { downloadCsv } from '../../../lib/csv';
 import { NumberField } from './number-field';
 import { TYPING_DEBOUNCE_MS } from './regular-wave-panel';
 import { ResultStatus } from './result-status';
@@ -89,7 +90,7 @@ function WaveTable({ rows, typing, fetching, lastValid }: { rows: WaveTableRow[]
   const download = () => {
     const step = rows.length > 1 ? rows[1].dOverL0 - rows[0].dOverL0 : 0;
     const name = `wave-table_dL0_${first}-${last}${rows.length > 1 ? `_step-${Number(step.toPrecision(6))}` : ''}.csv`;
-    downloadText(name, waveTableCsv(shown.map((r) => r.original)));
+    downloadCsv(name, waveTableCsv(shown.map((r) => r.original)));
   };
 
   return (

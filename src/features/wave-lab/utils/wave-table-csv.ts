@@ -1,4 +1,5 @@
 import type { WaveTableRow } from '../../../../shared/waves/wave-table';
+import { toCsv } from '../../../lib/csv';
 
 /** The wave-table columns in handbook order, with the plain CSV header of each. */
 export const WAVE_TABLE_CSV_COLUMNS: { key: keyof WaveTableRow; header: string }[] = [
@@ -21,21 +22,8 @@ export const WAVE_TABLE_CSV_COLUMNS: { key: keyof WaveTableRow; header: string }
  * (shortest round-trip form) so nothing is lost; a non-finite value is left empty.
  */
 export function waveTableCsv(rows: readonly WaveTableRow[]): string {
-  const lines = [WAVE_TABLE_CSV_COLUMNS.map((c) => c.header).join(',')];
-  for (const row of rows) {
-    lines.push(WAVE_TABLE_CSV_COLUMNS.map((c) => (Number.isFinite(row[c.key]) ? String(row[c.key]) : '')).join(','));
-  }
-  return lines.join('\r\n') + '\r\n';
-}
-
-/** Offers text as a file download in the browser. */
-export function downloadText(fileName: string, text: string, type = 'text/csv;charset=utf-8'): void {
-  const url = URL.createObjectURL(new Blob([text], { type }));
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = fileName;
-  document.body.appendChild(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
+  return toCsv(
+    WAVE_TABLE_CSV_COLUMNS.map((c) => c.header),
+    rows.map((row) => WAVE_TABLE_CSV_COLUMNS.map((c) => row[c.key])),
+  );
 }

@@ -1,4 +1,4 @@
-// CSV built in the browser for every table of the page ("Download CSV").
+// CSV built in the browser for the "Download CSV" buttons of every feature.
 
 /** One CSV field: quoted when needed; a leading =, +, - or @ is defused for spreadsheets. */
 export function csvField(v: string | number | boolean | null | undefined): string {
@@ -16,8 +16,8 @@ export function toCsv(header: string[], rows: (string | number | boolean | null 
 }
 
 /** Hands a CSV document to the browser as a download. */
-export function downloadCsv(fileName: string, text: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type: 'text/csv;charset=utf-8' }));
+export function downloadCsv(fileName: string, text: string, type = 'text/csv;charset=utf-8'): void {
+  const url = URL.createObjectURL(new Blob([text], { type }));
   const a = document.createElement('a');
   a.href = url;
   a.download = fileName;
