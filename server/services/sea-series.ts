@@ -1,4 +1,5 @@
 import { completePeriodSeries } from '../../shared/waves';
+import { detectStepMinutes } from '../../shared/seadata';
 import type { SeaSeries } from './series-store';
 
 /** Raw columns as read from a file or a service; NaN = missing; any period may be absent. */
@@ -39,10 +40,9 @@ export const SERIES_VARIABLES = ['hs', 'tp', 'tz', 'te', 'dir', 'wind', 'windDir
 /** Coverage figures of a series: step (median spacing), variables present, missing counts, derived periods. */
 export function describeSeries(s: SeaSeries) {
   const n = s.timeMs.length;
-  const spacings = new Float64Array(Math.max(0, n - 1));
-  for (let i = 1; i < n; i++) spacings[i - 1] = s.timeMs[i] - s.timeMs[i - 1];
-  spacings.sort();
-  const stepMinutes = spacings.length ? spacings[Math.floor((spacings.length - 1) / 2)] / 60_000 : 60;
+  // Median spacing (DOMAIN Convention 9), as the engine's detectStepMs takes it; one record: 1 h.
+  const median = detectStepMinutes(s.timeMs);
+  const stepMinutes = Number.isNaN(median) ? 60 : median;
   const missing: Record<string, number> = {};
   const variables: string[] = [];
   for (const v of SERIES_VARIABLES) {
