@@ -4,7 +4,7 @@ import type { AppDeps } from '../deps';
 import { requireUser } from '../http/context';
 import { parseInput } from '../http/errors';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
-import { createProject, getProject, listMembers, listProjects, updateProjectSettings } from '../services/projects';
+import { createProject, getProject, requireProjectCreator, listMembers, listProjects, updateProjectSettings } from '../services/projects';
 
 export function projectRoutes({ db }: AppDeps): Router {
   const router = Router();
@@ -16,7 +16,8 @@ export function projectRoutes({ db }: AppDeps): Router {
 
   /** POST /api/projects `{ name, description? }`: admins and coordinators; the creator coordinates it. */
   router.post('/projects', async (req, res) => {
-    const user = requireUser(req);
+    // The role check comes before the body check: a caller who may not create projects gets 403 whatever they send.
+    const user = await requireProjectCreator(db, requireUser(req));
     const input = parseInput(CreateProjectInput, req.body);
     res.status(201).json(await createProject(db, user, input));
   });

@@ -21,18 +21,23 @@ export async function listProjects(db: Db, user: SessionUser): Promise<ProjectSu
   return all.map((p) => mine.get(p.id) ?? { ...p, role: 'admin' as const });
 }
 
-/** Admins, and users who coordinate at least one project, may open a new project. */
-export async function createProject(db: Db, user: SessionUser, input: CreateProjectInput): Promise<ProjectSummary> {
-  if (user.role !== 'admin') {
-    const coordinates = await db
-      .select({ id: projectMember.id })
-      .from(projectMember)
-      .where(and(eq(projectMember.userId, user.id), eq(projectMember.role, 'coordinator')))
-      .limit(1);
-    if (coordinates.length === 0) {
-      throw new HttpError('forbidden', 'Only administrators and coordinators can create projects');
-    }
+/** Admins, and users who coordinate at least one project, may open a new project; 403 for anyone else. */
+export async function requireProjectCreator(db: Db, user: SessionUser): Promise<SessionUser> {
+  if (user.role === 'admin') return user;
+  const coordinates = await db
+    .select({ id: projectMember.id })
+    .from(projectMember)
+    .where(and(eq(projectMember.userId, user.id), eq(projectMember.role, 'coordinator')))
+    .limit(1);
+  if (coordinates.length === 0) {
+    throw new HttpError('forbidden', 'Only administrators and coordinators can create projects');
   }
+  return user;
+}
+
+/** Opens a new project for a caller `requireProjectCreator` lets through; the creator coordinates it. */
+export async function createProject(db: Db, user: SessionUser, input: CreateProjectInput): Promise<ProjectSummary> {
+  await requireProjectCreator(db, user);
   return db.transaction(async (tx) => {
     const [created] = await tx
       .insert(project)
