@@ -1,7 +1,8 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray, ne } from 'drizzle-orm';
 import type { SubscriptionInput } from '../../shared/schemas/alerts';
 import type { Db } from '../db/client';
-import { operation, projectMember, subscription, user } from '../db/schema';
+import { operation, projectMember, subscription, user, worksite } from '../db/schema';
+import { HttpError } from '../http/errors';
 
 export interface EffectiveSubscription extends SubscriptionInput {
   userId: string;
@@ -57,10 +58,33 @@ export async function mySubscription(db: Db, userId: string, projectId: string):
 }
 
 export async function saveSubscription(db: Db, userId: string, projectId: string, input: SubscriptionInput): Promise<void> {
+  await refuseForeignIds(db, projectId, input);
   await db
     .insert(subscription)
     .values({ userId, projectId, ...input })
     .onConflictDoUpdate({ target: [subscription.userId, subscription.projectId], set: { ...input, updatedAt: new Date() } });
+}
+
+/**
+ * Refuses operation or worksite ids of another project (400 naming the field), so none is stored.
+ * Ids that exist nowhere are kept: they are operations or worksites deleted since the choice was
+ * made, and the form sends the stored choice back as it was.
+ */
+async function refuseForeignIds(db: Db, projectId: string, input: SubscriptionInput): Promise<void> {
+  const checks = [
+    { field: 'operationIds', ids: input.operationIds, table: operation },
+    { field: 'siteIds', ids: input.siteIds, table: worksite },
+  ] as const;
+  for (const { field, ids, table } of checks) {
+    if (ids.length === 0) continue;
+    const foreign = await db
+      .select({ id: table.id })
+      .from(table)
+      .where(and(ne(table.projectId, projectId), inArray(table.id, [...ids])));
+    if (foreign.length === 0) continue;
+    const index = ids.indexOf(foreign[0].id);
+    throw new HttpError('validation', `Invalid body: ${field}.${index}: not in this project`, [{ field: `${field}.${index}`, message: 'not in this project' }]);
+  }
 }
 
 /** One-click unsubscribe: stores an inactive subscription (keeping any choices made before). */
