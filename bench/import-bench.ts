@@ -56,7 +56,7 @@ export async function runImportBench() {
     log: silentLogger,
     forecast: forecast.provider,
     mailer,
-    config: { baseUrl: origin, linkSecret: 'bench', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
+    config: { baseUrl: origin, trustedOrigins: [origin], linkSecret: 'bench', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
   };
   const demo = await seedDemo(deps, { hindcastYears: 0, forecast: false });
   const app = createApp(deps);

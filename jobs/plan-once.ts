@@ -64,7 +64,7 @@ if (!(await viaServer())) {
         log: consoleLogger,
         forecast: forecast.provider,
         mailer,
-        config: { baseUrl, linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6 },
+        config: { baseUrl, trustedOrigins: [new URL(baseUrl).origin], linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6 },
       },
       { projectId, trigger: 'cli' },
     );

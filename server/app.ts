@@ -7,6 +7,7 @@ import { CLIENT_IP_HEADER } from './auth';
 import type { AppDeps } from './deps';
 import { readSessionUser, setRequestUser } from './http/context';
 import { errorHandler, HttpError } from './http/errors';
+import { sameOriginOnly } from './http/same-origin';
 import { API_ROUTERS } from './routes';
 
 export interface AppOptions {
@@ -52,6 +53,9 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   // Sign-in, sign-out and sessions: the auth library's own handler, before the JSON parser.
   app.all('/api/auth/{*any}', toNodeHandler(deps.auth));
 
+  // Our own API refuses state-changing requests from other sites' pages (the auth library checks
+  // Origin on its own routes above). Before the body parser and the session lookup.
+  app.use('/api', sameOriginOnly(deps.config.trustedOrigins));
   app.use('/api', express.json({ limit: options.jsonLimit ?? '1mb' }));
   app.use('/api', async (req, _res, next) => {
     setRequestUser(req, await readSessionUser(deps.auth, req));

@@ -1,4 +1,4 @@
-import { betterAuth } from 'better-auth';
+import { APIError, betterAuth, type BetterAuthPlugin } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import { admin } from 'better-auth/plugins';
 import type { Db } from './db/client';
@@ -19,6 +19,35 @@ export interface AuthConfig {
   enforceOriginCheckInTests?: boolean;
 }
 
+/**
+ * A deactivated user who types the right password gets the same answer as a wrong password or an
+ * unknown e-mail (401 "Invalid email or password"), not the admin plugin's 403 "banned", so a
+ * sign-in attempt tells nobody that an account exists or is deactivated. It refuses the session
+ * before the admin plugin's own check, which runs after it (plugins' hooks run in list order).
+ * (An `after` hook cannot do this: the answer would keep the 403 status of the replaced error.)
+ */
+const deactivatedSignInLooksLikeWrongPassword = {
+  id: 'lullwatch-deactivated-sign-in',
+  init: () => ({
+    options: {
+      databaseHooks: {
+        session: {
+          create: {
+            async before(newSession, ctx) {
+              if (!ctx) return;
+              const found = (await ctx.context.internalAdapter.findUserById(newSession.userId)) as { banned?: boolean | null; banExpires?: Date | string | null } | null;
+              if (!found?.banned) return;
+              // An expired ban: the admin plugin lifts it and lets the sign-in through.
+              if (found.banExpires && new Date(found.banExpires).getTime() < Date.now()) return;
+              throw new APIError('UNAUTHORIZED', { code: 'INVALID_EMAIL_OR_PASSWORD', message: 'Invalid email or password' });
+            },
+          },
+        },
+      },
+    },
+  }),
+} satisfies BetterAuthPlugin;
+
 export function createAuth(db: Db, config: AuthConfig) {
   return betterAuth({
     appName: 'Lullwatch',
@@ -33,7 +62,7 @@ export function createAuth(db: Db, config: AuthConfig) {
     // Sign-up is closed: administrators create users (with a temporary password) on the admin page.
     emailAndPassword: { enabled: true, disableSignUp: true, minPasswordLength: 10 },
     session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24 },
-    plugins: [admin({ defaultRole: 'user', adminRoles: ['admin'] })],
+    plugins: [deactivatedSignInLooksLikeWrongPassword, admin({ defaultRole: 'user', adminRoles: ['admin'] })],
     rateLimit: {
       enabled: true,
       storage: 'database',

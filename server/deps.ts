@@ -23,6 +23,11 @@ export interface AppDeps {
 export interface AppConfig {
   /** Public address of the app, for links in e-mails and calendar feeds. */
   baseUrl: string;
+  /**
+   * Origins (scheme://host:port) the app's own pages are served from. State-changing API requests
+   * that carry an Origin header outside this list are refused (server/http/same-origin.ts).
+   */
+  trustedOrigins: string[];
   /** Secret that signs unsubscribe links. */
   linkSecret: string;
   /** An earliest start that moves by more than this many hours is an alert. */

@@ -27,7 +27,6 @@ const CLIENT_DIR = path.resolve(import.meta.dirname, '../dist');
 /** Opens the database, migrates it, seeds the demo scenario when empty, and serves the app. */
 export async function startLullwatch(env: Env = loadEnv(), log: Logger = consoleLogger): Promise<Running> {
   const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: path.join(env.DATA_DIR, 'db') });
-  await migrateDatabase(database);
 
   const forecast = await createForecastProvider({ forecastUrl: env.FORECAST_URL, forecastApiKey: env.FORECAST_API_KEY });
   if (forecast.fake) log.info(`No FORECAST_URL: local fake forecast service at ${forecast.fake.url}`);
@@ -52,15 +51,21 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
     log,
     forecast: forecast.provider,
     mailer,
-    config: { baseUrl: baseURL, linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6, jobToken },
+    // The same list for the auth library's Origin check and for our own API (server/http/same-origin.ts).
+    config: { baseUrl: baseURL, trustedOrigins: trustedOrigins(baseURL), linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6, jobToken },
   });
 
   const deps = makeDeps(provisionalBase);
-  const [{ n }] = await database.db.select({ n: count() }).from(user);
-  if (n === 0 && env.SEED_DEMO) {
-    log.info('Empty database: seeding the invented demo scenario');
-    await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS });
-  }
+  // Several instances may start at once on one PostgreSQL server: one migrates (and seeds an empty
+  // database) while the others wait for it, so no migration or seed runs twice.
+  await whileHoldingStartLock(database, log, async () => {
+    await migrateDatabase(database);
+    const [{ n }] = await database.db.select({ n: count() }).from(user);
+    if (n === 0 && env.SEED_DEMO) {
+      log.info('Empty database: seeding the invented demo scenario');
+      await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS });
+    }
+  });
 
   const app = createApp(deps, {
     clientDir: CLIENT_DIR,
@@ -99,12 +104,34 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
   };
 }
 
+/** Advisory-lock key of start-up work (migrations and the demo seed). */
+const START_LOCK_KEY = 1;
+/** How long an instance waits for another one's migrations and seed before giving up. */
+const START_LOCK_WAIT_MS = 10 * 60_000;
+
+async function whileHoldingStartLock(database: Database, log: Logger, fn: () => Promise<void>): Promise<void> {
+  const deadline = Date.now() + START_LOCK_WAIT_MS;
+  let told = false;
+  for (;;) {
+    const result = await database.withAdvisoryLock(START_LOCK_KEY, fn);
+    if (result.acquired) return;
+    if (Date.now() > deadline) throw new Error('Another instance held the start-up lock (migrations, seed) for over 10 minutes');
+    if (!told) log.info('Another instance is migrating or seeding the database: waiting for it');
+    told = true;
+    await new Promise((r) => setTimeout(r, 1000));
+  }
+}
+
 function trustedOrigins(baseURL: string): string[] {
-  const origins = new Set([new URL(baseURL).origin]);
-  const { port } = new URL(baseURL);
-  // The same app reached as localhost or 127.0.0.1, and the Vite dev server in development.
-  origins.add(`http://localhost:${port}`);
-  origins.add(`http://127.0.0.1:${port}`);
+  const base = new URL(baseURL);
+  const origins = new Set([base.origin]);
+  // On this machine the same app is reached as localhost or 127.0.0.1; a public address trusts only itself.
+  if (base.hostname === 'localhost' || base.hostname === '127.0.0.1') {
+    const port = base.port ? `:${base.port}` : '';
+    origins.add(`${base.protocol}//localhost${port}`);
+    origins.add(`${base.protocol}//127.0.0.1${port}`);
+  }
+  // The Vite dev server proxies the API in development.
   if (process.env.NODE_ENV !== 'production') origins.add('http://localhost:5173');
   return [...origins];
 }

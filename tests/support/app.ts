@@ -54,7 +54,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     forecast: forecast.provider,
     mailer,
     database,
-    config: { baseUrl: TEST_ORIGIN, linkSecret: 'test-link-secret', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
+    config: { baseUrl: TEST_ORIGIN, trustedOrigins: [TEST_ORIGIN], linkSecret: 'test-link-secret', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
   };
   const demo = await seedDemo(deps, { hindcastYears: options.hindcastYears ?? 0, forecast: options.forecast ?? false });
   const app = createApp(deps);
