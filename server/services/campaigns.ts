@@ -3,8 +3,9 @@
  * duration through every hindcast year for each start month (DOMAIN.md "Hindcast statistics",
  * Convention 15).
  */
+import { createHash } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
-import { evaluateStatus, goStarts, simulateCampaign, zonedMonthStartMs, zoneOffsetMs, type CampaignStep } from '../../shared/engine';
+import { evaluateStatus, goStarts, simulateCampaign, zonedMonthStartMs, zoneOffsetMs, type CampaignMonthResult, type CampaignStep } from '../../shared/engine';
 import type { CampaignMonthAnswer, CampaignResponse, CampaignSimulation } from '../../shared/api-types-downtime';
 import type { CampaignInput, CampaignPatchInput, CampaignStepInput } from '../../shared/schemas/downtime';
 import { idParam } from '../../shared/schemas/common';
@@ -12,11 +13,17 @@ import type { Db } from '../db/client';
 import { campaign } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { loadProjectSetup, sitesOf, type ProjectSetup } from './site-context';
-import { datasetSeries, forEachOperationSite, statisticsDataset } from './workability';
+import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset } from './workability';
 
 type CampaignRow = typeof campaign.$inferSelect;
 
 const MS_PER_HOUR = 3_600_000;
+
+/** Bump when the simulation or the fields kept of it change, so cached answers are not reused. */
+const SIMULATION_FORMAT = 1;
+
+/** What is cached of a start month's simulation (the per-year runs are not answered). */
+type SimulatedMonth = Omit<CampaignMonthResult, 'runs'>;
 
 export function toCampaignResponse(row: CampaignRow): CampaignResponse {
   return {
@@ -142,26 +149,36 @@ export async function simulateProjectCampaign(
   const [row, setup] = await Promise.all([statisticsDataset(db, projectId, options.datasetId), loadProjectSetup(db, projectId)]);
   if (!row) throw new HttpError('not_found', 'No hindcast to simulate on: import one under Sea data');
   assertSteps(setup, c.steps, 'conflict');
-  const series = await datasetSeries(db, row.id);
-  const stepMs = row.stepMinutes * 60_000;
-
-  // Go-start flags of each distinct (operation, worksite) step, on the transformed series.
-  const key = (opId: string, siteId: string) => `${opId}|${siteId}`;
-  const wanted = new Set(c.steps.map((s) => key(s.operationId, s.siteId)));
-  const flags = new Map<string, Uint8Array>();
-  forEachOperationSite(
-    series,
-    row,
-    setup,
-    ({ op, spec, site, engine, workspace }) => {
-      const status = evaluateStatus(engine, spec, { alpha: options.alpha, alphaTable: setup.alphaTable, out: workspace.status });
-      flags.set(key(op.id, site.id), goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
-    },
-    (opId, siteId) => wanted.has(key(opId, siteId)),
-  );
   const ops = new Map(setup.operations.map((o) => [o.id, o]));
-  const steps: CampaignStep[] = c.steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: ops.get(s.operationId)!.tpopH }));
-  const results = simulateCampaign(series.timeMs, stepMs, steps, { timeZone: c.timeZone });
+
+  // The simulation depends on the hindcast, the limits version (operations, worksites, alpha
+  // table, data point depth), the steps in order, the time zone and alpha: cached under those like
+  // the workability statistics (a repeat view, or another member's, costs no recomputation). The
+  // finish dates below depend on the clock and are computed on every request.
+  const version = createHash('sha256')
+    .update(JSON.stringify([SIMULATION_FORMAT, limitsVersion(setup, row.dataPointDepthM), c.steps, c.timeZone]))
+    .digest('hex')
+    .slice(0, 32);
+  const results = await cachedStats<SimulatedMonth[]>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () => {
+    const series = await datasetSeries(db, row.id);
+    const stepMs = row.stepMinutes * 60_000;
+    // Go-start flags of each distinct (operation, worksite) step, on the transformed series.
+    const key = (opId: string, siteId: string) => `${opId}|${siteId}`;
+    const wanted = new Set(c.steps.map((s) => key(s.operationId, s.siteId)));
+    const flags = new Map<string, Uint8Array>();
+    forEachOperationSite(
+      series,
+      row,
+      setup,
+      ({ op, spec, site, engine, workspace }) => {
+        const status = evaluateStatus(engine, spec, { alpha: options.alpha, alphaTable: setup.alphaTable, out: workspace.status });
+        flags.set(key(op.id, site.id), goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
+      },
+      (opId, siteId) => wanted.has(key(opId, siteId)),
+    );
+    const steps: CampaignStep[] = c.steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: ops.get(s.operationId)!.tpopH }));
+    return simulateCampaign(series.timeMs, stepMs, steps, { timeZone: c.timeZone }).map(({ runs: _runs, ...month }) => month);
+  });
 
   const plannedMs = c.plannedStart ? Date.parse(c.plannedStart) : null;
   const notBeforeMs =

@@ -288,6 +288,43 @@ describe('campaigns', () => {
     });
   });
 
+  it('caches a simulation by campaign, steps and limits: a repeat answers the same, a step change recomputes', async () => {
+    const db = t.database.db;
+    const setup = await loadProjectSetup(db, t.demo.projectId);
+    const lay = setup.operations.find((o) => o.name === 'Cable lay, nearshore section')!;
+    const berm = setup.operations.find((o) => o.name === 'Rock berm placement')!;
+    const layStep = { operationId: lay.id, siteId: t.demo.siteIds.route };
+    const bermStep = { operationId: berm.id, siteId: t.demo.siteIds.route };
+    const c = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Cached campaign', steps: [layStep, bermStep] });
+    const simulate = async (id: string) => {
+      const res = await as.client.post(`${base}/campaigns/${id}/simulate`);
+      expect(res.status, res.text).toBe(200);
+      return res.body as CampaignSimulation;
+    };
+    const storedKeys = async () =>
+      (await db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).map((r) => r.key).filter((k) => k.endsWith(`:campaign-${c.body.id}-true`));
+
+    const first = await simulate(c.body.id);
+    await settleStatsCache();
+    expect(await storedKeys()).toHaveLength(1);
+    expect(await simulate(c.body.id)).toEqual(first);
+    clearStatsMemo(db);
+    expect(await simulate(c.body.id)).toEqual(first);
+
+    // Another step list is another version: recomputed (as a new campaign with those steps), and
+    // the older stored version is replaced.
+    expect((await as.coordinator.patch(`${base}/campaigns/${c.body.id}`).send({ steps: [bermStep] })).status).toBe(200);
+    const changed = await simulate(c.body.id);
+    const fresh = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Berm only', steps: [bermStep] });
+    const expected = await simulate(fresh.body.id);
+    expect(changed.sumTpopHours).toBe(berm.tpopH);
+    expect(changed.months).toEqual(expected.months);
+    await settleStatsCache();
+    expect(await storedKeys()).toHaveLength(1);
+
+    for (const id of [c.body.id, fresh.body.id]) expect((await as.coordinator.delete(`${base}/campaigns/${id}`)).status).toBe(204);
+  });
+
   it('hand case: in a sea where every hour is workable the campaign takes the sum of TPOP, WoW 0', async () => {
     const c = await as.coordinator.post(`${base}/campaigns`).send({
       name: 'Calm campaign',

@@ -1,0 +1,473 @@
+// `npm run bench:load`: the production server under the load of many signed-in users opening the
+// watch board and the downtime page. Starts the built app as a child process on a free loopback
+// port with a temporary data folder and the demo seed, creates users through the admin API, signs
+// each one in, then runs autocannon with one connection per user (each with its own session
+// cookie) while reading the server's resident memory every second. Prints the figures and whether
+// the aims are met; the exit code is 0 whatever the figures (it is a measurement), 1 when the run
+// itself failed.
+//
+// Options: --years N (demo hindcast length, default 20), --duration S (measured run, default 30),
+// --warmup S (unmeasured run before it, default 5), --connections N (= users, default 50).
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import net from 'node:net';
+import { parseArgs } from 'node:util';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import autocannon from 'autocannon';
+
+const ROOT = path.resolve(import.meta.dirname, '..');
+const DEMO_PASSWORD = 'lullwatch-demo';
+const ADMIN_EMAIL = 'admin@example.com';
+
+/** Aims: 99th percentile under 250 ms, no errors or non-2xx answers, memory steady. */
+const AIM_P99_MS = 250;
+/**
+ * "Steady" memory: the server's RSS at the end of the measured run is within this share of its RSS
+ * right after the warm-up run (caches filled, code compiled). A leak per request grows RSS with
+ * the number of requests; a working set that is only touched once does not.
+ */
+const STEADY_SHARE = 0.1;
+
+const { values: args } = parseArgs({
+  options: {
+    years: { type: 'string', default: '20' },
+    duration: { type: 'string', default: '30' },
+    warmup: { type: 'string', default: '5' },
+    connections: { type: 'string', default: '50' },
+  },
+});
+
+function positiveInt(name: string, value: string, min: number, max: number): number {
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < min || n > max) {
+    console.error(`--${name} must be a whole number from ${min} to ${max} (got ${value})`);
+    process.exit(1);
+  }
+  return n;
+}
+
+const YEARS = positiveInt('years', args.years, 1, 60);
+const DURATION_S = positiveInt('duration', args.duration, 1, 3600);
+const WARMUP_S = positiveInt('warmup', args.warmup, 0, 600);
+const CONNECTIONS = positiveInt('connections', args.connections, 1, 500);
+
+// ---------------------------------------------------------------------------------------------
+// Client build (the same staleness test as `npm start`)
+
+function newestMtime(entry: string): number {
+  const stat = fs.statSync(entry, { throwIfNoEntry: false });
+  if (!stat) return 0;
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  let newest = stat.mtimeMs;
+  for (const name of fs.readdirSync(entry)) newest = Math.max(newest, newestMtime(path.join(entry, name)));
+  return newest;
+}
+
+function buildClientIfStale(): void {
+  const sources = ['src', 'shared', 'index.html', 'vite.config.ts', 'package.json'].map((p) => path.join(ROOT, p));
+  const builtAt = fs.statSync(path.join(ROOT, 'dist', 'index.html'), { throwIfNoEntry: false })?.mtimeMs ?? 0;
+  if (builtAt >= Math.max(...sources.map(newestMtime))) return;
+  console.log('Building the client (dist/ is missing or older than its sources)...');
+  const result = spawnSync(process.execPath, [path.join(ROOT, 'node_modules/vite/bin/vite.js'), 'build'], { cwd: ROOT, stdio: 'inherit' });
+  if (result.status !== 0) throw new Error('the client build failed');
+}
+
+// ---------------------------------------------------------------------------------------------
+// The server as a child process
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+interface Server {
+  child: ChildProcess;
+  pid: number;
+  baseUrl: string;
+  output: () => string;
+}
+
+let server: Server | null = null;
+let dataDir: string | null = null;
+let cannon: autocannon.Instance | null = null;
+
+async function startServer(): Promise<Server> {
+  const port = await freePort();
+  dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-load-'));
+  const baseUrl = `http://127.0.0.1:${port}`;
+  // Only what this run sets: no database server, forecast service, SMTP or secret from the caller.
+  const env: NodeJS.ProcessEnv = { ...process.env };
+  for (const key of ['DATABASE_URL', 'FORECAST_URL', 'FORECAST_API_KEY', 'SMTP_URL', 'BETTER_AUTH_SECRET', 'PLAN_CRON']) delete env[key];
+  Object.assign(env, {
+    NODE_ENV: 'production',
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    BASE_URL: baseUrl,
+    DATA_DIR: dataDir,
+    JOBS_ENABLED: 'false',
+    SEED_DEMO: 'true',
+    DEMO_HINDCAST_YEARS: String(YEARS),
+    // The bench stands in for a reverse proxy on loopback: each user signs in from its own
+    // address (X-Forwarded-For), so the per-address sign-in limit stays as in production.
+    TRUST_PROXY: 'loopback',
+  });
+  // Node itself with tsx as a loader (not the tsx command), so the pid is the server's.
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  if (child.pid === undefined) throw new Error('the server did not start');
+  let out = '';
+  child.stdout!.on('data', (d) => (out += d));
+  child.stderr!.on('data', (d) => (out += d));
+  const started: Server = { child, pid: child.pid, baseUrl, output: () => out };
+  server = started;
+
+  const t0 = Date.now();
+  const deadline = t0 + 15 * 60_000;
+  for (;;) {
+    if (child.exitCode !== null || child.signalCode !== null) throw new Error(`the server exited during start:\n${out}`);
+    if (Date.now() > deadline) throw new Error(`the server did not answer within 15 minutes:\n${out}`);
+    try {
+      const res = await fetch(`${baseUrl}/api/health`);
+      if (res.ok) break;
+    } catch {
+      /* not listening yet */
+    }
+    await sleep(500);
+  }
+  console.log(`Server pid ${started.pid} at ${baseUrl}, ready after ${((Date.now() - t0) / 1000).toFixed(1)} s (migrations and demo seed)`);
+  return started;
+}
+
+let cleaning: Promise<void> | null = null;
+
+/** Stops the server by its pid (SIGTERM, SIGKILL after 10 s) and removes the temporary folder. */
+function cleanup(): Promise<void> {
+  cleaning ??= (async () => {
+    cannon?.stop();
+    const s = server;
+    if (s && s.child.exitCode === null && s.child.signalCode === null) {
+      const exited = new Promise((resolve) => s.child.once('exit', resolve));
+      process.kill(s.pid, 'SIGTERM');
+      await Promise.race([exited, sleep(10_000)]);
+      if (s.child.exitCode === null && s.child.signalCode === null) process.kill(s.pid, 'SIGKILL');
+    }
+    if (dataDir) fs.rmSync(dataDir, { recursive: true, force: true });
+  })();
+  return cleaning;
+}
+
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+  process.on(signal, () => {
+    console.error(`\n${signal}: stopping the server and removing the temporary data`);
+    void cleanup().finally(() => process.exit(130));
+  });
+}
+
+// ---------------------------------------------------------------------------------------------
+// Users and sessions through the API
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+async function call<T>(baseUrl: string, method: string, url: string, opts: { cookie?: string; body?: unknown; headers?: Record<string, string> } = {}): Promise<{ res: Response; json: T }> {
+  const res = await fetch(`${baseUrl}${url}`, {
+    method,
+    headers: {
+      origin: baseUrl,
+      ...(opts.body !== undefined ? { 'content-type': 'application/json' } : {}),
+      ...(opts.cookie ? { cookie: opts.cookie } : {}),
+      ...opts.headers,
+    },
+    body: opts.body !== undefined ? JSON.stringify(opts.body) : undefined,
+  });
+  const text = await res.text();
+  let json: unknown;
+  try {
+    json = text ? JSON.parse(text) : null;
+  } catch {
+    json = text;
+  }
+  return { res, json: json as T };
+}
+
+async function expectOk<T>(baseUrl: string, method: string, url: string, opts: Parameters<typeof call>[3] = {}): Promise<T> {
+  const { res, json } = await call<T>(baseUrl, method, url, opts);
+  if (!res.ok) throw new Error(`${method} ${url} answered ${res.status}: ${JSON.stringify(json).slice(0, 300)}`);
+  return json;
+}
+
+/**
+ * Signs in and returns the session cookie. `address` goes into X-Forwarded-For (the server trusts
+ * it from loopback only). A 429 is waited out (Retry-After) rather than treated as a failure.
+ */
+async function signIn(baseUrl: string, email: string, password: string, address: string): Promise<string> {
+  for (let attempt = 0; attempt < 20; attempt++) {
+    const { res, json } = await call<unknown>(baseUrl, 'POST', '/api/auth/sign-in/email', {
+      body: { email, password },
+      headers: { 'x-forwarded-for': address },
+    });
+    if (res.status === 429) {
+      const wait = Number(res.headers.get('x-retry-after') ?? res.headers.get('retry-after') ?? 10);
+      console.log(`  sign-in of ${email} limited (429): waiting ${wait} s`);
+      await sleep((Number.isFinite(wait) ? wait : 10) * 1000 + 250);
+      continue;
+    }
+    if (!res.ok) throw new Error(`sign-in of ${email} answered ${res.status}: ${JSON.stringify(json).slice(0, 300)}`);
+    const cookies = res.headers.getSetCookie().map((c) => c.split(';')[0]);
+    if (cookies.length === 0) throw new Error(`sign-in of ${email} set no cookie`);
+    return cookies.join('; ');
+  }
+  throw new Error(`sign-in of ${email} still limited after 20 attempts`);
+}
+
+const ROLES = ['coordinator', 'skipper', 'skipper', 'client', 'client'] as const;
+
+interface LoadUser {
+  email: string;
+  role: (typeof ROLES)[number];
+  cookie: string;
+}
+
+async function createUsers(baseUrl: string, projectId: string, adminCookie: string, n: number): Promise<LoadUser[]> {
+  const users: LoadUser[] = [];
+  const stamp = Date.now().toString(36);
+  for (let i = 0; i < n; i++) {
+    const email = `load-${stamp}-${String(i + 1).padStart(3, '0')}@example.com`;
+    const role = ROLES[i % ROLES.length];
+    const created = await expectOk<{ user: { id: string }; temporaryPassword: string }>(baseUrl, 'POST', '/api/admin/users', {
+      cookie: adminCookie,
+      body: { name: `Load user ${i + 1}`, email },
+    });
+    await expectOk(baseUrl, 'PUT', `/api/admin/users/${created.user.id}/projects/${projectId}`, { cookie: adminCookie, body: { role } });
+    // Users sign in with the temporary password as given (the product asks for no change first).
+    // Addresses from 198.51.100.0/24, a range reserved for documentation.
+    const cookie = await signIn(baseUrl, email, created.temporaryPassword, `198.51.100.${(i % 250) + 1}`);
+    users.push({ email, role, cookie });
+  }
+  return users;
+}
+
+// ---------------------------------------------------------------------------------------------
+// The page loads
+
+interface PageRequest {
+  name: string;
+  method: 'GET' | 'POST';
+  path: string;
+}
+
+/**
+ * What the client asks for when a user opens the watch board and then the downtime page (one
+ * query cache, so /api/me and the project are fetched once; the client's staleTime is 30 s):
+ * board: GET /api/me, GET /api/projects/:id, GET .../plan?alpha=true (usePlan, useViewer);
+ * downtime: GET .../datasets, .../operations, .../sites, .../workability?dataset=&alpha=true,
+ * .../ledger?from=&to=, .../ledger/monthly?from=&to=&dataset=, .../campaigns and, for the first
+ * campaign, POST .../campaigns/:id/simulate?dataset=&alpha=true (a read sent as POST).
+ */
+async function pageRequests(baseUrl: string, projectId: string, cookie: string): Promise<PageRequest[]> {
+  const p = `/api/projects/${projectId}`;
+  const datasets = await expectOk<{ id: string; kind: string }[]>(baseUrl, 'GET', `${p}/datasets`, { cookie });
+  const hindcast = datasets.find((d) => d.kind === 'hindcast');
+  if (!hindcast) throw new Error('the demo project has no hindcast');
+  const campaigns = await expectOk<{ id: string }[]>(baseUrl, 'GET', `${p}/campaigns`, { cookie });
+  const now = new Date();
+  const month = `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}`;
+  const lastDay = new Date(Date.UTC(now.getFullYear(), now.getMonth() + 1, 0)).getUTCDate();
+  const range = new URLSearchParams({ from: `${month}-01`, to: `${month}-${String(lastDay).padStart(2, '0')}` });
+  const withDataset = new URLSearchParams({ dataset: hindcast.id, alpha: 'true' });
+  const list: PageRequest[] = [
+    { name: 'me', method: 'GET', path: '/api/me' },
+    { name: 'project', method: 'GET', path: p },
+    { name: 'plan', method: 'GET', path: `${p}/plan?alpha=true` },
+    { name: 'datasets', method: 'GET', path: `${p}/datasets` },
+    { name: 'operations', method: 'GET', path: `${p}/operations` },
+    { name: 'sites', method: 'GET', path: `${p}/sites` },
+    { name: 'workability', method: 'GET', path: `${p}/workability?${withDataset}` },
+    { name: 'ledger', method: 'GET', path: `${p}/ledger?${range}` },
+    { name: 'ledger monthly', method: 'GET', path: `${p}/ledger/monthly?${range}&dataset=${hindcast.id}` },
+    { name: 'campaigns', method: 'GET', path: `${p}/campaigns` },
+  ];
+  if (campaigns[0]) list.push({ name: 'simulate', method: 'POST', path: `${p}/campaigns/${campaigns[0].id}/simulate?${withDataset}` });
+  return list;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Memory
+
+/** The server's resident set size in MiB from /proc (Linux), or null elsewhere. */
+function rssMiB(pid: number): number | null {
+  try {
+    const status = fs.readFileSync(`/proc/${pid}/status`, 'utf8');
+    const m = /^VmRSS:\s+(\d+)\s+kB/m.exec(status);
+    return m ? Number(m[1]) / 1024 : null;
+  } catch {
+    return null;
+  }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Load
+
+interface EndpointStats {
+  latencies: number[];
+  non2xx: number;
+}
+
+function runCannon(baseUrl: string, users: LoadUser[], requests: PageRequest[], seconds: number, stats: Map<string, EndpointStats> | null): Promise<autocannon.Result> {
+  let next = 0;
+  const nameOf = new WeakMap<object, string>();
+  return new Promise((resolve, reject) => {
+    const instance = autocannon(
+      {
+        url: baseUrl,
+        connections: users.length,
+        duration: seconds,
+        timeout: 10,
+        // Each connection is one user: its own copy of the requests with its own cookie.
+        setupClient: (client) => {
+          const user = users[next++ % users.length];
+          const own = requests.map((r) => {
+            const req: autocannon.Request = { method: r.method, path: r.path, headers: { cookie: user.cookie, origin: baseUrl, accept: 'application/json' } };
+            nameOf.set(req, r.name);
+            return req;
+          });
+          client.setRequests(own);
+          if (!stats) return;
+          // With pipelining 1, the iterator's current request is the one just answered.
+          const iterator = (client as unknown as { requestIterator: { currentRequest: object } }).requestIterator;
+          client.on('response', (status: number, _bytes: number, ms: number) => {
+            const name = nameOf.get(iterator.currentRequest) ?? '?';
+            let s = stats.get(name);
+            if (!s) stats.set(name, (s = { latencies: [], non2xx: 0 }));
+            s.latencies.push(ms);
+            if (status < 200 || status > 299) s.non2xx++;
+          });
+        },
+      },
+      (err, result) => (err ? reject(err) : resolve(result)),
+    );
+    cannon = instance;
+  });
+}
+
+function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+const ms = (x: number) => (Number.isFinite(x) ? `${x.toFixed(0)} ms` : 'n/a');
+const mib = (x: number | null) => (x === null ? 'n/a' : `${x.toFixed(0)} MiB`);
+
+// ---------------------------------------------------------------------------------------------
+
+async function main(): Promise<void> {
+  const cpus = os.cpus();
+  console.log(
+    `Lullwatch load bench on ${cpus.length} cores (${cpus[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os
+      .loadavg()
+      .map((x) => x.toFixed(1))
+      .join(' ')}`,
+  );
+  console.log(`Demo hindcast ${YEARS} years; ${CONNECTIONS} users and connections; warm-up ${WARMUP_S} s; measured ${DURATION_S} s\n`);
+
+  buildClientIfStale();
+  const s = await startServer();
+
+  const adminCookie = await signIn(s.baseUrl, ADMIN_EMAIL, DEMO_PASSWORD, '198.51.100.254');
+  const projects = await expectOk<{ id: string; name: string }[]>(s.baseUrl, 'GET', '/api/projects', { cookie: adminCookie });
+  const demo = projects.find((p) => /Varrow Reach/.test(p.name)) ?? projects[0];
+  if (!demo) throw new Error('no demo project');
+  const t0 = Date.now();
+  const users = await createUsers(s.baseUrl, demo.id, adminCookie, CONNECTIONS);
+  const byRole = ROLES.filter((r, i) => ROLES.indexOf(r) === i).map((r) => `${users.filter((u) => u.role === r).length} ${r}s`);
+  console.log(`Created ${users.length} users in "${demo.name}" (${byRole.join(', ')}) and signed each in, ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+
+  const requests = await pageRequests(s.baseUrl, demo.id, users[0].cookie);
+  console.log(`Each connection loops over ${requests.length} requests:`);
+  for (const r of requests) console.log(`  ${r.method} ${r.path}`);
+
+  // One pass a request at a time first: the first workability, ledger expectation and campaign
+  // simulation on a hindcast compute and cache their answers, which the load then reads.
+  console.log('\nFirst pass, one request at a time (cold caches):');
+  const width = Math.max(...requests.map((r) => r.name.length));
+  for (const r of requests) {
+    const t = performance.now();
+    const { res } = await call<unknown>(s.baseUrl, r.method, r.path, { cookie: users[0].cookie });
+    console.log(`  ${r.name.padEnd(width)}  ${res.status}  ${ms(performance.now() - t)}`);
+    if (!res.ok) throw new Error(`${r.method} ${r.path} answered ${res.status}`);
+  }
+
+  const rssBeforeWarmup = rssMiB(s.pid);
+  if (WARMUP_S > 0) {
+    console.log(`\nWarm-up: ${WARMUP_S} s, ${users.length} connections (not measured)...`);
+    await runCannon(s.baseUrl, users, requests, WARMUP_S, null);
+    // The server finishes the requests the stopped connections left behind before the measured
+    // run starts: its answers queue behind them.
+    for (let i = 0; i < 3; i++) await call(s.baseUrl, 'GET', '/api/health');
+  }
+
+  const rssAfterWarmup = rssMiB(s.pid);
+  const samples: number[] = [];
+  const sampler = setInterval(() => {
+    const v = rssMiB(s.pid);
+    if (v !== null) samples.push(v);
+  }, 1000);
+  const stats = new Map<string, EndpointStats>();
+  console.log(`Measured run: ${DURATION_S} s...`);
+  const loadAtStart = os.loadavg()[0];
+  let result: autocannon.Result;
+  try {
+    result = await runCannon(s.baseUrl, users, requests, DURATION_S, stats);
+  } finally {
+    clearInterval(sampler);
+  }
+  const rssEnd = rssMiB(s.pid);
+  if (rssEnd !== null) samples.push(rssEnd);
+  const loadAtEnd = os.loadavg()[0];
+
+  const peak = samples.length ? Math.max(...samples) : null;
+  const p99 = result.latency.p99;
+  const failures = result.errors + result.non2xx;
+  const p99Met = p99 < AIM_P99_MS;
+  const errorsMet = failures === 0;
+  const steady = rssAfterWarmup !== null && rssEnd !== null ? rssEnd <= rssAfterWarmup * (1 + STEADY_SHARE) : null;
+
+  console.log('\nResults (measured run)');
+  console.log(`  requests/s      mean ${result.requests.average.toFixed(1)} (total ${result.requests.total} in ${result.duration.toFixed(1)} s)`);
+  console.log(`  latency         p50 ${ms(result.latency.p50)}, p97.5 ${ms(result.latency.p97_5)}, p99 ${ms(p99)}, max ${ms(result.latency.max)}, mean ${result.latency.average.toFixed(1)} ms`);
+  console.log(`  errors          ${result.errors} (timeouts ${result.timeouts}), non-2xx ${result.non2xx}`);
+  console.log(`  server RSS      before warm-up ${mib(rssBeforeWarmup)}, after warm-up ${mib(rssAfterWarmup)}, peak ${mib(peak)}, end ${mib(rssEnd)}`);
+  console.log(`  load average    ${loadAtStart.toFixed(1)} at start, ${loadAtEnd.toFixed(1)} at end (1 minute)`);
+
+  console.log('\nPer request (latency as autocannon measured it, one connection per user)');
+  for (const r of requests) {
+    const st = stats.get(r.name);
+    const sorted = (st?.latencies ?? []).sort((a, b) => a - b);
+    const mean = sorted.length ? sorted.reduce((a, b) => a + b, 0) / sorted.length : NaN;
+    console.log(
+      `  ${r.name.padEnd(width)}  n ${String(sorted.length).padStart(6)}  mean ${ms(mean).padStart(7)}  p50 ${ms(percentile(sorted, 50)).padStart(7)}  p99 ${ms(percentile(sorted, 99)).padStart(7)}  max ${ms(sorted[sorted.length - 1] ?? NaN).padStart(7)}  non-2xx ${st?.non2xx ?? 0}`,
+    );
+  }
+
+  const mark = (ok: boolean | null) => (ok === null ? 'not measured' : ok ? 'met' : 'NOT met');
+  console.log('\nAims');
+  console.log(`  p99 under ${AIM_P99_MS} ms: ${mark(p99Met)} (${ms(p99)})`);
+  console.log(`  no errors, timeouts or non-2xx: ${mark(errorsMet)} (${failures})`);
+  console.log(`  memory steady (end RSS within ${STEADY_SHARE * 100}% of the RSS after warm-up): ${mark(steady)}`);
+}
+
+let failed = false;
+try {
+  await main();
+} catch (err) {
+  failed = true;
+  console.error(`\nThe load run failed: ${err instanceof Error ? err.message : String(err)}`);
+} finally {
+  await cleanup();
+}
+process.exit(failed ? 1 : 0);
