@@ -6,8 +6,10 @@ import type { ConditionsAnswer, HourChainAnswer, OperationSitePlan, PlanAnswer }
 import type { Db } from '../db/client';
 import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
+import { createHash } from 'node:crypto';
+import { Lru } from './lru';
+import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup } from './site-context';
 import { readSeries } from './series-store';
-import { loadProjectSetup, operationSpec, sitesOf, transformForSite } from './site-context';
 
 const STATUS_NAMES: HourStatus[] = [];
 STATUS_NAMES[STATUS.NO_DATA] = 'no_data';
@@ -24,14 +26,50 @@ async function planDataset(db: Db, projectId: string, datasetId?: string) {
 }
 
 /**
+ * Recent plans by (dataset, whole project setup, alpha, clock minute), per database handle: the
+ * watch board of every member asks for the same plan, and "now" only moves the answer at the
+ * minute (the data are hourly), so a minute's repeat reuses it. A stored dataset never changes and
+ * any change to the setup (limits, names, skippers, recurrences) changes the key.
+ */
+const planMemos = new WeakMap<Db, Lru<Promise<Omit<PlanAnswer, 'generatedAt'>>>>();
+const MS_PER_MINUTE = 60_000;
+
+function setupKey(setup: ProjectSetup): string {
+  return createHash('sha256').update(JSON.stringify(setup)).digest('hex').slice(0, 32);
+}
+
+/**
  * Plans every operation at each of its worksites on a dataset (by default the latest forecast):
- * hourly status, limiting factor, usable windows, earliest go-start and "may start now".
+ * hourly status, limiting factor, usable windows, earliest go-start and "may start now", as at the
+ * start of the current clock minute.
  */
 export async function projectPlan(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean; now: Date }): Promise<PlanAnswer> {
   const row = await planDataset(db, projectId, options.datasetId);
   const generatedAt = options.now.toISOString();
   if (!row) return { dataset: null, generatedAt, alpha: options.alpha, stepMinutes: 60, plans: [] };
-  const [series, setup] = await Promise.all([readSeries(db, row.id), loadProjectSetup(db, projectId)]);
+  const setup = await loadProjectSetup(db, projectId);
+  const minuteMs = Math.floor(options.now.getTime() / MS_PER_MINUTE) * MS_PER_MINUTE;
+  const key = `${row.id}:${setupKey(setup)}:${options.alpha}:${minuteMs}`;
+  let memo = planMemos.get(db);
+  if (!memo) planMemos.set(db, (memo = new Lru(16)));
+  let answer = memo.get(key);
+  if (!answer) {
+    answer = computePlan(db, row, setup, options.alpha, new Date(minuteMs));
+    memo.set(key, answer);
+    answer.catch(() => memo.delete(key));
+  }
+  return { ...(await answer), generatedAt };
+}
+
+async function computePlan(
+  db: Db,
+  row: NonNullable<Awaited<ReturnType<typeof planDataset>>>,
+  setup: ProjectSetup,
+  alpha: boolean,
+  now: Date,
+): Promise<Omit<PlanAnswer, 'generatedAt'>> {
+  const options = { alpha, now };
+  const series = await readSeries(db, row.id);
   const times = Array.from(series.timeMs, iso);
   const stepMs = row.stepMinutes * 60_000;
   const perSite = new Map(setup.sites.map((s) => [s.id, transformForSite(series, row.dataPointDepthM, s)]));
@@ -71,7 +109,6 @@ export async function projectPlan(db: Db, projectId: string, options: { datasetI
   }
   return {
     dataset: { id: row.id, name: row.name, kind: row.kind, issuedAt: row.issuedAt?.toISOString() ?? null, start: row.startAt.toISOString(), end: row.endAt.toISOString() },
-    generatedAt,
     alpha: options.alpha,
     stepMinutes: row.stepMinutes,
     plans,

@@ -22,6 +22,7 @@ import {
   type SiteSeries as EngineSeries,
 } from '../../shared/engine';
 import { createSiteSeries, transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
+import { csvField } from '../../shared/csv-field';
 import type { WorkabilityCalendarMonth, WorkabilityEntry, WorkabilityMonth, WorkabilityYearMonth } from '../../shared/api-types-downtime';
 import type { Db } from '../db/client';
 import { statsCache } from '../db/schema';
@@ -29,6 +30,7 @@ import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
 import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
+import { Lru } from './lru';
 
 export type DatasetRow = NonNullable<Awaited<ReturnType<typeof latestDataset>>>;
 
@@ -38,31 +40,6 @@ const STATS_FORMAT = 1;
 // ---------------------------------------------------------------------------------------------
 // In-process memos (per database handle, so test databases never share entries)
 // ---------------------------------------------------------------------------------------------
-
-/** A small least-recently-used map. */
-class Lru<V> {
-  private readonly map = new Map<string, V>();
-  constructor(private readonly size: number) {}
-  get(key: string): V | undefined {
-    const v = this.map.get(key);
-    if (v !== undefined) {
-      this.map.delete(key);
-      this.map.set(key, v);
-    }
-    return v;
-  }
-  set(key: string, value: V): void {
-    this.map.delete(key);
-    this.map.set(key, value);
-    while (this.map.size > this.size) this.map.delete(this.map.keys().next().value as string);
-  }
-  delete(key: string): void {
-    this.map.delete(key);
-  }
-  keys(): string[] {
-    return [...this.map.keys()];
-  }
-}
 
 interface Memos {
   /** Stored series by dataset id: at most two (30 years hourly is about 15 MB). */
@@ -350,14 +327,8 @@ export async function projectWorkability(db: Db, projectId: string, options: { d
 // CSV
 // ---------------------------------------------------------------------------------------------
 
-/** A CSV field: quoted when needed; a leading =, +, - or @ is defused for spreadsheets. */
-export function csvField(v: string | number | null): string {
-  if (v === null) return '';
-  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '';
-  let s = /^[=+\-@\t\r]/.test(v) ? `'${v}` : v;
-  if (/[",\r\n]/.test(s)) s = `"${s.replace(/"/g, '""')}"`;
-  return s;
-}
+/** A CSV field: quoted when needed; a text that a spreadsheet would run as a formula is defused (shared/csv-field.ts). */
+export { csvField };
 
 /**
  * The statistics as one flat CSV table: a row per calendar month (`scope` = month, `year` empty)

@@ -43,6 +43,23 @@ describe('the forecast plan', () => {
     }
   });
 
+  it('reuses a plan within the clock minute but never across a limit change', async () => {
+    const before = (await as.coordinator.get(`${base}/plan`)).body;
+    const p = before.plans.find((x: { status: string[] }) => x.status.includes('workable'));
+    expect(p, 'some operation has workable hours in the invented forecast').toBeDefined();
+    // A limit no sea meets (Hs at most 0.1 m, the smallest allowed) makes every hour with data not workable at once.
+    const op = (await as.coordinator.get(`${base}/operations/${p.operationId}`)).body;
+    const changed = await as.coordinator.patch(`${base}/operations/${p.operationId}`).send({ limits: { ...op.limits, hsMax: 0.1 } });
+    expect(changed.status, changed.text).toBe(200);
+    const after = (await as.coordinator.get(`${base}/plan`)).body;
+    const q = after.plans.find((x: { operationId: string; siteId: string }) => x.operationId === p.operationId && x.siteId === p.siteId);
+    expect(q.status).not.toContain('workable');
+    expect(q.windows).toHaveLength(0);
+    const restored = await as.coordinator.patch(`${base}/operations/${p.operationId}`).send({ limits: op.limits });
+    expect(restored.status, restored.text).toBe(200);
+    expect((await as.coordinator.get(`${base}/plan`)).body.plans).toEqual(before.plans);
+  });
+
   it('plans on OPLIM with alpha=false: never fewer workable hours', async () => {
     const withAlpha = (await as.coordinator.get(`${base}/plan`)).body;
     const without = (await as.coordinator.get(`${base}/plan?alpha=false`)).body;
