@@ -11,14 +11,15 @@ import { HttpError, parseInput } from '../http/errors';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 import { listOutbox } from '../services/outbox';
 import { mySubscription, saveSubscription, unsubscribe } from '../services/subscriptions';
-import { verifyUnsubscribe } from '../services/alert-mail';
+import { escapeHtml, verifyUnsubscribe } from '../services/alert-mail';
 import { calendarFeed, getCalendarToken, revokeCalendarToken, rotateCalendarToken } from '../services/calendar-feed';
 import { recordAudit } from '../services/audit';
 import { runPlanningJob } from '../../jobs/plan-job';
 import { idParam } from '../../shared/schemas/common';
 
+// Title and body are escaped, so no caller can put markup (or a query parameter) into the page.
 const page = (title: string, body: string) =>
-  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${title}</title></head><body style="font-family:system-ui,sans-serif;max-width:520px;margin:48px auto;padding:0 16px;color:#10222c"><h1 style="font-size:22px">${title}</h1><p>${body}</p></body></html>`;
+  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)}</title></head><body style="font-family:system-ui,sans-serif;max-width:520px;margin:48px auto;padding:0 16px;color:#10222c"><h1 style="font-size:22px">${escapeHtml(title)}</h1><p>${escapeHtml(body)}</p></body></html>`;
 
 export function alertRoutes(deps: AppDeps): Router {
   const { db, config, mailer } = deps;

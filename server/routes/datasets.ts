@@ -21,9 +21,16 @@ import { importUploadedFile, MAX_UPLOAD_BYTES, safeFileName } from '../services/
 
 const UPLOAD_DIR = path.join(os.tmpdir(), 'lullwatch-uploads');
 
+/** Longest form field (the column mapping and units are small JSON texts). */
+const MAX_FIELD_BYTES = 64 * 1024;
+
 const upload = multer({
+  // Stored under a random name in UPLOAD_DIR: the client's file name never becomes a path.
   dest: UPLOAD_DIR,
-  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 20, fieldSize: 64 * 1024 },
+  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 20, fieldSize: MAX_FIELD_BYTES },
+  // Browsers send the file name as raw UTF-8 in the part header; busboy's default reads it as
+  // Latin-1 ('Ålesund.csv' came back as 'Ã\x85lesund.csv').
+  defParamCharset: 'utf8',
 }).single('file');
 
 /** Runs multer after the role check, so refused callers never send their file to disk. */
@@ -36,7 +43,16 @@ function receiveUpload(req: Request, res: Response): Promise<void> {
         if (err.code === 'LIMIT_FILE_SIZE') {
           return reject(new HttpError('too_large', `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`));
         }
+        if (err.code === 'LIMIT_FIELD_VALUE' || err.code === 'LIMIT_FIELD_KEY') {
+          const message = `Form field ${err.field ?? ''} is longer than the limit of ${MAX_FIELD_BYTES / 1024} kB`;
+          return reject(new HttpError('too_large', message, [{ field: err.field ?? '(form)', message: 'too long' }]));
+        }
         return reject(new HttpError('validation', `Upload refused: ${err.message}`, [{ field: err.field ?? 'file', message: err.message }]));
+      }
+      // A body that is not well-formed multipart (no boundary, cut short, a malformed part
+      // header) is the client's error; system errors (a full disk) stay 500s.
+      if (err instanceof Error && !('code' in err && typeof err.code === 'string' && err.code.startsWith('E'))) {
+        return reject(new HttpError('validation', `Upload refused: the body is not valid multipart/form-data (${err.message})`, [{ field: 'file', message: err.message }]));
       }
       reject(err);
     }),

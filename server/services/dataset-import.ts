@@ -5,6 +5,7 @@ import {
   ImportError,
   ImportFormSchema,
   NdbcParser,
+  binaryMark,
   csvOptionsFromForm,
   detectFormat,
   ndbcOptionsFromForm,
@@ -32,12 +33,26 @@ export interface ImportProgress {
   rows: number;
 }
 
-/** A file name as shown back to users: no folders, no control characters, at most 200 characters. */
+/** Longest file name kept, in code points. */
+const MAX_FILE_NAME = 200;
+
+/**
+ * A file name as shown back to users (it is never used as a path: multer stores the upload under
+ * a random name). The last segment after '/' or '\\' only, without a Windows drive prefix ('C:');
+ * without control characters (C0, DEL, C1) and without the bidirectional overrides and isolates
+ * (U+202A-U+202E, U+2066-U+2069) that can make 'gpj.exe' look like 'exe.jpg' (the "Trojan
+ * Source" class of spoofing); lone surrogates as U+FFFD; at most 200 code points; '.', '..' and
+ * an empty result become 'upload'.
+ */
 export function safeFileName(name: string): string {
-  const base = name.split(/[\\/]/).pop() ?? '';
-  // eslint-disable-next-line no-control-regex
-  const clean = base.replace(/[\u0000-\u001f\u007f]/g, '').trim().slice(0, 200);
-  return clean || 'upload';
+  const base = (name.split(/[\\/]/).pop() ?? '').replace(/^[A-Za-z]:/, '');
+  const clean = base
+    // eslint-disable-next-line no-control-regex
+    .replace(/[\u0000-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/g, '')
+    .replace(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, '\uFFFD')
+    .trim();
+  const kept = Array.from(clean).slice(0, MAX_FILE_NAME).join('').trim();
+  return kept === '' || kept === '.' || kept === '..' ? 'upload' : kept;
 }
 
 /**
@@ -55,10 +70,14 @@ export async function importUploadedFile(
   if (!p) throw new HttpError('not_found', 'Project not found');
 
   const head = await readHead(args.file.path, 64 * 1024);
-  if (head.includes('\u0000')) {
-    throw new HttpError('bad_file', 'This is not a text file: it holds binary data. Upload CSV or NDBC text.', [
-      { line: 0, column: '', value: '', reason: 'binary content (NUL bytes)' },
-    ]);
+  const mark = binaryMark(head);
+  if (mark !== null) {
+    const code = `U+${mark.code.toString(16).toUpperCase().padStart(4, '0')}`;
+    throw new HttpError(
+      'bad_file',
+      `This is not a text file: it holds binary data (control character ${code} at line ${mark.line}, column ${mark.column}). Upload CSV or NDBC text.`,
+      [{ line: mark.line, column: String(mark.column), value: '', reason: `binary content (control character ${code})` }],
+    );
   }
   const format = form.format === 'auto' ? detectFormat(head) : form.format;
   const parser = format === 'ndbc' ? new NdbcParser(ndbcOptionsFromForm(form)) : new CsvTextParser(csvOptionsFromForm(form));
@@ -71,6 +90,8 @@ export async function importUploadedFile(
     for await (const chunk of stream as AsyncIterable<string>) {
       bytesRead += Buffer.byteLength(chunk, 'utf8');
       parser.push(chunk);
+      // Refused as a whole (a line or row over the limits, no time column): the rest is not read.
+      if (parser.failed) break;
       if (args.onProgress && bytesRead - lastReport > 2 << 20) {
         lastReport = bytesRead;
         args.onProgress({ phase: 'parsing', bytesRead, totalBytes: args.file.size, rows: linesOf(parser) });

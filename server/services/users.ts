@@ -7,6 +7,7 @@ import type { Auth } from '../auth';
 import type { Db } from '../db/client';
 import { project, projectMember, session, user } from '../db/schema';
 import { HttpError } from '../http/errors';
+import { hasControlChars, hasLoneSurrogate } from '../../shared/schemas/common';
 import type { SessionUser } from '../http/context';
 
 export async function describeMe(db: Db, me: SessionUser): Promise<MeResponse> {
@@ -82,6 +83,7 @@ export async function createUserFromInput(auth: Auth, input: CreateUserInput) {
 
 /** Deactivates (signs out everywhere, refuses sign-in) or reactivates a user; changes the global role. */
 export async function updateUser(db: Db, actor: SessionUser, userId: string, input: UpdateUserInput): Promise<void> {
+  checkUserId(userId);
   const [target] = await db.select({ id: user.id }).from(user).where(eq(user.id, userId));
   if (!target) throw new HttpError('not_found', 'User not found');
   if (userId === actor.id && (input.active === false || input.globalRole === 'user')) {
@@ -102,6 +104,7 @@ export async function updateUser(db: Db, actor: SessionUser, userId: string, inp
 }
 
 export async function setMembership(db: Db, userId: string, projectId: string, role: ProjectRole): Promise<void> {
+  checkUserId(userId);
   const [target] = await db.select({ id: user.id }).from(user).where(eq(user.id, userId));
   if (!target) throw new HttpError('not_found', 'User not found');
   const [p] = await db.select({ id: project.id }).from(project).where(eq(project.id, projectId));
@@ -113,11 +116,20 @@ export async function setMembership(db: Db, userId: string, projectId: string, r
 }
 
 export async function removeMembership(db: Db, userId: string, projectId: string): Promise<void> {
+  checkUserId(userId);
   const deleted = await db
     .delete(projectMember)
     .where(eqBoth(userId, projectId))
     .returning({ id: projectMember.id });
   if (deleted.length === 0) throw new HttpError('not_found', 'Membership not found');
+}
+
+/**
+ * A user id from a URL that cannot be one (a NUL, which PostgreSQL text refuses with an error, or
+ * another control character, a lone surrogate, an absurd length) is an unknown user: 404, not 500.
+ */
+function checkUserId(userId: string): void {
+  if (userId.length > 200 || hasControlChars(userId) || hasLoneSurrogate(userId)) throw new HttpError('not_found', 'User not found');
 }
 
 const eqBoth = (userId: string, projectId: string) =>

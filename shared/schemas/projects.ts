@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { PROJECT_ROLES, GLOBAL_ROLES } from '../auth/roles';
-import { longText, nameText } from './common';
+import { longText, nameText, storableText } from './common';
 
 export const CreateProjectInput = z.object({
   name: nameText(),
@@ -14,7 +14,7 @@ export const FORECAST_SOURCES = ['service', 'uploads'] as const;
 export const ProjectSettingsInput = z.object({
   name: nameText(),
   description: longText(),
-  dataPointName: z.string().trim().max(120),
+  dataPointName: storableText(z.string().trim().max(120)),
   dataPointLatitude: z.number().min(-90).max(90).nullable(),
   dataPointLongitude: z.number().min(-180).max(180).nullable(),
   /** metres; null = deep water (DOMAIN Convention 1) */

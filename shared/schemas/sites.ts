@@ -10,7 +10,7 @@
 import { z } from 'zod';
 import { WEATHER_RESTRICTED_MAX_TR_H } from '../engine/alpha-factor';
 import { alphaTableSchema, LIMIT_RANGES, operationLimitsSchema } from '../engine/schemas';
-import { longText, nameText } from './common';
+import { longText, nameText, storableText } from './common';
 
 // ---------------------------------------------------------------------------------------------
 // Shared helpers
@@ -47,17 +47,10 @@ export function canonicalTimeZone(zone: string): string | null {
 
 const finite = (what: string) => z.number({ error: `${what} must be a number` });
 
-// Control characters (NUL above all, which PostgreSQL text cannot hold) are refused in names and
-// descriptions; tab and line breaks stay allowed in descriptions.
-function hasControlChars(s: string): boolean {
-  for (let i = 0; i < s.length; i++) {
-    const c = s.charCodeAt(i);
-    if ((c < 0x20 && c !== 0x09 && c !== 0x0a && c !== 0x0d) || c === 0x7f) return true;
-  }
-  return false;
-}
-const itemName = () => nameText().refine((s) => !hasControlChars(s), 'must not contain control characters');
-const itemDescription = () => longText().refine((s) => !hasControlChars(s), 'must not contain control characters');
+// Control characters (NUL above all, which PostgreSQL text cannot hold) and lone surrogates are
+// refused by nameText and longText (common.ts); tab and line breaks stay allowed in descriptions.
+const itemName = () => nameText();
+const itemDescription = () => longText();
 
 // ---------------------------------------------------------------------------------------------
 // Transfer table
@@ -410,7 +403,7 @@ const operationFields = {
   /** worksites of the project; empty = every worksite */
   siteIds: z.array(z.uuid('Must be a worksite id')).max(500, 'At most 500 worksites'),
   /** user ids of the project's skippers assigned to it */
-  skipperIds: z.array(z.string().trim().min(1, 'Must be a user id').max(200)).max(200, 'At most 200 skippers'),
+  skipperIds: z.array(storableText(z.string().trim().min(1, 'Must be a user id').max(200))).max(200, 'At most 200 skippers'),
 };
 
 /**
@@ -508,7 +501,7 @@ export type SetupOperation = z.infer<typeof SetupOperation>;
 export const SetupProject = z.object({
   name: itemName(),
   description: itemDescription().default(''),
-  dataPointName: z.string().trim().max(120).default(''),
+  dataPointName: storableText(z.string().trim().max(120)).default(''),
   dataPointLatitude: finite('Latitude').min(-90).max(90).nullish(),
   dataPointLongitude: finite('Longitude').min(-180).max(180).nullish(),
   dataPointDepthM: finite('Data point depth').min(0.5).max(11000).nullish(),
@@ -527,10 +520,11 @@ export const SetupProject = z.object({
  */
 /** A campaign in a setup document: its steps by operation and worksite name. */
 export const SetupCampaign = z.object({
-  name: z.string().trim().min(1, 'A campaign needs a name').max(120),
+  name: storableText(z.string().trim().min(1, 'A campaign needs a name').max(120)),
   steps: z.array(z.object({ operationName: z.string().trim().min(1), siteName: z.string().trim().min(1) })).min(1).max(50),
   plannedStart: z.iso.datetime({ offset: true }).nullish(),
-  timeZone: z.string().default('UTC'),
+  // Checked like a worksite's zone: the import stores it, and a campaign simulates in it.
+  timeZone: timeZoneField.default('UTC'),
 });
 export type SetupCampaign = z.infer<typeof SetupCampaign>;
 

@@ -40,6 +40,9 @@ export type ColumnMapping = z.infer<typeof ColumnMappingSchema>;
 /** What {@link detectColumns} found: a mapping that may lack the time column. */
 export type DetectedColumns = Partial<ColumnMapping>;
 
+/** Characters of a header name that {@link normaliseHeader} reads. */
+const MAX_HEADER_CHARS = 200;
+
 const UNIT_WORDS = new Set([
   'm', 'meter', 'meters', 'metre', 'metres', 'ft', 'feet', 's', 'sec', 'secs', 'seconds',
   'deg', 'degt', 'degree', 'degrees', 'ms', 'mps', 'kn', 'kt', 'kts', 'knots', 'kmh', 'kph',
@@ -51,7 +54,9 @@ const UNIT_WORDS = new Set([
  * @example normaliseHeader(' Wind_Speed [m/s] ') // 'windspeed'
  */
 export function normaliseHeader(header: string): string {
-  let s = header.replace(/^\uFEFF/, '').toLowerCase();
+  // Only the start of a long header is looked at: no known name is near this length, and the
+  // bracket pattern below is quadratic on a long run of unclosed brackets.
+  let s = header.slice(0, MAX_HEADER_CHARS).replace(/^\uFEFF/, '').toLowerCase();
   s = s.replace(/\[[^\]]*\]|\([^)]*\)|\{[^}]*\}/g, ' ');
   s = s.replace(/["']/g, '');
   s = s.replace(/m\/s|km\/h/g, (u) => (u === 'm/s' ? ' ms ' : ' kmh '));

@@ -5,7 +5,7 @@
 import Papa from 'papaparse';
 import { detectColumns, detectUnits, type DetectedColumns } from './csv-columns';
 import type { CsvReaderOptions, CsvRowResult } from './csv-reader';
-import { CsvTextParser, detectDelimiter, type CsvDelimiter } from './csv-text-parser';
+import { CsvTextParser, detectDelimiter, firstContentLine, type CsvDelimiter } from './csv-text-parser';
 import { ImportError, type ImportIssue } from './issues';
 import { suggestDateOrder, type DateOrder } from './timestamp-parser';
 import type { SeaUnits } from './units';
@@ -61,7 +61,8 @@ export function previewCsv(text: string, options: CsvPreviewOptions = {}): CsvPr
     if (lastNl > 0) slice = slice.slice(0, lastNl + 1);
   }
   const body = slice.charCodeAt(0) === 0xfeff ? slice.slice(1) : slice;
-  const firstLine = /[^\r\n]*\S[^\r\n]*/.exec(body)?.[0] ?? '';
+  const first = firstContentLine(body);
+  const firstLine = first === null ? '' : body.slice(first.start, first.end);
   const delimiter = options.delimiter ?? detectDelimiter(firstLine);
   const decimalComma = options.decimalComma ?? delimiter === ';';
 

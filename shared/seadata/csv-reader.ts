@@ -13,11 +13,13 @@
  *   Periods are seconds, directions degrees coming from. Then the rules of validate.ts apply.
  * - a row with a different number of fields than the header is refused, except for extra empty
  *   fields at its end (a trailing delimiter).
+ * - a row (the header too) with more than MAX_COLUMNS fields (limits.ts) refuses the whole file.
  *
  * Periods that are not mapped or missing stay NaN: nothing is derived here.
  */
 import { detectColumns, detectUnits, type ColumnMapping, type DetectedColumns } from './csv-columns';
 import { ImportError, type ImportIssue } from './issues';
+import { MAX_COLUMNS, tooManyColumnsReason } from './limits';
 import { DEFAULT_MISSING_CODES, MissingCodes } from './missing-codes';
 import { parseDecimal } from './parse-decimal';
 import { SEA_VARIABLES, type SeaVariable } from './records';
@@ -127,6 +129,11 @@ export class CsvRecordReader {
     return this.headerNames;
   }
 
+  /** True once the file is refused as a whole: `end()` will throw and further rows are ignored. */
+  get failed(): boolean {
+    return this.fatal !== null;
+  }
+
   /** The mapping in use (null before the header). */
   get mapping(): ColumnMapping | null {
     return this.mappingUsed;
@@ -142,6 +149,11 @@ export class CsvRecordReader {
   pushRow(fields: readonly string[], line: number, problem?: string): void {
     if (this.ended) throw new Error('CsvRecordReader: pushRow after end');
     if (this.fatal !== null) return;
+    if (fields.length > MAX_COLUMNS) {
+      const shown = fields.slice(0, 8).join(', ');
+      this.fatal = ImportError.single(line, String(MAX_COLUMNS + 1), shown, tooManyColumnsReason(fields.length));
+      return;
+    }
     if (isBlankRow(fields)) return;
     if (this.headerNames === null) {
       this.readHeader(fields, line);

@@ -1,5 +1,6 @@
 /**
- * Format auto-detection of an upload from its first lines.
+ * Format auto-detection of an upload from its first lines, and the check that it is text at all
+ * (the browser runs it before the preview, the server before the import).
  */
 import { looksLikeNdbc } from './ndbc';
 
@@ -11,4 +12,22 @@ import { looksLikeNdbc } from './ndbc';
  */
 export function detectFormat(head: string): 'csv' | 'ndbc' {
   return looksLikeNdbc(head) ? 'ndbc' : 'csv';
+}
+
+/**
+ * Where the first byte that no text file holds sits in the leading text of an upload, or null:
+ * NUL or another C0 control character other than tab, line feed, vertical tab, form feed,
+ * carriage return and SUB (0x1A, the end-of-file mark of old DOS files). A PNG or gzip header,
+ * a ZIP file, an executable or random bytes all hold one within their first bytes.
+ */
+export function binaryMark(head: string): { line: number; column: number; code: number } | null {
+  for (let i = 0; i < head.length; i++) {
+    const c = head.charCodeAt(i);
+    if (c < 0x20 && c !== 0x09 && c !== 0x0a && c !== 0x0b && c !== 0x0c && c !== 0x0d && c !== 0x1a) {
+      let line = 1;
+      for (let k = head.indexOf('\n'); k !== -1 && k < i; k = head.indexOf('\n', k + 1)) line++;
+      return { line, column: i - head.lastIndexOf('\n', i - 1), code: c };
+    }
+  }
+  return null;
 }

@@ -19,7 +19,7 @@ export {
 export type { SeaVariable, SeaRecords, SeaRecordInput, SeaRecordsSummary } from './records';
 
 // Issues and validation
-export { ImportError, IssueList, MAX_LISTED_ISSUES } from './issues';
+export { ImportError, IssueList, MAX_LISTED_ISSUES, shownText } from './issues';
 export type { ImportIssue } from './issues';
 export {
   SeaRowValidator,
@@ -62,7 +62,8 @@ export { ColumnMappingSchema, detectColumns, detectUnits, normaliseHeader, mappe
 export type { ColumnMapping, DetectedColumns } from './csv-columns';
 export { CsvRecordReader } from './csv-reader';
 export type { CsvReaderOptions, CsvRowResult } from './csv-reader';
-export { CsvTextParser, detectDelimiter, CSV_DELIMITERS, MAX_CSV_ROW_CHARS } from './csv-text-parser';
+export { CsvTextParser, detectDelimiter, firstContentLine, CSV_DELIMITERS, MAX_CSV_ROW_CHARS } from './csv-text-parser';
+export { MAX_COLUMNS, MAX_LINE_CHARS } from './limits';
 export type { CsvDelimiter, CsvTextParserOptions } from './csv-text-parser';
 export { previewCsv } from './csv-preview';
 export type { CsvPreview, CsvPreviewOptions } from './csv-preview';
@@ -77,4 +78,4 @@ export {
   ndbcOptionsFromForm,
 } from './import-options';
 export type { DatasetKind, ImportFormat, ImportForm, ImportFormInput } from './import-options';
-export { detectFormat } from './detect-format';
+export { binaryMark, detectFormat } from './detect-format';

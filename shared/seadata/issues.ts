@@ -14,7 +14,11 @@ export interface ImportIssue {
    * as a whole (e.g. "no usable record").
    */
   line: number;
-  /** Header name of the column (as written in the file), or '' for the whole row or file. */
+  /**
+   * Header name of the column (as written in the file), or '' for the whole row or file. For a
+   * row refused for its size or for an unclosed quote, the 1-based place where it went wrong: the
+   * field number (too many columns) or the character number in the line (the reason says which).
+   */
   column: string;
   /** The raw text that was refused ('' when there is none). */
   value: string;
@@ -50,10 +54,27 @@ export class IssueList {
   add(line: number, column: string, value: string, reason: string): void {
     this.count++;
     if (this.items.length < this.limit) {
-      const v = value.length > MAX_VALUE_CHARS ? `${value.slice(0, MAX_VALUE_CHARS)}…` : value;
-      this.items.push({ line, column, value: v, reason });
+      this.items.push({ line, column: shownText(column), value: shownText(value), reason });
     }
   }
+}
+
+/**
+ * Text from a file as an issue shows it (and as the import report stores it, in a jsonb column):
+ * at most {@link MAX_VALUE_CHARS} characters, cut between code points, never inside a surrogate
+ * pair; C0 control characters other than tab, line feed and carriage return, and DEL, as their
+ * Unicode control pictures (U+2400-U+241F, U+2421), so that a NUL byte shows as '␀' and never
+ * reaches PostgreSQL (whose text and jsonb cannot hold U+0000); a lone surrogate as U+FFFD (jsonb
+ * refuses it too).
+ */
+export function shownText(raw: string): string {
+  const cut = raw.length > MAX_VALUE_CHARS;
+  let s = cut ? raw.slice(0, MAX_VALUE_CHARS) : raw;
+  if (cut && /[\uD800-\uDBFF]$/.test(s)) s = s.slice(0, -1);
+  // eslint-disable-next-line no-control-regex
+  s = s.replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g, (c) => String.fromCharCode(c === '\u007f' ? 0x2421 : 0x2400 + c.charCodeAt(0)));
+  s = s.replace(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, '\uFFFD');
+  return cut ? `${s}…` : s;
 }
 
 /**

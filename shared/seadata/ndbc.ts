@@ -35,11 +35,15 @@
  * value is kept as is; with `anemometerHeightM` it is brought to 10 m by the 1/7 power law
  * (common practice, DOMAIN.md), see `windSpeedAt10m`.
  *
+ * Limits (limits.ts): a line longer than MAX_LINE_CHARS (1 MiB) or with more than MAX_COLUMNS
+ * fields refuses the whole file, naming the line and the character or field past the limit.
+ *
  * Rows are checked with the rules of validate.ts; the file may be oldest-first (historical) or
  * newest-first (realtime): the first two rows fix the direction and the records are always
  * returned oldest-first.
  */
 import { ImportError } from './issues';
+import { groupDigits, MAX_COLUMNS, MAX_LINE_CHARS, tooManyColumnsReason } from './limits';
 import { SeaRowValidator, type BadRowMode, type ImportResult } from './validate';
 import { parseDecimal } from './parse-decimal';
 import { windHeightFactor } from './wind-height';
@@ -152,6 +156,11 @@ export class NdbcParser {
     return this.line;
   }
 
+  /** True once the file is refused as a whole: `end()` will throw, and further text is not read. */
+  get failed(): boolean {
+    return this.fatal !== null;
+  }
+
   /** Feeds the next piece of text. */
   push(chunk: string): void {
     if (this.ended) throw new Error('NdbcParser: push after end');
@@ -173,6 +182,11 @@ export class NdbcParser {
       nl = text.indexOf('\n', start);
     }
     this.rest = text.slice(start);
+    // A line still open past the limit is refused now rather than buffered to the end of the file.
+    if (this.rest.length > MAX_LINE_CHARS) {
+      this.tooLong(this.line + 1, this.rest);
+      this.rest = '';
+    }
   }
 
   /**
@@ -200,6 +214,10 @@ export class NdbcParser {
     let end = endExcl;
     if (end > start && text.charCodeAt(end - 1) === 13) end--; // CR of CRLF
     const line = text.slice(start, end);
+    if (line.length > MAX_LINE_CHARS) {
+      this.tooLong(this.line, line);
+      return;
+    }
     if (line.trim() === '') return;
     const first = line.trimStart();
     const c0 = first.charCodeAt(0);
@@ -228,7 +246,23 @@ export class NdbcParser {
     this.readRow(line);
   }
 
+  private tooLong(line: number, text: string): void {
+    this.fatal = ImportError.single(
+      line,
+      String(MAX_LINE_CHARS + 1),
+      text.slice(0, 80),
+      `a line longer than 1 MiB (${groupDigits(MAX_LINE_CHARS)} characters) without a line break`,
+    );
+  }
+
+  private tooManyFields(tokens: string[]): boolean {
+    if (tokens.length <= MAX_COLUMNS) return false;
+    this.fatal = ImportError.single(this.line, String(MAX_COLUMNS + 1), tokens.slice(0, 8).join(' '), tooManyColumnsReason(tokens.length));
+    return true;
+  }
+
   private readHeader(tokens: string[]): void {
+    if (this.tooManyFields(tokens)) return;
     const hasMinute = tokens[4] === 'mm';
     const timeCount = hasMinute ? 5 : 4;
     const columns: MappedColumn[] = [];
@@ -260,8 +294,9 @@ export class NdbcParser {
   private readRow(line: string): void {
     const h = this.header as NdbcHeader;
     const v = this.v;
-    v.beginRow(this.line);
     const f = line.trim().split(WS);
+    if (this.tooManyFields(f)) return;
+    v.beginRow(this.line);
     const timeRaw = f.slice(0, h.hasMinute ? 5 : 4).join(' ');
     if (f.length !== h.fieldCount) {
       v.rowIssue('', line.trim(), `expected ${h.fieldCount} fields as in the header, found ${f.length}`);

@@ -8,7 +8,9 @@
  */
 
 // Optional sign, digits with an optional fraction (or a bare fraction), optional exponent.
-const DECIMAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+// Written so that a run of digits can be matched one way only: the earlier `\d+\.?\d*` could
+// split "1111...1x" between its two digit runs in every way, quadratic in the length of the token.
+const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /**
  * Parses a decimal number written as text.

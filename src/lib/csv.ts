@@ -1,14 +1,9 @@
 // CSV built in the browser for the "Download CSV" buttons of every feature.
 
-/** One CSV field: quoted when needed; a leading =, +, - or @ is defused for spreadsheets. */
-export function csvField(v: string | number | boolean | null | undefined): string {
-  if (v === null || v === undefined) return '';
-  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '';
-  if (typeof v === 'boolean') return v ? 'yes' : 'no';
-  let s = /^[=+\-@\t\r]/.test(v) ? `'${v}` : v;
-  if (/[",\r\n]/.test(s)) s = `"${s.replace(/"/g, '""')}"`;
-  return s;
-}
+import { csvField } from '../../shared/csv-field';
+
+/** One CSV field: quoted when needed; a text that a spreadsheet would run as a formula is defused (shared/csv-field.ts). */
+export { csvField };
 
 /** A CSV document (CRLF line ends, RFC 4180) from a header and rows. */
 export function toCsv(header: string[], rows: (string | number | boolean | null | undefined)[][]): string {

@@ -7,11 +7,14 @@ import {
   CsvTextParser,
   HS_MAX_M,
   ImportError,
+  MAX_COLUMNS,
+  MAX_LINE_CHARS,
   NdbcParser,
   PERIOD_MAX_S,
   PERIOD_MIN_S,
   WIND_MAX_MS,
   previewCsv,
+  shownText,
   type ImportResult,
   type SeaRecords,
 } from '../../shared/seadata';
@@ -175,5 +178,118 @@ describe('parsers on arbitrary text', () => {
     for (let i = 0; i < 32; i++) p.push(chunk);
     expect(() => p.end()).toThrow(ImportError);
     expect(performance.now() - t0).toBeLessThan(10_000); // hang detection only, not a speed target
+  });
+});
+
+// Long runs of one piece of text: what makes a backtracking pattern or a growing buffer misbehave.
+// Before the limits and the linear scans, 1 MB of spaces held the CSV reader for hours (its
+// header search was a regular expression that backtracked quadratically), a 1 MB run of digits
+// took minutes in the number pattern, a header of unclosed brackets in the header normaliser,
+// and an NDBC line without a line break was buffered to the end of the file.
+const NDBC_HEADER = '#YY  MM DD hh mm WDIR WSPD GST  WVHT   DPD   APD MWD   PRES  ATMP  WTMP  DEWP  VIS  TIDE';
+const piece = fc.constantFrom(
+  ' ', '\t', '\n', '\r\n', '\r', ',', ';', '"', '""', '[', '(', '{', '1', '1 ', '1,', '.', 'e', '-', 'x', '#', '\u00a0', '\uFEFF',
+  '"a",', 'hs [', '2020-01-01 ', '\u0000', '🌊',
+);
+const longRun = fc.tuple(piece, fc.integer({ min: 20_000, max: 300_000 })).map(([p, n]) => p.repeat(Math.ceil(n / p.length)));
+const placements: ((run: string) => string)[] = [
+  (run) => run,
+  (run) => `time,${run}\n2020-01-01T00:00Z,1\n`,
+  (run) => `time,hs\n2020-01-01T00:00Z,${run}\n2020-01-01T01:00Z,1\n`,
+  (run) => `time,hs\n${run}`,
+  (run) => `${run}time,hs\n2020-01-01T00:00Z,1\n`,
+  (run) => `${NDBC_HEADER}\n${run}`,
+  (run) => `${NDBC_HEADER}\n2016 01 01 00 50 ${run}\n`,
+  (run) => `#YY MM DD hh ${run}\n`,
+];
+const longText = fc.tuple(fc.nat(placements.length - 1), longRun).map(([i, run]) => placements[i](run));
+
+/** Feeds the text in 64 KiB pieces, as the server's file stream does. */
+function feedInChunks(p: { push(s: string): void }, text: string): void {
+  for (let i = 0; i < text.length; i += 65_536) p.push(text.slice(i, i + 65_536));
+}
+
+// A generous bound per case, for hang detection only (not a speed target): the inputs are at most
+// about 300k characters, read in milliseconds; the quadratic paths took from seconds to hours.
+const PER_CASE_MS = 5_000;
+const NEVER_HANGS = { numRuns: 40, interruptAfterTimeLimit: 120_000, markInterruptAsFailure: true };
+
+describe('parsers on long runs of one character (never hang)', () => {
+  it('CsvTextParser and NdbcParser answer each case within a bounded time', () => {
+    fc.assert(
+      fc.property(longText, modes, (text, onBadRows) => {
+        for (const make of [() => new CsvTextParser({ onBadRows }), () => new NdbcParser({ onBadRows })]) {
+          const t0 = performance.now();
+          const p = make();
+          const r = returnsOrImportError(() => {
+            feedInChunks(p, text);
+            return p.end();
+          });
+          if (r !== undefined) checkRecords(r.records);
+          expect(performance.now() - t0).toBeLessThan(PER_CASE_MS);
+        }
+      }),
+      NEVER_HANGS,
+    );
+  });
+
+  it('previewCsv answers each case within a bounded time', () => {
+    fc.assert(
+      fc.property(longText, (text) => {
+        const t0 = performance.now();
+        expect(Array.isArray(previewCsv(text).rows)).toBe(true);
+        expect(performance.now() - t0).toBeLessThan(PER_CASE_MS);
+      }),
+      NEVER_HANGS,
+    );
+  });
+});
+
+describe('size limits (shared/seadata/limits.ts)', () => {
+  function refusal(p: { push(s: string): void; end(): unknown }, text: string) {
+    feedInChunks(p, text);
+    try {
+      p.end();
+    } catch (e) {
+      if (e instanceof ImportError) return e;
+      throw e;
+    }
+    throw new Error('expected an ImportError');
+  }
+
+  it('refuses a CSV row over the line limit at its line, with the character past the limit', () => {
+    const e = refusal(new CsvTextParser(), `time,hs\n2020-01-01T00:00Z,1\n${'1'.repeat(MAX_LINE_CHARS + 10)}\n`);
+    expect(e.issues[0]).toMatchObject({ line: 3, column: String(MAX_LINE_CHARS + 1) });
+    expect(e.message).toMatch(/line 3, column 1048577: a row longer than 1 MiB/);
+  });
+
+  it('names the opening quote of a row that never closes it', () => {
+    const e = refusal(new CsvTextParser(), `time,hs\n2020-01-01T00:00Z,"1\n${'2\n'.repeat(MAX_LINE_CHARS / 2 + 10)}`);
+    expect(e.issues[0]).toMatchObject({ line: 2, column: '19' });
+    expect(e.issues[0].reason).toMatch(/quote opened here is never closed/);
+  });
+
+  it('refuses a header of two million delimiters, and a row wider than the column limit', () => {
+    const wide = refusal(new CsvTextParser(), ','.repeat(2_000_000));
+    expect(wide.issues[0].line).toBe(1);
+    expect(wide.issues[0].reason).toMatch(/longer than 1 MiB/);
+    const columns = refusal(new CsvTextParser(), `time,hs${','.repeat(MAX_COLUMNS)}\n2020-01-01T00:00Z,1\n`);
+    expect(columns.issues[0]).toMatchObject({ line: 1, column: String(MAX_COLUMNS + 1) });
+    expect(columns.message).toMatch(/16,386 fields in one row, more than the 16,384 columns/);
+    const row = refusal(new CsvTextParser(), `time,hs\n2020-01-01T00:00Z,1${',1'.repeat(MAX_COLUMNS)}\n`);
+    expect(row.issues[0]).toMatchObject({ line: 2, column: String(MAX_COLUMNS + 1) });
+  });
+
+  it('refuses an NDBC line over the line limit or the column limit', () => {
+    const long = refusal(new NdbcParser(), `${NDBC_HEADER}\n${'1 '.repeat(MAX_LINE_CHARS)}`);
+    expect(long.issues[0]).toMatchObject({ line: 2, column: String(MAX_LINE_CHARS + 1) });
+    const wide = refusal(new NdbcParser(), `${NDBC_HEADER}\n${'1 '.repeat(MAX_COLUMNS + 1)}\n`);
+    expect(wide.issues[0]).toMatchObject({ line: 2, column: String(MAX_COLUMNS + 1) });
+  });
+
+  it('shows control characters, NUL included, as control pictures and never cuts a surrogate pair', () => {
+    expect(shownText('a\u0000b\u0007\u007f\tc')).toBe('a\u2400b\u2407\u2421\tc');
+    expect(shownText(`${'x'.repeat(79)}🌊🌊`)).toBe(`${'x'.repeat(79)}…`);
+    expect(shownText('lone \ud800 half')).toBe('lone \ufffd half');
   });
 });

@@ -5,6 +5,7 @@ import {
   DEFAULT_MISSING_CODES,
   ImportFormSchema,
   MAX_DEPTH_M,
+  binaryMark,
   detectFormat,
   isValidTimeZone,
   parseDecimal,
@@ -190,7 +191,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         const nl = text.lastIndexOf('\n');
         if (nl > 0) text = text.slice(0, nl + 1);
       }
-      if (text.includes('\u0000')) {
+      if (binaryMark(text) !== null) {
         setReadError('This is not a text file: it holds binary data. Choose a CSV or NDBC text file.');
         return;
       }
