@@ -16,6 +16,7 @@ import { workabilityRoutes } from './workability';
 import { campaignsRoutes } from './campaigns';
 import { ledgerRoutes } from './ledger';
 import { alertRoutes } from './alerts';
+import { internalBackupRoutes } from './internal-backup';
 
 /** Every API router, in the order they are mounted under /api. */
 export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
@@ -35,4 +36,5 @@ export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
   campaignsRoutes,
   ledgerRoutes,
   alertRoutes,
+  internalBackupRoutes,
 ];
