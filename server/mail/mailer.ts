@@ -6,6 +6,11 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html: string;
+  /**
+   * A stable id for the Message-ID header (`<id@sender's domain>`): a message sent again after a
+   * crash carries the same Message-ID, so mail systems can tell it is the same message.
+   */
+  messageId?: string;
 }
 
 export interface Mailer {
@@ -28,10 +33,11 @@ export async function createMailer(config: { smtpUrl?: string; from: string }): 
     fake = await startFakeSmtp();
     transport = nodemailer.createTransport({ host: fake.host, port: fake.port, secure: false, ignoreTLS: true });
   }
+  const domain = /@([^>\s]+)>?\s*$/.exec(config.from)?.[1] ?? 'lullwatch.invalid';
   return {
     fake,
-    async send(mail) {
-      await transport.sendMail({ from: config.from, ...mail });
+    async send({ messageId, ...mail }) {
+      await transport.sendMail({ from: config.from, ...mail, ...(messageId ? { messageId: `<${messageId}@${domain}>` } : {}) });
     },
     async close() {
       transport.close();

@@ -32,7 +32,8 @@ export const retryDelayMs = (attempt: number) => Math.min(60, 2 ** (attempt - 1)
  * Sends what is due in the outbox. A failure is retried later with backoff and marked failed
  * after `maxAttempts`. Each message is claimed (attempts + 1, next attempt pushed back) before it
  * is sent, so a crash mid-send does not send it again at once, and two delivery loops do not
- * pick the same message.
+ * pick the same message. Delivery is at least once: after a crash between the SMTP server's
+ * acceptance and the 'sent' update, the retry sends the message again, with the same Message-ID.
  */
 export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options: { maxAttempts: number; log: Logger; limit?: number }) {
   const due = await db
@@ -52,7 +53,9 @@ export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options:
       .returning({ id: outbox.id });
     if (claimed.length === 0) continue;
     try {
-      await mailer.send({ to: m.toEmail, subject: m.subject, text: m.text, html: m.html });
+      // The same Message-ID on every attempt: a resend after a crash between the SMTP server's
+      // acceptance and the 'sent' update below is recognisable as the same message.
+      await mailer.send({ to: m.toEmail, subject: m.subject, text: m.text, html: m.html, messageId: `outbox.${m.id}` });
       await db.update(outbox).set({ status: 'sent', sentAt: new Date(), lastError: null }).where(eq(outbox.id, m.id));
       sent++;
     } catch (err) {
