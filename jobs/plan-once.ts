@@ -2,9 +2,9 @@
 // process only: when a server holds it, this asks that server to run the job; it never opens the
 // same data folder twice. With DATABASE_URL (a PostgreSQL server) it runs here, and the job's
 // advisory lock keeps it from planning a project another instance is planning.
-import fs from 'node:fs';
 import path from 'node:path';
 import { loadEnv, resolveAuthSecret } from '../server/env';
+import { claimDataDir, liveClaim, releaseDataDir } from '../server/data-dir-claim';
 import { openDatabase } from '../server/db/client';
 import { migrateDatabase } from '../server/db/migrate';
 import { createAuth } from '../server/auth';
@@ -16,20 +16,14 @@ import { runPlanningJob } from './plan-job';
 const env = loadEnv();
 const projectId = process.argv.find((a) => a.startsWith('--project='))?.slice('--project='.length);
 
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
-}
-
 async function viaServer(): Promise<boolean> {
-  const file = path.join(path.resolve(env.DATA_DIR), 'server.json');
-  if (env.DATABASE_URL || !fs.existsSync(file)) return false;
-  const info = JSON.parse(fs.readFileSync(file, 'utf8')) as { pid: number; port: number; jobToken: string };
-  if (!alive(info.pid)) return false; // left behind by a server that was killed
+  if (env.DATABASE_URL) return false;
+  const info = liveClaim(env.DATA_DIR); // null when none runs, or the file was left by a killed server
+  if (!info) return false;
+  if (info.port === null) {
+    console.error(`A Lullwatch server (pid ${info.pid}) is starting on ${env.DATA_DIR} (migrations or the demo seed): run this again once it is up.`);
+    process.exit(2);
+  }
   const res = await fetch(`http://127.0.0.1:${info.port}/api/internal/jobs/plan`, {
     method: 'POST',
     headers: { 'content-type': 'application/json', 'x-lullwatch-job-token': info.jobToken },
@@ -48,6 +42,16 @@ async function viaServer(): Promise<boolean> {
 }
 
 if (!(await viaServer())) {
+  // On the embedded database, hold the data folder while it is open (server/data-dir-claim.ts).
+  if (!env.DATABASE_URL) {
+    try {
+      claimDataDir(env.DATA_DIR, 'plan-once');
+    } catch (err) {
+      console.error((err as Error).message);
+      process.exit(2);
+    }
+    process.on('exit', () => releaseDataDir(env.DATA_DIR));
+  }
   const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: path.join(env.DATA_DIR, 'db') });
   await migrateDatabase(database);
   const forecast = await createForecastProvider({ forecastUrl: env.FORECAST_URL, forecastApiKey: env.FORECAST_API_KEY });

@@ -7,6 +7,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { loadEnv } from '../server/env';
+import { claimDataDir, releaseDataDir } from '../server/data-dir-claim';
 import { dbFolder, formatSize, postgresAdvice, readBackupFile, runningServer, stamp, writeAtomically } from './db-common';
 
 function fail(message: string, code = 1): never {
@@ -32,6 +33,9 @@ if (given) {
 const dataDir = path.resolve(env.DATA_DIR);
 const server = runningServer(dataDir);
 let size: number;
+if (server && server.port === null) {
+  fail(`A Lullwatch server (pid ${server.pid}) is starting on ${dataDir} (migrations or the demo seed): run this again once it is up.`, 2);
+}
 if (server) {
   const res = await fetch(`http://127.0.0.1:${server.port}/api/internal/backup`, {
     method: 'POST',
@@ -66,11 +70,21 @@ if (server) {
   if (!fs.existsSync(path.join(folder, 'PG_VERSION'))) fail(`No embedded database in ${folder} (DATA_DIR=${env.DATA_DIR}).`);
   const { openDatabase } = await import('../server/db/client');
   const { dumpEmbeddedDatabase } = await import('../server/routes/internal-backup');
-  const database = await openDatabase({ dataDir: folder });
+  // Claimed while open, so no server starts on the folder meanwhile (server/data-dir-claim.ts).
   try {
-    size = await writeAtomically(target, await dumpEmbeddedDatabase(database.pglite!));
+    claimDataDir(dataDir, 'backup');
+  } catch (err) {
+    fail((err as Error).message, 2);
+  }
+  try {
+    const database = await openDatabase({ dataDir: folder });
+    try {
+      size = await writeAtomically(target, await dumpEmbeddedDatabase(database.pglite!));
+    } finally {
+      await database.close();
+    }
   } finally {
-    await database.close();
+    releaseDataDir(dataDir);
   }
 }
 

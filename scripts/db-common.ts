@@ -3,39 +3,16 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import { liveClaim, type ServerClaim } from '../server/data-dir-claim';
 
-/** What a running server writes to DATA_DIR/server.json (see server/runtime.ts). */
-export interface ServerInfo {
-  pid: number;
-  port: number;
-  jobToken: string;
-}
+/** What a running server writes to DATA_DIR/server.json (server/data-dir-claim.ts). */
+export type ServerInfo = ServerClaim;
 
 /** The embedded database's folder inside DATA_DIR (server/runtime.ts opens the same one). */
 export const dbFolder = (dataDir: string) => path.join(path.resolve(dataDir), 'db');
 
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch (err) {
-    // EPERM: the process exists but belongs to another user.
-    return (err as NodeJS.ErrnoException).code === 'EPERM';
-  }
-}
-
 /** The server holding DATA_DIR, or null when none runs (a server.json left by a killed server is ignored). */
-export function runningServer(dataDir: string): ServerInfo | null {
-  const file = path.join(path.resolve(dataDir), 'server.json');
-  if (!fs.existsSync(file)) return null;
-  let info: ServerInfo;
-  try {
-    info = JSON.parse(fs.readFileSync(file, 'utf8')) as ServerInfo;
-  } catch {
-    return null;
-  }
-  return Number.isInteger(info.pid) && alive(info.pid) ? info : null;
-}
+export const runningServer = (dataDir: string): ServerInfo | null => liveClaim(dataDir);
 
 /** UTC time as 20261202T004512Z, for file and folder names. */
 export function stamp(date = new Date()): string {

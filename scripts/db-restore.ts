@@ -13,6 +13,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { PGlite } from '@electric-sql/pglite';
 import { loadEnv } from '../server/env';
+import { claimDataDir, releaseDataDir } from '../server/data-dir-claim';
 import { BackupFileError, dbFolder, formatSize, postgresAdvice, readBackupFile, runningServer, stamp } from './db-common';
 
 function fail(message: string, code = 1): never {
@@ -109,8 +110,16 @@ try {
   fail(`Refused: ${file} does not open as a Lullwatch database (PostgreSQL ${pgVersion} data folder): ${(err as Error).message}. ${NOTHING_CHANGED}`);
 }
 
-// 4. Swap: the current folder is kept aside, the restored one takes its place.
+// 4. Swap: the current folder is kept aside, the restored one takes its place. The data folder is
+// claimed for the swap, so a server starting now waits for nothing and fails instead of opening it.
 refuseWhileServing();
+try {
+  claimDataDir(dataDir, 'restore');
+} catch (err) {
+  fs.rmSync(partial, { recursive: true, force: true });
+  fail(`${(err as Error).message} ${NOTHING_CHANGED}`, 2);
+}
+process.on('exit', () => releaseDataDir(dataDir));
 let keptAs: string | null = null;
 if (fs.existsSync(current)) {
   keptAs = path.join(dataDir, `db.before-restore-${when}`);

@@ -1,9 +1,9 @@
 import crypto from 'node:crypto';
-import fs from 'node:fs';
 import http from 'node:http';
 import path from 'node:path';
 import { count } from 'drizzle-orm';
 import { loadEnv, resolveAuthSecret, type Env } from './env';
+import { claimDataDir, publishPort, releaseDataDir } from './data-dir-claim';
 import { openDatabase, type Database } from './db/client';
 import { migrateDatabase } from './db/migrate';
 import { user } from './db/schema';
@@ -26,6 +26,20 @@ const CLIENT_DIR = path.resolve(import.meta.dirname, '../dist');
 
 /** Opens the database, migrates it, seeds the demo scenario when empty, and serves the app. */
 export async function startLullwatch(env: Env = loadEnv(), log: Logger = consoleLogger): Promise<Running> {
+  const jobToken = crypto.randomBytes(24).toString('base64url');
+  // The embedded database: claim the data folder before opening it, so no second server, backup,
+  // restore or plan:once opens it meanwhile (server/data-dir-claim.ts).
+  const embedded = !env.DATABASE_URL;
+  if (embedded) claimDataDir(env.DATA_DIR, jobToken);
+  try {
+    return await startOnClaimedFolder(env, log, jobToken);
+  } catch (err) {
+    if (embedded) releaseDataDir(env.DATA_DIR);
+    throw err;
+  }
+}
+
+async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Promise<Running> {
   const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: path.join(env.DATA_DIR, 'db') });
 
   const forecast = await createForecastProvider({ forecastUrl: env.FORECAST_URL, forecastApiKey: env.FORECAST_API_KEY });
@@ -37,7 +51,6 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
   const port = env.PORT;
   const provisionalBase = env.BASE_URL ?? `http://localhost:${port || 3000}`;
   const secret = resolveAuthSecret(env);
-  const jobToken = crypto.randomBytes(24).toString('base64url');
   const makeDeps = (baseURL: string): AppDeps => ({
     db: database.db,
     database,
@@ -80,11 +93,8 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
   });
   const actualPort = (server.address() as { port: number }).port;
   const url = env.BASE_URL ?? `http://localhost:${actualPort}`;
-  // Tell `npm run plan:once` that this process holds the embedded database, and how to reach it.
-  const serverFile = path.join(path.resolve(env.DATA_DIR), 'server.json');
-  if (database.kind === 'pglite') {
-    fs.writeFileSync(serverFile, JSON.stringify({ pid: process.pid, port: actualPort, jobToken }), { mode: 0o600 });
-  }
+  // Tell `npm run plan:once` and `db:backup` how to reach this process (it holds the embedded database).
+  if (database.kind === 'pglite') publishPort(env.DATA_DIR, actualPort, jobToken);
   log.info(`Lullwatch is running at ${url} (${database.kind === 'pglite' ? `embedded database in ${path.resolve(env.DATA_DIR)}` : 'PostgreSQL server'})`);
 
   return {
@@ -93,13 +103,13 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
     database,
     async close() {
       schedule.stop();
-      if (database.kind === 'pglite') fs.rmSync(serverFile, { force: true });
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await schedule.idle();
       await forecast.close();
       await mailer.close();
       await database.close();
+      if (database.kind === 'pglite') releaseDataDir(env.DATA_DIR);
     },
   };
 }
