@@ -64,8 +64,32 @@ const RecordsQuery = z.object({
   to: z.iso.datetime({ offset: true }).optional(),
 });
 
+/**
+ * An upload's temporary file is removed when its request ends; a process killed mid-upload leaves
+ * its file behind. Files older than a day are such leftovers (no upload takes that long, and
+ * another instance's upload in progress is younger), removed when the routes are built at start.
+ */
+const STALE_UPLOAD_MS = 24 * 3_600_000;
+function sweepStaleUploads(nowMs = Date.now()): void {
+  let names: string[];
+  try {
+    names = fs.readdirSync(UPLOAD_DIR);
+  } catch {
+    return; // no folder yet
+  }
+  for (const name of names) {
+    const file = path.join(UPLOAD_DIR, name);
+    try {
+      if (nowMs - fs.statSync(file).mtimeMs > STALE_UPLOAD_MS) fs.rmSync(file, { force: true });
+    } catch {
+      /* removed meanwhile */
+    }
+  }
+}
+
 export function datasetsRoutes({ db }: AppDeps): Router {
   const router = Router();
+  sweepStaleUploads();
 
   /** GET /api/projects/:projectId/datasets: every dataset of the project, newest first. */
   router.get('/projects/:projectId/datasets', async (req, res) => {

@@ -1,7 +1,10 @@
+import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { createApp } from '../../server/app';
 
 // Real NDBC buoy data (public domain, NOAA NDBC), kept beside the repo in ../shared/data/ndbc.
 const NDBC_DIR = path.resolve(import.meta.dirname, '../../../shared/data/ndbc');
@@ -185,5 +188,23 @@ describe('fetching forecasts', () => {
     const bad = await as.coordinator.post(`/api/projects/${t.demo.projectId}/forecasts/fetch`).send({});
     expect(bad.status).toBe(503);
     expect(await datasetCount()).toBe(before);
+  });
+});
+
+describe('upload leftovers', () => {
+  it('removes temporary upload files over a day old when the routes start, and keeps younger ones', () => {
+    // The folder multer writes to (server/routes/datasets.ts); a killed upload leaves its file there.
+    const dir = path.join(os.tmpdir(), 'lullwatch-uploads');
+    fs.mkdirSync(dir, { recursive: true });
+    const old = path.join(dir, `leftover-${process.pid}-old`);
+    const young = path.join(dir, `leftover-${process.pid}-young`);
+    fs.writeFileSync(old, 'x');
+    fs.writeFileSync(young, 'x');
+    const twoDaysAgo = new Date(Date.now() - 48 * 3_600_000);
+    fs.utimesSync(old, twoDaysAgo, twoDaysAgo);
+    createApp(t.deps);
+    expect(fs.existsSync(old)).toBe(false);
+    expect(fs.existsSync(young)).toBe(true);
+    fs.rmSync(young, { force: true });
   });
 });
