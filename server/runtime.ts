@@ -50,6 +50,10 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
 
   const port = env.PORT;
   const provisionalBase = env.BASE_URL ?? `http://localhost:${port || 3000}`;
+  // Cookies are Secure only when users reach the app over https; say so when production runs without it.
+  if (env.NODE_ENV === 'production' && !provisionalBase.startsWith('https://') && !/^http:\/\/(localhost|127\.0\.0\.1)[:/]/.test(`${provisionalBase}/`)) {
+    log.warn(`BASE_URL ${provisionalBase} is not https: session cookies are sent without the Secure flag. Serve the app over https (a TLS proxy) and set BASE_URL to the https address.`);
+  }
   const secret = resolveAuthSecret(env);
   const makeDeps = (baseURL: string): AppDeps => ({
     db: database.db,
