@@ -5,7 +5,8 @@ import helmet from 'helmet';
 import { toNodeHandler } from 'better-auth/node';
 import { CLIENT_IP_HEADER } from './auth';
 import type { AppDeps } from './deps';
-import { readSessionUser, setRequestUser } from './http/context';
+import { setRequestUser } from './http/context';
+import { createSessionReader } from './http/session-cache';
 import { errorHandler, HttpError } from './http/errors';
 import { sameOriginOnly } from './http/same-origin';
 import { API_ROUTERS } from './routes';
@@ -19,6 +20,8 @@ export interface AppOptions {
   exposeStack?: boolean;
   /** JSON body limit. */
   jsonLimit?: string;
+  /** How long a looked-up session is reused (default SESSION_CACHE_MS; 0 turns the reuse off). */
+  sessionCacheMs?: number;
 }
 
 /** Builds the Express app from its dependencies. `server/index.ts` starts it; tests call it directly. */
@@ -51,16 +54,19 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   });
 
   // Sign-in, sign-out and sessions: the auth library's own handler, before the JSON parser.
-  app.all('/api/auth/{*any}', toNodeHandler(deps.auth));
+  const sessions = createSessionReader(deps.auth, options.sessionCacheMs);
+  app.all('/api/auth/{*any}', sessions.forgetAfterChange, toNodeHandler(deps.auth));
 
   // Our own API refuses state-changing requests from other sites' pages (the auth library checks
   // Origin on its own routes above). Before the body parser and the session lookup.
   app.use('/api', sameOriginOnly(deps.config.trustedOrigins));
   app.use('/api', express.json({ limit: options.jsonLimit ?? '1mb' }));
   app.use('/api', async (req, _res, next) => {
-    setRequestUser(req, await readSessionUser(deps.auth, req));
+    setRequestUser(req, await sessions.read(req));
     next();
   });
+  // Deactivation and role changes go through the administration routes.
+  app.use('/api/admin', sessions.forgetAfterChange);
 
   const api = express.Router();
   for (const routes of API_ROUTERS) api.use(routes(deps));

@@ -18,6 +18,9 @@ export class Lru<V> {
   delete(key: string): void {
     this.map.delete(key);
   }
+  clear(): void {
+    this.map.clear();
+  }
   keys(): string[] {
     return [...this.map.keys()];
   }

@@ -1,0 +1,84 @@
+// The per-instance session lookup reuse (server/http/session-cache.ts): a change takes effect at
+// once on the instance that made it, and within the reuse time on another instance on the same
+// database. Common practice for signed session caches, no source: the window is the trade-off
+// written beside the code and in the README.
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp } from '../../server/app';
+import { DEMO_PASSWORD } from '../../seed/scenario';
+import { createTestApp, signIn, TEST_ORIGIN, type TestApp } from '../support/app';
+
+let t: TestApp;
+
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+async function sessionCookie(app: ReturnType<typeof createApp>, email: string): Promise<string> {
+  const res = await request(app).post('/api/auth/sign-in/email').set('Origin', TEST_ORIGIN).send({ email, password: DEMO_PASSWORD });
+  expect(res.status, res.text).toBe(200);
+  return (res.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
+}
+
+const me = (app: ReturnType<typeof createApp>, cookie: string) => request(app).get('/api/me').set('Cookie', cookie);
+
+describe('session lookups reused for a few seconds per instance', () => {
+  it('ends a deactivated user at once on the instance that deactivated them, and within the reuse time on another', async () => {
+    const reuseMs = 1500;
+    const a = createApp(t.deps, { sessionCacheMs: reuseMs });
+    const b = createApp(t.deps, { sessionCacheMs: reuseMs });
+    // Sign-ins empty the instance's cache too, so the administrator signs in before the lookups.
+    const admin = await signIn(a, 'admin@example.com');
+    const cookie = await sessionCookie(a, 'skipper@example.com');
+    expect((await me(a, cookie)).status).toBe(200);
+    expect((await me(b, cookie)).status).toBe(200);
+
+    const changedAt = Date.now();
+    const off = await admin.patch(`/api/admin/users/${t.demo.users.skipper}`).send({ active: false });
+    expect(off.status, off.text).toBe(200);
+
+    expect((await me(a, cookie)).status).toBe(401);
+    const onB = (await me(b, cookie)).status;
+    // Another instance may still answer from its reuse window, never after it.
+    if (Date.now() - changedAt < reuseMs) expect([200, 401]).toContain(onB);
+    await new Promise((r) => setTimeout(r, reuseMs + 100));
+    expect((await me(b, cookie)).status).toBe(401);
+
+    const on = await admin.patch(`/api/admin/users/${t.demo.users.skipper}`).send({ active: true });
+    expect(on.status, on.text).toBe(200);
+  });
+
+  it('ends a signed-out session at once on the instance that signed it out', async () => {
+    const a = createApp(t.deps);
+    const cookie = await sessionCookie(a, 'client@example.com');
+    expect((await me(a, cookie)).status).toBe(200);
+    const out = await request(a).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', cookie);
+    expect(out.status, out.text).toBe(200);
+    expect((await me(a, cookie)).status).toBe(401);
+  });
+
+  it('looks every session up afresh when the reuse is turned off (sessionCacheMs 0)', async () => {
+    const a = createApp(t.deps, { sessionCacheMs: 0 });
+    const b = createApp(t.deps, { sessionCacheMs: 0 });
+    const cookie = await sessionCookie(a, 'coordinator@example.com');
+    expect((await me(b, cookie)).status).toBe(200);
+    const out = await request(a).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', cookie);
+    expect(out.status, out.text).toBe(200);
+    expect((await me(b, cookie)).status).toBe(401);
+  });
+
+  it('reuses a lookup on another instance within the window (the documented trade-off)', async () => {
+    const b = createApp(t.deps, { sessionCacheMs: 60_000 });
+    const a = createApp(t.deps);
+    const cookie = await sessionCookie(a, 'coordinator@example.com');
+    expect((await me(b, cookie)).status).toBe(200);
+    const out = await request(a).post('/api/auth/sign-out').set('Origin', TEST_ORIGIN).set('Cookie', cookie);
+    expect(out.status, out.text).toBe(200);
+    // a (which handled the sign-out) refuses; b still has the lookup from before it.
+    expect((await me(a, cookie)).status).toBe(401);
+    expect((await me(b, cookie)).status).toBe(200);
+  });
+});
