@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { HttpError, parseInput } from '../http/errors';
 import { requireProjectMember } from '../services/project-access';
-import { hourChain, projectPlan, siteConditions } from '../services/plans';
+import { hourChain, projectPlan, projectPlanJson, siteConditions } from '../services/plans';
 import { icsDocument } from '../services/calendar';
 import { CAUTION_LINE } from '../../shared/caution';
 
@@ -29,7 +29,7 @@ export function planRoutes({ db, clock }: AppDeps): Router {
   router.get('/projects/:projectId/plan', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(PlanQuery, req.query, 'query');
-    res.json(await projectPlan(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock() }));
+    res.type('application/json').send(await projectPlanJson(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock() }));
   });
 
   /** GET .../plan/chain?operationId=&siteId=&time=: the chain behind one hour. */

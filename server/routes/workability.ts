@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { parseInput } from '../http/errors';
 import { requireProjectMember } from '../services/project-access';
-import { projectWorkability, workabilityCsv } from '../services/workability';
+import { projectWorkability, projectWorkabilityJson, workabilityCsv } from '../services/workability';
 
 const alphaFlag = z.enum(['true', 'false']).default('true').transform((v) => v === 'true');
 const WorkabilityQuery = z.object({ dataset: z.string().uuid('must be a dataset id').optional(), alpha: alphaFlag });
@@ -22,9 +22,9 @@ export function workabilityRoutes({ db }: AppDeps): Router {
   router.get('/projects/:projectId/workability', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(WorkabilityQuery, req.query, 'query');
-    const result = await projectWorkability(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha });
-    if (result.dataset) res.setHeader('x-dataset-id', result.dataset.id);
-    res.json(result.entries);
+    const result = await projectWorkabilityJson(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha });
+    if (result.datasetId) res.setHeader('x-dataset-id', result.datasetId);
+    res.type('application/json').send(result.body);
   });
 
   /** GET /api/projects/:projectId/workability.csv?dataset=&alpha=: the same statistics as one flat CSV table. */

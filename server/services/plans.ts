@@ -8,6 +8,7 @@ import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
 import { createHash } from 'node:crypto';
 import { Lru } from './lru';
+import { encodedAnswer } from './encoded-answers';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup } from './site-context';
 import { readSeries } from './series-store';
 
@@ -44,9 +45,25 @@ function setupKey(setup: ProjectSetup): string {
  * start of the current clock minute.
  */
 export async function projectPlan(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean; now: Date }): Promise<PlanAnswer> {
-  const row = await planDataset(db, projectId, options.datasetId);
   const generatedAt = options.now.toISOString();
-  if (!row) return { dataset: null, generatedAt, alpha: options.alpha, stepMinutes: 60, plans: [] };
+  const found = await recentPlan(db, projectId, options);
+  if (!found) return { dataset: null, generatedAt, alpha: options.alpha, stepMinutes: 60, plans: [] };
+  return { ...(await found.answer), generatedAt };
+}
+
+/** The same answer as JSON bytes: the plan is kept encoded with its memo entry; only `generatedAt` is new. */
+export async function projectPlanJson(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean; now: Date }): Promise<Buffer> {
+  const generatedAt = options.now.toISOString();
+  const found = await recentPlan(db, projectId, options);
+  if (!found) return Buffer.from(JSON.stringify({ dataset: null, generatedAt, alpha: options.alpha, stepMinutes: 60, plans: [] }));
+  const rest = await encodedAnswer(db, `plan:${found.key}`, () => found.answer);
+  // `{"generatedAt":"…",` + the kept answer without its opening brace (it is never empty).
+  return Buffer.concat([Buffer.from(`{"generatedAt":${JSON.stringify(generatedAt)},`), rest.subarray(1)]);
+}
+
+async function recentPlan(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean; now: Date }) {
+  const row = await planDataset(db, projectId, options.datasetId);
+  if (!row) return null;
   const setup = await loadProjectSetup(db, projectId);
   const minuteMs = Math.floor(options.now.getTime() / MS_PER_MINUTE) * MS_PER_MINUTE;
   const key = `${row.id}:${setupKey(setup)}:${options.alpha}:${minuteMs}`;
@@ -56,9 +73,10 @@ export async function projectPlan(db: Db, projectId: string, options: { datasetI
   if (!answer) {
     answer = computePlan(db, row, setup, options.alpha, new Date(minuteMs));
     memo.set(key, answer);
-    answer.catch(() => memo.delete(key));
+    const m = memo;
+    answer.catch(() => m.delete(key));
   }
-  return { ...(await answer), generatedAt };
+  return { key, answer };
 }
 
 async function computePlan(

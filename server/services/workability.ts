@@ -31,6 +31,7 @@ import { getDatasetRow, latestDataset } from './datasets';
 import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
 import { Lru } from './lru';
+import { encodedAnswer, forgetEncodedAnswers } from './encoded-answers';
 
 export type DatasetRow = NonNullable<Awaited<ReturnType<typeof latestDataset>>>;
 
@@ -60,6 +61,7 @@ function memoOf(db: Db): Memos {
 /** Forgets a database's in-process memos (tests; the `stats_cache` table stays). */
 export function clearStatsMemo(db: Db): void {
   memos.delete(db);
+  forgetEncodedAnswers(db);
 }
 
 /** A dataset's series, read once and kept in memory (stored datasets are never changed). */
@@ -293,10 +295,25 @@ export async function projectWorkability(db: Db, projectId: string, options: { d
   const row = await statisticsDataset(db, projectId, options.datasetId);
   if (!row) return { dataset: null, entries: [] };
   const setup = await loadProjectSetup(db, projectId);
+  return { dataset: row, entries: await workabilityEntries(db, row, setup, options.alpha) };
+}
+
+/**
+ * The same entries as JSON bytes, kept encoded under the dataset, the whole project setup (limits
+ * and the names shown) and alpha; `datasetId` is the dataset used (null without any hindcast).
+ */
+export async function projectWorkabilityJson(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean }): Promise<{ datasetId: string | null; body: Buffer }> {
+  const row = await statisticsDataset(db, projectId, options.datasetId);
+  if (!row) return { datasetId: null, body: Buffer.from('[]') };
+  const setup = await loadProjectSetup(db, projectId);
+  const setupHash = createHash('sha256').update(JSON.stringify([setup, row.dataPointDepthM])).digest('hex').slice(0, 32);
+  const body = await encodedAnswer(db, `workability:${row.id}:${setupHash}:${options.alpha}`, () => workabilityEntries(db, row, setup, options.alpha));
+  return { datasetId: row.id, body };
+}
+
+async function workabilityEntries(db: Db, row: DatasetRow, setup: ProjectSetup, alpha: boolean): Promise<WorkabilityEntry[]> {
   const version = limitsVersion(setup, row.dataPointDepthM);
-  const cached = await cachedStats(db, projectId, row.id, version, String(options.alpha), async () =>
-    computeWorkability(await datasetSeries(db, row.id), row, setup, options.alpha),
-  );
+  const cached = await cachedStats(db, row.projectId, row.id, version, String(alpha), async () => computeWorkability(await datasetSeries(db, row.id), row, setup, alpha));
   const ops = new Map(setup.operations.map((o) => [o.id, o]));
   const sites = new Map(setup.sites.map((s) => [s.id, s]));
   const entries: WorkabilityEntry[] = [];
@@ -320,7 +337,7 @@ export async function projectWorkability(db: Db, projectId: string, options: { d
   const opIndex = new Map(setup.operations.map((o, i) => [o.id, i]));
   const siteIndex = new Map(setup.sites.map((s, i) => [s.id, i]));
   entries.sort((a, b) => opIndex.get(a.operationId)! - opIndex.get(b.operationId)! || siteIndex.get(a.siteId)! - siteIndex.get(b.siteId)!);
-  return { dataset: row, entries };
+  return entries;
 }
 
 // ---------------------------------------------------------------------------------------------

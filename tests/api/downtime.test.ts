@@ -166,6 +166,19 @@ describe('workability statistics', () => {
     expect((await as.client.get(`${base}/workability`)).body).toEqual(first);
   });
 
+  it('shows a renamed operation at once (answers kept encoded are keyed by the whole setup)', async () => {
+    const before = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const { operationId, operationName } = before[0];
+    const renamed = await as.coordinator.patch(`${base}/operations/${operationId}`).send({ name: `${operationName} (renamed)` });
+    expect(renamed.status, renamed.text).toBe(200);
+    const after = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    expect(after.filter((e) => e.operationId === operationId).map((e) => e.operationName)).toEqual(
+      before.filter((e) => e.operationId === operationId).map(() => `${operationName} (renamed)`),
+    );
+    expect((await as.coordinator.patch(`${base}/operations/${operationId}`).send({ name: operationName })).status).toBe(200);
+    expect((await as.client.get(`${base}/workability`)).body).toEqual(before);
+  });
+
   it('downloads the same numbers as CSV', async () => {
     const json = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
     const res = await as.client.get(`${base}/workability.csv`).buffer(true).parse((r, cb) => {
