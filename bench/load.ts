@@ -16,10 +16,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import net from 'node:net';
 import { parseArgs } from 'node:util';
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawn, type ChildProcess } from 'node:child_process';
 import autocannon from 'autocannon';
+import { buildClientIfStale } from '../scripts/lib/client-build';
+import { freePort } from '../scripts/lib/free-port';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 const DEMO_PASSWORD = 'lullwatch-demo';
@@ -61,39 +62,7 @@ const CONNECTIONS = positiveInt('connections', args.connections, 1, 500);
 const PAGE_EVERY_S = positiveInt('page-every', args['page-every'], 1, 3600);
 
 // ---------------------------------------------------------------------------------------------
-// Client build (the same staleness test as `npm start`)
-
-function newestMtime(entry: string): number {
-  const stat = fs.statSync(entry, { throwIfNoEntry: false });
-  if (!stat) return 0;
-  if (!stat.isDirectory()) return stat.mtimeMs;
-  let newest = stat.mtimeMs;
-  for (const name of fs.readdirSync(entry)) newest = Math.max(newest, newestMtime(path.join(entry, name)));
-  return newest;
-}
-
-function buildClientIfStale(): void {
-  const sources = ['src', 'shared', 'index.html', 'vite.config.ts', 'package.json'].map((p) => path.join(ROOT, p));
-  const builtAt = fs.statSync(path.join(ROOT, 'dist', 'index.html'), { throwIfNoEntry: false })?.mtimeMs ?? 0;
-  if (builtAt >= Math.max(...sources.map(newestMtime))) return;
-  console.log('Building the client (dist/ is missing or older than its sources)...');
-  const result = spawnSync(process.execPath, [path.join(ROOT, 'node_modules/vite/bin/vite.js'), 'build'], { cwd: ROOT, stdio: 'inherit' });
-  if (result.status !== 0) throw new Error('the client build failed');
-}
-
-// ---------------------------------------------------------------------------------------------
 // The server as a child process
-
-async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 interface Server {
   child: ChildProcess;
@@ -392,7 +361,7 @@ async function main(): Promise<void> {
   );
   console.log(`Demo hindcast ${YEARS} years; ${CONNECTIONS} users and connections; warm-up ${WARMUP_S} s; measured ${DURATION_S} s\n`);
 
-  buildClientIfStale();
+  buildClientIfStale(ROOT);
   const s = await startServer();
 
   const adminCookie = await signIn(s.baseUrl, ADMIN_EMAIL, DEMO_PASSWORD, '198.51.100.254');

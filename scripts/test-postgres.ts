@@ -7,10 +7,10 @@
 // folder; otherwise the newest /usr/lib/postgresql/<version>/bin or `pg_config --bindir` is used.
 // PostgreSQL refuses to run as root, so as root the cluster runs as the `postgres` user.
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { spawn, spawnSync } from 'node:child_process';
+import { freePort } from './lib/free-port';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 /** The suites that touch the database through the API and the jobs. */
@@ -27,17 +27,6 @@ function findPgBin(): string | null {
   const pgConfig = spawnSync('pg_config', ['--bindir'], { encoding: 'utf8' });
   if (pgConfig.status === 0) candidates.push(pgConfig.stdout.trim());
   return candidates.find((dir) => fs.existsSync(path.join(dir, 'initdb')) && fs.existsSync(path.join(dir, 'pg_ctl'))) ?? null;
-}
-
-async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
 }
 
 const asRoot = process.getuid?.() === 0;

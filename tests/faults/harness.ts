@@ -4,7 +4,6 @@
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
-import { spawn, type ChildProcess } from 'node:child_process';
 import { PGlite } from '@electric-sql/pglite';
 import { amcheck } from '@electric-sql/pglite/contrib/amcheck';
 import { getTableName, isTable, type Table } from 'drizzle-orm';
@@ -15,122 +14,7 @@ import * as schema from '../../server/db/schema';
 import { openDatabase } from '../../server/db/client';
 import { MIGRATIONS_FOLDER } from '../../server/db/migrate';
 
-export const ROOT = path.resolve(import.meta.dirname, '../..');
-
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
-}
-
-/**
- * The environment of a child: this process's plus `extra`, without a database URL or the
- * BASE_URL that Vite puts in the test process's environment (unless `extra` gives them).
- */
-function childEnv(extra: Record<string, string>): NodeJS.ProcessEnv {
-  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'production', ...extra };
-  for (const key of ['DATABASE_URL', 'BASE_URL', 'PORT', 'SMTP_URL', 'FORECAST_URL']) if (!(key in extra)) delete env[key];
-  return env;
-}
-
-export interface ChildServer {
-  baseUrl: string;
-  port: number;
-  pid: number;
-  child: ChildProcess;
-  output(): string;
-  /** Resolves when the process has exited (and was reaped). */
-  exited: Promise<void>;
-  /** SIGKILL now; resolves once the process is gone. */
-  kill(): Promise<void>;
-  /** SIGTERM (graceful close), SIGKILL after 15 s. */
-  stop(): Promise<void>;
-}
-
-/**
- * Starts `node --import tsx server/index.ts` (the server is this very process, so a SIGKILL
- * reaches it, unlike the tsx command that runs it in a grandchild) and waits for /api/health.
- */
-export async function startServer(dataDir: string, env: Record<string, string> = {}): Promise<ChildServer> {
-  const port = await freePort();
-  const baseUrl = `http://127.0.0.1:${port}`;
-  let out = '';
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: ROOT,
-    env: childEnv({
-      PORT: String(port),
-      HOST: '127.0.0.1',
-      DATA_DIR: dataDir,
-      BASE_URL: baseUrl,
-      JOBS_ENABLED: 'false',
-      DEMO_HINDCAST_YEARS: '1',
-      ...env,
-    }),
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  child.stdout!.on('data', (d) => (out += d));
-  child.stderr!.on('data', (d) => (out += d));
-  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  const deadline = Date.now() + 120_000;
-  for (;;) {
-    if (child.exitCode !== null || child.signalCode !== null) throw new Error(`server exited early:\n${out}`);
-    if (Date.now() > deadline) {
-      child.kill('SIGKILL');
-      throw new Error(`server did not start:\n${out}`);
-    }
-    const ok = await fetch(`${baseUrl}/api/health`).then(
-      (r) => r.ok,
-      () => false,
-    );
-    if (ok) break;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  const gone = () => child.exitCode !== null || child.signalCode !== null;
-  return {
-    baseUrl,
-    port,
-    pid: child.pid!,
-    child,
-    output: () => out,
-    exited,
-    async kill() {
-      if (!gone()) child.kill('SIGKILL');
-      await exited;
-    },
-    async stop() {
-      if (!gone()) {
-        child.kill('SIGTERM');
-        const timer = setTimeout(() => child.kill('SIGKILL'), 15_000);
-        await exited;
-        clearTimeout(timer);
-      }
-    },
-  };
-}
-
-export interface ScriptRun {
-  code: number | null;
-  stdout: string;
-  stderr: string;
-}
-
-/** Runs a TypeScript command (`scripts/...`) the way `npm run` does, from the repository root. */
-export function runScript(script: string, args: string[], env: Record<string, string>): Promise<ScriptRun> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', script, ...args], { cwd: ROOT, env: childEnv(env), stdio: ['ignore', 'pipe', 'pipe'] });
-    let stdout = '';
-    let stderr = '';
-    child.stdout.on('data', (d) => (stdout += d));
-    child.stderr.on('data', (d) => (stderr += d));
-    child.once('error', reject);
-    child.once('exit', (code) => resolve({ code, stdout, stderr }));
-  });
-}
+export { ROOT, freePort, runScript, startServer, type ChildServer, type ScriptRun } from '../support/child-server';
 
 /** What the server wrote to DATA_DIR/server.json. */
 export function serverInfo(dataDir: string): { pid: number; port: number; jobToken: string } {

@@ -1,76 +1,39 @@
 // Browser tests: the built app started as a child process on a free port with a temporary
 // database, driven by playwright-core in Debian's chromium (never a downloaded browser).
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { spawn, type ChildProcess } from 'node:child_process';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { ROOT, startServer as startChildServer } from './child-server';
 
-const ROOT = path.resolve(import.meta.dirname, '../..');
 export const SCREENSHOT_DIR = path.join(ROOT, 'tests/.artifacts/screenshots');
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 export interface RunningServer {
   baseUrl: string;
   dataDir: string;
-  child: ChildProcess;
-  output: () => string;
   stop(): Promise<void>;
 }
 
-/** Starts `server/index.ts` (the built client must exist: `npm test` builds it first). */
+/** Starts the built app on a temporary data folder with a 5-year demo hindcast (the built client must exist: `npm test` builds it first). */
 export async function startServer(env: Record<string, string> = {}): Promise<RunningServer> {
   if (!fs.existsSync(path.join(ROOT, 'dist/index.html'))) throw new Error('dist/ is missing: run `npm run build` first');
-  const port = await freePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-e2e-'));
-  let out = '';
-  const child = spawn(path.join(ROOT, 'node_modules/.bin/tsx'), ['server/index.ts'], {
-    cwd: ROOT,
-    env: { ...process.env, NODE_ENV: 'production', PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dataDir, BASE_URL: `http://127.0.0.1:${port}`, DEMO_HINDCAST_YEARS: '5', JOBS_ENABLED: 'false', ...env },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  child.stdout!.on('data', (d) => (out += d));
-  child.stderr!.on('data', (d) => (out += d));
-  const baseUrl = `http://127.0.0.1:${port}`;
-  const deadline = Date.now() + 90_000;
-  while (Date.now() < deadline) {
-    if (child.exitCode !== null) throw new Error(`server exited early:\n${out}`);
-    try {
-      const res = await fetch(`${baseUrl}/api/health`);
-      if (res.ok) break;
-    } catch {
-      /* not up yet */
-    }
-    await new Promise((r) => setTimeout(r, 250));
+  try {
+    const server = await startChildServer(dataDir, { DEMO_HINDCAST_YEARS: '5', ...env });
+    return {
+      baseUrl: server.baseUrl,
+      dataDir,
+      async stop() {
+        await server.stop();
+        fs.rmSync(dataDir, { recursive: true, force: true });
+      },
+    };
+  } catch (err) {
+    fs.rmSync(dataDir, { recursive: true, force: true });
+    throw err;
   }
-  if (Date.now() >= deadline) throw new Error(`server did not start:\n${out}`);
-  return {
-    baseUrl,
-    dataDir,
-    child,
-    output: () => out,
-    async stop() {
-      if (child.exitCode === null) {
-        const exited = new Promise((r) => child.once('exit', r));
-        child.kill('SIGTERM');
-        await Promise.race([exited, new Promise((r) => setTimeout(r, 10_000))]);
-        if (child.exitCode === null) child.kill('SIGKILL');
-      }
-      fs.rmSync(dataDir, { recursive: true, force: true });
-    },
-  };
 }
 
 export interface Browser {
