@@ -5,11 +5,10 @@ import type { PlanSummary } from '../shared/alerts/compare-plans';
 import { CAUTION_LINE } from '../shared/caution';
 import type { AppDeps } from '../server/deps';
 import { planRun, project } from '../server/db/schema';
-import { localTime, unsubscribeToken } from '../server/services/alert-mail';
+import { escapeHtml, localTime, unsubscribeToken } from '../server/services/alert-mail';
 import { enqueueMail } from '../server/services/outbox';
 import { covers, effectiveSubscriptions, markDigestSent } from '../server/services/subscriptions';
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /**
  * Daily digests: for every subscription that asks for one, once per local day at or after its
@@ -52,7 +51,7 @@ export async function queueDigests(deps: AppDeps): Promise<number> {
             toEmail: s.email,
             subject: `${p.name}: windows for ${format(local, 'EEE d MMM')}`,
             text: [`${p.name}, daily summary`, '', ...lines.map((l) => `- ${l}`), '', `Board: ${board}`, '', CAUTION_LINE, `Stop these e-mails: ${unsub}`].join('\n'),
-            html: `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;max-width:560px"><p style="font-weight:700">${esc(p.name)}, daily summary</p><ul>${lines.map((l) => `<li>${esc(l)}</li>`).join('')}</ul><p><a href="${esc(board)}">Open the watch board</a></p><p style="font-size:12px;color:#4a5d66">${esc(CAUTION_LINE)}</p><p style="font-size:12px"><a href="${esc(unsub)}">Stop these e-mails</a></p></body></html>`,
+            html: `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;max-width:560px"><p style="font-weight:700">${escapeHtml(p.name)}, daily summary</p><ul>${lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul><p><a href="${escapeHtml(board)}">Open the watch board</a></p><p style="font-size:12px;color:#4a5d66">${escapeHtml(CAUTION_LINE)}</p><p style="font-size:12px"><a href="${escapeHtml(unsub)}">Stop these e-mails</a></p></body></html>`,
           },
         ],
         now,

@@ -67,7 +67,6 @@ export function verifyUnsubscribe(secret: string, userId: string, projectId: str
  * memory). Every name and note a user typed goes through it before it enters an e-mail or page.
  */
 export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-const esc = escapeHtml;
 
 /** One e-mail for one recipient about one operation at one worksite. */
 export function alertEmail(args: {
@@ -94,12 +93,12 @@ export function alertEmail(args: {
     `Stop these e-mails: ${args.unsubscribeUrl}`,
   ].join('\n');
   const html = `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;color:#10222c;max-width:560px">
-<p style="font-size:16px;font-weight:700;margin:0 0 4px">${esc(plan.operationName)} at ${esc(plan.siteName)}</p>
-<p style="font-size:13px;color:#4a5d66;margin:0 0 12px">${esc(args.projectName)} · times are ${esc(plan.timeZone)}</p>
-<ul style="font-size:15px;padding-left:18px">${lines.map((l) => `<li style="margin-bottom:6px">${esc(l)}</li>`).join('')}</ul>
-<p><a href="${esc(args.boardUrl)}" style="display:inline-block;background:#0b7a72;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Open the watch board</a></p>
-<p style="font-size:12px;color:#4a5d66">${esc(CAUTION_LINE)}</p>
-<p style="font-size:12px"><a href="${esc(args.unsubscribeUrl)}">Stop these e-mails</a></p>
+<p style="font-size:16px;font-weight:700;margin:0 0 4px">${escapeHtml(plan.operationName)} at ${escapeHtml(plan.siteName)}</p>
+<p style="font-size:13px;color:#4a5d66;margin:0 0 12px">${escapeHtml(args.projectName)} · times are ${escapeHtml(plan.timeZone)}</p>
+<ul style="font-size:15px;padding-left:18px">${lines.map((l) => `<li style="margin-bottom:6px">${escapeHtml(l)}</li>`).join('')}</ul>
+<p><a href="${escapeHtml(args.boardUrl)}" style="display:inline-block;background:#0b7a72;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Open the watch board</a></p>
+<p style="font-size:12px;color:#4a5d66">${escapeHtml(CAUTION_LINE)}</p>
+<p style="font-size:12px"><a href="${escapeHtml(args.unsubscribeUrl)}">Stop these e-mails</a></p>
 </body></html>`;
   return { subject, text, html };
 }

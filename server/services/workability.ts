@@ -344,8 +344,6 @@ async function workabilityEntries(db: Db, row: DatasetRow, setup: ProjectSetup, 
 // CSV
 // ---------------------------------------------------------------------------------------------
 
-/** A CSV field: quoted when needed; a text that a spreadsheet would run as a formula is defused (shared/csv-field.ts). */
-export { csvField };
 
 /**
  * The statistics as one flat CSV table: a row per calendar month (`scope` = month, `year` empty)
