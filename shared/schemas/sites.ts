@@ -8,7 +8,7 @@
  * north, TPOP and TC in h, limits as in `shared/engine/schemas.ts`.
  */
 import { z } from 'zod';
-import { WEATHER_RESTRICTED_MAX_TR_H } from '../engine/alpha-factor';
+import { WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../engine/alpha-factor';
 import { alphaTableSchema, LIMIT_RANGES, operationLimitsSchema } from '../engine/schemas';
 import { longText, nameText, storableText } from './common';
 
@@ -396,7 +396,7 @@ const operationFields = {
   tpop: hours('TPOP', LIMIT_RANGES.tpopH),
   /** contingency time TC, h */
   tc: hours('TC', LIMIT_RANGES.tcH),
-  /** planned on a forecast with OPWF = alpha * OPLIM (needs TR <= 72 h) */
+  /** planned on a forecast with OPWF = alpha * OPLIM (needs TPOP <= 72 h and TR <= 96 h) */
   weatherRestricted: z.boolean({ error: 'Weather-restricted must be true or false' }),
   /** OPLIM: at least one limit (shared/engine/schemas.ts) */
   limits: operationLimitsSchema,
@@ -407,8 +407,9 @@ const operationFields = {
 };
 
 /**
- * Refuses a weather-restricted operation whose reference period TR = TPOP + TC exceeds 72 h
- * (DOMAIN.md: "Weather-restricted operations (TR up to 72 h)"), and ids listed twice.
+ * Refuses an operation marked weather-restricted whose TPOP exceeds 72 h or whose reference period
+ * TR = TPOP + TC exceeds 96 h (both bounds included; from memory of DNV-ST-N001 and DNV-OS-H101,
+ * docs/domain.md#weather-restricted), and ids listed twice.
  */
 function checkOperation(
   v: { tpop?: number; tc?: number; weatherRestricted?: boolean; siteIds?: string[]; skipperIds?: string[] },
@@ -416,11 +417,17 @@ function checkOperation(
 ): void {
   if (v.weatherRestricted && v.tpop !== undefined && v.tc !== undefined) {
     const tr = v.tpop + v.tc;
-    if (tr > WEATHER_RESTRICTED_MAX_TR_H) {
+    if (v.tpop > WEATHER_RESTRICTED_MAX_TPOP_H) {
       ctx.addIssue({
         code: 'custom',
         path: ['weatherRestricted'],
-        message: `A weather-restricted operation needs TR = TPOP + TC of at most ${WEATHER_RESTRICTED_MAX_TR_H} h (here ${tr} h): shorten it or plan it as unrestricted`,
+        message: `A weather-restricted operation needs TPOP of at most ${WEATHER_RESTRICTED_MAX_TPOP_H} h (here ${v.tpop} h): split it at safe points or plan it as not weather-restricted`,
+      });
+    } else if (tr > WEATHER_RESTRICTED_MAX_TR_H) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['weatherRestricted'],
+        message: `A weather-restricted operation needs TR = TPOP + TC of at most ${WEATHER_RESTRICTED_MAX_TR_H} h (here ${tr} h): shorten it or plan it as not weather-restricted`,
       });
     }
   }
