@@ -21,6 +21,12 @@ export interface OperationSitePlan {
   tc: number;
   tr: number;
   weatherRestricted: boolean;
+  /**
+   * Not weather-restricted (not marked so, TPOP above 72 h or TR above 96 h; Convention 5): the
+   * statuses are against OPLIM for information only, labelled "not weather-restricted"; there are
+   * never windows, an earliest start or "may start now".
+   */
+  informationOnly: boolean;
   skipperIds: string[];
   windows: PlanWindow[];
   earliestStart: string | null;
@@ -33,8 +39,11 @@ export interface OperationSitePlan {
   /** Smallest relative margin per hour (limit - value)/limit; null = no data. */
   marginRel: (number | null)[];
   /** Occurrences of a recurring operation in the horizon, judged on [start, start + TR). */
-  occurrences: { start: string; status: 'go' | 'marginal' | 'no_go' | 'no_data' }[];
+  occurrences: { start: string; status: OccurrenceStatus }[];
 }
+
+/** An occurrence's judgement; "information" for an operation that is not weather-restricted (never go). */
+export type OccurrenceStatus = 'go' | 'marginal' | 'no_go' | 'no_data' | 'information';
 
 export interface PlanAnswer {
   dataset: { id: string; name: string; kind: string; issuedAt: string | null; start: string; end: string } | null;
@@ -53,6 +62,8 @@ export interface HourChainAnswer {
   site: { depthM: number; hs: number | null; bedVelocityLinear: number | null; bedVelocitySoulsby: number | null; wind: number | null };
   status: HourStatus;
   checks: LimitCheck[];
+  /** The operation is not weather-restricted: the hour is shown against OPLIM for information only. */
+  informationOnly: boolean;
 }
 
 export interface ConditionsAnswer {

@@ -67,8 +67,29 @@ export interface FakeForecastRequest {
   longitude: number;
   /** Issue time, ms UTC; must be on the 6-hour cycle. */
   issuedAtMs: number;
-  /** Forecast length in days, 1-16 (hourly values: horizonDays * 24). */
+  /** Forecast length in days, 1-16 (see {@link fakeForecastLeadHours} for the steps). */
   horizonDays: number;
+}
+
+/** Lead time up to which the fake forecast is hourly, h; 3-hourly after it, as many real services are. */
+export const FAKE_HOURLY_UNTIL_H = 72;
+
+/**
+ * Lead times of the fake forecast's records, h: hourly from 0 to +72 h, then 3-hourly to the
+ * horizon (+240 h for 10 days), so the plan shows a forecast that changes step part-way
+ * (docs/domain.md#weather-windows). Horizons up to 3 days are hourly to the last hour before the
+ * horizon, as before.
+ */
+export function fakeForecastLeadHours(horizonDays: number): number[] {
+  const horizonH = horizonDays * 24;
+  const leads: number[] = [];
+  if (horizonH <= FAKE_HOURLY_UNTIL_H) {
+    for (let h = 0; h < horizonH; h++) leads.push(h);
+    return leads;
+  }
+  for (let h = 0; h <= FAKE_HOURLY_UNTIL_H; h++) leads.push(h);
+  for (let h = FAKE_HOURLY_UNTIL_H + 3; h <= horizonH; h += 3) leads.push(h);
+  return leads;
 }
 
 /** ISO 8601 UTC with `Z`, whole seconds. */
@@ -106,13 +127,15 @@ export function buildFakeForecast(request: FakeForecastRequest): ForecastRespons
   const truthSeed = truthSeedForPosition(request.seed, latitude, longitude);
   const errSeed = mix32(truthSeed ^ 0x5bd1e995);
   const issueIndex = Math.round(issuedAtMs / cycleMs);
-  const n = horizonDays * 24;
+  const leads = fakeForecastLeadHours(horizonDays);
+  const n = leads.length;
+  const horizonH = leads[n - 1] + 1;
 
   // Truth over the forecast period with a margin for the timing error (at most 20.2 h).
   const marginH = 24;
   const truth = generateSyntheticSea({
     startMs: issuedAtMs - marginH * MS_PER_HOUR,
-    hours: n + 2 * marginH,
+    hours: horizonH + 2 * marginH,
     seed: truthSeed,
     climate: climateForPosition(latitude),
   });
@@ -126,7 +149,8 @@ export function buildFakeForecast(request: FakeForecastRequest): ForecastRespons
     windDirectionDeg: new Array<number | null>(n),
   };
   const last = truth.hsM.length - 1;
-  for (let h = 0; h < n; h++) {
+  for (let r = 0; r < n; r++) {
+    const h = leads[r];
     const tMs = issuedAtMs + h * MS_PER_HOUR;
     const tH = tMs / MS_PER_HOUR;
     const leadDays = h / 24;
@@ -151,12 +175,13 @@ export function buildFakeForecast(request: FakeForecastRequest): ForecastRespons
     tp = Math.min(40, Math.max(0.5, Math.round(tp * 10) / 10));
     const wind = Math.min(99.9, Math.max(0, Math.round(windTrue * Math.exp(eWind) * 10) / 10));
 
-    hourly.time[h] = iso(tMs);
-    hourly.waveHeightM[h] = hs;
-    hourly.peakPeriodS[h] = tp;
-    hourly.waveDirectionDeg[h] = Math.round(wrap360(truth.dirDeg[near] + eDir)) % 360;
-    hourly.windSpeedMps[h] = wind;
-    hourly.windDirectionDeg[h] = Math.round(wrap360(truth.windDirDeg[near] + 1.5 * eDir)) % 360;
+    hourly.time[r] = iso(tMs);
+    hourly.waveHeightM[r] = hs;
+    hourly.peakPeriodS[r] = tp;
+    hourly.waveDirectionDeg[r] = Math.round(wrap360(truth.dirDeg[near] + eDir)) % 360;
+    hourly.windSpeedMps[r] = wind;
+    hourly.windDirectionDeg[r] = Math.round(wrap360(truth.windDirDeg[near] + 1.5 * eDir)) % 360;
   }
+  // stepMinutes stays 60 (the wire format's first step); the times carry the change to 3-hourly.
   return { latitude, longitude, issuedAt: iso(issuedAtMs), stepMinutes: 60, hourly };
 }

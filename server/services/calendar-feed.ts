@@ -59,7 +59,7 @@ export async function calendarFeed(db: Db, token: string, now: Date): Promise<st
           uid: `occurrence-${op.operationId}-${op.siteId}-${o.start}@lullwatch`,
           start: new Date(o.start),
           end: new Date(Date.parse(o.start) + op.tr * 3_600_000),
-          summary: `${o.status === 'go' ? 'GO' : o.status === 'no_go' ? 'NO-GO' : o.status === 'marginal' ? 'MARGINAL' : 'NO DATA'}: ${op.operationName} at ${op.siteName}`,
+          summary: `${o.status === 'go' ? 'GO' : o.status === 'no_go' ? 'NO-GO' : o.status === 'marginal' ? 'MARGINAL' : o.status === 'information' ? 'NOT WEATHER-RESTRICTED (information)' : 'NO DATA'}: ${op.operationName} at ${op.siteName}`,
           description: `${p.name}. Recurring operation, judged on its TR of ${op.tr} h. ${CAUTION_LINE}`,
         });
       }

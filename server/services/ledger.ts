@@ -27,7 +27,7 @@
  */
 import { and, asc, eq, gte, lte, or, sql } from 'drizzle-orm';
 import { TZDate } from '@date-fns/tz';
-import { LIMIT_NAMES, STATUS, evaluateHours, evaluateStatus, quantileR7, zonedMonthStartMs } from '../../shared/engine';
+import { LIMIT_NAMES, STATUS, evaluateHours, evaluateStatus, quantileR7, recordSteps, zonedMonthStartMs } from '../../shared/engine';
 import type { LedgerEntry, LedgerMonthRow, LedgerMonthlyAnswer, LedgerProposeAnswer } from '../../shared/api-types-downtime';
 import type { ProjectAccessRole } from '../../shared/api-types';
 import { LEDGER_LIMITING_VALUES, type LedgerConfirmInput, type LedgerLimiting } from '../../shared/schemas/downtime';
@@ -82,17 +82,18 @@ export interface DayTally {
 /**
  * Planned and lost hours of one day from hourly statuses at OPLIM (see the module comment).
  * @param timeMs record times, ascending; @param status STATUS codes; @param limiting LIMIT codes
- * @param stepMs dt, ms; @param startMs, endMs the day, UTC ms
+ * @param stepMs fallback dt, ms (each record counts its local step, record-steps.ts); @param startMs, endMs the day, UTC ms
  */
 export function tallyDay(timeMs: Float64Array, status: Uint8Array, limiting: Uint8Array, stepMs: number, startMs: number, endMs: number): DayTally {
   const plannedHours = (endMs - startMs) / MS_PER_HOUR;
-  const dtH = stepMs / MS_PER_HOUR;
+  const dur = recordSteps(timeMs, stepMs).durationMs;
   const byLimit = new Float64Array(LIMIT_NAMES.length);
   let noData = 0;
   let present = 0;
   let workable = 0;
   let i = lowerBound(timeMs, startMs);
   for (; i < timeMs.length && timeMs[i] < endMs; i++) {
+    const dtH = Math.min(dur[i], endMs - timeMs[i]) / MS_PER_HOUR;
     present += dtH;
     const s = status[i];
     if (s === STATUS.WORKABLE) workable += dtH;
@@ -379,28 +380,29 @@ export interface LedgerExpectation {
 }
 
 /**
- * Lost hours per year-month in the hindcast (hours of the month - workable records at OPLIM x dt),
+ * Lost hours per year-month in the hindcast (hours of the month - the durations of the workable
+ * records at OPLIM, each record its local step, record-steps.ts),
  * for the year-months the data spans wholly, as `[yearMonth (year*12 + month0), lostHours][]`.
  */
 export function yearMonthLostHours(timeMs: Float64Array, status: Uint8Array, yearMonth: Int32Array, stepMs: number, timeZone: string): [number, number][] {
   const n = timeMs.length;
   if (n === 0) return [];
   const firstMs = timeMs[0];
-  const endMs = timeMs[n - 1] + stepMs;
+  const dur = recordSteps(timeMs, stepMs).durationMs;
+  const endMs = timeMs[n - 1] + dur[n - 1];
   const workable = new Map<number, number>();
   for (let i = 0; i < n; i++) {
     const ym = yearMonth[i];
-    workable.set(ym, (workable.get(ym) ?? 0) + (status[i] === STATUS.WORKABLE ? 1 : 0));
+    workable.set(ym, (workable.get(ym) ?? 0) + (status[i] === STATUS.WORKABLE ? dur[i] / MS_PER_HOUR : 0));
   }
   const out: [number, number][] = [];
-  const dtH = stepMs / MS_PER_HOUR;
   for (const [ym, count] of [...workable].sort((a, b) => a[0] - b[0])) {
     const y = Math.floor(ym / 12);
     const m = ym - y * 12 + 1;
     const a = zonedMonthStartMs(y, m, timeZone);
     const b = zonedMonthStartMs(y, m + 1, timeZone);
     if (a < firstMs || b > endMs) continue;
-    out.push([ym, Math.max(0, (b - a) / MS_PER_HOUR - count * dtH)]);
+    out.push([ym, Math.max(0, (b - a) / MS_PER_HOUR - count)]);
   }
   return out;
 }

@@ -1,8 +1,8 @@
-import { LIMIT_NAMES, STATUS, alphaFactor, planOperation } from '../../shared/engine';
+import { LIMIT_NAMES, STATUS, alphaFactor, isWeatherRestricted, planOperation, recordSteps } from '../../shared/engine';
 import { explainHour, type HourStatus } from '../../shared/engine/explain-hour';
 import { transformOne } from '../../shared/waves';
 import { expandRecurrence, RecurrenceInput } from '../../shared/recurrence';
-import type { ConditionsAnswer, HourChainAnswer, OperationSitePlan, PlanAnswer } from '../../shared/api-types-plan';
+import type { ConditionsAnswer, HourChainAnswer, OccurrenceStatus, OperationSitePlan, PlanAnswer } from '../../shared/api-types-plan';
 import type { Db } from '../db/client';
 import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
@@ -109,6 +109,7 @@ async function computePlan(
         tc: op.tcH,
         tr: op.tpopH + op.tcH,
         weatherRestricted: op.weatherRestricted,
+        informationOnly: plan.informationOnly,
         skipperIds: op.skipperIds,
         windows: plan.windows.map((w) => ({
           start: iso(w.startMs),
@@ -120,7 +121,7 @@ async function computePlan(
         startNow: plan.startNow,
         times,
         status: statusNames,
-        occurrences: occurrencesOf(op.recurrence, series.timeMs, stepMs, statusNames, op.tpopH + op.tcH, options.now.getTime()),
+        occurrences: occurrencesOf(op.recurrence, series.timeMs, plan.durationMs, statusNames, op.tpopH + op.tcH, options.now.getTime(), plan.informationOnly),
         limiting: Array.from(plan.limiting, (c) => LIMIT_NAMES[c] ?? null),
         marginRel: Array.from(plan.marginRel, (m) => (Number.isFinite(m) ? Math.round(m * 1000) / 1000 : null)),
       });
@@ -137,39 +138,44 @@ async function computePlan(
 /**
  * Occurrences of a recurring operation inside the plan's horizon, each judged on its window
  * [start, start + TR): go when every hour is workable, marginal when every hour is workable or
- * marginal, no-go when any hour is not workable, no data otherwise (DOMAIN Convention 7).
+ * marginal, no-go when any hour is not workable, no data otherwise (Convention 7). Records cover
+ * [t_i, t_i + dt_i) with their local step; a hole between one record's end and the next start
+ * longer than half a step is no data. An operation that is not weather-restricted
+ * (`informationOnly`, Convention 5) never gets "go" or "marginal": those become "information".
  */
 export function occurrencesOf(
   recurrence: unknown,
   timeMs: Float64Array,
-  stepMs: number,
+  durationMs: Float64Array,
   status: HourStatus[],
   trH: number,
   nowMs: number,
-): { start: string; status: 'go' | 'marginal' | 'no_go' | 'no_data' }[] {
+  informationOnly = false,
+): OccurrenceJudgement[] {
   const r = RecurrenceInput.safeParse(recurrence);
   if (!r.success || timeMs.length === 0) return [];
-  const first = Math.max(timeMs[0], nowMs - stepMs);
+  const first = Math.max(timeMs[0], nowMs - durationMs[0]);
   const last = timeMs[timeMs.length - 1];
-  const out: { start: string; status: 'go' | 'marginal' | 'no_go' | 'no_data' }[] = [];
+  const out: OccurrenceJudgement[] = [];
   for (const t0 of expandRecurrence(r.data, first, last)) {
     const t1 = t0 + trH * 3_600_000;
     let i = 0;
-    while (i < timeMs.length && timeMs[i] + stepMs <= t0) i++;
+    while (i < timeMs.length && timeMs[i] + durationMs[i] <= t0) i++;
     let go = true;
     let marginal = false;
     let noData = false;
     let covered = i < timeMs.length ? timeMs[i] : t0;
     for (; i < timeMs.length && timeMs[i] < t1; i++) {
-      if (timeMs[i] - covered > 1.5 * stepMs) noData = true;
-      covered = timeMs[i] + stepMs;
+      if (timeMs[i] - covered > 0.5 * durationMs[i]) noData = true;
+      covered = timeMs[i] + durationMs[i];
       const s = status[i];
       if (s === 'not_workable') go = false;
       else if (s === 'marginal') marginal = true;
       else if (s === 'no_data') noData = true;
     }
     if (covered < t1) noData = true;
-    out.push({ start: iso(t0), status: !go ? 'no_go' : noData ? 'no_data' : marginal ? 'marginal' : 'go' });
+    const judged = !go ? 'no_go' : noData ? 'no_data' : marginal ? 'marginal' : 'go';
+    out.push({ start: iso(t0), status: informationOnly && (judged === 'go' || judged === 'marginal') ? 'information' : judged });
   }
   return out;
 }
@@ -191,19 +197,23 @@ export async function hourChain(
   if (!site) throw new HttpError('not_found', 'Worksite not found');
   const tMs = Date.parse(q.time);
   const stepMs = row.stepMinutes * 60_000;
-  const series = await readSeries(db, row.id, { fromMs: tMs - stepMs, toMs: tMs + stepMs });
-  // The record covering the time: [t, t + dt).
+  // Two days either side: enough records to find the local step (record-steps.ts) around the time.
+  const margin = Math.max(48 * 3_600_000, 8 * stepMs);
+  const series = await readSeries(db, row.id, { fromMs: tMs - margin, toMs: tMs + margin });
+  const dur = recordSteps(series.timeMs, stepMs).durationMs;
+  // The record covering the time: [t, t + dt_i).
   let i = -1;
-  for (let k = 0; k < series.timeMs.length; k++) if (series.timeMs[k] <= tMs && tMs < series.timeMs[k] + stepMs) i = k;
+  for (let k = 0; k < series.timeMs.length; k++) if (series.timeMs[k] <= tMs && tMs < series.timeMs[k] + dur[k]) i = k;
   if (i < 0) throw new HttpError('not_found', 'No record at that time');
   const chain = transformOne(
     { hsM: series.hs[i], tpS: series.tp[i], tzS: series.tz[i], dirDeg: series.dir[i] },
     { depthM: row.dataPointDepthM ?? Infinity },
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
+  const spec = operationSpec(op);
   const explained = explainHour(
     { hsM: chain.hsM, tpS: series.tp[i], bedVelocityLinearMps: chain.bedVelocityLinearMps, bedVelocitySoulsbyMps: chain.bedVelocitySoulsbyMps, windMps: series.wind[i] },
-    operationSpec(op),
+    spec,
     setup.alphaTable,
     { alpha: q.alpha },
   );
@@ -216,6 +226,7 @@ export async function hourChain(
     site: { depthM: site.depthM, hs: v(chain.hsM), bedVelocityLinear: v(chain.bedVelocityLinearMps), bedVelocitySoulsby: v(chain.bedVelocitySoulsbyMps), wind: v(series.wind[i]) },
     status: explained.status,
     checks: explained.checks,
+    informationOnly: !isWeatherRestricted(spec),
   };
 }
 
@@ -257,3 +268,6 @@ export async function siteConditions(db: Db, projectId: string, q: { datasetId?:
       }),
   };
 }
+
+/** How a recurring occurrence is judged; "information" for an operation that is not weather-restricted. */
+export type OccurrenceJudgement = { start: string; status: OccurrenceStatus };

@@ -15,7 +15,7 @@ export interface PlanSummary {
   windows: { start: string; end: string; hours: number }[];
   earliestStart: string | null;
   startNow: boolean;
-  occurrences: { start: string; status: 'go' | 'marginal' | 'no_go' | 'no_data' }[];
+  occurrences: { start: string; status: 'go' | 'marginal' | 'no_go' | 'no_data' | 'information' }[];
 }
 
 export type ChangeKind = 'window_opened' | 'window_lost' | 'earliest_moved' | 'start_now_changed' | 'occurrence_no_go';

@@ -14,7 +14,7 @@ describe('createForecastProvider', () => {
     expect(setup.fake!.url).toMatch(/^http:\/\/127\.0\.0\.1:\d+$/);
     expect(setup.provider.name).toBe('local-fake-forecast-service');
     const issue = await setup.provider.fetchLatest({ latitude: 50.1, longitude: -5.6 });
-    expect(issue.records.timeMs.length).toBe(240);
+    expect(issue.records.timeMs.length).toBe(129);
     expect(setup.fake!.requests).toBe(1);
     await setup.close();
     await setup.close(); // twice is fine

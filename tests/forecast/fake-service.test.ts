@@ -51,6 +51,15 @@ describe('fake forecast service through HttpForecastProvider', () => {
     await service.close();
   });
 
+  it('is hourly to +72 h, then 3-hourly to +240 h (a forecast that changes step, as many services issue)', () => {
+    const t = issue.records.timeMs;
+    const issued = t[0];
+    const leads = Array.from(t, (ms) => (ms - issued) / HOUR);
+    expect(leads.slice(0, 73)).toEqual(Array.from({ length: 73 }, (_, h) => h));
+    expect(leads.slice(73)).toEqual(Array.from({ length: 56 }, (_, k) => 75 + 3 * k));
+    expect(leads.at(-1)).toBe(240);
+  });
+
   it('answers JSON that passes the schema', async () => {
     const res = await fetch(`${service.url}/v1/forecast?lat=50.1&lon=-5.6`);
     expect(res.status).toBe(200);
@@ -59,14 +68,14 @@ describe('fake forecast service through HttpForecastProvider', () => {
     expect(parsed.success).toBe(true);
   });
 
-  it('issues on the 00/06/12/18 UTC cycle, hourly, for 10 days by default', () => {
+  it('issues on the 00/06/12/18 UTC cycle, hourly then 3-hourly, for 10 days by default', () => {
     expect(new Date(issue.issuedAtMs).toISOString()).toBe('2026-12-03T12:00:00.000Z');
     const t = issue.records.timeMs;
-    expect(t.length).toBe(240);
+    expect(t.length).toBe(129);
     expect(t[0]).toBe(issue.issuedAtMs);
-    for (let i = 1; i < t.length; i++) expect(t[i] - t[i - 1]).toBe(HOUR);
+    for (let i = 1; i < t.length; i++) expect(t[i] - t[i - 1]).toBe(i <= 72 ? HOUR : 3 * HOUR);
     for (const column of [issue.records.hs, issue.records.tp, issue.records.dir, issue.records.wind, issue.records.windDir]) {
-      expect(column.length).toBe(240);
+      expect(column.length).toBe(129);
       expect(column.every((v) => Number.isFinite(v))).toBe(true);
     }
   });
@@ -129,7 +138,8 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
     for (const days of [7, 16]) {
       const f = await fake({ clock: () => DEC_3_1425, horizonDays: days });
       const r = await new HttpForecastProvider(f.url).fetchLatest(POSITION);
-      expect(r.records.timeMs.length).toBe(days * 24);
+      // Hourly 0..72 h (73 records), then 3-hourly from 75 h to the horizon.
+      expect(r.records.timeMs.length).toBe(73 + (days * 24 - 72) / 3);
     }
     await expect(startFakeForecastService({ horizonDays: 17 })).rejects.toThrow(RangeError);
   });
@@ -151,13 +161,17 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
     expect(second.issuedAtMs - first.issuedAtMs).toBe(6 * HOUR);
     const near: number[] = [];
     const far: number[] = [];
-    for (let j = 0; j < second.records.timeMs.length - 6; j++) {
-      const i = j + 6; // the same valid time in the earlier issue
-      expect(first.records.timeMs[i]).toBe(second.records.timeMs[j]);
+    const firstAt = new Map(Array.from(first.records.timeMs, (t, i) => [t, i]));
+    for (let j = 0; j < second.records.timeMs.length; j++) {
+      const i = firstAt.get(second.records.timeMs[j]); // the same valid time in the earlier issue
+      if (i === undefined) continue;
+      const lead = (second.records.timeMs[j] - second.issuedAtMs) / HOUR;
       const rel = Math.abs(first.records.hs[i] - second.records.hs[j]) / second.records.hs[j];
-      if (j < 24) near.push(rel);
-      if (j >= 144) far.push(rel);
+      if (lead < 24) near.push(rel);
+      if (lead >= 144) far.push(rel);
     }
+    expect(near.length).toBeGreaterThan(20);
+    expect(far.length).toBeGreaterThan(10);
     const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
     // Within the first day the two issues agree to a few percent.
     expect(Math.max(...near)).toBeLessThan(0.1);
@@ -172,8 +186,14 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
     const truth = generateSyntheticSea({ startMs: r.issuedAtMs, hours: 240, seed: truthSeedForPosition(20261201, r.latitude, r.longitude) });
     const err = (from: number, to: number) => {
       let s = 0;
-      for (let h = from; h < to; h++) s += Math.abs(r.records.hs[h] - truth.hsM[h]) / truth.hsM[h];
-      return s / (to - from);
+      let count = 0;
+      r.records.timeMs.forEach((t, i) => {
+        const h = (t - r.issuedAtMs) / HOUR;
+        if (h < from || h >= to) return;
+        s += Math.abs(r.records.hs[i] - truth.hsM[h]) / truth.hsM[h];
+        count++;
+      });
+      return s / count;
     };
     expect(err(0, 24)).toBeLessThan(0.05);
     expect(err(168, 240)).toBeGreaterThan(err(0, 24));
@@ -206,7 +226,7 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
   it('asks for its key when one is set', async () => {
     const f = await fake({ clock: () => DEC_3_1425, apiKey: 'k-123' });
     const withKey = await new HttpForecastProvider(f.url, { apiKey: 'k-123' }).fetchLatest(POSITION);
-    expect(withKey.records.hs.length).toBe(240);
+    expect(withKey.records.hs.length).toBe(129);
     expect(f.received[0].authorization).toBe('Bearer k-123');
     await expect(new HttpForecastProvider(f.url).fetchLatest(POSITION)).rejects.toMatchObject({ code: 'http', status: 401 });
   });

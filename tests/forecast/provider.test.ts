@@ -88,7 +88,7 @@ describe('failures of the fake service through the real client', () => {
     const store = vi.fn();
     const err = await failure(new HttpForecastProvider(f.url).fetchLatest(POSITION).then(store));
     expect(err.code).toBe('malformed');
-    expect(err.details.join('\n')).toMatch(/hourly\.waveHeightM\.235/);
+    expect(err.details.join('\n')).toMatch(/hourly\.waveHeightM\.124/);
     expect(err.message).toMatch(/failed validation/);
     expect(store).not.toHaveBeenCalled();
   });
@@ -100,13 +100,13 @@ describe('failures of the fake service through the real client', () => {
     const before = f.requests;
     expect((await failure(p.fetchLatest(POSITION))).code).toBe('http');
     expect((await failure(p.fetchLatest(POSITION))).code).toBe('http');
-    expect((await p.fetchLatest(POSITION)).records.hs.length).toBe(240);
+    expect((await p.fetchLatest(POSITION)).records.hs.length).toBe(129);
     expect(f.requests - before).toBe(3);
     f.setFailure('malformed');
     expect((await failure(p.fetchLatest(POSITION))).code).toBe('malformed');
     expect((await failure(p.fetchLatest(POSITION))).code).toBe('malformed');
     f.setFailure('none');
-    expect((await p.fetchLatest(POSITION)).records.hs.length).toBe(240);
+    expect((await p.fetchLatest(POSITION)).records.hs.length).toBe(129);
   });
 
   it('an unreachable service gives code "network"', async () => {

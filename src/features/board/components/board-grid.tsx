@@ -5,7 +5,7 @@ import { memo, useCallback, useMemo, useRef, useState, type CSSProperties, type 
 import { Link } from 'react-router-dom';
 import type { OperationSitePlan } from '../../../../shared/api-types-plan';
 import { STATUS_META, formatIn, limitWord, zoneShort } from './board-format';
-import { dayRuns, startWords, windowBoxes, type VisibleRange } from './board-model';
+import { dayRuns, firstAtOrAfter, recordEndMs, startWords, windowBoxes, type VisibleRange } from './board-model';
 
 export interface SelectedHour {
   operationId: string;
@@ -130,7 +130,13 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
     return out;
   }, [timesMs, range, zone, rest.cellPx]);
   const firstMs = timesMs[range.from];
-  const nowOffset = range.to > range.from && nowMs >= firstMs && nowMs < timesMs[range.to - 1] + stepMs ? ((nowMs - firstMs) / stepMs) * rest.cellPx : null;
+  // One cell per record: now sits in the cell of the record covering it, at its fraction of that record.
+  let nowOffset: number | null = null;
+  if (range.to > range.from && nowMs >= firstMs && nowMs < recordEndMs(timesMs, range.to - 1, stepMs)) {
+    const k = Math.max(range.from, firstAtOrAfter(timesMs, nowMs + 1) - 1);
+    const end = recordEndMs(timesMs, k, stepMs);
+    nowOffset = (k - range.from + (nowMs - timesMs[k]) / (end - timesMs[k])) * rest.cellPx;
+  }
 
   return (
     <section aria-label={`Operations at worksites in ${zone}`} className="overflow-hidden rounded-[var(--radius-card)] border border-line bg-surface">
@@ -220,7 +226,7 @@ const linkClass = 'inline-flex min-h-11 items-center gap-1 rounded-lg px-2 text-
 
 const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, nowMs, stepMs, nowOffset, dayStarts, alpha, cellPx, selectedIndex, onSelect, activeCol, onActivate }: BoardRowProps) {
   const words = startWords(plan, nowMs);
-  const boxes = windowBoxes(plan.windows, timesMs, stepMs, range);
+  const boxes = windowBoxes(plan.windows, timesMs, range);
   const ics = `/api/projects/${projectId}/plan/windows.ics?${new URLSearchParams({ operationId: plan.operationId, siteId: plan.siteId, alpha: String(alpha) })}`;
   const showLetters = cellPx >= 20;
 
@@ -228,7 +234,7 @@ const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, 
   for (let i = range.from; i < range.to; i++) {
     const status = plan.status[i];
     const meta = STATUS_META[status];
-    const past = timesMs[i] + stepMs <= nowMs;
+    const past = recordEndMs(timesMs, i, stepMs) <= nowMs;
     const label = hourLabel(plan, i, timesMs[i]) + (past ? ' (past)' : '');
     const isSelected = i === selectedIndex;
     cells.push(

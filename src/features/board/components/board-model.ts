@@ -57,18 +57,43 @@ export interface WindowBox {
   count: number;
 }
 
-export function windowBoxes(windows: PlanWindow[], timesMs: number[], stepMs: number, range: VisibleRange): WindowBox[] {
+/**
+ * Window boxes by record index: one cell per record, so a forecast that changes step (hourly,
+ * then 3-hourly) places a window by looking its start and end up among the record times, not by
+ * dividing by one step.
+ */
+export function windowBoxes(windows: PlanWindow[], timesMs: number[], range: VisibleRange): WindowBox[] {
   if (timesMs.length === 0) return [];
-  const t0 = timesMs[0];
   const boxes: WindowBox[] = [];
   for (const w of windows) {
-    const s = Math.round((Date.parse(w.start) - t0) / stepMs);
-    const e = Math.round((Date.parse(w.end) - t0) / stepMs);
+    const s = firstAtOrAfter(timesMs, Date.parse(w.start));
+    const e = firstAtOrAfter(timesMs, Date.parse(w.end));
     const start = Math.max(s, range.from);
     const end = Math.min(e, range.to);
     if (end > start) boxes.push({ window: w, start, count: end - start });
   }
   return boxes;
+}
+
+/** Index of the first time at or after `ms` (the length when none). */
+export function firstAtOrAfter(timesMs: number[], ms: number): number {
+  let lo = 0;
+  let hi = timesMs.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (timesMs[mid] < ms) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * End of record i for drawing: the next record's time (a forecast that changes step has no single
+ * step), or for the last one its time + the step of the spacing before it (else the nominal step).
+ */
+export function recordEndMs(timesMs: number[], i: number, stepMs: number): number {
+  if (i + 1 < timesMs.length) return timesMs[i + 1];
+  return i > 0 ? timesMs[i] + (timesMs[i] - timesMs[i - 1]) : timesMs[i] + stepMs;
 }
 
 /** The window that holds an instant, if any (end exclusive). */
@@ -86,6 +111,13 @@ export interface StartWords {
 
 export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
   const zone = plan.timeZone;
+  if (plan.informationOnly) {
+    return {
+      tone: 'none',
+      text: 'Not weather-restricted: for information only',
+      detail: `Not weather-restricted (TPOP ${plan.tpop} h, TR ${plan.tr} h; weather-restricted needs TPOP up to 72 h and TR up to 96 h, and the mark): its hours are shown against OPLIM for information only. It gets no go-start, window or "may start now" from a forecast: plan it for statistical extremes or split it into sub-operations with safe points.`,
+    };
+  }
   if (plan.startNow) {
     const w = windowAt(plan.windows, nowMs) ?? plan.windows[0];
     // What is left of the window matters on deck, not its whole length (which began earlier).

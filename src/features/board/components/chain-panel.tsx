@@ -79,7 +79,7 @@ export function ChainPanel({ projectId, plan, index, timeMs, alpha, datasetId, c
       <div className="flex-1 overflow-y-auto px-4 py-3">
         {chain.isPending ? <Spinner label="Working out the chain" /> : null}
         {chain.error ? <ErrorNotice error={chain.error} /> : null}
-        {chain.data ? <ChainBody chain={chain.data} alpha={alpha} weatherRestricted={plan.weatherRestricted} /> : null}
+        {chain.data ? <ChainBody chain={chain.data} alpha={alpha} weatherRestricted={!plan.informationOnly} /> : null}
       </div>
       <footer className="flex gap-2 border-t border-line px-4 py-2">
         <button
@@ -203,7 +203,7 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
           {alpha && weatherRestricted
             ? 'Hs limits are tested at the forecast limit OPWF = α × OPLIM; other limits at OPLIM.'
             : alpha
-              ? 'Not weather-restricted: every limit at OPLIM (α = 1).'
+              ? 'Not weather-restricted: every limit at OPLIM, for information only (no go-start, window or "may start now" from a forecast).'
               : 'Forecast limits are off: every limit at OPLIM.'}
         </p>
         <ul className="flex flex-col gap-2">
