@@ -14,6 +14,12 @@ export interface DatasetSummary {
   derived: Record<string, number>;
   /** Share of records missing Hs, 0-1. */
   missingShare: number;
+  /**
+   * Wind height correction used at import: the anemometer height (m above the sea, 10 = already at
+   * 10 m) and the exponent a of U10 = Uz (10/z)^a; nulls when not stated (forecasts from the
+   * service, datasets stored before this was asked).
+   */
+  wind: { anemometerHeightM: number | null; exponent: number | null };
   createdAt: string;
 }
 
@@ -31,6 +37,8 @@ export interface ImportAnswer {
   variables: string[];
   missing: Record<string, number>;
   skipped: number;
+  /** The wind height correction used (see DatasetSummary.wind). */
+  wind: { anemometerHeightM: number | null; exponent: number | null };
 }
 
 /** Records as columnar arrays; times ISO UTC; null = missing. */

@@ -9,6 +9,9 @@ import {
   csvOptionsFromForm,
   detectFormat,
   ndbcOptionsFromForm,
+  anemometerHeightOf,
+  DEFAULT_WIND_EXPONENT,
+  WIND_REFERENCE_HEIGHT_M,
   type ImportResult,
 } from '../../shared/seadata';
 import type { ImportAnswer } from '../../shared/api-types-datasets';
@@ -106,6 +109,17 @@ export async function importUploadedFile(
     throw err;
   }
 
+  // Limits are for wind at 10 m; NDBC buoys measure it at about 4-5 m: the height must be stated.
+  const givenHeight = anemometerHeightOf(form);
+  if (format === 'ndbc' && givenHeight === undefined && result.records.wind.some((w) => w === w)) {
+    throw new HttpError(
+      'validation',
+      'This NDBC file has wind speeds: give the anemometer height (m above the sea; 10 when the wind is already at 10 m) so the wind can be brought to 10 m, where limits are stated',
+      [{ field: 'anemometerHeight', message: 'is required for an NDBC file with wind' }],
+    );
+  }
+  const windHeight = format === 'ndbc' ? (givenHeight ?? null) : (givenHeight ?? WIND_REFERENCE_HEIGHT_M);
+  const windExponent = windHeight === null ? null : (form.windExponent ?? DEFAULT_WIND_EXPONENT);
   args.onProgress?.({ phase: 'saving', bytesRead: args.file.size, totalBytes: args.file.size, rows: result.report.rowsRead });
   const series = toSeaSeries(result.records);
   const row = await createDataset(
@@ -123,9 +137,18 @@ export async function importUploadedFile(
       originalFileName: safeFileName(args.file.originalName),
       format,
       issuedAt: form.kind === 'forecast' ? new Date(result.records.timeMs[0]) : null,
+      anemometerHeightM: windHeight,
+      windExponent,
     },
     series,
-    { ...result.report, timeZone: form.timeZone ?? 'UTC', originalFileName: safeFileName(args.file.originalName) },
+    {
+      ...result.report,
+      timeZone: form.timeZone ?? 'UTC',
+      originalFileName: safeFileName(args.file.originalName),
+      anemometerHeightM: windHeight,
+      windExponent,
+      ...(format === 'csv' ? { directionConvention: form.directionConvention } : {}),
+    },
   );
   return {
     id: row.id,
@@ -136,6 +159,7 @@ export async function importUploadedFile(
     variables: row.variables,
     missing: row.missing,
     skipped: result.report.rowsSkipped,
+    wind: { anemometerHeightM: row.anemometerHeightM, exponent: row.windExponent },
   };
 }
 

@@ -21,6 +21,9 @@ export interface DatasetMeta {
   originalFileName?: string | null;
   format?: string | null;
   issuedAt?: Date | null;
+  /** Anemometer height, m (10 = already at 10 m), and the power-law exponent used; null when not stated. */
+  anemometerHeightM?: number | null;
+  windExponent?: number | null;
 }
 
 /** Stores a dataset and its series in one transaction: either all of it is saved or nothing. */
@@ -35,6 +38,8 @@ export async function createDataset(db: Db, meta: DatasetMeta, series: SeaSeries
         originalFileName: meta.originalFileName ?? null,
         format: meta.format ?? null,
         issuedAt: meta.issuedAt ?? null,
+        anemometerHeightM: meta.anemometerHeightM ?? null,
+        windExponent: meta.windExponent ?? null,
         stepMinutes: info.stepMinutes,
         startAt: new Date(series.timeMs[0]),
         endAt: new Date(series.timeMs[series.timeMs.length - 1]),
@@ -67,6 +72,7 @@ export function toSummary(r: DatasetRow): DatasetSummary {
     missing: r.missing,
     derived: r.derived,
     missingShare: r.recordCount ? (r.missing.hs ?? 0) / r.recordCount : 0,
+    wind: { anemometerHeightM: r.anemometerHeightM, exponent: r.windExponent },
     createdAt: r.createdAt.toISOString(),
   };
 }

@@ -9,8 +9,10 @@
  * - values: blanks around a value are ignored; a missing-value code (missing-codes.ts) gives NaN;
  *   any other text must be a plain decimal number (`12abc`, `0x10`, `Infinity` are refused), with
  *   a decimal comma when `decimalComma` is set. Heights are converted from `units.height`, wind
- *   speeds from `units.speed` (exact factors, units.ts) and, with `anemometerHeightM`, to 10 m.
- *   Periods are seconds, directions degrees coming from. Then the rules of validate.ts apply.
+ *   speeds from `units.speed` (exact factors, units.ts) and from `anemometerHeightM` (default 10 m:
+ *   no correction) to 10 m by U10 = Uz (10/z)^a (wind-height.ts). A wind of 99 (99.0) is missing.
+ *   Periods are seconds, directions degrees coming from (`directionConvention` 'going-to' adds
+ *   180°). Then the rules of validate.ts apply.
  * - a row with a different number of fields than the header is refused, except for extra empty
  *   fields at its end (a trailing delimiter).
  * - a row (the header too) with more than MAX_COLUMNS fields (limits.ts) refuses the whole file.
@@ -26,7 +28,7 @@ import { SEA_VARIABLES, type SeaVariable } from './records';
 import { TimestampParser, type DateOrder } from './timestamp-parser';
 import { heightFactorToM, speedFactorToMs, SI_UNITS, type SeaUnits } from './units';
 import { SeaRowValidator, type BadRowMode, type ImportResult } from './validate';
-import { windHeightFactor } from './wind-height';
+import { DEFAULT_WIND_EXPONENT, WIND_REFERENCE_HEIGHT_M, windHeightFactor, windHeightNote } from './wind-height';
 
 /** Options of {@link CsvRecordReader} (all optional). */
 export interface CsvReaderOptions {
@@ -47,11 +49,22 @@ export interface CsvReaderOptions {
   decimalComma?: boolean;
   /** What to do with bad rows; default 'refuse'. */
   onBadRows?: BadRowMode;
-  /** Height of the wind measurement above sea level, m; when set, wind is corrected to 10 m. */
+  /** Height of the wind measurement above sea level, m; default 10 (already at 10 m, no correction). */
   anemometerHeightM?: number;
+  /** Power-law exponent of the height correction U10 = Uz (10/z)^a; default 0.11 (open sea). */
+  windExponent?: number;
+  /** Direction columns give where waves and wind come from (default) or go to (then 180 deg is added). */
+  directionConvention?: DirectionConvention;
   /** Called for every data row with how it was read (used by the preview). */
   onRow?: (row: CsvRowResult) => void;
 }
+
+/** Conventions of direction columns: nautical coming-from (the default) or going-to. */
+export const DIRECTION_CONVENTIONS = ['coming-from', 'going-to'] as const;
+export type DirectionConvention = (typeof DIRECTION_CONVENTIONS)[number];
+
+/** The wind value 99 (also written 99.0) is a missing code of wind columns, before unit conversion. */
+export const WIND_MISSING_VALUE = 99;
 
 /** How one data row was read. */
 export interface CsvRowResult {
@@ -68,6 +81,10 @@ export interface CsvRowResult {
   /** True when the row became a record. */
   kept: boolean;
 }
+
+const WIND_INDEX = SEA_VARIABLES.indexOf('wind');
+const DIR_INDEX = SEA_VARIABLES.indexOf('dir');
+const WIND_DIR_INDEX = SEA_VARIABLES.indexOf('windDir');
 
 interface ValueColumn {
   field: number;
@@ -93,6 +110,7 @@ export class CsvRecordReader {
   private readonly decimalComma: boolean;
   private readonly givenUnits: Partial<SeaUnits> | undefined;
   private readonly windToTenM: number;
+  private readonly goingTo: boolean;
   private readonly onRow: CsvReaderOptions['onRow'];
   private readonly givenMapping: ColumnMapping | undefined;
   private headerNames: string[] | null = null;
@@ -111,14 +129,17 @@ export class CsvRecordReader {
     this.decimalComma = options.decimalComma ?? false;
     this.missing = new MissingCodes(options.missingCodes ?? DEFAULT_MISSING_CODES, this.decimalComma);
     this.givenUnits = options.units;
-    this.windToTenM = options.anemometerHeightM === undefined ? 1 : windHeightFactor(options.anemometerHeightM);
+    const heightM = options.anemometerHeightM ?? WIND_REFERENCE_HEIGHT_M;
+    const exponent = options.windExponent ?? DEFAULT_WIND_EXPONENT;
+    this.windToTenM = windHeightFactor(heightM, exponent);
+    this.goingTo = options.directionConvention === 'going-to';
     this.onRow = options.onRow;
     this.givenMapping = options.mapping;
 
     this.v.note(`Times without an offset are read in ${options.timeZone ?? 'UTC'}.`);
-    if (options.anemometerHeightM !== undefined) {
-      this.v.note(`Wind speed corrected from ${options.anemometerHeightM} m to 10 m by the 1/7 power law.`);
-    }
+    this.v.note(windHeightNote(heightM, exponent));
+    this.v.note('A wind speed of 99 (or 99.0) is read as missing.');
+    if (this.goingTo) this.v.note('Directions are going-to in the file: 180° added to give coming-from.');
     if (this.decimalComma) this.v.note('A decimal comma is accepted.');
     const codes = (options.missingCodes ?? DEFAULT_MISSING_CODES).map((c) => JSON.stringify(c)).join(', ');
     this.v.note(`Missing-value codes: ${codes}.`);
@@ -268,6 +289,12 @@ export class CsvRecordReader {
       return;
     }
     if (this.missing.isMissingNumber(x)) return;
+    if (c.variable === WIND_INDEX && x === WIND_MISSING_VALUE) return;
+    if (this.goingTo && (c.variable === DIR_INDEX || c.variable === WIND_DIR_INDEX) && x >= 0 && x <= 360) {
+      // Going-to to coming-from; out-of-range values pass unchanged so the range check names them.
+      this.v.setValue(c.variable, (x + 180) % 360, c.name, raw);
+      return;
+    }
     this.v.setValue(c.variable, x * c.factor, c.name, raw);
   }
 }

@@ -17,6 +17,8 @@ import { DATE_ORDERS } from './timestamp-parser';
 import { isValidTimeZone } from './time-zone';
 import { SeaUnitsSchema } from './units';
 import { BAD_ROW_MODES } from './validate';
+import { DIRECTION_CONVENTIONS } from './csv-reader';
+import { DEFAULT_WIND_EXPONENT, OVER_LAND_WIND_EXPONENT, WIND_REFERENCE_HEIGHT_M } from './wind-height';
 
 /** Kinds of dataset. */
 export const DATASET_KINDS = ['hindcast', 'forecast', 'observation'] as const;
@@ -91,9 +93,40 @@ export const ImportFormSchema = z.object({
     (v) => (v === 'true' ? true : v === 'false' ? false : emptyToUndefined(v)),
     z.boolean().optional(),
   ),
-  /** Anemometer height above sea level, m; when given, wind is corrected to 10 m (1/7 power law). */
+  /**
+   * Anemometer height above the sea, m (10 when the wind is already at 10 m). Wind becomes
+   * U10 = Uz (10/z)^a. Required for an NDBC file with wind (checked after reading it); CSV files
+   * default to 10 (already at 10 m).
+   */
+  anemometerHeight: z.preprocess(emptyToUndefined, positiveMetres(1000).optional()),
+  /** Earlier name of `anemometerHeight`, still accepted. */
   anemometerHeightM: z.preprocess(emptyToUndefined, positiveMetres(1000).optional()),
+  /**
+   * Power-law exponent a of the height correction: default 0.11 over the open sea (Hsu, Meindl &
+   * Gilhousen 1994); 1/7 (an over-land value, sent as '1/7' or 0.142857...) may be chosen.
+   */
+  windExponent: z.preprocess(
+    (v) => (typeof v === 'string' && v.trim() === '1/7' ? OVER_LAND_WIND_EXPONENT : emptyToUndefined(v)),
+    z
+      .union([z.number(), z.string()])
+      .transform((v, ctx) => {
+        const x = typeof v === 'number' ? v : parseDecimal(v);
+        if (!(x > 0 && x < 1)) {
+          ctx.addIssue({ code: 'custom', message: 'must be a number between 0 and 1 (0.11 over the open sea, or 1/7)', input: v });
+          return z.NEVER;
+        }
+        return x;
+      })
+      .optional(),
+  ),
+  /** CSV direction columns: where the sea and wind come from (default) or go to (180° is added). */
+  directionConvention: z.preprocess(emptyToUndefined, z.enum(DIRECTION_CONVENTIONS).default('coming-from')),
 });
+
+/** The anemometer height given (either name), m, or undefined. */
+export function anemometerHeightOf(form: ImportForm): number | undefined {
+  return form.anemometerHeight ?? form.anemometerHeightM;
+}
 
 /** The form as sent (strings). */
 export type ImportFormInput = z.input<typeof ImportFormSchema>;
@@ -111,11 +144,13 @@ export function csvOptionsFromForm(form: ImportForm): CsvTextParserOptions {
     delimiter: form.delimiter,
     decimalComma: form.decimalComma,
     onBadRows: form.onBadRows,
-    anemometerHeightM: form.anemometerHeightM,
+    anemometerHeightM: anemometerHeightOf(form) ?? WIND_REFERENCE_HEIGHT_M,
+    windExponent: form.windExponent ?? DEFAULT_WIND_EXPONENT,
+    directionConvention: form.directionConvention,
   };
 }
 
 /** Reader options for an NDBC upload from the parsed form. */
 export function ndbcOptionsFromForm(form: ImportForm): NdbcParserOptions {
-  return { onBadRows: form.onBadRows, anemometerHeightM: form.anemometerHeightM };
+  return { onBadRows: form.onBadRows, anemometerHeightM: anemometerHeightOf(form), windExponent: form.windExponent ?? DEFAULT_WIND_EXPONENT };
 }

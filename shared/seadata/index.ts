@@ -48,7 +48,7 @@ export {
   speedFactorToMs,
 } from './units';
 export type { SeaUnits } from './units';
-export { windSpeedAt10m, windHeightFactor } from './wind-height';
+export { windSpeedAt10m, windHeightFactor, windHeightNote, DEFAULT_WIND_EXPONENT, OVER_LAND_WIND_EXPONENT, WIND_REFERENCE_HEIGHT_M } from './wind-height';
 export { TimestampParser, suggestDateOrder, DATE_ORDERS } from './timestamp-parser';
 export type { DateOrder, TimestampOptions } from './timestamp-parser';
 export { isValidTimeZone } from './time-zone';
@@ -60,8 +60,8 @@ export type { NdbcParserOptions } from './ndbc';
 // CSV
 export { ColumnMappingSchema, detectColumns, detectUnits, normaliseHeader, mappedVariables } from './csv-columns';
 export type { ColumnMapping, DetectedColumns } from './csv-columns';
-export { CsvRecordReader } from './csv-reader';
-export type { CsvReaderOptions, CsvRowResult } from './csv-reader';
+export { CsvRecordReader, DIRECTION_CONVENTIONS, WIND_MISSING_VALUE } from './csv-reader';
+export type { CsvReaderOptions, CsvRowResult, DirectionConvention } from './csv-reader';
 export { CsvTextParser, detectDelimiter, firstContentLine, CSV_DELIMITERS, MAX_CSV_ROW_CHARS } from './csv-text-parser';
 export { MAX_COLUMNS, MAX_LINE_CHARS } from './limits';
 export type { CsvDelimiter, CsvTextParserOptions } from './csv-text-parser';
@@ -76,6 +76,7 @@ export {
   MAX_DEPTH_M,
   csvOptionsFromForm,
   ndbcOptionsFromForm,
+  anemometerHeightOf,
 } from './import-options';
 export type { DatasetKind, ImportFormat, ImportForm, ImportFormInput } from './import-options';
 export { binaryMark, detectFormat } from './detect-format';

@@ -31,9 +31,11 @@
  * 10-minute rows are kept whether they carry waves or wind only: the record count equals the data
  * row count of the file.
  *
- * Wind: NDBC gives WSPD at the anemometer height (about 4-5 m on many buoys). By default the
- * value is kept as is; with `anemometerHeightM` it is brought to 10 m by the 1/7 power law
- * (common practice, DOMAIN.md), see `windSpeedAt10m`.
+ * Wind: NDBC gives WSPD at the anemometer height (about 4-5 m on many buoys), and limits are for
+ * wind at 10 m. With `anemometerHeightM` it is brought to 10 m by U10 = Uz (10/z)^a, a =
+ * `windExponent` (default 0.11, Hsu, Meindl & Gilhousen 1994), see `windSpeedAt10m`. Without a
+ * height the value is kept as read (the preview shows it so); the import refuses an NDBC file
+ * with wind and no height (dataset-import.ts).
  *
  * Limits (limits.ts): a line longer than MAX_LINE_CHARS (1 MiB) or with more than MAX_COLUMNS
  * fields refuses the whole file, naming the line and the character or field past the limit.
@@ -46,7 +48,7 @@ import { ImportError } from './issues';
 import { groupDigits, MAX_COLUMNS, MAX_LINE_CHARS, tooManyColumnsReason } from './limits';
 import { SeaRowValidator, type BadRowMode, type ImportResult } from './validate';
 import { parseDecimal } from './parse-decimal';
-import { windHeightFactor } from './wind-height';
+import { DEFAULT_WIND_EXPONENT, windHeightFactor, windHeightNote } from './wind-height';
 
 /** Options of {@link NdbcParser}. */
 export interface NdbcParserOptions {
@@ -54,6 +56,8 @@ export interface NdbcParserOptions {
   onBadRows?: BadRowMode;
   /** Anemometer height above sea level, m (> 0); when set, WSPD is corrected to 10 m. */
   anemometerHeightM?: number;
+  /** Power-law exponent of the height correction; default 0.11 (open sea). */
+  windExponent?: number;
 }
 
 const WS = /\s+/;
@@ -133,7 +137,7 @@ export class NdbcParser {
   private fatal: ImportError | null = null;
   private ended = false;
 
-  /** @throws RangeError for an invalid `anemometerHeightM`. */
+  /** @throws RangeError for an invalid `anemometerHeightM` or `windExponent`. */
   constructor(options: NdbcParserOptions = {}) {
     this.v = new SeaRowValidator('ndbc', options.onBadRows ?? 'refuse', 'auto');
     this.v.note('NDBC times are UTC.');
@@ -144,10 +148,9 @@ export class NdbcParser {
       this.windFactor = 1;
       this.v.note('Wind speed kept at the anemometer height (no height given).');
     } else {
-      this.windFactor = windHeightFactor(options.anemometerHeightM);
-      this.v.note(
-        `Wind speed corrected from ${options.anemometerHeightM} m to 10 m by the 1/7 power law (factor ${this.windFactor.toFixed(4)}).`,
-      );
+      const exponent = options.windExponent ?? DEFAULT_WIND_EXPONENT;
+      this.windFactor = windHeightFactor(options.anemometerHeightM, exponent);
+      this.v.note(windHeightNote(options.anemometerHeightM, exponent));
     }
   }
 

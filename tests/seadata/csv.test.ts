@@ -243,10 +243,39 @@ describe('units', () => {
     expect(issues).toEqual([{ line: 3, column: 'hs', value: '90', reason: 'significant wave height above 25 m' }]);
   });
 
-  it('wind height correction by the 1/7 power law', () => {
-    // (10/5)^(1/7) = 2^(1/7) = 1.104089513673812 (hand value of the power law; common practice, no source)
+  it('wind height correction U10 = Uz (10/z)^a, a = 0.11 by default (Hsu, Meindl & Gilhousen 1994) or 1/7 when chosen', () => {
+    // By hand: 2^0.11 = exp(0.11 * 0.693147) = exp(0.0762462) = 1.079228; 2^(1/7) = 1.104090.
     const { records } = parse('time,wind\n2020-01-01 00:00,10\n', { anemometerHeightM: 5 });
-    expect(records.wind[0]).toBeCloseTo(11.04089513673812, 10);
+    expect(Math.abs(records.wind[0] - 10.79228)).toBeLessThan(5e-5);
+    const { records: land } = parse('time,wind\n2020-01-01 00:00,10\n', { anemometerHeightM: 5, windExponent: 1 / 7 });
+    expect(Math.abs(land.wind[0] - 11.0409)).toBeLessThan(5e-4);
+  });
+
+  it('CSV wind defaults to already at 10 m, and the report says so', () => {
+    const { records, report } = parse('time,wind\n2020-01-01 00:00,10\n');
+    expect(records.wind[0]).toBe(10);
+    expect(report.notes.join(' ')).toMatch(/measured at 10 m/);
+  });
+
+  it('99 and 99.0 are missing codes of wind (a wind of 99 m/s used to pass the range check)', () => {
+    const { records, report } = parse('time,hs,wind,winddir\n2020-01-01 00:00,1,99,99\n2020-01-01 01:00,1,99.0,10\n2020-01-01 02:00,1,98.5,10\n');
+    expect(records.wind[0]).toBeNaN();
+    expect(records.wind[1]).toBeNaN();
+    expect(records.wind[2]).toBe(98.5);
+    // 99 stays a valid direction.
+    expect(records.windDir[0]).toBe(99);
+    expect(report.issueCount).toBe(0);
+  });
+
+  it('going-to directions are turned to coming-from by adding 180 deg; coming-from is the default', () => {
+    const csv = 'time,hs,dir,wind,winddir\n2020-01-01 00:00,1,90,5,270\n2020-01-01 01:00,1,200,5,360\n';
+    const going = parse(csv, { directionConvention: 'going-to' });
+    expect(Array.from(going.records.dir)).toEqual([270, 20]);
+    expect(Array.from(going.records.windDir)).toEqual([90, 180]);
+    const coming = parse(csv);
+    expect(Array.from(coming.records.dir)).toEqual([90, 200]);
+    // An impossible direction is still refused, not turned into a plausible one.
+    expect(issuesOf('time,hs,dir\n2020-01-01 00:00,1,400\n2020-01-01 01:00,1,10\n', { directionConvention: 'going-to' })[0].reason).toMatch(/direction/);
   });
 });
 

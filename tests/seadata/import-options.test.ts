@@ -7,7 +7,11 @@ const base = { name: 'Buoy 46026', kind: 'observation', dataPointDepth: 'deep' }
 describe('ImportFormSchema', () => {
   it('parses multipart strings with defaults', () => {
     const f = ImportFormSchema.parse({ ...base, format: '', timeZone: '', onBadRows: '', columns: '', units: '' });
-    expect(f).toEqual({ name: 'Buoy 46026', kind: 'observation', format: 'auto', dataPointDepth: 'deep', onBadRows: 'refuse' });
+    expect(f).toEqual({ name: 'Buoy 46026', kind: 'observation', format: 'auto', dataPointDepth: 'deep', onBadRows: 'refuse', directionConvention: 'coming-from' });
+    // CSV: no height means already at 10 m, exponent 0.11 (open sea).
+    expect(csvOptionsFromForm(f)).toMatchObject({ anemometerHeightM: 10, windExponent: 0.11, directionConvention: 'coming-from' });
+    // NDBC: no height stays unset (the import refuses a file with wind then).
+    expect(ndbcOptionsFromForm(f).anemometerHeightM).toBeUndefined();
   });
 
   it('reads depth, zone, JSON fields and flags', () => {
@@ -24,7 +28,9 @@ describe('ImportFormSchema', () => {
       dateOrder: 'dmy',
       delimiter: ';',
       decimalComma: 'false',
-      anemometerHeightM: '4.1',
+      anemometerHeight: '4.1',
+      windExponent: '1/7',
+      directionConvention: 'going-to',
     });
     expect(f.dataPointDepth).toBe(52.5);
     expect(f.columns).toEqual({ time: 'Time', hs: 'Hs [m]' });
@@ -39,8 +45,12 @@ describe('ImportFormSchema', () => {
       decimalComma: false,
       onBadRows: 'skip',
       anemometerHeightM: 4.1,
+      windExponent: 1 / 7,
+      directionConvention: 'going-to',
     });
-    expect(ndbcOptionsFromForm(f)).toEqual({ onBadRows: 'skip', anemometerHeightM: 4.1 });
+    expect(ndbcOptionsFromForm(f)).toEqual({ onBadRows: 'skip', anemometerHeightM: 4.1, windExponent: 1 / 7 });
+    // The earlier field name is still read.
+    expect(ndbcOptionsFromForm(ImportFormSchema.parse({ ...base, anemometerHeightM: '5' })).anemometerHeightM).toBe(5);
   });
 
   it('accepts DEEP in any case and numbers from the browser form', () => {
@@ -64,6 +74,10 @@ describe('ImportFormSchema', () => {
       ['units', JSON.stringify({ height: 'yards' })],
       ['missingCodes', JSON.stringify([1, 2])],
       ['anemometerHeightM', '0'],
+      ['anemometerHeight', '-1'],
+      ['windExponent', '1.5'],
+      ['windExponent', 'steep'],
+      ['directionConvention', 'sideways'],
     ];
     for (const [field, value] of bad) {
       const r = ImportFormSchema.safeParse({ ...base, [field]: value });

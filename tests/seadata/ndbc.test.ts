@@ -282,24 +282,44 @@ describe('header variants', () => {
   });
 });
 
-describe('wind height correction (1/7 power law, DOMAIN.md: common practice)', () => {
-  it('multiplies WSPD by (10/z)^(1/7) when the anemometer height is given', () => {
-    // "2015 12 31 23 50  28  1.1 ..." with z = 5 m: 1.1 * 2^(1/7); 2^(1/7) = 1.104089513673812
-    // (hand value of the power law, common practice, no source).
-    const { records, report } = parse(read('46026h2016.txt'), { anemometerHeightM: 5 });
-    expect(records.wind[0]).toBeCloseTo(1.1 * 1.104089513673812, 12);
-    expect(report.notes.join(' ')).toMatch(/5 m to 10 m/);
+describe('wind height correction: U10 = Uz (10/z)^a (Hsu, Meindl & Gilhousen 1994, J. Appl. Meteor. 33, 757)', () => {
+  // A real NDBC record, copied unchanged into tests/fixtures/ndbc/ (NOAA NDBC station 46026, public
+  // domain): "2015 12 31 23 50  28  1.1 ..." has WSPD 1.1 m/s and "2016 01 01 00 50 100  1.3 ..." 1.3 m/s.
+  // The anemometer of NDBC 3-m discus buoys is about 4.1 m above the sea (from memory; check the
+  // station page). By hand, a = 0.11 (open sea, Hsu, Meindl & Gilhousen 1994):
+  //   ln(10/4.1) = ln(2.439024) = 0.891598;  0.11 * 0.891598 = 0.0980758;  exp(0.0980758) = 1.103046
+  //   U10 = 1.1 * 1.103046 = 1.21335 m/s;  1.3 * 1.103046 = 1.43396 m/s.
+  // With a = 1/7 (over land): exp(0.891598/7) = exp(0.127371) = 1.135838;  1.1 * 1.135838 = 1.24942 m/s.
+  const fixture = readFileSync(path.resolve(import.meta.dirname, '../fixtures/ndbc/46026h2016.txt'), 'utf8');
+
+  it('multiplies WSPD by (10/4.1)^0.11 at the default exponent', () => {
+    const { records, report } = parse(fixture, { anemometerHeightM: 4.1 });
+    expect(Math.abs(records.wind[0] - 1.21335)).toBeLessThan(5e-5);
+    expect(Math.abs(records.wind[1] - 1.43396)).toBeLessThan(5e-5);
+    expect(report.notes.join(' ')).toMatch(/4\.1 m to 10 m: U10 = Uz \(10\/z\)\^a with a = 0\.11 \(factor 1\.1030\)/);
   });
 
-  it('keeps WSPD when no height is given, and says so', () => {
-    const { records, report } = parse(read('46026h2016.txt'));
+  it('uses 1/7 when chosen', () => {
+    const { records, report } = parse(fixture, { anemometerHeightM: 4.1, windExponent: 1 / 7 });
+    expect(Math.abs(records.wind[0] - 1.24942)).toBeLessThan(5e-5);
+    expect(report.notes.join(' ')).toMatch(/a = 1\/7 \(over land\)/);
+  });
+
+  it('10 m means already at 10 m: no change', () => {
+    const { records } = parse(fixture, { anemometerHeightM: 10 });
+    expect(records.wind[0]).toBe(1.1);
+  });
+
+  it('keeps WSPD when no height is given (the preview), and says so', () => {
+    const { records, report } = parse(fixture);
     expect(records.wind[0]).toBe(1.1);
     expect(report.notes.join(' ')).toMatch(/kept at the anemometer height/);
   });
 
-  it('refuses an impossible height', () => {
+  it('refuses an impossible height or exponent', () => {
     expect(() => new NdbcParser({ anemometerHeightM: 0 })).toThrow(RangeError);
     expect(() => new NdbcParser({ anemometerHeightM: Number.NaN })).toThrow(RangeError);
+    expect(() => new NdbcParser({ anemometerHeightM: 4, windExponent: 1.5 })).toThrow(RangeError);
   });
 });
 

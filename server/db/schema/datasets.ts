@@ -37,6 +37,14 @@ export const dataset = pgTable(
     missing: jsonb().$type<Record<string, number>>().notNull(),
     /** How many records had each period derived (JONSWAP ratios) rather than given. */
     derived: jsonb().$type<Record<string, number>>().notNull(),
+    /**
+     * Height of the wind measurement above the sea, m, as given at import (10 = already at 10 m);
+     * null when the dataset has no wind correction to state (a forecast from the service, or
+     * stored before the height was asked for).
+     */
+    anemometerHeightM: doublePrecision(),
+    /** Power-law exponent a of U10 = Uz (10/z)^a used at import; null as above. */
+    windExponent: doublePrecision(),
     /** Import report: options used, skipped rows. */
     importReport: jsonb().$type<Record<string, unknown>>().notNull(),
     createdBy: text().references(() => user.id, { onDelete: 'set null' }),
