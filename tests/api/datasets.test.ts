@@ -6,8 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, signInAll, type TestApp } from '../support/app';
 import { createApp } from '../../server/app';
 
-// Real NDBC buoy data (public domain, NOAA NDBC), kept beside the repo in ../shared/data/ndbc.
-const NDBC_DIR = path.resolve(import.meta.dirname, '../../../shared/data/ndbc');
+// Real NDBC buoy data (public domain, NOAA NDBC), copied unchanged into tests/fixtures/ndbc.
+const NDBC_FIXTURES = path.resolve(import.meta.dirname, '../fixtures/ndbc');
 
 let t: TestApp;
 let as: Awaited<ReturnType<typeof signInAll>>;
@@ -27,15 +27,31 @@ async function datasetCount(): Promise<number> {
 }
 
 describe('importing sea-state files', () => {
-  it('imports a real NDBC historical file and reads it back as columns', async () => {
+  it('refuses an NDBC file with wind but no anemometerHeight (400 naming the field), storing nothing', async () => {
+    const before = await datasetCount();
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Buoy 46026, no height')
+      .field('kind', 'observation')
+      .field('format', 'auto')
+      .field('dataPointDepth', 'deep')
+      .attach('file', path.join(NDBC_FIXTURES, '46026h2016.txt'));
+    expect(res.status).toBe(400);
+    expect(res.body.error.details).toEqual([{ field: 'anemometerHeight', message: 'is required for an NDBC file with wind' }]);
+    expect(await datasetCount()).toBe(before);
+  });
+
+  it('imports a real NDBC historical file and reads it back as columns, wind brought to 10 m', async () => {
     const res = await as.coordinator
       .post(base)
       .field('name', 'Buoy 46026, 2016')
       .field('kind', 'observation')
       .field('format', 'auto')
       .field('dataPointDepth', 'deep')
-      .attach('file', path.join(NDBC_DIR, '46026h2016.txt'));
+      .field('anemometerHeight', '4.1')
+      .attach('file', path.join(NDBC_FIXTURES, '46026h2016.txt'));
     expect(res.status, res.text).toBe(201);
+    expect(res.body.wind).toEqual({ anemometerHeightM: 4.1, exponent: 0.11 });
     // README of ../shared/data/ndbc: 8655 data rows, 2015-12-31 23:50 to 2016-12-31 22:50 UTC.
     expect(res.body.records).toBe(8655);
     expect(res.body.start).toBe('2015-12-31T23:50:00.000Z');
@@ -52,6 +68,10 @@ describe('importing sea-state files', () => {
     expect(recs.body.tz).toEqual([8.4, 8.49]);
     expect(recs.body.dir).toEqual([276, 274]);
     expect(recs.body.windDir).toEqual([100, 43]);
+    // WSPD 1.3 and 1.8 m/s at 4.1 m; U10 = Uz (10/4.1)^0.11 (Hsu, Meindl & Gilhousen 1994), factor
+    // 1.103046 worked by hand in tests/seadata/ndbc.test.ts: 1.43396 and 1.98548 m/s.
+    expect(Math.abs(recs.body.wind[0] - 1.43396)).toBeLessThan(5e-5);
+    expect(Math.abs(recs.body.wind[1] - 1.98548)).toBeLessThan(5e-5);
     expect(recs.body.given.tp).toEqual([true, true]);
     expect(recs.body.given.te).toEqual([false, false]); // Te derived from Tp (DOMAIN Convention 8)
     expect(recs.body.te[0]).toBeCloseTo(0.9 * 13.79, 1);
@@ -59,6 +79,9 @@ describe('importing sea-state files', () => {
     const detail = await as.skipper.get(`${base}/${res.body.id}`);
     expect(detail.body.source).toMatchObject({ kind: 'upload', fileName: '46026h2016.txt', format: 'ndbc' });
     expect(detail.body.dataPoint.depthM).toBeNull();
+    expect(detail.body.wind).toEqual({ anemometerHeightM: 4.1, exponent: 0.11 });
+    expect(detail.body.importReport).toMatchObject({ anemometerHeightM: 4.1, windExponent: 0.11 });
+    expect(String(detail.body.importReport.notes)).toMatch(/anemometer height 4\.1 m to 10 m/);
   });
 
   it('imports a CSV with the mapping, units and time zone given', async () => {
@@ -171,7 +194,8 @@ describe('fetching forecasts', () => {
     const url = `/api/projects/${t.demo.projectId}/forecasts/fetch`;
     const first = await as.coordinator.post(url).send({});
     expect(first.status, first.text).toBe(201);
-    expect(first.body.records).toBeGreaterThanOrEqual(7 * 24);
+    // The fake service: hourly to +72 h, then 3-hourly to +240 h (129 records).
+    expect(first.body.records).toBe(129);
     const again = await as.coordinator.post(url).send({});
     expect(again.status).toBe(200);
     expect(again.body.isNew).toBe(false);
