@@ -168,7 +168,7 @@ export async function createOperation(db: Db, projectId: string, user: SessionUs
 /**
  * Changes some fields of an operation (`limits`, `siteIds`, `skipperIds` are replaced as a whole).
  * The merged record is checked again with the full {@link OperationInput} schema, so e.g. raising
- * TPOP of a weather-restricted operation past TR = 72 h is refused; an entry is written when an
+ * TPOP of a weather-restricted operation past TR = 96 h (or TPOP past 72 h) is refused; an entry is written when an
  * audited field changed.
  */
 export async function updateOperation(

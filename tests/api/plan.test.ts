@@ -18,6 +18,8 @@ afterAll(async () => {
   await t.close();
 });
 
+const HOUR = 3_600_000;
+
 describe('the forecast plan', () => {
   it('answers per operation and worksite with statuses, windows and go-starts', async () => {
     const res = await as.skipper.get(`${base}/plan`);
@@ -27,18 +29,36 @@ describe('the forecast plan', () => {
     expect(res.body.plans).toHaveLength(8);
     for (const p of res.body.plans) {
       expect(p.status).toHaveLength(p.times.length);
-      expect(p.times.length).toBeGreaterThanOrEqual(7 * 24);
+      // The fake forecast: hourly to +72 h, then 3-hourly to +240 h (129 records).
+      expect(p.times.length).toBe(129);
       for (const s of p.status) expect(['workable', 'marginal', 'not_workable', 'no_data']).toContain(s);
-      // A usable window is at least TR long and wholly workable (DOMAIN.md "Weather windows").
-      for (const w of p.windows) {
-        expect(w.hours).toBeGreaterThanOrEqual(p.tr);
-        const i0 = p.times.indexOf(w.start);
-        for (let i = i0; i < i0 + w.hours; i++) expect(p.status[i]).toBe('workable');
+      const ms = p.times.map((x: string) => Date.parse(x));
+      // Each record lasts until the next one (no gaps in the fake forecast); the last one 3 h.
+      const end = (i: number) => (i + 1 < ms.length ? ms[i + 1] : ms[i] + 3 * HOUR);
+      // Brute force of the local step rule (docs/domain.md#weather-windows): runs continue across
+      // the change of step, lengths are sums of durations, a window is a run at least TR long.
+      const want: { start: string; end: string; hours: number }[] = [];
+      for (let i = 0; i < ms.length; ) {
+        if (p.status[i] !== 'workable') {
+          i++;
+          continue;
+        }
+        let j = i;
+        while (j + 1 < ms.length && p.status[j + 1] === 'workable') j++;
+        const hours = (end(j) - ms[i]) / HOUR;
+        if (hours >= p.tr && end(j) > Date.parse(res.body.generatedAt)) want.push({ start: p.times[i], end: new Date(end(j)).toISOString(), hours });
+        i = j + 1;
       }
+      if (p.informationOnly) expect(p.windows).toEqual([]);
+      else expect(p.windows.map((w: { start: string; end: string; hours: number }) => ({ start: w.start, end: w.end, hours: w.hours }))).toEqual(want);
       if (p.earliestStart) {
-        // The earliest go-start has TR workable hours from it.
+        // The earliest go-start has TR of workable time from it.
         const i0 = p.times.indexOf(p.earliestStart);
-        for (let i = i0; i < i0 + p.tr; i++) expect(p.status[i]).toBe('workable');
+        let covered = 0;
+        for (let i = i0; covered < p.tr * HOUR; i++) {
+          expect(p.status[i]).toBe('workable');
+          covered += end(i) - ms[i];
+        }
       }
     }
   });

@@ -262,21 +262,41 @@ describe('operations', () => {
     }
   });
 
-  it('refuses a weather-restricted operation with TR = TPOP + TC above 72 h (DOMAIN.md)', async () => {
-    const over = await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 60, tc: 13 }));
-    expect(over.status).toBe(400);
-    expect(fields(over)).toEqual(['weatherRestricted']);
-    expect(over.body.error.message).toMatch(/72 h/);
-    // TR "up to 72 h" includes 72 h itself.
+  // Weather-restricted range TPOP <= 72 h and TR <= 96 h, both bounds included: from memory of
+  // DNV-ST-N001 and its predecessor DNV-OS-H101 ("less than"; including the bounds is the safe side).
+  it('accepts a weather-restricted operation up to TPOP 72 h and TR 96 h (bounds included), refuses beyond', async () => {
+    // TPOP 72 h exactly and TR 96 h exactly are accepted.
+    expect((await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 72, tc: 24 }))).status).toBe(201);
+    // TR 72 h and TR 78 h (refused before this correction) are accepted.
     expect((await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 60, tc: 12 }))).status).toBe(201);
-    // Not weather-restricted: no TR bound.
+    expect((await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 60, tc: 18 }))).status).toBe(201);
+    const overTr = await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 60, tc: 36.5 }));
+    expect(overTr.status).toBe(400);
+    expect(fields(overTr)).toEqual(['weatherRestricted']);
+    expect(overTr.body.error.message).toMatch(/96 h/);
+    const overTpop = await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 73, tc: 0 }));
+    expect(overTpop.status).toBe(400);
+    expect(fields(overTpop)).toEqual(['weatherRestricted']);
+    expect(overTpop.body.error.message).toMatch(/72 h/);
+    // Not weather-restricted: no bound.
     expect((await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 300, tc: 100, weatherRestricted: false }))).status).toBe(201);
-    // A change that pushes a weather-restricted operation over 72 h is refused as well.
+    // A change that pushes a weather-restricted operation over 96 h is refused as well.
     const op = await createOp(as.coordinator, A, { tpop: 48, tc: 12 });
-    const patch = await as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ tc: 30 });
+    const patch = await as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ tc: 49 });
     expect(patch.status).toBe(400);
     expect(fields(patch)).toEqual(['weatherRestricted']);
     expect((await as.coordinator.get(`/api/projects/${A}/operations/${op.id}`)).body.tc).toBe(12);
+  });
+
+  it('refuses an alpha table that does not reach TPOP 72 h (400 naming the field): never a silent alpha = 1', async () => {
+    const short = { tpopBoundsH: [12, 24, 48], hsColumnsM: [1, 2], values: [[0.65, 0.76], [0.63, 0.73], [0.6, 0.68]] };
+    const res = await as.coordinator.put(`/api/projects/${A}/alpha`).send(short);
+    expect(res.status).toBe(400);
+    expect(res.body.error.details.map((d: { field: string }) => d.field)).toEqual(['tpopBoundsH.2']);
+    expect(res.body.error.details[0].message).toMatch(/72 h/);
+    const ok = await as.coordinator.put(`/api/projects/${A}/alpha`).send({ ...short, tpopBoundsH: [12, 24, 72] });
+    expect(ok.status, ok.text).toBe(200);
+    expect((await as.coordinator.delete(`/api/projects/${A}/alpha`)).status).toBeLessThan(300);
   });
 
   it('accepts only worksites and skippers of the same project', async () => {

@@ -48,6 +48,9 @@ describe('sea data pages', () => {
     expect(firstRow).toContain('4.22');
     expect(await page.locator('#name').inputValue()).toBe('44014h2017');
     expect(await page.locator('#kind').inputValue()).toBe('observation');
+    // Buoy wind needs its anemometer height before the import is allowed (limits are for wind at 10 m).
+    expect(await page.getByRole('button', { name: 'Import the file' }).isDisabled()).toBe(true);
+    await page.locator('#anemometer').fill('4.1');
 
     // Record what the progress view shows, however fast the upload is.
     await page.evaluate(() => {

@@ -18,6 +18,9 @@ import {
   type DetectedColumns,
   type ImportFormat,
   type SeaUnits,
+  DEFAULT_WIND_EXPONENT,
+  OVER_LAND_WIND_EXPONENT,
+  type DirectionConvention,
 } from '../../../../shared/seadata';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import { ApiError } from '../../../lib/api';
@@ -43,6 +46,9 @@ const KIND_HINTS: Record<DatasetKind, string> = {
 const DEFAULT_MISSING_TEXT = DEFAULT_MISSING_CODES.filter((c) => c !== '').join(', ');
 
 /** `/projects/:projectId/sea-data/import`: coordinators and admins bring a CSV or NDBC file. */
+/** Why an NDBC file with wind cannot be imported yet. */
+const NEED_HEIGHT = 'This buoy file has wind: enter the anemometer height (10 if the wind is already at 10 m) so it can be brought to 10 m, where limits are stated.';
+
 export function DatasetImportPage() {
   const { projectId = '' } = useParams();
   const project = useProjectAccess(projectId);
@@ -88,6 +94,9 @@ function ImportForm({ project }: { project: ProjectDetail }) {
   const [depthText, setDepthText] = useState(project.dataPointDepthM?.toString() ?? '');
   const [format, setFormat] = useState<ImportFormat>('auto');
   const [anemometerText, setAnemometerText] = useState('');
+  const [exponentChoice, setExponentChoice] = useState<'open-sea' | 'over-land'>('open-sea');
+  const [directionConvention, setDirectionConvention] = useState<DirectionConvention>('coming-from');
+  const windExponent = exponentChoice === 'over-land' ? OVER_LAND_WIND_EXPONENT : DEFAULT_WIND_EXPONENT;
   const [onBadRows, setOnBadRows] = useState<BadRowMode>('refuse');
   // CSV choices; null means "as detected from the file".
   const [delimiter, setDelimiter] = useState<CsvDelimiter | null>(null);
@@ -118,7 +127,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
     const t = anemometerText.trim();
     if (t === '') return { value: undefined, error: undefined };
     const x = parseDecimal(t);
-    return x > 0 && x <= 1000 ? { value: x, error: undefined } : { value: undefined, error: 'Enter a height above 0 and at most 1000 m, or leave it empty.' };
+    return x > 0 && x <= 1000 ? { value: x, error: undefined } : { value: undefined, error: 'Enter a height above 0 and at most 1000 m (10 when the wind is already at 10 m).' };
   }, [anemometerText]);
 
   const zoneOk = isValidTimeZone(timeZone.trim());
@@ -136,18 +145,23 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         dateOrder,
         missingCodes,
         anemometerHeightM: anemometer.value,
+        windExponent,
+        directionConvention,
         rows: 12,
       });
       return { preview, error: null };
     } catch (e) {
       return { preview: null, error: e instanceof Error ? e.message : String(e) };
     }
-  }, [head, effectiveFormat, delimiter, decimalComma, mapping, units, zoneOk, timeZone, dateOrder, missingCodes, anemometer.value]);
+  }, [head, effectiveFormat, delimiter, decimalComma, mapping, units, zoneOk, timeZone, dateOrder, missingCodes, anemometer.value, windExponent, directionConvention]);
 
   const ndbc = useMemo(
-    () => (head !== null && effectiveFormat === 'ndbc' ? previewNdbc(head, anemometer.value) : null),
-    [head, effectiveFormat, anemometer.value],
+    () => (head !== null && effectiveFormat === 'ndbc' ? previewNdbc(head, anemometer.value, windExponent) : null),
+    [head, effectiveFormat, anemometer.value, windExponent],
   );
+  // NDBC buoys measure wind at about 4-5 m: the height must be stated when the file has wind.
+  const ndbcHasWind = ndbc?.records ? ndbc.records.wind.some((w) => w === w) : false;
+  const needHeight = effectiveFormat === 'ndbc' && ndbcHasWind && anemometer.value === undefined;
 
   const preview = csv?.preview ?? null;
   const csvValues: CsvOptionsValues | null = preview
@@ -237,7 +251,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       format,
       dataPointDepth: deep ? 'deep' : depthText,
       onBadRows,
-      anemometerHeightM: anemometerText.trim() || undefined,
+      anemometerHeight: anemometerText.trim() || undefined,
+      windExponent,
     };
     if (isCsv && preview && csvValues) {
       Object.assign(input, {
@@ -248,6 +263,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         dateOrder: preview.dateOrder,
         delimiter: preview.delimiter,
         decimalComma: preview.decimalComma,
+        directionConvention,
       });
     }
     const parsed = ImportFormSchema.safeParse(input);
@@ -266,7 +282,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 : issue.message;
       }
     }
-    if (anemometer.error) next.anemometerHeightM = anemometer.error;
+    if (anemometer.error) next.anemometerHeight = anemometer.error;
+    if (needHeight) next.anemometerHeight = NEED_HEIGHT;
     if (Object.keys(next).length > 0 || !parsed.success) {
       setErrors(next);
       return;
@@ -280,7 +297,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       dataPointDepth: form.dataPointDepth === 'deep' ? 'deep' : String(form.dataPointDepth),
       onBadRows: form.onBadRows,
     };
-    if (form.anemometerHeightM !== undefined) fields.anemometerHeightM = String(form.anemometerHeightM);
+    if (form.anemometerHeight !== undefined) fields.anemometerHeight = String(form.anemometerHeight);
+    fields.windExponent = exponentChoice === 'over-land' ? '1/7' : String(DEFAULT_WIND_EXPONENT);
     if (isCsv) {
       if (form.timeZone) fields.timeZone = form.timeZone;
       if (form.columns) fields.columns = JSON.stringify(form.columns);
@@ -289,6 +307,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       if (form.dateOrder) fields.dateOrder = form.dateOrder;
       if (form.delimiter) fields.delimiter = form.delimiter;
       if (form.decimalComma !== undefined) fields.decimalComma = String(form.decimalComma);
+      fields.directionConvention = form.directionConvention;
     }
     const controller = new AbortController();
     abort.current = controller;
@@ -312,7 +331,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
   const error = importMutation.error;
   const badFile = error instanceof ApiError && error.code === 'bad_file' ? error : null;
   const busy = importMutation.isPending;
-  const blocked = !file || tooLarge || readError !== null || (effectiveFormat === 'csv' && (needTime || !zoneOk)) || !!anemometer.error;
+  const blocked = !file || tooLarge || readError !== null || (effectiveFormat === 'csv' && (needTime || !zoneOk)) || !!anemometer.error || needHeight;
 
   return (
     <div>
@@ -433,14 +452,47 @@ function ImportForm({ project }: { project: ProjectDetail }) {
               </label>
             </div>
             <FieldShell
-              label="Anemometer height above the sea"
+              label={effectiveFormat === 'ndbc' ? 'Anemometer height above the sea (required for buoy wind)' : 'Anemometer height above the sea'}
               unit="m"
               htmlFor="anemometer"
-              error={errors.anemometerHeightM ?? anemometer.error}
-              hint="Leave empty when the wind is already at 10 m. Buoys measure at about 4-5 m; the speed is then corrected to 10 m by the 1/7 power law."
+              error={errors.anemometerHeight ?? anemometer.error}
+              hint={
+                effectiveFormat === 'ndbc'
+                  ? 'Limits are for wind at 10 m; NDBC buoys measure it at about 4-5 m (see the station page). Enter the height, or 10 when the wind is already at 10 m. Wind becomes U10 = Uz·(10/z)^a.'
+                  : 'Empty: the wind in the file is already at 10 m (no correction). Enter the height when it is not; wind becomes U10 = Uz·(10/z)^a.'
+              }
             >
-              <Input id="anemometer" inputMode="decimal" value={anemometerText} invalid={!!anemometer.error} onChange={(e) => setAnemometerText(e.target.value)} />
+              <Input
+                id="anemometer"
+                inputMode="decimal"
+                value={anemometerText}
+                placeholder={effectiveFormat === 'ndbc' ? 'e.g. 4.1' : 'already at 10 m'}
+                invalid={!!anemometer.error || !!errors.anemometerHeight}
+                onChange={(e) => {
+                  setAnemometerText(e.target.value);
+                  clearError('anemometerHeight');
+                }}
+              />
             </FieldShell>
+            <FieldShell
+              label="Wind profile exponent a"
+              htmlFor="wind-exponent"
+              hint="0.11 over the open sea (Hsu, Meindl & Gilhousen 1994); 1/7 is an over-land value. Used only when the height is not 10 m."
+            >
+              <Select id="wind-exponent" value={exponentChoice} onChange={(e) => setExponentChoice(e.target.value as 'open-sea' | 'over-land')}>
+                <option value="open-sea">0.11 (open sea)</option>
+                <option value="over-land">1/7 (over land)</option>
+              </Select>
+            </FieldShell>
+            {effectiveFormat === 'csv' ? (
+              <FieldShell label="Directions in the file" htmlFor="direction-convention" hint="Lullwatch stores where waves and wind come from. Going-to directions get 180° added.">
+                <Select id="direction-convention" value={directionConvention} onChange={(e) => setDirectionConvention(e.target.value as DirectionConvention)}>
+                  <option value="coming-from">Coming from (nautical, usual)</option>
+                  <option value="going-to">Going to (oceanographic)</option>
+                </Select>
+              </FieldShell>
+            ) : null}
+            {needHeight ? <Notice tone="error">{NEED_HEIGHT}</Notice> : null}
           </div>
         </Card>
 

@@ -86,6 +86,21 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
             ) : null}
             {r.timeZone && r.format !== 'ndbc' ? <Item label="Times without offset read in">{r.timeZone}</Item> : null}
             {r.newestFirst ? <Item label="Order">Newest first in the file; stored oldest first</Item> : null}
+            <Item label="Wind height">
+              {d.wind.anemometerHeightM === null
+                ? 'not stated (kept as read)'
+                : d.wind.anemometerHeightM === 10
+                  ? 'already at 10 m'
+                  : `${d.wind.anemometerHeightM} m above the sea, brought to 10 m`}
+              {d.wind.anemometerHeightM !== null && d.wind.anemometerHeightM !== 10 && d.wind.exponent !== null ? (
+                <span className="block font-normal text-ink-soft">
+                  U10 = Uz·(10/z)^a, a = {Math.abs(d.wind.exponent - 1 / 7) < 1e-9 ? '1/7 (over land)' : `${d.wind.exponent} (open sea)`}
+                </span>
+              ) : null}
+            </Item>
+            {str(d.importReport.directionConvention) ? (
+              <Item label="Directions in the file">{d.importReport.directionConvention === 'going-to' ? 'going to (180° added)' : 'coming from'}</Item>
+            ) : null}
           </>
         )}
         <Item label="Stored as">

@@ -14,9 +14,9 @@ export interface NdbcPreview {
  * Reads the leading text of an NDBC file as the import will (bad rows skipped here only so the
  * preview shows the rest); `head` must end at a line break.
  */
-export function previewNdbc(head: string, anemometerHeightM: number | undefined): NdbcPreview {
+export function previewNdbc(head: string, anemometerHeightM: number | undefined, windExponent?: number): NdbcPreview {
   try {
-    const p = new NdbcParser({ onBadRows: 'skip', anemometerHeightM });
+    const p = new NdbcParser({ onBadRows: 'skip', anemometerHeightM, windExponent });
     p.push(head);
     const { records, report } = p.end();
     return { records, notes: report.notes, issues: report.issues, error: null };

@@ -48,9 +48,9 @@ export function AlphaPanel({ projectId, canEdit }: { projectId: string; canEdit:
     <div className="flex flex-col gap-4">
       <div className="flex flex-col gap-2">
         <p className="max-w-3xl text-sm text-ink-soft">
-          Weather-restricted operations (TR up to 72 h) are planned on a forecast with the forecast limit OPWF = α·OPLIM on their Hs
+          Weather-restricted operations (TPOP up to 72 h and TR up to 96 h) are planned on a forecast with the forecast limit OPWF = α·OPLIM on their Hs
           limits. α comes from the first row whose TPOP bound is not exceeded, interpolated linearly between the Hs columns (the end
-          column outside them). It never applies to Tp, bed velocity or wind limits.
+          column outside them). It never applies to Tp, bed velocity or wind limits. An edited table must reach TPOP 72 h (its last row), so no weather-restricted operation is left without α.
         </p>
         <div className="flex flex-wrap items-center gap-2">
           {a.isDefault ? (

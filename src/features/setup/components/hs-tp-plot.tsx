@@ -21,7 +21,7 @@ function niceStep(span: number, count: number): number {
  * parse yet are left out.
  *
  * @param alphaAt alpha for an Hs limit in m (Convention 5: looked up at the limit's own value);
- *   null when the operation works at OPLIM (not weather-restricted, or TR above 72 h).
+ *   null when the operation works at OPLIM (not weather-restricted, TPOP above 72 h or TR above 96 h).
  */
 export function HsTpPlot({ limits, alphaAt }: { limits: EnvelopeLimits; alphaAt: ((hsM: number) => number) | null }) {
   const id = useId();

@@ -3,7 +3,7 @@ import { useForm, useWatch, type FieldErrors } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
-import { alphaFor, WEATHER_RESTRICTED_MAX_TR_H } from '../../../../shared/engine/alpha-factor';
+import { alphaFor, WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../../../../shared/engine/alpha-factor';
 import { BED_VELOCITY_METHODS, LIMIT_RANGES } from '../../../../shared/engine/schemas';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
@@ -61,7 +61,7 @@ function limitsFromText(l: LimitsText): OperationLimits {
 
 /**
  * Text to the request body, then the shared {@link OperationInput} schema (limits with
- * `operationLimitsSchema`, TR ≤ 72 h for weather-restricted operations): the server's checks and
+ * `operationLimitsSchema`, TPOP ≤ 72 h and TR ≤ 96 h for weather-restricted operations): the server's checks and
  * words, on the same field paths.
  */
 const OperationFormSchema = OperationText.transform(
@@ -162,7 +162,7 @@ export function OperationForm({
   const trKnown = Number.isFinite(tr);
   const liveLimits = limitsFromText(limitsText);
   const alphaApplies =
-    weatherRestricted && trKnown && tpop >= 0 && tr >= 0 && tr <= WEATHER_RESTRICTED_MAX_TR_H && alphaTable !== undefined;
+    weatherRestricted && trKnown && tpop >= 0 && tr >= 0 && tpop <= WEATHER_RESTRICTED_MAX_TPOP_H && tr <= WEATHER_RESTRICTED_MAX_TR_H && alphaTable !== undefined;
   const alphaAt = alphaApplies
     ? (hsM: number) => {
         try {
@@ -218,6 +218,11 @@ export function OperationForm({
             <p className="text-xs text-ink-soft">A go-start needs TR of workable weather in a row.</p>
           </div>
         </div>
+        {Number.isFinite(tc) && tc === 0 ? (
+          <p role="status" className="rounded-lg border border-st-marginal bg-surface-2 px-3 py-2 text-sm font-semibold" data-testid="tc-zero-warning">
+            Warning: TC is 0 h, no contingency. Any delay or error in TPOP runs the operation past the forecast window it was started in.
+          </p>
+        ) : null}
         <div className="flex flex-col gap-1">
           <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
             <input type="checkbox" className="size-5 accent-[var(--color-accent)]" {...form.register('weatherRestricted')} />
@@ -230,10 +235,16 @@ export function OperationForm({
           ) : null}
           <p className="text-xs text-ink-soft">
             Planned on a weather forecast, so the Hs limits are reduced to the forecast limit OPWF = α·OPLIM, α from the project’s
-            alpha table by TPOP and Hs limit. Only for TR up to {WEATHER_RESTRICTED_MAX_TR_H} h: a longer operation cannot rest on a
-            forecast and is planned unrestricted, at OPLIM (α = 1).
+            alpha table by TPOP and Hs limit. Only for TPOP up to {WEATHER_RESTRICTED_MAX_TPOP_H} h and TR up to{' '}
+            {WEATHER_RESTRICTED_MAX_TR_H} h (DNV-ST-N001, from memory). An operation that is not weather-restricted is designed for
+            statistical extremes or split into sub-operations with safe points: the watch board shows its hours against OPLIM for
+            information only, never a go-start, window or “may start now”.
           </p>
-          {weatherRestricted && trKnown && tr > WEATHER_RESTRICTED_MAX_TR_H ? (
+          {weatherRestricted && Number.isFinite(tpop) && tpop > WEATHER_RESTRICTED_MAX_TPOP_H ? (
+            <p className="text-sm font-semibold text-danger">
+              TPOP is {fmt(tpop)} h, above {WEATHER_RESTRICTED_MAX_TPOP_H} h: split it at safe points, or untick weather-restricted.
+            </p>
+          ) : weatherRestricted && trKnown && tr > WEATHER_RESTRICTED_MAX_TR_H ? (
             <p className="text-sm font-semibold text-danger">
               TR is {fmt(tr)} h, above {WEATHER_RESTRICTED_MAX_TR_H} h: shorten TPOP or TC, or untick weather-restricted.
             </p>
