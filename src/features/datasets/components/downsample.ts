@@ -1,3 +1,4 @@
+import { recordSteps } from '../../../../shared/engine/record-steps';
 /**
  * Thinning of long sea-state series for drawing: a 30-year hourly series has 263 000 records,
  * far more than a chart has pixels.
@@ -21,22 +22,24 @@ export interface Thinned {
  * keeps every storm peak visible however far the chart is zoomed out (a mean would flatten them;
  * common practice for sea-state overviews, no source). Intervals without a value give a null
  * point, so gaps in the data show as breaks. When there are no more records than buckets, the
- * records are returned as they are, with a break wherever the spacing exceeds 1.5 × `stepMs`.
+ * records are returned as they are, with a break at every gap of the local step rule (a spacing over
+ * 1.5 times the step on both sides of it; a forecast that turns 3-hourly is not broken up).
  *
  * @param timeMs record times, UTC ms, increasing.
  * @param values the variable (any unit), NaN = missing; same length as `timeMs`.
  * @param fromMs start of the drawn range, UTC ms.
  * @param toMs end of the drawn range, UTC ms (> fromMs).
  * @param buckets number of intervals (≥ 1).
- * @param stepMs the dataset's nominal time step, ms (for the gap test of raw records).
+ * @param stepMs the dataset's nominal time step, ms (the fallback of the gap test of raw records).
  */
 export function maxPerBucket(timeMs: Float64Array, values: Float64Array, fromMs: number, toMs: number, buckets: number, stepMs: number): Thinned {
   const n = timeMs.length;
   const points: ChartPoint[] = [];
   if (n === 0) return { points, bucketMs: 0 };
   if (n <= buckets || !(toMs > fromMs)) {
+    const { continues, durationMs } = recordSteps(timeMs, stepMs > 0 ? stepMs : undefined);
     for (let i = 0; i < n; i++) {
-      if (i > 0 && timeMs[i] - timeMs[i - 1] > 1.5 * stepMs) points.push({ x: new Date(timeMs[i - 1] + stepMs), y: null });
+      if (i > 0 && continues[i - 1] === 0) points.push({ x: new Date(timeMs[i - 1] + durationMs[i - 1]), y: null });
       points.push({ x: new Date(timeMs[i]), y: Number.isNaN(values[i]) ? null : values[i] });
     }
     return { points, bucketMs: 0 };
