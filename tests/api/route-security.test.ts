@@ -44,6 +44,8 @@ interface Params {
   entryId: string;
   userId: string;
   file: string;
+  /** A campaign step's index. */
+  index: string;
 }
 type ParamName = keyof Params;
 
@@ -255,6 +257,14 @@ const TABLE: Record<string, RouteCase> = {
     query: (p) => ({ dataset: p.datasetId }),
     queryIds: { dataset: 'datasetId' },
   },
+  'PATCH /projects/:projectId/campaigns/:campaignId/steps/:index': {
+    access: 'coordinator',
+    why: 'marks progress (audited); clients and skippers only read it',
+    body: () => ({ status: 'started' }),
+    fresh: async () => ({ campaignId: await createCampaign(P1.projectId, P1.operationId, P1.siteId) }),
+  },
+  'GET /projects/:projectId/campaigns/:campaignId/outlook': { access: 'member', why: 'a read: clients see when the campaign will finish', query: () => ({ alpha: 'true' }) },
+  'GET /projects/:projectId/campaigns/:campaignId/outlook/history': { access: 'member' },
 
   'POST /projects/:projectId/ledger/propose': { access: 'coordinator', query: () => ledgerRange },
   'GET /projects/:projectId/ledger': { access: 'member', why: 'clients see confirmed days only', query: () => ledgerRange },
@@ -390,7 +400,7 @@ beforeAll(async () => {
         createCampaign(projectId, operationId, siteId),
         createLedgerEntry(projectId, operationId, siteId),
       ]);
-      return { projectId, siteId, operationId, datasetId, campaignId, entryId, userId: scratchUser.body.user.id, file: 'unused' };
+      return { projectId, siteId, operationId, datasetId, campaignId, entryId, userId: scratchUser.body.user.id, file: 'unused', index: '0' };
     }),
   );
   P1 = p1;
