@@ -37,7 +37,8 @@ const DAY_MS = 86_400_000;
  * A few weeks of outlook history for the demo campaign, so the drift chart shows at once: one
  * outlook a day at 06:15 UTC from the campaign's start to yesterday, each computed by the real
  * service as of that morning with the progress of that morning. No forecast of those days is
- * stored, so these are hindcast-only outlooks (their forecast issue is empty).
+ * stored, so these are hindcast-only outlooks (their forecast issue is empty). The campaign's
+ * planned finish is the P50 of the first of them (what the plan promised at the start).
  */
 async function seedOutlookHistory(
   deps: Pick<AppDeps, 'db'>,
@@ -57,6 +58,8 @@ async function seedOutlookHistory(
     await deps.db.update(campaign).set({ progress }).where(eq(campaign.id, campaignId));
     const answer = await campaignOutlookAnswer(deps.db, projectId, campaignId, { alpha: true, now: new Date(at) });
     await storeOutlook(deps.db, projectId, answer, null);
+    // The plan promised the P50 finish of the outlook on the campaign's first morning.
+    if (day === t.fromMs && answer.finish.p50) await deps.db.update(campaign).set({ plannedFinish: new Date(answer.finish.p50) }).where(eq(campaign.id, campaignId));
   }
 }
 
