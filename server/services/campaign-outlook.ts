@@ -19,8 +19,9 @@ import { and, asc, desc, eq, gte, inArray, isNotNull } from 'drizzle-orm';
 import { TZDate } from '@date-fns/tz';
 import { format } from 'date-fns';
 import {
-  WEATHER_RESTRICTED_MAX_TR_H,
   evaluateStatus,
+  isWeatherRestricted,
+  recordSteps,
   goStarts,
   outlookPercentiles,
   outlookStart,
@@ -225,7 +226,7 @@ async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs:
         setup,
         ({ op, spec, site, engine, workspace }) => {
           const tr = spec.tpopH + spec.tcH;
-          if (row.kind === 'forecast' && (!op.weatherRestricted || tr > WEATHER_RESTRICTED_MAX_TR_H)) {
+          if (row.kind === 'forecast' && !isWeatherRestricted(spec)) {
             flags.set(pairKey({ operationId: op.id, siteId: site.id }), new Uint8Array(engine.timeMs.length));
             return;
           }
@@ -251,7 +252,9 @@ async function forecastMembers(db: Db, row: DatasetRow, setup: ProjectSetup, rem
   const [series, flags] = await Promise.all([datasetSeries(db, row.id), goStartFlags(db, row, setup, remaining, alpha)]);
   const n = series.timeMs.length;
   if (n === 0) return [];
-  return [{ label: 'forecast', timeMs: series.timeMs, endMs: series.timeMs[n - 1] + row.stepMinutes * 60_000, goStart: remaining.map((p) => flags.get(pairKey(p))!) }];
+  // The forecast ends with its last record's own step (forecasts often go 3-hourly after a few days).
+  const lastMs = recordSteps(series.timeMs, row.stepMinutes * 60_000).durationMs[n - 1];
+  return [{ label: 'forecast', timeMs: series.timeMs, endMs: series.timeMs[n - 1] + lastMs, goStart: remaining.map((p) => flags.get(pairKey(p))!) }];
 }
 
 function finishOf(x: { p10: number; p50: number; p90: number } | null): OutlookFinish {
