@@ -66,9 +66,9 @@ function OutlookFigures({ o, zone, stale }: { o: CampaignOutlookAnswer; zone: st
     <div className={`flex flex-col gap-3 ${stale ? 'opacity-60' : ''}`}>
       {o.complete ? <Notice tone="success">Every step is done: the campaign finished on {d(o.finish.p50)}.</Notice> : null}
       <dl className="grid gap-3 sm:grid-cols-3" data-testid="outlook-dates">
+        <Figure label="P10 finish" value={d(o.finish.p10)} />
         <Figure label="P50 finish" value={d(o.finish.p50)} strong testId="outlook-p50" />
         <Figure label="P90 finish" value={d(o.finish.p90)} testId="outlook-p90" />
-        <Figure label="P10 finish" value={d(o.finish.p10)} />
         <Figure label="Remaining waiting on weather, P50" value={hours(o.remainingWowHours.p50, 0)} />
         <Figure label="Remaining waiting on weather, P90" value={hours(o.remainingWowHours.p90, 0)} />
         <Figure label="Samples" value={`${o.samples}${o.censored > 0 ? `, ${o.censored} censored (left out)` : ', none censored'}`} />
