@@ -595,7 +595,7 @@ export type ProjectSetupDocument = z.infer<typeof ProjectSetupDocument>;
 // Audit trail query
 // ---------------------------------------------------------------------------------------------
 
-export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project'] as const;
+export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project', 'campaign'] as const;
 export type AuditEntity = (typeof AUDIT_ENTITIES)[number];
 export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import'] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
