@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
 import { format } from 'date-fns';
 import type { z } from 'zod';
+import { issuesInWords, problemSentence } from '../../../../shared/schemas/words';
 import { IMPORT_MODES, ProjectSetupDocument, type ImportMode } from '../../../../shared/schemas/sites';
 import type { ImportResultResponse } from '../../../../shared/api-types-sites';
 import { Button, Card, ErrorNotice, Notice } from '../../../components/ui';
@@ -28,24 +29,6 @@ interface ReadFile {
   problems: string[];
 }
 
-/** A zod issue path in words, naming the worksite or operation it is in when the file names it. */
-function issuePlace(path: PropertyKey[], raw: unknown): string {
-  const parts: string[] = [];
-  let node: unknown = raw;
-  for (let i = 0; i < path.length; i++) {
-    const key = path[i];
-    const next = node && typeof node === 'object' ? (node as Record<PropertyKey, unknown>)[key as string] : undefined;
-    if (typeof key === 'number') {
-      const name = next && typeof next === 'object' && typeof (next as { name?: unknown }).name === 'string' ? (next as { name: string }).name : null;
-      parts[parts.length - 1] = `${parts[parts.length - 1] ?? ''} ${key + 1}${name ? ` “${name}”` : ''}`;
-    } else {
-      parts.push(String(key));
-    }
-    node = next;
-  }
-  return parts.join(' › ') || 'the document';
-}
-
 async function readSetupFile(file: File): Promise<ReadFile> {
   if (file.size > MAX_FILE_BYTES) return { fileName: file.name, doc: null, problems: [`The file is larger than ${MAX_FILE_BYTES / 1024 / 1024} MB`] };
   let raw: unknown;
@@ -59,7 +42,7 @@ async function readSetupFile(file: File): Promise<ReadFile> {
   return {
     fileName: file.name,
     doc: null,
-    problems: (parsed.error as z.ZodError).issues.slice(0, 50).map((i) => `${issuePlace(i.path, raw)}: ${i.message}`),
+    problems: issuesInWords(parsed.error as z.ZodError, raw, 'The document').slice(0, 50).map(problemSentence),
   };
 }
 
