@@ -1,5 +1,5 @@
 import { useId, useState } from 'react';
-import { format } from 'date-fns';
+import { formatInstant, localTimeZone } from '../../../../shared/dates';
 import type { z } from 'zod';
 import { issuesInWords, problemSentence } from '../../../../shared/schemas/words';
 import { IMPORT_MODES, ProjectSetupDocument, type ImportMode } from '../../../../shared/schemas/sites';
@@ -140,7 +140,7 @@ function ImportCard({ projectId }: { projectId: string }) {
         {doc ? (
           <div className="rounded-lg border border-line bg-surface-2 p-3 text-sm">
             <p>
-              <span className="font-semibold">“{doc.project.name}”</span>, exported {format(new Date(doc.exportedAt), 'd MMM yyyy, HH:mm')}:
+              <span className="font-semibold">“{doc.project.name}”</span>, exported {formatInstant(doc.exportedAt, localTimeZone(), 'dateTimeYear')}:
             </p>
             <ul className="mt-1 list-disc pl-5">
               <li>
