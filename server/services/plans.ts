@@ -136,7 +136,7 @@ async function computePlan(
 /**
  * Occurrences of a recurring operation inside the plan's horizon, each judged on its window
  * [start, start + TR): go when every hour is workable, marginal when every hour is workable or
- * marginal, no-go when any hour is not workable, no data otherwise (DOMAIN Convention 7).
+ * marginal, no-go when any hour is not workable, no data otherwise (docs/domain.md#convention-7).
  */
 export function occurrencesOf(
   recurrence: unknown,

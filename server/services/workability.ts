@@ -1,6 +1,6 @@
 /**
- * Hindcast workability statistics of every operation at each of its worksites (DOMAIN.md,
- * "Hindcast statistics"; Conventions 9-14), cached by dataset and by a version of the limits.
+ * Hindcast workability statistics of every operation at each of its worksites (docs/domain.md#hindcast-statistics,
+ * docs/domain.md#convention-9 to #convention-14), cached by dataset and by a version of the limits.
  *
  * Work per request, cold: read the series once (kept in a small in-process memo: stored datasets
  * never change), then per worksite one transformation into reused buffers and one calendar, and
@@ -177,8 +177,8 @@ export interface OperationSiteContext {
 
 /**
  * Calls `fn` for every operation at each of its worksites (or only the pairs `wanted` accepts),
- * worksite by worksite: each worksite's series is transformed once (DOMAIN.md "From the data point
- * to the worksite", the same steps as site-context's `transformForSite`, but into buffers reused
+ * worksite by worksite: each worksite's series is transformed once (docs/domain.md#transformation,
+ * the same steps as site-context's `transformForSite`, but into buffers reused
  * from one worksite to the next) and its calendar built once (shared by worksites of one zone).
  * One engine workspace serves every call.
  */
@@ -289,7 +289,7 @@ export interface WorkabilityResult {
 
 /**
  * Workability statistics of every operation at each of its worksites on a hindcast (by default
- * the project's newest), with or without alpha (Convention 14), in operation then worksite order.
+ * the project's newest), with or without alpha (docs/domain.md#convention-14), in operation then worksite order.
  */
 export async function projectWorkability(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean }): Promise<WorkabilityResult> {
   const row = await statisticsDataset(db, projectId, options.datasetId);

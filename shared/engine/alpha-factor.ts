@@ -2,7 +2,7 @@ import type { AlphaTable, OperationSpec } from './types';
 
 /**
  * Largest reference period TR = TPOP + TC of a weather-restricted operation, h
- * (DOMAIN.md, "Operations and limits": "Weather-restricted operations (TR up to 72 h)").
+ * (docs/domain.md#weather-restricted).
  */
 export const WEATHER_RESTRICTED_MAX_TR_H = 72;
 
@@ -35,9 +35,9 @@ function assertAscending(xs: readonly number[], what: string): void {
 }
 
 /**
- * Row of the alpha table that applies to an operation, or -1 when alpha = 1 (Convention 5).
+ * Row of the alpha table that applies to an operation, or -1 when alpha = 1 (docs/domain.md#convention-5).
  *
- * - Not weather-restricted: -1 (alpha = 1). Decision: DOMAIN.md applies OPWF = alpha * OPLIM to
+ * - Not weather-restricted: -1 (alpha = 1). Decision: docs/domain.md#weather-restricted applies OPWF = alpha * OPLIM to
  *   weather-restricted operations planned on a forecast; an operation that is not weather-restricted
  *   is designed for the statistical extremes and works at OPLIM, so alpha = 1.
  * - TR above {@link WEATHER_RESTRICTED_MAX_TR_H} (72 h), and so also TPOP above 72 h: -1.
@@ -60,7 +60,7 @@ export function alphaRowIndex(table: AlphaTable, tpopH: number, trH: number, wea
 
 /**
  * Alpha from one row of the table at an Hs limit: linear interpolation between the Hs columns;
- * below the first or above the last column, the end column's value (Convention 5).
+ * below the first or above the last column, the end column's value (docs/domain.md#convention-5).
  *
  * @param row row index from {@link alphaRowIndex}; -1 gives 1
  * @param hsLimitM Hs limit (OPLIM), m
@@ -85,8 +85,8 @@ export function interpolateClamped(xs: ArrayLike<number>, ys: ArrayLike<number>,
 }
 
 /**
- * Alpha factor for an Hs limit: OPWF = alpha * OPLIM (DOMAIN.md, "Operations and limits";
- * table from memory of DNV-ST-N001). Row by TPOP, linear in Hs, Convention 5; see
+ * Alpha factor for an Hs limit: OPWF = alpha * OPLIM (docs/domain.md#weather-restricted;
+ * table from memory of DNV-ST-N001). Row by TPOP, linear in Hs, docs/domain.md#convention-5; see
  * {@link alphaRowIndex} for when alpha is 1.
  *
  * @param tpopH planned duration TPOP, h

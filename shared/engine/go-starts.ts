@@ -4,7 +4,7 @@ import { recordsForTr } from './workable-runs';
 /**
  * Go-start flags: 1 where [t0, t0 + TR) is wholly workable, that is ceil(TR / dt) consecutive
  * workable records start at t0, all present, each at most 1.5 * dt after the one before
- * (DOMAIN.md, "Weather windows"; Conventions 9-10). There is none in the last TR - dt of a series.
+ * (docs/domain.md#weather-windows, #convention-9 to #convention-10). There is none in the last TR - dt of a series.
  *
  * @param timeMs record times, UTC epoch ms, ascending
  * @param status STATUS code per record

@@ -9,7 +9,7 @@ import { assertStep } from './workable-runs';
 export interface PlanOptions {
   /** Apply alpha (OPWF) to the Hs limits. Default true; false plans on OPLIM. */
   alpha?: boolean;
-  /** Time step dt, ms; default: the median spacing of the series (Convention 9). */
+  /** Time step dt, ms; default: the median spacing of the series (docs/domain.md#convention-9). */
   stepMs?: number;
 }
 
@@ -36,11 +36,11 @@ export interface OperationPlan {
 }
 
 /**
- * Plans one operation at one worksite on a forecast (DOMAIN.md, "Weather windows"): hourly status
+ * Plans one operation at one worksite on a forecast (docs/domain.md#weather-windows: hourly status
  * with the limiting factor and margin, go-starts for TR, usable windows with their smallest
  * margins, the earliest go-start and whether the operation may start now.
  *
- * Decisions (DOMAIN.md is silent):
+ * Decisions (docs/domain.md leaves them open):
  * - "May start now" means the record whose interval [t, t + dt) holds nowMs is a go-start. When
  *   nowMs falls in a gap or outside the series, no record covers it and startNow is false.
  * - The earliest go-start is the first go-start whose record covers nowMs or starts after it; it

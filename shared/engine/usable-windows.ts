@@ -12,8 +12,8 @@ export interface WindowOptions {
 
 /**
  * Usable weather windows: workable runs at least TR long, that is of at least ceil(TR / dt)
- * records (DOMAIN.md, "Weather windows"; Conventions 9-10), each with its smallest margins
- * (Convention 16).
+ * records (docs/domain.md#weather-windows, #convention-9 to #convention-10), each with its smallest margins
+ * (docs/domain.md#convention-16).
  *
  * Margins, per limit, the minimum over the window's records of (limit - value) in the limit's
  * unit: Hs max and curve against OPWF, m; Tp min (Tp - min) and Tp max (max - Tp), s; excluded

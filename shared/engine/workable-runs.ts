@@ -8,7 +8,7 @@ export interface WorkableRun {
   count: number;
   /** Start, UTC epoch ms. */
   startMs: number;
-  /** Exclusive end, UTC epoch ms: start + count * dt (Convention 10). */
+  /** Exclusive end, UTC epoch ms: start + count * dt (docs/domain.md#convention-10). */
   endMs: number;
   /** Length count * dt, h. */
   hours: number;
@@ -18,7 +18,7 @@ export interface WorkableRun {
 export const MS_PER_HOUR = 3_600_000;
 
 /**
- * Records needed for a go-start: ceil(TR / dt), at least 1 (Convention 10). A relative tolerance of
+ * Records needed for a go-start: ceil(TR / dt), at least 1 (docs/domain.md#convention-10). A relative tolerance of
  * 1e-9 keeps a TR that is a whole number of steps from rounding up by floating-point noise.
  *
  * @param trH reference period TR, h (> 0)
@@ -39,7 +39,7 @@ export function assertStep(stepMs: number): void {
 /**
  * Remaining run length: for each record, the number of consecutive workable records starting at
  * it (0 when it is not workable). A record continues the one before it when they are at most
- * 1.5 * dt apart (Convention 9); a longer gap breaks the run. One backward pass.
+ * 1.5 * dt apart (docs/domain.md#convention-9); a longer gap breaks the run. One backward pass.
  *
  * @param stepMs dt, ms
  * @param out optional buffer of the series' length to write into
@@ -63,7 +63,7 @@ export function runRemaining(timeMs: Float64Array, status: Uint8Array, stepMs: n
 }
 
 /**
- * Maximal runs of consecutive workable records (DOMAIN.md, "Weather windows"; Conventions 9-10).
+ * Maximal runs of consecutive workable records (docs/domain.md#weather-windows, #convention-9 to #convention-10).
  * Only STATUS.WORKABLE counts: marginal, not workable and no data end a run, and so does a gap
  * longer than 1.5 * dt.
  *

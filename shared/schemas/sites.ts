@@ -1,8 +1,8 @@
 /**
  * Input schemas for worksites, operations, the alpha table and the project setup document.
  * The server parses request bodies with them and the client forms reuse them, so both sides
- * refuse the same values with the same messages (DOMAIN.md, "From the data point to the
- * worksite" and "Operations and limits").
+ * refuse the same values with the same messages (docs/domain.md#transformation and
+ * #operations-and-limits).
  *
  * Units are fixed by the field: depth in m, bearings in degrees "coming from" clockwise from true
  * north, TPOP and TC in h, limits as in `shared/engine/schemas.ts`.
@@ -72,7 +72,7 @@ const bandEdge = finite('A Tp band edge')
   .max(TRANSFER_TP_EDGE_MAX_S, `A Tp band edge must be at most ${TRANSFER_TP_EDGE_MAX_S} s`);
 
 /**
- * A site-specific transfer table (DOMAIN.md, "From the data point to the worksite"; Convention 17):
+ * A site-specific transfer table (docs/domain.md#transformation, #convention-17):
  * `factors[sector][band]` = Hs_site/Hs_src for waves coming from the direction sector with a peak
  * period in the Tp band.
  *
@@ -321,7 +321,7 @@ function unquote(cell: string): string {
 
 /** Depth range of a worksite, m (0.5 m: a wading-depth floor; 11000 m: the deepest ocean trench). */
 export const SITE_DEPTH_RANGE_M = { min: 0.5, max: 11000 } as const;
-/** Breaker index gamma_b range (Hs/d; 0.6 is the common-practice default for Hs, DOMAIN.md). */
+/** Breaker index gamma_b range (Hs/d; 0.6 is the common-practice default for Hs, docs/domain.md#transformation). */
 export const BREAKER_INDEX_RANGE = { min: 0.3, max: 1.2, default: 0.6 } as const;
 
 const timeZoneField = z
@@ -343,7 +343,7 @@ const worksiteFields = {
     .max(SITE_DEPTH_RANGE_M.max, `Depth must be at most ${SITE_DEPTH_RANGE_M.max} m`),
   /**
    * Shore-normal bearing beta, degrees "coming from" in [0, 360] (360 is stored as 0);
-   * null = no refraction (DOMAIN.md step 1).
+   * null = no refraction (docs/domain.md#transformation, step 1).
    */
   shoreNormal: finite('Shore normal')
     .min(0, 'Shore normal must be at least 0°')
@@ -408,7 +408,7 @@ const operationFields = {
 
 /**
  * Refuses a weather-restricted operation whose reference period TR = TPOP + TC exceeds 72 h
- * (DOMAIN.md: "Weather-restricted operations (TR up to 72 h)"), and ids listed twice.
+ * (docs/domain.md#weather-restricted), and ids listed twice.
  */
 function checkOperation(
   v: { tpop?: number; tc?: number; weatherRestricted?: boolean; siteIds?: string[]; skipperIds?: string[] },

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_ALPHA_TABLE, alphaFactor, alphaFor, assertAlphaTable, defaultAlphaTable, type OperationSpec } from '../../shared/engine';
 
-// Expected values are read by hand from the alpha table in DOMAIN.md ("Operations and limits"),
+// Expected values are read by hand from the alpha table in docs/domain.md#weather-restricted,
 // itself from memory of DNV-ST-N001's base case for waves (to be checked against the current standard).
-describe('alphaFor: row by TPOP, linear in Hs (Convention 5; table from DOMAIN.md, from memory of DNV-ST-N001)', () => {
+describe('alphaFor: row by TPOP, linear in Hs (docs/domain.md#convention-5; table in docs/domain.md#weather-restricted, from memory of DNV-ST-N001)', () => {
   const T = DEFAULT_ALPHA_TABLE;
 
   it('takes the table values on the columns', () => {

@@ -62,7 +62,7 @@ function needOf(s: Sample): number {
 }
 
 function consecutive(s: Sample, i: number): boolean {
-  // Record i continues record i - 1: at most 1.5 dt apart (Convention 9).
+  // Record i continues record i - 1: at most 1.5 dt apart (docs/domain.md#convention-9).
   return s.times[i] - s.times[i - 1] <= 1.5 * s.dtMs;
 }
 
