@@ -156,7 +156,8 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
                   </div>
                 ))}
               </div>
-              <div className="relative h-5">
+              {/* hour numbers on the first line, the "now" tag on a line of its own below them, so it never covers a label */}
+              <div className="relative h-9">
                 {hourLabels.map((h) => (
                   <span
                     key={h.index}
@@ -167,7 +168,7 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
                   </span>
                 ))}
                 {nowOffset !== null ? (
-                  <span className="absolute -top-0.5 z-10 rounded-r bg-lamp px-1 text-[10px] font-bold leading-4 text-deep" style={{ left: nowOffset }}>
+                  <span className="absolute top-4 z-10 rounded-r bg-lamp px-1 text-[10px] font-bold leading-4 text-deep" style={{ left: nowOffset }} data-testid="now-tag">
                     now
                   </span>
                 ) : null}
