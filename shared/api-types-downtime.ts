@@ -5,13 +5,13 @@ import type { LedgerLimiting } from './schemas/downtime';
 
 export type { LedgerLimiting };
 
-/** Statistics of one calendar month over the hindcast years (DOMAIN.md "Hindcast statistics"). */
+/** Statistics of one calendar month over the hindcast years (docs/domain.md#hindcast-statistics). */
 export interface WorkabilityMonth {
   /** Calendar month 1-12 in the worksite's time zone. */
   month: number;
   /** Records in the month, all years (absent rows are not records). */
   records: number;
-  /** Records whose status is not "no data" (Convention 13). */
+  /** Records whose status is not "no data" (docs/domain.md#convention-13). */
   recordsWithData: number;
   /** Workable records / records with data, 0-1; null without data. */
   workability: number | null;
@@ -71,7 +71,7 @@ export interface CampaignResponse {
   updatedAt: string;
 }
 
-/** Simulated duration for one start month (DOMAIN.md "Hindcast statistics", Convention 15). */
+/** Simulated duration for one start month (docs/domain.md#hindcast-statistics, #convention-15). */
 export interface CampaignMonthAnswer {
   /** 1-12: runs start on the 1st at 00:00 in the campaign's time zone, every hindcast year. */
   startMonth: number;

@@ -1,7 +1,7 @@
 /**
  * Campaigns: an ordered list of steps (an operation at one of its worksites), and their simulated
- * duration through every hindcast year for each start month (DOMAIN.md "Hindcast statistics",
- * Convention 15).
+ * duration through every hindcast year for each start month (docs/domain.md#hindcast-statistics,
+ * docs/domain.md#convention-15).
  */
 import { createHash } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
@@ -130,8 +130,8 @@ export function nextMonthStartMs(month: number, notBeforeMs: number, timeZone: s
 }
 
 /**
- * Simulates a campaign through every hindcast year for each start month 1-12 (DOMAIN.md
- * "Hindcast statistics", Convention 15): runs start on the 1st at 00:00 in the campaign's time
+ * Simulates a campaign through every hindcast year for each start month 1-12 (docs/domain.md#campaigns,
+ * #convention-15): runs start on the 1st at 00:00 in the campaign's time
  * zone; each step waits for its first go-start (TR = TPOP + TC wholly workable, with or without
  * alpha) and then takes TPOP. P50/P90 (type 7) of duration and waiting on weather over the years
  * that finish; a year that reaches the data end first is censored and listed.

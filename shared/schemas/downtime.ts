@@ -1,6 +1,6 @@
 /**
  * Input schemas of the downtime schedule: campaigns (ordered steps, each an operation at a
- * worksite) and the confirmation of a downtime-ledger day (DOMAIN.md, "Hindcast statistics").
+ * worksite) and the confirmation of a downtime-ledger day (docs/domain.md#hindcast-statistics).
  * The server parses bodies and queries with them; the client forms reuse them, so both refuse the
  * same values with the same messages.
  */
@@ -66,7 +66,7 @@ const campaignFields = {
     .max(CAMPAIGN_MAX_STEPS, `a campaign has at most ${CAMPAIGN_MAX_STEPS} steps`),
   /** Planned start, ISO 8601 with offset; null = none. Sets the calendar dates of the finish estimates. */
   plannedStart: z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time, e.g. 2027-04-01T00:00:00Z' }).nullable(),
-  /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (DOMAIN.md Convention 15). */
+  /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (docs/domain.md#convention-15). */
   timeZone: timeZoneInput,
 };
 

@@ -16,7 +16,7 @@ export const campaign = pgTable(
     name: text().notNull(),
     steps: jsonb().$type<{ operationId: string; siteId: string }[]>().notNull(),
     plannedStart: timestamp({ withTimezone: true }),
-    /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (DOMAIN Convention 15). */
+    /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (docs/domain.md#convention-15). */
     timeZone: text().notNull().default('UTC'),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),

@@ -44,5 +44,5 @@ export function timeZoneList(...ensure: string[]): string[] {
 /** Hours with their unit, e.g. '18 h'. */
 export const hoursText = (h: number | null | undefined) => (h === null || h === undefined || !Number.isFinite(h) ? DASH : `${Math.round(h * 10) / 10} h`);
 
-/** The engine's limit names in words (DOMAIN.md limits; the same words as the alert e-mails). */
+/** The engine's limit names in words (docs/domain.md#operations-and-limits; the same words as the alert e-mails). */
 export { limitWords } from '../../../../shared/limit-words';
