@@ -44,6 +44,7 @@ import { recordAudit } from './audit';
 import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup, type WorksiteRow } from './site-context';
 import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
+import { runEngineTask } from './engine-pool';
 
 const MS_PER_HOUR = 3_600_000;
 const round2 = (x: number) => Math.round(x * 100) / 100;
@@ -593,7 +594,8 @@ export async function ledgerMonthly(
   if (hindcast) {
     const version = limitsVersion(setup, hindcast.dataPointDepthM);
     expectations = await cachedStats(db, projectId, hindcast.id, version, 'ledger', async () =>
-      computeExpectations(await datasetSeries(db, hindcast.id), hindcast, setup),
+      // On an engine worker thread (engine-pool.ts).
+      runEngineTask('ledgerExpectations', await datasetSeries(db, hindcast.id), hindcast, setup),
     );
   }
   const expected = new Map(expectations.map((e) => [`${e.operationId}|${e.siteId}`, e]));
