@@ -613,7 +613,7 @@ describe('setup export and import', () => {
   // Issue 22, item 2: a merge used to set the file's alpha table (here: the default) over a
   // project's own table without a word; the file's data point was dropped without a word.
   it('merge keeps the project’s own alpha table unless asked to take the file’s, and says what it did with the data point', async () => {
-    const own = { ...DOMAIN_ALPHA, values: DOMAIN_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.05) * 100) / 100)) };
+    const own = { ...NOTES_ALPHA, values: NOTES_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.05) * 100) / 100)) };
     expect((await as.coordinator.put(`/api/projects/${A}/alpha`).send(own)).status).toBe(200);
     const projectBefore = (await as.coordinator.get(`/api/projects/${A}`)).body;
     const doc = () => ({
