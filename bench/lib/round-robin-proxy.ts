@@ -50,7 +50,7 @@ export interface ProxyStats {
   failOpen: number;
   failures: ProxyFailure[];
   /** Per mark of a kill: the instance and how many requests were in flight on it. */
-  kills: { backend: string; at: number; inFlight: number }[];
+  kills: { backend: string; at: number; inFlight: number; sentWhileDying: number }[];
   /** Up and down changes as the health checks (or a refused connection) saw them. */
   changes: { backend: string; up: boolean; at: number }[];
 }
@@ -65,6 +65,8 @@ export class RoundRobinProxy {
   private readonly inFlight = new Map<string, Set<Flight>>();
   /** Ids of the requests in flight on an instance when it was marked killed. */
   private readonly atKill = new Set<number>();
+  /** Instances marked killed whose process has not exited yet. */
+  private readonly dying = new Set<string>();
   private next = 0;
   private nextId = 1;
   private server: http.Server | null = null;
@@ -99,11 +101,21 @@ export class RoundRobinProxy {
     return this.up.get(name) ?? false;
   }
 
-  /** Call just before killing an instance: remembers which requests were in flight on it. */
+  /**
+   * Call just before killing an instance: remembers which requests were in flight on it, and
+   * counts as in flight at the kill every request sent to it until `markDead` (the process may take
+   * a moment to die, and its kernel still accepts connections meanwhile).
+   */
   markKilled(name: string): void {
     const flights = this.inFlight.get(name) ?? new Set();
     for (const f of flights) this.atKill.add(f.id);
-    this.stats.kills.push({ backend: name, at: Date.now(), inFlight: flights.size });
+    this.dying.add(name);
+    this.stats.kills.push({ backend: name, at: Date.now(), inFlight: flights.size, sentWhileDying: 0 });
+  }
+
+  /** Call when the killed process has exited (was reaped). */
+  markDead(name: string): void {
+    this.dying.delete(name);
   }
 
   async close(): Promise<void> {
@@ -219,6 +231,10 @@ export class RoundRobinProxy {
     const flight: Flight = { id: this.nextId++, method, path, backend: backend.name };
     const flights = this.inFlight.get(backend.name)!;
     flights.add(flight);
+    if (this.dying.has(backend.name)) {
+      this.atKill.add(flight.id);
+      this.stats.kills.at(-1)!.sentWhileDying++;
+    }
     return new Promise((resolve) => {
       let settled = false;
       const done = (v: { ok: true } | { ok: false; code: string; headersSent: boolean; inFlightAtKill: boolean }) => {
