@@ -34,6 +34,11 @@ export function toCampaignResponse(row: CampaignRow): CampaignResponse {
     steps: row.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId })),
     plannedStart: row.plannedStart?.toISOString() ?? null,
     timeZone: row.timeZone,
+    plannedFinish: row.plannedFinish?.toISOString() ?? null,
+    progress: row.steps.map((_, index) => {
+      const p = row.progress[index];
+      return { index, status: p?.status ?? 'planned', startedAt: p?.startedAt ?? null, doneAt: p?.doneAt ?? null, source: p?.source ?? null };
+    }),
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -66,7 +71,7 @@ export async function listCampaigns(db: Db, projectId: string): Promise<Campaign
   return rows.map(toCampaignResponse);
 }
 
-async function campaignRow(db: Db, projectId: string, campaignId: string): Promise<CampaignRow> {
+export async function campaignRow(db: Db, projectId: string, campaignId: string): Promise<CampaignRow> {
   if (!idParam.safeParse(campaignId).success) throw notFound('Campaign');
   const [row] = await db
     .select()
@@ -90,20 +95,26 @@ export async function createCampaign(db: Db, projectId: string, input: CampaignI
       steps: input.steps,
       plannedStart: input.plannedStart ? new Date(input.plannedStart) : null,
       timeZone: input.timeZone,
+      plannedFinish: input.plannedFinish ? new Date(input.plannedFinish) : null,
     })
     .returning();
   return toCampaignResponse(row);
 }
 
-/** Changes some fields; `steps` replaces the whole list (adding, reordering and removing steps). */
+/**
+ * Changes some fields; `steps` replaces the whole list (adding, reordering and removing steps). A
+ * step's progress is kept while the same operation and worksite stay at its index, and dropped from
+ * the first index that changes on (steps are done in order).
+ */
 export async function updateCampaign(db: Db, projectId: string, campaignId: string, patch: CampaignPatchInput): Promise<CampaignResponse> {
-  await campaignRow(db, projectId, campaignId);
+  const old = await campaignRow(db, projectId, campaignId);
   if (patch.steps) assertSteps(await loadProjectSetup(db, projectId), patch.steps);
   const [row] = await db
     .update(campaign)
     .set({
       ...(patch.name !== undefined ? { name: patch.name } : {}),
-      ...(patch.steps !== undefined ? { steps: patch.steps } : {}),
+      ...(patch.steps !== undefined ? { steps: patch.steps, progress: keptProgress(old, patch.steps) } : {}),
+      ...(patch.plannedFinish !== undefined ? { plannedFinish: patch.plannedFinish ? new Date(patch.plannedFinish) : null } : {}),
       ...(patch.plannedStart !== undefined ? { plannedStart: patch.plannedStart ? new Date(patch.plannedStart) : null } : {}),
       ...(patch.timeZone !== undefined ? { timeZone: patch.timeZone } : {}),
       updatedAt: new Date(),
@@ -111,6 +122,16 @@ export async function updateCampaign(db: Db, projectId: string, campaignId: stri
     .where(and(eq(campaign.projectId, projectId), eq(campaign.id, campaignId)))
     .returning();
   return toCampaignResponse(row);
+}
+
+function keptProgress(old: CampaignRow, steps: CampaignStepInput[]): CampaignRow['progress'] {
+  const kept: CampaignRow['progress'] = [];
+  for (let i = 0; i < Math.min(steps.length, old.progress.length); i++) {
+    const a = old.steps[i];
+    if (!a || a.operationId !== steps[i].operationId || a.siteId !== steps[i].siteId) break;
+    kept.push(old.progress[i]);
+  }
+  return kept;
 }
 
 export async function deleteCampaign(db: Db, projectId: string, campaignId: string): Promise<void> {
