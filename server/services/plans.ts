@@ -138,7 +138,7 @@ async function computePlan(
 /**
  * Occurrences of a recurring operation inside the plan's horizon, each judged on its window
  * [start, start + TR): go when every hour is workable, marginal when every hour is workable or
- * marginal, no-go when any hour is not workable, no data otherwise (Convention 7). Records cover
+ * marginal, no-go when any hour is not workable, no data otherwise (docs/domain.md#convention-7). Records cover
  * [t_i, t_i + dt_i) with their local step; a hole between one record's end and the next start
  * longer than half a step is no data. An operation that is not weather-restricted
  * (`informationOnly`, Convention 5) never gets "go" or "marginal": those become "information".

@@ -17,7 +17,7 @@ export const WEATHER_RESTRICTED_MAX_TR_H = 96;
  * Whether an operation is planned as weather-restricted: marked so, TPOP <= 72 h and TR <= 96 h
  * (both bounds included). Any other operation is not weather-restricted: a forecast plan shows its
  * hours against OPLIM for information only and never offers it a go-start, a usable window or
- * "may start now" (Convention 5, docs/domain.md#convention-5); its hindcast statistics are at OPLIM.
+ * "may start now" (docs/domain.md#convention-5, docs/domain.md#convention-5); its hindcast statistics are at OPLIM.
  */
 export function isWeatherRestricted(op: { tpopH: number; tcH: number; weatherRestricted: boolean }): boolean {
   return op.weatherRestricted && op.tpopH <= WEATHER_RESTRICTED_MAX_TPOP_H && op.tpopH + op.tcH <= WEATHER_RESTRICTED_MAX_TR_H;
@@ -26,7 +26,7 @@ export function isWeatherRestricted(op: { tpopH: number; tcH: number; weatherRes
 /**
  * Checks that an alpha table covers every weather-restricted operation: its last TPOP bound is at
  * least {@link WEATHER_RESTRICTED_MAX_TPOP_H} (72 h). A table that stops short would leave a
- * weather-restricted operation without a row (Convention 5: never a silent alpha = 1).
+ * weather-restricted operation without a row (docs/domain.md#convention-5: never a silent alpha = 1).
  *
  * @returns null when covered, else the reason.
  */
@@ -67,11 +67,11 @@ function assertAscending(xs: readonly number[], what: string): void {
 }
 
 /**
- * Row of the alpha table that applies to an operation, or -1 when alpha = 1 (Convention 5).
+ * Row of the alpha table that applies to an operation, or -1 when alpha = 1 (docs/domain.md#convention-5).
  *
  * - Not weather-restricted ({@link isWeatherRestricted}: not marked so, TPOP above 72 h or TR
  *   above 96 h): -1. Its hours are at OPLIM for information only: the forecast plan gives it no
- *   go-start, window or "may start now" (Convention 5), and hindcast statistics are at OPLIM.
+ *   go-start, window or "may start now" (docs/domain.md#convention-5), and hindcast statistics are at OPLIM.
  * - Else the first row whose TPOP bound is not exceeded (TPOP equal to a bound takes that row).
  *   A table whose last bound is below the TPOP (an old stored table; edits must cover 72 h, see
  *   {@link alphaTableCoverageProblem}) gives its last row, the smallest alpha: never alpha = 1.
@@ -92,7 +92,7 @@ export function alphaRowIndex(table: AlphaTable, tpopH: number, trH: number, wea
 
 /**
  * Alpha from one row of the table at an Hs limit: linear interpolation between the Hs columns;
- * below the first or above the last column, the end column's value (Convention 5).
+ * below the first or above the last column, the end column's value (docs/domain.md#convention-5).
  *
  * @param row row index from {@link alphaRowIndex}; -1 gives 1
  * @param hsLimitM Hs limit (OPLIM), m
@@ -117,8 +117,8 @@ export function interpolateClamped(xs: ArrayLike<number>, ys: ArrayLike<number>,
 }
 
 /**
- * Alpha factor for an Hs limit: OPWF = alpha * OPLIM (DOMAIN.md, "Operations and limits";
- * table from memory of DNV-ST-N001). Row by TPOP, linear in Hs, Convention 5; see
+ * Alpha factor for an Hs limit: OPWF = alpha * OPLIM (docs/domain.md#operations-and-limits;
+ * table from memory of DNV-ST-N001). Row by TPOP, linear in Hs, docs/domain.md#convention-5; see
  * {@link alphaRowIndex} for when alpha is 1.
  *
  * @param tpopH planned duration TPOP, h

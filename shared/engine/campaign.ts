@@ -18,7 +18,7 @@ export interface CampaignStep {
 export interface CampaignOptions {
   /** Start months to simulate, 1-12; default all twelve. */
   startMonths?: number[];
-  /** IANA time zone of the start dates (the 1st at 00:00); default 'UTC' (Convention 15). */
+  /** IANA time zone of the start dates (the 1st at 00:00); default 'UTC' (docs/domain.md#convention-15). */
   timeZone?: string;
 }
 
@@ -56,7 +56,7 @@ export interface CampaignMonthResult {
 }
 
 /**
- * Campaign simulation over a hindcast (DOMAIN.md, "Hindcast statistics"; Convention 15): for every
+ * Campaign simulation over a hindcast (docs/domain.md#hindcast-statistics, #convention-15): for every
  * hindcast year and start month, start at the 1st at 00:00 in the campaign's time zone; for each
  * step in order, t = the first go-start at or after t for that step, then t = t + TPOP. Duration
  * D = end - start, waiting on weather = D - sum of TPOP. P50 and P90 (Hyndman & Fan type 7) of D

@@ -4,8 +4,8 @@ import { assertStep, trThresholdMs } from './workable-runs';
 
 /**
  * Go-start flags: 1 where [t0, t0 + TR) is wholly workable: the consecutive workable records from
- * t0 (none separated by a gap) cover at least TR in time, their durations summed (DOMAIN.md,
- * "Weather windows"; Conventions 9-10; local steps in record-steps.ts). With one step dt this is
+ * t0 (none separated by a gap) cover at least TR in time, their durations summed (docs/domain.md,
+ * "Weather windows"; docs/domain.md#convention-9 to #convention-10; local steps in record-steps.ts). With one step dt this is
  * ceil(TR / dt) records, and there is none in the last (ceil(TR / dt) - 1) * dt of a series.
  *
  * @param timeMs record times, UTC epoch ms, ascending

@@ -10,7 +10,7 @@ export interface MonthStatisticsBase {
   month: number;
   /** Records in the group (all statuses; absent rows are not records). */
   records: number;
-  /** Records whose status is not "no data" (Convention 13). */
+  /** Records whose status is not "no data" (docs/domain.md#convention-13). */
   recordsWithData: number;
   /** Workable time / time with data (records weighted by duration; with one step, records), 0-1; null without data. */
   workability: number | null;
@@ -113,20 +113,20 @@ function calendarGroups(ym: Int32Array): CalendarGroups {
 }
 
 /**
- * Hindcast statistics per calendar month and per year-month (DOMAIN.md, "Hindcast statistics";
- * Conventions 9-14):
+ * Hindcast statistics per calendar month and per year-month (docs/domain.md#hindcast-statistics;
+ * docs/domain.md#convention-9 to #convention-14):
  * - workability W = workable records / records with data, each record weighted by its duration
  *   (local step, record-steps.ts: a series 3-hourly early and hourly later counts time, not
  *   records; with one step the plain counts) (only STATUS.WORKABLE counts; pass statuses computed
- *   with alpha: false for "without alpha", Convention 14);
+ *   with alpha: false for "without alpha", docs/domain.md#convention-14);
  * - go-start share = go-start records / records with data, weighted the same way;
  * - waiting on weather (WoW) for every record, no-data records included: the next go-start's time
  *   minus the record's time in real hours (gaps included), 0 at a go-start; censored, and counted as
- *   such, when there is no go-start at or after it (Convention 12); mean and type-7 90th percentile
+ *   such, when there is no go-start at or after it (docs/domain.md#convention-12); mean and type-7 90th percentile
  *   over the non-censored records;
  * - usable windows (workable runs at least TR long in time; a gap breaks a run, a change of step
  *   does not) counted in the month of their first record; per calendar month divided by the number
- *   of years with records in that month (Convention 11); their mean length (sums of durations).
+ *   of years with records in that month (docs/domain.md#convention-11); their mean length (sums of durations).
  *
  * Cost: for an ascending calendar (calendarIndex's), one backward pass over the records does the
  * WoW, the windows and every per-year-month sum; the percentiles take O(n) selection (see

@@ -13,7 +13,7 @@ export interface PlanOptions {
   alpha?: boolean;
   /**
    * Fallback time step dt, ms, for a series without any stretch of equal spacings; default: the
-   * median spacing (Convention 9). Elsewhere each record's own local step applies (record-steps.ts).
+   * median spacing (docs/domain.md#convention-9). Elsewhere each record's own local step applies (record-steps.ts).
    */
   stepMs?: number;
 }
@@ -27,7 +27,7 @@ export interface OperationPlan {
   /** Duration of each record (its local step), ms. */
   durationMs: Float64Array;
   /**
-   * The operation is not weather-restricted (Convention 5): statuses are at OPLIM for information
+   * The operation is not weather-restricted (docs/domain.md#convention-5): statuses are at OPLIM for information
    * only; goStart is all 0, there are no windows, no earliest start and startNow is false.
    */
   informationOnly: boolean;
@@ -48,18 +48,18 @@ export interface OperationPlan {
 }
 
 /**
- * Plans one operation at one worksite on a forecast (DOMAIN.md, "Weather windows"): hourly status
+ * Plans one operation at one worksite on a forecast (docs/domain.md#weather-windows): hourly status
  * with the limiting factor and margin, go-starts for TR, usable windows with their smallest
  * margins, the earliest go-start and whether the operation may start now.
  *
  * An operation that is not weather-restricted (isWeatherRestricted: not marked so, TPOP above 72 h or
  * TR above 96 h) gets its statuses at OPLIM for information only and never a go-start, a window,
- * an earliest start or "may start now" (Convention 5).
+ * an earliest start or "may start now" (docs/domain.md#convention-5).
  *
  * Records have their local step (record-steps.ts): runs, go-starts and windows continue across a
  * change of step, and TR is measured in time.
  *
- * Decisions (DOMAIN.md is silent):
+ * Decisions (docs/domain.md is silent):
  * - "May start now" means the record whose interval [t, t + dt) holds nowMs is a go-start. When
  *   nowMs falls in a gap or outside the series, no record covers it and startNow is false.
  * - The earliest go-start is the first go-start whose record covers nowMs or starts after it; it

@@ -1,5 +1,5 @@
 /**
- * The local time step of every record (docs/domain.md#weather-windows, Conventions 9 and 10).
+ * The local time step of every record (docs/domain.md#weather-windows, docs/domain.md#convention-9 to #convention-10).
  *
  * Forecasts often change step part-way (hourly for the first days, then 3-hourly) and hindcasts may
  * be 3-hourly early and hourly later. The engine therefore never assumes one step for a whole
@@ -43,7 +43,7 @@ const cache = new WeakMap<Float64Array, RecordSteps>();
  *
  * @param timeMs record times, UTC epoch ms, strictly ascending
  * @param fallbackStepMs step for a series without any stretch, ms; default the median spacing
- *   (Convention 9), or 1 h for a single record
+ *   (docs/domain.md#convention-9), or 1 h for a single record
  * @throws RangeError for a non-positive fallback step.
  */
 export function recordSteps(timeMs: Float64Array, fallbackStepMs?: number): RecordSteps {

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// installs the plain-words error map (validation messages in words, server and browser alike)
+import '../schemas/words';
 import type { AlphaTable, OperationLimits, OperationSpec } from './types';
 import { alphaTableCoverageProblem } from './alpha-factor';
 
@@ -105,7 +107,7 @@ export const alphaTableSchema = z
     t.values.forEach((row, r) => {
       if (row.length !== t.hsColumnsM.length) ctx.addIssue({ code: 'custom', path: ['values', r], message: 'One value per Hs column' });
     });
-    // Convention 5: the table must reach TPOP 72 h, so no weather-restricted operation falls back to alpha = 1.
+    // docs/domain.md#convention-5: the table must reach TPOP 72 h, so no weather-restricted operation falls back to alpha = 1.
     const coverage = t.tpopBoundsH.length > 0 ? alphaTableCoverageProblem(t) : null;
     if (coverage) ctx.addIssue({ code: 'custom', path: ['tpopBoundsH', t.tpopBoundsH.length - 1], message: coverage });
   });

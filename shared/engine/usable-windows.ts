@@ -13,9 +13,9 @@ export interface WindowOptions {
 
 /**
  * Usable weather windows: workable runs at least TR long in time, the sum of their records'
- * durations (DOMAIN.md, "Weather windows"; Conventions 9-10: ceil(TR / dt) records with one step;
+ * durations (docs/domain.md#weather-windows; docs/domain.md#convention-9 to #convention-10: ceil(TR / dt) records with one step;
  * a run continues across a change of step, see record-steps.ts), each with its smallest margins
- * (Convention 16).
+ * (docs/domain.md#convention-16).
  *
  * Margins, per limit, the minimum over the window's records of (limit - value) in the limit's
  * unit: Hs max and curve against OPWF, m; Tp min (Tp - min) and Tp max (max - Tp), s; excluded

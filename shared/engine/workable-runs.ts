@@ -9,7 +9,7 @@ export interface WorkableRun {
   count: number;
   /** Start, UTC epoch ms. */
   startMs: number;
-  /** Exclusive end, UTC epoch ms: start + the sum of the records' durations (count * dt with one step, Convention 10). */
+  /** Exclusive end, UTC epoch ms: start + the sum of the records' durations (count * dt with one step, docs/domain.md#convention-10). */
   endMs: number;
   /** Length: the sum of the records' durations, h. */
   hours: number;
@@ -19,7 +19,7 @@ export interface WorkableRun {
 export const MS_PER_HOUR = 3_600_000;
 
 /**
- * Records needed for a go-start in a series of one step: ceil(TR / dt), at least 1 (Convention 10).
+ * Records needed for a go-start in a series of one step: ceil(TR / dt), at least 1 (docs/domain.md#convention-10).
  * The engine itself measures TR in time (sums of record durations, see record-steps.ts), which
  * gives the same go-starts for one step. A relative tolerance of
  * 1e-9 keeps a TR that is a whole number of steps from rounding up by floating-point noise.
@@ -52,7 +52,7 @@ export function trThresholdMs(trH: number): number {
  * Remaining run length: for each record, the number of consecutive workable records starting at
  * it (0 when it is not workable). A record continues the one before it unless the spacing between
  * them is a gap (local step rule, see record-steps.ts; with one step: more than 1.5 * dt apart,
- * Convention 9). One backward pass.
+ * docs/domain.md#convention-9). One backward pass.
  *
  * @param stepMs fallback dt, ms, for a series without any stretch of equal spacings
  * @param out optional buffer of the series' length to write into
@@ -76,7 +76,7 @@ export function runRemaining(timeMs: Float64Array, status: Uint8Array, stepMs: n
 }
 
 /**
- * Maximal runs of consecutive workable records (DOMAIN.md, "Weather windows"; Conventions 9-10).
+ * Maximal runs of consecutive workable records (docs/domain.md#weather-windows; docs/domain.md#convention-9 to #convention-10).
  * Only STATUS.WORKABLE counts: marginal, not workable and no data end a run, and so does a gap
  * (local step rule, record-steps.ts). A run continues across a change of step; its length is the
  * sum of its records' durations and its end start + that length (exclusive).

@@ -1,7 +1,7 @@
 /**
  * Input schemas for worksites, operations, the alpha table and the project setup document.
  * The server parses request bodies with them and the client forms reuse them, so both sides
- * refuse the same values with the same messages (DOMAIN.md, "From the data point to the
+ * refuse the same values with the same messages (docs/domain.md, "From the data point to the
  * worksite" and "Operations and limits").
  *
  * Units are fixed by the field: depth in m, bearings in degrees "coming from" clockwise from true
@@ -72,7 +72,7 @@ const bandEdge = finite('A Tp band edge')
   .max(TRANSFER_TP_EDGE_MAX_S, `A Tp band edge must be at most ${TRANSFER_TP_EDGE_MAX_S} s`);
 
 /**
- * A site-specific transfer table (DOMAIN.md, "From the data point to the worksite"; Convention 17):
+ * A site-specific transfer table (docs/domain.md#transformation; docs/domain.md#convention-17):
  * `factors[sector][band]` = Hs_site/Hs_src for waves coming from the direction sector with a peak
  * period in the Tp band.
  *
@@ -321,7 +321,7 @@ function unquote(cell: string): string {
 
 /** Depth range of a worksite, m (0.5 m: a wading-depth floor; 11000 m: the deepest ocean trench). */
 export const SITE_DEPTH_RANGE_M = { min: 0.5, max: 11000 } as const;
-/** Breaker index gamma_b range (Hs/d; 0.6 is the common-practice default for Hs, DOMAIN.md). */
+/** Breaker index gamma_b range (Hs/d; 0.6 is the common-practice default for Hs, docs/domain.md). */
 export const BREAKER_INDEX_RANGE = { min: 0.3, max: 1.2, default: 0.6 } as const;
 
 const timeZoneField = z
@@ -343,7 +343,7 @@ const worksiteFields = {
     .max(SITE_DEPTH_RANGE_M.max, `Depth must be at most ${SITE_DEPTH_RANGE_M.max} m`),
   /**
    * Shore-normal bearing beta, degrees "coming from" in [0, 360] (360 is stored as 0);
-   * null = no refraction (DOMAIN.md step 1).
+   * null = no refraction (docs/domain.md step 1).
    */
   shoreNormal: finite('Shore normal')
     .min(0, 'Shore normal must be at least 0°')
@@ -476,8 +476,22 @@ export const SETUP_VERSION = 1;
 export const IMPORT_MODES = ['merge', 'replace'] as const;
 export type ImportMode = (typeof IMPORT_MODES)[number];
 
-/** `?mode=` of the import: merge (default) or replace. */
-export const ImportQuery = z.object({ mode: z.enum(IMPORT_MODES, { error: 'mode must be merge or replace' }).default('merge') });
+export const IMPORT_CHOICES = ['keep', 'take'] as const;
+export type ImportChoice = (typeof IMPORT_CHOICES)[number];
+
+/**
+ * `?mode=` of the import: merge (default) or replace; `alphaTable=keep|take`: keep this project's
+ * alpha table or take the file's (default: keep in merge mode, take in replace mode);
+ * `dataPoint=keep|take`: keep this project's data point or take the file's (default keep).
+ */
+export const ImportQuery = z
+  .object({
+    mode: z.enum(IMPORT_MODES, { error: 'mode must be merge or replace' }).default('merge'),
+    alphaTable: z.enum(IMPORT_CHOICES, { error: 'alphaTable must be keep or take' }).optional(),
+    dataPoint: z.enum(IMPORT_CHOICES, { error: 'dataPoint must be keep or take' }).default('keep'),
+  })
+  .transform((q) => ({ ...q, alphaTable: q.alphaTable ?? (q.mode === 'merge' ? 'keep' : 'take') }));
+export type ImportQuery = z.output<typeof ImportQuery>;
 
 /**
  * A worksite in the setup document: the worksite's fields without `hindcastDatasetId` (datasets
@@ -581,7 +595,7 @@ export type ProjectSetupDocument = z.infer<typeof ProjectSetupDocument>;
 // Audit trail query
 // ---------------------------------------------------------------------------------------------
 
-export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project'] as const;
+export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project', 'campaign'] as const;
 export type AuditEntity = (typeof AUDIT_ENTITIES)[number];
 export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import'] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];

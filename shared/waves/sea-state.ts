@@ -1,6 +1,6 @@
 /**
  * Sea-state (irregular wave) quantities from Hs and the periods: energy, power and near-bed orbital
- * velocity by two methods (../DOMAIN.md "Sea states").
+ * velocity by two methods (docs/domain.md#sea-states).
  */
 import { G_DEFAULT_MPS2, RHO_SEAWATER_KGM3 } from './constants';
 import { celerities } from './celerity';
@@ -51,11 +51,11 @@ export function seaStateEnergy(hsM: number, constants?: PhysicalConstants): numb
 
 /**
  * Wave power (energy flux per metre of crest) of a sea state, P = rho*g*Hs^2*Cg(Te, d)/16, with
- * Cg the linear group celerity at the energy period Te (../DOMAIN.md "Sea states"). In deep water
+ * Cg the linear group celerity at the energy period Te (docs/domain.md#sea-states). In deep water
  * P = rho*g^2*Hs^2*Te/(64*pi), about 0.49*Hs^2*Te kW/m (common practice in wave-energy resource work).
  *
  * @param hsM - significant wave height Hs, m, >= 0.
- * @param teS - energy period Te = Tm-1,0, s, > 0 (Convention 8: 0.90*Tp when not given).
+ * @param teS - energy period Te = Tm-1,0, s, > 0 (docs/domain.md#convention-8: 0.90*Tp when not given).
  * @param depthM - water depth, m, > 0; Infinity = deep water.
  * @param constants - g (m/s2) and rho (kg/m3).
  * @returns P, W/m.
@@ -72,7 +72,7 @@ export function seaStatePower(hsM: number, teS: number, depthM: number, constant
 }
 
 /**
- * Near-bed orbital velocity, linear significant method (../DOMAIN.md, method 1, common practice):
+ * Near-bed orbital velocity, linear significant method (docs/domain.md, method 1, common practice):
  * u_bs = pi*Hs/(Tp*sinh(k_p*d)), k_p the linear wavenumber of Tp at depth d. 1/sinh is evaluated
  * overflow-free, so deep water gives 0, not NaN.
  *
@@ -159,7 +159,7 @@ export function bedVelocityRmsSoulsby(hsM: number, tzS: number, depthM: number, 
  * Shallow-water limit U_s -> (1/2) Hs sqrt(g/d), as linear theory gives; deep water -> 0.
  *
  * @param hsM - significant wave height Hs, m, >= 0.
- * @param tzS - mean zero-crossing period Tz, s, > 0 (Convention 8: from Tp by the JONSWAP ratio
+ * @param tzS - mean zero-crossing period Tz, s, > 0 (docs/domain.md#convention-8: from Tp by the JONSWAP ratio
  *   at gamma 3.3 when not given).
  * @param depthM - water depth d, m, > 0; Infinity gives 0.
  * @param g - gravitational acceleration, m/s2 (default 9.81).

@@ -52,7 +52,7 @@ describe('importing sea-state files', () => {
       .attach('file', path.join(NDBC_FIXTURES, '46026h2016.txt'));
     expect(res.status, res.text).toBe(201);
     expect(res.body.wind).toEqual({ anemometerHeightM: 4.1, exponent: 0.11 });
-    // README of ../shared/data/ndbc: 8655 data rows, 2015-12-31 23:50 to 2016-12-31 22:50 UTC.
+    // tests/fixtures/ndbc/README.md: 8655 data rows, 2015-12-31 23:50 to 2016-12-31 22:50 UTC.
     expect(res.body.records).toBe(8655);
     expect(res.body.start).toBe('2015-12-31T23:50:00.000Z');
     expect(res.body.end).toBe('2016-12-31T22:50:00.000Z');
@@ -73,7 +73,7 @@ describe('importing sea-state files', () => {
     expect(Math.abs(recs.body.wind[0] - 1.43396)).toBeLessThan(5e-5);
     expect(Math.abs(recs.body.wind[1] - 1.98548)).toBeLessThan(5e-5);
     expect(recs.body.given.tp).toEqual([true, true]);
-    expect(recs.body.given.te).toEqual([false, false]); // Te derived from Tp (DOMAIN Convention 8)
+    expect(recs.body.given.te).toEqual([false, false]); // Te derived from Tp (docs/domain.md#convention-8)
     expect(recs.body.te[0]).toBeCloseTo(0.9 * 13.79, 1);
 
     const detail = await as.skipper.get(`${base}/${res.body.id}`);

@@ -26,7 +26,7 @@ describe('wave calculator API', () => {
     for (const key of ['groupCelerity', 'n', 'shoalingCoefficient', 'bedVelocity', 'bedExcursion', 'energyDensity', 'power', 'horizontalVelocity', 'verticalVelocity', 'pressureFactor']) {
       expect(Number.isFinite(res.body[key]), key).toBe(true);
     }
-    // Energy density E = rho g H^2 / 8 with rho = 1025 kg/m3, g = 9.81 m/s2 (DOMAIN.md defaults).
+    // Energy density E = rho g H^2 / 8 with rho = 1025 kg/m3, g = 9.81 m/s2 (docs/domain.md#units defaults).
     expect(res.body.energyDensity).toBeCloseTo((1025 * 9.81 * 4) / 8, 6);
   });
 
@@ -55,7 +55,7 @@ describe('wave calculator API', () => {
     expect(table.body).toHaveLength(10);
     const sea = await client.get('/api/wave/sea-state').query({ hs: 2, tp: 10, depth: 20 });
     expect(sea.status).toBe(200);
-    expect(sea.body.periods.teS).toBeCloseTo(9, 6); // DOMAIN Convention 8: Te = 0.90 Tp
+    expect(sea.body.periods.teS).toBeCloseTo(9, 6); // docs/domain.md#convention-8: Te = 0.90 Tp
     expect(sea.body.bedVelocityLinear).toBeGreaterThan(0);
     expect(sea.body.bedVelocitySoulsby).toBeGreaterThan(0);
   });

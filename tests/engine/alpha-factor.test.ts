@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_ALPHA_TABLE, alphaFactor, alphaFor, alphaTableCoverageProblem, assertAlphaTable, defaultAlphaTable, isWeatherRestricted, type OperationSpec } from '../../shared/engine';
 
-// Expected values are read by hand from the alpha table in DOMAIN.md ("Operations and limits"),
+// Expected values are read by hand from the alpha table in docs/domain.md#weather-restricted,
 // itself from memory of DNV-ST-N001's base case for waves (to be checked against the current standard).
-describe('alphaFor: row by TPOP, linear in Hs (Convention 5; table from DOMAIN.md, from memory of DNV-ST-N001)', () => {
+describe('alphaFor: row by TPOP, linear in Hs (docs/domain.md#convention-5; table in docs/domain.md#weather-restricted, from memory of DNV-ST-N001)', () => {
   const T = DEFAULT_ALPHA_TABLE;
 
   it('takes the table values on the columns', () => {
@@ -57,7 +57,7 @@ describe('alphaFor: row by TPOP, linear in Hs (Convention 5; table from DOMAIN.m
     expect(alphaFor(T, 12, 2, 12, false)).toBe(1);
   });
 
-  it('a table that stops short of TPOP 72 h is reported (edits are refused) and never gives alpha = 1 (Convention 5)', () => {
+  it('a table that stops short of TPOP 72 h is reported (edits are refused) and never gives alpha = 1 (docs/domain.md#convention-5)', () => {
     const short = { tpopBoundsH: [12, 24], hsColumnsM: [1, 2], values: [[0.6, 0.7], [0.55, 0.65]] };
     expect(alphaTableCoverageProblem(short)).toMatch(/72 h/);
     expect(alphaTableCoverageProblem(T)).toBeNull();

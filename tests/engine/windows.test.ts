@@ -20,7 +20,7 @@ const D = STATUS.NO_DATA;
 
 const flags = (a: Uint8Array): number[] => Array.from(a);
 
-describe('detectStepMs: median spacing (Convention 9)', () => {
+describe('detectStepMs: median spacing (docs/domain.md#convention-9)', () => {
   it('a regular series with a gap keeps its step', () => {
     expect(detectStepMs(Float64Array.from(hoursAt([0, 1, 2, 3, 5])))).toBe(HOUR);
   });
@@ -37,7 +37,7 @@ describe('detectStepMs: median spacing (Convention 9)', () => {
   });
 });
 
-describe('recordsForTr: ceil(TR / dt) (Convention 10)', () => {
+describe('recordsForTr: ceil(TR / dt) (docs/domain.md#convention-10)', () => {
   it('hand cases', () => {
     expect(recordsForTr(12, HOUR)).toBe(12);
     expect(recordsForTr(12.5, HOUR)).toBe(13);
@@ -48,7 +48,7 @@ describe('recordsForTr: ceil(TR / dt) (Convention 10)', () => {
   });
 });
 
-describe('go-starts and windows (DOMAIN.md "Weather windows", Conventions 9-10)', () => {
+describe('go-starts and windows (docs/domain.md#weather-windows, #convention-9 to #convention-10)', () => {
   const times = Float64Array.from(hoursAt([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]));
 
   it('a run exactly TR long is a usable window with one go-start at its first record', () => {
@@ -113,7 +113,7 @@ describe('go-starts and windows (DOMAIN.md "Weather windows", Conventions 9-10)'
   });
 });
 
-describe('usableWindows: smallest margins (Convention 16)', () => {
+describe('usableWindows: smallest margins (docs/domain.md#convention-16)', () => {
   it('per limit in the limit unit, Hs against OPWF, bands to the nearest edge, plus the relative figure', () => {
     // Not weather-restricted -> alpha 1. Window = records 1-3 (TR 3 h).
     const op: OperationSpec = { tpopH: 2, tcH: 1, weatherRestricted: false, limits: { hsMax: 2, tpMin: 5, tpExcluded: [[8, 9]], windMax: 12 } };
@@ -184,7 +184,7 @@ describe('planOperation: earliest go-start and "may start now"', () => {
     expect(plan.windows).toEqual([]);
   });
 
-  it('not weather-restricted (Convention 5): statuses at OPLIM for information, never a go-start, window or start now', () => {
+  it('not weather-restricted (docs/domain.md#convention-5): statuses at OPLIM for information, never a go-start, window or start now', () => {
     for (const other of [
       { ...op, weatherRestricted: false },
       { ...op, tpopH: 73, tcH: 0 },

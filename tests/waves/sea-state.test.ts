@@ -14,7 +14,7 @@ import { refCg, refK, relClose } from './reference-dispersion';
 const G = 9.81;
 const RHO = 1025;
 
-describe('sea-state energy and power (DOMAIN.md "Sea states")', () => {
+describe('sea-state energy and power (docs/domain.md#sea-states)', () => {
   it('E = rho g Hs^2 / 16', () => {
     expect(seaStateEnergy(2)).toBeCloseTo((RHO * G * 4) / 16, 9);
     expect(seaStateEnergy(2, { rhoKgM3: 1000, g: 9.8 })).toBeCloseTo((1000 * 9.8 * 4) / 16, 9);
@@ -52,7 +52,7 @@ describe('sea-state energy and power (DOMAIN.md "Sea states")', () => {
   });
 });
 
-describe('bedVelocityLinear: u_bs = pi Hs / (Tp sinh(k_p d)) (DOMAIN.md method 1, common practice)', () => {
+describe('bedVelocityLinear: u_bs = pi Hs / (Tp sinh(k_p d)) (docs/domain.md#bed-velocity method 1, common practice)', () => {
   it('equals the written-out formula and the regular-wave bed velocity with H = Hs', () => {
     const k = refK(10, 10);
     expect(relClose(bedVelocityLinear(2, 10, 10), (Math.PI * 2) / (10 * Math.sinh(k * 10)), 1e-12)).toBe(true);
@@ -66,7 +66,7 @@ describe('bedVelocityLinear: u_bs = pi Hs / (Tp sinh(k_p d)) (DOMAIN.md method 1
   });
 });
 
-describe('bedVelocitySoulsby: Soulsby (2006), HR Wallingford TR 155 (formula from DOMAIN.md, from memory)', () => {
+describe('bedVelocitySoulsby: Soulsby (2006), HR Wallingford TR 155 (formula in docs/domain.md#bed-velocity, from memory)', () => {
   it('Hs = 2 m, Tz = 6 s, d = 10 m: U_s = 0.4914 m/s (computed by hand below)', () => {
     // By hand (g = 9.81):
     // Tn = sqrt(10/9.81) = sqrt(1.019368) = 1.009638 s;  t = Tn/Tz = 1.009638/6 = 0.168273
