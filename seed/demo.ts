@@ -4,7 +4,7 @@ import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
 import { toSeaSeries } from '../server/services/sea-series';
-import { generateSyntheticSea, truthSeedForPosition, climateForPosition } from '../server/forecast';
+import { buildFakeForecast, generateSyntheticSea, latestIssueTimeMs, truthSeedForPosition, climateForPosition } from '../server/forecast';
 import { recurrenceText } from '../shared/recurrence';
 import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
@@ -29,6 +29,11 @@ export interface SeedOptions {
   hindcastYears?: number;
   /** Fetch a current forecast from the (fake) forecast service. */
   forecast?: boolean;
+  /**
+   * Earlier forecast issues to store, one a day for this many days back (default 3), so the
+   * downtime ledger has finished days to propose from forecast before any observation exists.
+   */
+  pastForecastDays?: number;
 }
 
 const DAY_MS = 86_400_000;
@@ -178,6 +183,48 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
     .update(campaign)
     .set({ progress: [{ status: 'done', startedAt: new Date(layStartedMs).toISOString(), doneAt: new Date(layDoneMs).toISOString(), source: 'hand' }] })
     .where(eq(campaign.id, demoCampaign.id));
+
+  // Earlier issues of the invented forecast (the 00:00 UTC issue of each of the last days, 48 h
+  // long), as if the planning job had stored them: written first, so the current one stays newest.
+  const pastDays = options.pastForecastDays ?? 3;
+  if ((options.forecast ?? true) && pastDays > 0) {
+    const latest = latestIssueTimeMs(deps.clock().getTime());
+    for (let k = pastDays; k >= 1; k--) {
+      const issuedAtMs = Math.floor(latest / 86_400_000) * 86_400_000 - k * 86_400_000;
+      const f = buildFakeForecast({ seed: DEMO_SEA_SEED, latitude: DEMO_PROJECT.dataPointLatitude, longitude: DEMO_PROJECT.dataPointLongitude, issuedAtMs, horizonDays: 2 });
+      const h = f.hourly;
+      const col = (v: (number | null)[]) => Float64Array.from(v, (x) => (x === null ? NaN : x === 360 ? 0 : x));
+      const timeMs = Float64Array.from(h.time, (x) => Date.parse(x));
+      const keep = timeMs.findIndex((x) => x >= issuedAtMs);
+      const cut = (a: Float64Array) => a.slice(keep);
+      const issuedAt = new Date(issuedAtMs);
+      await createDataset(
+        db,
+        {
+          projectId: main.id,
+          createdBy: null,
+          name: `Forecast issued ${issuedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`,
+          kind: 'forecast',
+          dataPointName: DEMO_PROJECT.dataPointName,
+          dataPointLatitude: f.latitude,
+          dataPointLongitude: f.longitude,
+          dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
+          sourceKind: 'service',
+          format: 'fake forecast service (demo)',
+          issuedAt,
+        },
+        toSeaSeries({
+          timeMs: cut(timeMs),
+          hs: cut(col(h.waveHeightM)),
+          tp: cut(col(h.peakPeriodS)),
+          dir: cut(col(h.waveDirectionDeg)),
+          wind: cut(col(h.windSpeedMps)),
+          windDir: cut(col(h.windDirectionDeg)),
+        }),
+        { source: 'fake forecast service (demo)' },
+      );
+    }
+  }
 
   let forecastId: string | null = null;
   if (options.forecast ?? true) {

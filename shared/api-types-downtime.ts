@@ -203,7 +203,7 @@ export interface LedgerEntry {
   lostHours: number | null;
   limiting: LedgerLimiting | null;
   note: string;
-  /** Where the proposal came from: an observation dataset, else a forecast. */
+  /** Where the proposal came from: an observation dataset, else the forecast issues that covered the day (`datasetId`: the one that decided most of it). */
   source: 'observation' | 'forecast';
   datasetId: string | null;
   datasetName: string | null;
@@ -220,6 +220,8 @@ export interface LedgerProposeAnswer {
   keptConfirmed: number;
   /** Days (per worksite) that no observation or forecast dataset covered: nothing proposed. */
   uncovered: { siteId: string; days: string[] }[];
+  /** Days (per worksite) not over yet in the worksite's time zone: not proposed. */
+  notOver: { siteId: string; days: string[] }[];
   /** Datasets the proposals came from. */
   sources: { id: string; name: string; kind: 'observation' | 'forecast' }[];
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './words';
 
 export const SubscriptionInput = z.object({
   /** Operations to hear about; empty = all of the project's. */

@@ -203,6 +203,12 @@ const TABLE: Record<string, RouteCase> = {
   'DELETE /projects/:projectId/alpha': { access: 'coordinator', why: 'resets to the default table' },
 
   'GET /projects/:projectId/export': { access: 'member' },
+  'POST /projects/:projectId/import/preview': {
+    access: 'coordinator',
+    why: 'writes nothing; answers what an import would add and remove',
+    query: () => ({ mode: 'replace' }),
+    body: () => setupDocument,
+  },
   'POST /projects/:projectId/import': {
     access: 'coordinator',
     why: 'the project’s own export in merge mode: 409 on the clashing names, nothing changes',

@@ -4,7 +4,7 @@
 // member reads; coordinators (and admins) edit campaigns and propose/confirm the ledger.
 // The choices live in the address (?dataset=&alpha=off&campaign=&month=) so a view can be shared.
 import { useParams, useSearchParams } from 'react-router-dom';
-import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner, Term } from '../../../components/ui';
 import { useDowntimeAccess } from '../api/get-project-role';
 import { useHindcasts } from '../api/get-datasets';
 import { useOperations } from '../api/get-operations';
@@ -32,7 +32,8 @@ function AlphaSwitch({ on, onToggle }: { on: boolean; onToggle: () => void }) {
         <span className={`absolute size-5 rounded-full bg-white shadow transition-all ${on ? 'left-[1.15rem]' : 'left-0.5'}`} />
       </span>
       <span>
-        Forecast limits (α)<span className="ml-1 font-normal text-ink-soft">{on ? 'on' : 'off'}</span>
+        Forecast limits <Term k="alpha">(α)</Term>
+        <span className="ml-1 font-normal text-ink-soft">{on ? 'on' : 'off'}</span>
       </span>
     </button>
   );

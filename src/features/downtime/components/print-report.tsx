@@ -1,8 +1,10 @@
 // The head of the printed downtime report: shown only on paper (and in a print-to-PDF), above the
 // page's own sections, which print without their controls (`no-print`).
+import { useState } from 'react';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAUTION_LINE, TRANSFORMATION_CAUTION } from '../../../../shared/caution';
+import { formatInstant, localTimeZone } from '../../../../shared/dates';
 import { dateIn } from './format';
 import { limitsInWords } from './limits-words';
 
@@ -17,10 +19,11 @@ interface Props {
 
 export function PrintReport({ projectName, hindcast, ledgerSources, alpha, operations, sites }: Props) {
   const siteName = new Map(sites.map((s) => [s.id, s.name]));
+  const [printedAt] = useState(() => Date.now());
   return (
     <section className="hidden text-sm text-black print:block" data-testid="print-report" aria-label="Report header">
       <h1 className="text-2xl font-bold">Downtime schedule: {projectName}</h1>
-      <p className="mt-1">Printed {dateIn(new Date().toISOString(), Intl.DateTimeFormat().resolvedOptions().timeZone, 'd MMM yyyy HH:mm')} (local time).</p>
+      <p className="mt-1">Printed {formatInstant(printedAt, localTimeZone(), 'dateTimeYear')} (local time).</p>
 
       <h2 className="mt-4 text-base font-bold">Data sources</h2>
       <ul className="ml-5 list-disc">
