@@ -30,7 +30,7 @@ export function startPlanningSchedule(deps: AppDeps, options: { planCron: string
     );
   const tasks = [
     cron.createTask(options.planCron, guard('Planning job', () => runPlanningJob(deps, { trigger: 'schedule' })), { name: 'plan', noOverlap: true, timezone: 'UTC' }),
-    cron.createTask('* * * * *', guard('Mail delivery', () => deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log })), {
+    cron.createTask('* * * * *', guard('Mail delivery', () => deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log, links: deps.config })), {
       name: 'mail',
       noOverlap: true,
       timezone: 'UTC',

@@ -8,7 +8,7 @@
  * arrays), so the browser can validate its form state before serialising it.
  */
 import { z } from 'zod';
-import { storableText } from '../schemas/common';
+import { nameText } from '../schemas/common';
 import { ColumnMappingSchema } from './csv-columns';
 import { CSV_DELIMITERS, type CsvTextParserOptions } from './csv-text-parser';
 import type { NdbcParserOptions } from './ndbc';
@@ -59,7 +59,7 @@ const positiveMetres = (max: number) =>
 /** The upload form's fields (besides the file). */
 export const ImportFormSchema = z.object({
   /** Dataset name (no control characters or lone surrogates: schemas/common.ts). */
-  name: storableText(z.string().trim().min(1, 'a name is required').max(120)),
+  name: nameText(),
   /** Dataset kind. */
   kind: z.enum(DATASET_KINDS),
   /** File format; default 'auto'. */
