@@ -9,6 +9,7 @@ import { ProjectsPage } from '../features/projects/components/projects-page';
 import { ProjectOverviewPage } from '../features/projects/components/project-overview-page';
 import { ProjectSettingsPage } from '../features/projects/components/project-settings-page';
 import { PeoplePage } from '../features/admin/components/people-page';
+import { AccountPage } from '../features/auth/components/account-page';
 import { NotFound, RouteError } from './route-error';
 import { WaveLabPage } from '../features/wave-lab/components/wave-lab-page';
 import { DatasetsPage } from '../features/datasets/components/datasets-page';
@@ -48,6 +49,7 @@ export const router = createBrowserRouter([
     children: [
       { index: true, element: <ProjectsPage /> },
       { path: 'admin/people', element: <PeoplePage />, loader: requireAdmin },
+      { path: 'account', element: <AccountPage /> },
       { path: 'projects', loader: () => redirect('/') },
       { path: 'wave-lab', element: <WaveLabPage /> },
       { path: 'admin/mailbox', element: <MailboxPage />, loader: requireAdmin },
