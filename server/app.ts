@@ -1,3 +1,4 @@
+import { answerCache } from './http/answer-cache';
 import fs from 'node:fs';
 import path from 'node:path';
 import express, { type Express } from 'express';
@@ -48,6 +49,11 @@ export interface AppOptions {
   sessionCacheMs?: number;
   /** The per-user limit of heavy reads (tests look at its peak). */
   heavyReads?: Limiter;
+  /**
+   * How long an unchanged GET answer is served again without the database, ms (embedded database
+   * only, see http/answer-cache.ts); default 0 (off), `npm start` sets ANSWER_CACHE_MS (5 s).
+   */
+  answerCacheMs?: number;
 }
 
 /** Builds the Express app from its dependencies. `server/index.ts` starts it; tests call it directly. */
@@ -121,6 +127,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   app.use('/api', (req, res, next) => (req.method === 'GET' || req.method === 'POST') && HEAVY_READ_PATH.test(req.path) ? heavy(req, res, next) : next());
   // Deactivation and role changes go through the administration routes.
   app.use('/api/admin', sessions.forgetAfterChange);
+  // Unchanged answers again without the database (embedded database only), with ETags and gzip.
+  app.use('/api', answerCache({ writeGeneration: deps.database.writeGeneration, ttlMs: options.answerCacheMs ?? 0 }));
 
   const api = express.Router();
   for (const routes of API_ROUTERS) api.use(routes(deps));

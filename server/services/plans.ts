@@ -10,6 +10,7 @@ import { createHash } from 'node:crypto';
 import { encodedAnswer } from './encoded-answers';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup } from './site-context';
 import { readSeries } from './series-store';
+import { STATS_FORMAT } from './workability';
 
 const STATUS_NAMES: HourStatus[] = [];
 STATUS_NAMES[STATUS.NO_DATA] = 'no_data';
@@ -78,7 +79,7 @@ export function planSpan(row: Pick<PlanRow, 'kind' | 'startAt' | 'endAt'>, optio
 }
 
 function setupKey(setup: ProjectSetup): string {
-  return createHash('sha256').update(JSON.stringify(setup)).digest('hex').slice(0, 32);
+  return createHash('sha256').update(JSON.stringify([STATS_FORMAT, setup])).digest('hex').slice(0, 32);
 }
 
 /**
@@ -167,7 +168,7 @@ async function computePlan(
 /**
  * Occurrences of a recurring operation inside the plan's horizon, each judged on its window
  * [start, start + TR): go when every hour is workable, marginal when every hour is workable or
- * marginal, no-go when any hour is not workable, no data otherwise (DOMAIN Convention 7).
+ * marginal, no-go when any hour is not workable, no data otherwise (docs/domain.md#convention-7).
  */
 /** Occurrence starts of a stored recurrence inside the plan's horizon (none when it is not a valid rule). */
 function recurrenceStarts(recurrence: unknown, timeMs: Float64Array, stepMs: number, nowMs: number): number[] {

@@ -1,6 +1,6 @@
 /**
- * Transformation of sea states from the data point to a worksite (../DOMAIN.md "From the data
- * point to the worksite", steps 1-6, and Conventions 1-4, 8 and 17): refraction over straight,
+ * Transformation of sea states from the data point to a worksite (docs/domain.md#transformation,
+ * steps 1-6, and #convention-1 to #convention-4, #convention-8 and #convention-17): refraction over straight,
  * parallel depth contours (Snell's law), shoaling by conservation of energy flux (linear theory at
  * Tp), a depth limit, or a transfer table instead of refraction and shoaling.
  *
@@ -21,7 +21,7 @@ export type { TransferTable } from './transfer-table';
 
 /** The data point of a dataset. */
 export interface SourcePoint {
-  /** Water depth at the data point, m, > 0; Infinity = deep water (unknown depth, Convention 1). */
+  /** Water depth at the data point, m, > 0; Infinity = deep water (unknown depth, docs/domain.md#convention-1). */
   depthM: number;
 }
 
@@ -54,9 +54,9 @@ export interface SeaSeriesInput {
 
 /** Per-record flags of the transformation (bits). */
 export const TRANSFORM_FLAG = {
-  /** |theta_src| >= 90 deg: sea from the landward side; shoaling only, direction kept (Convention 2). */
+  /** |theta_src| >= 90 deg: sea from the landward side; shoaling only, direction kept (docs/domain.md#convention-2). */
   LANDWARD: 1,
-  /** Hs capped at gamma_b*d (Convention 4: only when strictly greater). */
+  /** Hs capped at gamma_b*d (docs/domain.md#convention-4: only when strictly greater). */
   DEPTH_LIMITED: 2,
   /** |sin(theta_site)| would reach or exceed 1 (site deeper than the data point): Kr = 1, direction kept. */
   REFRACTION_SKIPPED: 4,
@@ -90,7 +90,7 @@ export interface SiteSeries {
   flags: Uint8Array;
   /** Linear significant bed velocity at the worksite, pi*Hs/(Tp*sinh(k_p*d)), m/s. */
   bedVelocityLinearMps: Float64Array;
-  /** Soulsby (2006) significant bed velocity at the worksite, m/s (Tz per Convention 8). */
+  /** Soulsby (2006) significant bed velocity at the worksite, m/s (Tz per docs/domain.md#convention-8). */
   bedVelocitySoulsbyMps: Float64Array;
 }
 
@@ -98,7 +98,7 @@ export interface SiteSeries {
 export interface TransformOptions {
   /** Gravitational acceleration, m/s2 (default 9.81). */
   g?: number;
-  /** JONSWAP gamma for Tz from Tp when Tz is missing (default 3.3, Convention 8). */
+  /** JONSWAP gamma for Tz from Tp when Tz is missing (default 3.3, docs/domain.md#convention-8). */
   gamma?: number;
   /** Output arrays to fill (each of the input length), to avoid allocation in repeated runs. */
   out?: SiteSeries;
@@ -192,7 +192,7 @@ const STRIDE = 5;
 const T_CRATIO = 0;
 const T_KS = 1;
 const T_LIN = 2;
-const T_SOUL = 3; // Soulsby velocity per Hs with Tz from Tp (Convention 8)
+const T_SOUL = 3; // Soulsby velocity per Hs with Tz from Tp (docs/domain.md#convention-8)
 const T_BAND = 4; // transfer-table Tp band
 
 // Layout of the per-direction cache (one row of DSTRIDE doubles per distinct direction).
@@ -208,22 +208,22 @@ const MODE_REFRACT = 1;
 const MODE_TABLE = 2;
 
 /**
- * Transforms a series of sea states from the data point to a worksite (../DOMAIN.md steps 1-6):
+ * Transforms a series of sea states from the data point to a worksite (docs/domain.md#transformation, steps 1-6):
  * 1. theta_src = wrap to (-180, 180] of (Dir - beta); no bearing: Kr = 1, direction kept;
  *    |theta_src| >= 90: LANDWARD, shoaling only, direction kept.
  * 2. Snell: sin(theta_site) = (C_site/C_src) sin(theta_src), Kr = sqrt(cos(theta_src)/cos(theta_site));
  *    if |sin(theta_site)| >= 1 (site deeper than the data point): REFRACTION_SKIPPED, Kr = 1,
- *    direction kept. (Convention 2 says "exceeds 1"; at exactly 1 Kr would be infinite, so that
+ *    direction kept. (docs/domain.md#convention-2 says "exceeds 1"; at exactly 1 Kr would be infinite, so that
  *    grazing case is skipped too.)
- * 3. Ks = sqrt(Cg_src/Cg_site), linear theory at Tp (Convention 1 for an unknown source depth).
+ * 3. Ks = sqrt(Cg_src/Cg_site), linear theory at Tp (docs/domain.md#convention-1 for an unknown source depth).
  * 4. Hs_site = Hs_src*Ks*Kr; direction beta + theta_site wrapped to [0, 360).
  *    With a transfer table instead of 1-4: Hs_site = Hs_src*factor(sector, band), direction kept,
- *    TRANSFER_TABLE, ks = factor, kr = 1 (Convention 17). The table needs the direction, so a
+ *    TRANSFER_TABLE, ks = factor, kr = 1 (docs/domain.md#convention-17). The table needs the direction, so a
  *    missing direction makes the record missing.
- * 5. Hs_site > gamma_b*d_site (strictly): capped, DEPTH_LIMITED (Convention 4).
+ * 5. Hs_site > gamma_b*d_site (strictly): capped, DEPTH_LIMITED (docs/domain.md#convention-4).
  * 6. Periods unchanged. Bed velocities at the worksite use Hs after the cap, Tp (linear) and Tz
- *    (Soulsby; from the record, else Tz = (Tz/Tp)(gamma)*Tp, Convention 8), at the site depth.
- * Missing (Convention 3): Hs or Tp NaN, negative or infinite, or (with a bearing or a table) the
+ *    (Soulsby; from the record, else Tz = (Tz/Tp)(gamma)*Tp, docs/domain.md#convention-8), at the site depth.
+ * Missing (docs/domain.md#convention-3): Hs or Tp NaN, negative or infinite, or (with a bearing or a table) the
  * direction NaN: every output is NaN and the flag is MISSING_INPUT. Invariant for every other
  * record: hs before the cap = Hs_src*ks*kr (to float32 rounding of ks, kr).
  *
@@ -280,25 +280,52 @@ export function transformToSite(
     for (let s = 0; s < sectorCount; s++) for (let b = 0; b < bandCount; b++) tableFactors[s * bandCount + b] = table.factors[s][b];
   }
 
-  const tpIndex = new FloatKeyIndex(256);
-  let terms = new Float64Array(256 * STRIDE);
-  const tzIndex = new FloatKeyIndex(64);
-  let tzTerms = new Float64Array(64);
-  const dirIndex = new FloatKeyIndex(512);
-  let dirTerms = new Float64Array(512 * DSTRIDE);
-  let lastTp = NaN;
-  let lastBase = 0;
-  let lastTz = NaN;
-  let lastSoul = 0;
-  let lastDir = NaN;
-  let lastDirBase = 0;
-  const missing = TRANSFORM_FLAG.MISSING_INPUT;
+  // Phase 1: the distinct Tp and direction values, and each record's index into them (-1 when
+  // missing or invalid). Small loops of one kind each, so they are optimised at once.
+  const tpIds = new Int32Array(n);
+  const tpIndex = new FloatKeyIndex(1024);
+  const tpKeys = distinctIds(tpIn, tpIds, tpIndex, true);
+  const dirIds = mode === MODE_NONE ? null : new Int32Array(n);
+  const dirIndex = new FloatKeyIndex(1024);
+  const dirKeys = dirIds ? distinctIds(dirIn, dirIds, dirIndex, false) : new Float64Array(0);
 
+  // Phase 2: per-period terms once per distinct Tp, per-direction terms once per distinct direction.
+  const terms = new Float64Array(Math.max(1, tpKeys.length) * STRIDE);
+  for (let id = 0; id < tpKeys.length; id++) {
+    const tp = tpKeys[id];
+    const t = periodTerms(tp, setup);
+    const b = id * STRIDE;
+    terms[b + T_CRATIO] = t.cRatio;
+    terms[b + T_KS] = t.ks;
+    terms[b + T_LIN] = t.linearPerHs;
+    terms[b + T_SOUL] = soulsbyVelocityPerHs(tp * tzOverTp, siteDepthM, g);
+    terms[b + T_BAND] = table ? transferBandIndex(table, tp) : 0;
+  }
+  const dirTerms = new Float64Array(Math.max(1, dirKeys.length) * DSTRIDE);
+  for (let id = 0; id < dirKeys.length; id++) {
+    const dir = dirKeys[id];
+    const b = id * DSTRIDE;
+    dirTerms[b + D_WRAPPED] = wrapDegrees360(dir);
+    if (table) {
+      dirTerms[b + D_SECTOR] = transferSectorIndex(table, dir);
+    } else {
+      const theta = wrapDegrees180(dir - beta);
+      const landward = theta >= 90 || theta <= -90;
+      const th = theta * DEG_TO_RAD;
+      dirTerms[b + D_LANDWARD] = landward ? 1 : 0;
+      dirTerms[b + D_SIN] = landward ? 0 : Math.sin(th);
+      dirTerms[b + D_COS] = landward ? 0 : Math.cos(th);
+    }
+  }
+
+  // Phase 3: every record from those tables.
+  const soulTz = soulsbyFromTz(tzIn, siteDepthM, g);
+  const missing = TRANSFORM_FLAG.MISSING_INPUT;
   for (let i = 0; i < n; i++) {
     const hs = hsIn[i];
-    const tp = tpIn[i];
-    const dir = dirIn[i];
-    if (!(hs >= 0 && hs < Infinity && tp > 0 && tp < Infinity) || (mode !== MODE_NONE && dir !== dir)) {
+    const tpId = tpIds[i];
+    const dirId = dirIds === null ? 0 : dirIds[i];
+    if (!(hs >= 0 && hs < Infinity) || tpId < 0 || dirId < 0) {
       hsOut[i] = NaN;
       dirOut[i] = NaN;
       ksOut[i] = NaN;
@@ -308,71 +335,16 @@ export function transformToSite(
       soulOut[i] = NaN;
       continue;
     }
-
-    // Per-period terms, cached by exact Tp.
-    let base: number;
-    if (tp === lastTp) {
-      base = lastBase;
-    } else {
-      let id = tpIndex.find(tp);
-      if (id < 0) {
-        id = tpIndex.add(tp);
-        if ((id + 1) * STRIDE > terms.length) {
-          const grown = new Float64Array(terms.length * 2);
-          grown.set(terms);
-          terms = grown;
-        }
-        const t = periodTerms(tp, setup);
-        const b = id * STRIDE;
-        terms[b + T_CRATIO] = t.cRatio;
-        terms[b + T_KS] = t.ks;
-        terms[b + T_LIN] = t.linearPerHs;
-        terms[b + T_SOUL] = soulsbyVelocityPerHs(tp * tzOverTp, siteDepthM, g);
-        terms[b + T_BAND] = table ? transferBandIndex(table, tp) : 0;
-      }
-      base = id * STRIDE;
-      lastTp = tp;
-      lastBase = base;
-    }
-
+    const base = tpId * STRIDE;
     let flags = 0;
     let ks: number;
     let kr = 1;
     let dirSite: number;
     if (mode === MODE_NONE) {
       ks = terms[base + T_KS];
-      dirSite = wrapDegrees360(dir);
+      dirSite = wrapDegrees360(dirIn[i]);
     } else {
-      // Per-direction terms, cached by exact direction.
-      let dbase: number;
-      if (dir === lastDir) {
-        dbase = lastDirBase;
-      } else {
-        let id = dirIndex.find(dir);
-        if (id < 0) {
-          id = dirIndex.add(dir);
-          if ((id + 1) * DSTRIDE > dirTerms.length) {
-            const grown = new Float64Array(dirTerms.length * 2);
-            grown.set(dirTerms);
-            dirTerms = grown;
-          }
-          const b = id * DSTRIDE;
-          dirTerms[b + D_WRAPPED] = wrapDegrees360(dir);
-          if (table) {
-            dirTerms[b + D_SECTOR] = transferSectorIndex(table, dir);
-          } else {
-            const theta = wrapDegrees180(dir - beta);
-            const landward = theta >= 90 || theta <= -90;
-            const th = theta * DEG_TO_RAD;
-            dirTerms[b + D_LANDWARD] = landward ? 1 : 0;
-            dirTerms[b + D_SIN] = landward ? 0 : Math.sin(th);
-            dirTerms[b + D_COS] = landward ? 0 : Math.cos(th);
-          }
-        }
-        dbase = id * DSTRIDE;
-        lastDir = dir;
-        lastDirBase = dbase;
-      }
+      const dbase = dirId * DSTRIDE;
       if (mode === MODE_REFRACT) {
         ks = terms[base + T_KS];
         if (dirTerms[dbase + D_LANDWARD] !== 0) {
@@ -401,31 +373,9 @@ export function transformToSite(
       hsSite = depthLimitM;
       flags |= TRANSFORM_FLAG.DEPTH_LIMITED;
     }
-
-    // Soulsby factor: Tz from the record (cached by exact Tz), else from Tp (Convention 8).
+    // Soulsby factor: Tz from the record, else from Tp (Convention 8).
     const tz = tzIn[i];
-    let soul: number;
-    if (tz > 0 && tz < Infinity) {
-      if (tz === lastTz) {
-        soul = lastSoul;
-      } else {
-        let id = tzIndex.find(tz);
-        if (id < 0) {
-          id = tzIndex.add(tz);
-          if (id >= tzTerms.length) {
-            const grown = new Float64Array(tzTerms.length * 2);
-            grown.set(tzTerms);
-            tzTerms = grown;
-          }
-          tzTerms[id] = soulsbyVelocityPerHs(tz, siteDepthM, g);
-        }
-        soul = tzTerms[id];
-        lastTz = tz;
-        lastSoul = soul;
-      }
-    } else {
-      soul = terms[base + T_SOUL];
-    }
+    const soul = tz > 0 && tz < Infinity ? soulTz[i] : terms[base + T_SOUL];
 
     hsOut[i] = hsSite;
     dirOut[i] = dirSite;
@@ -434,6 +384,74 @@ export function transformToSite(
     flagsOut[i] = flags;
     linOut[i] = hsSite * terms[base + T_LIN];
     soulOut[i] = hsSite * soul;
+  }
+  return out;
+}
+
+/**
+ * Indices of each record's value among the distinct values (found with `index`, first seen first);
+ * -1 for NaN, and with `positiveFinite` also for values that are not finite and positive. Returns
+ * the distinct values in id order.
+ */
+function distinctIds(values: Float64Array, ids: Int32Array, index: FloatKeyIndex, positiveFinite: boolean): Float64Array {
+  let keys = new Float64Array(1024);
+  let last = NaN;
+  let lastId = -1;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (v !== v || (positiveFinite && !(v > 0 && v < Infinity))) {
+      ids[i] = -1;
+      continue;
+    }
+    if (v === last) {
+      ids[i] = lastId;
+      continue;
+    }
+    let id = index.find(v);
+    if (id < 0) {
+      id = index.add(v);
+      if (id >= keys.length) {
+        const grown = new Float64Array(keys.length * 2);
+        grown.set(keys);
+        keys = grown;
+      }
+      keys[id] = v;
+    }
+    ids[i] = id;
+    last = v;
+    lastId = id;
+  }
+  return keys.subarray(0, index.size);
+}
+
+/** Soulsby velocity per metre of Hs from each record's own Tz (NaN where Tz is missing or invalid), cached by exact Tz. */
+function soulsbyFromTz(tzIn: Float64Array, siteDepthM: number, g: number): Float64Array {
+  const out = new Float64Array(tzIn.length);
+  const index = new FloatKeyIndex(64);
+  let values = new Float64Array(64);
+  let lastTz = NaN;
+  let lastSoul = NaN;
+  for (let i = 0; i < tzIn.length; i++) {
+    const tz = tzIn[i];
+    if (!(tz > 0 && tz < Infinity)) {
+      out[i] = NaN;
+      continue;
+    }
+    if (tz !== lastTz) {
+      let id = index.find(tz);
+      if (id < 0) {
+        id = index.add(tz);
+        if (id >= values.length) {
+          const grown = new Float64Array(values.length * 2);
+          grown.set(values);
+          values = grown;
+        }
+        values[id] = soulsbyVelocityPerHs(tz, siteDepthM, g);
+      }
+      lastTz = tz;
+      lastSoul = values[id];
+    }
+    out[i] = lastSoul;
   }
   return out;
 }

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runPlanningJob } from '../../jobs/plan-job';
 import { createTestApp, signInAll, TEST_ORIGIN, type TestApp } from '../support/app';
 import { deliverDueMail } from '../../server/services/outbox';
+import { planRun } from '../../server/db/schema';
 
 let t: TestApp;
 let as: Awaited<ReturnType<typeof signInAll>>;
@@ -36,9 +37,9 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     for (const m of inbox()) {
       // Only the skipper is subscribed (by default, to the operations assigned to them).
       expect(m.to).toEqual(['skipper@example.com']);
-      expect(SKIPPER_OPS.some((name) => m.subject.startsWith(name))).toBe(true);
-      // The subject says what changed, readable on a phone's lock screen.
-      expect(m.subject).toMatch(/: (new window from|window lost|earliest start now|may start now|may no longer start now|no-go at)( |$)/);
+      expect(SKIPPER_OPS.some((name) => m.subject.startsWith(`Varrow Reach export cable and landfall: ${name} at `))).toBe(true);
+      // The subject names the next start still possible (with its date) and what changed.
+      expect(m.subject).toMatch(/, (may start now|next start \w{3} \d{1,2} \w{3} \d\d:\d\d|no start possible in this forecast) \((new window, starts from|window lost|earliest start now|may start now|may no longer start now|no-go at)/);
       expect(m.text).toMatch(/Decision support only/);
       expect(m.text).toContain(`/projects/${t.demo.projectId}/board`);
       expect(m.html).toContain('<ul');
@@ -48,7 +49,7 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     const plan = (await as.skipper.get(`/api/projects/${t.demo.projectId}/plan`)).body;
     const berm = plan.plans.find((x: { operationName: string }) => x.operationName === 'Rock berm placement');
     if (berm.windows.length > 0) {
-      const mail = inbox().find((m) => m.subject.startsWith('Rock berm placement'))!;
+      const mail = inbox().find((m) => m.subject.includes(': Rock berm placement at '))!;
       expect(mail.text).toContain(berm.windows[0].start.slice(11, 16));
     }
   });
@@ -72,7 +73,7 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     const opsWithAlerts = new Set(p.alerts.map((a: { operationId: string }) => a.operationId));
     const ops = (await as.coordinator.get(`/api/projects/${t.demo.projectId}/operations`)).body as { id: string; name: string }[];
     for (const m of newMessages) {
-      const op = ops.find((o) => m.subject.startsWith(o.name))!;
+      const op = ops.find((o) => m.subject.includes(`: ${o.name} at `))!;
       expect(opsWithAlerts.has(op.id)).toBe(true);
     }
     firstCount = inbox().length;
@@ -119,6 +120,29 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     ]);
     const statuses = [a.projects[0].status, b.projects[0].status].sort();
     expect(statuses).toEqual(['planned', 'skipped']);
+  });
+
+  it('plans a project once per cron tick across instances, and again when the run of the tick was cut short', async () => {
+    // Two instances run the same schedule; one reaches the tick after the other has finished.
+    now = new Date('2026-12-02T00:30:00Z');
+    const tickAt = new Date('2026-12-02T00:30:00Z');
+    const secondInstance = { ...t.deps };
+    const first = await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'schedule', tickAt });
+    now = new Date('2026-12-02T00:30:07Z');
+    const late = await runPlanningJob(secondInstance, { projectId: t.demo.projectId, trigger: 'schedule', tickAt });
+    expect(first.projects[0].status).toBe('planned');
+    expect(late.projects[0]).toMatchObject({ status: 'skipped', reason: 'planned on this tick by another instance', planRunId: first.projects[0].planRunId });
+
+    // The next tick: an instance killed while planning left its run 'running'; the other plans it.
+    const nextTick = new Date('2026-12-02T00:40:00Z');
+    now = nextTick;
+    await t.deps.db.insert(planRun).values({ projectId: t.demo.projectId, trigger: 'schedule', status: 'running', startedAt: nextTick });
+    now = new Date('2026-12-02T00:40:02Z');
+    const after = await runPlanningJob(secondInstance, { projectId: t.demo.projectId, trigger: 'schedule', tickAt: nextTick });
+    expect(after.projects[0].status).toBe('planned');
+    // A run asked for by a person (no tick) is never skipped.
+    const manual = await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'manual' });
+    expect(manual.projects[0].status).toBe('planned');
   });
 
   it('keeps the last plan when the forecast service fails', async () => {
