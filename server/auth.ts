@@ -159,6 +159,9 @@ export function createAuth(db: Db, config: AuthConfig) {
       max: 300,
       customRules: {
         '/sign-in/email': { window: 60, max: config.signInPerMinute ?? 30 },
+        // The library's default for this path is 3 per 10 s per address; the old password is
+        // checked anyway, and one office changing several temporary passwords is not an attack.
+        '/change-password': { window: 60, max: 20 },
       },
     },
     advanced: {
