@@ -196,8 +196,8 @@ export interface LedgerEntry {
   day: string;
   /** Hours planned: the day's real length in the worksite's zone (24 h; 23 or 25 h on clock-change days). */
   plannedHours: number;
-  /** As proposed from the data: planned hours not workable at OPLIM (no data counts as lost). */
-  proposedLostHours: number;
+  /** As proposed from the data: planned hours not workable at OPLIM (no data counts as lost); null for clients. */
+  proposedLostHours: number | null;
   proposedLimiting: LedgerLimiting | null;
   /** As confirmed (or corrected) by the coordinator; null while proposed. */
   lostHours: number | null;

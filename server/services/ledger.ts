@@ -452,6 +452,8 @@ export async function listLedger(db: Db, projectId: string, range: { from: strin
   const rows = await ledgerSelect(db)
     .where(and(...conditions))
     .orderBy(asc(ledgerDay.day), asc(operation.name), asc(worksite.name));
+  // Clients see the confirmed figures only, not what the data proposed before a correction.
+  if (confirmedOnly(role)) return rows.map((r) => ({ ...toEntry(r), proposedLostHours: null, proposedLimiting: null }));
   return rows.map(toEntry);
 }
 

@@ -575,7 +575,7 @@ describe('the downtime ledger', () => {
     const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-05`)).body as LedgerEntry[];
     const [a, b] = rows;
     // A correction without a note is refused; so are hours above the planned ones.
-    const noNote = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: (a.proposedLostHours + 3) % 24 });
+    const noNote = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: ((a.proposedLostHours ?? 0) + 3) % 24 });
     expect(noNote.status).toBe(400);
     expect(noNote.body.error.details[0].field).toBe('note');
     expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: 25, note: 'x' })).status).toBe(400);

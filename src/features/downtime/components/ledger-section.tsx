@@ -41,7 +41,7 @@ function shown(r: LedgerEntry) {
     confirmed,
     lost: confirmed ? r.lostHours : r.proposedLostHours,
     limiting: confirmed ? r.limiting : r.proposedLimiting,
-    corrected: confirmed && (r.lostHours !== r.proposedLostHours || r.limiting !== r.proposedLimiting),
+    corrected: confirmed && r.proposedLostHours !== null && (r.lostHours !== r.proposedLostHours || r.limiting !== r.proposedLimiting),
   };
 }
 
