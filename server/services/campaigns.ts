@@ -20,10 +20,15 @@ type CampaignRow = typeof campaign.$inferSelect;
 const MS_PER_HOUR = 3_600_000;
 
 /** Bump when the simulation or the fields kept of it change, so cached answers are not reused. */
-const SIMULATION_FORMAT = 1;
+const SIMULATION_FORMAT = 2;
 
 /** What is cached of a start month's simulation (the per-year runs are not answered). */
 type SimulatedMonth = Omit<CampaignMonthResult, 'runs'>;
+interface Simulated {
+  months: SimulatedMonth[];
+  /** Go-start hours of each step over the whole hindcast. */
+  goStartHours: number[];
+}
 
 export function toCampaignResponse(row: CampaignRow): CampaignResponse {
   return {
@@ -159,7 +164,7 @@ export async function simulateProjectCampaign(
     .update(JSON.stringify([SIMULATION_FORMAT, limitsVersion(setup, row.dataPointDepthM), c.steps, c.timeZone]))
     .digest('hex')
     .slice(0, 32);
-  const results = await cachedStats<SimulatedMonth[]>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () => {
+  const simulated = await cachedStats<Simulated>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () => {
     const series = await datasetSeries(db, row.id);
     const stepMs = row.stepMinutes * 60_000;
     // Go-start flags of each distinct (operation, worksite) step, on the transformed series.
@@ -177,8 +182,23 @@ export async function simulateProjectCampaign(
       (opId, siteId) => wanted.has(key(opId, siteId)),
     );
     const steps: CampaignStep[] = c.steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: ops.get(s.operationId)!.tpopH }));
-    return simulateCampaign(series.timeMs, stepMs, steps, { timeZone: c.timeZone }).map(({ runs: _runs, ...month }) => month);
+    const dtH = stepMs / MS_PER_HOUR;
+    return {
+      months: simulateCampaign(series.timeMs, stepMs, steps, { timeZone: c.timeZone }).map(({ runs: _runs, ...month }) => month),
+      goStartHours: steps.map((st) => st.goStart.reduce((a, x) => a + x, 0) * dtH),
+    };
   });
+  const results = simulated.months;
+  const siteNames = new Map(setup.sites.map((s) => [s.id, s.name]));
+  const stepList = c.steps.map((st, k) => {
+    const op = ops.get(st.operationId)!;
+    return { operationName: op.name, siteName: siteNames.get(st.siteId) ?? '', trHours: op.tpopH + op.tcH, goStartHours: simulated.goStartHours[k] };
+  });
+  const never = stepList.findIndex((st) => st.goStartHours === 0);
+  const neverStarts =
+    never < 0
+      ? null
+      : `Step ${never + 1}, ${stepList[never].operationName} at ${stepList[never].siteName}, never finds a window in ${row.name}: no ${stepList[never].trHours} h (TR) in a row meet all its limits${options.alpha ? ' at the forecast limits' : ''}, so the campaign never finishes. Check that step's limits.`;
 
   const plannedMs = c.plannedStart ? Date.parse(c.plannedStart) : null;
   const notBeforeMs =
@@ -195,6 +215,7 @@ export async function simulateProjectCampaign(
       startMonth: r.startMonth,
       years: r.years,
       censoredYears: r.censoredYears,
+      stuckSteps: r.stuckSteps,
       p50Hours: r.p50Hours,
       p90Hours: r.p90Hours,
       wowP50Hours: r.wowP50Hours,
@@ -210,6 +231,8 @@ export async function simulateProjectCampaign(
     alpha: options.alpha,
     timeZone: c.timeZone,
     sumTpopHours: c.steps.reduce((a, s) => a + ops.get(s.operationId)!.tpopH, 0),
+    steps: stepList,
+    neverStarts,
     months,
   };
 }

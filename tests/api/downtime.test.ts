@@ -384,7 +384,15 @@ describe('campaigns', () => {
       expect(m.p50Hours).toBeNull();
       expect(m.p90Hours).toBeNull();
       expect(m.p50Finish).toBeNull();
+      // Issue 22: the answer names the step every year stopped at (the second, index 1).
+      expect(m.stuckSteps).toEqual([{ step: 1, years: 3 }]);
     }
+    // "Never goes" asks for Tp 39-40 s, which the invented sea never has: no go-start at all.
+    expect(sim.steps.map((st) => [st.operationName, st.goStartHours === 0])).toEqual([
+      [sim.steps[0].operationName, false],
+      ['Never goes', true],
+    ]);
+    expect(sim.neverStarts).toMatch(/^Step 2, Never goes at .+, never finds a window in .+: no 4 h \(TR\) in a row meet all its limits/);
   });
 
   it('answers 409 when a stored step no longer fits the project', async () => {

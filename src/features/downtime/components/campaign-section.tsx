@@ -172,6 +172,11 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
           Download CSV
         </Button>
       </div>
+      {sim.neverStarts ? (
+        <Notice tone="error">
+          <span data-testid="campaign-never-starts">{sim.neverStarts}</span>
+        </Notice>
+      ) : null}
       <div className="overflow-x-auto rounded-lg border border-line">
         <table className="w-full min-w-[52rem] text-sm" data-testid="campaign-table">
           <caption className="sr-only">Campaign duration and finish dates by start month, P50 and P90 over the hindcast years</caption>
@@ -221,6 +226,11 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
                   ) : (
                     <span>
                       {m.censoredYears.length} of {m.years}: {m.censoredYears.join(', ')}
+                      {m.stuckSteps.map((st) => (
+                        <span key={st.step} className="block text-ink-soft">
+                          {st.years === m.censoredYears.length ? 'all' : st.years} stopped at step {st.step + 1} ({sim.steps[st.step]?.operationName} at {sim.steps[st.step]?.siteName}): no window before the data end
+                        </span>
+                      ))}
                     </span>
                   )}
                 </td>
