@@ -14,6 +14,12 @@ export interface DatasetSummary {
   derived: Record<string, number>;
   /** Share of records missing Hs, 0-1. */
   missingShare: number;
+  /** Records a regular series of this step would hold from start to end. */
+  expectedRecords: number;
+  /** Of those, rows absent from the data altogether (not the same as a row with a missing value). */
+  absentRecords: number;
+  /** Share of the expected records without an Hs value: missing values and absent rows together, 0-1. */
+  hsGapShare: number;
   createdAt: string;
 }
 

@@ -52,7 +52,19 @@ export async function createDataset(db: Db, meta: DatasetMeta, series: SeaSeries
 
 type DatasetRow = typeof dataset.$inferSelect;
 
+/**
+ * Records a regular series of step dt would hold from the first to the last record, and how many
+ * of them are absent (rows not in the file at all, as opposed to rows with a missing value). An
+ * irregular series can hold more records than the grid: then nothing counts as absent.
+ */
+export function expectedRecords(startMs: number, endMs: number, stepMinutes: number, records: number): { expected: number; absent: number } {
+  const expected = stepMinutes > 0 ? Math.floor((endMs - startMs) / (stepMinutes * 60_000)) + 1 : records;
+  return { expected: Math.max(expected, records), absent: Math.max(0, expected - records) };
+}
+
 export function toSummary(r: DatasetRow): DatasetSummary {
+  const grid = expectedRecords(r.startAt.getTime(), r.endAt.getTime(), r.stepMinutes, r.recordCount);
+  const hsMissing = r.missing.hs ?? r.recordCount;
   return {
     id: r.id,
     name: r.name,
@@ -67,6 +79,9 @@ export function toSummary(r: DatasetRow): DatasetSummary {
     missing: r.missing,
     derived: r.derived,
     missingShare: r.recordCount ? (r.missing.hs ?? 0) / r.recordCount : 0,
+    expectedRecords: grid.expected,
+    absentRecords: grid.absent,
+    hsGapShare: grid.expected ? (hsMissing + grid.absent) / grid.expected : 0,
     createdAt: r.createdAt.toISOString(),
   };
 }

@@ -83,6 +83,19 @@ describe('importing sea-state files', () => {
     expect(recs.body.wind[1]).toBeCloseTo((20 * 1852) / 3600, 6);
   });
 
+  // Issue 22: the headline counted missing values only, so a file with whole hours left out
+  // looked complete.
+  it('counts absent rows as well as missing values in the dataset headline', async () => {
+    // Hourly from 00:00 to 06:00 (7 steps): 03:00 and 04:00 are not in the file, 02:00 has no Hs.
+    const csv = 'time,hs,tp\n2026-01-01 00:00,1.0,8\n2026-01-01 01:00,1.1,8\n2026-01-01 02:00,NaN,8\n2026-01-01 05:00,1.2,8\n2026-01-01 06:00,1.3,8\n';
+    const res = await as.coordinator.post(base).field('name', 'Gappy buoy').field('kind', 'observation').field('dataPointDepth', '35').attach('file', Buffer.from(csv, 'utf8'), 'gappy.csv');
+    expect(res.status, res.text).toBe(201);
+    const d = (await as.coordinator.get(`${base}/${res.body.id}`)).body;
+    expect(d).toMatchObject({ records: 5, expectedRecords: 7, absentRecords: 2, missing: expect.objectContaining({ hs: 1 }) });
+    // (1 missing + 2 absent) / 7 expected.
+    expect(d.hsGapShare).toBeCloseTo(3 / 7, 12);
+  });
+
   it('refuses a bad file whole, naming the line, and stores nothing', async () => {
     const before = await datasetCount();
     const csv = 'time,hs,tp\n2026-01-01T00:00Z,1.0,8\n2026-01-01T01:00Z,-1.0,8\n2026-01-01T02:00Z,1.0,80\n';

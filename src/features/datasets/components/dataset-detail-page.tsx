@@ -118,8 +118,12 @@ function Facts({ d }: { d: DatasetDetail }) {
         <Fact label="Records">
           {formatCount(d.records)}, every {formatStep(d.stepMinutes)}
         </Fact>
-        <Fact label="Hs missing">
-          {formatShare(d.missingShare)} ({formatCount(d.missing.hs ?? 0)} {(d.missing.hs ?? 0) === 1 ? 'record' : 'records'})
+        <Fact label="Hs missing or absent">
+          {formatShare(d.hsGapShare)} of {formatCount(d.expectedRecords)} {formatStep(d.stepMinutes)} steps
+          <span className="block text-ink-soft">
+            {formatCount(d.missing.hs ?? 0)} {(d.missing.hs ?? 0) === 1 ? 'record' : 'records'} without Hs; {formatCount(d.absentRecords)}{' '}
+            {d.absentRecords === 1 ? 'row' : 'rows'} absent
+          </span>
         </Fact>
         <Fact label="Data point">
           {d.dataPoint.name || 'Unnamed'}, {formatDepth(d.dataPoint.depthM)}

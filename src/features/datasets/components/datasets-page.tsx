@@ -143,7 +143,9 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
               <th className={th}>Coverage (UTC)</th>
               <th className={`${th} text-right`}>Step</th>
               <th className={`${th} text-right`}>Records</th>
-              <th className={`${th} text-right`}>Hs missing</th>
+              <th className={`${th} text-right`} title="Share of the expected records without Hs: missing values and absent rows">
+                Hs missing or absent
+              </th>
               <th className={th}>Data point</th>
               <th className={th}>Source</th>
             </tr>
@@ -166,7 +168,7 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
                 </td>
                 <td className={`${td} text-right whitespace-nowrap`}>{formatStep(d.stepMinutes)}</td>
                 <td className={`${td} text-right tabular-nums`}>{formatCount(d.records)}</td>
-                <td className={`${td} text-right tabular-nums`}>{formatShare(d.missingShare)}</td>
+                <td className={`${td} text-right tabular-nums`}>{formatShare(d.hsGapShare)}</td>
                 <td className={td}>
                   {d.dataPoint.name || 'Unnamed'}
                   <span className="block text-xs text-ink-soft">{formatDepth(d.dataPoint.depthM)}</span>
@@ -198,8 +200,8 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
                 <dd>
                   {formatCount(d.records)}, every {formatStep(d.stepMinutes)}
                 </dd>
-                <dt className="text-ink-soft">Hs missing</dt>
-                <dd>{formatShare(d.missingShare)}</dd>
+                <dt className="text-ink-soft">Hs missing or absent</dt>
+                <dd>{formatShare(d.hsGapShare)}</dd>
                 <dt className="text-ink-soft">Data point</dt>
                 <dd>
                   {d.dataPoint.name || 'Unnamed'}, {formatDepth(d.dataPoint.depthM)}
