@@ -181,5 +181,7 @@ export interface LedgerMonthRow {
 /** GET /api/projects/:projectId/ledger/monthly */
 export interface LedgerMonthlyAnswer {
   hindcast: { id: string; name: string } | null;
+  /** The expectation's basis: at the forecast limits (true) or at OPLIM (false), as asked. */
+  alpha: boolean;
   rows: LedgerMonthRow[];
 }

@@ -650,6 +650,25 @@ describe('the downtime ledger', () => {
     expect(confirmedTotal).toBeCloseTo(confirmed.reduce((s: number, r: LedgerEntry) => s + r.lostHours!, 0), 6);
   });
 
+  // Issue 22: one basis per page. The ledger's expectation follows the page's forecast-limit
+  // switch; OPWF = alpha x OPLIM with alpha <= 1 (DOMAIN "Operations and limits") can only make
+  // more hours unworkable, so every expected figure is at least the OPLIM one.
+  it('computes the expectation on the page’s basis when asked (alpha=true)', async () => {
+    const plain = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
+    const withAlpha = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31&alpha=true`)).body as LedgerMonthlyAnswer;
+    expect([plain.alpha, withAlpha.alpha]).toEqual([false, true]);
+    let stricter = 0;
+    for (const r of withAlpha.rows) {
+      const p = plain.rows.find((x) => x.operationId === r.operationId && x.siteId === r.siteId)!;
+      expect(r.expectedP50Hours!).toBeGreaterThanOrEqual(p.expectedP50Hours!);
+      if (r.expectedP50Hours! > p.expectedP50Hours!) stricter++;
+      // The days themselves are what happened: the same on either basis.
+      expect(r.confirmedLostHours).toBe(p.confirmedLostHours);
+    }
+    expect(stricter).toBeGreaterThan(0);
+    expect((await as.coordinator.get(`${base}/ledger/monthly?alpha=yes`)).status).toBe(400);
+  });
+
   it('takes the real length of months on clock-change dates (Europe/London March: 743 h)', () => {
     // Hourly from 2024-01-01 00:00Z to 2025-12-30 23:00Z; workable only for the first 100 records
     // of March 2024.

@@ -166,7 +166,7 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
     <div className={`flex flex-col gap-2 ${stale ? 'opacity-60' : ''}`}>
       <div className="flex flex-wrap items-end justify-between gap-2">
         <p className="text-sm text-ink-soft">
-          Without waiting the campaign takes {hours(sim.sumTpopHours, 0)} ({days(sim.sumTpopHours)}). {sim.alpha ? 'α applied.' : 'At OPLIM, no α.'} Durations in days (24 h).
+          Without waiting the campaign takes {hours(sim.sumTpopHours, 0)} ({days(sim.sumTpopHours)}). Durations in days (24 h).
         </p>
         <Button variant="secondary" className="no-print" onClick={download}>
           Download CSV

@@ -17,6 +17,14 @@ import { LedgerSection } from './ledger-section';
 import { PrintReport } from './print-report';
 import { WorkabilitySection } from './workability-section';
 
+const YEAR_MS = 365.25 * 86_400_000;
+/** Shorter than a year: statistics by calendar month cannot stand on it. */
+const thinHindcast = (d: { start: string; end: string }) => Date.parse(d.end) - Date.parse(d.start) < YEAR_MS - 86_400_000;
+const spanWords = (d: { start: string; end: string }) => {
+  const days = Math.round((Date.parse(d.end) - Date.parse(d.start)) / 86_400_000);
+  return days < 62 ? `${days} day${days === 1 ? '' : 's'}` : `about ${Math.round(days / 30.44)} months`;
+};
+
 function AlphaSwitch({ on, onToggle }: { on: boolean; onToggle: () => void }) {
   return (
     <button
@@ -114,6 +122,16 @@ export function DowntimePage() {
           </FieldShell>
         </div>
         <AlphaSwitch on={alpha} onToggle={() => set('alpha', alpha ? 'off' : null)} />
+        <p className="w-full text-sm" data-testid="downtime-basis">
+          <span className="font-semibold">Basis of every figure on this page</span> (heat map, table, campaign durations and the ledger’s expected downtime):{' '}
+          {hindcast ? hindcast.name : 'no hindcast yet'},{' '}
+          {alpha ? 'forecast limits on: Hs limits at OPWF = α × OPLIM.' : 'forecast limits off: every limit at OPLIM.'}
+          {hindcast && thinHindcast(hindcast) ? (
+            <span className="mt-1 block font-semibold text-danger">
+              This hindcast spans {spanWords(hindcast)}: shorter than a year, so some months have no data and the rest rest on one short sample.
+            </span>
+          ) : null}
+        </p>
       </Card>
       {hindcasts.error ? <ErrorNotice error={hindcasts.error} /> : null}
 
@@ -137,7 +155,7 @@ export function DowntimePage() {
         onSelect={(id) => set('campaign', id)}
       />
 
-      <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} />
+      <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} alpha={alpha} />
     </div>
   );
 }

@@ -100,8 +100,7 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
             Expected weather downtime by month
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months in each worksite’s time zone,{' '}
-            {alpha ? 'with the forecast limit OPWF = α × OPLIM on Hs.' : 'at OPLIM (no α).'}
+            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months in each worksite’s time zone (basis at the top of the page).
           </p>
         </div>
         <Button variant="secondary" className="no-print" onClick={downloadMonths} disabled={!entries || entries.length === 0}>
