@@ -20,6 +20,8 @@ export interface DatasetSummary {
   absentRecords: number;
   /** Share of the expected records without an Hs value: missing values and absent rows together, 0-1. */
   hsGapShare: number;
+  /** In the project's list: the dataset statistics use when none is named (chosen, else the newest hindcast). */
+  statisticsDefault?: boolean;
   createdAt: string;
 }
 
@@ -37,6 +39,8 @@ export interface ImportAnswer {
   variables: string[];
   missing: Record<string, number>;
   skipped: number;
+  /** Set when this import made a dataset shorter than a year the default for statistics. */
+  warning: string | null;
 }
 
 /** Records as columnar arrays; times ISO UTC; null = missing. */

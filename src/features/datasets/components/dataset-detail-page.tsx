@@ -20,7 +20,7 @@ const linkButton =
 export function DatasetDetailPage() {
   const { projectId = '', datasetId = '' } = useParams();
   const location = useLocation();
-  const imported = (location.state as { imported?: { records: number; skipped: number } } | null)?.imported;
+  const imported = (location.state as { imported?: { records: number; skipped: number; warning?: string | null } } | null)?.imported;
   const project = useProjectAccess(projectId);
   const dataset = useDataset(projectId, datasetId);
   // undefined until the user picks a range: then the default range of the dataset is shown.
@@ -65,6 +65,7 @@ export function DatasetDetailPage() {
           {imported.skipped > 1 ? `; ${formatCount(imported.skipped)} bad rows were skipped and are listed in the import report below` : ''}.
         </Notice>
       ) : null}
+      {imported?.warning ? <Notice tone="error">{imported.warning}</Notice> : null}
       <Facts d={d} />
       <Card>
         <h2 className="mb-3 text-lg font-bold">Time series</h2>

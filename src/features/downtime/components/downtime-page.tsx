@@ -55,7 +55,7 @@ export function DowntimePage() {
 
   const list = hindcasts.data ?? [];
   const asked = params.get('dataset');
-  const datasetId = asked && list.some((d) => d.id === asked) ? asked : (list[0]?.id ?? '');
+  const datasetId = asked && list.some((d) => d.id === asked) ? asked : (list.find((d) => d.statisticsDefault)?.id ?? list[0]?.id ?? '');
   const hindcast = list.find((d) => d.id === datasetId);
   const alpha = params.get('alpha') !== 'off';
   const monthParam = params.get('month');
@@ -116,6 +116,7 @@ export function DowntimePage() {
               {list.map((d) => (
                 <option key={d.id} value={d.id}>
                   {d.name}
+                  {d.statisticsDefault ? ' (project default)' : ''}
                 </option>
               ))}
             </Select>
