@@ -214,7 +214,14 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
                 <th scope="row" className="px-2 py-1 text-left font-normal whitespace-nowrap">
                   <span className="font-semibold">{MONTH_LONG[m.startMonth - 1]}</span> <span className="text-ink-soft">{dateIn(m.startDate, zone)}</span>
                 </th>
-                <td className={`${td} font-semibold`}>{days(m.p50Hours)}</td>
+                <td className={`${td} font-semibold`}>
+                  {days(m.p50Hours)}
+                  {m.p50Hours !== null ? (
+                    <span className={`block text-xs font-normal ${m.years - m.censoredYears.length < 3 ? 'font-semibold text-danger' : 'text-ink-soft'}`}>
+                      from {m.years - m.censoredYears.length} yr{m.years - m.censoredYears.length === 1 ? ': P50 = P90' : m.years - m.censoredYears.length < 3 ? ': thin' : ''}
+                    </span>
+                  ) : null}
+                </td>
                 <td className={td}>{days(m.p90Hours)}</td>
                 <td className={td}>{days(m.wowP50Hours)}</td>
                 <td className={td}>{days(m.wowP90Hours)}</td>
