@@ -1,6 +1,5 @@
 import crypto from 'node:crypto';
-import { format } from 'date-fns';
-import { TZDate } from '@date-fns/tz';
+import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
 import { CAUTION_LINE } from '../../shared/caution';
 import { limitWords } from '../../shared/limit-words';
@@ -8,7 +7,7 @@ import { limitWords } from '../../shared/limit-words';
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
 export function localTime(iso: string, timeZone: string): string {
-  return format(new TZDate(Date.parse(iso), timeZone), 'EEE d MMM HH:mm');
+  return formatInstant(iso, timeZone, 'dateTime');
 }
 
 export interface ChangeWithReason extends PlanChange {

@@ -1,6 +1,6 @@
 /**
- * The project's alpha table (OPWF = alpha * OPLIM for weather-restricted operations, DOMAIN.md
- * "Operations and limits"). A project without a stored table uses the default; every save and
+ * The project's alpha table (OPWF = alpha * OPLIM for weather-restricted operations,
+ * docs/domain.md#weather-restricted). A project without a stored table uses the default; every save and
  * reset is written to the audit trail with the table before and after.
  */
 import { eq } from 'drizzle-orm';

@@ -4,13 +4,13 @@
  * corrected by the coordinator, then locked; and the monthly totals against the hindcast
  * expectation.
  *
- * Choices (DOMAIN.md leaves them open; written down here):
+ * Choices (docs/domain.md leaves them open; written down here):
  * - Hours planned: every hour of the calendar day in the worksite's time zone, i.e. the day's real
  *   length (24 h; 23 or 25 h on daylight-saving change days). The ledger books weather downtime of
  *   a campaign in progress around the clock, as offshore spreads usually work; a day the spread
  *   did not work is corrected to 0 lost hours by the coordinator with a note.
  * - Hours lost to weather: planned hours that were not workable at OPLIM (alpha = false: this is
- *   what happened, not a forecast to be cautious about, Convention 14). A record stands for
+ *   what happened, not a forecast to be cautious about, docs/domain.md#convention-14). A record stands for
  *   [t, t + dt) and belongs to the day of its start; records with a missing value the limits need
  *   ("no data") and hours with no record at all count as lost too: nobody can show they were
  *   workable. Lost = planned - workable records x dt, within [0, planned].
@@ -44,6 +44,7 @@ import { recordAudit } from './audit';
 import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup, type WorksiteRow } from './site-context';
 import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
+import { runEngineTask } from './engine-pool';
 
 const MS_PER_HOUR = 3_600_000;
 const round2 = (x: number) => Math.round(x * 100) / 100;
@@ -597,7 +598,8 @@ export async function ledgerMonthly(
   if (hindcast) {
     const version = limitsVersion(setup, hindcast.dataPointDepthM);
     expectations = await cachedStats(db, projectId, hindcast.id, version, alpha ? 'ledger-alpha' : 'ledger', async () =>
-      computeExpectations(await datasetSeries(db, hindcast.id), hindcast, setup, alpha),
+      // On an engine worker thread (engine-pool.ts).
+      runEngineTask('ledgerExpectations', await datasetSeries(db, hindcast.id), hindcast, setup, alpha),
     );
   }
   const expected = new Map(expectations.map((e) => [`${e.operationId}|${e.siteId}`, e]));

@@ -18,7 +18,7 @@ type OperationRow = typeof operation.$inferSelect;
 /**
  * Limits as stored and answered: unset limits (null, undefined, an empty band list) left out, keys
  * in a fixed order, and `bedVelocityMethod` kept only beside a bed-velocity limit, 'linear' when
- * not given (the engine's default, DOMAIN.md "Sea states").
+ * not given (the engine's default, docs/domain.md#sea-states).
  */
 export function normalizeLimits(limits: OperationLimits): OperationLimits {
   const out: OperationLimits = {};

@@ -15,7 +15,7 @@ export interface RawSeaColumns {
 }
 
 /**
- * Completes the periods per DOMAIN.md (JONSWAP ratios, gamma 3.3) and keeps which were given.
+ * Completes the periods per docs/domain.md#sea-states (JONSWAP ratios, gamma 3.3) and keeps which were given.
  * Missing columns become all-NaN.
  */
 export function toSeaSeries(raw: RawSeaColumns): SeaSeries {
@@ -40,7 +40,7 @@ export const SERIES_VARIABLES = ['hs', 'tp', 'tz', 'te', 'dir', 'wind', 'windDir
 /** Coverage figures of a series: step (median spacing), variables present, missing counts, derived periods. */
 export function describeSeries(s: SeaSeries) {
   const n = s.timeMs.length;
-  // Median spacing (DOMAIN Convention 9), as the engine's detectStepMs takes it; one record: 1 h.
+  // Median spacing (docs/domain.md#convention-9), as the engine's detectStepMs takes it; one record: 1 h.
   const median = detectStepMinutes(s.timeMs);
   const stepMinutes = Number.isNaN(median) ? 60 : median;
   const missing: Record<string, number> = {};

@@ -52,7 +52,7 @@ export interface TransformedSite {
 }
 
 /**
- * Transforms a data-point series to a worksite (DOMAIN.md "From the data point to the worksite")
+ * Transforms a data-point series to a worksite (docs/domain.md#transformation)
  * and packs what the engine needs. `dataPointDepthM` null means deep water.
  */
 export function transformForSite(series: SeaSeries, dataPointDepthM: number | null, site: WorksiteRow): TransformedSite {

@@ -64,7 +64,7 @@ export function zonedMonthStartMs(year: number, month: number, timeZone: string)
 }
 
 /**
- * Calendar month of every record in a time zone (Convention 11: months are calendar months in the
+ * Calendar month of every record in a time zone (docs/domain.md#convention-11: months are calendar months in the
  * worksite's time zone).
  *
  * Fast for long series: instead of one time-zone lookup per record, it computes the UTC start of

@@ -1,6 +1,7 @@
 import { zonedMonthStartMs, zoneOffsetMs } from './calendar-index';
 import { nextGoStartIndex } from './go-starts';
 import { quantileR7 } from './quantile-r7';
+import { recordSteps } from './record-steps';
 import { MS_PER_HOUR, assertStep } from './workable-runs';
 
 /** One campaign step: an operation at a worksite. */
@@ -17,7 +18,7 @@ export interface CampaignStep {
 export interface CampaignOptions {
   /** Start months to simulate, 1-12; default all twelve. */
   startMonths?: number[];
-  /** IANA time zone of the start dates (the 1st at 00:00); default 'UTC' (Convention 15). */
+  /** IANA time zone of the start dates (the 1st at 00:00); default 'UTC' (docs/domain.md#convention-15). */
   timeZone?: string;
 }
 
@@ -59,7 +60,7 @@ export interface CampaignMonthResult {
 }
 
 /**
- * Campaign simulation over a hindcast (DOMAIN.md, "Hindcast statistics"; Convention 15): for every
+ * Campaign simulation over a hindcast (docs/domain.md#hindcast-statistics, #convention-15): for every
  * hindcast year and start month, start at the 1st at 00:00 in the campaign's time zone; for each
  * step in order, t = the first go-start at or after t for that step, then t = t + TPOP. Duration
  * D = end - start, waiting on weather = D - sum of TPOP. P50 and P90 (Hyndman & Fan type 7) of D
@@ -67,14 +68,14 @@ export interface CampaignMonthResult {
  * go-start before the data end.
  *
  * Hindcast years for a start month: the years whose start date lies within the data, from the
- * first record's time to the last record's time + dt (a start before the data begins would count
+ * first record's time to the last record's end (its time + its local step, record-steps.ts) (a start before the data begins would count
  * the missing months as waiting; a start after its end has no data at all).
  *
  * Each step's "next go-start at or after record i" is precomputed once by a backward scan; a
  * lookup is one binary search for the first record at or after t.
  *
  * @param timeMs the campaign's time axis (the hindcast records), UTC epoch ms, ascending
- * @param stepMs dt, ms
+ * @param stepMs fallback dt, ms (a series without any stretch of equal spacings)
  * @param steps ordered steps; each step's go-start flags match `timeMs` (or the step's own `timeMs`)
  * @returns one entry per start month, in the order of `startMonths`
  * @throws RangeError for no steps, a non-positive TPOP, mismatched lengths, a start month outside
@@ -107,7 +108,7 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
     return startMonths.map((startMonth) => ({ startMonth, years: 0, censoredYears: [], stuckSteps: [], p50Hours: null, p90Hours: null, wowP50Hours: null, wowP90Hours: null, runs: [] }));
   }
   const firstMs = timeMs[0];
-  const endMs = timeMs[n - 1] + stepMs;
+  const endMs = timeMs[n - 1] + recordSteps(timeMs, stepMs).durationMs[n - 1];
   const firstYear = new Date(firstMs + zoneOffsetMs(timeZone, firstMs)).getUTCFullYear();
   const lastYear = new Date(endMs + zoneOffsetMs(timeZone, endMs)).getUTCFullYear();
 

@@ -52,7 +52,7 @@ function positiveOrNaN(x: number | null | undefined, what: string): number {
 /**
  * Prepares an operation's limits (see {@link CompiledLimits}).
  *
- * @param useAlpha false plans on OPLIM (alpha = 1, Convention 14)
+ * @param useAlpha false plans on OPLIM (alpha = 1, docs/domain.md#convention-14)
  * @throws RangeError when no limit is set, a limit is not finite and positive, the curve has fewer
  *   than two points or Tp not strictly ascending, a band has from > to, TPOP/TC are invalid, or the
  *   alpha table is malformed.
@@ -123,7 +123,7 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
     bedMax,
     bedSoulsby: L.bedVelocityMethod === 'soulsby',
     windMax,
-    // Convention 7: Hs for Hs limits, the curve and bed velocity; Tp for the curve, Tp limits,
+    // docs/domain.md#convention-7: Hs for Hs limits, the curve and bed velocity; Tp for the curve, Tp limits,
     // bands and bed velocity; wind for a wind limit.
     needHs: hasHs || hasCurve || hasBed,
     needTp: hasCurve || tpMin === tpMin || tpMax === tpMax || bands.length > 0 || hasBed,
@@ -135,7 +135,7 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
 
 /**
  * Hs limit of the curve at a Tp by linear interpolation, m; NaN outside the curve's closed Tp range
- * (Convention 6) or for a NaN Tp.
+ * (docs/domain.md#convention-6) or for a NaN Tp.
  */
 export function curveHsAt(c: CompiledLimits, tpS: number): number {
   const xs = c.curveTp;
@@ -162,7 +162,7 @@ export function alphaAt(c: CompiledLimits, hsLimitM: number): number {
 
 /**
  * Signed distance of a Tp to the excluded bands, s: outside every band, the distance to the nearest
- * edge of any band (> 0); inside a band (edges included, Convention 6), minus the distance to that
+ * edge of any band (> 0); inside a band (edges included, docs/domain.md#convention-6), minus the distance to that
  * band's nearest edge (<= 0). `relOut[0]` receives the smallest relative distance over the bands
  * and edges, distance / edge Tp (dimensionless).
  */

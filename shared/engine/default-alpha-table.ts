@@ -5,7 +5,7 @@ import type { AlphaTable } from './types';
  * OPWF = alpha * OPLIM on the Hs limits.
  *
  * Rows: TPOP up to 12, 24, 36, 48, 72 h; columns: Hs limit 1, 2, 4, 6 m.
- * Source: DOMAIN.md, "Operations and limits", from memory of DNV-ST-N001's base case for waves;
+ * Source: docs/domain.md#weather-restricted, from memory of DNV-ST-N001's base case for waves;
  * check against the current standard before relying on it. Each project can edit its own copy.
  *
  * Frozen: take a copy with {@link defaultAlphaTable} to edit.

@@ -1,5 +1,5 @@
 /**
- * Time step dt of a series: the median spacing of its records (Convention 9).
+ * Time step dt of a series: the median spacing of its records (docs/domain.md#convention-9).
  *
  * Most series are regular, so a majority vote (Boyer-Moore) over the spacings finds the median in
  * one pass when more than half of the spacings are equal (then that value is both middle order

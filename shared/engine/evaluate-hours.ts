@@ -3,7 +3,7 @@ import { LIMIT, STATUS, type AlphaTable, type HourlyEvaluation, type OperationSp
 
 /** Options of {@link evaluateHours}. */
 export interface EvaluateOptions {
-  /** Apply alpha (OPWF = alpha * OPLIM on the Hs limits). Default true; false plans on OPLIM (Convention 14). */
+  /** Apply alpha (OPWF = alpha * OPLIM on the Hs limits). Default true; false plans on OPLIM (docs/domain.md#convention-14). */
   alpha?: boolean;
   /** The project's alpha table (see DEFAULT_ALPHA_TABLE). */
   alphaTable: AlphaTable;
@@ -24,16 +24,16 @@ export function assertSeriesLengths(series: SiteSeries): void {
 
 /**
  * Hourly go/no-go status of an operation for every record of a worksite series
- * (DOMAIN.md, "Operations and limits", Conventions 5-7).
+ * (docs/domain.md#operations-and-limits, #convention-5 to #convention-7).
  *
  * Per record:
- * - no data (STATUS.NO_DATA) when any value the limits need is NaN (Convention 7: Hs for Hs max,
+ * - no data (STATUS.NO_DATA) when any value the limits need is NaN (docs/domain.md#convention-7: Hs for Hs max,
  *   the curve and bed velocity; Tp for the curve, Tp limits, bands and bed velocity; the bed
  *   velocity of the limit's method; wind for a wind limit). No data wins over a broken limit.
- * - each limit is met (inclusive, Convention 6), met at OPLIM only (Hs limits between
+ * - each limit is met (inclusive, docs/domain.md#convention-6), met at OPLIM only (Hs limits between
  *   alpha * OPLIM and OPLIM: marginal), or broken. Outside the Hs-Tp curve's closed Tp range the
  *   curve is broken; inside, its Hs limit is interpolated linearly and alpha is looked up at that
- *   value (Convention 5). A Tp inside a closed excluded band, edges included, breaks the band.
+ *   value (docs/domain.md#convention-5). A Tp inside a closed excluded band, edges included, breaks the band.
  * - status: not workable if any limit is broken, else marginal if an Hs limit is met only at
  *   OPLIM, else workable.
  *
@@ -182,7 +182,7 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
       }
     }
     if (hasBands) {
-      // Closed bands (Convention 6): inside, edges included, is broken; the relative margin is the
+      // Closed bands (docs/domain.md#convention-6): inside, edges included, is broken; the relative margin is the
       // distance to the nearest edge over that edge's Tp, negative inside.
       cls = 0;
       rel = Infinity;

@@ -4,7 +4,7 @@ import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './
 
 /** Options of {@link evaluateStatus}. */
 export interface EvaluateStatusOptions {
-  /** Apply alpha (OPWF = alpha * OPLIM on the Hs limits). Default true; false plans on OPLIM (Convention 14). */
+  /** Apply alpha (OPWF = alpha * OPLIM on the Hs limits). Default true; false plans on OPLIM (docs/domain.md#convention-14). */
   alpha?: boolean;
   alphaTable: AlphaTable;
   /** Buffer to write into, at least as long as the series (its first n entries are written). */
@@ -26,12 +26,12 @@ const CLASS_TO_STATUS = (() => {
 
 /**
  * Hourly status only (no limiting factor, no margin): the same status as evaluateHours
- * (DOMAIN.md, "Operations and limits", Conventions 5-7), faster, for hindcast statistics where
+ * (docs/domain.md#operations-and-limits, #convention-5 to #convention-7), faster, for hindcast statistics where
  * only workable / marginal / not workable / no data counts.
  *
  * Method: one small pass over the records per limit, each raising a per-record class (0 met,
  * 1 marginal, 2 broken) in the output buffer, after a pass that marks records missing a needed
- * value (Convention 7, no data wins); a last pass maps classes to STATUS codes. Every pass is a
+ * value (docs/domain.md#convention-7, no data wins); a last pass maps classes to STATUS codes. Every pass is a
  * short loop of one kind, so the JIT compiles each once for all operations (one loop with a branch
  * per limit type is recompiled whenever an operation with a new mix of limits comes along).
  *
@@ -89,7 +89,7 @@ function breakBelow(v: Float64Array, min: number, cls: Uint8Array): void {
   for (let i = 0; i < cls.length; i++) if (v[i] < min && cls[i] < 2) cls[i] = 2;
 }
 
-/** A closed excluded band [from, to]: inside, edges included, broken (Convention 6). */
+/** A closed excluded band [from, to]: inside, edges included, broken (docs/domain.md#convention-6). */
 function breakInside(v: Float64Array, from: number, to: number, cls: Uint8Array): void {
   for (let i = 0; i < cls.length; i++) {
     const x = v[i];
@@ -99,7 +99,7 @@ function breakInside(v: Float64Array, from: number, to: number, cls: Uint8Array)
 
 /**
  * Hs-Tp curve: outside its closed Tp range broken; inside, OPLIM by linear interpolation and
- * OPWF = alpha(OPLIM) * OPLIM (Convention 5). Hs at or below (lowest curve Hs) * (lowest alpha)
+ * OPWF = alpha(OPLIM) * OPLIM (docs/domain.md#convention-5). Hs at or below (lowest curve Hs) * (lowest alpha)
  * meets OPWF anywhere and Hs above the highest curve Hs breaks OPLIM anywhere, so only the records
  * in between need the interpolation.
  */

@@ -63,7 +63,7 @@ function curveAt(curve: [number, number][], tp: number): number | null {
 /**
  * Every limit of an operation tested against one hour, written plainly (one limit at a time) so
  * the board can show the chain behind a status: value, OPLIM, OPWF = alpha*OPLIM, margin.
- * Follows DOMAIN.md Conventions 5-7 (alpha on Hs limits only; inclusive limits; closed bands;
+ * Follows docs/domain.md#convention-5 to #convention-7 (alpha on Hs limits only; inclusive limits; closed bands;
  * outside the curve's Tp range is not workable; no data wins).
  */
 export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaTable, options: { alpha?: boolean } = {}): { status: HourStatus; checks: LimitCheck[] } {

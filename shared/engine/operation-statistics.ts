@@ -19,7 +19,7 @@ export function createEngineWorkspace(capacity: number): EngineWorkspace {
 
 /** Options of {@link operationStatistics}. */
 export interface OperationStatisticsOptions {
-  /** Apply alpha; default true. false gives the statistics "without alpha" (Convention 14). */
+  /** Apply alpha; default true. false gives the statistics "without alpha" (docs/domain.md#convention-14). */
   alpha?: boolean;
   alphaTable: AlphaTable;
   /** dt, ms; default the series' median spacing. */
@@ -43,7 +43,7 @@ export interface OperationStatisticsResult {
 }
 
 /**
- * Hindcast statistics of one operation at one worksite (DOMAIN.md, "Hindcast statistics"):
+ * Hindcast statistics of one operation at one worksite (docs/domain.md#hindcast-statistics:
  * evaluateStatus, then monthlyStatistics with the go-starts for TR = TPOP + TC found in the same
  * backward pass (the same flags as goStarts gives, returned for campaigns).
  *

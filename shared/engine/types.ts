@@ -2,8 +2,8 @@
  * Types and codes of the go/no-go engine.
  *
  * The engine takes worksite series that are already transformed to the worksite depth (see
- * `shared/waves`) and tests every record against an operation's limits, as defined in DOMAIN.md,
- * "Operations and limits", "Weather windows" and "Hindcast statistics", Conventions 5-16.
+ * `shared/waves`) and tests every record against an operation's limits, as defined in docs/domain.md
+ * (#operations-and-limits, #weather-windows, #hindcast-statistics, #convention-5 to #convention-16).
  */
 
 /**
@@ -11,7 +11,7 @@
  * NaN marks a missing value. Times are UTC epoch milliseconds, strictly ascending.
  */
 export interface SiteSeries {
-  /** Record start times, UTC epoch ms, strictly ascending. Each record stands for [t, t + dt). */
+  /** Record start times, UTC epoch ms, strictly ascending. Each record stands for [t, t + dt_i), dt_i its local step (record-steps.ts). */
   timeMs: Float64Array;
   /** Significant wave height Hm0 at the worksite, m. */
   hsM: Float64Array;
@@ -30,7 +30,7 @@ export type BedVelocityMethod = 'linear' | 'soulsby';
 
 /**
  * Limits of one operation. Every limit is optional (absent, undefined or null), but at least one
- * must be set. All limits are inclusive (Convention 6).
+ * must be set. All limits are inclusive (docs/domain.md#convention-6).
  */
 export interface OperationLimits {
   /** Hs max at OPLIM, m. */
@@ -99,7 +99,7 @@ export interface HourlyEvaluation {
   marginRel: Float32Array;
 }
 
-/** Smallest margins of a window (Convention 16). */
+/** Smallest margins of a window (docs/domain.md#convention-16). */
 export interface WindowMargin {
   /** Per limit: min over the window of (limit - value) in the limit's unit (m, s, m/s). */
   perLimit: Partial<Record<LimitName, number>>;
@@ -107,7 +107,7 @@ export interface WindowMargin {
   relative: number;
 }
 
-/** A usable weather window (Conventions 10 and 16). */
+/** A usable weather window (docs/domain.md#convention-10 and #convention-16). */
 export interface UsableWindow {
   /** Index of the window's first record. */
   startIndex: number;
@@ -115,9 +115,9 @@ export interface UsableWindow {
   count: number;
   /** Start, UTC epoch ms (the first record's time). */
   startMs: number;
-  /** Exclusive end, UTC epoch ms: start + count * dt. */
+  /** Exclusive end, UTC epoch ms: start + the sum of the records' durations (count * dt with one step). */
   endMs: number;
-  /** Length count * dt, h. */
+  /** Length: the sum of the records' durations (local steps, record-steps.ts), h. */
   hours: number;
   minMargin: WindowMargin;
 }

@@ -17,7 +17,7 @@ export const ProjectSettingsInput = z.object({
   dataPointName: storableText(z.string().trim().max(120)),
   dataPointLatitude: z.number().min(-90).max(90).nullable(),
   dataPointLongitude: z.number().min(-180).max(180).nullable(),
-  /** metres; null = deep water (DOMAIN Convention 1) */
+  /** metres; null = deep water (docs/domain.md#convention-1) */
   dataPointDepthM: z.number().min(0.5, 'must be at least 0.5 m').max(11000).nullable(),
   forecastSource: z.enum(FORECAST_SOURCES),
 }).refine((v) => v.forecastSource !== 'service' || (v.dataPointLatitude !== null && v.dataPointLongitude !== null), {

@@ -15,7 +15,7 @@
  * A header line met again later (files joined end to end) is read anew. LF and CRLF line endings
  * are both accepted, also mixed in one file (the 1997 test file switches from LF to CRLF).
  *
- * Mapping (DOMAIN.md "Data sources to read"): WVHT → hs (m), DPD (dominant period) → tp (s),
+ * Mapping (docs/domain.md#ndbc): WVHT → hs (m), DPD (dominant period) → tp (s),
  * APD (average period) → tz (s), MWD → dir (deg, from), WSPD → wind (m/s), WDIR or WD → windDir
  * (deg, from). Te is not in the format and stays NaN; no period is derived here (the import
  * service derives missing periods and marks them as derived). Other columns are ignored.
@@ -27,13 +27,13 @@
  * Years below 100 are read as 1900 + YY (NDBC wrote 2-digit years only up to 1998).
  *
  * Rows are kept as records even when every mapped value is missing (a buoy row with no data is a
- * "no data" hour, DOMAIN.md Convention 12; the 1997 test file has 67 such rows), and realtime
+ * "no data" hour, docs/domain.md#convention-12; the 1997 test file has 67 such rows), and realtime
  * 10-minute rows are kept whether they carry waves or wind only: the record count equals the data
  * row count of the file.
  *
  * Wind: NDBC gives WSPD at the anemometer height (about 4-5 m on many buoys). By default the
  * value is kept as is; with `anemometerHeightM` it is brought to 10 m by the 1/7 power law
- * (common practice, DOMAIN.md), see `windSpeedAt10m`.
+ * (docs/domain.md#ndbc), see `windSpeedAt10m`.
  *
  * Limits (limits.ts): a line longer than MAX_LINE_CHARS (1 MiB) or with more than MAX_COLUMNS
  * fields refuses the whole file, naming the line and the character or field past the limit.

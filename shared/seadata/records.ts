@@ -1,12 +1,12 @@
 /**
  * Columnar sea-state records: the result of every importer (CSV, NDBC, forecast service).
  *
- * One record is one time with the sea state of DOMAIN.md "Sea states": significant wave height,
+ * One record is one time with the sea state of docs/domain.md#sea-states: significant wave height,
  * the periods that were given, mean wave direction, and the wind at 10 m. Long series are kept as
  * one Float64Array per variable ("columnar"), so 30 years of hourly records (about 263,000) cost
  * about 17 MB and read back without per-record objects.
  *
- * Units (SI, DOMAIN.md "Units and conventions"):
+ * Units (SI, docs/domain.md#units):
  * - `timeMs`: UTC instant in milliseconds since 1970-01-01T00:00Z (as `Date.getTime()`).
  * - `hs`: significant wave height Hm0, m.
  * - `tp`: peak period, s. `tz`: mean zero-crossing period, s. `te`: energy period Tm-1,0, s.
@@ -163,7 +163,7 @@ export function emptySeaRecords(): SeaRecords {
 }
 
 /**
- * Time step of a series: the median spacing of consecutive records (DOMAIN.md Convention 9),
+ * Time step of a series: the median spacing of consecutive records (docs/domain.md#convention-9),
  * in minutes. For an even number of spacings the two middle values are averaged.
  *
  * @param timeMs record times, UTC ms, sorted ascending (NaN entries are skipped).
@@ -194,7 +194,7 @@ export interface SeaRecordsSummary {
   startMs: number;
   /** Last record time, UTC ms (NaN when empty). */
   endMs: number;
-  /** Median spacing, minutes (DOMAIN.md Convention 9); NaN with fewer than two records. */
+  /** Median spacing, minutes (docs/domain.md#convention-9); NaN with fewer than two records. */
   stepMinutes: number;
   /** Variables present (not NaN) in at least one record, in {@link SEA_VARIABLES} order. */
   variables: SeaVariable[];
@@ -230,8 +230,8 @@ export const GIVEN_TZ = 2;
 export const GIVEN_TE = 4;
 
 /**
- * Which periods each record carried in the source (DOMAIN.md: "keep, for each record, which
- * periods were given and which were derived"). The importers never derive periods, so a period
+ * Which periods each record carried in the source (docs/domain.md#sea-states: each record
+ * remembers which periods came from the source). The importers never derive periods, so a period
  * is "given" exactly when it is not NaN at import time. Compute this before any derivation.
  *
  * @returns one byte per record: GIVEN_TP | GIVEN_TZ | GIVEN_TE bits.

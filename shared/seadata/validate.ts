@@ -2,7 +2,7 @@
  * Plausibility rules for imported sea states (issue 4) and the row validator shared by the CSV
  * and NDBC readers.
  *
- * Rules (all bounds inclusive, as DOMAIN.md Convention 6 treats limits):
+ * Rules (all bounds inclusive, as docs/domain.md#convention-6 treats limits):
  * - time: must parse (the reader reports the reason); times must strictly increase in file order
  *   (a repeat is "duplicated", an earlier one "out of order"). With `order: 'auto'` (NDBC) the
  *   first two accepted rows fix the direction, so newest-first realtime files are accepted and
@@ -10,7 +10,7 @@
  * - hs: 0 ≤ Hs ≤ {@link HS_MAX_M} m. 0 is accepted (flat calm, sheltered sites).
  * - tp, tz, te: {@link PERIOD_MIN_S} ≤ T ≤ {@link PERIOD_MAX_S} s.
  * - dir, windDir: 0 ≤ θ ≤ 360 degrees; 360 is accepted and stored as 0 (both mean north; storage
- *   is [0, 360) per DOMAIN.md "Units and conventions").
+ *   is [0, 360) per docs/domain.md#units).
  * - wind: 0 ≤ U ≤ {@link WIND_MAX_MS} m/s (checked after unit conversion and height correction).
  * - a file with no usable record (no row with a valid time and at least one value) is refused in
  *   both modes.

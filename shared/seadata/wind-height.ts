@@ -3,7 +3,7 @@
  *
  *   U10 = Uz * (10 / z)^(1/7)
  *
- * Source: DOMAIN.md "Data sources to read" (a 1/7 power law to 10 m is common practice, no
+ * Source: docs/domain.md#ndbc (a 1/7 power law to 10 m is common practice, no
  * published source quoted there). It assumes a neutral atmosphere; over open sea the true
  * exponent is often smaller, so the correction from buoy height (about 4-5 m) is modest: about
  * +10 % to +14 %.

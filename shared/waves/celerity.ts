@@ -21,7 +21,7 @@ export interface Celerities {
  * Phase celerity C = omega/k and group celerity Cg = n*C of a linear wave, with
  * n = (1 + 2kd/sinh(2kd))/2 (Airy theory; Shore Protection Manual 1984 Ch. 2; CEM EM 1110-2-1100
  * Part II-1). In deep water (depth Infinity, or k0*d >= 20 where tanh = 1 to double precision)
- * C = C0 = g*T/(2*pi) and Cg = C0/2 exactly (Convention 1).
+ * C = C0 = g*T/(2*pi) and Cg = C0/2 exactly (docs/domain.md#convention-1).
  *
  * @param periodS - wave period T, s, > 0 and finite.
  * @param depthM - water depth d, m, > 0; Infinity means deep water.

@@ -1,6 +1,6 @@
 /**
  * Wave physics core: linear (Airy) wave theory, sea states and the transformation of sea states
- * from a data point to a worksite. Pure TypeScript, SI units (see ../DOMAIN.md).
+ * from a data point to a worksite. Pure TypeScript, SI units (see docs/domain.md#units).
  */
 
 // Constants and numerics

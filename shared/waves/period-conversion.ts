@@ -4,7 +4,7 @@
  * a record's periods from whichever were given.
  */
 
-/** Default JONSWAP peak enhancement factor (DNV-RP-C205; ../DOMAIN.md "Sea states"). */
+/** Default JONSWAP peak enhancement factor (DNV-RP-C205; docs/domain.md#sea-states). */
 export const JONSWAP_GAMMA_DEFAULT = 3.3;
 
 /** Range of gamma the DNV-RP-C205 ratio polynomials are given for (1 <= gamma <= 7). */
@@ -12,7 +12,7 @@ export const JONSWAP_GAMMA_MIN = 1;
 export const JONSWAP_GAMMA_MAX = 7;
 
 /**
- * Te/Tp used when Te is not given and gamma is 3.3: 0.90 (Convention 8 of ../DOMAIN.md).
+ * Te/Tp used when Te is not given and gamma is 3.3: 0.90 (docs/domain.md#convention-8).
  * The integrated JONSWAP shape gives 0.9033 at gamma 3.3; the convention's round figure wins.
  */
 export const TE_OVER_TP_CONVENTION = 0.9;
@@ -24,7 +24,7 @@ function assertGamma(gamma: number): void {
 }
 
 /**
- * Tz/Tp for a JONSWAP spectrum, DNV-RP-C205 (as quoted in ../DOMAIN.md, from memory):
+ * Tz/Tp for a JONSWAP spectrum, DNV-RP-C205 (as written in docs/domain.md#sea-states, from memory):
  * Tz/Tp = 0.6673 + 0.05037*gamma - 0.006230*gamma^2 + 0.0003341*gamma^3.
  *
  * @param gamma - peak enhancement factor, 1 <= gamma <= 7 (default 3.3).
@@ -38,7 +38,7 @@ export function jonswapTzOverTp(gamma: number = JONSWAP_GAMMA_DEFAULT): number {
 }
 
 /**
- * Tm01/Tp for a JONSWAP spectrum, DNV-RP-C205 (as quoted in ../DOMAIN.md, from memory):
+ * Tm01/Tp for a JONSWAP spectrum, DNV-RP-C205 (as written in docs/domain.md#sea-states, from memory):
  * Tm01/Tp = 0.7303 + 0.04936*gamma - 0.006556*gamma^2 + 0.0003610*gamma^3.
  *
  * @param gamma - peak enhancement factor, 1 <= gamma <= 7 (default 3.3).
@@ -113,7 +113,7 @@ export function jonswapShapeMoments(gamma: number): JonswapShapeMoments {
  * Te/Tp (energy period Tm-1,0 = m_-1/m_0 over the peak period) of a JONSWAP spectrum, by
  * numerical integration of the spectral shape (`jonswapShapeMoments`). 0.8572 for gamma = 1
  * (Pierson-Moskowitz: closed form 1.25^(-1/4)*Gamma(5/4)), 0.9033 for gamma = 3.3.
- * For the completion of a record's periods, `completePeriods` uses 0.90 at gamma 3.3 (Convention 8).
+ * For the completion of a record's periods, `completePeriods` uses 0.90 at gamma 3.3 (docs/domain.md#convention-8).
  *
  * @param gamma - peak enhancement factor, 1 <= gamma <= 7 (default 3.3).
  * @returns Te/Tp, dimensionless.
@@ -126,7 +126,7 @@ export function jonswapTeOverTp(gamma: number = JONSWAP_GAMMA_DEFAULT): number {
 }
 
 /**
- * The Te/Tp ratio used to complete a record's periods: 0.90 at gamma = 3.3 (Convention 8),
+ * The Te/Tp ratio used to complete a record's periods: 0.90 at gamma = 3.3 (docs/domain.md#convention-8),
  * otherwise the integrated JONSWAP value `jonswapTeOverTp(gamma)`.
  *
  * @param gamma - peak enhancement factor, 1 <= gamma <= 7 (default 3.3).
@@ -177,13 +177,13 @@ function assertPeriod(name: string, value: number): void {
 
 /**
  * Completes a record's periods Tp, Tz, Te from those given, for a JONSWAP spectrum with peak
- * enhancement gamma, and records which were given and which derived (../DOMAIN.md "Sea states",
- * Convention 8). Order of preference:
+ * enhancement gamma, and records which were given and which derived (docs/domain.md#sea-states,
+ * docs/domain.md#convention-8). Order of preference:
  * 1. Tp: as given; else from Tz (Tp = Tz / (Tz/Tp), DNV-RP-C205 ratio), since Tz is the period a
  *    buoy or hindcast usually gives next to Hs and its ratio is the published one; else from Te
  *    (Tp = Te / (Te/Tp)).
  * 2. Tz: as given; else from Tp by the DNV-RP-C205 ratio.
- * 3. Te: as given; else from Tp: 0.90*Tp at gamma 3.3 (Convention 8), the integrated JONSWAP
+ * 3. Te: as given; else from Tp: 0.90*Tp at gamma 3.3 (docs/domain.md#convention-8), the integrated JONSWAP
  *    ratio for any other gamma.
  * Given periods are never altered, even if they disagree with the ratios.
  *

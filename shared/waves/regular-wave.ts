@@ -76,8 +76,8 @@ function assertFinite(name: string, value: number, min: number, inclusive: boole
 
 /**
  * Linear (Airy) theory for one regular wave: wavelength, celerities, depth class, shoaling
- * coefficient, bed velocity and excursion, energy and power (formulas in ../DOMAIN.md, "Linear
- * (Airy) theory"; SPM 1984 Ch. 2; CEM EM 1110-2-1100 Part II-1). Overflow-safe for any depth:
+ * coefficient, bed velocity and excursion, energy and power (formulas in docs/domain.md#dispersion;
+ * SPM 1984 Ch. 2; CEM EM 1110-2-1100 Part II-1). Overflow-safe for any depth:
  * 1/sinh(k*d) is evaluated as 2exp(-kd)/(1 - exp(-2kd)).
  *
  * @param params - H (m, >= 0), T (s, > 0), d (m, > 0 or Infinity), g (m/s2), rho (kg/m3).
@@ -150,7 +150,7 @@ function isRegularWave(value: RegularWave | RegularWaveParams): value is Regular
 
 /**
  * Orbital velocity amplitudes u(z), w(z) and pressure response factor Kp(z) of a linear wave at
- * elevation z (upward from still water level; the bed is at z = -d), per ../DOMAIN.md:
+ * elevation z (upward from still water level; the bed is at z = -d), per docs/domain.md#dispersion:
  * u = (pi*H/T) cosh(k(z+d))/sinh(kd), w = (pi*H/T) sinh(k(z+d))/sinh(kd),
  * Kp = cosh(k(z+d))/cosh(kd) (SPM 1984 Ch. 2; CEM EM 1110-2-1100 Part II-1).
  *

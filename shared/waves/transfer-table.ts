@@ -1,6 +1,6 @@
 /**
  * Transfer tables: site-specific Hs_site/Hs_src factors by direction sector and Tp band, from a
- * wave model study (../DOMAIN.md "From the data point to the worksite"; Convention 17).
+ * wave model study (docs/domain.md#transformation, #convention-17).
  */
 import { wrapDegrees360 } from './angles';
 
@@ -64,7 +64,7 @@ function inSector(dir: number, lo: number, hi: number): boolean {
 
 /**
  * Index of the direction sector a direction falls in: sectors are half-open [from, to)
- * (Convention 17); a direction in none of them takes the sector with the nearest edge (angular
+ * (docs/domain.md#convention-17); a direction in none of them takes the sector with the nearest edge (angular
  * distance; ties go to the sector listed first). The first matching sector wins when they overlap.
  *
  * @param table - a valid transfer table.
@@ -90,7 +90,7 @@ export function transferSectorIndex(table: TransferTable, dirDeg: number): numbe
 }
 
 /**
- * Index of the Tp band a period falls in: bands are half-open [from, to) (Convention 17); a period
+ * Index of the Tp band a period falls in: bands are half-open [from, to) (docs/domain.md#convention-17); a period
  * in none of them (below the first, above the last, or in a gap) takes the band with the nearest
  * edge (ties go to the band listed first). The first matching band wins when they overlap.
  *
@@ -117,7 +117,7 @@ export function transferBandIndex(table: TransferTable, tpS: number): number {
 }
 
 /**
- * Hs_site/Hs_src of a transfer table for one direction and peak period (Convention 17).
+ * Hs_site/Hs_src of a transfer table for one direction and peak period (docs/domain.md#convention-17).
  *
  * @param table - a valid transfer table.
  * @param dirDeg - direction "coming from", degrees.

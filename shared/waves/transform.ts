@@ -1,6 +1,6 @@
 /**
- * Transformation of sea states from the data point to a worksite (../DOMAIN.md "From the data
- * point to the worksite", steps 1-6, and Conventions 1-4, 8 and 17): refraction over straight,
+ * Transformation of sea states from the data point to a worksite (docs/domain.md#transformation,
+ * steps 1-6, and #convention-1 to #convention-4, #convention-8 and #convention-17): refraction over straight,
  * parallel depth contours (Snell's law), shoaling by conservation of energy flux (linear theory at
  * Tp), a depth limit, or a transfer table instead of refraction and shoaling.
  *
@@ -21,7 +21,7 @@ export type { TransferTable } from './transfer-table';
 
 /** The data point of a dataset. */
 export interface SourcePoint {
-  /** Water depth at the data point, m, > 0; Infinity = deep water (unknown depth, Convention 1). */
+  /** Water depth at the data point, m, > 0; Infinity = deep water (unknown depth, docs/domain.md#convention-1). */
   depthM: number;
 }
 
@@ -54,9 +54,9 @@ export interface SeaSeriesInput {
 
 /** Per-record flags of the transformation (bits). */
 export const TRANSFORM_FLAG = {
-  /** |theta_src| >= 90 deg: sea from the landward side; shoaling only, direction kept (Convention 2). */
+  /** |theta_src| >= 90 deg: sea from the landward side; shoaling only, direction kept (docs/domain.md#convention-2). */
   LANDWARD: 1,
-  /** Hs capped at gamma_b*d (Convention 4: only when strictly greater). */
+  /** Hs capped at gamma_b*d (docs/domain.md#convention-4: only when strictly greater). */
   DEPTH_LIMITED: 2,
   /** |sin(theta_site)| would reach or exceed 1 (site deeper than the data point): Kr = 1, direction kept. */
   REFRACTION_SKIPPED: 4,
@@ -90,7 +90,7 @@ export interface SiteSeries {
   flags: Uint8Array;
   /** Linear significant bed velocity at the worksite, pi*Hs/(Tp*sinh(k_p*d)), m/s. */
   bedVelocityLinearMps: Float64Array;
-  /** Soulsby (2006) significant bed velocity at the worksite, m/s (Tz per Convention 8). */
+  /** Soulsby (2006) significant bed velocity at the worksite, m/s (Tz per docs/domain.md#convention-8). */
   bedVelocitySoulsbyMps: Float64Array;
 }
 
@@ -98,7 +98,7 @@ export interface SiteSeries {
 export interface TransformOptions {
   /** Gravitational acceleration, m/s2 (default 9.81). */
   g?: number;
-  /** JONSWAP gamma for Tz from Tp when Tz is missing (default 3.3, Convention 8). */
+  /** JONSWAP gamma for Tz from Tp when Tz is missing (default 3.3, docs/domain.md#convention-8). */
   gamma?: number;
   /** Output arrays to fill (each of the input length), to avoid allocation in repeated runs. */
   out?: SiteSeries;
@@ -192,7 +192,7 @@ const STRIDE = 5;
 const T_CRATIO = 0;
 const T_KS = 1;
 const T_LIN = 2;
-const T_SOUL = 3; // Soulsby velocity per Hs with Tz from Tp (Convention 8)
+const T_SOUL = 3; // Soulsby velocity per Hs with Tz from Tp (docs/domain.md#convention-8)
 const T_BAND = 4; // transfer-table Tp band
 
 // Layout of the per-direction cache (one row of DSTRIDE doubles per distinct direction).
@@ -208,22 +208,22 @@ const MODE_REFRACT = 1;
 const MODE_TABLE = 2;
 
 /**
- * Transforms a series of sea states from the data point to a worksite (../DOMAIN.md steps 1-6):
+ * Transforms a series of sea states from the data point to a worksite (docs/domain.md#transformation, steps 1-6):
  * 1. theta_src = wrap to (-180, 180] of (Dir - beta); no bearing: Kr = 1, direction kept;
  *    |theta_src| >= 90: LANDWARD, shoaling only, direction kept.
  * 2. Snell: sin(theta_site) = (C_site/C_src) sin(theta_src), Kr = sqrt(cos(theta_src)/cos(theta_site));
  *    if |sin(theta_site)| >= 1 (site deeper than the data point): REFRACTION_SKIPPED, Kr = 1,
- *    direction kept. (Convention 2 says "exceeds 1"; at exactly 1 Kr would be infinite, so that
+ *    direction kept. (docs/domain.md#convention-2 says "exceeds 1"; at exactly 1 Kr would be infinite, so that
  *    grazing case is skipped too.)
- * 3. Ks = sqrt(Cg_src/Cg_site), linear theory at Tp (Convention 1 for an unknown source depth).
+ * 3. Ks = sqrt(Cg_src/Cg_site), linear theory at Tp (docs/domain.md#convention-1 for an unknown source depth).
  * 4. Hs_site = Hs_src*Ks*Kr; direction beta + theta_site wrapped to [0, 360).
  *    With a transfer table instead of 1-4: Hs_site = Hs_src*factor(sector, band), direction kept,
- *    TRANSFER_TABLE, ks = factor, kr = 1 (Convention 17). The table needs the direction, so a
+ *    TRANSFER_TABLE, ks = factor, kr = 1 (docs/domain.md#convention-17). The table needs the direction, so a
  *    missing direction makes the record missing.
- * 5. Hs_site > gamma_b*d_site (strictly): capped, DEPTH_LIMITED (Convention 4).
+ * 5. Hs_site > gamma_b*d_site (strictly): capped, DEPTH_LIMITED (docs/domain.md#convention-4).
  * 6. Periods unchanged. Bed velocities at the worksite use Hs after the cap, Tp (linear) and Tz
- *    (Soulsby; from the record, else Tz = (Tz/Tp)(gamma)*Tp, Convention 8), at the site depth.
- * Missing (Convention 3): Hs or Tp NaN, negative or infinite, or (with a bearing or a table) the
+ *    (Soulsby; from the record, else Tz = (Tz/Tp)(gamma)*Tp, docs/domain.md#convention-8), at the site depth.
+ * Missing (docs/domain.md#convention-3): Hs or Tp NaN, negative or infinite, or (with a bearing or a table) the
  * direction NaN: every output is NaN and the flag is MISSING_INPUT. Invariant for every other
  * record: hs before the cap = Hs_src*ks*kr (to float32 rounding of ks, kr).
  *
@@ -402,7 +402,7 @@ export function transformToSite(
       flags |= TRANSFORM_FLAG.DEPTH_LIMITED;
     }
 
-    // Soulsby factor: Tz from the record (cached by exact Tz), else from Tp (Convention 8).
+    // Soulsby factor: Tz from the record (cached by exact Tz), else from Tp (docs/domain.md#convention-8).
     const tz = tzIn[i];
     let soul: number;
     if (tz > 0 && tz < Infinity) {

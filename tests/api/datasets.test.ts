@@ -6,8 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, signInAll, type TestApp } from '../support/app';
 import { createApp } from '../../server/app';
 
-// Real NDBC buoy data (public domain, NOAA NDBC), kept beside the repo in ../shared/data/ndbc.
-const NDBC_DIR = path.resolve(import.meta.dirname, '../../../shared/data/ndbc');
+// Real NDBC buoy data (public domain, NOAA NDBC), in tests/fixtures/ndbc (provenance in its README).
+const NDBC_DIR = path.resolve(import.meta.dirname, '../fixtures/ndbc');
 
 let t: TestApp;
 let as: Awaited<ReturnType<typeof signInAll>>;
@@ -36,7 +36,7 @@ describe('importing sea-state files', () => {
       .field('dataPointDepth', 'deep')
       .attach('file', path.join(NDBC_DIR, '46026h2016.txt'));
     expect(res.status, res.text).toBe(201);
-    // README of ../shared/data/ndbc: 8655 data rows, 2015-12-31 23:50 to 2016-12-31 22:50 UTC.
+    // tests/fixtures/ndbc/README.md: 8655 data rows, 2015-12-31 23:50 to 2016-12-31 22:50 UTC.
     expect(res.body.records).toBe(8655);
     expect(res.body.start).toBe('2015-12-31T23:50:00.000Z');
     expect(res.body.end).toBe('2016-12-31T22:50:00.000Z');
@@ -53,7 +53,7 @@ describe('importing sea-state files', () => {
     expect(recs.body.dir).toEqual([276, 274]);
     expect(recs.body.windDir).toEqual([100, 43]);
     expect(recs.body.given.tp).toEqual([true, true]);
-    expect(recs.body.given.te).toEqual([false, false]); // Te derived from Tp (DOMAIN Convention 8)
+    expect(recs.body.given.te).toEqual([false, false]); // Te derived from Tp (docs/domain.md#convention-8)
     expect(recs.body.te[0]).toBeCloseTo(0.9 * 13.79, 1);
 
     const detail = await as.skipper.get(`${base}/${res.body.id}`);

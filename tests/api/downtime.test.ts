@@ -97,7 +97,7 @@ describe('workability statistics', () => {
     }
   });
 
-  it('never shows less workability without alpha (Convention 14)', async () => {
+  it('never shows less workability without alpha (docs/domain.md#convention-14)', async () => {
     const withAlpha = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
     const without = (await as.client.get(`${base}/workability?alpha=false`)).body as WorkabilityEntry[];
     expect(without).toHaveLength(withAlpha.length);

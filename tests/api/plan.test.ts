@@ -29,7 +29,7 @@ describe('the forecast plan', () => {
       expect(p.status).toHaveLength(p.times.length);
       expect(p.times.length).toBeGreaterThanOrEqual(7 * 24);
       for (const s of p.status) expect(['workable', 'marginal', 'not_workable', 'no_data']).toContain(s);
-      // A usable window is at least TR long and wholly workable (DOMAIN.md "Weather windows").
+      // A usable window is at least TR long and wholly workable (docs/domain.md#weather-windows).
       for (const w of p.windows) {
         expect(w.hours).toBeGreaterThanOrEqual(p.tr);
         const i0 = p.times.indexOf(w.start);

@@ -1,6 +1,6 @@
 // Worksites, operations, the alpha table, the audit trail and the setup document: API round
 // trips, validation, roles and all-or-nothing import. Expected values come from the request
-// bodies written here and from DOMAIN.md (alpha table, 72 h rule); none from the code under test.
+// bodies written here and from docs/domain.md#weather-restricted (alpha table, weather-restricted range); none from the code under test.
 import { count, eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -74,9 +74,9 @@ async function rowCounts(projectId: string) {
   return { sites: sites.n, ops: ops.n, audit: audit.n, alpha: alpha.n };
 }
 
-// DOMAIN.md, "Operations and limits": default alpha table (from memory of DNV-ST-N001's base case
+// docs/domain.md#weather-restricted: default alpha table (from memory of DNV-ST-N001's base case
 // for waves), copied here by hand.
-const DOMAIN_ALPHA = {
+const NOTES_ALPHA = {
   tpopBoundsH: [12, 24, 36, 48, 72],
   hsColumnsM: [1, 2, 4, 6],
   values: [
@@ -119,7 +119,7 @@ describe('worksites', () => {
       .post(`/api/projects/${A}/sites`)
       .send({ name: unique('Anchorage'), depth: 30, timeZone: 'europe/oslo' });
     expect(res.status).toBe(201);
-    // Breaker index default 0.6 for Hs (DOMAIN.md, common practice); no bearing = no refraction.
+    // Breaker index default 0.6 for Hs (docs/domain.md#transformation, common practice); no bearing = no refraction.
     expect(res.body).toMatchObject({ breakerIndex: 0.6, shoreNormal: null, latitude: null, longitude: null, timeZone: 'Europe/Oslo' });
   });
 
@@ -262,7 +262,7 @@ describe('operations', () => {
     }
   });
 
-  it('refuses a weather-restricted operation with TR = TPOP + TC above 72 h (DOMAIN.md)', async () => {
+  it('refuses a weather-restricted operation with TR = TPOP + TC above 72 h (docs/domain.md#weather-restricted)', async () => {
     const over = await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 60, tc: 13 }));
     expect(over.status).toBe(400);
     expect(fields(over)).toEqual(['weatherRestricted']);
@@ -298,32 +298,32 @@ describe('operations', () => {
 });
 
 describe('alpha table', () => {
-  it('starts from the DOMAIN.md default with the note, saves an edit and resets it', async () => {
+  it('starts from the default table of docs/domain.md#weather-restricted with the note, saves an edit and resets it', async () => {
     const first = await as.skipper.get(`/api/projects/${A}/alpha`);
     expect(first.status).toBe(200);
     expect(first.body).toEqual({
-      table: DOMAIN_ALPHA,
+      table: NOTES_ALPHA,
       isDefault: true,
       note: 'Defaults from memory of DNV-ST-N001 base case; check against the current standard.',
       updatedAt: null,
     });
 
-    const edited = { ...DOMAIN_ALPHA, values: DOMAIN_ALPHA.values.map((row, r) => (r === 0 ? [0.6, 0.7, 0.75, 0.8] : row)) };
+    const edited = { ...NOTES_ALPHA, values: NOTES_ALPHA.values.map((row, r) => (r === 0 ? [0.6, 0.7, 0.75, 0.8] : row)) };
     const put = await as.coordinator.put(`/api/projects/${A}/alpha`).send(edited);
     expect(put.status).toBe(200);
     expect(put.body).toMatchObject({ table: edited, isDefault: false });
     expect((await as.client.get(`/api/projects/${A}/alpha`)).body.table).toEqual(edited);
 
-    const bad = await as.coordinator.put(`/api/projects/${A}/alpha`).send({ ...DOMAIN_ALPHA, values: [[1.2, 0.7, 0.7, 0.7], ...DOMAIN_ALPHA.values.slice(1)] });
+    const bad = await as.coordinator.put(`/api/projects/${A}/alpha`).send({ ...NOTES_ALPHA, values: [[1.2, 0.7, 0.7, 0.7], ...NOTES_ALPHA.values.slice(1)] });
     expect(bad.status).toBe(400);
     expect(fields(bad)).toContain('values.0.0');
-    const unsorted = await as.coordinator.put(`/api/projects/${A}/alpha`).send({ ...DOMAIN_ALPHA, tpopBoundsH: [12, 24, 24, 48, 72] });
+    const unsorted = await as.coordinator.put(`/api/projects/${A}/alpha`).send({ ...NOTES_ALPHA, tpopBoundsH: [12, 24, 24, 48, 72] });
     expect(unsorted.status).toBe(400);
     expect(fields(unsorted)).toContain('tpopBoundsH.2');
 
     const reset = await as.coordinator.delete(`/api/projects/${A}/alpha`);
     expect(reset.status).toBe(200);
-    expect(reset.body).toMatchObject({ table: DOMAIN_ALPHA, isDefault: true });
+    expect(reset.body).toMatchObject({ table: NOTES_ALPHA, isDefault: true });
   });
 });
 
@@ -377,7 +377,7 @@ describe('roles and project boundaries', () => {
       ['post', `/api/projects/${A}/operations`, opBody()],
       ['patch', `/api/projects/${A}/operations/${op.id}`, { limits: { hsMax: 3 } }],
       ['delete', `/api/projects/${A}/operations/${op.id}`, {}],
-      ['put', `/api/projects/${A}/alpha`, DOMAIN_ALPHA],
+      ['put', `/api/projects/${A}/alpha`, NOTES_ALPHA],
       ['delete', `/api/projects/${A}/alpha`, {}],
       ['post', `/api/projects/${A}/import?mode=replace`, { format: 'lullwatch-setup' }],
     ];
@@ -468,12 +468,12 @@ describe('audit trail', () => {
     expect(entries[0].before.depth).toBe(14);
     expect(entries[0].after.depth).toBe(9);
 
-    const edited = { ...DOMAIN_ALPHA, values: DOMAIN_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.01) * 100) / 100)) };
+    const edited = { ...NOTES_ALPHA, values: NOTES_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.01) * 100) / 100)) };
     await as.coordinator.put(`/api/projects/${A}/alpha`).send(edited);
     const alpha = await as.coordinator.get(`/api/projects/${A}/audit?entity=alpha&limit=1`);
     expect(alpha.body[0]).toMatchObject({
       action: 'update',
-      before: { table: DOMAIN_ALPHA, isDefault: true },
+      before: { table: NOTES_ALPHA, isDefault: true },
       after: { table: edited, isDefault: false },
     });
     await as.coordinator.delete(`/api/projects/${A}/alpha`);
@@ -518,7 +518,7 @@ describe('setup export and import', () => {
     const south = await createSite(as.coordinator, A, { name: unique('Substation'), depth: 40, shoreNormal: null });
     const twoSites = await createOp(as.coordinator, A, { siteIds: [north.id, south.id], skipperIds: [t.demo.users.skipper] });
     await createOp(as.coordinator, A, { limits: { hsTpCurve: [[4, 1], [10, 2]], windMax: 14 }, weatherRestricted: false, tpop: 200, tc: 40 });
-    const alpha = { ...DOMAIN_ALPHA, values: DOMAIN_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.02) * 100) / 100)) };
+    const alpha = { ...NOTES_ALPHA, values: NOTES_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.02) * 100) / 100)) };
     expect((await as.coordinator.put(`/api/projects/${A}/alpha`).send(alpha)).status).toBe(200);
     // Something in B that the replace must remove.
     const old = await createSite(as.coordinator, B, { name: unique('Old pontoon') });
@@ -613,7 +613,7 @@ describe('setup export and import', () => {
   // Issue 22, item 2: a merge used to set the file's alpha table (here: the default) over a
   // project's own table without a word; the file's data point was dropped without a word.
   it('merge keeps the project’s own alpha table unless asked to take the file’s, and says what it did with the data point', async () => {
-    const own = { ...DOMAIN_ALPHA, values: DOMAIN_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.05) * 100) / 100)) };
+    const own = { ...NOTES_ALPHA, values: NOTES_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.05) * 100) / 100)) };
     expect((await as.coordinator.put(`/api/projects/${A}/alpha`).send(own)).status).toBe(200);
     const projectBefore = (await as.coordinator.get(`/api/projects/${A}`)).body;
     const doc = () => ({

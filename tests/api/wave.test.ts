@@ -26,7 +26,7 @@ describe('wave calculator API', () => {
     for (const key of ['groupCelerity', 'n', 'shoalingCoefficient', 'bedVelocity', 'bedExcursion', 'energyDensity', 'power', 'horizontalVelocity', 'verticalVelocity', 'pressureFactor']) {
       expect(Number.isFinite(res.body[key]), key).toBe(true);
     }
-    // Energy density E = rho g H^2 / 8 with rho = 1025 kg/m3, g = 9.81 m/s2 (DOMAIN.md defaults).
+    // Energy density E = rho g H^2 / 8 with rho = 1025 kg/m3, g = 9.81 m/s2 (docs/domain.md#units defaults).
     expect(res.body.energyDensity).toBeCloseTo((1025 * 9.81 * 4) / 8, 6);
   });
 
@@ -55,9 +55,16 @@ describe('wave calculator API', () => {
     expect(table.body).toHaveLength(10);
     const sea = await client.get('/api/wave/sea-state').query({ hs: 2, tp: 10, depth: 20 });
     expect(sea.status).toBe(200);
-    expect(sea.body.periods.teS).toBeCloseTo(9, 6); // DOMAIN Convention 8: Te = 0.90 Tp
+    expect(sea.body.periods.teS).toBeCloseTo(9, 6); // docs/domain.md#convention-8: Te = 0.90 Tp
     expect(sea.body.bedVelocityLinear).toBeGreaterThan(0);
     expect(sea.body.bedVelocitySoulsby).toBeGreaterThan(0);
+  });
+
+  it('Soulsby (2006): Hs 1 m, Tp 10 s, d 10 m gives U_s = 2 U_rms, about 0.40 m/s (by hand in tests/waves/sea-state.test.ts)', async () => {
+    const sea = await client.get('/api/wave/sea-state').query({ hs: 1, tp: 10, depth: 10 });
+    expect(sea.status).toBe(200);
+    expect(Math.abs(sea.body.bedVelocitySoulsby - 0.4005)).toBeLessThan(1e-3);
+    expect(Math.abs(sea.body.bedVelocitySoulsbyRms - 0.2003)).toBeLessThan(1e-3);
   });
 
   it('is for signed-in users only', async () => {

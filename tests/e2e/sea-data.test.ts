@@ -6,8 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
 
 // NOAA NDBC station 44014, 2017 historical stdmet file (public domain), kept in the shared test data.
-const NDBC_FILE = path.resolve(import.meta.dirname, '../../../shared/data/ndbc/44014h2017.txt');
-// Data rows of that file: 8654, from the table in ../shared/data/ndbc/README.md (two header lines
+const NDBC_FILE = path.resolve(import.meta.dirname, '../fixtures/ndbc/44014h2017.txt');
+// Data rows of that file: 8654, from the table in tests/fixtures/ndbc/README.md (two header lines
 // excluded); every row there has a time and a wave height, so every row is a record.
 const NDBC_ROWS = '8,654';
 

@@ -11,7 +11,7 @@ function refYearMonth(ms: number, zone: string): [number, number] {
   return [d.getFullYear(), d.getMonth()];
 }
 
-describe('calendarIndex against @date-fns/tz (TZDate) across DST changes (Convention 11)', () => {
+describe('calendarIndex against @date-fns/tz (TZDate) across DST changes (docs/domain.md#convention-11)', () => {
   for (const zone of ['Europe/Oslo', 'Australia/Sydney', 'America/Santiago', 'Africa/Cairo', 'UTC']) {
     it(`hourly records 2013-2016 in ${zone}`, () => {
       const start = Date.UTC(2013, 0, 1);

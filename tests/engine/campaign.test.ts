@@ -12,7 +12,7 @@ function hourlyAxis(fromYear: number, toYear: number): Float64Array {
   return Float64Array.from({ length: n }, (_, i) => t0 + i * HOUR);
 }
 
-describe('simulateCampaign (DOMAIN.md "Hindcast statistics", Convention 15)', () => {
+describe('simulateCampaign (docs/domain.md#hindcast-statistics, #convention-15)', () => {
   const times = hourlyAxis(2001, 2003);
   const n = times.length;
   const always = new Uint8Array(n).fill(1);

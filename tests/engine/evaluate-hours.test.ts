@@ -5,7 +5,7 @@ import { makeSeries, type Columns } from './series-factory';
 
 const { NO_DATA, NOT_WORKABLE, MARGINAL, WORKABLE } = STATUS;
 
-/** Not weather-restricted: alpha = 1, so the limits apply as given (Convention 5). */
+/** Not weather-restricted: alpha = 1, so the limits apply as given (docs/domain.md#convention-5). */
 function oplim(limits: OperationLimits): OperationSpec {
   return { tpopH: 6, tcH: 0, weatherRestricted: false, limits };
 }
@@ -14,7 +14,7 @@ function statuses(cols: Columns, op: OperationSpec, alpha = true): number[] {
   return Array.from(evaluateHours(makeSeries(cols), op, { alpha, alphaTable: DEFAULT_ALPHA_TABLE }).status);
 }
 
-describe('evaluateHours: each limit alone, inclusive (Convention 6)', () => {
+describe('evaluateHours: each limit alone, inclusive (docs/domain.md#convention-6)', () => {
   it('Hs max: equal meets, above breaks, missing Hs is no data', () => {
     const op = oplim({ hsMax: 2 });
     expect(statuses({ hsM: [0, 1.99, 2, 2.01, NaN] }, op)).toEqual([WORKABLE, WORKABLE, WORKABLE, NOT_WORKABLE, NO_DATA]);
@@ -37,7 +37,7 @@ describe('evaluateHours: each limit alone, inclusive (Convention 6)', () => {
     ]);
   });
 
-  it('bed velocity: the limit method picks the series; Hs and Tp are needed too (Convention 7)', () => {
+  it('bed velocity: the limit method picks the series; Hs and Tp are needed too (docs/domain.md#convention-7)', () => {
     const cols: Columns = {
       hsM: [1, 1, 1, NaN, 1],
       tpS: [8, 8, 8, 8, NaN],
@@ -55,7 +55,7 @@ describe('evaluateHours: each limit alone, inclusive (Convention 6)', () => {
   });
 });
 
-describe('evaluateHours: Hs-Tp curve (Convention 6: range closed, outside not workable)', () => {
+describe('evaluateHours: Hs-Tp curve (docs/domain.md#convention-6: range closed, outside not workable)', () => {
   // Curve points (Tp s, Hs m): (4, 1.0), (8, 2.0), (12, 1.5).
   const op = oplim({ hsTpCurve: [[4, 1], [8, 2], [12, 1.5]] });
 
@@ -79,7 +79,7 @@ describe('evaluateHours: Hs-Tp curve (Convention 6: range closed, outside not wo
   });
 });
 
-describe('evaluateHours: alpha and the marginal status (Convention 5; table from DOMAIN.md, from memory of DNV-ST-N001)', () => {
+describe('evaluateHours: alpha and the marginal status (docs/domain.md#convention-5; table in docs/domain.md#weather-restricted, from memory of DNV-ST-N001)', () => {
   // TPOP 24 h, TC 6 h (TR 30 h), weather-restricted, Hs max 2 m: alpha = 0.73 (row 24 h, column 2 m),
   // OPWF = 1.46 m.
   const op: OperationSpec = { tpopH: 24, tcH: 6, weatherRestricted: true, limits: { hsMax: 2 } };
@@ -88,7 +88,7 @@ describe('evaluateHours: alpha and the marginal status (Convention 5; table from
     expect(statuses({ hsM: [1.46, 1.47, 2, 2.01] }, op)).toEqual([WORKABLE, MARGINAL, MARGINAL, NOT_WORKABLE]);
   });
 
-  it('without alpha the same hours are workable up to OPLIM (Convention 14)', () => {
+  it('without alpha the same hours are workable up to OPLIM (docs/domain.md#convention-14)', () => {
     expect(statuses({ hsM: [1.46, 1.47, 2, 2.01] }, op, false)).toEqual([WORKABLE, WORKABLE, WORKABLE, NOT_WORKABLE]);
   });
 
@@ -96,8 +96,11 @@ describe('evaluateHours: alpha and the marginal status (Convention 5; table from
     expect(statuses({ hsM: [1.47, 2] }, { ...op, weatherRestricted: false })).toEqual([WORKABLE, WORKABLE]);
   });
 
-  it('TR above 72 h: alpha = 1', () => {
-    expect(statuses({ hsM: [1.47, 2] }, { ...op, tcH: 60 })).toEqual([WORKABLE, WORKABLE]);
+  it('TR 96 h exactly is still weather-restricted (DNV-ST-N001 / DNV-OS-H101, from memory: bounds included); above it, OPLIM', () => {
+    // TPOP 24 h, TC 72 h: TR 96 h, alpha 0.73 as above.
+    expect(statuses({ hsM: [1.46, 1.47, 2] }, { ...op, tcH: 72 })).toEqual([WORKABLE, MARGINAL, MARGINAL]);
+    // TC 72.5 h: TR 96.5 h, not weather-restricted: at OPLIM (for information only in a forecast plan).
+    expect(statuses({ hsM: [1.47, 2] }, { ...op, tcH: 72.5 })).toEqual([WORKABLE, WORKABLE]);
   });
 
   it('the curve takes alpha at the curve value for the record Tp', () => {
@@ -126,7 +129,7 @@ describe('evaluateHours: alpha and the marginal status (Convention 5; table from
 });
 
 describe('evaluateHours: no data wins, limiting factor and margins', () => {
-  it('a missing value makes the hour no data even when another limit is already broken (Convention 7)', () => {
+  it('a missing value makes the hour no data even when another limit is already broken (docs/domain.md#convention-7)', () => {
     const op = oplim({ hsMax: 2, windMax: 10 });
     const ev = evaluateHours(makeSeries({ hsM: [5], windMps: [NaN] }), op, { alphaTable: DEFAULT_ALPHA_TABLE });
     expect(ev.status[0]).toBe(NO_DATA);

@@ -1,15 +1,16 @@
 // evaluateHours and evaluateStatus against a naive per-record implementation written here from
-// DOMAIN.md ("Operations and limits", Conventions 5-7), over random limits and random records,
+// docs/domain.md#operations-and-limits, #convention-5 to #convention-7), over random limits and random records,
 // with values drawn on the limits themselves to hit the inclusive edges.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_ALPHA_TABLE, STATUS, evaluateHours, evaluateStatus, type AlphaTable, type OperationLimits, type OperationSpec } from '../../shared/engine';
 import { makeSeries } from './series-factory';
 
-/** Alpha by the rule of Convention 5, looked up naively. */
+/** Alpha by the rule of docs/domain.md#convention-5, looked up naively. */
 function naiveAlpha(table: AlphaTable, op: OperationSpec, hsLimit: number, useAlpha: boolean): number {
   const tr = op.tpopH + op.tcH;
-  if (!useAlpha || !op.weatherRestricted || tr > 72 || op.tpopH > 72) return 1;
+  // Weather-restricted range TPOP <= 72 h, TR <= 96 h (DNV-ST-N001 / DNV-OS-H101, from memory).
+  if (!useAlpha || !op.weatherRestricted || tr > 96 || op.tpopH > 72) return 1;
   const row = table.tpopBoundsH.findIndex((b) => op.tpopH <= b);
   if (row < 0) return 1;
   const cols = table.hsColumnsM;
@@ -112,7 +113,7 @@ function recordsArb(op: OperationSpec): fc.Arbitrary<Rec[]> {
   );
 }
 
-describe('hourly status against a naive implementation of DOMAIN.md', () => {
+describe('hourly status against a naive implementation of docs/domain.md#hourly-status', () => {
   it('evaluateHours and evaluateStatus, with and without alpha', () => {
     fc.assert(
       fc.property(

@@ -20,7 +20,7 @@ const D = STATUS.NO_DATA;
 
 const flags = (a: Uint8Array): number[] => Array.from(a);
 
-describe('detectStepMs: median spacing (Convention 9)', () => {
+describe('detectStepMs: median spacing (docs/domain.md#convention-9)', () => {
   it('a regular series with a gap keeps its step', () => {
     expect(detectStepMs(Float64Array.from(hoursAt([0, 1, 2, 3, 5])))).toBe(HOUR);
   });
@@ -37,7 +37,7 @@ describe('detectStepMs: median spacing (Convention 9)', () => {
   });
 });
 
-describe('recordsForTr: ceil(TR / dt) (Convention 10)', () => {
+describe('recordsForTr: ceil(TR / dt) (docs/domain.md#convention-10)', () => {
   it('hand cases', () => {
     expect(recordsForTr(12, HOUR)).toBe(12);
     expect(recordsForTr(12.5, HOUR)).toBe(13);
@@ -48,7 +48,7 @@ describe('recordsForTr: ceil(TR / dt) (Convention 10)', () => {
   });
 });
 
-describe('go-starts and windows (DOMAIN.md "Weather windows", Conventions 9-10)', () => {
+describe('go-starts and windows (docs/domain.md#weather-windows, #convention-9 to #convention-10)', () => {
   const times = Float64Array.from(hoursAt([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]));
 
   it('a run exactly TR long is a usable window with one go-start at its first record', () => {
@@ -113,7 +113,7 @@ describe('go-starts and windows (DOMAIN.md "Weather windows", Conventions 9-10)'
   });
 });
 
-describe('usableWindows: smallest margins (Convention 16)', () => {
+describe('usableWindows: smallest margins (docs/domain.md#convention-16)', () => {
   it('per limit in the limit unit, Hs against OPWF, bands to the nearest edge, plus the relative figure', () => {
     // Not weather-restricted -> alpha 1. Window = records 1-3 (TR 3 h).
     const op: OperationSpec = { tpopH: 2, tcH: 1, weatherRestricted: false, limits: { hsMax: 2, tpMin: 5, tpExcluded: [[8, 9]], windMax: 12 } };
@@ -151,8 +151,9 @@ describe('usableWindows: smallest margins (Convention 16)', () => {
 });
 
 describe('planOperation: earliest go-start and "may start now"', () => {
-  // Hs max 2 m, not weather-restricted, TR = 3 h. Hourly: records 0-1 rough, 2-6 calm, 7 rough, 8-9 calm.
-  const op: OperationSpec = { tpopH: 2, tcH: 1, weatherRestricted: false, limits: { hsMax: 2 } };
+  // Hs max 2 m, weather-restricted (alpha 0.76: OPWF 1.52 m), TR = 3 h. Hourly: records 0-1 rough,
+  // 2-6 calm, 7 rough, 8-9 calm.
+  const op: OperationSpec = { tpopH: 2, tcH: 1, weatherRestricted: true, limits: { hsMax: 2 } };
   const series = makeSeries({ hsM: [3, 3, 1, 1, 1, 1, 1, 3, 1, 1] });
 
   it('before the window: not now, earliest start at record 2', () => {
@@ -181,6 +182,23 @@ describe('planOperation: earliest go-start and "may start now"', () => {
     expect(plan.startNow).toBe(false);
     expect(plan.earliestStartMs).toBe(null);
     expect(plan.windows).toEqual([]);
+  });
+
+  it('not weather-restricted (docs/domain.md#convention-5): statuses at OPLIM for information, never a go-start, window or start now', () => {
+    for (const other of [
+      { ...op, weatherRestricted: false },
+      { ...op, tpopH: 73, tcH: 0 },
+      { ...op, tpopH: 24, tcH: 73 },
+    ]) {
+      const plan = planOperation(series, other, DEFAULT_ALPHA_TABLE, T0 + 3.5 * HOUR);
+      expect(plan.informationOnly).toBe(true);
+      expect(Array.from(plan.status)).toEqual([N, N, W, W, W, W, W, N, W, W]);
+      expect(Array.from(plan.goStart).every((g) => g === 0)).toBe(true);
+      expect(plan.windows).toEqual([]);
+      expect(plan.earliestStartMs).toBe(null);
+      expect(plan.startNow).toBe(false);
+    }
+    expect(planOperation(series, { ...op, tpopH: 72, tcH: 24 }, DEFAULT_ALPHA_TABLE, T0).informationOnly).toBe(false);
   });
 
   it('alpha: false plans on OPLIM', () => {

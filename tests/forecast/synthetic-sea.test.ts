@@ -4,7 +4,7 @@ import { generateSyntheticSea, type SyntheticSeaSeries } from '../../server/fore
 
 const HOUR = 3_600_000;
 const COLUMNS = ['hsM', 'tpS', 'dirDeg', 'windMps', 'windDirDeg'] as const;
-/** Deep-water wavelength per Tp^2, g / (2 pi) with g = 9.81 m/s2 (DOMAIN.md: L0 = g T^2 / 2 pi). */
+/** Deep-water wavelength per Tp^2, g / (2 pi) with g = 9.81 m/s2 (docs/domain.md#dispersion: L0 = g T^2 / 2 pi). */
 const L0_PER_TP2 = 9.81 / (2 * Math.PI);
 
 // One long series shared by the statistical checks: 20 years hourly, 2001-2020 (175,320 records).

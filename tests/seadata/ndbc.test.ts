@@ -1,6 +1,6 @@
 // NDBC standard meteorological files: the four real files of the shared test data.
 // Source of every count, first/last time and coverage figure: the table and notes of
-// shared/data/ndbc/README.md ("NDBC buoy test data"); missing-value counts were counted on the
+// tests/fixtures/ndbc/README.md ("NDBC buoy test data"); missing-value counts were counted on the
 // raw lines with awk (commands quoted beside each check). Values are checked against the raw
 // lines, quoted beside each check.
 import { readFileSync } from 'node:fs';
@@ -16,7 +16,7 @@ import {
   type SeaRecords,
 } from '../../shared/seadata';
 
-const NDBC_DIR = path.resolve(import.meta.dirname, '../../../shared/data/ndbc');
+const NDBC_DIR = path.resolve(import.meta.dirname, '../fixtures/ndbc');
 const read = (name: string): string => readFileSync(path.join(NDBC_DIR, name), 'utf8');
 
 function parse(text: string, options: ConstructorParameters<typeof NdbcParser>[0] = {}) {
@@ -282,7 +282,7 @@ describe('header variants', () => {
   });
 });
 
-describe('wind height correction (1/7 power law, DOMAIN.md: common practice)', () => {
+describe('wind height correction (1/7 power law, docs/domain.md#ndbc)', () => {
   it('multiplies WSPD by (10/z)^(1/7) when the anemometer height is given', () => {
     // "2015 12 31 23 50  28  1.1 ..." with z = 5 m: 1.1 * 2^(1/7); 2^(1/7) = 1.104089513673812
     // (hand value of the power law, common practice, no source).

@@ -1,4 +1,4 @@
-// Columnar records, the builder, step detection (DOMAIN.md Convention 9) and summaries.
+// Columnar records, the builder, step detection (docs/domain.md#convention-9) and summaries.
 import { describe, expect, it } from 'vitest';
 import {
   GIVEN_TE,
@@ -46,7 +46,7 @@ describe('SeaRecordBuilder', () => {
   });
 });
 
-describe('detectStepMinutes (median spacing, DOMAIN.md Convention 9)', () => {
+describe('detectStepMinutes (median spacing, docs/domain.md#convention-9)', () => {
   it('is the median, not the mean: gaps do not change an hourly step', () => {
     expect(detectStepMinutes(Float64Array.of(0, H, 2 * H, 3 * H, 27 * H))).toBe(60);
   });

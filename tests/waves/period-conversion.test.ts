@@ -28,7 +28,7 @@ describe('JONSWAP period ratios', () => {
     expect(relClose(jonswapTeOverTp(1), teOverTp, 1e-9)).toBe(true);
   });
 
-  it('Te/Tp is about 0.857 for gamma = 1 and about 0.90 for gamma = 3.3 (DOMAIN.md, from memory)', () => {
+  it('Te/Tp is about 0.857 for gamma = 1 and about 0.90 for gamma = 3.3 (docs/domain.md#sea-states, from memory)', () => {
     expect(Math.abs(jonswapTeOverTp(1) - 0.857)).toBeLessThan(0.0015);
     expect(Math.abs(jonswapTeOverTp(3.3) - 0.9)).toBeLessThan(0.005);
   });
@@ -46,7 +46,7 @@ describe('JONSWAP period ratios', () => {
     );
   });
 
-  it('the DNV-RP-C205 polynomials evaluate as written in DOMAIN.md (hand arithmetic at gamma = 3.3)', () => {
+  it('the DNV-RP-C205 polynomials evaluate as written in docs/domain.md#sea-states (hand arithmetic at gamma = 3.3)', () => {
     // 0.6673 + 0.05037*3.3 - 0.006230*10.89 + 0.0003341*35.937 = 0.6673 + 0.166221 - 0.0678447 + 0.0120065
     expect(jonswapTzOverTp(3.3)).toBeCloseTo(0.7776828, 6);
     // 0.7303 + 0.04936*3.3 - 0.006556*10.89 + 0.0003610*35.937 = 0.7303 + 0.162888 - 0.0713948 + 0.0129733
@@ -73,10 +73,10 @@ describe('JONSWAP period ratios', () => {
   });
 });
 
-describe('completePeriods (DOMAIN.md "Sea states", Convention 8)', () => {
+describe('completePeriods (docs/domain.md#sea-states, #convention-8)', () => {
   const tzRatio = 0.6673 + 0.05037 * 3.3 - 0.00623 * 3.3 ** 2 + 0.0003341 * 3.3 ** 3;
 
-  it('Tp given: Tz by the DNV ratio, Te = 0.90 Tp (Convention 8), sources recorded', () => {
+  it('Tp given: Tz by the DNV ratio, Te = 0.90 Tp (docs/domain.md#convention-8), sources recorded', () => {
     const p = completePeriods({ tpS: 10 });
     expect(p.tpS).toBe(10);
     expect(p.tzS).toBeCloseTo(10 * tzRatio, 12);

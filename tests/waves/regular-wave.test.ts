@@ -108,7 +108,7 @@ describe('regularWave: facts of the trade (common practice, no source)', () => {
   });
 });
 
-describe('orbitalAt: u(z), w(z), Kp(z) (DOMAIN.md; SPM 1984 Ch. 2; CEM Part II-1)', () => {
+describe('orbitalAt: u(z), w(z), Kp(z) (docs/domain.md#dispersion; SPM 1984 Ch. 2; CEM Part II-1)', () => {
   it('matches the cosh/sinh formulas where they do not overflow', () => {
     const w = regularWave({ heightM: 1.5, periodS: 7, depthM: 12 });
     const k = refK(7, 12);
@@ -176,7 +176,7 @@ describe('orbitalAt: u(z), w(z), Kp(z) (DOMAIN.md; SPM 1984 Ch. 2; CEM Part II-1
     );
   });
 
-  it('u_b -> 0 in deep water and -> (H/2) sqrt(g/d) in shallow water (DOMAIN.md physics)', () => {
+  it('u_b -> 0 in deep water and -> (H/2) sqrt(g/d) in shallow water (docs/domain.md#dispersion)', () => {
     const deep = regularWave({ heightM: 2, periodS: 6, depthM: 200 });
     expect(deep.bedVelocityMps).toBeLessThan(1e-8);
     expect(regularWave({ heightM: 2, periodS: 6, depthM: Infinity }).bedVelocityMps).toBe(0);

@@ -60,12 +60,12 @@ function angleDiff(a: number, b: number): number {
   return d;
 }
 
-describe('transform: refraction and shoaling (DOMAIN.md steps 1-4; Snell; energy flux)', () => {
+describe('transform: refraction and shoaling (docs/domain.md#transformation steps 1-4; Snell; energy flux)', () => {
   const site: SiteGeometry = { depthM: 10, shoreNormalDeg: 270, breakerIndex: 0.6 };
 
   it('a deep-water sea 20 deg off the shore normal: Snell, Kr, Ks and direction by hand from the oracle', () => {
     const r = viaArray({ hs: 2, tp: 10, dir: 250 }, DEEP, site);
-    const c0 = (G * 10) / (2 * Math.PI); // Convention 1: unknown depth = deep water, C = C0, Cg = C0/2
+    const c0 = (G * 10) / (2 * Math.PI); // docs/domain.md#convention-1: unknown depth = deep water, C = C0, Cg = C0/2
     const cSite = refC(10, 10);
     const thetaSite = Math.asin((cSite / c0) * Math.sin(-20 * DEG));
     const kr = Math.sqrt(Math.cos(-20 * DEG) / Math.cos(thetaSite));
@@ -152,10 +152,10 @@ describe('transform: refraction and shoaling (DOMAIN.md steps 1-4; Snell; energy
   });
 });
 
-describe('transform: Conventions 1-4 (flags)', () => {
+describe('transform: docs/domain.md#convention-1 to #convention-4 (flags)', () => {
   const site: SiteGeometry = { depthM: 12, shoreNormalDeg: 270, breakerIndex: 0.6 };
 
-  it('Convention 2: |theta_src| >= 90 (90 included) is landward: Kr = 1, shoaling only, direction kept, flagged', () => {
+  it('docs/domain.md#convention-2: |theta_src| >= 90 (90 included) is landward: Kr = 1, shoaling only, direction kept, flagged', () => {
     for (const dir of [0, 180, 90]) {
       // theta = 90 (Dir 0), -90 (Dir 180), 180 (Dir 90)
       const r = viaArray({ hs: 1, tp: 9, dir }, DEEP, site);
@@ -172,7 +172,7 @@ describe('transform: Conventions 1-4 (flags)', () => {
     expect(viaArray({ hs: 1, tp: 9, dir: 180.001 }, DEEP, site).flags).toBe(0);
   });
 
-  it('Convention 2: site deeper than the data point and |sin(theta_site)| > 1: no refraction, Kr = 1, direction kept, flagged', () => {
+  it('docs/domain.md#convention-2: site deeper than the data point and |sin(theta_site)| > 1: no refraction, Kr = 1, direction kept, flagged', () => {
     const source = { depthM: 5 };
     const deepSite: SiteGeometry = { depthM: 60, shoreNormalDeg: 270, breakerIndex: 0.6 };
     // Precondition by the oracle: C_site/C_src * sin(60 deg) > 1.
@@ -189,7 +189,7 @@ describe('transform: Conventions 1-4 (flags)', () => {
     expect(small.thetaSiteDeg).toBeGreaterThan(10);
   });
 
-  it('Convention 4: the depth limit applies when Hs_site > gamma_b d strictly; equal is neither capped nor flagged', () => {
+  it('docs/domain.md#convention-4: the depth limit applies when Hs_site > gamma_b d strictly; equal is neither capped nor flagged', () => {
     // Same depth at both ends and no bearing: Ks = Kr = 1 exactly, so Hs_site = Hs_src.
     const same: SiteGeometry = { depthM: 10, shoreNormalDeg: null, breakerIndex: 0.5 };
     const equal = viaArray({ hs: 5, tp: 10 }, { depthM: 10 }, same);
@@ -211,7 +211,7 @@ describe('transform: Conventions 1-4 (flags)', () => {
     expect(both.hs).toBeCloseTo(0.6 * 12, 12);
   });
 
-  it('Convention 3: missing Tp makes Hs missing; with a bearing a missing direction does too; Hs missing stays missing', () => {
+  it('docs/domain.md#convention-3: missing Tp makes Hs missing; with a bearing a missing direction does too; Hs missing stays missing', () => {
     const out = transformToSite(
       series([
         { hs: 2, tp: NaN, dir: 260 },
@@ -238,7 +238,7 @@ describe('transform: Conventions 1-4 (flags)', () => {
     expect(transformFlagNames(MISSING_INPUT)).toEqual(['MISSING_INPUT']);
   });
 
-  it('Convention 8: Soulsby bed velocity uses Tz from the record, else Tz = (Tz/Tp)(gamma 3.3) Tp', () => {
+  it('docs/domain.md#convention-8: Soulsby bed velocity uses Tz from the record, else Tz = (Tz/Tp)(gamma 3.3) Tp', () => {
     const tzRatio = 0.6673 + 0.05037 * 3.3 - 0.00623 * 3.3 ** 2 + 0.0003341 * 3.3 ** 3; // DNV-RP-C205 (from memory)
     const out = transformToSite(series([{ hs: 1.5, tp: 10, tz: 7.2, dir: 265 }, { hs: 1.5, tp: 10, dir: 265 }]), DEEP, site);
     expect(out.bedVelocitySoulsbyMps[0]).toBeCloseTo(bedVelocitySoulsby(out.hsM[0], 7.2, 12), 14);
@@ -248,7 +248,7 @@ describe('transform: Conventions 1-4 (flags)', () => {
   });
 });
 
-describe('transform: transfer tables (Convention 17: half-open sectors and bands, nearest outside, direction kept)', () => {
+describe('transform: transfer tables (docs/domain.md#convention-17: half-open sectors and bands, nearest outside, direction kept)', () => {
   const table: TransferTable = {
     directionSectorsDeg: [
       [345, 15],

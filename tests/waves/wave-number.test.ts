@@ -15,7 +15,7 @@ function residual(k: number, periodS: number, depthM: number): number {
 const logUniform = (min: number, max: number) =>
   fc.double({ min: Math.log(min), max: Math.log(max), noNaN: true }).map((x) => Math.min(max, Math.max(min, Math.exp(x))));
 
-describe('waveNumber: dispersion relation omega^2 = g k tanh(kd) (DOMAIN.md requirement)', () => {
+describe('waveNumber: dispersion relation omega^2 = g k tanh(kd) (docs/domain.md#dispersion requirement)', () => {
   it('meets a relative residual below 1e-12 on a 200 x 200 log grid, 0.5-30 s and 0.05-6000 m, with no NaN or Infinity', () => {
     let worst = 0;
     for (let i = 0; i < 200; i++) {
@@ -57,7 +57,7 @@ describe('waveNumber: dispersion relation omega^2 = g k tanh(kd) (DOMAIN.md requ
     expect(dispersionResidual(k, 8, 20)).toBeCloseTo(0, 14);
   });
 
-  it('uses the deep-water form k = omega^2/g exactly for depth Infinity and for large k0*d (Convention 1)', () => {
+  it('uses the deep-water form k = omega^2/g exactly for depth Infinity and for large k0*d (docs/domain.md#convention-1)', () => {
     const omega = (2 * Math.PI) / 10;
     expect(waveNumber(10, Infinity)).toBe((omega * omega) / G);
     // k0*d = 0.04024*6000 = 241: tanh is 1 to double precision.

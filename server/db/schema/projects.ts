@@ -11,7 +11,7 @@ export const project = pgTable('project', {
   dataPointName: text().notNull().default(''),
   dataPointLatitude: doublePrecision(),
   dataPointLongitude: doublePrecision(),
-  /** Water depth at the data point in metres; null means deep water (DOMAIN Convention 1). */
+  /** Water depth at the data point in metres; null means deep water (docs/domain.md#convention-1). */
   dataPointDepthM: doublePrecision(),
   /** 'service' fetches forecasts from the forecast provider; 'uploads' only takes uploaded files. */
   forecastSource: text({ enum: ['service', 'uploads'] }).notNull().default('uploads'),

@@ -12,7 +12,7 @@ export interface VisibleRange {
 }
 
 /**
- * From the record that covers now (each record stands for [t, t + dt), DOMAIN.md Convention 9)
+ * From the record that covers now (each record stands for [t, t + dt), docs/domain.md#convention-9)
  * for `days` days; the whole forecast from its first record when `days` is null (past hours
  * included, for review). Before the forecast starts, from its first record; after it ends, the
  * whole forecast flagged `ended`.

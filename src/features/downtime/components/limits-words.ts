@@ -4,7 +4,7 @@ const n = (x: number) => String(Math.round(x * 1000) / 1000);
 
 /**
  * An operation's limits (OPLIM) in words for the printed report: "Hs ≤ 1.5 m; Tp not in 13–15 s;
- * wind ≤ 16 m/s". Limits are inclusive (DOMAIN.md Convention 6); excluded bands include their edges.
+ * wind ≤ 16 m/s". Limits are inclusive (docs/domain.md#convention-6); excluded bands include their edges.
  */
 export function limitsInWords(limits: OperationLimits): string {
   const out: string[] = [];

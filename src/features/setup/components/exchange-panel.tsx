@@ -1,6 +1,7 @@
 import { useId, useState } from 'react';
-import { format } from 'date-fns';
+import { formatInstant, localTimeZone } from '../../../../shared/dates';
 import type { z } from 'zod';
+import { issuesInWords, problemSentence } from '../../../../shared/schemas/words';
 import { IMPORT_MODES, ProjectSetupDocument, type ImportMode } from '../../../../shared/schemas/sites';
 import type { ImportPreviewResponse, ImportResultResponse } from '../../../../shared/api-types-sites';
 import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
@@ -30,24 +31,6 @@ interface ReadFile {
   problems: string[];
 }
 
-/** A zod issue path in words, naming the worksite or operation it is in when the file names it. */
-function issuePlace(path: PropertyKey[], raw: unknown): string {
-  const parts: string[] = [];
-  let node: unknown = raw;
-  for (let i = 0; i < path.length; i++) {
-    const key = path[i];
-    const next = node && typeof node === 'object' ? (node as Record<PropertyKey, unknown>)[key as string] : undefined;
-    if (typeof key === 'number') {
-      const name = next && typeof next === 'object' && typeof (next as { name?: unknown }).name === 'string' ? (next as { name: string }).name : null;
-      parts[parts.length - 1] = `${parts[parts.length - 1] ?? ''} ${key + 1}${name ? ` “${name}”` : ''}`;
-    } else {
-      parts.push(String(key));
-    }
-    node = next;
-  }
-  return parts.join(' › ') || 'the document';
-}
-
 let readCount = 0;
 
 async function readSetupFile(file: File): Promise<ReadFile> {
@@ -65,7 +48,7 @@ async function readSetupFile(file: File): Promise<ReadFile> {
     key,
     fileName: file.name,
     doc: null,
-    problems: (parsed.error as z.ZodError).issues.slice(0, 50).map((i) => `${issuePlace(i.path, raw)}: ${i.message}`),
+    problems: issuesInWords(parsed.error as z.ZodError, raw, 'The document').slice(0, 50).map(problemSentence),
   };
 }
 
@@ -225,7 +208,7 @@ function ImportCard({ projectId }: { projectId: string }) {
         {doc ? (
           <div className="rounded-lg border border-line bg-surface-2 p-3 text-sm">
             <p>
-              <span className="font-semibold">“{doc.project.name}”</span>, exported {format(new Date(doc.exportedAt), 'd MMM yyyy, HH:mm')}:
+              <span className="font-semibold">“{doc.project.name}”</span>, exported {formatInstant(doc.exportedAt, localTimeZone(), 'dateTimeYear')}:
             </p>
             <ul className="mt-1 list-disc pl-5">
               <li>

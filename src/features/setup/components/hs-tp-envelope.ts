@@ -3,7 +3,7 @@
  * operation is a no-go whatever Hs is (outside the curve's Tp range, below Tp min, above Tp max,
  * inside an excluded band) and, elsewhere, the Hs limit min(Hs max, curve(Tp)).
  *
- * Same rules as the engine (DOMAIN.md "Operations and limits", Conventions 5 and 6): the curve is
+ * Same rules as the engine (docs/domain.md#operations-and-limits, #convention-5 and #convention-6): the curve is
  * interpolated linearly between its points and is a no-go outside its Tp range; limits are
  * inclusive, bands closed. Drawn piecewise linear: the pieces split at every curve point, Tp
  * bound, band edge and crossing of Hs max with the curve, so each piece is exactly linear.

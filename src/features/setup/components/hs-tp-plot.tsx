@@ -20,7 +20,7 @@ function niceStep(span: number, count: number): number {
  * the forecast limit OPWF = α·OPLIM dashed. Redrawn as the inputs change; values that do not
  * parse yet are left out.
  *
- * @param alphaAt alpha for an Hs limit in m (Convention 5: looked up at the limit's own value);
+ * @param alphaAt alpha for an Hs limit in m (docs/domain.md#convention-5: looked up at the limit's own value);
  *   null when the operation works at OPLIM (not weather-restricted, or TR above 72 h).
  */
 export function HsTpPlot({ limits, alphaAt }: { limits: EnvelopeLimits; alphaAt: ((hsM: number) => number) | null }) {

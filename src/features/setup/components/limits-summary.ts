@@ -10,8 +10,8 @@ export const BED_VELOCITY_METHOD_LABEL: Record<'linear' | 'soulsby', string> = {
 /**
  * An operation's limits (OPLIM) in words, one phrase per limit, in the order the form lists them:
  * "Hs ≤ 1.5 m", "Hs under the Hs–Tp curve, Tp 4–16 s", "Tp 3–14 s", "Tp not in 13–15 s",
- * "bed velocity ≤ 0.35 m/s (Soulsby 2006)", "wind ≤ 16 m/s". Limits are inclusive (DOMAIN.md
- * Convention 6), hence "≤"; an excluded band is closed, so "not in" includes its edges.
+ * "bed velocity ≤ 0.35 m/s (Soulsby 2006)", "wind ≤ 16 m/s". Limits are inclusive
+ * (docs/domain.md#convention-6), hence "≤"; an excluded band is closed, so "not in" includes its edges.
  */
 export function describeLimits(limits: OperationLimits): string[] {
   const out: string[] = [];
