@@ -446,7 +446,7 @@ describe('places that render names outside React', () => {
     const A = t.demo.projectId;
     const name = 'Calm; a,b\\c "q" <b>x</b> 🌊';
     const siteId = t.demo.siteIds.route;
-    const op = await as.coordinator.post(`/api/projects/${A}/operations`).send({ name, tpop: 1, tc: 0, weatherRestricted: false, limits: { hsMax: 20 }, siteIds: [siteId] });
+    const op = await as.coordinator.post(`/api/projects/${A}/operations`).send({ name, tpop: 1, tc: 1, weatherRestricted: true, limits: { hsMax: 20 }, siteIds: [siteId] });
     expect(op.status, op.text).toBe(201);
     const siteName = (await as.coordinator.get(`/api/projects/${A}/sites/${siteId}`)).body.name as string;
 
