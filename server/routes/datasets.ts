@@ -15,8 +15,11 @@ import {
   monthlySummary,
   readDatasetSeries,
   seriesCsv,
+  setDefaultHindcast,
   toRecordsAnswer,
 } from '../services/datasets';
+
+const DefaultHindcastInput = z.object({ datasetId: z.uuid('must be a dataset id').nullable() });
 import { importUploadedFile, MAX_UPLOAD_BYTES, safeFileName } from '../services/dataset-import';
 import { ensurePrivateDir, privateDiskStorage } from '../http/private-uploads';
 import { Limiter } from '../http/limiter';
@@ -162,6 +165,17 @@ export function datasetsRoutes({ db }: AppDeps): Router {
     } finally {
       if (file) fs.rm(file.path, { force: true }, () => {});
     }
+  });
+
+  /**
+   * PUT /api/projects/:projectId/default-hindcast `{ datasetId: uuid | null }` (coordinators): the
+   * dataset statistics use when none is named; null = the newest hindcast again. A forecast is
+   * refused (400). → `{ datasetId, warning }`, the warning set for a span under a year.
+   */
+  router.put('/projects/:projectId/default-hindcast', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    const body = parseInput(DefaultHindcastInput, req.body ?? {});
+    res.json(await setDefaultHindcast(db, access.projectId, access.user, body.datasetId));
   });
 
   /** GET /api/projects/:projectId/datasets/:datasetId: metadata, coverage and the import report. */

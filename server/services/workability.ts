@@ -27,7 +27,7 @@ import type { WorkabilityCalendarMonth, WorkabilityEntry, WorkabilityMonth, Work
 import type { Db } from '../db/client';
 import { statsCache } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { getDatasetRow, latestDataset } from './datasets';
+import { defaultHindcast, getDatasetRow, latestDataset } from './datasets';
 import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
 import { ByteBoundedMemo, jsonBytes, seriesBytes } from './byte-cache';
@@ -238,7 +238,7 @@ export function forEachOperationSite(
 
 /** The hindcast to compute statistics on: the one asked for (of this project), else the newest hindcast. */
 export async function statisticsDataset(db: Db, projectId: string, datasetId?: string): Promise<DatasetRow | null> {
-  if (!datasetId) return latestDataset(db, projectId, 'hindcast');
+  if (!datasetId) return defaultHindcast(db, projectId);
   const row = await getDatasetRow(db, projectId, datasetId);
   if (row.kind === 'forecast') {
     throw new HttpError('validation', 'Statistics need a hindcast (or a long observation record), not a forecast', [{ field: 'dataset', message: 'is a forecast' }]);

@@ -227,6 +227,7 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/audit': { access: 'member', why: 'read-only; skippers and clients may see why limits changed' },
 
   'GET /projects/:projectId/datasets': { access: 'member' },
+  'PUT /projects/:projectId/default-hindcast': { access: 'coordinator', why: 'null: the newest hindcast is the default again', body: () => ({ datasetId: null }) },
   'POST /projects/:projectId/datasets': { access: 'coordinator', upload: true },
   'GET /projects/:projectId/datasets/:datasetId': { access: 'member' },
   'GET /projects/:projectId/datasets/:datasetId/records': { access: 'member' },
