@@ -32,11 +32,16 @@ import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
 import { Lru } from './lru';
 import { encodedAnswer, forgetEncodedAnswers } from './encoded-answers';
+import { runEngineTask, sharedSeries } from './engine-pool';
 
 export type DatasetRow = NonNullable<Awaited<ReturnType<typeof latestDataset>>>;
 
-/** Bump when the way the statistics are computed changes, so cached answers are not reused. */
-const STATS_FORMAT = 1;
+/**
+ * Bump when the way the statistics are computed changes, so cached answers are not reused.
+ * 2: Soulsby bed velocity U_s = 2*U_rms (was 1.414*U_rms), weather-restricted range TR <= 96 h,
+ * local time step (durations) for series that change step.
+ */
+export const STATS_FORMAT = 2;
 
 // ---------------------------------------------------------------------------------------------
 // In-process memos (per database handle, so test databases never share entries)
@@ -69,7 +74,8 @@ export function datasetSeries(db: Db, datasetId: string): Promise<SeaSeries> {
   const m = memoOf(db);
   let p = m.series.get(datasetId);
   if (!p) {
-    p = readSeries(db, datasetId);
+    // In shared memory, so engine worker threads read it without a copy.
+    p = readSeries(db, datasetId).then(sharedSeries);
     m.series.set(datasetId, p);
     p.catch(() => m.series.delete(datasetId));
   }
@@ -306,14 +312,17 @@ export async function projectWorkabilityJson(db: Db, projectId: string, options:
   const row = await statisticsDataset(db, projectId, options.datasetId);
   if (!row) return { datasetId: null, body: Buffer.from('[]') };
   const setup = await loadProjectSetup(db, projectId);
-  const setupHash = createHash('sha256').update(JSON.stringify([setup, row.dataPointDepthM])).digest('hex').slice(0, 32);
+  const setupHash = createHash('sha256').update(JSON.stringify([STATS_FORMAT, setup, row.dataPointDepthM])).digest('hex').slice(0, 32);
   const body = await encodedAnswer(db, `workability:${row.id}:${setupHash}:${options.alpha}`, () => workabilityEntries(db, row, setup, options.alpha));
   return { datasetId: row.id, body };
 }
 
 async function workabilityEntries(db: Db, row: DatasetRow, setup: ProjectSetup, alpha: boolean): Promise<WorkabilityEntry[]> {
   const version = limitsVersion(setup, row.dataPointDepthM);
-  const cached = await cachedStats(db, row.projectId, row.id, version, String(alpha), async () => computeWorkability(await datasetSeries(db, row.id), row, setup, alpha));
+  const cached = await cachedStats(db, row.projectId, row.id, version, String(alpha), async () =>
+    // On an engine worker thread (engine-pool.ts): a cold 30-year table never holds up other requests.
+    runEngineTask('workability', await datasetSeries(db, row.id), row, setup, alpha),
+  );
   const ops = new Map(setup.operations.map((o) => [o.id, o]));
   const sites = new Map(setup.sites.map((s) => [s.id, s]));
   const entries: WorkabilityEntry[] = [];

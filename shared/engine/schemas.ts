@@ -2,6 +2,7 @@ import { z } from 'zod';
 // installs the plain-words error map (validation messages in words, server and browser alike)
 import '../schemas/words';
 import type { AlphaTable, OperationLimits, OperationSpec } from './types';
+import { alphaTableCoverageProblem } from './alpha-factor';
 
 /**
  * Zod schemas for operation limits, operations and alpha tables, shared by the server (request
@@ -86,7 +87,7 @@ export const operationSpecSchema = z.object({
 });
 
 /**
- * Alpha table: TPOP bounds (h) and Hs columns (m), each strictly ascending and within range; one
+ * Alpha table (the last TPOP bound at least 72 h, see alphaTableCoverageProblem): TPOP bounds (h) and Hs columns (m), each strictly ascending and within range; one
  * row per bound with one value per column, every value in (0, 1].
  */
 export const alphaTableSchema = z
@@ -106,6 +107,9 @@ export const alphaTableSchema = z
     t.values.forEach((row, r) => {
       if (row.length !== t.hsColumnsM.length) ctx.addIssue({ code: 'custom', path: ['values', r], message: 'One value per Hs column' });
     });
+    // docs/domain.md#convention-5: the table must reach TPOP 72 h, so no weather-restricted operation falls back to alpha = 1.
+    const coverage = t.tpopBoundsH.length > 0 ? alphaTableCoverageProblem(t) : null;
+    if (coverage) ctx.addIssue({ code: 'custom', path: ['tpopBoundsH', t.tpopBoundsH.length - 1], message: coverage });
   });
 
 // Compile-time checks that parsed values fit the engine's types.

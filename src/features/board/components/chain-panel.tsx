@@ -255,6 +255,11 @@ function LimitRow({ check: c }: { check: LimitCheck }) {
           <dd className={`tabular-nums ${c.margin !== null && c.margin < 0 ? 'font-bold text-danger' : ''}`}>{fmt(c.margin, d, c.unit)}</dd>
         </div>
       </dl>
+      {c.reason ? (
+        <p className="mt-1 text-xs font-semibold" data-testid="limit-reason">
+          {c.reason}
+        </p>
+      ) : null}
     </li>
   );
 }

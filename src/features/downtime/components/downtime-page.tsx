@@ -14,6 +14,7 @@ import { useLedger } from '../api/get-ledger';
 import { CampaignSection } from './campaign-section';
 import { dateIn, monthRange, thisMonth } from './format';
 import { LedgerSection } from './ledger-section';
+import { OutlookSection } from './outlook-section';
 import { PrintReport } from './print-report';
 import { WorkabilitySection } from './workability-section';
 
@@ -137,6 +138,8 @@ export function DowntimePage() {
         selectedId={campaignId}
         onSelect={(id) => set('campaign', id)}
       />
+
+      <OutlookSection projectId={projectId} canEdit={access.canEdit} alpha={alpha} operations={operations.data ?? []} sites={sites.data ?? []} selectedId={campaignId} />
 
       <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} />
     </div>

@@ -65,6 +65,12 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
         <li>Workability = workable hours / hours with data; months are calendar months in each worksite’s time zone.</li>
         <li>A go-start needs TR = TPOP + TC wholly workable; waiting on weather runs to the next go-start; a usable window is a workable run of at least TR.</li>
         <li>Campaigns start on the 1st of each month at 00:00 in every hindcast year; P50/P90 by linear interpolation between order statistics (Hyndman &amp; Fan type 7); a year that runs past the end of the data is censored and left out.</li>
+        <li>
+          Live outlook: from the time printed, the steps not yet done run in order on the latest forecast’s go-starts, then in each hindcast year from the same calendar
+          time (a step with no go-start left in the forecast waits for the forecast’s end); each forecast × hindcast year pair is one sample. P10/P50/P90 of the finish
+          over the samples that finish (type 7); the hindcast-only figures from the same start show how much the forecast moved the date. The history lists the outlook
+          stored by each planning run.
+        </li>
         <li>Ledger: all hours of a day are planned; hours not workable at OPLIM or without data count as lost. The expectation is the month’s lost hours over the hindcast years (P50/P90).</li>
         <li>{TRANSFORMATION_CAUTION}</li>
       </ul>

@@ -17,12 +17,14 @@ const ENTITY_LABEL: Record<AuditEntity, string> = {
   worksite: 'Worksite',
   alpha: 'Alpha table',
   project: 'Setup import',
+  campaign: 'Campaign progress',
 };
 const ENTITY_FILTER_LABEL: Record<AuditEntity, string> = {
   operation: 'Operations',
   worksite: 'Worksites',
   alpha: 'Alpha table',
   project: 'Setup imports',
+  campaign: 'Campaign progress',
 };
 const ACTION_LABEL = { create: 'added', update: 'changed', delete: 'deleted', import: 'imported' } as const;
 
