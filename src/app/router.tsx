@@ -1,7 +1,7 @@
 import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from './query-client';
-import { meQueryOptions } from '../features/auth/api/get-me';
-import { projectQueryOptions } from '../features/projects/api/get-projects';
+import { meQueryOptions } from '../api/me';
+import { projectQueryOptions } from '../api/projects';
 import { AppLayout } from './layouts/app-layout';
 import { ProjectLayout } from './layouts/project-layout';
 import { SignInPage } from '../features/auth/components/sign-in-page';

@@ -1,5 +1,5 @@
 import { NavLink, Outlet, useParams } from 'react-router-dom';
-import { useProject } from '../../features/projects/api/get-projects';
+import { useProject } from '../../api/projects';
 import { ErrorNotice, Spinner } from '../../components/ui';
 import { PROJECT_SECTIONS } from '../sections';
 import { RoleBadge } from '../../features/projects/components/role-badge';

@@ -4,8 +4,8 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CreateProjectInput } from '../../../../shared/schemas/projects';
 import { Button, Card, ErrorNotice, FieldShell, Input, PageHeader, Spinner } from '../../../components/ui';
-import { useMe } from '../../auth/api/get-me';
-import { useProjects } from '../api/get-projects';
+import { useMe } from '../../../api/me';
+import { useProjects } from '../../../api/projects';
 import { useCreateProject } from '../api/mutations';
 import { RoleBadge } from './role-badge';
 
@@ -55,7 +55,7 @@ function CreateProjectCard({ onDone }: { onDone: () => void }) {
     <Card className="mb-5">
       <form
         className="grid gap-4"
-        onSubmit={form.handleSubmit((v) => create.mutate(v, { onSuccess: (p) => navigate(`/projects/${p.id}/settings`) }))}
+        onSubmit={form.handleSubmit((v) => create.mutate(v, { onSuccess: (p) => void navigate(`/projects/${p.id}/settings`) }))}
       >
         <FieldShell label="Project name" htmlFor="project-name" error={form.formState.errors.name?.message}>
           <Input id="project-name" {...form.register('name')} invalid={!!form.formState.errors.name} />

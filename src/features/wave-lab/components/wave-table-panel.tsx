@@ -167,7 +167,7 @@ function WaveTable({ rows, typing, fetching, lastValid }: { rows: WaveTableRow[]
           1110-2-1100, Part II-1), by linear theory. Every column is dimensionless. Click a heading to sort.
         </p>
         <dl className="grid gap-x-4 gap-y-0.5 sm:grid-cols-2">
-          {COLUMN_TEXT.filter((c) => c.meaning).map((c) => (
+          {COLUMN_TEXT.filter((c) => Boolean(c.meaning)).map((c) => (
             <div key={c.key}>
               <dt className="inline font-serif font-semibold text-ink italic">{c.header}</dt>
               <dd className="inline">: {c.meaning}</dd>

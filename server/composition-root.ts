@@ -1,3 +1,5 @@
+// The composition root: the one place that wires the server, the scheduled jobs (jobs/) and the demo
+// seed (seed/) together. The linter lets no other server file import jobs/ or seed/.
 import crypto from 'node:crypto';
 import http from 'node:http';
 import path from 'node:path';

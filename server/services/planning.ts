@@ -1,15 +1,15 @@
 import crypto from 'node:crypto';
 import { and, desc, eq } from 'drizzle-orm';
-import { comparePlans, type PlanSummary } from '../shared/alerts/compare-plans';
-import type { OperationSitePlan } from '../shared/api-types-plan';
-import type { AppDeps } from '../server/deps';
-import { alert, planRun, project } from '../server/db/schema';
-import { fetchLatestForecast } from '../server/services/forecasts';
-import { projectPlan } from '../server/services/plans';
-import { covers, effectiveSubscriptions } from '../server/services/subscriptions';
-import { alertEmail, type ChangeWithReason, unsubscribeToken } from '../server/services/alert-mail';
-import { deliverDueMail, enqueueMail, type OutboxMessage } from '../server/services/outbox';
-import type { Db } from '../server/db/client';
+import { comparePlans, type PlanSummary } from '../../shared/alerts/compare-plans';
+import type { OperationSitePlan } from '../../shared/api-types-plan';
+import type { AppDeps } from '../deps';
+import { alert, planRun, project } from '../db/schema';
+import { fetchLatestForecast } from './forecasts';
+import { projectPlan } from './plans';
+import { covers, effectiveSubscriptions } from './subscriptions';
+import { alertEmail, type ChangeWithReason, unsubscribeToken } from './alert-mail';
+import { deliverDueMail, enqueueMail, type OutboxMessage } from './outbox';
+import type { Db } from '../db/client';
 
 export type JobTrigger = 'schedule' | 'manual' | 'cli';
 

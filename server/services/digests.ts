@@ -1,13 +1,13 @@
 import { and, desc, eq } from 'drizzle-orm';
 import { format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
-import type { PlanSummary } from '../shared/alerts/compare-plans';
-import { CAUTION_LINE } from '../shared/caution';
-import type { AppDeps } from '../server/deps';
-import { planRun, project } from '../server/db/schema';
-import { escapeHtml, localTime, unsubscribeToken } from '../server/services/alert-mail';
-import { enqueueMail } from '../server/services/outbox';
-import { covers, effectiveSubscriptions, markDigestSent } from '../server/services/subscriptions';
+import type { PlanSummary } from '../../shared/alerts/compare-plans';
+import { CAUTION_LINE } from '../../shared/caution';
+import type { AppDeps } from '../deps';
+import { planRun, project } from '../db/schema';
+import { escapeHtml, localTime, unsubscribeToken } from './alert-mail';
+import { enqueueMail } from './outbox';
+import { covers, effectiveSubscriptions, markDigestSent } from './subscriptions';
 
 
 /**

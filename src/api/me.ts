@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { MeResponse } from '../../../../shared/api-types';
-import { api, ApiError } from '../../../lib/api';
+import type { MeResponse } from '../../shared/api-types';
+import { api, ApiError } from '../lib/api';
 
-/** The signed-in user, or null when anonymous. */
+/** `GET /api/me`: the signed-in user, or null when anonymous. */
 export async function getMe(): Promise<MeResponse | null> {
   try {
     return await api<MeResponse>('/api/me');

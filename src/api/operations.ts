@@ -1,8 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { OperationResponse } from '../../../../shared/api-types-sites';
-import { api } from '../../../lib/api';
+import type { OperationResponse } from '../../shared/api-types-sites';
+import { api } from '../lib/api';
 
-/** `GET /api/projects/:projectId/operations`: operations with their limits (OPLIM). */
+/** `GET /api/projects/:projectId/operations`: the project's operations with their limits (OPLIM), by name. */
 export const getOperations = (projectId: string) => api<OperationResponse[]>(`/api/projects/${projectId}/operations`);
 
 export const operationsQueryOptions = (projectId: string) =>
