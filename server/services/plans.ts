@@ -11,6 +11,7 @@ import { Lru } from './lru';
 import { encodedAnswer } from './encoded-answers';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup } from './site-context';
 import { readSeries } from './series-store';
+import { STATS_FORMAT } from './workability';
 
 const STATUS_NAMES: HourStatus[] = [];
 STATUS_NAMES[STATUS.NO_DATA] = 'no_data';
@@ -36,7 +37,7 @@ const planMemos = new WeakMap<Db, Lru<Promise<Omit<PlanAnswer, 'generatedAt'>>>>
 const MS_PER_MINUTE = 60_000;
 
 function setupKey(setup: ProjectSetup): string {
-  return createHash('sha256').update(JSON.stringify(setup)).digest('hex').slice(0, 32);
+  return createHash('sha256').update(JSON.stringify([STATS_FORMAT, setup])).digest('hex').slice(0, 32);
 }
 
 /**

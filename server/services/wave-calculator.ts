@@ -61,5 +61,6 @@ export function seaStateAnswer(q: SeaStateQuery) {
     peakWavelength: s.peakWavelengthM,
     bedVelocityLinear: s.bedVelocityLinearMps,
     bedVelocitySoulsby: s.bedVelocitySoulsbyMps,
+    bedVelocitySoulsbyRms: s.bedVelocityRmsSoulsbyMps,
   };
 }

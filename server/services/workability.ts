@@ -35,8 +35,12 @@ import { encodedAnswer, forgetEncodedAnswers } from './encoded-answers';
 
 export type DatasetRow = NonNullable<Awaited<ReturnType<typeof latestDataset>>>;
 
-/** Bump when the way the statistics are computed changes, so cached answers are not reused. */
-const STATS_FORMAT = 1;
+/**
+ * Bump when the way the statistics are computed changes, so cached answers are not reused.
+ * 2: Soulsby bed velocity U_s = 2*U_rms (was 1.414*U_rms), weather-restricted range TR <= 96 h,
+ * local time step (durations) for series that change step.
+ */
+export const STATS_FORMAT = 2;
 
 // ---------------------------------------------------------------------------------------------
 // In-process memos (per database handle, so test databases never share entries)
@@ -306,7 +310,7 @@ export async function projectWorkabilityJson(db: Db, projectId: string, options:
   const row = await statisticsDataset(db, projectId, options.datasetId);
   if (!row) return { datasetId: null, body: Buffer.from('[]') };
   const setup = await loadProjectSetup(db, projectId);
-  const setupHash = createHash('sha256').update(JSON.stringify([setup, row.dataPointDepthM])).digest('hex').slice(0, 32);
+  const setupHash = createHash('sha256').update(JSON.stringify([STATS_FORMAT, setup, row.dataPointDepthM])).digest('hex').slice(0, 32);
   const body = await encodedAnswer(db, `workability:${row.id}:${setupHash}:${options.alpha}`, () => workabilityEntries(db, row, setup, options.alpha));
   return { datasetId: row.id, body };
 }

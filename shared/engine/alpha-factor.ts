@@ -1,10 +1,42 @@
 import type { AlphaTable, OperationSpec } from './types';
 
 /**
- * Largest reference period TR = TPOP + TC of a weather-restricted operation, h
- * (docs/domain.md#weather-restricted).
+ * Largest planned duration TPOP of a weather-restricted operation, h. From memory of DNV-ST-N001
+ * and its predecessor DNV-OS-H101 (which say "less than"); the bound is included here, the safe
+ * side because alpha < 1 there (docs/domain.md#weather-restricted).
  */
-export const WEATHER_RESTRICTED_MAX_TR_H = 72;
+export const WEATHER_RESTRICTED_MAX_TPOP_H = 72;
+
+/**
+ * Largest reference period TR = TPOP + TC of a weather-restricted operation, h. From memory of
+ * DNV-ST-N001 and DNV-OS-H101 ("less than"); the bound is included (docs/domain.md#weather-restricted).
+ */
+export const WEATHER_RESTRICTED_MAX_TR_H = 96;
+
+/**
+ * Whether an operation is planned as weather-restricted: marked so, TPOP <= 72 h and TR <= 96 h
+ * (both bounds included). Any other operation is not weather-restricted: a forecast plan shows its
+ * hours against OPLIM for information only and never offers it a go-start, a usable window or
+ * "may start now" (docs/domain.md#convention-5, docs/domain.md#convention-5); its hindcast statistics are at OPLIM.
+ */
+export function isWeatherRestricted(op: { tpopH: number; tcH: number; weatherRestricted: boolean }): boolean {
+  return op.weatherRestricted && op.tpopH <= WEATHER_RESTRICTED_MAX_TPOP_H && op.tpopH + op.tcH <= WEATHER_RESTRICTED_MAX_TR_H;
+}
+
+/**
+ * Checks that an alpha table covers every weather-restricted operation: its last TPOP bound is at
+ * least {@link WEATHER_RESTRICTED_MAX_TPOP_H} (72 h). A table that stops short would leave a
+ * weather-restricted operation without a row (docs/domain.md#convention-5: never a silent alpha = 1).
+ *
+ * @returns null when covered, else the reason.
+ */
+export function alphaTableCoverageProblem(table: AlphaTable): string | null {
+  const last = table.tpopBoundsH[table.tpopBoundsH.length - 1];
+  if (!(last >= WEATHER_RESTRICTED_MAX_TPOP_H)) {
+    return `the last TPOP bound must be at least ${WEATHER_RESTRICTED_MAX_TPOP_H} h so that every weather-restricted operation (TPOP up to ${WEATHER_RESTRICTED_MAX_TPOP_H} h) has a row (here ${last} h)`;
+  }
+  return null;
+}
 
 /**
  * Checks an alpha table's shape: at least one row and one column, TPOP bounds and Hs columns
@@ -37,12 +69,12 @@ function assertAscending(xs: readonly number[], what: string): void {
 /**
  * Row of the alpha table that applies to an operation, or -1 when alpha = 1 (docs/domain.md#convention-5).
  *
- * - Not weather-restricted: -1 (alpha = 1). Decision: docs/domain.md#weather-restricted applies OPWF = alpha * OPLIM to
- *   weather-restricted operations planned on a forecast; an operation that is not weather-restricted
- *   is designed for the statistical extremes and works at OPLIM, so alpha = 1.
- * - TR above {@link WEATHER_RESTRICTED_MAX_TR_H} (72 h), and so also TPOP above 72 h: -1.
- * - Else the first row whose TPOP bound is not exceeded (TPOP equal to a bound takes that row);
- *   TPOP above the last bound of an edited table: -1 (the table does not cover it).
+ * - Not weather-restricted ({@link isWeatherRestricted}: not marked so, TPOP above 72 h or TR
+ *   above 96 h): -1. Its hours are at OPLIM for information only: the forecast plan gives it no
+ *   go-start, window or "may start now" (docs/domain.md#convention-5), and hindcast statistics are at OPLIM.
+ * - Else the first row whose TPOP bound is not exceeded (TPOP equal to a bound takes that row).
+ *   A table whose last bound is below the TPOP (an old stored table; edits must cover 72 h, see
+ *   {@link alphaTableCoverageProblem}) gives its last row, the smallest alpha: never alpha = 1.
  *
  * @param tpopH planned duration TPOP, h (finite, >= 0)
  * @param trH reference period TR = TPOP + TC, h (finite, >= TPOP)
@@ -52,10 +84,10 @@ export function alphaRowIndex(table: AlphaTable, tpopH: number, trH: number, wea
   assertAlphaTable(table);
   if (!(Number.isFinite(tpopH) && tpopH >= 0)) throw new RangeError(`TPOP ${tpopH} h must be finite and >= 0`);
   if (!(Number.isFinite(trH) && trH >= 0)) throw new RangeError(`TR ${trH} h must be finite and >= 0`);
-  if (!weatherRestricted || trH > WEATHER_RESTRICTED_MAX_TR_H || tpopH > WEATHER_RESTRICTED_MAX_TR_H) return -1;
+  if (!weatherRestricted || trH > WEATHER_RESTRICTED_MAX_TR_H || tpopH > WEATHER_RESTRICTED_MAX_TPOP_H) return -1;
   const bounds = table.tpopBoundsH;
   for (let r = 0; r < bounds.length; r++) if (tpopH <= bounds[r]) return r;
-  return -1;
+  return bounds.length - 1;
 }
 
 /**
@@ -85,14 +117,14 @@ export function interpolateClamped(xs: ArrayLike<number>, ys: ArrayLike<number>,
 }
 
 /**
- * Alpha factor for an Hs limit: OPWF = alpha * OPLIM (docs/domain.md#weather-restricted;
+ * Alpha factor for an Hs limit: OPWF = alpha * OPLIM (docs/domain.md#operations-and-limits;
  * table from memory of DNV-ST-N001). Row by TPOP, linear in Hs, docs/domain.md#convention-5; see
  * {@link alphaRowIndex} for when alpha is 1.
  *
  * @param tpopH planned duration TPOP, h
  * @param hsLimitM Hs limit at OPLIM, m
  * @param trH reference period TR = TPOP + TC, h
- * @param weatherRestricted false gives alpha = 1
+ * @param weatherRestricted false gives alpha = 1 (statuses at OPLIM, for information only)
  * @returns alpha, dimensionless, in (0, 1]
  * @throws RangeError for a malformed table or a non-finite TPOP/TR.
  * @example alphaFor(DEFAULT_ALPHA_TABLE, 24, 3, 30, true) // 0.745 (halfway 0.73..0.76)

@@ -1,6 +1,7 @@
 import { zonedMonthStartMs, zoneOffsetMs } from './calendar-index';
 import { nextGoStartIndex } from './go-starts';
 import { quantileR7 } from './quantile-r7';
+import { recordSteps } from './record-steps';
 import { MS_PER_HOUR, assertStep } from './workable-runs';
 
 /** One campaign step: an operation at a worksite. */
@@ -63,14 +64,14 @@ export interface CampaignMonthResult {
  * go-start before the data end.
  *
  * Hindcast years for a start month: the years whose start date lies within the data, from the
- * first record's time to the last record's time + dt (a start before the data begins would count
+ * first record's time to the last record's end (its time + its local step, record-steps.ts) (a start before the data begins would count
  * the missing months as waiting; a start after its end has no data at all).
  *
  * Each step's "next go-start at or after record i" is precomputed once by a backward scan; a
  * lookup is one binary search for the first record at or after t.
  *
  * @param timeMs the campaign's time axis (the hindcast records), UTC epoch ms, ascending
- * @param stepMs dt, ms
+ * @param stepMs fallback dt, ms (a series without any stretch of equal spacings)
  * @param steps ordered steps; each step's go-start flags match `timeMs` (or the step's own `timeMs`)
  * @returns one entry per start month, in the order of `startMonths`
  * @throws RangeError for no steps, a non-positive TPOP, mismatched lengths, a start month outside
@@ -103,7 +104,7 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
     return startMonths.map((startMonth) => ({ startMonth, years: 0, censoredYears: [], p50Hours: null, p90Hours: null, wowP50Hours: null, wowP90Hours: null, runs: [] }));
   }
   const firstMs = timeMs[0];
-  const endMs = timeMs[n - 1] + stepMs;
+  const endMs = timeMs[n - 1] + recordSteps(timeMs, stepMs).durationMs[n - 1];
   const firstYear = new Date(firstMs + zoneOffsetMs(timeZone, firstMs)).getUTCFullYear();
   const lastYear = new Date(endMs + zoneOffsetMs(timeZone, endMs)).getUTCFullYear();
 

@@ -1,33 +1,36 @@
 import { STATUS } from './types';
-import { recordsForTr } from './workable-runs';
+import { recordSteps } from './record-steps';
+import { assertStep, trThresholdMs } from './workable-runs';
 
 /**
- * Go-start flags: 1 where [t0, t0 + TR) is wholly workable, that is ceil(TR / dt) consecutive
- * workable records start at t0, all present, each at most 1.5 * dt after the one before
- * (docs/domain.md#weather-windows, #convention-9 to #convention-10). There is none in the last TR - dt of a series.
+ * Go-start flags: 1 where [t0, t0 + TR) is wholly workable: the consecutive workable records from
+ * t0 (none separated by a gap) cover at least TR in time, their durations summed (docs/domain.md,
+ * "Weather windows"; docs/domain.md#convention-9 to #convention-10; local steps in record-steps.ts). With one step dt this is
+ * ceil(TR / dt) records, and there is none in the last (ceil(TR / dt) - 1) * dt of a series.
  *
  * @param timeMs record times, UTC epoch ms, ascending
  * @param status STATUS code per record
- * @param stepMs dt, ms
+ * @param stepMs fallback dt, ms (a series without any stretch of equal spacings)
  * @param trH reference period TR = TPOP + TC, h
  * @param out optional buffer of the series' length
  * @returns Uint8Array, 1 at a go-start, 0 elsewhere
  * @throws RangeError for a non-positive TR or dt or arrays of unequal length.
  */
 export function goStarts(timeMs: Float64Array, status: Uint8Array, stepMs: number, trH: number, out?: Uint8Array): Uint8Array {
-  const need = recordsForTr(trH, stepMs);
+  assertStep(stepMs);
+  const trMs = trThresholdMs(trH);
   const n = timeMs.length;
   const flags = out ?? new Uint8Array(n);
   if (flags.length !== n) throw new RangeError('goStarts: out buffer must have the series length');
   if (status.length !== n) throw new RangeError('status and times must have the same length');
-  // Same backward pass as runRemaining, without keeping the run lengths.
-  const maxGap = 1.5 * stepMs;
-  let run = 0;
+  const { durationMs, continues } = recordSteps(timeMs, stepMs);
+  // Backward pass: covered time of the workable run from each record on.
+  let runMs = 0;
   for (let i = n - 1; i >= 0; i--) {
-    if (status[i] !== STATUS.WORKABLE) run = 0;
-    else if (i === n - 1 || timeMs[i + 1] - timeMs[i] > maxGap) run = 1;
-    else run++;
-    flags[i] = run >= need ? 1 : 0;
+    if (status[i] !== STATUS.WORKABLE) runMs = 0;
+    else if (continues[i] === 0) runMs = durationMs[i];
+    else runMs += durationMs[i];
+    flags[i] = runMs >= trMs ? 1 : 0;
   }
   return flags;
 }

@@ -6,13 +6,14 @@ export { DEFAULT_ALPHA_TABLE, defaultAlphaTable } from './default-alpha-table';
 export * from './schemas';
 
 // Limits and hourly status
-export { WEATHER_RESTRICTED_MAX_TR_H, alphaFactor, alphaFor, alphaInRow, alphaRowIndex, assertAlphaTable } from './alpha-factor';
+export { WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H, alphaTableCoverageProblem, isWeatherRestricted, alphaFactor, alphaFor, alphaInRow, alphaRowIndex, assertAlphaTable } from './alpha-factor';
 export { evaluateHours, assertSeriesLengths, type EvaluateOptions } from './evaluate-hours';
 export { evaluateStatus, type EvaluateStatusOptions } from './evaluate-status';
 
 // Weather windows and the forecast plan
 export { detectStepMs } from './detect-step';
-export { MS_PER_HOUR, recordsForTr, runRemaining, workableRuns, type WorkableRun } from './workable-runs';
+export { recordSteps, type RecordSteps } from './record-steps';
+export { MS_PER_HOUR, recordsForTr, runRemaining, sumDurations, trThresholdMs, workableRuns, type WorkableRun } from './workable-runs';
 export { goStarts, nextGoStartIndex } from './go-starts';
 export { usableWindows, type WindowOptions } from './usable-windows';
 export { planOperation, type OperationPlan, type PlanOptions } from './plan-operation';

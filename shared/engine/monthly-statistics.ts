@@ -1,7 +1,8 @@
 import type { CalendarIndex } from './calendar-index';
 import { quantileR7Upper } from './quantile-r7';
 import { STATUS } from './types';
-import { MS_PER_HOUR, assertStep, recordsForTr } from './workable-runs';
+import { recordSteps } from './record-steps';
+import { MS_PER_HOUR, assertStep, trThresholdMs } from './workable-runs';
 
 /** Statistics of one group of records (a calendar month over all years, or one year-month). */
 export interface MonthStatisticsBase {
@@ -11,9 +12,9 @@ export interface MonthStatisticsBase {
   records: number;
   /** Records whose status is not "no data" (docs/domain.md#convention-13). */
   recordsWithData: number;
-  /** Workable records / records with data, 0-1; null without data. */
+  /** Workable time / time with data (records weighted by duration; with one step, records), 0-1; null without data. */
   workability: number | null;
-  /** Go-start records / records with data, 0-1; null without data. */
+  /** Go-start time / time with data (records weighted by duration), 0-1; null without data. */
   goStartShare: number | null;
   /** Mean waiting on weather over the non-censored records, h; null when all are censored. */
   wowMeanHours: number | null;
@@ -25,7 +26,7 @@ export interface MonthStatisticsBase {
   windows: number;
   /** Usable windows per month: windows / years with records in the month; null without records. */
   windowsPerMonth: number | null;
-  /** Mean length of those windows (count * dt), h; null without windows. */
+  /** Mean length of those windows (sums of record durations; count * dt with one step), h; null without windows. */
   meanWindowHours: number | null;
 }
 
@@ -114,16 +115,18 @@ function calendarGroups(ym: Int32Array): CalendarGroups {
 /**
  * Hindcast statistics per calendar month and per year-month (docs/domain.md#hindcast-statistics;
  * docs/domain.md#convention-9 to #convention-14):
- * - workability W = workable records / records with data (only STATUS.WORKABLE counts; pass
- *   statuses computed with alpha: false for "without alpha", docs/domain.md#convention-14);
- * - go-start share = go-start records / records with data;
+ * - workability W = workable records / records with data, each record weighted by its duration
+ *   (local step, record-steps.ts: a series 3-hourly early and hourly later counts time, not
+ *   records; with one step the plain counts) (only STATUS.WORKABLE counts; pass statuses computed
+ *   with alpha: false for "without alpha", docs/domain.md#convention-14);
+ * - go-start share = go-start records / records with data, weighted the same way;
  * - waiting on weather (WoW) for every record, no-data records included: the next go-start's time
  *   minus the record's time in real hours (gaps included), 0 at a go-start; censored, and counted as
  *   such, when there is no go-start at or after it (docs/domain.md#convention-12); mean and type-7 90th percentile
  *   over the non-censored records;
- * - usable windows (workable runs of at least ceil(TR / dt) records; a gap over 1.5 * dt breaks a
- *   run) counted in the month of their first record; per calendar month divided by the number of
- *   years with records in that month (docs/domain.md#convention-11); their mean length count * dt.
+ * - usable windows (workable runs at least TR long in time; a gap breaks a run, a change of step
+ *   does not) counted in the month of their first record; per calendar month divided by the number
+ *   of years with records in that month (docs/domain.md#convention-11); their mean length (sums of durations).
  *
  * Cost: for an ascending calendar (calendarIndex's), one backward pass over the records does the
  * WoW, the windows and every per-year-month sum; the percentiles take O(n) selection (see
@@ -135,7 +138,7 @@ function calendarGroups(ym: Int32Array): CalendarGroups {
  * @param timeMs record times, UTC epoch ms, ascending
  * @param status STATUS code per record
  * @param goStart go-start flags for TR (see goStarts)
- * @param stepMs dt, ms
+ * @param stepMs fallback dt, ms (a series without any stretch of equal spacings, record-steps.ts)
  * @param calendar calendar months of the records in the worksite's time zone (see calendarIndex)
  * @param trH reference period TR = TPOP + TC, h: sets the usable window length
  * @param scratch optional reusable buffers
@@ -181,7 +184,7 @@ function statisticsCore(
   scratch: StatisticsScratch | undefined,
 ): MonthlyStatistics {
   assertStep(stepMs);
-  const need = recordsForTr(trH, stepMs);
+  const trMs = trThresholdMs(trH);
   const n = timeMs.length;
   const ymArr = calendar.yearMonth;
   if (status.length !== n || goStart.length !== n || ymArr.length !== n) {
@@ -189,35 +192,38 @@ function statisticsCore(
   }
   const months: MonthStatistics[] = Array.from({ length: 12 }, (_, m) => emptyMonth(m + 1));
   if (n === 0) return { months, yearMonths: [] };
+  const { durationMs, continues } = recordSteps(timeMs, stepMs);
 
   const s = scratch && scratch.wowMs.length >= n && scratch.byMonth.length >= n && scratch.tmp.length >= n ? scratch : createStatisticsScratch(n);
   const wow = s.wowMs;
   const { ymMin, K, order, start } = calendarGroups(ymArr);
   const records = new Int32Array(K);
   const withData = new Int32Array(K);
-  const workable = new Int32Array(K);
-  const starts = new Int32Array(K);
   const censored = new Int32Array(K);
   const wowCount = new Int32Array(K);
   const wowSumMs = new Float64Array(K);
   const windows = new Int32Array(K);
-  const windowRecords = new Float64Array(K);
-  const acc: Accumulators = { withData, workable, starts, wowSumMs, windows, windowRecords };
+  const windowMs = new Float64Array(K);
+  const withDataMs = new Float64Array(K);
+  const workableMs = new Float64Array(K);
+  const startsMs = new Float64Array(K);
+  const acc: Accumulators = { withData, withDataMs, workableMs, startsMs, wowSumMs, windows, windowMs };
   for (let g = 0; g < K; g++) records[g] = start[g + 1] - start[g];
   let firstCensored: number;
   if (order === null) {
     // Ascending calendar: one backward pass, year-month by year-month, does everything.
-    firstCensored = backwardPassGrouped(timeMs, status, goStart, findGoStarts, start, 1.5 * stepMs, need, wow, acc);
+    firstCensored = backwardPassGrouped(timeMs, durationMs, continues, status, goStart, findGoStarts, start, trMs, wow, acc);
   } else {
-    firstCensored = backwardPass(timeMs, status, goStart, findGoStarts, ymArr, ymMin, 1.5 * stepMs, need, wow, windows, windowRecords);
-    const sums = new Float64Array(4);
+    firstCensored = backwardPass(timeMs, durationMs, continues, status, goStart, findGoStarts, ymArr, ymMin, trMs, wow, windows, windowMs);
+    const sums = new Float64Array(5);
     for (let g = 0; g < K; g++) {
       if (records[g] === 0) continue;
-      groupSumsOrdered(status, goStart, wow, order, start[g], start[g + 1], sums);
+      groupSumsOrdered(durationMs, status, goStart, wow, order, start[g], start[g + 1], sums);
       withData[g] = sums[0];
-      workable[g] = sums[1];
-      starts[g] = sums[2];
-      wowSumMs[g] = sums[3];
+      withDataMs[g] = sums[1];
+      workableMs[g] = sums[2];
+      startsMs[g] = sums[3];
+      wowSumMs[g] = sums[4];
     }
   }
   // WoW counts per year-month and the calendar-month layout of `byMonth`.
@@ -244,21 +250,23 @@ function statisticsCore(
   }
 
   const yearMonths: YearMonthStatistics[] = [];
-  const mAcc = new Float64Array(12 * 10);
+  const W = 11;
+  const mAcc = new Float64Array(12 * W);
   for (let g = 0; g < K; g++) {
     if (records[g] === 0) continue;
     const m = (g + ymMin) % 12;
-    const o = m * 10;
+    const o = m * W;
     mAcc[o] += records[g];
     mAcc[o + 1] += withData[g];
-    mAcc[o + 2] += workable[g];
-    mAcc[o + 3] += starts[g];
+    mAcc[o + 2] += workableMs[g];
+    mAcc[o + 3] += startsMs[g];
     mAcc[o + 4] += wowCount[g];
     mAcc[o + 5] += wowSumMs[g];
     mAcc[o + 6] += censored[g];
     mAcc[o + 7] += windows[g];
-    mAcc[o + 8] += windowRecords[g];
+    mAcc[o + 8] += windowMs[g];
     mAcc[o + 9] += 1;
+    mAcc[o + 10] += withDataMs[g];
     let p90: number | null = null;
     if (wowCount[g] > 0) {
       // The year-month's values: a slice of `wow` (ascending calendar) or its part of `byMonth`.
@@ -270,15 +278,15 @@ function statisticsCore(
     }
     yearMonths.push({
       year: Math.floor((g + ymMin) / 12),
-      ...summarise(m + 1, records[g], withData[g], workable[g], starts[g], wowCount[g], wowSumMs[g], p90, censored[g], windows[g], windowRecords[g], 1, stepMs),
+      ...summarise(m + 1, records[g], withData[g], withDataMs[g], workableMs[g], startsMs[g], wowCount[g], wowSumMs[g], p90, censored[g], windows[g], windowMs[g], 1),
     });
   }
   for (let m = 0; m < 12; m++) {
-    const o = m * 10;
+    const o = m * W;
     if (mAcc[o] === 0) continue;
     const p90 = mAcc[o + 4] > 0 ? p90Ms(byMonth, monthStart[m], monthStart[m + 1], s.tmp) / MS_PER_HOUR : null;
     months[m] = {
-      ...summarise(m + 1, mAcc[o], mAcc[o + 1], mAcc[o + 2], mAcc[o + 3], mAcc[o + 4], mAcc[o + 5], p90, mAcc[o + 6], mAcc[o + 7], mAcc[o + 8], mAcc[o + 9], stepMs),
+      ...summarise(m + 1, mAcc[o], mAcc[o + 1], mAcc[o + 10], mAcc[o + 2], mAcc[o + 3], mAcc[o + 4], mAcc[o + 5], p90, mAcc[o + 6], mAcc[o + 7], mAcc[o + 8], mAcc[o + 9]),
       years: mAcc[o + 9],
     };
   }
@@ -289,29 +297,35 @@ function statisticsCore(
 // feedback (one large function with several long loops deoptimizes between them).
 
 interface Accumulators {
+  /** Records with data (a count). */
   withData: Int32Array;
-  workable: Int32Array;
-  starts: Int32Array;
+  /** Durations of the records with data, workable records and go-starts, ms. */
+  withDataMs: Float64Array;
+  workableMs: Float64Array;
+  startsMs: Float64Array;
   wowSumMs: Float64Array;
   windows: Int32Array;
-  windowRecords: Float64Array;
+  /** Summed lengths of the usable windows, ms. */
+  windowMs: Float64Array;
 }
 
 /**
  * Backward pass over an ascending calendar, year-month by year-month (group g holds records
- * [start[g], start[g + 1])): go-starts (read, or found from the run length when `findGoStarts`),
- * waiting on weather per record (ms; NaN = censored), usable windows counted in the year-month of
- * their first record, and the per-year-month sums. Returns the index of the first censored
- * record: every record after the last go-start (n when none is censored, 0 when all are).
+ * [start[g], start[g + 1])): go-starts (read, or found from the run's covered time when
+ * `findGoStarts`), waiting on weather per record (ms; NaN = censored), usable windows counted in
+ * the year-month of their first record, and the per-year-month sums (durations for the shares).
+ * Returns the index of the first censored record: every record after the last go-start (n when
+ * none is censored, 0 when all are).
  */
 function backwardPassGrouped(
   timeMs: Float64Array,
+  dur: Float64Array,
+  cont: Uint8Array,
   status: Uint8Array,
   goStart: Uint8Array,
   findGoStarts: boolean,
   start: Int32Array,
-  maxGapMs: number,
-  need: number,
+  trMs: number,
   wow: Float64Array,
   acc: Accumulators,
 ): number {
@@ -320,36 +334,40 @@ function backwardPassGrouped(
   const n = timeMs.length;
   let nextT = NaN;
   let firstCensored = n;
-  let run = 0;
+  let runMs = 0;
   for (let g = start.length - 2; g >= 0; g--) {
     let withData = 0;
-    let workable = 0;
-    let starts = 0;
+    let withDataMs = 0;
+    let workableMs = 0;
+    let startsMs = 0;
     let wowSum = 0;
     for (let i = start[g + 1] - 1; i >= start[g]; i--) {
       const t = timeMs[i];
       const st = status[i];
+      const d = dur[i];
       let go: boolean;
       if (st === WORKABLE) {
-        workable++;
-        run++;
-        go = findGoStarts ? run >= need : goStart[i] !== 0;
+        workableMs += d;
+        runMs = cont[i] === 0 ? d : runMs + d;
+        go = findGoStarts ? runMs >= trMs : goStart[i] !== 0;
         // i starts its run when the record before it does not continue the run.
-        if (i === 0 || status[i - 1] !== WORKABLE || t - timeMs[i - 1] > maxGapMs) {
-          if (run >= need) {
+        if (i === 0 || status[i - 1] !== WORKABLE || cont[i - 1] === 0) {
+          if (runMs >= trMs) {
             acc.windows[g]++;
-            acc.windowRecords[g] += run;
+            acc.windowMs[g] += runMs;
           }
-          run = 0;
         }
       } else {
-        run = 0;
+        runMs = 0;
         go = !findGoStarts && goStart[i] !== 0;
       }
       if (findGoStarts) goStart[i] = go ? 1 : 0;
-      if (st !== NO_DATA) withData++;
+      if (st !== NO_DATA) {
+        withData++;
+        withDataMs += d;
+      }
       if (go) {
-        starts++;
+        startsMs += d;
         if (nextT !== nextT) firstCensored = i + 1;
         nextT = t;
       }
@@ -358,8 +376,9 @@ function backwardPassGrouped(
       if (w === w) wowSum += w;
     }
     acc.withData[g] = withData;
-    acc.workable[g] = workable;
-    acc.starts[g] = starts;
+    acc.withDataMs[g] = withDataMs;
+    acc.workableMs[g] = workableMs;
+    acc.startsMs[g] = startsMs;
     acc.wowSumMs[g] = wowSum;
   }
   return nextT !== nextT ? 0 : firstCensored;
@@ -368,38 +387,38 @@ function backwardPassGrouped(
 /** backwardPassGrouped for any calendar: WoW and windows only, windows by their first record's year-month. */
 function backwardPass(
   timeMs: Float64Array,
+  dur: Float64Array,
+  cont: Uint8Array,
   status: Uint8Array,
   goStart: Uint8Array,
   findGoStarts: boolean,
   ymArr: Int32Array,
   ymMin: number,
-  maxGapMs: number,
-  need: number,
+  trMs: number,
   wow: Float64Array,
   windows: Int32Array,
-  windowRecords: Float64Array,
+  windowMs: Float64Array,
 ): number {
   const n = timeMs.length;
   const WORKABLE: number = STATUS.WORKABLE;
   let nextT = NaN;
   let firstCensored = n;
-  let run = 0;
+  let runMs = 0;
   for (let i = n - 1; i >= 0; i--) {
     const t = timeMs[i];
     let go: boolean;
     if (status[i] === WORKABLE) {
-      run++;
-      go = findGoStarts ? run >= need : goStart[i] !== 0;
-      if (i === 0 || status[i - 1] !== WORKABLE || t - timeMs[i - 1] > maxGapMs) {
-        if (run >= need) {
+      runMs = cont[i] === 0 ? dur[i] : runMs + dur[i];
+      go = findGoStarts ? runMs >= trMs : goStart[i] !== 0;
+      if (i === 0 || status[i - 1] !== WORKABLE || cont[i - 1] === 0) {
+        if (runMs >= trMs) {
           const g = ymArr[i] - ymMin;
           windows[g]++;
-          windowRecords[g] += run;
+          windowMs[g] += runMs;
         }
-        run = 0;
       }
     } else {
-      run = 0;
+      runMs = 0;
       go = !findGoStarts && goStart[i] !== 0;
     }
     if (findGoStarts) goStart[i] = go ? 1 : 0;
@@ -412,26 +431,32 @@ function backwardPass(
   return nextT !== nextT ? 0 : firstCensored;
 }
 
-function groupSumsOrdered(status: Uint8Array, goStart: Uint8Array, wow: Float64Array, order: Int32Array, a: number, b: number, out: Float64Array): void {
+function groupSumsOrdered(dur: Float64Array, status: Uint8Array, goStart: Uint8Array, wow: Float64Array, order: Int32Array, a: number, b: number, out: Float64Array): void {
   let withData = 0;
-  let workable = 0;
-  let starts = 0;
+  let withDataMs = 0;
+  let workableMs = 0;
+  let startsMs = 0;
   let wowSum = 0;
   const NO_DATA: number = STATUS.NO_DATA;
   const WORKABLE: number = STATUS.WORKABLE;
   for (let k = a; k < b; k++) {
     const i = order[k];
     const st = status[i];
-    withData += st !== NO_DATA ? 1 : 0;
-    workable += st === WORKABLE ? 1 : 0;
-    starts += goStart[i] !== 0 ? 1 : 0;
+    const d = dur[i];
+    if (st !== NO_DATA) {
+      withData++;
+      withDataMs += d;
+    }
+    if (st === WORKABLE) workableMs += d;
+    if (goStart[i] !== 0) startsMs += d;
     const w = wow[i];
     if (w === w) wowSum += w;
   }
   out[0] = withData;
-  out[1] = workable;
-  out[2] = starts;
-  out[3] = wowSum;
+  out[1] = withDataMs;
+  out[2] = workableMs;
+  out[3] = startsMs;
+  out[4] = wowSum;
 }
 
 function countCensoredOrdered(order: Int32Array, a: number, b: number, firstCensored: number): number {
@@ -477,28 +502,28 @@ function summarise(
   month: number,
   records: number,
   withData: number,
-  workable: number,
-  starts: number,
+  withDataMs: number,
+  workableMs: number,
+  startsMs: number,
   wowCount: number,
   wowSumMs: number,
   wowP90Hours: number | null,
   censored: number,
   windows: number,
-  windowRecords: number,
+  windowMs: number,
   years: number,
-  stepMs: number,
 ): MonthStatisticsBase {
   return {
     month,
     records,
     recordsWithData: withData,
-    workability: withData > 0 ? workable / withData : null,
-    goStartShare: withData > 0 ? starts / withData : null,
+    workability: withData > 0 ? workableMs / withDataMs : null,
+    goStartShare: withData > 0 ? startsMs / withDataMs : null,
     wowMeanHours: wowCount > 0 ? wowSumMs / wowCount / MS_PER_HOUR : null,
     wowP90Hours,
     censored,
     windows,
     windowsPerMonth: years > 0 ? windows / years : null,
-    meanWindowHours: windows > 0 ? (windowRecords * stepMs) / windows / MS_PER_HOUR : null,
+    meanWindowHours: windows > 0 ? windowMs / windows / MS_PER_HOUR : null,
   };
 }

@@ -1,7 +1,9 @@
+import { isWeatherRestricted } from './alpha-factor';
 import { detectStepMs } from './detect-step';
 import { evaluateHours } from './evaluate-hours';
 import { goStarts } from './go-starts';
 import type { AlphaTable, OperationSpec, SiteSeries, UsableWindow } from './types';
+import { recordSteps } from './record-steps';
 import { usableWindows } from './usable-windows';
 import { assertStep } from './workable-runs';
 
@@ -9,7 +11,10 @@ import { assertStep } from './workable-runs';
 export interface PlanOptions {
   /** Apply alpha (OPWF) to the Hs limits. Default true; false plans on OPLIM. */
   alpha?: boolean;
-  /** Time step dt, ms; default: the median spacing of the series (docs/domain.md#convention-9). */
+  /**
+   * Fallback time step dt, ms, for a series without any stretch of equal spacings; default: the
+   * median spacing (docs/domain.md#convention-9). Elsewhere each record's own local step applies (record-steps.ts).
+   */
   stepMs?: number;
 }
 
@@ -17,8 +22,15 @@ export interface PlanOptions {
 export interface OperationPlan {
   /** Record times, UTC epoch ms (the series' own array, not a copy). */
   times: Float64Array;
-  /** dt used, ms. */
+  /** Fallback dt used, ms (record durations are the local steps). */
   stepMs: number;
+  /** Duration of each record (its local step), ms. */
+  durationMs: Float64Array;
+  /**
+   * The operation is not weather-restricted (docs/domain.md#convention-5): statuses are at OPLIM for information
+   * only; goStart is all 0, there are no windows, no earliest start and startNow is false.
+   */
+  informationOnly: boolean;
   /** STATUS code per record. */
   status: Uint8Array;
   /** LIMIT code of the limiting factor per record. */
@@ -31,16 +43,23 @@ export interface OperationPlan {
   windows: UsableWindow[];
   /** Earliest go-start at or after the record covering nowMs, UTC epoch ms, or null. */
   earliestStartMs: number | null;
-  /** The operation may start now: the record covering nowMs, [t, t + dt), is a go-start. */
+  /** The operation may start now: the record covering nowMs, [t, t + dt_i), is a go-start. */
   startNow: boolean;
 }
 
 /**
- * Plans one operation at one worksite on a forecast (docs/domain.md#weather-windows: hourly status
+ * Plans one operation at one worksite on a forecast (docs/domain.md#weather-windows): hourly status
  * with the limiting factor and margin, go-starts for TR, usable windows with their smallest
  * margins, the earliest go-start and whether the operation may start now.
  *
- * Decisions (docs/domain.md leaves them open):
+ * An operation that is not weather-restricted (isWeatherRestricted: not marked so, TPOP above 72 h or
+ * TR above 96 h) gets its statuses at OPLIM for information only and never a go-start, a window,
+ * an earliest start or "may start now" (docs/domain.md#convention-5).
+ *
+ * Records have their local step (record-steps.ts): runs, go-starts and windows continue across a
+ * change of step, and TR is measured in time.
+ *
+ * Decisions (docs/domain.md is silent):
  * - "May start now" means the record whose interval [t, t + dt) holds nowMs is a go-start. When
  *   nowMs falls in a gap or outside the series, no record covers it and startNow is false.
  * - The earliest go-start is the first go-start whose record covers nowMs or starts after it; it
@@ -60,15 +79,22 @@ export function planOperation(series: SiteSeries, op: OperationSpec, alphaTable:
   assertStep(stepMs);
   const { status, limiting, marginRel } = evaluateHours(series, op, { alpha, alphaTable });
   const times = series.timeMs;
+  const durationMs = recordSteps(times, stepMs).durationMs;
+  const informationOnly = !isWeatherRestricted(op);
+  if (informationOnly) {
+    const none = new Uint8Array(times.length);
+    return { times, stepMs, durationMs, informationOnly, status, limiting, marginRel, goStart: none, windows: [], earliestStartMs: null, startNow: false };
+  }
   const goStart = goStarts(times, status, stepMs, op.tpopH + op.tcH);
   const windows = usableWindows(series, op, status, stepMs, { alpha, alphaTable }).filter((w) => w.endMs > nowMs);
 
-  // First record whose interval ends after now: t + dt > nowMs.
+  // First record whose interval ends after now: t + dt_i > nowMs (record ends ascend: each record
+  // ends at or before the next one starts, except where jitter overlaps, which the search tolerates).
   let lo = 0;
   let hi = times.length;
   while (lo < hi) {
     const mid = (lo + hi) >>> 1;
-    if (times[mid] + stepMs > nowMs) hi = mid;
+    if (times[mid] + durationMs[mid] > nowMs) hi = mid;
     else lo = mid + 1;
   }
   const covering = lo < times.length && times[lo] <= nowMs ? lo : -1;
@@ -80,5 +106,5 @@ export function planOperation(series: SiteSeries, op: OperationSpec, alphaTable:
       break;
     }
   }
-  return { times, stepMs, status, limiting, marginRel, goStart, windows, earliestStartMs, startNow };
+  return { times, stepMs, durationMs, informationOnly, status, limiting, marginRel, goStart, windows, earliestStartMs, startNow };
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { AlphaTable, OperationLimits, OperationSpec } from './types';
+import { alphaTableCoverageProblem } from './alpha-factor';
 
 /**
  * Zod schemas for operation limits, operations and alpha tables, shared by the server (request
@@ -84,7 +85,7 @@ export const operationSpecSchema = z.object({
 });
 
 /**
- * Alpha table: TPOP bounds (h) and Hs columns (m), each strictly ascending and within range; one
+ * Alpha table (the last TPOP bound at least 72 h, see alphaTableCoverageProblem): TPOP bounds (h) and Hs columns (m), each strictly ascending and within range; one
  * row per bound with one value per column, every value in (0, 1].
  */
 export const alphaTableSchema = z
@@ -104,6 +105,9 @@ export const alphaTableSchema = z
     t.values.forEach((row, r) => {
       if (row.length !== t.hsColumnsM.length) ctx.addIssue({ code: 'custom', path: ['values', r], message: 'One value per Hs column' });
     });
+    // docs/domain.md#convention-5: the table must reach TPOP 72 h, so no weather-restricted operation falls back to alpha = 1.
+    const coverage = t.tpopBoundsH.length > 0 ? alphaTableCoverageProblem(t) : null;
+    if (coverage) ctx.addIssue({ code: 'custom', path: ['tpopBoundsH', t.tpopBoundsH.length - 1], message: coverage });
   });
 
 // Compile-time checks that parsed values fit the engine's types.

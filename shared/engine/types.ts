@@ -11,7 +11,7 @@
  * NaN marks a missing value. Times are UTC epoch milliseconds, strictly ascending.
  */
 export interface SiteSeries {
-  /** Record start times, UTC epoch ms, strictly ascending. Each record stands for [t, t + dt). */
+  /** Record start times, UTC epoch ms, strictly ascending. Each record stands for [t, t + dt_i), dt_i its local step (record-steps.ts). */
   timeMs: Float64Array;
   /** Significant wave height Hm0 at the worksite, m. */
   hsM: Float64Array;
@@ -115,9 +115,9 @@ export interface UsableWindow {
   count: number;
   /** Start, UTC epoch ms (the first record's time). */
   startMs: number;
-  /** Exclusive end, UTC epoch ms: start + count * dt. */
+  /** Exclusive end, UTC epoch ms: start + the sum of the records' durations (count * dt with one step). */
   endMs: number;
-  /** Length count * dt, h. */
+  /** Length: the sum of the records' durations (local steps, record-steps.ts), h. */
   hours: number;
   minMargin: WindowMargin;
 }

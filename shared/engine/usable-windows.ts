@@ -1,7 +1,8 @@
 import { alphaAt, bandDistance, compileLimits, curveHsAt } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
 import type { AlphaTable, LimitName, OperationSpec, SiteSeries, UsableWindow } from './types';
-import { MS_PER_HOUR, recordsForTr, runRemaining } from './workable-runs';
+import { recordSteps } from './record-steps';
+import { MS_PER_HOUR, runRemaining, sumDurations, trThresholdMs } from './workable-runs';
 
 /** Options of {@link usableWindows}: the same as were used for the statuses. */
 export interface WindowOptions {
@@ -11,8 +12,9 @@ export interface WindowOptions {
 }
 
 /**
- * Usable weather windows: workable runs at least TR long, that is of at least ceil(TR / dt)
- * records (docs/domain.md#weather-windows, #convention-9 to #convention-10), each with its smallest margins
+ * Usable weather windows: workable runs at least TR long in time, the sum of their records'
+ * durations (docs/domain.md#weather-windows; docs/domain.md#convention-9 to #convention-10: ceil(TR / dt) records with one step;
+ * a run continues across a change of step, see record-steps.ts), each with its smallest margins
  * (docs/domain.md#convention-16).
  *
  * Margins, per limit, the minimum over the window's records of (limit - value) in the limit's
@@ -24,16 +26,17 @@ export interface WindowOptions {
  * @param series the worksite series the statuses were computed from
  * @param op the operation
  * @param status STATUS codes from evaluateHours with the same alpha option
- * @param stepMs dt, ms
- * @returns windows in time order; end exclusive (start + count * dt)
+ * @param stepMs fallback dt, ms (a series without any stretch of equal spacings)
+ * @returns windows in time order; end exclusive (start + the sum of durations)
  * @throws RangeError as evaluateHours and goStarts do.
  */
 export function usableWindows(series: SiteSeries, op: OperationSpec, status: Uint8Array, stepMs: number, options: WindowOptions): UsableWindow[] {
   assertSeriesLengths(series);
   const c = compileLimits(op, options.alphaTable, options.alpha !== false);
-  const need = recordsForTr(c.trH, stepMs);
+  const trMs = trThresholdMs(c.trH);
   const timeMs = series.timeMs;
   const rem = runRemaining(timeMs, status, stepMs);
+  const dur = recordSteps(timeMs, stepMs).durationMs;
   const bedArr = c.bedSoulsby ? series.bedVelocitySoulsbyMps : series.bedVelocityLinearMps;
   const relOut = new Float64Array(1);
   const windows: UsableWindow[] = [];
@@ -44,7 +47,8 @@ export function usableWindows(series: SiteSeries, op: OperationSpec, status: Uin
       i++;
       continue;
     }
-    if (count >= need) {
+    const lengthMs = sumDurations(dur, i, i + count);
+    if (lengthMs >= trMs) {
       const perLimit: Partial<Record<LimitName, number>> = {};
       let relative = Infinity;
       const low = (name: LimitName, margin: number, rel: number): void => {
@@ -75,8 +79,8 @@ export function usableWindows(series: SiteSeries, op: OperationSpec, status: Uin
         startIndex: i,
         count,
         startMs,
-        endMs: startMs + count * stepMs,
-        hours: (count * stepMs) / MS_PER_HOUR,
+        endMs: startMs + lengthMs,
+        hours: lengthMs / MS_PER_HOUR,
         minMargin: { perLimit, relative },
       });
     }

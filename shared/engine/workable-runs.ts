@@ -1,3 +1,4 @@
+import { recordSteps } from './record-steps';
 import { STATUS } from './types';
 
 /** A maximal run of consecutive workable records. */
@@ -8,9 +9,9 @@ export interface WorkableRun {
   count: number;
   /** Start, UTC epoch ms. */
   startMs: number;
-  /** Exclusive end, UTC epoch ms: start + count * dt (docs/domain.md#convention-10). */
+  /** Exclusive end, UTC epoch ms: start + the sum of the records' durations (count * dt with one step, docs/domain.md#convention-10). */
   endMs: number;
-  /** Length count * dt, h. */
+  /** Length: the sum of the records' durations, h. */
   hours: number;
 }
 
@@ -18,7 +19,9 @@ export interface WorkableRun {
 export const MS_PER_HOUR = 3_600_000;
 
 /**
- * Records needed for a go-start: ceil(TR / dt), at least 1 (docs/domain.md#convention-10). A relative tolerance of
+ * Records needed for a go-start in a series of one step: ceil(TR / dt), at least 1 (docs/domain.md#convention-10).
+ * The engine itself measures TR in time (sums of record durations, see record-steps.ts), which
+ * gives the same go-starts for one step. A relative tolerance of
  * 1e-9 keeps a TR that is a whole number of steps from rounding up by floating-point noise.
  *
  * @param trH reference period TR, h (> 0)
@@ -37,11 +40,21 @@ export function assertStep(stepMs: number): void {
 }
 
 /**
+ * TR in ms with a relative tolerance of 1e-9 below it, so a TR that is a whole number of steps is
+ * met by records whose durations add up to it despite floating-point noise in trH * 3.6e6.
+ */
+export function trThresholdMs(trH: number): number {
+  if (!(trH > 0 && Number.isFinite(trH))) throw new RangeError(`TR ${trH} h must be finite and positive`);
+  return trH * MS_PER_HOUR * (1 - 1e-9);
+}
+
+/**
  * Remaining run length: for each record, the number of consecutive workable records starting at
- * it (0 when it is not workable). A record continues the one before it when they are at most
- * 1.5 * dt apart (docs/domain.md#convention-9); a longer gap breaks the run. One backward pass.
+ * it (0 when it is not workable). A record continues the one before it unless the spacing between
+ * them is a gap (local step rule, see record-steps.ts; with one step: more than 1.5 * dt apart,
+ * docs/domain.md#convention-9). One backward pass.
  *
- * @param stepMs dt, ms
+ * @param stepMs fallback dt, ms, for a series without any stretch of equal spacings
  * @param out optional buffer of the series' length to write into
  * @returns Int32Array of run lengths, records
  */
@@ -51,11 +64,11 @@ export function runRemaining(timeMs: Float64Array, status: Uint8Array, stepMs: n
   if (status.length !== n) throw new RangeError('status and times must have the same length');
   const rem = out ?? new Int32Array(n);
   if (rem.length !== n) throw new RangeError('runRemaining: out buffer must have the series length');
-  const maxGap = 1.5 * stepMs;
+  const cont = recordSteps(timeMs, stepMs).continues;
   let next = 0;
   for (let i = n - 1; i >= 0; i--) {
     if (status[i] !== STATUS.WORKABLE) next = 0;
-    else if (i === n - 1 || timeMs[i + 1] - timeMs[i] > maxGap) next = 1;
+    else if (cont[i] === 0) next = 1;
     else next = next + 1;
     rem[i] = next;
   }
@@ -63,16 +76,18 @@ export function runRemaining(timeMs: Float64Array, status: Uint8Array, stepMs: n
 }
 
 /**
- * Maximal runs of consecutive workable records (docs/domain.md#weather-windows, #convention-9 to #convention-10).
+ * Maximal runs of consecutive workable records (docs/domain.md#weather-windows; docs/domain.md#convention-9 to #convention-10).
  * Only STATUS.WORKABLE counts: marginal, not workable and no data end a run, and so does a gap
- * longer than 1.5 * dt.
+ * (local step rule, record-steps.ts). A run continues across a change of step; its length is the
+ * sum of its records' durations and its end start + that length (exclusive).
  *
  * @param timeMs record times, UTC epoch ms, ascending
  * @param status STATUS code per record
- * @param stepMs dt, ms
+ * @param stepMs fallback dt, ms (a series without any stretch of equal spacings)
  */
 export function workableRuns(timeMs: Float64Array, status: Uint8Array, stepMs: number): WorkableRun[] {
   const rem = runRemaining(timeMs, status, stepMs);
+  const dur = recordSteps(timeMs, stepMs).durationMs;
   const runs: WorkableRun[] = [];
   for (let i = 0; i < rem.length; ) {
     const count = rem[i];
@@ -81,8 +96,16 @@ export function workableRuns(timeMs: Float64Array, status: Uint8Array, stepMs: n
       continue;
     }
     const startMs = timeMs[i];
-    runs.push({ startIndex: i, count, startMs, endMs: startMs + count * stepMs, hours: (count * stepMs) / MS_PER_HOUR });
+    const lengthMs = sumDurations(dur, i, i + count);
+    runs.push({ startIndex: i, count, startMs, endMs: startMs + lengthMs, hours: lengthMs / MS_PER_HOUR });
     i += count;
   }
   return runs;
+}
+
+/** Sum of dur[from, to), ms. */
+export function sumDurations(dur: Float64Array, from: number, to: number): number {
+  let sum = 0;
+  for (let k = from; k < to; k++) sum += dur[k];
+  return sum;
 }

@@ -1,14 +1,14 @@
 /**
  * Input schemas for worksites, operations, the alpha table and the project setup document.
  * The server parses request bodies with them and the client forms reuse them, so both sides
- * refuse the same values with the same messages (docs/domain.md#transformation and
- * #operations-and-limits).
+ * refuse the same values with the same messages (docs/domain.md, "From the data point to the
+ * worksite" and "Operations and limits").
  *
  * Units are fixed by the field: depth in m, bearings in degrees "coming from" clockwise from true
  * north, TPOP and TC in h, limits as in `shared/engine/schemas.ts`.
  */
 import { z } from 'zod';
-import { WEATHER_RESTRICTED_MAX_TR_H } from '../engine/alpha-factor';
+import { WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../engine/alpha-factor';
 import { alphaTableSchema, LIMIT_RANGES, operationLimitsSchema } from '../engine/schemas';
 import { longText, nameText, storableText } from './common';
 
@@ -72,7 +72,7 @@ const bandEdge = finite('A Tp band edge')
   .max(TRANSFER_TP_EDGE_MAX_S, `A Tp band edge must be at most ${TRANSFER_TP_EDGE_MAX_S} s`);
 
 /**
- * A site-specific transfer table (docs/domain.md#transformation, #convention-17):
+ * A site-specific transfer table (docs/domain.md#transformation; docs/domain.md#convention-17):
  * `factors[sector][band]` = Hs_site/Hs_src for waves coming from the direction sector with a peak
  * period in the Tp band.
  *
@@ -321,7 +321,7 @@ function unquote(cell: string): string {
 
 /** Depth range of a worksite, m (0.5 m: a wading-depth floor; 11000 m: the deepest ocean trench). */
 export const SITE_DEPTH_RANGE_M = { min: 0.5, max: 11000 } as const;
-/** Breaker index gamma_b range (Hs/d; 0.6 is the common-practice default for Hs, docs/domain.md#transformation). */
+/** Breaker index gamma_b range (Hs/d; 0.6 is the common-practice default for Hs, docs/domain.md). */
 export const BREAKER_INDEX_RANGE = { min: 0.3, max: 1.2, default: 0.6 } as const;
 
 const timeZoneField = z
@@ -343,7 +343,7 @@ const worksiteFields = {
     .max(SITE_DEPTH_RANGE_M.max, `Depth must be at most ${SITE_DEPTH_RANGE_M.max} m`),
   /**
    * Shore-normal bearing beta, degrees "coming from" in [0, 360] (360 is stored as 0);
-   * null = no refraction (docs/domain.md#transformation, step 1).
+   * null = no refraction (docs/domain.md step 1).
    */
   shoreNormal: finite('Shore normal')
     .min(0, 'Shore normal must be at least 0°')
@@ -396,7 +396,7 @@ const operationFields = {
   tpop: hours('TPOP', LIMIT_RANGES.tpopH),
   /** contingency time TC, h */
   tc: hours('TC', LIMIT_RANGES.tcH),
-  /** planned on a forecast with OPWF = alpha * OPLIM (needs TR <= 72 h) */
+  /** planned on a forecast with OPWF = alpha * OPLIM (needs TPOP <= 72 h and TR <= 96 h) */
   weatherRestricted: z.boolean({ error: 'Weather-restricted must be true or false' }),
   /** OPLIM: at least one limit (shared/engine/schemas.ts) */
   limits: operationLimitsSchema,
@@ -407,8 +407,9 @@ const operationFields = {
 };
 
 /**
- * Refuses a weather-restricted operation whose reference period TR = TPOP + TC exceeds 72 h
- * (docs/domain.md#weather-restricted), and ids listed twice.
+ * Refuses an operation marked weather-restricted whose TPOP exceeds 72 h or whose reference period
+ * TR = TPOP + TC exceeds 96 h (both bounds included; from memory of DNV-ST-N001 and DNV-OS-H101,
+ * docs/domain.md#weather-restricted), and ids listed twice.
  */
 function checkOperation(
   v: { tpop?: number; tc?: number; weatherRestricted?: boolean; siteIds?: string[]; skipperIds?: string[] },
@@ -416,11 +417,17 @@ function checkOperation(
 ): void {
   if (v.weatherRestricted && v.tpop !== undefined && v.tc !== undefined) {
     const tr = v.tpop + v.tc;
-    if (tr > WEATHER_RESTRICTED_MAX_TR_H) {
+    if (v.tpop > WEATHER_RESTRICTED_MAX_TPOP_H) {
       ctx.addIssue({
         code: 'custom',
         path: ['weatherRestricted'],
-        message: `A weather-restricted operation needs TR = TPOP + TC of at most ${WEATHER_RESTRICTED_MAX_TR_H} h (here ${tr} h): shorten it or plan it as unrestricted`,
+        message: `A weather-restricted operation needs TPOP of at most ${WEATHER_RESTRICTED_MAX_TPOP_H} h (here ${v.tpop} h): split it at safe points or plan it as not weather-restricted`,
+      });
+    } else if (tr > WEATHER_RESTRICTED_MAX_TR_H) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['weatherRestricted'],
+        message: `A weather-restricted operation needs TR = TPOP + TC of at most ${WEATHER_RESTRICTED_MAX_TR_H} h (here ${tr} h): shorten it or plan it as not weather-restricted`,
       });
     }
   }

@@ -1,6 +1,6 @@
 /**
  * Sea-state (irregular wave) quantities from Hs and the periods: energy, power and near-bed orbital
- * velocity by two methods (docs/domain.md#sea-states, #bed-velocity).
+ * velocity by two methods (docs/domain.md#sea-states).
  */
 import { G_DEFAULT_MPS2, RHO_SEAWATER_KGM3 } from './constants';
 import { celerities } from './celerity';
@@ -72,7 +72,7 @@ export function seaStatePower(hsM: number, teS: number, depthM: number, constant
 }
 
 /**
- * Near-bed orbital velocity, linear significant method (docs/domain.md#bed-velocity, method 1, common practice):
+ * Near-bed orbital velocity, linear significant method (docs/domain.md, method 1, common practice):
  * u_bs = pi*Hs/(Tp*sinh(k_p*d)), k_p the linear wavenumber of Tp at depth d. 1/sinh is evaluated
  * overflow-free, so deep water gives 0, not NaN.
  *
@@ -94,15 +94,16 @@ export function bedVelocityLinear(hsM: number, tpS: number, depthM: number, g: n
 }
 
 /**
- * Near-bed velocity per metre of Hs by Soulsby (2006): the factor F with U_s = F*Hs. Used by the
- * series transformation to cache per period. See `bedVelocitySoulsby`.
+ * Root-mean-square near-bed velocity per metre of Hs by Soulsby (2006): the factor R with
+ * U_rms = R*Hs, R = (1/(4 Tn)) / (1 + A t^2)^3. Used by the series transformation to cache per
+ * period. See `bedVelocitySoulsby`.
  *
  * @param tzS - zero-crossing period Tz, s, > 0.
  * @param depthM - water depth d, m, > 0; Infinity gives 0.
  * @param g - gravitational acceleration, m/s2.
- * @returns F, 1/s.
+ * @returns R, 1/s.
  */
-export function soulsbyVelocityPerHs(tzS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
+export function soulsbyRmsVelocityPerHs(tzS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
   if (depthM === Infinity) return 0;
   const tn = Math.sqrt(depthM / g);
   const t = tn / tzS;
@@ -110,16 +111,52 @@ export function soulsbyVelocityPerHs(tzS: number, depthM: number, g: number = G_
   const b2 = base * base;
   const a = Math.pow(6500 + b2 * b2 * b2, 1 / 6);
   const denom = 1 + a * t * t;
-  return (Math.SQRT2 / (4 * tn)) / (denom * denom * denom);
+  return 1 / (4 * tn) / (denom * denom * denom);
 }
 
 /**
- * Near-bed orbital velocity, significant amplitude, by Soulsby (2006), "Simplified calculation of
- * wave orbital velocities", HR Wallingford report TR 155 (formula as written in docs/domain.md#bed-velocity, from
- * memory): Tn = sqrt(d/g), t = Tn/Tz, A = (6500 + (0.56 + 15.54 t)^6)^(1/6),
- * U_rms = (Hs/(4 Tn)) / (1 + A t^2)^3, and the significant amplitude U_s = sqrt(2)*U_rms is
- * returned (comparable with the linear significant u_bs). Shallow-water limit
- * U_s -> (sqrt(2)/4) Hs sqrt(g/d); deep water -> 0.
+ * Significant near-bed velocity per metre of Hs by Soulsby (2006): the factor F with U_s = F*Hs,
+ * F = 2*R (see `soulsbyRmsVelocityPerHs` and `bedVelocitySoulsby`). Used by the series
+ * transformation to cache per period.
+ *
+ * @param tzS - zero-crossing period Tz, s, > 0.
+ * @param depthM - water depth d, m, > 0; Infinity gives 0.
+ * @param g - gravitational acceleration, m/s2.
+ * @returns F, 1/s.
+ */
+export function soulsbyVelocityPerHs(tzS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
+  return 2 * soulsbyRmsVelocityPerHs(tzS, depthM, g);
+}
+
+/**
+ * Root-mean-square near-bed orbital velocity U_rms by Soulsby (2006), "Simplified calculation of
+ * wave orbital velocities", HR Wallingford report TR 155 (from memory; docs/domain.md#bed-velocity):
+ * Tn = sqrt(d/g), t = Tn/Tz, A = (6500 + (0.56 + 15.54 t)^6)^(1/6),
+ * U_rms = (Hs/(4 Tn)) / (1 + A t^2)^3. U_rms is the standard deviation of the near-bed velocity
+ * time series (the square root of the integral of its spectrum), not an amplitude.
+ *
+ * @param hsM - significant wave height Hs, m, >= 0.
+ * @param tzS - mean zero-crossing period Tz, s, > 0.
+ * @param depthM - water depth d, m, > 0; Infinity gives 0.
+ * @param g - gravitational acceleration, m/s2 (default 9.81).
+ * @returns U_rms, m/s.
+ * @throws RangeError for bad Hs, Tz, depth or g.
+ * @example bedVelocityRmsSoulsby(2, 6, 10) // 0.3475 m/s
+ */
+export function bedVelocityRmsSoulsby(hsM: number, tzS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
+  assertHs(hsM);
+  assertPeriod('tzS', tzS);
+  assertDepth(depthM);
+  if (!(g > 0 && g < Infinity)) throw new RangeError(`g must be a positive finite number, got ${g}`);
+  return hsM * soulsbyRmsVelocityPerHs(tzS, depthM, g);
+}
+
+/**
+ * Near-bed orbital velocity, significant amplitude, by Soulsby (2006) (see
+ * `bedVelocityRmsSoulsby` for the formula of U_rms): U_s = 2*U_rms, consistent with
+ * Hs = 4*sqrt(m0) (the significant value is twice the standard deviation) and so comparable with
+ * the linear significant u_bs and with a limit stated as significant (docs/domain.md#bed-velocity).
+ * Shallow-water limit U_s -> (1/2) Hs sqrt(g/d), as linear theory gives; deep water -> 0.
  *
  * @param hsM - significant wave height Hs, m, >= 0.
  * @param tzS - mean zero-crossing period Tz, s, > 0 (docs/domain.md#convention-8: from Tp by the JONSWAP ratio
@@ -128,14 +165,10 @@ export function soulsbyVelocityPerHs(tzS: number, depthM: number, g: number = G_
  * @param g - gravitational acceleration, m/s2 (default 9.81).
  * @returns U_s, m/s.
  * @throws RangeError for bad Hs, Tz, depth or g.
- * @example bedVelocitySoulsby(2, 6, 10) // 0.4914 m/s
+ * @example bedVelocitySoulsby(2, 6, 10) // 0.6950 m/s
  */
 export function bedVelocitySoulsby(hsM: number, tzS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
-  assertHs(hsM);
-  assertPeriod('tzS', tzS);
-  assertDepth(depthM);
-  if (!(g > 0 && g < Infinity)) throw new RangeError(`g must be a positive finite number, got ${g}`);
-  return hsM * soulsbyVelocityPerHs(tzS, depthM, g);
+  return 2 * bedVelocityRmsSoulsby(hsM, tzS, depthM, g);
 }
 
 /** Inputs of `seaState`. */
@@ -168,8 +201,10 @@ export interface SeaState {
   peakWavelengthM: number;
   /** Linear significant bed velocity u_bs at Tp, m/s. */
   bedVelocityLinearMps: number;
-  /** Soulsby (2006) significant bed velocity U_s at Tz, m/s. */
+  /** Soulsby (2006) significant bed velocity U_s = 2*U_rms at Tz, m/s. */
   bedVelocitySoulsbyMps: number;
+  /** Soulsby (2006) root-mean-square bed velocity U_rms at Tz (the standard deviation of the near-bed velocity), m/s. */
+  bedVelocityRmsSoulsbyMps: number;
 }
 
 /**
@@ -201,5 +236,6 @@ export function seaState(params: SeaStateParams): SeaState {
     peakWavelengthM: (2 * Math.PI) / k,
     bedVelocityLinearMps: bedVelocityLinear(hsM, periods.tpS, depthM, g),
     bedVelocitySoulsbyMps: bedVelocitySoulsby(hsM, periods.tzS, depthM, g),
+    bedVelocityRmsSoulsbyMps: bedVelocityRmsSoulsby(hsM, periods.tzS, depthM, g),
   };
 }

@@ -60,6 +60,13 @@ describe('wave calculator API', () => {
     expect(sea.body.bedVelocitySoulsby).toBeGreaterThan(0);
   });
 
+  it('Soulsby (2006): Hs 1 m, Tp 10 s, d 10 m gives U_s = 2 U_rms, about 0.40 m/s (by hand in tests/waves/sea-state.test.ts)', async () => {
+    const sea = await client.get('/api/wave/sea-state').query({ hs: 1, tp: 10, depth: 10 });
+    expect(sea.status).toBe(200);
+    expect(Math.abs(sea.body.bedVelocitySoulsby - 0.4005)).toBeLessThan(1e-3);
+    expect(Math.abs(sea.body.bedVelocitySoulsbyRms - 0.2003)).toBeLessThan(1e-3);
+  });
+
   it('is for signed-in users only', async () => {
     expect((await request(t.app).get('/api/wave/regular').query({ period: 10, height: 2, depth: 3 })).status).toBe(401);
   });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_ALPHA_TABLE, alphaFactor, alphaFor, assertAlphaTable, defaultAlphaTable, type OperationSpec } from '../../shared/engine';
+import { DEFAULT_ALPHA_TABLE, alphaFactor, alphaFor, alphaTableCoverageProblem, assertAlphaTable, defaultAlphaTable, isWeatherRestricted, type OperationSpec } from '../../shared/engine';
 
 // Expected values are read by hand from the alpha table in docs/domain.md#weather-restricted,
 // itself from memory of DNV-ST-N001's base case for waves (to be checked against the current standard).
@@ -37,11 +37,32 @@ describe('alphaFor: row by TPOP, linear in Hs (docs/domain.md#convention-5; tabl
     expect(alphaFor(T, 48.5, 2, 50, true)).toBe(0.63);
   });
 
-  it('gives 1 above 72 h TPOP or TR, and for operations that are not weather-restricted', () => {
+  // Weather-restricted range TPOP <= 72 h and TR <= 96 h, both bounds included: from memory of
+  // DNV-ST-N001 and its predecessor DNV-OS-H101 (they say "less than"; including the bounds is the
+  // safe side, alpha < 1 there).
+  it('weather-restricted up to TPOP 72 h and TR 96 h, bounds included (DNV-ST-N001 / DNV-OS-H101, from memory)', () => {
+    expect(alphaFor(T, 72, 2, 72, true)).toBe(0.63); // TPOP 72 h exactly: row 72 h
+    expect(alphaFor(T, 72, 2, 96, true)).toBe(0.63); // TR 96 h exactly still uses the table
+    expect(alphaFor(T, 48, 2, 78, true)).toBe(0.68); // TR 78 h (was refused before): row 48 h
+    expect(alphaFor(T, 60, 2, 96, true)).toBe(0.63); // TPOP 60 h takes row 72 h
+    expect(isWeatherRestricted({ tpopH: 72, tcH: 24, weatherRestricted: true })).toBe(true);
+    expect(isWeatherRestricted({ tpopH: 72, tcH: 24.5, weatherRestricted: true })).toBe(false);
+    expect(isWeatherRestricted({ tpopH: 72.5, tcH: 0, weatherRestricted: true })).toBe(false);
+    expect(isWeatherRestricted({ tpopH: 12, tcH: 0, weatherRestricted: false })).toBe(false);
+  });
+
+  it('outside the range, or not marked weather-restricted, the row is -1: statuses at OPLIM for information only', () => {
     expect(alphaFor(T, 72.5, 2, 72.5, true)).toBe(1);
-    expect(alphaFor(T, 48, 2, 78, true)).toBe(1); // TR = 48 + 30 h > 72 h
-    expect(alphaFor(T, 72, 2, 72, true)).toBe(0.63); // TR = 72 h exactly still uses the table
+    expect(alphaFor(T, 48, 2, 96.5, true)).toBe(1); // TR 96.5 h > 96 h
     expect(alphaFor(T, 12, 2, 12, false)).toBe(1);
+  });
+
+  it('a table that stops short of TPOP 72 h is reported (edits are refused) and never gives alpha = 1 (docs/domain.md#convention-5)', () => {
+    const short = { tpopBoundsH: [12, 24], hsColumnsM: [1, 2], values: [[0.6, 0.7], [0.55, 0.65]] };
+    expect(alphaTableCoverageProblem(short)).toMatch(/72 h/);
+    expect(alphaTableCoverageProblem(T)).toBeNull();
+    // An old stored table: the last row (smallest alpha), not 1.
+    expect(alphaFor(short, 48, 2, 60, true)).toBe(0.65);
   });
 
   it('alphaFactor uses the operation Hs max, TPOP and TR', () => {

@@ -95,8 +95,11 @@ describe('evaluateHours: alpha and the marginal status (docs/domain.md#conventio
     expect(statuses({ hsM: [1.47, 2] }, { ...op, weatherRestricted: false })).toEqual([WORKABLE, WORKABLE]);
   });
 
-  it('TR above 72 h: alpha = 1', () => {
-    expect(statuses({ hsM: [1.47, 2] }, { ...op, tcH: 60 })).toEqual([WORKABLE, WORKABLE]);
+  it('TR 96 h exactly is still weather-restricted (DNV-ST-N001 / DNV-OS-H101, from memory: bounds included); above it, OPLIM', () => {
+    // TPOP 24 h, TC 72 h: TR 96 h, alpha 0.73 as above.
+    expect(statuses({ hsM: [1.46, 1.47, 2] }, { ...op, tcH: 72 })).toEqual([WORKABLE, MARGINAL, MARGINAL]);
+    // TC 72.5 h: TR 96.5 h, not weather-restricted: at OPLIM (for information only in a forecast plan).
+    expect(statuses({ hsM: [1.47, 2] }, { ...op, tcH: 72.5 })).toEqual([WORKABLE, WORKABLE]);
   });
 
   it('the curve takes alpha at the curve value for the record Tp', () => {

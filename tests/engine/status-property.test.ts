@@ -9,7 +9,8 @@ import { makeSeries } from './series-factory';
 /** Alpha by the rule of docs/domain.md#convention-5, looked up naively. */
 function naiveAlpha(table: AlphaTable, op: OperationSpec, hsLimit: number, useAlpha: boolean): number {
   const tr = op.tpopH + op.tcH;
-  if (!useAlpha || !op.weatherRestricted || tr > 72 || op.tpopH > 72) return 1;
+  // Weather-restricted range TPOP <= 72 h, TR <= 96 h (DNV-ST-N001 / DNV-OS-H101, from memory).
+  if (!useAlpha || !op.weatherRestricted || tr > 96 || op.tpopH > 72) return 1;
   const row = table.tpopBoundsH.findIndex((b) => op.tpopH <= b);
   if (row < 0) return 1;
   const cols = table.hsColumnsM;

@@ -151,8 +151,9 @@ describe('usableWindows: smallest margins (docs/domain.md#convention-16)', () =>
 });
 
 describe('planOperation: earliest go-start and "may start now"', () => {
-  // Hs max 2 m, not weather-restricted, TR = 3 h. Hourly: records 0-1 rough, 2-6 calm, 7 rough, 8-9 calm.
-  const op: OperationSpec = { tpopH: 2, tcH: 1, weatherRestricted: false, limits: { hsMax: 2 } };
+  // Hs max 2 m, weather-restricted (alpha 0.76: OPWF 1.52 m), TR = 3 h. Hourly: records 0-1 rough,
+  // 2-6 calm, 7 rough, 8-9 calm.
+  const op: OperationSpec = { tpopH: 2, tcH: 1, weatherRestricted: true, limits: { hsMax: 2 } };
   const series = makeSeries({ hsM: [3, 3, 1, 1, 1, 1, 1, 3, 1, 1] });
 
   it('before the window: not now, earliest start at record 2', () => {
@@ -181,6 +182,23 @@ describe('planOperation: earliest go-start and "may start now"', () => {
     expect(plan.startNow).toBe(false);
     expect(plan.earliestStartMs).toBe(null);
     expect(plan.windows).toEqual([]);
+  });
+
+  it('not weather-restricted (docs/domain.md#convention-5): statuses at OPLIM for information, never a go-start, window or start now', () => {
+    for (const other of [
+      { ...op, weatherRestricted: false },
+      { ...op, tpopH: 73, tcH: 0 },
+      { ...op, tpopH: 24, tcH: 73 },
+    ]) {
+      const plan = planOperation(series, other, DEFAULT_ALPHA_TABLE, T0 + 3.5 * HOUR);
+      expect(plan.informationOnly).toBe(true);
+      expect(Array.from(plan.status)).toEqual([N, N, W, W, W, W, W, N, W, W]);
+      expect(Array.from(plan.goStart).every((g) => g === 0)).toBe(true);
+      expect(plan.windows).toEqual([]);
+      expect(plan.earliestStartMs).toBe(null);
+      expect(plan.startNow).toBe(false);
+    }
+    expect(planOperation(series, { ...op, tpopH: 72, tcH: 24 }, DEFAULT_ALPHA_TABLE, T0).informationOnly).toBe(false);
   });
 
   it('alpha: false plans on OPLIM', () => {

@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   bedVelocityLinear,
+  bedVelocityRmsSoulsby,
   bedVelocitySoulsby,
   regularWave,
   seaState,
@@ -73,18 +74,27 @@ describe('bedVelocitySoulsby: Soulsby (2006), HR Wallingford TR 155 (formula in 
     // A = (6500 + 1024.31)^(1/6) = 7524.31^(1/6) = exp(ln(7524.31)/6) = exp(8.92589/6) = 4.4267
     // A t^2 = 4.4267 * 0.0283158 = 0.125345;  (1.125345)^3 = 1.42514
     // U_rms = (2/(4*1.009638)) / 1.42514 = 0.495227/1.42514 = 0.347494 m/s
-    // U_s = sqrt(2) * 0.347494 = 0.49143 m/s
-    expect(Math.abs(bedVelocitySoulsby(2, 6, 10) - 0.49143)).toBeLessThan(5e-5);
+    // U_s = 2 * U_rms = 0.69499 m/s (significant = twice the standard deviation, as Hs = 4 sqrt(m0))
+    expect(Math.abs(bedVelocityRmsSoulsby(2, 6, 10) - 0.347494)).toBeLessThan(5e-5);
+    expect(Math.abs(bedVelocitySoulsby(2, 6, 10) - 0.69499)).toBeLessThan(1e-4);
   });
 
-  it('shallow-water limit: U_s -> (sqrt(2)/4) Hs sqrt(g/d), the same order as linear theory ((Hs/2) sqrt(g/d))', () => {
+  it('Hs 1 m, Tp 10 s, d 10 m: U_s about 0.40 m/s (Tz = 0.7777 Tp, DNV-RP-C205 ratio at gamma 3.3, from memory)', () => {
+    // By hand: Tz = 7.777 s, t = 1.009638/7.777 = 0.12982; (0.56 + 2.01743)^6 = 2.57743^6 = 293.6
+    // A = 6793.6^(1/6) = 4.3528; A t^2 = 0.073362; 1.073362^3 = 1.23661
+    // U_rms = (1/(4*1.009638))/1.23661 = 0.20025 m/s; U_s = 0.4005 m/s
+    expect(Math.abs(bedVelocitySoulsby(1, 7.777, 10) - 0.4005)).toBeLessThan(5e-4);
+    expect(Math.abs(seaState({ hsM: 1, tpS: 10, depthM: 10 }).bedVelocitySoulsbyMps - 0.4005)).toBeLessThan(1e-3);
+  });
+
+  it('shallow-water limit: U_s -> (1/2) Hs sqrt(g/d), the same as linear theory ((Hs/2) sqrt(g/d))', () => {
     const hs = 0.2;
     const d = 0.1;
     const us = bedVelocitySoulsby(hs, 12, d);
-    expect(us).toBeRelClose((Math.SQRT2 / 4) * hs * Math.sqrt(G / d), 0.003);
+    expect(us).toBeRelClose(0.5 * hs * Math.sqrt(G / d), 0.003);
     const ratio = us / bedVelocityLinear(hs, 12 / 0.7777, d);
-    expect(ratio).toBeGreaterThan(0.5);
-    expect(ratio).toBeLessThan(1.2);
+    expect(ratio).toBeGreaterThan(0.9);
+    expect(ratio).toBeLessThan(1.1);
   });
 
   it('deep water: -> 0 (and exactly 0 for depth Infinity)', () => {
@@ -120,6 +130,70 @@ describe('bedVelocitySoulsby: Soulsby (2006), HR Wallingford TR 155 (formula in 
   });
 });
 
+describe('Soulsby (2006) against a numerical integration of a JONSWAP spectrum through linear theory', () => {
+  // Independent check (the method, not the product's code): a JONSWAP spectrum with gamma 3.3
+  // (Hasselmann et al. 1973; sigma 0.07 below the peak, 0.09 above; common practice, no source for
+  // the constants beyond that paper), scaled so that its m0 = Hs^2/16, is passed through the linear
+  // transfer function of the near-bed velocity, |u_b/eta| = omega/sinh(k d) (k from the dispersion
+  // relation, solved here by bisection). The velocity variance is the integral of
+  // S(f) (omega/sinh(kd))^2 over f; its square root is U_rms and 2 sqrt(integral) the significant
+  // value U_s. Tz of the same spectrum is sqrt(m0/m2). Soulsby (2006), HR Wallingford TR 155, fitted
+  // his formula to this kind of integration; it agrees within about 3 % for t = Tn/Tz < 0.4 (from
+  // memory of that report).
+  const GAMMA = 3.3;
+  function jonswapShape(f: number, fp: number): number {
+    const sigma = f <= fp ? 0.07 : 0.09;
+    const r = Math.exp(-((f - fp) ** 2) / (2 * sigma * sigma * fp * fp));
+    return f ** -5 * Math.exp(-1.25 * (fp / f) ** 4) * GAMMA ** r;
+  }
+  /** Simpson's rule over [a, b] with an even number of intervals. */
+  function simpson(fn: (x: number) => number, a: number, b: number, intervals: number): number {
+    const h = (b - a) / intervals;
+    let sum = fn(a) + fn(b);
+    for (let i = 1; i < intervals; i++) sum += (i % 2 === 1 ? 4 : 2) * fn(a + i * h);
+    return (sum * h) / 3;
+  }
+  function integrated(hs: number, tp: number, d: number): { uS: number; uRms: number; tz: number } {
+    const fp = 1 / tp;
+    const lo = 0.2 * fp;
+    const hi = 12 * fp;
+    const N = 20_000;
+    const m0Shape = simpson((f) => jonswapShape(f, fp), lo, hi, N);
+    const scale = hs * hs / 16 / m0Shape;
+    const m2 = simpson((f) => scale * f * f * jonswapShape(f, fp), lo, hi, N);
+    const velocityVariance = simpson((f) => {
+      const omega = 2 * Math.PI * f;
+      const k = refK(1 / f, d);
+      const transfer = omega / Math.sinh(k * d);
+      return scale * jonswapShape(f, fp) * transfer * transfer;
+    }, lo, hi, N);
+    const uRms = Math.sqrt(velocityVariance);
+    return { uS: 2 * uRms, uRms, tz: Math.sqrt(hs * hs / 16 / m2) };
+  }
+
+  it('2 sqrt(integral) agrees with U_s = 2 U_rms within 3 % for t = Tn/Tz < 0.4 over depths and periods', () => {
+    let checked = 0;
+    for (const d of [1, 2, 5, 10, 20, 40]) {
+      for (const tp of [4, 6, 8, 10, 12, 14, 16]) {
+        const ref = integrated(1.5, tp, d);
+        const t = Math.sqrt(d / G) / ref.tz;
+        if (t >= 0.4) continue;
+        checked++;
+        const us = bedVelocitySoulsby(1.5, ref.tz, d);
+        expect(Math.abs(us - ref.uS) / ref.uS, `d ${d} m, Tp ${tp} s, t ${t.toFixed(3)}`).toBeLessThan(0.03);
+        expect(Math.abs(bedVelocityRmsSoulsby(1.5, ref.tz, d) - ref.uRms) / ref.uRms).toBeLessThan(0.03);
+      }
+    }
+    expect(checked).toBeGreaterThan(25);
+  });
+
+  it('the amplitude of the rms wave (1.414 times U_rms, used before) misses the integration by about 30 %', () => {
+    const ref = integrated(1, 10, 10);
+    const old = 1.41421356 * bedVelocityRmsSoulsby(1, ref.tz, 10);
+    expect((ref.uS - old) / ref.uS).toBeGreaterThan(0.25);
+  });
+});
+
 describe('seaState bundle', () => {
   it('completes the periods and computes energy, power at Te and both bed velocities', () => {
     const s = seaState({ hsM: 2, tpS: 10, depthM: 20 });
@@ -129,6 +203,8 @@ describe('seaState bundle', () => {
     expect(s.powerWPerM).toBeRelClose((RHO * G * 4 * refCg(9, 20)) / 16, 1e-11);
     expect(s.bedVelocityLinearMps).toBe(bedVelocityLinear(2, 10, 20));
     expect(s.bedVelocitySoulsbyMps).toBe(bedVelocitySoulsby(2, s.periods.tzS, 20));
+    expect(s.bedVelocityRmsSoulsbyMps).toBe(bedVelocityRmsSoulsby(2, s.periods.tzS, 20));
+    expect(s.bedVelocitySoulsbyMps).toBe(2 * s.bedVelocityRmsSoulsbyMps);
     expect(s.peakWavelengthM).toBeRelClose((2 * Math.PI) / refK(10, 20), 1e-12);
   });
 

@@ -20,8 +20,10 @@ export interface SeaStateAnswer {
   peakWavelength: number;
   /** Linear significant bed velocity at Tp, m/s. */
   bedVelocityLinear: number;
-  /** Soulsby (2006) significant bed velocity at Tz, m/s. */
+  /** Soulsby (2006) significant bed velocity U_s = 2*U_rms at Tz, m/s. */
   bedVelocitySoulsby: number;
+  /** Soulsby (2006) U_rms at Tz: the root-mean-square (standard deviation) of the near-bed velocity, m/s. */
+  bedVelocitySoulsbyRms: number;
 }
 
 export function getSeaState(q: SeaStateQuery, signal?: AbortSignal): Promise<SeaStateAnswer> {

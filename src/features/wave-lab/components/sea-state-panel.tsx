@@ -119,7 +119,20 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                     symbol: <>U<sub>s</sub></>,
                     value: a.bedVelocitySoulsby,
                     unit: 'm/s',
-                    note: <>√2 · U<sub>rms</sub> of the spectrum, from Tz (HR Wallingford TR 155)</>,
+                    note: <>2 · U<sub>rms</sub>: the significant value, from Tz (HR Wallingford TR 155)</>,
+                  },
+                ]}
+              />
+              <QuantityList
+                title="Near-bed orbital velocity, root-mean-square"
+                items={[
+                  {
+                    id: 'bed-velocity-soulsby-rms',
+                    label: 'RMS of the near-bed velocity, Soulsby (2006)',
+                    symbol: <>U<sub>rms</sub></>,
+                    value: a.bedVelocitySoulsbyRms,
+                    unit: 'm/s',
+                    note: 'The standard deviation of the velocity over time; not an amplitude, not for a limit stated as significant',
                   },
                 ]}
               />

@@ -1,0 +1,121 @@
+/**
+ * The local time step of every record (docs/domain.md#weather-windows, docs/domain.md#convention-9 to #convention-10).
+ *
+ * Forecasts often change step part-way (hourly for the first days, then 3-hourly) and hindcasts may
+ * be 3-hourly early and hourly later. The engine therefore never assumes one step for a whole
+ * series:
+ * - A stretch is a run of at least 3 consecutive equal spacings; its step is that spacing. A change
+ *   of step is such a new spacing that then repeats.
+ * - A spacing that belongs to no stretch is a gap when it is longer than 1.5 times the step on both
+ *   sides of it (the nearest stretch before and after; with a stretch on one side only, that side's
+ *   step counts for both). A gap breaks every run, as no data does. A shorter one is jitter: the
+ *   next record continues the run.
+ * - Record i covers [t_i, t_i + dt_i): dt_i is the step of the spacing after it (its stretch's step,
+ *   or for jitter the step before), so a run crossing a change of step is covered without a hole:
+ *   the last hourly record before a 3-hourly stretch lasts 3 h. A record before a gap, and the last
+ *   record, take the step before; a lone record after a gap at the end takes the step after it.
+ * - Run and window lengths are sums of durations; TR is measured in time (a go-start needs
+ *   [t0, t0 + TR) covered by consecutive workable records); hindcast shares weight each record by
+ *   its duration. With one step everywhere this is exactly the plain rules: continues within
+ *   1.5 * dt, each record dt long.
+ * - A series with no stretch at all (fewer than 4 records, or no 3 equal spacings in a row) uses
+ *   the fallback step (the caller's dt, by default the median spacing) for every record.
+ *
+ * The result is kept per time array (a WeakMap), so every operation at every worksite of one series
+ * shares one computation; time arrays must not change after use.
+ */
+import { detectStepMs } from './detect-step';
+
+/** Per-record steps of a series. */
+export interface RecordSteps {
+  /** Duration dt_i of each record, ms (> 0). */
+  durationMs: Float64Array;
+  /** 1 where the next record continues this one (the spacing is not a gap); 0 at a gap and at the last record. */
+  continues: Uint8Array;
+  /** The fallback step used where the series has no stretch, ms. */
+  fallbackStepMs: number;
+}
+
+const cache = new WeakMap<Float64Array, RecordSteps>();
+
+/**
+ * Local steps of a series (see the module comment).
+ *
+ * @param timeMs record times, UTC epoch ms, strictly ascending
+ * @param fallbackStepMs step for a series without any stretch, ms; default the median spacing
+ *   (docs/domain.md#convention-9), or 1 h for a single record
+ * @throws RangeError for a non-positive fallback step.
+ */
+export function recordSteps(timeMs: Float64Array, fallbackStepMs?: number): RecordSteps {
+  const n = timeMs.length;
+  const fallback = fallbackStepMs ?? (n >= 2 ? detectStepMs(timeMs) : 3_600_000);
+  if (!(fallback > 0 && Number.isFinite(fallback))) throw new RangeError(`time step ${fallback} ms must be finite and positive`);
+  const hit = cache.get(timeMs);
+  if (hit && hit.fallbackStepMs === fallback && hit.durationMs.length === n) return hit;
+  const steps = computeSteps(timeMs, fallback);
+  cache.set(timeMs, steps);
+  return steps;
+}
+
+function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
+  const n = timeMs.length;
+  const durationMs = new Float64Array(n);
+  const continues = new Uint8Array(n);
+  const result = { durationMs, continues, fallbackStepMs: fallback };
+  if (n === 0) return result;
+  if (n === 1) {
+    durationMs[0] = fallback;
+    return result;
+  }
+  const m = n - 1;
+  // Spacing i is timeMs[i + 1] - timeMs[i]. stretchStep[i]: its value when it belongs to a stretch
+  // (at least 3 equal spacings in a row), else NaN.
+  const stretchStep = new Float64Array(m);
+  markStretches(timeMs, stretchStep);
+  // Step before each spacing (nearest stretch at or before it) and after it (at or after it).
+  const before = new Float64Array(m);
+  const after = new Float64Array(m);
+  let last = NaN;
+  for (let i = 0; i < m; i++) {
+    const v = stretchStep[i];
+    if (v === v) last = v;
+    before[i] = last;
+  }
+  last = NaN;
+  for (let i = m - 1; i >= 0; i--) {
+    const v = stretchStep[i];
+    if (v === v) last = v;
+    after[i] = last;
+  }
+  for (let i = 0; i < m; i++) {
+    let b = before[i];
+    let a = after[i];
+    if (b !== b) b = a === a ? a : fallback;
+    if (a !== a) a = b;
+    const s = timeMs[i + 1] - timeMs[i];
+    const inStretch = stretchStep[i] === stretchStep[i];
+    const gap = !inStretch && s > 1.5 * b && s > 1.5 * a;
+    continues[i] = gap ? 0 : 1;
+    // The record takes its stretch's step: that of the spacing after it, or the step before a gap.
+    durationMs[i] = inStretch ? s : b;
+    before[i] = b;
+    after[i] = a;
+  }
+  // The last record: the step of the spacing before it, or after a gap the step after that gap.
+  durationMs[m] = continues[m - 1] === 1 ? durationMs[m - 1] : after[m - 1];
+  return result;
+}
+
+/** Writes the spacing into `out[i]` where spacing i belongs to a run of >= 3 equal spacings, else NaN. */
+function markStretches(timeMs: Float64Array, out: Float64Array): void {
+  const m = out.length;
+  let i = 0;
+  while (i < m) {
+    const s = timeMs[i + 1] - timeMs[i];
+    let j = i + 1;
+    while (j < m && timeMs[j + 1] - timeMs[j] === s) j++;
+    const v = j - i >= 3 ? s : NaN;
+    for (let k = i; k < j; k++) out[k] = v;
+    i = j;
+  }
+}
