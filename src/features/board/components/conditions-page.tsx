@@ -13,7 +13,8 @@ import { usePlan } from '../api/get-plan';
 import { useSites } from '../../../api/sites';
 import { fmt, formatIn, relativeTime, zoneShort } from './board-format';
 import type { ChartOperation } from './conditions-charts';
-import { operationColour, useDarkMode } from './operation-colours';
+import { useIsDark } from '../../../lib/use-is-dark';
+import { operationColour } from './operation-colours';
 
 const ConditionsCharts = lazy(() => import('./conditions-charts'));
 
@@ -67,7 +68,7 @@ export function ConditionsPage() {
 
   const zone = c?.timeZone ?? site?.timeZone ?? 'UTC';
   const dataset = plan.data?.dataset ?? null;
-  const dark = useDarkMode();
+  const dark = useIsDark();
 
   return (
     <div>
