@@ -3,7 +3,7 @@ import { TZDate } from '@date-fns/tz';
 import { z } from 'zod';
 
 // rrule ships a UMD main that Node's ESM loader exposes as a default export; Vite exposes names.
-const rrule = ((rruleModule as unknown as { RRule?: unknown }).RRule ? rruleModule : (rruleModule as unknown as { default: typeof rruleModule }).default) as typeof rruleModule;
+export const rrule = ((rruleModule as unknown as { RRule?: unknown }).RRule ? rruleModule : (rruleModule as unknown as { default: typeof rruleModule }).default) as typeof rruleModule;
 
 export const WEEKDAYS = ['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'] as const;
 
