@@ -4,8 +4,10 @@ import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
 import { toSeaSeries } from '../server/services/sea-series';
-import { generateSyntheticSea, truthSeedForPosition, climateForPosition } from '../server/forecast';
+import { buildFakeForecast, generateSyntheticSea, latestIssueTimeMs, truthSeedForPosition, climateForPosition } from '../server/forecast';
 import { recurrenceText } from '../shared/recurrence';
+import { eq } from 'drizzle-orm';
+import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
 import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
 import { DEMO_OPERATIONS, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
 
@@ -27,6 +29,43 @@ export interface SeedOptions {
   hindcastYears?: number;
   /** Fetch a current forecast from the (fake) forecast service. */
   forecast?: boolean;
+  /**
+   * Earlier forecast issues to store, one a day for this many days back (default 3), so the
+   * downtime ledger has finished days to propose from forecast before any observation exists.
+   */
+  pastForecastDays?: number;
+}
+
+const DAY_MS = 86_400_000;
+
+/**
+ * A few weeks of outlook history for the demo campaign, so the drift chart shows at once: one
+ * outlook a day at 06:15 UTC from the campaign's start to yesterday, each computed by the real
+ * service as of that morning with the progress of that morning. No forecast of those days is
+ * stored, so these are hindcast-only outlooks (their forecast issue is empty). The campaign's
+ * planned finish is the P50 of the first of them (what the plan promised at the start).
+ */
+async function seedOutlookHistory(
+  deps: Pick<AppDeps, 'db'>,
+  projectId: string,
+  campaignId: string,
+  t: { fromMs: number; toMs: number; layStartedMs: number; layDoneMs: number },
+): Promise<void> {
+  const iso = (ms: number) => new Date(ms).toISOString();
+  for (let day = t.fromMs; day < t.toMs; day += DAY_MS) {
+    const at = day + 6 * 3_600_000 + 15 * 60_000;
+    const progress =
+      at >= t.layDoneMs
+        ? [{ status: 'done' as const, startedAt: iso(t.layStartedMs), doneAt: iso(t.layDoneMs), source: 'hand' as const }]
+        : at >= t.layStartedMs
+          ? [{ status: 'started' as const, startedAt: iso(t.layStartedMs), doneAt: null }]
+          : [];
+    await deps.db.update(campaign).set({ progress }).where(eq(campaign.id, campaignId));
+    const answer = await campaignOutlookAnswer(deps.db, projectId, campaignId, { alpha: true, now: new Date(at) });
+    await storeOutlook(deps.db, projectId, answer, null);
+    // The plan promised the P50 finish of the outlook on the campaign's first morning.
+    if (day === t.fromMs && answer.finish.p50) await deps.db.update(campaign).set({ plannedFinish: new Date(answer.finish.p50) }).where(eq(campaign.id, campaignId));
+  }
 }
 
 /** Seeds the invented demo scenario into an empty database. */
@@ -88,7 +127,10 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
 
   // The campaign the client asks about: lay the nearshore section, place the rock berm, pull in.
   const opId = (name: string) => operationIds[DEMO_OPERATIONS.findIndex((o) => o.name === name)];
-  await db.insert(campaign).values({
+  // Part done: it started 17 days ago and its first step (the lay) finished last week.
+  const todayMs = Date.UTC(deps.clock().getUTCFullYear(), deps.clock().getUTCMonth(), deps.clock().getUTCDate());
+  const campaignStartMs = todayMs - 17 * DAY_MS;
+  const [demoCampaign] = await db.insert(campaign).values({
     projectId: main.id,
     name: 'Nearshore campaign: lay, berm, pull-in',
     steps: [
@@ -96,9 +138,12 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
       { operationId: opId('Rock berm placement'), siteId: siteIds.route },
       { operationId: opId('Cable pull-in at landfall'), siteId: siteIds.cofferdam },
     ],
-    plannedStart: new Date(Date.UTC(deps.clock().getUTCFullYear() + 1, 3, 1)),
+    plannedStart: new Date(campaignStartMs),
+    plannedFinish: new Date(campaignStartMs + 35 * DAY_MS),
     timeZone: DEMO_TIME_ZONE,
-  });
+  }).returning({ id: campaign.id });
+  const layStartedMs = campaignStartMs + 6 * 3_600_000;
+  const layDoneMs = todayMs - 7 * DAY_MS + 14 * 3_600_000;
 
   let hindcastId: string | null = null;
   if (hindcastYears > 0) {
@@ -131,6 +176,54 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
       { note: 'Invented demo hindcast from a deterministic generator (seasons and passing storms); not measured data.' },
     );
     hindcastId = row.id;
+  }
+
+  if (hindcastId) await seedOutlookHistory(deps, main.id, demoCampaign.id, { fromMs: campaignStartMs, toMs: todayMs, layStartedMs, layDoneMs });
+  await db
+    .update(campaign)
+    .set({ progress: [{ status: 'done', startedAt: new Date(layStartedMs).toISOString(), doneAt: new Date(layDoneMs).toISOString(), source: 'hand' }] })
+    .where(eq(campaign.id, demoCampaign.id));
+
+  // Earlier issues of the invented forecast (the 00:00 UTC issue of each of the last days, 48 h
+  // long), as if the planning job had stored them: written first, so the current one stays newest.
+  const pastDays = options.pastForecastDays ?? 3;
+  if ((options.forecast ?? true) && pastDays > 0) {
+    const latest = latestIssueTimeMs(deps.clock().getTime());
+    for (let k = pastDays; k >= 1; k--) {
+      const issuedAtMs = Math.floor(latest / 86_400_000) * 86_400_000 - k * 86_400_000;
+      const f = buildFakeForecast({ seed: DEMO_SEA_SEED, latitude: DEMO_PROJECT.dataPointLatitude, longitude: DEMO_PROJECT.dataPointLongitude, issuedAtMs, horizonDays: 2 });
+      const h = f.hourly;
+      const col = (v: (number | null)[]) => Float64Array.from(v, (x) => (x === null ? NaN : x === 360 ? 0 : x));
+      const timeMs = Float64Array.from(h.time, (x) => Date.parse(x));
+      const keep = timeMs.findIndex((x) => x >= issuedAtMs);
+      const cut = (a: Float64Array) => a.slice(keep);
+      const issuedAt = new Date(issuedAtMs);
+      await createDataset(
+        db,
+        {
+          projectId: main.id,
+          createdBy: null,
+          name: `Forecast issued ${issuedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`,
+          kind: 'forecast',
+          dataPointName: DEMO_PROJECT.dataPointName,
+          dataPointLatitude: f.latitude,
+          dataPointLongitude: f.longitude,
+          dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
+          sourceKind: 'service',
+          format: 'fake forecast service (demo)',
+          issuedAt,
+        },
+        toSeaSeries({
+          timeMs: cut(timeMs),
+          hs: cut(col(h.waveHeightM)),
+          tp: cut(col(h.peakPeriodS)),
+          dir: cut(col(h.waveDirectionDeg)),
+          wind: cut(col(h.windSpeedMps)),
+          windDir: cut(col(h.windDirectionDeg)),
+        }),
+        { source: 'fake forecast service (demo)' },
+      );
+    }
   }
 
   let forecastId: string | null = null;

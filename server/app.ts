@@ -1,3 +1,4 @@
+import { answerCache } from './http/answer-cache';
 import fs from 'node:fs';
 import path from 'node:path';
 import express, { type Express } from 'express';
@@ -22,6 +23,11 @@ export interface AppOptions {
   jsonLimit?: string;
   /** How long a looked-up session is reused (default SESSION_CACHE_MS; 0 turns the reuse off). */
   sessionCacheMs?: number;
+  /**
+   * How long an unchanged GET answer is served again without the database, ms (embedded database
+   * only, see http/answer-cache.ts); default 0 (off), `npm start` sets ANSWER_CACHE_MS (5 s).
+   */
+  answerCacheMs?: number;
 }
 
 /** Builds the Express app from its dependencies. `server/index.ts` starts it; tests call it directly. */
@@ -67,6 +73,8 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   });
   // Deactivation and role changes go through the administration routes.
   app.use('/api/admin', sessions.forgetAfterChange);
+  // Unchanged answers again without the database (embedded database only), with ETags and gzip.
+  app.use('/api', answerCache({ writeGeneration: deps.database.writeGeneration, ttlMs: options.answerCacheMs ?? 0 }));
 
   const api = express.Router();
   for (const routes of API_ROUTERS) api.use(routes(deps));

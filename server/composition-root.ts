@@ -1,6 +1,7 @@
 // The composition root: the one place that wires the server, the scheduled jobs (jobs/) and the demo
 // seed (seed/) together. The linter lets no other server file import jobs/ or seed/.
 import crypto from 'node:crypto';
+import { closeEnginePool } from './services/engine-pool';
 import http from 'node:http';
 import path from 'node:path';
 import { count } from 'drizzle-orm';
@@ -90,6 +91,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
     clientDir: CLIENT_DIR,
     trustProxy: parseTrustProxy(env.TRUST_PROXY),
     exposeStack: env.NODE_ENV === 'development',
+    answerCacheMs: env.ANSWER_CACHE_MS,
   });
   const schedule = startPlanningSchedule(deps, { planCron: env.PLAN_CRON, enabled: env.JOBS_ENABLED });
   const server = http.createServer(app);
@@ -114,6 +116,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
       await schedule.idle();
       await forecast.close();
       await mailer.close();
+      await closeEnginePool();
       await database.close();
       if (database.kind === 'pglite') releaseDataDir(env.DATA_DIR);
     },

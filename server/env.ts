@@ -37,6 +37,10 @@ const EnvSchema = z.object({
   TRUST_PROXY: z.string().optional(),
   /** Years of invented hourly hindcast in the demo seed. */
   DEMO_HINDCAST_YEARS: z.coerce.number().int().min(0).max(60).default(20),
+  /** How long an unchanged answer is served again without the database, ms (embedded database only; 0 = never). */
+  ANSWER_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
+  /** Engine worker threads for heavy computations (0 = on the API thread). Read by engine-pool.ts. */
+  ENGINE_THREADS: z.coerce.number().int().min(0).max(64).default(1),
   /** Seed the invented demo scenario into an empty database (default on). */
   SEED_DEMO: z
     .enum(['true', 'false'])

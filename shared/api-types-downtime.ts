@@ -67,8 +67,90 @@ export interface CampaignResponse {
   plannedStart: string | null;
   /** Zone of the simulated start dates (the 1st at 00:00). */
   timeZone: string;
+  /** The finish date promised in the plan, ISO UTC; null = none. Drawn on the outlook chart. */
+  plannedFinish: string | null;
+  /** Progress of each step, one entry per step, in order. */
+  progress: CampaignStepProgressAnswer[];
   createdAt: string;
   updatedAt: string;
+}
+
+/** Progress of one campaign step. */
+export interface CampaignStepProgressAnswer {
+  /** 0-based step index. */
+  index: number;
+  status: 'planned' | 'started' | 'done';
+  /** Actual start and end, ISO UTC; null when not known or not yet. */
+  startedAt: string | null;
+  doneAt: string | null;
+  /** Where the done time came from: given by hand, or taken from the confirmed ledger days. */
+  source: 'hand' | 'ledger' | null;
+}
+
+/** Type-7 percentiles of a finish date, ISO UTC; null when every sample is censored. */
+export interface OutlookFinish {
+  p10: string | null;
+  p50: string | null;
+  p90: string | null;
+}
+
+/** GET /api/projects/:projectId/campaigns/:campaignId/outlook */
+export interface CampaignOutlookAnswer {
+  campaignId: string;
+  /** The clock time the outlook is computed for, ISO UTC. */
+  asOf: string;
+  /** Issue time of the forecast used, ISO UTC; null without a forecast. */
+  forecastIssuedAt: string | null;
+  alpha: boolean;
+  /** Every step is done: `finish` is the actual end and there are no samples. */
+  complete: boolean;
+  /** Where the remaining work starts (now, or the end of a step under way), ISO UTC. */
+  startFrom: string;
+  /** (forecast member or control) x (hindcast year) pairs. */
+  samples: number;
+  /** Samples that reached the hindcast's end before finishing (left out of the percentiles). */
+  censored: number;
+  finish: OutlookFinish;
+  /** Remaining waiting on weather: finish - startFrom - sum of the remaining TPOP, h. */
+  remainingWowHours: { p50: number | null; p90: number | null };
+  /** Each remaining step's start (over the samples that reached it). */
+  steps: { index: number; p50Start: string | null; p90Start: string | null }[];
+  /** The forecast part; null without a forecast. */
+  forecast: {
+    datasetId: string;
+    issuedAt: string | null;
+    /** End of the forecast (last record + dt), ISO UTC. */
+    end: string;
+    /** Samples the forecast gives before the hindcast years: 1 for a deterministic forecast (with alpha), one per member for an ensemble. */
+    members: number;
+    ensemble: boolean;
+    /** Remaining steps that start inside the forecast (the same in every sample of a member; the smallest over members). */
+    stepsStartedInForecast: number;
+    /** The forecast alone finishes the campaign (every hindcast year then gives the same date). */
+    finishedInForecast: boolean;
+  } | null;
+  /** The hindcast-only outlook from the same start (no forecast): how much the forecast moved the date. */
+  hindcast: {
+    datasetId: string;
+    name: string;
+    /** Hindcast years that give a sample. */
+    years: number;
+    samples: number;
+    censored: number;
+    finish: OutlookFinish;
+    remainingWowHours: { p50: number | null; p90: number | null };
+  };
+  /** Outlook P50 / P90 finish minus the hindcast-only P50 / P90, h (positive: the forecast delays the finish). */
+  forecastShiftHours: { p50: number | null; p90: number | null };
+  plannedFinish: string | null;
+}
+
+/** GET /api/projects/:projectId/campaigns/:campaignId/outlook/history: one entry per stored outlook, oldest first. */
+export interface OutlookHistoryPoint {
+  at: string;
+  p50: string | null;
+  p90: string | null;
+  forecastIssuedAt: string | null;
 }
 
 /** Simulated duration for one start month (docs/domain.md#hindcast-statistics, #convention-15). */
@@ -121,7 +203,7 @@ export interface LedgerEntry {
   lostHours: number | null;
   limiting: LedgerLimiting | null;
   note: string;
-  /** Where the proposal came from: an observation dataset, else a forecast. */
+  /** Where the proposal came from: an observation dataset, else the forecast issues that covered the day (`datasetId`: the one that decided most of it). */
   source: 'observation' | 'forecast';
   datasetId: string | null;
   datasetName: string | null;
@@ -138,6 +220,8 @@ export interface LedgerProposeAnswer {
   keptConfirmed: number;
   /** Days (per worksite) that no observation or forecast dataset covered: nothing proposed. */
   uncovered: { siteId: string; days: string[] }[];
+  /** Days (per worksite) not over yet in the worksite's time zone: not proposed. */
+  notOver: { siteId: string; days: string[] }[];
   /** Datasets the proposals came from. */
   sources: { id: string; name: string; kind: 'observation' | 'forecast' }[];
 }

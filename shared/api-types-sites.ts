@@ -83,6 +83,39 @@ export interface ImportResultResponse {
   operations: { created: number; deleted: number };
   /** what happened to the alpha table: set from the document, reset to the default, or kept */
   alphaTable: 'set' | 'default' | 'kept';
+  /** what happened to the project's data point: set from the document, or kept (the message says why) */
+  dataPoint: 'set' | 'kept';
+  /** one sentence per decision the import took (alpha table, data point), for the user */
+  messages: string[];
+}
+
+/**
+ * POST /api/projects/:projectId/import/preview: everything an import with the same query would
+ * change, before it runs. `refusal` is set when the import would be refused (and why).
+ */
+export interface ImportPreviewResponse {
+  mode: ImportMode;
+  refusal: string | null;
+  adds: { worksites: string[]; operations: string[]; campaigns: string[] };
+  /** what replace deletes (all empty in merge mode) */
+  removes: {
+    worksites: string[];
+    operations: string[];
+    campaigns: string[];
+    /** operations whose repeat rule (recurrence) goes with them; the setup file does not carry them */
+    recurrences: string[];
+    skipperAssignments: number;
+    /** worksites that had a hindcast of their own chosen for statistics */
+    hindcastChoices: string[];
+    /** ledger days still proposed (they can be proposed again from the data) */
+    proposedLedgerDays: number;
+    /** confirmed ledger days: replace is refused while any exist */
+    confirmedLedgerDays: number;
+    /** alert subscriptions limited to some operations or worksites: they would hear of none of the new ones */
+    narrowedSubscriptions: number;
+  };
+  alphaTable: { outcome: 'set' | 'default' | 'kept'; message: string };
+  dataPoint: { outcome: 'set' | 'kept'; message: string };
 }
 
 /** The 409 details of a merge import that clashes with existing names. */

@@ -1,6 +1,7 @@
 import * as rruleModule from 'rrule';
 import { TZDate } from '@date-fns/tz';
 import { z } from 'zod';
+import './schemas/words';
 
 // rrule ships a UMD main that Node's ESM loader exposes as a default export; Vite exposes names.
 export const rrule = ((rruleModule as unknown as { RRule?: unknown }).RRule ? rruleModule : (rruleModule as unknown as { default: typeof rruleModule }).default) as typeof rruleModule;

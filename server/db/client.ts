@@ -26,7 +26,52 @@ export interface Database {
    * same exclusion is kept per database in this process.
    */
   withAdvisoryLock<T>(key: number, fn: () => Promise<T>): Promise<{ acquired: true; value: T } | { acquired: false }>;
+  /**
+   * Embedded database only: a number that grows whenever this process sends a statement that may
+   * change data (anything but SELECT, SHOW or EXPLAIN), before and after it runs. Every write goes
+   * through this process (only one process opens the folder), so an answer computed while the
+   * number stayed the same is still true. Undefined on a server, which other instances write to.
+   */
+  writeGeneration?: () => number;
   close(): Promise<void>;
+}
+
+/** Statements that never change data. */
+const READ_ONLY_SQL = /^\s*(select|show|explain)\b/i;
+
+/** Wraps the embedded engine's query, exec and transaction so that every possible write moves the generation. */
+function countWrites(pglite: PGlite): () => number {
+  let generation = 0;
+  type Runner = { query: PGlite['query']; exec: PGlite['exec'] };
+  const watch = (target: Runner) => {
+    const query = target.query.bind(target);
+    const exec = target.exec.bind(target);
+    target.query = (async (sql: string, ...rest: unknown[]) => {
+      const write = !READ_ONLY_SQL.test(sql);
+      if (write) generation++;
+      try {
+        return await (query as (...a: unknown[]) => Promise<unknown>)(sql, ...rest);
+      } finally {
+        if (write) generation++;
+      }
+    }) as PGlite['query'];
+    target.exec = (async (sql: string, ...rest: unknown[]) => {
+      generation++;
+      try {
+        return await (exec as (...a: unknown[]) => Promise<unknown>)(sql, ...rest);
+      } finally {
+        generation++;
+      }
+    }) as PGlite['exec'];
+  };
+  watch(pglite);
+  const transaction = pglite.transaction.bind(pglite);
+  pglite.transaction = ((fn: (tx: Parameters<Parameters<PGlite['transaction']>[0]>[0]) => Promise<unknown>) =>
+    transaction(async (tx) => {
+      watch(tx as unknown as Runner);
+      return fn(tx);
+    })) as PGlite['transaction'];
+  return () => generation;
 }
 
 /** Namespace of the app's advisory locks (first key of the two-key form): "LW". */
@@ -85,12 +130,14 @@ export async function openDatabase(config: DatabaseConfig): Promise<Database> {
   if (dataDir) fs.mkdirSync(dataDir, { recursive: true });
   const pglite = new PGlite({ dataDir, loadDataDir: config.loadDataDir, parsers: BYTEA_PARSERS, serializers: BYTEA_SERIALIZERS });
   await pglite.waitReady;
+  const writeGeneration = countWrites(pglite);
   const db = drizzlePglite({ client: pglite, schema, casing: 'snake_case' }) as unknown as Db;
   const held = new Set<number>();
   return {
     db,
     kind: 'pglite',
     pglite,
+    writeGeneration,
     async withAdvisoryLock(key, fn) {
       if (held.has(key)) return { acquired: false };
       held.add(key);

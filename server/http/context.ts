@@ -26,6 +26,11 @@ export function setRequestUser(req: Request, user: SessionUser | null): void {
   (req as WithUser)[USER_KEY] = user;
 }
 
+/** The signed-in user, or null when anonymous. */
+export function currentUser(req: Request): SessionUser | null {
+  return (req as WithUser)[USER_KEY] ?? null;
+}
+
 /** The signed-in user, or a 401. */
 export function requireUser(req: Request): SessionUser {
   const user = (req as WithUser)[USER_KEY];

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler } from 'express';
 import { z } from 'zod';
+import { issuesInWords, problemSentence, type ProblemInWords } from '../../shared/schemas/words';
 
 export type ErrorCode =
   | 'validation'
@@ -41,18 +42,23 @@ export class HttpError extends Error {
 
 export const notFound = (what: string) => new HttpError('not_found', `${what} not found`);
 
-/** zod issues as `{ field, message }`, the field as a dotted path. */
-export function zodDetails(error: z.ZodError): { field: string; message: string }[] {
-  return error.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message }));
+/**
+ * zod issues as `{ field, label, message }`: `field` the dotted path (forms put the message on
+ * that field), `label` the path in words, naming list entries by number and name
+ * (`shared/schemas/words.ts`, the one place for validation words).
+ */
+export function zodDetails(error: z.ZodError, value?: unknown, whole = 'The request'): ProblemInWords[] {
+  return issuesInWords(error, value, whole);
 }
 
-/** Parses with a schema, throwing a 400 that names every failing field. */
+/** Parses with a schema, throwing a 400 that names every failing field in words. */
 export function parseInput<S extends z.ZodType>(schema: S, value: unknown, where = 'body'): z.infer<S> {
   const result = schema.safeParse(value);
   if (!result.success) {
-    const details = zodDetails(result.error);
-    const first = details[0];
-    throw new HttpError('validation', `Invalid ${where}: ${first.field}: ${first.message}`, details);
+    const details = zodDetails(result.error, value, where === 'form' ? 'The form' : 'The request');
+    const first = problemSentence(details[0]);
+    const more = details.length > 1 ? ` (and ${details.length - 1} more ${details.length === 2 ? 'problem' : 'problems'})` : '';
+    throw new HttpError('validation', `${first}${more}`, details);
   }
   return result.data;
 }

@@ -4,6 +4,8 @@ import { simpleParser } from 'mailparser';
 /** A message the local fake SMTP server caught. */
 export interface CaughtMessage {
   id: number;
+  /** The Message-ID header as sent (empty when the message had none). */
+  messageId: string;
   from: string;
   to: string[];
   subject: string;
@@ -49,6 +51,7 @@ export async function startFakeSmtp(options: { port?: number; host?: string; kee
         .then((mail) => {
           messages.push({
             id: nextId++,
+            messageId: mail.messageId ?? '',
             from: mail.from?.text ?? '',
             to: session.envelope.rcptTo.map((r) => r.address),
             subject: mail.subject ?? '',

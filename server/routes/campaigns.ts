@@ -1,9 +1,10 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { CampaignInput, CampaignPatchInput } from '../../shared/schemas/downtime';
+import { CampaignInput, CampaignPatchInput, OutlookQuery, StepProgressInput } from '../../shared/schemas/downtime';
 import type { AppDeps } from '../deps';
 import { parseInput } from '../http/errors';
 import { createCampaign, deleteCampaign, getCampaign, listCampaigns, simulateProjectCampaign, updateCampaign } from '../services/campaigns';
+import { campaignOutlookAnswer, outlookHistory, setStepProgress } from '../services/campaign-outlook';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 
 const alphaFlag = z.enum(['true', 'false']).default('true').transform((v) => v === 'true');
@@ -55,6 +56,34 @@ export function campaignsRoutes({ db, clock }: AppDeps): Router {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(SimulateQuery, req.query, 'query');
     res.json(await simulateProjectCampaign(db, access.projectId, req.params.campaignId, { datasetId: q.dataset, alpha: q.alpha, now: clock() }));
+  });
+
+  /**
+   * PATCH /api/projects/:projectId/campaigns/:campaignId/steps/:index (coordinators, audited):
+   * `{ status: 'planned' | 'started' | 'done', startedAt?, doneAt? }` for the 0-based step; 'done'
+   * without `doneAt` takes the end from the confirmed ledger days when they show the step worked.
+   */
+  router.patch('/projects/:projectId/campaigns/:campaignId/steps/:index', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    const input = parseInput(StepProgressInput, req.body);
+    res.json(await setStepProgress(db, access.projectId, req.params.campaignId, req.params.index, input, access.user, clock()));
+  });
+
+  /**
+   * GET /api/projects/:projectId/campaigns/:campaignId/outlook?alpha=: from now, the remaining
+   * steps on the latest forecast then each hindcast year: P10/P50/P90 finish, remaining waiting on
+   * weather, each step's start, the forecast and hindcast-only parts apart.
+   */
+  router.get('/projects/:projectId/campaigns/:campaignId/outlook', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const q = parseInput(OutlookQuery, req.query, 'query');
+    res.json(await campaignOutlookAnswer(db, access.projectId, req.params.campaignId, { alpha: q.alpha, now: clock() }));
+  });
+
+  /** GET /api/projects/:projectId/campaigns/:campaignId/outlook/history: `[{ at, p50, p90, forecastIssuedAt }]`, oldest first. */
+  router.get('/projects/:projectId/campaigns/:campaignId/outlook/history', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    res.json(await outlookHistory(db, access.projectId, req.params.campaignId));
   });
 
   return router;

@@ -9,19 +9,20 @@ import { requireCoordinator, requireProjectMember } from '../services/project-ac
 const MonthlyQuery = z.object({ dataset: z.string().uuid('must be a dataset id').optional(), from: isoDay.optional(), to: isoDay.optional() });
 
 /** The downtime ledger: every member reads (clients the confirmed days only), coordinators propose and confirm. */
-export function ledgerRoutes({ db }: AppDeps): Router {
+export function ledgerRoutes({ db, clock }: AppDeps): Router {
   const router = Router();
 
   /**
    * POST /api/projects/:projectId/ledger/propose?from=YYYY-MM-DD&to=YYYY-MM-DD: proposes each day
-   * (worksite time zone) for every operation at each of its worksites from the newest observation
-   * that covers the day, else the newest forecast; planned hours, hours lost at OPLIM, limiting
-   * factor. Updates proposed rows, never confirmed ones. → `{ written, keptConfirmed, uncovered, sources }`.
+   * that is over (worksite time zone) for every operation at each of its worksites from the newest
+   * observation that covers the day, else the forecast issues that covered it; planned hours, hours
+   * lost at OPLIM, limiting factor. Updates proposed rows, never confirmed ones.
+   * → `{ written, keptConfirmed, uncovered, notOver, sources }`.
    */
   router.post('/projects/:projectId/ledger/propose', async (req, res) => {
     const access = await requireCoordinator(db, req, req.params.projectId);
     const q = parseInput(LedgerRangeQuery, req.query, 'query');
-    res.json(await proposeLedger(db, access.projectId, q));
+    res.json(await proposeLedger(db, access.projectId, q, clock()));
   });
 
   /** GET /api/projects/:projectId/ledger?from=&to=: ledger days by day, operation and worksite (clients: confirmed only). */
@@ -44,13 +45,14 @@ export function ledgerRoutes({ db }: AppDeps): Router {
 
   /**
    * POST /api/projects/:projectId/ledger/:entryId/confirm `{ lostHours?, limiting?, note }`:
-   * confirms the day (a corrected value needs a note) and locks it; 409 when already confirmed.
+   * confirms the day (a corrected value needs a note) and locks it; 409 when already confirmed or
+   * when the day is not over yet in the worksite's time zone.
    * Written to the audit trail.
    */
   router.post('/projects/:projectId/ledger/:entryId/confirm', async (req, res) => {
     const access = await requireCoordinator(db, req, req.params.projectId);
     const input = parseInput(LedgerConfirmInput, req.body ?? {});
-    res.json(await confirmLedger(db, access.projectId, access.user, req.params.entryId, input));
+    res.json(await confirmLedger(db, access.projectId, access.user, req.params.entryId, input, clock()));
   });
 
   return router;

@@ -1,6 +1,5 @@
 import crypto from 'node:crypto';
-import { format } from 'date-fns';
-import { TZDate } from '@date-fns/tz';
+import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
 import { CAUTION_LINE } from '../../shared/caution';
 import { limitWords } from '../../shared/limit-words';
@@ -8,12 +7,20 @@ import { limitWords } from '../../shared/limit-words';
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
 export function localTime(iso: string, timeZone: string): string {
-  return format(new TZDate(Date.parse(iso), timeZone), 'EEE d MMM HH:mm');
+  return formatInstant(iso, timeZone, 'dateTime');
 }
 
 export interface ChangeWithReason extends PlanChange {
   /** The limit that decides in the new plan (window lost, occurrence no-go). */
   reason?: string | null;
+}
+
+/** "from Thu 3 Dec 15:00 to Thu 3 Dec 20:00" (or "at …" when only one start is left). */
+function startsWords(c: ChangeWithReason, timeZone: string): string {
+  const from = c.usableFrom ?? c.start!;
+  const last = c.lastStart ?? null;
+  if (last === null) return `from ${localTime(from, timeZone)}`;
+  return from === last ? `only at ${localTime(from, timeZone)}` : `from ${localTime(from, timeZone)} to ${localTime(last, timeZone)}`;
 }
 
 export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
@@ -22,7 +29,7 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
   const why = c.reason ? `, limited by ${limitWords(c.reason)}` : '';
   switch (c.kind) {
     case 'window_opened':
-      return `New window: ${span}. TR is ${p.tr} h.`;
+      return `New window: ${span}. TR is ${p.tr} h: starts possible ${startsWords(c, z)}.`;
     case 'window_lost':
       return `Window lost: ${span} is no longer workable for ${p.tr} h${why}.`;
     case 'earliest_moved':
@@ -38,7 +45,7 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
 export function shortChange(c: ChangeWithReason, timeZone: string): string {
   switch (c.kind) {
     case 'window_opened':
-      return `new window from ${localTime(c.start!, timeZone)}`;
+      return `new window, starts from ${localTime(c.usableFrom ?? c.start!, timeZone)}`;
     case 'window_lost':
       return `window lost (${localTime(c.start!, timeZone)})`;
     case 'earliest_moved':
@@ -68,7 +75,21 @@ export function verifyUnsubscribe(secret: string, userId: string, projectId: str
  */
 export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-/** One e-mail for one recipient about one operation at one worksite. */
+/**
+ * The next start still possible in the new plan, with its date, for the subject line: "may start
+ * now", "next start Thu 3 Dec 15:00", or "no start possible in this forecast".
+ */
+export function nextStartWords(plan: PlanSummary): string {
+  if (plan.startNow) return 'may start now';
+  if (plan.earliestStart) return `next start ${localTime(plan.earliestStart, plan.timeZone)}`;
+  return 'no start possible in this forecast';
+}
+
+/**
+ * One e-mail for one recipient about one operation at one worksite. The subject names the
+ * project, the operation and worksite, the next start still possible (with its date) and what
+ * changed.
+ */
 export function alertEmail(args: {
   plan: PlanSummary;
   changes: ChangeWithReason[];
@@ -80,7 +101,7 @@ export function alertEmail(args: {
   const lines = changes.map((c) => describeChange(c, plan));
   const more = changes.length > 1 ? ` (+${changes.length - 1} more)` : '';
   const headline = `${shortChange(changes[0], plan.timeZone)}${more}`;
-  const subject = `${plan.operationName} at ${plan.siteName}: ${headline}`;
+  const subject = `${args.projectName}: ${plan.operationName} at ${plan.siteName}, ${nextStartWords(plan)} (${headline})`;
   const text = [
     `${plan.operationName} at ${plan.siteName} (${args.projectName})`,
     `Times are ${plan.timeZone}.`,

@@ -13,7 +13,9 @@ import type { Db } from '../db/client';
 import { campaign } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { loadProjectSetup, sitesOf, type ProjectSetup } from './site-context';
-import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset } from './workability';
+import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
+import type { SeaSeries } from './series-store';
+import { runEngineTask } from './engine-pool';
 
 type CampaignRow = typeof campaign.$inferSelect;
 
@@ -23,7 +25,7 @@ const MS_PER_HOUR = 3_600_000;
 const SIMULATION_FORMAT = 1;
 
 /** What is cached of a start month's simulation (the per-year runs are not answered). */
-type SimulatedMonth = Omit<CampaignMonthResult, 'runs'>;
+export type SimulatedMonth = Omit<CampaignMonthResult, 'runs'>;
 
 export function toCampaignResponse(row: CampaignRow): CampaignResponse {
   return {
@@ -32,6 +34,11 @@ export function toCampaignResponse(row: CampaignRow): CampaignResponse {
     steps: row.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId })),
     plannedStart: row.plannedStart?.toISOString() ?? null,
     timeZone: row.timeZone,
+    plannedFinish: row.plannedFinish?.toISOString() ?? null,
+    progress: row.steps.map((_, index) => {
+      const p = row.progress[index];
+      return { index, status: p?.status ?? 'planned', startedAt: p?.startedAt ?? null, doneAt: p?.doneAt ?? null, source: p?.source ?? null };
+    }),
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
   };
@@ -64,7 +71,7 @@ export async function listCampaigns(db: Db, projectId: string): Promise<Campaign
   return rows.map(toCampaignResponse);
 }
 
-async function campaignRow(db: Db, projectId: string, campaignId: string): Promise<CampaignRow> {
+export async function campaignRow(db: Db, projectId: string, campaignId: string): Promise<CampaignRow> {
   if (!idParam.safeParse(campaignId).success) throw notFound('Campaign');
   const [row] = await db
     .select()
@@ -88,20 +95,26 @@ export async function createCampaign(db: Db, projectId: string, input: CampaignI
       steps: input.steps,
       plannedStart: input.plannedStart ? new Date(input.plannedStart) : null,
       timeZone: input.timeZone,
+      plannedFinish: input.plannedFinish ? new Date(input.plannedFinish) : null,
     })
     .returning();
   return toCampaignResponse(row);
 }
 
-/** Changes some fields; `steps` replaces the whole list (adding, reordering and removing steps). */
+/**
+ * Changes some fields; `steps` replaces the whole list (adding, reordering and removing steps). A
+ * step's progress is kept while the same operation and worksite stay at its index, and dropped from
+ * the first index that changes on (steps are done in order).
+ */
 export async function updateCampaign(db: Db, projectId: string, campaignId: string, patch: CampaignPatchInput): Promise<CampaignResponse> {
-  await campaignRow(db, projectId, campaignId);
+  const old = await campaignRow(db, projectId, campaignId);
   if (patch.steps) assertSteps(await loadProjectSetup(db, projectId), patch.steps);
   const [row] = await db
     .update(campaign)
     .set({
       ...(patch.name !== undefined ? { name: patch.name } : {}),
-      ...(patch.steps !== undefined ? { steps: patch.steps } : {}),
+      ...(patch.steps !== undefined ? { steps: patch.steps, progress: keptProgress(old, patch.steps) } : {}),
+      ...(patch.plannedFinish !== undefined ? { plannedFinish: patch.plannedFinish ? new Date(patch.plannedFinish) : null } : {}),
       ...(patch.plannedStart !== undefined ? { plannedStart: patch.plannedStart ? new Date(patch.plannedStart) : null } : {}),
       ...(patch.timeZone !== undefined ? { timeZone: patch.timeZone } : {}),
       updatedAt: new Date(),
@@ -109,6 +122,16 @@ export async function updateCampaign(db: Db, projectId: string, campaignId: stri
     .where(and(eq(campaign.projectId, projectId), eq(campaign.id, campaignId)))
     .returning();
   return toCampaignResponse(row);
+}
+
+function keptProgress(old: CampaignRow, steps: CampaignStepInput[]): CampaignRow['progress'] {
+  const kept: CampaignRow['progress'] = [];
+  for (let i = 0; i < Math.min(steps.length, old.progress.length); i++) {
+    const a = old.steps[i];
+    if (!a || a.operationId !== steps[i].operationId || a.siteId !== steps[i].siteId) break;
+    kept.push(old.progress[i]);
+  }
+  return kept;
 }
 
 export async function deleteCampaign(db: Db, projectId: string, campaignId: string): Promise<void> {
@@ -159,26 +182,11 @@ export async function simulateProjectCampaign(
     .update(JSON.stringify([SIMULATION_FORMAT, limitsVersion(setup, row.dataPointDepthM), c.steps, c.timeZone]))
     .digest('hex')
     .slice(0, 32);
-  const results = await cachedStats<SimulatedMonth[]>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () => {
-    const series = await datasetSeries(db, row.id);
-    const stepMs = row.stepMinutes * 60_000;
-    // Go-start flags of each distinct (operation, worksite) step, on the transformed series.
-    const key = (opId: string, siteId: string) => `${opId}|${siteId}`;
-    const wanted = new Set(c.steps.map((s) => key(s.operationId, s.siteId)));
-    const flags = new Map<string, Uint8Array>();
-    forEachOperationSite(
-      series,
-      row,
-      setup,
-      ({ op, spec, site, engine, workspace }) => {
-        const status = evaluateStatus(engine, spec, { alpha: options.alpha, alphaTable: setup.alphaTable, out: workspace.status });
-        flags.set(key(op.id, site.id), goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
-      },
-      (opId, siteId) => wanted.has(key(opId, siteId)),
-    );
-    const steps: CampaignStep[] = c.steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: ops.get(s.operationId)!.tpopH }));
-    return simulateCampaign(series.timeMs, stepMs, steps, { timeZone: c.timeZone }).map(({ runs: _runs, ...month }) => month);
-  });
+  const steps = c.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId, tpopH: ops.get(s.operationId)!.tpopH }));
+  const results = await cachedStats<SimulatedMonth[]>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () =>
+    // On an engine worker thread (engine-pool.ts): a cold 30-year simulation never holds up other requests.
+    runEngineTask('campaign', await datasetSeries(db, row.id), row, setup, steps, c.timeZone, options.alpha),
+  );
 
   const plannedMs = c.plannedStart ? Date.parse(c.plannedStart) : null;
   const notBeforeMs =
@@ -212,4 +220,35 @@ export async function simulateProjectCampaign(
     sumTpopHours: c.steps.reduce((a, s) => a + ops.get(s.operationId)!.tpopH, 0),
     months,
   };
+}
+
+/**
+ * The simulated months of a campaign's steps on a hindcast (numbers only, what is cached): the
+ * go-start flags of each distinct (operation, worksite) step on the transformed series, then
+ * simulateCampaign. Plain data in and out, so it runs on an engine worker thread.
+ */
+export function computeCampaignMonths(
+  series: SeaSeries,
+  row: DatasetRow,
+  setup: ProjectSetup,
+  steps: { operationId: string; siteId: string; tpopH: number }[],
+  timeZone: string,
+  alpha: boolean,
+): SimulatedMonth[] {
+  const stepMs = row.stepMinutes * 60_000;
+  const key = (opId: string, siteId: string) => `${opId}|${siteId}`;
+  const wanted = new Set(steps.map((s) => key(s.operationId, s.siteId)));
+  const flags = new Map<string, Uint8Array>();
+  forEachOperationSite(
+    series,
+    row,
+    setup,
+    ({ op, spec, site, engine, workspace }) => {
+      const status = evaluateStatus(engine, spec, { alpha, alphaTable: setup.alphaTable, out: workspace.status });
+      flags.set(key(op.id, site.id), goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
+    },
+    (opId, siteId) => wanted.has(key(opId, siteId)),
+  );
+  const campaignSteps: CampaignStep[] = steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: s.tpopH }));
+  return simulateCampaign(series.timeMs, stepMs, campaignSteps, { timeZone }).map(({ runs: _runs, ...month }) => month);
 }

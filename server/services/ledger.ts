@@ -17,10 +17,14 @@
  * - Limiting factor: among the lost hours, the engine's limiting factor that was deciding for the
  *   most hours (ties to the first in the engine's limit order), or "noData" when missing values
  *   and absent records account for the most; null when nothing was lost.
+ * - Only days that are over in the worksite's time zone are proposed or confirmed: the ledger
+ *   records what happened, and a client reads a confirmed day as lost hours that happened.
  * - Source, per worksite and day: the newest observation dataset whose records span the whole day
  *   (first record at or before the day's start, last record + dt at or after its end), else the
- *   newest forecast (by issue time) that spans it; a day no dataset spans is not proposed and is
- *   reported as uncovered.
+ *   forecast issues that together cover the day, each minute taken from the newest issue that
+ *   covers it (the shortest lead time: the best estimate of what happened when nothing was
+ *   measured), shown as "from forecast"; a day neither covers is not proposed and is reported
+ *   as uncovered.
  * - Expectation: for calendar month m, the month's lost hours in each hindcast year (hours of the
  *   month - workable records at OPLIM x dt, the same rule as a ledger day, over the year-months the
  *   hindcast spans wholly), then P50 and P90 over the years by Hyndman & Fan type 7.
@@ -40,6 +44,7 @@ import { recordAudit } from './audit';
 import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup, type WorksiteRow } from './site-context';
 import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
+import { runEngineTask } from './engine-pool';
 
 const MS_PER_HOUR = 3_600_000;
 const round2 = (x: number) => Math.round(x * 100) / 100;
@@ -130,26 +135,112 @@ type DatasetRowFull = typeof dataset.$inferSelect;
 const spans = (d: DatasetRowFull, startMs: number, endMs: number) =>
   d.startAt.getTime() <= startMs && d.endAt.getTime() + d.stepMinutes * 60_000 >= endMs;
 
+/** Does the dataset's records' span overlap [startMs, endMs)? */
+const overlaps = (d: DatasetRowFull, startMs: number, endMs: number) =>
+  d.startAt.getTime() < endMs && d.endAt.getTime() + d.stepMinutes * 60_000 > startMs;
+
+/** Do the datasets' spans together cover [startMs, endMs) without a gap? */
+function unionCovers(list: DatasetRowFull[], startMs: number, endMs: number): boolean {
+  const spansSorted = list.map((d) => [d.startAt.getTime(), d.endAt.getTime() + d.stepMinutes * 60_000] as const).sort((a, b) => a[0] - b[0]);
+  let reached = startMs;
+  for (const [a, b] of spansSorted) {
+    if (a > reached) break;
+    reached = Math.max(reached, b);
+    if (reached >= endMs) return true;
+  }
+  return reached >= endMs;
+}
+
+/** One source of statuses for {@link tallyStitched}: record times, statuses, limiting factors, dt. */
+export interface StatusPart {
+  timeMs: Float64Array;
+  status: Uint8Array;
+  limiting: Uint8Array;
+  stepMs: number;
+}
+
+const MS_PER_MINUTE = 60_000;
+
+/**
+ * Planned and lost hours of one day from several sources in order of preference (for forecast
+ * issues: the newest first). Each minute of the day takes the status of the first source with a
+ * record starting in the day that covers it ([t, t + dt)); minutes no source covers count as no
+ * data, as in {@link tallyDay}. With one source on whole-hour records this equals tallyDay.
+ * @returns the tally, and per source the minutes it decided
+ */
+export function tallyStitched(parts: StatusPart[], startMs: number, endMs: number): DayTally & { minutesBySource: number[] } {
+  const plannedHours = (endMs - startMs) / MS_PER_HOUR;
+  const minutes = Math.round((endMs - startMs) / MS_PER_MINUTE);
+  const claimed = new Uint8Array(minutes);
+  const byLimit = new Float64Array(LIMIT_NAMES.length);
+  const minutesBySource = parts.map(() => 0);
+  let workable = 0;
+  let noData = 0;
+  let covered = 0;
+  parts.forEach((p, k) => {
+    for (let i = lowerBound(p.timeMs, startMs); i < p.timeMs.length && p.timeMs[i] < endMs; i++) {
+      const a = Math.floor((p.timeMs[i] - startMs) / MS_PER_MINUTE);
+      const b = Math.min(minutes, Math.ceil((p.timeMs[i] + p.stepMs - startMs) / MS_PER_MINUTE));
+      let n = 0;
+      for (let m = a; m < b; m++) {
+        if (claimed[m] === 0) {
+          claimed[m] = 1;
+          n++;
+        }
+      }
+      if (n === 0) continue;
+      minutesBySource[k] += n;
+      covered += n;
+      const s = p.status[i];
+      if (s === STATUS.WORKABLE) workable += n;
+      else if (s === STATUS.NO_DATA) noData += n;
+      else byLimit[p.limiting[i]] += n;
+    }
+  });
+  noData += minutes - covered;
+  const lostHours = Math.min(plannedHours, Math.max(0, plannedHours - workable / 60));
+  let best: LedgerLimiting | null = null;
+  let bestMinutes = 0;
+  for (let c = 1; c < byLimit.length; c++) {
+    if (byLimit[c] > bestMinutes) {
+      bestMinutes = byLimit[c];
+      best = LIMIT_NAMES[c] as LedgerLimiting;
+    }
+  }
+  if (noData > bestMinutes) best = 'noData';
+  return { plannedHours, lostHours: round2(lostHours), limiting: lostHours > 0 ? best : null, minutesBySource };
+}
+
 /**
  * Proposes ledger days for every operation at each of its worksites from `from` to `to`
  * (YYYY-MM-DD, inclusive, each in the worksite's time zone): writes new rows and updates proposed
- * ones; confirmed rows are never touched.
+ * ones; confirmed rows are never touched. Only days that are over in the worksite's time zone at
+ * `now` are proposed (the others are listed in `notOver`): the ledger records what happened.
+ * Source per worksite and day: the newest observation dataset that spans the whole day, else the
+ * forecast issues that together cover it, each minute from the newest issue that covers it.
  */
-export async function proposeLedger(db: Db, projectId: string, range: { from: string; to: string }): Promise<LedgerProposeAnswer> {
+export async function proposeLedger(db: Db, projectId: string, range: { from: string; to: string }, now: Date): Promise<LedgerProposeAnswer> {
   const setup = await loadProjectSetup(db, projectId);
   const days = daysOf(range.from, range.to);
+  const nowMs = now.getTime();
   const usedSites = new Map<string, WorksiteRow>();
   for (const op of setup.operations) for (const s of sitesOf(op, setup.sites)) usedSites.set(s.id, s);
+  const empty: LedgerProposeAnswer = { written: 0, keptConfirmed: 0, uncovered: [], notOver: [], sources: [] };
+  if (usedSites.size === 0) return empty;
+  const notOver: LedgerProposeAnswer['notOver'] = [];
   const siteDays = new Map<string, { day: string; startMs: number; endMs: number }[]>();
   let minMs = Infinity;
   let maxMs = -Infinity;
   for (const site of usedSites.values()) {
-    const list = days.map((day) => ({ day, ...zonedDayMs(day, site.timeZone) }));
-    siteDays.set(site.id, list);
-    minMs = Math.min(minMs, list[0].startMs);
-    maxMs = Math.max(maxMs, list[list.length - 1].endMs);
+    const all = days.map((day) => ({ day, ...zonedDayMs(day, site.timeZone) }));
+    const over = all.filter((d) => d.endMs <= nowMs);
+    if (over.length < all.length) notOver.push({ siteId: site.id, days: all.filter((d) => d.endMs > nowMs).map((d) => d.day) });
+    siteDays.set(site.id, over);
+    if (over.length === 0) continue;
+    minMs = Math.min(minMs, over[0].startMs);
+    maxMs = Math.max(maxMs, over[over.length - 1].endMs);
   }
-  if (usedSites.size === 0) return { written: 0, keptConfirmed: 0, uncovered: [], sources: [] };
+  if (!Number.isFinite(minMs)) return { ...empty, notOver };
 
   // Candidate sources: observations newest first, then forecasts by issue time, newest first.
   const candidates = await db
@@ -161,28 +252,39 @@ export async function proposeLedger(db: Db, projectId: string, range: { from: st
   const observations = candidates.filter((d) => d.kind === 'observation').sort((a, b) => b.createdAt.getTime() - a.createdAt.getTime());
   const forecasts = candidates.filter((d) => d.kind === 'forecast').sort(newest);
 
-  // Source per worksite and day.
-  const plan = new Map<string, { site: WorksiteRow; days: { day: string; startMs: number; endMs: number }[] }[]>(); // by dataset id
+  // Sources per worksite and day.
+  interface SiteDay {
+    site: WorksiteRow;
+    day: string;
+    startMs: number;
+    endMs: number;
+    kind: 'observation' | 'forecast';
+    sources: DatasetRowFull[];
+  }
+  const work: SiteDay[] = [];
   const uncovered: LedgerProposeAnswer['uncovered'] = [];
+  const needed = new Map<string, { from: number; to: number }>();
   for (const site of usedSites.values()) {
     const missing: string[] = [];
-    const bySource = new Map<string, { day: string; startMs: number; endMs: number }[]>();
     for (const d of siteDays.get(site.id)!) {
-      const src = observations.find((o) => spans(o, d.startMs, d.endMs)) ?? forecasts.find((f) => spans(f, d.startMs, d.endMs));
-      if (!src) {
+      const obs = observations.find((o) => spans(o, d.startMs, d.endMs));
+      let entry: SiteDay | null = null;
+      if (obs) entry = { site, ...d, kind: 'observation', sources: [obs] };
+      else {
+        const issues = forecasts.filter((f) => overlaps(f, d.startMs, d.endMs));
+        if (issues.length > 0 && unionCovers(issues, d.startMs, d.endMs)) entry = { site, ...d, kind: 'forecast', sources: issues };
+      }
+      if (!entry) {
         missing.push(d.day);
         continue;
       }
-      const list = bySource.get(src.id) ?? [];
-      list.push(d);
-      bySource.set(src.id, list);
+      work.push(entry);
+      for (const src of entry.sources) {
+        const r = needed.get(src.id) ?? { from: Infinity, to: -Infinity };
+        needed.set(src.id, { from: Math.min(r.from, d.startMs - src.stepMinutes * 60_000), to: Math.max(r.to, d.endMs) });
+      }
     }
     if (missing.length > 0) uncovered.push({ siteId: site.id, days: missing });
-    for (const [id, list] of bySource) {
-      const entry = plan.get(id) ?? [];
-      entry.push({ site, days: list });
-      plan.set(id, entry);
-    }
   }
 
   // Existing confirmed rows are left alone.
@@ -193,43 +295,74 @@ export async function proposeLedger(db: Db, projectId: string, range: { from: st
   const locked = new Set(confirmed.map((r) => `${r.operationId}|${r.siteId}|${r.day}`));
   let keptConfirmed = 0;
 
-  const rows: (typeof ledgerDay.$inferInsert)[] = [];
-  const sources: LedgerProposeAnswer['sources'] = [];
-  const byId = new Map(candidates.map((d) => [d.id, d]));
-  for (const [datasetId, work] of plan) {
-    const src = byId.get(datasetId)!;
-    sources.push({ id: src.id, name: src.name, kind: src.kind as 'observation' | 'forecast' });
-    const stepMs = src.stepMinutes * 60_000;
-    const from = Math.min(...work.map((w) => w.days[0].startMs));
-    const to = Math.max(...work.map((w) => w.days[w.days.length - 1].endMs));
-    const series = await readSeries(db, datasetId, { fromMs: from - stepMs, toMs: to });
-    for (const { site, days: siteList } of work) {
-      const t = transformForSite(series, src.dataPointDepthM, site);
-      for (const op of setup.operations) {
-        if (!sitesOf(op, setup.sites).some((s) => s.id === site.id)) continue;
-        const ev = evaluateHours(t.engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
-        for (const d of siteList) {
-          if (locked.has(`${op.id}|${site.id}|${d.day}`)) {
-            keptConfirmed++;
-            continue;
-          }
-          const tally = tallyDay(series.timeMs, ev.status, ev.limiting, stepMs, d.startMs, d.endMs);
-          rows.push({
-            projectId,
-            operationId: op.id,
-            siteId: site.id,
-            day: d.day,
-            plannedHours: tally.plannedHours,
-            proposedLostHours: tally.lostHours,
-            proposedLimiting: tally.limiting,
-            source: src.kind as 'observation' | 'forecast',
-            datasetId: src.id,
-            status: 'proposed',
-          });
-        }
+  const seriesById = new Map<string, SeaSeries>();
+  for (const [id, r] of needed) seriesById.set(id, await readSeries(db, id, { fromMs: r.from, toMs: r.to }));
+  // Statuses at OPLIM per source, worksite and operation, worked out once.
+  const transformed = new Map<string, ReturnType<typeof transformForSite>>();
+  const statuses = new Map<string, StatusPart>();
+  const statusOf = (src: DatasetRowFull, site: WorksiteRow, op: ProjectSetup['operations'][number]): StatusPart => {
+    const key = `${src.id}|${site.id}|${op.id}`;
+    let part = statuses.get(key);
+    if (!part) {
+      const series = seriesById.get(src.id)!;
+      let t = transformed.get(`${src.id}|${site.id}`);
+      if (!t) {
+        t = transformForSite(series, src.dataPointDepthM, site);
+        transformed.set(`${src.id}|${site.id}`, t);
       }
+      const ev = evaluateHours(t.engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      part = { timeMs: series.timeMs, status: ev.status, limiting: ev.limiting, stepMs: src.stepMinutes * 60_000 };
+      statuses.set(key, part);
+    }
+    return part;
+  };
+
+  const rows: (typeof ledgerDay.$inferInsert)[] = [];
+  const used = new Map<string, DatasetRowFull>();
+  for (const w of work) {
+    for (const op of setup.operations) {
+      if (!sitesOf(op, setup.sites).some((s) => s.id === w.site.id)) continue;
+      if (locked.has(`${op.id}|${w.site.id}|${w.day}`)) {
+        keptConfirmed++;
+        continue;
+      }
+      let tally: DayTally;
+      let main = w.sources[0];
+      if (w.kind === 'observation') {
+        const p = statusOf(main, w.site, op);
+        tally = tallyDay(p.timeMs, p.status, p.limiting, p.stepMs, w.startMs, w.endMs);
+        used.set(main.id, main);
+      } else {
+        const stitched = tallyStitched(
+          w.sources.map((src) => statusOf(src, w.site, op)),
+          w.startMs,
+          w.endMs,
+        );
+        tally = stitched;
+        let most = -1;
+        stitched.minutesBySource.forEach((n, k) => {
+          if (n > 0) used.set(w.sources[k].id, w.sources[k]);
+          if (n > most) {
+            most = n;
+            main = w.sources[k];
+          }
+        });
+      }
+      rows.push({
+        projectId,
+        operationId: op.id,
+        siteId: w.site.id,
+        day: w.day,
+        plannedHours: tally.plannedHours,
+        proposedLostHours: tally.lostHours,
+        proposedLimiting: tally.limiting,
+        source: w.kind,
+        datasetId: main.id,
+        status: 'proposed',
+      });
     }
   }
+  const sources: LedgerProposeAnswer['sources'] = [...used.values()].map((src) => ({ id: src.id, name: src.name, kind: src.kind as 'observation' | 'forecast' }));
 
   let written = 0;
   for (let k = 0; k < rows.length; k += 200) {
@@ -254,7 +387,7 @@ export async function proposeLedger(db: Db, projectId: string, range: { from: st
     written += done.length;
   }
   keptConfirmed += rows.length - written;
-  return { written, keptConfirmed, uncovered, sources };
+  return { written, keptConfirmed, uncovered, notOver, sources };
 }
 
 
@@ -271,6 +404,7 @@ function ledgerSelect(db: Db) {
       row: ledgerDay,
       operationName: operation.name,
       siteName: worksite.name,
+      siteTimeZone: worksite.timeZone,
       datasetName: dataset.name,
       confirmedByName: user.name,
     })
@@ -322,17 +456,32 @@ export async function listLedger(db: Db, projectId: string, range: { from: strin
 
 /**
  * Confirms a proposed day as it stands, or corrected (`lostHours`, `limiting`); a correction needs
- * a note. Locks the row: a second confirmation is refused (409). Written to the audit trail.
- * @throws HttpError 404 unknown entry, 409 already confirmed, 400 no note for a correction or lost
- *   hours above the planned hours.
+ * a note. Locks the row: a second confirmation is refused (409). Only a day that is over in the
+ * worksite's time zone at `now` can be confirmed. Written to the audit trail.
+ * @throws HttpError 404 unknown entry, 409 already confirmed or day not over, 400 no note for a
+ *   correction or lost hours above the planned hours.
  */
-export async function confirmLedger(db: Db, projectId: string, actor: SessionUser, entryId: string, input: LedgerConfirmInput): Promise<LedgerEntry> {
+export async function confirmLedger(
+  db: Db,
+  projectId: string,
+  actor: SessionUser,
+  entryId: string,
+  input: LedgerConfirmInput,
+  now: Date,
+): Promise<LedgerEntry> {
   if (!idParam.safeParse(entryId).success) throw notFound('Ledger entry');
   return db.transaction(async (tx) => {
     const [current] = await ledgerSelect(tx).where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.id, entryId)));
     if (!current) throw notFound('Ledger entry');
     const d = current.row;
     if (d.status === 'confirmed') throw new HttpError('conflict', `${d.day} is already confirmed and locked`);
+    const { endMs } = zonedDayMs(d.day, current.siteTimeZone);
+    if (endMs > now.getTime()) {
+      throw new HttpError(
+        'conflict',
+        `${d.day} is not over yet at ${current.siteName} (${current.siteTimeZone}): a day can be confirmed once it has ended there, from ${new Date(endMs).toISOString().slice(0, 16).replace('T', ' ')} UTC`,
+      );
+    }
     const lostHours = input.lostHours ?? d.proposedLostHours;
     const limiting = input.limiting !== undefined ? input.limiting : asLimiting(d.proposedLimiting);
     if (lostHours > d.plannedHours) {
@@ -445,7 +594,8 @@ export async function ledgerMonthly(
   if (hindcast) {
     const version = limitsVersion(setup, hindcast.dataPointDepthM);
     expectations = await cachedStats(db, projectId, hindcast.id, version, 'ledger', async () =>
-      computeExpectations(await datasetSeries(db, hindcast.id), hindcast, setup),
+      // On an engine worker thread (engine-pool.ts).
+      runEngineTask('ledgerExpectations', await datasetSeries(db, hindcast.id), hindcast, setup),
     );
   }
   const expected = new Map(expectations.map((e) => [`${e.operationId}|${e.siteId}`, e]));

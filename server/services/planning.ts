@@ -6,6 +6,7 @@ import type { AppDeps } from '../deps';
 import { alert, planRun, project } from '../db/schema';
 import { fetchLatestForecast } from './forecasts';
 import { projectPlan } from './plans';
+import { recordCampaignOutlooks } from './campaign-outlook';
 import { covers, effectiveSubscriptions } from './subscriptions';
 import { alertEmail, type ChangeWithReason, unsubscribeToken } from './alert-mail';
 import { deliverDueMail, enqueueMail, type OutboxMessage } from './outbox';
@@ -158,6 +159,7 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
       await tx.update(planRun).set({ status: 'ok', datasetId: plan.dataset!.id, plans: summaries, finishedAt: new Date() }).where(eq(planRun.id, run.id));
       return n;
     });
+    await recordCampaignOutlooks(deps, projectId, run.id, now); // campaign outlook history and its alerts (never fails the run)
     log.info(`Planned ${p.name}: ${summaries.length} plans, ${changes.length} changes, ${queued} e-mails queued`);
     return {
       projectId,

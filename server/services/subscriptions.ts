@@ -35,14 +35,14 @@ export async function effectiveSubscriptions(db: Db, projectId: string): Promise
       out.push({
         userId: m.userId, email: m.email, name: m.name, stored: true,
         operationIds: row.operationIds, siteIds: row.siteIds, immediate: row.immediate, digest: row.digest,
-        digestTime: row.digestTime, digestTimeZone: row.digestTimeZone, active: row.active,
+        digestTime: row.digestTime, digestTimeZone: row.digestTimeZone, active: row.active, outlookMoveDays: row.outlookMoveDays,
       });
     } else if (m.role === 'skipper') {
       const assigned = ops.filter((o) => o.skipperIds.includes(m.userId)).map((o) => o.id);
       if (assigned.length === 0) continue;
       out.push({
         userId: m.userId, email: m.email, name: m.name, stored: false,
-        operationIds: assigned, siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true,
+        operationIds: assigned, siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true, outlookMoveDays: null,
       });
     }
   }
@@ -90,9 +90,9 @@ async function refuseForeignIds(db: Db, projectId: string, input: SubscriptionIn
 /** One-click unsubscribe: stores an inactive subscription (keeping any choices made before). */
 export async function unsubscribe(db: Db, userId: string, projectId: string): Promise<void> {
   const current = await mySubscription(db, userId, projectId);
-  const base: SubscriptionInput = current ?? { operationIds: [], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true };
-  const { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone } = base;
-  await saveSubscription(db, userId, projectId, { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, active: false });
+  const base: SubscriptionInput = current ?? { operationIds: [], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true, outlookMoveDays: null };
+  const { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, outlookMoveDays } = base;
+  await saveSubscription(db, userId, projectId, { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, active: false, outlookMoveDays });
 }
 
 export async function markDigestSent(db: Db, userId: string, projectId: string, at: Date): Promise<void> {

@@ -32,6 +32,7 @@ import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
 import { Lru } from './lru';
 import { encodedAnswer, forgetEncodedAnswers } from './encoded-answers';
+import { runEngineTask, sharedSeries } from './engine-pool';
 
 export type DatasetRow = NonNullable<Awaited<ReturnType<typeof latestDataset>>>;
 
@@ -73,7 +74,8 @@ export function datasetSeries(db: Db, datasetId: string): Promise<SeaSeries> {
   const m = memoOf(db);
   let p = m.series.get(datasetId);
   if (!p) {
-    p = readSeries(db, datasetId);
+    // In shared memory, so engine worker threads read it without a copy.
+    p = readSeries(db, datasetId).then(sharedSeries);
     m.series.set(datasetId, p);
     p.catch(() => m.series.delete(datasetId));
   }
@@ -317,7 +319,10 @@ export async function projectWorkabilityJson(db: Db, projectId: string, options:
 
 async function workabilityEntries(db: Db, row: DatasetRow, setup: ProjectSetup, alpha: boolean): Promise<WorkabilityEntry[]> {
   const version = limitsVersion(setup, row.dataPointDepthM);
-  const cached = await cachedStats(db, row.projectId, row.id, version, String(alpha), async () => computeWorkability(await datasetSeries(db, row.id), row, setup, alpha));
+  const cached = await cachedStats(db, row.projectId, row.id, version, String(alpha), async () =>
+    // On an engine worker thread (engine-pool.ts): a cold 30-year table never holds up other requests.
+    runEngineTask('workability', await datasetSeries(db, row.id), row, setup, alpha),
+  );
   const ops = new Map(setup.operations.map((o) => [o.id, o]));
   const sites = new Map(setup.sites.map((s) => [s.id, s]));
   const entries: WorkabilityEntry[] = [];

@@ -3,6 +3,10 @@
  * hear it: a new usable window, a window lost (gone, or shortened below TR so no longer usable),
  * the earliest go-start moved by more than a set number of hours, "may start now" changed, and
  * a recurring occurrence turning no-go.
+ *
+ * Alerts speak of usable starts (issue 22): a window's last possible start is its end less TR; a
+ * window whose last possible start has passed is neither announced nor reported lost, and a new
+ * window that is already running is announced from the next whole hour it can still be started.
  */
 
 export interface PlanSummary {
@@ -33,6 +37,25 @@ export interface PlanChange {
   /** The time before the change (earliest start moved: the previous earliest start). */
   previous: string | null;
   startNow?: boolean;
+  /** Window opened or lost: the first and the last start still possible at planning time. */
+  usableFrom?: string | null;
+  lastStart?: string | null;
+}
+
+const MS_PER_HOUR = 3_600_000;
+
+/**
+ * The starts of a window still possible at `nowMs`: from the window's start, or the next whole
+ * hour once it has begun, to its end less TR; null when the last possible start has passed.
+ * @example usableStarts({ start: '2026-12-03T12:00:00Z', end: '2026-12-03T20:00:00Z' }, 6, Date.parse('2026-12-03T14:03:00Z'))
+ *   // null: the last start was 14:00
+ */
+export function usableStarts(w: { start: string; end: string }, trHours: number, nowMs: number): { from: string; last: string } | null {
+  const last = Date.parse(w.end) - trHours * MS_PER_HOUR;
+  const start = Date.parse(w.start);
+  const from = start >= nowMs ? start : Math.ceil(nowMs / MS_PER_HOUR) * MS_PER_HOUR;
+  if (from > last) return null;
+  return { from: new Date(from).toISOString(), last: new Date(last).toISOString() };
 }
 
 const ms = (iso: string) => Date.parse(iso);
@@ -48,15 +71,18 @@ export function comparePlans(
   for (const n of next) {
     const p = prevByKey.get(`${n.operationId}|${n.siteId}`);
     const base = { operationId: n.operationId, siteId: n.siteId };
-    const prevWindows = (p?.windows ?? []).filter((w) => ms(w.end) > options.nowMs);
+    const prevWindows = (p?.windows ?? []).filter((w) => usableStarts(w, p!.tr, options.nowMs) !== null);
     for (const w of n.windows) {
+      const usable = usableStarts(w, n.tr, options.nowMs);
+      if (usable === null) continue;
       if (!prevWindows.some((pw) => overlaps(pw, w))) {
-        changes.push({ ...base, kind: 'window_opened', key: `opened:${w.start}`, start: w.start, end: w.end, hours: w.hours, previous: null });
+        changes.push({ ...base, kind: 'window_opened', key: `opened:${w.start}`, start: w.start, end: w.end, hours: w.hours, previous: null, usableFrom: usable.from, lastStart: usable.last });
       }
     }
     for (const pw of prevWindows) {
       if (!n.windows.some((w) => overlaps(pw, w))) {
-        changes.push({ ...base, kind: 'window_lost', key: `lost:${pw.start}`, start: pw.start, end: pw.end, hours: pw.hours, previous: null });
+        const usable = usableStarts(pw, p!.tr, options.nowMs)!;
+        changes.push({ ...base, kind: 'window_lost', key: `lost:${pw.start}`, start: pw.start, end: pw.end, hours: pw.hours, previous: null, usableFrom: usable.from, lastStart: usable.last });
       }
     }
     if (p && p.earliestStart && n.earliestStart) {

@@ -20,6 +20,21 @@ export interface LimitCheck {
   met: boolean | null;
   /** Met at OPLIM (differs from `met` only for Hs limits). */
   metAtOplim: boolean | null;
+  /** Why the limit is broken, in words, where the numbers alone do not say it (the Hs-Tp curve). */
+  reason?: string;
+}
+
+/** A number as people write it: at most one decimal, no trailing zero (14.73 → "14.7", 14 → "14"). */
+const words1 = (x: number) => String(Math.round(x * 10) / 10);
+
+/** Why an hour breaks the Hs-Tp curve: Tp outside its range, or Hs above it; undefined when met. */
+function curveReason(curve: [number, number][], hsM: number, tpS: number, limitM: number | null, what: 'OPLIM' | 'OPWF'): string | undefined {
+  const first = curve[0][0];
+  const last = curve[curve.length - 1][0];
+  if (tpS > last) return `Tp ${words1(tpS)} s is beyond the curve's last point at ${words1(last)} s`;
+  if (tpS < first) return `Tp ${words1(tpS)} s is below the curve's first point at ${words1(first)} s`;
+  if (limitM !== null && hsM > limitM) return `Hs ${words1(hsM)} m is above the curve's ${words1(limitM)} m (${what}) at Tp ${words1(tpS)} s`;
+  return undefined;
 }
 
 export interface HourValues {
@@ -72,11 +87,15 @@ export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaT
     const oplim = has ? curveAt(l.hsTpCurve, v.tpS) : null;
     const a = oplim !== null ? alphaAt(oplim) : null;
     const opwf = oplim !== null && a !== null ? a * oplim : null;
+    const met = !has ? null : opwf === null ? false : v.hsM <= opwf;
+    const metAtOplim = !has ? null : oplim === null ? false : v.hsM <= oplim;
+    const reason = !has || met ? undefined : curveReason(l.hsTpCurve, v.hsM, v.tpS, metAtOplim ? opwf : oplim, metAtOplim ? 'OPWF' : 'OPLIM');
     push({
       limit: 'hsTpCurve', label: 'Hs-Tp curve', unit: 'm', value: ok(v.hsM) ? v.hsM : null, oplim, opwf, alpha: a,
       margin: has && opwf !== null ? opwf - v.hsM : null,
-      met: !has ? null : opwf === null ? false : v.hsM <= opwf,
-      metAtOplim: !has ? null : oplim === null ? false : v.hsM <= oplim,
+      met,
+      metAtOplim,
+      ...(reason ? { reason } : {}),
     });
   }
   const tp = ok(v.tpS) ? v.tpS : null;

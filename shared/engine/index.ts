@@ -39,3 +39,15 @@ export {
   type OperationStatisticsResult,
 } from './operation-statistics';
 export { simulateCampaign, type CampaignMonthResult, type CampaignOptions, type CampaignRun, type CampaignStep } from './campaign';
+export {
+  simulateOutlook,
+  outlookPercentiles,
+  outlookStart,
+  hindcastYearShifts,
+  type OutlookForecastMember,
+  type OutlookHindcast,
+  type OutlookInput,
+  type OutlookSample,
+  type OutlookPercentiles,
+  type StepProgress,
+} from './campaign-outlook';

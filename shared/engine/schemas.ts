@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// installs the plain-words error map (validation messages in words, server and browser alike)
+import '../schemas/words';
 import type { AlphaTable, OperationLimits, OperationSpec } from './types';
 import { alphaTableCoverageProblem } from './alpha-factor';
 

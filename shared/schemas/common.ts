@@ -1,4 +1,6 @@
 import { z } from 'zod';
+// installs the plain-words error map for every schema that builds on these helpers
+import './words';
 
 /**
  * True when the text holds a control character other than tab, line feed and carriage return

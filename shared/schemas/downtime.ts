@@ -68,6 +68,8 @@ const campaignFields = {
   plannedStart: z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time, e.g. 2027-04-01T00:00:00Z' }).nullable(),
   /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (docs/domain.md#convention-15). */
   timeZone: timeZoneInput,
+  /** The finish date promised in the plan, ISO 8601 with offset; null = none. Drawn on the outlook chart. */
+  plannedFinish: z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time, e.g. 2027-06-30T00:00:00Z' }).nullable(),
 };
 
 /** POST /api/projects/:projectId/campaigns */
@@ -75,6 +77,7 @@ export const CampaignInput = z.object({
   ...campaignFields,
   plannedStart: campaignFields.plannedStart.optional().default(null),
   timeZone: campaignFields.timeZone.optional().default('UTC'),
+  plannedFinish: campaignFields.plannedFinish.optional().default(null),
 });
 export type CampaignInput = z.infer<typeof CampaignInput>;
 /** What a form holds before parsing (defaults not yet applied). */
@@ -86,6 +89,25 @@ export const CampaignPatchInput = z
   .partial()
   .refine((v) => Object.values(v).some((x) => x !== undefined), 'Nothing to change');
 export type CampaignPatchInput = z.infer<typeof CampaignPatchInput>;
+
+const isoTime = z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time, e.g. 2027-04-03T14:00:00Z' });
+
+/**
+ * PATCH /api/projects/:projectId/campaigns/:campaignId/steps/:index: a step's progress with its
+ * actual times. Without `doneAt`, 'done' takes the end from the confirmed ledger days when they
+ * show the step's TPOP worked; without `startedAt`, 'started' starts now.
+ */
+export const StepProgressInput = z.object({
+  status: z.enum(['planned', 'started', 'done'], { error: "must be 'planned', 'started' or 'done'" }),
+  startedAt: isoTime.optional(),
+  doneAt: isoTime.optional(),
+});
+export type StepProgressInput = z.infer<typeof StepProgressInput>;
+
+/** `?alpha=true|false` of the outlook (default true: the forecast's go-starts with alpha). */
+export const OutlookQuery = z.object({
+  alpha: z.enum(['true', 'false'], { error: "must be 'true' or 'false'" }).default('true').transform((v) => v === 'true'),
+});
 
 /** A calendar date YYYY-MM-DD that exists. */
 export const isoDay = z

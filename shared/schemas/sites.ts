@@ -476,8 +476,22 @@ export const SETUP_VERSION = 1;
 export const IMPORT_MODES = ['merge', 'replace'] as const;
 export type ImportMode = (typeof IMPORT_MODES)[number];
 
-/** `?mode=` of the import: merge (default) or replace. */
-export const ImportQuery = z.object({ mode: z.enum(IMPORT_MODES, { error: 'mode must be merge or replace' }).default('merge') });
+export const IMPORT_CHOICES = ['keep', 'take'] as const;
+export type ImportChoice = (typeof IMPORT_CHOICES)[number];
+
+/**
+ * `?mode=` of the import: merge (default) or replace; `alphaTable=keep|take`: keep this project's
+ * alpha table or take the file's (default: keep in merge mode, take in replace mode);
+ * `dataPoint=keep|take`: keep this project's data point or take the file's (default keep).
+ */
+export const ImportQuery = z
+  .object({
+    mode: z.enum(IMPORT_MODES, { error: 'mode must be merge or replace' }).default('merge'),
+    alphaTable: z.enum(IMPORT_CHOICES, { error: 'alphaTable must be keep or take' }).optional(),
+    dataPoint: z.enum(IMPORT_CHOICES, { error: 'dataPoint must be keep or take' }).default('keep'),
+  })
+  .transform((q) => ({ ...q, alphaTable: q.alphaTable ?? (q.mode === 'merge' ? 'keep' : 'take') }));
+export type ImportQuery = z.output<typeof ImportQuery>;
 
 /**
  * A worksite in the setup document: the worksite's fields without `hindcastDatasetId` (datasets
@@ -581,7 +595,7 @@ export type ProjectSetupDocument = z.infer<typeof ProjectSetupDocument>;
 // Audit trail query
 // ---------------------------------------------------------------------------------------------
 
-export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project'] as const;
+export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project', 'campaign'] as const;
 export type AuditEntity = (typeof AUDIT_ENTITIES)[number];
 export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import'] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './words';
 
 // Query schemas of the wave calculator; the client form validates with the same ranges.
 const num = (name: string, min: number, max: number, unit: string) =>

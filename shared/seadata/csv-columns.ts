@@ -19,6 +19,7 @@
  * - windDir: wind direction, wdir, wd, winddir, wind dir.
  */
 import { z } from 'zod';
+import '../schemas/words';
 import { SEA_VARIABLES, type SeaVariable } from './records';
 
 /** Header name of each column used; the time column is required. */

@@ -163,6 +163,28 @@ export class CsvRecordReader {
   }
 
   /**
+   * A line the splitter could not read as a row (a quote not closed on its line): a bad row at
+   * `line` with the reason at `column` (1-based character); on the header line the file is refused.
+   */
+  pushBadLine(line: number, text: string, column: number, reason: string): void {
+    if (this.ended) throw new Error('CsvRecordReader: pushBadLine after end');
+    if (this.fatal !== null) return;
+    if (this.headerNames === null) {
+      this.fatal = ImportError.single(line, String(column), text.slice(0, 80), `header row: ${reason}`);
+      return;
+    }
+    const v = this.v;
+    v.beginRow(line);
+    v.rowIssue(String(column), text, reason);
+    const kept = v.commitRow(NaN, this.timeLabel, '');
+    if (this.onRow !== undefined) {
+      const values = {} as Record<SeaVariable, number>;
+      SEA_VARIABLES.forEach((name) => (values[name] = NaN));
+      this.onRow({ line, fields: [text], timeMs: NaN, values, issues: v.currentRowIssues.slice(), kept });
+    }
+  }
+
+  /**
    * Ends the file.
    * @throws ImportError when there is no header, the mapping does not fit the header, no row is
    *   usable, or (in `refuse` mode) any row has an issue.

@@ -7,14 +7,16 @@
  * - LF, CRLF or CR line endings, also mixed (all read as LF, including inside quoted fields);
  * - delimiter: ',', ';' or tab, detected from the header line as the one that occurs most often
  *   outside quotes (ties: tab, then ';', then ','), unless given;
- * - quoted fields with "" for a quote, also spanning lines (the line number of a row is the line
- *   where it starts);
+ * - quoted fields with "" for a quote, on one line: every line is one row. A quote that does not
+ *   close on its line (or text after a closing quote) makes that line a bad row at its own line
+ *   number, and reading goes on at the next line, so one stray quote never swallows the rest of
+ *   the file; data lines = rows read = records kept + rows reported bad (issue 22);
  * - decimal comma: on by default when the delimiter is ';' (the European spreadsheet convention,
  *   where ',' cannot be the decimal point's neighbour delimiter), off otherwise; a '.' is
  *   accepted in both cases.
- * Limits (limits.ts): a row longer than MAX_LINE_CHARS (1 MiB; usually an unterminated quote)
- * or with more than MAX_COLUMNS fields stops the import with an ImportError naming the line and
- * the column (the opening quote, or the character or field past the limit).
+ * Limits (limits.ts): a line longer than MAX_LINE_CHARS (1 MiB) or with more than MAX_COLUMNS
+ * fields stops the import with an ImportError naming the line and the column (the character or
+ * field past the limit).
  *
  * The server may instead feed {@link CsvRecordReader} with rows from papaparse's own streaming
  * API; this class exists so that line numbers are exact and the same code runs in the browser
@@ -205,53 +207,81 @@ export class CsvTextParser {
       }
       this.start(this.options.delimiter ?? detectDelimiter(this.pending.slice(first.start, first.end)));
     }
-    const res = (this.parser as Papa.Parser).parse(this.pending, 0, !final) as PapaResult;
+    // Whole lines only (everything at the end): a row never runs past its line.
+    const cut = final ? this.pending.length : this.pending.lastIndexOf('\n') + 1;
+    if (cut > 0) {
+      const text = this.pending.slice(0, cut);
+      this.pending = this.pending.slice(cut);
+      this.readLines(text);
+      if (this.failed) {
+        this.pending = '';
+        return;
+      }
+    }
+    if (this.pending.length > MAX_CSV_ROW_CHARS) this.tooLong();
+  }
+
+  /**
+   * Reads whole lines: a line whose quotes do not close on it ({@link quoteProblem}) is a bad row
+   * at its own line number and the next line is read on its own; runs of good lines go to the
+   * splitter, one row per line.
+   */
+  private readLines(text: string): void {
+    const reader = this.reader;
+    const delim = this.delim as CsvDelimiter;
+    let runStart = 0;
+    let runLine = this.line;
+    let line = this.line;
+    let nextQuote = text.indexOf('"');
+    let pos = 0;
+    while (pos < text.length && !this.failed) {
+      let end = text.indexOf('\n', pos);
+      if (end === -1) end = text.length;
+      if (nextQuote !== -1 && nextQuote < end) {
+        const problem = quoteProblem(text.slice(pos, end), delim);
+        if (problem !== null) {
+          if (pos > runStart) this.splitRun(text.slice(runStart, pos - 1), runLine);
+          if (!this.failed) reader.pushBadLine(line, text.slice(pos, end), problem.column, problem.reason);
+          runStart = end + 1;
+          runLine = line + 1;
+        }
+        nextQuote = text.indexOf('"', end);
+      }
+      pos = end + 1;
+      line++;
+    }
+    if (!this.failed && runStart < text.length) {
+      const runEnd = text.charCodeAt(text.length - 1) === 10 ? text.length - 1 : text.length;
+      if (runEnd > runStart) this.splitRun(text.slice(runStart, runEnd), runLine);
+    }
+    this.line = line;
+  }
+
+  /** Splits lines that all close their quotes (one row per line) and hands the rows on. */
+  private splitRun(text: string, firstLine: number): void {
+    const res = (this.parser as Papa.Parser).parse(text, 0, false) as PapaResult;
     const rowProblems = new Map<number, string>();
     for (const e of res.errors) if (typeof e.row === 'number' && !rowProblems.has(e.row)) rowProblems.set(e.row, e.message);
     const reader = this.reader;
     const rows = res.data;
     for (let r = 0; r < rows.length && !reader.failed; r++) {
       const fields = rows[r];
-      let lines = 1;
       let chars = fields.length - 1; // the delimiters
-      for (let i = 0; i < fields.length; i++) {
-        const f = fields[i];
-        chars += f.length;
-        if (f.length > 0 && f.indexOf('\n') !== -1) for (let k = 0; k < f.length; k++) if (f.charCodeAt(k) === 10) lines++;
-      }
+      for (let i = 0; i < fields.length; i++) chars += fields[i].length;
       if (chars > MAX_CSV_ROW_CHARS) {
         // A whole row over the limit that arrived within one piece of text.
-        this.fatal = ImportError.single(this.line, String(MAX_CSV_ROW_CHARS + 1), fields.slice(0, 8).join(this.delim ?? ','), this.tooLongReason());
-        this.pending = '';
+        this.fatal = ImportError.single(firstLine + r, String(MAX_CSV_ROW_CHARS + 1), fields.slice(0, 8).join(this.delim ?? ','), this.tooLongReason());
         return;
       }
       const problem = rowProblems.get(r);
-      reader.pushRow(fields, this.line, problem === undefined ? undefined : `malformed CSV: ${problem}`);
-      this.line += lines;
+      reader.pushRow(fields, firstLine + r, problem === undefined ? undefined : `malformed CSV: ${problem}`);
     }
-    this.pending = final ? '' : this.pending.slice(res.meta.cursor);
-    if (this.pending.length > MAX_CSV_ROW_CHARS) this.tooLong();
   }
 
-  /**
-   * Refuses the row held in `pending` (it starts at line `this.line`) for running past the limit:
-   * at its last opening quote when a quote is left open (the usual cause), else at the first
-   * character past the limit.
-   */
+  /** Refuses the line held in `pending` (line `this.line`) for running past the limit. */
   private tooLong(): void {
     const s = this.pending;
-    let open = -1;
-    for (let i = s.indexOf('"'); i !== -1; i = s.indexOf('"', i + 1)) open = open === -1 ? i : -1;
-    const at = open !== -1 ? open : Math.min(MAX_CSV_ROW_CHARS, s.length - 1);
-    const lineStart = s.lastIndexOf('\n', at - 1) + 1;
-    this.fatal = ImportError.single(
-      this.line + countLineFeeds(s, 0, lineStart),
-      String(at - lineStart + 1),
-      s.slice(0, 80),
-      open !== -1
-        ? `a quote opened here is never closed: the row runs on for more than ${ROW_LIMIT_WORDS}`
-        : this.tooLongReason(),
-    );
+    this.fatal = ImportError.single(this.line, String(MAX_CSV_ROW_CHARS + 1), s.slice(0, 80), this.tooLongReason());
     this.pending = '';
   }
 
@@ -261,6 +291,42 @@ export class CsvTextParser {
 }
 
 const ROW_LIMIT_WORDS = `1 MiB (${groupDigits(MAX_CSV_ROW_CHARS)} characters)`;
+
+/**
+ * Where a line leaves a quote open, or has text after a closing quote, for delimiter `delim`:
+ * the 1-based column and the reason, or null when every quoted field closes on the line. A quote
+ * opens a field only at the field's start (elsewhere it is plain text); "" inside a quoted field
+ * is one quote; spaces may follow a closing quote before the delimiter.
+ * @example quoteProblem('2020-01-01 00:00,"1.5', ',') // { column: 18, reason: 'a quote opened here is not closed on its line' }
+ */
+export function quoteProblem(line: string, delim: string): { column: number; reason: string } | null {
+  const n = line.length;
+  let i = 0;
+  for (;;) {
+    if (line.charCodeAt(i) === 34) {
+      const open = i;
+      i++;
+      for (;;) {
+        const q = line.indexOf('"', i);
+        if (q === -1) return { column: open + 1, reason: 'a quote opened here is not closed on its line' };
+        if (line.charCodeAt(q + 1) === 34) {
+          i = q + 2;
+          continue;
+        }
+        i = q + 1;
+        break;
+      }
+      while (i < n && line[i] !== delim && (line[i] === ' ' || line[i] === '\t')) i++;
+      if (i >= n) return null;
+      if (line[i] !== delim) return { column: i + 1, reason: 'text after the closing quote of a field' };
+      i++;
+    } else {
+      const next = line.indexOf(delim, i);
+      if (next === -1) return null;
+      i = next + 1;
+    }
+  }
+}
 
 function countLineFeeds(s: string, from: number, to: number): number {
   let n = 0;

@@ -8,6 +8,7 @@
  * arrays), so the browser can validate its form state before serialising it.
  */
 import { z } from 'zod';
+import '../schemas/words';
 import { storableText } from '../schemas/common';
 import { ColumnMappingSchema } from './csv-columns';
 import { CSV_DELIMITERS, type CsvTextParserOptions } from './csv-text-parser';

@@ -10,6 +10,7 @@
  * Directions are degrees (coming from, clockwise from true north) only.
  */
 import { z } from 'zod';
+import '../schemas/words';
 
 /** Metres per international foot (exact). */
 export const M_PER_FT = 0.3048;

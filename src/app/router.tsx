@@ -1,25 +1,19 @@
+import type { ComponentType } from 'react';
 import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from './query-client';
 import { meQueryOptions } from '../api/me';
 import { projectQueryOptions } from '../api/projects';
 import { AppLayout } from './layouts/app-layout';
-import { ProjectLayout } from './layouts/project-layout';
 import { SignInPage } from '../features/auth/components/sign-in-page';
 import { ProjectsPage } from '../features/projects/components/projects-page';
-import { ProjectOverviewPage } from '../features/projects/components/project-overview-page';
-import { ProjectSettingsPage } from '../features/projects/components/project-settings-page';
-import { PeoplePage } from '../features/admin/components/people-page';
 import { NotFound, RouteError } from './route-error';
-import { WaveLabPage } from '../features/wave-lab/components/wave-lab-page';
-import { DatasetsPage } from '../features/datasets/components/datasets-page';
-import { DatasetDetailPage } from '../features/datasets/components/dataset-detail-page';
-import { DatasetImportPage } from '../features/datasets/components/dataset-import-page';
-import { BoardPage } from '../features/board/components/board-page';
-import { ConditionsPage } from '../features/board/components/conditions-page';
-import { SetupPage } from '../features/setup/components/setup-page';
-import { DowntimePage } from '../features/downtime/components/downtime-page';
-import { AlertsPage } from '../features/alerts/components/alerts-page';
-import { MailboxPage } from '../features/alerts/components/mailbox-page';
+
+// The first page (sign-in, the projects list and the app's frame) is in the entry chunk; every
+// other section is a chunk of its own, loaded when first opened (React Router's route-level
+// `lazy`). tests/unit/first-page-budget.test.ts holds the entry to its size budget.
+const page = <K extends string>(load: () => Promise<Record<K, ComponentType>>, name: K) => async () => ({
+  Component: (await load())[name],
+});
 
 /** Signed-in pages: the loader sends anonymous visitors to the sign-in page. */
 async function requireSignedIn({ request }: LoaderFunctionArgs) {
@@ -47,28 +41,28 @@ export const router = createBrowserRouter([
     errorElement: <RouteError />,
     children: [
       { index: true, element: <ProjectsPage /> },
-      { path: 'admin/people', element: <PeoplePage />, loader: requireAdmin },
+      { path: 'admin/people', lazy: page(() => import('../features/admin/components/people-page'), 'PeoplePage'), loader: requireAdmin },
       { path: 'projects', loader: () => redirect('/') },
-      { path: 'wave-lab', element: <WaveLabPage /> },
-      { path: 'admin/mailbox', element: <MailboxPage />, loader: requireAdmin },
+      { path: 'wave-lab', lazy: page(() => import('../features/wave-lab/components/wave-lab-page'), 'WaveLabPage') },
+      { path: 'admin/mailbox', lazy: page(() => import('../features/alerts/components/mailbox-page'), 'MailboxPage'), loader: requireAdmin },
       {
         path: 'projects/:projectId',
-        element: <ProjectLayout />,
+        lazy: page(() => import('./layouts/project-layout'), 'ProjectLayout'),
         loader: async ({ params }) => {
           await queryClient.ensureQueryData(projectQueryOptions(params.projectId ?? '')).catch(() => null);
           return null;
         },
         children: [
-          { index: true, element: <ProjectOverviewPage /> },
-          { path: 'settings', element: <ProjectSettingsPage /> },
-          { path: 'board', element: <BoardPage /> },
-          { path: 'conditions/:siteId', element: <ConditionsPage /> },
-          { path: 'setup', element: <SetupPage /> },
-          { path: 'downtime', element: <DowntimePage /> },
-          { path: 'alerts', element: <AlertsPage /> },
-          { path: 'sea-data', element: <DatasetsPage /> },
-          { path: 'sea-data/import', element: <DatasetImportPage /> },
-          { path: 'sea-data/:datasetId', element: <DatasetDetailPage /> },
+          { index: true, lazy: page(() => import('../features/projects/components/project-overview-page'), 'ProjectOverviewPage') },
+          { path: 'settings', lazy: page(() => import('../features/projects/components/project-settings-page'), 'ProjectSettingsPage') },
+          { path: 'board', lazy: page(() => import('../features/board/components/board-page'), 'BoardPage') },
+          { path: 'conditions/:siteId', lazy: page(() => import('../features/board/components/conditions-page'), 'ConditionsPage') },
+          { path: 'setup', lazy: page(() => import('../features/setup/components/setup-page'), 'SetupPage') },
+          { path: 'downtime', lazy: page(() => import('../features/downtime/components/downtime-page'), 'DowntimePage') },
+          { path: 'alerts', lazy: page(() => import('../features/alerts/components/alerts-page'), 'AlertsPage') },
+          { path: 'sea-data', lazy: page(() => import('../features/datasets/components/datasets-page'), 'DatasetsPage') },
+          { path: 'sea-data/import', lazy: page(() => import('../features/datasets/components/dataset-import-page'), 'DatasetImportPage') },
+          { path: 'sea-data/:datasetId', lazy: page(() => import('../features/datasets/components/dataset-detail-page'), 'DatasetDetailPage') },
         ],
       },
       { path: '*', element: <NotFound /> },

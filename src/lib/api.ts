@@ -1,7 +1,10 @@
 // The one fetch wrapper: JSON in and out, cookies included, errors as ApiError with the server's
 // code, message and field details.
 export interface FieldProblem {
+  /** the dotted schema path (forms put the message on this field) */
   field?: string;
+  /** the field in words ("Operation 2 “Lift” › Limits › Hs max") */
+  label?: string;
   message?: string;
   line?: number;
   column?: string;

@@ -11,7 +11,7 @@ import { loadProjectSetup, operationSpec, transformForSite } from '../../server/
 import { createDataset } from '../../server/services/datasets';
 import { toSeaSeries } from '../../server/services/sea-series';
 import { tallyDay, yearMonthLostHours, zonedDayMs } from '../../server/services/ledger';
-import { statsCache } from '../../server/db/schema';
+import { ledgerDay, statsCache } from '../../server/db/schema';
 import { clearStatsMemo, settleStatsCache } from '../../server/services/workability';
 
 let t: TestApp;
@@ -20,10 +20,13 @@ let base: string;
 // A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC and covers the next days; the
 // three-year invented hindcast covers 2023-2025.
 const NOW = new Date('2026-12-01T07:30:00Z');
+// The ledger records days that are over: its tests run on 10 December 2026, 12:00 UTC.
+const NOW_LEDGER = new Date('2026-12-10T12:00:00Z');
+let now = NOW;
 const HOUR = 3_600_000;
 
 beforeAll(async () => {
-  t = await createTestApp({ hindcastYears: 3, forecast: true, clock: () => NOW });
+  t = await createTestApp({ hindcastYears: 3, forecast: true, clock: () => now });
   as = await signInAll(t.app);
   base = `/api/projects/${t.demo.projectId}`;
 });
@@ -397,6 +400,7 @@ describe('campaigns', () => {
 describe('the downtime ledger', () => {
   let proposed: LedgerProposeAnswer;
   let obsId: string;
+  let earlierIssueId: string;
 
   beforeAll(async () => {
     // A short calm observation record over 3 December 2026 (UTC = London time in winter): every
@@ -421,15 +425,45 @@ describe('the downtime ledger', () => {
       {},
     );
     obsId = obs.id;
+    // An earlier forecast issue (30 November 18:00 UTC, 18 hours): calm until 06:00 on
+    // 1 December, stormy after; the fake issue of 06:00 must decide from 06:00 on.
+    const fStart = Date.UTC(2026, 10, 30, 18);
+    const fn = 18;
+    const fTime = Float64Array.from({ length: fn }, (_, i) => fStart + i * HOUR);
+    const calm = (i: number) => fTime[i] < Date.UTC(2026, 11, 1, 6);
+    const earlier = await createDataset(
+      t.database.db,
+      {
+        projectId: t.demo.projectId,
+        createdBy: t.demo.users.coordinator,
+        name: 'Forecast issued 2026-11-30 18:00 UTC (test)',
+        kind: 'forecast',
+        dataPointName: 'test',
+        dataPointLatitude: null,
+        dataPointLongitude: null,
+        dataPointDepthM: null,
+        sourceKind: 'upload',
+        issuedAt: new Date(fStart),
+      },
+      toSeaSeries({
+        timeMs: fTime,
+        hs: Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 0.2 : 9)),
+        tp: new Float64Array(fn).fill(6),
+        dir: new Float64Array(fn).fill(250),
+        wind: Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 3 : 30)),
+      }),
+      {},
+    );
+    earlierIssueId = earlier.id;
+    now = NOW_LEDGER;
   });
 
   it('proposes days from the data, observation first, then the forecast', async () => {
     const res = await as.coordinator.post(`${base}/ledger/propose?from=2026-12-01&to=2026-12-31`);
     expect(res.status, res.text).toBe(200);
     proposed = res.body;
-    // The forecast starts at its issue time (06:00 UTC on 1 December): that day is not spanned.
-    for (const u of proposed.uncovered) expect(u.days).toContain('2026-12-01');
-    expect(proposed.sources.map((s) => s.kind).sort()).toEqual(['forecast', 'observation']);
+    // The observation, the fake forecast issue and the earlier test issue (for 1 December).
+    expect(proposed.sources.map((s) => s.kind).sort()).toEqual(['forecast', 'forecast', 'observation']);
     const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body as LedgerEntry[];
     expect(rows.length).toBe(proposed.written);
     expect(rows.length).toBeGreaterThan(0);
@@ -450,6 +484,67 @@ describe('the downtime ledger', () => {
       if (r.operationName === 'Never goes') expect(r).toMatchObject({ proposedLostHours: 24, proposedLimiting: 'tpMin' });
       else expect(r).toMatchObject({ proposedLostHours: 0, proposedLimiting: null });
     }
+  });
+
+  // Issue 22, item 4: the ledger let a coordinator confirm and lock a day that had not happened.
+  it('proposes only days that are over in the worksite zone; a finished day without observation comes from the forecast issues that covered it', async () => {
+    // At NOW_LEDGER (10 December 12:00 UTC; London = UTC in December) 1-9 December are over.
+    for (const n of proposed.notOver) expect(n.days).toEqual(Array.from({ length: 22 }, (_, k) => `2026-12-${String(10 + k).padStart(2, '0')}`));
+    expect(proposed.uncovered).toEqual([]);
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-01`)).body as LedgerEntry[];
+    expect(rows.length).toBe(await pairCount());
+    // 1 December: 00:00-06:00 only the earlier issue covers; from 06:00 the newer one decides,
+    // also where the earlier one still runs (06:00-12:00, where it is stormy). Hand-built: the
+    // earlier issue is calm before 06:00, so only the newer issue's hours can be lost after it.
+    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+    const series = await readSeries(t.database.db, t.demo.forecastId!);
+    const depth = (await as.coordinator.get(`${base}/datasets/${t.demo.forecastId}`)).body.dataPoint.depthM;
+    const from = Date.UTC(2026, 11, 1, 6);
+    for (const r of rows) {
+      expect(r.source).toBe('forecast');
+      const site = setup.sites.find((s) => s.id === r.siteId)!;
+      const op = setup.operations.find((o) => o.id === r.operationId)!;
+      if (r.operationName === 'Never goes') {
+        expect(r.proposedLostHours).toBe(24);
+        continue;
+      }
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      let workable = 0;
+      for (let i = 0; i < series.timeMs.length; i++) if (series.timeMs[i] >= from && series.timeMs[i] < from + 18 * HOUR && ev.status[i] === STATUS.WORKABLE) workable++;
+      expect(r.proposedLostHours).toBe(18 - workable);
+      expect(r.datasetId).toBe(t.demo.forecastId);
+    }
+    expect(proposed.sources.map((s) => s.id)).toContain(earlierIssueId);
+  });
+
+  it('refuses to confirm a day that is not over in the worksite’s time zone', async () => {
+    // Second project: a worksite in Pacific/Auckland (UTC+13 in December) and one in London.
+    const B = `/api/projects/${t.demo.secondProjectId}`;
+    const site = async (name: string, timeZone: string) => {
+      const res = await as.coordinator.post(`${B}/sites`).send({ name, depth: 10, timeZone });
+      expect(res.status, res.text).toBe(201);
+      return res.body.id as string;
+    };
+    const auckland = await site('Ledger quay, Auckland', 'Pacific/Auckland');
+    const london = await site('Ledger quay, London', 'Europe/London');
+    const op = await as.coordinator.post(`${B}/operations`).send({ name: 'Ledger lift', tpop: 4, tc: 0, weatherRestricted: true, limits: { hsMax: 1 }, siteIds: [auckland, london] });
+    expect(op.status, op.text).toBe(201);
+    const row = async (siteId: string, day: string) =>
+      (
+        await t.database.db
+          .insert(ledgerDay)
+          .values({ projectId: t.demo.secondProjectId, operationId: op.body.id, siteId, day, plannedHours: 24, proposedLostHours: 3, source: 'forecast' })
+          .returning()
+      )[0].id;
+    // 10 December ends at 11:00 UTC in Auckland (00:00 on the 11th, UTC+13) and at 24:00 UTC in London.
+    const tooEarly = await as.coordinator.post(`${B}/ledger/${await row(london, '2026-12-10')}/confirm`).send({});
+    expect(tooEarly.status).toBe(409);
+    expect(tooEarly.body.error.message).toMatch(/2026-12-10 is not over yet at Ledger quay, London \(Europe\/London\)/);
+    const later = await as.coordinator.post(`${B}/ledger/${await row(london, '2026-12-20')}/confirm`).send({});
+    expect(later.status).toBe(409);
+    const over = await as.coordinator.post(`${B}/ledger/${await row(auckland, '2026-12-10')}/confirm`).send({});
+    expect(over.status, over.text).toBe(200);
+    expect(over.body.status).toBe('confirmed');
   });
 
   it('counts a forecast day as planned hours minus workable hours at OPLIM (checked hour by hour)', async () => {

@@ -408,7 +408,7 @@ describe('places that render names outside React', () => {
       expectEscapedHtml(m.html);
       expect(m.html).toContain('&lt;script&gt;alert(1)&lt;/script&gt; &amp; co'); // the project name
       // The plain-text part and the subject are text: the names appear as typed.
-      expect(skipperOps.some((o) => m.subject.startsWith(o.name))).toBe(true);
+      expect(skipperOps.some((o) => m.subject.startsWith(`${HOSTILE[1]} & co: ${o.name} at `))).toBe(true);
       expect(m.text).toContain(`${HOSTILE[1]} & co`);
     }
   });

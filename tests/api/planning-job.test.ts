@@ -36,9 +36,9 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     for (const m of inbox()) {
       // Only the skipper is subscribed (by default, to the operations assigned to them).
       expect(m.to).toEqual(['skipper@example.com']);
-      expect(SKIPPER_OPS.some((name) => m.subject.startsWith(name))).toBe(true);
-      // The subject says what changed, readable on a phone's lock screen.
-      expect(m.subject).toMatch(/: (new window from|window lost|earliest start now|may start now|may no longer start now|no-go at)( |$)/);
+      expect(SKIPPER_OPS.some((name) => m.subject.startsWith(`Varrow Reach export cable and landfall: ${name} at `))).toBe(true);
+      // The subject names the next start still possible (with its date) and what changed.
+      expect(m.subject).toMatch(/, (may start now|next start \w{3} \d{1,2} \w{3} \d\d:\d\d|no start possible in this forecast) \((new window, starts from|window lost|earliest start now|may start now|may no longer start now|no-go at)/);
       expect(m.text).toMatch(/Decision support only/);
       expect(m.text).toContain(`/projects/${t.demo.projectId}/board`);
       expect(m.html).toContain('<ul');
@@ -48,7 +48,7 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     const plan = (await as.skipper.get(`/api/projects/${t.demo.projectId}/plan`)).body;
     const berm = plan.plans.find((x: { operationName: string }) => x.operationName === 'Rock berm placement');
     if (berm.windows.length > 0) {
-      const mail = inbox().find((m) => m.subject.startsWith('Rock berm placement'))!;
+      const mail = inbox().find((m) => m.subject.includes(': Rock berm placement at '))!;
       expect(mail.text).toContain(berm.windows[0].start.slice(11, 16));
     }
   });
@@ -72,7 +72,7 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     const opsWithAlerts = new Set(p.alerts.map((a: { operationId: string }) => a.operationId));
     const ops = (await as.coordinator.get(`/api/projects/${t.demo.projectId}/operations`)).body as { id: string; name: string }[];
     for (const m of newMessages) {
-      const op = ops.find((o) => m.subject.startsWith(o.name))!;
+      const op = ops.find((o) => m.subject.includes(`: ${o.name} at `))!;
       expect(opsWithAlerts.has(op.id)).toBe(true);
     }
     firstCount = inbox().length;

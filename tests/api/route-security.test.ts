@@ -44,6 +44,8 @@ interface Params {
   entryId: string;
   userId: string;
   file: string;
+  /** A campaign step's index. */
+  index: string;
 }
 type ParamName = keyof Params;
 
@@ -201,6 +203,12 @@ const TABLE: Record<string, RouteCase> = {
   'DELETE /projects/:projectId/alpha': { access: 'coordinator', why: 'resets to the default table' },
 
   'GET /projects/:projectId/export': { access: 'member' },
+  'POST /projects/:projectId/import/preview': {
+    access: 'coordinator',
+    why: 'writes nothing; answers what an import would add and remove',
+    query: () => ({ mode: 'replace' }),
+    body: () => setupDocument,
+  },
   'POST /projects/:projectId/import': {
     access: 'coordinator',
     why: 'the project’s own export in merge mode: 409 on the clashing names, nothing changes',
@@ -255,6 +263,14 @@ const TABLE: Record<string, RouteCase> = {
     query: (p) => ({ dataset: p.datasetId }),
     queryIds: { dataset: 'datasetId' },
   },
+  'PATCH /projects/:projectId/campaigns/:campaignId/steps/:index': {
+    access: 'coordinator',
+    why: 'marks progress (audited); clients and skippers only read it',
+    body: () => ({ status: 'started' }),
+    fresh: async () => ({ campaignId: await createCampaign(P1.projectId, P1.operationId, P1.siteId) }),
+  },
+  'GET /projects/:projectId/campaigns/:campaignId/outlook': { access: 'member', why: 'a read: clients see when the campaign will finish', query: () => ({ alpha: 'true' }) },
+  'GET /projects/:projectId/campaigns/:campaignId/outlook/history': { access: 'member' },
 
   'POST /projects/:projectId/ledger/propose': { access: 'coordinator', query: () => ledgerRange },
   'GET /projects/:projectId/ledger': { access: 'member', why: 'clients see confirmed days only', query: () => ledgerRange },
@@ -390,7 +406,7 @@ beforeAll(async () => {
         createCampaign(projectId, operationId, siteId),
         createLedgerEntry(projectId, operationId, siteId),
       ]);
-      return { projectId, siteId, operationId, datasetId, campaignId, entryId, userId: scratchUser.body.user.id, file: 'unused' };
+      return { projectId, siteId, operationId, datasetId, campaignId, entryId, userId: scratchUser.body.user.id, file: 'unused', index: '0' };
     }),
   );
   P1 = p1;
@@ -474,7 +490,8 @@ describe.each(Object.keys(TABLE))('%s', (key) => {
       });
     }
 
-    const childParams = pathParams.filter((p) => p !== 'projectId');
+    // A step :index is a position inside the campaign in the path, not an id another project could own.
+    const childParams = pathParams.filter((p) => p !== 'projectId' && p !== 'index');
     if (childParams.length > 0) {
       it.each(childParams)('answers 404 for a :%s of another project, even to a member of both', async (param) => {
         // The coordinator is a member of both projects: the child id must still belong to the project in the path.

@@ -6,7 +6,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { OperationResponse, SiteResponse } from '../../shared/api-types-sites';
 import { parseTransferTableCsv, ProjectSetupDocument, TransferTableInput } from '../../shared/schemas/sites';
-import { auditEntry, operation, projectAlpha, worksite } from '../../server/db/schema';
+import { auditEntry, ledgerDay, operation, project, projectAlpha, worksite } from '../../server/db/schema';
 import { importSetup } from '../../server/services/project-setup';
 import { createTestApp, signInAll, type Agent, type TestApp } from '../support/app';
 
@@ -597,15 +597,119 @@ describe('setup export and import', () => {
     const res = await as.coordinator.post(`/api/projects/${A}/import`).send(doc);
     expect(res.status, res.text).toBe(200);
     // No alphaTable key: the project's table is kept.
-    expect(res.body).toEqual({
+    expect(res.body).toMatchObject({
       mode: 'merge',
       worksites: { created: 1, deleted: 0 },
       operations: { created: 1, deleted: 0 },
       alphaTable: 'kept',
+      dataPoint: 'kept',
     });
+    expect(res.body.messages).toEqual([expect.stringMatching(/no alpha table/), expect.stringMatching(/no data point/)]);
     const after = await rowCounts(A);
     expect(after.sites).toBe(before.sites + 1);
     expect(after.ops).toBe(before.ops + 1);
+  });
+
+  // Issue 22, item 2: a merge used to set the file's alpha table (here: the default) over a
+  // project's own table without a word; the file's data point was dropped without a word.
+  it('merge keeps the project’s own alpha table unless asked to take the file’s, and says what it did with the data point', async () => {
+    const own = { ...NOTES_ALPHA, values: NOTES_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.05) * 100) / 100)) };
+    expect((await as.coordinator.put(`/api/projects/${A}/alpha`).send(own)).status).toBe(200);
+    const projectBefore = (await as.coordinator.get(`/api/projects/${A}`)).body;
+    const doc = () => ({
+      format: 'lullwatch-setup',
+      version: 1,
+      exportedAt: '2026-03-01T08:00:00Z',
+      project: { name: 'An older contract', dataPointName: 'Outer buoy K2', dataPointLatitude: 51.5, dataPointLongitude: -4.25, dataPointDepthM: 60 },
+      alphaTable: null,
+      worksites: [{ name: unique('Merged quay'), depth: 6, timeZone: 'UTC' }],
+      operations: [],
+    });
+
+    // The preview says what would happen, and writes nothing.
+    const d1 = doc();
+    const preview = await as.coordinator.post(`/api/projects/${A}/import/preview`).send(d1);
+    expect(preview.status, preview.text).toBe(200);
+    expect(preview.body).toMatchObject({
+      mode: 'merge',
+      refusal: null,
+      adds: { worksites: [d1.worksites[0].name], operations: [], campaigns: [] },
+      removes: { worksites: [], operations: [], campaigns: [], confirmedLedgerDays: 0 },
+      alphaTable: { outcome: 'kept' },
+      dataPoint: { outcome: 'kept' },
+    });
+    expect(preview.body.alphaTable.message).toMatch(/left out.*keeps its own table/);
+    expect(preview.body.dataPoint.message).toMatch(/Outer buoy K2.*left out/);
+    expect((await as.coordinator.get(`/api/projects/${A}/sites`)).body.map((s: SiteResponse) => s.name)).not.toContain(d1.worksites[0].name);
+
+    const kept = await as.coordinator.post(`/api/projects/${A}/import`).send(d1);
+    expect(kept.status, kept.text).toBe(200);
+    expect(kept.body).toMatchObject({ alphaTable: 'kept', dataPoint: 'kept' });
+    expect(kept.body.messages).toEqual([preview.body.alphaTable.message, preview.body.dataPoint.message]);
+    expect((await as.coordinator.get(`/api/projects/${A}/alpha`)).body).toMatchObject({ isDefault: false, table: own });
+    const projectKept = (await as.coordinator.get(`/api/projects/${A}`)).body;
+    expect(projectKept.dataPointName).toBe(projectBefore.dataPointName);
+    expect(projectKept.dataPointDepthM).toBe(projectBefore.dataPointDepthM);
+
+    // Ticked: the file's table (the default) and its data point are taken.
+    const taken = await as.coordinator.post(`/api/projects/${A}/import?alphaTable=take&dataPoint=take`).send(doc());
+    expect(taken.status, taken.text).toBe(200);
+    expect(taken.body).toMatchObject({ alphaTable: 'default', dataPoint: 'set' });
+    expect(taken.body.messages[1]).toMatch(/Outer buoy K2.*replaces/);
+    expect((await as.coordinator.get(`/api/projects/${A}/alpha`)).body.isDefault).toBe(true);
+    expect((await as.coordinator.get(`/api/projects/${A}`)).body).toMatchObject({
+      dataPointName: 'Outer buoy K2',
+      dataPointLatitude: 51.5,
+      dataPointLongitude: -4.25,
+      dataPointDepthM: 60,
+    });
+    // Put the demo's data point back for the tests that follow.
+    await t.database.db
+      .update(project)
+      .set({
+        dataPointName: projectBefore.dataPointName,
+        dataPointLatitude: projectBefore.dataPointLatitude,
+        dataPointLongitude: projectBefore.dataPointLongitude,
+        dataPointDepthM: projectBefore.dataPointDepthM,
+      })
+      .where(eq(project.id, A));
+    expect((await as.coordinator.post(`/api/projects/${A}/import?alphaTable=always`).send(doc())).status).toBe(400);
+  });
+
+  // Issue 22, item 1: replace used to delete the whole downtime ledger, confirmed days included.
+  it('replace is refused while confirmed ledger days exist, and the preview lists everything replace removes', async () => {
+    const exported = (await as.coordinator.get(`/api/projects/${A}/export`)).body;
+    const site = await createSite(as.coordinator, B, { name: unique('Ledger berth') });
+    const op = await createOp(as.coordinator, B, { name: unique('Ledger lift'), siteIds: [site.id] });
+    const db = t.database.db;
+    const [confirmedRow] = await db
+      .insert(ledgerDay)
+      .values({ projectId: B, operationId: op.id, siteId: site.id, day: '2026-11-02', plannedHours: 24, proposedLostHours: 5, lostHours: 5, source: 'observation', status: 'confirmed' })
+      .returning();
+    await db.insert(ledgerDay).values({ projectId: B, operationId: op.id, siteId: site.id, day: '2026-11-03', plannedHours: 24, proposedLostHours: 2, source: 'observation' });
+
+    const preview = await as.coordinator.post(`/api/projects/${B}/import/preview?mode=replace`).send(exported);
+    expect(preview.status, preview.text).toBe(200);
+    const sitesB = (await as.coordinator.get(`/api/projects/${B}/sites`)).body as SiteResponse[];
+    const opsB = (await as.coordinator.get(`/api/projects/${B}/operations`)).body as OperationResponse[];
+    expect(preview.body.removes.worksites.sort()).toEqual(sitesB.map((s) => s.name).sort());
+    expect(preview.body.removes.operations.sort()).toEqual(opsB.map((o) => o.name).sort());
+    expect(preview.body.removes).toMatchObject({ confirmedLedgerDays: 1, proposedLedgerDays: 1 });
+    expect(preview.body.refusal).toMatch(/1 confirmed day \(2026-11-02 to 2026-11-02\)/);
+
+    const before = await rowCounts(B);
+    const refused = await as.coordinator.post(`/api/projects/${B}/import?mode=replace`).send(exported);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/confirmed day/);
+    expect(await rowCounts(B)).toEqual(before);
+    expect((await db.select().from(ledgerDay).where(eq(ledgerDay.id, confirmedRow.id))).length).toBe(1);
+
+    // With the confirmed day gone (here: removed by hand), replace goes ahead and takes the
+    // proposed day with it, as the preview said.
+    await db.delete(ledgerDay).where(eq(ledgerDay.id, confirmedRow.id));
+    const ok = await as.coordinator.post(`/api/projects/${B}/import?mode=replace`).send(exported);
+    expect(ok.status, ok.text).toBe(200);
+    expect(await db.select().from(ledgerDay).where(eq(ledgerDay.projectId, B))).toEqual([]);
   });
 
   it('refuses a bad document with 400 naming each bad field, and changes nothing', async () => {

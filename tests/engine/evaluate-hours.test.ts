@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_ALPHA_TABLE, LIMIT, STATUS, evaluateHours, type OperationLimits, type OperationSpec } from '../../shared/engine';
+import { explainHour } from '../../shared/engine/explain-hour';
 import { makeSeries, type Columns } from './series-factory';
 
 const { NO_DATA, NOT_WORKABLE, MARGINAL, WORKABLE } = STATUS;
@@ -179,5 +180,20 @@ describe('evaluateHours: no data wins, limiting factor and margins', () => {
     expect(() => evaluateHours(series, oplim({}), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
     expect(() => evaluateHours(series, oplim({ hsTpCurve: [[8, 1], [6, 2]] }), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
     expect(() => evaluateHours(series, oplim({ tpExcluded: [[9, 8]] }), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
+  });
+});
+
+// Issue 22: the hour chain said "outside the curve" without saying why.
+describe('the hour chain says why the Hs-Tp curve failed', () => {
+  const curveOp = oplim({ hsTpCurve: [[6, 1.2], [10, 2], [14, 1.5]] });
+  const hour = (hsM: number, tpS: number) => ({ hsM, tpS, bedVelocityLinearMps: NaN, bedVelocitySoulsbyMps: NaN, windMps: NaN });
+  const curveCheck = (hsM: number, tpS: number) => explainHour(hour(hsM, tpS), curveOp, DEFAULT_ALPHA_TABLE).checks[0];
+
+  it('names the curve end a Tp is beyond, the first point a Tp is below, and the Hs above the curve', () => {
+    expect(curveCheck(0.5, 14.73)).toMatchObject({ met: false, reason: "Tp 14.7 s is beyond the curve's last point at 14 s" });
+    expect(curveCheck(0.5, 5.2)).toMatchObject({ met: false, reason: "Tp 5.2 s is below the curve's first point at 6 s" });
+    // At Tp 8 s the curve is 1.2 + (2 - 1.2) * 2 / 4 = 1.6 m (linear between its points; hand-computed).
+    expect(curveCheck(1.75, 8)).toMatchObject({ met: false, reason: "Hs 1.8 m is above the curve's 1.6 m (OPLIM) at Tp 8 s" });
+    expect(curveCheck(1.5, 8).reason).toBeUndefined();
   });
 });

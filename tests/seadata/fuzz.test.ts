@@ -263,10 +263,10 @@ describe('size limits (shared/seadata/limits.ts)', () => {
     expect(e.message).toMatch(/line 3, column 1048577: a row longer than 1 MiB/);
   });
 
-  it('names the opening quote of a row that never closes it', () => {
-    const e = refusal(new CsvTextParser(), `time,hs\n2020-01-01T00:00Z,"1\n${'2\n'.repeat(MAX_LINE_CHARS / 2 + 10)}`);
-    expect(e.issues[0]).toMatchObject({ line: 2, column: '19' });
-    expect(e.issues[0].reason).toMatch(/quote opened here is never closed/);
+  it('names the opening quote of a row that never closes it, at its own line', () => {
+    const e = refusal(new CsvTextParser(), `time,hs\n2020-01-01T00:00Z,1\n2020-01-01T01:00Z,"1\n${'2\n'.repeat(MAX_LINE_CHARS / 2 + 10)}`);
+    expect(e.issues[0]).toMatchObject({ line: 3, column: '19' });
+    expect(e.issues[0].reason).toMatch(/quote opened here is not closed on its line/);
   });
 
   it('refuses a header of two million delimiters, and a row wider than the column limit', () => {
@@ -291,5 +291,41 @@ describe('size limits (shared/seadata/limits.ts)', () => {
     expect(shownText('a\u0000b\u0007\u007f\tc')).toBe('a\u2400b\u2407\u2421\tc');
     expect(shownText(`${'x'.repeat(79)}🌊🌊`)).toBe(`${'x'.repeat(79)}…`);
     expect(shownText('lone \ud800 half')).toBe('lone \ufffd half');
+  });
+});
+
+// Issue 22, item 3: one stray quote used to swallow the rest of a CSV file, so "skip bad rows"
+// lost good rows without reporting them. Whatever the lines hold, in skip mode every data line
+// is either a kept record or a row reported bad, and "rows read" is the number of data lines.
+describe('CSV skip mode accounts for every data line', () => {
+  const tail = fc.constantFrom(',1.5', ',"1.5"', ',"1.5', ',1.5"', ',"1"5', '"', ',', ',x', ',""', ',"a""b"', ' ,2', ',"2" ', ';', ',-1', ',"');
+  const goodTime = (k: number) => new Date(Date.UTC(2020, 0, 1) + k * 3_600_000).toISOString().slice(0, 16).replace('T', ' ');
+  const line = fc.oneof(
+    { weight: 4, arbitrary: fc.array(tail, { minLength: 1, maxLength: 3 }).map((parts) => (k: number) => goodTime(k) + parts.join('')) },
+    { weight: 1, arbitrary: fc.array(fc.constantFrom('x', '"', '""', ',', ' ', '1', 'a"b', '"x",'), { minLength: 1, maxLength: 6 }).map((parts) => () => `x${parts.join('')}`) },
+  );
+  const eol = fc.constantFrom('\n', '\r\n', '\r');
+
+  it('records kept + rows reported bad = data lines = rows read (any chunking)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.tuple(line, eol), { minLength: 1, maxLength: 80 }), fc.integer({ min: 1, max: 300 }), (spec, chunk) => {
+        const lines = spec.map(([make], k) => make(k));
+        const text = `time,hs\n${spec.map(([, e], k) => lines[k] + e).join('')}`;
+        const p = new CsvTextParser({ onBadRows: 'skip', timeZone: 'UTC' });
+        for (let i = 0; i < text.length; i += chunk) p.push(text.slice(i, i + chunk));
+        let result: ImportResult;
+        try {
+          result = p.end();
+        } catch (e) {
+          // Only "no usable record" may refuse a file in skip mode; every line is still listed.
+          expect(e).toBeInstanceOf(ImportError);
+          expect((e as ImportError).issues[0].reason).toMatch(/no usable record/);
+          return;
+        }
+        expect(result.report.rowsRead).toBe(lines.length);
+        expect(result.records.timeMs.length + result.report.rowsSkipped).toBe(lines.length);
+      }),
+      { numRuns: 300 },
+    );
   });
 });

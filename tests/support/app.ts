@@ -31,6 +31,8 @@ export interface TestAppOptions {
   hindcastYears?: number;
   /** Seed a forecast from the fake service (default no). */
   forecast?: boolean;
+  /** Earlier forecast issues, one a day back (default none). */
+  pastForecastDays?: number;
 }
 
 /** The real app on a fresh in-memory database with the demo scenario seeded. */
@@ -56,7 +58,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     database,
     config: { baseUrl: TEST_ORIGIN, trustedOrigins: [TEST_ORIGIN], linkSecret: 'test-link-secret', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
   };
-  const demo = await seedDemo(deps, { hindcastYears: options.hindcastYears ?? 0, forecast: options.forecast ?? false });
+  const demo = await seedDemo(deps, { hindcastYears: options.hindcastYears ?? 0, forecast: options.forecast ?? false, pastForecastDays: options.pastForecastDays ?? 0 });
   const app = createApp(deps);
   return {
     app,

@@ -87,6 +87,8 @@ export const subscription = pgTable(
     /** Local time of the daily digest, HH:MM, in digestTimeZone. */
     digestTime: text().notNull().default('06:00'),
     digestTimeZone: text().notNull().default('UTC'),
+    /** E-mail when a campaign's P50 finish moves by more than this many days between runs; null = off. */
+    outlookMoveDays: integer(),
     lastDigestAt: timestamp({ withTimezone: true }),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),

@@ -1,9 +1,19 @@
 import { sql } from 'drizzle-orm';
-import { doublePrecision, index, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import { user } from './auth';
 import { project } from './projects';
 import { operation, worksite } from './sites';
 import { dataset } from './datasets';
+import { planRun } from './alerts';
+
+/** Progress of one campaign step (set by a coordinator, audited). */
+export interface CampaignStepProgress {
+  status: 'planned' | 'started' | 'done';
+  startedAt: string | null;
+  doneAt: string | null;
+  /** Where the done time came from: given by hand, or the confirmed ledger days. */
+  source?: 'hand' | 'ledger';
+}
 
 /** An ordered list of steps (operation at worksite) with a planned start. */
 export const campaign = pgTable(
@@ -18,6 +28,10 @@ export const campaign = pgTable(
     plannedStart: timestamp({ withTimezone: true }),
     /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (docs/domain.md#convention-15). */
     timeZone: text().notNull().default('UTC'),
+    /** The finish date promised in the plan (drawn on the outlook chart); null = none. */
+    plannedFinish: timestamp({ withTimezone: true }),
+    /** Progress per step, by index: status and actual times (ISO); missing entries are planned. */
+    progress: jsonb().$type<CampaignStepProgress[]>().notNull().default([]),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
@@ -68,3 +82,26 @@ export const statsCache = pgTable('stats_cache', {
   value: jsonb().notNull(),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
+
+/** The campaign outlook stored by each planning job run (its history is the drift chart). */
+export const campaignOutlook = pgTable(
+  'campaign_outlook',
+  {
+    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    projectId: uuid()
+      .notNull()
+      .references(() => project.id, { onDelete: 'cascade' }),
+    campaignId: uuid()
+      .notNull()
+      .references(() => campaign.id, { onDelete: 'cascade' }),
+    /** The planning run that computed it; null for outlooks written otherwise (the demo's history). */
+    planRunId: uuid().references(() => planRun.id, { onDelete: 'set null' }),
+    at: timestamp({ withTimezone: true }).notNull(),
+    p50: timestamp({ withTimezone: true }),
+    p90: timestamp({ withTimezone: true }),
+    forecastIssuedAt: timestamp({ withTimezone: true }),
+    samples: integer().notNull(),
+    censored: integer().notNull(),
+  },
+  (t) => [index().on(t.campaignId, t.at)],
+);

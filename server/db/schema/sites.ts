@@ -76,7 +76,7 @@ export const auditEntry = pgTable(
     userId: text().references(() => user.id, { onDelete: 'set null' }),
     userName: text().notNull(),
     at: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    entity: text({ enum: ['operation', 'worksite', 'alpha', 'project'] }).notNull(),
+    entity: text({ enum: ['operation', 'worksite', 'alpha', 'project', 'campaign'] }).notNull(),
     entityId: text(),
     entityName: text().notNull().default(''),
     action: text({ enum: ['create', 'update', 'delete', 'import'] }).notNull(),

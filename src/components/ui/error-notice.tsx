@@ -1,3 +1,4 @@
+import { fieldLabel, problemSentence } from '../../../shared/schemas/words';
 import { ApiError } from '../../lib/api';
 import { Notice } from './card';
 
@@ -16,8 +17,9 @@ export function ErrorNotice({ error }: { error: unknown }) {
               {d.line !== undefined ? `Line ${d.line}` : null}
               {d.column ? `, column ${d.column}` : null}
               {d.value !== undefined ? ` (“${d.value}”)` : null}
-              {d.field ? `${d.field}: ` : null}
-              {d.message ?? (d.reason ? `: ${d.reason}` : null)}
+              {d.message !== undefined && (d.label || d.field)
+                ? problemSentence({ label: d.label ?? fieldLabel(d.field ?? ''), message: d.message })
+                : (d.message ?? (d.reason ? `: ${d.reason}` : null))}
             </li>
           ))}
         </ul>

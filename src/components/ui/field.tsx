@@ -1,3 +1,4 @@
+import { messageUnderField } from '../../../shared/schemas/words';
 import { forwardRef, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
 const control =
@@ -23,7 +24,7 @@ export function FieldShell({ label, htmlFor, hint, error, unit, children }: Fiel
       {children}
       {error ? (
         <p role="alert" className="text-sm text-danger" id={`${htmlFor}-error`}>
-          {error}
+          {messageUnderField(error)}
         </p>
       ) : hint ? (
         <p className="text-xs text-ink-soft">{hint}</p>

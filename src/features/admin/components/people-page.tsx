@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { CreateUserInput } from '../../../../shared/schemas/projects';
 import { PROJECT_ROLES, PROJECT_ROLE_LABELS, type ProjectRole } from '../../../../shared/auth/roles';
 import type { AdminUser, ProjectSummary } from '../../../../shared/api-types';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
 import { useProjects } from '../../../api/projects';
 import { useAdminUsers, useCreateUser, useSetMembership, useUpdateUser } from '../api/users';
 
@@ -73,12 +73,20 @@ function CreateUserCard() {
   );
 }
 
+type Pending =
+  | { kind: 'remove'; projectId: string; projectName: string }
+  | { kind: 'role'; projectId: string; projectName: string; from: ProjectRole; to: ProjectRole }
+  | { kind: 'deactivate' };
+
 function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummary[] }) {
   const update = useUpdateUser();
   const membership = useSetMembership();
   const [projectId, setProjectId] = useState('');
   const [role, setRole] = useState<ProjectRole>('skipper');
+  // a removal, a role change or a deactivation waits here until the admin confirms it
+  const [pending, setPending] = useState<Pending | null>(null);
   const unassigned = projects.filter((p) => !user.projects.some((m) => m.projectId === p.id));
+  const done = { onSuccess: () => setPending(null) };
 
   return (
     <Card className={user.active ? '' : 'opacity-70'}>
@@ -92,32 +100,74 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
         </div>
         <Button
           variant={user.active ? 'secondary' : 'primary'}
-          onClick={() => update.mutate({ userId: user.id, active: !user.active })}
+          onClick={() => (user.active ? setPending({ kind: 'deactivate' }) : update.mutate({ userId: user.id, active: true }))}
           disabled={update.isPending}
         >
           {user.active ? 'Deactivate' : 'Reactivate'}
         </Button>
       </div>
+      {pending?.kind === 'deactivate' ? (
+        <Confirm
+          title={`Deactivate ${user.name}?`}
+          confirmLabel="Deactivate"
+          busy={update.isPending}
+          onConfirm={() => update.mutate({ userId: user.id, active: false }, done)}
+          onCancel={() => setPending(null)}
+        >
+          They are signed out at once and can no longer sign in or receive alerts. You can reactivate them later.
+        </Confirm>
+      ) : null}
       {update.error ? <div className="mt-2"><ErrorNotice error={update.error} /></div> : null}
       <ul className="mt-3 grid gap-2">
-        {user.projects.map((m) => (
-          <li key={m.projectId} className="flex flex-wrap items-center gap-2 text-sm">
-            <span className="min-w-48 font-semibold">{m.projectName}</span>
-            <Select
-              aria-label={`Role of ${user.name} in ${m.projectName}`}
-              className="max-w-56"
-              value={m.role}
-              onChange={(e) => membership.mutate({ userId: user.id, projectId: m.projectId, role: e.target.value as ProjectRole })}
-            >
-              {PROJECT_ROLES.map((r) => (
-                <option key={r} value={r}>{PROJECT_ROLE_LABELS[r]}</option>
-              ))}
-            </Select>
-            <Button variant="ghost" onClick={() => membership.mutate({ userId: user.id, projectId: m.projectId, role: null })}>
-              Remove
-            </Button>
-          </li>
-        ))}
+        {user.projects.map((m) => {
+          const mine = pending && pending.kind !== 'deactivate' && pending.projectId === m.projectId ? pending : null;
+          return (
+            <li key={m.projectId} className="text-sm">
+              <div className="flex flex-wrap items-center gap-2">
+                <span className="min-w-48 font-semibold">{m.projectName}</span>
+                <Select
+                  aria-label={`Role of ${user.name} in ${m.projectName}`}
+                  className="max-w-56"
+                  value={mine?.kind === 'role' ? mine.to : m.role}
+                  onChange={(e) => {
+                    const to = e.target.value as ProjectRole;
+                    setPending(to === m.role ? null : { kind: 'role', projectId: m.projectId, projectName: m.projectName, from: m.role, to });
+                  }}
+                >
+                  {PROJECT_ROLES.map((r) => (
+                    <option key={r} value={r}>{PROJECT_ROLE_LABELS[r]}</option>
+                  ))}
+                </Select>
+                <Button variant="ghost" onClick={() => setPending({ kind: 'remove', projectId: m.projectId, projectName: m.projectName })}>
+                  Remove
+                </Button>
+              </div>
+              {mine?.kind === 'role' ? (
+                <Confirm
+                  title={`Change ${user.name}’s role in ${m.projectName} from ${PROJECT_ROLE_LABELS[mine.from]} to ${PROJECT_ROLE_LABELS[mine.to]}?`}
+                  confirmLabel="Change role"
+                  tone="primary"
+                  busy={membership.isPending}
+                  onConfirm={() => membership.mutate({ userId: user.id, projectId: m.projectId, role: mine.to }, done)}
+                  onCancel={() => setPending(null)}
+                >
+                  What they may see and change in this project follows the new role at once.
+                </Confirm>
+              ) : null}
+              {mine?.kind === 'remove' ? (
+                <Confirm
+                  title={`Remove ${user.name} from ${m.projectName}?`}
+                  confirmLabel="Remove from project"
+                  busy={membership.isPending}
+                  onConfirm={() => membership.mutate({ userId: user.id, projectId: m.projectId, role: null }, done)}
+                  onCancel={() => setPending(null)}
+                >
+                  They lose access to this project’s board, alerts and reports at once.
+                </Confirm>
+              ) : null}
+            </li>
+          );
+        })}
       </ul>
       {unassigned.length > 0 ? (
         <div className="mt-3 flex flex-wrap items-end gap-2">

@@ -2,14 +2,15 @@
 // @date-fns/tz (never hand-made offsets), always with the zone's abbreviation beside them.
 import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
+import { DATE_STYLE, localTimeZone } from '../../../../shared/dates';
 
 const DASH = '–';
 
 /** The browser's own IANA zone (for times that belong to no worksite: e-mails, runs). */
-export const browserTimeZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone || 'UTC';
+export const browserTimeZone = localTimeZone;
 
 /** An instant in a zone, e.g. 'Tue 3 Dec 14:00 CET'. */
-export function timeIn(iso: string | null | undefined, timeZone: string, pattern = 'EEE d MMM HH:mm'): string {
+export function timeIn(iso: string | null | undefined, timeZone: string, pattern: string = DATE_STYLE.dateTime): string {
   if (!iso) return DASH;
   const d = new Date(iso);
   if (Number.isNaN(d.getTime())) return DASH;
@@ -17,7 +18,7 @@ export function timeIn(iso: string | null | undefined, timeZone: string, pattern
 }
 
 /** A UTC instant in ms, in a zone, e.g. 'Mon 6 Jan 2027 06:00 CET'. */
-export const msIn = (ms: number, timeZone: string, pattern = 'EEE d MMM yyyy HH:mm') => timeIn(new Date(ms).toISOString(), timeZone, pattern);
+export const msIn = (ms: number, timeZone: string, pattern: string = DATE_STYLE.dateTimeYear) => timeIn(new Date(ms).toISOString(), timeZone, pattern);
 
 /** The zone's short name at that instant ('CET', 'CEST', 'GMT+1'), as the browser's Intl names it. */
 export function zoneAbbreviation(d: Date, timeZone: string): string {

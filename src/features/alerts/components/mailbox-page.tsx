@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { Button, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { useMailbox } from '../api/get-mailbox';
+import { DATE_STYLE } from '../../../../shared/dates';
 import { browserTimeZone, timeIn } from './format';
 import { MessageView } from './message-view';
 
@@ -51,7 +52,7 @@ export function MailboxPage() {
                     >
                       <span className="break-words font-semibold">{m.subject || '(no subject)'}</span>
                       <span className="break-all text-sm">To {m.to.join(', ')}</span>
-                      <span className="text-xs text-ink-soft">{timeIn(m.receivedAt, here, 'EEE d MMM yyyy HH:mm:ss')}</span>
+                      <span className="text-xs text-ink-soft">{timeIn(m.receivedAt, here, DATE_STYLE.dateTimeSeconds)}</span>
                     </button>
                   </li>
                 );
@@ -67,7 +68,7 @@ export function MailboxPage() {
               onClose={() => setOpenId(null)}
               meta={[
                 { label: 'To', value: open.to.join(', ') },
-                { label: 'Received', value: timeIn(open.receivedAt, here, 'EEE d MMM yyyy HH:mm:ss') },
+                { label: 'Received', value: timeIn(open.receivedAt, here, DATE_STYLE.dateTimeSeconds) },
               ]}
             />
           ) : (

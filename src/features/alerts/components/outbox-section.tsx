@@ -5,6 +5,7 @@ import { useState } from 'react';
 import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
 import { useOutbox } from '../api/get-outbox';
 import type { OutboxRow, OutboxStatus } from '../api/types';
+import { DATE_STYLE } from '../../../../shared/dates';
 import { browserTimeZone, timeIn } from './format';
 import { MessageView } from './message-view';
 
@@ -81,8 +82,8 @@ export function OutboxSection({ projectId }: { projectId: string }) {
             meta={[
               { label: 'To', value: open.toEmail },
               { label: 'Status', value: `${STATUS[open.status].label} after ${open.attempts} ${open.attempts === 1 ? 'try' : 'tries'}` },
-              { label: 'Written', value: timeIn(open.createdAt, here, 'EEE d MMM yyyy HH:mm') },
-              ...(open.sentAt ? [{ label: 'Sent', value: timeIn(open.sentAt, here, 'EEE d MMM yyyy HH:mm') }] : []),
+              { label: 'Written', value: timeIn(open.createdAt, here, DATE_STYLE.dateTimeYear) },
+              ...(open.sentAt ? [{ label: 'Sent', value: timeIn(open.sentAt, here, DATE_STYLE.dateTimeYear) }] : []),
               ...(open.lastError ? [{ label: 'Last error', value: <span className="text-danger">{open.lastError}</span> }] : []),
             ]}
           />

@@ -5,6 +5,7 @@ import type { OperationResponse, SiteResponse } from '../../../../shared/api-typ
 import { Button, Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { useAlerts } from '../api/get-alerts';
 import { alertText, TONE_CLASS } from './alert-words';
+import { DATE_STYLE } from '../../../../shared/dates';
 import { browserTimeZone, timeIn } from './format';
 
 /** Alerts listed before "show all" (the list holds the latest 50). */
@@ -57,7 +58,7 @@ export function RecentAlertsSection({ projectId, operations, sites }: Props) {
                     </p>
                     <p className="text-sm">{t.body}</p>
                     <p className="text-xs text-ink-soft">
-                      Found {timeIn(a.createdAt, here, 'EEE d MMM yyyy HH:mm')}
+                      Found {timeIn(a.createdAt, here, DATE_STYLE.dateTimeYear)}
                       {site ? ` · worksite times in ${zone}` : ' · times in UTC'}
                     </p>
                   </div>

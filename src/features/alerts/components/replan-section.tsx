@@ -6,6 +6,7 @@ import { Button, Card, ErrorNotice, Notice } from '../../../components/ui';
 import { useReplan } from '../api/replan';
 import type { ProjectJobResult } from '../api/types';
 import { KIND_WORDS } from './alert-words';
+import { DATE_STYLE } from '../../../../shared/dates';
 import { browserTimeZone, timeIn } from './format';
 
 interface Props {
@@ -79,7 +80,7 @@ function RunSummary({
         <p className="font-semibold">Planned at {when}.</p>
         <p>
           {run.forecast
-            ? `Forecast issued ${timeIn(run.forecast.issuedAt, here, 'EEE d MMM yyyy HH:mm')}${run.forecast.isNew ? ', a new issue stored now' : ', the same issue as before'}. `
+            ? `Forecast issued ${timeIn(run.forecast.issuedAt, here, DATE_STYLE.dateTimeYear)}${run.forecast.isNew ? ', a new issue stored now' : ', the same issue as before'}. `
             : 'Planned on the newest uploaded sea data (this project does not use the forecast service). '}
           {plural(run.plans ?? 0, 'plan')} (operation × worksite), {plural(alerts.length, 'change')} found,{' '}
           {plural(run.queued ?? 0, 'alert e-mail')} written to the outbox.

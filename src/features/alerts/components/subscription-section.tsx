@@ -3,6 +3,7 @@
 // switch. Without a stored choice the default applies: skippers hear about their assigned operations.
 import { Controller, useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import type { z } from 'zod';
 import { SubscriptionInput } from '../../../../shared/schemas/alerts';
 import type { ProjectAccessRole } from '../../../../shared/api-types';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
@@ -42,7 +43,7 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
   const save = useSaveSubscription(projectId);
   const firstZone = sites[0]?.timeZone ?? 'UTC';
   const { stored, ...values } = initial;
-  const form = useForm<SubscriptionInput>({
+  const form = useForm<z.input<typeof SubscriptionInput>, unknown, SubscriptionInput>({
     resolver: zodResolver(SubscriptionInput),
     // A first choice gets the first worksite's zone for the digest rather than the server's UTC default.
     defaultValues: { ...values, digestTimeZone: !stored && values.digestTimeZone === 'UTC' ? firstZone : values.digestTimeZone },
@@ -160,6 +161,26 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
               </Select>
             </FieldShell>
           </div>
+        ) : null}
+        {role === 'client' || role === 'coordinator' ? (
+          <FieldShell
+            label="Campaign finish moved"
+            htmlFor="sub-outlook-days"
+            unit="days"
+            error={errors.outlookMoveDays?.message}
+            hint="E-mail me when a campaign's P50 finish moves by more than this many days from one planning run to the next. Empty: off."
+          >
+            <Input
+              id="sub-outlook-days"
+              type="number"
+              min={1}
+              max={365}
+              step={1}
+              inputMode="numeric"
+              {...form.register('outlookMoveDays', { setValueAs: (x: unknown) => (x === '' || x === null || x === undefined ? null : Number(x)) })}
+              invalid={!!errors.outlookMoveDays}
+            />
+          </FieldShell>
         ) : null}
       </fieldset>
 

@@ -4,6 +4,7 @@
 // as a repeated or missing hour label.
 import { format } from 'date-fns';
 import { tz, tzName } from '@date-fns/tz';
+import { DATE_STYLE, formatInstant } from '../../../../shared/dates';
 import type { HourStatus, LimitCheck } from '../../../../shared/api-types-plan';
 import { TRANSFORM_FLAG } from '../../../../shared/waves/transform';
 
@@ -54,7 +55,7 @@ export function limitWord(name: string | null | undefined): string | null {
 }
 
 /** An instant as text in a time zone, e.g. 'Tue 3 Dec 14:00' (date-fns pattern). */
-export function formatIn(instant: string | number | Date, zone: string, pattern = 'EEE d MMM HH:mm'): string {
+export function formatIn(instant: string | number | Date, zone: string, pattern: string = DATE_STYLE.dateTime): string {
   const d = instant instanceof Date ? instant : new Date(instant);
   if (Number.isNaN(d.getTime())) return '–';
   return format(d, pattern, { in: tz(zone) });
@@ -73,11 +74,14 @@ export function zoneShort(instant: string | number | Date, zone: string): string
 /** Calendar day key of an instant in a zone ('yyyy-MM-dd'). */
 export const dayKey = (ms: number, zone: string) => format(ms, 'yyyy-MM-dd', { in: tz(zone) });
 
-/** A start time in words: weekday and time within six days of now, with the date beyond. */
+/**
+ * A start time in the product's date style, always with day and month ("Thu 3 Dec 14:00"), the
+ * year added when it is not the year of now.
+ */
 export function formatStart(instant: string | number, zone: string, nowMs: number): string {
   const ms = typeof instant === 'number' ? instant : Date.parse(instant);
-  const withinWeek = Math.abs(ms - nowMs) < 6 * 86_400_000;
-  return formatIn(ms, zone, withinWeek ? 'EEE HH:mm' : 'EEE d MMM HH:mm');
+  const sameYear = formatIn(ms, zone, 'yyyy') === formatIn(nowMs, zone, 'yyyy');
+  return formatInstant(ms, zone, sameYear ? 'dateTime' : 'dateTimeYear');
 }
 
 /** How long ago (or ahead) an instant is, e.g. '35 min ago', '6 h ago', '2 days ago', 'in 3 h'. */

@@ -6,6 +6,7 @@ import { Link } from 'react-router-dom';
 import type { OperationSitePlan } from '../../../../shared/api-types-plan';
 import { STATUS_META, formatIn, limitWord, zoneShort } from './board-format';
 import { dayRuns, startWords, windowBoxes, type VisibleRange } from './board-model';
+import { Term } from '../../../components/ui';
 
 export interface SelectedHour {
   operationId: string;
@@ -155,7 +156,8 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
                   </div>
                 ))}
               </div>
-              <div className="relative h-5">
+              {/* hour numbers on the first line, the "now" tag on a line of its own below them, so it never covers a label */}
+              <div className="relative h-9">
                 {hourLabels.map((h) => (
                   <span
                     key={h.index}
@@ -166,7 +168,7 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
                   </span>
                 ))}
                 {nowOffset !== null ? (
-                  <span className="absolute -top-0.5 z-10 rounded-r bg-lamp px-1 text-[10px] font-bold leading-4 text-deep" style={{ left: nowOffset }}>
+                  <span className="absolute top-4 z-10 rounded-r bg-lamp px-1 text-[10px] font-bold leading-4 text-deep" style={{ left: nowOffset }} data-testid="now-tag">
                     now
                   </span>
                 ) : null}
@@ -267,7 +269,7 @@ const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, 
       <div className="sticky left-0 z-20 w-[calc(100vw-2.75rem)] bg-surface px-3 pt-2 sm:px-4 lg:w-80 lg:shrink-0 lg:border-r lg:border-line lg:pb-0">
         <p className="text-sm leading-snug font-bold">{plan.operationName}</p>
         <p className="text-xs text-ink-soft">
-          at {plan.siteName} · TR {plan.tr} h <span className="whitespace-nowrap">(TPOP {plan.tpop} h + TC {plan.tc} h)</span>
+          at {plan.siteName} · <Term k="tr" /> {plan.tr} h <span className="whitespace-nowrap">(<Term k="tpop" /> {plan.tpop} h + <Term k="tc" /> {plan.tc} h)</span>
         </p>
         <p
           className={`mt-1 text-sm font-semibold ${words.tone === 'now' ? 'text-accent' : words.tone === 'none' ? 'text-ink-soft' : 'text-ink'}`}

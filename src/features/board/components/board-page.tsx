@@ -13,7 +13,7 @@ import { BoardControls, HOUR_WIDTH_PX, type BoardFilters, type HourWidth } from 
 import { formatIn, relativeTime, zoneShort } from './board-format';
 import { BoardGrid, type SelectedHour } from './board-grid';
 import { BoardLegend } from './board-legend';
-import { visibleRange } from './board-model';
+import { startWords, visibleRange } from './board-model';
 import { ChainPanel } from './chain-panel';
 
 /** A forecast older than this is called out (common practice: forecasts are issued 2-4 times a day). */
@@ -185,6 +185,7 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
 
   return (
     <div className="flex flex-col gap-4">
+      <NextStarts plans={plans} nowMs={nowMs} />
       <Card className="flex flex-col gap-4">
         <div className="flex flex-wrap items-baseline gap-x-3 gap-y-1" data-testid="forecast-info">
           <h2 className="text-base font-bold">{dataset.name}</h2>
@@ -270,6 +271,33 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
         />
       ) : null}
     </div>
+  );
+}
+
+/**
+ * Phones: the board's first answer, the next start of each operation at each worksite, before the
+ * forecast details and the controls (wider screens read it at the start of each row of the grid).
+ */
+function NextStarts({ plans, nowMs }: { plans: PlanAnswer['plans']; nowMs: number }) {
+  if (plans.length === 0) return null;
+  return (
+    <section className="rounded-[var(--radius-card)] border border-line bg-surface p-3 sm:hidden" aria-labelledby="next-starts-title" data-testid="next-starts">
+      <h2 id="next-starts-title" className="text-base font-bold">
+        Next starts
+      </h2>
+      <ul className="mt-1 flex flex-col divide-y divide-line">
+        {plans.slice(0, 8).map((p) => {
+          const w = startWords(p, nowMs);
+          return (
+            <li key={`${p.operationId}-${p.siteId}`} className="py-1.5 text-sm">
+              <span className="font-semibold">{p.operationName}</span> <span className="text-ink-soft">at {p.siteName}</span>
+              <span className={`block ${w.tone === 'now' ? 'font-semibold text-accent' : w.tone === 'none' ? 'text-ink-soft' : 'text-ink'}`}>{w.text}</span>
+            </li>
+          );
+        })}
+      </ul>
+      {plans.length > 8 ? <p className="mt-1 text-xs text-ink-soft">{plans.length - 8} more below in the board.</p> : null}
+    </section>
   );
 }
 

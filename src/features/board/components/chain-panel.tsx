@@ -5,7 +5,7 @@
 import { useEffect, useRef, type ReactNode } from 'react';
 import type { LimitCheck, OperationSitePlan } from '../../../../shared/api-types-plan';
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
-import { ErrorNotice, Spinner } from '../../../components/ui';
+import { ErrorNotice, Spinner, Term } from '../../../components/ui';
 import { useHourChain, type HourChain } from '../api/get-hour-chain';
 import { STATUS_META, flagWords, fmt, fmtDir, formatIn, limitWord, zoneShort } from './board-format';
 
@@ -239,12 +239,12 @@ function LimitRow({ check: c }: { check: LimitCheck }) {
           <dd className="tabular-nums">{fmt(c.value, d, c.unit)}</dd>
         </div>
         <div>
-          <dt className="text-ink-soft">{isBand ? 'Nearest edge' : 'OPLIM'}</dt>
+          <dt className="text-ink-soft">{isBand ? 'Nearest edge' : <Term k="oplim" />}</dt>
           <dd className="tabular-nums">{c.oplim === null && c.limit === 'hsTpCurve' ? 'outside the curve' : fmt(c.oplim, d, c.unit)}</dd>
         </div>
         {c.opwf !== null ? (
           <div>
-            <dt className="text-ink-soft">OPWF</dt>
+            <dt className="text-ink-soft"><Term k="opwf" /></dt>
             <dd className="tabular-nums">
               {fmt(c.opwf, d, c.unit)} <span className="text-ink-soft">(α {fmt(c.alpha, 2)})</span>
             </dd>
@@ -255,6 +255,11 @@ function LimitRow({ check: c }: { check: LimitCheck }) {
           <dd className={`tabular-nums ${c.margin !== null && c.margin < 0 ? 'font-bold text-danger' : ''}`}>{fmt(c.margin, d, c.unit)}</dd>
         </div>
       </dl>
+      {c.reason ? (
+        <p className="mt-1 text-xs font-semibold" data-testid="limit-reason">
+          {c.reason}
+        </p>
+      ) : null}
     </li>
   );
 }

@@ -288,7 +288,7 @@ export function CsvPreviewTable({ preview }: { preview: CsvPreview }) {
                     {r.line}
                   </td>
                   <td className="px-3 py-1.5 align-top whitespace-nowrap">
-                    {Number.isNaN(r.timeMs) ? <span className="text-danger">not read</span> : formatUtc(r.timeMs, 'yyyy-MM-dd HH:mm')}
+                    {Number.isNaN(r.timeMs) ? <span className="text-danger">not read</span> : formatUtc(r.timeMs)}
                     {rawTime.trim() !== '' ? <span className="block text-xs text-ink-soft">{rawTime.trim()}</span> : null}
                   </td>
                   {columns.map((c) => {

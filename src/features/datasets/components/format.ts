@@ -2,19 +2,20 @@
 // records; zone handling goes through @date-fns/tz, never through hand-made offsets.
 import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
+import { DATE_STYLE } from '../../../../shared/dates';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 
 const UTC = tz('UTC');
 
 /** A UTC instant as text, e.g. '3 Feb 2017 14:00' (date-fns pattern, read in UTC). */
-export function formatUtc(instant: string | number | Date, pattern = 'd MMM yyyy HH:mm'): string {
+export function formatUtc(instant: string | number | Date, pattern: string = DATE_STYLE.dateHour): string {
   const d = instant instanceof Date ? instant : new Date(instant);
   if (Number.isNaN(d.getTime())) return '–';
   return format(d, pattern, { in: UTC });
 }
 
 /** A UTC calendar day, e.g. '3 Feb 2017'. */
-export const formatUtcDay = (instant: string | number | Date) => formatUtc(instant, 'd MMM yyyy');
+export const formatUtcDay = (instant: string | number | Date) => formatUtc(instant, DATE_STYLE.date);
 
 /** 'yyyy-MM-dd' of a UTC instant, for date inputs. */
 export const utcDateInput = (ms: number) => formatUtc(ms, 'yyyy-MM-dd');

@@ -59,7 +59,7 @@ export function NdbcPreviewTable({ preview, rows = 12 }: { preview: NdbcPreview;
         <tbody>
           {idx.map((i) => (
             <tr key={i} className="border-b border-line last:border-0">
-              <td className="px-3 py-1.5 whitespace-nowrap">{formatUtc(r.timeMs[i], 'yyyy-MM-dd HH:mm')}</td>
+              <td className="px-3 py-1.5 whitespace-nowrap">{formatUtc(r.timeMs[i])}</td>
               {COLS.map((c) => (
                 <td key={c.key} className="px-3 py-1.5 text-right tabular-nums">
                   {formatValue(r[c.key][i], c.decimals)}

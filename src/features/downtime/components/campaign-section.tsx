@@ -3,7 +3,7 @@ import { TZDate } from '@date-fns/tz';
 import type { CampaignResponse, CampaignSimulation } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAMPAIGN_MAX_STEPS, CampaignInput } from '../../../../shared/schemas/downtime';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner, Term } from '../../../components/ui';
 import { ApiError } from '../../../lib/api';
 import { useCampaigns } from '../api/get-campaigns';
 import { useCreateCampaign } from '../api/create-campaign';
@@ -181,16 +181,16 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
                 Start
               </th>
               <th scope="col" className={`${th} text-right`}>
-                P50 duration
+                <Term k="p50p90">P50 duration</Term>
               </th>
               <th scope="col" className={`${th} text-right`}>
                 P90 duration
               </th>
               <th scope="col" className={`${th} text-right`}>
-                WoW P50
+                <Term k="wow">WoW P50</Term>
               </th>
               <th scope="col" className={`${th} text-right`}>
-                WoW P90
+                <Term k="wow">WoW P90</Term>
               </th>
               <th scope="col" className={`${th} text-right`}>
                 P50 finish
@@ -199,7 +199,7 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
                 P90 finish
               </th>
               <th scope="col" className={`${th} text-left`}>
-                Censored years
+                <Term k="censoredYears" />
               </th>
             </tr>
           </thead>

@@ -4,7 +4,7 @@
 // member reads; coordinators (and admins) edit campaigns and propose/confirm the ledger.
 // The choices live in the address (?dataset=&alpha=off&campaign=&month=) so a view can be shared.
 import { useParams, useSearchParams } from 'react-router-dom';
-import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner, Term } from '../../../components/ui';
 import { useProjectAccess } from '../../../api/projects';
 import { useHindcasts } from '../../../api/datasets';
 import { useOperations } from '../../../api/operations';
@@ -14,6 +14,7 @@ import { useLedger } from '../api/get-ledger';
 import { CampaignSection } from './campaign-section';
 import { dateIn, monthRange, thisMonth } from './format';
 import { LedgerSection } from './ledger-section';
+import { OutlookSection } from './outlook-section';
 import { PrintReport } from './print-report';
 import { WorkabilitySection } from './workability-section';
 
@@ -31,7 +32,8 @@ function AlphaSwitch({ on, onToggle }: { on: boolean; onToggle: () => void }) {
         <span className={`absolute size-5 rounded-full bg-white shadow transition-all ${on ? 'left-[1.15rem]' : 'left-0.5'}`} />
       </span>
       <span>
-        Forecast limits (α)<span className="ml-1 font-normal text-ink-soft">{on ? 'on' : 'off'}</span>
+        Forecast limits <Term k="alpha">(α)</Term>
+        <span className="ml-1 font-normal text-ink-soft">{on ? 'on' : 'off'}</span>
       </span>
     </button>
   );
@@ -136,6 +138,8 @@ export function DowntimePage() {
         selectedId={campaignId}
         onSelect={(id) => set('campaign', id)}
       />
+
+      <OutlookSection projectId={projectId} canEdit={access.canEdit} alpha={alpha} operations={operations.data ?? []} sites={sites.data ?? []} selectedId={campaignId} />
 
       <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} />
     </div>

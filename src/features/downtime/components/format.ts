@@ -2,6 +2,7 @@
 // hand-made offsets); every number carries its unit.
 import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
+import { DATE_STYLE } from '../../../../shared/dates';
 
 export const MONTH_SHORT = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'] as const;
 export const MONTH_LONG = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'] as const;
@@ -29,14 +30,14 @@ export function num(x: number | null | undefined, decimals = 1): string {
 }
 
 /** An instant as a date in a time zone, e.g. '4 Dec 2026'. */
-export function dateIn(iso: string | null | undefined, timeZone: string, pattern = 'd MMM yyyy'): string {
+export function dateIn(iso: string | null | undefined, timeZone: string, pattern: string = DATE_STYLE.dayYear): string {
   if (!iso) return DASH;
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? DASH : format(d, pattern, { in: tz(timeZone) });
 }
 
 /** A calendar day 'YYYY-MM-DD' as words, e.g. 'Fri 4 Dec 2026'. */
-export function dayWords(day: string, pattern = 'EEE d MMM yyyy'): string {
+export function dayWords(day: string, pattern: string = DATE_STYLE.dayYear): string {
   return format(new Date(`${day}T12:00:00Z`), pattern, { in: tz('UTC') });
 }
 

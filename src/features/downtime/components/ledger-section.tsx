@@ -24,8 +24,15 @@ function subscribeNarrow(onChange: () => void) {
 }
 const isNarrow = () => window.matchMedia(NARROW).matches;
 
-/** Today on the user's clock, YYYY-MM-DD (worksite days differ by at most a day): later days are an outlook. */
+/** Today on the user's clock, YYYY-MM-DD (worksite days differ by at most a day); the server decides in the worksite's zone. */
 const todayDay = () => format(new Date(), 'yyyy-MM-dd');
+
+/** Where a day's proposal came from, in plain words. */
+const sourceWords = (r: LedgerEntry) => (r.source === 'observation' ? 'Observed' : 'From forecast');
+const sourceTitle = (r: LedgerEntry) =>
+  r.source === 'observation'
+    ? `Measured: ${r.datasetName ?? 'an observation dataset'}`
+    : `No observation covers this day: estimated from the forecast issues that covered it (mostly ${r.datasetName ?? 'a deleted forecast'})`;
 
 /** What a row shows: the confirmed values once confirmed, else the proposal. */
 function shown(r: LedgerEntry) {
@@ -66,12 +73,12 @@ function LedgerCard({ projectId, row: r, canEdit, open, onOpen }: { projectId: s
         <span className="font-semibold">{hours(lost)}</span> lost of {hours(r.plannedHours, 0)}
         {corrected ? <span className="text-ink-soft"> (proposed {hours(r.proposedLostHours)})</span> : null} · {limitingLabel(limiting)}
       </p>
-      <p className="text-xs text-ink-soft">
-        {r.source === 'observation' ? 'Observation' : 'Forecast'}
-        {r.day > todayDay() ? ', day not over yet' : ''}
+      <p className="text-xs text-ink-soft" title={sourceTitle(r)}>
+        {sourceWords(r)}
+        {r.day >= todayDay() ? ', day not over yet' : ''}
       </p>
       {r.note ? <p className="mt-1 text-xs text-ink-soft">Note: {r.note}</p> : null}
-      {canEdit && !confirmed && !open ? (
+      {canEdit && !confirmed && !open && r.day < todayDay() ? (
         <Button variant="secondary" className="no-print mt-2" onClick={() => onOpen(true)} aria-label={`Confirm ${r.day}, ${r.operationName} at ${r.siteName}`}>
           Confirm
         </Button>
@@ -133,7 +140,9 @@ export function LedgerSection({ projectId, canEdit, isClient, month, onMonth, da
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
             What happened, day by day in each worksite’s time zone: all hours of a day are planned; hours not workable at OPLIM, or without data, count as lost.
-            {isClient ? ' Confirmed days only.' : ' Proposed from the newest observations covering the day, else the newest forecast; the coordinator confirms or corrects each day.'}
+            {isClient
+              ? ' Confirmed days only.'
+              : ' Only days that are over are proposed: from the newest observation covering the day, else from the forecast issues that covered it (marked “From forecast”). The coordinator confirms or corrects each finished day.'}
           </p>
         </div>
       </div>
@@ -222,12 +231,14 @@ export function LedgerSection({ projectId, canEdit, isClient, month, onMonth, da
 
 function ProposeResult({ answer }: { answer: LedgerProposeAnswer }) {
   const uncovered = answer.uncovered.reduce((a, u) => a + u.days.length, 0);
+  const notOver = answer.notOver.reduce((a, u) => a + u.days.length, 0);
   return (
     <Notice tone="success">
       {answer.written} day{answer.written === 1 ? '' : 's'} proposed
       {answer.keptConfirmed > 0 ? `, ${answer.keptConfirmed} confirmed left as they were` : ''}
-      {answer.sources.length > 0 ? ` from ${answer.sources.map((s) => `${s.name} (${s.kind})`).join(', ')}` : ''}.
+      {answer.sources.length > 0 ? ` from ${answer.sources.map((s) => `${s.name} (${s.kind === 'observation' ? 'observed' : 'forecast'})`).join(', ')}` : ''}.
       {uncovered > 0 ? ` ${uncovered} worksite-day${uncovered === 1 ? '' : 's'} had no observation or forecast covering the whole day and were left out.` : ''}
+      {notOver > 0 ? ` ${notOver} worksite-day${notOver === 1 ? ' is' : 's are'} not over yet and ${notOver === 1 ? 'was' : 'were'} left out.` : ''}
     </Notice>
   );
 }
@@ -250,16 +261,16 @@ function LedgerRow({ projectId, row: r, canEdit, open, onOpen }: { projectId: st
           {corrected ? <div className="text-xs font-normal text-ink-soft">proposed {hours(r.proposedLostHours, 1)}</div> : null}
         </td>
         <td className="px-2 py-1">{limitingLabel(limiting)}</td>
-        <td className="px-2 py-1 text-xs text-ink-soft">
-          {r.source === 'observation' ? 'Observation' : 'Forecast'}
-          {r.day > todayDay() ? <div>day not over yet</div> : null}
+        <td className="px-2 py-1 text-xs text-ink-soft" title={sourceTitle(r)}>
+          {sourceWords(r)}
+          {r.day >= todayDay() ? <div>day not over yet</div> : null}
         </td>
         <td className="px-2 py-1">
           <StatusBadge row={r} />
         </td>
         {canEdit ? (
           <td className="no-print px-1 py-0.5">
-            {!confirmed && !open ? (
+            {!confirmed && !open && r.day < todayDay() ? (
               <Button variant="secondary" onClick={() => onOpen(true)} aria-label={`Confirm ${r.day}, ${r.operationName} at ${r.siteName}`}>
                 Confirm
               </Button>

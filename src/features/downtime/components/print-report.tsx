@@ -1,8 +1,10 @@
 // The head of the printed downtime report: shown only on paper (and in a print-to-PDF), above the
 // page's own sections, which print without their controls (`no-print`).
+import { useState } from 'react';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAUTION_LINE, TRANSFORMATION_CAUTION } from '../../../../shared/caution';
+import { formatInstant, localTimeZone } from '../../../../shared/dates';
 import { dateIn } from './format';
 import { limitsInWords } from './limits-words';
 
@@ -17,10 +19,11 @@ interface Props {
 
 export function PrintReport({ projectName, hindcast, ledgerSources, alpha, operations, sites }: Props) {
   const siteName = new Map(sites.map((s) => [s.id, s.name]));
+  const [printedAt] = useState(() => Date.now());
   return (
     <section className="hidden text-sm text-black print:block" data-testid="print-report" aria-label="Report header">
       <h1 className="text-2xl font-bold">Downtime schedule: {projectName}</h1>
-      <p className="mt-1">Printed {dateIn(new Date().toISOString(), Intl.DateTimeFormat().resolvedOptions().timeZone, 'd MMM yyyy HH:mm')} (local time).</p>
+      <p className="mt-1">Printed {formatInstant(printedAt, localTimeZone(), 'dateTimeYear')} (local time).</p>
 
       <h2 className="mt-4 text-base font-bold">Data sources</h2>
       <ul className="ml-5 list-disc">
@@ -62,6 +65,12 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
         <li>Workability = workable hours / hours with data; months are calendar months in each worksite’s time zone.</li>
         <li>A go-start needs TR = TPOP + TC wholly workable; waiting on weather runs to the next go-start; a usable window is a workable run of at least TR.</li>
         <li>Campaigns start on the 1st of each month at 00:00 in every hindcast year; P50/P90 by linear interpolation between order statistics (Hyndman &amp; Fan type 7); a year that runs past the end of the data is censored and left out.</li>
+        <li>
+          Live outlook: from the time printed, the steps not yet done run in order on the latest forecast’s go-starts, then in each hindcast year from the same calendar
+          time (a step with no go-start left in the forecast waits for the forecast’s end); each forecast × hindcast year pair is one sample. P10/P50/P90 of the finish
+          over the samples that finish (type 7); the hindcast-only figures from the same start show how much the forecast moved the date. The history lists the outlook
+          stored by each planning run.
+        </li>
         <li>Ledger: all hours of a day are planned; hours not workable at OPLIM or without data count as lost. The expectation is the month’s lost hours over the hindcast years (P50/P90).</li>
         <li>{TRANSFORMATION_CAUTION}</li>
       </ul>

@@ -1,6 +1,6 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
 import type { WorkabilityEntry } from '../../../../shared/api-types-downtime';
-import { Button, Card, ErrorNotice, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, Notice, Select, Spinner, Term } from '../../../components/ui';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { hours, MONTH_LONG, MONTH_SHORT, num, pct } from './format';
 import type { HeatRow } from './downtime-heatmap';
@@ -175,13 +175,13 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
               Workability
             </th>
             <th scope="col" className={`${th} text-right`}>
-              Go-start share
+              <Term k="goStart" />
             </th>
             <th scope="col" className={`${th} text-right`}>
-              WoW mean
+              <Term k="wow">WoW mean</Term>
             </th>
             <th scope="col" className={`${th} text-right`}>
-              WoW P90
+              <Term k="wow">WoW P90</Term>
             </th>
             <th scope="col" className={`${th} text-right`}>
               Windows per month
@@ -190,7 +190,7 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
               Mean window
             </th>
             <th scope="col" className={`${th} text-right`}>
-              Censored (records)
+              <Term k="censored">Censored (records)</Term>
             </th>
           </tr>
         </thead>
@@ -200,7 +200,7 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
               <th scope="rowgroup" colSpan={9} className="px-2 py-2 text-left text-sm font-semibold">
                 {e.operationName} <span className="font-normal text-ink-soft">at {e.siteName}</span>
                 <span className="ml-2 text-xs font-normal text-ink-soft">
-                  TPOP {e.tpopHours} h, TR {e.tpopHours + e.tcHours} h, {e.timeZone}
+                  <Term k="tpop" /> {e.tpopHours} h, <Term k="tr" /> {e.tpopHours + e.tcHours} h, {e.timeZone}
                 </span>
               </th>
             </tr>

@@ -1,13 +1,13 @@
-import { useState } from 'react';
-import { Link, useNavigate } from 'react-router-dom';
-import { useForm } from 'react-hook-form';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { CreateProjectInput } from '../../../../shared/schemas/projects';
-import { Button, Card, ErrorNotice, FieldShell, Input, PageHeader, Spinner } from '../../../components/ui';
+import { lazy, Suspense, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { Button, Card, ErrorNotice, PageHeader, Spinner } from '../../../components/ui';
 import { useMe } from '../../../api/me';
 import { useProjects } from '../../../api/projects';
-import { useCreateProject } from '../api/mutations';
 import { RoleBadge } from './role-badge';
+
+// The form (with its schema library) is loaded when "New project" is pressed: the projects list
+// is part of the first page, whose script size has a budget.
+const CreateProjectCard = lazy(() => import('./create-project-card'));
 
 export function ProjectsPage() {
   const me = useMe();
@@ -22,7 +22,11 @@ export function ProjectsPage() {
         subtitle="Each project is one marine campaign or contract."
         actions={canCreate && !creating ? <Button onClick={() => setCreating(true)}>New project</Button> : null}
       />
-      {creating ? <CreateProjectCard onDone={() => setCreating(false)} /> : null}
+      {creating ? (
+        <Suspense fallback={<Spinner />}>
+          <CreateProjectCard onDone={() => setCreating(false)} />
+        </Suspense>
+      ) : null}
       {projects.isPending ? <Spinner /> : null}
       {projects.error ? <ErrorNotice error={projects.error} /> : null}
       {projects.data && projects.data.length === 0 ? (
@@ -44,31 +48,5 @@ export function ProjectsPage() {
         ))}
       </ul>
     </div>
-  );
-}
-
-function CreateProjectCard({ onDone }: { onDone: () => void }) {
-  const create = useCreateProject();
-  const navigate = useNavigate();
-  const form = useForm({ resolver: zodResolver(CreateProjectInput), defaultValues: { name: '', description: '' } });
-  return (
-    <Card className="mb-5">
-      <form
-        className="grid gap-4"
-        onSubmit={form.handleSubmit((v) => create.mutate(v, { onSuccess: (p) => void navigate(`/projects/${p.id}/settings`) }))}
-      >
-        <FieldShell label="Project name" htmlFor="project-name" error={form.formState.errors.name?.message}>
-          <Input id="project-name" {...form.register('name')} invalid={!!form.formState.errors.name} />
-        </FieldShell>
-        <FieldShell label="Description" htmlFor="project-description" error={form.formState.errors.description?.message}>
-          <Input id="project-description" {...form.register('description')} />
-        </FieldShell>
-        {create.error ? <ErrorNotice error={create.error} /> : null}
-        <div className="flex gap-2">
-          <Button type="submit" disabled={create.isPending}>Create project</Button>
-          <Button variant="ghost" onClick={onDone}>Cancel</Button>
-        </div>
-      </form>
-    </Card>
   );
 }

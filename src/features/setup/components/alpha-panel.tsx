@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { format } from 'date-fns';
+import { formatInstant, localTimeZone } from '../../../../shared/dates';
 import { useForm, useWatch, type FieldErrors } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -56,7 +56,7 @@ export function AlphaPanel({ projectId, canEdit }: { projectId: string; canEdit:
           {a.isDefault ? (
             <Tag tone="warn">This project uses the default table</Tag>
           ) : (
-            <Tag tone="accent">This project’s own table{a.updatedAt ? `, saved ${format(new Date(a.updatedAt), 'd MMM yyyy, HH:mm')}` : ''}</Tag>
+            <Tag tone="accent">This project’s own table{a.updatedAt ? `, saved ${formatInstant(a.updatedAt, localTimeZone(), 'dateTimeYear')}` : ''}</Tag>
           )}
         </div>
         <Notice>

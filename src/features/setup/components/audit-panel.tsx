@@ -1,5 +1,5 @@
 import { useState, type ReactNode } from 'react';
-import { format } from 'date-fns';
+import { formatInstant, localTimeZone } from '../../../../shared/dates';
 import type { AuditEntryResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import type { AlphaTable } from '../../../../shared/engine/types';
@@ -17,12 +17,14 @@ const ENTITY_LABEL: Record<AuditEntity, string> = {
   worksite: 'Worksite',
   alpha: 'Alpha table',
   project: 'Setup import',
+  campaign: 'Campaign progress',
 };
 const ENTITY_FILTER_LABEL: Record<AuditEntity, string> = {
   operation: 'Operations',
   worksite: 'Worksites',
   alpha: 'Alpha table',
   project: 'Setup imports',
+  campaign: 'Campaign progress',
 };
 const ACTION_LABEL = { create: 'added', update: 'changed', delete: 'deleted', import: 'imported' } as const;
 
@@ -115,7 +117,7 @@ export function describeValue(path: string, value: unknown, names: Names): strin
     const t = value as AlphaTable;
     return `${t.tpopBoundsH?.length ?? 0} TPOP rows × ${t.hsColumnsM?.length ?? 0} Hs columns`;
   }
-  if (path === 'exportedAt' && typeof value === 'string') return format(new Date(value), 'd MMM yyyy HH:mm');
+  if (path === 'exportedAt' && typeof value === 'string') return formatInstant(value, localTimeZone(), 'dateTimeYear');
   if (path === 'alphaTable' && typeof value === 'string') return { set: 'set from the file', default: 'reset to the default', kept: 'kept' }[value] ?? value;
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'number') return FIELD_UNIT[path] ? withUnit(value, FIELD_UNIT[path], 4) : fmt(value, 4);
@@ -225,7 +227,7 @@ function AuditEntry({ entry, names }: { entry: AuditEntryResponse; names: Names 
       <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
         <h3 className="text-base font-bold">{title}</h3>
         <p className="text-sm text-ink-soft">
-          <time dateTime={entry.at}>{format(at, 'EEE d MMM yyyy, HH:mm:ss')}</time> · {entry.userName}
+          <time dateTime={entry.at}>{formatInstant(at, localTimeZone(), 'dateTimeSeconds')}</time> · {entry.userName}
         </p>
       </div>
       {changes.length === 0 ? (

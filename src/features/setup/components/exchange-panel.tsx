@@ -1,11 +1,12 @@
 import { useId, useState } from 'react';
-import { format } from 'date-fns';
+import { formatInstant, localTimeZone } from '../../../../shared/dates';
 import type { z } from 'zod';
+import { issuesInWords, problemSentence } from '../../../../shared/schemas/words';
 import { IMPORT_MODES, ProjectSetupDocument, type ImportMode } from '../../../../shared/schemas/sites';
-import type { ImportResultResponse } from '../../../../shared/api-types-sites';
-import { Button, Card, ErrorNotice, Notice } from '../../../components/ui';
+import type { ImportPreviewResponse, ImportResultResponse } from '../../../../shared/api-types-sites';
+import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
 import { exportSetupUrl } from '../api/export-setup';
-import { useImportSetup } from '../api/import-setup';
+import { useImportPreview, useImportSetup } from '../api/import-setup';
 import { withUnit } from './format';
 
 /** Largest setup file read in the browser, bytes (the document is small: names, numbers, tables). */
@@ -18,48 +19,36 @@ const MODE_TEXT: Record<ImportMode, { title: string; text: string }> = {
   },
   replace: {
     title: 'Replace this project’s setup',
-    text: 'Every worksite and operation of this project is deleted first, then the file’s are added.',
+    text: 'Every worksite and operation of this project is deleted first, with everything hanging on them, then the file’s are added. Refused while the downtime ledger has confirmed days.',
   },
 };
 
 interface ReadFile {
+  /** changes with every file read, so the preview is asked again */
+  key: string;
   fileName: string;
   doc: ProjectSetupDocument | null;
   problems: string[];
 }
 
-/** A zod issue path in words, naming the worksite or operation it is in when the file names it. */
-function issuePlace(path: PropertyKey[], raw: unknown): string {
-  const parts: string[] = [];
-  let node: unknown = raw;
-  for (let i = 0; i < path.length; i++) {
-    const key = path[i];
-    const next = node && typeof node === 'object' ? (node as Record<PropertyKey, unknown>)[key as string] : undefined;
-    if (typeof key === 'number') {
-      const name = next && typeof next === 'object' && typeof (next as { name?: unknown }).name === 'string' ? (next as { name: string }).name : null;
-      parts[parts.length - 1] = `${parts[parts.length - 1] ?? ''} ${key + 1}${name ? ` “${name}”` : ''}`;
-    } else {
-      parts.push(String(key));
-    }
-    node = next;
-  }
-  return parts.join(' › ') || 'the document';
-}
+let readCount = 0;
 
 async function readSetupFile(file: File): Promise<ReadFile> {
-  if (file.size > MAX_FILE_BYTES) return { fileName: file.name, doc: null, problems: [`The file is larger than ${MAX_FILE_BYTES / 1024 / 1024} MB`] };
+  const key = `${++readCount}`;
+  if (file.size > MAX_FILE_BYTES) return { key, fileName: file.name, doc: null, problems: [`The file is larger than ${MAX_FILE_BYTES / 1024 / 1024} MB`] };
   let raw: unknown;
   try {
     raw = JSON.parse(await file.text());
   } catch (e) {
-    return { fileName: file.name, doc: null, problems: [`Not a JSON document: ${(e as Error).message}`] };
+    return { key, fileName: file.name, doc: null, problems: [`Not a JSON document: ${(e as Error).message}`] };
   }
   const parsed = ProjectSetupDocument.safeParse(raw);
-  if (parsed.success) return { fileName: file.name, doc: parsed.data, problems: [] };
+  if (parsed.success) return { key, fileName: file.name, doc: parsed.data, problems: [] };
   return {
+    key,
     fileName: file.name,
     doc: null,
-    problems: (parsed.error as z.ZodError).issues.slice(0, 50).map((i) => `${issuePlace(i.path, raw)}: ${i.message}`),
+    problems: issuesInWords(parsed.error as z.ZodError, raw, 'The document').slice(0, 50).map(problemSentence),
   };
 }
 
@@ -70,12 +59,68 @@ function alphaInFile(doc: ProjectSetupDocument): string {
 }
 
 function resultText(r: ImportResultResponse): string {
-  const alpha = { set: 'the alpha table was set from the file', default: 'the alpha table went back to the default', kept: 'the alpha table was kept' }[
-    r.alphaTable
-  ];
   const deleted =
     r.mode === 'replace' ? ` Deleted first: ${r.worksites.deleted} worksites and ${r.operations.deleted} operations.` : '';
-  return `Added ${r.worksites.created} worksites and ${r.operations.created} operations; ${alpha}.${deleted}`;
+  return `Added ${r.worksites.created} worksites and ${r.operations.created} operations.${deleted} ${r.messages.join(' ')}`;
+}
+
+const names = (list: string[], max = 8) => (list.length === 0 ? '' : `: ${list.slice(0, max).join(', ')}${list.length > max ? `, and ${list.length - max} more` : ''}`);
+const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+
+/** Everything replace removes, item by item (only what there is). */
+function removedItems(r: ImportPreviewResponse['removes']): string[] {
+  const out: string[] = [];
+  if (r.worksites.length > 0) out.push(`${plural(r.worksites.length, 'worksite')}${names(r.worksites)}`);
+  if (r.operations.length > 0) out.push(`${plural(r.operations.length, 'operation')} with their limits${names(r.operations)}`);
+  if (r.campaigns.length > 0) out.push(`${plural(r.campaigns.length, 'campaign')}${names(r.campaigns)}`);
+  if (r.recurrences.length > 0) out.push(`the repeat rules of ${plural(r.recurrences.length, 'operation')} (not in setup files)${names(r.recurrences)}`);
+  if (r.skipperAssignments > 0) out.push(`${plural(r.skipperAssignments, 'skipper assignment')}`);
+  if (r.hindcastChoices.length > 0) out.push(`the hindcast chosen for ${plural(r.hindcastChoices.length, 'worksite')}${names(r.hindcastChoices)}`);
+  if (r.proposedLedgerDays > 0) out.push(`${plural(r.proposedLedgerDays, 'proposed downtime-ledger day')} (they can be proposed again from the data)`);
+  if (r.confirmedLedgerDays > 0) out.push(`${plural(r.confirmedLedgerDays, 'confirmed downtime-ledger day')}: replace is refused while these exist`);
+  if (r.narrowedSubscriptions > 0) out.push(`${plural(r.narrowedSubscriptions, 'alert subscription')} limited to some operations or worksites would hear of none of the new ones`);
+  return out;
+}
+
+/** What the server says the import would do, before it runs. */
+function PreviewList({ preview }: { preview: ImportPreviewResponse }) {
+  const removed = removedItems(preview.removes);
+  return (
+    <div className="flex flex-col gap-2 text-sm" data-testid="import-preview">
+      <p className="font-semibold">What this import changes here:</p>
+      <ul className="list-disc pl-5">
+        <li>
+          Adds {plural(preview.adds.worksites.length, 'worksite')}
+          {names(preview.adds.worksites, 6)}
+        </li>
+        <li>
+          Adds {plural(preview.adds.operations.length, 'operation')}
+          {names(preview.adds.operations, 6)}
+        </li>
+        <li>
+          Adds {plural(preview.adds.campaigns.length, 'campaign')}
+          {names(preview.adds.campaigns, 6)}
+        </li>
+        <li>Alpha table: {preview.alphaTable.message}</li>
+        <li>Data point: {preview.dataPoint.message}</li>
+      </ul>
+      {preview.mode === 'replace' ? (
+        removed.length > 0 ? (
+          <>
+            <p className="font-semibold">Replace deletes:</p>
+            <ul className="list-disc pl-5" data-testid="import-removes">
+              {removed.map((r) => (
+                <li key={r}>{r}</li>
+              ))}
+            </ul>
+          </>
+        ) : (
+          <p>Replace deletes nothing: this project has no worksites or operations yet.</p>
+        )
+      ) : null}
+      {preview.refusal ? <Notice tone="error">{preview.refusal}</Notice> : null}
+    </div>
+  );
 }
 
 /** Download the project's setup as JSON; coordinators import one (merge or replace). */
@@ -86,7 +131,7 @@ export function ExchangePanel({ projectId, canEdit }: { projectId: string; canEd
         <h2 className="text-lg font-bold">Export</h2>
         <p className="mt-1 max-w-3xl text-sm text-ink-soft">
           One JSON document with the worksites, the operations and their limits, and the alpha table, to keep with the contract
-          papers or to start a new contract from this one. Datasets and people are not included.
+          papers or to start a new contract from this one. Datasets, people and the downtime ledger are not included.
         </p>
         <a
           href={exportSetupUrl(projectId)}
@@ -106,6 +151,8 @@ function ImportCard({ projectId }: { projectId: string }) {
   const run = useImportSetup(projectId);
   const [file, setFile] = useState<ReadFile | null>(null);
   const [mode, setMode] = useState<ImportMode>('merge');
+  const [takeAlpha, setTakeAlpha] = useState(false);
+  const [takeDataPoint, setTakeDataPoint] = useState(false);
   const [understood, setUnderstood] = useState(false);
 
   const onFile = async (f: File | undefined) => {
@@ -113,7 +160,11 @@ function ImportCard({ projectId }: { projectId: string }) {
     setFile(f ? await readSetupFile(f) : null);
   };
   const doc = file?.doc ?? null;
-  const canRun = doc !== null && (mode === 'merge' || understood) && !run.isPending;
+  const request = { mode, alphaTable: takeAlpha ? 'take' : 'keep', dataPoint: takeDataPoint ? 'take' : 'keep' } as const;
+  const preview = useImportPreview(projectId, run.isSuccess ? null : doc, file?.key ?? '', request);
+  const refused = preview.data?.refusal != null;
+  const canRun = doc !== null && preview.isSuccess && !refused && (mode === 'merge' || understood) && !run.isPending;
+  const fileHasDataPoint = doc !== null && (doc.project.dataPointName.trim() !== '' || (doc.project.dataPointLatitude != null && doc.project.dataPointLongitude != null));
 
   return (
     <Card>
@@ -157,7 +208,7 @@ function ImportCard({ projectId }: { projectId: string }) {
         {doc ? (
           <div className="rounded-lg border border-line bg-surface-2 p-3 text-sm">
             <p>
-              <span className="font-semibold">“{doc.project.name}”</span>, exported {format(new Date(doc.exportedAt), 'd MMM yyyy, HH:mm')}:
+              <span className="font-semibold">“{doc.project.name}”</span>, exported {formatInstant(doc.exportedAt, localTimeZone(), 'dateTimeYear')}:
             </p>
             <ul className="mt-1 list-disc pl-5">
               <li>
@@ -179,7 +230,39 @@ function ImportCard({ projectId }: { projectId: string }) {
                   : ''}
               </li>
               <li>Alpha table: {alphaInFile(doc)}</li>
+              <li>Data point: {fileHasDataPoint ? doc.project.dataPointName.trim() || 'a position without a name' : 'none'}</li>
             </ul>
+          </div>
+        ) : null}
+
+        {doc ? (
+          <div className="flex flex-col gap-1">
+            <label className={`flex min-h-11 items-center gap-3 text-sm ${doc.alphaTable === undefined ? 'text-ink-soft' : ''}`}>
+              <input
+                type="checkbox"
+                className="size-5 accent-[var(--color-accent)]"
+                checked={takeAlpha}
+                disabled={doc.alphaTable === undefined}
+                onChange={(e) => {
+                  setTakeAlpha(e.target.checked);
+                  run.reset();
+                }}
+              />
+              Take the file’s alpha table{doc.alphaTable === undefined ? ' (the file has none)' : ''}
+            </label>
+            <label className={`flex min-h-11 items-center gap-3 text-sm ${fileHasDataPoint ? '' : 'text-ink-soft'}`}>
+              <input
+                type="checkbox"
+                className="size-5 accent-[var(--color-accent)]"
+                checked={takeDataPoint}
+                disabled={!fileHasDataPoint}
+                onChange={(e) => {
+                  setTakeDataPoint(e.target.checked);
+                  run.reset();
+                }}
+              />
+              Take the file’s data point{fileHasDataPoint ? '' : ' (the file has none)'}
+            </label>
           </div>
         ) : null}
 
@@ -196,6 +279,7 @@ function ImportCard({ projectId }: { projectId: string }) {
                 checked={mode === m}
                 onChange={() => {
                   setMode(m);
+                  setTakeAlpha(m === 'replace');
                   setUnderstood(false);
                   run.reset();
                 }}
@@ -210,13 +294,18 @@ function ImportCard({ projectId }: { projectId: string }) {
           ))}
         </div>
 
-        {mode === 'replace' ? (
+        {doc && !run.isSuccess ? (
+          <div className="rounded-lg border border-line p-3">
+            {preview.isPending ? <Spinner label="Working out what the import changes" /> : null}
+            {preview.error ? <ErrorNotice error={preview.error} /> : null}
+            {preview.data ? <PreviewList preview={preview.data} /> : null}
+          </div>
+        ) : null}
+
+        {mode === 'replace' && !refused ? (
           <Notice tone="error">
-            <p className="font-semibold">Replacing deletes this project’s worksites and operations.</p>
-            <p className="mt-1">
-              Skipper assignments and worksite hindcast choices go with them, and the watch board and statistics change at once. Download
-              the current setup first if you may want it back.
-            </p>
+            <p className="font-semibold">Replacing deletes this project’s worksites and operations, and everything listed above with them.</p>
+            <p className="mt-1">The watch board and statistics change at once. Download the current setup first if you may want it back.</p>
             <label className="mt-2 flex min-h-11 items-center gap-3 font-semibold">
               <input type="checkbox" className="size-5 accent-[var(--color-danger)]" checked={understood} onChange={(e) => setUnderstood(e.target.checked)} />
               I understand: replace the whole setup
@@ -228,7 +317,7 @@ function ImportCard({ projectId }: { projectId: string }) {
         {run.data ? <Notice tone="success">{resultText(run.data)}</Notice> : null}
 
         <div>
-          <Button variant={mode === 'replace' ? 'danger' : 'primary'} disabled={!canRun} onClick={() => doc && run.mutate({ doc, mode })}>
+          <Button variant={mode === 'replace' ? 'danger' : 'primary'} disabled={!canRun} onClick={() => doc && run.mutate({ doc, request })}>
             {run.isPending ? 'Importing…' : mode === 'replace' ? 'Replace the setup' : 'Import and add'}
           </Button>
         </div>

@@ -2,7 +2,7 @@ import { useEffect, useRef, useState, type ReactNode } from 'react';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { alphaFor } from '../../../../shared/engine/alpha-factor';
 import type { AlphaTable } from '../../../../shared/engine/types';
-import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, Notice, Spinner, Term } from '../../../components/ui';
 import { useDeleteOperation } from '../api/delete-operation';
 import { useAlpha } from '../api/get-alpha';
 import { useOperations } from '../../../api/operations';
@@ -209,15 +209,15 @@ function OperationCard({
       </p>
       <dl className="grid grid-cols-3 gap-2 text-center text-sm">
         <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">TPOP</dt>
+          <dt className="text-xs text-ink-soft"><Term k="tpop" /></dt>
           <dd className="font-semibold tabular-nums">{withUnit(op.tpop, 'h')}</dd>
         </div>
         <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">TC</dt>
+          <dt className="text-xs text-ink-soft"><Term k="tc" /></dt>
           <dd className="font-semibold tabular-nums">{withUnit(op.tc, 'h')}</dd>
         </div>
         <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">TR = TPOP + TC</dt>
+          <dt className="text-xs text-ink-soft"><Term k="tr" /> = TPOP + TC</dt>
           <dd className="font-semibold tabular-nums">{withUnit(op.tr, 'h')}</dd>
         </div>
       </dl>

@@ -1,0 +1,80 @@
+// Cold start of the demo: the server as `npm start` runs it (production, embedded database) on an
+// empty temporary data folder, timed from the spawn to the first answer of /api/health (migrations,
+// the demo seed with its hindcast and forecast, then listening). Prints the time at which each line
+// of the server's log arrived, so the phases show. The client build is not part of it (npm start
+// builds only when dist/ is stale; the bench builds first when needed).
+//
+// Run alone: `npx tsx bench/cold-start.ts [--years N]`; `npm run bench` runs it too.
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { spawn } from 'node:child_process';
+import { pathToFileURL } from 'node:url';
+import { freePort } from '../scripts/lib/free-port';
+
+const ROOT = path.resolve(import.meta.dirname, '..');
+/** Aim: the demo answers within 15 s of the first start on an empty folder. */
+export const AIM_COLD_START_S = 15;
+
+export interface ColdStartResult {
+  seconds: number;
+  /** Seconds at which each log line arrived. */
+  lines: { at: number; text: string }[];
+}
+
+/** Starts the server on an empty folder, waits for /api/health, stops it (by pid) and removes the folder. */
+export async function measureColdStart(years?: number): Promise<ColdStartResult> {
+  const port = await freePort();
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-cold-'));
+  const env: NodeJS.ProcessEnv = { ...process.env };
+  for (const key of ['DATABASE_URL', 'FORECAST_URL', 'FORECAST_API_KEY', 'SMTP_URL', 'BETTER_AUTH_SECRET', 'PLAN_CRON', 'DEMO_HINDCAST_YEARS']) delete env[key];
+  Object.assign(env, { NODE_ENV: 'production', PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dataDir, JOBS_ENABLED: 'false', SEED_DEMO: 'true' });
+  if (years !== undefined) env.DEMO_HINDCAST_YEARS = String(years);
+  const t0 = performance.now();
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  const lines: { at: number; text: string }[] = [];
+  const onData = (d: Buffer) => {
+    for (const text of String(d).split('\n')) if (text.trim()) lines.push({ at: (performance.now() - t0) / 1000, text: text.trim() });
+  };
+  child.stdout.on('data', onData);
+  child.stderr.on('data', onData);
+  try {
+    for (;;) {
+      if (child.exitCode !== null || child.signalCode !== null) throw new Error(`the server exited during start:\n${lines.map((l) => l.text).join('\n')}`);
+      if (performance.now() - t0 > 10 * 60_000) throw new Error('the server did not answer within 10 minutes');
+      try {
+        if ((await fetch(`http://127.0.0.1:${port}/api/health`)).ok) break;
+      } catch {
+        /* not listening yet */
+      }
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    return { seconds: (performance.now() - t0) / 1000, lines };
+  } finally {
+    if (child.exitCode === null && child.signalCode === null && child.pid !== undefined) {
+      const exited = new Promise((r) => child.once('exit', r));
+      process.kill(child.pid, 'SIGTERM');
+      await Promise.race([exited, new Promise((r) => setTimeout(r, 10_000))]);
+      if (child.exitCode === null && child.signalCode === null) process.kill(child.pid, 'SIGKILL');
+    }
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  }
+}
+
+/** Prints the figure, the log's timeline and whether the aim is met. */
+export function describeColdStart(r: ColdStartResult): string {
+  const timeline = r.lines.map((l) => `  ${l.at.toFixed(1).padStart(6)} s  ${l.text.slice(0, 140)}`).join('\n');
+  const verdict = r.seconds < AIM_COLD_START_S ? 'met' : 'NOT met';
+  return `cold start of the demo (empty data folder to the first answer): ${r.seconds.toFixed(1)} s; aim under ${AIM_COLD_START_S} s: ${verdict}\n${timeline}`;
+}
+
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  const i = process.argv.indexOf('--years');
+  const years = i > 0 ? Number(process.argv[i + 1]) : undefined;
+  measureColdStart(years)
+    .then((r) => console.log(describeColdStart(r)))
+    .catch((err: unknown) => {
+      console.error(err);
+      process.exitCode = 1;
+    });
+}

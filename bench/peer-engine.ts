@@ -1,0 +1,131 @@
+// The work `npm run bench:peer` times on our side: transform the data point's series to each
+// worksite, hourly status of every operation there, then every monthly and year-month statistic;
+// on the main thread or on worker threads, each taking whole worksites.
+import type { Worker } from 'node:worker_threads';
+import { tsWorker } from '../scripts/lib/ts-worker';
+import {
+  DEFAULT_ALPHA_TABLE,
+  calendarIndex,
+  createStatisticsScratch,
+  detectStepMs,
+  evaluateStatus,
+  monthlyStatisticsWithGoStarts,
+  type OperationSpec,
+  type SiteSeries as EngineSeries,
+} from '../shared/engine/index';
+import { createSiteSeries, transformToSite, type SiteGeometry } from '../shared/waves/index';
+
+/** The peer's input and set-up in our terms. */
+export interface HindcastInput {
+  timeMs: Float64Array;
+  hs: Float64Array;
+  tp: Float64Array;
+  dir: Float64Array;
+  wind: Float64Array;
+  sourceDepthM: number;
+  sites: SiteGeometry[];
+  operations: OperationSpec[];
+}
+
+/** Milliseconds per stage and in total. */
+export interface StageTimes {
+  transform: number;
+  status: number;
+  statistics: number;
+  total: number;
+  /** Sum of figures of the results, so that no work can be skipped; equal on every run. */
+  checksum: number;
+}
+
+/** Transform, status and statistics for the given worksites (all when omitted), one after the other. */
+export function runHindcastAllSites(input: HindcastInput, siteIndices?: number[]): StageTimes {
+  const n = input.timeMs.length;
+  const indices = siteIndices ?? input.sites.map((_, i) => i);
+  const t0 = performance.now();
+  const tzS = new Float64Array(n).fill(NaN); // no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8)
+  const transformed = indices.map((s) =>
+    transformToSite({ hsM: input.hs, tpS: input.tp, tzS, dirDeg: input.dir }, { depthM: input.sourceDepthM }, input.sites[s], { out: createSiteSeries(n) }),
+  );
+  const t1 = performance.now();
+  const series: EngineSeries[] = transformed.map((t) => ({
+    timeMs: input.timeMs,
+    hsM: t.hsM,
+    tpS: input.tp,
+    bedVelocityLinearMps: t.bedVelocityLinearMps,
+    bedVelocitySoulsbyMps: t.bedVelocitySoulsbyMps,
+    windMps: input.wind,
+  }));
+  const statuses = series.map((s) => input.operations.map((op) => evaluateStatus(s, op, { alphaTable: DEFAULT_ALPHA_TABLE })));
+  const t2 = performance.now();
+  let checksum = 0;
+  const goStart = new Uint8Array(n);
+  const scratch = createStatisticsScratch(n);
+  series.forEach((s, k) => {
+    const stepMs = detectStepMs(s.timeMs);
+    const calendar = calendarIndex(s.timeMs, 'UTC');
+    input.operations.forEach((op, o) => {
+      const r = monthlyStatisticsWithGoStarts(s.timeMs, statuses[k][o], goStart, stepMs, calendar, op.tpopH + op.tcH, scratch);
+      for (const m of r.months) checksum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
+      for (const ym of r.yearMonths) checksum += (ym.wowP90Hours ?? 0) * 1e-6;
+    });
+  });
+  const t3 = performance.now();
+  return { transform: t1 - t0, status: t2 - t1, statistics: t3 - t2, total: t3 - t0, checksum };
+}
+
+/** Copies a Float64Array into shared memory (so workers read it without a copy). */
+function shared(a: Float64Array): Float64Array {
+  const s = new Float64Array(new SharedArrayBuffer(a.byteLength));
+  s.set(a);
+  return s;
+}
+
+/**
+ * Worker threads that each take whole worksites. The input is placed in shared memory once per
+ * input (not timed, like the peer's arrays already in memory); a run's total is the wall time from
+ * posting the work to the last answer.
+ */
+export class EnginePool {
+  private constructor(private readonly workers: Worker[]) {}
+
+  static async start(threads: number): Promise<EnginePool> {
+    const url = new URL('./peer-worker.ts', import.meta.url);
+    const workers = Array.from({ length: threads }, () => tsWorker(url));
+    await Promise.all(workers.map((w) => new Promise<void>((resolve, reject) => {
+      w.once('message', () => resolve());
+      w.once('error', reject);
+    })));
+    return new EnginePool(workers);
+  }
+
+  private sharedInput: HindcastInput | null = null;
+  private sharedFrom: HindcastInput | null = null;
+
+  async run(input: HindcastInput): Promise<StageTimes> {
+    if (this.sharedFrom !== input) {
+      this.sharedInput = { ...input, timeMs: shared(input.timeMs), hs: shared(input.hs), tp: shared(input.tp), dir: shared(input.dir), wind: shared(input.wind) };
+      this.sharedFrom = input;
+    }
+    const work = this.sharedInput as HindcastInput;
+    // Worksites dealt round-robin (5 worksites on 2 threads: 3 and 2).
+    const parts = this.workers.map((_, w) => work.sites.map((_, s) => s).filter((s) => s % this.workers.length === w));
+    const t0 = performance.now();
+    const answers = await Promise.all(
+      this.workers.map(
+        (w, i) =>
+          new Promise<StageTimes>((resolve, reject) => {
+            w.once('message', (m: StageTimes) => resolve(m));
+            w.once('error', reject);
+            w.postMessage({ input: work, sites: parts[i] });
+          }),
+      ),
+    );
+    const total = performance.now() - t0;
+    const slowest = (k: 'transform' | 'status' | 'statistics') => Math.max(...answers.map((a) => a[k]));
+    return { transform: slowest('transform'), status: slowest('status'), statistics: slowest('statistics'), total, checksum: answers.reduce((a, b) => a + b.checksum, 0) };
+  }
+
+  async close(): Promise<void> {
+    await Promise.all(this.workers.map((w) => w.terminate()));
+  }
+}

@@ -1,0 +1,109 @@
+// Heavy engine work (a cold workability table, a campaign simulation) on worker threads, so that a
+// 30-year computation never holds up the requests the API thread serves meanwhile.
+//
+// The series go to the workers without a copy: datasetSeries keeps each stored series in shared
+// memory (SharedArrayBuffer), and a message carrying views of shared memory shares it. Tasks are
+// plain functions of plain data (engine-tasks.ts); the pool runs them in order per worker, on the
+// least busy worker. ENGINE_THREADS sets the number of workers (default 1: the API thread and one
+// engine thread on a 2-core machine); 0 runs the tasks on the API thread (as before).
+import os from 'node:os';
+import type { Worker } from 'node:worker_threads';
+import { tsWorker } from '../../scripts/lib/ts-worker';
+import { ENGINE_TASKS, type EngineTaskName, type EngineTasks } from './engine-tasks';
+
+interface Pending {
+  resolve: (value: unknown) => void;
+  reject: (error: Error) => void;
+}
+
+interface PoolWorker {
+  worker: Worker;
+  busy: number;
+  pending: Map<number, Pending>;
+}
+
+/** Workers from ENGINE_THREADS (0 = none), default 1, at most the number of cores. */
+function threadCount(): number {
+  const raw = process.env.ENGINE_THREADS;
+  if (raw === undefined || raw === '') return 1;
+  const n = Number(raw);
+  if (!Number.isInteger(n) || n < 0) throw new Error(`ENGINE_THREADS must be a whole number >= 0, got ${raw}`);
+  return Math.min(n, os.availableParallelism());
+}
+
+let workers: PoolWorker[] | null = null;
+let nextId = 1;
+
+function start(count: number): PoolWorker[] {
+  return Array.from({ length: count }, () => {
+    const pw: PoolWorker = { worker: tsWorker(new URL('./engine-worker.ts', import.meta.url)), busy: 0, pending: new Map() };
+    // An idle pool never keeps the process alive (tests, scripts); a task in flight does (ref below).
+    pw.worker.unref();
+    pw.worker.on('message', (m: { id: number; result?: unknown; error?: { name: string; message: string } }) => {
+      const p = pw.pending.get(m.id);
+      if (!p) return;
+      pw.pending.delete(m.id);
+      if (--pw.busy === 0) pw.worker.unref();
+      if (m.error) {
+        const err = new Error(m.error.message);
+        err.name = m.error.name;
+        p.reject(err);
+      } else p.resolve(m.result);
+    });
+    pw.worker.on('error', (err) => failAll(pw, err));
+    pw.worker.on('exit', (code) => failAll(pw, new Error(`an engine worker stopped (exit code ${code})`)));
+    return pw;
+  });
+}
+
+/** A worker that died fails its tasks and is replaced on the next call. */
+function failAll(pw: PoolWorker, err: Error): void {
+  for (const p of pw.pending.values()) p.reject(err);
+  pw.pending.clear();
+  pw.busy = 0;
+  if (workers) workers = workers.filter((w) => w !== pw);
+  if (workers?.length === 0) workers = null;
+}
+
+/**
+ * Runs an engine task on a worker thread (on the calling thread when ENGINE_THREADS=0). Arguments
+ * and results are copied between threads, except views of shared memory.
+ */
+export function runEngineTask<K extends EngineTaskName>(name: K, ...args: Parameters<EngineTasks[K]>): Promise<ReturnType<EngineTasks[K]>> {
+  const count = threadCount();
+  if (count === 0) {
+    return Promise.resolve().then(() => (ENGINE_TASKS[name] as (...a: unknown[]) => ReturnType<EngineTasks[K]>)(...args));
+  }
+  workers ??= start(count);
+  const pw = workers.reduce((a, b) => (b.busy < a.busy ? b : a));
+  const id = nextId++;
+  return new Promise((resolve, reject) => {
+    pw.pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
+    if (pw.busy++ === 0) pw.worker.ref();
+    pw.worker.postMessage({ id, name, args });
+  });
+}
+
+/** Stops the workers (orderly shutdown). */
+export async function closeEnginePool(): Promise<void> {
+  const ws = workers ?? [];
+  workers = null;
+  await Promise.all(ws.map((w) => w.worker.terminate()));
+}
+
+/** A copy of a series in shared memory (SharedArrayBuffer), so messages to the workers share it instead of copying it. */
+export function sharedSeries<T extends object>(series: T): T {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(series)) {
+    if (v instanceof Float64Array) {
+      const copy = new Float64Array(new SharedArrayBuffer(v.byteLength) as unknown as ArrayBuffer);
+      copy.set(v);
+      out[k] = copy;
+    } else if (v instanceof Uint8Array) {
+      const copy = new Uint8Array(new SharedArrayBuffer(v.byteLength) as unknown as ArrayBuffer);
+      copy.set(v);
+      out[k] = copy;
+    } else out[k] = v;
+  }
+  return out as T;
+}
