@@ -91,6 +91,6 @@ export async function startThrowawayCluster(options: { user?: string; maxConnect
   } catch (e) {
     const tail = logTail();
     stop();
-    throw new Error(`${e instanceof Error ? e.message : String(e)}${tail ? `\n${tail}` : ''}`);
+    throw new Error(`${e instanceof Error ? e.message : String(e)}${tail ? `\n${tail}` : ''}`, { cause: e });
   }
 }

@@ -595,7 +595,7 @@ export async function ledgerMonthly(
     const version = limitsVersion(setup, hindcast.dataPointDepthM);
     expectations = await cachedStats(db, projectId, hindcast.id, version, 'ledger', async () =>
       // On an engine worker thread (engine-pool.ts).
-      runEngineTask('ledgerExpectations', await datasetSeries(db, hindcast.id), hindcast, setup),
+      runEngineTask('ledgerExpectations', computeExpectations, await datasetSeries(db, hindcast.id), hindcast, setup),
     );
   }
   const expected = new Map(expectations.map((e) => [`${e.operationId}|${e.siteId}`, e]));

@@ -28,7 +28,9 @@ export const previewImport = (projectId: string, doc: ProjectSetupDocument, r: I
 export const importPreviewQueryOptions = (projectId: string, doc: ProjectSetupDocument | null, fileKey: string, r: ImportRequest) =>
   queryOptions({
     queryKey: ['projects', projectId, 'import-preview', fileKey, r.mode, r.alphaTable, r.dataPoint],
-    queryFn: () => previewImport(projectId, doc!, r),
+    // The chosen file is in the key as `fileKey`, not as its whole parsed document.
+    // eslint-disable-next-line @tanstack/query/exhaustive-deps
+    queryFn: () => previewImport(projectId, doc!, { mode: r.mode, alphaTable: r.alphaTable, dataPoint: r.dataPoint }),
     enabled: doc !== null,
     staleTime: 0,
     gcTime: 0,
