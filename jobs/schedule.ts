@@ -1,4 +1,4 @@
-import cron from 'node-cron';
+import cron, { type TaskContext } from 'node-cron';
 import type { AppDeps } from '../server/deps';
 import { deliverDueMail } from '../server/services/outbox';
 import { runPlanningJob } from '../server/services/planning';
@@ -14,7 +14,8 @@ export interface Schedule {
  * The scheduled work of one app instance (node-cron, UTC): the planning job on `planCron`
  * (default every 6 hours at minute 15), e-mail delivery every minute, daily digests every 15
  * minutes. `noOverlap` keeps one run of each at a time in this process; the planning job also
- * takes a database advisory lock per project against other instances.
+ * takes a database advisory lock per project against other instances, and plans a project once
+ * per tick across them.
  */
 export function startPlanningSchedule(deps: AppDeps, options: { planCron: string; enabled: boolean }): Schedule {
   if (!options.enabled) return { stop: () => {}, idle: async () => {} };
@@ -24,12 +25,20 @@ export function startPlanningSchedule(deps: AppDeps, options: { planCron: string
     void p.finally(() => running.delete(p));
     return p;
   };
-  const guard = (name: string, fn: () => Promise<unknown>) => () =>
+  const guard = (name: string, fn: (ctx: TaskContext) => Promise<unknown>) => (ctx: TaskContext) =>
     track(
-      fn().catch((err: unknown) => deps.log.error(`${name} failed`, { error: err instanceof Error ? err.message : String(err) })),
+      fn(ctx).catch((err: unknown) => deps.log.error(`${name} failed`, { error: err instanceof Error ? err.message : String(err) })),
     );
   const tasks = [
-    cron.createTask(options.planCron, guard('Planning job', () => runPlanningJob(deps, { trigger: 'schedule' })), { name: 'plan', noOverlap: true, timezone: 'UTC' }),
+    // ctx.date is the tick's scheduled time, the same on every instance: a project another instance
+    // already planned on this tick is not planned again. A tick reached late (a busy process) still
+    // runs, up to the next tick (node-cron would otherwise drop a tick more than 1 s late).
+    cron.createTask(options.planCron, guard('Planning job', (ctx) => runPlanningJob(deps, { trigger: 'schedule', tickAt: ctx.date })), {
+      name: 'plan',
+      noOverlap: true,
+      timezone: 'UTC',
+      missedExecutionTolerance: 6 * 3_600_000,
+    }),
     cron.createTask('* * * * *', guard('Mail delivery', () => deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log })), {
       name: 'mail',
       noOverlap: true,

@@ -4,8 +4,9 @@
 // An answer (status 200, JSON) is kept per user, address and Accept header with the database's
 // write generation at the time the request came in (see Database.writeGeneration): any statement
 // that may change data, from any route, job or the auth library, moves the generation and so
-// retires every kept answer. Answers that depend on the clock (the plan's "may start now", the
-// campaign finish dates) are kept at most `ttlMs` (default 5 s, like the session reuse).
+// retires every kept answer. Answers that depend on the clock (the forecast plan's "may start now"
+// and earliest start) are kept at most `ttlMs` (default 5 s, like the session reuse); every other
+// answer at most 12 times that (a minute), a bound for anything else that could change unseen.
 //
 // Each answer carries a weak ETag (a hash of its bytes, computed once): a request whose
 // If-None-Match names it gets 304 without the body. JSON over 1 kB goes gzipped to clients that
@@ -30,13 +31,16 @@ interface Body {
 /** GETs never kept: one with a side effect (unsubscribe), answers from memory (the mail catcher), token feeds, health. */
 const NEVER = /^\/api\/(unsubscribe|dev\/|calendar\/|health)/;
 
+/** GET answers that depend on the clock. */
+const CLOCK_DEPENDENT = /^\/api\/projects\/[^/]+\/plan(\?|\/|$)/;
+
 /** Compress bodies above this size, bytes. */
 const GZIP_FROM = 1024;
 
 export interface AnswerCacheOptions {
   /** The database's write generation; without it (a database server) nothing is kept. */
   writeGeneration?: () => number;
-  /** Longest time an answer is reused, ms; 0 keeps nothing. */
+  /** Longest time an answer that depends on the clock is reused, ms (others: 12 times as long); 0 keeps nothing. */
   ttlMs: number;
   /** Most answers kept (least recently used go first). */
   maxEntries?: number;
@@ -84,7 +88,8 @@ export function answerCache(options: AnswerCacheOptions) {
     const generation = writeGeneration();
     const t = now();
     const hit = entries.get(key);
-    if (hit && hit.generation === generation && t - hit.at < ttlMs) {
+    const maxAge = CLOCK_DEPENDENT.test(req.originalUrl) ? ttlMs : 12 * ttlMs;
+    if (hit && hit.generation === generation && t - hit.at < maxAge) {
       const body = bodies.get(hit.etag);
       if (body) {
         entries.delete(key);

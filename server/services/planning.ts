@@ -1,5 +1,5 @@
 import crypto from 'node:crypto';
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, gte, ne } from 'drizzle-orm';
 import { comparePlans, type PlanSummary } from '../../shared/alerts/compare-plans';
 import type { OperationSitePlan } from '../../shared/api-types-plan';
 import type { AppDeps } from '../deps';
@@ -181,16 +181,30 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
 
 /**
  * The planning job: every project with a forecast service (or the one given), one run at a time
- * per project across app instances (database advisory lock), then delivery of due e-mails.
+ * per project across app instances (database advisory lock), then delivery of due e-mails. With
+ * `tickAt` (the cron tick's scheduled time) a project already planned on that tick is skipped, so
+ * each tick plans each project once however many instances run the schedule.
  */
-export async function runPlanningJob(deps: AppDeps, options: { projectId?: string; trigger: JobTrigger }): Promise<JobResult> {
+export async function runPlanningJob(deps: AppDeps, options: { projectId?: string; trigger: JobTrigger; tickAt?: Date }): Promise<JobResult> {
   const startedAt = deps.clock().toISOString();
   const ids = options.projectId
     ? [options.projectId]
     : (await deps.db.select({ id: project.id }).from(project).where(eq(project.forecastSource, 'service'))).map((r) => r.id);
   const projects: ProjectJobResult[] = [];
   for (const projectId of ids) {
-    const locked = await deps.database.withAdvisoryLock(projectLockKey(projectId), () => planProject(deps, projectId, options.trigger));
+    const locked = await deps.database.withAdvisoryLock(projectLockKey(projectId), async (): Promise<ProjectJobResult> => {
+      // Under the lock: a scheduled run of this tick that another instance finished means this
+      // instance came late to the tick (a run left 'running' was cut short by a crash: plan again).
+      if (options.tickAt) {
+        const [done] = await deps.db
+          .select({ id: planRun.id })
+          .from(planRun)
+          .where(and(eq(planRun.projectId, projectId), eq(planRun.trigger, 'schedule'), gte(planRun.startedAt, options.tickAt), ne(planRun.status, 'running')))
+          .limit(1);
+        if (done) return { projectId, status: 'skipped', reason: 'planned on this tick by another instance', planRunId: done.id };
+      }
+      return planProject(deps, projectId, options.trigger);
+    });
     projects.push(locked.acquired ? locked.value : { projectId, status: 'skipped', reason: 'another planning run holds this project' });
   }
   const mail = await deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log });

@@ -142,7 +142,8 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
         // the table's Hs columns, end columns outside).
         let k = 0;
         while (k < nSeg - 1 && cTp[k + 1] < tp) k++;
-        const lim = cHs[k] + cSlope[k] * (tp - cTp[k]);
+        // At a curve point the limit is that point's Hs exactly (limits are inclusive, docs/domain.md#convention-6).
+        const lim = tp === cTp[k + 1] ? cHs[k + 1] : cHs[k] + cSlope[k] * (tp - cTp[k]);
         let alpha = 1;
         if (nA > 0) {
           if (lim <= aFirstCol) alpha = aFirst;

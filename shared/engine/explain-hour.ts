@@ -55,7 +55,8 @@ function curveAt(curve: [number, number][], tp: number): number | null {
   for (let i = 1; i < curve.length; i++) {
     const [t0, h0] = curve[i - 1];
     const [t1, h1] = curve[i];
-    if (tp <= t1) return h0 + ((h1 - h0) * (tp - t0)) / (t1 - t0);
+    if (tp === t1) return h1; // a curve point's own Hs, exactly (inclusive limits)
+    if (tp < t1) return h0 + ((h1 - h0) * (tp - t0)) / (t1 - t0);
   }
   return curve[curve.length - 1][1];
 }

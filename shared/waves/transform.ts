@@ -280,25 +280,52 @@ export function transformToSite(
     for (let s = 0; s < sectorCount; s++) for (let b = 0; b < bandCount; b++) tableFactors[s * bandCount + b] = table.factors[s][b];
   }
 
-  const tpIndex = new FloatKeyIndex(256);
-  let terms = new Float64Array(256 * STRIDE);
-  const tzIndex = new FloatKeyIndex(64);
-  let tzTerms = new Float64Array(64);
-  const dirIndex = new FloatKeyIndex(512);
-  let dirTerms = new Float64Array(512 * DSTRIDE);
-  let lastTp = NaN;
-  let lastBase = 0;
-  let lastTz = NaN;
-  let lastSoul = 0;
-  let lastDir = NaN;
-  let lastDirBase = 0;
-  const missing = TRANSFORM_FLAG.MISSING_INPUT;
+  // Phase 1: the distinct Tp and direction values, and each record's index into them (-1 when
+  // missing or invalid). Small loops of one kind each, so they are optimised at once.
+  const tpIds = new Int32Array(n);
+  const tpIndex = new FloatKeyIndex(1024);
+  const tpKeys = distinctIds(tpIn, tpIds, tpIndex, true);
+  const dirIds = mode === MODE_NONE ? null : new Int32Array(n);
+  const dirIndex = new FloatKeyIndex(1024);
+  const dirKeys = dirIds ? distinctIds(dirIn, dirIds, dirIndex, false) : new Float64Array(0);
 
+  // Phase 2: per-period terms once per distinct Tp, per-direction terms once per distinct direction.
+  const terms = new Float64Array(Math.max(1, tpKeys.length) * STRIDE);
+  for (let id = 0; id < tpKeys.length; id++) {
+    const tp = tpKeys[id];
+    const t = periodTerms(tp, setup);
+    const b = id * STRIDE;
+    terms[b + T_CRATIO] = t.cRatio;
+    terms[b + T_KS] = t.ks;
+    terms[b + T_LIN] = t.linearPerHs;
+    terms[b + T_SOUL] = soulsbyVelocityPerHs(tp * tzOverTp, siteDepthM, g);
+    terms[b + T_BAND] = table ? transferBandIndex(table, tp) : 0;
+  }
+  const dirTerms = new Float64Array(Math.max(1, dirKeys.length) * DSTRIDE);
+  for (let id = 0; id < dirKeys.length; id++) {
+    const dir = dirKeys[id];
+    const b = id * DSTRIDE;
+    dirTerms[b + D_WRAPPED] = wrapDegrees360(dir);
+    if (table) {
+      dirTerms[b + D_SECTOR] = transferSectorIndex(table, dir);
+    } else {
+      const theta = wrapDegrees180(dir - beta);
+      const landward = theta >= 90 || theta <= -90;
+      const th = theta * DEG_TO_RAD;
+      dirTerms[b + D_LANDWARD] = landward ? 1 : 0;
+      dirTerms[b + D_SIN] = landward ? 0 : Math.sin(th);
+      dirTerms[b + D_COS] = landward ? 0 : Math.cos(th);
+    }
+  }
+
+  // Phase 3: every record from those tables.
+  const soulTz = soulsbyFromTz(tzIn, siteDepthM, g);
+  const missing = TRANSFORM_FLAG.MISSING_INPUT;
   for (let i = 0; i < n; i++) {
     const hs = hsIn[i];
-    const tp = tpIn[i];
-    const dir = dirIn[i];
-    if (!(hs >= 0 && hs < Infinity && tp > 0 && tp < Infinity) || (mode !== MODE_NONE && dir !== dir)) {
+    const tpId = tpIds[i];
+    const dirId = dirIds === null ? 0 : dirIds[i];
+    if (!(hs >= 0 && hs < Infinity) || tpId < 0 || dirId < 0) {
       hsOut[i] = NaN;
       dirOut[i] = NaN;
       ksOut[i] = NaN;
@@ -308,71 +335,16 @@ export function transformToSite(
       soulOut[i] = NaN;
       continue;
     }
-
-    // Per-period terms, cached by exact Tp.
-    let base: number;
-    if (tp === lastTp) {
-      base = lastBase;
-    } else {
-      let id = tpIndex.find(tp);
-      if (id < 0) {
-        id = tpIndex.add(tp);
-        if ((id + 1) * STRIDE > terms.length) {
-          const grown = new Float64Array(terms.length * 2);
-          grown.set(terms);
-          terms = grown;
-        }
-        const t = periodTerms(tp, setup);
-        const b = id * STRIDE;
-        terms[b + T_CRATIO] = t.cRatio;
-        terms[b + T_KS] = t.ks;
-        terms[b + T_LIN] = t.linearPerHs;
-        terms[b + T_SOUL] = soulsbyVelocityPerHs(tp * tzOverTp, siteDepthM, g);
-        terms[b + T_BAND] = table ? transferBandIndex(table, tp) : 0;
-      }
-      base = id * STRIDE;
-      lastTp = tp;
-      lastBase = base;
-    }
-
+    const base = tpId * STRIDE;
     let flags = 0;
     let ks: number;
     let kr = 1;
     let dirSite: number;
     if (mode === MODE_NONE) {
       ks = terms[base + T_KS];
-      dirSite = wrapDegrees360(dir);
+      dirSite = wrapDegrees360(dirIn[i]);
     } else {
-      // Per-direction terms, cached by exact direction.
-      let dbase: number;
-      if (dir === lastDir) {
-        dbase = lastDirBase;
-      } else {
-        let id = dirIndex.find(dir);
-        if (id < 0) {
-          id = dirIndex.add(dir);
-          if ((id + 1) * DSTRIDE > dirTerms.length) {
-            const grown = new Float64Array(dirTerms.length * 2);
-            grown.set(dirTerms);
-            dirTerms = grown;
-          }
-          const b = id * DSTRIDE;
-          dirTerms[b + D_WRAPPED] = wrapDegrees360(dir);
-          if (table) {
-            dirTerms[b + D_SECTOR] = transferSectorIndex(table, dir);
-          } else {
-            const theta = wrapDegrees180(dir - beta);
-            const landward = theta >= 90 || theta <= -90;
-            const th = theta * DEG_TO_RAD;
-            dirTerms[b + D_LANDWARD] = landward ? 1 : 0;
-            dirTerms[b + D_SIN] = landward ? 0 : Math.sin(th);
-            dirTerms[b + D_COS] = landward ? 0 : Math.cos(th);
-          }
-        }
-        dbase = id * DSTRIDE;
-        lastDir = dir;
-        lastDirBase = dbase;
-      }
+      const dbase = dirId * DSTRIDE;
       if (mode === MODE_REFRACT) {
         ks = terms[base + T_KS];
         if (dirTerms[dbase + D_LANDWARD] !== 0) {
@@ -401,31 +373,9 @@ export function transformToSite(
       hsSite = depthLimitM;
       flags |= TRANSFORM_FLAG.DEPTH_LIMITED;
     }
-
-    // Soulsby factor: Tz from the record (cached by exact Tz), else from Tp (docs/domain.md#convention-8).
+    // Soulsby factor: Tz from the record, else from Tp (docs/domain.md#convention-8).
     const tz = tzIn[i];
-    let soul: number;
-    if (tz > 0 && tz < Infinity) {
-      if (tz === lastTz) {
-        soul = lastSoul;
-      } else {
-        let id = tzIndex.find(tz);
-        if (id < 0) {
-          id = tzIndex.add(tz);
-          if (id >= tzTerms.length) {
-            const grown = new Float64Array(tzTerms.length * 2);
-            grown.set(tzTerms);
-            tzTerms = grown;
-          }
-          tzTerms[id] = soulsbyVelocityPerHs(tz, siteDepthM, g);
-        }
-        soul = tzTerms[id];
-        lastTz = tz;
-        lastSoul = soul;
-      }
-    } else {
-      soul = terms[base + T_SOUL];
-    }
+    const soul = tz > 0 && tz < Infinity ? soulTz[i] : terms[base + T_SOUL];
 
     hsOut[i] = hsSite;
     dirOut[i] = dirSite;
@@ -434,6 +384,74 @@ export function transformToSite(
     flagsOut[i] = flags;
     linOut[i] = hsSite * terms[base + T_LIN];
     soulOut[i] = hsSite * soul;
+  }
+  return out;
+}
+
+/**
+ * Indices of each record's value among the distinct values (found with `index`, first seen first);
+ * -1 for NaN, and with `positiveFinite` also for values that are not finite and positive. Returns
+ * the distinct values in id order.
+ */
+function distinctIds(values: Float64Array, ids: Int32Array, index: FloatKeyIndex, positiveFinite: boolean): Float64Array {
+  let keys = new Float64Array(1024);
+  let last = NaN;
+  let lastId = -1;
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (v !== v || (positiveFinite && !(v > 0 && v < Infinity))) {
+      ids[i] = -1;
+      continue;
+    }
+    if (v === last) {
+      ids[i] = lastId;
+      continue;
+    }
+    let id = index.find(v);
+    if (id < 0) {
+      id = index.add(v);
+      if (id >= keys.length) {
+        const grown = new Float64Array(keys.length * 2);
+        grown.set(keys);
+        keys = grown;
+      }
+      keys[id] = v;
+    }
+    ids[i] = id;
+    last = v;
+    lastId = id;
+  }
+  return keys.subarray(0, index.size);
+}
+
+/** Soulsby velocity per metre of Hs from each record's own Tz (NaN where Tz is missing or invalid), cached by exact Tz. */
+function soulsbyFromTz(tzIn: Float64Array, siteDepthM: number, g: number): Float64Array {
+  const out = new Float64Array(tzIn.length);
+  const index = new FloatKeyIndex(64);
+  let values = new Float64Array(64);
+  let lastTz = NaN;
+  let lastSoul = NaN;
+  for (let i = 0; i < tzIn.length; i++) {
+    const tz = tzIn[i];
+    if (!(tz > 0 && tz < Infinity)) {
+      out[i] = NaN;
+      continue;
+    }
+    if (tz !== lastTz) {
+      let id = index.find(tz);
+      if (id < 0) {
+        id = index.add(tz);
+        if (id >= values.length) {
+          const grown = new Float64Array(values.length * 2);
+          grown.set(values);
+          values = grown;
+        }
+        values[id] = soulsbyVelocityPerHs(tz, siteDepthM, g);
+      }
+      lastTz = tz;
+      lastSoul = values[id];
+    }
+    out[i] = lastSoul;
   }
   return out;
 }

@@ -72,7 +72,7 @@ describe('answers kept while the data stay the same', () => {
     expect(zipped.body).toEqual(first.body);
   });
 
-  it('keeps an answer at most the given time (answers that depend on the clock)', async () => {
+  it('keeps an answer that depends on the clock (the plan) at most the given time, others at most 12 times as long', async () => {
     let now = 1_000_000;
     let gen = 7;
     const mw = answerCache({ writeGeneration: () => gen, ttlMs: 5000, now: () => now });
@@ -85,17 +85,28 @@ describe('answers kept while the data stay the same', () => {
       next();
     });
     tiny.use(mw);
-    tiny.get('/api/x', (_req, res) => {
+    tiny.get('/api/projects/:id/plan', (_req, res) => {
       computed++;
       res.json({ computed });
     });
-    expect((await request(tiny).get('/api/x')).body).toEqual({ computed: 1 });
+    tiny.get('/api/projects/:id/sites', (_req, res) => {
+      computed++;
+      res.json({ computed });
+    });
+    const plan = '/api/projects/p1/plan?alpha=true';
+    expect((await request(tiny).get(plan)).body).toEqual({ computed: 1 });
     now += 4999;
-    expect((await request(tiny).get('/api/x')).body).toEqual({ computed: 1 });
+    expect((await request(tiny).get(plan)).body).toEqual({ computed: 1 });
     now += 1;
-    expect((await request(tiny).get('/api/x')).body).toEqual({ computed: 2 });
+    expect((await request(tiny).get(plan)).body).toEqual({ computed: 2 });
     gen++;
-    expect((await request(tiny).get('/api/x')).body).toEqual({ computed: 3 });
+    expect((await request(tiny).get(plan)).body).toEqual({ computed: 3 });
+    const sites = '/api/projects/p1/sites';
+    expect((await request(tiny).get(sites)).body).toEqual({ computed: 4 });
+    now += 59_999;
+    expect((await request(tiny).get(sites)).body).toEqual({ computed: 4 });
+    now += 1;
+    expect((await request(tiny).get(sites)).body).toEqual({ computed: 5 });
   });
 });
 

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runPlanningJob } from '../../server/services/planning';
 import { createTestApp, signInAll, TEST_ORIGIN, type TestApp } from '../support/app';
 import { deliverDueMail } from '../../server/services/outbox';
+import { planRun } from '../../server/db/schema';
 
 let t: TestApp;
 let as: Awaited<ReturnType<typeof signInAll>>;
@@ -119,6 +120,29 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     ]);
     const statuses = [a.projects[0].status, b.projects[0].status].sort();
     expect(statuses).toEqual(['planned', 'skipped']);
+  });
+
+  it('plans a project once per cron tick across instances, and again when the run of the tick was cut short', async () => {
+    // Two instances run the same schedule; one reaches the tick after the other has finished.
+    now = new Date('2026-12-02T00:30:00Z');
+    const tickAt = new Date('2026-12-02T00:30:00Z');
+    const secondInstance = { ...t.deps };
+    const first = await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'schedule', tickAt });
+    now = new Date('2026-12-02T00:30:07Z');
+    const late = await runPlanningJob(secondInstance, { projectId: t.demo.projectId, trigger: 'schedule', tickAt });
+    expect(first.projects[0].status).toBe('planned');
+    expect(late.projects[0]).toMatchObject({ status: 'skipped', reason: 'planned on this tick by another instance', planRunId: first.projects[0].planRunId });
+
+    // The next tick: an instance killed while planning left its run 'running'; the other plans it.
+    const nextTick = new Date('2026-12-02T00:40:00Z');
+    now = nextTick;
+    await t.deps.db.insert(planRun).values({ projectId: t.demo.projectId, trigger: 'schedule', status: 'running', startedAt: nextTick });
+    now = new Date('2026-12-02T00:40:02Z');
+    const after = await runPlanningJob(secondInstance, { projectId: t.demo.projectId, trigger: 'schedule', tickAt: nextTick });
+    expect(after.projects[0].status).toBe('planned');
+    // A run asked for by a person (no tick) is never skipped.
+    const manual = await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'manual' });
+    expect(manual.projects[0].status).toBe('planned');
   });
 
   it('keeps the last plan when the forecast service fails', async () => {

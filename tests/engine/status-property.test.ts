@@ -56,7 +56,8 @@ function naiveStatus(r: Rec, op: OperationSpec, useAlpha: boolean): number {
       while (curve[j][0] < r.tp) j++;
       const [t0, h0] = curve[j - 1];
       const [t1, h1] = curve[j];
-      hsCheck(h0 + ((h1 - h0) * (r.tp - t0)) / (t1 - t0));
+      // At a curve point its own Hs, exactly (docs/domain.md#convention-6: inclusive limits).
+      hsCheck(r.tp === t1 ? h1 : h0 + ((h1 - h0) * (r.tp - t0)) / (t1 - t0));
     }
   }
   if (L.tpMin != null && r.tp < L.tpMin) broken = true;

@@ -35,10 +35,16 @@ export interface ChildServer {
 
 /**
  * Starts `node --import tsx server/index.ts` (the server is this very process, so a SIGKILL
- * reaches it, unlike the tsx command that runs it in a grandchild) and waits for /api/health.
+ * reaches it, unlike the tsx command that runs it in a grandchild) and waits for /api/health
+ * (120 s unless `startTimeoutMs` says otherwise) on a free port or the one given.
  */
-export async function startServer(dataDir: string, env: Record<string, string> = {}): Promise<ChildServer> {
-  const port = await freePort();
+export async function startServer(
+  dataDir: string,
+  env: Record<string, string> = {},
+  options: { port?: number; startTimeoutMs?: number } = {},
+): Promise<ChildServer> {
+  // A given port: a restarted instance behind a proxy comes back at the same address.
+  const port = options.port ?? (await freePort());
   const baseUrl = `http://127.0.0.1:${port}`;
   let out = '';
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
@@ -57,7 +63,7 @@ export async function startServer(dataDir: string, env: Record<string, string> =
   child.stdout!.on('data', (d) => (out += d));
   child.stderr!.on('data', (d) => (out += d));
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  const deadline = Date.now() + 120_000;
+  const deadline = Date.now() + (options.startTimeoutMs ?? 120_000);
   for (;;) {
     if (child.exitCode !== null || child.signalCode !== null) throw new Error(`server exited early:\n${out}`);
     if (Date.now() > deadline) {

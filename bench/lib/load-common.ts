@@ -1,0 +1,203 @@
+// What `npm run bench:load` and `npm run bench:cluster` share: users created and signed in through
+// the API, the requests of the watch board and the downtime page, and autocannon with one
+// connection (and session cookie) per user, closed-loop or paced.
+import autocannon from 'autocannon';
+
+// ---------------------------------------------------------------------------------------------
+// Users and sessions through the API
+
+export const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+export async function call<T>(baseUrl: string, method: string, url: string, opts: { cookie?: string; body?: unknown; headers?: Record<string, string> } = {}): Promise<{ res: Response; json: T }> {
+  const res = await fetch(`${baseUrl}${url}`, {
+    method,
+    headers: {
+      origin: baseUrl,
+      ...(opts.body !== undefined ? { 'content-type': 'application/json' } : {}),
+      ...(opts.cookie ? { cookie: opts.cookie } : {}),
+      ...opts.headers,
+    },
+    body: opts.body !== undefined ? JSON.stringify(opts.body) : undefined,
+  });
+  const text = await res.text();
+  let json: unknown;
+  try {
+    json = text ? JSON.parse(text) : null;
+  } catch {
+    json = text;
+  }
+  return { res, json: json as T };
+}
+
+export async function expectOk<T>(baseUrl: string, method: string, url: string, opts: Parameters<typeof call>[3] = {}): Promise<T> {
+  const { res, json } = await call<T>(baseUrl, method, url, opts);
+  if (!res.ok) throw new Error(`${method} ${url} answered ${res.status}: ${JSON.stringify(json).slice(0, 300)}`);
+  return json;
+}
+
+/**
+ * Signs in and returns the session cookie. `address` goes into X-Forwarded-For (the server trusts
+ * it from loopback only); `origin` is the app's public address (default `baseUrl`). A 429 is waited out (Retry-After) rather than treated as a failure.
+ */
+export async function signIn(baseUrl: string, email: string, password: string, address: string, origin = baseUrl): Promise<string> {
+  for (let attempt = 0; attempt < 20; attempt++) {
+    const { res, json } = await call<unknown>(baseUrl, 'POST', '/api/auth/sign-in/email', {
+      body: { email, password },
+      headers: { 'x-forwarded-for': address, origin },
+    });
+    if (res.status === 429) {
+      const wait = Number(res.headers.get('x-retry-after') ?? res.headers.get('retry-after') ?? 10);
+      console.log(`  sign-in of ${email} limited (429): waiting ${wait} s`);
+      await sleep((Number.isFinite(wait) ? wait : 10) * 1000 + 250);
+      continue;
+    }
+    if (!res.ok) throw new Error(`sign-in of ${email} answered ${res.status}: ${JSON.stringify(json).slice(0, 300)}`);
+    const cookies = res.headers.getSetCookie().map((c) => c.split(';')[0]);
+    if (cookies.length === 0) throw new Error(`sign-in of ${email} set no cookie`);
+    return cookies.join('; ');
+  }
+  throw new Error(`sign-in of ${email} still limited after 20 attempts`);
+}
+
+export const ROLES = ['coordinator', 'skipper', 'skipper', 'client', 'client'] as const;
+
+export interface LoadUser {
+  email: string;
+  role: (typeof ROLES)[number];
+  cookie: string;
+}
+
+export async function createUsers(baseUrl: string, projectId: string, adminCookie: string, n: number): Promise<LoadUser[]> {
+  const users: LoadUser[] = [];
+  const stamp = Date.now().toString(36);
+  for (let i = 0; i < n; i++) {
+    const email = `load-${stamp}-${String(i + 1).padStart(3, '0')}@example.com`;
+    const role = ROLES[i % ROLES.length];
+    const created = await expectOk<{ user: { id: string }; temporaryPassword: string }>(baseUrl, 'POST', '/api/admin/users', {
+      cookie: adminCookie,
+      body: { name: `Load user ${i + 1}`, email },
+    });
+    await expectOk(baseUrl, 'PUT', `/api/admin/users/${created.user.id}/projects/${projectId}`, { cookie: adminCookie, body: { role } });
+    // Users sign in with the temporary password as given (the product asks for no change first).
+    // Addresses from 198.51.100.0/24, a range reserved for documentation.
+    const cookie = await signIn(baseUrl, email, created.temporaryPassword, `198.51.100.${(i % 250) + 1}`);
+    users.push({ email, role, cookie });
+  }
+  return users;
+}
+
+// ---------------------------------------------------------------------------------------------
+// The page loads
+
+export interface PageRequest {
+  name: string;
+  method: 'GET' | 'POST';
+  path: string;
+}
+
+/**
+ * What the client asks for when a user opens the watch board and then the downtime page (one
+ * query cache, so /api/me and the project are fetched once; the client's staleTime is 30 s):
+ * board: GET /api/me, GET /api/projects/:id, GET .../plan?alpha=true (usePlan, useViewer);
+ * downtime: GET .../datasets, .../operations, .../sites, .../workability?dataset=&alpha=true,
+ * .../ledger?from=&to=, .../ledger/monthly?from=&to=&dataset=, .../campaigns and, for the first
+ * campaign, POST .../campaigns/:id/simulate?dataset=&alpha=true (a read sent as POST).
+ */
+export async function pageRequests(baseUrl: string, projectId: string, cookie: string): Promise<PageRequest[]> {
+  const p = `/api/projects/${projectId}`;
+  const datasets = await expectOk<{ id: string; kind: string }[]>(baseUrl, 'GET', `${p}/datasets`, { cookie });
+  const hindcast = datasets.find((d) => d.kind === 'hindcast');
+  if (!hindcast) throw new Error('the demo project has no hindcast');
+  const campaigns = await expectOk<{ id: string }[]>(baseUrl, 'GET', `${p}/campaigns`, { cookie });
+  const now = new Date();
+  const month = `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}`;
+  const lastDay = new Date(Date.UTC(now.getFullYear(), now.getMonth() + 1, 0)).getUTCDate();
+  const range = new URLSearchParams({ from: `${month}-01`, to: `${month}-${String(lastDay).padStart(2, '0')}` });
+  const withDataset = new URLSearchParams({ dataset: hindcast.id, alpha: 'true' });
+  const list: PageRequest[] = [
+    { name: 'me', method: 'GET', path: '/api/me' },
+    { name: 'project', method: 'GET', path: p },
+    { name: 'plan', method: 'GET', path: `${p}/plan?alpha=true` },
+    { name: 'datasets', method: 'GET', path: `${p}/datasets` },
+    { name: 'operations', method: 'GET', path: `${p}/operations` },
+    { name: 'sites', method: 'GET', path: `${p}/sites` },
+    { name: 'workability', method: 'GET', path: `${p}/workability?${withDataset}` },
+    { name: 'ledger', method: 'GET', path: `${p}/ledger?${range}` },
+    { name: 'ledger monthly', method: 'GET', path: `${p}/ledger/monthly?${range}&dataset=${hindcast.id}` },
+    { name: 'campaigns', method: 'GET', path: `${p}/campaigns` },
+  ];
+  if (campaigns[0]) list.push({ name: 'simulate', method: 'POST', path: `${p}/campaigns/${campaigns[0].id}/simulate?${withDataset}` });
+  return list;
+}
+
+
+// ---------------------------------------------------------------------------------------------
+// Load
+
+export interface EndpointStats {
+  latencies: number[];
+  non2xx: number;
+}
+
+export function runCannon(
+  baseUrl: string,
+  users: LoadUser[],
+  requests: PageRequest[],
+  seconds: number,
+  stats: Map<string, EndpointStats> | null,
+  overallRate?: number,
+  hooks: {
+    /** The running instance (to stop it early). */
+    onStart?: (instance: autocannon.Instance) => void;
+    /** Every answer: the request's name, status and latency. */
+    onResponse?: (name: string, status: number, ms: number) => void;
+    /** The Origin header (default the URL loaded). */
+    origin?: string;
+  } = {},
+): Promise<autocannon.Result> {
+  let next = 0;
+  const nameOf = new WeakMap<object, string>();
+  return new Promise((resolve, reject) => {
+    const instance = autocannon(
+      {
+        url: baseUrl,
+        connections: users.length,
+        duration: seconds,
+        timeout: 10,
+        // autocannon's per-connection rate is a whole number; the overall rate spreads a fractional one.
+        ...(overallRate ? { overallRate } : {}),
+        // Each connection is one user: its own copy of the requests with its own cookie.
+        setupClient: (client) => {
+          const user = users[next++ % users.length];
+          const own = requests.map((r) => {
+            const req: autocannon.Request = { method: r.method, path: r.path, headers: { cookie: user.cookie, origin: hooks.origin ?? baseUrl, accept: 'application/json' } };
+            nameOf.set(req, r.name);
+            return req;
+          });
+          client.setRequests(own);
+          if (!stats && !hooks.onResponse) return;
+          // With pipelining 1, the iterator's current request is the one just answered.
+          const iterator = (client as unknown as { requestIterator: { currentRequest: object } }).requestIterator;
+          client.on('response', (status: number, _bytes: number, ms: number) => {
+            const name = nameOf.get(iterator.currentRequest) ?? '?';
+            hooks.onResponse?.(name, status, ms);
+            if (!stats) return;
+            let s = stats.get(name);
+            if (!s) stats.set(name, (s = { latencies: [], non2xx: 0 }));
+            s.latencies.push(ms);
+            if (status < 200 || status > 299) s.non2xx++;
+          });
+        },
+      },
+      (err, result) => (err ? reject(err) : resolve(result)),
+    );
+    hooks.onStart?.(instance);
+  });
+}
+
+export function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+export const ms = (x: number) => (Number.isFinite(x) ? `${x.toFixed(0)} ms` : 'n/a');
