@@ -45,6 +45,8 @@ import { latestDataset } from './datasets';
 import { zonedDayMs } from './ledger';
 import { enqueueMail, type OutboxMessage } from './outbox';
 import { Lru } from './lru';
+import { runEngineTask } from './engine-pool';
+import type { SeaSeries } from './series-store';
 import { loadProjectSetup, type ProjectSetup } from './site-context';
 import { datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
 
@@ -217,31 +219,41 @@ async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs:
   let hit = memo.get(key);
   if (!hit) {
     hit = (async () => {
-      const series = await datasetSeries(db, row.id);
-      const stepMs = row.stepMinutes * 60_000;
-      const flags = new Map<string, Uint8Array>();
-      forEachOperationSite(
-        series,
-        row,
-        setup,
-        ({ op, spec, site, engine, workspace }) => {
-          const tr = spec.tpopH + spec.tcH;
-          if (row.kind === 'forecast' && !isWeatherRestricted(spec)) {
-            flags.set(pairKey({ operationId: op.id, siteId: site.id }), new Uint8Array(engine.timeMs.length));
-            return;
-          }
-          const status = evaluateStatus(engine, spec, { alpha, alphaTable: setup.alphaTable, out: workspace.status });
-          flags.set(pairKey({ operationId: op.id, siteId: site.id }), goStarts(engine.timeMs, status, stepMs, tr));
-        },
-        (opId, siteId) => wanted.has(`${opId}|${siteId}`),
-      );
-      return flags;
+      // On an engine worker thread (engine-pool.ts): a cold transformation of a 30-year hindcast never holds up other requests.
+      const list = await runEngineTask('outlookGoStarts', await datasetSeries(db, row.id), row, setup, pairs, alpha);
+      return new Map(pairs.map((p, i) => [pairKey(p), list[i]]));
     })();
     memo.set(key, hit);
     const m = memo;
     hit.catch(() => m.delete(key));
   }
   return hit;
+}
+
+/**
+ * The go-start flags of each pair, in the order of `pairs` (see {@link goStartFlags}). Plain data
+ * in and out, so it runs on an engine worker thread.
+ */
+export function computeOutlookGoStarts(series: SeaSeries, row: DatasetRow, setup: ProjectSetup, pairs: Pair[], alpha: boolean): Uint8Array[] {
+  const wanted = new Set(pairs.map(pairKey));
+  const stepMs = row.stepMinutes * 60_000;
+  const flags = new Map<string, Uint8Array>();
+  forEachOperationSite(
+    series,
+    row,
+    setup,
+    ({ op, spec, site, engine, workspace }) => {
+      const key = pairKey({ operationId: op.id, siteId: site.id });
+      if (row.kind === 'forecast' && !isWeatherRestricted(spec)) {
+        flags.set(key, new Uint8Array(engine.timeMs.length));
+        return;
+      }
+      const status = evaluateStatus(engine, spec, { alpha, alphaTable: setup.alphaTable, out: workspace.status });
+      flags.set(key, goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
+    },
+    (opId, siteId) => wanted.has(`${opId}|${siteId}`),
+  );
+  return pairs.map((p) => flags.get(pairKey(p))!);
 }
 
 /**

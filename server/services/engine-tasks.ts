@@ -1,6 +1,7 @@
 // The tasks an engine worker thread runs (engine-pool.ts): pure computations on plain data (a
 // stored series, the dataset row, the project setup), no database.
 import { computeCampaignMonths } from './campaigns';
+import { computeOutlookGoStarts } from './campaign-outlook';
 import { computeExpectations } from './ledger';
 import { computeWorkability } from './workability';
 
@@ -8,6 +9,7 @@ export const ENGINE_TASKS = {
   workability: (...a: Parameters<typeof computeWorkability>) => computeWorkability(...a),
   campaign: (...a: Parameters<typeof computeCampaignMonths>) => computeCampaignMonths(...a),
   ledgerExpectations: (...a: Parameters<typeof computeExpectations>) => computeExpectations(...a),
+  outlookGoStarts: (...a: Parameters<typeof computeOutlookGoStarts>) => computeOutlookGoStarts(...a),
 };
 export type EngineTasks = typeof ENGINE_TASKS;
 export type EngineTaskName = keyof EngineTasks;

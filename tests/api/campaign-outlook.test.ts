@@ -177,6 +177,18 @@ describe('PATCH .../steps/:index (progress)', () => {
   });
 });
 
+describe('editing the steps of a campaign with progress', () => {
+  it('keeps the progress of steps that stay at their index, and drops it from the first step that changes', async () => {
+    const before = (await as.coordinator.get(`${base}/campaigns/${fresh.id}`)).body as CampaignResponse;
+    expect(before.progress.map((p) => p.status)).toEqual(['done', 'done', 'planned']);
+    const shorter = await as.coordinator.patch(`${base}/campaigns/${fresh.id}`).send({ steps: before.steps.slice(0, 2) });
+    expect(shorter.status, shorter.text).toBe(200);
+    expect(shorter.body.progress.map((p: { status: string }) => p.status)).toEqual(['done', 'done']);
+    const swapped = await as.coordinator.patch(`${base}/campaigns/${fresh.id}`).send({ steps: [before.steps[1], before.steps[0]] });
+    expect(swapped.body.progress.map((p: { status: string }) => p.status)).toEqual(['planned', 'planned']);
+  });
+});
+
 describe('history and alerts', () => {
   it('each planning run stores the outlook; an e-mail goes to a client who asked when the P50 moved more than N days', async () => {
     const before = ((await as.client.get(`${base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[]).length;

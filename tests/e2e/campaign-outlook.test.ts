@@ -55,6 +55,15 @@ describe('the live campaign outlook in the browser', () => {
     expect(await page.getByRole('form', { name: 'Mark progress' }).count()).toBe(0);
     await page.getByTestId('outlook-section').scrollIntoViewIfNeeded();
     await screenshot(page, 'outlook-client');
+
+    // On paper: the report states the outlook method, and the outlook prints with its history table.
+    await page.emulateMedia({ media: 'print' });
+    await page.getByTestId('print-report').getByText(/Live outlook: from the time printed/).waitFor();
+    expect(await page.getByTestId('outlook-section').isVisible()).toBe(true);
+    const printed = page.getByTestId('outlook-history-table').last();
+    expect(await printed.isVisible()).toBe(true);
+    expect(await printed.locator('tbody tr').count()).toBeGreaterThanOrEqual(14);
+    await page.emulateMedia({ media: 'screen' });
   }, 240_000);
 
   it('lets the coordinator mark the next step under way', async () => {
