@@ -8,6 +8,7 @@ export default defineConfig({
     hookTimeout: 60_000,
     testTimeout: 60_000,
     globalSetup: ['tests/support/global-setup.ts'],
+    setupFiles: ['tests/support/matchers.ts'],
     pool: 'forks',
     maxWorkers: 2,
   },

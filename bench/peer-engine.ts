@@ -42,7 +42,7 @@ export function runHindcastAllSites(input: HindcastInput, siteIndices?: number[]
   const n = input.timeMs.length;
   const indices = siteIndices ?? input.sites.map((_, i) => i);
   const t0 = performance.now();
-  const tzS = new Float64Array(n).fill(NaN); // no Tz in the peer's data: Soulsby takes Tz from Tp (Convention 8)
+  const tzS = new Float64Array(n).fill(NaN); // no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8)
   const transformed = indices.map((s) =>
     transformToSite({ hsM: input.hs, tpS: input.tp, tzS, dirDeg: input.dir }, { depthM: input.sourceDepthM }, input.sites[s], { out: createSiteSeries(n) }),
   );

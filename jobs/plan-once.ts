@@ -11,7 +11,7 @@ import { createAuth } from '../server/auth';
 import { createForecastProvider } from '../server/forecast';
 import { createMailer } from '../server/mail/mailer';
 import { consoleLogger } from '../server/deps';
-import { runPlanningJob } from './plan-job';
+import { runPlanningJob } from '../server/services/planning';
 
 const env = loadEnv();
 const projectId = process.argv.find((a) => a.startsWith('--project='))?.slice('--project='.length);

@@ -1,8 +1,8 @@
 import cron, { type TaskContext } from 'node-cron';
 import type { AppDeps } from '../server/deps';
 import { deliverDueMail } from '../server/services/outbox';
-import { runPlanningJob } from './plan-job';
-import { queueDigests } from './digest';
+import { runPlanningJob } from '../server/services/planning';
+import { queueDigests } from '../server/services/digests';
 
 export interface Schedule {
   stop(): void;

@@ -8,7 +8,7 @@ import { liveClaim, type ServerClaim } from '../server/data-dir-claim';
 /** What a running server writes to DATA_DIR/server.json (server/data-dir-claim.ts). */
 export type ServerInfo = ServerClaim;
 
-/** The embedded database's folder inside DATA_DIR (server/runtime.ts opens the same one). */
+/** The embedded database's folder inside DATA_DIR (server/composition-root.ts opens the same one). */
 export const dbFolder = (dataDir: string) => path.join(path.resolve(dataDir), 'db');
 
 /** The server holding DATA_DIR, or null when none runs (a server.json left by a killed server is ignored). */

@@ -1,4 +1,4 @@
-import { startLullwatch } from './runtime';
+import { startLullwatch } from './composition-root';
 
 const running = await startLullwatch().catch((err: unknown) => {
   console.error(err instanceof Error ? err.message : err);

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import './schemas/words';
 
 // rrule ships a UMD main that Node's ESM loader exposes as a default export; Vite exposes names.
-const rrule = ((rruleModule as unknown as { RRule?: unknown }).RRule ? rruleModule : (rruleModule as unknown as { default: typeof rruleModule }).default) as typeof rruleModule;
+export const rrule = ((rruleModule as unknown as { RRule?: unknown }).RRule ? rruleModule : (rruleModule as unknown as { default: typeof rruleModule }).default) as typeof rruleModule;
 
 export const WEEKDAYS = ['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'] as const;
 

@@ -15,7 +15,14 @@ import { planRoutes } from './plan';
 import { workabilityRoutes } from './workability';
 import { campaignsRoutes } from './campaigns';
 import { ledgerRoutes } from './ledger';
+import { planJobRoutes } from './plan-jobs';
 import { alertRoutes } from './alerts';
+import { outboxRoutes } from './outbox';
+import { subscriptionRoutes } from './subscriptions';
+import { unsubscribeRoutes } from './unsubscribe';
+import { mailboxRoutes } from './mailbox';
+import { calendarRoutes } from './calendar';
+import { recurrenceRoutes } from './recurrence';
 import { internalBackupRoutes } from './internal-backup';
 
 /** Every API router, in the order they are mounted under /api. */
@@ -35,6 +42,13 @@ export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
   workabilityRoutes,
   campaignsRoutes,
   ledgerRoutes,
+  planJobRoutes,
   alertRoutes,
+  outboxRoutes,
+  subscriptionRoutes,
+  unsubscribeRoutes,
+  mailboxRoutes,
+  calendarRoutes,
+  recurrenceRoutes,
   internalBackupRoutes,
 ];

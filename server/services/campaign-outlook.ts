@@ -220,7 +220,7 @@ async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs:
   if (!memo) flagMemos.set(db, (memo = new ByteBoundedMemo<Map<string, Uint8Array>>(FLAG_MEMO_BYTES, (m) => [...m.values()].reduce((sum, a) => sum + a.byteLength, 0))));
   return memo.get(key, async () => {
     // On an engine worker thread (engine-pool.ts): a cold transformation of a 30-year hindcast never holds up other requests.
-    const list = await runEngineTask('outlookGoStarts', await datasetSeries(db, row.id), row, setup, pairs, alpha);
+    const list = await runEngineTask('outlookGoStarts', computeOutlookGoStarts, await datasetSeries(db, row.id), row, setup, pairs, alpha);
     return new Map(pairs.map((p, i) => [pairKey(p), list[i]]));
   });
 }

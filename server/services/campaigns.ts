@@ -190,7 +190,7 @@ export async function simulateProjectCampaign(
   const steps = c.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId, tpopH: ops.get(s.operationId)!.tpopH }));
   const simulated = await cachedStats<Simulated>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () =>
     // On an engine worker thread (engine-pool.ts): a cold 30-year simulation never holds up other requests.
-    runEngineTask('campaign', await datasetSeries(db, row.id), row, setup, steps, c.timeZone, options.alpha),
+    runEngineTask('campaign', computeCampaignMonths, await datasetSeries(db, row.id), row, setup, steps, c.timeZone, options.alpha),
   );
   const results = simulated.months;
   const siteNames = new Map(setup.sites.map((s) => [s.id, s.name]));

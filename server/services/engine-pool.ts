@@ -9,7 +9,7 @@
 import os from 'node:os';
 import type { Worker } from 'node:worker_threads';
 import { tsWorker } from '../../scripts/lib/ts-worker';
-import { ENGINE_TASKS, type EngineTaskName, type EngineTasks } from './engine-tasks';
+import type { EngineTaskName, EngineTasks } from './engine-tasks';
 
 interface Pending {
   resolve: (value: unknown) => void;
@@ -66,13 +66,15 @@ function failAll(pw: PoolWorker, err: Error): void {
 }
 
 /**
- * Runs an engine task on a worker thread (on the calling thread when ENGINE_THREADS=0). Arguments
- * and results are copied between threads, except views of shared memory.
+ * Runs an engine task on a worker thread, by its name in engine-tasks.ts; with ENGINE_THREADS=0
+ * it calls `inThread` (the same function) on the calling thread. The caller hands the function in
+ * so this module needs no value import of the services (which import it: no cycle). Arguments and
+ * results are copied between threads, except views of shared memory.
  */
-export function runEngineTask<K extends EngineTaskName>(name: K, ...args: Parameters<EngineTasks[K]>): Promise<ReturnType<EngineTasks[K]>> {
+export function runEngineTask<K extends EngineTaskName>(name: K, inThread: EngineTasks[K], ...args: Parameters<EngineTasks[K]>): Promise<ReturnType<EngineTasks[K]>> {
   const count = threadCount();
   if (count === 0) {
-    return Promise.resolve().then(() => (ENGINE_TASKS[name] as (...a: unknown[]) => ReturnType<EngineTasks[K]>)(...args));
+    return Promise.resolve().then(() => (inThread as (...a: unknown[]) => ReturnType<EngineTasks[K]>)(...args));
   }
   workers ??= start(count);
   const pw = workers.reduce((a, b) => (b.busy < a.busy ? b : a));

@@ -30,7 +30,8 @@
  *   hindcast spans wholly), then P50 and P90 over the years by Hyndman & Fan type 7.
  */
 import { and, asc, eq, gte, lte, or, sql } from 'drizzle-orm';
-import { TZDate } from '@date-fns/tz';
+import { TZDate, tz } from '@date-fns/tz';
+import { eachDayOfInterval, format } from 'date-fns';
 import { LIMIT_NAMES, STATUS, evaluateHours, evaluateStatus, quantileR7, recordSteps, zonedMonthStartMs } from '../../shared/engine';
 import type { LedgerEntry, LedgerMonthRow, LedgerMonthlyAnswer, LedgerProposeAnswer } from '../../shared/api-types-downtime';
 import type { ProjectAccessRole } from '../../shared/api-types';
@@ -57,11 +58,10 @@ const sqlExcluded = (column: string) => sql.raw(`excluded.${column}`);
 
 /** Every date from `from` to `to` (YYYY-MM-DD, inclusive). */
 export function daysOf(from: string, to: string): string[] {
-  const out: string[] = [];
-  const [y, m, d] = from.split('-').map(Number);
-  const end = Date.UTC(Number(to.slice(0, 4)), Number(to.slice(5, 7)) - 1, Number(to.slice(8, 10)));
-  for (let t = Date.UTC(y, m - 1, d); t <= end; t += 86_400_000) out.push(new Date(t).toISOString().slice(0, 10));
-  return out;
+  if (to < from) return [];
+  // Calendar dates carry no zone: counted in UTC, where every day is 24 h.
+  const utc = tz('UTC');
+  return eachDayOfInterval({ start: `${from}T00:00:00Z`, end: `${to}T00:00:00Z` }, { in: utc }).map((day) => format(day, 'yyyy-MM-dd', { in: utc }));
 }
 
 /**
@@ -603,7 +603,7 @@ export async function ledgerMonthly(
     const version = limitsVersion(setup, hindcast.dataPointDepthM);
     expectations = await cachedStats(db, projectId, hindcast.id, version, alpha ? 'ledger-alpha' : 'ledger', async () =>
       // On an engine worker thread (engine-pool.ts).
-      runEngineTask('ledgerExpectations', await datasetSeries(db, hindcast.id), hindcast, setup, alpha),
+      runEngineTask('ledgerExpectations', computeExpectations, await datasetSeries(db, hindcast.id), hindcast, setup, alpha),
     );
   }
   const expected = new Map(expectations.map((e) => [`${e.operationId}|${e.siteId}`, e]));

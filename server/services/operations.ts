@@ -6,6 +6,7 @@ import { and, asc, eq, inArray } from 'drizzle-orm';
 import type { OperationResponse } from '../../shared/api-types-sites';
 import type { OperationLimits } from '../../shared/engine/types';
 import { idParam } from '../../shared/schemas/common';
+import { recurrenceText, type RecurrenceInput } from '../../shared/recurrence';
 import { nameKey, OperationInput, type OperationPatchInput } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
 import { operation, projectMember, worksite } from '../db/schema';
@@ -223,4 +224,33 @@ export async function deleteOperation(db: Db, projectId: string, user: SessionUs
       after: null,
     });
   });
+}
+
+/**
+ * Sets (or with `null` removes) an operation's recurrence, with its wording, and writes the change
+ * to the audit trail in the same transaction. Answers the stored value.
+ */
+export async function setOperationRecurrence(
+  db: Db,
+  projectId: string,
+  user: SessionUser,
+  operationId: string,
+  input: RecurrenceInput | null,
+): Promise<(RecurrenceInput & { text: string }) | null> {
+  const value = input ? { ...input, text: recurrenceText(input) } : null;
+  await db.transaction(async (tx) => {
+    const row = await operationRow(tx, projectId, operationId);
+    await tx.update(operation).set({ recurrence: value, updatedAt: new Date() }).where(eq(operation.id, row.id));
+    await recordAudit(tx, {
+      projectId,
+      user,
+      entity: 'operation',
+      entityId: row.id,
+      entityName: row.name,
+      action: 'update',
+      before: { recurrence: row.recurrence },
+      after: { recurrence: value },
+    });
+  });
+  return value;
 }

@@ -319,7 +319,7 @@ async function workabilityEntries(db: Db, row: DatasetRow, setup: ProjectSetup, 
   const version = limitsVersion(setup, row.dataPointDepthM);
   const cached = await cachedStats(db, row.projectId, row.id, version, String(alpha), async () =>
     // On an engine worker thread (engine-pool.ts): a cold 30-year table never holds up other requests.
-    runEngineTask('workability', await datasetSeries(db, row.id), row, setup, alpha),
+    runEngineTask('workability', computeWorkability, await datasetSeries(db, row.id), row, setup, alpha),
   );
   const ops = new Map(setup.operations.map((o) => [o.id, o]));
   const sites = new Map(setup.sites.map((s) => [s.id, s]));

@@ -373,7 +373,7 @@ export function transformToSite(
       hsSite = depthLimitM;
       flags |= TRANSFORM_FLAG.DEPTH_LIMITED;
     }
-    // Soulsby factor: Tz from the record, else from Tp (Convention 8).
+    // Soulsby factor: Tz from the record, else from Tp (docs/domain.md#convention-8).
     const tz = tzIn[i];
     const soul = tz > 0 && tz < Infinity ? soulTz[i] : terms[base + T_SOUL];
 

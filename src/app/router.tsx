@@ -1,8 +1,8 @@
 import type { ComponentType } from 'react';
 import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from './query-client';
-import { meQueryOptions } from '../features/auth/api/get-me';
-import { projectQueryOptions } from '../features/projects/api/get-projects';
+import { meQueryOptions } from '../api/me';
+import { projectQueryOptions } from '../api/projects';
 import { AppLayout } from './layouts/app-layout';
 import { SignInPage } from '../features/auth/components/sign-in-page';
 import { ProjectsPage } from '../features/projects/components/projects-page';

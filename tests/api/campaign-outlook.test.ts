@@ -8,7 +8,7 @@ import { auditEntry, campaignOutlook, ledgerDay, outbox } from '../../server/db/
 import { readSeries } from '../../server/services/series-store';
 import { loadProjectSetup, operationSpec, transformForSite } from '../../server/services/site-context';
 import { getDatasetRow } from '../../server/services/datasets';
-import { runPlanningJob } from '../../jobs/plan-job';
+import { runPlanningJob } from '../../server/services/planning';
 
 let t: TestApp;
 let as: Awaited<ReturnType<typeof signInAll>>;

@@ -11,7 +11,7 @@ import Papa from 'papaparse';
 import request from 'supertest';
 import { count, eq, isNull, like } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
-import { queueDigests } from '../../jobs/digest';
+import { queueDigests } from '../../server/services/digests';
 import { dataset, datasetChunk, outbox, worksite } from '../../server/db/schema';
 import { safeFileName } from '../../server/services/dataset-import';
 import { csvField } from '../../shared/csv-field';

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import ICAL from 'ical.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runPlanningJob } from '../../jobs/plan-job';
+import { runPlanningJob } from '../../server/services/planning';
 import { createTestApp, signInAll, TEST_ORIGIN, type TestApp } from '../support/app';
 import { deliverDueMail } from '../../server/services/outbox';
 import { planRun } from '../../server/db/schema';
@@ -225,7 +225,7 @@ describe('the calendar feed', () => {
 
 describe('the daily digest', () => {
   it('goes once per local day, at or after the chosen local time', async () => {
-    const { queueDigests } = await import('../../jobs/digest');
+    const { queueDigests } = await import('../../server/services/digests');
     await as.client.put(`/api/projects/${t.demo.projectId}/subscription`).send({
       operationIds: [], siteIds: [], immediate: false, digest: true, digestTime: '07:30', digestTimeZone: 'Europe/Oslo', active: true,
     });

@@ -18,7 +18,7 @@ import { enqueueMail, deliverDueMail, listOutbox } from '../../server/services/o
 import { UNSUBSCRIBE_LINK_MARK, unsubscribeUrl } from '../../server/services/alert-mail';
 import { importLimiter, UPLOAD_DIR } from '../../server/routes/datasets';
 import { loadEnv } from '../../server/env';
-import { startLullwatch, isLoopback } from '../../server/runtime';
+import { startLullwatch, isLoopback } from '../../server/composition-root';
 import { silentLogger } from '../../server/deps';
 import { passwordProblem } from '../../shared/auth/password-rules';
 import { DEMO_PASSWORD } from '../../seed/scenario';

@@ -59,7 +59,7 @@ describe('comparing two plans (hand cases)', () => {
 
 // Issue 22, item 5: "New window from Thu 3 Dec 12:00" was sent at 14:03 for a window whose last
 // possible start had passed. A window of length L allows starts from its start to its end - TR
-// (DOMAIN "Weather windows": a go-start needs TR workable hours from it; hand-computed here).
+// (docs/domain.md#weather-windows: a go-start needs TR workable hours from it; hand-computed here).
 describe('alerts speak of usable starts', () => {
   const at1403 = { nowMs: Date.parse('2026-12-03T14:03:00Z'), earliestMoveHours: 6 };
   const tr6 = (windows: ReturnType<typeof w>[], over: Partial<PlanSummary> = {}) => plan({ tr: 6, windows, ...over });

@@ -22,10 +22,10 @@ describe('JONSWAP period ratios', () => {
     const teOverTp = Math.pow(1.25, -0.25) * GAMMA_5_4;
     const tzOverTp = Math.sqrt(Math.pow(1.25, -0.5) / Math.sqrt(Math.PI));
     const m = jonswapShapeMoments(1);
-    expect(relClose(m.mMinus1 / m.m0, teOverTp, 1e-12)).toBe(true);
-    expect(relClose(m.m0, 0.25 / 1.25, 1e-12)).toBe(true); // m_0 = (1/4) 1.25^-1 Gamma(1)
-    expect(relClose(Math.sqrt(m.m0 / m.m2), tzOverTp, 1e-12)).toBe(true);
-    expect(relClose(jonswapTeOverTp(1), teOverTp, 1e-9)).toBe(true);
+    expect(m.mMinus1 / m.m0).toBeRelClose(teOverTp, 1e-12);
+    expect(m.m0).toBeRelClose(0.25 / 1.25, 1e-12); // m_0 = (1/4) 1.25^-1 Gamma(1)
+    expect(Math.sqrt(m.m0 / m.m2)).toBeRelClose(tzOverTp, 1e-12);
+    expect(jonswapTeOverTp(1)).toBeRelClose(teOverTp, 1e-9);
   });
 
   it('Te/Tp is about 0.857 for gamma = 1 and about 0.90 for gamma = 3.3 (docs/domain.md#sea-states, from memory)', () => {

@@ -31,7 +31,7 @@ describe('regularWave: worked example, Shore Protection Manual (1984) Ch. 2 (fro
   it('T = 10 s, d = 1 m: shallow water by d/L < 1/20, C within 2 % of sqrt(g d) (common practice, no source)', () => {
     const w = regularWave({ heightM: 0.5, periodS: 10, depthM: 1 });
     expect(w.depthClass).toBe('shallow');
-    expect(relClose(w.celerityMps, Math.sqrt(G * 1), 0.02)).toBe(true);
+    expect(w.celerityMps).toBeRelClose(Math.sqrt(G * 1), 0.02);
   });
 });
 
@@ -41,7 +41,7 @@ describe('regularWave: facts of the trade (common practice, no source)', () => {
       const w = regularWave({ heightM: 1, periodS, depthM: 30 });
       expect(w.deepWaterCelerityMps).toBeCloseTo((G * periodS) / (2 * Math.PI), 12);
       expect(w.deepWaterWavelengthM).toBeCloseTo((G * periodS * periodS) / (2 * Math.PI), 10);
-      expect(relClose(w.deepWaterWavelengthM, 1.56 * periodS * periodS, 0.002)).toBe(true);
+      expect(w.deepWaterWavelengthM).toBeRelClose(1.56 * periodS * periodS, 0.002);
       expect(w.deepWaterGroupCelerityMps).toBeCloseTo(w.deepWaterCelerityMps / 2, 12);
     }
   });
@@ -49,7 +49,7 @@ describe('regularWave: facts of the trade (common practice, no source)', () => {
   it('C -> sqrt(g d) and n -> 1 in shallow water; C -> C0, n -> 1/2, Ks -> 1 in deep water', () => {
     const shallow = regularWave({ heightM: 0.1, periodS: 30, depthM: 0.2 });
     // kd ~ 0.03 here: C/sqrt(gd) ~ 1 - (kd)^2/6 and n ~ 1 - (kd)^2/3 (series of tanh and sinh).
-    expect(relClose(shallow.celerityMps, Math.sqrt(G * 0.2), 3e-4)).toBe(true);
+    expect(shallow.celerityMps).toBeRelClose(Math.sqrt(G * 0.2), 3e-4);
     expect(shallow.n).toBeGreaterThan(0.999);
     const deep = regularWave({ heightM: 1, periodS: 8, depthM: Infinity });
     expect(deep.celerityMps).toBe(deep.deepWaterCelerityMps);
@@ -68,7 +68,7 @@ describe('regularWave: facts of the trade (common practice, no source)', () => {
   it('energy density E = rho g H^2 / 8 and power P = E Cg (Airy theory, SPM 1984 Ch. 2)', () => {
     const w = regularWave({ heightM: 2, periodS: 9, depthM: 15 });
     expect(w.energyDensityJPerM2).toBeCloseTo((RHO * G * 4) / 8, 9);
-    expect(relClose(w.powerWPerM, ((RHO * G * 4) / 8) * refCg(9, 15), 1e-12)).toBe(true);
+    expect(w.powerWPerM).toBeRelClose(((RHO * G * 4) / 8) * refCg(9, 15), 1e-12);
     const fresh = regularWave({ heightM: 2, periodS: 9, depthM: 15, rhoKgM3: 1000, g: 9.80665 });
     expect(fresh.energyDensityJPerM2).toBeCloseTo((1000 * 9.80665 * 4) / 8, 9);
   });
@@ -115,9 +115,9 @@ describe('orbitalAt: u(z), w(z), Kp(z) (docs/domain.md#dispersion; SPM 1984 Ch. 
     const amp = (Math.PI * 1.5) / 7;
     for (const z of [0, -1, -3.3, -6, -11.9, -12]) {
       const o = orbitalAt(w, z);
-      expect(relClose(o.horizontalVelocityMps, (amp * Math.cosh(k * (z + 12))) / Math.sinh(k * 12), 1e-12)).toBe(true);
+      expect(o.horizontalVelocityMps).toBeRelClose((amp * Math.cosh(k * (z + 12))) / Math.sinh(k * 12), 1e-12);
       expect(Math.abs(o.verticalVelocityMps - (amp * Math.sinh(k * (z + 12))) / Math.sinh(k * 12))).toBeLessThan(1e-13);
-      expect(relClose(o.pressureFactor, Math.cosh(k * (z + 12)) / Math.cosh(k * 12), 1e-12)).toBe(true);
+      expect(o.pressureFactor).toBeRelClose(Math.cosh(k * (z + 12)) / Math.cosh(k * 12), 1e-12);
     }
   });
 
@@ -138,14 +138,14 @@ describe('orbitalAt: u(z), w(z), Kp(z) (docs/domain.md#dispersion; SPM 1984 Ch. 
     const w = regularWave({ heightM: 1, periodS: 0.5, depthM: 6000 }); // kd ~ 9.7e4
     const k = refK(0.5, Infinity);
     const o = orbitalAt(w, -0.1);
-    expect(relClose(o.horizontalVelocityMps, ((Math.PI * 1) / 0.5) * Math.exp(-0.1 * k), 1e-12)).toBe(true);
-    expect(relClose(o.verticalVelocityMps, o.horizontalVelocityMps, 1e-12)).toBe(true);
-    expect(relClose(o.pressureFactor, Math.exp(-0.1 * k), 1e-12)).toBe(true);
+    expect(o.horizontalVelocityMps).toBeRelClose(((Math.PI * 1) / 0.5) * Math.exp(-0.1 * k), 1e-12);
+    expect(o.verticalVelocityMps).toBeRelClose(o.horizontalVelocityMps, 1e-12);
+    expect(o.pressureFactor).toBeRelClose(Math.exp(-0.1 * k), 1e-12);
     const bed = orbitalAt(w, -6000);
     expect(bed.horizontalVelocityMps).toBe(0);
     expect(bed.pressureFactor).toBe(0);
     const infinite = orbitalAt({ heightM: 1, periodS: 10, depthM: Infinity }, -20);
-    expect(relClose(infinite.pressureFactor, Math.exp(-20 * refK(10, Infinity)), 1e-13)).toBe(true);
+    expect(infinite.pressureFactor).toBeRelClose(Math.exp(-20 * refK(10, Infinity)), 1e-13);
   });
 
   it('no NaN, u >= w >= 0, and u, w, Kp decrease with depth below the surface (fast-check sweep)', () => {
@@ -181,7 +181,7 @@ describe('orbitalAt: u(z), w(z), Kp(z) (docs/domain.md#dispersion; SPM 1984 Ch. 
     expect(deep.bedVelocityMps).toBeLessThan(1e-8);
     expect(regularWave({ heightM: 2, periodS: 6, depthM: Infinity }).bedVelocityMps).toBe(0);
     const shallow = regularWave({ heightM: 0.2, periodS: 20, depthM: 0.5 });
-    expect(relClose(shallow.bedVelocityMps, 0.1 * Math.sqrt(G / 0.5), 0.003)).toBe(true);
+    expect(shallow.bedVelocityMps).toBeRelClose(0.1 * Math.sqrt(G / 0.5), 0.003);
   });
 
   it('accepts the parameters instead of a wave and throws RangeError outside -d <= z <= 0', () => {

@@ -9,7 +9,7 @@ import {
   seaStateEnergy,
   seaStatePower,
 } from '../../shared/waves';
-import { refCg, refK, relClose } from './reference-dispersion';
+import { refCg, refK } from './reference-dispersion';
 
 const G = 9.81;
 const RHO = 1025;
@@ -27,7 +27,7 @@ describe('sea-state energy and power (docs/domain.md#sea-states)', () => {
       [3, 11, 40],
       [0.8, 5, 2],
     ]) {
-      expect(relClose(seaStatePower(hs, te, d), (RHO * G * hs * hs * refCg(te, d)) / 16, 1e-11)).toBe(true);
+      expect(seaStatePower(hs, te, d)).toBeRelClose((RHO * G * hs * hs * refCg(te, d)) / 16, 1e-11);
     }
   });
 
@@ -38,8 +38,8 @@ describe('sea-state energy and power (docs/domain.md#sea-states)', () => {
       [6, 13.5],
     ]) {
       const p = seaStatePower(hs, te, Infinity);
-      expect(relClose(p, (RHO * G * G * hs * hs * te) / (64 * Math.PI), 1e-13)).toBe(true);
-      expect(relClose(p / 1000, 0.49 * hs * hs * te, 0.005)).toBe(true);
+      expect(p).toBeRelClose((RHO * G * G * hs * hs * te) / (64 * Math.PI), 1e-13);
+      expect(p / 1000).toBeRelClose(0.49 * hs * hs * te, 0.005);
     }
   });
 
@@ -55,14 +55,14 @@ describe('sea-state energy and power (docs/domain.md#sea-states)', () => {
 describe('bedVelocityLinear: u_bs = pi Hs / (Tp sinh(k_p d)) (docs/domain.md#bed-velocity method 1, common practice)', () => {
   it('equals the written-out formula and the regular-wave bed velocity with H = Hs', () => {
     const k = refK(10, 10);
-    expect(relClose(bedVelocityLinear(2, 10, 10), (Math.PI * 2) / (10 * Math.sinh(k * 10)), 1e-12)).toBe(true);
+    expect(bedVelocityLinear(2, 10, 10)).toBeRelClose((Math.PI * 2) / (10 * Math.sinh(k * 10)), 1e-12);
     expect(bedVelocityLinear(2, 10, 10)).toBe(regularWave({ heightM: 2, periodS: 10, depthM: 10 }).bedVelocityMps);
   });
 
   it('-> 0 in deep water, -> (Hs/2) sqrt(g/d) in shallow water', () => {
     expect(bedVelocityLinear(3, 6, 300)).toBeLessThan(1e-12);
     expect(bedVelocityLinear(3, 6, Infinity)).toBe(0);
-    expect(relClose(bedVelocityLinear(0.3, 25, 0.5), 0.15 * Math.sqrt(G / 0.5), 0.002)).toBe(true);
+    expect(bedVelocityLinear(0.3, 25, 0.5)).toBeRelClose(0.15 * Math.sqrt(G / 0.5), 0.002);
   });
 });
 
@@ -91,7 +91,7 @@ describe('bedVelocitySoulsby: Soulsby (2006), HR Wallingford TR 155 (formula in 
     const hs = 0.2;
     const d = 0.1;
     const us = bedVelocitySoulsby(hs, 12, d);
-    expect(relClose(us, 0.5 * hs * Math.sqrt(G / d), 0.003)).toBe(true);
+    expect(us).toBeRelClose(0.5 * hs * Math.sqrt(G / d), 0.003);
     const ratio = us / bedVelocityLinear(hs, 12 / 0.7777, d);
     expect(ratio).toBeGreaterThan(0.9);
     expect(ratio).toBeLessThan(1.1);
@@ -200,12 +200,12 @@ describe('seaState bundle', () => {
     expect(s.periods.sources).toEqual({ tp: 'given', tz: 'tp', te: 'tp' });
     expect(s.periods.teS).toBeCloseTo(9, 12);
     expect(s.energyJPerM2).toBeCloseTo((RHO * G * 4) / 16, 9);
-    expect(relClose(s.powerWPerM, (RHO * G * 4 * refCg(9, 20)) / 16, 1e-11)).toBe(true);
+    expect(s.powerWPerM).toBeRelClose((RHO * G * 4 * refCg(9, 20)) / 16, 1e-11);
     expect(s.bedVelocityLinearMps).toBe(bedVelocityLinear(2, 10, 20));
     expect(s.bedVelocitySoulsbyMps).toBe(bedVelocitySoulsby(2, s.periods.tzS, 20));
     expect(s.bedVelocityRmsSoulsbyMps).toBe(bedVelocityRmsSoulsby(2, s.periods.tzS, 20));
     expect(s.bedVelocitySoulsbyMps).toBe(2 * s.bedVelocityRmsSoulsbyMps);
-    expect(relClose(s.peakWavelengthM, (2 * Math.PI) / refK(10, 20), 1e-12)).toBe(true);
+    expect(s.peakWavelengthM).toBeRelClose((2 * Math.PI) / refK(10, 20), 1e-12);
   });
 
   it('uses given Tz and Te as they are', () => {

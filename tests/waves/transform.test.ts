@@ -71,9 +71,9 @@ describe('transform: refraction and shoaling (docs/domain.md#transformation step
     const kr = Math.sqrt(Math.cos(-20 * DEG) / Math.cos(thetaSite));
     const ks = Math.sqrt(c0 / 2 / refCg(10, 10));
     expect(r.flags).toBe(0);
-    expect(relClose(r.kr, kr, 1e-6)).toBe(true); // float32 storage
-    expect(relClose(r.ks, ks, 1e-6)).toBe(true);
-    expect(relClose(r.hs, 2 * ks * kr, 1e-11)).toBe(true);
+    expect(r.kr).toBeRelClose(kr, 1e-6); // float32 storage
+    expect(r.ks).toBeRelClose(ks, 1e-6);
+    expect(r.hs).toBeRelClose(2 * ks * kr, 1e-11);
     expect(r.dir).toBeCloseTo(270 + thetaSite / DEG, 9);
     // The wave turns toward the shore normal.
     expect(Math.abs(angleDiff(r.dir, 270))).toBeLessThan(20);
@@ -128,7 +128,7 @@ describe('transform: refraction and shoaling (docs/domain.md#transformation step
     const r = viaArray({ hs: 1.2, tp: 12, dir: 123.4 }, { depthM: 80 }, { depthM: 6, shoreNormalDeg: null, breakerIndex: 0.6 });
     expect(r.kr).toBe(1);
     expect(r.dir).toBe(123.4);
-    expect(relClose(r.hs * r.hs * refCg(12, 6), 1.2 * 1.2 * refCg(12, 80), 1e-10)).toBe(true);
+    expect(r.hs * r.hs * refCg(12, 6)).toBeRelClose(1.2 * 1.2 * refCg(12, 80), 1e-10);
     // A direction is not needed without a bearing: NaN is fine and stays NaN.
     const noDir = viaArray({ hs: 1.2, tp: 12 }, { depthM: 80 }, { depthM: 6, shoreNormalDeg: null, breakerIndex: 0.6 });
     expect(noDir.flags).toBe(0);
@@ -162,7 +162,7 @@ describe('transform: docs/domain.md#convention-1 to #convention-4 (flags)', () =
       expect(r.flags).toBe(LANDWARD);
       expect(r.kr).toBe(1);
       expect(r.dir).toBe(dir);
-      expect(relClose(r.ks, Math.sqrt(((G * 9) / (4 * Math.PI)) / refCg(9, 12)), 1e-6)).toBe(true);
+      expect(r.ks).toBeRelClose(Math.sqrt(((G * 9) / (4 * Math.PI)) / refCg(9, 12)), 1e-6);
     }
     const chain = transformOne({ hsM: 1, tpS: 9, dirDeg: 0 }, DEEP, site);
     expect(chain.thetaSrcDeg).toBe(90);
@@ -181,7 +181,7 @@ describe('transform: docs/domain.md#convention-1 to #convention-4 (flags)', () =
     expect(r.flags).toBe(REFRACTION_SKIPPED);
     expect(r.kr).toBe(1);
     expect(r.dir).toBe(330);
-    expect(relClose(r.ks, Math.sqrt(refCg(8, 5) / refCg(8, 60)), 1e-6)).toBe(true);
+    expect(r.ks).toBeRelClose(Math.sqrt(refCg(8, 5) / refCg(8, 60)), 1e-6);
     expect(r.ks).toBeLessThan(1);
     // A small angle still refracts, away from the normal (the wave speeds up).
     const small = transformOne({ hsM: 1, tpS: 8, dirDeg: 280 }, source, deepSite);

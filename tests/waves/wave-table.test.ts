@@ -84,7 +84,7 @@ describe('waveTableRow: identities and limits (common practice, no source)', () 
 
   it('shallow-water end: d/L -> sqrt(d/L0 / (2 pi)), n -> 1', () => {
     const r = waveTableRow(1e-6);
-    expect(relClose(r.dOverL, Math.sqrt(1e-6 / (2 * Math.PI)), 1e-5)).toBe(true);
+    expect(r.dOverL).toBeRelClose(Math.sqrt(1e-6 / (2 * Math.PI)), 1e-5);
     expect(r.n).toBeGreaterThan(0.99999);
   });
 

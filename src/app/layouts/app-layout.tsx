@@ -1,5 +1,5 @@
 import { Link, Navigate, NavLink, Outlet, useLocation, useNavigate } from 'react-router-dom';
-import { useMe } from '../../features/auth/api/get-me';
+import { useMe } from '../../api/me';
 import { useSignOut } from '../../features/auth/api/sign-in';
 import { Caution } from '../../components/caution';
 import { Logo } from '../../components/logo';
@@ -42,7 +42,7 @@ export function AppLayout() {
             <button
               type="button"
               className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-white/90 hover:bg-white/10"
-              onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}
+              onClick={() => signOut.mutate(undefined, { onSuccess: () => void navigate('/sign-in', { replace: true }) })}
             >
               Sign out
             </button>

@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { NavLink, Outlet, useLocation, useParams } from 'react-router-dom';
-import { useProject } from '../../features/projects/api/get-projects';
+import { useProject } from '../../api/projects';
 import { ErrorNotice, Spinner } from '../../components/ui';
 import { PROJECT_SECTIONS } from '../sections';
 import { RoleBadge } from '../../features/projects/components/role-badge';

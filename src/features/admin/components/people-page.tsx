@@ -5,7 +5,7 @@ import { CreateUserInput } from '../../../../shared/schemas/projects';
 import { PROJECT_ROLES, PROJECT_ROLE_LABELS, type ProjectRole } from '../../../../shared/auth/roles';
 import type { AdminUser, ProjectSummary } from '../../../../shared/api-types';
 import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
-import { useProjects } from '../../projects/api/get-projects';
+import { useProjects } from '../../../api/projects';
 import { useAdminUsers, useCreateUser, useIssueTemporaryPassword, useSetMembership, useUpdateUser } from '../api/users';
 
 export function PeoplePage() {

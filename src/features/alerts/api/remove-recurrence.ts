@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
-import { operationsQueryOptions } from './get-operations';
+import { operationsQueryOptions } from '../../../api/operations';
 
 /** `DELETE /api/projects/:projectId/operations/:operationId/recurrence` (coordinators): the operation no longer recurs. */
 export const removeRecurrence = (projectId: string, operationId: string) =>

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
-import { projectRoleQueryOptions } from './get-project-role';
+import { projectQueryOptions } from '../../../api/projects';
 import type { JobResult } from './types';
 
 /** `POST /api/projects/:projectId/replan` (coordinators): runs the planning job for this project now. */
@@ -14,6 +14,6 @@ export function useReplan(projectId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: () => replan(projectId),
-    onSuccess: () => qc.invalidateQueries({ queryKey: projectRoleQueryOptions(projectId).queryKey }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: projectQueryOptions(projectId).queryKey }),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { RecurrenceInput } from '../../../../shared/recurrence';
 import { api } from '../../../lib/api';
-import { operationsQueryOptions } from './get-operations';
+import { operationsQueryOptions } from '../../../api/operations';
 import type { StoredRecurrence } from './types';
 
 /** `PUT /api/projects/:projectId/operations/:operationId/recurrence` (coordinators): sets how the operation recurs. */

@@ -3,9 +3,9 @@
 // re-plan now, read the outbox, and set which operations recur.
 import { useParams } from 'react-router-dom';
 import { ErrorNotice, PageHeader, Spinner } from '../../../components/ui';
-import { useAlertsAccess } from '../api/get-project-role';
-import { useOperations } from '../api/get-operations';
-import { useSites } from '../api/get-sites';
+import { useProjectAccess } from '../../../api/projects';
+import { useOperations } from '../../../api/operations';
+import { useSites } from '../../../api/sites';
 import { CalendarSection } from './calendar-section';
 import { OutboxSection } from './outbox-section';
 import { RecentAlertsSection } from './recent-alerts-section';
@@ -15,7 +15,7 @@ import { SubscriptionSection } from './subscription-section';
 
 export function AlertsPage() {
   const { projectId = '' } = useParams();
-  const access = useAlertsAccess(projectId);
+  const access = useProjectAccess(projectId);
   const operations = useOperations(projectId);
   const sites = useSites(projectId);
 

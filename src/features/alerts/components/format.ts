@@ -1,34 +1,21 @@
 // Times and words of the alerts pages. Instants are shown in a named IANA zone through date-fns with
 // @date-fns/tz (never hand-made offsets), always with the zone's abbreviation beside them.
-import { format } from 'date-fns';
-import { tz } from '@date-fns/tz';
 import { DATE_STYLE, localTimeZone } from '../../../../shared/dates';
+import { DASH, formatAt, zoneShort } from '../../../lib/format';
 
-const DASH = '–';
 
 /** The browser's own IANA zone (for times that belong to no worksite: e-mails, runs). */
 export const browserTimeZone = localTimeZone;
 
 /** An instant in a zone, e.g. 'Tue 3 Dec 14:00 CET'. */
 export function timeIn(iso: string | null | undefined, timeZone: string, pattern: string = DATE_STYLE.dateTime): string {
-  if (!iso) return DASH;
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return DASH;
-  return `${format(d, pattern, { in: tz(timeZone) })} ${zoneAbbreviation(d, timeZone)}`;
+  const text = formatAt(iso, timeZone, pattern);
+  return text === DASH ? DASH : `${text} ${zoneShort(iso!, timeZone)}`;
 }
 
 /** A UTC instant in ms, in a zone, e.g. 'Mon 6 Jan 2027 06:00 CET'. */
 export const msIn = (ms: number, timeZone: string, pattern: string = DATE_STYLE.dateTimeYear) => timeIn(new Date(ms).toISOString(), timeZone, pattern);
 
-/** The zone's short name at that instant ('CET', 'CEST', 'GMT+1'), as the browser's Intl names it. */
-export function zoneAbbreviation(d: Date, timeZone: string): string {
-  try {
-    const part = new Intl.DateTimeFormat('en-GB', { timeZone, timeZoneName: 'short' }).formatToParts(d).find((p) => p.type === 'timeZoneName');
-    return part?.value ?? timeZone;
-  } catch {
-    return timeZone;
-  }
-}
 
 /** Every IANA zone the browser knows, with UTC and the given ones first among them. */
 export function timeZoneList(...ensure: string[]): string[] {

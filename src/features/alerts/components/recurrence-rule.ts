@@ -2,7 +2,10 @@
 // a crew plan needs (daily or weekly, an interval, weekdays, an end by count or last day). Rules
 // with other parts (monthly, BYSETPOS, ...) can still be shown and removed, but not edited here.
 import { z } from 'zod';
-import { RecurrenceInput, WEEKDAYS } from '../../../../shared/recurrence';
+import type { Options } from 'rrule';
+import { RecurrenceInput, rrule, WEEKDAYS } from '../../../../shared/recurrence';
+
+const { RRule } = rrule;
 
 export type Weekday = (typeof WEEKDAYS)[number];
 
@@ -57,17 +60,21 @@ export type RecurrenceForm = z.infer<typeof RecurrenceForm>;
 
 /**
  * The RRULE body of the form, e.g. 'FREQ=WEEKLY;BYDAY=MO,WE,FR' or
- * 'FREQ=DAILY;INTERVAL=2;COUNT=10'. UNTIL is written as the end of the chosen day,
- * 'YYYYMMDDT235959Z': the app expands rules in floating local time (shared/recurrence.ts), so
- * the value is read as 23:59:59 local on that day and every occurrence of the last day is kept.
+ * 'FREQ=DAILY;INTERVAL=2;COUNT=10', written by rrule's own formatter. UNTIL is the end of the
+ * chosen day, 'YYYYMMDDT235959Z': the app expands rules in floating local time
+ * (shared/recurrence.ts), so the value is read as 23:59:59 local on that day and every occurrence
+ * of the last day is kept.
  */
 export function buildRule(v: RecurrenceForm): string {
-  const parts = [`FREQ=${v.freq}`];
-  if (v.interval > 1) parts.push(`INTERVAL=${v.interval}`);
-  if (v.freq === 'WEEKLY') parts.push(`BYDAY=${WEEKDAYS.filter((d) => v.byDay.includes(d)).join(',')}`);
-  if (v.endKind === 'count') parts.push(`COUNT=${v.count}`);
-  if (v.endKind === 'until') parts.push(`UNTIL=${v.untilDate.replace(/-/g, '')}T235959Z`);
-  return parts.join(';');
+  const options: Partial<Options> = { freq: v.freq === 'DAILY' ? RRule.DAILY : RRule.WEEKLY };
+  if (v.interval > 1) options.interval = v.interval;
+  if (v.freq === 'WEEKLY') options.byweekday = WEEKDAYS.filter((d) => v.byDay.includes(d)).map((d) => RRule[d]);
+  if (v.endKind === 'count') options.count = v.count;
+  if (v.endKind === 'until') {
+    const [y, m, d] = v.untilDate.split('-').map(Number);
+    options.until = new Date(Date.UTC(y, m - 1, d, 23, 59, 59));
+  }
+  return RRule.optionsToString(options).replace(/^RRULE:/, '');
 }
 
 /** The shared API input of the form: local start 'YYYY-MM-DDTHH:mm', zone and rule. */
@@ -77,53 +84,56 @@ export const toRecurrenceInput = (v: RecurrenceForm): RecurrenceInput => ({
   rule: buildRule(v),
 });
 
+/** Rule parts the builder offers; a rule with any other part is shown as text only. */
+const BUILDER_PARTS = new Set(['freq', 'interval', 'byweekday', 'count', 'until', 'wkst']);
+
 /**
- * Form fields from a stored rule, or null when the rule uses parts the builder does not offer
- * (it is then shown as text and can be replaced or removed).
+ * Form fields from a stored rule (read by rrule's own parser), or null when the rule uses parts the
+ * builder does not offer (it is then shown as text and can be replaced or removed).
  */
 export function parseRule(input: RecurrenceInput): RecurrenceForm | null {
+  let options: Partial<Options>;
+  try {
+    options = RRule.parseString(input.rule);
+  } catch {
+    return null;
+  }
+  if (Object.keys(options).some((k) => !BUILDER_PARTS.has(k))) return null;
+  if (options.freq !== RRule.DAILY && options.freq !== RRule.WEEKLY) return null;
+  const interval = options.interval ?? 1;
+  if (!Number.isInteger(interval) || interval < 1 || interval > MAX_INTERVAL) return null;
+  const wkst = options.wkst;
+  if (wkst !== undefined && wkst !== null && (typeof wkst === 'number' ? wkst : wkst.weekday) !== 0) return null;
+  const days = options.byweekday === undefined || options.byweekday === null ? [] : [options.byweekday].flat();
+  const byDay: Weekday[] = [];
+  for (const day of days) {
+    // Only plain weekdays: an ordinal such as +1MO ("first Monday") is not something the builder writes.
+    if (typeof day === 'string' || (typeof day === 'object' && day.n !== undefined && day.n !== 0)) return null;
+    byDay.push(WEEKDAYS[typeof day === 'number' ? day : day.weekday]);
+  }
+  // A daily rule with BYDAY ("every weekday") is not something the builder writes either.
+  if (options.freq === RRule.DAILY && byDay.length > 0) return null;
   const [startDate, startTime] = input.start.split('T');
   const out: RecurrenceForm = {
-    freq: 'WEEKLY', byDay: [], interval: 1, startDate, startTime, timeZone: input.timeZone, endKind: 'never', count: Number.NaN, untilDate: '',
+    freq: options.freq === RRule.DAILY ? 'DAILY' : 'WEEKLY',
+    byDay,
+    interval,
+    startDate,
+    startTime,
+    timeZone: input.timeZone,
+    endKind: 'never',
+    count: Number.NaN,
+    untilDate: '',
   };
-  for (const part of input.rule.split(';')) {
-    const [key, value = ''] = part.split('=');
-    switch (key) {
-      case 'FREQ':
-        if (value !== 'DAILY' && value !== 'WEEKLY') return null;
-        out.freq = value;
-        break;
-      case 'INTERVAL':
-        if (!/^\d+$/.test(value) || Number(value) < 1 || Number(value) > MAX_INTERVAL) return null;
-        out.interval = Number(value);
-        break;
-      case 'BYDAY': {
-        const days = value.split(',');
-        if (!days.every((d): d is Weekday => (WEEKDAYS as readonly string[]).includes(d))) return null;
-        out.byDay = days;
-        break;
-      }
-      case 'COUNT':
-        if (!/^\d+$/.test(value) || Number(value) < 1 || Number(value) > MAX_COUNT) return null;
-        out.endKind = 'count';
-        out.count = Number(value);
-        break;
-      case 'UNTIL': {
-        const m = /^(\d{4})(\d{2})(\d{2})(T\d{6}Z?)?$/.exec(value);
-        if (!m) return null;
-        out.endKind = 'until';
-        out.untilDate = `${m[1]}-${m[2]}-${m[3]}`;
-        break;
-      }
-      case 'WKST':
-        if (value !== 'MO') return null;
-        break;
-      default:
-        return null;
-    }
+  if (options.count !== undefined && options.count !== null) {
+    if (!Number.isInteger(options.count) || options.count < 1 || options.count > MAX_COUNT) return null;
+    out.endKind = 'count';
+    out.count = options.count;
   }
-  // A daily rule with BYDAY ("every weekday") is not something the builder writes.
-  if (out.freq === 'DAILY' && out.byDay.length > 0) return null;
+  if (options.until) {
+    out.endKind = 'until';
+    out.untilDate = options.until.toISOString().slice(0, 10);
+  }
   return out;
 }
 

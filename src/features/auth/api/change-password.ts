@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
-import { meQueryOptions } from './get-me';
+import { meQueryOptions } from '../../../api/me';
 
 /**
  * `POST /api/auth/change-password` (the auth library's route): the server ends every other

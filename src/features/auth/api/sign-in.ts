@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
-import { meQueryOptions } from './get-me';
+import { meQueryOptions } from '../../../api/me';
 
 export function signIn(input: { email: string; password: string }) {
   return api<unknown>('/api/auth/sign-in/email', { method: 'POST', json: input });

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { PASSWORD_MIN_LENGTH, passwordProblem } from '../../../../shared/auth/password-rules';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader } from '../../../components/ui';
-import { useMe } from '../api/get-me';
+import { useMe } from '../../../api/me';
 import { useChangePassword } from '../api/change-password';
 
 export function AccountPage() {

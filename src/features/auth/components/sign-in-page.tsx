@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { Button, ErrorNotice, FieldShell, Input } from '../../../components/ui';
-import { useMe } from '../api/get-me';
+import { useMe } from '../../../api/me';
 import { useSignIn } from '../api/sign-in';
 import { Caution } from '../../../components/caution';
 import { Logo } from '../../../components/logo';
@@ -40,7 +40,7 @@ export function SignInPage() {
         <form
           className="flex flex-col gap-4 rounded-[var(--radius-card)] bg-surface p-6 text-ink shadow-xl"
           onSubmit={form.handleSubmit((values) =>
-            signIn.mutate(values, { onSuccess: () => navigate(from, { replace: true }) }),
+            signIn.mutate(values, { onSuccess: () => void navigate(from, { replace: true }) }),
           )}
           noValidate
         >

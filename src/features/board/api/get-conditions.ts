@@ -21,7 +21,7 @@ export const conditionsBaseKey = (projectId: string) => ['projects', projectId, 
 export const conditionsQueryOptions = (p: ConditionsParams) =>
   queryOptions({
     queryKey: [...conditionsBaseKey(p.projectId), p.siteId, { datasetId: p.datasetId ?? null }],
-    queryFn: () => getConditions(p),
+    queryFn: () => getConditions({ projectId: p.projectId, siteId: p.siteId, datasetId: p.datasetId }),
   });
 
 export const useConditions = (p: ConditionsParams) => useQuery(conditionsQueryOptions(p));

@@ -31,7 +31,7 @@ export const hourChainQueryOptions = (p: HourChainParams) =>
   queryOptions({
     // Under the plan's key: a new forecast invalidates the chains with the plans.
     queryKey: [...planBaseKey(p.projectId), 'chain', { operationId: p.operationId, siteId: p.siteId, time: p.time, alpha: p.alpha, datasetId: p.datasetId ?? null }],
-    queryFn: () => getHourChain(p),
+    queryFn: () => getHourChain({ projectId: p.projectId, operationId: p.operationId, siteId: p.siteId, time: p.time, alpha: p.alpha, datasetId: p.datasetId }),
     staleTime: 5 * 60_000,
   });
 

@@ -23,7 +23,7 @@ export const planBaseKey = (projectId: string) => ['projects', projectId, 'plan'
 export const planQueryOptions = (p: PlanParams) =>
   queryOptions({
     queryKey: [...planBaseKey(p.projectId), { datasetId: p.datasetId ?? null, alpha: p.alpha }],
-    queryFn: () => getPlan(p),
+    queryFn: () => getPlan({ projectId: p.projectId, datasetId: p.datasetId, alpha: p.alpha }),
     // "May start now" moves with the clock: a watch board refreshes itself.
     refetchInterval: 5 * 60_000,
   });

@@ -3,10 +3,11 @@
 // hand-made offsets: days are the worksite's calendar days, and a daylight-saving change shows up
 // as a repeated or missing hour label.
 import { format } from 'date-fns';
-import { tz, tzName } from '@date-fns/tz';
-import { DATE_STYLE, formatInstant } from '../../../../shared/dates';
+import { tz } from '@date-fns/tz';
+import { formatInstant } from '../../../../shared/dates';
 import type { HourStatus, LimitCheck } from '../../../../shared/api-types-plan';
 import { TRANSFORM_FLAG } from '../../../../shared/waves/transform';
+import { fixedWithUnit, formatAt, zoneShort } from '../../../lib/format';
 
 /** The status code of the board: our own colours, a letter and a pattern for each status. */
 export const STATUS_META: Record<HourStatus, { word: string; letter: string; cell: string; explain: string }> = {
@@ -55,21 +56,8 @@ export function limitWord(name: string | null | undefined): string | null {
 }
 
 /** An instant as text in a time zone, e.g. 'Tue 3 Dec 14:00' (date-fns pattern). */
-export function formatIn(instant: string | number | Date, zone: string, pattern: string = DATE_STYLE.dateTime): string {
-  const d = instant instanceof Date ? instant : new Date(instant);
-  if (Number.isNaN(d.getTime())) return '–';
-  return format(d, pattern, { in: tz(zone) });
-}
-
-/** The short name of the zone at that instant, e.g. 'GMT' or 'GMT+1' for Europe/London. */
-export function zoneShort(instant: string | number | Date, zone: string): string {
-  const d = instant instanceof Date ? instant : new Date(instant);
-  try {
-    return tzName(zone, d, 'short');
-  } catch {
-    return zone;
-  }
-}
+export const formatIn = formatAt;
+export { zoneShort };
 
 /** Calendar day key of an instant in a zone ('yyyy-MM-dd'). */
 export const dayKey = (ms: number, zone: string) => format(ms, 'yyyy-MM-dd', { in: tz(zone) });
@@ -98,10 +86,7 @@ export function relativeTime(instantMs: number, nowMs: number): string {
 }
 
 /** A number with its unit, or '–' when missing. */
-export function fmt(x: number | null | undefined, decimals: number, unit = ''): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return '–';
-  return unit ? `${x.toFixed(decimals)} ${unit}` : x.toFixed(decimals);
-}
+export const fmt = fixedWithUnit;
 
 /** Hours as words: '31 h', or '3 days 4 h' from 72 h on. */
 export function formatHours(h: number): string {

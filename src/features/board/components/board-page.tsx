@@ -6,7 +6,7 @@ import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import type { PlanAnswer } from '../../../../shared/api-types-plan';
 import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
-import { useFetchForecast } from '../api/fetch-forecast';
+import { useFetchForecast } from '../../../api/forecasts';
 import { usePlan } from '../api/get-plan';
 import { useViewer } from '../api/get-viewer';
 import { BoardControls, HOUR_WIDTH_PX, type BoardFilters, type HourWidth } from './board-controls';

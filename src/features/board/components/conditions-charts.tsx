@@ -4,14 +4,16 @@
 // axis of UTC milliseconds whose ticks sit on the worksite's midnights (found with @date-fns/tz)
 // and are labelled in its zone. Loaded lazily: the chart library is large. The sea is drawn in
 // teal and slate; the numbered operation colours are kept for limits only.
-import { createContext, useContext, useEffect, useMemo, useRef, useState } from 'react';
+import { createContext, useContext, useMemo } from 'react';
 import { ResponsiveLine, type LineCustomSvgLayerProps, type SliceTooltipProps } from '@nivo/line';
 import type { CartesianMarkerProps } from '@nivo/core';
 import { addDays, startOfDay } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
 import { fmt, formatIn, zoneShort } from './board-format';
-import { operationColour, useDarkMode } from './operation-colours';
+import { useIsDark } from '../../../lib/use-is-dark';
+import { operationColour } from './operation-colours';
+import { useWidth } from '../../../lib/use-width';
 
 /** An operation at the worksite with the limits the charts draw, numbered for the key. */
 export interface ChartOperation {
@@ -37,19 +39,6 @@ export interface ConditionsChartsProps {
 
 type Pt = { x: number; y: number | null };
 type Series = { id: string; data: Pt[] };
-
-function useWidth<T extends HTMLElement>() {
-  const ref = useRef<T>(null);
-  const [width, setWidth] = useState(0);
-  useEffect(() => {
-    const el = ref.current;
-    if (!el) return;
-    const ro = new ResizeObserver((entries) => setWidth(entries[0].contentRect.width));
-    ro.observe(el);
-    return () => ro.disconnect();
-  }, []);
-  return [ref, width] as const;
-}
 
 /** Midnights of the worksite's days from `fromMs` to `toMs`, every `stepDays` days, UTC ms. */
 function localMidnights(fromMs: number, toMs: number, zone: string, stepDays: number): number[] {
@@ -99,7 +88,7 @@ interface PanelSpec {
 }
 
 export default function ConditionsCharts({ conditions, operations, nowMs }: ConditionsChartsProps) {
-  const dark = useDarkMode();
+  const dark = useIsDark();
   const [ref, width] = useWidth<HTMLDivElement>();
   const zone = conditions.timeZone;
   const timesMs = useMemo(() => conditions.times.map((t) => Date.parse(t)), [conditions.times]);

@@ -8,12 +8,13 @@ import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
 import { TRANSFORM_FLAG } from '../../../../shared/waves/transform';
 import { Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { useConditions } from '../api/get-conditions';
-import { useOperations } from '../api/get-operations';
+import { useOperations } from '../../../api/operations';
 import { usePlan } from '../api/get-plan';
-import { useSites } from '../api/get-sites';
+import { useSites } from '../../../api/sites';
 import { fmt, formatIn, relativeTime, zoneShort } from './board-format';
 import type { ChartOperation } from './conditions-charts';
-import { operationColour, useDarkMode } from './operation-colours';
+import { useIsDark } from '../../../lib/use-is-dark';
+import { operationColour } from './operation-colours';
 
 const ConditionsCharts = lazy(() => import('./conditions-charts'));
 
@@ -67,7 +68,7 @@ export function ConditionsPage() {
 
   const zone = c?.timeZone ?? site?.timeZone ?? 'UTC';
   const dataset = plan.data?.dataset ?? null;
-  const dark = useDarkMode();
+  const dark = useIsDark();
 
   return (
     <div>

@@ -1,6 +1,5 @@
 // Colours of the operations' limit lines on the conditions charts, and the dark-mode switch they
 // follow. Outside the lazily loaded chart module so the key beside the charts can use them too.
-import { useSyncExternalStore } from 'react';
 
 /** Light and dark colour of each numbered operation; the number is always written beside it. */
 export const OPERATION_COLOURS: [string, string][] = [
@@ -14,14 +13,3 @@ export const OPERATION_COLOURS: [string, string][] = [
 
 export const operationColour = (n: number, dark: boolean) => OPERATION_COLOURS[(n - 1) % OPERATION_COLOURS.length][dark ? 1 : 0];
 
-function subscribeDark(onChange: () => void) {
-  const mo = new MutationObserver(onChange);
-  mo.observe(document.documentElement, { attributes: true, attributeFilter: ['class'] });
-  return () => mo.disconnect();
-}
-const isDark = () => document.documentElement.classList.contains('dark');
-
-/** Follows the `.dark` class on the root element. */
-export function useDarkMode(): boolean {
-  return useSyncExternalStore(subscribeDark, isDark, () => false);
-}

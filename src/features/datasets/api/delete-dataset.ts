@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
-import { datasetsQueryOptions } from './get-datasets';
+import { datasetsQueryOptions } from '../../../api/datasets';
 
 /** `DELETE /api/projects/:projectId/datasets/:datasetId` (coordinators and admins). */
 export const deleteDataset = (projectId: string, datasetId: string) =>

@@ -42,7 +42,7 @@ export async function getDatasetRecords(projectId: string, datasetId: string, ra
 export const datasetRecordsQueryOptions = (projectId: string, datasetId: string, range: RecordsRange) =>
   queryOptions({
     queryKey: ['projects', projectId, 'datasets', { id: datasetId }, 'records', { from: range.from ?? null, to: range.to ?? null }],
-    queryFn: () => getDatasetRecords(projectId, datasetId, range),
+    queryFn: () => getDatasetRecords(projectId, datasetId, { from: range.from, to: range.to }),
     // Records of a stored dataset never change; keep showing the previous range while the next loads.
     staleTime: Infinity,
     placeholderData: keepPreviousData,

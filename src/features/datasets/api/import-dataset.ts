@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ImportAnswer } from '../../../../shared/api-types-datasets';
 import { ApiError, type FieldProblem } from '../../../lib/api';
-import { datasetsQueryOptions } from './get-datasets';
+import { datasetsQueryOptions } from '../../../api/datasets';
 
 /** Largest upload the server takes, bytes (100 MiB; the server answers 413 above it). */
 export const MAX_UPLOAD_BYTES = 100 * 1024 * 1024;

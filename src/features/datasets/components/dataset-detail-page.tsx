@@ -6,7 +6,7 @@ import type { DatasetDetail } from '../../../../shared/api-types-datasets';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { datasetCsvUrl, useDataset } from '../api/get-dataset';
 import { useDeleteDataset } from '../api/delete-dataset';
-import { useProjectAccess } from '../api/get-project-access';
+import { useProjectAccess } from '../../../api/projects';
 import { ImportReportCard } from './import-report';
 import { KindBadge } from './kind-badge';
 import { MonthlyTable } from './monthly-table';
@@ -186,7 +186,7 @@ function DeleteCard({ projectId, d }: { projectId: string; d: DatasetDetail }) {
           onSubmit={(e) => {
             e.preventDefault();
             if (!matches) return;
-            del.mutate(d.id, { onSuccess: () => navigate(`/projects/${projectId}/sea-data`, { replace: true, state: { deleted: d.name } }) });
+            del.mutate(d.id, { onSuccess: () => void navigate(`/projects/${projectId}/sea-data`, { replace: true, state: { deleted: d.name } }) });
           }}
         >
           <FieldShell label={`Type the name “${d.name}” to confirm`} htmlFor="confirm-name">

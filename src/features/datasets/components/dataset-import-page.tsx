@@ -25,7 +25,7 @@ import {
 import type { ProjectDetail } from '../../../../shared/api-types';
 import { ApiError } from '../../../lib/api';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
-import { useProjectAccess } from '../api/get-project-access';
+import { useProjectAccess } from '../../../api/projects';
 import { MAX_UPLOAD_BYTES, useImportDataset, type ImportFields, type UploadProgress } from '../api/import-dataset';
 import { CsvOptions, CsvPreviewTable, type CsvOptionsValues } from './csv-options';
 import { formatBytes, formatDepth, KIND_LABELS } from './format';
@@ -53,7 +53,7 @@ export function DatasetImportPage() {
   const { projectId = '' } = useParams();
   const project = useProjectAccess(projectId);
   if (project.isPending) return <Spinner />;
-  if (project.error) return <ErrorNotice error={project.error} />;
+  if (project.error || !project.data) return <ErrorNotice error={project.error} />;
   if (!project.canEdit) {
     return (
       <Card>
@@ -317,7 +317,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       { file, fields, onProgress: setProgress, signal: controller.signal },
       {
         onSuccess: (answer) =>
-          navigate(`/projects/${project.id}/sea-data/${answer.id}`, { state: { imported: { records: answer.records, skipped: answer.skipped, warning: answer.warning } } }),
+          void navigate(`/projects/${project.id}/sea-data/${answer.id}`, { state: { imported: { records: answer.records, skipped: answer.skipped, warning: answer.warning } } }),
         onError: (err) => {
           if (err instanceof DOMException && err.name === 'AbortError') setCancelled(true);
         },

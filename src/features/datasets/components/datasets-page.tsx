@@ -1,9 +1,9 @@
 import { Link, useLocation, useParams } from 'react-router-dom';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
-import { useDatasets } from '../api/get-datasets';
-import { useFetchLatestForecast } from '../api/fetch-forecast';
-import { useProjectAccess } from '../api/get-project-access';
+import { useDatasets } from '../../../api/datasets';
+import { useFetchForecast } from '../../../api/forecasts';
+import { useProjectAccess } from '../../../api/projects';
 import { useSetDefaultHindcast } from '../api/set-default-hindcast';
 import { KindBadge } from './kind-badge';
 import { describeSource, formatCount, formatDepth, formatShare, formatStep, formatUtc, formatUtcDay } from './format';
@@ -27,7 +27,7 @@ export function DatasetsPage() {
   const deletedName = (location.state as { deleted?: string } | null)?.deleted;
   const project = useProjectAccess(projectId);
   const datasets = useDatasets(projectId);
-  const fetchForecast = useFetchLatestForecast(projectId);
+  const fetchForecast = useFetchForecast(projectId);
   const canEdit = project.canEdit;
 
   const actions = canEdit ? (

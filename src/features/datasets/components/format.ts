@@ -1,18 +1,12 @@
 // Words and numbers of the sea-data pages. Every time shown here is UTC, the time base of stored
 // records; zone handling goes through @date-fns/tz, never through hand-made offsets.
-import { format } from 'date-fns';
-import { tz } from '@date-fns/tz';
 import { DATE_STYLE } from '../../../../shared/dates';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
+import { formatAt, formatPosition } from '../../../lib/format';
 
-const UTC = tz('UTC');
 
 /** A UTC instant as text, e.g. '3 Feb 2017 14:00' (date-fns pattern, read in UTC). */
-export function formatUtc(instant: string | number | Date, pattern: string = DATE_STYLE.dateHour): string {
-  const d = instant instanceof Date ? instant : new Date(instant);
-  if (Number.isNaN(d.getTime())) return '–';
-  return format(d, pattern, { in: UTC });
-}
+export const formatUtc = (instant: string | number | Date, pattern: string = DATE_STYLE.dateHour): string => formatAt(instant, 'UTC', pattern);
 
 /** A UTC calendar day, e.g. '3 Feb 2017'. */
 export const formatUtcDay = (instant: string | number | Date) => formatUtc(instant, DATE_STYLE.date);
@@ -50,11 +44,7 @@ export function formatStep(minutes: number): string {
 }
 
 /** A position in degrees as '36.606° N, 74.840° W'. */
-export function formatPosition(latitudeDeg: number, longitudeDeg: number): string {
-  const lat = `${Math.abs(latitudeDeg).toFixed(3)}° ${latitudeDeg < 0 ? 'S' : 'N'}`;
-  const lon = `${Math.abs(longitudeDeg).toFixed(3)}° ${longitudeDeg < 0 ? 'W' : 'E'}`;
-  return `${lat}, ${lon}`;
-}
+export { formatPosition };
 
 /** Data-point water depth: '42 m' or 'deep water' (null depth is stored as deep). */
 export const formatDepth = (depthM: number | null) => (depthM === null ? 'deep water' : `${depthM} m`);

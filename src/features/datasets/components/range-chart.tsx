@@ -1,10 +1,11 @@
-import { lazy, Suspense, useEffect, useState } from 'react';
+import { lazy, Suspense } from 'react';
 import { sub } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { DatasetDetail } from '../../../../shared/api-types-datasets';
 import { Button, ErrorNotice, Spinner } from '../../../components/ui';
 import { useDatasetRecords, type RecordsRange } from '../api/get-dataset-records';
 import { formatUtc, parseUtcDateInput, utcDateInput } from './format';
+import { useDebounce } from 'use-debounce';
 
 // The chart library is large: load it only when a chart is shown.
 const SeriesChart = lazy(() => import('./series-chart'));
@@ -24,16 +25,6 @@ const PRESETS: { label: string; duration: Duration | null }[] = [
 ];
 
 type Duration = { years?: number; months?: number; weeks?: number };
-
-/** The value after `ms` of quiet, for controls that change on every pixel (the scrub slider). */
-function useDebounced<T>(value: T, ms: number): T {
-  const [settled, setSettled] = useState(value);
-  useEffect(() => {
-    const t = setTimeout(() => setSettled(value), ms);
-    return () => clearTimeout(t);
-  }, [value, ms]);
-  return settled;
-}
 
 const clamp = (x: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, x));
 
@@ -66,7 +57,8 @@ export function RangeChart({
   const current = view ?? { fromMs: startMs, toMs: endMs };
   const lengthMs = current.toMs - current.fromMs;
 
-  const settled = useDebounced(view, 250);
+  // The value after 250 ms of quiet: the scrub slider changes on every pixel.
+  const [settled] = useDebounce(view, 250);
   const range: RecordsRange = settled ? { from: new Date(settled.fromMs).toISOString(), to: new Date(settled.toMs).toISOString() } : {};
   const records = useDatasetRecords(projectId, dataset.id, range);
   const shown = records.data;

@@ -1,10 +1,12 @@
 // The time-series chart of a dataset: Hs, Tp and wind in three stacked panels sharing one time
 // axis. Loaded lazily (the chart library is large); see dataset-detail-page.tsx.
-import { createContext, useContext, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react';
+import { createContext, useContext, useMemo } from 'react';
 import { ResponsiveLine, type PointTooltipProps } from '@nivo/line';
 import type { SeriesColumns } from '../api/get-dataset-records';
 import { maxPerBucket, type ChartPoint } from './downsample';
 import { formatStep, formatUtc } from './format';
+import { useIsDark } from '../../../lib/use-is-dark';
+import { useWidth } from '../../../lib/use-width';
 
 /** Points per panel at most (3 panels, so at most about 1 800 points drawn). */
 const MAX_POINTS = 600;
@@ -18,31 +20,6 @@ const PANELS: { key: PanelKey; title: string; unit: string; decimals: number; li
   { key: 'wind', title: 'Wind speed at 10 m', unit: 'm/s', decimals: 1, light: '#a3612a', dark: '#f0b070', area: false },
 ];
 
-function subscribeDark(onChange: () => void) {
-  const mo = new MutationObserver(onChange);
-  mo.observe(document.documentElement, { attributes: true, attributeFilter: ['class'] });
-  return () => mo.disconnect();
-}
-const isDark = () => document.documentElement.classList.contains('dark');
-
-/** Follows the `.dark` class on the root element. */
-function useDarkMode(): boolean {
-  return useSyncExternalStore(subscribeDark, isDark, () => false);
-}
-
-/** Width of an element in px, kept up to date. */
-function useWidth<T extends HTMLElement>() {
-  const ref = useRef<T>(null);
-  const [width, setWidth] = useState(0);
-  useEffect(() => {
-    const el = ref.current;
-    if (!el) return;
-    const ro = new ResizeObserver((entries) => setWidth(entries[0].contentRect.width));
-    ro.observe(el);
-    return () => ro.disconnect();
-  }, []);
-  return [ref, width] as const;
-}
 
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
@@ -99,7 +76,7 @@ export interface SeriesChartProps {
 
 /** Hs (m), Tp (s) and wind (m/s) over the range, thinned to the highest value per interval. */
 export default function SeriesChart({ columns, fromMs, toMs, stepMinutes }: SeriesChartProps) {
-  const dark = useDarkMode();
+  const dark = useIsDark();
   const [ref, width] = useWidth<HTMLDivElement>();
   const span = Math.max(toMs - fromMs, 1);
 

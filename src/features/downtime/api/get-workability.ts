@@ -14,7 +14,7 @@ export const getWorkability = (projectId: string, p: WorkabilityParams) =>
 export const workabilityQueryOptions = (projectId: string, p: WorkabilityParams) =>
   queryOptions({
     queryKey: ['projects', projectId, 'workability', { datasetId: p.datasetId, alpha: p.alpha }],
-    queryFn: () => getWorkability(projectId, p),
+    queryFn: () => getWorkability(projectId, { datasetId: p.datasetId, alpha: p.alpha }),
     staleTime: 5 * 60_000,
   });
 

@@ -21,7 +21,7 @@ export const simulateCampaign = (projectId: string, p: SimulationParams) =>
 export const simulationQueryOptions = (projectId: string, p: SimulationParams) =>
   queryOptions({
     queryKey: [...campaignsQueryOptions(projectId).queryKey, p.campaignId, 'simulation', { datasetId: p.datasetId, alpha: p.alpha }],
-    queryFn: () => simulateCampaign(projectId, p),
+    queryFn: () => simulateCampaign(projectId, { campaignId: p.campaignId, datasetId: p.datasetId, alpha: p.alpha }),
     staleTime: 5 * 60_000,
   });
 

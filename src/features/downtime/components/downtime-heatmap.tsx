@@ -2,6 +2,7 @@
 // large (see downtime-page.tsx). Every cell shows its value as text, so nothing depends on colour.
 import { useSyncExternalStore } from 'react';
 import { ResponsiveHeatMap, type ComputedCell } from '@nivo/heatmap';
+import { useIsDark } from '../../../lib/use-is-dark';
 
 export interface HeatRow {
   /** Row label shown on the left (unique). */
@@ -16,17 +17,6 @@ function subscribeNarrow(onChange: () => void) {
 }
 const isNarrow = () => window.matchMedia('(max-width: 640px)').matches;
 
-function subscribeDark(onChange: () => void) {
-  const mo = new MutationObserver(onChange);
-  mo.observe(document.documentElement, { attributes: true, attributeFilter: ['class'] });
-  return () => mo.disconnect();
-}
-const isDark = () => document.documentElement.classList.contains('dark');
-
-/** Follows the `.dark` class on the root element. */
-function useDarkMode(): boolean {
-  return useSyncExternalStore(subscribeDark, isDark, () => false);
-}
 
 type Rgb = [number, number, number];
 const hex = (h: string): Rgb => [parseInt(h.slice(1, 3), 16), parseInt(h.slice(3, 5), 16), parseInt(h.slice(5, 7), 16)];
@@ -140,7 +130,7 @@ function HeatTable({ rows, label, stops, className }: { rows: HeatRow[]; label: 
  * numbers as a table; both carry the colour key.
  */
 export default function DowntimeHeatmap({ rows, label, labelWidth }: { rows: HeatRow[]; label: string; labelWidth?: number }) {
-  const dark = useDarkMode();
+  const dark = useIsDark();
   // Phones: a table whose row labels wrap and stay in view while the months scroll sideways.
   const narrow = useSyncExternalStore(subscribeNarrow, isNarrow, () => false);
   const left = labelWidth ?? 270;

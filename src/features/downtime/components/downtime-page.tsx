@@ -5,10 +5,10 @@
 // The choices live in the address (?dataset=&alpha=off&campaign=&month=) so a view can be shared.
 import { useParams, useSearchParams } from 'react-router-dom';
 import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner, Term } from '../../../components/ui';
-import { useDowntimeAccess } from '../api/get-project-role';
-import { useHindcasts } from '../api/get-datasets';
-import { useOperations } from '../api/get-operations';
-import { useSites } from '../api/get-sites';
+import { useProjectAccess } from '../../../api/projects';
+import { useStatisticsDatasets } from '../../../api/datasets';
+import { useOperations } from '../../../api/operations';
+import { useSites } from '../../../api/sites';
 import { useWorkability } from '../api/get-workability';
 import { useLedger } from '../api/get-ledger';
 import { CampaignSection } from './campaign-section';
@@ -50,8 +50,8 @@ function AlphaSwitch({ on, onToggle }: { on: boolean; onToggle: () => void }) {
 export function DowntimePage() {
   const { projectId = '' } = useParams();
   const [params, setParams] = useSearchParams();
-  const access = useDowntimeAccess(projectId);
-  const hindcasts = useHindcasts(projectId);
+  const access = useProjectAccess(projectId);
+  const hindcasts = useStatisticsDatasets(projectId);
   const operations = useOperations(projectId);
   const sites = useSites(projectId);
 
@@ -80,7 +80,7 @@ export function DowntimePage() {
     );
 
   if (access.isPending || hindcasts.isPending) return <Spinner label="Opening the downtime schedule" />;
-  if (access.error) return <ErrorNotice error={access.error} />;
+  if (access.error || !access.data) return <ErrorNotice error={access.error} />;
   const project = access.data;
   const ledgerSources = [...new Set((ledger.data ?? []).map((r) => `${r.datasetName ?? 'a removed dataset'} (${r.source})`))];
 

@@ -2,8 +2,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ProjectDetail, ProjectSummary } from '../../../../shared/api-types';
 import type { CreateProjectInput, ProjectSettingsInput } from '../../../../shared/schemas/projects';
 import { api } from '../../../lib/api';
-import { projectQueryOptions, projectsQueryOptions } from './get-projects';
-import { meQueryOptions } from '../../auth/api/get-me';
+import { projectQueryOptions, projectsQueryOptions } from '../../../api/projects';
+import { meQueryOptions } from '../../../api/me';
 
 export function useCreateProject() {
   const qc = useQueryClient();

@@ -14,7 +14,7 @@ export default function CreateProjectCard({ onDone }: { onDone: () => void }) {
     <Card className="mb-5">
       <form
         className="grid gap-4"
-        onSubmit={form.handleSubmit((v) => create.mutate(v, { onSuccess: (p) => navigate(`/projects/${p.id}/settings`) }))}
+        onSubmit={form.handleSubmit((v) => create.mutate(v, { onSuccess: (p) => void navigate(`/projects/${p.id}/settings`) }))}
       >
         <FieldShell label="Project name" htmlFor="project-name" error={form.formState.errors.name?.message}>
           <Input id="project-name" {...form.register('name')} invalid={!!form.formState.errors.name} />

@@ -1,6 +1,6 @@
 import { useParams } from 'react-router-dom';
 import { Card, ErrorNotice, Spinner } from '../../../components/ui';
-import { useProject } from '../api/get-projects';
+import { useProject } from '../../../api/projects';
 
 export function ProjectOverviewPage() {
   const { projectId = '' } = useParams();

@@ -5,7 +5,7 @@ import { z } from 'zod';
 import { ProjectSettingsInput } from '../../../../shared/schemas/projects';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner, TextArea } from '../../../components/ui';
-import { useProject } from '../api/get-projects';
+import { useProject } from '../../../api/projects';
 import { useUpdateProjectSettings } from '../api/mutations';
 
 // Form values are text; they are turned into the shared schema's numbers on submit.

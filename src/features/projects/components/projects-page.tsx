@@ -1,8 +1,8 @@
 import { lazy, Suspense, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button, Card, ErrorNotice, PageHeader, Spinner } from '../../../components/ui';
-import { useMe } from '../../auth/api/get-me';
-import { useProjects } from '../api/get-projects';
+import { useMe } from '../../../api/me';
+import { useProjects } from '../../../api/projects';
 import { RoleBadge } from './role-badge';
 
 // The form (with its schema library) is loaded when "New project" is pressed: the projects list

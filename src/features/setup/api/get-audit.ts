@@ -20,7 +20,7 @@ export const getAudit = (projectId: string, { entity, limit }: AuditFilter) => {
 export const auditQueryOptions = (projectId: string, filter: AuditFilter) =>
   queryOptions({
     queryKey: ['projects', projectId, 'audit', { entity: filter.entity ?? null, limit: filter.limit }],
-    queryFn: () => getAudit(projectId, filter),
+    queryFn: () => getAudit(projectId, { entity: filter.entity, limit: filter.limit }),
     placeholderData: keepPreviousData,
   });
 

@@ -26,9 +26,11 @@ export const previewImport = (projectId: string, doc: ProjectSetupDocument, r: I
   api<ImportPreviewResponse>(`/api/projects/${projectId}/import/preview?${query(r)}`, { method: 'POST', json: doc });
 
 export const importPreviewQueryOptions = (projectId: string, doc: ProjectSetupDocument | null, fileKey: string, r: ImportRequest) =>
+  // The chosen file is in the key as `fileKey`, not as its whole parsed document.
+  // eslint-disable-next-line @tanstack/query/exhaustive-deps
   queryOptions({
     queryKey: ['projects', projectId, 'import-preview', fileKey, r.mode, r.alphaTable, r.dataPoint],
-    queryFn: () => previewImport(projectId, doc!, r),
+    queryFn: () => previewImport(projectId, doc!, { mode: r.mode, alphaTable: r.alphaTable, dataPoint: r.dataPoint }),
     enabled: doc !== null,
     staleTime: 0,
     gcTime: 0,

@@ -1,5 +1,5 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { projectRoleQueryOptions } from './get-project-role';
+import { projectQueryOptions } from '../../../api/projects';
 
 /**
  * After any change to worksites, operations, limits or the alpha table: everything cached under
@@ -8,5 +8,5 @@ import { projectRoleQueryOptions } from './get-project-role';
  * the others refetch when next shown.
  */
 export function invalidateProjectSetup(qc: QueryClient, projectId: string): Promise<void> {
-  return qc.invalidateQueries({ queryKey: projectRoleQueryOptions(projectId).queryKey });
+  return qc.invalidateQueries({ queryKey: projectQueryOptions(projectId).queryKey });
 }

@@ -1,10 +1,8 @@
 /** Display helpers for the setup pages: numbers without float noise, with their units. */
+import { formatPosition, trimmed } from '../../../lib/format';
 
 /** A number rounded to at most `decimals` places, trailing zeros dropped ("1.5", "16", "0.35"). */
-export function fmt(value: number, decimals = 2): string {
-  if (!Number.isFinite(value)) return '–';
-  return String(Number(value.toFixed(decimals)));
-}
+export const fmt = (value: number, decimals = 2): string => trimmed(value, decimals);
 
 /** A number with its unit, separated by a narrow no-break space ("1.5 m", "12 h"); degrees close up ("250°"). */
 export function withUnit(value: number | null | undefined, unit: string, decimals = 2): string {
@@ -18,8 +16,4 @@ export function range(from: number, to: number, unit: string, decimals = 2): str
 }
 
 /** A position as "52.4120° N, 5.3010° W". */
-export function position(latitude: number, longitude: number): string {
-  const lat = `${Math.abs(latitude).toFixed(4)}° ${latitude < 0 ? 'S' : 'N'}`;
-  const lon = `${Math.abs(longitude).toFixed(4)}° ${longitude < 0 ? 'W' : 'E'}`;
-  return `${lat}, ${lon}`;
-}
+export const position = (latitude: number, longitude: number): string => formatPosition(latitude, longitude, 4);

@@ -1,18 +1,11 @@
 import { useId } from 'react';
+import { tickStep, ticks } from 'd3-array';
 import { fmt } from './format';
 import { hsTpEnvelope, usableCurve, type EnvelopeLimits } from './hs-tp-envelope';
 
 const W = 420;
 const H = 260;
 const PAD = { left: 44, right: 12, top: 14, bottom: 38 };
-
-/** A step of 1, 2 or 5 × 10^k giving about `count` ticks over `span`. */
-function niceStep(span: number, count: number): number {
-  const raw = span / Math.max(1, count);
-  const mag = 10 ** Math.floor(Math.log10(raw));
-  const n = raw / mag;
-  return (n <= 1 ? 1 : n <= 2 ? 2 : n <= 5 ? 5 : 10) * mag;
-}
 
 /**
  * The operation's Hs–Tp envelope drawn beside the limit inputs: the workable area under
@@ -38,18 +31,16 @@ export function HsTpPlot({ limits, alphaAt }: { limits: EnvelopeLimits; alphaAt:
 
   const xEnd = Math.max(20, Math.ceil(((tps.length ? Math.max(...tps) : 0) + 2) / 5) * 5);
   const yTop = hss.length ? Math.max(...hss) * 1.3 : 3;
-  const yStep = niceStep(yTop, 5);
+  // Round steps (1, 2 or 5 × 10^k) by d3-array; the Hs axis ends on a whole step.
+  const yStep = tickStep(0, yTop, 5);
   const yEnd = Math.ceil(yTop / yStep) * yStep;
-  const xStep = niceStep(xEnd, 8);
 
   const sx = (tp: number) => PAD.left + (tp / xEnd) * (W - PAD.left - PAD.right);
   const sy = (hs: number) => H - PAD.bottom - (Math.min(hs, yEnd) / yEnd) * (H - PAD.top - PAD.bottom);
   const pieces = hasSomething ? hsTpEnvelope(limits, xEnd) : [];
 
-  const xTicks: number[] = [];
-  for (let x = 0; x <= xEnd + 1e-9; x += xStep) xTicks.push(x);
-  const yTicks: number[] = [];
-  for (let y = 0; y <= yEnd + 1e-9; y += yStep) yTicks.push(y);
+  const xTicks = ticks(0, xEnd, 8);
+  const yTicks = ticks(0, yEnd, Math.round(yEnd / yStep));
 
   const opwf: string[] = [];
   if (alphaAt) {

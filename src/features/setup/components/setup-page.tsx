@@ -1,7 +1,7 @@
 import { useEffect, useRef, type KeyboardEvent } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
-import { useSetupAccess } from '../api/get-project-role';
+import { useProjectAccess } from '../../../api/projects';
 import { AlphaPanel } from './alpha-panel';
 import { AuditPanel } from './audit-panel';
 import { ExchangePanel } from './exchange-panel';
@@ -28,7 +28,7 @@ const isTab = (v: string | null): v is SetupTab => SETUP_TABS.some((t) => t.id =
 export function SetupPage() {
   const { projectId = '' } = useParams();
   const [params, setParams] = useSearchParams();
-  const access = useSetupAccess(projectId);
+  const access = useProjectAccess(projectId);
   const tabRefs = useRef<(HTMLButtonElement | null)[]>([]);
   const raw = params.get('tab');
   const tab: SetupTab = isTab(raw) ? raw : 'worksites';

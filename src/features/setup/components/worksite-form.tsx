@@ -7,7 +7,7 @@ import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
 import { BREAKER_INDEX_RANGE, SITE_DEPTH_RANGE_M, WorksiteInput, type WorksiteFormValues } from '../../../../shared/schemas/sites';
 import { Button, ErrorNotice, FieldShell, Input, Select } from '../../../components/ui';
 import { useCreateSite } from '../api/create-site';
-import { useHindcasts } from '../api/get-hindcasts';
+import { useHindcasts } from '../../../api/datasets';
 import { useUpdateSite } from '../api/update-site';
 import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';

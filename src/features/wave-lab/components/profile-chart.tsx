@@ -3,8 +3,8 @@ import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries, type Sli
 import type { CartesianMarkerProps } from '@nivo/core';
 import type { PartialTheme } from '@nivo/theming';
 import type { WaveProfilePoint } from '../api/get-wave-profile';
-import { useIsDark } from '../hooks/use-is-dark';
-import { depthTicks } from '../utils/depth-ticks';
+import { useIsDark } from '../../../lib/use-is-dark';
+import { ticks as niceTicks } from 'd3-array';
 import { formatSig } from '../utils/format-number';
 
 interface ProfileSeries extends LineSeries {
@@ -151,7 +151,8 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
   // Room above still water level for its label, and below the bed for the seabed band.
   const span = -bottom;
   const yMin = reachesBed ? bottom - 0.08 * span : bottom;
-  const ticks = depthTicks(bottom);
+  // About five round depths from the bed up to the surface (d3-array).
+  const ticks = niceTicks(bottom, 0, 5);
   const id = `wl${useId().replace(/[^a-zA-Z0-9_-]/g, '')}`;
   const [velocityWater, pressureWater] = useMemo(() => {
     const c = { line: dark ? '#5fd0c1' : '#0b7a72', text: soft, bed: dark ? '#3a5a66' : '#b9c6c4' };

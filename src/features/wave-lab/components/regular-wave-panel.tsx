@@ -4,7 +4,7 @@ import type { DepthClass } from '../../../../shared/waves/regular-wave';
 import { Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
 import { useRegularWave, type RegularWaveAnswer } from '../api/get-regular-wave';
 import { useWaveProfile } from '../api/get-wave-profile';
-import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { useDebounce } from 'use-debounce';
 import { breakingCheck } from '../utils/breaking-check';
 import { formatSig } from '../utils/format-number';
 import { serverFieldErrors } from '../utils/server-field-errors';
@@ -34,7 +34,7 @@ const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
 
 /** Regular-wave mode: inputs, every linear-theory quantity with its unit, and u, w, Kp over depth. */
 export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; onChange: (fields: RegularFields) => void }) {
-  const debounced = useDebouncedValue(fields, TYPING_DEBOUNCE_MS);
+  const [debounced] = useDebounce(fields, TYPING_DEBOUNCE_MS);
   const check = useMemo(() => validateFields(RegularWaveQuery, debounced, REQUIRED), [debounced]);
   const wave = useRegularWave(check.data);
   const profile = useWaveProfile(check.data ? { period: check.data.period, height: check.data.height, depth: check.data.depth } : null);

@@ -2,7 +2,7 @@ import { useMemo, type ReactNode } from 'react';
 import { SeaStateQuery } from '../../../../shared/schemas/wave';
 import { Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { useSeaState, type SeaStateAnswer } from '../api/get-sea-state';
-import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { useDebounce } from 'use-debounce';
 import { formatSig } from '../utils/format-number';
 import { serverFieldErrors } from '../utils/server-field-errors';
 import { validateFields, type RawFields } from '../utils/validate-fields';
@@ -19,7 +19,7 @@ const REQUIRED = { hs: 'Enter the significant wave height', depth: 'Enter the wa
 
 /** Sea-state mode: Hs and any of Tp, Tz, Te; derived periods, energy, power and bed velocity by both methods. */
 export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; onChange: (fields: SeaStateFields) => void }) {
-  const debounced = useDebouncedValue(fields, TYPING_DEBOUNCE_MS);
+  const [debounced] = useDebounce(fields, TYPING_DEBOUNCE_MS);
   const check = useMemo(() => validateFields(SeaStateQuery, debounced, REQUIRED), [debounced]);
   const sea = useSeaState(check.data);
   const serverErrors = serverFieldErrors(sea.error);

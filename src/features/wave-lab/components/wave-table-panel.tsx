@@ -3,7 +3,7 @@ import { createColumnHelper, createSortedRowModel, rowSortingFeature, tableFeatu
 import { WaveTableQuery } from '../../../../shared/schemas/wave';
 import { Button, Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { useWaveTable, type WaveTableRow } from '../api/get-wave-table';
-import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { useDebounce } from 'use-debounce';
 import { formatSig } from '../utils/format-number';
 import { serverFieldErrors } from '../utils/server-field-errors';
 import { validateFields } from '../utils/validate-fields';
@@ -47,7 +47,7 @@ const columns = helper.columns(
 
 /** Wave-table mode: d/L0 range and step, a sortable table of the handbook columns, CSV download. Lazy-loaded. */
 export default function WaveTablePanel({ fields, onChange }: { fields: TableFields; onChange: (fields: TableFields) => void }) {
-  const debounced = useDebouncedValue(fields, TYPING_DEBOUNCE_MS);
+  const [debounced] = useDebounce(fields, TYPING_DEBOUNCE_MS);
   const check = useMemo(() => validateFields(WaveTableQuery, debounced, REQUIRED), [debounced]);
   const query = useWaveTable(check.data);
   const serverErrors = serverFieldErrors(query.error);
@@ -167,7 +167,7 @@ function WaveTable({ rows, typing, fetching, lastValid }: { rows: WaveTableRow[]
           1110-2-1100, Part II-1), by linear theory. Every column is dimensionless. Click a heading to sort.
         </p>
         <dl className="grid gap-x-4 gap-y-0.5 sm:grid-cols-2">
-          {COLUMN_TEXT.filter((c) => c.meaning).map((c) => (
+          {COLUMN_TEXT.filter((c) => Boolean(c.meaning)).map((c) => (
             <div key={c.key}>
               <dt className="inline font-serif font-semibold text-ink italic">{c.header}</dt>
               <dd className="inline">: {c.meaning}</dd>

@@ -1,0 +1,213 @@
+import crypto from 'node:crypto';
+import { and, desc, eq, gte, ne } from 'drizzle-orm';
+import { comparePlans, type PlanSummary } from '../../shared/alerts/compare-plans';
+import type { OperationSitePlan } from '../../shared/api-types-plan';
+import type { AppDeps } from '../deps';
+import { alert, planRun, project } from '../db/schema';
+import { fetchLatestForecast } from './forecasts';
+import { projectPlan } from './plans';
+import { recordCampaignOutlooks } from './campaign-outlook';
+import { covers, effectiveSubscriptions } from './subscriptions';
+import { alertEmail, type ChangeWithReason, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
+import { deliverDueMail, enqueueMail, type OutboxMessage } from './outbox';
+import type { Db } from '../db/client';
+
+export type JobTrigger = 'schedule' | 'manual' | 'cli';
+
+export interface ProjectJobResult {
+  projectId: string;
+  status: 'planned' | 'skipped' | 'failed';
+  reason?: string;
+  planRunId?: string;
+  datasetId?: string | null;
+  forecast?: { issuedAt: string; isNew: boolean } | null;
+  plans?: number;
+  alerts?: { kind: string; operationId: string; siteId: string; start: string | null }[];
+  queued?: number;
+}
+
+export interface JobResult {
+  startedAt: string;
+  projects: ProjectJobResult[];
+  mail: { due: number; sent: number; failed: number };
+}
+
+/** A stable 31-bit advisory-lock key per project. */
+export function projectLockKey(projectId: string): number {
+  return crypto.createHash('sha256').update(`plan:${projectId}`).digest().readInt32BE(0) & 0x7fffffff;
+}
+
+function summarise(p: OperationSitePlan): PlanSummary {
+  return {
+    operationId: p.operationId,
+    siteId: p.siteId,
+    operationName: p.operationName,
+    siteName: p.siteName,
+    timeZone: p.timeZone,
+    tr: p.tr,
+    windows: p.windows.map(({ start, end, hours }) => ({ start, end, hours })),
+    earliestStart: p.earliestStart,
+    startNow: p.startNow,
+    occurrences: p.occurrences,
+  };
+}
+
+/** The limit that decides most often over [start, end) of a plan (why a window was lost). */
+function dominantLimit(p: OperationSitePlan, start: string | null, end: string | null): string | null {
+  if (!start) return null;
+  const t0 = Date.parse(start);
+  const t1 = end ? Date.parse(end) : t0 + p.tr * 3_600_000;
+  const counts = new Map<string, number>();
+  p.times.forEach((t, i) => {
+    const ms = Date.parse(t);
+    const name = p.limiting[i];
+    if (ms >= t0 && ms < t1 && name && p.status[i] !== 'workable') counts.set(name, (counts.get(name) ?? 0) + 1);
+  });
+  let best: string | null = null;
+  for (const [k, v] of counts) if (!best || v > counts.get(best)!) best = k;
+  return best;
+}
+
+async function previousPlans(db: Db, projectId: string): Promise<PlanSummary[] | null> {
+  const [row] = await db
+    .select({ plans: planRun.plans })
+    .from(planRun)
+    .where(and(eq(planRun.projectId, projectId), eq(planRun.status, 'ok')))
+    .orderBy(desc(planRun.startedAt))
+    .limit(1);
+  return (row?.plans as PlanSummary[] | undefined) ?? null;
+}
+
+/**
+ * Plans one project: fetches the latest forecast (when the project uses the service), plans every
+ * operation at every worksite, compares with the last good plan, and writes the run, its alerts
+ * and the alert e-mails (outbox) in one transaction. A forecast-service failure fails the run
+ * and leaves the last plan and its forecast in place.
+ */
+async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger): Promise<ProjectJobResult> {
+  const { db, log } = deps;
+  const [p] = await db.select().from(project).where(eq(project.id, projectId));
+  if (!p) return { projectId, status: 'skipped', reason: 'project not found' };
+  const now = deps.clock();
+  const [run] = await db.insert(planRun).values({ projectId, trigger, status: 'running', startedAt: now }).returning({ id: planRun.id });
+  let forecast: ProjectJobResult['forecast'] = null;
+  try {
+    if (p.forecastSource === 'service') {
+      const fetched = await fetchLatestForecast(db, deps.forecast, projectId, null);
+      forecast = { issuedAt: fetched.issuedAt, isNew: fetched.isNew };
+    }
+    const plan = await projectPlan(db, projectId, { alpha: true, now });
+    if (!plan.dataset) {
+      await db.update(planRun).set({ status: 'failed', error: 'No forecast to plan on', finishedAt: new Date() }).where(eq(planRun.id, run.id));
+      return { projectId, status: 'failed', reason: 'No forecast to plan on', planRunId: run.id };
+    }
+    const summaries = plan.plans.map(summarise);
+    const changes: ChangeWithReason[] = comparePlans(await previousPlans(db, projectId), summaries, {
+      nowMs: now.getTime(),
+      earliestMoveHours: deps.config.earliestMoveAlertHours,
+    }).map((c) => {
+      const full = plan.plans.find((x) => x.operationId === c.operationId && x.siteId === c.siteId)!;
+      const needsReason = c.kind === 'window_lost' || c.kind === 'occurrence_no_go' || (c.kind === 'start_now_changed' && !c.startNow);
+      return { ...c, reason: needsReason ? dominantLimit(full, c.start ?? now.toISOString(), c.end) : null };
+    });
+
+    const subs = (await effectiveSubscriptions(db, projectId)).filter((s) => s.immediate);
+    const messages: OutboxMessage[] = [];
+    const bySite = new Map<string, ChangeWithReason[]>();
+    for (const c of changes) {
+      const k = `${c.operationId}|${c.siteId}`;
+      bySite.set(k, [...(bySite.get(k) ?? []), c]);
+    }
+    for (const [k, list] of bySite) {
+      const summary = summaries.find((s) => `${s.operationId}|${s.siteId}` === k)!;
+      for (const s of subs.filter((s) => covers(s, summary.operationId, summary.siteId))) {
+        const changeKeys = list.map((c) => c.key).sort().join(',');
+        const mail = alertEmail({
+          plan: summary,
+          changes: list,
+          projectName: p.name,
+          boardUrl: `${deps.config.baseUrl}/projects/${projectId}/board`,
+          // The signed link goes in when the e-mail is sent (server/services/outbox.ts).
+          unsubscribeUrl: UNSUBSCRIBE_LINK_MARK,
+        });
+        messages.push({
+          // (plan, recipient, change): the forecast planned on, the person, what changed.
+          idempotencyKey: `alert:${plan.dataset.id}:${s.userId}:${k}:${crypto.createHash('sha256').update(changeKeys).digest('hex').slice(0, 24)}`,
+          projectId,
+          userId: s.userId,
+          toEmail: s.email,
+          ...mail,
+        });
+      }
+    }
+
+    const queued = await db.transaction(async (tx) => {
+      if (changes.length > 0) {
+        await tx.insert(alert).values(
+          changes.map((c) => ({
+            projectId,
+            planRunId: run.id,
+            operationId: c.operationId,
+            siteId: c.siteId,
+            kind: c.kind,
+            changeKey: c.key,
+            message: summaries.find((s) => s.operationId === c.operationId && s.siteId === c.siteId)!.operationName,
+            details: c,
+          })),
+        );
+      }
+      const n = await enqueueMail(tx as unknown as Db, messages, now);
+      await tx.update(planRun).set({ status: 'ok', datasetId: plan.dataset!.id, plans: summaries, finishedAt: new Date() }).where(eq(planRun.id, run.id));
+      return n;
+    });
+    await recordCampaignOutlooks(deps, projectId, run.id, now); // campaign outlook history and its alerts (never fails the run)
+    log.info(`Planned ${p.name}: ${summaries.length} plans, ${changes.length} changes, ${queued} e-mails queued`);
+    return {
+      projectId,
+      status: 'planned',
+      planRunId: run.id,
+      datasetId: plan.dataset.id,
+      forecast,
+      plans: summaries.length,
+      alerts: changes.map((c) => ({ kind: c.kind, operationId: c.operationId, siteId: c.siteId, start: c.start })),
+      queued,
+    };
+  } catch (err) {
+    const message = err instanceof Error ? err.message : String(err);
+    log.warn(`Planning ${p.name} failed; the last plan is kept and the next tick retries`, { error: message });
+    await db.update(planRun).set({ status: 'failed', error: message.slice(0, 1000), finishedAt: new Date() }).where(eq(planRun.id, run.id));
+    return { projectId, status: 'failed', reason: message, planRunId: run.id, forecast };
+  }
+}
+
+/**
+ * The planning job: every project with a forecast service (or the one given), one run at a time
+ * per project across app instances (database advisory lock), then delivery of due e-mails. With
+ * `tickAt` (the cron tick's scheduled time) a project already planned on that tick is skipped, so
+ * each tick plans each project once however many instances run the schedule.
+ */
+export async function runPlanningJob(deps: AppDeps, options: { projectId?: string; trigger: JobTrigger; tickAt?: Date }): Promise<JobResult> {
+  const startedAt = deps.clock().toISOString();
+  const ids = options.projectId
+    ? [options.projectId]
+    : (await deps.db.select({ id: project.id }).from(project).where(eq(project.forecastSource, 'service'))).map((r) => r.id);
+  const projects: ProjectJobResult[] = [];
+  for (const projectId of ids) {
+    const locked = await deps.database.withAdvisoryLock(projectLockKey(projectId), async (): Promise<ProjectJobResult> => {
+      // Under the lock: a scheduled run of this tick that another instance finished means this
+      // instance came late to the tick (a run left 'running' was cut short by a crash: plan again).
+      if (options.tickAt) {
+        const [done] = await deps.db
+          .select({ id: planRun.id })
+          .from(planRun)
+          .where(and(eq(planRun.projectId, projectId), eq(planRun.trigger, 'schedule'), gte(planRun.startedAt, options.tickAt), ne(planRun.status, 'running')))
+          .limit(1);
+        if (done) return { projectId, status: 'skipped', reason: 'planned on this tick by another instance', planRunId: done.id };
+      }
+      return planProject(deps, projectId, options.trigger);
+    });
+    projects.push(locked.acquired ? locked.value : { projectId, status: 'skipped', reason: 'another planning run holds this project' });
+  }
+  const mail = await deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log, links: deps.config });
+  return { startedAt, projects, mail };
+}

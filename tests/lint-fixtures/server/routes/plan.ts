@@ -1,0 +1,2 @@
+// Clean: a route module.
+export const planRoute = '/plan';

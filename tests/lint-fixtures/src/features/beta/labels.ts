@@ -1,0 +1,2 @@
+// Clean: a feature's own module.
+export const betaLabel = 'beta';
