@@ -5,7 +5,7 @@ import type { PlanSummary } from '../shared/alerts/compare-plans';
 import { CAUTION_LINE } from '../shared/caution';
 import type { AppDeps } from '../server/deps';
 import { planRun, project } from '../server/db/schema';
-import { escapeHtml, localTime, unsubscribeToken } from '../server/services/alert-mail';
+import { escapeHtml, localTime, UNSUBSCRIBE_LINK_MARK } from '../server/services/alert-mail';
 import { enqueueMail } from '../server/services/outbox';
 import { covers, effectiveSubscriptions, markDigestSent } from '../server/services/subscriptions';
 
@@ -40,7 +40,8 @@ export async function queueDigests(deps: AppDeps): Promise<number> {
         return `${pl.operationName} at ${pl.siteName}: ${pl.startNow ? 'may start now' : next ? `next window ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})` : 'no window in this forecast'}`;
       });
       const board = `${deps.config.baseUrl}/projects/${p.id}/board`;
-      const unsub = `${deps.config.baseUrl}/api/unsubscribe?u=${encodeURIComponent(s.userId)}&p=${p.id}&sig=${unsubscribeToken(deps.config.linkSecret, s.userId, p.id)}`;
+      // The signed link goes in when the e-mail is sent (server/services/outbox.ts).
+      const unsub = UNSUBSCRIBE_LINK_MARK;
       const n = await enqueueMail(
         deps.db,
         [

@@ -8,7 +8,7 @@ import { fetchLatestForecast } from '../server/services/forecasts';
 import { projectPlan } from '../server/services/plans';
 import { recordCampaignOutlooks } from '../server/services/campaign-outlook';
 import { covers, effectiveSubscriptions } from '../server/services/subscriptions';
-import { alertEmail, type ChangeWithReason, unsubscribeToken } from '../server/services/alert-mail';
+import { alertEmail, type ChangeWithReason, UNSUBSCRIBE_LINK_MARK } from '../server/services/alert-mail';
 import { deliverDueMail, enqueueMail, type OutboxMessage } from '../server/services/outbox';
 import type { Db } from '../server/db/client';
 
@@ -127,7 +127,8 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
           changes: list,
           projectName: p.name,
           boardUrl: `${deps.config.baseUrl}/projects/${projectId}/board`,
-          unsubscribeUrl: `${deps.config.baseUrl}/api/unsubscribe?u=${encodeURIComponent(s.userId)}&p=${projectId}&sig=${unsubscribeToken(deps.config.linkSecret, s.userId, projectId)}`,
+          // The signed link goes in when the e-mail is sent (server/services/outbox.ts).
+          unsubscribeUrl: UNSUBSCRIBE_LINK_MARK,
         });
         messages.push({
           // (plan, recipient, change): the forecast planned on, the person, what changed.
@@ -207,6 +208,6 @@ export async function runPlanningJob(deps: AppDeps, options: { projectId?: strin
     });
     projects.push(locked.acquired ? locked.value : { projectId, status: 'skipped', reason: 'another planning run holds this project' });
   }
-  const mail = await deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log });
+  const mail = await deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log, links: deps.config });
   return { startedAt, projects, mail };
 }

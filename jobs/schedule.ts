@@ -39,7 +39,7 @@ export function startPlanningSchedule(deps: AppDeps, options: { planCron: string
       timezone: 'UTC',
       missedExecutionTolerance: 6 * 3_600_000,
     }),
-    cron.createTask('* * * * *', guard('Mail delivery', () => deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log })), {
+    cron.createTask('* * * * *', guard('Mail delivery', () => deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log, links: deps.config })), {
       name: 'mail',
       noOverlap: true,
       timezone: 'UTC',

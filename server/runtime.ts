@@ -2,12 +2,13 @@ import crypto from 'node:crypto';
 import { closeEnginePool } from './services/engine-pool';
 import http from 'node:http';
 import path from 'node:path';
-import { count } from 'drizzle-orm';
+import { and, count, eq, inArray } from 'drizzle-orm';
 import { loadEnv, resolveAuthSecret, type Env } from './env';
 import { claimDataDir, publishPort, releaseDataDir } from './data-dir-claim';
 import { openDatabase, type Database } from './db/client';
 import { migrateDatabase } from './db/migrate';
-import { user } from './db/schema';
+import { account, user } from './db/schema';
+import { DEMO_PASSWORD, DEMO_USERS } from '../seed/scenario';
 import { createAuth } from './auth';
 import { createApp } from './app';
 import { consoleLogger, type AppDeps, type Logger } from './deps';
@@ -18,6 +19,8 @@ import { startPlanningSchedule } from '../jobs/schedule';
 
 export interface Running {
   url: string;
+  /** The address listened on. */
+  host: string;
   port: number;
   database: Database;
   close(): Promise<void>;
@@ -85,6 +88,26 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
     }
   });
 
+  // The demo accounts' password is printed in the README: while any of them still signs in with
+  // it, the server stays on this machine (127.0.0.1) unless told otherwise, and refuses to be told.
+  const demoAccounts = await demoAccountsWithPublishedPassword(deps);
+  const host = env.HOST ?? (demoAccounts.length > 0 ? '127.0.0.1' : '0.0.0.0');
+  if (demoAccounts.length > 0 && !isLoopback(host)) {
+    await forecast.close();
+    await mailer.close();
+    await database.close();
+    throw new Error(
+      `Refusing to listen on ${host}: the demo accounts ${demoAccounts.join(', ')} still have the password published in the README. ` +
+        'To serve other machines, start on an empty data folder with SEED_DEMO=false (or change or deactivate those accounts), then set HOST.',
+    );
+  }
+  if (demoAccounts.length > 0) {
+    log.info(
+      `The demo accounts (${demoAccounts.join(', ')}) use the published password, so the server listens on ${host} only. ` +
+        'To serve other machines, start on an empty data folder with SEED_DEMO=false (or change or deactivate the demo accounts) and set HOST=0.0.0.0.',
+    );
+  }
+
   const app = createApp(deps, {
     clientDir: CLIENT_DIR,
     trustProxy: parseTrustProxy(env.TRUST_PROXY),
@@ -95,7 +118,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   const server = http.createServer(app);
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
-    server.listen(port, env.HOST, () => resolve());
+    server.listen(port, host, () => resolve());
   });
   const actualPort = (server.address() as { port: number }).port;
   const url = env.BASE_URL ?? `http://localhost:${actualPort}`;
@@ -105,6 +128,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
 
   return {
     url,
+    host,
     port: actualPort,
     database,
     async close() {
@@ -137,6 +161,28 @@ async function whileHoldingStartLock(database: Database, log: Logger, fn: () => 
     told = true;
     await new Promise((r) => setTimeout(r, 1000));
   }
+}
+
+/** True for addresses only this machine reaches. */
+export function isLoopback(host: string): boolean {
+  const h = host.replace(/^\[|\]$/g, '').toLowerCase();
+  return h === 'localhost' || h === '::1' || /^127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(h) || /^::ffff:127\./.test(h);
+}
+
+/** E-mails of active demo accounts that still sign in with the published demo password. */
+export async function demoAccountsWithPublishedPassword(deps: Pick<AppDeps, 'db' | 'auth'>): Promise<string[]> {
+  const rows = await deps.db
+    .select({ email: user.email, banned: user.banned, hash: account.password })
+    .from(user)
+    .innerJoin(account, and(eq(account.userId, user.id), eq(account.providerId, 'credential')))
+    .where(inArray(user.email, DEMO_USERS.map((u) => u.email)));
+  const ctx = await deps.auth.$context;
+  const found: string[] = [];
+  for (const r of rows) {
+    if (r.banned || !r.hash) continue;
+    if (await ctx.password.verify({ hash: r.hash, password: DEMO_PASSWORD })) found.push(r.email);
+  }
+  return found.sort();
 }
 
 function trustedOrigins(baseURL: string): string[] {

@@ -20,6 +20,14 @@ export interface DatasetSummary {
    * service, datasets stored before this was asked).
    */
   wind: { anemometerHeightM: number | null; exponent: number | null };
+  /** Records a regular series of this step would hold from start to end. */
+  expectedRecords: number;
+  /** Of those, rows absent from the data altogether (not the same as a row with a missing value). */
+  absentRecords: number;
+  /** Share of the expected records without an Hs value: missing values and absent rows together, 0-1. */
+  hsGapShare: number;
+  /** In the project's list: the dataset statistics use when none is named (chosen, else the newest hindcast). */
+  statisticsDefault?: boolean;
   createdAt: string;
 }
 
@@ -39,6 +47,8 @@ export interface ImportAnswer {
   skipped: number;
   /** The wind height correction used (see DatasetSummary.wind). */
   wind: { anemometerHeightM: number | null; exponent: number | null };
+  /** Set when this import made a dataset shorter than a year the default for statistics. */
+  warning: string | null;
 }
 
 /** Records as columnar arrays; times ISO UTC; null = missing. */

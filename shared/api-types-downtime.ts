@@ -161,6 +161,8 @@ export interface CampaignMonthAnswer {
   years: number;
   /** Calendar years whose run reached the data end before finishing (left out of the percentiles). */
   censoredYears: number[];
+  /** Per step (index into `steps`), how many of those years stopped at it. */
+  stuckSteps: { step: number; years: number }[];
   /** Type-7 percentiles of the duration D over the years that finished, h; null when none did. */
   p50Hours: number | null;
   p90Hours: number | null;
@@ -182,6 +184,10 @@ export interface CampaignSimulation {
   timeZone: string;
   /** Sum of the steps' TPOP, h: the duration of a campaign that never waits. */
   sumTpopHours: number;
+  /** The steps in order, with how many hours of the hindcast allow a start of each (0: it never finds a window). */
+  steps: { operationName: string; siteName: string; trHours: number; goStartHours: number }[];
+  /** In words, when a step never finds a window in the whole hindcast (the campaign can never finish); else null. */
+  neverStarts: string | null;
   months: CampaignMonthAnswer[];
 }
 
@@ -196,8 +202,8 @@ export interface LedgerEntry {
   day: string;
   /** Hours planned: the day's real length in the worksite's zone (24 h; 23 or 25 h on clock-change days). */
   plannedHours: number;
-  /** As proposed from the data: planned hours not workable at OPLIM (no data counts as lost). */
-  proposedLostHours: number;
+  /** As proposed from the data: planned hours not workable at OPLIM (no data counts as lost); null for clients. */
+  proposedLostHours: number | null;
   proposedLimiting: LedgerLimiting | null;
   /** As confirmed (or corrected) by the coordinator; null while proposed. */
   lostHours: number | null;
@@ -257,5 +263,7 @@ export interface LedgerMonthRow {
 /** GET /api/projects/:projectId/ledger/monthly */
 export interface LedgerMonthlyAnswer {
   hindcast: { id: string; name: string } | null;
+  /** The expectation's basis: at the forecast limits (true) or at OPLIM (false), as asked. */
+  alpha: boolean;
   rows: LedgerMonthRow[];
 }

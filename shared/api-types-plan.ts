@@ -48,6 +48,8 @@ export type OccurrenceStatus = 'go' | 'marginal' | 'no_go' | 'no_data' | 'inform
 export interface PlanAnswer {
   dataset: { id: string; name: string; kind: string; issuedAt: string | null; start: string; end: string } | null;
   generatedAt: string;
+  /** The stretch planned (at most 31 days) and the time it is planned as at ("now" for a forecast). */
+  span?: { from: string; to: string; asAt: string };
   alpha: boolean;
   stepMinutes: number;
   plans: OperationSitePlan[];

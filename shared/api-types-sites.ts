@@ -66,6 +66,8 @@ export interface AuditEntryResponse {
   /** null when the user has since been deleted */
   userId: string | null;
   userName: string;
+  /** The user's e-mail address (the name is theirs to choose; the e-mail and id identify them); null once deleted. */
+  userEmail: string | null;
   entity: AuditEntity;
   entityId: string | null;
   entityName: string;

@@ -10,6 +10,8 @@ export interface MeResponse {
   name: string;
   email: string;
   globalRole: GlobalRole;
+  /** Signed in with a temporary password: the app asks for a new one before anything else. */
+  mustChangePassword: boolean;
   projects: { id: string; name: string; role: ProjectRole }[];
 }
 
@@ -39,5 +41,9 @@ export interface AdminUser {
   globalRole: GlobalRole;
   active: boolean;
   createdAt: string;
+  /** Still on a temporary password from an administrator. */
+  mustChangePassword: boolean;
+  /** When that temporary password stops working (ISO), or null. */
+  temporaryPasswordExpiresAt: string | null;
   projects: { projectId: string; projectName: string; role: ProjectRole }[];
 }

@@ -27,9 +27,45 @@ export const RecurrenceInput = z.object({
   rule: z
     .string()
     .max(500)
-    .refine((r) => /^FREQ=(DAILY|WEEKLY|MONTHLY|YEARLY)(;[A-Z]+=[A-Z0-9,+-]+)*$/.test(r), 'must be an RRULE like FREQ=WEEKLY;BYDAY=MO,WE,FR'),
+    .refine((r) => /^FREQ=(DAILY|WEEKLY|MONTHLY|YEARLY)(;[A-Z]+=[A-Z0-9,+-]+)*$/.test(r), 'must be an RRULE like FREQ=WEEKLY;BYDAY=MO,WE,FR')
+    .superRefine((r, ctx) => {
+      const problem = ruleProblem(r);
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    }),
 });
 export type RecurrenceInput = z.infer<typeof RecurrenceInput>;
+
+/**
+ * Limits that keep a rule cheap to expand. Operations start at most every hour, so a rule may not
+ * name minutes or seconds (BYMINUTE, BYSECOND: up to 86,400 occurrences a day), and all its BY*
+ * parts together list at most MAX_BY_VALUES values.
+ */
+export const MAX_BY_VALUES = 60;
+/** The first occurrence lies within this many years of now (expansion walks from it). */
+export const START_WITHIN_YEARS = 2;
+/** Expansion stops after this many candidate dates or this much time, whatever the rule. */
+export const MAX_EXPANDED = 50_000;
+export const EXPAND_BUDGET_MS = 30;
+
+export function ruleProblem(rule: string): string | null {
+  const parts = rule.split(';').map((p) => p.split('='));
+  let values = 0;
+  for (const [name, value = ''] of parts) {
+    if (name === 'BYSECOND' || name === 'BYMINUTE') return `must not use ${name}: occurrences start on the hour at most once an hour`;
+    if (name.startsWith('BY')) values += value.split(',').length;
+  }
+  if (values > MAX_BY_VALUES) return `lists ${values} BY values: at most ${MAX_BY_VALUES}`;
+  return null;
+}
+
+/** Why the first occurrence is refused (more than START_WITHIN_YEARS years from now), or null. */
+export function recurrenceStartProblem(r: Pick<RecurrenceInput, 'start'>, nowMs: number): string | null {
+  const [y, mo, d] = r.start.slice(0, 10).split('-').map(Number);
+  const startMs = Date.UTC(y, mo - 1, d);
+  const span = START_WITHIN_YEARS * 365.25 * 86_400_000;
+  if (!Number.isFinite(startMs) || Math.abs(startMs - nowMs) > span) return `must be within ${START_WITHIN_YEARS} years of today`;
+  return null;
+}
 
 /** The rule as one RFC 5545 text: DTSTART;TZID=...:YYYYMMDDTHHMMSS and RRULE:... */
 export function recurrenceText(r: RecurrenceInput): string {
@@ -53,10 +89,22 @@ export function expandRecurrence(r: RecurrenceInput, fromMs: number, toMs: numbe
   const floatingFrom = new Date(fromMs - 2 * 86_400_000);
   const floatingTo = new Date(toMs + 2 * 86_400_000);
   const out: number[] = [];
-  for (const f of rule.between(floatingFrom, floatingTo, true)) {
-    const t = new TZDate(f.getUTCFullYear(), f.getUTCMonth(), f.getUTCDate(), f.getUTCHours(), f.getUTCMinutes(), 0, r.timeZone).getTime();
-    if (t >= fromMs && t <= toMs) out.push(t);
-    if (out.length >= max) break;
-  }
+  // rrule walks from DTSTART whatever the window: a rule stored before the limits above (or a
+  // start far in the past) must not hold the server, so the walk (rrule's `all` with an iterator
+  // callback, which stops at the first false) ends past the window, after MAX_EXPANDED dates, or
+  // after EXPAND_BUDGET_MS, whichever comes first.
+  const deadline = Date.now() + EXPAND_BUDGET_MS;
+  const fromF = floatingFrom.getTime();
+  const toF = floatingTo.getTime();
+  rule.all((f, i) => {
+    const ms = f.getTime();
+    if (ms > toF || i >= MAX_EXPANDED || out.length >= max) return false;
+    if ((i & 63) === 63 && Date.now() > deadline) return false;
+    if (ms >= fromF) {
+      const t = new TZDate(f.getUTCFullYear(), f.getUTCMonth(), f.getUTCDate(), f.getUTCHours(), f.getUTCMinutes(), 0, r.timeZone).getTime();
+      if (t >= fromMs && t <= toMs) out.push(t);
+    }
+    return true;
+  });
   return out;
 }

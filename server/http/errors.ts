@@ -9,6 +9,8 @@ export type ErrorCode =
   | 'not_found'
   | 'conflict'
   | 'too_large'
+  | 'unsupported_media_type'
+  | 'password_change_required'
   | 'bad_file'
   | 'rate_limited'
   | 'unavailable'
@@ -22,6 +24,8 @@ const STATUS: Record<ErrorCode, number> = {
   not_found: 404,
   conflict: 409,
   too_large: 413,
+  unsupported_media_type: 415,
+  password_change_required: 403,
   rate_limited: 429,
   unavailable: 503,
   internal: 500,
@@ -63,6 +67,27 @@ export function parseInput<S extends z.ZodType>(schema: S, value: unknown, where
   return result.data;
 }
 
+/**
+ * Errors that Express, its router and body parsers raise for a malformed request, as the client
+ * errors they are (never a 500 with a stack trace in the log): a path with a bad percent-escape
+ * (the router's 400), a charset or content encoding the parser does not know (415), a body too
+ * deeply nested to parse (400), and any other 4xx they mark.
+ */
+function clientError(err: unknown): HttpError | null {
+  if (!err || typeof err !== 'object') return null;
+  const e = err as { type?: unknown; status?: unknown; statusCode?: unknown; message?: unknown };
+  if (e.type === 'charset.unsupported' || e.type === 'encoding.unsupported') {
+    return new HttpError('unsupported_media_type', `Unsupported request body encoding: ${String(e.message ?? '')}`);
+  }
+  if (err instanceof RangeError && /call stack/i.test(err.message)) return new HttpError('validation', 'Request body is nested too deeply');
+  if (err instanceof URIError) return new HttpError('validation', 'Malformed percent-escape in the request address');
+  const status = typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : 0;
+  if (status === 413) return new HttpError('too_large', 'Request body too large');
+  if (status === 415) return new HttpError('unsupported_media_type', 'Unsupported request body type');
+  if (status >= 400 && status < 500) return new HttpError('validation', 'Malformed request');
+  return null;
+}
+
 /** The one error handler: JSON `{ error: { code, message, details } }`, no stack traces outside development. */
 export function errorHandler(options: { exposeStack: boolean; log: (err: unknown) => void }): ErrorRequestHandler {
   return (err, _req, res, _next) => {
@@ -75,6 +100,8 @@ export function errorHandler(options: { exposeStack: boolean; log: (err: unknown
       httpError = new HttpError('validation', 'Request body is not valid JSON');
     } else if (err && typeof err === 'object' && 'code' in err && err.code === 'LIMIT_FILE_SIZE') {
       httpError = new HttpError('too_large', (err as Error).message);
+    } else if (clientError(err)) {
+      httpError = clientError(err)!;
     } else {
       options.log(err);
       httpError = new HttpError('internal', 'Internal server error');

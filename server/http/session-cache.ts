@@ -6,13 +6,15 @@
 // a request finishes) and within SESSION_CACHE_MS on other instances.
 import type { Request, RequestHandler } from 'express';
 import type { Auth } from '../auth';
-import { Lru } from '../services/lru';
+import { LRUCache } from 'lru-cache';
 import { readSessionUser, type SessionUser } from './context';
 
 /** How long a looked-up session is reused on this instance. */
 export const SESSION_CACHE_MS = 5_000;
 /** Cookie headers remembered at most (one per signed-in browser; a few hundred bytes each). */
 const MAX_ENTRIES = 10_000;
+/** Bytes remembered at most (a Cookie header can be long): key length plus the user's fields. */
+const MAX_BYTES = 8 * 1024 * 1024;
 
 export interface SessionReader {
   read(req: Request): Promise<SessionUser | null>;
@@ -21,7 +23,11 @@ export interface SessionReader {
 }
 
 export function createSessionReader(auth: Auth, ttlMs = SESSION_CACHE_MS): SessionReader {
-  const cache = new Lru<{ at: number; user: SessionUser | null }>(MAX_ENTRIES);
+  const cache = new LRUCache<string, { at: number; user: SessionUser | null }>({
+    max: MAX_ENTRIES,
+    maxSize: MAX_BYTES,
+    sizeCalculation: (v, key) => key.length + 64 + (v.user ? v.user.id.length + v.user.name.length + v.user.email.length : 0),
+  });
   // Bumped on every forget: a lookup that started before a change is not stored after it.
   let generation = 0;
   const forget = () => {

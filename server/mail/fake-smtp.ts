@@ -11,6 +11,9 @@ export interface CaughtMessage {
   subject: string;
   text: string;
   html: string;
+  /** The List-Unsubscribe and List-Unsubscribe-Post headers, when present. */
+  listUnsubscribe?: string;
+  listUnsubscribePost?: string;
   receivedAt: string;
 }
 
@@ -57,6 +60,8 @@ export async function startFakeSmtp(options: { port?: number; host?: string; kee
             subject: mail.subject ?? '',
             text: mail.text ?? '',
             html: typeof mail.html === 'string' ? mail.html : '',
+            listUnsubscribe: headerLine(mail.headerLines, 'list-unsubscribe'),
+            listUnsubscribePost: headerLine(mail.headerLines, 'list-unsubscribe-post'),
             receivedAt: new Date().toISOString(),
           });
           if (messages.length > keep) messages.splice(0, messages.length - keep);
@@ -81,4 +86,10 @@ export async function startFakeSmtp(options: { port?: number; host?: string; kee
     },
     close: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
+}
+
+/** A header's value as sent (its raw line without the name). */
+function headerLine(lines: readonly { key: string; line: string }[], key: string): string | undefined {
+  const found = lines.find((l) => l.key === key);
+  return found ? found.line.slice(found.line.indexOf(':') + 1).replace(/\r?\n\s+/g, ' ').trim() : undefined;
 }

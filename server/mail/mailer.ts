@@ -11,6 +11,8 @@ export interface OutgoingMail {
    * crash carries the same Message-ID, so mail systems can tell it is the same message.
    */
   messageId?: string;
+  /** Extra headers (List-Unsubscribe and List-Unsubscribe-Post, RFC 2369 and RFC 8058). */
+  headers?: Record<string, string>;
 }
 
 export interface Mailer {

@@ -3,7 +3,7 @@ import { CreateUserInput, SetMembershipInput, UpdateUserInput } from '../../shar
 import type { AppDeps } from '../deps';
 import { requireAdmin } from '../http/context';
 import { parseInput } from '../http/errors';
-import { createUserFromInput, listUsers, removeMembership, setMembership, updateUser } from '../services/users';
+import { createUserFromInput, issueTemporaryPassword, listUsers, removeMembership, setMembership, updateUser } from '../services/users';
 import { idParam } from '../../shared/schemas/common';
 import { HttpError } from '../http/errors';
 
@@ -12,7 +12,7 @@ function projectIdParam(value: string): string {
   return value;
 }
 
-export function adminUserRoutes({ db, auth }: AppDeps): Router {
+export function adminUserRoutes({ db, auth, clock }: AppDeps): Router {
   const router = Router();
 
   /** GET /api/admin/users: every user with their project roles (administrators only). */
@@ -25,7 +25,16 @@ export function adminUserRoutes({ db, auth }: AppDeps): Router {
   router.post('/admin/users', async (req, res) => {
     requireAdmin(req);
     const input = parseInput(CreateUserInput, req.body);
-    res.status(201).json(await createUserFromInput(auth, input));
+    res.status(201).json(await createUserFromInput(auth, input, clock()));
+  });
+
+  /**
+   * POST /api/admin/users/:userId/temporary-password: a new temporary password (shown once) for a
+   * forgotten or expired one; the old password stops working and every session of the user ends.
+   */
+  router.post('/admin/users/:userId/temporary-password', async (req, res) => {
+    requireAdmin(req);
+    res.json(await issueTemporaryPassword(auth, db, req.params.userId, clock()));
   });
 
   /** PATCH /api/admin/users/:userId `{ active?, globalRole? }`: deactivate/reactivate, change global role. */

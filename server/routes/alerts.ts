@@ -1,13 +1,13 @@
-import crypto from 'node:crypto';
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import { and, desc, eq } from 'drizzle-orm';
 import { PlanJobInput, SubscriptionInput } from '../../shared/schemas/alerts';
-import { RecurrenceInput, recurrenceText } from '../../shared/recurrence';
+import { RecurrenceInput, recurrenceStartProblem, recurrenceText } from '../../shared/recurrence';
 import type { AppDeps } from '../deps';
 import type { Db } from '../db/client';
 import { alert, operation } from '../db/schema';
 import { requireAdmin, requireUser } from '../http/context';
 import { HttpError, parseInput } from '../http/errors';
+import { sameSecret } from '../http/same-secret';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 import { listOutbox } from '../services/outbox';
 import { mySubscription, saveSubscription, unsubscribe } from '../services/subscriptions';
@@ -17,9 +17,10 @@ import { recordAudit } from '../services/audit';
 import { runPlanningJob } from '../../jobs/plan-job';
 import { idParam } from '../../shared/schemas/common';
 
-// Title and body are escaped, so no caller can put markup (or a query parameter) into the page.
-const page = (title: string, body: string) =>
-  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)}</title></head><body style="font-family:system-ui,sans-serif;max-width:520px;margin:48px auto;padding:0 16px;color:#10222c"><h1 style="font-size:22px">${escapeHtml(title)}</h1><p>${escapeHtml(body)}</p></body></html>`;
+// Title and body are escaped, so no caller can put markup (or a query parameter) into the page;
+// `trusted` is markup built here with its own values escaped.
+const page = (title: string, body: string, trusted = '') =>
+  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)}</title></head><body style="font-family:system-ui,sans-serif;max-width:520px;margin:48px auto;padding:0 16px;color:#10222c"><h1 style="font-size:22px">${escapeHtml(title)}</h1><p>${escapeHtml(body)}</p>${trusted}</body></html>`;
 
 export function alertRoutes(deps: AppDeps): Router {
   const { db, config, mailer } = deps;
@@ -37,8 +38,7 @@ export function alertRoutes(deps: AppDeps): Router {
    * the running server to plan, since only one process may open the embedded database.
    */
   router.post('/internal/jobs/plan', async (req, res) => {
-    const token = req.headers['x-lullwatch-job-token'];
-    if (!config.jobToken || typeof token !== 'string' || token.length !== config.jobToken.length || !crypto.timingSafeEqual(Buffer.from(token), Buffer.from(config.jobToken))) {
+    if (!sameSecret(req.headers['x-lullwatch-job-token'], config.jobToken)) {
       throw new HttpError('not_found', 'No API route POST /api/internal/jobs/plan');
     }
     const input = parseInput(PlanJobInput, req.body ?? {});
@@ -79,16 +79,52 @@ export function alertRoutes(deps: AppDeps): Router {
     res.json(await mySubscription(db, access.user.id, access.projectId));
   });
 
-  /** GET /api/unsubscribe?u=&p=&sig=: one-click unsubscribe from a signed e-mail link (no sign-in). */
-  router.get('/unsubscribe', async (req, res) => {
-    const u = String(req.query.u ?? '');
-    const p = String(req.query.p ?? '');
-    const sig = String(req.query.sig ?? '');
-    if (!idParam.safeParse(p).success || !verifyUnsubscribe(config.linkSecret, u, p, sig)) {
-      res.status(400).type('html').send(page('Link not valid', 'This unsubscribe link is not valid. Change your alerts in Lullwatch instead.'));
-      return;
-    }
-    await unsubscribe(db, u, p);
+  // ------------------------------------------------------------------------------------------
+  // One-click unsubscribe (RFC 8058), kept together so they can move with the alert routes.
+  // The link in an e-mail (and its List-Unsubscribe header) is /api/unsubscribe?u=&p=&e=&sig=:
+  // HMAC over the user, the project and the expiry `e` (Unix seconds, 60 days after sending).
+  // - POST (what mail programs send, body "List-Unsubscribe=One-Click", and what the page's button
+  //   sends) unsubscribes.
+  // - GET (and HEAD: a link scanner or a preview that fetches the link) only shows a page with that
+  //   button, so following or prefetching the link changes nothing.
+  // ------------------------------------------------------------------------------------------
+
+  /** The link's parameters checked: the user and project, or why the link is refused. */
+  function unsubscribeLink(query: Record<string, unknown>): { u: string; p: string } | 'invalid' | 'expired' {
+    const u = String(query.u ?? '');
+    const p = String(query.p ?? '');
+    if (!idParam.safeParse(p).success || u.length > 200) return 'invalid';
+    const verdict = verifyUnsubscribe(config.linkSecret, u, p, String(query.e ?? ''), String(query.sig ?? ''), deps.clock().getTime());
+    return verdict === 'ok' ? { u, p } : verdict;
+  }
+
+  function refuseLink(res: Response, verdict: 'invalid' | 'expired') {
+    const body =
+      verdict === 'expired'
+        ? 'This unsubscribe link has expired. Change your alerts on the Alerts page in Lullwatch instead.'
+        : 'This unsubscribe link is not valid. Change your alerts on the Alerts page in Lullwatch instead.';
+    res.status(400).type('html').send(page(verdict === 'expired' ? 'Link expired' : 'Link not valid', body));
+  }
+
+  /** GET /api/unsubscribe?u=&p=&e=&sig=: a confirmation page (no sign-in); nothing changes until its button is pressed. */
+  router.get('/unsubscribe', (req, res) => {
+    const link = unsubscribeLink(req.query);
+    if (typeof link === 'string') return refuseLink(res, link);
+    const action = `/api/unsubscribe?${new URLSearchParams({ u: link.u, p: link.p, e: String(req.query.e), sig: String(req.query.sig) })}`;
+    res.type('html').send(
+      page(
+        'Stop alert e-mails?',
+        'Press the button to stop alert e-mails and digests for this project. You can turn them on again on the Alerts page.',
+        `<form method="post" action="${escapeHtml(action)}"><input type="hidden" name="List-Unsubscribe" value="One-Click"><button type="submit" style="font-size:16px;padding:10px 16px;min-height:44px">Stop these e-mails</button></form>`,
+      ),
+    );
+  });
+
+  /** POST /api/unsubscribe?u=&p=&e=&sig=: RFC 8058 one-click unsubscribe (no sign-in). */
+  router.post('/unsubscribe', async (req, res) => {
+    const link = unsubscribeLink(req.query);
+    if (typeof link === 'string') return refuseLink(res, link);
+    await unsubscribe(db, link.u, link.p);
     res.type('html').send(page('Unsubscribed', 'You will get no more alert e-mails for this project. You can turn them on again on the Alerts page.'));
   });
 
@@ -134,6 +170,8 @@ export function alertRoutes(deps: AppDeps): Router {
   router.put('/projects/:projectId/operations/:operationId/recurrence', async (req, res) => {
     const access = await requireCoordinator(db, req, req.params.projectId);
     const input = parseInput(RecurrenceInput, req.body);
+    const startProblem = recurrenceStartProblem(input, deps.clock().getTime());
+    if (startProblem) throw new HttpError('validation', `Invalid body: start: ${startProblem}`, [{ field: 'start', message: startProblem }]);
     const op = await findOperation(access.projectId, req.params.operationId);
     const value = { ...input, text: recurrenceText(input) };
     await db.transaction(async (tx) => {

@@ -15,18 +15,37 @@ import {
   monthlySummary,
   readDatasetSeries,
   seriesCsv,
+  setDefaultHindcast,
   toRecordsAnswer,
 } from '../services/datasets';
-import { importUploadedFile, MAX_UPLOAD_BYTES, safeFileName } from '../services/dataset-import';
 
-const UPLOAD_DIR = path.join(os.tmpdir(), 'lullwatch-uploads');
+const DefaultHindcastInput = z.object({ datasetId: z.uuid('must be a dataset id').nullable() });
+import { importUploadedFile, MAX_UPLOAD_BYTES, safeFileName } from '../services/dataset-import';
+import { ensurePrivateDir, privateDiskStorage } from '../http/private-uploads';
+import { Limiter } from '../http/limiter';
+
+export const UPLOAD_DIR = path.join(os.tmpdir(), 'lullwatch-uploads');
+
+/**
+ * Imports parse and store on this process's one thread: at most IMPORTS_AT_ONCE run at once in a
+ * process (three 28 MB imports side by side stalled everyone for seconds), a few more wait, and
+ * beyond that the uploader is asked to try again shortly (429).
+ */
+export const IMPORTS_AT_ONCE = 1;
+export const IMPORTS_WAITING = 4;
+export const importLimiter = new Limiter({
+  concurrency: IMPORTS_AT_ONCE,
+  queue: IMPORTS_WAITING,
+  busyMessage: 'Several imports are running: try again in a minute',
+});
 
 /** Longest form field (the column mapping and units are small JSON texts). */
 const MAX_FIELD_BYTES = 64 * 1024;
 
 const upload = multer({
-  // Stored under a random name in UPLOAD_DIR: the client's file name never becomes a path.
-  dest: UPLOAD_DIR,
+  // Stored under a random name in UPLOAD_DIR (0700, files 0600): the client's file name never
+  // becomes a path.
+  storage: privateDiskStorage(UPLOAD_DIR),
   limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 20, fieldSize: MAX_FIELD_BYTES },
   // Browsers send the file name as raw UTF-8 in the part header; busboy's default reads it as
   // Latin-1 ('Ålesund.csv' came back as 'Ã\x85lesund.csv').
@@ -35,7 +54,7 @@ const upload = multer({
 
 /** Runs multer after the role check, so refused callers never send their file to disk. */
 function receiveUpload(req: Request, res: Response): Promise<void> {
-  fs.mkdirSync(UPLOAD_DIR, { recursive: true });
+  ensurePrivateDir(UPLOAD_DIR);
   return new Promise((resolve, reject) =>
     upload(req, res, (err: unknown) => {
       if (!err) return resolve();
@@ -63,6 +82,10 @@ const RecordsQuery = z.object({
   from: z.iso.datetime({ offset: true }).optional(),
   to: z.iso.datetime({ offset: true }).optional(),
 });
+
+/** Longest stretch one records answer covers (a year of hourly records is about 2 MB of JSON). */
+export const MAX_RECORDS_DAYS = 366;
+const DAY_MS = 86_400_000;
 
 /**
  * An upload's temporary file is removed when its request ends; a process killed mid-upload leaves
@@ -117,8 +140,14 @@ export function datasetsRoutes({ db }: AppDeps): Router {
         file: { path: file.path, originalName: safeFileName(file.originalname), size: file.size },
         fields: req.body ?? {},
       };
+      const release = await importLimiter.acquire('process');
+      res.once('close', release);
       if (!streamProgress) {
-        res.status(201).json(await importUploadedFile(db, args));
+        try {
+          res.status(201).json(await importUploadedFile(db, args));
+        } finally {
+          release();
+        }
         return;
       }
       res.status(200).setHeader('content-type', 'application/x-ndjson');
@@ -129,11 +158,24 @@ export function datasetsRoutes({ db }: AppDeps): Router {
       } catch (err) {
         const e = err instanceof HttpError ? err : new HttpError('internal', 'Internal server error');
         line({ status: e.status, error: { code: e.code, message: e.message, details: e.details ?? null } });
+      } finally {
+        release();
       }
       res.end();
     } finally {
       if (file) fs.rm(file.path, { force: true }, () => {});
     }
+  });
+
+  /**
+   * PUT /api/projects/:projectId/default-hindcast `{ datasetId: uuid | null }` (coordinators): the
+   * dataset statistics use when none is named; null = the newest hindcast again. A forecast is
+   * refused (400). → `{ datasetId, warning }`, the warning set for a span under a year.
+   */
+  router.put('/projects/:projectId/default-hindcast', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    const body = parseInput(DefaultHindcastInput, req.body ?? {});
+    res.json(await setDefaultHindcast(db, access.projectId, access.user, body.datasetId));
   });
 
   /** GET /api/projects/:projectId/datasets/:datasetId: metadata, coverage and the import report. */
@@ -147,10 +189,13 @@ export function datasetsRoutes({ db }: AppDeps): Router {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(RecordsQuery, req.query, 'query');
     const row = await getDatasetRow(db, access.projectId, req.params.datasetId);
-    const series = await readDatasetSeries(db, row.id, {
-      fromMs: q.from ? Date.parse(q.from) : undefined,
-      toMs: q.to ? Date.parse(q.to) : undefined,
-    });
+    const fromMs = q.from ? Date.parse(q.from) : row.startAt.getTime();
+    const toMs = q.to ? Date.parse(q.to) : row.endAt.getTime();
+    if (Math.min(toMs, row.endAt.getTime()) - Math.max(fromMs, row.startAt.getTime()) > MAX_RECORDS_DAYS * DAY_MS) {
+      const message = `a records answer covers at most ${MAX_RECORDS_DAYS} days: give from and to closer together (the monthly summary covers the whole dataset)`;
+      throw new HttpError('validation', `Invalid query: to: ${message}`, [{ field: 'to', message }]);
+    }
+    const series = await readDatasetSeries(db, row.id, { fromMs, toMs });
     res.json(toRecordsAnswer(series));
   });
 

@@ -1,8 +1,8 @@
-import crypto from 'node:crypto';
 import { Router } from 'express';
 import type { PGlite } from '@electric-sql/pglite';
 import type { AppDeps } from '../deps';
 import { HttpError } from '../http/errors';
+import { sameSecret } from '../http/same-secret';
 
 /**
  * A gzip tar of the embedded database's data folder, taken while no other statement or
@@ -24,9 +24,7 @@ export function internalBackupRoutes(deps: AppDeps): Router {
    * Answers application/gzip (a tar of the data folder); unknown without the token.
    */
   router.post('/internal/backup', async (req, res) => {
-    const expected = deps.config.jobToken;
-    const token = req.headers['x-lullwatch-job-token'];
-    if (!expected || typeof token !== 'string' || token.length !== expected.length || !crypto.timingSafeEqual(Buffer.from(token), Buffer.from(expected))) {
+    if (!sameSecret(req.headers['x-lullwatch-job-token'], deps.config.jobToken)) {
       throw new HttpError('not_found', 'No API route POST /api/internal/backup');
     }
     const pglite = deps.database.pglite;

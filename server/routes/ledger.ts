@@ -6,7 +6,12 @@ import { parseInput } from '../http/errors';
 import { confirmLedger, ledgerMonthly, listLedger, proposeLedger } from '../services/ledger';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 
-const MonthlyQuery = z.object({ dataset: z.string().uuid('must be a dataset id').optional(), from: isoDay.optional(), to: isoDay.optional() });
+const MonthlyQuery = z.object({
+  dataset: z.string().uuid('must be a dataset id').optional(),
+  from: isoDay.optional(),
+  to: isoDay.optional(),
+  alpha: z.enum(['true', 'false'], { error: 'alpha must be true or false' }).default('false').transform((v) => v === 'true'),
+});
 
 /** The downtime ledger: every member reads (clients the confirmed days only), coordinators propose and confirm. */
 export function ledgerRoutes({ db, clock }: AppDeps): Router {
@@ -33,14 +38,15 @@ export function ledgerRoutes({ db, clock }: AppDeps): Router {
   });
 
   /**
-   * GET /api/projects/:projectId/ledger/monthly?dataset=&from=&to=: per month and operation at a
-   * worksite, confirmed lost hours against the hindcast expectation (P50/P90 of the month's lost
-   * hours at OPLIM over the hindcast years; default the newest hindcast).
+   * GET /api/projects/:projectId/ledger/monthly?dataset=&from=&to=&alpha=false|true: per month and
+   * operation at a worksite, confirmed lost hours against the hindcast expectation (P50/P90 of the
+   * month's lost hours over the hindcast years, at OPLIM or with alpha=true at the forecast limits,
+   * the basis of the rest of the downtime page; default the project's default hindcast).
    */
   router.get('/projects/:projectId/ledger/monthly', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(MonthlyQuery, req.query, 'query');
-    res.json(await ledgerMonthly(db, access.projectId, { datasetId: q.dataset, from: q.from, to: q.to, role: access.role }));
+    res.json(await ledgerMonthly(db, access.projectId, { datasetId: q.dataset, from: q.from, to: q.to, role: access.role, alpha: q.alpha }));
   });
 
   /**

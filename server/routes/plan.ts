@@ -8,7 +8,13 @@ import { icsDocument } from '../services/calendar';
 import { CAUTION_LINE } from '../../shared/caution';
 
 const alphaFlag = z.enum(['true', 'false']).default('true').transform((v) => v === 'true');
-const PlanQuery = z.object({ dataset: z.string().uuid('must be a dataset id').optional(), alpha: alphaFlag });
+const PlanQuery = z.object({
+  dataset: z.string().uuid('must be a dataset id').optional(),
+  alpha: alphaFlag,
+  /** A stretch of a non-forecast dataset, at most 31 days (ISO 8601). */
+  from: z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time' }).optional(),
+  to: z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time' }).optional(),
+});
 const ChainQuery = PlanQuery.extend({
   operationId: z.string().uuid('must be an operation id'),
   siteId: z.string().uuid('must be a worksite id'),
@@ -29,7 +35,7 @@ export function planRoutes({ db, clock }: AppDeps): Router {
   router.get('/projects/:projectId/plan', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(PlanQuery, req.query, 'query');
-    res.type('application/json').send(await projectPlanJson(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock() }));
+    res.type('application/json').send(await projectPlanJson(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock(), from: q.from, to: q.to }));
   });
 
   /** GET .../plan/chain?operationId=&siteId=&time=: the chain behind one hour. */
@@ -43,7 +49,7 @@ export function planRoutes({ db, clock }: AppDeps): Router {
   router.get('/projects/:projectId/plan/windows.ics', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(IcsQuery, req.query, 'query');
-    const plan = await projectPlan(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock() });
+    const plan = await projectPlan(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock(), from: q.from, to: q.to });
     const rows = plan.plans.filter((p) => p.operationId === q.operationId && (!q.siteId || p.siteId === q.siteId));
     if (rows.length === 0) throw new HttpError('not_found', 'Operation not found in the plan');
     const events = rows.flatMap((p) =>
@@ -66,7 +72,7 @@ export function planRoutes({ db, clock }: AppDeps): Router {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(PlanQuery, req.query, 'query');
     if (!z.string().uuid().safeParse(req.params.siteId).success) throw new HttpError('not_found', 'Worksite not found');
-    res.json(await siteConditions(db, access.projectId, { datasetId: q.dataset, siteId: req.params.siteId }));
+    res.json(await siteConditions(db, access.projectId, { datasetId: q.dataset, siteId: req.params.siteId, from: q.from, to: q.to, now: clock() }));
   });
 
   return router;

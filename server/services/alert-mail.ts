@@ -57,15 +57,34 @@ export function shortChange(c: ChangeWithReason, timeZone: string): string {
   }
 }
 
-/** Signed unsubscribe link: HMAC-SHA256 over the user and project. */
-export function unsubscribeToken(secret: string, userId: string, projectId: string): string {
-  return crypto.createHmac('sha256', secret).update(`unsubscribe:${userId}:${projectId}`).digest('base64url');
+/**
+ * Stored e-mails carry this mark where the recipient's unsubscribe link goes; delivery puts a
+ * fresh signed link there (server/services/outbox.ts), so the outbox, which coordinators read,
+ * never holds a working link, and a link's validity counts from when it was sent.
+ */
+export const UNSUBSCRIBE_LINK_MARK = '{{unsubscribe-link}}';
+/** Days an unsubscribe link works after its e-mail is sent. */
+export const UNSUBSCRIBE_LINK_DAYS = 60;
+
+/** Signed unsubscribe link: HMAC-SHA256 over the user, the project and the expiry (Unix seconds). */
+export function unsubscribeToken(secret: string, userId: string, projectId: string, expiresSec: number): string {
+  return crypto.createHmac('sha256', secret).update(`unsubscribe:${userId}:${projectId}:${expiresSec}`).digest('base64url');
 }
 
-export function verifyUnsubscribe(secret: string, userId: string, projectId: string, sig: string): boolean {
-  const expected = Buffer.from(unsubscribeToken(secret, userId, projectId));
+/** The one-click unsubscribe address for one recipient and project, valid UNSUBSCRIBE_LINK_DAYS days from `nowMs`. */
+export function unsubscribeUrl(baseUrl: string, secret: string, userId: string, projectId: string, nowMs: number): string {
+  const e = Math.floor(nowMs / 1000) + UNSUBSCRIBE_LINK_DAYS * 86_400;
+  const q = new URLSearchParams({ u: userId, p: projectId, e: String(e), sig: unsubscribeToken(secret, userId, projectId, e) });
+  return `${baseUrl}/api/unsubscribe?${q}`;
+}
+
+/** 'ok', or why a link is refused: a bad signature, or past its expiry. */
+export function verifyUnsubscribe(secret: string, userId: string, projectId: string, expires: string, sig: string, nowMs: number): 'ok' | 'invalid' | 'expired' {
+  if (!/^\d{1,12}$/.test(expires)) return 'invalid';
+  const expected = Buffer.from(unsubscribeToken(secret, userId, projectId, Number(expires)));
   const given = Buffer.from(sig);
-  return expected.length === given.length && crypto.timingSafeEqual(expected, given);
+  if (expected.length !== given.length || !crypto.timingSafeEqual(expected, given)) return 'invalid';
+  return Number(expires) * 1000 < nowMs ? 'expired' : 'ok';
 }
 
 /**

@@ -9,7 +9,7 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import type { AuditEntryResponse } from '../../shared/api-types-sites';
 import type { AuditAction, AuditEntity } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
-import { auditEntry } from '../db/schema';
+import { auditEntry, user } from '../db/schema';
 import type { SessionUser } from '../http/context';
 
 export interface AuditRecord {
@@ -57,16 +57,18 @@ export async function listAudit(
     ? and(eq(auditEntry.projectId, projectId), eq(auditEntry.entity, options.entity))
     : eq(auditEntry.projectId, projectId);
   const rows = await db
-    .select()
+    .select({ entry: auditEntry, userEmail: user.email })
     .from(auditEntry)
+    .leftJoin(user, eq(user.id, auditEntry.userId))
     .where(where)
     .orderBy(desc(auditEntry.at), desc(auditEntry.id))
     .limit(options.limit);
-  return rows.map((r) => ({
+  return rows.map(({ entry: r, userEmail }) => ({
     id: r.id,
     at: r.at.toISOString(),
     userId: r.userId,
     userName: r.userName,
+    userEmail: userEmail ?? null,
     entity: r.entity,
     entityId: r.entityId,
     entityName: r.entityName,

@@ -38,13 +38,13 @@ import type { Db } from '../db/client';
 import { campaign, campaignOutlook, ledgerDay, project, projectMember, subscription, user, type CampaignStepProgress } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError } from '../http/errors';
-import { escapeHtml, unsubscribeToken } from './alert-mail';
+import { escapeHtml, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { recordAudit } from './audit';
 import { assertSteps, campaignRow, toCampaignResponse } from './campaigns';
 import { latestDataset } from './datasets';
 import { zonedDayMs } from './ledger';
 import { enqueueMail, type OutboxMessage } from './outbox';
-import { Lru } from './lru';
+import { ByteBoundedMemo } from './byte-cache';
 import { runEngineTask } from './engine-pool';
 import type { SeaSeries } from './series-store';
 import { loadProjectSetup, type ProjectSetup } from './site-context';
@@ -201,7 +201,9 @@ type Pair = { operationId: string; siteId: string };
 const pairKey = (p: Pair) => `${p.operationId}|${p.siteId}`;
 
 /** Go-start flags per (operation, worksite) on a stored dataset, kept per database handle (stored datasets never change). */
-const flagMemos = new WeakMap<Db, Lru<Promise<Map<string, Uint8Array>>>>();
+const flagMemos = new WeakMap<Db, ByteBoundedMemo<Map<string, Uint8Array>>>();
+/** Bytes of go-start flags kept per database handle (one byte per record and pair). */
+const FLAG_MEMO_BYTES = 16 * 1024 * 1024;
 
 /**
  * Go-start flags (TR = TPOP + TC wholly workable, with or without alpha) of each wanted pair on a
@@ -215,19 +217,12 @@ async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs:
     .update(JSON.stringify([row.id, limitsVersion(setup, row.dataPointDepthM), alpha, [...wanted].sort()]))
     .digest('hex');
   let memo = flagMemos.get(db);
-  if (!memo) flagMemos.set(db, (memo = new Lru(8)));
-  let hit = memo.get(key);
-  if (!hit) {
-    hit = (async () => {
-      // On an engine worker thread (engine-pool.ts): a cold transformation of a 30-year hindcast never holds up other requests.
-      const list = await runEngineTask('outlookGoStarts', await datasetSeries(db, row.id), row, setup, pairs, alpha);
-      return new Map(pairs.map((p, i) => [pairKey(p), list[i]]));
-    })();
-    memo.set(key, hit);
-    const m = memo;
-    hit.catch(() => m.delete(key));
-  }
-  return hit;
+  if (!memo) flagMemos.set(db, (memo = new ByteBoundedMemo<Map<string, Uint8Array>>(FLAG_MEMO_BYTES, (m) => [...m.values()].reduce((sum, a) => sum + a.byteLength, 0))));
+  return memo.get(key, async () => {
+    // On an engine worker thread (engine-pool.ts): a cold transformation of a 30-year hindcast never holds up other requests.
+    const list = await runEngineTask('outlookGoStarts', await datasetSeries(db, row.id), row, setup, pairs, alpha);
+    return new Map(pairs.map((p, i) => [pairKey(p), list[i]]));
+  });
 }
 
 /**
@@ -485,7 +480,8 @@ export async function recordCampaignOutlooks(deps: Pick<AppDeps, 'db' | 'log' | 
             answer,
             timeZone: c.timeZone,
             pageUrl: `${deps.config.baseUrl}/projects/${projectId}/downtime`,
-            unsubscribeUrl: `${deps.config.baseUrl}/api/unsubscribe?u=${encodeURIComponent(s.userId)}&p=${projectId}&sig=${unsubscribeToken(deps.config.linkSecret, s.userId, projectId)}`,
+            // The signed link goes in when the e-mail is sent (server/services/outbox.ts).
+            unsubscribeUrl: UNSUBSCRIBE_LINK_MARK,
           });
           messages.push({
             // (campaign, forecast, recipient, new P50): a re-run on the same forecast and date sends nothing twice.

@@ -22,10 +22,15 @@ type CampaignRow = typeof campaign.$inferSelect;
 const MS_PER_HOUR = 3_600_000;
 
 /** Bump when the simulation or the fields kept of it change, so cached answers are not reused. */
-const SIMULATION_FORMAT = 1;
+const SIMULATION_FORMAT = 2;
 
 /** What is cached of a start month's simulation (the per-year runs are not answered). */
 export type SimulatedMonth = Omit<CampaignMonthResult, 'runs'>;
+/** What is cached of a simulation: the start months, and each step's go-start hours over the whole hindcast. */
+export interface Simulated {
+  months: SimulatedMonth[];
+  goStartHours: number[];
+}
 
 export function toCampaignResponse(row: CampaignRow): CampaignResponse {
   return {
@@ -183,10 +188,21 @@ export async function simulateProjectCampaign(
     .digest('hex')
     .slice(0, 32);
   const steps = c.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId, tpopH: ops.get(s.operationId)!.tpopH }));
-  const results = await cachedStats<SimulatedMonth[]>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () =>
+  const simulated = await cachedStats<Simulated>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () =>
     // On an engine worker thread (engine-pool.ts): a cold 30-year simulation never holds up other requests.
     runEngineTask('campaign', await datasetSeries(db, row.id), row, setup, steps, c.timeZone, options.alpha),
   );
+  const results = simulated.months;
+  const siteNames = new Map(setup.sites.map((s) => [s.id, s.name]));
+  const stepList = c.steps.map((st, k) => {
+    const op = ops.get(st.operationId)!;
+    return { operationName: op.name, siteName: siteNames.get(st.siteId) ?? '', trHours: op.tpopH + op.tcH, goStartHours: simulated.goStartHours[k] };
+  });
+  const never = stepList.findIndex((st) => st.goStartHours === 0);
+  const neverStarts =
+    never < 0
+      ? null
+      : `Step ${never + 1}, ${stepList[never].operationName} at ${stepList[never].siteName}, never finds a window in ${row.name}: no ${stepList[never].trHours} h (TR) in a row meet all its limits${options.alpha ? ' at the forecast limits' : ''}, so the campaign never finishes. Check that step's limits.`;
 
   const plannedMs = c.plannedStart ? Date.parse(c.plannedStart) : null;
   const notBeforeMs =
@@ -203,6 +219,7 @@ export async function simulateProjectCampaign(
       startMonth: r.startMonth,
       years: r.years,
       censoredYears: r.censoredYears,
+      stuckSteps: r.stuckSteps,
       p50Hours: r.p50Hours,
       p90Hours: r.p90Hours,
       wowP50Hours: r.wowP50Hours,
@@ -218,6 +235,8 @@ export async function simulateProjectCampaign(
     alpha: options.alpha,
     timeZone: c.timeZone,
     sumTpopHours: c.steps.reduce((a, s) => a + ops.get(s.operationId)!.tpopH, 0),
+    steps: stepList,
+    neverStarts,
     months,
   };
 }
@@ -234,7 +253,7 @@ export function computeCampaignMonths(
   steps: { operationId: string; siteId: string; tpopH: number }[],
   timeZone: string,
   alpha: boolean,
-): SimulatedMonth[] {
+): Simulated {
   const stepMs = row.stepMinutes * 60_000;
   const key = (opId: string, siteId: string) => `${opId}|${siteId}`;
   const wanted = new Set(steps.map((s) => key(s.operationId, s.siteId)));
@@ -250,5 +269,9 @@ export function computeCampaignMonths(
     (opId, siteId) => wanted.has(key(opId, siteId)),
   );
   const campaignSteps: CampaignStep[] = steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: s.tpopH }));
-  return simulateCampaign(series.timeMs, stepMs, campaignSteps, { timeZone }).map(({ runs: _runs, ...month }) => month);
+  const dtH = stepMs / MS_PER_HOUR;
+  return {
+    months: simulateCampaign(series.timeMs, stepMs, campaignSteps, { timeZone }).map(({ runs: _runs, ...month }) => month),
+    goStartHours: campaignSteps.map((st) => st.goStart.reduce((a, x) => a + x, 0) * dtH),
+  };
 }

@@ -18,7 +18,7 @@ import type { ImportAnswer } from '../../shared/api-types-datasets';
 import type { Db } from '../db/client';
 import { project } from '../db/schema';
 import { HttpError, parseInput } from '../http/errors';
-import { createDataset } from './datasets';
+import { createDataset, defaultHindcast, shortDefaultWarning } from './datasets';
 import { toSeaSeries } from './sea-series';
 
 export const MAX_UPLOAD_BYTES = 100 * 1024 * 1024;
@@ -150,7 +150,15 @@ export async function importUploadedFile(
       ...(format === 'csv' ? { directionConvention: form.directionConvention } : {}),
     },
   );
+  // A hindcast shorter than a year that is now the default for statistics (no default chosen, and
+  // it is the newest) changes every figure of the project: say so.
+  let warning: string | null = null;
+  if (row.kind === 'hindcast') {
+    const def = await defaultHindcast(db, args.projectId);
+    if (def?.id === row.id) warning = shortDefaultWarning(row, false);
+  }
   return {
+    warning,
     id: row.id,
     records: row.recordCount,
     start: row.startAt.toISOString(),

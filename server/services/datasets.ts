@@ -1,8 +1,10 @@
 import { and, desc, eq } from 'drizzle-orm';
 import type { DatasetDetail, DatasetSummary, MonthlySummaryRow, RecordsAnswer } from '../../shared/api-types-datasets';
 import type { Db } from '../db/client';
-import { dataset } from '../db/schema';
+import { dataset, project } from '../db/schema';
+import type { SessionUser } from '../http/context';
 import { HttpError } from '../http/errors';
+import { recordAudit } from './audit';
 import { idParam } from '../../shared/schemas/common';
 import { quantileR7Sorted } from '../../shared/engine/quantile-r7';
 import { describeSeries } from './sea-series';
@@ -57,7 +59,19 @@ export async function createDataset(db: Db, meta: DatasetMeta, series: SeaSeries
 
 type DatasetRow = typeof dataset.$inferSelect;
 
+/**
+ * Records a regular series of step dt would hold from the first to the last record, and how many
+ * of them are absent (rows not in the file at all, as opposed to rows with a missing value). An
+ * irregular series can hold more records than the grid: then nothing counts as absent.
+ */
+export function expectedRecords(startMs: number, endMs: number, stepMinutes: number, records: number): { expected: number; absent: number } {
+  const expected = stepMinutes > 0 ? Math.floor((endMs - startMs) / (stepMinutes * 60_000)) + 1 : records;
+  return { expected: Math.max(expected, records), absent: Math.max(0, expected - records) };
+}
+
 export function toSummary(r: DatasetRow): DatasetSummary {
+  const grid = expectedRecords(r.startAt.getTime(), r.endAt.getTime(), r.stepMinutes, r.recordCount);
+  const hsMissing = r.missing.hs ?? r.recordCount;
   return {
     id: r.id,
     name: r.name,
@@ -73,13 +87,72 @@ export function toSummary(r: DatasetRow): DatasetSummary {
     derived: r.derived,
     missingShare: r.recordCount ? (r.missing.hs ?? 0) / r.recordCount : 0,
     wind: { anemometerHeightM: r.anemometerHeightM, exponent: r.windExponent },
+    expectedRecords: grid.expected,
+    absentRecords: grid.absent,
+    hsGapShare: grid.expected ? (hsMissing + grid.absent) / grid.expected : 0,
     createdAt: r.createdAt.toISOString(),
   };
 }
 
 export async function listDatasets(db: Db, projectId: string): Promise<DatasetSummary[]> {
   const rows = await db.select().from(dataset).where(eq(dataset.projectId, projectId)).orderBy(desc(dataset.createdAt));
-  return rows.map(toSummary);
+  const def = await defaultHindcast(db, projectId);
+  return rows.map((r) => ({ ...toSummary(r), statisticsDefault: r.id === def?.id }));
+}
+
+/** A span shorter than this is too short for statistics by calendar month (every month once). */
+const YEAR_MS = 365 * 86_400_000;
+
+/**
+ * The project's default dataset for statistics: the hindcast (or observation record) the
+ * coordinator chose, else the newest hindcast; null when there is none.
+ */
+export async function defaultHindcast(db: Db, projectId: string): Promise<DatasetRow | null> {
+  const [p] = await db.select({ id: project.defaultHindcastId }).from(project).where(eq(project.id, projectId));
+  if (p?.id) {
+    const [row] = await db.select().from(dataset).where(and(eq(dataset.id, p.id), eq(dataset.projectId, projectId)));
+    if (row && row.kind !== 'forecast') return row;
+  }
+  return latestDataset(db, projectId, 'hindcast');
+}
+
+/** A warning when a dataset spanning less than a year is (or becomes) the default for statistics. */
+export function shortDefaultWarning(row: Pick<DatasetRow, 'name' | 'startAt' | 'endAt' | 'stepMinutes'>, chosen: boolean): string | null {
+  const spanMs = row.endAt.getTime() + row.stepMinutes * 60_000 - row.startAt.getTime();
+  if (spanMs >= YEAR_MS) return null;
+  const days = Math.round(spanMs / 86_400_000);
+  return `${row.name} spans ${days} day${days === 1 ? '' : 's'}, less than a year, and ${chosen ? 'is now' : 'became'} the default for every statistic of this project: months it does not cover have no expected downtime and the others rest on one short sample.${chosen ? '' : ' Choose the default hindcast on the Sea data page.'}`;
+}
+
+/**
+ * Sets (or with null clears) the project's default dataset for statistics: a hindcast or an
+ * observation record of the project, not a forecast. Audited.
+ * @returns the warning for a span under a year, else null
+ */
+export async function setDefaultHindcast(db: Db, projectId: string, user: SessionUser, datasetId: string | null): Promise<{ datasetId: string | null; warning: string | null }> {
+  return db.transaction(async (tx) => {
+    const [p] = await tx.select().from(project).where(eq(project.id, projectId));
+    if (!p) throw new HttpError('not_found', 'Project not found');
+    let row: DatasetRow | null = null;
+    if (datasetId !== null) {
+      row = await getDatasetRow(tx, projectId, datasetId);
+      if (row.kind === 'forecast') {
+        throw new HttpError('validation', 'Statistics need a hindcast (or a long observation record), not a forecast', [{ field: 'datasetId', message: 'is a forecast' }]);
+      }
+    }
+    await tx.update(project).set({ defaultHindcastId: datasetId, updatedAt: new Date() }).where(eq(project.id, projectId));
+    await recordAudit(tx, {
+      projectId,
+      user,
+      entity: 'project',
+      entityId: projectId,
+      entityName: p.name,
+      action: 'update',
+      before: { defaultHindcastId: p.defaultHindcastId },
+      after: { defaultHindcastId: datasetId, defaultHindcastName: row?.name ?? null },
+    });
+    return { datasetId, warning: row ? shortDefaultWarning(row, true) : null };
+  });
 }
 
 /** The dataset, only when it belongs to the project (else 404). */

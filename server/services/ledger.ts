@@ -454,6 +454,8 @@ export async function listLedger(db: Db, projectId: string, range: { from: strin
   const rows = await ledgerSelect(db)
     .where(and(...conditions))
     .orderBy(asc(ledgerDay.day), asc(operation.name), asc(worksite.name));
+  // Clients see the confirmed figures only, not what the data proposed before a correction.
+  if (confirmedOnly(role)) return rows.map((r) => ({ ...toEntry(r), proposedLostHours: null, proposedLimiting: null }));
   return rows.map(toEntry);
 }
 
@@ -558,11 +560,14 @@ export function yearMonthLostHours(timeMs: Float64Array, status: Uint8Array, yea
   return out;
 }
 
-/** Expected lost hours (P50/P90 over the hindcast years) of every operation at each worksite. */
-export function computeExpectations(series: SeaSeries, row: DatasetRow, setup: ProjectSetup): LedgerExpectation[] {
+/**
+ * Expected lost hours (P50/P90 over the hindcast years) of every operation at each worksite, at
+ * OPLIM (`alpha` false, the default) or at the forecast limits, to match the rest of the page.
+ */
+export function computeExpectations(series: SeaSeries, row: DatasetRow, setup: ProjectSetup, alpha = false): LedgerExpectation[] {
   const out: LedgerExpectation[] = [];
   forEachOperationSite(series, row, setup, ({ op, spec, site, engine, calendar, stepMs, workspace }) => {
-    const status = evaluateStatus(engine, spec, { alpha: false, alphaTable: setup.alphaTable, out: workspace.status });
+    const status = evaluateStatus(engine, spec, { alpha, alphaTable: setup.alphaTable, out: workspace.status });
     const perYm = yearMonthLostHours(engine.timeMs, status, calendar.yearMonth, stepMs, site.timeZone);
     const months = Array.from({ length: 12 }, (_, m) => {
       const values = Float64Array.from(perYm.filter(([ym]) => ym - Math.floor(ym / 12) * 12 === m).map(([, h]) => h));
@@ -583,8 +588,9 @@ export function computeExpectations(series: SeaSeries, row: DatasetRow, setup: P
 export async function ledgerMonthly(
   db: Db,
   projectId: string,
-  options: { datasetId?: string; from?: string; to?: string; role: ProjectAccessRole },
+  options: { datasetId?: string; from?: string; to?: string; role: ProjectAccessRole; alpha?: boolean },
 ): Promise<LedgerMonthlyAnswer> {
+  const alpha = options.alpha ?? false;
   const conditions = [eq(ledgerDay.projectId, projectId)];
   if (options.from) conditions.push(gte(ledgerDay.day, options.from));
   if (options.to) conditions.push(lte(ledgerDay.day, options.to));
@@ -597,9 +603,9 @@ export async function ledgerMonthly(
   let expectations: LedgerExpectation[] = [];
   if (hindcast) {
     const version = limitsVersion(setup, hindcast.dataPointDepthM);
-    expectations = await cachedStats(db, projectId, hindcast.id, version, 'ledger', async () =>
+    expectations = await cachedStats(db, projectId, hindcast.id, version, alpha ? 'ledger-alpha' : 'ledger', async () =>
       // On an engine worker thread (engine-pool.ts).
-      runEngineTask('ledgerExpectations', await datasetSeries(db, hindcast.id), hindcast, setup),
+      runEngineTask('ledgerExpectations', await datasetSeries(db, hindcast.id), hindcast, setup, alpha),
     );
   }
   const expected = new Map(expectations.map((e) => [`${e.operationId}|${e.siteId}`, e]));
@@ -648,5 +654,5 @@ export async function ledgerMonthly(
   const out = [...groups.values()].sort(
     (a, b) => a.month.localeCompare(b.month) || a.operationName.localeCompare(b.operationName) || a.siteName.localeCompare(b.siteName),
   );
-  return { hindcast: hindcast ? { id: hindcast.id, name: hindcast.name } : null, rows: out };
+  return { hindcast: hindcast ? { id: hindcast.id, name: hindcast.name } : null, alpha, rows: out };
 }

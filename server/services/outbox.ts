@@ -3,6 +3,33 @@ import type { Db } from '../db/client';
 import { outbox } from '../db/schema';
 import type { Mailer } from '../mail/mailer';
 import type { Logger } from '../deps';
+import { UNSUBSCRIBE_LINK_MARK, unsubscribeUrl } from './alert-mail';
+
+/** Where delivery finds the app's address and the link secret for unsubscribe links. */
+export interface LinkConfig {
+  baseUrl: string;
+  linkSecret: string;
+}
+
+/**
+ * A stored message as sent: the recipient's signed one-click unsubscribe link put in place of its
+ * mark, with the RFC 8058 headers (List-Unsubscribe with the https link, List-Unsubscribe-Post:
+ * List-Unsubscribe=One-Click) so mail programs can offer their own unsubscribe button.
+ */
+function withUnsubscribeLink(m: { userId: string | null; projectId: string | null; text: string; html: string }, links: LinkConfig | undefined, nowMs: number) {
+  if (!m.text.includes(UNSUBSCRIBE_LINK_MARK) && !m.html.includes(UNSUBSCRIBE_LINK_MARK)) return { text: m.text, html: m.html };
+  if (!links || !m.userId || !m.projectId) {
+    const none = '(change your alerts on the Alerts page)';
+    return { text: m.text.replaceAll(UNSUBSCRIBE_LINK_MARK, none), html: m.html.replaceAll(UNSUBSCRIBE_LINK_MARK, '#') };
+  }
+  const url = unsubscribeUrl(links.baseUrl, links.linkSecret, m.userId, m.projectId, nowMs);
+  const htmlUrl = url.replaceAll('&', '&amp;');
+  return {
+    text: m.text.replaceAll(UNSUBSCRIBE_LINK_MARK, url),
+    html: m.html.replaceAll(UNSUBSCRIBE_LINK_MARK, htmlUrl),
+    headers: { 'List-Unsubscribe': `<${url}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
+  };
+}
 
 export interface OutboxMessage {
   idempotencyKey: string;
@@ -35,7 +62,7 @@ export const retryDelayMs = (attempt: number) => Math.min(60, 2 ** (attempt - 1)
  * pick the same message. Delivery is at least once: after a crash between the SMTP server's
  * acceptance and the 'sent' update, the retry sends the message again, with the same Message-ID.
  */
-export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options: { maxAttempts: number; log: Logger; limit?: number }) {
+export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options: { maxAttempts: number; log: Logger; limit?: number; links?: LinkConfig }) {
   const due = await db
     .select()
     .from(outbox)
@@ -55,7 +82,7 @@ export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options:
     try {
       // The same Message-ID on every attempt: a resend after a crash between the SMTP server's
       // acceptance and the 'sent' update below is recognisable as the same message.
-      await mailer.send({ to: m.toEmail, subject: m.subject, text: m.text, html: m.html, messageId: `outbox.${m.id}` });
+      await mailer.send({ to: m.toEmail, subject: m.subject, ...withUnsubscribeLink(m, options.links, now.getTime()), messageId: `outbox.${m.id}` });
       await db.update(outbox).set({ status: 'sent', sentAt: new Date(), lastError: null }).where(eq(outbox.id, m.id));
       sent++;
     } catch (err) {
@@ -72,6 +99,11 @@ export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options:
   return { due: due.length, sent, failed };
 }
 
+/** What coordinators see of a message: never a recipient's unsubscribe link (older messages held one). */
+const HIDDEN_LINK = '(the recipient’s own unsubscribe link)';
+const hideLinks = (s: string) => s.replaceAll(UNSUBSCRIBE_LINK_MARK, HIDDEN_LINK).replace(/https?:\/\/[^\s"'<>]*\/api\/unsubscribe\?[^\s"'<>]*/g, HIDDEN_LINK);
+
 export async function listOutbox(db: Db, projectId: string, limit = 100) {
-  return db.select().from(outbox).where(eq(outbox.projectId, projectId)).orderBy(desc(outbox.createdAt)).limit(limit);
+  const rows = await db.select().from(outbox).where(eq(outbox.projectId, projectId)).orderBy(desc(outbox.createdAt)).limit(limit);
+  return rows.map((r) => ({ ...r, text: hideLinks(r.text), html: hideLinks(r.html) }));
 }

@@ -7,7 +7,6 @@ import type { Db } from '../db/client';
 import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
 import { createHash } from 'node:crypto';
-import { Lru } from './lru';
 import { encodedAnswer } from './encoded-answers';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup } from './site-context';
 import { readSeries } from './series-store';
@@ -27,14 +26,57 @@ async function planDataset(db: Db, projectId: string, datasetId?: string) {
   return latestDataset(db, projectId, 'forecast');
 }
 
-/**
- * Recent plans by (dataset, whole project setup, alpha, clock minute), per database handle: the
- * watch board of every member asks for the same plan, and "now" only moves the answer at the
- * minute (the data are hourly), so a minute's repeat reuses it. A stored dataset never changes and
- * any change to the setup (limits, names, skippers, recurrences) changes the key.
- */
-const planMemos = new WeakMap<Db, Lru<Promise<Omit<PlanAnswer, 'generatedAt'>>>>();
+type PlanRow = NonNullable<Awaited<ReturnType<typeof planDataset>>>;
+
+/** Longest span a plan covers: a forecast's horizon, or a chosen stretch of a hindcast. */
+export const MAX_PLAN_DAYS = 31;
+const DAY_MS = 86_400_000;
 const MS_PER_MINUTE = 60_000;
+
+export interface PlanOptions {
+  datasetId?: string;
+  alpha: boolean;
+  now: Date;
+  /** Non-forecast datasets: the stretch to plan (ISO), at most MAX_PLAN_DAYS days; default its last MAX_PLAN_DAYS days. */
+  from?: string;
+  to?: string;
+}
+
+/**
+ * The stretch of a dataset a plan covers and the "now" it is planned as at. A forecast is planned
+ * from its start for at most MAX_PLAN_DAYS days, as at the current clock minute. Any other
+ * dataset (a hindcast or observations, looked at as if it were a forecast) is planned on a chosen
+ * stretch of at most MAX_PLAN_DAYS days, by default its last ones, as at the stretch's start, so
+ * the answer does not change with the clock.
+ */
+export function planSpan(row: Pick<PlanRow, 'kind' | 'startAt' | 'endAt'>, options: Pick<PlanOptions, 'from' | 'to' | 'now'>): { fromMs: number; toMs: number; nowMs: number; keyed: string } {
+  const startMs = row.startAt.getTime();
+  const endMs = row.endAt.getTime();
+  const maxMs = MAX_PLAN_DAYS * DAY_MS;
+  if (row.kind === 'forecast' && options.from === undefined && options.to === undefined) {
+    const nowMs = Math.floor(options.now.getTime() / MS_PER_MINUTE) * MS_PER_MINUTE;
+    const toMs = Math.min(endMs, startMs + maxMs);
+    return { fromMs: startMs, toMs, nowMs, keyed: `${startMs}-${toMs}@${nowMs}` };
+  }
+  const fromAsked = options.from !== undefined ? Date.parse(options.from) : undefined;
+  const toAsked = options.to !== undefined ? Date.parse(options.to) : undefined;
+  let fromMs: number;
+  let toMs: number;
+  if (fromAsked !== undefined && toAsked !== undefined) {
+    [fromMs, toMs] = [fromAsked, toAsked];
+  } else if (fromAsked !== undefined) {
+    [fromMs, toMs] = [fromAsked, Math.min(endMs, fromAsked + maxMs)];
+  } else if (toAsked !== undefined) {
+    [fromMs, toMs] = [Math.max(startMs, toAsked - maxMs), toAsked];
+  } else {
+    [fromMs, toMs] = [Math.max(startMs, endMs - maxMs), endMs];
+  }
+  if (!(toMs > fromMs)) throw new HttpError('validation', 'Invalid query: to: must be after from', [{ field: 'to', message: 'must be after from' }]);
+  if (toMs - fromMs > maxMs) {
+    throw new HttpError('validation', `Invalid query: to: a plan covers at most ${MAX_PLAN_DAYS} days`, [{ field: 'to', message: `at most ${MAX_PLAN_DAYS} days after from` }]);
+  }
+  return { fromMs, toMs, nowMs: fromMs, keyed: `${fromMs}-${toMs}` };
+}
 
 function setupKey(setup: ProjectSetup): string {
   return createHash('sha256').update(JSON.stringify([STATS_FORMAT, setup])).digest('hex').slice(0, 32);
@@ -42,59 +84,47 @@ function setupKey(setup: ProjectSetup): string {
 
 /**
  * Plans every operation at each of its worksites on a dataset (by default the latest forecast):
- * hourly status, limiting factor, usable windows, earliest go-start and "may start now", as at the
- * start of the current clock minute.
+ * hourly status, limiting factor, usable windows, earliest go-start and "may start now".
  */
-export async function projectPlan(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean; now: Date }): Promise<PlanAnswer> {
-  const generatedAt = options.now.toISOString();
-  const found = await recentPlan(db, projectId, options);
-  if (!found) return { dataset: null, generatedAt, alpha: options.alpha, stepMinutes: 60, plans: [] };
-  return { ...(await found.answer), generatedAt };
+export async function projectPlan(db: Db, projectId: string, options: PlanOptions): Promise<PlanAnswer> {
+  return JSON.parse((await projectPlanJson(db, projectId, options)).toString('utf8')) as PlanAnswer;
 }
 
-/** The same answer as JSON bytes: the plan is kept encoded with its memo entry; only `generatedAt` is new. */
-export async function projectPlanJson(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean; now: Date }): Promise<Buffer> {
+/**
+ * The same answer as JSON bytes. Plans are kept encoded (bounded by bytes, server/services/
+ * encoded-answers.ts) under a key of the dataset, the whole project setup, alpha and the span; a
+ * forecast's key also holds the clock minute ("now" moves its answer), other datasets' do not.
+ * Only `generatedAt` is new per request.
+ */
+export async function projectPlanJson(db: Db, projectId: string, options: PlanOptions): Promise<Buffer> {
   const generatedAt = options.now.toISOString();
-  const found = await recentPlan(db, projectId, options);
-  if (!found) return Buffer.from(JSON.stringify({ dataset: null, generatedAt, alpha: options.alpha, stepMinutes: 60, plans: [] }));
-  const rest = await encodedAnswer(db, `plan:${found.key}`, () => found.answer);
+  const row = await planDataset(db, projectId, options.datasetId);
+  if (!row) return Buffer.from(JSON.stringify({ dataset: null, generatedAt, alpha: options.alpha, stepMinutes: 60, plans: [] }));
+  const span = planSpan(row, options);
+  const setup = await loadProjectSetup(db, projectId);
+  const key = `plan:${row.id}:${setupKey(setup)}:${options.alpha}:${span.keyed}`;
+  const rest = await encodedAnswer(db, key, () => computePlan(db, row, setup, options.alpha, span));
   // `{"generatedAt":"…",` + the kept answer without its opening brace (it is never empty).
   return Buffer.concat([Buffer.from(`{"generatedAt":${JSON.stringify(generatedAt)},`), rest.subarray(1)]);
 }
 
-async function recentPlan(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean; now: Date }) {
-  const row = await planDataset(db, projectId, options.datasetId);
-  if (!row) return null;
-  const setup = await loadProjectSetup(db, projectId);
-  const minuteMs = Math.floor(options.now.getTime() / MS_PER_MINUTE) * MS_PER_MINUTE;
-  const key = `${row.id}:${setupKey(setup)}:${options.alpha}:${minuteMs}`;
-  let memo = planMemos.get(db);
-  if (!memo) planMemos.set(db, (memo = new Lru(16)));
-  let answer = memo.get(key);
-  if (!answer) {
-    answer = computePlan(db, row, setup, options.alpha, new Date(minuteMs));
-    memo.set(key, answer);
-    const m = memo;
-    answer.catch(() => m.delete(key));
-  }
-  return { key, answer };
-}
-
 async function computePlan(
   db: Db,
-  row: NonNullable<Awaited<ReturnType<typeof planDataset>>>,
+  row: PlanRow,
   setup: ProjectSetup,
   alpha: boolean,
-  now: Date,
+  span: { fromMs: number; toMs: number; nowMs: number },
 ): Promise<Omit<PlanAnswer, 'generatedAt'>> {
-  const options = { alpha, now };
-  const series = await readSeries(db, row.id);
+  const options = { alpha, now: new Date(span.nowMs) };
+  const series = await readSeries(db, row.id, { fromMs: span.fromMs, toMs: span.toMs });
   const times = Array.from(series.timeMs, iso);
   const stepMs = row.stepMinutes * 60_000;
   const perSite = new Map(setup.sites.map((s) => [s.id, transformForSite(series, row.dataPointDepthM, s)]));
   const plans: OperationSitePlan[] = [];
   for (const op of setup.operations) {
     const spec = operationSpec(op);
+    // The occurrences of a recurring operation are the same at each of its worksites: expanded once.
+    const starts = recurrenceStarts(op.recurrence, series.timeMs, stepMs, options.now.getTime());
     for (const site of sitesOf(op, setup.sites)) {
       const t = perSite.get(site.id)!;
       const plan = planOperation(t.engine, spec, setup.alphaTable, options.now.getTime(), { alpha: options.alpha, stepMs });
@@ -121,7 +151,7 @@ async function computePlan(
         startNow: plan.startNow,
         times,
         status: statusNames,
-        occurrences: occurrencesOf(op.recurrence, series.timeMs, plan.durationMs, statusNames, op.tpopH + op.tcH, options.now.getTime(), plan.informationOnly),
+        occurrences: occurrencesOf(op.recurrence, series.timeMs, plan.durationMs, statusNames, op.tpopH + op.tcH, options.now.getTime(), plan.informationOnly, starts),
         limiting: Array.from(plan.limiting, (c) => LIMIT_NAMES[c] ?? null),
         marginRel: Array.from(plan.marginRel, (m) => (Number.isFinite(m) ? Math.round(m * 1000) / 1000 : null)),
       });
@@ -129,10 +159,18 @@ async function computePlan(
   }
   return {
     dataset: { id: row.id, name: row.name, kind: row.kind, issuedAt: row.issuedAt?.toISOString() ?? null, start: row.startAt.toISOString(), end: row.endAt.toISOString() },
+    span: { from: iso(span.fromMs), to: iso(span.toMs), asAt: iso(span.nowMs) },
     alpha: options.alpha,
     stepMinutes: row.stepMinutes,
     plans,
   };
+}
+
+/** Occurrence starts of a stored recurrence inside the plan's horizon (none when it is not a valid rule). */
+function recurrenceStarts(recurrence: unknown, timeMs: Float64Array, stepMs: number, nowMs: number): number[] {
+  const r = RecurrenceInput.safeParse(recurrence);
+  if (!r.success || timeMs.length === 0) return [];
+  return expandRecurrence(r.data, Math.max(timeMs[0], nowMs - stepMs), timeMs[timeMs.length - 1]);
 }
 
 /**
@@ -151,13 +189,10 @@ export function occurrencesOf(
   trH: number,
   nowMs: number,
   informationOnly = false,
+  starts = recurrenceStarts(recurrence, timeMs, durationMs.length > 0 ? durationMs[0] : 0, nowMs),
 ): OccurrenceJudgement[] {
-  const r = RecurrenceInput.safeParse(recurrence);
-  if (!r.success || timeMs.length === 0) return [];
-  const first = Math.max(timeMs[0], nowMs - durationMs[0]);
-  const last = timeMs[timeMs.length - 1];
   const out: OccurrenceJudgement[] = [];
-  for (const t0 of expandRecurrence(r.data, first, last)) {
+  for (const t0 of starts) {
     const t1 = t0 + trH * 3_600_000;
     let i = 0;
     while (i < timeMs.length && timeMs[i] + durationMs[i] <= t0) i++;
@@ -231,14 +266,20 @@ export async function hourChain(
 }
 
 /** Worksite conditions over a dataset with each operation's limit and forecast limit. */
-export async function siteConditions(db: Db, projectId: string, q: { datasetId?: string; siteId: string }): Promise<ConditionsAnswer> {
+export async function siteConditions(
+  db: Db,
+  projectId: string,
+  q: { datasetId?: string; siteId: string; from?: string; to?: string; now: Date },
+): Promise<ConditionsAnswer> {
   const setup = await loadProjectSetup(db, projectId);
   const site = setup.sites.find((s) => s.id === q.siteId);
   if (!site) throw new HttpError('not_found', 'Worksite not found');
   const row = await planDataset(db, projectId, q.datasetId);
   const empty: ConditionsAnswer = { siteId: site.id, timeZone: site.timeZone, times: [], hs: [], tp: [], dir: [], wind: [], bedVelocityLinear: [], bedVelocitySoulsby: [], flags: [], operations: [] };
   if (!row) return empty;
-  const series = await readSeries(db, row.id);
+  // The same bounded stretch as a plan (at most MAX_PLAN_DAYS days).
+  const span = planSpan(row, q);
+  const series = await readSeries(db, row.id, { fromMs: span.fromMs, toMs: span.toMs });
   const t = transformForSite(series, row.dataPointDepthM, site);
   const col = (a: Float64Array) => Array.from(a, (x) => (Number.isNaN(x) ? null : Math.round(x * 1000) / 1000));
   return {

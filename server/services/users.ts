@@ -9,6 +9,11 @@ import { project, projectMember, session, user } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { hasControlChars, hasLoneSurrogate } from '../../shared/schemas/common';
 import type { SessionUser } from '../http/context';
+import { passwordProblem } from '../../shared/auth/password-rules';
+import { TEMPORARY_PASSWORD_DAYS } from '../auth';
+import { account } from '../db/schema';
+
+const DAY_MS = 86_400_000;
 
 export async function describeMe(db: Db, me: SessionUser): Promise<MeResponse> {
   const memberships = await db
@@ -17,7 +22,7 @@ export async function describeMe(db: Db, me: SessionUser): Promise<MeResponse> {
     .innerJoin(project, eq(project.id, projectMember.projectId))
     .where(eq(projectMember.userId, me.id))
     .orderBy(asc(project.name));
-  return { id: me.id, name: me.name, email: me.email, globalRole: me.role, projects: memberships };
+  return { id: me.id, name: me.name, email: me.email, globalRole: me.role, mustChangePassword: me.mustChangePassword ?? false, projects: memberships };
 }
 
 export async function listUsers(db: Db): Promise<AdminUser[]> {
@@ -34,6 +39,8 @@ export async function listUsers(db: Db): Promise<AdminUser[]> {
     globalRole: u.role === 'admin' ? 'admin' : 'user',
     active: !u.banned,
     createdAt: u.createdAt.toISOString(),
+    mustChangePassword: u.mustChangePassword,
+    temporaryPasswordExpiresAt: u.mustChangePassword ? (u.temporaryPasswordExpiresAt?.toISOString() ?? null) : null,
     projects: memberships
       .filter((m) => m.userId === u.id)
       .map(({ projectId, projectName, role }) => ({ projectId, projectName, role })),
@@ -46,16 +53,36 @@ export function temporaryPassword(): string {
   return `lw-${words.slice(0, 6)}-${words.slice(6, 12)}-${words.slice(12)}`;
 }
 
+/** The password rules (shared/auth/password-rules.ts) as a 400 naming the field. */
+function checkPassword(password: string, context: { email: string; name: string }): void {
+  const problem = passwordProblem(password, context);
+  if (problem) throw new HttpError('validation', `The password ${problem}`, [{ field: 'password', message: problem }]);
+}
+
+/**
+ * Creates a user. Without `password` the user gets a generated temporary password, which must be
+ * changed at the first sign-in and stops working after TEMPORARY_PASSWORD_DAYS days; a given
+ * password (the demo seed's) is the account's own.
+ */
 export async function createUser(
   auth: Auth,
   input: { name: string; email: string; globalRole: 'admin' | 'user' },
-  password = temporaryPassword(),
+  password?: string,
+  now = new Date(),
 ): Promise<{ user: AdminUser; temporaryPassword: string }> {
+  const temporary = password === undefined;
+  const pw = password ?? temporaryPassword();
+  checkPassword(pw, input);
   try {
     const result = await auth.api.createUser({
-      body: { name: input.name, email: input.email, password, role: input.globalRole },
+      body: { name: input.name, email: input.email, password: pw, role: input.globalRole },
     });
     const u = result.user as { id: string; name: string; email: string; createdAt: Date };
+    const expiresAt = temporary ? new Date(now.getTime() + TEMPORARY_PASSWORD_DAYS * DAY_MS) : null;
+    if (expiresAt) {
+      const ctx = await auth.$context;
+      await ctx.internalAdapter.updateUser(u.id, { mustChangePassword: true, temporaryPasswordExpiresAt: expiresAt });
+    }
     return {
       user: {
         id: u.id,
@@ -64,9 +91,11 @@ export async function createUser(
         globalRole: input.globalRole,
         active: true,
         createdAt: new Date(u.createdAt).toISOString(),
+        mustChangePassword: temporary,
+        temporaryPasswordExpiresAt: expiresAt?.toISOString() ?? null,
         projects: [],
       },
-      temporaryPassword: password,
+      temporaryPassword: pw,
     };
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);
@@ -77,8 +106,34 @@ export async function createUser(
   }
 }
 
-export async function createUserFromInput(auth: Auth, input: CreateUserInput) {
-  return createUser(auth, { name: input.name, email: input.email, globalRole: input.globalRole ?? 'user' });
+export async function createUserFromInput(auth: Auth, input: CreateUserInput, now = new Date()) {
+  return createUser(auth, { name: input.name, email: input.email, globalRole: input.globalRole ?? 'user' }, undefined, now);
+}
+
+/**
+ * Issues a new temporary password (a forgotten or expired one): the old password stops working,
+ * every session of the user ends, and the new one must be changed at the next sign-in.
+ */
+export async function issueTemporaryPassword(auth: Auth, db: Db, userId: string, now = new Date()): Promise<{ temporaryPassword: string; expiresAt: string }> {
+  checkUserId(userId);
+  const [target] = await db.select({ id: user.id, email: user.email, name: user.name }).from(user).where(eq(user.id, userId));
+  if (!target) throw new HttpError('not_found', 'User not found');
+  const pw = temporaryPassword();
+  checkPassword(pw, target);
+  const ctx = await auth.$context;
+  const hash = await ctx.password.hash(pw);
+  const expiresAt = new Date(now.getTime() + TEMPORARY_PASSWORD_DAYS * DAY_MS);
+  await db.transaction(async (tx) => {
+    const updated = await tx
+      .update(account)
+      .set({ password: hash, updatedAt: now })
+      .where(and(eq(account.userId, userId), eq(account.providerId, 'credential')))
+      .returning({ id: account.id });
+    if (updated.length === 0) throw new HttpError('conflict', 'This user has no password sign-in');
+    await tx.update(user).set({ mustChangePassword: true, temporaryPasswordExpiresAt: expiresAt, updatedAt: now }).where(eq(user.id, userId));
+    await tx.delete(session).where(eq(session.userId, userId));
+  });
+  return { temporaryPassword: pw, expiresAt: expiresAt.toISOString() };
 }
 
 /** Deactivates (signs out everywhere, refuses sign-in) or reactivates a user; changes the global role. */

@@ -27,10 +27,10 @@ import type { WorkabilityCalendarMonth, WorkabilityEntry, WorkabilityMonth, Work
 import type { Db } from '../db/client';
 import { statsCache } from '../db/schema';
 import { HttpError } from '../http/errors';
-import { getDatasetRow, latestDataset } from './datasets';
+import { defaultHindcast, getDatasetRow, latestDataset } from './datasets';
 import { readSeries, type SeaSeries } from './series-store';
 import { loadProjectSetup, operationSpec, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
-import { Lru } from './lru';
+import { ByteBoundedMemo, jsonBytes, seriesBytes } from './byte-cache';
 import { encodedAnswer, forgetEncodedAnswers } from './encoded-answers';
 import { runEngineTask, sharedSeries } from './engine-pool';
 
@@ -47,17 +47,25 @@ export const STATS_FORMAT = 2;
 // In-process memos (per database handle, so test databases never share entries)
 // ---------------------------------------------------------------------------------------------
 
+/** Bytes of stored series kept per database handle (30 years hourly is about 17 MB). */
+export const SERIES_MEMO_BYTES = 48 * 1024 * 1024;
+/** Bytes of computed statistics kept per database handle (measured as their JSON text). */
+export const ANSWER_MEMO_BYTES = 32 * 1024 * 1024;
+
 interface Memos {
-  /** Stored series by dataset id: at most two (30 years hourly is about 15 MB). */
-  series: Lru<Promise<SeaSeries>>;
-  /** Computed answers by cache key (promises, so concurrent requests compute once). */
-  answers: Lru<Promise<unknown>>;
+  /** Stored series by dataset id. */
+  series: ByteBoundedMemo<SeaSeries>;
+  /** Computed answers by cache key (concurrent requests compute once). */
+  answers: ByteBoundedMemo<{ value: unknown }>;
 }
 const memos = new WeakMap<Db, Memos>();
 function memoOf(db: Db): Memos {
   let m = memos.get(db);
   if (!m) {
-    m = { series: new Lru(2), answers: new Lru(24) };
+    m = {
+      series: new ByteBoundedMemo<SeaSeries>(SERIES_MEMO_BYTES, (s) => seriesBytes(s as unknown as Record<string, unknown>)),
+      answers: new ByteBoundedMemo<{ value: unknown }>(ANSWER_MEMO_BYTES, (a) => jsonBytes(a.value)),
+    };
     memos.set(db, m);
   }
   return m;
@@ -71,15 +79,8 @@ export function clearStatsMemo(db: Db): void {
 
 /** A dataset's series, read once and kept in memory (stored datasets are never changed). */
 export function datasetSeries(db: Db, datasetId: string): Promise<SeaSeries> {
-  const m = memoOf(db);
-  let p = m.series.get(datasetId);
-  if (!p) {
-    // In shared memory, so engine worker threads read it without a copy.
-    p = readSeries(db, datasetId).then(sharedSeries);
-    m.series.set(datasetId, p);
-    p.catch(() => m.series.delete(datasetId));
-  }
-  return p;
+  // In shared memory, so engine worker threads read it without a copy.
+  return memoOf(db).series.get(datasetId, () => readSeries(db, datasetId).then(sharedSeries));
 }
 
 /** Cache writes not finished yet. */
@@ -99,9 +100,7 @@ export async function settleStatsCache(): Promise<void> {
 export async function cachedStats<T>(db: Db, projectId: string, datasetId: string, version: string, variant: string, compute: () => Promise<T>): Promise<T> {
   const key = `${datasetId}:${version}:${variant}`;
   const m = memoOf(db);
-  const hit = m.answers.get(key);
-  if (hit) return hit as Promise<T>;
-  const p = (async () => {
+  const p = async () => {
     const [row] = await db.select({ value: statsCache.value }).from(statsCache).where(eq(statsCache.key, key));
     if (row) return row.value as T;
     const value = await compute();
@@ -121,10 +120,9 @@ export async function cachedStats<T>(db: Db, projectId: string, datasetId: strin
     pendingWrites.add(write);
     void write.finally(() => pendingWrites.delete(write));
     return value;
-  })();
-  m.answers.set(key, p);
-  p.catch(() => m.answers.delete(key));
-  return p;
+  };
+  const wrapped = m.answers.get(key, async () => ({ value: await p() }));
+  return wrapped.then((a) => a.value as T);
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -240,7 +238,7 @@ export function forEachOperationSite(
 
 /** The hindcast to compute statistics on: the one asked for (of this project), else the newest hindcast. */
 export async function statisticsDataset(db: Db, projectId: string, datasetId?: string): Promise<DatasetRow | null> {
-  if (!datasetId) return latestDataset(db, projectId, 'hindcast');
+  if (!datasetId) return defaultHindcast(db, projectId);
   const row = await getDatasetRow(db, projectId, datasetId);
   if (row.kind === 'forecast') {
     throw new HttpError('validation', 'Statistics need a hindcast (or a long observation record), not a forecast', [{ field: 'dataset', message: 'is a forecast' }]);

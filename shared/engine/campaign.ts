@@ -36,6 +36,8 @@ export interface CampaignRun {
   wowHours: number | null;
   /** A step found no go-start before the data end. */
   censored: boolean;
+  /** Index of the step that found no go-start (censored runs); null otherwise. */
+  stuckStep: number | null;
 }
 
 /** Campaign duration statistics for one start month. */
@@ -46,6 +48,8 @@ export interface CampaignMonthResult {
   years: number;
   /** Calendar years whose run was censored. */
   censoredYears: number[];
+  /** Per step index, how many censored years stopped at it (only steps that stopped some). */
+  stuckSteps: { step: number; years: number }[];
   /** Type-7 percentiles over the non-censored years, h; null when every year is censored. */
   p50Hours: number | null;
   p90Hours: number | null;
@@ -101,7 +105,7 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
   const n = timeMs.length;
   if (n === 0) {
     zoneOffsetMs(timeZone, 0);
-    return startMonths.map((startMonth) => ({ startMonth, years: 0, censoredYears: [], p50Hours: null, p90Hours: null, wowP50Hours: null, wowP90Hours: null, runs: [] }));
+    return startMonths.map((startMonth) => ({ startMonth, years: 0, censoredYears: [], stuckSteps: [], p50Hours: null, p90Hours: null, wowP50Hours: null, wowP90Hours: null, runs: [] }));
   }
   const firstMs = timeMs[0];
   const endMs = timeMs[n - 1] + recordSteps(timeMs, stepMs).durationMs[n - 1];
@@ -115,11 +119,14 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
       if (startMs < firstMs || startMs >= endMs) continue;
       let t = startMs;
       let censored = false;
-      for (const step of prepared) {
+      let stuckStep: number | null = null;
+      for (let k = 0; k < prepared.length; k++) {
+        const step = prepared[k];
         const i = lowerBound(step.times, t);
         const j = i < step.times.length ? step.next[i] : -1;
         if (j < 0) {
           censored = true;
+          stuckStep = k;
           break;
         }
         t = step.times[j] + step.tpopMs;
@@ -132,6 +139,7 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
         durationHours,
         wowHours: durationHours === null ? null : durationHours - sumTpopH,
         censored,
+        stuckStep,
       });
     }
     const done = runs.filter((r) => !r.censored);
@@ -142,6 +150,7 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
       startMonth,
       years: runs.length,
       censoredYears: runs.filter((r) => r.censored).map((r) => r.year),
+      stuckSteps: stuckCounts(runs),
       p50Hours: q(d, 0.5),
       p90Hours: q(d, 0.9),
       wowP50Hours: q(w, 0.5),
@@ -161,4 +170,11 @@ function lowerBound(times: Float64Array, t: number): number {
     else hi = mid;
   }
   return lo;
+}
+
+/** How many censored runs stopped at each step, by step index. */
+function stuckCounts(runs: CampaignRun[]): { step: number; years: number }[] {
+  const counts = new Map<number, number>();
+  for (const r of runs) if (r.stuckStep !== null) counts.set(r.stuckStep, (counts.get(r.stuckStep) ?? 0) + 1);
+  return [...counts].sort((a, b) => a[0] - b[0]).map(([step, years]) => ({ step, years }));
 }

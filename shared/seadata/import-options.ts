@@ -9,7 +9,7 @@
  */
 import { z } from 'zod';
 import '../schemas/words';
-import { storableText } from '../schemas/common';
+import { nameText } from '../schemas/common';
 import { ColumnMappingSchema } from './csv-columns';
 import { CSV_DELIMITERS, type CsvTextParserOptions } from './csv-text-parser';
 import type { NdbcParserOptions } from './ndbc';
@@ -62,7 +62,7 @@ const positiveMetres = (max: number) =>
 /** The upload form's fields (besides the file). */
 export const ImportFormSchema = z.object({
   /** Dataset name (no control characters or lone surrogates: schemas/common.ts). */
-  name: storableText(z.string().trim().min(1, 'a name is required').max(120)),
+  name: nameText(),
   /** Dataset kind. */
   kind: z.enum(DATASET_KINDS),
   /** File format; default 'auto'. */

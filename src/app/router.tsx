@@ -42,6 +42,7 @@ export const router = createBrowserRouter([
     children: [
       { index: true, element: <ProjectsPage /> },
       { path: 'admin/people', lazy: page(() => import('../features/admin/components/people-page'), 'PeoplePage'), loader: requireAdmin },
+      { path: 'account', lazy: page(() => import('../features/auth/components/account-page'), 'AccountPage') },
       { path: 'projects', loader: () => redirect('/') },
       { path: 'wave-lab', lazy: page(() => import('../features/wave-lab/components/wave-lab-page'), 'WaveLabPage') },
       { path: 'admin/mailbox', lazy: page(() => import('../features/alerts/components/mailbox-page'), 'MailboxPage'), loader: requireAdmin },

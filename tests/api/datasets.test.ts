@@ -106,6 +106,50 @@ describe('importing sea-state files', () => {
     expect(recs.body.wind[1]).toBeCloseTo((20 * 1852) / 3600, 6);
   });
 
+  // Issue 22: the headline counted missing values only, so a file with whole hours left out
+  // looked complete.
+  it('counts absent rows as well as missing values in the dataset headline', async () => {
+    // Hourly from 00:00 to 06:00 (7 steps): 03:00 and 04:00 are not in the file, 02:00 has no Hs.
+    const csv = 'time,hs,tp\n2026-01-01 00:00,1.0,8\n2026-01-01 01:00,1.1,8\n2026-01-01 02:00,NaN,8\n2026-01-01 05:00,1.2,8\n2026-01-01 06:00,1.3,8\n';
+    const res = await as.coordinator.post(base).field('name', 'Gappy buoy').field('kind', 'observation').field('dataPointDepth', '35').attach('file', Buffer.from(csv, 'utf8'), 'gappy.csv');
+    expect(res.status, res.text).toBe(201);
+    const d = (await as.coordinator.get(`${base}/${res.body.id}`)).body;
+    expect(d).toMatchObject({ records: 5, expectedRecords: 7, absentRecords: 2, missing: expect.objectContaining({ hs: 1 }) });
+    // (1 missing + 2 absent) / 7 expected.
+    expect(d.hsGapShare).toBeCloseTo(3 / 7, 12);
+  });
+
+  // Issue 22: a 6-day "hindcast" silently became the default for all statistics.
+  it('warns when a hindcast shorter than a year becomes the default, and lets the coordinator choose the default', async () => {
+    const hours = Array.from({ length: 6 * 24 }, (_, k) => `${new Date(Date.UTC(2025, 5, 1) + k * 3_600_000).toISOString()},1.0,8`);
+    const upload = (name: string) =>
+      as.coordinator.post(base).field('name', name).field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', Buffer.from(`time,hs,tp\n${hours.join('\n')}\n`, 'utf8'), 'short.csv');
+    const first = await upload('Six days of hindcast');
+    expect(first.status, first.text).toBe(201);
+    // 144 hourly records: 6 days from the first record to the end of the last.
+    expect(first.body.warning).toMatch(/^Six days of hindcast spans 6 days, less than a year, and became the default for every statistic/);
+    let list = (await as.coordinator.get(base)).body as { id: string; statisticsDefault: boolean }[];
+    expect(list.filter((d) => d.statisticsDefault).map((d) => d.id)).toEqual([first.body.id]);
+
+    // Chosen explicitly, it stays the default when a newer hindcast arrives (which then warns of nothing).
+    const chosen = await as.coordinator.put(`/api/projects/${t.demo.projectId}/default-hindcast`).send({ datasetId: first.body.id });
+    expect(chosen.status, chosen.text).toBe(200);
+    expect(chosen.body.warning).toMatch(/is now the default/);
+    const second = await upload('Another short hindcast');
+    expect(second.body.warning).toBeNull();
+    list = (await as.coordinator.get(base)).body;
+    expect(list.filter((d) => d.statisticsDefault).map((d) => d.id)).toEqual([first.body.id]);
+
+    // Cleared: the newest hindcast is the default again. Forecasts and strangers' ids are refused.
+    expect((await as.coordinator.put(`/api/projects/${t.demo.projectId}/default-hindcast`).send({ datasetId: null })).status).toBe(200);
+    list = (await as.coordinator.get(base)).body;
+    expect(list.filter((d) => d.statisticsDefault).map((d) => d.id)).toEqual([second.body.id]);
+    expect((await as.coordinator.put(`/api/projects/${t.demo.projectId}/default-hindcast`).send({ datasetId: 'x' })).status).toBe(400);
+    expect((await as.client.put(`/api/projects/${t.demo.projectId}/default-hindcast`).send({ datasetId: null })).status).toBe(403);
+    await as.coordinator.delete(`${base}/${first.body.id}`);
+    await as.coordinator.delete(`${base}/${second.body.id}`);
+  });
+
   it('refuses a bad file whole, naming the line, and stores nothing', async () => {
     const before = await datasetCount();
     const csv = 'time,hs,tp\n2026-01-01T00:00Z,1.0,8\n2026-01-01T01:00Z,-1.0,8\n2026-01-01T02:00Z,1.0,80\n';

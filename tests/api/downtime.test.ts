@@ -384,7 +384,15 @@ describe('campaigns', () => {
       expect(m.p50Hours).toBeNull();
       expect(m.p90Hours).toBeNull();
       expect(m.p50Finish).toBeNull();
+      // Issue 22: the answer names the step every year stopped at (the second, index 1).
+      expect(m.stuckSteps).toEqual([{ step: 1, years: 3 }]);
     }
+    // "Never goes" asks for Tp 39-40 s, which the invented sea never has: no go-start at all.
+    expect(sim.steps.map((st) => [st.operationName, st.goStartHours === 0])).toEqual([
+      [sim.steps[0].operationName, false],
+      ['Never goes', true],
+    ]);
+    expect(sim.neverStarts).toMatch(/^Step 2, Never goes at .+, never finds a window in .+: no 4 h \(TR\) in a row meet all its limits/);
   });
 
   it('answers 409 when a stored step no longer fits the project', async () => {
@@ -575,7 +583,7 @@ describe('the downtime ledger', () => {
     const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-05`)).body as LedgerEntry[];
     const [a, b] = rows;
     // A correction without a note is refused; so are hours above the planned ones.
-    const noNote = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: (a.proposedLostHours + 3) % 24 });
+    const noNote = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: ((a.proposedLostHours ?? 0) + 3) % 24 });
     expect(noNote.status).toBe(400);
     expect(noNote.body.error.details[0].field).toBe('note');
     expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: 25, note: 'x' })).status).toBe(400);
@@ -644,6 +652,25 @@ describe('the downtime ledger', () => {
     }
     const confirmed = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body.filter((r: LedgerEntry) => r.status === 'confirmed');
     expect(confirmedTotal).toBeCloseTo(confirmed.reduce((s: number, r: LedgerEntry) => s + r.lostHours!, 0), 6);
+  });
+
+  // Issue 22: one basis per page. The ledger's expectation follows the page's forecast-limit
+  // switch; OPWF = alpha x OPLIM with alpha <= 1 (DOMAIN "Operations and limits") can only make
+  // more hours unworkable, so every expected figure is at least the OPLIM one.
+  it('computes the expectation on the page’s basis when asked (alpha=true)', async () => {
+    const plain = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
+    const withAlpha = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31&alpha=true`)).body as LedgerMonthlyAnswer;
+    expect([plain.alpha, withAlpha.alpha]).toEqual([false, true]);
+    let stricter = 0;
+    for (const r of withAlpha.rows) {
+      const p = plain.rows.find((x) => x.operationId === r.operationId && x.siteId === r.siteId)!;
+      expect(r.expectedP50Hours!).toBeGreaterThanOrEqual(p.expectedP50Hours!);
+      if (r.expectedP50Hours! > p.expectedP50Hours!) stricter++;
+      // The days themselves are what happened: the same on either basis.
+      expect(r.confirmedLostHours).toBe(p.confirmedLostHours);
+    }
+    expect(stricter).toBeGreaterThan(0);
+    expect((await as.coordinator.get(`${base}/ledger/monthly?alpha=yes`)).status).toBe(400);
   });
 
   it('takes the real length of months on clock-change dates (Europe/London March: 743 h)', () => {

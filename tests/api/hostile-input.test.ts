@@ -675,9 +675,10 @@ describe('hostile uploads', () => {
   it('refuses a CSV or NDBC line over 1 MB, and 1 MB of blanks, naming line and column', async () => {
     const csv = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n${'9'.repeat(1_200_000)}\n`, 'long.csv'), 400);
     expect(csv.body.error.details[0]).toMatchObject({ line: 3, column: String(MAX_LINE_CHARS + 1) });
-    const quote = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,"1\n${'2\n'.repeat(600_000)}`, 'quote.csv'), 400);
-    // A quote not closed on its own line is a bad row at that line (it no longer swallows the rest).
-    expect(quote.body.error.details).toContainEqual(expect.objectContaining({ line: 2, column: '19', reason: expect.stringMatching(/quote opened here is not closed/) }));
+    // A quote left open is a bad row at its own line (issue 22), not a swallowed rest of the file.
+    const quote = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n2026-01-01T01:00Z,"1\n${'2\n'.repeat(600_000)}`, 'quote.csv'), 400);
+    expect(quote.body.error.details[0]).toMatchObject({ line: 3, column: '19' });
+    expect(quote.body.error.message).toMatch(/quote opened here is not closed on its line/);
     const header = '#YY  MM DD hh mm WDIR WSPD GST  WVHT   DPD   APD MWD   PRES  ATMP  WTMP  DEWP  VIS  TIDE\n';
     const ndbc = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `${header}${'1 '.repeat(3_000_000)}`, '46026h2016.txt'), 400);
     expect(ndbc.body.error.details[0]).toMatchObject({ line: 2, column: String(MAX_LINE_CHARS + 1) });

@@ -97,14 +97,14 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
 
     t.mailer.fake!.setDown(false);
     // Not due yet: the first retry waits a minute.
-    await deliverDueMail(t.deps.db, t.deps.mailer, now, { maxAttempts: 3, log: t.deps.log });
+    await deliverDueMail(t.deps.db, t.deps.mailer, now, { maxAttempts: 3, log: t.deps.log, links: t.deps.config });
     expect(inbox().length).toBe(firstCount);
     const later = new Date(now.getTime() + 2 * 60_000);
-    const delivered = await deliverDueMail(t.deps.db, t.deps.mailer, later, { maxAttempts: 3, log: t.deps.log });
+    const delivered = await deliverDueMail(t.deps.db, t.deps.mailer, later, { maxAttempts: 3, log: t.deps.log, links: t.deps.config });
     expect(delivered.sent).toBe(p.queued);
     expect(inbox().length).toBe(firstCount + p.queued);
     // Nothing doubled: another delivery round sends nothing more.
-    await deliverDueMail(t.deps.db, t.deps.mailer, new Date(later.getTime() + 3_600_000), { maxAttempts: 3, log: t.deps.log });
+    await deliverDueMail(t.deps.db, t.deps.mailer, new Date(later.getTime() + 3_600_000), { maxAttempts: 3, log: t.deps.log, links: t.deps.config });
     expect(inbox().length).toBe(firstCount + p.queued);
     const keys = inbox().map((m) => `${m.to}|${m.subject}|${m.text}`);
     expect(new Set(keys).size).toBe(keys.length);
@@ -155,12 +155,17 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     expect((await as.coordinator.get(`/api/projects/${t.demo.projectId}/plan`)).body.dataset.id).toBe(before);
   });
 
-  it('unsubscribes by the signed link in the e-mail, and refuses a forged one', async () => {
+  it('unsubscribes by the signed link in the e-mail (one-click POST, RFC 8058), and refuses a forged one', async () => {
     const link = inbox().at(-1)!.text.match(/Stop these e-mails: (\S+)/)![1];
     const path = link.replace(TEST_ORIGIN, '');
     const forged = path.replace(/sig=[^&]+/, 'sig=forged');
     expect((await request(t.app).get(forged)).status).toBe(400);
-    const ok = await request(t.app).get(path);
+    expect((await request(t.app).post(forged)).status).toBe(400);
+    // Opening the link shows a confirmation page and changes nothing.
+    const shown = await request(t.app).get(path);
+    expect(shown.status).toBe(200);
+    expect((await as.skipper.get(`/api/projects/${t.demo.projectId}/subscription`)).body.active).toBe(true);
+    const ok = await request(t.app).post(path).type('form').send('List-Unsubscribe=One-Click');
     expect(ok.status).toBe(200);
     expect(ok.text).toContain('Unsubscribed');
     const sub = (await as.skipper.get(`/api/projects/${t.demo.projectId}/subscription`)).body;
@@ -232,7 +237,7 @@ describe('the daily digest', () => {
     now = new Date('2026-12-03T06:40:00Z');
     expect(await queueDigests(t.deps)).toBe(1);
     expect(await queueDigests(t.deps)).toBe(0);
-    await deliverDueMail(t.deps.db, t.deps.mailer, now, { maxAttempts: 3, log: t.deps.log });
+    await deliverDueMail(t.deps.db, t.deps.mailer, now, { maxAttempts: 3, log: t.deps.log, links: t.deps.config });
     const digest = clientMails().slice(before);
     expect(digest).toHaveLength(1);
     expect(digest[0].subject).toMatch(/windows for Thu 3 Dec/);

@@ -8,8 +8,11 @@
  * non-member, 404 when a child id belongs to another project), ids that do not exist or are not
  * ids at all (404, never 500), and that the audit trail cannot be changed through the API.
  *
- * Sign-in and sign-out (`/api/auth/*`) are the auth library's own handler, mounted outside
- * API_ROUTERS; tests/api/foundation.test.ts covers them.
+ * The auth library's own routes (`/api/auth/*`) are mounted outside API_ROUTERS behind an
+ * allowlist: the table of them is read from the library (`auth.api`), and every one the UI does
+ * not use (all but sign-in, sign-out and change-password) must answer 404, to anonymous callers
+ * and to an administrator alike. tests/api/foundation.test.ts and auth-security.test.ts cover the
+ * three in use.
  */
 import crypto from 'node:crypto';
 import request from 'supertest';
@@ -18,7 +21,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, signInAll, type Agent, type TestApp } from '../support/app';
 import { listApiRoutes, type ApiRoute } from '../../server/routes/route-list';
 import { auditEntry, ledgerDay } from '../../server/db/schema';
-import { unsubscribeToken } from '../../server/services/alert-mail';
+import { unsubscribeUrl } from '../../server/services/alert-mail';
+import { AUTH_ROUTES_IN_USE } from '../../server/app';
+import { user as userTable } from '../../server/db/schema';
 
 type Role = 'admin' | 'coordinator' | 'skipper' | 'client';
 type Who = 'anonymous' | Role;
@@ -150,6 +155,9 @@ async function calendarFile(): Promise<string> {
   return String(res.body.url).split('/').pop()!;
 }
 
+/** The signed query of a fresh unsubscribe link. */
+const unsubscribeQuery = (p: Params) => Object.fromEntries(new URL(unsubscribeUrl('http://x.invalid', t.deps.config.linkSecret, p.userId, p.projectId, Date.now())).searchParams);
+
 const subscriptionBody = { operationIds: [], siteIds: [], immediate: false, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true };
 const recurrenceBody = { start: '2026-01-05T06:00', timeZone: 'UTC', rule: 'FREQ=WEEKLY;COUNT=4' };
 const ledgerRange = { from: '2026-01-01', to: '2026-01-02' };
@@ -171,6 +179,7 @@ const TABLE: Record<string, RouteCase> = {
   'GET /admin/users': { access: 'admin' },
   'POST /admin/users': { access: 'admin', body: () => ({ name: 'Route security user', email: `route-security-${next()}@example.com` }) },
   'PATCH /admin/users/:userId': { access: 'admin', body: () => ({ active: true }) },
+  'POST /admin/users/:userId/temporary-password': { access: 'admin', why: 'a new temporary password for the scratch user' },
   'PUT /admin/users/:userId/projects/:projectId': { access: 'admin', body: () => ({ role: 'client' }) },
   'DELETE /admin/users/:userId/projects/:projectId': {
     access: 'admin',
@@ -218,6 +227,7 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/audit': { access: 'member', why: 'read-only; skippers and clients may see why limits changed' },
 
   'GET /projects/:projectId/datasets': { access: 'member' },
+  'PUT /projects/:projectId/default-hindcast': { access: 'coordinator', why: 'null: the newest hindcast is the default again', body: () => ({ datasetId: null }) },
   'POST /projects/:projectId/datasets': { access: 'coordinator', upload: true },
   'GET /projects/:projectId/datasets/:datasetId': { access: 'member' },
   'GET /projects/:projectId/datasets/:datasetId/records': { access: 'member' },
@@ -298,8 +308,14 @@ const TABLE: Record<string, RouteCase> = {
   'GET /unsubscribe': {
     access: 'public',
     status: 200,
-    why: 'one-click link in an alert e-mail, read without signing in; the HMAC signature over user and project is the key (a forged one: 400)',
-    query: (p) => ({ u: p.userId, p: p.projectId, sig: unsubscribeToken(t.deps.config.linkSecret, p.userId, p.projectId) }),
+    why: 'the link in an alert e-mail, opened without signing in: a confirmation page only (RFC 8058); the HMAC signature over user, project and expiry is the key (forged or expired: 400)',
+    query: (p) => unsubscribeQuery(p),
+  },
+  'POST /unsubscribe': {
+    access: 'public',
+    status: 200,
+    why: 'RFC 8058 one-click unsubscribe, sent by mail programs and by the confirmation page without a session; the same signed, expiring link is the key',
+    query: (p) => unsubscribeQuery(p),
   },
   'GET /dev/mailbox': { access: 'admin', why: 'exists only while the local mail catcher is in use (it is in tests)' },
   'GET /me/calendar': { access: 'signedIn', why: 'the caller’s own feed address' },
@@ -517,6 +533,49 @@ describe.each(Object.keys(TABLE))('%s', (key) => {
   }
 });
 
+describe("the auth library's routes", () => {
+  /** Every HTTP route of the auth library and its plugins, as `METHOD /path` (server-only endpoints have no path). */
+  function authLibraryRoutes(): string[] {
+    const out: string[] = [];
+    for (const endpoint of Object.values(t.deps.auth.api) as { path?: string; options?: { method?: string | string[] } }[]) {
+      if (!endpoint.path) continue;
+      const methods = endpoint.options?.method;
+      for (const m of Array.isArray(methods) ? methods : [methods ?? 'GET']) out.push(`${m === '*' ? 'POST' : m} ${endpoint.path}`);
+    }
+    return [...new Set(out)].sort();
+  }
+
+  it('lists the routes in use among the library’s own, and many more that are not', () => {
+    const all = authLibraryRoutes();
+    for (const used of AUTH_ROUTES_IN_USE) expect(all, used).toContain(used);
+    // From the library's documentation (better-auth core and admin plugin), from memory: update-user,
+    // the admin plugin's impersonation and role routes, and session listing are among them.
+    for (const notUsed of ['POST /update-user', 'POST /admin/impersonate-user', 'POST /admin/set-role', 'POST /admin/create-user', 'GET /list-sessions', 'GET /get-session']) {
+      expect(all, notUsed).toContain(notUsed);
+    }
+    expect(all.length).toBeGreaterThan(30);
+  });
+
+  it('answers 404 on every route the UI does not use, to anonymous callers and to an administrator, and changes nothing', async () => {
+    const before = await t.database.db.select().from(userTable).orderBy(asc(userTable.id));
+    const unused = authLibraryRoutes().filter((r) => !AUTH_ROUTES_IN_USE.includes(r));
+    expect(unused.length).toBeGreaterThan(30);
+    for (const route of unused) {
+      const [method, pattern] = route.split(' ');
+      const url = `/api/auth${pattern.replace(/:[A-Za-z]+/g, 'x')}`;
+      // A body that would do harm if the route ran: a new name, a role, an impersonation.
+      const body = { name: 'Demo Administrator', role: 'root', userId: P1.userId, email: 'x@example.com', password: 'x'.repeat(16), newPassword: 'y'.repeat(16) };
+      for (const who of ['anonymous', 'admin'] as const) {
+        const agent = agentOf(who);
+        const res = method === 'GET' ? await agent.get(url) : await agent.post(url).set('Origin', 'http://localhost:3000').send(body);
+        expect.soft(res.status, show(who, route, res)).toBe(404);
+        expect.soft(res.body?.error?.code, show(who, route, res)).toBe('not_found');
+      }
+    }
+    expect(await t.database.db.select().from(userTable).orderBy(asc(userTable.id))).toEqual(before);
+  });
+});
+
 describe('ids of another project inside a request body', () => {
   it('are refused with 400 or 404, and nothing is stored', async () => {
     const base = `/api/projects/${P1.projectId}`;
@@ -557,10 +616,16 @@ describe('ids of another project inside a request body', () => {
 
 describe('public and token routes beyond the table', () => {
   it('refuses a forged unsubscribe link with 400 and unsubscribes nobody', async () => {
-    const res = await anonymous.get('/api/unsubscribe').query({ u: P1.userId, p: P1.projectId, sig: 'forged' });
-    expect(res.status).toBe(400);
-    const missing = await anonymous.get('/api/unsubscribe');
-    expect(missing.status).toBe(400);
+    const good = unsubscribeQuery(P1);
+    for (const method of ['get', 'post'] as const) {
+      const res = await anonymous[method]('/api/unsubscribe').query({ ...good, sig: 'forged' });
+      expect(res.status).toBe(400);
+      const missing = await anonymous[method]('/api/unsubscribe');
+      expect(missing.status).toBe(400);
+      // The expiry is signed too: a later one with the same signature is refused.
+      const extended = await anonymous[method]('/api/unsubscribe').query({ ...good, e: String(Number(good.e) + 86_400) });
+      expect(extended.status).toBe(400);
+    }
   });
 
   it('answers 404 to a wrong job token on every token route, and runs the planning job for the right one', async () => {

@@ -16,6 +16,10 @@ export const user = pgTable('user', {
   banned: boolean().default(false),
   banReason: text(),
   banExpires: timestamp({ withTimezone: true }),
+  // Ours: a temporary password from an administrator must be changed at the first sign-in, and
+  // stops working after 7 days (server/auth.ts).
+  mustChangePassword: boolean().notNull().default(false),
+  temporaryPasswordExpiresAt: timestamp({ withTimezone: true }),
 });
 
 export const session = pgTable('session', {

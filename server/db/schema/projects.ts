@@ -15,6 +15,11 @@ export const project = pgTable('project', {
   dataPointDepthM: doublePrecision(),
   /** 'service' fetches forecasts from the forecast provider; 'uploads' only takes uploaded files. */
   forecastSource: text({ enum: ['service', 'uploads'] }).notNull().default('uploads'),
+  /**
+   * The hindcast the coordinator chose as the default for statistics; null (or a dataset since
+   * deleted) = the newest hindcast. No foreign key: dataset already refers to project.
+   */
+  defaultHindcastId: uuid(),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });

@@ -1,4 +1,4 @@
-import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
+import { Link, Navigate, NavLink, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import { useMe } from '../../features/auth/api/get-me';
 import { useSignOut } from '../../features/auth/api/sign-in';
 import { Caution } from '../../components/caution';
@@ -13,7 +13,10 @@ export function AppLayout() {
   const me = useMe();
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const location = useLocation();
   const user = me.data;
+  // A temporary password must be changed before anything else (the API refuses the rest meanwhile).
+  if (user?.mustChangePassword && location.pathname !== '/account') return <Navigate to="/account" replace />;
   const sections = APP_SECTIONS.filter((s) => !s.adminOnly || user?.globalRole === 'admin');
 
   return (
@@ -32,9 +35,9 @@ export function AppLayout() {
             ))}
           </nav>
           <div className="ml-auto flex items-center gap-1">
-            <span className="hidden text-sm text-white/80 sm:inline" data-testid="signed-in-as">
-              {user?.name}
-            </span>
+            <NavLink to="/account" className={navClass} data-testid="signed-in-as" title="Your account: change your password">
+              {user?.name ?? 'Account'}
+            </NavLink>
             <ThemeToggle />
             <button
               type="button"

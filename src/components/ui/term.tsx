@@ -62,7 +62,7 @@ export function Term({ k, children }: { k: GlossaryKey; children?: ReactNode }) 
         aria-describedby={open ? id : undefined}
         aria-expanded={open}
         data-term={k}
-        onClick={() => setOpen((v) => !v)}
+        onClick={() => setOpen(true)}
         onMouseEnter={() => setOpen(true)}
         onMouseLeave={() => setOpen(false)}
         onFocus={() => setOpen(true)}

@@ -23,6 +23,15 @@ export function useCreateUser() {
   });
 }
 
+/** `POST /api/admin/users/:userId/temporary-password`: a new temporary password, shown once. */
+export function useIssueTemporaryPassword() {
+  const invalidate = useInvalidateUsers();
+  return useMutation({
+    mutationFn: (userId: string) => api<{ temporaryPassword: string; expiresAt: string }>(`/api/admin/users/${userId}/temporary-password`, { method: 'POST', json: {} }),
+    onSuccess: invalidate,
+  });
+}
+
 export function useUpdateUser() {
   const invalidate = useInvalidateUsers();
   return useMutation({

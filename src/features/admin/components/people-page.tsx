@@ -6,7 +6,7 @@ import { PROJECT_ROLES, PROJECT_ROLE_LABELS, type ProjectRole } from '../../../.
 import type { AdminUser, ProjectSummary } from '../../../../shared/api-types';
 import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
 import { useProjects } from '../../projects/api/get-projects';
-import { useAdminUsers, useCreateUser, useSetMembership, useUpdateUser } from '../api/users';
+import { useAdminUsers, useCreateUser, useIssueTemporaryPassword, useSetMembership, useUpdateUser } from '../api/users';
 
 export function PeoplePage() {
   const users = useAdminUsers();
@@ -58,18 +58,40 @@ function CreateUserCard() {
         <Button type="submit" disabled={create.isPending}>Create user</Button>
       </form>
       {create.error ? <div className="mt-3"><ErrorNotice error={create.error} /></div> : null}
-      {shown ? (
-        <div className="mt-3">
-          <Notice tone="success">
-            <p>
-              Temporary password for <strong>{shown.email}</strong>, shown only now:{' '}
-              <code className="rounded bg-surface px-2 py-1 font-mono text-base" data-testid="temporary-password">{shown.password}</code>
-            </p>
-            <p className="mt-1 text-xs">Pass it on by a safe channel. It cannot be shown again.</p>
-          </Notice>
-        </div>
-      ) : null}
+      {shown ? <TemporaryPassword email={shown.email} password={shown.password} /> : null}
     </Card>
+  );
+}
+
+/** A temporary password, shown once, with a button that copies it. */
+function TemporaryPassword({ email, password }: { email: string; password: string }) {
+  const [copied, setCopied] = useState<'yes' | 'no' | null>(null);
+  async function copy() {
+    try {
+      await navigator.clipboard.writeText(password);
+      setCopied('yes');
+    } catch {
+      setCopied('no');
+    }
+  }
+  return (
+    <div className="mt-3">
+      <Notice tone="success">
+        <p className="flex flex-wrap items-center gap-2">
+          <span>
+            Temporary password for <strong>{email}</strong>, shown only now:
+          </span>
+          <code className="rounded bg-surface px-2 py-1 font-mono text-base" data-testid="temporary-password">{password}</code>
+          <Button variant="secondary" onClick={() => void copy()} data-testid="copy-temporary-password">
+            {copied === 'yes' ? 'Copied' : 'Copy'}
+          </Button>
+        </p>
+        {copied === 'no' ? <p className="mt-1 text-xs">This browser did not allow copying: select the password and copy it by hand.</p> : null}
+        <p className="mt-1 text-xs">
+          Pass it on by a safe channel. It cannot be shown again, works for 7 days, and must be changed at the first sign-in.
+        </p>
+      </Notice>
+    </div>
   );
 }
 
@@ -97,6 +119,11 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
             {!user.active ? <span className="ml-2 text-xs font-semibold text-danger">Deactivated</span> : null}
           </p>
           <p className="text-sm text-ink-soft">{user.email}</p>
+          {user.mustChangePassword && user.temporaryPasswordExpiresAt ? (
+            <p className="text-xs text-ink-soft">
+              On a temporary password until {new Date(user.temporaryPasswordExpiresAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
+            </p>
+          ) : null}
         </div>
         <Button
           variant={user.active ? 'secondary' : 'primary'}
@@ -118,6 +145,7 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
         </Confirm>
       ) : null}
       {update.error ? <div className="mt-2"><ErrorNotice error={update.error} /></div> : null}
+      <NewTemporaryPassword user={user} />
       <ul className="mt-3 grid gap-2">
         {user.projects.map((m) => {
           const mine = pending && pending.kind !== 'deactivate' && pending.projectId === m.projectId ? pending : null;
@@ -193,5 +221,25 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
       ) : null}
       {membership.error ? <div className="mt-2"><ErrorNotice error={membership.error} /></div> : null}
     </Card>
+  );
+}
+
+/** A new temporary password for a forgotten or expired one (ends the user's sessions). */
+function NewTemporaryPassword({ user }: { user: AdminUser }) {
+  const issue = useIssueTemporaryPassword();
+  return (
+    <div className="mt-2">
+      <Button
+        variant="ghost"
+        disabled={issue.isPending}
+        onClick={() => {
+          if (window.confirm(`Give ${user.name} a new temporary password? Their current password stops working and they are signed out everywhere.`)) issue.mutate(user.id);
+        }}
+      >
+        New temporary password
+      </Button>
+      {issue.error ? <ErrorNotice error={issue.error} /> : null}
+      {issue.data ? <TemporaryPassword email={user.email} password={issue.data.temporaryPassword} /> : null}
+    </div>
   );
 }

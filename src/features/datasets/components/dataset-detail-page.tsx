@@ -20,7 +20,7 @@ const linkButton =
 export function DatasetDetailPage() {
   const { projectId = '', datasetId = '' } = useParams();
   const location = useLocation();
-  const imported = (location.state as { imported?: { records: number; skipped: number } } | null)?.imported;
+  const imported = (location.state as { imported?: { records: number; skipped: number; warning?: string | null } } | null)?.imported;
   const project = useProjectAccess(projectId);
   const dataset = useDataset(projectId, datasetId);
   // undefined until the user picks a range: then the default range of the dataset is shown.
@@ -65,6 +65,7 @@ export function DatasetDetailPage() {
           {imported.skipped > 1 ? `; ${formatCount(imported.skipped)} bad rows were skipped and are listed in the import report below` : ''}.
         </Notice>
       ) : null}
+      {imported?.warning ? <Notice tone="error">{imported.warning}</Notice> : null}
       <Facts d={d} />
       <Card>
         <h2 className="mb-3 text-lg font-bold">Time series</h2>
@@ -118,8 +119,12 @@ function Facts({ d }: { d: DatasetDetail }) {
         <Fact label="Records">
           {formatCount(d.records)}, every {formatStep(d.stepMinutes)}
         </Fact>
-        <Fact label="Hs missing">
-          {formatShare(d.missingShare)} ({formatCount(d.missing.hs ?? 0)} {(d.missing.hs ?? 0) === 1 ? 'record' : 'records'})
+        <Fact label="Hs missing or absent">
+          {formatShare(d.hsGapShare)} of {formatCount(d.expectedRecords)} {formatStep(d.stepMinutes)} steps
+          <span className="block text-ink-soft">
+            {formatCount(d.missing.hs ?? 0)} {(d.missing.hs ?? 0) === 1 ? 'record' : 'records'} without Hs; {formatCount(d.absentRecords)}{' '}
+            {d.absentRecords === 1 ? 'row' : 'rows'} absent
+          </span>
         </Fact>
         <Fact label="Data point">
           {d.dataPoint.name || 'Unnamed'}, {formatDepth(d.dataPoint.depthM)}

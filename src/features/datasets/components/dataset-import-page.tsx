@@ -317,7 +317,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       { file, fields, onProgress: setProgress, signal: controller.signal },
       {
         onSuccess: (answer) =>
-          navigate(`/projects/${project.id}/sea-data/${answer.id}`, { state: { imported: { records: answer.records, skipped: answer.skipped } } }),
+          navigate(`/projects/${project.id}/sea-data/${answer.id}`, { state: { imported: { records: answer.records, skipped: answer.skipped, warning: answer.warning } } }),
         onError: (err) => {
           if (err instanceof DOMException && err.name === 'AbortError') setCancelled(true);
         },

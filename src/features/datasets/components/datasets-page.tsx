@@ -4,6 +4,7 @@ import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../..
 import { useDatasets } from '../api/get-datasets';
 import { useFetchLatestForecast } from '../api/fetch-forecast';
 import { useProjectAccess } from '../api/get-project-access';
+import { useSetDefaultHindcast } from '../api/set-default-hindcast';
 import { KindBadge } from './kind-badge';
 import { describeSource, formatCount, formatDepth, formatShare, formatStep, formatUtc, formatUtcDay } from './format';
 
@@ -84,12 +85,53 @@ export function DatasetsPage() {
           </p>
         </Card>
       ) : null}
-      {datasets.data && datasets.data.length > 0 ? <DatasetGroups projectId={projectId} all={datasets.data} /> : null}
+      {datasets.data && datasets.data.length > 0 ? <DatasetGroups projectId={projectId} all={datasets.data} canEdit={canEdit} /> : null}
     </div>
   );
 }
 
-function DatasetGroups({ projectId, all }: { projectId: string; all: DatasetSummary[] }) {
+const YEAR_MS = 365 * 86_400_000;
+const shortSpan = (d: DatasetSummary) => Date.parse(d.end) + d.stepMinutes * 60_000 - Date.parse(d.start) < YEAR_MS;
+
+/** Which dataset statistics use when none is named: chosen by the coordinator, else the newest hindcast. */
+function DefaultChoice({ projectId, series, canEdit }: { projectId: string; series: DatasetSummary[]; canEdit: boolean }) {
+  const choose = useSetDefaultHindcast(projectId);
+  const current = series.find((d) => d.statisticsDefault);
+  return (
+    <div className="mb-3 flex flex-col gap-2 text-sm" data-testid="default-hindcast">
+      <p>
+        <span className="font-semibold">Default for statistics:</span> {current ? current.name : 'none yet'}
+        {current && shortSpan(current) ? (
+          <span className="ml-1 font-semibold text-danger">: shorter than a year, so every statistic of the project rests on one short sample.</span>
+        ) : null}
+      </p>
+      {canEdit && series.length > 0 ? (
+        <label className="flex flex-wrap items-center gap-2">
+          <span>Choose the default</span>
+          <select
+            className="min-h-11 rounded-lg border border-line bg-surface px-2"
+            value=""
+            onChange={(e) => e.target.value && choose.mutate(e.target.value === 'newest' ? null : e.target.value)}
+            disabled={choose.isPending}
+          >
+            <option value="">…</option>
+            <option value="newest">The newest hindcast, whichever it is</option>
+            {series.map((d) => (
+              <option key={d.id} value={d.id}>
+                {d.name}
+                {shortSpan(d) ? ' (less than a year)' : ''}
+              </option>
+            ))}
+          </select>
+        </label>
+      ) : null}
+      {choose.error ? <ErrorNotice error={choose.error} /> : null}
+      {choose.data?.warning ? <Notice tone="error">{choose.data.warning}</Notice> : null}
+    </div>
+  );
+}
+
+function DatasetGroups({ projectId, all, canEdit }: { projectId: string; all: DatasetSummary[]; canEdit: boolean }) {
   const { series, forecasts } = splitDatasets(all);
   return (
     <div className="flex flex-col gap-6">
@@ -100,7 +142,10 @@ function DatasetGroups({ projectId, all }: { projectId: string; all: DatasetSumm
         {series.length === 0 ? (
           <p className="text-sm text-ink-soft">None yet: statistics and downtime schedules need a hindcast.</p>
         ) : (
-          <DatasetTable projectId={projectId} rows={series} />
+          <>
+            <DefaultChoice projectId={projectId} series={series} canEdit={canEdit} />
+            <DatasetTable projectId={projectId} rows={series} />
+          </>
         )}
       </section>
       <section aria-labelledby="forecast-heading">
@@ -143,7 +188,9 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
               <th className={th}>Coverage (UTC)</th>
               <th className={`${th} text-right`}>Step</th>
               <th className={`${th} text-right`}>Records</th>
-              <th className={`${th} text-right`}>Hs missing</th>
+              <th className={`${th} text-right`} title="Share of the expected records without Hs: missing values and absent rows">
+                Hs missing or absent
+              </th>
               <th className={th}>Data point</th>
               <th className={th}>Source</th>
             </tr>
@@ -158,6 +205,7 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
                   <div className="flex flex-wrap gap-1.5">
                     <KindBadge kind={d.kind} />
                     {d.id === latestId ? <LatestBadge /> : null}
+                    {d.statisticsDefault ? <DefaultBadge /> : null}
                   </div>
                 </td>
                 <td className={td}>
@@ -166,7 +214,7 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
                 </td>
                 <td className={`${td} text-right whitespace-nowrap`}>{formatStep(d.stepMinutes)}</td>
                 <td className={`${td} text-right tabular-nums`}>{formatCount(d.records)}</td>
-                <td className={`${td} text-right tabular-nums`}>{formatShare(d.missingShare)}</td>
+                <td className={`${td} text-right tabular-nums`}>{formatShare(d.hsGapShare)}</td>
                 <td className={td}>
                   {d.dataPoint.name || 'Unnamed'}
                   <span className="block text-xs text-ink-soft">{formatDepth(d.dataPoint.depthM)}</span>
@@ -198,8 +246,8 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
                 <dd>
                   {formatCount(d.records)}, every {formatStep(d.stepMinutes)}
                 </dd>
-                <dt className="text-ink-soft">Hs missing</dt>
-                <dd>{formatShare(d.missingShare)}</dd>
+                <dt className="text-ink-soft">Hs missing or absent</dt>
+                <dd>{formatShare(d.hsGapShare)}</dd>
                 <dt className="text-ink-soft">Data point</dt>
                 <dd>
                   {d.dataPoint.name || 'Unnamed'}, {formatDepth(d.dataPoint.depthM)}
@@ -213,6 +261,10 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
       </ul>
     </>
   );
+}
+
+function DefaultBadge() {
+  return <span className="inline-flex w-fit items-center rounded-full bg-ok-soft px-2.5 py-0.5 text-xs font-semibold text-ink">Default for statistics</span>;
 }
 
 function LatestBadge() {

@@ -10,6 +10,8 @@ import { formatUtc, parseUtcDateInput, utcDateInput } from './format';
 const SeriesChart = lazy(() => import('./series-chart'));
 
 const DAY_MS = 86_400_000;
+/** The API answers records for at most 366 days at a time (the monthly summary covers the rest). */
+const MAX_SPAN_MS = 366 * DAY_MS;
 
 /** A window of the dataset, UTC ms; null = the whole dataset. */
 export type ChartView = { fromMs: number; toMs: number } | null;
@@ -42,8 +44,8 @@ const clamp = (x: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, x
 export function RangeChart({
   projectId,
   dataset,
-  view,
-  onView,
+  view: chosenView,
+  onView: chooseView,
 }: {
   projectId: string;
   dataset: DatasetDetail;
@@ -53,6 +55,13 @@ export function RangeChart({
   const startMs = Date.parse(dataset.start);
   const endMs = Date.parse(dataset.end);
   const spanMs = Math.max(endMs - startMs, 1);
+  // A dataset longer than the API's records span opens on its last year, and no view is longer.
+  const tooLongForAll = endMs - startMs > MAX_SPAN_MS;
+  const view: ChartView = chosenView ?? (tooLongForAll ? { fromMs: sub(new Date(endMs), { years: 1 }, { in: tz('UTC') }).getTime(), toMs: endMs } : null);
+  const onView = (v: ChartView) => {
+    if (v === null) return chooseView(null);
+    chooseView(v.toMs - v.fromMs > MAX_SPAN_MS ? { fromMs: v.toMs - MAX_SPAN_MS, toMs: v.toMs } : v);
+  };
   const stepMs = dataset.stepMinutes * 60_000;
   const current = view ?? { fromMs: startMs, toMs: endMs };
   const lengthMs = current.toMs - current.fromMs;
@@ -105,7 +114,8 @@ export function RangeChart({
               key={p.label}
               variant={activePreset(p.duration) ? 'primary' : 'secondary'}
               aria-pressed={activePreset(p.duration)}
-              disabled={p.duration !== null && tooShort(p.duration)}
+              disabled={p.duration === null ? tooLongForAll : tooShort(p.duration)}
+              title={p.duration === null && tooLongForAll ? 'Longer than a year: pick a year at a time, or see the monthly summary below' : undefined}
               onClick={() => preset(p.duration)}
             >
               {p.label}

@@ -13,4 +13,4 @@ export const datasetsQueryOptions = (projectId: string) =>
 
 /** The project's hindcasts (the statistics datasets), newest first. */
 export const useHindcasts = (projectId: string) =>
-  useQuery({ ...datasetsQueryOptions(projectId), select: (all: DatasetSummary[]) => all.filter((d) => d.kind === 'hindcast') });
+  useQuery({ ...datasetsQueryOptions(projectId), select: (all: DatasetSummary[]) => all.filter((d) => d.kind === 'hindcast' || d.statisticsDefault) });

@@ -166,12 +166,17 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
     <div className={`flex flex-col gap-2 ${stale ? 'opacity-60' : ''}`}>
       <div className="flex flex-wrap items-end justify-between gap-2">
         <p className="text-sm text-ink-soft">
-          Without waiting the campaign takes {hours(sim.sumTpopHours, 0)} ({days(sim.sumTpopHours)}). {sim.alpha ? 'α applied.' : 'At OPLIM, no α.'} Durations in days (24 h).
+          Without waiting the campaign takes {hours(sim.sumTpopHours, 0)} ({days(sim.sumTpopHours)}). Durations in days (24 h).
         </p>
         <Button variant="secondary" className="no-print" onClick={download}>
           Download CSV
         </Button>
       </div>
+      {sim.neverStarts ? (
+        <Notice tone="error">
+          <span data-testid="campaign-never-starts">{sim.neverStarts}</span>
+        </Notice>
+      ) : null}
       <div className="overflow-x-auto rounded-lg border border-line">
         <table className="w-full min-w-[52rem] text-sm" data-testid="campaign-table">
           <caption className="sr-only">Campaign duration and finish dates by start month, P50 and P90 over the hindcast years</caption>
@@ -209,7 +214,14 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
                 <th scope="row" className="px-2 py-1 text-left font-normal whitespace-nowrap">
                   <span className="font-semibold">{MONTH_LONG[m.startMonth - 1]}</span> <span className="text-ink-soft">{dateIn(m.startDate, zone)}</span>
                 </th>
-                <td className={`${td} font-semibold`}>{days(m.p50Hours)}</td>
+                <td className={`${td} font-semibold`}>
+                  {days(m.p50Hours)}
+                  {m.p50Hours !== null ? (
+                    <span className={`block text-xs font-normal ${m.years - m.censoredYears.length < 3 ? 'font-semibold text-danger' : 'text-ink-soft'}`}>
+                      from {m.years - m.censoredYears.length} yr{m.years - m.censoredYears.length === 1 ? ': P50 = P90' : m.years - m.censoredYears.length < 3 ? ': thin' : ''}
+                    </span>
+                  ) : null}
+                </td>
                 <td className={td}>{days(m.p90Hours)}</td>
                 <td className={td}>{days(m.wowP50Hours)}</td>
                 <td className={td}>{days(m.wowP90Hours)}</td>
@@ -221,6 +233,11 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
                   ) : (
                     <span>
                       {m.censoredYears.length} of {m.years}: {m.censoredYears.join(', ')}
+                      {m.stuckSteps.map((st) => (
+                        <span key={st.step} className="block text-ink-soft">
+                          {st.years === m.censoredYears.length ? 'all' : st.years} stopped at step {st.step + 1} ({sim.steps[st.step]?.operationName} at {sim.steps[st.step]?.siteName}): no window before the data end
+                        </span>
+                      ))}
                     </span>
                   )}
                 </td>

@@ -18,6 +18,14 @@ import { OutlookSection } from './outlook-section';
 import { PrintReport } from './print-report';
 import { WorkabilitySection } from './workability-section';
 
+const YEAR_MS = 365.25 * 86_400_000;
+/** Shorter than a year: statistics by calendar month cannot stand on it. */
+const thinHindcast = (d: { start: string; end: string }) => Date.parse(d.end) - Date.parse(d.start) < YEAR_MS - 86_400_000;
+const spanWords = (d: { start: string; end: string }) => {
+  const days = Math.round((Date.parse(d.end) - Date.parse(d.start)) / 86_400_000);
+  return days < 62 ? `${days} day${days === 1 ? '' : 's'}` : `about ${Math.round(days / 30.44)} months`;
+};
+
 function AlphaSwitch({ on, onToggle }: { on: boolean; onToggle: () => void }) {
   return (
     <button
@@ -49,7 +57,7 @@ export function DowntimePage() {
 
   const list = hindcasts.data ?? [];
   const asked = params.get('dataset');
-  const datasetId = asked && list.some((d) => d.id === asked) ? asked : (list[0]?.id ?? '');
+  const datasetId = asked && list.some((d) => d.id === asked) ? asked : (list.find((d) => d.statisticsDefault)?.id ?? list[0]?.id ?? '');
   const hindcast = list.find((d) => d.id === datasetId);
   const alpha = params.get('alpha') !== 'off';
   const monthParam = params.get('month');
@@ -110,12 +118,23 @@ export function DowntimePage() {
               {list.map((d) => (
                 <option key={d.id} value={d.id}>
                   {d.name}
+                  {d.statisticsDefault ? ' (project default)' : ''}
                 </option>
               ))}
             </Select>
           </FieldShell>
         </div>
         <AlphaSwitch on={alpha} onToggle={() => set('alpha', alpha ? 'off' : null)} />
+        <p className="w-full text-sm" data-testid="downtime-basis">
+          <span className="font-semibold">Basis of every figure on this page</span> (heat map, table, campaign durations and the ledger’s expected downtime):{' '}
+          {hindcast ? hindcast.name : 'no hindcast yet'},{' '}
+          {alpha ? 'forecast limits on: Hs limits at OPWF = α × OPLIM.' : 'forecast limits off: every limit at OPLIM.'}
+          {hindcast && thinHindcast(hindcast) ? (
+            <span className="mt-1 block font-semibold text-danger">
+              This hindcast spans {spanWords(hindcast)}: shorter than a year, so some months have no data and the rest rest on one short sample.
+            </span>
+          ) : null}
+        </p>
       </Card>
       {hindcasts.error ? <ErrorNotice error={hindcasts.error} /> : null}
 
@@ -141,7 +160,7 @@ export function DowntimePage() {
 
       <OutlookSection projectId={projectId} canEdit={access.canEdit} alpha={alpha} operations={operations.data ?? []} sites={sites.data ?? []} selectedId={campaignId} />
 
-      <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} />
+      <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} alpha={alpha} />
     </div>
   );
 }

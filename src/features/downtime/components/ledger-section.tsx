@@ -41,7 +41,7 @@ function shown(r: LedgerEntry) {
     confirmed,
     lost: confirmed ? r.lostHours : r.proposedLostHours,
     limiting: confirmed ? r.limiting : r.proposedLimiting,
-    corrected: confirmed && (r.lostHours !== r.proposedLostHours || r.limiting !== r.proposedLimiting),
+    corrected: confirmed && r.proposedLostHours !== null && (r.lostHours !== r.proposedLostHours || r.limiting !== r.proposedLimiting),
   };
 }
 
@@ -97,10 +97,27 @@ function LedgerCard({ projectId, row: r, canEdit, open, onOpen }: { projectId: s
  * weather with the limiting factor; coordinators propose the month from the data and confirm (or
  * correct, with a note) each day. Below, the month's totals against the hindcast expectation.
  */
-export function LedgerSection({ projectId, canEdit, isClient, month, onMonth, datasetId }: { projectId: string; canEdit: boolean; isClient: boolean; month: string; onMonth: (m: string) => void; datasetId: string }) {
+export function LedgerSection({
+  projectId,
+  canEdit,
+  isClient,
+  month,
+  onMonth,
+  datasetId,
+  alpha,
+}: {
+  projectId: string;
+  canEdit: boolean;
+  isClient: boolean;
+  month: string;
+  onMonth: (m: string) => void;
+  datasetId: string;
+  /** The page's basis: the expectation uses the same forecast-limit setting as the heat map and table. */
+  alpha: boolean;
+}) {
   const range = monthRange(month);
   const ledger = useLedger(projectId, range);
-  const monthly = useLedgerMonthly(projectId, { ...range, datasetId });
+  const monthly = useLedgerMonthly(projectId, { ...range, datasetId, alpha });
   const propose = useProposeLedger(projectId);
   const [open, setOpen] = useState<string | null>(null);
   const narrow = useSyncExternalStore(subscribeNarrow, isNarrow, () => false);
@@ -387,7 +404,8 @@ function MonthlyTotals({ rows, hindcast, error, isClient, month }: { rows: Ledge
         <div>
           <h3 className="text-base font-bold">Month against expectation</h3>
           <p className="text-sm text-ink-soft">
-            Expected: lost hours in the whole calendar month over the years of {hindcast ? hindcast.name : 'a hindcast (none yet)'}, P50 and P90, at OPLIM.
+            Expected: lost hours in the whole calendar month over the years of {hindcast ? hindcast.name : 'a hindcast (none yet)'}, P50 and P90, on the page’s basis
+            (stated at the top). The days above count what happened, at OPLIM.
           </p>
         </div>
         <Button variant="secondary" className="no-print" onClick={download}>

@@ -1,5 +1,5 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
-import type { WorkabilityEntry } from '../../../../shared/api-types-downtime';
+import type { WorkabilityCalendarMonth, WorkabilityEntry } from '../../../../shared/api-types-downtime';
 import { Button, Card, ErrorNotice, Notice, Select, Spinner, Term } from '../../../components/ui';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { hours, MONTH_LONG, MONTH_SHORT, num, pct } from './format';
@@ -100,8 +100,7 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
             Expected weather downtime by month
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months in each worksite’s time zone,{' '}
-            {alpha ? 'with the forecast limit OPWF = α × OPLIM on Hs.' : 'at OPLIM (no α).'}
+            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months in each worksite’s time zone (basis at the top of the page).
           </p>
         </div>
         <Button variant="secondary" className="no-print" onClick={downloadMonths} disabled={!entries || entries.length === 0}>
@@ -157,6 +156,23 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
 
 const round = (x: number, d: number) => Math.round(x * 10 ** d) / 10 ** d;
 
+/** Hours the WoW figures stand on: hours with data that have a go-start after them before the data end. */
+const wowStarts = (m: WorkabilityCalendarMonth) => Math.max(0, m.recordsWithData - m.censored);
+
+// Where a figure stands on little (common practice, no source): fewer than 3 years of a month
+// cannot show the spread between years; a WoW mean from under a quarter of the month's hours
+// leaves most hours out (they found no go-start before the data ended).
+const FEW_YEARS = 3;
+const FEW_STARTS_SHARE = 0.25;
+
+/** A short note when the month's statistics stand on thin data; null otherwise. */
+function thinNote(m: WorkabilityCalendarMonth): string | null {
+  const notes: string[] = [];
+  if (m.years > 0 && m.years < FEW_YEARS) notes.push(`only ${m.years} year${m.years === 1 ? '' : 's'}`);
+  if (m.wowMeanHours !== null && m.recordsWithData > 0 && wowStarts(m) < FEW_STARTS_SHARE * m.recordsWithData) notes.push('WoW from few hours');
+  return notes.length > 0 ? `Thin: ${notes.join(', ')}` : null;
+}
+
 /** The same numbers as the heat map, and the other statistics, one row group per operation at a worksite. */
 function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
   return (
@@ -208,11 +224,22 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
               <tr key={m.month} className="border-t border-line/60">
                 <th scope="row" className="px-2 py-1 text-left font-normal whitespace-nowrap">
                   {MONTH_LONG[m.month - 1]}
+                  <span className="block text-xs text-ink-soft" data-testid="month-basis">
+                    {m.years} yr, {m.recordsWithData.toLocaleString('en-GB')} h with data
+                  </span>
+                  {thinNote(m) ? <span className="block text-xs font-semibold text-danger">{thinNote(m)}</span> : null}
                 </th>
                 <td className={`${td} font-semibold`}>{m.workability === null ? '–' : pct(1 - m.workability)}</td>
                 <td className={td}>{pct(m.workability)}</td>
                 <td className={td}>{pct(m.goStartShare)}</td>
-                <td className={td}>{hours(m.wowMeanHours)}</td>
+                <td className={td}>
+                  {hours(m.wowMeanHours)}
+                  {m.wowMeanHours !== null ? (
+                    <span className="block text-xs text-ink-soft">
+                      from {wowStarts(m).toLocaleString('en-GB')} of {m.recordsWithData.toLocaleString('en-GB')} h
+                    </span>
+                  ) : null}
+                </td>
                 <td className={td}>{hours(m.wowP90Hours)}</td>
                 <td className={td}>{num(m.windowsPerMonth, 2)}</td>
                 <td className={td}>{hours(m.meanWindowHours)}</td>

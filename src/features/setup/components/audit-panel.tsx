@@ -228,6 +228,8 @@ function AuditEntry({ entry, names }: { entry: AuditEntryResponse; names: Names 
         <h3 className="text-base font-bold">{title}</h3>
         <p className="text-sm text-ink-soft">
           <time dateTime={entry.at}>{formatInstant(at, localTimeZone(), 'dateTimeSeconds')}</time> · {entry.userName}
+          {entry.userEmail ? <> ({entry.userEmail})</> : null}
+          {entry.userId ? <span className="text-xs text-ink-soft"> · user id {entry.userId}</span> : null}
         </p>
       </div>
       {changes.length === 0 ? (

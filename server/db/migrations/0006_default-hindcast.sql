@@ -1,0 +1,1 @@
+ALTER TABLE "project" ADD COLUMN "default_hindcast_id" uuid;
