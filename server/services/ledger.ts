@@ -152,7 +152,7 @@ function unionCovers(list: DatasetRowFull[], startMs: number, endMs: number): bo
   return reached >= endMs;
 }
 
-/** One source of statuses for {@link tallyStitched}: record times, statuses, limiting factors, dt. */
+/** One source of statuses for {@link tallyStitched}: record times, statuses, limiting factors, fallback dt (each record counts its local step, record-steps.ts). */
 export interface StatusPart {
   timeMs: Float64Array;
   status: Uint8Array;
@@ -165,7 +165,8 @@ const MS_PER_MINUTE = 60_000;
 /**
  * Planned and lost hours of one day from several sources in order of preference (for forecast
  * issues: the newest first). Each minute of the day takes the status of the first source with a
- * record starting in the day that covers it ([t, t + dt)); minutes no source covers count as no
+ * record starting in the day that covers it ([t, t + dt_i), dt_i the record's local step: a forecast
+ * turns 3-hourly after a few days); minutes no source covers count as no
  * data, as in {@link tallyDay}. With one source on whole-hour records this equals tallyDay.
  * @returns the tally, and per source the minutes it decided
  */
@@ -179,9 +180,10 @@ export function tallyStitched(parts: StatusPart[], startMs: number, endMs: numbe
   let noData = 0;
   let covered = 0;
   parts.forEach((p, k) => {
+    const dur = recordSteps(p.timeMs, p.stepMs).durationMs;
     for (let i = lowerBound(p.timeMs, startMs); i < p.timeMs.length && p.timeMs[i] < endMs; i++) {
       const a = Math.floor((p.timeMs[i] - startMs) / MS_PER_MINUTE);
-      const b = Math.min(minutes, Math.ceil((p.timeMs[i] + p.stepMs - startMs) / MS_PER_MINUTE));
+      const b = Math.min(minutes, Math.ceil((p.timeMs[i] + dur[i] - startMs) / MS_PER_MINUTE));
       let n = 0;
       for (let m = a; m < b; m++) {
         if (claimed[m] === 0) {
