@@ -22,7 +22,7 @@ export interface OperationSitePlan {
   tr: number;
   weatherRestricted: boolean;
   /**
-   * Not weather-restricted (not marked so, TPOP above 72 h or TR above 96 h; Convention 5): the
+   * Not weather-restricted (not marked so, TPOP above 72 h or TR above 96 h; docs/domain.md#convention-5): the
    * statuses are against OPLIM for information only, labelled "not weather-restricted"; there are
    * never windows, an earliest start or "may start now".
    */

@@ -179,7 +179,7 @@ function recurrenceStarts(recurrence: unknown, timeMs: Float64Array, stepMs: num
  * marginal, no-go when any hour is not workable, no data otherwise (docs/domain.md#convention-7). Records cover
  * [t_i, t_i + dt_i) with their local step; a hole between one record's end and the next start
  * longer than half a step is no data. An operation that is not weather-restricted
- * (`informationOnly`, Convention 5) never gets "go" or "marginal": those become "information".
+ * (`informationOnly`, docs/domain.md#convention-5) never gets "go" or "marginal": those become "information".
  */
 export function occurrencesOf(
   recurrence: unknown,

@@ -35,7 +35,7 @@ export function AccountPage() {
           setCurrent('');
           setNext('');
           setRepeat('');
-          if (forced) navigate('/', { replace: true });
+          if (forced) void navigate('/', { replace: true });
         },
       },
     );

@@ -14,7 +14,7 @@ export const getLedgerMonthly = (projectId: string, p: LedgerMonthlyParams) =>
 export const ledgerMonthlyQueryOptions = (projectId: string, p: LedgerMonthlyParams) =>
   queryOptions({
     queryKey: [...ledgerKey(projectId), 'monthly', { from: p.from, to: p.to, datasetId: p.datasetId, alpha: p.alpha }],
-    queryFn: () => getLedgerMonthly(projectId, p),
+    queryFn: () => getLedgerMonthly(projectId, { from: p.from, to: p.to, datasetId: p.datasetId, alpha: p.alpha }),
   });
 
 export const useLedgerMonthly = (projectId: string, p: LedgerMonthlyParams) =>

@@ -145,7 +145,7 @@ export function OperationsPanel({ projectId, canEdit }: { projectId: string; can
 
 /**
  * The forecast limits of a weather-restricted operation in words: Hs max × α, and for a curve the
- * range of α over its points (α is looked up at each point's own Hs, Convention 5). Null when α is
+ * range of α over its points (α is looked up at each point's own Hs, docs/domain.md#convention-5). Null when α is
  * 1 (not weather-restricted, TPOP above 72 h or TR above 96 h) or there is no Hs limit.
  */
 function forecastLimitText(op: OperationResponse, table: AlphaTable | undefined): string | null {
