@@ -38,6 +38,7 @@ import type { ProjectAccessRole } from '../../shared/api-types';
 import { LEDGER_LIMITING_VALUES, type LedgerConfirmInput, type LedgerLimiting } from '../../shared/schemas/downtime';
 import { idParam } from '../../shared/schemas/common';
 import type { Db } from '../db/client';
+import { bisectLeft } from 'd3-array'; // first index whose time is >= t (times ascending)
 import { dataset, ledgerDay, operation, user, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, notFound } from '../http/errors';
@@ -96,7 +97,7 @@ export function tallyDay(timeMs: Float64Array, status: Uint8Array, limiting: Uin
   let noData = 0;
   let present = 0;
   let workable = 0;
-  let i = lowerBound(timeMs, startMs);
+  let i = bisectLeft(timeMs, startMs);
   for (; i < timeMs.length && timeMs[i] < endMs; i++) {
     const dtH = Math.min(dur[i], endMs - timeMs[i]) / MS_PER_HOUR;
     present += dtH;
@@ -117,17 +118,6 @@ export function tallyDay(timeMs: Float64Array, status: Uint8Array, limiting: Uin
   }
   if (noData > bestHours) best = 'noData';
   return { plannedHours, lostHours: round2(lostHours), limiting: lostHours > 0 ? best : null };
-}
-
-function lowerBound(times: Float64Array, t: number): number {
-  let lo = 0;
-  let hi = times.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (times[mid] < t) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }
 
 type DatasetRowFull = typeof dataset.$inferSelect;
@@ -181,7 +171,7 @@ export function tallyStitched(parts: StatusPart[], startMs: number, endMs: numbe
   let covered = 0;
   parts.forEach((p, k) => {
     const dur = recordSteps(p.timeMs, p.stepMs).durationMs;
-    for (let i = lowerBound(p.timeMs, startMs); i < p.timeMs.length && p.timeMs[i] < endMs; i++) {
+    for (let i = bisectLeft(p.timeMs, startMs); i < p.timeMs.length && p.timeMs[i] < endMs; i++) {
       const a = Math.floor((p.timeMs[i] - startMs) / MS_PER_MINUTE);
       const b = Math.min(minutes, Math.ceil((p.timeMs[i] + dur[i] - startMs) / MS_PER_MINUTE));
       let n = 0;

@@ -1,6 +1,7 @@
 import { nextGoStartIndex } from './go-starts';
 import { quantileR7 } from './quantile-r7';
 import { MS_PER_HOUR } from './workable-runs';
+import { bisectLeft } from 'd3-array'; // first index whose time is >= t (times ascending)
 
 /**
  * One forecast sample source: the deterministic forecast (its go-starts with alpha), or, once
@@ -134,7 +135,7 @@ export function simulateOutlook(input: OutlookInput): OutlookSample[] {
     if (member && nSteps > 0) {
       const next = member.goStart.map((f) => nextGoStartIndex(f));
       for (; k < nSteps; k++) {
-        const i = lowerBound(member.timeMs, t);
+        const i = bisectLeft(member.timeMs, t);
         const j = i < member.timeMs.length ? next[k][i] : -1;
         if (j < 0) break;
         fcStarts.push(member.timeMs[j]);
@@ -155,7 +156,7 @@ export function simulateOutlook(input: OutlookInput): OutlookSample[] {
       const starts = fcStarts.slice();
       let censored = false;
       for (let s = k; s < nSteps; s++) {
-        const i = lowerBound(hindcast.timeMs, tau);
+        const i = bisectLeft(hindcast.timeMs, tau);
         const j = i < hindcast.timeMs.length ? hindNext[s][i] : -1;
         if (j < 0) {
           censored = true;
@@ -235,14 +236,3 @@ export function outlookStart(progress: (StepProgress | undefined)[], tpopH: numb
   return { firstIndex, startMs };
 }
 
-/** First index whose time is >= t (times ascending); the length when none. */
-function lowerBound(times: Float64Array, t: number): number {
-  let lo = 0;
-  let hi = times.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (times[mid] < t) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}

@@ -3,6 +3,7 @@ import { nextGoStartIndex } from './go-starts';
 import { quantileR7 } from './quantile-r7';
 import { recordSteps } from './record-steps';
 import { MS_PER_HOUR, assertStep } from './workable-runs';
+import { bisectLeft } from 'd3-array'; // first index whose time is >= t (times ascending)
 
 /** One campaign step: an operation at a worksite. */
 export interface CampaignStep {
@@ -122,7 +123,7 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
       let stuckStep: number | null = null;
       for (let k = 0; k < prepared.length; k++) {
         const step = prepared[k];
-        const i = lowerBound(step.times, t);
+        const i = bisectLeft(step.times, t);
         const j = i < step.times.length ? step.next[i] : -1;
         if (j < 0) {
           censored = true;
@@ -158,18 +159,6 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
       runs,
     };
   });
-}
-
-/** First index whose time is >= t (times ascending); the length when none. */
-function lowerBound(times: Float64Array, t: number): number {
-  let lo = 0;
-  let hi = times.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (times[mid] < t) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }
 
 /** How many censored runs stopped at each step, by step index. */
