@@ -16,13 +16,14 @@ export interface LinkConfig {
  * mark, with the RFC 8058 headers (List-Unsubscribe with the https link, List-Unsubscribe-Post:
  * List-Unsubscribe=One-Click) so mail programs can offer their own unsubscribe button.
  */
-function withUnsubscribeLink(m: { userId: string | null; projectId: string | null; text: string; html: string }, links: LinkConfig | undefined, nowMs: number) {
+function withUnsubscribeLink(m: { userId: string | null; projectId: string | null; text: string; html: string; createdAt: Date }, links: LinkConfig | undefined) {
   if (!m.text.includes(UNSUBSCRIBE_LINK_MARK) && !m.html.includes(UNSUBSCRIBE_LINK_MARK)) return { text: m.text, html: m.html };
   if (!links || !m.userId || !m.projectId) {
     const none = '(change your alerts on the Alerts page)';
     return { text: m.text.replaceAll(UNSUBSCRIBE_LINK_MARK, none), html: m.html.replaceAll(UNSUBSCRIBE_LINK_MARK, '#') };
   }
-  const url = unsubscribeUrl(links.baseUrl, links.linkSecret, m.userId, m.projectId, nowMs);
+  // Dated from when the message was written, not sent: a resend after a crash is the same message, link included.
+  const url = unsubscribeUrl(links.baseUrl, links.linkSecret, m.userId, m.projectId, m.createdAt.getTime());
   const htmlUrl = url.replaceAll('&', '&amp;');
   return {
     text: m.text.replaceAll(UNSUBSCRIBE_LINK_MARK, url),
@@ -82,7 +83,7 @@ export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options:
     try {
       // The same Message-ID on every attempt: a resend after a crash between the SMTP server's
       // acceptance and the 'sent' update below is recognisable as the same message.
-      await mailer.send({ to: m.toEmail, subject: m.subject, ...withUnsubscribeLink(m, options.links, now.getTime()), messageId: `outbox.${m.id}` });
+      await mailer.send({ to: m.toEmail, subject: m.subject, ...withUnsubscribeLink(m, options.links), messageId: `outbox.${m.id}` });
       await db.update(outbox).set({ status: 'sent', sentAt: new Date(), lastError: null }).where(eq(outbox.id, m.id));
       sent++;
     } catch (err) {

@@ -36,6 +36,8 @@ let projectId = '';
 /** Outbox ids of the e-mail held without an SMTP answer at the first kill, and of the one accepted just before the second. */
 let heldId = '';
 let racedId = '';
+/** The address of the server that sent the raced e-mail: its unsubscribe link is built on it. */
+let racedBaseUrl = '';
 
 const start = async () => (server = await startServer(dataDir, { SMTP_URL: catcher.smtpUrl, DEMO_HINDCAST_YEARS: '1', TMPDIR: serverTmp }));
 
@@ -140,6 +142,7 @@ describe('SIGKILL during a planning run and its e-mails', () => {
     });
     const job = planOnce();
     const racedIndex = await raced;
+    racedBaseUrl = server!.baseUrl;
     await server!.exited;
     expect(await job).toBeNull();
     racedId = outboxId(catcher.seen[racedIndex]);
@@ -298,7 +301,9 @@ describe('after the kills', () => {
     const database = await openDatabase({ dataDir: path.join(dataDir, 'db') });
     const mailer = await createMailer({ smtpUrl: catcher.smtpUrl, from: 'Lullwatch <alerts@lullwatch.invalid>' });
     try {
-      await deliverDueMail(database.db, mailer, new Date(Date.now() + 2 * 3_600_000), { maxAttempts: 6, log: silentLogger });
+      // The same link settings as the server that sent the first copy (its address and the secret in its data folder).
+      const links = { baseUrl: racedBaseUrl, linkSecret: process.env.BETTER_AUTH_SECRET ?? fs.readFileSync(path.join(dataDir, 'auth-secret'), 'utf8').trim() };
+      await deliverDueMail(database.db, mailer, new Date(Date.now() + 2 * 3_600_000), { maxAttempts: 6, log: silentLogger, links });
       const rows = await database.db.select().from(outbox);
       expect(rows.length).toBeGreaterThan(3);
       expect(rows.filter((r) => r.status !== 'sent').map((r) => r.status)).toEqual([]);
