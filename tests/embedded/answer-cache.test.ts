@@ -2,7 +2,9 @@
 // through any route is seen at once, another user's answer is never served, and the HTTP
 // semantics hold. ETag and If-None-Match: RFC 9110 sections 8.8.3 and 13.1.2 (a weak validator
 // matches by weak comparison, and a match answers 304 with no body); Content-Encoding gzip:
-// RFC 9110 section 8.4.1.3. The real app on a real embedded database, no mocks.
+// RFC 9110 section 8.4.1.3. The real app on a real embedded database, no mocks. The cache works on
+// the embedded database only (it counts that database's writes), so this file sits outside tests/api,
+// which `npm run test:postgres` runs again on a PostgreSQL server.
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app';
