@@ -137,7 +137,8 @@ function raiseCurve(hs: Float64Array, tp: Float64Array, c: CompiledLimits, cls: 
     else {
       let s = 0;
       while (s < nSeg - 1 && cTp[s + 1] < t) s++;
-      const lim = cHs[s] + cSlope[s] * (t - cTp[s]);
+      // At a curve point the limit is that point's Hs exactly (limits are inclusive, docs/domain.md#convention-6).
+      const lim = t === cTp[s + 1] ? cHs[s + 1] : cHs[s] + cSlope[s] * (t - cTp[s]);
       let alpha = 1;
       if (nA > 0) {
         if (lim <= aFirstCol) alpha = aFirst;
