@@ -62,16 +62,20 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   app.disable('x-powered-by');
   if (options.trustProxy !== undefined) app.set('trust proxy', options.trustProxy);
 
+  // A production tile server (MAP_STYLE_URL): its style, tiles, glyphs and sprites come from its origin.
+  const mapOrigins = deps.config.mapStyleUrl ? [new URL(deps.config.mapStyleUrl).origin] : [];
   app.use(
     helmet({
       contentSecurityPolicy: {
         directives: {
           // The client ships its own font files; charts draw inline SVG styles.
           'default-src': ["'self'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
+          'img-src': ["'self'", 'data:', 'blob:', ...mapOrigins],
           'style-src': ["'self'", "'unsafe-inline'"],
           'font-src': ["'self'", 'data:'],
-          'connect-src': ["'self'"],
+          'connect-src': ["'self'", ...mapOrigins],
+          // The map library draws in a worker it starts from a blob: address.
+          'worker-src': ["'self'", 'blob:'],
           'upgrade-insecure-requests': null,
         },
       },

@@ -75,7 +75,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
     forecast: forecast.provider,
     mailer,
     // The same list for the auth library's Origin check and for our own API (server/http/same-origin.ts).
-    config: { baseUrl: baseURL, trustedOrigins: trustedOrigins(baseURL), linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6, jobToken },
+    config: { baseUrl: baseURL, trustedOrigins: trustedOrigins(baseURL), linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6, jobToken, mapStyleUrl: env.MAP_STYLE_URL, mapAttribution: env.MAP_ATTRIBUTION },
   });
 
   const deps = makeDeps(provisionalBase);

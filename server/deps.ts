@@ -34,6 +34,10 @@ export interface AppConfig {
   earliestMoveAlertHours: number;
   /** Delivery attempts before an e-mail is marked failed. */
   mailMaxAttempts: number;
+  /** Tile style of the map for production (MAP_STYLE_URL); unset = the coastline built into the client. */
+  mapStyleUrl?: string;
+  /** The attribution the tile server requires (MAP_ATTRIBUTION), shown on the map. */
+  mapAttribution?: string;
   /** Secret that `npm run plan:once` presents to ask this running server to plan (embedded database). */
   jobToken?: string;
 }

@@ -28,6 +28,13 @@ const EnvSchema = z.object({
   /** Base URL of the hosted marine forecast service; unset starts the local fake. */
   FORECAST_URL: z.string().url().optional(),
   FORECAST_API_KEY: z.string().optional(),
+  /**
+   * Style JSON of a tile server for the map (production); unset: the coastline built into the
+   * client (no network). Its origin is allowed in the page's content security policy.
+   */
+  MAP_STYLE_URL: z.string().url().regex(/^https?:\/\//, 'must start with https:// or http://').optional(),
+  /** The attribution the tile server requires, shown on the map (with MAP_STYLE_URL). */
+  MAP_ATTRIBUTION: z.string().max(300).optional(),
   /** Cron expression (UTC) of the planning job. */
   PLAN_CRON: z.string().default('15 */6 * * *'),
   /** An earliest start moving by more than this many hours is an alert. */

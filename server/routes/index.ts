@@ -24,6 +24,7 @@ import { mailboxRoutes } from './mailbox';
 import { calendarRoutes } from './calendar';
 import { recurrenceRoutes } from './recurrence';
 import { internalBackupRoutes } from './internal-backup';
+import { overviewRoutes } from './overview';
 
 /** Every API router, in the order they are mounted under /api. */
 export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
@@ -51,4 +52,5 @@ export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
   calendarRoutes,
   recurrenceRoutes,
   internalBackupRoutes,
+  overviewRoutes,
 ];

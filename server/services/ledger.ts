@@ -575,6 +575,26 @@ export function computeExpectations(series: SeaSeries, row: DatasetRow, setup: P
  * proposed (not for clients), and the hindcast expectation of the month's lost hours (P50/P90).
  * Months are those with ledger rows, optionally limited to days `from`-`to`.
  */
+/**
+ * The hindcast expectation of lost hours per calendar month for every operation at each of its
+ * worksites (the basis of {@link ledgerMonthly}), with the dataset it is taken from; none without a hindcast.
+ */
+export async function ledgerExpectations(
+  db: Db,
+  projectId: string,
+  options: { datasetId?: string; alpha?: boolean } = {},
+): Promise<{ hindcast: DatasetRow | null; expectations: LedgerExpectation[] }> {
+  const [setup, hindcast] = await Promise.all([loadProjectSetup(db, projectId), statisticsDataset(db, projectId, options.datasetId)]);
+  if (!hindcast) return { hindcast: null, expectations: [] };
+  const alpha = options.alpha ?? false;
+  const version = limitsVersion(setup, hindcast.dataPointDepthM);
+  const expectations = await cachedStats(db, projectId, hindcast.id, version, alpha ? 'ledger-alpha' : 'ledger', async () =>
+    // On an engine worker thread (engine-pool.ts).
+    runEngineTask('ledgerExpectations', computeExpectations, await datasetSeries(db, hindcast.id), hindcast, setup, alpha),
+  );
+  return { hindcast, expectations };
+}
+
 export async function ledgerMonthly(
   db: Db,
   projectId: string,

@@ -241,6 +241,8 @@ const TABLE: Record<string, RouteCase> = {
   'GET /wave/table': { access: 'signedIn', query: () => ({ from: '0.01', to: '0.5', step: '0.01' }) },
   'GET /wave/sea-state': { access: 'signedIn', query: () => ({ hs: '1.5', tp: '9', depth: '12' }) },
 
+  'GET /projects/:projectId/overview': { access: 'member', why: 'each role sees its own parts (coordinator counts only for coordinators)' },
+  'GET /map-style': { access: 'signedIn', why: 'the tile style address and attribution only, no project data' },
   'GET /projects/:projectId/plan': { access: 'member', query: (p) => ({ dataset: p.datasetId }), queryIds: { dataset: 'datasetId' } },
   'GET /projects/:projectId/plan/chain': {
     access: 'member',

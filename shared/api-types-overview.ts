@@ -1,0 +1,89 @@
+// The project Overview: today's picture of a project for the person looking at it.
+import type { HourStatus } from './api-types-plan';
+import type { ProjectAccessRole } from './api-types';
+
+/** One operation at one of its worksites, as the Overview says it in one line. */
+export interface OverviewLine {
+  operationId: string;
+  operationName: string;
+  siteId: string;
+  siteName: string;
+  /** IANA zone of the worksite; every time of the line is read in it. */
+  timeZone: string;
+  /** Operation reference period TR, h. */
+  tr: number;
+  /** Not weather-restricted (docs/domain.md#convention-5): statuses are for information only, never a go-start. */
+  informationOnly: boolean;
+  /** The caller is one of the operation's skippers. */
+  mine: boolean;
+  startNow: boolean;
+  /** The plan's earliest go-start (the same instant as the plan answer's `earliestStart`). */
+  earliestStart: string | null;
+  /** Length of the usable window that holds the go-start (now, or the earliest start), h. */
+  windowHours: number | null;
+  /** The limit that decides most hours before the go-start, or over the forecast when there is none. */
+  limiting: string | null;
+  /**
+   * Chance of the go-start from an ensemble forecast, 0-1 (docs/domain.md#forecast-uncertainty).
+   * Always null for now: no ensemble forecast is stored yet.
+   */
+  chance: number | null;
+  /** The next 48 hours from the current hour: ISO UTC record starts and their statuses. */
+  next: { times: string[]; status: HourStatus[] };
+}
+
+/** A change the planning job found in its latest run, against the run before. */
+export interface OverviewChange {
+  operationId: string;
+  siteId: string;
+  kind: string;
+  message: string;
+}
+
+/** One operation at a worksite this month: confirmed downtime against the hindcast expectation. */
+export interface OverviewMonthRow {
+  operationId: string;
+  operationName: string;
+  siteId: string;
+  siteName: string;
+  /** YYYY-MM in the worksite's zone. */
+  month: string;
+  /** Days of the month so far (over in the worksite's zone) and how many of them are confirmed. */
+  daysOver: number;
+  confirmedDays: number;
+  confirmedLostHours: number;
+  /** P50 and P90 of the whole calendar month's lost hours over the hindcast years (null without a hindcast). */
+  expectedP50Hours: number | null;
+  expectedP90Hours: number | null;
+  hindcastYears: number;
+}
+
+/** GET /api/projects/:projectId/overview */
+export interface OverviewAnswer {
+  generatedAt: string;
+  role: ProjectAccessRole;
+  /** The forecast planned on (the project's newest), or null when there is none. */
+  forecast: { id: string; name: string; issuedAt: string | null; start: string; end: string } | null;
+  /** Sea state at the data point at the current hour of the forecast (direction "coming from", degrees). */
+  dataPointNow: { time: string; hs: number | null; tp: number | null; dir: number | null } | null;
+  /** The planning job's latest good run and the changes it found against the one before. */
+  lastPlan: { at: string; changes: OverviewChange[] } | null;
+  lines: OverviewLine[];
+  /** Coordinators and administrators only. */
+  coordinator: {
+    /** Ledger days proposed and not yet confirmed, and the oldest of them. */
+    ledgerDaysWaiting: number;
+    oldestWaitingDay: string | null;
+    /** Alert e-mails that gave up after their last attempt. */
+    failedEmails: number;
+    datasetsWithWarnings: { id: string; name: string; warnings: string[] }[];
+  } | null;
+  /** Clients, coordinators and administrators: this month's confirmed downtime against expectation. */
+  month: { hindcast: { id: string; name: string } | null; rows: OverviewMonthRow[] } | null;
+}
+
+/** GET /api/map-style: the tile style set for production (MAP_STYLE_URL), else null (the built-in coastline). */
+export interface MapStyleAnswer {
+  styleUrl: string | null;
+  attribution: string | null;
+}
