@@ -25,6 +25,8 @@ export const DATE_STYLE = {
   dateHour: 'd MMM yyyy HH:mm',
   /** "14:00" */
   time: 'HH:mm',
+  /** "December 2026" (a calendar month) */
+  month: 'MMMM yyyy',
 } as const;
 
 export type DateStyle = keyof typeof DATE_STYLE;
@@ -52,6 +54,12 @@ export function formatInstant(instant: string | number | Date | null | undefined
 export function formatDay(day: string, style: 'day' | 'dayYear' | 'date' = 'dayYear'): string {
   if (!/^\d{4}-\d{2}-\d{2}$/.test(day)) return day;
   return format(new Date(`${day}T12:00:00Z`), DATE_STYLE[style], { in: tz('UTC') });
+}
+
+/** A calendar month 'YYYY-MM' in the date style, e.g. "December 2026" (no zone: a month is a month). */
+export function formatMonth(month: string): string {
+  if (!/^\d{4}-\d{2}$/.test(month)) return month;
+  return format(new Date(`${month}-15T12:00:00Z`), DATE_STYLE.month, { in: tz('UTC') });
 }
 
 /** The zone's short name at that instant ("CET", "GMT+1"), or the zone's own name when unknown. */

@@ -54,7 +54,7 @@ export const router = createBrowserRouter([
           return null;
         },
         children: [
-          { index: true, lazy: page(() => import('../features/projects/components/project-overview-page'), 'ProjectOverviewPage') },
+          { index: true, lazy: page(() => import('../features/overview/components/overview-page'), 'ProjectOverviewPage') },
           { path: 'settings', lazy: page(() => import('../features/projects/components/project-settings-page'), 'ProjectSettingsPage') },
           { path: 'board', lazy: page(() => import('../features/board/components/board-page'), 'BoardPage') },
           { path: 'conditions/:siteId', lazy: page(() => import('../features/board/components/conditions-page'), 'ConditionsPage') },

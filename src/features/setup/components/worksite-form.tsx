@@ -1,4 +1,4 @@
-import { useId } from 'react';
+import { useId, useMemo, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -9,6 +9,9 @@ import { Button, ErrorNotice, FieldShell, Input, Select } from '../../../compone
 import { useCreateSite } from '../api/create-site';
 import { useHindcasts } from '../../../api/datasets';
 import { useUpdateSite } from '../api/update-site';
+import { useProject } from '../../../api/projects';
+import { useMapStyle } from '../../../api/map-style';
+import { LazySiteMap } from '../../../components/map/lazy-site-map';
 import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
 import { COMMON_TIME_ZONES } from './time-zones';
@@ -88,6 +91,8 @@ export function WorksiteForm({
   });
   const errors = form.formState.errors;
   const table = useWatch({ control: form.control, name: 'transferTable' }) as TransferTableText | null;
+  const [showMap, setShowMap] = useState(false);
+  const [latText, lonText, shoreText] = useWatch({ control: form.control, name: ['latitude', 'longitude', 'shoreNormal'] }) as [string, string, string];
 
   const setTable = (next: TransferTableText | null) =>
     form.setValue('transferTable', next, { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
@@ -175,6 +180,23 @@ export function WorksiteForm({
           </Select>
         </FieldShell>
       </div>
+      <Button variant="secondary" className="self-start" aria-expanded={showMap} onClick={() => setShowMap((v) => !v)}>
+        {showMap ? 'Hide the map' : 'Set the position on a map'}
+      </Button>
+      {showMap ? (
+        <PositionPicker
+          projectId={projectId}
+          name={site?.name ?? 'New worksite'}
+          siteId={site?.id ?? 'new'}
+          latitude={latText}
+          longitude={lonText}
+          shoreNormal={shoreText}
+          onPick={(lat, lon) => {
+            form.setValue('latitude', String(lat), { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
+            form.setValue('longitude', String(lon), { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
+          }}
+        />
+      ) : null}
       <p className="text-xs text-ink-soft">{TRANSFORMATION_CAUTION}</p>
 
       <FormSection
@@ -205,5 +227,46 @@ export function WorksiteForm({
         </Button>
       </div>
     </form>
+  );
+}
+
+/** The worksite on the project's map at the typed position; a click fills in latitude and longitude. */
+function PositionPicker(props: {
+  projectId: string;
+  name: string;
+  siteId: string;
+  latitude: string;
+  longitude: string;
+  shoreNormal: string;
+  onPick: (latitude: number, longitude: number) => void;
+}) {
+  const project = useProject(props.projectId);
+  const style = useMapStyle();
+  const lat = numberOrNull(props.latitude);
+  const lon = numberOrNull(props.longitude);
+  const beta = numberOrNull(props.shoreNormal);
+  const sites = useMemo(
+    () => (lat !== null && lon !== null && Number.isFinite(lat) && Number.isFinite(lon) ? [{ id: props.siteId, name: props.name, latitude: lat, longitude: lon, shoreNormal: beta }] : []),
+    [lat, lon, beta, props.siteId, props.name],
+  );
+  const p = project.data;
+  const dataPoint = useMemo(
+    () => (p && p.dataPointLatitude !== null && p.dataPointLongitude !== null ? { name: p.dataPointName || 'Data point', latitude: p.dataPointLatitude, longitude: p.dataPointLongitude } : null),
+    [p],
+  );
+  return (
+    <div className="grid gap-1">
+      <p className="text-sm text-ink-soft">Click the map to set this worksite’s latitude and longitude; zoom in for a closer coast.</p>
+      <LazySiteMap
+        label={`Map: click to set the position of ${props.name}`}
+        sites={sites}
+        dataPoint={dataPoint}
+        waveDirection={null}
+        pickSiteId={props.siteId}
+        onPick={props.onPick}
+        styleUrl={style.data?.styleUrl ?? null}
+        attribution={style.data?.attribution ?? null}
+      />
+    </div>
   );
 }
