@@ -4,7 +4,10 @@
 // the app). A production tile style replaces it when the server sets MAP_STYLE_URL.
 // This module is heavy (the map library): load it through ./lazy-site-map.tsx only.
 import { useEffect, useRef } from 'react';
-import { AttributionControl, LngLatBounds, Map as MapView, Marker, NavigationControl, type StyleSpecification } from 'maplibre-gl';
+import { AttributionControl, LngLatBounds, Map as MapView, Marker, NavigationControl, setWorkerUrl, type StyleSpecification } from 'maplibre-gl';
+// The map library draws in a worker it loads from beside its own module; the bundle moves the
+// module, so the worker file is shipped as an asset of ours and named here.
+import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
 import 'maplibre-gl/dist/maplibre-gl.css';
 import { feature } from 'topojson-client';
 import type { Topology, GeometryCollection } from 'topojson-specification';
@@ -43,6 +46,8 @@ export interface SiteMapProps {
   className?: string;
 }
 
+setWorkerUrl(workerUrl);
+
 const SEA = '#d7e7ea';
 const LAND = '#e9e4d4';
 const COAST = '#8a9a8e';
@@ -65,8 +70,7 @@ function builtInStyle(land: GeoJSON.FeatureCollection | GeoJSON.Feature): StyleS
     sources: { land: { type: 'geojson', data: land, attribution: 'Coastline: Natural Earth (public domain)' } },
     layers: [
       { id: 'sea', type: 'background', paint: { 'background-color': SEA } },
-      { id: 'land', type: 'fill', source: 'land', paint: { 'fill-color': LAND } },
-      { id: 'coast', type: 'line', source: 'land', paint: { 'line-color': COAST, 'line-width': 0.8 } },
+      { id: 'land', type: 'fill', source: 'land', paint: { 'fill-color': LAND, 'fill-outline-color': COAST } },
     ],
   };
 }

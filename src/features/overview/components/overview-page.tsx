@@ -14,6 +14,9 @@ import { HourStrip, statusWord } from './hour-strip';
 import { forecastAgeWords, hoursWords, plainLine, startSentence } from './plain-line';
 import { OverviewMap } from './overview-map';
 
+/** Hours of a month as plain hours ("212.5 h"), so P50, P90 and the confirmed hours read on one scale. */
+const plainHours = (h: number) => `${Math.round(h * 10) / 10} h`;
+
 const lineKey = (l: OverviewLine) => `${l.operationId}|${l.siteId}`;
 
 /** One zone for the page when every worksite shares it, else null (each line in its worksite's zone). */
@@ -41,9 +44,9 @@ export function ProjectOverviewPage() {
       <ForecastCard o={o} nowMs={nowMs} zone={zone} />
       {role === 'skipper' ? <MyOperations projectId={projectId} lines={mine} forecastEnd={o.forecast?.end ?? null} nowMs={nowMs} /> : null}
       {o.coordinator ? <CoordinatorCard projectId={projectId} c={o.coordinator} /> : null}
-      {o.month && role === 'client' ? <MonthCard month={o.month} /> : null}
+      {o.month && o.lines.length > 0 && role === 'client' ? <MonthCard month={o.month} /> : null}
       <LinesCard o={o} nowMs={nowMs} />
-      {o.month && role !== 'client' ? <MonthCard month={o.month} /> : null}
+      {o.month && o.lines.length > 0 && role !== 'client' ? <MonthCard month={o.month} /> : null}
       <OverviewMap project={project} waveDirection={o.dataPointNow?.dir ?? null} canEdit={access.canEdit} />
       <AboutCard project={project} o={o} />
       <p className="text-xs text-ink-soft">{CAUTION_LINE}</p>
@@ -255,11 +258,11 @@ function CoordinatorCard({ projectId, c }: { projectId: string; c: NonNullable<O
 
 /** This month's confirmed downtime against the hindcast's P50/P90 for the whole month. */
 function MonthCard({ month }: { month: NonNullable<OverviewAnswer['month']> }) {
-  const name = month.rows[0] ? formatMonth(month.rows[0].month) : 'This month';
+  const name = month.rows[0] ? `in ${formatMonth(month.rows[0].month)}` : 'this month';
   return (
     <Card aria-labelledby="overview-month-title" data-testid="month-card">
       <h2 id="overview-month-title" className="mb-1 text-lg font-bold">
-        Downtime in {name}
+        Downtime {name}
       </h2>
       <p className="mb-3 text-sm text-ink-soft">
         Confirmed lost hours so far against the expectation for the whole month
@@ -284,9 +287,9 @@ function MonthCard({ month }: { month: NonNullable<OverviewAnswer['month']> }) {
                 {r.operationName} <span className="font-normal text-ink-soft">at</span> {r.siteName}
               </p>
               <p className="text-sm break-words" data-testid="month-words">
-                {hoursWords(r.confirmedLostHours)} lost on {r.confirmedDays} confirmed day{r.confirmedDays === 1 ? '' : 's'} of {r.daysOver} so far; expected for
-                the month: P50 {r.expectedP50Hours === null ? '–' : hoursWords(r.expectedP50Hours)}, P90{' '}
-                {r.expectedP90Hours === null ? '–' : hoursWords(r.expectedP90Hours)}
+                {plainHours(r.confirmedLostHours)} lost on {r.confirmedDays} confirmed day{r.confirmedDays === 1 ? '' : 's'} of {r.daysOver} so far; expected for
+                the month: P50 {r.expectedP50Hours === null ? '–' : plainHours(r.expectedP50Hours)}, P90{' '}
+                {r.expectedP90Hours === null ? '–' : plainHours(r.expectedP90Hours)}
                 {r.hindcastYears ? ` (${r.hindcastYears} years)` : ''}
                 {verdict}.
               </p>
