@@ -131,7 +131,7 @@ describe('the project Overview', () => {
       for (const p of mine) {
         const card = page.locator(`[data-testid="my-operation-card"][data-operation-id="${p.operationId}"][data-site-id="${p.siteId}"]`);
         expect(await card.count()).toBe(1);
-        expect(await card.getByTestId('card-now').textContent()).toMatch(/^(may start now|workable|marginal|not workable|no data|for information only)$/);
+        expect(await card.getByTestId('card-now').textContent()).toMatch(/^(may start now|workable, but not for TR = [\d.]+ h from now|marginal|not workable|no data|for information only)$/);
         // The next 48 hours as a strip: one cell per forecast hour ahead (at most 48).
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeGreaterThan(0);
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeLessThanOrEqual(48);

@@ -17,6 +17,12 @@ import { OverviewMap } from './overview-map';
 /** Hours of a month as plain hours ("212.5 h"), so P50, P90 and the confirmed hours read on one scale. */
 const plainHours = (h: number) => `${Math.round(h * 10) / 10} h`;
 
+/** The hour now in words; a workable hour that cannot start the operation says why. */
+function nowWords(l: OverviewLine): string {
+  const s = l.next.status[0];
+  return s === 'workable' ? `workable, but not for TR = ${hoursWords(l.tr)} from now` : statusWord(s);
+}
+
 const lineKey = (l: OverviewLine) => `${l.operationId}|${l.siteId}`;
 
 /** One zone for the page when every worksite shares it, else null (each line in its worksite's zone). */
@@ -174,7 +180,7 @@ function MyOperations({ projectId, lines, forecastEnd, nowMs }: { projectId: str
               </h3>
               <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
                 <dt className="text-ink-soft">Now</dt>
-                <dd data-testid="card-now">{l.informationOnly ? 'for information only' : l.startNow ? 'may start now' : statusWord(l.next.status[0])}</dd>
+                <dd data-testid="card-now">{l.informationOnly ? 'for information only' : l.startNow ? 'may start now' : nowWords(l)}</dd>
                 <dt className="text-ink-soft">Next go-start</dt>
                 <dd className="break-words" data-testid="card-next">
                   {startSentence({ ...l, windowHours: null }, nowMs, forecastEnd)}
