@@ -32,7 +32,7 @@ interface Body {
 const NEVER = /^\/api\/(unsubscribe|dev\/|calendar\/|health)/;
 
 /** GET answers that depend on the clock. */
-const CLOCK_DEPENDENT = /^\/api\/projects\/[^/]+\/plan(\?|\/|$)/;
+const CLOCK_DEPENDENT = /^\/api\/projects\/[^/]+\/(plan|overview)(\?|\/|$)/;
 
 /** Compress bodies above this size, bytes. */
 const GZIP_FROM = 1024;

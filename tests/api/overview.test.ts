@@ -1,0 +1,132 @@
+// GET /api/projects/:projectId/overview: the Overview's answer against the routes it is composed
+// from (the plan, the ledger and its monthly expectation, the outbox), for each role. What each
+// role must get is the issue's list (issue 17, "Overview = today's picture, per role").
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import type { OverviewAnswer } from '../../shared/api-types-overview';
+import type { PlanAnswer } from '../../shared/api-types-plan';
+import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
+import { outbox } from '../../server/db/schema';
+import { createTestApp, signInAll, type TestApp } from '../support/app';
+
+let t: TestApp;
+let as: Awaited<ReturnType<typeof signInAll>>;
+let base: string;
+// A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC; the ledger needs finished days,
+// so the second half of the tests moves the clock on (the earlier issues cover those days).
+let now = new Date('2026-12-01T07:30:00Z');
+const HOUR = 3_600_000;
+
+beforeAll(async () => {
+  t = await createTestApp({ hindcastYears: 3, forecast: true, pastForecastDays: 3, clock: () => now });
+  as = await signInAll(t.app);
+  base = `/api/projects/${t.demo.projectId}`;
+}, 120_000);
+afterAll(async () => {
+  await t.close();
+});
+
+describe('the project Overview', () => {
+  it('gives one line per operation and worksite with the plan’s own go-start', async () => {
+    const [res, planRes] = await Promise.all([as.coordinator.get(`${base}/overview`), as.coordinator.get(`${base}/plan?alpha=true`)]);
+    expect(res.status, res.text).toBe(200);
+    const o = res.body as OverviewAnswer;
+    const plan = planRes.body as PlanAnswer;
+    expect(o.role).toBe('coordinator');
+    expect(o.forecast?.id).toBe(plan.dataset?.id);
+    expect(o.lines).toHaveLength(plan.plans.length);
+    for (const p of plan.plans) {
+      const l = o.lines.find((x) => x.operationId === p.operationId && x.siteId === p.siteId)!;
+      expect(l).toBeDefined();
+      expect(l.earliestStart).toBe(p.earliestStart);
+      expect(l.startNow).toBe(p.startNow);
+      expect(l.informationOnly).toBe(p.informationOnly);
+      // The window is the one that holds the go-start (windows end exclusive, docs/domain.md#convention-10).
+      const go = p.startNow ? now.getTime() : p.earliestStart ? Date.parse(p.earliestStart) : null;
+      const w = go === null ? undefined : p.windows.find((x) => Date.parse(x.start) <= go && go < Date.parse(x.end));
+      expect(l.windowHours).toBe(w ? w.hours : null);
+      // No ensemble forecast is stored: never a chance.
+      expect(l.chance).toBeNull();
+      // The strip: the hours from the one covering now, at most 48 h ahead, with the plan's statuses.
+      expect(l.next.times.length).toBeGreaterThan(0);
+      const first = Date.parse(l.next.times[0]);
+      expect(first).toBe(Math.floor(now.getTime() / HOUR) * HOUR);
+      for (const [i, time] of l.next.times.entries()) {
+        expect(Date.parse(time) - first).toBeLessThan(48 * HOUR);
+        expect(l.next.status[i]).toBe(p.status[p.times.indexOf(time)]);
+      }
+      // A limiting factor only when the operation cannot start now, and only a limit the plan named.
+      if (p.startNow) expect(l.limiting).toBeNull();
+      if (l.limiting) expect(p.limiting).toContain(l.limiting);
+    }
+    // The forecast at the data point now: a direction "coming from" in [0, 360).
+    expect(o.dataPointNow).not.toBeNull();
+    expect(Date.parse(o.dataPointNow!.time)).toBeLessThanOrEqual(now.getTime());
+    expect(o.dataPointNow!.dir).toBeGreaterThanOrEqual(0);
+    expect(o.dataPointNow!.dir).toBeLessThan(360);
+  });
+
+  it('gives each role its own parts', async () => {
+    const skipper = (await as.skipper.get(`${base}/overview`)).body as OverviewAnswer;
+    expect(skipper.coordinator).toBeNull();
+    expect(skipper.month).toBeNull();
+    const me = (await as.skipper.get('/api/me')).body as { id: string };
+    const plan = (await as.skipper.get(`${base}/plan?alpha=true`)).body as PlanAnswer;
+    for (const l of skipper.lines) expect(l.mine).toBe(plan.plans.find((p) => p.operationId === l.operationId && p.siteId === l.siteId)!.skipperIds.includes(me.id));
+    expect(skipper.lines.some((l) => l.mine)).toBe(true);
+
+    const client = (await as.client.get(`${base}/overview`)).body as OverviewAnswer;
+    expect(client.coordinator).toBeNull();
+    expect(client.month?.rows.length).toBe(plan.plans.length);
+
+    const coordinator = (await as.coordinator.get(`${base}/overview`)).body as OverviewAnswer;
+    expect(coordinator.coordinator).toMatchObject({ ledgerDaysWaiting: 0, oldestWaitingDay: null, failedEmails: 0 });
+  });
+
+  it('counts the ledger days waiting and the failed e-mails for the coordinator', async () => {
+    now = new Date('2026-12-03T10:00:00Z');
+    const proposed = await as.coordinator.post(`${base}/ledger/propose?from=2026-11-30&to=2026-12-02`);
+    expect(proposed.status, proposed.text).toBe(200);
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-11-30&to=2026-12-02`)).body as LedgerEntry[];
+    expect(rows.length).toBeGreaterThan(0);
+    // A failed alert e-mail, as the delivery leaves one after its last attempt.
+    await t.database.db.insert(outbox).values({
+      idempotencyKey: 'overview-test-failed',
+      projectId: t.demo.projectId,
+      toEmail: 'nobody@example.com',
+      subject: 'Test',
+      text: 'Test',
+      html: '<p>Test</p>',
+      status: 'failed',
+    });
+    const o = (await as.coordinator.get(`${base}/overview`)).body as OverviewAnswer;
+    expect(o.coordinator?.ledgerDaysWaiting).toBe(rows.filter((r) => r.status === 'proposed').length);
+    expect(o.coordinator?.oldestWaitingDay).toBe(rows.map((r) => r.day).sort()[0]);
+    expect(o.coordinator?.failedEmails).toBe(1);
+    await t.database.db.delete(outbox).where(eq(outbox.idempotencyKey, 'overview-test-failed'));
+  });
+
+  it('gives the client this month’s confirmed downtime with the ledger’s own expectation', async () => {
+    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-02`)).body as LedgerEntry[];
+    const day = rows.find((r) => r.status === 'proposed')!;
+    expect((await as.coordinator.post(`${base}/ledger/${day.id}/confirm`).send({})).status).toBe(200);
+    const o = (await as.client.get(`${base}/overview`)).body as OverviewAnswer;
+    const monthly = (await as.client.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
+    const want = monthly.rows.find((r) => r.operationId === day.operationId && r.siteId === day.siteId)!;
+    const got = o.month!.rows.find((r) => r.operationId === day.operationId && r.siteId === day.siteId)!;
+    expect(got.month).toBe('2026-12');
+    expect(got.confirmedDays).toBe(1);
+    expect(got.confirmedLostHours).toBe(want.confirmedLostHours);
+    expect(got.expectedP50Hours).toBe(want.expectedP50Hours);
+    expect(got.expectedP90Hours).toBe(want.expectedP90Hours);
+    expect(got.expectedP50Hours).not.toBeNull();
+    // 3 December: 1 and 2 December are over in the worksite's zone.
+    expect(got.daysOver).toBe(2);
+  });
+
+  it('refuses a bad query with the field named', async () => {
+    const res = await as.client.get(`${base}/overview?alpha=maybe`);
+    expect(res.status).toBe(400);
+    expect(JSON.stringify(res.body.error.details)).toContain('alpha');
+  });
+});
