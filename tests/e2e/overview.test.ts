@@ -108,6 +108,18 @@ describe('the project Overview', () => {
       expect(box?.height ?? 0).toBeGreaterThan(100);
       await page.waitForLoadState('networkidle');
       await screenshot(page, 'overview-map');
+
+      // Click to set a worksite's position: choose it, click the map, and the worksite moves there.
+      const target = placed[0];
+      await page.getByLabel('Click the map to set the position of').selectOption(target.id);
+      const canvas = map.locator('canvas.maplibregl-canvas');
+      const cb = (await canvas.boundingBox())!;
+      await canvas.click({ position: { x: Math.round(cb.width * 0.3), y: Math.round(cb.height * 0.6) } });
+      await page.getByText(new RegExp(`^${target.name} now at`)).waitFor();
+      const after = (await getJson<SiteResponse[]>(page, `/api/projects/${projectId}/sites`)).find((s) => s.id === target.id)!;
+      expect(after.latitude).not.toBe(target.latitude);
+      expect(after.longitude).not.toBe(target.longitude);
+      expect(await map.getByTestId('map-site-marker').count()).toBe(placed.length);
     } finally {
       context.off('request', onRequest);
     }
