@@ -116,7 +116,9 @@ async function coordinatorPicture(db: Db, projectId: string): Promise<NonNullabl
   const withWarnings = datasets
     .map((d) => {
       const warnings: string[] = [];
-      if (d.hsGapShare > GAP_WARNING_SHARE) warnings.push(`${Math.round(d.hsGapShare * 1000) / 10} % of the Hs steps missing`);
+      // A forecast changes its step (hourly, then 3-hourly): only its missing values count, not the longer steps.
+      const gap = d.kind === 'forecast' ? d.missingShare : d.hsGapShare;
+      if (gap > GAP_WARNING_SHARE) warnings.push(`${Math.round(gap * 1000) / 10} % of the Hs ${d.kind === 'forecast' ? 'values' : 'steps'} missing`);
       if (d.statisticsDefault && Date.parse(d.end) - Date.parse(d.start) < 365 * 86_400_000) warnings.push('the default for statistics spans less than a year');
       return { id: d.id, name: d.name, warnings };
     })

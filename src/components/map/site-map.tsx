@@ -137,6 +137,10 @@ function pointMarker(p: MapPoint, kind: 'data-point' | 'tide-station', waveDirec
   const box = document.createElement('div');
   box.style.cssText = `position:absolute;inset:0;transform:rotate(45deg);border:2px solid #fff;background:${kind === 'data-point' ? '#b4233c' : '#16415a'};box-shadow:0 0 0 1px #0e2a3b`;
   el.append(box);
+  const name = document.createElement('div');
+  name.textContent = p.name;
+  name.style.cssText = 'position:absolute;left:20px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff';
+  el.append(name);
   return el;
 }
 
