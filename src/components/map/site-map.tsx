@@ -148,6 +148,7 @@ export function SiteMap({ sites, dataPoint, waveDirection, tideStation = null, o
   const box = useRef<HTMLDivElement>(null);
   const map = useRef<MapView | null>(null);
   const pick = useRef(onPick);
+  const fitted = useRef(false);
   useEffect(() => {
     pick.current = onPick;
   }, [onPick]);
@@ -166,6 +167,7 @@ export function SiteMap({ sites, dataPoint, waveDirection, tideStation = null, o
       made.addControl(new NavigationControl({ showCompass: false }), 'top-right');
       made.on('click', (e) => pick.current?.(Math.round(e.lngLat.lat * 1e5) / 1e5, Math.round(e.lngLat.lng * 1e5) / 1e5));
       map.current = made;
+      fitted.current = false;
       container.dispatchEvent(new CustomEvent('lullwatch-map-ready'));
     })();
     return () => {
@@ -185,7 +187,9 @@ export function SiteMap({ sites, dataPoint, waveDirection, tideStation = null, o
       if (dataPoint) markers.push(new Marker({ element: pointMarker(dataPoint, 'data-point', waveDirection) }).setLngLat([dataPoint.longitude, dataPoint.latitude]).addTo(m));
       if (tideStation) markers.push(new Marker({ element: pointMarker(tideStation, 'tide-station', null) }).setLngLat([tideStation.longitude, tideStation.latitude]).addTo(m));
       const points = [...sites.map((s) => [s.longitude, s.latitude] as [number, number]), ...(dataPoint ? [[dataPoint.longitude, dataPoint.latitude] as [number, number]] : [])];
-      if (points.length > 0) {
+      // Fitted once per map: a click that moves a worksite does not move the view under the pointer.
+      if (points.length > 0 && !fitted.current) {
+        fitted.current = true;
         const bounds = points.reduce((b, p) => b.extend(p), new LngLatBounds(points[0], points[0]));
         m.fitBounds(bounds, { padding: 48, maxZoom: 11, duration: 0 });
       }
