@@ -64,7 +64,10 @@ describe('the project Overview', () => {
         // The issue's wording: "next go-start Thu 4 Dec 14:00 (in 20 h), window 35 h", the date in the worksite's zone.
         expect(words).toContain(`next go-start ${formatInstant(p.earliestStart, p.timeZone, 'dateTime')} (in `);
         const w = p.windows.find((x) => x.start <= p.earliestStart! && p.earliestStart! < x.end);
-        if (w) expect(words).toContain(`window ${Math.round(w.hours * 10) / 10} h`);
+        // Hours as the README states them: plain below 72 h ("35 h"), days and hours from there ("3 days 12 h").
+        const days = Math.floor((w?.hours ?? 0) / 24);
+        const rest = Math.round((w?.hours ?? 0) - days * 24);
+        if (w) expect(words).toContain(`window ${w.hours < 72 ? `${Math.round(w.hours * 10) / 10} h` : rest ? `${days} days ${rest} h` : `${days} days`}`);
         dated++;
       } else expect(words).toMatch(/^no window in this forecast \(to (Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2}\)/);
     }
