@@ -64,7 +64,7 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
             ? 'α on: an hour is workable when Hs meets the forecast limit OPWF = α × OPLIM (α from the project’s table by TPOP and Hs limit); other limits at OPLIM.'
             : 'α off: every limit at OPLIM.'}
         </li>
-        <li>Workability = workable hours / hours with data; months are calendar months of the worksite’s days.</li>
+        <li>Workability = workable hours / hours with data; months are calendar months at the worksite.</li>
         <li>A go-start needs TR = TPOP + TC wholly workable; waiting on weather runs to the next go-start; a usable window is a workable run of at least TR.</li>
         <li>Campaigns start on the 1st of each month at 00:00 in every hindcast year; P50/P90 by linear interpolation between order statistics (Hyndman &amp; Fan type 7); a year that runs past the end of the data is censored and left out.</li>
         <li>

@@ -100,7 +100,7 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
             Expected weather downtime by month
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months of the worksite’s days (basis at the top of the page).
+            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months as the worksite’s calendar has them (basis at the top of the page).
           </p>
         </div>
         <Button variant="secondary" className="no-print" onClick={downloadMonths} disabled={!entries || entries.length === 0}>
