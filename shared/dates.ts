@@ -84,3 +84,26 @@ export function zoneStatement(timeZone: string, whose = '', at: string | number 
   const named = short && short !== timeZone ? `${timeZone} (${short})` : timeZone;
   return `Times are in ${named}${whose ? `, ${whose}` : ''}.`;
 }
+
+/**
+ * The one statement of a page whose times belong to worksites: one zone for every worksite gives
+ * {@link zoneStatement}; several zones name the worksites in each, and the zone used for times that
+ * belong to no worksite (the first worksite's). No worksite: `fallbackZone` (the browser's).
+ */
+export function worksiteZoneStatement(
+  sites: readonly { name: string; timeZone: string }[],
+  fallbackZone: string,
+  at: string | number | Date = Date.now(),
+): { zone: string; statement: string } {
+  if (sites.length === 0) return { zone: fallbackZone, statement: zoneStatement(fallbackZone, 'your own clock (no worksite yet)', at) };
+  const byZone = new Map<string, string[]>();
+  for (const s of sites) byZone.set(s.timeZone, [...(byZone.get(s.timeZone) ?? []), s.name]);
+  const zone = sites[0].timeZone;
+  if (byZone.size === 1) return { zone, statement: zoneStatement(zone, sites.length === 1 ? 'the worksite’s local time' : 'the worksites’ local time', at) };
+  const named = (z: string) => {
+    const short = zoneShortName(at, z);
+    return short && short !== z ? `${z} (${short})` : z;
+  };
+  const parts = [...byZone].map(([z, names]) => `${names.join(', ')} in ${named(z)}`);
+  return { zone, statement: `Times are each worksite’s local time: ${parts.join('; ')}. Other times are in ${named(zone)}.` };
+}

@@ -646,6 +646,11 @@ describe('setup export and import', () => {
       operations: [],
     });
 
+    // Issue 22, item 2 first: a merge without the tick used to reset the project's table to the default.
+    const plain = await as.coordinator.post(`/api/projects/${A}/import`).send(doc());
+    expect(plain.status, plain.text).toBe(200);
+    expect((await as.coordinator.get(`/api/projects/${A}/alpha`)).body).toMatchObject({ isDefault: false, table: own });
+
     // The preview says what would happen, and writes nothing.
     const d1 = doc();
     const preview = await as.coordinator.post(`/api/projects/${A}/import/preview`).send(d1);
@@ -708,6 +713,14 @@ describe('setup export and import', () => {
       .returning();
     await db.insert(ledgerDay).values({ projectId: B, operationId: op.id, siteId: site.id, day: '2026-11-03', plannedHours: 24, proposedLostHours: 2, source: 'observation' });
 
+    // The bug first: replace used to go ahead and delete the confirmed day with the worksites.
+    const before = await rowCounts(B);
+    const refused = await as.coordinator.post(`/api/projects/${B}/import?mode=replace`).send(exported);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/confirmed day/);
+    expect(await rowCounts(B)).toEqual(before);
+    expect((await db.select().from(ledgerDay).where(eq(ledgerDay.id, confirmedRow.id))).length).toBe(1);
+
     const preview = await as.coordinator.post(`/api/projects/${B}/import/preview?mode=replace`).send(exported);
     expect(preview.status, preview.text).toBe(200);
     const sitesB = (await as.coordinator.get(`/api/projects/${B}/sites`)).body as SiteResponse[];
@@ -716,13 +729,6 @@ describe('setup export and import', () => {
     expect(preview.body.removes.operations.sort()).toEqual(opsB.map((o) => o.name).sort());
     expect(preview.body.removes).toMatchObject({ confirmedLedgerDays: 1, proposedLedgerDays: 1 });
     expect(preview.body.refusal).toMatch(/1 confirmed day \(2026-11-02 to 2026-11-02\)/);
-
-    const before = await rowCounts(B);
-    const refused = await as.coordinator.post(`/api/projects/${B}/import?mode=replace`).send(exported);
-    expect(refused.status).toBe(409);
-    expect(refused.body.error.message).toMatch(/confirmed day/);
-    expect(await rowCounts(B)).toEqual(before);
-    expect((await db.select().from(ledgerDay).where(eq(ledgerDay.id, confirmedRow.id))).length).toBe(1);
 
     // With the confirmed day gone (here: removed by hand), replace goes ahead and takes the
     // proposed day with it, as the preview said.

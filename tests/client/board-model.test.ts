@@ -123,12 +123,13 @@ describe('startWords', () => {
   it('gives the earliest start with its date, not the weekday alone (issue 17: "Tue 8 Dec 20:00")', () => {
     // 8 December 2026 is a Tuesday (calendar); London is on GMT (UTC+0) in December.
     const words = startWords(plan({ earliestStart: '2026-12-08T20:00:00Z' }), Date.parse('2026-12-03T14:00:00Z'));
-    expect(words.text).toBe('Earliest start: Tue 8 Dec 20:00 (local)');
+    // The page states the zone once (issue 22), so the words carry no zone of their own.
+    expect(words.text).toBe('Earliest start: Tue 8 Dec 20:00');
   });
 
   it('adds the year when the start is in another year than now', () => {
     // 5 January 2027 is a Tuesday (calendar).
     const words = startWords(plan({ earliestStart: '2027-01-05T07:00:00Z' }), Date.parse('2026-12-30T14:00:00Z'));
-    expect(words.text).toBe('Earliest start: Tue 5 Jan 2027 07:00 (local)');
+    expect(words.text).toBe('Earliest start: Tue 5 Jan 2027 07:00');
   });
 });

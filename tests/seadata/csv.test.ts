@@ -503,8 +503,20 @@ describe('chunked text gives the same result as one chunk', () => {
     expect(issues).toEqual([{ line: 3, column: 'Hs [m]', value: '-1,10', reason: 'negative significant wave height' }]);
   });
 
+  // Issue 22, item 3 (a quote left open swallowed the rest of the file): the bad row is line 2 alone,
+  // and the next line is still read, whole or in pieces of any size.
   it('an unterminated quote is reported, not read as one huge row silently', () => {
-    const issues = issuesOf('time,hs\n2020-01-01 00:00,"1.5\n2020-01-01 01:00,1.6\n');
-    expect(issues.some((i) => i.line === 2)).toBe(true);
+    const text = 'time,hs\n2020-01-01 00:00,"1.5\n2020-01-01 01:00,1.6\n2020-01-01 02:00,1.7\n';
+    const issues = issuesOf(text);
+    expect(issues.map((i) => i.line)).toEqual([2]);
+    for (const size of [text.length, 5, 1]) {
+      const p = new CsvTextParser({ onBadRows: 'skip' });
+      for (let i = 0; i < text.length; i += size) p.push(text.slice(i, i + size));
+      const { records, report } = p.end();
+      // 3 data lines (lines 2-4): line 2 bad, lines 3 and 4 kept.
+      expect(report.rowsRead, `pieces of ${size}`).toBe(3);
+      expect(report.rowsSkipped, `pieces of ${size}`).toBe(1);
+      expect(iso(records.timeMs), `pieces of ${size}`).toEqual(['2020-01-01T01:00:00.000Z', '2020-01-01T02:00:00.000Z']);
+    }
   });
 });

@@ -4,6 +4,7 @@ import { useSignOut } from '../../features/auth/api/sign-in';
 import { Caution } from '../../components/caution';
 import { Logo } from '../../components/logo';
 import { ThemeToggle } from '../../components/theme-toggle';
+import { PageZoneProvider, PageZoneStatement } from '../../components/page-zone';
 import { APP_SECTIONS } from '../sections';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
@@ -19,7 +20,11 @@ export function AppLayout() {
   if (user?.mustChangePassword && location.pathname !== '/account') return <Navigate to="/account" replace />;
   const sections = APP_SECTIONS.filter((s) => !s.adminOnly || user?.globalRole === 'admin');
 
+  // A project's pages show their zone statement under the project's name (ProjectLayout).
+  const inProject = /^\/projects\/[^/]+/.test(location.pathname);
+
   return (
+    <PageZoneProvider>
     <div className="flex min-h-screen flex-col">
       <header className="no-print bg-deep text-white">
         <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-2 px-3 py-2 sm:px-5">
@@ -50,11 +55,13 @@ export function AppLayout() {
         </div>
       </header>
       <main className="mx-auto w-full max-w-7xl flex-1 px-3 py-5 sm:px-5">
+        {inProject ? null : <PageZoneStatement className="mb-3" />}
         <Outlet />
       </main>
       <footer className="border-t border-line px-4 py-4">
         <Caution />
       </footer>
     </div>
+    </PageZoneProvider>
   );
 }

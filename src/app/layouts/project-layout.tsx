@@ -3,6 +3,7 @@ import { NavLink, Outlet, useLocation, useParams } from 'react-router-dom';
 import { useProject } from '../../api/projects';
 import { ErrorNotice, Spinner } from '../../components/ui';
 import { PROJECT_SECTIONS } from '../sections';
+import { PageZoneStatement } from '../../components/page-zone';
 import { RoleBadge } from '../../features/projects/components/role-badge';
 
 const tabClass = ({ isActive }: { isActive: boolean }) =>
@@ -46,6 +47,7 @@ export function ProjectLayout() {
       <div className="mb-4 flex flex-wrap items-center gap-3">
         <h1 className="text-xl font-bold tracking-tight sm:text-2xl">{p.name}</h1>
         <RoleBadge role={p.role} />
+        <PageZoneStatement className="w-full" />
       </div>
       <div className="no-print relative mb-5 border-b border-line">
         <nav ref={tabsRef} onScroll={measureTabs} className="flex gap-1 overflow-x-auto [scrollbar-width:thin]" aria-label="Project">

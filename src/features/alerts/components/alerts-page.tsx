@@ -6,6 +6,8 @@ import { ErrorNotice, PageHeader, Spinner } from '../../../components/ui';
 import { useProjectAccess } from '../../../api/projects';
 import { useOperations } from '../../../api/operations';
 import { useSites } from '../../../api/sites';
+import { usePageZone } from '../../../components/page-zone';
+import { localTimeZone, worksiteZoneStatement } from '../../../../shared/dates';
 import { CalendarSection } from './calendar-section';
 import { OutboxSection } from './outbox-section';
 import { RecentAlertsSection } from './recent-alerts-section';
@@ -18,12 +20,17 @@ export function AlertsPage() {
   const access = useProjectAccess(projectId);
   const operations = useOperations(projectId);
   const sites = useSites(projectId);
+  // The page's one zone statement: window times in their worksite's zone, other times (found, written,
+  // sent) in the first worksite's.
+  const pageZone = sites.data ? worksiteZoneStatement(sites.data, localTimeZone()) : null;
+  usePageZone(pageZone?.statement ?? null);
 
   if (access.isPending || operations.isPending || sites.isPending) return <Spinner label="Opening alerts" />;
   const error = access.error ?? operations.error ?? sites.error;
   if (error) return <ErrorNotice error={error} />;
   const ops = operations.data ?? [];
   const sitesList = sites.data ?? [];
+  const zone = pageZone?.zone ?? localTimeZone();
 
   return (
     // Native controls (tick boxes, date and time pickers) follow the dark theme too.
@@ -36,13 +43,13 @@ export function AlertsPage() {
         <SubscriptionSection projectId={projectId} role={access.role} operations={ops} sites={sitesList} />
         <div className="flex flex-col gap-5">
           <CalendarSection />
-          {access.canEdit ? <ReplanSection projectId={projectId} operations={ops} sites={sitesList} /> : null}
+          {access.canEdit ? <ReplanSection projectId={projectId} operations={ops} sites={sitesList} zone={zone} /> : null}
         </div>
       </div>
-      <RecentAlertsSection projectId={projectId} operations={ops} sites={sitesList} />
+      <RecentAlertsSection projectId={projectId} operations={ops} sites={sitesList} zone={zone} />
       {access.canEdit ? (
         <>
-          <OutboxSection projectId={projectId} />
+          <OutboxSection projectId={projectId} zone={zone} />
           <RecurrenceSection projectId={projectId} operations={ops} sites={sitesList} />
         </>
       ) : null}

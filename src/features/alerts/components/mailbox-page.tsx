@@ -5,12 +5,15 @@ import { Button, ErrorNotice, Notice, PageHeader, Spinner } from '../../../compo
 import { useMailbox } from '../api/get-mailbox';
 import { DATE_STYLE } from '../../../../shared/dates';
 import { browserTimeZone, timeIn } from './format';
+import { usePageZone } from '../../../components/page-zone';
+import { zoneStatement } from '../../../../shared/dates';
 import { MessageView } from './message-view';
 
 export function MailboxPage() {
   const mailbox = useMailbox();
   const [openId, setOpenId] = useState<number | string | null>(null);
   const here = browserTimeZone();
+  usePageZone(zoneStatement(here, 'your own clock'));
   const messages = mailbox.data ?? [];
   const open = messages.find((m) => m.id === openId) ?? null;
 
@@ -18,7 +21,7 @@ export function MailboxPage() {
     <div className="flex flex-col gap-5 dark:scheme-dark">
       <PageHeader
         title="Mailbox"
-        subtitle={`E-mails received by the local mailbox, a built-in stand-in for an SMTP server in development and tests. Times are yours (${here}).`}
+        subtitle={`E-mails received by the local mailbox, a built-in stand-in for an SMTP server in development and tests.`}
         actions={
           mailbox.data !== null ? (
             <Button variant="secondary" onClick={() => void mailbox.refetch()} disabled={mailbox.isFetching}>

@@ -6,7 +6,7 @@ import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/
 import { useOutbox } from '../api/get-outbox';
 import type { OutboxRow, OutboxStatus } from '../api/types';
 import { DATE_STYLE } from '../../../../shared/dates';
-import { browserTimeZone, timeIn } from './format';
+import { timeIn } from './format';
 import { MessageView } from './message-view';
 
 const STATUS: Record<OutboxStatus, { label: string; className: string }> = {
@@ -15,10 +15,9 @@ const STATUS: Record<OutboxStatus, { label: string; className: string }> = {
   failed: { label: 'Failed', className: 'bg-danger text-white' },
 };
 
-export function OutboxSection({ projectId }: { projectId: string }) {
+export function OutboxSection({ projectId, zone: here }: { projectId: string; zone: string }) {
   const outbox = useOutbox(projectId);
   const [openId, setOpenId] = useState<string | null>(null);
-  const here = browserTimeZone();
   const rows = outbox.data ?? [];
   const open = rows.find((r) => r.id === openId) ?? null;
   const count = (s: OutboxStatus) => rows.filter((r) => r.status === s).length;
@@ -30,7 +29,7 @@ export function OutboxSection({ projectId }: { projectId: string }) {
         <div>
           <h2 id="outbox-title" className="text-lg font-bold">Outbox</h2>
           <p className="mt-1 text-sm text-ink-soft">
-            Every alert e-mail is written here first, then sent; a failed send is retried with growing pauses. Times are yours ({here}).
+            Every alert e-mail is written here first, then sent; a failed send is retried with growing pauses.
           </p>
         </div>
         <Button variant="secondary" onClick={() => void outbox.refetch()} disabled={outbox.isFetching}>

@@ -6,7 +6,7 @@ import { Button, Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { useAlerts } from '../api/get-alerts';
 import { alertText, TONE_CLASS } from './alert-words';
 import { DATE_STYLE } from '../../../../shared/dates';
-import { browserTimeZone, timeIn } from './format';
+import { timeIn } from './format';
 
 /** Alerts listed before "show all" (the list holds the latest 50). */
 const FIRST_SHOWN = 8;
@@ -15,11 +15,12 @@ interface Props {
   projectId: string;
   operations: OperationResponse[];
   sites: SiteResponse[];
+  /** The page's zone for times that belong to no worksite. */
+  zone: string;
 }
 
-export function RecentAlertsSection({ projectId, operations, sites }: Props) {
+export function RecentAlertsSection({ projectId, operations, sites, zone: here }: Props) {
   const alerts = useAlerts(projectId, 50);
-  const here = browserTimeZone();
   const [all, setAll] = useState(false);
   const list = alerts.data ?? [];
   const shown = all ? list : list.slice(0, FIRST_SHOWN);
@@ -27,8 +28,7 @@ export function RecentAlertsSection({ projectId, operations, sites }: Props) {
     <Card aria-labelledby="recent-title">
       <h2 id="recent-title" className="text-lg font-bold">Recent alerts</h2>
       <p className="mt-1 text-sm text-ink-soft">
-        What the last planning runs changed, for everyone in the project. Window times are in each worksite&apos;s time zone; “found” is your
-        own ({here}).
+        What the last planning runs changed, for everyone in the project.
       </p>
       <div className="mt-4">
         {alerts.isPending ? <Spinner label="Reading the alerts" /> : null}
@@ -59,7 +59,6 @@ export function RecentAlertsSection({ projectId, operations, sites }: Props) {
                     <p className="text-sm">{t.body}</p>
                     <p className="text-xs text-ink-soft">
                       Found {timeIn(a.createdAt, here, DATE_STYLE.dateTimeYear)}
-                      {site ? ` · worksite times in ${zone}` : ' · times in UTC'}
                     </p>
                   </div>
                 </li>

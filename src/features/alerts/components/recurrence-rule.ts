@@ -142,8 +142,11 @@ const dayList = (days: readonly Weekday[]) => {
   return names.length <= 1 ? names.join('') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 };
 
-/** The rule in words, e.g. 'Every week on Monday, Wednesday and Friday at 06:00 (Europe/Oslo), 10 times'. */
-export function ruleInWords(v: RecurrenceForm): string {
+/**
+ * The rule in words, e.g. 'Every week on Monday, Wednesday and Friday at 06:00 (Europe/Oslo), 10 times'.
+ * `pageZone`: the zone the page already states once; the rule names its zone only when it differs.
+ */
+export function ruleInWords(v: RecurrenceForm, pageZone?: string): string {
   const unit = v.freq === 'DAILY' ? 'day' : 'week';
   const every = v.interval > 1 ? `Every ${v.interval} ${unit}s` : `Every ${unit}`;
   const on = v.freq === 'WEEKLY' && v.byDay.length > 0 ? ` on ${dayList(v.byDay)}` : '';
@@ -153,7 +156,8 @@ export function ruleInWords(v: RecurrenceForm): string {
       : v.endKind === 'until' && v.untilDate
         ? `, until ${v.untilDate}`
         : '';
-  return `${every}${on} at ${v.startTime} (${v.timeZone}), from ${v.startDate}${end}`;
+  const zone = v.timeZone === pageZone ? '' : ` (${v.timeZone})`;
+  return `${every}${on} at ${v.startTime}${zone}, from ${v.startDate}${end}`;
 }
 
 /** The weekday of a calendar date 'YYYY-MM-DD' as an RFC 5545 code (no time zone involved). */

@@ -29,8 +29,8 @@ export function RecurrenceSection({ projectId, operations, sites }: Props) {
       <h2 id="rec-title" className="text-lg font-bold">Recurring operations</h2>
       <p className="mt-1 text-sm text-ink-soft">
         An operation that repeats, such as a crew change on set days, gets go, marginal or no-go for each occurrence from the hours [start,
-        start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning no-go is an alert. Times are the
-        worksite&apos;s local wall-clock time, so 06:00 stays 06:00 across a daylight-saving change.
+        start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning no-go is an alert. A rule keeps its wall-clock
+        time, so 06:00 stays 06:00 across a daylight-saving change.
       </p>
       {operations.length === 0 ? <p className="mt-3 text-sm text-ink-soft">This project has no operations yet.</p> : null}
       <ul className="mt-4 flex flex-col gap-3">
@@ -47,6 +47,8 @@ function OperationRecurrence({ projectId, op, sites }: { projectId: string; op: 
   const stored = storedRecurrence(op);
   const form = stored ? parseRule(stored) : null;
   const opSites = op.siteIds.length > 0 ? sites.filter((s) => op.siteIds.includes(s.id)) : sites;
+  // The page states the worksites' zone once; a rule in its worksite's zone does not repeat it.
+  const siteZone = opSites[0]?.timeZone ?? sites[0]?.timeZone ?? 'UTC';
   return (
     <li className="rounded-lg border border-line p-3" data-testid={`recurrence-${op.id}`}>
       <div className="flex flex-wrap items-start justify-between gap-2">
@@ -55,7 +57,7 @@ function OperationRecurrence({ projectId, op, sites }: { projectId: string; op: 
             {op.name} <span className="text-sm font-normal text-ink-soft">TR {op.tr} h · {opSites.map((s) => s.name).join(', ') || 'no worksite'}</span>
           </p>
           <p className="text-sm">
-            {stored ? (form ? ruleInWords(form) : 'Recurs by a rule this form does not build (see its text when editing).') : <span className="text-ink-soft">Does not recur.</span>}
+            {stored ? (form ? ruleInWords(form, siteZone) : 'Recurs by a rule this form does not build (see its text when editing).') : <span className="text-ink-soft">Does not recur.</span>}
           </p>
         </div>
         <Button variant={editing ? 'ghost' : 'secondary'} onClick={() => setEditing((e) => !e)} aria-expanded={editing}>
@@ -67,7 +69,7 @@ function OperationRecurrence({ projectId, op, sites }: { projectId: string; op: 
           projectId={projectId}
           operation={op}
           stored={stored}
-          defaultTimeZone={opSites[0]?.timeZone ?? sites[0]?.timeZone ?? 'UTC'}
+          defaultTimeZone={siteZone}
           zones={[...new Set(sites.map((s) => s.timeZone))]}
           onDone={() => setEditing(false)}
         />

@@ -7,19 +7,20 @@ import { useReplan } from '../api/replan';
 import type { ProjectJobResult } from '../api/types';
 import { KIND_WORDS } from './alert-words';
 import { DATE_STYLE } from '../../../../shared/dates';
-import { browserTimeZone, timeIn } from './format';
+import { timeIn } from './format';
 
 interface Props {
   projectId: string;
   operations: OperationResponse[];
   sites: SiteResponse[];
+  /** The page's zone for times that belong to no worksite. */
+  zone: string;
 }
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
-export function ReplanSection({ projectId, operations, sites }: Props) {
+export function ReplanSection({ projectId, operations, sites, zone: here }: Props) {
   const replan = useReplan(projectId);
-  const here = browserTimeZone();
   const result = replan.data;
   const mine = result?.projects.find((p) => p.projectId === projectId) ?? result?.projects[0];
   return (

@@ -124,7 +124,6 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
               {sites.map((s) => (
                 <CheckRow key={s.id} checked={field.value.includes(s.id)} onChange={(on) => field.onChange(toggleId(field.value, s.id, on))}>
                   {s.name}
-                  <span className="ml-1 text-xs text-ink-soft">{s.timeZone}</span>
                 </CheckRow>
               ))}
             </div>

@@ -4,7 +4,7 @@
 import { memo, useCallback, useMemo, useRef, useState, type CSSProperties, type KeyboardEvent } from 'react';
 import { Link } from 'react-router-dom';
 import type { OperationSitePlan } from '../../../../shared/api-types-plan';
-import { OCCURRENCE_META, STATUS_META, formatIn, formatStart, limitWord, zoneShort } from './board-format';
+import { OCCURRENCE_META, STATUS_META, formatIn, formatStart, limitWord } from './board-format';
 import { dayRuns, firstAtOrAfter, occurrenceMarks, recordEndMs, startWords, windowBoxes, type VisibleRange } from './board-model';
 import { Term } from '../../../components/ui';
 
@@ -142,8 +142,7 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
   return (
     <section aria-label={`Operations at worksites in ${zone}`} className="overflow-hidden rounded-[var(--radius-card)] border border-line bg-surface">
       <p className="border-b border-line px-3 py-2 text-xs text-ink-soft sm:px-4">
-        Times in the worksites’ zone <strong className="text-ink">{zone}</strong> ({zoneShort(firstMs, zone)}
-        {zoneShort(firstMs, zone) !== zoneShort(timesMs[range.to - 1], zone) ? ` changing to ${zoneShort(timesMs[range.to - 1], zone)}` : ''}). Scroll sideways for later hours.
+        Scroll sideways for later hours.
       </p>
       <div className="overflow-x-auto overscroll-x-contain" data-testid="board-scroll">
         <div className="w-max min-w-full">
@@ -313,7 +312,7 @@ const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, 
         ))}
         {marks.map((m) => {
           const meta = OCCURRENCE_META[m.status];
-          const said = `Occurrence ${formatStart(m.start, plan.timeZone, nowMs)} (local): ${meta.word}, judged on ${plan.tr} h from its start`;
+          const said = `Occurrence ${formatStart(m.start, plan.timeZone, nowMs)}: ${meta.word}, judged on ${plan.tr} h from its start`;
           return (
             <span
               key={m.start}

@@ -169,11 +169,11 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     const w = windowAt(plan.windows, nowMs) ?? plan.windows[0];
     // What is left of the window matters on deck, not its whole length (which began earlier).
     const leftH = w ? Math.floor((Date.parse(w.end) - nowMs) / 3_600_000) : 0;
-    const until = w ? `, window until ${formatStart(w.end, zone, nowMs)} (local), ${formatHours(leftH)} left` : '';
+    const until = w ? `, window until ${formatStart(w.end, zone, nowMs)}, ${formatHours(leftH)} left` : '';
     return {
       tone: 'now',
       text: `May start now${until}`,
-      detail: `May start now${w ? `: the window runs until ${formatIn(w.end, zone)} ${zone}, ${formatHours(w.hours)} long in all` : ''}.`,
+      detail: `May start now${w ? `: the window runs until ${formatIn(w.end, zone)}, ${formatHours(w.hours)} long in all` : ''}.`,
     };
   }
   if (plan.earliestStart) {
@@ -181,8 +181,8 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     const w = windowAt(plan.windows, ms);
     return {
       tone: 'later',
-      text: `Earliest start: ${formatStart(ms, zone, nowMs)} (local)${w ? `, window ${formatHours(w.hours)}` : ''}`,
-      detail: `Earliest go-start ${formatIn(ms, zone)} ${zone}${w ? `, in a window of ${formatHours(w.hours)}` : ''}.`,
+      text: `Earliest start: ${formatStart(ms, zone, nowMs)}${w ? `, window ${formatHours(w.hours)}` : ''}`,
+      detail: `Earliest go-start ${formatIn(ms, zone)}${w ? `, in a window of ${formatHours(w.hours)}` : ''}.`,
     };
   }
   return {

@@ -6,11 +6,13 @@ import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import type { PlanAnswer } from '../../../../shared/api-types-plan';
 import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
+import { usePageZone } from '../../../components/page-zone';
+import { localTimeZone, worksiteZoneStatement } from '../../../../shared/dates';
 import { useFetchForecast } from '../../../api/forecasts';
 import { usePlan } from '../api/get-plan';
 import { useViewer } from '../api/get-viewer';
 import { BoardControls, HOUR_WIDTH_PX, type BoardFilters, type HourWidth } from './board-controls';
-import { formatIn, relativeTime, zoneShort } from './board-format';
+import { formatIn, relativeTime } from './board-format';
 import { BoardGrid, type SelectedHour } from './board-grid';
 import { BoardLegend } from './board-legend';
 import { startWords, visibleRange } from './board-model';
@@ -160,7 +162,9 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
   );
   const range = useMemo(() => visibleRange(timesMs, stepMs, nowMs, filters.days), [timesMs, stepMs, nowMs, filters.days]);
   const zone = plans[0]?.timeZone ?? allPlans[0]?.timeZone ?? 'UTC';
-  const zones = new Set(allPlans.map((p) => p.timeZone));
+  // The page's one zone statement (shown by the layout): every worksite on the board, by zone.
+  const zoneSites = useMemo(() => uniqueBy(allPlans.map((p) => ({ id: p.siteId, name: p.siteName, timeZone: p.timeZone }))), [allPlans]);
+  usePageZone(dataset ? worksiteZoneStatement(zoneSites, localTimeZone(), timesMs[0] ?? nowMs).statement : null);
 
   const selectedPlan = selected ? plans.find((p) => p.operationId === selected.operationId && p.siteId === selected.siteId) : undefined;
 
@@ -192,10 +196,9 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
           <p className="text-sm text-ink-soft">
             Issued{' '}
             <strong className="text-ink">
-              {formatIn(issuedMs, zone)} {zoneShort(issuedMs, zone)}
+              {formatIn(issuedMs, zone)}
             </strong>{' '}
-            ({relativeTime(issuedMs, nowMs)}) · last hour {formatIn(lastMs, zone)} {zoneShort(lastMs, zone)}
-            {zones.size > 1 ? ` · times in ${zone}; each row group below names its own zone` : ''}
+            ({relativeTime(issuedMs, nowMs)}) · last hour {formatIn(lastMs, zone)}
           </p>
           {updating ? <span className="text-xs text-ink-soft" role="status">Updating…</span> : null}
         </div>

@@ -7,7 +7,7 @@ import type { LimitCheck, OperationSitePlan } from '../../../../shared/api-types
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
 import { ErrorNotice, Spinner, Term } from '../../../components/ui';
 import { useHourChain, type HourChain } from '../api/get-hour-chain';
-import { STATUS_META, flagWords, fmt, fmtDir, formatIn, limitWord, zoneShort } from './board-format';
+import { STATUS_META, flagWords, fmt, fmtDir, formatIn, limitWord } from './board-format';
 
 interface ChainPanelProps {
   projectId: string;
@@ -53,7 +53,7 @@ export function ChainPanel({ projectId, plan, index, timeMs, alpha, datasetId, c
       <header className="flex items-start gap-2 border-b border-line px-4 py-3">
         <div className="min-w-0 flex-1">
           <h2 id="hour-chain-title" ref={headingRef} tabIndex={-1} className="text-lg leading-tight font-bold outline-none">
-            {formatIn(timeMs, zone, 'EEE d MMM HH:mm')} <span className="text-sm font-semibold text-ink-soft">{zoneShort(timeMs, zone)}</span>
+            {formatIn(timeMs, zone, 'EEE d MMM HH:mm')}
           </h2>
           <p className="text-sm text-ink-soft">
             {plan.operationName} at {plan.siteName}
@@ -64,7 +64,6 @@ export function ChainPanel({ projectId, plan, index, timeMs, alpha, datasetId, c
             </span>
             <strong data-testid="chain-status">{meta.word[0].toUpperCase() + meta.word.slice(1)}</strong>
             {status !== 'workable' && status !== 'no_data' && plan.limiting[index] ? <span>limited by {limitWord(plan.limiting[index])}</span> : null}
-            <span className="text-xs text-ink-soft">{formatIn(timeMs, 'UTC', 'HH:mm')} UTC</span>
           </p>
         </div>
         <button

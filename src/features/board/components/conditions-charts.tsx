@@ -10,7 +10,7 @@ import type { CartesianMarkerProps } from '@nivo/core';
 import { addDays, startOfDay } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
-import { fmt, formatIn, zoneShort } from './board-format';
+import { fmt, formatIn } from './board-format';
 import { useIsDark } from '../../../lib/use-is-dark';
 import { operationColour } from './operation-colours';
 import { useWidth } from '../../../lib/use-width';
@@ -61,7 +61,7 @@ function SliceTip({ slice }: SliceTooltipProps<Series>) {
   return (
     <div className="rounded-lg border border-line bg-surface px-3 py-2 text-xs text-ink shadow-lg">
       <strong>
-        {formatIn(x, zone)} {zoneShort(x, zone)}
+        {formatIn(x, zone)}
       </strong>
       {slice.points.map((p) => (
         <span key={p.id} className="mt-0.5 flex items-center gap-2">

@@ -11,7 +11,9 @@ import { useConditions } from '../api/get-conditions';
 import { useOperations } from '../../../api/operations';
 import { usePlan } from '../api/get-plan';
 import { useSites } from '../../../api/sites';
-import { fmt, formatIn, relativeTime, zoneShort } from './board-format';
+import { fmt, formatIn, relativeTime } from './board-format';
+import { usePageZone } from '../../../components/page-zone';
+import { zoneStatement } from '../../../../shared/dates';
 import type { ChartOperation } from './conditions-charts';
 import { useIsDark } from '../../../lib/use-is-dark';
 import { operationColour } from './operation-colours';
@@ -67,6 +69,7 @@ export function ConditionsPage() {
   }, [c]);
 
   const zone = c?.timeZone ?? site?.timeZone ?? 'UTC';
+  usePageZone(c || site ? zoneStatement(zone, 'the worksite’s local time') : null);
   const dataset = plan.data?.dataset ?? null;
   const dark = useIsDark();
 
@@ -78,7 +81,7 @@ export function ConditionsPage() {
           site ? (
             <>
               Water depth {fmt(site.depth, 1, 'm')} · shore normal {site.shoreNormal === null ? 'not set (no refraction)' : `${site.shoreNormal}° from`} · breaker index γb{' '}
-              {site.breakerIndex} · times in {zone}
+              {site.breakerIndex}
             </>
           ) : (
             'The worksite’s sea over the latest forecast, with the limits of the operations planned there.'
@@ -107,13 +110,13 @@ export function ConditionsPage() {
                 {dataset.issuedAt ? (
                   <span className="text-ink-soft">
                     {' '}
-                    · issued {formatIn(dataset.issuedAt, zone)} {zoneShort(dataset.issuedAt, zone)} ({relativeTime(Date.parse(dataset.issuedAt), nowMs)})
+                    · issued {formatIn(dataset.issuedAt, zone)} ({relativeTime(Date.parse(dataset.issuedAt), nowMs)})
                   </span>
                 ) : null}
               </p>
             ) : null}
             <p className="text-sm text-ink-soft">
-              From {formatIn(c.times[0], zone)} to {formatIn(c.times[c.times.length - 1], zone)} {zoneShort(c.times[c.times.length - 1], zone)}, hourly. Numbered lines are the limits
+              From {formatIn(c.times[0], zone)} to {formatIn(c.times[c.times.length - 1], zone)}, hourly. Numbered lines are the limits
               of the operations below: solid at the operation limit OPLIM, dashed at the forecast limit OPWF = α × OPLIM (Hs only).
             </p>
             {chartOps.length === 0 ? (
@@ -143,7 +146,7 @@ export function ConditionsPage() {
               <ConditionsCharts conditions={c} operations={chartOps} nowMs={nowMs} />
             </Suspense>
             <p className="mt-3 text-right text-xs text-ink-soft">
-              Times in {zone}; a gridline at each midnight there.
+              A gridline at each midnight at the worksite.
             </p>
           </Card>
           <Card className="text-sm">

@@ -267,7 +267,7 @@ export function CsvPreviewTable({ preview }: { preview: CsvPreview }) {
           <thead className="border-y border-line bg-surface-2">
             <tr>
               <th className="px-3 py-2 text-right text-xs font-semibold text-ink-soft">Line</th>
-              <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Time (UTC)</th>
+              <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Time</th>
               {columns.map((c) => (
                 <th key={c.key} className="px-3 py-2 text-right text-xs font-semibold whitespace-nowrap text-ink-soft">
                   {c.label}

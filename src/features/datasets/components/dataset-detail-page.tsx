@@ -1,4 +1,6 @@
 import { useState, type ReactNode } from 'react';
+import { usePageZone } from '../../../components/page-zone';
+import { DATA_ZONE_STATEMENT } from './data-zone';
 import { sub } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import { Link, useLocation, useNavigate, useParams } from 'react-router-dom';
@@ -19,6 +21,8 @@ const linkButton =
 /** `/projects/:projectId/sea-data/:datasetId`: one dataset's facts, chart, monthly summary and import report. */
 export function DatasetDetailPage() {
   const { projectId = '', datasetId = '' } = useParams();
+  // The page's one zone statement: sea data are stored and shown in UTC.
+  usePageZone(DATA_ZONE_STATEMENT);
   const location = useLocation();
   const imported = (location.state as { imported?: { records: number; skipped: number; warning?: string | null } } | null)?.imported;
   const project = useProjectAccess(projectId);
@@ -47,7 +51,7 @@ export function DatasetDetailPage() {
             <span className="flex flex-wrap items-center gap-2">
               <KindBadge kind={d.kind} />
               <span>
-                {formatUtc(d.start)} – {formatUtc(d.end)} UTC
+                {formatUtc(d.start)} – {formatUtc(d.end)}
               </span>
             </span>
           }
@@ -74,7 +78,7 @@ export function DatasetDetailPage() {
       <Card>
         <h2 className="mb-1 text-lg font-bold">Monthly summary</h2>
         <p className="mb-3 text-sm text-ink-soft">
-          Per calendar month (UTC): records, share of the month’s time steps with an Hs value, mean and 90th percentile Hs. Choose a month to see it in the chart.
+          Per calendar month: records, share of the month’s time steps with an Hs value, mean and 90th percentile Hs. Choose a month to see it in the chart.
         </p>
         <MonthlyTable
           projectId={projectId}

@@ -1,4 +1,6 @@
 import { useMemo, useRef, useState, type FormEvent } from 'react';
+import { usePageZone } from '../../../components/page-zone';
+import { DATA_ZONE_STATEMENT } from './data-zone';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import {
   DATASET_KINDS,
@@ -51,6 +53,8 @@ const NEED_HEIGHT = 'This buoy file has wind: enter the anemometer height (10 if
 
 export function DatasetImportPage() {
   const { projectId = '' } = useParams();
+  // The page's one zone statement: sea data are stored and shown in UTC.
+  usePageZone(DATA_ZONE_STATEMENT);
   const project = useProjectAccess(projectId);
   if (project.isPending) return <Spinner />;
   if (project.error || !project.data) return <ErrorNotice error={project.error} />;

@@ -1,4 +1,6 @@
 import { Link, useLocation, useParams } from 'react-router-dom';
+import { usePageZone } from '../../../components/page-zone';
+import { DATA_ZONE_STATEMENT } from './data-zone';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { useDatasets } from '../../../api/datasets';
@@ -23,6 +25,8 @@ function splitDatasets(all: DatasetSummary[]) {
 /** `/projects/:projectId/sea-data`: the project's hindcasts, observations and forecast issues. */
 export function DatasetsPage() {
   const { projectId = '' } = useParams();
+  // The page's one zone statement: sea data are stored and shown in UTC.
+  usePageZone(DATA_ZONE_STATEMENT);
   const location = useLocation();
   const deletedName = (location.state as { deleted?: string } | null)?.deleted;
   const project = useProjectAccess(projectId);
@@ -54,8 +58,8 @@ export function DatasetsPage() {
         title="Sea data"
         subtitle={
           project.data
-            ? `Sea states at the data point ${project.data.dataPointName || '(unnamed)'}, ${formatDepth(project.data.dataPointDepthM)}. All times are UTC.`
-            : 'Sea states at the project’s data point. All times are UTC.'
+            ? `Sea states at the data point ${project.data.dataPointName || '(unnamed)'}, ${formatDepth(project.data.dataPointDepthM)}.`
+            : 'Sea states at the project’s data point.'
         }
         actions={actions}
       />
@@ -65,8 +69,8 @@ export function DatasetsPage() {
         {fetchForecast.data ? (
           <Notice tone="success">
             {fetchForecast.data.isNew
-              ? `New forecast issued ${formatUtc(fetchForecast.data.issuedAt)} UTC stored: ${formatCount(fetchForecast.data.records)} records.`
-              : `The service has nothing newer: the forecast issued ${formatUtc(fetchForecast.data.issuedAt)} UTC is already stored.`}{' '}
+              ? `New forecast issued ${formatUtc(fetchForecast.data.issuedAt)} stored: ${formatCount(fetchForecast.data.records)} records.`
+              : `The service has nothing newer: the forecast issued ${formatUtc(fetchForecast.data.issuedAt)} is already stored.`}{' '}
             <Link className="font-semibold underline" to={`/projects/${projectId}/sea-data/${fetchForecast.data.datasetId}`}>
               Open it
             </Link>
@@ -185,7 +189,7 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
           <thead className="border-b border-line bg-surface-2">
             <tr>
               <th className={th}>Name</th>
-              <th className={th}>Coverage (UTC)</th>
+              <th className={th}>Coverage</th>
               <th className={`${th} text-right`}>Step</th>
               <th className={`${th} text-right`}>Records</th>
               <th className={`${th} text-right`} title="Share of the expected records without Hs: missing values and absent rows">
@@ -240,7 +244,7 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
               <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
                 <dt className="text-ink-soft">Coverage</dt>
                 <dd>
-                  {formatUtcDay(d.start)} – {formatUtcDay(d.end)} UTC
+                  {formatUtcDay(d.start)} – {formatUtcDay(d.end)}
                 </dd>
                 <dt className="text-ink-soft">Records</dt>
                 <dd>

@@ -70,7 +70,7 @@ export const KIND_LABELS: Record<DatasetSummary['kind'], string> = {
 /** Where a dataset came from, in words. */
 export function describeSource(d: DatasetSummary): string {
   if (d.source.kind === 'service') {
-    return d.source.issuedAt ? `Forecast service, issued ${formatUtc(d.source.issuedAt)} UTC` : 'Forecast service';
+    return d.source.issuedAt ? `Forecast service, issued ${formatUtc(d.source.issuedAt)}` : 'Forecast service';
   }
   const fmt = d.source.format === 'ndbc' ? 'NDBC text' : d.source.format === 'csv' ? 'CSV' : null;
   return `${d.source.fileName ?? 'Uploaded file'}${fmt ? ` (${fmt})` : ''}`;

@@ -66,7 +66,7 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
             <Item label="Source">
               Forecast service{r.source ? ` (${r.source})` : ''}
             </Item>
-            <Item label="Issued">{d.source.issuedAt ? `${formatUtc(d.source.issuedAt)} UTC` : 'unknown'}</Item>
+            <Item label="Issued">{d.source.issuedAt ? formatUtc(d.source.issuedAt) : 'unknown'}</Item>
           </>
         ) : (
           <>
@@ -84,7 +84,10 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
                 </span>
               </Item>
             ) : null}
-            {r.timeZone && r.format !== 'ndbc' ? <Item label="Times without offset read in">{r.timeZone}</Item> : null}
+            {r.timeZone && r.format !== 'ndbc' ? <Item label="Times without offset read in">
+                {/* An import setting (the file's zone), not a statement of the page's times. */}
+                <span data-setting>{r.timeZone}</span>
+              </Item> : null}
             {r.newestFirst ? <Item label="Order">Newest first in the file; stored oldest first</Item> : null}
             <Item label="Wind height">
               {d.wind.anemometerHeightM === null
@@ -104,7 +107,7 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
           </>
         )}
         <Item label="Stored as">
-          {formatCount(d.records)} records, {formatUtc(d.createdAt)} UTC
+          {formatCount(d.records)} records, {formatUtc(d.createdAt)}
         </Item>
       </dl>
 

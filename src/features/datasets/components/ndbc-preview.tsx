@@ -48,7 +48,7 @@ export function NdbcPreviewTable({ preview, rows = 12 }: { preview: NdbcPreview;
         <caption className="px-3 py-2 text-left text-sm text-ink-soft">The first {n} records as they will be stored (oldest first).</caption>
         <thead className="border-y border-line bg-surface-2">
           <tr>
-            <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Time (UTC)</th>
+            <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Time</th>
             {COLS.map((c) => (
               <th key={c.key} className="px-3 py-2 text-right text-xs font-semibold whitespace-nowrap text-ink-soft">
                 {c.label}

@@ -123,7 +123,7 @@ export function RangeChart({
         </div>
         <div className="grid gap-3 sm:grid-cols-[auto_auto_1fr] sm:items-end">
           <label className="flex flex-col gap-1 text-sm font-semibold">
-            From (UTC)
+            From
             <input
               type="date"
               className="min-h-11 rounded-lg border border-line bg-surface px-3 text-base font-normal text-ink"
@@ -134,7 +134,7 @@ export function RangeChart({
             />
           </label>
           <label className="flex flex-col gap-1 text-sm font-semibold">
-            To (UTC)
+            To
             <input
               type="date"
               className="min-h-11 rounded-lg border border-line bg-surface px-3 text-base font-normal text-ink"
@@ -163,7 +163,7 @@ export function RangeChart({
           </label>
         </div>
         <p className="text-sm text-ink-soft" aria-live="polite">
-          Showing {formatUtc(current.fromMs)} – {formatUtc(current.toMs)} UTC
+          Showing {formatUtc(current.fromMs)} – {formatUtc(current.toMs)}
           {records.isFetching ? ' (loading…)' : ''}
         </p>
       </div>

@@ -59,7 +59,7 @@ function PanelTooltip({ point }: PointTooltipProps<Series>) {
     <div className="w-max max-w-60 rounded-lg border border-line bg-surface px-3 py-2 text-xs text-ink shadow-lg">
       <strong>{y === null ? 'no data' : `${y.toFixed(decimals)} ${unit}`}</strong>
       <span className="block text-ink-soft">
-        {bucketMs > 0 ? `highest of ${formatStep(bucketMs / 60_000)} from ${formatUtc(at.getTime() - bucketMs / 2)} UTC` : `${formatUtc(at)} UTC`}
+        {bucketMs > 0 ? `highest of ${formatStep(bucketMs / 60_000)} from ${formatUtc(at.getTime() - bucketMs / 2)}` : formatUtc(at)}
       </span>
     </div>
   );
@@ -176,7 +176,6 @@ export default function SeriesChart({ columns, fromMs, toMs, stepMinutes }: Seri
           </figure>
         );
       })}
-      <p className="text-right text-xs text-ink-soft">Times in UTC.</p>
     </div>
   );
 }

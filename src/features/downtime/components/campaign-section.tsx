@@ -123,7 +123,7 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
             ))}
           </ol>
           <p className="text-xs text-ink-soft">
-            Start dates: the 1st at 00:00 {selected.timeZone}
+            Start dates: the 1st at 00:00
             {selected.plannedStart ? `, from the planned start ${dateIn(selected.plannedStart, selected.timeZone)}` : ', the next ones from today'}.
           </p>
           {!datasetId ? <Notice>Simulations need a hindcast: a coordinator imports one under Sea data.</Notice> : null}

@@ -11,6 +11,9 @@ import { useOperations } from '../../../api/operations';
 import { useSites } from '../../../api/sites';
 import { useWorkability } from '../api/get-workability';
 import { useLedger } from '../api/get-ledger';
+import { useCampaigns } from '../api/get-campaigns';
+import { usePageZone } from '../../../components/page-zone';
+import { localTimeZone, worksiteZoneStatement } from '../../../../shared/dates';
 import { CampaignSection } from './campaign-section';
 import { dateIn, monthRange, thisMonth } from './format';
 import { LedgerSection } from './ledger-section';
@@ -67,6 +70,16 @@ export function DowntimePage() {
   const workability = useWorkability(projectId, datasetId ? { datasetId, alpha } : null);
   // The same query as the ledger section (one cache entry): its sources go into the printed report.
   const ledger = useLedger(projectId, monthRange(month));
+  // The page's one zone statement: the worksites' zones, and the campaign's own zone where it differs
+  // (its runs start on the 1st at 00:00 there, so its dates are shown there).
+  const campaigns = useCampaigns(projectId);
+  const campaign = (campaigns.data ?? []).find((c) => c.id === campaignId) ?? campaigns.data?.[0];
+  const pageZone = worksiteZoneStatement(sites.data ?? [], localTimeZone());
+  usePageZone(
+    sites.data
+      ? `${pageZone.statement}${campaign && campaign.timeZone !== pageZone.zone ? ` Campaign dates are in ${campaign.timeZone}, the campaign’s own zone.` : ''}`
+      : null,
+  );
 
   const set = (key: string, value: string | null) =>
     setParams(
@@ -93,6 +106,7 @@ export function DowntimePage() {
         alpha={alpha}
         operations={operations.data ?? []}
         sites={sites.data ?? []}
+        zone={pageZone.zone}
       />
       <div className="no-print">
         <PageHeader
@@ -111,7 +125,7 @@ export function DowntimePage() {
           <FieldShell
             label="Hindcast"
             htmlFor="downtime-dataset"
-            hint={hindcast ? `${dateIn(hindcast.start, 'UTC')} to ${dateIn(hindcast.end, 'UTC')}, ${hindcast.records.toLocaleString('en-GB')} records, every ${hindcast.stepMinutes} min` : undefined}
+            hint={hindcast ? `${dateIn(hindcast.start, pageZone.zone)} to ${dateIn(hindcast.end, pageZone.zone)}, ${hindcast.records.toLocaleString('en-GB')} records, every ${hindcast.stepMinutes} min` : undefined}
           >
             <Select id="downtime-dataset" value={datasetId} onChange={(e) => set('dataset', e.target.value)} disabled={list.length === 0}>
               {list.length === 0 ? <option value="">No hindcast yet</option> : null}

@@ -156,7 +156,7 @@ export function LedgerSection({
             Downtime ledger
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            What happened, day by day in each worksite’s time zone: all hours of a day are planned; hours not workable at OPLIM, or without data, count as lost.
+            What happened, day by day at each worksite: all hours of a day are planned; hours not workable at OPLIM, or without data, count as lost.
             {isClient
               ? ' Confirmed days only.'
               : ' Only days that are over are proposed: from the newest observation covering the day, else from the forecast issues that covered it (marked “From forecast”). The coordinator confirms or corrects each finished day.'}

@@ -3,6 +3,7 @@
 // hindcast-only parts side by side, each step's progress (coordinators mark it), and the drift of
 // the P50/P90 finish over the planning runs as a chart with the planned finish. Prints with the page.
 import { useState } from 'react';
+import { TZDate } from '@date-fns/tz';
 import type { CampaignOutlookAnswer, CampaignResponse, OutlookHistoryPoint } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
@@ -42,14 +43,14 @@ export function OutlookSection({ projectId, canEdit, alpha, operations, sites, s
         </h2>
         <p className="mt-1 max-w-3xl text-sm text-ink-soft">
           {selected.name}, as of now: the steps not yet done, in order, first on the latest forecast’s go-starts{alpha ? ' (with α)' : ' (at OPLIM)'}, then each hindcast year
-          from the same calendar time. Each forecast × hindcast year pair is one sample. Dates in {zone}.
+          from the same calendar time. Each forecast × hindcast year pair is one sample.
         </p>
       </div>
       {outlook.error ? <ErrorNotice error={outlook.error} /> : null}
       {outlook.isPending ? <Spinner label="Working out the outlook" /> : null}
       {o ? <OutlookFigures o={o} zone={zone} stale={outlook.isFetching} /> : null}
       <StepsTable campaign={selected} outlook={o} zone={zone} operations={operations} sites={sites} />
-      {canEdit ? <ProgressEditor projectId={projectId} campaign={selected} operations={operations} /> : null}
+      {canEdit ? <ProgressEditor projectId={projectId} campaign={selected} operations={operations} zone={zone} /> : null}
       <div className="flex flex-col gap-2">
         <h3 className="text-base font-bold">How the finish date moved</h3>
         {history.error ? <ErrorNotice error={history.error} /> : null}
@@ -186,10 +187,16 @@ function StepsTable({
   );
 }
 
-/** A `datetime-local` value (the browser's zone) as ISO UTC; '' stays empty. */
-const localToIso = (v: string) => (v ? new Date(v).toISOString() : '');
+/**
+ * A `datetime-local` value read in `zone` (the zone the page states and shows the steps' times in,
+ * not the browser's) as ISO UTC; '' stays empty.
+ */
+const localToIso = (v: string, zone: string) => {
+  const m = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})/.exec(v);
+  return m ? new Date(new TZDate(+m[1], +m[2] - 1, +m[3], +m[4], +m[5], zone).getTime()).toISOString() : '';
+};
 
-function ProgressEditor({ projectId, campaign, operations }: { projectId: string; campaign: CampaignResponse; operations: OperationResponse[] }) {
+function ProgressEditor({ projectId, campaign, operations, zone }: { projectId: string; campaign: CampaignResponse; operations: OperationResponse[]; zone: string }) {
   const save = useSetStepProgress(projectId);
   const firstOpen = campaign.progress.findIndex((p) => p.status !== 'done');
   const [index, setIndex] = useState(firstOpen < 0 ? campaign.steps.length - 1 : firstOpen);
@@ -197,7 +204,7 @@ function ProgressEditor({ projectId, campaign, operations }: { projectId: string
   const [when, setWhen] = useState('');
   const opName = new Map(operations.map((o) => [o.id, o.name]));
   const submit = () => {
-    const iso = localToIso(when);
+    const iso = localToIso(when, zone);
     const input = status === 'planned' ? { status } : status === 'started' ? { status, ...(iso ? { startedAt: iso } : {}) } : { status, ...(iso ? { doneAt: iso } : {}) };
     save.mutate({ campaignId: campaign.id, index, input }, { onSuccess: () => setWhen('') });
   };
@@ -231,7 +238,7 @@ function ProgressEditor({ projectId, campaign, operations }: { projectId: string
         <FieldShell
           label={status === 'done' ? 'Actual end' : status === 'started' ? 'Actual start' : 'Time'}
           htmlFor="progress-time"
-          hint={status === 'done' ? 'Your local time. Empty: from the confirmed ledger days.' : status === 'started' ? 'Your local time. Empty: now.' : undefined}
+          hint={status === 'done' ? 'Empty: from the confirmed ledger days.' : status === 'started' ? 'Empty: now.' : undefined}
         >
           <Input id="progress-time" type="datetime-local" value={when} onChange={(e) => setWhen(e.target.value)} disabled={status === 'planned'} />
         </FieldShell>

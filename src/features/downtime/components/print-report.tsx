@@ -4,7 +4,7 @@ import { useState } from 'react';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAUTION_LINE, TRANSFORMATION_CAUTION } from '../../../../shared/caution';
-import { formatInstant, localTimeZone } from '../../../../shared/dates';
+import { formatInstant } from '../../../../shared/dates';
 import { dateIn } from './format';
 import { limitsInWords } from './limits-words';
 
@@ -15,22 +15,24 @@ interface Props {
   alpha: boolean;
   operations: OperationResponse[];
   sites: SiteResponse[];
+  /** The page's zone (its statement, printed under the project's name, says which). */
+  zone: string;
 }
 
-export function PrintReport({ projectName, hindcast, ledgerSources, alpha, operations, sites }: Props) {
+export function PrintReport({ projectName, hindcast, ledgerSources, alpha, operations, sites, zone }: Props) {
   const siteName = new Map(sites.map((s) => [s.id, s.name]));
   const [printedAt] = useState(() => Date.now());
   return (
     <section className="hidden text-sm text-black print:block" data-testid="print-report" aria-label="Report header">
       <h1 className="text-2xl font-bold">Downtime schedule: {projectName}</h1>
-      <p className="mt-1">Printed {formatInstant(printedAt, localTimeZone(), 'dateTimeYear')} (local time).</p>
+      <p className="mt-1">Printed {formatInstant(printedAt, zone, 'dateTimeYear')}.</p>
 
       <h2 className="mt-4 text-base font-bold">Data sources</h2>
       <ul className="ml-5 list-disc">
         <li>
           Hindcast:{' '}
           {hindcast
-            ? `${hindcast.name}, ${dateIn(hindcast.start, 'UTC')} to ${dateIn(hindcast.end, 'UTC')} (UTC), ${hindcast.records.toLocaleString('en-GB')} records every ${hindcast.stepMinutes} min, at ${hindcast.dataPoint.name || 'the data point'} (${hindcast.dataPoint.depthM === null ? 'deep water' : `${hindcast.dataPoint.depthM} m deep`}).`
+            ? `${hindcast.name}, ${dateIn(hindcast.start, zone)} to ${dateIn(hindcast.end, zone)}, ${hindcast.records.toLocaleString('en-GB')} records every ${hindcast.stepMinutes} min, at ${hindcast.dataPoint.name || 'the data point'} (${hindcast.dataPoint.depthM === null ? 'deep water' : `${hindcast.dataPoint.depthM} m deep`}).`
             : 'none.'}
         </li>
         <li>Downtime ledger: {ledgerSources.length > 0 ? ledgerSources.join('; ') : 'no proposed or confirmed day in the month shown.'}</li>
@@ -50,7 +52,7 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
         {sites.map((s) => (
           <li key={s.id}>
             {s.name}: {s.depth} m deep, {s.shoreNormal === null ? 'no refraction' : `shore normal ${s.shoreNormal}°`}, breaker index {s.breakerIndex}
-            {s.transferTable ? ', site transfer table' : ''}, time zone {s.timeZone}.
+            {s.transferTable ? ', site transfer table' : ''}.
           </li>
         ))}
       </ul>
@@ -62,7 +64,7 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
             ? 'α on: an hour is workable when Hs meets the forecast limit OPWF = α × OPLIM (α from the project’s table by TPOP and Hs limit); other limits at OPLIM.'
             : 'α off: every limit at OPLIM.'}
         </li>
-        <li>Workability = workable hours / hours with data; months are calendar months in each worksite’s time zone.</li>
+        <li>Workability = workable hours / hours with data; months are calendar months at the worksite.</li>
         <li>A go-start needs TR = TPOP + TC wholly workable; waiting on weather runs to the next go-start; a usable window is a workable run of at least TR.</li>
         <li>Campaigns start on the 1st of each month at 00:00 in every hindcast year; P50/P90 by linear interpolation between order statistics (Hyndman &amp; Fan type 7); a year that runs past the end of the data is censored and left out.</li>
         <li>

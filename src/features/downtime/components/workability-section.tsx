@@ -100,7 +100,7 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
             Expected weather downtime by month
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months in each worksite’s time zone (basis at the top of the page).
+            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months as the worksite’s calendar has them (basis at the top of the page).
           </p>
         </div>
         <Button variant="secondary" className="no-print" onClick={downloadMonths} disabled={!entries || entries.length === 0}>
@@ -216,7 +216,7 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
               <th scope="rowgroup" colSpan={9} className="px-2 py-2 text-left text-sm font-semibold">
                 {e.operationName} <span className="font-normal text-ink-soft">at {e.siteName}</span>
                 <span className="ml-2 text-xs font-normal text-ink-soft">
-                  <Term k="tpop" /> {e.tpopHours} h, <Term k="tr" /> {e.tpopHours + e.tcHours} h, {e.timeZone}
+                  <Term k="tpop" /> {e.tpopHours} h, <Term k="tr" /> {e.tpopHours + e.tcHours} h
                 </span>
               </th>
             </tr>

@@ -141,14 +141,6 @@ function alphaCellChanges(before: unknown, after: unknown): string[] | null {
   return out;
 }
 
-function localZone(): string {
-  try {
-    return Intl.DateTimeFormat().resolvedOptions().timeZone;
-  } catch {
-    return 'local';
-  }
-}
-
 /** The audit trail, newest first, with a filter by kind; read-only for everyone. */
 export function AuditPanel({ projectId }: { projectId: string }) {
   const [entity, setEntity] = useState<AuditEntity | ''>('');
@@ -163,7 +155,7 @@ export function AuditPanel({ projectId }: { projectId: string }) {
       <div className="flex flex-wrap items-end justify-between gap-3">
         <p className="max-w-2xl text-sm text-ink-soft">
           Every change to a worksite, an operation’s limits or the alpha table, with who made it and the values before and after. Nobody
-          can change or delete an entry. Times are in your local time ({localZone()}).
+          can change or delete an entry.
         </p>
         <div className="w-full sm:w-64">
           <FieldShell label="Show" htmlFor="audit-entity">

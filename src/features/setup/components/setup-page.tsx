@@ -2,6 +2,8 @@ import { useEffect, useRef, type KeyboardEvent } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { useProjectAccess } from '../../../api/projects';
+import { usePageZone } from '../../../components/page-zone';
+import { localTimeZone, zoneStatement } from '../../../../shared/dates';
 import { AlphaPanel } from './alpha-panel';
 import { AuditPanel } from './audit-panel';
 import { ExchangePanel } from './exchange-panel';
@@ -27,6 +29,8 @@ const isTab = (v: string | null): v is SetupTab => SETUP_TABS.some((t) => t.id =
  */
 export function SetupPage() {
   const { projectId = '' } = useParams();
+  // The times here (audit entries, saved and exported at) are on the reader's own clock.
+  usePageZone(zoneStatement(localTimeZone(), 'your own clock'));
   const [params, setParams] = useSearchParams();
   const access = useProjectAccess(projectId);
   const tabRefs = useRef<(HTMLButtonElement | null)[]>([]);
