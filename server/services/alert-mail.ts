@@ -1,8 +1,8 @@
 import crypto from 'node:crypto';
 import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
-import { CAUTION_LINE } from '../../shared/caution';
 import { limitWords } from '../../shared/limit-words';
+import { renderMail } from '../mail/message';
 
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
@@ -88,13 +88,6 @@ export function verifyUnsubscribe(secret: string, userId: string, projectId: str
 }
 
 /**
- * Text for HTML element content and quoted attribute values: & < > " ' as character references
- * (OWASP Cross Site Scripting Prevention Cheat Sheet, output encoding for HTML contexts; from
- * memory). Every name and note a user typed goes through it before it enters an e-mail or page.
- */
-export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-
-/**
  * The next start still possible in the new plan, with its date, for the subject line: "may start
  * now", "next start Thu 3 Dec 15:00", or "no start possible in this forecast".
  */
@@ -109,36 +102,24 @@ export function nextStartWords(plan: PlanSummary): string {
  * project, the operation and worksite, the next start still possible (with its date) and what
  * changed.
  */
-export function alertEmail(args: {
+export async function alertEmail(args: {
   plan: PlanSummary;
   changes: ChangeWithReason[];
   projectName: string;
   boardUrl: string;
   unsubscribeUrl: string;
-}): { subject: string; text: string; html: string } {
+}): Promise<{ subject: string; text: string; html: string }> {
   const { plan, changes } = args;
-  const lines = changes.map((c) => describeChange(c, plan));
   const more = changes.length > 1 ? ` (+${changes.length - 1} more)` : '';
   const headline = `${shortChange(changes[0], plan.timeZone)}${more}`;
   const subject = `${args.projectName}: ${plan.operationName} at ${plan.siteName}, ${nextStartWords(plan)} (${headline})`;
-  const text = [
-    `${plan.operationName} at ${plan.siteName} (${args.projectName})`,
-    `Times are ${plan.timeZone}.`,
-    '',
-    ...lines.map((l) => `- ${l}`),
-    '',
-    `Board: ${args.boardUrl}`,
-    '',
-    CAUTION_LINE,
-    `Stop these e-mails: ${args.unsubscribeUrl}`,
-  ].join('\n');
-  const html = `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;color:#10222c;max-width:560px">
-<p style="font-size:16px;font-weight:700;margin:0 0 4px">${escapeHtml(plan.operationName)} at ${escapeHtml(plan.siteName)}</p>
-<p style="font-size:13px;color:#4a5d66;margin:0 0 12px">${escapeHtml(args.projectName)} · times are ${escapeHtml(plan.timeZone)}</p>
-<ul style="font-size:15px;padding-left:18px">${lines.map((l) => `<li style="margin-bottom:6px">${escapeHtml(l)}</li>`).join('')}</ul>
-<p><a href="${escapeHtml(args.boardUrl)}" style="display:inline-block;background:#0b7a72;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Open the watch board</a></p>
-<p style="font-size:12px;color:#4a5d66">${escapeHtml(CAUTION_LINE)}</p>
-<p style="font-size:12px"><a href="${escapeHtml(args.unsubscribeUrl)}">Stop these e-mails</a></p>
-</body></html>`;
-  return { subject, text, html };
+  const parts = await renderMail({
+    heading: `${plan.operationName} at ${plan.siteName}`,
+    subheading: `${args.projectName} · times are ${plan.timeZone}`,
+    textHead: [`${plan.operationName} at ${plan.siteName} (${args.projectName})`, `Times are ${plan.timeZone}.`],
+    points: changes.map((c) => describeChange(c, plan)),
+    action: { label: 'Open the watch board', textLabel: 'Board', url: args.boardUrl },
+    unsubscribeUrl: args.unsubscribeUrl,
+  });
+  return { subject, ...parts };
 }
