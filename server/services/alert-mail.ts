@@ -2,6 +2,7 @@ import crypto from 'node:crypto';
 import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
 import { limitWords } from '../../shared/limit-words';
+import { START_WORDS, statusLabel, STATUS_WORDS } from '../../shared/status-words';
 import { renderMail } from '../mail/message';
 
 
@@ -14,6 +15,8 @@ export interface ChangeWithReason extends PlanChange {
   /** The limit that decides in the new plan (window lost, occurrence no-go). */
   reason?: string | null;
 }
+
+const sentence = (s: string) => s[0].toUpperCase() + s.slice(1);
 
 /** "from Thu 3 Dec 15:00 to Thu 3 Dec 20:00" (or "at …" when only one start is left). */
 function startsWords(c: ChangeWithReason, timeZone: string): string {
@@ -29,15 +32,15 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
   const why = c.reason ? `, limited by ${limitWords(c.reason)}` : '';
   switch (c.kind) {
     case 'window_opened':
-      return `New window: ${span}. TR is ${p.tr} h: starts possible ${startsWords(c, z)}.`;
+      return `${sentence(START_WORDS.newWindow)}: ${span}. TR is ${p.tr} h: starts possible ${startsWords(c, z)}.`;
     case 'window_lost':
-      return `Window lost: ${span} is no longer workable for ${p.tr} h${why}.`;
+      return `${sentence(START_WORDS.windowLost)}: ${span} is no longer ${STATUS_WORDS.workable.word} for ${p.tr} h${why}.`;
     case 'earliest_moved':
-      return `Earliest start moved from ${localTime(c.previous!, z)} to ${localTime(c.start!, z)}.`;
+      return `${sentence(START_WORDS.earliestMoved)} from ${localTime(c.previous!, z)} to ${localTime(c.start!, z)}.`;
     case 'start_now_changed':
-      return c.startNow ? 'May start now: the next TR hours are workable.' : `May no longer start now${why}.`;
+      return c.startNow ? `${sentence(START_WORDS.startNow)}: the next TR hours are ${STATUS_WORDS.workable.word}.` : `${sentence(START_WORDS.noLongerStartNow)}${why}.`;
     case 'occurrence_no_go':
-      return `No-go for the ${localTime(c.start!, z)} occurrence (TR ${p.tr} h)${why}.`;
+      return `${statusLabel('not_workable')}: the ${localTime(c.start!, z)} occurrence over its TR of ${p.tr} h${why}.`;
   }
 }
 
@@ -45,15 +48,15 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
 export function shortChange(c: ChangeWithReason, timeZone: string): string {
   switch (c.kind) {
     case 'window_opened':
-      return `new window, starts from ${localTime(c.usableFrom ?? c.start!, timeZone)}`;
+      return `${START_WORDS.newWindow}, starts from ${localTime(c.usableFrom ?? c.start!, timeZone)}`;
     case 'window_lost':
-      return `window lost (${localTime(c.start!, timeZone)})`;
+      return `${START_WORDS.windowLost} (${localTime(c.start!, timeZone)})`;
     case 'earliest_moved':
       return `earliest start now ${localTime(c.start!, timeZone)}`;
     case 'start_now_changed':
-      return c.startNow ? 'may start now' : 'may no longer start now';
+      return c.startNow ? START_WORDS.startNow : START_WORDS.noLongerStartNow;
     case 'occurrence_no_go':
-      return `no-go at ${localTime(c.start!, timeZone)}`;
+      return `${STATUS_WORDS.not_workable.word} at ${localTime(c.start!, timeZone)}`;
   }
 }
 
@@ -92,9 +95,9 @@ export function verifyUnsubscribe(secret: string, userId: string, projectId: str
  * now", "next start Thu 3 Dec 15:00", or "no start possible in this forecast".
  */
 export function nextStartWords(plan: PlanSummary): string {
-  if (plan.startNow) return 'may start now';
-  if (plan.earliestStart) return `next start ${localTime(plan.earliestStart, plan.timeZone)}`;
-  return 'no start possible in this forecast';
+  if (plan.startNow) return START_WORDS.startNow;
+  if (plan.earliestStart) return `${START_WORDS.nextStart} ${localTime(plan.earliestStart, plan.timeZone)}`;
+  return START_WORDS.noStart;
 }
 
 /**

@@ -4,17 +4,23 @@ import { TZDate } from '@date-fns/tz';
 import type { PlanSummary } from '../../shared/alerts/compare-plans';
 import type { AppDeps } from '../deps';
 import { planRun, project } from '../db/schema';
+import { occurrenceLabel, START_WORDS } from '../../shared/status-words';
 import { renderMail } from '../mail/message';
 import { localTime, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { enqueueMail } from './outbox';
 import { covers, effectiveSubscriptions, markDigestSent } from './subscriptions';
 
 
-/** One operation at one worksite in the digest: may it start now, or its next window. */
-function digestLine(pl: PlanSummary): string {
+/**
+ * One operation at one worksite in the digest: may it start now, or its next window; for a
+ * recurring operation, its next occurrence with its status (the words of shared/status-words.ts).
+ */
+export function digestLine(pl: PlanSummary, nowMs: number): string {
   const next = pl.windows[0];
-  const state = pl.startNow ? 'may start now' : next ? `next window ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})` : 'no window in this forecast';
-  return `${pl.operationName} at ${pl.siteName}: ${state}`;
+  const state = pl.startNow ? START_WORDS.startNow : next ? `${START_WORDS.nextWindow} ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})` : START_WORDS.noWindow;
+  const occurrence = pl.occurrences.find((o) => Date.parse(o.start) >= nowMs);
+  const occurrenceWords = occurrence ? `; ${START_WORDS.nextOccurrence} ${localTime(occurrence.start, pl.timeZone)}: ${occurrenceLabel(occurrence.status)}` : '';
+  return `${pl.operationName} at ${pl.siteName}: ${state}${occurrenceWords}`;
 }
 
 /**
@@ -46,7 +52,7 @@ export async function queueDigests(deps: AppDeps): Promise<number> {
       const mail = await renderMail({
         heading: `${p.name}, daily summary`,
         textHead: [`${p.name}, daily summary`],
-        points: mine.map(digestLine),
+        points: mine.map((pl) => digestLine(pl, now.getTime())),
         action: { label: 'Open the watch board', textLabel: 'Board', url: board },
         // The signed link goes in when the e-mail is sent (server/services/outbox.ts).
         unsubscribeUrl: UNSUBSCRIBE_LINK_MARK,
