@@ -42,7 +42,7 @@ import { UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { recordAudit } from './audit';
 import { assertSteps, campaignRow, toCampaignResponse } from './campaigns';
 import { latestDataset } from './datasets';
-import { zonedDayMs } from './ledger';
+import { zonedDayMs } from '../../shared/ledger/days';
 import { enqueueMail, type OutboxMessage } from './outbox';
 import { ByteBoundedMemo } from './byte-cache';
 import { runEngineTask } from './engine-pool';

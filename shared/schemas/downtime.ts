@@ -16,7 +16,7 @@ export const LEDGER_MAX_DAYS = 93;
 
 /**
  * Most hours one ledger day may hold: the planned hours of a day are its real length in the
- * worksite's time zone, 23 to 25 h on daylight-saving change days (see server/services/ledger.ts).
+ * worksite's time zone, 23 to 25 h on daylight-saving change days (see shared/ledger/days.ts).
  */
 export const LEDGER_MAX_DAY_HOURS = 25;
 
