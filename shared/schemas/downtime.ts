@@ -5,8 +5,8 @@
  * same values with the same messages.
  */
 import { z } from 'zod';
-import { canonicalTimeZone } from './sites';
-import { longText, nameText } from './common';
+import { canonicalTimeZone } from './site-fields';
+import { longText, nameText, patchSchema } from './common';
 
 /** Most steps a campaign may have. */
 export const CAMPAIGN_MAX_STEPS = 50;
@@ -84,10 +84,7 @@ export type CampaignInput = z.infer<typeof CampaignInput>;
 export type CampaignFormValues = z.input<typeof CampaignInput>;
 
 /** PATCH /api/projects/:projectId/campaigns/:campaignId: any subset; `steps` replaced whole. */
-export const CampaignPatchInput = z
-  .object(campaignFields)
-  .partial()
-  .refine((v) => Object.values(v).some((x) => x !== undefined), 'Nothing to change');
+export const CampaignPatchInput = patchSchema(campaignFields);
 export type CampaignPatchInput = z.infer<typeof CampaignPatchInput>;
 
 const isoTime = z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time, e.g. 2027-04-03T14:00:00Z' });

@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../engine/alpha-factor';
 import { LIMIT_RANGES, operationLimitsSchema } from '../engine/schemas';
-import { storableText } from './common';
+import { patchSchema, storableText } from './common';
 import { finite, itemDescription, itemName } from './site-fields';
 
 const hours = (what: string, r: { min: number; max: number }) =>
@@ -73,8 +73,5 @@ export type OperationInput = z.infer<typeof OperationInput>;
 export type OperationFormValues = z.input<typeof OperationInput>;
 
 /** PATCH body: any subset of the fields; `limits` and the id lists are replaced as a whole. */
-export const OperationPatchInput = z
-  .object(operationFields)
-  .partial()
-  .refine((v) => Object.values(v).some((x) => x !== undefined), 'Nothing to change');
+export const OperationPatchInput = patchSchema(operationFields);
 export type OperationPatchInput = z.infer<typeof OperationPatchInput>;

@@ -3,6 +3,7 @@
  * table (docs/domain.md#transformation).
  */
 import { z } from 'zod';
+import { patchSchema } from './common';
 import { canonicalTimeZone, finite, itemName } from './site-fields';
 import { TransferTableInput } from './transfer-table';
 
@@ -62,8 +63,5 @@ export type WorksiteInput = z.infer<typeof WorksiteInput>;
 export type WorksiteFormValues = z.input<typeof WorksiteInput>;
 
 /** PATCH body: any subset of the fields; null clears a nullable field. */
-export const WorksitePatchInput = z
-  .object(worksiteFields)
-  .partial()
-  .refine((v) => Object.values(v).some((x) => x !== undefined), 'Nothing to change');
+export const WorksitePatchInput = patchSchema(worksiteFields);
 export type WorksitePatchInput = z.infer<typeof WorksitePatchInput>;
