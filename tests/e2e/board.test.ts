@@ -49,7 +49,7 @@ describe('the watch board', () => {
     await openBoard(page, projectId);
 
     // A skipper starts on their own operations, and never sees the forecast fetch.
-    await expect(page.getByTestId('mine-switch').getAttribute('aria-checked')).resolves.toBe('true');
+    await expect(page.getByTestId('mine-switch').getByRole('switch').isChecked()).resolves.toBe(true);
     expect(await page.getByRole('button', { name: 'Fetch latest forecast' }).count()).toBe(0);
     expect(await page.getByTestId('forecast-info').textContent()).toMatch(/Issued .* ago/);
     expect(await page.getByTestId('alpha-note').textContent()).toMatch(/OPWF = α × OPLIM/);
