@@ -5,9 +5,9 @@
 import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import { formatInstant } from '../../../../shared/dates';
-import type { HourStatus } from '../../../../shared/api-types-plan';
+import type { HourStatus, OccurrenceStatus } from '../../../../shared/api-types-plan';
 import { limitWords } from '../../../../shared/limit-words';
-import { HOUR_STATUS_ORDER, STATUS_WORDS, type StatusWording } from '../../../../shared/status-words';
+import { HOUR_STATUS_ORDER, OCCURRENCE_STATUS_WORD, STATUS_WORDS, type StatusWording } from '../../../../shared/status-words';
 import { TRANSFORM_FLAG } from '../../../../shared/waves/transform';
 import { fixedWithUnit, formatAt, zoneShort } from '../../../lib/format';
 
@@ -27,6 +27,23 @@ export const STATUS_META: Record<HourStatus, StatusWording & { cell: string }> =
 ) as Record<HourStatus, StatusWording & { cell: string }>;
 
 export const STATUS_ORDER = HOUR_STATUS_ORDER;
+
+const MARK: Record<OccurrenceStatus, string> = {
+  go: 'bg-st-workable text-deep',
+  marginal: 'bg-st-marginal text-deep',
+  no_go: 'bg-st-notworkable text-white',
+  no_data: 'bg-st-nodata text-ink',
+  information: 'bg-surface-2 text-ink',
+};
+
+/**
+ * An occurrence of a recurring operation, judged on [start, start + TR): the colour of its mark
+ * on the board (the colours of the hour statuses it sums up), with the word and the letter of the
+ * product's one vocabulary (shared/status-words.ts: an occurrence is said as an hour is).
+ */
+export const OCCURRENCE_META = Object.fromEntries(
+  (Object.keys(MARK) as OccurrenceStatus[]).map((s) => [s, { ...STATUS_WORDS[OCCURRENCE_STATUS_WORD[s]], mark: MARK[s] }]),
+) as Record<OccurrenceStatus, StatusWording & { mark: string }>;
 
 /** The limit named in words, as the e-mails say it (shared/limit-words.ts). */
 export const limitWord = limitWords;
