@@ -100,14 +100,14 @@ export function lullwatchConfig(rootDir) {
     {
       // The composition root (server/composition-root.ts) is the one server file that wires in
       // the scheduled jobs and the demo seed.
-      files: ['server/**/*.ts'],
+      files: ['server/**/*.{ts,tsx}'],
       ignores: ['server/composition-root.ts'],
       rules: {
         'no-restricted-imports': ['error', { patterns: [{ group: ['**/jobs/**', '**/seed/**'], message: 'Only server/composition-root.ts wires in jobs/ and seed/.' }] }],
       },
     },
     {
-      files: ['server/**/*.ts', 'jobs/**/*.ts', 'shared/**/*.ts', 'scripts/**/*.ts', 'seed/**/*.ts'],
+      files: ['server/**/*.{ts,tsx}', 'jobs/**/*.ts', 'shared/**/*.ts', 'scripts/**/*.ts', 'seed/**/*.ts'],
       languageOptions: { globals: { ...globals.node } },
       rules: { 'no-restricted-globals': ['error', ...BROWSER_ONLY_GLOBALS] },
     },

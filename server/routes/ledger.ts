@@ -3,7 +3,9 @@ import { z } from 'zod';
 import { LedgerConfirmInput, LedgerRangeQuery, isoDay } from '../../shared/schemas/downtime';
 import type { AppDeps } from '../deps';
 import { parseInput } from '../http/errors';
-import { confirmLedger, ledgerMonthly, listLedger, proposeLedger } from '../services/ledger';
+import { confirmLedger, listLedger } from '../services/ledger-entries';
+import { ledgerMonthly } from '../services/ledger-monthly';
+import { proposeLedger } from '../services/ledger-propose';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 
 const MonthlyQuery = z.object({

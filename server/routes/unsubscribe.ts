@@ -1,13 +1,9 @@
 import { Router, type Response } from 'express';
 import { idParam } from '../../shared/schemas/common';
 import type { AppDeps } from '../deps';
-import { escapeHtml, verifyUnsubscribe } from '../services/alert-mail';
+import { verifyUnsubscribe } from '../services/alert-mail';
 import { unsubscribe } from '../services/subscriptions';
-
-// Title and body are escaped, so no caller can put markup (or a query parameter) into the page;
-// `trusted` is markup built here with its own values escaped.
-const page = (title: string, body: string, trusted = '') =>
-  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)}</title></head><body style="font-family:system-ui,sans-serif;max-width:520px;margin:48px auto;padding:0 16px;color:#10222c"><h1 style="font-size:22px">${escapeHtml(title)}</h1><p>${escapeHtml(body)}</p>${trusted}</body></html>`;
+import { unsubscribePage as page } from './unsubscribe-page';
 
 /**
  * One-click unsubscribe (RFC 8058) behind the signed link of every alert and digest e-mail.
@@ -48,7 +44,7 @@ export function unsubscribeRoutes(deps: AppDeps): Router {
       page(
         'Stop alert e-mails?',
         'Press the button to stop alert e-mails and digests for this project. You can turn them on again on the Alerts page.',
-        `<form method="post" action="${escapeHtml(action)}"><input type="hidden" name="List-Unsubscribe" value="One-Click"><button type="submit" style="font-size:16px;padding:10px 16px;min-height:44px">Stop these e-mails</button></form>`,
+        action,
       ),
     );
   });

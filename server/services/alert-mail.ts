@@ -1,8 +1,9 @@
 import crypto from 'node:crypto';
 import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
-import { CAUTION_LINE } from '../../shared/caution';
 import { limitWords } from '../../shared/limit-words';
+import { START_WORDS, statusLabel, STATUS_WORDS } from '../../shared/status-words';
+import { renderMail } from '../mail/message';
 
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
@@ -14,6 +15,8 @@ export interface ChangeWithReason extends PlanChange {
   /** The limit that decides in the new plan (window lost, occurrence no-go). */
   reason?: string | null;
 }
+
+const sentence = (s: string) => s[0].toUpperCase() + s.slice(1);
 
 /** "from Thu 3 Dec 15:00 to Thu 3 Dec 20:00" (or "at …" when only one start is left). */
 function startsWords(c: ChangeWithReason, timeZone: string): string {
@@ -29,15 +32,15 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
   const why = c.reason ? `, limited by ${limitWords(c.reason)}` : '';
   switch (c.kind) {
     case 'window_opened':
-      return `New window: ${span}. TR is ${p.tr} h: starts possible ${startsWords(c, z)}.`;
+      return `${sentence(START_WORDS.newWindow)}: ${span}. TR is ${p.tr} h: starts possible ${startsWords(c, z)}.`;
     case 'window_lost':
-      return `Window lost: ${span} is no longer workable for ${p.tr} h${why}.`;
+      return `${sentence(START_WORDS.windowLost)}: ${span} is no longer ${STATUS_WORDS.workable.word} for ${p.tr} h${why}.`;
     case 'earliest_moved':
-      return `Earliest start moved from ${localTime(c.previous!, z)} to ${localTime(c.start!, z)}.`;
+      return `${sentence(START_WORDS.earliestMoved)} from ${localTime(c.previous!, z)} to ${localTime(c.start!, z)}.`;
     case 'start_now_changed':
-      return c.startNow ? 'May start now: the next TR hours are workable.' : `May no longer start now${why}.`;
+      return c.startNow ? `${sentence(START_WORDS.startNow)}: the next TR hours are ${STATUS_WORDS.workable.word}.` : `${sentence(START_WORDS.noLongerStartNow)}${why}.`;
     case 'occurrence_no_go':
-      return `No-go for the ${localTime(c.start!, z)} occurrence (TR ${p.tr} h)${why}.`;
+      return `${statusLabel('not_workable')}: the ${localTime(c.start!, z)} occurrence over its TR of ${p.tr} h${why}.`;
   }
 }
 
@@ -45,15 +48,15 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
 export function shortChange(c: ChangeWithReason, timeZone: string): string {
   switch (c.kind) {
     case 'window_opened':
-      return `new window, starts from ${localTime(c.usableFrom ?? c.start!, timeZone)}`;
+      return `${START_WORDS.newWindow}, starts from ${localTime(c.usableFrom ?? c.start!, timeZone)}`;
     case 'window_lost':
-      return `window lost (${localTime(c.start!, timeZone)})`;
+      return `${START_WORDS.windowLost} (${localTime(c.start!, timeZone)})`;
     case 'earliest_moved':
       return `earliest start now ${localTime(c.start!, timeZone)}`;
     case 'start_now_changed':
-      return c.startNow ? 'may start now' : 'may no longer start now';
+      return c.startNow ? START_WORDS.startNow : START_WORDS.noLongerStartNow;
     case 'occurrence_no_go':
-      return `no-go at ${localTime(c.start!, timeZone)}`;
+      return `${STATUS_WORDS.not_workable.word} at ${localTime(c.start!, timeZone)}`;
   }
 }
 
@@ -88,20 +91,13 @@ export function verifyUnsubscribe(secret: string, userId: string, projectId: str
 }
 
 /**
- * Text for HTML element content and quoted attribute values: & < > " ' as character references
- * (OWASP Cross Site Scripting Prevention Cheat Sheet, output encoding for HTML contexts; from
- * memory). Every name and note a user typed goes through it before it enters an e-mail or page.
- */
-export const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
-
-/**
  * The next start still possible in the new plan, with its date, for the subject line: "may start
  * now", "next start Thu 3 Dec 15:00", or "no start possible in this forecast".
  */
 export function nextStartWords(plan: PlanSummary): string {
-  if (plan.startNow) return 'may start now';
-  if (plan.earliestStart) return `next start ${localTime(plan.earliestStart, plan.timeZone)}`;
-  return 'no start possible in this forecast';
+  if (plan.startNow) return START_WORDS.startNow;
+  if (plan.earliestStart) return `${START_WORDS.nextStart} ${localTime(plan.earliestStart, plan.timeZone)}`;
+  return START_WORDS.noStart;
 }
 
 /**
@@ -109,36 +105,24 @@ export function nextStartWords(plan: PlanSummary): string {
  * project, the operation and worksite, the next start still possible (with its date) and what
  * changed.
  */
-export function alertEmail(args: {
+export async function alertEmail(args: {
   plan: PlanSummary;
   changes: ChangeWithReason[];
   projectName: string;
   boardUrl: string;
   unsubscribeUrl: string;
-}): { subject: string; text: string; html: string } {
+}): Promise<{ subject: string; text: string; html: string }> {
   const { plan, changes } = args;
-  const lines = changes.map((c) => describeChange(c, plan));
   const more = changes.length > 1 ? ` (+${changes.length - 1} more)` : '';
   const headline = `${shortChange(changes[0], plan.timeZone)}${more}`;
   const subject = `${args.projectName}: ${plan.operationName} at ${plan.siteName}, ${nextStartWords(plan)} (${headline})`;
-  const text = [
-    `${plan.operationName} at ${plan.siteName} (${args.projectName})`,
-    `Times are ${plan.timeZone}.`,
-    '',
-    ...lines.map((l) => `- ${l}`),
-    '',
-    `Board: ${args.boardUrl}`,
-    '',
-    CAUTION_LINE,
-    `Stop these e-mails: ${args.unsubscribeUrl}`,
-  ].join('\n');
-  const html = `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;color:#10222c;max-width:560px">
-<p style="font-size:16px;font-weight:700;margin:0 0 4px">${escapeHtml(plan.operationName)} at ${escapeHtml(plan.siteName)}</p>
-<p style="font-size:13px;color:#4a5d66;margin:0 0 12px">${escapeHtml(args.projectName)} · times are ${escapeHtml(plan.timeZone)}</p>
-<ul style="font-size:15px;padding-left:18px">${lines.map((l) => `<li style="margin-bottom:6px">${escapeHtml(l)}</li>`).join('')}</ul>
-<p><a href="${escapeHtml(args.boardUrl)}" style="display:inline-block;background:#0b7a72;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Open the watch board</a></p>
-<p style="font-size:12px;color:#4a5d66">${escapeHtml(CAUTION_LINE)}</p>
-<p style="font-size:12px"><a href="${escapeHtml(args.unsubscribeUrl)}">Stop these e-mails</a></p>
-</body></html>`;
-  return { subject, text, html };
+  const parts = await renderMail({
+    heading: `${plan.operationName} at ${plan.siteName}`,
+    subheading: `${args.projectName} · times are ${plan.timeZone}`,
+    textHead: [`${plan.operationName} at ${plan.siteName} (${args.projectName})`, `Times are ${plan.timeZone}.`],
+    points: changes.map((c) => describeChange(c, plan)),
+    action: { label: 'Open the watch board', textLabel: 'Board', url: args.boardUrl },
+    unsubscribeUrl: args.unsubscribeUrl,
+  });
+  return { subject, ...parts };
 }

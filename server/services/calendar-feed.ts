@@ -3,6 +3,7 @@ import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { calendarToken, project, projectMember, user } from '../db/schema';
 import { CAUTION_LINE } from '../../shared/caution';
+import { occurrenceLabel } from '../../shared/status-words';
 import { icsDocument, type CalendarEvent } from './calendar';
 import { projectPlan } from './plans';
 import { covers, mySubscription } from './subscriptions';
@@ -59,7 +60,8 @@ export async function calendarFeed(db: Db, token: string, now: Date): Promise<st
           uid: `occurrence-${op.operationId}-${op.siteId}-${o.start}@lullwatch`,
           start: new Date(o.start),
           end: new Date(Date.parse(o.start) + op.tr * 3_600_000),
-          summary: `${o.status === 'go' ? 'GO' : o.status === 'no_go' ? 'NO-GO' : o.status === 'marginal' ? 'MARGINAL' : o.status === 'information' ? 'NOT WEATHER-RESTRICTED (information)' : 'NO DATA'}: ${op.operationName} at ${op.siteName}`,
+          // The status as on the board and in the e-mails: "X Not workable: …" (shared/status-words.ts).
+          summary: `${occurrenceLabel(o.status)}: ${op.operationName} at ${op.siteName}`,
           description: `${p.name}. Recurring operation, judged on its TR of ${op.tr} h. ${CAUTION_LINE}`,
         });
       }

@@ -32,17 +32,17 @@ import {
 } from '../../shared/engine';
 import type { CampaignOutlookAnswer, CampaignResponse, OutlookFinish, OutlookHistoryPoint } from '../../shared/api-types-downtime';
 import type { StepProgressInput } from '../../shared/schemas/downtime';
-import { CAUTION_LINE } from '../../shared/caution';
 import type { AppDeps } from '../deps';
 import type { Db } from '../db/client';
 import { campaign, campaignOutlook, ledgerDay, project, projectMember, subscription, user, type CampaignStepProgress } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError } from '../http/errors';
-import { escapeHtml, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
+import { renderMail } from '../mail/message';
+import { UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { recordAudit } from './audit';
 import { assertSteps, campaignRow, toCampaignResponse } from './campaigns';
 import { latestDataset } from './datasets';
-import { zonedDayMs } from './ledger';
+import { zonedDayMs } from '../../shared/ledger/days';
 import { enqueueMail, type OutboxMessage } from './outbox';
 import { ByteBoundedMemo } from './byte-cache';
 import { runEngineTask } from './engine-pool';
@@ -410,7 +410,7 @@ async function outlookSubscribers(db: Db, projectId: string) {
 }
 
 /** The e-mail "the P50 finish moved" for one campaign. */
-export function outlookMoveEmail(args: {
+export async function outlookMoveEmail(args: {
   projectName: string;
   campaignName: string;
   previousP50: string;
@@ -418,7 +418,7 @@ export function outlookMoveEmail(args: {
   timeZone: string;
   pageUrl: string;
   unsubscribeUrl: string;
-}): { subject: string; text: string; html: string } {
+}): Promise<{ subject: string; text: string; html: string }> {
   const { answer } = args;
   const day = (s: string | null) => (s ? format(new TZDate(Date.parse(s), args.timeZone), 'EEE d MMM yyyy') : 'not known (every sample censored)');
   const movedDays = answer.finish.p50 ? (Date.parse(answer.finish.p50) - Date.parse(args.previousP50)) / MS_PER_DAY : 0;
@@ -431,16 +431,15 @@ export function outlookMoveEmail(args: {
     answer.forecastIssuedAt ? `Forecast issued ${format(new TZDate(Date.parse(answer.forecastIssuedAt), args.timeZone), 'EEE d MMM HH:mm')}, then the hindcast years.` : 'No forecast: the hindcast years alone.',
     `${answer.samples} samples, ${answer.censored} censored. Dates are ${args.timeZone}.`,
   ];
-  const text = [`${args.campaignName} (${args.projectName})`, '', ...lines.map((l) => `- ${l}`), '', `Outlook: ${args.pageUrl}`, '', CAUTION_LINE, `Stop these e-mails: ${args.unsubscribeUrl}`].join('\n');
-  const html = `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;color:#10222c;max-width:560px">
-<p style="font-size:16px;font-weight:700;margin:0 0 4px">${escapeHtml(args.campaignName)}</p>
-<p style="font-size:13px;color:#4a5d66;margin:0 0 12px">${escapeHtml(args.projectName)}</p>
-<ul style="font-size:15px;padding-left:18px">${lines.map((l) => `<li style="margin-bottom:6px">${escapeHtml(l)}</li>`).join('')}</ul>
-<p><a href="${escapeHtml(args.pageUrl)}" style="display:inline-block;background:#0b7a72;color:#fff;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Open the outlook</a></p>
-<p style="font-size:12px;color:#4a5d66">${escapeHtml(CAUTION_LINE)}</p>
-<p style="font-size:12px"><a href="${escapeHtml(args.unsubscribeUrl)}">Stop these e-mails</a></p>
-</body></html>`;
-  return { subject, text, html };
+  const parts = await renderMail({
+    heading: args.campaignName,
+    subheading: args.projectName,
+    textHead: [`${args.campaignName} (${args.projectName})`],
+    points: lines,
+    action: { label: 'Open the outlook', textLabel: 'Outlook', url: args.pageUrl },
+    unsubscribeUrl: args.unsubscribeUrl,
+  });
+  return { subject, ...parts };
 }
 
 /**
@@ -473,7 +472,7 @@ export async function recordCampaignOutlooks(deps: Pick<AppDeps, 'db' | 'log' | 
       if (previous?.p50 && answer.finish.p50) {
         const movedDays = Math.abs(Date.parse(answer.finish.p50) - previous.p50.getTime()) / MS_PER_DAY;
         for (const s of subscribers.filter((x) => x.days !== null && movedDays > x.days)) {
-          const mail = outlookMoveEmail({
+          const mail = await outlookMoveEmail({
             projectName: p?.name ?? '',
             campaignName: c.name,
             previousP50: previous.p50.toISOString(),

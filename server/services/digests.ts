@@ -2,13 +2,26 @@ import { and, desc, eq } from 'drizzle-orm';
 import { format } from 'date-fns';
 import { TZDate } from '@date-fns/tz';
 import type { PlanSummary } from '../../shared/alerts/compare-plans';
-import { CAUTION_LINE } from '../../shared/caution';
 import type { AppDeps } from '../deps';
 import { planRun, project } from '../db/schema';
-import { escapeHtml, localTime, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
+import { occurrenceLabel, START_WORDS } from '../../shared/status-words';
+import { renderMail } from '../mail/message';
+import { localTime, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { enqueueMail } from './outbox';
 import { covers, effectiveSubscriptions, markDigestSent } from './subscriptions';
 
+
+/**
+ * One operation at one worksite in the digest: may it start now, or its next window; for a
+ * recurring operation, its next occurrence with its status (the words of shared/status-words.ts).
+ */
+export function digestLine(pl: PlanSummary, nowMs: number): string {
+  const next = pl.windows[0];
+  const state = pl.startNow ? START_WORDS.startNow : next ? `${START_WORDS.nextWindow} ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})` : START_WORDS.noWindow;
+  const occurrence = pl.occurrences.find((o) => Date.parse(o.start) >= nowMs);
+  const occurrenceWords = occurrence ? `; ${START_WORDS.nextOccurrence} ${localTime(occurrence.start, pl.timeZone)}: ${occurrenceLabel(occurrence.status)}` : '';
+  return `${pl.operationName} at ${pl.siteName}: ${state}${occurrenceWords}`;
+}
 
 /**
  * Daily digests: for every subscription that asks for one, once per local day at or after its
@@ -35,13 +48,15 @@ export async function queueDigests(deps: AppDeps): Promise<number> {
       const day = format(local, 'yyyy-MM-dd');
       const mine = plans.filter((pl) => covers(s, pl.operationId, pl.siteId));
       if (mine.length === 0) continue;
-      const lines = mine.map((pl) => {
-        const next = pl.windows[0];
-        return `${pl.operationName} at ${pl.siteName}: ${pl.startNow ? 'may start now' : next ? `next window ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})` : 'no window in this forecast'}`;
-      });
       const board = `${deps.config.baseUrl}/projects/${p.id}/board`;
-      // The signed link goes in when the e-mail is sent (server/services/outbox.ts).
-      const unsub = UNSUBSCRIBE_LINK_MARK;
+      const mail = await renderMail({
+        heading: `${p.name}, daily summary`,
+        textHead: [`${p.name}, daily summary`],
+        points: mine.map((pl) => digestLine(pl, now.getTime())),
+        action: { label: 'Open the watch board', textLabel: 'Board', url: board },
+        // The signed link goes in when the e-mail is sent (server/services/outbox.ts).
+        unsubscribeUrl: UNSUBSCRIBE_LINK_MARK,
+      });
       const n = await enqueueMail(
         deps.db,
         [
@@ -51,8 +66,7 @@ export async function queueDigests(deps: AppDeps): Promise<number> {
             userId: s.userId,
             toEmail: s.email,
             subject: `${p.name}: windows for ${format(local, 'EEE d MMM')}`,
-            text: [`${p.name}, daily summary`, '', ...lines.map((l) => `- ${l}`), '', `Board: ${board}`, '', CAUTION_LINE, `Stop these e-mails: ${unsub}`].join('\n'),
-            html: `<!doctype html><html><body style="font-family:Manrope,Arial,sans-serif;max-width:560px"><p style="font-weight:700">${escapeHtml(p.name)}, daily summary</p><ul>${lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul><p><a href="${escapeHtml(board)}">Open the watch board</a></p><p style="font-size:12px;color:#4a5d66">${escapeHtml(CAUTION_LINE)}</p><p style="font-size:12px"><a href="${escapeHtml(unsub)}">Stop these e-mails</a></p></body></html>`,
+            ...mail,
           },
         ],
         now,

@@ -2,7 +2,7 @@
 // stored series, the dataset row, the project setup), no database.
 import { computeCampaignMonths } from './campaigns';
 import { computeOutlookGoStarts } from './campaign-outlook';
-import { computeExpectations } from './ledger';
+import { computeExpectations } from './ledger-monthly';
 import { computeWorkability } from './workability';
 
 export const ENGINE_TASKS = {

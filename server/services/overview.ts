@@ -11,7 +11,7 @@ import type { OverviewAnswer, OverviewLine, OverviewMonthRow } from '../../share
 import type { Db } from '../db/client';
 import { alert, ledgerDay, outbox, planRun } from '../db/schema';
 import { listDatasets } from './datasets';
-import { ledgerExpectations } from './ledger';
+import { ledgerExpectations } from './ledger-monthly';
 import { projectPlan } from './plans';
 import { readSeries } from './series-store';
 import { loadProjectSetup, sitesOf } from './site-context';

@@ -122,7 +122,7 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
       const summary = summaries.find((s) => `${s.operationId}|${s.siteId}` === k)!;
       for (const s of subs.filter((s) => covers(s, summary.operationId, summary.siteId))) {
         const changeKeys = list.map((c) => c.key).sort().join(',');
-        const mail = alertEmail({
+        const mail = await alertEmail({
           plan: summary,
           changes: list,
           projectName: p.name,

@@ -45,3 +45,11 @@ export const nameText = (max = 120) =>
 export const longText = (max = 4000) => storableText(z.string().trim().max(max, `must be at most ${max} characters`));
 
 export const idParam = z.string().uuid();
+
+/** A PATCH body: any subset of the fields, at least one given ("Nothing to change" otherwise). */
+export function patchSchema<T extends z.ZodRawShape>(fields: T) {
+  return z
+    .object(fields)
+    .partial()
+    .refine((v) => Object.values(v).some((x) => x !== undefined), 'Nothing to change');
+}

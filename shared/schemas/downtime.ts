@@ -5,8 +5,8 @@
  * same values with the same messages.
  */
 import { z } from 'zod';
-import { canonicalTimeZone } from './sites';
-import { longText, nameText } from './common';
+import { canonicalTimeZone } from './site-fields';
+import { longText, nameText, patchSchema } from './common';
 
 /** Most steps a campaign may have. */
 export const CAMPAIGN_MAX_STEPS = 50;
@@ -16,7 +16,7 @@ export const LEDGER_MAX_DAYS = 93;
 
 /**
  * Most hours one ledger day may hold: the planned hours of a day are its real length in the
- * worksite's time zone, 23 to 25 h on daylight-saving change days (see server/services/ledger.ts).
+ * worksite's time zone, 23 to 25 h on daylight-saving change days (see shared/ledger/days.ts).
  */
 export const LEDGER_MAX_DAY_HOURS = 25;
 
@@ -84,10 +84,7 @@ export type CampaignInput = z.infer<typeof CampaignInput>;
 export type CampaignFormValues = z.input<typeof CampaignInput>;
 
 /** PATCH /api/projects/:projectId/campaigns/:campaignId: any subset; `steps` replaced whole. */
-export const CampaignPatchInput = z
-  .object(campaignFields)
-  .partial()
-  .refine((v) => Object.values(v).some((x) => x !== undefined), 'Nothing to change');
+export const CampaignPatchInput = patchSchema(campaignFields);
 export type CampaignPatchInput = z.infer<typeof CampaignPatchInput>;
 
 const isoTime = z.iso.datetime({ offset: true, error: 'must be an ISO 8601 time, e.g. 2027-04-03T14:00:00Z' });

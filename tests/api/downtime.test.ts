@@ -4,13 +4,12 @@ import { quantile } from 'd3-array';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, signInAll, type TestApp } from '../support/app';
-import { calendarIndex, evaluateHours, evaluateStatus, goStarts, LIMIT, monthlyStatistics, STATUS } from '../../shared/engine';
+import { calendarIndex, evaluateHours, evaluateStatus, goStarts, monthlyStatistics, STATUS } from '../../shared/engine';
 import type { CampaignSimulation, LedgerEntry, LedgerMonthlyAnswer, LedgerProposeAnswer, WorkabilityEntry } from '../../shared/api-types-downtime';
 import { readSeries } from '../../server/services/series-store';
 import { loadProjectSetup, operationSpec, transformForSite } from '../../server/services/site-context';
 import { createDataset } from '../../server/services/datasets';
 import { toSeaSeries } from '../../server/services/sea-series';
-import { tallyDay, yearMonthLostHours, zonedDayMs } from '../../server/services/ledger';
 import { ledgerDay, statsCache } from '../../server/db/schema';
 import { clearStatsMemo, settleStatsCache } from '../../server/services/workability';
 
@@ -672,24 +671,6 @@ describe('the downtime ledger', () => {
     expect(stricter).toBeGreaterThan(0);
     expect((await as.coordinator.get(`${base}/ledger/monthly?alpha=yes`)).status).toBe(400);
   });
-
-  it('takes the real length of months on clock-change dates (Europe/London March: 743 h)', () => {
-    // Hourly from 2024-01-01 00:00Z to 2025-12-30 23:00Z; workable only for the first 100 records
-    // of March 2024.
-    const start = Date.UTC(2024, 0, 1);
-    const n = 8784 + 8760 - 24;
-    const timeMs = Float64Array.from({ length: n }, (_, i) => start + i * HOUR);
-    const status = new Uint8Array(n).fill(STATUS.NOT_WORKABLE);
-    const march = zonedIndex(timeMs, Date.UTC(2024, 2, 1));
-    for (let i = march; i < march + 100; i++) status[i] = STATUS.WORKABLE;
-    const cal = calendarIndex(timeMs, 'Europe/London');
-    const lost = new Map(yearMonthLostHours(timeMs, status, cal.yearMonth, HOUR, 'Europe/London'));
-    // 31 days less the hour skipped on the last Sunday of March (31 March 2024), minus 100 workable.
-    expect(lost.get(2024 * 12 + 2)).toBe(743 - 100);
-    expect(lost.get(2024 * 12 + 9)).toBe(745); // October: the hour repeated on 27 October 2024
-    // December 2025 ends after the data (last record 2025-12-30 23:00Z + 1 h): left out.
-    expect(lost.has(2025 * 12 + 11)).toBe(false);
-  });
 });
 
 /** Operation-worksite pairs of the project now (the campaign tests add three operations). */
@@ -698,48 +679,6 @@ async function pairCount(): Promise<number> {
   return setup.operations.reduce((a, o) => a + (o.siteIds.length === 0 ? setup.sites.length : o.siteIds.length), 0);
 }
 
-describe('ledger day arithmetic (hand cases)', () => {
-  it('takes the real length of a day in the worksite zone', () => {
-    // Europe/London: clocks go forward on 29 March 2026 and back on 25 October 2026.
-    const spring = zonedDayMs('2026-03-29', 'Europe/London');
-    expect(spring).toEqual({ startMs: Date.UTC(2026, 2, 29, 0), endMs: Date.UTC(2026, 2, 29, 23) });
-    const autumn = zonedDayMs('2026-10-25', 'Europe/London');
-    expect((autumn.endMs - autumn.startMs) / HOUR).toBe(25);
-    // Australia/Sydney in January is UTC+11: local midnight is 13:00 UTC the day before.
-    expect(zonedDayMs('2027-01-10', 'Australia/Sydney').startMs).toBe(Date.UTC(2027, 0, 9, 13));
-  });
-
-  it('counts lost hours as planned minus workable, with gaps and no data lost, and the dominant limit', () => {
-    const day = Date.UTC(2026, 5, 1);
-    // 20 hourly records from 00:00 (hours 20-23 absent): 10 workable, 6 broken by wind, 3 by Hs, 1 no data.
-    const timeMs = Float64Array.from({ length: 20 }, (_, i) => day + i * HOUR);
-    const status = new Uint8Array(20);
-    const limiting = new Uint8Array(20);
-    for (let i = 0; i < 20; i++) {
-      if (i < 10) status[i] = STATUS.WORKABLE;
-      else if (i < 16) [status[i], limiting[i]] = [STATUS.NOT_WORKABLE, LIMIT.WIND];
-      else if (i < 19) [status[i], limiting[i]] = [STATUS.NOT_WORKABLE, LIMIT.HS];
-      else status[i] = STATUS.NO_DATA;
-    }
-    // Hand count: 24 planned - 10 workable = 14 lost; wind 6 h beats no data 1 + 4 absent = 5 h and Hs 3 h.
-    expect(tallyDay(timeMs, status, limiting, HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 14, limiting: 'wind' });
-    // Two more hours of no data and no data leads (7 h > 6 h).
-    status[9] = STATUS.NO_DATA;
-    status[8] = STATUS.NO_DATA;
-    expect(tallyDay(timeMs, status, limiting, HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 16, limiting: 'noData' });
-    // A wholly workable day loses nothing and names no limit; records of the next day do not count.
-    const calm = Float64Array.from({ length: 48 }, (_, i) => day + i * HOUR);
-    expect(tallyDay(calm, new Uint8Array(48).fill(STATUS.WORKABLE), new Uint8Array(48), HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 0, limiting: null });
-    // Three-hourly records stand for three hours each.
-    const coarse = Float64Array.from({ length: 8 }, (_, i) => day + i * 3 * HOUR);
-    const st = Uint8Array.from([3, 3, 1, 1, 3, 3, 3, 3]);
-    expect(tallyDay(coarse, st, Uint8Array.from([0, 0, 7, 7, 0, 0, 0, 0]), 3 * HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 6, limiting: 'wind' });
-  });
-});
-
-function zonedIndex(timeMs: Float64Array, t: number): number {
-  return timeMs.findIndex((x) => x >= t);
-}
 
 describe('who may do what', () => {
   it('lets clients read workability, campaigns and the ledger, and nothing more', async () => {

@@ -39,7 +39,7 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
       expect(m.to).toEqual(['skipper@example.com']);
       expect(SKIPPER_OPS.some((name) => m.subject.startsWith(`Varrow Reach export cable and landfall: ${name} at `))).toBe(true);
       // The subject names the next start still possible (with its date) and what changed.
-      expect(m.subject).toMatch(/, (may start now|next start \w{3} \d{1,2} \w{3} \d\d:\d\d|no start possible in this forecast) \((new window, starts from|window lost|earliest start now|may start now|may no longer start now|no-go at)/);
+      expect(m.subject).toMatch(/, (may start now|next start \w{3} \d{1,2} \w{3} \d\d:\d\d|no start possible in this forecast) \((new window, starts from|window lost|earliest start now|may start now|may no longer start now|not workable at)/);
       expect(m.text).toMatch(/Decision support only/);
       expect(m.text).toContain(`/projects/${t.demo.projectId}/board`);
       expect(m.html).toContain('<ul');

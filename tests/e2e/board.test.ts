@@ -49,7 +49,7 @@ describe('the watch board', () => {
     await openBoard(page, projectId);
 
     // A skipper starts on their own operations, and never sees the forecast fetch.
-    await expect(page.getByTestId('mine-switch').getAttribute('aria-checked')).resolves.toBe('true');
+    await expect(page.getByTestId('mine-switch').getByRole('switch').isChecked()).resolves.toBe(true);
     expect(await page.getByRole('button', { name: 'Fetch latest forecast' }).count()).toBe(0);
     expect(await page.getByTestId('forecast-info').textContent()).toMatch(/Issued .* ago/);
     expect(await page.getByTestId('alpha-note').textContent()).toMatch(/OPWF = α × OPLIM/);
@@ -126,7 +126,7 @@ describe('the watch board', () => {
     await expect.poll(() => marks.count()).toBe(inForecast.length);
     const drawn = await marks.evaluateAll((els) => els.map((e) => `${e.getAttribute('data-start')} ${e.getAttribute('data-status')}`));
     expect(drawn).toEqual(inForecast.map((o) => `${o.start} ${o.status}`));
-    expect(await marks.first().getAttribute('aria-label')).toMatch(/^Occurrence (Mon|Wed|Fri) \d{1,2} [A-Z][a-z]{2} 06:00 \(local\): (go|marginal|no-go|no data)/);
+    expect(await marks.first().getAttribute('aria-label')).toMatch(/^Occurrence (Mon|Wed|Fri) \d{1,2} [A-Z][a-z]{2} 06:00 \(local\): (workable|marginal|not workable|no data)/);
     // Every other row (no recurrence) has none.
     expect(await page.getByTestId('occurrence-mark').count()).toBe(inForecast.length);
     await crewRow.scrollIntoViewIfNeeded();

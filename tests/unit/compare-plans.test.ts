@@ -77,16 +77,16 @@ describe('alerts speak of usable starts', () => {
     expect(c).toMatchObject({ kind: 'window_opened', usableFrom: '2026-12-03T15:00:00.000Z', lastStart: '2026-12-03T16:00:00.000Z' });
   });
 
-  it('puts the project, the next possible start with its date, and the change in the subject', () => {
+  it('puts the project, the next possible start with its date, and the change in the subject', async () => {
     const window = w('2026-12-03T12:00:00Z', '2026-12-03T22:00:00Z');
     const next = tr6([window], { earliestStart: '2026-12-03T15:00:00Z', timeZone: 'UTC' });
     const changes = comparePlans(null, [next], at1403);
-    const mail = alertEmail({ plan: next, changes, projectName: 'Varrow Reach', boardUrl: 'http://x/board', unsubscribeUrl: 'http://x/u' });
+    const mail = await alertEmail({ plan: next, changes, projectName: 'Varrow Reach', boardUrl: 'http://x/board', unsubscribeUrl: 'http://x/u' });
     // 3 December 2026 is a Thursday (GNU date).
     expect(mail.subject).toBe('Varrow Reach: Rock berm at KP 4.5, next start Thu 3 Dec 15:00 (new window, starts from Thu 3 Dec 15:00)');
     expect(mail.subject).not.toContain('12:00');
     expect(mail.text).toContain('starts possible from Thu 3 Dec 15:00 to Thu 3 Dec 16:00');
-    const none = alertEmail({ plan: tr6([]), changes: [{ ...changes[0], kind: 'window_lost' }], projectName: 'Varrow Reach', boardUrl: 'b', unsubscribeUrl: 'u' });
+    const none = await alertEmail({ plan: tr6([]), changes: [{ ...changes[0], kind: 'window_lost' }], projectName: 'Varrow Reach', boardUrl: 'b', unsubscribeUrl: 'u' });
     expect(none.subject).toMatch(/^Varrow Reach: Rock berm at KP 4\.5, no start possible in this forecast \(window lost/);
   });
 });

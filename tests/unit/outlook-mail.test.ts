@@ -1,4 +1,4 @@
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type { CampaignOutlookAnswer } from '../../shared/api-types-downtime';
 import { outlookMoveEmail } from '../../server/services/campaign-outlook';
 
@@ -11,7 +11,7 @@ const answer = {
 } as CampaignOutlookAnswer;
 
 describe('the "P50 finish moved" e-mail', () => {
-  const mail = outlookMoveEmail({
+  const mailPromise = outlookMoveEmail({
     projectName: 'Varrow <Reach>',
     campaignName: 'Lay & "berm"',
     previousP50: '2027-01-02T12:00:00.000Z',
@@ -19,6 +19,11 @@ describe('the "P50 finish moved" e-mail', () => {
     timeZone: 'Europe/London',
     pageUrl: 'http://localhost:3000/projects/p/downtime',
     unsubscribeUrl: 'http://localhost:3000/api/unsubscribe?u=1&p=2&sig=3',
+  });
+
+  let mail: Awaited<typeof mailPromise>;
+  beforeAll(async () => {
+    mail = await mailPromise;
   });
 
   it('says how far and which way the P50 moved, with the dates in the campaign zone', () => {

@@ -1,7 +1,10 @@
 // An alert in words, as a crew reads it: a headline, the times in the worksite's zone, and the
 // limiting factor when the change is a loss. The wording follows the alert e-mails.
 import type { AlertDetails, AlertKind } from '../api/types';
+import { STATUS_WORDS } from '../../../../shared/status-words';
 import { hoursText, limitWords, timeIn } from './format';
+
+const NOT_WORKABLE = STATUS_WORDS.not_workable;
 
 export type AlertTone = 'good' | 'bad' | 'moved';
 
@@ -39,10 +42,10 @@ export function alertText(kind: AlertKind | string, d: AlertDetails, timeZone: s
         : { headline: 'May no longer start now', mark: '−', tone: 'bad', body: `The next TR hours are not all workable${why}.${tr}` };
     case 'occurrence_no_go':
       return {
-        headline: 'Occurrence no-go',
-        mark: '×',
+        headline: `Occurrence ${NOT_WORKABLE.word}`,
+        mark: NOT_WORKABLE.letter,
         tone: 'bad',
-        body: `The ${timeIn(d.start, timeZone)} occurrence is no-go over its TR of ${hoursText(d.hours ?? trH)}${why}.`,
+        body: `The ${timeIn(d.start, timeZone)} occurrence is ${NOT_WORKABLE.word} over its TR of ${hoursText(d.hours ?? trH)}${why}.`,
       };
     default:
       return { headline: String(kind).replace(/_/g, ' '), mark: '•', tone: 'moved', body: span };
@@ -61,5 +64,5 @@ export const KIND_WORDS: Record<string, string> = {
   window_lost: 'Window lost',
   earliest_moved: 'Earliest start moved',
   start_now_changed: '“May start now” changed',
-  occurrence_no_go: 'Occurrence no-go',
+  occurrence_no_go: `Occurrence ${STATUS_WORDS.not_workable.word}`,
 };

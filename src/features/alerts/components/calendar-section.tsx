@@ -2,6 +2,7 @@
 // recurring-operation occurrences, to subscribe to in a phone's calendar app. It can be replaced
 // (the old address stops working) or revoked.
 import { useState } from 'react';
+import { OCCURRENCE_VERDICTS } from '../../../../shared/status-words';
 import { Button, Card, ErrorNotice, Input, Notice, Spinner } from '../../../components/ui';
 import { useCalendarFeed } from '../api/get-calendar-feed';
 import { useCreateCalendarFeed } from '../api/create-calendar-feed';
@@ -35,7 +36,7 @@ export function CalendarSection() {
     <Card aria-labelledby="cal-title">
       <h2 id="cal-title" className="text-lg font-bold">Calendar feed</h2>
       <p className="mt-1 text-sm text-ink-soft">
-        Usable weather windows and recurring-operation occurrences (go, marginal or no-go) of everything you hear about, in every project you
+        Usable weather windows and recurring-operation occurrences ({OCCURRENCE_VERDICTS}) of everything you hear about, in every project you
         belong to, kept up to date in your calendar.
       </p>
       <div className="mt-4 flex flex-col gap-3">

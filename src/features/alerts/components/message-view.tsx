@@ -3,6 +3,7 @@
 // so a message can never act inside the app.
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Button } from '../../../components/ui';
+import { Tabs } from '../../../components/ui/tabs';
 
 interface Props {
   subject: string;
@@ -41,22 +42,16 @@ export function MessageView({ subject, meta, text, html, onClose }: Props) {
           </div>
         ))}
       </dl>
-      <div className="mt-3 flex gap-1" role="tablist" aria-label="Message body">
-        {(['html', 'text'] as const).map((t) => (
-          <button
-            key={t}
-            type="button"
-            role="tab"
-            aria-selected={shown === t}
-            disabled={t === 'html' && !hasHtml}
-            onClick={() => setTab(t)}
-            className={`min-h-11 rounded-lg px-4 text-sm font-semibold disabled:opacity-40 ${shown === t ? 'bg-accent text-accent-ink' : 'bg-surface-2 text-ink hover:brightness-95'}`}
-          >
-            {t === 'html' ? (hasHtml ? 'HTML' : 'No HTML part') : 'Plain text'}
-          </button>
-        ))}
-      </div>
-      <div className="mt-3" role="tabpanel">
+      <Tabs
+        label="Message body"
+        tabs={[
+          { id: 'html', label: hasHtml ? 'HTML' : 'No HTML part', disabled: !hasHtml },
+          { id: 'text', label: 'Plain text' },
+        ]}
+        selected={shown}
+        onSelect={setTab}
+        listClassName="mt-3 mb-3 flex gap-1 rounded-lg bg-surface-2 p-1"
+      >
         {shown === 'html' ? (
           <iframe
             title={`HTML of “${subject}”`}
@@ -70,7 +65,7 @@ export function MessageView({ subject, meta, text, html, onClose }: Props) {
             {text || '(no plain-text part)'}
           </pre>
         )}
-      </div>
+      </Tabs>
     </section>
   );
 }

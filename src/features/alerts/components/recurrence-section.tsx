@@ -4,6 +4,7 @@
 import { useState } from 'react';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { recurrenceText, RecurrenceInput } from '../../../../shared/recurrence';
+import { OCCURRENCE_VERDICTS, STATUS_WORDS } from '../../../../shared/status-words';
 import { Button, Card } from '../../../components/ui';
 import type { StoredRecurrence } from '../api/types';
 import { RecurrenceEditor } from './recurrence-editor';
@@ -28,9 +29,9 @@ export function RecurrenceSection({ projectId, operations, sites }: Props) {
     <Card aria-labelledby="rec-title">
       <h2 id="rec-title" className="text-lg font-bold">Recurring operations</h2>
       <p className="mt-1 text-sm text-ink-soft">
-        An operation that repeats, such as a crew change on set days, gets go, marginal or no-go for each occurrence from the hours [start,
-        start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning no-go is an alert. A rule keeps its wall-clock
-        time, so 06:00 stays 06:00 across a daylight-saving change.
+        An operation that repeats, such as a crew change on set days, is judged {OCCURRENCE_VERDICTS} for each occurrence from the hours
+        [start, start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning {STATUS_WORDS.not_workable.word} is
+        an alert. A rule keeps its wall-clock time, so 06:00 stays 06:00 across a daylight-saving change.
       </p>
       {operations.length === 0 ? <p className="mt-3 text-sm text-ink-soft">This project has no operations yet.</p> : null}
       <ul className="mt-4 flex flex-col gap-3">

@@ -12,7 +12,8 @@ import { useSubscription } from '../api/get-subscription';
 import { useSaveSubscription } from '../api/save-subscription';
 import type { SubscriptionResponse } from '../api/types';
 import { timeZoneList } from './format';
-import { CheckRow, Toggle } from './toggle';
+import { Switch } from '../../../components/ui/switch';
+import { CheckRow } from './toggle';
 
 interface Props {
   projectId: string;
@@ -82,13 +83,15 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
         control={form.control}
         name="active"
         render={({ field }) => (
-          <Toggle
+          <Switch
             id="sub-active"
+            wide
             on={field.value}
             onChange={field.onChange}
-            label="Alerts for this project"
             hint={field.value ? 'E-mails and the calendar feed follow the choices below.' : 'Nothing is sent and the calendar feed leaves this project out.'}
-          />
+          >
+            Alerts for this project
+          </Switch>
         )}
       />
 
@@ -137,14 +140,18 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
           control={form.control}
           name="immediate"
           render={({ field }) => (
-            <Toggle id="sub-immediate" on={field.value} onChange={field.onChange} label="Immediate alerts" hint="An e-mail as soon as a planning run finds a change." />
+            <Switch id="sub-immediate" wide on={field.value} onChange={field.onChange} hint="An e-mail as soon as a planning run finds a change.">
+              Immediate alerts
+            </Switch>
           )}
         />
         <Controller
           control={form.control}
           name="digest"
           render={({ field }) => (
-            <Toggle id="sub-digest" on={field.value} onChange={field.onChange} label="Daily digest" hint="One e-mail a day with the windows ahead." />
+            <Switch id="sub-digest" wide on={field.value} onChange={field.onChange} hint="One e-mail a day with the windows ahead.">
+              Daily digest
+            </Switch>
           )}
         />
         {v.digest ? (

@@ -1,7 +1,8 @@
 // Filters and display choices of the board. They live in the address (?site=&op=&mine=&alpha=
 // &days=&width=) so a board can be bookmarked or sent to the crew as it is.
-import { useState, type ReactNode } from 'react';
+import { useState } from 'react';
 import { FieldShell, Select } from '../../../components/ui';
+import { Switch } from '../../../components/ui/switch';
 
 export type HourWidth = 'narrow' | 'wide';
 
@@ -24,28 +25,6 @@ interface BoardControlsProps {
   operations: { id: string; name: string }[];
   /** Whether the user has operations assigned (the "my operations" filter makes sense). */
   hasOwnOperations: boolean;
-}
-
-/** A labelled on/off switch, 44 px tall; its name is its visible text. */
-export function Switch({ on, onToggle, children, testId }: { on: boolean; onToggle: () => void; children: ReactNode; testId?: string }) {
-  return (
-    <button
-      type="button"
-      role="switch"
-      aria-checked={on}
-      onClick={onToggle}
-      data-testid={testId}
-      className="inline-flex min-h-11 items-center gap-3 rounded-lg border border-line bg-surface px-3 text-left text-sm font-semibold hover:border-accent"
-    >
-      <span className={`relative inline-flex h-6 w-10 shrink-0 items-center rounded-full transition ${on ? 'bg-accent' : 'bg-st-nodata'}`} aria-hidden>
-        <span className={`absolute size-5 rounded-full bg-white shadow transition-all ${on ? 'left-[1.15rem]' : 'left-0.5'}`} />
-      </span>
-      <span>
-        {children}
-        <span className="ml-1 font-normal text-ink-soft">{on ? 'on' : 'off'}</span>
-      </span>
-    </button>
-  );
 }
 
 /** Wide screens open the filters and the key at first; a phone keeps them folded under the board's summary. */
@@ -107,10 +86,10 @@ export function BoardControls({ filters, onChange, sites, operations, hasOwnOper
       </div>
       </details>
       <div className="flex flex-wrap gap-2">
-        <Switch on={filters.alpha} onToggle={() => onChange({ alpha: !filters.alpha })} testId="alpha-switch">
+        <Switch on={filters.alpha} onChange={(alpha) => onChange({ alpha })} testId="alpha-switch">
           Forecast limits (alpha)
         </Switch>
-        <Switch on={filters.mine} onToggle={() => onChange({ mine: !filters.mine })} testId="mine-switch">
+        <Switch on={filters.mine} onChange={(mine) => onChange({ mine })} testId="mine-switch">
           My operations
         </Switch>
         {filters.mine && !hasOwnOperations ? (

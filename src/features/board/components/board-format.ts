@@ -5,67 +5,48 @@
 import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import { formatInstant } from '../../../../shared/dates';
-import type { HourStatus, LimitCheck, OccurrenceStatus } from '../../../../shared/api-types-plan';
+import type { HourStatus, OccurrenceStatus } from '../../../../shared/api-types-plan';
+import { limitWords } from '../../../../shared/limit-words';
+import { HOUR_STATUS_ORDER, OCCURRENCE_STATUS_WORD, STATUS_WORDS, type StatusWording } from '../../../../shared/status-words';
 import { TRANSFORM_FLAG } from '../../../../shared/waves/transform';
 import { fixedWithUnit, formatAt, zoneShort } from '../../../lib/format';
 
-/** The status code of the board: our own colours, a letter and a pattern for each status. */
-export const STATUS_META: Record<HourStatus, { word: string; letter: string; cell: string; explain: string }> = {
-  workable: {
-    word: 'workable',
-    letter: 'W',
-    cell: 'bg-st-workable text-deep',
-    explain: 'every limit met, with the forecast limit OPWF on Hs',
-  },
-  marginal: {
-    word: 'marginal',
-    letter: 'M',
-    cell: 'bg-st-marginal pattern-marginal text-deep',
-    explain: 'met at the operation limit OPLIM, not at the forecast limit OPWF: not workable on this forecast',
-  },
-  not_workable: {
-    word: 'not workable',
-    letter: 'X',
-    cell: 'bg-st-notworkable pattern-notworkable text-white',
-    explain: 'at least one limit broken',
-  },
-  no_data: {
-    word: 'no data',
-    letter: '?',
-    cell: 'bg-st-nodata pattern-nodata text-ink',
-    explain: 'a value the limits need is missing: never counted as workable',
-  },
+const CELL: Record<HourStatus, string> = {
+  workable: 'bg-st-workable text-deep',
+  marginal: 'bg-st-marginal pattern-marginal text-deep',
+  not_workable: 'bg-st-notworkable pattern-notworkable text-white',
+  no_data: 'bg-st-nodata pattern-nodata text-ink',
 };
-
-export const STATUS_ORDER: HourStatus[] = ['workable', 'marginal', 'not_workable', 'no_data'];
 
 /**
- * An occurrence of a recurring operation, judged on [start, start + TR): the word, the letter and
- * the colour of its mark on the board (the colours of the hour statuses it sums up).
+ * The status code of the board: our own colours and patterns, with the word, the letter and the
+ * meaning of each status from the product's one vocabulary (shared/status-words.ts).
  */
-export const OCCURRENCE_META: Record<OccurrenceStatus, { word: string; letter: string; mark: string }> = {
-  go: { word: 'go', letter: 'G', mark: 'bg-st-workable text-deep' },
-  marginal: { word: 'marginal', letter: 'M', mark: 'bg-st-marginal text-deep' },
-  no_go: { word: 'no-go', letter: 'X', mark: 'bg-st-notworkable text-white' },
-  no_data: { word: 'no data', letter: '?', mark: 'bg-st-nodata text-ink' },
-  information: { word: 'not weather-restricted (information)', letter: 'i', mark: 'bg-surface-2 text-ink' },
+export const STATUS_META: Record<HourStatus, StatusWording & { cell: string }> = Object.fromEntries(
+  HOUR_STATUS_ORDER.map((s) => [s, { ...STATUS_WORDS[s], cell: CELL[s] }]),
+) as Record<HourStatus, StatusWording & { cell: string }>;
+
+export const STATUS_ORDER = HOUR_STATUS_ORDER;
+
+const MARK: Record<OccurrenceStatus, string> = {
+  go: 'bg-st-workable text-deep',
+  marginal: 'bg-st-marginal text-deep',
+  no_go: 'bg-st-notworkable text-white',
+  no_data: 'bg-st-nodata text-ink',
+  information: 'bg-surface-2 text-ink',
 };
 
-/** Plain words for the limit names the engine reports as the limiting factor. */
-export const LIMIT_WORDS: Record<LimitCheck['limit'], string> = {
-  hs: 'Hs',
-  hsTpCurve: 'the Hs-Tp curve',
-  tpMin: 'Tp min',
-  tpMax: 'Tp max',
-  tpBand: 'an excluded Tp band',
-  bedVelocity: 'bed velocity',
-  wind: 'wind',
-};
+/**
+ * An occurrence of a recurring operation, judged on [start, start + TR): the colour of its mark
+ * on the board (the colours of the hour statuses it sums up), with the word and the letter of the
+ * product's one vocabulary (shared/status-words.ts: an occurrence is said as an hour is).
+ */
+export const OCCURRENCE_META = Object.fromEntries(
+  (Object.keys(MARK) as OccurrenceStatus[]).map((s) => [s, { ...STATUS_WORDS[OCCURRENCE_STATUS_WORD[s]], mark: MARK[s] }]),
+) as Record<OccurrenceStatus, StatusWording & { mark: string }>;
 
-export function limitWord(name: string | null | undefined): string | null {
-  if (!name) return null;
-  return (LIMIT_WORDS as Record<string, string>)[name] ?? name;
-}
+/** The limit named in words, as the e-mails say it (shared/limit-words.ts). */
+export const limitWord = limitWords;
 
 /** An instant as text in a time zone, e.g. 'Tue 3 Dec 14:00' (date-fns pattern). */
 export const formatIn = formatAt;

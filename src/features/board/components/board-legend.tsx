@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { statusLabel } from '../../../../shared/status-words';
 import { OCCURRENCE_META, STATUS_META, STATUS_ORDER } from './board-format';
 import { isWideScreen } from './board-controls';
 
@@ -20,9 +21,7 @@ export function BoardLegend({ alpha }: { alpha: boolean }) {
               {STATUS_META[s].letter}
             </span>
             <span>
-              <strong>
-                {STATUS_META[s].letter} {STATUS_META[s].word[0].toUpperCase() + STATUS_META[s].word.slice(1)}
-              </strong>
+              <strong>{statusLabel(s)}</strong>
               : {s === 'workable' && !alpha ? 'every limit met at the operation limits OPLIM' : STATUS_META[s].explain}
               {s === 'marginal' && !alpha ? ' (cannot occur while forecast limits are off)' : ''}.
             </span>

@@ -5,6 +5,7 @@
 // The choices live in the address (?dataset=&alpha=off&campaign=&month=) so a view can be shared.
 import { useParams, useSearchParams } from 'react-router-dom';
 import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner, Term } from '../../../components/ui';
+import { Switch } from '../../../components/ui/switch';
 import { useProjectAccess } from '../../../api/projects';
 import { useStatisticsDatasets } from '../../../api/datasets';
 import { useOperations } from '../../../api/operations';
@@ -28,27 +29,6 @@ const spanWords = (d: { start: string; end: string }) => {
   const days = Math.round((Date.parse(d.end) - Date.parse(d.start)) / 86_400_000);
   return days < 62 ? `${days} day${days === 1 ? '' : 's'}` : `about ${Math.round(days / 30.44)} months`;
 };
-
-function AlphaSwitch({ on, onToggle }: { on: boolean; onToggle: () => void }) {
-  return (
-    <button
-      type="button"
-      role="switch"
-      aria-checked={on}
-      onClick={onToggle}
-      data-testid="alpha-switch"
-      className="inline-flex min-h-11 items-center gap-3 rounded-lg border border-line bg-surface px-3 text-left text-sm font-semibold hover:border-accent"
-    >
-      <span className={`relative inline-flex h-6 w-10 shrink-0 items-center rounded-full transition ${on ? 'bg-accent' : 'bg-st-nodata'}`} aria-hidden>
-        <span className={`absolute size-5 rounded-full bg-white shadow transition-all ${on ? 'left-[1.15rem]' : 'left-0.5'}`} />
-      </span>
-      <span>
-        Forecast limits <Term k="alpha">(α)</Term>
-        <span className="ml-1 font-normal text-ink-soft">{on ? 'on' : 'off'}</span>
-      </span>
-    </button>
-  );
-}
 
 export function DowntimePage() {
   const { projectId = '' } = useParams();
@@ -138,7 +118,10 @@ export function DowntimePage() {
             </Select>
           </FieldShell>
         </div>
-        <AlphaSwitch on={alpha} onToggle={() => set('alpha', alpha ? 'off' : null)} />
+        <Switch on={alpha} onChange={(on) => set('alpha', on ? null : 'off')} testId="alpha-switch">
+          Forecast limits
+        </Switch>
+        <Term k="alpha" />
         <p className="w-full text-sm" data-testid="downtime-basis">
           <span className="font-semibold">Basis of every figure on this page</span> (heat map, table, campaign durations and the ledger’s expected downtime):{' '}
           {hindcast ? hindcast.name : 'no hindcast yet'},{' '}

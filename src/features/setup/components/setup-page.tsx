@@ -1,6 +1,6 @@
-import { useEffect, useRef, type KeyboardEvent } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
+import { Tabs } from '../../../components/ui/tabs';
 import { useProjectAccess } from '../../../api/projects';
 import { usePageZone } from '../../../components/page-zone';
 import { localTimeZone, zoneStatement } from '../../../../shared/dates';
@@ -33,21 +33,10 @@ export function SetupPage() {
   usePageZone(zoneStatement(localTimeZone(), 'your own clock'));
   const [params, setParams] = useSearchParams();
   const access = useProjectAccess(projectId);
-  const tabRefs = useRef<(HTMLButtonElement | null)[]>([]);
   const raw = params.get('tab');
   const tab: SetupTab = isTab(raw) ? raw : 'worksites';
 
-  // On a phone the tab list scrolls sideways: keep the open tab in view (without scrolling the page).
-  useEffect(() => {
-    const el = tabRefs.current[SETUP_TABS.findIndex((t) => t.id === tab)];
-    const list = el?.parentElement;
-    if (!el || !list) return;
-    if (el.offsetLeft < list.scrollLeft || el.offsetLeft + el.offsetWidth > list.scrollLeft + list.clientWidth) {
-      list.scrollLeft = el.offsetLeft - (list.clientWidth - el.offsetWidth) / 2;
-    }
-  }, [tab, access.isPending]);
-
-  const select = (next: SetupTab, focus = false) => {
+  const select = (next: SetupTab) =>
     setParams(
       (p) => {
         const q = new URLSearchParams(p);
@@ -56,17 +45,6 @@ export function SetupPage() {
       },
       { replace: false },
     );
-    if (focus) tabRefs.current[SETUP_TABS.findIndex((t) => t.id === next)]?.focus();
-  };
-  // Arrow keys move along the tab list (WAI-ARIA tabs pattern, automatic activation).
-  const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
-    const i = SETUP_TABS.findIndex((t) => t.id === tab);
-    const n = SETUP_TABS.length;
-    const to = e.key === 'ArrowRight' ? (i + 1) % n : e.key === 'ArrowLeft' ? (i - 1 + n) % n : e.key === 'Home' ? 0 : e.key === 'End' ? n - 1 : -1;
-    if (to < 0) return;
-    e.preventDefault();
-    select(SETUP_TABS[to].id, true);
-  };
 
   if (access.isPending) return <Spinner label="Opening the setup" />;
   if (access.error) return <ErrorNotice error={access.error} />;
@@ -82,41 +60,18 @@ export function SetupPage() {
             : 'Worksites, operations and their weather limits, as the marine coordinator set them. You can read everything here; changes are made by the coordinator.'
         }
       />
-      <div role="tablist" aria-label="Setup sections" className="no-print mb-4 flex gap-1 overflow-x-auto rounded-lg bg-surface-2 p-1" onKeyDown={onKeyDown}>
-        {SETUP_TABS.map((t, i) => {
-          const active = t.id === tab;
-          return (
-            <button
-              key={t.id}
-              ref={(el) => {
-                tabRefs.current[i] = el;
-              }}
-              type="button"
-              role="tab"
-              id={`setup-tab-${t.id}`}
-              aria-selected={active}
-              aria-controls={`setup-panel-${t.id}`}
-              tabIndex={active ? 0 : -1}
-              onClick={() => select(t.id)}
-              className={`inline-flex min-h-11 shrink-0 items-center rounded-md px-3 text-sm font-semibold whitespace-nowrap transition ${active ? 'bg-surface text-ink shadow-sm ring-1 ring-line' : 'text-ink-soft hover:text-ink'}`}
-            >
-              {t.label}
-            </button>
-          );
-        })}
-      </div>
       {!canEdit ? (
         <div className="mb-4">
           <Notice>Read-only: your role in this project lets you see the setup but not change it.</Notice>
         </div>
       ) : null}
-      <div role="tabpanel" id={`setup-panel-${tab}`} aria-labelledby={`setup-tab-${tab}`}>
+      <Tabs label="Setup sections" tabs={SETUP_TABS} selected={tab} onSelect={select}>
         {tab === 'worksites' ? <WorksitesPanel projectId={projectId} canEdit={canEdit} /> : null}
         {tab === 'operations' ? <OperationsPanel projectId={projectId} canEdit={canEdit} /> : null}
         {tab === 'alpha' ? <AlphaPanel projectId={projectId} canEdit={canEdit} /> : null}
         {tab === 'audit' ? <AuditPanel projectId={projectId} /> : null}
         {tab === 'exchange' ? <ExchangePanel projectId={projectId} canEdit={canEdit} /> : null}
-      </div>
+      </Tabs>
     </div>
   );
 }

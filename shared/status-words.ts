@@ -1,0 +1,76 @@
+/**
+ * The one set of status words and letters: the board and its key, the alert e-mails, the daily
+ * digest and the calendar feed all take theirs from here, so a crew reads the same word and the
+ * same letter for a status wherever it appears (docs/domain.md#hourly-status).
+ *
+ * An occurrence of a recurring operation is judged over its TR (docs/domain.md#weather-restricted)
+ * and said in the same words as an hour: "workable" when every hour of its TR is workable (the
+ * engine's `go`), "not workable" when one is not (`no_go`), and so on. An operation that is not
+ * weather-restricted gets "not weather-restricted" instead of a verdict.
+ */
+import type { HourStatus, OccurrenceStatus } from './api-types-plan';
+
+export type StatusWord = HourStatus | 'information';
+
+export interface StatusWording {
+  /** The word in running text, lower case: "not workable". */
+  word: string;
+  /** One character beside the colour, so the status reads without colour. */
+  letter: string;
+  /** What it means, for the board's key. */
+  explain: string;
+}
+
+export const STATUS_WORDS: Record<StatusWord, StatusWording> = {
+  workable: { word: 'workable', letter: 'W', explain: 'every limit met, with the forecast limit OPWF on Hs' },
+  marginal: {
+    word: 'marginal',
+    letter: 'M',
+    explain: 'met at the operation limit OPLIM, not at the forecast limit OPWF: not workable on this forecast',
+  },
+  not_workable: { word: 'not workable', letter: 'X', explain: 'at least one limit broken' },
+  no_data: { word: 'no data', letter: '?', explain: 'a value the limits need is missing: never counted as workable' },
+  information: { word: 'not weather-restricted', letter: 'i', explain: 'the operation has no weather limits: shown for information' },
+};
+
+/** The hour statuses in the order of the board's key. */
+export const HOUR_STATUS_ORDER: HourStatus[] = ['workable', 'marginal', 'not_workable', 'no_data'];
+
+/** An occurrence's status in the words of an hour's (see the module comment). */
+export const OCCURRENCE_STATUS_WORD: Record<OccurrenceStatus, StatusWord> = {
+  go: 'workable',
+  marginal: 'marginal',
+  no_go: 'not_workable',
+  no_data: 'no_data',
+  information: 'information',
+};
+
+/** The verdicts an occurrence of a weather-restricted operation can get, in running text. */
+export const OCCURRENCE_VERDICTS = `${STATUS_WORDS.workable.word}, ${STATUS_WORDS.marginal.word} or ${STATUS_WORDS.not_workable.word}`;
+
+const capitalised = (s: string) => s[0].toUpperCase() + s.slice(1);
+
+/** The letter and the word, as a label: "X Not workable". */
+export function statusLabel(status: StatusWord): string {
+  return `${STATUS_WORDS[status].letter} ${capitalised(STATUS_WORDS[status].word)}`;
+}
+
+/** An occurrence's label: "X Not workable" for `no_go`. */
+export const occurrenceLabel = (status: OccurrenceStatus) => statusLabel(OCCURRENCE_STATUS_WORD[status]);
+
+/**
+ * Whether and when an operation may start, in the alerts, the digest and on screen. `nextStart`
+ * and `nextWindow` are followed by a date.
+ */
+export const START_WORDS = {
+  startNow: 'may start now',
+  noLongerStartNow: 'may no longer start now',
+  nextStart: 'next start',
+  noStart: 'no start possible in this forecast',
+  nextWindow: 'next window',
+  noWindow: 'no window in this forecast',
+  newWindow: 'new window',
+  windowLost: 'window lost',
+  earliestMoved: 'earliest start moved',
+  nextOccurrence: 'next occurrence',
+} as const;
