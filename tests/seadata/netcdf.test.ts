@@ -129,19 +129,19 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
     expect(plan.pointDims).toEqual(['latitude', 'longitude']);
     const points = listGridPoints(f, plan);
     expect(points.map((p) => [p.lat, p.lon])).toEqual([
-      [59, -4], [59, -3.5], [59, -3],
-      [59.5, -4], [59.5, -3.5], [59.5, -3],
-      [60, -4], [60, -3.5], [60, -3],
+      [52, -6.5], [52, -6], [52, -5.5],
+      [52.5, -6.5], [52.5, -6], [52.5, -5.5],
+      [53, -6.5], [53, -6], [53, -5.5],
     ]);
     scanMissingShares(f, plan, points);
-    // Script: (59.5, -3) and (60, -3) all fill; (59, -3) 30 of 48 missing.
+    // Script: (52.5, -5.5) and (53, -5.5) all fill; (52, -5.5) 30 of 48 missing.
     expect(points.map((p) => p.missingShare)).toEqual([0, 0, 0.625, 0, 0, 1, 0, 0, 1]);
-    // Data point at 59.6 N 2.9 W: nearest is the land point (59.5, -3); the sea point chosen is (59.5, -3.5).
-    const best = nearestSeaPoint(points, 59.6, -2.9)!;
+    // Data point of the demo project, 52.38 N 5.62 W: the nearest point (52.5, -5.5) is land at
+    // 15.6 km, (52, -5.5) is mostly missing at 43.0 km; the sea point chosen is (52.5, -6) at
+    // 29.0 km (haversine on the mean Earth radius 6371.0088 km, computed separately in Python).
+    const best = nearestSeaPoint(points, 52.38, -5.62)!;
     expect(best.point.index).toEqual([1, 1]);
-    // Haversine on the mean Earth radius 6371.0088 km, computed by hand: 
-    // dlat 0.1°, dlon 0.6° at 59.55° → about 35.1 km.
-    expect(best.distanceM / 1000).toBeCloseTo(35.1, 0);
+    expect(best.distanceM / 1000).toBeCloseTo(29.009, 2);
     const r = readCfPoint(f, plan, { index: best.point.index });
     expectSameAsCsv(r.records, 'grid-3x3-j1-i1.csv', ['hs', 'tp', 'dir', 'wind', 'windDir']);
   });
