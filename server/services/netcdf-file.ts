@@ -10,15 +10,9 @@
 import fs from 'node:fs';
 import h5wasm from 'h5wasm/node';
 import { NetCDFReader } from 'netcdfjs';
-import { ImportError, type NcAttr, type NcFile, type NcVar } from '../../shared/seadata';
+import { ImportError, netcdfKind, type NcAttr, type NcFile, type NcVar } from '../../shared/seadata';
 
-/** The kinds of NetCDF file by their first bytes, or null. */
-export function netcdfKind(head: Uint8Array): 'netcdf4' | 'classic' | null {
-  if (head.length >= 4 && head[0] === 0x43 && head[1] === 0x44 && head[2] === 0x46 && (head[3] === 1 || head[3] === 2 || head[3] === 5)) return 'classic';
-  const hdf = [0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a];
-  if (head.length >= 8 && hdf.every((b, i) => head[i] === b)) return 'netcdf4';
-  return null;
-}
+export { netcdfKind };
 
 /** An open NetCDF file; `close()` releases it. */
 export interface OpenNcFile extends NcFile {

@@ -82,6 +82,7 @@ export type { DatasetKind, ImportFormat, ImportForm, ImportFormInput } from './i
 export { binaryMark, detectFormat } from './detect-format';
 
 // NetCDF (CF conventions)
+export { netcdfKind } from './detect-format';
 export {
   planCfImport,
   listGridPoints,

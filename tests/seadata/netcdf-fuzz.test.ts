@@ -27,7 +27,7 @@ async function attempt(bytes: Uint8Array): Promise<'read' | 'refused'> {
     return 'read';
   } catch (err) {
     if (!(err instanceof HttpError) || (err.status !== 400 && err.status !== 413)) {
-      throw new Error(`not a clear refusal: ${(err as Error)?.stack ?? String(err)}`);
+      throw new Error(`not a clear refusal: ${(err as Error)?.stack ?? String(err)}`, { cause: err });
     }
     expect(err.message.length).toBeGreaterThan(20);
     return 'refused';
