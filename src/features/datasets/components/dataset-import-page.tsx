@@ -1,4 +1,4 @@
-import { useMemo, useRef, useState, type FormEvent } from 'react';
+import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
@@ -202,6 +202,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
   const importMutation = useImportDataset(project.id);
   const pointsQuery = useNetcdfPoints(project.id);
   const abort = useRef<AbortController | null>(null);
+  // Set once the user picks a name or kind: the file's name and format no longer fill them in.
+  const [chosenByUser, setChosenByUser] = useState({ name: false, kind: false });
   const { head: read, choose } = useFileHead(MAX_UPLOAD_BYTES);
   const file = read.file;
   const head = read.text;
@@ -314,13 +316,15 @@ function ImportForm({ project }: { project: ProjectDetail }) {
     setFileError(null);
     importMutation.reset();
     pointsQuery.reset();
-    if (f && !form.getFieldState('name').isDirty) setValue('name', stripExtension(f.name));
-    const got = await choose(f);
-    if (got.file !== f || !f) return;
-    if (!form.getFieldState('kind').isDirty) {
-      setValue('kind', got.text !== null && detectFormat(got.text) === 'ndbc' ? 'observation' : 'hindcast');
-    }
+    if (f && !chosenByUser.name) setValue('name', stripExtension(f.name));
+    await choose(f);
   }
+
+  // The kind follows the file's format (buoy text: observation) until the user picks one.
+  const detectedNdbc = head !== null && detectFormat(head) === 'ndbc';
+  useEffect(() => {
+    if (file && !chosenByUser.kind) setValue('kind', detectedNdbc ? 'observation' : 'hindcast');
+  }, [file, detectedNdbc, chosenByUser.kind, setValue]);
 
   function onCsvChange(patch: Partial<CsvOptionsValues>) {
     if (!preview) return;
@@ -465,10 +469,10 @@ function ImportForm({ project }: { project: ProjectDetail }) {
           <h2 className="mb-3 text-lg font-bold">2. About the data</h2>
           <div className="grid gap-4 md:grid-cols-2">
             <FieldShell label="Name" htmlFor="name" error={errors.name?.message} hint="Shown in lists and plans.">
-              <Input id="name" maxLength={120} invalid={!!errors.name} {...register('name')} />
+              <Input id="name" maxLength={120} invalid={!!errors.name} {...register('name', { onChange: () => setChosenByUser((c) => ({ ...c, name: true })) })} />
             </FieldShell>
             <FieldShell label="Kind" htmlFor="kind" hint={KIND_HINTS[v.kind]}>
-              <Select id="kind" {...register('kind')}>
+              <Select id="kind" {...register('kind', { onChange: () => setChosenByUser((c) => ({ ...c, kind: true })) })}>
                 {DATASET_KINDS.map((k) => (
                   <option key={k} value={k}>
                     {KIND_LABELS[k]}
