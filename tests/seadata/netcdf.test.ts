@@ -146,6 +146,19 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
     expectSameAsCsv(r.records, 'grid-3x3-j1-i1.csv', ['hs', 'tp', 'dir', 'wind', 'windDir']);
   });
 
+  it('the same grid as a classic 64-bit-offset file reads the same values at every point (our own byte-offset reads)', async () => {
+    const f = await openFixture('grid-3x3-classic.nc');
+    expect(f.format).toBe('classic');
+    const plan = planCfImport(f);
+    const points = listGridPoints(f, plan);
+    scanMissingShares(f, plan, points);
+    expect(points.map((p) => p.missingShare)).toEqual([0, 0, 0.625, 0, 0, 1, 0, 0, 1]);
+    for (const p of points) {
+      const [j, i] = p.index;
+      expectSameAsCsv(readCfPoint(f, plan, { index: p.index }).records, `grid-3x3-j${j}-i${i}.csv`, ['hs', 'tp', 'dir', 'wind', 'windDir']);
+    }
+  });
+
   it('every sea point reads the values the script wrote there', async () => {
     const f = await openFixture('grid-3x3.nc');
     const plan = planCfImport(f);
