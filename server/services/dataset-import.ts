@@ -223,8 +223,9 @@ async function importNetcdfUpload(
       gridPoint: form.gridPoint,
       columns: form.variables,
       waterLevelOffsetM: form.waterLevelOffset,
-      onVariable: (done, total) =>
-        args.onProgress?.({ phase: 'parsing', bytesRead: Math.round((args.file.size * done) / total), totalBytes: args.file.size, rows: done }),
+      // Progress as the share of the chosen variables read, in records of the point's series.
+      onVariable: (done, total, n) =>
+        args.onProgress?.({ phase: 'parsing', bytesRead: Math.round((args.file.size * done) / total), totalBytes: args.file.size, rows: Math.round((n * done) / total) }),
     }),
   );
   const records = result.records;

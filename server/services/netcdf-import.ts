@@ -103,7 +103,7 @@ export function readNetcdfPoint(
     gridPoint?: number[];
     columns?: NcColumnMap;
     waterLevelOffsetM?: number;
-    onVariable?: (done: number, total: number) => void;
+    onVariable?: (done: number, total: number, records: number) => void;
   },
 ): { result: CfPointResult; info: NetcdfImportInfo } {
   const plan = planCfImport(file, args.columns ?? {});

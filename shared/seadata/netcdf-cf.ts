@@ -577,8 +577,8 @@ export interface CfPointOptions {
    * = file level + offset). Without it the water level is refused.
    */
   waterLevelOffsetM?: number;
-  /** Called after each variable is read. */
-  onVariable?: (done: number, total: number) => void;
+  /** Called after each variable is read, with the number of times (records) of the file. */
+  onVariable?: (done: number, total: number, records: number) => void;
 }
 
 /** A partition series as read (SI, directions coming-from), NaN = missing. */
@@ -641,7 +641,7 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     if (c.goingTo) toFrom(values);
     series.set(c.role, values);
     if (c.goingTo) notes.push(`${v.name}: going-to direction (${c.via}) turned to coming-from (+180°)`);
-    options.onVariable?.(++done, readers.length);
+    options.onVariable?.(++done, readers.length, n);
   }
 
   // Wind from components: speed and the direction it comes from (meteorological convention).
