@@ -17,6 +17,7 @@ import {
   readCfPoint,
   scanMissingShares,
   unpack,
+  type NcFile,
   type SeaRecords,
 } from '../../shared/seadata';
 import { openNetcdf, type OpenNcFile } from '../../server/services/netcdf-file';
@@ -165,6 +166,49 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
     for (const [j, i] of [[0, 0], [0, 2], [2, 1]]) {
       expectSameAsCsv(readCfPoint(f, plan, { index: [j, i] }).records, `grid-3x3-j${j}-i${i}.csv`, ['hs', 'tp', 'dir', 'wind', 'windDir']);
     }
+  });
+});
+
+describe('2-D latitude and longitude (CF 5.2, a curvilinear grid)', () => {
+  it('lists the points from 2-D coordinates named by the coordinates attribute and picks the nearest sea point', () => {
+    // A 2×2 rotated grid written here by hand: lat(y, x), lon(y, x) in 0-360, one land point.
+    const lat = [60.0, 60.1, 60.4, 60.5];
+    const lon = [359.8, 0.2, 359.7, 0.1];
+    const hs = [
+      [1, 2, NaN, 4],
+      [1.1, 2.1, NaN, 4.1],
+    ]; // two times × four points; point (1,0) is land
+    const file: NcFile = {
+      format: 'netcdf4',
+      variables: [
+        { name: 'time', dims: ['time'], shape: [2], attrs: { standard_name: 'time', units: 'hours since 2020-01-01' } },
+        { name: 'nav_lat', dims: ['y', 'x'], shape: [2, 2], attrs: { units: 'degrees_north' } },
+        { name: 'nav_lon', dims: ['y', 'x'], shape: [2, 2], attrs: { units: 'degrees_east' } },
+        { name: 'swh', dims: ['time', 'y', 'x'], shape: [2, 2, 2], attrs: { standard_name: 'sea_surface_wave_significant_height', coordinates: 'nav_lat nav_lon' } },
+      ],
+      readRaw(name, start, count) {
+        if (name === 'time') return Float64Array.of(0, 1);
+        if (name === 'nav_lat') return Float64Array.from(lat);
+        if (name === 'nav_lon') return Float64Array.from(lon);
+        const out: number[] = [];
+        for (let t = start[0]; t < start[0] + count[0]; t++)
+          for (let y = start[1]; y < start[1] + count[1]; y++) for (let x = start[2]; x < start[2] + count[2]; x++) out.push(hs[t][y * 2 + x]);
+        return Float64Array.from(out);
+      },
+    };
+    const plan = planCfImport(file);
+    expect(plan.pointDims).toEqual(['y', 'x']);
+    const points = listGridPoints(file, plan);
+    expect(points.map((p) => [p.lat, Math.round(p.lon * 10) / 10])).toEqual([[60, -0.2], [60.1, 0.2], [60.4, -0.3], [60.5, 0.1]]);
+    scanMissingShares(file, plan, points);
+    expect(points.map((p) => p.missingShare)).toEqual([0, 0, 1, 0]);
+    // Data point 60.42 N 0.28 W: the land point (60.4, -0.3) is nearest; next is (60.5, 0.1), about
+    // 0.08° of latitude (8.9 km) and 0.38° of longitude at 60.5° (20.8 km) away: ≈ 22.6 km
+    // (flat-earth estimate, good to a few metres at this distance).
+    const best = nearestSeaPoint(points, 60.42, -0.28)!;
+    expect(best.point.index).toEqual([1, 1]);
+    expect(best.distanceM / 1000).toBeCloseTo(22.6, 0);
+    expect(Array.from(readCfPoint(file, plan, { index: [1, 1] }).records.hs)).toEqual([4, 4.1]);
   });
 });
 
