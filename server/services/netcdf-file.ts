@@ -110,7 +110,7 @@ async function openNetcdf4(path: string): Promise<OpenNcFile> {
       })();
       const dims = shape.map((_, k) => {
         if (isScale && shape.length === 1) return key; // a coordinate variable is its own dimension
-        let scales: string[] = [];
+        let scales: string[];
         try {
           scales = node.get_attached_scales(k);
         } catch {
