@@ -3,6 +3,8 @@
 // to the demo data point (52.38 N 5.62 W: the nearest grid point is land, so (52.5 N, 6.0 W) at
 // 29.01 km, haversine computed separately), imports it and sees the dataset's monthly summary.
 // Needs the built client (`npx vite build`).
+import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
@@ -63,5 +65,27 @@ describe('NetCDF import page', () => {
     await monthly.waitFor({ timeout: 30_000 });
     expect(await monthly.innerText()).toMatch(/Mar/);
     await screenshot(page, 'netcdf-imported');
+  });
+
+  it('still imports a CSV through the same form (columns found, time zone changed, preview shown)', { timeout: 180_000 }, async () => {
+    const { page } = browser;
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-e2e-csv-'));
+    const csv = path.join(dir, 'small-hindcast.csv');
+    // Three hourly rows written here; with the zone Europe/Oslo (UTC+1 in January) 01:00 local is 00:00 UTC.
+    fs.writeFileSync(csv, 'time,Hs [m],Tp (s),dir\n2024-01-01 01:00,1.2,8.5,270\n2024-01-01 02:00,1.3,8.6,275\n2024-01-01 03:00,1.4,8.7,280\n');
+    try {
+      await page.goto(`${server.baseUrl}${new URL(page.url()).pathname.replace(/\/sea-data\/.*$/, '/sea-data/import')}`);
+      await page.getByRole('heading', { name: 'Import sea data' }).waitFor();
+      await page.locator('#file').setInputFiles(csv);
+      await page.getByRole('heading', { name: '3. Columns and preview' }).waitFor();
+      expect(await page.locator('#name').inputValue()).toBe('small-hindcast');
+      await page.locator('#time-zone').fill('Europe/Oslo');
+      await page.getByRole('button', { name: 'Import the file' }).click();
+      await page.waitForURL(/\/sea-data\/[0-9a-f-]{36}$/, { timeout: 60_000 });
+      await page.getByText('Imported 3 records').waitFor();
+      await page.getByText(/Europe\/Oslo/).first().waitFor();
+    } finally {
+      fs.rmSync(dir, { recursive: true, force: true });
+    }
   });
 });
