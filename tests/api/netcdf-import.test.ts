@@ -40,8 +40,8 @@ describe('NetCDF import route', () => {
     expect(res.body.points).toHaveLength(9);
     expect(res.body.nearest).toEqual([1, 1]);
     expect(res.body.dimensions).toEqual(['latitude', 'longitude']);
-    // The land point (52.5, -5.5) is listed with all values missing, 15.63 km away.
-    expect(res.body.points[5]).toMatchObject({ index: [1, 2], lat: 52.5, lon: -5.5, missingShare: 1, distanceKm: 15.63 });
+    // The land point (50, -6) is listed with all values missing, 4.64 km away.
+    expect(res.body.points[5]).toMatchObject({ index: [1, 2], lat: 50, lon: -6, missingShare: 1, distanceKm: 4.64 });
     expect(res.body.times).toEqual({ count: 48, first: '2024-03-01T00:00:00.000Z', last: '2024-03-02T23:00:00.000Z' });
     expect(await count()).toBe(before);
   });
@@ -55,14 +55,14 @@ describe('NetCDF import route', () => {
       .attach('file', path.join(DIR, 'grid-3x3.nc'));
     expect(res.status, res.text).toBe(201);
     expect(res.body.records).toBe(48);
-    expect(res.body.netcdf.point).toMatchObject({ index: [1, 1], lat: 52.5, lon: -6, distanceKm: 29.01, chosen: 'nearest' });
+    expect(res.body.netcdf.point).toMatchObject({ index: [1, 1], lat: 50, lon: -6.5, distanceKm: 36.86, chosen: 'nearest' });
     const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
     const want = csvColumn('grid-3x3-j1-i1.csv', 'hs');
     recs.body.hs.forEach((h: number, i: number) => expect(Math.abs(h - want[i]!)).toBeLessThan(1e-6));
     const wind = csvColumn('grid-3x3-j1-i1.csv', 'wind');
     recs.body.wind.forEach((w: number, i: number) => expect(Math.abs(w - wind[i]!)).toBeLessThan(1e-5));
     const detail = await as.coordinator.get(`${base}/${res.body.id}`);
-    expect(JSON.stringify(detail.body)).toMatch(/29\.01 km from the data point/);
+    expect(JSON.stringify(detail.body)).toMatch(/36\.86 km from the data point/);
   });
 
   it('imports another grid point when the coordinator picks it', async () => {
@@ -74,7 +74,7 @@ describe('NetCDF import route', () => {
       .field('gridPoint', '2,0')
       .attach('file', path.join(DIR, 'grid-3x3.nc'));
     expect(res.status, res.text).toBe(201);
-    expect(res.body.netcdf.point).toMatchObject({ index: [2, 0], lat: 53, lon: -6.5, chosen: 'given' });
+    expect(res.body.netcdf.point).toMatchObject({ index: [2, 0], lat: 50.5, lon: -7, chosen: 'given' });
     const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
     const want = csvColumn('grid-3x3-j2-i0.csv', 'tp');
     recs.body.tp.forEach((x: number, i: number) => expect(Math.abs(x - want[i]!)).toBeLessThan(1e-5));

@@ -1,7 +1,7 @@
 // NetCDF import in the browser: the coordinator chooses the 3×3 grid fixture (written by Python's
 // netCDF4, tests/fixtures/netcdf/make_fixtures.py), lists its points, keeps the nearest sea point
-// to the demo data point (52.38 N 5.62 W: the nearest grid point is land, so (52.5 N, 6.0 W) at
-// 29.01 km, haversine computed separately), imports it and sees the dataset's monthly summary.
+// to the demo data point (50.041 N 5.988 W: the nearest grid point is land, so (50.0 N, 6.5 W) at
+// 36.86 km, haversine computed separately), imports it and sees the dataset's monthly summary.
 // Needs the built client (`npx vite build`).
 import fs from 'node:fs';
 import os from 'node:os';
@@ -45,7 +45,7 @@ describe('NetCDF import page', () => {
     const land = table.locator('tr[data-point="1,2"]');
     expect(await land.locator('input[type=radio]').isDisabled()).toBe(true);
     const nearest = table.locator('tr[data-point="1,1"]');
-    expect((await nearest.innerText()).replace(/\s+/g, ' ')).toMatch(/52\.500° N, 6\.000° W 29\.01 km 0 % Nearest sea point/);
+    expect((await nearest.innerText()).replace(/\s+/g, ' ')).toMatch(/50\.000° N, 6\.500° W 36\.86 km 0 % Nearest sea point/);
     expect(await nearest.locator('input[type=radio]').isChecked()).toBe(true);
     // Picking another point and back again.
     await table.locator('tr[data-point="2,0"] input[type=radio]').check();
@@ -60,7 +60,7 @@ describe('NetCDF import page', () => {
     await page.getByRole('heading', { name: 'grid-3x3' }).waitFor();
     // 48 hourly records written by the script (2024-03-01 00:00 to 03-02 23:00 UTC).
     await page.getByText('Imported 48 records').waitFor();
-    await page.getByText(/29\.01 km from the data point/).first().waitFor();
+    await page.getByText(/36\.86 km from the data point/).first().waitFor();
     const monthly = page.getByTestId('monthly-table');
     await monthly.waitFor({ timeout: 30_000 });
     expect(await monthly.innerText()).toMatch(/Mar/);

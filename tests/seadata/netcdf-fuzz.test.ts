@@ -23,7 +23,7 @@ async function attempt(bytes: Uint8Array): Promise<'read' | 'refused'> {
   fs.writeFileSync(file, bytes);
   const t0 = performance.now();
   try {
-    await withNetcdf(file, (f) => readNetcdfPoint(f, { dataPoint: { lat: 52.38, lon: -5.62 }, waterLevelOffsetM: 0 }));
+    await withNetcdf(file, (f) => readNetcdfPoint(f, { dataPoint: { lat: 50.041, lon: -5.988 }, waterLevelOffsetM: 0 }));
     return 'read';
   } catch (err) {
     if (!(err instanceof HttpError) || (err.status !== 400 && err.status !== 413)) {

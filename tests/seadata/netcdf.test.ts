@@ -130,19 +130,19 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
     expect(plan.pointDims).toEqual(['latitude', 'longitude']);
     const points = listGridPoints(f, plan);
     expect(points.map((p) => [p.lat, p.lon])).toEqual([
-      [52, -6.5], [52, -6], [52, -5.5],
-      [52.5, -6.5], [52.5, -6], [52.5, -5.5],
-      [53, -6.5], [53, -6], [53, -5.5],
+      [49.5, -7], [49.5, -6.5], [49.5, -6],
+      [50, -7], [50, -6.5], [50, -6],
+      [50.5, -7], [50.5, -6.5], [50.5, -6],
     ]);
     scanMissingShares(f, plan, points);
-    // Script: (52.5, -5.5) and (53, -5.5) all fill; (52, -5.5) 30 of 48 missing.
+    // Script: (50, -6) and (50.5, -6) all fill; (49.5, -6) 30 of 48 missing.
     expect(points.map((p) => p.missingShare)).toEqual([0, 0, 0.625, 0, 0, 1, 0, 0, 1]);
-    // Data point of the demo project, 52.38 N 5.62 W: the nearest point (52.5, -5.5) is land at
-    // 15.6 km, (52, -5.5) is mostly missing at 43.0 km; the sea point chosen is (52.5, -6) at
-    // 29.0 km (haversine on the mean Earth radius 6371.0088 km, computed separately in Python).
-    const best = nearestSeaPoint(points, 52.38, -5.62)!;
+    // Data point of the demo project, 50.041 N 5.988 W: the nearest point (50, -6) is land at
+    // 4.64 km, (49.5, -6) is mostly missing at 60.16 km; the sea point chosen is (50, -6.5) at
+    // 36.86 km (haversine on the mean Earth radius 6371.0088 km, computed separately in Python).
+    const best = nearestSeaPoint(points, 50.041, -5.988)!;
     expect(best.point.index).toEqual([1, 1]);
-    expect(best.distanceM / 1000).toBeCloseTo(29.009, 2);
+    expect(best.distanceM / 1000).toBeCloseTo(36.86, 2);
     const r = readCfPoint(f, plan, { index: best.point.index });
     expectSameAsCsv(r.records, 'grid-3x3-j1-i1.csv', ['hs', 'tp', 'dir', 'wind', 'windDir']);
   });
