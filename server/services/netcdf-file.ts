@@ -213,6 +213,15 @@ function openClassic(path: string): OpenNcFile {
       const t = toAttr(a.value);
       if (t !== undefined) attrs[a.name] = typeof t === 'string' ? t.replace(/\0+$/, '') : t;
     }
+    // Every value must lie inside the file: a damaged header (a huge dimension) or a cut file is
+    // refused here rather than by a giant allocation later.
+    const typeSize = CLASSIC_TYPES[v.type]?.size ?? 1;
+    const inner = shape.slice(v.record ? 1 : 0).reduce((a, b) => a * b, 1);
+    const end = v.record ? v.offset + Math.max(0, records - 1) * recordStep + inner * typeSize : v.offset + inner * typeSize;
+    if (!Number.isFinite(end) || v.offset < 0 || (shape.every((x) => x > 0) && end > fileSize)) {
+      fs.closeSync(fd);
+      throw bad(`variable ${v.name} would end at byte ${end.toLocaleString('en-US')} but the file has ${fileSize.toLocaleString('en-US')} bytes: the file is cut short or its header is damaged`);
+    }
     variables.push({ name: v.name, dims: v.dimensions.map((id) => dims[id]?.name ?? `dim${id}`), shape, attrs });
     layout.set(v.name, { v, shape });
   }
