@@ -3,6 +3,7 @@ import os from 'node:os';
 import { describeTransformBench, runTransformBench } from './transform-bench';
 import { runEngineBench } from './engine-bench';
 import { runImportBench } from './import-bench';
+import { runNetcdfBench } from './netcdf-bench';
 import { describeColdStart, measureColdStart } from './cold-start';
 
 console.log(`Lullwatch bench on ${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}\n`);
@@ -11,5 +12,7 @@ console.log('');
 await runEngineBench();
 console.log('');
 await runImportBench();
+console.log('');
+await runNetcdfBench();
 console.log('');
 console.log(describeColdStart(await measureColdStart()));

@@ -49,6 +49,46 @@ export interface ImportAnswer {
   wind: { anemometerHeightM: number | null; exponent: number | null };
   /** Set when this import made a dataset shorter than a year the default for statistics. */
   warning: string | null;
+  /** NetCDF imports: the point read, the variables used and what was read but not stored. */
+  netcdf?: NetcdfImportInfo;
+}
+
+/** One point of a NetCDF grid, as listed for choosing. */
+export interface NetcdfGridPoint {
+  /** Index along the grid's dimensions (send it back as `gridPoint`). */
+  index: number[];
+  lat: number | null;
+  lon: number | null;
+  /** Share of the wave height values missing, 0-1 (over 0.5 is never chosen by default). */
+  missingShare: number;
+  /** Great-circle distance to the project's data point, km (null without positions). */
+  distanceKm: number | null;
+}
+
+/** What a NetCDF file holds, before import (`POST .../datasets/netcdf-points`). */
+export interface NetcdfPointsAnswer {
+  format: 'netcdf4' | 'classic';
+  dimensions: string[];
+  points: NetcdfGridPoint[];
+  /** Index of the sea point nearest the data point (null: none qualifies or no positions). */
+  nearest: number[] | null;
+  dataPoint: { name: string; lat: number | null; lon: number | null };
+  /** Variables found, role = variable (how it was found). */
+  variables: { role: string; variable: string; via: string }[];
+  times: { count: number; first: string | null; last: string | null };
+}
+
+/** The NetCDF part of an import report. */
+export interface NetcdfImportInfo {
+  format: 'netcdf4' | 'classic';
+  point: { index: number[]; lat: number | null; lon: number | null; distanceKm: number | null; missingShare: number; chosen: 'nearest' | 'given' | 'single' };
+  variables: { role: string; variable: string; via: string }[];
+  /** Partitions found in the file (wind sea, primary swell...). */
+  partitionsRead: string[];
+  /** Plain statement of what was read but is not stored (partitions, water level). */
+  notStored: string[];
+  notes: string[];
+  depthM: number | null;
 }
 
 /** Records as columnar arrays; times ISO UTC; null = missing. */

@@ -4,7 +4,6 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { pipeline } from 'node:stream/promises';
 import type { Request } from 'express';
 import type multer from 'multer';
 
@@ -23,21 +22,59 @@ export function ensurePrivateDir(dir: string): void {
   if ((st.mode & 0o077) !== 0) fs.chmodSync(dir, 0o700);
 }
 
-/** multer storage: each file written as `dir/<32 hex>` with mode 0600, created exclusively. */
-export function privateDiskStorage(dir: string): multer.StorageEngine {
+/** The size limit an upload ran into (set by {@link privateDiskStorage} before multer's error). */
+export const uploadLimitHit = new WeakMap<Request, number>();
+
+/**
+ * multer storage: each file written as `dir/<32 hex>` with mode 0600, created exclusively.
+ * `limitFor(firstBytes)` may give a smaller limit than multer's `fileSize` from the file's first
+ * bytes (a text upload's limit below a NetCDF file's): over it, multer's own size error is raised
+ * (413) and the rest of the part is read and dropped.
+ */
+export function privateDiskStorage(dir: string, limitFor?: (firstBytes: Buffer) => number): multer.StorageEngine {
   return {
-    _handleFile(_req: Request, file, cb) {
+    _handleFile(req: Request, file, cb) {
       const name = crypto.randomBytes(16).toString('hex');
       const target = path.join(dir, name);
       const out = fs.createWriteStream(target, { flags: 'wx', mode: 0o600 });
       let size = 0;
-      file.stream.on('data', (chunk: Buffer) => (size += chunk.length));
-      pipeline(file.stream, out).then(
-        () => cb(null, { destination: dir, filename: name, path: target, size }),
-        (err: unknown) => {
-          fs.rm(target, { force: true }, () => cb(err as Error));
-        },
-      );
+      let limit = Infinity;
+      let first = true;
+      let over = false;
+      const onData = (chunk: Buffer) => {
+        if (first && limitFor) limit = limitFor(chunk);
+        first = false;
+        size += chunk.length;
+        if (size <= limit || over) return;
+        over = true;
+        uploadLimitHit.set(req, limit);
+        file.stream.unpipe(out);
+        out.destroy();
+        file.stream.off('data', onData);
+        // The rest of the part is read and dropped; multer answers once it has ended.
+        file.stream.once('end', () => fs.rm(target, { force: true }, () => cb(new Error('upload over its size limit'))));
+        file.stream.resume();
+        file.stream.emit('limit');
+      };
+      file.stream.on('data', onData);
+      // Not stream.pipeline: it would destroy the upload stream when the file is dropped, and
+      // multer waits for that part to end.
+      let settled = false;
+      const fail = (err: unknown) => {
+        if (over || settled) return; // a dropped file is answered when its rest has been read
+        settled = true;
+        file.stream.unpipe(out);
+        out.destroy();
+        fs.rm(target, { force: true }, () => cb(err as Error));
+      };
+      out.on('error', fail);
+      file.stream.on('error', fail);
+      out.on('finish', () => {
+        if (over || settled) return;
+        settled = true;
+        cb(null, { destination: dir, filename: name, path: target, size });
+      });
+      file.stream.pipe(out);
     },
     _removeFile(_req: Request, file, cb) {
       fs.rm(file.path, { force: true }, (err) => cb(err));

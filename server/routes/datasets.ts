@@ -20,8 +20,13 @@ import {
 } from '../services/datasets';
 
 const DefaultHindcastInput = z.object({ datasetId: z.uuid('must be a dataset id').nullable() });
-import { importUploadedFile, MAX_UPLOAD_BYTES, safeFileName } from '../services/dataset-import';
-import { ensurePrivateDir, privateDiskStorage } from '../http/private-uploads';
+import { importUploadedFile, MAX_NETCDF_UPLOAD_BYTES, MAX_UPLOAD_BYTES, safeFileName } from '../services/dataset-import';
+import { ensurePrivateDir, privateDiskStorage, uploadLimitHit } from '../http/private-uploads';
+import { netcdfKind } from '../services/netcdf-file';
+import { describeNetcdf, withNetcdf } from '../services/netcdf-import';
+import { project } from '../db/schema';
+import { eq } from 'drizzle-orm';
+import { ImportFormSchema } from '../../shared/seadata';
 import { Limiter } from '../http/limiter';
 
 export const UPLOAD_DIR = path.join(os.tmpdir(), 'lullwatch-uploads');
@@ -45,8 +50,9 @@ const MAX_FIELD_BYTES = 64 * 1024;
 const upload = multer({
   // Stored under a random name in UPLOAD_DIR (0700, files 0600): the client's file name never
   // becomes a path.
-  storage: privateDiskStorage(UPLOAD_DIR),
-  limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 20, fieldSize: MAX_FIELD_BYTES },
+  // NetCDF files (known by their first bytes) may reach 2 GB; every other upload 100 MB.
+  storage: privateDiskStorage(UPLOAD_DIR, (first) => (netcdfKind(first) ? MAX_NETCDF_UPLOAD_BYTES : MAX_UPLOAD_BYTES)),
+  limits: { fileSize: MAX_NETCDF_UPLOAD_BYTES, files: 1, fields: 20, fieldSize: MAX_FIELD_BYTES },
   // Browsers send the file name as raw UTF-8 in the part header; busboy's default reads it as
   // Latin-1 ('Ålesund.csv' came back as 'Ã\x85lesund.csv').
   defParamCharset: 'utf8',
@@ -60,7 +66,15 @@ function receiveUpload(req: Request, res: Response): Promise<void> {
       if (!err) return resolve();
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') {
-          return reject(new HttpError('too_large', `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`));
+          const hit = uploadLimitHit.get(req);
+          return reject(
+            new HttpError(
+              'too_large',
+              hit === undefined || hit >= MAX_NETCDF_UPLOAD_BYTES
+                ? `The file is larger than the NetCDF upload limit of ${MAX_NETCDF_UPLOAD_BYTES / 1024 ** 3} GB`
+                : `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB (NetCDF files: ${MAX_NETCDF_UPLOAD_BYTES / 1024 ** 3} GB)`,
+            ),
+          );
         }
         if (err.code === 'LIMIT_FIELD_VALUE' || err.code === 'LIMIT_FIELD_KEY') {
           const message = `Form field ${err.field ?? ''} is longer than the limit of ${MAX_FIELD_BYTES / 1024} kB`;
@@ -162,6 +176,44 @@ export function datasetsRoutes({ db }: AppDeps): Router {
         release();
       }
       res.end();
+    } finally {
+      if (file) fs.rm(file.path, { force: true }, () => {});
+    }
+  });
+
+  /**
+   * POST /api/projects/:projectId/datasets/netcdf-points (coordinators; multipart `file`,
+   * `variables?`): the points of a NetCDF file with their position, missing share and distance to
+   * the data point, the sea point nearest it, the variables found and the time span. Nothing is
+   * stored; the import then names the point as `gridPoint`.
+   */
+  router.post('/projects/:projectId/datasets/netcdf-points', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    await receiveUpload(req, res);
+    const file = req.file;
+    try {
+      if (!file) {
+        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [{ field: 'file', message: 'is required' }]);
+      }
+      const head = Buffer.alloc(8);
+      const fd = fs.openSync(file.path, 'r');
+      try {
+        fs.readSync(fd, head, 0, 8, 0);
+      } finally {
+        fs.closeSync(fd);
+      }
+      if (!netcdfKind(head)) throw new HttpError('bad_file', 'This is not a NetCDF file: it does not start with the NetCDF classic (CDF) or NetCDF-4 (HDF5) signature');
+      const fields = parseInput(ImportFormSchema.pick({ variables: true }), req.body ?? {}, 'form');
+      const [p] = await db.select().from(project).where(eq(project.id, access.projectId));
+      const release = await importLimiter.acquire('process');
+      try {
+        const answer = await withNetcdf(file.path, (f) =>
+          describeNetcdf(f, { name: p.dataPointName, lat: p.dataPointLatitude, lon: p.dataPointLongitude }, fields.variables ?? {}),
+        );
+        res.json(answer);
+      } finally {
+        release();
+      }
     } finally {
       if (file) fs.rm(file.path, { force: true }, () => {});
     }

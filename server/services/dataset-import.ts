@@ -12,6 +12,7 @@ import {
   anemometerHeightOf,
   DEFAULT_WIND_EXPONENT,
   WIND_REFERENCE_HEIGHT_M,
+  windHeightFactor,
   type ImportResult,
 } from '../../shared/seadata';
 import type { ImportAnswer } from '../../shared/api-types-datasets';
@@ -20,8 +21,12 @@ import { project } from '../db/schema';
 import { HttpError, parseInput } from '../http/errors';
 import { createDataset, defaultHindcast, shortDefaultWarning } from './datasets';
 import { toSeaSeries } from './sea-series';
+import { netcdfKind } from './netcdf-file';
+import { readNetcdfPoint, withNetcdf } from './netcdf-import';
 
 export const MAX_UPLOAD_BYTES = 100 * 1024 * 1024;
+/** NetCDF uploads may be larger: only the chosen point's series is read from them. */
+export const MAX_NETCDF_UPLOAD_BYTES = 2 * 1024 * 1024 * 1024;
 
 export interface UploadedFile {
   path: string;
@@ -72,13 +77,27 @@ export async function importUploadedFile(
   const [p] = await db.select().from(project).where(eq(project.id, args.projectId));
   if (!p) throw new HttpError('not_found', 'Project not found');
 
-  const head = await readHead(args.file.path, 64 * 1024);
+  const headBytes = await readHeadBytes(args.file.path, 64 * 1024);
+  const ncKind = netcdfKind(headBytes);
+  if (ncKind !== null) {
+    if (form.format !== 'auto' && form.format !== 'netcdf') {
+      throw new HttpError('bad_file', `This is a NetCDF file (${ncKind === 'classic' ? 'classic' : 'NetCDF-4/HDF5'}), not ${form.format.toUpperCase()}: choose the format NetCDF or auto`);
+    }
+    return importNetcdfUpload(db, p, form, args);
+  }
+  if (form.format === 'netcdf') {
+    throw new HttpError('bad_file', 'This is not a NetCDF file: it does not start with the NetCDF classic (CDF) or NetCDF-4 (HDF5) signature');
+  }
+  if (args.file.size > MAX_UPLOAD_BYTES) {
+    throw new HttpError('too_large', `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB (NetCDF files: ${MAX_NETCDF_UPLOAD_BYTES / 1024 ** 3} GB)`);
+  }
+  const head = headBytes.toString('utf8');
   const mark = binaryMark(head);
   if (mark !== null) {
     const code = `U+${mark.code.toString(16).toUpperCase().padStart(4, '0')}`;
     throw new HttpError(
       'bad_file',
-      `This is not a text file: it holds binary data (control character ${code} at line ${mark.line}, column ${mark.column}). Upload CSV or NDBC text.`,
+      `This is not a text file: it holds binary data (control character ${code} at line ${mark.line}, column ${mark.column}). Upload CSV or NDBC text, or a NetCDF file.`,
       [{ line: mark.line, column: String(mark.column), value: '', reason: `binary content (control character ${code})` }],
     );
   }
@@ -176,13 +195,113 @@ function linesOf(parser: CsvTextParser | NdbcParser): number {
   return typeof maybe.linesRead === 'number' ? maybe.linesRead : 0;
 }
 
-async function readHead(path: string, bytes: number): Promise<string> {
+async function readHeadBytes(path: string, bytes: number): Promise<Buffer> {
   const handle = await fs.promises.open(path, 'r');
   try {
     const buf = Buffer.alloc(bytes);
     const { bytesRead } = await handle.read(buf, 0, bytes, 0);
-    return buf.subarray(0, bytesRead).toString('utf8');
+    return buf.subarray(0, bytesRead);
   } finally {
     await handle.close();
   }
+}
+
+/**
+ * A NetCDF upload (docs/domain.md#netcdf): the chosen point's series only, then stored like any
+ * other import (one transaction). Wind is taken as given at 10 m unless an anemometer height is
+ * stated; a forecast's issue time is its forecast_reference_time, else its first time.
+ */
+async function importNetcdfUpload(
+  db: Db,
+  p: typeof project.$inferSelect,
+  form: ReturnType<typeof ImportFormSchema.parse>,
+  args: { projectId: string; userId: string; file: UploadedFile; onProgress?: (p: ImportProgress) => void },
+): Promise<ImportAnswer> {
+  const { result, info } = await withNetcdf(args.file.path, (file) =>
+    readNetcdfPoint(file, {
+      dataPoint: { lat: p.dataPointLatitude, lon: p.dataPointLongitude },
+      gridPoint: form.gridPoint,
+      columns: form.variables,
+      waterLevelOffsetM: form.waterLevelOffset,
+      // Progress as the share of the chosen variables read, in records of the point's series.
+      onVariable: (done, total, n) =>
+        args.onProgress?.({ phase: 'parsing', bytesRead: Math.round((args.file.size * done) / total), totalBytes: args.file.size, rows: Math.round((n * done) / total) }),
+    }),
+  );
+  const records = result.records;
+  let usable = 0;
+  for (let i = 0; i < records.hs.length; i++) if (records.hs[i] === records.hs[i]) usable++;
+  if (usable === 0) throw new HttpError('bad_file', 'The chosen point has no wave height at any time (all values missing): choose another point');
+  const givenHeight = anemometerHeightOf(form);
+  const windHeight = givenHeight ?? WIND_REFERENCE_HEIGHT_M;
+  const windExponent = form.windExponent ?? DEFAULT_WIND_EXPONENT;
+  if (givenHeight !== undefined && givenHeight !== WIND_REFERENCE_HEIGHT_M) {
+    const factor = windHeightFactor(givenHeight, windExponent);
+    for (let i = 0; i < records.wind.length; i++) records.wind[i] *= factor;
+  }
+  args.onProgress?.({ phase: 'saving', bytesRead: args.file.size, totalBytes: args.file.size, rows: records.timeMs.length });
+  const series = toSeaSeries(records);
+  // The model's depth at the point sets the data point's depth when the file gives it.
+  const formDepth = form.dataPointDepth === 'deep' ? null : form.dataPointDepth;
+  const depth = info.depthM ?? formDepth;
+  const row = await createDataset(
+    db,
+    {
+      projectId: args.projectId,
+      createdBy: args.userId,
+      name: form.name,
+      kind: form.kind,
+      dataPointName: p.dataPointName,
+      dataPointLatitude: info.point.lat ?? p.dataPointLatitude,
+      dataPointLongitude: info.point.lon ?? p.dataPointLongitude,
+      dataPointDepthM: depth,
+      sourceKind: 'upload',
+      originalFileName: safeFileName(args.file.originalName),
+      format: 'netcdf',
+      issuedAt: form.kind === 'forecast' ? new Date(result.forecastReferenceMs ?? records.timeMs[0]) : null,
+      anemometerHeightM: windHeight,
+      windExponent,
+    },
+    series,
+    {
+      format: 'netcdf',
+      mode: 'refuse',
+      rowsRead: records.timeMs.length,
+      records: records.timeMs.length,
+      rowsSkipped: 0,
+      newestFirst: false,
+      issues: [],
+      issueCount: 0,
+      notes: [
+        `NetCDF point ${info.point.index.length ? `[${info.point.index.join(', ')}]` : '(single point)'} at ${info.point.lat ?? '?'}, ${info.point.lon ?? '?'}${info.point.distanceKm !== null ? `, ${info.point.distanceKm} km from the data point` : ''} (${info.point.chosen === 'nearest' ? 'nearest sea point' : info.point.chosen === 'given' ? 'chosen by the coordinator' : 'the file\'s one point'})`,
+        ...info.notStored,
+        ...info.notes,
+        ...(givenHeight === undefined ? ['wind taken as given at 10 m above the sea (no anemometer height stated)'] : []),
+        ...(info.depthM !== null && formDepth !== info.depthM ? [`data point depth set to the file's model depth of ${info.depthM} m (the form said ${form.dataPointDepth})`] : []),
+      ],
+      netcdf: info,
+      timeZone: 'UTC',
+      originalFileName: safeFileName(args.file.originalName),
+      anemometerHeightM: windHeight,
+      windExponent,
+    },
+  );
+  let warning: string | null = null;
+  if (row.kind === 'hindcast') {
+    const def = await defaultHindcast(db, args.projectId);
+    if (def?.id === row.id) warning = shortDefaultWarning(row, false);
+  }
+  return {
+    warning,
+    id: row.id,
+    records: row.recordCount,
+    start: row.startAt.toISOString(),
+    end: row.endAt.toISOString(),
+    stepMinutes: row.stepMinutes,
+    variables: row.variables,
+    missing: row.missing,
+    skipped: 0,
+    wind: { anemometerHeightM: row.anemometerHeightM, exponent: row.windExponent },
+    netcdf: info,
+  };
 }

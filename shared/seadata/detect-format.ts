@@ -31,3 +31,16 @@ export function binaryMark(head: string): { line: number; column: number; code: 
   }
   return null;
 }
+
+/**
+ * The kind of NetCDF file by its first bytes, or null: classic files start with "CDF" and a
+ * version byte (1 classic, 2 64-bit offset, 5 64-bit data); NetCDF-4 files are HDF5 files, whose
+ * signature is \x89HDF\r\n\x1a\n (a NetCDF-4 file written with a user block would have it at
+ * 512 bytes or later; not read).
+ */
+export function netcdfKind(head: Uint8Array): 'netcdf4' | 'classic' | null {
+  if (head.length >= 4 && head[0] === 0x43 && head[1] === 0x44 && head[2] === 0x46 && (head[3] === 1 || head[3] === 2 || head[3] === 5)) return 'classic';
+  const hdf = [0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a];
+  if (head.length >= 8 && hdf.every((b, i) => head[i] === b)) return 'netcdf4';
+  return null;
+}

@@ -26,7 +26,7 @@ export const DATASET_KINDS = ['hindcast', 'forecast', 'observation'] as const;
 export type DatasetKind = (typeof DATASET_KINDS)[number];
 
 /** File formats of an upload; 'auto' looks at the first lines (`detectFormat`). */
-export const IMPORT_FORMATS = ['auto', 'csv', 'ndbc'] as const;
+export const IMPORT_FORMATS = ['auto', 'csv', 'ndbc', 'netcdf'] as const;
 export type ImportFormat = (typeof IMPORT_FORMATS)[number];
 
 /** Deepest accepted data-point depth, m (the deepest ocean trench is about 11 km). */
@@ -119,6 +119,48 @@ export const ImportFormSchema = z.object({
         return x;
       })
       .optional(),
+  ),
+  /**
+   * NetCDF grid point to read, as its index along the grid's dimensions (JSON `[j, i]` or "j,i");
+   * default: the sea point nearest the data point (docs/domain.md#netcdf).
+   */
+  gridPoint: z.preprocess(
+    (v) => (typeof v === 'string' && /^\s*\d+(\s*,\s*\d+)*\s*$/.test(v) ? v.split(',').map((x) => Number(x)) : v),
+    jsonField(z.array(z.number().int().min(0).max(100_000_000)).max(4)),
+  ),
+  /**
+   * NetCDF water level: height of the file's datum (the one its standard name states) above the
+   * worksite's chart datum, m; chart-datum level = file level + offset. Without it a file with a
+   * water level is refused (a datum is never guessed).
+   */
+  waterLevelOffset: z.preprocess(
+    emptyToUndefined,
+    z
+      .union([z.number(), z.string()])
+      .transform((v, ctx) => {
+        const x = typeof v === 'number' ? v : parseDecimal(v);
+        if (!Number.isFinite(x) || Math.abs(x) > 100) {
+          ctx.addIssue({ code: 'custom', message: 'must be a number of metres between -100 and 100', input: v });
+          return z.NEVER;
+        }
+        return x;
+      })
+      .optional(),
+  ),
+  /** NetCDF variables by role when the file lacks standard names, as JSON (`{"hs":"Hm0","time":"t"}`). */
+  variables: jsonField(
+    z
+      .object({
+        time: z.string().min(1).max(256).optional(),
+        hs: z.string().min(1).max(256).optional(),
+        tp: z.string().min(1).max(256).optional(),
+        tz: z.string().min(1).max(256).optional(),
+        te: z.string().min(1).max(256).optional(),
+        dir: z.string().min(1).max(256).optional(),
+        wind: z.string().min(1).max(256).optional(),
+        windDir: z.string().min(1).max(256).optional(),
+      })
+      .strict(),
   ),
   /** CSV direction columns: where the sea and wind come from (default) or go to (180° is added). */
   directionConvention: z.preprocess(emptyToUndefined, z.enum(DIRECTION_CONVENTIONS).default('coming-from')),

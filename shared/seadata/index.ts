@@ -80,3 +80,25 @@ export {
 } from './import-options';
 export type { DatasetKind, ImportFormat, ImportForm, ImportFormInput } from './import-options';
 export { binaryMark, detectFormat } from './detect-format';
+
+// NetCDF (CF conventions)
+export { netcdfKind } from './detect-format';
+export {
+  planCfImport,
+  listGridPoints,
+  scanMissingShares,
+  nearestSeaPoint,
+  greatCircleM,
+  normaliseLongitude,
+  readCfPoint,
+  decodeTimes,
+  parseTimeUnits,
+  unpack,
+  standardNamesRead,
+  MAX_MISSING_SHARE,
+  PARTITIONS,
+  PARTITION_LABELS,
+  ACCEPTED_CALENDARS,
+  REFUSED_CALENDARS,
+} from './netcdf-cf';
+export type { NcAttr, NcVar, NcFile, CfPlan, CfChoice, CfRole, GridPoint, Partition, PartitionSeries, CfPointResult, CfPointOptions, NcColumnMap } from './netcdf-cf';

@@ -229,6 +229,8 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/datasets': { access: 'member' },
   'PUT /projects/:projectId/default-hindcast': { access: 'coordinator', why: 'null: the newest hindcast is the default again', body: () => ({ datasetId: null }) },
   'POST /projects/:projectId/datasets': { access: 'coordinator', upload: true },
+  // Lists a NetCDF file's grid points before an import: coordinators, who import (a CSV answers 400).
+  'POST /projects/:projectId/datasets/netcdf-points': { access: 'coordinator', upload: true },
   'GET /projects/:projectId/datasets/:datasetId': { access: 'member' },
   'GET /projects/:projectId/datasets/:datasetId/records': { access: 'member' },
   'GET /projects/:projectId/datasets/:datasetId/monthly': { access: 'member' },

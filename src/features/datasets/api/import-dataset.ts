@@ -5,6 +5,8 @@ import { datasetsQueryOptions } from '../../../api/datasets';
 
 /** Largest upload the server takes, bytes (100 MiB; the server answers 413 above it). */
 export const MAX_UPLOAD_BYTES = 100 * 1024 * 1024;
+/** Largest NetCDF upload (2 GiB): only the chosen point's series is read from it. */
+export const MAX_NETCDF_UPLOAD_BYTES = 2 * 1024 * 1024 * 1024;
 
 /** Where an upload is: sending the bytes, then the server reading and saving them. */
 export type UploadProgress =

@@ -1,53 +1,60 @@
-import { useMemo, useRef, useState, type FormEvent } from 'react';
+import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
 import { usePageZone } from '../../../components/page-zone';
 import { DATA_ZONE_STATEMENT } from './data-zone';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import {
+  BAD_ROW_MODES,
+  CSV_DELIMITERS,
   DATASET_KINDS,
+  DATE_ORDERS,
   DEFAULT_MISSING_CODES,
+  DIRECTION_CONVENTIONS,
+  IMPORT_FORMATS,
   ImportFormSchema,
   MAX_DEPTH_M,
-  binaryMark,
   detectFormat,
   isValidTimeZone,
   parseDecimal,
   previewCsv,
-  type BadRowMode,
   type ColumnMapping,
-  type CsvDelimiter,
+  type CsvPreview,
   type DatasetKind,
-  type DateOrder,
   type DetectedColumns,
-  type ImportFormat,
+  type ImportForm as ImportRequestForm,
   type SeaUnits,
   DEFAULT_WIND_EXPONENT,
   OVER_LAND_WIND_EXPONENT,
-  type DirectionConvention,
 } from '../../../../shared/seadata';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import { ApiError } from '../../../lib/api';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
 import { useProjectAccess } from '../../../api/projects';
-import { MAX_UPLOAD_BYTES, useImportDataset, type ImportFields, type UploadProgress } from '../api/import-dataset';
+import { MAX_NETCDF_UPLOAD_BYTES, MAX_UPLOAD_BYTES, useImportDataset, type ImportFields, type UploadProgress } from '../api/import-dataset';
+import { useNetcdfPoints } from '../api/list-netcdf-points';
+import { NetcdfPointsTable } from './netcdf-points';
+import { useFileHead } from './use-file-head';
 import { CsvOptions, CsvPreviewTable, type CsvOptionsValues } from './csv-options';
 import { formatBytes, formatDepth, KIND_LABELS } from './format';
 import { IssuesTable } from './issues-table';
 import { NdbcPreviewTable, previewNdbc } from './ndbc-preview';
 import { UploadProgressView } from './upload-progress';
 
-/** Bytes read in the browser for format detection and the preview. */
-const HEAD_BYTES = 64 * 1024;
 const LIMIT_MB = MAX_UPLOAD_BYTES / 1024 / 1024;
+const NETCDF_LIMIT_GB = MAX_NETCDF_UPLOAD_BYTES / 1024 ** 3;
+const FOUND = { csv: 'CSV found', ndbc: 'NDBC text found', netcdf: 'NetCDF found' } as const;
 
 const KIND_HINTS: Record<DatasetKind, string> = {
   hindcast: 'A modelled multi-year series, for statistics and downtime schedules.',
-  forecast: 'A forecast issue brought as a file; its first time is taken as the issue time.',
+  forecast: 'A forecast issue brought as a file; its issue time is the NetCDF forecast_reference_time, else its first time.',
   observation: 'Measured data, e.g. a wave buoy.',
 };
 
 const DEFAULT_MISSING_TEXT = DEFAULT_MISSING_CODES.filter((c) => c !== '').join(', ');
 
-/** `/projects/:projectId/sea-data/import`: coordinators and admins bring a CSV or NDBC file. */
+/** `/projects/:projectId/sea-data/import`: coordinators and admins bring a CSV, NDBC or NetCDF file. */
 /** Why an NDBC file with wind cannot be imported yet. */
 const NEED_HEIGHT = 'This buoy file has wind: enter the anemometer height (10 if the wind is already at 10 m) so it can be brought to 10 m, where limits are stated.';
 
@@ -79,239 +86,300 @@ function stripExtension(name: string): string {
   return (i > 0 ? name.slice(0, i) : name).slice(0, 120);
 }
 
-type Errors = Partial<Record<string, string>>;
+/** The import form as typed: multipart field values as text, plus the CSV choices made so far. */
+const ImportPageValues = z.object({
+  name: z.string(),
+  kind: z.enum(DATASET_KINDS),
+  format: z.enum(IMPORT_FORMATS),
+  deep: z.boolean(),
+  depth: z.string(),
+  anemometer: z.string(),
+  exponent: z.enum(['open-sea', 'over-land']),
+  directionConvention: z.enum(DIRECTION_CONVENTIONS),
+  onBadRows: z.enum(BAD_ROW_MODES),
+  timeZone: z.string(),
+  missingText: z.string(),
+  emptyIsMissing: z.boolean(),
+  dateOrder: z.enum(DATE_ORDERS).optional(),
+  // CSV choices; null means "as detected from the file".
+  delimiter: z.enum(CSV_DELIMITERS).nullable(),
+  decimalComma: z.boolean().nullable(),
+  mapping: z.custom<DetectedColumns>().nullable(),
+  units: z.custom<SeaUnits>().nullable(),
+  /** NetCDF grid point "j,i"; '' = the sea point nearest the data point. */
+  gridPoint: z.string(),
+  /** NetCDF water level: height of the file's datum above chart datum, m ('' = not stated). */
+  waterLevelOffset: z.string(),
+});
+type ImportPageValues = z.infer<typeof ImportPageValues>;
+
+/** What the form's check needs besides its values (the file as read). */
+interface ImportContext {
+  format: 'csv' | 'ndbc' | 'netcdf' | null;
+  preview: CsvPreview | null;
+  needHeight: boolean;
+}
+
+/** Form keys of the shared schema's fields, where their messages are shown. */
+const FIELD_OF: Record<string, keyof ImportPageValues> = {
+  name: 'name',
+  kind: 'kind',
+  dataPointDepth: 'depth',
+  anemometerHeight: 'anemometer',
+  columns: 'mapping',
+  timeZone: 'timeZone',
+  missingCodes: 'missingText',
+  waterLevelOffset: 'waterLevelOffset',
+  gridPoint: 'gridPoint',
+};
+
+function missingCodesOf(v: Pick<ImportPageValues, 'missingText' | 'emptyIsMissing'>): string[] {
+  const codes = v.missingText
+    .split(',')
+    .map((c) => c.trim())
+    .filter((c) => c !== '');
+  return v.emptyIsMissing ? ['', ...codes] : codes;
+}
+
+/** The upload's fields before the shared ImportFormSchema (as the server receives them). */
+function requestInput(v: ImportPageValues, ctx: ImportContext): Record<string, unknown> {
+  const input: Record<string, unknown> = {
+    name: v.name,
+    kind: v.kind,
+    format: v.format,
+    dataPointDepth: v.deep ? 'deep' : v.depth,
+    onBadRows: v.onBadRows,
+    anemometerHeight: v.anemometer.trim() || undefined,
+    windExponent: v.exponent === 'over-land' ? OVER_LAND_WIND_EXPONENT : DEFAULT_WIND_EXPONENT,
+  };
+  if (ctx.format === 'csv' && ctx.preview) {
+    Object.assign(input, {
+      timeZone: v.timeZone.trim() || undefined,
+      columns: v.mapping ?? ctx.preview.mapping,
+      units: ctx.preview.units,
+      missingCodes: missingCodesOf(v),
+      dateOrder: ctx.preview.dateOrder,
+      delimiter: ctx.preview.delimiter,
+      decimalComma: ctx.preview.decimalComma,
+      directionConvention: v.directionConvention,
+    });
+  }
+  if (ctx.format === 'netcdf') {
+    Object.assign(input, { gridPoint: v.gridPoint || undefined, waterLevelOffset: v.waterLevelOffset.trim() || undefined });
+  }
+  return input;
+}
+
+/**
+ * The form's check: the shared {@link ImportFormSchema} on the request's fields (the server's
+ * checks and messages), as errors on the form's own fields, plus what only the browser knows.
+ * @returns the parsed request form, or the errors by form field.
+ */
+function checkImport(values: ImportPageValues, ctx: ImportContext): { form: ImportRequestForm } | { errors: Partial<Record<keyof ImportPageValues, string>> } {
+  const parsed = ImportFormSchema.safeParse(requestInput(values, ctx));
+  const errors: Partial<Record<keyof ImportPageValues, string>> = {};
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      const key = String(issue.path[0] ?? 'form');
+      const field = FIELD_OF[key] ?? 'name';
+      if (errors[field]) continue;
+      errors[field] =
+        key === 'columns'
+          ? 'Choose the column that holds the time.'
+          : key === 'dataPointDepth'
+            ? `Enter the depth in metres (above 0, at most ${MAX_DEPTH_M.toLocaleString('en-GB')} m), or tick deep water.`
+            : key === 'anemometerHeight'
+              ? ANEMOMETER_RANGE
+              : key === 'missingCodes'
+                ? 'At most 64 codes, each at most 32 characters long.'
+                : issue.message;
+    }
+  }
+  if (ctx.needHeight && !errors.anemometer) errors.anemometer = NEED_HEIGHT;
+  return Object.keys(errors).length > 0 || !parsed.success ? { errors } : { form: parsed.data };
+}
+
+const ANEMOMETER_RANGE = 'Enter a height above 0 and at most 1000 m (10 when the wind is already at 10 m).';
 
 function ImportForm({ project }: { project: ProjectDetail }) {
   const navigate = useNavigate();
   const importMutation = useImportDataset(project.id);
-  const readToken = useRef(0);
+  const pointsQuery = useNetcdfPoints(project.id);
   const abort = useRef<AbortController | null>(null);
-
-  const [file, setFile] = useState<File | null>(null);
-  const [head, setHead] = useState<string | null>(null);
-  const [readError, setReadError] = useState<string | null>(null);
-  const [name, setName] = useState('');
-  const [nameTouched, setNameTouched] = useState(false);
-  const [kind, setKind] = useState<DatasetKind>('hindcast');
-  const [kindTouched, setKindTouched] = useState(false);
-  const [deep, setDeep] = useState(project.dataPointDepthM === null);
-  const [depthText, setDepthText] = useState(project.dataPointDepthM?.toString() ?? '');
-  const [format, setFormat] = useState<ImportFormat>('auto');
-  const [anemometerText, setAnemometerText] = useState('');
-  const [exponentChoice, setExponentChoice] = useState<'open-sea' | 'over-land'>('open-sea');
-  const [directionConvention, setDirectionConvention] = useState<DirectionConvention>('coming-from');
-  const windExponent = exponentChoice === 'over-land' ? OVER_LAND_WIND_EXPONENT : DEFAULT_WIND_EXPONENT;
-  const [onBadRows, setOnBadRows] = useState<BadRowMode>('refuse');
-  // CSV choices; null means "as detected from the file".
-  const [delimiter, setDelimiter] = useState<CsvDelimiter | null>(null);
-  const [decimalComma, setDecimalComma] = useState<boolean | null>(null);
-  const [mapping, setMapping] = useState<DetectedColumns | null>(null);
-  const [units, setUnits] = useState<SeaUnits | null>(null);
-  const [dateOrder, setDateOrder] = useState<DateOrder | undefined>(undefined);
-  const [timeZone, setTimeZone] = useState('UTC');
-  const [missingText, setMissingText] = useState(DEFAULT_MISSING_TEXT);
-  const [emptyIsMissing, setEmptyIsMissing] = useState(true);
-  const [errors, setErrors] = useState<Errors>({});
+  // Set once the user picks a name or kind: the file's name and format no longer fill them in.
+  const [chosenByUser, setChosenByUser] = useState({ name: false, kind: false });
+  const { head: read, choose } = useFileHead(MAX_UPLOAD_BYTES);
+  const file = read.file;
+  const head = read.text;
+  const [fileError, setFileError] = useState<string | null>(null);
   const [progress, setProgress] = useState<UploadProgress | null>(null);
   const [cancelled, setCancelled] = useState(false);
 
-  const tooLarge = file !== null && file.size > MAX_UPLOAD_BYTES;
-  const detected = head === null ? null : detectFormat(head);
-  const effectiveFormat = format === 'auto' ? detected : format;
+  const form = useForm<ImportPageValues>({
+    resolver: zodResolver(ImportPageValues),
+    defaultValues: {
+      name: '',
+      kind: 'hindcast',
+      format: 'auto',
+      deep: project.dataPointDepthM === null,
+      depth: project.dataPointDepthM?.toString() ?? '',
+      anemometer: '',
+      exponent: 'open-sea',
+      directionConvention: 'coming-from',
+      onBadRows: 'refuse',
+      timeZone: 'UTC',
+      missingText: DEFAULT_MISSING_TEXT,
+      emptyIsMissing: true,
+      dateOrder: undefined,
+      delimiter: null,
+      decimalComma: null,
+      mapping: null,
+      units: null,
+      gridPoint: '',
+      waterLevelOffset: '',
+    },
+  });
+  const { register, setValue, clearErrors, formState, control } = form;
+  const errors = formState.errors;
+  const v = useWatch({ control }) as ImportPageValues;
+  const windExponent = v.exponent === 'over-land' ? OVER_LAND_WIND_EXPONENT : DEFAULT_WIND_EXPONENT;
 
-  const missingCodes = useMemo(() => {
-    const codes = missingText
-      .split(',')
-      .map((c) => c.trim())
-      .filter((c) => c !== '');
-    return emptyIsMissing ? ['', ...codes] : codes;
-  }, [missingText, emptyIsMissing]);
+  const detected = read.netcdf ? 'netcdf' : head === null ? null : detectFormat(head);
+  const effectiveFormat = v.format === 'auto' ? detected : v.format;
+  const isNetcdf = effectiveFormat === 'netcdf';
+  const limit = read.netcdf ? MAX_NETCDF_UPLOAD_BYTES : MAX_UPLOAD_BYTES;
+  const tooLarge = file !== null && file.size > limit;
+  const missingCodes = useMemo(() => missingCodesOf(v), [v.missingText, v.emptyIsMissing]); // eslint-disable-line react-hooks/exhaustive-deps
 
-  const anemometer = useMemo(() => {
-    const t = anemometerText.trim();
-    if (t === '') return { value: undefined, error: undefined };
-    const x = parseDecimal(t);
-    return x > 0 && x <= 1000 ? { value: x, error: undefined } : { value: undefined, error: 'Enter a height above 0 and at most 1000 m (10 when the wind is already at 10 m).' };
+  const anemometerText = v.anemometer.trim();
+  const anemometerValue = useMemo(() => {
+    if (anemometerText === '') return undefined;
+    const x = parseDecimal(anemometerText);
+    return x > 0 && x <= 1000 ? x : undefined;
   }, [anemometerText]);
+  const anemometerError = anemometerText !== '' && anemometerValue === undefined ? ANEMOMETER_RANGE : undefined;
 
-  const zoneOk = isValidTimeZone(timeZone.trim());
-  const needTime = mapping !== null && !mapping.time;
+  const zoneOk = isValidTimeZone(v.timeZone.trim());
+  const needTime = v.mapping !== null && !v.mapping.time;
 
   const csv = useMemo(() => {
     if (head === null || effectiveFormat !== 'csv') return null;
     try {
       const preview = previewCsv(head, {
-        delimiter: delimiter ?? undefined,
-        decimalComma: decimalComma ?? undefined,
-        mapping: mapping && mapping.time ? (mapping as ColumnMapping) : undefined,
-        units: units ?? undefined,
-        timeZone: zoneOk ? timeZone.trim() : undefined,
-        dateOrder,
+        delimiter: v.delimiter ?? undefined,
+        decimalComma: v.decimalComma ?? undefined,
+        mapping: v.mapping && v.mapping.time ? (v.mapping as ColumnMapping) : undefined,
+        units: v.units ?? undefined,
+        timeZone: zoneOk ? v.timeZone.trim() : undefined,
+        dateOrder: v.dateOrder,
         missingCodes,
-        anemometerHeightM: anemometer.value,
+        anemometerHeightM: anemometerValue,
         windExponent,
-        directionConvention,
+        directionConvention: v.directionConvention,
         rows: 12,
       });
       return { preview, error: null };
     } catch (e) {
       return { preview: null, error: e instanceof Error ? e.message : String(e) };
     }
-  }, [head, effectiveFormat, delimiter, decimalComma, mapping, units, zoneOk, timeZone, dateOrder, missingCodes, anemometer.value, windExponent, directionConvention]);
+  }, [head, effectiveFormat, v.delimiter, v.decimalComma, v.mapping, v.units, zoneOk, v.timeZone, v.dateOrder, missingCodes, anemometerValue, windExponent, v.directionConvention]);
 
   const ndbc = useMemo(
-    () => (head !== null && effectiveFormat === 'ndbc' ? previewNdbc(head, anemometer.value, windExponent) : null),
-    [head, effectiveFormat, anemometer.value, windExponent],
+    () => (head !== null && effectiveFormat === 'ndbc' ? previewNdbc(head, anemometerValue, windExponent) : null),
+    [head, effectiveFormat, anemometerValue, windExponent],
   );
   // NDBC buoys measure wind at about 4-5 m: the height must be stated when the file has wind.
   const ndbcHasWind = ndbc?.records ? ndbc.records.wind.some((w) => w === w) : false;
-  const needHeight = effectiveFormat === 'ndbc' && ndbcHasWind && anemometer.value === undefined;
+  const needHeight = effectiveFormat === 'ndbc' && ndbcHasWind && anemometerValue === undefined;
 
   const preview = csv?.preview ?? null;
+  const context: ImportContext = { format: effectiveFormat, preview, needHeight };
   const csvValues: CsvOptionsValues | null = preview
     ? {
-        mapping: mapping ?? preview.mapping,
+        mapping: v.mapping ?? preview.mapping,
         units: preview.units,
-        timeZone,
-        missingText,
-        emptyIsMissing,
-        dateOrder,
+        timeZone: v.timeZone,
+        missingText: v.missingText,
+        emptyIsMissing: v.emptyIsMissing,
+        dateOrder: v.dateOrder,
         decimalComma: preview.decimalComma,
       }
     : null;
   const showDateOrder =
     preview !== null && (preview.dateOrder !== undefined || preview.rows.some((r) => r.issues.some((i) => i.reason.startsWith('ambiguous date'))));
 
-  const clearError = (key: string) => setErrors((e) => (e[key] ? { ...e, [key]: undefined } : e));
-
   async function chooseFile(f: File | null) {
-    const token = ++readToken.current;
-    setFile(f);
-    setHead(null);
-    setReadError(null);
-    setDelimiter(null);
-    setDecimalComma(null);
-    setMapping(null);
-    setUnits(null);
-    setDateOrder(undefined);
+    setValue('delimiter', null);
+    setValue('decimalComma', null);
+    setValue('mapping', null);
+    setValue('units', null);
+    setValue('dateOrder', undefined);
+    setValue('gridPoint', '');
     setProgress(null);
     setCancelled(false);
+    setFileError(null);
     importMutation.reset();
-    clearError('file');
-    if (!f) return;
-    if (!nameTouched) setName(stripExtension(f.name));
-    if (f.size > MAX_UPLOAD_BYTES) return;
-    try {
-      let text = await f.slice(0, HEAD_BYTES).text();
-      if (token !== readToken.current) return;
-      if (f.size > HEAD_BYTES) {
-        // Keep whole lines only: the last one may be cut (even inside a character).
-        const nl = text.lastIndexOf('\n');
-        if (nl > 0) text = text.slice(0, nl + 1);
-      }
-      if (binaryMark(text) !== null) {
-        setReadError('This is not a text file: it holds binary data. Choose a CSV or NDBC text file.');
-        return;
-      }
-      setHead(text);
-      if (!kindTouched) setKind(detectFormat(text) === 'ndbc' ? 'observation' : 'hindcast');
-    } catch {
-      if (token === readToken.current) setReadError('The browser could not read this file.');
-    }
+    pointsQuery.reset();
+    if (f && !chosenByUser.name) setValue('name', stripExtension(f.name));
+    await choose(f);
   }
+
+  // The kind follows the file's format (buoy text: observation) until the user picks one.
+  const detectedNdbc = head !== null && detectFormat(head) === 'ndbc';
+  useEffect(() => {
+    if (file && !chosenByUser.kind) setValue('kind', detectedNdbc ? 'observation' : 'hindcast');
+  }, [file, detectedNdbc, chosenByUser.kind, setValue]);
 
   function onCsvChange(patch: Partial<CsvOptionsValues>) {
     if (!preview) return;
     if (patch.mapping !== undefined) {
-      setMapping(patch.mapping);
-      clearError('columns');
+      setValue('mapping', patch.mapping);
+      clearErrors('mapping');
     }
-    if (patch.units !== undefined) setUnits(patch.units);
+    if (patch.units !== undefined) setValue('units', patch.units);
     if (patch.timeZone !== undefined) {
-      setTimeZone(patch.timeZone);
-      clearError('timeZone');
+      setValue('timeZone', patch.timeZone);
+      clearErrors('timeZone');
     }
     if (patch.missingText !== undefined) {
-      setMissingText(patch.missingText);
-      clearError('missingCodes');
+      setValue('missingText', patch.missingText);
+      clearErrors('missingText');
     }
-    if (patch.emptyIsMissing !== undefined) setEmptyIsMissing(patch.emptyIsMissing);
-    if ('dateOrder' in patch) setDateOrder(patch.dateOrder);
-    if (patch.decimalComma !== undefined) setDecimalComma(patch.decimalComma);
+    if (patch.emptyIsMissing !== undefined) setValue('emptyIsMissing', patch.emptyIsMissing);
+    if ('dateOrder' in patch) setValue('dateOrder', patch.dateOrder);
+    if (patch.decimalComma !== undefined) setValue('decimalComma', patch.decimalComma);
   }
 
-  function onSubmit(e: FormEvent) {
-    e.preventDefault();
-    if (importMutation.isPending) return;
-    if (!file) {
-      setErrors({ file: 'Choose a file to import.' });
+  function onValid(values: ImportPageValues) {
+    if (importMutation.isPending || !file || tooLarge) return;
+    const checked = checkImport(values, context);
+    if ('errors' in checked) {
+      for (const [field, message] of Object.entries(checked.errors)) form.setError(field as keyof ImportPageValues, { type: 'validate', message });
       return;
     }
-    if (tooLarge) return;
-    const isCsv = effectiveFormat === 'csv';
-    const input: Record<string, unknown> = {
-      name,
-      kind,
-      format,
-      dataPointDepth: deep ? 'deep' : depthText,
-      onBadRows,
-      anemometerHeight: anemometerText.trim() || undefined,
-      windExponent,
-    };
-    if (isCsv && preview && csvValues) {
-      Object.assign(input, {
-        timeZone: timeZone.trim() || undefined,
-        columns: csvValues.mapping,
-        units: preview.units,
-        missingCodes,
-        dateOrder: preview.dateOrder,
-        delimiter: preview.delimiter,
-        decimalComma: preview.decimalComma,
-        directionConvention,
-      });
-    }
-    const parsed = ImportFormSchema.safeParse(input);
-    const next: Errors = {};
-    if (!parsed.success) {
-      for (const issue of parsed.error.issues) {
-        const key = String(issue.path[0] ?? 'form');
-        if (next[key]) continue;
-        next[key] =
-          key === 'columns'
-            ? 'Choose the column that holds the time.'
-            : key === 'dataPointDepth'
-              ? `Enter the depth in metres (above 0, at most ${MAX_DEPTH_M.toLocaleString('en-GB')} m), or tick deep water.`
-              : key === 'missingCodes'
-                ? 'At most 64 codes, each at most 32 characters long.'
-                : issue.message;
-      }
-    }
-    if (anemometer.error) next.anemometerHeight = anemometer.error;
-    if (needHeight) next.anemometerHeight = NEED_HEIGHT;
-    if (Object.keys(next).length > 0 || !parsed.success) {
-      setErrors(next);
-      return;
-    }
-    setErrors({});
-    const form = parsed.data;
+    const parsed = checked.form;
     const fields: ImportFields = {
-      name: form.name,
-      kind: form.kind,
-      format: form.format,
-      dataPointDepth: form.dataPointDepth === 'deep' ? 'deep' : String(form.dataPointDepth),
-      onBadRows: form.onBadRows,
+      name: parsed.name,
+      kind: parsed.kind,
+      format: parsed.format,
+      dataPointDepth: parsed.dataPointDepth === 'deep' ? 'deep' : String(parsed.dataPointDepth),
+      onBadRows: parsed.onBadRows,
     };
-    if (form.anemometerHeight !== undefined) fields.anemometerHeight = String(form.anemometerHeight);
-    fields.windExponent = exponentChoice === 'over-land' ? '1/7' : String(DEFAULT_WIND_EXPONENT);
-    if (isCsv) {
-      if (form.timeZone) fields.timeZone = form.timeZone;
-      if (form.columns) fields.columns = JSON.stringify(form.columns);
-      if (form.units) fields.units = JSON.stringify(form.units);
-      if (form.missingCodes) fields.missingCodes = JSON.stringify(form.missingCodes);
-      if (form.dateOrder) fields.dateOrder = form.dateOrder;
-      if (form.delimiter) fields.delimiter = form.delimiter;
-      if (form.decimalComma !== undefined) fields.decimalComma = String(form.decimalComma);
-      fields.directionConvention = form.directionConvention;
+    if (parsed.anemometerHeight !== undefined) fields.anemometerHeight = String(parsed.anemometerHeight);
+    fields.windExponent = values.exponent === 'over-land' ? '1/7' : String(DEFAULT_WIND_EXPONENT);
+    if (effectiveFormat === 'csv') {
+      if (parsed.timeZone) fields.timeZone = parsed.timeZone;
+      if (parsed.columns) fields.columns = JSON.stringify(parsed.columns);
+      if (parsed.units) fields.units = JSON.stringify(parsed.units);
+      if (parsed.missingCodes) fields.missingCodes = JSON.stringify(parsed.missingCodes);
+      if (parsed.dateOrder) fields.dateOrder = parsed.dateOrder;
+      if (parsed.delimiter) fields.delimiter = parsed.delimiter;
+      if (parsed.decimalComma !== undefined) fields.decimalComma = String(parsed.decimalComma);
+      fields.directionConvention = parsed.directionConvention;
+    }
+    if (effectiveFormat === 'netcdf') {
+      if (parsed.gridPoint) fields.gridPoint = parsed.gridPoint.join(',');
+      if (parsed.waterLevelOffset !== undefined) fields.waterLevelOffset = String(parsed.waterLevelOffset);
     }
     const controller = new AbortController();
     abort.current = controller;
@@ -332,16 +400,27 @@ function ImportForm({ project }: { project: ProjectDetail }) {
     );
   }
 
+  function onSubmit(e: FormEvent) {
+    e.preventDefault();
+    if (importMutation.isPending) return;
+    if (!file) {
+      setFileError('Choose a file to import.');
+      return;
+    }
+    void form.handleSubmit(onValid)(e);
+  }
+
   const error = importMutation.error;
   const badFile = error instanceof ApiError && error.code === 'bad_file' ? error : null;
   const busy = importMutation.isPending;
-  const blocked = !file || tooLarge || readError !== null || (effectiveFormat === 'csv' && (needTime || !zoneOk)) || !!anemometer.error || needHeight;
+  const readError = read.error;
+  const blocked = !file || tooLarge || readError !== null || (effectiveFormat === 'csv' && (needTime || !zoneOk)) || !!anemometerError || needHeight;
 
   return (
     <div>
       <PageHeader
         title="Import sea data"
-        subtitle={`CSV or NDBC standard meteorological text, up to ${LIMIT_MB} MB. Nothing is stored until the whole file has been read and checked.`}
+        subtitle={`CSV or NDBC standard meteorological text up to ${LIMIT_MB} MB, or NetCDF (CF conventions) up to ${NETCDF_LIMIT_GB} GB. Nothing is stored until the whole file has been read and checked.`}
         actions={
           <Link to={`/projects/${project.id}/sea-data`} className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-ink hover:bg-surface-2">
             Back to the list
@@ -352,21 +431,22 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         <Card>
           <h2 className="mb-3 text-lg font-bold">1. The file</h2>
           <div className="grid gap-4 md:grid-cols-[2fr_1fr]">
-            <FieldShell label="File" htmlFor="file" hint={`Up to ${LIMIT_MB} MB; UTF-8 text.`} error={errors.file}>
+            <FieldShell label="File" htmlFor="file" hint={`Text up to ${LIMIT_MB} MB (UTF-8); NetCDF up to ${NETCDF_LIMIT_GB} GB.`} error={fileError ?? undefined}>
               <input
                 id="file"
                 type="file"
-                accept=".csv,.txt,.tsv,.dat,text/csv,text/plain"
+                accept=".csv,.txt,.tsv,.dat,.nc,.nc4,.cdf,.netcdf,text/csv,text/plain,application/x-netcdf"
                 disabled={busy}
                 onChange={(e) => void chooseFile(e.target.files?.[0] ?? null)}
                 className="min-h-11 w-full rounded-lg border border-line bg-surface text-sm text-ink file:mr-3 file:min-h-11 file:cursor-pointer file:border-0 file:border-r file:border-line file:bg-surface-2 file:px-4 file:font-semibold file:text-ink"
               />
             </FieldShell>
             <FieldShell label="Format" htmlFor="format" hint="Automatic looks at the first lines.">
-              <Select id="format" value={format} disabled={busy} onChange={(e) => setFormat(e.target.value as ImportFormat)}>
-                <option value="auto">Automatic{detected ? ` (${detected === 'ndbc' ? 'NDBC text found' : 'CSV found'})` : ''}</option>
+              <Select id="format" disabled={busy} {...register('format')}>
+                <option value="auto">Automatic{detected ? ` (${FOUND[detected]})` : ''}</option>
                 <option value="csv">CSV</option>
                 <option value="ndbc">NDBC standard meteorological</option>
+                <option value="netcdf">NetCDF (CF conventions)</option>
               </Select>
             </FieldShell>
           </div>
@@ -378,7 +458,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
           {tooLarge ? (
             <div className="mt-3">
               <Notice tone="error">
-                This file is {formatBytes(file.size)}: the upload limit is {LIMIT_MB} MB. Split it into parts (for example by decade) and import each part.
+                This file is {formatBytes(file.size)}: the upload limit is {read.netcdf ? `${NETCDF_LIMIT_GB} GB` : `${LIMIT_MB} MB`}. Split it into parts (for example by decade) and import each part.
               </Notice>
             </div>
           ) : null}
@@ -392,28 +472,11 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         <Card>
           <h2 className="mb-3 text-lg font-bold">2. About the data</h2>
           <div className="grid gap-4 md:grid-cols-2">
-            <FieldShell label="Name" htmlFor="name" error={errors.name} hint="Shown in lists and plans.">
-              <Input
-                id="name"
-                value={name}
-                maxLength={120}
-                invalid={!!errors.name}
-                onChange={(e) => {
-                  setName(e.target.value);
-                  setNameTouched(true);
-                  clearError('name');
-                }}
-              />
+            <FieldShell label="Name" htmlFor="name" error={errors.name?.message} hint="Shown in lists and plans.">
+              <Input id="name" maxLength={120} invalid={!!errors.name} {...register('name', { onChange: () => setChosenByUser((c) => ({ ...c, name: true })) })} />
             </FieldShell>
-            <FieldShell label="Kind" htmlFor="kind" hint={KIND_HINTS[kind]}>
-              <Select
-                id="kind"
-                value={kind}
-                onChange={(e) => {
-                  setKind(e.target.value as DatasetKind);
-                  setKindTouched(true);
-                }}
-              >
+            <FieldShell label="Kind" htmlFor="kind" hint={KIND_HINTS[v.kind]}>
+              <Select id="kind" {...register('kind', { onChange: () => setChosenByUser((c) => ({ ...c, kind: true })) })}>
                 {DATASET_KINDS.map((k) => (
                   <option key={k} value={k}>
                     {KIND_LABELS[k]}
@@ -426,31 +489,20 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 label="Water depth at the data point"
                 unit="m"
                 htmlFor="depth"
-                error={errors.dataPointDepth}
-                hint={`Project setting: ${formatDepth(project.dataPointDepthM)}.`}
+                error={errors.depth?.message}
+                hint={`Project setting: ${formatDepth(project.dataPointDepthM)}.${isNetcdf ? ' A model depth in the file replaces it.' : ''}`}
               >
-                <Input
-                  id="depth"
-                  inputMode="decimal"
-                  value={deep ? '' : depthText}
-                  placeholder={deep ? 'deep water' : ''}
-                  disabled={deep}
-                  invalid={!!errors.dataPointDepth}
-                  onChange={(e) => {
-                    setDepthText(e.target.value);
-                    clearError('dataPointDepth');
-                  }}
-                />
+                {v.deep ? (
+                  <Input id="depth" inputMode="decimal" value="" placeholder="deep water" disabled />
+                ) : (
+                  <Input id="depth" inputMode="decimal" invalid={!!errors.depth} {...register('depth', { onChange: () => clearErrors('depth') })} />
+                )}
               </FieldShell>
               <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
                 <input
                   type="checkbox"
                   className="size-5 accent-[var(--color-accent)]"
-                  checked={deep}
-                  onChange={(e) => {
-                    setDeep(e.target.checked);
-                    clearError('dataPointDepth');
-                  }}
+                  {...register('deep', { onChange: () => clearErrors('depth') })}
                 />
                 Deep water (depth unknown or no effect on the waves)
               </label>
@@ -459,23 +511,21 @@ function ImportForm({ project }: { project: ProjectDetail }) {
               label={effectiveFormat === 'ndbc' ? 'Anemometer height above the sea (required for buoy wind)' : 'Anemometer height above the sea'}
               unit="m"
               htmlFor="anemometer"
-              error={errors.anemometerHeight ?? anemometer.error}
+              error={errors.anemometer?.message ?? anemometerError}
               hint={
                 effectiveFormat === 'ndbc'
                   ? 'Limits are for wind at 10 m; NDBC buoys measure it at about 4-5 m (see the station page). Enter the height, or 10 when the wind is already at 10 m. Wind becomes U10 = Uz·(10/z)^a.'
-                  : 'Empty: the wind in the file is already at 10 m (no correction). Enter the height when it is not; wind becomes U10 = Uz·(10/z)^a.'
+                  : isNetcdf
+                    ? 'Empty: the wind in the file is taken as given at 10 m (as wave models give it). Enter the height when it is not; wind becomes U10 = Uz·(10/z)^a.'
+                    : 'Empty: the wind in the file is already at 10 m (no correction). Enter the height when it is not; wind becomes U10 = Uz·(10/z)^a.'
               }
             >
               <Input
                 id="anemometer"
                 inputMode="decimal"
-                value={anemometerText}
                 placeholder={effectiveFormat === 'ndbc' ? 'e.g. 4.1' : 'already at 10 m'}
-                invalid={!!anemometer.error || !!errors.anemometerHeight}
-                onChange={(e) => {
-                  setAnemometerText(e.target.value);
-                  clearError('anemometerHeight');
-                }}
+                invalid={!!anemometerError || !!errors.anemometer}
+                {...register('anemometer', { onChange: () => clearErrors('anemometer') })}
               />
             </FieldShell>
             <FieldShell
@@ -483,14 +533,14 @@ function ImportForm({ project }: { project: ProjectDetail }) {
               htmlFor="wind-exponent"
               hint="0.11 over the open sea (Hsu, Meindl & Gilhousen 1994); 1/7 is an over-land value. Used only when the height is not 10 m."
             >
-              <Select id="wind-exponent" value={exponentChoice} onChange={(e) => setExponentChoice(e.target.value as 'open-sea' | 'over-land')}>
+              <Select id="wind-exponent" {...register('exponent')}>
                 <option value="open-sea">0.11 (open sea)</option>
                 <option value="over-land">1/7 (over land)</option>
               </Select>
             </FieldShell>
             {effectiveFormat === 'csv' ? (
               <FieldShell label="Directions in the file" htmlFor="direction-convention" hint="Lullwatch stores where waves and wind come from. Going-to directions get 180° added.">
-                <Select id="direction-convention" value={directionConvention} onChange={(e) => setDirectionConvention(e.target.value as DirectionConvention)}>
+                <Select id="direction-convention" {...register('directionConvention')}>
                   <option value="coming-from">Coming from (nautical, usual)</option>
                   <option value="going-to">Going to (oceanographic)</option>
                 </Select>
@@ -510,12 +560,16 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                   preview={preview}
                   values={csvValues}
                   showDateOrder={showDateOrder}
-                  errors={{ ...errors, timeZone: errors.timeZone ?? (zoneOk ? undefined : 'Unknown time zone: use an IANA name such as Europe/Oslo.') }}
+                  errors={{
+                    columns: errors.mapping?.message,
+                    missingCodes: errors.missingText?.message,
+                    timeZone: errors.timeZone?.message ?? (zoneOk ? undefined : 'Unknown time zone: use an IANA name such as Europe/Oslo.'),
+                  }}
                   onDelimiter={(d) => {
-                    setDelimiter(d);
-                    setDecimalComma(null);
-                    setMapping(null);
-                    setUnits(null);
+                    setValue('delimiter', d);
+                    setValue('decimalComma', null);
+                    setValue('mapping', null);
+                    setValue('units', null);
                   }}
                   onChange={onCsvChange}
                 />
@@ -560,9 +614,49 @@ function ImportForm({ project }: { project: ProjectDetail }) {
           </Card>
         ) : null}
 
+        {isNetcdf && file && !tooLarge ? (
+          <Card>
+            <h2 className="mb-3 text-lg font-bold">3. Point and water level</h2>
+            <p className="mb-3 text-sm text-ink-soft">
+              Variables are found by their CF standard names (or, without them, by the usual column names); only the chosen point’s series is read. Without a
+              choice, the sea point nearest the data point is read (points with over half their wave heights missing are skipped). Partitions (wind sea,
+              swells) are read and give the total when the file has none, but only the total is stored for now.
+            </p>
+            <div className="mb-4 flex flex-wrap items-center gap-3">
+              <Button variant="secondary" disabled={pointsQuery.isPending || busy} onClick={() => pointsQuery.mutate(file)}>
+                {pointsQuery.isPending ? 'Reading the grid…' : 'List the grid points'}
+              </Button>
+              <span className="text-sm text-ink-soft" data-testid="grid-point-choice">
+                {v.gridPoint ? `Chosen point: index [${v.gridPoint}]` : 'Point: the sea point nearest the data point'}
+              </span>
+            </div>
+            {pointsQuery.error ? <ErrorNotice error={pointsQuery.error} /> : null}
+            {pointsQuery.data ? (
+              <div className="mb-4 flex flex-col gap-2">
+                <p className="text-sm">
+                  Variables found:{' '}
+                  {pointsQuery.data.variables.map((x) => `${x.role} = ${x.variable}`).join('; ') || 'none'}
+                </p>
+                <NetcdfPointsTable answer={pointsQuery.data} value={v.gridPoint} onChange={(g) => setValue('gridPoint', g)} />
+              </div>
+            ) : null}
+            <div className="grid gap-4 md:grid-cols-2">
+              <FieldShell
+                label="Water level datum above chart datum"
+                unit="m"
+                htmlFor="water-level-offset"
+                error={errors.waterLevelOffset?.message}
+                hint="Only for files with a water level: the height of the datum its standard name states (e.g. mean sea level) above the worksite's chart datum. Without it such a file is refused; a datum is never guessed."
+              >
+                <Input id="water-level-offset" inputMode="decimal" invalid={!!errors.waterLevelOffset} {...register('waterLevelOffset', { onChange: () => clearErrors('waterLevelOffset') })} />
+              </FieldShell>
+            </div>
+          </Card>
+        ) : null}
+
         <Card>
-          <h2 className="mb-3 text-lg font-bold">{head !== null ? '4' : '3'}. Import</h2>
-          <fieldset className="mb-4">
+          <h2 className="mb-3 text-lg font-bold">{head !== null || isNetcdf ? '4' : '3'}. Import</h2>
+          <fieldset className="mb-4" hidden={isNetcdf}>
             <legend className="mb-1 text-sm font-semibold">When a row is bad</legend>
             <div className="flex flex-col gap-1 sm:flex-row sm:gap-6">
               {(
@@ -574,11 +668,9 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 <label key={value} className="flex min-h-11 items-center gap-3 text-sm">
                   <input
                     type="radio"
-                    name="onBadRows"
                     value={value}
                     className="size-5 accent-[var(--color-accent)]"
-                    checked={onBadRows === value}
-                    onChange={() => setOnBadRows(value)}
+                    {...register('onBadRows')}
                   />
                   {label}
                 </label>
@@ -607,7 +699,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 <Notice tone="error">
                   <p className="font-semibold">{badFile.message}</p>
                   <p className="mt-1">Nothing was saved.</p>
-                  {onBadRows === 'refuse' && (badFile.details?.some((d) => (d.line ?? 0) > 0) ?? false) ? (
+                  {v.onBadRows === 'refuse' && !isNetcdf && (badFile.details?.some((d) => (d.line ?? 0) > 0) ?? false) ? (
                     <p className="mt-1">To keep the good rows and list the bad ones, choose “Skip bad rows and list them” and import again.</p>
                   ) : null}
                 </Notice>

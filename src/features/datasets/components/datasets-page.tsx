@@ -84,7 +84,7 @@ export function DatasetsPage() {
           <p className="font-semibold">No sea data in this project yet.</p>
           <p className="mt-1 text-sm text-ink-soft">
             {canEdit
-              ? 'Import a hindcast or buoy file (CSV or NDBC text, up to 100 MB), or fetch the latest forecast for the data point.'
+              ? 'Import a hindcast or buoy file (CSV or NDBC text up to 100 MB, NetCDF up to 2 GB), or fetch the latest forecast for the data point.'
               : 'A marine coordinator imports hindcasts and buoy records and fetches forecasts; they will be listed here.'}
           </p>
         </Card>

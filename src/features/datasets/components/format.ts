@@ -72,7 +72,7 @@ export function describeSource(d: DatasetSummary): string {
   if (d.source.kind === 'service') {
     return d.source.issuedAt ? `Forecast service, issued ${formatUtc(d.source.issuedAt)}` : 'Forecast service';
   }
-  const fmt = d.source.format === 'ndbc' ? 'NDBC text' : d.source.format === 'csv' ? 'CSV' : null;
+  const fmt = d.source.format === 'ndbc' ? 'NDBC text' : d.source.format === 'csv' ? 'CSV' : d.source.format === 'netcdf' ? 'NetCDF' : null;
   return `${d.source.fileName ?? 'Uploaded file'}${fmt ? ` (${fmt})` : ''}`;
 }
 

@@ -56,7 +56,7 @@ const PERIODS: { key: 'tp' | 'tz' | 'te'; label: string }[] = [
 export function ImportReportCard({ d }: { d: DatasetDetail }) {
   const r = readReport(d.importReport);
   const fromService = d.source.kind === 'service';
-  const formatName = r.format === 'ndbc' ? 'NDBC standard meteorological text' : r.format === 'csv' ? 'CSV' : (r.format ?? r.source);
+  const formatName = r.format === 'ndbc' ? 'NDBC standard meteorological text' : r.format === 'csv' ? 'CSV' : r.format === 'netcdf' ? 'NetCDF (CF conventions)' : (r.format ?? r.source);
   return (
     <Card>
       <h2 className="mb-3 text-lg font-bold">{fromService ? 'How it was fetched' : 'Import report'}</h2>
@@ -84,7 +84,7 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
                 </span>
               </Item>
             ) : null}
-            {r.timeZone && r.format !== 'ndbc' ? <Item label="Times without offset read in">
+            {r.timeZone && r.format !== 'ndbc' && r.format !== 'netcdf' ? <Item label="Times without offset read in">
                 {/* An import setting (the file's zone), not a statement of the page's times. */}
                 <span data-setting>{r.timeZone}</span>
               </Item> : null}

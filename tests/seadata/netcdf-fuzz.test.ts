@@ -1,0 +1,69 @@
+// Damaged NetCDF files: cut short at many lengths, or with bytes overwritten at random, every
+// fixture must either read or fail with a clear 400 (HttpError 'bad_file' or 'validation' naming
+// what is wrong), never another error, and within a time bound. Fixtures: tests/fixtures/netcdf
+// (written by Python's netCDF4). Random damage is seeded (fast-check), so a failure replays.
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import fc from 'fast-check';
+import { afterAll, describe, expect, it } from 'vitest';
+import { HttpError } from '../../server/http/errors';
+import { readNetcdfPoint, withNetcdf } from '../../server/services/netcdf-import';
+
+const DIR = path.resolve(import.meta.dirname, '../fixtures/netcdf');
+const TMP = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-ncfuzz-'));
+afterAll(() => fs.rmSync(TMP, { recursive: true, force: true }));
+
+/**
+ * Longest a damaged small file may take to read or fail (common practice, no source): generous,
+ * as the test machine's two cores are shared; a hang or a runaway allocation takes far longer.
+ */
+const BOUND_MS = 5000;
+
+let n = 0;
+async function attempt(bytes: Uint8Array): Promise<'read' | 'refused'> {
+  const file = path.join(TMP, `f${n++}.nc`);
+  fs.writeFileSync(file, bytes);
+  const t0 = performance.now();
+  try {
+    await withNetcdf(file, (f) => readNetcdfPoint(f, { dataPoint: { lat: 50.041, lon: -5.988 }, waterLevelOffsetM: 0 }));
+    return 'read';
+  } catch (err) {
+    if (!(err instanceof HttpError) || (err.status !== 400 && err.status !== 413)) {
+      throw new Error(`not a clear refusal: ${(err as Error)?.stack ?? String(err)}`, { cause: err });
+    }
+    expect(err.message.length).toBeGreaterThan(20);
+    return 'refused';
+  } finally {
+    expect(performance.now() - t0, 'time to read or refuse').toBeLessThan(BOUND_MS);
+    fs.rmSync(file, { force: true });
+  }
+}
+
+const FILES = ['classic.nc', 'packed.nc', 'grid-3x3.nc', 'point-partitions.nc'];
+
+describe('cut-short and damaged NetCDF files', () => {
+  for (const name of FILES) {
+    const whole = new Uint8Array(fs.readFileSync(path.join(DIR, name)));
+    it(`${name} cut short at 40 lengths fails clearly`, async () => {
+      let refused = 0;
+      for (let k = 1; k <= 40; k++) {
+        const cut = Math.floor((whole.length * k) / 41);
+        if ((await attempt(whole.subarray(0, cut))) === 'refused') refused++;
+      }
+      // A file cut anywhere before its last data byte cannot be read whole.
+      expect(refused).toBeGreaterThan(30);
+    });
+
+    it(`${name} with random bytes overwritten reads or fails clearly`, async () => {
+      await fc.assert(
+        fc.asyncProperty(fc.array(fc.tuple(fc.nat({ max: whole.length - 1 }), fc.nat({ max: 255 })), { minLength: 1, maxLength: 16 }), async (edits) => {
+          const copy = whole.slice();
+          for (const [at, b] of edits) copy[at] = b;
+          await attempt(copy);
+        }),
+        { numRuns: 60, seed: 20261203 },
+      );
+    });
+  }
+});
