@@ -7,13 +7,16 @@ import {
   DEFAULT_ALPHA_TABLE,
   calendarIndex,
   createStatisticsScratch,
+  createStatusManyScratch,
   detectStepMs,
-  evaluateStatus,
+  evaluateStatusMany,
   monthlyStatisticsWithGoStarts,
   type OperationSpec,
   type SiteSeries as EngineSeries,
+  type StatisticsScratch,
+  type StatusManyScratch,
 } from '../shared/engine/index';
-import { createSiteSeries, transformToSite, type SiteGeometry } from '../shared/waves/index';
+import { createSiteSeries, prepareSeaInput, transformToSite, type SiteGeometry, type SiteSeries as TransformedSeries } from '../shared/waves/index';
 
 /** The peer's input and set-up in our terms. */
 export interface HindcastInput {
@@ -37,14 +40,47 @@ export interface StageTimes {
   checksum: number;
 }
 
-/** Transform, status and statistics for the given worksites (all when omitted), one after the other. */
+/**
+ * Buffers one thread keeps from run to run, as a server's engine worker keeps its workspace:
+ * the worksite series, the status arrays and the statistics' scratch.
+ */
+interface RunBuffers {
+  n: number;
+  sites: TransformedSeries[];
+  statuses: Uint8Array[][];
+  goStart: Uint8Array;
+  scratch: StatisticsScratch;
+  statusScratch: StatusManyScratch;
+}
+
+let buffers: RunBuffers | null = null;
+
+function runBuffers(n: number, sites: number, ops: number): RunBuffers {
+  if (!buffers || buffers.n !== n) {
+    buffers = { n, sites: [], statuses: [], goStart: new Uint8Array(n), scratch: createStatisticsScratch(n), statusScratch: createStatusManyScratch(n) };
+  }
+  while (buffers.sites.length < sites) buffers.sites.push(createSiteSeries(n));
+  while (buffers.statuses.length < sites) buffers.statuses.push([]);
+  for (const list of buffers.statuses) while (list.length < ops) list.push(new Uint8Array(n));
+  return buffers;
+}
+
+/**
+ * Transform, status and statistics for the given worksites (all when omitted), one after the other,
+ * as the workability service does it: the data point's distinct values found once for every
+ * worksite, only the fields the engine reads transformed, every operation's status at a worksite
+ * in one evaluateStatusMany call, one calendar for the series, buffers reused from run to run.
+ */
 export function runHindcastAllSites(input: HindcastInput, siteIndices?: number[]): StageTimes {
   const n = input.timeMs.length;
   const indices = siteIndices ?? input.sites.map((_, i) => i);
+  const buf = runBuffers(n, indices.length, input.operations.length);
   const t0 = performance.now();
   const tzS = new Float64Array(n).fill(NaN); // no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8)
-  const transformed = indices.map((s) =>
-    transformToSite({ hsM: input.hs, tpS: input.tp, tzS, dirDeg: input.dir }, { depthM: input.sourceDepthM }, input.sites[s], { out: createSiteSeries(n) }),
+  const sea = { hsM: input.hs, tpS: input.tp, tzS, dirDeg: input.dir };
+  const prepared = prepareSeaInput(sea);
+  const transformed = indices.map((s, k) =>
+    transformToSite(sea, { depthM: input.sourceDepthM }, input.sites[s], { out: buf.sites[k], fields: 'engine', prepared }),
   );
   const t1 = performance.now();
   const series: EngineSeries[] = transformed.map((t) => ({
@@ -55,16 +91,16 @@ export function runHindcastAllSites(input: HindcastInput, siteIndices?: number[]
     bedVelocitySoulsbyMps: t.bedVelocitySoulsbyMps,
     windMps: input.wind,
   }));
-  const statuses = series.map((s) => input.operations.map((op) => evaluateStatus(s, op, { alphaTable: DEFAULT_ALPHA_TABLE })));
+  const statuses = series.map((s, k) =>
+    evaluateStatusMany(s, input.operations, { alphaTable: DEFAULT_ALPHA_TABLE, out: buf.statuses[k], scratch: buf.statusScratch }),
+  );
   const t2 = performance.now();
   let checksum = 0;
-  const goStart = new Uint8Array(n);
-  const scratch = createStatisticsScratch(n);
+  const stepMs = detectStepMs(input.timeMs);
+  const calendar = calendarIndex(input.timeMs, 'UTC');
   series.forEach((s, k) => {
-    const stepMs = detectStepMs(s.timeMs);
-    const calendar = calendarIndex(s.timeMs, 'UTC');
     input.operations.forEach((op, o) => {
-      const r = monthlyStatisticsWithGoStarts(s.timeMs, statuses[k][o], goStart, stepMs, calendar, op.tpopH + op.tcH, scratch);
+      const r = monthlyStatisticsWithGoStarts(s.timeMs, statuses[k][o], buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
       for (const m of r.months) checksum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
       for (const ym of r.yearMonths) checksum += (ym.wowP90Hours ?? 0) * 1e-6;
     });
