@@ -10,5 +10,9 @@ try {
   process.exit(1);
 }
 
+// The migrated empty database a first start copies (made by `npm run build`; made here if missing).
+const { ensureDatabaseTemplate } = await import('../server/db/template');
+await ensureDatabaseTemplate((m) => console.log(`[lullwatch] ${m}`));
+
 process.env.NODE_ENV ??= 'production';
 await import('../server/index');

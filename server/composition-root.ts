@@ -9,6 +9,7 @@ import { loadEnv, resolveAuthSecret, type Env } from './env';
 import { claimDataDir, publishPort, releaseDataDir } from './data-dir-claim';
 import { openDatabase, type Database } from './db/client';
 import { migrateDatabase } from './db/migrate';
+import { copyTemplateIfEmpty } from './db/template';
 import { account, user } from './db/schema';
 import { DEMO_PASSWORD, DEMO_USERS } from '../seed/scenario';
 import { createAuth } from './auth';
@@ -46,7 +47,10 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
 }
 
 async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Promise<Running> {
-  const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: path.join(env.DATA_DIR, 'db') });
+  const dbDir = path.join(env.DATA_DIR, 'db');
+  // An empty data folder starts from the migrated empty database made at build time (server/db/template.ts).
+  if (!env.DATABASE_URL && copyTemplateIfEmpty(dbDir)) log.info('Empty data folder: the embedded database starts from the migrated template');
+  const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: dbDir });
 
   const forecast = await createForecastProvider({ forecastUrl: env.FORECAST_URL, forecastApiKey: env.FORECAST_API_KEY });
   if (forecast.fake) log.info(`No FORECAST_URL: local fake forecast service at ${forecast.fake.url}`);
