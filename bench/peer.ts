@@ -15,7 +15,7 @@
 // Exit code: 0 whatever the figures (a measurement); 2 when python3, NumPy/SciPy or the peer script
 // is missing (with how to install them); 1 when the run itself failed.
 //
-// Options: --peer PATH, --runs N (default 5), --threads N (worker threads across worksites; default
+// Options: --peer PATH, --runs N (default 5), --threads N (worker threads sharing the (worksite, operation) pairs; default
 // the number of cores, at most the number of worksites; 1 runs everything on the main thread).
 import fs from 'node:fs';
 import os from 'node:os';
@@ -202,7 +202,7 @@ async function main(): Promise<void> {
         .toISOString()
         .slice(0, 10)}), data point ${setup.d_src} m; ${sites.length} worksites x ${operations.length} operations (the peer's SITES and OPS)`,
     );
-    console.log(`Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads across worksites`}; ${RUNS} runs, the first cold\n`);
+    console.log(`Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads sharing the (worksite, operation) pairs`}; ${RUNS} runs, the first cold\n`);
 
     // Ours: the first run is the cold one (fresh process, and fresh workers when threads are used).
     const pool = THREADS > 1 ? await EnginePool.start(THREADS) : null;
