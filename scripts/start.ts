@@ -10,9 +10,12 @@ try {
   process.exit(1);
 }
 
-// The migrated empty database a first start copies (made by `npm run build`; made here if missing).
-const { ensureDatabaseTemplate } = await import('../server/db/template');
-await ensureDatabaseTemplate((m) => console.log(`[lullwatch] ${m}`));
+// The embedded database: the migrated empty one a first start copies (made by `npm run build`;
+// made here when missing).
+if (!process.env.DATABASE_URL) {
+  const { ensureDatabaseTemplate } = await import('../server/db/template');
+  await ensureDatabaseTemplate((m) => console.log(`[lullwatch] ${m}`));
+}
 
 process.env.NODE_ENV ??= 'production';
 await import('../server/index');
