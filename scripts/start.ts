@@ -14,7 +14,10 @@ try {
 // made here when missing).
 if (!process.env.DATABASE_URL) {
   const { ensureDatabaseTemplate } = await import('../server/db/template');
-  await ensureDatabaseTemplate((m) => console.log(`[lullwatch] ${m}`));
+  // Only a speed-up: without it the server creates the database itself.
+  await ensureDatabaseTemplate((m) => console.log(`[lullwatch] ${m}`)).catch((err: unknown) => {
+    console.warn(`[lullwatch] No empty database template (${err instanceof Error ? err.message : String(err)}); the server creates the database itself`);
+  });
 }
 
 process.env.NODE_ENV ??= 'production';

@@ -89,7 +89,8 @@ export async function ensureDatabaseTemplate(log: (message: string) => void = ()
 
 /**
  * Copies the current template into `dataDir` when that folder is missing or empty and the
- * template exists. Returns true when it copied. The copy goes to a sibling folder first and is
+ * template exists. Returns true when it copied (false also when the copy failed: the folder is then
+ * as before, and the server creates the database itself). The copy goes to a sibling folder first and is
  * renamed into place, so a crash mid-copy leaves no half database behind.
  */
 export function copyTemplateIfEmpty(dataDir: string): boolean {
@@ -97,9 +98,15 @@ export function copyTemplateIfEmpty(dataDir: string): boolean {
   const source = templatePath();
   if (!fs.existsSync(path.join(source, 'PG_VERSION'))) return false;
   const staging = `${dataDir}.from-template-${process.pid}`;
-  fs.rmSync(staging, { recursive: true, force: true });
-  fs.cpSync(source, staging, { recursive: true });
-  fs.rmSync(dataDir, { recursive: true, force: true });
-  fs.renameSync(staging, dataDir);
-  return true;
+  try {
+    fs.rmSync(staging, { recursive: true, force: true });
+    fs.cpSync(source, staging, { recursive: true });
+    fs.rmSync(dataDir, { recursive: true, force: true });
+    fs.renameSync(staging, dataDir);
+    return true;
+  } catch {
+    // Only a speed-up: on any failure the server creates the database itself, as without a template.
+    fs.rmSync(staging, { recursive: true, force: true });
+    return false;
+  }
 }
