@@ -9,6 +9,9 @@ import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './
  */
 const KNOWN_LIMIT_KEYS: ReadonlySet<string> = new Set(['hsMax', 'hsTpCurve', 'tpMin', 'tpMax', 'tpExcluded', 'bedVelocityMax', 'bedVelocityMethod', 'windMax']);
 
+/** The fields of an operation this path knows; any other one set sends the operation to the general path. */
+const KNOWN_OPERATION_KEYS: ReadonlySet<string> = new Set(['tpopH', 'tcH', 'weatherRestricted', 'limits']);
+
 /** Operations per group of bit masks (one bit per operation in an int32). */
 const GROUP = 32;
 
@@ -18,10 +21,16 @@ if (STATUS.NO_DATA !== 0 || STATUS.NOT_WORKABLE !== 1 || STATUS.MARGINAL !== 2 |
 }
 
 /**
- * True when {@link evaluateStatusMany} evaluates this operation in its one pass: every limit it
- * sets is of a kind that pass knows. Otherwise the operation goes to the general path.
+ * True when {@link evaluateStatusMany} evaluates this operation in its own passes: every limit it
+ * sets is of a kind those passes know, and it has no other field set beside TPOP, TC, the
+ * weather-restricted flag and the limits. Otherwise the operation goes to the general path.
  */
 export function statusFastPathKnows(op: OperationSpec): boolean {
+  // A field of the operation beside its limits that this path does not know may be a limit too.
+  const fields = op as unknown as Record<string, unknown>;
+  for (const key of Object.keys(fields)) {
+    if (fields[key] != null && !KNOWN_OPERATION_KEYS.has(key)) return false;
+  }
   const limits = op.limits as Record<string, unknown>;
   for (const key of Object.keys(limits)) {
     if (limits[key] != null && !KNOWN_LIMIT_KEYS.has(key)) return false;

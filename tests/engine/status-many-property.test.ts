@@ -148,6 +148,8 @@ describe('evaluateStatusMany falls back to the general path for limit kinds it d
     expect(statusFastPathKnows(known)).toBe(true);
     expect(statusFastPathKnows(withOther)).toBe(false);
     expect(statusFastPathKnows(withNullOther)).toBe(true);
+    // A field beside the limits (a later rule could put one there) sends it to the general path too.
+    expect(statusFastPathKnows({ ...known, someLaterField: { from: 1 } } as unknown as OperationSpec)).toBe(false);
     const series = makeSeries({ hsM: [0.5, 1.2, 1.6, NaN], tpS: [8, 8, 8, 8], windMps: [5, 5, 5, 5] });
     const [a, b] = evaluateStatusMany(series, [known, withOther], { alphaTable: DEFAULT_ALPHA_TABLE });
     expect(Array.from(a)).toEqual(Array.from(evaluateStatus(series, known, { alphaTable: DEFAULT_ALPHA_TABLE })));
