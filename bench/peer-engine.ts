@@ -1,19 +1,22 @@
 // The work `npm run bench:peer` times on our side: transform the data point's series to each
 // worksite, hourly status of every operation there, then every monthly and year-month statistic;
-// on the main thread or on worker threads, each taking whole worksites.
+// on the main thread or on worker threads, each taking an equal share of the (worksite, operation) pairs.
 import type { Worker } from 'node:worker_threads';
 import { tsWorker } from '../scripts/lib/ts-worker';
 import {
   DEFAULT_ALPHA_TABLE,
   calendarIndex,
   createStatisticsScratch,
+  createStatusManyScratch,
   detectStepMs,
-  evaluateStatus,
+  evaluateStatusMany,
   monthlyStatisticsWithGoStarts,
   type OperationSpec,
   type SiteSeries as EngineSeries,
+  type StatisticsScratch,
+  type StatusManyScratch,
 } from '../shared/engine/index';
-import { createSiteSeries, transformToSite, type SiteGeometry } from '../shared/waves/index';
+import { createSiteSeries, prepareSeaInput, transformToSite, type SiteGeometry, type SiteSeries as TransformedSeries } from '../shared/waves/index';
 
 /** The peer's input and set-up in our terms. */
 export interface HindcastInput {
@@ -37,16 +40,60 @@ export interface StageTimes {
   checksum: number;
 }
 
-/** Transform, status and statistics for the given worksites (all when omitted), one after the other. */
-export function runHindcastAllSites(input: HindcastInput, siteIndices?: number[]): StageTimes {
+/**
+ * Buffers one thread keeps from run to run, as a server's engine worker keeps its workspace:
+ * the worksite series, the status arrays and the statistics' scratch.
+ */
+interface RunBuffers {
+  n: number;
+  sites: TransformedSeries[];
+  statuses: Uint8Array[][];
+  goStart: Uint8Array;
+  scratch: StatisticsScratch;
+  statusScratch: StatusManyScratch;
+}
+
+let buffers: RunBuffers | null = null;
+
+function runBuffers(n: number, sites: number, ops: number): RunBuffers {
+  if (!buffers || buffers.n !== n) {
+    buffers = { n, sites: [], statuses: [], goStart: new Uint8Array(n), scratch: createStatisticsScratch(n), statusScratch: createStatusManyScratch(n) };
+  }
+  while (buffers.sites.length < sites) buffers.sites.push(createSiteSeries(n));
+  while (buffers.statuses.length < sites) buffers.statuses.push([]);
+  for (const list of buffers.statuses) while (list.length < ops) list.push(new Uint8Array(n));
+  return buffers;
+}
+
+/** A share of the work: (worksite, operation) pairs as worksite * operations + operation, ascending. */
+export type PairList = number[];
+
+/** Every (worksite, operation) pair. */
+export function allPairs(input: HindcastInput): PairList {
+  return Array.from({ length: input.sites.length * input.operations.length }, (_, k) => k);
+}
+
+/**
+ * Transform, status and statistics of the given (worksite, operation) pairs (all when omitted), one
+ * stage after the other, as the workability service does it: the data point's distinct values found
+ * once for every worksite, only the fields the engine reads transformed, the status of a worksite's
+ * operations in one evaluateStatusMany call, one calendar for the series, buffers reused from run
+ * to run. `clock` times the stages (ms; default wall time).
+ */
+export function runHindcastAllSites(input: HindcastInput, pairs: PairList = allPairs(input), clock: () => number = () => performance.now()): StageTimes {
   const n = input.timeMs.length;
-  const indices = siteIndices ?? input.sites.map((_, i) => i);
-  const t0 = performance.now();
+  const nOps = input.operations.length;
+  const indices = [...new Set(pairs.map((p) => Math.floor(p / nOps)))];
+  const opsOf = indices.map((s) => pairs.filter((p) => Math.floor(p / nOps) === s).map((p) => p % nOps));
+  const buf = runBuffers(n, indices.length, nOps);
+  const t0 = clock();
   const tzS = new Float64Array(n).fill(NaN); // no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8)
-  const transformed = indices.map((s) =>
-    transformToSite({ hsM: input.hs, tpS: input.tp, tzS, dirDeg: input.dir }, { depthM: input.sourceDepthM }, input.sites[s], { out: createSiteSeries(n) }),
+  const sea = { hsM: input.hs, tpS: input.tp, tzS, dirDeg: input.dir };
+  const prepared = prepareSeaInput(sea);
+  const transformed = indices.map((s, k) =>
+    transformToSite(sea, { depthM: input.sourceDepthM }, input.sites[s], { out: buf.sites[k], fields: 'engine', prepared }),
   );
-  const t1 = performance.now();
+  const t1 = clock();
   const series: EngineSeries[] = transformed.map((t) => ({
     timeMs: input.timeMs,
     hsM: t.hsM,
@@ -55,21 +102,26 @@ export function runHindcastAllSites(input: HindcastInput, siteIndices?: number[]
     bedVelocitySoulsbyMps: t.bedVelocitySoulsbyMps,
     windMps: input.wind,
   }));
-  const statuses = series.map((s) => input.operations.map((op) => evaluateStatus(s, op, { alphaTable: DEFAULT_ALPHA_TABLE })));
-  const t2 = performance.now();
+  const statuses = series.map((s, k) =>
+    evaluateStatusMany(
+      s,
+      opsOf[k].map((o) => input.operations[o]),
+      { alphaTable: DEFAULT_ALPHA_TABLE, out: buf.statuses[k], scratch: buf.statusScratch },
+    ),
+  );
+  const t2 = clock();
   let checksum = 0;
-  const goStart = new Uint8Array(n);
-  const scratch = createStatisticsScratch(n);
+  const stepMs = detectStepMs(input.timeMs);
+  const calendar = calendarIndex(input.timeMs, 'UTC');
   series.forEach((s, k) => {
-    const stepMs = detectStepMs(s.timeMs);
-    const calendar = calendarIndex(s.timeMs, 'UTC');
-    input.operations.forEach((op, o) => {
-      const r = monthlyStatisticsWithGoStarts(s.timeMs, statuses[k][o], goStart, stepMs, calendar, op.tpopH + op.tcH, scratch);
+    opsOf[k].forEach((o, j) => {
+      const op = input.operations[o];
+      const r = monthlyStatisticsWithGoStarts(s.timeMs, statuses[k][j], buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
       for (const m of r.months) checksum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
       for (const ym of r.yearMonths) checksum += (ym.wowP90Hours ?? 0) * 1e-6;
     });
   });
-  const t3 = performance.now();
+  const t3 = clock();
   return { transform: t1 - t0, status: t2 - t1, statistics: t3 - t2, total: t3 - t0, checksum };
 }
 
@@ -81,7 +133,7 @@ function shared(a: Float64Array): Float64Array {
 }
 
 /**
- * Worker threads that each take whole worksites. The input is placed in shared memory once per
+ * Worker threads that each take an equal share of the (worksite, operation) pairs. The input is placed in shared memory once per
  * input (not timed, like the peer's arrays already in memory); a run's total is the wall time from
  * posting the work to the last answer.
  */
@@ -107,8 +159,11 @@ export class EnginePool {
       this.sharedFrom = input;
     }
     const work = this.sharedInput as HindcastInput;
-    // Worksites dealt round-robin (5 worksites on 2 threads: 3 and 2).
-    const parts = this.workers.map((_, w) => work.sites.map((_, s) => s).filter((s) => s % this.workers.length === w));
+    // The (worksite, operation) pairs in equal contiguous shares (5 x 10 on 2 threads: 25 each; a
+    // worksite split between two threads is transformed by both, a small part of the work).
+    const pairs = allPairs(work);
+    const per = Math.ceil(pairs.length / this.workers.length);
+    const parts = this.workers.map((_, w) => pairs.slice(w * per, (w + 1) * per));
     const t0 = performance.now();
     const answers = await Promise.all(
       this.workers.map(
@@ -116,7 +171,7 @@ export class EnginePool {
           new Promise<StageTimes>((resolve, reject) => {
             w.once('message', (m: StageTimes) => resolve(m));
             w.once('error', reject);
-            w.postMessage({ input: work, sites: parts[i] });
+            w.postMessage({ input: work, pairs: parts[i] });
           }),
       ),
     );

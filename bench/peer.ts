@@ -15,7 +15,7 @@
 // Exit code: 0 whatever the figures (a measurement); 2 when python3, NumPy/SciPy or the peer script
 // is missing (with how to install them); 1 when the run itself failed.
 //
-// Options: --peer PATH, --runs N (default 5), --threads N (worker threads across worksites; default
+// Options: --peer PATH, --runs N (default 5), --cpu (both sides on one thread, in process CPU time), --threads N (worker threads sharing the (worksite, operation) pairs; default
 // the number of cores, at most the number of worksites; 1 runs everything on the main thread).
 import fs from 'node:fs';
 import os from 'node:os';
@@ -35,6 +35,7 @@ const { values: args } = parseArgs({
     peer: { type: 'string' },
     runs: { type: 'string', default: '5' },
     threads: { type: 'string' },
+    cpu: { type: 'boolean', default: false },
   },
 });
 
@@ -45,7 +46,11 @@ function fail(code: number, message: string): never {
 
 const RUNS = Number(args.runs);
 if (!Number.isInteger(RUNS) || RUNS < 1 || RUNS > 50) fail(1, `--runs must be a whole number from 1 to 50 (got ${args.runs})`);
-const THREADS = args.threads === undefined ? Math.min(os.availableParallelism(), 5) : Number(args.threads);
+// --cpu: both sides on one thread, timed in process CPU time instead of wall time (a figure that a
+// busy machine disturbs far less: time spent waiting for a core does not count).
+const CPU = args.cpu === true;
+if (CPU && args.threads !== undefined && args.threads !== '1') fail(1, '--cpu runs ours on one thread: leave out --threads');
+const THREADS = CPU ? 1 : args.threads === undefined ? Math.min(os.availableParallelism(), 5) : Number(args.threads);
 if (!Number.isInteger(THREADS) || THREADS < 1 || THREADS > 16) fail(1, `--threads must be a whole number from 1 to 16 (got ${args.threads})`);
 
 const peerPath = path.resolve(ROOT, args.peer ?? process.env.LULLWATCH_NUMPY_PEER ?? DEFAULT_PEER);
@@ -164,9 +169,21 @@ interface PeerFigures {
   total: number;
 }
 
-/** Runs the peer with --full --unique-tp and the given --repeat; returns its best per stage, ms. */
+/**
+ * Runs the peer with --full --unique-tp and the given --repeat; returns its best per stage, ms.
+ * With --cpu its clock (time.perf_counter) is replaced by time.process_time for that run, so the
+ * figures it prints are process CPU time; the script itself is not changed.
+ */
 function runPeer(repeat: number): PeerFigures {
-  const out = python([peerPath, '--full', '--unique-tp', '--repeat', String(repeat)], 'the NumPy peer');
+  const argv = ['--full', '--unique-tp', '--repeat', String(repeat)];
+  const code = [
+    'import runpy, sys, time',
+    'time.perf_counter = time.process_time',
+    `sys.path.insert(0, ${JSON.stringify(peerDir)})`,
+    `sys.argv = ${JSON.stringify([peerPath, ...argv])}`,
+    `runpy.run_path(${JSON.stringify(peerPath)}, run_name="__main__")`,
+  ].join('\n');
+  const out = python(CPU ? ['-c', code] : [peerPath, ...argv], 'the NumPy peer');
   const best = (stage: string) => {
     const m = new RegExp(`^\\s*${stage}\\s+best\\s+([\\d.]+) ms`, 'm').exec(out);
     if (!m) throw new Error(`the peer printed no ${stage} figure:\n${out}`);
@@ -176,6 +193,12 @@ function runPeer(repeat: number): PeerFigures {
 }
 
 const STAGES = ['transform', 'status', 'statistics', 'total'] as const;
+
+/** Process CPU time (user + system, every thread of the process), ms. */
+function cpuClockMs(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+}
 
 async function main(): Promise<void> {
   const cpus = os.cpus();
@@ -202,13 +225,14 @@ async function main(): Promise<void> {
         .toISOString()
         .slice(0, 10)}), data point ${setup.d_src} m; ${sites.length} worksites x ${operations.length} operations (the peer's SITES and OPS)`,
     );
-    console.log(`Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads across worksites`}; ${RUNS} runs, the first cold\n`);
+    if (CPU) console.log('--cpu: every figure below is process CPU time (both sides on one thread), not wall time');
+    console.log(`Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads sharing the (worksite, operation) pairs`}; ${RUNS} runs, the first cold\n`);
 
     // Ours: the first run is the cold one (fresh process, and fresh workers when threads are used).
     const pool = THREADS > 1 ? await EnginePool.start(THREADS) : null;
     const ours: StageTimes[] = [];
     try {
-      for (let r = 0; r < RUNS; r++) ours.push(pool ? await pool.run(input) : runHindcastAllSites(input));
+      for (let r = 0; r < RUNS; r++) ours.push(pool ? await pool.run(input) : runHindcastAllSites(input, undefined, CPU ? cpuClockMs : undefined));
     } finally {
       await pool?.close();
     }

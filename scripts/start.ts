@@ -10,5 +10,15 @@ try {
   process.exit(1);
 }
 
+// The embedded database: the migrated empty one a first start copies (made by `npm run build`;
+// made here when missing).
+if (!process.env.DATABASE_URL) {
+  const { ensureDatabaseTemplate } = await import('../server/db/template');
+  // Only a speed-up: without it the server creates the database itself.
+  await ensureDatabaseTemplate((m) => console.log(`[lullwatch] ${m}`)).catch((err: unknown) => {
+    console.warn(`[lullwatch] No empty database template (${err instanceof Error ? err.message : String(err)}); the server creates the database itself`);
+  });
+}
+
 process.env.NODE_ENV ??= 'production';
 await import('../server/index');

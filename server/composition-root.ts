@@ -9,6 +9,7 @@ import { loadEnv, resolveAuthSecret, type Env } from './env';
 import { claimDataDir, publishPort, releaseDataDir } from './data-dir-claim';
 import { openDatabase, type Database } from './db/client';
 import { migrateDatabase } from './db/migrate';
+import { copyTemplateIfEmpty } from './db/template';
 import { account, user } from './db/schema';
 import { DEMO_PASSWORD, DEMO_USERS } from '../seed/scenario';
 import { createAuth } from './auth';
@@ -46,7 +47,10 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
 }
 
 async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Promise<Running> {
-  const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: path.join(env.DATA_DIR, 'db') });
+  const dbDir = path.join(env.DATA_DIR, 'db');
+  // An empty data folder starts from the migrated empty database made at build time (server/db/template.ts).
+  if (!env.DATABASE_URL && copyTemplateIfEmpty(dbDir)) log.info('Empty data folder: the embedded database starts from the migrated template');
+  const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: dbDir });
 
   const forecast = await createForecastProvider({ forecastUrl: env.FORECAST_URL, forecastApiKey: env.FORECAST_API_KEY });
   if (forecast.fake) log.info(`No FORECAST_URL: local fake forecast service at ${forecast.fake.url}`);
@@ -179,12 +183,11 @@ export async function demoAccountsWithPublishedPassword(deps: Pick<AppDeps, 'db'
     .innerJoin(account, and(eq(account.userId, user.id), eq(account.providerId, 'credential')))
     .where(inArray(user.email, DEMO_USERS.map((u) => u.email)));
   const ctx = await deps.auth.$context;
-  const found: string[] = [];
-  for (const r of rows) {
-    if (r.banned || !r.hash) continue;
-    if (await ctx.password.verify({ hash: r.hash, password: DEMO_PASSWORD })) found.push(r.email);
-  }
-  return found.sort();
+  // The checks at once: each is a deliberately slow hash, run on the thread pool (part of every start).
+  const checks = await Promise.all(
+    rows.map(async (r) => (r.banned || !r.hash ? null : (await ctx.password.verify({ hash: r.hash, password: DEMO_PASSWORD })) ? r.email : null)),
+  );
+  return checks.filter((e): e is string => e !== null).sort();
 }
 
 function trustedOrigins(baseURL: string): string[] {

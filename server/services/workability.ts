@@ -21,7 +21,7 @@ import {
   type OperationSpec,
   type SiteSeries as EngineSeries,
 } from '../../shared/engine';
-import { createSiteSeries, transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
+import { createSiteSeries, prepareSeaInput, transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
 import { csvField } from '../../shared/csv-field';
 import type { WorkabilityCalendarMonth, WorkabilityEntry, WorkabilityMonth, WorkabilityYearMonth } from '../../shared/api-types-downtime';
 import type { Db } from '../db/client';
@@ -210,14 +210,17 @@ export function forEachOperationSite(
   const out: TransformedSeries = createSiteSeries(n);
   const workspace = createEngineWorkspace(n);
   const calendars = new Map<string, CalendarIndex>();
+  // The data point's distinct periods and directions once for every worksite; only the fields the engine reads.
+  const sea = { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir };
+  const prepared = prepareSeaInput(sea);
   for (const site of setup.sites) {
     const pairs = pairsBySite.get(site.id);
     if (!pairs) continue;
     const t = transformToSite(
-      { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir },
+      sea,
       { depthM: row.dataPointDepthM ?? Infinity },
       { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
-      { out },
+      { out, fields: 'engine', prepared },
     );
     const engine: EngineSeries = {
       timeMs: series.timeMs,

@@ -9,6 +9,7 @@ export * from './schemas';
 export { WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H, alphaTableCoverageProblem, isWeatherRestricted, alphaFactor, alphaFor, alphaInRow, alphaRowIndex, assertAlphaTable } from './alpha-factor';
 export { evaluateHours, assertSeriesLengths, type EvaluateOptions } from './evaluate-hours';
 export { evaluateStatus, type EvaluateStatusOptions } from './evaluate-status';
+export { evaluateStatusMany, createStatusManyScratch, statusFastPathKnows, type EvaluateStatusManyOptions, type StatusManyScratch } from './evaluate-status-many';
 
 // Weather windows and the forecast plan
 export { detectStepMs } from './detect-step';

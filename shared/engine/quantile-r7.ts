@@ -109,7 +109,7 @@ function swap(a: Float64Array, i: number, j: number): void {
 
 /**
  * Type 7 quantile of the NaN-free slice a[from, to) for an upper probability (p >= 0.5), leaving
- * the slice unchanged: a strided sample of 64 values sets a threshold safely below the wanted
+ * the slice unchanged: a strided sample of 64 values (256 from 4,096 values on) sets a threshold safely below the wanted
  * order statistic; one pass counts the values below it and copies the others into `tmp`; the
  * order statistic is then selected among the copies (about (1 - p) n of them). When the sample
  * misjudged (the rank falls below the threshold), the copy is redone with every value, so the
@@ -125,12 +125,13 @@ export function quantileR7Upper(a: Float64Array, from: number, to: number, p: nu
   const frac = h - lo;
   let threshold = -Infinity;
   if (n >= 256) {
-    const m = 64;
+    // 64 values, or 256 for long slices (a threshold closer to the wanted rank: fewer copies).
+    const m = n >= 4096 ? 256 : 64;
     const sample = SAMPLE;
     for (let j = 0; j < m; j++) sample[j] = a[from + Math.floor(((j + 0.5) * n) / m)];
     // Rank of the wanted statistic in the sample, less a margin of about four binomial standard
-    // deviations (sqrt(64 * 0.9 * 0.1) = 2.4).
-    const r = Math.floor(p * m) - 10;
+    // deviations (sqrt(64 * 0.9 * 0.1) = 2.4; sqrt(256 * 0.9 * 0.1) = 4.8).
+    const r = Math.floor(p * m) - (m === 256 ? 20 : 10);
     if (r > 0) {
       select(sample, r, 0, m - 1);
       threshold = sample[r];
@@ -158,4 +159,4 @@ export function quantileR7Upper(a: Float64Array, from: number, to: number, p: nu
   return v0 + frac * (v1 - v0);
 }
 
-const SAMPLE = new Float64Array(64);
+const SAMPLE = new Float64Array(256);

@@ -24,9 +24,11 @@ export * from './transfer-table';
 export {
   TRANSFORM_FLAG,
   createSiteSeries,
+  prepareSeaInput,
   transformFlagNames,
   transformOne,
   transformToSite,
+  type PreparedSeaInput,
   type SeaRecordInput,
   type SeaSeriesInput,
   type SiteGeometry,

@@ -102,6 +102,52 @@ export interface TransformOptions {
   gamma?: number;
   /** Output arrays to fill (each of the input length), to avoid allocation in repeated runs. */
   out?: SiteSeries;
+  /**
+   * 'engine' fills only what the go/no-go engine reads (hsM and both bed velocities, the same
+   * values bit for bit) and leaves dirDeg, ks, kr and flags of `out` untouched: faster for
+   * statistics over long series. Default 'all'.
+   */
+  fields?: 'all' | 'engine';
+  /** The input's distinct values, from {@link prepareSeaInput} on this same input: shared by every worksite. */
+  prepared?: PreparedSeaInput;
+}
+
+/**
+ * The distinct Tp and direction values of a data point's series and each record's index into
+ * them, found once and shared by the transformation to every worksite (see {@link prepareSeaInput}).
+ */
+export interface PreparedSeaInput {
+  readonly input: SeaSeriesInput;
+  /** Index of each record's Tp among `tpKeys`; -1 when missing, not finite or not positive. */
+  readonly tpIds: Int32Array;
+  readonly tpKeys: Float64Array;
+  /** Index of each record's direction among `dirKeys`; -1 when missing. */
+  readonly dirIds: Int32Array;
+  readonly dirKeys: Float64Array;
+  /** Some record has a usable Tz (finite, positive). */
+  readonly anyTz: boolean;
+}
+
+/**
+ * Finds the distinct Tp and direction values of a series once, for {@link transformToSite}'s
+ * `prepared` option when one series goes to several worksites. The input arrays must not change
+ * while the result is in use.
+ */
+export function prepareSeaInput(input: SeaSeriesInput): PreparedSeaInput {
+  const n = input.hsM.length;
+  if (input.tpS.length !== n || input.tzS.length !== n || input.dirDeg.length !== n) {
+    throw new RangeError('hsM, tpS, tzS and dirDeg must have the same length');
+  }
+  const tpIds = new Int32Array(n);
+  const tpKeys = distinctIds(input.tpS, tpIds, new FloatKeyIndex(1024), true);
+  const dirIds = new Int32Array(n);
+  const dirKeys = distinctIds(input.dirDeg, dirIds, new FloatKeyIndex(1024), false);
+  return { input, tpIds, tpKeys, dirIds, dirKeys, anyTz: hasUsableTz(input.tzS) };
+}
+
+function hasUsableTz(tz: Float64Array): boolean {
+  for (let i = 0; i < tz.length; i++) if (tz[i] > 0 && tz[i] < Infinity) return true;
+  return false;
 }
 
 /**
@@ -282,12 +328,29 @@ export function transformToSite(
 
   // Phase 1: the distinct Tp and direction values, and each record's index into them (-1 when
   // missing or invalid). Small loops of one kind each, so they are optimised at once.
-  const tpIds = new Int32Array(n);
-  const tpIndex = new FloatKeyIndex(1024);
-  const tpKeys = distinctIds(tpIn, tpIds, tpIndex, true);
-  const dirIds = mode === MODE_NONE ? null : new Int32Array(n);
-  const dirIndex = new FloatKeyIndex(1024);
-  const dirKeys = dirIds ? distinctIds(dirIn, dirIds, dirIndex, false) : new Float64Array(0);
+  const prepared = options?.prepared;
+  if (prepared && (prepared.input.hsM !== hsIn || prepared.input.tpS !== tpIn || prepared.input.tzS !== tzIn || prepared.input.dirDeg !== dirIn)) {
+    throw new RangeError('options.prepared was made from another input');
+  }
+  let tpIds: Int32Array;
+  let tpKeys: Float64Array;
+  let dirIds: Int32Array | null = null;
+  let dirKeys: Float64Array = new Float64Array(0);
+  if (prepared) {
+    tpIds = prepared.tpIds;
+    tpKeys = prepared.tpKeys;
+    if (mode !== MODE_NONE) {
+      dirIds = prepared.dirIds;
+      dirKeys = prepared.dirKeys;
+    }
+  } else {
+    tpIds = new Int32Array(n);
+    tpKeys = distinctIds(tpIn, tpIds, new FloatKeyIndex(1024), true);
+    if (mode !== MODE_NONE) {
+      dirIds = new Int32Array(n);
+      dirKeys = distinctIds(dirIn, dirIds, new FloatKeyIndex(1024), false);
+    }
+  }
 
   // Phase 2: per-period terms once per distinct Tp, per-direction terms once per distinct direction.
   const terms = new Float64Array(Math.max(1, tpKeys.length) * STRIDE);
@@ -318,8 +381,13 @@ export function transformToSite(
     }
   }
 
-  // Phase 3: every record from those tables.
-  const soulTz = soulsbyFromTz(tzIn, siteDepthM, g);
+  // Phase 3: every record from those tables (Soulsby from a record's own Tz only where it has one).
+  const anyTz = prepared ? prepared.anyTz : hasUsableTz(tzIn);
+  const soulTz = anyTz ? soulsbyFromTz(tzIn, siteDepthM, g) : tzIn;
+  if (options?.fields === 'engine') {
+    engineFields(hsIn, tzIn, tpIds, dirIds, mode, terms, dirTerms, tableFactors, bandCount, depthLimitM, soulTz, out);
+    return out;
+  }
   const missing = TRANSFORM_FLAG.MISSING_INPUT;
   for (let i = 0; i < n; i++) {
     const hs = hsIn[i];
@@ -386,6 +454,65 @@ export function transformToSite(
     soulOut[i] = hsSite * soul;
   }
   return out;
+}
+
+/**
+ * Phase 3 of transformToSite for `fields: 'engine'`: Hs at the worksite and both bed velocities,
+ * by the same arithmetic in the same order as the full loop (so the same values bit for bit),
+ * without the worksite direction, the coefficients and the flags.
+ */
+function engineFields(
+  hsIn: Float64Array,
+  tzIn: Float64Array,
+  tpIds: Int32Array,
+  dirIds: Int32Array | null,
+  mode: number,
+  terms: Float64Array,
+  dirTerms: Float64Array,
+  tableFactors: Float64Array,
+  bandCount: number,
+  depthLimitM: number,
+  soulTz: Float64Array,
+  out: SiteSeries,
+): void {
+  const hsOut = out.hsM;
+  const linOut = out.bedVelocityLinearMps;
+  const soulOut = out.bedVelocitySoulsbyMps;
+  const n = hsIn.length;
+  for (let i = 0; i < n; i++) {
+    const hs = hsIn[i];
+    const tpId = tpIds[i];
+    const dirId = dirIds === null ? 0 : dirIds[i];
+    if (!(hs >= 0 && hs < Infinity) || tpId < 0 || dirId < 0) {
+      hsOut[i] = NaN;
+      linOut[i] = NaN;
+      soulOut[i] = NaN;
+      continue;
+    }
+    const base = tpId * STRIDE;
+    let ks: number;
+    let kr = 1;
+    if (mode === MODE_TABLE) {
+      ks = tableFactors[dirTerms[dirId * DSTRIDE + D_SECTOR] * bandCount + terms[base + T_BAND]];
+    } else {
+      ks = terms[base + T_KS];
+      if (mode === MODE_REFRACT) {
+        const dbase = dirId * DSTRIDE;
+        if (dirTerms[dbase + D_LANDWARD] === 0) {
+          const sinSite = dirTerms[dbase + D_SIN] * terms[base + T_CRATIO];
+          const cos2Site = 1 - sinSite * sinSite;
+          if (cos2Site > 0) kr = Math.sqrt(dirTerms[dbase + D_COS] / Math.sqrt(cos2Site));
+        }
+      }
+    }
+    let hsSite = hs * ks * kr;
+    if (hsSite > depthLimitM) hsSite = depthLimitM;
+    const tz = tzIn[i];
+    const soul = tz > 0 && tz < Infinity ? soulTz[i] : terms[base + T_SOUL];
+    hsOut[i] = hsSite;
+    linOut[i] = hsSite * terms[base + T_LIN];
+    soulOut[i] = hsSite * soul;
+  }
 }
 
 /**

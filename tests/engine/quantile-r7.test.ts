@@ -50,16 +50,22 @@ describe('quantileR7: Hyndman & Fan type 7', () => {
   it('quantileR7Upper (sampled threshold, exact fallback) matches d3-array quantile and leaves the slice unchanged', () => {
     const patterns = fc.oneof(
       fc.array(fc.integer({ min: 0, max: 40 }), { minLength: 1, maxLength: 4000 }),
-      fc.integer({ min: 1, max: 4000 }).map((n) => Array.from({ length: n }, (_, i) => i)), // ascending
-      fc.integer({ min: 1, max: 4000 }).map((n) => Array.from({ length: n }, (_, i) => n - i)), // descending
-      fc.integer({ min: 1, max: 4000 }).map((n) => new Array<number>(n).fill(7)), // all equal
-      fc.integer({ min: 1, max: 4000 }).map((n) => Array.from({ length: n }, (_, i) => (i % 97 === 0 ? 1000 + i : i % 50))), // sawtooth with spikes
-      fc.integer({ min: 300, max: 4000 }).map((n) => Array.from({ length: n }, (_, i) => (i % 64 === 32 ? 0 : 500 + i))),
+      fc.integer({ min: 1, max: 12000 }).map((n) => Array.from({ length: n }, (_, i) => i)), // ascending
+      fc.integer({ min: 1, max: 12000 }).map((n) => Array.from({ length: n }, (_, i) => n - i)), // descending
+      fc.integer({ min: 1, max: 12000 }).map((n) => new Array<number>(n).fill(7)), // all equal
+      fc.integer({ min: 1, max: 12000 }).map((n) => Array.from({ length: n }, (_, i) => (i % 97 === 0 ? 1000 + i : i % 50))), // sawtooth with spikes
+      fc.integer({ min: 300, max: 12000 }).map((n) => Array.from({ length: n }, (_, i) => (i % 64 === 32 ? 0 : 500 + i))),
       // The strided sample (positions floor((j + 0.5) n / 64)) sees only high values while nearly
       // all values are low: the threshold is too high and the exact fallback must take over.
-      fc.integer({ min: 1000, max: 4000 }).map((n) => {
+      fc.integer({ min: 1000, max: 12000 }).map((n) => {
         const xs = new Array<number>(n).fill(0);
         for (let j = 0; j < 64; j++) xs[Math.floor(((j + 0.5) * n) / 64)] = 1000;
+        return xs;
+      }),
+      // The same for the 256-value sample of slices from 4,096 values on.
+      fc.integer({ min: 4096, max: 12000 }).map((n) => {
+        const xs = new Array<number>(n).fill(0);
+        for (let j = 0; j < 256; j++) xs[Math.floor(((j + 0.5) * n) / 256)] = 1000;
         return xs;
       }),
     );

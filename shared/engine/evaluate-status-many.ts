@@ -1,0 +1,373 @@
+import { compileLimits, type CompiledLimits } from './compiled-limits';
+import { evaluateStatus } from './evaluate-status';
+import { assertSeriesLengths } from './evaluate-hours';
+import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './types';
+
+/**
+ * The limit kinds the one-pass path below knows. An operation with any other limit set (a kind
+ * added to the engine later) is evaluated by the general path, evaluateStatus, unchanged.
+ */
+const KNOWN_LIMIT_KEYS: ReadonlySet<string> = new Set(['hsMax', 'hsTpCurve', 'tpMin', 'tpMax', 'tpExcluded', 'bedVelocityMax', 'bedVelocityMethod', 'windMax']);
+
+/** The fields of an operation this path knows; any other one set sends the operation to the general path. */
+const KNOWN_OPERATION_KEYS: ReadonlySet<string> = new Set(['tpopH', 'tcH', 'weatherRestricted', 'limits']);
+
+/** Operations per group of bit masks (one bit per operation in an int32). */
+const GROUP = 32;
+
+// decodePass writes the two status bits as the code: NO_DATA 0, NOT_WORKABLE 1, MARGINAL 2, WORKABLE 3.
+if (STATUS.NO_DATA !== 0 || STATUS.NOT_WORKABLE !== 1 || STATUS.MARGINAL !== 2 || STATUS.WORKABLE !== 3) {
+  throw new Error('evaluateStatusMany: STATUS codes changed; update decodePass');
+}
+
+/**
+ * True when {@link evaluateStatusMany} evaluates this operation in its own passes: every limit it
+ * sets is of a kind those passes know, and it has no other field set beside TPOP, TC, the
+ * weather-restricted flag and the limits. Otherwise the operation goes to the general path.
+ */
+export function statusFastPathKnows(op: OperationSpec): boolean {
+  // A field of the operation beside its limits that this path does not know may be a limit too.
+  const fields = op as unknown as Record<string, unknown>;
+  for (const key of Object.keys(fields)) {
+    if (fields[key] != null && !KNOWN_OPERATION_KEYS.has(key)) return false;
+  }
+  const limits = op.limits as Record<string, unknown>;
+  for (const key of Object.keys(limits)) {
+    if (limits[key] != null && !KNOWN_LIMIT_KEYS.has(key)) return false;
+  }
+  return true;
+}
+
+/** Options of {@link evaluateStatusMany}. */
+export interface EvaluateStatusManyOptions {
+  /** Apply alpha (OPWF = alpha * OPLIM on the Hs limits). Default true (docs/domain.md#convention-14). */
+  alpha?: boolean;
+  alphaTable: AlphaTable;
+  /** One buffer per operation to write into, each at least as long as the series. */
+  out?: Uint8Array[];
+  /** Reusable work space (see {@link createStatusManyScratch}). */
+  scratch?: StatusManyScratch;
+}
+
+/** Work space of {@link evaluateStatusMany}: three int32 bit masks per record. */
+export interface StatusManyScratch {
+  missing: Int32Array;
+  broken: Int32Array;
+  marginal: Int32Array;
+}
+
+/** Work space for series of up to `length` records. */
+export function createStatusManyScratch(length: number): StatusManyScratch {
+  return { missing: new Int32Array(length), broken: new Int32Array(length), marginal: new Int32Array(length) };
+}
+
+/** Thresholds of one value, ascending, with the OR of the bits of every threshold up to each (index 0: none). */
+interface AboveList {
+  thr: Float64Array;
+  /** cum[j]: bits of thresholds 0..j-1 (a value above j thresholds sets cum[j]). */
+  cumBroken: Int32Array;
+  cumMarginal: Int32Array;
+}
+
+function aboveList(entries: { thr: number; broken: number; marginal: number }[]): AboveList {
+  entries.sort((a, b) => a.thr - b.thr);
+  const thr = Float64Array.from(entries, (e) => e.thr);
+  const cumBroken = new Int32Array(entries.length + 1);
+  const cumMarginal = new Int32Array(entries.length + 1);
+  for (let j = 0; j < entries.length; j++) {
+    cumBroken[j + 1] = cumBroken[j] | entries[j].broken;
+    cumMarginal[j + 1] = cumMarginal[j] | entries[j].marginal;
+  }
+  return { thr, cumBroken, cumMarginal };
+}
+
+/** An Hs-Tp curve operation, prepared as evaluateStatus prepares it. */
+interface CurveOp {
+  bit: number;
+  c: CompiledLimits;
+  tp0: number;
+  tpN: number;
+  hsMax: number;
+  sureOk: number;
+  nSeg: number;
+  nA: number;
+  aFirstCol: number;
+  aLastCol: number;
+  aFirst: number;
+  aLast: number;
+}
+
+function curveOp(bit: number, c: CompiledLimits): CurveOp {
+  const nSeg = c.curveSlope.length;
+  const aRow = c.alphaRow;
+  const nA = aRow === null ? 0 : c.alphaCols.length;
+  let hsMin = Infinity;
+  let hsMax = -Infinity;
+  for (let k = 0; k < c.curveHs.length; k++) {
+    if (c.curveHs[k] < hsMin) hsMin = c.curveHs[k];
+    if (c.curveHs[k] > hsMax) hsMax = c.curveHs[k];
+  }
+  let alphaMin = 1;
+  if (aRow !== null) for (let k = 0; k < aRow.length; k++) if (aRow[k] < alphaMin) alphaMin = aRow[k];
+  return {
+    bit,
+    c,
+    tp0: c.curveTp[0],
+    tpN: c.curveTp[nSeg],
+    hsMax,
+    sureOk: hsMin * alphaMin,
+    nSeg,
+    nA,
+    aFirstCol: c.alphaCols[0],
+    aLastCol: c.alphaCols[c.alphaCols.length - 1],
+    aFirst: aRow !== null ? aRow[0] : 1,
+    aLast: aRow !== null ? aRow[nA - 1] : 1,
+  };
+}
+
+/**
+ * Class of one record against a curve: 0 met, 1 met at OPLIM only, 2 broken. The same arithmetic,
+ * in the same order, as evaluateStatus's curve pass (docs/domain.md#convention-5, #convention-6).
+ */
+function curveClass(p: CurveOp, h: number, t: number): number {
+  if (t < p.tp0 || t > p.tpN || h > p.hsMax) return 2;
+  if (h <= p.sureOk) return 0;
+  const c = p.c;
+  const cTp = c.curveTp;
+  let s = 0;
+  while (s < p.nSeg - 1 && cTp[s + 1] < t) s++;
+  const lim = t === cTp[s + 1] ? c.curveHs[s + 1] : c.curveHs[s] + c.curveSlope[s] * (t - cTp[s]);
+  let alpha = 1;
+  if (p.nA > 0) {
+    if (lim <= p.aFirstCol) alpha = p.aFirst;
+    else if (lim >= p.aLastCol) alpha = p.aLast;
+    else {
+      const aCols = c.alphaCols;
+      let j = 0;
+      while (aCols[j + 1] < lim) j++;
+      alpha = (c.alphaRow as Float64Array)[j] + c.alphaSlope[j] * (lim - aCols[j]);
+    }
+  }
+  return (h > lim * alpha ? 1 : 0) + (h > lim ? 1 : 0);
+}
+
+/** One group of up to 32 operations, compiled into per-value threshold lists. */
+interface Group {
+  needHs: number;
+  needTp: number;
+  needLin: number;
+  needSoul: number;
+  needWind: number;
+  hs: AboveList;
+  tpAbove: AboveList;
+  /** Tp minimums as thresholds on -Tp (Tp < min exactly when -Tp > -min). */
+  tpBelow: AboveList;
+  lin: AboveList;
+  soul: AboveList;
+  wind: AboveList;
+  bandFrom: Float64Array;
+  bandTo: Float64Array;
+  bandBit: Int32Array;
+  curves: CurveOp[];
+}
+
+function compileGroup(compiled: CompiledLimits[]): Group {
+  let needHs = 0;
+  let needTp = 0;
+  let needLin = 0;
+  let needSoul = 0;
+  let needWind = 0;
+  const hs: { thr: number; broken: number; marginal: number }[] = [];
+  const tpAbove: typeof hs = [];
+  const tpBelow: typeof hs = [];
+  const lin: typeof hs = [];
+  const soul: typeof hs = [];
+  const wind: typeof hs = [];
+  const bandFrom: number[] = [];
+  const bandTo: number[] = [];
+  const bandBit: number[] = [];
+  const curves: CurveOp[] = [];
+  compiled.forEach((c, k) => {
+    const bit = 1 << k;
+    if (c.needHs) needHs |= bit;
+    if (c.needTp) needTp |= bit;
+    if (c.needWind) needWind |= bit;
+    if (c.needBed) {
+      if (c.bedSoulsby) {
+        needSoul |= bit;
+        soul.push({ thr: c.bedMax, broken: bit, marginal: 0 });
+      } else {
+        needLin |= bit;
+        lin.push({ thr: c.bedMax, broken: bit, marginal: 0 });
+      }
+    }
+    if (c.hsMax === c.hsMax) {
+      // Above OPWF marginal, above OPLIM broken (inclusive limits; with alpha = 1 both are OPLIM).
+      hs.push({ thr: c.hsMaxOpwf, broken: 0, marginal: bit });
+      hs.push({ thr: c.hsMax, broken: bit, marginal: 0 });
+    }
+    if (c.curveTp.length >= 2) curves.push(curveOp(bit, c));
+    if (c.tpMin === c.tpMin) tpBelow.push({ thr: -c.tpMin, broken: bit, marginal: 0 });
+    if (c.tpMax === c.tpMax) tpAbove.push({ thr: c.tpMax, broken: bit, marginal: 0 });
+    for (let b = 0; b < c.bandFrom.length; b++) {
+      bandFrom.push(c.bandFrom[b]);
+      bandTo.push(c.bandTo[b]);
+      bandBit.push(bit);
+    }
+    if (c.needWind) wind.push({ thr: c.windMax, broken: bit, marginal: 0 });
+  });
+  return {
+    needHs,
+    needTp,
+    needLin,
+    needSoul,
+    needWind,
+    hs: aboveList(hs),
+    tpAbove: aboveList(tpAbove),
+    tpBelow: aboveList(tpBelow),
+    lin: aboveList(lin),
+    soul: aboveList(soul),
+    wind: aboveList(wind),
+    bandFrom: Float64Array.from(bandFrom),
+    bandTo: Float64Array.from(bandTo),
+    bandBit: Int32Array.from(bandBit),
+    curves,
+  };
+}
+
+// The passes below are small loops of one kind each (one per input value), so that the JIT
+// compiles each once for every mix of operations (see evaluateStatus).
+
+/** Hs: starts the three masks (missing Hs, Hs limits broken, Hs limits met at OPLIM only). */
+function hsPass(v: Float64Array, need: number, list: AboveList, n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array): void {
+  const thr = list.thr;
+  const cumB = list.cumBroken;
+  const cumM = list.cumMarginal;
+  const m = thr.length;
+  for (let i = 0; i < n; i++) {
+    const x = v[i];
+    let j = 0;
+    while (j < m && x > thr[j]) j++;
+    missing[i] = x !== x ? need : 0;
+    broken[i] = cumB[j];
+    marginal[i] = cumM[j];
+  }
+}
+
+/** A value compared with maximums (Tp max, bed velocity, wind): adds its missing and broken bits. */
+function abovePass(v: Float64Array, need: number, list: AboveList, n: number, missing: Int32Array, broken: Int32Array): void {
+  const thr = list.thr;
+  const cum = list.cumBroken;
+  const m = thr.length;
+  for (let i = 0; i < n; i++) {
+    const x = v[i];
+    let j = 0;
+    while (j < m && x > thr[j]) j++;
+    if (x !== x) missing[i] |= need;
+    broken[i] |= cum[j];
+  }
+}
+
+/** Tp minimums (as maximums of -Tp) and excluded bands: adds their broken bits. */
+function tpLowPass(v: Float64Array, list: AboveList, bandFrom: Float64Array, bandTo: Float64Array, bandBit: Int32Array, n: number, broken: Int32Array): void {
+  const thr = list.thr;
+  const cum = list.cumBroken;
+  const m = thr.length;
+  const nb = bandFrom.length;
+  for (let i = 0; i < n; i++) {
+    const x = v[i];
+    const y = -x;
+    let j = 0;
+    while (j < m && y > thr[j]) j++;
+    let b = cum[j];
+    for (let k = 0; k < nb; k++) if (x >= bandFrom[k] && x <= bandTo[k]) b |= bandBit[k];
+    broken[i] |= b;
+  }
+}
+
+/** One Hs-Tp curve operation: adds its broken and marginal bits. */
+function curvePass(hs: Float64Array, tp: Float64Array, p: CurveOp, n: number, broken: Int32Array, marginal: Int32Array): void {
+  const bit = p.bit;
+  for (let i = 0; i < n; i++) {
+    const k = curveClass(p, hs[i], tp[i]);
+    if (k === 2) broken[i] |= bit;
+    else if (k === 1) marginal[i] |= bit;
+  }
+}
+
+/**
+ * Masks to the two bits of each operation's STATUS code (NO_DATA 00, NOT_WORKABLE 01, MARGINAL 10,
+ * WORKABLE 11): high = data and nothing broken; low = data and (broken, or not marginal). Written
+ * over broken (high) and marginal (low).
+ */
+function planesPass(n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array): void {
+  for (let i = 0; i < n; i++) {
+    const miss = missing[i];
+    const brk = broken[i];
+    broken[i] = ~(miss | brk);
+    marginal[i] = ~miss & (brk | ~marginal[i]);
+  }
+}
+
+/** Every record of a group: the two status bits of each of its operations. */
+function maskPasses(series: SiteSeries, g: Group, n: number, s: StatusManyScratch): void {
+  const { missing, broken, marginal } = s;
+  hsPass(series.hsM, g.needHs, g.hs, n, missing, broken, marginal);
+  if (g.needTp !== 0) abovePass(series.tpS, g.needTp, g.tpAbove, n, missing, broken);
+  if (g.tpBelow.thr.length > 0 || g.bandFrom.length > 0) tpLowPass(series.tpS, g.tpBelow, g.bandFrom, g.bandTo, g.bandBit, n, broken);
+  if (g.needLin !== 0) abovePass(series.bedVelocityLinearMps, g.needLin, g.lin, n, missing, broken);
+  if (g.needSoul !== 0) abovePass(series.bedVelocitySoulsbyMps, g.needSoul, g.soul, n, missing, broken);
+  if (g.needWind !== 0) abovePass(series.windMps, g.needWind, g.wind, n, missing, broken);
+  for (const p of g.curves) curvePass(series.hsM, series.tpS, p, n, broken, marginal);
+  planesPass(n, missing, broken, marginal);
+}
+
+/** One operation's STATUS codes from the two planes. */
+function decodePass(k: number, n: number, high: Int32Array, low: Int32Array, out: Uint8Array): void {
+  for (let i = 0; i < n; i++) out[i] = (((high[i] >>> k) & 1) << 1) | ((low[i] >>> k) & 1);
+}
+
+/**
+ * Hourly status of several operations at one worksite: for every operation the same codes as
+ * {@link evaluateStatus} gives (docs/domain.md#hourly-status, #convention-5 to #convention-7), faster when
+ * there are several operations.
+ *
+ * Method: the operations whose limits are all of the kinds known here (Hs max, Hs-Tp curve, Tp
+ * min/max, excluded Tp bands, bed velocity, wind) are evaluated together, 32 at a time: one pass
+ * per input value (Hs, Tp, each bed velocity, wind; one per curve) compares the value with the
+ * sorted thresholds of every operation and sets one bit per operation in three masks (a needed
+ * value missing, a limit broken, an Hs limit met at OPLIM only); the masks become the two bits of
+ * each operation's STATUS code, and a short pass per operation writes its codes. Any other
+ * operation (a limit kind added to the engine later) goes to evaluateStatus unchanged, so the
+ * results never depend on which path ran (a property test compares the two).
+ *
+ * @returns one STATUS array per operation, in the operations' order (views of `out` when given)
+ * @throws RangeError as evaluateStatus does (invalid limits, unequal arrays, short buffers).
+ */
+export function evaluateStatusMany(series: SiteSeries, ops: readonly OperationSpec[], options: EvaluateStatusManyOptions): Uint8Array[] {
+  assertSeriesLengths(series);
+  const n = series.timeMs.length;
+  const useAlpha = options.alpha !== false;
+  const result: Uint8Array[] = new Array<Uint8Array>(ops.length);
+  const fast: number[] = [];
+  const compiled: CompiledLimits[] = [];
+  ops.forEach((op, o) => {
+    const buf = options.out?.[o];
+    if (buf && buf.length < n) throw new RangeError(`evaluateStatusMany: out buffer ${o} shorter than the series`);
+    if (statusFastPathKnows(op)) {
+      compiled.push(compileLimits(op, options.alphaTable, useAlpha));
+      fast.push(o);
+      result[o] = buf ? (buf.length === n ? buf : buf.subarray(0, n)) : new Uint8Array(n);
+    } else {
+      result[o] = evaluateStatus(series, op, { alpha: options.alpha, alphaTable: options.alphaTable, out: buf });
+    }
+  });
+  if (fast.length === 0) return result;
+  const s = options.scratch && options.scratch.missing.length >= n ? options.scratch : createStatusManyScratch(n);
+  for (let from = 0; from < fast.length; from += GROUP) {
+    const part = compiled.slice(from, from + GROUP);
+    maskPasses(series, compileGroup(part), n, s);
+    for (let k = 0; k < part.length; k++) decodePass(k, n, s.broken, s.marginal, result[fast[from + k]]);
+  }
+  return result;
+}
