@@ -27,6 +27,7 @@ export function toSiteResponse(row: WorksiteRow): SiteResponse {
     timeZone: row.timeZone,
     hindcastDatasetId: row.hindcastDatasetId,
     transferTable: row.transferTable ?? null,
+    tide: row.tide ?? null,
     updatedAt: row.updatedAt.toISOString(),
   };
 }
@@ -49,6 +50,7 @@ export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { 
     timeZone: input.timeZone,
     hindcastDatasetId: input.hindcastDatasetId ?? null,
     transferTable: input.transferTable ?? null,
+    tide: input.tide ?? null,
   };
 }
 

@@ -48,6 +48,10 @@ export const LIMIT_WORDS: Record<LimitCheck['limit'], string> = {
   tpBand: 'an excluded Tp band',
   bedVelocity: 'bed velocity',
   wind: 'wind',
+  minDepth: 'min depth',
+  maxDepth: 'max depth',
+  current: 'current',
+  tideWindow: 'the tide window',
 };
 
 export function limitWord(name: string | null | undefined): string | null {
