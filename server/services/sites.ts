@@ -11,6 +11,7 @@ import { dataset, operation, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, notFound, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
+import { checkTideInput } from './tide';
 import { auditedOperation, toOperationResponse } from './operations';
 
 type WorksiteRow = typeof worksite.$inferSelect;
@@ -38,8 +39,12 @@ export function auditedSite(site: SiteResponse): Omit<SiteResponse, 'id' | 'upda
   return rest;
 }
 
-/** Column values of a parsed worksite. */
+/**
+ * Column values of a parsed worksite.
+ * @throws HttpError 400 for a tide constituent or station the tide package does not know.
+ */
 export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { hindcastDatasetId?: string | null }) {
+  checkTideInput(input.tide);
   return {
     name: input.name,
     latitude: input.latitude ?? null,

@@ -355,7 +355,7 @@ export const TideConstituentInput = z.object({
     .trim()
     .min(1, 'A constituent needs a name')
     .max(16, 'A constituent name has at most 16 characters')
-    .regex(/^[A-Za-z0-9()_.\-]+$/, 'A constituent name is letters and digits, such as M2 or 2MK3'),
+    .regex(/^[A-Za-z0-9()_.-]+$/, 'A constituent name is letters and digits, such as M2 or 2MK3'),
   amplitude: finite('Amplitude').min(0, 'Amplitude must be at least 0 m').max(TIDE_AMPLITUDE_MAX_M, `Amplitude must be at most ${TIDE_AMPLITUDE_MAX_M} m`),
   phase: finite('Phase').min(0, 'Phase must be at least 0°').max(360, 'Phase must be at most 360°'),
 });
