@@ -63,7 +63,7 @@ export const DEMO_OPERATIONS: {
     tpopH: 4,
     tcH: 1,
     weatherRestricted: true,
-    limits: { hsMax: 1.0, windMax: 12, minDepth: 5, minDepthParts: { draught: 4.2, clearance: 0.8 }, tideWindow: { reference: 'high', before: 3, after: 3 } },
+    limits: { hsMax: 1.5, windMax: 14, minDepth: 5, minDepthParts: { draught: 4.2, clearance: 0.8 }, tideWindow: { reference: 'high', before: 3, after: 3 } },
     sites: ['cofferdam'],
     skipper: false,
   },

@@ -51,6 +51,9 @@ describe('tide-bounded windows of the demo', () => {
       }
     }
     expect(outside).toBeGreaterThan(10);
+    // The invented forecast of early December has calm spells: some hours near high water are workable.
+    expect(workable).toBeGreaterThan(0);
+    expect(p.windows.length).toBeGreaterThan(0);
     for (const w of p.windows) expect(w.hours).toBeLessThanOrEqual(7);
 
     // The chain of the first hour: water level and depth, the depth limits and the tide window in its checks.
