@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { alphaFor, WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../../../../shared/engine/alpha-factor';
-import { BED_VELOCITY_METHODS, LIMIT_RANGES } from '../../../../shared/engine/schemas';
+import { BED_VELOCITY_METHODS, LIMIT_RANGES, TIDE_REFERENCES } from '../../../../shared/engine/schemas';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
 import { Button, ErrorNotice, FieldShell, Input, Select, TextArea } from '../../../components/ui';
@@ -39,6 +39,13 @@ const OperationText = z.object({
     bedVelocityMax: z.string(),
     bedVelocityMethod: z.enum(BED_VELOCITY_METHODS),
     windMax: z.string(),
+    draught: z.string(),
+    clearance: z.string(),
+    maxDepth: z.string(),
+    currentMax: z.string(),
+    tideReference: z.enum(['none', ...TIDE_REFERENCES]),
+    tideBefore: z.string(),
+    tideAfter: z.string(),
   }),
 });
 type OperationText = z.infer<typeof OperationText>;
@@ -49,7 +56,16 @@ const pairNumbers = ([a, b]: [string, string]): [number, number] => [numberFromT
 /** Typed limits to the body's: blank = not set, an empty curve or band list = not set. */
 function limitsFromText(l: LimitsText): OperationLimits {
   const bedVelocityMax = numberOrNull(l.bedVelocityMax);
+  // Min depth is entered as draught plus under-keel clearance (docs/domain.md#tide); either blank = no min depth.
+  const draught = numberOrNull(l.draught);
+  const clearance = numberOrNull(l.clearance);
+  const parts = draught !== null && clearance !== null ? { draught, clearance } : null;
   return {
+    minDepth: parts ? parts.draught + parts.clearance : draught !== null || clearance !== null ? Number.NaN : null,
+    minDepthParts: parts,
+    maxDepth: numberOrNull(l.maxDepth),
+    currentMax: numberOrNull(l.currentMax),
+    tideWindow: l.tideReference === 'none' ? null : { reference: l.tideReference, before: numberFromText(l.tideBefore), after: numberFromText(l.tideAfter) },
     hsMax: numberOrNull(l.hsMax),
     hsTpCurve: l.hsTpCurve.length > 0 ? l.hsTpCurve.map(pairNumbers) : null,
     tpMin: numberOrNull(l.tpMin),
@@ -100,6 +116,13 @@ function initialValues(op: OperationResponse | null): OperationText {
       bedVelocityMax: textFromNumber(l.bedVelocityMax),
       bedVelocityMethod: l.bedVelocityMethod ?? 'linear',
       windMax: textFromNumber(l.windMax),
+      draught: textFromNumber(l.minDepthParts?.draught ?? l.minDepth),
+      clearance: textFromNumber(l.minDepthParts?.clearance ?? (l.minDepth != null ? 0 : null)),
+      maxDepth: textFromNumber(l.maxDepth),
+      currentMax: textFromNumber(l.currentMax),
+      tideReference: l.tideWindow?.reference ?? 'none',
+      tideBefore: textFromNumber(l.tideWindow?.before),
+      tideAfter: textFromNumber(l.tideWindow?.after),
     },
   };
 }
@@ -376,6 +399,42 @@ export function OperationForm({
           </FieldShell>
           <FieldShell label="Wind max" unit="m/s" htmlFor={f('wind')} error={err('limits.windMax')} hint={`Mean wind speed at 10 m, ${rangeHint(R.windMps, 'm/s')}.`}>
             <Input id={f('wind')} inputMode="decimal" {...form.register('limits.windMax')} invalid={!!err('limits.windMax')} />
+          </FieldShell>
+        </div>
+      </FormSection>
+
+      <FormSection
+        id={f('tide')}
+        title="Water depth, current and tide (exact limits)"
+        hint="Checked against the still-water depth h = chart depth + water level, the current and the predicted high and low waters of the worksite's tide. Alpha never applies; without a tide a tide window finds no data."
+      >
+        <div className="grid gap-4 sm:grid-cols-4">
+          <FieldShell label="Draught" unit="m" htmlFor={f('draught')} error={err('limits.minDepthParts.draught') ?? err('limits.minDepth')} hint="Min depth = draught + under-keel clearance.">
+            <Input id={f('draught')} inputMode="decimal" {...form.register('limits.draught')} invalid={!!err('limits.minDepth')} />
+          </FieldShell>
+          <FieldShell label="Under-keel clearance" unit="m" htmlFor={f('ukc')} error={err('limits.minDepthParts.clearance')}>
+            <Input id={f('ukc')} inputMode="decimal" {...form.register('limits.clearance')} />
+          </FieldShell>
+          <FieldShell label="Max depth" unit="m" htmlFor={f('maxdepth')} error={err('limits.maxDepth')} hint={`Still-water depth, ${rangeHint(R.depthM, 'm')}.`}>
+            <Input id={f('maxdepth')} inputMode="decimal" {...form.register('limits.maxDepth')} invalid={!!err('limits.maxDepth')} />
+          </FieldShell>
+          <FieldShell label="Current max" unit="m/s" htmlFor={f('current')} error={err('limits.currentMax')} hint={`Current speed, ${rangeHint(R.currentMps, 'm/s')}.`}>
+            <Input id={f('current')} inputMode="decimal" {...form.register('limits.currentMax')} invalid={!!err('limits.currentMax')} />
+          </FieldShell>
+        </div>
+        <div className="grid gap-4 sm:grid-cols-3">
+          <FieldShell label="Tide window around" htmlFor={f('tideref')} error={err('limits.tideWindow')}>
+            <Select id={f('tideref')} {...form.register('limits.tideReference')}>
+              <option value="none">No tide window</option>
+              <option value="high">High water</option>
+              <option value="low">Low water</option>
+            </Select>
+          </FieldShell>
+          <FieldShell label="Hours before" unit="h" htmlFor={f('tidebefore')} error={err('limits.tideWindow.before')} hint={rangeHint(R.tideWindowH, 'h')}>
+            <Input id={f('tidebefore')} inputMode="decimal" {...form.register('limits.tideBefore')} disabled={limitsText.tideReference === 'none'} />
+          </FieldShell>
+          <FieldShell label="Hours after" unit="h" htmlFor={f('tideafter')} error={err('limits.tideWindow.after')} hint={rangeHint(R.tideWindowH, 'h')}>
+            <Input id={f('tideafter')} inputMode="decimal" {...form.register('limits.tideAfter')} disabled={limitsText.tideReference === 'none'} />
           </FieldShell>
         </div>
       </FormSection>
