@@ -75,7 +75,7 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
         <li>Ledger: all hours of a day are planned; hours not workable at OPLIM or without data count as lost. The expectation is the month’s lost hours over the hindcast years (P50/P90).</li>
         {sites.some((s) => s.tide && s.tide.source !== 'none') ? (
           <li>
-            Tide (docs/domain.md#tide): at a worksite with a tide, every hindcast hour is transformed at its still-water depth h = chart depth + predicted tide, so the
+            Tide: at a worksite with a tide, every hindcast hour is transformed at its still-water depth h = chart depth + predicted tide, so the
             depth-limited Hs, shoaling and bed velocity, and the depth and tide-window limits, change with the tide; an hour with h ≤ 0 is dry and counts as no data.
             The prediction is astronomical only (Schureman nodal corrections): storm surge is not included, and it is not for navigation.
           </li>
