@@ -73,7 +73,7 @@ if (!(await viaServer())) {
       { projectId, trigger: 'cli' },
     );
     console.log(JSON.stringify(result, null, 2));
-    if (mailer.fake) console.log(`No SMTP_URL: ${mailer.fake.messages.length} e-mail(s) went to a mail catcher that stops with this command.`);
+    if (mailer.fake) console.log(`No SMTP_URL: ${mailer.fake.messages.length} e-mail(s) went to a local mailbox that stops with this command.`);
   } finally {
     await forecast.close();
     await mailer.close();

@@ -4,7 +4,7 @@ import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
 import { toSeaSeries } from '../server/services/sea-series';
-import { buildFakeForecast, generateSyntheticSea, latestIssueTimeMs, truthSeedForPosition, climateForPosition } from '../server/forecast';
+import { buildFakeForecast, exchangeToRecords, generateSyntheticSea, latestIssueTimeMs, truthSeedForPosition, climateForPosition } from '../server/forecast';
 import { recurrenceText } from '../shared/recurrence';
 import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
@@ -193,10 +193,8 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
     for (let k = pastDays; k >= 1; k--) {
       const issuedAtMs = Math.floor(latest / 86_400_000) * 86_400_000 - k * 86_400_000;
       const f = buildFakeForecast({ seed: DEMO_SEA_SEED, latitude: DEMO_PROJECT.dataPointLatitude, longitude: DEMO_PROJECT.dataPointLongitude, issuedAtMs, horizonDays: 2 });
-      const h = f.hourly;
-      const col = (v: (number | null)[]) => Float64Array.from(v, (x) => (x === null ? NaN : x === 360 ? 0 : x));
-      const timeMs = Float64Array.from(h.time, (x) => Date.parse(x));
-      const keep = timeMs.findIndex((x) => x >= issuedAtMs);
+      const r = exchangeToRecords(f);
+      const keep = r.timeMs.findIndex((x) => x >= issuedAtMs);
       const cut = (a: Float64Array) => a.slice(keep);
       const issuedAt = new Date(issuedAtMs);
       await createDataset(
@@ -207,20 +205,20 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
           name: `Forecast issued ${issuedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`,
           kind: 'forecast',
           dataPointName: DEMO_PROJECT.dataPointName,
-          dataPointLatitude: f.latitude,
-          dataPointLongitude: f.longitude,
+          dataPointLatitude: f.position.lat,
+          dataPointLongitude: f.position.lon,
           dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
           sourceKind: 'service',
           format: 'fake forecast service (demo)',
           issuedAt,
         },
         toSeaSeries({
-          timeMs: cut(timeMs),
-          hs: cut(col(h.waveHeightM)),
-          tp: cut(col(h.peakPeriodS)),
-          dir: cut(col(h.waveDirectionDeg)),
-          wind: cut(col(h.windSpeedMps)),
-          windDir: cut(col(h.windDirectionDeg)),
+          timeMs: cut(r.timeMs),
+          hs: cut(r.hs),
+          tp: cut(r.tp),
+          dir: cut(r.dir),
+          wind: cut(r.wind),
+          windDir: cut(r.windDir),
         }),
         { source: 'fake forecast service (demo)' },
       );

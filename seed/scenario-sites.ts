@@ -1,12 +1,17 @@
-// Invented worksites and operations of the demo campaign. The limits are plausible figures for
-// the kind of work (common practice, no source); a real project takes them from its vessels'
-// and contractors' method statements and the marine warranty surveyor.
+// Invented worksites and operations of the demo campaign. The positions are arbitrary: a real
+// stretch of west-facing Atlantic coast (chosen at random, names invented) so that the map and the
+// depths agree. The worksites lie on one line square to the coast, at 0.5, 1.3, 5 and 16 km from
+// the coastline, and the shore-normal bearing (258 deg, the seaward direction) is the coastline's
+// own; tests/unit/demo-positions.test.ts checks them against Natural Earth's land.
+// The limits are plausible figures for the kind of work (common practice, no source); a real
+// project takes them from its vessels' and contractors' method statements and the marine
+// warranty surveyor.
 
 export const DEMO_SITES = [
-  { key: 'cofferdam', name: 'Landfall cofferdam', depthM: 3.5, shoreNormalDeg: 250, breakerIndex: 0.6, latitude: 52.412, longitude: -5.301 },
-  { key: 'trench', name: 'Nearshore trench KP 0.8', depthM: 8, shoreNormalDeg: 248, breakerIndex: 0.6, latitude: 52.409, longitude: -5.313 },
-  { key: 'route', name: 'Cable route KP 4.5', depthM: 19, shoreNormalDeg: 245, breakerIndex: 0.6, latitude: 52.398, longitude: -5.366 },
-  { key: 'substation', name: 'Offshore substation approach', depthM: 38, shoreNormalDeg: null, breakerIndex: 0.6, latitude: 52.385, longitude: -5.56 },
+  { key: 'cofferdam', name: 'Landfall cofferdam', depthM: 3.5, shoreNormalDeg: 258, breakerIndex: 0.6, latitude: 50.0775, longitude: -5.7207 },
+  { key: 'trench', name: 'Nearshore trench KP 0.8', depthM: 8, shoreNormalDeg: 258, breakerIndex: 0.6, latitude: 50.076, longitude: -5.7316 },
+  { key: 'route', name: 'Cable route KP 4.5', depthM: 19, shoreNormalDeg: 258, breakerIndex: 0.6, latitude: 50.069, longitude: -5.782 },
+  { key: 'substation', name: 'Offshore substation approach', depthM: 38, shoreNormalDeg: null, breakerIndex: 0.6, latitude: 50.049, longitude: -5.933 },
 ] as const;
 
 export const DEMO_TIME_ZONE = 'Europe/London';

@@ -18,8 +18,10 @@ export const DEMO_PROJECT = {
     'substation to a landfall on the fictional Varrow coast, with a rock berm, a diver-assisted ' +
     'duct pull-in and daily crew transfers by the CTV Sable Wren.',
   dataPointName: 'Varrow offshore point',
-  dataPointLatitude: 52.38,
-  dataPointLongitude: -5.62,
+  // 20 km off the coast on the worksites' line (arbitrary, see scenario-sites.ts); the fake
+  // forecast answers for its grid node at 50.00 N, 6.00 W, also at sea.
+  dataPointLatitude: 50.041,
+  dataPointLongitude: -5.988,
   dataPointDepthM: 42,
   forecastSource: 'service' as const,
 };

@@ -21,6 +21,9 @@ import { API_ROUTERS } from './routes';
  */
 export const AUTH_ROUTES_IN_USE: readonly string[] = ['POST /sign-in/email', 'POST /sign-out', 'POST /change-password'];
 
+/** Old page address -> new one (permanent redirects, see createApp). */
+export const RENAMED_PAGES: readonly (readonly [string, string])[] = [['/wave-lab', '/wave-calculator']];
+
 /** Largest body the auth routes read (an e-mail and two passwords fit many times over). */
 export const AUTH_BODY_LIMIT = '64kb';
 
@@ -136,6 +139,15 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
   app.use('/api', (req) => {
     throw new HttpError('not_found', `No API route ${req.method} ${req.originalUrl.split('?')[0]}`);
   });
+
+  // Renamed pages keep their old address as a permanent redirect (/wave-lab became
+  // /wave-calculator in issue 17); the query string goes along.
+  for (const [from, to] of RENAMED_PAGES) {
+    app.get(from, (req, res) => {
+      const q = req.originalUrl.indexOf('?');
+      res.redirect(301, q < 0 ? to : to + req.originalUrl.slice(q));
+    });
+  }
 
   if (options.clientDir && fs.existsSync(path.join(options.clientDir, 'index.html'))) {
     const clientDir = options.clientDir;

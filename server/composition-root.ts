@@ -52,7 +52,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   if (forecast.fake) log.info(`No FORECAST_URL: local fake forecast service at ${forecast.fake.url}`);
 
   const mailer = await createMailer({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM });
-  if (mailer.fake) log.info(`No SMTP_URL: local mail catcher on port ${mailer.fake.port} (see the Mailbox page)`);
+  if (mailer.fake) log.info(`No SMTP_URL: local mailbox on port ${mailer.fake.port} (see the Mailbox page)`);
 
   const port = env.PORT;
   const provisionalBase = env.BASE_URL ?? `http://localhost:${port || 3000}`;

@@ -13,7 +13,7 @@ export interface AppDeps {
   log: Logger;
   /** The marine forecast service (or its local fake). */
   forecast: ForecastProvider;
-  /** E-mail (SMTP, or the local mail catcher). */
+  /** E-mail (SMTP, or the local mailbox). */
   mailer: Mailer;
   /** The database handle (driver kind, advisory locks). */
   database: Database;

@@ -14,7 +14,7 @@
  * The error fields are value noise in valid time (30-40 h lattices) blended over a 24-hour lattice
  * of issues, so two issues 6 h apart share most of their error.
  */
-import type { ForecastResponse } from './forecast-schema';
+import { EXCHANGE_SERIES_KEYS, type ExchangeSeriesKey, type SeaStateExchange } from './forecast-schema';
 import { mix32, seed32, smoothNoise } from './seeded-noise';
 import { generateSyntheticSea, type SeaClimate } from './synthetic-sea';
 
@@ -114,10 +114,36 @@ function wrap360(deg: number): number {
 }
 
 /**
- * Builds one invented forecast answer in the service's wire format.
+ * What the fake knows at one record, from which each exchange variable is read (FAKE_VALUES).
+ */
+interface FakeRecord {
+  hs: number;
+  tp: number;
+  wind: number;
+  /** Wave and wind directions from the truth at the nearest record, before the error. */
+  dirTrue: number;
+  windDirTrue: number;
+  /** Direction error, deg. */
+  eDir: number;
+}
+
+/**
+ * The fake's value of each exchange variable at one record: one line per variable, so a variable
+ * added to EXCHANGE_SERIES gets its invented values here in one line (an optional one may be left out).
+ */
+const FAKE_VALUES: { [K in ExchangeSeriesKey]?: (r: FakeRecord) => number | null } = {
+  hs: (r) => r.hs,
+  tp: (r) => r.tp,
+  dir: (r) => Math.round(wrap360(r.dirTrue + r.eDir)) % 360,
+  wind: (r) => r.wind,
+  windDir: (r) => Math.round(wrap360(r.windDirTrue + 1.5 * r.eDir)) % 360,
+};
+
+/**
+ * Builds one invented forecast answer in the sea-state exchange (forecast-schema.ts).
  * @throws RangeError for an issue time off the 6-hour cycle or a horizon outside 1-16 days
  */
-export function buildFakeForecast(request: FakeForecastRequest): ForecastResponse {
+export function buildFakeForecast(request: FakeForecastRequest): SeaStateExchange {
   const { issuedAtMs, horizonDays } = request;
   const cycleMs = ISSUE_CYCLE_HOURS * MS_PER_HOUR;
   if (!Number.isFinite(issuedAtMs) || issuedAtMs % cycleMs !== 0) throw new RangeError('issuedAtMs must be on the 00/06/12/18 UTC cycle');
@@ -140,14 +166,9 @@ export function buildFakeForecast(request: FakeForecastRequest): ForecastRespons
     climate: climateForPosition(latitude),
   });
 
-  const hourly: ForecastResponse['hourly'] = {
-    time: new Array<string>(n),
-    waveHeightM: new Array<number | null>(n),
-    peakPeriodS: new Array<number | null>(n),
-    waveDirectionDeg: new Array<number | null>(n),
-    windSpeedMps: new Array<number | null>(n),
-    windDirectionDeg: new Array<number | null>(n),
-  };
+  const time = new Array<string>(n);
+  const columns = new Map<ExchangeSeriesKey, (number | null)[]>();
+  for (const key of EXCHANGE_SERIES_KEYS) if (FAKE_VALUES[key]) columns.set(key, new Array<number | null>(n));
   const last = truth.hsM.length - 1;
   for (let r = 0; r < n; r++) {
     const h = leads[r];
@@ -175,13 +196,10 @@ export function buildFakeForecast(request: FakeForecastRequest): ForecastRespons
     tp = Math.min(40, Math.max(0.5, Math.round(tp * 10) / 10));
     const wind = Math.min(99.9, Math.max(0, Math.round(windTrue * Math.exp(eWind) * 10) / 10));
 
-    hourly.time[r] = iso(tMs);
-    hourly.waveHeightM[r] = hs;
-    hourly.peakPeriodS[r] = tp;
-    hourly.waveDirectionDeg[r] = Math.round(wrap360(truth.dirDeg[near] + eDir)) % 360;
-    hourly.windSpeedMps[r] = wind;
-    hourly.windDirectionDeg[r] = Math.round(wrap360(truth.windDirDeg[near] + 1.5 * eDir)) % 360;
+    time[r] = iso(tMs);
+    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir };
+    for (const [key, column] of columns) column[r] = FAKE_VALUES[key]!(record);
   }
-  // stepMinutes stays 60 (the wire format's first step); the times carry the change to 3-hourly.
-  return { latitude, longitude, issuedAt: iso(issuedAtMs), stepMinutes: 60, hourly };
+  // The times carry the change from hourly to 3-hourly (the exchange has no single step).
+  return { position: { lat: latitude, lon: longitude }, issuedAt: iso(issuedAtMs), series: { time, ...Object.fromEntries(columns) } as SeaStateExchange['series'] };
 }

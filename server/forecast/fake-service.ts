@@ -1,16 +1,18 @@
 /**
  * A local fake of the hosted marine forecast service (node:http, no framework). It starts by
- * itself in development and tests when no service URL is configured, answers the same JSON as the
- * real service ({@link forecastResponseSchema}) with invented, deterministic forecasts for any
- * position (see fake-forecast.ts), and can fail on request for the reliability tests.
+ * itself in development and tests when no service URL is configured, answers our own sea-state
+ * exchange (forecast-schema.ts, docs/domain.md#forecast-service) with invented, deterministic
+ * forecasts for any position (see fake-forecast.ts), and can fail on request for the reliability
+ * tests.
  *
- * Endpoint: `GET /v1/forecast?lat=<deg>&lon=<deg>` -> 200 with a forecast; 400 for a missing or
+ * Endpoint: `GET /exchange/sea-state?lat=<deg>&lon=<deg>` -> 200 with a forecast; 400 for a missing or
  * invalid position; 401 when an apiKey is set and the `authorization: Bearer <key>` header does not
  * match; 404 for other paths; 405 for other methods. `GET /health` -> 200 `{"ok":true}`.
  */
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { buildFakeForecast, latestIssueTimeMs } from './fake-forecast';
+import { EXCHANGE_PATH } from './forecast-schema';
 
 /**
  * - `none`: answer normally;
@@ -115,7 +117,7 @@ export async function startFakeForecastService(options: FakeForecastServiceOptio
       sendJson(res, 200, { ok: true });
       return;
     }
-    if (url.pathname !== '/v1/forecast') {
+    if (url.pathname !== `/${EXCHANGE_PATH}`) {
       sendError(res, 404, 'not_found', `No such endpoint: ${url.pathname}`);
       return;
     }
@@ -153,9 +155,9 @@ export async function startFakeForecastService(options: FakeForecastServiceOptio
       return;
     }
     if (mode === 'schema') {
-      const n = forecast.hourly.time.length;
-      forecast.hourly.waveHeightM[n - 5] = -1.5;
-      forecast.hourly.windSpeedMps.pop();
+      const n = forecast.series.time.length;
+      forecast.series.hs[n - 5] = -1.5;
+      forecast.series.wind.pop();
     }
     sendJson(res, 200, forecast);
   };

@@ -1,79 +1,116 @@
 /**
- * The JSON answered by the hosted marine forecast service (our own, generic wire format), as a
- * zod 4 schema. The client validates every answer with it before anything is used or stored, and
- * the local fake serves exactly this shape.
+ * The sea-state exchange: Lullwatch's own JSON shape for a forecast at one position
+ * (docs/domain.md#forecast-service). The forecast client asks `GET {base}/exchange/sea-state?lat=&lon=`
+ * and validates every answer with {@link seaStateExchangeSchema} (zod) before anything is used or
+ * stored; the local fake serves exactly this shape. A provider that answers another shape gets an
+ * adapter beside `adapters/sea-state-exchange.ts` instead.
  *
  * ```json
- * { "latitude": 50.25, "longitude": -5.5, "issuedAt": "2026-12-01T06:00:00Z", "stepMinutes": 60,
- *   "hourly": { "time": ["2026-12-01T06:00:00Z", ...], "waveHeightM": [1.42, ...],
- *               "peakPeriodS": [9.1, ...], "waveDirectionDeg": [251, ...],
- *               "windSpeedMps": [7.4, ...], "windDirectionDeg": [238, ...] } }
+ * { "position": { "lat": 50.25, "lon": -5.5 },
+ *   "issuedAt": "2026-12-01T06:00:00Z",
+ *   "series": { "time": ["2026-12-01T06:00:00Z", "2026-12-01T07:00:00Z", ...],
+ *               "hs": [1.42, 1.45, ...], "tp": [9.1, null, ...], "dir": [251, ...],
+ *               "wind": [7.4, ...], "windDir": [238, ...] } }
  * ```
  *
- * Plausibility bounds (the same as the importer's): Hs 0-25 m, Tp 0.5-40 s, directions 0-360 deg
- * (360 accepted on the wire and read as 0, since some services write north that way), wind
- * 0-100 m/s. `null` marks a missing value. Times are ISO 8601 UTC with `Z`, strictly increasing.
+ * - `position`: the point the forecast is for (a service may snap to its model grid), deg.
+ * - `issuedAt`: the issue (analysis) time. Times are ISO 8601 UTC with `Z`.
+ * - `series.time`: each record's valid time, strictly increasing. There is no single step field:
+ *   the step may change part-way (hourly for the first days, then 3-hourly), and each record's
+ *   time says so.
+ * - Every other `series` member is one variable, an array as long as `time`; `null` marks a
+ *   missing value. The members, their units and plausibility bounds (the importer's) are the rows
+ *   of {@link EXCHANGE_SERIES}; directions may be written 360 for north and are read as 0.
  */
 import { z } from 'zod';
 
-/** Longest forecast accepted, in hourly steps: 40 days (services answer 7-16). */
+/** Longest forecast accepted, in records: 40 days hourly (services answer 7-16 days). */
 export const MAX_FORECAST_STEPS = 40 * 24;
+
+/** The path of the exchange below the configured base URL (no leading slash). */
+export const EXCHANGE_PATH = 'exchange/sea-state';
+
+export interface ExchangeSeriesSpec {
+  /** What the values are, for the documentation and error messages. */
+  label: string;
+  unit: string;
+  /** Plausibility bounds, inclusive. */
+  min: number;
+  max: number;
+  /** A direction in degrees, nautical coming-from (360 on the wire is read as 0). */
+  direction: boolean;
+  /** false: an answer may leave the member out, and every value is then missing. */
+  required: boolean;
+}
+
+/**
+ * The variables of the exchange, one row each (name on the wire = name in the forecast records).
+ * Adding a variable is one row here: the schema, the type of the answer, the conversion to
+ * records and the fake's answer all follow from this table.
+ */
+export const EXCHANGE_SERIES = {
+  hs: { label: 'significant wave height Hm0', unit: 'm', min: 0, max: 25, direction: false, required: true },
+  tp: { label: 'peak period', unit: 's', min: 0.5, max: 40, direction: false, required: true },
+  dir: { label: 'mean wave direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: true },
+  wind: { label: 'wind speed at 10 m', unit: 'm/s', min: 0, max: 100, direction: false, required: true },
+  windDir: { label: 'wind direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: true },
+} as const satisfies Record<string, ExchangeSeriesSpec>;
+
+export type ExchangeSeriesKey = keyof typeof EXCHANGE_SERIES;
+
+/** The variable names in table order. */
+export const EXCHANGE_SERIES_KEYS = Object.keys(EXCHANGE_SERIES) as ExchangeSeriesKey[];
+
+type RequiredKey = { [K in ExchangeSeriesKey]: (typeof EXCHANGE_SERIES)[K]['required'] extends true ? K : never }[ExchangeSeriesKey];
+
+/** One forecast answer as it travels on the wire. */
+export interface SeaStateExchange {
+  position: { lat: number; lon: number };
+  issuedAt: string;
+  series: { time: string[] } & { [K in RequiredKey]: (number | null)[] } & { [K in Exclude<ExchangeSeriesKey, RequiredKey>]?: (number | null)[] };
+}
 
 const isoUtc = z.iso.datetime({ offset: false, local: false });
 
-/** A nullable number within [min, max]. */
-const value = (min: number, max: number) => z.number().min(min).max(max).nullable();
+const seriesShape: Record<string, z.ZodType> = { time: z.array(isoUtc).min(1).max(MAX_FORECAST_STEPS) };
+for (const key of EXCHANGE_SERIES_KEYS) {
+  const spec: ExchangeSeriesSpec = EXCHANGE_SERIES[key];
+  const column = z.array(z.number().min(spec.min).max(spec.max).nullable());
+  seriesShape[key] = spec.required ? column : column.optional();
+}
 
-const hourlySchema = z.object({
-  time: z.array(isoUtc).min(1).max(MAX_FORECAST_STEPS),
-  waveHeightM: z.array(value(0, 25)),
-  peakPeriodS: z.array(value(0.5, 40)),
-  waveDirectionDeg: z.array(value(0, 360)),
-  windSpeedMps: z.array(value(0, 100)),
-  windDirectionDeg: z.array(value(0, 360)),
-});
-
-const VALUE_KEYS = ['waveHeightM', 'peakPeriodS', 'waveDirectionDeg', 'windSpeedMps', 'windDirectionDeg'] as const;
-
-/** Schema of one forecast answer; see the module comment for the shape and bounds. */
-export const forecastResponseSchema = z
+/** Schema of one exchange answer; see the module comment for the shape and bounds. */
+export const seaStateExchangeSchema = z
   .object({
-    latitude: z.number().min(-90).max(90),
-    longitude: z.number().min(-180).max(180),
+    position: z.object({ lat: z.number().min(-90).max(90), lon: z.number().min(-180).max(180) }),
     issuedAt: isoUtc,
-    stepMinutes: z.literal(60),
-    hourly: hourlySchema,
+    series: z.object(seriesShape),
   })
   .superRefine((data, ctx) => {
-    const { hourly } = data;
-    const n = hourly.time.length;
-    for (const key of VALUE_KEYS) {
-      if (hourly[key].length !== n) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['hourly', key],
-          message: `has ${hourly[key].length} values but hourly.time has ${n}`,
-        });
+    const series = data.series as Record<string, unknown[] | undefined>;
+    const time = series.time as string[];
+    const n = time.length;
+    for (const key of EXCHANGE_SERIES_KEYS) {
+      const column = series[key];
+      if (column && column.length !== n) {
+        ctx.addIssue({ code: 'custom', path: ['series', key], message: `has ${column.length} values but series.time has ${n}` });
       }
     }
     let previous = -Infinity;
     for (let i = 0; i < n; i++) {
-      const t = Date.parse(hourly.time[i]);
+      const t = Date.parse(time[i]);
       if (Number.isNaN(t)) {
-        ctx.addIssue({ code: 'custom', path: ['hourly', 'time', i], message: `${hourly.time[i]} is not a calendar date` });
+        ctx.addIssue({ code: 'custom', path: ['series', 'time', i], message: `${time[i]} is not a calendar date` });
         break;
       }
       if (!(t > previous)) {
         ctx.addIssue({
           code: 'custom',
-          path: ['hourly', 'time', i],
-          message: `times must be strictly increasing (${hourly.time[i]} follows ${hourly.time[i - 1]})`,
+          path: ['series', 'time', i],
+          message: `times must be strictly increasing (${time[i]} follows ${time[i - 1]})`,
         });
         break;
       }
       previous = t;
     }
-  });
-
-/** One forecast answer as it travels on the wire. */
-export type ForecastResponse = z.infer<typeof forecastResponseSchema>;
+  }) as unknown as z.ZodType<SeaStateExchange>;

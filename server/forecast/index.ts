@@ -1,18 +1,19 @@
 /**
- * Forecast service module: the provider interface and its HTTP client, the local fake service,
- * the wire schema, and the invented sea states behind the demo hindcast and the fake.
+ * Forecast service module: the provider interface and its HTTP client with one adapter per
+ * provider shape (adapters/), the local fake service, our own exchange shape, and the invented sea states behind the demo hindcast and the fake.
  */
 import { startFakeForecastService, type FakeForecastService, type FakeForecastServiceOptions } from './fake-service';
 import { HttpForecastProvider, type ForecastProvider } from './provider';
 
 // Provider interface and HTTP client
 export { HttpForecastProvider } from './provider';
-export type { ForecastIssue, ForecastProvider, ForecastQuery, ForecastRecords, HttpForecastProviderOptions } from './provider';
+export type { ForecastAdapter, ForecastIssue, ForecastProvider, ForecastQuery, ForecastRecords, HttpForecastProviderOptions } from './provider';
+export { seaStateExchangeAdapter, exchangeToRecords } from './adapters/sea-state-exchange';
 export { ForecastServiceError } from './forecast-service-error';
 export type { ForecastServiceErrorCode } from './forecast-service-error';
-// Wire format
-export { forecastResponseSchema, MAX_FORECAST_STEPS } from './forecast-schema';
-export type { ForecastResponse } from './forecast-schema';
+// Wire format: our own sea-state exchange
+export { seaStateExchangeSchema, EXCHANGE_PATH, EXCHANGE_SERIES, EXCHANGE_SERIES_KEYS, MAX_FORECAST_STEPS } from './forecast-schema';
+export type { ExchangeSeriesKey, ExchangeSeriesSpec, SeaStateExchange } from './forecast-schema';
 // Local fake service
 export { startFakeForecastService } from './fake-service';
 export type { FakeFailureMode, FakeForecastRequestLog, FakeForecastService, FakeForecastServiceOptions } from './fake-service';

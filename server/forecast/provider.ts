@@ -3,56 +3,14 @@
  * for a data point, and its HTTP implementation for the hosted marine forecast service.
  */
 import { ForecastServiceError } from './forecast-service-error';
-import { forecastResponseSchema, type ForecastResponse } from './forecast-schema';
+import { seaStateExchangeAdapter } from './adapters/sea-state-exchange';
+import type { ForecastAdapter, ForecastIssue, ForecastProvider, ForecastQuery } from './types';
 
-/** Hourly forecast records in columns; NaN marks a value the service left out (null). */
-export interface ForecastRecords {
-  /** Valid times, ms since 1970-01-01T00:00Z, strictly increasing. */
-  timeMs: Float64Array;
-  /** Significant wave height Hm0, m. */
-  hs: Float64Array;
-  /** Peak period, s. */
-  tp: Float64Array;
-  /** Mean wave direction, nautical coming-from, deg in [0, 360). */
-  dir: Float64Array;
-  /** Wind speed at 10 m, m/s. */
-  wind: Float64Array;
-  /** Wind direction, nautical coming-from, deg in [0, 360). */
-  windDir: Float64Array;
-}
-
-/** One forecast issue, validated and converted. */
-export interface ForecastIssue {
-  /** Issue (analysis) time of the forecast, ms since 1970-01-01T00:00Z. */
-  issuedAtMs: number;
-  /** Position the service answered for (it may snap to its model grid), deg north. */
-  latitude: number;
-  /** Position the service answered for, deg east in [-180, 180]. */
-  longitude: number;
-  records: ForecastRecords;
-}
-
-export interface ForecastQuery {
-  /** Data point latitude, deg north, -90..90. */
-  latitude: number;
-  /** Data point longitude, deg east, -180..180. */
-  longitude: number;
-  /** Cancels the request; the promise then rejects with the signal's reason (not a ForecastServiceError). */
-  signal?: AbortSignal;
-}
-
-export interface ForecastProvider {
-  /** Short name of the source, stored with each forecast dataset. */
-  readonly name: string;
-  /**
-   * Latest forecast issue for a position.
-   * @throws ForecastServiceError when the service fails (timeout, HTTP error, malformed answer,
-   *   network); RangeError for an invalid position
-   */
-  fetchLatest(query: ForecastQuery): Promise<ForecastIssue>;
-}
+export type { ForecastAdapter, ForecastIssue, ForecastProvider, ForecastQuery, ForecastRecords } from './types';
 
 export interface HttpForecastProviderOptions {
+  /** Reads the provider's shape; default our own sea-state exchange (adapters/sea-state-exchange.ts). */
+  adapter?: ForecastAdapter;
   /** Time limit for the whole exchange (connect, headers and body), ms; default 15,000. */
   timeoutMs?: number;
   /** The fetch to use (tests may pass a stub); default the global fetch. */
@@ -67,7 +25,6 @@ export interface HttpForecastProviderOptions {
 
 const DEFAULT_TIMEOUT_MS = 15_000;
 const DEFAULT_MAX_BYTES = 8 * 1024 * 1024;
-const MAX_DETAILS = 5;
 
 /** Plain-language names of the usual socket errors, for the user-facing message. */
 const NETWORK_REASONS: Record<string, string> = {
@@ -110,39 +67,17 @@ function httpMessage(status: number, statusText: string): string {
   return `The forecast service did not accept the request (${label}).`;
 }
 
-function toRecords(data: ForecastResponse): ForecastRecords {
-  const h = data.hourly;
-  const n = h.time.length;
-  const column = (values: (number | null)[], isDirection = false): Float64Array => {
-    const out = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      const v = values[i];
-      // Directions: 360 on the wire means north, stored as 0 (directions live in [0, 360)).
-      out[i] = v === null ? NaN : isDirection && v === 360 ? 0 : v;
-    }
-    return out;
-  };
-  const timeMs = new Float64Array(n);
-  for (let i = 0; i < n; i++) timeMs[i] = Date.parse(h.time[i]);
-  return {
-    timeMs,
-    hs: column(h.waveHeightM),
-    tp: column(h.peakPeriodS),
-    dir: column(h.waveDirectionDeg, true),
-    wind: column(h.windSpeedMps),
-    windDir: column(h.windDirectionDeg, true),
-  };
-}
-
 /**
- * Client of the hosted marine forecast service: `GET {baseUrl}/v1/forecast?lat=..&lon=..` with
- * `accept: application/json`, answer validated with {@link forecastResponseSchema}.
+ * Client of a hosted marine forecast service over HTTP: `GET` with `accept: application/json` at
+ * the adapter's address (by default our own exchange, `{baseUrl}/exchange/sea-state?lat=..&lon=..`),
+ * answer validated and converted by the adapter.
  * No retries inside: the scheduled fetch job tries again at its next tick, and a coordinator can
  * press the button again.
  */
 export class HttpForecastProvider implements ForecastProvider {
   readonly name: string;
-  private readonly endpoint: URL;
+  private readonly base: URL;
+  private readonly adapter: ForecastAdapter;
   private readonly timeoutMs: number;
   private readonly fetchImpl: typeof fetch;
   private readonly apiKey?: string;
@@ -165,7 +100,8 @@ export class HttpForecastProvider implements ForecastProvider {
     const timeoutMs = options.timeoutMs ?? DEFAULT_TIMEOUT_MS;
     if (!(Number.isFinite(timeoutMs) && timeoutMs > 0)) throw new RangeError(`timeoutMs must be a positive number, got ${timeoutMs}`);
     if (!base.pathname.endsWith('/')) base.pathname += '/';
-    this.endpoint = new URL('v1/forecast', base);
+    this.base = base;
+    this.adapter = options.adapter ?? seaStateExchangeAdapter;
     this.timeoutMs = timeoutMs;
     this.fetchImpl = options.fetchImpl ?? fetch;
     this.apiKey = options.apiKey;
@@ -179,9 +115,7 @@ export class HttpForecastProvider implements ForecastProvider {
     if (!(Number.isFinite(longitude) && longitude >= -180 && longitude <= 180)) throw new RangeError(`longitude must be within -180..180, got ${longitude}`);
     signal?.throwIfAborted();
 
-    const url = new URL(this.endpoint);
-    url.searchParams.set('lat', String(latitude));
-    url.searchParams.set('lon', String(longitude));
+    const url = this.adapter.requestUrl(this.base, { latitude, longitude });
     const headers: Record<string, string> = { accept: 'application/json' };
     if (this.apiKey) headers.authorization = `Bearer ${this.apiKey}`;
 
@@ -232,22 +166,7 @@ export class HttpForecastProvider implements ForecastProvider {
           cause: err,
         });
       }
-      const parsed = forecastResponseSchema.safeParse(json);
-      if (!parsed.success) {
-        const details = parsed.error.issues.slice(0, MAX_DETAILS).map((issue) => `${issue.path.join('.') || '(root)'}: ${issue.message}`);
-        throw new ForecastServiceError(
-          'malformed',
-          `The forecast service sent a forecast that failed validation (${details[0]}). Nothing was stored; try again later.`,
-          { details, cause: parsed.error },
-        );
-      }
-      const data = parsed.data;
-      return {
-        issuedAtMs: Date.parse(data.issuedAt),
-        latitude: data.latitude,
-        longitude: data.longitude,
-        records: toRecords(data),
-      };
+      return this.adapter.toIssue(json);
     } finally {
       clearTimeout(timer);
       signal?.removeEventListener('abort', onCallerAbort);

@@ -28,7 +28,7 @@ interface Body {
   gzip: Buffer | null;
 }
 
-/** GETs never kept: one with a side effect (unsubscribe), answers from memory (the mail catcher), token feeds, health. */
+/** GETs never kept: one with a side effect (unsubscribe), answers from memory (the local mailbox), token feeds, health. */
 const NEVER = /^\/api\/(unsubscribe|dev\/|calendar\/|health)/;
 
 /** GET answers that depend on the clock. */

@@ -38,13 +38,13 @@ export async function startFakeSmtp(options: { port?: number; host?: string; kee
   const server = new SMTPServer({
     authOptional: true,
     disabledCommands: ['AUTH', 'STARTTLS'],
-    banner: 'Lullwatch local mail catcher',
+    banner: 'Lullwatch local mailbox',
     logger: false,
     onData(stream, session, callback) {
       if (down) {
         stream.resume();
         stream.on('end', () => {
-          const err = new Error('Mail catcher is down (test switch)') as Error & { responseCode: number };
+          const err = new Error('Local mailbox is down (test switch)') as Error & { responseCode: number };
           err.responseCode = 451;
           callback(err);
         });

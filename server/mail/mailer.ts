@@ -17,7 +17,7 @@ export interface OutgoingMail {
 
 export interface Mailer {
   send(mail: OutgoingMail): Promise<void>;
-  /** The local mail catcher, when it is in use (no SMTP_URL). */
+  /** The local mailbox, when it is in use (no SMTP_URL). */
   fake?: FakeSmtp;
   close(): Promise<void>;
 }

@@ -3,12 +3,12 @@ import type { AppDeps } from '../deps';
 import { requireAdmin } from '../http/context';
 import { HttpError } from '../http/errors';
 
-/** The local mail catcher's inbox (development and demo: only while no SMTP server is set). */
+/** The local mailbox's inbox (development and demo: only while no SMTP server is set). */
 export function mailboxRoutes(deps: AppDeps): Router {
   const { mailer } = deps;
   const router = Router();
 
-  /** GET /api/dev/mailbox (admins): what the local mail catcher received; exists only while it is in use. */
+  /** GET /api/dev/mailbox (admins): what the local mailbox received; exists only while it is in use. */
   router.get('/dev/mailbox', (req, res) => {
     if (!mailer.fake) throw new HttpError('not_found', 'No API route GET /api/dev/mailbox');
     requireAdmin(req);

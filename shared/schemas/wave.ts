@@ -54,3 +54,51 @@ export const SeaStateQuery = z
     path: ['tp'],
   });
 export type SeaStateQuery = z.infer<typeof SeaStateQuery>;
+
+/**
+ * The wave calculator's form over the text of its number fields, read by the shared query schema
+ * above (the one the server parses the request with): a blank field is "not given", a decimal
+ * comma is read as a point (1,5 = 1.5), and a blank required field gets its own message. The page
+ * validates with it through react-hook-form's zod resolver, so it shows the server's own range
+ * messages before it asks.
+ */
+export function typedNumberForm<K extends string, S extends z.ZodType>(
+  keys: readonly K[],
+  query: S,
+  required: Partial<Record<K, string>>,
+): z.ZodType<z.output<S>, Record<K, string>> {
+  const shape: Record<string, z.ZodString> = {};
+  for (const k of keys) shape[k] = z.string();
+  return z
+    .object(shape)
+    .superRefine((raw: Record<string, string>, ctx) => {
+      for (const k of keys) {
+        const message = required[k];
+        if (message && raw[k].trim() === '') ctx.addIssue({ code: 'custom', path: [k], message });
+      }
+    })
+    .transform((raw: Record<string, string>) => {
+      const out: Record<string, string | undefined> = {};
+      for (const k of keys) {
+        const text = raw[k].trim().replace(',', '.');
+        out[k] = text === '' ? undefined : text;
+      }
+      return out;
+    })
+    .pipe(query as unknown as z.ZodType<z.output<S>, Record<string, string | undefined>>) as unknown as z.ZodType<z.output<S>, Record<K, string>>;
+}
+
+export const RegularWaveForm = typedNumberForm(['period', 'height', 'depth', 'z'], RegularWaveQuery, {
+  period: 'Enter the wave period',
+  height: 'Enter the wave height',
+  depth: 'Enter the water depth',
+});
+export const SeaStateForm = typedNumberForm(['hs', 'tp', 'tz', 'te', 'gamma', 'depth'], SeaStateQuery, {
+  hs: 'Enter the significant wave height',
+  depth: 'Enter the water depth',
+});
+export const WaveTableForm = typedNumberForm(['from', 'to', 'step'], WaveTableQuery, {
+  from: 'Enter the first d/L0',
+  to: 'Enter the last d/L0',
+  step: 'Enter the step of d/L0',
+});

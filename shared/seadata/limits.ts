@@ -7,8 +7,8 @@
  *   under 100 characters. One line (a CSV row, quoted line breaks included) may be 1 MiB: a line
  *   without any line break is buffered whole before it can be split, so this bounds that buffer
  *   and the field array made from it.
- * - A CSV row may hold 16,384 fields: the width of a spreadsheet sheet (Excel's last column is
- *   XFD, the 16,384th; from memory), so no spreadsheet export is wider. Without a limit, a header
+ * - A CSV row may hold 16,384 fields (2^14): the widest sheet common spreadsheet programs allow
+ *   (from memory), so no spreadsheet export is wider. Without a limit, a header
  *   of a million delimiters would make every row a million-field array.
  * Lengths are counted in UTF-16 code units of the decoded text (JavaScript string length), which
  * equals bytes for ASCII text.

@@ -44,7 +44,9 @@ export const router = createBrowserRouter([
       { path: 'admin/people', lazy: page(() => import('../features/admin/components/people-page'), 'PeoplePage'), loader: requireAdmin },
       { path: 'account', lazy: page(() => import('../features/auth/components/account-page'), 'AccountPage') },
       { path: 'projects', loader: () => redirect('/') },
-      { path: 'wave-lab', lazy: page(() => import('../features/wave-lab/components/wave-lab-page'), 'WaveLabPage') },
+      { path: 'wave-calculator', lazy: page(() => import('../features/wave-calculator/components/wave-calculator-page'), 'WaveCalculatorPage') },
+      // The section's former address (renamed in issue 17); the server answers it with a 301 too.
+      { path: 'wave-lab', loader: ({ request }) => redirect(`/wave-calculator${new URL(request.url).search}`) },
       { path: 'admin/mailbox', lazy: page(() => import('../features/alerts/components/mailbox-page'), 'MailboxPage'), loader: requireAdmin },
       {
         path: 'projects/:projectId',

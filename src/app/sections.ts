@@ -3,7 +3,7 @@ import type { ProjectAccessRole } from '../../shared/api-types';
 /** Top-level sections; the list grows as features land. */
 export const APP_SECTIONS: { path: string; label: string; adminOnly?: boolean }[] = [
   { path: '/', label: 'Projects' },
-  { path: '/wave-lab', label: 'Wave lab' },
+  { path: '/wave-calculator', label: 'Wave calculator' },
   { path: '/admin/people', label: 'People & access', adminOnly: true },
   { path: '/admin/mailbox', label: 'Mailbox', adminOnly: true },
 ];

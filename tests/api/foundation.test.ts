@@ -47,6 +47,15 @@ describe('health and sign-in', () => {
     expect(wrong.body.message).toBe(unknown.body.message);
   });
 
+  it('answers the renamed section\'s old address with a permanent redirect to the new one', async () => {
+    // Issue 17: "Wave lab" became "Wave calculator"; a bookmark of the old page still works.
+    const res = await request(t.app).get('/wave-lab?mode=table');
+    expect(res.status).toBe(301);
+    expect(res.headers.location).toBe('/wave-calculator?mode=table');
+    const bare = await request(t.app).get('/wave-lab');
+    expect(bare.headers.location).toBe('/wave-calculator');
+  });
+
   it('stores passwords hashed, never in clear', async () => {
     const rows = await t.database.db.query.account.findMany();
     expect(rows.length).toBeGreaterThanOrEqual(4);

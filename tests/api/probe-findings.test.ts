@@ -1,6 +1,6 @@
 // What an independent security probe of a running instance found (resource abuse, the auth
 // library's extra routes, audit identity), one describe per finding, on the real app (PGlite, the
-// local mail catcher; no mocks). The sources named beside the checks are cited from memory.
+// local mailbox; no mocks). The sources named beside the checks are cited from memory.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';

@@ -342,7 +342,7 @@ const TABLE: Record<string, RouteCase> = {
     why: 'RFC 8058 one-click unsubscribe, sent by mail programs and by the confirmation page without a session; the same signed, expiring link is the key',
     query: (p) => unsubscribeQuery(p),
   },
-  'GET /dev/mailbox': { access: 'admin', why: 'exists only while the local mail catcher is in use (it is in tests)' },
+  'GET /dev/mailbox': { access: 'admin', why: 'exists only while the local mailbox is in use (it is in tests)' },
   'GET /me/calendar': { access: 'signedIn', why: 'the caller’s own feed address' },
   'POST /me/calendar': { access: 'signedIn', why: 'the caller’s own feed address' },
   'DELETE /me/calendar': { access: 'signedIn', why: 'the caller’s own feed address' },

@@ -3,7 +3,8 @@
 // [t, t + dt) (docs/domain.md#convention-9) and windows end exclusive (#convention-10). The
 // series and the expected indices are worked by hand beside each check.
 import { describe, expect, it } from 'vitest';
-import { dayRuns, visibleRange, windowAt, windowBoxes } from '../../src/features/board/components/board-model';
+import { dayRuns, occurrenceMarks, startWords, visibleRange, windowAt, windowBoxes } from '../../src/features/board/components/board-model';
+import type { OperationSitePlan } from '../../shared/api-types-plan';
 
 const H = 3_600_000;
 const T0 = Date.parse('2026-03-28T00:00:00Z');
@@ -55,5 +56,79 @@ describe('windowBoxes and windowAt', () => {
     expect(windowAt([w as never], T0 + 10 * H)).toBe(w);
     expect(windowAt([w as never], T0 + 19.99 * H)).toBe(w);
     expect(windowAt([w as never], T0 + 20 * H)).toBeUndefined();
+  });
+});
+
+describe('occurrenceMarks (recurring operations on the board, as the Alerts page promises)', () => {
+  // Hourly records from 28 Mar 00:00 UTC for 48 h; the whole forecast on screen.
+  const times = hourly(48);
+  const all = { from: 0, to: 48, ended: false };
+  const at = (h: number) => new Date(T0 + h * H).toISOString();
+
+  it('covers [start, start + TR) from the record holding the start', () => {
+    // Start 06:00 UTC (record 6), TR 5 h: records 6-10 (5 records); start 06:30, TR 5 h ends
+    // 11:30, so records 6-11 overlap it (the 11:00 record holds 11:00-11:30).
+    const marks = occurrenceMarks([{ start: at(6), status: 'go' }, { start: at(30.5), status: 'no_go' }], times, H, all, 5);
+    expect(marks).toEqual([
+      { start: at(6), status: 'go', from: 6, count: 5, clippedStart: false },
+      { start: at(30.5), status: 'no_go', from: 30, count: 6, clippedStart: false },
+    ]);
+  });
+
+  it('clips to the hours on screen and leaves out occurrences outside them or the forecast', () => {
+    const occ = [
+      { start: at(2), status: 'marginal' as const }, // 02:00-07:00: records 2-6, on screen 5-6
+      { start: at(20), status: 'go' as const }, // after the hours on screen
+      { start: at(-10), status: 'go' as const }, // ends before the forecast
+      { start: at(48), status: 'go' as const }, // after the last record (47:00-48:00)
+    ];
+    expect(occurrenceMarks(occ, times, H, { from: 5, to: 20, ended: false }, 5)).toEqual([
+      { start: at(2), status: 'marginal', from: 5, count: 2, clippedStart: true },
+    ]);
+  });
+
+  it('draws at least the record holding the start when TR is shorter than a record', () => {
+    // 3-hourly records: an occurrence at 04:00 with TR 1 h lies in the 03:00 record (index 1).
+    const three = Array.from({ length: 8 }, (_, i) => T0 + i * 3 * H);
+    expect(occurrenceMarks([{ start: at(4), status: 'go' }], three, 3 * H, { from: 0, to: 8, ended: false }, 1)).toEqual([
+      { start: at(4), status: 'go', from: 1, count: 1, clippedStart: false },
+    ]);
+  });
+});
+
+describe('startWords', () => {
+  const plan = (over: Partial<OperationSitePlan>): OperationSitePlan => ({
+    operationId: 'o',
+    operationName: 'Crew change',
+    siteId: 's',
+    siteName: 'Landfall',
+    timeZone: 'Europe/London',
+    tpop: 4,
+    tc: 2,
+    tr: 6,
+    weatherRestricted: true,
+    informationOnly: false,
+    skipperIds: [],
+    windows: [],
+    earliestStart: null,
+    startNow: false,
+    times: [],
+    status: [],
+    limiting: [],
+    marginRel: [],
+    occurrences: [],
+    ...over,
+  });
+
+  it('gives the earliest start with its date, not the weekday alone (issue 17: "Tue 8 Dec 20:00")', () => {
+    // 8 December 2026 is a Tuesday (calendar); London is on GMT (UTC+0) in December.
+    const words = startWords(plan({ earliestStart: '2026-12-08T20:00:00Z' }), Date.parse('2026-12-03T14:00:00Z'));
+    expect(words.text).toBe('Earliest start: Tue 8 Dec 20:00 (local)');
+  });
+
+  it('adds the year when the start is in another year than now', () => {
+    // 5 January 2027 is a Tuesday (calendar).
+    const words = startWords(plan({ earliestStart: '2027-01-05T07:00:00Z' }), Date.parse('2026-12-30T14:00:00Z'));
+    expect(words.text).toBe('Earliest start: Tue 5 Jan 2027 07:00 (local)');
   });
 });

@@ -1,5 +1,5 @@
 // Alerts in a real browser against the built app and the seeded demo project (forecast from the
-// local fake service, e-mail to the local mail catcher): the coordinator presses "Re-plan now" and
+// local fake service, e-mail to the local mailbox): the coordinator presses "Re-plan now" and
 // reads what the run did; the skipper (subscribed to their operations by default) is e-mailed, and
 // the administrator reads that e-mail in the Mailbox. Clients see no coordinator tools.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

@@ -111,6 +111,27 @@ describe('the watch board', () => {
     expect(before).toBe(apiWorkable);
     await screenshot(page, 'board-coordinator-before');
 
+    // Recurring occurrences are drawn on the board, as the Alerts page promises ("Occurrences
+    // appear on the board"): the demo's crew transfer recurs Mon, Wed and Fri at 06:00 London time,
+    // so a forecast of a few days holds at least one. One mark per occurrence that overlaps the
+    // forecast, with the plan's judgement.
+    const crew = plan.plans.find((p) => p.operationName.startsWith('Crew transfer'));
+    expect(crew).toBeDefined();
+    const firstMs = Date.parse(crew!.times[0]);
+    const lastMs = Date.parse(crew!.times[crew!.times.length - 1]);
+    const inForecast = crew!.occurrences.filter((o) => Date.parse(o.start) + crew!.tr * 3_600_000 > firstMs && Date.parse(o.start) <= lastMs);
+    expect(inForecast.length).toBeGreaterThan(0);
+    const crewRow = page.locator(`[data-testid="board-row"][data-operation-id="${crew!.operationId}"][data-site-id="${crew!.siteId}"]`);
+    const marks = crewRow.getByTestId('occurrence-mark');
+    await expect.poll(() => marks.count()).toBe(inForecast.length);
+    const drawn = await marks.evaluateAll((els) => els.map((e) => `${e.getAttribute('data-start')} ${e.getAttribute('data-status')}`));
+    expect(drawn).toEqual(inForecast.map((o) => `${o.start} ${o.status}`));
+    expect(await marks.first().getAttribute('aria-label')).toMatch(/^Occurrence (Mon|Wed|Fri) \d{1,2} [A-Z][a-z]{2} 06:00 \(local\): (go|marginal|no-go|no data)/);
+    // Every other row (no recurrence) has none.
+    expect(await page.getByTestId('occurrence-mark').count()).toBe(inForecast.length);
+    await crewRow.scrollIntoViewIfNeeded();
+    await screenshot(page, 'board-occurrences');
+
     const patch = await page.request.patch(`${server.baseUrl}/api/projects/${projectId}/operations/${op!.id}`, {
       data: { limits: { ...op!.limits, hsMax: 0.8 } },
       headers: { origin: server.baseUrl },

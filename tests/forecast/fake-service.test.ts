@@ -1,7 +1,7 @@
 // The local fake forecast service, reached through the real HTTP client over loopback.
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import {
-  forecastResponseSchema,
+  seaStateExchangeSchema,
   generateSyntheticSea,
   HttpForecastProvider,
   startFakeForecastService,
@@ -61,11 +61,14 @@ describe('fake forecast service through HttpForecastProvider', () => {
   });
 
   it('answers JSON that passes the schema', async () => {
-    const res = await fetch(`${service.url}/v1/forecast?lat=50.1&lon=-5.6`);
+    const res = await fetch(`${service.url}/exchange/sea-state?lat=50.1&lon=-5.6`);
     expect(res.status).toBe(200);
     expect(res.headers.get('content-type')).toMatch(/^application\/json/);
-    const parsed = forecastResponseSchema.safeParse(await res.json());
+    const body = (await res.json()) as Record<string, unknown>;
+    const parsed = seaStateExchangeSchema.safeParse(body);
     expect(parsed.success).toBe(true);
+    // The documented top-level members (docs/domain.md#forecast-service), nothing else.
+    expect(Object.keys(body).sort()).toEqual(['issuedAt', 'position', 'series']);
   });
 
   it('issues on the 00/06/12/18 UTC cycle, hourly then 3-hourly, for 10 days by default', () => {
@@ -103,11 +106,11 @@ describe('fake forecast service through HttpForecastProvider', () => {
   });
 
   it('refuses a request without a valid position with 400', async () => {
-    const res = await fetch(`${service.url}/v1/forecast?lat=95&lon=0`);
+    const res = await fetch(`${service.url}/exchange/sea-state?lat=95&lon=0`);
     expect(res.status).toBe(400);
     expect(((await res.json()) as { error: { code: string } }).error.code).toBe('bad_position');
     expect((await fetch(`${service.url}/v2/nothing`)).status).toBe(404);
-    expect((await fetch(`${service.url}/v1/forecast?lat=1&lon=1`, { method: 'POST' })).status).toBe(405);
+    expect((await fetch(`${service.url}/exchange/sea-state?lat=1&lon=1`, { method: 'POST' })).status).toBe(405);
   });
 });
 
@@ -115,7 +118,7 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
   it('gives identical answers for the same clock, also from another instance', async () => {
     const a = await fake({ clock: () => DEC_3_1425 });
     const b = await fake({ clock: () => DEC_3_1425 + 2 * HOUR }); // same 12:00 issue
-    const url = '/v1/forecast?lat=50.1&lon=-5.6';
+    const url = '/exchange/sea-state?lat=50.1&lon=-5.6';
     const [ta, tb, ta2] = await Promise.all([fetch(a.url + url), fetch(b.url + url), fetch(a.url + url)].map(async (p) => (await p).text()));
     expect(tb).toBe(ta);
     expect(ta2).toBe(ta);

@@ -6,6 +6,7 @@ import {
   HttpForecastProvider,
   startFakeForecastService,
   type FakeForecastService,
+  type ForecastAdapter,
 } from '../../server/forecast';
 
 const POSITION = { latitude: 50.1, longitude: -5.6 };
@@ -34,17 +35,15 @@ async function failure(promise: Promise<unknown>): Promise<ForecastServiceError>
 /** A hand-written valid answer of two hours. */
 function answer(overrides: Record<string, unknown> = {}) {
   return {
-    latitude: 50,
-    longitude: -5.5,
+    position: { lat: 50, lon: -5.5 },
     issuedAt: '2026-12-03T12:00:00Z',
-    stepMinutes: 60,
-    hourly: {
+    series: {
       time: ['2026-12-03T12:00:00Z', '2026-12-03T13:00:00Z'],
-      waveHeightM: [1.2, null],
-      peakPeriodS: [8.5, 8.7],
-      waveDirectionDeg: [360, 250],
-      windSpeedMps: [6.1, 6.4],
-      windDirectionDeg: [240, 360],
+      hs: [1.2, null],
+      tp: [8.5, 8.7],
+      dir: [360, 250],
+      wind: [6.1, 6.4],
+      windDir: [240, 360],
       ...overrides,
     },
   };
@@ -88,7 +87,7 @@ describe('failures of the fake service through the real client', () => {
     const store = vi.fn();
     const err = await failure(new HttpForecastProvider(f.url).fetchLatest(POSITION).then(store));
     expect(err.code).toBe('malformed');
-    expect(err.details.join('\n')).toMatch(/hourly\.waveHeightM\.124/);
+    expect(err.details.join('\n')).toMatch(/series\.hs\.124/);
     expect(err.message).toMatch(/failed validation/);
     expect(store).not.toHaveBeenCalled();
   });
@@ -147,12 +146,12 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
     return fn;
   };
 
-  it('sends GET {base}/v1/forecast?lat&lon with accept and the key, converts nulls to NaN and 360 to 0', async () => {
+  it('sends GET {base}/exchange/sea-state?lat&lon with accept and the key, converts nulls to NaN and 360 to 0', async () => {
     const fetchImpl = stub(new Response(JSON.stringify(answer()), { status: 200 }));
     const p = new HttpForecastProvider('https://forecast.example.test/api', { fetchImpl: fetchImpl as unknown as typeof fetch, apiKey: 'secret' });
     const issue = await p.fetchLatest({ latitude: 50.1, longitude: -5.6 });
     const [url, init] = fetchImpl.mock.calls[0];
-    expect(String(url)).toBe('https://forecast.example.test/api/v1/forecast?lat=50.1&lon=-5.6');
+    expect(String(url)).toBe('https://forecast.example.test/api/exchange/sea-state?lat=50.1&lon=-5.6');
     const headers = init?.headers as Record<string, string>;
     expect(headers.accept).toBe('application/json');
     expect(headers.authorization).toBe('Bearer secret');
@@ -164,10 +163,28 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
     expect(Array.from(issue.records.windDir)).toEqual([240, 0]);
   });
 
+  it('asks and reads through the adapter it is given (the seam for a provider with another shape)', async () => {
+    // A made-up provider shape: rows of [time, hs, tp, dir, wind, windDir] under `data`.
+    const other: ForecastAdapter = {
+      requestUrl: (base, q) => new URL(`points/${q.latitude},${q.longitude}`, base),
+      toIssue: (json) => {
+        const rows = (json as { data: number[][]; issued: number }).data;
+        const col = (j: number) => Float64Array.from(rows, (r) => r[j]);
+        return { issuedAtMs: (json as { issued: number }).issued, latitude: 50, longitude: -5.5, records: { timeMs: col(0), hs: col(1), tp: col(2), dir: col(3), wind: col(4), windDir: col(5) } };
+      },
+    };
+    const body = { issued: Date.UTC(2026, 11, 3, 12), data: [[Date.UTC(2026, 11, 3, 12), 1.5, 9, 250, 7, 240]] };
+    const fetchImpl = stub(new Response(JSON.stringify(body)));
+    const issue = await new HttpForecastProvider('http://127.0.0.1:9/', { fetchImpl: fetchImpl as unknown as typeof fetch, adapter: other }).fetchLatest(POSITION);
+    expect(String(fetchImpl.mock.calls[0][0])).toBe('http://127.0.0.1:9/points/50.1,-5.6');
+    expect(issue.records.hs[0]).toBe(1.5);
+    expect(issue.issuedAtMs).toBe(Date.UTC(2026, 11, 3, 12));
+  });
+
   it('joins a base URL with a trailing slash correctly', async () => {
     const fetchImpl = stub(new Response(JSON.stringify(answer())));
     await new HttpForecastProvider('http://127.0.0.1:9/', { fetchImpl: fetchImpl as unknown as typeof fetch }).fetchLatest(POSITION);
-    expect(String(fetchImpl.mock.calls[0][0])).toBe('http://127.0.0.1:9/v1/forecast?lat=50.1&lon=-5.6');
+    expect(String(fetchImpl.mock.calls[0][0])).toBe('http://127.0.0.1:9/exchange/sea-state?lat=50.1&lon=-5.6');
   });
 
   it('explains 401, 404 and 429 answers', async () => {
@@ -187,12 +204,12 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
 
   it('refuses answers that break the schema, with the path of the problem', async () => {
     const bad = [
-      answer({ waveHeightM: [1.2] }),
+      answer({ hs: [1.2] }),
       answer({ time: ['2026-12-03T13:00:00Z', '2026-12-03T12:00:00Z'] }),
-      answer({ peakPeriodS: [8.5, 99] }),
+      answer({ tp: [8.5, 99] }),
       { ...answer(), issuedAt: 'yesterday' },
     ];
-    const expected = ['hourly.waveHeightM', 'hourly.time.1', 'hourly.peakPeriodS.1', 'issuedAt'];
+    const expected = ['series.hs', 'series.time.1', 'series.tp.1', 'issuedAt'];
     for (let i = 0; i < bad.length; i++) {
       const p = new HttpForecastProvider('http://127.0.0.1:9', { fetchImpl: stub(new Response(JSON.stringify(bad[i]))) as unknown as typeof fetch });
       const err = await failure(p.fetchLatest(POSITION));

@@ -53,7 +53,7 @@ describe('first page weight', () => {
       'src/features/datasets/components/dataset-detail-page.tsx',
       'src/features/datasets/components/dataset-import-page.tsx',
       'src/features/datasets/components/series-chart.tsx',
-      'src/features/wave-lab/components/wave-lab-page.tsx',
+      'src/features/wave-calculator/components/wave-calculator-page.tsx',
       'src/features/admin/components/people-page.tsx',
       'src/features/projects/components/project-settings-page.tsx',
     ];

@@ -3,7 +3,7 @@ import { api, ApiError } from '../../../lib/api';
 import type { MailboxMessage } from './types';
 
 /**
- * `GET /api/dev/mailbox` (admins): what the local mail catcher received, newest first; null when
+ * `GET /api/dev/mailbox` (admins): what the local mailbox received, newest first; null when
  * the route answers 404 (a real SMTP server is configured and nothing is caught).
  */
 export async function getMailbox(): Promise<MailboxMessage[] | null> {

@@ -82,9 +82,9 @@ export interface StoredRecurrence extends RecurrenceInput {
   text: string;
 }
 
-/** GET /api/dev/mailbox: one message the local mail catcher received. */
+/** GET /api/dev/mailbox: one message the local mailbox received. */
 export interface MailboxMessage {
-  /** the catcher's running number */
+  /** the local mailbox's running number */
   id: number | string;
   to: string[];
   subject: string;

@@ -63,7 +63,7 @@ export function CalendarSection() {
             <ol className="list-decimal space-y-1 pl-5 text-sm">
               <li>Copy the address.</li>
               <li>
-                Subscribe in your phone&apos;s calendar app: look for <em>Add subscribed calendar</em> or <em>From URL</em> and paste it. On a phone you
+                Use your calendar app&apos;s option to subscribe by web address, and paste it. On a phone you
                 can also <a className="font-semibold text-accent underline" href={url.replace(/^https?:/, 'webcal:')}>open it in the calendar app</a>.
               </li>
               <li>Calendar apps refresh a subscription on their own schedule, often every few hours; the board is always the latest plan.</li>

@@ -1,4 +1,4 @@
-// `/admin/mailbox` (admins): the e-mails the local mail catcher received while no real SMTP server
+// `/admin/mailbox` (admins): the e-mails the local mailbox received while no real SMTP server
 // is configured, newest first. Open one to read its text and its HTML (sandboxed).
 import { useState } from 'react';
 import { Button, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
@@ -18,7 +18,7 @@ export function MailboxPage() {
     <div className="flex flex-col gap-5 dark:scheme-dark">
       <PageHeader
         title="Mailbox"
-        subtitle={`E-mails caught by the built-in mail catcher, which stands in for an SMTP server in development and tests. Times are yours (${here}).`}
+        subtitle={`E-mails received by the local mailbox, a built-in stand-in for an SMTP server in development and tests. Times are yours (${here}).`}
         actions={
           mailbox.data !== null ? (
             <Button variant="secondary" onClick={() => void mailbox.refetch()} disabled={mailbox.isFetching}>

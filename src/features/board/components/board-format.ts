@@ -5,7 +5,7 @@
 import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import { formatInstant } from '../../../../shared/dates';
-import type { HourStatus, LimitCheck } from '../../../../shared/api-types-plan';
+import type { HourStatus, LimitCheck, OccurrenceStatus } from '../../../../shared/api-types-plan';
 import { TRANSFORM_FLAG } from '../../../../shared/waves/transform';
 import { fixedWithUnit, formatAt, zoneShort } from '../../../lib/format';
 
@@ -38,6 +38,18 @@ export const STATUS_META: Record<HourStatus, { word: string; letter: string; cel
 };
 
 export const STATUS_ORDER: HourStatus[] = ['workable', 'marginal', 'not_workable', 'no_data'];
+
+/**
+ * An occurrence of a recurring operation, judged on [start, start + TR): the word, the letter and
+ * the colour of its mark on the board (the colours of the hour statuses it sums up).
+ */
+export const OCCURRENCE_META: Record<OccurrenceStatus, { word: string; letter: string; mark: string }> = {
+  go: { word: 'go', letter: 'G', mark: 'bg-st-workable text-deep' },
+  marginal: { word: 'marginal', letter: 'M', mark: 'bg-st-marginal text-deep' },
+  no_go: { word: 'no-go', letter: 'X', mark: 'bg-st-notworkable text-white' },
+  no_data: { word: 'no data', letter: '?', mark: 'bg-st-nodata text-ink' },
+  information: { word: 'not weather-restricted (information)', letter: 'i', mark: 'bg-surface-2 text-ink' },
+};
 
 /** Plain words for the limit names the engine reports as the limiting factor. */
 export const LIMIT_WORDS: Record<LimitCheck['limit'], string> = {

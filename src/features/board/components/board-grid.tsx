@@ -4,8 +4,8 @@
 import { memo, useCallback, useMemo, useRef, useState, type CSSProperties, type KeyboardEvent } from 'react';
 import { Link } from 'react-router-dom';
 import type { OperationSitePlan } from '../../../../shared/api-types-plan';
-import { STATUS_META, formatIn, limitWord, zoneShort } from './board-format';
-import { dayRuns, firstAtOrAfter, recordEndMs, startWords, windowBoxes, type VisibleRange } from './board-model';
+import { OCCURRENCE_META, STATUS_META, formatIn, formatStart, limitWord, zoneShort } from './board-format';
+import { dayRuns, firstAtOrAfter, occurrenceMarks, recordEndMs, startWords, windowBoxes, type VisibleRange } from './board-model';
 import { Term } from '../../../components/ui';
 
 export interface SelectedHour {
@@ -229,6 +229,7 @@ const linkClass = 'inline-flex min-h-11 items-center gap-1 rounded-lg px-2 text-
 const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, nowMs, stepMs, nowOffset, dayStarts, alpha, cellPx, selectedIndex, onSelect, activeCol, onActivate }: BoardRowProps) {
   const words = startWords(plan, nowMs);
   const boxes = windowBoxes(plan.windows, timesMs, range);
+  const marks = occurrenceMarks(plan.occurrences, timesMs, stepMs, range, plan.tr);
   const ics = `/api/projects/${projectId}/plan/windows.ics?${new URLSearchParams({ operationId: plan.operationId, siteId: plan.siteId, alpha: String(alpha) })}`;
   const showLetters = cellPx >= 20;
 
@@ -310,6 +311,28 @@ const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, 
             style={{ left: `calc(var(--cell) * ${b.start - range.from})`, width: `calc(var(--cell) * ${b.count})` }}
           />
         ))}
+        {marks.map((m) => {
+          const meta = OCCURRENCE_META[m.status];
+          const said = `Occurrence ${formatStart(m.start, plan.timeZone, nowMs)} (local): ${meta.word}, judged on ${plan.tr} h from its start`;
+          return (
+            <span
+              key={m.start}
+              role="img"
+              aria-label={said}
+              data-testid="occurrence-mark"
+              data-status={m.status}
+              data-start={m.start}
+              className="pointer-events-none absolute top-0 z-[15] flex h-3.5 items-center overflow-hidden rounded-b-sm border border-t-0 border-ink/70"
+              style={{ left: `calc(var(--cell) * ${m.from - range.from})`, width: `calc(var(--cell) * ${m.count})` }}
+            >
+              <span className={`flex h-full shrink-0 items-center px-0.5 text-[9px] leading-none font-bold ${meta.mark}`} aria-hidden>
+                {m.clippedStart ? '…' : '↻'}
+                {meta.letter}
+              </span>
+              <span className={`h-full flex-1 opacity-60 ${meta.mark}`} aria-hidden />
+            </span>
+          );
+        })}
         {nowOffset !== null ? <div aria-hidden className="pointer-events-none absolute inset-y-0 z-10 w-0.5 bg-lamp" style={{ left: nowOffset }} /> : null}
       </div>
     </div>

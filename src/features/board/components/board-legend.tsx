@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { STATUS_META, STATUS_ORDER } from './board-format';
+import { OCCURRENCE_META, STATUS_META, STATUS_ORDER } from './board-format';
 import { isWideScreen } from './board-controls';
 
 /** What the colours, letters, patterns and boxes of the board mean (open at first on wide screens). */
@@ -32,6 +32,16 @@ export function BoardLegend({ alpha }: { alpha: boolean }) {
           <span className="mt-0.5 inline-block h-6 w-10 shrink-0 rounded-md border-[3px] border-ink bg-st-workable" aria-hidden />
           <span>
             <strong>Outlined</strong>: a usable window, workable for at least TR = TPOP + TC.
+          </span>
+        </li>
+        <li className="flex items-start gap-2" data-testid="legend-occurrence">
+          <span className="mt-0.5 inline-flex h-3.5 w-10 shrink-0 overflow-hidden rounded-b-sm border border-t-0 border-ink/70" aria-hidden>
+            <span className={`flex items-center px-0.5 text-[9px] leading-none font-bold ${OCCURRENCE_META.go.mark}`}>↻{OCCURRENCE_META.go.letter}</span>
+            <span className={`flex-1 opacity-60 ${OCCURRENCE_META.go.mark}`} />
+          </span>
+          <span>
+            <strong>Tab along the top</strong>: an occurrence of a recurring operation (set on the Alerts page), over its TR hours from its start, judged{' '}
+            {(['go', 'marginal', 'no_go', 'no_data'] as const).map((k, i) => `${i ? ', ' : ''}${OCCURRENCE_META[k].letter} ${OCCURRENCE_META[k].word}`).join('')}.
           </span>
         </li>
         <li className="flex items-start gap-2">

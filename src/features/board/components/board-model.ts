@@ -1,6 +1,6 @@
 // Pure helpers that turn a plan answer into what the board draws: the visible hours, the day
 // runs of the header, the window boxes, and the start of a row in words.
-import type { OperationSitePlan, PlanWindow } from '../../../../shared/api-types-plan';
+import type { OccurrenceStatus, OperationSitePlan, PlanWindow } from '../../../../shared/api-types-plan';
 import { dayKey, formatHours, formatIn, formatStart } from './board-format';
 
 /** The hours on screen: indices [from, to) into the plan's `times`. */
@@ -73,6 +73,53 @@ export function windowBoxes(windows: PlanWindow[], timesMs: number[], range: Vis
     if (end > start) boxes.push({ window: w, start, count: end - start });
   }
   return boxes;
+}
+
+/** One occurrence of a recurring operation as drawn on its row: the records of [start, start + TR). */
+export interface OccurrenceMark {
+  /** The occurrence's start, ISO UTC (as the plan answers it). */
+  start: string;
+  status: OccurrenceStatus;
+  /** First record drawn (the one covering the start, or the first on screen). */
+  from: number;
+  /** Records drawn. */
+  count: number;
+  /** The occurrence starts before the hours on screen (its start is not drawn). */
+  clippedStart: boolean;
+}
+
+/**
+ * Marks of a recurring operation's occurrences on the hours on screen. An occurrence is judged on
+ * [start, start + TR) (docs/domain.md#weather-windows), so its mark covers the records that
+ * overlap that span: from the record covering the start (records stand for [t, t + dt),
+ * docs/domain.md#convention-9) to the last record starting before start + TR. Occurrences that
+ * do not overlap the hours on screen get no mark.
+ */
+export function occurrenceMarks(
+  occurrences: OperationSitePlan['occurrences'],
+  timesMs: number[],
+  stepMs: number,
+  range: VisibleRange,
+  trHours: number,
+): OccurrenceMark[] {
+  const n = timesMs.length;
+  if (n === 0 || range.to <= range.from) return [];
+  const marks: OccurrenceMark[] = [];
+  for (const o of occurrences) {
+    const startMs = Date.parse(o.start);
+    if (Number.isNaN(startMs)) continue;
+    const endMs = startMs + Math.max(trHours, 0) * 3_600_000;
+    // Outside the forecast altogether: nothing to draw.
+    if (endMs <= timesMs[0] || startMs >= recordEndMs(timesMs, n - 1, stepMs)) continue;
+    // The record covering the start: the last one starting at or before it (the first record
+    // when the occurrence starts before the forecast).
+    const covering = Math.max(0, firstAtOrAfter(timesMs, startMs + 1) - 1);
+    const last = Math.max(covering + 1, firstAtOrAfter(timesMs, endMs));
+    const from = Math.max(covering, range.from);
+    const to = Math.min(last, range.to);
+    if (to > from) marks.push({ start: o.start, status: o.status, from, count: to - from, clippedStart: from > covering || startMs < timesMs[0] });
+  }
+  return marks;
 }
 
 /** Index of the first time at or after `ms` (the length when none). */

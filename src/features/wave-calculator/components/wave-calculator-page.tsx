@@ -20,11 +20,11 @@ const MODES: readonly ModeOption<Mode>[] = [
 const isMode = (value: string | null): value is Mode => MODES.some((m) => m.id === value);
 
 /**
- * The wave lab: linear wave theory for one regular wave, one sea state, or the classic wave
+ * The wave calculator: linear wave theory for one regular wave, one sea state, or the classic wave
  * table. The mode is in the address (?mode=sea-state) so a view can be bookmarked or shared;
  * the inputs of each mode are kept while switching between them.
  */
-export function WaveLabPage() {
+export function WaveCalculatorPage() {
   const [params, setParams] = useSearchParams();
   const requested = params.get('mode');
   const mode: Mode = isMode(requested) ? requested : 'regular';
@@ -46,11 +46,11 @@ export function WaveLabPage() {
   return (
     <div>
       <PageHeader
-        title="Wave lab"
+        title="Wave calculator"
         subtitle="Linear wave theory on demand: one regular wave, a sea state, or the wave table by relative depth."
       />
-      <ModeTabs modes={MODES} value={mode} onChange={setMode} label="Calculator" idPrefix="wave-lab" />
-      <div role="tabpanel" id={`wave-lab-panel-${mode}`} aria-labelledby={`wave-lab-tab-${mode}`} className="mt-4">
+      <ModeTabs modes={MODES} value={mode} onChange={setMode} label="Calculator" idPrefix="wave-calculator" />
+      <div role="tabpanel" id={`wave-calculator-panel-${mode}`} aria-labelledby={`wave-calculator-tab-${mode}`} className="mt-4">
         {mode === 'regular' ? <RegularWavePanel fields={regular} onChange={setRegular} /> : null}
         {mode === 'sea-state' ? <SeaStatePanel fields={seaState} onChange={setSeaState} /> : null}
         {mode === 'table' ? (

@@ -1,14 +1,14 @@
-import { lazy, Suspense, useMemo } from 'react';
-import { RegularWaveQuery } from '../../../../shared/schemas/wave';
+import { lazy, Suspense } from 'react';
+import { RegularWaveForm } from '../../../../shared/schemas/wave';
 import type { DepthClass } from '../../../../shared/waves/regular-wave';
 import { Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
 import { useRegularWave, type RegularWaveAnswer } from '../api/get-regular-wave';
 import { useWaveProfile } from '../api/get-wave-profile';
-import { useDebounce } from 'use-debounce';
 import { breakingCheck } from '../utils/breaking-check';
 import { formatSig } from '../utils/format-number';
 import { serverFieldErrors } from '../utils/server-field-errors';
-import { validateFields, type RawFields } from '../utils/validate-fields';
+import type { RawFields } from '../utils/validate-fields';
+import { useWaveForm } from '../utils/use-wave-form';
 import { LinearTheoryCaution, ResultStatus } from './result-status';
 import { NumberField } from './number-field';
 import { QuantityList } from './quantity-list';
@@ -21,10 +21,6 @@ export type RegularFields = RawFields<'period' | 'height' | 'depth' | 'z'>;
 /** A 10 s swell, 2 m high, in 10 m of water: the example the handbooks like. */
 export const DEFAULT_REGULAR_FIELDS: RegularFields = { period: '10', height: '2', depth: '10', z: '' };
 
-const REQUIRED = { period: 'Enter the wave period', height: 'Enter the wave height', depth: 'Enter the water depth' } as const;
-
-/** Debounce of the inputs before a request, ms: results follow typing without a request per key. */
-export const TYPING_DEBOUNCE_MS = 250;
 
 const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
   deep: 'Deep water',
@@ -34,15 +30,13 @@ const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
 
 /** Regular-wave mode: inputs, every linear-theory quantity with its unit, and u, w, Kp over depth. */
 export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; onChange: (fields: RegularFields) => void }) {
-  const [debounced] = useDebounce(fields, TYPING_DEBOUNCE_MS);
-  const check = useMemo(() => validateFields(RegularWaveQuery, debounced, REQUIRED), [debounced]);
+  const check = useWaveForm(RegularWaveForm, fields, onChange);
   const wave = useRegularWave(check.data);
   const profile = useWaveProfile(check.data ? { period: check.data.period, height: check.data.height, depth: check.data.depth } : null);
   const serverErrors = serverFieldErrors(wave.error);
-  const errors = { ...serverErrors, ...check.errors };
-  const set = (key: keyof RegularFields) => (text: string) => onChange({ ...fields, [key]: text });
+  const errors: Partial<Record<keyof RegularFields, string>> = { ...serverErrors, ...check.errors };
   const a = wave.data;
-  const typing = debounced !== fields;
+  const typing = check.typing;
   const stale = !check.data || wave.isPlaceholderData;
 
   return (
@@ -52,15 +46,14 @@ export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; 
           Regular wave inputs
         </h2>
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          <NumberField id="rw-period" label="Wave period T" unit="s" value={fields.period} onChange={set('period')} error={errors.period} hint="0.5 to 30 s" />
-          <NumberField id="rw-height" label="Wave height H" unit="m" value={fields.height} onChange={set('height')} error={errors.height} hint="Crest to trough, 0 to 40 m" />
-          <NumberField id="rw-depth" label="Water depth d" unit="m" value={fields.depth} onChange={set('depth')} error={errors.depth} hint="Still-water depth, 0.05 to 6000 m" />
+          <NumberField id="rw-period" label="Wave period T" unit="s" registration={check.register('period')} error={errors.period} hint="0.5 to 30 s" />
+          <NumberField id="rw-height" label="Wave height H" unit="m" registration={check.register('height')} error={errors.height} hint="Crest to trough, 0 to 40 m" />
+          <NumberField id="rw-depth" label="Water depth d" unit="m" registration={check.register('depth')} error={errors.depth} hint="Still-water depth, 0.05 to 6000 m" />
           <NumberField
             id="rw-z"
             label="Elevation z"
             unit="m"
-            value={fields.z}
-            onChange={set('z')}
+            registration={check.register('z')}
             error={errors.z}
             placeholder="optional"
             hint="Up from still water: 0 at the surface, −d at the bed"

@@ -1,32 +1,27 @@
-import { useMemo, type ReactNode } from 'react';
-import { SeaStateQuery } from '../../../../shared/schemas/wave';
+import type { ReactNode } from 'react';
+import { SeaStateForm } from '../../../../shared/schemas/wave';
 import { Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { useSeaState, type SeaStateAnswer } from '../api/get-sea-state';
-import { useDebounce } from 'use-debounce';
 import { formatSig } from '../utils/format-number';
 import { serverFieldErrors } from '../utils/server-field-errors';
-import { validateFields, type RawFields } from '../utils/validate-fields';
+import type { RawFields } from '../utils/validate-fields';
+import { useWaveForm } from '../utils/use-wave-form';
 import { NumberField } from './number-field';
 import { QuantityList } from './quantity-list';
-import { TYPING_DEBOUNCE_MS } from './regular-wave-panel';
 import { LinearTheoryCaution, ResultStatus } from './result-status';
 
 export type SeaStateFields = RawFields<'hs' | 'tp' | 'tz' | 'te' | 'gamma' | 'depth'>;
 
 export const DEFAULT_SEA_STATE_FIELDS: SeaStateFields = { hs: '2', tp: '10', tz: '', te: '', gamma: '', depth: '20' };
 
-const REQUIRED = { hs: 'Enter the significant wave height', depth: 'Enter the water depth' } as const;
-
 /** Sea-state mode: Hs and any of Tp, Tz, Te; derived periods, energy, power and bed velocity by both methods. */
 export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; onChange: (fields: SeaStateFields) => void }) {
-  const [debounced] = useDebounce(fields, TYPING_DEBOUNCE_MS);
-  const check = useMemo(() => validateFields(SeaStateQuery, debounced, REQUIRED), [debounced]);
+  const check = useWaveForm(SeaStateForm, fields, onChange);
   const sea = useSeaState(check.data);
   const serverErrors = serverFieldErrors(sea.error);
-  const errors = { ...serverErrors, ...check.errors };
-  const set = (key: keyof SeaStateFields) => (text: string) => onChange({ ...fields, [key]: text });
+  const errors: Partial<Record<keyof SeaStateFields, string>> = { ...serverErrors, ...check.errors };
   const a = sea.data;
-  const typing = debounced !== fields;
+  const typing = check.typing;
   const stale = !check.data || sea.isPlaceholderData;
 
   return (
@@ -36,16 +31,15 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
           Sea state inputs
         </h2>
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-          <NumberField id="ss-hs" label="Significant wave height Hs" unit="m" value={fields.hs} onChange={set('hs')} error={errors.hs} hint="Spectral Hm0, 0 to 25 m" />
-          <NumberField id="ss-tp" label="Peak period Tp" unit="s" value={fields.tp} onChange={set('tp')} error={errors.tp} hint="Give at least one of Tp, Tz, Te" />
-          <NumberField id="ss-depth" label="Water depth d" unit="m" value={fields.depth} onChange={set('depth')} error={errors.depth} hint="0.05 to 6000 m" />
-          <NumberField id="ss-tz" label="Zero-crossing period Tz" unit="s" value={fields.tz} onChange={set('tz')} error={errors.tz} placeholder="optional" hint="Derived from Tp when blank" />
-          <NumberField id="ss-te" label="Energy period Te" unit="s" value={fields.te} onChange={set('te')} error={errors.te} placeholder="optional" hint="Tm−1,0; derived from Tp when blank" />
+          <NumberField id="ss-hs" label="Significant wave height Hs" unit="m" registration={check.register('hs')} error={errors.hs} hint="Spectral Hm0, 0 to 25 m" />
+          <NumberField id="ss-tp" label="Peak period Tp" unit="s" registration={check.register('tp')} error={errors.tp} hint="Give at least one of Tp, Tz, Te" />
+          <NumberField id="ss-depth" label="Water depth d" unit="m" registration={check.register('depth')} error={errors.depth} hint="0.05 to 6000 m" />
+          <NumberField id="ss-tz" label="Zero-crossing period Tz" unit="s" registration={check.register('tz')} error={errors.tz} placeholder="optional" hint="Derived from Tp when blank" />
+          <NumberField id="ss-te" label="Energy period Te" unit="s" registration={check.register('te')} error={errors.te} placeholder="optional" hint="Tm−1,0; derived from Tp when blank" />
           <NumberField
             id="ss-gamma"
             label="Peak enhancement γ"
-            value={fields.gamma}
-            onChange={set('gamma')}
+            registration={check.register('gamma')}
             error={errors.gamma}
             placeholder="3.3"
             hint="JONSWAP, 1 to 7; blank means 3.3"

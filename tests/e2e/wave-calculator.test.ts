@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { WAVE_RANGES } from '../../shared/schemas/wave';
 import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
 
-// The wave lab in the browser: typed inputs reach the page's results, the table view lists the
+// The wave calculator in the browser: typed inputs reach the page's results, the table view lists the
 // rows asked for and downloads them. Expected values are computed here, independently of the
 // product's physics core.
 
@@ -54,11 +54,11 @@ afterAll(async () => {
   await server?.stop();
 });
 
-describe('wave lab in the browser', () => {
+describe('wave calculator in the browser', () => {
   it('shows the wavelength of a 10 s wave in 10 m of water as typed', async () => {
     const { page } = browser;
     await signInAs(page, server.baseUrl, 'skipper@example.com');
-    await page.getByRole('link', { name: 'Wave lab' }).click();
+    await page.getByRole('link', { name: 'Wave calculator' }).click();
     await page.getByRole('tab', { name: 'Regular wave' }).waitFor();
 
     const caption = page.getByTestId('result-caption');
@@ -84,7 +84,7 @@ describe('wave lab in the browser', () => {
     expect(await page.getByTestId('depth-class').textContent()).toMatch(/Intermediate depth/);
     await page.getByTestId('linear-caution').waitFor(); // fails the test if it never appears
     await page.locator('figure svg').first().waitFor(); // the lazily loaded profile chart
-    await screenshot(page, 'wave-lab-regular');
+    await screenshot(page, 'wave-calculator-regular');
 
     // Out of range: the message from the shared schema, before any request.
     await page.getByLabel('Wave period T').fill('45');
@@ -122,6 +122,21 @@ describe('wave lab in the browser', () => {
     expect(csv[0]).toBe('d/L0,d/L,L/L0,kd,tanh(kd),sinh(kd),cosh(kd),n,Cg/C0,Ks,Kp_bed');
     expect(csv).toHaveLength(count(step) + 1);
     expect(csv[1].split(',')).toHaveLength(11);
-    await screenshot(page, 'wave-lab-table');
+    await screenshot(page, 'wave-calculator-table');
+  });
+
+  it('sends the old address of the section to the new one', async () => {
+    const { page } = browser;
+    // Typed in the address bar: the server answers 301 (issue 17 renamed the section).
+    const answer = await page.goto(`${server.baseUrl}/wave-lab`);
+    expect(answer?.request().redirectedFrom()?.url()).toBe(`${server.baseUrl}/wave-lab`);
+    expect(new URL(page.url()).pathname).toBe('/wave-calculator');
+    await page.getByRole('heading', { name: 'Wave calculator' }).waitFor();
+    // Followed inside the app (no page load): the client's router redirects as well.
+    await page.evaluate(() => {
+      window.history.pushState({}, '', '/wave-lab');
+      window.dispatchEvent(new PopStateEvent('popstate'));
+    });
+    await expect.poll(() => new URL(page.url()).pathname, { timeout: 10_000 }).toBe('/wave-calculator');
   });
 });

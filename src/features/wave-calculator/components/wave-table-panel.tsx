@@ -1,20 +1,16 @@
-import { useMemo, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import { createColumnHelper, createSortedRowModel, rowSortingFeature, tableFeatures, useTable } from '@tanstack/react-table';
-import { WaveTableQuery } from '../../../../shared/schemas/wave';
+import { WaveTableForm } from '../../../../shared/schemas/wave';
 import { Button, Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { useWaveTable, type WaveTableRow } from '../api/get-wave-table';
-import { useDebounce } from 'use-debounce';
 import { formatSig } from '../utils/format-number';
 import { serverFieldErrors } from '../utils/server-field-errors';
-import { validateFields } from '../utils/validate-fields';
+import { useWaveForm } from '../utils/use-wave-form';
 import { waveTableCsv } from '../utils/wave-table-csv';
 import { downloadCsv } from '../../../lib/csv';
 import { NumberField } from './number-field';
-import { TYPING_DEBOUNCE_MS } from './regular-wave-panel';
 import { ResultStatus } from './result-status';
 import type { TableFields } from './wave-table-fields';
-
-const REQUIRED = { from: 'Enter the first d/L0', to: 'Enter the last d/L0', step: 'Enter the step of d/L0' } as const;
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
 const helper = createColumnHelper<typeof features, WaveTableRow>();
@@ -47,14 +43,12 @@ const columns = helper.columns(
 
 /** Wave-table mode: d/L0 range and step, a sortable table of the handbook columns, CSV download. Lazy-loaded. */
 export default function WaveTablePanel({ fields, onChange }: { fields: TableFields; onChange: (fields: TableFields) => void }) {
-  const [debounced] = useDebounce(fields, TYPING_DEBOUNCE_MS);
-  const check = useMemo(() => validateFields(WaveTableQuery, debounced, REQUIRED), [debounced]);
+  const check = useWaveForm(WaveTableForm, fields, onChange);
   const query = useWaveTable(check.data);
   const serverErrors = serverFieldErrors(query.error);
-  const errors = { ...serverErrors, ...check.errors };
-  const set = (key: keyof TableFields) => (text: string) => onChange({ ...fields, [key]: text });
+  const errors: Partial<Record<keyof TableFields, string>> = { ...serverErrors, ...check.errors };
   const rows = query.data;
-  const typing = debounced !== fields;
+  const typing = check.typing;
 
   return (
     <div className="grid grid-cols-1 gap-4">
@@ -63,9 +57,9 @@ export default function WaveTablePanel({ fields, onChange }: { fields: TableFiel
           Wave table range
         </h2>
         <div className="grid gap-3 sm:grid-cols-3">
-          <NumberField id="wt-from" label="From d/L0" value={fields.from} onChange={set('from')} error={errors.from} hint="0.0001 to 100" />
-          <NumberField id="wt-to" label="To d/L0" value={fields.to} onChange={set('to')} error={errors.to} hint="Included when on the step grid" />
-          <NumberField id="wt-step" label="Step of d/L0" value={fields.step} onChange={set('step')} error={errors.step} hint="At most 2,000 rows" />
+          <NumberField id="wt-from" label="From d/L0" registration={check.register('from')} error={errors.from} hint="0.0001 to 100" />
+          <NumberField id="wt-to" label="To d/L0" registration={check.register('to')} error={errors.to} hint="Included when on the step grid" />
+          <NumberField id="wt-step" label="Step of d/L0" registration={check.register('step')} error={errors.step} hint="At most 2,000 rows" />
         </div>
       </Card>
       {query.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={query.error} /> : null}

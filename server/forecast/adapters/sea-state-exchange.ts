@@ -1,0 +1,61 @@
+/**
+ * Adapter of Lullwatch's own sea-state exchange (forecast-schema.ts,
+ * docs/domain.md#forecast-service): the request path and the conversion of a validated answer to
+ * forecast records. A real provider with another shape gets an adapter of its own in this folder,
+ * implementing the same {@link ForecastAdapter}, and is chosen in `createForecastProvider`.
+ */
+import { ForecastServiceError } from '../forecast-service-error';
+import { EXCHANGE_PATH, EXCHANGE_SERIES, EXCHANGE_SERIES_KEYS, seaStateExchangeSchema, type ExchangeSeriesSpec, type SeaStateExchange } from '../forecast-schema';
+import type { ForecastAdapter, ForecastIssue, ForecastRecords } from '../types';
+
+/** At most this many validation problems are listed in an error. */
+const MAX_DETAILS = 5;
+
+/** Columns of a validated answer as records; nulls and left-out members become NaN, 360 deg becomes 0. */
+export function exchangeToRecords(data: SeaStateExchange): ForecastRecords {
+  const n = data.series.time.length;
+  const timeMs = new Float64Array(n);
+  for (let i = 0; i < n; i++) timeMs[i] = Date.parse(data.series.time[i]);
+  const records = { timeMs } as ForecastRecords;
+  const wire = data.series as unknown as Record<string, (number | null)[] | undefined>;
+  for (const key of EXCHANGE_SERIES_KEYS) {
+    const spec: ExchangeSeriesSpec = EXCHANGE_SERIES[key];
+    const values = wire[key];
+    const out = new Float64Array(n).fill(NaN);
+    if (values) {
+      for (let i = 0; i < n; i++) {
+        const v = values[i];
+        out[i] = v === null ? NaN : spec.direction && v === 360 ? 0 : v;
+      }
+    }
+    records[key] = out;
+  }
+  return records;
+}
+
+export const seaStateExchangeAdapter: ForecastAdapter = {
+  requestUrl(base, { latitude, longitude }) {
+    const url = new URL(EXCHANGE_PATH, base);
+    url.searchParams.set('lat', String(latitude));
+    url.searchParams.set('lon', String(longitude));
+    return url;
+  },
+  toIssue(json: unknown): ForecastIssue {
+    const parsed = seaStateExchangeSchema.safeParse(json);
+    if (!parsed.success) {
+      const details = parsed.error.issues.slice(0, MAX_DETAILS).map((issue) => `${issue.path.join('.') || '(root)'}: ${issue.message}`);
+      throw new ForecastServiceError(
+        'malformed',
+        `The forecast service sent a forecast that failed validation (${details[0]}). Nothing was stored; try again later.`,
+        { details, cause: parsed.error },
+      );
+    }
+    const data = parsed.data;
+    return {
+      issuedAtMs: Date.parse(data.issuedAt),
+      latitude: data.position.lat,
+      longitude: data.position.lon,
+      records: exchangeToRecords(data),
+    };
+  },
+};
