@@ -23,18 +23,18 @@ afterAll(async () => {
 });
 
 describe('tide-bounded windows of the demo', () => {
-  it('keeps every hour of a winching window within 3 h of a predicted high water and above the minimum depth', async () => {
+  it('keeps every workable hour of the winching stage within 3 h of a predicted high water', async () => {
     const plan = (await as.coordinator.get(`${base}/plan`)).body;
     const p = plan.plans.find((x: { operationName: string }) => x.operationName === 'Pull-in winching at high water');
     expect(p).toBeTruthy();
     const siteId = p.siteId;
     expect(siteId).toBe(t.demo.siteIds.cofferdam);
     const from = p.times[0];
-    const to = new Date(Date.parse(from) + 72 * HOUR).toISOString();
+    const to = new Date(Date.parse(p.times[p.times.length - 1]) + 16 * HOUR).toISOString();
     const tide = (await as.coordinator.get(`${base}/sites/${siteId}/tide`).query({ from: new Date(Date.parse(from) - 13 * HOUR).toISOString(), to })).body;
     const highs: number[] = tide.extremes.filter((e: { kind: string }) => e.kind === 'high').map((e: { time: string }) => Date.parse(e.time));
     expect(highs.length).toBeGreaterThan(4);
-    // Brute force over the hourly part of the forecast: workable needs a high water within [t - 3 h, t + 3 h].
+    // Brute force over the forecast: workable needs a high water within [t - 3 h, t + 3 h].
     let workable = 0;
     let outside = 0;
     for (let i = 0; i < p.times.length; i++) {
@@ -51,7 +51,7 @@ describe('tide-bounded windows of the demo', () => {
       }
     }
     expect(outside).toBeGreaterThan(10);
-    // The invented forecast of early December has calm spells: some hours near high water are workable.
+    // The invented forecast of early December has calm spells: some hours near high water are workable somewhere in its 10 days.
     expect(workable).toBeGreaterThan(0);
     expect(p.windows.length).toBeGreaterThan(0);
     for (const w of p.windows) expect(w.hours).toBeLessThanOrEqual(7);
