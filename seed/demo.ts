@@ -9,7 +9,7 @@ import { recurrenceText } from '../shared/recurrence';
 import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
 import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
-import { DEMO_OPERATIONS, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
+import { DEMO_OPERATIONS, DEMO_SITE_TIDES, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
 
 /** Seed of the fake forecast service; the demo hindcast uses the same invented sea. */
 export const DEMO_SEA_SEED = 20261201;
@@ -101,6 +101,7 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
         latitude: s.latitude,
         longitude: s.longitude,
         timeZone: DEMO_TIME_ZONE,
+        tide: DEMO_SITE_TIDES[s.key] ?? null,
       })
       .returning({ id: worksite.id });
     siteIds[s.key] = row.id;

@@ -16,6 +16,28 @@ export const DEMO_SITES = [
 
 export const DEMO_TIME_ZONE = 'Europe/London';
 
+/**
+ * Invented tide constants of the two shallow worksites (docs/domain.md#tide): a semi-diurnal tide
+ * of about 4 m spring range, phase lags referred to UTC, Z0 = mean sea level above LAT. Not taken
+ * from any station; a real project enters its own or picks a database station.
+ */
+const DEMO_TIDE = {
+  source: 'constants' as const,
+  constituents: [
+    { name: 'M2', amplitude: 1.45, phase: 172 },
+    { name: 'S2', amplitude: 0.52, phase: 214 },
+    { name: 'N2', amplitude: 0.28, phase: 151 },
+    { name: 'K1', amplitude: 0.09, phase: 188 },
+    { name: 'O1', amplitude: 0.07, phase: 37 },
+  ],
+  z0: 2.45,
+  datum: 'LAT',
+};
+export const DEMO_SITE_TIDES: Partial<Record<(typeof DEMO_SITES)[number]['key'], typeof DEMO_TIDE>> = {
+  cofferdam: DEMO_TIDE,
+  trench: DEMO_TIDE,
+};
+
 type SiteKey = (typeof DEMO_SITES)[number]['key'];
 
 export const DEMO_OPERATIONS: {
@@ -37,6 +59,17 @@ export const DEMO_OPERATIONS: {
     weatherRestricted: true,
     limits: { hsMax: 1.0, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' },
     sites: ['cofferdam', 'trench'],
+    skipper: false,
+  },
+  {
+    // The pull-in's winching stage: the barge floats over the duct only around high water.
+    name: 'Pull-in winching at high water',
+    description: 'Float the pull-in barge over the duct end and winch; needs water under the keel, so only around high water.',
+    tpopH: 4,
+    tcH: 1,
+    weatherRestricted: true,
+    limits: { hsMax: 1.5, windMax: 14, minDepth: 5, minDepthParts: { draught: 4.2, clearance: 0.8 }, tideWindow: { reference: 'high', before: 3, after: 3 } },
+    sites: ['cofferdam'],
     skipper: false,
   },
   {

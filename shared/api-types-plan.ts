@@ -61,7 +61,20 @@ export interface HourChainAnswer {
   siteId: string;
   dataPoint: { depthM: number | null; hs: number | null; tp: number | null; tz: number | null; dir: number | null; wind: number | null };
   transform: TransformChain;
-  site: { depthM: number; hs: number | null; bedVelocityLinear: number | null; bedVelocitySoulsby: number | null; wind: number | null };
+  /**
+   * depthM: the chart depth; waterLevel: m above chart datum (null without a tide); depth: the
+   * still-water depth h = depthM + waterLevel the chain used (docs/domain.md#tide); current: m/s or null.
+   */
+  site: {
+    depthM: number;
+    waterLevel: number | null;
+    depth: number;
+    current: number | null;
+    hs: number | null;
+    bedVelocityLinear: number | null;
+    bedVelocitySoulsby: number | null;
+    wind: number | null;
+  };
   status: HourStatus;
   checks: LimitCheck[];
   /** The operation is not weather-restricted: the hour is shown against OPLIM for information only. */
@@ -79,5 +92,21 @@ export interface ConditionsAnswer {
   bedVelocityLinear: (number | null)[];
   bedVelocitySoulsby: (number | null)[];
   flags: number[];
-  operations: { id: string; name: string; hsMax: number | null; hsMaxForecast: number | null; windMax: number | null; bedVelocityMax: number | null; bedVelocityMethod: string | null }[];
+  /** Water level above chart datum, m (null without a tide), and the still-water depth h, m (docs/domain.md#tide). */
+  waterLevel: (number | null)[];
+  depth: (number | null)[];
+  /** Current speed, m/s (null where unknown). */
+  current: (number | null)[];
+  operations: {
+    id: string;
+    name: string;
+    hsMax: number | null;
+    hsMaxForecast: number | null;
+    windMax: number | null;
+    bedVelocityMax: number | null;
+    bedVelocityMethod: string | null;
+    minDepth?: number | null;
+    maxDepth?: number | null;
+    currentMax?: number | null;
+  }[];
 }

@@ -1,6 +1,6 @@
 // Response shapes of the worksite, operation, alpha-table, setup and audit routes.
 import type { AlphaTable, OperationLimits } from './engine/types';
-import type { AuditAction, AuditEntity, ImportMode, TransferTableInput } from './schemas/sites';
+import type { AuditAction, AuditEntity, ImportMode, TransferTableInput, WorksiteTideInput } from './schemas/sites';
 
 /** A worksite. Depth in m, bearings in degrees "coming from", times ISO 8601 UTC. */
 export interface SiteResponse {
@@ -21,6 +21,8 @@ export interface SiteResponse {
   /** hindcast dataset used for statistics; null = the project's newest */
   hindcastDatasetId: string | null;
   transferTable: TransferTableInput | null;
+  /** tide at the worksite; null = none (depth stays the chart depth) */
+  tide: WorksiteTideInput | null;
   updatedAt: string;
 }
 

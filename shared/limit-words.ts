@@ -7,6 +7,10 @@ const LIMIT_WORDS: Record<string, string> = {
   tpBand: 'a peak period in an excluded band',
   bedVelocity: 'near-bed orbital velocity',
   wind: 'wind speed',
+  minDepth: 'too little water (below the minimum depth)',
+  maxDepth: 'too much water (above the maximum depth)',
+  current: 'current speed',
+  tideWindow: 'outside the tide window',
   noData: 'missing sea data',
 };
 

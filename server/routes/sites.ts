@@ -1,12 +1,13 @@
 import { Router } from 'express';
-import { WorksiteInput, WorksitePatchInput } from '../../shared/schemas/sites';
+import { TideQuery, WorksiteInput, WorksitePatchInput } from '../../shared/schemas/sites';
 import type { AppDeps } from '../deps';
-import { parseInput } from '../http/errors';
+import { HttpError, parseInput } from '../http/errors';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 import { createSite, deleteSite, getSite, listSites, updateSite } from '../services/sites';
+import { nearbyTideStations, tideAnswer } from '../services/tide';
 
 /** Worksites: any member reads, coordinators (and administrators) write. */
-export function sitesRoutes({ db }: AppDeps): Router {
+export function sitesRoutes({ db, clock }: AppDeps): Router {
   const router = Router();
 
   /** GET /api/projects/:projectId/sites: the project's worksites by name. */
@@ -40,6 +41,34 @@ export function sitesRoutes({ db }: AppDeps): Router {
     const access = await requireCoordinator(db, req, req.params.projectId);
     await deleteSite(db, access.projectId, access.user, req.params.siteId);
     res.status(204).end();
+  });
+
+  /**
+   * GET /api/projects/:projectId/sites/:siteId/tide?from=&to=: the predicted tide at the worksite
+   * (levels m above chart datum, high and low waters, the station when one is used); from now to
+   * 3 days on by default, at most 31 days. 404 when the worksite has no tide.
+   */
+  router.get('/projects/:projectId/sites/:siteId/tide', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const q = parseInput(TideQuery, req.query, 'query');
+    const site = await getSite(db, access.projectId, req.params.siteId);
+    const fromMs = q.from ? Date.parse(q.from) : clock().getTime();
+    const toMs = q.to ? Date.parse(q.to) : fromMs + 3 * 86_400_000;
+    if (!(toMs > fromMs) || toMs - fromMs > 31 * 86_400_000) throw new HttpError('validation', 'Invalid query: to: at most 31 days after from, and after it', [{ field: 'to', message: 'At most 31 days after from, and after it' }]);
+    const answer = tideAnswer(site.tide, site, fromMs, toMs);
+    if (!answer) throw new HttpError('not_found', 'This worksite has no tide');
+    res.json(answer);
+  });
+
+  /**
+   * GET /api/projects/:projectId/sites/:siteId/tide-stations: tide stations of the public database
+   * nearest the worksite (at most 5 within 200 km), with distance, datum, source, attribution and warnings.
+   */
+  router.get('/projects/:projectId/sites/:siteId/tide-stations', async (req, res) => {
+    const access = await requireProjectMember(db, req, req.params.projectId);
+    const site = await getSite(db, access.projectId, req.params.siteId);
+    if (site.latitude === null || site.longitude === null) throw new HttpError('validation', 'The worksite needs a position to find tide stations', [{ field: 'latitude', message: 'Set the worksite position first' }]);
+    res.json({ stations: nearbyTideStations(site.latitude, site.longitude) });
   });
 
   return router;

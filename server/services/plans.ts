@@ -8,7 +8,7 @@ import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
 import { createHash } from 'node:crypto';
 import { encodedAnswer } from './encoded-answers';
-import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup } from './site-context';
+import { loadProjectSetup, operationSpec, siteTide, sitesOf, transformForSite, type ProjectSetup } from './site-context';
 import { readSeries } from './series-store';
 import { STATS_FORMAT } from './workability';
 
@@ -240,14 +240,26 @@ export async function hourChain(
   let i = -1;
   for (let k = 0; k < series.timeMs.length; k++) if (series.timeMs[k] <= tMs && tMs < series.timeMs[k] + dur[k]) i = k;
   if (i < 0) throw new HttpError('not_found', 'No record at that time');
+  // The water level of the hour (the predicted tide; docs/domain.md#tide) and the extremes for a tide window.
+  const tide = siteTide(site, series.timeMs);
+  const waterLevel = tide ? tide.waterLevelM[i] : null;
   const chain = transformOne(
-    { hsM: series.hs[i], tpS: series.tp[i], tzS: series.tz[i], dirDeg: series.dir[i] },
+    { hsM: series.hs[i], tpS: series.tp[i], tzS: series.tz[i], dirDeg: series.dir[i], waterLevelM: waterLevel },
     { depthM: row.dataPointDepthM ?? Infinity },
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
   const spec = operationSpec(op);
   const explained = explainHour(
-    { hsM: chain.hsM, tpS: series.tp[i], bedVelocityLinearMps: chain.bedVelocityLinearMps, bedVelocitySoulsbyMps: chain.bedVelocitySoulsbyMps, windMps: series.wind[i] },
+    {
+      hsM: chain.hsM,
+      tpS: series.tp[i],
+      bedVelocityLinearMps: chain.bedVelocityLinearMps,
+      bedVelocitySoulsbyMps: chain.bedVelocitySoulsbyMps,
+      windMps: series.wind[i],
+      depthM: chain.depthM,
+      timeMs: series.timeMs[i],
+      ...(tide ? { tide: tide.tide } : {}),
+    },
     spec,
     setup.alphaTable,
     { alpha: q.alpha },
@@ -258,7 +270,7 @@ export async function hourChain(
     siteId: site.id,
     dataPoint: { depthM: row.dataPointDepthM, hs: v(series.hs[i]), tp: v(series.tp[i]), tz: v(series.tz[i]), dir: v(series.dir[i]), wind: v(series.wind[i]) },
     transform: chain,
-    site: { depthM: site.depthM, hs: v(chain.hsM), bedVelocityLinear: v(chain.bedVelocityLinearMps), bedVelocitySoulsby: v(chain.bedVelocitySoulsbyMps), wind: v(series.wind[i]) },
+    site: { depthM: site.depthM, waterLevel: waterLevel === null ? null : v(waterLevel), depth: chain.depthM, current: null, hs: v(chain.hsM), bedVelocityLinear: v(chain.bedVelocityLinearMps), bedVelocitySoulsby: v(chain.bedVelocitySoulsbyMps), wind: v(series.wind[i]) },
     status: explained.status,
     checks: explained.checks,
     informationOnly: !isWeatherRestricted(spec),
@@ -275,7 +287,22 @@ export async function siteConditions(
   const site = setup.sites.find((s) => s.id === q.siteId);
   if (!site) throw new HttpError('not_found', 'Worksite not found');
   const row = await planDataset(db, projectId, q.datasetId);
-  const empty: ConditionsAnswer = { siteId: site.id, timeZone: site.timeZone, times: [], hs: [], tp: [], dir: [], wind: [], bedVelocityLinear: [], bedVelocitySoulsby: [], flags: [], operations: [] };
+  const empty: ConditionsAnswer = {
+    siteId: site.id,
+    timeZone: site.timeZone,
+    times: [],
+    hs: [],
+    tp: [],
+    dir: [],
+    wind: [],
+    bedVelocityLinear: [],
+    bedVelocitySoulsby: [],
+    flags: [],
+    waterLevel: [],
+    depth: [],
+    current: [],
+    operations: [],
+  };
   if (!row) return empty;
   // The same bounded stretch as a plan (at most MAX_PLAN_DAYS days).
   const span = planSpan(row, q);
@@ -292,6 +319,9 @@ export async function siteConditions(
     bedVelocityLinear: col(t.transformed.bedVelocityLinearMps),
     bedVelocitySoulsby: col(t.transformed.bedVelocitySoulsbyMps),
     flags: Array.from(t.transformed.flags),
+    waterLevel: t.waterLevelM ? col(t.waterLevelM) : Array.from(series.timeMs, () => null),
+    depth: col(t.engine.depthM ?? new Float64Array(series.timeMs.length).fill(site.depthM)),
+    current: Array.from(series.timeMs, () => null),
     operations: setup.operations
       .filter((o) => sitesOf(o, setup.sites).some((s) => s.id === site.id))
       .map((o) => {
@@ -305,6 +335,9 @@ export async function siteConditions(
           windMax: spec.limits.windMax ?? null,
           bedVelocityMax: spec.limits.bedVelocityMax ?? null,
           bedVelocityMethod: spec.limits.bedVelocityMax != null ? (spec.limits.bedVelocityMethod ?? 'linear') : null,
+          minDepth: spec.limits.minDepth ?? null,
+          maxDepth: spec.limits.maxDepth ?? null,
+          currentMax: spec.limits.currentMax ?? null,
         };
       }),
   };

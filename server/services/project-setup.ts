@@ -53,6 +53,7 @@ export async function exportSetup(db: Db, projectId: string, now: Date): Promise
     breakerIndex: s.breakerIndex,
     timeZone: s.timeZone,
     transferTable: s.transferTable,
+    tide: s.tide,
   }));
   const operations: SetupOperation[] = ops.map((o) => ({
     name: o.name,

@@ -4,6 +4,8 @@ import { transformToSite, type SiteSeries as TransformedSeries } from '../../sha
 import type { Db } from '../db/client';
 import { operation, projectAlpha, worksite } from '../db/schema';
 import type { SeaSeries } from './series-store';
+import { predictExtremes, predictLevels, tidePredictor, type TideStationInfo } from './tide';
+import type { TideExtremes } from '../../shared/engine';
 
 export type WorksiteRow = typeof worksite.$inferSelect;
 export type OperationRow = typeof operation.$inferSelect;
@@ -49,6 +51,67 @@ export interface TransformedSite {
   site: WorksiteRow;
   transformed: TransformedSeries;
   engine: EngineSeries;
+  /** The water level used per record, m above chart datum, or null for a fixed depth (no tide). */
+  waterLevelM: Float64Array | null;
+  /** Where the water level came from. */
+  tideSource: SiteTide['source'] | null;
+}
+
+/** A worksite's water level over a series and the predicted extremes around it (docs/domain.md#tide). */
+export interface SiteTide {
+  /** m above the worksite's chart datum, one per record. */
+  waterLevelM: Float64Array;
+  tide: TideExtremes;
+  /** 'predicted': the harmonic prediction (the dataset has no water level). */
+  source: 'predicted';
+  station: TideStationInfo | null;
+}
+
+/** Extremes are predicted this far beyond the series, so a tide window (at most 12 h either side) finds its high or low water. */
+const EXTREME_PAD_MS = 13 * 3_600_000;
+const tideCache = new WeakMap<Float64Array, Map<string, SiteTide>>();
+
+/**
+ * The worksite's water level at every record time and the predicted high and low waters around
+ * them, or null when the worksite has no tide. Cached per time array and tide constants.
+ */
+export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitude'>, timeMs: Float64Array): SiteTide | null {
+  const p = tidePredictor(site.tide, site);
+  if (!p || timeMs.length === 0) return null;
+  let perSeries = tideCache.get(timeMs);
+  if (!perSeries) {
+    perSeries = new Map();
+    tideCache.set(timeMs, perSeries);
+  }
+  const hit = perSeries.get(p.key);
+  if (hit) return hit;
+  const value: SiteTide = {
+    waterLevelM: predictLevels(p, timeMs),
+    tide: predictExtremes(p, timeMs[0] - EXTREME_PAD_MS, timeMs[timeMs.length - 1] + EXTREME_PAD_MS),
+    source: 'predicted',
+    station: p.station,
+  };
+  perSeries.set(p.key, value);
+  return value;
+}
+
+/**
+ * What the engine needs of a transformed worksite series: with a tide, the still-water depth
+ * h(t) and the predicted extremes; without, the chart depth (so depth limits still apply) and no
+ * extremes (a tide window then finds no data).
+ */
+export function engineSeries(series: SeaSeries, transformed: TransformedSeries, site: Pick<WorksiteRow, 'depthM'>, tide: SiteTide | null): EngineSeries {
+  return {
+    timeMs: series.timeMs,
+    hsM: transformed.hsM,
+    tpS: series.tp,
+    bedVelocityLinearMps: transformed.bedVelocityLinearMps,
+    bedVelocitySoulsbyMps: transformed.bedVelocitySoulsbyMps,
+    windMps: series.wind,
+    // With a tide the transformation wrote h(t); a reused `out` may hold an earlier worksite's, so only then.
+    depthM: tide && transformed.depthM ? transformed.depthM : new Float64Array(series.timeMs.length).fill(site.depthM),
+    ...(tide ? { tide: tide.tide } : {}),
+  };
 }
 
 /**
@@ -56,21 +119,17 @@ export interface TransformedSite {
  * and packs what the engine needs. `dataPointDepthM` null means deep water.
  */
 export function transformForSite(series: SeaSeries, dataPointDepthM: number | null, site: WorksiteRow): TransformedSite {
+  const tide = siteTide(site, series.timeMs);
   const transformed = transformToSite(
-    { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir },
+    { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir, waterLevelM: tide?.waterLevelM ?? null },
     { depthM: dataPointDepthM ?? Infinity },
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
   return {
     site,
     transformed,
-    engine: {
-      timeMs: series.timeMs,
-      hsM: transformed.hsM,
-      tpS: series.tp,
-      bedVelocityLinearMps: transformed.bedVelocityLinearMps,
-      bedVelocitySoulsbyMps: transformed.bedVelocitySoulsbyMps,
-      windMps: series.wind,
-    },
+    waterLevelM: tide?.waterLevelM ?? null,
+    tideSource: tide?.source ?? null,
+    engine: engineSeries(series, transformed, site, tide),
   };
 }

@@ -11,6 +11,7 @@ import { dataset, operation, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, notFound, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
+import { checkTideInput } from './tide';
 import { auditedOperation, toOperationResponse } from './operations';
 
 type WorksiteRow = typeof worksite.$inferSelect;
@@ -27,6 +28,7 @@ export function toSiteResponse(row: WorksiteRow): SiteResponse {
     timeZone: row.timeZone,
     hindcastDatasetId: row.hindcastDatasetId,
     transferTable: row.transferTable ?? null,
+    tide: row.tide ?? null,
     updatedAt: row.updatedAt.toISOString(),
   };
 }
@@ -37,8 +39,12 @@ export function auditedSite(site: SiteResponse): Omit<SiteResponse, 'id' | 'upda
   return rest;
 }
 
-/** Column values of a parsed worksite. */
+/**
+ * Column values of a parsed worksite.
+ * @throws HttpError 400 for a tide constituent or station the tide package does not know.
+ */
 export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { hindcastDatasetId?: string | null }) {
+  checkTideInput(input.tide);
   return {
     name: input.name,
     latitude: input.latitude ?? null,
@@ -49,6 +55,7 @@ export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { 
     timeZone: input.timeZone,
     hindcastDatasetId: input.hindcastDatasetId ?? null,
     transferTable: input.transferTable ?? null,
+    tide: input.tide ?? null,
   };
 }
 

@@ -29,7 +29,7 @@ import { statsCache } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { defaultHindcast, getDatasetRow, latestDataset } from './datasets';
 import { readSeries, type SeaSeries } from './series-store';
-import { loadProjectSetup, operationSpec, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
+import { engineSeries, loadProjectSetup, operationSpec, siteTide, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
 import { ByteBoundedMemo, jsonBytes, seriesBytes } from './byte-cache';
 import { encodedAnswer, forgetEncodedAnswers } from './encoded-answers';
 import { runEngineTask, sharedSeries } from './engine-pool';
@@ -41,7 +41,7 @@ export type DatasetRow = NonNullable<Awaited<ReturnType<typeof latestDataset>>>;
  * 2: Soulsby bed velocity U_s = 2*U_rms (was 1.414*U_rms), weather-restricted range TR <= 96 h,
  * local time step (durations) for series that change step.
  */
-export const STATS_FORMAT = 2;
+export const STATS_FORMAT = 3;
 
 // ---------------------------------------------------------------------------------------------
 // In-process memos (per database handle, so test databases never share entries)
@@ -140,7 +140,8 @@ export function limitsVersion(setup: ProjectSetup, dataPointDepthM: number | nul
   const doc = {
     format: STATS_FORMAT,
     operations: byId(setup.operations).map((o) => [o.id, o.tpopH, o.tcH, o.weatherRestricted, canonical(o.limits), [...o.siteIds].sort()]),
-    sites: byId(setup.sites).map((s) => [s.id, s.depthM, s.shoreNormalDeg, s.breakerIndex, s.timeZone, canonical(s.transferTable)]),
+    // The tide constants (or station) change the depth of every record (docs/domain.md#tide).
+    sites: byId(setup.sites).map((s) => [s.id, s.depthM, s.shoreNormalDeg, s.breakerIndex, s.timeZone, canonical(s.transferTable), canonical(s.tide)]),
     alpha: setup.alphaTable,
     dataPointDepthM,
   };
@@ -216,20 +217,15 @@ export function forEachOperationSite(
   for (const site of setup.sites) {
     const pairs = pairsBySite.get(site.id);
     if (!pairs) continue;
+    // The hindcast has no water level: the predicted tide at its times (docs/domain.md#tide).
+    const tide = siteTide(site, series.timeMs);
     const t = transformToSite(
-      sea,
+      tide ? { ...sea, waterLevelM: tide.waterLevelM } : sea,
       { depthM: row.dataPointDepthM ?? Infinity },
       { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
       { out, fields: 'engine', prepared },
     );
-    const engine: EngineSeries = {
-      timeMs: series.timeMs,
-      hsM: t.hsM,
-      tpS: series.tp,
-      bedVelocityLinearMps: t.bedVelocityLinearMps,
-      bedVelocitySoulsbyMps: t.bedVelocitySoulsbyMps,
-      windMps: series.wind,
-    };
+    const engine: EngineSeries = engineSeries(series, t, site, tide);
     let calendar = calendars.get(site.timeZone);
     if (!calendar) {
       calendar = calendarIndex(series.timeMs, site.timeZone);

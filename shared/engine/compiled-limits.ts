@@ -1,5 +1,5 @@
 import { alphaInRow, alphaRowIndex } from './alpha-factor';
-import type { AlphaTable, OperationSpec } from './types';
+import type { AlphaTable, OperationSpec, TideWindowLimit } from './types';
 
 /**
  * An operation's limits prepared for the hot loops: absent limits are NaN or empty arrays,
@@ -33,6 +33,15 @@ export interface CompiledLimits {
   needTp: boolean;
   needBed: boolean;
   needWind: boolean;
+  /** Min and max still-water depth, m (NaN: none); exact limits, no alpha (docs/domain.md#tide). */
+  minDepth: number;
+  maxDepth: number;
+  /** Current speed max, m/s (NaN: none). */
+  currentMax: number;
+  /** The tide window, or null. */
+  tideWindow: TideWindowLimit | null;
+  needDepth: boolean;
+  needCurrent: boolean;
   /** Reference period TR = TPOP + TC, h. */
   trH: number;
 }
@@ -91,11 +100,19 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
   const tpMax = positiveOrNaN(L.tpMax, 'Tp max');
   const bedMax = positiveOrNaN(L.bedVelocityMax, 'bed velocity max');
   const windMax = positiveOrNaN(L.windMax, 'wind max');
+  const minDepth = positiveOrNaN(L.minDepth, 'min depth');
+  const maxDepth = positiveOrNaN(L.maxDepth, 'max depth');
+  const currentMax = positiveOrNaN(L.currentMax, 'current max');
+  const tw = L.tideWindow ?? null;
+  if (tw && !(tw.before >= 0 && tw.after >= 0 && tw.before + tw.after > 0 && Number.isFinite(tw.before + tw.after))) {
+    throw new RangeError('tide window: before and after must be finite, >= 0 and not both 0');
+  }
 
   const hasHs = hsMax === hsMax;
   const hasCurve = curve.length >= 2;
   const hasBed = bedMax === bedMax;
-  if (!hasHs && !hasCurve && tpMin !== tpMin && tpMax !== tpMax && bands.length === 0 && !hasBed && windMax !== windMax) {
+  const hasTide = minDepth === minDepth || maxDepth === maxDepth || currentMax === currentMax || tw !== null;
+  if (!hasHs && !hasCurve && tpMin !== tpMin && tpMax !== tpMax && bands.length === 0 && !hasBed && windMax !== windMax && !hasTide) {
     throw new RangeError('an operation needs at least one limit');
   }
 
@@ -129,6 +146,12 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
     needTp: hasCurve || tpMin === tpMin || tpMax === tpMax || bands.length > 0 || hasBed,
     needBed: hasBed,
     needWind: windMax === windMax,
+    minDepth,
+    maxDepth,
+    currentMax,
+    tideWindow: tw,
+    needDepth: minDepth === minDepth || maxDepth === maxDepth,
+    needCurrent: currentMax === currentMax,
     trH,
   };
 }

@@ -1,4 +1,5 @@
 import { compileLimits } from './compiled-limits';
+import { tideWindowMarginH } from './tide-window';
 import { LIMIT, STATUS, type AlphaTable, type HourlyEvaluation, type OperationSpec, type SiteSeries } from './types';
 
 /** Options of {@link evaluateHours}. */
@@ -20,6 +21,10 @@ export function assertSeriesLengths(series: SiteSeries): void {
   for (const key of ['hsM', 'tpS', 'bedVelocityLinearMps', 'bedVelocitySoulsbyMps', 'windMps'] as const) {
     if (series[key].length !== n) throw new RangeError(`series.${key} has ${series[key].length} values for ${n} times`);
   }
+  for (const key of ['depthM', 'currentMps'] as const) {
+    const a = series[key];
+    if (a && a.length !== n) throw new RangeError(`series.${key} has ${a.length} values for ${n} times`);
+  }
 }
 
 /**
@@ -40,7 +45,10 @@ export function assertSeriesLengths(series: SiteSeries): void {
  * Relative margin per limit (dimensionless, negative when not met):
  * Hs max (OPWF - Hs)/OPWF; curve (OPWF(Tp) - Hs)/OPWF(Tp), or outside its Tp range minus the Tp
  * distance to the range over the nearest end's Tp; Tp min (Tp - min)/min; Tp max (max - Tp)/max;
- * bands (distance to the nearest edge)/edge, negative inside; bed velocity and wind (max - value)/max.
+ * bands (distance to the nearest edge)/edge, negative inside; bed velocity and wind (max - value)/max;
+ * min depth (h - min)/min, max depth (max - h)/max, current (max - value)/max; tide window the hours
+ * inside it (tideWindowMarginH) over its length before + after. Depth needs `series.depthM`, current
+ * `series.currentMps`, the window `series.tide`: without them those limits find no data.
  * OPWF = OPLIM when alpha does not apply.
  *
  * Limiting factor: among the limits that decide the status (the broken ones for not workable, the
@@ -62,6 +70,14 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
     throw new RangeError('evaluateHours: out buffers must have the series length');
   }
   const { status, limiting, marginRel } = out;
+  // The exact limits of docs/domain.md#tide (alpha never applies): depth, current, tide window.
+  const depthArr = series.depthM;
+  const currentArr = series.currentMps;
+  const hasMinDepth = c.minDepth === c.minDepth;
+  const hasMaxDepth = c.maxDepth === c.maxDepth;
+  const hasCurrent = c.needCurrent;
+  const tideWindow = c.tideWindow;
+  const tideSpanH = tideWindow ? tideWindow.before + tideWindow.after : NaN;
   const hsArr = series.hsM;
   const tpArr = series.tpS;
   const bedArr = c.bedSoulsby ? series.bedVelocitySoulsbyMps : series.bedVelocityLinearMps;
@@ -111,7 +127,10 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
     const tp = needTp ? tpArr[i] : 0;
     const bed = hasBed ? bedArr[i] : 0;
     const wind = hasWind ? windArr[i] : 0;
-    if (hs !== hs || tp !== tp || bed !== bed || wind !== wind) {
+    const depth = c.needDepth ? (depthArr ? depthArr[i] : NaN) : 0;
+    const current = hasCurrent ? (currentArr ? currentArr[i] : NaN) : 0;
+    const tideH = tideWindow ? tideWindowMarginH(series.tide, tideWindow, series.timeMs[i]) : 0;
+    if (hs !== hs || tp !== tp || bed !== bed || wind !== wind || depth !== depth || current !== current || tideH !== tideH) {
       status[i] = NO_DATA;
       limiting[i] = NONE;
       marginRel[i] = NaN;
@@ -221,6 +240,42 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
         bestCls = cls;
         bestRel = rel;
         bestLim = LIMIT.WIND;
+      }
+    }
+    if (hasMinDepth) {
+      cls = depth < c.minDepth ? 2 : 0;
+      rel = (depth - c.minDepth) / c.minDepth;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.MIN_DEPTH;
+      }
+    }
+    if (hasMaxDepth) {
+      cls = depth > c.maxDepth ? 2 : 0;
+      rel = (c.maxDepth - depth) / c.maxDepth;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.MAX_DEPTH;
+      }
+    }
+    if (hasCurrent) {
+      cls = current > c.currentMax ? 2 : 0;
+      rel = (c.currentMax - current) / c.currentMax;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.CURRENT;
+      }
+    }
+    if (tideWindow) {
+      cls = tideH < 0 ? 2 : 0;
+      rel = tideH / tideSpanH;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.TIDE_WINDOW;
       }
     }
     status[i] = CLASS_STATUS[bestCls];

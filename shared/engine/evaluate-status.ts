@@ -1,5 +1,6 @@
 import { compileLimits, type CompiledLimits } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
+import { tideWindowMarginH } from './tide-window';
 import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './types';
 
 /** Options of {@link evaluateStatus}. */
@@ -52,6 +53,16 @@ export function evaluateStatus(series: SiteSeries, op: OperationSpec, options: E
   if (c.needTp) markMissing(series.tpS, cls);
   if (c.needBed) markMissing(bed, cls);
   if (c.needWind) markMissing(series.windMps, cls);
+  // Exact limits of docs/domain.md#tide: a missing array means no data for every record.
+  if (c.needDepth) {
+    if (series.depthM) markMissing(series.depthM, cls);
+    else cls.fill(NO_DATA_CLASS);
+  }
+  if (c.needCurrent) {
+    if (series.currentMps) markMissing(series.currentMps, cls);
+    else cls.fill(NO_DATA_CLASS);
+  }
+  if (c.tideWindow) raiseTideWindow(series, c, cls);
 
   if (c.hsMax === c.hsMax) raiseHs(series.hsM, c.hsMaxOpwf, c.hsMax, cls);
   if (c.curveTp.length >= 2) raiseCurve(series.hsM, series.tpS, c, cls);
@@ -60,9 +71,22 @@ export function evaluateStatus(series: SiteSeries, op: OperationSpec, options: E
   for (let b = 0; b < c.bandFrom.length; b++) breakInside(series.tpS, c.bandFrom[b], c.bandTo[b], cls);
   if (c.needBed) breakAbove(bed, c.bedMax, cls);
   if (c.needWind) breakAbove(series.windMps, c.windMax, cls);
+  if (c.minDepth === c.minDepth && series.depthM) breakBelow(series.depthM, c.minDepth, cls);
+  if (c.maxDepth === c.maxDepth && series.depthM) breakAbove(series.depthM, c.maxDepth, cls);
+  if (c.needCurrent && series.currentMps) breakAbove(series.currentMps, c.currentMax, cls);
 
   for (let i = 0; i < n; i++) cls[i] = CLASS_TO_STATUS[cls[i]];
   return cls;
+}
+
+/** Tide window: outside it broken, no extremes for the record no data (tideWindowMarginH). */
+function raiseTideWindow(series: SiteSeries, c: CompiledLimits, cls: Uint8Array): void {
+  const limit = c.tideWindow!;
+  for (let i = 0; i < cls.length; i++) {
+    const m = tideWindowMarginH(series.tide, limit, series.timeMs[i]);
+    if (m !== m) cls[i] = NO_DATA_CLASS;
+    else if (m < 0 && cls[i] < 2) cls[i] = 2;
+  }
 }
 
 /** No data: a needed value is NaN. */

@@ -1,12 +1,13 @@
 import { alphaFor } from './alpha-factor';
-import type { AlphaTable, LimitName, OperationSpec } from './types';
+import { tideWindowMarginH } from './tide-window';
+import type { AlphaTable, LimitName, OperationSpec, TideExtremes } from './types';
 
 /** One limit tested against one hour: the values behind the "chain" view of the board. */
 export interface LimitCheck {
   limit: LimitName;
   /** Plain-words label, e.g. "Hs max". */
   label: string;
-  unit: 'm' | 's' | 'm/s';
+  unit: 'm' | 's' | 'm/s' | 'h';
   /** The hour's value of the limited quantity (null when missing). */
   value: number | null;
   /** The operation limit OPLIM (for a band: its nearer edge). */
@@ -43,6 +44,13 @@ export interface HourValues {
   bedVelocityLinearMps: number;
   bedVelocitySoulsbyMps: number;
   windMps: number;
+  /** Still-water depth h at the worksite, m (docs/domain.md#tide); absent or NaN: unknown. */
+  depthM?: number;
+  /** Current speed, m/s; absent or NaN: unknown. */
+  currentMps?: number;
+  /** The hour's start, UTC epoch ms, and the predicted extremes around it (for a tide window). */
+  timeMs?: number;
+  tide?: TideExtremes;
 }
 
 export type HourStatus = 'workable' | 'marginal' | 'not_workable' | 'no_data';
@@ -123,6 +131,37 @@ export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaT
   if (l.windMax != null) {
     const w = ok(v.windMps) ? v.windMps : null;
     push({ limit: 'wind', label: 'Wind max', unit: 'm/s', value: w, oplim: l.windMax, opwf: null, alpha: null, margin: w === null ? null : l.windMax - w, met: w === null ? null : w <= l.windMax });
+  }
+
+  // Exact limits of docs/domain.md#tide: alpha never applies.
+  const depth = v.depthM !== undefined && ok(v.depthM) ? v.depthM : null;
+  if (l.minDepth != null) {
+    const parts = l.minDepthParts ? ` (draught ${words1(l.minDepthParts.draught)} m + clearance ${words1(l.minDepthParts.clearance)} m)` : '';
+    push({ limit: 'minDepth', label: `Min depth${parts}`, unit: 'm', value: depth, oplim: l.minDepth, opwf: null, alpha: null, margin: depth === null ? null : depth - l.minDepth, met: depth === null ? null : depth >= l.minDepth });
+  }
+  if (l.maxDepth != null) {
+    push({ limit: 'maxDepth', label: 'Max depth', unit: 'm', value: depth, oplim: l.maxDepth, opwf: null, alpha: null, margin: depth === null ? null : l.maxDepth - depth, met: depth === null ? null : depth <= l.maxDepth });
+  }
+  if (l.currentMax != null) {
+    const cur = v.currentMps !== undefined && ok(v.currentMps) ? v.currentMps : null;
+    push({ limit: 'current', label: 'Current max', unit: 'm/s', value: cur, oplim: l.currentMax, opwf: null, alpha: null, margin: cur === null ? null : l.currentMax - cur, met: cur === null ? null : cur <= l.currentMax });
+  }
+  if (l.tideWindow) {
+    const tw = l.tideWindow;
+    const m = v.timeMs === undefined ? NaN : tideWindowMarginH(v.tide, tw, v.timeMs);
+    const has = ok(m);
+    push({
+      limit: 'tideWindow',
+      label: `Tide window ${words1(tw.before)} h before to ${words1(tw.after)} h after ${tw.reference} water`,
+      unit: 'h',
+      value: has ? m : null,
+      oplim: 0,
+      opwf: null,
+      alpha: null,
+      margin: has ? m : null,
+      met: has ? m >= 0 : null,
+      ...(has && m < 0 ? { reason: `${words1(-m)} h outside the window around ${tw.reference} water` } : {}),
+    });
   }
 
   let status: HourStatus;

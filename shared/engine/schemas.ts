@@ -8,7 +8,8 @@ import { alphaTableCoverageProblem } from './alpha-factor';
  * Zod schemas for operation limits, operations and alpha tables, shared by the server (request
  * bodies, import) and the client forms. Ranges are sanity bounds for marine operations (common
  * practice, no source): Hs 0.1-20 m, Tp 0.5-40 s, bed velocity 0.01-10 m/s, wind 0.5-60 m/s,
- * TPOP 0.25-2000 h, TC 0-2000 h.
+ * TPOP 0.25-2000 h, TC 0-2000 h; depth 0.1-11000 m, draught and under-keel clearance 0-50 m,
+ * current 0.05-10 m/s, tide window 0-12 h either side of high or low water.
  */
 
 /** Sanity bounds of the schemas, per quantity and unit. */
@@ -19,6 +20,11 @@ export const LIMIT_RANGES = {
   windMps: { min: 0.5, max: 60 },
   tpopH: { min: 0.25, max: 2000 },
   tcH: { min: 0, max: 2000 },
+  depthM: { min: 0.1, max: 11000 },
+  draughtM: { min: 0, max: 50 },
+  clearanceM: { min: 0, max: 50 },
+  currentMps: { min: 0.05, max: 10 },
+  tideWindowH: { min: 0, max: 12 },
 } as const;
 
 const R = LIMIT_RANGES;
@@ -35,10 +41,16 @@ const tpS = (what: string) => ranged(R.tpS, what, 's');
 /** Allowed bed velocity methods (feeds the zod enum and UI selects). */
 export const BED_VELOCITY_METHODS = ['linear', 'soulsby'] as const;
 
+/** High or low water, the reference of a tide window. */
+export const TIDE_REFERENCES = ['high', 'low'] as const;
+
 /**
  * Limits of an operation: each optional (absent or null), at least one set (an empty band list
  * does not count); curve with at least two points and strictly ascending Tp; bands with from < to;
- * Tp min not above Tp max. Hs max and a curve may both be set; both then apply.
+ * Tp min not above Tp max. Hs max and a curve may both be set; both then apply. Min depth not above
+ * max depth; min depth equal to draught plus under-keel clearance when both are given (the form
+ * sends both); a tide window at least some time long (before + after > 0). The depth, current and
+ * tide-window limits are exact: alpha never applies (docs/domain.md#tide).
  */
 export const operationLimitsSchema = z
   .object({
@@ -53,6 +65,19 @@ export const operationLimitsSchema = z
     bedVelocityMax: ranged(R.bedVelocityMps, 'Bed velocity max', 'm/s').nullish(),
     bedVelocityMethod: z.enum(BED_VELOCITY_METHODS).optional(),
     windMax: ranged(R.windMps, 'Wind max', 'm/s').nullish(),
+    minDepth: ranged(R.depthM, 'Min depth', 'm').nullish(),
+    minDepthParts: z
+      .object({ draught: ranged(R.draughtM, 'Draught', 'm'), clearance: ranged(R.clearanceM, 'Under-keel clearance', 'm') })
+      .nullish(),
+    maxDepth: ranged(R.depthM, 'Max depth', 'm').nullish(),
+    currentMax: ranged(R.currentMps, 'Current max', 'm/s').nullish(),
+    tideWindow: z
+      .object({
+        reference: z.enum(TIDE_REFERENCES),
+        before: ranged(R.tideWindowH, 'Hours before', 'h'),
+        after: ranged(R.tideWindowH, 'Hours after', 'h'),
+      })
+      .nullish(),
   })
   .superRefine((v, ctx) => {
     const curve = v.hsTpCurve ?? [];
@@ -67,6 +92,18 @@ export const operationLimitsSchema = z
     if (v.tpMin != null && v.tpMax != null && v.tpMin > v.tpMax) {
       ctx.addIssue({ code: 'custom', path: ['tpMax'], message: 'Tp max must not be below Tp min' });
     }
+    if (v.minDepth != null && v.maxDepth != null && v.minDepth > v.maxDepth) {
+      ctx.addIssue({ code: 'custom', path: ['maxDepth'], message: 'Max depth must not be below min depth' });
+    }
+    if (v.minDepthParts != null) {
+      const sum = v.minDepthParts.draught + v.minDepthParts.clearance;
+      if (v.minDepth == null || Math.abs(sum - v.minDepth) > 1e-9 * Math.max(1, sum)) {
+        ctx.addIssue({ code: 'custom', path: ['minDepth'], message: `Min depth must be draught plus under-keel clearance (${sum} m)` });
+      }
+    }
+    if (v.tideWindow != null && !(v.tideWindow.before + v.tideWindow.after > 0)) {
+      ctx.addIssue({ code: 'custom', path: ['tideWindow', 'after'], message: 'A tide window needs some hours before or after' });
+    }
     const any =
       v.hsMax != null ||
       curve.length > 0 ||
@@ -74,7 +111,11 @@ export const operationLimitsSchema = z
       v.tpMax != null ||
       (v.tpExcluded ?? []).length > 0 ||
       v.bedVelocityMax != null ||
-      v.windMax != null;
+      v.windMax != null ||
+      v.minDepth != null ||
+      v.maxDepth != null ||
+      v.currentMax != null ||
+      v.tideWindow != null;
     if (!any) ctx.addIssue({ code: 'custom', path: [], message: 'Set at least one limit' });
   });
 

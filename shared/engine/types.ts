@@ -23,6 +23,38 @@ export interface SiteSeries {
   bedVelocitySoulsbyMps: Float64Array;
   /** Wind speed at 10 m, m/s. */
   windMps: Float64Array;
+  /**
+   * Still-water depth at the worksite h(t) = chart depth + water level, m (docs/domain.md#tide);
+   * only needed by depth limits (absent: a depth limit finds no data). A dry record has h <= 0.
+   */
+  depthM?: Float64Array;
+  /** Current speed at the worksite, m/s (docs/domain.md#tide); only needed by a current limit. */
+  currentMps?: Float64Array;
+  /** Predicted high and low waters around the series (docs/domain.md#tide); only needed by a tide window. */
+  tide?: TideExtremes;
+}
+
+/**
+ * Predicted high and low waters (the tide predictor's extremes) over a span that covers the
+ * series with room to spare: a record outside [fromMs, toMs] has no tide data.
+ */
+export interface TideExtremes {
+  /** Times of high water, UTC epoch ms, ascending. */
+  highMs: Float64Array;
+  /** Times of low water, UTC epoch ms, ascending. */
+  lowMs: Float64Array;
+  /** Span the extremes were predicted over, UTC epoch ms. */
+  fromMs: number;
+  toMs: number;
+}
+
+/** A tide window: only from `before` hours before to `after` hours after high (or low) water. */
+export interface TideWindowLimit {
+  reference: 'high' | 'low';
+  /** Hours before the extreme, >= 0. */
+  before: number;
+  /** Hours after the extreme, >= 0. */
+  after: number;
 }
 
 /** Near-bed orbital velocity method named by a bed-velocity limit. */
@@ -49,6 +81,16 @@ export interface OperationLimits {
   bedVelocityMethod?: BedVelocityMethod;
   /** Wind speed max at 10 m, m/s. */
   windMax?: number | null;
+  /** Minimum still-water depth at the worksite, m (draught plus under-keel clearance); exact, no alpha. */
+  minDepth?: number | null;
+  /** How the minimum depth was entered: draught and under-keel clearance, m (their sum is minDepth). */
+  minDepthParts?: { draught: number; clearance: number } | null;
+  /** Maximum still-water depth at the worksite, m; exact, no alpha. */
+  maxDepth?: number | null;
+  /** Current speed max, m/s; exact, no alpha. */
+  currentMax?: number | null;
+  /** Tide window around the predicted high or low waters; exact, no alpha. */
+  tideWindow?: TideWindowLimit | null;
 }
 
 /** An operation as the engine needs it. */
@@ -77,14 +119,40 @@ export const STATUS = { NO_DATA: 0, NOT_WORKABLE: 1, MARGINAL: 2, WORKABLE: 3 } 
 export type StatusCode = (typeof STATUS)[keyof typeof STATUS];
 
 /** Limiting-factor codes (Uint8Array values). NONE for no-data records. */
-export const LIMIT = { NONE: 0, HS: 1, HS_TP_CURVE: 2, TP_MIN: 3, TP_MAX: 4, TP_BAND: 5, BED_VELOCITY: 6, WIND: 7 } as const;
+export const LIMIT = {
+  NONE: 0,
+  HS: 1,
+  HS_TP_CURVE: 2,
+  TP_MIN: 3,
+  TP_MAX: 4,
+  TP_BAND: 5,
+  BED_VELOCITY: 6,
+  WIND: 7,
+  MIN_DEPTH: 8,
+  MAX_DEPTH: 9,
+  CURRENT: 10,
+  TIDE_WINDOW: 11,
+} as const;
 export type LimitCode = (typeof LIMIT)[keyof typeof LIMIT];
 
 /** Names of the limits, used as keys of per-limit margins. */
-export type LimitName = 'hs' | 'hsTpCurve' | 'tpMin' | 'tpMax' | 'tpBand' | 'bedVelocity' | 'wind';
+export type LimitName = 'hs' | 'hsTpCurve' | 'tpMin' | 'tpMax' | 'tpBand' | 'bedVelocity' | 'wind' | 'minDepth' | 'maxDepth' | 'current' | 'tideWindow';
 
 /** Name of each limit code, indexed by code; `LIMIT_NAMES[LIMIT.NONE]` is null. */
-export const LIMIT_NAMES: readonly (LimitName | null)[] = [null, 'hs', 'hsTpCurve', 'tpMin', 'tpMax', 'tpBand', 'bedVelocity', 'wind'];
+export const LIMIT_NAMES: readonly (LimitName | null)[] = [
+  null,
+  'hs',
+  'hsTpCurve',
+  'tpMin',
+  'tpMax',
+  'tpBand',
+  'bedVelocity',
+  'wind',
+  'minDepth',
+  'maxDepth',
+  'current',
+  'tideWindow',
+];
 
 /** Hourly evaluation of one operation over a series. */
 export interface HourlyEvaluation {

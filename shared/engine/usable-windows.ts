@@ -1,5 +1,6 @@
 import { alphaAt, bandDistance, compileLimits, curveHsAt } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
+import { tideWindowMarginH } from './tide-window';
 import type { AlphaTable, LimitName, OperationSpec, SiteSeries, UsableWindow } from './types';
 import { recordSteps } from './record-steps';
 import { MS_PER_HOUR, runRemaining, sumDurations, trThresholdMs } from './workable-runs';
@@ -21,7 +22,8 @@ export interface WindowOptions {
  * unit: Hs max and curve against OPWF, m; Tp min (Tp - min) and Tp max (max - Tp), s; excluded
  * bands, the distance to the nearest band edge, s; bed velocity, m/s; wind, m/s. `relative` is the
  * minimum over the records and limits of margin / limit (dimensionless; for a band, over its
- * nearest edge's Tp), the same figure as evaluateHours' marginRel.
+ * nearest edge's Tp), the same figure as evaluateHours' marginRel. Depth limits in m, current in
+ * m/s, the tide window in hours inside it (docs/domain.md#tide).
  *
  * @param series the worksite series the statuses were computed from
  * @param op the operation
@@ -73,6 +75,17 @@ export function usableWindows(series: SiteSeries, op: OperationSpec, status: Uin
         }
         if (c.needBed) low('bedVelocity', c.bedMax - bedArr[k], (c.bedMax - bedArr[k]) / c.bedMax);
         if (c.needWind) low('wind', c.windMax - series.windMps[k], (c.windMax - series.windMps[k]) / c.windMax);
+        const h = series.depthM ? series.depthM[k] : NaN;
+        if (c.minDepth === c.minDepth) low('minDepth', h - c.minDepth, (h - c.minDepth) / c.minDepth);
+        if (c.maxDepth === c.maxDepth) low('maxDepth', c.maxDepth - h, (c.maxDepth - h) / c.maxDepth);
+        if (c.needCurrent) {
+          const u = series.currentMps ? series.currentMps[k] : NaN;
+          low('current', c.currentMax - u, (c.currentMax - u) / c.currentMax);
+        }
+        if (c.tideWindow) {
+          const m = tideWindowMarginH(series.tide, c.tideWindow, timeMs[k]);
+          low('tideWindow', m, m / (c.tideWindow.before + c.tideWindow.after));
+        }
       }
       const startMs = timeMs[i];
       windows.push({

@@ -21,7 +21,7 @@ export const LEDGER_MAX_DAYS = 93;
 export const LEDGER_MAX_DAY_HOURS = 25;
 
 /** Limiting factors a ledger day may name: the engine's limit names, or no data. */
-export const LEDGER_LIMITING_VALUES = ['hs', 'hsTpCurve', 'tpMin', 'tpMax', 'tpBand', 'bedVelocity', 'wind', 'noData'] as const;
+export const LEDGER_LIMITING_VALUES = ['hs', 'hsTpCurve', 'tpMin', 'tpMax', 'tpBand', 'bedVelocity', 'wind', 'minDepth', 'maxDepth', 'current', 'tideWindow', 'noData'] as const;
 export type LedgerLimiting = (typeof LEDGER_LIMITING_VALUES)[number];
 
 /** Words for each limiting factor, for tables and the report. */
@@ -33,6 +33,10 @@ export const LEDGER_LIMITING_LABELS: Record<LedgerLimiting, string> = {
   tpBand: 'Tp band',
   bedVelocity: 'Bed velocity',
   wind: 'Wind',
+  minDepth: 'Min depth',
+  maxDepth: 'Max depth',
+  current: 'Current',
+  tideWindow: 'Tide window',
   noData: 'No data',
 };
 
@@ -140,7 +144,7 @@ export const LedgerConfirmInput = z.object({
     .min(0, 'must be at least 0 h')
     .max(LEDGER_MAX_DAY_HOURS, `must be at most ${LEDGER_MAX_DAY_HOURS} h (and at most the day's planned hours)`)
     .optional(),
-  limiting: z.enum(LEDGER_LIMITING_VALUES, { error: 'must be a limiting factor (hs, hsTpCurve, tpMin, tpMax, tpBand, bedVelocity, wind, noData)' }).nullable().optional(),
+  limiting: z.enum(LEDGER_LIMITING_VALUES, { error: 'must be a limiting factor (hs, hsTpCurve, tpMin, tpMax, tpBand, bedVelocity, wind, minDepth, maxDepth, current, tideWindow, noData)' }).nullable().optional(),
   note: longText(2000).optional().default(''),
 });
 export type LedgerConfirmInput = z.infer<typeof LedgerConfirmInput>;

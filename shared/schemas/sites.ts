@@ -13,6 +13,7 @@ export * from './site-fields';
 export * from './transfer-table';
 export * from './transfer-table-csv';
 export * from './worksite';
+export * from './tide';
 export * from './operation';
 export * from './alpha-table';
 export * from './setup-document';

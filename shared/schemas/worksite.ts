@@ -6,6 +6,7 @@ import { z } from 'zod';
 import { patchSchema } from './common';
 import { canonicalTimeZone, finite, itemName } from './site-fields';
 import { TransferTableInput } from './transfer-table';
+import { WorksiteTideInput } from './tide';
 
 /** Depth range of a worksite, m (0.5 m: a wading-depth floor; 11000 m: the deepest ocean trench). */
 export const SITE_DEPTH_RANGE_M = { min: 0.5, max: 11000 } as const;
@@ -46,6 +47,8 @@ const worksiteFields = {
   /** a hindcast dataset of the same project for statistics; null = the project's newest */
   hindcastDatasetId: z.uuid('Hindcast dataset must be a dataset id').nullable(),
   transferTable: TransferTableInput.nullable(),
+  /** tide at the worksite (docs/domain.md#tide); null = none */
+  tide: WorksiteTideInput.nullable(),
 };
 
 /** A new worksite (POST), or a whole one (the PATCH service re-checks the merged record with it). */
@@ -57,6 +60,7 @@ export const WorksiteInput = z.object({
   breakerIndex: worksiteFields.breakerIndex.default(BREAKER_INDEX_RANGE.default),
   hindcastDatasetId: worksiteFields.hindcastDatasetId.default(null),
   transferTable: worksiteFields.transferTable.default(null),
+  tide: worksiteFields.tide.default(null),
 });
 export type WorksiteInput = z.infer<typeof WorksiteInput>;
 /** What a form may send (defaults not yet applied). */

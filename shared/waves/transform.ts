@@ -50,6 +50,13 @@ export interface SeaSeriesInput {
   tzS: Float64Array;
   /** Mean direction, degrees "coming from"; may be all NaN when the site has no bearing. */
   dirDeg: Float64Array;
+  /**
+   * Water level above the worksite's chart datum, m (docs/domain.md#tide), or absent for a fixed
+   * depth. With it, each record's still-water depth is h = d_site + level: dispersion, shoaling,
+   * refraction, the depth limit gamma_b*h and the bed velocities use h; h <= 0 is DRY (no data);
+   * a NaN level makes the record MISSING_INPUT.
+   */
+  waterLevelM?: Float64Array | null;
 }
 
 /** Per-record flags of the transformation (bits). */
@@ -64,6 +71,8 @@ export const TRANSFORM_FLAG = {
   TRANSFER_TABLE: 8,
   /** Hs or Tp missing (or invalid), or the direction missing when it is needed: outputs are NaN. */
   MISSING_INPUT: 16,
+  /** Still-water depth h = d_site + water level <= 0: the worksite is dry, no wave data (docs/domain.md#tide). */
+  DRY: 32,
 } as const;
 
 export type TransformFlagName = keyof typeof TRANSFORM_FLAG;
@@ -92,6 +101,8 @@ export interface SiteSeries {
   bedVelocityLinearMps: Float64Array;
   /** Soulsby (2006) significant bed velocity at the worksite, m/s (Tz per docs/domain.md#convention-8). */
   bedVelocitySoulsbyMps: Float64Array;
+  /** Still-water depth h per record, m, when a water level was given (docs/domain.md#tide). */
+  depthM?: Float64Array;
 }
 
 /** Options of the transformation. */
@@ -295,6 +306,7 @@ export function transformToSite(
   options?: TransformOptions,
 ): SiteSeries {
   const setup = checkSetup(source, site, options);
+  if (input.waterLevelM) return transformWithWaterLevel(input, input.waterLevelM, source, site, options);
   const { hsM: hsIn, tpS: tpIn, tzS: tzIn, dirDeg: dirIn } = input;
   const n = hsIn.length;
   if (tpIn.length !== n || tzIn.length !== n || dirIn.length !== n) {
@@ -516,6 +528,50 @@ function engineFields(
 }
 
 /**
+ * The transformation with a depth that moves (docs/domain.md#tide): each record at its own
+ * still-water depth h = d_site + level, through {@link transformOne} (the same steps and numbers
+ * as a fixed depth of h; dispersion is solved per (period, depth) pair). h <= 0: DRY, outputs NaN.
+ * Slower than the fixed-depth path (no per-period cache), about a microsecond or two a record.
+ */
+function transformWithWaterLevel(input: SeaSeriesInput, level: Float64Array, source: SourcePoint, site: SiteGeometry, options?: TransformOptions): SiteSeries {
+  const n = input.hsM.length;
+  if (input.tpS.length !== n || input.tzS.length !== n || input.dirDeg.length !== n || level.length !== n) {
+    throw new RangeError('hsM, tpS, tzS, dirDeg and waterLevelM must have the same length');
+  }
+  const out = options?.out ?? createSiteSeries(n);
+  if (out.hsM.length !== n || out.flags.length !== n) throw new RangeError(`every out array must have the input length ${n}`);
+  const depth = out.depthM && out.depthM.length === n ? out.depthM : new Float64Array(n);
+  out.depthM = depth;
+  const one = { g: options?.g, gamma: options?.gamma };
+  for (let i = 0; i < n; i++) {
+    const eta = level[i];
+    const h = site.depthM + eta;
+    depth[i] = h;
+    let flags: number;
+    if (!(h > 0)) {
+      flags = eta === eta ? TRANSFORM_FLAG.DRY : TRANSFORM_FLAG.MISSING_INPUT;
+      out.hsM[i] = NaN;
+      out.dirDeg[i] = NaN;
+      out.ks[i] = NaN;
+      out.kr[i] = NaN;
+      out.flags[i] = flags;
+      out.bedVelocityLinearMps[i] = NaN;
+      out.bedVelocitySoulsbyMps[i] = NaN;
+      continue;
+    }
+    const c = transformOne({ hsM: input.hsM[i], tpS: input.tpS[i], tzS: input.tzS[i], dirDeg: input.dirDeg[i] }, source, { ...site, depthM: h }, one);
+    out.hsM[i] = c.hsM;
+    out.dirDeg[i] = c.dirDeg;
+    out.ks[i] = c.ks;
+    out.kr[i] = c.kr;
+    out.flags[i] = c.flags;
+    out.bedVelocityLinearMps[i] = c.bedVelocityLinearMps;
+    out.bedVelocitySoulsbyMps[i] = c.bedVelocitySoulsbyMps;
+  }
+  return out;
+}
+
+/**
  * Indices of each record's value among the distinct values (found with `index`, first seen first);
  * -1 for NaN, and with `positiveFinite` also for values that are not finite and positive. Returns
  * the distinct values in id order.
@@ -589,6 +645,8 @@ export interface SeaRecordInput {
   tpS: number;
   tzS?: number | null;
   dirDeg?: number | null;
+  /** Water level above the worksite's chart datum, m; absent or null: the chart depth (docs/domain.md#tide). */
+  waterLevelM?: number | null;
 }
 
 /** The whole chain behind one worksite record (for the "chain behind this hour" view). */
@@ -620,7 +678,11 @@ export interface TransformChain {
   transferFactor: number;
   /** Hs_src*Ks*Kr before the depth limit, m. */
   hsBeforeCapM: number;
-  /** gamma_b*d_site, m. */
+  /** Water level above chart datum used, m (0 when none was given). */
+  waterLevelM: number;
+  /** Still-water depth h = d_site + water level the chain used, m. */
+  depthM: number;
+  /** gamma_b*h, m. */
   depthLimitM: number;
   /** Hs at the worksite after the limit, m. */
   hsM: number;
@@ -650,7 +712,20 @@ export function transformOne(
   site: SiteGeometry,
   options?: Omit<TransformOptions, 'out'>,
 ): TransformChain {
-  const setup = checkSetup(source, site, options);
+  const eta = record.waterLevelM ?? 0;
+  const h = site.depthM + eta;
+  if (!(h > 0)) {
+    // Dry (or an unknown level): no wave data at the worksite this hour (docs/domain.md#tide).
+    checkSetup(source, site, options);
+    const flags = eta === eta ? TRANSFORM_FLAG.DRY : TRANSFORM_FLAG.MISSING_INPUT;
+    return {
+      hsSrcM: record.hsM, tpS: record.tpS, tzS: NaN, tzSource: 'missing', dirSrcDeg: record.dirDeg ?? NaN, missing: null,
+      shoreNormalDeg: site.shoreNormalDeg ?? null, thetaSrcDeg: NaN, thetaSiteDeg: NaN, cSrcMps: NaN, cSiteMps: NaN, cgSrcMps: NaN, cgSiteMps: NaN,
+      ks: NaN, kr: NaN, transferFactor: NaN, hsBeforeCapM: NaN, waterLevelM: eta, depthM: h, depthLimitM: NaN, hsM: NaN, dirDeg: NaN,
+      flags, flagNames: transformFlagNames(flags), bedVelocityLinearMps: NaN, bedVelocitySoulsbyMps: NaN,
+    };
+  }
+  const setup = checkSetup(source, eta === 0 ? site : { ...site, depthM: h }, options);
   const { g, tzOverTp, siteDepthM, depthLimitM, table, bearing } = setup;
   const hs = record.hsM;
   const tp = record.tpS;
@@ -674,6 +749,8 @@ export function transformOne(
     kr: NaN,
     transferFactor: NaN,
     hsBeforeCapM: NaN,
+    waterLevelM: eta,
+    depthM: h,
     depthLimitM,
     hsM: NaN,
     dirDeg: NaN,

@@ -25,8 +25,8 @@ describe('the forecast plan', () => {
     const res = await as.skipper.get(`${base}/plan`);
     expect(res.status, res.text).toBe(200);
     expect(res.body.dataset.kind).toBe('forecast');
-    // Every operation at each of its worksites: seed/scenario-sites.ts gives 2 + 2 + 1 + 2 + 1 pairs.
-    expect(res.body.plans).toHaveLength(8);
+    // Every operation at each of its worksites: seed/scenario-sites.ts gives 2 + 1 + 2 + 1 + 2 + 1 pairs.
+    expect(res.body.plans).toHaveLength(9);
     for (const p of res.body.plans) {
       expect(p.status).toHaveLength(p.times.length);
       // The fake forecast: hourly to +72 h, then 3-hourly to +240 h (129 records).

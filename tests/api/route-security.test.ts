@@ -116,6 +116,20 @@ async function createSite(projectId: string): Promise<string> {
   return res.body.id;
 }
 
+/** A worksite with a position and a tide of invented constants (M2 and S2), for the tide routes. */
+async function createTideSite(projectId: string): Promise<string> {
+  const res = await as.coordinator.post(`/api/projects/${projectId}/sites`).send({
+    name: `Route security tide site ${next()}`,
+    depth: 4,
+    timeZone: 'UTC',
+    latitude: 53.5,
+    longitude: 8.1,
+    tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1.5, phase: 40 }, { name: 'S2', amplitude: 0.4, phase: 80 }], z0: 2, datum: 'LAT' },
+  });
+  if (res.status !== 201) throw new Error(`tide site failed: ${res.status} ${res.text}`);
+  return res.body.id;
+}
+
 const operationBody = (siteId: string) => ({
   name: `Route security operation ${next()}`,
   tpop: 6,
@@ -195,6 +209,17 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/sites/:siteId': { access: 'member' },
   'PATCH /projects/:projectId/sites/:siteId': { access: 'coordinator', body: () => ({ breakerIndex: 0.6 }) },
   'DELETE /projects/:projectId/sites/:siteId': { access: 'coordinator', fresh: async () => ({ siteId: await createSite(P1.projectId) }) },
+  'GET /projects/:projectId/sites/:siteId/tide': {
+    access: 'member',
+    why: 'the predicted tide of a worksite with constants; read-only',
+    fresh: async () => ({ siteId: await createTideSite(P1.projectId) }),
+    query: () => ({ from: '2026-12-01T00:00:00Z', to: '2026-12-02T00:00:00Z' }),
+  },
+  'GET /projects/:projectId/sites/:siteId/tide-stations': {
+    access: 'member',
+    why: 'stations of the public tide database near a worksite with a position; read-only',
+    fresh: async () => ({ siteId: await createTideSite(P1.projectId) }),
+  },
 
   'GET /projects/:projectId/operations': { access: 'member' },
   'POST /projects/:projectId/operations': { access: 'coordinator', body: (p) => operationBody(p.siteId) },

@@ -24,6 +24,14 @@ export const worksite = pgTable(
     hindcastDatasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
     /** Optional site-specific transfer table (direction sector × Tp band → Hs factor). */
     transferTable: jsonb().$type<{ directionSectorsDeg: [number, number][]; tpBandsS: [number, number][]; factors: number[][] } | null>(),
+    /** Tide at the worksite (constants, a database station, or none); null = none (docs/domain.md#tide). */
+    tide: jsonb().$type<{
+      source: 'constants' | 'station' | 'none';
+      stationId?: string;
+      constituents?: { name: string; amplitude: number; phase: number }[];
+      z0?: number;
+      datum: string;
+    } | null>(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },

@@ -17,6 +17,8 @@ import { BoardGrid, type SelectedHour } from './board-grid';
 import { BoardLegend } from './board-legend';
 import { startWords, visibleRange } from './board-model';
 import { ChainPanel } from './chain-panel';
+import { TideStrip } from './tide-strip';
+import { useSites } from '../../../api/sites';
 
 /** A forecast older than this is called out (common practice: forecasts are issued 2-4 times a day). */
 const STALE_FORECAST_MS = 24 * 3_600_000;
@@ -253,6 +255,7 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
             selected={selectedPlan ? selected : null}
             onSelect={onSelect}
           />
+          <TideStrips projectId={projectId} siteIds={[...new Set(plans.map((p) => p.siteId))]} fromMs={timesMs[range.from]} toMs={timesMs[Math.max(range.from, range.to - 1)]} />
           <p className="text-xs text-ink-soft">
             {plans.length} of {allPlans.length} rows · {range.to - range.from} hours shown of {timesMs.length} in the forecast · each hour stands for the hour that starts at its label.
           </p>
@@ -273,6 +276,20 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
           onClose={onClose}
         />
       ) : null}
+    </div>
+  );
+}
+
+/** The tide of each worksite shown that has one, under the board, over the hours shown. */
+function TideStrips({ projectId, siteIds, fromMs, toMs }: { projectId: string; siteIds: string[]; fromMs: number; toMs: number }) {
+  const sites = useSites(projectId).data ?? [];
+  const tidal = sites.filter((s) => siteIds.includes(s.id) && s.tide && s.tide.source !== 'none');
+  if (tidal.length === 0 || !Number.isFinite(fromMs) || !Number.isFinite(toMs) || !(toMs > fromMs)) return null;
+  return (
+    <div className="flex flex-col gap-2">
+      {tidal.map((s) => (
+        <TideStrip key={s.id} projectId={projectId} site={s} fromMs={fromMs} toMs={toMs} />
+      ))}
     </div>
   );
 }

@@ -21,5 +21,10 @@ export function limitsInWords(limits: OperationLimits): string {
     out.push(`near-bed orbital velocity ≤ ${n(limits.bedVelocityMax)} m/s (${limits.bedVelocityMethod === 'soulsby' ? 'Soulsby 2006' : 'linear significant'})`);
   }
   if (limits.windMax != null) out.push(`wind at 10 m ≤ ${n(limits.windMax)} m/s`);
+  // Exact limits of docs/domain.md#tide: alpha never applies; the depth is h = chart depth + predicted tide.
+  if (limits.minDepth != null) out.push(`still-water depth ≥ ${n(limits.minDepth)} m${limits.minDepthParts ? ` (draught ${n(limits.minDepthParts.draught)} m + under-keel clearance ${n(limits.minDepthParts.clearance)} m)` : ''}`);
+  if (limits.maxDepth != null) out.push(`still-water depth ≤ ${n(limits.maxDepth)} m`);
+  if (limits.currentMax != null) out.push(`current ≤ ${n(limits.currentMax)} m/s`);
+  if (limits.tideWindow) out.push(`only from ${n(limits.tideWindow.before)} h before to ${n(limits.tideWindow.after)} h after predicted ${limits.tideWindow.reference} water`);
   return out.length > 0 ? out.join('; ') : 'no limit set';
 }

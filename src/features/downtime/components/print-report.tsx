@@ -51,8 +51,9 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
       <ul className="ml-5 list-disc">
         {sites.map((s) => (
           <li key={s.id}>
-            {s.name}: {s.depth} m deep, {s.shoreNormal === null ? 'no refraction' : `shore normal ${s.shoreNormal}°`}, breaker index {s.breakerIndex}
-            {s.transferTable ? ', site transfer table' : ''}.
+            {s.name}: {s.depth} m deep{s.tide && s.tide.source !== 'none' ? ` below ${s.tide.datum}` : ''}, {s.shoreNormal === null ? 'no refraction' : `shore normal ${s.shoreNormal}°`}, breaker index {s.breakerIndex}
+            {s.transferTable ? ', site transfer table' : ''}
+            {s.tide?.source === 'constants' ? `, tide from ${s.tide.constituents?.length ?? 0} harmonic constants (Z0 ${s.tide.z0} m)` : s.tide?.source === 'station' ? `, tide from database station ${s.tide.stationId}` : ''}.
           </li>
         ))}
       </ul>
@@ -74,6 +75,13 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
           stored by each planning run.
         </li>
         <li>Ledger: all hours of a day are planned; hours not workable at OPLIM or without data count as lost. The expectation is the month’s lost hours over the hindcast years (P50/P90).</li>
+        {sites.some((s) => s.tide && s.tide.source !== 'none') ? (
+          <li>
+            Tide: at a worksite with a tide, every hindcast hour is transformed at its still-water depth h = chart depth + predicted tide, so the
+            depth-limited Hs, shoaling and bed velocity, and the depth and tide-window limits, change with the tide; an hour with h ≤ 0 is dry and counts as no data.
+            The prediction is astronomical only (Schureman nodal corrections): storm surge is not included, and it is not for navigation.
+          </li>
+        ) : null}
         <li>{TRANSFORMATION_CAUTION}</li>
       </ul>
       <p className="mt-4 border-t border-black/30 pt-2 font-semibold">{CAUTION_LINE}</p>

@@ -4,14 +4,16 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { alphaFor, WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../../../../shared/engine/alpha-factor';
-import { BED_VELOCITY_METHODS, LIMIT_RANGES } from '../../../../shared/engine/schemas';
+import { BED_VELOCITY_METHODS, LIMIT_RANGES, TIDE_REFERENCES } from '../../../../shared/engine/schemas';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
 import { Button, ErrorNotice, FieldShell, Input, Select, TextArea } from '../../../components/ui';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 import { useMembers } from '../api/get-members';
-import { applyServerErrors, blankAware, withSubject, CellInput, errorAt, FormSection, GridErrors } from './form-bits';
+import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
+import { CurveEditor } from './hs-tp-curve-editor';
+import { BandsEditor } from './tp-bands-editor';
 import { fmt } from './format';
 import { HsTpPlot } from './hs-tp-plot';
 import { BED_VELOCITY_METHOD_LABEL } from './limits-summary';
@@ -37,6 +39,13 @@ const OperationText = z.object({
     bedVelocityMax: z.string(),
     bedVelocityMethod: z.enum(BED_VELOCITY_METHODS),
     windMax: z.string(),
+    draught: z.string(),
+    clearance: z.string(),
+    maxDepth: z.string(),
+    currentMax: z.string(),
+    tideReference: z.enum(['none', ...TIDE_REFERENCES]),
+    tideBefore: z.string(),
+    tideAfter: z.string(),
   }),
 });
 type OperationText = z.infer<typeof OperationText>;
@@ -47,7 +56,16 @@ const pairNumbers = ([a, b]: [string, string]): [number, number] => [numberFromT
 /** Typed limits to the body's: blank = not set, an empty curve or band list = not set. */
 function limitsFromText(l: LimitsText): OperationLimits {
   const bedVelocityMax = numberOrNull(l.bedVelocityMax);
+  // Min depth is entered as draught plus under-keel clearance (docs/domain.md#tide); either blank = no min depth.
+  const draught = numberOrNull(l.draught);
+  const clearance = numberOrNull(l.clearance);
+  const parts = draught !== null && clearance !== null ? { draught, clearance } : null;
   return {
+    minDepth: parts ? parts.draught + parts.clearance : draught !== null || clearance !== null ? Number.NaN : null,
+    minDepthParts: parts,
+    maxDepth: numberOrNull(l.maxDepth),
+    currentMax: numberOrNull(l.currentMax),
+    tideWindow: l.tideReference === 'none' ? null : { reference: l.tideReference, before: numberFromText(l.tideBefore), after: numberFromText(l.tideAfter) },
     hsMax: numberOrNull(l.hsMax),
     hsTpCurve: l.hsTpCurve.length > 0 ? l.hsTpCurve.map(pairNumbers) : null,
     tpMin: numberOrNull(l.tpMin),
@@ -98,6 +116,13 @@ function initialValues(op: OperationResponse | null): OperationText {
       bedVelocityMax: textFromNumber(l.bedVelocityMax),
       bedVelocityMethod: l.bedVelocityMethod ?? 'linear',
       windMax: textFromNumber(l.windMax),
+      draught: textFromNumber(l.minDepthParts?.draught ?? l.minDepth),
+      clearance: textFromNumber(l.minDepthParts?.clearance ?? (l.minDepth != null ? 0 : null)),
+      maxDepth: textFromNumber(l.maxDepth),
+      currentMax: textFromNumber(l.currentMax),
+      tideReference: l.tideWindow?.reference ?? 'none',
+      tideBefore: textFromNumber(l.tideWindow?.before),
+      tideAfter: textFromNumber(l.tideWindow?.after),
     },
   };
 }
@@ -378,6 +403,42 @@ export function OperationForm({
         </div>
       </FormSection>
 
+      <FormSection
+        id={f('tide')}
+        title="Water depth, current and tide (exact limits)"
+        hint="Checked against the still-water depth h = chart depth + water level, the current and the predicted high and low waters of the worksite's tide. Alpha never applies; without a tide a tide window finds no data."
+      >
+        <div className="grid gap-4 sm:grid-cols-4">
+          <FieldShell label="Draught" unit="m" htmlFor={f('draught')} error={err('limits.minDepthParts.draught') ?? err('limits.minDepth')} hint="Min depth = draught + under-keel clearance.">
+            <Input id={f('draught')} inputMode="decimal" {...form.register('limits.draught')} invalid={!!err('limits.minDepth')} />
+          </FieldShell>
+          <FieldShell label="Under-keel clearance" unit="m" htmlFor={f('ukc')} error={err('limits.minDepthParts.clearance')}>
+            <Input id={f('ukc')} inputMode="decimal" {...form.register('limits.clearance')} />
+          </FieldShell>
+          <FieldShell label="Max depth" unit="m" htmlFor={f('maxdepth')} error={err('limits.maxDepth')} hint={`Still-water depth, ${rangeHint(R.depthM, 'm')}.`}>
+            <Input id={f('maxdepth')} inputMode="decimal" {...form.register('limits.maxDepth')} invalid={!!err('limits.maxDepth')} />
+          </FieldShell>
+          <FieldShell label="Current max" unit="m/s" htmlFor={f('current')} error={err('limits.currentMax')} hint={`Current speed, ${rangeHint(R.currentMps, 'm/s')}.`}>
+            <Input id={f('current')} inputMode="decimal" {...form.register('limits.currentMax')} invalid={!!err('limits.currentMax')} />
+          </FieldShell>
+        </div>
+        <div className="grid gap-4 sm:grid-cols-3">
+          <FieldShell label="Tide window around" htmlFor={f('tideref')} error={err('limits.tideWindow')}>
+            <Select id={f('tideref')} {...form.register('limits.tideReference')}>
+              <option value="none">No tide window</option>
+              <option value="high">High water</option>
+              <option value="low">Low water</option>
+            </Select>
+          </FieldShell>
+          <FieldShell label="Hours before" unit="h" htmlFor={f('tidebefore')} error={err('limits.tideWindow.before')} hint={rangeHint(R.tideWindowH, 'h')}>
+            <Input id={f('tidebefore')} inputMode="decimal" {...form.register('limits.tideBefore')} disabled={limitsText.tideReference === 'none'} />
+          </FieldShell>
+          <FieldShell label="Hours after" unit="h" htmlFor={f('tideafter')} error={err('limits.tideWindow.after')} hint={rangeHint(R.tideWindowH, 'h')}>
+            <Input id={f('tideafter')} inputMode="decimal" {...form.register('limits.tideAfter')} disabled={limitsText.tideReference === 'none'} />
+          </FieldShell>
+        </div>
+      </FormSection>
+
       {mutation.error ? <ErrorNotice error={mutation.error} /> : null}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" disabled={mutation.isPending}>
@@ -388,153 +449,5 @@ export function OperationForm({
         </Button>
       </div>
     </form>
-  );
-}
-
-/** The Hs–Tp limit curve as an editable point table. */
-function CurveEditor({
-  curve,
-  onChange,
-  errorOf,
-}: {
-  curve: [string, string][];
-  onChange: (next: [string, string][]) => void;
-  errorOf: (suffix: string) => string | undefined;
-}) {
-  const set = (i: number, k: 0 | 1, text: string) => onChange(curve.map((p, r) => (r === i ? (k === 0 ? [text, p[1]] : [p[0], text]) : p)));
-  const add = () => {
-    const last = curve[curve.length - 1];
-    const tp = last ? numberFromText(last[0]) : Number.NaN;
-    onChange([...curve, [Number.isFinite(tp) ? String(tp + 2) : '', last?.[1] ?? '']]);
-  };
-  if (curve.length === 0) {
-    return (
-      <div className="flex flex-col gap-1">
-        <span className="text-sm font-semibold">Hs–Tp limit curve</span>
-        <p className="text-xs text-ink-soft">Hs max that changes with the peak period, e.g. from a vessel’s motion analysis. No-go outside its Tp range.</p>
-        <div>
-          <Button
-            variant="secondary"
-            onClick={() =>
-              onChange([
-                ['6', ''],
-                ['10', ''],
-              ])
-            }
-          >
-            + Hs–Tp curve
-          </Button>
-        </div>
-      </div>
-    );
-  }
-  const messages: { where: string; message: string }[] = [];
-  const root = errorOf('');
-  if (root) messages.push({ where: 'Curve', message: root });
-  curve.forEach((_, i) => {
-    const a = errorOf(`.${i}.0`);
-    const b = errorOf(`.${i}.1`);
-    if (a) messages.push({ where: `Point ${i + 1} Tp`, message: a });
-    if (b) messages.push({ where: `Point ${i + 1} Hs`, message: b });
-  });
-  return (
-    <div className="flex flex-col gap-2">
-      <span className="text-sm font-semibold">Hs–Tp limit curve</span>
-      <p className="text-xs text-ink-soft">
-        Points by ascending Tp, joined by straight lines; no-go outside the first and last Tp. Tp {rangeHint(R.tpS, 's')}, Hs{' '}
-        {rangeHint(R.hsM, 'm')}. Where Hs max is also set, the lower of the two applies.
-      </p>
-      <table className="w-full max-w-sm text-sm">
-        <thead>
-          <tr className="text-left text-xs text-ink-soft">
-            <th className="w-8 py-1 font-semibold">#</th>
-            <th className="py-1 font-semibold">Tp (s)</th>
-            <th className="py-1 font-semibold">Hs max (m)</th>
-            <th>
-              <span className="sr-only">Remove</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {curve.map((p, i) => (
-            <tr key={i}>
-              <td className="py-1 text-ink-soft tabular-nums">{i + 1}</td>
-              <td className="py-1 pr-2">
-                <CellInput label={`Curve point ${i + 1} Tp, s`} value={p[0]} onValue={(t) => set(i, 0, t)} error={errorOf(`.${i}.0`)} className="!w-full" />
-              </td>
-              <td className="py-1 pr-2">
-                <CellInput label={`Curve point ${i + 1} Hs max, m`} value={p[1]} onValue={(t) => set(i, 1, t)} error={errorOf(`.${i}.1`)} className="!w-full" />
-              </td>
-              <td className="py-1">
-                <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => onChange(curve.filter((_, r) => r !== i))} aria-label={`Remove curve point ${i + 1}`} title="Remove this point">
-                  Remove
-                </Button>
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <div className="flex flex-wrap gap-2">
-        <Button variant="secondary" onClick={add}>
-          + Point
-        </Button>
-        <Button variant="ghost" onClick={() => onChange([])}>
-          Remove the curve
-        </Button>
-      </div>
-      <GridErrors messages={messages} />
-    </div>
-  );
-}
-
-/** Excluded Tp bands (closed: both edges excluded), e.g. a vessel's roll resonance. */
-function BandsEditor({
-  bands,
-  onChange,
-  errorOf,
-}: {
-  bands: [string, string][];
-  onChange: (next: [string, string][]) => void;
-  errorOf: (suffix: string) => string | undefined;
-}) {
-  const set = (i: number, k: 0 | 1, text: string) => onChange(bands.map((p, r) => (r === i ? (k === 0 ? [text, p[1]] : [p[0], text]) : p)));
-  const messages: { where: string; message: string }[] = [];
-  bands.forEach((_, i) => {
-    for (const [suffix, where] of [
-      [`.${i}`, `Band ${i + 1}`],
-      [`.${i}.0`, `Band ${i + 1} from`],
-      [`.${i}.1`, `Band ${i + 1} to`],
-    ] as const) {
-      const m = errorOf(suffix);
-      if (m) messages.push({ where, message: m });
-    }
-  });
-  return (
-    <div className="flex flex-col gap-2">
-      <span className="text-sm font-semibold">Excluded Tp bands</span>
-      <p className="text-xs text-ink-soft">No-go when Tp is inside a band, both edges included, e.g. a vessel’s roll resonance.</p>
-      {bands.length > 0 ? (
-        <ul className="flex flex-col gap-2">
-          {bands.map((b, i) => (
-            <li key={i} className="flex flex-wrap items-center gap-2 text-sm">
-              <span className="w-14 text-ink-soft">Band {i + 1}</span>
-              <CellInput label={`Excluded band ${i + 1} from, s`} value={b[0]} onValue={(t) => set(i, 0, t)} error={errorOf(`.${i}.0`) ?? errorOf(`.${i}`)} className="!w-20" />
-              <span aria-hidden>–</span>
-              <CellInput label={`Excluded band ${i + 1} to, s`} value={b[1]} onValue={(t) => set(i, 1, t)} error={errorOf(`.${i}.1`) ?? errorOf(`.${i}`)} className="!w-20" />
-              <span className="text-ink-soft">s</span>
-              <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => onChange(bands.filter((_, r) => r !== i))} aria-label={`Remove excluded band ${i + 1}`} title="Remove this band">
-                Remove
-              </Button>
-            </li>
-          ))}
-        </ul>
-      ) : null}
-      <div>
-        <Button variant="secondary" onClick={() => onChange([...bands, ['', '']])}>
-          + Excluded band
-        </Button>
-      </div>
-      <GridErrors messages={messages} />
-    </div>
   );
 }

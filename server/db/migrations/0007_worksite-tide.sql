@@ -1,0 +1,1 @@
+ALTER TABLE "worksite" ADD COLUMN "tide" jsonb;

@@ -1,0 +1,34 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api';
+
+/** The predicted tide at a worksite (GET …/sites/:siteId/tide; docs/domain.md#tide). */
+export interface TideAnswer {
+  times: string[];
+  /** m above chart datum */
+  waterLevel: number[];
+  extremes: { time: string; level: number; kind: 'high' | 'low' }[];
+  datum: string;
+  station: { name: string; distanceKm: number | null; datum: string | null; source: string; attribution: string; warnings: string[] } | null;
+  stepMinutes: number;
+  cautions: string[];
+}
+
+export interface TideParams {
+  projectId: string;
+  siteId: string;
+  from: string;
+  to: string;
+}
+
+export function getTide({ projectId, siteId, from, to }: TideParams): Promise<TideAnswer> {
+  return api<TideAnswer>(`/api/projects/${projectId}/sites/${siteId}/tide?${new URLSearchParams({ from, to })}`);
+}
+
+export const tideQueryOptions = (p: TideParams) =>
+  queryOptions({
+    queryKey: ['projects', p.projectId, 'tide', p.siteId, { from: p.from, to: p.to }],
+    queryFn: () => getTide({ projectId: p.projectId, siteId: p.siteId, from: p.from, to: p.to }),
+    staleTime: 60 * 60_000,
+  });
+
+export const useTide = (p: TideParams, enabled = true) => useQuery({ ...tideQueryOptions(p), enabled });

@@ -1,0 +1,54 @@
+import { Button } from '../../../components/ui';
+import { CellInput, GridErrors } from './form-bits';
+
+/** Excluded Tp bands (closed: both edges excluded), e.g. a vessel's roll resonance. */
+export function BandsEditor({
+  bands,
+  onChange,
+  errorOf,
+}: {
+  bands: [string, string][];
+  onChange: (next: [string, string][]) => void;
+  errorOf: (suffix: string) => string | undefined;
+}) {
+  const set = (i: number, k: 0 | 1, text: string) => onChange(bands.map((p, r) => (r === i ? (k === 0 ? [text, p[1]] : [p[0], text]) : p)));
+  const messages: { where: string; message: string }[] = [];
+  bands.forEach((_, i) => {
+    for (const [suffix, where] of [
+      [`.${i}`, `Band ${i + 1}`],
+      [`.${i}.0`, `Band ${i + 1} from`],
+      [`.${i}.1`, `Band ${i + 1} to`],
+    ] as const) {
+      const m = errorOf(suffix);
+      if (m) messages.push({ where, message: m });
+    }
+  });
+  return (
+    <div className="flex flex-col gap-2">
+      <span className="text-sm font-semibold">Excluded Tp bands</span>
+      <p className="text-xs text-ink-soft">No-go when Tp is inside a band, both edges included, e.g. a vessel’s roll resonance.</p>
+      {bands.length > 0 ? (
+        <ul className="flex flex-col gap-2">
+          {bands.map((b, i) => (
+            <li key={i} className="flex flex-wrap items-center gap-2 text-sm">
+              <span className="w-14 text-ink-soft">Band {i + 1}</span>
+              <CellInput label={`Excluded band ${i + 1} from, s`} value={b[0]} onValue={(t) => set(i, 0, t)} error={errorOf(`.${i}.0`) ?? errorOf(`.${i}`)} className="!w-20" />
+              <span aria-hidden>–</span>
+              <CellInput label={`Excluded band ${i + 1} to, s`} value={b[1]} onValue={(t) => set(i, 1, t)} error={errorOf(`.${i}.1`) ?? errorOf(`.${i}`)} className="!w-20" />
+              <span className="text-ink-soft">s</span>
+              <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => onChange(bands.filter((_, r) => r !== i))} aria-label={`Remove excluded band ${i + 1}`} title="Remove this band">
+                Remove
+              </Button>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <div>
+        <Button variant="secondary" onClick={() => onChange([...bands, ['', '']])}>
+          + Excluded band
+        </Button>
+      </div>
+      <GridErrors messages={messages} />
+    </div>
+  );
+}
