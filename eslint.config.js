@@ -30,10 +30,25 @@ const BROWSER_ONLY_GLOBALS = ['window', 'document', 'navigator', 'localStorage',
  */
 export function lullwatchConfig(rootDir) {
   const featuresDir = path.join(rootDir, 'src/features');
-  const features = fs.existsSync(featuresDir) ? fs.readdirSync(featuresDir, { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name) : [];
+  const features = fs.existsSync(featuresDir)
+    ? fs
+        .readdirSync(featuresDir, { withFileTypes: true })
+        .filter((d) => d.isDirectory())
+        .map((d) => d.name)
+    : [];
 
   return tseslint.config(
-    { ignores: ['dist/**', 'data/**', 'node_modules/**', 'server/db/migrations/**', 'tests/.artifacts/**', 'tests/lint-fixtures/**', 'bench/.out/**'] },
+    {
+      ignores: [
+        'dist/**',
+        'data/**',
+        'node_modules/**',
+        'server/db/migrations/**',
+        'tests/.artifacts/**',
+        'tests/lint-fixtures/**',
+        'bench/.out/**',
+      ],
+    },
     js.configs.recommended,
     ...tseslint.configs.recommended,
     {
@@ -94,7 +109,10 @@ export function lullwatchConfig(rootDir) {
     {
       files: ['shared/**/*.ts'],
       rules: {
-        'no-restricted-imports': ['error', { patterns: ['react', 'react-dom', 'react/*', 'express', 'drizzle-orm', 'drizzle-orm/*', 'node:*'] }],
+        'no-restricted-imports': [
+          'error',
+          { patterns: ['react', 'react-dom', 'react/*', 'express', 'drizzle-orm', 'drizzle-orm/*', 'node:*'] },
+        ],
       },
     },
     {
@@ -103,7 +121,10 @@ export function lullwatchConfig(rootDir) {
       files: ['server/**/*.{ts,tsx}'],
       ignores: ['server/composition-root.ts'],
       rules: {
-        'no-restricted-imports': ['error', { patterns: [{ group: ['**/jobs/**', '**/seed/**'], message: 'Only server/composition-root.ts wires in jobs/ and seed/.' }] }],
+        'no-restricted-imports': [
+          'error',
+          { patterns: [{ group: ['**/jobs/**', '**/seed/**'], message: 'Only server/composition-root.ts wires in jobs/ and seed/.' }] },
+        ],
       },
     },
     {

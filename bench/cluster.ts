@@ -39,7 +39,19 @@ import { startFakeSmtp, type FakeSmtp } from '../server/mail/fake-smtp';
 import { openDatabase, type Database } from '../server/db/client';
 import { enqueueMail } from '../server/services/outbox';
 import { SESSION_CACHE_MS } from '../server/http/session-cache';
-import { call, createUsers, expectOk, ms, pageRequests, percentile, runCannon, signIn, sleep, type LoadUser, type PageRequest } from './lib/load-common';
+import {
+  call,
+  createUsers,
+  expectOk,
+  ms,
+  pageRequests,
+  percentile,
+  runCannon,
+  signIn,
+  sleep,
+  type LoadUser,
+  type PageRequest,
+} from './lib/load-common';
 import { RoundRobinProxy } from './lib/round-robin-proxy';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
@@ -209,7 +221,9 @@ async function measuredRun(
     await startInstance(victim, env);
     while (!proxy!.isUp(victim.name)) await sleep(50);
     upAgainAt = Date.now();
-    console.log(`  ${((upAgainAt - t0) / 1000).toFixed(1)} s: instance ${victim.name} is up again in the proxy (${((upAgainAt - restartedAt) / 1000).toFixed(1)} s after its start)`);
+    console.log(
+      `  ${((upAgainAt - t0) / 1000).toFixed(1)} s: instance ${victim.name} is up again in the proxy (${((upAgainAt - restartedAt) / 1000).toFixed(1)} s after its start)`,
+    );
   })();
   const result = await runCannon(proxyUrl, users, requests, DURATION_S, null, overallRate, {
     onStart: (i) => (cannon = i),
@@ -292,7 +306,9 @@ async function main(): Promise<void> {
   // Both at once: one migrates and seeds under the start-up lock, the other waits for it.
   await Promise.all(specs.map((s) => startInstance(s, env)));
   const bothUpAt = Date.now();
-  console.log(`Instances A (port ${specs[0].port}) and B (port ${specs[1].port}) ready after ${((bothUpAt - t0) / 1000).toFixed(1)} s (migrations and demo seed by one of them)`);
+  console.log(
+    `Instances A (port ${specs[0].port}) and B (port ${specs[1].port}) ready after ${((bothUpAt - t0) / 1000).toFixed(1)} s (migrations and demo seed by one of them)`,
+  );
   proxy = new RoundRobinProxy(specs.map((s) => ({ name: s.name, host: '127.0.0.1', port: s.port })));
   await proxy.listen(proxyPort);
   console.log(`Proxy at ${proxyUrl}`);
@@ -305,15 +321,28 @@ async function main(): Promise<void> {
   if (!demo) throw new Error('no demo project');
   // Three more projects on the forecast service: the planning job plans four per tick.
   for (let i = 1; i <= 3; i++) {
-    const p = await expectOk<{ id: string }>(proxyUrl, 'POST', '/api/projects', { cookie: adminCookie, body: { name: `Cluster bench project ${i}` } });
+    const p = await expectOk<{ id: string }>(proxyUrl, 'POST', '/api/projects', {
+      cookie: adminCookie,
+      body: { name: `Cluster bench project ${i}` },
+    });
     await expectOk(proxyUrl, 'PUT', `/api/projects/${p.id}/settings`, {
       cookie: adminCookie,
-      body: { name: `Cluster bench project ${i}`, description: '', dataPointName: `Point ${i}`, dataPointLatitude: 54 + i / 10, dataPointLongitude: 1 + i / 10, dataPointDepthM: 40, forecastSource: 'service' },
+      body: {
+        name: `Cluster bench project ${i}`,
+        description: '',
+        dataPointName: `Point ${i}`,
+        dataPointLatitude: 54 + i / 10,
+        dataPointLongitude: 1 + i / 10,
+        dataPointDepthM: 40,
+        forecastSource: 'service',
+      },
     });
   }
   const t1 = Date.now();
   const users = await createUsers(proxyUrl, demo.id, adminCookie, CONNECTIONS);
-  console.log(`Created ${users.length} users in "${demo.name}" through the proxy and signed each in, ${((Date.now() - t1) / 1000).toFixed(1)} s`);
+  console.log(
+    `Created ${users.length} users in "${demo.name}" through the proxy and signed each in, ${((Date.now() - t1) / 1000).toFixed(1)} s`,
+  );
 
   // Sessions across instances (before the load, both up).
   console.log('\nSessions across instances');
@@ -370,7 +399,15 @@ async function main(): Promise<void> {
     while (feeding) {
       const batch = Array.from({ length: 3 }, () => {
         const i = ++mailN;
-        return { idempotencyKey: `cluster-bench:${i}`, projectId: null, userId: null, toEmail: `reader-${i}@example.com`, subject: `Bench message ${i}`, text: `Message ${i}`, html: `<p>Message ${i}</p>` };
+        return {
+          idempotencyKey: `cluster-bench:${i}`,
+          projectId: null,
+          userId: null,
+          toEmail: `reader-${i}@example.com`,
+          subject: `Bench message ${i}`,
+          text: `Message ${i}`,
+          html: `<p>Message ${i}</p>`,
+        };
       });
       await enqueueMail(benchDb!.db, batch, new Date());
       await sleep(2000);
@@ -381,7 +418,9 @@ async function main(): Promise<void> {
   console.log(`\nClosed loop: ${DURATION_S} s through the proxy`);
   const closed = await measuredRun('Closed loop', proxyUrl, users, requests, specs[1], env);
   const rate = requests.length / PAGE_EVERY_S;
-  console.log(`\nPaced: ${DURATION_S} s, each user opens both pages every ${PAGE_EVERY_S} s (${(rate * users.length).toFixed(0)} requests/s in all)`);
+  console.log(
+    `\nPaced: ${DURATION_S} s, each user opens both pages every ${PAGE_EVERY_S} s (${(rate * users.length).toFixed(0)} requests/s in all)`,
+  );
   const paced = await measuredRun('Paced', proxyUrl, users, requests, specs[0], env, Math.max(1, Math.round(rate * users.length)));
   const loadEnd = Date.now();
   feeding = false;
@@ -390,10 +429,19 @@ async function main(): Promise<void> {
   printRun(closed);
   printRun(paced);
   const stats = proxy.stats;
-  console.log(`\nProxy: answered by A ${stats.answeredBy.A}, by B ${stats.answeredBy.B}; retried ${stats.retried} (${stats.retriedOk} then answered); failed ${stats.failures.length}; sent with no instance passing its health checks ${stats.failOpen}`);
-  for (const k of stats.kills) console.log(`  kill of ${k.backend}: ${k.inFlight} requests in flight on it, ${k.sentWhileDying} more sent to it before its process had exited`);
+  console.log(
+    `\nProxy: answered by A ${stats.answeredBy.A}, by B ${stats.answeredBy.B}; retried ${stats.retried} (${stats.retriedOk} then answered); failed ${stats.failures.length}; sent with no instance passing its health checks ${stats.failOpen}`,
+  );
+  for (const k of stats.kills)
+    console.log(
+      `  kill of ${k.backend}: ${k.inFlight} requests in flight on it, ${k.sentWhileDying} more sent to it before its process had exited`,
+    );
   const byReason = new Map<string, number>();
-  for (const f of stats.failures) byReason.set(`${f.method} on ${f.backend}: ${f.reason}${f.inFlightAtKill ? ' (in flight at the kill)' : ''}`, (byReason.get(`${f.method} on ${f.backend}: ${f.reason}${f.inFlightAtKill ? ' (in flight at the kill)' : ''}`) ?? 0) + 1);
+  for (const f of stats.failures)
+    byReason.set(
+      `${f.method} on ${f.backend}: ${f.reason}${f.inFlightAtKill ? ' (in flight at the kill)' : ''}`,
+      (byReason.get(`${f.method} on ${f.backend}: ${f.reason}${f.inFlightAtKill ? ' (in flight at the kill)' : ''}`) ?? 0) + 1,
+    );
   for (const [k, v] of byReason) console.log(`  ${v} × ${k}`);
 
   // Mail: wait for the outbox to empty (a message claimed by the killed instance is due again a
@@ -412,12 +460,21 @@ async function main(): Promise<void> {
   console.log('\nChecks');
   const figs = [closed, paced].map((r) => ({ r, f: phaseFigures(r) }));
   for (const { r, f } of figs) {
-    for (const p of f) check(`${r.label}, ${p.name}: p99 under ${AIM_P99_MS} ms`, p.p99 < AIM_P99_MS, `${p.rate.toFixed(1)} requests/s, p50 ${ms(p.p50)}, p99 ${ms(p.p99)}`);
+    for (const p of f)
+      check(
+        `${r.label}, ${p.name}: p99 under ${AIM_P99_MS} ms`,
+        p.p99 < AIM_P99_MS,
+        `${p.rate.toFixed(1)} requests/s, p50 ${ms(p.p50)}, p99 ${ms(p.p99)}`,
+      );
     const before = f[0].rate;
     const down = f[1].rate;
     const again = f[2].rate;
     check(`${r.label}: answers go on with one instance down`, down > 0, `${down.toFixed(1)} requests/s`);
-    check(`${r.label}: throughput after the restart at least ${RECOVERY_SHARE * 100}% of before the kill`, again >= before * RECOVERY_SHARE, `${again.toFixed(1)} against ${before.toFixed(1)} requests/s`);
+    check(
+      `${r.label}: throughput after the restart at least ${RECOVERY_SHARE * 100}% of before the kill`,
+      again >= before * RECOVERY_SHARE,
+      `${again.toFixed(1)} against ${before.toFixed(1)} requests/s`,
+    );
   }
 
   // Errors: every failure the users saw is a request that was in flight on the killed instance.
@@ -472,8 +529,7 @@ async function main(): Promise<void> {
       else if (c.done === 0) {
         missing++;
         if (busyAt(tick * periodMs)) missingBusy++;
-      }
-      else twice++;
+      } else twice++;
     }
   }
   check(
@@ -497,9 +553,18 @@ async function main(): Promise<void> {
     `${outboxRows.length} in the outbox (${mailN} written by the bench), ${caught.size} distinct Message-IDs caught, ${dup} caught twice or more, ${unsent.length} never caught; ${pending === 0 ? 'outbox empty' : `${pending} not sent`}`,
   );
 
-  console.log(`\nLoad ${((loadEnd - loadStart) / 1000).toFixed(0)} s; load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')} at the end`);
+  console.log(
+    `\nLoad ${((loadEnd - loadStart) / 1000).toFixed(0)} s; load average ${os
+      .loadavg()
+      .map((x) => x.toFixed(1))
+      .join(' ')} at the end`,
+  );
   const notMet = checks.filter((c) => !c.ok);
-  console.log(notMet.length === 0 ? 'Every check met.' : `${notMet.length} of ${checks.length} checks NOT met: ${notMet.map((c) => c.name).join('; ')}`);
+  console.log(
+    notMet.length === 0
+      ? 'Every check met.'
+      : `${notMet.length} of ${checks.length} checks NOT met: ${notMet.map((c) => c.name).join('; ')}`,
+  );
 }
 
 let failed = false;

@@ -34,8 +34,24 @@ export async function measureColdStart(years?: number): Promise<ColdStartResult>
   const port = await freePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-cold-'));
   const env: NodeJS.ProcessEnv = { ...process.env };
-  for (const key of ['DATABASE_URL', 'FORECAST_URL', 'FORECAST_API_KEY', 'SMTP_URL', 'BETTER_AUTH_SECRET', 'PLAN_CRON', 'DEMO_HINDCAST_YEARS']) delete env[key];
-  Object.assign(env, { NODE_ENV: 'production', PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dataDir, JOBS_ENABLED: 'false', SEED_DEMO: 'true' });
+  for (const key of [
+    'DATABASE_URL',
+    'FORECAST_URL',
+    'FORECAST_API_KEY',
+    'SMTP_URL',
+    'BETTER_AUTH_SECRET',
+    'PLAN_CRON',
+    'DEMO_HINDCAST_YEARS',
+  ])
+    delete env[key];
+  Object.assign(env, {
+    NODE_ENV: 'production',
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    DATA_DIR: dataDir,
+    JOBS_ENABLED: 'false',
+    SEED_DEMO: 'true',
+  });
   if (years !== undefined) env.DEMO_HINDCAST_YEARS = String(years);
   const t0 = performance.now();
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
@@ -47,7 +63,8 @@ export async function measureColdStart(years?: number): Promise<ColdStartResult>
   child.stderr.on('data', onData);
   try {
     for (;;) {
-      if (child.exitCode !== null || child.signalCode !== null) throw new Error(`the server exited during start:\n${lines.map((l) => l.text).join('\n')}`);
+      if (child.exitCode !== null || child.signalCode !== null)
+        throw new Error(`the server exited during start:\n${lines.map((l) => l.text).join('\n')}`);
       if (performance.now() - t0 > 10 * 60_000) throw new Error('the server did not answer within 10 minutes');
       try {
         if ((await fetch(`http://127.0.0.1:${port}/api/health`)).ok) break;

@@ -79,13 +79,50 @@ export function syntheticSeries(seed: number): SiteSeries {
 const OPERATIONS: OperationSpec[] = [
   { tpopH: 6, tcH: 6, weatherRestricted: true, limits: { hsMax: 1.5 } },
   { tpopH: 12, tcH: 6, weatherRestricted: true, limits: { hsMax: 2, windMax: 15 } },
-  { tpopH: 24, tcH: 12, weatherRestricted: true, limits: { hsTpCurve: [[4, 1.2], [8, 2.0], [12, 1.6], [16, 1.0]] } },
+  {
+    tpopH: 24,
+    tcH: 12,
+    weatherRestricted: true,
+    limits: {
+      hsTpCurve: [
+        [4, 1.2],
+        [8, 2.0],
+        [12, 1.6],
+        [16, 1.0],
+      ],
+    },
+  },
   { tpopH: 36, tcH: 12, weatherRestricted: true, limits: { hsMax: 2.5, tpMin: 4, tpMax: 14, tpExcluded: [[9, 10.5]] } },
   { tpopH: 48, tcH: 24, weatherRestricted: true, limits: { hsMax: 3, bedVelocityMax: 0.5, bedVelocityMethod: 'linear' } },
   { tpopH: 4, tcH: 2, weatherRestricted: false, limits: { windMax: 12 } },
   { tpopH: 72, tcH: 24, weatherRestricted: false, limits: { hsMax: 2.2, bedVelocityMax: 0.45, bedVelocityMethod: 'soulsby' } },
-  { tpopH: 8, tcH: 4, weatherRestricted: true, limits: { hsTpCurve: [[3, 1], [6, 1.8], [10, 1.8], [14, 1.2]], windMax: 14 } },
-  { tpopH: 18, tcH: 6, weatherRestricted: true, limits: { hsMax: 1.8, tpExcluded: [[6, 7], [11, 12.5]], tpMax: 15 } },
+  {
+    tpopH: 8,
+    tcH: 4,
+    weatherRestricted: true,
+    limits: {
+      hsTpCurve: [
+        [3, 1],
+        [6, 1.8],
+        [10, 1.8],
+        [14, 1.2],
+      ],
+      windMax: 14,
+    },
+  },
+  {
+    tpopH: 18,
+    tcH: 6,
+    weatherRestricted: true,
+    limits: {
+      hsMax: 1.8,
+      tpExcluded: [
+        [6, 7],
+        [11, 12.5],
+      ],
+      tpMax: 15,
+    },
+  },
   { tpopH: 30, tcH: 10, weatherRestricted: true, limits: { hsMax: 2.8, tpMin: 5, windMax: 18, bedVelocityMax: 0.6 } },
 ];
 

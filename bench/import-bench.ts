@@ -51,7 +51,12 @@ export async function runImportBench() {
   const deps = {
     db: database.db,
     database,
-    auth: createAuth(database.db, { secret: 'bench-secret-bench-secret-bench-secret', baseURL: origin, trustedOrigins: [origin], secureCookies: false }),
+    auth: createAuth(database.db, {
+      secret: 'bench-secret-bench-secret-bench-secret',
+      baseURL: origin,
+      trustedOrigins: [origin],
+      secureCookies: false,
+    }),
     clock: () => new Date(),
     log: silentLogger,
     forecast: forecast.provider,
@@ -82,7 +87,14 @@ export async function runImportBench() {
   }
   // Issue 6: all monthly statistics for 30 years hourly, five worksites, ten operations, cold,
   // server side (read, transform per worksite, engine, cache write), through the service.
-  await database.db.insert(worksite).values({ projectId: demo.projectId, name: 'Bench berth', depthM: 12, shoreNormalDeg: 240, breakerIndex: 0.6, timeZone: 'Europe/London' });
+  await database.db.insert(worksite).values({
+    projectId: demo.projectId,
+    name: 'Bench berth',
+    depthM: 12,
+    shoreNormalDeg: 240,
+    breakerIndex: 0.6,
+    timeZone: 'Europe/London',
+  });
   const extra = [1.0, 1.25, 1.75, 2.25, 2.5].map((hs, i) => ({
     projectId: demo.projectId,
     name: `Bench operation ${i + 1}`,

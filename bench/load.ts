@@ -24,12 +24,33 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import autocannon from 'autocannon';
 import { buildClientIfStale } from '../scripts/lib/client-build';
 import { freePort } from '../scripts/lib/free-port';
-import { createUsers, call, expectOk, ms, pageRequests, percentile, ROLES, runCannon as runCannonWith, signIn, sleep, type EndpointStats, type LoadUser, type PageRequest } from './lib/load-common';
+import {
+  createUsers,
+  call,
+  expectOk,
+  ms,
+  pageRequests,
+  percentile,
+  ROLES,
+  runCannon as runCannonWith,
+  signIn,
+  sleep,
+  type EndpointStats,
+  type LoadUser,
+  type PageRequest,
+} from './lib/load-common';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 
 /** autocannon through the shared runner, kept in `cannon` so a stop signal ends it. */
-function runCannon(baseUrl: string, users: LoadUser[], requests: PageRequest[], seconds: number, stats: Map<string, EndpointStats> | null, overallRate?: number) {
+function runCannon(
+  baseUrl: string,
+  users: LoadUser[],
+  requests: PageRequest[],
+  seconds: number,
+  stats: Map<string, EndpointStats> | null,
+  overallRate?: number,
+) {
   return runCannonWith(baseUrl, users, requests, seconds, stats, overallRate, { onStart: (i) => (cannon = i) });
 }
 const DEMO_PASSWORD = 'lullwatch-demo';
@@ -109,7 +130,11 @@ async function startServer(): Promise<Server> {
   });
   // Node itself with tsx as a loader (not the tsx command), so the pid is the server's.
   const profile = args.profile ? ['--cpu-prof', '--cpu-prof-dir', path.resolve(args.profile)] : [];
-  const child = spawn(process.execPath, [...profile, '--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, [...profile, '--import', 'tsx', 'server/index.ts'], {
+    cwd: ROOT,
+    env,
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   if (child.pid === undefined) throw new Error('the server did not start');
   let out = '';
   child.stdout!.on('data', (d) => (out += d));
@@ -175,7 +200,6 @@ function rssMiB(pid: number): number | null {
 
 const mib = (x: number | null) => (x === null ? 'n/a' : `${x.toFixed(0)} MiB`);
 
-
 // ---------------------------------------------------------------------------------------------
 
 async function main(): Promise<void> {
@@ -198,7 +222,9 @@ async function main(): Promise<void> {
   const t0 = Date.now();
   const users = await createUsers(s.baseUrl, demo.id, adminCookie, CONNECTIONS);
   const byRole = ROLES.filter((r, i) => ROLES.indexOf(r) === i).map((r) => `${users.filter((u) => u.role === r).length} ${r}s`);
-  console.log(`Created ${users.length} users in "${demo.name}" (${byRole.join(', ')}) and signed each in, ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+  console.log(
+    `Created ${users.length} users in "${demo.name}" (${byRole.join(', ')}) and signed each in, ${((Date.now() - t0) / 1000).toFixed(1)} s`,
+  );
 
   const requests = await pageRequests(s.baseUrl, demo.id, users[0].cookie);
   console.log(`Each connection loops over ${requests.length} requests:`);
@@ -251,10 +277,16 @@ async function main(): Promise<void> {
   const steady = rssAfterWarmup !== null && rssEnd !== null ? rssEnd <= rssAfterWarmup * (1 + STEADY_SHARE) : null;
 
   console.log('\nResults (measured run)');
-  console.log(`  requests/s      mean ${result.requests.average.toFixed(1)} (total ${result.requests.total} in ${result.duration.toFixed(1)} s)`);
-  console.log(`  latency         p50 ${ms(result.latency.p50)}, p97.5 ${ms(result.latency.p97_5)}, p99 ${ms(p99)}, max ${ms(result.latency.max)}, mean ${result.latency.average.toFixed(1)} ms`);
+  console.log(
+    `  requests/s      mean ${result.requests.average.toFixed(1)} (total ${result.requests.total} in ${result.duration.toFixed(1)} s)`,
+  );
+  console.log(
+    `  latency         p50 ${ms(result.latency.p50)}, p97.5 ${ms(result.latency.p97_5)}, p99 ${ms(p99)}, max ${ms(result.latency.max)}, mean ${result.latency.average.toFixed(1)} ms`,
+  );
   console.log(`  errors          ${result.errors} (timeouts ${result.timeouts}), non-2xx ${result.non2xx}`);
-  console.log(`  server RSS      before warm-up ${mib(rssBeforeWarmup)}, after warm-up ${mib(rssAfterWarmup)}, peak ${mib(peak)}, end ${mib(rssEnd)}`);
+  console.log(
+    `  server RSS      before warm-up ${mib(rssBeforeWarmup)}, after warm-up ${mib(rssAfterWarmup)}, peak ${mib(peak)}, end ${mib(rssEnd)}`,
+  );
   console.log(`  load average    ${loadAtStart.toFixed(1)} at start, ${loadAtEnd.toFixed(1)} at end (1 minute)`);
 
   console.log('\nPer request (latency as autocannon measured it, one connection per user)');
@@ -269,10 +301,16 @@ async function main(): Promise<void> {
 
   // The paced run: requests per second per connection so that each user sends both pages' requests once per PAGE_EVERY_S.
   const rate = requests.length / PAGE_EVERY_S;
-  console.log(`\nPaced run: ${DURATION_S} s, each user opens both pages every ${PAGE_EVERY_S} s (${rate.toFixed(2)} requests/s per user, ${(rate * users.length).toFixed(0)}/s in all)...`);
+  console.log(
+    `\nPaced run: ${DURATION_S} s, each user opens both pages every ${PAGE_EVERY_S} s (${rate.toFixed(2)} requests/s per user, ${(rate * users.length).toFixed(0)}/s in all)...`,
+  );
   const paced = await runCannon(s.baseUrl, users, requests, DURATION_S, null, Math.max(1, Math.round(rate * users.length)));
-  console.log(`  requests/s      mean ${paced.requests.average.toFixed(1)} (total ${paced.requests.total} in ${paced.duration.toFixed(1)} s)`);
-  console.log(`  latency         p50 ${ms(paced.latency.p50)}, p97.5 ${ms(paced.latency.p97_5)}, p99 ${ms(paced.latency.p99)}, max ${ms(paced.latency.max)}, mean ${paced.latency.average.toFixed(1)} ms`);
+  console.log(
+    `  requests/s      mean ${paced.requests.average.toFixed(1)} (total ${paced.requests.total} in ${paced.duration.toFixed(1)} s)`,
+  );
+  console.log(
+    `  latency         p50 ${ms(paced.latency.p50)}, p97.5 ${ms(paced.latency.p97_5)}, p99 ${ms(paced.latency.p99)}, max ${ms(paced.latency.max)}, mean ${paced.latency.average.toFixed(1)} ms`,
+  );
   console.log(`  errors          ${paced.errors} (timeouts ${paced.timeouts}), non-2xx ${paced.non2xx}`);
 
   const heavy = await heavyRun(s.baseUrl, demo.id, adminCookie, users, requests);
@@ -285,7 +323,9 @@ async function main(): Promise<void> {
   console.log(
     `  /api/me p99 under ${AIM_HEAVY_ME_P99_MS} ms beside cold heavy work: ${mark(heavy.meP99 < AIM_HEAVY_ME_P99_MS && heavy.computations > 0)} (${ms(heavy.meP99)}, ${heavy.computations} cold computations)`,
   );
-  console.log(`  no errors, timeouts or non-2xx (closed loop, paced, heavy): ${mark(errorsMet && pacedFailures === 0 && heavy.failures === 0)} (${failures}, ${pacedFailures}, ${heavy.failures})`);
+  console.log(
+    `  no errors, timeouts or non-2xx (closed loop, paced, heavy): ${mark(errorsMet && pacedFailures === 0 && heavy.failures === 0)} (${failures}, ${pacedFailures}, ${heavy.failures})`,
+  );
   console.log(`  memory steady (end RSS within ${STEADY_SHARE * 100}% of the RSS after warm-up): ${mark(steady)}`);
 }
 
@@ -304,7 +344,9 @@ async function heavyRun(
   requests: PageRequest[],
 ): Promise<{ meP99: number; computations: number; failures: number }> {
   const p = `/api/projects/${projectId}`;
-  const ops = await expectOk<{ id: string; name: string; limits: Record<string, unknown> }[]>(baseUrl, 'GET', `${p}/operations`, { cookie: adminCookie });
+  const ops = await expectOk<{ id: string; name: string; limits: Record<string, unknown> }[]>(baseUrl, 'GET', `${p}/operations`, {
+    cookie: adminCookie,
+  });
   const op = ops.find((o) => typeof o.limits.hsMax === 'number');
   if (!op) throw new Error('the demo project has no operation with an Hs limit');
   const hsMax = op.limits.hsMax as number;
@@ -344,9 +386,15 @@ async function heavyRun(
     await worker;
   }
   times.sort((a, b) => a - b);
-  console.log(`  /api/me         requests ${result.requests.total}; latency p50 ${ms(result.latency.p50)}, p99 ${ms(result.latency.p99)}, max ${ms(result.latency.max)}`);
-  console.log(`  cold answers    ${computations} (workability and simulation), each p50 ${ms(percentile(times, 50))}, max ${ms(times[times.length - 1] ?? NaN)}`);
-  console.log(`  errors          ${result.errors} (timeouts ${result.timeouts}), non-2xx ${result.non2xx}; heavy requests failed ${failures}`);
+  console.log(
+    `  /api/me         requests ${result.requests.total}; latency p50 ${ms(result.latency.p50)}, p99 ${ms(result.latency.p99)}, max ${ms(result.latency.max)}`,
+  );
+  console.log(
+    `  cold answers    ${computations} (workability and simulation), each p50 ${ms(percentile(times, 50))}, max ${ms(times[times.length - 1] ?? NaN)}`,
+  );
+  console.log(
+    `  errors          ${result.errors} (timeouts ${result.timeouts}), non-2xx ${result.non2xx}; heavy requests failed ${failures}`,
+  );
   return { meP99: result.latency.p99, computations, failures: failures + result.errors + result.non2xx };
 }
 

@@ -28,7 +28,9 @@ export async function runNetcdfBench(): Promise<{ importMs: number; records: num
     const w0 = performance.now();
     const made = spawnSync(PYTHON, [SCRIPT, '--big', file], { encoding: 'utf8' });
     if (made.status !== 0) {
-      console.log(`netcdf import: skipped (${PYTHON} with netCDF4 could not write the file: ${(made.stderr || made.error?.message || '').trim().split('\n').pop()})`);
+      console.log(
+        `netcdf import: skipped (${PYTHON} with netCDF4 could not write the file: ${(made.stderr || made.error?.message || '').trim().split('\n').pop()})`,
+      );
       return null;
     }
     const records = Number(made.stdout.trim());
@@ -43,7 +45,12 @@ export async function runNetcdfBench(): Promise<{ importMs: number; records: num
     const deps = {
       db: database.db,
       database,
-      auth: createAuth(database.db, { secret: 'bench-secret-bench-secret-bench-secret', baseURL: origin, trustedOrigins: [origin], secureCookies: false }),
+      auth: createAuth(database.db, {
+        secret: 'bench-secret-bench-secret-bench-secret',
+        baseURL: origin,
+        trustedOrigins: [origin],
+        secureCookies: false,
+      }),
       clock: () => new Date(),
       log: silentLogger,
       forecast: forecast.provider,
@@ -53,7 +60,10 @@ export async function runNetcdfBench(): Promise<{ importMs: number; records: num
     try {
       const demo = await seedDemo(deps, { hindcastYears: 0, forecast: false });
       const agent = request.agent(createApp(deps));
-      await agent.post('/api/auth/sign-in/email').set('Origin', origin).send({ email: 'coordinator@example.com', password: 'lullwatch-demo' });
+      await agent
+        .post('/api/auth/sign-in/email')
+        .set('Origin', origin)
+        .send({ email: 'coordinator@example.com', password: 'lullwatch-demo' });
       const t0 = performance.now();
       const res = await agent
         .post(`/api/projects/${demo.projectId}/datasets`)
@@ -62,7 +72,8 @@ export async function runNetcdfBench(): Promise<{ importMs: number; records: num
         .field('dataPointDepth', 'deep')
         .attach('file', file);
       const importMs = performance.now() - t0;
-      if (res.status !== 201 || res.body.records !== records) throw new Error(`NetCDF import failed: ${res.status} ${res.text.slice(0, 300)}`);
+      if (res.status !== 201 || res.body.records !== records)
+        throw new Error(`NetCDF import failed: ${res.status} ${res.text.slice(0, 300)}`);
       console.log(
         `netcdf import: 30-year hourly CF point file (${records} records per variable, total and two partitions, wind u/v, ${(bytes / 1e6).toFixed(1)} MB NetCDF-4) through the API into an on-disk database: ${importMs.toFixed(0)} ms (aim < 10,000 ms; the file took ${(writeMs / 1000).toFixed(1)} s to write, not counted)\n` +
           `  partitions read: ${(res.body.netcdf?.partitionsRead ?? []).join(', ') || 'none'}`,

@@ -16,7 +16,13 @@ import {
   type StatisticsScratch,
   type StatusManyScratch,
 } from '../shared/engine/index';
-import { createSiteSeries, prepareSeaInput, transformToSite, type SiteGeometry, type SiteSeries as TransformedSeries } from '../shared/waves/index';
+import {
+  createSiteSeries,
+  prepareSeaInput,
+  transformToSite,
+  type SiteGeometry,
+  type SiteSeries as TransformedSeries,
+} from '../shared/waves/index';
 
 /** The peer's input and set-up in our terms. */
 export interface HindcastInput {
@@ -57,7 +63,14 @@ let buffers: RunBuffers | null = null;
 
 function runBuffers(n: number, sites: number, ops: number): RunBuffers {
   if (!buffers || buffers.n !== n) {
-    buffers = { n, sites: [], statuses: [], goStart: new Uint8Array(n), scratch: createStatisticsScratch(n), statusScratch: createStatusManyScratch(n) };
+    buffers = {
+      n,
+      sites: [],
+      statuses: [],
+      goStart: new Uint8Array(n),
+      scratch: createStatisticsScratch(n),
+      statusScratch: createStatusManyScratch(n),
+    };
   }
   while (buffers.sites.length < sites) buffers.sites.push(createSiteSeries(n));
   while (buffers.statuses.length < sites) buffers.statuses.push([]);
@@ -80,7 +93,11 @@ export function allPairs(input: HindcastInput): PairList {
  * operations in one evaluateStatusMany call, one calendar for the series, buffers reused from run
  * to run. `clock` times the stages (ms; default wall time).
  */
-export function runHindcastAllSites(input: HindcastInput, pairs: PairList = allPairs(input), clock: () => number = () => performance.now()): StageTimes {
+export function runHindcastAllSites(
+  input: HindcastInput,
+  pairs: PairList = allPairs(input),
+  clock: () => number = () => performance.now(),
+): StageTimes {
   const n = input.timeMs.length;
   const nOps = input.operations.length;
   const indices = [...new Set(pairs.map((p) => Math.floor(p / nOps)))];
@@ -117,7 +134,8 @@ export function runHindcastAllSites(input: HindcastInput, pairs: PairList = allP
     opsOf[k].forEach((o, j) => {
       const op = input.operations[o];
       const r = monthlyStatisticsWithGoStarts(s.timeMs, statuses[k][j], buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
-      for (const m of r.months) checksum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
+      for (const m of r.months)
+        checksum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
       for (const ym of r.yearMonths) checksum += (ym.wowP90Hours ?? 0) * 1e-6;
     });
   });
@@ -143,10 +161,15 @@ export class EnginePool {
   static async start(threads: number): Promise<EnginePool> {
     const url = new URL('./peer-worker.ts', import.meta.url);
     const workers = Array.from({ length: threads }, () => tsWorker(url));
-    await Promise.all(workers.map((w) => new Promise<void>((resolve, reject) => {
-      w.once('message', () => resolve());
-      w.once('error', reject);
-    })));
+    await Promise.all(
+      workers.map(
+        (w) =>
+          new Promise<void>((resolve, reject) => {
+            w.once('message', () => resolve());
+            w.once('error', reject);
+          }),
+      ),
+    );
     return new EnginePool(workers);
   }
 
@@ -155,7 +178,14 @@ export class EnginePool {
 
   async run(input: HindcastInput): Promise<StageTimes> {
     if (this.sharedFrom !== input) {
-      this.sharedInput = { ...input, timeMs: shared(input.timeMs), hs: shared(input.hs), tp: shared(input.tp), dir: shared(input.dir), wind: shared(input.wind) };
+      this.sharedInput = {
+        ...input,
+        timeMs: shared(input.timeMs),
+        hs: shared(input.hs),
+        tp: shared(input.tp),
+        dir: shared(input.dir),
+        wind: shared(input.wind),
+      };
       this.sharedFrom = input;
     }
     const work = this.sharedInput as HindcastInput;
@@ -177,7 +207,13 @@ export class EnginePool {
     );
     const total = performance.now() - t0;
     const slowest = (k: 'transform' | 'status' | 'statistics') => Math.max(...answers.map((a) => a[k]));
-    return { transform: slowest('transform'), status: slowest('status'), statistics: slowest('statistics'), total, checksum: answers.reduce((a, b) => a + b.checksum, 0) };
+    return {
+      transform: slowest('transform'),
+      status: slowest('status'),
+      statistics: slowest('statistics'),
+      total,
+      checksum: answers.reduce((a, b) => a + b.checksum, 0),
+    };
   }
 
   async close(): Promise<void> {

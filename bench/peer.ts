@@ -51,7 +51,8 @@ if (!Number.isInteger(RUNS) || RUNS < 1 || RUNS > 50) fail(1, `--runs must be a 
 const CPU = args.cpu === true;
 if (CPU && args.threads !== undefined && args.threads !== '1') fail(1, '--cpu runs ours on one thread: leave out --threads');
 const THREADS = CPU ? 1 : args.threads === undefined ? Math.min(os.availableParallelism(), 5) : Number(args.threads);
-if (!Number.isInteger(THREADS) || THREADS < 1 || THREADS > 16) fail(1, `--threads must be a whole number from 1 to 16 (got ${args.threads})`);
+if (!Number.isInteger(THREADS) || THREADS < 1 || THREADS > 16)
+  fail(1, `--threads must be a whole number from 1 to 16 (got ${args.threads})`);
 
 const peerPath = path.resolve(ROOT, args.peer ?? process.env.LULLWATCH_NUMPY_PEER ?? DEFAULT_PEER);
 const peerDir = path.dirname(peerPath);
@@ -73,9 +74,15 @@ function checkTools(): void {
   if (v.error || v.status !== 0) {
     fail(2, 'python3 is not installed. Install it with:\n  apt-get install -y python3 python3-numpy python3-scipy');
   }
-  const np = spawnSync('python3', ['-c', 'import numpy, scipy; print(numpy.__version__, scipy.__version__)'], { env: pyEnv, encoding: 'utf8' });
+  const np = spawnSync('python3', ['-c', 'import numpy, scipy; print(numpy.__version__, scipy.__version__)'], {
+    env: pyEnv,
+    encoding: 'utf8',
+  });
   if (np.status !== 0) {
-    fail(2, `python3 cannot import NumPy and SciPy (the peer needs both). Install them with:\n  apt-get install -y python3-numpy python3-scipy\n${np.stderr.trim()}`);
+    fail(
+      2,
+      `python3 cannot import NumPy and SciPy (the peer needs both). Install them with:\n  apt-get install -y python3-numpy python3-scipy\n${np.stderr.trim()}`,
+    );
   }
   if (!fs.existsSync(peerPath)) {
     fail(
@@ -84,7 +91,9 @@ function checkTools(): void {
         `Put bench_numpy.py (and its synthetic_sea.py) there, or name it with --peer PATH or LULLWATCH_NUMPY_PEER=PATH.`,
     );
   }
-  console.log(`python3 ${v.stdout.trim().replace(/^Python /, '')}, NumPy and SciPy ${np.stdout.trim()}; peer ${path.relative(ROOT, peerPath) || peerPath}`);
+  console.log(
+    `python3 ${v.stdout.trim().replace(/^Python /, '')}, NumPy and SciPy ${np.stdout.trim()}; peer ${path.relative(ROOT, peerPath) || peerPath}`,
+  );
 }
 
 interface PeerSetup {
@@ -103,7 +112,7 @@ function peerSetup(): PeerSetup {
     'm = u.module_from_spec(spec); spec.loader.exec_module(m)',
     'print(json.dumps({"sites": m.SITES, "ops": m.OPS, "d_src": m.D_SRC}))',
   ].join('\n');
-  return JSON.parse(python(['-c', code], 'reading the peer\'s SITES and OPS')) as PeerSetup;
+  return JSON.parse(python(['-c', code], "reading the peer's SITES and OPS")) as PeerSetup;
 }
 
 /** The peer's operations in our terms. Every one is weather-restricted (the peer applies alpha where the table covers it). */
@@ -213,7 +222,7 @@ async function main(): Promise<void> {
   const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-peer-'));
   try {
     const csv = path.join(tmp, 'peer-30y.csv');
-    python([peerPath, '--write-csv', csv], 'writing the peer\'s CSV');
+    python([peerPath, '--write-csv', csv], "writing the peer's CSV");
     const data = readPeerCsv(csv);
     const sites: SiteGeometry[] = setup.sites.map(([depthM, shoreNormalDeg, breakerIndex]) => ({ depthM, shoreNormalDeg, breakerIndex }));
     const operations = setup.ops.map(toOperation);
@@ -223,16 +232,22 @@ async function main(): Promise<void> {
         data.timeMs[data.timeMs.length - 1],
       )
         .toISOString()
-        .slice(0, 10)}), data point ${setup.d_src} m; ${sites.length} worksites x ${operations.length} operations (the peer's SITES and OPS)`,
+        .slice(
+          0,
+          10,
+        )}), data point ${setup.d_src} m; ${sites.length} worksites x ${operations.length} operations (the peer's SITES and OPS)`,
     );
     if (CPU) console.log('--cpu: every figure below is process CPU time (both sides on one thread), not wall time');
-    console.log(`Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads sharing the (worksite, operation) pairs`}; ${RUNS} runs, the first cold\n`);
+    console.log(
+      `Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads sharing the (worksite, operation) pairs`}; ${RUNS} runs, the first cold\n`,
+    );
 
     // Ours: the first run is the cold one (fresh process, and fresh workers when threads are used).
     const pool = THREADS > 1 ? await EnginePool.start(THREADS) : null;
     const ours: StageTimes[] = [];
     try {
-      for (let r = 0; r < RUNS; r++) ours.push(pool ? await pool.run(input) : runHindcastAllSites(input, undefined, CPU ? cpuClockMs : undefined));
+      for (let r = 0; r < RUNS; r++)
+        ours.push(pool ? await pool.run(input) : runHindcastAllSites(input, undefined, CPU ? cpuClockMs : undefined));
     } finally {
       await pool?.close();
     }
@@ -244,20 +259,30 @@ async function main(): Promise<void> {
     const peerBest = runPeer(RUNS);
 
     const f = (x: number) => `${x.toFixed(1).padStart(8)} ms`;
-    console.log(`${'stage'.padEnd(11)} ${'ours cold'.padStart(11)} ${'peer cold'.padStart(11)} ${'ratio'.padStart(6)}   ${`ours best/${RUNS}`.padStart(11)} ${`peer best/${RUNS}`.padStart(11)} ${'ratio'.padStart(6)}`);
+    console.log(
+      `${'stage'.padEnd(11)} ${'ours cold'.padStart(11)} ${'peer cold'.padStart(11)} ${'ratio'.padStart(6)}   ${`ours best/${RUNS}`.padStart(11)} ${`peer best/${RUNS}`.padStart(11)} ${'ratio'.padStart(6)}`,
+    );
     for (const s of STAGES) {
       console.log(
         `${s.padEnd(11)} ${f(oursCold[s])} ${f(peerCold[s])} ${(peerCold[s] / oursCold[s]).toFixed(2).padStart(5)}x   ${f(oursBest[s])} ${f(peerBest[s])} ${(peerBest[s] / oursBest[s]).toFixed(2).padStart(5)}x`,
       );
     }
-    if (pool) console.log(`(ours with worker threads: per-stage figures are the slowest worker's; the total is wall time, including handing the input over)`);
+    if (pool)
+      console.log(
+        `(ours with worker threads: per-stage figures are the slowest worker's; the total is wall time, including handing the input over)`,
+      );
     const ratioBest = peerBest.total / oursBest.total;
     const ratioCold = peerCold.total / oursCold.total;
     const mark = (ok: boolean) => (ok ? 'met' : 'NOT met');
     console.log(`\nAim: ours at least ${AIM_RATIO}x faster than the peer in total`);
     console.log(`  best of ${RUNS}: ${ratioBest.toFixed(2)}x: ${mark(ratioBest >= AIM_RATIO)}`);
     console.log(`  cold:      ${ratioCold.toFixed(2)}x: ${mark(ratioCold >= AIM_RATIO)}`);
-    console.log(`Load average at the end ${os.loadavg().map((x) => x.toFixed(1)).join(' ')} (both sides share the machine with whatever else runs)`);
+    console.log(
+      `Load average at the end ${os
+        .loadavg()
+        .map((x) => x.toFixed(1))
+        .join(' ')} (both sides share the machine with whatever else runs)`,
+    );
   } finally {
     fs.rmSync(tmp, { recursive: true, force: true });
   }

@@ -6,7 +6,12 @@ import { runImportBench } from './import-bench';
 import { runNetcdfBench } from './netcdf-bench';
 import { describeColdStart, measureColdStart } from './cold-start';
 
-console.log(`Lullwatch bench on ${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os.loadavg().map((x) => x.toFixed(1)).join(' ')}\n`);
+console.log(
+  `Lullwatch bench on ${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ')}\n`,
+);
 console.log(describeTransformBench(await runTransformBench()));
 console.log('');
 await runEngineBench();

@@ -21,7 +21,9 @@ async function viaServer(): Promise<boolean> {
   const info = liveClaim(env.DATA_DIR); // null when none runs, or the file was left by a killed server
   if (!info) return false;
   if (info.port === null) {
-    console.error(`A Lullwatch server (pid ${info.pid}) is starting on ${env.DATA_DIR} (migrations or the demo seed): run this again once it is up.`);
+    console.error(
+      `A Lullwatch server (pid ${info.pid}) is starting on ${env.DATA_DIR} (migrations or the demo seed): run this again once it is up.`,
+    );
     process.exit(2);
   }
   const res = await fetch(`http://127.0.0.1:${info.port}/api/internal/jobs/plan`, {
@@ -29,7 +31,9 @@ async function viaServer(): Promise<boolean> {
     headers: { 'content-type': 'application/json', 'x-lullwatch-job-token': info.jobToken },
     body: JSON.stringify(projectId ? { projectId } : {}),
   }).catch((err: Error) => {
-    console.error(`A Lullwatch server (pid ${info.pid}) holds ${env.DATA_DIR} but did not answer: ${err.message}. Refusing to open the database a second time.`);
+    console.error(
+      `A Lullwatch server (pid ${info.pid}) holds ${env.DATA_DIR} but did not answer: ${err.message}. Refusing to open the database a second time.`,
+    );
     process.exit(2);
   });
   if (!res.ok) {
@@ -63,17 +67,29 @@ if (!(await viaServer())) {
       {
         db: database.db,
         database,
-        auth: createAuth(database.db, { secret, baseURL: baseUrl, trustedOrigins: [baseUrl], secureCookies: baseUrl.startsWith('https://') }),
+        auth: createAuth(database.db, {
+          secret,
+          baseURL: baseUrl,
+          trustedOrigins: [baseUrl],
+          secureCookies: baseUrl.startsWith('https://'),
+        }),
         clock: () => new Date(),
         log: consoleLogger,
         forecast: forecast.provider,
         mailer,
-        config: { baseUrl, trustedOrigins: [new URL(baseUrl).origin], linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6 },
+        config: {
+          baseUrl,
+          trustedOrigins: [new URL(baseUrl).origin],
+          linkSecret: secret,
+          earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS,
+          mailMaxAttempts: 6,
+        },
       },
       { projectId, trigger: 'cli' },
     );
     console.log(JSON.stringify(result, null, 2));
-    if (mailer.fake) console.log(`No SMTP_URL: ${mailer.fake.messages.length} e-mail(s) went to a local mailbox that stops with this command.`);
+    if (mailer.fake)
+      console.log(`No SMTP_URL: ${mailer.fake.messages.length} e-mail(s) went to a local mailbox that stops with this command.`);
   } finally {
     await forecast.close();
     await mailer.close();

@@ -26,25 +26,37 @@ export function startPlanningSchedule(deps: AppDeps, options: { planCron: string
     return p;
   };
   const guard = (name: string, fn: (ctx: TaskContext) => Promise<unknown>) => (ctx: TaskContext) =>
-    track(
-      fn(ctx).catch((err: unknown) => deps.log.error(`${name} failed`, { error: err instanceof Error ? err.message : String(err) })),
-    );
+    track(fn(ctx).catch((err: unknown) => deps.log.error(`${name} failed`, { error: err instanceof Error ? err.message : String(err) })));
   const tasks = [
     // ctx.date is the tick's scheduled time, the same on every instance: a project another instance
     // already planned on this tick is not planned again. A tick reached late (a busy process) still
     // runs, up to the next tick (node-cron would otherwise drop a tick more than 1 s late).
-    cron.createTask(options.planCron, guard('Planning job', (ctx) => runPlanningJob(deps, { trigger: 'schedule', tickAt: ctx.date })), {
-      name: 'plan',
-      noOverlap: true,
-      timezone: 'UTC',
-      missedExecutionTolerance: 6 * 3_600_000,
-    }),
-    cron.createTask('* * * * *', guard('Mail delivery', () => deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log, links: deps.config })), {
-      name: 'mail',
-      noOverlap: true,
-      timezone: 'UTC',
-    }),
-    cron.createTask('*/15 * * * *', guard('Daily digests', () => queueDigests(deps)), { name: 'digest', noOverlap: true, timezone: 'UTC' }),
+    cron.createTask(
+      options.planCron,
+      guard('Planning job', (ctx) => runPlanningJob(deps, { trigger: 'schedule', tickAt: ctx.date })),
+      {
+        name: 'plan',
+        noOverlap: true,
+        timezone: 'UTC',
+        missedExecutionTolerance: 6 * 3_600_000,
+      },
+    ),
+    cron.createTask(
+      '* * * * *',
+      guard('Mail delivery', () =>
+        deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log, links: deps.config }),
+      ),
+      {
+        name: 'mail',
+        noOverlap: true,
+        timezone: 'UTC',
+      },
+    ),
+    cron.createTask(
+      '*/15 * * * *',
+      guard('Daily digests', () => queueDigests(deps)),
+      { name: 'digest', noOverlap: true, timezone: 'UTC' },
+    ),
   ];
   for (const t of tasks) void t.start();
   return {

@@ -16,7 +16,10 @@ export const runningServer = (dataDir: string): ServerInfo | null => liveClaim(d
 
 /** UTC time as 20261202T004512Z, for file and folder names. */
 export function stamp(date = new Date()): string {
-  return date.toISOString().replace(/[-:]/g, '').replace(/\.\d{3}Z$/, 'Z');
+  return date
+    .toISOString()
+    .replace(/[-:]/g, '')
+    .replace(/\.\d{3}Z$/, 'Z');
 }
 
 export function formatSize(bytes: number): string {
@@ -52,7 +55,9 @@ export function readBackupFile(file: string): { bytes: Buffer; pgVersion: string
   try {
     tar = zlib.gunzipSync(bytes);
   } catch (err) {
-    throw new BackupFileError(`${file} is not an intact gzip file (${(err as Error).message}); it may be truncated or not a Lullwatch backup`);
+    throw new BackupFileError(
+      `${file} is not an intact gzip file (${(err as Error).message}); it may be truncated or not a Lullwatch backup`,
+    );
   }
   const entries = tarEntries(tar);
   const version = entries.get('PG_VERSION');

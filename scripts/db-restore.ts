@@ -56,7 +56,9 @@ try {
 
 const { PGlite: PGliteClass } = await import('@electric-sql/pglite');
 const { MIGRATIONS_FOLDER } = await import('../server/db/migrate');
-const journal = JSON.parse(fs.readFileSync(path.join(MIGRATIONS_FOLDER, 'meta/_journal.json'), 'utf8')) as { entries: { when: number; tag: string }[] };
+const journal = JSON.parse(fs.readFileSync(path.join(MIGRATIONS_FOLDER, 'meta/_journal.json'), 'utf8')) as {
+  entries: { when: number; tag: string }[];
+};
 const newestKnown = Math.max(...journal.entries.map((e) => e.when));
 
 /** Every table readable (series bytes included), the migrations table present; returns a summary. */
@@ -75,7 +77,11 @@ async function checkDatabase(pg: PGlite): Promise<{ tables: number; migrations: 
   await pg.query(
     `select sum(octet_length(time_ms) + octet_length(hs) + octet_length(tp) + octet_length(tz) + octet_length(te) + octet_length(dir) + octet_length(wind) + octet_length(wind_dir) + octet_length(given_periods)) from dataset_chunk`,
   );
-  const migrations = (await pg.query<{ n: number; newest: string | null }>(`select count(*)::int as n, max(created_at)::text as newest from drizzle.__drizzle_migrations`)).rows[0];
+  const migrations = (
+    await pg.query<{ n: number; newest: string | null }>(
+      `select count(*)::int as n, max(created_at)::text as newest from drizzle.__drizzle_migrations`,
+    )
+  ).rows[0];
   if (migrations.newest !== null && Number(migrations.newest) > newestKnown) {
     throw new Error('it was made by a newer Lullwatch (it holds migrations this version does not know); restore it with that version');
   }
@@ -86,7 +92,10 @@ async function checkDatabase(pg: PGlite): Promise<{ tables: number; migrations: 
 async function openAndCheck(folder: string): Promise<Awaited<ReturnType<typeof checkDatabase>>> {
   let pg: PGlite | undefined;
   try {
-    pg = new PGliteClass({ dataDir: folder, loadDataDir: new Blob([new Uint8Array(bytes.buffer as ArrayBuffer, bytes.byteOffset, bytes.byteLength)]) });
+    pg = new PGliteClass({
+      dataDir: folder,
+      loadDataDir: new Blob([new Uint8Array(bytes.buffer as ArrayBuffer, bytes.byteOffset, bytes.byteLength)]),
+    });
     await pg.waitReady;
     return await checkDatabase(pg);
   } finally {
@@ -107,7 +116,9 @@ try {
 } catch (err) {
   fs.rmSync(partial, { recursive: true, force: true });
   if (createdDataDir) fs.rmSync(dataDir, { recursive: true, force: true });
-  fail(`Refused: ${file} does not open as a Lullwatch database (PostgreSQL ${pgVersion} data folder): ${(err as Error).message}. ${NOTHING_CHANGED}`);
+  fail(
+    `Refused: ${file} does not open as a Lullwatch database (PostgreSQL ${pgVersion} data folder): ${(err as Error).message}. ${NOTHING_CHANGED}`,
+  );
 }
 
 // 4. Swap: the current folder is kept aside, the restored one takes its place. The data folder is
@@ -134,6 +145,8 @@ try {
 }
 
 console.log(`Restored ${file} (${formatSize(bytes.length)}) into ${current}:`);
-console.log(`  ${summary.projects} project(s), ${summary.datasets} dataset(s), ${summary.tables} tables, ${summary.migrations} migration(s) applied.`);
+console.log(
+  `  ${summary.projects} project(s), ${summary.datasets} dataset(s), ${summary.tables} tables, ${summary.migrations} migration(s) applied.`,
+);
 if (keptAs) console.log(`The previous database is kept in ${keptAs} (delete it when you no longer need it).`);
 console.log('Start the server as usual; it applies any migration newer than the backup.');

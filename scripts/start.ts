@@ -16,7 +16,9 @@ if (!process.env.DATABASE_URL) {
   const { ensureDatabaseTemplate } = await import('../server/db/template');
   // Only a speed-up: without it the server creates the database itself.
   await ensureDatabaseTemplate((m) => console.log(`[lullwatch] ${m}`)).catch((err: unknown) => {
-    console.warn(`[lullwatch] No empty database template (${err instanceof Error ? err.message : String(err)}); the server creates the database itself`);
+    console.warn(
+      `[lullwatch] No empty database template (${err instanceof Error ? err.message : String(err)}); the server creates the database itself`,
+    );
   });
 }
 

@@ -4,7 +4,14 @@ import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
 import { toSeaSeries } from '../server/services/sea-series';
-import { buildFakeForecast, exchangeToRecords, generateSyntheticSea, latestIssueTimeMs, truthSeedForPosition, climateForPosition } from '../server/forecast';
+import {
+  buildFakeForecast,
+  exchangeToRecords,
+  generateSyntheticSea,
+  latestIssueTimeMs,
+  truthSeedForPosition,
+  climateForPosition,
+} from '../server/forecast';
 import { recurrenceText } from '../shared/recurrence';
 import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
@@ -64,12 +71,19 @@ async function seedOutlookHistory(
     const answer = await campaignOutlookAnswer(deps.db, projectId, campaignId, { alpha: true, now: new Date(at) });
     await storeOutlook(deps.db, projectId, answer, null);
     // The plan promised the P50 finish of the outlook on the campaign's first morning.
-    if (day === t.fromMs && answer.finish.p50) await deps.db.update(campaign).set({ plannedFinish: new Date(answer.finish.p50) }).where(eq(campaign.id, campaignId));
+    if (day === t.fromMs && answer.finish.p50)
+      await deps.db
+        .update(campaign)
+        .set({ plannedFinish: new Date(answer.finish.p50) })
+        .where(eq(campaign.id, campaignId));
   }
 }
 
 /** Seeds the invented demo scenario into an empty database. */
-export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'forecast' | 'clock'>, options: SeedOptions = {}): Promise<DemoIds> {
+export async function seedDemo(
+  deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'forecast' | 'clock'>,
+  options: SeedOptions = {},
+): Promise<DemoIds> {
   const { db, auth } = deps;
   const hindcastYears = options.hindcastYears ?? 20;
 
@@ -131,18 +145,21 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
   // Part done: it started 17 days ago and its first step (the lay) finished last week.
   const todayMs = Date.UTC(deps.clock().getUTCFullYear(), deps.clock().getUTCMonth(), deps.clock().getUTCDate());
   const campaignStartMs = todayMs - 17 * DAY_MS;
-  const [demoCampaign] = await db.insert(campaign).values({
-    projectId: main.id,
-    name: 'Nearshore campaign: lay, berm, pull-in',
-    steps: [
-      { operationId: opId('Cable lay, nearshore section'), siteId: siteIds.route },
-      { operationId: opId('Rock berm placement'), siteId: siteIds.route },
-      { operationId: opId('Cable pull-in at landfall'), siteId: siteIds.cofferdam },
-    ],
-    plannedStart: new Date(campaignStartMs),
-    plannedFinish: new Date(campaignStartMs + 35 * DAY_MS),
-    timeZone: DEMO_TIME_ZONE,
-  }).returning({ id: campaign.id });
+  const [demoCampaign] = await db
+    .insert(campaign)
+    .values({
+      projectId: main.id,
+      name: 'Nearshore campaign: lay, berm, pull-in',
+      steps: [
+        { operationId: opId('Cable lay, nearshore section'), siteId: siteIds.route },
+        { operationId: opId('Rock berm placement'), siteId: siteIds.route },
+        { operationId: opId('Cable pull-in at landfall'), siteId: siteIds.cofferdam },
+      ],
+      plannedStart: new Date(campaignStartMs),
+      plannedFinish: new Date(campaignStartMs + 35 * DAY_MS),
+      timeZone: DEMO_TIME_ZONE,
+    })
+    .returning({ id: campaign.id });
   const layStartedMs = campaignStartMs + 6 * 3_600_000;
   const layDoneMs = todayMs - 7 * DAY_MS + 14 * 3_600_000;
 
@@ -157,7 +174,14 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
       seed: truthSeedForPosition(DEMO_SEA_SEED, DEMO_PROJECT.dataPointLatitude, DEMO_PROJECT.dataPointLongitude),
       climate: climateForPosition(DEMO_PROJECT.dataPointLatitude),
     });
-    const series = toSeaSeries({ timeMs: sea.timeMs, hs: sea.hsM, tp: sea.tpS, dir: sea.dirDeg, wind: sea.windMps, windDir: sea.windDirDeg });
+    const series = toSeaSeries({
+      timeMs: sea.timeMs,
+      hs: sea.hsM,
+      tp: sea.tpS,
+      dir: sea.dirDeg,
+      wind: sea.windMps,
+      windDir: sea.windDirDeg,
+    });
     const row = await createDataset(
       db,
       {
@@ -179,10 +203,15 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
     hindcastId = row.id;
   }
 
-  if (hindcastId) await seedOutlookHistory(deps, main.id, demoCampaign.id, { fromMs: campaignStartMs, toMs: todayMs, layStartedMs, layDoneMs });
+  if (hindcastId)
+    await seedOutlookHistory(deps, main.id, demoCampaign.id, { fromMs: campaignStartMs, toMs: todayMs, layStartedMs, layDoneMs });
   await db
     .update(campaign)
-    .set({ progress: [{ status: 'done', startedAt: new Date(layStartedMs).toISOString(), doneAt: new Date(layDoneMs).toISOString(), source: 'hand' }] })
+    .set({
+      progress: [
+        { status: 'done', startedAt: new Date(layStartedMs).toISOString(), doneAt: new Date(layDoneMs).toISOString(), source: 'hand' },
+      ],
+    })
     .where(eq(campaign.id, demoCampaign.id));
 
   // Earlier issues of the invented forecast (the 00:00 UTC issue of each of the last days, 48 h
@@ -192,7 +221,13 @@ export async function seedDemo(deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'fore
     const latest = latestIssueTimeMs(deps.clock().getTime());
     for (let k = pastDays; k >= 1; k--) {
       const issuedAtMs = Math.floor(latest / 86_400_000) * 86_400_000 - k * 86_400_000;
-      const f = buildFakeForecast({ seed: DEMO_SEA_SEED, latitude: DEMO_PROJECT.dataPointLatitude, longitude: DEMO_PROJECT.dataPointLongitude, issuedAtMs, horizonDays: 2 });
+      const f = buildFakeForecast({
+        seed: DEMO_SEA_SEED,
+        latitude: DEMO_PROJECT.dataPointLatitude,
+        longitude: DEMO_PROJECT.dataPointLongitude,
+        issuedAtMs,
+        horizonDays: 2,
+      });
       const r = exchangeToRecords(f);
       const keep = r.timeMs.findIndex((x) => x >= issuedAtMs);
       const cut = (a: Float64Array) => a.slice(keep);

@@ -8,10 +8,34 @@
 // warranty surveyor.
 
 export const DEMO_SITES = [
-  { key: 'cofferdam', name: 'Landfall cofferdam', depthM: 3.5, shoreNormalDeg: 258, breakerIndex: 0.6, latitude: 50.0775, longitude: -5.7207 },
-  { key: 'trench', name: 'Nearshore trench KP 0.8', depthM: 8, shoreNormalDeg: 258, breakerIndex: 0.6, latitude: 50.076, longitude: -5.7316 },
+  {
+    key: 'cofferdam',
+    name: 'Landfall cofferdam',
+    depthM: 3.5,
+    shoreNormalDeg: 258,
+    breakerIndex: 0.6,
+    latitude: 50.0775,
+    longitude: -5.7207,
+  },
+  {
+    key: 'trench',
+    name: 'Nearshore trench KP 0.8',
+    depthM: 8,
+    shoreNormalDeg: 258,
+    breakerIndex: 0.6,
+    latitude: 50.076,
+    longitude: -5.7316,
+  },
   { key: 'route', name: 'Cable route KP 4.5', depthM: 19, shoreNormalDeg: 258, breakerIndex: 0.6, latitude: 50.069, longitude: -5.782 },
-  { key: 'substation', name: 'Offshore substation approach', depthM: 38, shoreNormalDeg: null, breakerIndex: 0.6, latitude: 50.049, longitude: -5.933 },
+  {
+    key: 'substation',
+    name: 'Offshore substation approach',
+    depthM: 38,
+    shoreNormalDeg: null,
+    breakerIndex: 0.6,
+    latitude: 50.049,
+    longitude: -5.933,
+  },
 ] as const;
 
 export const DEMO_TIME_ZONE = 'Europe/London';
@@ -68,7 +92,13 @@ export const DEMO_OPERATIONS: {
     tpopH: 4,
     tcH: 1,
     weatherRestricted: true,
-    limits: { hsMax: 1.5, windMax: 14, minDepth: 5, minDepthParts: { draught: 4.2, clearance: 0.8 }, tideWindow: { reference: 'high', before: 3, after: 3 } },
+    limits: {
+      hsMax: 1.5,
+      windMax: 14,
+      minDepth: 5,
+      minDepthParts: { draught: 4.2, clearance: 0.8 },
+      tideWindow: { reference: 'high', before: 3, after: 3 },
+    },
     sites: ['cofferdam'],
     skipper: false,
   },
@@ -78,7 +108,15 @@ export const DEMO_OPERATIONS: {
     tpopH: 36,
     tcH: 12,
     weatherRestricted: true,
-    limits: { hsTpCurve: [[4, 1.8], [8, 1.5], [12, 1.2], [16, 1.0]], windMax: 15 },
+    limits: {
+      hsTpCurve: [
+        [4, 1.8],
+        [8, 1.5],
+        [12, 1.2],
+        [16, 1.0],
+      ],
+      windMax: 15,
+    },
     sites: ['trench', 'route'],
     skipper: false,
   },

@@ -129,9 +129,16 @@ export function createApp(deps: AppDeps, options: AppOptions = {}): Express {
     next();
   });
   const heavyReads =
-    options.heavyReads ?? new Limiter({ concurrency: HEAVY_READS_PER_USER, queue: HEAVY_READS_WAITING, busyMessage: 'Too many long reads at once from your account: wait for them to finish' });
+    options.heavyReads ??
+    new Limiter({
+      concurrency: HEAVY_READS_PER_USER,
+      queue: HEAVY_READS_WAITING,
+      busyMessage: 'Too many long reads at once from your account: wait for them to finish',
+    });
   const heavy = perUser(heavyReads);
-  app.use('/api', (req, res, next) => (req.method === 'GET' || req.method === 'POST') && HEAVY_READ_PATH.test(req.path) ? heavy(req, res, next) : next());
+  app.use('/api', (req, res, next) =>
+    (req.method === 'GET' || req.method === 'POST') && HEAVY_READ_PATH.test(req.path) ? heavy(req, res, next) : next(),
+  );
   // Deactivation and role changes go through the administration routes.
   app.use('/api/admin', sessions.forgetAfterChange);
   // Unchanged answers again without the database (embedded database only), with ETags and gzip.

@@ -120,7 +120,12 @@ export function createAuth(db: Db, config: AuthConfig) {
     basePath: '/api/auth',
     trustedOrigins: config.trustedOrigins,
     // Sign-up is closed: administrators create users (with a temporary password) on the admin page.
-    emailAndPassword: { enabled: true, disableSignUp: true, minPasswordLength: PASSWORD_MIN_LENGTH, maxPasswordLength: PASSWORD_MAX_LENGTH },
+    emailAndPassword: {
+      enabled: true,
+      disableSignUp: true,
+      minPasswordLength: PASSWORD_MIN_LENGTH,
+      maxPasswordLength: PASSWORD_MAX_LENGTH,
+    },
     session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24 },
     user: {
       additionalFields: {
@@ -143,7 +148,13 @@ export function createAuth(db: Db, config: AuthConfig) {
       after: createAuthMiddleware(async (ctx) => {
         if (ctx.path !== '/sign-in/email' && ctx.path !== '/change-password') return;
         const returned = ctx.context.returned;
-        if (ctx.path === '/change-password' && returned && typeof returned === 'object' && !(returned instanceof Error) && 'user' in returned) {
+        if (
+          ctx.path === '/change-password' &&
+          returned &&
+          typeof returned === 'object' &&
+          !(returned instanceof Error) &&
+          'user' in returned
+        ) {
           const id = (returned as { user: { id: string } }).user.id;
           await db.update(user).set({ mustChangePassword: false, temporaryPasswordExpiresAt: null }).where(eq(user.id, id));
         }

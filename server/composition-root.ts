@@ -49,7 +49,8 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
 async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Promise<Running> {
   const dbDir = path.join(env.DATA_DIR, 'db');
   // An empty data folder starts from the migrated empty database made at build time (server/db/template.ts).
-  if (!env.DATABASE_URL && copyTemplateIfEmpty(dbDir)) log.info('Empty data folder: the embedded database starts from the migrated template');
+  if (!env.DATABASE_URL && copyTemplateIfEmpty(dbDir))
+    log.info('Empty data folder: the embedded database starts from the migrated template');
   const database = await openDatabase({ databaseUrl: env.DATABASE_URL, dataDir: dbDir });
 
   const forecast = await createForecastProvider({ forecastUrl: env.FORECAST_URL, forecastApiKey: env.FORECAST_API_KEY });
@@ -61,8 +62,14 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   const port = env.PORT;
   const provisionalBase = env.BASE_URL ?? `http://localhost:${port || 3000}`;
   // Cookies are Secure only when users reach the app over https; say so when production runs without it.
-  if (env.NODE_ENV === 'production' && !provisionalBase.startsWith('https://') && !/^http:\/\/(localhost|127\.0\.0\.1)[:/]/.test(`${provisionalBase}/`)) {
-    log.warn(`BASE_URL ${provisionalBase} is not https: session cookies are sent without the Secure flag. Serve the app over https (a TLS proxy) and set BASE_URL to the https address.`);
+  if (
+    env.NODE_ENV === 'production' &&
+    !provisionalBase.startsWith('https://') &&
+    !/^http:\/\/(localhost|127\.0\.0\.1)[:/]/.test(`${provisionalBase}/`)
+  ) {
+    log.warn(
+      `BASE_URL ${provisionalBase} is not https: session cookies are sent without the Secure flag. Serve the app over https (a TLS proxy) and set BASE_URL to the https address.`,
+    );
   }
   const secret = resolveAuthSecret(env);
   const makeDeps = (baseURL: string): AppDeps => ({
@@ -79,7 +86,16 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
     forecast: forecast.provider,
     mailer,
     // The same list for the auth library's Origin check and for our own API (server/http/same-origin.ts).
-    config: { baseUrl: baseURL, trustedOrigins: trustedOrigins(baseURL), linkSecret: secret, earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS, mailMaxAttempts: 6, jobToken, mapStyleUrl: env.MAP_STYLE_URL, mapAttribution: env.MAP_ATTRIBUTION },
+    config: {
+      baseUrl: baseURL,
+      trustedOrigins: trustedOrigins(baseURL),
+      linkSecret: secret,
+      earliestMoveAlertHours: env.ALERT_EARLIEST_MOVE_HOURS,
+      mailMaxAttempts: 6,
+      jobToken,
+      mapStyleUrl: env.MAP_STYLE_URL,
+      mapAttribution: env.MAP_ATTRIBUTION,
+    },
   });
 
   const deps = makeDeps(provisionalBase);
@@ -130,7 +146,9 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   const url = env.BASE_URL ?? `http://localhost:${actualPort}`;
   // Tell `npm run plan:once` and `db:backup` how to reach this process (it holds the embedded database).
   if (database.kind === 'pglite') publishPort(env.DATA_DIR, actualPort, jobToken);
-  log.info(`Lullwatch is running at ${url} (${database.kind === 'pglite' ? `embedded database in ${path.resolve(env.DATA_DIR)}` : 'PostgreSQL server'})`);
+  log.info(
+    `Lullwatch is running at ${url} (${database.kind === 'pglite' ? `embedded database in ${path.resolve(env.DATA_DIR)}` : 'PostgreSQL server'})`,
+  );
 
   return {
     url,
@@ -181,11 +199,18 @@ export async function demoAccountsWithPublishedPassword(deps: Pick<AppDeps, 'db'
     .select({ email: user.email, banned: user.banned, hash: account.password })
     .from(user)
     .innerJoin(account, and(eq(account.userId, user.id), eq(account.providerId, 'credential')))
-    .where(inArray(user.email, DEMO_USERS.map((u) => u.email)));
+    .where(
+      inArray(
+        user.email,
+        DEMO_USERS.map((u) => u.email),
+      ),
+    );
   const ctx = await deps.auth.$context;
   // The checks at once: each is a deliberately slow hash, run on the thread pool (part of every start).
   const checks = await Promise.all(
-    rows.map(async (r) => (r.banned || !r.hash ? null : (await ctx.password.verify({ hash: r.hash, password: DEMO_PASSWORD })) ? r.email : null)),
+    rows.map(async (r) =>
+      r.banned || !r.hash ? null : (await ctx.password.verify({ hash: r.hash, password: DEMO_PASSWORD })) ? r.email : null,
+    ),
   );
   return checks.filter((e): e is string => e !== null).sort();
 }

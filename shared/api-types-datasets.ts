@@ -81,7 +81,14 @@ export interface NetcdfPointsAnswer {
 /** The NetCDF part of an import report. */
 export interface NetcdfImportInfo {
   format: 'netcdf4' | 'classic';
-  point: { index: number[]; lat: number | null; lon: number | null; distanceKm: number | null; missingShare: number; chosen: 'nearest' | 'given' | 'single' };
+  point: {
+    index: number[];
+    lat: number | null;
+    lon: number | null;
+    distanceKm: number | null;
+    missingShare: number;
+    chosen: 'nearest' | 'given' | 'single';
+  };
   variables: { role: string; variable: string; via: string }[];
   /** Partitions found in the file (wind sea, primary swell...). */
   partitionsRead: string[];

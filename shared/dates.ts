@@ -99,7 +99,8 @@ export function worksiteZoneStatement(
   const byZone = new Map<string, string[]>();
   for (const s of sites) byZone.set(s.timeZone, [...(byZone.get(s.timeZone) ?? []), s.name]);
   const zone = sites[0].timeZone;
-  if (byZone.size === 1) return { zone, statement: zoneStatement(zone, sites.length === 1 ? 'the worksite’s local time' : 'the worksites’ local time', at) };
+  if (byZone.size === 1)
+    return { zone, statement: zoneStatement(zone, sites.length === 1 ? 'the worksite’s local time' : 'the worksites’ local time', at) };
   const named = (z: string) => {
     const short = zoneShortName(at, z);
     return short && short !== z ? `${z} (${short})` : z;

@@ -4,7 +4,9 @@ import { z } from 'zod';
 import './schemas/words';
 
 // rrule ships a UMD main that Node's ESM loader exposes as a default export; Vite exposes names.
-export const rrule = ((rruleModule as unknown as { RRule?: unknown }).RRule ? rruleModule : (rruleModule as unknown as { default: typeof rruleModule }).default) as typeof rruleModule;
+export const rrule = (
+  (rruleModule as unknown as { RRule?: unknown }).RRule ? rruleModule : (rruleModule as unknown as { default: typeof rruleModule }).default
+) as typeof rruleModule;
 
 export const WEEKDAYS = ['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'] as const;
 
@@ -27,7 +29,10 @@ export const RecurrenceInput = z.object({
   rule: z
     .string()
     .max(500)
-    .refine((r) => /^FREQ=(DAILY|WEEKLY|MONTHLY|YEARLY)(;[A-Z]+=[A-Z0-9,+-]+)*$/.test(r), 'must be an RRULE like FREQ=WEEKLY;BYDAY=MO,WE,FR')
+    .refine(
+      (r) => /^FREQ=(DAILY|WEEKLY|MONTHLY|YEARLY)(;[A-Z]+=[A-Z0-9,+-]+)*$/.test(r),
+      'must be an RRULE like FREQ=WEEKLY;BYDAY=MO,WE,FR',
+    )
     .superRefine((r, ctx) => {
       const problem = ruleProblem(r);
       if (problem) ctx.addIssue({ code: 'custom', message: problem });
@@ -101,7 +106,15 @@ export function expandRecurrence(r: RecurrenceInput, fromMs: number, toMs: numbe
     if (ms > toF || i >= MAX_EXPANDED || out.length >= max) return false;
     if ((i & 63) === 63 && Date.now() > deadline) return false;
     if (ms >= fromF) {
-      const t = new TZDate(f.getUTCFullYear(), f.getUTCMonth(), f.getUTCDate(), f.getUTCHours(), f.getUTCMinutes(), 0, r.timeZone).getTime();
+      const t = new TZDate(
+        f.getUTCFullYear(),
+        f.getUTCMonth(),
+        f.getUTCDate(),
+        f.getUTCHours(),
+        f.getUTCMinutes(),
+        0,
+        r.timeZone,
+      ).getTime();
       if (t >= fromMs && t <= toMs) out.push(t);
     }
     return true;

@@ -8,7 +8,12 @@ import autocannon from 'autocannon';
 
 export const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
-export async function call<T>(baseUrl: string, method: string, url: string, opts: { cookie?: string; body?: unknown; headers?: Record<string, string> } = {}): Promise<{ res: Response; json: T }> {
+export async function call<T>(
+  baseUrl: string,
+  method: string,
+  url: string,
+  opts: { cookie?: string; body?: unknown; headers?: Record<string, string> } = {},
+): Promise<{ res: Response; json: T }> {
   const res = await fetch(`${baseUrl}${url}`, {
     method,
     headers: {
@@ -130,7 +135,6 @@ export async function pageRequests(baseUrl: string, projectId: string, cookie: s
   return list;
 }
 
-
 // ---------------------------------------------------------------------------------------------
 // Load
 
@@ -170,7 +174,11 @@ export function runCannon(
         setupClient: (client) => {
           const user = users[next++ % users.length];
           const own = requests.map((r) => {
-            const req: autocannon.Request = { method: r.method, path: r.path, headers: { cookie: user.cookie, origin: hooks.origin ?? baseUrl, accept: 'application/json' } };
+            const req: autocannon.Request = {
+              method: r.method,
+              path: r.path,
+              headers: { cookie: user.cookie, origin: hooks.origin ?? baseUrl, accept: 'application/json' },
+            };
             nameOf.set(req, r.name);
             return req;
           });

@@ -197,7 +197,14 @@ export class RoundRobinProxy {
       if (refused || outcome.code === 'ECONNRESET') this.setUp(backend.name, false);
       const retry = attempt === 0 && !outcome.headersSent && (IDEMPOTENT.has(method) || refused);
       if (!retry) {
-        const failure = { method, path, backend: backend.name, reason: outcome.code, inFlightAtKill: outcome.inFlightAtKill, at: Date.now() };
+        const failure = {
+          method,
+          path,
+          backend: backend.name,
+          reason: outcome.code,
+          inFlightAtKill: outcome.inFlightAtKill,
+          at: Date.now(),
+        };
         if (outcome.headersSent) {
           this.stats.failures.push(failure);
           res.destroy();
@@ -247,7 +254,15 @@ export class RoundRobinProxy {
       const failed = (err: Error & { code?: string }) =>
         done({ ok: false, code: err.code ?? err.message, headersSent: res.headersSent, inFlightAtKill: this.atKill.has(flight.id) });
       const out = http.request(
-        { host: backend.host, port: backend.port, method, path, headers: { ...headers, 'content-length': String(body.length) }, agent: IDEMPOTENT.has(method) ? this.agent : false, timeout: this.options.timeoutMs ?? 30_000 },
+        {
+          host: backend.host,
+          port: backend.port,
+          method,
+          path,
+          headers: { ...headers, 'content-length': String(body.length) },
+          agent: IDEMPOTENT.has(method) ? this.agent : false,
+          timeout: this.options.timeoutMs ?? 30_000,
+        },
         (upstream) => {
           res.writeHead(upstream.statusCode ?? 502, upstream.headers);
           upstream.on('error', failed);

@@ -17,7 +17,10 @@ export function findPgBin(): string | null {
   if (process.env.PG_BIN) candidates.push(process.env.PG_BIN);
   const debianRoot = '/usr/lib/postgresql';
   if (fs.existsSync(debianRoot)) {
-    const versions = fs.readdirSync(debianRoot).filter((v) => /^\d+$/.test(v)).sort((a, b) => Number(b) - Number(a));
+    const versions = fs
+      .readdirSync(debianRoot)
+      .filter((v) => /^\d+$/.test(v))
+      .sort((a, b) => Number(b) - Number(a));
     candidates.push(...versions.map((v) => path.join(debianRoot, v, 'bin')));
   }
   const pgConfig = spawnSync('pg_config', ['--bindir'], { encoding: 'utf8' });
@@ -54,7 +57,9 @@ export interface ThrowawayCluster {
 export async function startThrowawayCluster(options: { user?: string; maxConnections?: number } = {}): Promise<ThrowawayCluster> {
   const bin = findPgBin();
   if (!bin) {
-    throw new Error('PostgreSQL server programs not found. Install them (Debian: apt-get install postgresql) or set PG_BIN to the folder holding initdb and pg_ctl.');
+    throw new Error(
+      'PostgreSQL server programs not found. Install them (Debian: apt-get install postgresql) or set PG_BIN to the folder holding initdb and pg_ctl.',
+    );
   }
   const workDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-pg-'));
   const dataDir = path.join(workDir, 'data');

@@ -40,7 +40,8 @@ export function templateKey(): string {
   const hash = crypto.createHash('sha256');
   // The installed PGlite's own version (its package.json is not among the package's exports).
   const pgliteEntry = createRequire(import.meta.url).resolve('@electric-sql/pglite');
-  const pgliteVersion = (JSON.parse(fs.readFileSync(path.join(packageRoot(pgliteEntry), 'package.json'), 'utf8')) as { version: string }).version;
+  const pgliteVersion = (JSON.parse(fs.readFileSync(path.join(packageRoot(pgliteEntry), 'package.json'), 'utf8')) as { version: string })
+    .version;
   hash.update(`pglite ${pgliteVersion}\n`);
   for (const file of filesUnder(MIGRATIONS_FOLDER)) {
     hash.update(path.relative(MIGRATIONS_FOLDER, file));
@@ -82,7 +83,8 @@ export async function ensureDatabaseTemplate(log: (message: string) => void = ()
     fs.rmSync(tmp, { recursive: true, force: true });
   }
   for (const name of fs.readdirSync(TEMPLATE_ROOT)) {
-    if (name !== path.basename(target) && !name.startsWith('making-')) fs.rmSync(path.join(TEMPLATE_ROOT, name), { recursive: true, force: true });
+    if (name !== path.basename(target) && !name.startsWith('making-'))
+      fs.rmSync(path.join(TEMPLATE_ROOT, name), { recursive: true, force: true });
   }
   return target;
 }

@@ -40,7 +40,7 @@ export function snapToGrid(deg: number): number {
  */
 export function truthSeedForPosition(seed: number, latitude: number, longitude: number): number {
   const i = Math.round(latitude / FAKE_GRID_DEG);
-  const j = Math.round((((longitude % 360) + 540) % 360 - 180) / FAKE_GRID_DEG);
+  const j = Math.round(((((longitude % 360) + 540) % 360) - 180) / FAKE_GRID_DEG);
   return mix32(seed32(seed) ^ mix32(Math.imul(i, 0x2c1b3c6d) ^ mix32(j ^ 0x297a2d39)));
 }
 
@@ -147,7 +147,8 @@ export function buildFakeForecast(request: FakeForecastRequest): SeaStateExchang
   const { issuedAtMs, horizonDays } = request;
   const cycleMs = ISSUE_CYCLE_HOURS * MS_PER_HOUR;
   if (!Number.isFinite(issuedAtMs) || issuedAtMs % cycleMs !== 0) throw new RangeError('issuedAtMs must be on the 00/06/12/18 UTC cycle');
-  if (!(Number.isInteger(horizonDays) && horizonDays >= 1 && horizonDays <= 16)) throw new RangeError(`horizonDays must be an integer within 1-16, got ${horizonDays}`);
+  if (!(Number.isInteger(horizonDays) && horizonDays >= 1 && horizonDays <= 16))
+    throw new RangeError(`horizonDays must be an integer within 1-16, got ${horizonDays}`);
   const latitude = snapToGrid(request.latitude);
   const longitude = snapToGrid(request.longitude);
   const truthSeed = truthSeedForPosition(request.seed, latitude, longitude);
@@ -201,5 +202,9 @@ export function buildFakeForecast(request: FakeForecastRequest): SeaStateExchang
     for (const [key, column] of columns) column[r] = FAKE_VALUES[key]!(record);
   }
   // The times carry the change from hourly to 3-hourly (the exchange has no single step).
-  return { position: { lat: latitude, lon: longitude }, issuedAt: iso(issuedAtMs), series: { time, ...Object.fromEntries(columns) } as SeaStateExchange['series'] };
+  return {
+    position: { lat: latitude, lon: longitude },
+    issuedAt: iso(issuedAtMs),
+    series: { time, ...Object.fromEntries(columns) } as SeaStateExchange['series'],
+  };
 }

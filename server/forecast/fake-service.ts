@@ -91,7 +91,15 @@ function parseCoordinate(raw: string | null, min: number, max: number): number |
  * @throws RangeError for a horizon outside 1-16 days; rejects when the port cannot be bound
  */
 export async function startFakeForecastService(options: FakeForecastServiceOptions = {}): Promise<FakeForecastService> {
-  const { port = 0, host = '127.0.0.1', seed = 20261201, horizonDays = 10, publishDelayHours = 0, clock = () => Date.now(), apiKey } = options;
+  const {
+    port = 0,
+    host = '127.0.0.1',
+    seed = 20261201,
+    horizonDays = 10,
+    publishDelayHours = 0,
+    clock = () => Date.now(),
+    apiKey,
+  } = options;
   if (!(Number.isInteger(horizonDays) && horizonDays >= 1 && horizonDays <= 16)) {
     throw new RangeError(`horizonDays must be an integer within 1-16, got ${horizonDays}`);
   }
@@ -147,7 +155,13 @@ export async function startFakeForecastService(options: FakeForecastServiceOptio
       sendError(res, 400, 'bad_position', 'lat must be a number within -90..90 and lon within -180..180.');
       return;
     }
-    const forecast = buildFakeForecast({ seed, latitude, longitude, issuedAtMs: latestIssueTimeMs(clock(), publishDelayHours), horizonDays });
+    const forecast = buildFakeForecast({
+      seed,
+      latitude,
+      longitude,
+      issuedAtMs: latestIssueTimeMs(clock(), publishDelayHours),
+      horizonDays,
+    });
     if (mode === 'malformed') {
       const text = JSON.stringify(forecast);
       res.writeHead(200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'no-store' });
@@ -190,7 +204,8 @@ export async function startFakeForecastService(options: FakeForecastServiceOptio
       return received;
     },
     setFailure(mode: FakeFailureMode, times?: number) {
-      if (times !== undefined && !(Number.isInteger(times) && times >= 1)) throw new RangeError(`times must be a positive integer, got ${times}`);
+      if (times !== undefined && !(Number.isInteger(times) && times >= 1))
+        throw new RangeError(`times must be a positive integer, got ${times}`);
       failure = mode;
       failuresLeft = mode === 'none' || times === undefined ? Infinity : times;
     },

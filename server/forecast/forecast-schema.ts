@@ -67,7 +67,9 @@ type RequiredKey = { [K in ExchangeSeriesKey]: (typeof EXCHANGE_SERIES)[K]['requ
 export interface SeaStateExchange {
   position: { lat: number; lon: number };
   issuedAt: string;
-  series: { time: string[] } & { [K in RequiredKey]: (number | null)[] } & { [K in Exclude<ExchangeSeriesKey, RequiredKey>]?: (number | null)[] };
+  series: { time: string[] } & { [K in RequiredKey]: (number | null)[] } & {
+    [K in Exclude<ExchangeSeriesKey, RequiredKey>]?: (number | null)[];
+  };
 }
 
 const isoUtc = z.iso.datetime({ offset: false, local: false });

@@ -7,7 +7,14 @@ import { HttpForecastProvider, type ForecastProvider } from './provider';
 
 // Provider interface and HTTP client
 export { HttpForecastProvider } from './provider';
-export type { ForecastAdapter, ForecastIssue, ForecastProvider, ForecastQuery, ForecastRecords, HttpForecastProviderOptions } from './provider';
+export type {
+  ForecastAdapter,
+  ForecastIssue,
+  ForecastProvider,
+  ForecastQuery,
+  ForecastRecords,
+  HttpForecastProviderOptions,
+} from './provider';
 export { seaStateExchangeAdapter, exchangeToRecords } from './adapters/sea-state-exchange';
 export { ForecastServiceError } from './forecast-service-error';
 export type { ForecastServiceErrorCode } from './forecast-service-error';
@@ -17,7 +24,15 @@ export type { ExchangeSeriesKey, ExchangeSeriesSpec, SeaStateExchange } from './
 // Local fake service
 export { startFakeForecastService } from './fake-service';
 export type { FakeFailureMode, FakeForecastRequestLog, FakeForecastService, FakeForecastServiceOptions } from './fake-service';
-export { buildFakeForecast, latestIssueTimeMs, snapToGrid, truthSeedForPosition, climateForPosition, ISSUE_CYCLE_HOURS, FAKE_GRID_DEG } from './fake-forecast';
+export {
+  buildFakeForecast,
+  latestIssueTimeMs,
+  snapToGrid,
+  truthSeedForPosition,
+  climateForPosition,
+  ISSUE_CYCLE_HOURS,
+  FAKE_GRID_DEG,
+} from './fake-forecast';
 export type { FakeForecastRequest } from './fake-forecast';
 // Invented sea states
 export { generateSyntheticSea, DEFAULT_SEA_CLIMATE } from './synthetic-sea';

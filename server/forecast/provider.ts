@@ -111,8 +111,10 @@ export class HttpForecastProvider implements ForecastProvider {
 
   async fetchLatest(query: ForecastQuery): Promise<ForecastIssue> {
     const { latitude, longitude, signal } = query;
-    if (!(Number.isFinite(latitude) && latitude >= -90 && latitude <= 90)) throw new RangeError(`latitude must be within -90..90, got ${latitude}`);
-    if (!(Number.isFinite(longitude) && longitude >= -180 && longitude <= 180)) throw new RangeError(`longitude must be within -180..180, got ${longitude}`);
+    if (!(Number.isFinite(latitude) && latitude >= -90 && latitude <= 90))
+      throw new RangeError(`latitude must be within -90..90, got ${latitude}`);
+    if (!(Number.isFinite(longitude) && longitude >= -180 && longitude <= 180))
+      throw new RangeError(`longitude must be within -180..180, got ${longitude}`);
     signal?.throwIfAborted();
 
     const url = this.adapter.requestUrl(this.base, { latitude, longitude });
@@ -132,12 +134,20 @@ export class HttpForecastProvider implements ForecastProvider {
     const transportError = (err: unknown): unknown => {
       if (err instanceof ForecastServiceError) return err;
       if (timedOut) {
-        return new ForecastServiceError('timeout', `The forecast service did not answer within ${formatSeconds(this.timeoutMs)}. Try again later.`, { cause: err });
+        return new ForecastServiceError(
+          'timeout',
+          `The forecast service did not answer within ${formatSeconds(this.timeoutMs)}. Try again later.`,
+          { cause: err },
+        );
       }
       if (signal?.aborted) return signal.reason;
       const code = networkCode(err);
       const reason = code ? (NETWORK_REASONS[code] ?? code) : err instanceof Error ? err.message : String(err);
-      return new ForecastServiceError('network', `Could not reach the forecast service (${reason}). Check the forecast service address in the server configuration, or try again later.`, { cause: err });
+      return new ForecastServiceError(
+        'network',
+        `Could not reach the forecast service (${reason}). Check the forecast service address in the server configuration, or try again later.`,
+        { cause: err },
+      );
     };
 
     try {
@@ -161,10 +171,14 @@ export class HttpForecastProvider implements ForecastProvider {
       try {
         json = JSON.parse(text);
       } catch (err) {
-        throw new ForecastServiceError('malformed', 'The forecast service sent an answer that is not valid JSON. Nothing was stored; try again later.', {
-          details: [err instanceof Error ? err.message : String(err)],
-          cause: err,
-        });
+        throw new ForecastServiceError(
+          'malformed',
+          'The forecast service sent an answer that is not valid JSON. Nothing was stored; try again later.',
+          {
+            details: [err instanceof Error ? err.message : String(err)],
+            cause: err,
+          },
+        );
       }
       return this.adapter.toIssue(json);
     } finally {
@@ -186,7 +200,10 @@ export class HttpForecastProvider implements ForecastProvider {
       total += value.byteLength;
       if (total > this.maxBytes) {
         await reader.cancel().catch(() => undefined);
-        throw new ForecastServiceError('malformed', `The forecast service sent more than ${Math.round(this.maxBytes / 1024)} kB; the answer was refused.`);
+        throw new ForecastServiceError(
+          'malformed',
+          `The forecast service sent more than ${Math.round(this.maxBytes / 1024)} kB; the answer was refused.`,
+        );
       }
       chunks.push(value);
     }
@@ -199,7 +216,11 @@ export class HttpForecastProvider implements ForecastProvider {
     try {
       return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
     } catch (err) {
-      throw new ForecastServiceError('malformed', 'The forecast service sent an answer that is not valid UTF-8 text. Nothing was stored; try again later.', { cause: err });
+      throw new ForecastServiceError(
+        'malformed',
+        'The forecast service sent an answer that is not valid UTF-8 text. Nothing was stored; try again later.',
+        { cause: err },
+      );
     }
   }
 }

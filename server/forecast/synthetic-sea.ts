@@ -186,7 +186,7 @@ function seasonalScale(c: SeaClimate): (timeH: number) => number {
   const b = (c.winterMeanHsM - c.summerMeanHsM) / (hi - lo);
   const a = c.summerMeanHsM - b * lo;
   const w = (2 * Math.PI) / DAYS_PER_YEAR;
-  return (timeH) => a + b * (1 + Math.cos(w * (timeH / 24 - c.roughestDayOfYear))) / 2;
+  return (timeH) => a + (b * (1 + Math.cos(w * (timeH / 24 - c.roughestDayOfYear)))) / 2;
 }
 
 /** A lognormal multiplier with median 1 and log-standard deviation sigma from two uniforms. */

@@ -104,7 +104,13 @@ export function answerCache(options: AnswerCacheOptions) {
       res.send = send;
       const type = String(res.getHeader('Content-Type') ?? '');
       const bytes = typeof payload === 'string' ? Buffer.from(payload) : Buffer.isBuffer(payload) ? payload : null;
-      if (res.statusCode !== 200 || !bytes || !type.startsWith('application/json') || res.getHeader('Set-Cookie') || res.getHeader('Content-Encoding')) {
+      if (
+        res.statusCode !== 200 ||
+        !bytes ||
+        !type.startsWith('application/json') ||
+        res.getHeader('Set-Cookie') ||
+        res.getHeader('Content-Encoding')
+      ) {
         return send(payload);
       }
       const etag = `W/"${crypto.createHash('sha1').update(bytes).digest('base64url')}"`;

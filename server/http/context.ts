@@ -16,9 +16,22 @@ export interface SessionUser {
 export async function readSessionUser(auth: Auth, req: Request): Promise<SessionUser | null> {
   const result = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
   if (!result) return null;
-  const u = result.user as { id: string; name: string; email: string; role?: string | null; banned?: boolean | null; mustChangePassword?: boolean | null };
+  const u = result.user as {
+    id: string;
+    name: string;
+    email: string;
+    role?: string | null;
+    banned?: boolean | null;
+    mustChangePassword?: boolean | null;
+  };
   if (u.banned) return null;
-  return { id: u.id, name: u.name, email: u.email, role: u.role === 'admin' ? 'admin' : 'user', mustChangePassword: u.mustChangePassword === true };
+  return {
+    id: u.id,
+    name: u.name,
+    email: u.email,
+    role: u.role === 'admin' ? 'admin' : 'user',
+    mustChangePassword: u.mustChangePassword === true,
+  };
 }
 
 const USER_KEY = Symbol('lullwatch.user');

@@ -21,7 +21,8 @@ export const FIRST_DELAY_MS = 15_000;
 /** Longest delay, ms. */
 export const MAX_DELAY_MS = 15 * 60_000;
 
-export const delayAfter = (attempts: number) => (attempts < FREE_ATTEMPTS ? 0 : Math.min(MAX_DELAY_MS, FIRST_DELAY_MS * 2 ** (attempts - FREE_ATTEMPTS)));
+export const delayAfter = (attempts: number) =>
+  attempts < FREE_ATTEMPTS ? 0 : Math.min(MAX_DELAY_MS, FIRST_DELAY_MS * 2 ** (attempts - FREE_ATTEMPTS));
 
 const keyOf = (email: string) => `account-backoff:${crypto.createHash('sha256').update(email.trim().toLowerCase()).digest('hex')}`;
 
@@ -33,7 +34,11 @@ export async function startAttempt(db: Db, email: string, nowMs: number): Promis
   for (let tries = 0; tries < 3; tries++) {
     const [row] = await db.select().from(rateLimit).where(eq(rateLimit.key, key));
     if (!row) {
-      const inserted = await db.insert(rateLimit).values({ id: crypto.randomUUID(), key, count: 1, lastRequest: nowMs }).onConflictDoNothing().returning({ id: rateLimit.id });
+      const inserted = await db
+        .insert(rateLimit)
+        .values({ id: crypto.randomUUID(), key, count: 1, lastRequest: nowMs })
+        .onConflictDoNothing()
+        .returning({ id: rateLimit.id });
       if (inserted.length > 0) return { waitMs: 0 };
       continue; // another attempt inserted it meanwhile
     }

@@ -91,5 +91,10 @@ export async function startFakeSmtp(options: { port?: number; host?: string; kee
 /** A header's value as sent (its raw line without the name). */
 function headerLine(lines: readonly { key: string; line: string }[], key: string): string | undefined {
   const found = lines.find((l) => l.key === key);
-  return found ? found.line.slice(found.line.indexOf(':') + 1).replace(/\r?\n\s+/g, ' ').trim() : undefined;
+  return found
+    ? found.line
+        .slice(found.line.indexOf(':') + 1)
+        .replace(/\r?\n\s+/g, ' ')
+        .trim()
+    : undefined;
 }

@@ -49,7 +49,15 @@ function ProductMail({ content }: { content: MailContent }) {
           <Section>
             <Button
               href={content.action.url}
-              style={{ display: 'inline-block', backgroundColor: TEAL, color: '#ffffff', padding: '10px 16px', borderRadius: '8px', textDecoration: 'none', fontWeight: 700 }}
+              style={{
+                display: 'inline-block',
+                backgroundColor: TEAL,
+                color: '#ffffff',
+                padding: '10px 16px',
+                borderRadius: '8px',
+                textDecoration: 'none',
+                fontWeight: 700,
+              }}
             >
               {content.action.label}
             </Button>

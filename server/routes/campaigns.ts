@@ -7,7 +7,10 @@ import { createCampaign, deleteCampaign, getCampaign, listCampaigns, simulatePro
 import { campaignOutlookAnswer, outlookHistory, setStepProgress } from '../services/campaign-outlook';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 
-const alphaFlag = z.enum(['true', 'false']).default('true').transform((v) => v === 'true');
+const alphaFlag = z
+  .enum(['true', 'false'])
+  .default('true')
+  .transform((v) => v === 'true');
 const SimulateQuery = z.object({ dataset: z.string().uuid('must be a dataset id').optional(), alpha: alphaFlag });
 
 /** Campaigns (ordered operation-at-worksite steps): every member reads and simulates, coordinators edit. */
@@ -55,7 +58,9 @@ export function campaignsRoutes({ db, clock }: AppDeps): Router {
   router.post('/projects/:projectId/campaigns/:campaignId/simulate', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(SimulateQuery, req.query, 'query');
-    res.json(await simulateProjectCampaign(db, access.projectId, req.params.campaignId, { datasetId: q.dataset, alpha: q.alpha, now: clock() }));
+    res.json(
+      await simulateProjectCampaign(db, access.projectId, req.params.campaignId, { datasetId: q.dataset, alpha: q.alpha, now: clock() }),
+    );
   });
 
   /**

@@ -80,12 +80,18 @@ function receiveUpload(req: Request, res: Response): Promise<void> {
           const message = `Form field ${err.field ?? ''} is longer than the limit of ${MAX_FIELD_BYTES / 1024} kB`;
           return reject(new HttpError('too_large', message, [{ field: err.field ?? '(form)', message: 'too long' }]));
         }
-        return reject(new HttpError('validation', `Upload refused: ${err.message}`, [{ field: err.field ?? 'file', message: err.message }]));
+        return reject(
+          new HttpError('validation', `Upload refused: ${err.message}`, [{ field: err.field ?? 'file', message: err.message }]),
+        );
       }
       // A body that is not well-formed multipart (no boundary, cut short, a malformed part
       // header) is the client's error; system errors (a full disk) stay 500s.
       if (err instanceof Error && !('code' in err && typeof err.code === 'string' && err.code.startsWith('E'))) {
-        return reject(new HttpError('validation', `Upload refused: the body is not valid multipart/form-data (${err.message})`, [{ field: 'file', message: err.message }]));
+        return reject(
+          new HttpError('validation', `Upload refused: the body is not valid multipart/form-data (${err.message})`, [
+            { field: 'file', message: err.message },
+          ]),
+        );
       }
       reject(err);
     }),
@@ -145,7 +151,9 @@ export function datasetsRoutes({ db }: AppDeps): Router {
     const file = req.file;
     try {
       if (!file) {
-        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [{ field: 'file', message: 'is required' }]);
+        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [
+          { field: 'file', message: 'is required' },
+        ]);
       }
       const streamProgress = (req.headers.accept ?? '').includes('application/x-ndjson');
       const args = {
@@ -193,7 +201,9 @@ export function datasetsRoutes({ db }: AppDeps): Router {
     const file = req.file;
     try {
       if (!file) {
-        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [{ field: 'file', message: 'is required' }]);
+        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [
+          { field: 'file', message: 'is required' },
+        ]);
       }
       const head = Buffer.alloc(8);
       const fd = fs.openSync(file.path, 'r');
@@ -202,7 +212,11 @@ export function datasetsRoutes({ db }: AppDeps): Router {
       } finally {
         fs.closeSync(fd);
       }
-      if (!netcdfKind(head)) throw new HttpError('bad_file', 'This is not a NetCDF file: it does not start with the NetCDF classic (CDF) or NetCDF-4 (HDF5) signature');
+      if (!netcdfKind(head))
+        throw new HttpError(
+          'bad_file',
+          'This is not a NetCDF file: it does not start with the NetCDF classic (CDF) or NetCDF-4 (HDF5) signature',
+        );
       const fields = parseInput(ImportFormSchema.pick({ variables: true }), req.body ?? {}, 'form');
       const [p] = await db.select().from(project).where(eq(project.id, access.projectId));
       const release = await importLimiter.acquire('process');

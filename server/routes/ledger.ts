@@ -12,7 +12,10 @@ const MonthlyQuery = z.object({
   dataset: z.string().uuid('must be a dataset id').optional(),
   from: isoDay.optional(),
   to: isoDay.optional(),
-  alpha: z.enum(['true', 'false'], { error: 'alpha must be true or false' }).default('false').transform((v) => v === 'true'),
+  alpha: z
+    .enum(['true', 'false'], { error: 'alpha must be true or false' })
+    .default('false')
+    .transform((v) => v === 'true'),
 });
 
 /** The downtime ledger: every member reads (clients the confirmed days only), coordinators propose and confirm. */
@@ -48,7 +51,9 @@ export function ledgerRoutes({ db, clock }: AppDeps): Router {
   router.get('/projects/:projectId/ledger/monthly', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(MonthlyQuery, req.query, 'query');
-    res.json(await ledgerMonthly(db, access.projectId, { datasetId: q.dataset, from: q.from, to: q.to, role: access.role, alpha: q.alpha }));
+    res.json(
+      await ledgerMonthly(db, access.projectId, { datasetId: q.dataset, from: q.from, to: q.to, role: access.role, alpha: q.alpha }),
+    );
   });
 
   /**

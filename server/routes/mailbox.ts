@@ -13,7 +13,9 @@ export function mailboxRoutes(deps: AppDeps): Router {
     if (!mailer.fake) throw new HttpError('not_found', 'No API route GET /api/dev/mailbox');
     requireAdmin(req);
     res.json(
-      [...mailer.fake.messages].reverse().map((m) => ({ id: m.id, to: m.to, subject: m.subject, text: m.text, html: m.html, receivedAt: m.receivedAt })),
+      [...mailer.fake.messages]
+        .reverse()
+        .map((m) => ({ id: m.id, to: m.to, subject: m.subject, text: m.text, html: m.html, receivedAt: m.receivedAt })),
     );
   });
 

@@ -7,7 +7,10 @@ import { hourChain, projectPlan, projectPlanJson, siteConditions } from '../serv
 import { icsDocument } from '../services/calendar';
 import { CAUTION_LINE } from '../../shared/caution';
 
-const alphaFlag = z.enum(['true', 'false']).default('true').transform((v) => v === 'true');
+const alphaFlag = z
+  .enum(['true', 'false'])
+  .default('true')
+  .transform((v) => v === 'true');
 const PlanQuery = z.object({
   dataset: z.string().uuid('must be a dataset id').optional(),
   alpha: alphaFlag,
@@ -35,14 +38,24 @@ export function planRoutes({ db, clock }: AppDeps): Router {
   router.get('/projects/:projectId/plan', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(PlanQuery, req.query, 'query');
-    res.type('application/json').send(await projectPlanJson(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock(), from: q.from, to: q.to }));
+    res
+      .type('application/json')
+      .send(await projectPlanJson(db, access.projectId, { datasetId: q.dataset, alpha: q.alpha, now: clock(), from: q.from, to: q.to }));
   });
 
   /** GET .../plan/chain?operationId=&siteId=&time=: the chain behind one hour. */
   router.get('/projects/:projectId/plan/chain', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(ChainQuery, req.query, 'query');
-    res.json(await hourChain(db, access.projectId, { datasetId: q.dataset, operationId: q.operationId, siteId: q.siteId, time: q.time, alpha: q.alpha }));
+    res.json(
+      await hourChain(db, access.projectId, {
+        datasetId: q.dataset,
+        operationId: q.operationId,
+        siteId: q.siteId,
+        time: q.time,
+        alpha: q.alpha,
+      }),
+    );
   });
 
   /** GET .../plan/windows.ics?operationId=&siteId=: the operation's usable windows as iCalendar. */
@@ -72,7 +85,9 @@ export function planRoutes({ db, clock }: AppDeps): Router {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const q = parseInput(PlanQuery, req.query, 'query');
     if (!z.string().uuid().safeParse(req.params.siteId).success) throw new HttpError('not_found', 'Worksite not found');
-    res.json(await siteConditions(db, access.projectId, { datasetId: q.dataset, siteId: req.params.siteId, from: q.from, to: q.to, now: clock() }));
+    res.json(
+      await siteConditions(db, access.projectId, { datasetId: q.dataset, siteId: req.params.siteId, from: q.from, to: q.to, now: clock() }),
+    );
   });
 
   return router;

@@ -15,7 +15,8 @@ export function recurrenceRoutes(deps: AppDeps): Router {
     const access = await requireCoordinator(db, req, req.params.projectId);
     const input = parseInput(RecurrenceInput, req.body);
     const startProblem = recurrenceStartProblem(input, deps.clock().getTime());
-    if (startProblem) throw new HttpError('validation', `Invalid body: start: ${startProblem}`, [{ field: 'start', message: startProblem }]);
+    if (startProblem)
+      throw new HttpError('validation', `Invalid body: start: ${startProblem}`, [{ field: 'start', message: startProblem }]);
     res.json(await setOperationRecurrence(db, access.projectId, access.user, req.params.operationId, input));
   });
 

@@ -54,7 +54,10 @@ export function sitesRoutes({ db, clock }: AppDeps): Router {
     const site = await getSite(db, access.projectId, req.params.siteId);
     const fromMs = q.from ? Date.parse(q.from) : clock().getTime();
     const toMs = q.to ? Date.parse(q.to) : fromMs + 3 * 86_400_000;
-    if (!(toMs > fromMs) || toMs - fromMs > 31 * 86_400_000) throw new HttpError('validation', 'Invalid query: to: at most 31 days after from, and after it', [{ field: 'to', message: 'At most 31 days after from, and after it' }]);
+    if (!(toMs > fromMs) || toMs - fromMs > 31 * 86_400_000)
+      throw new HttpError('validation', 'Invalid query: to: at most 31 days after from, and after it', [
+        { field: 'to', message: 'At most 31 days after from, and after it' },
+      ]);
     const answer = tideAnswer(site.tide, site, fromMs, toMs);
     if (!answer) throw new HttpError('not_found', 'This worksite has no tide');
     res.json(answer);
@@ -67,7 +70,10 @@ export function sitesRoutes({ db, clock }: AppDeps): Router {
   router.get('/projects/:projectId/sites/:siteId/tide-stations', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const site = await getSite(db, access.projectId, req.params.siteId);
-    if (site.latitude === null || site.longitude === null) throw new HttpError('validation', 'The worksite needs a position to find tide stations', [{ field: 'latitude', message: 'Set the worksite position first' }]);
+    if (site.latitude === null || site.longitude === null)
+      throw new HttpError('validation', 'The worksite needs a position to find tide stations', [
+        { field: 'latitude', message: 'Set the worksite position first' },
+      ]);
     res.json({ stations: nearbyTideStations(site.latitude, site.longitude) });
   });
 

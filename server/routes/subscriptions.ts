@@ -14,7 +14,19 @@ export function subscriptionRoutes(deps: AppDeps): Router {
   router.get('/projects/:projectId/subscription', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const sub = await mySubscription(db, access.user.id, access.projectId);
-    res.json(sub ?? { operationIds: [], siteIds: [], immediate: false, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: false, outlookMoveDays: null, stored: false });
+    res.json(
+      sub ?? {
+        operationIds: [],
+        siteIds: [],
+        immediate: false,
+        digest: false,
+        digestTime: '06:00',
+        digestTimeZone: 'UTC',
+        active: false,
+        outlookMoveDays: null,
+        stored: false,
+      },
+    );
   });
 
   /** PUT /api/projects/:projectId/subscription: choose operations, worksites, immediate alerts and/or a daily digest. */

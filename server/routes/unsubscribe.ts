@@ -32,7 +32,10 @@ export function unsubscribeRoutes(deps: AppDeps): Router {
       verdict === 'expired'
         ? 'This unsubscribe link has expired. Change your alerts on the Alerts page in Lullwatch instead.'
         : 'This unsubscribe link is not valid. Change your alerts on the Alerts page in Lullwatch instead.';
-    res.status(400).type('html').send(page(verdict === 'expired' ? 'Link expired' : 'Link not valid', body));
+    res
+      .status(400)
+      .type('html')
+      .send(page(verdict === 'expired' ? 'Link expired' : 'Link not valid', body));
   }
 
   /** GET /api/unsubscribe?u=&p=&e=&sig=: a confirmation page (no sign-in); nothing changes until its button is pressed. */
@@ -40,13 +43,15 @@ export function unsubscribeRoutes(deps: AppDeps): Router {
     const link = unsubscribeLink(req.query);
     if (typeof link === 'string') return refuseLink(res, link);
     const action = `/api/unsubscribe?${new URLSearchParams({ u: link.u, p: link.p, e: String(req.query.e), sig: String(req.query.sig) })}`;
-    res.type('html').send(
-      page(
-        'Stop alert e-mails?',
-        'Press the button to stop alert e-mails and digests for this project. You can turn them on again on the Alerts page.',
-        action,
-      ),
-    );
+    res
+      .type('html')
+      .send(
+        page(
+          'Stop alert e-mails?',
+          'Press the button to stop alert e-mails and digests for this project. You can turn them on again on the Alerts page.',
+          action,
+        ),
+      );
   });
 
   /** POST /api/unsubscribe?u=&p=&e=&sig=: RFC 8058 one-click unsubscribe (no sign-in). */
@@ -54,7 +59,9 @@ export function unsubscribeRoutes(deps: AppDeps): Router {
     const link = unsubscribeLink(req.query);
     if (typeof link === 'string') return refuseLink(res, link);
     await unsubscribe(db, link.u, link.p);
-    res.type('html').send(page('Unsubscribed', 'You will get no more alert e-mails for this project. You can turn them on again on the Alerts page.'));
+    res
+      .type('html')
+      .send(page('Unsubscribed', 'You will get no more alert e-mails for this project. You can turn them on again on the Alerts page.'));
   });
 
   return router;

@@ -5,7 +5,10 @@ import { parseInput } from '../http/errors';
 import { requireProjectMember } from '../services/project-access';
 import { projectWorkability, projectWorkabilityJson, workabilityCsv } from '../services/workability';
 
-const alphaFlag = z.enum(['true', 'false']).default('true').transform((v) => v === 'true');
+const alphaFlag = z
+  .enum(['true', 'false'])
+  .default('true')
+  .transform((v) => v === 'true');
 const WorkabilityQuery = z.object({ dataset: z.string().uuid('must be a dataset id').optional(), alpha: alphaFlag });
 
 /** Hindcast workability statistics: every member reads. */

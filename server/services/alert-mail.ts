@@ -5,7 +5,6 @@ import { limitWords } from '../../shared/limit-words';
 import { START_WORDS, statusLabel, STATUS_WORDS } from '../../shared/status-words';
 import { renderMail } from '../mail/message';
 
-
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
 export function localTime(iso: string, timeZone: string): string {
   return formatInstant(iso, timeZone, 'dateTime');
@@ -38,7 +37,9 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
     case 'earliest_moved':
       return `${sentence(START_WORDS.earliestMoved)} from ${localTime(c.previous!, z)} to ${localTime(c.start!, z)}.`;
     case 'start_now_changed':
-      return c.startNow ? `${sentence(START_WORDS.startNow)}: the next TR hours are ${STATUS_WORDS.workable.word}.` : `${sentence(START_WORDS.noLongerStartNow)}${why}.`;
+      return c.startNow
+        ? `${sentence(START_WORDS.startNow)}: the next TR hours are ${STATUS_WORDS.workable.word}.`
+        : `${sentence(START_WORDS.noLongerStartNow)}${why}.`;
     case 'occurrence_no_go':
       return `${statusLabel('not_workable')}: the ${localTime(c.start!, z)} occurrence over its TR of ${p.tr} h${why}.`;
   }
@@ -82,7 +83,14 @@ export function unsubscribeUrl(baseUrl: string, secret: string, userId: string, 
 }
 
 /** 'ok', or why a link is refused: a bad signature, or past its expiry. */
-export function verifyUnsubscribe(secret: string, userId: string, projectId: string, expires: string, sig: string, nowMs: number): 'ok' | 'invalid' | 'expired' {
+export function verifyUnsubscribe(
+  secret: string,
+  userId: string,
+  projectId: string,
+  expires: string,
+  sig: string,
+  nowMs: number,
+): 'ok' | 'invalid' | 'expired' {
   if (!/^\d{1,12}$/.test(expires)) return 'invalid';
   const expected = Buffer.from(unsubscribeToken(secret, userId, projectId, Number(expires)));
   const given = Buffer.from(sig);

@@ -87,13 +87,18 @@ export async function ledgerDoneAt(
   for (const r of rows) {
     worked += Math.max(0, r.plannedHours - (r.lostHours ?? 0));
     if (worked >= step.tpopH - 1e-9) {
-      return { doneMs: zonedDayMs(r.day, step.timeZone).endMs, workedHours: worked, firstDayMs: rows.length ? zonedDayMs(rows[0].day, step.timeZone).startMs : null };
+      return {
+        doneMs: zonedDayMs(r.day, step.timeZone).endMs,
+        workedHours: worked,
+        firstDayMs: rows.length ? zonedDayMs(rows[0].day, step.timeZone).startMs : null,
+      };
     }
   }
   return { doneMs: null, workedHours: worked, firstDayMs: rows.length ? zonedDayMs(rows[0].day, step.timeZone).startMs : null };
 }
 
-const progressOf = (row: typeof campaign.$inferSelect, i: number): CampaignStepProgress => row.progress[i] ?? { status: 'planned', startedAt: null, doneAt: null };
+const progressOf = (row: typeof campaign.$inferSelect, i: number): CampaignStepProgress =>
+  row.progress[i] ?? { status: 'planned', startedAt: null, doneAt: null };
 
 /**
  * Sets one step's progress (coordinators; audited with the entry before and after, in the same
@@ -115,17 +120,20 @@ export async function setStepProgress(
 ): Promise<CampaignResponse> {
   const row = await campaignRow(db, projectId, campaignId);
   const index = /^\d{1,3}$/.test(indexParam) ? Number(indexParam) : -1;
-  if (index < 0 || index >= row.steps.length) throw new HttpError('not_found', `Step ${indexParam} not found: this campaign has steps 0 to ${row.steps.length - 1}`);
+  if (index < 0 || index >= row.steps.length)
+    throw new HttpError('not_found', `Step ${indexParam} not found: this campaign has steps 0 to ${row.steps.length - 1}`);
   const nowMs = now.getTime();
   const bad = (field: string, message: string) => new HttpError('validation', `Invalid body: ${field}: ${message}`, [{ field, message }]);
   const conflict = (message: string) => new HttpError('conflict', message);
 
   for (let i = 0; i < index; i++) {
-    if (input.status !== 'planned' && progressOf(row, i).status !== 'done') throw conflict(`Step ${i + 1} is not done yet: steps are done in order`);
+    if (input.status !== 'planned' && progressOf(row, i).status !== 'done')
+      throw conflict(`Step ${i + 1} is not done yet: steps are done in order`);
   }
   if (input.status !== 'done') {
     for (let i = index + 1; i < row.steps.length; i++) {
-      if (progressOf(row, i).status !== 'planned') throw conflict(`Step ${i + 1} is already ${progressOf(row, i).status}: set it back to planned first`);
+      if (progressOf(row, i).status !== 'planned')
+        throw conflict(`Step ${i + 1} is already ${progressOf(row, i).status}: set it back to planned first`);
     }
   }
   const before = progressOf(row, index);
@@ -134,7 +142,8 @@ export async function setStepProgress(
   const doneGiven = input.doneAt !== undefined ? Date.parse(input.doneAt) : null;
   if (startedGiven !== null && startedGiven > nowMs) throw bad('startedAt', 'must not be in the future (the actual start)');
   if (doneGiven !== null && doneGiven > nowMs) throw bad('doneAt', 'must not be in the future (the actual end)');
-  if (startedGiven !== null && previousEndMs !== null && startedGiven < previousEndMs) throw bad('startedAt', `must not be before the end of step ${index} (${iso(previousEndMs)})`);
+  if (startedGiven !== null && previousEndMs !== null && startedGiven < previousEndMs)
+    throw bad('startedAt', `must not be before the end of step ${index} (${iso(previousEndMs)})`);
 
   let next: CampaignStepProgress;
   if (input.status === 'planned') {
@@ -155,7 +164,13 @@ export async function setStepProgress(
       const op = setup.operations.find((o) => o.id === step.operationId);
       const site = setup.sites.find((s) => s.id === step.siteId);
       if (!op || !site) throw conflict(`Step ${index + 1} no longer fits the project`);
-      const fromLedger = await ledgerDoneAt(db, projectId, { operationId: op.id, siteId: site.id, tpopH: op.tpopH, timeZone: site.timeZone, startedMs });
+      const fromLedger = await ledgerDoneAt(db, projectId, {
+        operationId: op.id,
+        siteId: site.id,
+        tpopH: op.tpopH,
+        timeZone: site.timeZone,
+        startedMs,
+      });
       if (fromLedger.doneMs === null || fromLedger.doneMs > nowMs) {
         throw bad(
           'doneAt',
@@ -166,8 +181,10 @@ export async function setStepProgress(
       source = 'ledger';
       startedMs ??= fromLedger.firstDayMs;
     }
-    if (startedMs !== null && startedMs > doneMs) throw bad(startedGiven !== null ? 'startedAt' : 'doneAt', 'the end must not be before the start');
-    if (previousEndMs !== null && doneMs < previousEndMs) throw bad('doneAt', `must not be before the end of step ${index} (${iso(previousEndMs)})`);
+    if (startedMs !== null && startedMs > doneMs)
+      throw bad(startedGiven !== null ? 'startedAt' : 'doneAt', 'the end must not be before the start');
+    if (previousEndMs !== null && doneMs < previousEndMs)
+      throw bad('doneAt', `must not be before the end of step ${index} (${iso(previousEndMs)})`);
     next = { status: 'done', startedAt: isoOrNull(startedMs), doneAt: iso(doneMs), source };
   }
 
@@ -217,7 +234,13 @@ async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs:
     .update(JSON.stringify([row.id, limitsVersion(setup, row.dataPointDepthM), alpha, [...wanted].sort()]))
     .digest('hex');
   let memo = flagMemos.get(db);
-  if (!memo) flagMemos.set(db, (memo = new ByteBoundedMemo<Map<string, Uint8Array>>(FLAG_MEMO_BYTES, (m) => [...m.values()].reduce((sum, a) => sum + a.byteLength, 0))));
+  if (!memo)
+    flagMemos.set(
+      db,
+      (memo = new ByteBoundedMemo<Map<string, Uint8Array>>(FLAG_MEMO_BYTES, (m) =>
+        [...m.values()].reduce((sum, a) => sum + a.byteLength, 0),
+      )),
+    );
   return memo.get(key, async () => {
     // On an engine worker thread (engine-pool.ts): a cold transformation of a 30-year hindcast never holds up other requests.
     const list = await runEngineTask('outlookGoStarts', computeOutlookGoStarts, await datasetSeries(db, row.id), row, setup, pairs, alpha);
@@ -229,7 +252,13 @@ async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs:
  * The go-start flags of each pair, in the order of `pairs` (see {@link goStartFlags}). Plain data
  * in and out, so it runs on an engine worker thread.
  */
-export function computeOutlookGoStarts(series: SeaSeries, row: DatasetRow, setup: ProjectSetup, pairs: Pair[], alpha: boolean): Uint8Array[] {
+export function computeOutlookGoStarts(
+  series: SeaSeries,
+  row: DatasetRow,
+  setup: ProjectSetup,
+  pairs: Pair[],
+  alpha: boolean,
+): Uint8Array[] {
   const wanted = new Set(pairs.map(pairKey));
   const stepMs = row.stepMinutes * 60_000;
   const flags = new Map<string, Uint8Array>();
@@ -255,13 +284,26 @@ export function computeOutlookGoStarts(series: SeaSeries, row: DatasetRow, setup
  * The forecast samples: today the latest deterministic forecast, one member with alpha. When
  * ensembles are stored, each member becomes one more entry here (its go-starts at OPLIM, no alpha).
  */
-async function forecastMembers(db: Db, row: DatasetRow, setup: ProjectSetup, remaining: Pair[], alpha: boolean): Promise<OutlookForecastMember[]> {
+async function forecastMembers(
+  db: Db,
+  row: DatasetRow,
+  setup: ProjectSetup,
+  remaining: Pair[],
+  alpha: boolean,
+): Promise<OutlookForecastMember[]> {
   const [series, flags] = await Promise.all([datasetSeries(db, row.id), goStartFlags(db, row, setup, remaining, alpha)]);
   const n = series.timeMs.length;
   if (n === 0) return [];
   // The forecast ends with its last record's own step (forecasts often go 3-hourly after a few days).
   const lastMs = recordSteps(series.timeMs, row.stepMinutes * 60_000).durationMs[n - 1];
-  return [{ label: 'forecast', timeMs: series.timeMs, endMs: series.timeMs[n - 1] + lastMs, goStart: remaining.map((p) => flags.get(pairKey(p))!) }];
+  return [
+    {
+      label: 'forecast',
+      timeMs: series.timeMs,
+      endMs: series.timeMs[n - 1] + lastMs,
+      goStart: remaining.map((p) => flags.get(pairKey(p))!),
+    },
+  ];
 }
 
 function finishOf(x: { p10: number; p50: number; p90: number } | null): OutlookFinish {
@@ -274,9 +316,18 @@ const hours2 = (x: number | null | undefined) => (x === null || x === undefined 
  *
  * @throws HttpError 404 for an unknown campaign or without a hindcast, 409 when a step no longer fits the project.
  */
-export async function campaignOutlookAnswer(db: Db, projectId: string, campaignId: string, options: { alpha: boolean; now: Date }): Promise<CampaignOutlookAnswer> {
+export async function campaignOutlookAnswer(
+  db: Db,
+  projectId: string,
+  campaignId: string,
+  options: { alpha: boolean; now: Date },
+): Promise<CampaignOutlookAnswer> {
   const c = await campaignRow(db, projectId, campaignId);
-  const [hindRow, setup, fcRow] = await Promise.all([statisticsDataset(db, projectId), loadProjectSetup(db, projectId), latestDataset(db, projectId, 'forecast')]);
+  const [hindRow, setup, fcRow] = await Promise.all([
+    statisticsDataset(db, projectId),
+    loadProjectSetup(db, projectId),
+    latestDataset(db, projectId, 'forecast'),
+  ]);
   if (!hindRow) throw new HttpError('not_found', 'No hindcast to continue the outlook on: import one under Sea data');
   assertSteps(setup, c.steps, 'conflict');
   const ops = new Map(setup.operations.map((o) => [o.id, o]));
@@ -320,14 +371,19 @@ export async function campaignOutlookAnswer(db: Db, projectId: string, campaignI
 
   const hindFlags = await goStartFlags(db, hindRow, setup, remaining, options.alpha);
   const hindSeries = await datasetSeries(db, hindRow.id);
-  const hindcast = { timeMs: hindSeries.timeMs, stepMs: hindRow.stepMinutes * 60_000, goStart: remaining.map((p) => hindFlags.get(pairKey(p))!) };
+  const hindcast = {
+    timeMs: hindSeries.timeMs,
+    stepMs: hindRow.stepMinutes * 60_000,
+    goStart: remaining.map((p) => hindFlags.get(pairKey(p))!),
+  };
   const members = fcRow ? await forecastMembers(db, fcRow, setup, remaining, options.alpha) : [];
 
   const samples = simulateOutlook({ startMs, tpopH, members, hindcast });
   const stats = outlookPercentiles(samples, remaining.length);
   const hindOnly = members.length > 0 ? simulateOutlook({ startMs, tpopH, members: [], hindcast }) : samples;
   const hindStats = members.length > 0 ? outlookPercentiles(hindOnly, remaining.length) : stats;
-  const shift = (a: number | undefined, b: number | undefined) => (a === undefined || b === undefined ? null : hours2((a - b) / MS_PER_HOUR));
+  const shift = (a: number | undefined, b: number | undefined) =>
+    a === undefined || b === undefined ? null : hours2((a - b) / MS_PER_HOUR);
 
   return {
     ...base,
@@ -357,7 +413,10 @@ export async function campaignOutlookAnswer(db: Db, projectId: string, campaignI
       finish: finishOf(hindStats.finishMs),
       remainingWowHours: { p50: hours2(hindStats.remainingWowHours?.p50), p90: hours2(hindStats.remainingWowHours?.p90) },
     },
-    forecastShiftHours: { p50: shift(stats.finishMs?.p50, hindStats.finishMs?.p50), p90: shift(stats.finishMs?.p90, hindStats.finishMs?.p90) },
+    forecastShiftHours: {
+      p50: shift(stats.finishMs?.p50, hindStats.finishMs?.p50),
+      p90: shift(stats.finishMs?.p90, hindStats.finishMs?.p90),
+    },
   };
 }
 
@@ -380,7 +439,12 @@ export async function outlookHistory(db: Db, projectId: string, campaignId: stri
     .where(and(eq(campaignOutlook.projectId, projectId), eq(campaignOutlook.campaignId, campaignId)))
     .orderBy(desc(campaignOutlook.at))
     .limit(OUTLOOK_HISTORY_LIMIT);
-  return rows.reverse().map((r) => ({ at: r.at.toISOString(), p50: isoOrNull(r.p50?.getTime()), p90: isoOrNull(r.p90?.getTime()), forecastIssuedAt: isoOrNull(r.forecastIssuedAt?.getTime()) }));
+  return rows.reverse().map((r) => ({
+    at: r.at.toISOString(),
+    p50: isoOrNull(r.p50?.getTime()),
+    p90: isoOrNull(r.p90?.getTime()),
+    forecastIssuedAt: isoOrNull(r.forecastIssuedAt?.getTime()),
+  }));
 }
 
 /** Stores one outlook in the history. */
@@ -406,7 +470,14 @@ async function outlookSubscribers(db: Db, projectId: string) {
     .from(subscription)
     .innerJoin(user, eq(user.id, subscription.userId))
     .innerJoin(projectMember, and(eq(projectMember.userId, subscription.userId), eq(projectMember.projectId, subscription.projectId)))
-    .where(and(eq(subscription.projectId, projectId), eq(subscription.active, true), isNotNull(subscription.outlookMoveDays), inArray(projectMember.role, ['client', 'coordinator'])));
+    .where(
+      and(
+        eq(subscription.projectId, projectId),
+        eq(subscription.active, true),
+        isNotNull(subscription.outlookMoveDays),
+        inArray(projectMember.role, ['client', 'coordinator']),
+      ),
+    );
 }
 
 /** The e-mail "the P50 finish moved" for one campaign. */
@@ -420,7 +491,8 @@ export async function outlookMoveEmail(args: {
   unsubscribeUrl: string;
 }): Promise<{ subject: string; text: string; html: string }> {
   const { answer } = args;
-  const day = (s: string | null) => (s ? format(new TZDate(Date.parse(s), args.timeZone), 'EEE d MMM yyyy') : 'not known (every sample censored)');
+  const day = (s: string | null) =>
+    s ? format(new TZDate(Date.parse(s), args.timeZone), 'EEE d MMM yyyy') : 'not known (every sample censored)';
   const movedDays = answer.finish.p50 ? (Date.parse(answer.finish.p50) - Date.parse(args.previousP50)) / MS_PER_DAY : 0;
   const later = movedDays > 0;
   const moved = `${Math.abs(Math.round(movedDays * 10) / 10)} days ${later ? 'later' : 'earlier'}`;
@@ -428,7 +500,9 @@ export async function outlookMoveEmail(args: {
   const lines = [
     `P50 finish: ${day(answer.finish.p50)} (was ${day(args.previousP50)}, ${moved}).`,
     `P90 finish: ${day(answer.finish.p90)}.`,
-    answer.forecastIssuedAt ? `Forecast issued ${format(new TZDate(Date.parse(answer.forecastIssuedAt), args.timeZone), 'EEE d MMM HH:mm')}, then the hindcast years.` : 'No forecast: the hindcast years alone.',
+    answer.forecastIssuedAt
+      ? `Forecast issued ${format(new TZDate(Date.parse(answer.forecastIssuedAt), args.timeZone), 'EEE d MMM HH:mm')}, then the hindcast years.`
+      : 'No forecast: the hindcast years alone.',
     `${answer.samples} samples, ${answer.censored} censored. Dates are ${args.timeZone}.`,
   ];
   const parts = await renderMail({
@@ -451,7 +525,12 @@ export async function outlookMoveEmail(args: {
  *
  * @returns how many outlooks were stored and e-mails queued
  */
-export async function recordCampaignOutlooks(deps: Pick<AppDeps, 'db' | 'log' | 'config'>, projectId: string, planRunId: string | null, now: Date): Promise<{ stored: number; queued: number }> {
+export async function recordCampaignOutlooks(
+  deps: Pick<AppDeps, 'db' | 'log' | 'config'>,
+  projectId: string,
+  planRunId: string | null,
+  now: Date,
+): Promise<{ stored: number; queued: number }> {
   const { db, log } = deps;
   let stored = 0;
   let queued = 0;

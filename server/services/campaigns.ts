@@ -5,7 +5,15 @@
  */
 import { createHash } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
-import { evaluateStatus, goStarts, simulateCampaign, zonedMonthStartMs, zoneOffsetMs, type CampaignMonthResult, type CampaignStep } from '../../shared/engine';
+import {
+  evaluateStatus,
+  goStarts,
+  simulateCampaign,
+  zonedMonthStartMs,
+  zoneOffsetMs,
+  type CampaignMonthResult,
+  type CampaignStep,
+} from '../../shared/engine';
 import type { CampaignMonthAnswer, CampaignResponse, CampaignSimulation } from '../../shared/api-types-downtime';
 import type { CampaignInput, CampaignPatchInput, CampaignStepInput } from '../../shared/schemas/downtime';
 import { idParam } from '../../shared/schemas/common';
@@ -42,7 +50,13 @@ export function toCampaignResponse(row: CampaignRow): CampaignResponse {
     plannedFinish: row.plannedFinish?.toISOString() ?? null,
     progress: row.steps.map((_, index) => {
       const p = row.progress[index];
-      return { index, status: p?.status ?? 'planned', startedAt: p?.startedAt ?? null, doneAt: p?.doneAt ?? null, source: p?.source ?? null };
+      return {
+        index,
+        status: p?.status ?? 'planned',
+        startedAt: p?.startedAt ?? null,
+        doneAt: p?.doneAt ?? null,
+        source: p?.source ?? null,
+      };
     }),
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),
@@ -72,7 +86,11 @@ export function assertSteps(setup: ProjectSetup, steps: CampaignStepInput[], cod
 }
 
 export async function listCampaigns(db: Db, projectId: string): Promise<CampaignResponse[]> {
-  const rows = await db.select().from(campaign).where(eq(campaign.projectId, projectId)).orderBy(asc(campaign.name), asc(campaign.createdAt));
+  const rows = await db
+    .select()
+    .from(campaign)
+    .where(eq(campaign.projectId, projectId))
+    .orderBy(asc(campaign.name), asc(campaign.createdAt));
   return rows.map(toCampaignResponse);
 }
 
@@ -196,7 +214,12 @@ export async function simulateProjectCampaign(
   const siteNames = new Map(setup.sites.map((s) => [s.id, s.name]));
   const stepList = c.steps.map((st, k) => {
     const op = ops.get(st.operationId)!;
-    return { operationName: op.name, siteName: siteNames.get(st.siteId) ?? '', trHours: op.tpopH + op.tcH, goStartHours: simulated.goStartHours[k] };
+    return {
+      operationName: op.name,
+      siteName: siteNames.get(st.siteId) ?? '',
+      trHours: op.tpopH + op.tcH,
+      goStartHours: simulated.goStartHours[k],
+    };
   });
   const never = stepList.findIndex((st) => st.goStartHours === 0);
   const neverStarts =

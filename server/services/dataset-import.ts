@@ -81,15 +81,24 @@ export async function importUploadedFile(
   const ncKind = netcdfKind(headBytes);
   if (ncKind !== null) {
     if (form.format !== 'auto' && form.format !== 'netcdf') {
-      throw new HttpError('bad_file', `This is a NetCDF file (${ncKind === 'classic' ? 'classic' : 'NetCDF-4/HDF5'}), not ${form.format.toUpperCase()}: choose the format NetCDF or auto`);
+      throw new HttpError(
+        'bad_file',
+        `This is a NetCDF file (${ncKind === 'classic' ? 'classic' : 'NetCDF-4/HDF5'}), not ${form.format.toUpperCase()}: choose the format NetCDF or auto`,
+      );
     }
     return importNetcdfUpload(db, p, form, args);
   }
   if (form.format === 'netcdf') {
-    throw new HttpError('bad_file', 'This is not a NetCDF file: it does not start with the NetCDF classic (CDF) or NetCDF-4 (HDF5) signature');
+    throw new HttpError(
+      'bad_file',
+      'This is not a NetCDF file: it does not start with the NetCDF classic (CDF) or NetCDF-4 (HDF5) signature',
+    );
   }
   if (args.file.size > MAX_UPLOAD_BYTES) {
-    throw new HttpError('too_large', `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB (NetCDF files: ${MAX_NETCDF_UPLOAD_BYTES / 1024 ** 3} GB)`);
+    throw new HttpError(
+      'too_large',
+      `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB (NetCDF files: ${MAX_NETCDF_UPLOAD_BYTES / 1024 ** 3} GB)`,
+    );
   }
   const head = headBytes.toString('utf8');
   const mark = binaryMark(head);
@@ -225,13 +234,19 @@ async function importNetcdfUpload(
       waterLevelOffsetM: form.waterLevelOffset,
       // Progress as the share of the chosen variables read, in records of the point's series.
       onVariable: (done, total, n) =>
-        args.onProgress?.({ phase: 'parsing', bytesRead: Math.round((args.file.size * done) / total), totalBytes: args.file.size, rows: Math.round((n * done) / total) }),
+        args.onProgress?.({
+          phase: 'parsing',
+          bytesRead: Math.round((args.file.size * done) / total),
+          totalBytes: args.file.size,
+          rows: Math.round((n * done) / total),
+        }),
     }),
   );
   const records = result.records;
   let usable = 0;
   for (let i = 0; i < records.hs.length; i++) if (records.hs[i] === records.hs[i]) usable++;
-  if (usable === 0) throw new HttpError('bad_file', 'The chosen point has no wave height at any time (all values missing): choose another point');
+  if (usable === 0)
+    throw new HttpError('bad_file', 'The chosen point has no wave height at any time (all values missing): choose another point');
   const givenHeight = anemometerHeightOf(form);
   const windHeight = givenHeight ?? WIND_REFERENCE_HEIGHT_M;
   const windExponent = form.windExponent ?? DEFAULT_WIND_EXPONENT;
@@ -273,11 +288,13 @@ async function importNetcdfUpload(
       issues: [],
       issueCount: 0,
       notes: [
-        `NetCDF point ${info.point.index.length ? `[${info.point.index.join(', ')}]` : '(single point)'} at ${info.point.lat ?? '?'}, ${info.point.lon ?? '?'}${info.point.distanceKm !== null ? `, ${info.point.distanceKm} km from the data point` : ''} (${info.point.chosen === 'nearest' ? 'nearest sea point' : info.point.chosen === 'given' ? 'chosen by the coordinator' : 'the file\'s one point'})`,
+        `NetCDF point ${info.point.index.length ? `[${info.point.index.join(', ')}]` : '(single point)'} at ${info.point.lat ?? '?'}, ${info.point.lon ?? '?'}${info.point.distanceKm !== null ? `, ${info.point.distanceKm} km from the data point` : ''} (${info.point.chosen === 'nearest' ? 'nearest sea point' : info.point.chosen === 'given' ? 'chosen by the coordinator' : "the file's one point"})`,
         ...info.notStored,
         ...info.notes,
         ...(givenHeight === undefined ? ['wind taken as given at 10 m above the sea (no anemometer height stated)'] : []),
-        ...(info.depthM !== null && formDepth !== info.depthM ? [`data point depth set to the file's model depth of ${info.depthM} m (the form said ${form.dataPointDepth})`] : []),
+        ...(info.depthM !== null && formDepth !== info.depthM
+          ? [`data point depth set to the file's model depth of ${info.depthM} m (the form said ${form.dataPointDepth})`]
+          : []),
       ],
       netcdf: info,
       timeZone: 'UTC',

@@ -64,7 +64,12 @@ type DatasetRow = typeof dataset.$inferSelect;
  * of them are absent (rows not in the file at all, as opposed to rows with a missing value). An
  * irregular series can hold more records than the grid: then nothing counts as absent.
  */
-export function expectedRecords(startMs: number, endMs: number, stepMinutes: number, records: number): { expected: number; absent: number } {
+export function expectedRecords(
+  startMs: number,
+  endMs: number,
+  stepMinutes: number,
+  records: number,
+): { expected: number; absent: number } {
   const expected = stepMinutes > 0 ? Math.floor((endMs - startMs) / (stepMinutes * 60_000)) + 1 : records;
   return { expected: Math.max(expected, records), absent: Math.max(0, expected - records) };
 }
@@ -110,7 +115,10 @@ const YEAR_MS = 365 * 86_400_000;
 export async function defaultHindcast(db: Db, projectId: string): Promise<DatasetRow | null> {
   const [p] = await db.select({ id: project.defaultHindcastId }).from(project).where(eq(project.id, projectId));
   if (p?.id) {
-    const [row] = await db.select().from(dataset).where(and(eq(dataset.id, p.id), eq(dataset.projectId, projectId)));
+    const [row] = await db
+      .select()
+      .from(dataset)
+      .where(and(eq(dataset.id, p.id), eq(dataset.projectId, projectId)));
     if (row && row.kind !== 'forecast') return row;
   }
   return latestDataset(db, projectId, 'hindcast');
@@ -129,7 +137,12 @@ export function shortDefaultWarning(row: Pick<DatasetRow, 'name' | 'startAt' | '
  * observation record of the project, not a forecast. Audited.
  * @returns the warning for a span under a year, else null
  */
-export async function setDefaultHindcast(db: Db, projectId: string, user: SessionUser, datasetId: string | null): Promise<{ datasetId: string | null; warning: string | null }> {
+export async function setDefaultHindcast(
+  db: Db,
+  projectId: string,
+  user: SessionUser,
+  datasetId: string | null,
+): Promise<{ datasetId: string | null; warning: string | null }> {
   return db.transaction(async (tx) => {
     const [p] = await tx.select().from(project).where(eq(project.id, projectId));
     if (!p) throw new HttpError('not_found', 'Project not found');
@@ -137,7 +150,9 @@ export async function setDefaultHindcast(db: Db, projectId: string, user: Sessio
     if (datasetId !== null) {
       row = await getDatasetRow(tx, projectId, datasetId);
       if (row.kind === 'forecast') {
-        throw new HttpError('validation', 'Statistics need a hindcast (or a long observation record), not a forecast', [{ field: 'datasetId', message: 'is a forecast' }]);
+        throw new HttpError('validation', 'Statistics need a hindcast (or a long observation record), not a forecast', [
+          { field: 'datasetId', message: 'is a forecast' },
+        ]);
       }
     }
     await tx.update(project).set({ defaultHindcastId: datasetId, updatedAt: new Date() }).where(eq(project.id, projectId));
@@ -158,7 +173,10 @@ export async function setDefaultHindcast(db: Db, projectId: string, user: Sessio
 /** The dataset, only when it belongs to the project (else 404). */
 export async function getDatasetRow(db: Db, projectId: string, datasetId: string): Promise<DatasetRow> {
   if (!idParam.safeParse(datasetId).success) throw new HttpError('not_found', 'Dataset not found');
-  const [row] = await db.select().from(dataset).where(and(eq(dataset.id, datasetId), eq(dataset.projectId, projectId)));
+  const [row] = await db
+    .select()
+    .from(dataset)
+    .where(and(eq(dataset.id, datasetId), eq(dataset.projectId, projectId)));
   if (!row) throw new HttpError('not_found', 'Dataset not found');
   return row;
 }

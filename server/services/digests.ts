@@ -10,16 +10,21 @@ import { localTime, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { enqueueMail } from './outbox';
 import { covers, effectiveSubscriptions, markDigestSent } from './subscriptions';
 
-
 /**
  * One operation at one worksite in the digest: may it start now, or its next window; for a
  * recurring operation, its next occurrence with its status (the words of shared/status-words.ts).
  */
 export function digestLine(pl: PlanSummary, nowMs: number): string {
   const next = pl.windows[0];
-  const state = pl.startNow ? START_WORDS.startNow : next ? `${START_WORDS.nextWindow} ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})` : START_WORDS.noWindow;
+  const state = pl.startNow
+    ? START_WORDS.startNow
+    : next
+      ? `${START_WORDS.nextWindow} ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})`
+      : START_WORDS.noWindow;
   const occurrence = pl.occurrences.find((o) => Date.parse(o.start) >= nowMs);
-  const occurrenceWords = occurrence ? `; ${START_WORDS.nextOccurrence} ${localTime(occurrence.start, pl.timeZone)}: ${occurrenceLabel(occurrence.status)}` : '';
+  const occurrenceWords = occurrence
+    ? `; ${START_WORDS.nextOccurrence} ${localTime(occurrence.start, pl.timeZone)}: ${occurrenceLabel(occurrence.status)}`
+    : '';
   return `${pl.operationName} at ${pl.siteName}: ${state}${occurrenceWords}`;
 }
 

@@ -71,7 +71,11 @@ function failAll(pw: PoolWorker, err: Error): void {
  * so this module needs no value import of the services (which import it: no cycle). Arguments and
  * results are copied between threads, except views of shared memory.
  */
-export function runEngineTask<K extends EngineTaskName>(name: K, inThread: EngineTasks[K], ...args: Parameters<EngineTasks[K]>): Promise<ReturnType<EngineTasks[K]>> {
+export function runEngineTask<K extends EngineTaskName>(
+  name: K,
+  inThread: EngineTasks[K],
+  ...args: Parameters<EngineTasks[K]>
+): Promise<ReturnType<EngineTasks[K]>> {
   const count = threadCount();
   if (count === 0) {
     return Promise.resolve().then(() => (inThread as (...a: unknown[]) => ReturnType<EngineTasks[K]>)(...args));

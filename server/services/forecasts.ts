@@ -20,7 +20,12 @@ export interface FetchedForecast {
  * issue. The answer is validated (zod) by the provider before anything is stored; a failure
  * throws and leaves every earlier forecast in place. An issue already stored is not stored twice.
  */
-export async function fetchLatestForecast(db: Db, provider: ForecastProvider, projectId: string, userId: string | null): Promise<FetchedForecast> {
+export async function fetchLatestForecast(
+  db: Db,
+  provider: ForecastProvider,
+  projectId: string,
+  userId: string | null,
+): Promise<FetchedForecast> {
   const [p] = await db.select().from(project).where(eq(project.id, projectId));
   if (!p) throw new HttpError('not_found', 'Project not found');
   if (p.dataPointLatitude === null || p.dataPointLongitude === null) {

@@ -64,7 +64,12 @@ function toEntry(r: LedgerJoined): LedgerEntry {
 export const confirmedOnly = (role: ProjectAccessRole) => role === 'client';
 
 /** Ledger rows from `from` to `to` (inclusive), by day, operation and worksite. */
-export async function listLedger(db: Db, projectId: string, range: { from: string; to: string }, role: ProjectAccessRole): Promise<LedgerEntry[]> {
+export async function listLedger(
+  db: Db,
+  projectId: string,
+  range: { from: string; to: string },
+  role: ProjectAccessRole,
+): Promise<LedgerEntry[]> {
   const conditions = [eq(ledgerDay.projectId, projectId), gte(ledgerDay.day, range.from), lte(ledgerDay.day, range.to)];
   if (confirmedOnly(role)) conditions.push(eq(ledgerDay.status, 'confirmed'));
   const rows = await ledgerSelect(db)
@@ -113,7 +118,9 @@ export async function confirmLedger(
     const corrected = lostHours !== d.proposedLostHours || limiting !== asLimiting(d.proposedLimiting);
     const note = input.note.trim();
     if (corrected && note === '') {
-      throw new HttpError('validation', 'Invalid body: note: a corrected value needs a note saying why', [{ field: 'note', message: 'a corrected value needs a note saying why' }]);
+      throw new HttpError('validation', 'Invalid body: note: a corrected value needs a note saying why', [
+        { field: 'note', message: 'a corrected value needs a note saying why' },
+      ]);
     }
     const [updated] = await tx
       .update(ledgerDay)
@@ -128,7 +135,13 @@ export async function confirmLedger(
       entityId: d.id,
       entityName: `Downtime ledger ${d.day}: ${current.operationName} at ${current.siteName}`,
       action: 'update',
-      before: { status: 'proposed', lostHours: d.proposedLostHours, limiting: d.proposedLimiting, plannedHours: d.plannedHours, source: d.source },
+      before: {
+        status: 'proposed',
+        lostHours: d.proposedLostHours,
+        limiting: d.proposedLimiting,
+        plannedHours: d.plannedHours,
+        source: d.source,
+      },
       after: { status: 'confirmed', lostHours, limiting, plannedHours: d.plannedHours, note, corrected },
     });
     const [after] = await ledgerSelect(tx).where(eq(ledgerDay.id, entryId));

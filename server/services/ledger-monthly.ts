@@ -93,7 +93,10 @@ export async function ledgerMonthly(
   if (options.to) conditions.push(lte(ledgerDay.day, options.to));
   if (confirmedOnly(options.role)) conditions.push(eq(ledgerDay.status, 'confirmed'));
   const [rows, setup, hindcast] = await Promise.all([
-    db.select().from(ledgerDay).where(and(...conditions)),
+    db
+      .select()
+      .from(ledgerDay)
+      .where(and(...conditions)),
     loadProjectSetup(db, projectId),
     statisticsDataset(db, projectId, options.datasetId),
   ]);

@@ -36,7 +36,9 @@ const overlaps = (d: DatasetRowFull, startMs: number, endMs: number) =>
 
 /** Do the datasets' spans together cover [startMs, endMs) without a gap? */
 function unionCovers(list: DatasetRowFull[], startMs: number, endMs: number): boolean {
-  const spansSorted = list.map((d) => [d.startAt.getTime(), d.endAt.getTime() + d.stepMinutes * 60_000] as const).sort((a, b) => a[0] - b[0]);
+  const spansSorted = list
+    .map((d) => [d.startAt.getTime(), d.endAt.getTime() + d.stepMinutes * 60_000] as const)
+    .sort((a, b) => a[0] - b[0]);
   let reached = startMs;
   for (const [a, b] of spansSorted) {
     if (a > reached) break;
@@ -54,7 +56,12 @@ function unionCovers(list: DatasetRowFull[], startMs: number, endMs: number): bo
  * Source per worksite and day: the newest observation dataset that spans the whole day, else the
  * forecast issues that together cover it, each minute from the newest issue that covers it.
  */
-export async function proposeLedger(db: Db, projectId: string, range: { from: string; to: string }, now: Date): Promise<LedgerProposeAnswer> {
+export async function proposeLedger(
+  db: Db,
+  projectId: string,
+  range: { from: string; to: string },
+  now: Date,
+): Promise<LedgerProposeAnswer> {
   const setup = await loadProjectSetup(db, projectId);
   const days = daysOf(range.from, range.to);
   const nowMs = now.getTime();
@@ -81,9 +88,17 @@ export async function proposeLedger(db: Db, projectId: string, range: { from: st
   const candidates = await db
     .select()
     .from(dataset)
-    .where(and(eq(dataset.projectId, projectId), or(eq(dataset.kind, 'observation'), eq(dataset.kind, 'forecast')), lte(dataset.startAt, new Date(maxMs)), gte(dataset.endAt, new Date(minMs - 24 * MS_PER_HOUR))));
+    .where(
+      and(
+        eq(dataset.projectId, projectId),
+        or(eq(dataset.kind, 'observation'), eq(dataset.kind, 'forecast')),
+        lte(dataset.startAt, new Date(maxMs)),
+        gte(dataset.endAt, new Date(minMs - 24 * MS_PER_HOUR)),
+      ),
+    );
   const newest = (a: DatasetRowFull, b: DatasetRowFull) =>
-    (b.issuedAt?.getTime() ?? b.createdAt.getTime()) - (a.issuedAt?.getTime() ?? a.createdAt.getTime()) || b.createdAt.getTime() - a.createdAt.getTime();
+    (b.issuedAt?.getTime() ?? b.createdAt.getTime()) - (a.issuedAt?.getTime() ?? a.createdAt.getTime()) ||
+    b.createdAt.getTime() - a.createdAt.getTime();
   const observations = candidates.filter((d) => d.kind === 'observation').sort((a, b) => b.createdAt.getTime() - a.createdAt.getTime());
   const forecasts = candidates.filter((d) => d.kind === 'forecast').sort(newest);
 
@@ -126,7 +141,14 @@ export async function proposeLedger(db: Db, projectId: string, range: { from: st
   const confirmed = await db
     .select({ operationId: ledgerDay.operationId, siteId: ledgerDay.siteId, day: ledgerDay.day })
     .from(ledgerDay)
-    .where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, 'confirmed'), gte(ledgerDay.day, range.from), lte(ledgerDay.day, range.to)));
+    .where(
+      and(
+        eq(ledgerDay.projectId, projectId),
+        eq(ledgerDay.status, 'confirmed'),
+        gte(ledgerDay.day, range.from),
+        lte(ledgerDay.day, range.to),
+      ),
+    );
   const locked = new Set(confirmed.map((r) => `${r.operationId}|${r.siteId}|${r.day}`));
   let keptConfirmed = 0;
 
@@ -197,7 +219,11 @@ export async function proposeLedger(db: Db, projectId: string, range: { from: st
       });
     }
   }
-  const sources: LedgerProposeAnswer['sources'] = [...used.values()].map((src) => ({ id: src.id, name: src.name, kind: src.kind as 'observation' | 'forecast' }));
+  const sources: LedgerProposeAnswer['sources'] = [...used.values()].map((src) => ({
+    id: src.id,
+    name: src.name,
+    kind: src.kind as 'observation' | 'forecast',
+  }));
 
   let written = 0;
   for (let k = 0; k < rows.length; k += 200) {

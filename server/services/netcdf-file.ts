@@ -220,7 +220,9 @@ function openClassic(path: string): OpenNcFile {
     const end = v.record ? v.offset + Math.max(0, records - 1) * recordStep + inner * typeSize : v.offset + inner * typeSize;
     if (!Number.isFinite(end) || v.offset < 0 || (shape.every((x) => x > 0) && end > fileSize)) {
       fs.closeSync(fd);
-      throw bad(`variable ${v.name} would end at byte ${end.toLocaleString('en-US')} but the file has ${fileSize.toLocaleString('en-US')} bytes: the file is cut short or its header is damaged`);
+      throw bad(
+        `variable ${v.name} would end at byte ${end.toLocaleString('en-US')} but the file has ${fileSize.toLocaleString('en-US')} bytes: the file is cut short or its header is damaged`,
+      );
     }
     variables.push({ name: v.name, dims: v.dimensions.map((id) => dims[id]?.name ?? `dim${id}`), shape, attrs });
     layout.set(v.name, { v, shape });

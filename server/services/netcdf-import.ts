@@ -59,11 +59,18 @@ function pointsOf(file: OpenNcFile, plan: CfPlan): GridPoint[] {
 export const MAX_LISTED_POINTS = 10_000;
 
 /** The points of a NetCDF file and the nearest sea point (the import page's table). */
-export function describeNetcdf(file: OpenNcFile, dataPoint: { name: string; lat: number | null; lon: number | null }, columns: NcColumnMap = {}): NetcdfPointsAnswer {
+export function describeNetcdf(
+  file: OpenNcFile,
+  dataPoint: { name: string; lat: number | null; lon: number | null },
+  columns: NcColumnMap = {},
+): NetcdfPointsAnswer {
   const plan = planCfImport(file, columns);
   const points = pointsOf(file, plan);
   if (points.length > MAX_LISTED_POINTS) {
-    throw new HttpError('bad_file', `The grid has ${points.length.toLocaleString('en-US')} points; at most ${MAX_LISTED_POINTS.toLocaleString('en-US')} are listed: cut the area around the data point first`);
+    throw new HttpError(
+      'bad_file',
+      `The grid has ${points.length.toLocaleString('en-US')} points; at most ${MAX_LISTED_POINTS.toLocaleString('en-US')} are listed: cut the area around the data point first`,
+    );
   }
   const near = dataPoint.lat !== null && dataPoint.lon !== null ? nearestSeaPoint(points, dataPoint.lat, dataPoint.lon) : null;
   const time = plan.time;
@@ -111,27 +118,55 @@ export function readNetcdfPoint(
   let chosen: NetcdfImportInfo['point'];
   if (sizes.length === 0) {
     const [p] = listGridPoints(file, plan);
-    chosen = { index: [], lat: nanToNull(p.lat), lon: nanToNull(p.lon), distanceKm: distanceKm(args.dataPoint, p), missingShare: NaN, chosen: 'single' };
+    chosen = {
+      index: [],
+      lat: nanToNull(p.lat),
+      lon: nanToNull(p.lon),
+      distanceKm: distanceKm(args.dataPoint, p),
+      missingShare: NaN,
+      chosen: 'single',
+    };
   } else if (args.gridPoint) {
     const g = args.gridPoint;
     if (g.length !== sizes.length || g.some((x, k) => x >= sizes[k])) {
-      throw new HttpError('validation', `gridPoint must give ${sizes.length} indices along (${plan.pointDims.join(', ')}), each below (${sizes.join(', ')})`, [
-        { field: 'gridPoint', message: `must be ${sizes.length} indices below (${sizes.join(', ')})` },
-      ]);
+      throw new HttpError(
+        'validation',
+        `gridPoint must give ${sizes.length} indices along (${plan.pointDims.join(', ')}), each below (${sizes.join(', ')})`,
+        [{ field: 'gridPoint', message: `must be ${sizes.length} indices below (${sizes.join(', ')})` }],
+      );
     }
     const p = listGridPoints(file, plan).find((x) => x.index.every((v, k) => v === g[k]))!;
-    chosen = { index: g, lat: nanToNull(p.lat), lon: nanToNull(p.lon), distanceKm: distanceKm(args.dataPoint, p), missingShare: NaN, chosen: 'given' };
+    chosen = {
+      index: g,
+      lat: nanToNull(p.lat),
+      lon: nanToNull(p.lon),
+      distanceKm: distanceKm(args.dataPoint, p),
+      missingShare: NaN,
+      chosen: 'given',
+    };
   } else {
     if (args.dataPoint.lat === null || args.dataPoint.lon === null) {
-      throw new HttpError('validation', 'This NetCDF file is a grid and the project has no data point position: choose the grid point', [{ field: 'gridPoint', message: 'is required' }]);
+      throw new HttpError('validation', 'This NetCDF file is a grid and the project has no data point position: choose the grid point', [
+        { field: 'gridPoint', message: 'is required' },
+      ]);
     }
     const points = pointsOf(file, plan);
     const near = nearestSeaPoint(points, args.dataPoint.lat, args.dataPoint.lon);
     if (!near) {
-      throw new HttpError('bad_file', `No grid point has at most ${MAX_MISSING_SHARE * 100}% of its wave heights missing (or positions): every point is land, ice or dry`);
+      throw new HttpError(
+        'bad_file',
+        `No grid point has at most ${MAX_MISSING_SHARE * 100}% of its wave heights missing (or positions): every point is land, ice or dry`,
+      );
     }
     const p = near.point;
-    chosen = { index: p.index, lat: nanToNull(p.lat), lon: nanToNull(p.lon), distanceKm: round(near.distanceM / 1000, 2), missingShare: round(p.missingShare, 4), chosen: 'nearest' };
+    chosen = {
+      index: p.index,
+      lat: nanToNull(p.lat),
+      lon: nanToNull(p.lon),
+      distanceKm: round(near.distanceM / 1000, 2),
+      missingShare: round(p.missingShare, 4),
+      chosen: 'nearest',
+    };
   }
   const result = readCfPoint(file, plan, { index: chosen.index, waterLevelOffsetM: args.waterLevelOffsetM, onVariable: args.onVariable });
   if (Number.isNaN(chosen.missingShare)) {

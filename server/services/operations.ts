@@ -78,11 +78,7 @@ function fieldError(field: string, message: string): HttpError {
 }
 
 export async function listOperations(db: Db, projectId: string): Promise<OperationResponse[]> {
-  const rows = await db
-    .select()
-    .from(operation)
-    .where(eq(operation.projectId, projectId))
-    .orderBy(asc(operation.name), asc(operation.id));
+  const rows = await db.select().from(operation).where(eq(operation.projectId, projectId)).orderBy(asc(operation.name), asc(operation.id));
   return rows.map(toOperationResponse);
 }
 
@@ -106,7 +102,9 @@ async function assertOperationNameFree(db: Db, projectId: string, name: string, 
   const key = nameKey(name);
   const rows = await db.select({ id: operation.id, name: operation.name }).from(operation).where(eq(operation.projectId, projectId));
   if (rows.some((r) => r.id !== exceptId && nameKey(r.name) === key)) {
-    throw new HttpError('conflict', `An operation named "${name}" already exists in this project`, [{ field: 'name', message: 'already used' }]);
+    throw new HttpError('conflict', `An operation named "${name}" already exists in this project`, [
+      { field: 'name', message: 'already used' },
+    ]);
   }
 }
 

@@ -16,7 +16,10 @@ export interface LinkConfig {
  * mark, with the RFC 8058 headers (List-Unsubscribe with the https link, List-Unsubscribe-Post:
  * List-Unsubscribe=One-Click) so mail programs can offer their own unsubscribe button.
  */
-function withUnsubscribeLink(m: { userId: string | null; projectId: string | null; text: string; html: string; createdAt: Date }, links: LinkConfig | undefined) {
+function withUnsubscribeLink(
+  m: { userId: string | null; projectId: string | null; text: string; html: string; createdAt: Date },
+  links: LinkConfig | undefined,
+) {
   if (!m.text.includes(UNSUBSCRIBE_LINK_MARK) && !m.html.includes(UNSUBSCRIBE_LINK_MARK)) return { text: m.text, html: m.html };
   if (!links || !m.userId || !m.projectId) {
     const none = '(change your alerts on the Alerts page)';
@@ -63,7 +66,12 @@ export const retryDelayMs = (attempt: number) => Math.min(60, 2 ** (attempt - 1)
  * pick the same message. Delivery is at least once: after a crash between the SMTP server's
  * acceptance and the 'sent' update, the retry sends the message again, with the same Message-ID.
  */
-export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options: { maxAttempts: number; log: Logger; limit?: number; links?: LinkConfig }) {
+export async function deliverDueMail(
+  db: Db,
+  mailer: Mailer,
+  now: Date,
+  options: { maxAttempts: number; log: Logger; limit?: number; links?: LinkConfig },
+) {
   const due = await db
     .select()
     .from(outbox)
@@ -102,7 +110,8 @@ export async function deliverDueMail(db: Db, mailer: Mailer, now: Date, options:
 
 /** What coordinators see of a message: never a recipient's unsubscribe link (older messages held one). */
 const HIDDEN_LINK = '(the recipient’s own unsubscribe link)';
-const hideLinks = (s: string) => s.replaceAll(UNSUBSCRIBE_LINK_MARK, HIDDEN_LINK).replace(/https?:\/\/[^\s"'<>]*\/api\/unsubscribe\?[^\s"'<>]*/g, HIDDEN_LINK);
+const hideLinks = (s: string) =>
+  s.replaceAll(UNSUBSCRIBE_LINK_MARK, HIDDEN_LINK).replace(/https?:\/\/[^\s"'<>]*\/api\/unsubscribe\?[^\s"'<>]*/g, HIDDEN_LINK);
 
 export async function listOutbox(db: Db, projectId: string, limit = 100) {
   const rows = await db.select().from(outbox).where(eq(outbox.projectId, projectId)).orderBy(desc(outbox.createdAt)).limit(limit);

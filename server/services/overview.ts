@@ -41,7 +41,8 @@ export function overviewLine(p: OperationSitePlan, nowMs: number, userId: string
   const window = goMs === null ? undefined : p.windows.find((w) => Date.parse(w.start) <= goMs && goMs < Date.parse(w.end));
   const hourMs = Math.floor(nowMs / MS_PER_HOUR) * MS_PER_HOUR;
   const first = p.times.findIndex((t) => Date.parse(t) >= hourMs);
-  const idx = first < 0 ? [] : p.times.map((_, i) => i).filter((i) => i >= first && Date.parse(p.times[i]) < hourMs + NEXT_HOURS * MS_PER_HOUR);
+  const idx =
+    first < 0 ? [] : p.times.map((_, i) => i).filter((i) => i >= first && Date.parse(p.times[i]) < hourMs + NEXT_HOURS * MS_PER_HOUR);
   const endMs = p.times.length ? Date.parse(p.times[p.times.length - 1]) + MS_PER_HOUR : nowMs;
   return {
     operationId: p.operationId,
@@ -76,23 +77,23 @@ async function monthPicture(db: Db, projectId: string, nowMs: number): Promise<O
   const rows: OverviewMonthRow[] = [];
   for (const op of setup.operations)
     for (const site of sitesOf(op, setup.sites)) {
-    const today = dayOf(nowMs, site.timeZone);
-    const month = today.slice(0, 7);
-    const days = confirmed.filter((c) => c.operationId === op.id && c.siteId === site.id && c.day.startsWith(month));
-    const m = expected.get(`${op.id}|${site.id}`)?.months[Number(month.slice(5, 7)) - 1];
-    rows.push({
-      operationId: op.id,
-      operationName: op.name,
-      siteId: site.id,
-      siteName: site.name,
-      month,
-      daysOver: Number(today.slice(8, 10)) - 1,
-      confirmedDays: days.length,
-      confirmedLostHours: Math.round(days.reduce((s, d) => s + (d.lostHours ?? 0), 0) * 100) / 100,
-      expectedP50Hours: m?.p50Hours ?? null,
-      expectedP90Hours: m?.p90Hours ?? null,
-      hindcastYears: m?.years ?? 0,
-    });
+      const today = dayOf(nowMs, site.timeZone);
+      const month = today.slice(0, 7);
+      const days = confirmed.filter((c) => c.operationId === op.id && c.siteId === site.id && c.day.startsWith(month));
+      const m = expected.get(`${op.id}|${site.id}`)?.months[Number(month.slice(5, 7)) - 1];
+      rows.push({
+        operationId: op.id,
+        operationName: op.name,
+        siteId: site.id,
+        siteName: site.name,
+        month,
+        daysOver: Number(today.slice(8, 10)) - 1,
+        confirmedDays: days.length,
+        confirmedLostHours: Math.round(days.reduce((s, d) => s + (d.lostHours ?? 0), 0) * 100) / 100,
+        expectedP50Hours: m?.p50Hours ?? null,
+        expectedP90Hours: m?.p90Hours ?? null,
+        hindcastYears: m?.years ?? 0,
+      });
     }
   rows.sort((a, b) => a.operationName.localeCompare(b.operationName) || a.siteName.localeCompare(b.siteName));
   return { hindcast: hindcast ? { id: hindcast.id, name: hindcast.name } : null, rows };
@@ -100,7 +101,10 @@ async function monthPicture(db: Db, projectId: string, nowMs: number): Promise<O
 
 async function coordinatorPicture(db: Db, projectId: string): Promise<NonNullable<OverviewAnswer['coordinator']>> {
   const [[waiting], [oldest], [failed], datasets] = await Promise.all([
-    db.select({ n: count() }).from(ledgerDay).where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, 'proposed'))),
+    db
+      .select({ n: count() })
+      .from(ledgerDay)
+      .where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, 'proposed'))),
     db
       .select({ day: ledgerDay.day })
       .from(ledgerDay)
@@ -118,12 +122,19 @@ async function coordinatorPicture(db: Db, projectId: string): Promise<NonNullabl
       const warnings: string[] = [];
       // A forecast changes its step (hourly, then 3-hourly): only its missing values count, not the longer steps.
       const gap = d.kind === 'forecast' ? d.missingShare : d.hsGapShare;
-      if (gap > GAP_WARNING_SHARE) warnings.push(`${Math.round(gap * 1000) / 10} % of the Hs ${d.kind === 'forecast' ? 'values' : 'steps'} missing`);
-      if (d.statisticsDefault && Date.parse(d.end) - Date.parse(d.start) < 365 * 86_400_000) warnings.push('the default for statistics spans less than a year');
+      if (gap > GAP_WARNING_SHARE)
+        warnings.push(`${Math.round(gap * 1000) / 10} % of the Hs ${d.kind === 'forecast' ? 'values' : 'steps'} missing`);
+      if (d.statisticsDefault && Date.parse(d.end) - Date.parse(d.start) < 365 * 86_400_000)
+        warnings.push('the default for statistics spans less than a year');
       return { id: d.id, name: d.name, warnings };
     })
     .filter((d) => d.warnings.length > 0);
-  return { ledgerDaysWaiting: waiting?.n ?? 0, oldestWaitingDay: oldest?.day ?? null, failedEmails: failed?.n ?? 0, datasetsWithWarnings: withWarnings };
+  return {
+    ledgerDaysWaiting: waiting?.n ?? 0,
+    oldestWaitingDay: oldest?.day ?? null,
+    failedEmails: failed?.n ?? 0,
+    datasetsWithWarnings: withWarnings,
+  };
 }
 
 /** The Overview of a project for one caller (their role decides the parts beyond the lines). */
@@ -170,7 +181,9 @@ export async function projectOverview(
   return {
     generatedAt: options.now.toISOString(),
     role: caller.role,
-    forecast: plan.dataset ? { id: plan.dataset.id, name: plan.dataset.name, issuedAt: plan.dataset.issuedAt, start: plan.dataset.start, end: plan.dataset.end } : null,
+    forecast: plan.dataset
+      ? { id: plan.dataset.id, name: plan.dataset.name, issuedAt: plan.dataset.issuedAt, start: plan.dataset.start, end: plan.dataset.end }
+      : null,
     dataPointNow,
     lastPlan: run ? { at: run.at.toISOString(), changes } : null,
     lines,

@@ -98,7 +98,10 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
     }
     const plan = await projectPlan(db, projectId, { alpha: true, now });
     if (!plan.dataset) {
-      await db.update(planRun).set({ status: 'failed', error: 'No forecast to plan on', finishedAt: new Date() }).where(eq(planRun.id, run.id));
+      await db
+        .update(planRun)
+        .set({ status: 'failed', error: 'No forecast to plan on', finishedAt: new Date() })
+        .where(eq(planRun.id, run.id));
       return { projectId, status: 'failed', reason: 'No forecast to plan on', planRunId: run.id };
     }
     const summaries = plan.plans.map(summarise);
@@ -121,7 +124,10 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
     for (const [k, list] of bySite) {
       const summary = summaries.find((s) => `${s.operationId}|${s.siteId}` === k)!;
       for (const s of subs.filter((s) => covers(s, summary.operationId, summary.siteId))) {
-        const changeKeys = list.map((c) => c.key).sort().join(',');
+        const changeKeys = list
+          .map((c) => c.key)
+          .sort()
+          .join(',');
         const mail = await alertEmail({
           plan: summary,
           changes: list,
@@ -157,7 +163,10 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
         );
       }
       const n = await enqueueMail(tx as unknown as Db, messages, now);
-      await tx.update(planRun).set({ status: 'ok', datasetId: plan.dataset!.id, plans: summaries, finishedAt: new Date() }).where(eq(planRun.id, run.id));
+      await tx
+        .update(planRun)
+        .set({ status: 'ok', datasetId: plan.dataset!.id, plans: summaries, finishedAt: new Date() })
+        .where(eq(planRun.id, run.id));
       return n;
     });
     await recordCampaignOutlooks(deps, projectId, run.id, now); // campaign outlook history and its alerts (never fails the run)
@@ -175,7 +184,10 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);
     log.warn(`Planning ${p.name} failed; the last plan is kept and the next tick retries`, { error: message });
-    await db.update(planRun).set({ status: 'failed', error: message.slice(0, 1000), finishedAt: new Date() }).where(eq(planRun.id, run.id));
+    await db
+      .update(planRun)
+      .set({ status: 'failed', error: message.slice(0, 1000), finishedAt: new Date() })
+      .where(eq(planRun.id, run.id));
     return { projectId, status: 'failed', reason: message, planRunId: run.id, forecast };
   }
 }
@@ -186,7 +198,10 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
  * `tickAt` (the cron tick's scheduled time) a project already planned on that tick is skipped, so
  * each tick plans each project once however many instances run the schedule.
  */
-export async function runPlanningJob(deps: AppDeps, options: { projectId?: string; trigger: JobTrigger; tickAt?: Date }): Promise<JobResult> {
+export async function runPlanningJob(
+  deps: AppDeps,
+  options: { projectId?: string; trigger: JobTrigger; tickAt?: Date },
+): Promise<JobResult> {
   const startedAt = deps.clock().toISOString();
   const ids = options.projectId
     ? [options.projectId]
@@ -200,7 +215,14 @@ export async function runPlanningJob(deps: AppDeps, options: { projectId?: strin
         const [done] = await deps.db
           .select({ id: planRun.id })
           .from(planRun)
-          .where(and(eq(planRun.projectId, projectId), eq(planRun.trigger, 'schedule'), gte(planRun.startedAt, options.tickAt), ne(planRun.status, 'running')))
+          .where(
+            and(
+              eq(planRun.projectId, projectId),
+              eq(planRun.trigger, 'schedule'),
+              gte(planRun.startedAt, options.tickAt),
+              ne(planRun.status, 'running'),
+            ),
+          )
           .limit(1);
         if (done) return { projectId, status: 'skipped', reason: 'planned on this tick by another instance', planRunId: done.id };
       }
@@ -208,6 +230,10 @@ export async function runPlanningJob(deps: AppDeps, options: { projectId?: strin
     });
     projects.push(locked.acquired ? locked.value : { projectId, status: 'skipped', reason: 'another planning run holds this project' });
   }
-  const mail = await deliverDueMail(deps.db, deps.mailer, deps.clock(), { maxAttempts: deps.config.mailMaxAttempts, log: deps.log, links: deps.config });
+  const mail = await deliverDueMail(deps.db, deps.mailer, deps.clock(), {
+    maxAttempts: deps.config.mailMaxAttempts,
+    log: deps.log,
+    links: deps.config,
+  });
   return { startedAt, projects, mail };
 }

@@ -49,7 +49,10 @@ export interface PlanOptions {
  * stretch of at most MAX_PLAN_DAYS days, by default its last ones, as at the stretch's start, so
  * the answer does not change with the clock.
  */
-export function planSpan(row: Pick<PlanRow, 'kind' | 'startAt' | 'endAt'>, options: Pick<PlanOptions, 'from' | 'to' | 'now'>): { fromMs: number; toMs: number; nowMs: number; keyed: string } {
+export function planSpan(
+  row: Pick<PlanRow, 'kind' | 'startAt' | 'endAt'>,
+  options: Pick<PlanOptions, 'from' | 'to' | 'now'>,
+): { fromMs: number; toMs: number; nowMs: number; keyed: string } {
   const startMs = row.startAt.getTime();
   const endMs = row.endAt.getTime();
   const maxMs = MAX_PLAN_DAYS * DAY_MS;
@@ -71,15 +74,21 @@ export function planSpan(row: Pick<PlanRow, 'kind' | 'startAt' | 'endAt'>, optio
   } else {
     [fromMs, toMs] = [Math.max(startMs, endMs - maxMs), endMs];
   }
-  if (!(toMs > fromMs)) throw new HttpError('validation', 'Invalid query: to: must be after from', [{ field: 'to', message: 'must be after from' }]);
+  if (!(toMs > fromMs))
+    throw new HttpError('validation', 'Invalid query: to: must be after from', [{ field: 'to', message: 'must be after from' }]);
   if (toMs - fromMs > maxMs) {
-    throw new HttpError('validation', `Invalid query: to: a plan covers at most ${MAX_PLAN_DAYS} days`, [{ field: 'to', message: `at most ${MAX_PLAN_DAYS} days after from` }]);
+    throw new HttpError('validation', `Invalid query: to: a plan covers at most ${MAX_PLAN_DAYS} days`, [
+      { field: 'to', message: `at most ${MAX_PLAN_DAYS} days after from` },
+    ]);
   }
   return { fromMs, toMs, nowMs: fromMs, keyed: `${fromMs}-${toMs}` };
 }
 
 function setupKey(setup: ProjectSetup): string {
-  return createHash('sha256').update(JSON.stringify([STATS_FORMAT, setup])).digest('hex').slice(0, 32);
+  return createHash('sha256')
+    .update(JSON.stringify([STATS_FORMAT, setup]))
+    .digest('hex')
+    .slice(0, 32);
 }
 
 /**
@@ -151,14 +160,30 @@ async function computePlan(
         startNow: plan.startNow,
         times,
         status: statusNames,
-        occurrences: occurrencesOf(op.recurrence, series.timeMs, plan.durationMs, statusNames, op.tpopH + op.tcH, options.now.getTime(), plan.informationOnly, starts),
+        occurrences: occurrencesOf(
+          op.recurrence,
+          series.timeMs,
+          plan.durationMs,
+          statusNames,
+          op.tpopH + op.tcH,
+          options.now.getTime(),
+          plan.informationOnly,
+          starts,
+        ),
         limiting: Array.from(plan.limiting, (c) => LIMIT_NAMES[c] ?? null),
         marginRel: Array.from(plan.marginRel, (m) => (Number.isFinite(m) ? Math.round(m * 1000) / 1000 : null)),
       });
     }
   }
   return {
-    dataset: { id: row.id, name: row.name, kind: row.kind, issuedAt: row.issuedAt?.toISOString() ?? null, start: row.startAt.toISOString(), end: row.endAt.toISOString() },
+    dataset: {
+      id: row.id,
+      name: row.name,
+      kind: row.kind,
+      issuedAt: row.issuedAt?.toISOString() ?? null,
+      start: row.startAt.toISOString(),
+      end: row.endAt.toISOString(),
+    },
     span: { from: iso(span.fromMs), to: iso(span.toMs), asAt: iso(span.nowMs) },
     alpha: options.alpha,
     stepMinutes: row.stepMinutes,
@@ -268,9 +293,25 @@ export async function hourChain(
     time: iso(series.timeMs[i]),
     operationId: op.id,
     siteId: site.id,
-    dataPoint: { depthM: row.dataPointDepthM, hs: v(series.hs[i]), tp: v(series.tp[i]), tz: v(series.tz[i]), dir: v(series.dir[i]), wind: v(series.wind[i]) },
+    dataPoint: {
+      depthM: row.dataPointDepthM,
+      hs: v(series.hs[i]),
+      tp: v(series.tp[i]),
+      tz: v(series.tz[i]),
+      dir: v(series.dir[i]),
+      wind: v(series.wind[i]),
+    },
     transform: chain,
-    site: { depthM: site.depthM, waterLevel: waterLevel === null ? null : v(waterLevel), depth: chain.depthM, current: null, hs: v(chain.hsM), bedVelocityLinear: v(chain.bedVelocityLinearMps), bedVelocitySoulsby: v(chain.bedVelocitySoulsbyMps), wind: v(series.wind[i]) },
+    site: {
+      depthM: site.depthM,
+      waterLevel: waterLevel === null ? null : v(waterLevel),
+      depth: chain.depthM,
+      current: null,
+      hs: v(chain.hsM),
+      bedVelocityLinear: v(chain.bedVelocityLinearMps),
+      bedVelocitySoulsby: v(chain.bedVelocitySoulsbyMps),
+      wind: v(series.wind[i]),
+    },
     status: explained.status,
     checks: explained.checks,
     informationOnly: !isWeatherRestricted(spec),

@@ -33,12 +33,7 @@ export async function projectRoleOf(db: Db, user: SessionUser, projectId: string
  * caller's, 403 naming the role when the caller's role is not among `allowed`.
  * Administrators pass every check (they act with a coordinator's rights).
  */
-export async function requireProjectRole(
-  db: Db,
-  req: Request,
-  projectId: string,
-  ...allowed: ProjectRole[]
-): Promise<ProjectAccess> {
+export async function requireProjectRole(db: Db, req: Request, projectId: string, ...allowed: ProjectRole[]): Promise<ProjectAccess> {
   const user = requireUser(req);
   const role = await projectRoleOf(db, user, projectId);
   if (!role) throw new HttpError('not_found', 'Project not found');
@@ -50,9 +45,7 @@ export async function requireProjectRole(
 }
 
 /** Any member (or an administrator) may read. */
-export const requireProjectMember = (db: Db, req: Request, projectId: string) =>
-  requireProjectRole(db, req, projectId);
+export const requireProjectMember = (db: Db, req: Request, projectId: string) => requireProjectRole(db, req, projectId);
 
 /** Coordinators (and administrators) may change the project. */
-export const requireCoordinator = (db: Db, req: Request, projectId: string) =>
-  requireProjectRole(db, req, projectId, 'coordinator');
+export const requireCoordinator = (db: Db, req: Request, projectId: string) => requireProjectRole(db, req, projectId, 'coordinator');

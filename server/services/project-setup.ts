@@ -152,12 +152,22 @@ interface ImportPlan {
  * Everything an import would change, worked out before anything is written; the preview route
  * answers it as is and {@link importSetup} refuses when `preview.refusal` is set.
  */
-async function planImport(db: Db, projectId: string, doc: ProjectSetupDocument, mode: ImportMode, choices: ImportChoices): Promise<ImportPlan> {
+async function planImport(
+  db: Db,
+  projectId: string,
+  doc: ProjectSetupDocument,
+  mode: ImportMode,
+  choices: ImportChoices,
+): Promise<ImportPlan> {
   const [p] = await db.select().from(project).where(eq(project.id, projectId));
   if (!p) throw notFound('Project');
   const existingSites = await db.select().from(worksite).where(eq(worksite.projectId, projectId)).orderBy(asc(worksite.name));
   const existingOps = await db.select().from(operation).where(eq(operation.projectId, projectId)).orderBy(asc(operation.name));
-  const existingCampaigns = await db.select({ name: campaign.name }).from(campaign).where(eq(campaign.projectId, projectId)).orderBy(asc(campaign.name));
+  const existingCampaigns = await db
+    .select({ name: campaign.name })
+    .from(campaign)
+    .where(eq(campaign.projectId, projectId))
+    .orderBy(asc(campaign.name));
   const ledger = await db
     .select({ status: ledgerDay.status, n: count(), first: min(ledgerDay.day), last: max(ledgerDay.day) })
     .from(ledgerDay)
@@ -165,7 +175,10 @@ async function planImport(db: Db, projectId: string, doc: ProjectSetupDocument, 
     .groupBy(ledgerDay.status);
   const confirmed = ledger.find((r) => r.status === 'confirmed');
   const proposed = ledger.find((r) => r.status === 'proposed');
-  const subs = await db.select({ operationIds: subscription.operationIds, siteIds: subscription.siteIds }).from(subscription).where(eq(subscription.projectId, projectId));
+  const subs = await db
+    .select({ operationIds: subscription.operationIds, siteIds: subscription.siteIds })
+    .from(subscription)
+    .where(eq(subscription.projectId, projectId));
 
   const replace = mode === 'replace';
   let refusal: string | null = null;
@@ -204,8 +217,14 @@ async function planImport(db: Db, projectId: string, doc: ProjectSetupDocument, 
     alphaWrite = doc.alphaTable === null || isDefaultTable(doc.alphaTable) ? null : doc.alphaTable;
     alpha =
       alphaWrite === null
-        ? { outcome: 'default', message: `The file has the default table: this project ${current.isDefault ? 'keeps' : 'goes back to'} the default table.` }
-        : { outcome: 'set', message: `The file’s own alpha table replaces ${current.isDefault ? 'the default table' : 'this project’s table'}.` };
+        ? {
+            outcome: 'default',
+            message: `The file has the default table: this project ${current.isDefault ? 'keeps' : 'goes back to'} the default table.`,
+          }
+        : {
+            outcome: 'set',
+            message: `The file’s own alpha table replaces ${current.isDefault ? 'the default table' : 'this project’s table'}.`,
+          };
   }
 
   // Data point.
@@ -214,12 +233,20 @@ async function planImport(db: Db, projectId: string, doc: ProjectSetupDocument, 
   const mine = hasDataPoint(p) ? `its own data point ${dataPointWords(p)}` : 'no data point';
   if (!hasDataPoint(doc.project)) dataPoint = { outcome: 'kept', message: `The file has no data point: this project keeps ${mine}.` };
   else if (takeDataPoint) dataPoint = { outcome: 'set', message: `The file’s data point ${dataPointWords(doc.project)} replaces ${mine}.` };
-  else dataPoint = { outcome: 'kept', message: `The file’s data point ${dataPointWords(doc.project)} is left out: this project keeps ${mine}.` };
+  else
+    dataPoint = {
+      outcome: 'kept',
+      message: `The file’s data point ${dataPointWords(doc.project)} is left out: this project keeps ${mine}.`,
+    };
 
   const preview: ImportPreviewResponse = {
     mode,
     refusal,
-    adds: { worksites: doc.worksites.map((w) => w.name), operations: doc.operations.map((o) => o.name), campaigns: (doc.campaigns ?? []).map((c) => c.name) },
+    adds: {
+      worksites: doc.worksites.map((w) => w.name),
+      operations: doc.operations.map((o) => o.name),
+      campaigns: (doc.campaigns ?? []).map((c) => c.name),
+    },
     removes: {
       worksites: replace ? existingSites.map((s) => s.name) : [],
       operations: replace ? existingOps.map((o) => o.name) : [],
@@ -357,7 +384,10 @@ export async function importSetup(
       await tx.insert(campaign).values({
         projectId,
         name: c.name,
-        steps: c.steps.map((st) => ({ operationId: opIdByKey.get(nameKey(st.operationName))!, siteId: siteIdByKey.get(nameKey(st.siteName))! })),
+        steps: c.steps.map((st) => ({
+          operationId: opIdByKey.get(nameKey(st.operationName))!,
+          siteId: siteIdByKey.get(nameKey(st.siteName))!,
+        })),
         plannedStart: c.plannedStart ? new Date(c.plannedStart) : null,
         timeZone: c.timeZone,
       });

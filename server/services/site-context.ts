@@ -1,5 +1,11 @@
 import { asc, eq } from 'drizzle-orm';
-import { DEFAULT_ALPHA_TABLE, operationLimitsSchema, type AlphaTable, type OperationSpec, type SiteSeries as EngineSeries } from '../../shared/engine';
+import {
+  DEFAULT_ALPHA_TABLE,
+  operationLimitsSchema,
+  type AlphaTable,
+  type OperationSpec,
+  type SiteSeries as EngineSeries,
+} from '../../shared/engine';
 import { transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
 import type { Db } from '../db/client';
 import { operation, projectAlpha, worksite } from '../db/schema';
@@ -100,7 +106,12 @@ export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitud
  * h(t) and the predicted extremes; without, the chart depth (so depth limits still apply) and no
  * extremes (a tide window then finds no data).
  */
-export function engineSeries(series: SeaSeries, transformed: TransformedSeries, site: Pick<WorksiteRow, 'depthM'>, tide: SiteTide | null): EngineSeries {
+export function engineSeries(
+  series: SeaSeries,
+  transformed: TransformedSeries,
+  site: Pick<WorksiteRow, 'depthM'>,
+  tide: SiteTide | null,
+): EngineSeries {
   return {
     timeMs: series.timeMs,
     hsM: transformed.hsM,

@@ -89,7 +89,9 @@ async function assertSiteNameFree(db: Db, projectId: string, name: string, excep
   const key = nameKey(name);
   const rows = await db.select({ id: worksite.id, name: worksite.name }).from(worksite).where(eq(worksite.projectId, projectId));
   if (rows.some((r) => r.id !== exceptId && nameKey(r.name) === key)) {
-    throw new HttpError('conflict', `A worksite named "${name}" already exists in this project`, [{ field: 'name', message: 'already used' }]);
+    throw new HttpError('conflict', `A worksite named "${name}" already exists in this project`, [
+      { field: 'name', message: 'already used' },
+    ]);
   }
 }
 

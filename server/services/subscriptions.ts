@@ -33,16 +33,35 @@ export async function effectiveSubscriptions(db: Db, projectId: string): Promise
     const row = rows.find((r) => r.userId === m.userId);
     if (row) {
       out.push({
-        userId: m.userId, email: m.email, name: m.name, stored: true,
-        operationIds: row.operationIds, siteIds: row.siteIds, immediate: row.immediate, digest: row.digest,
-        digestTime: row.digestTime, digestTimeZone: row.digestTimeZone, active: row.active, outlookMoveDays: row.outlookMoveDays,
+        userId: m.userId,
+        email: m.email,
+        name: m.name,
+        stored: true,
+        operationIds: row.operationIds,
+        siteIds: row.siteIds,
+        immediate: row.immediate,
+        digest: row.digest,
+        digestTime: row.digestTime,
+        digestTimeZone: row.digestTimeZone,
+        active: row.active,
+        outlookMoveDays: row.outlookMoveDays,
       });
     } else if (m.role === 'skipper') {
       const assigned = ops.filter((o) => o.skipperIds.includes(m.userId)).map((o) => o.id);
       if (assigned.length === 0) continue;
       out.push({
-        userId: m.userId, email: m.email, name: m.name, stored: false,
-        operationIds: assigned, siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true, outlookMoveDays: null,
+        userId: m.userId,
+        email: m.email,
+        name: m.name,
+        stored: false,
+        operationIds: assigned,
+        siteIds: [],
+        immediate: true,
+        digest: false,
+        digestTime: '06:00',
+        digestTimeZone: 'UTC',
+        active: true,
+        outlookMoveDays: null,
       });
     }
   }
@@ -50,7 +69,9 @@ export async function effectiveSubscriptions(db: Db, projectId: string): Promise
 }
 
 export const covers = (s: SubscriptionInput, operationId: string, siteId: string) =>
-  s.active && (s.operationIds.length === 0 || s.operationIds.includes(operationId)) && (s.siteIds.length === 0 || s.siteIds.includes(siteId));
+  s.active &&
+  (s.operationIds.length === 0 || s.operationIds.includes(operationId)) &&
+  (s.siteIds.length === 0 || s.siteIds.includes(siteId));
 
 export async function mySubscription(db: Db, userId: string, projectId: string): Promise<EffectiveSubscription | null> {
   const all = await effectiveSubscriptions(db, projectId);
@@ -83,18 +104,41 @@ async function refuseForeignIds(db: Db, projectId: string, input: SubscriptionIn
       .where(and(ne(table.projectId, projectId), inArray(table.id, [...ids])));
     if (foreign.length === 0) continue;
     const index = ids.indexOf(foreign[0].id);
-    throw new HttpError('validation', `Invalid body: ${field}.${index}: not in this project`, [{ field: `${field}.${index}`, message: 'not in this project' }]);
+    throw new HttpError('validation', `Invalid body: ${field}.${index}: not in this project`, [
+      { field: `${field}.${index}`, message: 'not in this project' },
+    ]);
   }
 }
 
 /** One-click unsubscribe: stores an inactive subscription (keeping any choices made before). */
 export async function unsubscribe(db: Db, userId: string, projectId: string): Promise<void> {
   const current = await mySubscription(db, userId, projectId);
-  const base: SubscriptionInput = current ?? { operationIds: [], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true, outlookMoveDays: null };
+  const base: SubscriptionInput = current ?? {
+    operationIds: [],
+    siteIds: [],
+    immediate: true,
+    digest: false,
+    digestTime: '06:00',
+    digestTimeZone: 'UTC',
+    active: true,
+    outlookMoveDays: null,
+  };
   const { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, outlookMoveDays } = base;
-  await saveSubscription(db, userId, projectId, { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, active: false, outlookMoveDays });
+  await saveSubscription(db, userId, projectId, {
+    operationIds,
+    siteIds,
+    immediate,
+    digest,
+    digestTime,
+    digestTimeZone,
+    active: false,
+    outlookMoveDays,
+  });
 }
 
 export async function markDigestSent(db: Db, userId: string, projectId: string, at: Date): Promise<void> {
-  await db.update(subscription).set({ lastDigestAt: at }).where(and(eq(subscription.userId, userId), eq(subscription.projectId, projectId)));
+  await db
+    .update(subscription)
+    .set({ lastDigestAt: at })
+    .where(and(eq(subscription.userId, userId), eq(subscription.projectId, projectId)));
 }

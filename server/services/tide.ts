@@ -78,7 +78,9 @@ export interface TidePredictor {
 const toRad = Math.PI / 180;
 /** Great-circle distance, km (haversine, mean Earth radius 6371.0 km). */
 function distanceKm(lat1: number, lon1: number, lat2: number, lon2: number): number {
-  const a = Math.sin(((lat2 - lat1) * toRad) / 2) ** 2 + Math.cos(lat1 * toRad) * Math.cos(lat2 * toRad) * Math.sin(((lon2 - lon1) * toRad) / 2) ** 2;
+  const a =
+    Math.sin(((lat2 - lat1) * toRad) / 2) ** 2 +
+    Math.cos(lat1 * toRad) * Math.cos(lat2 * toRad) * Math.sin(((lon2 - lon1) * toRad) / 2) ** 2;
   return 2 * 6371.0 * Math.asin(Math.min(1, Math.sqrt(a)));
 }
 
@@ -86,10 +88,14 @@ type DbStation = NonNullable<ReturnType<typeof stationsById.get>>;
 
 function stationInfo(s: DbStation, km: number | null): TideStationInfo {
   const warnings: string[] = [];
-  if (km !== null && km > TIDE_STATION_FAR_KM) warnings.push(`The station is ${km.toFixed(1)} km away (over ${TIDE_STATION_FAR_KM} km): the tide at the worksite may differ in time and height.`);
+  if (km !== null && km > TIDE_STATION_FAR_KM)
+    warnings.push(
+      `The station is ${km.toFixed(1)} km away (over ${TIDE_STATION_FAR_KM} km): the tide at the worksite may differ in time and height.`,
+    );
   const names = new Set(s.harmonic_constituents.map((c) => c.name.toUpperCase()));
   const missing = TIDE_MAIN_CONSTITUENTS.filter((m) => !names.has(m));
-  if (s.type === 'subordinate') warnings.push(`A subordinate station: its tide is its reference station's, shifted by time and height offsets.`);
+  if (s.type === 'subordinate')
+    warnings.push(`A subordinate station: its tide is its reference station's, shifted by time and height offsets.`);
   else if (missing.length > 0) warnings.push(`Incomplete constants: ${missing.join(', ')} missing.`);
   if (!s.chart_datum) warnings.push('The station names no chart datum: levels are referred to its mean sea level.');
   return {
@@ -109,8 +115,15 @@ function stationInfo(s: DbStation, km: number | null): TideStationInfo {
 }
 
 /** Tide stations within {@link TIDE_STATION_SEARCH_KM} of a position, nearest first. */
-export function nearbyTideStations(latitude: number, longitude: number, maxResults = 5, kind: 'tide' | 'current' = 'tide'): TideStationInfo[] {
-  return near({ lat: latitude, lon: longitude, maxDistance: TIDE_STATION_SEARCH_KM, maxResults, filter: (s) => s.kind === kind }).map(([s, km]) => stationInfo(s, km));
+export function nearbyTideStations(
+  latitude: number,
+  longitude: number,
+  maxResults = 5,
+  kind: 'tide' | 'current' = 'tide',
+): TideStationInfo[] {
+  return near({ lat: latitude, lon: longitude, maxDistance: TIDE_STATION_SEARCH_KM, maxResults, filter: (s) => s.kind === kind }).map(
+    ([s, km]) => stationInfo(s, km),
+  );
 }
 
 /**
@@ -123,12 +136,16 @@ export function checkTideInput(tide: WorksiteTideInput | null | undefined): void
     (tide.constituents ?? []).forEach((c, i) => {
       if (!(c.name in knownConstituents) && !(c.name.toUpperCase() in knownConstituents)) {
         const field = `tide.constituents.${i}.name`;
-        throw new HttpError('validation', `Invalid body: ${field}: unknown constituent ${c.name}`, [{ field, message: `Unknown constituent ${c.name} (use names such as M2, S2, N2, K1, O1)` }]);
+        throw new HttpError('validation', `Invalid body: ${field}: unknown constituent ${c.name}`, [
+          { field, message: `Unknown constituent ${c.name} (use names such as M2, S2, N2, K1, O1)` },
+        ]);
       }
     });
   }
   if (tide.source === 'station' && !stationsById.has(tide.stationId ?? '')) {
-    throw new HttpError('validation', `Invalid body: tide.stationId: no tide station ${tide.stationId}`, [{ field: 'tide.stationId', message: `No tide station with the id ${tide.stationId}` }]);
+    throw new HttpError('validation', `Invalid body: tide.stationId: no tide station ${tide.stationId}`, [
+      { field: 'tide.stationId', message: `No tide station with the id ${tide.stationId}` },
+    ]);
   }
 }
 
@@ -142,7 +159,10 @@ function packageName(name: string): string {
  * The predictor of a worksite's tide, or null for none. `position` gives the station's distance.
  * @throws HttpError 400 for an unknown constituent or station (see {@link checkTideInput}).
  */
-export function tidePredictor(tide: WorksiteTideInput | null | undefined, position?: { latitude: number | null; longitude: number | null }): TidePredictor | null {
+export function tidePredictor(
+  tide: WorksiteTideInput | null | undefined,
+  position?: { latitude: number | null; longitude: number | null },
+): TidePredictor | null {
   if (!tide || tide.source === 'none') return null;
   checkTideInput(tide);
   if (tide.source === 'constants') {
@@ -156,11 +176,16 @@ export function tidePredictor(tide: WorksiteTideInput | null | undefined, positi
     };
   }
   const s = stationsById.get(tide.stationId ?? '')!;
-  const km = position?.latitude != null && position.longitude != null ? distanceKm(position.latitude, position.longitude, s.latitude, s.longitude) : null;
+  const km =
+    position?.latitude != null && position.longitude != null
+      ? distanceKm(position.latitude, position.longitude, s.latitude, s.longitude)
+      : null;
   // The database's station is the predictor's station type (same fields); the cast bridges the two packages' declarations.
   const sp = useStation(s as unknown as Parameters<typeof useStation>[0]);
   return {
-    timeline: (a, b, stepS) => sp.getTimelinePrediction({ start: new Date(a), end: new Date(b), timeFidelity: stepS, nodeCorrections: TIDE_NODE_CORRECTIONS }).timeline,
+    timeline: (a, b, stepS) =>
+      sp.getTimelinePrediction({ start: new Date(a), end: new Date(b), timeFidelity: stepS, nodeCorrections: TIDE_NODE_CORRECTIONS })
+        .timeline,
     extremes: (a, b) => sp.getExtremesPrediction({ start: new Date(a), end: new Date(b), nodeCorrections: TIDE_NODE_CORRECTIONS }).extremes,
     station: stationInfo(s, km),
     key: `s:${s.id}:${TIDE_NODE_CORRECTIONS}`,
@@ -236,7 +261,12 @@ export interface TideAnswer {
  * Levels every 15 min (spans up to 7 days) or every hour (longer), and the extremes, from `fromMs`
  * to `toMs`; null when the worksite has no tide.
  */
-export function tideAnswer(tide: WorksiteTideInput | null, position: { latitude: number | null; longitude: number | null }, fromMs: number, toMs: number): TideAnswer | null {
+export function tideAnswer(
+  tide: WorksiteTideInput | null,
+  position: { latitude: number | null; longitude: number | null },
+  fromMs: number,
+  toMs: number,
+): TideAnswer | null {
   const p = tidePredictor(tide, position);
   if (!p || !tide) return null;
   const stepMs = toMs - fromMs <= 7 * 86_400_000 ? 15 * 60_000 : HOUR_MS;
@@ -245,7 +275,9 @@ export function tideAnswer(tide: WorksiteTideInput | null, position: { latitude:
   const times = new Float64Array(count);
   for (let k = 0; k < count; k++) times[k] = start + k * stepMs;
   const levels = predictLevels(p, times);
-  const extremes = p.extremes(fromMs, toMs).map((e) => ({ time: e.time.toISOString(), level: e.level, kind: e.high ? ('high' as const) : ('low' as const) }));
+  const extremes = p
+    .extremes(fromMs, toMs)
+    .map((e) => ({ time: e.time.toISOString(), level: e.level, kind: e.high ? ('high' as const) : ('low' as const) }));
   return {
     times: Array.from(times, (t) => new Date(t).toISOString()),
     waterLevel: Array.from(levels),

@@ -22,7 +22,14 @@ export async function describeMe(db: Db, me: SessionUser): Promise<MeResponse> {
     .innerJoin(project, eq(project.id, projectMember.projectId))
     .where(eq(projectMember.userId, me.id))
     .orderBy(asc(project.name));
-  return { id: me.id, name: me.name, email: me.email, globalRole: me.role, mustChangePassword: me.mustChangePassword ?? false, projects: memberships };
+  return {
+    id: me.id,
+    name: me.name,
+    email: me.email,
+    globalRole: me.role,
+    mustChangePassword: me.mustChangePassword ?? false,
+    projects: memberships,
+  };
 }
 
 export async function listUsers(db: Db): Promise<AdminUser[]> {
@@ -41,9 +48,7 @@ export async function listUsers(db: Db): Promise<AdminUser[]> {
     createdAt: u.createdAt.toISOString(),
     mustChangePassword: u.mustChangePassword,
     temporaryPasswordExpiresAt: u.mustChangePassword ? (u.temporaryPasswordExpiresAt?.toISOString() ?? null) : null,
-    projects: memberships
-      .filter((m) => m.userId === u.id)
-      .map(({ projectId, projectName, role }) => ({ projectId, projectName, role })),
+    projects: memberships.filter((m) => m.userId === u.id).map(({ projectId, projectName, role }) => ({ projectId, projectName, role })),
   }));
 }
 
@@ -114,7 +119,12 @@ export async function createUserFromInput(auth: Auth, input: CreateUserInput, no
  * Issues a new temporary password (a forgotten or expired one): the old password stops working,
  * every session of the user ends, and the new one must be changed at the next sign-in.
  */
-export async function issueTemporaryPassword(auth: Auth, db: Db, userId: string, now = new Date()): Promise<{ temporaryPassword: string; expiresAt: string }> {
+export async function issueTemporaryPassword(
+  auth: Auth,
+  db: Db,
+  userId: string,
+  now = new Date(),
+): Promise<{ temporaryPassword: string; expiresAt: string }> {
   checkUserId(userId);
   const [target] = await db.select({ id: user.id, email: user.email, name: user.name }).from(user).where(eq(user.id, userId));
   if (!target) throw new HttpError('not_found', 'User not found');
@@ -130,7 +140,10 @@ export async function issueTemporaryPassword(auth: Auth, db: Db, userId: string,
       .where(and(eq(account.userId, userId), eq(account.providerId, 'credential')))
       .returning({ id: account.id });
     if (updated.length === 0) throw new HttpError('conflict', 'This user has no password sign-in');
-    await tx.update(user).set({ mustChangePassword: true, temporaryPasswordExpiresAt: expiresAt, updatedAt: now }).where(eq(user.id, userId));
+    await tx
+      .update(user)
+      .set({ mustChangePassword: true, temporaryPasswordExpiresAt: expiresAt, updatedAt: now })
+      .where(eq(user.id, userId));
     await tx.delete(session).where(eq(session.userId, userId));
   });
   return { temporaryPassword: pw, expiresAt: expiresAt.toISOString() };
@@ -172,10 +185,7 @@ export async function setMembership(db: Db, userId: string, projectId: string, r
 
 export async function removeMembership(db: Db, userId: string, projectId: string): Promise<void> {
   checkUserId(userId);
-  const deleted = await db
-    .delete(projectMember)
-    .where(eqBoth(userId, projectId))
-    .returning({ id: projectMember.id });
+  const deleted = await db.delete(projectMember).where(eqBoth(userId, projectId)).returning({ id: projectMember.id });
   if (deleted.length === 0) throw new HttpError('not_found', 'Membership not found');
 }
 
@@ -187,5 +197,4 @@ function checkUserId(userId: string): void {
   if (userId.length > 200 || hasControlChars(userId) || hasLoneSurrogate(userId)) throw new HttpError('not_found', 'User not found');
 }
 
-const eqBoth = (userId: string, projectId: string) =>
-  and(eq(projectMember.userId, userId), eq(projectMember.projectId, projectId));
+const eqBoth = (userId: string, projectId: string) => and(eq(projectMember.userId, userId), eq(projectMember.projectId, projectId));

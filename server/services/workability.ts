@@ -29,7 +29,16 @@ import { statsCache } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { defaultHindcast, getDatasetRow, latestDataset } from './datasets';
 import { readSeries, type SeaSeries } from './series-store';
-import { engineSeries, loadProjectSetup, operationSpec, siteTide, sitesOf, type OperationRow, type ProjectSetup, type WorksiteRow } from './site-context';
+import {
+  engineSeries,
+  loadProjectSetup,
+  operationSpec,
+  siteTide,
+  sitesOf,
+  type OperationRow,
+  type ProjectSetup,
+  type WorksiteRow,
+} from './site-context';
 import { ByteBoundedMemo, jsonBytes, seriesBytes } from './byte-cache';
 import { encodedAnswer, forgetEncodedAnswers } from './encoded-answers';
 import { runEngineTask, sharedSeries } from './engine-pool';
@@ -97,7 +106,14 @@ export async function settleStatsCache(): Promise<void> {
  * dataset and variant (`${datasetId}:*:${variant}`) are deleted when a new one is written, so the
  * table holds one entry per dataset and variant.
  */
-export async function cachedStats<T>(db: Db, projectId: string, datasetId: string, version: string, variant: string, compute: () => Promise<T>): Promise<T> {
+export async function cachedStats<T>(
+  db: Db,
+  projectId: string,
+  datasetId: string,
+  version: string,
+  variant: string,
+  compute: () => Promise<T>,
+): Promise<T> {
   const key = `${datasetId}:${version}:${variant}`;
   const m = memoOf(db);
   const p = async () => {
@@ -141,7 +157,15 @@ export function limitsVersion(setup: ProjectSetup, dataPointDepthM: number | nul
     format: STATS_FORMAT,
     operations: byId(setup.operations).map((o) => [o.id, o.tpopH, o.tcH, o.weatherRestricted, canonical(o.limits), [...o.siteIds].sort()]),
     // The tide constants (or station) change the depth of every record (docs/domain.md#tide).
-    sites: byId(setup.sites).map((s) => [s.id, s.depthM, s.shoreNormalDeg, s.breakerIndex, s.timeZone, canonical(s.transferTable), canonical(s.tide)]),
+    sites: byId(setup.sites).map((s) => [
+      s.id,
+      s.depthM,
+      s.shoreNormalDeg,
+      s.breakerIndex,
+      s.timeZone,
+      canonical(s.transferTable),
+      canonical(s.tide),
+    ]),
     alpha: setup.alphaTable,
     dataPointDepthM,
   };
@@ -240,7 +264,9 @@ export async function statisticsDataset(db: Db, projectId: string, datasetId?: s
   if (!datasetId) return defaultHindcast(db, projectId);
   const row = await getDatasetRow(db, projectId, datasetId);
   if (row.kind === 'forecast') {
-    throw new HttpError('validation', 'Statistics need a hindcast (or a long observation record), not a forecast', [{ field: 'dataset', message: 'is a forecast' }]);
+    throw new HttpError('validation', 'Statistics need a hindcast (or a long observation record), not a forecast', [
+      { field: 'dataset', message: 'is a forecast' },
+    ]);
   }
   return row;
 }
@@ -294,7 +320,11 @@ export interface WorkabilityResult {
  * Workability statistics of every operation at each of its worksites on a hindcast (by default
  * the project's newest), with or without alpha (docs/domain.md#convention-14), in operation then worksite order.
  */
-export async function projectWorkability(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean }): Promise<WorkabilityResult> {
+export async function projectWorkability(
+  db: Db,
+  projectId: string,
+  options: { datasetId?: string; alpha: boolean },
+): Promise<WorkabilityResult> {
   const row = await statisticsDataset(db, projectId, options.datasetId);
   if (!row) return { dataset: null, entries: [] };
   const setup = await loadProjectSetup(db, projectId);
@@ -305,12 +335,21 @@ export async function projectWorkability(db: Db, projectId: string, options: { d
  * The same entries as JSON bytes, kept encoded under the dataset, the whole project setup (limits
  * and the names shown) and alpha; `datasetId` is the dataset used (null without any hindcast).
  */
-export async function projectWorkabilityJson(db: Db, projectId: string, options: { datasetId?: string; alpha: boolean }): Promise<{ datasetId: string | null; body: Buffer }> {
+export async function projectWorkabilityJson(
+  db: Db,
+  projectId: string,
+  options: { datasetId?: string; alpha: boolean },
+): Promise<{ datasetId: string | null; body: Buffer }> {
   const row = await statisticsDataset(db, projectId, options.datasetId);
   if (!row) return { datasetId: null, body: Buffer.from('[]') };
   const setup = await loadProjectSetup(db, projectId);
-  const setupHash = createHash('sha256').update(JSON.stringify([STATS_FORMAT, setup, row.dataPointDepthM])).digest('hex').slice(0, 32);
-  const body = await encodedAnswer(db, `workability:${row.id}:${setupHash}:${options.alpha}`, () => workabilityEntries(db, row, setup, options.alpha));
+  const setupHash = createHash('sha256')
+    .update(JSON.stringify([STATS_FORMAT, setup, row.dataPointDepthM]))
+    .digest('hex')
+    .slice(0, 32);
+  const body = await encodedAnswer(db, `workability:${row.id}:${setupHash}:${options.alpha}`, () =>
+    workabilityEntries(db, row, setup, options.alpha),
+  );
   return { datasetId: row.id, body };
 }
 
@@ -349,7 +388,6 @@ async function workabilityEntries(db: Db, row: DatasetRow, setup: ProjectSetup, 
 // ---------------------------------------------------------------------------------------------
 // CSV
 // ---------------------------------------------------------------------------------------------
-
 
 /**
  * The statistics as one flat CSV table: a row per calendar month (`scope` = month, `year` empty)

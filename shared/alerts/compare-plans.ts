@@ -59,7 +59,8 @@ export function usableStarts(w: { start: string; end: string }, trHours: number,
 }
 
 const ms = (iso: string) => Date.parse(iso);
-const overlaps = (a: { start: string; end: string }, b: { start: string; end: string }) => ms(a.start) < ms(b.end) && ms(b.start) < ms(a.end);
+const overlaps = (a: { start: string; end: string }, b: { start: string; end: string }) =>
+  ms(a.start) < ms(b.end) && ms(b.start) < ms(a.end);
 
 export function comparePlans(
   previous: PlanSummary[] | null,
@@ -76,29 +77,74 @@ export function comparePlans(
       const usable = usableStarts(w, n.tr, options.nowMs);
       if (usable === null) continue;
       if (!prevWindows.some((pw) => overlaps(pw, w))) {
-        changes.push({ ...base, kind: 'window_opened', key: `opened:${w.start}`, start: w.start, end: w.end, hours: w.hours, previous: null, usableFrom: usable.from, lastStart: usable.last });
+        changes.push({
+          ...base,
+          kind: 'window_opened',
+          key: `opened:${w.start}`,
+          start: w.start,
+          end: w.end,
+          hours: w.hours,
+          previous: null,
+          usableFrom: usable.from,
+          lastStart: usable.last,
+        });
       }
     }
     for (const pw of prevWindows) {
       if (!n.windows.some((w) => overlaps(pw, w))) {
         const usable = usableStarts(pw, p!.tr, options.nowMs)!;
-        changes.push({ ...base, kind: 'window_lost', key: `lost:${pw.start}`, start: pw.start, end: pw.end, hours: pw.hours, previous: null, usableFrom: usable.from, lastStart: usable.last });
+        changes.push({
+          ...base,
+          kind: 'window_lost',
+          key: `lost:${pw.start}`,
+          start: pw.start,
+          end: pw.end,
+          hours: pw.hours,
+          previous: null,
+          usableFrom: usable.from,
+          lastStart: usable.last,
+        });
       }
     }
     if (p && p.earliestStart && n.earliestStart) {
       const movedH = Math.abs(ms(n.earliestStart) - ms(p.earliestStart)) / 3_600_000;
       if (movedH > options.earliestMoveHours) {
-        changes.push({ ...base, kind: 'earliest_moved', key: `earliest:${n.earliestStart}`, start: n.earliestStart, end: null, hours: null, previous: p.earliestStart });
+        changes.push({
+          ...base,
+          kind: 'earliest_moved',
+          key: `earliest:${n.earliestStart}`,
+          start: n.earliestStart,
+          end: null,
+          hours: null,
+          previous: p.earliestStart,
+        });
       }
     }
     if (p && p.startNow !== n.startNow) {
-      changes.push({ ...base, kind: 'start_now_changed', key: `startnow:${n.startNow}:${Math.floor(options.nowMs / 3_600_000)}`, start: null, end: null, hours: null, previous: null, startNow: n.startNow });
+      changes.push({
+        ...base,
+        kind: 'start_now_changed',
+        key: `startnow:${n.startNow}:${Math.floor(options.nowMs / 3_600_000)}`,
+        start: null,
+        end: null,
+        hours: null,
+        previous: null,
+        startNow: n.startNow,
+      });
     }
     const prevOcc = new Map((p?.occurrences ?? []).map((o) => [o.start, o.status]));
     for (const o of n.occurrences) {
       const before = prevOcc.get(o.start);
       if (o.status === 'no_go' && before !== 'no_go' && ms(o.start) > options.nowMs) {
-        changes.push({ ...base, kind: 'occurrence_no_go', key: `occurrence:${o.start}`, start: o.start, end: null, hours: n.tr, previous: before ?? null });
+        changes.push({
+          ...base,
+          kind: 'occurrence_no_go',
+          key: `occurrence:${o.start}`,
+          start: o.start,
+          end: null,
+          hours: n.tr,
+          previous: before ?? null,
+        });
       }
     }
   }

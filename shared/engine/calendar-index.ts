@@ -84,7 +84,8 @@ export function calendarIndex(timeMs: Float64Array, timeZone: string): CalendarI
   if (n === 0) return { timeZone, month, yearMonth };
   const tFirst = timeMs[0];
   const tLast = timeMs[n - 1];
-  if (!Number.isFinite(tFirst) || !Number.isFinite(tLast) || tLast < tFirst) throw new RangeError('calendarIndex: times must be finite and ascending');
+  if (!Number.isFinite(tFirst) || !Number.isFinite(tLast) || tLast < tFirst)
+    throw new RangeError('calendarIndex: times must be finite and ascending');
   // Month starts from the month before the first record's to the month after the last's.
   let ymFirst = localYearMonth(tFirst, timeZone);
   while (monthStart(ymFirst, timeZone) > tFirst) ymFirst--;

@@ -86,7 +86,15 @@ export function hindcastYearShifts(handoverMs: number, timeMs: Float64Array, ste
   const fromYear = new Date(firstMs).getUTCFullYear();
   const toYear = new Date(endMs).getUTCFullYear();
   for (let year = fromYear; year <= toYear; year++) {
-    const mapped = Date.UTC(year, h.getUTCMonth(), h.getUTCDate(), h.getUTCHours(), h.getUTCMinutes(), h.getUTCSeconds(), h.getUTCMilliseconds());
+    const mapped = Date.UTC(
+      year,
+      h.getUTCMonth(),
+      h.getUTCDate(),
+      h.getUTCHours(),
+      h.getUTCMinutes(),
+      h.getUTCSeconds(),
+      h.getUTCMilliseconds(),
+    );
     if (mapped < firstMs || mapped >= endMs) continue;
     out.push({ year, shiftMs: mapped - handoverMs });
   }
@@ -146,7 +154,15 @@ export function simulateOutlook(input: OutlookInput): OutlookSample[] {
     if (k === nSteps) {
       // Finished inside the forecast: every hindcast year gives the same finish.
       for (const { year } of hindcastYearShifts(t, hindcast.timeMs, hindcast.stepMs)) {
-        samples.push({ member: label, year, stepStartMs: fcStarts.slice(), stepsInForecast: k, finishMs: t, wowHours: (t - startMs) / MS_PER_HOUR - sumTpopH, censored: false });
+        samples.push({
+          member: label,
+          year,
+          stepStartMs: fcStarts.slice(),
+          stepsInForecast: k,
+          finishMs: t,
+          wowHours: (t - startMs) / MS_PER_HOUR - sumTpopH,
+          censored: false,
+        });
       }
       continue;
     }
@@ -189,7 +205,8 @@ export function outlookPercentiles(samples: OutlookSample[], steps: number): Out
   const done = samples.filter((s) => !s.censored);
   const finish = Float64Array.from(done, (s) => s.finishMs as number);
   const wow = Float64Array.from(done, (s) => s.wowHours as number);
-  const three = (xs: Float64Array) => (xs.length === 0 ? null : { p10: quantileR7(xs, 0.1), p50: quantileR7(xs, 0.5), p90: quantileR7(xs, 0.9) });
+  const three = (xs: Float64Array) =>
+    xs.length === 0 ? null : { p10: quantileR7(xs, 0.1), p50: quantileR7(xs, 0.5), p90: quantileR7(xs, 0.9) };
   const stepStartMs = Array.from({ length: steps }, (_, k) => {
     const xs = Float64Array.from(
       samples.filter((s) => s.stepStartMs.length > k),
@@ -197,7 +214,13 @@ export function outlookPercentiles(samples: OutlookSample[], steps: number): Out
     );
     return xs.length === 0 ? null : { p50: quantileR7(xs, 0.5), p90: quantileR7(xs, 0.9) };
   });
-  return { samples: samples.length, censored: samples.length - done.length, finishMs: three(finish), remainingWowHours: three(wow), stepStartMs };
+  return {
+    samples: samples.length,
+    censored: samples.length - done.length,
+    finishMs: three(finish),
+    remainingWowHours: three(wow),
+    stepStartMs,
+  };
 }
 
 /** Progress of one campaign step. */
@@ -219,7 +242,11 @@ export interface StepProgress {
  * @returns `firstIndex`: the first step to simulate (steps.length when none is left);
  *   `startMs`: where its simulation starts
  */
-export function outlookStart(progress: (StepProgress | undefined)[], tpopH: number[], nowMs: number): { firstIndex: number; startMs: number } {
+export function outlookStart(
+  progress: (StepProgress | undefined)[],
+  tpopH: number[],
+  nowMs: number,
+): { firstIndex: number; startMs: number } {
   let startMs = nowMs;
   let firstIndex = 0;
   for (let i = 0; i < tpopH.length; i++) {
@@ -235,4 +262,3 @@ export function outlookStart(progress: (StepProgress | undefined)[], tpopH: numb
   }
   return { firstIndex, startMs };
 }
-

@@ -82,7 +82,12 @@ export interface CampaignMonthResult {
  * @throws RangeError for no steps, a non-positive TPOP, mismatched lengths, a start month outside
  *   1-12 or an unknown time zone.
  */
-export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: CampaignStep[], options: CampaignOptions = {}): CampaignMonthResult[] {
+export function simulateCampaign(
+  timeMs: Float64Array,
+  stepMs: number,
+  steps: CampaignStep[],
+  options: CampaignOptions = {},
+): CampaignMonthResult[] {
   assertStep(stepMs);
   if (steps.length === 0) throw new RangeError('a campaign needs at least one step');
   const timeZone = options.timeZone ?? 'UTC';
@@ -106,7 +111,17 @@ export function simulateCampaign(timeMs: Float64Array, stepMs: number, steps: Ca
   const n = timeMs.length;
   if (n === 0) {
     zoneOffsetMs(timeZone, 0);
-    return startMonths.map((startMonth) => ({ startMonth, years: 0, censoredYears: [], stuckSteps: [], p50Hours: null, p90Hours: null, wowP50Hours: null, wowP90Hours: null, runs: [] }));
+    return startMonths.map((startMonth) => ({
+      startMonth,
+      years: 0,
+      censoredYears: [],
+      stuckSteps: [],
+      p50Hours: null,
+      p90Hours: null,
+      wowP50Hours: null,
+      wowP90Hours: null,
+      runs: [],
+    }));
   }
   const firstMs = timeMs[0];
   const endMs = timeMs[n - 1] + recordSteps(timeMs, stepMs).durationMs[n - 1];

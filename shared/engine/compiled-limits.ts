@@ -120,7 +120,8 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
   if (row >= 0) alphaRow = Float64Array.from(alphaTable.values[row]);
   const alphaCols = Float64Array.from(alphaTable.hsColumnsM);
   const alphaSlope = new Float64Array(alphaRow === null ? 0 : Math.max(0, alphaCols.length - 1));
-  for (let k = 0; k < alphaSlope.length; k++) alphaSlope[k] = ((alphaRow as Float64Array)[k + 1] - (alphaRow as Float64Array)[k]) / (alphaCols[k + 1] - alphaCols[k]);
+  for (let k = 0; k < alphaSlope.length; k++)
+    alphaSlope[k] = ((alphaRow as Float64Array)[k + 1] - (alphaRow as Float64Array)[k]) / (alphaCols[k + 1] - alphaCols[k]);
   const curveSlope = new Float64Array(Math.max(0, curveTp.length - 1));
   for (let k = 0; k < curveSlope.length; k++) curveSlope[k] = (curveHs[k + 1] - curveHs[k]) / (curveTp[k + 1] - curveTp[k]);
 

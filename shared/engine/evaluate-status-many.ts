@@ -7,7 +7,16 @@ import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './
  * The limit kinds the one-pass path below knows. An operation with any other limit set (a kind
  * added to the engine later) is evaluated by the general path, evaluateStatus, unchanged.
  */
-const KNOWN_LIMIT_KEYS: ReadonlySet<string> = new Set(['hsMax', 'hsTpCurve', 'tpMin', 'tpMax', 'tpExcluded', 'bedVelocityMax', 'bedVelocityMethod', 'windMax']);
+const KNOWN_LIMIT_KEYS: ReadonlySet<string> = new Set([
+  'hsMax',
+  'hsTpCurve',
+  'tpMin',
+  'tpMax',
+  'tpExcluded',
+  'bedVelocityMax',
+  'bedVelocityMethod',
+  'windMax',
+]);
 
 /** The fields of an operation this path knows; any other one set sends the operation to the general path. */
 const KNOWN_OPERATION_KEYS: ReadonlySet<string> = new Set(['tpopH', 'tcH', 'weatherRestricted', 'limits']);
@@ -239,7 +248,15 @@ function compileGroup(compiled: CompiledLimits[]): Group {
 // compiles each once for every mix of operations (see evaluateStatus).
 
 /** Hs: starts the three masks (missing Hs, Hs limits broken, Hs limits met at OPLIM only). */
-function hsPass(v: Float64Array, need: number, list: AboveList, n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array): void {
+function hsPass(
+  v: Float64Array,
+  need: number,
+  list: AboveList,
+  n: number,
+  missing: Int32Array,
+  broken: Int32Array,
+  marginal: Int32Array,
+): void {
   const thr = list.thr;
   const cumB = list.cumBroken;
   const cumM = list.cumMarginal;
@@ -269,7 +286,15 @@ function abovePass(v: Float64Array, need: number, list: AboveList, n: number, mi
 }
 
 /** Tp minimums (as maximums of -Tp) and excluded bands: adds their broken bits. */
-function tpLowPass(v: Float64Array, list: AboveList, bandFrom: Float64Array, bandTo: Float64Array, bandBit: Int32Array, n: number, broken: Int32Array): void {
+function tpLowPass(
+  v: Float64Array,
+  list: AboveList,
+  bandFrom: Float64Array,
+  bandTo: Float64Array,
+  bandBit: Int32Array,
+  n: number,
+  broken: Int32Array,
+): void {
   const thr = list.thr;
   const cum = list.cumBroken;
   const m = thr.length;

@@ -29,12 +29,19 @@ export interface LimitCheck {
 const words1 = (x: number) => String(Math.round(x * 10) / 10);
 
 /** Why an hour breaks the Hs-Tp curve: Tp outside its range, or Hs above it; undefined when met. */
-function curveReason(curve: [number, number][], hsM: number, tpS: number, limitM: number | null, what: 'OPLIM' | 'OPWF'): string | undefined {
+function curveReason(
+  curve: [number, number][],
+  hsM: number,
+  tpS: number,
+  limitM: number | null,
+  what: 'OPLIM' | 'OPWF',
+): string | undefined {
   const first = curve[0][0];
   const last = curve[curve.length - 1][0];
   if (tpS > last) return `Tp ${words1(tpS)} s is beyond the curve's last point at ${words1(last)} s`;
   if (tpS < first) return `Tp ${words1(tpS)} s is below the curve's first point at ${words1(first)} s`;
-  if (limitM !== null && hsM > limitM) return `Hs ${words1(hsM)} m is above the curve's ${words1(limitM)} m (${what}) at Tp ${words1(tpS)} s`;
+  if (limitM !== null && hsM > limitM)
+    return `Hs ${words1(hsM)} m is above the curve's ${words1(limitM)} m (${what}) at Tp ${words1(tpS)} s`;
   return undefined;
 }
 
@@ -75,7 +82,12 @@ function curveAt(curve: [number, number][], tp: number): number | null {
  * Follows docs/domain.md#convention-5 to #convention-7 (alpha on Hs limits only; inclusive limits; closed bands;
  * outside the curve's Tp range is not workable; no data wins).
  */
-export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaTable, options: { alpha?: boolean } = {}): { status: HourStatus; checks: LimitCheck[] } {
+export function explainHour(
+  v: HourValues,
+  op: OperationSpec,
+  alphaTable: AlphaTable,
+  options: { alpha?: boolean } = {},
+): { status: HourStatus; checks: LimitCheck[] } {
   const useAlpha = options.alpha !== false;
   const l = op.limits;
   const tr = op.tpopH + op.tcH;
@@ -87,8 +99,16 @@ export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaT
     const a = alphaAt(l.hsMax);
     const opwf = a * l.hsMax;
     push({
-      limit: 'hs', label: 'Hs max', unit: 'm', value: ok(v.hsM) ? v.hsM : null, oplim: l.hsMax, opwf, alpha: a,
-      margin: ok(v.hsM) ? opwf - v.hsM : null, met: ok(v.hsM) ? v.hsM <= opwf : null, metAtOplim: ok(v.hsM) ? v.hsM <= l.hsMax : null,
+      limit: 'hs',
+      label: 'Hs max',
+      unit: 'm',
+      value: ok(v.hsM) ? v.hsM : null,
+      oplim: l.hsMax,
+      opwf,
+      alpha: a,
+      margin: ok(v.hsM) ? opwf - v.hsM : null,
+      met: ok(v.hsM) ? v.hsM <= opwf : null,
+      metAtOplim: ok(v.hsM) ? v.hsM <= l.hsMax : null,
     });
   }
   if (l.hsTpCurve && l.hsTpCurve.length >= 2) {
@@ -98,9 +118,16 @@ export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaT
     const opwf = oplim !== null && a !== null ? a * oplim : null;
     const met = !has ? null : opwf === null ? false : v.hsM <= opwf;
     const metAtOplim = !has ? null : oplim === null ? false : v.hsM <= oplim;
-    const reason = !has || met ? undefined : curveReason(l.hsTpCurve, v.hsM, v.tpS, metAtOplim ? opwf : oplim, metAtOplim ? 'OPWF' : 'OPLIM');
+    const reason =
+      !has || met ? undefined : curveReason(l.hsTpCurve, v.hsM, v.tpS, metAtOplim ? opwf : oplim, metAtOplim ? 'OPWF' : 'OPLIM');
     push({
-      limit: 'hsTpCurve', label: 'Hs-Tp curve', unit: 'm', value: ok(v.hsM) ? v.hsM : null, oplim, opwf, alpha: a,
+      limit: 'hsTpCurve',
+      label: 'Hs-Tp curve',
+      unit: 'm',
+      value: ok(v.hsM) ? v.hsM : null,
+      oplim,
+      opwf,
+      alpha: a,
       margin: has && opwf !== null ? opwf - v.hsM : null,
       met,
       metAtOplim,
@@ -108,13 +135,41 @@ export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaT
     });
   }
   const tp = ok(v.tpS) ? v.tpS : null;
-  if (l.tpMin != null) push({ limit: 'tpMin', label: 'Tp min', unit: 's', value: tp, oplim: l.tpMin, opwf: null, alpha: null, margin: tp === null ? null : tp - l.tpMin, met: tp === null ? null : tp >= l.tpMin });
-  if (l.tpMax != null) push({ limit: 'tpMax', label: 'Tp max', unit: 's', value: tp, oplim: l.tpMax, opwf: null, alpha: null, margin: tp === null ? null : l.tpMax - tp, met: tp === null ? null : tp <= l.tpMax });
+  if (l.tpMin != null)
+    push({
+      limit: 'tpMin',
+      label: 'Tp min',
+      unit: 's',
+      value: tp,
+      oplim: l.tpMin,
+      opwf: null,
+      alpha: null,
+      margin: tp === null ? null : tp - l.tpMin,
+      met: tp === null ? null : tp >= l.tpMin,
+    });
+  if (l.tpMax != null)
+    push({
+      limit: 'tpMax',
+      label: 'Tp max',
+      unit: 's',
+      value: tp,
+      oplim: l.tpMax,
+      opwf: null,
+      alpha: null,
+      margin: tp === null ? null : l.tpMax - tp,
+      met: tp === null ? null : tp <= l.tpMax,
+    });
   for (const [from, to] of l.tpExcluded ?? []) {
     const inside = tp !== null && tp >= from && tp <= to;
     const edge = tp === null ? null : Math.abs(tp - from) <= Math.abs(tp - to) ? from : to;
     push({
-      limit: 'tpBand', label: `Excluded Tp ${from}-${to} s`, unit: 's', value: tp, oplim: edge, opwf: null, alpha: null,
+      limit: 'tpBand',
+      label: `Excluded Tp ${from}-${to} s`,
+      unit: 's',
+      value: tp,
+      oplim: edge,
+      opwf: null,
+      alpha: null,
       margin: tp === null ? null : inside ? -Math.min(tp - from, to - tp) : Math.min(Math.abs(tp - from), Math.abs(tp - to)),
       met: tp === null ? null : !inside,
     });
@@ -124,27 +179,76 @@ export function explainHour(v: HourValues, op: OperationSpec, alphaTable: AlphaT
     const u = soulsby ? v.bedVelocitySoulsbyMps : v.bedVelocityLinearMps;
     const has = ok(u) && ok(v.hsM) && ok(v.tpS);
     push({
-      limit: 'bedVelocity', label: `Bed velocity max (${soulsby ? 'Soulsby 2006' : 'linear'})`, unit: 'm/s', value: has ? u : null,
-      oplim: l.bedVelocityMax, opwf: null, alpha: null, margin: has ? l.bedVelocityMax - u : null, met: has ? u <= l.bedVelocityMax : null,
+      limit: 'bedVelocity',
+      label: `Bed velocity max (${soulsby ? 'Soulsby 2006' : 'linear'})`,
+      unit: 'm/s',
+      value: has ? u : null,
+      oplim: l.bedVelocityMax,
+      opwf: null,
+      alpha: null,
+      margin: has ? l.bedVelocityMax - u : null,
+      met: has ? u <= l.bedVelocityMax : null,
     });
   }
   if (l.windMax != null) {
     const w = ok(v.windMps) ? v.windMps : null;
-    push({ limit: 'wind', label: 'Wind max', unit: 'm/s', value: w, oplim: l.windMax, opwf: null, alpha: null, margin: w === null ? null : l.windMax - w, met: w === null ? null : w <= l.windMax });
+    push({
+      limit: 'wind',
+      label: 'Wind max',
+      unit: 'm/s',
+      value: w,
+      oplim: l.windMax,
+      opwf: null,
+      alpha: null,
+      margin: w === null ? null : l.windMax - w,
+      met: w === null ? null : w <= l.windMax,
+    });
   }
 
   // Exact limits of docs/domain.md#tide: alpha never applies.
   const depth = v.depthM !== undefined && ok(v.depthM) ? v.depthM : null;
   if (l.minDepth != null) {
-    const parts = l.minDepthParts ? ` (draught ${words1(l.minDepthParts.draught)} m + clearance ${words1(l.minDepthParts.clearance)} m)` : '';
-    push({ limit: 'minDepth', label: `Min depth${parts}`, unit: 'm', value: depth, oplim: l.minDepth, opwf: null, alpha: null, margin: depth === null ? null : depth - l.minDepth, met: depth === null ? null : depth >= l.minDepth });
+    const parts = l.minDepthParts
+      ? ` (draught ${words1(l.minDepthParts.draught)} m + clearance ${words1(l.minDepthParts.clearance)} m)`
+      : '';
+    push({
+      limit: 'minDepth',
+      label: `Min depth${parts}`,
+      unit: 'm',
+      value: depth,
+      oplim: l.minDepth,
+      opwf: null,
+      alpha: null,
+      margin: depth === null ? null : depth - l.minDepth,
+      met: depth === null ? null : depth >= l.minDepth,
+    });
   }
   if (l.maxDepth != null) {
-    push({ limit: 'maxDepth', label: 'Max depth', unit: 'm', value: depth, oplim: l.maxDepth, opwf: null, alpha: null, margin: depth === null ? null : l.maxDepth - depth, met: depth === null ? null : depth <= l.maxDepth });
+    push({
+      limit: 'maxDepth',
+      label: 'Max depth',
+      unit: 'm',
+      value: depth,
+      oplim: l.maxDepth,
+      opwf: null,
+      alpha: null,
+      margin: depth === null ? null : l.maxDepth - depth,
+      met: depth === null ? null : depth <= l.maxDepth,
+    });
   }
   if (l.currentMax != null) {
     const cur = v.currentMps !== undefined && ok(v.currentMps) ? v.currentMps : null;
-    push({ limit: 'current', label: 'Current max', unit: 'm/s', value: cur, oplim: l.currentMax, opwf: null, alpha: null, margin: cur === null ? null : l.currentMax - cur, met: cur === null ? null : cur <= l.currentMax });
+    push({
+      limit: 'current',
+      label: 'Current max',
+      unit: 'm/s',
+      value: cur,
+      oplim: l.currentMax,
+      opwf: null,
+      alpha: null,
+      margin: cur === null ? null : l.currentMax - cur,
+      met: cur === null ? null : cur <= l.currentMax,
+    });
   }
   if (l.tideWindow) {
     const tw = l.tideWindow;

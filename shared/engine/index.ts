@@ -6,10 +6,26 @@ export { DEFAULT_ALPHA_TABLE, defaultAlphaTable } from './default-alpha-table';
 export * from './schemas';
 
 // Limits and hourly status
-export { WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H, alphaTableCoverageProblem, isWeatherRestricted, alphaFactor, alphaFor, alphaInRow, alphaRowIndex, assertAlphaTable } from './alpha-factor';
+export {
+  WEATHER_RESTRICTED_MAX_TPOP_H,
+  WEATHER_RESTRICTED_MAX_TR_H,
+  alphaTableCoverageProblem,
+  isWeatherRestricted,
+  alphaFactor,
+  alphaFor,
+  alphaInRow,
+  alphaRowIndex,
+  assertAlphaTable,
+} from './alpha-factor';
 export { evaluateHours, assertSeriesLengths, type EvaluateOptions } from './evaluate-hours';
 export { evaluateStatus, type EvaluateStatusOptions } from './evaluate-status';
-export { evaluateStatusMany, createStatusManyScratch, statusFastPathKnows, type EvaluateStatusManyOptions, type StatusManyScratch } from './evaluate-status-many';
+export {
+  evaluateStatusMany,
+  createStatusManyScratch,
+  statusFastPathKnows,
+  type EvaluateStatusManyOptions,
+  type StatusManyScratch,
+} from './evaluate-status-many';
 
 // Weather windows and the forecast plan
 export { detectStepMs } from './detect-step';

@@ -194,7 +194,8 @@ function statisticsCore(
   if (n === 0) return { months, yearMonths: [] };
   const { durationMs, continues } = recordSteps(timeMs, stepMs);
 
-  const s = scratch && scratch.wowMs.length >= n && scratch.byMonth.length >= n && scratch.tmp.length >= n ? scratch : createStatisticsScratch(n);
+  const s =
+    scratch && scratch.wowMs.length >= n && scratch.byMonth.length >= n && scratch.tmp.length >= n ? scratch : createStatisticsScratch(n);
   const wow = s.wowMs;
   const { ymMin, K, order, start } = calendarGroups(ymArr);
   const records = new Int32Array(K);
@@ -278,7 +279,21 @@ function statisticsCore(
     }
     yearMonths.push({
       year: Math.floor((g + ymMin) / 12),
-      ...summarise(m + 1, records[g], withData[g], withDataMs[g], workableMs[g], startsMs[g], wowCount[g], wowSumMs[g], p90, censored[g], windows[g], windowMs[g], 1),
+      ...summarise(
+        m + 1,
+        records[g],
+        withData[g],
+        withDataMs[g],
+        workableMs[g],
+        startsMs[g],
+        wowCount[g],
+        wowSumMs[g],
+        p90,
+        censored[g],
+        windows[g],
+        windowMs[g],
+        1,
+      ),
     });
   }
   for (let m = 0; m < 12; m++) {
@@ -286,7 +301,21 @@ function statisticsCore(
     if (mAcc[o] === 0) continue;
     const p90 = mAcc[o + 4] > 0 ? p90Ms(byMonth, monthStart[m], monthStart[m + 1], s.tmp) / MS_PER_HOUR : null;
     months[m] = {
-      ...summarise(m + 1, mAcc[o], mAcc[o + 1], mAcc[o + 10], mAcc[o + 2], mAcc[o + 3], mAcc[o + 4], mAcc[o + 5], p90, mAcc[o + 6], mAcc[o + 7], mAcc[o + 8], mAcc[o + 9]),
+      ...summarise(
+        m + 1,
+        mAcc[o],
+        mAcc[o + 1],
+        mAcc[o + 10],
+        mAcc[o + 2],
+        mAcc[o + 3],
+        mAcc[o + 4],
+        mAcc[o + 5],
+        p90,
+        mAcc[o + 6],
+        mAcc[o + 7],
+        mAcc[o + 8],
+        mAcc[o + 9],
+      ),
       years: mAcc[o + 9],
     };
   }
@@ -431,7 +460,16 @@ function backwardPass(
   return nextT !== nextT ? 0 : firstCensored;
 }
 
-function groupSumsOrdered(dur: Float64Array, status: Uint8Array, goStart: Uint8Array, wow: Float64Array, order: Int32Array, a: number, b: number, out: Float64Array): void {
+function groupSumsOrdered(
+  dur: Float64Array,
+  status: Uint8Array,
+  goStart: Uint8Array,
+  wow: Float64Array,
+  order: Int32Array,
+  a: number,
+  b: number,
+  out: Float64Array,
+): void {
   let withData = 0;
   let withDataMs = 0;
   let workableMs = 0;
@@ -465,7 +503,15 @@ function countCensoredOrdered(order: Int32Array, a: number, b: number, firstCens
   return c;
 }
 
-function gatherOrdered(wow: Float64Array, order: Int32Array, a: number, b: number, firstCensored: number, dest: Float64Array, at: number): void {
+function gatherOrdered(
+  wow: Float64Array,
+  order: Int32Array,
+  a: number,
+  b: number,
+  firstCensored: number,
+  dest: Float64Array,
+  at: number,
+): void {
   let p = at;
   for (let k = a; k < b; k++) {
     const i = order[k];

@@ -1,7 +1,12 @@
 import type { CalendarIndex } from './calendar-index';
 import { detectStepMs } from './detect-step';
 import { evaluateStatus } from './evaluate-status';
-import { createStatisticsScratch, monthlyStatisticsWithGoStarts, type MonthlyStatistics, type StatisticsScratch } from './monthly-statistics';
+import {
+  createStatisticsScratch,
+  monthlyStatisticsWithGoStarts,
+  type MonthlyStatistics,
+  type StatisticsScratch,
+} from './monthly-statistics';
 import type { AlphaTable, OperationSpec, SiteSeries } from './types';
 
 /** Reusable buffers for {@link operationStatistics}, for series of up to `capacity` records. */
@@ -53,7 +58,12 @@ export interface OperationStatisticsResult {
  *   per worksite and reuse it for every operation: its grouping is cached)
  * @throws RangeError as the steps do, or when the workspace is too small.
  */
-export function operationStatistics(series: SiteSeries, op: OperationSpec, calendar: CalendarIndex, options: OperationStatisticsOptions): OperationStatisticsResult {
+export function operationStatistics(
+  series: SiteSeries,
+  op: OperationSpec,
+  calendar: CalendarIndex,
+  options: OperationStatisticsOptions,
+): OperationStatisticsResult {
   const n = series.timeMs.length;
   const stepMs = options.stepMs ?? detectStepMs(series.timeMs);
   const ws = options.workspace;

@@ -73,7 +73,13 @@ export interface OperationPlan {
  * @throws RangeError for invalid limits, fewer than two records without `stepMs`, or times that
  *   do not ascend.
  */
-export function planOperation(series: SiteSeries, op: OperationSpec, alphaTable: AlphaTable, nowMs: number, options: PlanOptions = {}): OperationPlan {
+export function planOperation(
+  series: SiteSeries,
+  op: OperationSpec,
+  alphaTable: AlphaTable,
+  nowMs: number,
+  options: PlanOptions = {},
+): OperationPlan {
   const alpha = options.alpha !== false;
   const stepMs = options.stepMs ?? detectStepMs(series.timeMs);
   assertStep(stepMs);
@@ -83,7 +89,19 @@ export function planOperation(series: SiteSeries, op: OperationSpec, alphaTable:
   const informationOnly = !isWeatherRestricted(op);
   if (informationOnly) {
     const none = new Uint8Array(times.length);
-    return { times, stepMs, durationMs, informationOnly, status, limiting, marginRel, goStart: none, windows: [], earliestStartMs: null, startNow: false };
+    return {
+      times,
+      stepMs,
+      durationMs,
+      informationOnly,
+      status,
+      limiting,
+      marginRel,
+      goStart: none,
+      windows: [],
+      earliestStartMs: null,
+      startNow: false,
+    };
   }
   const goStart = goStarts(times, status, stepMs, op.tpopH + op.tcH);
   const windows = usableWindows(series, op, status, stepMs, { alpha, alphaTable }).filter((w) => w.endMs > nowMs);

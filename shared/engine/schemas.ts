@@ -139,12 +139,15 @@ export const alphaTableSchema = z
   })
   .superRefine((t, ctx) => {
     for (let i = 1; i < t.tpopBoundsH.length; i++) {
-      if (!(t.tpopBoundsH[i] > t.tpopBoundsH[i - 1])) ctx.addIssue({ code: 'custom', path: ['tpopBoundsH', i], message: 'TPOP bounds must be strictly ascending' });
+      if (!(t.tpopBoundsH[i] > t.tpopBoundsH[i - 1]))
+        ctx.addIssue({ code: 'custom', path: ['tpopBoundsH', i], message: 'TPOP bounds must be strictly ascending' });
     }
     for (let i = 1; i < t.hsColumnsM.length; i++) {
-      if (!(t.hsColumnsM[i] > t.hsColumnsM[i - 1])) ctx.addIssue({ code: 'custom', path: ['hsColumnsM', i], message: 'Hs columns must be strictly ascending' });
+      if (!(t.hsColumnsM[i] > t.hsColumnsM[i - 1]))
+        ctx.addIssue({ code: 'custom', path: ['hsColumnsM', i], message: 'Hs columns must be strictly ascending' });
     }
-    if (t.values.length !== t.tpopBoundsH.length) ctx.addIssue({ code: 'custom', path: ['values'], message: 'One row of values per TPOP bound' });
+    if (t.values.length !== t.tpopBoundsH.length)
+      ctx.addIssue({ code: 'custom', path: ['values'], message: 'One row of values per TPOP bound' });
     t.values.forEach((row, r) => {
       if (row.length !== t.hsColumnsM.length) ctx.addIssue({ code: 'custom', path: ['values', r], message: 'One value per Hs column' });
     });

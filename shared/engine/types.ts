@@ -136,7 +136,8 @@ export const LIMIT = {
 export type LimitCode = (typeof LIMIT)[keyof typeof LIMIT];
 
 /** Names of the limits, used as keys of per-limit margins. */
-export type LimitName = 'hs' | 'hsTpCurve' | 'tpMin' | 'tpMax' | 'tpBand' | 'bedVelocity' | 'wind' | 'minDepth' | 'maxDepth' | 'current' | 'tideWindow';
+export type LimitName =
+  'hs' | 'hsTpCurve' | 'tpMin' | 'tpMax' | 'tpBand' | 'bedVelocity' | 'wind' | 'minDepth' | 'maxDepth' | 'current' | 'tideWindow';
 
 /** Name of each limit code, indexed by code; `LIMIT_NAMES[LIMIT.NONE]` is null. */
 export const LIMIT_NAMES: readonly (LimitName | null)[] = [

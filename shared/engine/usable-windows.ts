@@ -32,7 +32,13 @@ export interface WindowOptions {
  * @returns windows in time order; end exclusive (start + the sum of durations)
  * @throws RangeError as evaluateHours and goStarts do.
  */
-export function usableWindows(series: SiteSeries, op: OperationSpec, status: Uint8Array, stepMs: number, options: WindowOptions): UsableWindow[] {
+export function usableWindows(
+  series: SiteSeries,
+  op: OperationSpec,
+  status: Uint8Array,
+  stepMs: number,
+  options: WindowOptions,
+): UsableWindow[] {
   assertSeriesLengths(series);
   const c = compileLimits(op, options.alphaTable, options.alpha !== false);
   const trMs = trThresholdMs(c.trH);
@@ -43,7 +49,7 @@ export function usableWindows(series: SiteSeries, op: OperationSpec, status: Uin
   const relOut = new Float64Array(1);
   const windows: UsableWindow[] = [];
 
-  for (let i = 0; i < rem.length; ) {
+  for (let i = 0; i < rem.length;) {
     const count = rem[i];
     if (count === 0) {
       i++;

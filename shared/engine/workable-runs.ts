@@ -89,7 +89,7 @@ export function workableRuns(timeMs: Float64Array, status: Uint8Array, stepMs: n
   const rem = runRemaining(timeMs, status, stepMs);
   const dur = recordSteps(timeMs, stepMs).durationMs;
   const runs: WorkableRun[] = [];
-  for (let i = 0; i < rem.length; ) {
+  for (let i = 0; i < rem.length;) {
     const count = rem[i];
     if (count === 0) {
       i++;

@@ -36,7 +36,9 @@ export function daysOf(from: string, to: string): string[] {
   if (to < from) return [];
   // Calendar dates carry no zone: counted in UTC, where every day is 24 h.
   const utc = tz('UTC');
-  return eachDayOfInterval({ start: `${from}T00:00:00Z`, end: `${to}T00:00:00Z` }, { in: utc }).map((day) => format(day, 'yyyy-MM-dd', { in: utc }));
+  return eachDayOfInterval({ start: `${from}T00:00:00Z`, end: `${to}T00:00:00Z` }, { in: utc }).map((day) =>
+    format(day, 'yyyy-MM-dd', { in: utc }),
+  );
 }
 
 /**
@@ -60,7 +62,14 @@ export interface DayTally {
  * @param timeMs record times, ascending; @param status STATUS codes; @param limiting LIMIT codes
  * @param stepMs fallback dt, ms (each record counts its local step, record-steps.ts); @param startMs, endMs the day, UTC ms
  */
-export function tallyDay(timeMs: Float64Array, status: Uint8Array, limiting: Uint8Array, stepMs: number, startMs: number, endMs: number): DayTally {
+export function tallyDay(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  limiting: Uint8Array,
+  stepMs: number,
+  startMs: number,
+  endMs: number,
+): DayTally {
   const plannedHours = (endMs - startMs) / MS_PER_HOUR;
   const dur = recordSteps(timeMs, stepMs).durationMs;
   const byLimit = new Float64Array(LIMIT_NAMES.length);
@@ -154,7 +163,13 @@ export function tallyStitched(parts: StatusPart[], startMs: number, endMs: numbe
  * records at OPLIM, each record its local step, record-steps.ts),
  * for the year-months the data spans wholly, as `[yearMonth (year*12 + month0), lostHours][]`.
  */
-export function yearMonthLostHours(timeMs: Float64Array, status: Uint8Array, yearMonth: Int32Array, stepMs: number, timeZone: string): [number, number][] {
+export function yearMonthLostHours(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  yearMonth: Int32Array,
+  stepMs: number,
+  timeZone: string,
+): [number, number][] {
   const n = timeMs.length;
   if (n === 0) return [];
   const firstMs = timeMs[0];

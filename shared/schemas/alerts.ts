@@ -19,7 +19,14 @@ export const SubscriptionInput = z.object({
   }, 'unknown time zone'),
   active: z.boolean(),
   /** E-mail when a campaign's P50 finish moves by more than this many days between planning runs (clients and coordinators); null = off. */
-  outlookMoveDays: z.number({ error: 'must be a number of days' }).int('must be whole days').min(1, 'must be at least 1 day').max(365, 'must be at most 365 days').nullable().optional().default(null),
+  outlookMoveDays: z
+    .number({ error: 'must be a number of days' })
+    .int('must be whole days')
+    .min(1, 'must be at least 1 day')
+    .max(365, 'must be at most 365 days')
+    .nullable()
+    .optional()
+    .default(null),
 });
 export type SubscriptionInput = z.infer<typeof SubscriptionInput>;
 

@@ -21,7 +21,20 @@ export const LEDGER_MAX_DAYS = 93;
 export const LEDGER_MAX_DAY_HOURS = 25;
 
 /** Limiting factors a ledger day may name: the engine's limit names, or no data. */
-export const LEDGER_LIMITING_VALUES = ['hs', 'hsTpCurve', 'tpMin', 'tpMax', 'tpBand', 'bedVelocity', 'wind', 'minDepth', 'maxDepth', 'current', 'tideWindow', 'noData'] as const;
+export const LEDGER_LIMITING_VALUES = [
+  'hs',
+  'hsTpCurve',
+  'tpMin',
+  'tpMax',
+  'tpBand',
+  'bedVelocity',
+  'wind',
+  'minDepth',
+  'maxDepth',
+  'current',
+  'tideWindow',
+  'noData',
+] as const;
 export type LedgerLimiting = (typeof LEDGER_LIMITING_VALUES)[number];
 
 /** Words for each limiting factor, for tables and the report. */
@@ -107,7 +120,10 @@ export type StepProgressInput = z.infer<typeof StepProgressInput>;
 
 /** `?alpha=true|false` of the outlook (default true: the forecast's go-starts with alpha). */
 export const OutlookQuery = z.object({
-  alpha: z.enum(['true', 'false'], { error: "must be 'true' or 'false'" }).default('true').transform((v) => v === 'true'),
+  alpha: z
+    .enum(['true', 'false'], { error: "must be 'true' or 'false'" })
+    .default('true')
+    .transform((v) => v === 'true'),
 });
 
 /** A calendar date YYYY-MM-DD that exists. */
@@ -130,7 +146,10 @@ export function daysBetween(from: string, to: string): number {
 export const LedgerRangeQuery = z
   .object({ from: isoDay, to: isoDay })
   .refine((q) => q.from <= q.to, { message: 'must not be before from', path: ['to'] })
-  .refine((q) => daysBetween(q.from, q.to) < LEDGER_MAX_DAYS, { message: `the range may span at most ${LEDGER_MAX_DAYS} days`, path: ['to'] });
+  .refine((q) => daysBetween(q.from, q.to) < LEDGER_MAX_DAYS, {
+    message: `the range may span at most ${LEDGER_MAX_DAYS} days`,
+    path: ['to'],
+  });
 export type LedgerRangeQuery = z.infer<typeof LedgerRangeQuery>;
 
 /**
@@ -144,7 +163,13 @@ export const LedgerConfirmInput = z.object({
     .min(0, 'must be at least 0 h')
     .max(LEDGER_MAX_DAY_HOURS, `must be at most ${LEDGER_MAX_DAY_HOURS} h (and at most the day's planned hours)`)
     .optional(),
-  limiting: z.enum(LEDGER_LIMITING_VALUES, { error: 'must be a limiting factor (hs, hsTpCurve, tpMin, tpMax, tpBand, bedVelocity, wind, minDepth, maxDepth, current, tideWindow, noData)' }).nullable().optional(),
+  limiting: z
+    .enum(LEDGER_LIMITING_VALUES, {
+      error:
+        'must be a limiting factor (hs, hsTpCurve, tpMin, tpMax, tpBand, bedVelocity, wind, minDepth, maxDepth, current, tideWindow, noData)',
+    })
+    .nullable()
+    .optional(),
   note: longText(2000).optional().default(''),
 });
 export type LedgerConfirmInput = z.infer<typeof LedgerConfirmInput>;

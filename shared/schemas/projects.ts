@@ -11,19 +11,21 @@ export type CreateProjectInput = z.infer<typeof CreateProjectInput>;
 export const FORECAST_SOURCES = ['service', 'uploads'] as const;
 
 /** Project settings: the offshore data point and where forecasts come from. */
-export const ProjectSettingsInput = z.object({
-  name: nameText(),
-  description: longText(),
-  dataPointName: storableText(z.string().trim().max(120)),
-  dataPointLatitude: z.number().min(-90).max(90).nullable(),
-  dataPointLongitude: z.number().min(-180).max(180).nullable(),
-  /** metres; null = deep water (docs/domain.md#convention-1) */
-  dataPointDepthM: z.number().min(0.5, 'must be at least 0.5 m').max(11000).nullable(),
-  forecastSource: z.enum(FORECAST_SOURCES),
-}).refine((v) => v.forecastSource !== 'service' || (v.dataPointLatitude !== null && v.dataPointLongitude !== null), {
-  message: 'the forecast service needs the data point latitude and longitude',
-  path: ['dataPointLatitude'],
-});
+export const ProjectSettingsInput = z
+  .object({
+    name: nameText(),
+    description: longText(),
+    dataPointName: storableText(z.string().trim().max(120)),
+    dataPointLatitude: z.number().min(-90).max(90).nullable(),
+    dataPointLongitude: z.number().min(-180).max(180).nullable(),
+    /** metres; null = deep water (docs/domain.md#convention-1) */
+    dataPointDepthM: z.number().min(0.5, 'must be at least 0.5 m').max(11000).nullable(),
+    forecastSource: z.enum(FORECAST_SOURCES),
+  })
+  .refine((v) => v.forecastSource !== 'service' || (v.dataPointLatitude !== null && v.dataPointLongitude !== null), {
+    message: 'the forecast service needs the data point latitude and longitude',
+    path: ['dataPointLatitude'],
+  });
 export type ProjectSettingsInput = z.infer<typeof ProjectSettingsInput>;
 
 export const CreateUserInput = z.object({

@@ -77,7 +77,10 @@ export const SetupProject = z.object({
 /** A campaign in a setup document: its steps by operation and worksite name. */
 export const SetupCampaign = z.object({
   name: storableText(z.string().trim().min(1, 'A campaign needs a name').max(120)),
-  steps: z.array(z.object({ operationName: z.string().trim().min(1), siteName: z.string().trim().min(1) })).min(1).max(50),
+  steps: z
+    .array(z.object({ operationName: z.string().trim().min(1), siteName: z.string().trim().min(1) }))
+    .min(1)
+    .max(50),
   plannedStart: z.iso.datetime({ offset: true }).nullish(),
   // Checked like a worksite's zone: the import stores it, and a campaign simulates in it.
   timeZone: timeZoneField.default('UTC'),
@@ -99,13 +102,15 @@ export const ProjectSetupDocument = z
     const sites = new Set<string>();
     doc.worksites.forEach((w, i) => {
       const key = nameKey(w.name);
-      if (sites.has(key)) ctx.addIssue({ code: 'custom', path: ['worksites', i, 'name'], message: `Worksite name "${w.name}" is used twice` });
+      if (sites.has(key))
+        ctx.addIssue({ code: 'custom', path: ['worksites', i, 'name'], message: `Worksite name "${w.name}" is used twice` });
       sites.add(key);
     });
     const ops = new Set<string>();
     doc.operations.forEach((o, i) => {
       const key = nameKey(o.name);
-      if (ops.has(key)) ctx.addIssue({ code: 'custom', path: ['operations', i, 'name'], message: `Operation name "${o.name}" is used twice` });
+      if (ops.has(key))
+        ctx.addIssue({ code: 'custom', path: ['operations', i, 'name'], message: `Operation name "${o.name}" is used twice` });
       ops.add(key);
       o.siteNames.forEach((s, j) => {
         if (!sites.has(nameKey(s))) {
@@ -116,10 +121,18 @@ export const ProjectSetupDocument = z
     (doc.campaigns ?? []).forEach((c, i) =>
       c.steps.forEach((step, j) => {
         if (!ops.has(nameKey(step.operationName))) {
-          ctx.addIssue({ code: 'custom', path: ['campaigns', i, 'steps', j, 'operationName'], message: `No operation named "${step.operationName}" in the document` });
+          ctx.addIssue({
+            code: 'custom',
+            path: ['campaigns', i, 'steps', j, 'operationName'],
+            message: `No operation named "${step.operationName}" in the document`,
+          });
         }
         if (!sites.has(nameKey(step.siteName))) {
-          ctx.addIssue({ code: 'custom', path: ['campaigns', i, 'steps', j, 'siteName'], message: `No worksite named "${step.siteName}" in the document` });
+          ctx.addIssue({
+            code: 'custom',
+            path: ['campaigns', i, 'steps', j, 'siteName'],
+            message: `No worksite named "${step.siteName}" in the document`,
+          });
         }
       }),
     );

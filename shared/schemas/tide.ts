@@ -28,7 +28,9 @@ export const TideConstituentInput = z.object({
     .min(1, 'A constituent needs a name')
     .max(16, 'A constituent name has at most 16 characters')
     .regex(/^[A-Za-z0-9()_.-]+$/, 'A constituent name is letters and digits, such as M2 or 2MK3'),
-  amplitude: finite('Amplitude').min(0, 'Amplitude must be at least 0 m').max(TIDE_AMPLITUDE_MAX_M, `Amplitude must be at most ${TIDE_AMPLITUDE_MAX_M} m`),
+  amplitude: finite('Amplitude')
+    .min(0, 'Amplitude must be at least 0 m')
+    .max(TIDE_AMPLITUDE_MAX_M, `Amplitude must be at most ${TIDE_AMPLITUDE_MAX_M} m`),
   phase: finite('Phase').min(0, 'Phase must be at least 0°').max(360, 'Phase must be at most 360°'),
 });
 export type TideConstituentInput = z.infer<typeof TideConstituentInput>;
@@ -46,7 +48,10 @@ export const WorksiteTideInput = z
     source: z.enum(TIDE_SOURCES, { error: `Tide source must be one of ${TIDE_SOURCES.join(', ')}` }),
     stationId: storableText(z.string().trim().min(1, 'A station id is needed').max(200)).optional(),
     constituents: z.array(TideConstituentInput).max(TIDE_MAX_CONSTITUENTS, `At most ${TIDE_MAX_CONSTITUENTS} constituents`).optional(),
-    z0: finite('Z0').min(TIDE_Z0_RANGE_M.min, `Z0 must be at least ${TIDE_Z0_RANGE_M.min} m`).max(TIDE_Z0_RANGE_M.max, `Z0 must be at most ${TIDE_Z0_RANGE_M.max} m`).optional(),
+    z0: finite('Z0')
+      .min(TIDE_Z0_RANGE_M.min, `Z0 must be at least ${TIDE_Z0_RANGE_M.min} m`)
+      .max(TIDE_Z0_RANGE_M.max, `Z0 must be at most ${TIDE_Z0_RANGE_M.max} m`)
+      .optional(),
     datum: storableText(z.string().trim().max(40, 'A datum name has at most 40 characters')).default('LAT'),
   })
   .superRefine((t, ctx) => {
@@ -54,7 +59,8 @@ export const WorksiteTideInput = z
       if (!t.constituents || t.constituents.length === 0) {
         ctx.addIssue({ code: 'custom', path: ['constituents'], message: 'Enter at least one constituent' });
       }
-      if (t.z0 === undefined) ctx.addIssue({ code: 'custom', path: ['z0'], message: 'Z0 (mean sea level above chart datum) is needed with constants' });
+      if (t.z0 === undefined)
+        ctx.addIssue({ code: 'custom', path: ['z0'], message: 'Z0 (mean sea level above chart datum) is needed with constants' });
       const seen = new Set<string>();
       (t.constituents ?? []).forEach((c, i) => {
         const key = c.name.toUpperCase();
@@ -79,7 +85,8 @@ export const TideQuery = z
     if (q.from && q.to) {
       const span = Date.parse(q.to) - Date.parse(q.from);
       if (!(span > 0)) ctx.addIssue({ code: 'custom', path: ['to'], message: 'to must be after from' });
-      else if (span > TIDE_QUERY_MAX_DAYS * 86_400_000) ctx.addIssue({ code: 'custom', path: ['to'], message: `At most ${TIDE_QUERY_MAX_DAYS} days from from` });
+      else if (span > TIDE_QUERY_MAX_DAYS * 86_400_000)
+        ctx.addIssue({ code: 'custom', path: ['to'], message: `At most ${TIDE_QUERY_MAX_DAYS} days from from` });
     }
   });
 export type TideQuery = z.infer<typeof TideQuery>;

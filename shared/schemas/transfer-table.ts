@@ -10,9 +10,7 @@ export const TRANSFER_TP_EDGE_MAX_S = 100;
 export const TRANSFER_MAX_SECTORS = 72;
 export const TRANSFER_MAX_BANDS = 60;
 
-const sectorEdge = finite('A sector edge')
-  .min(0, 'A sector edge must be at least 0°')
-  .max(360, 'A sector edge must be at most 360°');
+const sectorEdge = finite('A sector edge').min(0, 'A sector edge must be at least 0°').max(360, 'A sector edge must be at most 360°');
 const bandEdge = finite('A Tp band edge')
   .min(0, 'A Tp band edge must be at least 0 s')
   .max(TRANSFER_TP_EDGE_MAX_S, `A Tp band edge must be at most ${TRANSFER_TP_EDGE_MAX_S} s`);

@@ -85,7 +85,10 @@ export function typedNumberForm<K extends string, S extends z.ZodType>(
       }
       return out;
     })
-    .pipe(query as unknown as z.ZodType<z.output<S>, Record<string, string | undefined>>) as unknown as z.ZodType<z.output<S>, Record<K, string>>;
+    .pipe(query as unknown as z.ZodType<z.output<S>, Record<string, string | undefined>>) as unknown as z.ZodType<
+    z.output<S>,
+    Record<K, string>
+  >;
 }
 
 export const RegularWaveForm = typedNumberForm(['period', 'height', 'depth', 'z'], RegularWaveQuery, {

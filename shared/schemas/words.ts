@@ -180,7 +180,10 @@ export function pathInWords(path: readonly PropertyKey[], value?: unknown, whole
     const next = node && typeof node === 'object' ? (node as Record<PropertyKey, unknown>)[key as string] : undefined;
     if (typeof key === 'number') {
       if (expect?.kind === 'list') {
-        const name = next && typeof next === 'object' && typeof (next as { name?: unknown }).name === 'string' ? (next as { name: string }).name : null;
+        const name =
+          next && typeof next === 'object' && typeof (next as { name?: unknown }).name === 'string'
+            ? (next as { name: string }).name
+            : null;
         parts[parts.length - 1] = `${ITEM[expect.key] ?? `${fieldLabel(expect.key)}, entry`} ${key + 1}${name ? ` “${name}”` : ''}`;
         expect = TABLES.has(expect.key) ? { kind: 'row', key: expect.key } : TUPLE[expect.key] ? { kind: 'tuple', key: expect.key } : null;
       } else if (expect?.kind === 'tuple') {

@@ -45,9 +45,32 @@ export type DetectedColumns = Partial<ColumnMapping>;
 const MAX_HEADER_CHARS = 200;
 
 const UNIT_WORDS = new Set([
-  'm', 'meter', 'meters', 'metre', 'metres', 'ft', 'feet', 's', 'sec', 'secs', 'seconds',
-  'deg', 'degt', 'degree', 'degrees', 'ms', 'mps', 'kn', 'kt', 'kts', 'knots', 'kmh', 'kph',
-  'utc', 'gmt', 'z',
+  'm',
+  'meter',
+  'meters',
+  'metre',
+  'metres',
+  'ft',
+  'feet',
+  's',
+  'sec',
+  'secs',
+  'seconds',
+  'deg',
+  'degt',
+  'degree',
+  'degrees',
+  'ms',
+  'mps',
+  'kn',
+  'kt',
+  'kts',
+  'knots',
+  'kmh',
+  'kph',
+  'utc',
+  'gmt',
+  'z',
 ]);
 
 /**
@@ -57,7 +80,10 @@ const UNIT_WORDS = new Set([
 export function normaliseHeader(header: string): string {
   // Only the start of a long header is looked at: no known name is near this length, and the
   // bracket pattern below is quadratic on a long run of unclosed brackets.
-  let s = header.slice(0, MAX_HEADER_CHARS).replace(/^\uFEFF/, '').toLowerCase();
+  let s = header
+    .slice(0, MAX_HEADER_CHARS)
+    .replace(/^\uFEFF/, '')
+    .toLowerCase();
   s = s.replace(/\[[^\]]*\]|\([^)]*\)|\{[^}]*\}/g, ' ');
   s = s.replace(/["']/g, '');
   s = s.replace(/m\/s|km\/h/g, (u) => (u === 'm/s' ? ' ms ' : ' kmh '));

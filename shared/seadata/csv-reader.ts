@@ -261,7 +261,12 @@ export class CsvRecordReader {
       return;
     }
     if (columns.length === 0) {
-      this.fatal = ImportError.single(line, '', headers.join(', '), 'no sea-state column recognised: map at least one of Hs, Tp, Tz, Te, direction, wind');
+      this.fatal = ImportError.single(
+        line,
+        '',
+        headers.join(', '),
+        'no sea-state column recognised: map at least one of Hs, Tp, Tz, Te, direction, wind',
+      );
       return;
     }
     this.columns = columns;

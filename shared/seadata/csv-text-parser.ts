@@ -270,7 +270,12 @@ export class CsvTextParser {
       for (let i = 0; i < fields.length; i++) chars += fields[i].length;
       if (chars > MAX_CSV_ROW_CHARS) {
         // A whole row over the limit that arrived within one piece of text.
-        this.fatal = ImportError.single(firstLine + r, String(MAX_CSV_ROW_CHARS + 1), fields.slice(0, 8).join(this.delim ?? ','), this.tooLongReason());
+        this.fatal = ImportError.single(
+          firstLine + r,
+          String(MAX_CSV_ROW_CHARS + 1),
+          fields.slice(0, 8).join(this.delim ?? ','),
+          this.tooLongReason(),
+        );
         return;
       }
       const problem = rowProblems.get(r);

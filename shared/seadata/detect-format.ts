@@ -39,7 +39,8 @@ export function binaryMark(head: string): { line: number; column: number; code: 
  * 512 bytes or later; not read).
  */
 export function netcdfKind(head: Uint8Array): 'netcdf4' | 'classic' | null {
-  if (head.length >= 4 && head[0] === 0x43 && head[1] === 0x44 && head[2] === 0x46 && (head[3] === 1 || head[3] === 2 || head[3] === 5)) return 'classic';
+  if (head.length >= 4 && head[0] === 0x43 && head[1] === 0x44 && head[2] === 0x46 && (head[3] === 1 || head[3] === 2 || head[3] === 5))
+    return 'classic';
   const hdf = [0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a];
   if (head.length >= 8 && hdf.every((b, i) => head[i] === b)) return 'netcdf4';
   return null;

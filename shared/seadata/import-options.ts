@@ -90,10 +90,7 @@ export const ImportFormSchema = z.object({
   /** CSV delimiter; default detected. */
   delimiter: z.preprocess(emptyToUndefined, z.enum(CSV_DELIMITERS).optional()),
   /** CSV decimal comma ('true'/'false'); default: on for ';' files. */
-  decimalComma: z.preprocess(
-    (v) => (v === 'true' ? true : v === 'false' ? false : emptyToUndefined(v)),
-    z.boolean().optional(),
-  ),
+  decimalComma: z.preprocess((v) => (v === 'true' ? true : v === 'false' ? false : emptyToUndefined(v)), z.boolean().optional()),
   /**
    * Anemometer height above the sea, m (10 when the wind is already at 10 m). Wind becomes
    * U10 = Uz (10/z)^a. Required for an NDBC file with wind (checked after reading it); CSV files
@@ -195,5 +192,9 @@ export function csvOptionsFromForm(form: ImportForm): CsvTextParserOptions {
 
 /** Reader options for an NDBC upload from the parsed form. */
 export function ndbcOptionsFromForm(form: ImportForm): NdbcParserOptions {
-  return { onBadRows: form.onBadRows, anemometerHeightM: anemometerHeightOf(form), windExponent: form.windExponent ?? DEFAULT_WIND_EXPONENT };
+  return {
+    onBadRows: form.onBadRows,
+    anemometerHeightM: anemometerHeightOf(form),
+    windExponent: form.windExponent ?? DEFAULT_WIND_EXPONENT,
+  };
 }

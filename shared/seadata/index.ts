@@ -21,15 +21,7 @@ export type { SeaVariable, SeaRecords, SeaRecordInput, SeaRecordsSummary } from 
 // Issues and validation
 export { ImportError, IssueList, MAX_LISTED_ISSUES, shownText } from './issues';
 export type { ImportIssue } from './issues';
-export {
-  SeaRowValidator,
-  implausibleReason,
-  BAD_ROW_MODES,
-  HS_MAX_M,
-  PERIOD_MIN_S,
-  PERIOD_MAX_S,
-  WIND_MAX_MS,
-} from './validate';
+export { SeaRowValidator, implausibleReason, BAD_ROW_MODES, HS_MAX_M, PERIOD_MIN_S, PERIOD_MAX_S, WIND_MAX_MS } from './validate';
 export type { BadRowMode, TimeOrder, ImportReport, ImportResult } from './validate';
 
 // Values, units, times
@@ -48,7 +40,14 @@ export {
   speedFactorToMs,
 } from './units';
 export type { SeaUnits } from './units';
-export { windSpeedAt10m, windHeightFactor, windHeightNote, DEFAULT_WIND_EXPONENT, OVER_LAND_WIND_EXPONENT, WIND_REFERENCE_HEIGHT_M } from './wind-height';
+export {
+  windSpeedAt10m,
+  windHeightFactor,
+  windHeightNote,
+  DEFAULT_WIND_EXPONENT,
+  OVER_LAND_WIND_EXPONENT,
+  WIND_REFERENCE_HEIGHT_M,
+} from './wind-height';
 export { TimestampParser, suggestDateOrder, DATE_ORDERS } from './timestamp-parser';
 export type { DateOrder, TimestampOptions } from './timestamp-parser';
 export { isValidTimeZone } from './time-zone';
@@ -101,4 +100,17 @@ export {
   ACCEPTED_CALENDARS,
   REFUSED_CALENDARS,
 } from './netcdf-cf';
-export type { NcAttr, NcVar, NcFile, CfPlan, CfChoice, CfRole, GridPoint, Partition, PartitionSeries, CfPointResult, CfPointOptions, NcColumnMap } from './netcdf-cf';
+export type {
+  NcAttr,
+  NcVar,
+  NcFile,
+  CfPlan,
+  CfChoice,
+  CfRole,
+  GridPoint,
+  Partition,
+  PartitionSeries,
+  CfPointResult,
+  CfPointOptions,
+  NcColumnMap,
+} from './netcdf-cf';

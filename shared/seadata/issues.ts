@@ -72,7 +72,9 @@ export function shownText(raw: string): string {
   let s = cut ? raw.slice(0, MAX_VALUE_CHARS) : raw;
   if (cut && /[\uD800-\uDBFF]$/.test(s)) s = s.slice(0, -1);
   // eslint-disable-next-line no-control-regex
-  s = s.replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g, (c) => String.fromCharCode(c === '\u007f' ? 0x2421 : 0x2400 + c.charCodeAt(0)));
+  s = s.replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g, (c) =>
+    String.fromCharCode(c === '\u007f' ? 0x2421 : 0x2400 + c.charCodeAt(0)),
+  );
   s = s.replace(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, '\uFFFD');
   return cut ? `${s}…` : s;
 }

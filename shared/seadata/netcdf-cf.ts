@@ -53,14 +53,7 @@ export const PARTITION_LABELS: Record<Partition, string> = {
 };
 
 /** What a variable can be used as. */
-export type CfRole =
-  | SeaVariable
-  | 'u'
-  | 'v'
-  | `${Partition}.${'hs' | 'tp' | 'dir'}`
-  | 'depth'
-  | 'waterLevel'
-  | 'forecastReferenceTime';
+export type CfRole = SeaVariable | 'u' | 'v' | `${Partition}.${'hs' | 'tp' | 'dir'}` | 'depth' | 'waterLevel' | 'forecastReferenceTime';
 
 /** Standard names read for the total sea state and wind (CF standard name table). */
 export const TOTAL_NAMES: Record<SeaVariable, { from: string[]; to?: string[] }> = {
@@ -152,10 +145,23 @@ function fail(variable: string, reason: string): ImportError {
 // Time (CF 4.4)
 
 const UNIT_MS: Record<string, number> = {
-  day: 86_400_000, days: 86_400_000, d: 86_400_000,
-  hour: 3_600_000, hours: 3_600_000, hr: 3_600_000, hrs: 3_600_000, h: 3_600_000,
-  minute: 60_000, minutes: 60_000, min: 60_000, mins: 60_000,
-  second: 1000, seconds: 1000, sec: 1000, secs: 1000, s: 1000,
+  day: 86_400_000,
+  days: 86_400_000,
+  d: 86_400_000,
+  hour: 3_600_000,
+  hours: 3_600_000,
+  hr: 3_600_000,
+  hrs: 3_600_000,
+  h: 3_600_000,
+  minute: 60_000,
+  minutes: 60_000,
+  min: 60_000,
+  mins: 60_000,
+  second: 1000,
+  seconds: 1000,
+  sec: 1000,
+  secs: 1000,
+  s: 1000,
 };
 
 /** Calendars read as the proleptic Gregorian calendar of `Date` (CF 4.4.1). */
@@ -176,12 +182,18 @@ const GREGORIAN_START_MS = Date.UTC(1582, 9, 15);
 export function parseTimeUnits(units: string, calendar: string | undefined, variable = 'time'): { unitMs: number; originMs: number } {
   const cal = (calendar ?? 'standard').trim().toLowerCase() || 'standard';
   if ((REFUSED_CALENDARS as readonly string[]).includes(cal)) {
-    throw fail(variable, `calendar "${cal}" is not supported: its dates are not real-calendar instants (only ${ACCEPTED_CALENDARS.join(', ')} are read; convert the file with its producer's tools)`);
+    throw fail(
+      variable,
+      `calendar "${cal}" is not supported: its dates are not real-calendar instants (only ${ACCEPTED_CALENDARS.join(', ')} are read; convert the file with its producer's tools)`,
+    );
   }
   if (!(ACCEPTED_CALENDARS as readonly string[]).includes(cal)) {
     throw fail(variable, `unknown calendar "${cal}" (only ${ACCEPTED_CALENDARS.join(', ')} are read)`);
   }
-  const m = /^\s*([A-Za-z]+)\s+since\s+(\d{1,4})-(\d{1,2})-(\d{1,2})(?:[T\s]+(\d{1,2}):(\d{1,2})(?::(\d{1,2}(?:\.\d*)?))?)?\s*(Z|UTC|GMT|[+-]\d{1,2}(?::?\d{2})?)?\s*$/i.exec(units);
+  const m =
+    /^\s*([A-Za-z]+)\s+since\s+(\d{1,4})-(\d{1,2})-(\d{1,2})(?:[T\s]+(\d{1,2}):(\d{1,2})(?::(\d{1,2}(?:\.\d*)?))?)?\s*(Z|UTC|GMT|[+-]\d{1,2}(?::?\d{2})?)?\s*$/i.exec(
+      units,
+    );
   if (!m) throw fail(variable, `time units "${units}" are not "<unit> since <date>" (CF 4.4)`);
   const unitMs = UNIT_MS[m[1].toLowerCase()];
   if (unitMs === undefined) {
@@ -200,7 +212,10 @@ export function parseTimeUnits(units: string, calendar: string | undefined, vari
     if (z) originMs -= (z[1] === '-' ? -1 : 1) * (Number(z[2]) * 60 + Number(z[3] ?? 0)) * 60_000;
   }
   if (cal !== 'proleptic_gregorian' && originMs < GREGORIAN_START_MS) {
-    throw fail(variable, `time units "${units}" with the ${cal} calendar: a reference date before 1582-10-15 mixes Julian dates; give the file with calendar proleptic_gregorian`);
+    throw fail(
+      variable,
+      `time units "${units}" with the ${cal} calendar: a reference date before 1582-10-15 mixes Julian dates; give the file with calendar proleptic_gregorian`,
+    );
   }
   return { unitMs, originMs };
 }
@@ -221,9 +236,13 @@ export function decodeTimes(timeVar: NcVar, raw: Float64Array): Float64Array {
     const r = raw[i];
     if (!Number.isFinite(r) || fills.includes(r)) throw fail(timeVar.name, `missing time at time index ${fmt(i)}`);
     const ms = Math.round(originMs + (r * scale + offset) * unitMs);
-    if (!Number.isFinite(ms) || Math.abs(ms) > 8.64e15) throw fail(timeVar.name, `time ${r} ${units} is out of range at time index ${fmt(i)}`);
+    if (!Number.isFinite(ms) || Math.abs(ms) > 8.64e15)
+      throw fail(timeVar.name, `time ${r} ${units} is out of range at time index ${fmt(i)}`);
     if (i > 0 && ms <= out[i - 1]) {
-      throw fail(timeVar.name, `times must increase: ${new Date(ms).toISOString()} at time index ${fmt(i)} is ${ms === out[i - 1] ? 'a repeat of' : 'before'} the one before`);
+      throw fail(
+        timeVar.name,
+        `times must increase: ${new Date(ms).toISOString()} at time index ${fmt(i)} is ${ms === out[i - 1] ? 'a repeat of' : 'before'} the one before`,
+      );
     }
     out[i] = ms;
   }
@@ -254,7 +273,16 @@ export function unpack(v: NcVar, raw: Float64Array, out: Float64Array = new Floa
   const more = fills.slice(2);
   for (let i = 0; i < raw.length; i++) {
     const r = raw[i];
-    if (r !== r || r === f0 || r === f1 || r < lo || r > hi || r === NC_FILL_FLOAT || !Number.isFinite(r) || (more.length > 0 && more.includes(r))) {
+    if (
+      r !== r ||
+      r === f0 ||
+      r === f1 ||
+      r < lo ||
+      r > hi ||
+      r === NC_FILL_FLOAT ||
+      !Number.isFinite(r) ||
+      (more.length > 0 && more.includes(r))
+    ) {
       out[i] = NaN;
     } else {
       out[i] = r * scale + offset;
@@ -310,7 +338,11 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
   const vars = file.variables;
   const get = (name: string, role: string) => {
     const v = vars.find((x) => x.name === name);
-    if (!v) throw fail(name, `is named in the column map for ${role} but the file has no such variable (it has ${vars.map((x) => x.name).join(', ')})`);
+    if (!v)
+      throw fail(
+        name,
+        `is named in the column map for ${role} but the file has no such variable (it has ${vars.map((x) => x.name).join(', ')})`,
+      );
     return v;
   };
   const unnamed = vars.filter((v) => attrText(v, 'standard_name') === undefined);
@@ -402,7 +434,10 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
     if (!v.dims.includes(tDim)) throw fail(v.name, `does not run along the time dimension ${tDim}`);
     const dims = v.dims.filter((d, k) => d !== tDim && v.shape[k] !== 1);
     if (dims.join(',') !== pointDims.join(',')) {
-      throw fail(v.name, `has dimensions (${v.dims.join(', ')}) where ${reference.name} has (${reference.dims.join(', ')}): the variables of one import must share their grid`);
+      throw fail(
+        v.name,
+        `has dimensions (${v.dims.join(', ')}) where ${reference.name} has (${reference.dims.join(', ')}): the variables of one import must share their grid`,
+      );
     }
     if (v.dims.indexOf(tDim) !== reference.dims.indexOf(tDim)) {
       throw fail(v.name, `has time at another position than ${reference.name}`);
@@ -465,7 +500,17 @@ export function listGridPoints(file: NcFile, plan: CfPlan): GridPoint[] {
   const coordValues = (v: NcVar | undefined) => {
     if (!v) return undefined;
     if (v.dims.some((d) => !plan.pointDims.includes(d) && v.shape[v.dims.indexOf(d)] !== 1)) return undefined;
-    return { v, values: unpack(v, file.readRaw(v.name, v.shape.map(() => 0), v.shape)) };
+    return {
+      v,
+      values: unpack(
+        v,
+        file.readRaw(
+          v.name,
+          v.shape.map(() => 0),
+          v.shape,
+        ),
+      ),
+    };
   };
   const la = coordValues(lat);
   const lo = coordValues(lon);
@@ -717,7 +762,9 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
       }
     }
     if (differ > 0) {
-      notes.push(`total Hs and the partitions differ by more than 5% in ${fmt(differ)} records (first at time index ${fmt(first)}); the total is stored as given`);
+      notes.push(
+        `total Hs and the partitions differ by more than 5% in ${fmt(differ)} records (first at time index ${fmt(first)}); the total is stored as given`,
+      );
     }
   }
 
@@ -752,7 +799,14 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
   const nameOf = (role: CfRole, fallback: string) => plan.choices.find((c) => c.role === role)?.variable ?? fallback;
   for (const key of SEA_VARIABLES) {
     const values = series.get(key);
-    if (values) check(key === 'wind' || key === 'windDir' ? nameOf(key, key === 'wind' ? 'wind (from u, v)' : 'wind direction (from u, v)') : nameOf(key, `${key} (from partitions)`), key, values);
+    if (values)
+      check(
+        key === 'wind' || key === 'windDir'
+          ? nameOf(key, key === 'wind' ? 'wind (from u, v)' : 'wind direction (from u, v)')
+          : nameOf(key, `${key} (from partitions)`),
+        key,
+        values,
+      );
   }
   for (const p of PARTITIONS) {
     const s = partitions[p];
@@ -762,7 +816,11 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     if (s.dir) check(nameOf(`${p}.dir`, p), 'dir', s.dir);
   }
   if (issueCount > 0) {
-    throw new ImportError(issues, issueCount, `The file cannot be imported: ${issues[0].reason}${issueCount > 1 ? ` (and ${issueCount - 1} more)` : ''}.`);
+    throw new ImportError(
+      issues,
+      issueCount,
+      `The file cannot be imported: ${issues[0].reason}${issueCount > 1 ? ` (and ${issueCount - 1} more)` : ''}.`,
+    );
   }
 
   // Water level: never guess a datum.
@@ -777,7 +835,9 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     }
     waterLevel = series.get('waterLevel')!;
     for (let i = 0; i < n; i++) waterLevel[i] += options.waterLevelOffsetM;
-    notes.push(`water level ${wl.variable} above ${wl.datum} brought to chart datum with the stated offset of ${options.waterLevelOffsetM} m`);
+    notes.push(
+      `water level ${wl.variable} above ${wl.datum} brought to chart datum with the stated offset of ${options.waterLevelOffsetM} m`,
+    );
   }
 
   let depthM: number | null = null;
@@ -795,7 +855,11 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
   const fc = plan.choices.find((c) => c.role === 'forecastReferenceTime');
   if (fc) {
     const v = vars.get(fc.variable)!;
-    const raw = file.readRaw(v.name, v.shape.map(() => 0), v.shape.map(() => 1));
+    const raw = file.readRaw(
+      v.name,
+      v.shape.map(() => 0),
+      v.shape.map(() => 1),
+    );
     const units = attrText(v, 'units') ?? attrText(plan.time, 'units') ?? '';
     const { unitMs, originMs } = parseTimeUnits(units, attrText(v, 'calendar') ?? attrText(plan.time, 'calendar'), v.name);
     if (raw[0] === raw[0]) forecastReferenceMs = Math.round(originMs + raw[0] * unitMs);
@@ -820,5 +884,9 @@ function readDepthAt(file: NcFile, plan: CfPlan, v: NcVar, index: number[]): Flo
     const j = plan.pointDims.indexOf(d);
     return j === -1 ? 0 : index[j];
   });
-  return file.readRaw(v.name, start, v.dims.map(() => 1));
+  return file.readRaw(
+    v.name,
+    start,
+    v.dims.map(() => 1),
+  );
 }

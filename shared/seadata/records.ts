@@ -96,32 +96,14 @@ export class SeaRecordBuilder {
 
   /** Appends one record (missing values: omit them or pass NaN). */
   push(r: SeaRecordInput): void {
-    this.pushValues(
-      r.timeMs,
-      r.hs ?? NaN,
-      r.tp ?? NaN,
-      r.tz ?? NaN,
-      r.te ?? NaN,
-      r.dir ?? NaN,
-      r.wind ?? NaN,
-      r.windDir ?? NaN,
-    );
+    this.pushValues(r.timeMs, r.hs ?? NaN, r.tp ?? NaN, r.tz ?? NaN, r.te ?? NaN, r.dir ?? NaN, r.wind ?? NaN, r.windDir ?? NaN);
   }
 
   /**
    * Appends one record from positional values (the importers' fast path: no object per row).
    * Argument order is time, then {@link SEA_VARIABLES}.
    */
-  pushValues(
-    timeMs: number,
-    hs: number,
-    tp: number,
-    tz: number,
-    te: number,
-    dir: number,
-    wind: number,
-    windDir: number,
-  ): void {
+  pushValues(timeMs: number, hs: number, tp: number, tz: number, te: number, dir: number, wind: number, windDir: number): void {
     if (this.count === this.capacity) this.grow();
     const i = this.count++;
     const c = this.cols;

@@ -203,11 +203,7 @@ export class SeaRowValidator {
         if (!ok) {
           const rel = this.direction === 1 ? 'earlier than' : 'later than';
           const how = this.direction === 1 ? 'times must increase' : 'the file is newest-first (from its first two rows)';
-          this.rowIssue(
-            timeColumn,
-            timeRaw,
-            `time out of order: ${rel} line ${this.lastLine} (${isoOrText(this.lastMs)}); ${how}`,
-          );
+          this.rowIssue(timeColumn, timeRaw, `time out of order: ${rel} line ${this.lastLine} (${isoOrText(this.lastMs)}); ${how}`);
         }
       }
     }

@@ -299,12 +299,7 @@ const MODE_TABLE = 2;
  * @throws RangeError for arrays of different lengths, an `out` of the wrong length, a bad depth,
  *   bearing, breaker index, g, gamma, or transfer table.
  */
-export function transformToSite(
-  input: SeaSeriesInput,
-  source: SourcePoint,
-  site: SiteGeometry,
-  options?: TransformOptions,
-): SiteSeries {
+export function transformToSite(input: SeaSeriesInput, source: SourcePoint, site: SiteGeometry, options?: TransformOptions): SiteSeries {
   const setup = checkSetup(source, site, options);
   if (input.waterLevelM) return transformWithWaterLevel(input, input.waterLevelM, source, site, options);
   const { hsM: hsIn, tpS: tpIn, tzS: tzIn, dirDeg: dirIn } = input;
@@ -341,7 +336,10 @@ export function transformToSite(
   // Phase 1: the distinct Tp and direction values, and each record's index into them (-1 when
   // missing or invalid). Small loops of one kind each, so they are optimised at once.
   const prepared = options?.prepared;
-  if (prepared && (prepared.input.hsM !== hsIn || prepared.input.tpS !== tpIn || prepared.input.tzS !== tzIn || prepared.input.dirDeg !== dirIn)) {
+  if (
+    prepared &&
+    (prepared.input.hsM !== hsIn || prepared.input.tpS !== tpIn || prepared.input.tzS !== tzIn || prepared.input.dirDeg !== dirIn)
+  ) {
     throw new RangeError('options.prepared was made from another input');
   }
   let tpIds: Int32Array;
@@ -533,7 +531,13 @@ function engineFields(
  * as a fixed depth of h; dispersion is solved per (period, depth) pair). h <= 0: DRY, outputs NaN.
  * Slower than the fixed-depth path (no per-period cache), about a microsecond or two a record.
  */
-function transformWithWaterLevel(input: SeaSeriesInput, level: Float64Array, source: SourcePoint, site: SiteGeometry, options?: TransformOptions): SiteSeries {
+function transformWithWaterLevel(
+  input: SeaSeriesInput,
+  level: Float64Array,
+  source: SourcePoint,
+  site: SiteGeometry,
+  options?: TransformOptions,
+): SiteSeries {
   const n = input.hsM.length;
   if (input.tpS.length !== n || input.tzS.length !== n || input.dirDeg.length !== n || level.length !== n) {
     throw new RangeError('hsM, tpS, tzS, dirDeg and waterLevelM must have the same length');
@@ -559,7 +563,12 @@ function transformWithWaterLevel(input: SeaSeriesInput, level: Float64Array, sou
       out.bedVelocitySoulsbyMps[i] = NaN;
       continue;
     }
-    const c = transformOne({ hsM: input.hsM[i], tpS: input.tpS[i], tzS: input.tzS[i], dirDeg: input.dirDeg[i] }, source, { ...site, depthM: h }, one);
+    const c = transformOne(
+      { hsM: input.hsM[i], tpS: input.tpS[i], tzS: input.tzS[i], dirDeg: input.dirDeg[i] },
+      source,
+      { ...site, depthM: h },
+      one,
+    );
     out.hsM[i] = c.hsM;
     out.dirDeg[i] = c.dirDeg;
     out.ks[i] = c.ks;
@@ -719,10 +728,32 @@ export function transformOne(
     checkSetup(source, site, options);
     const flags = eta === eta ? TRANSFORM_FLAG.DRY : TRANSFORM_FLAG.MISSING_INPUT;
     return {
-      hsSrcM: record.hsM, tpS: record.tpS, tzS: NaN, tzSource: 'missing', dirSrcDeg: record.dirDeg ?? NaN, missing: null,
-      shoreNormalDeg: site.shoreNormalDeg ?? null, thetaSrcDeg: NaN, thetaSiteDeg: NaN, cSrcMps: NaN, cSiteMps: NaN, cgSrcMps: NaN, cgSiteMps: NaN,
-      ks: NaN, kr: NaN, transferFactor: NaN, hsBeforeCapM: NaN, waterLevelM: eta, depthM: h, depthLimitM: NaN, hsM: NaN, dirDeg: NaN,
-      flags, flagNames: transformFlagNames(flags), bedVelocityLinearMps: NaN, bedVelocitySoulsbyMps: NaN,
+      hsSrcM: record.hsM,
+      tpS: record.tpS,
+      tzS: NaN,
+      tzSource: 'missing',
+      dirSrcDeg: record.dirDeg ?? NaN,
+      missing: null,
+      shoreNormalDeg: site.shoreNormalDeg ?? null,
+      thetaSrcDeg: NaN,
+      thetaSiteDeg: NaN,
+      cSrcMps: NaN,
+      cSiteMps: NaN,
+      cgSrcMps: NaN,
+      cgSiteMps: NaN,
+      ks: NaN,
+      kr: NaN,
+      transferFactor: NaN,
+      hsBeforeCapM: NaN,
+      waterLevelM: eta,
+      depthM: h,
+      depthLimitM: NaN,
+      hsM: NaN,
+      dirDeg: NaN,
+      flags,
+      flagNames: transformFlagNames(flags),
+      bedVelocityLinearMps: NaN,
+      bedVelocitySoulsbyMps: NaN,
     };
   }
   const setup = checkSetup(source, eta === 0 ? site : { ...site, depthM: h }, options);

@@ -123,12 +123,7 @@ export function waveNumber(periodS: number, depthM: number, g: number = G_DEFAUL
  * @returns the relative residual, dimensionless.
  * @example dispersionResidual(waveNumber(8, 20), 8, 20) // about 1e-16
  */
-export function dispersionResidual(
-  waveNumberRadPerM: number,
-  periodS: number,
-  depthM: number,
-  g: number = G_DEFAULT_MPS2,
-): number {
+export function dispersionResidual(waveNumberRadPerM: number, periodS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
   const omega = TWO_PI / periodS;
   const omega2 = omega * omega;
   const tanhKd = depthM === Infinity ? 1 : Math.tanh(waveNumberRadPerM * depthM);

@@ -3,8 +3,7 @@ import type { ProjectAccessRole, ProjectDetail, ProjectSummary } from '../../sha
 import { api } from '../lib/api';
 
 /** `GET /api/projects`: the projects the caller may see. */
-export const projectsQueryOptions = () =>
-  queryOptions({ queryKey: ['projects'], queryFn: () => api<ProjectSummary[]>('/api/projects') });
+export const projectsQueryOptions = () => queryOptions({ queryKey: ['projects'], queryFn: () => api<ProjectSummary[]>('/api/projects') });
 
 export const useProjects = () => useQuery(projectsQueryOptions());
 

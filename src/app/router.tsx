@@ -11,9 +11,11 @@ import { NotFound, RouteError } from './route-error';
 // The first page (sign-in, the projects list and the app's frame) is in the entry chunk; every
 // other section is a chunk of its own, loaded when first opened (React Router's route-level
 // `lazy`). tests/unit/first-page-budget.test.ts holds the entry to its size budget.
-const page = <K extends string>(load: () => Promise<Record<K, ComponentType>>, name: K) => async () => ({
-  Component: (await load())[name],
-});
+const page =
+  <K extends string>(load: () => Promise<Record<K, ComponentType>>, name: K) =>
+  async () => ({
+    Component: (await load())[name],
+  });
 
 /** Signed-in pages: the loader sends anonymous visitors to the sign-in page. */
 async function requireSignedIn({ request }: LoaderFunctionArgs) {
@@ -44,10 +46,17 @@ export const router = createBrowserRouter([
       { path: 'admin/people', lazy: page(() => import('../features/admin/components/people-page'), 'PeoplePage'), loader: requireAdmin },
       { path: 'account', lazy: page(() => import('../features/auth/components/account-page'), 'AccountPage') },
       { path: 'projects', loader: () => redirect('/') },
-      { path: 'wave-calculator', lazy: page(() => import('../features/wave-calculator/components/wave-calculator-page'), 'WaveCalculatorPage') },
+      {
+        path: 'wave-calculator',
+        lazy: page(() => import('../features/wave-calculator/components/wave-calculator-page'), 'WaveCalculatorPage'),
+      },
       // The section's former address (renamed in issue 17); the server answers it with a 301 too.
       { path: 'wave-lab', loader: ({ request }) => redirect(`/wave-calculator${new URL(request.url).search}`) },
-      { path: 'admin/mailbox', lazy: page(() => import('../features/alerts/components/mailbox-page'), 'MailboxPage'), loader: requireAdmin },
+      {
+        path: 'admin/mailbox',
+        lazy: page(() => import('../features/alerts/components/mailbox-page'), 'MailboxPage'),
+        loader: requireAdmin,
+      },
       {
         path: 'projects/:projectId',
         lazy: page(() => import('./layouts/project-layout'), 'ProjectLayout'),
@@ -65,7 +74,10 @@ export const router = createBrowserRouter([
           { path: 'alerts', lazy: page(() => import('../features/alerts/components/alerts-page'), 'AlertsPage') },
           { path: 'sea-data', lazy: page(() => import('../features/datasets/components/datasets-page'), 'DatasetsPage') },
           { path: 'sea-data/import', lazy: page(() => import('../features/datasets/components/dataset-import-page'), 'DatasetImportPage') },
-          { path: 'sea-data/:datasetId', lazy: page(() => import('../features/datasets/components/dataset-detail-page'), 'DatasetDetailPage') },
+          {
+            path: 'sea-data/:datasetId',
+            lazy: page(() => import('../features/datasets/components/dataset-detail-page'), 'DatasetDetailPage'),
+          },
         ],
       },
       { path: '*', element: <NotFound /> },

@@ -39,9 +39,19 @@ export async function api<T>(path: string, init: RequestInit & { json?: unknown 
   const text = await res.text();
   const body = text ? safeJson(text) : null;
   if (!res.ok) {
-    const err = body && typeof body === 'object' && 'error' in body ? (body as { error: { code?: string; message?: string; details?: unknown } }).error : null;
-    const message = err?.message ?? (body && typeof body === 'object' && 'message' in body ? String((body as { message: unknown }).message) : res.statusText);
-    throw new ApiError(res.status, err?.code ?? String(res.status), message, Array.isArray(err?.details) ? (err.details as FieldProblem[]) : null);
+    const err =
+      body && typeof body === 'object' && 'error' in body
+        ? (body as { error: { code?: string; message?: string; details?: unknown } }).error
+        : null;
+    const message =
+      err?.message ??
+      (body && typeof body === 'object' && 'message' in body ? String((body as { message: unknown }).message) : res.statusText);
+    throw new ApiError(
+      res.status,
+      err?.code ?? String(res.status),
+      message,
+      Array.isArray(err?.details) ? (err.details as FieldProblem[]) : null,
+    );
   }
   return body as T;
 }

@@ -24,5 +24,10 @@ export function downloadCsv(fileName: string, text: string, type = 'text/csv;cha
 
 /** A file-name-safe slug of a name. */
 export function slug(name: string): string {
-  return name.replace(/[^A-Za-z0-9._-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'export';
+  return (
+    name
+      .replace(/[^A-Za-z0-9._-]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 60) || 'export'
+  );
 }

@@ -44,7 +44,13 @@ async function listen(app: Express): Promise<Listening> {
 }
 
 /** POSTs JSON from `localAddress` (any 127.x.y.z reaches the loopback interface on Linux). */
-function postFrom(port: number, localAddress: string, path: string, json: unknown, headers: Record<string, string> = {}): Promise<RawAnswer> {
+function postFrom(
+  port: number,
+  localAddress: string,
+  path: string,
+  json: unknown,
+  headers: Record<string, string> = {},
+): Promise<RawAnswer> {
   const payload = JSON.stringify(json);
   return new Promise((resolve, reject) => {
     const req = http.request(
@@ -124,7 +130,8 @@ describe('sign-in rate limit per client address', () => {
   it('counts per address across e-mails (password spraying from one address is caught too)', async () => {
     const emails = ['a@example.com', 'b@example.com', 'c@example.com', 'd@example.com'];
     const statuses: number[] = [];
-    for (const email of emails) statuses.push((await postFrom(server.port, '127.0.0.3', SIGN_IN, { email, password: 'wrong-password-2' })).status);
+    for (const email of emails)
+      statuses.push((await postFrom(server.port, '127.0.0.3', SIGN_IN, { email, password: 'wrong-password-2' })).status);
     expect(statuses).toEqual([401, 401, 401, 429]);
   });
 
@@ -152,7 +159,10 @@ describe('sign-in rate limit per client address', () => {
   it('keeps the count in the database, so a second app instance on the same database also refuses', async () => {
     // DEVELOPERS.md "Sign-in rate limits in the database (several instances share them)".
     const other = createApp(t.deps);
-    const res = await request(other).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'coordinator@example.com', password: DEMO_PASSWORD });
+    const res = await request(other)
+      .post(SIGN_IN)
+      .set('Origin', TEST_ORIGIN)
+      .send({ email: 'coordinator@example.com', password: DEMO_PASSWORD });
     expect(res.status).toBe(429);
   });
 });
@@ -174,14 +184,26 @@ describe('sign-in rate limit behind a trusted proxy', () => {
 
   it('keys the limit on the forwarded client, and a forged leftmost address changes nothing', async () => {
     const attempt = (forwardedFor: string) =>
-      postFrom(server.port, '127.0.0.1', SIGN_IN, { email: 'skipper@example.com', password: 'wrong-password-3' }, { 'x-forwarded-for': forwardedFor });
+      postFrom(
+        server.port,
+        '127.0.0.1',
+        SIGN_IN,
+        { email: 'skipper@example.com', password: 'wrong-password-3' },
+        { 'x-forwarded-for': forwardedFor },
+      );
     for (let i = 0; i < LIMIT; i++) expect((await attempt('198.51.100.20')).status).toBe(401);
     expect((await attempt('198.51.100.20')).status).toBe(429);
     // A client cannot prepend an address of its choice: the proxy appends the real one last.
     expect((await attempt('203.0.113.99, 198.51.100.20')).status).toBe(429);
     // Another client behind the same proxy is not blocked (another account: this one is in its
     // per-account back-off after five attempts).
-    const other = await postFrom(server.port, '127.0.0.1', SIGN_IN, { email: 'client@example.com', password: 'wrong-password-3' }, { 'x-forwarded-for': '198.51.100.21' });
+    const other = await postFrom(
+      server.port,
+      '127.0.0.1',
+      SIGN_IN,
+      { email: 'client@example.com', password: 'wrong-password-3' },
+      { 'x-forwarded-for': '198.51.100.21' },
+    );
     expect(other.status).toBe(401);
   });
 });
@@ -290,18 +312,15 @@ describe('cross-site state-changing requests', () => {
 
   it('refuses PUT, PATCH and DELETE from another origin and changes nothing', async () => {
     const before = (await as.coordinator.get(`/api/projects/${t.demo.projectId}`)).body as Record<string, unknown>;
-    const put = await as.coordinator
-      .put(`/api/projects/${t.demo.projectId}/settings`)
-      .set('Origin', EVIL_ORIGIN)
-      .send({
-        name: 'Renamed by another site',
-        description: before.description,
-        dataPointName: before.dataPointName,
-        dataPointLatitude: before.dataPointLatitude,
-        dataPointLongitude: before.dataPointLongitude,
-        dataPointDepthM: before.dataPointDepthM,
-        forecastSource: before.forecastSource,
-      });
+    const put = await as.coordinator.put(`/api/projects/${t.demo.projectId}/settings`).set('Origin', EVIL_ORIGIN).send({
+      name: 'Renamed by another site',
+      description: before.description,
+      dataPointName: before.dataPointName,
+      dataPointLatitude: before.dataPointLatitude,
+      dataPointLongitude: before.dataPointLongitude,
+      dataPointDepthM: before.dataPointDepthM,
+      forecastSource: before.forecastSource,
+    });
     expect(put.status).toBe(403);
     expect(((await as.coordinator.get(`/api/projects/${t.demo.projectId}`)).body as { name: string }).name).toBe(before.name);
 
@@ -309,7 +328,9 @@ describe('cross-site state-changing requests', () => {
     expect(patch.status).toBe(403);
     const del = await as.admin.delete(`/api/admin/users/${t.demo.users.skipper}/projects/${t.demo.projectId}`).set('Origin', EVIL_ORIGIN);
     expect(del.status).toBe(403);
-    const skipper = ((await as.admin.get('/api/admin/users')).body as { id: string; active: boolean }[]).find((u) => u.id === t.demo.users.skipper);
+    const skipper = ((await as.admin.get('/api/admin/users')).body as { id: string; active: boolean }[]).find(
+      (u) => u.id === t.demo.users.skipper,
+    );
     expect(skipper?.active).toBe(true);
     expect((await as.skipper.get(`/api/projects/${t.demo.projectId}`)).body.role).toBe('skipper');
   });
@@ -322,7 +343,10 @@ describe('cross-site state-changing requests', () => {
       'http://evil.example:3000',
       'null',
     ]) {
-      const res = await as.coordinator.post('/api/projects').set('Origin', origin).send({ name: `From ${origin}` });
+      const res = await as.coordinator
+        .post('/api/projects')
+        .set('Origin', origin)
+        .send({ name: `From ${origin}` });
       expect(res.status, origin).toBe(403);
     }
   });
@@ -413,7 +437,10 @@ describe('no account enumeration', () => {
 
   it('answers closed sign-up the same for an existing and a new e-mail', async () => {
     const signUp = (email: string) =>
-      request(t.app).post('/api/auth/sign-up/email').set('Origin', TEST_ORIGIN).send({ email, password: 'a-long-password-123', name: 'Someone' });
+      request(t.app)
+        .post('/api/auth/sign-up/email')
+        .set('Origin', TEST_ORIGIN)
+        .send({ email, password: 'a-long-password-123', name: 'Someone' });
     const existing = await signUp('coordinator@example.com');
     const fresh = await signUp('brand-new@example.com');
     expect(existing.status).toBeGreaterThanOrEqual(400);
@@ -425,7 +452,10 @@ describe('no account enumeration', () => {
   it('has password reset and verification e-mails switched off, answering the same for any e-mail', async () => {
     for (const path of ['/api/auth/request-password-reset', '/api/auth/send-verification-email']) {
       const known = await request(t.app).post(path).set('Origin', TEST_ORIGIN).send({ email: 'coordinator@example.com', redirectTo: '/' });
-      const unknown = await request(t.app).post(path).set('Origin', TEST_ORIGIN).send({ email: 'nobody-here@example.com', redirectTo: '/' });
+      const unknown = await request(t.app)
+        .post(path)
+        .set('Origin', TEST_ORIGIN)
+        .send({ email: 'nobody-here@example.com', redirectTo: '/' });
       expect(known.status, path).toBeGreaterThanOrEqual(400);
       expect(known.status, path).toBe(unknown.status);
       expect(known.body, path).toEqual(unknown.body);
@@ -491,7 +521,10 @@ describe('sessions end on sign-out and on deactivation', () => {
       expect(await sessionWith(cookie)).toEqual([]);
     }
     expect(await t.database.db.select({ id: session.id }).from(session).where(eq(session.userId, created_user.id))).toEqual([]);
-    const again = await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'leaving@example.com', password: temporaryPassword });
+    const again = await request(t.app)
+      .post(SIGN_IN)
+      .set('Origin', TEST_ORIGIN)
+      .send({ email: 'leaving@example.com', password: temporaryPassword });
     expect(again.status).toBe(401);
     expect(again.headers['set-cookie']).toBeUndefined();
 

@@ -73,7 +73,8 @@ describe('GET .../outlook', () => {
       expect(p10).toBeGreaterThanOrEqual(NOW.getTime() + sumTpop * HOUR);
       expect(o.remainingWowHours.p50).toBeCloseTo((p50 - NOW.getTime()) / HOUR - sumTpop, 1);
     }
-    if (o.finish.p50 && o.hindcast.finish.p50) expect(o.forecastShiftHours.p50).toBeCloseTo((Date.parse(o.finish.p50) - Date.parse(o.hindcast.finish.p50)) / HOUR, 1);
+    if (o.finish.p50 && o.hindcast.finish.p50)
+      expect(o.forecastShiftHours.p50).toBeCloseTo((Date.parse(o.finish.p50) - Date.parse(o.hindcast.finish.p50)) / HOUR, 1);
   });
 
   it('equals the engine run on the stored series transformed here (hindcast part), with d3-array quantile (reference library)', async () => {
@@ -85,10 +86,20 @@ describe('GET .../outlook', () => {
       const site = setup.sites.find((x) => x.id === s.siteId)!;
       const spec = operationSpec(op);
       const engine = transformForSite(series, row.dataPointDepthM, site).engine;
-      return goStarts(engine.timeMs, evaluateStatus(engine, spec, { alpha: true, alphaTable: setup.alphaTable }), HOUR, spec.tpopH + spec.tcH);
+      return goStarts(
+        engine.timeMs,
+        evaluateStatus(engine, spec, { alpha: true, alphaTable: setup.alphaTable }),
+        HOUR,
+        spec.tpopH + spec.tcH,
+      );
     });
     const tpop = fresh.steps.map((s) => setup.operations.find((o) => o.id === s.operationId)!.tpopH);
-    const samples = simulateOutlook({ startMs: NOW.getTime(), tpopH: tpop, members: [], hindcast: { timeMs: series.timeMs, stepMs: HOUR, goStart: flags } });
+    const samples = simulateOutlook({
+      startMs: NOW.getTime(),
+      tpopH: tpop,
+      members: [],
+      hindcast: { timeMs: series.timeMs, stepMs: HOUR, goStart: flags },
+    });
     const finished = samples.filter((s) => !s.censored).map((s) => s.finishMs!);
     const o = await outlookOf(fresh.id);
     expect(o.hindcast.censored).toBe(samples.length - finished.length);
@@ -120,7 +131,9 @@ describe('PATCH .../steps/:index (progress)', () => {
     const later = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'started' });
     expect(later.status).toBe(409);
     expect(later.text).toContain('Step 1 is not done yet');
-    const future = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/0`).send({ status: 'done', doneAt: '2026-12-02T00:00:00Z' });
+    const future = await as.coordinator
+      .patch(`${base}/campaigns/${fresh.id}/steps/0`)
+      .send({ status: 'done', doneAt: '2026-12-02T00:00:00Z' });
     expect(future.status).toBe(400);
     expect(future.body.error.details[0].field).toBe('doneAt');
     const noLedger = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/0`).send({ status: 'done' });
@@ -156,8 +169,28 @@ describe('PATCH .../steps/:index (progress)', () => {
     // Step 2 (rock berm, TPOP 10 h): two confirmed days, 6 h and then 5 h worked.
     const step = fresh.steps[1];
     await t.database.db.insert(ledgerDay).values([
-      { projectId: t.demo.projectId, operationId: step.operationId, siteId: step.siteId, day: '2026-11-28', plannedHours: 24, proposedLostHours: 18, lostHours: 18, source: 'forecast', status: 'confirmed' },
-      { projectId: t.demo.projectId, operationId: step.operationId, siteId: step.siteId, day: '2026-11-29', plannedHours: 24, proposedLostHours: 19, lostHours: 19, source: 'forecast', status: 'confirmed' },
+      {
+        projectId: t.demo.projectId,
+        operationId: step.operationId,
+        siteId: step.siteId,
+        day: '2026-11-28',
+        plannedHours: 24,
+        proposedLostHours: 18,
+        lostHours: 18,
+        source: 'forecast',
+        status: 'confirmed',
+      },
+      {
+        projectId: t.demo.projectId,
+        operationId: step.operationId,
+        siteId: step.siteId,
+        day: '2026-11-29',
+        plannedHours: 24,
+        proposedLostHours: 19,
+        lostHours: 19,
+        source: 'forecast',
+        status: 'confirmed',
+      },
     ]);
     // Its start is after step 1's end (now), so the ledger days before it do not count.
     const started = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'started' });
@@ -167,11 +200,22 @@ describe('PATCH .../steps/:index (progress)', () => {
     expect(tooEarly.status).toBe(400);
     // Back to planned, step 1 back to started with its real start before those days: now the ledger says done.
     expect((await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'planned' })).status).toBe(200);
-    expect((await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/0`).send({ status: 'done', startedAt: '2026-11-25T00:00:00Z', doneAt: '2026-11-27T12:00:00Z' })).status).toBe(200);
+    expect(
+      (
+        await as.coordinator
+          .patch(`${base}/campaigns/${fresh.id}/steps/0`)
+          .send({ status: 'done', startedAt: '2026-11-25T00:00:00Z', doneAt: '2026-11-27T12:00:00Z' })
+      ).status,
+    ).toBe(200);
     const done = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'done' });
     expect(done.status, done.text).toBe(200);
     // Europe/London is UTC in November: the end of 29 November.
-    expect(done.body.progress[1]).toMatchObject({ status: 'done', doneAt: '2026-11-30T00:00:00.000Z', source: 'ledger', startedAt: '2026-11-28T00:00:00.000Z' });
+    expect(done.body.progress[1]).toMatchObject({
+      status: 'done',
+      doneAt: '2026-11-30T00:00:00.000Z',
+      source: 'ledger',
+      startedAt: '2026-11-28T00:00:00.000Z',
+    });
     const o = await outlookOf(fresh.id);
     expect(o.steps.map((s) => s.index)).toEqual([2]);
   });
@@ -194,13 +238,26 @@ describe('history and alerts', () => {
     const before = ((await as.client.get(`${base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[]).length;
     // The client asks to hear about moves of more than 2 days.
     const sub = await as.client.put(`${base}/subscription`).send({
-      operationIds: [], siteIds: [], immediate: false, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true, outlookMoveDays: 2,
+      operationIds: [],
+      siteIds: [],
+      immediate: false,
+      digest: false,
+      digestTime: '06:00',
+      digestTimeZone: 'UTC',
+      active: true,
+      outlookMoveDays: 2,
     });
     expect(sub.status, sub.text).toBe(200);
     expect(sub.body.outlookMoveDays).toBe(2);
     // A stored outlook whose P50 is far from anything this run can give (60 days before now).
     await t.database.db.insert(campaignOutlook).values({
-      projectId: t.demo.projectId, campaignId: demo.id, at: new Date(NOW.getTime() - HOUR), p50: new Date(NOW.getTime() - 60 * 24 * HOUR), p90: null, samples: 3, censored: 0,
+      projectId: t.demo.projectId,
+      campaignId: demo.id,
+      at: new Date(NOW.getTime() - HOUR),
+      p50: new Date(NOW.getTime() - 60 * 24 * HOUR),
+      p90: null,
+      samples: 3,
+      censored: 0,
     });
     const job = await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'manual' });
     expect(job.projects[0].status).toBe('planned');
@@ -209,7 +266,10 @@ describe('history and alerts', () => {
     const last = history[history.length - 1];
     expect(last.at).toBe(NOW.toISOString());
     expect(last.forecastIssuedAt).toBe((await getDatasetRow(t.database.db, t.demo.projectId, t.demo.forecastId!)).issuedAt!.toISOString());
-    const [row] = await t.database.db.select().from(campaignOutlook).where(and(eq(campaignOutlook.campaignId, demo.id), eq(campaignOutlook.at, NOW)));
+    const [row] = await t.database.db
+      .select()
+      .from(campaignOutlook)
+      .where(and(eq(campaignOutlook.campaignId, demo.id), eq(campaignOutlook.at, NOW)));
     expect(row.planRunId).toBe(job.projects[0].planRunId);
 
     const mails = await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.client));
@@ -221,11 +281,15 @@ describe('history and alerts', () => {
       expect(moved[0].toEmail).toBe('client@example.com');
       // The same run again: the P50 is unchanged, so nothing more is sent.
       await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'manual' });
-      const again = (await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.client))).filter((m) => m.idempotencyKey.startsWith(`outlook:${demo.id}:`));
+      const again = (await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.client))).filter((m) =>
+        m.idempotencyKey.startsWith(`outlook:${demo.id}:`),
+      );
       expect(again).toHaveLength(1);
     }
     // The skipper asked nothing and is not a client or coordinator here: no outlook e-mail.
-    const skipperMails = (await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.skipper))).filter((m) => m.idempotencyKey.startsWith('outlook:'));
+    const skipperMails = (await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.skipper))).filter((m) =>
+      m.idempotencyKey.startsWith('outlook:'),
+    );
     expect(skipperMails).toHaveLength(0);
   });
 

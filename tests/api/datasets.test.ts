@@ -110,8 +110,14 @@ describe('importing sea-state files', () => {
   // looked complete.
   it('counts absent rows as well as missing values in the dataset headline', async () => {
     // Hourly from 00:00 to 06:00 (7 steps): 03:00 and 04:00 are not in the file, 02:00 has no Hs.
-    const csv = 'time,hs,tp\n2026-01-01 00:00,1.0,8\n2026-01-01 01:00,1.1,8\n2026-01-01 02:00,NaN,8\n2026-01-01 05:00,1.2,8\n2026-01-01 06:00,1.3,8\n';
-    const res = await as.coordinator.post(base).field('name', 'Gappy buoy').field('kind', 'observation').field('dataPointDepth', '35').attach('file', Buffer.from(csv, 'utf8'), 'gappy.csv');
+    const csv =
+      'time,hs,tp\n2026-01-01 00:00,1.0,8\n2026-01-01 01:00,1.1,8\n2026-01-01 02:00,NaN,8\n2026-01-01 05:00,1.2,8\n2026-01-01 06:00,1.3,8\n';
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Gappy buoy')
+      .field('kind', 'observation')
+      .field('dataPointDepth', '35')
+      .attach('file', Buffer.from(csv, 'utf8'), 'gappy.csv');
     expect(res.status, res.text).toBe(201);
     const d = (await as.coordinator.get(`${base}/${res.body.id}`)).body;
     expect(d).toMatchObject({ records: 5, expectedRecords: 7, absentRecords: 2, missing: expect.objectContaining({ hs: 1 }) });
@@ -123,7 +129,12 @@ describe('importing sea-state files', () => {
   it('warns when a hindcast shorter than a year becomes the default, and lets the coordinator choose the default', async () => {
     const hours = Array.from({ length: 6 * 24 }, (_, k) => `${new Date(Date.UTC(2025, 5, 1) + k * 3_600_000).toISOString()},1.0,8`);
     const upload = (name: string) =>
-      as.coordinator.post(base).field('name', name).field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', Buffer.from(`time,hs,tp\n${hours.join('\n')}\n`, 'utf8'), 'short.csv');
+      as.coordinator
+        .post(base)
+        .field('name', name)
+        .field('kind', 'hindcast')
+        .field('dataPointDepth', 'deep')
+        .attach('file', Buffer.from(`time,hs,tp\n${hours.join('\n')}\n`, 'utf8'), 'short.csv');
     const first = await upload('Six days of hindcast');
     expect(first.status, first.text).toBe(201);
     // 144 hourly records: 6 days from the first record to the end of the last.
@@ -201,14 +212,24 @@ describe('importing sea-state files', () => {
 
   it('refuses a file over 100 MB with 413 and the limit stated', async () => {
     const big = Buffer.alloc(100 * 1024 * 1024 + 10, 0x31);
-    const res = await as.coordinator.post(base).field('name', 'Huge').field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', big, 'huge.csv');
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Huge')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', big, 'huge.csv');
     expect(res.status).toBe(413);
     expect(res.body.error.message).toMatch(/100 MB/);
   });
 
   it('lets only coordinators import or delete, and keeps other projects out', async () => {
     for (const agent of [as.skipper, as.client]) {
-      const res = await agent.post(base).field('name', 'x').field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', Buffer.from('time,hs\n'), 'x.csv');
+      const res = await agent
+        .post(base)
+        .field('name', 'x')
+        .field('kind', 'hindcast')
+        .field('dataPointDepth', 'deep')
+        .attach('file', Buffer.from('time,hs\n'), 'x.csv');
       expect(res.status).toBe(403);
     }
     const list = await as.coordinator.get(base);

@@ -5,7 +5,13 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, signInAll, type TestApp } from '../support/app';
 import { calendarIndex, evaluateHours, evaluateStatus, goStarts, monthlyStatistics, STATUS } from '../../shared/engine';
-import type { CampaignSimulation, LedgerEntry, LedgerMonthlyAnswer, LedgerProposeAnswer, WorkabilityEntry } from '../../shared/api-types-downtime';
+import type {
+  CampaignSimulation,
+  LedgerEntry,
+  LedgerMonthlyAnswer,
+  LedgerProposeAnswer,
+  WorkabilityEntry,
+} from '../../shared/api-types-downtime';
 import { readSeries } from '../../server/services/series-store';
 import { loadProjectSetup, operationSpec, transformForSite } from '../../server/services/site-context';
 import { createDataset } from '../../server/services/datasets';
@@ -36,7 +42,9 @@ afterAll(async () => {
 const inUnit = (x: number | null) => x === null || (x >= 0 && x <= 1);
 
 async function createOperation(body: Record<string, unknown>): Promise<string> {
-  const res = await as.coordinator.post(`${base}/operations`).send({ description: '', weatherRestricted: true, skipperIds: [], tc: 0, ...body });
+  const res = await as.coordinator
+    .post(`${base}/operations`)
+    .send({ description: '', weatherRestricted: true, skipperIds: [], tc: 0, ...body });
   expect(res.status, res.text).toBe(201);
   return res.body.id;
 }
@@ -80,7 +88,14 @@ describe('workability statistics', () => {
     const spec = operationSpec(op);
     const status = evaluateStatus(engineWithDepth, spec, { alpha: true, alphaTable: setup.alphaTable });
     const flags = goStarts(engineWithDepth.timeMs, status, HOUR, spec.tpopH + spec.tcH);
-    const stats = monthlyStatistics(engineWithDepth.timeMs, status, flags, HOUR, calendarIndex(engineWithDepth.timeMs, site.timeZone), spec.tpopH + spec.tcH);
+    const stats = monthlyStatistics(
+      engineWithDepth.timeMs,
+      status,
+      flags,
+      HOUR,
+      calendarIndex(engineWithDepth.timeMs, site.timeZone),
+      spec.tpopH + spec.tcH,
+    );
     for (let k = 0; k < 12; k++) {
       const a = e.months[k];
       const b = stats.months[k];
@@ -117,14 +132,18 @@ describe('workability statistics', () => {
     expect(again.body).toEqual(first.body);
     const keys = async () => {
       await settleStatsCache();
-      return (await t.database.db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).map((r) => r.key);
+      return (await t.database.db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).map(
+        (r) => r.key,
+      );
     };
     const before = (await keys()).filter((k) => k.startsWith(`${t.demo.hindcastId}:`) && k.endsWith(':true'));
     expect(before).toHaveLength(1);
 
     const entries = first.body as WorkabilityEntry[];
     const pull = entries.find((e) => e.operationName === 'Cable pull-in at landfall')!;
-    const patch = await as.coordinator.patch(`${base}/operations/${pull.operationId}`).send({ limits: { hsMax: 0.5, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
+    const patch = await as.coordinator
+      .patch(`${base}/operations/${pull.operationId}`)
+      .send({ limits: { hsMax: 0.5, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
     expect(patch.status, patch.text).toBe(200);
     const after = (await as.coordinator.get(`${base}/workability`)).body as WorkabilityEntry[];
     const changed = after.find((e) => e.operationId === pull.operationId && e.siteId === pull.siteId)!;
@@ -143,7 +162,9 @@ describe('workability statistics', () => {
     expect(now).toHaveLength(1);
     expect(now[0]).not.toBe(before[0]);
     // Back as seeded.
-    await as.coordinator.patch(`${base}/operations/${pull.operationId}`).send({ limits: { hsMax: 1.0, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
+    await as.coordinator
+      .patch(`${base}/operations/${pull.operationId}`)
+      .send({ limits: { hsMax: 1.0, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
     const restored = (await as.coordinator.get(`${base}/workability`)).body as WorkabilityEntry[];
     expect(restored).toEqual(entries);
   });
@@ -153,7 +174,9 @@ describe('workability statistics', () => {
     await settleStatsCache();
     // Mark the stored answer, forget the in-process memo: the marked value comes back.
     const db = t.database.db;
-    const [row] = (await db.select().from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).filter((r) => r.key.startsWith(`${t.demo.hindcastId}:`) && r.key.endsWith(':true'));
+    const [row] = (await db.select().from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).filter(
+      (r) => r.key.startsWith(`${t.demo.hindcastId}:`) && r.key.endsWith(':true'),
+    );
     const stored = row.value as WorkabilityEntry[];
     const mark = stored.find((e) => e.operationId === first[0].operationId && e.siteId === first[0].siteId)!;
     mark.months[0].workability = 0.123456;
@@ -183,11 +206,14 @@ describe('workability statistics', () => {
 
   it('downloads the same numbers as CSV', async () => {
     const json = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
-    const res = await as.client.get(`${base}/workability.csv`).buffer(true).parse((r, cb) => {
-      let s = '';
-      r.on('data', (c: Buffer) => (s += c));
-      r.on('end', () => cb(null, s));
-    });
+    const res = await as.client
+      .get(`${base}/workability.csv`)
+      .buffer(true)
+      .parse((r, cb) => {
+        let s = '';
+        r.on('data', (c: Buffer) => (s += c));
+        r.on('end', () => cb(null, s));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     // papaparse (a general-purpose CSV parser from npm) reads it back.
@@ -220,10 +246,28 @@ describe('campaigns', () => {
 
   beforeAll(async () => {
     // Limits so loose that every hour of the invented hindcast is workable.
-    calmA = await createOperation({ name: 'Calm step A', tpop: 10, tc: 2, limits: { hsMax: 20, windMax: 60 }, siteIds: [t.demo.siteIds.route] });
-    calmB = await createOperation({ name: 'Calm step B', tpop: 6, tc: 0, limits: { hsMax: 20, windMax: 60 }, siteIds: [t.demo.siteIds.substation] });
+    calmA = await createOperation({
+      name: 'Calm step A',
+      tpop: 10,
+      tc: 2,
+      limits: { hsMax: 20, windMax: 60 },
+      siteIds: [t.demo.siteIds.route],
+    });
+    calmB = await createOperation({
+      name: 'Calm step B',
+      tpop: 6,
+      tc: 0,
+      limits: { hsMax: 20, windMax: 60 },
+      siteIds: [t.demo.siteIds.substation],
+    });
     // A Tp window no sea of the invented climate reaches.
-    never = await createOperation({ name: 'Never goes', tpop: 4, tc: 0, limits: { tpMin: 39, tpMax: 40 }, siteIds: [t.demo.siteIds.route] });
+    never = await createOperation({
+      name: 'Never goes',
+      tpop: 4,
+      tc: 0,
+      limits: { tpMin: 39, tpMax: 40 },
+      siteIds: [t.demo.siteIds.route],
+    });
   });
 
   it('creates, lists, reorders and deletes a campaign; validates its steps', async () => {
@@ -239,17 +283,23 @@ describe('campaigns', () => {
     const list = await as.client.get(`${base}/campaigns`);
     expect(list.body.map((c: { id: string }) => c.id)).toContain(id);
 
-    const reordered = await as.coordinator.patch(`${base}/campaigns/${id}`).send({ steps: [steps[1], steps[0], steps[1]], timeZone: 'europe/london' });
+    const reordered = await as.coordinator
+      .patch(`${base}/campaigns/${id}`)
+      .send({ steps: [steps[1], steps[0], steps[1]], timeZone: 'europe/london' });
     expect(reordered.status, reordered.text).toBe(200);
     expect(reordered.body.steps).toEqual([steps[1], steps[0], steps[1]]);
     expect(reordered.body.timeZone).toBe('Europe/London');
     expect((await as.client.get(`${base}/campaigns/${id}`)).body.steps).toEqual([steps[1], steps[0], steps[1]]);
 
     // An operation at a worksite where it does not happen, an unknown one, no steps, too many.
-    const wrongSite = await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: [{ operationId: calmA, siteId: t.demo.siteIds.cofferdam }] });
+    const wrongSite = await as.coordinator
+      .post(`${base}/campaigns`)
+      .send({ name: 'x', steps: [{ operationId: calmA, siteId: t.demo.siteIds.cofferdam }] });
     expect(wrongSite.status).toBe(400);
     expect(wrongSite.body.error.details[0].field).toBe('steps.0.siteId');
-    const unknown = await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: [{ operationId: '00000000-0000-4000-8000-000000000000', siteId: t.demo.siteIds.route }] });
+    const unknown = await as.coordinator
+      .post(`${base}/campaigns`)
+      .send({ name: 'x', steps: [{ operationId: '00000000-0000-4000-8000-000000000000', siteId: t.demo.siteIds.route }] });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.details[0].field).toBe('steps.0.operationId');
     expect((await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: [] })).status).toBe(400);
@@ -299,7 +349,8 @@ describe('campaigns', () => {
     // Without alpha the lay is no slower (OPLIM >= OPWF).
     const without = (await as.client.post(`${base}/campaigns/${c.body.id}/simulate?alpha=false`)).body as CampaignSimulation;
     sim.months.forEach((m, k) => {
-      if (m.p50Hours !== null && without.months[k].p50Hours !== null) expect(without.months[k].p50Hours!).toBeLessThanOrEqual(m.p50Hours + 1e-9);
+      if (m.p50Hours !== null && without.months[k].p50Hours !== null)
+        expect(without.months[k].p50Hours!).toBeLessThanOrEqual(m.p50Hours + 1e-9);
     });
   });
 
@@ -317,7 +368,9 @@ describe('campaigns', () => {
       return res.body as CampaignSimulation;
     };
     const storedKeys = async () =>
-      (await db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).map((r) => r.key).filter((k) => k.endsWith(`:campaign-${c.body.id}-true`));
+      (await db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId)))
+        .map((r) => r.key)
+        .filter((k) => k.endsWith(`:campaign-${c.body.id}-true`));
 
     const first = await simulate(c.body.id);
     await settleStatsCache();
@@ -395,7 +448,9 @@ describe('campaigns', () => {
   });
 
   it('answers 409 when a stored step no longer fits the project', async () => {
-    const c = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Moves', steps: [{ operationId: calmB, siteId: t.demo.siteIds.substation }] });
+    const c = await as.coordinator
+      .post(`${base}/campaigns`)
+      .send({ name: 'Moves', steps: [{ operationId: calmB, siteId: t.demo.siteIds.substation }] });
     await as.coordinator.patch(`${base}/operations/${calmB}`).send({ siteIds: [t.demo.siteIds.route] });
     const res = await as.client.post(`${base}/campaigns/${c.body.id}/simulate`);
     expect(res.status).toBe(409);
@@ -428,7 +483,13 @@ describe('the downtime ledger', () => {
         dataPointDepthM: null,
         sourceKind: 'upload',
       },
-      toSeaSeries({ timeMs, hs: new Float64Array(n).fill(0.2), tp: new Float64Array(n).fill(6), dir: new Float64Array(n).fill(250), wind: new Float64Array(n).fill(3) }),
+      toSeaSeries({
+        timeMs,
+        hs: new Float64Array(n).fill(0.2),
+        tp: new Float64Array(n).fill(6),
+        dir: new Float64Array(n).fill(250),
+        wind: new Float64Array(n).fill(3),
+      }),
       {},
     );
     obsId = obs.id;
@@ -502,7 +563,8 @@ describe('the downtime ledger', () => {
   // Issue 22, item 4: the ledger let a coordinator confirm and lock a day that had not happened.
   it('proposes only days that are over in the worksite zone; a finished day without observation comes from the forecast issues that covered it', async () => {
     // At NOW_LEDGER (10 December 12:00 UTC; London = UTC in December) 1-9 December are over.
-    for (const n of proposed.notOver) expect(n.days).toEqual(Array.from({ length: 22 }, (_, k) => `2026-12-${String(10 + k).padStart(2, '0')}`));
+    for (const n of proposed.notOver)
+      expect(n.days).toEqual(Array.from({ length: 22 }, (_, k) => `2026-12-${String(10 + k).padStart(2, '0')}`));
     expect(proposed.uncovered).toEqual([]);
     const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-01`)).body as LedgerEntry[];
     expect(rows.length).toBe(await pairCount());
@@ -521,9 +583,13 @@ describe('the downtime ledger', () => {
         expect(r.proposedLostHours).toBe(24);
         continue;
       }
-      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), {
+        alpha: false,
+        alphaTable: setup.alphaTable,
+      });
       let workable = 0;
-      for (let i = 0; i < series.timeMs.length; i++) if (series.timeMs[i] >= from && series.timeMs[i] < from + 18 * HOUR && ev.status[i] === STATUS.WORKABLE) workable++;
+      for (let i = 0; i < series.timeMs.length; i++)
+        if (series.timeMs[i] >= from && series.timeMs[i] < from + 18 * HOUR && ev.status[i] === STATUS.WORKABLE) workable++;
       // The tidal winching stage also loses hours before 06:00 (away from high water), whatever the sea.
       if (r.operationName === 'Pull-in winching at high water') expect(r.proposedLostHours).toBeGreaterThanOrEqual(18 - workable);
       else expect(r.proposedLostHours).toBe(18 - workable);
@@ -542,13 +608,23 @@ describe('the downtime ledger', () => {
     };
     const auckland = await site('Ledger quay, Auckland', 'Pacific/Auckland');
     const london = await site('Ledger quay, London', 'Europe/London');
-    const op = await as.coordinator.post(`${B}/operations`).send({ name: 'Ledger lift', tpop: 4, tc: 0, weatherRestricted: true, limits: { hsMax: 1 }, siteIds: [auckland, london] });
+    const op = await as.coordinator
+      .post(`${B}/operations`)
+      .send({ name: 'Ledger lift', tpop: 4, tc: 0, weatherRestricted: true, limits: { hsMax: 1 }, siteIds: [auckland, london] });
     expect(op.status, op.text).toBe(201);
     const row = async (siteId: string, day: string) =>
       (
         await t.database.db
           .insert(ledgerDay)
-          .values({ projectId: t.demo.secondProjectId, operationId: op.body.id, siteId, day, plannedHours: 24, proposedLostHours: 3, source: 'forecast' })
+          .values({
+            projectId: t.demo.secondProjectId,
+            operationId: op.body.id,
+            siteId,
+            day,
+            plannedHours: 24,
+            proposedLostHours: 3,
+            source: 'forecast',
+          })
           .returning()
       )[0].id;
     // 10 December ends at 11:00 UTC in Auckland (00:00 on the 11th, UTC+13) and at 24:00 UTC in London.
@@ -571,7 +647,10 @@ describe('the downtime ledger', () => {
       expect(r.source).toBe('forecast');
       const site = setup.sites.find((s) => s.id === r.siteId)!;
       const op = setup.operations.find((o) => o.id === r.operationId)!;
-      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), {
+        alpha: false,
+        alphaTable: setup.alphaTable,
+      });
       // 4 December 2026 in Europe/London (GMT): 00:00Z to 24:00Z. The fake forecast turns 3-hourly
       // after +72 h: each record counts its duration (until the next record; the last one 3 h),
       // clipped to the day (docs/domain.md#weather-windows: lengths are sums of durations).
@@ -580,7 +659,8 @@ describe('the downtime ledger', () => {
       const t = series.timeMs;
       for (let i = 0; i < t.length; i++) {
         const end = i + 1 < t.length ? t[i + 1] : t[i] + 3 * HOUR;
-        if (t[i] >= from && t[i] < from + 24 * HOUR && ev.status[i] === STATUS.WORKABLE) workable += (Math.min(end, from + 24 * HOUR) - t[i]) / HOUR;
+        if (t[i] >= from && t[i] < from + 24 * HOUR && ev.status[i] === STATUS.WORKABLE)
+          workable += (Math.min(end, from + 24 * HOUR) - t[i]) / HOUR;
       }
       expect(r.proposedLostHours).toBeCloseTo(24 - workable, 2);
     }
@@ -596,9 +676,17 @@ describe('the downtime ledger', () => {
     expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: 25, note: 'x' })).status).toBe(400);
     expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: -1, note: 'x' })).status).toBe(400);
 
-    const corrected = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: 6, limiting: 'wind', note: 'Crew change, spread stood down at noon' });
+    const corrected = await as.coordinator
+      .post(`${base}/ledger/${a.id}/confirm`)
+      .send({ lostHours: 6, limiting: 'wind', note: 'Crew change, spread stood down at noon' });
     expect(corrected.status, corrected.text).toBe(200);
-    expect(corrected.body).toMatchObject({ status: 'confirmed', lostHours: 6, limiting: 'wind', note: 'Crew change, spread stood down at noon', confirmedBy: expect.any(String) });
+    expect(corrected.body).toMatchObject({
+      status: 'confirmed',
+      lostHours: 6,
+      limiting: 'wind',
+      note: 'Crew change, spread stood down at noon',
+      confirmedBy: expect.any(String),
+    });
     const asIs = await as.coordinator.post(`${base}/ledger/${b.id}/confirm`).send({});
     expect(asIs.status, asIs.text).toBe(200);
     expect(asIs.body.lostHours).toBe(b.proposedLostHours);
@@ -615,7 +703,11 @@ describe('the downtime ledger', () => {
     const audit = await as.coordinator.get(`${base}/audit?entity=project`);
     expect(audit.status).toBe(200);
     const entry = audit.body.find((e: { entityId: string }) => e.entityId === a.id);
-    expect(entry).toMatchObject({ action: 'update', before: { status: 'proposed', lostHours: a.proposedLostHours }, after: { status: 'confirmed', lostHours: 6, corrected: true } });
+    expect(entry).toMatchObject({
+      action: 'update',
+      before: { status: 'proposed', lostHours: a.proposedLostHours },
+      after: { status: 'confirmed', lostHours: 6, corrected: true },
+    });
   });
 
   it('shows clients the confirmed days only', async () => {
@@ -645,20 +737,29 @@ describe('the downtime ledger', () => {
       // the R-7 method (a general-purpose reference library).
       const site = setup.sites.find((s) => s.id === r.siteId)!;
       const op = setup.operations.find((o) => o.id === r.operationId)!;
-      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), {
+        alpha: false,
+        alphaTable: setup.alphaTable,
+      });
       const lost = [2023, 2024, 2025].map((y) => {
         const a = Date.UTC(y, 11, 1);
         const b = Date.UTC(y + 1, 0, 1);
         let workable = 0;
-        for (let i = 0; i < series.timeMs.length; i++) if (series.timeMs[i] >= a && series.timeMs[i] < b && ev.status[i] === STATUS.WORKABLE) workable++;
+        for (let i = 0; i < series.timeMs.length; i++)
+          if (series.timeMs[i] >= a && series.timeMs[i] < b && ev.status[i] === STATUS.WORKABLE) workable++;
         return 744 - workable;
       });
       expect(r.hindcastYears).toBe(3);
       expect(Math.abs(r.expectedP50Hours! - quantile(lost, 0.5)!)).toBeLessThanOrEqual(0.005);
       expect(Math.abs(r.expectedP90Hours! - quantile(lost, 0.9)!)).toBeLessThanOrEqual(0.005);
     }
-    const confirmed = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body.filter((r: LedgerEntry) => r.status === 'confirmed');
-    expect(confirmedTotal).toBeCloseTo(confirmed.reduce((s: number, r: LedgerEntry) => s + r.lostHours!, 0), 6);
+    const confirmed = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body.filter(
+      (r: LedgerEntry) => r.status === 'confirmed',
+    );
+    expect(confirmedTotal).toBeCloseTo(
+      confirmed.reduce((s: number, r: LedgerEntry) => s + r.lostHours!, 0),
+      6,
+    );
   });
 
   // Issue 22: one basis per page. The ledger's expectation follows the page's forecast-limit
@@ -666,7 +767,8 @@ describe('the downtime ledger', () => {
   // more hours unworkable, so every expected figure is at least the OPLIM one.
   it('computes the expectation on the page’s basis when asked (alpha=true)', async () => {
     const plain = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
-    const withAlpha = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31&alpha=true`)).body as LedgerMonthlyAnswer;
+    const withAlpha = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31&alpha=true`))
+      .body as LedgerMonthlyAnswer;
     expect([plain.alpha, withAlpha.alpha]).toEqual([false, true]);
     let stricter = 0;
     for (const r of withAlpha.rows) {
@@ -687,10 +789,11 @@ async function pairCount(): Promise<number> {
   return setup.operations.reduce((a, o) => a + (o.siteIds.length === 0 ? setup.sites.length : o.siteIds.length), 0);
 }
 
-
 describe('who may do what', () => {
   it('lets clients read workability, campaigns and the ledger, and nothing more', async () => {
-    const c = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Role check', steps: [{ operationId: t.demo.operationIds[0], siteId: t.demo.siteIds.cofferdam }] });
+    const c = await as.coordinator
+      .post(`${base}/campaigns`)
+      .send({ name: 'Role check', steps: [{ operationId: t.demo.operationIds[0], siteId: t.demo.siteIds.cofferdam }] });
     expect(c.status, c.text).toBe(201);
     const id = c.body.id;
     for (const who of [as.client, as.skipper]) {

@@ -47,7 +47,7 @@ describe('health and sign-in', () => {
     expect(wrong.body.message).toBe(unknown.body.message);
   });
 
-  it('answers the renamed section\'s old address with a permanent redirect to the new one', async () => {
+  it("answers the renamed section's old address with a permanent redirect to the new one", async () => {
     // Issue 17: "Wave lab" became "Wave calculator"; a bookmark of the old page still works.
     const res = await request(t.app).get('/wave-lab?mode=table');
     expect(res.status).toBe(301);

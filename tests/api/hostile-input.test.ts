@@ -56,7 +56,9 @@ const MULTILINE = HOSTILE.join('\n\t');
 
 const UPLOAD_DIR = path.join(os.tmpdir(), 'lullwatch-uploads');
 const CALM_CSV = (start: number, hours: number) =>
-  ['time,hs,tp,dir,wind', ...Array.from({ length: hours }, (_, i) => `${new Date(start + i * 3_600_000).toISOString()},0.5,6,250,3`)].join('\n') + '\n';
+  ['time,hs,tp,dir,wind', ...Array.from({ length: hours }, (_, i) => `${new Date(start + i * 3_600_000).toISOString()},0.5,6,250,3`)].join(
+    '\n',
+  ) + '\n';
 const SMALL_CSV = CALM_CSV(Date.UTC(2026, 0, 1), 3);
 
 async function tableNames(): Promise<string[]> {
@@ -71,7 +73,11 @@ async function storeCounts() {
   const db = t.deps.db;
   const [datasets] = await db.select({ n: count() }).from(dataset);
   const [chunks] = await db.select({ n: count() }).from(datasetChunk);
-  const [orphans] = await db.select({ n: count() }).from(datasetChunk).leftJoin(dataset, eq(dataset.id, datasetChunk.datasetId)).where(isNull(dataset.id));
+  const [orphans] = await db
+    .select({ n: count() })
+    .from(datasetChunk)
+    .leftJoin(dataset, eq(dataset.id, datasetChunk.datasetId))
+    .where(isNull(dataset.id));
   return { datasets: datasets.n, chunks: chunks.n, orphans: orphans.n };
 }
 
@@ -111,9 +117,19 @@ function multipart(parts: Part[]): { body: Buffer; type: string } {
   return { body: Buffer.concat(out), type: `multipart/form-data; boundary=${boundary}` };
 }
 
-function upload(agent: Agent, projectId: string, file: string | Buffer, fileName = 'upload.csv', fields: Record<string, string> = {}, encodedFilename = false) {
+function upload(
+  agent: Agent,
+  projectId: string,
+  file: string | Buffer,
+  fileName = 'upload.csv',
+  fields: Record<string, string> = {},
+  encodedFilename = false,
+) {
   const form = { name: 'Hostile upload', kind: 'hindcast', dataPointDepth: 'deep', ...fields };
-  const parts = [...Object.entries(form).map(([name, value]) => ({ name, value })), { name: 'file', value: file, filename: fileName, encodedFilename }];
+  const parts = [
+    ...Object.entries(form).map(([name, value]) => ({ name, value })),
+    { name: 'file', value: file, filename: fileName, encodedFilename },
+  ];
   const { body, type } = multipart(parts);
   return agent.post(`/api/projects/${projectId}/datasets`).set('content-type', type).send(body);
 }
@@ -207,7 +223,9 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       expect(jsonString(read, (b: { name: string }) => b.name)).toBe(s);
       expect(read.body.description).toBe(MULTILINE);
 
-      const campaign = await as.coordinator.post(`/api/projects/${projectId}/campaigns`).send({ name: s, steps: [{ operationId: op.body.id, siteId: siteIds[i] }] });
+      const campaign = await as.coordinator
+        .post(`/api/projects/${projectId}/campaigns`)
+        .send({ name: s, steps: [{ operationId: op.body.id, siteId: siteIds[i] }] });
       expect(campaign.status, campaign.text).toBe(201);
       const readCampaign = await as.coordinator.get(`/api/projects/${projectId}/campaigns/${campaign.body.id}`);
       expect(jsonString(readCampaign, (b: { name: string }) => b.name)).toBe(s);
@@ -245,7 +263,11 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
     const imported = await as.coordinator.post(`/api/projects/${target.body.id}/import?mode=merge`).send(doc);
     expect(imported.status, imported.text).toBe(200);
     const again = (await as.coordinator.get(`/api/projects/${target.body.id}/export`)).body;
-    const names = (d: { worksites: { name: string }[]; operations: { name: string; description: string }[]; campaigns: { name: string }[] }) => ({
+    const names = (d: {
+      worksites: { name: string }[];
+      operations: { name: string; description: string }[];
+      campaigns: { name: string }[];
+    }) => ({
       worksites: d.worksites.map((w) => w.name).sort(),
       operations: d.operations.map((o) => [o.name, o.description]).sort(),
       campaigns: d.campaigns.map((c) => c.name).sort(),
@@ -255,7 +277,10 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
   });
 
   it('keeps a ledger note byte for byte', async () => {
-    const obs = await upload(as.coordinator, projectId, CALM_CSV(Date.UTC(2026, 10, 29), 72), 'obs.csv', { kind: 'observation', name: 'Calm observation' });
+    const obs = await upload(as.coordinator, projectId, CALM_CSV(Date.UTC(2026, 10, 29), 72), 'obs.csv', {
+      kind: 'observation',
+      name: 'Calm observation',
+    });
     expect(obs.status, obs.text).toBe(201);
     const proposed = await as.coordinator.post(`/api/projects/${projectId}/ledger/propose?from=2026-11-30&to=2026-11-30`);
     expect(proposed.status, proposed.text).toBe(200);
@@ -289,14 +314,28 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
           }),
         'dataPointName',
       ],
-      ['worksite name', () => as.coordinator.post(`/api/projects/${A}/sites`).send({ name: 'nul\u0000', depth: 10, timeZone: 'UTC' }), 'name'],
+      [
+        'worksite name',
+        () => as.coordinator.post(`/api/projects/${A}/sites`).send({ name: 'nul\u0000', depth: 10, timeZone: 'UTC' }),
+        'name',
+      ],
       ['worksite rename', () => as.coordinator.patch(`/api/projects/${A}/sites/${site}`).send({ name: '\udc00' }), 'name'],
       [
         'operation description',
-        () => as.coordinator.post(`/api/projects/${A}/operations`).send({ name: 'ok op', description: 'esc \u001b[31m', tpop: 6, tc: 0, weatherRestricted: false, limits: { hsMax: 2 } }),
+        () =>
+          as.coordinator
+            .post(`/api/projects/${A}/operations`)
+            .send({ name: 'ok op', description: 'esc \u001b[31m', tpop: 6, tc: 0, weatherRestricted: false, limits: { hsMax: 2 } }),
         'description',
       ],
-      ['campaign name', () => as.coordinator.post(`/api/projects/${A}/campaigns`).send({ name: 'c\u0000', steps: [{ operationId: operationIds[0], siteId: site }] }), 'name'],
+      [
+        'campaign name',
+        () =>
+          as.coordinator
+            .post(`/api/projects/${A}/campaigns`)
+            .send({ name: 'c\u0000', steps: [{ operationId: operationIds[0], siteId: site }] }),
+        'name',
+      ],
       ['user name', () => as.admin.post('/api/admin/users').send({ name: 'u\u0000', email: 'nul@example.com' }), 'name'],
       [
         'subscription time zone',
@@ -328,25 +367,47 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       ],
       [
         'recurrence rule',
-        () => as.coordinator.put(`/api/projects/${A}/operations/${operationIds[0]}/recurrence`).send({ start: '2027-01-01T06:00', timeZone: 'UTC', rule: 'FREQ=DAILY;X=1\nDTSTART:x' }),
+        () =>
+          as.coordinator
+            .put(`/api/projects/${A}/operations/${operationIds[0]}/recurrence`)
+            .send({ start: '2027-01-01T06:00', timeZone: 'UTC', rule: 'FREQ=DAILY;X=1\nDTSTART:x' }),
         'rule',
       ],
     ];
     const doc = (await as.coordinator.get(`/api/projects/${A}/export`)).body;
     cases.push(
-      ['setup campaign name', () => as.coordinator.post(`/api/projects/${A}/import?mode=merge`).send({ ...doc, worksites: [], operations: [], campaigns: [{ ...doc.campaigns[0], name: 'n\u0000' }] }), 'campaigns.0.name'],
-      ['setup campaign time zone', () => as.coordinator.post(`/api/projects/${A}/import?mode=merge`).send({ ...doc, worksites: [], operations: [], campaigns: [{ ...doc.campaigns[0], timeZone: "UTC'--" }] }), 'campaigns.0.timeZone'],
+      [
+        'setup campaign name',
+        () =>
+          as.coordinator
+            .post(`/api/projects/${A}/import?mode=merge`)
+            .send({ ...doc, worksites: [], operations: [], campaigns: [{ ...doc.campaigns[0], name: 'n\u0000' }] }),
+        'campaigns.0.name',
+      ],
+      [
+        'setup campaign time zone',
+        () =>
+          as.coordinator
+            .post(`/api/projects/${A}/import?mode=merge`)
+            .send({ ...doc, worksites: [], operations: [], campaigns: [{ ...doc.campaigns[0], timeZone: "UTC'--" }] }),
+        'campaigns.0.timeZone',
+      ],
     );
     const tablesBefore = await tableNames();
     for (const [label, send, field] of cases) {
       const res = await send();
       expect(res.status, `${label}: ${res.text}`).toBe(400);
       expect(res.body.error.code, label).toBe('validation');
-      expect((res.body.error.details as { field: string }[]).map((d) => d.field), label).toContain(field);
+      expect(
+        (res.body.error.details as { field: string }[]).map((d) => d.field),
+        label,
+      ).toContain(field);
     }
     // Ids and mapping names are looked up, never stored as given: hostile ones are refused too.
     for (const skipperIds of [['x\u0000'], ["'); DROP TABLE operation;--"], ['\ud800']]) {
-      const res = await as.coordinator.post(`/api/projects/${A}/operations`).send({ name: 'Skipper probe', tpop: 6, tc: 0, weatherRestricted: false, limits: { hsMax: 2 }, skipperIds });
+      const res = await as.coordinator
+        .post(`/api/projects/${A}/operations`)
+        .send({ name: 'Skipper probe', tpop: 6, tc: 0, weatherRestricted: false, limits: { hsMax: 2 }, skipperIds });
       expect([400, 409], `${JSON.stringify(skipperIds)}: ${res.text}`).toContain(res.status);
     }
     // A user id in the address is looked up with a bound parameter; one that cannot be an id is unknown.
@@ -359,7 +420,10 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       const res = await as.admin[method](url).send(method === 'put' ? { role: 'client' } : { active: false });
       expect(res.status, `${method} ${url}: ${res.text}`).toBe(404);
     }
-    const mapping = await upload(as.coordinator, A, SMALL_CSV, 'small.csv', { columns: JSON.stringify({ time: 'time\u0000', hs: "hs'); DROP TABLE dataset;--" }), missingCodes: JSON.stringify(['\u0000', '<b>']) });
+    const mapping = await upload(as.coordinator, A, SMALL_CSV, 'small.csv', {
+      columns: JSON.stringify({ time: 'time\u0000', hs: "hs'); DROP TABLE dataset;--" }),
+      missingCodes: JSON.stringify(['\u0000', '<b>']),
+    });
     expect(mapping.status, mapping.text).toBe(400);
     expect(mapping.body.error.code).toBe('bad_file');
     expect(mapping.body.error.details[0].value).toBe("time\u2400, hs'); DROP TABLE dataset;--");
@@ -378,9 +442,16 @@ describe('places that render names outside React', () => {
     // and every worksite.
     const A = t.demo.projectId;
     const project = (await as.coordinator.get(`/api/projects/${A}`)).body;
-    const renamed = await as.coordinator.put(`/api/projects/${A}/settings`).send({ ...project, name: `${HOSTILE[1]} & co`, description: project.description ?? '' });
+    const renamed = await as.coordinator
+      .put(`/api/projects/${A}/settings`)
+      .send({ ...project, name: `${HOSTILE[1]} & co`, description: project.description ?? '' });
     expect(renamed.status, renamed.text).toBe(200);
-    const ops = (await as.coordinator.get(`/api/projects/${A}/operations`)).body as { id: string; name: string; siteIds: string[]; skipperIds: string[] }[];
+    const ops = (await as.coordinator.get(`/api/projects/${A}/operations`)).body as {
+      id: string;
+      name: string;
+      siteIds: string[];
+      skipperIds: string[];
+    }[];
     skipperOps = ops.filter((o) => o.skipperIds.includes(t.demo.users.skipper));
     expect(skipperOps.length).toBeGreaterThan(0);
     for (const [i, op] of skipperOps.entries()) {
@@ -389,14 +460,18 @@ describe('places that render names outside React', () => {
       op.name = name;
     }
     for (const [i, id] of Object.values(t.demo.siteIds).entries()) {
-      expect((await as.coordinator.patch(`/api/projects/${A}/sites/${id}`).send({ name: `</p><img src=x onerror=alert(${i})> ${i}` })).status).toBe(200);
+      expect(
+        (await as.coordinator.patch(`/api/projects/${A}/sites/${id}`).send({ name: `</p><img src=x onerror=alert(${i})> ${i}` })).status,
+      ).toBe(200);
     }
   });
 
   /** No hostile markup survives in an HTML document: only its escaped form. */
   function expectEscapedHtml(html: string) {
     expect(html).not.toMatch(/<script|<img|onmouseover="x|<\/p><img/);
-    expect(html).toMatch(/&lt;script&gt;alert\(\d\)&lt;\/script&gt; &quot; onmouseover=&quot;x|&lt;\/p&gt;&lt;img src=x onerror=alert\(\d\)&gt;/);
+    expect(html).toMatch(
+      /&lt;script&gt;alert\(\d\)&lt;\/script&gt; &quot; onmouseover=&quot;x|&lt;\/p&gt;&lt;img src=x onerror=alert\(\d\)&gt;/,
+    );
   }
 
   it('escapes names in alert e-mails (OWASP XSS Prevention: HTML-encode untrusted text)', async () => {
@@ -434,7 +509,9 @@ describe('places that render names outside React', () => {
   });
 
   it('never reflects the unsubscribe link parameters into its HTML page', async () => {
-    const res = await request(t.app).get('/api/unsubscribe').query({ u: '<script>alert(1)</script>', p: '"><svg onload=alert(1)>', sig: '<b>x</b>' });
+    const res = await request(t.app)
+      .get('/api/unsubscribe')
+      .query({ u: '<script>alert(1)</script>', p: '"><svg onload=alert(1)>', sig: '<b>x</b>' });
     expect(res.status).toBe(400);
     expect(res.type).toBe('text/html');
     expect(res.text).not.toMatch(/<script|<svg|<b>/);
@@ -446,7 +523,9 @@ describe('places that render names outside React', () => {
     const A = t.demo.projectId;
     const name = 'Calm; a,b\\c "q" <b>x</b> 🌊';
     const siteId = t.demo.siteIds.route;
-    const op = await as.coordinator.post(`/api/projects/${A}/operations`).send({ name, tpop: 1, tc: 1, weatherRestricted: true, limits: { hsMax: 20 }, siteIds: [siteId] });
+    const op = await as.coordinator
+      .post(`/api/projects/${A}/operations`)
+      .send({ name, tpop: 1, tc: 1, weatherRestricted: true, limits: { hsMax: 20 }, siteIds: [siteId] });
     expect(op.status, op.text).toBe(201);
     const siteName = (await as.coordinator.get(`/api/projects/${A}/sites/${siteId}`)).body.name as string;
 
@@ -473,13 +552,17 @@ describe('places that render names outside React', () => {
 
   it('neutralises spreadsheet formulas in the server CSV (OWASP "CSV Injection")', async () => {
     const A = t.demo.projectId;
-    const hindcast = await upload(as.coordinator, A, CALM_CSV(Date.UTC(2025, 0, 1), 24 * 10), 'hindcast.csv', { name: '=cmd|"/C calc"!A0' });
+    const hindcast = await upload(as.coordinator, A, CALM_CSV(Date.UTC(2025, 0, 1), 24 * 10), 'hindcast.csv', {
+      name: '=cmd|"/C calc"!A0',
+    });
     expect(hindcast.status, hindcast.text).toBe(201);
     const formulas = ['=HYPERLINK("http://x.invalid","y")', '@SUM(1+1)', "-2+3+cmd|' /C calc'!A0", '+1+1'];
     const site = await as.coordinator.post(`/api/projects/${A}/sites`).send({ name: '@SUM(A1:A9)', depth: 20, timeZone: 'UTC' });
     expect(site.status, site.text).toBe(201);
     for (const name of formulas) {
-      const op = await as.coordinator.post(`/api/projects/${A}/operations`).send({ name, tpop: 2, tc: 0, weatherRestricted: false, limits: { hsMax: 1 }, siteIds: [site.body.id] });
+      const op = await as.coordinator
+        .post(`/api/projects/${A}/operations`)
+        .send({ name, tpop: 2, tc: 0, weatherRestricted: false, limits: { hsMax: 1 }, siteIds: [site.body.id] });
       expect(op.status, op.text).toBe(201);
     }
     const res = await as.client.get(`/api/projects/${A}/workability.csv`).query({ dataset: hindcast.body.id });
@@ -532,7 +615,10 @@ describe('oversize bodies', () => {
     const res = await as.coordinator.post('/api/projects').set('content-type', 'application/json').send(deep);
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('validation');
-    const proto = await as.coordinator.post('/api/projects').set('content-type', 'application/json').send('{"name":"Proto","__proto__":{"polluted":true},"constructor":{"prototype":{"polluted":true}}}');
+    const proto = await as.coordinator
+      .post('/api/projects')
+      .set('content-type', 'application/json')
+      .send('{"name":"Proto","__proto__":{"polluted":true},"constructor":{"prototype":{"polluted":true}}}');
     expect(proto.status).toBe(201);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
     await health();
@@ -541,7 +627,13 @@ describe('oversize bodies', () => {
   it('answers an upload over 100 MB with 413 and stores nothing', async () => {
     const big = Buffer.alloc(100 * 1024 * 1024 + 10, 0x31);
     const res = await expectRefusedStoringNothing(
-      () => as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).field('name', 'Huge').field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', big, 'huge.csv'),
+      () =>
+        as.coordinator
+          .post(`/api/projects/${t.demo.projectId}/datasets`)
+          .field('name', 'Huge')
+          .field('kind', 'hindcast')
+          .field('dataPointDepth', 'deep')
+          .attach('file', big, 'huge.csv'),
       413,
     );
     expect(res.body.error.code).toBe('too_large');
@@ -549,16 +641,27 @@ describe('oversize bodies', () => {
   });
 
   it('answers a form field over 64 kB with 413, and a malformed multipart body with 400', async () => {
-    const long = await expectRefusedStoringNothing(() => upload(as.coordinator, t.demo.projectId, SMALL_CSV, 'a.csv', { units: 'x'.repeat(70 * 1024) }), 413);
+    const long = await expectRefusedStoringNothing(
+      () => upload(as.coordinator, t.demo.projectId, SMALL_CSV, 'a.csv', { units: 'x'.repeat(70 * 1024) }),
+      413,
+    );
     expect(long.body.error.message).toMatch(/units is longer than the limit of 64 kB/);
-    const cut = multipart([{ name: 'name', value: 'x' }, { name: 'file', value: SMALL_CSV, filename: 'a.csv' }]);
+    const cut = multipart([
+      { name: 'name', value: 'x' },
+      { name: 'file', value: SMALL_CSV, filename: 'a.csv' },
+    ]);
     const truncated = await expectRefusedStoringNothing(
-      () => as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).set('content-type', cut.type).send(cut.body.subarray(0, cut.body.length - 40)),
+      () =>
+        as.coordinator
+          .post(`/api/projects/${t.demo.projectId}/datasets`)
+          .set('content-type', cut.type)
+          .send(cut.body.subarray(0, cut.body.length - 40)),
       400,
     );
     expect(truncated.body.error.message).toMatch(/multipart/);
     const noBoundary = await expectRefusedStoringNothing(
-      () => as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).set('content-type', 'multipart/form-data').send('--x\r\n\r\n'),
+      () =>
+        as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).set('content-type', 'multipart/form-data').send('--x\r\n\r\n'),
       400,
     );
     expect(noBoundary.body.error.code).toBe('validation');
@@ -569,7 +672,10 @@ describe('oversize bodies', () => {
       { name: 'file', value: SMALL_CSV, filename: 'a.csv' },
       { name: 'file', value: SMALL_CSV, filename: 'b.csv' },
     ]);
-    await expectRefusedStoringNothing(() => as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).set('content-type', twoFiles.type).send(twoFiles.body), 400);
+    await expectRefusedStoringNothing(
+      () => as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).set('content-type', twoFiles.type).send(twoFiles.body),
+      400,
+    );
   });
 });
 
@@ -596,7 +702,9 @@ describe('hostile uploads', () => {
     for (const [name, content] of files) {
       const res = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), content, name), 400);
       expect(res.body.error.code, name).toBe('bad_file');
-      expect(res.body.error.message, name).toMatch(/not a text file: it holds binary data \(control character U\+00[0-1][0-9A-F] at line \d+, column \d+\)/);
+      expect(res.body.error.message, name).toMatch(
+        /not a text file: it holds binary data \(control character U\+00[0-1][0-9A-F] at line \d+, column \d+\)/,
+      );
       expect(res.body.error.details[0]).toMatchObject({ line: expect.any(Number), column: expect.stringMatching(/^\d+$/) });
     }
     // The NUL of nul.csv sits on line 2 (the first data row), 27th character.
@@ -609,7 +717,10 @@ describe('hostile uploads', () => {
     const res = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), svg, 'picture.svg'), 400);
     expect(res.body.error.code).toBe('bad_file');
     expect(typeof res.body.error.details[0].value).toBe('string');
-    const html = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), '<html><body onload=alert(1)>time,hs</body></html>\n', 'page.html'), 400);
+    const html = await expectRefusedStoringNothing(
+      () => upload(as.coordinator, A(), '<html><body onload=alert(1)>time,hs</body></html>\n', 'page.html'),
+      400,
+    );
     expect(html.body.error.code).toBe('bad_file');
   });
 
@@ -667,20 +778,32 @@ describe('hostile uploads', () => {
     const wide = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), ','.repeat(2_000_000), 'wide.csv'), 400);
     expect(wide.body.error.details[0]).toMatchObject({ line: 1, column: String(MAX_LINE_CHARS + 1) });
     expect(wide.body.error.message).toMatch(/line 1, column 1048577: a row longer than 1 MiB/);
-    const columns = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `time,hs${',x'.repeat(20_000)}\n2026-01-01T00:00Z,1\n`, 'columns.csv'), 400);
+    const columns = await expectRefusedStoringNothing(
+      () => upload(as.coordinator, A(), `time,hs${',x'.repeat(20_000)}\n2026-01-01T00:00Z,1\n`, 'columns.csv'),
+      400,
+    );
     expect(columns.body.error.details[0]).toMatchObject({ line: 1, column: String(MAX_COLUMNS + 1) });
     expect(columns.body.error.message).toMatch(/20,002 fields in one row, more than the 16,384 columns/);
   });
 
   it('refuses a CSV or NDBC line over 1 MB, and 1 MB of blanks, naming line and column', async () => {
-    const csv = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n${'9'.repeat(1_200_000)}\n`, 'long.csv'), 400);
+    const csv = await expectRefusedStoringNothing(
+      () => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n${'9'.repeat(1_200_000)}\n`, 'long.csv'),
+      400,
+    );
     expect(csv.body.error.details[0]).toMatchObject({ line: 3, column: String(MAX_LINE_CHARS + 1) });
     // A quote left open is a bad row at its own line (issue 22), not a swallowed rest of the file.
-    const quote = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n2026-01-01T01:00Z,"1\n${'2\n'.repeat(600_000)}`, 'quote.csv'), 400);
+    const quote = await expectRefusedStoringNothing(
+      () => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n2026-01-01T01:00Z,"1\n${'2\n'.repeat(600_000)}`, 'quote.csv'),
+      400,
+    );
     expect(quote.body.error.details[0]).toMatchObject({ line: 3, column: '19' });
     expect(quote.body.error.message).toMatch(/quote opened here is not closed on its line/);
     const header = '#YY  MM DD hh mm WDIR WSPD GST  WVHT   DPD   APD MWD   PRES  ATMP  WTMP  DEWP  VIS  TIDE\n';
-    const ndbc = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), `${header}${'1 '.repeat(3_000_000)}`, '46026h2016.txt'), 400);
+    const ndbc = await expectRefusedStoringNothing(
+      () => upload(as.coordinator, A(), `${header}${'1 '.repeat(3_000_000)}`, '46026h2016.txt'),
+      400,
+    );
     expect(ndbc.body.error.details[0]).toMatchObject({ line: 2, column: String(MAX_LINE_CHARS + 1) });
     // Before the header scan became a plain loop, this held the server for hours.
     const blanks = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), ' '.repeat(2_000_000), 'blank.csv'), 400);
@@ -689,7 +812,10 @@ describe('hostile uploads', () => {
 
   it('stores nothing on a refusal streamed as NDJSON either', async () => {
     const before = await storeCounts();
-    const res = await upload(as.coordinator, A(), `time,hs\n${'1'.repeat(1_200_000)}\n`, 'stream.csv').set('accept', 'application/x-ndjson');
+    const res = await upload(as.coordinator, A(), `time,hs\n${'1'.repeat(1_200_000)}\n`, 'stream.csv').set(
+      'accept',
+      'application/x-ndjson',
+    );
     expect(res.status).toBe(200);
     const last = JSON.parse(res.text.trim().split('\n').at(-1)!);
     expect(last).toMatchObject({ status: 400, error: { code: 'bad_file', details: [{ line: 2 }] } });

@@ -22,12 +22,19 @@ const PROJECT_NAME = `${MARKUP} Reach`;
  * &quot; and &#x27; (WHATWG HTML, named and numeric character references; the list is from memory).
  */
 const decode = (html: string) =>
-  html.replace(/&(lt|gt|quot|#x27|#39|amp);/g, (_, name: string) => ({ lt: '<', gt: '>', quot: '"', '#x27': "'", '#39': "'", amp: '&' })[name]!);
+  html.replace(
+    /&(lt|gt|quot|#x27|#39|amp);/g,
+    (_, name: string) => ({ lt: '<', gt: '>', quot: '"', '#x27': "'", '#39': "'", amp: '&' })[name]!,
+  );
 
 /** The list items of the HTML part, as a reader sees them. */
 const listItems = (html: string) => [...html.matchAll(/<li[^>]*>([\s\S]*?)<\/li>/g)].map((m) => decode(m[1]));
 /** The dash list of the plain-text part. */
-const textPoints = (text: string) => text.split('\n').filter((l) => l.startsWith('- ')).map((l) => l.slice(2));
+const textPoints = (text: string) =>
+  text
+    .split('\n')
+    .filter((l) => l.startsWith('- '))
+    .map((l) => l.slice(2));
 
 /** Every check that the HTML part holds the user's text as text. */
 function expectEscaped(m: CaughtMessage, typed: string[]) {
@@ -55,7 +62,13 @@ beforeAll(async () => {
   as = await signInAll(t.app);
   const A = t.demo.projectId;
   const project = (await as.coordinator.get(`/api/projects/${A}`)).body;
-  expect((await as.coordinator.put(`/api/projects/${A}/settings`).send({ ...project, name: PROJECT_NAME, description: project.description ?? '' })).status).toBe(200);
+  expect(
+    (
+      await as.coordinator
+        .put(`/api/projects/${A}/settings`)
+        .send({ ...project, name: PROJECT_NAME, description: project.description ?? '' })
+    ).status,
+  ).toBe(200);
   const ops = (await as.coordinator.get(`/api/projects/${A}/operations`)).body as { id: string; skipperIds: string[] }[];
   for (const [i, op] of ops.filter((o) => o.skipperIds.includes(t.demo.users.skipper)).entries()) {
     expect((await as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ name: OP_NAME(i) })).status).toBe(200);
@@ -82,7 +95,13 @@ describe('e-mails read back from the SMTP fake', () => {
 
   it('the daily digest does the same', async () => {
     const sub = await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
-      operationIds: [], siteIds: [], immediate: true, digest: true, digestTime: '06:00', digestTimeZone: 'UTC', active: true,
+      operationIds: [],
+      siteIds: [],
+      immediate: true,
+      digest: true,
+      digestTime: '06:00',
+      digestTimeZone: 'UTC',
+      active: true,
     });
     expect(sub.status, sub.text).toBe(200);
     now = new Date('2026-12-01T07:00:00Z');

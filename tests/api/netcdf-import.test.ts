@@ -46,7 +46,7 @@ describe('NetCDF import route', () => {
     expect(await count()).toBe(before);
   });
 
-  it('imports the grid at the nearest sea point; the stored records equal the writer\'s values there', async () => {
+  it("imports the grid at the nearest sea point; the stored records equal the writer's values there", async () => {
     const res = await as.coordinator
       .post(base)
       .field('name', 'Grid hindcast')
@@ -78,13 +78,24 @@ describe('NetCDF import route', () => {
     const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
     const want = csvColumn('grid-3x3-j2-i0.csv', 'tp');
     recs.body.tp.forEach((x: number, i: number) => expect(Math.abs(x - want[i]!)).toBeLessThan(1e-5));
-    const bad = await as.coordinator.post(base).field('name', 'x').field('kind', 'hindcast').field('dataPointDepth', 'deep').field('gridPoint', '3,0').attach('file', path.join(DIR, 'grid-3x3.nc'));
+    const bad = await as.coordinator
+      .post(base)
+      .field('name', 'x')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .field('gridPoint', '3,0')
+      .attach('file', path.join(DIR, 'grid-3x3.nc'));
     expect(bad.status).toBe(400);
     expect(bad.body.error.details[0].field).toBe('gridPoint');
   });
 
   it('a point file with partitions: total from the partitions, partitions reported as read and not stored, depth from the model', async () => {
-    const refused = await as.coordinator.post(base).field('name', 'Partitions').field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', path.join(DIR, 'point-partitions.nc'));
+    const refused = await as.coordinator
+      .post(base)
+      .field('name', 'Partitions')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', path.join(DIR, 'point-partitions.nc'));
     expect(refused.status).toBe(400);
     expect(refused.body.error.message).toMatch(/variable zeta: water level is given above mean sea level/);
     const res = await as.coordinator
@@ -100,37 +111,67 @@ describe('NetCDF import route', () => {
     expect(res.body.netcdf.depthM).toBe(42);
     const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
     const want = csvColumn('point-partitions.csv', 'hs');
-    recs.body.hs.forEach((h: number | null, i: number) => (want[i] === null ? expect(h).toBeNull() : expect(Math.abs(h! - want[i]!)).toBeLessThan(1e-6)));
+    recs.body.hs.forEach((h: number | null, i: number) =>
+      want[i] === null ? expect(h).toBeNull() : expect(Math.abs(h! - want[i]!)).toBeLessThan(1e-6),
+    );
   });
 
   it('a NetCDF forecast becomes the latest forecast, issued at its forecast_reference_time', async () => {
-    const res = await as.coordinator.post(base).field('name', 'Model run 2026-12-01 00Z').field('kind', 'forecast').field('dataPointDepth', 'deep').attach('file', path.join(DIR, 'forecast.nc'));
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Model run 2026-12-01 00Z')
+      .field('kind', 'forecast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', path.join(DIR, 'forecast.nc'));
     expect(res.status, res.text).toBe(201);
     const list = (await as.coordinator.get(base)).body as { id: string; kind: string; source: { issuedAt: string | null } }[];
     const mine = list.find((d) => d.id === res.body.id)!;
     expect(mine.source.issuedAt).toBe('2026-12-01T00:00:00.000Z');
-    const forecasts = list.filter((d) => d.kind === 'forecast').sort((a, b) => (b.source.issuedAt ?? '').localeCompare(a.source.issuedAt ?? ''));
+    const forecasts = list
+      .filter((d) => d.kind === 'forecast')
+      .sort((a, b) => (b.source.issuedAt ?? '').localeCompare(a.source.issuedAt ?? ''));
     expect(forecasts[0].id).toBe(res.body.id);
   });
 
   it('refuses a non-standard calendar and a file that claims NetCDF but is not, storing nothing', async () => {
     const before = await count();
-    const cal = await as.coordinator.post(base).field('name', 'noleap').field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', path.join(DIR, 'noleap.nc'));
+    const cal = await as.coordinator
+      .post(base)
+      .field('name', 'noleap')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', path.join(DIR, 'noleap.nc'));
     expect(cal.status).toBe(400);
     expect(cal.body.error.message).toMatch(/variable time: calendar "noleap" is not supported/);
-    const fake = await as.coordinator.post(base).field('name', 'fake').field('kind', 'hindcast').field('format', 'netcdf').field('dataPointDepth', 'deep').attach('file', Buffer.from('time,hs\n2024-01-01T00:00Z,1\n'), 'fake.nc');
+    const fake = await as.coordinator
+      .post(base)
+      .field('name', 'fake')
+      .field('kind', 'hindcast')
+      .field('format', 'netcdf')
+      .field('dataPointDepth', 'deep')
+      .attach('file', Buffer.from('time,hs\n2024-01-01T00:00Z,1\n'), 'fake.nc');
     expect(fake.status).toBe(400);
     expect(fake.body.error.message).toMatch(/not a NetCDF file/);
     expect(await count()).toBe(before);
   });
 
-  it('classic and packed files import with the writer\'s values', async () => {
-    for (const [file, csv, key] of [['classic.nc', 'classic.csv', 'te'], ['packed.nc', 'packed.csv', 'hs']] as const) {
-      const res = await as.coordinator.post(base).field('name', file).field('kind', 'hindcast').field('dataPointDepth', 'deep').attach('file', path.join(DIR, file));
+  it("classic and packed files import with the writer's values", async () => {
+    for (const [file, csv, key] of [
+      ['classic.nc', 'classic.csv', 'te'],
+      ['packed.nc', 'packed.csv', 'hs'],
+    ] as const) {
+      const res = await as.coordinator
+        .post(base)
+        .field('name', file)
+        .field('kind', 'hindcast')
+        .field('dataPointDepth', 'deep')
+        .attach('file', path.join(DIR, file));
       expect(res.status, res.text).toBe(201);
       const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
       const want = csvColumn(csv, key);
-      recs.body[key].forEach((x: number | null, i: number) => (want[i] === null ? expect(x).toBeNull() : expect(Math.abs(x! - want[i]!)).toBeLessThan(1e-5)));
+      recs.body[key].forEach((x: number | null, i: number) =>
+        want[i] === null ? expect(x).toBeNull() : expect(Math.abs(x! - want[i]!)).toBeLessThan(1e-5),
+      );
     }
   });
 });

@@ -72,7 +72,8 @@ describe('the project Overview', () => {
     expect(skipper.month).toBeNull();
     const me = (await as.skipper.get('/api/me')).body as { id: string };
     const plan = (await as.skipper.get(`${base}/plan?alpha=true`)).body as PlanAnswer;
-    for (const l of skipper.lines) expect(l.mine).toBe(plan.plans.find((p) => p.operationId === l.operationId && p.siteId === l.siteId)!.skipperIds.includes(me.id));
+    for (const l of skipper.lines)
+      expect(l.mine).toBe(plan.plans.find((p) => p.operationId === l.operationId && p.siteId === l.siteId)!.skipperIds.includes(me.id));
     expect(skipper.lines.some((l) => l.mine)).toBe(true);
 
     const client = (await as.client.get(`${base}/overview`)).body as OverviewAnswer;

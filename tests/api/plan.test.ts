@@ -38,7 +38,7 @@ describe('the forecast plan', () => {
       // Brute force of the local step rule (docs/domain.md#weather-windows): runs continue across
       // the change of step, lengths are sums of durations, a window is a run at least TR long.
       const want: { start: string; end: string; hours: number }[] = [];
-      for (let i = 0; i < ms.length; ) {
+      for (let i = 0; i < ms.length;) {
         if (p.status[i] !== 'workable') {
           i++;
           continue;
@@ -46,11 +46,15 @@ describe('the forecast plan', () => {
         let j = i;
         while (j + 1 < ms.length && p.status[j + 1] === 'workable') j++;
         const hours = (end(j) - ms[i]) / HOUR;
-        if (hours >= p.tr && end(j) > Date.parse(res.body.generatedAt)) want.push({ start: p.times[i], end: new Date(end(j)).toISOString(), hours });
+        if (hours >= p.tr && end(j) > Date.parse(res.body.generatedAt))
+          want.push({ start: p.times[i], end: new Date(end(j)).toISOString(), hours });
         i = j + 1;
       }
       if (p.informationOnly) expect(p.windows).toEqual([]);
-      else expect(p.windows.map((w: { start: string; end: string; hours: number }) => ({ start: w.start, end: w.end, hours: w.hours }))).toEqual(want);
+      else
+        expect(
+          p.windows.map((w: { start: string; end: string; hours: number }) => ({ start: w.start, end: w.end, hours: w.hours })),
+        ).toEqual(want);
       if (p.earliestStart) {
         // The earliest go-start has TR of workable time from it.
         const i0 = p.times.indexOf(p.earliestStart);

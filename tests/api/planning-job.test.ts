@@ -39,7 +39,9 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
       expect(m.to).toEqual(['skipper@example.com']);
       expect(SKIPPER_OPS.some((name) => m.subject.startsWith(`Varrow Reach export cable and landfall: ${name} at `))).toBe(true);
       // The subject names the next start still possible (with its date) and what changed.
-      expect(m.subject).toMatch(/, (may start now|next start \w{3} \d{1,2} \w{3} \d\d:\d\d|no start possible in this forecast) \((new window, starts from|window lost|earliest start now|may start now|may no longer start now|not workable at)/);
+      expect(m.subject).toMatch(
+        /, (may start now|next start \w{3} \d{1,2} \w{3} \d\d:\d\d|no start possible in this forecast) \((new window, starts from|window lost|earliest start now|may start now|may no longer start now|not workable at)/,
+      );
       expect(m.text).toMatch(/Decision support only/);
       expect(m.text).toContain(`/projects/${t.demo.projectId}/board`);
       expect(m.html).toContain('<ul');
@@ -84,7 +86,13 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     now = new Date('2026-12-01T18:20:00Z');
     // Make sure this run has something to say: the skipper now hears about every operation.
     await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
-      operationIds: [], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'Europe/London', active: true,
+      operationIds: [],
+      siteIds: [],
+      immediate: true,
+      digest: false,
+      digestTime: '06:00',
+      digestTimeZone: 'Europe/London',
+      active: true,
     });
     const res = await as.admin.post('/api/admin/jobs/plan').send({ projectId: t.demo.projectId });
     const [p] = res.body.projects;
@@ -104,7 +112,11 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     expect(delivered.sent).toBe(p.queued);
     expect(inbox().length).toBe(firstCount + p.queued);
     // Nothing doubled: another delivery round sends nothing more.
-    await deliverDueMail(t.deps.db, t.deps.mailer, new Date(later.getTime() + 3_600_000), { maxAttempts: 3, log: t.deps.log, links: t.deps.config });
+    await deliverDueMail(t.deps.db, t.deps.mailer, new Date(later.getTime() + 3_600_000), {
+      maxAttempts: 3,
+      log: t.deps.log,
+      links: t.deps.config,
+    });
     expect(inbox().length).toBe(firstCount + p.queued);
     const keys = inbox().map((m) => `${m.to}|${m.subject}|${m.text}`);
     expect(new Set(keys).size).toBe(keys.length);
@@ -131,7 +143,11 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     now = new Date('2026-12-02T00:30:07Z');
     const late = await runPlanningJob(secondInstance, { projectId: t.demo.projectId, trigger: 'schedule', tickAt });
     expect(first.projects[0].status).toBe('planned');
-    expect(late.projects[0]).toMatchObject({ status: 'skipped', reason: 'planned on this tick by another instance', planRunId: first.projects[0].planRunId });
+    expect(late.projects[0]).toMatchObject({
+      status: 'skipped',
+      reason: 'planned on this tick by another instance',
+      planRunId: first.projects[0].planRunId,
+    });
 
     // The next tick: an instance killed while planning left its run 'running'; the other plans it.
     const nextTick = new Date('2026-12-02T00:40:00Z');
@@ -156,7 +172,9 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
   });
 
   it('unsubscribes by the signed link in the e-mail (one-click POST, RFC 8058), and refuses a forged one', async () => {
-    const link = inbox().at(-1)!.text.match(/Stop these e-mails: (\S+)/)![1];
+    const link = inbox()
+      .at(-1)!
+      .text.match(/Stop these e-mails: (\S+)/)![1];
     const path = link.replace(TEST_ORIGIN, '');
     const forged = path.replace(/sig=[^&]+/, 'sig=forged');
     expect((await request(t.app).get(forged)).status).toBe(400);
@@ -175,7 +193,15 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
   it('shows the caught mail to admins only, as JSON', async () => {
     const res = await as.admin.get('/api/dev/mailbox');
     expect(res.status).toBe(200);
-    expect(res.body[0]).toEqual(expect.objectContaining({ to: expect.any(Array), subject: expect.any(String), text: expect.any(String), html: expect.any(String), receivedAt: expect.any(String) }));
+    expect(res.body[0]).toEqual(
+      expect.objectContaining({
+        to: expect.any(Array),
+        subject: expect.any(String),
+        text: expect.any(String),
+        html: expect.any(String),
+        receivedAt: expect.any(String),
+      }),
+    );
     expect((await as.coordinator.get('/api/dev/mailbox')).status).toBe(403);
     expect((await as.coordinator.post('/api/admin/jobs/plan').send({})).status).toBe(403);
     expect((await as.skipper.post(`/api/projects/${t.demo.projectId}/replan`).send({})).status).toBe(403);
@@ -193,16 +219,25 @@ describe('the calendar feed', () => {
     expect((await as.client.put(`/api/projects/${t.demo.projectId}/operations/${ctv.id}/recurrence`).send({})).status).toBe(403);
 
     await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
-      operationIds: [ctv.id], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'Europe/London', active: true,
+      operationIds: [ctv.id],
+      siteIds: [],
+      immediate: true,
+      digest: false,
+      digestTime: '06:00',
+      digestTimeZone: 'Europe/London',
+      active: true,
     });
     const created = await as.skipper.post('/api/me/calendar').send({});
     expect(created.status).toBe(201);
     const path = new URL(created.body.url).pathname;
-    const feed = await request(t.app).get(path).buffer(true).parse((r, cb) => {
-      let s = '';
-      r.on('data', (c: Buffer) => (s += c));
-      r.on('end', () => cb(null, s));
-    });
+    const feed = await request(t.app)
+      .get(path)
+      .buffer(true)
+      .parse((r, cb) => {
+        let s = '';
+        r.on('data', (c: Buffer) => (s += c));
+        r.on('end', () => cb(null, s));
+      });
     expect(feed.status).toBe(200);
     const comp = new ICAL.Component(ICAL.parse(feed.body as string));
     const events = comp.getAllSubcomponents('vevent').map((e) => new ICAL.Event(e));
@@ -227,7 +262,13 @@ describe('the daily digest', () => {
   it('goes once per local day, at or after the chosen local time', async () => {
     const { queueDigests } = await import('../../server/services/digests');
     await as.client.put(`/api/projects/${t.demo.projectId}/subscription`).send({
-      operationIds: [], siteIds: [], immediate: false, digest: true, digestTime: '07:30', digestTimeZone: 'Europe/Oslo', active: true,
+      operationIds: [],
+      siteIds: [],
+      immediate: false,
+      digest: true,
+      digestTime: '07:30',
+      digestTimeZone: 'Europe/Oslo',
+      active: true,
     });
     const clientMails = () => inbox().filter((m) => m.to.includes('client@example.com'));
     const before = clientMails().length;

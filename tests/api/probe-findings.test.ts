@@ -30,7 +30,13 @@ const DAY = 24 * HOUR;
 
 /** An hourly CSV of `hours` calm records from `startMs`. */
 const hourlyCsv = (startMs: number, hours: number) =>
-  ['time,hs,tp,dir,wind', ...Array.from({ length: hours }, (_, i) => `${new Date(startMs + i * HOUR).toISOString()},${(0.5 + 0.3 * Math.sin(i / 7)).toFixed(2)},7,250,4`)].join('\n') + '\n';
+  [
+    'time,hs,tp,dir,wind',
+    ...Array.from(
+      { length: hours },
+      (_, i) => `${new Date(startMs + i * HOUR).toISOString()},${(0.5 + 0.3 * Math.sin(i / 7)).toFixed(2)},7,250,4`,
+    ),
+  ].join('\n') + '\n';
 
 async function upload(agent: Agent, projectId: string, csv: string, fields: Record<string, string> = {}) {
   let req = agent.post(`/api/projects/${projectId}/datasets`);
@@ -53,7 +59,9 @@ beforeAll(async () => {
   const site = await as.coordinator.post(`${base}/sites`).send({ name: 'Probe site', depth: 12, timeZone: 'UTC', shoreNormal: 270 });
   expect(site.status, site.text).toBe(201);
   siteId = site.body.id;
-  const op = await as.coordinator.post(`${base}/operations`).send({ name: 'Probe operation', tpop: 6, tc: 2, weatherRestricted: true, limits: { hsMax: 1.5 }, siteIds: [siteId] });
+  const op = await as.coordinator
+    .post(`${base}/operations`)
+    .send({ name: 'Probe operation', tpop: 6, tc: 2, weatherRestricted: true, limits: { hsMax: 1.5 }, siteIds: [siteId] });
   expect(op.status, op.text).toBe(201);
   operationId = op.body.id;
 }, 120_000);
@@ -67,7 +75,11 @@ describe('1. a recurrence rule cannot freeze the server', () => {
   const iso = (ms: number) => new Date(ms).toISOString().slice(0, 16);
 
   it('refuses BYSECOND, BYMINUTE and rules with too many BY values, naming the rule', async () => {
-    for (const rule of ['FREQ=DAILY;BYHOUR=0,1,2;BYMINUTE=0,30', 'FREQ=DAILY;BYSECOND=0,1', `FREQ=YEARLY;BYYEARDAY=${Array.from({ length: 100 }, (_, i) => i + 1).join(',')}`]) {
+    for (const rule of [
+      'FREQ=DAILY;BYHOUR=0,1,2;BYMINUTE=0,30',
+      'FREQ=DAILY;BYSECOND=0,1',
+      `FREQ=YEARLY;BYYEARDAY=${Array.from({ length: 100 }, (_, i) => i + 1).join(',')}`,
+    ]) {
       const res = await as.coordinator.put(path()).send({ start: iso(now.getTime()), timeZone: 'UTC', rule });
       expect(res.status, rule).toBe(400);
       expect(res.body.error.details[0].field, rule).toBe('rule');
@@ -80,7 +92,9 @@ describe('1. a recurrence rule cannot freeze the server', () => {
       expect(res.status, start).toBe(400);
       expect(res.body.error.details[0].field, start).toBe('start');
     }
-    const ok = await as.coordinator.put(path()).send({ start: iso(now.getTime() - 300 * DAY), timeZone: 'UTC', rule: 'FREQ=DAILY;BYHOUR=6,18' });
+    const ok = await as.coordinator
+      .put(path())
+      .send({ start: iso(now.getTime() - 300 * DAY), timeZone: 'UTC', rule: 'FREQ=DAILY;BYHOUR=6,18' });
     expect(ok.status, ok.text).toBe(200);
   });
 
@@ -91,7 +105,8 @@ describe('1. a recurrence rule cannot freeze the server', () => {
       expect(res.status, res.text.slice(0, 200)).toBe(200);
       return performance.now() - started;
     };
-    const setRecurrence = (recurrence: Record<string, unknown> | null) => t.database.db.update(operation).set({ recurrence }).where(eq(operation.id, operationId));
+    const setRecurrence = (recurrence: Record<string, unknown> | null) =>
+      t.database.db.update(operation).set({ recurrence }).where(eq(operation.id, operationId));
     // Each stored change gives a new setup and so a freshly computed (uncached) plan; the least of
     // three runs, to keep the machine's other load out of the comparison.
     const coldRuns = async (recurrence: (i: number) => Record<string, unknown> | null) => {
@@ -108,9 +123,21 @@ describe('1. a recurrence rule cannot freeze the server', () => {
     const allMinutes = `BYMINUTE=${Array.from({ length: 60 }, (_, i) => i).join(',')}`;
     // The probe's rule (BYMINUTE and BYSECOND, from the year 1000), and rules that pass the rule
     // checks but start far back (as one stored before the start limit would): every hour since 1000.
-    const probe = await coldRuns((i) => ({ start: `1000-01-01T00:${minute(i)}`, timeZone: 'UTC', rule: `FREQ=DAILY;${allHours};${allMinutes};BYSECOND=${Array.from({ length: 60 }, (_, k) => k).join(',')}` }));
-    const hourlySince1000 = await coldRuns((i) => ({ start: `1000-01-01T00:${minute(i)}`, timeZone: 'UTC', rule: `FREQ=DAILY;${allHours}` }));
-    const everyMinuteRecent = await coldRuns((i) => ({ start: new Date(now.getTime() - 700 * DAY).toISOString().slice(0, 14) + minute(i), timeZone: 'UTC', rule: `FREQ=DAILY;${allHours};${allMinutes}` }));
+    const probe = await coldRuns((i) => ({
+      start: `1000-01-01T00:${minute(i)}`,
+      timeZone: 'UTC',
+      rule: `FREQ=DAILY;${allHours};${allMinutes};BYSECOND=${Array.from({ length: 60 }, (_, k) => k).join(',')}`,
+    }));
+    const hourlySince1000 = await coldRuns((i) => ({
+      start: `1000-01-01T00:${minute(i)}`,
+      timeZone: 'UTC',
+      rule: `FREQ=DAILY;${allHours}`,
+    }));
+    const everyMinuteRecent = await coldRuns((i) => ({
+      start: new Date(now.getTime() - 700 * DAY).toISOString().slice(0, 14) + minute(i),
+      timeZone: 'UTC',
+      rule: `FREQ=DAILY;${allHours};${allMinutes}`,
+    }));
     await setRecurrence(null);
     expect(probe - baseline).toBeLessThan(200);
     expect(hourlySince1000 - baseline).toBeLessThan(200);
@@ -132,10 +159,14 @@ describe('2. plans are bounded, and caches by bytes', () => {
     const times: string[] = res.body.plans[0].times;
     expect(times.length).toBeLessThanOrEqual(31 * 24 + 1);
     expect(times.at(-1)).toBe(new Date(Date.UTC(2024, 0, 1) + (70 * 24 - 1) * HOUR).toISOString());
-    const long = await as.coordinator.get(`/api/projects/${t.demo.projectId}/plan`).query({ dataset: hindcastId, from: '2024-01-01T00:00:00Z', to: '2024-02-15T00:00:00Z' });
+    const long = await as.coordinator
+      .get(`/api/projects/${t.demo.projectId}/plan`)
+      .query({ dataset: hindcastId, from: '2024-01-01T00:00:00Z', to: '2024-02-15T00:00:00Z' });
     expect(long.status).toBe(400);
     expect(long.body.error.details[0].field).toBe('to');
-    const chosen = await as.coordinator.get(`/api/projects/${t.demo.projectId}/plan`).query({ dataset: hindcastId, from: '2024-01-10T00:00:00Z', to: '2024-01-12T00:00:00Z' });
+    const chosen = await as.coordinator
+      .get(`/api/projects/${t.demo.projectId}/plan`)
+      .query({ dataset: hindcastId, from: '2024-01-10T00:00:00Z', to: '2024-01-12T00:00:00Z' });
     expect(chosen.status).toBe(200);
     expect(chosen.body.plans[0].times.length).toBe(49);
   });
@@ -203,7 +234,11 @@ describe('3. heavy reads are bounded and limited per user', () => {
     const client = await signIn(app, 'client@example.com');
     const base = `/api/projects/${t.demo.projectId}/datasets/${longId}`;
     const answers = await Promise.all(
-      Array.from({ length: 6 }, (_, i) => client.get(`${base}/records`).query({ from: new Date(Date.UTC(2023, i, 1)).toISOString(), to: new Date(Date.UTC(2023, i, 28)).toISOString() })),
+      Array.from({ length: 6 }, (_, i) =>
+        client
+          .get(`${base}/records`)
+          .query({ from: new Date(Date.UTC(2023, i, 1)).toISOString(), to: new Date(Date.UTC(2023, i, 28)).toISOString() }),
+      ),
     );
     expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200, 200, 200]);
     // Every read went through the limiter, never more than two at once.
@@ -236,7 +271,9 @@ describe('4. the auth routes read at most 64 kB', () => {
       expect(res.body.error.code, url).toBe('too_large');
     }
     // The ordinary sign-in still works.
-    expect((await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'client@example.com', password: DEMO_PASSWORD })).status).toBe(200);
+    expect(
+      (await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'client@example.com', password: DEMO_PASSWORD })).status,
+    ).toBe(200);
   });
 });
 
@@ -248,7 +285,15 @@ describe('5. the demo accounts stay on this machine', () => {
   const env = (extra: Record<string, string>) => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-host-'));
     dirs.push(dir);
-    return loadEnv({ NODE_ENV: 'test', DATA_DIR: dir, PORT: '0', DEMO_HINDCAST_YEARS: '0', JOBS_ENABLED: 'false', SEED_DEMO: 'true', ...extra });
+    return loadEnv({
+      NODE_ENV: 'test',
+      DATA_DIR: dir,
+      PORT: '0',
+      DEMO_HINDCAST_YEARS: '0',
+      JOBS_ENABLED: 'false',
+      SEED_DEMO: 'true',
+      ...extra,
+    });
   };
 
   it('knows loopback addresses', () => {
@@ -263,7 +308,9 @@ describe('5. the demo accounts stay on this machine', () => {
     } finally {
       await local.close();
     }
-    await expect(startLullwatch(env({ HOST: '0.0.0.0' }), silentLogger)).rejects.toThrow(/Refusing to listen on 0\.0\.0\.0.*SEED_DEMO=false/s);
+    await expect(startLullwatch(env({ HOST: '0.0.0.0' }), silentLogger)).rejects.toThrow(
+      /Refusing to listen on 0\.0\.0\.0.*SEED_DEMO=false/s,
+    );
   }, 180_000);
 
   it('listens on every address by default without the demo', async () => {
@@ -310,8 +357,14 @@ describe('8. a deactivated account’s right password gets the wrong-password an
     const created = await as.admin.post('/api/admin/users').send({ name: 'Gone Deckhand', email: 'gone@example.com' });
     expect(created.status).toBe(201);
     expect((await as.admin.patch(`/api/admin/users/${created.body.user.id}`).send({ active: false })).status).toBe(200);
-    const unknown = await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'nobody-at-all@example.com', password: 'not-the-password' });
-    const deactivated = await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'gone@example.com', password: created.body.temporaryPassword });
+    const unknown = await request(t.app)
+      .post(SIGN_IN)
+      .set('Origin', TEST_ORIGIN)
+      .send({ email: 'nobody-at-all@example.com', password: 'not-the-password' });
+    const deactivated = await request(t.app)
+      .post(SIGN_IN)
+      .set('Origin', TEST_ORIGIN)
+      .send({ email: 'gone@example.com', password: created.body.temporaryPassword });
     expect(unknown.status).toBe(401);
     expect(deactivated.status).toBe(401);
     expect(deactivated.text).toBe(unknown.text);
@@ -326,7 +379,10 @@ describe('9. malformed requests are client errors, never 500', () => {
   });
 
   it('answers 415 to an unknown charset', async () => {
-    const res = await as.coordinator.post('/api/projects').set('content-type', 'application/json; charset=x-no-such-charset').send('{"name":"x"}');
+    const res = await as.coordinator
+      .post('/api/projects')
+      .set('content-type', 'application/json; charset=x-no-such-charset')
+      .send('{"name":"x"}');
     expect(res.status).toBe(415);
   });
 
@@ -359,9 +415,12 @@ describe('9. malformed requests are client errors, never 500', () => {
 });
 
 describe('10. one-click unsubscribe (RFC 8058)', () => {
-  const linkFor = (userId: string, atMs: number) => unsubscribeUrl(TEST_ORIGIN, t.deps.config.linkSecret, userId, t.demo.projectId, atMs).replace(TEST_ORIGIN, '');
+  const linkFor = (userId: string, atMs: number) =>
+    unsubscribeUrl(TEST_ORIGIN, t.deps.config.linkSecret, userId, t.demo.projectId, atMs).replace(TEST_ORIGIN, '');
   const subscribe = () =>
-    as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({ operationIds: [], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true });
+    as.skipper
+      .put(`/api/projects/${t.demo.projectId}/subscription`)
+      .send({ operationIds: [], siteIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true });
   const active = async () => (await as.skipper.get(`/api/projects/${t.demo.projectId}/subscription`)).body.active as boolean;
 
   it('changes nothing on GET or HEAD (a link scanner), shows a button, and unsubscribes on POST', async () => {
@@ -393,7 +452,17 @@ describe('10. one-click unsubscribe (RFC 8058)', () => {
     await t.database.db.delete(outbox);
     await enqueueMail(
       t.database.db,
-      [{ idempotencyKey: `probe-${Date.now()}`, projectId: t.demo.projectId, userId: t.demo.users.skipper, toEmail: 'skipper@example.com', subject: 'Probe alert', text: `Hello\nStop these e-mails: ${UNSUBSCRIBE_LINK_MARK}`, html: `<a href="${UNSUBSCRIBE_LINK_MARK}">Stop</a>` }],
+      [
+        {
+          idempotencyKey: `probe-${Date.now()}`,
+          projectId: t.demo.projectId,
+          userId: t.demo.users.skipper,
+          toEmail: 'skipper@example.com',
+          subject: 'Probe alert',
+          text: `Hello\nStop these e-mails: ${UNSUBSCRIBE_LINK_MARK}`,
+          html: `<a href="${UNSUBSCRIBE_LINK_MARK}">Stop</a>`,
+        },
+      ],
       now,
     );
     const view = await as.coordinator.get(`/api/projects/${t.demo.projectId}/outbox`);
@@ -435,13 +504,25 @@ describe('11. clients see confirmed ledger figures only', () => {
     const mine = client.body.find((e: { siteId: string }) => e.siteId === siteId);
     expect(mine).toMatchObject({ lostHours: 4, limiting: 'wind', proposedLostHours: null, proposedLimiting: null });
     const coordinator = await as.coordinator.get(`/api/projects/${t.demo.projectId}/ledger`).query(range);
-    expect(coordinator.body.find((e: { siteId: string }) => e.siteId === siteId)).toMatchObject({ proposedLostHours: 9, proposedLimiting: 'hs' });
+    expect(coordinator.body.find((e: { siteId: string }) => e.siteId === siteId)).toMatchObject({
+      proposedLostHours: 9,
+      proposedLimiting: 'hs',
+    });
   });
 });
 
 describe('12. sessions and passwords', () => {
   it('refuses short and trivially weak passwords (NIST SP 800-63B 5.1.1.2, from memory)', () => {
-    for (const pw of ['short-1', 'password1234', 'Password123!', 'aaaaaaaaaaaaaa', '123456789012', 'abcdefghijklm', 'qwertyuiopas', 'lullwatchlullwatch']) {
+    for (const pw of [
+      'short-1',
+      'password1234',
+      'Password123!',
+      'aaaaaaaaaaaaaa',
+      '123456789012',
+      'abcdefghijklm',
+      'qwertyuiopas',
+      'lullwatchlullwatch',
+    ]) {
       expect(passwordProblem(pw), pw).not.toBeNull();
     }
     expect(passwordProblem('skipper@example.com', { email: 'skipper@example.com' })).not.toBeNull();
@@ -453,18 +534,32 @@ describe('12. sessions and passwords', () => {
     const temp = created.body.temporaryPassword as string;
     const laptop = await signIn(t.app, 'mate@example.com', temp);
     const phone = await signIn(t.app, 'mate@example.com', temp);
-    const weak = await laptop.post('/api/auth/change-password').set('Origin', TEST_ORIGIN).send({ currentPassword: temp, newPassword: 'password1234' });
+    const weak = await laptop
+      .post('/api/auth/change-password')
+      .set('Origin', TEST_ORIGIN)
+      .send({ currentPassword: temp, newPassword: 'password1234' });
     expect(weak.status).toBe(400);
-    const tooShort = await laptop.post('/api/auth/change-password').set('Origin', TEST_ORIGIN).send({ currentPassword: temp, newPassword: 'tide-7-kelp' });
+    const tooShort = await laptop
+      .post('/api/auth/change-password')
+      .set('Origin', TEST_ORIGIN)
+      .send({ currentPassword: temp, newPassword: 'tide-7-kelp' });
     expect(tooShort.status).toBe(400);
-    const ok = await laptop.post('/api/auth/change-password').set('Origin', TEST_ORIGIN).send({ currentPassword: temp, newPassword: 'tide-Kelp-7-harbour', revokeOtherSessions: false });
+    const ok = await laptop
+      .post('/api/auth/change-password')
+      .set('Origin', TEST_ORIGIN)
+      .send({ currentPassword: temp, newPassword: 'tide-Kelp-7-harbour', revokeOtherSessions: false });
     expect(ok.status, ok.text).toBe(200);
     expect(ok.text).not.toMatch(/"token"/);
     // OWASP Session Management Cheat Sheet: sessions end when the password changes (from memory).
     expect((await phone.get('/api/me')).status).toBe(401);
     expect((await laptop.get('/api/me')).status).toBe(200);
-    expect((await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'mate@example.com', password: temp })).status).toBe(401);
-    expect((await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'mate@example.com', password: 'tide-Kelp-7-harbour' })).status).toBe(200);
+    expect((await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'mate@example.com', password: temp })).status).toBe(
+      401,
+    );
+    expect(
+      (await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'mate@example.com', password: 'tide-Kelp-7-harbour' }))
+        .status,
+    ).toBe(200);
   });
 
   it('requires a temporary password to be changed before anything else', async () => {
@@ -478,7 +573,10 @@ describe('12. sessions and passwords', () => {
     const projects = await bosun.get('/api/projects');
     expect(projects.status).toBe(403);
     expect(projects.body.error.code).toBe('password_change_required');
-    const changed = await bosun.post('/api/auth/change-password').set('Origin', TEST_ORIGIN).send({ currentPassword: temp, newPassword: 'bosun-Chain-locker-42' });
+    const changed = await bosun
+      .post('/api/auth/change-password')
+      .set('Origin', TEST_ORIGIN)
+      .send({ currentPassword: temp, newPassword: 'bosun-Chain-locker-42' });
     expect(changed.status, changed.text).toBe(200);
     expect((await bosun.get('/api/me')).body.mustChangePassword).toBe(false);
     expect((await bosun.get('/api/projects')).status).toBe(200);
@@ -489,15 +587,28 @@ describe('12. sessions and passwords', () => {
     const expires = Date.parse(created.body.user.temporaryPasswordExpiresAt);
     expect(expires - now.getTime()).toBeGreaterThan(7 * DAY - 60_000);
     expect(expires - now.getTime()).toBeLessThanOrEqual(7 * DAY);
-    await t.database.db.update(user).set({ temporaryPasswordExpiresAt: new Date(Date.now() - 1000) }).where(eq(user.id, created.body.user.id));
-    const late = await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'cook@example.com', password: created.body.temporaryPassword });
+    await t.database.db
+      .update(user)
+      .set({ temporaryPasswordExpiresAt: new Date(Date.now() - 1000) })
+      .where(eq(user.id, created.body.user.id));
+    const late = await request(t.app)
+      .post(SIGN_IN)
+      .set('Origin', TEST_ORIGIN)
+      .send({ email: 'cook@example.com', password: created.body.temporaryPassword });
     expect(late.status).toBe(401);
     expect(late.body.code).toBe('TEMPORARY_PASSWORD_EXPIRED');
     expect(late.headers['set-cookie']).toBeUndefined();
     const fresh = await as.admin.post(`/api/admin/users/${created.body.user.id}/temporary-password`).send({});
     expect(fresh.status, fresh.text).toBe(200);
     expect(fresh.body.temporaryPassword).not.toBe(created.body.temporaryPassword);
-    expect((await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'cook@example.com', password: fresh.body.temporaryPassword })).status).toBe(200);
+    expect(
+      (
+        await request(t.app)
+          .post(SIGN_IN)
+          .set('Origin', TEST_ORIGIN)
+          .send({ email: 'cook@example.com', password: fresh.body.temporaryPassword })
+      ).status,
+    ).toBe(200);
   });
 
   it('backs off one account after five attempts, without locking out others at the same address', async () => {
@@ -525,7 +636,9 @@ describe('13. uploads', () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-private-'));
     try {
       const stored = await new Promise<{ path: string; size?: number }>((resolve, reject) =>
-        privateDiskStorage(dir)._handleFile({} as never, { stream: Readable.from([Buffer.from('time,hs\n')]) } as never, (err, info) => (err ? reject(err) : resolve(info as { path: string }))),
+        privateDiskStorage(dir)._handleFile({} as never, { stream: Readable.from([Buffer.from('time,hs\n')]) } as never, (err, info) =>
+          err ? reject(err) : resolve(info as { path: string }),
+        ),
       );
       expect(fs.statSync(stored.path).mode & 0o777).toBe(0o600);
       expect(stored.size).toBe(8);
@@ -536,7 +649,9 @@ describe('13. uploads', () => {
 
   it('runs one import at a time in a process; the others wait and succeed', async () => {
     importLimiter.peak = 0;
-    const answers = await Promise.all([0, 1, 2].map((i) => upload(as.coordinator, t.demo.projectId, hourlyCsv(Date.UTC(2021, i, 1), 24 * 20))));
+    const answers = await Promise.all(
+      [0, 1, 2].map((i) => upload(as.coordinator, t.demo.projectId, hourlyCsv(Date.UTC(2021, i, 1), 24 * 20))),
+    );
     expect(answers.map((a) => a.status)).toEqual([201, 201, 201]);
     expect(importLimiter.peak).toBe(1);
   }, 60_000);
@@ -555,7 +670,10 @@ describe('14. API answers are never cached', () => {
       await request(t.app).get('/api/health'),
       await request(t.app).get('/api/projects'),
       await as.client.get('/api/no-such-route'),
-      await request(t.app).post(SIGN_IN).set('Origin', TEST_ORIGIN).send({ email: 'nobody-3@example.com', password: 'x'.repeat(12) }),
+      await request(t.app)
+        .post(SIGN_IN)
+        .set('Origin', TEST_ORIGIN)
+        .send({ email: 'nobody-3@example.com', password: 'x'.repeat(12) }),
     ]) {
       expect(res.headers['cache-control'], `${res.status} ${res.text.slice(0, 80)}`).toBe('no-store');
     }

@@ -94,7 +94,10 @@ const HOURS = 48;
 const START_MS = Date.UTC(2026, 0, 1);
 const CSV = [
   'time,hs,tp',
-  ...Array.from({ length: HOURS }, (_, i) => `${new Date(START_MS + i * 3_600_000).toISOString()},${(0.6 + 0.02 * i).toFixed(2)},${(7 + (i % 5) * 0.5).toFixed(1)}`),
+  ...Array.from(
+    { length: HOURS },
+    (_, i) => `${new Date(START_MS + i * 3_600_000).toISOString()},${(0.6 + 0.02 * i).toFixed(2)},${(7 + (i % 5) * 0.5).toFixed(1)}`,
+  ),
 ].join('\n');
 
 async function uploadDataset(projectId: string, kind = 'hindcast'): Promise<string> {
@@ -124,7 +127,15 @@ async function createTideSite(projectId: string): Promise<string> {
     timeZone: 'UTC',
     latitude: 53.5,
     longitude: 8.1,
-    tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1.5, phase: 40 }, { name: 'S2', amplitude: 0.4, phase: 80 }], z0: 2, datum: 'LAT' },
+    tide: {
+      source: 'constants',
+      constituents: [
+        { name: 'M2', amplitude: 1.5, phase: 40 },
+        { name: 'S2', amplitude: 0.4, phase: 80 },
+      ],
+      z0: 2,
+      datum: 'LAT',
+    },
   });
   if (res.status !== 201) throw new Error(`tide site failed: ${res.status} ${res.text}`);
   return res.body.id;
@@ -170,9 +181,18 @@ async function calendarFile(): Promise<string> {
 }
 
 /** The signed query of a fresh unsubscribe link. */
-const unsubscribeQuery = (p: Params) => Object.fromEntries(new URL(unsubscribeUrl('http://x.invalid', t.deps.config.linkSecret, p.userId, p.projectId, Date.now())).searchParams);
+const unsubscribeQuery = (p: Params) =>
+  Object.fromEntries(new URL(unsubscribeUrl('http://x.invalid', t.deps.config.linkSecret, p.userId, p.projectId, Date.now())).searchParams);
 
-const subscriptionBody = { operationIds: [], siteIds: [], immediate: false, digest: false, digestTime: '06:00', digestTimeZone: 'UTC', active: true };
+const subscriptionBody = {
+  operationIds: [],
+  siteIds: [],
+  immediate: false,
+  digest: false,
+  digestTime: '06:00',
+  digestTimeZone: 'UTC',
+  active: true,
+};
 const recurrenceBody = { start: '2026-01-05T06:00', timeZone: 'UTC', rule: 'FREQ=WEEKLY;COUNT=4' };
 const ledgerRange = { from: '2026-01-01', to: '2026-01-02' };
 
@@ -205,7 +225,10 @@ const TABLE: Record<string, RouteCase> = {
   },
 
   'GET /projects/:projectId/sites': { access: 'member' },
-  'POST /projects/:projectId/sites': { access: 'coordinator', body: () => ({ name: `Route security site ${next()}`, depth: 9, timeZone: 'UTC' }) },
+  'POST /projects/:projectId/sites': {
+    access: 'coordinator',
+    body: () => ({ name: `Route security site ${next()}`, depth: 9, timeZone: 'UTC' }),
+  },
   'GET /projects/:projectId/sites/:siteId': { access: 'member' },
   'PATCH /projects/:projectId/sites/:siteId': { access: 'coordinator', body: () => ({ breakerIndex: 0.6 }) },
   'DELETE /projects/:projectId/sites/:siteId': { access: 'coordinator', fresh: async () => ({ siteId: await createSite(P1.projectId) }) },
@@ -252,7 +275,11 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/audit': { access: 'member', why: 'read-only; skippers and clients may see why limits changed' },
 
   'GET /projects/:projectId/datasets': { access: 'member' },
-  'PUT /projects/:projectId/default-hindcast': { access: 'coordinator', why: 'null: the newest hindcast is the default again', body: () => ({ datasetId: null }) },
+  'PUT /projects/:projectId/default-hindcast': {
+    access: 'coordinator',
+    why: 'null: the newest hindcast is the default again',
+    body: () => ({ datasetId: null }),
+  },
   'POST /projects/:projectId/datasets': { access: 'coordinator', upload: true },
   // Lists a NetCDF file's grid points before an import: coordinators, who import (a CSV answers 400).
   'POST /projects/:projectId/datasets/netcdf-points': { access: 'coordinator', upload: true },
@@ -260,7 +287,10 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/datasets/:datasetId/records': { access: 'member' },
   'GET /projects/:projectId/datasets/:datasetId/monthly': { access: 'member' },
   'GET /projects/:projectId/datasets/:datasetId/csv': { access: 'member' },
-  'DELETE /projects/:projectId/datasets/:datasetId': { access: 'coordinator', fresh: async () => ({ datasetId: await uploadDataset(P1.projectId) }) },
+  'DELETE /projects/:projectId/datasets/:datasetId': {
+    access: 'coordinator',
+    fresh: async () => ({ datasetId: await uploadDataset(P1.projectId) }),
+  },
   'POST /projects/:projectId/forecasts/fetch': { access: 'coordinator', why: 'asks the (local fake) forecast service' },
 
   'GET /wave/regular': { access: 'signedIn', query: () => ({ period: '8', height: '1', depth: '10' }) },
@@ -281,9 +311,21 @@ const TABLE: Record<string, RouteCase> = {
     query: (p) => ({ dataset: p.datasetId, operationId: p.operationId, siteId: p.siteId }),
     queryIds: { dataset: 'datasetId', operationId: 'operationId', siteId: 'siteId' },
   },
-  'GET /projects/:projectId/conditions/:siteId': { access: 'member', query: (p) => ({ dataset: p.datasetId }), queryIds: { dataset: 'datasetId' } },
-  'GET /projects/:projectId/workability': { access: 'member', query: (p) => ({ dataset: p.datasetId }), queryIds: { dataset: 'datasetId' } },
-  'GET /projects/:projectId/workability.csv': { access: 'member', query: (p) => ({ dataset: p.datasetId }), queryIds: { dataset: 'datasetId' } },
+  'GET /projects/:projectId/conditions/:siteId': {
+    access: 'member',
+    query: (p) => ({ dataset: p.datasetId }),
+    queryIds: { dataset: 'datasetId' },
+  },
+  'GET /projects/:projectId/workability': {
+    access: 'member',
+    query: (p) => ({ dataset: p.datasetId }),
+    queryIds: { dataset: 'datasetId' },
+  },
+  'GET /projects/:projectId/workability.csv': {
+    access: 'member',
+    query: (p) => ({ dataset: p.datasetId }),
+    queryIds: { dataset: 'datasetId' },
+  },
 
   'GET /projects/:projectId/campaigns': { access: 'member' },
   'POST /projects/:projectId/campaigns': {
@@ -308,19 +350,31 @@ const TABLE: Record<string, RouteCase> = {
     body: () => ({ status: 'started' }),
     fresh: async () => ({ campaignId: await createCampaign(P1.projectId, P1.operationId, P1.siteId) }),
   },
-  'GET /projects/:projectId/campaigns/:campaignId/outlook': { access: 'member', why: 'a read: clients see when the campaign will finish', query: () => ({ alpha: 'true' }) },
+  'GET /projects/:projectId/campaigns/:campaignId/outlook': {
+    access: 'member',
+    why: 'a read: clients see when the campaign will finish',
+    query: () => ({ alpha: 'true' }),
+  },
   'GET /projects/:projectId/campaigns/:campaignId/outlook/history': { access: 'member' },
 
   'POST /projects/:projectId/ledger/propose': { access: 'coordinator', query: () => ledgerRange },
   'GET /projects/:projectId/ledger': { access: 'member', why: 'clients see confirmed days only', query: () => ledgerRange },
-  'GET /projects/:projectId/ledger/monthly': { access: 'member', query: (p) => ({ dataset: p.datasetId }), queryIds: { dataset: 'datasetId' } },
+  'GET /projects/:projectId/ledger/monthly': {
+    access: 'member',
+    query: (p) => ({ dataset: p.datasetId }),
+    queryIds: { dataset: 'datasetId' },
+  },
   'POST /projects/:projectId/ledger/:entryId/confirm': {
     access: 'coordinator',
     body: () => ({}),
     fresh: async () => ({ entryId: await createLedgerEntry(P1.projectId, P1.operationId, P1.siteId) }),
   },
 
-  'POST /admin/jobs/plan': { access: 'admin', why: 'planned for the second project only, to keep it short', body: () => ({ projectId: P2.projectId }) },
+  'POST /admin/jobs/plan': {
+    access: 'admin',
+    why: 'planned for the second project only, to keep it short',
+    body: () => ({ projectId: P2.projectId }),
+  },
   'POST /internal/jobs/plan': {
     access: 'token',
     why: 'how `npm run plan:once` asks the running server to plan: only with the one-time job token header; 404 otherwise',
@@ -362,7 +416,8 @@ const keyOf = (r: ApiRoute) => `${r.method} ${r.path}`;
 const methodOf = (key: string) => key.split(' ')[0];
 const pathOf = (key: string) => key.split(' ')[1];
 const paramsIn = (path: string) => [...path.matchAll(/:([A-Za-z]+)/g)].map((m) => m[1] as ParamName);
-const isProjectScoped = (key: string) => paramsIn(pathOf(key)).includes('projectId') && ['member', 'coordinator'].includes(TABLE[key].access);
+const isProjectScoped = (key: string) =>
+  paramsIn(pathOf(key)).includes('projectId') && ['member', 'coordinator'].includes(TABLE[key].access);
 
 function fill(path: string, params: Params): string {
   return path.replace(/:([A-Za-z]+)/g, (_, name: string) => {
@@ -386,12 +441,17 @@ async function call(who: Who, key: string, options: CallOptions): Promise<reques
   const url = `/api${fill(pathOf(key), options.params)}${query ? `?${query}` : ''}`;
   const agent = agentOf(who);
   const req =
-    method === 'GET' ? agent.get(url)
-    : method === 'POST' ? agent.post(url)
-    : method === 'PUT' ? agent.put(url)
-    : method === 'PATCH' ? agent.patch(url)
-    : method === 'DELETE' ? agent.delete(url)
-    : null;
+    method === 'GET'
+      ? agent.get(url)
+      : method === 'POST'
+        ? agent.post(url)
+        : method === 'PUT'
+          ? agent.put(url)
+          : method === 'PATCH'
+            ? agent.patch(url)
+            : method === 'DELETE'
+              ? agent.delete(url)
+              : null;
   if (!req) throw new Error(`No request builder for ${method}`);
   for (const [name, value] of Object.entries(options.headers ?? {})) req.set(name, value);
   if (method === 'GET' || method === 'DELETE') return req;
@@ -438,7 +498,9 @@ beforeAll(async () => {
   anonymous = request.agent(t.app);
   routes = listApiRoutes(t.deps);
 
-  const scratchUser = await as.admin.post('/api/admin/users').send({ name: 'Route security scratch', email: 'route-security-scratch@example.com' });
+  const scratchUser = await as.admin
+    .post('/api/admin/users')
+    .send({ name: 'Route security scratch', email: 'route-security-scratch@example.com' });
   if (scratchUser.status !== 201) throw new Error(`user failed: ${scratchUser.status} ${scratchUser.text}`);
 
   const projects = [t.demo.projectId, t.demo.secondProjectId];
@@ -451,7 +513,17 @@ beforeAll(async () => {
         createCampaign(projectId, operationId, siteId),
         createLedgerEntry(projectId, operationId, siteId),
       ]);
-      return { projectId, siteId, operationId, datasetId, campaignId, entryId, userId: scratchUser.body.user.id, file: 'unused', index: '0' };
+      return {
+        projectId,
+        siteId,
+        operationId,
+        datasetId,
+        campaignId,
+        entryId,
+        userId: scratchUser.body.user.id,
+        file: 'unused',
+        index: '0',
+      };
     }),
   );
   P1 = p1;
@@ -475,8 +547,14 @@ describe('the route table', () => {
   it('has exactly one entry per route of the API routers', () => {
     const listed = routes.map(keyOf);
     expect(new Set(listed).size, 'a method and path declared twice').toBe(listed.length);
-    expect(listed.filter((k) => !(k in TABLE)), 'routes without a table entry').toEqual([]);
-    expect(Object.keys(TABLE).filter((k) => !listed.includes(k)), 'table entries without a route').toEqual([]);
+    expect(
+      listed.filter((k) => !(k in TABLE)),
+      'routes without a table entry',
+    ).toEqual([]);
+    expect(
+      Object.keys(TABLE).filter((k) => !listed.includes(k)),
+      'table entries without a route',
+    ).toEqual([]);
     expect(listed.length).toBeGreaterThanOrEqual(70);
   });
 
@@ -579,7 +657,14 @@ describe("the auth library's routes", () => {
     for (const used of AUTH_ROUTES_IN_USE) expect(all, used).toContain(used);
     // From the library's documentation (better-auth core and admin plugin), from memory: update-user,
     // the admin plugin's impersonation and role routes, and session listing are among them.
-    for (const notUsed of ['POST /update-user', 'POST /admin/impersonate-user', 'POST /admin/set-role', 'POST /admin/create-user', 'GET /list-sessions', 'GET /get-session']) {
+    for (const notUsed of [
+      'POST /update-user',
+      'POST /admin/impersonate-user',
+      'POST /admin/set-role',
+      'POST /admin/create-user',
+      'GET /list-sessions',
+      'GET /get-session',
+    ]) {
       expect(all, notUsed).toContain(notUsed);
     }
     expect(all.length).toBeGreaterThan(30);
@@ -593,7 +678,14 @@ describe("the auth library's routes", () => {
       const [method, pattern] = route.split(' ');
       const url = `/api/auth${pattern.replace(/:[A-Za-z]+/g, 'x')}`;
       // A body that would do harm if the route ran: a new name, a role, an impersonation.
-      const body = { name: 'Demo Administrator', role: 'root', userId: P1.userId, email: 'x@example.com', password: 'x'.repeat(16), newPassword: 'y'.repeat(16) };
+      const body = {
+        name: 'Demo Administrator',
+        role: 'root',
+        userId: P1.userId,
+        email: 'x@example.com',
+        password: 'x'.repeat(16),
+        newPassword: 'y'.repeat(16),
+      };
       for (const who of ['anonymous', 'admin'] as const) {
         const agent = agentOf(who);
         const res = method === 'GET' ? await agent.get(url) : await agent.post(url).set('Origin', 'http://localhost:3000').send(body);
@@ -611,13 +703,34 @@ describe('ids of another project inside a request body', () => {
     const foreignStep = [{ operationId: P2.operationId, siteId: P2.siteId }];
     const attempts: [string, () => Promise<request.Response>][] = [
       ['new operation at a foreign worksite', () => as.coordinator.post(`${base}/operations`).send(operationBody(P2.siteId))],
-      ['operation moved to a foreign worksite', () => as.coordinator.patch(`${base}/operations/${P1.operationId}`).send({ siteIds: [P2.siteId] })],
-      ['new campaign of foreign steps', () => as.coordinator.post(`${base}/campaigns`).send({ name: `Route security foreign ${next()}`, steps: foreignStep })],
+      [
+        'operation moved to a foreign worksite',
+        () => as.coordinator.patch(`${base}/operations/${P1.operationId}`).send({ siteIds: [P2.siteId] }),
+      ],
+      [
+        'new campaign of foreign steps',
+        () => as.coordinator.post(`${base}/campaigns`).send({ name: `Route security foreign ${next()}`, steps: foreignStep }),
+      ],
       ['campaign given foreign steps', () => as.coordinator.patch(`${base}/campaigns/${P1.campaignId}`).send({ steps: foreignStep })],
-      ['new worksite on a foreign hindcast', () => as.coordinator.post(`${base}/sites`).send({ name: `Route security foreign ${next()}`, depth: 9, timeZone: 'UTC', hindcastDatasetId: P2.datasetId })],
-      ['worksite given a foreign hindcast', () => as.coordinator.patch(`${base}/sites/${P1.siteId}`).send({ hindcastDatasetId: P2.datasetId })],
-      ['subscription to a foreign operation', () => as.coordinator.put(`${base}/subscription`).send({ ...subscriptionBody, operationIds: [P2.operationId] })],
-      ['subscription to a foreign worksite', () => as.coordinator.put(`${base}/subscription`).send({ ...subscriptionBody, siteIds: [P2.siteId] })],
+      [
+        'new worksite on a foreign hindcast',
+        () =>
+          as.coordinator
+            .post(`${base}/sites`)
+            .send({ name: `Route security foreign ${next()}`, depth: 9, timeZone: 'UTC', hindcastDatasetId: P2.datasetId }),
+      ],
+      [
+        'worksite given a foreign hindcast',
+        () => as.coordinator.patch(`${base}/sites/${P1.siteId}`).send({ hindcastDatasetId: P2.datasetId }),
+      ],
+      [
+        'subscription to a foreign operation',
+        () => as.coordinator.put(`${base}/subscription`).send({ ...subscriptionBody, operationIds: [P2.operationId] }),
+      ],
+      [
+        'subscription to a foreign worksite',
+        () => as.coordinator.put(`${base}/subscription`).send({ ...subscriptionBody, siteIds: [P2.siteId] }),
+      ],
     ];
     for (const [what, attempt] of attempts) {
       const res = await attempt();

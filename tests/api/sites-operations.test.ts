@@ -135,7 +135,19 @@ describe('worksites', () => {
       [{ name: '' }, 'name'],
       [{ name: 'Berth\u0000' }, 'name'], // PostgreSQL text cannot hold NUL: a 400, not a 500
       [{ hindcastDatasetId: 'not-an-id' }, 'hindcastDatasetId'],
-      [{ transferTable: { directionSectorsDeg: [[0, 360]], tpBandsS: [[0, 6], [6, 30]], factors: [[0.8]] } }, 'transferTable.factors.0'],
+      [
+        {
+          transferTable: {
+            directionSectorsDeg: [[0, 360]],
+            tpBandsS: [
+              [0, 6],
+              [6, 30],
+            ],
+            factors: [[0.8]],
+          },
+        },
+        'transferTable.factors.0',
+      ],
       [{ transferTable: { directionSectorsDeg: [[0, 360]], tpBandsS: [[0, 30]], factors: [[3.5]] } }, 'transferTable.factors.0.0'],
     ];
     for (const [over, field] of cases) {
@@ -237,7 +249,17 @@ describe('operations', () => {
       [{ limits: { hsMax: -1 } }, 'limits.hsMax'],
       [{ limits: { windMax: 'strong' } }, 'limits.windMax'],
       [{ limits: { bedVelocityMax: 0.5, bedVelocityMethod: 'guess' } }, 'limits.bedVelocityMethod'],
-      [{ limits: { hsTpCurve: [[8, 1.5], [6, 1.2]] } }, 'limits.hsTpCurve.1.0'],
+      [
+        {
+          limits: {
+            hsTpCurve: [
+              [8, 1.5],
+              [6, 1.2],
+            ],
+          },
+        },
+        'limits.hsTpCurve.1.0',
+      ],
       [{ limits: { tpExcluded: [[11, 10]] } }, 'limits.tpExcluded.0'],
       [{ limits: { tpMin: 12, tpMax: 8 } }, 'limits.tpMax'],
       [{ tpop: 0.1 }, 'tpop'],
@@ -279,7 +301,9 @@ describe('operations', () => {
     expect(fields(overTpop)).toEqual(['weatherRestricted']);
     expect(overTpop.body.error.message).toMatch(/72 h/);
     // Not weather-restricted: no bound.
-    expect((await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 300, tc: 100, weatherRestricted: false }))).status).toBe(201);
+    expect(
+      (await as.coordinator.post(`/api/projects/${A}/operations`).send(opBody({ tpop: 300, tc: 100, weatherRestricted: false }))).status,
+    ).toBe(201);
     // A change that pushes a weather-restricted operation over 96 h is refused as well.
     const op = await createOp(as.coordinator, A, { tpop: 48, tc: 12 });
     const patch = await as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ tc: 49 });
@@ -289,7 +313,15 @@ describe('operations', () => {
   });
 
   it('refuses an alpha table that does not reach TPOP 72 h (400 naming the field): never a silent alpha = 1', async () => {
-    const short = { tpopBoundsH: [12, 24, 48], hsColumnsM: [1, 2], values: [[0.65, 0.76], [0.63, 0.73], [0.6, 0.68]] };
+    const short = {
+      tpopBoundsH: [12, 24, 48],
+      hsColumnsM: [1, 2],
+      values: [
+        [0.65, 0.76],
+        [0.63, 0.73],
+        [0.6, 0.68],
+      ],
+    };
     const res = await as.coordinator.put(`/api/projects/${A}/alpha`).send(short);
     expect(res.status).toBe(400);
     expect(res.body.error.details.map((d: { field: string }) => d.field)).toEqual(['tpopBoundsH.2']);
@@ -334,7 +366,9 @@ describe('alpha table', () => {
     expect(put.body).toMatchObject({ table: edited, isDefault: false });
     expect((await as.client.get(`/api/projects/${A}/alpha`)).body.table).toEqual(edited);
 
-    const bad = await as.coordinator.put(`/api/projects/${A}/alpha`).send({ ...NOTES_ALPHA, values: [[1.2, 0.7, 0.7, 0.7], ...NOTES_ALPHA.values.slice(1)] });
+    const bad = await as.coordinator
+      .put(`/api/projects/${A}/alpha`)
+      .send({ ...NOTES_ALPHA, values: [[1.2, 0.7, 0.7, 0.7], ...NOTES_ALPHA.values.slice(1)] });
     expect(bad.status).toBe(400);
     expect(fields(bad)).toContain('values.0.0');
     const unsorted = await as.coordinator.put(`/api/projects/${A}/alpha`).send({ ...NOTES_ALPHA, tpopBoundsH: [12, 24, 24, 48, 72] });
@@ -533,11 +567,35 @@ describe('setup export and import', () => {
   };
 
   it('exports a project setup and imports it into the second project (replace), round trip', async () => {
-    const table = { directionSectorsDeg: [[0, 180], [180, 360]], tpBandsS: [[0, 8], [8, 25]], factors: [[0.6, 0.7], [0.9, 1]] };
+    const table = {
+      directionSectorsDeg: [
+        [0, 180],
+        [180, 360],
+      ],
+      tpBandsS: [
+        [0, 8],
+        [8, 25],
+      ],
+      factors: [
+        [0.6, 0.7],
+        [0.9, 1],
+      ],
+    };
     const north = await createSite(as.coordinator, A, { name: unique('Landfall'), transferTable: table });
     const south = await createSite(as.coordinator, A, { name: unique('Substation'), depth: 40, shoreNormal: null });
     const twoSites = await createOp(as.coordinator, A, { siteIds: [north.id, south.id], skipperIds: [t.demo.users.skipper] });
-    await createOp(as.coordinator, A, { limits: { hsTpCurve: [[4, 1], [10, 2]], windMax: 14 }, weatherRestricted: false, tpop: 200, tc: 40 });
+    await createOp(as.coordinator, A, {
+      limits: {
+        hsTpCurve: [
+          [4, 1],
+          [10, 2],
+        ],
+        windMax: 14,
+      },
+      weatherRestricted: false,
+      tpop: 200,
+      tc: 40,
+    });
     const alpha = { ...NOTES_ALPHA, values: NOTES_ALPHA.values.map((row) => row.map((v) => Math.round((v - 0.02) * 100) / 100)) };
     expect((await as.coordinator.put(`/api/projects/${A}/alpha`).send(alpha)).status).toBe(200);
     // Something in B that the replace must remove.
@@ -582,7 +640,10 @@ describe('setup export and import', () => {
 
     // Campaigns travel by name: the demo's campaign arrives with B's own operation and site ids.
     expect(doc.campaigns.map((c: { name: string }) => c.name)).toEqual(['Nearshore campaign: lay, berm, pull-in']);
-    const campaignsB = (await as.coordinator.get(`/api/projects/${B}/campaigns`)).body as { name: string; steps: { operationId: string; siteId: string }[] }[];
+    const campaignsB = (await as.coordinator.get(`/api/projects/${B}/campaigns`)).body as {
+      name: string;
+      steps: { operationId: string; siteId: string }[];
+    }[];
     expect(campaignsB.map((c) => c.name)).toEqual(['Nearshore campaign: lay, berm, pull-in']);
     const idsB = new Set([...opsB.map((o) => o.id), ...sitesB.map((s) => s.id)]);
     for (const st of campaignsB[0].steps) expect(idsB.has(st.operationId) && idsB.has(st.siteId)).toBe(true);
@@ -640,7 +701,13 @@ describe('setup export and import', () => {
       format: 'lullwatch-setup',
       version: 1,
       exportedAt: '2026-03-01T08:00:00Z',
-      project: { name: 'An older contract', dataPointName: 'Outer buoy K2', dataPointLatitude: 51.5, dataPointLongitude: -4.25, dataPointDepthM: 60 },
+      project: {
+        name: 'An older contract',
+        dataPointName: 'Outer buoy K2',
+        dataPointLatitude: 51.5,
+        dataPointLongitude: -4.25,
+        dataPointDepthM: 60,
+      },
       alphaTable: null,
       worksites: [{ name: unique('Merged quay'), depth: 6, timeZone: 'UTC' }],
       operations: [],
@@ -665,7 +732,9 @@ describe('setup export and import', () => {
     });
     expect(preview.body.alphaTable.message).toMatch(/left out.*keeps its own table/);
     expect(preview.body.dataPoint.message).toMatch(/Outer buoy K2.*left out/);
-    expect((await as.coordinator.get(`/api/projects/${A}/sites`)).body.map((s: SiteResponse) => s.name)).not.toContain(d1.worksites[0].name);
+    expect((await as.coordinator.get(`/api/projects/${A}/sites`)).body.map((s: SiteResponse) => s.name)).not.toContain(
+      d1.worksites[0].name,
+    );
 
     const kept = await as.coordinator.post(`/api/projects/${A}/import`).send(d1);
     expect(kept.status, kept.text).toBe(200);
@@ -709,9 +778,27 @@ describe('setup export and import', () => {
     const db = t.database.db;
     const [confirmedRow] = await db
       .insert(ledgerDay)
-      .values({ projectId: B, operationId: op.id, siteId: site.id, day: '2026-11-02', plannedHours: 24, proposedLostHours: 5, lostHours: 5, source: 'observation', status: 'confirmed' })
+      .values({
+        projectId: B,
+        operationId: op.id,
+        siteId: site.id,
+        day: '2026-11-02',
+        plannedHours: 24,
+        proposedLostHours: 5,
+        lostHours: 5,
+        source: 'observation',
+        status: 'confirmed',
+      })
       .returning();
-    await db.insert(ledgerDay).values({ projectId: B, operationId: op.id, siteId: site.id, day: '2026-11-03', plannedHours: 24, proposedLostHours: 2, source: 'observation' });
+    await db.insert(ledgerDay).values({
+      projectId: B,
+      operationId: op.id,
+      siteId: site.id,
+      day: '2026-11-03',
+      plannedHours: 24,
+      proposedLostHours: 2,
+      source: 'observation',
+    });
 
     // The bug first: replace used to go ahead and delete the confirmed day with the worksites.
     const before = await rowCounts(B);
@@ -752,7 +839,12 @@ describe('setup export and import', () => {
     const res = await as.coordinator.post(`/api/projects/${B}/import?mode=replace`).send(doc);
     expect(res.status).toBe(400);
     expect(fields(res)).toEqual(
-      expect.arrayContaining(['worksites.0.timeZone', 'operations.1.limits.hsMax', 'operations.0.siteNames.0', 'campaigns.0.steps.0.operationName']),
+      expect.arrayContaining([
+        'worksites.0.timeZone',
+        'operations.1.limits.hsMax',
+        'operations.0.siteNames.0',
+        'campaigns.0.steps.0.operationName',
+      ]),
     );
     expect(await rowCounts(B)).toEqual(before);
 
@@ -784,7 +876,8 @@ describe('setup export and import', () => {
 
 describe('transfer table CSV', () => {
   it('reads a comma file with a byte-order mark, CRLF, comments, blank lines and units in the headers', () => {
-    const csv = '\uFEFF# Study R-12, model run 3\r\nsector_from [deg],sector_to [deg],0-6 s,6-10 s,10-25 s\r\n\r\n345,15,0.42,0.5,0.61\r\n15,90,0.8,0.85,0.9\r\n90,345,1,1,1\r\n';
+    const csv =
+      '\uFEFF# Study R-12, model run 3\r\nsector_from [deg],sector_to [deg],0-6 s,6-10 s,10-25 s\r\n\r\n345,15,0.42,0.5,0.61\r\n15,90,0.8,0.85,0.9\r\n90,345,1,1,1\r\n';
     const { table, issues } = parseTransferTableCsv(csv);
     expect(issues).toEqual([]);
     expect(table).toEqual({
@@ -810,7 +903,14 @@ describe('transfer table CSV', () => {
     const csv = 'Sector_From;Sector_To;"4,5 to 7";7-12\n0;360;"0,75";0,8;;\n';
     const { table, issues } = parseTransferTableCsv(csv);
     expect(issues).toEqual([]);
-    expect(table).toEqual({ directionSectorsDeg: [[0, 360]], tpBandsS: [[4.5, 7], [7, 12]], factors: [[0.75, 0.8]] });
+    expect(table).toEqual({
+      directionSectorsDeg: [[0, 360]],
+      tpBandsS: [
+        [4.5, 7],
+        [7, 12],
+      ],
+      factors: [[0.75, 0.8]],
+    });
   });
 
   it('reports bad cells with their line and column', () => {
@@ -849,11 +949,33 @@ describe('transfer table CSV', () => {
 
   it('allows only the first sector to wrap through north, without overlapping the last one', () => {
     const base = { tpBandsS: [[0, 30]] as [number, number][] };
-    const ok = { ...base, directionSectorsDeg: [[330, 30], [30, 200], [200, 330]] as [number, number][], factors: [[1], [1], [1]] };
+    const ok = {
+      ...base,
+      directionSectorsDeg: [
+        [330, 30],
+        [30, 200],
+        [200, 330],
+      ] as [number, number][],
+      factors: [[1], [1], [1]],
+    };
     expect(TransferTableInput.safeParse(ok).success).toBe(true);
-    const wrapLater = { ...base, directionSectorsDeg: [[30, 200], [200, 30]] as [number, number][], factors: [[1], [1]] };
+    const wrapLater = {
+      ...base,
+      directionSectorsDeg: [
+        [30, 200],
+        [200, 30],
+      ] as [number, number][],
+      factors: [[1], [1]],
+    };
     expect(TransferTableInput.safeParse(wrapLater).error?.issues[0].path).toEqual(['directionSectorsDeg', 1, 0]);
-    const overlapWrap = { ...base, directionSectorsDeg: [[330, 30], [30, 340]] as [number, number][], factors: [[1], [1]] };
+    const overlapWrap = {
+      ...base,
+      directionSectorsDeg: [
+        [330, 30],
+        [30, 340],
+      ] as [number, number][],
+      factors: [[1], [1]],
+    };
     expect(TransferTableInput.safeParse(overlapWrap).error?.issues[0].path).toEqual(['directionSectorsDeg', 1, 1]);
   });
 });

@@ -19,7 +19,9 @@ import { createTestApp, signInAll, type TestApp } from '../support/app';
 
 /** "X Not workable" back to its status, or undefined when the pair is not in the vocabulary. */
 function statusOfLabel(label: string): StatusWord | undefined {
-  return (Object.keys(STATUS_WORDS) as StatusWord[]).find((s) => `${STATUS_WORDS[s].letter} ${STATUS_WORDS[s].word}`.toLowerCase() === label.trim().toLowerCase());
+  return (Object.keys(STATUS_WORDS) as StatusWord[]).find(
+    (s) => `${STATUS_WORDS[s].letter} ${STATUS_WORDS[s].word}`.toLowerCase() === label.trim().toLowerCase(),
+  );
 }
 
 describe('the vocabulary', () => {
@@ -49,12 +51,39 @@ describe('the board key', () => {
 describe('the alert e-mail', () => {
   it('says a lost occurrence with the vocabulary letter and word, in both parts', async () => {
     const plan = {
-      projectId: 'p', operationId: 'o', siteId: 's', operationName: 'Crew change', siteName: 'Landing', timeZone: 'UTC', tr: 3,
-      startNow: false, earliestStart: null, windows: [], occurrences: [{ start: '2026-12-04T06:00:00.000Z', status: 'no_go' }],
+      projectId: 'p',
+      operationId: 'o',
+      siteId: 's',
+      operationName: 'Crew change',
+      siteName: 'Landing',
+      timeZone: 'UTC',
+      tr: 3,
+      startNow: false,
+      earliestStart: null,
+      windows: [],
+      occurrences: [{ start: '2026-12-04T06:00:00.000Z', status: 'no_go' }],
     } as unknown as PlanSummary;
-    const change = { kind: 'occurrence_no_go', operationId: 'o', siteId: 's', key: 'k', start: '2026-12-04T06:00:00.000Z', end: null, hours: 3, reason: 'wind' };
-    const mail = await alertEmail({ plan, changes: [change as never], projectName: 'Reach', boardUrl: 'http://x/b', unsubscribeUrl: 'http://x/u' });
-    const textPoint = mail.text.split('\n').find((l) => l.startsWith('- '))!.slice(2);
+    const change = {
+      kind: 'occurrence_no_go',
+      operationId: 'o',
+      siteId: 's',
+      key: 'k',
+      start: '2026-12-04T06:00:00.000Z',
+      end: null,
+      hours: 3,
+      reason: 'wind',
+    };
+    const mail = await alertEmail({
+      plan,
+      changes: [change as never],
+      projectName: 'Reach',
+      boardUrl: 'http://x/b',
+      unsubscribeUrl: 'http://x/u',
+    });
+    const textPoint = mail.text
+      .split('\n')
+      .find((l) => l.startsWith('- '))!
+      .slice(2);
     const htmlPoint = /<li[^>]*>([^<]*)<\/li>/.exec(mail.html)![1];
     for (const point of [textPoint, htmlPoint]) expect(statusOfLabel(point.split(':')[0])).toBe('not_workable');
     // The subject, in running text, uses the same word.
@@ -106,7 +135,13 @@ describe('the calendar feed and the digest of a recurring operation', () => {
 
   it('the digest names the next occurrence with the letter and word of its status', async () => {
     await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
-      operationIds: [], siteIds: [], immediate: false, digest: true, digestTime: '06:00', digestTimeZone: 'UTC', active: true,
+      operationIds: [],
+      siteIds: [],
+      immediate: false,
+      digest: true,
+      digestTime: '06:00',
+      digestTimeZone: 'UTC',
+      active: true,
     });
     now = new Date('2026-12-01T07:00:00Z');
     const before = t.mailer.fake!.messages.length;

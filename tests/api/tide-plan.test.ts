@@ -31,8 +31,12 @@ describe('tide-bounded windows of the demo', () => {
     expect(siteId).toBe(t.demo.siteIds.cofferdam);
     const from = p.times[0];
     const to = new Date(Date.parse(p.times[p.times.length - 1]) + 16 * HOUR).toISOString();
-    const tide = (await as.coordinator.get(`${base}/sites/${siteId}/tide`).query({ from: new Date(Date.parse(from) - 13 * HOUR).toISOString(), to })).body;
-    const highs: number[] = tide.extremes.filter((e: { kind: string }) => e.kind === 'high').map((e: { time: string }) => Date.parse(e.time));
+    const tide = (
+      await as.coordinator.get(`${base}/sites/${siteId}/tide`).query({ from: new Date(Date.parse(from) - 13 * HOUR).toISOString(), to })
+    ).body;
+    const highs: number[] = tide.extremes
+      .filter((e: { kind: string }) => e.kind === 'high')
+      .map((e: { time: string }) => Date.parse(e.time));
     expect(highs.length).toBeGreaterThan(4);
     // Brute force over the forecast: workable needs a high water within [t - 3 h, t + 3 h].
     let workable = 0;

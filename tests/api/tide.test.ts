@@ -28,7 +28,14 @@ describe('tide route', () => {
     // A station of the database near a position in the German Bight (the first one the package finds).
     const [[station, km]] = near({ lat: 53.5, lon: 8.1, maxResults: 1 });
     expect(km).toBeLessThan(20);
-    const created = await coordinator.post(base()).send({ name: 'Tide check', depth: 6, timeZone: 'UTC', latitude: 53.5, longitude: 8.1, tide: { source: 'station', stationId: station.id, datum: 'LAT' } });
+    const created = await coordinator.post(base()).send({
+      name: 'Tide check',
+      depth: 6,
+      timeZone: 'UTC',
+      latitude: 53.5,
+      longitude: 8.1,
+      tide: { source: 'station', stationId: station.id, datum: 'LAT' },
+    });
     expect(created.status, created.text).toBe(201);
 
     const from = '2026-12-01T00:00:00.000Z';
@@ -36,7 +43,12 @@ describe('tide route', () => {
     const res = await client.get(`${base()}/${created.body.id}/tide`).query({ from, to });
     expect(res.status, res.text).toBe(200);
     const direct = useStation(station as never);
-    const line = direct.getTimelinePrediction({ start: new Date(from), end: new Date(to), timeFidelity: 900, nodeCorrections: 'schureman' });
+    const line = direct.getTimelinePrediction({
+      start: new Date(from),
+      end: new Date(to),
+      timeFidelity: 900,
+      nodeCorrections: 'schureman',
+    });
     expect(res.body.datum).toBe(line.datum);
     expect(res.body.stepMinutes).toBe(15);
     expect(res.body.times).toHaveLength(line.timeline.length);
@@ -60,7 +72,14 @@ describe('tide route', () => {
 
   it('warns about a far station (over 20 km, docs/domain.md#tide)', async () => {
     const [[station]] = near({ lat: 53.5, lon: 8.1, maxResults: 1 });
-    const created = await coordinator.post(base()).send({ name: 'Tide far', depth: 6, timeZone: 'UTC', latitude: 54.2, longitude: 7.0, tide: { source: 'station', stationId: station.id, datum: 'LAT' } });
+    const created = await coordinator.post(base()).send({
+      name: 'Tide far',
+      depth: 6,
+      timeZone: 'UTC',
+      latitude: 54.2,
+      longitude: 7.0,
+      tide: { source: 'station', stationId: station.id, datum: 'LAT' },
+    });
     expect(created.status, created.text).toBe(201);
     const res = await client.get(`${base()}/${created.body.id}/tide`).query({ from: '2026-12-01T00:00:00Z', to: '2026-12-01T06:00:00Z' });
     expect(res.body.station.distanceKm).toBeGreaterThan(20);
@@ -68,13 +87,32 @@ describe('tide route', () => {
   });
 
   it('refuses an unknown constituent or station naming the field, and answers 404 without a tide', async () => {
-    const bad = await coordinator.post(base()).send({ name: 'Tide bad', depth: 6, timeZone: 'UTC', tide: { source: 'constants', z0: 1, constituents: [{ name: 'M2', amplitude: 1, phase: 0 }, { name: 'QQ7', amplitude: 1, phase: 0 }] } });
+    const bad = await coordinator.post(base()).send({
+      name: 'Tide bad',
+      depth: 6,
+      timeZone: 'UTC',
+      tide: {
+        source: 'constants',
+        z0: 1,
+        constituents: [
+          { name: 'M2', amplitude: 1, phase: 0 },
+          { name: 'QQ7', amplitude: 1, phase: 0 },
+        ],
+      },
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error.details[0].field).toBe('tide.constituents.1.name');
-    const noStation = await coordinator.post(base()).send({ name: 'Tide bad 2', depth: 6, timeZone: 'UTC', tide: { source: 'station', stationId: 'nowhere/0' } });
+    const noStation = await coordinator
+      .post(base())
+      .send({ name: 'Tide bad 2', depth: 6, timeZone: 'UTC', tide: { source: 'station', stationId: 'nowhere/0' } });
     expect(noStation.status).toBe(400);
     expect(noStation.body.error.details[0].field).toBe('tide.stationId');
-    const noZ0 = await coordinator.post(base()).send({ name: 'Tide bad 3', depth: 6, timeZone: 'UTC', tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1, phase: 0 }] } });
+    const noZ0 = await coordinator.post(base()).send({
+      name: 'Tide bad 3',
+      depth: 6,
+      timeZone: 'UTC',
+      tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1, phase: 0 }] },
+    });
     expect(noZ0.status).toBe(400);
     expect(noZ0.body.error.details[0].field).toBe('tide.z0');
     const plain = await coordinator.post(base()).send({ name: 'No tide', depth: 6, timeZone: 'UTC' });

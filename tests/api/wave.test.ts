@@ -23,7 +23,18 @@ describe('wave calculator API', () => {
     // Common practice, no source: L0 = g T^2 / (2 pi) ≈ 1.56 T^2 m.
     expect(res.body.deepWaterWavelength).toBeCloseTo((9.81 * 100) / (2 * Math.PI), 6);
     expect(res.body.depthClass).toBe('intermediate');
-    for (const key of ['groupCelerity', 'n', 'shoalingCoefficient', 'bedVelocity', 'bedExcursion', 'energyDensity', 'power', 'horizontalVelocity', 'verticalVelocity', 'pressureFactor']) {
+    for (const key of [
+      'groupCelerity',
+      'n',
+      'shoalingCoefficient',
+      'bedVelocity',
+      'bedExcursion',
+      'energyDensity',
+      'power',
+      'horizontalVelocity',
+      'verticalVelocity',
+      'pressureFactor',
+    ]) {
       expect(Number.isFinite(res.body[key]), key).toBe(true);
     }
     // Energy density E = rho g H^2 / 8 with rho = 1025 kg/m3, g = 9.81 m/s2 (docs/domain.md#units defaults).

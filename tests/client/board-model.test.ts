@@ -30,7 +30,7 @@ describe('visibleRange', () => {
 });
 
 describe('dayRuns', () => {
-  it('groups hours by the worksite\'s calendar day, across a daylight-saving change', () => {
+  it("groups hours by the worksite's calendar day, across a daylight-saving change", () => {
     // Europe/Oslo goes from UTC+1 to UTC+2 at 01:00 UTC on 29 March 2026 (EU rule: last Sunday
     // of March). 28 Mar 00:00 UTC is 01:00 local: 23 hours remain of 28 March (00:00-22:00 UTC);
     // 29 March local is 28 Mar 23:00 UTC to 29 Mar 22:00 UTC, 23 hours long (the short day).
@@ -68,7 +68,16 @@ describe('occurrenceMarks (recurring operations on the board, as the Alerts page
   it('covers [start, start + TR) from the record holding the start', () => {
     // Start 06:00 UTC (record 6), TR 5 h: records 6-10 (5 records); start 06:30, TR 5 h ends
     // 11:30, so records 6-11 overlap it (the 11:00 record holds 11:00-11:30).
-    const marks = occurrenceMarks([{ start: at(6), status: 'go' }, { start: at(30.5), status: 'no_go' }], times, H, all, 5);
+    const marks = occurrenceMarks(
+      [
+        { start: at(6), status: 'go' },
+        { start: at(30.5), status: 'no_go' },
+      ],
+      times,
+      H,
+      all,
+      5,
+    );
     expect(marks).toEqual([
       { start: at(6), status: 'go', from: 6, count: 5, clippedStart: false },
       { start: at(30.5), status: 'no_go', from: 30, count: 6, clippedStart: false },

@@ -25,7 +25,14 @@ describe('maxPerBucket', () => {
   });
 
   it('gives a null point for a bucket without a value, so the line breaks there', () => {
-    const { points } = maxPerBucket(hours(0, 1, 2, 3, 8, 9, 10, 11), Float64Array.from([1, 2, 3, 4, 5, 6, 7, 8]), T0, T0 + 12 * HOUR, 3, HOUR);
+    const { points } = maxPerBucket(
+      hours(0, 1, 2, 3, 8, 9, 10, 11),
+      Float64Array.from([1, 2, 3, 4, 5, 6, 7, 8]),
+      T0,
+      T0 + 12 * HOUR,
+      3,
+      HOUR,
+    );
     expect(asPairs(points)).toEqual([
       [2, 4],
       [6, null],
@@ -47,8 +54,25 @@ describe('maxPerBucket', () => {
 
   it('breaks raw records at a gap, one step after the last record before it', () => {
     // Hourly, then 5 h missing (a spacing of 6 h > 1.5 x 1 h on both sides), then hourly again.
-    const { points } = maxPerBucket(hours(0, 1, 2, 3, 9, 10, 11, 12), Float64Array.from([1, 1, 1, 1, 2, 2, 2, 2]), T0, T0 + 13 * HOUR, 100, HOUR);
-    expect(asPairs(points)).toEqual([[0, 1], [1, 1], [2, 1], [3, 1], [4, null], [9, 2], [10, 2], [11, 2], [12, 2]]);
+    const { points } = maxPerBucket(
+      hours(0, 1, 2, 3, 9, 10, 11, 12),
+      Float64Array.from([1, 1, 1, 1, 2, 2, 2, 2]),
+      T0,
+      T0 + 13 * HOUR,
+      100,
+      HOUR,
+    );
+    expect(asPairs(points)).toEqual([
+      [0, 1],
+      [1, 1],
+      [2, 1],
+      [3, 1],
+      [4, null],
+      [9, 2],
+      [10, 2],
+      [11, 2],
+      [12, 2],
+    ]);
   });
 
   it('does not break a forecast that turns from hourly to 3-hourly', () => {

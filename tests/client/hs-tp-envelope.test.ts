@@ -9,13 +9,27 @@ const none: EnvelopeLimits = { hsMax: null, curve: [], tpMin: null, tpMax: null,
 
 describe('hsLimitAt', () => {
   it('takes the lower of Hs max and the curve, interpolated linearly', () => {
-    const l = { ...none, hsMax: 2.5, curve: [[4, 1], [8, 3], [12, 2]] as [number, number][] };
+    const l = {
+      ...none,
+      hsMax: 2.5,
+      curve: [
+        [4, 1],
+        [8, 3],
+        [12, 2],
+      ] as [number, number][],
+    };
     expect(hsLimitAt(l, 6).hs).toBeCloseTo(2, 12); // halfway from 1 m to 3 m
     expect(hsLimitAt(l, 8).hs).toBe(2.5); // curve 3 m, capped by Hs max
     expect(hsLimitAt(l, 11).hs).toBeCloseTo(2.25, 12); // 3 - (3 - 2) * 3/4
   });
   it('is a no-go outside the curve, edges included in the range (closed)', () => {
-    const l = { ...none, curve: [[4, 1], [8, 3]] as [number, number][] };
+    const l = {
+      ...none,
+      curve: [
+        [4, 1],
+        [8, 3],
+      ] as [number, number][],
+    };
     expect(hsLimitAt(l, 4).hs).toBe(1);
     expect(hsLimitAt(l, 8).hs).toBe(3);
     expect(hsLimitAt(l, 3.99)).toEqual({ hs: null, reason: 'outside the curve' });
@@ -39,15 +53,41 @@ describe('hsLimitAt', () => {
 describe('usableCurve', () => {
   it('needs two finite points with Tp strictly ascending', () => {
     expect(usableCurve([[4, 1]])).toBeNull();
-    expect(usableCurve([[4, 1], [4, 2]])).toBeNull();
-    expect(usableCurve([[4, 1], [Number.NaN, 2]])).toBeNull();
-    expect(usableCurve([[4, 1], [5, 2]])).toEqual([[4, 1], [5, 2]]);
+    expect(
+      usableCurve([
+        [4, 1],
+        [4, 2],
+      ]),
+    ).toBeNull();
+    expect(
+      usableCurve([
+        [4, 1],
+        [Number.NaN, 2],
+      ]),
+    ).toBeNull();
+    expect(
+      usableCurve([
+        [4, 1],
+        [5, 2],
+      ]),
+    ).toEqual([
+      [4, 1],
+      [5, 2],
+    ]);
   });
 });
 
 describe('hsTpEnvelope', () => {
   it('splits at Tp bounds, band edges and where Hs max crosses the curve, covering [0, end] without gaps', () => {
-    const l = { ...none, hsMax: 2, curve: [[4, 1], [8, 3]] as [number, number][], bands: [[6.5, 7]] as [number, number][] };
+    const l = {
+      ...none,
+      hsMax: 2,
+      curve: [
+        [4, 1],
+        [8, 3],
+      ] as [number, number][],
+      bands: [[6.5, 7]] as [number, number][],
+    };
     const pieces = hsTpEnvelope(l, 10);
     expect(pieces[0].fromS).toBe(0);
     expect(pieces[pieces.length - 1].toS).toBe(10);
@@ -56,7 +96,11 @@ describe('hsTpEnvelope', () => {
     const cuts = pieces.map((p) => p.fromS);
     expect(cuts).toEqual(expect.arrayContaining([0, 4, 6, 6.5, 7, 8]));
     // 0-4 s: outside the curve; 6.5-7 s: the band; 8-10 s: outside the curve.
-    expect(pieces.filter((p) => p.kind === 'nogo').map((p) => [p.fromS, p.toS])).toEqual([[0, 4], [6.5, 7], [8, 10]]);
+    expect(pieces.filter((p) => p.kind === 'nogo').map((p) => [p.fromS, p.toS])).toEqual([
+      [0, 4],
+      [6.5, 7],
+      [8, 10],
+    ]);
     const rising = pieces.find((p) => p.kind === 'limit' && p.fromS === 4);
     expect(rising).toMatchObject({ kind: 'limit', toS: 6 });
     // The piece is read just inside its ends, so its Hs values match to about 1e-9 m.

@@ -60,7 +60,9 @@ describe('the plain line', () => {
 
   it('gives the chance where an ensemble forecast gives one', () => {
     const l = line({ earliestStart: '2026-12-04T14:00:00Z', windowHours: 35, limiting: 'hs', chance: 0.8 });
-    expect(plainLine(l, NOW, FORECAST_END)).toBe('next go-start Fri 4 Dec 14:00 (in 20 h), window 35 h; limited by wave height (Hs); chance 80 %');
+    expect(plainLine(l, NOW, FORECAST_END)).toBe(
+      'next go-start Fri 4 Dec 14:00 (in 20 h), window 35 h; limited by wave height (Hs); chance 80 %',
+    );
   });
 
   it('never promises a go-start for an operation that is not weather-restricted (docs/domain.md#convention-5)', () => {

@@ -6,8 +6,15 @@ import { describe, expect, it } from 'vitest';
 import { buildRule, parseRule, ruleInWords, weekdayOf, type RecurrenceForm } from '../../src/features/alerts/components/recurrence-rule';
 
 const base: RecurrenceForm = {
-  freq: 'WEEKLY', byDay: ['MO', 'WE', 'FR'], interval: 1, startDate: '2026-03-02', startTime: '06:00',
-  timeZone: 'Europe/Oslo', endKind: 'never', count: Number.NaN, untilDate: '',
+  freq: 'WEEKLY',
+  byDay: ['MO', 'WE', 'FR'],
+  interval: 1,
+  startDate: '2026-03-02',
+  startTime: '06:00',
+  timeZone: 'Europe/Oslo',
+  endKind: 'never',
+  count: Number.NaN,
+  untilDate: '',
 };
 const input = (rule: string) => ({ start: '2026-03-02T06:00', timeZone: 'Europe/Oslo', rule });
 
@@ -16,10 +23,14 @@ describe('buildRule (RFC 5545 RECUR)', () => {
     expect(buildRule({ ...base, byDay: ['FR', 'MO', 'WE'] })).toBe('FREQ=WEEKLY;BYDAY=MO,WE,FR');
   });
   it('writes an interval only above 1, and an end by count', () => {
-    expect(buildRule({ ...base, freq: 'DAILY', byDay: [], interval: 2, endKind: 'count', count: 10 })).toBe('FREQ=DAILY;INTERVAL=2;COUNT=10');
+    expect(buildRule({ ...base, freq: 'DAILY', byDay: [], interval: 2, endKind: 'count', count: 10 })).toBe(
+      'FREQ=DAILY;INTERVAL=2;COUNT=10',
+    );
   });
   it('writes UNTIL as the end of the last day', () => {
-    expect(buildRule({ ...base, byDay: ['TU'], endKind: 'until', untilDate: '2026-12-31' })).toBe('FREQ=WEEKLY;BYDAY=TU;UNTIL=20261231T235959Z');
+    expect(buildRule({ ...base, byDay: ['TU'], endKind: 'until', untilDate: '2026-12-31' })).toBe(
+      'FREQ=WEEKLY;BYDAY=TU;UNTIL=20261231T235959Z',
+    );
   });
 });
 

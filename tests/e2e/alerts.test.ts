@@ -18,7 +18,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-
 describe('alerts', () => {
   it('lets the coordinator re-plan now and see what the run did', async () => {
     const { page, context } = browser;

@@ -19,7 +19,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-
 async function openBoard(page: Page, projectId: string, query = ''): Promise<void> {
   await page.goto(`${server.baseUrl}/projects/${projectId}/board${query}`);
   await waitForCells(page);
@@ -31,7 +30,12 @@ async function waitForCells(page: Page): Promise<void> {
     await page.getByTestId('hour-cell').first().waitFor({ timeout: 30_000 });
   } catch (err) {
     await screenshot(page, 'board-failure');
-    const shown = ((await page.locator('main').textContent().catch(() => '')) ?? '').slice(0, 600);
+    const shown = (
+      (await page
+        .locator('main')
+        .textContent()
+        .catch(() => '')) ?? ''
+    ).slice(0, 600);
     throw new Error(`No hour cells on ${page.url()}: ${shown}`, { cause: err });
   }
 }
@@ -57,7 +61,8 @@ describe('the watch board', () => {
     // Every row says when the operation may start, in words.
     const words = await page.getByTestId('start-words').allTextContents();
     expect(words.length).toBeGreaterThan(0);
-    for (const w of words) expect(w).toMatch(/^(▶ )?(May start now|Earliest start: \w{3} \d{1,2} \w{3}( \d{4})? \d{2}:\d{2}|No window in this forecast)/);
+    for (const w of words)
+      expect(w).toMatch(/^(▶ )?(May start now|Earliest start: \w{3} \d{1,2} \w{3}( \d{4})? \d{2}:\d{2}|No window in this forecast)/);
 
     const cell = page.getByTestId('hour-cell').first();
     const label = await cell.getAttribute('aria-label');
@@ -107,7 +112,9 @@ describe('the watch board', () => {
     // The board draws what the plan says: the same count of workable hours as the API.
     const planRes = await page.request.get(`${server.baseUrl}/api/projects/${projectId}/plan?alpha=true`);
     const plan = (await planRes.json()) as PlanAnswer;
-    const apiWorkable = plan.plans.filter((p) => p.operationId === op!.id).reduce((n, p) => n + p.status.filter((s) => s === 'workable').length, 0);
+    const apiWorkable = plan.plans
+      .filter((p) => p.operationId === op!.id)
+      .reduce((n, p) => n + p.status.filter((s) => s === 'workable').length, 0);
     expect(before).toBe(apiWorkable);
     await screenshot(page, 'board-coordinator-before');
 
@@ -119,14 +126,18 @@ describe('the watch board', () => {
     expect(crew).toBeDefined();
     const firstMs = Date.parse(crew!.times[0]);
     const lastMs = Date.parse(crew!.times[crew!.times.length - 1]);
-    const inForecast = crew!.occurrences.filter((o) => Date.parse(o.start) + crew!.tr * 3_600_000 > firstMs && Date.parse(o.start) <= lastMs);
+    const inForecast = crew!.occurrences.filter(
+      (o) => Date.parse(o.start) + crew!.tr * 3_600_000 > firstMs && Date.parse(o.start) <= lastMs,
+    );
     expect(inForecast.length).toBeGreaterThan(0);
     const crewRow = page.locator(`[data-testid="board-row"][data-operation-id="${crew!.operationId}"][data-site-id="${crew!.siteId}"]`);
     const marks = crewRow.getByTestId('occurrence-mark');
     await expect.poll(() => marks.count()).toBe(inForecast.length);
     const drawn = await marks.evaluateAll((els) => els.map((e) => `${e.getAttribute('data-start')} ${e.getAttribute('data-status')}`));
     expect(drawn).toEqual(inForecast.map((o) => `${o.start} ${o.status}`));
-    expect(await marks.first().getAttribute('aria-label')).toMatch(/^Occurrence (Mon|Wed|Fri) \d{1,2} [A-Z][a-z]{2} 06:00 \(local\): (workable|marginal|not workable|no data)/);
+    expect(await marks.first().getAttribute('aria-label')).toMatch(
+      /^Occurrence (Mon|Wed|Fri) \d{1,2} [A-Z][a-z]{2} 06:00 \(local\): (workable|marginal|not workable|no data)/,
+    );
     // Every other row (no recurrence) has none.
     expect(await page.getByTestId('occurrence-mark').count()).toBe(inForecast.length);
     await crewRow.scrollIntoViewIfNeeded();

@@ -58,7 +58,10 @@ describe('the live campaign outlook in the browser', () => {
 
     // On paper: the report states the outlook method, and the outlook prints with its history table.
     await page.emulateMedia({ media: 'print' });
-    await page.getByTestId('print-report').getByText(/Live outlook: from the time printed/).waitFor();
+    await page
+      .getByTestId('print-report')
+      .getByText(/Live outlook: from the time printed/)
+      .waitFor();
     expect(await page.getByTestId('outlook-section').isVisible()).toBe(true);
     const printed = page.getByTestId('outlook-history-table').last();
     expect(await printed.isVisible()).toBe(true);

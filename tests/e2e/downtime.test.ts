@@ -47,7 +47,10 @@ describe('the downtime schedule in the browser', () => {
     await page.getByRole('button', { name: 'Confirm day' }).click();
     await page.getByRole('form', { name: label }).waitFor({ state: 'detached' });
     const table = page.getByTestId('ledger-table');
-    await table.getByText(/Confirmed/).first().waitFor();
+    await table
+      .getByText(/Confirmed/)
+      .first()
+      .waitFor();
     expect(await table.getByText(/Confirmed/).count()).toBe(1);
     // The monthly totals count the confirmed day.
     expect(await page.getByTestId('ledger-monthly-table').getByText('1 of', { exact: false }).count()).toBe(1);
@@ -62,7 +65,12 @@ describe('the downtime schedule in the browser', () => {
     const heatmap = page.getByTestId('downtime-heatmap');
     await heatmap.locator('svg').first().waitFor({ timeout: 90_000 });
     // Every operation at each worksite has a row of 12 month cells with their values written in.
-    expect(await heatmap.locator('svg text').filter({ hasText: /^\d{1,3}$/ }).count()).toBeGreaterThanOrEqual(8 * 12);
+    expect(
+      await heatmap
+        .locator('svg text')
+        .filter({ hasText: /^\d{1,3}$/ })
+        .count(),
+    ).toBeGreaterThanOrEqual(8 * 12);
     const table = page.getByTestId('workability-table');
     await table.waitFor();
     expect(await table.getByRole('row', { name: /^January/ }).count()).toBe(8);

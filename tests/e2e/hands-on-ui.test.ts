@@ -70,7 +70,8 @@ describe('the printed downtime report (issue 22, item 6)', () => {
       for (const el of Array.from(document.querySelectorAll<HTMLElement>('main *'))) {
         const r = el.getBoundingClientRect();
         if (r.width === 0 || getComputedStyle(el).visibility === 'hidden') continue;
-        if (r.right > width + 1) out.push(`${el.tagName.toLowerCase()} "${(el.textContent ?? '').trim().slice(0, 30)}" ends at ${Math.round(r.right)} px`);
+        if (r.right > width + 1)
+          out.push(`${el.tagName.toLowerCase()} "${(el.textContent ?? '').trim().slice(0, 30)}" ends at ${Math.round(r.right)} px`);
       }
       for (const t of Array.from(document.querySelectorAll<HTMLElement>('main table'))) {
         if (t.getBoundingClientRect().width > 0 && t.scrollWidth > t.clientWidth + 1) out.push(`table ${t.dataset.testid ?? ''} scrolls`);
@@ -89,10 +90,16 @@ describe('the printed downtime report (issue 22, item 6)', () => {
     }
     // Paper gets the heat map as a table that fits, with its colour key; the chart is not printed.
     const heatTables = page.locator('[data-testid="downtime-heatmap"] [data-testid="heat-table"]');
-    const shown = await heatTables.evaluateAll((els) => els.filter((e) => e.getBoundingClientRect().width > 0).map((e) => e.getBoundingClientRect().right));
+    const shown = await heatTables.evaluateAll((els) =>
+      els.filter((e) => e.getBoundingClientRect().width > 0).map((e) => e.getBoundingClientRect().right),
+    );
     expect(shown.length).toBe(1);
     expect(shown[0]).toBeLessThanOrEqual(A4_TEXT_PX + 1);
-    expect(await page.locator('[data-testid="downtime-heatmap"] svg').evaluateAll((els) => els.filter((e) => e.getBoundingClientRect().width > 0).length)).toBe(0);
+    expect(
+      await page
+        .locator('[data-testid="downtime-heatmap"] svg')
+        .evaluateAll((els) => els.filter((e) => e.getBoundingClientRect().width > 0).length),
+    ).toBe(0);
     expect(await page.getByTestId('heat-legend').first().isVisible()).toBe(true);
 
     // The PDF itself: every page A4 portrait (the report asks for no landscape page).
@@ -156,7 +163,11 @@ describe('a skipper on a 390 px phone (issue 22, phone and looks)', () => {
     const table = page.locator('[data-testid="downtime-heatmap"] [data-testid="heat-table"]').first();
     await table.waitFor({ timeout: 120_000 });
     const labels = await table.locator('tbody th').evaluateAll((els) =>
-      els.map((e) => ({ size: parseFloat(getComputedStyle(e).fontSize), cut: e.scrollWidth > e.clientWidth + 1, text: e.textContent ?? '' })),
+      els.map((e) => ({
+        size: parseFloat(getComputedStyle(e).fontSize),
+        cut: e.scrollWidth > e.clientWidth + 1,
+        text: e.textContent ?? '',
+      })),
     );
     expect(labels.length).toBeGreaterThan(0);
     for (const l of labels) {

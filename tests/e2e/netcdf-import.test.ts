@@ -60,7 +60,10 @@ describe('NetCDF import page', () => {
     await page.getByRole('heading', { name: 'grid-3x3' }).waitFor();
     // 48 hourly records written by the script (2024-03-01 00:00 to 03-02 23:00 UTC).
     await page.getByText('Imported 48 records').waitFor();
-    await page.getByText(/36\.86 km from the data point/).first().waitFor();
+    await page
+      .getByText(/36\.86 km from the data point/)
+      .first()
+      .waitFor();
     const monthly = page.getByTestId('monthly-table');
     await monthly.waitFor({ timeout: 30_000 });
     expect(await monthly.innerText()).toMatch(/Mar/);
@@ -72,7 +75,10 @@ describe('NetCDF import page', () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-e2e-csv-'));
     const csv = path.join(dir, 'small-hindcast.csv');
     // Three hourly rows written here; with the zone Europe/Oslo (UTC+1 in January) 01:00 local is 00:00 UTC.
-    fs.writeFileSync(csv, 'time,Hs [m],Tp (s),dir\n2024-01-01 01:00,1.2,8.5,270\n2024-01-01 02:00,1.3,8.6,275\n2024-01-01 03:00,1.4,8.7,280\n');
+    fs.writeFileSync(
+      csv,
+      'time,Hs [m],Tp (s),dir\n2024-01-01 01:00,1.2,8.5,270\n2024-01-01 02:00,1.3,8.6,275\n2024-01-01 03:00,1.4,8.7,280\n',
+    );
     try {
       await page.goto(`${server.baseUrl}${new URL(page.url()).pathname.replace(/\/sea-data\/.*$/, '/sea-data/import')}`);
       await page.getByRole('heading', { name: 'Import sea data' }).waitFor();
@@ -83,7 +89,10 @@ describe('NetCDF import page', () => {
       await page.getByRole('button', { name: 'Import the file' }).click();
       await page.waitForURL(/\/sea-data\/[0-9a-f-]{36}$/, { timeout: 60_000 });
       await page.getByText('Imported 3 records').waitFor();
-      await page.getByText(/Europe\/Oslo/).first().waitFor();
+      await page
+        .getByText(/Europe\/Oslo/)
+        .first()
+        .waitFor();
     } finally {
       fs.rmSync(dir, { recursive: true, force: true });
     }

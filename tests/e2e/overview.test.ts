@@ -28,12 +28,17 @@ async function waitFor(page: Page, testId: string, name: string): Promise<void> 
     await page.getByTestId(testId).first().waitFor({ timeout: 30_000 });
   } catch (err) {
     await screenshot(page, `${name}-failure`);
-    const shown = ((await page.locator('main').textContent().catch(() => '')) ?? '').slice(0, 600);
+    const shown = (
+      (await page
+        .locator('main')
+        .textContent()
+        .catch(() => '')) ?? ''
+    ).slice(0, 600);
     throw new Error(`No ${testId} on ${page.url()}: ${shown}`, { cause: err });
   }
 }
 
-const getJson = async <T,>(page: Page, path: string): Promise<T> => {
+const getJson = async <T>(page: Page, path: string): Promise<T> => {
   const res = await page.request.get(`${server.baseUrl}${path}`);
   if (!res.ok()) throw new Error(`GET ${path} answered ${res.status()}`);
   return (await res.json()) as T;
@@ -67,7 +72,10 @@ describe('the project Overview', () => {
         // Hours as the README states them: plain below 72 h ("35 h"), days and hours from there ("3 days 12 h").
         const days = Math.floor((w?.hours ?? 0) / 24);
         const rest = Math.round((w?.hours ?? 0) - days * 24);
-        if (w) expect(words).toContain(`window ${w.hours < 72 ? `${Math.round(w.hours * 10) / 10} h` : rest ? `${days} days ${rest} h` : `${days} days`}`);
+        if (w)
+          expect(words).toContain(
+            `window ${w.hours < 72 ? `${Math.round(w.hours * 10) / 10} h` : rest ? `${days} days ${rest} h` : `${days} days`}`,
+          );
         dated++;
       } else expect(words).toMatch(/^no window in this forecast \(to (Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2}\)/);
     }
@@ -78,7 +86,9 @@ describe('the project Overview', () => {
     const attention = page.getByTestId('coordinator-attention');
     expect(await attention.getByTestId('ledger-waiting').textContent()).toMatch(/ledger days? waiting for confirmation/);
     expect(await attention.getByTestId('failed-emails').textContent()).toMatch(/alert e-mail/);
-    expect(await page.getByTestId('forecast-age').textContent()).toMatch(/^Forecast issued (Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2} \d{2}:\d{2}, .* old/);
+    expect(await page.getByTestId('forecast-age').textContent()).toMatch(
+      /^Forecast issued (Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2} \d{2}:\d{2}, .* old/,
+    );
     await screenshot(page, 'overview-coordinator');
   }, 120_000);
 
@@ -146,19 +156,29 @@ describe('the project Overview', () => {
       for (const p of mine) {
         const card = page.locator(`[data-testid="my-operation-card"][data-operation-id="${p.operationId}"][data-site-id="${p.siteId}"]`);
         expect(await card.count()).toBe(1);
-        expect(await card.getByTestId('card-now').textContent()).toMatch(/^(may start now|workable, but not for TR = [\d.]+ h from now|marginal|not workable|no data|for information only)$/);
+        expect(await card.getByTestId('card-now').textContent()).toMatch(
+          /^(may start now|workable, but not for TR = [\d.]+ h from now|marginal|not workable|no data|for information only)$/,
+        );
         // The next 48 hours as a strip: one cell per forecast hour ahead (at most 48).
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeGreaterThan(0);
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeLessThanOrEqual(48);
-        expect(await card.getByRole('link', { name: /Hour by hour/ }).getAttribute('href')).toBe(`/projects/${projectId}/board?op=${p.operationId}&site=${p.siteId}`);
+        expect(await card.getByRole('link', { name: /Hour by hour/ }).getAttribute('href')).toBe(
+          `/projects/${projectId}/board?op=${p.operationId}&site=${p.siteId}`,
+        );
       }
       await page.getByTestId('site-map').locator('canvas.maplibregl-canvas').waitFor({ timeout: 30_000 });
-      const widths = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
+      const widths = await page.evaluate(() => ({
+        scroll: document.documentElement.scrollWidth,
+        client: document.documentElement.clientWidth,
+      }));
       expect(widths.scroll).toBeLessThanOrEqual(widths.client);
       await screenshot(page, 'overview-skipper-phone');
       // Installable: the page links a web app manifest with our icons.
       const manifestHref = await page.locator('link[rel="manifest"]').getAttribute('href');
-      const manifest = (await (await page.request.get(`${server.baseUrl}${manifestHref}`)).json()) as { icons: { src: string; sizes: string }[]; start_url: string };
+      const manifest = (await (await page.request.get(`${server.baseUrl}${manifestHref}`)).json()) as {
+        icons: { src: string; sizes: string }[];
+        start_url: string;
+      };
       expect(manifest.start_url).toBe('/');
       for (const icon of manifest.icons) expect((await page.request.get(`${server.baseUrl}${icon.src}`)).status()).toBe(200);
       expect(manifest.icons.some((i) => i.sizes === '512x512')).toBe(true);
@@ -176,16 +196,22 @@ describe('the project Overview', () => {
     const sites = await getJson<SiteResponse[]>(page, `/api/projects/${projectId}/sites`);
     const zone = sites[0].timeZone;
     const today = formatInstant(Date.now(), zone, 'date');
-    const isoDay = (ms: number) => new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(ms);
+    const isoDay = (ms: number) =>
+      new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(ms);
     const from = isoDay(Date.now() - 3 * 86_400_000);
     const to = isoDay(Date.now() - 86_400_000);
-    const propose = await page.request.post(`${server.baseUrl}/api/projects/${projectId}/ledger/propose?from=${from}&to=${to}`, { headers: { origin: server.baseUrl } });
+    const propose = await page.request.post(`${server.baseUrl}/api/projects/${projectId}/ledger/propose?from=${from}&to=${to}`, {
+      headers: { origin: server.baseUrl },
+    });
     expect(propose.status()).toBe(200);
     const month = isoDay(Date.now()).slice(0, 7);
     const entries = await getJson<LedgerEntry[]>(page, `/api/projects/${projectId}/ledger?from=${from}&to=${to}`);
     const ofMonth = entries.filter((e) => e.day.startsWith(month) && e.status === 'proposed');
     if (ofMonth.length > 0) {
-      const confirm = await page.request.post(`${server.baseUrl}/api/projects/${projectId}/ledger/${ofMonth[0].id}/confirm`, { data: {}, headers: { origin: server.baseUrl } });
+      const confirm = await page.request.post(`${server.baseUrl}/api/projects/${projectId}/ledger/${ofMonth[0].id}/confirm`, {
+        data: {},
+        headers: { origin: server.baseUrl },
+      });
       expect(confirm.status()).toBe(200);
     }
 
@@ -199,11 +225,21 @@ describe('the project Overview', () => {
     expect(await page.getByTestId('coordinator-attention').count()).toBe(0);
 
     // The month's figures are the ledger's own (GET …/ledger/monthly, the client's confirmed days only).
-    const monthly = await getJson<LedgerMonthlyAnswer>(page, `/api/projects/${projectId}/ledger/monthly?from=${month}-01&to=${to < `${month}-01` ? `${month}-01` : to}`);
+    const monthly = await getJson<LedgerMonthlyAnswer>(
+      page,
+      `/api/projects/${projectId}/ledger/monthly?from=${month}-01&to=${to < `${month}-01` ? `${month}-01` : to}`,
+    );
     const row = monthly.rows.find((r) => r.month === month);
     if (ofMonth.length > 0) {
       expect(row).toBeDefined();
-      const text = (await card.locator(`[data-testid="month-row"]`).filter({ hasText: row!.operationName }).filter({ hasText: row!.siteName }).first().getByTestId('month-words').textContent()) ?? '';
+      const text =
+        (await card
+          .locator(`[data-testid="month-row"]`)
+          .filter({ hasText: row!.operationName })
+          .filter({ hasText: row!.siteName })
+          .first()
+          .getByTestId('month-words')
+          .textContent()) ?? '';
       const h = (x: number) => `${Math.round(x * 10) / 10} h`;
       expect(text).toContain(`${h(row!.confirmedLostHours)} lost on ${row!.confirmedDays} confirmed day`);
       expect(row!.expectedP50Hours).not.toBeNull();

@@ -124,8 +124,14 @@ describe('the coordinator sets a project up from scratch', () => {
     await addSite('Outer anchorage', '-3', '90');
     expect((await shownProblems(page)).join(' ')).toMatch(/Depth must be at least 0\.5 m/);
     await expectNoRawErrors(page, 'worksite, negative depth');
-    await page.getByRole('form', { name: 'New worksite' }).getByLabel(/^Water depth/).fill('18');
-    await page.getByRole('form', { name: 'New worksite' }).getByRole('button', { name: /Add worksite|Save worksite/ }).click();
+    await page
+      .getByRole('form', { name: 'New worksite' })
+      .getByLabel(/^Water depth/)
+      .fill('18');
+    await page
+      .getByRole('form', { name: 'New worksite' })
+      .getByRole('button', { name: /Add worksite|Save worksite/ })
+      .click();
     await page.getByRole('form', { name: 'New worksite' }).waitFor({ state: 'detached' });
     await addSite('Pier 4 berth', '9', '110');
     await page.getByRole('form', { name: 'New worksite' }).waitFor({ state: 'detached' });
@@ -197,7 +203,8 @@ describe('the coordinator sets a project up from scratch', () => {
     const words = await page.getByTestId('start-words').allTextContents();
     // Two worksites × three operations, each operation at every worksite (none ticked).
     expect(words.length).toBe(6);
-    for (const w of words) expect(w).toMatch(/^(▶ )?(May start now|Earliest start: \w{3} \d{1,2} \w{3}( \d{4})? \d{2}:\d{2}|No window in this forecast)/);
+    for (const w of words)
+      expect(w).toMatch(/^(▶ )?(May start now|Earliest start: \w{3} \d{1,2} \w{3}( \d{4})? \d{2}:\d{2}|No window in this forecast)/);
     await expectNoRawErrors(page, 'board');
     await screenshot(page, 'walk-board');
 
@@ -214,19 +221,30 @@ describe('the coordinator sets a project up from scratch', () => {
     await campaign.waitFor({ state: 'detached' });
     await expect.poll(() => page.locator('#campaign-pick option:checked').textContent()).toBe('Spring maintenance');
     // The simulation over the buoy's weeks: a table, or a note saying why there is none.
-    await page.getByTestId('campaign-table').or(page.getByText(/never|no window|too short|not enough|no hindcast/i).first()).first().waitFor({ timeout: 90_000 });
+    await page
+      .getByTestId('campaign-table')
+      .or(page.getByText(/never|no window|too short|not enough|no hindcast/i).first())
+      .first()
+      .waitFor({ timeout: 90_000 });
     await expectNoRawErrors(page, 'campaign');
     await screenshot(page, 'walk-downtime');
 
     // 9. The ledger of a month the buoy covers: propose from data, confirm a day that is over.
     await page.goto(`${server.baseUrl}/projects/${projectId}/downtime?month=2022-05`);
     await page.getByRole('button', { name: 'Propose from data' }).click();
-    await page.getByText(/proposed/i).first().waitFor({ timeout: 90_000 });
+    await page
+      .getByText(/proposed/i)
+      .first()
+      .waitFor({ timeout: 90_000 });
     const confirm = page.getByRole('button', { name: /^Confirm \d{4}-\d{2}-\d{2},/ }).first();
     await confirm.waitFor();
     await confirm.click();
     await page.getByRole('button', { name: 'Confirm day' }).click();
-    await page.getByTestId('ledger-table').getByText(/Confirmed/).first().waitFor();
+    await page
+      .getByTestId('ledger-table')
+      .getByText(/Confirmed/)
+      .first()
+      .waitFor();
     await expectNoRawErrors(page, 'ledger');
 
     // 10. Export the setup, and import it into a second, new project.
@@ -257,7 +275,9 @@ describe('the coordinator sets a project up from scratch', () => {
     await setupInput.setInputFiles(brokenFile);
     await page.getByText(/cannot be imported/).waitFor();
     // The schema's Tp bound is 40 s (shared/engine/schemas.ts, a sanity bound, common practice, no source).
-    expect(await page.locator('body').innerText()).toContain(`Operation 2 “${broken.operations[1].name}” › Limits › Hs–Tp curve point 2, Tp: Curve Tp must be at most 40 s`);
+    expect(await page.locator('body').innerText()).toContain(
+      `Operation 2 “${broken.operations[1].name}” › Limits › Hs–Tp curve point 2, Tp: Curve Tp must be at most 40 s`,
+    );
     await expectNoRawErrors(page, 'setup import, broken file');
     await setupInput.setInputFiles(file);
     await page.getByRole('button', { name: 'Import and add' }).click();
@@ -303,7 +323,10 @@ describe('the forms the walk above does not reach', () => {
 
     // Alerts: a daily digest without a time.
     await page.goto(`${base}/alerts`);
-    const digest = page.getByRole('switch', { name: /Daily digest/ }).or(page.getByRole('checkbox', { name: /Daily digest/ })).first();
+    const digest = page
+      .getByRole('switch', { name: /Daily digest/ })
+      .or(page.getByRole('checkbox', { name: /Daily digest/ }))
+      .first();
     await digest.waitFor();
     if ((await digest.getAttribute('aria-checked')) !== 'true' && !(await digest.isChecked().catch(() => false))) await digest.click();
     await page.locator('#sub-digest-time').fill('');
@@ -320,7 +343,10 @@ describe('the forms the walk above does not reach', () => {
     await editor.waitFor();
     await editor.getByLabel(/^Repeat every/).fill('');
     await editor.getByLabel(/^Start time/).fill('');
-    await editor.getByRole('radio', { name: /times|occurrences/i }).first().check();
+    await editor
+      .getByRole('radio', { name: /times|occurrences/i })
+      .first()
+      .check();
     await editor.getByLabel(/^Occurrences in all/).fill('0');
     await editor.getByRole('button', { name: /^(Make it recur|Save the recurrence)$/ }).click();
     await expect.poll(async () => (await shownProblems(page)).length).toBeGreaterThanOrEqual(2);

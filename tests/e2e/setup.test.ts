@@ -22,7 +22,6 @@ afterAll(async () => {
   await server?.stop();
 });
 
-
 async function openTab(page: Page, projectId: string, tab: string): Promise<void> {
   await page.goto(`${server.baseUrl}/projects/${projectId}/setup?tab=${tab}`);
   await page.getByRole('tab', { selected: true }).waitFor();
@@ -52,7 +51,9 @@ describe('sites & limits', () => {
     await hsMax.fill('25');
     await form.getByRole('button', { name: 'Save operation' }).click();
     await form.getByText('Hs max must be at most 20 m').waitFor();
-    const unchanged = (await (await page.request.get(`${server.baseUrl}/api/projects/${projectId}/operations`)).json()) as OperationResponse[];
+    const unchanged = (await (
+      await page.request.get(`${server.baseUrl}/api/projects/${projectId}/operations`)
+    ).json()) as OperationResponse[];
     expect(unchanged.find((o) => o.name === OPERATION)?.limits.hsMax).toBe(1.5);
 
     await hsMax.fill('1.2');
@@ -78,7 +79,9 @@ describe('sites & limits', () => {
     expect(await changes.first().textContent()).toMatch(/^Hs max:/);
     await screenshot(page, 'setup-audit-trail');
 
-    const audit = (await (await page.request.get(`${server.baseUrl}/api/projects/${projectId}/audit?entity=operation&limit=1`)).json()) as AuditEntryResponse[];
+    const audit = (await (
+      await page.request.get(`${server.baseUrl}/api/projects/${projectId}/audit?entity=operation&limit=1`)
+    ).json()) as AuditEntryResponse[];
     expect((audit[0].before as OperationResponse).limits.hsMax).toBe(1.5);
     expect((audit[0].after as OperationResponse).limits.hsMax).toBe(1.2);
 

@@ -32,7 +32,9 @@ describe('the tide strip', () => {
           await fetch(`/api/projects/${p}/sites/${s}`, {
             method: 'PATCH',
             headers: { 'content-type': 'application/json' },
-            body: JSON.stringify({ tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1.5, phase: 120 }], z0: 2, datum: 'LAT' } }),
+            body: JSON.stringify({
+              tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1.5, phase: 120 }], z0: 2, datum: 'LAT' },
+            }),
           })
         ).status,
       { p: projectId, s: landfall.id },

@@ -115,10 +115,15 @@ describe('wave calculator in the browser', () => {
 
     // Clicking the d/L0 heading turns the order round: the largest relative depth comes first.
     await page.getByRole('button', { name: /d\/L0/ }).click();
-    await expect.poll(async () => shown(await rows.first().locator('td').first().textContent())).toBeCloseTo(from + (count(step) - 1) * step, 10);
+    await expect
+      .poll(async () => shown(await rows.first().locator('td').first().textContent()))
+      .toBeCloseTo(from + (count(step) - 1) * step, 10);
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download CSV' }).click()]);
-    const csv = fs.readFileSync((await download.path())!, 'utf8').trim().split(/\r?\n/);
+    const csv = fs
+      .readFileSync((await download.path())!, 'utf8')
+      .trim()
+      .split(/\r?\n/);
     expect(csv[0]).toBe('d/L0,d/L,L/L0,kd,tanh(kd),sinh(kd),cosh(kd),n,Cg/C0,Ks,Kp_bed');
     expect(csv).toHaveLength(count(step) + 1);
     expect(csv[1].split(',')).toHaveLength(11);

@@ -22,10 +22,21 @@ afterAll(async () => {
 });
 
 /** Zone names as pages write them: IANA names (IANA time zone database naming rules) and UTC. */
-const ZONE_NAME = /\b(?:Africa|America|Antarctica|Asia|Atlantic|Australia|Europe|Indian|Pacific|Etc)\/[A-Za-z_]+|\bUTC\b|\bGMT(?:[+-]\d+)?\b|\bBST\b/g;
+const ZONE_NAME =
+  /\b(?:Africa|America|Antarctica|Asia|Atlantic|Australia|Europe|Indian|Pacific|Etc)\/[A-Za-z_]+|\bUTC\b|\bGMT(?:[+-]\d+)?\b|\bBST\b/g;
 
 /** The per-section zone words the pages carried before, one per section. */
-const OLD_MENTIONS = [/Times in the worksites/, /All times are UTC/, /\(UTC\)/, /Times are yours/, /\(local\)/, /Dates in /, /worksite times in/, /your local time/i, /time zone Europe/];
+const OLD_MENTIONS = [
+  /Times in the worksites/,
+  /All times are UTC/,
+  /\(UTC\)/,
+  /Times are yours/,
+  /\(local\)/,
+  /Dates in /,
+  /worksite times in/,
+  /your local time/i,
+  /time zone Europe/,
+];
 
 /**
  * Visible text outside form controls and settings (a zone chosen in a select, or the zone a file was
@@ -97,7 +108,11 @@ describe('one time-zone statement per page (issue 22, dates)', () => {
     await first.waitFor({ timeout: 60_000 });
     await expectOneStatement(page, 'sea data', /^Times are in UTC, /);
     await first.click();
-    await page.getByRole('heading', { name: /Import report/ }).or(page.getByText(/Per calendar month/)).first().waitFor({ timeout: 60_000 });
+    await page
+      .getByRole('heading', { name: /Import report/ })
+      .or(page.getByText(/Per calendar month/))
+      .first()
+      .waitFor({ timeout: 60_000 });
     await expectOneStatement(page, 'a dataset', /^Times are in UTC, /);
     await page.goto(`${base}/sea-data/import`);
     await expectOneStatement(page, 'import', /^Times are in UTC, /);

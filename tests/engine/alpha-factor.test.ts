@@ -1,5 +1,14 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_ALPHA_TABLE, alphaFactor, alphaFor, alphaTableCoverageProblem, assertAlphaTable, defaultAlphaTable, isWeatherRestricted, type OperationSpec } from '../../shared/engine';
+import {
+  DEFAULT_ALPHA_TABLE,
+  alphaFactor,
+  alphaFor,
+  alphaTableCoverageProblem,
+  assertAlphaTable,
+  defaultAlphaTable,
+  isWeatherRestricted,
+  type OperationSpec,
+} from '../../shared/engine';
 
 // Expected values are read by hand from the alpha table in docs/domain.md#weather-restricted,
 // itself from memory of DNV-ST-N001's base case for waves (to be checked against the current standard).
@@ -58,7 +67,14 @@ describe('alphaFor: row by TPOP, linear in Hs (docs/domain.md#convention-5; tabl
   });
 
   it('a table that stops short of TPOP 72 h is reported (edits are refused) and never gives alpha = 1 (docs/domain.md#convention-5)', () => {
-    const short = { tpopBoundsH: [12, 24], hsColumnsM: [1, 2], values: [[0.6, 0.7], [0.55, 0.65]] };
+    const short = {
+      tpopBoundsH: [12, 24],
+      hsColumnsM: [1, 2],
+      values: [
+        [0.6, 0.7],
+        [0.55, 0.65],
+      ],
+    };
     expect(alphaTableCoverageProblem(short)).toMatch(/72 h/);
     expect(alphaTableCoverageProblem(T)).toBeNull();
     // An old stored table: the last row (smallest alpha), not 1.

@@ -191,23 +191,33 @@ function bruteMonthly(s: Sample, keyOf: Key) {
       meanWindowHours: wins.length ? wins.reduce((a, w) => a + lengthMs(w) / HOUR, 0) / wins.length : null,
     };
   };
-  const yearMonths = [...groups.values()].sort((a, b) => a.year * 12 + a.month - (b.year * 12 + b.month)).map((g) => ({
-    year: g.year,
-    month: g.month,
-    ...summarise(
-      g.idx,
-      windows.filter((w) => {
-        const k = keyOf(s, w.start);
-        return k.year === g.year && k.month === g.month;
-      }),
-      1,
-    ),
-  }));
+  const yearMonths = [...groups.values()]
+    .sort((a, b) => a.year * 12 + a.month - (b.year * 12 + b.month))
+    .map((g) => ({
+      year: g.year,
+      month: g.month,
+      ...summarise(
+        g.idx,
+        windows.filter((w) => {
+          const k = keyOf(s, w.start);
+          return k.year === g.year && k.month === g.month;
+        }),
+        1,
+      ),
+    }));
   const months = Array.from({ length: 12 }, (_, m0) => {
     const month = m0 + 1;
     const idx = s.times.map((_, i) => i).filter((i) => keyOf(s, i).month === month);
     const years = new Set(idx.map((i) => keyOf(s, i).year)).size;
-    return { month, years, ...summarise(idx, windows.filter((w) => keyOf(s, w.start).month === month), years) };
+    return {
+      month,
+      years,
+      ...summarise(
+        idx,
+        windows.filter((w) => keyOf(s, w.start).month === month),
+        years,
+      ),
+    };
   });
   return { months, yearMonths };
 }
@@ -258,7 +268,10 @@ describe('go-starts and workable runs against brute force', () => {
 });
 
 describe('monthlyStatistics against brute force', () => {
-  for (const [zone, keyOf] of [['UTC', utcKey], ['Europe/Oslo', osloKey]] as const) {
+  for (const [zone, keyOf] of [
+    ['UTC', utcKey],
+    ['Europe/Oslo', osloKey],
+  ] as const) {
     it(`6-hourly series over months and years, months in ${zone}`, () => {
       fc.assert(
         fc.property(sampleArb(6 * HOUR, 500, 120), (s) => {
@@ -304,7 +317,10 @@ describe('monthlyStatistics against brute force', () => {
     fc.assert(
       fc.property(
         sampleArb(HOUR, 300, 2).chain((s) =>
-          fc.tuple(fc.constant(s), fc.array(fc.integer({ min: 2001 * 12, max: 2001 * 12 + 30 }), { minLength: s.times.length, maxLength: s.times.length })),
+          fc.tuple(
+            fc.constant(s),
+            fc.array(fc.integer({ min: 2001 * 12, max: 2001 * 12 + 30 }), { minLength: s.times.length, maxLength: s.times.length }),
+          ),
         ),
         ([s, yms]) => {
           const times = Float64Array.from(s.times);

@@ -70,7 +70,10 @@ describe('zonedMonthStartMs: first instant of a calendar month in a zone', () =>
   it('when 00:00 on the 1st does not exist, the month starts at the change (checked with TZDate)', () => {
     // Zones whose clocks jumped from 00:00 to 01:00 on the 1st (IANA data, read through the runtime):
     // Africa/Cairo 2014-08-01, Africa/Tripoli 1982-04-01.
-    for (const [zone, y, m] of [['Africa/Cairo', 2014, 8], ['Africa/Tripoli', 1982, 4]] as const) {
+    for (const [zone, y, m] of [
+      ['Africa/Cairo', 2014, 8],
+      ['Africa/Tripoli', 1982, 4],
+    ] as const) {
       const s = zonedMonthStartMs(y, m, zone);
       const at = new TZDate(s, zone);
       expect([at.getFullYear(), at.getMonth() + 1, at.getDate(), at.getHours()]).toEqual([y, m, 1, 1]);

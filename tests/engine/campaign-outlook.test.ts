@@ -1,7 +1,14 @@
 import { quantile } from 'd3-array';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { hindcastYearShifts, outlookPercentiles, outlookStart, simulateCampaign, simulateOutlook, type OutlookForecastMember } from '../../shared/engine';
+import {
+  hindcastYearShifts,
+  outlookPercentiles,
+  outlookStart,
+  simulateCampaign,
+  simulateOutlook,
+  type OutlookForecastMember,
+} from '../../shared/engine';
 
 const HOUR = 3_600_000;
 
@@ -111,9 +118,23 @@ describe('simulateOutlook against a brute-force simulation (issue 21 rule; docs/
           );
           const fcFlags = tpopH.map(() => Uint8Array.from(fcTimes, () => (r() < 1 / 30 ? 1 : 0)));
           const nowMs = fcStart + nowOffsetH * HOUR + 17 * 60_000; // not on a record
-          const member: OutlookForecastMember = { label: 'forecast', timeMs: fcTimes, endMs: fcTimes[fcTimes.length - 1] + HOUR, goStart: fcFlags };
-          const samples = simulateOutlook({ startMs: nowMs, tpopH, members: withForecast ? [member] : [], hindcast: { timeMs: hindTimes, stepMs: HOUR, goStart: hindFlags } });
-          const brute = bruteForce(nowMs, tpopH, withForecast ? { timeMs: fcTimes, endMs: member.endMs, flags: fcFlags } : null, { timeMs: hindTimes, stepMs: HOUR, flags: hindFlags });
+          const member: OutlookForecastMember = {
+            label: 'forecast',
+            timeMs: fcTimes,
+            endMs: fcTimes[fcTimes.length - 1] + HOUR,
+            goStart: fcFlags,
+          };
+          const samples = simulateOutlook({
+            startMs: nowMs,
+            tpopH,
+            members: withForecast ? [member] : [],
+            hindcast: { timeMs: hindTimes, stepMs: HOUR, goStart: hindFlags },
+          });
+          const brute = bruteForce(nowMs, tpopH, withForecast ? { timeMs: fcTimes, endMs: member.endMs, flags: fcFlags } : null, {
+            timeMs: hindTimes,
+            stepMs: HOUR,
+            flags: hindFlags,
+          });
           expect(samples.map((s) => [s.year, s.finishMs])).toEqual(brute.map((b) => [b.year, b.finishMs]));
           for (const s of samples) expect(s.censored).toBe(s.finishMs === null);
 
@@ -165,8 +186,21 @@ describe('simulateOutlook against a brute-force simulation (issue 21 rule; docs/
     const flags = [Uint8Array.from(hindTimes, () => (r() < 0.02 ? 1 : 0)), Uint8Array.from(hindTimes, () => (r() < 0.01 ? 1 : 0))];
     // Now is the 1st of March at 00:00 UTC of a future year: the start date simulateCampaign uses.
     const nowMs = Date.UTC(2027, 2, 1);
-    const samples = simulateOutlook({ startMs: nowMs, tpopH: [8, 20], members: [], hindcast: { timeMs: hindTimes, stepMs: HOUR, goStart: flags } });
-    const [march] = simulateCampaign(hindTimes, HOUR, [{ goStart: flags[0], tpopH: 8 }, { goStart: flags[1], tpopH: 20 }], { startMonths: [3] });
+    const samples = simulateOutlook({
+      startMs: nowMs,
+      tpopH: [8, 20],
+      members: [],
+      hindcast: { timeMs: hindTimes, stepMs: HOUR, goStart: flags },
+    });
+    const [march] = simulateCampaign(
+      hindTimes,
+      HOUR,
+      [
+        { goStart: flags[0], tpopH: 8 },
+        { goStart: flags[1], tpopH: 20 },
+      ],
+      { startMonths: [3] },
+    );
     expect(samples.map((s) => s.year)).toEqual(march.runs.map((x) => x.year));
     samples.forEach((s, i) => {
       const run = march.runs[i];
@@ -180,7 +214,12 @@ describe('simulateOutlook against a brute-force simulation (issue 21 rule; docs/
     const none = [new Uint8Array(fcTimes.length)];
     const always = [new Uint8Array(hindTimes.length).fill(1)];
     const endMs = fcTimes[fcTimes.length - 1] + HOUR;
-    const samples = simulateOutlook({ startMs: fcStart, tpopH: [5], members: [{ label: 'forecast', timeMs: fcTimes, endMs, goStart: none }], hindcast: { timeMs: hindTimes, stepMs: HOUR, goStart: always } });
+    const samples = simulateOutlook({
+      startMs: fcStart,
+      tpopH: [5],
+      members: [{ label: 'forecast', timeMs: fcTimes, endMs, goStart: none }],
+      hindcast: { timeMs: hindTimes, stepMs: HOUR, goStart: always },
+    });
     for (const s of samples) {
       expect(s.stepStartMs).toEqual([endMs]);
       expect(s.stepsInForecast).toBe(0);
@@ -199,17 +238,31 @@ describe('outlookStart: where the remaining work starts', () => {
   it('marking step 1 done moves every sample to step 2 from its actual end (never before now)', () => {
     expect(outlookStart([], [10, 20, 30], now)).toEqual({ firstIndex: 0, startMs: now });
     const doneAt = now;
-    expect(outlookStart([{ status: 'done', startedMs: now - 15 * HOUR, doneMs: doneAt }], [10, 20, 30], now)).toEqual({ firstIndex: 1, startMs: doneAt });
+    expect(outlookStart([{ status: 'done', startedMs: now - 15 * HOUR, doneMs: doneAt }], [10, 20, 30], now)).toEqual({
+      firstIndex: 1,
+      startMs: doneAt,
+    });
     // Ended yesterday: step 2 has not started since, so it can start from now.
-    expect(outlookStart([{ status: 'done', startedMs: null, doneMs: now - 24 * HOUR }], [10, 20, 30], now)).toEqual({ firstIndex: 1, startMs: now });
+    expect(outlookStart([{ status: 'done', startedMs: null, doneMs: now - 24 * HOUR }], [10, 20, 30], now)).toEqual({
+      firstIndex: 1,
+      startMs: now,
+    });
     // The engine's own rule for an end later than the clock (e.g. a clock behind): the actual end.
-    expect(outlookStart([{ status: 'done', startedMs: null, doneMs: now + 2 * HOUR }], [10, 20, 30], now)).toEqual({ firstIndex: 1, startMs: now + 2 * HOUR });
+    expect(outlookStart([{ status: 'done', startedMs: null, doneMs: now + 2 * HOUR }], [10, 20, 30], now)).toEqual({
+      firstIndex: 1,
+      startMs: now + 2 * HOUR,
+    });
 
     // Every sample's step-2 start is then its first go-start at or after the actual end.
     const times = hourlyAxis(2001, 2002);
     const flags = Uint8Array.from(times, (_, i) => (i % 37 === 0 ? 1 : 0));
     const { firstIndex, startMs } = outlookStart([{ status: 'done', startedMs: null, doneMs: now + 2 * HOUR }], [10, 20], now);
-    const samples = simulateOutlook({ startMs, tpopH: [20].slice(firstIndex - 1), members: [], hindcast: { timeMs: times, stepMs: HOUR, goStart: [flags] } });
+    const samples = simulateOutlook({
+      startMs,
+      tpopH: [20].slice(firstIndex - 1),
+      members: [],
+      hindcast: { timeMs: times, stepMs: HOUR, goStart: [flags] },
+    });
     for (const s of samples) {
       // The same calendar time in the sample's year: the first go-start at or after it.
       const mapped = Date.UTC(s.year, 5, 10, 14);
@@ -221,7 +274,16 @@ describe('outlookStart: where the remaining work starts', () => {
   });
 
   it('a step under way is assumed to run on: the next step starts no earlier than its start + TPOP', () => {
-    expect(outlookStart([{ status: 'done', startedMs: null, doneMs: now - 48 * HOUR }, { status: 'started', startedMs: now - 5 * HOUR, doneMs: null }], [10, 20, 30], now)).toEqual({
+    expect(
+      outlookStart(
+        [
+          { status: 'done', startedMs: null, doneMs: now - 48 * HOUR },
+          { status: 'started', startedMs: now - 5 * HOUR, doneMs: null },
+        ],
+        [10, 20, 30],
+        now,
+      ),
+    ).toEqual({
       firstIndex: 2,
       startMs: now + 15 * HOUR,
     });

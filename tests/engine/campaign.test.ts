@@ -19,7 +19,10 @@ describe('simulateCampaign (docs/domain.md#hindcast-statistics, #convention-15)'
   const never = new Uint8Array(n);
 
   it('a calm year finishes in the sum of TPOP', () => {
-    const res = simulateCampaign(times, HOUR, [{ goStart: always, tpopH: 10 }, { goStart: always, tpopH: 20 }]);
+    const res = simulateCampaign(times, HOUR, [
+      { goStart: always, tpopH: 10 },
+      { goStart: always, tpopH: 20 },
+    ]);
     expect(res).toHaveLength(12);
     for (const r of res) {
       expect(r.years).toBe(3);
@@ -32,7 +35,15 @@ describe('simulateCampaign (docs/domain.md#hindcast-statistics, #convention-15)'
   });
 
   it('a step that never gets a window is censored, every year', () => {
-    const res = simulateCampaign(times, HOUR, [{ goStart: always, tpopH: 10 }, { goStart: never, tpopH: 20 }], { startMonths: [3] });
+    const res = simulateCampaign(
+      times,
+      HOUR,
+      [
+        { goStart: always, tpopH: 10 },
+        { goStart: never, tpopH: 20 },
+      ],
+      { startMonths: [3] },
+    );
     expect(res).toHaveLength(1);
     expect(res[0].startMonth).toBe(3);
     expect(res[0].censoredYears).toEqual([2001, 2002, 2003]);
@@ -46,17 +57,41 @@ describe('simulateCampaign (docs/domain.md#hindcast-statistics, #convention-15)'
       const d = new Date(t);
       if (d.getUTCDate() === 3 && d.getUTCHours() === 0) third[i] = 1;
     });
-    const [r] = simulateCampaign(times, HOUR, [{ goStart: third, tpopH: 10 }, { goStart: always, tpopH: 20 }], { startMonths: [7] });
+    const [r] = simulateCampaign(
+      times,
+      HOUR,
+      [
+        { goStart: third, tpopH: 10 },
+        { goStart: always, tpopH: 20 },
+      ],
+      { startMonths: [7] },
+    );
     expect([r.p50Hours, r.wowP50Hours, r.p90Hours, r.wowP90Hours]).toEqual([78, 48, 78, 48]);
     // Second step first: always at start (0-20 h), then the 3rd 00:00 (48 h) + 10 h.
-    const [q] = simulateCampaign(times, HOUR, [{ goStart: always, tpopH: 20 }, { goStart: third, tpopH: 10 }], { startMonths: [7] });
+    const [q] = simulateCampaign(
+      times,
+      HOUR,
+      [
+        { goStart: always, tpopH: 20 },
+        { goStart: third, tpopH: 10 },
+      ],
+      { startMonths: [7] },
+    );
     expect(q.p50Hours).toBe(58);
     expect(q.wowP50Hours).toBe(28);
   });
 
   it('a step at another worksite with its own 3-hourly axis', () => {
     const t3 = Float64Array.from({ length: Math.floor(n / 3) }, (_, i) => times[0] + i * 3 * HOUR);
-    const [r] = simulateCampaign(times, HOUR, [{ goStart: always, tpopH: 10 }, { goStart: new Uint8Array(t3.length).fill(1), tpopH: 20, timeMs: t3 }], { startMonths: [2] });
+    const [r] = simulateCampaign(
+      times,
+      HOUR,
+      [
+        { goStart: always, tpopH: 10 },
+        { goStart: new Uint8Array(t3.length).fill(1), tpopH: 20, timeMs: t3 },
+      ],
+      { startMonths: [2] },
+    );
     // Step 1 ends at 10 h; the next 3-hourly go-start is at 12 h; + 20 h = 32 h.
     expect(r.p50Hours).toBe(32);
     expect(r.wowP50Hours).toBe(2);
@@ -75,29 +110,33 @@ describe('simulateCampaign (docs/domain.md#hindcast-statistics, #convention-15)'
   it('percentiles over the non-censored years match d3-array quantile (R-7, reference library)', () => {
     const axis = hourlyAxis(2001, 2010);
     fc.assert(
-      fc.property(fc.array(fc.integer({ min: 0, max: 27 * 24 }), { minLength: 120, maxLength: 120 }), fc.integer({ min: 1, max: 12 }), (delays, month) => {
-        // One go-start a month, `delay` hours after the 1st 00:00 UTC; none in December 2010, so a
-        // December start in 2010 is censored.
-        const flags = new Uint8Array(axis.length);
-        delays.forEach((delay, k) => {
-          const y = 2001 + Math.floor(k / 12);
-          const m = k % 12;
-          if (y === 2010 && m === 11) return;
-          flags[(Date.UTC(y, m, 1) - axis[0]) / HOUR + delay] = 1;
-        });
-        const [r] = simulateCampaign(axis, HOUR, [{ goStart: flags, tpopH: 6 }], { startMonths: [month] });
-        const expected: number[] = [];
-        const censored: number[] = [];
-        for (let y = 2001; y <= 2010; y++) {
-          if (y === 2010 && month === 12) censored.push(y);
-          else expected.push(delays[(y - 2001) * 12 + month - 1] + 6);
-        }
-        expect(r.censoredYears).toEqual(censored);
-        expect(r.years).toBe(10);
-        expect(r.p50Hours).toBeCloseTo(quantile(expected, 0.5) as number, 9);
-        expect(r.p90Hours).toBeCloseTo(quantile(expected, 0.9) as number, 9);
-        expect(r.wowP90Hours).toBeCloseTo((quantile(expected, 0.9) as number) - 6, 9);
-      }),
+      fc.property(
+        fc.array(fc.integer({ min: 0, max: 27 * 24 }), { minLength: 120, maxLength: 120 }),
+        fc.integer({ min: 1, max: 12 }),
+        (delays, month) => {
+          // One go-start a month, `delay` hours after the 1st 00:00 UTC; none in December 2010, so a
+          // December start in 2010 is censored.
+          const flags = new Uint8Array(axis.length);
+          delays.forEach((delay, k) => {
+            const y = 2001 + Math.floor(k / 12);
+            const m = k % 12;
+            if (y === 2010 && m === 11) return;
+            flags[(Date.UTC(y, m, 1) - axis[0]) / HOUR + delay] = 1;
+          });
+          const [r] = simulateCampaign(axis, HOUR, [{ goStart: flags, tpopH: 6 }], { startMonths: [month] });
+          const expected: number[] = [];
+          const censored: number[] = [];
+          for (let y = 2001; y <= 2010; y++) {
+            if (y === 2010 && month === 12) censored.push(y);
+            else expected.push(delays[(y - 2001) * 12 + month - 1] + 6);
+          }
+          expect(r.censoredYears).toEqual(censored);
+          expect(r.years).toBe(10);
+          expect(r.p50Hours).toBeCloseTo(quantile(expected, 0.5) as number, 9);
+          expect(r.p90Hours).toBeCloseTo(quantile(expected, 0.9) as number, 9);
+          expect(r.wowP90Hours).toBeCloseTo((quantile(expected, 0.9) as number) - 6, 9);
+        },
+      ),
       { numRuns: 100 },
     );
   });

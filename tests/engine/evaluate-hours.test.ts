@@ -31,9 +31,23 @@ describe('evaluateHours: each limit alone, inclusive (docs/domain.md#convention-
   });
 
   it('excluded Tp bands are closed: both edges excluded', () => {
-    const op = oplim({ tpExcluded: [[8, 9], [13, 14]] });
+    const op = oplim({
+      tpExcluded: [
+        [8, 9],
+        [13, 14],
+      ],
+    });
     expect(statuses({ tpS: [7.99, 8, 8.5, 9, 9.01, 12.99, 13, 14, 14.01, NaN] }, op)).toEqual([
-      WORKABLE, NOT_WORKABLE, NOT_WORKABLE, NOT_WORKABLE, WORKABLE, WORKABLE, NOT_WORKABLE, NOT_WORKABLE, WORKABLE, NO_DATA,
+      WORKABLE,
+      NOT_WORKABLE,
+      NOT_WORKABLE,
+      NOT_WORKABLE,
+      WORKABLE,
+      WORKABLE,
+      NOT_WORKABLE,
+      NOT_WORKABLE,
+      WORKABLE,
+      NO_DATA,
     ]);
   });
 
@@ -45,8 +59,20 @@ describe('evaluateHours: each limit alone, inclusive (docs/domain.md#convention-
       bedVelocitySoulsbyMps: [0.9, 0.1, 0.5, 0.1, 0.1],
     };
     expect(statuses(cols, oplim({ bedVelocityMax: 0.5 }))).toEqual([WORKABLE, NOT_WORKABLE, WORKABLE, NO_DATA, NO_DATA]);
-    expect(statuses(cols, oplim({ bedVelocityMax: 0.5, bedVelocityMethod: 'linear' }))).toEqual([WORKABLE, NOT_WORKABLE, WORKABLE, NO_DATA, NO_DATA]);
-    expect(statuses(cols, oplim({ bedVelocityMax: 0.5, bedVelocityMethod: 'soulsby' }))).toEqual([NOT_WORKABLE, WORKABLE, WORKABLE, NO_DATA, NO_DATA]);
+    expect(statuses(cols, oplim({ bedVelocityMax: 0.5, bedVelocityMethod: 'linear' }))).toEqual([
+      WORKABLE,
+      NOT_WORKABLE,
+      WORKABLE,
+      NO_DATA,
+      NO_DATA,
+    ]);
+    expect(statuses(cols, oplim({ bedVelocityMax: 0.5, bedVelocityMethod: 'soulsby' }))).toEqual([
+      NOT_WORKABLE,
+      WORKABLE,
+      WORKABLE,
+      NO_DATA,
+      NO_DATA,
+    ]);
   });
 
   it('wind max: equal meets; needs only wind', () => {
@@ -57,7 +83,13 @@ describe('evaluateHours: each limit alone, inclusive (docs/domain.md#convention-
 
 describe('evaluateHours: Hs-Tp curve (docs/domain.md#convention-6: range closed, outside not workable)', () => {
   // Curve points (Tp s, Hs m): (4, 1.0), (8, 2.0), (12, 1.5).
-  const op = oplim({ hsTpCurve: [[4, 1], [8, 2], [12, 1.5]] });
+  const op = oplim({
+    hsTpCurve: [
+      [4, 1],
+      [8, 2],
+      [12, 1.5],
+    ],
+  });
 
   it('exactly on the edges of the Tp range is inside; just outside is not workable even in calm seas', () => {
     expect(statuses({ tpS: [4, 12, 3.99, 12.01], hsM: [1, 1.5, 0, 0] }, op)).toEqual([WORKABLE, WORKABLE, NOT_WORKABLE, NOT_WORKABLE]);
@@ -106,9 +138,25 @@ describe('evaluateHours: alpha and the marginal status (docs/domain.md#conventio
   it('the curve takes alpha at the curve value for the record Tp', () => {
     // TPOP 12 h (row 12 h). Tp 6 s: curve 1.5 m, alpha = 0.65 + 0.5 * (0.76 - 0.65) = 0.705,
     // OPWF = 1.0575 m. Tp 8 s: curve 2.0 m, alpha 0.76, OPWF 1.52 m.
-    const curveOp: OperationSpec = { tpopH: 12, tcH: 0, weatherRestricted: true, limits: { hsTpCurve: [[4, 1], [8, 2], [12, 1.5]] } };
+    const curveOp: OperationSpec = {
+      tpopH: 12,
+      tcH: 0,
+      weatherRestricted: true,
+      limits: {
+        hsTpCurve: [
+          [4, 1],
+          [8, 2],
+          [12, 1.5],
+        ],
+      },
+    };
     expect(statuses({ tpS: [6, 6, 6, 6, 8, 8], hsM: [1.05, 1.06, 1.5, 1.51, 1.52, 1.53] }, curveOp)).toEqual([
-      WORKABLE, MARGINAL, MARGINAL, NOT_WORKABLE, WORKABLE, MARGINAL,
+      WORKABLE,
+      MARGINAL,
+      MARGINAL,
+      NOT_WORKABLE,
+      WORKABLE,
+      MARGINAL,
     ]);
   });
 
@@ -172,20 +220,39 @@ describe('evaluateHours: no data wins, limiting factor and margins', () => {
     const ev = evaluateHours(series, oplim({ hsMax: 2 }), { alphaTable: DEFAULT_ALPHA_TABLE, out });
     expect(ev.status).toBe(out.status);
     expect(Array.from(out.status)).toEqual([WORKABLE, NOT_WORKABLE]);
-    expect(() => evaluateHours(series, oplim({ hsMax: 2 }), { alphaTable: DEFAULT_ALPHA_TABLE, out: { ...out, status: new Uint8Array(3) } })).toThrow(RangeError);
+    expect(() =>
+      evaluateHours(series, oplim({ hsMax: 2 }), { alphaTable: DEFAULT_ALPHA_TABLE, out: { ...out, status: new Uint8Array(3) } }),
+    ).toThrow(RangeError);
   });
 
   it('rejects an operation without limits and a malformed curve', () => {
     const series = makeSeries({ hsM: [1] });
     expect(() => evaluateHours(series, oplim({}), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
-    expect(() => evaluateHours(series, oplim({ hsTpCurve: [[8, 1], [6, 2]] }), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
+    expect(() =>
+      evaluateHours(
+        series,
+        oplim({
+          hsTpCurve: [
+            [8, 1],
+            [6, 2],
+          ],
+        }),
+        { alphaTable: DEFAULT_ALPHA_TABLE },
+      ),
+    ).toThrow(RangeError);
     expect(() => evaluateHours(series, oplim({ tpExcluded: [[9, 8]] }), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
   });
 });
 
 // Issue 22: the hour chain said "outside the curve" without saying why.
 describe('the hour chain says why the Hs-Tp curve failed', () => {
-  const curveOp = oplim({ hsTpCurve: [[6, 1.2], [10, 2], [14, 1.5]] });
+  const curveOp = oplim({
+    hsTpCurve: [
+      [6, 1.2],
+      [10, 2],
+      [14, 1.5],
+    ],
+  });
   const hour = (hsM: number, tpS: number) => ({ hsM, tpS, bedVelocityLinearMps: NaN, bedVelocitySoulsbyMps: NaN, windMps: NaN });
   const curveCheck = (hsM: number, tpS: number) => explainHour(hour(hsM, tpS), curveOp, DEFAULT_ALPHA_TABLE).checks[0];
 

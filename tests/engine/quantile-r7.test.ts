@@ -25,7 +25,10 @@ describe('quantileR7: Hyndman & Fan type 7', () => {
   it('matches d3-array quantile (R-7, reference library) on random samples with ties, NaN ignored', () => {
     fc.assert(
       fc.property(
-        fc.array(fc.oneof(fc.integer({ min: -50, max: 50 }), fc.double({ min: -1e6, max: 1e6, noNaN: true }), fc.constant(NaN)), { minLength: 1, maxLength: 3000 }),
+        fc.array(fc.oneof(fc.integer({ min: -50, max: 50 }), fc.double({ min: -1e6, max: 1e6, noNaN: true }), fc.constant(NaN)), {
+          minLength: 1,
+          maxLength: 3000,
+        }),
         fc.double({ min: 0, max: 1, noNaN: true }),
         (xs, p) => {
           const ref = quantile(xs, p);
@@ -40,10 +43,14 @@ describe('quantileR7: Hyndman & Fan type 7', () => {
 
   it('quantileR7Sorted matches d3-array quantile on sorted samples', () => {
     fc.assert(
-      fc.property(fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 1, maxLength: 200 }), fc.double({ min: 0, max: 1, noNaN: true }), (xs, p) => {
-        const sorted = [...xs].sort((a, b) => a - b);
-        expect(quantileR7Sorted(sorted, p)).toBeCloseTo(quantile(sorted, p) as number, 9);
-      }),
+      fc.property(
+        fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { minLength: 1, maxLength: 200 }),
+        fc.double({ min: 0, max: 1, noNaN: true }),
+        (xs, p) => {
+          const sorted = [...xs].sort((a, b) => a - b);
+          expect(quantileR7Sorted(sorted, p)).toBeCloseTo(quantile(sorted, p) as number, 9);
+        },
+      ),
     );
   });
 

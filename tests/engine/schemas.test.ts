@@ -5,13 +5,30 @@ describe('operationLimitsSchema', () => {
   it('accepts each limit alone and a full set', () => {
     for (const limits of [
       { hsMax: 2 },
-      { hsTpCurve: [[4, 1], [8, 2]] },
+      {
+        hsTpCurve: [
+          [4, 1],
+          [8, 2],
+        ],
+      },
       { tpMin: 5 },
       { tpMax: 12 },
       { tpExcluded: [[8, 9]] },
       { bedVelocityMax: 0.4, bedVelocityMethod: 'soulsby' },
       { windMax: 15 },
-      { hsMax: 2, hsTpCurve: null, tpMin: 4, tpMax: 14, tpExcluded: [[8, 9], [11, 12]], bedVelocityMax: 0.5, bedVelocityMethod: 'linear', windMax: 12 },
+      {
+        hsMax: 2,
+        hsTpCurve: null,
+        tpMin: 4,
+        tpMax: 14,
+        tpExcluded: [
+          [8, 9],
+          [11, 12],
+        ],
+        bedVelocityMax: 0.5,
+        bedVelocityMethod: 'linear',
+        windMax: 12,
+      },
     ]) {
       expect(operationLimitsSchema.safeParse(limits).success, JSON.stringify(limits)).toBe(true);
     }
@@ -23,15 +40,44 @@ describe('operationLimitsSchema', () => {
   });
 
   it('enforces the ranges', () => {
-    for (const bad of [{ hsMax: 0.05 }, { hsMax: 25 }, { tpMin: 0.4 }, { tpMax: 41 }, { bedVelocityMax: 0.005 }, { bedVelocityMax: 11 }, { windMax: 0.2 }, { windMax: 61 }, { hsTpCurve: [[4, 1], [50, 2]] }]) {
+    for (const bad of [
+      { hsMax: 0.05 },
+      { hsMax: 25 },
+      { tpMin: 0.4 },
+      { tpMax: 41 },
+      { bedVelocityMax: 0.005 },
+      { bedVelocityMax: 11 },
+      { windMax: 0.2 },
+      { windMax: 61 },
+      {
+        hsTpCurve: [
+          [4, 1],
+          [50, 2],
+        ],
+      },
+    ]) {
       expect(operationLimitsSchema.safeParse(bad).success, JSON.stringify(bad)).toBe(false);
     }
   });
 
   it('curve: at least two points, strictly ascending Tp; bands: from < to; Tp min <= Tp max', () => {
     expect(operationLimitsSchema.safeParse({ hsTpCurve: [[4, 1]] }).success).toBe(false);
-    expect(operationLimitsSchema.safeParse({ hsTpCurve: [[8, 1], [6, 2]] }).success).toBe(false);
-    expect(operationLimitsSchema.safeParse({ hsTpCurve: [[6, 1], [6, 2]] }).success).toBe(false);
+    expect(
+      operationLimitsSchema.safeParse({
+        hsTpCurve: [
+          [8, 1],
+          [6, 2],
+        ],
+      }).success,
+    ).toBe(false);
+    expect(
+      operationLimitsSchema.safeParse({
+        hsTpCurve: [
+          [6, 1],
+          [6, 2],
+        ],
+      }).success,
+    ).toBe(false);
     expect(operationLimitsSchema.safeParse({ tpExcluded: [[9, 9]] }).success).toBe(false);
     expect(operationLimitsSchema.safeParse({ tpMin: 10, tpMax: 8 }).success).toBe(false);
     expect(operationLimitsSchema.safeParse({ bedVelocityMax: 0.5, bedVelocityMethod: 'other' }).success).toBe(false);

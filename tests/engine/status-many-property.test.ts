@@ -29,17 +29,35 @@ const limitsArb: fc.Arbitrary<OperationLimits> = fc
       hsMax: fc.double({ min: 0.5, max: 6, noNaN: true }).map(round2),
       hsTpCurve: fc
         .uniqueArray(fc.integer({ min: 3, max: 20 }), { minLength: 2, maxLength: 5 })
-        .chain((tps) => fc.tuple(...tps.sort((a, b) => a - b).map((tp) => fc.double({ min: 0.3, max: 5, noNaN: true }).map((hs) => [tp, round2(hs)] as [number, number])))),
+        .chain((tps) =>
+          fc.tuple(
+            ...tps
+              .sort((a, b) => a - b)
+              .map((tp) => fc.double({ min: 0.3, max: 5, noNaN: true }).map((hs) => [tp, round2(hs)] as [number, number])),
+          ),
+        ),
       tpMin: fc.integer({ min: 3, max: 8 }),
       tpMax: fc.integer({ min: 9, max: 18 }),
-      tpExcluded: fc.array(fc.tuple(fc.integer({ min: 4, max: 16 }), fc.integer({ min: 1, max: 3 })).map(([a, w]) => [a, a + w] as [number, number]), { minLength: 1, maxLength: 2 }),
+      tpExcluded: fc.array(
+        fc.tuple(fc.integer({ min: 4, max: 16 }), fc.integer({ min: 1, max: 3 })).map(([a, w]) => [a, a + w] as [number, number]),
+        { minLength: 1, maxLength: 2 },
+      ),
       bedVelocityMax: fc.constantFrom(0.2, 0.35, 0.5),
       bedVelocityMethod: fc.constantFrom('linear' as const, 'soulsby' as const),
       windMax: fc.constantFrom(8, 12, 15),
     },
     { requiredKeys: [] },
   )
-  .filter((l) => l.hsMax != null || l.hsTpCurve != null || l.tpMin != null || l.tpMax != null || l.tpExcluded != null || l.bedVelocityMax != null || l.windMax != null);
+  .filter(
+    (l) =>
+      l.hsMax != null ||
+      l.hsTpCurve != null ||
+      l.tpMin != null ||
+      l.tpMax != null ||
+      l.tpExcluded != null ||
+      l.bedVelocityMax != null ||
+      l.windMax != null,
+  );
 
 const opArb: fc.Arbitrary<OperationSpec> = fc.record({
   tpopH: fc.constantFrom(3, 12, 20, 36, 48, 60, 72, 80),
@@ -51,7 +69,12 @@ const opArb: fc.Arbitrary<OperationSpec> = fc.record({
 /** Values on the operations' own edges, next to them, anywhere, or missing. */
 function seriesArb(ops: OperationSpec[]): fc.Arbitrary<SiteSeries> {
   const hsEdges = ops.flatMap((op) => [op.limits.hsMax ?? 1, ...(op.limits.hsTpCurve ?? []).map((p) => p[1])]);
-  const tpEdges = ops.flatMap((op) => [op.limits.tpMin ?? 6, op.limits.tpMax ?? 12, ...(op.limits.hsTpCurve ?? []).map((p) => p[0]), ...(op.limits.tpExcluded ?? []).flat()]);
+  const tpEdges = ops.flatMap((op) => [
+    op.limits.tpMin ?? 6,
+    op.limits.tpMax ?? 12,
+    ...(op.limits.hsTpCurve ?? []).map((p) => p[0]),
+    ...(op.limits.tpExcluded ?? []).flat(),
+  ]);
   const around = (edges: number[], lo: number, hi: number) =>
     fc.oneof(
       { weight: 3, arbitrary: fc.constantFrom(...edges) },
@@ -62,7 +85,10 @@ function seriesArb(ops: OperationSpec[]): fc.Arbitrary<SiteSeries> {
   const vel = fc.oneof(fc.constantFrom(0.2, 0.35, 0.5), fc.double({ min: 0, max: 1, noNaN: true }), fc.constant(NaN));
   const wind = fc.oneof(fc.constantFrom(8, 12, 15), fc.double({ min: 0, max: 20, noNaN: true }), fc.constant(NaN));
   return fc
-    .array(fc.record({ hs: around(hsEdges, 0, 7), tp: around(tpEdges, 2, 22), lin: vel, soul: vel, wind }), { minLength: 1, maxLength: 120 })
+    .array(fc.record({ hs: around(hsEdges, 0, 7), tp: around(tpEdges, 2, 22), lin: vel, soul: vel, wind }), {
+      minLength: 1,
+      maxLength: 120,
+    })
     .map((recs) =>
       makeSeries({
         hsM: recs.map((r) => r.hs),
@@ -112,29 +138,32 @@ describe('evaluateStatusMany equals the general path, evaluateStatus', () => {
 
   it('the same usable windows and hindcast statistics over a long series with gaps', () => {
     fc.assert(
-      fc.property(
-        fc.array(opArb, { minLength: 1, maxLength: 6 }),
-        fc.integer({ min: 1, max: 1_000_000 }),
-        (ops, seed) => {
-          // Three months hourly with a few missing hours, values from a small deterministic generator.
-          let x = seed;
-          const rnd = () => ((x = (x * 1103515245 + 12345) % 2147483648) / 2147483648);
-          const times: number[] = [];
-          for (let h = 0; h < 24 * 92; h++) if (rnd() > 0.01) times.push(T0 + h * HOUR);
-          const col = (lo: number, hi: number) => times.map(() => (rnd() < 0.02 ? NaN : round2(lo + (hi - lo) * rnd())));
-          const series = makeSeries({ timeMs: times, hsM: col(0, 4), tpS: col(3, 16), bedVelocityLinearMps: col(0, 0.8), bedVelocitySoulsbyMps: col(0, 0.8), windMps: col(0, 18) });
-          const calendar = calendarIndex(series.timeMs, 'UTC');
-          const many = evaluateStatusMany(series, ops, { alphaTable: DEFAULT_ALPHA_TABLE });
-          ops.forEach((op, o) => {
-            const general = evaluateStatus(series, op, { alphaTable: DEFAULT_ALPHA_TABLE });
-            const tr = op.tpopH + op.tcH;
-            const stats = (st: Uint8Array) => monthlyStatistics(series.timeMs, st, goStarts(series.timeMs, st, HOUR, tr), HOUR, calendar, tr);
-            const windows = (st: Uint8Array) => usableWindows(series, op, st, HOUR, { alphaTable: DEFAULT_ALPHA_TABLE });
-            expect(stats(many[o])).toEqual(stats(general));
-            expect(windows(many[o])).toEqual(windows(general));
-          });
-        },
-      ),
+      fc.property(fc.array(opArb, { minLength: 1, maxLength: 6 }), fc.integer({ min: 1, max: 1_000_000 }), (ops, seed) => {
+        // Three months hourly with a few missing hours, values from a small deterministic generator.
+        let x = seed;
+        const rnd = () => (x = (x * 1103515245 + 12345) % 2147483648) / 2147483648;
+        const times: number[] = [];
+        for (let h = 0; h < 24 * 92; h++) if (rnd() > 0.01) times.push(T0 + h * HOUR);
+        const col = (lo: number, hi: number) => times.map(() => (rnd() < 0.02 ? NaN : round2(lo + (hi - lo) * rnd())));
+        const series = makeSeries({
+          timeMs: times,
+          hsM: col(0, 4),
+          tpS: col(3, 16),
+          bedVelocityLinearMps: col(0, 0.8),
+          bedVelocitySoulsbyMps: col(0, 0.8),
+          windMps: col(0, 18),
+        });
+        const calendar = calendarIndex(series.timeMs, 'UTC');
+        const many = evaluateStatusMany(series, ops, { alphaTable: DEFAULT_ALPHA_TABLE });
+        ops.forEach((op, o) => {
+          const general = evaluateStatus(series, op, { alphaTable: DEFAULT_ALPHA_TABLE });
+          const tr = op.tpopH + op.tcH;
+          const stats = (st: Uint8Array) => monthlyStatistics(series.timeMs, st, goStarts(series.timeMs, st, HOUR, tr), HOUR, calendar, tr);
+          const windows = (st: Uint8Array) => usableWindows(series, op, st, HOUR, { alphaTable: DEFAULT_ALPHA_TABLE });
+          expect(stats(many[o])).toEqual(stats(general));
+          expect(windows(many[o])).toEqual(windows(general));
+        });
+      }),
       { numRuns: 30 },
     );
   });
@@ -160,6 +189,8 @@ describe('evaluateStatusMany falls back to the general path for limit kinds it d
     const series = makeSeries({ hsM: [1], tpS: [8] });
     const bad: OperationSpec = { tpopH: 6, tcH: 2, weatherRestricted: true, limits: { hsMax: -1 } };
     expect(() => evaluateStatusMany(series, [bad], { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(/Hs max must be positive/);
-    expect(() => evaluateStatusMany(series, [{ ...bad, limits: { hsMax: 1 } }], { alphaTable: DEFAULT_ALPHA_TABLE, out: [new Uint8Array(0)] })).toThrow(RangeError);
+    expect(() =>
+      evaluateStatusMany(series, [{ ...bad, limits: { hsMax: 1 } }], { alphaTable: DEFAULT_ALPHA_TABLE, out: [new Uint8Array(0)] }),
+    ).toThrow(RangeError);
   });
 });

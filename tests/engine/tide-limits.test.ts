@@ -50,7 +50,12 @@ const op = (limits: OperationSpec['limits'], tpopH = 4, tcH = 2): OperationSpec 
 describe('tide window limit', () => {
   const highs = Array.from({ length: 8 }, (_, k) => T0 + 3.2 * HOUR + k * M2_MS);
   const lows = highs.map((h) => h + M2_MS / 2);
-  const tide: TideExtremes = { highMs: Float64Array.from(highs), lowMs: Float64Array.from(lows), fromMs: T0 - 24 * HOUR, toMs: T0 + 96 * HOUR };
+  const tide: TideExtremes = {
+    highMs: Float64Array.from(highs),
+    lowMs: Float64Array.from(lows),
+    fromMs: T0 - 24 * HOUR,
+    toMs: T0 + 96 * HOUR,
+  };
 
   it('matches a brute-force evaluation hour by hour, for high and low water and random windows', () => {
     fc.assert(
@@ -68,7 +73,11 @@ describe('tide window limit', () => {
           expect(ev.status[i]).toBe(expected);
           expect(st[i]).toBe(expected);
           if (!inside) expect(ev.limiting[i]).toBe(LIMIT.TIDE_WINDOW);
-          const ex = explainHour({ hsM: 0.5, tpS: 8, bedVelocityLinearMps: 0.1, bedVelocitySoulsbyMps: 0.1, windMps: 5, timeMs: t, tide }, spec, DEFAULT_ALPHA_TABLE);
+          const ex = explainHour(
+            { hsM: 0.5, tpS: 8, bedVelocityLinearMps: 0.1, bedVelocitySoulsbyMps: 0.1, windMps: 5, timeMs: t, tide },
+            spec,
+            DEFAULT_ALPHA_TABLE,
+          );
           expect(ex.status).toBe(inside ? 'workable' : 'not_workable');
         }
       }),
@@ -133,9 +142,20 @@ describe('depth and current limits', () => {
   it('a depth of exactly the minimum meets it; a dry hour breaks it; no depth is no data', () => {
     const spec = op({ minDepth: 2.5, minDepthParts: { draught: 2, clearance: 0.5 } });
     const s = series(3, [2.5, 2.4999, -0.3], null, undefined);
-    expect([...evaluateHours(s, spec, { alphaTable: DEFAULT_ALPHA_TABLE }).status]).toEqual([STATUS.WORKABLE, STATUS.NOT_WORKABLE, STATUS.NOT_WORKABLE]);
-    expect([...evaluateStatus(series(2, null, null, undefined), spec, { alphaTable: DEFAULT_ALPHA_TABLE })]).toEqual([STATUS.NO_DATA, STATUS.NO_DATA]);
-    const ex = explainHour({ hsM: 0.5, tpS: 8, bedVelocityLinearMps: 0.1, bedVelocitySoulsbyMps: 0.1, windMps: 5, depthM: 2.4 }, spec, DEFAULT_ALPHA_TABLE);
+    expect([...evaluateHours(s, spec, { alphaTable: DEFAULT_ALPHA_TABLE }).status]).toEqual([
+      STATUS.WORKABLE,
+      STATUS.NOT_WORKABLE,
+      STATUS.NOT_WORKABLE,
+    ]);
+    expect([...evaluateStatus(series(2, null, null, undefined), spec, { alphaTable: DEFAULT_ALPHA_TABLE })]).toEqual([
+      STATUS.NO_DATA,
+      STATUS.NO_DATA,
+    ]);
+    const ex = explainHour(
+      { hsM: 0.5, tpS: 8, bedVelocityLinearMps: 0.1, bedVelocitySoulsbyMps: 0.1, windMps: 5, depthM: 2.4 },
+      spec,
+      DEFAULT_ALPHA_TABLE,
+    );
     expect(ex.checks[0]).toMatchObject({ limit: 'minDepth', value: 2.4, oplim: 2.5, opwf: null, alpha: null, met: false });
     expect(ex.checks[0].label).toMatch(/draught 2 m \+ clearance 0.5 m/);
   });

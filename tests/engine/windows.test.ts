@@ -78,7 +78,11 @@ describe('go-starts and windows (docs/domain.md#weather-windows, #convention-9 t
   it('marginal and no data break runs; only workable counts', () => {
     const status = Uint8Array.from([W, W, M, W, W, D, W, W, W, N]);
     expect(flags(goStarts(times, status, HOUR, 2))).toEqual([1, 0, 0, 1, 0, 0, 1, 1, 0, 0]);
-    expect(workableRuns(times, status, HOUR).map((r) => [r.startIndex, r.count])).toEqual([[0, 2], [3, 2], [6, 3]]);
+    expect(workableRuns(times, status, HOUR).map((r) => [r.startIndex, r.count])).toEqual([
+      [0, 2],
+      [3, 2],
+      [6, 3],
+    ]);
   });
 
   it('a gap longer than 1.5 dt breaks a run; 1.5 dt exactly does not', () => {
@@ -86,7 +90,10 @@ describe('go-starts and windows (docs/domain.md#weather-windows, #convention-9 t
     const t = Float64Array.from(hoursAt([0, 1, 2, 3, 5, 6, 7, 8.5, 9.5, 10.5]));
     const status = new Uint8Array(10).fill(W);
     expect(detectStepMs(t)).toBe(HOUR);
-    expect(workableRuns(t, status, HOUR).map((r) => [r.startIndex, r.count])).toEqual([[0, 4], [4, 6]]);
+    expect(workableRuns(t, status, HOUR).map((r) => [r.startIndex, r.count])).toEqual([
+      [0, 4],
+      [4, 6],
+    ]);
     // TR 4 h: [0..3] is one go-start; from 5: records 5,6,7,8.5 etc.
     expect(flags(goStarts(t, status, HOUR, 4))).toEqual([1, 0, 0, 0, 1, 1, 1, 0, 0, 0]);
   });
@@ -116,7 +123,12 @@ describe('go-starts and windows (docs/domain.md#weather-windows, #convention-9 t
 describe('usableWindows: smallest margins (docs/domain.md#convention-16)', () => {
   it('per limit in the limit unit, Hs against OPWF, bands to the nearest edge, plus the relative figure', () => {
     // Not weather-restricted -> alpha 1. Window = records 1-3 (TR 3 h).
-    const op: OperationSpec = { tpopH: 2, tcH: 1, weatherRestricted: false, limits: { hsMax: 2, tpMin: 5, tpExcluded: [[8, 9]], windMax: 12 } };
+    const op: OperationSpec = {
+      tpopH: 2,
+      tcH: 1,
+      weatherRestricted: false,
+      limits: { hsMax: 2, tpMin: 5, tpExcluded: [[8, 9]], windMax: 12 },
+    };
     const series = makeSeries({
       hsM: [3, 1.0, 1.5, 1.2, 3],
       tpS: [6, 6, 7.5, 10, 6],

@@ -34,7 +34,9 @@ async function databaseState(pg: PGlite) {
         group by d.id order by d.id`,
     )
   ).rows;
-  const limits = (await pg.query<{ id: string; name: string; limits: string }>(`select id, name, limits::text as limits from operation order by id`)).rows;
+  const limits = (
+    await pg.query<{ id: string; name: string; limits: string }>(`select id, name, limits::text as limits from operation order by id`)
+  ).rows;
   const tables = (await pg.query<{ name: string }>(`select tablename as name from pg_tables where schemaname = 'public' order by 1`)).rows;
   const rows: Record<string, number> = {};
   for (const t of tables) rows[t.name] = (await pg.query<{ n: number }>(`select count(*)::int as n from "${t.name}"`)).rows[0].n;
@@ -70,7 +72,10 @@ function fingerprint(dir: string): string[] {
 
 const hourlyCsv = (startMs: number, hours: number) => {
   const lines = ['time,hs,tp,dir'];
-  for (let i = 0; i < hours; i++) lines.push(`${new Date(startMs + i * 3_600_000).toISOString()},${(1 + 0.5 * Math.sin(i / 50)).toFixed(3)},${(7 + (i % 5)).toFixed(1)},${(i * 7) % 360}`);
+  for (let i = 0; i < hours; i++)
+    lines.push(
+      `${new Date(startMs + i * 3_600_000).toISOString()},${(1 + 0.5 * Math.sin(i / 50)).toFixed(3)},${(7 + (i % 5)).toFixed(1)},${(i * 7) % 360}`,
+    );
   return lines.join('\n') + '\n';
 };
 
@@ -108,7 +113,10 @@ describe('backing up the embedded database', () => {
     expect(up.status, await up.clone().text()).toBe(201);
     uploadedId = ((await up.json()) as { id: string }).id;
 
-    const ops = (await (await fetch(`${base}/api/projects/${projectId}/operations`, { headers })).json()) as { id: string; limits: Record<string, unknown> }[];
+    const ops = (await (await fetch(`${base}/api/projects/${projectId}/operations`, { headers })).json()) as {
+      id: string;
+      limits: Record<string, unknown>;
+    }[];
     const op = ops.find((o) => typeof o.limits.hsMax === 'number')!;
     changedOperationId = op.id;
     const patch = await fetch(`${base}/api/projects/${projectId}/operations/${op.id}`, {
@@ -122,7 +130,9 @@ describe('backing up the embedded database', () => {
     const run = await runScript('scripts/db-backup.ts', [liveBackup], env);
     expect(run.code, run.stderr).toBe(0);
     expect(run.stdout).toContain('Asked the running server');
-    expect(run.stdout).toMatch(new RegExp(`Backup written: ${liveBackup.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} \\(\\d+(\\.\\d)? (kB|MB)\\)`));
+    expect(run.stdout).toMatch(
+      new RegExp(`Backup written: ${liveBackup.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')} \\(\\d+(\\.\\d)? (kB|MB)\\)`),
+    );
     expect(fs.readdirSync(backups)).toEqual(['live.tar.gz']); // no temporary file left
   }, 120_000);
 
@@ -160,12 +170,25 @@ describe('restoring it', () => {
     try {
       await database.db.delete(dataset).where(eq(dataset.id, uploadedId));
       const [op] = await database.db.select().from(operation).where(eq(operation.id, changedOperationId));
-      await database.db.update(operation).set({ limits: { ...op.limits, hsMax: 2.5 } }).where(eq(operation.id, op.id));
+      await database.db
+        .update(operation)
+        .set({ limits: { ...op.limits, hsMax: 2.5 } })
+        .where(eq(operation.id, op.id));
       const [p] = await database.db.select().from(project).limit(1);
       const t = Float64Array.from({ length: 48 }, (_, i) => Date.UTC(2025, 5, 1) + i * 3_600_000);
       await createDataset(
         database.db,
-        { projectId: p.id, createdBy: null, name: 'Added after the backup', kind: 'observation', dataPointName: '', dataPointLatitude: null, dataPointLongitude: null, dataPointDepthM: null, sourceKind: 'upload' },
+        {
+          projectId: p.id,
+          createdBy: null,
+          name: 'Added after the backup',
+          kind: 'observation',
+          dataPointName: '',
+          dataPointLatitude: null,
+          dataPointLongitude: null,
+          dataPointDepthM: null,
+          sourceKind: 'upload',
+        },
         toSeaSeries({ timeMs: t, hs: t.map(() => 1.5), tp: t.map(() => 8) }),
         {},
       );

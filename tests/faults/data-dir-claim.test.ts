@@ -25,7 +25,13 @@ describe('the data folder claim', () => {
     const dataDir = tempDataDir();
     const first = await startServer(dataDir, { SEED_DEMO: 'false' });
     servers.push(first);
-    const second = await runScript('server/index.ts', [], { DATA_DIR: dataDir, PORT: String(await freePort()), HOST: '127.0.0.1', SEED_DEMO: 'false', JOBS_ENABLED: 'false' });
+    const second = await runScript('server/index.ts', [], {
+      DATA_DIR: dataDir,
+      PORT: String(await freePort()),
+      HOST: '127.0.0.1',
+      SEED_DEMO: 'false',
+      JOBS_ENABLED: 'false',
+    });
     expect(second.code).toBe(1);
     expect(second.stderr).toContain(`Another Lullwatch server (pid ${first.pid}) is using ${dataDir}`);
     expect((await fetch(`${first.baseUrl}/api/health`)).status).toBe(200);
@@ -46,7 +52,13 @@ describe('the data folder claim', () => {
     expect(plan.stderr).toContain(`(pid ${process.pid}) is starting`);
     const restore = await runScript('scripts/db-restore.ts', [path.join(dataDir, 'b.tar.gz')], env);
     expect(restore.code).toBe(2);
-    const server = await runScript('server/index.ts', [], { ...env, PORT: String(await freePort()), HOST: '127.0.0.1', SEED_DEMO: 'false', JOBS_ENABLED: 'false' });
+    const server = await runScript('server/index.ts', [], {
+      ...env,
+      PORT: String(await freePort()),
+      HOST: '127.0.0.1',
+      SEED_DEMO: 'false',
+      JOBS_ENABLED: 'false',
+    });
     expect(server.code).toBe(1);
     expect(server.stderr).toContain(`Another Lullwatch server (pid ${process.pid})`);
     // Nothing opened the folder: no database was created in it.

@@ -174,7 +174,9 @@ export async function checkIntegrity(dbFolder: string): Promise<IntegrityReport>
     );
     for (const k of keys) {
       const cols = k.cols.map((c) => `"${c}"`).join(', ');
-      const dup = await q<{ n: number }>(`select count(*)::int as n from (select ${cols} from "${k.table}" group by ${cols} having count(*) > 1) d`);
+      const dup = await q<{ n: number }>(
+        `select count(*)::int as n from (select ${cols} from "${k.table}" group by ${cols} having count(*) > 1) d`,
+      );
       if (dup[0].n > 0) report.duplicateKeys.push(`${k.table}: ${dup[0].n}`);
     }
 
@@ -194,7 +196,11 @@ export async function checkIntegrity(dbFolder: string): Promise<IntegrityReport>
     for (const fk of fks) {
       const notNull = fk.childCols.map((c) => `c."${c}" is not null`).join(' and ');
       const match = fk.childCols.map((c, i) => `p."${fk.parentCols[i]}" = c."${c}"`).join(' and ');
-      const n = (await q<{ n: number }>(`select count(*)::int as n from "${fk.child}" c where ${notNull} and not exists (select 1 from "${fk.parent}" p where ${match})`))[0].n;
+      const n = (
+        await q<{ n: number }>(
+          `select count(*)::int as n from "${fk.child}" c where ${notNull} and not exists (select 1 from "${fk.parent}" p where ${match})`,
+        )
+      )[0].n;
       if (n > 0) report.orphans.push(`${fk.name}: ${n}`);
     }
     if (fks.length === 0) report.orphans.push('no foreign keys found: the schema did not load');
@@ -207,7 +213,9 @@ export async function checkIntegrity(dbFolder: string): Promise<IntegrityReport>
     report.partialDatasets = partial.filter((d) => d.chunked !== d.records).map((d) => `${d.name}: ${d.chunked ?? 0} of ${d.records}`);
 
     const files = readMigrationFiles({ migrationsFolder: MIGRATIONS_FOLDER });
-    const applied = await q<{ hash: string; created_at: string }>(`select hash, created_at::text from drizzle.__drizzle_migrations order by created_at`);
+    const applied = await q<{ hash: string; created_at: string }>(
+      `select hash, created_at::text from drizzle.__drizzle_migrations order by created_at`,
+    );
     report.migrations = {
       applied: applied.length,
       files: files.length,
@@ -244,7 +252,11 @@ export async function checkIntegrity(dbFolder: string): Promise<IntegrityReport>
       )
     ).rows;
     for (const t of tables) {
-      const found = (await checker.query<{ blkno: number; msg: string }>('select blkno, msg from verify_heapam($1::regclass, check_toast => true)', [t.oid])).rows;
+      const found = (
+        await checker.query<{ blkno: number; msg: string }>('select blkno, msg from verify_heapam($1::regclass, check_toast => true)', [
+          t.oid,
+        ])
+      ).rows;
       for (const f of found) report.amcheck.problems.push(`${t.name} block ${f.blkno}: ${f.msg}`);
     }
     report.amcheck.indexes = indexes.length;

@@ -193,7 +193,10 @@ describe('SIGKILL during a large import', () => {
    * server's event loop busy, so that line reaches the client together with the result. The WAL
    * cannot either: PGlite writes this transaction's WAL to disk only at its commit.)
    */
-  async function upload(name: string, onWrite?: () => void): Promise<{ result: { id: string; records: number } | null; writeToEndMs: number }> {
+  async function upload(
+    name: string,
+    onWrite?: () => void,
+  ): Promise<{ result: { id: string; records: number } | null; writeToEndMs: number }> {
     const form = new FormData();
     form.set('name', name);
     form.set('kind', 'hindcast');
@@ -241,12 +244,17 @@ describe('SIGKILL during a large import', () => {
     const lines = ['time,hs,tp,tz,dir,wind_speed,wind_dir'];
     for (let i = 0; i < records; i++) {
       const hs = 1.2 + 0.8 * Math.sin(i / 700) + ((i * 7919) % 100) / 200;
-      lines.push(`${new Date(t0 + i * 3_600_000).toISOString()},${hs.toFixed(2)},${(8 + hs).toFixed(1)},${(5.5 + hs * 0.6).toFixed(1)},${200 + (i % 90)},${(4 + hs * 3).toFixed(1)},${210 + (i % 80)}`);
+      lines.push(
+        `${new Date(t0 + i * 3_600_000).toISOString()},${hs.toFixed(2)},${(8 + hs).toFixed(1)},${(5.5 + hs * 0.6).toFixed(1)},${200 + (i % 90)},${(4 + hs * 3).toFixed(1)},${210 + (i % 80)}`,
+      );
     }
     csv = new Blob([lines.join('\n') + '\n'], { type: 'text/csv' });
     // The server of the last restart still runs.
     cookie = await signIn(server!.baseUrl, 'coordinator@example.com');
-    before = ((await api(cookie, 'GET', `/api/projects/${projectId}/datasets`)) as { id: string; records: number }[]).map((d) => ({ id: d.id, records: d.records }));
+    before = ((await api(cookie, 'GET', `/api/projects/${projectId}/datasets`)) as { id: string; records: number }[]).map((d) => ({
+      id: d.id,
+      records: d.records,
+    }));
 
     const { result, writeToEndMs } = await upload('Calibration hindcast (complete)');
     expect(result!.records).toBe(records);
@@ -289,7 +297,9 @@ describe('SIGKILL during a large import', () => {
     cookie = await signIn(server!.baseUrl, 'coordinator@example.com');
     const after = (await api(cookie, 'GET', `/api/projects/${projectId}/datasets`)) as { id: string; records: number }[];
     const byId = (a: { id: string }, b: { id: string }) => a.id.localeCompare(b.id);
-    expect(after.map((d) => ({ id: d.id, records: d.records })).sort(byId)).toEqual([...before, { id: calibrated.id, records: calibrated.records }].sort(byId));
+    expect(after.map((d) => ({ id: d.id, records: d.records })).sort(byId)).toEqual(
+      [...before, { id: calibrated.id, records: calibrated.records }].sort(byId),
+    );
     await server!.stop();
     server = undefined;
   }, 150_000);
@@ -302,7 +312,10 @@ describe('after the kills', () => {
     const mailer = await createMailer({ smtpUrl: catcher.smtpUrl, from: 'Lullwatch <alerts@lullwatch.invalid>' });
     try {
       // The same link settings as the server that sent the first copy (its address and the secret in its data folder).
-      const links = { baseUrl: racedBaseUrl, linkSecret: process.env.BETTER_AUTH_SECRET ?? fs.readFileSync(path.join(dataDir, 'auth-secret'), 'utf8').trim() };
+      const links = {
+        baseUrl: racedBaseUrl,
+        linkSecret: process.env.BETTER_AUTH_SECRET ?? fs.readFileSync(path.join(dataDir, 'auth-secret'), 'utf8').trim(),
+      };
       await deliverDueMail(database.db, mailer, new Date(Date.now() + 2 * 3_600_000), { maxAttempts: 6, log: silentLogger, links });
       const rows = await database.db.select().from(outbox);
       expect(rows.length).toBeGreaterThan(3);

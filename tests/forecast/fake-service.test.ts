@@ -119,7 +119,9 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
     const a = await fake({ clock: () => DEC_3_1425 });
     const b = await fake({ clock: () => DEC_3_1425 + 2 * HOUR }); // same 12:00 issue
     const url = '/exchange/sea-state?lat=50.1&lon=-5.6';
-    const [ta, tb, ta2] = await Promise.all([fetch(a.url + url), fetch(b.url + url), fetch(a.url + url)].map(async (p) => (await p).text()));
+    const [ta, tb, ta2] = await Promise.all(
+      [fetch(a.url + url), fetch(b.url + url), fetch(a.url + url)].map(async (p) => (await p).text()),
+    );
     expect(tb).toBe(ta);
     expect(ta2).toBe(ta);
   });
@@ -186,7 +188,11 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
   it('drifts from the invented truth as the lead time grows', async () => {
     const f = await fake({ clock: () => DEC_3_1425 });
     const r = await new HttpForecastProvider(f.url).fetchLatest(POSITION);
-    const truth = generateSyntheticSea({ startMs: r.issuedAtMs, hours: 240, seed: truthSeedForPosition(20261201, r.latitude, r.longitude) });
+    const truth = generateSyntheticSea({
+      startMs: r.issuedAtMs,
+      hours: 240,
+      seed: truthSeedForPosition(20261201, r.latitude, r.longitude),
+    });
     const err = (from: number, to: number) => {
       let s = 0;
       let count = 0;

@@ -148,7 +148,10 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
 
   it('sends GET {base}/exchange/sea-state?lat&lon with accept and the key, converts nulls to NaN and 360 to 0', async () => {
     const fetchImpl = stub(new Response(JSON.stringify(answer()), { status: 200 }));
-    const p = new HttpForecastProvider('https://forecast.example.test/api', { fetchImpl: fetchImpl as unknown as typeof fetch, apiKey: 'secret' });
+    const p = new HttpForecastProvider('https://forecast.example.test/api', {
+      fetchImpl: fetchImpl as unknown as typeof fetch,
+      apiKey: 'secret',
+    });
     const issue = await p.fetchLatest({ latitude: 50.1, longitude: -5.6 });
     const [url, init] = fetchImpl.mock.calls[0];
     expect(String(url)).toBe('https://forecast.example.test/api/exchange/sea-state?lat=50.1&lon=-5.6');
@@ -170,12 +173,20 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
       toIssue: (json) => {
         const rows = (json as { data: number[][]; issued: number }).data;
         const col = (j: number) => Float64Array.from(rows, (r) => r[j]);
-        return { issuedAtMs: (json as { issued: number }).issued, latitude: 50, longitude: -5.5, records: { timeMs: col(0), hs: col(1), tp: col(2), dir: col(3), wind: col(4), windDir: col(5) } };
+        return {
+          issuedAtMs: (json as { issued: number }).issued,
+          latitude: 50,
+          longitude: -5.5,
+          records: { timeMs: col(0), hs: col(1), tp: col(2), dir: col(3), wind: col(4), windDir: col(5) },
+        };
       },
     };
     const body = { issued: Date.UTC(2026, 11, 3, 12), data: [[Date.UTC(2026, 11, 3, 12), 1.5, 9, 250, 7, 240]] };
     const fetchImpl = stub(new Response(JSON.stringify(body)));
-    const issue = await new HttpForecastProvider('http://127.0.0.1:9/', { fetchImpl: fetchImpl as unknown as typeof fetch, adapter: other }).fetchLatest(POSITION);
+    const issue = await new HttpForecastProvider('http://127.0.0.1:9/', {
+      fetchImpl: fetchImpl as unknown as typeof fetch,
+      adapter: other,
+    }).fetchLatest(POSITION);
     expect(String(fetchImpl.mock.calls[0][0])).toBe('http://127.0.0.1:9/points/50.1,-5.6');
     expect(issue.records.hs[0]).toBe(1.5);
     expect(issue.issuedAtMs).toBe(Date.UTC(2026, 11, 3, 12));
@@ -194,7 +205,9 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
       [429, /slow down \(HTTP 429\)/],
     ];
     for (const [status, message] of cases) {
-      const p = new HttpForecastProvider('http://127.0.0.1:9', { fetchImpl: stub(new Response('{}', { status })) as unknown as typeof fetch });
+      const p = new HttpForecastProvider('http://127.0.0.1:9', {
+        fetchImpl: stub(new Response('{}', { status })) as unknown as typeof fetch,
+      });
       const err = await failure(p.fetchLatest(POSITION));
       expect(err.code).toBe('http');
       expect(err.status).toBe(status);
@@ -211,7 +224,9 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
     ];
     const expected = ['series.hs', 'series.time.1', 'series.tp.1', 'issuedAt'];
     for (let i = 0; i < bad.length; i++) {
-      const p = new HttpForecastProvider('http://127.0.0.1:9', { fetchImpl: stub(new Response(JSON.stringify(bad[i]))) as unknown as typeof fetch });
+      const p = new HttpForecastProvider('http://127.0.0.1:9', {
+        fetchImpl: stub(new Response(JSON.stringify(bad[i]))) as unknown as typeof fetch,
+      });
       const err = await failure(p.fetchLatest(POSITION));
       expect(err.code).toBe('malformed');
       expect(err.details[0].startsWith(`${expected[i]}:`), err.details[0]).toBe(true);

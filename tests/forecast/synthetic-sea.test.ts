@@ -31,7 +31,7 @@ function meanWhere(s: SyntheticSeaSeries, pick: (ms: number) => boolean): number
 
 /** Signed smallest angle from a to b, deg in (-180, 180]. */
 function angleDiff(a: number, b: number): number {
-  const d = (((b - a) % 360) + 540) % 360 - 180;
+  const d = ((((b - a) % 360) + 540) % 360) - 180;
   return d === -180 ? 180 : d;
 }
 
@@ -57,7 +57,9 @@ describe('generateSyntheticSea: shape and speed', () => {
     expect(() => generateSyntheticSea({ startMs: 0, hours: -1, seed: 1 })).toThrow(RangeError);
     expect(() => generateSyntheticSea({ startMs: 0, hours: 1, stepMinutes: 0, seed: 1 })).toThrow(RangeError);
     expect(() => generateSyntheticSea({ startMs: 0, hours: 1, seed: Infinity })).toThrow(RangeError);
-    expect(() => generateSyntheticSea({ startMs: 0, hours: 1, seed: 1, climate: { summerMeanHsM: 3, winterMeanHsM: 2 } })).toThrow(RangeError);
+    expect(() => generateSyntheticSea({ startMs: 0, hours: 1, seed: 1, climate: { summerMeanHsM: 3, winterMeanHsM: 2 } })).toThrow(
+      RangeError,
+    );
     expect(() => generateSyntheticSea({ startMs: 0, hours: 1, seed: 1, climate: { calmShare: 2 } })).toThrow(RangeError);
   });
 });
@@ -105,11 +107,18 @@ describe('generateSyntheticSea: realistic values', () => {
       const hs = s.hsM[i];
       const tp = s.tpS[i];
       const ok =
-        hs >= 0.05 && hs <= 12 &&
-        tp >= 2.5 && tp <= 20 &&
-        s.windMps[i] >= 2 && s.windMps[i] <= 20 &&
-        s.dirDeg[i] >= 0 && s.dirDeg[i] < 360 && Number.isInteger(s.dirDeg[i]) &&
-        s.windDirDeg[i] >= 0 && s.windDirDeg[i] < 360 && Number.isInteger(s.windDirDeg[i]) &&
+        hs >= 0.05 &&
+        hs <= 12 &&
+        tp >= 2.5 &&
+        tp <= 20 &&
+        s.windMps[i] >= 2 &&
+        s.windMps[i] <= 20 &&
+        s.dirDeg[i] >= 0 &&
+        s.dirDeg[i] < 360 &&
+        Number.isInteger(s.dirDeg[i]) &&
+        s.windDirDeg[i] >= 0 &&
+        s.windDirDeg[i] < 360 &&
+        Number.isInteger(s.windDirDeg[i]) &&
         Math.abs(hs * 100 - Math.round(hs * 100)) < 1e-6 &&
         Math.abs(tp * 10 - Math.round(tp * 10)) < 1e-6 &&
         Math.abs(s.windMps[i] * 10 - Math.round(s.windMps[i] * 10)) < 1e-6;
@@ -149,7 +158,12 @@ describe('generateSyntheticSea: realistic values', () => {
   });
 
   it('follows a climate override, seasons flipped for the southern hemisphere', () => {
-    const south = generateSyntheticSea({ startMs: Date.UTC(2001, 0, 1), hours: 5 * 8766, seed: 3, climate: { roughestDayOfYear: 197, summerMeanHsM: 0.8, winterMeanHsM: 3 } });
+    const south = generateSyntheticSea({
+      startMs: Date.UTC(2001, 0, 1),
+      hours: 5 * 8766,
+      seed: 3,
+      climate: { roughestDayOfYear: 197, summerMeanHsM: 0.8, winterMeanHsM: 3 },
+    });
     const dec2feb = meanWhere(south, isWinter);
     const jun2aug = meanWhere(south, isSummer);
     expect(jun2aug).toBeGreaterThan(2.6);

@@ -102,7 +102,11 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
 
   beforeAll(async () => {
     source = await copyTemplate(MAINTENANCE_URL!);
-    original = await startServer(path.join(work, 'original'), { DATABASE_URL: source.url, BETTER_AUTH_SECRET: SECRET, DEMO_HINDCAST_YEARS: '1' });
+    original = await startServer(path.join(work, 'original'), {
+      DATABASE_URL: source.url,
+      BETTER_AUTH_SECRET: SECRET,
+      DEMO_HINDCAST_YEARS: '1',
+    });
   }, 240_000);
 
   afterAll(async () => {
@@ -129,11 +133,19 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
       seeded.push({ id: d.id, records: rec.time.length, hsSum: sumOf(rec.hs) });
     }
     expect(seeded.length).toBeGreaterThan(0);
-    const ops = await getJson<{ id: string; limits: Record<string, unknown> }[]>(base, coordinator, `/api/projects/${demoProjectId}/operations`);
+    const ops = await getJson<{ id: string; limits: Record<string, unknown> }[]>(
+      base,
+      coordinator,
+      `/api/projects/${demoProjectId}/operations`,
+    );
     const op = ops.find((o) => typeof o.limits.hsMax === 'number')!;
 
     const post = async (cookie: string, url: string, body: unknown, method = 'POST') => {
-      const res = await fetch(`${base}${url}`, { method, headers: { cookie, origin: base, 'content-type': 'application/json' }, body: JSON.stringify(body) });
+      const res = await fetch(`${base}${url}`, {
+        method,
+        headers: { cookie, origin: base, 'content-type': 'application/json' },
+        body: JSON.stringify(body),
+      });
       if (!res.ok) throw new Error(`${method} ${url}: ${res.status} ${await res.text()}`);
       return (await res.json()) as Record<string, unknown>;
     };
@@ -146,7 +158,9 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
         while (!stop) {
           const i = n++;
           let sentAt = Date.now();
-          const u = (await post(admin, '/api/admin/users', { name: `Restore user ${i}`, email: `restore-${i}@example.com` })) as { user: { id: string } };
+          const u = (await post(admin, '/api/admin/users', { name: `Restore user ${i}`, email: `restore-${i}@example.com` })) as {
+            user: { id: string };
+          };
           writes.push({ kind: 'user', id: u.user.id, sentAt, doneAt: Date.now() });
           sentAt = Date.now();
           const p = await post(admin, '/api/projects', { name: `Restore project ${i}` });
@@ -165,7 +179,11 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
           form.set('dataPointDepth', '30');
           form.set('file', new Blob([csv]), `buoy-${i}.csv`);
           const sentAt = Date.now();
-          const res = await fetch(`${base}/api/projects/${demoProjectId}/datasets`, { method: 'POST', headers: { cookie: coordinator, origin: base }, body: form });
+          const res = await fetch(`${base}/api/projects/${demoProjectId}/datasets`, {
+            method: 'POST',
+            headers: { cookie: coordinator, origin: base },
+            body: form,
+          });
           if (res.status !== 201) throw new Error(`upload ${i}: ${res.status} ${await res.text()}`);
           const d = (await res.json()) as { id: string };
           writes.push({ kind: 'dataset', id: d.id, projectId: demoProjectId, records: hours, hsSum, sentAt, doneAt: Date.now() });
@@ -176,7 +194,12 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
         while (!stop) {
           const i = n++;
           const sentAt = Date.now();
-          await post(coordinator, `/api/projects/${demoProjectId}/operations/${op.id}`, { limits: { ...op.limits, hsMax: 1 + (i % 100) / 100 } }, 'PATCH');
+          await post(
+            coordinator,
+            `/api/projects/${demoProjectId}/operations/${op.id}`,
+            { limits: { ...op.limits, hsMax: 1 + (i % 100) / 100 } },
+            'PATCH',
+          );
           writes.push({ kind: 'limit', id: op.id, projectId: demoProjectId, sentAt, doneAt: Date.now() });
           // A person's pace, and fewer entries than the audit list's 500 per request.
           await new Promise((r) => setTimeout(r, 100));
@@ -209,15 +232,23 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
     const dump = await pgProgram('pg_dump', ['--format=custom', '--no-owner', `--file=${dumpFile}`, source!.url]);
     dumpFinishedAt = Date.now();
     expect(dump.code, dump.out).toBe(0);
-    await waitFor('every kind of write after the dump', () => kinds.every((k) => writes.some((w) => w.kind === k && w.sentAt > dumpFinishedAt)));
+    await waitFor('every kind of write after the dump', () =>
+      kinds.every((k) => writes.some((w) => w.kind === k && w.sentAt > dumpFinishedAt)),
+    );
     stop = true;
     await Promise.all(running);
 
     // Writes before, during and after the dump, or the test shows nothing.
     for (const kind of kinds) {
       const mine = writes.filter((w) => w.kind === kind);
-      expect(mine.some((w) => w.doneAt < dumpStartedAt), `${kind} before the dump`).toBe(true);
-      expect(mine.some((w) => w.sentAt > dumpFinishedAt), `${kind} after the dump`).toBe(true);
+      expect(
+        mine.some((w) => w.doneAt < dumpStartedAt),
+        `${kind} before the dump`,
+      ).toBe(true);
+      expect(
+        mine.some((w) => w.sentAt > dumpFinishedAt),
+        `${kind} after the dump`,
+      ).toBe(true);
     }
 
     const all = await getJson<{ id: string }[]>(base, admin, '/api/projects');
@@ -236,9 +267,20 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
     await c.query(`create database ${restoredName}`);
     await c.end();
     const restoredUrl = withDatabase(MAINTENANCE_URL!, restoredName);
-    const run = await pgProgram('pg_restore', ['--clean', '--if-exists', '--no-owner', '--single-transaction', `--dbname=${restoredUrl}`, path.join(work, 'lullwatch.dump')]);
+    const run = await pgProgram('pg_restore', [
+      '--clean',
+      '--if-exists',
+      '--no-owner',
+      '--single-transaction',
+      `--dbname=${restoredUrl}`,
+      path.join(work, 'lullwatch.dump'),
+    ]);
     expect(run.code, run.out).toBe(0);
-    restored = await startServer(path.join(work, 'restored'), { DATABASE_URL: restoredUrl, BETTER_AUTH_SECRET: SECRET, SEED_DEMO: 'false' });
+    restored = await startServer(path.join(work, 'restored'), {
+      DATABASE_URL: restoredUrl,
+      BETTER_AUTH_SECRET: SECRET,
+      SEED_DEMO: 'false',
+    });
   }, 240_000);
 
   it('has every user, project, dataset series and audit entry written before the dump, and nothing written after it', async () => {
@@ -247,7 +289,9 @@ describe.skipIf(!MAINTENANCE_URL)('pg_dump under load, restored into a fresh dat
 
     const users = new Set((await getJson<{ id: string }[]>(base, admin, '/api/admin/users')).map((u) => u.id));
     const projects = new Set((await getJson<{ id: string }[]>(base, admin, '/api/projects')).map((p) => p.id));
-    const datasets = new Map((await getJson<{ id: string; records: number }[]>(base, admin, `/api/projects/${demoProjectId}/datasets`)).map((d) => [d.id, d]));
+    const datasets = new Map(
+      (await getJson<{ id: string; records: number }[]>(base, admin, `/api/projects/${demoProjectId}/datasets`)).map((d) => [d.id, d]),
+    );
     const before = (kind: Write['kind']) => writes.filter((w) => w.kind === kind && w.doneAt < dumpStartedAt);
     const after = (kind: Write['kind']) => writes.filter((w) => w.kind === kind && w.sentAt > dumpFinishedAt);
 

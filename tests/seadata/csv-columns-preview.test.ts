@@ -17,7 +17,9 @@ describe('normaliseHeader', () => {
 
 describe('detectColumns', () => {
   it('common hindcast names', () => {
-    expect(detectColumns(['Time', 'Hs [m]', 'Tp [s]', 'Tm02 [s]', 'Tm-10 [s]', 'MWD [deg]', 'Wind speed [m/s]', 'Wind direction [deg]'])).toEqual({
+    expect(
+      detectColumns(['Time', 'Hs [m]', 'Tp [s]', 'Tm02 [s]', 'Tm-10 [s]', 'MWD [deg]', 'Wind speed [m/s]', 'Wind direction [deg]']),
+    ).toEqual({
       time: 'Time',
       hs: 'Hs [m]',
       tp: 'Tp [s]',
@@ -82,7 +84,13 @@ describe('previewCsv', () => {
     // A day above 12 decides the order.
     expect(p.dateOrder).toBe('dmy');
     expect(p.rows).toHaveLength(2);
-    expect(p.rows[0]).toMatchObject({ line: 2, fields: ['13/02/2020', '00:00', '10', '20'], timeMs: Date.UTC(2020, 1, 13), kept: true, issues: [] });
+    expect(p.rows[0]).toMatchObject({
+      line: 2,
+      fields: ['13/02/2020', '00:00', '10', '20'],
+      timeMs: Date.UTC(2020, 1, 13),
+      kept: true,
+      issues: [],
+    });
     // 10 ft = 3.048 m; 20 kn = 20 * 1852/3600 m/s (exact definitions, see csv.test.ts).
     expect(p.rows[0].values.hs).toBeCloseTo(3.048, 12);
     expect(p.rows[0].values.wind).toBeCloseTo((20 * 1852) / 3600, 12);

@@ -87,7 +87,9 @@ describe('dialects', () => {
   // row, so "skip bad rows" lost 49 good rows without a word. Every line is one row now (RFC 4180
   // allows line breaks inside quotes, but no sea-state column holds one: common practice, no source).
   it('a quote not closed on its line is a bad row at that line; skip mode reads on from the next line', () => {
-    const times = Array.from({ length: 50 }, (_, k) => new Date(Date.UTC(2020, 0, 1) + k * 3_600_000).toISOString().slice(0, 16).replace('T', ' '));
+    const times = Array.from({ length: 50 }, (_, k) =>
+      new Date(Date.UTC(2020, 0, 1) + k * 3_600_000).toISOString().slice(0, 16).replace('T', ' '),
+    );
     const lines = ['time,hs', ...times.map((t, k) => (k === 1 ? `${t},"1.1` : `${t},1.${k % 10}`))];
     const text = lines.join('\n') + '\n';
     const issues = issuesOf(text);
@@ -188,10 +190,9 @@ describe('timestamps', () => {
   });
 
   it('the repeated hour of the fall-back change reads as consecutive UTC hours', () => {
-    const { records } = parse(
-      'time,hs\n2023-10-29 01:00,1\n2023-10-29 02:00,2\n2023-10-29 02:00,3\n2023-10-29 03:00,4\n',
-      { timeZone: 'Europe/Oslo' },
-    );
+    const { records } = parse('time,hs\n2023-10-29 01:00,1\n2023-10-29 02:00,2\n2023-10-29 02:00,3\n2023-10-29 03:00,4\n', {
+      timeZone: 'Europe/Oslo',
+    });
     expect(iso(records.timeMs)).toEqual([
       '2023-10-28T23:00:00.000Z', // 01:00 CEST
       '2023-10-29T00:00:00.000Z', // 02:00 CEST
@@ -284,7 +285,9 @@ describe('units', () => {
   });
 
   it('99 and 99.0 are missing codes of wind (a wind of 99 m/s used to pass the range check)', () => {
-    const { records, report } = parse('time,hs,wind,winddir\n2020-01-01 00:00,1,99,99\n2020-01-01 01:00,1,99.0,10\n2020-01-01 02:00,1,98.5,10\n');
+    const { records, report } = parse(
+      'time,hs,wind,winddir\n2020-01-01 00:00,1,99,99\n2020-01-01 01:00,1,99.0,10\n2020-01-01 02:00,1,98.5,10\n',
+    );
     expect(records.wind[0]).toBeNaN();
     expect(records.wind[1]).toBeNaN();
     expect(records.wind[2]).toBe(98.5);
@@ -301,7 +304,9 @@ describe('units', () => {
     const coming = parse(csv);
     expect(Array.from(coming.records.dir)).toEqual([90, 200]);
     // An impossible direction is still refused, not turned into a plausible one.
-    expect(issuesOf('time,hs,dir\n2020-01-01 00:00,1,400\n2020-01-01 01:00,1,10\n', { directionConvention: 'going-to' })[0].reason).toMatch(/direction/);
+    expect(issuesOf('time,hs,dir\n2020-01-01 00:00,1,400\n2020-01-01 01:00,1,10\n', { directionConvention: 'going-to' })[0].reason).toMatch(
+      /direction/,
+    );
   });
 });
 
@@ -336,7 +341,10 @@ describe('missing-value codes', () => {
   it('text that is neither a number nor a code is refused', () => {
     for (const bad of ['12abc', '0x10', 'Infinity', '1,5', '--1', '1e']) {
       const issues = issuesOf(`time,hs\n2020-01-01 00:00,"${bad}"\n`);
-      expect(issues.find((i) => i.line === 2), bad).toEqual({ line: 2, column: 'hs', value: bad, reason: 'not a number' });
+      expect(
+        issues.find((i) => i.line === 2),
+        bad,
+      ).toEqual({ line: 2, column: 'hs', value: bad, reason: 'not a number' });
     }
   });
 });

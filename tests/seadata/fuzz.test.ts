@@ -48,9 +48,47 @@ function checkRecords(r: SeaRecords): void {
 
 // Text built from the pieces real files are made of, so that the parsers go deep.
 const token = fc.constantFrom(
-  'YY', '#YY', 'YYYY', 'MM', 'DD', 'hh', 'mm', 'WVHT', 'DPD', 'APD', 'MWD', 'WSPD', 'WDIR', 'WD', 'time', 'hs', 'tp',
-  'Hs [m]', 'date', '2016', '97', '01', '12', '31', '50', '99', '99.00', '999', '9999.0', '1.5', '-1', '360', '.5',
-  '2020-01-01 00:00', '2020-01-01T00:00Z', '13/02/2020', 'NaN', '', '"', '""', 'x',
+  'YY',
+  '#YY',
+  'YYYY',
+  'MM',
+  'DD',
+  'hh',
+  'mm',
+  'WVHT',
+  'DPD',
+  'APD',
+  'MWD',
+  'WSPD',
+  'WDIR',
+  'WD',
+  'time',
+  'hs',
+  'tp',
+  'Hs [m]',
+  'date',
+  '2016',
+  '97',
+  '01',
+  '12',
+  '31',
+  '50',
+  '99',
+  '99.00',
+  '999',
+  '9999.0',
+  '1.5',
+  '-1',
+  '360',
+  '.5',
+  '2020-01-01 00:00',
+  '2020-01-01T00:00Z',
+  '13/02/2020',
+  'NaN',
+  '',
+  '"',
+  '""',
+  'x',
 );
 const sep = fc.constantFrom(' ', '  ', ',', ';', '\t', '\n', '\r\n', '\r', '"');
 const structured = fc.array(fc.tuple(token, sep), { maxLength: 200 }).map((parts) => parts.map(([t, s]) => t + s).join(''));
@@ -71,11 +109,16 @@ const ndbcRow = fc
   )
   .map(([y, mo, d, h, mi, values]) => [y, mo, d, h, mi, ...values].join(' '));
 const ndbcLike = fc
-  .tuple(fc.array(fc.oneof({ weight: 5, arbitrary: fc.constant(null) }, { weight: 1, arbitrary: ndbcRow }), { maxLength: 80 }), fc.constantFrom('\n', '\r\n'))
+  .tuple(
+    fc.array(fc.oneof({ weight: 5, arbitrary: fc.constant(null) }, { weight: 1, arbitrary: ndbcRow }), { maxLength: 80 }),
+    fc.constantFrom('\n', '\r\n'),
+  )
   .map(([rows, nl]) => {
     // Mostly well-formed hourly rows (null), some random ones.
-    const lines = rows.map((r, i) =>
-      r ?? `2016 01 ${String(1 + Math.floor(i / 24)).padStart(2, '0')} ${String(i % 24).padStart(2, '0')} 50 270 5.0 6.0 1.50 8.00 6.00 260 1013 10 11 999 99 99`,
+    const lines = rows.map(
+      (r, i) =>
+        r ??
+        `2016 01 ${String(1 + Math.floor(i / 24)).padStart(2, '0')} ${String(i % 24).padStart(2, '0')} 50 270 5.0 6.0 1.50 8.00 6.00 260 1013 10 11 999 99 99`,
     );
     return '#YY  MM DD hh mm WDIR WSPD GST  WVHT   DPD   APD MWD   PRES  ATMP  WTMP  DEWP  VIS  TIDE' + nl + lines.join(nl);
   });
@@ -90,7 +133,10 @@ const csvLike = fc
     fc.array(
       fc.tuple(
         fc.oneof({ weight: 10, arbitrary: fc.constant(1) }, { weight: 1, arbitrary: fc.integer({ min: -2, max: 2 }) }),
-        fc.oneof({ weight: 10, arbitrary: fc.array(csvValue, { minLength: 4, maxLength: 4 }) }, { weight: 1, arbitrary: fc.array(csvValue, { maxLength: 6 }) }),
+        fc.oneof(
+          { weight: 10, arbitrary: fc.array(csvValue, { minLength: 4, maxLength: 4 }) },
+          { weight: 1, arbitrary: fc.array(csvValue, { maxLength: 6 }) },
+        ),
       ),
       { maxLength: 60 },
     ),
@@ -132,16 +178,22 @@ describe('parsers on arbitrary text', () => {
 
   it('CsvTextParser returns valid records or throws ImportError', () => {
     fc.assert(
-      fc.property(anyText, modes, fc.nat(500), fc.constantFrom(undefined, 'Europe/Oslo', 'America/New_York'), (text, onBadRows, cut, timeZone) => {
-        const t0 = performance.now();
-        const p = new CsvTextParser({ onBadRows, timeZone });
-        const r = returnsOrImportError(() => {
-          feed(p, text, cut);
-          return p.end();
-        });
-        if (r !== undefined) checkRecords(r.records);
-        expect(performance.now() - t0).toBeLessThan(10_000); // hang detection only (issue 8: never hangs), not a speed target
-      }),
+      fc.property(
+        anyText,
+        modes,
+        fc.nat(500),
+        fc.constantFrom(undefined, 'Europe/Oslo', 'America/New_York'),
+        (text, onBadRows, cut, timeZone) => {
+          const t0 = performance.now();
+          const p = new CsvTextParser({ onBadRows, timeZone });
+          const r = returnsOrImportError(() => {
+            feed(p, text, cut);
+            return p.end();
+          });
+          if (r !== undefined) checkRecords(r.records);
+          expect(performance.now() - t0).toBeLessThan(10_000); // hang detection only (issue 8: never hangs), not a speed target
+        },
+      ),
       { numRuns: 600 },
     );
   });
@@ -188,8 +240,33 @@ describe('parsers on arbitrary text', () => {
 // and an NDBC line without a line break was buffered to the end of the file.
 const NDBC_HEADER = '#YY  MM DD hh mm WDIR WSPD GST  WVHT   DPD   APD MWD   PRES  ATMP  WTMP  DEWP  VIS  TIDE';
 const piece = fc.constantFrom(
-  ' ', '\t', '\n', '\r\n', '\r', ',', ';', '"', '""', '[', '(', '{', '1', '1 ', '1,', '.', 'e', '-', 'x', '#', '\u00a0', '\uFEFF',
-  '"a",', 'hs [', '2020-01-01 ', '\u0000', '🌊',
+  ' ',
+  '\t',
+  '\n',
+  '\r\n',
+  '\r',
+  ',',
+  ';',
+  '"',
+  '""',
+  '[',
+  '(',
+  '{',
+  '1',
+  '1 ',
+  '1,',
+  '.',
+  'e',
+  '-',
+  'x',
+  '#',
+  '\u00a0',
+  '\uFEFF',
+  '"a",',
+  'hs [',
+  '2020-01-01 ',
+  '\u0000',
+  '🌊',
 );
 const longRun = fc.tuple(piece, fc.integer({ min: 20_000, max: 300_000 })).map(([p, n]) => p.repeat(Math.ceil(n / p.length)));
 const placements: ((run: string) => string)[] = [
@@ -298,11 +375,32 @@ describe('size limits (shared/seadata/limits.ts)', () => {
 // lost good rows without reporting them. Whatever the lines hold, in skip mode every data line
 // is either a kept record or a row reported bad, and "rows read" is the number of data lines.
 describe('CSV skip mode accounts for every data line', () => {
-  const tail = fc.constantFrom(',1.5', ',"1.5"', ',"1.5', ',1.5"', ',"1"5', '"', ',', ',x', ',""', ',"a""b"', ' ,2', ',"2" ', ';', ',-1', ',"');
+  const tail = fc.constantFrom(
+    ',1.5',
+    ',"1.5"',
+    ',"1.5',
+    ',1.5"',
+    ',"1"5',
+    '"',
+    ',',
+    ',x',
+    ',""',
+    ',"a""b"',
+    ' ,2',
+    ',"2" ',
+    ';',
+    ',-1',
+    ',"',
+  );
   const goodTime = (k: number) => new Date(Date.UTC(2020, 0, 1) + k * 3_600_000).toISOString().slice(0, 16).replace('T', ' ');
   const line = fc.oneof(
     { weight: 4, arbitrary: fc.array(tail, { minLength: 1, maxLength: 3 }).map((parts) => (k: number) => goodTime(k) + parts.join('')) },
-    { weight: 1, arbitrary: fc.array(fc.constantFrom('x', '"', '""', ',', ' ', '1', 'a"b', '"x",'), { minLength: 1, maxLength: 6 }).map((parts) => () => `x${parts.join('')}`) },
+    {
+      weight: 1,
+      arbitrary: fc
+        .array(fc.constantFrom('x', '"', '""', ',', ' ', '1', 'a"b', '"x",'), { minLength: 1, maxLength: 6 })
+        .map((parts) => () => `x${parts.join('')}`),
+    },
   );
   const eol = fc.constantFrom('\n', '\r\n', '\r');
 

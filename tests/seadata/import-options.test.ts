@@ -7,7 +7,14 @@ const base = { name: 'Buoy 46026', kind: 'observation', dataPointDepth: 'deep' }
 describe('ImportFormSchema', () => {
   it('parses multipart strings with defaults', () => {
     const f = ImportFormSchema.parse({ ...base, format: '', timeZone: '', onBadRows: '', columns: '', units: '' });
-    expect(f).toEqual({ name: 'Buoy 46026', kind: 'observation', format: 'auto', dataPointDepth: 'deep', onBadRows: 'refuse', directionConvention: 'coming-from' });
+    expect(f).toEqual({
+      name: 'Buoy 46026',
+      kind: 'observation',
+      format: 'auto',
+      dataPointDepth: 'deep',
+      onBadRows: 'refuse',
+      directionConvention: 'coming-from',
+    });
     // CSV: no height means already at 10 m, exponent 0.11 (open sea).
     expect(csvOptionsFromForm(f)).toMatchObject({ anemometerHeightM: 10, windExponent: 0.11, directionConvention: 'coming-from' });
     // NDBC: no height stays unset (the import refuses a file with wind then).

@@ -7,14 +7,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  ImportError,
-  NdbcParser,
-  detectFormat,
-  looksLikeNdbc,
-  summarise,
-  type SeaRecords,
-} from '../../shared/seadata';
+import { ImportError, NdbcParser, detectFormat, looksLikeNdbc, summarise, type SeaRecords } from '../../shared/seadata';
 
 const NDBC_DIR = path.resolve(import.meta.dirname, '../fixtures/ndbc');
 const read = (name: string): string => readFileSync(path.join(NDBC_DIR, name), 'utf8');
@@ -364,7 +357,8 @@ describe('bad NDBC text', () => {
   });
 
   it('names line and column of an implausible value (MWD 400)', () => {
-    const text = HEADER + good('2016 01 01 00 50') + '2016 01 01 01 50 100  1.3  2.0  1.21 13.79  8.40 400 1021.7  10.3  12.9 999.0 99.0 99.00\n';
+    const text =
+      HEADER + good('2016 01 01 00 50') + '2016 01 01 01 50 100  1.3  2.0  1.21 13.79  8.40 400 1021.7  10.3  12.9 999.0 99.0 99.00\n';
     expect(issuesOf(text)).toEqual([{ line: 4, column: 'MWD', value: '400', reason: 'direction outside 0-360 degrees' }]);
   });
 
@@ -389,7 +383,11 @@ describe('bad NDBC text', () => {
     const p = new NdbcParser({ onBadRows: 'skip' });
     p.push(text);
     const { records, report } = p.end();
-    expect(Array.from(records.timeMs)).toEqual([Date.parse('2016-01-01T00:50:00Z'), Date.parse('2016-01-01T01:50:00Z'), Date.parse('2016-01-01T02:50:00Z')]);
+    expect(Array.from(records.timeMs)).toEqual([
+      Date.parse('2016-01-01T00:50:00Z'),
+      Date.parse('2016-01-01T01:50:00Z'),
+      Date.parse('2016-01-01T02:50:00Z'),
+    ]);
     expect(report.rowsSkipped).toBe(1);
     expect(report.issues[0]).toMatchObject({ line: 5, column: 'YY MM DD hh mm', value: '2016 01 01 03 50' });
     expect(report.issues[0].reason).toMatch(/out of order/);

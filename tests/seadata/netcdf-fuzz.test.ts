@@ -57,11 +57,14 @@ describe('cut-short and damaged NetCDF files', () => {
 
     it(`${name} with random bytes overwritten reads or fails clearly`, async () => {
       await fc.assert(
-        fc.asyncProperty(fc.array(fc.tuple(fc.nat({ max: whole.length - 1 }), fc.nat({ max: 255 })), { minLength: 1, maxLength: 16 }), async (edits) => {
-          const copy = whole.slice();
-          for (const [at, b] of edits) copy[at] = b;
-          await attempt(copy);
-        }),
+        fc.asyncProperty(
+          fc.array(fc.tuple(fc.nat({ max: whole.length - 1 }), fc.nat({ max: 255 })), { minLength: 1, maxLength: 16 }),
+          async (edits) => {
+            const copy = whole.slice();
+            for (const [at, b] of edits) copy[at] = b;
+            await attempt(copy);
+          },
+        ),
         { numRuns: 60, seed: 20261203 },
       );
     });

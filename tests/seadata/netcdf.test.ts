@@ -50,7 +50,10 @@ function expectSameAsCsv(records: SeaRecords, csv: string, keys: readonly (typeo
       const want = row[k] as number | null;
       const got = records[k][i];
       if (want === null) expect(got, `${csv} ${k} at time index ${i}`).toBeNaN();
-      else expect(Math.abs(got - want), `${csv} ${k} at time index ${i}: ${got} vs ${want}`).toBeLessThan(1e-6 + 2e-7 * (k === 'dir' || k === 'windDir' ? 360 : Math.abs(want)));
+      else
+        expect(Math.abs(got - want), `${csv} ${k} at time index ${i}: ${got} vs ${want}`).toBeLessThan(
+          1e-6 + 2e-7 * (k === 'dir' || k === 'windDir' ? 360 : Math.abs(want)),
+        );
     }
   });
 }
@@ -99,7 +102,13 @@ describe('NetCDF point files, values as the independent writer read them back', 
   it('a file without standard names is read through the CSV column names', async () => {
     const f = await openFixture('no-standard-names.nc');
     const plan = planCfImport(f);
-    expect(plan.choices.map((c) => `${c.role}=${c.variable}`).sort()).toEqual(['dir=MWD', 'hs=Hm0', 'tp=Tp', 'wind=wind_speed', 'windDir=wind_dir']);
+    expect(plan.choices.map((c) => `${c.role}=${c.variable}`).sort()).toEqual([
+      'dir=MWD',
+      'hs=Hm0',
+      'tp=Tp',
+      'wind=wind_speed',
+      'windDir=wind_dir',
+    ]);
     expectSameAsCsv(readCfPoint(f, plan, { index: [] }).records, 'no-standard-names.csv');
   });
 
@@ -130,9 +139,15 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
     expect(plan.pointDims).toEqual(['latitude', 'longitude']);
     const points = listGridPoints(f, plan);
     expect(points.map((p) => [p.lat, p.lon])).toEqual([
-      [49.5, -7], [49.5, -6.5], [49.5, -6],
-      [50, -7], [50, -6.5], [50, -6],
-      [50.5, -7], [50.5, -6.5], [50.5, -6],
+      [49.5, -7],
+      [49.5, -6.5],
+      [49.5, -6],
+      [50, -7],
+      [50, -6.5],
+      [50, -6],
+      [50.5, -7],
+      [50.5, -6.5],
+      [50.5, -6],
     ]);
     scanMissingShares(f, plan, points);
     // Script: (50, -6) and (50.5, -6) all fill; (49.5, -6) 30 of 48 missing.
@@ -163,7 +178,11 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
   it('every sea point reads the values the script wrote there', async () => {
     const f = await openFixture('grid-3x3.nc');
     const plan = planCfImport(f);
-    for (const [j, i] of [[0, 0], [0, 2], [2, 1]]) {
+    for (const [j, i] of [
+      [0, 0],
+      [0, 2],
+      [2, 1],
+    ]) {
       expectSameAsCsv(readCfPoint(f, plan, { index: [j, i] }).records, `grid-3x3-j${j}-i${i}.csv`, ['hs', 'tp', 'dir', 'wind', 'windDir']);
     }
   });
@@ -184,7 +203,12 @@ describe('2-D latitude and longitude (CF 5.2, a curvilinear grid)', () => {
         { name: 'time', dims: ['time'], shape: [2], attrs: { standard_name: 'time', units: 'hours since 2020-01-01' } },
         { name: 'nav_lat', dims: ['y', 'x'], shape: [2, 2], attrs: { units: 'degrees_north' } },
         { name: 'nav_lon', dims: ['y', 'x'], shape: [2, 2], attrs: { units: 'degrees_east' } },
-        { name: 'swh', dims: ['time', 'y', 'x'], shape: [2, 2, 2], attrs: { standard_name: 'sea_surface_wave_significant_height', coordinates: 'nav_lat nav_lon' } },
+        {
+          name: 'swh',
+          dims: ['time', 'y', 'x'],
+          shape: [2, 2, 2],
+          attrs: { standard_name: 'sea_surface_wave_significant_height', coordinates: 'nav_lat nav_lon' },
+        },
       ],
       readRaw(name, start, count) {
         if (name === 'time') return Float64Array.of(0, 1);
@@ -192,14 +216,20 @@ describe('2-D latitude and longitude (CF 5.2, a curvilinear grid)', () => {
         if (name === 'nav_lon') return Float64Array.from(lon);
         const out: number[] = [];
         for (let t = start[0]; t < start[0] + count[0]; t++)
-          for (let y = start[1]; y < start[1] + count[1]; y++) for (let x = start[2]; x < start[2] + count[2]; x++) out.push(hs[t][y * 2 + x]);
+          for (let y = start[1]; y < start[1] + count[1]; y++)
+            for (let x = start[2]; x < start[2] + count[2]; x++) out.push(hs[t][y * 2 + x]);
         return Float64Array.from(out);
       },
     };
     const plan = planCfImport(file);
     expect(plan.pointDims).toEqual(['y', 'x']);
     const points = listGridPoints(file, plan);
-    expect(points.map((p) => [p.lat, Math.round(p.lon * 10) / 10])).toEqual([[60, -0.2], [60.1, 0.2], [60.4, -0.3], [60.5, 0.1]]);
+    expect(points.map((p) => [p.lat, Math.round(p.lon * 10) / 10])).toEqual([
+      [60, -0.2],
+      [60.1, 0.2],
+      [60.4, -0.3],
+      [60.5, 0.1],
+    ]);
     scanMissingShares(file, plan, points);
     expect(points.map((p) => p.missingShare)).toEqual([0, 0, 1, 0]);
     // Data point 60.42 N 0.28 W: the land point (60.4, -0.3) is nearest; next is (60.5, 0.1), about
@@ -251,6 +281,8 @@ describe('CF rules on small inputs', () => {
         return raw;
       },
     };
-    expect(() => readCfPoint(spoilt, plan, { index: [] })).toThrow('variable swh: 4 values with negative significant wave height, first at time index 10');
+    expect(() => readCfPoint(spoilt, plan, { index: [] })).toThrow(
+      'variable swh: 4 values with negative significant wave height, first at time index 10',
+    );
   });
 });

@@ -56,9 +56,19 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     forecast: forecast.provider,
     mailer,
     database,
-    config: { baseUrl: TEST_ORIGIN, trustedOrigins: [TEST_ORIGIN], linkSecret: 'test-link-secret', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
+    config: {
+      baseUrl: TEST_ORIGIN,
+      trustedOrigins: [TEST_ORIGIN],
+      linkSecret: 'test-link-secret',
+      earliestMoveAlertHours: 6,
+      mailMaxAttempts: 3,
+    },
   };
-  const demo = await seedDemo(deps, { hindcastYears: options.hindcastYears ?? 0, forecast: options.forecast ?? false, pastForecastDays: options.pastForecastDays ?? 0 });
+  const demo = await seedDemo(deps, {
+    hindcastYears: options.hindcastYears ?? 0,
+    forecast: options.forecast ?? false,
+    pastForecastDays: options.pastForecastDays ?? 0,
+  });
   const app = createApp(deps);
   return {
     app,
@@ -80,10 +90,7 @@ export type Agent = ReturnType<typeof request.agent>;
 /** A supertest agent that keeps the session cookie of a signed-in user. */
 export async function signIn(app: Express, email: string, password = DEMO_PASSWORD): Promise<Agent> {
   const agent = request.agent(app);
-  const res = await agent
-    .post('/api/auth/sign-in/email')
-    .set('Origin', TEST_ORIGIN)
-    .send({ email, password });
+  const res = await agent.post('/api/auth/sign-in/email').set('Origin', TEST_ORIGIN).send({ email, password });
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${res.text}`);
   return agent;
 }

@@ -9,7 +9,6 @@ import { ROOT, startServer as startChildServer } from './child-server';
 export const SCREENSHOT_DIR = path.join(ROOT, 'tests/.artifacts/screenshots');
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 
-
 export interface RunningServer {
   baseUrl: string;
   dataDir: string;

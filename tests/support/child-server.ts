@@ -109,7 +109,11 @@ export interface ScriptRun {
 /** Runs a TypeScript command (`scripts/...`) the way `npm run` does, from the repository root. */
 export function runScript(script: string, args: string[], env: Record<string, string>): Promise<ScriptRun> {
   return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ['--import', 'tsx', script, ...args], { cwd: ROOT, env: childEnv(env), stdio: ['ignore', 'pipe', 'pipe'] });
+    const child = spawn(process.execPath, ['--import', 'tsx', script, ...args], {
+      cwd: ROOT,
+      env: childEnv(env),
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     let stdout = '';
     let stderr = '';
     child.stdout.on('data', (d) => (stdout += d));

@@ -18,7 +18,8 @@ expect.extend({
     if (typeof actual !== 'number' || !Number.isFinite(expected) || !(rel >= 0)) {
       return {
         pass: false,
-        message: () => `toBeRelClose needs a number, a finite expected value and a tolerance >= 0; got actual ${String(actual)}, expected ${expected}, tolerance ${rel}`,
+        message: () =>
+          `toBeRelClose needs a number, a finite expected value and a tolerance >= 0; got actual ${String(actual)}, expected ${expected}, tolerance ${rel}`,
       };
     }
     const error = Math.abs(actual - expected);

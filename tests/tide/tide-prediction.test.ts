@@ -55,7 +55,8 @@ describe('tide by the harmonic method', () => {
       expect(Math.abs(e.level - expected), e.time.toISOString()).toBeLessThan(0.002);
     }
     // Consecutive highs one M2 period apart (Schureman 1958), within a minute.
-    for (let k = 1; k < ex.highMs.length; k++) expect(Math.abs(ex.highMs[k] - ex.highMs[k - 1] - (360 / 28.9841042) * HOUR_MS)).toBeLessThan(60_000);
+    for (let k = 1; k < ex.highMs.length; k++)
+      expect(Math.abs(ex.highMs[k] - ex.highMs[k - 1] - (360 / 28.9841042) * HOUR_MS)).toBeLessThan(60_000);
   });
 
   it('keeps the nodal factor of M2 inside 0.96-1.04 over 19 years (from memory), and moves it across that range', () => {
@@ -91,6 +92,14 @@ describe('tide by the harmonic method', () => {
   });
 
   it('refuses a constituent the package does not know, naming the field', () => {
-    expect(() => tidePredictor({ ...M2_ONLY, constituents: [{ name: 'M2', amplitude: 1, phase: 0 }, { name: 'XQ9', amplitude: 1, phase: 0 }] })).toThrow(/tide\.constituents\.1\.name.*XQ9/);
+    expect(() =>
+      tidePredictor({
+        ...M2_ONLY,
+        constituents: [
+          { name: 'M2', amplitude: 1, phase: 0 },
+          { name: 'XQ9', amplitude: 1, phase: 0 },
+        ],
+      }),
+    ).toThrow(/tide\.constituents\.1\.name.*XQ9/);
   });
 });

@@ -34,7 +34,9 @@ describe('comparing two plans (hand cases)', () => {
   it('reports a window lost (gone, or too short to be usable so no longer listed)', () => {
     const prev = plan({ windows: [w('2026-12-02T00:00:00Z', '2026-12-02T20:00:00Z')], earliestStart: '2026-12-02T00:00:00Z' });
     const changes = comparePlans([prev], [plan({})], opts);
-    expect(changes).toEqual([expect.objectContaining({ kind: 'window_lost', start: '2026-12-02T00:00:00Z', end: '2026-12-02T20:00:00Z', hours: 20 })]);
+    expect(changes).toEqual([
+      expect.objectContaining({ kind: 'window_lost', start: '2026-12-02T00:00:00Z', end: '2026-12-02T20:00:00Z', hours: 20 }),
+    ]);
   });
 
   it('does not report past windows as lost', () => {
@@ -53,7 +55,11 @@ describe('comparing two plans (hand cases)', () => {
   it('reports "may start now" changing and an occurrence turning no-go', () => {
     const prev = plan({ startNow: true, occurrences: [{ start: '2026-12-02T06:00:00Z', status: 'go' }] });
     const next = plan({ startNow: false, occurrences: [{ start: '2026-12-02T06:00:00Z', status: 'no_go' }] });
-    expect(comparePlans([prev], [next], opts).map((c) => c.kind).sort()).toEqual(['occurrence_no_go', 'start_now_changed']);
+    expect(
+      comparePlans([prev], [next], opts)
+        .map((c) => c.kind)
+        .sort(),
+    ).toEqual(['occurrence_no_go', 'start_now_changed']);
   });
 });
 
@@ -81,12 +87,24 @@ describe('alerts speak of usable starts', () => {
     const window = w('2026-12-03T12:00:00Z', '2026-12-03T22:00:00Z');
     const next = tr6([window], { earliestStart: '2026-12-03T15:00:00Z', timeZone: 'UTC' });
     const changes = comparePlans(null, [next], at1403);
-    const mail = await alertEmail({ plan: next, changes, projectName: 'Varrow Reach', boardUrl: 'http://x/board', unsubscribeUrl: 'http://x/u' });
+    const mail = await alertEmail({
+      plan: next,
+      changes,
+      projectName: 'Varrow Reach',
+      boardUrl: 'http://x/board',
+      unsubscribeUrl: 'http://x/u',
+    });
     // 3 December 2026 is a Thursday (GNU date).
     expect(mail.subject).toBe('Varrow Reach: Rock berm at KP 4.5, next start Thu 3 Dec 15:00 (new window, starts from Thu 3 Dec 15:00)');
     expect(mail.subject).not.toContain('12:00');
     expect(mail.text).toContain('starts possible from Thu 3 Dec 15:00 to Thu 3 Dec 16:00');
-    const none = await alertEmail({ plan: tr6([]), changes: [{ ...changes[0], kind: 'window_lost' }], projectName: 'Varrow Reach', boardUrl: 'b', unsubscribeUrl: 'u' });
+    const none = await alertEmail({
+      plan: tr6([]),
+      changes: [{ ...changes[0], kind: 'window_lost' }],
+      projectName: 'Varrow Reach',
+      boardUrl: 'b',
+      unsubscribeUrl: 'u',
+    });
     expect(none.subject).toMatch(/^Varrow Reach: Rock berm at KP 4\.5, no start possible in this forecast \(window lost/);
   });
 });

@@ -16,7 +16,11 @@ const topology = JSON.parse(fs.readFileSync(require.resolve('world-atlas/land-10
 const landFeature = feature(topology, 'land') as unknown as { features: { geometry: { type: string; coordinates: unknown } }[] };
 type Ring = number[][];
 const allPolygons: Ring[][] = landFeature.features.flatMap((f) =>
-  f.geometry.type === 'Polygon' ? [f.geometry.coordinates as Ring[]] : f.geometry.type === 'MultiPolygon' ? (f.geometry.coordinates as Ring[][]) : [],
+  f.geometry.type === 'Polygon'
+    ? [f.geometry.coordinates as Ring[]]
+    : f.geometry.type === 'MultiPolygon'
+      ? (f.geometry.coordinates as Ring[][])
+      : [],
 );
 
 const EARTH_KM = 6371.0088; // mean Earth radius (IUGG), km
@@ -121,9 +125,10 @@ describe('demo positions against Natural Earth land (issue 17)', () => {
   });
 
   it('has depths that grow offshore with a believable slope', () => {
-    const byDistance = [...DEMO_SITES.map((s) => ({ key: s.key, depth: s.depthM, km: nearestCoast(lonLat(s)).km })), { key: 'data point', depth: DEMO_PROJECT.dataPointDepthM, km: nearestCoast(dataPoint).km }].sort(
-      (a, b) => a.km - b.km,
-    );
+    const byDistance = [
+      ...DEMO_SITES.map((s) => ({ key: s.key, depth: s.depthM, km: nearestCoast(lonLat(s)).km })),
+      { key: 'data point', depth: DEMO_PROJECT.dataPointDepthM, km: nearestCoast(dataPoint).km },
+    ].sort((a, b) => a.km - b.km);
     for (let i = 1; i < byDistance.length; i++) expect(byDistance[i].depth, byDistance[i].key).toBeGreaterThan(byDistance[i - 1].depth);
     for (const s of byDistance) {
       // Mean slope from the shoreline: between 1:20 (a steep beach) and 1:1000 (a flat shelf);

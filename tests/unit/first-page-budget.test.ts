@@ -19,7 +19,13 @@ beforeAll(async () => {
   const nodeEnv = process.env.NODE_ENV;
   process.env.NODE_ENV = 'production';
   try {
-    await build({ root: ROOT, configFile: path.join(ROOT, 'vite.config.ts'), mode: 'production', logLevel: 'error', build: { outDir, emptyOutDir: true } });
+    await build({
+      root: ROOT,
+      configFile: path.join(ROOT, 'vite.config.ts'),
+      mode: 'production',
+      logLevel: 'error',
+      build: { outDir, emptyOutDir: true },
+    });
   } finally {
     process.env.NODE_ENV = nodeEnv;
   }

@@ -63,11 +63,19 @@ describe('ledger day arithmetic (hand cases)', () => {
     expect(tallyDay(timeMs, status, limiting, HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 16, limiting: 'noData' });
     // A wholly workable day loses nothing and names no limit; records of the next day do not count.
     const calm = Float64Array.from({ length: 48 }, (_, i) => day + i * HOUR);
-    expect(tallyDay(calm, new Uint8Array(48).fill(STATUS.WORKABLE), new Uint8Array(48), HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 0, limiting: null });
+    expect(tallyDay(calm, new Uint8Array(48).fill(STATUS.WORKABLE), new Uint8Array(48), HOUR, day, day + 24 * HOUR)).toEqual({
+      plannedHours: 24,
+      lostHours: 0,
+      limiting: null,
+    });
     // Three-hourly records stand for three hours each.
     const coarse = Float64Array.from({ length: 8 }, (_, i) => day + i * 3 * HOUR);
     const st = Uint8Array.from([3, 3, 1, 1, 3, 3, 3, 3]);
-    expect(tallyDay(coarse, st, Uint8Array.from([0, 0, 7, 7, 0, 0, 0, 0]), 3 * HOUR, day, day + 24 * HOUR)).toEqual({ plannedHours: 24, lostHours: 6, limiting: 'wind' });
+    expect(tallyDay(coarse, st, Uint8Array.from([0, 0, 7, 7, 0, 0, 0, 0]), 3 * HOUR, day, day + 24 * HOUR)).toEqual({
+      plannedHours: 24,
+      lostHours: 6,
+      limiting: 'wind',
+    });
   });
 
   it('stitches forecast issues minute by minute, the first source that covers a minute deciding', () => {
@@ -75,7 +83,11 @@ describe('ledger day arithmetic (hand cases)', () => {
     // Newest issue from 06:00, 12 h workable then 6 h broken by Hs; an older issue over the whole
     // day, broken by wind everywhere. Hand count: 00-06 wind (older), 06-18 workable, 18-24 Hs; wind
     // and Hs tie at 6 h, and a tie goes to the first limit in the engine's order (Hs, shared/engine/types.ts).
-    const newer = part(day + 6 * HOUR, [...Array(12).fill(WORKABLE), ...Array(6).fill(NOT_WORKABLE)], [...Array(12).fill(0), ...Array(6).fill(LIMIT.HS)]);
+    const newer = part(
+      day + 6 * HOUR,
+      [...Array(12).fill(WORKABLE), ...Array(6).fill(NOT_WORKABLE)],
+      [...Array(12).fill(0), ...Array(6).fill(LIMIT.HS)],
+    );
     const older = part(day, Array(24).fill(NOT_WORKABLE), Array(24).fill(LIMIT.WIND));
     const t = tallyStitched([newer, older], day, day + 24 * HOUR);
     expect(t).toEqual({ plannedHours: 24, lostHours: 12, limiting: 'hs', minutesBySource: [18 * 60, 6 * 60] });
@@ -91,10 +103,18 @@ describe('ledger day arithmetic (hand cases)', () => {
   it('counts a 25-hour day of a clock change whole (Europe/London, 25 October 2026)', () => {
     const { startMs, endMs } = zonedDayMs('2026-10-25', 'Europe/London');
     const calm = part(startMs, Array(25).fill(WORKABLE));
-    expect(tallyDay(calm.timeMs, calm.status, calm.limiting, HOUR, startMs, endMs)).toEqual({ plannedHours: 25, lostHours: 0, limiting: null });
+    expect(tallyDay(calm.timeMs, calm.status, calm.limiting, HOUR, startMs, endMs)).toEqual({
+      plannedHours: 25,
+      lostHours: 0,
+      limiting: null,
+    });
     // Only 24 records: the 25th hour has no record and is lost to missing data.
     const short = part(startMs, Array(24).fill(WORKABLE));
-    expect(tallyDay(short.timeMs, short.status, short.limiting, HOUR, startMs, endMs)).toEqual({ plannedHours: 25, lostHours: 1, limiting: 'noData' });
+    expect(tallyDay(short.timeMs, short.status, short.limiting, HOUR, startMs, endMs)).toEqual({
+      plannedHours: 25,
+      lostHours: 1,
+      limiting: 'noData',
+    });
   });
 
   it('takes the real length of months on clock-change dates (Europe/London March: 743 h)', () => {

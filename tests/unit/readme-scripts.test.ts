@@ -23,7 +23,8 @@ export function readmeScripts(readme: string): string[] {
 
 describe('README lists every npm script (issue 17)', () => {
   it('reads the table rows (the check can fail)', () => {
-    const table = '### Every npm script\n\n| script | what |\n|---|---|\n| `npm start` | a |\n| `npm run db:backup [file]` | b |\n| `npm test` | c |\n\n## Next\n| `npm run later` | d |\n';
+    const table =
+      '### Every npm script\n\n| script | what |\n|---|---|\n| `npm start` | a |\n| `npm run db:backup [file]` | b |\n| `npm test` | c |\n\n## Next\n| `npm run later` | d |\n';
     expect(readmeScripts(table)).toEqual(['start', 'db:backup', 'test']);
   });
 

@@ -20,7 +20,11 @@ describe('recurring operations against RFC 5545 section 3.8.5.3 examples (open s
   });
 
   it('"Every other week on Monday, Wednesday, and Friday until December 24, 1997", across the change from EDT to EST', () => {
-    const r = { start: '1997-09-01T09:00', timeZone: 'America/New_York', rule: 'FREQ=WEEKLY;INTERVAL=2;WKST=SU;UNTIL=19971224T000000Z;BYDAY=MO,WE,FR' };
+    const r = {
+      start: '1997-09-01T09:00',
+      timeZone: 'America/New_York',
+      rule: 'FREQ=WEEKLY;INTERVAL=2;WKST=SU;UNTIL=19971224T000000Z;BYDAY=MO,WE,FR',
+    };
     const got = utc(expandRecurrence(r, Date.UTC(1997, 0, 1), Date.UTC(1998, 0, 1)));
     // RFC 5545: "(1997 9:00 AM EDT) September 1,3,5,15,17,19,29; October 1,3,13,15,17
     //            (1997 9:00 AM EST) October 27,29,31; November 10,12,14,24,26,28; December 8,10,12,22"

@@ -3,7 +3,20 @@
 import { describe, expect, it } from 'vitest';
 import { parseTransferTableCsv } from '../../shared/schemas/sites';
 
-const TABLE = { directionSectorsDeg: [[0, 180], [180, 360]], tpBandsS: [[0, 6], [6, 30]], factors: [[0.5, 0.6], [0.7, 0.8]] };
+const TABLE = {
+  directionSectorsDeg: [
+    [0, 180],
+    [180, 360],
+  ],
+  tpBandsS: [
+    [0, 6],
+    [6, 30],
+  ],
+  factors: [
+    [0.5, 0.6],
+    [0.7, 0.8],
+  ],
+};
 
 describe('transfer-table CSV with quoted cells', () => {
   it('reads a quoted header cell that holds a comma as one cell (RFC 4180, section 2, rule 6)', () => {

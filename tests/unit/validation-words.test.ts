@@ -7,7 +7,8 @@ import { issuesInWords, pathInWords, problemSentence } from '../../shared/schema
 
 // The words users must never read: zod's own English (its default locale), dotted schema paths and
 // camel-case keys. The phrases are those issue 22 quotes from a hands-on run.
-export const CODE_WORDS = /Too big|Too small|Invalid input|expected (?:number|string|boolean|array|object)|received \w+|<=|>=|NaN|\bundefined\b|[a-z][a-zA-Z]*[A-Z][a-zA-Z]*:|› [a-z]+[A-Z]|\b\w+ \d+ \d+\b/;
+export const CODE_WORDS =
+  /Too big|Too small|Invalid input|expected (?:number|string|boolean|array|object)|received \w+|<=|>=|NaN|\bundefined\b|[a-z][a-zA-Z]*[A-Z][a-zA-Z]*:|› [a-z]+[A-Z]|\b\w+ \d+ \d+\b/;
 
 const settings = {
   name: 'Berth works',
@@ -52,10 +53,23 @@ describe('validation messages in words (issue 22)', () => {
       worksites: [],
       operations: [
         { name: 'Survey', tpop: 4, tc: 2, weatherRestricted: true, limits: { hsMax: 2 } },
-        { name: 'Cable pull-in', tpop: 4, tc: 2, weatherRestricted: true, limits: { hsTpCurve: [[6, 1.5], [99, 1]] } },
+        {
+          name: 'Cable pull-in',
+          tpop: 4,
+          tc: 2,
+          weatherRestricted: true,
+          limits: {
+            hsTpCurve: [
+              [6, 1.5],
+              [99, 1],
+            ],
+          },
+        },
       ],
     };
-    expect(pathInWords(['operations', 1, 'limits', 'hsTpCurve', 1, 0], doc)).toBe('Operation 2 “Cable pull-in” › Limits › Hs–Tp curve point 2, Tp');
+    expect(pathInWords(['operations', 1, 'limits', 'hsTpCurve', 1, 0], doc)).toBe(
+      'Operation 2 “Cable pull-in” › Limits › Hs–Tp curve point 2, Tp',
+    );
     const said = sentences(ProjectSetupDocument, doc).join('\n');
     // The bound of Tp is 40 s in shared/engine/schemas.ts LIMIT_RANGES (a sanity bound, common practice, no source).
     expect(said).toContain('Operation 2 “Cable pull-in” › Limits › Hs–Tp curve point 2, Tp: Curve Tp must be at most 40 s');
@@ -64,7 +78,14 @@ describe('validation messages in words (issue 22)', () => {
 
   it('names the row and column of an alpha table value', () => {
     expect(pathInWords(['values', 1, 2])).toBe('Alpha row 2, column 3');
-    const said = sentences(alphaTableSchema, { tpopBoundsH: [6, 72], hsColumnsM: [1, 2], values: [[0.8, 0.9], [0.7, 1.5]] });
+    const said = sentences(alphaTableSchema, {
+      tpopBoundsH: [6, 72],
+      hsColumnsM: [1, 2],
+      values: [
+        [0.8, 0.9],
+        [0.7, 1.5],
+      ],
+    });
     expect(said).toEqual(['Alpha row 2, column 2: Alpha must not exceed 1']);
   });
 

@@ -22,7 +22,9 @@ describe('calculator form schemas over typed text', () => {
 
   it('asks for a blank required field in words', () => {
     expect(issues(RegularWaveForm.safeParse({ period: '', height: '2', depth: '10', z: '' }))).toEqual(['period: Enter the wave period']);
-    expect(issues(SeaStateForm.safeParse({ hs: '2', tp: '10', tz: '', te: '', gamma: '', depth: ' ' }))).toEqual(['depth: Enter the water depth']);
+    expect(issues(SeaStateForm.safeParse({ hs: '2', tp: '10', tz: '', te: '', gamma: '', depth: ' ' }))).toEqual([
+      'depth: Enter the water depth',
+    ]);
   });
 
   it("refuses out-of-range values with the server's own range message, on the field", () => {
@@ -31,12 +33,18 @@ describe('calculator form schemas over typed text', () => {
   });
 
   it('keeps the rules that join fields: z above the bed, one period at least, to above from', () => {
-    expect(issues(RegularWaveForm.safeParse({ period: '10', height: '2', depth: '10', z: '-12' }))).toEqual(['z: z must not be below the seabed (z >= -depth)']);
-    expect(issues(SeaStateForm.safeParse({ hs: '2', tp: '', tz: '', te: '', gamma: '', depth: '20' }))).toEqual(['tp: give at least one of tp, tz, te']);
+    expect(issues(RegularWaveForm.safeParse({ period: '10', height: '2', depth: '10', z: '-12' }))).toEqual([
+      'z: z must not be below the seabed (z >= -depth)',
+    ]);
+    expect(issues(SeaStateForm.safeParse({ hs: '2', tp: '', tz: '', te: '', gamma: '', depth: '20' }))).toEqual([
+      'tp: give at least one of tp, tz, te',
+    ]);
     expect(issues(WaveTableForm.safeParse({ from: '0.5', to: '0.1', step: '0.01' }))).toEqual(['to: to must not be below from']);
   });
 
   it('refuses text that is not a number', () => {
-    expect(issues(RegularWaveForm.safeParse({ period: 'ten', height: '2', depth: '10', z: '' }))[0]).toMatch(/^period: period must be a number/);
+    expect(issues(RegularWaveForm.safeParse({ period: 'ten', height: '2', depth: '10', z: '' }))[0]).toMatch(
+      /^period: period must be a number/,
+    );
   });
 });

@@ -37,10 +37,7 @@ describe('JONSWAP period ratios', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 7, noNaN: true }), (gamma) => {
         const m = jonswapShapeMoments(gamma);
-        return (
-          relClose(jonswapTzOverTp(gamma), Math.sqrt(m.m0 / m.m2), 0.005) &&
-          relClose(jonswapTm01OverTp(gamma), m.m0 / m.m1, 0.005)
-        );
+        return relClose(jonswapTzOverTp(gamma), Math.sqrt(m.m0 / m.m2), 0.005) && relClose(jonswapTm01OverTp(gamma), m.m0 / m.m1, 0.005);
       }),
       { numRuns: 40 },
     );

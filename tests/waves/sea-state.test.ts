@@ -159,16 +159,21 @@ describe('Soulsby (2006) against a numerical integration of a JONSWAP spectrum t
     const hi = 12 * fp;
     const N = 20_000;
     const m0Shape = simpson((f) => jonswapShape(f, fp), lo, hi, N);
-    const scale = hs * hs / 16 / m0Shape;
+    const scale = (hs * hs) / 16 / m0Shape;
     const m2 = simpson((f) => scale * f * f * jonswapShape(f, fp), lo, hi, N);
-    const velocityVariance = simpson((f) => {
-      const omega = 2 * Math.PI * f;
-      const k = refK(1 / f, d);
-      const transfer = omega / Math.sinh(k * d);
-      return scale * jonswapShape(f, fp) * transfer * transfer;
-    }, lo, hi, N);
+    const velocityVariance = simpson(
+      (f) => {
+        const omega = 2 * Math.PI * f;
+        const k = refK(1 / f, d);
+        const transfer = omega / Math.sinh(k * d);
+        return scale * jonswapShape(f, fp) * transfer * transfer;
+      },
+      lo,
+      hi,
+      N,
+    );
     const uRms = Math.sqrt(velocityVariance);
-    return { uS: 2 * uRms, uRms, tz: Math.sqrt(hs * hs / 16 / m2) };
+    return { uS: 2 * uRms, uRms, tz: Math.sqrt((hs * hs) / 16 / m2) };
   }
 
   it('2 sqrt(integral) agrees with U_s = 2 U_rms within 3 % for t = Tn/Tz < 0.4 over depths and periods', () => {

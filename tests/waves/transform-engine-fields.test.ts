@@ -4,7 +4,14 @@
 // physics transform.test.ts checks against published dispersion values.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { createSiteSeries, prepareSeaInput, transformToSite, type SeaSeriesInput, type SiteGeometry, type TransferTable } from '../../shared/waves';
+import {
+  createSiteSeries,
+  prepareSeaInput,
+  transformToSite,
+  type SeaSeriesInput,
+  type SiteGeometry,
+  type TransferTable,
+} from '../../shared/waves';
 
 const table: TransferTable = {
   directionSectorsDeg: [
@@ -39,7 +46,10 @@ const num = (lo: number, hi: number) =>
   );
 
 const inputArb: fc.Arbitrary<SeaSeriesInput> = fc
-  .array(fc.record({ hs: num(0, 8), tp: num(2, 20), tz: fc.oneof(fc.constant(NaN), num(2, 14)), dir: fc.oneof(num(0, 360), num(-400, 800)) }), { minLength: 1, maxLength: 200 })
+  .array(
+    fc.record({ hs: num(0, 8), tp: num(2, 20), tz: fc.oneof(fc.constant(NaN), num(2, 14)), dir: fc.oneof(num(0, 360), num(-400, 800)) }),
+    { minLength: 1, maxLength: 200 },
+  )
   .map((recs) => ({
     hsM: Float64Array.from(recs, (r) => r.hs),
     tpS: Float64Array.from(recs, (r) => r.tp),
@@ -52,21 +62,30 @@ const same = (a: Float64Array, b: Float64Array) => expect(Array.from(a, (x, i) =
 describe("transformToSite: fields 'engine' and a prepared input give the default path's values bit for bit", () => {
   it('Hs and both bed velocities, at several worksites from one prepared input, and all fields with `prepared` alone', () => {
     fc.assert(
-      fc.property(inputArb, fc.array(siteArb, { minLength: 1, maxLength: 4 }), fc.constantFrom(60, 20, Infinity), (input, sites, srcDepth) => {
-        const prepared = prepareSeaInput(input);
-        for (const site of sites) {
-          const want = transformToSite(input, { depthM: srcDepth }, site);
-          const fast = transformToSite(input, { depthM: srcDepth }, site, { fields: 'engine', prepared, out: createSiteSeries(input.hsM.length) });
-          same(fast.hsM, want.hsM);
-          same(fast.bedVelocityLinearMps, want.bedVelocityLinearMps);
-          same(fast.bedVelocitySoulsbyMps, want.bedVelocitySoulsbyMps);
-          const full = transformToSite(input, { depthM: srcDepth }, site, { prepared });
-          for (const key of ['hsM', 'dirDeg', 'bedVelocityLinearMps', 'bedVelocitySoulsbyMps'] as const) same(full[key], want[key]);
-          expect(Array.from(full.flags)).toEqual(Array.from(want.flags));
-          expect(Array.from(full.ks, (x, i) => Object.is(x, want.ks[i]))).not.toContain(false);
-          expect(Array.from(full.kr, (x, i) => Object.is(x, want.kr[i]))).not.toContain(false);
-        }
-      }),
+      fc.property(
+        inputArb,
+        fc.array(siteArb, { minLength: 1, maxLength: 4 }),
+        fc.constantFrom(60, 20, Infinity),
+        (input, sites, srcDepth) => {
+          const prepared = prepareSeaInput(input);
+          for (const site of sites) {
+            const want = transformToSite(input, { depthM: srcDepth }, site);
+            const fast = transformToSite(input, { depthM: srcDepth }, site, {
+              fields: 'engine',
+              prepared,
+              out: createSiteSeries(input.hsM.length),
+            });
+            same(fast.hsM, want.hsM);
+            same(fast.bedVelocityLinearMps, want.bedVelocityLinearMps);
+            same(fast.bedVelocitySoulsbyMps, want.bedVelocitySoulsbyMps);
+            const full = transformToSite(input, { depthM: srcDepth }, site, { prepared });
+            for (const key of ['hsM', 'dirDeg', 'bedVelocityLinearMps', 'bedVelocitySoulsbyMps'] as const) same(full[key], want[key]);
+            expect(Array.from(full.flags)).toEqual(Array.from(want.flags));
+            expect(Array.from(full.ks, (x, i) => Object.is(x, want.ks[i]))).not.toContain(false);
+            expect(Array.from(full.kr, (x, i) => Object.is(x, want.kr[i]))).not.toContain(false);
+          }
+        },
+      ),
       { numRuns: 300 },
     );
   });
@@ -75,6 +94,8 @@ describe("transformToSite: fields 'engine' and a prepared input give the default
     const a: SeaSeriesInput = { hsM: Float64Array.of(1), tpS: Float64Array.of(8), tzS: Float64Array.of(NaN), dirDeg: Float64Array.of(250) };
     const b: SeaSeriesInput = { ...a, tpS: Float64Array.of(9) };
     const site: SiteGeometry = { depthM: 10, shoreNormalDeg: 250, breakerIndex: 0.6 };
-    expect(() => transformToSite(b, { depthM: 60 }, site, { prepared: prepareSeaInput(a) })).toThrow(/prepared was made from another input/);
+    expect(() => transformToSite(b, { depthM: 60 }, site, { prepared: prepareSeaInput(a) })).toThrow(
+      /prepared was made from another input/,
+    );
   });
 });

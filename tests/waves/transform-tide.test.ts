@@ -17,7 +17,13 @@ describe('depth that moves with the tide', () => {
     const times = Array.from({ length: n }, (_, k) => (k * M2_PERIOD_H) / 24);
     const level = Float64Array.from(times, (t) => 1.5 * Math.cos((2 * Math.PI * t) / M2_PERIOD_H));
     const out = transformToSite(
-      { hsM: new Float64Array(n).fill(6), tpS: new Float64Array(n).fill(10), tzS: new Float64Array(n).fill(NaN), dirDeg: new Float64Array(n).fill(NaN), waterLevelM: level },
+      {
+        hsM: new Float64Array(n).fill(6),
+        tpS: new Float64Array(n).fill(10),
+        tzS: new Float64Array(n).fill(NaN),
+        dirDeg: new Float64Array(n).fill(NaN),
+        waterLevelM: level,
+      },
       { depthM: Infinity },
       { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
     );
@@ -37,7 +43,13 @@ describe('depth that moves with the tide', () => {
     const level = Float64Array.of(1.5, 0, -1.5);
     const n = 3;
     const out = transformToSite(
-      { hsM: new Float64Array(n).fill(0.2), tpS: new Float64Array(n).fill(8), tzS: new Float64Array(n).fill(NaN), dirDeg: new Float64Array(n).fill(NaN), waterLevelM: level },
+      {
+        hsM: new Float64Array(n).fill(0.2),
+        tpS: new Float64Array(n).fill(8),
+        tzS: new Float64Array(n).fill(NaN),
+        dirDeg: new Float64Array(n).fill(NaN),
+        waterLevelM: level,
+      },
       { depthM: Infinity },
       { depthM: 4, shoreNormalDeg: null, breakerIndex: 0.6 },
     );
@@ -45,7 +57,11 @@ describe('depth that moves with the tide', () => {
     expect(out.ks[1]).toBeLessThan(out.ks[2]);
     expect(out.bedVelocityLinearMps[0]).toBeLessThan(out.bedVelocityLinearMps[2]);
     // The middle record is the chart depth exactly: the same figures as the fixed-depth path.
-    const fixed = transformToSite({ hsM: Float64Array.of(0.2), tpS: Float64Array.of(8), tzS: Float64Array.of(NaN), dirDeg: Float64Array.of(NaN) }, { depthM: Infinity }, { depthM: 4, shoreNormalDeg: null, breakerIndex: 0.6 });
+    const fixed = transformToSite(
+      { hsM: Float64Array.of(0.2), tpS: Float64Array.of(8), tzS: Float64Array.of(NaN), dirDeg: Float64Array.of(NaN) },
+      { depthM: Infinity },
+      { depthM: 4, shoreNormalDeg: null, breakerIndex: 0.6 },
+    );
     expect(out.hsM[1]).toBeCloseTo(fixed.hsM[0], 6);
     // By hand at h = 2.5 m, T = 8 s (linear theory, docs/domain.md#dispersion): omega^2 h/g = 0.1572, so
     // kh tanh(kh) = 0.1572 gives kh = 0.407 (fixed-point steps on a calculator); C = omega h/kh = 4.82 m/s,
@@ -57,7 +73,13 @@ describe('depth that moves with the tide', () => {
     const level = Float64Array.of(-2.5, -2, NaN, 0.3);
     const n = 4;
     const out = transformToSite(
-      { hsM: new Float64Array(n).fill(1), tpS: new Float64Array(n).fill(8), tzS: new Float64Array(n).fill(NaN), dirDeg: new Float64Array(n).fill(NaN), waterLevelM: level },
+      {
+        hsM: new Float64Array(n).fill(1),
+        tpS: new Float64Array(n).fill(8),
+        tzS: new Float64Array(n).fill(NaN),
+        dirDeg: new Float64Array(n).fill(NaN),
+        waterLevelM: level,
+      },
       { depthM: Infinity },
       { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
     );
@@ -67,11 +89,19 @@ describe('depth that moves with the tide', () => {
     expect(Number.isNaN(out.hsM[0]) && Number.isNaN(out.bedVelocityLinearMps[1]) && Number.isNaN(out.hsM[2])).toBe(true);
     expect(out.hsM[3]).toBeGreaterThan(0);
     // The chain of one hour shows the water level and the depth used.
-    const chain = transformOne({ hsM: 1, tpS: 8, waterLevelM: 0.3 }, { depthM: Infinity }, { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 });
+    const chain = transformOne(
+      { hsM: 1, tpS: 8, waterLevelM: 0.3 },
+      { depthM: Infinity },
+      { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
+    );
     expect(chain.waterLevelM).toBe(0.3);
     expect(chain.depthM).toBeCloseTo(2.3, 12);
     expect(chain.depthLimitM).toBeCloseTo(0.6 * 2.3, 12);
-    const dry = transformOne({ hsM: 1, tpS: 8, waterLevelM: -2.1 }, { depthM: Infinity }, { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 });
+    const dry = transformOne(
+      { hsM: 1, tpS: 8, waterLevelM: -2.1 },
+      { depthM: Infinity },
+      { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
+    );
     expect(dry.flagNames).toEqual(['DRY']);
   });
 });

@@ -95,7 +95,7 @@ describe('transform: refraction and shoaling (docs/domain.md#transformation step
     expect(c.dirDeg).toBe(0);
   });
 
-  it('conserves energy flux Hs^2 Cg cos(theta) and Snell\'s invariant sin(theta)/C below the depth limit (fast-check)', () => {
+  it("conserves energy flux Hs^2 Cg cos(theta) and Snell's invariant sin(theta)/C below the depth limit (fast-check)", () => {
     let refracted = 0;
     fc.assert(
       fc.property(
@@ -162,7 +162,7 @@ describe('transform: docs/domain.md#convention-1 to #convention-4 (flags)', () =
       expect(r.flags).toBe(LANDWARD);
       expect(r.kr).toBe(1);
       expect(r.dir).toBe(dir);
-      expect(r.ks).toBeRelClose(Math.sqrt(((G * 9) / (4 * Math.PI)) / refCg(9, 12)), 1e-6);
+      expect(r.ks).toBeRelClose(Math.sqrt((G * 9) / (4 * Math.PI) / refCg(9, 12)), 1e-6);
     }
     const chain = transformOne({ hsM: 1, tpS: 9, dirDeg: 0 }, DEEP, site);
     expect(chain.thetaSrcDeg).toBe(90);
@@ -240,7 +240,14 @@ describe('transform: docs/domain.md#convention-1 to #convention-4 (flags)', () =
 
   it('docs/domain.md#convention-8: Soulsby bed velocity uses Tz from the record, else Tz = (Tz/Tp)(gamma 3.3) Tp', () => {
     const tzRatio = 0.6673 + 0.05037 * 3.3 - 0.00623 * 3.3 ** 2 + 0.0003341 * 3.3 ** 3; // DNV-RP-C205 (from memory)
-    const out = transformToSite(series([{ hs: 1.5, tp: 10, tz: 7.2, dir: 265 }, { hs: 1.5, tp: 10, dir: 265 }]), DEEP, site);
+    const out = transformToSite(
+      series([
+        { hs: 1.5, tp: 10, tz: 7.2, dir: 265 },
+        { hs: 1.5, tp: 10, dir: 265 },
+      ]),
+      DEEP,
+      site,
+    );
     expect(out.bedVelocitySoulsbyMps[0]).toBeCloseTo(bedVelocitySoulsby(out.hsM[0], 7.2, 12), 14);
     expect(out.bedVelocitySoulsbyMps[1]).toBeCloseTo(bedVelocitySoulsby(out.hsM[1], 10 * tzRatio, 12), 12);
     expect(out.bedVelocityLinearMps[0]).toBeCloseTo(bedVelocityLinear(out.hsM[0], 10, 12), 14);
@@ -279,7 +286,14 @@ describe('transform: transfer tables (docs/domain.md#convention-17: half-open se
     expect(factorOf(200, 1)).toBe(0.31);
     expect(factorOf(200, 30)).toBe(0.34); // 30 is outside [14, 30): nearest is the last band
     expect(factorOf(200, 45)).toBe(0.34);
-    const gappy: TransferTable = { directionSectorsDeg: [[0, 360]], tpBandsS: [[4, 6], [8, 10]], factors: [[0.5, 0.7]] };
+    const gappy: TransferTable = {
+      directionSectorsDeg: [[0, 360]],
+      tpBandsS: [
+        [4, 6],
+        [8, 10],
+      ],
+      factors: [[0.5, 0.7]],
+    };
     const g = (tp: number) => transformOne({ hsM: 1, tpS: tp, dirDeg: 1 }, DEEP, { ...site, transferTable: gappy }).transferFactor;
     expect(g(6)).toBe(0.5); // on the open edge of [4, 6): outside, nearest is [4, 6)
     expect(g(6.9)).toBe(0.5);
@@ -328,7 +342,14 @@ describe('transform: the array path equals the single-record path', () => {
     depthM: 9,
     shoreNormalDeg: 200,
     breakerIndex: 0.55,
-    transferTable: { directionSectorsDeg: [[90, 270]], tpBandsS: [[0, 8], [8, 20]], factors: [[0.9, 1.1]] },
+    transferTable: {
+      directionSectorsDeg: [[90, 270]],
+      tpBandsS: [
+        [0, 8],
+        [8, 20],
+      ],
+      factors: [[0.9, 1.1]],
+    },
   };
   const maybeNaN = (arb: fc.Arbitrary<number>) => fc.oneof({ weight: 1, arbitrary: fc.constant(NaN) }, { weight: 8, arbitrary: arb });
   const record = fc.record({

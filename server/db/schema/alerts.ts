@@ -8,7 +8,9 @@ import { dataset } from './datasets';
 export const planRun = pgTable(
   'plan_run',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),
@@ -28,7 +30,9 @@ export const planRun = pgTable(
 export const alert = pgTable(
   'alert',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),
@@ -51,7 +55,9 @@ export const alert = pgTable(
 export const outbox = pgTable(
   'outbox',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     idempotencyKey: text().notNull().unique(),
     projectId: uuid().references(() => project.id, { onDelete: 'cascade' }),
     userId: text().references(() => user.id, { onDelete: 'set null' }),
@@ -59,7 +65,9 @@ export const outbox = pgTable(
     subject: text().notNull(),
     text: text().notNull(),
     html: text().notNull(),
-    status: text({ enum: ['pending', 'sent', 'failed'] }).notNull().default('pending'),
+    status: text({ enum: ['pending', 'sent', 'failed'] })
+      .notNull()
+      .default('pending'),
     attempts: integer().notNull().default(0),
     nextAttemptAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     lastError: text(),
@@ -73,7 +81,9 @@ export const outbox = pgTable(
 export const subscription = pgTable(
   'subscription',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     userId: text()
       .notNull()
       .references(() => user.id, { onDelete: 'cascade' }),

@@ -13,7 +13,9 @@ export const DATASET_KIND_VALUES = ['hindcast', 'forecast', 'observation'] as co
 export const dataset = pgTable(
   'dataset',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),

@@ -19,7 +19,9 @@ export interface CampaignStepProgress {
 export const campaign = pgTable(
   'campaign',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),
@@ -42,7 +44,9 @@ export const campaign = pgTable(
 export const ledgerDay = pgTable(
   'ledger_day',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),
@@ -64,7 +68,9 @@ export const ledgerDay = pgTable(
     note: text().notNull().default(''),
     source: text({ enum: ['observation', 'forecast'] }).notNull(),
     datasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
-    status: text({ enum: ['proposed', 'confirmed'] }).notNull().default('proposed'),
+    status: text({ enum: ['proposed', 'confirmed'] })
+      .notNull()
+      .default('proposed'),
     confirmedBy: text().references(() => user.id, { onDelete: 'set null' }),
     confirmedAt: timestamp({ withTimezone: true }),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -87,7 +93,9 @@ export const statsCache = pgTable('stats_cache', {
 export const campaignOutlook = pgTable(
   'campaign_outlook',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),

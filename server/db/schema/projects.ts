@@ -4,7 +4,9 @@ import { PROJECT_ROLES } from '../../../shared/auth/roles';
 import { user } from './auth';
 
 export const project = pgTable('project', {
-  id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+  id: uuid()
+    .primaryKey()
+    .default(sql`gen_random_uuid()`),
   name: text().notNull(),
   description: text().notNull().default(''),
   /** The offshore data point whose sea states feed the project's worksites. */
@@ -14,7 +16,9 @@ export const project = pgTable('project', {
   /** Water depth at the data point in metres; null means deep water (docs/domain.md#convention-1). */
   dataPointDepthM: doublePrecision(),
   /** 'service' fetches forecasts from the forecast provider; 'uploads' only takes uploaded files. */
-  forecastSource: text({ enum: ['service', 'uploads'] }).notNull().default('uploads'),
+  forecastSource: text({ enum: ['service', 'uploads'] })
+    .notNull()
+    .default('uploads'),
   /**
    * The hindcast the coordinator chose as the default for statistics; null (or a dataset since
    * deleted) = the newest hindcast. No foreign key: dataset already refers to project.
@@ -32,7 +36,9 @@ export const project = pgTable('project', {
 export const projectMember = pgTable(
   'project_member',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),

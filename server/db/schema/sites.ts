@@ -8,7 +8,9 @@ import { dataset } from './datasets';
 export const worksite = pgTable(
   'worksite',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),
@@ -42,7 +44,9 @@ export const worksite = pgTable(
 export const operation = pgTable(
   'operation',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),
@@ -77,7 +81,9 @@ export const projectAlpha = pgTable('project_alpha', {
 export const auditEntry = pgTable(
   'audit_entry',
   {
-    id: uuid().primaryKey().default(sql`gen_random_uuid()`),
+    id: uuid()
+      .primaryKey()
+      .default(sql`gen_random_uuid()`),
     projectId: uuid()
       .notNull()
       .references(() => project.id, { onDelete: 'cascade' }),

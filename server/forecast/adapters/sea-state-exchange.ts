@@ -5,7 +5,14 @@
  * implementing the same {@link ForecastAdapter}, and is chosen in `createForecastProvider`.
  */
 import { ForecastServiceError } from '../forecast-service-error';
-import { EXCHANGE_PATH, EXCHANGE_SERIES, EXCHANGE_SERIES_KEYS, seaStateExchangeSchema, type ExchangeSeriesSpec, type SeaStateExchange } from '../forecast-schema';
+import {
+  EXCHANGE_PATH,
+  EXCHANGE_SERIES,
+  EXCHANGE_SERIES_KEYS,
+  seaStateExchangeSchema,
+  type ExchangeSeriesSpec,
+  type SeaStateExchange,
+} from '../forecast-schema';
 import type { ForecastAdapter, ForecastIssue, ForecastRecords } from '../types';
 
 /** At most this many validation problems are listed in an error. */

@@ -25,43 +25,43 @@ export function AppLayout() {
 
   return (
     <PageZoneProvider>
-    <div className="flex min-h-screen flex-col">
-      <header className="no-print bg-deep text-white">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-2 px-3 py-2 sm:px-5">
-          <Link to="/" className="mr-2 flex min-h-11 items-center gap-2 font-bold tracking-tight">
-            <Logo className="size-8" />
-            <span className="text-lg">Lullwatch</span>
-          </Link>
-          <nav className="flex flex-wrap gap-1" aria-label="Main">
-            {sections.map((s) => (
-              <NavLink key={s.path} to={s.path} className={navClass} end={s.path === '/'}>
-                {s.label}
+      <div className="flex min-h-screen flex-col">
+        <header className="no-print bg-deep text-white">
+          <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-2 px-3 py-2 sm:px-5">
+            <Link to="/" className="mr-2 flex min-h-11 items-center gap-2 font-bold tracking-tight">
+              <Logo className="size-8" />
+              <span className="text-lg">Lullwatch</span>
+            </Link>
+            <nav className="flex flex-wrap gap-1" aria-label="Main">
+              {sections.map((s) => (
+                <NavLink key={s.path} to={s.path} className={navClass} end={s.path === '/'}>
+                  {s.label}
+                </NavLink>
+              ))}
+            </nav>
+            <div className="ml-auto flex items-center gap-1">
+              <NavLink to="/account" className={navClass} data-testid="signed-in-as" title="Your account: change your password">
+                {user?.name ?? 'Account'}
               </NavLink>
-            ))}
-          </nav>
-          <div className="ml-auto flex items-center gap-1">
-            <NavLink to="/account" className={navClass} data-testid="signed-in-as" title="Your account: change your password">
-              {user?.name ?? 'Account'}
-            </NavLink>
-            <ThemeToggle />
-            <button
-              type="button"
-              className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-white/90 hover:bg-white/10"
-              onClick={() => signOut.mutate(undefined, { onSuccess: () => void navigate('/sign-in', { replace: true }) })}
-            >
-              Sign out
-            </button>
+              <ThemeToggle />
+              <button
+                type="button"
+                className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-white/90 hover:bg-white/10"
+                onClick={() => signOut.mutate(undefined, { onSuccess: () => void navigate('/sign-in', { replace: true }) })}
+              >
+                Sign out
+              </button>
+            </div>
           </div>
-        </div>
-      </header>
-      <main className="mx-auto w-full max-w-7xl flex-1 px-3 py-5 sm:px-5">
-        {inProject ? null : <PageZoneStatement className="mb-3" />}
-        <Outlet />
-      </main>
-      <footer className="border-t border-line px-4 py-4">
-        <Caution />
-      </footer>
-    </div>
+        </header>
+        <main className="mx-auto w-full max-w-7xl flex-1 px-3 py-5 sm:px-5">
+          {inProject ? null : <PageZoneStatement className="mb-3" />}
+          <Outlet />
+        </main>
+        <footer className="border-t border-line px-4 py-4">
+          <Caution />
+        </footer>
+      </div>
     </PageZoneProvider>
   );
 }

@@ -58,12 +58,20 @@ export function ProjectLayout() {
           ))}
         </nav>
         {cue.left ? (
-          <span className="pointer-events-none absolute inset-y-0 left-0 flex w-10 items-center bg-gradient-to-r from-canvas to-transparent pl-0.5 text-lg font-bold text-ink-soft" aria-hidden data-testid="tabs-cue-left">
+          <span
+            className="pointer-events-none absolute inset-y-0 left-0 flex w-10 items-center bg-gradient-to-r from-canvas to-transparent pl-0.5 text-lg font-bold text-ink-soft"
+            aria-hidden
+            data-testid="tabs-cue-left"
+          >
             ‹
           </span>
         ) : null}
         {cue.right ? (
-          <span className="pointer-events-none absolute inset-y-0 right-0 flex w-10 items-center justify-end bg-gradient-to-l from-canvas to-transparent pr-0.5 text-lg font-bold text-ink-soft" aria-hidden data-testid="tabs-cue-right">
+          <span
+            className="pointer-events-none absolute inset-y-0 right-0 flex w-10 items-center justify-end bg-gradient-to-l from-canvas to-transparent pr-0.5 text-lg font-bold text-ink-soft"
+            aria-hidden
+            data-testid="tabs-cue-right"
+          >
             ›
           </span>
         ) : null}

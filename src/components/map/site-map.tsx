@@ -4,7 +4,15 @@
 // the app). A production tile style replaces it when the server sets MAP_STYLE_URL.
 // This module is heavy (the map library): load it through ./lazy-site-map.tsx only.
 import { useEffect, useRef } from 'react';
-import { AttributionControl, LngLatBounds, Map as MapView, Marker, NavigationControl, setWorkerUrl, type StyleSpecification } from 'maplibre-gl';
+import {
+  AttributionControl,
+  LngLatBounds,
+  Map as MapView,
+  Marker,
+  NavigationControl,
+  setWorkerUrl,
+  type StyleSpecification,
+} from 'maplibre-gl';
 // The map library draws in a worker it loads from beside its own module; the bundle moves the
 // module, so the worker file is shipped as an asset of ours and named here.
 import workerUrl from 'maplibre-gl/dist/maplibre-gl-worker.mjs?url';
@@ -107,7 +115,10 @@ function siteMarker(site: MapSite, highlighted: boolean): HTMLElement {
   el.dataset.testid = 'map-site-marker';
   el.dataset.siteId = site.id;
   el.setAttribute('role', 'img');
-  el.setAttribute('aria-label', `Worksite ${site.name}${site.shoreNormal !== null ? `, shore normal ${Math.round(site.shoreNormal)}°` : ''}`);
+  el.setAttribute(
+    'aria-label',
+    `Worksite ${site.name}${site.shoreNormal !== null ? `, shore normal ${Math.round(site.shoreNormal)}°` : ''}`,
+  );
   el.style.position = 'relative';
   el.style.width = '18px';
   el.style.height = '18px';
@@ -118,7 +129,8 @@ function siteMarker(site: MapSite, highlighted: boolean): HTMLElement {
   el.append(dot);
   const name = document.createElement('div');
   name.textContent = site.name;
-  name.style.cssText = 'position:absolute;left:22px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff';
+  name.style.cssText =
+    'position:absolute;left:22px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff';
   el.append(name);
   return el;
 }
@@ -128,23 +140,39 @@ function pointMarker(p: MapPoint, kind: 'data-point' | 'tide-station', waveDirec
   el.dataset.testid = kind === 'data-point' ? 'map-data-point' : 'map-tide-station';
   el.setAttribute('role', 'img');
   const what = kind === 'data-point' ? 'Offshore data point' : 'Tide station';
-  el.setAttribute('aria-label', `${what} ${p.name}${waveDirection !== null ? `, mean wave direction ${Math.round(waveDirection)}° (coming from)` : ''}`);
+  el.setAttribute(
+    'aria-label',
+    `${what} ${p.name}${waveDirection !== null ? `, mean wave direction ${Math.round(waveDirection)}° (coming from)` : ''}`,
+  );
   el.style.position = 'relative';
   el.style.width = '16px';
   el.style.height = '16px';
   // Waves "coming from" d travel towards d + 180°: the arrow shows the way they go.
-  if (waveDirection !== null) el.append(arrow((waveDirection + 180) % 360, '#b4233c', 40, `Mean wave direction ${Math.round(waveDirection)}° (coming from)`));
+  if (waveDirection !== null)
+    el.append(arrow((waveDirection + 180) % 360, '#b4233c', 40, `Mean wave direction ${Math.round(waveDirection)}° (coming from)`));
   const box = document.createElement('div');
   box.style.cssText = `position:absolute;inset:0;transform:rotate(45deg);border:2px solid #fff;background:${kind === 'data-point' ? '#b4233c' : '#16415a'};box-shadow:0 0 0 1px #0e2a3b`;
   el.append(box);
   const name = document.createElement('div');
   name.textContent = p.name;
-  name.style.cssText = 'position:absolute;left:20px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff';
+  name.style.cssText =
+    'position:absolute;left:20px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff';
   el.append(name);
   return el;
 }
 
-export function SiteMap({ sites, dataPoint, waveDirection, tideStation = null, onPick, pickSiteId = null, styleUrl, attribution, label, className = '' }: SiteMapProps) {
+export function SiteMap({
+  sites,
+  dataPoint,
+  waveDirection,
+  tideStation = null,
+  onPick,
+  pickSiteId = null,
+  styleUrl,
+  attribution,
+  label,
+  className = '',
+}: SiteMapProps) {
   const box = useRef<HTMLDivElement>(null);
   const map = useRef<MapView | null>(null);
   const pick = useRef(onPick);
@@ -162,7 +190,15 @@ export function SiteMap({ sites, dataPoint, waveDirection, tideStation = null, o
     void (async () => {
       const style = styleUrl ? styleUrl : builtInStyle(await loadLand());
       if (cancelled) return;
-      made = new MapView({ container, style, center: [0, 20], zoom: 1, attributionControl: false, dragRotate: false, pitchWithRotate: false });
+      made = new MapView({
+        container,
+        style,
+        center: [0, 20],
+        zoom: 1,
+        attributionControl: false,
+        dragRotate: false,
+        pitchWithRotate: false,
+      });
       made.addControl(new AttributionControl({ compact: true, customAttribution: styleUrl && attribution ? attribution : undefined }));
       made.addControl(new NavigationControl({ showCompass: false }), 'top-right');
       made.on('click', (e) => pick.current?.(Math.round(e.lngLat.lat * 1e5) / 1e5, Math.round(e.lngLat.lng * 1e5) / 1e5));
@@ -183,10 +219,24 @@ export function SiteMap({ sites, dataPoint, waveDirection, tideStation = null, o
     const draw = () => {
       const m = map.current;
       if (!m) return;
-      for (const s of sites) markers.push(new Marker({ element: siteMarker(s, s.id === pickSiteId) }).setLngLat([s.longitude, s.latitude]).addTo(m));
-      if (dataPoint) markers.push(new Marker({ element: pointMarker(dataPoint, 'data-point', waveDirection) }).setLngLat([dataPoint.longitude, dataPoint.latitude]).addTo(m));
-      if (tideStation) markers.push(new Marker({ element: pointMarker(tideStation, 'tide-station', null) }).setLngLat([tideStation.longitude, tideStation.latitude]).addTo(m));
-      const points = [...sites.map((s) => [s.longitude, s.latitude] as [number, number]), ...(dataPoint ? [[dataPoint.longitude, dataPoint.latitude] as [number, number]] : [])];
+      for (const s of sites)
+        markers.push(new Marker({ element: siteMarker(s, s.id === pickSiteId) }).setLngLat([s.longitude, s.latitude]).addTo(m));
+      if (dataPoint)
+        markers.push(
+          new Marker({ element: pointMarker(dataPoint, 'data-point', waveDirection) })
+            .setLngLat([dataPoint.longitude, dataPoint.latitude])
+            .addTo(m),
+        );
+      if (tideStation)
+        markers.push(
+          new Marker({ element: pointMarker(tideStation, 'tide-station', null) })
+            .setLngLat([tideStation.longitude, tideStation.latitude])
+            .addTo(m),
+        );
+      const points = [
+        ...sites.map((s) => [s.longitude, s.latitude] as [number, number]),
+        ...(dataPoint ? [[dataPoint.longitude, dataPoint.latitude] as [number, number]] : []),
+      ];
       // Fitted once per map: a click that moves a worksite does not move the view under the pointer.
       if (points.length > 0 && !fitted.current) {
         fitted.current = true;

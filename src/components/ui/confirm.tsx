@@ -19,7 +19,16 @@ interface ConfirmProps {
  * Takes the focus when it opens so a keyboard or screen-reader user meets the question at once;
  * Escape cancels.
  */
-export function Confirm({ title, children, confirmLabel, cancelLabel = 'Cancel', tone = 'danger', busy, onConfirm, onCancel }: ConfirmProps) {
+export function Confirm({
+  title,
+  children,
+  confirmLabel,
+  cancelLabel = 'Cancel',
+  tone = 'danger',
+  busy,
+  onConfirm,
+  onCancel,
+}: ConfirmProps) {
   const titleId = useId();
   const first = useRef<HTMLButtonElement>(null);
   useEffect(() => {
@@ -34,7 +43,9 @@ export function Confirm({ title, children, confirmLabel, cancelLabel = 'Cancel',
         if (e.key === 'Escape') onCancel();
       }}
     >
-      <p id={titleId} className="font-semibold">{title}</p>
+      <p id={titleId} className="font-semibold">
+        {title}
+      </p>
       {children ? <div className="mt-1">{children}</div> : null}
       <div className="mt-2 flex flex-wrap gap-2">
         <Button ref={first} variant={tone} onClick={onConfirm} disabled={busy}>

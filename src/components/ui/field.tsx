@@ -33,17 +33,19 @@ export function FieldShell({ label, htmlFor, hint, error, unit, children }: Fiel
   );
 }
 
-export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputElement> & { invalid?: boolean }>(
-  function Input({ invalid, className = '', ...props }, ref) {
-    return <input ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
-  },
-);
+export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputElement> & { invalid?: boolean }>(function Input(
+  { invalid, className = '', ...props },
+  ref,
+) {
+  return <input ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
+});
 
-export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement> & { invalid?: boolean }>(
-  function Select({ invalid, className = '', ...props }, ref) {
-    return <select ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
-  },
-);
+export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement> & { invalid?: boolean }>(function Select(
+  { invalid, className = '', ...props },
+  ref,
+) {
+  return <select ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
+});
 
 export const TextArea = forwardRef<HTMLTextAreaElement, TextareaHTMLAttributes<HTMLTextAreaElement> & { invalid?: boolean }>(
   function TextArea({ invalid, className = '', ...props }, ref) {

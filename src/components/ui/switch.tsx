@@ -36,7 +36,10 @@ export function Switch({
       data-testid={testId}
       className={`group flex min-h-11 cursor-pointer items-center gap-3 rounded-lg border border-line bg-surface px-3 py-2 text-left text-sm hover:border-accent data-[disabled]:cursor-not-allowed data-[disabled]:opacity-50 data-[focus-visible]:outline-2 data-[focus-visible]:outline-offset-2 data-[focus-visible]:outline-accent ${wide ? 'w-full' : 'inline-flex'}`}
     >
-      <span className={`relative inline-flex h-6 w-10 shrink-0 items-center rounded-full transition ${on ? 'bg-accent' : 'bg-st-nodata'}`} aria-hidden>
+      <span
+        className={`relative inline-flex h-6 w-10 shrink-0 items-center rounded-full transition ${on ? 'bg-accent' : 'bg-st-nodata'}`}
+        aria-hidden
+      >
         <span className={`absolute size-5 rounded-full bg-white shadow transition-all ${on ? 'left-[1.15rem]' : 'left-0.5'}`} />
       </span>
       <span className="flex flex-col">

@@ -30,7 +30,11 @@ export function Tabs<K extends string>({
   children: ReactNode;
 }) {
   return (
-    <AriaTabs selectedKey={selected} onSelectionChange={(k: Key) => onSelect(String(k) as K)} disabledKeys={tabs.filter((t) => t.disabled).map((t) => t.id)}>
+    <AriaTabs
+      selectedKey={selected}
+      onSelectionChange={(k: Key) => onSelect(String(k) as K)}
+      disabledKeys={tabs.filter((t) => t.disabled).map((t) => t.id)}
+    >
       <TabList aria-label={label} className={`no-print ${listClassName}`}>
         {tabs.map((t) => (
           <Tab

@@ -27,7 +27,8 @@ export function Term({ k, children }: { k: GlossaryKey; children?: ReactNode }) 
     const left = Math.min(Math.max(EDGE, a.left + a.width / 2 - width / 2), vw - width - EDGE);
     const height = box.current?.offsetHeight ?? 0;
     const below = a.bottom + 6;
-    const top = below + height + EDGE > vh && a.top - 6 - height >= EDGE ? a.top - 6 - height : Math.min(below, Math.max(EDGE, vh - height - EDGE));
+    const top =
+      below + height + EDGE > vh && a.top - 6 - height >= EDGE ? a.top - 6 - height : Math.min(below, Math.max(EDGE, vh - height - EDGE));
     setPos({ left, top, width });
   }, []);
 

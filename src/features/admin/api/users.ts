@@ -27,7 +27,8 @@ export function useCreateUser() {
 export function useIssueTemporaryPassword() {
   const invalidate = useInvalidateUsers();
   return useMutation({
-    mutationFn: (userId: string) => api<{ temporaryPassword: string; expiresAt: string }>(`/api/admin/users/${userId}/temporary-password`, { method: 'POST', json: {} }),
+    mutationFn: (userId: string) =>
+      api<{ temporaryPassword: string; expiresAt: string }>(`/api/admin/users/${userId}/temporary-password`, { method: 'POST', json: {} }),
     onSuccess: invalidate,
   });
 }

@@ -18,7 +18,9 @@ export function PeoplePage() {
       {users.isPending || projects.isPending ? <Spinner /> : null}
       {users.error ? <ErrorNotice error={users.error} /> : null}
       <div className="mt-5 grid gap-3">
-        {users.data?.map((u) => <UserCard key={u.id} user={u} projects={projects.data ?? []} />)}
+        {users.data?.map((u) => (
+          <UserCard key={u.id} user={u} projects={projects.data ?? []} />
+        ))}
       </div>
     </div>
   );
@@ -55,9 +57,15 @@ function CreateUserCard() {
             <option value="admin">Administrator</option>
           </Select>
         </FieldShell>
-        <Button type="submit" disabled={create.isPending}>Create user</Button>
+        <Button type="submit" disabled={create.isPending}>
+          Create user
+        </Button>
       </form>
-      {create.error ? <div className="mt-3"><ErrorNotice error={create.error} /></div> : null}
+      {create.error ? (
+        <div className="mt-3">
+          <ErrorNotice error={create.error} />
+        </div>
+      ) : null}
       {shown ? <TemporaryPassword email={shown.email} password={shown.password} /> : null}
     </Card>
   );
@@ -81,12 +89,16 @@ function TemporaryPassword({ email, password }: { email: string; password: strin
           <span>
             Temporary password for <strong>{email}</strong>, shown only now:
           </span>
-          <code className="rounded bg-surface px-2 py-1 font-mono text-base" data-testid="temporary-password">{password}</code>
+          <code className="rounded bg-surface px-2 py-1 font-mono text-base" data-testid="temporary-password">
+            {password}
+          </code>
           <Button variant="secondary" onClick={() => void copy()} data-testid="copy-temporary-password">
             {copied === 'yes' ? 'Copied' : 'Copy'}
           </Button>
         </p>
-        {copied === 'no' ? <p className="mt-1 text-xs">This browser did not allow copying: select the password and copy it by hand.</p> : null}
+        {copied === 'no' ? (
+          <p className="mt-1 text-xs">This browser did not allow copying: select the password and copy it by hand.</p>
+        ) : null}
         <p className="mt-1 text-xs">
           Pass it on by a safe channel. It cannot be shown again, works for 7 days, and must be changed at the first sign-in.
         </p>
@@ -121,7 +133,8 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
           <p className="text-sm text-ink-soft">{user.email}</p>
           {user.mustChangePassword && user.temporaryPasswordExpiresAt ? (
             <p className="text-xs text-ink-soft">
-              On a temporary password until {new Date(user.temporaryPasswordExpiresAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
+              On a temporary password until{' '}
+              {new Date(user.temporaryPasswordExpiresAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}
             </p>
           ) : null}
         </div>
@@ -144,7 +157,11 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
           They are signed out at once and can no longer sign in or receive alerts. You can reactivate them later.
         </Confirm>
       ) : null}
-      {update.error ? <div className="mt-2"><ErrorNotice error={update.error} /></div> : null}
+      {update.error ? (
+        <div className="mt-2">
+          <ErrorNotice error={update.error} />
+        </div>
+      ) : null}
       <NewTemporaryPassword user={user} />
       <ul className="mt-3 grid gap-2">
         {user.projects.map((m) => {
@@ -159,11 +176,15 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
                   value={mine?.kind === 'role' ? mine.to : m.role}
                   onChange={(e) => {
                     const to = e.target.value as ProjectRole;
-                    setPending(to === m.role ? null : { kind: 'role', projectId: m.projectId, projectName: m.projectName, from: m.role, to });
+                    setPending(
+                      to === m.role ? null : { kind: 'role', projectId: m.projectId, projectName: m.projectName, from: m.role, to },
+                    );
                   }}
                 >
                   {PROJECT_ROLES.map((r) => (
-                    <option key={r} value={r}>{PROJECT_ROLE_LABELS[r]}</option>
+                    <option key={r} value={r}>
+                      {PROJECT_ROLE_LABELS[r]}
+                    </option>
                   ))}
                 </Select>
                 <Button variant="ghost" onClick={() => setPending({ kind: 'remove', projectId: m.projectId, projectName: m.projectName })}>
@@ -199,15 +220,24 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
       </ul>
       {unassigned.length > 0 ? (
         <div className="mt-3 flex flex-wrap items-end gap-2">
-          <Select aria-label={`Project to add ${user.name} to`} className="max-w-72" value={projectId} onChange={(e) => setProjectId(e.target.value)}>
+          <Select
+            aria-label={`Project to add ${user.name} to`}
+            className="max-w-72"
+            value={projectId}
+            onChange={(e) => setProjectId(e.target.value)}
+          >
             <option value="">Add to project…</option>
             {unassigned.map((p) => (
-              <option key={p.id} value={p.id}>{p.name}</option>
+              <option key={p.id} value={p.id}>
+                {p.name}
+              </option>
             ))}
           </Select>
           <Select aria-label="Role" className="max-w-56" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
             {PROJECT_ROLES.map((r) => (
-              <option key={r} value={r}>{PROJECT_ROLE_LABELS[r]}</option>
+              <option key={r} value={r}>
+                {PROJECT_ROLE_LABELS[r]}
+              </option>
             ))}
           </Select>
           <Button
@@ -219,7 +249,11 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
           </Button>
         </div>
       ) : null}
-      {membership.error ? <div className="mt-2"><ErrorNotice error={membership.error} /></div> : null}
+      {membership.error ? (
+        <div className="mt-2">
+          <ErrorNotice error={membership.error} />
+        </div>
+      ) : null}
     </Card>
   );
 }
@@ -233,7 +267,12 @@ function NewTemporaryPassword({ user }: { user: AdminUser }) {
         variant="ghost"
         disabled={issue.isPending}
         onClick={() => {
-          if (window.confirm(`Give ${user.name} a new temporary password? Their current password stops working and they are signed out everywhere.`)) issue.mutate(user.id);
+          if (
+            window.confirm(
+              `Give ${user.name} a new temporary password? Their current password stops working and they are signed out everywhere.`,
+            )
+          )
+            issue.mutate(user.id);
         }}
       >
         New temporary password

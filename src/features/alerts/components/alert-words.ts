@@ -30,11 +30,21 @@ export function alertText(kind: AlertKind | string, d: AlertDetails, timeZone: s
     case 'window_opened':
       return { headline: 'New window', mark: '+', tone: 'good', body: `${span}.${tr}` };
     case 'window_lost':
-      return { headline: 'Window lost', mark: '−', tone: 'bad', body: `${span} is no longer workable${trH !== null ? ` for ${hoursText(trH)}` : ''}${why}.` };
+      return {
+        headline: 'Window lost',
+        mark: '−',
+        tone: 'bad',
+        body: `${span} is no longer workable${trH !== null ? ` for ${hoursText(trH)}` : ''}${why}.`,
+      };
     case 'earliest_moved': {
       const shift = d.start && d.previous ? (Date.parse(d.start) - Date.parse(d.previous)) / 3_600_000 : null;
       const dir = shift === null ? '' : ` (${shift > 0 ? 'later' : 'earlier'} by ${hoursText(Math.abs(shift))})`;
-      return { headline: 'Earliest start moved', mark: '→', tone: 'moved', body: `From ${timeIn(d.previous, timeZone)} to ${timeIn(d.start, timeZone)}${dir}.` };
+      return {
+        headline: 'Earliest start moved',
+        mark: '→',
+        tone: 'moved',
+        body: `From ${timeIn(d.previous, timeZone)} to ${timeIn(d.start, timeZone)}${dir}.`,
+      };
     }
     case 'start_now_changed':
       return d.startNow

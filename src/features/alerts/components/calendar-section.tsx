@@ -34,10 +34,12 @@ export function CalendarSection() {
 
   return (
     <Card aria-labelledby="cal-title">
-      <h2 id="cal-title" className="text-lg font-bold">Calendar feed</h2>
+      <h2 id="cal-title" className="text-lg font-bold">
+        Calendar feed
+      </h2>
       <p className="mt-1 text-sm text-ink-soft">
-        Usable weather windows and recurring-operation occurrences ({OCCURRENCE_VERDICTS}) of everything you hear about, in every project you
-        belong to, kept up to date in your calendar.
+        Usable weather windows and recurring-operation occurrences ({OCCURRENCE_VERDICTS}) of everything you hear about, in every project
+        you belong to, kept up to date in your calendar.
       </p>
       <div className="mt-4 flex flex-col gap-3">
         {feed.isPending ? <Spinner label="Reading your feed address" /> : null}
@@ -54,9 +56,18 @@ export function CalendarSection() {
         ) : null}
         {url ? (
           <>
-            <label htmlFor="calendar-url" className="text-sm font-semibold">Your feed address</label>
+            <label htmlFor="calendar-url" className="text-sm font-semibold">
+              Your feed address
+            </label>
             <div className="flex flex-col gap-2 sm:flex-row">
-              <Input id="calendar-url" readOnly value={url} className="font-mono text-sm" onFocus={(e) => e.currentTarget.select()} data-testid="calendar-url" />
+              <Input
+                id="calendar-url"
+                readOnly
+                value={url}
+                className="font-mono text-sm"
+                onFocus={(e) => e.currentTarget.select()}
+                data-testid="calendar-url"
+              />
               <Button variant="secondary" onClick={() => void copy()} className="shrink-0">
                 {copied ? 'Copied' : 'Copy'}
               </Button>
@@ -64,10 +75,15 @@ export function CalendarSection() {
             <ol className="list-decimal space-y-1 pl-5 text-sm">
               <li>Copy the address.</li>
               <li>
-                Use your calendar app&apos;s option to subscribe by web address, and paste it. On a phone you
-                can also <a className="font-semibold text-accent underline" href={url.replace(/^https?:/, 'webcal:')}>open it in the calendar app</a>.
+                Use your calendar app&apos;s option to subscribe by web address, and paste it. On a phone you can also{' '}
+                <a className="font-semibold text-accent underline" href={url.replace(/^https?:/, 'webcal:')}>
+                  open it in the calendar app
+                </a>
+                .
               </li>
-              <li>Calendar apps refresh a subscription on their own schedule, often every few hours; the board is always the latest plan.</li>
+              <li>
+                Calendar apps refresh a subscription on their own schedule, often every few hours; the board is always the latest plan.
+              </li>
             </ol>
             <Notice>Keep the address to yourself: anyone who has it can read your windows. If it got out, make a new one.</Notice>
             {confirm === null ? (

@@ -3,7 +3,6 @@
 import { DATE_STYLE, localTimeZone } from '../../../../shared/dates';
 import { DASH, formatAt, zoneShort } from '../../../lib/format';
 
-
 /** The browser's own IANA zone (for times that belong to no worksite: e-mails, runs). */
 export const browserTimeZone = localTimeZone;
 
@@ -14,8 +13,8 @@ export function timeIn(iso: string | null | undefined, timeZone: string, pattern
 }
 
 /** A UTC instant in ms, in a zone, e.g. 'Mon 6 Jan 2027 06:00 CET'. */
-export const msIn = (ms: number, timeZone: string, pattern: string = DATE_STYLE.dateTimeYear) => timeIn(new Date(ms).toISOString(), timeZone, pattern);
-
+export const msIn = (ms: number, timeZone: string, pattern: string = DATE_STYLE.dateTimeYear) =>
+  timeIn(new Date(ms).toISOString(), timeZone, pattern);
 
 /** Every IANA zone the browser knows, with UTC and the given ones first among them. */
 export function timeZoneList(...ensure: string[]): string[] {
@@ -30,7 +29,8 @@ export function timeZoneList(...ensure: string[]): string[] {
 }
 
 /** Hours with their unit, e.g. '18 h'. */
-export const hoursText = (h: number | null | undefined) => (h === null || h === undefined || !Number.isFinite(h) ? DASH : `${Math.round(h * 10) / 10} h`);
+export const hoursText = (h: number | null | undefined) =>
+  h === null || h === undefined || !Number.isFinite(h) ? DASH : `${Math.round(h * 10) / 10} h`;
 
 /** The engine's limit names in words (docs/domain.md#operations-and-limits; the same words as the alert e-mails). */
 export { limitWords } from '../../../../shared/limit-words';

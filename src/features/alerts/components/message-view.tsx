@@ -25,7 +25,11 @@ export function MessageView({ subject, meta, text, html, onClose }: Props) {
   const shown = tab === 'html' && hasHtml ? 'html' : 'text';
 
   return (
-    <section className="rounded-[var(--radius-card)] border border-accent bg-surface p-4" aria-label="Opened e-mail" data-testid="message-view">
+    <section
+      className="rounded-[var(--radius-card)] border border-accent bg-surface p-4"
+      aria-label="Opened e-mail"
+      data-testid="message-view"
+    >
       <div className="flex flex-wrap items-start justify-between gap-2">
         <h3 ref={heading} tabIndex={-1} className="min-w-0 break-words text-base font-bold outline-none">
           {subject || '(no subject)'}

@@ -27,7 +27,9 @@ export function OutboxSection({ projectId, zone: here }: { projectId: string; zo
     <Card aria-labelledby="outbox-title">
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div>
-          <h2 id="outbox-title" className="text-lg font-bold">Outbox</h2>
+          <h2 id="outbox-title" className="text-lg font-bold">
+            Outbox
+          </h2>
           <p className="mt-1 text-sm text-ink-soft">
             Every alert e-mail is written here first, then sent; a failed send is retried with growing pauses.
           </p>
@@ -41,13 +43,14 @@ export function OutboxSection({ projectId, zone: here }: { projectId: string; zo
         {outbox.error ? <ErrorNotice error={outbox.error} /> : null}
         {outbox.data ? (
           <p className="text-sm" data-testid="outbox-counts">
-            {rows.length} e-mail{rows.length === 1 ? '' : 's'} (latest 100): {count('sent')} sent, {count('pending')} waiting, {failed} failed.
+            {rows.length} e-mail{rows.length === 1 ? '' : 's'} (latest 100): {count('sent')} sent, {count('pending')} waiting, {failed}{' '}
+            failed.
           </p>
         ) : null}
         {failed > 0 ? (
           <Notice tone="error">
-            {failed} e-mail{failed === 1 ? ' was' : 's were'} given up after the last try. Check the SMTP server settings and the addresses; the
-            people concerned have not been told.
+            {failed} e-mail{failed === 1 ? ' was' : 's were'} given up after the last try. Check the SMTP server settings and the addresses;
+            the people concerned have not been told.
           </Notice>
         ) : null}
         {outbox.data && rows.length === 0 ? <p className="text-sm text-ink-soft">No alert e-mails yet.</p> : null}
@@ -56,16 +59,32 @@ export function OutboxSection({ projectId, zone: here }: { projectId: string; zo
             <table className="w-full border-collapse text-left text-sm">
               <thead>
                 <tr className="border-b border-line text-xs uppercase tracking-wide text-ink-soft">
-                  <th scope="col" className="py-2 pr-3">Status</th>
-                  <th scope="col" className="py-2 pr-3">E-mail</th>
-                  <th scope="col" className="hidden py-2 pr-3 md:table-cell">Tries</th>
-                  <th scope="col" className="hidden py-2 pr-3 md:table-cell">Written · sent</th>
-                  <th scope="col" className="py-2"><span className="sr-only">Open</span></th>
+                  <th scope="col" className="py-2 pr-3">
+                    Status
+                  </th>
+                  <th scope="col" className="py-2 pr-3">
+                    E-mail
+                  </th>
+                  <th scope="col" className="hidden py-2 pr-3 md:table-cell">
+                    Tries
+                  </th>
+                  <th scope="col" className="hidden py-2 pr-3 md:table-cell">
+                    Written · sent
+                  </th>
+                  <th scope="col" className="py-2">
+                    <span className="sr-only">Open</span>
+                  </th>
                 </tr>
               </thead>
               <tbody>
                 {rows.map((r) => (
-                  <OutboxLine key={r.id} row={r} here={here} open={r.id === openId} onOpen={() => setOpenId(r.id === openId ? null : r.id)} />
+                  <OutboxLine
+                    key={r.id}
+                    row={r}
+                    here={here}
+                    open={r.id === openId}
+                    onOpen={() => setOpenId(r.id === openId ? null : r.id)}
+                  />
                 ))}
               </tbody>
             </table>

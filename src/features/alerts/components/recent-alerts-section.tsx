@@ -26,10 +26,10 @@ export function RecentAlertsSection({ projectId, operations, sites, zone: here }
   const shown = all ? list : list.slice(0, FIRST_SHOWN);
   return (
     <Card aria-labelledby="recent-title">
-      <h2 id="recent-title" className="text-lg font-bold">Recent alerts</h2>
-      <p className="mt-1 text-sm text-ink-soft">
-        What the last planning runs changed, for everyone in the project.
-      </p>
+      <h2 id="recent-title" className="text-lg font-bold">
+        Recent alerts
+      </h2>
+      <p className="mt-1 text-sm text-ink-soft">What the last planning runs changed, for everyone in the project.</p>
       <div className="mt-4">
         {alerts.isPending ? <Spinner label="Reading the alerts" /> : null}
         {alerts.error ? <ErrorNotice error={alerts.error} /> : null}
@@ -45,7 +45,10 @@ export function RecentAlertsSection({ projectId, operations, sites, zone: here }
               const t = alertText(a.kind, a.details, zone, op?.tr ?? null);
               return (
                 <li key={a.id} className="flex gap-3 py-3">
-                  <span className={`mt-0.5 inline-flex size-7 shrink-0 items-center justify-center rounded-full text-sm font-bold ${TONE_CLASS[t.tone]}`} aria-hidden>
+                  <span
+                    className={`mt-0.5 inline-flex size-7 shrink-0 items-center justify-center rounded-full text-sm font-bold ${TONE_CLASS[t.tone]}`}
+                    aria-hidden
+                  >
                     {t.mark}
                   </span>
                   <div className="min-w-0">
@@ -57,9 +60,7 @@ export function RecentAlertsSection({ projectId, operations, sites, zone: here }
                       </span>
                     </p>
                     <p className="text-sm">{t.body}</p>
-                    <p className="text-xs text-ink-soft">
-                      Found {timeIn(a.createdAt, here, DATE_STYLE.dateTimeYear)}
-                    </p>
+                    <p className="text-xs text-ink-soft">Found {timeIn(a.createdAt, here, DATE_STYLE.dateTimeYear)}</p>
                   </div>
                 </li>
               );

@@ -49,7 +49,17 @@ function endOfTr(startMs: number, trH: number, timeZone: string): string {
 function freshForm(timeZone: string): RecurrenceForm {
   const today = format(new Date(), 'yyyy-MM-dd', { in: tz(timeZone) });
   const until = format(new Date(Date.now() + 90 * DAY_MS), 'yyyy-MM-dd', { in: tz(timeZone) });
-  return { freq: 'WEEKLY', byDay: [weekdayOf(today) ?? 'MO'], interval: 1, startDate: today, startTime: '06:00', timeZone, endKind: 'never', count: 10, untilDate: until };
+  return {
+    freq: 'WEEKLY',
+    byDay: [weekdayOf(today) ?? 'MO'],
+    interval: 1,
+    startDate: today,
+    startTime: '06:00',
+    timeZone,
+    endKind: 'never',
+    count: 10,
+    untilDate: until,
+  };
 }
 
 export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone, zones, onDone }: Props) {
@@ -93,7 +103,9 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
       noValidate
       className="mt-3 flex flex-col gap-4 border-t border-line pt-3"
       aria-label={`Recurrence of ${operation.name}`}
-      onSubmit={form.handleSubmit((values) => save.mutate({ operationId: operation.id, input: toRecurrenceInput(values) }, { onSuccess: onDone }))}
+      onSubmit={form.handleSubmit((values) =>
+        save.mutate({ operationId: operation.id, input: toRecurrenceInput(values) }, { onSuccess: onDone }),
+      )}
     >
       {stored && !parsed ? (
         <Notice>
@@ -143,7 +155,9 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
                       type="button"
                       aria-pressed={on}
                       aria-label={WEEKDAY_LONG[d]}
-                      onClick={() => field.onChange(on ? field.value.filter((x) => x !== d) : WEEKDAYS.filter((x) => x === d || field.value.includes(x)))}
+                      onClick={() =>
+                        field.onChange(on ? field.value.filter((x) => x !== d) : WEEKDAYS.filter((x) => x === d || field.value.includes(x)))
+                      }
                       className={`inline-flex size-11 items-center justify-center rounded-full border text-sm font-bold ${on ? 'border-accent bg-accent text-accent-ink' : 'border-line bg-surface hover:border-accent'}`}
                     >
                       {WEEKDAY_SHORT[d]}
@@ -153,13 +167,32 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
               </div>
             )}
           />
-          {errors.byDay ? <p role="alert" className="mt-1 text-sm text-danger">{errors.byDay.message}</p> : null}
+          {errors.byDay ? (
+            <p role="alert" className="mt-1 text-sm text-danger">
+              {errors.byDay.message}
+            </p>
+          ) : null}
         </fieldset>
       ) : null}
 
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <FieldShell label="Repeat every" htmlFor={`${idp}-interval`} unit={unitWord} error={errors.interval?.message} hint={`1 to ${MAX_INTERVAL}`}>
-          <Input id={`${idp}-interval`} type="number" inputMode="numeric" min={1} max={MAX_INTERVAL} step={1} {...form.register('interval', { valueAsNumber: true })} invalid={!!errors.interval} />
+        <FieldShell
+          label="Repeat every"
+          htmlFor={`${idp}-interval`}
+          unit={unitWord}
+          error={errors.interval?.message}
+          hint={`1 to ${MAX_INTERVAL}`}
+        >
+          <Input
+            id={`${idp}-interval`}
+            type="number"
+            inputMode="numeric"
+            min={1}
+            max={MAX_INTERVAL}
+            step={1}
+            {...form.register('interval', { valueAsNumber: true })}
+            invalid={!!errors.interval}
+          />
         </FieldShell>
         <FieldShell label="First date" htmlFor={`${idp}-date`} unit="local" error={errors.startDate?.message}>
           <Input id={`${idp}-date`} type="date" {...form.register('startDate')} invalid={!!errors.startDate} />
@@ -167,10 +200,17 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
         <FieldShell label="Start time" htmlFor={`${idp}-time`} unit="local, HH:MM" error={errors.startTime?.message}>
           <Input id={`${idp}-time`} type="time" step={60} {...form.register('startTime')} invalid={!!errors.startTime} />
         </FieldShell>
-        <FieldShell label="Time zone" htmlFor={`${idp}-zone`} error={errors.timeZone?.message} hint="Defaults to the first worksite's zone.">
+        <FieldShell
+          label="Time zone"
+          htmlFor={`${idp}-zone`}
+          error={errors.timeZone?.message}
+          hint="Defaults to the first worksite's zone."
+        >
           <Select id={`${idp}-zone`} {...form.register('timeZone')} invalid={!!errors.timeZone}>
             {allZones.map((z) => (
-              <option key={z} value={z}>{z}</option>
+              <option key={z} value={z}>
+                {z}
+              </option>
             ))}
           </Select>
         </FieldShell>
@@ -199,8 +239,23 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
         </div>
         {v.endKind === 'count' ? (
           <div className="mt-2 max-w-xs">
-            <FieldShell label="Occurrences in all" htmlFor={`${idp}-count`} unit="count" error={errors.count?.message} hint={`1 to ${MAX_COUNT}, counted from the first date`}>
-              <Input id={`${idp}-count`} type="number" inputMode="numeric" min={1} max={MAX_COUNT} step={1} {...form.register('count', { valueAsNumber: true })} invalid={!!errors.count} />
+            <FieldShell
+              label="Occurrences in all"
+              htmlFor={`${idp}-count`}
+              unit="count"
+              error={errors.count?.message}
+              hint={`1 to ${MAX_COUNT}, counted from the first date`}
+            >
+              <Input
+                id={`${idp}-count`}
+                type="number"
+                inputMode="numeric"
+                min={1}
+                max={MAX_COUNT}
+                step={1}
+                {...form.register('count', { valueAsNumber: true })}
+                invalid={!!errors.count}
+              />
             </FieldShell>
           </div>
         ) : null}
@@ -219,10 +274,14 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
             <p className="text-sm font-semibold">The rule</p>
             <p className="text-sm">{built.words}</p>
             <p className="mt-2 text-xs text-ink-soft">As iCalendar (RFC 5545) text:</p>
-            <pre className="mt-1 overflow-x-auto rounded-lg border border-line bg-surface-2 p-2 font-mono text-xs" data-testid="rule-text">{built.text}</pre>
+            <pre className="mt-1 overflow-x-auto rounded-lg border border-line bg-surface-2 p-2 font-mono text-xs" data-testid="rule-text">
+              {built.text}
+            </pre>
           </div>
           <div>
-            <p className="text-sm font-semibold">Next {PREVIEW_COUNT} occurrences <span className="font-normal text-ink-soft">({built.input.timeZone} local time)</span></p>
+            <p className="text-sm font-semibold">
+              Next {PREVIEW_COUNT} occurrences <span className="font-normal text-ink-soft">({built.input.timeZone} local time)</span>
+            </p>
             {built.next.length === 0 ? (
               <p className="text-sm text-ink-soft">None from now on: the rule has ended.</p>
             ) : (
@@ -230,7 +289,10 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
                 {built.next.map((ms) => (
                   <li key={ms}>
                     {msIn(ms, built.input.timeZone)}
-                    <span className="text-ink-soft"> to {endOfTr(ms, operation.tr, built.input.timeZone)} (TR {operation.tr} h)</span>
+                    <span className="text-ink-soft">
+                      {' '}
+                      to {endOfTr(ms, operation.tr, built.input.timeZone)} (TR {operation.tr} h)
+                    </span>
                   </li>
                 ))}
               </ol>

@@ -11,7 +11,13 @@ export type Weekday = (typeof WEEKDAYS)[number];
 
 export const WEEKDAY_SHORT: Record<Weekday, string> = { MO: 'Mo', TU: 'Tu', WE: 'We', TH: 'Th', FR: 'Fr', SA: 'Sa', SU: 'Su' };
 export const WEEKDAY_LONG: Record<Weekday, string> = {
-  MO: 'Monday', TU: 'Tuesday', WE: 'Wednesday', TH: 'Thursday', FR: 'Friday', SA: 'Saturday', SU: 'Sunday',
+  MO: 'Monday',
+  TU: 'Tuesday',
+  WE: 'Wednesday',
+  TH: 'Thursday',
+  FR: 'Friday',
+  SA: 'Saturday',
+  SU: 'Sunday',
 };
 
 export const FREQUENCIES = ['DAILY', 'WEEKLY'] as const;
@@ -46,14 +52,16 @@ export const RecurrenceForm = z
     untilDate: z.string(),
   })
   .superRefine((v, ctx) => {
-    if (v.freq === 'WEEKLY' && v.byDay.length === 0) ctx.addIssue({ code: 'custom', path: ['byDay'], message: 'Pick at least one weekday' });
+    if (v.freq === 'WEEKLY' && v.byDay.length === 0)
+      ctx.addIssue({ code: 'custom', path: ['byDay'], message: 'Pick at least one weekday' });
     if (v.endKind === 'count') {
       const ok = whole('Number of occurrences', MAX_COUNT).safeParse(v.count);
       if (!ok.success) ctx.addIssue({ code: 'custom', path: ['count'], message: ok.error.issues[0].message });
     }
     if (v.endKind === 'until') {
       if (!/^\d{4}-\d{2}-\d{2}$/.test(v.untilDate)) ctx.addIssue({ code: 'custom', path: ['untilDate'], message: 'Enter the last date' });
-      else if (v.untilDate < v.startDate) ctx.addIssue({ code: 'custom', path: ['untilDate'], message: 'The last date must be on or after the first date' });
+      else if (v.untilDate < v.startDate)
+        ctx.addIssue({ code: 'custom', path: ['untilDate'], message: 'The last date must be on or after the first date' });
     }
   });
 export type RecurrenceForm = z.infer<typeof RecurrenceForm>;

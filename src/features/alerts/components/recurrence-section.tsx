@@ -27,11 +27,14 @@ export function storedRecurrence(op: OperationResponse): StoredRecurrence | null
 export function RecurrenceSection({ projectId, operations, sites }: Props) {
   return (
     <Card aria-labelledby="rec-title">
-      <h2 id="rec-title" className="text-lg font-bold">Recurring operations</h2>
+      <h2 id="rec-title" className="text-lg font-bold">
+        Recurring operations
+      </h2>
       <p className="mt-1 text-sm text-ink-soft">
         An operation that repeats, such as a crew change on set days, is judged {OCCURRENCE_VERDICTS} for each occurrence from the hours
-        [start, start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning {STATUS_WORDS.not_workable.word} is
-        an alert. A rule keeps its wall-clock time, so 06:00 stays 06:00 across a daylight-saving change.
+        [start, start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning{' '}
+        {STATUS_WORDS.not_workable.word} is an alert. A rule keeps its wall-clock time, so 06:00 stays 06:00 across a daylight-saving
+        change.
       </p>
       {operations.length === 0 ? <p className="mt-3 text-sm text-ink-soft">This project has no operations yet.</p> : null}
       <ul className="mt-4 flex flex-col gap-3">
@@ -55,10 +58,21 @@ function OperationRecurrence({ projectId, op, sites }: { projectId: string; op: 
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div className="min-w-0">
           <p className="font-semibold">
-            {op.name} <span className="text-sm font-normal text-ink-soft">TR {op.tr} h · {opSites.map((s) => s.name).join(', ') || 'no worksite'}</span>
+            {op.name}{' '}
+            <span className="text-sm font-normal text-ink-soft">
+              TR {op.tr} h · {opSites.map((s) => s.name).join(', ') || 'no worksite'}
+            </span>
           </p>
           <p className="text-sm">
-            {stored ? (form ? ruleInWords(form, siteZone) : 'Recurs by a rule this form does not build (see its text when editing).') : <span className="text-ink-soft">Does not recur.</span>}
+            {stored ? (
+              form ? (
+                ruleInWords(form, siteZone)
+              ) : (
+                'Recurs by a rule this form does not build (see its text when editing).'
+              )
+            ) : (
+              <span className="text-ink-soft">Does not recur.</span>
+            )}
           </p>
         </div>
         <Button variant={editing ? 'ghost' : 'secondary'} onClick={() => setEditing((e) => !e)} aria-expanded={editing}>

@@ -25,7 +25,9 @@ export function ReplanSection({ projectId, operations, sites, zone: here }: Prop
   const mine = result?.projects.find((p) => p.projectId === projectId) ?? result?.projects[0];
   return (
     <Card aria-labelledby="replan-title">
-      <h2 id="replan-title" className="text-lg font-bold">Re-plan now</h2>
+      <h2 id="replan-title" className="text-lg font-bold">
+        Re-plan now
+      </h2>
       <p className="mt-1 text-sm text-ink-soft">
         The planning job runs by itself on a schedule. Run it now to fetch the latest forecast (when the project uses the forecast service),
         plan every operation at every worksite, and queue alert e-mails for what changed.
@@ -35,7 +37,11 @@ export function ReplanSection({ projectId, operations, sites, zone: here }: Prop
           {replan.isPending ? 'Planning…' : 'Re-plan now'}
         </Button>
       </div>
-      {replan.error ? <div className="mt-3"><ErrorNotice error={replan.error} /></div> : null}
+      {replan.error ? (
+        <div className="mt-3">
+          <ErrorNotice error={replan.error} />
+        </div>
+      ) : null}
       {result && mine ? (
         <div className="mt-4 flex flex-col gap-3" data-testid="replan-result" aria-live="polite">
           <RunSummary run={mine} startedAt={result.startedAt} here={here} operations={operations} sites={sites} />
@@ -65,7 +71,11 @@ function RunSummary({
 }) {
   const when = timeIn(startedAt, here, 'HH:mm:ss');
   if (run.status === 'skipped') {
-    return <Notice>Run at {when} skipped: {run.reason ?? 'another planning run holds this project'}. Try again in a moment.</Notice>;
+    return (
+      <Notice>
+        Run at {when} skipped: {run.reason ?? 'another planning run holds this project'}. Try again in a moment.
+      </Notice>
+    );
   }
   if (run.status === 'failed') {
     return (
@@ -94,7 +104,8 @@ function RunSummary({
             const site = sites.find((s) => s.id === a.siteId);
             return (
               <li key={i} className="rounded-md bg-surface-2 px-3 py-2">
-                <span className="font-semibold">{KIND_WORDS[a.kind] ?? a.kind}</span>: {op?.name ?? 'an operation'} at {site?.name ?? 'a worksite'}
+                <span className="font-semibold">{KIND_WORDS[a.kind] ?? a.kind}</span>: {op?.name ?? 'an operation'} at{' '}
+                {site?.name ?? 'a worksite'}
                 {a.start ? <span className="text-ink-soft"> · {timeIn(a.start, site?.timeZone ?? 'UTC')}</span> : null}
               </li>
             );

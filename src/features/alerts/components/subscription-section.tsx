@@ -26,7 +26,9 @@ export function SubscriptionSection({ projectId, role, operations, sites }: Prop
   const sub = useSubscription(projectId);
   return (
     <Card aria-labelledby="sub-title">
-      <h2 id="sub-title" className="text-lg font-bold">What I hear about</h2>
+      <h2 id="sub-title" className="text-lg font-bold">
+        What I hear about
+      </h2>
       <p className="mt-1 text-sm text-ink-soft">
         When a new forecast opens, shortens or closes a weather window, or moves the earliest start, Lullwatch can e-mail you. Choose what
         concerns you; the calendar feed below follows the same choice.
@@ -67,13 +69,14 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
         <Notice>
           {role === 'skipper' ? (
             <>
-              You have not made a choice here yet, so the default applies: <strong>as a skipper you get an e-mail at once about the operations you
-              are assigned to</strong> (ticked below), at every worksite. Save to make the choice your own.
+              You have not made a choice here yet, so the default applies:{' '}
+              <strong>as a skipper you get an e-mail at once about the operations you are assigned to</strong> (ticked below), at every
+              worksite. Save to make the choice your own.
             </>
           ) : (
             <>
-              You have not made a choice here yet. Skippers hear about their assigned operations by default; other roles hear nothing until they
-              switch alerts on and save.
+              You have not made a choice here yet. Skippers hear about their assigned operations by default; other roles hear nothing until
+              they switch alerts on and save.
             </>
           )}
         </Notice>
@@ -88,7 +91,11 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
             wide
             on={field.value}
             onChange={field.onChange}
-            hint={field.value ? 'E-mails and the calendar feed follow the choices below.' : 'Nothing is sent and the calendar feed leaves this project out.'}
+            hint={
+              field.value
+                ? 'E-mails and the calendar feed follow the choices below.'
+                : 'Nothing is sent and the calendar feed leaves this project out.'
+            }
           >
             Alerts for this project
           </Switch>
@@ -105,7 +112,11 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
           render={({ field }) => (
             <div className="grid gap-2 sm:grid-cols-2">
               {operations.map((o) => (
-                <CheckRow key={o.id} checked={field.value.includes(o.id)} onChange={(on) => field.onChange(toggleId(field.value, o.id, on))}>
+                <CheckRow
+                  key={o.id}
+                  checked={field.value.includes(o.id)}
+                  onChange={(on) => field.onChange(toggleId(field.value, o.id, on))}
+                >
                   {o.name}
                   <span className="ml-1 text-xs text-ink-soft">TR {o.tr} h</span>
                 </CheckRow>
@@ -125,7 +136,11 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
           render={({ field }) => (
             <div className="grid gap-2 sm:grid-cols-2">
               {sites.map((s) => (
-                <CheckRow key={s.id} checked={field.value.includes(s.id)} onChange={(on) => field.onChange(toggleId(field.value, s.id, on))}>
+                <CheckRow
+                  key={s.id}
+                  checked={field.value.includes(s.id)}
+                  onChange={(on) => field.onChange(toggleId(field.value, s.id, on))}
+                >
                   {s.name}
                 </CheckRow>
               ))}
@@ -140,7 +155,13 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
           control={form.control}
           name="immediate"
           render={({ field }) => (
-            <Switch id="sub-immediate" wide on={field.value} onChange={field.onChange} hint="An e-mail as soon as a planning run finds a change.">
+            <Switch
+              id="sub-immediate"
+              wide
+              on={field.value}
+              onChange={field.onChange}
+              hint="An e-mail as soon as a planning run finds a change."
+            >
               Immediate alerts
             </Switch>
           )}
@@ -159,10 +180,17 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
             <FieldShell label="Digest time" htmlFor="sub-digest-time" unit="local, HH:MM" error={errors.digestTime?.message}>
               <Input id="sub-digest-time" type="time" step={60} {...form.register('digestTime')} invalid={!!errors.digestTime} />
             </FieldShell>
-            <FieldShell label="Time zone of the digest" htmlFor="sub-digest-zone" error={errors.digestTimeZone?.message} hint="The worksites' zones are in this list too.">
+            <FieldShell
+              label="Time zone of the digest"
+              htmlFor="sub-digest-zone"
+              error={errors.digestTimeZone?.message}
+              hint="The worksites' zones are in this list too."
+            >
               <Select id="sub-digest-zone" {...form.register('digestTimeZone')} invalid={!!errors.digestTimeZone}>
                 {zones.map((z) => (
-                  <option key={z} value={z}>{z}</option>
+                  <option key={z} value={z}>
+                    {z}
+                  </option>
                 ))}
               </Select>
             </FieldShell>
@@ -183,16 +211,22 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
               max={365}
               step={1}
               inputMode="numeric"
-              {...form.register('outlookMoveDays', { setValueAs: (x: unknown) => (x === '' || x === null || x === undefined ? null : Number(x)) })}
+              {...form.register('outlookMoveDays', {
+                setValueAs: (x: unknown) => (x === '' || x === null || x === undefined ? null : Number(x)),
+              })}
               invalid={!!errors.outlookMoveDays}
             />
           </FieldShell>
         ) : null}
       </fieldset>
 
-      {quiet ? <Notice>With neither immediate alerts nor a digest no e-mail is sent; the calendar feed still follows these choices.</Notice> : null}
+      {quiet ? (
+        <Notice>With neither immediate alerts nor a digest no e-mail is sent; the calendar feed still follows these choices.</Notice>
+      ) : null}
       {save.error ? <ErrorNotice error={save.error} /> : null}
-      {save.isSuccess && !form.formState.isDirty ? <Notice tone="success">Saved. Your choice applies from the next planning run.</Notice> : null}
+      {save.isSuccess && !form.formState.isDirty ? (
+        <Notice tone="success">Saved. Your choice applies from the next planning run.</Notice>
+      ) : null}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" disabled={save.isPending || (stored && !form.formState.isDirty)}>
           {save.isPending ? 'Saving…' : 'Save my choice'}

@@ -60,7 +60,13 @@ export function AccountPage() {
         <h2 className="mb-3 text-lg font-bold">Change your password</h2>
         <form className="grid gap-3" onSubmit={submit} noValidate>
           <FieldShell label={forced ? 'Temporary password' : 'Current password'} htmlFor="current-password">
-            <Input id="current-password" type="password" autoComplete="current-password" value={current} onChange={(e) => setCurrent(e.target.value)} />
+            <Input
+              id="current-password"
+              type="password"
+              autoComplete="current-password"
+              value={current}
+              onChange={(e) => setCurrent(e.target.value)}
+            />
           </FieldShell>
           <FieldShell
             label="New password"
@@ -68,10 +74,24 @@ export function AccountPage() {
             hint={`At least ${PASSWORD_MIN_LENGTH} characters; a few unrelated words make a good one. Not your e-mail, not a common password.`}
             error={problems.next}
           >
-            <Input id="new-password" type="password" autoComplete="new-password" value={next} onChange={(e) => setNext(e.target.value)} invalid={!!problems.next} />
+            <Input
+              id="new-password"
+              type="password"
+              autoComplete="new-password"
+              value={next}
+              onChange={(e) => setNext(e.target.value)}
+              invalid={!!problems.next}
+            />
           </FieldShell>
           <FieldShell label="New password again" htmlFor="repeat-password" error={problems.repeat}>
-            <Input id="repeat-password" type="password" autoComplete="new-password" value={repeat} onChange={(e) => setRepeat(e.target.value)} invalid={!!problems.repeat} />
+            <Input
+              id="repeat-password"
+              type="password"
+              autoComplete="new-password"
+              value={repeat}
+              onChange={(e) => setRepeat(e.target.value)}
+              invalid={!!problems.repeat}
+            />
           </FieldShell>
           <p className="text-sm text-ink-soft">Changing your password signs you out on every other device.</p>
           <div>

@@ -39,17 +39,27 @@ export function SignInPage() {
         </div>
         <form
           className="flex flex-col gap-4 rounded-[var(--radius-card)] bg-surface p-6 text-ink shadow-xl"
-          onSubmit={form.handleSubmit((values) =>
-            signIn.mutate(values, { onSuccess: () => void navigate(from, { replace: true }) }),
-          )}
+          onSubmit={form.handleSubmit((values) => signIn.mutate(values, { onSuccess: () => void navigate(from, { replace: true }) }))}
           noValidate
         >
           <h1 className="text-xl font-bold">Sign in</h1>
           <FieldShell label="E-mail" htmlFor="email" error={form.formState.errors.email?.message}>
-            <Input id="email" type="email" autoComplete="username" {...form.register('email', emailRules)} invalid={!!form.formState.errors.email} />
+            <Input
+              id="email"
+              type="email"
+              autoComplete="username"
+              {...form.register('email', emailRules)}
+              invalid={!!form.formState.errors.email}
+            />
           </FieldShell>
           <FieldShell label="Password" htmlFor="password" error={form.formState.errors.password?.message}>
-            <Input id="password" type="password" autoComplete="current-password" {...form.register('password', passwordRules)} invalid={!!form.formState.errors.password} />
+            <Input
+              id="password"
+              type="password"
+              autoComplete="current-password"
+              {...form.register('password', passwordRules)}
+              invalid={!!form.formState.errors.password}
+            />
           </FieldShell>
           {signIn.error ? <ErrorNotice error={signIn.error} /> : null}
           <Button type="submit" disabled={signIn.isPending}>

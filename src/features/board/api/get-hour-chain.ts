@@ -30,8 +30,20 @@ export function getHourChain({ projectId, operationId, siteId, time, alpha, data
 export const hourChainQueryOptions = (p: HourChainParams) =>
   queryOptions({
     // Under the plan's key: a new forecast invalidates the chains with the plans.
-    queryKey: [...planBaseKey(p.projectId), 'chain', { operationId: p.operationId, siteId: p.siteId, time: p.time, alpha: p.alpha, datasetId: p.datasetId ?? null }],
-    queryFn: () => getHourChain({ projectId: p.projectId, operationId: p.operationId, siteId: p.siteId, time: p.time, alpha: p.alpha, datasetId: p.datasetId }),
+    queryKey: [
+      ...planBaseKey(p.projectId),
+      'chain',
+      { operationId: p.operationId, siteId: p.siteId, time: p.time, alpha: p.alpha, datasetId: p.datasetId ?? null },
+    ],
+    queryFn: () =>
+      getHourChain({
+        projectId: p.projectId,
+        operationId: p.operationId,
+        siteId: p.siteId,
+        time: p.time,
+        alpha: p.alpha,
+        datasetId: p.datasetId,
+      }),
     staleTime: 5 * 60_000,
   });
 

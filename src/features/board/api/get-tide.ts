@@ -8,7 +8,14 @@ export interface TideAnswer {
   waterLevel: number[];
   extremes: { time: string; level: number; kind: 'high' | 'low' }[];
   datum: string;
-  station: { name: string; distanceKm: number | null; datum: string | null; source: string; attribution: string; warnings: string[] } | null;
+  station: {
+    name: string;
+    distanceKm: number | null;
+    datum: string | null;
+    source: string;
+    attribution: string;
+    warnings: string[];
+  } | null;
   stepMinutes: number;
   cautions: string[];
 }

@@ -48,42 +48,46 @@ export function BoardControls({ filters, onChange, sites, operations, hasOwnOper
           <span className="font-semibold">Filters</span>
           <span className="truncate text-ink-soft">{summary}</span>
         </summary>
-      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <FieldShell label="Worksite" htmlFor="board-site">
-          <Select id="board-site" value={filters.siteId} onChange={(e) => onChange({ siteId: e.target.value })}>
-            <option value="">All worksites</option>
-            {sites.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
-              </option>
-            ))}
-          </Select>
-        </FieldShell>
-        <FieldShell label="Operation" htmlFor="board-operation">
-          <Select id="board-operation" value={filters.operationId} onChange={(e) => onChange({ operationId: e.target.value })}>
-            <option value="">All operations</option>
-            {operations.map((o) => (
-              <option key={o.id} value={o.id}>
-                {o.name}
-              </option>
-            ))}
-          </Select>
-        </FieldShell>
-        <FieldShell label="Hours shown" htmlFor="board-days">
-          <Select id="board-days" value={filters.days === null ? 'all' : String(filters.days)} onChange={(e) => onChange({ days: e.target.value === 'all' ? null : Number(e.target.value) })}>
-            <option value="2">Next 2 days</option>
-            <option value="5">Next 5 days</option>
-            <option value="7">Next 7 days</option>
-            <option value="all">Whole forecast, past hours too</option>
-          </Select>
-        </FieldShell>
-        <FieldShell label="Hour width" htmlFor="board-width">
-          <Select id="board-width" value={filters.width} onChange={(e) => onChange({ width: e.target.value as HourWidth })}>
-            <option value="narrow">Narrow: more days at a glance</option>
-            <option value="wide">Wide: letters in every hour</option>
-          </Select>
-        </FieldShell>
-      </div>
+        <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+          <FieldShell label="Worksite" htmlFor="board-site">
+            <Select id="board-site" value={filters.siteId} onChange={(e) => onChange({ siteId: e.target.value })}>
+              <option value="">All worksites</option>
+              {sites.map((s) => (
+                <option key={s.id} value={s.id}>
+                  {s.name}
+                </option>
+              ))}
+            </Select>
+          </FieldShell>
+          <FieldShell label="Operation" htmlFor="board-operation">
+            <Select id="board-operation" value={filters.operationId} onChange={(e) => onChange({ operationId: e.target.value })}>
+              <option value="">All operations</option>
+              {operations.map((o) => (
+                <option key={o.id} value={o.id}>
+                  {o.name}
+                </option>
+              ))}
+            </Select>
+          </FieldShell>
+          <FieldShell label="Hours shown" htmlFor="board-days">
+            <Select
+              id="board-days"
+              value={filters.days === null ? 'all' : String(filters.days)}
+              onChange={(e) => onChange({ days: e.target.value === 'all' ? null : Number(e.target.value) })}
+            >
+              <option value="2">Next 2 days</option>
+              <option value="5">Next 5 days</option>
+              <option value="7">Next 7 days</option>
+              <option value="all">Whole forecast, past hours too</option>
+            </Select>
+          </FieldShell>
+          <FieldShell label="Hour width" htmlFor="board-width">
+            <Select id="board-width" value={filters.width} onChange={(e) => onChange({ width: e.target.value as HourWidth })}>
+              <option value="narrow">Narrow: more days at a glance</option>
+              <option value="wide">Wide: letters in every hour</option>
+            </Select>
+          </FieldShell>
+        </div>
       </details>
       <div className="flex flex-wrap gap-2">
         <Switch on={filters.alpha} onChange={(alpha) => onChange({ alpha })} testId="alpha-switch">

@@ -95,15 +95,23 @@ export function formatHours(h: number): string {
  */
 export function flagWords(flags: number, detail: { depthLimitM?: number | null; transferFactor?: number | null } = {}): string[] {
   const out: string[] = [];
-  if (flags & TRANSFORM_FLAG.MISSING_INPUT) out.push('Missing input at the data point (Hs, Tp or a needed direction): no worksite values this hour.');
+  if (flags & TRANSFORM_FLAG.MISSING_INPUT)
+    out.push('Missing input at the data point (Hs, Tp or a needed direction): no worksite values this hour.');
   if (flags & TRANSFORM_FLAG.TRANSFER_TABLE)
-    out.push(`Transfer table from the worksite's wave study used instead of refraction and shoaling${detail.transferFactor != null ? ` (factor ${detail.transferFactor.toFixed(3)})` : ''}.`);
-  if (flags & TRANSFORM_FLAG.LANDWARD) out.push('Sea from the landward side (angle of incidence 90° or more): shoaling only, Kr = 1, direction kept.');
-  if (flags & TRANSFORM_FLAG.REFRACTION_SKIPPED) out.push('Refraction skipped: the worksite is deeper than the data point for this wave (Snell would need sin θ ≥ 1), so Kr = 1 and the direction is kept.');
+    out.push(
+      `Transfer table from the worksite's wave study used instead of refraction and shoaling${detail.transferFactor != null ? ` (factor ${detail.transferFactor.toFixed(3)})` : ''}.`,
+    );
+  if (flags & TRANSFORM_FLAG.LANDWARD)
+    out.push('Sea from the landward side (angle of incidence 90° or more): shoaling only, Kr = 1, direction kept.');
+  if (flags & TRANSFORM_FLAG.REFRACTION_SKIPPED)
+    out.push(
+      'Refraction skipped: the worksite is deeper than the data point for this wave (Snell would need sin θ ≥ 1), so Kr = 1 and the direction is kept.',
+    );
   if (flags & TRANSFORM_FLAG.DEPTH_LIMITED)
     out.push(`Depth-limited: Hs capped at γb × d${detail.depthLimitM != null ? ` = ${detail.depthLimitM.toFixed(2)} m` : ''} (breaking).`);
   return out;
 }
 
 /** Direction 'coming from', degrees. */
-export const fmtDir = (deg: number | null | undefined) => (deg === null || deg === undefined || !Number.isFinite(deg) ? '–' : `${Math.round(deg)}° from`);
+export const fmtDir = (deg: number | null | undefined) =>
+  deg === null || deg === undefined || !Number.isFinite(deg) ? '–' : `${Math.round(deg)}° from`;

@@ -75,15 +75,32 @@ export function BoardGrid(props: BoardGridProps) {
     const { from, to } = props.range;
     const page = Math.max(1, Math.round(86_400_000 / props.stepMs));
     switch (e.key) {
-      case 'ArrowLeft': col = Math.max(from, col - 1); break;
-      case 'ArrowRight': col = Math.min(to - 1, col + 1); break;
-      case 'ArrowUp': row = Math.max(0, row - 1); break;
-      case 'ArrowDown': row = Math.min(plans.length - 1, row + 1); break;
-      case 'Home': col = from; break;
-      case 'End': col = to - 1; break;
-      case 'PageUp': col = Math.max(from, col - page); break;
-      case 'PageDown': col = Math.min(to - 1, col + page); break;
-      default: return;
+      case 'ArrowLeft':
+        col = Math.max(from, col - 1);
+        break;
+      case 'ArrowRight':
+        col = Math.min(to - 1, col + 1);
+        break;
+      case 'ArrowUp':
+        row = Math.max(0, row - 1);
+        break;
+      case 'ArrowDown':
+        row = Math.min(plans.length - 1, row + 1);
+        break;
+      case 'Home':
+        col = from;
+        break;
+      case 'End':
+        col = to - 1;
+        break;
+      case 'PageUp':
+        col = Math.max(from, col - page);
+        break;
+      case 'PageDown':
+        col = Math.min(to - 1, col + page);
+        break;
+      default:
+        return;
     }
     e.preventDefault();
     setActive({ row, col });
@@ -94,17 +111,12 @@ export function BoardGrid(props: BoardGridProps) {
 
   return (
     <div ref={rootRef} className="flex flex-col gap-5" onKeyDown={onKeyDown} style={{ '--cell': `${props.cellPx}px` } as CSSProperties}>
-      <p className="sr-only">Each hour is a button that opens the reasons behind its status. Arrow keys move between hours and rows; Page Up and Page Down move a day.</p>
+      <p className="sr-only">
+        Each hour is a button that opens the reasons behind its status. Arrow keys move between hours and rows; Page Up and Page Down move a
+        day.
+      </p>
       {groups.map(([zone, rows]) => (
-        <ZoneGroup
-          key={zone}
-          zone={zone}
-          rows={rows}
-          {...props}
-          activeRow={activeRow}
-          activeCol={activeCol}
-          onActivate={onActivate}
-        />
+        <ZoneGroup key={zone} zone={zone} rows={rows} {...props} activeRow={activeRow} activeCol={activeCol} onActivate={onActivate} />
       ))}
     </div>
   );
@@ -140,10 +152,11 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
   }
 
   return (
-    <section aria-label={`Operations at worksites in ${zone}`} className="overflow-hidden rounded-[var(--radius-card)] border border-line bg-surface">
-      <p className="border-b border-line px-3 py-2 text-xs text-ink-soft sm:px-4">
-        Scroll sideways for later hours.
-      </p>
+    <section
+      aria-label={`Operations at worksites in ${zone}`}
+      className="overflow-hidden rounded-[var(--radius-card)] border border-line bg-surface"
+    >
+      <p className="border-b border-line px-3 py-2 text-xs text-ink-soft sm:px-4">Scroll sideways for later hours.</p>
       <div className="overflow-x-auto overscroll-x-contain" data-testid="board-scroll">
         <div className="w-max min-w-full">
           {/* Header: days and hours of the worksite. */}
@@ -173,7 +186,11 @@ function ZoneGroup({ zone, rows, timesMs, range, nowMs, stepMs, selected, active
                   </span>
                 ))}
                 {nowOffset !== null ? (
-                  <span className="absolute top-4 z-10 rounded-r bg-lamp px-1 text-[10px] font-bold leading-4 text-deep" style={{ left: nowOffset }} data-testid="now-tag">
+                  <span
+                    className="absolute top-4 z-10 rounded-r bg-lamp px-1 text-[10px] font-bold leading-4 text-deep"
+                    style={{ left: nowOffset }}
+                    data-testid="now-tag"
+                  >
                     now
                   </span>
                 ) : null}
@@ -223,9 +240,26 @@ interface BoardRowProps {
   onActivate: (row: number, col: number) => void;
 }
 
-const linkClass = 'inline-flex min-h-11 items-center gap-1 rounded-lg px-2 text-xs font-semibold text-accent underline-offset-2 hover:bg-surface-2 hover:underline';
+const linkClass =
+  'inline-flex min-h-11 items-center gap-1 rounded-lg px-2 text-xs font-semibold text-accent underline-offset-2 hover:bg-surface-2 hover:underline';
 
-const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, nowMs, stepMs, nowOffset, dayStarts, alpha, cellPx, selectedIndex, onSelect, activeCol, onActivate }: BoardRowProps) {
+const BoardRow = memo(function BoardRow({
+  plan,
+  row,
+  projectId,
+  timesMs,
+  range,
+  nowMs,
+  stepMs,
+  nowOffset,
+  dayStarts,
+  alpha,
+  cellPx,
+  selectedIndex,
+  onSelect,
+  activeCol,
+  onActivate,
+}: BoardRowProps) {
   const words = startWords(plan, nowMs);
   const boxes = windowBoxes(plan.windows, timesMs, range);
   const marks = occurrenceMarks(plan.occurrences, timesMs, stepMs, range, plan.tr);
@@ -275,7 +309,10 @@ const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, 
       <div className="sticky left-0 z-20 w-[calc(100vw-2.75rem)] bg-surface px-3 pt-2 sm:px-4 lg:w-80 lg:shrink-0 lg:border-r lg:border-line lg:pb-0">
         <p className="text-sm leading-snug font-bold">{plan.operationName}</p>
         <p className="text-xs text-ink-soft">
-          at {plan.siteName} · <Term k="tr" /> {plan.tr} h <span className="whitespace-nowrap">(<Term k="tpop" /> {plan.tpop} h + <Term k="tc" /> {plan.tc} h)</span>
+          at {plan.siteName} · <Term k="tr" /> {plan.tr} h{' '}
+          <span className="whitespace-nowrap">
+            (<Term k="tpop" /> {plan.tpop} h + <Term k="tc" /> {plan.tc} h)
+          </span>
         </p>
         <p
           className={`mt-1 text-sm font-semibold ${words.tone === 'now' ? 'text-accent' : words.tone === 'none' ? 'text-ink-soft' : 'text-ink'}`}
@@ -289,7 +326,11 @@ const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, 
         <div className="-ml-2 flex flex-wrap">
           {plan.windows.length > 0 ? (
             <a className={linkClass} href={ics} download>
-              <span aria-hidden>⤓</span> Download windows (.ics)<span className="sr-only"> of {plan.operationName} at {plan.siteName}</span>
+              <span aria-hidden>⤓</span> Download windows (.ics)
+              <span className="sr-only">
+                {' '}
+                of {plan.operationName} at {plan.siteName}
+              </span>
             </a>
           ) : (
             <span className="inline-flex min-h-11 items-center px-2 text-xs text-ink-soft">No windows to download</span>
@@ -332,7 +373,9 @@ const BoardRow = memo(function BoardRow({ plan, row, projectId, timesMs, range, 
             </span>
           );
         })}
-        {nowOffset !== null ? <div aria-hidden className="pointer-events-none absolute inset-y-0 z-10 w-0.5 bg-lamp" style={{ left: nowOffset }} /> : null}
+        {nowOffset !== null ? (
+          <div aria-hidden className="pointer-events-none absolute inset-y-0 z-10 w-0.5 bg-lamp" style={{ left: nowOffset }} />
+        ) : null}
       </div>
     </div>
   );

@@ -17,12 +17,15 @@ export function BoardLegend({ alpha }: { alpha: boolean }) {
       <ul className="grid gap-x-6 gap-y-2 px-4 pb-3 text-sm sm:grid-cols-2 xl:grid-cols-3" data-testid="board-legend">
         {STATUS_ORDER.map((s) => (
           <li key={s} className="flex items-start gap-2">
-            <span className={`mt-0.5 inline-flex size-6 shrink-0 items-center justify-center rounded text-xs font-bold ${STATUS_META[s].cell}`} aria-hidden>
+            <span
+              className={`mt-0.5 inline-flex size-6 shrink-0 items-center justify-center rounded text-xs font-bold ${STATUS_META[s].cell}`}
+              aria-hidden
+            >
               {STATUS_META[s].letter}
             </span>
             <span>
-              <strong>{statusLabel(s)}</strong>
-              : {s === 'workable' && !alpha ? 'every limit met at the operation limits OPLIM' : STATUS_META[s].explain}
+              <strong>{statusLabel(s)}</strong>:{' '}
+              {s === 'workable' && !alpha ? 'every limit met at the operation limits OPLIM' : STATUS_META[s].explain}
               {s === 'marginal' && !alpha ? ' (cannot occur while forecast limits are off)' : ''}.
             </span>
           </li>
@@ -35,12 +38,18 @@ export function BoardLegend({ alpha }: { alpha: boolean }) {
         </li>
         <li className="flex items-start gap-2" data-testid="legend-occurrence">
           <span className="mt-0.5 inline-flex h-3.5 w-10 shrink-0 overflow-hidden rounded-b-sm border border-t-0 border-ink/70" aria-hidden>
-            <span className={`flex items-center px-0.5 text-[9px] leading-none font-bold ${OCCURRENCE_META.go.mark}`}>↻{OCCURRENCE_META.go.letter}</span>
+            <span className={`flex items-center px-0.5 text-[9px] leading-none font-bold ${OCCURRENCE_META.go.mark}`}>
+              ↻{OCCURRENCE_META.go.letter}
+            </span>
             <span className={`flex-1 opacity-60 ${OCCURRENCE_META.go.mark}`} />
           </span>
           <span>
-            <strong>Tab along the top</strong>: an occurrence of a recurring operation (set on the Alerts page), over its TR hours from its start, judged{' '}
-            {(['go', 'marginal', 'no_go', 'no_data'] as const).map((k, i) => `${i ? ', ' : ''}${OCCURRENCE_META[k].letter} ${OCCURRENCE_META[k].word}`).join('')}.
+            <strong>Tab along the top</strong>: an occurrence of a recurring operation (set on the Alerts page), over its TR hours from its
+            start, judged{' '}
+            {(['go', 'marginal', 'no_go', 'no_data'] as const)
+              .map((k, i) => `${i ? ', ' : ''}${OCCURRENCE_META[k].letter} ${OCCURRENCE_META[k].word}`)
+              .join('')}
+            .
           </span>
         </li>
         <li className="flex items-start gap-2">

@@ -117,7 +117,8 @@ export function occurrenceMarks(
     const last = Math.max(covering + 1, firstAtOrAfter(timesMs, endMs));
     const from = Math.max(covering, range.from);
     const to = Math.min(last, range.to);
-    if (to > from) marks.push({ start: o.start, status: o.status, from, count: to - from, clippedStart: from > covering || startMs < timesMs[0] });
+    if (to > from)
+      marks.push({ start: o.start, status: o.status, from, count: to - from, clippedStart: from > covering || startMs < timesMs[0] });
   }
   return marks;
 }

@@ -148,7 +148,20 @@ interface BoardBodyProps {
   onClose: () => void;
 }
 
-function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, userId, canFetch, fetchButton, selected, onSelect, onClose }: BoardBodyProps) {
+function BoardBody({
+  projectId,
+  answer,
+  updating,
+  nowMs,
+  filters,
+  setFilters,
+  userId,
+  canFetch,
+  fetchButton,
+  selected,
+  onSelect,
+  onClose,
+}: BoardBodyProps) {
   const dataset = answer.dataset;
   const stepMs = answer.stepMinutes * 60_000;
   const allPlans = answer.plans;
@@ -176,9 +189,17 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
         <h2 className="text-lg font-bold">No forecast yet</h2>
         <p className="mt-1 text-sm text-ink-soft">
           The board plans every operation on the project’s latest forecast, and there is none yet.{' '}
-          {canFetch
-            ? <>Fetch one from the forecast service, or import a forecast file under <Link className="font-semibold text-accent underline" to={`/projects/${projectId}/sea-data`}>Sea data</Link>.</>
-            : 'The marine coordinator fetches forecasts; the board fills in as soon as one arrives.'}
+          {canFetch ? (
+            <>
+              Fetch one from the forecast service, or import a forecast file under{' '}
+              <Link className="font-semibold text-accent underline" to={`/projects/${projectId}/sea-data`}>
+                Sea data
+              </Link>
+              .
+            </>
+          ) : (
+            'The marine coordinator fetches forecasts; the board fills in as soon as one arrives.'
+          )}
         </p>
         {canFetch ? <div className="mt-3 flex flex-wrap gap-2">{fetchButton}</div> : null}
       </Card>
@@ -196,13 +217,14 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
         <div className="flex flex-wrap items-baseline gap-x-3 gap-y-1" data-testid="forecast-info">
           <h2 className="text-base font-bold">{dataset.name}</h2>
           <p className="text-sm text-ink-soft">
-            Issued{' '}
-            <strong className="text-ink">
-              {formatIn(issuedMs, zone)}
-            </strong>{' '}
-            ({relativeTime(issuedMs, nowMs)}) · last hour {formatIn(lastMs, zone)}
+            Issued <strong className="text-ink">{formatIn(issuedMs, zone)}</strong> ({relativeTime(issuedMs, nowMs)}) · last hour{' '}
+            {formatIn(lastMs, zone)}
           </p>
-          {updating ? <span className="text-xs text-ink-soft" role="status">Updating…</span> : null}
+          {updating ? (
+            <span className="text-xs text-ink-soft" role="status">
+              Updating…
+            </span>
+          ) : null}
         </div>
         <BoardControls filters={filters} onChange={setFilters} sites={sites} operations={operations} hasOwnOperations={hasOwn} />
         <AlphaNote alpha={filters.alpha} />
@@ -222,10 +244,15 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
           <h2 className="text-lg font-bold">No operations yet</h2>
           <p className="mt-1 text-sm text-ink-soft">
             The board shows one row per operation and worksite.{' '}
-            {canFetch ? 'Add worksites and operations with their limits first.' : 'The marine coordinator has not set up any operations in this project yet.'}
+            {canFetch
+              ? 'Add worksites and operations with their limits first.'
+              : 'The marine coordinator has not set up any operations in this project yet.'}
           </p>
           {canFetch ? (
-            <Link className="mt-3 inline-flex min-h-11 items-center rounded-lg bg-accent px-4 text-sm font-semibold text-accent-ink" to={`/projects/${projectId}/setup`}>
+            <Link
+              className="mt-3 inline-flex min-h-11 items-center rounded-lg bg-accent px-4 text-sm font-semibold text-accent-ink"
+              to={`/projects/${projectId}/setup`}
+            >
               Set up worksites and limits
             </Link>
           ) : null}
@@ -234,7 +261,8 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
         <Card>
           <h2 className="text-lg font-bold">No rows match these filters</h2>
           <p className="mt-1 text-sm text-ink-soft">
-            {filters.mine && !hasOwn ? 'No operation names you as its skipper. ' : ''}Clear the filters to see every operation at every worksite.
+            {filters.mine && !hasOwn ? 'No operation names you as its skipper. ' : ''}Clear the filters to see every operation at every
+            worksite.
           </p>
           <Button className="mt-3" variant="secondary" onClick={() => setFilters({ siteId: '', operationId: '', mine: false })}>
             Show every operation
@@ -255,9 +283,15 @@ function BoardBody({ projectId, answer, updating, nowMs, filters, setFilters, us
             selected={selectedPlan ? selected : null}
             onSelect={onSelect}
           />
-          <TideStrips projectId={projectId} siteIds={[...new Set(plans.map((p) => p.siteId))]} fromMs={timesMs[range.from]} toMs={timesMs[Math.max(range.from, range.to - 1)]} />
+          <TideStrips
+            projectId={projectId}
+            siteIds={[...new Set(plans.map((p) => p.siteId))]}
+            fromMs={timesMs[range.from]}
+            toMs={timesMs[Math.max(range.from, range.to - 1)]}
+          />
           <p className="text-xs text-ink-soft">
-            {plans.length} of {allPlans.length} rows · {range.to - range.from} hours shown of {timesMs.length} in the forecast · each hour stands for the hour that starts at its label.
+            {plans.length} of {allPlans.length} rows · {range.to - range.from} hours shown of {timesMs.length} in the forecast · each hour
+            stands for the hour that starts at its label.
           </p>
         </>
       )}
@@ -301,7 +335,11 @@ function TideStrips({ projectId, siteIds, fromMs, toMs }: { projectId: string; s
 function NextStarts({ plans, nowMs }: { plans: PlanAnswer['plans']; nowMs: number }) {
   if (plans.length === 0) return null;
   return (
-    <section className="rounded-[var(--radius-card)] border border-line bg-surface p-3 sm:hidden" aria-labelledby="next-starts-title" data-testid="next-starts">
+    <section
+      className="rounded-[var(--radius-card)] border border-line bg-surface p-3 sm:hidden"
+      aria-labelledby="next-starts-title"
+      data-testid="next-starts"
+    >
       <h2 id="next-starts-title" className="text-base font-bold">
         Next starts
       </h2>
@@ -311,7 +349,11 @@ function NextStarts({ plans, nowMs }: { plans: PlanAnswer['plans']; nowMs: numbe
           return (
             <li key={`${p.operationId}-${p.siteId}`} className="py-1.5 text-sm">
               <span className="font-semibold">{p.operationName}</span> <span className="text-ink-soft">at {p.siteName}</span>
-              <span className={`block ${w.tone === 'now' ? 'font-semibold text-accent' : w.tone === 'none' ? 'text-ink-soft' : 'text-ink'}`}>{w.text}</span>
+              <span
+                className={`block ${w.tone === 'now' ? 'font-semibold text-accent' : w.tone === 'none' ? 'text-ink-soft' : 'text-ink'}`}
+              >
+                {w.text}
+              </span>
             </li>
           );
         })}
@@ -325,14 +367,15 @@ function NextStarts({ plans, nowMs }: { plans: PlanAnswer['plans']; nowMs: numbe
 function AlphaNote({ alpha }: { alpha: boolean }) {
   return alpha ? (
     <p className="rounded-lg bg-surface-2 px-3 py-2 text-sm" data-testid="alpha-note">
-      <strong>Forecast limits on.</strong> A forecast is uncertain, so the Hs limits of weather-restricted operations are cut to the forecast limit{' '}
-      <strong>OPWF = α × OPLIM</strong> (α from the project’s alpha table by TPOP and Hs limit); other limits stay at OPLIM. Hours that meet OPLIM but not OPWF are
-      marginal, not workable.
+      <strong>Forecast limits on.</strong> A forecast is uncertain, so the Hs limits of weather-restricted operations are cut to the
+      forecast limit <strong>OPWF = α × OPLIM</strong> (α from the project’s alpha table by TPOP and Hs limit); other limits stay at OPLIM.
+      Hours that meet OPLIM but not OPWF are marginal, not workable.
     </p>
   ) : (
     <p className="rounded-lg border border-danger bg-danger-soft px-3 py-2 text-sm" data-testid="alpha-note">
-      <strong>Forecast limits off: planning on OPLIM.</strong> Every hour is tested at the operation limits with no allowance for forecast uncertainty. Weather-restricted
-      operations planned on a forecast should use OPWF = α × OPLIM on Hs: switch forecast limits back on before committing to a window.
+      <strong>Forecast limits off: planning on OPLIM.</strong> Every hour is tested at the operation limits with no allowance for forecast
+      uncertainty. Weather-restricted operations planned on a forecast should use OPWF = α × OPLIM on Hs: switch forecast limits back on
+      before committing to a window.
     </p>
   );
 }

@@ -63,7 +63,9 @@ export function ChainPanel({ projectId, plan, index, timeMs, alpha, datasetId, c
               {meta.letter}
             </span>
             <strong data-testid="chain-status">{meta.word[0].toUpperCase() + meta.word.slice(1)}</strong>
-            {status !== 'workable' && status !== 'no_data' && plan.limiting[index] ? <span>limited by {limitWord(plan.limiting[index])}</span> : null}
+            {status !== 'workable' && status !== 'no_data' && plan.limiting[index] ? (
+              <span>limited by {limitWord(plan.limiting[index])}</span>
+            ) : null}
           </p>
         </div>
         <button
@@ -105,7 +107,10 @@ export function ChainPanel({ projectId, plan, index, timeMs, alpha, datasetId, c
 function Step({ n, title, children }: { n: number; title: string; children: ReactNode }) {
   return (
     <section className="relative border-l-2 border-line pb-4 pl-4 last:pb-1">
-      <span className="absolute top-0 -left-[0.8rem] inline-flex size-6 items-center justify-center rounded-full bg-deep-2 text-xs font-bold text-white" aria-hidden>
+      <span
+        className="absolute top-0 -left-[0.8rem] inline-flex size-6 items-center justify-center rounded-full bg-deep-2 text-xs font-bold text-white"
+        aria-hidden
+      >
         {n}
       </span>
       <h3 className="text-sm font-bold">{title}</h3>
@@ -142,7 +147,13 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
           rows={[
             ['Hs', fmt(dp.hs, 2, 'm')],
             ['Tp', fmt(dp.tp, 1, 's')],
-            ['Tz', <>{fmt(dp.tz ?? t.tzS, 1, 's')}{t.tzSource === 'tp' ? <span className="text-ink-soft"> (from Tp, JONSWAP γ 3.3)</span> : null}</>],
+            [
+              'Tz',
+              <>
+                {fmt(dp.tz ?? t.tzS, 1, 's')}
+                {t.tzSource === 'tp' ? <span className="text-ink-soft"> (from Tp, JONSWAP γ 3.3)</span> : null}
+              </>,
+            ],
             ['Direction', fmtDir(dp.dir)],
             ['Wind at 10 m', fmt(dp.wind, 1, 'm/s')],
           ]}
@@ -150,32 +161,66 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
       </Step>
       <Step n={2} title={`To the worksite (depth ${fmt(chain.site.depthM, 1, 'm')})`}>
         {table ? (
-          <p>Factor from the worksite’s transfer table: <strong className="tabular-nums">{fmt(t.transferFactor, 3)}</strong> (replaces shoaling and refraction).</p>
+          <p>
+            Factor from the worksite’s transfer table: <strong className="tabular-nums">{fmt(t.transferFactor, 3)}</strong> (replaces
+            shoaling and refraction).
+          </p>
         ) : (
           <Facts
             rows={[
               ['Shore normal', t.shoreNormalDeg === null ? 'none set: no refraction' : fmtDir(t.shoreNormalDeg)],
               ...(t.shoreNormalDeg !== null
                 ? ([
-                    ['Angle of incidence', <>{fmt(t.thetaSrcDeg, 1)}° at the data point → {fmt(t.thetaSiteDeg, 1)}° at the worksite</>],
+                    [
+                      'Angle of incidence',
+                      <>
+                        {fmt(t.thetaSrcDeg, 1)}° at the data point → {fmt(t.thetaSiteDeg, 1)}° at the worksite
+                      </>,
+                    ],
                   ] as [ReactNode, ReactNode][])
                 : []),
-              ['Celerity C', <>{fmt(t.cSrcMps, 2, 'm/s')} → {fmt(t.cSiteMps, 2, 'm/s')}</>],
-              ['Group celerity Cg', <>{fmt(t.cgSrcMps, 2, 'm/s')} → {fmt(t.cgSiteMps, 2, 'm/s')}</>],
-              [<abbr key="ks" title="Shoaling coefficient √(Cg data point / Cg worksite)">Ks</abbr>, <span data-testid="chain-ks">{fmt(t.ks, 3)}</span>],
-              [<abbr key="kr" title="Refraction coefficient √(cos θ data point / cos θ worksite)">Kr</abbr>, fmt(t.kr, 3)],
+              [
+                'Celerity C',
+                <>
+                  {fmt(t.cSrcMps, 2, 'm/s')} → {fmt(t.cSiteMps, 2, 'm/s')}
+                </>,
+              ],
+              [
+                'Group celerity Cg',
+                <>
+                  {fmt(t.cgSrcMps, 2, 'm/s')} → {fmt(t.cgSiteMps, 2, 'm/s')}
+                </>,
+              ],
+              [
+                <abbr key="ks" title="Shoaling coefficient √(Cg data point / Cg worksite)">
+                  Ks
+                </abbr>,
+                <span data-testid="chain-ks">{fmt(t.ks, 3)}</span>,
+              ],
+              [
+                <abbr key="kr" title="Refraction coefficient √(cos θ data point / cos θ worksite)">
+                  Kr
+                </abbr>,
+                fmt(t.kr, 3),
+              ],
             ]}
           />
         )}
         <p className="mt-2">
           Hs = {fmt(t.hsSrcM, 2, 'm')} × {fmt(t.ks, 3)}
           {table ? '' : ` × ${fmt(t.kr, 3)}`} = <strong className="tabular-nums">{fmt(t.hsBeforeCapM, 2, 'm')}</strong>
-          {capped ? ', capped at ' : '; depth limit '}γb × d = {fmt(gammaB, 2)} × {fmt(chain.site.depthM, 1, 'm')} = {fmt(t.depthLimitM, 2, 'm')}
+          {capped ? ', capped at ' : '; depth limit '}γb × d = {fmt(gammaB, 2)} × {fmt(chain.site.depthM, 1, 'm')} ={' '}
+          {fmt(t.depthLimitM, 2, 'm')}
           {capped ? '' : ', not reached'}.
         </p>
         <ul className="mt-2 flex flex-col gap-1 text-sm">
           {flags.length === 0 ? (
-            <li className="text-ink-soft">No flags: {t.shoreNormalDeg === null && !table ? 'shoaling only, direction kept.' : 'straight-contour refraction and shoaling as computed.'}</li>
+            <li className="text-ink-soft">
+              No flags:{' '}
+              {t.shoreNormalDeg === null && !table
+                ? 'shoaling only, direction kept.'
+                : 'straight-contour refraction and shoaling as computed.'}
+            </li>
           ) : (
             flags.map((f) => (
               <li key={f} className="rounded-md bg-surface-2 px-2 py-1">
@@ -243,7 +288,9 @@ function LimitRow({ check: c }: { check: LimitCheck }) {
         </div>
         {c.opwf !== null ? (
           <div>
-            <dt className="text-ink-soft"><Term k="opwf" /></dt>
+            <dt className="text-ink-soft">
+              <Term k="opwf" />
+            </dt>
             <dd className="tabular-nums">
               {fmt(c.opwf, d, c.unit)} <span className="text-ink-soft">(α {fmt(c.alpha, 2)})</span>
             </dd>

@@ -53,16 +53,19 @@ function localMidnights(fromMs: number, toMs: number, zone: string, stepDays: nu
   return out;
 }
 
-const TooltipContext = createContext<{ zone: string; unit: string; decimals: number; names: Record<string, string> }>({ zone: 'UTC', unit: '', decimals: 2, names: {} });
+const TooltipContext = createContext<{ zone: string; unit: string; decimals: number; names: Record<string, string> }>({
+  zone: 'UTC',
+  unit: '',
+  decimals: 2,
+  names: {},
+});
 
 function SliceTip({ slice }: SliceTooltipProps<Series>) {
   const { zone, unit, decimals, names } = useContext(TooltipContext);
   const x = slice.points[0]?.data.x as number;
   return (
     <div className="rounded-lg border border-line bg-surface px-3 py-2 text-xs text-ink shadow-lg">
-      <strong>
-        {formatIn(x, zone)}
-      </strong>
+      <strong>{formatIn(x, zone)}</strong>
       {slice.points.map((p) => (
         <span key={p.id} className="mt-0.5 flex items-center gap-2">
           <span className="inline-block h-1 w-3 rounded" style={{ background: p.seriesColor }} aria-hidden />
@@ -131,10 +134,14 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
       markers: (d) =>
         operations.flatMap((o) => [
           ...(o.hsMax !== null ? [limitMarker(o.hsMax, o.n, `${o.n} OPLIM ${fmt(o.hsMax, 2, 'm')}`, false, d)] : []),
-          ...(o.hsMaxForecast !== null && o.hsMaxForecast !== o.hsMax ? [limitMarker(o.hsMaxForecast, o.n, `${o.n} OPWF ${fmt(o.hsMaxForecast, 2, 'm')}`, true, d)] : []),
+          ...(o.hsMaxForecast !== null && o.hsMaxForecast !== o.hsMax
+            ? [limitMarker(o.hsMaxForecast, o.n, `${o.n} OPWF ${fmt(o.hsMaxForecast, 2, 'm')}`, true, d)]
+            : []),
         ]),
       limitValues: operations.flatMap((o) => [o.hsMax, o.hsMaxForecast].filter((v): v is number => v !== null)),
-      note: operations.some((o) => o.hasCurve) ? 'Hs-Tp curve limits change with Tp from hour to hour and are not drawn here: open an hour on the board to see them.' : undefined,
+      note: operations.some((o) => o.hasCurve)
+        ? 'Hs-Tp curve limits change with Tp from hour to hour and are not drawn here: open an hour on the board to see them.'
+        : undefined,
     },
     {
       key: 'tp',
@@ -162,7 +169,15 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
       markers: (d) =>
         operations
           .filter((o) => o.bedVelocityMax !== null)
-          .map((o) => limitMarker(o.bedVelocityMax!, o.n, `${o.n} max ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`, false, d)),
+          .map((o) =>
+            limitMarker(
+              o.bedVelocityMax!,
+              o.n,
+              `${o.n} max ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`,
+              false,
+              d,
+            ),
+          ),
       limitValues: operations.flatMap((o) => (o.bedVelocityMax !== null ? [o.bedVelocityMax] : [])),
     },
     {
@@ -171,7 +186,10 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
       unit: 'm/s',
       decimals: 1,
       series: [{ id: 'wind', name: 'Wind', values: conditions.wind, light: '#334155', dark: '#cbd5e1' }],
-      markers: (d) => operations.filter((o) => o.windMax !== null).map((o) => limitMarker(o.windMax!, o.n, `${o.n} max ${fmt(o.windMax, 1, 'm/s')}`, false, d)),
+      markers: (d) =>
+        operations
+          .filter((o) => o.windMax !== null)
+          .map((o) => limitMarker(o.windMax!, o.n, `${o.n} max ${fmt(o.windMax, 1, 'm/s')}`, false, d)),
       limitValues: operations.flatMap((o) => (o.windMax !== null ? [o.windMax] : [])),
     },
   ];
@@ -194,7 +212,16 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
         const markers: CartesianMarkerProps[] = [
           ...placed,
           ...(nowMs >= fromMs && nowMs <= toMs
-            ? [{ axis: 'x' as const, value: nowMs, legend: 'now', legendPosition: 'top-left' as const, lineStyle: { stroke: palette.now, strokeWidth: 2 }, textStyle: { fill: palette.now, fontSize: 10, fontWeight: 700 } }]
+            ? [
+                {
+                  axis: 'x' as const,
+                  value: nowMs,
+                  legend: 'now',
+                  legendPosition: 'top-left' as const,
+                  lineStyle: { stroke: palette.now, strokeWidth: 2 },
+                  textStyle: { fill: palette.now, fontSize: 10, fontWeight: 700 },
+                },
+              ]
             : []),
         ];
         const bands = p.bands ?? [];
@@ -205,7 +232,14 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
               const y0 = (yScale as (v: number) => number)(b.from);
               return (
                 <g key={i}>
-                  <rect x={0} width={innerWidth} y={y1} height={Math.max(1, y0 - y1)} fill={operationColour(b.n, dark)} fillOpacity={0.16} />
+                  <rect
+                    x={0}
+                    width={innerWidth}
+                    y={y1}
+                    height={Math.max(1, y0 - y1)}
+                    fill={operationColour(b.n, dark)}
+                    fillOpacity={0.16}
+                  />
                   <text x={4} y={y1 + 11} fontSize={10} fontWeight={700} fill={operationColour(b.n, dark)}>
                     {b.n} excluded {b.from}–{b.to} s
                   </text>
@@ -241,7 +275,15 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
                 ? p.series.map((s) => (
                     <span key={s.id} className="inline-flex items-center gap-1 text-xs font-normal text-ink-soft">
                       <svg width="20" height="6" aria-hidden>
-                        <line x1="0" y1="3" x2="20" y2="3" stroke={dark ? s.dark : s.light} strokeWidth="2" strokeDasharray={s.dashed ? '4 3' : undefined} />
+                        <line
+                          x1="0"
+                          y1="3"
+                          x2="20"
+                          y2="3"
+                          stroke={dark ? s.dark : s.light}
+                          strokeWidth="2"
+                          strokeDasharray={s.dashed ? '4 3' : undefined}
+                        />
                       </svg>
                       {s.name}
                     </span>
@@ -251,7 +293,9 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
             </figcaption>
             <div className="h-56" role="img" aria-label={`${p.title} over the forecast at the worksite, ${summary}; times in ${zone}.`}>
               {empty ? (
-                <div className="flex h-full items-center justify-center rounded-lg border border-dashed border-line text-sm text-ink-soft">Not in this forecast.</div>
+                <div className="flex h-full items-center justify-center rounded-lg border border-dashed border-line text-sm text-ink-soft">
+                  Not in this forecast.
+                </div>
               ) : (
                 <TooltipContext.Provider value={{ zone, unit: p.unit, decimals: p.decimals, names }}>
                   <ResponsiveLine<Series>

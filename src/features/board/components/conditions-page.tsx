@@ -20,7 +20,8 @@ import { operationColour } from './operation-colours';
 
 const ConditionsCharts = lazy(() => import('./conditions-charts'));
 
-const linkClass = 'inline-flex min-h-11 items-center rounded-lg border border-line bg-surface-2 px-4 text-sm font-semibold hover:border-accent';
+const linkClass =
+  'inline-flex min-h-11 items-center rounded-lg border border-line bg-surface-2 px-4 text-sm font-semibold hover:border-accent';
 
 function useMinuteClock() {
   const [now, setNow] = useState(() => Date.now());
@@ -80,8 +81,8 @@ export function ConditionsPage() {
         subtitle={
           site ? (
             <>
-              Water depth {fmt(site.depth, 1, 'm')} · shore normal {site.shoreNormal === null ? 'not set (no refraction)' : `${site.shoreNormal}° from`} · breaker index γb{' '}
-              {site.breakerIndex}
+              Water depth {fmt(site.depth, 1, 'm')} · shore normal{' '}
+              {site.shoreNormal === null ? 'not set (no refraction)' : `${site.shoreNormal}° from`} · breaker index γb {site.breakerIndex}
             </>
           ) : (
             'The worksite’s sea over the latest forecast, with the limits of the operations planned there.'
@@ -98,7 +99,9 @@ export function ConditionsPage() {
       {c && c.times.length === 0 ? (
         <Card>
           <h2 className="text-lg font-bold">No forecast yet</h2>
-          <p className="mt-1 text-sm text-ink-soft">The conditions appear here once the marine coordinator has fetched a forecast for the project.</p>
+          <p className="mt-1 text-sm text-ink-soft">
+            The conditions appear here once the marine coordinator has fetched a forecast for the project.
+          </p>
         </Card>
       ) : null}
       {c && c.times.length > 0 ? (
@@ -116,8 +119,8 @@ export function ConditionsPage() {
               </p>
             ) : null}
             <p className="text-sm text-ink-soft">
-              From {formatIn(c.times[0], zone)} to {formatIn(c.times[c.times.length - 1], zone)}, hourly. Numbered lines are the limits
-              of the operations below: solid at the operation limit OPLIM, dashed at the forecast limit OPWF = α × OPLIM (Hs only).
+              From {formatIn(c.times[0], zone)} to {formatIn(c.times[c.times.length - 1], zone)}, hourly. Numbered lines are the limits of
+              the operations below: solid at the operation limit OPLIM, dashed at the forecast limit OPWF = α × OPLIM (Hs only).
             </p>
             {chartOps.length === 0 ? (
               <Notice>No operation is planned at this worksite, so no limits are drawn.</Notice>
@@ -145,14 +148,13 @@ export function ConditionsPage() {
             <Suspense fallback={<Spinner label="Drawing the charts" />}>
               <ConditionsCharts conditions={c} operations={chartOps} nowMs={nowMs} />
             </Suspense>
-            <p className="mt-3 text-right text-xs text-ink-soft">
-              A gridline at each midnight at the worksite.
-            </p>
+            <p className="mt-3 text-right text-xs text-ink-soft">A gridline at each midnight at the worksite.</p>
           </Card>
           <Card className="text-sm">
             <h2 className="font-bold">How the sea was brought to the worksite</h2>
             <p className="mt-1 text-ink-soft">
-              Hs at the data point, refracted and shoaled to {site ? fmt(site.depth, 1, 'm') : 'the worksite depth'} with linear wave theory at Tp, then capped at γb × d.
+              Hs at the data point, refracted and shoaled to {site ? fmt(site.depth, 1, 'm') : 'the worksite depth'} with linear wave theory
+              at Tp, then capped at γb × d.
             </p>
             <ul className="mt-2 flex flex-wrap gap-2 text-xs" data-testid="conditions-flags">
               <FlagCount n={flagCounts.depth} text="depth-limited (Hs capped)" />
@@ -187,7 +189,8 @@ function describeLimits(o: ChartOperation): string {
   if (o.tpMin !== null) parts.push(`Tp ≥ ${fmt(o.tpMin, 1, 's')}`);
   if (o.tpMax !== null) parts.push(`Tp ≤ ${fmt(o.tpMax, 1, 's')}`);
   for (const [a, b] of o.tpExcluded) parts.push(`Tp not ${a}–${b} s`);
-  if (o.bedVelocityMax !== null) parts.push(`bed velocity ≤ ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`);
+  if (o.bedVelocityMax !== null)
+    parts.push(`bed velocity ≤ ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`);
   if (o.windMax !== null) parts.push(`wind ≤ ${fmt(o.windMax, 1, 'm/s')}`);
   return parts.join(' · ') || 'no limits drawn here';
 }

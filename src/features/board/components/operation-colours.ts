@@ -12,4 +12,3 @@ export const OPERATION_COLOURS: [string, string][] = [
 ];
 
 export const operationColour = (n: number, dark: boolean) => OPERATION_COLOURS[(n - 1) % OPERATION_COLOURS.length][dark ? 1 : 0];
-

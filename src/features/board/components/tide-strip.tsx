@@ -13,7 +13,9 @@ const PAD = 18;
 export function TideStrip({ projectId, site, fromMs, toMs }: { projectId: string; site: SiteResponse; fromMs: number; toMs: number }) {
   // Whole hours keep the query key stable while the board's clock ticks.
   const from = new Date(Math.floor(fromMs / 3_600_000) * 3_600_000).toISOString();
-  const to = new Date(Math.min(Math.ceil(toMs / 3_600_000) * 3_600_000, Math.floor(fromMs / 3_600_000) * 3_600_000 + 31 * 86_400_000)).toISOString();
+  const to = new Date(
+    Math.min(Math.ceil(toMs / 3_600_000) * 3_600_000, Math.floor(fromMs / 3_600_000) * 3_600_000 + 31 * 86_400_000),
+  ).toISOString();
   const tide = useTide({ projectId, siteId: site.id, from, to });
   if (!tide.data) return tide.isError ? <p className="text-xs text-ink-soft">Tide at {site.name}: not available.</p> : null;
   const { times, waterLevel, extremes, datum, station, cautions } = tide.data;
@@ -27,27 +29,48 @@ export function TideStrip({ projectId, site, fromMs, toMs }: { projectId: string
   const path = times.map((t, k) => `${k === 0 ? 'M' : 'L'}${x(Date.parse(t)).toFixed(1)},${y(waterLevel[k]).toFixed(1)}`).join(' ');
   const zone = site.timeZone;
   return (
-    <section className="rounded-[var(--radius-card)] border border-line bg-surface p-3" aria-labelledby={`tide-${site.id}`} data-testid="tide-strip">
+    <section
+      className="rounded-[var(--radius-card)] border border-line bg-surface p-3"
+      aria-labelledby={`tide-${site.id}`}
+      data-testid="tide-strip"
+    >
       <h3 id={`tide-${site.id}`} className="text-sm font-bold">
-        Tide at {site.name} <span className="font-normal text-ink-soft">(m above {datum}; times in {zone})</span>
+        Tide at {site.name}{' '}
+        <span className="font-normal text-ink-soft">
+          (m above {datum}; times in {zone})
+        </span>
       </h3>
-      <svg viewBox={`0 0 ${W} ${H}`} className="mt-1 h-28 w-full" role="img" aria-label={`Predicted water level at ${site.name}`} preserveAspectRatio="none">
+      <svg
+        viewBox={`0 0 ${W} ${H}`}
+        className="mt-1 h-28 w-full"
+        role="img"
+        aria-label={`Predicted water level at ${site.name}`}
+        preserveAspectRatio="none"
+      >
         <path d={path} fill="none" stroke="var(--color-accent)" strokeWidth={2} vectorEffect="non-scaling-stroke" />
         {extremes.map((e) => (
-          <circle key={e.time} cx={x(Date.parse(e.time))} cy={y(e.level)} r={4} fill={e.kind === 'high' ? 'var(--color-accent)' : 'var(--color-ink-soft, #666)'} />
+          <circle
+            key={e.time}
+            cx={x(Date.parse(e.time))}
+            cy={y(e.level)}
+            r={4}
+            fill={e.kind === 'high' ? 'var(--color-accent)' : 'var(--color-ink-soft, #666)'}
+          />
         ))}
       </svg>
       <ul className="mt-1 flex flex-wrap gap-x-4 gap-y-1 text-xs" aria-label="High and low waters">
         {extremes.map((e) => (
           <li key={e.time} data-testid={`tide-${e.kind}`}>
-            <span className="font-semibold">{e.kind === 'high' ? 'High' : 'Low'}</span> {formatIn(Date.parse(e.time), zone)} {zoneShort(Date.parse(e.time), zone)} · {e.level.toFixed(2)} m
+            <span className="font-semibold">{e.kind === 'high' ? 'High' : 'Low'}</span> {formatIn(Date.parse(e.time), zone)}{' '}
+            {zoneShort(Date.parse(e.time), zone)} · {e.level.toFixed(2)} m
           </li>
         ))}
       </ul>
       {station ? (
         <p className="mt-1 text-xs text-ink-soft">
           Station {station.name}
-          {station.distanceKm !== null ? `, ${station.distanceKm.toFixed(1)} km away` : ''}. {station.warnings.join(' ')} {station.attribution}
+          {station.distanceKm !== null ? `, ${station.distanceKm.toFixed(1)} km away` : ''}. {station.warnings.join(' ')}{' '}
+          {station.attribution}
         </p>
       ) : null}
       <p className="mt-1 text-xs text-ink-soft">{cautions.join(' ')}</p>

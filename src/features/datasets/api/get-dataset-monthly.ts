@@ -12,5 +12,4 @@ export const datasetMonthlyQueryOptions = (projectId: string, datasetId: string)
     queryFn: () => getDatasetMonthly(projectId, datasetId),
   });
 
-export const useDatasetMonthly = (projectId: string, datasetId: string) =>
-  useQuery(datasetMonthlyQueryOptions(projectId, datasetId));
+export const useDatasetMonthly = (projectId: string, datasetId: string) => useQuery(datasetMonthlyQueryOptions(projectId, datasetId));

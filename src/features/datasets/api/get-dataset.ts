@@ -3,8 +3,7 @@ import type { DatasetDetail } from '../../../../shared/api-types-datasets';
 import { api } from '../../../lib/api';
 
 /** `GET /api/projects/:projectId/datasets/:datasetId`: facts, coverage and the import report. */
-export const getDataset = (projectId: string, datasetId: string) =>
-  api<DatasetDetail>(`/api/projects/${projectId}/datasets/${datasetId}`);
+export const getDataset = (projectId: string, datasetId: string) => api<DatasetDetail>(`/api/projects/${projectId}/datasets/${datasetId}`);
 
 export const datasetQueryOptions = (projectId: string, datasetId: string) =>
   queryOptions({

@@ -100,7 +100,9 @@ export function uploadDataset(
         const end = last as StreamLine | null;
         if (end?.status === 201 && end.result) return resolve(end.result);
         if (end?.status) return reject(toApiError(end.status, end.error, 'The import failed'));
-        return reject(new ApiError(xhr.status, 'bad_response', 'The server stopped answering before the import finished. Nothing was saved.', null));
+        return reject(
+          new ApiError(xhr.status, 'bad_response', 'The server stopped answering before the import finished. Nothing was saved.', null),
+        );
       }
       // Refused before the import started (403, 413, 400 form fields...): a plain JSON answer.
       let json: StreamLine | null;
@@ -111,7 +113,9 @@ export function uploadDataset(
       }
       if (xhr.status === 201 && json) return resolve(json as unknown as ImportAnswer);
       const fallback =
-        xhr.status === 413 ? `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB` : xhr.statusText || 'The upload failed';
+        xhr.status === 413
+          ? `The file is larger than the upload limit of ${MAX_UPLOAD_BYTES / 1024 / 1024} MB`
+          : xhr.statusText || 'The upload failed';
       reject(toApiError(xhr.status, json?.error, fallback));
     };
     xhr.onerror = () => reject(new ApiError(0, 'network', 'The connection was lost during the upload. Nothing was saved.', null));

@@ -6,7 +6,10 @@ import { api } from '../../../lib/api';
  * use when none is named; null = the newest hindcast. Answers a warning for a span under a year.
  */
 export const setDefaultHindcast = (projectId: string, datasetId: string | null) =>
-  api<{ datasetId: string | null; warning: string | null }>(`/api/projects/${projectId}/default-hindcast`, { method: 'PUT', json: { datasetId } });
+  api<{ datasetId: string | null; warning: string | null }>(`/api/projects/${projectId}/default-hindcast`, {
+    method: 'PUT',
+    json: { datasetId },
+  });
 
 export function useSetDefaultHindcast(projectId: string) {
   const qc = useQueryClient();

@@ -152,13 +152,21 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
       <fieldset className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         <legend className="mb-1 text-base font-bold">Units, time and missing values</legend>
         <FieldShell label="Wave height unit" htmlFor="unit-height" hint="Stored in metres (1 ft = 0.3048 m).">
-          <Select id="unit-height" value={units.height} onChange={(e) => onChange({ units: { ...units, height: e.target.value as SeaUnits['height'] } })}>
+          <Select
+            id="unit-height"
+            value={units.height}
+            onChange={(e) => onChange({ units: { ...units, height: e.target.value as SeaUnits['height'] } })}
+          >
             <option value="m">metres (m)</option>
             <option value="ft">feet (ft)</option>
           </Select>
         </FieldShell>
         <FieldShell label="Wind speed unit" htmlFor="unit-speed" hint="Stored in m/s (1 kn = 1852/3600 m/s).">
-          <Select id="unit-speed" value={units.speed} onChange={(e) => onChange({ units: { ...units, speed: e.target.value as SeaUnits['speed'] } })}>
+          <Select
+            id="unit-speed"
+            value={units.speed}
+            onChange={(e) => onChange({ units: { ...units, speed: e.target.value as SeaUnits['speed'] } })}
+          >
             <option value="m/s">metres per second (m/s)</option>
             <option value="kn">knots (kn)</option>
             <option value="km/h">kilometres per hour (km/h)</option>
@@ -192,7 +200,13 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
             hint="Separated by commas. Numbers match numerically (-999 also matches -999.0). Replaces the defaults."
             error={errors.missingCodes}
           >
-            <Input id="missing-codes" value={values.missingText} spellCheck={false} invalid={!!errors.missingCodes} onChange={(e) => onChange({ missingText: e.target.value })} />
+            <Input
+              id="missing-codes"
+              value={values.missingText}
+              spellCheck={false}
+              invalid={!!errors.missingCodes}
+              onChange={(e) => onChange({ missingText: e.target.value })}
+            />
           </FieldShell>
         </div>
         <div className="flex flex-col justify-end">
@@ -279,10 +293,18 @@ export function CsvPreviewTable({ preview }: { preview: CsvPreview }) {
           <tbody>
             {preview.rows.map((r) => {
               const rawTime =
-                timeField === -1 ? '' : dateField === -1 ? (r.fields[timeField] ?? '') : `${r.fields[dateField] ?? ''} ${r.fields[timeField] ?? ''}`;
+                timeField === -1
+                  ? ''
+                  : dateField === -1
+                    ? (r.fields[timeField] ?? '')
+                    : `${r.fields[dateField] ?? ''} ${r.fields[timeField] ?? ''}`;
               const hasIssue = r.issues.length > 0;
               return (
-                <tr key={r.line} className={`border-b border-line last:border-0 ${hasIssue ? 'bg-danger-soft' : ''}`} data-issue={hasIssue || undefined}>
+                <tr
+                  key={r.line}
+                  className={`border-b border-line last:border-0 ${hasIssue ? 'bg-danger-soft' : ''}`}
+                  data-issue={hasIssue || undefined}
+                >
                   <td className="px-3 py-1.5 text-right align-top whitespace-nowrap tabular-nums">
                     {hasIssue ? <span aria-label="has a problem">⚠ </span> : null}
                     {r.line}

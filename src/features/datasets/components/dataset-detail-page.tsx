@@ -66,7 +66,8 @@ export function DatasetDetailPage() {
         <Notice tone="success">
           Imported {formatCount(imported.records)} records
           {imported.skipped === 1 ? '; 1 bad row was skipped and is listed in the import report below' : ''}
-          {imported.skipped > 1 ? `; ${formatCount(imported.skipped)} bad rows were skipped and are listed in the import report below` : ''}.
+          {imported.skipped > 1 ? `; ${formatCount(imported.skipped)} bad rows were skipped and are listed in the import report below` : ''}
+          .
         </Notice>
       ) : null}
       {imported?.warning ? <Notice tone="error">{imported.warning}</Notice> : null}
@@ -78,7 +79,8 @@ export function DatasetDetailPage() {
       <Card>
         <h2 className="mb-1 text-lg font-bold">Monthly summary</h2>
         <p className="mb-3 text-sm text-ink-soft">
-          Per calendar month: records, share of the month’s time steps with an Hs value, mean and 90th percentile Hs. Choose a month to see it in the chart.
+          Per calendar month: records, share of the month’s time steps with an Hs value, mean and 90th percentile Hs. Choose a month to see
+          it in the chart.
         </p>
         <MonthlyTable
           projectId={projectId}
@@ -108,7 +110,10 @@ function defaultView(d: DatasetDetail): ChartView {
 
 function BackLink({ projectId }: { projectId: string }) {
   return (
-    <Link to={`/projects/${projectId}/sea-data`} className="mb-1 inline-flex min-h-11 items-center text-sm font-semibold text-accent hover:underline">
+    <Link
+      to={`/projects/${projectId}/sea-data`}
+      className="mb-1 inline-flex min-h-11 items-center text-sm font-semibold text-accent hover:underline"
+    >
       ← All sea data
     </Link>
   );
@@ -132,9 +137,7 @@ function Facts({ d }: { d: DatasetDetail }) {
         </Fact>
         <Fact label="Data point">
           {d.dataPoint.name || 'Unnamed'}, {formatDepth(d.dataPoint.depthM)}
-          {lat !== null && lon !== null ? (
-            <span className="block text-ink-soft">{formatPosition(lat, lon)}</span>
-          ) : null}
+          {lat !== null && lon !== null ? <span className="block text-ink-soft">{formatPosition(lat, lon)}</span> : null}
         </Fact>
         <Fact label="Source">{describeSource(d)}</Fact>
         <div className="sm:col-span-2 lg:col-span-4">
@@ -190,7 +193,9 @@ function DeleteCard({ projectId, d }: { projectId: string; d: DatasetDetail }) {
           onSubmit={(e) => {
             e.preventDefault();
             if (!matches) return;
-            del.mutate(d.id, { onSuccess: () => void navigate(`/projects/${projectId}/sea-data`, { replace: true, state: { deleted: d.name } }) });
+            del.mutate(d.id, {
+              onSuccess: () => void navigate(`/projects/${projectId}/sea-data`, { replace: true, state: { deleted: d.name } }),
+            });
           }}
         >
           <FieldShell label={`Type the name “${d.name}” to confirm`} htmlFor="confirm-name">

@@ -56,7 +56,8 @@ const DEFAULT_MISSING_TEXT = DEFAULT_MISSING_CODES.filter((c) => c !== '').join(
 
 /** `/projects/:projectId/sea-data/import`: coordinators and admins bring a CSV, NDBC or NetCDF file. */
 /** Why an NDBC file with wind cannot be imported yet. */
-const NEED_HEIGHT = 'This buoy file has wind: enter the anemometer height (10 if the wind is already at 10 m) so it can be brought to 10 m, where limits are stated.';
+const NEED_HEIGHT =
+  'This buoy file has wind: enter the anemometer height (10 if the wind is already at 10 m) so it can be brought to 10 m, where limits are stated.';
 
 export function DatasetImportPage() {
   const { projectId = '' } = useParams();
@@ -175,7 +176,10 @@ function requestInput(v: ImportPageValues, ctx: ImportContext): Record<string, u
  * checks and messages), as errors on the form's own fields, plus what only the browser knows.
  * @returns the parsed request form, or the errors by form field.
  */
-function checkImport(values: ImportPageValues, ctx: ImportContext): { form: ImportRequestForm } | { errors: Partial<Record<keyof ImportPageValues, string>> } {
+function checkImport(
+  values: ImportPageValues,
+  ctx: ImportContext,
+): { form: ImportRequestForm } | { errors: Partial<Record<keyof ImportPageValues, string>> } {
   const parsed = ImportFormSchema.safeParse(requestInput(values, ctx));
   const errors: Partial<Record<keyof ImportPageValues, string>> = {};
   if (!parsed.success) {
@@ -282,7 +286,21 @@ function ImportForm({ project }: { project: ProjectDetail }) {
     } catch (e) {
       return { preview: null, error: e instanceof Error ? e.message : String(e) };
     }
-  }, [head, effectiveFormat, v.delimiter, v.decimalComma, v.mapping, v.units, zoneOk, v.timeZone, v.dateOrder, missingCodes, anemometerValue, windExponent, v.directionConvention]);
+  }, [
+    head,
+    effectiveFormat,
+    v.delimiter,
+    v.decimalComma,
+    v.mapping,
+    v.units,
+    zoneOk,
+    v.timeZone,
+    v.dateOrder,
+    missingCodes,
+    anemometerValue,
+    windExponent,
+    v.directionConvention,
+  ]);
 
   const ndbc = useMemo(
     () => (head !== null && effectiveFormat === 'ndbc' ? previewNdbc(head, anemometerValue, windExponent) : null),
@@ -306,7 +324,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       }
     : null;
   const showDateOrder =
-    preview !== null && (preview.dateOrder !== undefined || preview.rows.some((r) => r.issues.some((i) => i.reason.startsWith('ambiguous date'))));
+    preview !== null &&
+    (preview.dateOrder !== undefined || preview.rows.some((r) => r.issues.some((i) => i.reason.startsWith('ambiguous date'))));
 
   async function chooseFile(f: File | null) {
     setValue('delimiter', null);
@@ -354,7 +373,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
     if (importMutation.isPending || !file || tooLarge) return;
     const checked = checkImport(values, context);
     if ('errors' in checked) {
-      for (const [field, message] of Object.entries(checked.errors)) form.setError(field as keyof ImportPageValues, { type: 'validate', message });
+      for (const [field, message] of Object.entries(checked.errors))
+        form.setError(field as keyof ImportPageValues, { type: 'validate', message });
       return;
     }
     const parsed = checked.form;
@@ -389,7 +409,9 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       { file, fields, onProgress: setProgress, signal: controller.signal },
       {
         onSuccess: (answer) =>
-          void navigate(`/projects/${project.id}/sea-data/${answer.id}`, { state: { imported: { records: answer.records, skipped: answer.skipped, warning: answer.warning } } }),
+          void navigate(`/projects/${project.id}/sea-data/${answer.id}`, {
+            state: { imported: { records: answer.records, skipped: answer.skipped, warning: answer.warning } },
+          }),
         onError: (err) => {
           if (err instanceof DOMException && err.name === 'AbortError') setCancelled(true);
         },
@@ -414,7 +436,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
   const badFile = error instanceof ApiError && error.code === 'bad_file' ? error : null;
   const busy = importMutation.isPending;
   const readError = read.error;
-  const blocked = !file || tooLarge || readError !== null || (effectiveFormat === 'csv' && (needTime || !zoneOk)) || !!anemometerError || needHeight;
+  const blocked =
+    !file || tooLarge || readError !== null || (effectiveFormat === 'csv' && (needTime || !zoneOk)) || !!anemometerError || needHeight;
 
   return (
     <div>
@@ -422,7 +445,10 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         title="Import sea data"
         subtitle={`CSV or NDBC standard meteorological text up to ${LIMIT_MB} MB, or NetCDF (CF conventions) up to ${NETCDF_LIMIT_GB} GB. Nothing is stored until the whole file has been read and checked.`}
         actions={
-          <Link to={`/projects/${project.id}/sea-data`} className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-ink hover:bg-surface-2">
+          <Link
+            to={`/projects/${project.id}/sea-data`}
+            className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-semibold text-ink hover:bg-surface-2"
+          >
             Back to the list
           </Link>
         }
@@ -431,7 +457,12 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         <Card>
           <h2 className="mb-3 text-lg font-bold">1. The file</h2>
           <div className="grid gap-4 md:grid-cols-[2fr_1fr]">
-            <FieldShell label="File" htmlFor="file" hint={`Text up to ${LIMIT_MB} MB (UTF-8); NetCDF up to ${NETCDF_LIMIT_GB} GB.`} error={fileError ?? undefined}>
+            <FieldShell
+              label="File"
+              htmlFor="file"
+              hint={`Text up to ${LIMIT_MB} MB (UTF-8); NetCDF up to ${NETCDF_LIMIT_GB} GB.`}
+              error={fileError ?? undefined}
+            >
               <input
                 id="file"
                 type="file"
@@ -458,7 +489,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
           {tooLarge ? (
             <div className="mt-3">
               <Notice tone="error">
-                This file is {formatBytes(file.size)}: the upload limit is {read.netcdf ? `${NETCDF_LIMIT_GB} GB` : `${LIMIT_MB} MB`}. Split it into parts (for example by decade) and import each part.
+                This file is {formatBytes(file.size)}: the upload limit is {read.netcdf ? `${NETCDF_LIMIT_GB} GB` : `${LIMIT_MB} MB`}. Split
+                it into parts (for example by decade) and import each part.
               </Notice>
             </div>
           ) : null}
@@ -473,7 +505,12 @@ function ImportForm({ project }: { project: ProjectDetail }) {
           <h2 className="mb-3 text-lg font-bold">2. About the data</h2>
           <div className="grid gap-4 md:grid-cols-2">
             <FieldShell label="Name" htmlFor="name" error={errors.name?.message} hint="Shown in lists and plans.">
-              <Input id="name" maxLength={120} invalid={!!errors.name} {...register('name', { onChange: () => setChosenByUser((c) => ({ ...c, name: true })) })} />
+              <Input
+                id="name"
+                maxLength={120}
+                invalid={!!errors.name}
+                {...register('name', { onChange: () => setChosenByUser((c) => ({ ...c, name: true })) })}
+              />
             </FieldShell>
             <FieldShell label="Kind" htmlFor="kind" hint={KIND_HINTS[v.kind]}>
               <Select id="kind" {...register('kind', { onChange: () => setChosenByUser((c) => ({ ...c, kind: true })) })}>
@@ -495,7 +532,12 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 {v.deep ? (
                   <Input id="depth" inputMode="decimal" value="" placeholder="deep water" disabled />
                 ) : (
-                  <Input id="depth" inputMode="decimal" invalid={!!errors.depth} {...register('depth', { onChange: () => clearErrors('depth') })} />
+                  <Input
+                    id="depth"
+                    inputMode="decimal"
+                    invalid={!!errors.depth}
+                    {...register('depth', { onChange: () => clearErrors('depth') })}
+                  />
                 )}
               </FieldShell>
               <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
@@ -508,7 +550,9 @@ function ImportForm({ project }: { project: ProjectDetail }) {
               </label>
             </div>
             <FieldShell
-              label={effectiveFormat === 'ndbc' ? 'Anemometer height above the sea (required for buoy wind)' : 'Anemometer height above the sea'}
+              label={
+                effectiveFormat === 'ndbc' ? 'Anemometer height above the sea (required for buoy wind)' : 'Anemometer height above the sea'
+              }
               unit="m"
               htmlFor="anemometer"
               error={errors.anemometer?.message ?? anemometerError}
@@ -539,7 +583,11 @@ function ImportForm({ project }: { project: ProjectDetail }) {
               </Select>
             </FieldShell>
             {effectiveFormat === 'csv' ? (
-              <FieldShell label="Directions in the file" htmlFor="direction-convention" hint="Lullwatch stores where waves and wind come from. Going-to directions get 180° added.">
+              <FieldShell
+                label="Directions in the file"
+                htmlFor="direction-convention"
+                hint="Lullwatch stores where waves and wind come from. Going-to directions get 180° added."
+              >
                 <Select id="direction-convention" {...register('directionConvention')}>
                   <option value="coming-from">Coming from (nautical, usual)</option>
                   <option value="going-to">Going to (oceanographic)</option>
@@ -601,8 +649,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
           <Card>
             <h2 className="mb-3 text-lg font-bold">3. Preview</h2>
             <p className="mb-3 text-sm text-ink-soft">
-              NDBC standard meteorological text: times are UTC; WVHT is read as Hs, DPD as Tp, APD as Tz, MWD as wave direction, WSPD and WDIR as wind;
-              NDBC’s missing codes (99.00, 999, 9999.0, MM) become missing values.
+              NDBC standard meteorological text: times are UTC; WVHT is read as Hs, DPD as Tp, APD as Tz, MWD as wave direction, WSPD and
+              WDIR as wind; NDBC’s missing codes (99.00, 999, 9999.0, MM) become missing values.
             </p>
             {ndbc.error ? <Notice tone="error">{ndbc.error}</Notice> : null}
             {ndbc.issues.length > 0 ? (
@@ -618,9 +666,10 @@ function ImportForm({ project }: { project: ProjectDetail }) {
           <Card>
             <h2 className="mb-3 text-lg font-bold">3. Point and water level</h2>
             <p className="mb-3 text-sm text-ink-soft">
-              Variables are found by their CF standard names (or, without them, by the usual column names); only the chosen point’s series is read. Without a
-              choice, the sea point nearest the data point is read (points with over half their wave heights missing are skipped). Partitions (wind sea,
-              swells) are read and give the total when the file has none, but only the total is stored for now.
+              Variables are found by their CF standard names (or, without them, by the usual column names); only the chosen point’s series
+              is read. Without a choice, the sea point nearest the data point is read (points with over half their wave heights missing are
+              skipped). Partitions (wind sea, swells) are read and give the total when the file has none, but only the total is stored for
+              now.
             </p>
             <div className="mb-4 flex flex-wrap items-center gap-3">
               <Button variant="secondary" disabled={pointsQuery.isPending || busy} onClick={() => pointsQuery.mutate(file)}>
@@ -634,8 +683,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
             {pointsQuery.data ? (
               <div className="mb-4 flex flex-col gap-2">
                 <p className="text-sm">
-                  Variables found:{' '}
-                  {pointsQuery.data.variables.map((x) => `${x.role} = ${x.variable}`).join('; ') || 'none'}
+                  Variables found: {pointsQuery.data.variables.map((x) => `${x.role} = ${x.variable}`).join('; ') || 'none'}
                 </p>
                 <NetcdfPointsTable answer={pointsQuery.data} value={v.gridPoint} onChange={(g) => setValue('gridPoint', g)} />
               </div>
@@ -648,7 +696,12 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 error={errors.waterLevelOffset?.message}
                 hint="Only for files with a water level: the height of the datum its standard name states (e.g. mean sea level) above the worksite's chart datum. Without it such a file is refused; a datum is never guessed."
               >
-                <Input id="water-level-offset" inputMode="decimal" invalid={!!errors.waterLevelOffset} {...register('waterLevelOffset', { onChange: () => clearErrors('waterLevelOffset') })} />
+                <Input
+                  id="water-level-offset"
+                  inputMode="decimal"
+                  invalid={!!errors.waterLevelOffset}
+                  {...register('waterLevelOffset', { onChange: () => clearErrors('waterLevelOffset') })}
+                />
               </FieldShell>
             </div>
           </Card>
@@ -666,12 +719,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 ] as const
               ).map(([value, label]) => (
                 <label key={value} className="flex min-h-11 items-center gap-3 text-sm">
-                  <input
-                    type="radio"
-                    value={value}
-                    className="size-5 accent-[var(--color-accent)]"
-                    {...register('onBadRows')}
-                  />
+                  <input type="radio" value={value} className="size-5 accent-[var(--color-accent)]" {...register('onBadRows')} />
                   {label}
                 </label>
               ))}
@@ -700,10 +748,14 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                   <p className="font-semibold">{badFile.message}</p>
                   <p className="mt-1">Nothing was saved.</p>
                   {v.onBadRows === 'refuse' && !isNetcdf && (badFile.details?.some((d) => (d.line ?? 0) > 0) ?? false) ? (
-                    <p className="mt-1">To keep the good rows and list the bad ones, choose “Skip bad rows and list them” and import again.</p>
+                    <p className="mt-1">
+                      To keep the good rows and list the bad ones, choose “Skip bad rows and list them” and import again.
+                    </p>
                   ) : null}
                 </Notice>
-                {badFile.details && badFile.details.length > 0 ? <IssuesTable issues={badFile.details} limit={20} caption="Problems found" /> : null}
+                {badFile.details && badFile.details.length > 0 ? (
+                  <IssuesTable issues={badFile.details} limit={20} caption="Problems found" />
+                ) : null}
               </>
             ) : error && !cancelled ? (
               <>

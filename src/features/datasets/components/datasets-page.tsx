@@ -106,7 +106,9 @@ function DefaultChoice({ projectId, series, canEdit }: { projectId: string; seri
       <p>
         <span className="font-semibold">Default for statistics:</span> {current ? current.name : 'none yet'}
         {current && shortSpan(current) ? (
-          <span className="ml-1 font-semibold text-danger">: shorter than a year, so every statistic of the project rests on one short sample.</span>
+          <span className="ml-1 font-semibold text-danger">
+            : shorter than a year, so every statistic of the project rests on one short sample.
+          </span>
         ) : null}
       </p>
       {canEdit && series.length > 0 ? (
@@ -156,7 +158,9 @@ function DatasetGroups({ projectId, all, canEdit }: { projectId: string; all: Da
         <h2 id="forecast-heading" className="mb-1 text-lg font-bold">
           Forecasts
         </h2>
-        <p className="mb-2 text-sm text-ink-soft">Every issue is kept, newest first, so a plan can be compared with the previous forecast.</p>
+        <p className="mb-2 text-sm text-ink-soft">
+          Every issue is kept, newest first, so a plan can be compared with the previous forecast.
+        </p>
         {forecasts.length === 0 ? (
           <p className="text-sm text-ink-soft">No forecast stored yet.</p>
         ) : (
@@ -203,7 +207,10 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
             {rows.map((d) => (
               <tr key={d.id} className="border-b border-line last:border-0 hover:bg-surface-2/60">
                 <td className={td}>
-                  <Link to={href(d)} className="inline-flex min-h-11 items-center font-semibold break-words text-accent underline-offset-2 hover:underline">
+                  <Link
+                    to={href(d)}
+                    className="inline-flex min-h-11 items-center font-semibold break-words text-accent underline-offset-2 hover:underline"
+                  >
                     {d.name}
                   </Link>
                   <div className="flex flex-wrap gap-1.5">
@@ -268,9 +275,17 @@ function DatasetTable({ projectId, rows, latestId }: { projectId: string; rows: 
 }
 
 function DefaultBadge() {
-  return <span className="inline-flex w-fit items-center rounded-full bg-ok-soft px-2.5 py-0.5 text-xs font-semibold text-ink">Default for statistics</span>;
+  return (
+    <span className="inline-flex w-fit items-center rounded-full bg-ok-soft px-2.5 py-0.5 text-xs font-semibold text-ink">
+      Default for statistics
+    </span>
+  );
 }
 
 function LatestBadge() {
-  return <span className="inline-flex w-fit items-center rounded-full bg-deep px-2.5 py-0.5 text-xs font-semibold text-white dark:bg-spray dark:text-deep">Latest issue</span>;
+  return (
+    <span className="inline-flex w-fit items-center rounded-full bg-deep px-2.5 py-0.5 text-xs font-semibold text-white dark:bg-spray dark:text-deep">
+      Latest issue
+    </span>
+  );
 }

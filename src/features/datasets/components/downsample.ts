@@ -32,7 +32,14 @@ export interface Thinned {
  * @param buckets number of intervals (≥ 1).
  * @param stepMs the dataset's nominal time step, ms (the fallback of the gap test of raw records).
  */
-export function maxPerBucket(timeMs: Float64Array, values: Float64Array, fromMs: number, toMs: number, buckets: number, stepMs: number): Thinned {
+export function maxPerBucket(
+  timeMs: Float64Array,
+  values: Float64Array,
+  fromMs: number,
+  toMs: number,
+  buckets: number,
+  stepMs: number,
+): Thinned {
   const n = timeMs.length;
   const points: ChartPoint[] = [];
   if (n === 0) return { points, bucketMs: 0 };

@@ -4,9 +4,9 @@ import { DATE_STYLE } from '../../../../shared/dates';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import { formatAt, formatPosition } from '../../../lib/format';
 
-
 /** A UTC instant as text, e.g. '3 Feb 2017 14:00' (date-fns pattern, read in UTC). */
-export const formatUtc = (instant: string | number | Date, pattern: string = DATE_STYLE.dateHour): string => formatAt(instant, 'UTC', pattern);
+export const formatUtc = (instant: string | number | Date, pattern: string = DATE_STYLE.dateHour): string =>
+  formatAt(instant, 'UTC', pattern);
 
 /** A UTC calendar day, e.g. '3 Feb 2017'. */
 export const formatUtcDay = (instant: string | number | Date) => formatUtc(instant, DATE_STYLE.date);

@@ -24,12 +24,14 @@ const str = (v: unknown) => (typeof v === 'string' ? v : undefined);
 
 function readReport(r: Record<string, unknown>): ReportView {
   const issues = Array.isArray(r.issues)
-    ? (r.issues as unknown[]).filter((i): i is Record<string, unknown> => typeof i === 'object' && i !== null).map((i) => ({
-        line: num(i.line),
-        column: str(i.column),
-        value: str(i.value),
-        reason: str(i.reason),
-      }))
+    ? (r.issues as unknown[])
+        .filter((i): i is Record<string, unknown> => typeof i === 'object' && i !== null)
+        .map((i) => ({
+          line: num(i.line),
+          column: str(i.column),
+          value: str(i.value),
+          reason: str(i.reason),
+        }))
     : [];
   return {
     format: str(r.format),
@@ -56,16 +58,21 @@ const PERIODS: { key: 'tp' | 'tz' | 'te'; label: string }[] = [
 export function ImportReportCard({ d }: { d: DatasetDetail }) {
   const r = readReport(d.importReport);
   const fromService = d.source.kind === 'service';
-  const formatName = r.format === 'ndbc' ? 'NDBC standard meteorological text' : r.format === 'csv' ? 'CSV' : r.format === 'netcdf' ? 'NetCDF (CF conventions)' : (r.format ?? r.source);
+  const formatName =
+    r.format === 'ndbc'
+      ? 'NDBC standard meteorological text'
+      : r.format === 'csv'
+        ? 'CSV'
+        : r.format === 'netcdf'
+          ? 'NetCDF (CF conventions)'
+          : (r.format ?? r.source);
   return (
     <Card>
       <h2 className="mb-3 text-lg font-bold">{fromService ? 'How it was fetched' : 'Import report'}</h2>
       <dl className="grid gap-x-6 gap-y-3 text-sm sm:grid-cols-2 lg:grid-cols-4">
         {fromService ? (
           <>
-            <Item label="Source">
-              Forecast service{r.source ? ` (${r.source})` : ''}
-            </Item>
+            <Item label="Source">Forecast service{r.source ? ` (${r.source})` : ''}</Item>
             <Item label="Issued">{d.source.issuedAt ? formatUtc(d.source.issuedAt) : 'unknown'}</Item>
           </>
         ) : (
@@ -84,10 +91,12 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
                 </span>
               </Item>
             ) : null}
-            {r.timeZone && r.format !== 'ndbc' && r.format !== 'netcdf' ? <Item label="Times without offset read in">
+            {r.timeZone && r.format !== 'ndbc' && r.format !== 'netcdf' ? (
+              <Item label="Times without offset read in">
                 {/* An import setting (the file's zone), not a statement of the page's times. */}
                 <span data-setting>{r.timeZone}</span>
-              </Item> : null}
+              </Item>
+            ) : null}
             {r.newestFirst ? <Item label="Order">Newest first in the file; stored oldest first</Item> : null}
             <Item label="Wind height">
               {d.wind.anemometerHeightM === null
@@ -102,7 +111,9 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
               ) : null}
             </Item>
             {str(d.importReport.directionConvention) ? (
-              <Item label="Directions in the file">{d.importReport.directionConvention === 'going-to' ? 'going to (180° added)' : 'coming from'}</Item>
+              <Item label="Directions in the file">
+                {d.importReport.directionConvention === 'going-to' ? 'going to (180° added)' : 'coming from'}
+              </Item>
             ) : null}
           </>
         )}
@@ -113,7 +124,8 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
 
       <h3 className="mt-5 mb-2 font-bold">Periods given and derived</h3>
       <p className="mb-2 text-sm text-ink-soft">
-        Periods missing from the source are derived from the ones given with the JONSWAP period ratios (γ = 3.3); each record keeps which were given.
+        Periods missing from the source are derived from the ones given with the JONSWAP period ratios (γ = 3.3); each record keeps which
+        were given.
       </p>
       <ul className="grid gap-2 text-sm sm:grid-cols-3">
         {PERIODS.map((p) => {

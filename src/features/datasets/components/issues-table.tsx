@@ -10,7 +10,17 @@ export interface IssueRow {
  * Problems of an import, one row each: line (1-based, 0 = the whole file), column, raw value and
  * reason. Shows at most `limit` rows and says how many more there are.
  */
-export function IssuesTable({ issues, total, limit = 50, caption }: { issues: IssueRow[]; total?: number; limit?: number; caption: string }) {
+export function IssuesTable({
+  issues,
+  total,
+  limit = 50,
+  caption,
+}: {
+  issues: IssueRow[];
+  total?: number;
+  limit?: number;
+  caption: string;
+}) {
   const shown = issues.slice(0, limit);
   const count = Math.max(total ?? issues.length, issues.length);
   return (
@@ -33,7 +43,9 @@ export function IssuesTable({ issues, total, limit = 50, caption }: { issues: Is
             <tr key={k} className="border-b border-line last:border-0">
               <td className="px-3 py-1.5 text-right tabular-nums">{i.line === 0 ? 'file' : (i.line ?? '–')}</td>
               <td className="px-3 py-1.5">{i.column || '–'}</td>
-              <td className="max-w-56 px-3 py-1.5 font-mono text-xs break-all">{i.value === undefined || i.value === '' ? '–' : i.value}</td>
+              <td className="max-w-56 px-3 py-1.5 font-mono text-xs break-all">
+                {i.value === undefined || i.value === '' ? '–' : i.value}
+              </td>
               <td className="px-3 py-1.5">{i.reason ?? ''}</td>
             </tr>
           ))}

@@ -8,7 +8,15 @@ const th = 'sticky top-0 bg-surface-2 px-3 py-2 text-xs font-semibold text-ink-s
  * Records, coverage, mean and 90th percentile Hs per calendar month (UTC). A month can be picked
  * to show it in the chart.
  */
-export function MonthlyTable({ projectId, datasetId, onPick }: { projectId: string; datasetId: string; onPick: (fromMs: number, toMs: number) => void }) {
+export function MonthlyTable({
+  projectId,
+  datasetId,
+  onPick,
+}: {
+  projectId: string;
+  datasetId: string;
+  onPick: (fromMs: number, toMs: number) => void;
+}) {
   const monthly = useDatasetMonthly(projectId, datasetId);
   if (monthly.isPending) return <Spinner label="Summing up the months" />;
   if (monthly.error) return <ErrorNotice error={monthly.error} />;
@@ -40,7 +48,8 @@ export function MonthlyTable({ projectId, datasetId, onPick }: { projectId: stri
                     onClick={() => onPick(fromMs, toMs)}
                     title="Show this month in the chart"
                   >
-                    {formatUtc(fromMs, 'yyyy-MM')} <span className="ml-1 hidden font-normal text-ink-soft sm:inline">{formatUtc(fromMs, 'MMM')}</span>
+                    {formatUtc(fromMs, 'yyyy-MM')}{' '}
+                    <span className="ml-1 hidden font-normal text-ink-soft sm:inline">{formatUtc(fromMs, 'MMM')}</span>
                   </button>
                 </td>
                 <td className="px-3 py-1 text-right tabular-nums">{formatCount(r.records)}</td>

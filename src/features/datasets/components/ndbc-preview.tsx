@@ -45,7 +45,9 @@ export function NdbcPreviewTable({ preview, rows = 12 }: { preview: NdbcPreview;
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-surface">
       <table className="w-full text-sm" data-testid="ndbc-preview">
-        <caption className="px-3 py-2 text-left text-sm text-ink-soft">The first {n} records as they will be stored (oldest first).</caption>
+        <caption className="px-3 py-2 text-left text-sm text-ink-soft">
+          The first {n} records as they will be stored (oldest first).
+        </caption>
         <thead className="border-y border-line bg-surface-2">
           <tr>
             <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Time</th>

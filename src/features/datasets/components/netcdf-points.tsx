@@ -26,9 +26,9 @@ export function NetcdfPointsTable({
     <div className="overflow-x-auto">
       <table className="w-full min-w-[36rem] text-sm" data-testid="netcdf-points">
         <caption className="mb-2 text-left text-ink-soft">
-          {answer.points.length} point{answer.points.length === 1 ? '' : 's'} along ({answer.dimensions.join(', ') || 'one point'}), nearest to the data point{' '}
-          {answer.dataPoint.name} first. {answer.times.count.toLocaleString('en-GB')} times, {answer.times.first?.slice(0, 16).replace('T', ' ') ?? '–'} to{' '}
-          {answer.times.last?.slice(0, 16).replace('T', ' ') ?? '–'} UTC.
+          {answer.points.length} point{answer.points.length === 1 ? '' : 's'} along ({answer.dimensions.join(', ') || 'one point'}), nearest
+          to the data point {answer.dataPoint.name} first. {answer.times.count.toLocaleString('en-GB')} times,{' '}
+          {answer.times.first?.slice(0, 16).replace('T', ' ') ?? '–'} to {answer.times.last?.slice(0, 16).replace('T', ' ') ?? '–'} UTC.
         </caption>
         <thead>
           <tr className="border-b border-line text-left">
@@ -62,9 +62,13 @@ export function NetcdfPointsTable({
                 </td>
                 <td className="py-1 pr-3 tabular-nums">[{k}]</td>
                 <td className="py-1 pr-3">{p.lat !== null && p.lon !== null ? formatPosition(p.lat, p.lon) : '–'}</td>
-                <td className="py-1 pr-3 text-right tabular-nums">{p.distanceKm !== null ? `${p.distanceKm.toLocaleString('en-GB')} km` : '–'}</td>
+                <td className="py-1 pr-3 text-right tabular-nums">
+                  {p.distanceKm !== null ? `${p.distanceKm.toLocaleString('en-GB')} km` : '–'}
+                </td>
                 <td className="py-1 pr-3 text-right tabular-nums">{pct(p.missingShare)}</td>
-                <td className="py-1">{k === nearest ? 'Nearest sea point' : mostlyMissing ? 'Over half missing (land, ice or dry)' : ''}</td>
+                <td className="py-1">
+                  {k === nearest ? 'Nearest sea point' : mostlyMissing ? 'Over half missing (land, ice or dry)' : ''}
+                </td>
               </tr>
             );
           })}

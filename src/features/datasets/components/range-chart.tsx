@@ -48,7 +48,8 @@ export function RangeChart({
   const spanMs = Math.max(endMs - startMs, 1);
   // A dataset longer than the API's records span opens on its last year, and no view is longer.
   const tooLongForAll = endMs - startMs > MAX_SPAN_MS;
-  const view: ChartView = chosenView ?? (tooLongForAll ? { fromMs: sub(new Date(endMs), { years: 1 }, { in: tz('UTC') }).getTime(), toMs: endMs } : null);
+  const view: ChartView =
+    chosenView ?? (tooLongForAll ? { fromMs: sub(new Date(endMs), { years: 1 }, { in: tz('UTC') }).getTime(), toMs: endMs } : null);
   const onView = (v: ChartView) => {
     if (v === null) return chooseView(null);
     chooseView(v.toMs - v.fromMs > MAX_SPAN_MS ? { fromMs: v.toMs - MAX_SPAN_MS, toMs: v.toMs } : v);
@@ -107,7 +108,11 @@ export function RangeChart({
               variant={activePreset(p.duration) ? 'primary' : 'secondary'}
               aria-pressed={activePreset(p.duration)}
               disabled={p.duration === null ? tooLongForAll : tooShort(p.duration)}
-              title={p.duration === null && tooLongForAll ? 'Longer than a year: pick a year at a time, or see the monthly summary below' : undefined}
+              title={
+                p.duration === null && tooLongForAll
+                  ? 'Longer than a year: pick a year at a time, or see the monthly summary below'
+                  : undefined
+              }
               onClick={() => preset(p.duration)}
             >
               {p.label}
@@ -171,7 +176,9 @@ export function RangeChart({
       {!shown && records.isPending ? <Spinner label="Loading records" /> : null}
       {shown ? (
         shown.timeMs.length === 0 ? (
-          <p className="rounded-lg border border-dashed border-line px-4 py-6 text-center text-sm text-ink-soft">No records in this range.</p>
+          <p className="rounded-lg border border-dashed border-line px-4 py-6 text-center text-sm text-ink-soft">
+            No records in this range.
+          </p>
         ) : (
           <div className={records.isPlaceholderData ? 'opacity-60 transition-opacity' : 'transition-opacity'}>
             <Suspense fallback={<Spinner label="Drawing the chart" />}>

@@ -20,7 +20,6 @@ const PANELS: { key: PanelKey; title: string; unit: string; decimals: number; li
   { key: 'wind', title: 'Wind speed at 10 m', unit: 'm/s', decimals: 1, light: '#a3612a', dark: '#f0b070', area: false },
 ];
 
-
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
 // Tick intervals (nivo/d3 time intervals, read in UTC), their nominal length and label pattern.
@@ -146,30 +145,30 @@ export default function SeriesChart({ columns, fromMs, toMs, stepMinutes }: Seri
                 </div>
               ) : (
                 <PanelContext.Provider value={{ unit: p.unit, decimals: p.decimals, bucketMs }}>
-                <ResponsiveLine<Series>
-                  data={data.series}
-                  xScale={{ type: 'time', min: new Date(fromMs), max: new Date(toMs), useUTC: true }}
-                  yScale={{ type: 'linear', min: 0, max: 'auto', nice: true }}
-                  margin={{ top: 8, right: 26, bottom: last ? 28 : 6, left: 44 }}
-                  colors={[colour]}
-                  lineWidth={1.5}
-                  curve="linear"
-                  enablePoints={false}
-                  enableArea={p.area}
-                  areaOpacity={0.15}
-                  enableGridX
-                  gridXValues={ticks.every}
-                  gridYValues={4}
-                  axisLeft={{ tickValues: 4, tickSize: 0, tickPadding: 6 }}
-                  axisBottom={last ? { tickValues: ticks.every, format: (d: Date) => formatUtc(d, ticks.pattern), tickSize: 4 } : null}
-                  theme={theme}
-                  useMesh
-                  enableCrosshair
-                  crosshairType="bottom"
-                  tooltip={PanelTooltip}
-                  animate={false}
-                  role="presentation"
-                />
+                  <ResponsiveLine<Series>
+                    data={data.series}
+                    xScale={{ type: 'time', min: new Date(fromMs), max: new Date(toMs), useUTC: true }}
+                    yScale={{ type: 'linear', min: 0, max: 'auto', nice: true }}
+                    margin={{ top: 8, right: 26, bottom: last ? 28 : 6, left: 44 }}
+                    colors={[colour]}
+                    lineWidth={1.5}
+                    curve="linear"
+                    enablePoints={false}
+                    enableArea={p.area}
+                    areaOpacity={0.15}
+                    enableGridX
+                    gridXValues={ticks.every}
+                    gridYValues={4}
+                    axisLeft={{ tickValues: 4, tickSize: 0, tickPadding: 6 }}
+                    axisBottom={last ? { tickValues: ticks.every, format: (d: Date) => formatUtc(d, ticks.pattern), tickSize: 4 } : null}
+                    theme={theme}
+                    useMesh
+                    enableCrosshair
+                    crosshairType="bottom"
+                    tooltip={PanelTooltip}
+                    animate={false}
+                    role="presentation"
+                  />
                 </PanelContext.Provider>
               )}
             </div>

@@ -47,7 +47,12 @@ export function useFileHead(skipTextOver: number) {
           if (nl > 0) text = text.slice(0, nl + 1);
         }
         if (binaryMark(text) !== null) {
-          return set({ file: f, text: null, netcdf: null, error: 'This is not a text file: it holds binary data. Choose a CSV or NDBC text file, or a NetCDF file.' });
+          return set({
+            file: f,
+            text: null,
+            netcdf: null,
+            error: 'This is not a text file: it holds binary data. Choose a CSV or NDBC text file, or a NetCDF file.',
+          });
         }
         return set({ file: f, text, netcdf: null, error: null });
       } catch {

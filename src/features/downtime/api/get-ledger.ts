@@ -16,6 +16,10 @@ export const getLedger = (projectId: string, r: LedgerRange) =>
   api<LedgerEntry[]>(`/api/projects/${projectId}/ledger?${new URLSearchParams({ from: r.from, to: r.to })}`);
 
 export const ledgerQueryOptions = (projectId: string, r: LedgerRange) =>
-  queryOptions({ queryKey: [...ledgerKey(projectId), 'days', { from: r.from, to: r.to }], queryFn: () => getLedger(projectId, { from: r.from, to: r.to }) });
+  queryOptions({
+    queryKey: [...ledgerKey(projectId), 'days', { from: r.from, to: r.to }],
+    queryFn: () => getLedger(projectId, { from: r.from, to: r.to }),
+  });
 
-export const useLedger = (projectId: string, r: LedgerRange) => useQuery({ ...ledgerQueryOptions(projectId, r), placeholderData: keepPreviousData });
+export const useLedger = (projectId: string, r: LedgerRange) =>
+  useQuery({ ...ledgerQueryOptions(projectId, r), placeholderData: keepPreviousData });

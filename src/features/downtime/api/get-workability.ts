@@ -9,7 +9,9 @@ export interface WorkabilityParams {
 
 /** `GET /api/projects/:projectId/workability?dataset=&alpha=`: monthly statistics per operation and worksite. */
 export const getWorkability = (projectId: string, p: WorkabilityParams) =>
-  api<WorkabilityEntry[]>(`/api/projects/${projectId}/workability?${new URLSearchParams({ dataset: p.datasetId, alpha: String(p.alpha) })}`);
+  api<WorkabilityEntry[]>(
+    `/api/projects/${projectId}/workability?${new URLSearchParams({ dataset: p.datasetId, alpha: String(p.alpha) })}`,
+  );
 
 export const workabilityQueryOptions = (projectId: string, p: WorkabilityParams) =>
   queryOptions({

@@ -5,7 +5,9 @@ import { ledgerKey, type LedgerRange } from './get-ledger';
 
 /** `POST /api/projects/:projectId/ledger/propose?from=&to=` (coordinators). */
 export const proposeLedger = (projectId: string, r: LedgerRange) =>
-  api<LedgerProposeAnswer>(`/api/projects/${projectId}/ledger/propose?${new URLSearchParams({ from: r.from, to: r.to })}`, { method: 'POST' });
+  api<LedgerProposeAnswer>(`/api/projects/${projectId}/ledger/propose?${new URLSearchParams({ from: r.from, to: r.to })}`, {
+    method: 'POST',
+  });
 
 export function useProposeLedger(projectId: string) {
   const qc = useQueryClient();

@@ -12,7 +12,8 @@ export const setStepProgress = (projectId: string, campaignId: string, index: nu
 export function useSetStepProgress(projectId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (v: { campaignId: string; index: number; input: StepProgressInput }) => setStepProgress(projectId, v.campaignId, v.index, v.input),
+    mutationFn: (v: { campaignId: string; index: number; input: StepProgressInput }) =>
+      setStepProgress(projectId, v.campaignId, v.index, v.input),
     onSuccess: () => qc.invalidateQueries({ queryKey: campaignsQueryOptions(projectId).queryKey }),
   });
 }

@@ -14,9 +14,12 @@ export interface SimulationParams {
  * is stored), so it is cached like a query, under the campaigns key: editing a campaign refreshes it.
  */
 export const simulateCampaign = (projectId: string, p: SimulationParams) =>
-  api<CampaignSimulation>(`/api/projects/${projectId}/campaigns/${p.campaignId}/simulate?${new URLSearchParams({ dataset: p.datasetId, alpha: String(p.alpha) })}`, {
-    method: 'POST',
-  });
+  api<CampaignSimulation>(
+    `/api/projects/${projectId}/campaigns/${p.campaignId}/simulate?${new URLSearchParams({ dataset: p.datasetId, alpha: String(p.alpha) })}`,
+    {
+      method: 'POST',
+    },
+  );
 
 export const simulationQueryOptions = (projectId: string, p: SimulationParams) =>
   queryOptions({

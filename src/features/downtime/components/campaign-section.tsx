@@ -50,7 +50,8 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
             Campaign duration
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            The steps run in order; each waits for its first go-start (TR wholly workable) and then takes its TPOP. Simulated from the 1st of each month in every hindcast year.
+            The steps run in order; each waits for its first go-start (TR wholly workable) and then takes its TPOP. Simulated from the 1st
+            of each month in every hindcast year.
           </p>
         </div>
         {canEdit && editing === null ? (
@@ -77,7 +78,11 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
       ) : null}
 
       {!campaigns.isPending && list.length === 0 && editing === null ? (
-        <Notice>{canEdit ? 'No campaign yet: create one from the operations and worksites of this project.' : 'No campaign has been planned for this project yet.'}</Notice>
+        <Notice>
+          {canEdit
+            ? 'No campaign yet: create one from the operations and worksites of this project.'
+            : 'No campaign has been planned for this project yet.'}
+        </Notice>
       ) : null}
 
       {selected && editing === null ? (
@@ -103,7 +108,8 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
                   variant="ghost"
                   disabled={remove.isPending}
                   onClick={() => {
-                    if (window.confirm(`Delete the campaign “${selected.name}”?`)) remove.mutate(selected.id, { onSuccess: () => onSelect('') });
+                    if (window.confirm(`Delete the campaign “${selected.name}”?`))
+                      remove.mutate(selected.id, { onSuccess: () => onSelect('') });
                   }}
                 >
                   Delete campaign
@@ -115,16 +121,22 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
           <ol className="flex flex-col gap-1 text-sm" aria-label="Steps">
             {selected.steps.map((s, i) => (
               <li key={i} className="flex gap-2">
-                <span className="inline-flex size-6 shrink-0 items-center justify-center rounded-full bg-surface-2 text-xs font-semibold">{i + 1}</span>
+                <span className="inline-flex size-6 shrink-0 items-center justify-center rounded-full bg-surface-2 text-xs font-semibold">
+                  {i + 1}
+                </span>
                 <span>
-                  {opName.get(s.operationId) ?? 'Operation removed'} <span className="text-ink-soft">at {siteName.get(s.siteId) ?? 'worksite removed'}</span>
+                  {opName.get(s.operationId) ?? 'Operation removed'}{' '}
+                  <span className="text-ink-soft">at {siteName.get(s.siteId) ?? 'worksite removed'}</span>
                 </span>
               </li>
             ))}
           </ol>
           <p className="text-xs text-ink-soft">
             Start dates: the 1st at 00:00
-            {selected.plannedStart ? `, from the planned start ${dateIn(selected.plannedStart, selected.timeZone)}` : ', the next ones from today'}.
+            {selected.plannedStart
+              ? `, from the planned start ${dateIn(selected.plannedStart, selected.timeZone)}`
+              : ', the next ones from today'}
+            .
           </p>
           {!datasetId ? <Notice>Simulations need a hindcast: a coordinator imports one under Sea data.</Notice> : null}
           {simulation.error ? <ErrorNotice error={simulation.error} /> : null}
@@ -143,7 +155,21 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
     downloadCsv(
       `campaign-${slug(campaign.name)}.csv`,
       toCsv(
-        ['campaign', 'start_month', 'start_date', 'p50_duration_h', 'p90_duration_h', 'wow_p50_h', 'wow_p90_h', 'p50_finish', 'p90_finish', 'years', 'censored_years', 'alpha', 'hindcast'],
+        [
+          'campaign',
+          'start_month',
+          'start_date',
+          'p50_duration_h',
+          'p90_duration_h',
+          'wow_p50_h',
+          'wow_p90_h',
+          'p50_finish',
+          'p90_finish',
+          'years',
+          'censored_years',
+          'alpha',
+          'hindcast',
+        ],
         sim.months.map((m) => [
           campaign.name,
           m.startMonth,
@@ -212,13 +238,17 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
             {sim.months.map((m) => (
               <tr key={m.startMonth} className="border-t border-line/60">
                 <th scope="row" className="px-2 py-1 text-left font-normal whitespace-nowrap">
-                  <span className="font-semibold">{MONTH_LONG[m.startMonth - 1]}</span> <span className="text-ink-soft">{dateIn(m.startDate, zone)}</span>
+                  <span className="font-semibold">{MONTH_LONG[m.startMonth - 1]}</span>{' '}
+                  <span className="text-ink-soft">{dateIn(m.startDate, zone)}</span>
                 </th>
                 <td className={`${td} font-semibold`}>
                   {days(m.p50Hours)}
                   {m.p50Hours !== null ? (
-                    <span className={`block text-xs font-normal ${m.years - m.censoredYears.length < 3 ? 'font-semibold text-danger' : 'text-ink-soft'}`}>
-                      from {m.years - m.censoredYears.length} yr{m.years - m.censoredYears.length === 1 ? ': P50 = P90' : m.years - m.censoredYears.length < 3 ? ': thin' : ''}
+                    <span
+                      className={`block text-xs font-normal ${m.years - m.censoredYears.length < 3 ? 'font-semibold text-danger' : 'text-ink-soft'}`}
+                    >
+                      from {m.years - m.censoredYears.length} yr
+                      {m.years - m.censoredYears.length === 1 ? ': P50 = P90' : m.years - m.censoredYears.length < 3 ? ': thin' : ''}
                     </span>
                   ) : null}
                 </td>
@@ -235,7 +265,8 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
                       {m.censoredYears.length} of {m.years}: {m.censoredYears.join(', ')}
                       {m.stuckSteps.map((st) => (
                         <span key={st.step} className="block text-ink-soft">
-                          {st.years === m.censoredYears.length ? 'all' : st.years} stopped at step {st.step + 1} ({sim.steps[st.step]?.operationName} at {sim.steps[st.step]?.siteName}): no window before the data end
+                          {st.years === m.censoredYears.length ? 'all' : st.years} stopped at step {st.step + 1} (
+                          {sim.steps[st.step]?.operationName} at {sim.steps[st.step]?.siteName}): no window before the data end
                         </span>
                       ))}
                     </span>
@@ -247,8 +278,8 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
         </table>
       </div>
       <p className="text-xs text-ink-soft">
-        A censored year reached the end of the hindcast before the last step could start; it is left out of the percentiles. Percentiles by linear interpolation between order
-        statistics (Hyndman &amp; Fan type 7).
+        A censored year reached the end of the hindcast before the last step could start; it is left out of the percentiles. Percentiles by
+        linear interpolation between order statistics (Hyndman &amp; Fan type 7).
       </p>
     </div>
   );
@@ -263,7 +294,8 @@ interface StepDraft {
 let nextKey = 1;
 
 /** The worksites an operation happens at (empty list = every worksite). */
-const sitesFor = (op: OperationResponse | undefined, sites: SiteResponse[]) => (!op ? [] : op.siteIds.length === 0 ? sites : sites.filter((s) => op.siteIds.includes(s.id)));
+const sitesFor = (op: OperationResponse | undefined, sites: SiteResponse[]) =>
+  !op ? [] : op.siteIds.length === 0 ? sites : sites.filter((s) => op.siteIds.includes(s.id));
 
 /** Day 'YYYY-MM-DD' of an instant in a zone, for a date input. */
 const dayIn = (iso: string | null, zone: string) => (iso ? dateIn(iso, zone, 'yyyy-MM-dd') : '');
@@ -329,7 +361,12 @@ function CampaignEditor({
       const [y, m, d] = plannedDay.split('-').map(Number);
       plannedStart = new Date(new TZDate(y, m - 1, d, timeZone).getTime()).toISOString();
     }
-    const parsed = CampaignInput.safeParse({ name, timeZone, plannedStart, steps: steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId })) });
+    const parsed = CampaignInput.safeParse({
+      name,
+      timeZone,
+      plannedStart,
+      steps: steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId })),
+    });
     if (!parsed.success) {
       const found: Record<string, string> = {};
       for (const issue of parsed.error.issues) found[issue.path.join('.')] ??= issue.message;
@@ -343,7 +380,8 @@ function CampaignEditor({
   }
 
   const fieldErrors: Record<string, string> = { ...errors };
-  if (serverError instanceof ApiError) for (const d of serverError.details ?? []) if (d.field && d.message) fieldErrors[d.field] ??= d.message;
+  if (serverError instanceof ApiError)
+    for (const d of serverError.details ?? []) if (d.field && d.message) fieldErrors[d.field] ??= d.message;
 
   return (
     <form
@@ -359,7 +397,12 @@ function CampaignEditor({
         <FieldShell label="Name" htmlFor="campaign-name" error={fieldErrors.name}>
           <Input id="campaign-name" value={name} invalid={!!fieldErrors.name} onChange={(e) => setName(e.target.value)} maxLength={120} />
         </FieldShell>
-        <FieldShell label="Start dates in" htmlFor="campaign-zone" hint="Runs start on the 1st at 00:00 in this time zone." error={fieldErrors.timeZone}>
+        <FieldShell
+          label="Start dates in"
+          htmlFor="campaign-zone"
+          hint="Runs start on the 1st at 00:00 in this time zone."
+          error={fieldErrors.timeZone}
+        >
           <Select id="campaign-zone" value={timeZone} onChange={(e) => setTimeZone(e.target.value)}>
             {zones.map((z) => (
               <option key={z} value={z}>
@@ -368,7 +411,12 @@ function CampaignEditor({
             ))}
           </Select>
         </FieldShell>
-        <FieldShell label="Planned start" htmlFor="campaign-start" hint="Optional: finish dates count from its month." error={fieldErrors.plannedStart}>
+        <FieldShell
+          label="Planned start"
+          htmlFor="campaign-start"
+          hint="Optional: finish dates count from its month."
+          error={fieldErrors.plannedStart}
+        >
           <Input id="campaign-start" type="date" value={plannedDay} onChange={(e) => setPlannedDay(e.target.value)} />
         </FieldShell>
       </div>
@@ -382,12 +430,20 @@ function CampaignEditor({
           const siteErr = fieldErrors[`steps.${i}.siteId`];
           return (
             <div key={s.key} className="flex flex-col gap-2 rounded-lg border border-line bg-surface p-2 sm:flex-row sm:items-end">
-              <span className="inline-flex size-7 shrink-0 items-center justify-center self-start rounded-full bg-surface-2 text-sm font-semibold sm:self-center" aria-hidden>
+              <span
+                className="inline-flex size-7 shrink-0 items-center justify-center self-start rounded-full bg-surface-2 text-sm font-semibold sm:self-center"
+                aria-hidden
+              >
                 {i + 1}
               </span>
               <div className="min-w-0 flex-1">
                 <FieldShell label={`Step ${i + 1} operation`} htmlFor={`step-${s.key}-op`} error={opErr}>
-                  <Select id={`step-${s.key}-op`} value={s.operationId} invalid={!!opErr} onChange={(e) => setStep(i, { operationId: e.target.value })}>
+                  <Select
+                    id={`step-${s.key}-op`}
+                    value={s.operationId}
+                    invalid={!!opErr}
+                    onChange={(e) => setStep(i, { operationId: e.target.value })}
+                  >
                     {operations.map((o) => (
                       <option key={o.id} value={o.id}>
                         {o.name} (TPOP {o.tpop} h)
@@ -398,7 +454,12 @@ function CampaignEditor({
               </div>
               <div className="min-w-0 flex-1">
                 <FieldShell label={`Step ${i + 1} worksite`} htmlFor={`step-${s.key}-site`} error={siteErr}>
-                  <Select id={`step-${s.key}-site`} value={s.siteId} invalid={!!siteErr} onChange={(e) => setStep(i, { siteId: e.target.value })}>
+                  <Select
+                    id={`step-${s.key}-site`}
+                    value={s.siteId}
+                    invalid={!!siteErr}
+                    onChange={(e) => setStep(i, { siteId: e.target.value })}
+                  >
                     {allowed.map((a) => (
                       <option key={a.id} value={a.id}>
                         {a.name}
@@ -411,7 +472,13 @@ function CampaignEditor({
                 <Button variant="ghost" disabled={i === 0} onClick={() => move(i, -1)} aria-label={`Move step ${i + 1} up`} title="Move up">
                   ↑
                 </Button>
-                <Button variant="ghost" disabled={i === steps.length - 1} onClick={() => move(i, 1)} aria-label={`Move step ${i + 1} down`} title="Move down">
+                <Button
+                  variant="ghost"
+                  disabled={i === steps.length - 1}
+                  onClick={() => move(i, 1)}
+                  aria-label={`Move step ${i + 1} down`}
+                  title="Move down"
+                >
                   ↓
                 </Button>
                 <Button variant="ghost" onClick={() => setSteps((x) => x.filter((_, k) => k !== i))} aria-label={`Remove step ${i + 1}`}>

@@ -17,7 +17,6 @@ function subscribeNarrow(onChange: () => void) {
 }
 const isNarrow = () => window.matchMedia('(max-width: 640px)').matches;
 
-
 type Rgb = [number, number, number];
 const hex = (h: string): Rgb => [parseInt(h.slice(1, 3), 16), parseInt(h.slice(3, 5), 16), parseInt(h.slice(5, 7), 16)];
 const toHex = (c: Rgb) => `#${c.map((v) => Math.round(v).toString(16).padStart(2, '0')).join('')}`;
@@ -57,15 +56,27 @@ export function HeatLegend({ dark }: { dark: boolean }) {
   const stops = dark ? RAMP_DARK : RAMP_LIGHT;
   const gradient = `linear-gradient(to right, ${[0, 0.25, 0.5, 0.75, 1].map((t) => ramp(stops, t)).join(', ')})`;
   return (
-    <div className="mt-2 flex flex-wrap items-center gap-x-4 gap-y-1 text-xs text-ink-soft" data-testid="heat-legend" aria-label="Colour key: downtime from 0 % (light) to 100 % (dark); grey: no data">
+    <div
+      className="mt-2 flex flex-wrap items-center gap-x-4 gap-y-1 text-xs text-ink-soft"
+      data-testid="heat-legend"
+      aria-label="Colour key: downtime from 0 % (light) to 100 % (dark); grey: no data"
+    >
       <span className="font-semibold text-ink">Downtime</span>
       <span className="flex items-center gap-2">
         <span>0 %</span>
-        <span className="h-3 w-32 rounded-sm border border-line sm:w-48" style={{ backgroundImage: gradient, printColorAdjust: 'exact' }} aria-hidden />
+        <span
+          className="h-3 w-32 rounded-sm border border-line sm:w-48"
+          style={{ backgroundImage: gradient, printColorAdjust: 'exact' }}
+          aria-hidden
+        />
         <span>100 %</span>
       </span>
       <span className="flex items-center gap-1">
-        <span className="inline-block size-3 rounded-sm border border-line" style={{ background: dark ? '#3a4a52' : '#c9cfd2', printColorAdjust: 'exact' }} aria-hidden />
+        <span
+          className="inline-block size-3 rounded-sm border border-line"
+          style={{ background: dark ? '#3a4a52' : '#c9cfd2', printColorAdjust: 'exact' }}
+          aria-hidden
+        />
         no data
       </span>
     </div>
@@ -99,7 +110,10 @@ function HeatTable({ rows, label, stops, className }: { rows: HeatRow[]; label: 
             const [first, second] = r.id.split(' · ');
             return (
               <tr key={r.id}>
-                <th scope="row" className="sticky left-0 z-10 max-w-28 bg-surface px-1 py-0.5 text-left align-middle font-semibold break-words sm:max-w-48 print:max-w-40">
+                <th
+                  scope="row"
+                  className="sticky left-0 z-10 max-w-28 bg-surface px-1 py-0.5 text-left align-middle font-semibold break-words sm:max-w-48 print:max-w-40"
+                >
                   {first}
                   {second ? <span className="block font-normal text-ink-soft">{second}</span> : null}
                 </th>
@@ -158,7 +172,9 @@ export default function DowntimeHeatmap({ rows, label, labelWidth }: { rows: Hea
               emptyColor={dark ? '#3a4a52' : '#c9cfd2'}
               enableLabels
               label={(cell) => (cell.value === null ? '–' : `${Math.round(cell.value)}`)}
-              labelTextColor={(cell: Omit<ComputedCell<{ x: string; y: number | null }>, 'labelTextColor'>) => (cell.value === null ? soft : textOn(cell.color))}
+              labelTextColor={(cell: Omit<ComputedCell<{ x: string; y: number | null }>, 'labelTextColor'>) =>
+                cell.value === null ? soft : textOn(cell.color)
+              }
               axisTop={{ tickSize: 0, tickPadding: 8 }}
               axisLeft={{
                 tickSize: 0,
@@ -169,7 +185,13 @@ export default function DowntimeHeatmap({ rows, label, labelWidth }: { rows: Hea
                   const cut = (s: string) => (s.length > maxChars ? `${s.slice(0, maxChars - 1)}…` : s);
                   return (
                     <g transform={`translate(${x - 8},${y})`}>
-                      <text textAnchor="end" dominantBaseline="central" fill={ink} style={{ fontSize: 12, fontWeight: second ? 600 : 500 }} y={second ? -7 : 0}>
+                      <text
+                        textAnchor="end"
+                        dominantBaseline="central"
+                        fill={ink}
+                        style={{ fontSize: 12, fontWeight: second ? 600 : 500 }}
+                        y={second ? -7 : 0}
+                      >
                         {cut(first)}
                       </text>
                       {second ? (

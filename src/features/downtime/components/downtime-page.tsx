@@ -105,7 +105,11 @@ export function DowntimePage() {
           <FieldShell
             label="Hindcast"
             htmlFor="downtime-dataset"
-            hint={hindcast ? `${dateIn(hindcast.start, pageZone.zone)} to ${dateIn(hindcast.end, pageZone.zone)}, ${hindcast.records.toLocaleString('en-GB')} records, every ${hindcast.stepMinutes} min` : undefined}
+            hint={
+              hindcast
+                ? `${dateIn(hindcast.start, pageZone.zone)} to ${dateIn(hindcast.end, pageZone.zone)}, ${hindcast.records.toLocaleString('en-GB')} records, every ${hindcast.stepMinutes} min`
+                : undefined
+            }
           >
             <Select id="downtime-dataset" value={datasetId} onChange={(e) => set('dataset', e.target.value)} disabled={list.length === 0}>
               {list.length === 0 ? <option value="">No hindcast yet</option> : null}
@@ -123,12 +127,13 @@ export function DowntimePage() {
         </Switch>
         <Term k="alpha" />
         <p className="w-full text-sm" data-testid="downtime-basis">
-          <span className="font-semibold">Basis of every figure on this page</span> (heat map, table, campaign durations and the ledger’s expected downtime):{' '}
-          {hindcast ? hindcast.name : 'no hindcast yet'},{' '}
+          <span className="font-semibold">Basis of every figure on this page</span> (heat map, table, campaign durations and the ledger’s
+          expected downtime): {hindcast ? hindcast.name : 'no hindcast yet'},{' '}
           {alpha ? 'forecast limits on: Hs limits at OPWF = α × OPLIM.' : 'forecast limits off: every limit at OPLIM.'}
           {hindcast && thinHindcast(hindcast) ? (
             <span className="mt-1 block font-semibold text-danger">
-              This hindcast spans {spanWords(hindcast)}: shorter than a year, so some months have no data and the rest rest on one short sample.
+              This hindcast spans {spanWords(hindcast)}: shorter than a year, so some months have no data and the rest rest on one short
+              sample.
             </span>
           ) : null}
         </p>
@@ -141,7 +146,13 @@ export function DowntimePage() {
           {access.canEdit ? 'Import a multi-year hindcast under Sea data.' : 'The coordinator imports one under Sea data.'}
         </Notice>
       ) : (
-        <WorkabilitySection entries={workability.data} isFetching={workability.isFetching} error={workability.error} alpha={alpha} datasetName={hindcast?.name ?? ''} />
+        <WorkabilitySection
+          entries={workability.data}
+          isFetching={workability.isFetching}
+          error={workability.error}
+          alpha={alpha}
+          datasetName={hindcast?.name ?? ''}
+        />
       )}
 
       <CampaignSection
@@ -155,9 +166,24 @@ export function DowntimePage() {
         onSelect={(id) => set('campaign', id)}
       />
 
-      <OutlookSection projectId={projectId} canEdit={access.canEdit} alpha={alpha} operations={operations.data ?? []} sites={sites.data ?? []} selectedId={campaignId} />
+      <OutlookSection
+        projectId={projectId}
+        canEdit={access.canEdit}
+        alpha={alpha}
+        operations={operations.data ?? []}
+        sites={sites.data ?? []}
+        selectedId={campaignId}
+      />
 
-      <LedgerSection projectId={projectId} canEdit={access.canEdit} isClient={access.role === 'client'} month={month} onMonth={(m) => set('month', m)} datasetId={datasetId} alpha={alpha} />
+      <LedgerSection
+        projectId={projectId}
+        canEdit={access.canEdit}
+        isClient={access.role === 'client'}
+        month={month}
+        onMonth={(m) => set('month', m)}
+        datasetId={datasetId}
+        alpha={alpha}
+      />
     </div>
   );
 }

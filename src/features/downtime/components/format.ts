@@ -6,7 +6,20 @@ import { DATE_STYLE } from '../../../../shared/dates';
 import { formatAt } from '../../../lib/format';
 
 export const MONTH_SHORT = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'] as const;
-export const MONTH_LONG = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'] as const;
+export const MONTH_LONG = [
+  'January',
+  'February',
+  'March',
+  'April',
+  'May',
+  'June',
+  'July',
+  'August',
+  'September',
+  'October',
+  'November',
+  'December',
+] as const;
 
 const DASH = '–';
 
@@ -31,7 +44,8 @@ export function num(x: number | null | undefined, decimals = 1): string {
 }
 
 /** An instant as a date in a time zone, e.g. '4 Dec 2026'. */
-export const dateIn = (iso: string | null | undefined, timeZone: string, pattern: string = DATE_STYLE.dayYear): string => formatAt(iso, timeZone, pattern);
+export const dateIn = (iso: string | null | undefined, timeZone: string, pattern: string = DATE_STYLE.dayYear): string =>
+  formatAt(iso, timeZone, pattern);
 
 /** A calendar day 'YYYY-MM-DD' as words, e.g. 'Fri 4 Dec 2026'. */
 export function dayWords(day: string, pattern: string = DATE_STYLE.dayYear): string {

@@ -1,7 +1,12 @@
 import { useState, useSyncExternalStore } from 'react';
 import { format } from 'date-fns';
 import type { LedgerEntry, LedgerMonthRow, LedgerProposeAnswer } from '../../../../shared/api-types-downtime';
-import { LEDGER_LIMITING_LABELS, LEDGER_LIMITING_VALUES, LedgerConfirmInput, type LedgerLimiting } from '../../../../shared/schemas/downtime';
+import {
+  LEDGER_LIMITING_LABELS,
+  LEDGER_LIMITING_VALUES,
+  LedgerConfirmInput,
+  type LedgerLimiting,
+} from '../../../../shared/schemas/downtime';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
 import { useLedger } from '../api/get-ledger';
 import { useLedgerMonthly } from '../api/get-ledger-monthly';
@@ -48,7 +53,10 @@ function shown(r: LedgerEntry) {
 function StatusBadge({ row }: { row: LedgerEntry }) {
   const { confirmed, corrected } = shown(row);
   return confirmed ? (
-    <span className="inline-flex items-center gap-1 rounded-full bg-ok-soft px-2 py-0.5 text-xs font-semibold" title={row.confirmedBy ? `by ${row.confirmedBy}` : undefined}>
+    <span
+      className="inline-flex items-center gap-1 rounded-full bg-ok-soft px-2 py-0.5 text-xs font-semibold"
+      title={row.confirmedBy ? `by ${row.confirmedBy}` : undefined}
+    >
       Confirmed{corrected ? ', corrected' : ''}
       <span className="font-normal text-ink-soft">· locked</span>
     </span>
@@ -58,7 +66,19 @@ function StatusBadge({ row }: { row: LedgerEntry }) {
 }
 
 /** One ledger day as a card (phones). */
-function LedgerCard({ projectId, row: r, canEdit, open, onOpen }: { projectId: string; row: LedgerEntry; canEdit: boolean; open: boolean; onOpen: (v: boolean) => void }) {
+function LedgerCard({
+  projectId,
+  row: r,
+  canEdit,
+  open,
+  onOpen,
+}: {
+  projectId: string;
+  row: LedgerEntry;
+  canEdit: boolean;
+  open: boolean;
+  onOpen: (v: boolean) => void;
+}) {
   const { confirmed, lost, limiting, corrected } = shown(r);
   return (
     <li className="rounded-lg border border-line p-3 text-sm">
@@ -79,7 +99,12 @@ function LedgerCard({ projectId, row: r, canEdit, open, onOpen }: { projectId: s
       </p>
       {r.note ? <p className="mt-1 text-xs text-ink-soft">Note: {r.note}</p> : null}
       {canEdit && !confirmed && !open && r.day < todayDay() ? (
-        <Button variant="secondary" className="no-print mt-2" onClick={() => onOpen(true)} aria-label={`Confirm ${r.day}, ${r.operationName} at ${r.siteName}`}>
+        <Button
+          variant="secondary"
+          className="no-print mt-2"
+          onClick={() => onOpen(true)}
+          aria-label={`Confirm ${r.day}, ${r.operationName} at ${r.siteName}`}
+        >
           Confirm
         </Button>
       ) : null}
@@ -127,7 +152,22 @@ export function LedgerSection({
     downloadCsv(
       `downtime-ledger-${month}.csv`,
       toCsv(
-        ['day', 'operation', 'worksite', 'planned_h', 'proposed_lost_h', 'proposed_limiting', 'lost_h', 'limiting', 'status', 'note', 'source', 'dataset', 'confirmed_by', 'confirmed_at'],
+        [
+          'day',
+          'operation',
+          'worksite',
+          'planned_h',
+          'proposed_lost_h',
+          'proposed_limiting',
+          'lost_h',
+          'limiting',
+          'status',
+          'note',
+          'source',
+          'dataset',
+          'confirmed_by',
+          'confirmed_at',
+        ],
         rows.map((r) => [
           r.day,
           r.operationName,
@@ -156,7 +196,8 @@ export function LedgerSection({
             Downtime ledger
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            What happened, day by day at each worksite: all hours of a day are planned; hours not workable at OPLIM, or without data, count as lost.
+            What happened, day by day at each worksite: all hours of a day are planned; hours not workable at OPLIM, or without data, count
+            as lost.
             {isClient
               ? ' Confirmed days only.'
               : ' Only days that are over are proposed: from the newest observation covering the day, else from the forecast issues that covered it (marked “From forecast”). The coordinator confirms or corrects each finished day.'}
@@ -166,7 +207,12 @@ export function LedgerSection({
       <div className="no-print flex flex-wrap items-end gap-2">
         <div className="w-48">
           <FieldShell label="Month" htmlFor="ledger-month">
-            <Input id="ledger-month" type="month" value={month} onChange={(e) => /^\d{4}-\d{2}$/.test(e.target.value) && onMonth(e.target.value)} />
+            <Input
+              id="ledger-month"
+              type="month"
+              value={month}
+              onChange={(e) => /^\d{4}-\d{2}$/.test(e.target.value) && onMonth(e.target.value)}
+            />
           </FieldShell>
         </div>
         {canEdit ? (
@@ -193,14 +239,27 @@ export function LedgerSection({
         </Notice>
       ) : null}
       {rows.length > 0 && narrow ? (
-        <ul className={`flex max-h-[40rem] flex-col gap-2 overflow-auto ${ledger.isFetching ? 'opacity-60' : ''}`} data-testid="ledger-list" aria-label={`Downtime ledger, ${monthWords(month)}`}>
+        <ul
+          className={`flex max-h-[40rem] flex-col gap-2 overflow-auto ${ledger.isFetching ? 'opacity-60' : ''}`}
+          data-testid="ledger-list"
+          aria-label={`Downtime ledger, ${monthWords(month)}`}
+        >
           {rows.map((r) => (
-            <LedgerCard key={r.id} projectId={projectId} row={r} canEdit={canEdit} open={open === r.id} onOpen={(v) => setOpen(v ? r.id : null)} />
+            <LedgerCard
+              key={r.id}
+              projectId={projectId}
+              row={r}
+              canEdit={canEdit}
+              open={open === r.id}
+              onOpen={(v) => setOpen(v ? r.id : null)}
+            />
           ))}
         </ul>
       ) : null}
       {rows.length > 0 && !narrow ? (
-        <div className={`max-h-[36rem] overflow-auto rounded-lg border border-line print:max-h-none print:overflow-visible ${ledger.isFetching ? 'opacity-60' : ''}`}>
+        <div
+          className={`max-h-[36rem] overflow-auto rounded-lg border border-line print:max-h-none print:overflow-visible ${ledger.isFetching ? 'opacity-60' : ''}`}
+        >
           <table className="w-full min-w-[50rem] text-sm" data-testid="ledger-table">
             <caption className="sr-only">Downtime ledger, {monthWords(month)}</caption>
             <thead>
@@ -235,13 +294,26 @@ export function LedgerSection({
             </thead>
             <tbody>
               {rows.map((r) => (
-                <LedgerRow key={r.id} projectId={projectId} row={r} canEdit={canEdit} open={open === r.id} onOpen={(v) => setOpen(v ? r.id : null)} />
+                <LedgerRow
+                  key={r.id}
+                  projectId={projectId}
+                  row={r}
+                  canEdit={canEdit}
+                  open={open === r.id}
+                  onOpen={(v) => setOpen(v ? r.id : null)}
+                />
               ))}
             </tbody>
           </table>
         </div>
       ) : null}
-      <MonthlyTotals rows={monthly.data?.rows} hindcast={monthly.data?.hindcast ?? null} error={monthly.error} isClient={isClient} month={month} />
+      <MonthlyTotals
+        rows={monthly.data?.rows}
+        hindcast={monthly.data?.hindcast ?? null}
+        error={monthly.error}
+        isClient={isClient}
+        month={month}
+      />
     </Card>
   );
 }
@@ -253,14 +325,33 @@ function ProposeResult({ answer }: { answer: LedgerProposeAnswer }) {
     <Notice tone="success">
       {answer.written} day{answer.written === 1 ? '' : 's'} proposed
       {answer.keptConfirmed > 0 ? `, ${answer.keptConfirmed} confirmed left as they were` : ''}
-      {answer.sources.length > 0 ? ` from ${answer.sources.map((s) => `${s.name} (${s.kind === 'observation' ? 'observed' : 'forecast'})`).join(', ')}` : ''}.
-      {uncovered > 0 ? ` ${uncovered} worksite-day${uncovered === 1 ? '' : 's'} had no observation or forecast covering the whole day and were left out.` : ''}
-      {notOver > 0 ? ` ${notOver} worksite-day${notOver === 1 ? ' is' : 's are'} not over yet and ${notOver === 1 ? 'was' : 'were'} left out.` : ''}
+      {answer.sources.length > 0
+        ? ` from ${answer.sources.map((s) => `${s.name} (${s.kind === 'observation' ? 'observed' : 'forecast'})`).join(', ')}`
+        : ''}
+      .
+      {uncovered > 0
+        ? ` ${uncovered} worksite-day${uncovered === 1 ? '' : 's'} had no observation or forecast covering the whole day and were left out.`
+        : ''}
+      {notOver > 0
+        ? ` ${notOver} worksite-day${notOver === 1 ? ' is' : 's are'} not over yet and ${notOver === 1 ? 'was' : 'were'} left out.`
+        : ''}
     </Notice>
   );
 }
 
-function LedgerRow({ projectId, row: r, canEdit, open, onOpen }: { projectId: string; row: LedgerEntry; canEdit: boolean; open: boolean; onOpen: (v: boolean) => void }) {
+function LedgerRow({
+  projectId,
+  row: r,
+  canEdit,
+  open,
+  onOpen,
+}: {
+  projectId: string;
+  row: LedgerEntry;
+  canEdit: boolean;
+  open: boolean;
+  onOpen: (v: boolean) => void;
+}) {
   const { confirmed, lost, limiting, corrected } = shown(r);
   return (
     <>
@@ -338,11 +429,18 @@ function ConfirmForm({ projectId, row, onDone }: { projectId: string; row: Ledge
       }}
     >
       <p className="text-sm">
-        Proposed: {hours(row.proposedLostHours)} lost of {hours(row.plannedHours, 0)}, limiting {limitingLabel(row.proposedLimiting)}. Confirming locks the day.
+        Proposed: {hours(row.proposedLostHours)} lost of {hours(row.plannedHours, 0)}, limiting {limitingLabel(row.proposedLimiting)}.
+        Confirming locks the day.
       </p>
       <div className="grid gap-3 sm:grid-cols-[10rem_12rem_1fr]">
         <FieldShell label="Lost to weather" unit="h" htmlFor={`${id}-lost`} error={errors.lostHours}>
-          <Input id={`${id}-lost`} inputMode="decimal" value={lost} invalid={!!errors.lostHours} onChange={(e) => setLost(e.target.value)} />
+          <Input
+            id={`${id}-lost`}
+            inputMode="decimal"
+            value={lost}
+            invalid={!!errors.lostHours}
+            onChange={(e) => setLost(e.target.value)}
+          />
         </FieldShell>
         <FieldShell label="Limiting factor" htmlFor={`${id}-limiting`} error={errors.limiting}>
           <Select id={`${id}-limiting`} value={limiting} onChange={(e) => setLimiting(e.target.value)}>
@@ -372,14 +470,40 @@ function ConfirmForm({ projectId, row, onDone }: { projectId: string; row: Ledge
 }
 
 /** Confirmed lost hours of the month against the hindcast expectation (P50/P90 of a whole month). */
-function MonthlyTotals({ rows, hindcast, error, isClient, month }: { rows: LedgerMonthRow[] | undefined; hindcast: { id: string; name: string } | null; error: unknown; isClient: boolean; month: string }) {
+function MonthlyTotals({
+  rows,
+  hindcast,
+  error,
+  isClient,
+  month,
+}: {
+  rows: LedgerMonthRow[] | undefined;
+  hindcast: { id: string; name: string } | null;
+  error: unknown;
+  isClient: boolean;
+  month: string;
+}) {
   if (error) return <ErrorNotice error={error} />;
   if (!rows || rows.length === 0) return null;
   function download() {
     downloadCsv(
       `downtime-monthly-${month}.csv`,
       toCsv(
-        ['month', 'operation', 'worksite', 'days', 'confirmed_days', 'confirmed_planned_h', 'confirmed_lost_h', ...(isClient ? [] : ['proposed_lost_h']), 'month_h', 'expected_p50_h', 'expected_p90_h', 'hindcast_years', 'hindcast'],
+        [
+          'month',
+          'operation',
+          'worksite',
+          'days',
+          'confirmed_days',
+          'confirmed_planned_h',
+          'confirmed_lost_h',
+          ...(isClient ? [] : ['proposed_lost_h']),
+          'month_h',
+          'expected_p50_h',
+          'expected_p90_h',
+          'hindcast_years',
+          'hindcast',
+        ],
         rows!.map((r) => [
           r.month,
           r.operationName,
@@ -404,8 +528,8 @@ function MonthlyTotals({ rows, hindcast, error, isClient, month }: { rows: Ledge
         <div>
           <h3 className="text-base font-bold">Month against expectation</h3>
           <p className="text-sm text-ink-soft">
-            Expected: lost hours in the whole calendar month over the years of {hindcast ? hindcast.name : 'a hindcast (none yet)'}, P50 and P90, on the page’s basis
-            (stated at the top). The days above count what happened, at OPLIM.
+            Expected: lost hours in the whole calendar month over the years of {hindcast ? hindcast.name : 'a hindcast (none yet)'}, P50 and
+            P90, on the page’s basis (stated at the top). The days above count what happened, at OPLIM.
           </p>
         </div>
         <Button variant="secondary" className="no-print" onClick={download}>
@@ -449,7 +573,9 @@ function MonthlyTotals({ rows, hindcast, error, isClient, month }: { rows: Ledge
                 <tr key={`${r.month}-${r.operationId}-${r.siteId}`} className="border-t border-line/60">
                   <th scope="row" className="px-2 py-1 text-left font-normal">
                     {r.operationName} <span className="text-ink-soft">at {r.siteName}</span>
-                    {rows.some((x) => x.month !== r.month) ? <span className="ml-1 text-xs text-ink-soft">({monthWords(r.month)})</span> : null}
+                    {rows.some((x) => x.month !== r.month) ? (
+                      <span className="ml-1 text-xs text-ink-soft">({monthWords(r.month)})</span>
+                    ) : null}
                   </th>
                   <td className={td}>
                     {r.confirmedDays} of {r.days}
@@ -468,7 +594,10 @@ function MonthlyTotals({ rows, hindcast, error, isClient, month }: { rows: Ledge
           </tbody>
         </table>
       </div>
-      <p className="text-xs text-ink-soft">A month with only some days confirmed is compared with the expectation for the whole month: read it against the share of days confirmed.</p>
+      <p className="text-xs text-ink-soft">
+        A month with only some days confirmed is compared with the expectation for the whole month: read it against the share of days
+        confirmed.
+      </p>
     </div>
   );
 }

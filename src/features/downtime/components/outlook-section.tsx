@@ -42,8 +42,9 @@ export function OutlookSection({ projectId, canEdit, alpha, operations, sites, s
           Live outlook: when will we finish?
         </h2>
         <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-          {selected.name}, as of now: the steps not yet done, in order, first on the latest forecast’s go-starts{alpha ? ' (with α)' : ' (at OPLIM)'}, then each hindcast year
-          from the same calendar time. Each forecast × hindcast year pair is one sample.
+          {selected.name}, as of now: the steps not yet done, in order, first on the latest forecast’s go-starts
+          {alpha ? ' (with α)' : ' (at OPLIM)'}, then each hindcast year from the same calendar time. Each forecast × hindcast year pair is
+          one sample.
         </p>
       </div>
       {outlook.error ? <ErrorNotice error={outlook.error} /> : null}
@@ -84,7 +85,9 @@ function OutlookFigures({ o, zone, stale }: { o: CampaignOutlookAnswer; zone: st
                 {o.forecast.finishedInForecast
                   ? 'the forecast alone finishes the work.'
                   : `${o.forecast.stepsStartedInForecast} of ${o.steps.length} remaining step${o.steps.length === 1 ? '' : 's'} start${o.forecast.stepsStartedInForecast === 1 ? 's' : ''} inside it; the hindcast years take over at its end.`}{' '}
-                {o.forecast.ensemble ? `${o.forecast.members} ensemble members.` : 'One deterministic forecast (ensembles are not stored yet).'}
+                {o.forecast.ensemble
+                  ? `${o.forecast.members} ensemble members.`
+                  : 'One deterministic forecast (ensembles are not stored yet).'}
               </p>
             ) : (
               <p className="mt-1 text-ink-soft">No forecast: the outlook is the hindcast years alone.</p>
@@ -103,15 +106,18 @@ function OutlookFigures({ o, zone, stale }: { o: CampaignOutlookAnswer; zone: st
             </p>
             {o.forecast && shiftDays !== null ? (
               <p className="mt-1 font-semibold" data-testid="outlook-shift">
-                {Math.abs(shiftDays) < 0.05 ? 'The forecast does not move the P50.' : `The forecast moves the P50 ${Math.abs(shiftDays).toFixed(1)} days ${shiftDays > 0 ? 'later' : 'earlier'}.`}
+                {Math.abs(shiftDays) < 0.05
+                  ? 'The forecast does not move the P50.'
+                  : `The forecast moves the P50 ${Math.abs(shiftDays).toFixed(1)} days ${shiftDays > 0 ? 'later' : 'earlier'}.`}
               </p>
             ) : null}
           </div>
         </div>
       ) : null}
       <p className="text-xs text-ink-soft">
-        As of {dateIn(o.asOf, zone, 'd MMM yyyy HH:mm')}; the remaining work starts {dateIn(o.startFrom, zone, 'd MMM yyyy HH:mm')}. P10/P50/P90 by linear interpolation between order
-        statistics (type 7) over the samples that finish; a sample that reaches the end of the hindcast is censored.
+        As of {dateIn(o.asOf, zone, 'd MMM yyyy HH:mm')}; the remaining work starts {dateIn(o.startFrom, zone, 'd MMM yyyy HH:mm')}.
+        P10/P50/P90 by linear interpolation between order statistics (type 7) over the samples that finish; a sample that reaches the end of
+        the hindcast is censored.
       </p>
     </div>
   );
@@ -153,12 +159,24 @@ function StepsTable({
         <caption className="sr-only">Campaign steps: progress and the outlook of their starts</caption>
         <thead>
           <tr>
-            <th scope="col" className={th}>Step</th>
-            <th scope="col" className={th}>Progress</th>
-            <th scope="col" className={th}>Actual start</th>
-            <th scope="col" className={th}>Actual end</th>
-            <th scope="col" className={th}>P50 start</th>
-            <th scope="col" className={th}>P90 start</th>
+            <th scope="col" className={th}>
+              Step
+            </th>
+            <th scope="col" className={th}>
+              Progress
+            </th>
+            <th scope="col" className={th}>
+              Actual start
+            </th>
+            <th scope="col" className={th}>
+              Actual end
+            </th>
+            <th scope="col" className={th}>
+              P50 start
+            </th>
+            <th scope="col" className={th}>
+              P90 start
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -168,7 +186,8 @@ function StepsTable({
             return (
               <tr key={i} className="border-t border-line">
                 <td className={td}>
-                  {i + 1}. {opName.get(s.operationId) ?? 'Operation removed'} <span className="text-ink-soft">at {siteName.get(s.siteId) ?? 'worksite removed'}</span>
+                  {i + 1}. {opName.get(s.operationId) ?? 'Operation removed'}{' '}
+                  <span className="text-ink-soft">at {siteName.get(s.siteId) ?? 'worksite removed'}</span>
                 </td>
                 <td className={td}>
                   {STATUS_WORDS[p?.status ?? 'planned']}
@@ -196,7 +215,17 @@ const localToIso = (v: string, zone: string) => {
   return m ? new Date(new TZDate(+m[1], +m[2] - 1, +m[3], +m[4], +m[5], zone).getTime()).toISOString() : '';
 };
 
-function ProgressEditor({ projectId, campaign, operations, zone }: { projectId: string; campaign: CampaignResponse; operations: OperationResponse[]; zone: string }) {
+function ProgressEditor({
+  projectId,
+  campaign,
+  operations,
+  zone,
+}: {
+  projectId: string;
+  campaign: CampaignResponse;
+  operations: OperationResponse[];
+  zone: string;
+}) {
   const save = useSetStepProgress(projectId);
   const firstOpen = campaign.progress.findIndex((p) => p.status !== 'done');
   const [index, setIndex] = useState(firstOpen < 0 ? campaign.steps.length - 1 : firstOpen);
@@ -205,7 +234,12 @@ function ProgressEditor({ projectId, campaign, operations, zone }: { projectId: 
   const opName = new Map(operations.map((o) => [o.id, o.name]));
   const submit = () => {
     const iso = localToIso(when, zone);
-    const input = status === 'planned' ? { status } : status === 'started' ? { status, ...(iso ? { startedAt: iso } : {}) } : { status, ...(iso ? { doneAt: iso } : {}) };
+    const input =
+      status === 'planned'
+        ? { status }
+        : status === 'started'
+          ? { status, ...(iso ? { startedAt: iso } : {}) }
+          : { status, ...(iso ? { doneAt: iso } : {}) };
     save.mutate({ campaignId: campaign.id, index, input }, { onSuccess: () => setWhen('') });
   };
   return (
@@ -240,7 +274,13 @@ function ProgressEditor({ projectId, campaign, operations, zone }: { projectId: 
           htmlFor="progress-time"
           hint={status === 'done' ? 'Empty: from the confirmed ledger days.' : status === 'started' ? 'Empty: now.' : undefined}
         >
-          <Input id="progress-time" type="datetime-local" value={when} onChange={(e) => setWhen(e.target.value)} disabled={status === 'planned'} />
+          <Input
+            id="progress-time"
+            type="datetime-local"
+            value={when}
+            onChange={(e) => setWhen(e.target.value)}
+            disabled={status === 'planned'}
+          />
         </FieldShell>
         <Button type="submit" disabled={save.isPending}>
           {save.isPending ? 'Saving…' : 'Save'}
@@ -256,7 +296,9 @@ function ProgressEditor({ projectId, campaign, operations, zone }: { projectId: 
  * dashed line; a table of the same points follows for screen readers and for paper.
  */
 export function DriftChart({ points, plannedFinish, zone }: { points: OutlookHistoryPoint[]; plannedFinish: string | null; zone: string }) {
-  const pts = points.filter((p) => p.p50 !== null).map((p) => ({ at: Date.parse(p.at), p50: Date.parse(p.p50!), p90: p.p90 ? Date.parse(p.p90) : null, fc: p.forecastIssuedAt }));
+  const pts = points
+    .filter((p) => p.p50 !== null)
+    .map((p) => ({ at: Date.parse(p.at), p50: Date.parse(p.p50!), p90: p.p90 ? Date.parse(p.p90) : null, fc: p.forecastIssuedAt }));
   if (pts.length === 0) return <Notice>No outlook stored yet: each planning run adds one.</Notice>;
   const W = 720;
   const H = 260;
@@ -271,12 +313,21 @@ export function DriftChart({ points, plannedFinish, zone }: { points: OutlookHis
   const X = (t: number) => m.l + ((t - x0) / (x1 - x0)) * (W - m.l - m.r);
   const Y = (t: number) => H - m.b - ((t - y0) / (y1 - y0)) * (H - m.t - m.b);
   const withP90 = pts.filter((p) => p.p90 !== null);
-  const band = withP90.length > 0 ? [...withP90.map((p) => `${X(p.at)},${Y(p.p90!)}`), ...[...withP90].reverse().map((p) => `${X(p.at)},${Y(p.p50)}`)].join(' ') : '';
+  const band =
+    withP90.length > 0
+      ? [...withP90.map((p) => `${X(p.at)},${Y(p.p90!)}`), ...[...withP90].reverse().map((p) => `${X(p.at)},${Y(p.p50)}`)].join(' ')
+      : '';
   const ticks = (a: number, b: number, n: number) => Array.from({ length: n }, (_, i) => a + ((b - a) * i) / (n - 1));
   const label = (t: number) => dateIn(new Date(t).toISOString(), zone, 'd MMM');
   return (
     <div className="flex flex-col gap-2">
-      <svg viewBox={`0 0 ${W} ${H}`} className="w-full max-w-3xl" role="img" aria-labelledby="drift-title" data-testid="outlook-history-chart">
+      <svg
+        viewBox={`0 0 ${W} ${H}`}
+        className="w-full max-w-3xl"
+        role="img"
+        aria-labelledby="drift-title"
+        data-testid="outlook-history-chart"
+      >
         <title id="drift-title">P50 and P90 finish date at each planning run{planned !== null ? ', with the planned finish' : ''}</title>
         {ticks(y0, y1, 5).map((t) => (
           <g key={`y${t}`}>
@@ -294,20 +345,47 @@ export function DriftChart({ points, plannedFinish, zone }: { points: OutlookHis
         <text x={(m.l + W - m.r) / 2} y={H - 4} textAnchor="middle" fontSize={11} fill="var(--color-ink-soft)">
           planning run
         </text>
-        <text x={12} y={(m.t + H - m.b) / 2} textAnchor="middle" fontSize={11} fill="var(--color-ink-soft)" transform={`rotate(-90 12 ${(m.t + H - m.b) / 2})`}>
+        <text
+          x={12}
+          y={(m.t + H - m.b) / 2}
+          textAnchor="middle"
+          fontSize={11}
+          fill="var(--color-ink-soft)"
+          transform={`rotate(-90 12 ${(m.t + H - m.b) / 2})`}
+        >
           finish date
         </text>
         {band ? <polygon points={band} fill="var(--color-accent)" opacity={0.18} data-testid="drift-band" /> : null}
         {withP90.length > 0 ? (
-          <polyline points={withP90.map((p) => `${X(p.at)},${Y(p.p90!)}`).join(' ')} fill="none" stroke="var(--color-accent)" strokeWidth={1} strokeDasharray="3 3" />
+          <polyline
+            points={withP90.map((p) => `${X(p.at)},${Y(p.p90!)}`).join(' ')}
+            fill="none"
+            stroke="var(--color-accent)"
+            strokeWidth={1}
+            strokeDasharray="3 3"
+          />
         ) : null}
-        <polyline points={pts.map((p) => `${X(p.at)},${Y(p.p50)}`).join(' ')} fill="none" stroke="var(--color-accent)" strokeWidth={2.5} data-testid="drift-p50" />
+        <polyline
+          points={pts.map((p) => `${X(p.at)},${Y(p.p50)}`).join(' ')}
+          fill="none"
+          stroke="var(--color-accent)"
+          strokeWidth={2.5}
+          data-testid="drift-p50"
+        />
         {pts.map((p) => (
           <circle key={p.at} cx={X(p.at)} cy={Y(p.p50)} r={2.5} fill="var(--color-accent)" />
         ))}
         {planned !== null ? (
           <g data-testid="drift-planned">
-            <line x1={m.l} x2={W - m.r} y1={Y(planned)} y2={Y(planned)} stroke="var(--color-danger)" strokeWidth={1.5} strokeDasharray="6 4" />
+            <line
+              x1={m.l}
+              x2={W - m.r}
+              y1={Y(planned)}
+              y2={Y(planned)}
+              stroke="var(--color-danger)"
+              strokeWidth={1.5}
+              strokeDasharray="6 4"
+            />
             <text x={W - m.r - 4} y={Y(planned) - 5} textAnchor="end" fontSize={11} fill="var(--color-danger)">
               planned finish {label(planned)}
             </text>
@@ -340,10 +418,18 @@ function HistoryTable({ points, zone }: { points: OutlookHistoryPoint[]; zone: s
       <caption className="sr-only">Outlook history</caption>
       <thead>
         <tr>
-          <th scope="col" className={th}>Run</th>
-          <th scope="col" className={th}>P50 finish</th>
-          <th scope="col" className={th}>P90 finish</th>
-          <th scope="col" className={th}>Forecast issued</th>
+          <th scope="col" className={th}>
+            Run
+          </th>
+          <th scope="col" className={th}>
+            P50 finish
+          </th>
+          <th scope="col" className={th}>
+            P90 finish
+          </th>
+          <th scope="col" className={th}>
+            Forecast issued
+          </th>
         </tr>
       </thead>
       <tbody>

@@ -42,7 +42,8 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
       <ul className="ml-5 list-disc">
         {operations.map((o) => (
           <li key={o.id}>
-            <span className="font-semibold">{o.name}</span>: TPOP {o.tpop} h, TC {o.tc} h (TR {o.tr} h){o.weatherRestricted ? ', weather-restricted' : ''}; {limitsInWords(o.limits)}; at{' '}
+            <span className="font-semibold">{o.name}</span>: TPOP {o.tpop} h, TC {o.tc} h (TR {o.tr} h)
+            {o.weatherRestricted ? ', weather-restricted' : ''}; {limitsInWords(o.limits)}; at{' '}
             {o.siteIds.length === 0 ? 'every worksite' : o.siteIds.map((id) => siteName.get(id) ?? 'a removed worksite').join(', ')}.
           </li>
         ))}
@@ -51,9 +52,15 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
       <ul className="ml-5 list-disc">
         {sites.map((s) => (
           <li key={s.id}>
-            {s.name}: {s.depth} m deep{s.tide && s.tide.source !== 'none' ? ` below ${s.tide.datum}` : ''}, {s.shoreNormal === null ? 'no refraction' : `shore normal ${s.shoreNormal}°`}, breaker index {s.breakerIndex}
+            {s.name}: {s.depth} m deep{s.tide && s.tide.source !== 'none' ? ` below ${s.tide.datum}` : ''},{' '}
+            {s.shoreNormal === null ? 'no refraction' : `shore normal ${s.shoreNormal}°`}, breaker index {s.breakerIndex}
             {s.transferTable ? ', site transfer table' : ''}
-            {s.tide?.source === 'constants' ? `, tide from ${s.tide.constituents?.length ?? 0} harmonic constants (Z0 ${s.tide.z0} m)` : s.tide?.source === 'station' ? `, tide from database station ${s.tide.stationId}` : ''}.
+            {s.tide?.source === 'constants'
+              ? `, tide from ${s.tide.constituents?.length ?? 0} harmonic constants (Z0 ${s.tide.z0} m)`
+              : s.tide?.source === 'station'
+                ? `, tide from database station ${s.tide.stationId}`
+                : ''}
+            .
           </li>
         ))}
       </ul>
@@ -66,20 +73,30 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
             : 'α off: every limit at OPLIM.'}
         </li>
         <li>Workability = workable hours / hours with data; months are calendar months at the worksite.</li>
-        <li>A go-start needs TR = TPOP + TC wholly workable; waiting on weather runs to the next go-start; a usable window is a workable run of at least TR.</li>
-        <li>Campaigns start on the 1st of each month at 00:00 in every hindcast year; P50/P90 by linear interpolation between order statistics (Hyndman &amp; Fan type 7); a year that runs past the end of the data is censored and left out.</li>
         <li>
-          Live outlook: from the time printed, the steps not yet done run in order on the latest forecast’s go-starts, then in each hindcast year from the same calendar
-          time (a step with no go-start left in the forecast waits for the forecast’s end); each forecast × hindcast year pair is one sample. P10/P50/P90 of the finish
-          over the samples that finish (type 7); the hindcast-only figures from the same start show how much the forecast moved the date. The history lists the outlook
-          stored by each planning run.
+          A go-start needs TR = TPOP + TC wholly workable; waiting on weather runs to the next go-start; a usable window is a workable run
+          of at least TR.
         </li>
-        <li>Ledger: all hours of a day are planned; hours not workable at OPLIM or without data count as lost. The expectation is the month’s lost hours over the hindcast years (P50/P90).</li>
+        <li>
+          Campaigns start on the 1st of each month at 00:00 in every hindcast year; P50/P90 by linear interpolation between order statistics
+          (Hyndman &amp; Fan type 7); a year that runs past the end of the data is censored and left out.
+        </li>
+        <li>
+          Live outlook: from the time printed, the steps not yet done run in order on the latest forecast’s go-starts, then in each hindcast
+          year from the same calendar time (a step with no go-start left in the forecast waits for the forecast’s end); each forecast ×
+          hindcast year pair is one sample. P10/P50/P90 of the finish over the samples that finish (type 7); the hindcast-only figures from
+          the same start show how much the forecast moved the date. The history lists the outlook stored by each planning run.
+        </li>
+        <li>
+          Ledger: all hours of a day are planned; hours not workable at OPLIM or without data count as lost. The expectation is the month’s
+          lost hours over the hindcast years (P50/P90).
+        </li>
         {sites.some((s) => s.tide && s.tide.source !== 'none') ? (
           <li>
-            Tide: at a worksite with a tide, every hindcast hour is transformed at its still-water depth h = chart depth + predicted tide, so the
-            depth-limited Hs, shoaling and bed velocity, and the depth and tide-window limits, change with the tide; an hour with h ≤ 0 is dry and counts as no data.
-            The prediction is astronomical only (Schureman nodal corrections): storm surge is not included, and it is not for navigation.
+            Tide: at a worksite with a tide, every hindcast hour is transformed at its still-water depth h = chart depth + predicted tide,
+            so the depth-limited Hs, shoaling and bed velocity, and the depth and tide-window limits, change with the tide; an hour with h ≤
+            0 is dry and counts as no data. The prediction is astronomical only (Schureman nodal corrections): storm surge is not included,
+            and it is not for navigation.
           </li>
         ) : null}
         <li>{TRANSFORMATION_CAUTION}</li>

@@ -18,7 +18,19 @@ const pairLabel = (e: WorkabilityEntry) => `${e.operationName} · ${e.siteName}`
  * 100 - workability (%) and a plain table with the same numbers and the rest of the statistics,
  * each downloadable as CSV; and a year-by-year heat map of one operation at one worksite.
  */
-export function WorkabilitySection({ entries, isFetching, error, alpha, datasetName }: { entries: WorkabilityEntry[] | undefined; isFetching: boolean; error: unknown; alpha: boolean; datasetName: string }) {
+export function WorkabilitySection({
+  entries,
+  isFetching,
+  error,
+  alpha,
+  datasetName,
+}: {
+  entries: WorkabilityEntry[] | undefined;
+  isFetching: boolean;
+  error: unknown;
+  alpha: boolean;
+  datasetName: string;
+}) {
   const [pick, setPick] = useState(0);
   const rows: HeatRow[] = useMemo(
     () =>
@@ -46,7 +58,21 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
     downloadCsv(
       `expected-downtime-${alpha ? 'alpha' : 'oplim'}.csv`,
       toCsv(
-        ['operation', 'worksite', 'time_zone', 'month', 'downtime_pct', 'workability_pct', 'go_start_share_pct', 'wow_mean_h', 'wow_p90_h', 'windows_per_month', 'mean_window_h', 'censored_records', 'years'],
+        [
+          'operation',
+          'worksite',
+          'time_zone',
+          'month',
+          'downtime_pct',
+          'workability_pct',
+          'go_start_share_pct',
+          'wow_mean_h',
+          'wow_p90_h',
+          'windows_per_month',
+          'mean_window_h',
+          'censored_records',
+          'years',
+        ],
         entries.flatMap((e) =>
           e.months.map((m) => [
             e.operationName,
@@ -73,7 +99,20 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
     downloadCsv(
       `downtime-by-year-${alpha ? 'alpha' : 'oplim'}.csv`,
       toCsv(
-        ['operation', 'worksite', 'year', 'month', 'downtime_pct', 'workability_pct', 'go_start_share_pct', 'wow_mean_h', 'wow_p90_h', 'windows', 'mean_window_h', 'censored_records'],
+        [
+          'operation',
+          'worksite',
+          'year',
+          'month',
+          'downtime_pct',
+          'workability_pct',
+          'go_start_share_pct',
+          'wow_mean_h',
+          'wow_p90_h',
+          'windows',
+          'mean_window_h',
+          'censored_records',
+        ],
         chosen.yearMonths.map((m) => [
           chosen.operationName,
           chosen.siteName,
@@ -100,7 +139,8 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
             Expected weather downtime by month
           </h2>
           <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months as the worksite’s calendar has them (basis at the top of the page).
+            Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months as the
+            worksite’s calendar has them (basis at the top of the page).
           </p>
         </div>
         <Button variant="secondary" className="no-print" onClick={downloadMonths} disabled={!entries || entries.length === 0}>
@@ -109,14 +149,21 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
       </div>
       {error ? <ErrorNotice error={error} /> : null}
       {!entries && !error ? <Spinner label="Working through the hindcast" /> : null}
-      {entries && entries.length === 0 ? <Notice>No operation takes place at a worksite yet: add them under Sites &amp; limits.</Notice> : null}
+      {entries && entries.length === 0 ? (
+        <Notice>No operation takes place at a worksite yet: add them under Sites &amp; limits.</Notice>
+      ) : null}
       {entries && entries.length > 0 ? (
         <div className={isFetching ? 'opacity-60 transition-opacity' : 'transition-opacity'}>
           <figure className="overflow-x-auto" data-testid="downtime-heatmap">
             <Suspense fallback={<Spinner label="Drawing the heat map" />}>
-              <DowntimeHeatmap rows={rows} label="Expected weather downtime by month, percent of hours, for each operation at each worksite" />
+              <DowntimeHeatmap
+                rows={rows}
+                label="Expected weather downtime by month, percent of hours, for each operation at each worksite"
+              />
             </Suspense>
-            <figcaption className="mt-1 text-xs text-ink-soft">Numbers in the cells: downtime in % of the month’s hours with data. Grey: no data.</figcaption>
+            <figcaption className="mt-1 text-xs text-ink-soft">
+              Numbers in the cells: downtime in % of the month’s hours with data. Grey: no data.
+            </figcaption>
           </figure>
           <MonthlyTable entries={entries} />
         </div>
@@ -129,7 +176,12 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
               <label className="text-sm text-ink-soft" htmlFor="year-pair">
                 Downtime (%) of one operation at one worksite in every hindcast year
               </label>
-              <Select id="year-pair" className="no-print max-w-md" value={String(Math.min(pick, entries!.length - 1))} onChange={(e) => setPick(Number(e.target.value))}>
+              <Select
+                id="year-pair"
+                className="no-print max-w-md"
+                value={String(Math.min(pick, entries!.length - 1))}
+                onChange={(e) => setPick(Number(e.target.value))}
+              >
                 {entries!.map((e, i) => (
                   <option key={`${e.operationId}-${e.siteId}`} value={i}>
                     {pairLabel(e)}
@@ -144,7 +196,11 @@ export function WorkabilitySection({ entries, isFetching, error, alpha, datasetN
           </div>
           <figure className="overflow-x-auto" data-testid="downtime-by-year">
             <Suspense fallback={<Spinner label="Drawing the heat map" />}>
-              <DowntimeHeatmap rows={yearRows} labelWidth={64} label={`Weather downtime by year and month, percent of hours, ${pairLabel(chosen)}`} />
+              <DowntimeHeatmap
+                rows={yearRows}
+                labelWidth={64}
+                label={`Weather downtime by year and month, percent of hours, ${pairLabel(chosen)}`}
+              />
             </Suspense>
           </figure>
           <YearTable entry={chosen} />
@@ -169,7 +225,8 @@ const FEW_STARTS_SHARE = 0.25;
 function thinNote(m: WorkabilityCalendarMonth): string | null {
   const notes: string[] = [];
   if (m.years > 0 && m.years < FEW_YEARS) notes.push(`only ${m.years} year${m.years === 1 ? '' : 's'}`);
-  if (m.wowMeanHours !== null && m.recordsWithData > 0 && wowStarts(m) < FEW_STARTS_SHARE * m.recordsWithData) notes.push('WoW from few hours');
+  if (m.wowMeanHours !== null && m.recordsWithData > 0 && wowStarts(m) < FEW_STARTS_SHARE * m.recordsWithData)
+    notes.push('WoW from few hours');
   return notes.length > 0 ? `Thin: ${notes.join(', ')}` : null;
 }
 
@@ -178,7 +235,9 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
   return (
     <div className="mt-4 max-h-[36rem] overflow-auto rounded-lg border border-line print:max-h-none print:overflow-visible">
       <table className="w-full min-w-[52rem] text-sm" data-testid="workability-table">
-        <caption className="sr-only">Expected weather downtime and workability statistics by month for each operation at each worksite</caption>
+        <caption className="sr-only">
+          Expected weather downtime and workability statistics by month for each operation at each worksite
+        </caption>
         <thead>
           <tr>
             <th scope="col" className={`${th} text-left`}>
@@ -257,7 +316,9 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
 function YearTable({ entry }: { entry: WorkabilityEntry }) {
   return (
     <details className="rounded-lg border border-line print:hidden">
-      <summary className="flex min-h-11 cursor-pointer items-center px-3 text-sm font-semibold">Year-by-year table ({entry.yearMonths.length} months)</summary>
+      <summary className="flex min-h-11 cursor-pointer items-center px-3 text-sm font-semibold">
+        Year-by-year table ({entry.yearMonths.length} months)
+      </summary>
       <div className="max-h-[28rem] overflow-auto">
         <table className="w-full min-w-[44rem] text-sm">
           <caption className="sr-only">Weather downtime by year and month, {pairLabel(entry)}</caption>

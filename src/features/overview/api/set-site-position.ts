@@ -10,7 +10,8 @@ export const setSitePosition = (projectId: string, siteId: string, latitude: num
 export function useSetSitePosition(projectId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ siteId, latitude, longitude }: { siteId: string; latitude: number; longitude: number }) => setSitePosition(projectId, siteId, latitude, longitude),
+    mutationFn: ({ siteId, latitude, longitude }: { siteId: string; latitude: number; longitude: number }) =>
+      setSitePosition(projectId, siteId, latitude, longitude),
     // Positions feed the worksite list and the map; the whole project subtree is marked stale.
     onSuccess: () => qc.invalidateQueries({ queryKey: projectQueryOptions(projectId).queryKey }),
   });

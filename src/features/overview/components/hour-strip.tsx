@@ -21,9 +21,18 @@ export function HourStrip({ times, status, timeZone }: { times: string[]; status
     .join(', ');
   return (
     <figure className="min-w-0">
-      <div role="img" aria-label={`Next ${times.length} hours: ${summary}`} className="flex h-5 w-full overflow-hidden rounded" data-testid="hour-strip">
+      <div
+        role="img"
+        aria-label={`Next ${times.length} hours: ${summary}`}
+        className="flex h-5 w-full overflow-hidden rounded"
+        data-testid="hour-strip"
+      >
         {status.map((s, i) => (
-          <span key={times[i]} className={`h-full min-w-0 flex-1 ${STRIP[s].cell}`} title={`${formatInstant(times[i], timeZone, 'dateTime')}: ${STRIP[s].word}`} />
+          <span
+            key={times[i]}
+            className={`h-full min-w-0 flex-1 ${STRIP[s].cell}`}
+            title={`${formatInstant(times[i], timeZone, 'dateTime')}: ${STRIP[s].word}`}
+          />
         ))}
       </div>
       <figcaption className="mt-1 flex justify-between text-xs text-ink-soft">

@@ -8,7 +8,15 @@ import { formatPosition } from '../../../lib/format';
 import { useSetSitePosition } from '../api/set-site-position';
 
 /** The project's map on the Overview; coordinators choose a worksite and click to set its position. */
-export function OverviewMap({ project, waveDirection, canEdit }: { project: ProjectDetail; waveDirection: number | null; canEdit: boolean }) {
+export function OverviewMap({
+  project,
+  waveDirection,
+  canEdit,
+}: {
+  project: ProjectDetail;
+  waveDirection: number | null;
+  canEdit: boolean;
+}) {
   const sites = useSites(project.id);
   const style = useMapStyle();
   const [placing, setPlacing] = useState('');
@@ -16,7 +24,9 @@ export function OverviewMap({ project, waveDirection, canEdit }: { project: Proj
   const placed = useMemo<MapSite[]>(
     () =>
       (sites.data ?? []).flatMap((s) =>
-        s.latitude !== null && s.longitude !== null ? [{ id: s.id, name: s.name, latitude: s.latitude, longitude: s.longitude, shoreNormal: s.shoreNormal }] : [],
+        s.latitude !== null && s.longitude !== null
+          ? [{ id: s.id, name: s.name, latitude: s.latitude, longitude: s.longitude, shoreNormal: s.shoreNormal }]
+          : [],
       ),
     [sites.data],
   );
@@ -36,8 +46,8 @@ export function OverviewMap({ project, waveDirection, canEdit }: { project: Proj
         Map
       </h2>
       <p className="mb-3 text-sm text-ink-soft">
-        Worksites with their shore-normal arrows (teal); the offshore data point with the current forecast’s mean wave direction (red arrow: the way
-        the waves travel).
+        Worksites with their shore-normal arrows (teal); the offshore data point with the current forecast’s mean wave direction (red arrow:
+        the way the waves travel).
       </p>
       {canEdit ? (
         <div className="mb-3 flex flex-wrap items-end gap-2">
@@ -72,7 +82,9 @@ export function OverviewMap({ project, waveDirection, canEdit }: { project: Proj
         pickSiteId={placing || null}
         onPick={canEdit && placing ? (latitude, longitude) => save.mutate({ siteId: placing, latitude, longitude }) : undefined}
       />
-      {unplaced.length > 0 ? <p className="mt-2 text-sm text-ink-soft">Without a position, not on the map: {unplaced.map((s) => s.name).join(', ')}.</p> : null}
+      {unplaced.length > 0 ? (
+        <p className="mt-2 text-sm text-ink-soft">Without a position, not on the map: {unplaced.map((s) => s.name).join(', ')}.</p>
+      ) : null}
     </Card>
   );
 }

@@ -73,7 +73,11 @@ function AboutCard({ project: p, o }: { project: ProjectDetail; o: OverviewAnswe
           <dt className="text-ink-soft">Name</dt>
           <dd>{p.dataPointName || 'Not set'}</dd>
           <dt className="text-ink-soft">Position</dt>
-          <dd>{p.dataPointLatitude !== null && p.dataPointLongitude !== null ? formatPosition(p.dataPointLatitude, p.dataPointLongitude) : 'Not set'}</dd>
+          <dd>
+            {p.dataPointLatitude !== null && p.dataPointLongitude !== null
+              ? formatPosition(p.dataPointLatitude, p.dataPointLongitude)
+              : 'Not set'}
+          </dd>
           <dt className="text-ink-soft">Water depth</dt>
           <dd>{p.dataPointDepthM === null ? 'Deep water' : `${p.dataPointDepthM} m`}</dd>
           <dt className="text-ink-soft">Forecasts</dt>
@@ -82,7 +86,8 @@ function AboutCard({ project: p, o }: { project: ProjectDetail; o: OverviewAnswe
             <>
               <dt className="text-ink-soft">Now</dt>
               <dd data-testid="data-point-now">
-                Hs {o.dataPointNow.hs ?? '–'} m, Tp {o.dataPointNow.tp ?? '–'} s, waves from {o.dataPointNow.dir === null ? '–' : `${Math.round(o.dataPointNow.dir)}°`}
+                Hs {o.dataPointNow.hs ?? '–'} m, Tp {o.dataPointNow.tp ?? '–'} s, waves from{' '}
+                {o.dataPointNow.dir === null ? '–' : `${Math.round(o.dataPointNow.dir)}°`}
               </dd>
             </>
           ) : null}
@@ -108,7 +113,9 @@ function ForecastCard({ o, nowMs, zone }: { o: OverviewAnswer; nowMs: number; zo
           No forecast yet: nothing to plan on.
         </p>
       )}
-      <p className="mt-1 text-xs text-ink-soft">{zone ? zoneStatement(zone, 'the worksites’ local time', nowMs) : 'Times are in each worksite’s own zone.'}</p>
+      <p className="mt-1 text-xs text-ink-soft">
+        {zone ? zoneStatement(zone, 'the worksites’ local time', nowMs) : 'Times are in each worksite’s own zone.'}
+      </p>
       <div className="mt-3 text-sm" data-testid="plan-changes">
         {o.lastPlan ? (
           o.lastPlan.changes.length > 0 ? (
@@ -164,16 +171,36 @@ function LinesCard({ o, nowMs }: { o: OverviewAnswer; nowMs: number }) {
 }
 
 /** The skipper's own operations as cards: now, the next go-start, the window, the next 48 h. */
-function MyOperations({ projectId, lines, forecastEnd, nowMs }: { projectId: string; lines: OverviewLine[]; forecastEnd: string | null; nowMs: number }) {
+function MyOperations({
+  projectId,
+  lines,
+  forecastEnd,
+  nowMs,
+}: {
+  projectId: string;
+  lines: OverviewLine[];
+  forecastEnd: string | null;
+  nowMs: number;
+}) {
   return (
     <section aria-labelledby="my-operations-title" className="min-w-0">
       <h2 id="my-operations-title" className="mb-2 text-lg font-bold">
         My operations
       </h2>
-      {lines.length === 0 ? <p className="text-sm text-ink-soft">You are not named skipper on any operation of this project; every operation is listed below.</p> : null}
+      {lines.length === 0 ? (
+        <p className="text-sm text-ink-soft">
+          You are not named skipper on any operation of this project; every operation is listed below.
+        </p>
+      ) : null}
       <ul className="grid gap-3 sm:grid-cols-2">
         {lines.map((l) => (
-          <li key={lineKey(l)} className="min-w-0" data-testid="my-operation-card" data-operation-id={l.operationId} data-site-id={l.siteId}>
+          <li
+            key={lineKey(l)}
+            className="min-w-0"
+            data-testid="my-operation-card"
+            data-operation-id={l.operationId}
+            data-site-id={l.siteId}
+          >
             <Card className="grid gap-2">
               <h3 className="font-bold break-words">
                 {l.operationName} <span className="font-normal text-ink-soft">at</span> {l.siteName}
@@ -186,7 +213,9 @@ function MyOperations({ projectId, lines, forecastEnd, nowMs }: { projectId: str
                   {startSentence({ ...l, windowHours: null }, nowMs, forecastEnd)}
                 </dd>
                 <dt className="text-ink-soft">Window</dt>
-                <dd data-testid="card-window">{l.windowHours !== null ? hoursWords(l.windowHours) : '–'} (TR {hoursWords(l.tr)})</dd>
+                <dd data-testid="card-window">
+                  {l.windowHours !== null ? hoursWords(l.windowHours) : '–'} (TR {hoursWords(l.tr)})
+                </dd>
               </dl>
               <HourStrip times={l.next.times} status={l.next.status} timeZone={l.timeZone} />
               <Link
@@ -293,8 +322,8 @@ function MonthCard({ month }: { month: NonNullable<OverviewAnswer['month']> }) {
                 {r.operationName} <span className="font-normal text-ink-soft">at</span> {r.siteName}
               </p>
               <p className="text-sm break-words" data-testid="month-words">
-                {plainHours(r.confirmedLostHours)} lost on {r.confirmedDays} confirmed day{r.confirmedDays === 1 ? '' : 's'} of {r.daysOver} so far; expected for
-                the month: P50 {r.expectedP50Hours === null ? '–' : plainHours(r.expectedP50Hours)}, P90{' '}
+                {plainHours(r.confirmedLostHours)} lost on {r.confirmedDays} confirmed day{r.confirmedDays === 1 ? '' : 's'} of {r.daysOver}{' '}
+                so far; expected for the month: P50 {r.expectedP50Hours === null ? '–' : plainHours(r.expectedP50Hours)}, P90{' '}
                 {r.expectedP90Hours === null ? '–' : plainHours(r.expectedP90Hours)}
                 {r.hindcastYears ? ` (${r.hindcastYears} years)` : ''}
                 {verdict}.
@@ -302,8 +331,14 @@ function MonthCard({ month }: { month: NonNullable<OverviewAnswer['month']> }) {
               {r.expectedP90Hours !== null ? (
                 <div className="relative mt-1 h-3 w-full rounded bg-surface-2" aria-hidden>
                   <div className="absolute inset-y-0 left-0 rounded bg-accent" style={{ width: pct(r.confirmedLostHours) }} />
-                  {r.expectedP50Hours !== null ? <div className="absolute inset-y-[-2px] w-0.5 bg-ink" style={{ left: pct(r.expectedP50Hours) }} title="P50" /> : null}
-                  <div className="absolute inset-y-[-2px] w-0.5 bg-danger" style={{ left: `calc(${pct(r.expectedP90Hours)} - 2px)` }} title="P90" />
+                  {r.expectedP50Hours !== null ? (
+                    <div className="absolute inset-y-[-2px] w-0.5 bg-ink" style={{ left: pct(r.expectedP50Hours) }} title="P50" />
+                  ) : null}
+                  <div
+                    className="absolute inset-y-[-2px] w-0.5 bg-danger"
+                    style={{ left: `calc(${pct(r.expectedP90Hours)} - 2px)` }}
+                    title="P90"
+                  />
                 </div>
               ) : null}
             </li>

@@ -32,7 +32,8 @@ export function startSentence(line: OverviewLine, nowMs: number, forecastEnd: st
   if (line.informationOnly) return 'not weather-restricted: statuses for information, no go-start planned';
   const window = line.windowHours !== null ? `, window ${hoursWords(line.windowHours)}` : '';
   if (line.startNow) return `may start now${window}`;
-  if (line.earliestStart) return `next go-start ${startWords(line.earliestStart, line.timeZone, nowMs)} (${aheadWords(Date.parse(line.earliestStart), nowMs)})${window}`;
+  if (line.earliestStart)
+    return `next go-start ${startWords(line.earliestStart, line.timeZone, nowMs)} (${aheadWords(Date.parse(line.earliestStart), nowMs)})${window}`;
   const to = forecastEnd ? ` (to ${formatInstant(forecastEnd, line.timeZone, 'day')})` : '';
   return `no window in this forecast${to}`;
 }

@@ -19,8 +19,7 @@ export function useCreateProject() {
 export function useUpdateProjectSettings(projectId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: ProjectSettingsInput) =>
-      api<ProjectDetail>(`/api/projects/${projectId}/settings`, { method: 'PUT', json: input }),
+    mutationFn: (input: ProjectSettingsInput) => api<ProjectDetail>(`/api/projects/${projectId}/settings`, { method: 'PUT', json: input }),
     onSuccess: (data) => {
       qc.setQueryData(projectQueryOptions(projectId).queryKey, data);
       void qc.invalidateQueries({ queryKey: projectsQueryOptions().queryKey, exact: true });

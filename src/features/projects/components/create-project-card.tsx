@@ -24,8 +24,12 @@ export default function CreateProjectCard({ onDone }: { onDone: () => void }) {
         </FieldShell>
         {create.error ? <ErrorNotice error={create.error} /> : null}
         <div className="flex gap-2">
-          <Button type="submit" disabled={create.isPending}>Create project</Button>
-          <Button variant="ghost" onClick={onDone}>Cancel</Button>
+          <Button type="submit" disabled={create.isPending}>
+            Create project
+          </Button>
+          <Button variant="ghost" onClick={onDone}>
+            Cancel
+          </Button>
         </div>
       </form>
     </Card>

@@ -68,7 +68,11 @@ function SettingsEditor({ project }: { project: ProjectDetail }) {
         <FieldShell label="Project name" htmlFor="name" error={errors.name?.message}>
           <Input id="name" {...form.register('name')} invalid={!!errors.name} />
         </FieldShell>
-        <FieldShell label="Forecast source" htmlFor="forecastSource" hint="The service is polled by the planning job; uploads are files you bring.">
+        <FieldShell
+          label="Forecast source"
+          htmlFor="forecastSource"
+          hint="The service is polled by the planning job; uploads are files you bring."
+        >
           <Select id="forecastSource" {...form.register('forecastSource')}>
             <option value="service">Forecast service</option>
             <option value="uploads">Uploaded files only</option>
@@ -82,20 +86,33 @@ function SettingsEditor({ project }: { project: ProjectDetail }) {
         <FieldShell label="Data point name" htmlFor="dataPointName" error={errors.dataPointName?.message}>
           <Input id="dataPointName" {...form.register('dataPointName')} />
         </FieldShell>
-        <FieldShell label="Water depth at the data point" unit="m" htmlFor="dataPointDepthM" hint="Leave empty for deep water." error={errors.dataPointDepthM?.message}>
+        <FieldShell
+          label="Water depth at the data point"
+          unit="m"
+          htmlFor="dataPointDepthM"
+          hint="Leave empty for deep water."
+          error={errors.dataPointDepthM?.message}
+        >
           <Input id="dataPointDepthM" inputMode="decimal" {...form.register('dataPointDepthM')} invalid={!!errors.dataPointDepthM} />
         </FieldShell>
         <FieldShell label="Latitude" unit="° north, negative south" htmlFor="dataPointLatitude" error={errors.dataPointLatitude?.message}>
           <Input id="dataPointLatitude" inputMode="decimal" {...form.register('dataPointLatitude')} invalid={!!errors.dataPointLatitude} />
         </FieldShell>
         <FieldShell label="Longitude" unit="° east, negative west" htmlFor="dataPointLongitude" error={errors.dataPointLongitude?.message}>
-          <Input id="dataPointLongitude" inputMode="decimal" {...form.register('dataPointLongitude')} invalid={!!errors.dataPointLongitude} />
+          <Input
+            id="dataPointLongitude"
+            inputMode="decimal"
+            {...form.register('dataPointLongitude')}
+            invalid={!!errors.dataPointLongitude}
+          />
         </FieldShell>
         <div className="flex flex-col gap-3 md:col-span-2">
           {update.error ? <ErrorNotice error={update.error} /> : null}
           {update.isSuccess && !form.formState.isDirty ? <Notice tone="success">Settings saved.</Notice> : null}
           <div>
-            <Button type="submit" disabled={update.isPending}>Save settings</Button>
+            <Button type="submit" disabled={update.isPending}>
+              Save settings
+            </Button>
           </div>
         </div>
       </form>

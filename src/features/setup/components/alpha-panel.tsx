@@ -48,20 +48,23 @@ export function AlphaPanel({ projectId, canEdit }: { projectId: string; canEdit:
     <div className="flex flex-col gap-4">
       <div className="flex flex-col gap-2">
         <p className="max-w-3xl text-sm text-ink-soft">
-          Weather-restricted operations (TPOP up to 72 h and TR up to 96 h) are planned on a forecast with the forecast limit OPWF = α·OPLIM on their Hs
-          limits. α comes from the first row whose TPOP bound is not exceeded, interpolated linearly between the Hs columns (the end
-          column outside them). It never applies to Tp, bed velocity or wind limits. An edited table must reach TPOP 72 h (its last row), so no weather-restricted operation is left without α.
+          Weather-restricted operations (TPOP up to 72 h and TR up to 96 h) are planned on a forecast with the forecast limit OPWF = α·OPLIM
+          on their Hs limits. α comes from the first row whose TPOP bound is not exceeded, interpolated linearly between the Hs columns (the
+          end column outside them). It never applies to Tp, bed velocity or wind limits. An edited table must reach TPOP 72 h (its last
+          row), so no weather-restricted operation is left without α.
         </p>
         <div className="flex flex-wrap items-center gap-2">
           {a.isDefault ? (
             <Tag tone="warn">This project uses the default table</Tag>
           ) : (
-            <Tag tone="accent">This project’s own table{a.updatedAt ? `, saved ${formatInstant(a.updatedAt, localTimeZone(), 'dateTimeYear')}` : ''}</Tag>
+            <Tag tone="accent">
+              This project’s own table{a.updatedAt ? `, saved ${formatInstant(a.updatedAt, localTimeZone(), 'dateTimeYear')}` : ''}
+            </Tag>
           )}
         </div>
         <Notice>
-          <span className="font-semibold">Check before relying on it:</span> {a.note} Only the project’s marine warranty surveyor and
-          the current edition of the standard decide the factors that apply.
+          <span className="font-semibold">Check before relying on it:</span> {a.note} Only the project’s marine warranty surveyor and the
+          current edition of the standard decide the factors that apply.
         </Notice>
       </div>
       {done ? <Notice tone="success">{done}</Notice> : null}
@@ -132,7 +135,8 @@ function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: A
   const setValue = (i: number, j: number, text: string) =>
     put({ ...t, values: t.values.map((row, r) => (r === i ? row.map((x, c) => (c === j ? text : x)) : row)) });
   const addRow = () => put({ ...t, tpopBoundsH: [...t.tpopBoundsH, ''], values: [...t.values, t.hsColumnsM.map(() => '')] });
-  const removeRow = (i: number) => put({ ...t, tpopBoundsH: t.tpopBoundsH.filter((_, r) => r !== i), values: t.values.filter((_, r) => r !== i) });
+  const removeRow = (i: number) =>
+    put({ ...t, tpopBoundsH: t.tpopBoundsH.filter((_, r) => r !== i), values: t.values.filter((_, r) => r !== i) });
   const addColumn = () => put({ ...t, hsColumnsM: [...t.hsColumnsM, ''], values: t.values.map((row) => [...row, '']) });
   const removeColumn = (j: number) =>
     put({ ...t, hsColumnsM: t.hsColumnsM.filter((_, c) => c !== j), values: t.values.map((row) => row.filter((_, c) => c !== j)) });
@@ -167,13 +171,28 @@ function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: A
             <caption className="sr-only">Alpha factors by TPOP bound (rows) and Hs limit (columns), editable</caption>
             <thead className="border-b border-line bg-surface-2">
               <tr>
-                <th scope="col" className="sticky left-0 z-10 bg-surface-2 px-3 py-2 text-left align-bottom text-xs font-semibold text-ink-soft">
+                <th
+                  scope="col"
+                  className="sticky left-0 z-10 bg-surface-2 px-3 py-2 text-left align-bottom text-xs font-semibold text-ink-soft"
+                >
                   TPOP up to (h) ↓ · Hs limit (m) →
                 </th>
                 {t.hsColumnsM.map((hs, j) => (
                   <th key={j} scope="col" className="px-1 py-2 align-bottom">
-                    <CellInput label={`Hs column ${j + 1}, m`} value={hs} onValue={(v) => setColumn(j, v)} error={errorAt(errors, `hsColumnsM.${j}`)} className="w-20" />
-                    <Button variant="ghost" className="mt-1 w-full !px-2 text-xs text-ink-soft" onClick={() => removeColumn(j)} disabled={t.hsColumnsM.length <= 1} aria-label={`Remove Hs column ${j + 1}`}>
+                    <CellInput
+                      label={`Hs column ${j + 1}, m`}
+                      value={hs}
+                      onValue={(v) => setColumn(j, v)}
+                      error={errorAt(errors, `hsColumnsM.${j}`)}
+                      className="w-20"
+                    />
+                    <Button
+                      variant="ghost"
+                      className="mt-1 w-full !px-2 text-xs text-ink-soft"
+                      onClick={() => removeColumn(j)}
+                      disabled={t.hsColumnsM.length <= 1}
+                      aria-label={`Remove Hs column ${j + 1}`}
+                    >
                       Remove
                     </Button>
                   </th>
@@ -190,8 +209,21 @@ function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: A
                 <tr key={i} className="border-b border-line last:border-0">
                   <th scope="row" className="sticky left-0 z-10 bg-surface px-2 py-1">
                     <div className="flex items-center gap-1">
-                      <CellInput label={`TPOP row ${i + 1} bound, h`} value={h} onValue={(v) => setBound(i, v)} error={errorAt(errors, `tpopBoundsH.${i}`)} className="w-20" />
-                      <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => removeRow(i)} disabled={t.tpopBoundsH.length <= 1} aria-label={`Remove TPOP row ${i + 1}`} title="Remove this row">
+                      <CellInput
+                        label={`TPOP row ${i + 1} bound, h`}
+                        value={h}
+                        onValue={(v) => setBound(i, v)}
+                        error={errorAt(errors, `tpopBoundsH.${i}`)}
+                        className="w-20"
+                      />
+                      <Button
+                        variant="ghost"
+                        className="!px-2 text-xs text-ink-soft"
+                        onClick={() => removeRow(i)}
+                        disabled={t.tpopBoundsH.length <= 1}
+                        aria-label={`Remove TPOP row ${i + 1}`}
+                        title="Remove this row"
+                      >
                         Remove
                       </Button>
                     </div>

@@ -15,8 +15,7 @@ export interface FieldChange {
   after: unknown;
 }
 
-const isPlainObject = (v: unknown): v is Record<string, unknown> =>
-  typeof v === 'object' && v !== null && !Array.isArray(v);
+const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
 /** Deep equality of JSON values. */
 export function sameJson(a: unknown, b: unknown): boolean {

@@ -105,7 +105,8 @@ export function describeValue(path: string, value: unknown, names: Names): strin
     return value.map((id) => names.sites.find((s) => s.id === id)?.name ?? 'a deleted worksite').join(', ');
   }
   if (path === 'skipperIds' && Array.isArray(value)) return value.length === 0 ? 'none' : `${value.length} assigned`;
-  if (path === 'hindcastDatasetId' && typeof value === 'string') return names.hindcasts.find((d) => d.id === value)?.name ?? 'a dataset not listed';
+  if (path === 'hindcastDatasetId' && typeof value === 'string')
+    return names.hindcasts.find((d) => d.id === value)?.name ?? 'a dataset not listed';
   if (path === 'limits.bedVelocityMethod' && (value === 'linear' || value === 'soulsby')) return BED_VELOCITY_METHOD_LABEL[value];
   if (path === 'limits.hsTpCurve' && isPairs(value)) return value.map(([tp, hs]) => `Tp ${fmt(tp)} s: Hs ${fmt(hs)} m`).join(' · ');
   if (path === 'limits.tpExcluded' && isPairs(value)) return value.map(([a, b]) => range(a, b, 's')).join(', ');
@@ -118,7 +119,8 @@ export function describeValue(path: string, value: unknown, names: Names): strin
     return `${t.tpopBoundsH?.length ?? 0} TPOP rows × ${t.hsColumnsM?.length ?? 0} Hs columns`;
   }
   if (path === 'exportedAt' && typeof value === 'string') return formatInstant(value, localTimeZone(), 'dateTimeYear');
-  if (path === 'alphaTable' && typeof value === 'string') return { set: 'set from the file', default: 'reset to the default', kept: 'kept' }[value] ?? value;
+  if (path === 'alphaTable' && typeof value === 'string')
+    return { set: 'set from the file', default: 'reset to the default', kept: 'kept' }[value] ?? value;
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'number') return FIELD_UNIT[path] ? withUnit(value, FIELD_UNIT[path], 4) : fmt(value, 4);
   if (typeof value === 'string') return value === '' ? '(empty)' : value;
@@ -130,7 +132,8 @@ function alphaCellChanges(before: unknown, after: unknown): string[] | null {
   const b = before as AlphaTable | undefined;
   const a = after as AlphaTable | undefined;
   if (!b?.values || !a?.values) return null;
-  if (JSON.stringify(b.tpopBoundsH) !== JSON.stringify(a.tpopBoundsH) || JSON.stringify(b.hsColumnsM) !== JSON.stringify(a.hsColumnsM)) return null;
+  if (JSON.stringify(b.tpopBoundsH) !== JSON.stringify(a.tpopBoundsH) || JSON.stringify(b.hsColumnsM) !== JSON.stringify(a.hsColumnsM))
+    return null;
   const out: string[] = [];
   a.values.forEach((row, i) =>
     row.forEach((v, j) => {
@@ -154,8 +157,8 @@ export function AuditPanel({ projectId }: { projectId: string }) {
     <div className="flex flex-col gap-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <p className="max-w-2xl text-sm text-ink-soft">
-          Every change to a worksite, an operation’s limits or the alpha table, with who made it and the values before and after. Nobody
-          can change or delete an entry.
+          Every change to a worksite, an operation’s limits or the alpha table, with who made it and the values before and after. Nobody can
+          change or delete an entry.
         </p>
         <div className="w-full sm:w-64">
           <FieldShell label="Show" htmlFor="audit-entity">

@@ -35,7 +35,8 @@ let readCount = 0;
 
 async function readSetupFile(file: File): Promise<ReadFile> {
   const key = `${++readCount}`;
-  if (file.size > MAX_FILE_BYTES) return { key, fileName: file.name, doc: null, problems: [`The file is larger than ${MAX_FILE_BYTES / 1024 / 1024} MB`] };
+  if (file.size > MAX_FILE_BYTES)
+    return { key, fileName: file.name, doc: null, problems: [`The file is larger than ${MAX_FILE_BYTES / 1024 / 1024} MB`] };
   let raw: unknown;
   try {
     raw = JSON.parse(await file.text());
@@ -48,7 +49,9 @@ async function readSetupFile(file: File): Promise<ReadFile> {
     key,
     fileName: file.name,
     doc: null,
-    problems: issuesInWords(parsed.error as z.ZodError, raw, 'The document').slice(0, 50).map(problemSentence),
+    problems: issuesInWords(parsed.error as z.ZodError, raw, 'The document')
+      .slice(0, 50)
+      .map(problemSentence),
   };
 }
 
@@ -59,12 +62,12 @@ function alphaInFile(doc: ProjectSetupDocument): string {
 }
 
 function resultText(r: ImportResultResponse): string {
-  const deleted =
-    r.mode === 'replace' ? ` Deleted first: ${r.worksites.deleted} worksites and ${r.operations.deleted} operations.` : '';
+  const deleted = r.mode === 'replace' ? ` Deleted first: ${r.worksites.deleted} worksites and ${r.operations.deleted} operations.` : '';
   return `Added ${r.worksites.created} worksites and ${r.operations.created} operations.${deleted} ${r.messages.join(' ')}`;
 }
 
-const names = (list: string[], max = 8) => (list.length === 0 ? '' : `: ${list.slice(0, max).join(', ')}${list.length > max ? `, and ${list.length - max} more` : ''}`);
+const names = (list: string[], max = 8) =>
+  list.length === 0 ? '' : `: ${list.slice(0, max).join(', ')}${list.length > max ? `, and ${list.length - max} more` : ''}`;
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 /** Everything replace removes, item by item (only what there is). */
@@ -73,12 +76,19 @@ function removedItems(r: ImportPreviewResponse['removes']): string[] {
   if (r.worksites.length > 0) out.push(`${plural(r.worksites.length, 'worksite')}${names(r.worksites)}`);
   if (r.operations.length > 0) out.push(`${plural(r.operations.length, 'operation')} with their limits${names(r.operations)}`);
   if (r.campaigns.length > 0) out.push(`${plural(r.campaigns.length, 'campaign')}${names(r.campaigns)}`);
-  if (r.recurrences.length > 0) out.push(`the repeat rules of ${plural(r.recurrences.length, 'operation')} (not in setup files)${names(r.recurrences)}`);
+  if (r.recurrences.length > 0)
+    out.push(`the repeat rules of ${plural(r.recurrences.length, 'operation')} (not in setup files)${names(r.recurrences)}`);
   if (r.skipperAssignments > 0) out.push(`${plural(r.skipperAssignments, 'skipper assignment')}`);
-  if (r.hindcastChoices.length > 0) out.push(`the hindcast chosen for ${plural(r.hindcastChoices.length, 'worksite')}${names(r.hindcastChoices)}`);
-  if (r.proposedLedgerDays > 0) out.push(`${plural(r.proposedLedgerDays, 'proposed downtime-ledger day')} (they can be proposed again from the data)`);
-  if (r.confirmedLedgerDays > 0) out.push(`${plural(r.confirmedLedgerDays, 'confirmed downtime-ledger day')}: replace is refused while these exist`);
-  if (r.narrowedSubscriptions > 0) out.push(`${plural(r.narrowedSubscriptions, 'alert subscription')} limited to some operations or worksites would hear of none of the new ones`);
+  if (r.hindcastChoices.length > 0)
+    out.push(`the hindcast chosen for ${plural(r.hindcastChoices.length, 'worksite')}${names(r.hindcastChoices)}`);
+  if (r.proposedLedgerDays > 0)
+    out.push(`${plural(r.proposedLedgerDays, 'proposed downtime-ledger day')} (they can be proposed again from the data)`);
+  if (r.confirmedLedgerDays > 0)
+    out.push(`${plural(r.confirmedLedgerDays, 'confirmed downtime-ledger day')}: replace is refused while these exist`);
+  if (r.narrowedSubscriptions > 0)
+    out.push(
+      `${plural(r.narrowedSubscriptions, 'alert subscription')} limited to some operations or worksites would hear of none of the new ones`,
+    );
   return out;
 }
 
@@ -130,8 +140,8 @@ export function ExchangePanel({ projectId, canEdit }: { projectId: string; canEd
       <Card>
         <h2 className="text-lg font-bold">Export</h2>
         <p className="mt-1 max-w-3xl text-sm text-ink-soft">
-          One JSON document with the worksites, the operations and their limits, and the alpha table, to keep with the contract
-          papers or to start a new contract from this one. Datasets, people and the downtime ledger are not included.
+          One JSON document with the worksites, the operations and their limits, and the alpha table, to keep with the contract papers or to
+          start a new contract from this one. Datasets, people and the downtime ledger are not included.
         </p>
         <a
           href={exportSetupUrl(projectId)}
@@ -164,7 +174,9 @@ function ImportCard({ projectId }: { projectId: string }) {
   const preview = useImportPreview(projectId, run.isSuccess ? null : doc, file?.key ?? '', request);
   const refused = preview.data?.refusal != null;
   const canRun = doc !== null && preview.isSuccess && !refused && (mode === 'merge' || understood) && !run.isPending;
-  const fileHasDataPoint = doc !== null && (doc.project.dataPointName.trim() !== '' || (doc.project.dataPointLatitude != null && doc.project.dataPointLongitude != null));
+  const fileHasDataPoint =
+    doc !== null &&
+    (doc.project.dataPointName.trim() !== '' || (doc.project.dataPointLatitude != null && doc.project.dataPointLongitude != null));
 
   return (
     <Card>
@@ -208,7 +220,8 @@ function ImportCard({ projectId }: { projectId: string }) {
         {doc ? (
           <div className="rounded-lg border border-line bg-surface-2 p-3 text-sm">
             <p>
-              <span className="font-semibold">“{doc.project.name}”</span>, exported {formatInstant(doc.exportedAt, localTimeZone(), 'dateTimeYear')}:
+              <span className="font-semibold">“{doc.project.name}”</span>, exported{' '}
+              {formatInstant(doc.exportedAt, localTimeZone(), 'dateTimeYear')}:
             </p>
             <ul className="mt-1 list-disc pl-5">
               <li>
@@ -304,10 +317,17 @@ function ImportCard({ projectId }: { projectId: string }) {
 
         {mode === 'replace' && !refused ? (
           <Notice tone="error">
-            <p className="font-semibold">Replacing deletes this project’s worksites and operations, and everything listed above with them.</p>
+            <p className="font-semibold">
+              Replacing deletes this project’s worksites and operations, and everything listed above with them.
+            </p>
             <p className="mt-1">The watch board and statistics change at once. Download the current setup first if you may want it back.</p>
             <label className="mt-2 flex min-h-11 items-center gap-3 font-semibold">
-              <input type="checkbox" className="size-5 accent-[var(--color-danger)]" checked={understood} onChange={(e) => setUnderstood(e.target.checked)} />
+              <input
+                type="checkbox"
+                className="size-5 accent-[var(--color-danger)]"
+                checked={understood}
+                onChange={(e) => setUnderstood(e.target.checked)}
+              />
               I understand: replace the whole setup
             </label>
           </Notice>
@@ -317,7 +337,11 @@ function ImportCard({ projectId }: { projectId: string }) {
         {run.data ? <Notice tone="success">{resultText(run.data)}</Notice> : null}
 
         <div>
-          <Button variant={mode === 'replace' ? 'danger' : 'primary'} disabled={!canRun} onClick={() => doc && run.mutate({ doc, request })}>
+          <Button
+            variant={mode === 'replace' ? 'danger' : 'primary'}
+            disabled={!canRun}
+            onClick={() => doc && run.mutate({ doc, request })}
+          >
             {run.isPending ? 'Importing…' : mode === 'replace' ? 'Replace the setup' : 'Import and add'}
           </Button>
         </div>

@@ -81,7 +81,9 @@ export function Tag({ children, tone = 'plain' }: { children: ReactNode; tone?: 
     accent: 'border-accent/40 bg-ok-soft text-ink',
     warn: 'border-st-marginal/60 bg-st-marginal/15 text-ink',
   };
-  return <span className={`inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-semibold ${tones[tone]}`}>{children}</span>;
+  return (
+    <span className={`inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-semibold ${tones[tone]}`}>{children}</span>
+  );
 }
 
 /**
@@ -104,7 +106,11 @@ export function ConfirmBox({
   error?: unknown;
 }) {
   return (
-    <div role="group" aria-label={`Confirm deleting ${what}`} className="flex flex-col gap-2 rounded-lg border border-danger bg-danger-soft p-3 text-sm text-ink">
+    <div
+      role="group"
+      aria-label={`Confirm deleting ${what}`}
+      className="flex flex-col gap-2 rounded-lg border border-danger bg-danger-soft p-3 text-sm text-ink"
+    >
       <p>
         <span className="font-semibold">Delete {what}?</span> {consequence}
       </p>
@@ -126,7 +132,19 @@ export function ConfirmBox({
 }
 
 /** A titled group inside a form with an optional line of explanation and a group-level error. */
-export function FormSection({ id, title, hint, children, error }: { id: string; title: string; hint?: ReactNode; children: ReactNode; error?: string }) {
+export function FormSection({
+  id,
+  title,
+  hint,
+  children,
+  error,
+}: {
+  id: string;
+  title: string;
+  hint?: ReactNode;
+  children: ReactNode;
+  error?: string;
+}) {
   return (
     <section role="group" aria-labelledby={`${id}-title`} className="flex min-w-0 flex-col gap-3 border-t border-line pt-4">
       <div>

@@ -26,7 +26,9 @@ export function CurveEditor({
     return (
       <div className="flex flex-col gap-1">
         <span className="text-sm font-semibold">Hs–Tp limit curve</span>
-        <p className="text-xs text-ink-soft">Hs max that changes with the peak period, e.g. from a vessel’s motion analysis. No-go outside its Tp range.</p>
+        <p className="text-xs text-ink-soft">
+          Hs max that changes with the peak period, e.g. from a vessel’s motion analysis. No-go outside its Tp range.
+        </p>
         <div>
           <Button
             variant="secondary"
@@ -75,13 +77,31 @@ export function CurveEditor({
             <tr key={i}>
               <td className="py-1 text-ink-soft tabular-nums">{i + 1}</td>
               <td className="py-1 pr-2">
-                <CellInput label={`Curve point ${i + 1} Tp, s`} value={p[0]} onValue={(t) => set(i, 0, t)} error={errorOf(`.${i}.0`)} className="!w-full" />
+                <CellInput
+                  label={`Curve point ${i + 1} Tp, s`}
+                  value={p[0]}
+                  onValue={(t) => set(i, 0, t)}
+                  error={errorOf(`.${i}.0`)}
+                  className="!w-full"
+                />
               </td>
               <td className="py-1 pr-2">
-                <CellInput label={`Curve point ${i + 1} Hs max, m`} value={p[1]} onValue={(t) => set(i, 1, t)} error={errorOf(`.${i}.1`)} className="!w-full" />
+                <CellInput
+                  label={`Curve point ${i + 1} Hs max, m`}
+                  value={p[1]}
+                  onValue={(t) => set(i, 1, t)}
+                  error={errorOf(`.${i}.1`)}
+                  className="!w-full"
+                />
               </td>
               <td className="py-1">
-                <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => onChange(curve.filter((_, r) => r !== i))} aria-label={`Remove curve point ${i + 1}`} title="Remove this point">
+                <Button
+                  variant="ghost"
+                  className="!px-2 text-xs text-ink-soft"
+                  onClick={() => onChange(curve.filter((_, r) => r !== i))}
+                  aria-label={`Remove curve point ${i + 1}`}
+                  title="Remove this point"
+                >
                   Remove
                 </Button>
               </td>

@@ -48,7 +48,8 @@ function curveAt(curve: [number, number][], tp: number): number {
 export function hsLimitAt(l: EnvelopeLimits, tp: number): { hs: number | null; reason?: string } {
   if (finite(l.tpMin) && tp < l.tpMin) return { hs: null, reason: 'below Tp min' };
   if (finite(l.tpMax) && tp > l.tpMax) return { hs: null, reason: 'above Tp max' };
-  for (const [a, b] of l.bands) if (Number.isFinite(a) && Number.isFinite(b) && a <= tp && tp <= b) return { hs: null, reason: 'excluded band' };
+  for (const [a, b] of l.bands)
+    if (Number.isFinite(a) && Number.isFinite(b) && a <= tp && tp <= b) return { hs: null, reason: 'excluded band' };
   const curve = usableCurve(l.curve);
   let hs = finite(l.hsMax) ? l.hsMax : Infinity;
   if (curve) {

@@ -90,14 +90,28 @@ export function HsTpPlot({ limits, alphaAt }: { limits: EnvelopeLimits; alphaAt:
         <text x={(PAD.left + W - PAD.right) / 2} y={H - 6} textAnchor="middle" fontSize="13" fill="currentColor">
           Tp (s)
         </text>
-        <text x={12} y={(PAD.top + H - PAD.bottom) / 2} textAnchor="middle" fontSize="12" fill="currentColor" transform={`rotate(-90 12 ${(PAD.top + H - PAD.bottom) / 2})`}>
+        <text
+          x={12}
+          y={(PAD.top + H - PAD.bottom) / 2}
+          textAnchor="middle"
+          fontSize="12"
+          fill="currentColor"
+          transform={`rotate(-90 12 ${(PAD.top + H - PAD.bottom) / 2})`}
+        >
           Hs (m)
         </text>
 
         {/* no-go zones and the workable area */}
         {pieces.map((p, i) =>
           p.kind === 'nogo' ? (
-            <rect key={i} x={sx(p.fromS)} y={PAD.top} width={Math.max(0, sx(p.toS) - sx(p.fromS))} height={H - PAD.top - PAD.bottom} fill={`url(#${id}-hatch)`}>
+            <rect
+              key={i}
+              x={sx(p.fromS)}
+              y={PAD.top}
+              width={Math.max(0, sx(p.toS) - sx(p.fromS))}
+              height={H - PAD.top - PAD.bottom}
+              fill={`url(#${id}-hatch)`}
+            >
               <title>
                 No-go at Tp {fmt(p.fromS)}–{fmt(p.toS)} s ({p.reason})
               </title>
@@ -120,7 +134,15 @@ export function HsTpPlot({ limits, alphaAt }: { limits: EnvelopeLimits; alphaAt:
         )}
         {pieces.map((p, i) =>
           p.kind === 'limit' && Number.isFinite(p.hsFromM) && Number.isFinite(p.hsToM) ? (
-            <line key={`l${i}`} x1={sx(p.fromS)} y1={sy(p.hsFromM)} x2={sx(p.toS)} y2={sy(p.hsToM)} stroke="var(--color-accent)" strokeWidth="2.5" />
+            <line
+              key={`l${i}`}
+              x1={sx(p.fromS)}
+              y1={sy(p.hsFromM)}
+              x2={sx(p.toS)}
+              y2={sy(p.hsToM)}
+              stroke="var(--color-accent)"
+              strokeWidth="2.5"
+            />
           ) : null,
         )}
         {curve && hsFinite !== null ? (
@@ -145,14 +167,22 @@ export function HsTpPlot({ limits, alphaAt }: { limits: EnvelopeLimits; alphaAt:
         <line x1={PAD.left} x2={PAD.left} y1={PAD.top} y2={H - PAD.bottom} stroke="currentColor" strokeOpacity="0.5" />
         <line x1={PAD.left} x2={W - PAD.right} y1={H - PAD.bottom} y2={H - PAD.bottom} stroke="currentColor" strokeOpacity="0.5" />
         {!hasSomething ? (
-          <text x={(PAD.left + W - PAD.right) / 2} y={(PAD.top + H - PAD.bottom) / 2} textAnchor="middle" fontSize="13" fill="currentColor" opacity="0.7">
+          <text
+            x={(PAD.left + W - PAD.right) / 2}
+            y={(PAD.top + H - PAD.bottom) / 2}
+            textAnchor="middle"
+            fontSize="13"
+            fill="currentColor"
+            opacity="0.7"
+          >
             No Hs or Tp limit to draw yet
           </text>
         ) : null}
       </svg>
       <figcaption id={described} className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">
         <span className="inline-flex items-center gap-1.5">
-          <span className="inline-block h-3 w-4 rounded-sm bg-st-workable/30 ring-1 ring-accent" aria-hidden /> workable at the limit (OPLIM)
+          <span className="inline-block h-3 w-4 rounded-sm bg-st-workable/30 ring-1 ring-accent" aria-hidden /> workable at the limit
+          (OPLIM)
         </span>
         <span className="inline-flex items-center gap-1.5">
           <span className="inline-block h-3 w-4 rounded-sm pattern-notworkable bg-st-notworkable/25" aria-hidden /> no-go Tp

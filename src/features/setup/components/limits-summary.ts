@@ -29,17 +29,24 @@ export function describeLimits(limits: OperationLimits): string[] {
   else if (limits.tpMax != null) out.push(`Tp ≤ ${withUnit(limits.tpMax, 's')}`);
   for (const [from, to] of limits.tpExcluded ?? []) out.push(`Tp not in ${range(from, to, 's')}`);
   if (limits.bedVelocityMax != null) {
-    out.push(`bed velocity ≤ ${withUnit(limits.bedVelocityMax, 'm/s')} (${BED_VELOCITY_METHOD_LABEL[limits.bedVelocityMethod ?? 'linear']})`);
+    out.push(
+      `bed velocity ≤ ${withUnit(limits.bedVelocityMax, 'm/s')} (${BED_VELOCITY_METHOD_LABEL[limits.bedVelocityMethod ?? 'linear']})`,
+    );
   }
   if (limits.windMax != null) out.push(`wind ≤ ${withUnit(limits.windMax, 'm/s')}`);
   // Exact limits of docs/domain.md#tide (alpha never applies).
   if (limits.minDepth != null) {
     const p = limits.minDepthParts;
-    out.push(`depth ≥ ${withUnit(limits.minDepth, 'm')}${p ? ` (draught ${withUnit(p.draught, 'm')} + clearance ${withUnit(p.clearance, 'm')})` : ''}`);
+    out.push(
+      `depth ≥ ${withUnit(limits.minDepth, 'm')}${p ? ` (draught ${withUnit(p.draught, 'm')} + clearance ${withUnit(p.clearance, 'm')})` : ''}`,
+    );
   }
   if (limits.maxDepth != null) out.push(`depth ≤ ${withUnit(limits.maxDepth, 'm')}`);
   if (limits.currentMax != null) out.push(`current ≤ ${withUnit(limits.currentMax, 'm/s')}`);
-  if (limits.tideWindow) out.push(`only ${withUnit(limits.tideWindow.before, 'h')} before to ${withUnit(limits.tideWindow.after, 'h')} after ${limits.tideWindow.reference} water`);
+  if (limits.tideWindow)
+    out.push(
+      `only ${withUnit(limits.tideWindow.before, 'h')} before to ${withUnit(limits.tideWindow.after, 'h')} after ${limits.tideWindow.reference} water`,
+    );
   return out;
 }
 

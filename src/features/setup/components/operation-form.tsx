@@ -65,7 +65,10 @@ function limitsFromText(l: LimitsText): OperationLimits {
     minDepthParts: parts,
     maxDepth: numberOrNull(l.maxDepth),
     currentMax: numberOrNull(l.currentMax),
-    tideWindow: l.tideReference === 'none' ? null : { reference: l.tideReference, before: numberFromText(l.tideBefore), after: numberFromText(l.tideAfter) },
+    tideWindow:
+      l.tideReference === 'none'
+        ? null
+        : { reference: l.tideReference, before: numberFromText(l.tideBefore), after: numberFromText(l.tideAfter) },
     hsMax: numberOrNull(l.hsMax),
     hsTpCurve: l.hsTpCurve.length > 0 ? l.hsTpCurve.map(pairNumbers) : null,
     tpMin: numberOrNull(l.tpMin),
@@ -82,18 +85,16 @@ function limitsFromText(l: LimitsText): OperationLimits {
  * `operationLimitsSchema`, TPOP ≤ 72 h and TR ≤ 96 h for weather-restricted operations): the server's checks and
  * words, on the same field paths.
  */
-const OperationFormSchema = OperationText.transform(
-  (v): OperationFormValues => ({
-    name: v.name,
-    description: v.description,
-    tpop: numberFromText(v.tpop),
-    tc: numberFromText(v.tc),
-    weatherRestricted: v.weatherRestricted,
-    siteIds: v.siteIds,
-    skipperIds: v.skipperIds,
-    limits: limitsFromText(v.limits),
-  }),
-).pipe(OperationInput);
+const OperationFormSchema = OperationText.transform((v): OperationFormValues => ({
+  name: v.name,
+  description: v.description,
+  tpop: numberFromText(v.tpop),
+  tc: numberFromText(v.tc),
+  weatherRestricted: v.weatherRestricted,
+  siteIds: v.siteIds,
+  skipperIds: v.skipperIds,
+  limits: limitsFromText(v.limits),
+})).pipe(OperationInput);
 
 const pairText2 = ([a, b]: [number, number]): [string, string] => [textFromNumber(a), textFromNumber(b)];
 
@@ -187,7 +188,13 @@ export function OperationForm({
   const trKnown = Number.isFinite(tr);
   const liveLimits = limitsFromText(limitsText);
   const alphaApplies =
-    weatherRestricted && trKnown && tpop >= 0 && tr >= 0 && tpop <= WEATHER_RESTRICTED_MAX_TPOP_H && tr <= WEATHER_RESTRICTED_MAX_TR_H && alphaTable !== undefined;
+    weatherRestricted &&
+    trKnown &&
+    tpop >= 0 &&
+    tr >= 0 &&
+    tpop <= WEATHER_RESTRICTED_MAX_TPOP_H &&
+    tr <= WEATHER_RESTRICTED_MAX_TR_H &&
+    alphaTable !== undefined;
   const alphaAt = alphaApplies
     ? (hsM: number) => {
         try {
@@ -208,7 +215,12 @@ export function OperationForm({
         <FieldShell label="Name" htmlFor={f('name')} error={withSubject('Name', errors.name?.message)}>
           <Input id={f('name')} autoComplete="off" {...form.register('name')} invalid={!!errors.name} />
         </FieldShell>
-        <FieldShell label="Description" htmlFor={f('desc')} error={withSubject('Description', errors.description?.message)} hint="Optional: vessel, method, what limits it.">
+        <FieldShell
+          label="Description"
+          htmlFor={f('desc')}
+          error={withSubject('Description', errors.description?.message)}
+          hint="Optional: vessel, method, what limits it."
+        >
           <TextArea id={f('desc')} rows={2} {...form.register('description')} invalid={!!errors.description} />
         </FieldShell>
       </div>
@@ -237,14 +249,22 @@ export function OperationForm({
             <span className="text-sm font-semibold">
               Reference period TR <span className="font-normal text-ink-soft">(h)</span>
             </span>
-            <output htmlFor={`${f('tpop')} ${f('tc')}`} className="flex min-h-11 items-center rounded-lg border border-dashed border-line bg-surface-2 px-3 text-base tabular-nums" aria-live="polite">
+            <output
+              htmlFor={`${f('tpop')} ${f('tc')}`}
+              className="flex min-h-11 items-center rounded-lg border border-dashed border-line bg-surface-2 px-3 text-base tabular-nums"
+              aria-live="polite"
+            >
               {trKnown ? `${fmt(tpop)} + ${fmt(tc)} = ${fmt(tr)} h` : 'TPOP + TC'}
             </output>
             <p className="text-xs text-ink-soft">A go-start needs TR of workable weather in a row.</p>
           </div>
         </div>
         {Number.isFinite(tc) && tc === 0 ? (
-          <p role="status" className="rounded-lg border border-st-marginal bg-surface-2 px-3 py-2 text-sm font-semibold" data-testid="tc-zero-warning">
+          <p
+            role="status"
+            className="rounded-lg border border-st-marginal bg-surface-2 px-3 py-2 text-sm font-semibold"
+            data-testid="tc-zero-warning"
+          >
             Warning: TC is 0 h, no contingency. Any delay or error in TPOP runs the operation past the forecast window it was started in.
           </p>
         ) : null}
@@ -259,11 +279,11 @@ export function OperationForm({
             </p>
           ) : null}
           <p className="text-xs text-ink-soft">
-            Planned on a weather forecast, so the Hs limits are reduced to the forecast limit OPWF = α·OPLIM, α from the project’s
-            alpha table by TPOP and Hs limit. Only for TPOP up to {WEATHER_RESTRICTED_MAX_TPOP_H} h and TR up to{' '}
-            {WEATHER_RESTRICTED_MAX_TR_H} h (DNV-ST-N001, from memory). An operation that is not weather-restricted is designed for
-            statistical extremes or split into sub-operations with safe points: the watch board shows its hours against OPLIM for
-            information only, never a go-start, window or “may start now”.
+            Planned on a weather forecast, so the Hs limits are reduced to the forecast limit OPWF = α·OPLIM, α from the project’s alpha
+            table by TPOP and Hs limit. Only for TPOP up to {WEATHER_RESTRICTED_MAX_TPOP_H} h and TR up to {WEATHER_RESTRICTED_MAX_TR_H} h
+            (DNV-ST-N001, from memory). An operation that is not weather-restricted is designed for statistical extremes or split into
+            sub-operations with safe points: the watch board shows its hours against OPLIM for information only, never a go-start, window or
+            “may start now”.
           </p>
           {weatherRestricted && Number.isFinite(tpop) && tpop > WEATHER_RESTRICTED_MAX_TPOP_H ? (
             <p className="text-sm font-semibold text-danger">
@@ -318,7 +338,9 @@ export function OperationForm({
         error={err('skipperIds')}
       >
         {skippers.length === 0 ? (
-          <p className="text-sm text-ink-soft">No skippers in this project yet: an administrator adds people on the People &amp; access page.</p>
+          <p className="text-sm text-ink-soft">
+            No skippers in this project yet: an administrator adds people on the People &amp; access page.
+          </p>
         ) : (
           <div className="grid gap-x-4 sm:grid-cols-2">
             {skippers.map((m) => (
@@ -344,7 +366,13 @@ export function OperationForm({
       >
         <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
           <div className="flex min-w-0 flex-col gap-4">
-            <FieldShell label="Hs max" unit="m" htmlFor={f('hsmax')} error={err('limits.hsMax')} hint={`Significant wave height at the worksite, ${rangeHint(R.hsM, 'm')}.`}>
+            <FieldShell
+              label="Hs max"
+              unit="m"
+              htmlFor={f('hsmax')}
+              error={err('limits.hsMax')}
+              hint={`Significant wave height at the worksite, ${rangeHint(R.hsM, 'm')}.`}
+            >
               <Input id={f('hsmax')} inputMode="decimal" {...form.register('limits.hsMax')} invalid={!!err('limits.hsMax')} />
             </FieldShell>
             <CurveEditor
@@ -365,14 +393,30 @@ export function OperationForm({
           />
         </div>
         <div className="grid gap-4 sm:grid-cols-2">
-          <FieldShell label="Tp min" unit="s" htmlFor={f('tpmin')} error={err('limits.tpMin')} hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}>
+          <FieldShell
+            label="Tp min"
+            unit="s"
+            htmlFor={f('tpmin')}
+            error={err('limits.tpMin')}
+            hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}
+          >
             <Input id={f('tpmin')} inputMode="decimal" {...form.register('limits.tpMin')} invalid={!!err('limits.tpMin')} />
           </FieldShell>
-          <FieldShell label="Tp max" unit="s" htmlFor={f('tpmax')} error={err('limits.tpMax')} hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}>
+          <FieldShell
+            label="Tp max"
+            unit="s"
+            htmlFor={f('tpmax')}
+            error={err('limits.tpMax')}
+            hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}
+          >
             <Input id={f('tpmax')} inputMode="decimal" {...form.register('limits.tpMax')} invalid={!!err('limits.tpMax')} />
           </FieldShell>
         </div>
-        <BandsEditor bands={limitsText.tpExcluded} onChange={(next) => setLimitList('tpExcluded', next)} errorOf={(p) => err(`limits.tpExcluded${p}`)} />
+        <BandsEditor
+          bands={limitsText.tpExcluded}
+          onChange={(next) => setLimitList('tpExcluded', next)}
+          errorOf={(p) => err(`limits.tpExcluded${p}`)}
+        />
         <div className="grid gap-4 sm:grid-cols-3">
           <FieldShell
             label="Near-bed orbital velocity max"
@@ -397,7 +441,13 @@ export function OperationForm({
               ))}
             </Select>
           </FieldShell>
-          <FieldShell label="Wind max" unit="m/s" htmlFor={f('wind')} error={err('limits.windMax')} hint={`Mean wind speed at 10 m, ${rangeHint(R.windMps, 'm/s')}.`}>
+          <FieldShell
+            label="Wind max"
+            unit="m/s"
+            htmlFor={f('wind')}
+            error={err('limits.windMax')}
+            hint={`Mean wind speed at 10 m, ${rangeHint(R.windMps, 'm/s')}.`}
+          >
             <Input id={f('wind')} inputMode="decimal" {...form.register('limits.windMax')} invalid={!!err('limits.windMax')} />
           </FieldShell>
         </div>
@@ -409,16 +459,34 @@ export function OperationForm({
         hint="Checked against the still-water depth h = chart depth + water level, the current and the predicted high and low waters of the worksite's tide. Alpha never applies; without a tide a tide window finds no data."
       >
         <div className="grid gap-4 sm:grid-cols-4">
-          <FieldShell label="Draught" unit="m" htmlFor={f('draught')} error={err('limits.minDepthParts.draught') ?? err('limits.minDepth')} hint="Min depth = draught + under-keel clearance.">
+          <FieldShell
+            label="Draught"
+            unit="m"
+            htmlFor={f('draught')}
+            error={err('limits.minDepthParts.draught') ?? err('limits.minDepth')}
+            hint="Min depth = draught + under-keel clearance."
+          >
             <Input id={f('draught')} inputMode="decimal" {...form.register('limits.draught')} invalid={!!err('limits.minDepth')} />
           </FieldShell>
           <FieldShell label="Under-keel clearance" unit="m" htmlFor={f('ukc')} error={err('limits.minDepthParts.clearance')}>
             <Input id={f('ukc')} inputMode="decimal" {...form.register('limits.clearance')} />
           </FieldShell>
-          <FieldShell label="Max depth" unit="m" htmlFor={f('maxdepth')} error={err('limits.maxDepth')} hint={`Still-water depth, ${rangeHint(R.depthM, 'm')}.`}>
+          <FieldShell
+            label="Max depth"
+            unit="m"
+            htmlFor={f('maxdepth')}
+            error={err('limits.maxDepth')}
+            hint={`Still-water depth, ${rangeHint(R.depthM, 'm')}.`}
+          >
             <Input id={f('maxdepth')} inputMode="decimal" {...form.register('limits.maxDepth')} invalid={!!err('limits.maxDepth')} />
           </FieldShell>
-          <FieldShell label="Current max" unit="m/s" htmlFor={f('current')} error={err('limits.currentMax')} hint={`Current speed, ${rangeHint(R.currentMps, 'm/s')}.`}>
+          <FieldShell
+            label="Current max"
+            unit="m/s"
+            htmlFor={f('current')}
+            error={err('limits.currentMax')}
+            hint={`Current speed, ${rangeHint(R.currentMps, 'm/s')}.`}
+          >
             <Input id={f('current')} inputMode="decimal" {...form.register('limits.currentMax')} invalid={!!err('limits.currentMax')} />
           </FieldShell>
         </div>
@@ -430,11 +498,33 @@ export function OperationForm({
               <option value="low">Low water</option>
             </Select>
           </FieldShell>
-          <FieldShell label="Hours before" unit="h" htmlFor={f('tidebefore')} error={err('limits.tideWindow.before')} hint={rangeHint(R.tideWindowH, 'h')}>
-            <Input id={f('tidebefore')} inputMode="decimal" {...form.register('limits.tideBefore')} disabled={limitsText.tideReference === 'none'} />
+          <FieldShell
+            label="Hours before"
+            unit="h"
+            htmlFor={f('tidebefore')}
+            error={err('limits.tideWindow.before')}
+            hint={rangeHint(R.tideWindowH, 'h')}
+          >
+            <Input
+              id={f('tidebefore')}
+              inputMode="decimal"
+              {...form.register('limits.tideBefore')}
+              disabled={limitsText.tideReference === 'none'}
+            />
           </FieldShell>
-          <FieldShell label="Hours after" unit="h" htmlFor={f('tideafter')} error={err('limits.tideWindow.after')} hint={rangeHint(R.tideWindowH, 'h')}>
-            <Input id={f('tideafter')} inputMode="decimal" {...form.register('limits.tideAfter')} disabled={limitsText.tideReference === 'none'} />
+          <FieldShell
+            label="Hours after"
+            unit="h"
+            htmlFor={f('tideafter')}
+            error={err('limits.tideWindow.after')}
+            hint={rangeHint(R.tideWindowH, 'h')}
+          >
+            <Input
+              id={f('tideafter')}
+              inputMode="decimal"
+              {...form.register('limits.tideAfter')}
+              disabled={limitsText.tideReference === 'none'}
+            />
           </FieldShell>
         </div>
       </FormSection>

@@ -209,15 +209,21 @@ function OperationCard({
       </p>
       <dl className="grid grid-cols-3 gap-2 text-center text-sm">
         <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft"><Term k="tpop" /></dt>
+          <dt className="text-xs text-ink-soft">
+            <Term k="tpop" />
+          </dt>
           <dd className="font-semibold tabular-nums">{withUnit(op.tpop, 'h')}</dd>
         </div>
         <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft"><Term k="tc" /></dt>
+          <dt className="text-xs text-ink-soft">
+            <Term k="tc" />
+          </dt>
           <dd className="font-semibold tabular-nums">{withUnit(op.tc, 'h')}</dd>
         </div>
         <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft"><Term k="tr" /> = TPOP + TC</dt>
+          <dt className="text-xs text-ink-soft">
+            <Term k="tr" /> = TPOP + TC
+          </dt>
           <dd className="font-semibold tabular-nums">{withUnit(op.tr, 'h')}</dd>
         </div>
       </dl>

@@ -32,11 +32,29 @@ export function BandsEditor({
           {bands.map((b, i) => (
             <li key={i} className="flex flex-wrap items-center gap-2 text-sm">
               <span className="w-14 text-ink-soft">Band {i + 1}</span>
-              <CellInput label={`Excluded band ${i + 1} from, s`} value={b[0]} onValue={(t) => set(i, 0, t)} error={errorOf(`.${i}.0`) ?? errorOf(`.${i}`)} className="!w-20" />
+              <CellInput
+                label={`Excluded band ${i + 1} from, s`}
+                value={b[0]}
+                onValue={(t) => set(i, 0, t)}
+                error={errorOf(`.${i}.0`) ?? errorOf(`.${i}`)}
+                className="!w-20"
+              />
               <span aria-hidden>–</span>
-              <CellInput label={`Excluded band ${i + 1} to, s`} value={b[1]} onValue={(t) => set(i, 1, t)} error={errorOf(`.${i}.1`) ?? errorOf(`.${i}`)} className="!w-20" />
+              <CellInput
+                label={`Excluded band ${i + 1} to, s`}
+                value={b[1]}
+                onValue={(t) => set(i, 1, t)}
+                error={errorOf(`.${i}.1`) ?? errorOf(`.${i}`)}
+                className="!w-20"
+              />
               <span className="text-ink-soft">s</span>
-              <Button variant="ghost" className="!px-2 text-xs text-ink-soft" onClick={() => onChange(bands.filter((_, r) => r !== i))} aria-label={`Remove excluded band ${i + 1}`} title="Remove this band">
+              <Button
+                variant="ghost"
+                className="!px-2 text-xs text-ink-soft"
+                onClick={() => onChange(bands.filter((_, r) => r !== i))}
+                aria-label={`Remove excluded band ${i + 1}`}
+                title="Remove this band"
+              >
                 Remove
               </Button>
             </li>

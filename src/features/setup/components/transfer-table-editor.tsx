@@ -131,13 +131,18 @@ export function TransferTableEditor({
     push(`Tp band ${j + 1} to`, err(`tpBandsS.${j}.1`));
   });
   factors.forEach((row, i) =>
-    row.forEach((_, j) => push(`Factor at ${sectorLabel(sectors[i] ?? ['', ''])}, ${bandLabel(bands[j] ?? ['', ''])}`, err(`factors.${i}.${j}`))),
+    row.forEach((_, j) =>
+      push(`Factor at ${sectorLabel(sectors[i] ?? ['', ''])}, ${bandLabel(bands[j] ?? ['', ''])}`, err(`factors.${i}.${j}`)),
+    ),
   );
 
   return (
     <div className="flex min-w-0 flex-col gap-3">
       <div className="flex flex-wrap items-center gap-3">
-        <label htmlFor={`${id}-csv`} className="inline-flex min-h-11 cursor-pointer items-center rounded-lg border border-line bg-surface-2 px-4 text-sm font-semibold hover:border-accent">
+        <label
+          htmlFor={`${id}-csv`}
+          className="inline-flex min-h-11 cursor-pointer items-center rounded-lg border border-line bg-surface-2 px-4 text-sm font-semibold hover:border-accent"
+        >
           Read from a CSV file…
         </label>
         <input
@@ -153,9 +158,8 @@ export function TransferTableEditor({
         <details className="text-sm text-ink-soft">
           <summary className="inline-flex min-h-11 cursor-pointer items-center">CSV layout</summary>
           <p className="mt-1">
-            Header <code>sector_from,sector_to</code> then one column per Tp band written from-to in seconds; one row per direction
-            sector (degrees, coming from), the factor for each band. Comma, semicolon or tab; with semicolon or tab a decimal comma
-            is fine.
+            Header <code>sector_from,sector_to</code> then one column per Tp band written from-to in seconds; one row per direction sector
+            (degrees, coming from), the factor for each band. Comma, semicolon or tab; with semicolon or tab a decimal comma is fine.
           </p>
           <pre className="mt-2 overflow-x-auto rounded-md bg-surface-2 p-2 text-xs text-ink">
             {'sector_from,sector_to,0-6,6-10,10-30\n345,15,0.55,0.62,0.70\n15,45,0.50,0.58,0.66'}
@@ -171,7 +175,9 @@ export function TransferTableEditor({
 
       <div className="overflow-x-auto rounded-lg border border-line">
         <table className="text-sm">
-          <caption className="sr-only">Transfer table: Hs at the worksite divided by Hs at the data point, by direction sector and Tp band</caption>
+          <caption className="sr-only">
+            Transfer table: Hs at the worksite divided by Hs at the data point, by direction sector and Tp band
+          </caption>
           <thead className="bg-surface-2">
             <tr>
               <th scope="col" className="px-2 py-2 text-left align-bottom text-xs font-semibold text-ink-soft">
@@ -181,9 +187,21 @@ export function TransferTableEditor({
               {bands.map((b, j) => (
                 <th key={j} scope="col" className="px-1 py-2 align-bottom">
                   <div className="flex items-center gap-1">
-                    <CellInput label={`Tp band ${j + 1} from, s`} value={b[0]} onValue={(t) => setBand(j, 0, t)} error={err(`tpBandsS.${j}.0`)} className="w-16" />
+                    <CellInput
+                      label={`Tp band ${j + 1} from, s`}
+                      value={b[0]}
+                      onValue={(t) => setBand(j, 0, t)}
+                      error={err(`tpBandsS.${j}.0`)}
+                      className="w-16"
+                    />
                     <span aria-hidden>–</span>
-                    <CellInput label={`Tp band ${j + 1} to, s`} value={b[1]} onValue={(t) => setBand(j, 1, t)} error={err(`tpBandsS.${j}.1`)} className="w-16" />
+                    <CellInput
+                      label={`Tp band ${j + 1} to, s`}
+                      value={b[1]}
+                      onValue={(t) => setBand(j, 1, t)}
+                      error={err(`tpBandsS.${j}.1`)}
+                      className="w-16"
+                    />
                   </div>
                   <Button
                     variant="ghost"
@@ -208,9 +226,21 @@ export function TransferTableEditor({
               <tr key={i} className="border-t border-line">
                 <th scope="row" className="px-2 py-1">
                   <div className="flex items-center gap-1">
-                    <CellInput label={`Sector ${i + 1} from, degrees`} value={s[0]} onValue={(t) => setSector(i, 0, t)} error={err(`directionSectorsDeg.${i}.0`)} className="w-16" />
+                    <CellInput
+                      label={`Sector ${i + 1} from, degrees`}
+                      value={s[0]}
+                      onValue={(t) => setSector(i, 0, t)}
+                      error={err(`directionSectorsDeg.${i}.0`)}
+                      className="w-16"
+                    />
                     <span aria-hidden>–</span>
-                    <CellInput label={`Sector ${i + 1} to, degrees`} value={s[1]} onValue={(t) => setSector(i, 1, t)} error={err(`directionSectorsDeg.${i}.1`)} className="w-16" />
+                    <CellInput
+                      label={`Sector ${i + 1} to, degrees`}
+                      value={s[1]}
+                      onValue={(t) => setSector(i, 1, t)}
+                      error={err(`directionSectorsDeg.${i}.1`)}
+                      className="w-16"
+                    />
                     <Button
                       variant="ghost"
                       className="!px-2 text-xs text-ink-soft"
@@ -245,8 +275,8 @@ export function TransferTableEditor({
           + Direction sector
         </Button>
         <p className="text-xs text-ink-soft">
-          Factor = Hs at the worksite ÷ Hs at the data point, 0 to {TRANSFER_FACTOR_MAX}. Sectors and bands include their start and
-          exclude their end; outside the table the nearest one is used. Only the first sector may wrap through north (e.g. 345–15°).
+          Factor = Hs at the worksite ÷ Hs at the data point, 0 to {TRANSFER_FACTOR_MAX}. Sectors and bands include their start and exclude
+          their end; outside the table the nearest one is used. Only the first sector may wrap through north (e.g. 345–15°).
         </p>
       </div>
       <GridErrors messages={messages} />

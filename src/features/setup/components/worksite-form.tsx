@@ -15,7 +15,13 @@ import { LazySiteMap } from '../../../components/map/lazy-site-map';
 import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
 import { COMMON_TIME_ZONES } from './time-zones';
-import { starterTransferTable, TransferTableEditor, transferTableFromText, transferTableToText, type TransferTableText } from './transfer-table-editor';
+import {
+  starterTransferTable,
+  TransferTableEditor,
+  transferTableFromText,
+  transferTableToText,
+  type TransferTableText,
+} from './transfer-table-editor';
 
 const pairText = z.tuple([z.string(), z.string()]);
 
@@ -29,7 +35,9 @@ const WorksiteText = z.object({
   breakerIndex: z.string(),
   timeZone: z.string(),
   hindcastDatasetId: z.string(),
-  transferTable: z.object({ directionSectorsDeg: z.array(pairText), tpBandsS: z.array(pairText), factors: z.array(z.array(z.string())) }).nullable(),
+  transferTable: z
+    .object({ directionSectorsDeg: z.array(pairText), tpBandsS: z.array(pairText), factors: z.array(z.array(z.string())) })
+    .nullable(),
 });
 type WorksiteText = z.infer<typeof WorksiteText>;
 
@@ -37,19 +45,17 @@ type WorksiteText = z.infer<typeof WorksiteText>;
  * Text to the request body, then the shared {@link WorksiteInput} schema: the same checks and
  * messages as the server, on the same field paths.
  */
-const WorksiteFormSchema = WorksiteText.transform(
-  (v): WorksiteFormValues => ({
-    name: v.name,
-    latitude: numberOrNull(v.latitude),
-    longitude: numberOrNull(v.longitude),
-    depth: numberFromText(v.depth),
-    shoreNormal: numberOrNull(v.shoreNormal),
-    breakerIndex: numberFromText(v.breakerIndex),
-    timeZone: v.timeZone,
-    hindcastDatasetId: v.hindcastDatasetId === '' ? null : v.hindcastDatasetId,
-    transferTable: v.transferTable ? transferTableFromText(v.transferTable) : null,
-  }),
-).pipe(WorksiteInput);
+const WorksiteFormSchema = WorksiteText.transform((v): WorksiteFormValues => ({
+  name: v.name,
+  latitude: numberOrNull(v.latitude),
+  longitude: numberOrNull(v.longitude),
+  depth: numberFromText(v.depth),
+  shoreNormal: numberOrNull(v.shoreNormal),
+  breakerIndex: numberFromText(v.breakerIndex),
+  timeZone: v.timeZone,
+  hindcastDatasetId: v.hindcastDatasetId === '' ? null : v.hindcastDatasetId,
+  transferTable: v.transferTable ? transferTableFromText(v.transferTable) : null,
+})).pipe(WorksiteInput);
 
 function initialValues(site: SiteResponse | null, defaultZone: string): WorksiteText {
   return {
@@ -92,7 +98,11 @@ export function WorksiteForm({
   const errors = form.formState.errors;
   const table = useWatch({ control: form.control, name: 'transferTable' }) as TransferTableText | null;
   const [showMap, setShowMap] = useState(false);
-  const [latText, lonText, shoreText] = useWatch({ control: form.control, name: ['latitude', 'longitude', 'shoreNormal'] }) as [string, string, string];
+  const [latText, lonText, shoreText] = useWatch({ control: form.control, name: ['latitude', 'longitude', 'shoreNormal'] }) as [
+    string,
+    string,
+    string,
+  ];
 
   const setTable = (next: TransferTableText | null) =>
     form.setValue('transferTable', next, { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
@@ -119,7 +129,14 @@ export function WorksiteForm({
           error={errors.timeZone?.message}
           hint="IANA name; the worksite's hours, days and months are shown in it, with its daylight-saving rules."
         >
-          <Input id={f('tz')} list={f('tz-list')} autoComplete="off" spellCheck={false} {...form.register('timeZone')} invalid={!!errors.timeZone} />
+          <Input
+            id={f('tz')}
+            list={f('tz-list')}
+            autoComplete="off"
+            spellCheck={false}
+            {...form.register('timeZone')}
+            invalid={!!errors.timeZone}
+          />
           <datalist id={f('tz-list')}>
             {COMMON_TIME_ZONES.map((z) => (
               <option key={z} value={z} />
@@ -210,7 +227,9 @@ export function WorksiteForm({
             type="checkbox"
             className="size-5 accent-[var(--color-accent)]"
             checked={table !== null}
-            onChange={(e) => setTable(e.target.checked ? (site?.transferTable ? transferTableToText(site.transferTable) : starterTransferTable()) : null)}
+            onChange={(e) =>
+              setTable(e.target.checked ? (site?.transferTable ? transferTableToText(site.transferTable) : starterTransferTable()) : null)
+            }
           />
           Use a transfer table for this worksite
         </label>
@@ -246,12 +265,18 @@ function PositionPicker(props: {
   const lon = numberOrNull(props.longitude);
   const beta = numberOrNull(props.shoreNormal);
   const sites = useMemo(
-    () => (lat !== null && lon !== null && Number.isFinite(lat) && Number.isFinite(lon) ? [{ id: props.siteId, name: props.name, latitude: lat, longitude: lon, shoreNormal: beta }] : []),
+    () =>
+      lat !== null && lon !== null && Number.isFinite(lat) && Number.isFinite(lon)
+        ? [{ id: props.siteId, name: props.name, latitude: lat, longitude: lon, shoreNormal: beta }]
+        : [],
     [lat, lon, beta, props.siteId, props.name],
   );
   const p = project.data;
   const dataPoint = useMemo(
-    () => (p && p.dataPointLatitude !== null && p.dataPointLongitude !== null ? { name: p.dataPointName || 'Data point', latitude: p.dataPointLatitude, longitude: p.dataPointLongitude } : null),
+    () =>
+      p && p.dataPointLatitude !== null && p.dataPointLongitude !== null
+        ? { name: p.dataPointName || 'Data point', latitude: p.dataPointLatitude, longitude: p.dataPointLongitude }
+        : null,
     [p],
   );
   return (

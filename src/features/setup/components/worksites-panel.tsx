@@ -133,7 +133,9 @@ export function WorksitesPanel({ projectId, canEdit }: { projectId: string; canE
         <Card>
           <p className="font-semibold">No worksites yet.</p>
           <p className="mt-1 text-sm text-ink-soft">
-            {canEdit ? 'Add the places where the operations happen, with their water depth and time zone.' : 'A marine coordinator adds them.'}
+            {canEdit
+              ? 'Add the places where the operations happen, with their water depth and time zone.'
+              : 'A marine coordinator adds them.'}
           </p>
         </Card>
       ) : (
@@ -151,9 +153,11 @@ export function WorksitesPanel({ projectId, canEdit }: { projectId: string; canE
                   </th>
                   <th className={th}>Time zone</th>
                   <th className={th}>Hindcast</th>
-                  {canEdit ? <th className={th}>
-                    <span className="sr-only">Actions</span>
-                  </th> : null}
+                  {canEdit ? (
+                    <th className={th}>
+                      <span className="sr-only">Actions</span>
+                    </th>
+                  ) : null}
                 </tr>
               </thead>
               <tbody>
@@ -164,9 +168,7 @@ export function WorksitesPanel({ projectId, canEdit }: { projectId: string; canE
                         <span className="font-semibold">{s.name}</span>
                         <TransferTag site={s} />
                         {s.latitude !== null && s.longitude !== null ? (
-                          <span className="block text-xs text-ink-soft">
-                            {position(s.latitude, s.longitude)}
-                          </span>
+                          <span className="block text-xs text-ink-soft">{position(s.latitude, s.longitude)}</span>
                         ) : null}
                       </td>
                       <td className={`${td} text-right tabular-nums whitespace-nowrap`}>{withUnit(s.depth, 'm')}</td>
@@ -211,9 +213,7 @@ export function WorksitesPanel({ projectId, canEdit }: { projectId: string; canE
                     {s.latitude !== null && s.longitude !== null ? (
                       <>
                         <dt className="text-ink-soft">Position</dt>
-                        <dd>
-                          {position(s.latitude, s.longitude)}
-                        </dd>
+                        <dd>{position(s.latitude, s.longitude)}</dd>
                       </>
                     ) : null}
                   </dl>

@@ -26,11 +26,15 @@ export function ModeTabs<M extends string>({
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>) => {
     const i = modes.findIndex((m) => m.id === value);
     const next =
-      e.key === 'ArrowRight' ? (i + 1) % modes.length
-      : e.key === 'ArrowLeft' ? (i - 1 + modes.length) % modes.length
-      : e.key === 'Home' ? 0
-      : e.key === 'End' ? modes.length - 1
-      : -1;
+      e.key === 'ArrowRight'
+        ? (i + 1) % modes.length
+        : e.key === 'ArrowLeft'
+          ? (i - 1 + modes.length) % modes.length
+          : e.key === 'Home'
+            ? 0
+            : e.key === 'End'
+              ? modes.length - 1
+              : -1;
     if (next < 0) return;
     e.preventDefault();
     onChange(modes[next].id);

@@ -145,7 +145,14 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
   const markerText = { fill: soft, fontSize: 11, fontWeight: 600 };
   const markers: CartesianMarkerProps<number>[] = [];
   if (zM !== undefined && zM >= bottom) {
-    markers.push({ axis: 'y', value: zM, legend: `z = ${formatSig(zM)} m`, legendPosition: 'bottom-left', lineStyle: { stroke: markerText.fill, strokeDasharray: '3 3' }, textStyle: markerText });
+    markers.push({
+      axis: 'y',
+      value: zM,
+      legend: `z = ${formatSig(zM)} m`,
+      legendPosition: 'bottom-left',
+      lineStyle: { stroke: markerText.fill, strokeDasharray: '3 3' },
+      textStyle: markerText,
+    });
   }
   const theme = themeFor(dark);
   // Room above still water level for its label, and below the bed for the seabed band.
@@ -170,14 +177,24 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
     enableSlices: 'y' as const,
     sliceTooltip: SliceTooltip,
     markers,
-    axisLeft: { legend: 'z (m)', legendOffset: -46, legendPosition: 'middle' as const, tickValues: ticks, format: (v: number) => formatSig(v, 3) },
+    axisLeft: {
+      legend: 'z (m)',
+      legendOffset: -46,
+      legendPosition: 'middle' as const,
+      tickValues: ticks,
+      format: (v: number) => formatSig(v, 3),
+    },
     gridYValues: ticks,
   };
 
   return (
     <div>
       <div className="grid gap-2 sm:grid-cols-[3fr_2fr]">
-        <figure className="h-80" role="img" aria-label={`Orbital velocity amplitudes u and w from z = ${formatSig(bottom)} m to the surface`}>
+        <figure
+          className="h-80"
+          role="img"
+          aria-label={`Orbital velocity amplitudes u and w from z = ${formatSig(bottom)} m to the surface`}
+        >
           <ResponsiveLine<ProfileSeries>
             {...common}
             data={velocity}
@@ -186,7 +203,13 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
             margin={{ top: 12, right: 16, bottom: 48, left: 56 }}
             xScale={{ type: 'linear', min: 0, max: anyMotion ? 'auto' : 1 }}
             gridXValues={4}
-            axisBottom={{ legend: 'u, w (m/s)', legendOffset: 38, legendPosition: 'middle', tickValues: 4, format: (v: number) => formatSig(v, 3) }}
+            axisBottom={{
+              legend: 'u, w (m/s)',
+              legendOffset: 38,
+              legendPosition: 'middle',
+              tickValues: 4,
+              format: (v: number) => formatSig(v, 3),
+            }}
           />
         </figure>
         <figure className="h-80" role="img" aria-label="Pressure response factor Kp from the bed to the surface">
@@ -198,7 +221,13 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
             margin={{ top: 12, right: 16, bottom: 48, left: 56 }}
             xScale={{ type: 'linear', min: 0, max: 1 }}
             gridXValues={[0, 0.25, 0.5, 0.75, 1]}
-            axisBottom={{ legend: 'Kp (–)', legendOffset: 38, legendPosition: 'middle', tickValues: [0, 0.5, 1], format: (v: number) => formatSig(v, 2) }}
+            axisBottom={{
+              legend: 'Kp (–)',
+              legendOffset: 38,
+              legendPosition: 'middle',
+              tickValues: [0, 0.5, 1],
+              format: (v: number) => formatSig(v, 2),
+            }}
           />
         </figure>
       </div>

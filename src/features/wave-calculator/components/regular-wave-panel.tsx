@@ -21,7 +21,6 @@ export type RegularFields = RawFields<'period' | 'height' | 'depth' | 'z'>;
 /** A 10 s swell, 2 m high, in 10 m of water: the example the handbooks like. */
 export const DEFAULT_REGULAR_FIELDS: RegularFields = { period: '10', height: '2', depth: '10', z: '' };
 
-
 const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
   deep: 'Deep water',
   intermediate: 'Intermediate depth',
@@ -46,9 +45,30 @@ export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; 
           Regular wave inputs
         </h2>
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          <NumberField id="rw-period" label="Wave period T" unit="s" registration={check.register('period')} error={errors.period} hint="0.5 to 30 s" />
-          <NumberField id="rw-height" label="Wave height H" unit="m" registration={check.register('height')} error={errors.height} hint="Crest to trough, 0 to 40 m" />
-          <NumberField id="rw-depth" label="Water depth d" unit="m" registration={check.register('depth')} error={errors.depth} hint="Still-water depth, 0.05 to 6000 m" />
+          <NumberField
+            id="rw-period"
+            label="Wave period T"
+            unit="s"
+            registration={check.register('period')}
+            error={errors.period}
+            hint="0.5 to 30 s"
+          />
+          <NumberField
+            id="rw-height"
+            label="Wave height H"
+            unit="m"
+            registration={check.register('height')}
+            error={errors.height}
+            hint="Crest to trough, 0 to 40 m"
+          />
+          <NumberField
+            id="rw-depth"
+            label="Water depth d"
+            unit="m"
+            registration={check.register('depth')}
+            error={errors.depth}
+            hint="Still-water depth, 0.05 to 6000 m"
+          />
           <NumberField
             id="rw-z"
             label="Elevation z"
@@ -90,8 +110,8 @@ export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; 
               Orbital motion over depth
             </h2>
             <p className="mb-3 text-sm text-ink-soft">
-              Amplitudes of the horizontal and vertical orbital velocity, u(z) and w(z), and the pressure response factor Kp(z), from
-              the bed up to still water level.
+              Amplitudes of the horizontal and vertical orbital velocity, u(z) and w(z), and the pressure response factor Kp(z), from the
+              bed up to still water level.
             </p>
             {profile.data ? (
               <Suspense fallback={<div className="h-80 animate-pulse rounded-lg bg-surface-2" aria-hidden />}>
@@ -134,38 +154,116 @@ function WaveResults({ answer: a }: { answer: RegularWaveAnswer }) {
         items={[
           { id: 'wavelength', label: 'Wavelength', symbol: 'L', value: a.wavelength, unit: 'm' },
           { id: 'celerity', label: 'Celerity (phase speed)', symbol: 'C', value: a.celerity, unit: 'm/s' },
-          { id: 'group-celerity', label: 'Group celerity', symbol: <>C<sub>g</sub></>, value: a.groupCelerity, unit: 'm/s' },
-          { id: 'n', label: 'Group to phase speed', symbol: <>n = C<sub>g</sub>/C</>, value: a.n, unit: '–' },
+          {
+            id: 'group-celerity',
+            label: 'Group celerity',
+            symbol: (
+              <>
+                C<sub>g</sub>
+              </>
+            ),
+            value: a.groupCelerity,
+            unit: 'm/s',
+          },
+          {
+            id: 'n',
+            label: 'Group to phase speed',
+            symbol: (
+              <>
+                n = C<sub>g</sub>/C
+              </>
+            ),
+            value: a.n,
+            unit: '–',
+          },
           { id: 'wave-number', label: 'Wavenumber', symbol: 'k', value: a.waveNumber, unit: 'rad/m' },
         ]}
       />
       <QuantityList
         title="Deep water, same period"
         items={[
-          { id: 'deep-water-wavelength', label: 'Deep-water wavelength', symbol: <>L<sub>0</sub></>, value: a.deepWaterWavelength, unit: 'm' },
-          { id: 'deep-water-celerity', label: 'Deep-water celerity', symbol: <>C<sub>0</sub></>, value: a.deepWaterCelerity, unit: 'm/s' },
+          {
+            id: 'deep-water-wavelength',
+            label: 'Deep-water wavelength',
+            symbol: (
+              <>
+                L<sub>0</sub>
+              </>
+            ),
+            value: a.deepWaterWavelength,
+            unit: 'm',
+          },
+          {
+            id: 'deep-water-celerity',
+            label: 'Deep-water celerity',
+            symbol: (
+              <>
+                C<sub>0</sub>
+              </>
+            ),
+            value: a.deepWaterCelerity,
+            unit: 'm/s',
+          },
           {
             id: 'shoaling-coefficient',
             label: 'Shoaling coefficient',
-            symbol: <>K<sub>s</sub></>,
+            symbol: (
+              <>
+                K<sub>s</sub>
+              </>
+            ),
             value: a.shoalingCoefficient,
             unit: '–',
-            note: <>From deep water: H/H<sub>0</sub> = √(C<sub>g0</sub>/C<sub>g</sub>)</>,
+            note: (
+              <>
+                From deep water: H/H<sub>0</sub> = √(C<sub>g0</sub>/C<sub>g</sub>)
+              </>
+            ),
           },
         ]}
       />
       <QuantityList
         title="At the seabed"
         items={[
-          { id: 'bed-velocity', label: 'Orbital velocity amplitude', symbol: <>u<sub>b</sub></>, value: a.bedVelocity, unit: 'm/s' },
-          { id: 'bed-excursion', label: 'Orbital excursion amplitude', symbol: <>A<sub>b</sub></>, value: a.bedExcursion, unit: 'm' },
+          {
+            id: 'bed-velocity',
+            label: 'Orbital velocity amplitude',
+            symbol: (
+              <>
+                u<sub>b</sub>
+              </>
+            ),
+            value: a.bedVelocity,
+            unit: 'm/s',
+          },
+          {
+            id: 'bed-excursion',
+            label: 'Orbital excursion amplitude',
+            symbol: (
+              <>
+                A<sub>b</sub>
+              </>
+            ),
+            value: a.bedExcursion,
+            unit: 'm',
+          },
         ]}
       />
       <QuantityList
         title="Energy"
         items={[
           { id: 'energy-density', label: 'Energy density', symbol: <>E = ρgH²/8</>, value: a.energyDensity, unit: 'J/m²' },
-          { id: 'power', label: 'Power per metre of crest', symbol: <>P = E C<sub>g</sub></>, value: a.power / 1000, unit: 'kW/m' },
+          {
+            id: 'power',
+            label: 'Power per metre of crest',
+            symbol: (
+              <>
+                P = E C<sub>g</sub>
+              </>
+            ),
+            value: a.power / 1000,
+            unit: 'kW/m',
+          },
         ]}
       />
       {hasZ ? (
@@ -174,7 +272,17 @@ function WaveResults({ answer: a }: { answer: RegularWaveAnswer }) {
           items={[
             { id: 'horizontal-velocity', label: 'Horizontal velocity amplitude', symbol: 'u(z)', value: a.horizontalVelocity, unit: 'm/s' },
             { id: 'vertical-velocity', label: 'Vertical velocity amplitude', symbol: 'w(z)', value: a.verticalVelocity, unit: 'm/s' },
-            { id: 'pressure-factor', label: 'Pressure response factor', symbol: <>K<sub>p</sub>(z)</>, value: a.pressureFactor, unit: '–' },
+            {
+              id: 'pressure-factor',
+              label: 'Pressure response factor',
+              symbol: (
+                <>
+                  K<sub>p</sub>(z)
+                </>
+              ),
+              value: a.pressureFactor,
+              unit: '–',
+            },
           ]}
         />
       ) : (
@@ -206,9 +314,9 @@ function SteepnessNote({ answer: a }: { answer: RegularWaveAnswer }) {
 function TheoryNote() {
   return (
     <p className="text-xs text-ink-soft" data-testid="theory-note">
-      Linear (Airy) wave theory as in the Shore Protection Manual (1984) and the Coastal Engineering Manual (EM 1110-2-1100, Part
-      II-1); the wavenumber solves ω² = gk tanh(kd), started from the explicit formula of Fenton &amp; McKee (1990) and refined by
-      Newton steps. g = 9.81 m/s², seawater ρ = 1025 kg/m³.
+      Linear (Airy) wave theory as in the Shore Protection Manual (1984) and the Coastal Engineering Manual (EM 1110-2-1100, Part II-1); the
+      wavenumber solves ω² = gk tanh(kd), started from the explicit formula of Fenton &amp; McKee (1990) and refined by Newton steps. g =
+      9.81 m/s², seawater ρ = 1025 kg/m³.
     </p>
   );
 }

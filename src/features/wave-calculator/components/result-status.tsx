@@ -21,8 +21,8 @@ export function ResultStatus({ updating, lastValid, caption }: { updating: boole
 export function LinearTheoryCaution() {
   return (
     <p className="mt-4 border-l-4 border-st-marginal pl-3 text-sm text-ink" data-testid="linear-caution">
-      Linear theory holds for waves of small amplitude. Steep waves, waves near breaking and waves in very shallow water need a
-      higher-order theory (Stokes, cnoidal, stream function).
+      Linear theory holds for waves of small amplitude. Steep waves, waves near breaking and waves in very shallow water need a higher-order
+      theory (Stokes, cnoidal, stream function).
     </p>
   );
 }

@@ -31,11 +31,48 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
           Sea state inputs
         </h2>
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-          <NumberField id="ss-hs" label="Significant wave height Hs" unit="m" registration={check.register('hs')} error={errors.hs} hint="Spectral Hm0, 0 to 25 m" />
-          <NumberField id="ss-tp" label="Peak period Tp" unit="s" registration={check.register('tp')} error={errors.tp} hint="Give at least one of Tp, Tz, Te" />
-          <NumberField id="ss-depth" label="Water depth d" unit="m" registration={check.register('depth')} error={errors.depth} hint="0.05 to 6000 m" />
-          <NumberField id="ss-tz" label="Zero-crossing period Tz" unit="s" registration={check.register('tz')} error={errors.tz} placeholder="optional" hint="Derived from Tp when blank" />
-          <NumberField id="ss-te" label="Energy period Te" unit="s" registration={check.register('te')} error={errors.te} placeholder="optional" hint="Tm−1,0; derived from Tp when blank" />
+          <NumberField
+            id="ss-hs"
+            label="Significant wave height Hs"
+            unit="m"
+            registration={check.register('hs')}
+            error={errors.hs}
+            hint="Spectral Hm0, 0 to 25 m"
+          />
+          <NumberField
+            id="ss-tp"
+            label="Peak period Tp"
+            unit="s"
+            registration={check.register('tp')}
+            error={errors.tp}
+            hint="Give at least one of Tp, Tz, Te"
+          />
+          <NumberField
+            id="ss-depth"
+            label="Water depth d"
+            unit="m"
+            registration={check.register('depth')}
+            error={errors.depth}
+            hint="0.05 to 6000 m"
+          />
+          <NumberField
+            id="ss-tz"
+            label="Zero-crossing period Tz"
+            unit="s"
+            registration={check.register('tz')}
+            error={errors.tz}
+            placeholder="optional"
+            hint="Derived from Tp when blank"
+          />
+          <NumberField
+            id="ss-te"
+            label="Energy period Te"
+            unit="s"
+            registration={check.register('te')}
+            error={errors.te}
+            placeholder="optional"
+            hint="Tm−1,0; derived from Tp when blank"
+          />
           <NumberField
             id="ss-gamma"
             label="Peak enhancement γ"
@@ -66,8 +103,8 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
             <PeriodTable answer={a} />
             <p className="mt-3 text-xs text-ink-soft">
               Ratios between the periods of a JONSWAP spectrum with peak enhancement γ (DNV-RP-C205). Te = 0.90 Tp at γ = 3.3 is the
-              product's convention (the integrated spectrum gives 0.903); at any other γ, Te/Tp comes from the integrated spectrum.
-              Periods you give are used as given, even where they disagree with the ratios.
+              product's convention (the integrated spectrum gives 0.903); at any other γ, Te/Tp comes from the integrated spectrum. Periods
+              you give are used as given, even where they disagree with the ratios.
             </p>
           </Card>
           <Card aria-labelledby="sea-results-title">
@@ -78,22 +115,57 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
               <QuantityList
                 title="Energy"
                 items={[
-                  { id: 'energy', label: 'Energy density', symbol: <>E = ρgH<sub>s</sub>²/16</>, value: a.energy, unit: 'J/m²' },
+                  {
+                    id: 'energy',
+                    label: 'Energy density',
+                    symbol: (
+                      <>
+                        E = ρgH<sub>s</sub>²/16
+                      </>
+                    ),
+                    value: a.energy,
+                    unit: 'J/m²',
+                  },
                   {
                     id: 'power',
                     label: 'Wave power per metre of crest',
                     symbol: 'P',
                     value: a.power / 1000,
                     unit: 'kW/m',
-                    note: <>E · C<sub>g</sub> at the energy period T<sub>e</sub> and depth d</>,
+                    note: (
+                      <>
+                        E · C<sub>g</sub> at the energy period T<sub>e</sub> and depth d
+                      </>
+                    ),
                   },
                 ]}
               />
               <QuantityList
                 title="Wavelength at the peak period"
                 items={[
-                  { id: 'peak-wavelength', label: 'Peak wavelength', symbol: <>L<sub>p</sub></>, value: a.peakWavelength, unit: 'm', note: 'Linear theory at Tp and depth d' },
-                  { id: 'depth-over-peak-wavelength', label: 'Relative depth', symbol: <>d/L<sub>p</sub></>, value: a.depth / a.peakWavelength, unit: '–' },
+                  {
+                    id: 'peak-wavelength',
+                    label: 'Peak wavelength',
+                    symbol: (
+                      <>
+                        L<sub>p</sub>
+                      </>
+                    ),
+                    value: a.peakWavelength,
+                    unit: 'm',
+                    note: 'Linear theory at Tp and depth d',
+                  },
+                  {
+                    id: 'depth-over-peak-wavelength',
+                    label: 'Relative depth',
+                    symbol: (
+                      <>
+                        d/L<sub>p</sub>
+                      </>
+                    ),
+                    value: a.depth / a.peakWavelength,
+                    unit: '–',
+                  },
                 ]}
               />
               <QuantityList
@@ -102,18 +174,34 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                   {
                     id: 'bed-velocity-linear',
                     label: 'Linear significant',
-                    symbol: <>u<sub>bs</sub></>,
+                    symbol: (
+                      <>
+                        u<sub>bs</sub>
+                      </>
+                    ),
                     value: a.bedVelocityLinear,
                     unit: 'm/s',
-                    note: <>πH<sub>s</sub> / (T<sub>p</sub> sinh k<sub>p</sub>d): one wave of height Hs at Tp</>,
+                    note: (
+                      <>
+                        πH<sub>s</sub> / (T<sub>p</sub> sinh k<sub>p</sub>d): one wave of height Hs at Tp
+                      </>
+                    ),
                   },
                   {
                     id: 'bed-velocity-soulsby',
                     label: 'Soulsby (2006)',
-                    symbol: <>U<sub>s</sub></>,
+                    symbol: (
+                      <>
+                        U<sub>s</sub>
+                      </>
+                    ),
                     value: a.bedVelocitySoulsby,
                     unit: 'm/s',
-                    note: <>2 · U<sub>rms</sub>: the significant value, from Tz (HR Wallingford TR 155)</>,
+                    note: (
+                      <>
+                        2 · U<sub>rms</sub>: the significant value, from Tz (HR Wallingford TR 155)
+                      </>
+                    ),
                   },
                 ]}
               />
@@ -123,7 +211,11 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                   {
                     id: 'bed-velocity-soulsby-rms',
                     label: 'RMS of the near-bed velocity, Soulsby (2006)',
-                    symbol: <>U<sub>rms</sub></>,
+                    symbol: (
+                      <>
+                        U<sub>rms</sub>
+                      </>
+                    ),
                     value: a.bedVelocitySoulsbyRms,
                     unit: 'm/s',
                     note: 'The standard deviation of the velocity over time; not an amplitude, not for a limit stated as significant',
@@ -157,18 +249,28 @@ function PeriodTable({ answer: a }: { answer: SeaStateAnswer }) {
     {
       id: 'tp',
       name: 'Peak period',
-      symbol: <>T<sub>p</sub></>,
+      symbol: (
+        <>
+          T<sub>p</sub>
+        </>
+      ),
       value: p.tpS,
       given: p.sources.tp === 'given',
       how:
-        p.sources.tp === 'tz' ? <>from Tz: Tp = Tz / {ratio(p.tzS / p.tpS)}</>
-        : p.sources.tp === 'te' ? <>from Te: Tp = Te / {ratio(p.teS / p.tpS)}</>
-        : null,
+        p.sources.tp === 'tz' ? (
+          <>from Tz: Tp = Tz / {ratio(p.tzS / p.tpS)}</>
+        ) : p.sources.tp === 'te' ? (
+          <>from Te: Tp = Te / {ratio(p.teS / p.tpS)}</>
+        ) : null,
     },
     {
       id: 'tz',
       name: 'Mean zero-crossing period',
-      symbol: <>T<sub>z</sub></>,
+      symbol: (
+        <>
+          T<sub>z</sub>
+        </>
+      ),
       value: p.tzS,
       given: p.sources.tz === 'given',
       how: p.sources.tz === 'tp' ? <>Tz = {ratio(p.tzS / p.tpS)} × Tp</> : null,
@@ -176,7 +278,11 @@ function PeriodTable({ answer: a }: { answer: SeaStateAnswer }) {
     {
       id: 'te',
       name: 'Energy period',
-      symbol: <>T<sub>e</sub></>,
+      symbol: (
+        <>
+          T<sub>e</sub>
+        </>
+      ),
       value: p.teS,
       given: p.sources.te === 'given',
       how: p.sources.te === 'tp' ? <>Te = {ratio(p.teS / p.tpS)} × Tp</> : null,

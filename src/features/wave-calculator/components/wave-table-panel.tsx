@@ -17,17 +17,77 @@ const helper = createColumnHelper<typeof features, WaveTableRow>();
 
 /** Header, and the line of the key below the table, of every column in handbook order. */
 const COLUMN_TEXT: { key: keyof WaveTableRow; header: ReactNode; meaning: ReactNode }[] = [
-  { key: 'dOverL0', header: <>d/L<sub>0</sub></>, meaning: <>depth over the deep-water wavelength L<sub>0</sub> = gT²/2π</> },
+  {
+    key: 'dOverL0',
+    header: (
+      <>
+        d/L<sub>0</sub>
+      </>
+    ),
+    meaning: (
+      <>
+        depth over the deep-water wavelength L<sub>0</sub> = gT²/2π
+      </>
+    ),
+  },
   { key: 'dOverL', header: 'd/L', meaning: 'depth over the local wavelength' },
-  { key: 'lOverL0', header: <>L/L<sub>0</sub></>, meaning: <>local over deep-water wavelength, = C/C<sub>0</sub> = tanh kd</> },
+  {
+    key: 'lOverL0',
+    header: (
+      <>
+        L/L<sub>0</sub>
+      </>
+    ),
+    meaning: (
+      <>
+        local over deep-water wavelength, = C/C<sub>0</sub> = tanh kd
+      </>
+    ),
+  },
   { key: 'kd', header: 'kd', meaning: 'relative depth 2πd/L' },
   { key: 'tanhKd', header: 'tanh kd', meaning: null },
   { key: 'sinhKd', header: 'sinh kd', meaning: null },
   { key: 'coshKd', header: 'cosh kd', meaning: null },
-  { key: 'n', header: 'n', meaning: <>group over phase speed C<sub>g</sub>/C = ½(1 + 2kd/sinh 2kd)</> },
-  { key: 'cgOverC0', header: <>C<sub>g</sub>/C<sub>0</sub></>, meaning: <>group celerity over deep-water celerity, = n tanh kd</> },
-  { key: 'shoalingCoefficient', header: <>K<sub>s</sub></>, meaning: <>shoaling coefficient H/H<sub>0</sub>′ = √(C<sub>g0</sub>/C<sub>g</sub>)</> },
-  { key: 'bedPressureFactor', header: <>K<sub>p</sub> bed</>, meaning: <>pressure response factor at the bed, 1/cosh kd</> },
+  {
+    key: 'n',
+    header: 'n',
+    meaning: (
+      <>
+        group over phase speed C<sub>g</sub>/C = ½(1 + 2kd/sinh 2kd)
+      </>
+    ),
+  },
+  {
+    key: 'cgOverC0',
+    header: (
+      <>
+        C<sub>g</sub>/C<sub>0</sub>
+      </>
+    ),
+    meaning: <>group celerity over deep-water celerity, = n tanh kd</>,
+  },
+  {
+    key: 'shoalingCoefficient',
+    header: (
+      <>
+        K<sub>s</sub>
+      </>
+    ),
+    meaning: (
+      <>
+        shoaling coefficient H/H<sub>0</sub>′ = √(C<sub>g0</sub>/C<sub>g</sub>)
+      </>
+    ),
+  },
+  {
+    key: 'bedPressureFactor',
+    header: (
+      <>
+        K<sub>p</sub> bed
+      </>
+    ),
+    meaning: <>pressure response factor at the bed, 1/cosh kd</>,
+  },
 ];
 
 const columns = helper.columns(
@@ -58,8 +118,20 @@ export default function WaveTablePanel({ fields, onChange }: { fields: TableFiel
         </h2>
         <div className="grid gap-3 sm:grid-cols-3">
           <NumberField id="wt-from" label="From d/L0" registration={check.register('from')} error={errors.from} hint="0.0001 to 100" />
-          <NumberField id="wt-to" label="To d/L0" registration={check.register('to')} error={errors.to} hint="Included when on the step grid" />
-          <NumberField id="wt-step" label="Step of d/L0" registration={check.register('step')} error={errors.step} hint="At most 2,000 rows" />
+          <NumberField
+            id="wt-to"
+            label="To d/L0"
+            registration={check.register('to')}
+            error={errors.to}
+            hint="Included when on the step grid"
+          />
+          <NumberField
+            id="wt-step"
+            label="Step of d/L0"
+            registration={check.register('step')}
+            error={errors.step}
+            hint="At most 2,000 rows"
+          />
         </div>
       </Card>
       {query.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={query.error} /> : null}
@@ -69,7 +141,17 @@ export default function WaveTablePanel({ fields, onChange }: { fields: TableFiel
   );
 }
 
-function WaveTable({ rows, typing, fetching, lastValid }: { rows: WaveTableRow[]; typing: boolean; fetching: boolean; lastValid: boolean }) {
+function WaveTable({
+  rows,
+  typing,
+  fetching,
+  lastValid,
+}: {
+  rows: WaveTableRow[];
+  typing: boolean;
+  fetching: boolean;
+  lastValid: boolean;
+}) {
   const table = useTable({
     features,
     columns,
@@ -157,8 +239,8 @@ function WaveTable({ rows, typing, fetching, lastValid }: { rows: WaveTableRow[]
       </div>
       <div className="mt-3 grid gap-2 text-xs text-ink-soft">
         <p>
-          Columns as in the classic handbook tables (Shore Protection Manual 1984, Appendix C; Coastal Engineering Manual EM
-          1110-2-1100, Part II-1), by linear theory. Every column is dimensionless. Click a heading to sort.
+          Columns as in the classic handbook tables (Shore Protection Manual 1984, Appendix C; Coastal Engineering Manual EM 1110-2-1100,
+          Part II-1), by linear theory. Every column is dimensionless. Click a heading to sort.
         </p>
         <dl className="grid gap-x-4 gap-y-0.5 sm:grid-cols-2">
           {COLUMN_TEXT.filter((c) => Boolean(c.meaning)).map((c) => (
