@@ -3,7 +3,15 @@
 // [t, t + dt) (docs/domain.md#convention-9) and windows end exclusive (#convention-10). The
 // series and the expected indices are worked by hand beside each check.
 import { describe, expect, it } from 'vitest';
-import { dayRuns, occurrenceMarks, startWords, visibleRange, windowAt, windowBoxes } from '../../src/features/board/components/board-model';
+import {
+  dayRuns,
+  occurrenceMarks,
+  recordAt,
+  startWords,
+  visibleRange,
+  windowAt,
+  windowBoxes,
+} from '../../src/features/board/components/board-model';
 import type { OperationSitePlan } from '../../shared/api-types-plan';
 
 const H = 3_600_000;
@@ -140,5 +148,24 @@ describe('startWords', () => {
     // 5 January 2027 is a Tuesday (calendar).
     const words = startWords(plan({ earliestStart: '2027-01-05T07:00:00Z' }), Date.parse('2026-12-30T14:00:00Z'));
     expect(words.text).toBe('Earliest start: Tue 5 Jan 2027 07:00');
+  });
+});
+
+describe('recordAt: the record that holds an instant (the Overview card link opens its chain)', () => {
+  // Hourly to 02:00, then 3-hourly (a forecast that changes step; docs/domain.md#forecast-service).
+  const h = 3_600_000;
+  const times = [0, h, 2 * h, 5 * h];
+  it('finds the record whose span holds the instant, across a change of step', () => {
+    expect(recordAt(times, 0, h)).toBe(0);
+    expect(recordAt(times, 1.5 * h, h)).toBe(1);
+    expect(recordAt(times, 4 * h, h)).toBe(2); // 02:00-05:00 is one 3-hourly record
+    expect(recordAt(times, 5 * h, h)).toBe(3);
+    expect(recordAt(times, 7.9 * h, h)).toBe(3); // the last record lasts as long as the spacing before it
+  });
+  it('answers -1 outside the records', () => {
+    expect(recordAt(times, -1, h)).toBe(-1);
+    expect(recordAt(times, 8 * h, h)).toBe(-1);
+    expect(recordAt([], 0, h)).toBe(-1);
+    expect(recordAt(times, Number.NaN, h)).toBe(-1);
   });
 });

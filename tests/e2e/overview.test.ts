@@ -162,8 +162,8 @@ describe('the project Overview', () => {
         // The next 48 hours as a strip: one cell per forecast hour ahead (at most 48).
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeGreaterThan(0);
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeLessThanOrEqual(48);
-        expect(await card.getByRole('link', { name: /Hour by hour/ }).getAttribute('href')).toBe(
-          `/projects/${projectId}/board?op=${p.operationId}&site=${p.siteId}`,
+        expect(await card.getByRole('link', { name: /Hour by hour/ }).getAttribute('href')).toMatch(
+          new RegExp(`^/projects/${projectId}/board\\?op=${p.operationId}&site=${p.siteId}&hour=`),
         );
       }
       await page.getByTestId('site-map').locator('canvas.maplibregl-canvas').waitFor({ timeout: 30_000 });
@@ -173,6 +173,15 @@ describe('the project Overview', () => {
       }));
       expect(widths.scroll).toBeLessThanOrEqual(widths.client);
       await screenshot(page, 'overview-skipper-phone');
+      // The card's link opens the board with the chain behind the card's first hour already open.
+      const first = mine[0];
+      const firstCard = page.locator(
+        `[data-testid="my-operation-card"][data-operation-id="${first.operationId}"][data-site-id="${first.siteId}"]`,
+      );
+      await firstCard.getByRole('link', { name: /Hour by hour/ }).click();
+      await page.getByRole('dialog', { name: /./ }).waitFor({ timeout: 30_000 });
+      expect(await page.locator('#hour-chain-title').textContent()).not.toBe('');
+      await page.goto(`${server.baseUrl}/projects/${projectId}`);
       // Installable: the page links a web app manifest with our icons.
       const manifestHref = await page.locator('link[rel="manifest"]').getAttribute('href');
       const manifest = (await (await page.request.get(`${server.baseUrl}${manifestHref}`)).json()) as {

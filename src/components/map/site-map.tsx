@@ -41,7 +41,7 @@ export interface SiteMapProps {
   dataPoint: MapPoint | null;
   /** Mean wave direction of the current forecast at the data point, degrees "coming from"; null = none. */
   waveDirection: number | null;
-  /** The tide station a worksite uses (docs/domain.md#tide); none is stored yet, so always null for now. */
+  /** The database tide station a worksite's tide is predicted from (docs/domain.md#tide); null = none. */
   tideStation?: MapPoint | null;
   /** Called with a clicked position (degrees north, east); set: the map is in "click to set a position" mode. */
   onPick?: (latitude: number, longitude: number) => void;

@@ -136,6 +136,17 @@ export function firstAtOrAfter(timesMs: number[], ms: number): number {
 }
 
 /**
+ * Index of the record that holds instant `ms` (its time at or before `ms`, before the next
+ * record's time); -1 before the first record or at or after the last record's end.
+ */
+export function recordAt(timesMs: number[], ms: number, stepMs: number): number {
+  if (timesMs.length === 0 || !(ms >= timesMs[0])) return -1;
+  const after = firstAtOrAfter(timesMs, ms);
+  const i = after < timesMs.length && timesMs[after] === ms ? after : after - 1;
+  return ms < recordEndMs(timesMs, i, stepMs) ? i : -1;
+}
+
+/**
  * End of record i for drawing: the next record's time (a forecast that changes step has no single
  * step), or for the last one its time + the step of the spacing before it (else the nominal step).
  */

@@ -2,7 +2,7 @@
 // and worksite, an hour per column in the worksite's time zone, the status of each hour in colour,
 // letter and pattern, usable windows outlined, and the start of each row in words. Any hour opens
 // the chain behind it. Every member reads; coordinators and admins may fetch a new forecast.
-import { useCallback, useEffect, useMemo, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import type { PlanAnswer } from '../../../../shared/api-types-plan';
 import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
@@ -15,7 +15,7 @@ import { BoardControls, HOUR_WIDTH_PX, type BoardFilters, type HourWidth } from 
 import { formatIn, relativeTime } from './board-format';
 import { BoardGrid, type SelectedHour } from './board-grid';
 import { BoardLegend } from './board-legend';
-import { startWords, visibleRange } from './board-model';
+import { recordAt, startWords, visibleRange } from './board-model';
 import { ChainPanel } from './chain-panel';
 import { TideStrip } from './tide-strip';
 import { useSites } from '../../../api/sites';
@@ -71,6 +71,24 @@ function useFilters(isSkipper: boolean): [BoardFilters, (patch: Partial<BoardFil
   return [filters, update];
 }
 
+/**
+ * A link such as `board?op=<id>&site=<id>&hour=<ISO instant>` (the skipper's cards on the
+ * Overview) opens the chain behind the record holding that instant, once, when the plan arrives.
+ */
+function useChainLink(answer: PlanAnswer | undefined, filters: BoardFilters, select: (hour: SelectedHour) => void) {
+  const [params] = useSearchParams();
+  const hour = params.get('hour');
+  const opened = useRef(false);
+  useEffect(() => {
+    if (opened.current || !answer || !hour || !filters.operationId || !filters.siteId) return;
+    opened.current = true;
+    const plan = answer.plans.find((p) => p.operationId === filters.operationId && p.siteId === filters.siteId);
+    if (!plan) return;
+    const index = recordAt(plan.times.map(Date.parse), Date.parse(hour), 3_600_000);
+    if (index >= 0) select({ operationId: plan.operationId, siteId: plan.siteId, index });
+  }, [answer, hour, filters.operationId, filters.siteId, select]);
+}
+
 export function BoardPage() {
   const { projectId = '' } = useParams();
   const viewer = useViewer(projectId);
@@ -80,6 +98,7 @@ export function BoardPage() {
   const nowMs = useBoardNow(plan.data?.generatedAt, plan.dataUpdatedAt);
   const [selected, setSelected] = useState<SelectedHour | null>(null);
   const closePanel = useCallback(() => setSelected(null), []);
+  useChainLink(plan.data, filters, setSelected);
 
   const fetchButton = viewer.canFetchForecast ? (
     <Button variant="secondary" onClick={() => fetchForecast.mutate()} disabled={fetchForecast.isPending}>

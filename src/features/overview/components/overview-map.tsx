@@ -6,6 +6,7 @@ import { LazySiteMap, type MapSite } from '../../../components/map/lazy-site-map
 import { Card, ErrorNotice, Notice, Select } from '../../../components/ui';
 import { formatPosition } from '../../../lib/format';
 import { useSetSitePosition } from '../api/set-site-position';
+import { useTideStation } from '../api/get-tide-station';
 
 /** The project's map on the Overview; coordinators choose a worksite and click to set its position. */
 export function OverviewMap({
@@ -37,6 +38,9 @@ export function OverviewMap({
         : null,
     [project.dataPointName, project.dataPointLatitude, project.dataPointLongitude],
   );
+  // The map shows one tide station: that of the first worksite whose tide comes from a database station.
+  const stationSiteId = sites.data?.find((s) => s.tide?.source === 'station')?.id ?? null;
+  const tideStation = useTideStation(project.id, stationSiteId);
   const unplaced = (sites.data ?? []).filter((s) => s.latitude === null || s.longitude === null);
   const placingName = sites.data?.find((s) => s.id === placing)?.name;
 
@@ -47,7 +51,8 @@ export function OverviewMap({
       </h2>
       <p className="mb-3 text-sm text-ink-soft">
         Worksites with their shore-normal arrows (teal); the offshore data point with the current forecast’s mean wave direction (red arrow:
-        the way the waves travel).
+        the way the waves travel)
+        {tideStation.data ? `; the tide station ${tideStation.data.name}, whose constants a worksite's tide is predicted from` : ''}.
       </p>
       {canEdit ? (
         <div className="mb-3 flex flex-wrap items-end gap-2">
@@ -76,7 +81,7 @@ export function OverviewMap({
         sites={placed}
         dataPoint={dataPoint}
         waveDirection={waveDirection}
-        tideStation={null}
+        tideStation={tideStation.data ?? null}
         styleUrl={style.data?.styleUrl ?? null}
         attribution={style.data?.attribution ?? null}
         pickSiteId={placing || null}

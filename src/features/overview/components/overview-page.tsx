@@ -220,7 +220,7 @@ function MyOperations({
               <HourStrip times={l.next.times} status={l.next.status} timeZone={l.timeZone} />
               <Link
                 className="inline-flex min-h-11 items-center text-sm font-semibold text-accent underline"
-                to={`/projects/${projectId}/board?op=${l.operationId}&site=${l.siteId}`}
+                to={`/projects/${projectId}/board?op=${l.operationId}&site=${l.siteId}${l.next.times[0] ? `&hour=${encodeURIComponent(l.next.times[0])}` : ''}`}
               >
                 Hour by hour, with the chain behind each hour
               </Link>
