@@ -114,6 +114,14 @@ describe('one time-zone statement per page (issue 22, dates)', () => {
       .first()
       .waitFor({ timeout: 60_000 });
     await expectOneStatement(page, 'a dataset', /^Times are in UTC, /);
+    // Native date pickers display in the browser's locale: each picked date is read back beside
+    // its picker in the one date style ("Tue 8 Dec 2026", issue text's own example style).
+    const echoes = page.locator('[data-date-echo]');
+    await echoes.first().waitFor({ timeout: 30_000 });
+    expect(await echoes.count()).toBe(2);
+    for (const text of await echoes.allTextContents()) {
+      expect(text).toMatch(/^(Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec) \d{4}$/);
+    }
     await page.goto(`${base}/sea-data/import`);
     await expectOneStatement(page, 'import', /^Times are in UTC, /);
 

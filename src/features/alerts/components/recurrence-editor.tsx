@@ -9,6 +9,7 @@ import { tz } from '@date-fns/tz';
 import type { OperationResponse } from '../../../../shared/api-types-sites';
 import { expandRecurrence, RecurrenceInput, recurrenceText, WEEKDAYS } from '../../../../shared/recurrence';
 import { Button, ErrorNotice, FieldShell, Input, Notice, Select } from '../../../components/ui';
+import { DateEcho } from '../../../components/ui/date-echo';
 import { useRemoveRecurrence } from '../api/remove-recurrence';
 import { useSaveRecurrence } from '../api/save-recurrence';
 import type { StoredRecurrence } from '../api/types';
@@ -196,6 +197,7 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
         </FieldShell>
         <FieldShell label="First date" htmlFor={`${idp}-date`} unit="local" error={errors.startDate?.message}>
           <Input id={`${idp}-date`} type="date" {...form.register('startDate')} invalid={!!errors.startDate} />
+          <DateEcho value={v.startDate} />
         </FieldShell>
         <FieldShell label="Start time" htmlFor={`${idp}-time`} unit="local, HH:MM" error={errors.startTime?.message}>
           <Input id={`${idp}-time`} type="time" step={60} {...form.register('startTime')} invalid={!!errors.startTime} />
@@ -263,6 +265,7 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
           <div className="mt-2 max-w-xs">
             <FieldShell label="Last date" htmlFor={`${idp}-until`} unit="local, included" error={errors.untilDate?.message}>
               <Input id={`${idp}-until`} type="date" {...form.register('untilDate')} invalid={!!errors.untilDate} />
+              <DateEcho value={v.untilDate} />
             </FieldShell>
           </div>
         ) : null}

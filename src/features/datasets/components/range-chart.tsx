@@ -3,6 +3,7 @@ import { sub } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { DatasetDetail } from '../../../../shared/api-types-datasets';
 import { Button, ErrorNotice, Spinner } from '../../../components/ui';
+import { DateEcho } from '../../../components/ui/date-echo';
 import { useDatasetRecords, type RecordsRange } from '../api/get-dataset-records';
 import { formatUtc, parseUtcDateInput, utcDateInput } from './format';
 import { useDebounce } from 'use-debounce';
@@ -137,6 +138,7 @@ export function RangeChart({
               value={utcDateInput(current.fromMs)}
               onChange={(e) => pickDates(e.target.value, utcDateInput(current.toMs))}
             />
+            <DateEcho value={utcDateInput(current.fromMs)} />
           </label>
           <label className="flex flex-col gap-1 text-sm font-semibold">
             To
@@ -148,6 +150,7 @@ export function RangeChart({
               value={utcDateInput(current.toMs)}
               onChange={(e) => pickDates(utcDateInput(current.fromMs), e.target.value)}
             />
+            <DateEcho value={utcDateInput(current.toMs)} />
           </label>
           <label className="flex flex-col gap-1 text-sm font-semibold">
             Move through the dataset

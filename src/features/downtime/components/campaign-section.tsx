@@ -4,6 +4,7 @@ import type { CampaignResponse, CampaignSimulation } from '../../../../shared/ap
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAMPAIGN_MAX_STEPS, CampaignInput } from '../../../../shared/schemas/downtime';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner, Term } from '../../../components/ui';
+import { DateEcho } from '../../../components/ui/date-echo';
 import { ApiError } from '../../../lib/api';
 import { useCampaigns } from '../api/get-campaigns';
 import { useCreateCampaign } from '../api/create-campaign';
@@ -418,6 +419,7 @@ function CampaignEditor({
           error={fieldErrors.plannedStart}
         >
           <Input id="campaign-start" type="date" value={plannedDay} onChange={(e) => setPlannedDay(e.target.value)} />
+          <DateEcho value={plannedDay} />
         </FieldShell>
       </div>
       <fieldset className="flex flex-col gap-2">

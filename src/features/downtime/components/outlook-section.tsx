@@ -7,6 +7,7 @@ import { TZDate } from '@date-fns/tz';
 import type { CampaignOutlookAnswer, CampaignResponse, OutlookHistoryPoint } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { DateEcho } from '../../../components/ui/date-echo';
 import { useCampaigns } from '../api/get-campaigns';
 import { useOutlook, useOutlookHistory } from '../api/get-outlook';
 import { useSetStepProgress } from '../api/set-step-progress';
@@ -281,6 +282,7 @@ function ProgressEditor({
             onChange={(e) => setWhen(e.target.value)}
             disabled={status === 'planned'}
           />
+          <DateEcho value={when} />
         </FieldShell>
         <Button type="submit" disabled={save.isPending}>
           {save.isPending ? 'Saving…' : 'Save'}
