@@ -50,7 +50,7 @@ export const MAX_BY_VALUES = 60;
 export const START_WITHIN_YEARS = 2;
 /** Expansion stops after this many candidate dates or this much time, whatever the rule. */
 export const MAX_EXPANDED = 50_000;
-export const EXPAND_BUDGET_MS = 30;
+export const EXPAND_BUDGET_MS = 100;
 
 export function ruleProblem(rule: string): string | null {
   const parts = rule.split(';').map((p) => p.split('='));

@@ -136,7 +136,7 @@ describe('the watch board', () => {
     const drawn = await marks.evaluateAll((els) => els.map((e) => `${e.getAttribute('data-start')} ${e.getAttribute('data-status')}`));
     expect(drawn).toEqual(inForecast.map((o) => `${o.start} ${o.status}`));
     expect(await marks.first().getAttribute('aria-label')).toMatch(
-      /^Occurrence (Mon|Wed|Fri) \d{1,2} [A-Z][a-z]{2} 06:00 \(local\): (workable|marginal|not workable|no data)/,
+      /^Occurrence (Mon|Wed|Fri) \d{1,2} [A-Z][a-z]{2} 06:00: (workable|marginal|not workable|no data)/,
     );
     // Every other row (no recurrence) has none.
     expect(await page.getByTestId('occurrence-mark').count()).toBe(inForecast.length);

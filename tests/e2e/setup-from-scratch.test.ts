@@ -328,7 +328,12 @@ describe('the forms the walk above does not reach', () => {
       .or(page.getByRole('checkbox', { name: /Daily digest/ }))
       .first();
     await digest.waitFor();
-    if ((await digest.getAttribute('aria-checked')) !== 'true' && !(await digest.isChecked().catch(() => false))) await digest.click();
+    // Turned on from the keyboard: the switch's input is visually hidden under its label.
+    if (!(await digest.isChecked())) {
+      await digest.focus();
+      await page.keyboard.press('Space');
+      await expect.poll(() => digest.isChecked()).toBe(true);
+    }
     await page.locator('#sub-digest-time').fill('');
     await page.getByRole('button', { name: 'Save my choice' }).click();
     await expect.poll(async () => (await shownProblems(page)).length).toBeGreaterThanOrEqual(1);

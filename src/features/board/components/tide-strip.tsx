@@ -1,6 +1,6 @@
 import type { SiteResponse } from '../../../../shared/api-types-sites';
 import { useTide } from '../api/get-tide';
-import { formatIn, zoneShort } from './board-format';
+import { formatIn } from './board-format';
 
 const W = 1000;
 const H = 120;
@@ -35,10 +35,7 @@ export function TideStrip({ projectId, site, fromMs, toMs }: { projectId: string
       data-testid="tide-strip"
     >
       <h3 id={`tide-${site.id}`} className="text-sm font-bold">
-        Tide at {site.name}{' '}
-        <span className="font-normal text-ink-soft">
-          (m above {datum}; times in {zone})
-        </span>
+        Tide at {site.name} <span className="font-normal text-ink-soft">(m above {datum})</span>
       </h3>
       <svg
         viewBox={`0 0 ${W} ${H}`}
@@ -61,8 +58,8 @@ export function TideStrip({ projectId, site, fromMs, toMs }: { projectId: string
       <ul className="mt-1 flex flex-wrap gap-x-4 gap-y-1 text-xs" aria-label="High and low waters">
         {extremes.map((e) => (
           <li key={e.time} data-testid={`tide-${e.kind}`}>
-            <span className="font-semibold">{e.kind === 'high' ? 'High' : 'Low'}</span> {formatIn(Date.parse(e.time), zone)}{' '}
-            {zoneShort(Date.parse(e.time), zone)} · {e.level.toFixed(2)} m
+            <span className="font-semibold">{e.kind === 'high' ? 'High' : 'Low'}</span> {formatIn(Date.parse(e.time), zone)} ·{' '}
+            {e.level.toFixed(2)} m
           </li>
         ))}
       </ul>
