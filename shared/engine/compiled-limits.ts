@@ -1,5 +1,5 @@
 import { alphaInRow, alphaRowIndex } from './alpha-factor';
-import type { AlphaTable, OperationSpec, TideWindowLimit } from './types';
+import type { AlphaTable, OperationSpec, ResponseLimit, TideWindowLimit } from './types';
 
 /**
  * An operation's limits prepared for the hot loops: absent limits are NaN or empty arrays,
@@ -42,6 +42,8 @@ export interface CompiledLimits {
   tideWindow: TideWindowLimit | null;
   needDepth: boolean;
   needCurrent: boolean;
+  /** Vessel-response limits (docs/domain.md#vessel-response); empty: none. */
+  responses: ResponseLimit[];
   /** Reference period TR = TPOP + TC, h. */
   trH: number;
 }
@@ -108,11 +110,27 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
     throw new RangeError('tide window: before and after must be finite, >= 0 and not both 0');
   }
 
+  const responses = L.responses ?? [];
+  for (const r of responses) {
+    positiveOrNaN(r.max, `${r.response} max`);
+    if (r.durationH != null) positiveOrNaN(r.durationH, `${r.response} duration`);
+  }
+
   const hasHs = hsMax === hsMax;
   const hasCurve = curve.length >= 2;
   const hasBed = bedMax === bedMax;
   const hasTide = minDepth === minDepth || maxDepth === maxDepth || currentMax === currentMax || tw !== null;
-  if (!hasHs && !hasCurve && tpMin !== tpMin && tpMax !== tpMax && bands.length === 0 && !hasBed && windMax !== windMax && !hasTide) {
+  if (
+    !hasHs &&
+    !hasCurve &&
+    tpMin !== tpMin &&
+    tpMax !== tpMax &&
+    bands.length === 0 &&
+    !hasBed &&
+    windMax !== windMax &&
+    !hasTide &&
+    responses.length === 0
+  ) {
     throw new RangeError('an operation needs at least one limit');
   }
 
@@ -153,6 +171,7 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
     tideWindow: tw,
     needDepth: minDepth === minDepth || maxDepth === maxDepth,
     needCurrent: currentMax === currentMax,
+    responses,
     trH,
   };
 }

@@ -1,4 +1,5 @@
 import { compileLimits } from './compiled-limits';
+import { responseClass, responseLimitSeries } from './response-limits';
 import { tideWindowMarginH } from './tide-window';
 import { LIMIT, STATUS, type AlphaTable, type HourlyEvaluation, type OperationSpec, type SiteSeries } from './types';
 
@@ -278,9 +279,40 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
         bestLim = LIMIT.TIDE_WINDOW;
       }
     }
-    status[i] = CLASS_STATUS[bestCls];
+    // bestCls -1: only response limits are set; the pass below decides.
+    status[i] = bestCls < 0 ? STATUS.WORKABLE : CLASS_STATUS[bestCls];
     limiting[i] = bestLim;
     marginRel[i] = bestRel;
+  }
+  if (c.responses.length > 0) {
+    // Response limits (docs/domain.md#vessel-response) in a pass of their own: a missing value is no
+    // data; else the class and relative margin (OPWF_R - R) / OPWF_R join the record's as above.
+    const { values, hsTotal } = responseLimitSeries(series, op, c.responses);
+    const tmp = new Float64Array(2);
+    const statusClass = new Int8Array(4).fill(-1);
+    statusClass[STATUS.WORKABLE] = 0;
+    statusClass[STATUS.MARGINAL] = 1;
+    statusClass[STATUS.NOT_WORKABLE] = 2;
+    c.responses.forEach((l, r) => {
+      const v = values[r];
+      for (let i = 0; i < n; i++) {
+        if (status[i] === NO_DATA) continue;
+        if (v[i] !== v[i] || hsTotal[i] !== hsTotal[i]) {
+          status[i] = NO_DATA;
+          limiting[i] = NONE;
+          marginRel[i] = NaN;
+          continue;
+        }
+        const k = responseClass(c, v[i], l.max, hsTotal[i], tmp);
+        const prev = statusClass[status[i]];
+        // Only the limits that decide count (docs above): a worse class wins, an equal one by the smaller margin.
+        if (k > prev || (k === prev && tmp[0] < marginRel[i])) {
+          status[i] = CLASS_STATUS[k];
+          limiting[i] = LIMIT.RESPONSE;
+          marginRel[i] = tmp[0];
+        }
+      }
+    });
   }
   return out;
 }

@@ -1,13 +1,42 @@
+import {
+  mostProbableMaximum,
+  prepareRao,
+  responseLabel,
+  responseMoments,
+  responseUnit,
+  significantAmplitude,
+  zeroCrossingPeriod,
+  type SeaPartition,
+} from '../response';
 import { alphaFor } from './alpha-factor';
+import { DEFAULT_MPM_DURATION_H, responseSettings, totalHs } from './response-limits';
 import { tideWindowMarginH } from './tide-window';
 import type { AlphaTable, LimitName, OperationSpec, TideExtremes } from './types';
+
+/** The response behind a response limit's check (docs/domain.md#vessel-response). */
+export interface ResponseCheckDetail {
+  /** RAO column, e.g. 'roll_deg_per_m'. */
+  response: string;
+  statistic: 'significant' | 'mpm';
+  durationH: number;
+  /** R_s = 2 sqrt(m0) and R_mpm over the limit's duration, in the response's unit. */
+  significant: number | null;
+  mpm: number | null;
+  /** Tz of the response, s. */
+  tz: number | null;
+  /** Total Hs of the partitions and the equivalent Hs limit Hs * R_lim / R, m. */
+  hsTotal: number | null;
+  hsEquivalent: number | null;
+  /** The partition that gives most of the response's m0, with its share (0-1). */
+  drivenBy: { kind: SeaPartition['kind']; index: number; share: number } | null;
+}
 
 /** One limit tested against one hour: the values behind the "chain" view of the board. */
 export interface LimitCheck {
   limit: LimitName;
   /** Plain-words label, e.g. "Hs max". */
   label: string;
-  unit: 'm' | 's' | 'm/s' | 'h';
+  unit: 'm' | 's' | 'm/s' | 'h' | 'deg' | 'm/s²';
   /** The hour's value of the limited quantity (null when missing). */
   value: number | null;
   /** The operation limit OPLIM (for a band: its nearer edge). */
@@ -23,6 +52,8 @@ export interface LimitCheck {
   metAtOplim: boolean | null;
   /** Why the limit is broken, in words, where the numbers alone do not say it (the Hs-Tp curve). */
   reason?: string;
+  /** For a response limit: the response's figures. */
+  response?: ResponseCheckDetail;
 }
 
 /** A number as people write it: at most one decimal, no trailing zero (14.73 → "14.7", 14 → "14"). */
@@ -58,6 +89,8 @@ export interface HourValues {
   /** The hour's start, UTC epoch ms, and the predicted extremes around it (for a tide window). */
   timeMs?: number;
   tide?: TideExtremes;
+  /** Sea partitions at the worksite (for response limits); absent: response limits find no data. */
+  partitions?: SeaPartition[];
 }
 
 export type HourStatus = 'workable' | 'marginal' | 'not_workable' | 'no_data';
@@ -266,6 +299,60 @@ export function explainHour(
       met: has ? m >= 0 : null,
       ...(has && m < 0 ? { reason: `${words1(-m)} h outside the window around ${tw.reference} water` } : {}),
     });
+  }
+
+  if (l.responses && l.responses.length > 0) {
+    const parts = v.partitions ?? [];
+    const settings = responseSettings(l.responseSea);
+    const rao = op.vessel ? prepareRao(op.vessel.raos) : null;
+    const hsTotal = parts.length > 0 ? totalHs(parts) : NaN;
+    for (const r of l.responses) {
+      const durationH = r.durationH ?? DEFAULT_MPM_DURATION_H;
+      const known = rao !== null && rao.amplitudes[r.response] !== undefined && parts.length > 0;
+      const m = known ? responseMoments(rao, r.response, op.vessel!.headingDeg, parts, settings) : null;
+      const has = m !== null && ok(m.m0) && ok(hsTotal);
+      const significant = has ? significantAmplitude(m.m0) : null;
+      const mpm = has ? mostProbableMaximum(m.m0, m.m2, durationH) : null;
+      const value = r.statistic === 'significant' ? significant : mpm;
+      // Alpha through the equivalent Hs limit (docs/domain.md#vessel-response; see response-limits.ts).
+      const hsEq = value === null ? null : value > 0 ? (hsTotal * r.max) / value : Infinity;
+      const a = hsEq === null ? null : useAlpha ? alphaFor(alphaTable, op.tpopH, hsEq, tr, op.weatherRestricted) : 1;
+      const opwf = a === null ? null : a * r.max;
+      let drivenBy: ResponseCheckDetail['drivenBy'] = null;
+      if (has && m.m0 > 0 && parts.length > 1) {
+        parts.forEach((p, index) => {
+          const share = responseMoments(rao!, r.response, op.vessel!.headingDeg, [p], settings).m0 / m.m0;
+          if (!drivenBy || share > drivenBy.share) drivenBy = { kind: p.kind, index, share };
+        });
+      } else if (has && parts.length === 1) drivenBy = { kind: parts[0].kind, index: 0, share: 1 };
+      const unit = responseUnit(r.response);
+      push({
+        limit: 'response',
+        label: `${responseLabel(r.response)} ${r.statistic === 'significant' ? 'significant' : `most probable max (${words1(durationH)} h)`}`,
+        unit: unit === 'deg' || unit === 'm/s' || unit === 'm/s²' ? unit : 'm',
+        value,
+        oplim: r.max,
+        opwf,
+        alpha: a,
+        margin: value !== null && opwf !== null ? opwf - value : null,
+        met: value !== null && opwf !== null ? value <= opwf : null,
+        metAtOplim: value !== null ? value <= r.max : null,
+        response: {
+          response: r.response,
+          statistic: r.statistic,
+          durationH,
+          significant,
+          mpm,
+          tz: has && m.m0 > 0 ? zeroCrossingPeriod(m.m0, m.m2) : null,
+          hsTotal: ok(hsTotal) ? hsTotal : null,
+          hsEquivalent: hsEq !== null && Number.isFinite(hsEq) ? hsEq : null,
+          drivenBy,
+        },
+        ...(!known && op.vessel && rao && rao.amplitudes[r.response] === undefined
+          ? { reason: `the vessel has no RAO for ${responseLabel(r.response)}` }
+          : {}),
+      });
+    }
   }
 
   let status: HourStatus;

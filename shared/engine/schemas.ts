@@ -3,6 +3,7 @@ import { z } from 'zod';
 import '../schemas/words';
 import type { AlphaTable, OperationLimits, OperationSpec } from './types';
 import { alphaTableCoverageProblem } from './alpha-factor';
+import { parseResponseColumn } from '../response/rao';
 
 /**
  * Zod schemas for operation limits, operations and alpha tables, shared by the server (request
@@ -25,6 +26,10 @@ export const LIMIT_RANGES = {
   clearanceM: { min: 0, max: 50 },
   currentMps: { min: 0.05, max: 10 },
   tideWindowH: { min: 0, max: 12 },
+  responseMax: { min: 0.001, max: 1000 },
+  responseDurationH: { min: 0.1, max: 100 },
+  gamma: { min: 1, max: 20 },
+  spreadingN: { min: 1, max: 100 },
 } as const;
 
 const R = LIMIT_RANGES;
@@ -43,6 +48,30 @@ export const BED_VELOCITY_METHODS = ['linear', 'soulsby'] as const;
 
 /** High or low water, the reference of a tide window. */
 export const TIDE_REFERENCES = ['high', 'low'] as const;
+
+/** Statistics a response limit may be set on (docs/domain.md#vessel-response). */
+export const RESPONSE_STATISTICS = ['significant', 'mpm'] as const;
+
+/** A response limit: the RAO column, the statistic, its duration (mpm, default 3 h) and the maximum in the response's unit. */
+export const responseLimitSchema = z.object({
+  response: z
+    .string({ error: 'Response must be an RAO column name' })
+    .max(80)
+    .refine((v) => parseResponseColumn(v) !== null, 'Response must be an RAO column such as roll_deg_per_m or acc_z_m_s2_per_m@crane_tip'),
+  statistic: z.enum(RESPONSE_STATISTICS),
+  durationH: ranged(R.responseDurationH, 'Duration', 'h').nullish(),
+  max: ranged(R.responseMax, 'Response max', '(in the response unit)'),
+});
+
+const spreadingSchema = (what: string) => z.union([ranged(R.spreadingN, what, ''), z.literal('long-crested')]).nullish();
+
+/** Spectrum options of the response limits; absent values take the defaults of docs/domain.md#vessel-response. */
+export const responseSeaSchema = z.object({
+  windSeaGamma: ranged(R.gamma, 'Wind-sea gamma', '').nullish(),
+  swellGamma: ranged(R.gamma, 'Swell gamma', '').nullish(),
+  windSeaSpreading: spreadingSchema('Wind-sea spreading exponent'),
+  swellSpreading: spreadingSchema('Swell spreading exponent'),
+});
 
 /**
  * Limits of an operation: each optional (absent or null), at least one set (an empty band list
@@ -78,6 +107,8 @@ export const operationLimitsSchema = z
         after: ranged(R.tideWindowH, 'Hours after', 'h'),
       })
       .nullish(),
+    responses: z.array(responseLimitSchema).max(20, 'At most 20 response limits').nullish(),
+    responseSea: responseSeaSchema.nullish(),
   })
   .superRefine((v, ctx) => {
     const curve = v.hsTpCurve ?? [];
@@ -115,7 +146,8 @@ export const operationLimitsSchema = z
       v.minDepth != null ||
       v.maxDepth != null ||
       v.currentMax != null ||
-      v.tideWindow != null;
+      v.tideWindow != null ||
+      (v.responses ?? []).length > 0;
     if (!any) ctx.addIssue({ code: 'custom', path: [], message: 'Set at least one limit' });
   });
 

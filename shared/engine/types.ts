@@ -1,3 +1,5 @@
+import type { RaoTable, SeaPartitionSeries, Spreading } from '../response';
+
 /**
  * Types and codes of the go/no-go engine.
  *
@@ -32,6 +34,11 @@ export interface SiteSeries {
   currentMps?: Float64Array;
   /** Predicted high and low waters around the series (docs/domain.md#tide); only needed by a tide window. */
   tide?: TideExtremes;
+  /**
+   * Sea partitions at the worksite (docs/domain.md#vessel-response), each of the series' length;
+   * only needed by response limits (absent: a response limit finds no data).
+   */
+  partitions?: SeaPartitionSeries[];
 }
 
 /**
@@ -55,6 +62,35 @@ export interface TideWindowLimit {
   before: number;
   /** Hours after the extreme, >= 0. */
   after: number;
+}
+
+/**
+ * A limit on a vessel response (docs/domain.md#vessel-response): the significant amplitude
+ * R_s = 2 sqrt(m0), or the most probable maximum over `durationH` (default 3 h), at most `max` in
+ * the response's unit (m, deg, m/s, m/s^2). Alpha applies through the equivalent Hs limit.
+ */
+export interface ResponseLimit {
+  /** The RAO column, e.g. 'roll_deg_per_m' or 'acc_z_m_s2_per_m@crane_tip'. */
+  response: string;
+  statistic: 'significant' | 'mpm';
+  durationH?: number | null;
+  max: number;
+}
+
+/** How an operation shapes each partition's spectrum (defaults: DEFAULT_RESPONSE_SEA of shared/response). */
+export interface ResponseSeaOptions {
+  /** Wind-sea gamma; absent or null: the DNV-RP-C205 rule from Hs and Tp. */
+  windSeaGamma?: number | null;
+  swellGamma?: number | null;
+  windSeaSpreading?: Spreading | null;
+  swellSpreading?: Spreading | null;
+}
+
+/** The vessel an operation is done from, as the engine needs it: its RAOs and fixed heading. */
+export interface OperationVessel {
+  raos: RaoTable;
+  /** Vessel heading, deg true. */
+  headingDeg: number;
 }
 
 /** Near-bed orbital velocity method named by a bed-velocity limit. */
@@ -91,6 +127,10 @@ export interface OperationLimits {
   currentMax?: number | null;
   /** Tide window around the predicted high or low waters; exact, no alpha. */
   tideWindow?: TideWindowLimit | null;
+  /** Vessel-response limits (need the operation's vessel); alpha through the equivalent Hs limit. */
+  responses?: ResponseLimit[] | null;
+  /** Spectrum shape options for the response limits. */
+  responseSea?: ResponseSeaOptions | null;
 }
 
 /** An operation as the engine needs it. */
@@ -102,6 +142,8 @@ export interface OperationSpec {
   /** Weather-restricted operation (planned on a forecast with OPWF = alpha * OPLIM). */
   weatherRestricted: boolean;
   limits: OperationLimits;
+  /** The vessel, needed by response limits (absent: they find no data). */
+  vessel?: OperationVessel | null;
 }
 
 /**
@@ -132,12 +174,24 @@ export const LIMIT = {
   MAX_DEPTH: 9,
   CURRENT: 10,
   TIDE_WINDOW: 11,
+  RESPONSE: 12,
 } as const;
 export type LimitCode = (typeof LIMIT)[keyof typeof LIMIT];
 
 /** Names of the limits, used as keys of per-limit margins. */
 export type LimitName =
-  'hs' | 'hsTpCurve' | 'tpMin' | 'tpMax' | 'tpBand' | 'bedVelocity' | 'wind' | 'minDepth' | 'maxDepth' | 'current' | 'tideWindow';
+  | 'hs'
+  | 'hsTpCurve'
+  | 'tpMin'
+  | 'tpMax'
+  | 'tpBand'
+  | 'bedVelocity'
+  | 'wind'
+  | 'minDepth'
+  | 'maxDepth'
+  | 'current'
+  | 'tideWindow'
+  | 'response';
 
 /** Name of each limit code, indexed by code; `LIMIT_NAMES[LIMIT.NONE]` is null. */
 export const LIMIT_NAMES: readonly (LimitName | null)[] = [
@@ -153,6 +207,7 @@ export const LIMIT_NAMES: readonly (LimitName | null)[] = [
   'maxDepth',
   'current',
   'tideWindow',
+  'response',
 ];
 
 /** Hourly evaluation of one operation over a series. */

@@ -1,5 +1,6 @@
 import { alphaAt, bandDistance, compileLimits, curveHsAt } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
+import { responseClass, responseLimitSeries } from './response-limits';
 import { tideWindowMarginH } from './tide-window';
 import type { AlphaTable, LimitName, OperationSpec, SiteSeries, UsableWindow } from './types';
 import { recordSteps } from './record-steps';
@@ -23,7 +24,8 @@ export interface WindowOptions {
  * bands, the distance to the nearest band edge, s; bed velocity, m/s; wind, m/s. `relative` is the
  * minimum over the records and limits of margin / limit (dimensionless; for a band, over its
  * nearest edge's Tp), the same figure as evaluateHours' marginRel. Depth limits in m, current in
- * m/s, the tide window in hours inside it (docs/domain.md#tide).
+ * m/s, the tide window in hours inside it (docs/domain.md#tide); response limits (all of them together
+ * under 'response') their relative margin (OPWF_R - R) / OPWF_R, dimensionless (docs/domain.md#vessel-response).
  *
  * @param series the worksite series the statuses were computed from
  * @param op the operation
@@ -48,6 +50,8 @@ export function usableWindows(
   const bedArr = c.bedSoulsby ? series.bedVelocitySoulsbyMps : series.bedVelocityLinearMps;
   const relOut = new Float64Array(1);
   const windows: UsableWindow[] = [];
+  const responses = c.responses.length > 0 ? responseLimitSeries(series, op, c.responses) : null;
+  const responseOut = new Float64Array(2);
 
   for (let i = 0; i < rem.length;) {
     const count = rem[i];
@@ -91,6 +95,13 @@ export function usableWindows(
         if (c.tideWindow) {
           const m = tideWindowMarginH(series.tide, c.tideWindow, timeMs[k]);
           low('tideWindow', m, m / (c.tideWindow.before + c.tideWindow.after));
+        }
+        if (responses) {
+          // Response limits have units of their own (m, deg, m/s, m/s^2): their entry is the relative margin.
+          c.responses.forEach((l, r) => {
+            responseClass(c, responses.values[r][k], l.max, responses.hsTotal[k], responseOut);
+            low('response', responseOut[0], responseOut[0]);
+          });
         }
       }
       const startMs = timeMs[i];

@@ -1,0 +1,151 @@
+/**
+ * Response limits in the engine (docs/domain.md#vessel-response): per record, the response
+ * statistic from the worksite's sea partitions and the operation's vessel, and its class against
+ * the limit with alpha applied through the equivalent Hs limit.
+ *
+ * Equivalent Hs: with every partition's shape held (its Tp, direction, spreading and the gamma
+ * chosen for the record), scaling all partitions' Hs by k scales m0 and m2 of the response by
+ * k^2, so R_s scales by k and Tz_R does not change; R_mpm = sqrt(2 m0 ln(tau/Tz_R)) then scales
+ * by k too. So for both statistics the record's limit is the total-Hs limit
+ * Hs_eq = Hs * R_lim / R exactly (no approximation for R_mpm), and alpha is looked up at Hs_eq:
+ * met when R <= alpha(Hs_eq) * R_lim, marginal when only R <= R_lim.
+ */
+import {
+  DEFAULT_RESPONSE_SEA,
+  prepareRao,
+  responseMoments,
+  responseStatistic,
+  type RaoTable,
+  type ResponseMoments,
+  type ResponseSeaSettings,
+  type SeaPartition,
+  type SeaPartitionSeries,
+} from '../response';
+import { alphaAt, type CompiledLimits } from './compiled-limits';
+import type { OperationSpec, ResponseLimit, ResponseSeaOptions, SiteSeries } from './types';
+
+/** Default duration of a most-probable-maximum limit, h (docs/domain.md#vessel-response). */
+export const DEFAULT_MPM_DURATION_H = 3;
+
+/** The operation's spectrum settings with the defaults filled in. */
+export function responseSettings(o: ResponseSeaOptions | null | undefined): ResponseSeaSettings {
+  return {
+    windSeaGamma: o?.windSeaGamma ?? DEFAULT_RESPONSE_SEA.windSeaGamma,
+    swellGamma: o?.swellGamma ?? DEFAULT_RESPONSE_SEA.swellGamma,
+    windSeaSpreading: o?.windSeaSpreading ?? DEFAULT_RESPONSE_SEA.windSeaSpreading,
+    swellSpreading: o?.swellSpreading ?? DEFAULT_RESPONSE_SEA.swellSpreading,
+  };
+}
+
+/** Total Hs of a record from its partitions, sqrt(sum Hs_i^2) (energies add); NaN when one is missing. */
+export function totalHs(partitions: readonly { hsM: number }[]): number {
+  let e = 0;
+  for (const p of partitions) e += p.hsM * p.hsM;
+  return Math.sqrt(e);
+}
+
+const tableIds = new WeakMap<RaoTable, number>();
+let nextTableId = 1;
+function tableId(t: RaoTable): number {
+  let id = tableIds.get(t);
+  if (id === undefined) {
+    id = nextTableId++;
+    tableIds.set(t, id);
+  }
+  return id;
+}
+
+interface MomentSeries {
+  m0: Float64Array;
+  m2: Float64Array;
+}
+const momentCache = new WeakMap<SeaPartitionSeries[], Map<string, MomentSeries>>();
+
+/** Moments of one response per record of the partition series (cached per series, vessel, heading and settings). */
+function momentSeries(
+  parts: SeaPartitionSeries[],
+  raos: RaoTable,
+  headingDeg: number,
+  settings: ResponseSeaSettings,
+  name: string,
+): MomentSeries {
+  let perSeries = momentCache.get(parts);
+  if (!perSeries) {
+    perSeries = new Map();
+    momentCache.set(parts, perSeries);
+  }
+  const key = `${tableId(raos)}|${headingDeg}|${settings.windSeaGamma}|${settings.swellGamma}|${settings.windSeaSpreading}|${settings.swellSpreading}|${name}`;
+  const hit = perSeries.get(key);
+  if (hit) return hit;
+  const rao = prepareRao(raos);
+  const n = parts.length ? parts[0].hsM.length : 0;
+  const m0 = new Float64Array(n);
+  const m2 = new Float64Array(n);
+  if (!rao.amplitudes[name]) {
+    m0.fill(NaN);
+    m2.fill(NaN);
+  } else {
+    const rec: SeaPartition[] = parts.map((p) => ({ kind: p.kind, hsM: 0, tpS: 0, dirDeg: 0 }));
+    const m: ResponseMoments = { m0: 0, m2: 0, m0Outside: 0 };
+    for (let i = 0; i < n; i++) {
+      for (let k = 0; k < parts.length; k++) {
+        rec[k].hsM = parts[k].hsM[i];
+        rec[k].tpS = parts[k].tpS[i];
+        rec[k].dirDeg = parts[k].dirDeg[i];
+      }
+      responseMoments(rao, name, headingDeg, rec, settings, m);
+      m0[i] = m.m0;
+      m2[i] = m.m2;
+    }
+  }
+  const value = { m0, m2 };
+  perSeries.set(key, value);
+  return value;
+}
+
+/** Per response limit of the operation, its statistic per record (NaN: no data), and the total Hs per record. */
+export interface ResponseLimitSeries {
+  values: Float64Array[];
+  hsTotal: Float64Array;
+}
+
+/**
+ * The operation's response statistics over the series. Without partitions in the series or a
+ * vessel on the operation every value is NaN (no data).
+ */
+export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limits: readonly ResponseLimit[]): ResponseLimitSeries {
+  const n = series.timeMs.length;
+  const parts = series.partitions;
+  const hsTotal = new Float64Array(n);
+  if (!parts || parts.length === 0 || !op.vessel) {
+    hsTotal.fill(NaN);
+    return { values: limits.map(() => new Float64Array(n).fill(NaN)), hsTotal };
+  }
+  for (let i = 0; i < n; i++) {
+    let e = 0;
+    for (const p of parts) e += p.hsM[i] * p.hsM[i];
+    hsTotal[i] = Math.sqrt(e);
+  }
+  const settings = responseSettings(op.limits.responseSea);
+  const values = limits.map((l) => {
+    const ms = momentSeries(parts, op.vessel!.raos, op.vessel!.headingDeg, settings, l.response);
+    const out = new Float64Array(n);
+    const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
+    for (let i = 0; i < n; i++) out[i] = responseStatistic({ m0: ms.m0[i], m2: ms.m2[i] }, l.statistic, d);
+    return out;
+  });
+  return { values, hsTotal };
+}
+
+/**
+ * Class of one response value against its limit: 0 met at OPWF, 1 met at OPLIM only, 2 broken;
+ * `out[0]` receives the relative margin (OPWF_R - R) / OPWF_R and `out[1]` OPWF_R, where
+ * OPWF_R = alpha(Hs_eq) * R_lim and Hs_eq = Hs * R_lim / R (see the module comment).
+ */
+export function responseClass(c: CompiledLimits, value: number, max: number, hsTotal: number, out: Float64Array): number {
+  const hsEq = value > 0 ? (hsTotal * max) / value : Infinity;
+  const opwf = alphaAt(c, hsEq) * max;
+  out[0] = (opwf - value) / opwf;
+  out[1] = opwf;
+  return (value > opwf ? 1 : 0) + (value > max ? 1 : 0);
+}

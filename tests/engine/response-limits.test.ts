@@ -1,0 +1,106 @@
+import { describe, expect, it } from 'vitest';
+import {
+  DEFAULT_ALPHA_TABLE,
+  evaluateHours,
+  evaluateStatus,
+  evaluateStatusMany,
+  LIMIT,
+  STATUS,
+  type OperationSpec,
+  type SiteSeries,
+} from '../../shared/engine';
+import { explainHour } from '../../shared/engine/explain-hour';
+import type { RaoTable } from '../../shared/response';
+import { makeSeries } from './series-factory';
+
+// Heave RAO 1 everywhere: R_s = Hs/2 (heave follows the surface; docs/domain.md#vessel-response).
+const HEAVE_ONE: RaoTable = {
+  periodsS: [2, 30],
+  headingsDeg: [0, 180],
+  responses: {
+    heave_m_per_m: [
+      [1, 1],
+      [1, 1],
+    ],
+  },
+};
+
+const HS = [1.4, 1.6, 2.2, NaN, 0.5];
+function seriesWithPartition(): SiteSeries {
+  const s = makeSeries({ hsM: HS, tpS: [7, 7, 7, 7, 7] });
+  s.partitions = [{ kind: 'windSea', hsM: s.hsM, tpS: s.tpS, dirDeg: new Float64Array(HS.length).fill(30) }];
+  return s;
+}
+
+const op = (limits: OperationSpec['limits'], vessel: OperationSpec['vessel'] = { raos: HEAVE_ONE, headingDeg: 10 }): OperationSpec => ({
+  tpopH: 6,
+  tcH: 2,
+  weatherRestricted: true,
+  limits,
+  vessel,
+});
+
+describe('response limits in the engine (docs/domain.md#vessel-response)', () => {
+  const heaveLimit = op({ responses: [{ response: 'heave_m_per_m', statistic: 'significant', max: 1 }] });
+
+  it('alpha through the equivalent Hs: a heave R_s limit of 1 m with RAO 1 acts as an Hs limit of 2 m (by hand)', () => {
+    // Hs_eq = Hs * 1 / (Hs/2) = 2 m; default table row TPOP <= 12 h, column 2 m: alpha 0.76 (docs/domain.md#weather-restricted, from memory of DNV-ST-N001).
+    // Hs 1.4: R 0.70 <= 0.76 workable; Hs 1.6: R 0.80 in (0.76, 1] marginal; Hs 2.2: R 1.1 > 1 not workable; NaN no data; 0.5 workable.
+    const expected = [STATUS.WORKABLE, STATUS.MARGINAL, STATUS.NOT_WORKABLE, STATUS.NO_DATA, STATUS.WORKABLE];
+    const s = seriesWithPartition();
+    expect(Array.from(evaluateStatus(s, heaveLimit, { alphaTable: DEFAULT_ALPHA_TABLE }))).toEqual(expected);
+    const ev = evaluateHours(s, heaveLimit, { alphaTable: DEFAULT_ALPHA_TABLE });
+    expect(Array.from(ev.status)).toEqual(expected);
+    expect(ev.limiting[1]).toBe(LIMIT.RESPONSE);
+    // Relative margin of Hs 1.4: (0.76 - 0.7) / 0.76 by hand.
+    expect(ev.marginRel[0]).toBeCloseTo(0.06 / 0.76, 5);
+    // The same hours as an Hs max of 2 m (the equivalence itself).
+    const hsOp = op({ hsMax: 2 }, null);
+    expect(Array.from(evaluateStatus(s, hsOp, { alphaTable: DEFAULT_ALPHA_TABLE }))).toEqual(expected);
+  });
+
+  it('without alpha, only R_lim counts; the fast many-operation path falls back to the same statuses', () => {
+    const s = seriesWithPartition();
+    expect(Array.from(evaluateStatus(s, heaveLimit, { alphaTable: DEFAULT_ALPHA_TABLE, alpha: false }))).toEqual([3, 3, 1, 0, 3]);
+    const many = evaluateStatusMany(s, [heaveLimit, op({ hsMax: 2 }, null)], { alphaTable: DEFAULT_ALPHA_TABLE });
+    expect(Array.from(many[0])).toEqual(Array.from(evaluateStatus(s, heaveLimit, { alphaTable: DEFAULT_ALPHA_TABLE })));
+  });
+
+  it('no partitions, no vessel or an RAO the vessel lacks: no data', () => {
+    const bare = makeSeries({ hsM: HS, tpS: [7, 7, 7, 7, 7] });
+    expect(Array.from(evaluateStatus(bare, heaveLimit, { alphaTable: DEFAULT_ALPHA_TABLE }))).toEqual([0, 0, 0, 0, 0]);
+    const noVessel = op(heaveLimit.limits, null);
+    expect(Array.from(evaluateStatus(seriesWithPartition(), noVessel, { alphaTable: DEFAULT_ALPHA_TABLE }))).toEqual([0, 0, 0, 0, 0]);
+    const roll = op({ responses: [{ response: 'roll_deg_per_m', statistic: 'significant', max: 2 }] });
+    expect(Array.from(evaluateStatus(seriesWithPartition(), roll, { alphaTable: DEFAULT_ALPHA_TABLE }))).toEqual([0, 0, 0, 0, 0]);
+  });
+
+  it('explainHour shows R_s, R_mpm, OPWF, margin and the driving partition', () => {
+    const mpmOp = op({ responses: [{ response: 'heave_m_per_m', statistic: 'mpm', max: 2 }] });
+    const { status, checks } = explainHour(
+      {
+        hsM: 1.6,
+        tpS: 7,
+        bedVelocityLinearMps: 0,
+        bedVelocitySoulsbyMps: 0,
+        windMps: 0,
+        partitions: [
+          { kind: 'windSea', hsM: 1.2, tpS: 6, dirDeg: 30 },
+          { kind: 'swell', hsM: 0.8, tpS: 13, dirDeg: 250 },
+        ],
+      },
+      mpmOp,
+      DEFAULT_ALPHA_TABLE,
+    );
+    const c = checks[0];
+    // Total Hs = sqrt(1.2^2 + 0.8^2) = 1.4422 m; R_s = Hs/2 = 0.7211 m (by hand).
+    expect(c.response?.significant).toBeCloseTo(Math.sqrt(1.44 + 0.64) / 2, 10);
+    expect(c.response?.hsTotal).toBeCloseTo(Math.sqrt(2.08), 10);
+    // R_mpm (Longuet-Higgins 1952) lies above R_s over 3 h: sqrt(2 m0 ln N) with N of order 1e3 gives about 1.9 R_s.
+    expect(c.value!).toBeGreaterThan(1.7 * c.response!.significant!);
+    expect(c.response?.drivenBy?.kind).toBe('windSea');
+    expect(c.response?.drivenBy?.share).toBeCloseTo(1.44 / 2.08, 6);
+    expect(c.margin).toBeCloseTo(c.opwf! - c.value!, 12);
+    expect(['workable', 'marginal', 'not_workable']).toContain(status);
+  });
+});
