@@ -39,6 +39,10 @@ export interface OperationResponse {
   tr: number;
   weatherRestricted: boolean;
   limits: OperationLimits;
+  /** the vessel the operation is done from, or null */
+  vesselId: string | null;
+  /** the vessel's fixed heading, deg true, or null */
+  heading: number | null;
   /** worksite ids; empty = every worksite of the project */
   siteIds: string[];
   /** user ids of the assigned skippers */

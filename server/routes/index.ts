@@ -6,6 +6,7 @@ import { projectRoutes } from './projects';
 import { adminUserRoutes } from './admin-users';
 import { sitesRoutes } from './sites';
 import { operationsRoutes } from './operations';
+import { vesselsRoutes } from './vessels';
 import { projectSetupRoutes } from './project-setup';
 import { auditRoutes } from './audit';
 import { datasetsRoutes } from './datasets';
@@ -34,6 +35,7 @@ export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
   adminUserRoutes,
   sitesRoutes,
   operationsRoutes,
+  vesselsRoutes,
   projectSetupRoutes,
   auditRoutes,
   datasetsRoutes,

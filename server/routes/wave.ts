@@ -1,5 +1,8 @@
 import { Router } from 'express';
 import { RegularWaveQuery, SeaStateQuery, WaveTableQuery } from '../../shared/schemas/wave';
+import { ResponseQuery } from '../../shared/schemas/vessel';
+import { requireProjectMember } from '../services/project-access';
+import { vesselById, vesselResponseAnswer } from '../services/vessels';
 import type { AppDeps } from '../deps';
 import { requireUser } from '../http/context';
 import { HttpError, parseInput } from '../http/errors';
@@ -15,8 +18,21 @@ function physics<T>(fn: () => T): T {
   }
 }
 
-export function waveRoutes(_deps: AppDeps): Router {
+export function waveRoutes({ db }: AppDeps): Router {
   const router = Router();
+
+  /**
+   * GET /api/wave/response?vesselId=&heading=&hs=&tp=&dir= (or &partitions=JSON): per response of
+   * the vessel R_s, R_mpm over 3 h, Tz and the response spectrum (docs/domain.md#vessel-response).
+   * Members of the vessel's project only (404 otherwise, as for an unknown vessel).
+   */
+  router.get('/wave/response', async (req, res) => {
+    requireUser(req);
+    const q = parseInput(ResponseQuery, req.query, 'query');
+    const row = await vesselById(db, q.vesselId);
+    await requireProjectMember(db, req, row.projectId);
+    res.json(physics(() => vesselResponseAnswer(row, q)));
+  });
 
   /** GET /api/wave/regular?period=&height=&depth=&z=: one regular wave by linear theory (SI units). */
   router.get('/wave/regular', (req, res) => {

@@ -167,7 +167,7 @@ export async function proposeLedger(
         t = transformForSite(series, src.dataPointDepthM, site);
         transformed.set(`${src.id}|${site.id}`, t);
       }
-      const ev = evaluateHours(t.engine, operationSpec(op), { alpha: false, alphaTable: setup.alphaTable });
+      const ev = evaluateHours(t.engine, operationSpec(op, setup.vessels), { alpha: false, alphaTable: setup.alphaTable });
       part = { timeMs: series.timeMs, status: ev.status, limiting: ev.limiting, stepMs: src.stepMinutes * 60_000 };
       statuses.set(key, part);
     }

@@ -9,7 +9,7 @@ import { idParam } from '../../shared/schemas/common';
 import { recurrenceText, type RecurrenceInput } from '../../shared/recurrence';
 import { nameKey, OperationInput, type OperationPatchInput } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
-import { operation, projectMember, worksite } from '../db/schema';
+import { operation, projectMember, vessel, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, notFound, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
@@ -33,6 +33,17 @@ export function normalizeLimits(limits: OperationLimits): OperationLimits {
     out.bedVelocityMethod = limits.bedVelocityMethod ?? 'linear';
   }
   if (limits.windMax != null) out.windMax = limits.windMax;
+  if (limits.responses != null && limits.responses.length > 0)
+    out.responses = limits.responses.map((r) => ({
+      response: r.response,
+      statistic: r.statistic,
+      ...(r.statistic === 'mpm' ? { durationH: r.durationH ?? 3 } : {}),
+      max: r.max,
+    }));
+  if (limits.responseSea != null) {
+    const sea = Object.fromEntries(Object.entries(limits.responseSea).filter(([, x]) => x != null));
+    if (Object.keys(sea).length > 0) out.responseSea = sea;
+  }
   return out;
 }
 
@@ -46,6 +57,8 @@ export function toOperationResponse(row: OperationRow): OperationResponse {
     tr: row.tpopH + row.tcH,
     weatherRestricted: row.weatherRestricted,
     limits: normalizeLimits(row.limits as OperationLimits),
+    vesselId: row.vesselId,
+    heading: row.headingDeg,
     siteIds: [...row.siteIds],
     skipperIds: [...row.skipperIds],
     recurrence: row.recurrence ?? null,
@@ -68,6 +81,8 @@ export function operationColumns(input: OperationInput) {
     tcH: input.tc,
     weatherRestricted: input.weatherRestricted,
     limits: normalizeLimits(input.limits) as Record<string, unknown>,
+    vesselId: input.vesselId,
+    headingDeg: input.heading,
     siteIds: input.siteIds,
     skipperIds: input.skipperIds,
   };
@@ -116,9 +131,16 @@ async function assertOperationNameFree(db: Db, projectId: string, name: string, 
 async function assertReferences(
   db: Db,
   projectId: string,
-  input: Pick<OperationInput, 'siteIds' | 'skipperIds'>,
-  previous?: Pick<OperationInput, 'siteIds' | 'skipperIds'>,
+  input: Pick<OperationInput, 'siteIds' | 'skipperIds' | 'vesselId'>,
+  previous?: Pick<OperationInput, 'siteIds' | 'skipperIds' | 'vesselId'>,
 ): Promise<void> {
+  if (input.vesselId != null && input.vesselId !== previous?.vesselId) {
+    const [v] = await db
+      .select({ id: vessel.id })
+      .from(vessel)
+      .where(and(eq(vessel.projectId, projectId), eq(vessel.id, input.vesselId)));
+    if (!v) throw fieldError('vesselId', 'No vessel with this id in the project');
+  }
   const newSites = input.siteIds.filter((id) => !previous?.siteIds.includes(id));
   if (newSites.length > 0) {
     const rows = await db

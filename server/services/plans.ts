@@ -1,5 +1,6 @@
 import { LIMIT_NAMES, STATUS, alphaFactor, isWeatherRestricted, planOperation, recordSteps } from '../../shared/engine';
 import { explainHour, type HourStatus } from '../../shared/engine/explain-hour';
+import type { SeaPartition, SeaPartitionSeries } from '../../shared/response';
 import { transformOne } from '../../shared/waves';
 import { expandRecurrence, RecurrenceInput } from '../../shared/recurrence';
 import type { ConditionsAnswer, HourChainAnswer, OccurrenceStatus, OperationSitePlan, PlanAnswer } from '../../shared/api-types-plan';
@@ -131,7 +132,7 @@ async function computePlan(
   const perSite = new Map(setup.sites.map((s) => [s.id, transformForSite(series, row.dataPointDepthM, s)]));
   const plans: OperationSitePlan[] = [];
   for (const op of setup.operations) {
-    const spec = operationSpec(op);
+    const spec = operationSpec(op, setup.vessels);
     // The occurrences of a recurring operation are the same at each of its worksites: expanded once.
     const starts = recurrenceStarts(op.recurrence, series.timeMs, stepMs, options.now.getTime());
     for (const site of sitesOf(op, setup.sites)) {
@@ -242,6 +243,11 @@ export function occurrencesOf(
 
 const v = (x: number) => (Number.isNaN(x) ? null : x);
 
+/** One record of partition series, as explainHour takes it. */
+function hourPartitions(parts: SeaPartitionSeries[] | undefined, i: number): SeaPartition[] {
+  return (parts ?? []).map((p) => ({ kind: p.kind, hsM: p.hsM[i], tpS: p.tpS[i], dirDeg: p.dirDeg[i] }));
+}
+
 /** The chain behind one hour: data point values → Ks, Kr, flags → worksite values → each limit → margin. */
 export async function hourChain(
   db: Db,
@@ -273,7 +279,12 @@ export async function hourChain(
     { depthM: row.dataPointDepthM ?? Infinity },
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
-  const spec = operationSpec(op);
+  const spec = operationSpec(op, setup.vessels);
+  // The hour's sea partitions at the worksite, as the engine reads them (site-context's adapter).
+  const partitions =
+    (spec.limits.responses ?? []).length > 0
+      ? hourPartitions(transformForSite(series, row.dataPointDepthM, site).engine.partitions, i)
+      : undefined;
   const explained = explainHour(
     {
       hsM: chain.hsM,
@@ -284,6 +295,7 @@ export async function hourChain(
       depthM: chain.depthM,
       timeMs: series.timeMs[i],
       ...(tide ? { tide: tide.tide } : {}),
+      ...(partitions ? { partitions } : {}),
     },
     spec,
     setup.alphaTable,
@@ -366,7 +378,7 @@ export async function siteConditions(
     operations: setup.operations
       .filter((o) => sitesOf(o, setup.sites).some((s) => s.id === site.id))
       .map((o) => {
-        const spec = operationSpec(o);
+        const spec = operationSpec(o, setup.vessels);
         const hsMax = spec.limits.hsMax ?? null;
         return {
           id: o.id,

@@ -361,7 +361,7 @@ export async function importSetup(
       const siteIds = o.siteNames.map((n) => siteIdByKey.get(nameKey(n))!);
       const [row] = await tx
         .insert(operation)
-        .values({ projectId, ...operationColumns({ ...o, siteIds, skipperIds: [] }) })
+        .values({ projectId, ...operationColumns({ ...o, siteIds, skipperIds: [], vesselId: null, heading: null }) })
         .returning();
       const op = toOperationResponse(row);
       opIdByKey.set(nameKey(o.name), op.id);

@@ -8,44 +8,66 @@ import {
 } from '../../shared/engine';
 import { transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
 import type { Db } from '../db/client';
-import { operation, projectAlpha, worksite } from '../db/schema';
+import { operation, projectAlpha, vessel, worksite } from '../db/schema';
+import type { SeaPartitionSeries } from '../../shared/response';
 import type { SeaSeries } from './series-store';
 import { predictExtremes, predictLevels, tidePredictor, type TideStationInfo } from './tide';
 import type { TideExtremes } from '../../shared/engine';
 
 export type WorksiteRow = typeof worksite.$inferSelect;
 export type OperationRow = typeof operation.$inferSelect;
+export type VesselRow = typeof vessel.$inferSelect;
 
 /** What planning needs of a project: its worksites, operations and alpha table. */
 export interface ProjectSetup {
   sites: WorksiteRow[];
   operations: OperationRow[];
+  /** The project's vessels with their RAO tables (for response limits). */
+  vessels: VesselRow[];
   alphaTable: AlphaTable;
   alphaIsDefault: boolean;
 }
 
 export async function loadProjectSetup(db: Db, projectId: string): Promise<ProjectSetup> {
-  const [sites, operations, alphaRows] = await Promise.all([
+  const [sites, operations, alphaRows, vessels] = await Promise.all([
     db.select().from(worksite).where(eq(worksite.projectId, projectId)).orderBy(asc(worksite.name)),
     db.select().from(operation).where(eq(operation.projectId, projectId)).orderBy(asc(operation.name)),
     db.select().from(projectAlpha).where(eq(projectAlpha.projectId, projectId)),
+    db.select().from(vessel).where(eq(vessel.projectId, projectId)).orderBy(asc(vessel.name)),
   ]);
   return {
     sites,
     operations,
+    vessels,
     alphaTable: alphaRows[0]?.table ?? DEFAULT_ALPHA_TABLE,
     alphaIsDefault: !alphaRows[0],
   };
 }
 
-/** The operation as the engine takes it (limits validated again on the way out of storage). */
-export function operationSpec(row: OperationRow): OperationSpec {
+/**
+ * The operation as the engine takes it (limits validated again on the way out of storage), with
+ * its vessel's RAOs and heading when it names a vessel that has a table (else response limits
+ * find no data).
+ */
+export function operationSpec(row: OperationRow, vessels: readonly VesselRow[] = []): OperationSpec {
+  const v = row.vesselId ? vessels.find((x) => x.id === row.vesselId) : undefined;
   return {
     tpopH: row.tpopH,
     tcH: row.tcH,
     weatherRestricted: row.weatherRestricted,
     limits: operationLimitsSchema.parse(row.limits),
+    ...(v?.raos && row.headingDeg != null ? { vessel: { raos: v.raos, headingDeg: row.headingDeg } } : {}),
   };
+}
+
+/**
+ * ADAPTER, to switch at merge: the sea partitions at the worksite that response limits read
+ * (docs/domain.md#vessel-response). Until datasets carry partitions, the worksite's total sea
+ * (transformed Hs, Tp and the direction at the worksite) stands as one unpartitioned sea, treated
+ * as wind sea (the DNV gamma rule and cos^2 spreading apply to it).
+ */
+export function worksitePartitions(series: SeaSeries, transformed: TransformedSeries): SeaPartitionSeries[] {
+  return [{ kind: 'windSea', hsM: transformed.hsM, tpS: series.tp, dirDeg: transformed.dirDeg }];
 }
 
 /** The worksites an operation happens at (empty list = all). */
@@ -122,6 +144,7 @@ export function engineSeries(
     // With a tide the transformation wrote h(t); a reused `out` may hold an earlier worksite's, so only then.
     depthM: tide && transformed.depthM ? transformed.depthM : new Float64Array(series.timeMs.length).fill(site.depthM),
     ...(tide ? { tide: tide.tide } : {}),
+    partitions: worksitePartitions(series, transformed),
   };
 }
 

@@ -225,7 +225,7 @@ export function forEachOperationSite(
     let spec: OperationSpec | null = null;
     for (const site of sitesOf(op, setup.sites)) {
       if (!wanted(op.id, site.id)) continue;
-      spec ??= operationSpec(op);
+      spec ??= operationSpec(op, setup.vessels);
       const list = pairsBySite.get(site.id) ?? [];
       list.push({ op, spec });
       pairsBySite.set(site.id, list);
@@ -247,7 +247,8 @@ export function forEachOperationSite(
       tide ? { ...sea, waterLevelM: tide.waterLevelM } : sea,
       { depthM: row.dataPointDepthM ?? Infinity },
       { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
-      { out, fields: 'engine', prepared },
+      // Response limits read the direction at the worksite, which 'engine' leaves out.
+      { out, fields: pairs.some((p) => (p.spec.limits.responses ?? []).length > 0) ? 'all' : 'engine', prepared },
     );
     const engine: EngineSeries = engineSeries(series, t, site, tide);
     let calendar = calendars.get(site.timeZone);

@@ -1,7 +1,7 @@
 /** The audit trail's query. */
 import { z } from 'zod';
 
-export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project', 'campaign'] as const;
+export const AUDIT_ENTITIES = ['operation', 'worksite', 'alpha', 'project', 'campaign', 'vessel'] as const;
 export type AuditEntity = (typeof AUDIT_ENTITIES)[number];
 export const AUDIT_ACTIONS = ['create', 'update', 'delete', 'import'] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];

@@ -20,6 +20,13 @@ export const operationFields = {
   weatherRestricted: z.boolean({ error: 'Weather-restricted must be true or false' }),
   /** OPLIM: at least one limit (shared/engine/schemas.ts) */
   limits: operationLimitsSchema,
+  /** the vessel of the project the operation is done from (response limits need one); null = none */
+  vesselId: z.uuid('Must be a vessel id').nullable(),
+  /** the vessel's fixed heading, deg true (0-360); null = none */
+  heading: finite('Heading')
+    .min(0, 'Heading must be between 0 and 360 degrees')
+    .max(360, 'Heading must be between 0 and 360 degrees')
+    .nullable(),
   /** worksites of the project; empty = every worksite */
   siteIds: z.array(z.uuid('Must be a worksite id')).max(500, 'At most 500 worksites'),
   /** user ids of the project's skippers assigned to it */
@@ -32,9 +39,23 @@ export const operationFields = {
  * docs/domain.md#weather-restricted), and ids listed twice.
  */
 export function checkOperation(
-  v: { tpop?: number; tc?: number; weatherRestricted?: boolean; siteIds?: string[]; skipperIds?: string[] },
+  v: {
+    tpop?: number;
+    tc?: number;
+    weatherRestricted?: boolean;
+    siteIds?: string[];
+    skipperIds?: string[];
+    limits?: { responses?: unknown[] | null };
+    vesselId?: string | null;
+    heading?: number | null;
+  },
   ctx: z.RefinementCtx,
 ): void {
+  // Response limits are the vessel's motions at a heading (docs/domain.md#vessel-response).
+  if ((v.limits?.responses ?? []).length > 0) {
+    if (v.vesselId == null) ctx.addIssue({ code: 'custom', path: ['vesselId'], message: 'Response limits need a vessel' });
+    if (v.heading == null) ctx.addIssue({ code: 'custom', path: ['heading'], message: 'Response limits need the vessel heading' });
+  }
   if (v.weatherRestricted && v.tpop !== undefined && v.tc !== undefined) {
     const tr = v.tpop + v.tc;
     if (v.tpop > WEATHER_RESTRICTED_MAX_TPOP_H) {
@@ -67,6 +88,8 @@ export const OperationInput = z
     description: operationFields.description.default(''),
     siteIds: operationFields.siteIds.default([]),
     skipperIds: operationFields.skipperIds.default([]),
+    vesselId: operationFields.vesselId.default(null),
+    heading: operationFields.heading.default(null),
   })
   .superRefine(checkOperation);
 export type OperationInput = z.infer<typeof OperationInput>;

@@ -18,3 +18,4 @@ export * from './operation';
 export * from './alpha-table';
 export * from './setup-document';
 export * from './audit';
+export * from './vessel';

@@ -47,6 +47,7 @@ interface Params {
   datasetId: string;
   campaignId: string;
   entryId: string;
+  vesselId: string;
   userId: string;
   file: string;
   /** A campaign step's index. */
@@ -174,6 +175,12 @@ async function createLedgerEntry(projectId: string, operationId: string, siteId:
   return row.id;
 }
 
+async function createVessel(projectId: string): Promise<string> {
+  const res = await as.coordinator.post(`/api/projects/${projectId}/vessels`).send({ name: `Route security vessel ${next()}` });
+  if (res.status !== 201) throw new Error(`vessel failed: ${res.status} ${res.text}`);
+  return res.body.id;
+}
+
 async function calendarFile(): Promise<string> {
   const res = await as.skipper.post('/api/me/calendar');
   if (res.status !== 201) throw new Error(`calendar failed: ${res.status} ${res.text}`);
@@ -297,6 +304,19 @@ const TABLE: Record<string, RouteCase> = {
   'GET /wave/profile': { access: 'signedIn', query: () => ({ period: '8', height: '1', depth: '10' }) },
   'GET /wave/table': { access: 'signedIn', query: () => ({ from: '0.01', to: '0.5', step: '0.01' }) },
   'GET /wave/sea-state': { access: 'signedIn', query: () => ({ hs: '1.5', tp: '9', depth: '12' }) },
+  'GET /wave/response': {
+    access: 'signedIn',
+    why: 'no project in the path: answers only for a vessel of a project the caller is a member of (404 otherwise, tests/api/vessels.test.ts)',
+    query: (p) => ({ vesselId: p.vesselId, heading: '0', hs: '1.5', tp: '9', dir: '0' }),
+  },
+  'GET /projects/:projectId/vessels': { access: 'member' },
+  'POST /projects/:projectId/vessels': { access: 'coordinator', body: () => ({ name: `Route security vessel ${next()}` }) },
+  'GET /projects/:projectId/vessels/:vesselId/raos': { access: 'member' },
+  'POST /projects/:projectId/vessels/:vesselId/raos': {
+    access: 'coordinator',
+    upload: true,
+    why: 'the generic upload is a sea-state CSV: refused with 400 naming its columns',
+  },
 
   'GET /projects/:projectId/overview': { access: 'member', why: 'each role sees its own parts (coordinator counts only for coordinators)' },
   'GET /map-style': { access: 'signedIn', why: 'the tile style address and attribution only, no project data' },
@@ -508,10 +528,11 @@ beforeAll(async () => {
     projects.map(async (projectId): Promise<Params> => {
       const siteId = await createSite(projectId);
       const operationId = await createOperation(projectId, siteId);
-      const [datasetId, campaignId, entryId] = await Promise.all([
+      const [datasetId, campaignId, entryId, vesselId] = await Promise.all([
         uploadDataset(projectId),
         createCampaign(projectId, operationId, siteId),
         createLedgerEntry(projectId, operationId, siteId),
+        createVessel(projectId),
       ]);
       return {
         projectId,
@@ -520,6 +541,7 @@ beforeAll(async () => {
         datasetId,
         campaignId,
         entryId,
+        vesselId,
         userId: scratchUser.body.user.id,
         file: 'unused',
         index: '0',

@@ -4,3 +4,4 @@ export * from './datasets';
 export * from './sites';
 export * from './downtime';
 export * from './alerts';
+export * from './vessels';

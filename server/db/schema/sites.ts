@@ -3,6 +3,7 @@ import { boolean, doublePrecision, index, jsonb, pgTable, text, timestamp, uuid 
 import { user } from './auth';
 import { project } from './projects';
 import { dataset } from './datasets';
+import { vessel } from './vessels';
 
 /** A place where work happens, with the depth the sea states are transformed to. */
 export const worksite = pgTable(
@@ -60,6 +61,10 @@ export const operation = pgTable(
     siteIds: jsonb().$type<string[]>().notNull().default([]),
     /** Skippers assigned to the operation (user ids). */
     skipperIds: jsonb().$type<string[]>().notNull().default([]),
+    /** The vessel the operation is done from (response limits need it); null = none. */
+    vesselId: uuid().references(() => vessel.id, { onDelete: 'set null' }),
+    /** The vessel's fixed heading during the operation, deg true; null = none. */
+    headingDeg: doublePrecision(),
     /** iCalendar RRULE (with DTSTART in the first worksite's zone) for recurring operations. */
     recurrence: jsonb().$type<Record<string, unknown> | null>(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -90,7 +95,7 @@ export const auditEntry = pgTable(
     userId: text().references(() => user.id, { onDelete: 'set null' }),
     userName: text().notNull(),
     at: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    entity: text({ enum: ['operation', 'worksite', 'alpha', 'project', 'campaign'] }).notNull(),
+    entity: text({ enum: ['operation', 'worksite', 'alpha', 'project', 'campaign', 'vessel'] }).notNull(),
     entityId: text(),
     entityName: text().notNull().default(''),
     action: text({ enum: ['create', 'update', 'delete', 'import'] }).notNull(),

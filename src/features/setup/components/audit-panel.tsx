@@ -18,6 +18,7 @@ const ENTITY_LABEL: Record<AuditEntity, string> = {
   alpha: 'Alpha table',
   project: 'Setup import',
   campaign: 'Campaign progress',
+  vessel: 'Vessel',
 };
 const ENTITY_FILTER_LABEL: Record<AuditEntity, string> = {
   operation: 'Operations',
@@ -25,6 +26,7 @@ const ENTITY_FILTER_LABEL: Record<AuditEntity, string> = {
   alpha: 'Alpha table',
   project: 'Setup imports',
   campaign: 'Campaign progress',
+  vessel: 'Vessels',
 };
 const ACTION_LABEL = { create: 'added', update: 'changed', delete: 'deleted', import: 'imported' } as const;
 
