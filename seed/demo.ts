@@ -1,5 +1,5 @@
 import type { AppDeps } from '../server/deps';
-import { campaign, operation, project, projectMember, worksite } from '../server/db/schema';
+import { campaign, operation, project, projectMember, vessel, worksite } from '../server/db/schema';
 import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
@@ -17,6 +17,7 @@ import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
 import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
 import { DEMO_OPERATIONS, DEMO_SITE_TIDES, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
+import { DEMO_VESSELS } from './demo-vessels';
 
 /** Seed of the fake forecast service; the demo hindcast uses the same invented sea. */
 export const DEMO_SEA_SEED = 20261201;
@@ -120,6 +121,14 @@ export async function seedDemo(
       .returning({ id: worksite.id });
     siteIds[s.key] = row.id;
   }
+  const vesselIds = {} as Record<(typeof DEMO_VESSELS)[number]['key'], string>;
+  for (const v of DEMO_VESSELS) {
+    const [row] = await db
+      .insert(vessel)
+      .values({ projectId: main.id, name: v.name, raos: v.raos, raoFileName: 'invented-demo-raos.csv', raoImportedAt: deps.clock() })
+      .returning({ id: vessel.id });
+    vesselIds[v.key] = row.id;
+  }
   const operationIds: string[] = [];
   for (const o of DEMO_OPERATIONS) {
     const [row] = await db
@@ -135,6 +144,8 @@ export async function seedDemo(
         siteIds: o.sites.map((k) => siteIds[k]),
         skipperIds: o.skipper ? [users.skipper] : [],
         recurrence: o.recurrence ? { ...o.recurrence, text: recurrenceText(o.recurrence) } : null,
+        vesselId: o.vessel ? vesselIds[o.vessel.key] : null,
+        headingDeg: o.vessel?.headingDeg ?? null,
       })
       .returning({ id: operation.id });
     operationIds.push(row.id);

@@ -74,6 +74,8 @@ export const DEMO_OPERATIONS: {
   sites: SiteKey[];
   skipper: boolean;
   recurrence?: { start: string; timeZone: string; rule: string };
+  /** The demo vessel (seed/demo-vessels.ts) and its heading, deg true, for response limits. */
+  vessel?: { key: 'ctv' | 'layBarge'; headingDeg: number };
 }[] = [
   {
     name: 'Cable pull-in at landfall',
@@ -116,9 +118,12 @@ export const DEMO_OPERATIONS: {
         [16, 1.0],
       ],
       windMax: 15,
+      // Invented: the lay barge's roll, most probable maximum over 3 h (docs/domain.md#vessel-response).
+      responses: [{ response: 'roll_deg_per_m', statistic: 'mpm', durationH: 3, max: 4 }],
     },
     sites: ['trench', 'route'],
     skipper: false,
+    vessel: { key: 'layBarge', headingDeg: 258 },
   },
   {
     name: 'Rock berm placement',
@@ -146,9 +151,16 @@ export const DEMO_OPERATIONS: {
     tpopH: 2,
     tcH: 1,
     weatherRestricted: true,
-    limits: { hsMax: 1.5, tpMin: 3, windMax: 14 },
+    limits: {
+      hsMax: 1.5,
+      tpMin: 3,
+      windMax: 14,
+      // Invented: bow fender vertical velocity while pushing on (docs/domain.md#vessel-response).
+      responses: [{ response: 'vel_z_m_s_per_m@bow_fender', statistic: 'significant', max: 0.8 }],
+    },
     sites: ['substation'],
     skipper: true,
+    vessel: { key: 'ctv', headingDeg: 240 },
     // Crew change every Monday, Wednesday and Friday at 06:00 worksite time.
     recurrence: { start: '2026-01-05T06:00', timeZone: 'Europe/London', rule: 'FREQ=WEEKLY;BYDAY=MO,WE,FR' },
   },
