@@ -38,7 +38,8 @@ export type SetupWorksite = z.infer<typeof SetupWorksite>;
 /**
  * An operation in the setup document: worksites by name (`siteNames`, matched with
  * {@link nameKey} against the document's worksites) instead of ids; skippers are not carried
- * over (they are people of one project).
+ * over (they are people of one project). Vessels are not carried either: response limits come
+ * over, and find no data until the operation names a vessel of the target project.
  */
 export const SetupOperation = z
   .object({
@@ -50,7 +51,8 @@ export const SetupOperation = z
     limits: operationFields.limits,
     siteNames: z.array(itemName()).max(500).default([]),
   })
-  .superRefine(checkOperation);
+  // The vessel rule of checkOperation does not apply here (no vessels in the document).
+  .superRefine((v, ctx) => checkOperation({ ...v, limits: undefined }, ctx));
 export type SetupOperation = z.infer<typeof SetupOperation>;
 
 /** The exported project block: for the reader; an import does not change the target project. */

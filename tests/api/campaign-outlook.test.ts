@@ -84,7 +84,7 @@ describe('GET .../outlook', () => {
     const flags = fresh.steps.map((s) => {
       const op = setup.operations.find((o) => o.id === s.operationId)!;
       const site = setup.sites.find((x) => x.id === s.siteId)!;
-      const spec = operationSpec(op);
+      const spec = operationSpec(op, setup.vessels);
       const engine = transformForSite(series, row.dataPointDepthM, site).engine;
       return goStarts(
         engine.timeMs,

@@ -550,7 +550,7 @@ describe('audit trail', () => {
   });
 
   it('validates its query', async () => {
-    const res = await as.coordinator.get(`/api/projects/${A}/audit?entity=vessel`);
+    const res = await as.coordinator.get(`/api/projects/${A}/audit?entity=ship`);
     expect(res.status).toBe(400);
     expect(fields(res)).toEqual(['entity']);
     expect((await as.coordinator.get(`/api/projects/${A}/audit?limit=0`)).status).toBe(400);
