@@ -321,6 +321,31 @@ export interface CfPlan {
 /** An explicit mapping of roles to variable names (the CSV import's column map). */
 export type NcColumnMap = Partial<Record<SeaVariable | 'time', string>>;
 
+/**
+ * A NetCDF-4 variable in a group is named by its path without the leading '/' ("waves/hs"); these
+ * give its own name ("hs") and its group ("waves", "" for the root group).
+ */
+export function baseName(name: string): string {
+  return name.slice(name.lastIndexOf('/') + 1);
+}
+export function groupOf(name: string): string {
+  const k = name.lastIndexOf('/');
+  return k === -1 ? '' : name.slice(0, k);
+}
+
+/**
+ * The variable a name refers to from `from`'s group: an absolute path ("/ocean/ssh"), a relative
+ * one, or a bare name looked up in `from`'s group and then its parents (CF 1.8 section 2.7,
+ * search by proximity).
+ */
+export function resolveVariable(vars: readonly NcVar[], name: string, from = ''): NcVar | undefined {
+  if (name.startsWith('/')) return vars.find((v) => v.name === name.slice(1));
+  for (let g = from; ; g = groupOf(g)) {
+    const v = vars.find((x) => x.name === (g === '' ? name : `${g}/${name}`));
+    if (v || g === '') return v;
+  }
+}
+
 function byStandardName(vars: NcVar[], names: readonly string[]): NcVar | undefined {
   for (const n of names) {
     const v = vars.find((x) => attrText(x, 'standard_name') === n);
@@ -337,7 +362,15 @@ function byStandardName(vars: NcVar[], names: readonly string[]): NcVar | undefi
 export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
   const vars = file.variables;
   const get = (name: string, role: string) => {
-    const v = vars.find((x) => x.name === name);
+    // The column map may give a variable's path ("waves/hs") or, when only one has it, its name.
+    const same = vars.filter((x) => baseName(x.name) === name);
+    const v = vars.find((x) => x.name === name) ?? (same.length === 1 ? same[0] : undefined);
+    if (!v && same.length > 1) {
+      throw fail(
+        name,
+        `is named in the column map for ${role} but several groups have it (${same.map((x) => x.name).join(', ')}): give the path`,
+      );
+    }
     if (!v)
       throw fail(
         name,
@@ -346,14 +379,25 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
     return v;
   };
   const unnamed = vars.filter((v) => attrText(v, 'standard_name') === undefined);
-  const guessed = detectColumns(unnamed.map((v) => v.name));
+  // The CSV column names are matched on each variable's own name (without its group); the first
+  // variable of a name wins (root group first).
+  const guessedNames = detectColumns([...new Set(unnamed.map((v) => baseName(v.name)))]);
+  const unnamedBy = (name: string | undefined) => (name === undefined ? undefined : unnamed.find((v) => baseName(v.name) === name));
+  const guessed = Object.fromEntries(Object.entries(guessedNames).map(([k, n]) => [k, unnamedBy(n as string)?.name])) as Partial<
+    Record<keyof typeof guessedNames, string>
+  >;
 
+  // The time variable: with several (groups with a time each), the one the wave heights run along.
+  const hsNames = [...TOTAL_NAMES.hs.from, ...PARTITIONS.map((p) => PARTITION_NAMES[p].hs)];
+  const hsDims = new Set(vars.filter((v) => hsNames.includes(attrText(v, 'standard_name') ?? '')).flatMap((v) => v.dims));
+  const timeCandidates = [
+    ...vars.filter((v) => attrText(v, 'standard_name') === 'time'),
+    ...vars.filter((v) => attrText(v, 'axis') === 'T'),
+    ...vars.filter((v) => baseName(v.name) === 'time'),
+    ...(guessed.time ? vars.filter((v) => v.name === guessed.time) : []),
+  ].filter((v) => v.dims.length === 1);
   const time =
-    (columns.time ? get(columns.time, 'time') : undefined) ??
-    vars.find((v) => attrText(v, 'standard_name') === 'time' && v.dims.length === 1) ??
-    vars.find((v) => attrText(v, 'axis') === 'T' && v.dims.length === 1) ??
-    vars.find((v) => v.name === 'time' && v.dims.length === 1) ??
-    (guessed.time ? vars.find((v) => v.name === guessed.time && v.dims.length === 1) : undefined);
+    (columns.time ? get(columns.time, 'time') : undefined) ?? timeCandidates.find((v) => hsDims.has(v.dims[0])) ?? timeCandidates[0];
   if (!time) throw fail('time', 'the file has no time variable (standard_name "time", axis "T" or a variable named time)');
   if (time.dims.length !== 1) throw fail(time.name, 'the time variable must have one dimension');
   const tDim = time.dims[0];
@@ -444,8 +488,17 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
     }
   }
   const ignored = timed
-    .filter((v) => !used.has(v.name) && /wave|wind|swell|sea_surface/.test(attrText(v, 'standard_name') ?? ''))
-    .map((v) => ({ variable: v.name, reason: `standard_name ${attrText(v, 'standard_name')} is not read` }));
+    .filter((v) => !used.has(v.name) && /wave|wind|swell|sea_surface|sea_water/.test(attrText(v, 'standard_name') ?? ''))
+    .map((v) => {
+      const sn = attrText(v, 'standard_name');
+      const twin = choices.find((c) => c.via === sn);
+      return {
+        variable: v.name,
+        reason: twin
+          ? `has the same standard_name ${sn} as ${twin.variable}, which is read (the first found, root group first)`
+          : `standard_name ${sn} is not read`,
+      };
+    });
   return { time, choices, pointDims, reference, ignored };
 }
 
@@ -473,11 +526,25 @@ function findCoord(file: NcFile, reference: NcVar, axis: 'lat' | 'lon'): NcVar |
   const units = axis === 'lat' ? /^degrees?_?n(orth)?$/i : /^degrees?_?e(ast)?$/i;
   // CF 5.2: a `coordinates` attribute names the auxiliary coordinates (2-D latitude, longitude).
   const listed = (attrText(reference, 'coordinates') ?? '').split(/\s+/).filter(Boolean);
-  const candidates = [...listed.map((n) => vars.find((v) => v.name === n)).filter((v): v is NcVar => !!v), ...vars];
+  // Coordinates in the reference's own group and its parents come before those of other groups.
+  const home = groupOf(reference.name);
+  const ancestry: string[] = [];
+  for (let g = home; ; g = groupOf(g)) {
+    ancestry.push(g);
+    if (g === '') break;
+  }
+  const rank = (v: NcVar) => {
+    const k = ancestry.indexOf(groupOf(v.name));
+    return k === -1 ? ancestry.length : k;
+  };
+  const candidates = [
+    ...listed.map((n) => resolveVariable(vars, n, home)).filter((v): v is NcVar => !!v),
+    ...[...vars].sort((x, y) => rank(x) - rank(y)),
+  ];
   return (
     candidates.find((v) => attrText(v, 'standard_name') === sn) ??
     candidates.find((v) => units.test(attrText(v, 'units') ?? '')) ??
-    candidates.find((v) => (axis === 'lat' ? LAT_NAMES : LON_NAMES).includes(v.name.toLowerCase()))
+    candidates.find((v) => (axis === 'lat' ? LAT_NAMES : LON_NAMES).includes(baseName(v.name).toLowerCase()))
   );
 }
 

@@ -40,7 +40,7 @@ async function attempt(bytes: Uint8Array): Promise<'read' | 'refused'> {
   }
 }
 
-const FILES = ['classic.nc', 'packed.nc', 'grid-3x3.nc', 'point-partitions.nc'];
+const FILES = ['classic.nc', 'packed.nc', 'grid-3x3.nc', 'point-partitions.nc', 'point-groups.nc', 'grid-group.nc'];
 
 describe('cut-short and damaged NetCDF files', () => {
   for (const name of FILES) {

@@ -188,6 +188,64 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
   });
 });
 
+describe('NetCDF-4 groups (variables read wherever the writer put them)', () => {
+  it('root dimensions with variables in groups and a nested group: every variable found by its path, values as the script wrote them', async () => {
+    const f = await openFixture('point-groups.nc');
+    const plan = planCfImport(f);
+    // Layout written by make_fixtures.py point_in_groups(): /time, /waves, /waves/partitions, /atmosphere, /ocean.
+    expect(plan.time.name).toBe('time');
+    expect(Object.fromEntries(plan.choices.map((c) => [c.role, c.variable]))).toMatchObject({
+      hs: 'waves/hs',
+      wind: 'atmosphere/wspd',
+      'windSea.hs': 'waves/partitions/hs_ww',
+      'swell2.dir': 'waves/partitions/dir_sw2',
+      waterLevel: 'ocean/ssh',
+    });
+    const r = readCfPoint(f, plan, { index: [], waterLevelOffsetM: 0.7 });
+    expectSameAsCsv(r.records, 'point-groups.csv', ['hs', 'tp', 'dir', 'wind', 'windDir']);
+    const rows = expected('point-groups.csv');
+    rows.forEach((row, i) => {
+      for (const p of ['windSea', 'swell1', 'swell2'] as const) {
+        const s = r.partitions[p]!;
+        for (const [k, got] of [
+          ['hs', s.hs[i]],
+          ['tp', s.tp![i]],
+          ['dir', s.dir![i]],
+        ] as const) {
+          // float32 values: within float32's relative precision, directions scaled by 360 (see expectSameAsCsv).
+          expect(Math.abs(got - (row[`${p}.${k}`] as number)), `${p}.${k} at time index ${i}`).toBeLessThan(
+            1e-6 + 2e-7 * (k === 'dir' ? 360 : Math.abs(row[`${p}.${k}`] as number)),
+          );
+        }
+      }
+      expect(r.waterLevel![i]).toBeCloseTo((row.level_above_msl as number) + 0.7, 6);
+    });
+    // A column map may name a variable by its own name when only one group has it.
+    expect(planCfImport(f, { hs: 'hs' }).choices.find((c) => c.role === 'hs')).toMatchObject({ variable: 'waves/hs', via: 'column map' });
+  });
+
+  it('a grid whose dimensions, coordinates and variables all live in one group', async () => {
+    const f = await openFixture('grid-group.nc');
+    const plan = planCfImport(f);
+    expect(plan.time.name).toBe('model/time');
+    expect(plan.pointDims).toEqual(['model/lat', 'model/lon']);
+    const points = listGridPoints(f, plan);
+    // make_fixtures.py grid_in_group(): latitudes 50.0, 50.25; longitudes -6.25, -6.0.
+    expect(points.map((p) => [p.lat, p.lon])).toEqual([
+      [50, -6.25],
+      [50, -6],
+      [50.25, -6.25],
+      [50.25, -6],
+    ]);
+    for (const [j, i] of [
+      [0, 0],
+      [1, 1],
+    ]) {
+      expectSameAsCsv(readCfPoint(f, plan, { index: [j, i] }).records, `grid-group-j${j}-i${i}.csv`, ['hs', 'tp']);
+    }
+  });
+});
+
 describe('2-D latitude and longitude (CF 5.2, a curvilinear grid)', () => {
   it('lists the points from 2-D coordinates named by the coordinates attribute and picks the nearest sea point', () => {
     // A 2×2 rotated grid written here by hand: lat(y, x), lon(y, x) in 0-360, one land point.
