@@ -234,11 +234,12 @@ function openClassic(path: string): OpenNcFile {
     throw bad(`the classic header is damaged or cut short (${lastError})`);
   }
   const header = reader;
-  const dims = header.dimensions as { name: string; size: number }[];
-  const recDim = header.recordDimension as { length: number; id?: number; recordStep?: number };
+  // A header with no dimensions or variables (their lists ABSENT) reads as undefined lists.
+  const dims = (header.dimensions ?? []) as { name: string; size: number }[];
+  const recDim = (header.recordDimension ?? { length: 0 }) as { length: number; id?: number; recordStep?: number };
   const records = Number(recDim.length ?? 0);
   const recordStep = Number(recDim.recordStep ?? 0);
-  const raw = header.variables as unknown as ClassicVar[];
+  const raw = (header.variables ?? []) as unknown as ClassicVar[];
   const variables: NcVar[] = [];
   const layout = new Map<string, { v: ClassicVar; shape: number[] }>();
   for (const v of raw) {

@@ -2,9 +2,14 @@
 // are the CSVs the independent writer (Python's netCDF4, tests/fixtures/netcdf/make_fixtures.py)
 // wrote beside each file. Grid positions and distances: see tests/seadata/netcdf.test.ts.
 import { readFileSync } from 'node:fs';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
 import path from 'node:path';
+import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { MAX_NETCDF_UPLOAD_BYTES } from '../../server/services/dataset-import';
+import { DEMO_PASSWORD } from '../../seed/scenario';
+import { createTestApp, signInAll, TEST_ORIGIN, type TestApp } from '../support/app';
 
 const DIR = path.resolve(import.meta.dirname, '../fixtures/netcdf');
 
@@ -174,4 +179,95 @@ describe('NetCDF import route', () => {
       );
     }
   });
+});
+
+describe('NetCDF upload limits', () => {
+  /** Sends only the start of a body that declares `declared` bytes; resolves with the answer. */
+  async function declareHuge(declared: number, first: Buffer): Promise<{ status: number; body: string; sent: number }> {
+    const server = http.createServer(t.app);
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+    try {
+      const signIn = await request(t.app)
+        .post('/api/auth/sign-in/email')
+        .set('Origin', TEST_ORIGIN)
+        .send({ email: 'coordinator@example.com', password: DEMO_PASSWORD });
+      const cookie = (signIn.headers['set-cookie'] as unknown as string[]).map((c) => c.split(';')[0]).join('; ');
+      const boundary = 'lullwatch-limit-test';
+      const head = Buffer.from(
+        `--${boundary}\r\nContent-Disposition: form-data; name="name"\r\n\r\nHuge\r\n` +
+          `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="huge.nc"\r\nContent-Type: application/x-netcdf\r\n\r\n`,
+      );
+      return await new Promise((resolve, reject) => {
+        const req = http.request({
+          host: '127.0.0.1',
+          port: (server.address() as AddressInfo).port,
+          method: 'POST',
+          path: `${base}`,
+          headers: {
+            'content-type': `multipart/form-data; boundary=${boundary}`,
+            'content-length': String(declared),
+            origin: TEST_ORIGIN,
+            cookie,
+          },
+        });
+        let sent = 0;
+        req.on('response', (res) => {
+          let body = '';
+          res.setEncoding('utf8');
+          res.on('data', (c: string) => (body += c));
+          res.on('end', () => {
+            req.destroy();
+            resolve({ status: res.statusCode ?? 0, body, sent });
+          });
+        });
+        req.on('error', reject);
+        // The start of the body only: the answer must come without the rest.
+        for (const part of [head, first]) {
+          sent += part.length;
+          req.write(part);
+        }
+        setTimeout(() => reject(new Error('no answer within 30 s to a body declared over the limit')), 30_000).unref();
+      });
+    } finally {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+    }
+  }
+
+  it('answers 413 to a NetCDF upload declared over 2 GB before reading its body, storing nothing', async () => {
+    const before = await count();
+    // The issue's limit: 2 GB for NetCDF. The file's first bytes are a real NetCDF-4 file's.
+    const nc = readFileSync(path.join(DIR, 'point-groups.nc')).subarray(0, 4096);
+    const res = await declareHuge(MAX_NETCDF_UPLOAD_BYTES + 8 * 1024 * 1024, nc);
+    expect(res.status, res.body).toBe(413);
+    expect(JSON.parse(res.body).error).toMatchObject({ code: 'too_large', message: expect.stringMatching(/NetCDF upload limit of 2 GB/) });
+    expect(res.sent).toBeLessThan(8 * 1024);
+    expect(await count()).toBe(before);
+  }, 60_000);
+
+  it('takes a NetCDF file over the 100 MB text limit (refused for its content, not its size), and binary content only as NetCDF', async () => {
+    const before = await count();
+    // 101 MB with a classic NetCDF signature (netCDF classic format specification: 'C', 'D', 'F', 1)
+    // and an empty header: over the text limit, under the NetCDF one.
+    const big = Buffer.alloc(101 * 1024 * 1024);
+    big.write('CDF\x01', 0, 'latin1');
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Big classic')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', big, 'big.nc');
+    expect(res.status, res.text).toBe(400);
+    expect(res.body.error.message).toMatch(/time/);
+    // The same bytes without the signature are binary text: refused as binary, naming line and column.
+    const notNc = await as.coordinator
+      .post(base)
+      .field('name', 'Binary')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', Buffer.from('XDF\x01\x00\x00\x00\x00', 'latin1'), 'x.nc');
+    expect(notNc.status).toBe(400);
+    expect(notNc.body.error.message).toMatch(/not a text file: it holds binary data \(control character U\+0001 at line 1, column 4\)/);
+    expect(await count()).toBe(before);
+  }, 120_000);
 });
