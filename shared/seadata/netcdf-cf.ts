@@ -53,7 +53,18 @@ export const PARTITION_LABELS: Record<Partition, string> = {
 };
 
 /** What a variable can be used as. */
-export type CfRole = SeaVariable | 'u' | 'v' | `${Partition}.${'hs' | 'tp' | 'dir'}` | 'depth' | 'waterLevel' | 'forecastReferenceTime';
+export type CfRole =
+  | SeaVariable
+  | 'u'
+  | 'v'
+  | `${Partition}.${'hs' | 'tp' | 'dir'}`
+  | 'depth'
+  | 'waterLevel'
+  | 'forecastReferenceTime'
+  | 'currentSpeed'
+  | 'currentDir'
+  | 'currentU'
+  | 'currentV';
 
 /** Standard names read for the total sea state and wind (CF standard name table). */
 export const TOTAL_NAMES: Record<SeaVariable, { from: string[]; to?: string[] }> = {
@@ -93,6 +104,21 @@ export const PARTITION_NAMES: Record<Partition, { hs: string; tp: string; dirFro
 
 export const WIND_COMPONENT_NAMES = { u: 'eastward_wind', v: 'northward_wind' } as const;
 
+/**
+ * Current (docs/domain.md#tide): speed with the direction the water flows towards (CF's
+ * direction_of_sea_water_velocity is "to"; currents are stored going-to, the oceanographic
+ * convention), or eastward and northward components.
+ */
+export const CURRENT_NAMES = {
+  speed: 'sea_water_speed',
+  dirTo: 'direction_of_sea_water_velocity',
+  u: 'eastward_sea_water_velocity',
+  v: 'northward_sea_water_velocity',
+} as const;
+
+/** Fastest current accepted, m/s (the fastest tidal races run at about 10 m/s, from memory). */
+export const CURRENT_MAX_MS = 15;
+
 /** Model depth at the point (positive down), m. */
 export const DEPTH_NAMES = ['sea_floor_depth_below_sea_surface', 'sea_floor_depth_below_mean_sea_level', 'sea_floor_depth_below_geoid'];
 
@@ -118,6 +144,7 @@ export function standardNamesRead(): string[] {
   for (const v of SEA_VARIABLES) for (const n of [...TOTAL_NAMES[v].from, ...(TOTAL_NAMES[v].to ?? [])]) out.add(n);
   for (const p of PARTITIONS) for (const n of Object.values(PARTITION_NAMES[p])) out.add(n);
   out.add(WIND_COMPONENT_NAMES.u).add(WIND_COMPONENT_NAMES.v);
+  for (const n of Object.values(CURRENT_NAMES)) out.add(n);
   for (const n of [...DEPTH_NAMES, ...WATER_LEVEL_NAMES, 'forecast_reference_time', 'time', 'latitude', 'longitude']) out.add(n);
   return [...out];
 }
@@ -452,6 +479,18 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
     const v = name ? timed.find((x) => x.name === name) : undefined;
     if (v) choose(key, v, `name "${v.name}" (no standard_name; the CSV column names)`);
   }
+  const speed = byStandardName(timed, [CURRENT_NAMES.speed]);
+  if (speed) {
+    choose('currentSpeed', speed, CURRENT_NAMES.speed);
+    choose('currentDir', byStandardName(timed, [CURRENT_NAMES.dirTo]), CURRENT_NAMES.dirTo);
+  } else {
+    const cu = byStandardName(timed, [CURRENT_NAMES.u]);
+    const cv = byStandardName(timed, [CURRENT_NAMES.v]);
+    if (cu && cv) {
+      choose('currentU', cu, CURRENT_NAMES.u);
+      choose('currentV', cv, CURRENT_NAMES.v);
+    }
+  }
   const depth = byStandardName(vars, DEPTH_NAMES);
   if (depth) choose('depth', depth, attrText(depth, 'standard_name')!);
   const level = byStandardName(timed, WATER_LEVEL_NAMES);
@@ -706,6 +745,8 @@ export interface CfPointResult {
   partitions: Partial<Record<Partition, PartitionSeries>>;
   /** Water level above chart datum, m (only with a stated offset). */
   waterLevel: Float64Array | null;
+  /** Current at the point: speed m/s and the direction it flows towards (degrees), NaN = missing. */
+  current: { speed: Float64Array; dir: Float64Array | null } | null;
   /** Model depth at the point, m, when the file gives it. */
   depthM: number | null;
   /** forecast_reference_time, UTC ms, when the file gives it. */
@@ -770,6 +811,26 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     series.set('wind', wind);
     series.set('windDir', windDir);
     notes.push('wind speed and coming-from direction computed from eastward_wind and northward_wind');
+  }
+
+  // Current: from components, speed and the direction the water flows towards (atan2(east, north)).
+  const cu = series.get('currentU');
+  const cv = series.get('currentV');
+  if (cu && cv) {
+    const speed = new Float64Array(n);
+    const dir = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      speed[i] = Math.hypot(cu[i], cv[i]);
+      const d = (Math.atan2(cu[i], cv[i]) * 180) / Math.PI;
+      dir[i] = d < 0 ? d + 360 : d >= 360 ? d - 360 : d;
+    }
+    series.set('currentSpeed', speed);
+    series.set('currentDir', dir);
+    notes.push(
+      `current speed and going-to direction computed from ${CURRENT_NAMES.u} and ${CURRENT_NAMES.v} (stored going-to, the oceanographic convention)`,
+    );
+  } else if (series.has('currentDir')) {
+    notes.push(`current direction kept going-to as ${CURRENT_NAMES.dirTo} gives it (the oceanographic convention)`);
   }
 
   // Partitions (docs/domain.md#partitions).
@@ -882,6 +943,30 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     if (s.tp) check(nameOf(`${p}.tp`, p), 'tp', s.tp);
     if (s.dir) check(nameOf(`${p}.dir`, p), 'dir', s.dir);
   }
+  const currentSpeed = series.get('currentSpeed');
+  const currentDir = series.get('currentDir') ?? null;
+  if (currentSpeed) {
+    // Speed: 0 to CURRENT_MAX_MS (the wind's check has the same shape: negative, or above a bound).
+    const label = nameOf('currentSpeed', 'current speed (from components)');
+    let bad = 0;
+    let first = -1;
+    for (let i = 0; i < n; i++) {
+      const x = currentSpeed[i];
+      if (x === x && !(x >= 0 && x <= CURRENT_MAX_MS)) {
+        if (bad++ === 0) first = i;
+      }
+    }
+    if (bad > 0) {
+      issueCount++;
+      issues.push({
+        line: 0,
+        column: label,
+        value: String(currentSpeed[first]),
+        reason: `variable ${label}: ${fmt(bad)} value${bad > 1 ? 's' : ''} with current speed outside 0-${CURRENT_MAX_MS} m/s, first at time index ${fmt(first)} (${new Date(timeMs[first]).toISOString()})`,
+      });
+    }
+    if (currentDir) check(nameOf('currentDir', 'current direction (from components)'), 'dir', currentDir);
+  }
   if (issueCount > 0) {
     throw new ImportError(
       issues,
@@ -943,7 +1028,8 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     wind: series.get('wind') ?? nan(),
     windDir: series.get('windDir') ?? nan(),
   };
-  return { records, partitions, waterLevel, depthM, forecastReferenceMs, notes };
+  const current = currentSpeed ? { speed: currentSpeed, dir: currentDir } : null;
+  return { records, partitions, waterLevel, current, depthM, forecastReferenceMs, notes };
 }
 
 function readDepthAt(file: NcFile, plan: CfPlan, v: NcVar, index: number[]): Float64Array {
