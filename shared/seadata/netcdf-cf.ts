@@ -887,11 +887,14 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
       if (hs[i] === hs[i] && rss === rss && Math.abs(rss - hs[i]) > 0.05 * hs[i]) {
         differ++;
         if (first < 0) first = i;
+        // docs/domain.md#partitions: the partitions are scaled to the given total, keeping their
+        // ratios, so total and partitions agree (all partitions 0 = none present: nothing to scale).
+        if (rss > 0) for (const p of parts) partitions[p]!.hs[i] *= hs[i] / rss;
       }
     }
     if (differ > 0) {
       notes.push(
-        `total Hs and the partitions differ by more than 5% in ${fmt(differ)} records (first at time index ${fmt(first)}); the total is stored as given`,
+        `total Hs and the partitions differ by more than 5% in ${fmt(differ)} records (first at time index ${fmt(first)}, ${new Date(timeMs[first]).toISOString()}): the total is stored as given and the partitions' Hs scaled to it, keeping their ratios (docs/domain.md#partitions)`,
       );
     }
   }

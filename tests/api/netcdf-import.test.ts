@@ -8,6 +8,8 @@ import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { MAX_NETCDF_UPLOAD_BYTES } from '../../server/services/dataset-import';
+import { readSeries } from '../../server/services/series-store';
+import { EXTRA_COLUMNS } from '../../shared/seadata';
 import { DEMO_PASSWORD } from '../../seed/scenario';
 import { createTestApp, signInAll, TEST_ORIGIN, type TestApp } from '../support/app';
 
@@ -27,6 +29,20 @@ afterAll(async () => {
 });
 
 const count = async () => (await as.coordinator.get(base)).body.length as number;
+
+/**
+ * A stored column against the script's CSV (plus `add`): NaN where the CSV is empty, else within
+ * 1e-6 plus float32's relative precision (2^-23, about 1.2e-7; directions scaled by 360): the
+ * script reads float32 values back as float32.
+ */
+function expectColumn(got: Float64Array, want: (number | null)[], add = 0, scale?: number) {
+  expect(got.length).toBe(want.length);
+  want.forEach((w, i) => {
+    if (w === null) expect(got[i], `time index ${i}`).toBeNaN();
+    else
+      expect(Math.abs(got[i] - (w + add)), `time index ${i}: ${got[i]} vs ${w + add}`).toBeLessThan(1e-6 + 2e-7 * (scale ?? Math.abs(w)));
+  });
+}
 
 function csvColumn(name: string, key: string): (number | null)[] {
   const [head, ...rows] = readFileSync(path.join(DIR, name), 'utf8').trim().split('\n');
@@ -94,7 +110,7 @@ describe('NetCDF import route', () => {
     expect(bad.body.error.details[0].field).toBe('gridPoint');
   });
 
-  it('a point file with partitions: total from the partitions, partitions reported as read and not stored, depth from the model', async () => {
+  it('a point file with partitions: total from the partitions, partitions and water level (to chart datum) stored, depth from the model', async () => {
     const refused = await as.coordinator
       .post(base)
       .field('name', 'Partitions')
@@ -112,13 +128,78 @@ describe('NetCDF import route', () => {
       .attach('file', path.join(DIR, 'point-partitions.nc'));
     expect(res.status, res.text).toBe(201);
     expect(res.body.netcdf.partitionsRead).toEqual(['wind sea', 'primary swell', 'secondary swell']);
-    expect(res.body.netcdf.notStored[0]).toMatch(/partitions read but not stored/);
+    // The script writes no secondary-swell direction in this file.
+    expect(res.body.netcdf.extraStored).toEqual([
+      'swell1.dir',
+      'swell1.hs',
+      'swell1.tp',
+      'swell2.hs',
+      'swell2.tp',
+      'waterLevel',
+      'windSea.dir',
+      'windSea.hs',
+      'windSea.tp',
+    ]);
+    expect(res.body.netcdf.notStored).toEqual([]);
     expect(res.body.netcdf.depthM).toBe(42);
+    // Water level: the script's level above mean sea level plus the stated 2.1 m to chart datum.
+    const stored = await readSeries(t.deps.db, res.body.id);
+    expectColumn(stored.extra.waterLevel!, csvColumn('point-partitions-water-level.csv', 'level_above_msl'), 2.1);
     const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
     const want = csvColumn('point-partitions.csv', 'hs');
     recs.body.hs.forEach((h: number | null, i: number) =>
       want[i] === null ? expect(h).toBeNull() : expect(Math.abs(h! - want[i]!)).toBeLessThan(1e-6),
     );
+  });
+
+  it('a file with its variables in groups stores its partitions, water level and current as the script wrote them', async () => {
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Groups')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .field('waterLevelOffset', '0.85')
+      .attach('file', path.join(DIR, 'point-groups.nc'));
+    expect(res.status, res.text).toBe(201);
+    // make_fixtures.py point_in_groups(): three partitions with Hs, Tp and direction, water level, current.
+    expect(res.body.netcdf.extraStored).toEqual([...EXTRA_COLUMNS].sort());
+    expect(res.body.variables).toEqual(expect.arrayContaining(['windSea.hs', 'swell2.dir', 'waterLevel', 'currentSpeed', 'currentDir']));
+    const detail = await as.coordinator.get(`${base}/${res.body.id}`);
+    expect(JSON.stringify(detail.body.importReport.notes)).toMatch(
+      /stored beside the total sea state: currentDir \(deg\), currentSpeed \(m\/s\)/,
+    );
+    const s = await readSeries(t.deps.db, res.body.id);
+    const csv = 'point-groups.csv';
+    expectColumn(s.hs, csvColumn(csv, 'hs'));
+    for (const p of ['windSea', 'swell1', 'swell2']) {
+      expectColumn(s.extra[`${p}.hs` as 'windSea.hs']!, csvColumn(csv, `${p}.hs`));
+      expectColumn(s.extra[`${p}.tp` as 'windSea.tp']!, csvColumn(csv, `${p}.tp`));
+      // The wind sea's direction is written going-to; the CSV holds it turned to coming-from (+180°).
+      expectColumn(s.extra[`${p}.dir` as 'windSea.dir']!, csvColumn(csv, `${p}.dir`), 0, 360);
+    }
+    expectColumn(s.extra.waterLevel!, csvColumn(csv, 'level_above_msl'), 0.85);
+    // Current: speed with one fill value (time index 7), direction kept going-to as the file gives it.
+    expectColumn(s.extra.currentSpeed!, csvColumn(csv, 'currentSpeed'));
+    expect(s.extra.currentSpeed![7]).toBeNaN();
+    expectColumn(s.extra.currentDir!, csvColumn(csv, 'currentDir'), 0, 360);
+  });
+
+  it('a grid inside a group, current as eastward and northward components: the nearest sea point with speed and going-to direction', async () => {
+    const res = await as.coordinator
+      .post(base)
+      .field('name', 'Grid in a group')
+      .field('kind', 'hindcast')
+      .field('dataPointDepth', 'deep')
+      .attach('file', path.join(DIR, 'grid-group.nc'));
+    expect(res.status, res.text).toBe(201);
+    // The demo data point (50.041 N, 5.988 W) is nearest to (50.0 N, 6.0 W), index [0, 1] (script's grid).
+    expect(res.body.netcdf.point).toMatchObject({ index: [0, 1], lat: 50, lon: -6, chosen: 'nearest' });
+    expect(res.body.netcdf.extraStored).toEqual(['currentDir', 'currentSpeed']);
+    const s = await readSeries(t.deps.db, res.body.id);
+    const csv = 'grid-group-j0-i1.csv';
+    expectColumn(s.hs, csvColumn(csv, 'hs'));
+    expectColumn(s.extra.currentSpeed!, csvColumn(csv, 'currentSpeed'));
+    expectColumn(s.extra.currentDir!, csvColumn(csv, 'currentDir'), 0, 360);
   });
 
   it('a NetCDF forecast becomes the latest forecast, issued at its forecast_reference_time', async () => {

@@ -246,6 +246,38 @@ describe('NetCDF-4 groups (variables read wherever the writer put them)', () => 
   });
 });
 
+describe('a total and partitions that disagree', () => {
+  it('scales the partitions to the given total where they differ by more than 5%, keeping their ratios (docs/domain.md#partitions)', () => {
+    // Written here by hand: three times; wind sea 0.6 m and swell 0.8 m give sqrt(0.36 + 0.64) = 1.0 m
+    // (energies add: common practice, no source). Totals: 1.0 (agrees), 1.04 (4%: kept), 2.0 (100%: scaled).
+    const values: Record<string, number[]> = {
+      time: [0, 1, 2],
+      hs: [1.0, 1.04, 2.0],
+      ww: [0.6, 0.6, 0.6],
+      sw: [0.8, 0.8, 0.8],
+    };
+    const names: Record<string, string> = {
+      hs: 'sea_surface_wave_significant_height',
+      ww: 'sea_surface_wind_wave_significant_height',
+      sw: 'sea_surface_primary_swell_wave_significant_height',
+    };
+    const file: NcFile = {
+      format: 'netcdf4',
+      variables: [
+        { name: 'time', dims: ['time'], shape: [3], attrs: { standard_name: 'time', units: 'hours since 2020-01-01' } },
+        ...Object.entries(names).map(([name, sn]) => ({ name, dims: ['time'], shape: [3], attrs: { standard_name: sn } })),
+      ],
+      readRaw: (name) => Float64Array.from(values[name]),
+    };
+    const r = readCfPoint(file, planCfImport(file), { index: [] });
+    expect(Array.from(r.records.hs)).toEqual([1.0, 1.04, 2.0]);
+    // Time index 2: both doubled (1.2 and 1.6 m, the ratio 0.75 kept); the others as given.
+    expect(Array.from(r.partitions.windSea!.hs).map((x) => +x.toFixed(12))).toEqual([0.6, 0.6, 1.2]);
+    expect(Array.from(r.partitions.swell1!.hs).map((x) => +x.toFixed(12))).toEqual([0.8, 0.8, 1.6]);
+    expect(r.notes.join(' ')).toMatch(/differ by more than 5% in 1 records \(first at time index 2/);
+  });
+});
+
 describe('2-D latitude and longitude (CF 5.2, a curvilinear grid)', () => {
   it('lists the points from 2-D coordinates named by the coordinates attribute and picks the nearest sea point', () => {
     // A 2×2 rotated grid written here by hand: lat(y, x), lon(y, x) in 0-360, one land point.
