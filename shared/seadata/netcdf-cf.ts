@@ -766,6 +766,24 @@ function readSeriesAt(file: NcFile, plan: CfPlan, v: NcVar, index: number[]): Fl
   return file.readRaw(v.name, start, count);
 }
 
+/**
+ * Speed and direction, degrees clockwise from north in [0, 360), from eastward and northward
+ * components: the direction the vector points to (atan2(east, north)), or for 'from' the one it
+ * comes from (atan2(-east, -north), the meteorological convention for wind).
+ */
+function fromComponents(east: Float64Array, north: Float64Array, sense: 'from' | 'to'): [Float64Array, Float64Array] {
+  const n = east.length;
+  const speed = new Float64Array(n);
+  const dir = new Float64Array(n);
+  const k = sense === 'from' ? -1 : 1;
+  for (let i = 0; i < n; i++) {
+    speed[i] = Math.hypot(east[i], north[i]);
+    const d = (Math.atan2(k * east[i], k * north[i]) * 180) / Math.PI;
+    dir[i] = d < 0 ? d + 360 : d >= 360 ? d - 360 : d;
+  }
+  return [speed, dir];
+}
+
 const toFrom = (dir: Float64Array) => {
   for (let i = 0; i < dir.length; i++) if (dir[i] === dir[i]) dir[i] = (dir[i] + 180) % 360;
 };
@@ -801,29 +819,17 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
   const u = series.get('u');
   const vv = series.get('v');
   if (u && vv) {
-    const wind = new Float64Array(n);
-    const windDir = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      wind[i] = Math.hypot(u[i], vv[i]);
-      const d = (Math.atan2(-u[i], -vv[i]) * 180) / Math.PI;
-      windDir[i] = d < 0 ? d + 360 : d >= 360 ? d - 360 : d;
-    }
+    const [wind, windDir] = fromComponents(u, vv, 'from');
     series.set('wind', wind);
     series.set('windDir', windDir);
     notes.push('wind speed and coming-from direction computed from eastward_wind and northward_wind');
   }
 
-  // Current: from components, speed and the direction the water flows towards (atan2(east, north)).
+  // Current from components: speed and the direction the water flows towards.
   const cu = series.get('currentU');
   const cv = series.get('currentV');
   if (cu && cv) {
-    const speed = new Float64Array(n);
-    const dir = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      speed[i] = Math.hypot(cu[i], cv[i]);
-      const d = (Math.atan2(cu[i], cv[i]) * 180) / Math.PI;
-      dir[i] = d < 0 ? d + 360 : d >= 360 ? d - 360 : d;
-    }
+    const [speed, dir] = fromComponents(cu, cv, 'to');
     series.set('currentSpeed', speed);
     series.set('currentDir', dir);
     notes.push(

@@ -30,6 +30,13 @@ afterAll(async () => {
 
 const count = async () => (await as.coordinator.get(base)).body.length as number;
 
+/** Imports a fixture (or bytes, with a file name) as the coordinator: deep data point, the given form fields. */
+function importFile(file: string | Buffer, fields: Record<string, string>, fileName?: string) {
+  let req = as.coordinator.post(base).field('dataPointDepth', 'deep');
+  for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+  return typeof file === 'string' ? req.attach('file', path.join(DIR, file)) : req.attach('file', file, fileName);
+}
+
 /**
  * A stored column against the script's CSV (plus `add`): NaN where the CSV is empty, else within
  * 1e-6 plus float32's relative precision (2^-23, about 1.2e-7; directions scaled by 360): the
@@ -68,12 +75,7 @@ describe('NetCDF import route', () => {
   });
 
   it("imports the grid at the nearest sea point; the stored records equal the writer's values there", async () => {
-    const res = await as.coordinator
-      .post(base)
-      .field('name', 'Grid hindcast')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', path.join(DIR, 'grid-3x3.nc'));
+    const res = await importFile('grid-3x3.nc', { name: 'Grid hindcast', kind: 'hindcast' });
     expect(res.status, res.text).toBe(201);
     expect(res.body.records).toBe(48);
     expect(res.body.netcdf.point).toMatchObject({ index: [1, 1], lat: 50, lon: -6.5, distanceKm: 36.86, chosen: 'nearest' });
@@ -87,45 +89,22 @@ describe('NetCDF import route', () => {
   });
 
   it('imports another grid point when the coordinator picks it', async () => {
-    const res = await as.coordinator
-      .post(base)
-      .field('name', 'Grid, west point')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .field('gridPoint', '2,0')
-      .attach('file', path.join(DIR, 'grid-3x3.nc'));
+    const res = await importFile('grid-3x3.nc', { name: 'Grid, west point', kind: 'hindcast', gridPoint: '2,0' });
     expect(res.status, res.text).toBe(201);
     expect(res.body.netcdf.point).toMatchObject({ index: [2, 0], lat: 50.5, lon: -7, chosen: 'given' });
     const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
     const want = csvColumn('grid-3x3-j2-i0.csv', 'tp');
     recs.body.tp.forEach((x: number, i: number) => expect(Math.abs(x - want[i]!)).toBeLessThan(1e-5));
-    const bad = await as.coordinator
-      .post(base)
-      .field('name', 'x')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .field('gridPoint', '3,0')
-      .attach('file', path.join(DIR, 'grid-3x3.nc'));
+    const bad = await importFile('grid-3x3.nc', { name: 'x', kind: 'hindcast', gridPoint: '3,0' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.details[0].field).toBe('gridPoint');
   });
 
   it('a point file with partitions: total from the partitions, partitions and water level (to chart datum) stored, depth from the model', async () => {
-    const refused = await as.coordinator
-      .post(base)
-      .field('name', 'Partitions')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', path.join(DIR, 'point-partitions.nc'));
+    const refused = await importFile('point-partitions.nc', { name: 'Partitions', kind: 'hindcast' });
     expect(refused.status).toBe(400);
     expect(refused.body.error.message).toMatch(/variable zeta: water level is given above mean sea level/);
-    const res = await as.coordinator
-      .post(base)
-      .field('name', 'Partitions')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .field('waterLevelOffset', '2.1')
-      .attach('file', path.join(DIR, 'point-partitions.nc'));
+    const res = await importFile('point-partitions.nc', { name: 'Partitions', kind: 'hindcast', waterLevelOffset: '2.1' });
     expect(res.status, res.text).toBe(201);
     expect(res.body.netcdf.partitionsRead).toEqual(['wind sea', 'primary swell', 'secondary swell']);
     // The script writes no secondary-swell direction in this file.
@@ -153,13 +132,7 @@ describe('NetCDF import route', () => {
   });
 
   it('a file with its variables in groups stores its partitions, water level and current as the script wrote them', async () => {
-    const res = await as.coordinator
-      .post(base)
-      .field('name', 'Groups')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .field('waterLevelOffset', '0.85')
-      .attach('file', path.join(DIR, 'point-groups.nc'));
+    const res = await importFile('point-groups.nc', { name: 'Groups', kind: 'hindcast', waterLevelOffset: '0.85' });
     expect(res.status, res.text).toBe(201);
     // make_fixtures.py point_in_groups(): three partitions with Hs, Tp and direction, water level, current.
     expect(res.body.netcdf.extraStored).toEqual([...EXTRA_COLUMNS].sort());
@@ -185,12 +158,7 @@ describe('NetCDF import route', () => {
   });
 
   it('a grid inside a group, current as eastward and northward components: the nearest sea point with speed and going-to direction', async () => {
-    const res = await as.coordinator
-      .post(base)
-      .field('name', 'Grid in a group')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', path.join(DIR, 'grid-group.nc'));
+    const res = await importFile('grid-group.nc', { name: 'Grid in a group', kind: 'hindcast' });
     expect(res.status, res.text).toBe(201);
     // The demo data point (50.041 N, 5.988 W) is nearest to (50.0 N, 6.0 W), index [0, 1] (script's grid).
     expect(res.body.netcdf.point).toMatchObject({ index: [0, 1], lat: 50, lon: -6, chosen: 'nearest' });
@@ -203,12 +171,7 @@ describe('NetCDF import route', () => {
   });
 
   it('a NetCDF forecast becomes the latest forecast, issued at its forecast_reference_time', async () => {
-    const res = await as.coordinator
-      .post(base)
-      .field('name', 'Model run 2026-12-01 00Z')
-      .field('kind', 'forecast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', path.join(DIR, 'forecast.nc'));
+    const res = await importFile('forecast.nc', { name: 'Model run 2026-12-01 00Z', kind: 'forecast' });
     expect(res.status, res.text).toBe(201);
     const list = (await as.coordinator.get(base)).body as { id: string; kind: string; source: { issuedAt: string | null } }[];
     const mine = list.find((d) => d.id === res.body.id)!;
@@ -221,21 +184,14 @@ describe('NetCDF import route', () => {
 
   it('refuses a non-standard calendar and a file that claims NetCDF but is not, storing nothing', async () => {
     const before = await count();
-    const cal = await as.coordinator
-      .post(base)
-      .field('name', 'noleap')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', path.join(DIR, 'noleap.nc'));
+    const cal = await importFile('noleap.nc', { name: 'noleap', kind: 'hindcast' });
     expect(cal.status).toBe(400);
     expect(cal.body.error.message).toMatch(/variable time: calendar "noleap" is not supported/);
-    const fake = await as.coordinator
-      .post(base)
-      .field('name', 'fake')
-      .field('kind', 'hindcast')
-      .field('format', 'netcdf')
-      .field('dataPointDepth', 'deep')
-      .attach('file', Buffer.from('time,hs\n2024-01-01T00:00Z,1\n'), 'fake.nc');
+    const fake = await importFile(
+      Buffer.from('time,hs\n2024-01-01T00:00Z,1\n'),
+      { name: 'fake', kind: 'hindcast', format: 'netcdf' },
+      'fake.nc',
+    );
     expect(fake.status).toBe(400);
     expect(fake.body.error.message).toMatch(/not a NetCDF file/);
     expect(await count()).toBe(before);
@@ -246,12 +202,7 @@ describe('NetCDF import route', () => {
       ['classic.nc', 'classic.csv', 'te'],
       ['packed.nc', 'packed.csv', 'hs'],
     ] as const) {
-      const res = await as.coordinator
-        .post(base)
-        .field('name', file)
-        .field('kind', 'hindcast')
-        .field('dataPointDepth', 'deep')
-        .attach('file', path.join(DIR, file));
+      const res = await importFile(file, { name: file, kind: 'hindcast' });
       expect(res.status, res.text).toBe(201);
       const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
       const want = csvColumn(csv, key);
@@ -332,21 +283,11 @@ describe('NetCDF upload limits', () => {
     // and an empty header: over the text limit, under the NetCDF one.
     const big = Buffer.alloc(101 * 1024 * 1024);
     big.write('CDF\x01', 0, 'latin1');
-    const res = await as.coordinator
-      .post(base)
-      .field('name', 'Big classic')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', big, 'big.nc');
+    const res = await importFile(big, { name: 'Big classic', kind: 'hindcast' }, 'big.nc');
     expect(res.status, res.text).toBe(400);
     expect(res.body.error.message).toMatch(/time/);
     // The same bytes without the signature are binary text: refused as binary, naming line and column.
-    const notNc = await as.coordinator
-      .post(base)
-      .field('name', 'Binary')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', Buffer.from('XDF\x01\x00\x00\x00\x00', 'latin1'), 'x.nc');
+    const notNc = await importFile(Buffer.from('XDF\x01\x00\x00\x00\x00', 'latin1'), { name: 'Binary', kind: 'hindcast' }, 'x.nc');
     expect(notNc.status).toBe(400);
     expect(notNc.body.error.message).toMatch(/not a text file: it holds binary data \(control character U\+0001 at line 1, column 4\)/);
     expect(await count()).toBe(before);
