@@ -1,10 +1,10 @@
-// Cold start of the demo: the server as `npm start` runs it (production, embedded database) on an
-// empty temporary data folder, timed from the spawn to the first answer of /api/health (migrations,
+// Cold start of the demo: the server as `npm start` runs it (production, embedded database, the
+// bundled server on plain Node) on an empty temporary data folder, timed from the spawn to the first answer of /api/health (migrations,
 // the demo seed with its hindcast and forecast, then listening). Prints the time at which each line
 // of the server's log arrived, so the phases show. The client build is not part of it (npm start
-// builds only when dist/ is stale; the bench builds first when needed), and neither is the migrated
-// empty database template that `npm run build` makes and a first start copies (made here first
-// when missing).
+// builds only when dist/ is stale; the bench builds first when needed), and neither are the migrated
+// empty database template and the server bundle that `npm run build` makes (made here first when
+// missing or stale).
 //
 // Run alone: `npx tsx bench/cold-start.ts [--years N]`; `npm run bench` runs it too.
 import fs from 'node:fs';
@@ -14,6 +14,7 @@ import { spawn } from 'node:child_process';
 import { pathToFileURL } from 'node:url';
 import { freePort } from '../scripts/lib/free-port';
 import { ensureDatabaseTemplate } from '../server/db/template';
+import { buildServerBundleIfStale } from '../scripts/lib/server-bundle';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 /** Aim: the demo answers within 15 s of the first start on an empty folder. */
@@ -31,6 +32,7 @@ export interface ColdStartResult {
 export async function measureColdStart(years?: number): Promise<ColdStartResult> {
   // Made at build time (`npm run build`), as the client is; not part of the start.
   await ensureDatabaseTemplate((m) => console.log(m));
+  const bundle = await buildServerBundleIfStale(ROOT);
   const port = await freePort();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-cold-'));
   const env: NodeJS.ProcessEnv = { ...process.env };
@@ -54,7 +56,7 @@ export async function measureColdStart(years?: number): Promise<ColdStartResult>
   });
   if (years !== undefined) env.DEMO_HINDCAST_YEARS = String(years);
   const t0 = performance.now();
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, [bundle.entry], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] });
   const lines: { at: number; text: string }[] = [];
   const onData = (d: Buffer) => {
     for (const text of String(d).split('\n')) if (text.trim()) lines.push({ at: (performance.now() - t0) / 1000, text: text.trim() });

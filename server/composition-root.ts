@@ -101,18 +101,21 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   const deps = makeDeps(provisionalBase);
   // Several instances may start at once on one PostgreSQL server: one migrates (and seeds an empty
   // database) while the others wait for it, so no migration or seed runs twice.
+  let seeded = false;
   await whileHoldingStartLock(database, log, async () => {
     await migrateDatabase(database);
     const [{ n }] = await database.db.select({ n: count() }).from(user);
     if (n === 0 && env.SEED_DEMO) {
       log.info('Empty database: seeding the invented demo scenario');
       await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS });
+      seeded = true;
     }
   });
 
   // The demo accounts' password is printed in the README: while any of them still signs in with
   // it, the server stays on this machine (127.0.0.1) unless told otherwise, and refuses to be told.
-  const demoAccounts = await demoAccountsWithPublishedPassword(deps);
+  // Just seeded: every demo account has the published password (no need for four slow hash checks).
+  const demoAccounts = seeded ? DEMO_USERS.map((u) => u.email).sort() : await demoAccountsWithPublishedPassword(deps);
   const host = env.HOST ?? (demoAccounts.length > 0 ? '127.0.0.1' : '0.0.0.0');
   if (demoAccounts.length > 0 && !isLoopback(host)) {
     await forecast.close();
