@@ -12,6 +12,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { build, type Plugin } from 'esbuild';
+import { newestMtime } from './client-build';
 
 /** The folders and files whose change makes the bundle stale. */
 const SOURCES = ['server', 'shared', 'seed', 'jobs', 'scripts/lib', 'package.json', 'package-lock.json'];
@@ -27,15 +28,6 @@ export interface ServerBundle {
 export function serverBundlePaths(root: string): ServerBundle {
   const dir = path.join(root, 'node_modules', '.cache', 'lullwatch-server');
   return { entry: path.join(dir, 'index.mjs'), engineWorker: path.join(dir, 'engine-worker.mjs') };
-}
-
-function newestMtime(entry: string): number {
-  const stat = fs.statSync(entry, { throwIfNoEntry: false });
-  if (!stat) return 0;
-  if (!stat.isDirectory()) return stat.mtimeMs;
-  let newest = stat.mtimeMs;
-  for (const name of fs.readdirSync(entry)) newest = Math.max(newest, newestMtime(path.join(entry, name)));
-  return newest;
 }
 
 /** Each bundled .ts file keeps its own import.meta.dirname and import.meta.url. */
