@@ -25,12 +25,6 @@ import type { AlphaTable } from '../engine/types';
 import { binIndex, FEW_ISSUES, SKILL_HS_BINS_M, SKILL_LEAD_BINS_H, type SkillBin } from './forecast-skill';
 import { standardNormalQuantile } from './normal-quantile';
 
-/** Default p: the accepted chance that the observed Hs exceeds OPLIM (docs/domain.md#forecast-uncertainty). */
-export const DEFAULT_CALIBRATION_P = 1e-4;
-/** Bounds of p a project may set: a chance, well inside (0, 0.5). */
-export const MIN_CALIBRATION_P = 1e-9;
-export const MAX_CALIBRATION_P = 0.2;
-
 /**
  * alpha = min(1, exp(-(mu + z * sigma))) with z the (1 - p) standard normal quantile.
  * @param mu mean of ln(Hs_obs/Hs_fc); @param sigma its standard deviation (>= 0); @param p chance, (0, 1)
