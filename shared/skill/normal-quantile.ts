@@ -1,4 +1,4 @@
-import { jStat } from 'jstat';
+import jstat from 'jstat';
 
 /**
  * The p-quantile of the standard normal distribution (jstat's `normal.inv`, a general-purpose
@@ -10,5 +10,5 @@ import { jStat } from 'jstat';
  */
 export function standardNormalQuantile(p: number): number {
   if (!(p > 0 && p < 1)) throw new RangeError(`probability ${p} must be strictly between 0 and 1`);
-  return jStat.normal.inv(p, 0, 1);
+  return jstat.normal.inv(p, 0, 1);
 }
