@@ -3,33 +3,23 @@
 // beside the default, then adopts it through the confirm; the client sees no adopt button.
 // The demo seeds 60 days of past forecast issues and an invented buoy record (seed/skill-archive.ts).
 // Needs the built client (`npm run build`).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { openDemoProject, screenshot, useBrowserApp, type DemoAccount } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
+const app = useBrowserApp();
+const { browser } = app;
 
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 180_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
-
-async function openSkill(email: string): Promise<void> {
+async function openSkill(account: DemoAccount): Promise<void> {
   const { page } = browser;
-  await signInAs(page, server.baseUrl, email);
-  await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-  await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Forecast skill' }).click();
+  await app.signIn(account);
+  await openDemoProject(page, 'Forecast skill');
   await page.getByRole('heading', { name: 'Forecast skill', level: 1 }).waitFor({ timeout: 60_000 });
 }
 
 describe('the forecast-skill page', () => {
   it('shows the coordinator the calibrated table beside the default, and adopts it after a confirm', async () => {
     const { page } = browser;
-    await openSkill('coordinator@example.com');
+    await openSkill('coordinator');
     const table = page.getByTestId('calibrated-alpha-table');
     await table.waitFor({ timeout: 120_000 });
     // Default values from docs/domain.md#weather-restricted (from memory of DNV-ST-N001): row 12 h
@@ -52,13 +42,11 @@ describe('the forecast-skill page', () => {
     await page.getByRole('button', { name: 'Adopt calibrated table', exact: true }).click();
     await page.getByText(/now the project's alpha table/).waitFor({ timeout: 60_000 });
     await page.getByText(/The project's table in force is its own/).waitFor({ timeout: 60_000 });
-    await page.getByRole('button', { name: 'Sign out' }).click();
-    await page.getByRole('button', { name: 'Sign in' }).waitFor();
   }, 300_000);
 
   it('shows the client the same figures without the adopt button', async () => {
     const { page } = browser;
-    await openSkill('client@example.com');
+    await openSkill('client');
     await page.getByTestId('calibrated-alpha-table').waitFor({ timeout: 120_000 });
     expect(await page.getByRole('button', { name: /Adopt/ }).count()).toBe(0);
   }, 200_000);
