@@ -1,4 +1,13 @@
-import { LIMIT_NAMES, STATUS, alphaFactor, isWeatherRestricted, planOperation, recordSteps } from '../../shared/engine';
+import {
+  LIMIT_NAMES,
+  STATUS,
+  alphaFactor,
+  ensembleChancesMany,
+  isWeatherRestricted,
+  planOperation,
+  recordSteps,
+  type EnsembleChances,
+} from '../../shared/engine';
 import { explainHour, type HourStatus } from '../../shared/engine/explain-hour';
 import { transformOne } from '../../shared/waves';
 import { expandRecurrence, RecurrenceInput } from '../../shared/recurrence';
@@ -9,7 +18,8 @@ import { getDatasetRow, latestDataset } from './datasets';
 import { createHash } from 'node:crypto';
 import { encodedAnswer } from './encoded-answers';
 import { loadProjectSetup, operationSpec, siteTide, sitesOf, transformForSite, type ProjectSetup } from './site-context';
-import { readSeries } from './series-store';
+import { readSeries, type SeaSeries } from './series-store';
+import { readMembers } from './ensemble-store';
 import { STATS_FORMAT } from './workability';
 
 const STATUS_NAMES: HourStatus[] = [];
@@ -129,6 +139,9 @@ async function computePlan(
   const times = Array.from(series.timeMs, iso);
   const stepMs = row.stepMinutes * 60_000;
   const perSite = new Map(setup.sites.map((s) => [s.id, transformForSite(series, row.dataPointDepthM, s)]));
+  const members = row.ensembleMembers > 0 ? await readMembers(db, row.id, series) : [];
+  const chances = ensembleChancesPerPair(series, members, row.dataPointDepthM, setup, perSite, stepMs);
+  const chance3 = (a: Float64Array) => Array.from(a, (x) => Math.round(x * 1000) / 1000);
   const plans: OperationSitePlan[] = [];
   for (const op of setup.operations) {
     const spec = operationSpec(op);
@@ -138,6 +151,7 @@ async function computePlan(
       const t = perSite.get(site.id)!;
       const plan = planOperation(t.engine, spec, setup.alphaTable, options.now.getTime(), { alpha: options.alpha, stepMs });
       const statusNames = Array.from(plan.status, (s) => STATUS_NAMES[s]);
+      const ch = chances.get(`${op.id}:${site.id}`);
       plans.push({
         operationId: op.id,
         operationName: op.name,
@@ -155,6 +169,7 @@ async function computePlan(
           end: iso(w.endMs),
           hours: w.hours,
           minMargin: { perLimit: w.minMargin.perLimit as Record<string, number>, relative: w.minMargin.relative },
+          chance: ch ? Math.round(ch.start[w.startIndex] * 1000) / 1000 : null,
         })),
         earliestStart: plan.earliestStartMs === null ? null : iso(plan.earliestStartMs),
         startNow: plan.startNow,
@@ -172,6 +187,8 @@ async function computePlan(
         ),
         limiting: Array.from(plan.limiting, (c) => LIMIT_NAMES[c] ?? null),
         marginRel: Array.from(plan.marginRel, (m) => (Number.isFinite(m) ? Math.round(m * 1000) / 1000 : null)),
+        chance: ch ? chance3(ch.hour) : null,
+        startChance: ch && !plan.informationOnly ? chance3(ch.start) : null,
       });
     }
   }
@@ -187,8 +204,34 @@ async function computePlan(
     span: { from: iso(span.fromMs), to: iso(span.toMs), asAt: iso(span.nowMs) },
     alpha: options.alpha,
     stepMinutes: row.stepMinutes,
+    ensemble: members.length > 0 ? { runs: members.length + 1 } : null,
     plans,
   };
+}
+
+/**
+ * Ensemble chances per (operation, worksite) (docs/domain.md#forecast-uncertainty): every run
+ * (the control and each member) transformed to the worksite like the control, all operations at
+ * the worksite evaluated together on OPLIM. Empty without members.
+ */
+function ensembleChancesPerPair(
+  control: SeaSeries,
+  members: readonly SeaSeries[],
+  dataPointDepthM: number | null,
+  setup: ProjectSetup,
+  perSite: Map<string, ReturnType<typeof transformForSite>>,
+  stepMs: number,
+): Map<string, EnsembleChances> {
+  const out = new Map<string, EnsembleChances>();
+  if (members.length === 0 || control.timeMs.length === 0) return out;
+  for (const site of setup.sites) {
+    const ops = setup.operations.filter((op) => sitesOf(op, setup.sites).some((s) => s.id === site.id));
+    if (ops.length === 0) continue;
+    const runs = [perSite.get(site.id)!.engine, ...members.map((m) => transformForSite(m, dataPointDepthM, site).engine)];
+    const result = ensembleChancesMany(runs, ops.map(operationSpec), setup.alphaTable, stepMs);
+    ops.forEach((op, k) => out.set(`${op.id}:${site.id}`, result[k]));
+  }
+  return out;
 }
 
 /** Occurrence starts of a stored recurrence inside the plan's horizon (none when it is not a valid rule). */
