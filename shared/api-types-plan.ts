@@ -97,6 +97,16 @@ export interface HourChainAnswer {
   checks: LimitCheck[];
   /** The operation is not weather-restricted: the hour is shown against OPLIM for information only. */
   informationOnly: boolean;
+  /**
+   * The ensemble's spread at the worksite in this hour (docs/domain.md#forecast-uncertainty): Hs of
+   * every run (control and members) through the same chain, min, P10, P50, P90 (type 7
+   * quantiles), max, m; `withData` runs had a value. Null for a forecast without members.
+   */
+  ensemble: {
+    runs: number;
+    withData: number;
+    hs: { min: number | null; p10: number | null; p50: number | null; p90: number | null; max: number | null };
+  } | null;
 }
 
 export interface ConditionsAnswer {

@@ -5,6 +5,7 @@ import {
   ensembleChancesMany,
   isWeatherRestricted,
   planOperation,
+  quantileR7Sorted,
   recordSteps,
   type EnsembleChances,
 } from '../../shared/engine';
@@ -317,6 +318,15 @@ export async function hourChain(
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
   const spec = operationSpec(op);
+  // The ensemble's Hs at the worksite in this hour: every run (control and members) through the same chain.
+  const members = row.ensembleMembers > 0 ? await readMembers(db, row.id, series) : [];
+  let ensemble: HourChainAnswer['ensemble'] = null;
+  if (members.length > 0) {
+    const hs = [chain.hsM, ...members.map((m) => siteHsOf(m, i, waterLevel, row.dataPointDepthM, site))].filter((x) => !Number.isNaN(x));
+    hs.sort((a, b) => a - b);
+    const q = (p: number) => (hs.length ? Math.round(quantileR7Sorted(hs, p) * 1000) / 1000 : null);
+    ensemble = { runs: members.length + 1, withData: hs.length, hs: { min: q(0), p10: q(0.1), p50: q(0.5), p90: q(0.9), max: q(1) } };
+  }
   const explained = explainHour(
     {
       hsM: chain.hsM,
@@ -358,7 +368,23 @@ export async function hourChain(
     status: explained.status,
     checks: explained.checks,
     informationOnly: !isWeatherRestricted(spec),
+    ensemble,
   };
+}
+
+/** One run's Hs at the worksite at record i, through the control's chain (docs/domain.md#transformation). */
+function siteHsOf(
+  run: SeaSeries,
+  i: number,
+  waterLevel: number | null,
+  dataPointDepthM: number | null,
+  site: ProjectSetup['sites'][number],
+): number {
+  return transformOne(
+    { hsM: run.hs[i], tpS: run.tp[i], tzS: run.tz[i], dirDeg: run.dir[i], waterLevelM: waterLevel },
+    { depthM: dataPointDepthM ?? Infinity },
+    { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
+  ).hsM;
 }
 
 /** Worksite conditions over a dataset with each operation's limit and forecast limit. */
