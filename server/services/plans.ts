@@ -18,7 +18,15 @@ import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
 import { createHash } from 'node:crypto';
 import { encodedAnswer } from './encoded-answers';
-import { loadProjectSetup, operationSpec, siteTide, sitesOf, transformForSite, type ProjectSetup } from './site-context';
+import {
+  engineSeriesAtSites,
+  loadProjectSetup,
+  operationSpec,
+  siteTide,
+  sitesOf,
+  transformForSite,
+  type ProjectSetup,
+} from './site-context';
 import { readSeries, type SeaSeries } from './series-store';
 import { readMembers } from './ensemble-store';
 import { STATS_FORMAT } from './workability';
@@ -215,7 +223,7 @@ async function computePlan(
  * (the control and each member) transformed to the worksite like the control, all operations at
  * the worksite evaluated together on OPLIM. Empty without members.
  */
-function ensembleChancesPerPair(
+export function ensembleChancesPerPair(
   control: SeaSeries,
   members: readonly SeaSeries[],
   dataPointDepthM: number | null,
@@ -225,10 +233,11 @@ function ensembleChancesPerPair(
 ): Map<string, EnsembleChances> {
   const out = new Map<string, EnsembleChances>();
   if (members.length === 0 || control.timeMs.length === 0) return out;
+  const memberSites = members.map((m) => engineSeriesAtSites(m, dataPointDepthM, setup.sites));
   for (const site of setup.sites) {
     const ops = setup.operations.filter((op) => sitesOf(op, setup.sites).some((s) => s.id === site.id));
     if (ops.length === 0) continue;
-    const runs = [perSite.get(site.id)!.engine, ...members.map((m) => transformForSite(m, dataPointDepthM, site).engine)];
+    const runs = [perSite.get(site.id)!.engine, ...memberSites.map((m) => m.get(site.id)!)];
     const result = ensembleChancesMany(runs, ops.map(operationSpec), setup.alphaTable, stepMs);
     ops.forEach((op, k) => out.set(`${op.id}:${site.id}`, result[k]));
   }
