@@ -17,9 +17,9 @@ beforeAll(async () => {
   t = await createTestApp({ clock: () => NOW, forecast: true });
   as = await signInAll(t.app);
   base = `/api/projects/${t.demo.projectId}`;
-});
+}, 240_000);
 afterAll(async () => {
-  await t.close();
+  await t?.close();
 });
 
 interface PlanBody {
@@ -117,5 +117,77 @@ describe('an ensemble forecast', () => {
       expect(p.chance).toBeNull();
       for (const w of p.windows) expect(w.chance).toBeNull();
     }
+  });
+});
+
+describe('an ensemble forecast from CSV (a member column; 0 = the control)', () => {
+  const upload = (name: string, text: string, kind = 'forecast') =>
+    as.coordinator
+      .post(`${base}/datasets`)
+      .field('name', name)
+      .field('kind', kind)
+      .field('format', 'csv')
+      .field('dataPointDepth', 'deep')
+      .attach('file', Buffer.from(text), `${name}.csv`);
+  const forecasts = async () => (await as.coordinator.get(`${base}/datasets`)).body.length as number;
+
+  it('stores the control and each member, rows in any order of members', async () => {
+    const text = [
+      'time,member,hs,tp,wind',
+      '2026-12-05T00:00Z,0,1.0,8,5',
+      '2026-12-05T00:00Z,1,1.2,8.5,6',
+      '2026-12-05T00:00Z,2,0.9,7.5,4',
+      '2026-12-05T01:00Z,2,1.0,7.6,4.5',
+      '2026-12-05T01:00Z,0,1.1,8.1,5.5',
+      '2026-12-05T01:00Z,1,1.3,8.6,6.5',
+    ].join('\n');
+    const res = await upload('Ensemble CSV', text);
+    expect(res.status, res.text).toBe(201);
+    expect(res.body.records).toBe(2);
+    const detail = (await as.coordinator.get(`${base}/datasets`)).body.find((d: { id: string }) => d.id === res.body.id);
+    expect(detail.ensembleMembers).toBe(2);
+    const control = await readSeries(t.deps.db, res.body.id);
+    const members = await readMembers(t.deps.db, res.body.id, control);
+    // The values as written in the file above.
+    expect(Array.from(control.hs)).toEqual([1.0, 1.1]);
+    expect(members.map((m) => [m.member, Array.from(m.hs), Array.from(m.tp), Array.from(m.wind)])).toEqual([
+      [1, [1.2, 1.3], [8.5, 8.6], [6, 6.5]],
+      [2, [0.9, 1.0], [7.5, 7.6], [4, 4.5]],
+    ]);
+  });
+
+  it('refuses the whole file, naming line, column and value, for a bad member, a missing control or a member off the control times', async () => {
+    const before = await forecasts();
+    const bad = await upload('Bad member', 'time,member,hs\n2026-12-05T00:00Z,0,1.0\n2026-12-05T00:00Z,one,1.2\n');
+    expect(bad.status, bad.text).toBe(400);
+    expect(bad.body.error.details[0]).toMatchObject({ line: 3, column: 'member', value: 'one' });
+
+    const noControl = await upload('No control', 'time,member,hs\n2026-12-05T00:00Z,1,1.0\n2026-12-05T01:00Z,1,1.2\n');
+    expect(noControl.status, noControl.text).toBe(400);
+    expect(noControl.body.error.message).toMatch(/member 0/);
+
+    const short = await upload(
+      'Short member',
+      'time,member,hs\n2026-12-05T00:00Z,0,1.0\n2026-12-05T01:00Z,0,1.1\n2026-12-05T00:00Z,1,1.2\n',
+    );
+    expect(short.status, short.text).toBe(400);
+    // The control's row at 01:00 (line 3) has no partner in member 1.
+    expect(short.body.error.details[0]).toMatchObject({ line: 3, column: 'member' });
+    expect(short.body.error.details[0].reason).toMatch(/member 1 has no row/);
+
+    const extra = await upload('Extra time', 'time,member,hs\n2026-12-05T00:00Z,0,1.0\n2026-12-05T00:00Z,1,1.2\n2026-12-05T02:00Z,1,1.3\n');
+    expect(extra.status, extra.text).toBe(400);
+    expect(extra.body.error.details[0]).toMatchObject({ line: 4, column: 'member', value: '1' });
+
+    // A bad value inside a member's row is named at its own line of the file.
+    const value = await upload('Bad value', 'time,member,hs\n2026-12-05T00:00Z,0,1.0\n2026-12-05T00:00Z,1,-3\n');
+    expect(value.status, value.text).toBe(400);
+    expect(value.body.error.details[0]).toMatchObject({ line: 3, column: 'hs', value: '-3' });
+
+    const hindcast = await upload('Member hindcast', 'time,member,hs\n2026-12-05T00:00Z,0,1.0\n', 'hindcast');
+    expect(hindcast.status, hindcast.text).toBe(400);
+    expect(hindcast.body.error.message).toMatch(/forecast/);
+    // All-or-nothing: nothing of the refused files was stored.
+    expect(await forecasts()).toBe(before);
   });
 });

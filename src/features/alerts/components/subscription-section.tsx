@@ -196,6 +196,26 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
             </FieldShell>
           </div>
         ) : null}
+        <FieldShell
+          label="Window chance fell below"
+          htmlFor="sub-window-chance"
+          unit="%"
+          error={errors.windowChanceBelow?.message}
+          hint="With an ensemble forecast: e-mail me when a usable window's chance to hold TR falls below this percentage from one planning run to the next (50 is a common choice). Empty: off."
+        >
+          <Input
+            id="sub-window-chance"
+            type="number"
+            min={1}
+            max={99}
+            step={1}
+            inputMode="numeric"
+            {...form.register('windowChanceBelow', {
+              setValueAs: (x: unknown) => (x === '' || x === null || x === undefined ? null : Number(x)),
+            })}
+            invalid={!!errors.windowChanceBelow}
+          />
+        </FieldShell>
         {role === 'client' || role === 'coordinator' ? (
           <FieldShell
             label="Campaign finish moved"

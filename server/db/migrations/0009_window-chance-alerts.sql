@@ -1,0 +1,1 @@
+ALTER TABLE "subscription" ADD COLUMN "window_chance_below" integer;
