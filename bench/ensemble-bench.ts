@@ -9,6 +9,7 @@
  * Run alone: `npx tsx bench/ensemble-bench.ts`.
  */
 import { pathToFileURL } from 'node:url';
+import { mulberry32 } from './engine-bench';
 import { performance } from 'node:perf_hooks';
 import { DEFAULT_ALPHA_TABLE } from '../shared/engine/index';
 import { generateSyntheticSea } from '../server/forecast/synthetic-sea';
@@ -22,18 +23,6 @@ const RUNS = 21;
 const HOURS = 240;
 const SITES = 5;
 const OPERATIONS = 10;
-
-/** Mulberry32: a small seeded generator, so every run builds the same ensemble. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** The control and 20 members whose Hs and wind scatter more with lead time (fresh arrays each call). */
 function ensemble(): { control: SeaSeries; members: SeaSeries[] } {

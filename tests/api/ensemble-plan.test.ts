@@ -180,9 +180,12 @@ describe('an ensemble forecast from CSV (a member column; 0 = the control)', () 
     expect(extra.body.error.details[0]).toMatchObject({ line: 4, column: 'member', value: '1' });
 
     // A bad value inside a member's row is named at its own line of the file.
-    const value = await upload('Bad value', 'time,member,hs\n2026-12-05T00:00Z,0,1.0\n2026-12-05T00:00Z,1,-3\n');
+    const value = await upload(
+      'Bad value',
+      'time,member,hs\n2026-12-05T00:00Z,0,1.0\n2026-12-05T01:00Z,0,1.1\n2026-12-05T00:00Z,1,1.2\n2026-12-05T01:00Z,1,-3\n',
+    );
     expect(value.status, value.text).toBe(400);
-    expect(value.body.error.details[0]).toMatchObject({ line: 3, column: 'hs', value: '-3' });
+    expect(value.body.error.details).toContainEqual(expect.objectContaining({ line: 5, column: 'hs', value: '-3' }));
 
     const hindcast = await upload('Member hindcast', 'time,member,hs\n2026-12-05T00:00Z,0,1.0\n', 'hindcast');
     expect(hindcast.status, hindcast.text).toBe(400);
