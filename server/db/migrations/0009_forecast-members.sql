@@ -12,4 +12,5 @@ CREATE TABLE "forecast_member" (
 );
 --> statement-breakpoint
 ALTER TABLE "dataset" ADD COLUMN "ensemble_members" integer DEFAULT 0 NOT NULL;--> statement-breakpoint
+ALTER TABLE "subscription" ADD COLUMN "window_chance_below" integer;--> statement-breakpoint
 ALTER TABLE "forecast_member" ADD CONSTRAINT "forecast_member_dataset_id_dataset_id_fk" FOREIGN KEY ("dataset_id") REFERENCES "public"."dataset"("id") ON DELETE cascade ON UPDATE no action;

@@ -1,1 +1,0 @@
-ALTER TABLE "subscription" ADD COLUMN "window_chance_below" integer;
