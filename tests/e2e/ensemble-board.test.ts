@@ -2,29 +2,18 @@
 // readable without colour: a bar along each hour cell with its words in the cell's label, the
 // chance to hold TR on the next window, and the runs' Hs spread in the chain behind an hour. The
 // demo's latest forecast comes from the local fake with 20 members beside the control.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { PlanAnswer } from '../../shared/api-types-plan';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { screenshot, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  // One year of demo hindcast is enough here: the board plans on the forecast.
-  server = await startServer({ DEMO_HINDCAST_YEARS: '1' });
-  browser = await openBrowser();
-}, 240_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+// One year of demo hindcast is enough here: the board plans on the forecast.
+const app = useBrowserApp({ env: { DEMO_HINDCAST_YEARS: '1' }, signIn: 'coordinator' });
 
 describe('ensemble chances on the board', () => {
   it('gives every hour its chance in a bar and in words, each window its chance, and the chain the spread', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { server, browser } = app;
+    const { page } = browser;
+    const projectId = app.projectId;
     await page.goto(`${server.baseUrl}/projects/${projectId}/board?days=all`);
     await page.getByTestId('hour-cell').first().waitFor({ timeout: 90_000 });
 
