@@ -52,7 +52,7 @@ describe('ensemble chances on the board', () => {
     await panel.getByTestId('chain-spread').waitFor({ timeout: 60_000 });
     const spread = (await panel.getByTestId('chain-spread').textContent()) ?? '';
     for (const k of ['Hs min', 'Hs P10', 'Hs P50', 'Hs P90', 'Hs max']) expect(spread).toContain(k);
-    const values = [...spread.matchAll(/(\d+\.\d{2}) m/g)].map((m) => Number(m[1]));
+    const values = (await panel.getByTestId('chain-spread').locator('dd').allTextContents()).map((x) => Number(x.replace(' m', '')));
     expect(values).toHaveLength(5);
     // Order statistics never decrease (min <= P10 <= P50 <= P90 <= max).
     for (let k = 1; k < 5; k++) expect(values[k]).toBeGreaterThanOrEqual(values[k - 1]);
