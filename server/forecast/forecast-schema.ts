@@ -71,7 +71,7 @@ export type ExchangeSeriesKey = keyof typeof EXCHANGE_SERIES;
 /** The variable names in table order. */
 export const EXCHANGE_SERIES_KEYS = Object.keys(EXCHANGE_SERIES) as ExchangeSeriesKey[];
 
-type RequiredKey = { [K in ExchangeSeriesKey]: (typeof EXCHANGE_SERIES)[K]['required'] extends true ? K : never }[ExchangeSeriesKey];
+export type RequiredKey = { [K in ExchangeSeriesKey]: (typeof EXCHANGE_SERIES)[K]['required'] extends true ? K : never }[ExchangeSeriesKey];
 
 /** One forecast answer as it travels on the wire. */
 export interface SeaStateExchange {

@@ -72,7 +72,9 @@ describe('fake forecast service through HttpForecastProvider', () => {
   });
 
   it('gives wind sea and swells whose energies add up to the total (docs/domain.md#partitions)', () => {
-    const r = issue.records;
+    const r = issue.records as Record<string, Float64Array> & { timeMs: Float64Array; hs: Float64Array };
+    for (const k of ['windSea', 'swell1', 'swell2'])
+      for (const v of ['hs', 'tp', 'dir']) expect(r[`${k}.${v}`]).toBeInstanceOf(Float64Array);
     let swellLong = 0;
     for (let i = 0; i < r.timeMs.length; i++) {
       const parts = [r['windSea.hs'][i], r['swell1.hs'][i], r['swell2.hs'][i]];
