@@ -195,3 +195,76 @@ export function transformPartitionedToSite(
   }
   return result;
 }
+
+/** One partition of one record, at the data point and at the worksite (NaN = unknown; Hs 0 = absent). */
+export interface PartitionChain {
+  name: PartitionName;
+  hsSrcM: number;
+  tpS: number;
+  dirSrcDeg: number;
+  /** Hs at the worksite after the total's depth limit scaled it, m. */
+  hsM: number;
+  dirDeg: number;
+}
+
+/** One record combined from its partitions (the chain behind an hour), or null when it is not. */
+export interface PartitionedRecord {
+  hsM: number;
+  tpS: number;
+  dirDeg: number;
+  bedVelocityLinearMps: number;
+  bedVelocitySoulsbyMps: number;
+  flags: number;
+  partitions: PartitionChain[];
+}
+
+/**
+ * {@link transformPartitionedToSite} for one record: the combined worksite sea and each partition
+ * the dataset gives; null when the record is not combined from partitions (then the total's chain,
+ * transformOne, applies).
+ */
+export function transformPartitionedOne(
+  record: { hsM: number; tpS: number; tzS?: number | null; dirDeg?: number | null; waterLevelM?: number | null },
+  parts: Partial<Record<PartitionName, { hsM: number; tpS: number; dirDeg: number }>>,
+  source: SourcePoint,
+  site: SiteGeometry,
+  options?: Omit<TransformOptions, 'out' | 'prepared' | 'fields'>,
+): PartitionedRecord | null {
+  const one = (x: number | null | undefined) => Float64Array.of(x ?? NaN);
+  const input: PartitionInput = {};
+  for (const k of PARTITION_NAMES) {
+    const p = parts[k];
+    if (p) input[k] = { hsM: one(p.hsM), tpS: one(p.tpS), dirDeg: one(p.dirDeg) };
+  }
+  if (!hasPartitions(input)) return null;
+  const out = transformPartitionedToSite(
+    {
+      hsM: one(record.hsM),
+      tpS: one(record.tpS),
+      tzS: one(record.tzS),
+      dirDeg: one(record.dirDeg),
+      waterLevelM: record.waterLevelM == null ? null : one(record.waterLevelM),
+    },
+    input,
+    source,
+    site,
+    options,
+  );
+  if ((out.flags[0] & PARTITIONED_FLAG) === 0) return null;
+  return {
+    hsM: out.hsM[0],
+    tpS: out.tpS[0],
+    dirDeg: out.dirDeg[0],
+    bedVelocityLinearMps: out.bedVelocityLinearMps[0],
+    bedVelocitySoulsbyMps: out.bedVelocitySoulsbyMps[0],
+    flags: out.flags[0],
+    partitions: PARTITION_NAMES.filter((k) => input[k]).map((k) => ({
+      name: k,
+      hsSrcM: input[k]!.hsM[0],
+      tpS: input[k]!.tpS[0],
+      dirSrcDeg: input[k]!.dirDeg[0],
+      hsM: out.partitions[k].hsM[0],
+      dirDeg: out.partitions[k].dirDeg[0],
+    })),
+  };
+}
