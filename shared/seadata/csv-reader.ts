@@ -328,33 +328,30 @@ export class CsvRecordReader {
 
   /** A partition value: the same text rules as the other columns; Hs in the height unit, directions as the convention says. */
   private readPartition(raw: string, c: ValueColumn): void {
-    const s = raw.trim();
-    if (s === '') {
-      if (!this.missing.emptyIsMissing) this.v.rowIssue(c.name, raw, 'empty value (not in the missing-value codes)');
-      return;
-    }
-    const x = parseDecimal(s, this.decimalComma);
-    if (Number.isNaN(x)) {
-      if (!this.missing.isMissingText(s)) this.v.rowIssue(c.name, raw, 'not a number');
-      return;
-    }
-    if (this.missing.isMissingNumber(x)) return;
+    const x = this.numberOf(raw, c);
+    if (x === null) return;
     const value = this.partGoingTo[c.variable] && x >= 0 && x <= 360 ? (x + 180) % 360 : x * c.factor;
     this.v.setPartitionValue(c.variable, value, c.name, raw);
   }
 
-  private readValue(raw: string, c: ValueColumn): void {
+  /** The number in a field, or null when it is missing (a code or an allowed blank) or not a number (the row's issue then added). */
+  private numberOf(raw: string, c: ValueColumn): number | null {
     const s = raw.trim();
     if (s === '') {
       if (!this.missing.emptyIsMissing) this.v.rowIssue(c.name, raw, 'empty value (not in the missing-value codes)');
-      return;
+      return null;
     }
     const x = parseDecimal(s, this.decimalComma);
     if (Number.isNaN(x)) {
       if (!this.missing.isMissingText(s)) this.v.rowIssue(c.name, raw, 'not a number');
-      return;
+      return null;
     }
-    if (this.missing.isMissingNumber(x)) return;
+    return this.missing.isMissingNumber(x) ? null : x;
+  }
+
+  private readValue(raw: string, c: ValueColumn): void {
+    const x = this.numberOf(raw, c);
+    if (x === null) return;
     if (c.variable === WIND_INDEX && x === WIND_MISSING_VALUE) return;
     if (this.goingTo && (c.variable === DIR_INDEX || c.variable === WIND_DIR_INDEX) && x >= 0 && x <= 360) {
       // Going-to to coming-from; out-of-range values pass unchanged so the range check names them.
