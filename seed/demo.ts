@@ -1,3 +1,4 @@
+import type { ExtraSeries } from '../shared/seadata/extra-columns';
 import type { AppDeps } from '../server/deps';
 import { campaign, operation, project, projectMember, worksite } from '../server/db/schema';
 import { createUser } from '../server/services/users';
@@ -222,7 +223,16 @@ export async function seedDemoData(
       hours,
       seed: truthSeedForPosition(DEMO_SEA_SEED, DEMO_PROJECT.dataPointLatitude, DEMO_PROJECT.dataPointLongitude),
       climate: climateForPosition(DEMO_PROJECT.dataPointLatitude),
+      partitions: true,
     });
+    // The same generator's partitions as the fake forecast's (docs/domain.md#partitions).
+    const parts = sea.partitions!;
+    const extra: ExtraSeries = {};
+    for (const k of ['windSea', 'swell1', 'swell2'] as const) {
+      extra[`${k}.hs`] = parts[k].hsM;
+      extra[`${k}.tp`] = parts[k].tpS;
+      extra[`${k}.dir`] = parts[k].dirDeg;
+    }
     const series = toSeaSeries({
       timeMs: sea.timeMs,
       hs: sea.hsM,
@@ -230,6 +240,7 @@ export async function seedDemoData(
       dir: sea.dirDeg,
       wind: sea.windMps,
       windDir: sea.windDirDeg,
+      extra,
     });
     const row = await createDataset(
       db,

@@ -92,7 +92,19 @@ export interface HourChainAnswer {
     bedVelocityLinear: number | null;
     bedVelocitySoulsby: number | null;
     wind: number | null;
+    /** Worksite Tp: the most energetic partition's when the hour is combined from partitions (docs/domain.md#partitions). */
+    tp?: number | null;
+    dir?: number | null;
   };
+  /**
+   * The sea's partitions at the data point and at the worksite (docs/domain.md#partitions), when
+   * the dataset gives them and this hour is combined from them; absent otherwise. Hs 0 = absent.
+   */
+  partitions?: {
+    name: 'windSea' | 'swell1' | 'swell2';
+    dataPoint: { hs: number | null; tp: number | null; dir: number | null };
+    site: { hs: number | null; tp: number | null; dir: number | null };
+  }[];
   status: HourStatus;
   checks: LimitCheck[];
   /** The operation is not weather-restricted: the hour is shown against OPLIM for information only. */
@@ -125,6 +137,12 @@ export interface ConditionsAnswer {
   depth: (number | null)[];
   /** Current speed, m/s (null where unknown). */
   current: (number | null)[];
+  /**
+   * Worksite Hs of the swell (both swells together) and of the wind sea, m, where the dataset gives
+   * partitions (docs/domain.md#partitions); absent otherwise, null where unknown.
+   */
+  swellHs?: (number | null)[];
+  windSeaHs?: (number | null)[];
   operations: {
     id: string;
     name: string;

@@ -21,7 +21,7 @@
  */
 import { EXCHANGE_SERIES_KEYS, type ExchangeMemberSeries, type ExchangeSeriesKey, type SeaStateExchange } from './forecast-schema';
 import { mix32, seed32, smoothNoise } from './seeded-noise';
-import { generateSyntheticSea, type SeaClimate } from './synthetic-sea';
+import { generateSyntheticSea, type SeaClimate, type SyntheticPartition } from './synthetic-sea';
 
 const MS_PER_HOUR = 3_600_000;
 /** Issues are made every 6 hours, at 00, 06, 12 and 18 UTC. */
@@ -141,6 +141,8 @@ interface FakeRecord {
   windDirTrue: number;
   /** Direction error, deg. */
   eDir: number;
+  /** The partitions with the same errors (Hs 0 = absent; Tp and direction null then). */
+  parts: Record<'windSea' | 'swell1' | 'swell2', { hs: number; tp: number | null; dir: number | null }>;
 }
 
 /**
@@ -153,7 +155,42 @@ const FAKE_VALUES: { [K in ExchangeSeriesKey]?: (r: FakeRecord) => number | null
   dir: (r) => Math.round(wrap360(r.dirTrue + r.eDir)) % 360,
   wind: (r) => r.wind,
   windDir: (r) => Math.round(wrap360(r.windDirTrue + 1.5 * r.eDir)) % 360,
+  'windSea.hs': (r) => r.parts.windSea.hs,
+  'windSea.tp': (r) => r.parts.windSea.tp,
+  'windSea.dir': (r) => r.parts.windSea.dir,
+  'swell1.hs': (r) => r.parts.swell1.hs,
+  'swell1.tp': (r) => r.parts.swell1.tp,
+  'swell1.dir': (r) => r.parts.swell1.dir,
+  'swell2.hs': (r) => r.parts.swell2.hs,
+  'swell2.tp': (r) => r.parts.swell2.tp,
+  'swell2.dir': (r) => r.parts.swell2.dir,
 };
+
+/**
+ * One partition of the truth at the shifted time with the record's errors: Hs interpolated and
+ * scaled like the total, Tp and direction from the nearest record (docs/domain.md#partitions).
+ */
+function fakePartition(
+  p: SyntheticPartition,
+  i0: number,
+  f: number,
+  near: number,
+  scaleHs: number,
+  scaleTp: number,
+  eDir: number,
+): FakeRecord['parts']['windSea'] {
+  const a = p.hsM[i0];
+  const b = p.hsM[i0 + 1];
+  const hs = Math.min(25, Math.round((a * (1 - f) + b * f) * scaleHs * 100) / 100);
+  const tpTrue = p.tpS[near] === p.tpS[near] ? p.tpS[near] : a > 0 ? p.tpS[i0] : p.tpS[i0 + 1];
+  const dirTrue = p.dirDeg[near] === p.dirDeg[near] ? p.dirDeg[near] : a > 0 ? p.dirDeg[i0] : p.dirDeg[i0 + 1];
+  if (!(hs > 0) || tpTrue !== tpTrue) return { hs: 0, tp: null, dir: null };
+  return {
+    hs,
+    tp: Math.min(40, Math.max(0.5, Math.round(tpTrue * scaleTp * 10) / 10)),
+    dir: Math.round(wrap360(dirTrue + eDir)) % 360,
+  };
+}
 
 /**
  * Builds one invented forecast answer in the sea-state exchange (forecast-schema.ts).
@@ -182,6 +219,7 @@ export function buildFakeForecast(request: FakeForecastRequest): SeaStateExchang
     hours: horizonH + 2 * TRUTH_MARGIN_H,
     seed: truthSeed,
     climate: climateForPosition(latitude),
+    partitions: true,
   });
   const time = leads.map((h) => iso(issuedAtMs + h * MS_PER_HOUR));
   const control = forecastColumns(truth, memberErrorSeed(truthSeed, 0), issueIndex, issuedAtMs, leads);
@@ -216,6 +254,7 @@ function forecastColumns(
   const columns = new Map<ExchangeSeriesKey, (number | null)[]>();
   for (const key of EXCHANGE_SERIES_KEYS) if (FAKE_VALUES[key]) columns.set(key, new Array<number | null>(n));
   const last = truth.hsM.length - 1;
+  const truthParts = truth.partitions!;
   for (let r = 0; r < n; r++) {
     const h = leads[r];
     const tMs = issuedAtMs + h * MS_PER_HOUR;
@@ -242,7 +281,14 @@ function forecastColumns(
     tp = Math.min(40, Math.max(0.5, Math.round(tp * 10) / 10));
     const wind = Math.min(99.9, Math.max(0, Math.round(windTrue * Math.exp(eWind) * 10) / 10));
 
-    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir };
+    const sHs = Math.exp(eHs);
+    const sTp = Math.exp(eTp);
+    const parts = {
+      windSea: fakePartition(truthParts.windSea, i0, f, near, sHs, sTp, eDir),
+      swell1: fakePartition(truthParts.swell1, i0, f, near, sHs, sTp, eDir),
+      swell2: fakePartition(truthParts.swell2, i0, f, near, sHs, sTp, eDir),
+    };
+    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir, parts };
     for (const [key, column] of columns) column[r] = FAKE_VALUES[key]!(record);
   }
   return Object.fromEntries(columns);

@@ -61,6 +61,16 @@ export const EXCHANGE_SERIES = {
   dir: { label: 'mean wave direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: true },
   wind: { label: 'wind speed at 10 m', unit: 'm/s', min: 0, max: 100, direction: false, required: true },
   windDir: { label: 'wind direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: true },
+  // Partitions (docs/domain.md#partitions): Hs 0 = the partition is absent that hour.
+  'windSea.hs': { label: 'wind sea Hs', unit: 'm', min: 0, max: 25, direction: false, required: false },
+  'windSea.tp': { label: 'wind sea peak period', unit: 's', min: 0.5, max: 40, direction: false, required: false },
+  'windSea.dir': { label: 'wind sea direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: false },
+  'swell1.hs': { label: 'primary swell Hs', unit: 'm', min: 0, max: 25, direction: false, required: false },
+  'swell1.tp': { label: 'primary swell peak period', unit: 's', min: 0.5, max: 40, direction: false, required: false },
+  'swell1.dir': { label: 'primary swell direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: false },
+  'swell2.hs': { label: 'secondary swell Hs', unit: 'm', min: 0, max: 25, direction: false, required: false },
+  'swell2.tp': { label: 'secondary swell peak period', unit: 's', min: 0.5, max: 40, direction: false, required: false },
+  'swell2.dir': { label: 'secondary swell direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: false },
 } as const satisfies Record<string, ExchangeSeriesSpec>;
 
 export type ExchangeSeriesKey = keyof typeof EXCHANGE_SERIES;
@@ -68,7 +78,7 @@ export type ExchangeSeriesKey = keyof typeof EXCHANGE_SERIES;
 /** The variable names in table order. */
 export const EXCHANGE_SERIES_KEYS = Object.keys(EXCHANGE_SERIES) as ExchangeSeriesKey[];
 
-type RequiredKey = { [K in ExchangeSeriesKey]: (typeof EXCHANGE_SERIES)[K]['required'] extends true ? K : never }[ExchangeSeriesKey];
+export type RequiredKey = { [K in ExchangeSeriesKey]: (typeof EXCHANGE_SERIES)[K]['required'] extends true ? K : never }[ExchangeSeriesKey];
 
 /** One forecast answer as it travels on the wire. */
 export interface SeaStateExchange {

@@ -1,15 +1,17 @@
 /** The forecast module's interfaces: records, issues, providers and provider adapters. */
-import type { ExchangeSeriesKey } from './forecast-schema';
+import type { ExchangeSeriesKey, RequiredKey } from './forecast-schema';
 
 /**
  * Forecast records in columns: the valid times and one column per variable of the exchange
  * (`EXCHANGE_SERIES` in forecast-schema.ts: hs in m, tp in s, dir and windDir in deg coming-from
- * within [0, 360), wind at 10 m in m/s, ...). NaN marks a value the service left out.
+ * within [0, 360), wind at 10 m in m/s, ...). NaN marks a value the service left out; an optional
+ * member the answer left out (the partitions) has no column.
  */
 export type ForecastRecords = {
   /** Valid times, ms since 1970-01-01T00:00Z, strictly increasing. */
   timeMs: Float64Array;
-} & Record<ExchangeSeriesKey, Float64Array>;
+} & Record<RequiredKey, Float64Array> &
+  Partial<Record<Exclude<ExchangeSeriesKey, RequiredKey>, Float64Array>>;
 
 /** One forecast issue, validated and converted. */
 export interface ForecastIssue {

@@ -1,3 +1,4 @@
+import { EXTRA_COLUMNS, type ExtraSeries } from '../../shared/seadata/extra-columns';
 import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { project } from '../db/schema';
@@ -62,7 +63,13 @@ export async function fetchLatestForecast(
     };
   }
   const r = issue.records;
-  const series = toSeaSeries({ timeMs: r.timeMs, hs: r.hs, tp: r.tp, dir: r.dir, wind: r.wind, windDir: r.windDir });
+  // Partitions the service gave (docs/domain.md#partitions) go to the optional columns.
+  const extra: ExtraSeries = {};
+  for (const c of EXTRA_COLUMNS) {
+    const values = (r as Partial<Record<string, Float64Array>>)[c];
+    if (values) extra[c] = values;
+  }
+  const series = toSeaSeries({ timeMs: r.timeMs, hs: r.hs, tp: r.tp, dir: r.dir, wind: r.wind, windDir: r.windDir, extra });
   const issuedAt = new Date(issue.issuedAtMs);
   const row = await createDataset(
     db,

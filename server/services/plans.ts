@@ -10,7 +10,8 @@ import {
   type EnsembleChances,
 } from '../../shared/engine';
 import { explainHour, type HourStatus } from '../../shared/engine/explain-hour';
-import { transformOne } from '../../shared/waves';
+import { targetHsSeries } from '../../shared/engine/hs-targets';
+import { PARTITION_NAMES, transformOne, transformPartitionedOne } from '../../shared/waves';
 import { expandRecurrence, RecurrenceInput } from '../../shared/recurrence';
 import type { ConditionsAnswer, HourChainAnswer, OccurrenceStatus, OperationSitePlan, PlanAnswer } from '../../shared/api-types-plan';
 import type { Db } from '../db/client';
@@ -326,6 +327,31 @@ export async function hourChain(
     { depthM: row.dataPointDepthM ?? Infinity },
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
+  // Partitions, each through the chain with its own Tp and direction (docs/domain.md#partitions).
+  const parts: Parameters<typeof transformPartitionedOne>[1] = {};
+  for (const k of PARTITION_NAMES) {
+    const hs = series.extra[`${k}.hs`];
+    if (hs) parts[k] = { hsM: hs[i], tpS: series.extra[`${k}.tp`]?.[i] ?? NaN, dirDeg: series.extra[`${k}.dir`]?.[i] ?? NaN };
+  }
+  const combined = transformPartitionedOne(
+    { hsM: series.hs[i], tpS: series.tp[i], tzS: series.tz[i], dirDeg: series.dir[i], waterLevelM: waterLevel },
+    parts,
+    { depthM: row.dataPointDepthM ?? Infinity },
+    { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
+  );
+  const hasPartitionColumns = Object.keys(parts).length > 0;
+  const hourPartitions = hasPartitionColumns
+    ? Object.fromEntries(
+        PARTITION_NAMES.map((k) => {
+          const p = combined?.partitions.find((c) => c.name === k);
+          return [k, { hsM: combined ? (p ? p.hsM : 0) : NaN, tpS: p ? p.tpS : NaN }];
+        }),
+      )
+    : undefined;
+  const siteHs = combined ? combined.hsM : chain.hsM;
+  const siteTp = combined ? combined.tpS : series.tp[i];
+  const siteBedLinear = combined ? combined.bedVelocityLinearMps : chain.bedVelocityLinearMps;
+  const siteBedSoulsby = combined ? combined.bedVelocitySoulsbyMps : chain.bedVelocitySoulsbyMps;
   const spec = operationSpec(op);
   // The ensemble's Hs at the worksite in this hour: every run (control and members) through the same chain.
   const members = row.ensembleMembers > 0 ? await readMembers(db, row.id, series) : [];
@@ -338,14 +364,15 @@ export async function hourChain(
   }
   const explained = explainHour(
     {
-      hsM: chain.hsM,
-      tpS: series.tp[i],
-      bedVelocityLinearMps: chain.bedVelocityLinearMps,
-      bedVelocitySoulsbyMps: chain.bedVelocitySoulsbyMps,
+      hsM: siteHs,
+      tpS: siteTp,
+      bedVelocityLinearMps: siteBedLinear,
+      bedVelocitySoulsbyMps: siteBedSoulsby,
       windMps: series.wind[i],
       depthM: chain.depthM,
       timeMs: series.timeMs[i],
       ...(tide ? { tide: tide.tide } : {}),
+      ...(hourPartitions ? { partitions: hourPartitions as NonNullable<Parameters<typeof explainHour>[0]['partitions']> } : {}),
     },
     spec,
     setup.alphaTable,
@@ -369,11 +396,22 @@ export async function hourChain(
       waterLevel: waterLevel === null ? null : v(waterLevel),
       depth: chain.depthM,
       current: null,
-      hs: v(chain.hsM),
-      bedVelocityLinear: v(chain.bedVelocityLinearMps),
-      bedVelocitySoulsby: v(chain.bedVelocitySoulsbyMps),
+      hs: v(siteHs),
+      bedVelocityLinear: v(siteBedLinear),
+      bedVelocitySoulsby: v(siteBedSoulsby),
       wind: v(series.wind[i]),
+      tp: v(siteTp),
+      dir: v(combined ? combined.dirDeg : chain.dirDeg),
     },
+    ...(combined
+      ? {
+          partitions: combined.partitions.map((p) => ({
+            name: p.name,
+            dataPoint: { hs: v(p.hsSrcM), tp: p.hsSrcM > 0 ? v(p.tpS) : null, dir: p.hsSrcM > 0 ? v(p.dirSrcDeg) : null },
+            site: { hs: v(p.hsM), tp: p.hsSrcM > 0 ? v(p.tpS) : null, dir: p.hsSrcM > 0 ? v(p.dirDeg) : null },
+          })),
+        }
+      : {}),
     status: explained.status,
     checks: explained.checks,
     informationOnly: !isWeatherRestricted(spec),
@@ -432,8 +470,14 @@ export async function siteConditions(
     ...empty,
     times: Array.from(series.timeMs, iso),
     hs: col(t.transformed.hsM),
-    tp: col(series.tp),
+    tp: col(t.engine.tpS),
     dir: col(t.transformed.dirDeg),
+    ...(t.engine.partitions
+      ? {
+          swellHs: col(targetHsSeries(t.engine, 'swell', NaN)),
+          windSeaHs: col(targetHsSeries(t.engine, 'windSea', NaN)),
+        }
+      : {}),
     wind: col(series.wind),
     bedVelocityLinear: col(t.transformed.bedVelocityLinearMps),
     bedVelocitySoulsby: col(t.transformed.bedVelocitySoulsbyMps),

@@ -27,6 +27,8 @@ export {
   type StatusManyScratch,
 } from './evaluate-status-many';
 
+export { DEFAULT_BAND_MIN_HS_M, bandPeriodsAt, targetHsAt, targetHsSeries } from './hs-targets';
+
 // Weather windows and the forecast plan
 export { detectStepMs } from './detect-step';
 export { recordSteps, type RecordSteps } from './record-steps';

@@ -18,7 +18,7 @@ import type { ForecastAdapter, ForecastIssue, ForecastRecords } from '../types';
 /** At most this many validation problems are listed in an error. */
 const MAX_DETAILS = 5;
 
-/** Columns of a validated answer as records; nulls and left-out members become NaN, 360 deg becomes 0. */
+/** Columns of a validated answer as records; nulls become NaN, 360 deg becomes 0; a left-out optional member has no column. */
 export function exchangeToRecords(data: SeaStateExchange): ForecastRecords {
   const n = data.series.time.length;
   const timeMs = new Float64Array(n);
@@ -34,6 +34,7 @@ function columnsToRecords(timeMs: Float64Array, columns: object): ForecastRecord
   for (const key of EXCHANGE_SERIES_KEYS) {
     const spec: ExchangeSeriesSpec = EXCHANGE_SERIES[key];
     const values = wire[key];
+    if (!values && !spec.required) continue;
     const out = new Float64Array(n).fill(NaN);
     if (values) {
       for (let i = 0; i < n; i++) {

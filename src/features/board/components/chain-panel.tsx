@@ -247,12 +247,13 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
         <Facts
           rows={[
             ['Hs', <strong key="hs">{fmt(chain.site.hs, 2, 'm')}</strong>],
-            ['Direction', fmtDir(t.dirDeg)],
+            ['Direction', fmtDir(chain.site.dir ?? t.dirDeg)],
             ['Bed velocity, linear', fmt(chain.site.bedVelocityLinear, 2, 'm/s')],
             ['Bed velocity, Soulsby (2006)', fmt(chain.site.bedVelocitySoulsby, 2, 'm/s')],
             ['Wind at 10 m', fmt(chain.site.wind, 1, 'm/s')],
           ]}
         />
+        {chain.partitions ? <PartitionTable partitions={chain.partitions} /> : null}
       </Step>
       <Step n={4} title="Against each limit">
         <p className="mb-2 text-xs text-ink-soft">
@@ -295,6 +296,41 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
   );
 }
 
+const PARTITION_LABEL = { windSea: 'Wind sea', swell1: 'Swell 1', swell2: 'Swell 2' } as const;
+
+/** Each partition at the data point and at the worksite (docs/domain.md#partitions): the total above is √(ΣHs²) of these. */
+function PartitionTable({ partitions }: { partitions: NonNullable<HourChain['partitions']> }) {
+  return (
+    <table className="mt-2 w-full text-xs tabular-nums" data-testid="chain-partitions">
+      <caption className="text-left text-ink-soft">
+        Partitions, each through the chain with its own Tp and direction; the total is √(ΣHs²)
+      </caption>
+      <thead>
+        <tr className="text-left text-ink-soft">
+          <th scope="col">Partition</th>
+          <th scope="col">Hs at data point</th>
+          <th scope="col">Hs at worksite</th>
+          <th scope="col">Tp</th>
+          <th scope="col">Direction at worksite</th>
+        </tr>
+      </thead>
+      <tbody>
+        {partitions.map((p) => (
+          <tr key={p.name}>
+            <th scope="row" className="text-left font-normal">
+              {PARTITION_LABEL[p.name]}
+            </th>
+            <td>{p.dataPoint.hs === 0 ? 'absent' : fmt(p.dataPoint.hs, 2, 'm')}</td>
+            <td>{p.site.hs === 0 ? 'absent' : fmt(p.site.hs, 2, 'm')}</td>
+            <td>{p.site.tp === null ? '–' : fmt(p.site.tp, 1, 's')}</td>
+            <td>{p.site.dir === null ? '–' : fmtDir(p.site.dir)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
 function LimitRow({ check: c }: { check: LimitCheck }) {
   const d = c.unit === 'm/s' ? 2 : c.unit === 'm' ? 2 : 1;
   const verdict = c.met === null ? 'no data' : c.met ? 'met' : c.metAtOplim ? 'met at OPLIM only' : 'broken';
@@ -303,7 +339,10 @@ function LimitRow({ check: c }: { check: LimitCheck }) {
   return (
     <li className="rounded-lg border border-line p-2" data-testid="limit-check">
       <div className="flex items-center justify-between gap-2">
-        <strong className="text-sm">{c.label}</strong>
+        <strong className="text-sm">
+          {c.label}
+          {c.drivenBy ? <span className="font-normal text-ink-soft"> · driven by {PARTITION_LABEL[c.drivenBy].toLowerCase()}</span> : null}
+        </strong>
         <span className={`rounded px-2 py-0.5 text-xs font-bold ${tone}`}>
           {c.met === null ? '?' : c.met ? '✓' : '✗'} {verdict}
         </span>
