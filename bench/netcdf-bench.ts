@@ -8,15 +8,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
-import request from 'supertest';
-import { createApp } from '../server/app';
-import { createAuth } from '../server/auth';
-import { openDatabase } from '../server/db/client';
-import { migrateDatabase } from '../server/db/migrate';
-import { silentLogger } from '../server/deps';
-import { createForecastProvider } from '../server/forecast';
-import { createMailer } from '../server/mail/mailer';
-import { seedDemo } from '../seed/demo';
+import { openBenchApp, timedImport } from './lib/bench-app';
 
 const PYTHON = process.env.LULLWATCH_PYTHON ?? '/usr/bin/python3';
 const SCRIPT = path.resolve(import.meta.dirname, '../tests/fixtures/netcdf/make_fixtures.py');
@@ -37,41 +29,9 @@ export async function runNetcdfBench(): Promise<{ importMs: number; records: num
     const writeMs = performance.now() - w0;
     const bytes = fs.statSync(file).size;
 
-    const database = await openDatabase({ dataDir: path.join(dir, 'db') });
-    await migrateDatabase(database);
-    const forecast = await createForecastProvider();
-    const mailer = await createMailer({ from: 'bench@lullwatch.invalid' });
-    const origin = 'http://localhost:3000';
-    const deps = {
-      db: database.db,
-      database,
-      auth: createAuth(database.db, {
-        secret: 'bench-secret-bench-secret-bench-secret',
-        baseURL: origin,
-        trustedOrigins: [origin],
-        secureCookies: false,
-      }),
-      clock: () => new Date(),
-      log: silentLogger,
-      forecast: forecast.provider,
-      mailer,
-      config: { baseUrl: origin, trustedOrigins: [origin], linkSecret: 'bench', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
-    };
+    const app = await openBenchApp(dir);
     try {
-      const demo = await seedDemo(deps, { hindcastYears: 0, forecast: false });
-      const agent = request.agent(createApp(deps));
-      await agent
-        .post('/api/auth/sign-in/email')
-        .set('Origin', origin)
-        .send({ email: 'coordinator@example.com', password: 'lullwatch-demo' });
-      const t0 = performance.now();
-      const res = await agent
-        .post(`/api/projects/${demo.projectId}/datasets`)
-        .field('name', '30-year NetCDF bench hindcast')
-        .field('kind', 'hindcast')
-        .field('dataPointDepth', 'deep')
-        .attach('file', file);
-      const importMs = performance.now() - t0;
+      const { res, importMs } = await timedImport(app, '30-year NetCDF bench hindcast', file);
       if (res.status !== 201 || res.body.records !== records)
         throw new Error(`NetCDF import failed: ${res.status} ${res.text.slice(0, 300)}`);
       console.log(
@@ -80,9 +40,7 @@ export async function runNetcdfBench(): Promise<{ importMs: number; records: num
       );
       return { importMs, records };
     } finally {
-      await forecast.close();
-      await mailer.close();
-      await database.close();
+      await app.close();
     }
   } finally {
     fs.rmSync(dir, { recursive: true, force: true });
