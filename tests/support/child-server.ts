@@ -36,7 +36,8 @@ export interface ChildServer {
 /**
  * Starts `node --import tsx server/index.ts` (the server is this very process, so a SIGKILL
  * reaches it, unlike the tsx command that runs it in a grandchild) and waits for /api/health
- * (120 s unless `startTimeoutMs` says otherwise) on a free port or the one given.
+ * to answer without `demo: 'loading'`
+ * (180 s unless `startTimeoutMs` says otherwise) on a free port or the one given.
  */
 export async function startServer(
   dataDir: string,
@@ -63,15 +64,16 @@ export async function startServer(
   child.stdout!.on('data', (d) => (out += d));
   child.stderr!.on('data', (d) => (out += d));
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  const deadline = Date.now() + (options.startTimeoutMs ?? 120_000);
+  const deadline = Date.now() + (options.startTimeoutMs ?? 180_000);
   for (;;) {
     if (child.exitCode !== null || child.signalCode !== null) throw new Error(`server exited early:\n${out}`);
     if (Date.now() > deadline) {
       child.kill('SIGKILL');
       throw new Error(`server did not start:\n${out}`);
     }
+    // Up, and the demo's sea data loaded (a first start loads them after it listens).
     const ok = await fetch(`${baseUrl}/api/health`).then(
-      (r) => r.ok,
+      async (r) => r.ok && ((await r.json()) as { demo?: string }).demo !== 'loading',
       () => false,
     );
     if (ok) break;
