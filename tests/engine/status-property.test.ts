@@ -3,14 +3,7 @@
 // with values drawn on the limits themselves to hit the inclusive edges.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  DEFAULT_ALPHA_TABLE,
-  STATUS,
-  evaluateHours,
-  evaluateStatus,
-  type AlphaTable,
-  type OperationSpec,
-} from '../../shared/engine';
+import { DEFAULT_ALPHA_TABLE, STATUS, evaluateHours, evaluateStatus, type AlphaTable, type OperationSpec } from '../../shared/engine';
 import { makeSeries } from './series-factory';
 import { operationArb } from './limit-arbitraries';
 
