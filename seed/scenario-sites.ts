@@ -117,6 +117,8 @@ export const DEMO_OPERATIONS: {
         [12, 1.2],
         [16, 1.0],
       ],
+      // Long-period swell snatches the cable in the chute more than its height says (docs/domain.md#partitions).
+      hsTargets: [{ target: 'longPeriod', minPeriodS: 12, max: 0.8 }],
       windMax: 15,
       // Invented: the lay barge's roll, most probable maximum over 3 h (docs/domain.md#vessel-response).
       responses: [{ response: 'roll_deg_per_m', statistic: 'mpm', durationH: 3, max: 4 }],

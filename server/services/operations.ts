@@ -44,6 +44,12 @@ export function normalizeLimits(limits: OperationLimits): OperationLimits {
     const sea = Object.fromEntries(Object.entries(limits.responseSea).filter(([, x]) => x != null));
     if (Object.keys(sea).length > 0) out.responseSea = sea;
   }
+  // Hs limits on partition targets (docs/domain.md#partitions), T* only on the long-period target.
+  if (limits.hsTargets != null && limits.hsTargets.length > 0)
+    out.hsTargets = limits.hsTargets.map((t) =>
+      t.target === 'longPeriod' ? { target: t.target, minPeriodS: t.minPeriodS, max: t.max } : { target: t.target, max: t.max },
+    );
+  if (limits.tpExcludedMinHs != null) out.tpExcludedMinHs = limits.tpExcludedMinHs;
   return out;
 }
 

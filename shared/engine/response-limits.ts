@@ -115,7 +115,7 @@ export interface ResponseLimitSeries {
  */
 export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limits: readonly ResponseLimit[]): ResponseLimitSeries {
   const n = series.timeMs.length;
-  const parts = series.partitions;
+  const parts = series.responsePartitions;
   const hsTotal = new Float64Array(n);
   if (!parts || parts.length === 0 || !op.vessel) {
     hsTotal.fill(NaN);

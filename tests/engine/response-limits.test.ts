@@ -28,7 +28,7 @@ const HEAVE_ONE: RaoTable = {
 const HS = [1.4, 1.6, 2.2, NaN, 0.5];
 function seriesWithPartition(): SiteSeries {
   const s = makeSeries({ hsM: HS, tpS: [7, 7, 7, 7, 7] });
-  s.partitions = [{ kind: 'windSea', hsM: s.hsM, tpS: s.tpS, dirDeg: new Float64Array(HS.length).fill(30) }];
+  s.responsePartitions = [{ kind: 'windSea', hsM: s.hsM, tpS: s.tpS, dirDeg: new Float64Array(HS.length).fill(30) }];
   return s;
 }
 
@@ -84,7 +84,7 @@ describe('response limits in the engine (docs/domain.md#vessel-response)', () =>
         bedVelocityLinearMps: 0,
         bedVelocitySoulsbyMps: 0,
         windMps: 0,
-        partitions: [
+        responsePartitions: [
           { kind: 'windSea', hsM: 1.2, tpS: 6, dirDeg: 30 },
           { kind: 'swell', hsM: 0.8, tpS: 13, dirDeg: 250 },
         ],
