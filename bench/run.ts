@@ -1,6 +1,6 @@
 // `npm run bench`: speed figures of the hot paths, printed, never asserted in unit tests.
 import os from 'node:os';
-import { describeTransformBench, runTransformBench } from './transform-bench';
+import { describeTideTransformBench, describeTransformBench, runTideTransformBench, runTransformBench } from './transform-bench';
 import { runEngineBench } from './engine-bench';
 import { runImportBench } from './import-bench';
 import { runNetcdfBench } from './netcdf-bench';
@@ -13,6 +13,7 @@ console.log(
     .join(' ')}\n`,
 );
 console.log(describeTransformBench(await runTransformBench()));
+console.log(describeTideTransformBench(await runTideTransformBench()));
 console.log('');
 await runEngineBench();
 console.log('');
