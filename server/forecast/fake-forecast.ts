@@ -125,6 +125,8 @@ interface FakeRecord {
   windDirTrue: number;
   /** Direction error, deg. */
   eDir: number;
+  /** Surge residual, m (invented, see {@link fakeSurgeM}). */
+  surge: number;
 }
 
 /**
@@ -137,7 +139,20 @@ const FAKE_VALUES: { [K in ExchangeSeriesKey]?: (r: FakeRecord) => number | null
   dir: (r) => Math.round(wrap360(r.dirTrue + r.eDir)) % 360,
   wind: (r) => r.wind,
   windDir: (r) => Math.round(wrap360(r.windDirTrue + 1.5 * r.eDir)) % 360,
+  surge: (r) => r.surge,
 };
+
+/**
+ * The fake's invented surge residual at a valid time, m (docs/domain.md#forecast-service): a smooth
+ * field of at most ±0.3 m over 30-hour lattices at the grid node, plus a forecast error of at most
+ * ±(0.02 + 0.01 per day of lead) m that changes from issue to issue like the other errors. Small
+ * and smooth on purpose: it only has to show that a residual reaches the worksite's water level.
+ */
+export function fakeSurgeM(truthSeed: number, errSeed: number, issueIndex: number, tH: number, leadDays: number): number {
+  const truth = 0.3 * smoothNoise(mix32(truthSeed ^ 0x3c6ef372), 9, tH, 30);
+  const error = (0.02 + 0.01 * leadDays) * errorField(errSeed, 6, issueIndex, tH, 30);
+  return Math.round((truth + error) * 100) / 100;
+}
 
 /**
  * Builds one invented forecast answer in the sea-state exchange (forecast-schema.ts).
@@ -198,7 +213,8 @@ export function buildFakeForecast(request: FakeForecastRequest): SeaStateExchang
     const wind = Math.min(99.9, Math.max(0, Math.round(windTrue * Math.exp(eWind) * 10) / 10));
 
     time[r] = iso(tMs);
-    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir };
+    const surge = fakeSurgeM(truthSeed, errSeed, issueIndex, tH, leadDays);
+    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir, surge };
     for (const [key, column] of columns) column[r] = FAKE_VALUES[key]!(record);
   }
   // The times carry the change from hourly to 3-hourly (the exchange has no single step).

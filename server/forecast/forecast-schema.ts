@@ -54,6 +54,8 @@ export const EXCHANGE_SERIES = {
   dir: { label: 'mean wave direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: true },
   wind: { label: 'wind speed at 10 m', unit: 'm/s', min: 0, max: 100, direction: false, required: true },
   windDir: { label: 'wind direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: true },
+  /** Storm surge: the residual water level to add to the predicted astronomical tide (docs/domain.md#tide). */
+  surge: { label: 'surge residual, added to the predicted tide', unit: 'm', min: -5, max: 5, direction: false, required: false },
 } as const satisfies Record<string, ExchangeSeriesSpec>;
 
 export type ExchangeSeriesKey = keyof typeof EXCHANGE_SERIES;
