@@ -7,6 +7,7 @@ import { HttpError } from '../http/errors';
 import { recordAudit } from './audit';
 import { idParam } from '../../shared/schemas/common';
 import { quantileR7Sorted } from '../../shared/engine/quantile-r7';
+import { EXTRA_COLUMN_UNITS, presentExtraColumns } from '../../shared/seadata/extra-columns';
 import { describeSeries } from './sea-series';
 import { readSeries, writeSeries, type SeaSeries } from './series-store';
 
@@ -232,12 +233,20 @@ export function toRecordsAnswer(s: SeaSeries): RecordsAnswer {
 
 /** CSV of a series (UTC ISO times, SI units), for download. */
 export function* seriesCsv(s: SeaSeries): Generator<string> {
-  yield 'time_utc,hs_m,tp_s,tz_s,te_s,dir_deg,wind_mps,wind_dir_deg,tp_given,tz_given,te_given\n';
+  // Optional columns follow, named `<column>_<unit>` (e.g. `waterLevel_m`, `swell1.tp_s`).
+  const extras = presentExtraColumns(s.extra).map((c) => ({
+    values: s.extra[c]!,
+    header: `${c}_${EXTRA_COLUMN_UNITS[c].replace('/', 'p')}`,
+  }));
+  const extraHeader = extras.map((e) => `,${e.header}`).join('');
+  yield `time_utc,hs_m,tp_s,tz_s,te_s,dir_deg,wind_mps,wind_dir_deg,tp_given,tz_given,te_given${extraHeader}\n`;
   const f = (x: number, d: number) => (Number.isNaN(x) ? '' : x.toFixed(d));
   let buf = '';
   for (let i = 0; i < s.timeMs.length; i++) {
     const g = s.givenPeriods[i];
-    buf += `${new Date(s.timeMs[i]).toISOString()},${f(s.hs[i], 3)},${f(s.tp[i], 2)},${f(s.tz[i], 2)},${f(s.te[i], 2)},${f(s.dir[i], 1)},${f(s.wind[i], 2)},${f(s.windDir[i], 1)},${g & 1 ? 1 : 0},${g & 2 ? 1 : 0},${g & 4 ? 1 : 0}\n`;
+    let extraCells = '';
+    for (const e of extras) extraCells += `,${f(e.values[i], 3)}`;
+    buf += `${new Date(s.timeMs[i]).toISOString()},${f(s.hs[i], 3)},${f(s.tp[i], 2)},${f(s.tz[i], 2)},${f(s.te[i], 2)},${f(s.dir[i], 1)},${f(s.wind[i], 2)},${f(s.windDir[i], 1)},${g & 1 ? 1 : 0},${g & 2 ? 1 : 0},${g & 4 ? 1 : 0}${extraCells}\n`;
     if (buf.length > 64_000) {
       yield buf;
       buf = '';

@@ -1,5 +1,6 @@
 import { completePeriodSeries } from '../../shared/waves';
 import { detectStepMinutes } from '../../shared/seadata';
+import { presentExtraColumns, type ExtraSeries } from '../../shared/seadata/extra-columns';
 import type { SeaSeries } from './series-store';
 
 /** Raw columns as read from a file or a service; NaN = missing; any period may be absent. */
@@ -12,6 +13,8 @@ export interface RawSeaColumns {
   dir?: Float64Array | null;
   wind?: Float64Array | null;
   windDir?: Float64Array | null;
+  /** Optional columns (water level, current, partitions), same length as `timeMs`. */
+  extra?: ExtraSeries;
 }
 
 /**
@@ -32,6 +35,7 @@ export function toSeaSeries(raw: RawSeaColumns): SeaSeries {
     wind: raw.wind ?? nan(),
     windDir: raw.windDir ?? nan(),
     givenPeriods: periods.givenMask,
+    extra: raw.extra ?? {},
   };
 }
 
@@ -45,9 +49,12 @@ export function describeSeries(s: SeaSeries) {
   const stepMinutes = Number.isNaN(median) ? 60 : median;
   const missing: Record<string, number> = {};
   const variables: string[] = [];
-  for (const v of SERIES_VARIABLES) {
+  const columns: [string, Float64Array][] = [
+    ...SERIES_VARIABLES.map((v): [string, Float64Array] => [v, s[v]]),
+    ...presentExtraColumns(s.extra).map((c): [string, Float64Array] => [c, s.extra[c]!]),
+  ];
+  for (const [v, a] of columns) {
     let m = 0;
-    const a = s[v];
     for (let i = 0; i < n; i++) if (Number.isNaN(a[i])) m++;
     missing[v] = m;
     if (m < n) variables.push(v);

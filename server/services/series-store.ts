@@ -1,4 +1,5 @@
 import { and, asc, eq, gte, lte } from 'drizzle-orm';
+import { EXTRA_COLUMNS, isExtraColumn, presentExtraColumns, sliceExtra, type ExtraSeries } from '../../shared/seadata/extra-columns';
 import type { Db } from '../db/client';
 import { datasetChunk } from '../db/schema';
 
@@ -17,6 +18,8 @@ export interface SeaSeries {
   windDir: Float64Array;
   /** Bit 1: Tp given, 2: Tz given, 4: Te given (the rest derived or missing). */
   givenPeriods: Uint8Array;
+  /** Optional columns the dataset has (water level, current, partitions); see extra-columns.ts. */
+  extra: ExtraSeries;
 }
 
 export const VALUE_COLUMNS = ['hs', 'tp', 'tz', 'te', 'dir', 'wind', 'windDir'] as const;
@@ -35,6 +38,7 @@ function aligned(bytes: Uint8Array): ArrayBuffer {
 /** Writes a series as chunks; call inside the import's transaction. */
 export async function writeSeries(tx: Db, datasetId: string, s: SeaSeries): Promise<void> {
   const n = s.timeMs.length;
+  const extraColumns = presentExtraColumns(s.extra);
   const rows: (typeof datasetChunk.$inferInsert)[] = [];
   for (let seq = 0, i = 0; i < n; seq++, i += CHUNK_RECORDS) {
     const j = Math.min(n, i + CHUNK_RECORDS);
@@ -55,6 +59,8 @@ export async function writeSeries(tx: Db, datasetId: string, s: SeaSeries): Prom
       wind: f64(s.wind),
       windDir: f64(s.windDir),
       givenPeriods: s.givenPeriods.slice(i, j),
+      extraColumns,
+      extra: extraColumns.length > 0 ? packExtra(s.extra, extraColumns, i, j) : null,
     });
   }
   // A few chunks per statement keeps each statement small on both drivers.
@@ -82,12 +88,20 @@ export async function readSeries(db: Db, datasetId: string, range: { fromMs?: nu
     wind: new Float64Array(total),
     windDir: new Float64Array(total),
     givenPeriods: new Uint8Array(total),
+    extra: {},
   };
+  // Every chunk of a dataset carries the same optional columns (written together above).
+  const extraColumns = (chunks[0]?.extraColumns ?? []).filter(isExtraColumn);
+  for (const name of extraColumns) out.extra[name] = new Float64Array(total);
   let offset = 0;
   for (const c of chunks) {
     out.timeMs.set(new Float64Array(aligned(c.timeMs)), offset);
     for (const col of VALUE_COLUMNS) out[col].set(new Float64Array(aligned(c[col])), offset);
     out.givenPeriods.set(c.givenPeriods, offset);
+    if (extraColumns.length > 0) {
+      const packed = new Float64Array(aligned(c.extra!));
+      extraColumns.forEach((name, k) => out.extra[name]!.set(packed.subarray(k * c.count, (k + 1) * c.count), offset));
+    }
     offset += c.count;
   }
   if (range.fromMs === undefined && range.toMs === undefined) return out;
@@ -109,5 +123,13 @@ export function sliceSeries(s: SeaSeries, lo: number, hi: number): SeaSeries {
     wind: s.wind.slice(lo, hi),
     windDir: s.windDir.slice(lo, hi),
     givenPeriods: s.givenPeriods.slice(lo, hi),
+    extra: sliceExtra(s.extra, lo, hi),
   };
+}
+
+/** The optional columns' records i..j-1, one column after the other, as stored bytes. */
+function packExtra(extra: ExtraSeries, columns: readonly (typeof EXTRA_COLUMNS)[number][], i: number, j: number): Uint8Array {
+  const packed = new Float64Array(columns.length * (j - i));
+  columns.forEach((name, k) => packed.set(extra[name]!.subarray(i, j), k * (j - i)));
+  return bytesOf(packed);
 }

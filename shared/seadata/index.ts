@@ -17,6 +17,8 @@ export {
   GIVEN_TE,
 } from './records';
 export type { SeaVariable, SeaRecords, SeaRecordInput, SeaRecordsSummary } from './records';
+export { EXTRA_COLUMNS, EXTRA_COLUMN_UNITS, isExtraColumn, presentExtraColumns, sliceExtra } from './extra-columns';
+export type { ExtraColumn, ExtraSeries } from './extra-columns';
 
 // Issues and validation
 export { ImportError, IssueList, MAX_LISTED_ISSUES, shownText } from './issues';

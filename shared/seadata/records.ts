@@ -19,6 +19,8 @@
  * with the wave-physics conversions and marks them as derived.
  */
 
+import type { ExtraColumn, ExtraSeries } from './extra-columns';
+
 /** The sea-state variables of a record, in storage order. */
 export const SEA_VARIABLES = ['hs', 'tp', 'tz', 'te', 'dir', 'wind', 'windDir'] as const;
 
@@ -49,6 +51,8 @@ export interface SeaRecords {
   dir: Float64Array;
   wind: Float64Array;
   windDir: Float64Array;
+  /** Optional columns the source had (water level, current, partitions), same length. */
+  extra?: ExtraSeries;
 }
 
 /** One record to append. Omitted or NaN values are missing. Units as {@link SeaRecords}. */
@@ -81,6 +85,8 @@ export class SeaRecordBuilder {
   private capacity: number;
   private count = 0;
   private cols: Float64Array[];
+  /** Optional columns switched on with {@link SeaRecordBuilder.withExtra}, same capacity as `cols`. */
+  private extraCols = new Map<ExtraColumn, Float64Array>();
 
   /** @param initialCapacity records to reserve (a hint; grows as needed). */
   constructor(initialCapacity = 1024) {
@@ -117,25 +123,51 @@ export class SeaRecordBuilder {
     c[7][i] = windDir;
   }
 
+  /**
+   * Switches on optional columns (docs/domain.md#tide, docs/domain.md#partitions); records
+   * appended before or without a value stay NaN (missing). Call before the first push.
+   */
+  withExtra(columns: readonly ExtraColumn[]): this {
+    for (const c of columns) if (!this.extraCols.has(c)) this.extraCols.set(c, new Float64Array(this.capacity).fill(NaN));
+    return this;
+  }
+
+  /** Sets an optional column's value of the record appended last (the column must be switched on). */
+  setExtra(column: ExtraColumn, value: number): void {
+    const col = this.extraCols.get(column);
+    if (!col) throw new Error(`optional column ${column} was not switched on (withExtra)`);
+    if (this.count === 0) throw new Error('setExtra needs a record: push one first');
+    col[this.count - 1] = value;
+  }
+
   /** Reverses the records appended so far in place (for newest-first files). */
   reverse(): void {
     for (const col of this.cols) col.subarray(0, this.count).reverse();
+    for (const col of this.extraCols.values()) col.subarray(0, this.count).reverse();
   }
 
   /** Returns trimmed copies of the columns; the builder stays usable. */
   finish(): SeaRecords {
     const n = this.count;
     const c = this.cols.map((col) => col.slice(0, n));
-    return { timeMs: c[0], hs: c[1], tp: c[2], tz: c[3], te: c[4], dir: c[5], wind: c[6], windDir: c[7] };
+    const out: SeaRecords = { timeMs: c[0], hs: c[1], tp: c[2], tz: c[3], te: c[4], dir: c[5], wind: c[6], windDir: c[7] };
+    if (this.extraCols.size > 0) {
+      const extra: ExtraSeries = {};
+      for (const [name, col] of this.extraCols) extra[name] = col.slice(0, n);
+      out.extra = extra;
+    }
+    return out;
   }
 
   private grow(): void {
     this.capacity *= 2;
-    this.cols = this.cols.map((old) => {
-      const next = new Float64Array(this.capacity);
+    const grown = (old: Float64Array, fill: number) => {
+      const next = new Float64Array(this.capacity).fill(fill, old.length);
       next.set(old);
       return next;
-    });
+    };
+    this.cols = this.cols.map((old) => grown(old, 0));
+    for (const [name, old] of this.extraCols) this.extraCols.set(name, grown(old, NaN));
   }
 }
 

@@ -79,6 +79,10 @@ export const datasetChunk = pgTable(
     wind: bytea().notNull(),
     windDir: bytea().notNull(),
     givenPeriods: bytea().notNull(),
+    /** Names of the optional columns in `extra`, in order (shared/seadata/extra-columns.ts). */
+    extraColumns: jsonb().$type<string[]>().notNull().default([]),
+    /** The optional columns' packed Float64 values, one column after the other; null when none. */
+    extra: bytea(),
   },
   (t) => [primaryKey({ columns: [t.datasetId, t.seq] })],
 );

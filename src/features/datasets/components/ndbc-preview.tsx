@@ -27,7 +27,7 @@ export function previewNdbc(head: string, anemometerHeightM: number | undefined,
   }
 }
 
-const COLS: { key: keyof Omit<SeaRecords, 'timeMs'>; label: string; decimals: number }[] = [
+const COLS: { key: keyof Omit<SeaRecords, 'timeMs' | 'extra'>; label: string; decimals: number }[] = [
   { key: 'hs', label: 'Hs (m)', decimals: 2 },
   { key: 'tp', label: 'Tp (s)', decimals: 2 },
   { key: 'tz', label: 'Tz (s)', decimals: 2 },
