@@ -167,6 +167,7 @@ export async function importUploadedFile(
       issuedAt: form.kind === 'forecast' ? new Date(result.records.timeMs[0]) : null,
       anemometerHeightM: windHeight,
       windExponent,
+      waterLevelReference: form.waterLevelReference ?? null,
     },
     series,
     {
@@ -176,6 +177,8 @@ export async function importUploadedFile(
       anemometerHeightM: windHeight,
       windExponent,
       ...(format === 'csv' ? { directionConvention: form.directionConvention } : {}),
+      ...(series.extra.waterLevel ? { waterLevelReference: form.waterLevelReference } : {}),
+      ...(series.extra.currentDir ? { currentDirConvention: form.currentDirConvention } : {}),
     },
   );
   // A hindcast shorter than a year that is now the default for statistics (no default chosen, and

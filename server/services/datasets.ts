@@ -27,6 +27,8 @@ export interface DatasetMeta {
   /** Anemometer height, m (10 = already at 10 m), and the power-law exponent used; null when not stated. */
   anemometerHeightM?: number | null;
   windExponent?: number | null;
+  /** What the water-level column holds; null without one (docs/domain.md#tide). */
+  waterLevelReference?: 'chart-datum' | 'residual' | null;
 }
 
 /** Stores a dataset and its series in one transaction: either all of it is saved or nothing. */
@@ -43,6 +45,7 @@ export async function createDataset(db: Db, meta: DatasetMeta, series: SeaSeries
         issuedAt: meta.issuedAt ?? null,
         anemometerHeightM: meta.anemometerHeightM ?? null,
         windExponent: meta.windExponent ?? null,
+        waterLevelReference: series.extra.waterLevel ? (meta.waterLevelReference ?? null) : null,
         stepMinutes: info.stepMinutes,
         startAt: new Date(series.timeMs[0]),
         endAt: new Date(series.timeMs[series.timeMs.length - 1]),
@@ -93,6 +96,7 @@ export function toSummary(r: DatasetRow): DatasetSummary {
     derived: r.derived,
     missingShare: r.recordCount ? (r.missing.hs ?? 0) / r.recordCount : 0,
     wind: { anemometerHeightM: r.anemometerHeightM, exponent: r.windExponent },
+    waterLevelReference: r.waterLevelReference ?? null,
     expectedRecords: grid.expected,
     absentRecords: grid.absent,
     hsGapShare: grid.expected ? (hsMissing + grid.absent) / grid.expected : 0,

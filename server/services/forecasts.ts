@@ -47,7 +47,18 @@ export async function fetchLatestForecast(
     return { datasetId: previous.id, issuedAt: previous.issuedAt.toISOString(), records: previous.recordCount, isNew: false };
   }
   const r = issue.records;
-  const series = toSeaSeries({ timeMs: r.timeMs, hs: r.hs, tp: r.tp, dir: r.dir, wind: r.wind, windDir: r.windDir });
+  // A surge the service gives is stored as the water level, a residual added to each worksite's
+  // predicted tide (docs/domain.md#tide); an answer without it stores no water level.
+  const hasSurge = r.surge.some((x) => x === x);
+  const series = toSeaSeries({
+    timeMs: r.timeMs,
+    hs: r.hs,
+    tp: r.tp,
+    dir: r.dir,
+    wind: r.wind,
+    windDir: r.windDir,
+    extra: hasSurge ? { waterLevel: r.surge } : {},
+  });
   const issuedAt = new Date(issue.issuedAtMs);
   const row = await createDataset(
     db,
@@ -65,9 +76,10 @@ export async function fetchLatestForecast(
       sourceKind: 'service',
       format: provider.name,
       issuedAt,
+      waterLevelReference: hasSurge ? 'residual' : null,
     },
     series,
-    { source: provider.name },
+    { source: provider.name, ...(hasSurge ? { waterLevelReference: 'residual' } : {}) },
   );
   return { datasetId: row.id, issuedAt: issuedAt.toISOString(), records: row.recordCount, isNew: true };
 }

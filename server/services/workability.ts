@@ -242,7 +242,7 @@ export function forEachOperationSite(
     const pairs = pairsBySite.get(site.id);
     if (!pairs) continue;
     // The hindcast has no water level: the predicted tide at its times (docs/domain.md#tide).
-    const tide = siteTide(site, series.timeMs);
+    const tide = siteTide(site, series);
     const t = transformToSite(
       tide ? { ...sea, waterLevelM: tide.waterLevelM } : sea,
       { depthM: row.dataPointDepthM ?? Infinity },

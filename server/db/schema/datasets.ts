@@ -47,6 +47,12 @@ export const dataset = pgTable(
     anemometerHeightM: doublePrecision(),
     /** Power-law exponent a of U10 = Uz (10/z)^a used at import; null as above. */
     windExponent: doublePrecision(),
+    /**
+     * What the dataset's water-level column holds (docs/domain.md#tide): 'chart-datum' (m above the
+     * worksite's chart datum, wins over the prediction) or 'residual' (surge, added to the
+     * prediction); null without a water-level column.
+     */
+    waterLevelReference: text({ enum: ['chart-datum', 'residual'] }),
     /** Import report: options used, skipped rows. */
     importReport: jsonb().$type<Record<string, unknown>>().notNull(),
     createdBy: text().references(() => user.id, { onDelete: 'set null' }),
