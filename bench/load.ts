@@ -148,8 +148,9 @@ async function startServer(): Promise<Server> {
     if (child.exitCode !== null || child.signalCode !== null) throw new Error(`the server exited during start:\n${out}`);
     if (Date.now() > deadline) throw new Error(`the server did not answer within 15 minutes:\n${out}`);
     try {
+      // Ready when the demo's sea data have loaded too (they load after the server listens).
       const res = await fetch(`${baseUrl}/api/health`);
-      if (res.ok) break;
+      if (res.ok && ((await res.json()) as { demo?: string }).demo !== 'loading') break;
     } catch {
       /* not listening yet */
     }

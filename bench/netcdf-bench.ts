@@ -75,7 +75,7 @@ export async function runNetcdfBench(): Promise<{ importMs: number; records: num
       if (res.status !== 201 || res.body.records !== records)
         throw new Error(`NetCDF import failed: ${res.status} ${res.text.slice(0, 300)}`);
       console.log(
-        `netcdf import: 30-year hourly CF point file (${records} records per variable, total and two partitions, wind u/v, ${(bytes / 1e6).toFixed(1)} MB NetCDF-4) through the API into an on-disk database: ${importMs.toFixed(0)} ms (aim < 10,000 ms; the file took ${(writeMs / 1000).toFixed(1)} s to write, not counted)\n` +
+        `netcdf import: 30-year hourly CF point file (${records} records per variable, total and two partitions, wind u/v, ${(bytes / 1e6).toFixed(1)} MB NetCDF-4) through the API into an on-disk database: ${importMs.toFixed(0)} ms (aim < 10,000 ms: ${importMs < 10_000 ? 'met' : 'NOT met'}; the file took ${(writeMs / 1000).toFixed(1)} s to write, not counted)\n` +
           `  partitions read: ${(res.body.netcdf?.partitionsRead ?? []).join(', ') || 'none'}`,
       );
       return { importMs, records };

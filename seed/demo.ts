@@ -15,6 +15,7 @@ import {
 import { recurrenceText } from '../shared/recurrence';
 import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
+import { runEngineTask } from '../server/services/engine-pool';
 import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
 import { DEMO_OPERATIONS, DEMO_SITE_TIDES, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
 
@@ -79,13 +80,31 @@ async function seedOutlookHistory(
   }
 }
 
-/** Seeds the invented demo scenario into an empty database. */
+/** Seeds the invented demo scenario into an empty database: {@link seedDemoAccounts}, then {@link seedDemoData}. */
 export async function seedDemo(
   deps: Pick<AppDeps, 'db' | 'auth' | 'log' | 'forecast' | 'clock'>,
   options: SeedOptions = {},
 ): Promise<DemoIds> {
+  return seedDemoData(deps, await seedDemoAccounts(deps), options);
+}
+
+/** What {@link seedDemoAccounts} made, for {@link seedDemoData}. */
+export interface DemoBase extends Omit<DemoIds, 'hindcastId' | 'forecastId'> {
+  campaignId: string;
+  /** The campaign's timeline (UTC ms): today, its start, the lay's start and finish. */
+  todayMs: number;
+  campaignStartMs: number;
+  layStartedMs: number;
+  layDoneMs: number;
+}
+
+/**
+ * The quick part of the demo: the accounts, both projects, the worksites, the operations and the
+ * campaign (no sea data yet). The server seeds this before it listens, so the demo accounts sign in
+ * at once, and the rest ({@link seedDemoData}) after.
+ */
+export async function seedDemoAccounts(deps: Pick<AppDeps, 'db' | 'auth' | 'clock'>): Promise<DemoBase> {
   const { db, auth } = deps;
-  const hindcastYears = options.hindcastYears ?? 20;
 
   const users = {} as DemoIds['users'];
   for (const u of DEMO_USERS) {
@@ -162,13 +181,42 @@ export async function seedDemo(
     .returning({ id: campaign.id });
   const layStartedMs = campaignStartMs + 6 * 3_600_000;
   const layDoneMs = todayMs - 7 * DAY_MS + 14 * 3_600_000;
+  return {
+    users,
+    projectId: main.id,
+    secondProjectId: second.id,
+    siteIds,
+    operationIds,
+    campaignId: demoCampaign.id,
+    todayMs,
+    campaignStartMs,
+    layStartedMs,
+    layDoneMs,
+  };
+}
+
+/**
+ * The heavy part of the demo, after {@link seedDemoAccounts}: the invented hindcast, a few weeks
+ * of campaign outlooks, the campaign's progress and the forecasts.
+ */
+export async function seedDemoData(
+  deps: Pick<AppDeps, 'db' | 'log' | 'forecast' | 'clock'>,
+  base: DemoBase,
+  options: SeedOptions = {},
+): Promise<DemoIds> {
+  const { db } = deps;
+  const hindcastYears = options.hindcastYears ?? 20;
+  const { users, siteIds, operationIds, todayMs, campaignStartMs, layStartedMs, layDoneMs } = base;
+  const main = { id: base.projectId };
+  const demoCampaign = { id: base.campaignId };
 
   let hindcastId: string | null = null;
   if (hindcastYears > 0) {
     const endYear = deps.clock().getUTCFullYear() - 1;
     const startMs = Date.UTC(endYear - hindcastYears + 1, 0, 1);
     const hours = (Date.UTC(endYear + 1, 0, 1) - startMs) / 3_600_000;
-    const sea = generateSyntheticSea({
+    // On an engine worker: the server already answers while the demo's sea data load.
+    const sea = await runEngineTask('syntheticSea', generateSyntheticSea, {
       startMs,
       hours,
       seed: truthSeedForPosition(DEMO_SEA_SEED, DEMO_PROJECT.dataPointLatitude, DEMO_PROJECT.dataPointLongitude),
@@ -269,5 +317,5 @@ export async function seedDemo(
     }
   }
   deps.log.info('Demo scenario seeded', { project: main.id });
-  return { users, projectId: main.id, secondProjectId: second.id, siteIds, operationIds, hindcastId, forecastId };
+  return { users, projectId: main.id, secondProjectId: base.secondProjectId, siteIds, operationIds, hindcastId, forecastId };
 }

@@ -3,6 +3,7 @@
 import crypto from 'node:crypto';
 import { closeEnginePool } from './services/engine-pool';
 import http from 'node:http';
+import fs from 'node:fs';
 import path from 'node:path';
 import { and, count, eq, inArray } from 'drizzle-orm';
 import { loadEnv, resolveAuthSecret, type Env } from './env';
@@ -15,7 +16,7 @@ import { DEMO_PASSWORD, DEMO_USERS } from '../seed/scenario';
 import { createAuth } from './auth';
 import { createApp } from './app';
 import { consoleLogger, type AppDeps, type Logger } from './deps';
-import { seedDemo } from '../seed/demo';
+import { seedDemo, seedDemoAccounts, seedDemoData, type DemoBase } from '../seed/demo';
 import { createForecastProvider } from './forecast';
 import { createMailer } from './mail/mailer';
 import { startPlanningSchedule } from '../jobs/schedule';
@@ -48,6 +49,14 @@ export async function startLullwatch(env: Env = loadEnv(), log: Logger = console
 
 async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Promise<Running> {
   const dbDir = path.join(env.DATA_DIR, 'db');
+  // The demo's sea data load after the server listens; this file marks a load not finished. A first
+  // start stopped before its end leaves a demo without its hindcast: start the demo afresh.
+  const demoMarker = path.join(env.DATA_DIR, 'demo-loading');
+  if (!env.DATABASE_URL && fs.existsSync(demoMarker)) {
+    log.warn('The demo was stopped while its sea data loaded: starting the demo afresh');
+    fs.rmSync(dbDir, { recursive: true, force: true });
+    fs.rmSync(demoMarker, { force: true });
+  }
   // An empty data folder starts from the migrated empty database made at build time (server/db/template.ts).
   if (!env.DATABASE_URL && copyTemplateIfEmpty(dbDir))
     log.info('Empty data folder: the embedded database starts from the migrated template');
@@ -98,21 +107,30 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
     },
   });
 
-  const deps = makeDeps(provisionalBase);
+  const startup = { demoLoading: false };
+  const deps: AppDeps = { ...makeDeps(provisionalBase), startup };
   // Several instances may start at once on one PostgreSQL server: one migrates (and seeds an empty
   // database) while the others wait for it, so no migration or seed runs twice.
+  let seeded = false;
+  // The embedded demo: the accounts, projects and operations now, the sea data once listening.
+  let demoBase: DemoBase | null = null;
   await whileHoldingStartLock(database, log, async () => {
     await migrateDatabase(database);
     const [{ n }] = await database.db.select({ n: count() }).from(user);
     if (n === 0 && env.SEED_DEMO) {
       log.info('Empty database: seeding the invented demo scenario');
-      await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS });
+      if (database.kind === 'pglite') {
+        fs.writeFileSync(demoMarker, 'the demo sea data are loading\n');
+        demoBase = await seedDemoAccounts(deps);
+      } else await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS });
+      seeded = true;
     }
   });
 
   // The demo accounts' password is printed in the README: while any of them still signs in with
   // it, the server stays on this machine (127.0.0.1) unless told otherwise, and refuses to be told.
-  const demoAccounts = await demoAccountsWithPublishedPassword(deps);
+  // Just seeded: every demo account has the published password (no need for four slow hash checks).
+  const demoAccounts = seeded ? DEMO_USERS.map((u) => u.email).sort() : await demoAccountsWithPublishedPassword(deps);
   const host = env.HOST ?? (demoAccounts.length > 0 ? '127.0.0.1' : '0.0.0.0');
   if (demoAccounts.length > 0 && !isLoopback(host)) {
     await forecast.close();
@@ -149,6 +167,25 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   log.info(
     `Lullwatch is running at ${url} (${database.kind === 'pglite' ? `embedded database in ${path.resolve(env.DATA_DIR)}` : 'PostgreSQL server'})`,
   );
+  // The demo's hindcast, outlooks and forecasts load while the server answers (GET /api/health says
+  // demo: "loading" meanwhile); a failure is logged and the next start begins the demo afresh.
+  let demoData: Promise<void> = Promise.resolve();
+  const base = demoBase as DemoBase | null;
+  if (base) {
+    startup.demoLoading = true;
+    log.info('Loading the demo sea data (hindcast, campaign outlooks, forecasts) while the server answers');
+    demoData = seedDemoData(deps, base, { hindcastYears: env.DEMO_HINDCAST_YEARS })
+      .then(
+        () => {
+          fs.rmSync(demoMarker, { force: true });
+          log.info('Demo sea data loaded');
+        },
+        (err: unknown) => log.error('The demo sea data did not load', { err: err instanceof Error ? err.message : String(err) }),
+      )
+      .finally(() => {
+        startup.demoLoading = false;
+      });
+  }
 
   return {
     url,
@@ -156,6 +193,8 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
     port: actualPort,
     database,
     async close() {
+      if (startup.demoLoading) log.info('Waiting for the demo sea data to finish loading');
+      await demoData;
       schedule.stop();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));

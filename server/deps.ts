@@ -18,6 +18,8 @@ export interface AppDeps {
   /** The database handle (driver kind, advisory locks). */
   database: Database;
   config: AppConfig;
+  /** Set by the server's start: true while the demo's sea data load after listening (GET /api/health tells). */
+  startup?: { demoLoading: boolean };
 }
 
 export interface AppConfig {

@@ -1,4 +1,5 @@
 import * as rruleModule from 'rrule';
+import type { Options } from 'rrule';
 import { TZDate } from '@date-fns/tz';
 import { z } from 'zod';
 import './schemas/words';
@@ -46,7 +47,7 @@ export type RecurrenceInput = z.infer<typeof RecurrenceInput>;
  * parts together list at most MAX_BY_VALUES values.
  */
 export const MAX_BY_VALUES = 60;
-/** The first occurrence lies within this many years of now (expansion walks from it). */
+/** The first occurrence lies within this many years of now when a rule is saved (expansion itself starts near the window). */
 export const START_WITHIN_YEARS = 2;
 /** Expansion stops after this many candidate dates or this much time, whatever the rule. */
 export const MAX_EXPANDED = 50_000;
@@ -77,6 +78,58 @@ export function recurrenceText(r: RecurrenceInput): string {
   return `DTSTART;TZID=${r.timeZone}:${r.start.replace(/[-:]/g, '')}00\nRRULE:${r.rule}`;
 }
 
+const DAY_MS = 86_400_000;
+
+/**
+ * The rule with its DTSTART moved forward by whole periods (INTERVAL × FREQ) to at least a day
+ * before `beforeMs`, so expansion starts near the window instead of years before it. Every date
+ * is a floating local time (UTC fields). It gives the same occurrences from `beforeMs` on because
+ * each period is expanded alone (RFC 5545 3.3.10): what rrule would take from DTSTART (the day of
+ * the month, the month, the weekday) is written into the rule first, the time of day stays, a
+ * shift by whole weeks keeps the week start (WKST), and UNTIL still ends it. A rule with COUNT
+ * counts from the first DTSTART, so it is never moved.
+ */
+function movedForward(options: Partial<Options>, dtstart: Date, beforeMs: number): Partial<Options> {
+  const { Frequency } = rrule;
+  if (options.count != null) return { ...options, dtstart };
+  const interval = Math.max(1, options.interval ?? 1);
+  // At least one whole period and a day before the window: a rule's times earlier in the day than
+  // DTSTART (BYHOUR) and a first period cut by DTSTART then both lie before the window.
+  const target = beforeMs - DAY_MS;
+  const h = dtstart.getUTCHours();
+  const mi = dtstart.getUTCMinutes();
+  const noDayParts = options.byweekno == null && options.byyearday == null && options.bymonthday == null && options.byweekday == null;
+  switch (options.freq) {
+    case Frequency.DAILY:
+    case Frequency.WEEKLY: {
+      const periodMs = (options.freq === Frequency.DAILY ? 1 : 7) * interval * DAY_MS;
+      const periods = Math.floor((target - dtstart.getTime()) / periodMs) - 1;
+      return periods > 0 ? { ...options, dtstart: new Date(dtstart.getTime() + periods * periodMs) } : { ...options, dtstart };
+    }
+    case Frequency.MONTHLY:
+    case Frequency.YEARLY: {
+      const monthsPerPeriod = (options.freq === Frequency.MONTHLY ? 1 : 12) * interval;
+      const t = new Date(target);
+      const months = (t.getUTCFullYear() - dtstart.getUTCFullYear()) * 12 + (t.getUTCMonth() - dtstart.getUTCMonth());
+      const periods = Math.floor(months / monthsPerPeriod) - 1;
+      if (periods <= 0) return { ...options, dtstart };
+      // rrule's defaults from DTSTART (its day of the month, and for YEARLY its month), made explicit.
+      const explicit: Partial<Options> = { ...options };
+      if (noDayParts) {
+        explicit.bymonthday = dtstart.getUTCDate();
+        if (options.freq === Frequency.YEARLY && options.bymonth == null) explicit.bymonth = dtstart.getUTCMonth() + 1;
+      }
+      // A YEARLY period starts on 1 January, a MONTHLY one on the 1st: the new DTSTART is that day.
+      const shifted = dtstart.getUTCMonth() + periods * monthsPerPeriod;
+      const month = options.freq === Frequency.YEARLY ? 0 : shifted;
+      const year = options.freq === Frequency.YEARLY ? dtstart.getUTCFullYear() + Math.floor(shifted / 12) : dtstart.getUTCFullYear();
+      return { ...explicit, dtstart: new Date(Date.UTC(year, month, 1, h, mi)) };
+    }
+    default:
+      return { ...options, dtstart };
+  }
+}
+
 /**
  * Occurrence start times (UTC ms) in [fromMs, toMs]. The rule is expanded in local wall-clock
  * time (rrule treating dates as floating), and each local time is placed in the zone with
@@ -88,35 +141,21 @@ export function expandRecurrence(r: RecurrenceInput, fromMs: number, toMs: numbe
   const [datePart, timePart] = r.start.split('T');
   const [y, mo, d] = datePart.split('-').map(Number);
   const [h, mi] = timePart.split(':').map(Number);
-  const options = rrule.RRule.parseString(r.rule);
-  const rule = new rrule.RRule({ ...options, dtstart: new Date(Date.UTC(y, mo - 1, d, h, mi)) });
   // Expand floating local times two days wider than the window on each side, then filter in UTC.
-  const floatingFrom = new Date(fromMs - 2 * 86_400_000);
-  const floatingTo = new Date(toMs + 2 * 86_400_000);
+  const fromF = fromMs - 2 * DAY_MS;
+  const toF = toMs + 2 * DAY_MS;
+  // A rule started long ago begins its walk near the window (whole periods skipped, see movedForward).
+  const rule = new rrule.RRule(movedForward(rrule.RRule.parseString(r.rule), new Date(Date.UTC(y, mo - 1, d, h, mi)), fromF));
   const out: number[] = [];
-  // rrule walks from DTSTART whatever the window: a rule stored before the limits above (or a
-  // start far in the past) must not hold the server, so the walk (rrule's `all` with an iterator
-  // callback, which stops at the first false) ends past the window, after MAX_EXPANDED dates, or
-  // after EXPAND_BUDGET_MS, whichever comes first.
+  // The guard stays for what cannot be moved (a COUNT rule started long ago) and for rules stored
+  // before the limits above: rrule's `between` with an iterator callback, which stops at the first
+  // false, ends after MAX_EXPANDED dates, `max` occurrences or EXPAND_BUDGET_MS, whichever comes first.
   const deadline = Date.now() + EXPAND_BUDGET_MS;
-  const fromF = floatingFrom.getTime();
-  const toF = floatingTo.getTime();
-  rule.all((f, i) => {
-    const ms = f.getTime();
-    if (ms > toF || i >= MAX_EXPANDED || out.length >= max) return false;
+  rule.between(new Date(fromF), new Date(toF), true, (f, i) => {
+    if (i >= MAX_EXPANDED || out.length >= max) return false;
     if ((i & 63) === 63 && Date.now() > deadline) return false;
-    if (ms >= fromF) {
-      const t = new TZDate(
-        f.getUTCFullYear(),
-        f.getUTCMonth(),
-        f.getUTCDate(),
-        f.getUTCHours(),
-        f.getUTCMinutes(),
-        0,
-        r.timeZone,
-      ).getTime();
-      if (t >= fromMs && t <= toMs) out.push(t);
-    }
+    const t = new TZDate(f.getUTCFullYear(), f.getUTCMonth(), f.getUTCDate(), f.getUTCHours(), f.getUTCMinutes(), 0, r.timeZone).getTime();
+    if (t >= fromMs && t <= toMs) out.push(t);
     return true;
   });
   return out;

@@ -4,7 +4,8 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
 
-function newestMtime(entry: string): number {
+/** Newest modification time of a file or of anything under a folder, ms; 0 when it is missing. */
+export function newestMtime(entry: string): number {
   const stat = fs.statSync(entry, { throwIfNoEntry: false });
   if (!stat) return 0;
   if (!stat.isDirectory()) return stat.mtimeMs;

@@ -7,7 +7,7 @@
 // least busy worker. ENGINE_THREADS sets the number of workers (default 1: the API thread and one
 // engine thread on a 2-core machine); 0 runs the tasks on the API thread (as before).
 import os from 'node:os';
-import type { Worker } from 'node:worker_threads';
+import { Worker } from 'node:worker_threads';
 import { tsWorker } from '../../scripts/lib/ts-worker';
 import type { EngineTaskName, EngineTasks } from './engine-tasks';
 
@@ -31,12 +31,17 @@ function threadCount(): number {
   return Math.min(n, os.availableParallelism());
 }
 
+/** The bundled engine worker's URL, defined by the server bundle (scripts/lib/server-bundle.ts); undefined under tsx. */
+declare const __LULLWATCH_ENGINE_WORKER__: string | undefined;
+const BUNDLED_WORKER = typeof __LULLWATCH_ENGINE_WORKER__ === 'string' ? __LULLWATCH_ENGINE_WORKER__ : null;
+
 let workers: PoolWorker[] | null = null;
 let nextId = 1;
 
 function start(count: number): PoolWorker[] {
   return Array.from({ length: count }, () => {
-    const pw: PoolWorker = { worker: tsWorker(new URL('./engine-worker.ts', import.meta.url)), busy: 0, pending: new Map() };
+    const worker = BUNDLED_WORKER ? new Worker(new URL(BUNDLED_WORKER)) : tsWorker(new URL('./engine-worker.ts', import.meta.url));
+    const pw: PoolWorker = { worker, busy: 0, pending: new Map() };
     // An idle pool never keeps the process alive (tests, scripts); a task in flight does (ref below).
     pw.worker.unref();
     pw.worker.on('message', (m: { id: number; result?: unknown; error?: { name: string; message: string } }) => {

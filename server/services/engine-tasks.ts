@@ -4,12 +4,15 @@ import { computeCampaignMonths } from './campaigns';
 import { computeOutlookGoStarts } from './campaign-outlook';
 import { computeExpectations } from './ledger-monthly';
 import { computeWorkability } from './workability';
+import { generateSyntheticSea } from '../forecast/synthetic-sea';
 
 export const ENGINE_TASKS = {
   workability: (...a: Parameters<typeof computeWorkability>) => computeWorkability(...a),
   campaign: (...a: Parameters<typeof computeCampaignMonths>) => computeCampaignMonths(...a),
   ledgerExpectations: (...a: Parameters<typeof computeExpectations>) => computeExpectations(...a),
   outlookGoStarts: (...a: Parameters<typeof computeOutlookGoStarts>) => computeOutlookGoStarts(...a),
+  // The demo's invented hindcast, generated off the API thread while a first start already answers.
+  syntheticSea: (...a: Parameters<typeof generateSyntheticSea>) => generateSyntheticSea(...a),
 };
 export type EngineTasks = typeof ENGINE_TASKS;
 export type EngineTaskName = keyof EngineTasks;

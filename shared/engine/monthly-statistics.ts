@@ -55,11 +55,20 @@ export interface StatisticsScratch {
   byMonth: Float64Array;
   /** Work space of the percentile selection. */
   tmp: Float64Array;
+  /** Waiting-on-weather ramps (see {@link RampSet}): first value in steps, and length. */
+  rampFirst: Int32Array;
+  rampLength: Int32Array;
 }
 
 /** Scratch buffers for series of up to `length` records. */
 export function createStatisticsScratch(length: number): StatisticsScratch {
-  return { wowMs: new Float64Array(length), byMonth: new Float64Array(length), tmp: new Float64Array(length) };
+  return {
+    wowMs: new Float64Array(length),
+    byMonth: new Float64Array(length),
+    tmp: new Float64Array(length),
+    rampFirst: new Int32Array(length),
+    rampLength: new Int32Array(length),
+  };
 }
 
 /** Type-7 90th percentile of buf[from, to), ms; the slice is left unchanged. */
@@ -130,7 +139,10 @@ function calendarGroups(ym: Int32Array): CalendarGroups {
  *
  * Cost: for an ascending calendar (calendarIndex's), one backward pass over the records does the
  * WoW, the windows and every per-year-month sum; the percentiles take O(n) selection (see
- * quantileR7Upper). Nothing is allocated per record, and nothing proportional to n when `scratch` is
+ * quantileR7Upper). When every time is a whole number of steps after the first (hindcasts, regular
+ * forecasts), the waits are not stored per record but as ramps (a wait grows by one step per record
+ * back from a go-start), and each percentile is found by bisection on the value, counting through
+ * the ramps (exact: the waits are whole steps). Nothing is allocated per record, and nothing proportional to n when `scratch` is
  * given. The calendar's grouping is cached per calendar array, which must not change afterwards
  * (reuse one calendarIndex for every operation at a worksite). Any other calendar (for example
  * hand-made groups) is handled too, through an index permutation.
@@ -195,9 +207,18 @@ function statisticsCore(
   const { durationMs, continues } = recordSteps(timeMs, stepMs);
 
   const s =
-    scratch && scratch.wowMs.length >= n && scratch.byMonth.length >= n && scratch.tmp.length >= n ? scratch : createStatisticsScratch(n);
+    scratch &&
+    scratch.wowMs.length >= n &&
+    scratch.byMonth.length >= n &&
+    scratch.tmp.length >= n &&
+    scratch.rampFirst.length >= n &&
+    scratch.rampLength.length >= n
+      ? scratch
+      : createStatisticsScratch(n);
   const wow = s.wowMs;
   const { ymMin, K, order, start } = calendarGroups(ymArr);
+  // On a grid of whole steps (an ascending calendar), the waits are kept as ramps, not per record.
+  const ramps = order === null && onStepGrid(timeMs, stepMs) ? rampSet(K, s) : null;
   const records = new Int32Array(K);
   const withData = new Int32Array(K);
   const censored = new Int32Array(K);
@@ -213,7 +234,7 @@ function statisticsCore(
   let firstCensored: number;
   if (order === null) {
     // Ascending calendar: one backward pass, year-month by year-month, does everything.
-    firstCensored = backwardPassGrouped(timeMs, durationMs, continues, status, goStart, findGoStarts, start, trMs, wow, acc);
+    firstCensored = backwardPassGrouped(timeMs, durationMs, continues, status, goStart, findGoStarts, start, trMs, wow, acc, ramps, stepMs);
   } else {
     firstCensored = backwardPass(timeMs, durationMs, continues, status, goStart, findGoStarts, ymArr, ymMin, trMs, wow, windows, windowMs);
     const sums = new Float64Array(5);
@@ -243,7 +264,7 @@ function statisticsCore(
   // Grouped WoW values of a year-month: contiguous in `wow` for an ascending calendar (censored
   // records are the series' tail), else gathered through `order` into the calendar-month buffer.
   for (let g = 0; g < K; g++) {
-    if (wowCount[g] === 0) continue;
+    if (wowCount[g] === 0 || ramps !== null) continue;
     const m = (g + ymMin) % 12;
     if (order === null) byMonth.set(wow.subarray(start[g], start[g] + wowCount[g]), monthFill[m]);
     else gatherOrdered(wow, order, start[g], start[g + 1], firstCensored, byMonth, monthFill[m]);
@@ -271,7 +292,8 @@ function statisticsCore(
     let p90: number | null = null;
     if (wowCount[g] > 0) {
       // The year-month's values: a slice of `wow` (ascending calendar) or its part of `byMonth`.
-      if (order === null) p90 = p90Ms(wow, start[g], start[g] + wowCount[g], s.tmp) / MS_PER_HOUR;
+      if (ramps !== null) p90 = rampQuantileMs(ramps, g, g, wowCount[g], 0.9, stepMs) / MS_PER_HOUR;
+      else if (order === null) p90 = p90Ms(wow, start[g], start[g] + wowCount[g], s.tmp) / MS_PER_HOUR;
       else {
         const at = yearMonthOffsetInMonth(g, ymMin, wowCount, monthStart);
         p90 = p90Ms(byMonth, at, at + wowCount[g], s.tmp) / MS_PER_HOUR;
@@ -299,7 +321,15 @@ function statisticsCore(
   for (let m = 0; m < 12; m++) {
     const o = m * W;
     if (mAcc[o] === 0) continue;
-    const p90 = mAcc[o + 4] > 0 ? p90Ms(byMonth, monthStart[m], monthStart[m + 1], s.tmp) / MS_PER_HOUR : null;
+    let p90: number | null = null;
+    if (mAcc[o + 4] > 0) {
+      // The month's year-months: g = first, first + 12, ... (first: the first g of calendar month m).
+      const first = (((m - ymMin) % 12) + 12) % 12;
+      p90 =
+        (ramps !== null
+          ? rampQuantileMs(ramps, first, K - 1, mAcc[o + 4], 0.9, stepMs)
+          : p90Ms(byMonth, monthStart[m], monthStart[m + 1], s.tmp)) / MS_PER_HOUR;
+    }
     months[m] = {
       ...summarise(
         m + 1,
@@ -357,10 +387,16 @@ function backwardPassGrouped(
   trMs: number,
   wow: Float64Array,
   acc: Accumulators,
+  ramps: RampSet | null,
+  stepMs: number,
 ): number {
   const WORKABLE: number = STATUS.WORKABLE;
   const NO_DATA: number = STATUS.NO_DATA;
   const n = timeMs.length;
+  const useRamps = ramps !== null;
+  const rFirst = ramps === null ? EMPTY : ramps.first;
+  const rLength = ramps === null ? EMPTY : ramps.length;
+  let nR = 0;
   let nextT = NaN;
   let firstCensored = n;
   let runMs = 0;
@@ -370,6 +406,14 @@ function backwardPassGrouped(
     let workableMs = 0;
     let startsMs = 0;
     let wowSum = 0;
+    // The open ramp: waits a, a + 1, ... (steps) of the records after i back to here.
+    const groupRamps = nR;
+    let zeros = 0;
+    let open = false;
+    let rampA = 0;
+    let rampLen = 0;
+    let maxV = 0;
+    let tAfter = NaN;
     for (let i = start[g + 1] - 1; i >= start[g]; i--) {
       const t = timeMs[i];
       const st = status[i];
@@ -401,8 +445,35 @@ function backwardPassGrouped(
         nextT = t;
       }
       const w = nextT - t;
-      wow[i] = w;
       if (w === w) wowSum += w;
+      if (!useRamps) wow[i] = w;
+      else if (open && !go && tAfter - t === stepMs) rampLen++;
+      else if (w === w) {
+        // This record ends the open ramp (a go-start, a longer spacing) and starts a new one or is a zero.
+        if (open) {
+          rFirst[nR] = rampA;
+          rLength[nR++] = rampLen;
+          if (rampA + rampLen - 1 > maxV) maxV = rampA + rampLen - 1;
+        }
+        open = !go;
+        if (go) zeros++;
+        else {
+          rampA = w / stepMs;
+          rampLen = 1;
+        }
+      }
+      tAfter = t;
+    }
+    if (ramps !== null) {
+      if (open) {
+        rFirst[nR] = rampA;
+        rLength[nR++] = rampLen;
+        if (rampA + rampLen - 1 > maxV) maxV = rampA + rampLen - 1;
+      }
+      ramps.from[g] = groupRamps;
+      ramps.to[g] = nR;
+      ramps.zeros[g] = zeros;
+      ramps.max[g] = maxV;
     }
     acc.withData[g] = withData;
     acc.withDataMs[g] = withDataMs;
@@ -411,6 +482,106 @@ function backwardPassGrouped(
     acc.wowSumMs[g] = wowSum;
   }
   return nextT !== nextT ? 0 : firstCensored;
+}
+
+const EMPTY = new Int32Array(0);
+
+/**
+ * The waits on weather of a series on a grid of whole steps, by year-month, without one value per
+ * record: a wait is 0 at a go-start, and going back from it grows by one step per record while the
+ * records are one step apart. Group g holds `zeros[g]` zeros and the ramps from[g] to to[g] - 1,
+ * ramp r being the waits first[r], first[r] + 1, ..., first[r] + length[r] - 1 (in steps; the
+ * censored records are in none). `max[g]` is the group's largest wait, in steps.
+ */
+interface RampSet {
+  first: Int32Array;
+  length: Int32Array;
+  from: Int32Array;
+  to: Int32Array;
+  zeros: Int32Array;
+  max: Int32Array;
+}
+
+function rampSet(K: number, s: StatisticsScratch): RampSet {
+  return {
+    first: s.rampFirst,
+    length: s.rampLength,
+    from: new Int32Array(K),
+    to: new Int32Array(K),
+    zeros: new Int32Array(K),
+    max: new Int32Array(K),
+  };
+}
+
+const gridCache = new WeakMap<Float64Array, { stepMs: number; onGrid: boolean }>();
+
+/**
+ * True when every time is a whole number of ms and a whole number of steps after the first (kept
+ * per time array), so that every wait is a whole number of steps, exactly; and the series spans
+ * under 2^30 steps.
+ */
+function onStepGrid(timeMs: Float64Array, stepMs: number): boolean {
+  const hit = gridCache.get(timeMs);
+  if (hit && hit.stepMs === stepMs) return hit.onGrid;
+  const n = timeMs.length;
+  const t0 = timeMs[0];
+  let onGrid = Number.isInteger(stepMs) && Number.isInteger(t0) && (timeMs[n - 1] - t0) / stepMs < 2 ** 30;
+  for (let i = 1; onGrid && i < n; i++) if ((timeMs[i] - t0) % stepMs !== 0) onGrid = false;
+  gridCache.set(timeMs, { stepMs, onGrid });
+  return onGrid;
+}
+
+/** Waits of the groups g = gFrom, gFrom + 12, ... up to gTo that are at most v steps. */
+function rampCount(r: RampSet, gFrom: number, gTo: number, v: number): number {
+  const { first, length, from, to, zeros } = r;
+  let c = 0;
+  for (let g = gFrom; g <= gTo; g += 12) {
+    c += zeros[g];
+    for (let k = from[g]; k < to[g]; k++) {
+      const x = v - first[k] + 1;
+      if (x > 0) c += x < length[k] ? x : length[k];
+    }
+  }
+  return c;
+}
+
+/**
+ * Type-7 quantile (quantile-r7.ts, the same arithmetic) of the `count` waits of groups gFrom,
+ * gFrom + 12, ... up to gTo, ms: the order statistics found by bisection on the value, counting
+ * through the ramps. Exact (the waits are whole steps).
+ */
+function rampQuantileMs(r: RampSet, gFrom: number, gTo: number, count: number, p: number, stepMs: number): number {
+  const h = (count - 1) * p;
+  const lo = Math.floor(h);
+  const frac = h - lo;
+  let hi = 0;
+  for (let g = gFrom; g <= gTo; g += 12) if (r.max[g] > hi) hi = r.max[g];
+  // Smallest v with more than `lo` waits at most v.
+  let a = 0;
+  let b = hi;
+  while (a < b) {
+    const mid = (a + b) >>> 1;
+    if (rampCount(r, gFrom, gTo, mid) > lo) b = mid;
+    else a = mid + 1;
+  }
+  const v0 = a * stepMs;
+  if (frac === 0 || lo + 1 >= count) return v0;
+  let v1 = v0;
+  if (rampCount(r, gFrom, gTo, a) <= lo + 1) {
+    // The next order statistic is the smallest wait above v0.
+    let next = Infinity;
+    for (let g = gFrom; g <= gTo; g += 12) {
+      for (let k = r.from[g]; k < r.to[g]; k++) {
+        const f = r.first[k];
+        if (f + r.length[k] - 1 > a) {
+          const c = f > a ? f : a + 1;
+          if (c < next) next = c;
+        }
+      }
+    }
+    v1 = next * stepMs;
+  }
+  return v0 + frac * (v1 - v0);
 }
 
 /** backwardPassGrouped for any calendar: WoW and windows only, windows by their first record's year-month. */

@@ -2,28 +2,15 @@
 // local fake service, e-mail to the local mailbox): the coordinator presses "Re-plan now" and
 // reads what the run did; the skipper (subscribed to their operations by default) is e-mailed, and
 // the administrator reads that e-mail in the Mailbox. Clients see no coordinator tools.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { screenshot, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-// The first start seeds a 20-year hindcast: allow for it.
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 150_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser, signIn } = useBrowserApp();
 
 describe('alerts', () => {
   it('lets the coordinator re-plan now and see what the run did', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('coordinator');
     await page.goto(`${server.baseUrl}/projects/${projectId}/alerts`);
     await page.getByRole('heading', { name: 'What I hear about' }).waitFor({ timeout: 30_000 });
 
@@ -55,9 +42,8 @@ describe('alerts', () => {
   }, 180_000);
 
   it('shows the admin the e-mail the skipper was sent, in the Mailbox', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'admin@example.com');
+    const { page } = browser;
+    await signIn('admin');
     await page.goto(`${server.baseUrl}/admin/mailbox`);
     const list = page.getByTestId('mailbox-list');
     await list.waitFor({ timeout: 30_000 });
@@ -75,10 +61,8 @@ describe('alerts', () => {
   }, 60_000);
 
   it('gives a client their own choices but no coordinator tools', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'client@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('client');
     await page.goto(`${server.baseUrl}/projects/${projectId}/alerts`);
     await page.getByTestId('subscription-form').waitFor({ timeout: 30_000 });
     await page.getByRole('heading', { name: 'Recent alerts' }).waitFor();

@@ -1,23 +1,13 @@
 // The watch board in a real browser against the built app and the seeded demo project (a forecast
 // from the local fake service): the skipper opens the chain behind an hour, and a lower Hs limit
 // set by the coordinator leaves fewer workable hours on the board.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { PlanAnswer } from '../../shared/api-types-plan';
 import type { OperationResponse } from '../../shared/api-types-sites';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { screenshot, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser, signIn } = useBrowserApp();
 
 async function openBoard(page: Page, projectId: string, query = ''): Promise<void> {
   await page.goto(`${server.baseUrl}/projects/${projectId}/board${query}`);
@@ -46,10 +36,8 @@ const workableCells = (page: Page, operationId: string) =>
 
 describe('the watch board', () => {
   it('lets the skipper open the chain behind an hour', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'skipper@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('skipper');
     await openBoard(page, projectId);
 
     // A skipper starts on their own operations, and never sees the forecast fetch.
@@ -94,10 +82,8 @@ describe('the watch board', () => {
   });
 
   it('shows fewer workable hours after the coordinator lowers an Hs limit', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('coordinator');
     const opsRes = await page.request.get(`${server.baseUrl}/api/projects/${projectId}/operations`);
     expect(opsRes.ok()).toBe(true);
     const op = ((await opsRes.json()) as OperationResponse[]).find((o) => o.name === 'ROV burial survey');

@@ -1,19 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-// The first start seeds the demo (a 5-year invented hindcast, the campaign part done with a few
-// weeks of outlook history): allow for it.
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 240_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser } = useBrowserApp();
 
 /** A date as the page writes it, e.g. 'Tue 15 Dec 2026'. */
 const DATE = /^(Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2} \d{4}$/;
@@ -22,9 +10,7 @@ describe('the live campaign outlook in the browser', () => {
   it('shows the client the outlook dates and the history chart, with no progress controls', async () => {
     const { page } = browser;
     await signInAs(page, server.baseUrl, 'client@example.com');
-    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-    await page.getByRole('navigation', { name: 'Project' }).waitFor();
-    await page.getByRole('link', { name: 'Downtime' }).click();
+    await openDemoProject(page, 'Downtime');
     await page.getByRole('heading', { name: 'Live outlook: when will we finish?' }).waitFor();
 
     const p50 = page.getByTestId('outlook-p50');
@@ -73,9 +59,7 @@ describe('the live campaign outlook in the browser', () => {
     const { page } = browser;
     await page.getByRole('button', { name: 'Sign out' }).click();
     await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-    await page.getByRole('navigation', { name: 'Project' }).waitFor();
-    await page.getByRole('link', { name: 'Downtime' }).click();
+    await openDemoProject(page, 'Downtime');
     const form = page.getByRole('form', { name: 'Mark progress' });
     await form.waitFor({ timeout: 60_000 });
     await form.getByLabel('Now').selectOption('started');

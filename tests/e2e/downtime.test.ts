@@ -1,18 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { demoProjectId, openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-// The first start seeds the demo with a 20-year invented hindcast: allow for it.
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 180_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser } = useBrowserApp();
 
 /** A month with finished days the demo's earlier forecast issues cover (the seed stores the last three days' issues). */
 const coveredMonth = () => new Date(Date.now() - 86_400_000).toISOString().slice(0, 7);
@@ -20,9 +9,7 @@ const coveredMonth = () => new Date(Date.now() - 86_400_000).toISOString().slice
 async function openDowntime(email: string): Promise<void> {
   const { page } = browser;
   await signInAs(page, server.baseUrl, email);
-  await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-  await page.getByRole('navigation', { name: 'Project' }).waitFor();
-  await page.getByRole('link', { name: 'Downtime' }).click();
+  await openDemoProject(page, 'Downtime');
   await page.getByRole('heading', { name: 'Downtime schedule' }).waitFor();
   await page.goto(`${page.url().split('?')[0]}?month=${coveredMonth()}`);
 }

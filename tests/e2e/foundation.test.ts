@@ -1,25 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser } = useBrowserApp();
 
 describe('signing in and out in the browser', () => {
   it('lets the coordinator open the project and sign out', async () => {
     const { page } = browser;
     await signInAs(page, server.baseUrl, 'coordinator@example.com');
     await page.getByRole('heading', { name: 'Projects' }).waitFor();
-    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-    await page.getByRole('navigation', { name: 'Project' }).waitFor();
+    await openDemoProject(page);
     expect(await page.getByTestId('role-badge').textContent()).toBe('Marine coordinator');
     expect(await page.getByRole('link', { name: 'Settings' }).count()).toBe(1);
     expect(await page.getByTestId('caution').textContent()).toMatch(/Decision support only/);
@@ -37,8 +26,7 @@ describe('signing in and out in the browser', () => {
     await signInAs(page, server.baseUrl, 'client@example.com');
     expect(await page.getByRole('link', { name: 'People & access' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: 'New project' }).count()).toBe(0);
-    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-    await page.getByRole('navigation', { name: 'Project' }).waitFor();
+    await openDemoProject(page);
     expect(await page.getByTestId('role-badge').textContent()).toBe('Client (read-only)');
     expect(await page.getByRole('link', { name: 'Settings' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: /Save|Edit|Delete|Create/ }).count()).toBe(0);

@@ -3,19 +3,9 @@
 // page asking before it removes someone or changes a role.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, screenshot, startServer, type Browser, type RunningServer } from '../support/browser';
+import { openBrowser, openDemoProject, screenshot, useBrowserApp, type Browser } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 180_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser } = useBrowserApp();
 
 // ISO 216: A4 is 210 mm × 297 mm, i.e. 595.28 × 841.89 PostScript points (1 pt = 1/72 in).
 const A4_PT = { w: 595.28, h: 841.89 };
@@ -49,9 +39,7 @@ async function freshSignIn(page: Page, email: string): Promise<void> {
 
 async function openSection(page: Page, email: string, section: string): Promise<void> {
   await freshSignIn(page, email);
-  await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-  await page.getByRole('navigation', { name: 'Project' }).waitFor();
-  await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: section }).click();
+  await openDemoProject(page, section);
 }
 
 describe('the printed downtime report (issue 22, item 6)', () => {

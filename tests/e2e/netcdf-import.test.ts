@@ -6,30 +6,19 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
 const GRID = path.resolve(import.meta.dirname, '../fixtures/netcdf/grid-3x3.nc');
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  // No invented hindcast: this test brings its own dataset (and the machine is shared).
-  server = await startServer({ DEMO_HINDCAST_YEARS: '0' });
-  browser = await openBrowser();
-}, 300_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+// No invented hindcast: this test brings its own dataset (and the machine is shared).
+const { server, browser } = useBrowserApp({ env: { DEMO_HINDCAST_YEARS: '0' } });
 
 describe('NetCDF import page', () => {
   it('imports the grid at the nearest sea point and shows the monthly summary', { timeout: 180_000 }, async () => {
     const { page } = browser;
     await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-    await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Sea data' }).click();
+    await openDemoProject(page, 'Sea data');
     await page.getByRole('link', { name: 'Import a file' }).click();
     await page.getByRole('heading', { name: 'Import sea data' }).waitFor();
     await page.locator('#file').setInputFiles(GRID);

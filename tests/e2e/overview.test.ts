@@ -2,26 +2,16 @@
 // each role: the coordinator's lines against the plan API, the map on the built-in coastline with
 // no request leaving the app, the skipper's cards on a 390 px phone, the client's month.
 // What the page must show is the issue's own list (issue 17, "What to build" and "Tests").
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { PlanAnswer } from '../../shared/api-types-plan';
 import type { SiteResponse } from '../../shared/api-types-sites';
 import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
 import type { MeResponse } from '../../shared/api-types';
 import { formatInstant } from '../../shared/dates';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { demoProjectId, openBrowser, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 300_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser, signIn } = useBrowserApp();
 
 async function waitFor(page: Page, testId: string, name: string): Promise<void> {
   try {
@@ -46,10 +36,8 @@ const getJson = async <T>(page: Page, path: string): Promise<T> => {
 
 describe('the project Overview', () => {
   it('lists every operation for the coordinator with the plan API’s earliest start', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('coordinator');
     await page.goto(`${server.baseUrl}/projects/${projectId}`);
     await waitFor(page, 'overview-line', 'overview-coordinator');
 
@@ -94,7 +82,6 @@ describe('the project Overview', () => {
 
   it('draws the map on the built-in coastline with one marker per worksite and no request outside the app', async () => {
     const { page, context } = browser;
-    await context.clearCookies();
     const outside: string[] = [];
     const onRequest = (r: { url(): string }) => {
       const url = r.url();
@@ -102,8 +89,7 @@ describe('the project Overview', () => {
     };
     context.on('request', onRequest);
     try {
-      await signInAs(page, server.baseUrl, 'coordinator@example.com');
-      const projectId = await demoProjectId(page, server.baseUrl);
+      const projectId = await signIn('coordinator');
       await page.goto(`${server.baseUrl}/projects/${projectId}`);
       const map = page.getByTestId('site-map');
       await map.scrollIntoViewIfNeeded();
@@ -197,11 +183,9 @@ describe('the project Overview', () => {
   }, 120_000);
 
   it('shows the client this month’s confirmed downtime against P50 and P90', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
+    const { page } = browser;
     // The coordinator proposes the finished days of the last three (the demo stores their forecasts) and confirms one of this month.
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const projectId = await signIn('coordinator');
     const sites = await getJson<SiteResponse[]>(page, `/api/projects/${projectId}/sites`);
     const zone = sites[0].timeZone;
     const today = formatInstant(Date.now(), zone, 'date');
@@ -224,8 +208,7 @@ describe('the project Overview', () => {
       expect(confirm.status()).toBe(200);
     }
 
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'client@example.com');
+    await signIn('client');
     await page.goto(`${server.baseUrl}/projects/${projectId}`);
     await waitFor(page, 'month-row', 'overview-client');
     const card = page.getByTestId('month-card');

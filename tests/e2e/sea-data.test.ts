@@ -2,8 +2,8 @@
 // a client reads the list and the dataset but sees no import, fetch or delete controls.
 // Needs the built client (`npx vite build`).
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { describe, expect, it } from 'vitest';
+import { openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
 // NOAA NDBC station 44014, 2017 historical stdmet file (public domain), kept in the shared test data.
 const NDBC_FILE = path.resolve(import.meta.dirname, '../fixtures/ndbc/44014h2017.txt');
@@ -11,26 +11,15 @@ const NDBC_FILE = path.resolve(import.meta.dirname, '../fixtures/ndbc/44014h2017
 // excluded); every row there has a time and a wave height, so every row is a record.
 const NDBC_ROWS = '8,654';
 
-let server: RunningServer;
-let browser: Browser;
+const { server, browser } = useBrowserApp();
 let seaDataPath = '';
 let datasetPath = '';
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
 
 describe('sea data pages', () => {
   it('lets the coordinator import an NDBC file with a progress bar and opens the new dataset', async () => {
     const { page } = browser;
     await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-    await page.getByRole('navigation', { name: 'Project' }).getByRole('link', { name: 'Sea data' }).click();
+    await openDemoProject(page, 'Sea data');
     await page.getByRole('heading', { name: 'Sea data' }).waitFor();
     seaDataPath = new URL(page.url()).pathname;
 

@@ -11,20 +11,15 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, screenshot, startServer, type Browser, type RunningServer } from '../support/browser';
+import { openDemoProject, screenshot, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
+const { server, browser } = useBrowserApp();
 let tmp: string;
 
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
+beforeAll(() => {
   tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-walk-'));
-}, 180_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
+});
+afterAll(() => {
   if (tmp) fs.rmSync(tmp, { recursive: true, force: true });
 });
 
@@ -299,8 +294,7 @@ describe('the forms the walk above does not reach', () => {
     await page.getByLabel('Password').fill('lullwatch-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByRole('heading', { name: 'Projects' }).waitFor();
-    await page.getByRole('link', { name: /Varrow Reach export cable/ }).click();
-    await page.getByRole('navigation', { name: 'Project' }).waitFor();
+    await openDemoProject(page);
     const base = page.url().replace(/\/$/, '');
 
     // The alpha table: a bound below zero, a column that is not a number, an α above 1, an empty cell.

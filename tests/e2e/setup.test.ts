@@ -5,22 +5,12 @@
 //
 // Expected values come from the demo seed (seed/scenario-sites.ts: "Rock berm placement" has
 // Hs max 1.5 m) and from the shared schema's range (LIMIT_RANGES.hsM.max = 20 m), not from the UI.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { AuditEntryResponse, OperationResponse } from '../../shared/api-types-sites';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { screenshot, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser, signIn } = useBrowserApp();
 
 async function openTab(page: Page, projectId: string, tab: string): Promise<void> {
   await page.goto(`${server.baseUrl}/projects/${projectId}/setup?tab=${tab}`);
@@ -31,10 +21,8 @@ const OPERATION = 'Rock berm placement';
 
 describe('sites & limits', () => {
   it('lets the coordinator change an Hs limit and shows it in the audit trail', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('coordinator');
     await openTab(page, projectId, 'operations');
 
     const card = page.getByTestId('operation-card').filter({ hasText: OPERATION });
@@ -90,10 +78,8 @@ describe('sites & limits', () => {
   });
 
   it('shows the client the operations with no edit controls', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'client@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('client');
     const noEditing = /^(Edit|Add|Delete|Save|Reset|Import|Replace|Remove|\+)/;
 
     await openTab(page, projectId, 'operations');

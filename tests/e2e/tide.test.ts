@@ -1,28 +1,16 @@
 // The tide strip of the watch board in a real browser against the built app and the seeded demo:
 // the coordinator gives the landfall cofferdam a tide of harmonic constants (through the same API the
 // setup page uses), and the board's tide strip under the rows shows its high and low waters.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { SiteResponse } from '../../shared/api-types-sites';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { screenshot, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser, signIn } = useBrowserApp();
 
 describe('the tide strip', () => {
   it('shows highs and lows under the board after the coordinator gives the landfall site a tide', async () => {
-    const { page, context } = browser;
-    await context.clearCookies();
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    const projectId = await demoProjectId(page, server.baseUrl);
+    const { page } = browser;
+    const projectId = await signIn('coordinator');
     const sites: SiteResponse[] = await page.evaluate(async (p) => (await fetch(`/api/projects/${p}/sites`)).json(), projectId);
     const landfall = sites.find((s) => s.name === 'Landfall cofferdam')!;
     // M2 alone, 1.5 m about Z0 2 m: two highs and two lows a day, one M2 period (12.42 h, Schureman 1958) apart.

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { WAVE_RANGES } from '../../shared/schemas/wave';
-import { openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { screenshot, signInAs, useBrowserApp } from '../support/browser';
 
 // The wave calculator in the browser: typed inputs reach the page's results, the table view lists the
 // rows asked for and downloads them. Expected values are computed here, independently of the
@@ -42,17 +42,7 @@ function kdFromDOverL0(dOverL0: number): number {
 /** A number as the page prints it ("1,234.5", "−0.25") back to a JS number. */
 const shown = (text: string | null) => Number((text ?? '').replace(/,/g, '').replace('−', '-').trim());
 
-let server: RunningServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-}, 120_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const { server, browser } = useBrowserApp();
 
 describe('wave calculator in the browser', () => {
   it('shows the wavelength of a 10 s wave in 10 m of water as typed', async () => {

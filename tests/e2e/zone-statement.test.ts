@@ -2,24 +2,12 @@
 // once, under the project's name (the layout's one place for it), on screen and on paper; no section
 // repeats a zone beside its times. The demo's worksites are in Europe/London (seed/scenario-sites.ts),
 // and sea data are stored in UTC.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { demoProjectId, openBrowser, screenshot, signInAs, startServer, type Browser, type RunningServer } from '../support/browser';
+import { screenshot, useBrowserApp } from '../support/browser';
 
-let server: RunningServer;
-let browser: Browser;
-let projectId: string;
-
-beforeAll(async () => {
-  server = await startServer();
-  browser = await openBrowser();
-  await signInAs(browser.page, server.baseUrl, 'coordinator@example.com');
-  projectId = await demoProjectId(browser.page, server.baseUrl);
-}, 180_000);
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+const app = useBrowserApp({ signIn: 'coordinator' });
+const { server, browser } = app;
 
 /** Zone names as pages write them: IANA names (IANA time zone database naming rules) and UTC. */
 const ZONE_NAME =
@@ -76,7 +64,7 @@ async function expectOneStatement(page: Page, where: string, zone: RegExp): Prom
 describe('one time-zone statement per page (issue 22, dates)', () => {
   it('states the zone once on the board, conditions, downtime with its report, alerts, sea data and setup', async () => {
     const { page } = browser;
-    const base = `${server.baseUrl}/projects/${projectId}`;
+    const base = `${server.baseUrl}/projects/${app.projectId}`;
     const london = /Europe\/London \((GMT|BST)\), the worksites?’ local time/;
 
     await page.goto(`${base}/board`);
@@ -84,7 +72,7 @@ describe('one time-zone statement per page (issue 22, dates)', () => {
     await expectOneStatement(page, 'board', london);
     await screenshot(page, 'zone-board');
 
-    const sites = (await (await page.request.get(`${server.baseUrl}/api/projects/${projectId}/sites`)).json()) as { id: string }[];
+    const sites = (await (await page.request.get(`${server.baseUrl}/api/projects/${app.projectId}/sites`)).json()) as { id: string }[];
     await page.goto(`${base}/conditions/${sites[0].id}`);
     await page.getByText(/, hourly\./).waitFor({ timeout: 90_000 });
     await expectOneStatement(page, 'conditions', /Europe\/London \((GMT|BST)\), the worksite’s local time/);

@@ -24,10 +24,10 @@ interface Sample {
  * (break runs) and long gaps of days to months (so several months and years are covered);
  * statuses drawn with workable most likely, plus marginal, not workable and no data.
  */
-function sampleArb(dtMs: number, maxLength: number, longGapDays: number): fc.Arbitrary<Sample> {
+function sampleArb(dtMs: number, maxLength: number, longGapDays: number, wholeSteps = false): fc.Arbitrary<Sample> {
   const spacing = fc.oneof(
     { weight: 30, arbitrary: fc.constant(1) },
-    { weight: 2, arbitrary: fc.constant(1.5) },
+    { weight: wholeSteps ? 0 : 2, arbitrary: fc.constant(1.5) },
     { weight: 2, arbitrary: fc.constant(2) },
     { weight: 1, arbitrary: fc.integer({ min: 3, max: 30 }) },
     { weight: 1, arbitrary: fc.integer({ min: 1, max: longGapDays }).map((d) => (d * 24 * HOUR) / dtMs) },
@@ -310,6 +310,24 @@ describe('monthlyStatistics against brute force', () => {
         got.months.forEach((m, i) => expectStatsClose(m, want.months[i]));
       }),
       { numRuns: 60 },
+    );
+  });
+
+  // Times a whole number of steps apart: the waits are kept as ramps of whole steps, not per
+  // record (monthly-statistics.ts); the same brute force must hold, year-months included.
+  it('hourly series on a grid of whole steps (gaps of whole steps only)', () => {
+    fc.assert(
+      fc.property(sampleArb(HOUR, 1500, 20, true), (s) => {
+        const times = Float64Array.from(s.times);
+        const status = Uint8Array.from(s.status);
+        const trH = s.trMin / 60;
+        const got = monthlyStatistics(times, status, goStarts(times, status, s.dtMs, trH), s.dtMs, calendarIndex(times, 'UTC'), trH);
+        const want = bruteMonthly(s, utcKey);
+        got.months.forEach((m, i) => expectStatsClose(m, want.months[i]));
+        expect(got.yearMonths.map((y) => [y.year, y.month])).toEqual(want.yearMonths.map((y) => [y.year, y.month]));
+        got.yearMonths.forEach((y, i) => expectStatsClose(y, want.yearMonths[i]));
+      }),
+      { numRuns: 80 },
     );
   });
 

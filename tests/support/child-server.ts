@@ -36,6 +36,7 @@ export interface ChildServer {
 /**
  * Starts `node --import tsx server/index.ts` (the server is this very process, so a SIGKILL
  * reaches it, unlike the tsx command that runs it in a grandchild) and waits for /api/health
+ * to answer without `demo: 'loading'`
  * (120 s unless `startTimeoutMs` says otherwise) on a free port or the one given.
  */
 export async function startServer(
@@ -70,8 +71,9 @@ export async function startServer(
       child.kill('SIGKILL');
       throw new Error(`server did not start:\n${out}`);
     }
+    // Up, and the demo's sea data loaded (a first start loads them after it listens).
     const ok = await fetch(`${baseUrl}/api/health`).then(
-      (r) => r.ok,
+      async (r) => r.ok && ((await r.json()) as { demo?: string }).demo !== 'loading',
       () => false,
     );
     if (ok) break;

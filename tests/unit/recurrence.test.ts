@@ -55,3 +55,88 @@ describe('recurring operations against RFC 5545 section 3.8.5.3 examples (open s
     expect(RecurrenceInput.safeParse({ start: '2027-01-04T06:00', timeZone: 'Mars/Olympus', rule: 'FREQ=DAILY' }).success).toBe(false);
   });
 });
+
+/**
+ * Every date at `hour`:00 UTC in [from, to) whose UTC calendar day passes `keep`, by a plain day
+ * walk (written for this test, independent of rrule and of the product's expansion).
+ */
+function daysWhere(from: number, to: number, hour: number, keep: (day: Date) => boolean): string[] {
+  const out: string[] = [];
+  for (
+    let t = Date.UTC(new Date(from).getUTCFullYear(), new Date(from).getUTCMonth(), new Date(from).getUTCDate(), hour);
+    t < to;
+    t += 86_400_000
+  ) {
+    if (t >= from && keep(new Date(t))) out.push(new Date(t).toISOString());
+  }
+  return out;
+}
+const daysInMonth = (y: number, m0: number) => new Date(Date.UTC(y, m0 + 1, 0)).getUTCDate();
+
+describe('a rule started years ago is expanded from near the window (RFC 5545 3.3.10)', () => {
+  it('gives the two daily crew changes of a week in December 2026 for a rule started in 1950 (about 56,000 earlier occurrences)', () => {
+    const r = { start: '1950-01-01T06:00', timeZone: 'Europe/London', rule: 'FREQ=DAILY;BYHOUR=6,18' };
+    const from = Date.UTC(2026, 11, 7);
+    const to = Date.UTC(2026, 11, 14);
+    // London keeps GMT (UTC+0) in December (Summer Time Act 1972 and EU Directive 2000/84/EC, from memory).
+    const expected = [...daysWhere(from, to, 6, () => true), ...daysWhere(from, to, 18, () => true)].sort();
+    expect(expected).toHaveLength(14);
+    expect(utc(expandRecurrence(r, from, to))).toEqual(expected);
+  });
+
+  it('keeps every third week of a WEEKLY;INTERVAL=3 rule from 1970 (weeks start on Monday, RFC 5545 WKST default)', () => {
+    const r = { start: '1970-01-06T09:00', timeZone: 'UTC', rule: 'FREQ=WEEKLY;INTERVAL=3;BYDAY=TU,TH' };
+    const from = Date.UTC(2026, 0, 1);
+    const to = Date.UTC(2026, 2, 1);
+    // 1970-01-05 was a Monday (1970-01-01 was a Thursday, common knowledge): the rule's first week.
+    const firstMonday = Date.UTC(1970, 0, 5);
+    const expected = daysWhere(from, to, 9, (d) => {
+      const week = Math.floor((d.getTime() - 9 * 3_600_000 - firstMonday) / (7 * 86_400_000));
+      return week % 3 === 0 && (d.getUTCDay() === 2 || d.getUTCDay() === 4);
+    });
+    expect(expected.length).toBeGreaterThanOrEqual(5);
+    expect(utc(expandRecurrence(r, from, to))).toEqual(expected);
+  });
+
+  it('skips the months without a 31st in a MONTHLY;INTERVAL=5 rule from 31 January 1931 (invalid dates are ignored)', () => {
+    const r = { start: '1931-01-31T12:00', timeZone: 'UTC', rule: 'FREQ=MONTHLY;INTERVAL=5' };
+    const from = Date.UTC(2025, 0, 1);
+    const to = Date.UTC(2030, 0, 1);
+    const expected = daysWhere(from, to, 12, (d) => {
+      const monthsSince = (d.getUTCFullYear() - 1931) * 12 + d.getUTCMonth();
+      return monthsSince % 5 === 0 && d.getUTCDate() === 31;
+    });
+    expect(expected.length).toBeGreaterThan(3);
+    expect(utc(expandRecurrence(r, from, to))).toEqual(expected);
+  });
+
+  it('keeps the last Friday of each month of a rule from 1960, and a 29 February rule from 1904 in leap years only', () => {
+    const lastFriday = { start: '1960-03-01T07:00', timeZone: 'UTC', rule: 'FREQ=MONTHLY;BYDAY=-1FR' };
+    const from = Date.UTC(2026, 0, 1);
+    const to = Date.UTC(2027, 0, 1);
+    const expected = daysWhere(
+      from,
+      to,
+      7,
+      (d) => d.getUTCDay() === 5 && d.getUTCDate() + 7 > daysInMonth(d.getUTCFullYear(), d.getUTCMonth()),
+    );
+    expect(expected).toHaveLength(12);
+    expect(utc(expandRecurrence(lastFriday, from, to))).toEqual(expected);
+
+    const leapDay = { start: '1904-02-29T08:00', timeZone: 'UTC', rule: 'FREQ=YEARLY' };
+    // Gregorian leap years between 2026 and 2032: 2028 and 2032 (divisible by 4, not centuries).
+    expect(utc(expandRecurrence(leapDay, Date.UTC(2026, 0, 1), Date.UTC(2033, 0, 1)))).toEqual([
+      '2028-02-29T08:00:00.000Z',
+      '2032-02-29T08:00:00.000Z',
+    ]);
+  });
+
+  it('still ends at UNTIL for a rule from 1950', () => {
+    const r = { start: '1950-01-01T06:00', timeZone: 'UTC', rule: 'FREQ=DAILY;UNTIL=20261210T000000Z' };
+    expect(utc(expandRecurrence(r, Date.UTC(2026, 11, 7), Date.UTC(2026, 11, 14)))).toEqual([
+      '2026-12-07T06:00:00.000Z',
+      '2026-12-08T06:00:00.000Z',
+      '2026-12-09T06:00:00.000Z',
+    ]);
+  });
+});
