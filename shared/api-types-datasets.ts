@@ -98,7 +98,12 @@ export interface NetcdfImportInfo {
   variables: { role: string; variable: string; via: string }[];
   /** Partitions found in the file (wind sea, primary swell...). */
   partitionsRead: string[];
-  /** Plain statement of what was read but is not stored (partitions, water level). */
+  /**
+   * Optional columns stored beside the total sea state (`windSea.hs`, `swell1.tp`, `waterLevel`,
+   * `currentSpeed`, ...; shared/seadata/extra-columns.ts), sorted.
+   */
+  extraStored: string[];
+  /** Plain statement of what was read but is not stored (the swell as a whole). */
   notStored: string[];
   notes: string[];
   depthM: number | null;

@@ -58,8 +58,29 @@ const upload = multer({
   defParamCharset: 'utf8',
 }).single('file');
 
-/** Runs multer after the role check, so refused callers never send their file to disk. */
+/**
+ * Largest multipart body that can hold a file within the NetCDF limit: the file, every form field
+ * at its limit, and a little for the part headers and boundaries.
+ */
+export const MAX_UPLOAD_BODY_BYTES = MAX_NETCDF_UPLOAD_BYTES + 20 * (MAX_FIELD_BYTES + 1024) + 64 * 1024;
+
+/**
+ * Runs multer after the role check, so refused callers never send their file to disk. A body that
+ * declares a length over any file's limit is answered 413 before a byte of it is read (the
+ * connection is then closed, so the rest is never received); a body without a length (chunked)
+ * is cut off by the storage once its file passes the limit its first bytes call for.
+ */
 function receiveUpload(req: Request, res: Response): Promise<void> {
+  const declared = Number(req.headers['content-length']);
+  if (Number.isFinite(declared) && declared > MAX_UPLOAD_BODY_BYTES) {
+    res.setHeader('Connection', 'close');
+    return Promise.reject(
+      new HttpError(
+        'too_large',
+        `The upload declares ${(declared / 1024 ** 3).toFixed(2)} GB: larger than the NetCDF upload limit of ${MAX_NETCDF_UPLOAD_BYTES / 1024 ** 3} GB (other files: ${MAX_UPLOAD_BYTES / 1024 / 1024} MB)`,
+      ),
+    );
+  }
   ensurePrivateDir(UPLOAD_DIR);
   return new Promise((resolve, reject) =>
     upload(req, res, (err: unknown) => {

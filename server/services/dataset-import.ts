@@ -13,6 +13,8 @@ import {
   DEFAULT_WIND_EXPONENT,
   WIND_REFERENCE_HEIGHT_M,
   windHeightFactor,
+  EXTRA_COLUMN_UNITS,
+  type ExtraColumn,
   type ImportResult,
 } from '../../shared/seadata';
 import type { ImportAnswer } from '../../shared/api-types-datasets';
@@ -229,7 +231,7 @@ async function importNetcdfUpload(
   form: ReturnType<typeof ImportFormSchema.parse>,
   args: { projectId: string; userId: string; file: UploadedFile; onProgress?: (p: ImportProgress) => void },
 ): Promise<ImportAnswer> {
-  const { result, info } = await withNetcdf(args.file.path, (file) =>
+  const { result, extra, info } = await withNetcdf(args.file.path, (file) =>
     readNetcdfPoint(file, {
       dataPoint: { lat: p.dataPointLatitude, lon: p.dataPointLongitude },
       gridPoint: form.gridPoint,
@@ -258,7 +260,7 @@ async function importNetcdfUpload(
     for (let i = 0; i < records.wind.length; i++) records.wind[i] *= factor;
   }
   args.onProgress?.({ phase: 'saving', bytesRead: args.file.size, totalBytes: args.file.size, rows: records.timeMs.length });
-  const series = toSeaSeries(records);
+  const series = toSeaSeries({ ...records, extra });
   // The model's depth at the point sets the data point's depth when the file gives it.
   const formDepth = form.dataPointDepth === 'deep' ? null : form.dataPointDepth;
   const depth = info.depthM ?? formDepth;
@@ -292,6 +294,11 @@ async function importNetcdfUpload(
       issueCount: 0,
       notes: [
         `NetCDF point ${info.point.index.length ? `[${info.point.index.join(', ')}]` : '(single point)'} at ${info.point.lat ?? '?'}, ${info.point.lon ?? '?'}${info.point.distanceKm !== null ? `, ${info.point.distanceKm} km from the data point` : ''} (${info.point.chosen === 'nearest' ? 'nearest sea point' : info.point.chosen === 'given' ? 'chosen by the coordinator' : "the file's one point"})`,
+        ...(info.extraStored.length > 0
+          ? [
+              `stored beside the total sea state: ${info.extraStored.map((c) => `${c} (${EXTRA_COLUMN_UNITS[c as ExtraColumn]})`).join(', ')}`,
+            ]
+          : []),
         ...info.notStored,
         ...info.notes,
         ...(givenHeight === undefined ? ['wind taken as given at 10 m above the sea (no anemometer height stated)'] : []),

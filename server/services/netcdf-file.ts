@@ -42,6 +42,10 @@ export async function openNetcdf(path: string): Promise<OpenNcFile> {
 // NetCDF-4 (HDF5)
 
 const NOT_A_VARIABLE = 'This is a netCDF dimension but not a netCDF variable';
+/** Deepest group nesting read (sea-state files use one or two levels). */
+const MAX_GROUP_DEPTH = 16;
+/** Most groups and variables listed (a damaged or hostile file could link a group into itself). */
+const MAX_HDF5_NODES = 20_000;
 
 function toAttr(value: unknown): NcAttr | undefined {
   if (typeof value === 'string') return value;
@@ -83,9 +87,33 @@ async function openNetcdf4(path: string): Promise<OpenNcFile> {
   try {
     const variables: NcVar[] = [];
     const datasets = new Map<string, InstanceType<typeof h5wasm.Dataset>>();
-    for (const key of f.keys()) {
-      const node = f.get(key);
-      if (!(node instanceof h5wasm.Dataset)) continue; // groups are not read (root group only)
+    // NetCDF-4 groups (docs/domain.md#netcdf): every group is walked, parents before children, and
+    // a variable in a group is named by its path without the leading '/' ("waves/hs"); a dimension
+    // is named by its dimension scale's path the same way, so a variable in /waves that runs along
+    // the root's time has the dimension "time", and one along /model/time has "model/time".
+    let nodes = 0;
+    const walk = (
+      group: InstanceType<typeof h5wasm.Group>,
+      prefix: string,
+      depth: number,
+      groups: [string, InstanceType<typeof h5wasm.Group>][],
+    ) => {
+      for (const key of group.keys()) {
+        if (++nodes > MAX_HDF5_NODES) {
+          throw bad(`it holds more than ${MAX_HDF5_NODES.toLocaleString('en-US')} groups and variables, which is not a sea-state file`);
+        }
+        const node = group.get(key);
+        const path = prefix + key;
+        if (node instanceof h5wasm.Group) {
+          if (depth >= MAX_GROUP_DEPTH) throw bad(`group ${path} is nested deeper than ${MAX_GROUP_DEPTH} levels`);
+          groups.push([path, node]);
+          continue;
+        }
+        if (node instanceof h5wasm.Dataset) addDataset(path, node);
+      }
+    };
+    const addDataset = (key: string, node: InstanceType<typeof h5wasm.Dataset>) => {
+      if (datasets.has(key)) return;
       const attrs: Record<string, NcAttr> = {};
       for (const [name, a] of Object.entries(node.attrs)) {
         if (name === 'DIMENSION_LIST' || name === 'REFERENCE_LIST' || name.startsWith('_Netcdf4') || name === 'CLASS') continue;
@@ -98,7 +126,7 @@ async function openNetcdf4(path: string): Promise<OpenNcFile> {
         const t = toAttr(v);
         if (t !== undefined) attrs[name] = t;
       }
-      if (typeof attrs.NAME === 'string' && attrs.NAME.startsWith(NOT_A_VARIABLE)) continue;
+      if (typeof attrs.NAME === 'string' && attrs.NAME.startsWith(NOT_A_VARIABLE)) return;
       delete attrs.NAME;
       const shape = (node.shape ?? []).map(Number);
       const isScale = (() => {
@@ -121,6 +149,13 @@ async function openNetcdf4(path: string): Promise<OpenNcFile> {
       });
       variables.push({ name: key, dims, shape, attrs });
       datasets.set(key, node);
+    };
+    // Breadth first: the root's variables, then each group's, then theirs.
+    let level: [string, InstanceType<typeof h5wasm.Group>][] = [['', f]];
+    for (let depth = 0; level.length > 0; depth++) {
+      const next: [string, InstanceType<typeof h5wasm.Group>][] = [];
+      for (const [path, g] of level) walk(g, path === '' ? '' : `${path}/`, depth, next);
+      level = next;
     }
     return {
       format: 'netcdf4',
@@ -199,11 +234,12 @@ function openClassic(path: string): OpenNcFile {
     throw bad(`the classic header is damaged or cut short (${lastError})`);
   }
   const header = reader;
-  const dims = header.dimensions as { name: string; size: number }[];
-  const recDim = header.recordDimension as { length: number; id?: number; recordStep?: number };
+  // A header with no dimensions or variables (their lists ABSENT) reads as undefined lists.
+  const dims = (header.dimensions ?? []) as { name: string; size: number }[];
+  const recDim = (header.recordDimension ?? { length: 0 }) as { length: number; id?: number; recordStep?: number };
   const records = Number(recDim.length ?? 0);
   const recordStep = Number(recDim.recordStep ?? 0);
-  const raw = header.variables as unknown as ClassicVar[];
+  const raw = (header.variables ?? []) as unknown as ClassicVar[];
   const variables: NcVar[] = [];
   const layout = new Map<string, { v: ClassicVar; shape: number[] }>();
   for (const v of raw) {

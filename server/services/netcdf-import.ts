@@ -1,9 +1,12 @@
 /**
  * NetCDF (CF) uploads: list a grid's points, choose the point (the nearest sea point to the data
  * point by default, docs/domain.md#netcdf), read only that point's series and store it like any
- * other import (one transaction). Partitions are read (and give the total Hs when the file has no
- * total) but the dataset model has no partition columns yet, so they are reported as read and not
- * stored; so is a water level brought to chart datum.
+ * other import (one transaction). What the file has beyond the total sea state is stored in the
+ * dataset's optional columns (shared/seadata/extra-columns.ts): the wind sea and two swells
+ * (docs/domain.md#partitions), the water level brought to chart datum by the stated offset, and
+ * the current (speed, direction going-to; docs/domain.md#tide). The swell as a whole
+ * (sea_surface_swell_wave_*) has no column of its own: it gives the total when the file has none
+ * and is reported as not stored.
  */
 import {
   ImportError,
@@ -19,6 +22,8 @@ import {
   type GridPoint,
   type NcColumnMap,
   type CfPointResult,
+  type ExtraColumn,
+  type ExtraSeries,
 } from '../../shared/seadata';
 import type { NetcdfImportInfo, NetcdfPointsAnswer } from '../../shared/api-types-datasets';
 import { HttpError } from '../http/errors';
@@ -112,7 +117,7 @@ export function readNetcdfPoint(
     waterLevelOffsetM?: number;
     onVariable?: (done: number, total: number, records: number) => void;
   },
-): { result: CfPointResult; info: NetcdfImportInfo } {
+): { result: CfPointResult; extra: ExtraSeries; info: NetcdfImportInfo } {
   const plan = planCfImport(file, args.columns ?? {});
   const sizes = plan.pointDims.map((d) => plan.reference.shape[plan.reference.dims.indexOf(d)]);
   let chosen: NetcdfImportInfo['point'];
@@ -176,18 +181,17 @@ export function readNetcdfPoint(
     chosen.missingShare = hs.length ? round(m / hs.length, 4) : 0;
   }
   const partitionsRead = Object.keys(result.partitions).map((p) => PARTITION_LABELS[p as keyof typeof PARTITION_LABELS]);
-  const notStored: string[] = [];
-  if (partitionsRead.length > 0) {
-    notStored.push(`partitions read but not stored (the dataset keeps the total only for now): ${partitionsRead.join(', ')}`);
-  }
-  if (result.waterLevel) notStored.push('water level read and brought to chart datum but not stored (datasets hold no water level yet)');
+  const { extra, notStored } = extraColumnsOf(result);
+  const stored = (Object.keys(extra) as ExtraColumn[]).sort();
   return {
     result,
+    extra,
     info: {
       format: file.format,
       point: chosen,
       variables: plan.choices.map(({ role, variable, via }) => ({ role, variable, via })),
       partitionsRead,
+      extraStored: stored,
       notStored,
       notes: [...result.notes, ...plan.ignored.map((i) => `${i.variable}: ${i.reason}`)],
       depthM: result.depthM,
@@ -200,4 +204,35 @@ const nanToNull = (x: number) => (Number.isNaN(x) ? null : x);
 function distanceKm(dp: { lat: number | null; lon: number | null }, p: GridPoint): number | null {
   if (dp.lat === null || dp.lon === null || Number.isNaN(p.lat) || Number.isNaN(p.lon)) return null;
   return round(greatCircleM(dp.lat, dp.lon, p.lat, p.lon) / 1000, 2);
+}
+
+/**
+ * The optional columns a point result fills: each partition's Hs, Tp and direction (coming from)
+ * where the file gives them, the water level above chart datum, the current's speed and going-to
+ * direction. What was read but has no column is named in `notStored`.
+ */
+export function extraColumnsOf(result: CfPointResult): { extra: ExtraSeries; notStored: string[] } {
+  const extra: ExtraSeries = {};
+  const notStored: string[] = [];
+  for (const p of ['windSea', 'swell1', 'swell2'] as const) {
+    const s = result.partitions[p];
+    if (!s) continue;
+    extra[`${p}.hs`] = s.hs;
+    if (s.tp) extra[`${p}.tp`] = s.tp;
+    if (s.dir) extra[`${p}.dir`] = s.dir;
+  }
+  if (result.partitions.swell) {
+    notStored.push(
+      `${PARTITION_LABELS.swell} read but not stored: datasets keep the wind sea and a primary and a secondary swell${
+        result.partitions.swell1 || result.partitions.swell2 ? '' : ' (it is part of the total Hs)'
+      }`,
+    );
+  }
+  if (result.waterLevel) extra.waterLevel = result.waterLevel;
+  if (result.current) {
+    extra.currentSpeed = result.current.speed;
+    if (result.current.dir) extra.currentDir = result.current.dir;
+    else notStored.push('current direction: the file gives the current speed without direction_of_sea_water_velocity');
+  }
+  return { extra, notStored };
 }

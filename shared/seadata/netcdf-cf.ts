@@ -53,7 +53,18 @@ export const PARTITION_LABELS: Record<Partition, string> = {
 };
 
 /** What a variable can be used as. */
-export type CfRole = SeaVariable | 'u' | 'v' | `${Partition}.${'hs' | 'tp' | 'dir'}` | 'depth' | 'waterLevel' | 'forecastReferenceTime';
+export type CfRole =
+  | SeaVariable
+  | 'u'
+  | 'v'
+  | `${Partition}.${'hs' | 'tp' | 'dir'}`
+  | 'depth'
+  | 'waterLevel'
+  | 'forecastReferenceTime'
+  | 'currentSpeed'
+  | 'currentDir'
+  | 'currentU'
+  | 'currentV';
 
 /** Standard names read for the total sea state and wind (CF standard name table). */
 export const TOTAL_NAMES: Record<SeaVariable, { from: string[]; to?: string[] }> = {
@@ -93,6 +104,21 @@ export const PARTITION_NAMES: Record<Partition, { hs: string; tp: string; dirFro
 
 export const WIND_COMPONENT_NAMES = { u: 'eastward_wind', v: 'northward_wind' } as const;
 
+/**
+ * Current (docs/domain.md#tide): speed with the direction the water flows towards (CF's
+ * direction_of_sea_water_velocity is "to"; currents are stored going-to, the oceanographic
+ * convention), or eastward and northward components.
+ */
+export const CURRENT_NAMES = {
+  speed: 'sea_water_speed',
+  dirTo: 'direction_of_sea_water_velocity',
+  u: 'eastward_sea_water_velocity',
+  v: 'northward_sea_water_velocity',
+} as const;
+
+/** Fastest current accepted, m/s (the fastest tidal races run at about 10 m/s, from memory). */
+export const CURRENT_MAX_MS = 15;
+
 /** Model depth at the point (positive down), m. */
 export const DEPTH_NAMES = ['sea_floor_depth_below_sea_surface', 'sea_floor_depth_below_mean_sea_level', 'sea_floor_depth_below_geoid'];
 
@@ -118,6 +144,7 @@ export function standardNamesRead(): string[] {
   for (const v of SEA_VARIABLES) for (const n of [...TOTAL_NAMES[v].from, ...(TOTAL_NAMES[v].to ?? [])]) out.add(n);
   for (const p of PARTITIONS) for (const n of Object.values(PARTITION_NAMES[p])) out.add(n);
   out.add(WIND_COMPONENT_NAMES.u).add(WIND_COMPONENT_NAMES.v);
+  for (const n of Object.values(CURRENT_NAMES)) out.add(n);
   for (const n of [...DEPTH_NAMES, ...WATER_LEVEL_NAMES, 'forecast_reference_time', 'time', 'latitude', 'longitude']) out.add(n);
   return [...out];
 }
@@ -321,6 +348,31 @@ export interface CfPlan {
 /** An explicit mapping of roles to variable names (the CSV import's column map). */
 export type NcColumnMap = Partial<Record<SeaVariable | 'time', string>>;
 
+/**
+ * A NetCDF-4 variable in a group is named by its path without the leading '/' ("waves/hs"); these
+ * give its own name ("hs") and its group ("waves", "" for the root group).
+ */
+export function baseName(name: string): string {
+  return name.slice(name.lastIndexOf('/') + 1);
+}
+export function groupOf(name: string): string {
+  const k = name.lastIndexOf('/');
+  return k === -1 ? '' : name.slice(0, k);
+}
+
+/**
+ * The variable a name refers to from `from`'s group: an absolute path ("/ocean/ssh"), a relative
+ * one, or a bare name looked up in `from`'s group and then its parents (CF 1.8 section 2.7,
+ * search by proximity).
+ */
+export function resolveVariable(vars: readonly NcVar[], name: string, from = ''): NcVar | undefined {
+  if (name.startsWith('/')) return vars.find((v) => v.name === name.slice(1));
+  for (let g = from; ; g = groupOf(g)) {
+    const v = vars.find((x) => x.name === (g === '' ? name : `${g}/${name}`));
+    if (v || g === '') return v;
+  }
+}
+
 function byStandardName(vars: NcVar[], names: readonly string[]): NcVar | undefined {
   for (const n of names) {
     const v = vars.find((x) => attrText(x, 'standard_name') === n);
@@ -337,7 +389,15 @@ function byStandardName(vars: NcVar[], names: readonly string[]): NcVar | undefi
 export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
   const vars = file.variables;
   const get = (name: string, role: string) => {
-    const v = vars.find((x) => x.name === name);
+    // The column map may give a variable's path ("waves/hs") or, when only one has it, its name.
+    const same = vars.filter((x) => baseName(x.name) === name);
+    const v = vars.find((x) => x.name === name) ?? (same.length === 1 ? same[0] : undefined);
+    if (!v && same.length > 1) {
+      throw fail(
+        name,
+        `is named in the column map for ${role} but several groups have it (${same.map((x) => x.name).join(', ')}): give the path`,
+      );
+    }
     if (!v)
       throw fail(
         name,
@@ -346,14 +406,25 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
     return v;
   };
   const unnamed = vars.filter((v) => attrText(v, 'standard_name') === undefined);
-  const guessed = detectColumns(unnamed.map((v) => v.name));
+  // The CSV column names are matched on each variable's own name (without its group); the first
+  // variable of a name wins (root group first).
+  const guessedNames = detectColumns([...new Set(unnamed.map((v) => baseName(v.name)))]);
+  const unnamedBy = (name: string | undefined) => (name === undefined ? undefined : unnamed.find((v) => baseName(v.name) === name));
+  const guessed = Object.fromEntries(Object.entries(guessedNames).map(([k, n]) => [k, unnamedBy(n as string)?.name])) as Partial<
+    Record<keyof typeof guessedNames, string>
+  >;
 
+  // The time variable: with several (groups with a time each), the one the wave heights run along.
+  const hsNames = [...TOTAL_NAMES.hs.from, ...PARTITIONS.map((p) => PARTITION_NAMES[p].hs)];
+  const hsDims = new Set(vars.filter((v) => hsNames.includes(attrText(v, 'standard_name') ?? '')).flatMap((v) => v.dims));
+  const timeCandidates = [
+    ...vars.filter((v) => attrText(v, 'standard_name') === 'time'),
+    ...vars.filter((v) => attrText(v, 'axis') === 'T'),
+    ...vars.filter((v) => baseName(v.name) === 'time'),
+    ...(guessed.time ? vars.filter((v) => v.name === guessed.time) : []),
+  ].filter((v) => v.dims.length === 1);
   const time =
-    (columns.time ? get(columns.time, 'time') : undefined) ??
-    vars.find((v) => attrText(v, 'standard_name') === 'time' && v.dims.length === 1) ??
-    vars.find((v) => attrText(v, 'axis') === 'T' && v.dims.length === 1) ??
-    vars.find((v) => v.name === 'time' && v.dims.length === 1) ??
-    (guessed.time ? vars.find((v) => v.name === guessed.time && v.dims.length === 1) : undefined);
+    (columns.time ? get(columns.time, 'time') : undefined) ?? timeCandidates.find((v) => hsDims.has(v.dims[0])) ?? timeCandidates[0];
   if (!time) throw fail('time', 'the file has no time variable (standard_name "time", axis "T" or a variable named time)');
   if (time.dims.length !== 1) throw fail(time.name, 'the time variable must have one dimension');
   const tDim = time.dims[0];
@@ -408,6 +479,18 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
     const v = name ? timed.find((x) => x.name === name) : undefined;
     if (v) choose(key, v, `name "${v.name}" (no standard_name; the CSV column names)`);
   }
+  const speed = byStandardName(timed, [CURRENT_NAMES.speed]);
+  if (speed) {
+    choose('currentSpeed', speed, CURRENT_NAMES.speed);
+    choose('currentDir', byStandardName(timed, [CURRENT_NAMES.dirTo]), CURRENT_NAMES.dirTo);
+  } else {
+    const cu = byStandardName(timed, [CURRENT_NAMES.u]);
+    const cv = byStandardName(timed, [CURRENT_NAMES.v]);
+    if (cu && cv) {
+      choose('currentU', cu, CURRENT_NAMES.u);
+      choose('currentV', cv, CURRENT_NAMES.v);
+    }
+  }
   const depth = byStandardName(vars, DEPTH_NAMES);
   if (depth) choose('depth', depth, attrText(depth, 'standard_name')!);
   const level = byStandardName(timed, WATER_LEVEL_NAMES);
@@ -444,8 +527,17 @@ export function planCfImport(file: NcFile, columns: NcColumnMap = {}): CfPlan {
     }
   }
   const ignored = timed
-    .filter((v) => !used.has(v.name) && /wave|wind|swell|sea_surface/.test(attrText(v, 'standard_name') ?? ''))
-    .map((v) => ({ variable: v.name, reason: `standard_name ${attrText(v, 'standard_name')} is not read` }));
+    .filter((v) => !used.has(v.name) && /wave|wind|swell|sea_surface|sea_water/.test(attrText(v, 'standard_name') ?? ''))
+    .map((v) => {
+      const sn = attrText(v, 'standard_name');
+      const twin = choices.find((c) => c.via === sn);
+      return {
+        variable: v.name,
+        reason: twin
+          ? `has the same standard_name ${sn} as ${twin.variable}, which is read (the first found, root group first)`
+          : `standard_name ${sn} is not read`,
+      };
+    });
   return { time, choices, pointDims, reference, ignored };
 }
 
@@ -473,11 +565,25 @@ function findCoord(file: NcFile, reference: NcVar, axis: 'lat' | 'lon'): NcVar |
   const units = axis === 'lat' ? /^degrees?_?n(orth)?$/i : /^degrees?_?e(ast)?$/i;
   // CF 5.2: a `coordinates` attribute names the auxiliary coordinates (2-D latitude, longitude).
   const listed = (attrText(reference, 'coordinates') ?? '').split(/\s+/).filter(Boolean);
-  const candidates = [...listed.map((n) => vars.find((v) => v.name === n)).filter((v): v is NcVar => !!v), ...vars];
+  // Coordinates in the reference's own group and its parents come before those of other groups.
+  const home = groupOf(reference.name);
+  const ancestry: string[] = [];
+  for (let g = home; ; g = groupOf(g)) {
+    ancestry.push(g);
+    if (g === '') break;
+  }
+  const rank = (v: NcVar) => {
+    const k = ancestry.indexOf(groupOf(v.name));
+    return k === -1 ? ancestry.length : k;
+  };
+  const candidates = [
+    ...listed.map((n) => resolveVariable(vars, n, home)).filter((v): v is NcVar => !!v),
+    ...[...vars].sort((x, y) => rank(x) - rank(y)),
+  ];
   return (
     candidates.find((v) => attrText(v, 'standard_name') === sn) ??
     candidates.find((v) => units.test(attrText(v, 'units') ?? '')) ??
-    candidates.find((v) => (axis === 'lat' ? LAT_NAMES : LON_NAMES).includes(v.name.toLowerCase()))
+    candidates.find((v) => (axis === 'lat' ? LAT_NAMES : LON_NAMES).includes(baseName(v.name).toLowerCase()))
   );
 }
 
@@ -639,6 +745,8 @@ export interface CfPointResult {
   partitions: Partial<Record<Partition, PartitionSeries>>;
   /** Water level above chart datum, m (only with a stated offset). */
   waterLevel: Float64Array | null;
+  /** Current at the point: speed m/s and the direction it flows towards (degrees), NaN = missing. */
+  current: { speed: Float64Array; dir: Float64Array | null } | null;
   /** Model depth at the point, m, when the file gives it. */
   depthM: number | null;
   /** forecast_reference_time, UTC ms, when the file gives it. */
@@ -656,6 +764,24 @@ function readSeriesAt(file: NcFile, plan: CfPlan, v: NcVar, index: number[]): Fl
   });
   const count = v.dims.map((d, k) => (d === tDim ? v.shape[k] : 1));
   return file.readRaw(v.name, start, count);
+}
+
+/**
+ * Speed and direction, degrees clockwise from north in [0, 360), from eastward and northward
+ * components: the direction the vector points to (atan2(east, north)), or for 'from' the one it
+ * comes from (atan2(-east, -north), the meteorological convention for wind).
+ */
+function fromComponents(east: Float64Array, north: Float64Array, sense: 'from' | 'to'): [Float64Array, Float64Array] {
+  const n = east.length;
+  const speed = new Float64Array(n);
+  const dir = new Float64Array(n);
+  const k = sense === 'from' ? -1 : 1;
+  for (let i = 0; i < n; i++) {
+    speed[i] = Math.hypot(east[i], north[i]);
+    const d = (Math.atan2(k * east[i], k * north[i]) * 180) / Math.PI;
+    dir[i] = d < 0 ? d + 360 : d >= 360 ? d - 360 : d;
+  }
+  return [speed, dir];
 }
 
 const toFrom = (dir: Float64Array) => {
@@ -693,16 +819,24 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
   const u = series.get('u');
   const vv = series.get('v');
   if (u && vv) {
-    const wind = new Float64Array(n);
-    const windDir = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      wind[i] = Math.hypot(u[i], vv[i]);
-      const d = (Math.atan2(-u[i], -vv[i]) * 180) / Math.PI;
-      windDir[i] = d < 0 ? d + 360 : d >= 360 ? d - 360 : d;
-    }
+    const [wind, windDir] = fromComponents(u, vv, 'from');
     series.set('wind', wind);
     series.set('windDir', windDir);
     notes.push('wind speed and coming-from direction computed from eastward_wind and northward_wind');
+  }
+
+  // Current from components: speed and the direction the water flows towards.
+  const cu = series.get('currentU');
+  const cv = series.get('currentV');
+  if (cu && cv) {
+    const [speed, dir] = fromComponents(cu, cv, 'to');
+    series.set('currentSpeed', speed);
+    series.set('currentDir', dir);
+    notes.push(
+      `current speed and going-to direction computed from ${CURRENT_NAMES.u} and ${CURRENT_NAMES.v} (stored going-to, the oceanographic convention)`,
+    );
+  } else if (series.has('currentDir')) {
+    notes.push(`current direction kept going-to as ${CURRENT_NAMES.dirTo} gives it (the oceanographic convention)`);
   }
 
   // Partitions (docs/domain.md#partitions).
@@ -759,11 +893,14 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
       if (hs[i] === hs[i] && rss === rss && Math.abs(rss - hs[i]) > 0.05 * hs[i]) {
         differ++;
         if (first < 0) first = i;
+        // docs/domain.md#partitions: the partitions are scaled to the given total, keeping their
+        // ratios, so total and partitions agree (all partitions 0 = none present: nothing to scale).
+        if (rss > 0) for (const p of parts) partitions[p]!.hs[i] *= hs[i] / rss;
       }
     }
     if (differ > 0) {
       notes.push(
-        `total Hs and the partitions differ by more than 5% in ${fmt(differ)} records (first at time index ${fmt(first)}); the total is stored as given`,
+        `total Hs and the partitions differ by more than 5% in ${fmt(differ)} records (first at time index ${fmt(first)}, ${new Date(timeMs[first]).toISOString()}): the total is stored as given and the partitions' Hs scaled to it, keeping their ratios (docs/domain.md#partitions)`,
       );
     }
   }
@@ -814,6 +951,30 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     check(nameOf(`${p}.hs`, p), 'hs', s.hs);
     if (s.tp) check(nameOf(`${p}.tp`, p), 'tp', s.tp);
     if (s.dir) check(nameOf(`${p}.dir`, p), 'dir', s.dir);
+  }
+  const currentSpeed = series.get('currentSpeed');
+  const currentDir = series.get('currentDir') ?? null;
+  if (currentSpeed) {
+    // Speed: 0 to CURRENT_MAX_MS (the wind's check has the same shape: negative, or above a bound).
+    const label = nameOf('currentSpeed', 'current speed (from components)');
+    let bad = 0;
+    let first = -1;
+    for (let i = 0; i < n; i++) {
+      const x = currentSpeed[i];
+      if (x === x && !(x >= 0 && x <= CURRENT_MAX_MS)) {
+        if (bad++ === 0) first = i;
+      }
+    }
+    if (bad > 0) {
+      issueCount++;
+      issues.push({
+        line: 0,
+        column: label,
+        value: String(currentSpeed[first]),
+        reason: `variable ${label}: ${fmt(bad)} value${bad > 1 ? 's' : ''} with current speed outside 0-${CURRENT_MAX_MS} m/s, first at time index ${fmt(first)} (${new Date(timeMs[first]).toISOString()})`,
+      });
+    }
+    if (currentDir) check(nameOf('currentDir', 'current direction (from components)'), 'dir', currentDir);
   }
   if (issueCount > 0) {
     throw new ImportError(
@@ -876,7 +1037,8 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
     wind: series.get('wind') ?? nan(),
     windDir: series.get('windDir') ?? nan(),
   };
-  return { records, partitions, waterLevel, depthM, forecastReferenceMs, notes };
+  const current = currentSpeed ? { speed: currentSpeed, dir: currentDir } : null;
+  return { records, partitions, waterLevel, current, depthM, forecastReferenceMs, notes };
 }
 
 function readDepthAt(file: NcFile, plan: CfPlan, v: NcVar, index: number[]): Float64Array {

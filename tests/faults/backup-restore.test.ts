@@ -89,7 +89,7 @@ let afterChanges: string[];
 beforeAll(async () => {
   fs.mkdirSync(backups, { recursive: true });
   server = await startServer(dataDir, { DEMO_HINDCAST_YEARS: '1' });
-}, 180_000);
+}, 300_000);
 
 afterAll(async () => {
   await server?.kill();

@@ -37,7 +37,7 @@ describe('the data folder claim', () => {
     expect((await fetch(`${first.baseUrl}/api/health`)).status).toBe(200);
     // The claim still names the first server after the refusal.
     expect(JSON.parse(fs.readFileSync(path.join(dataDir, 'server.json'), 'utf8')).pid).toBe(first.pid);
-  });
+  }, 240_000);
 
   it('makes backup, restore, plan:once and another server wait for a server that is still starting', async () => {
     const dataDir = tempDataDir();
@@ -63,7 +63,7 @@ describe('the data folder claim', () => {
     expect(server.stderr).toContain(`Another Lullwatch server (pid ${process.pid})`);
     // Nothing opened the folder: no database was created in it.
     expect(fs.existsSync(path.join(dataDir, 'db'))).toBe(false);
-  });
+  }, 240_000);
 
   it('takes over a claim left by a process that is gone', async () => {
     const dataDir = tempDataDir();
@@ -75,5 +75,5 @@ describe('the data folder claim', () => {
     await server.stop();
     // A graceful stop gives the folder up.
     expect(fs.existsSync(path.join(dataDir, 'server.json'))).toBe(false);
-  });
+  }, 240_000);
 });

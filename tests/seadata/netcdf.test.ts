@@ -188,6 +188,96 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
   });
 });
 
+describe('NetCDF-4 groups (variables read wherever the writer put them)', () => {
+  it('root dimensions with variables in groups and a nested group: every variable found by its path, values as the script wrote them', async () => {
+    const f = await openFixture('point-groups.nc');
+    const plan = planCfImport(f);
+    // Layout written by make_fixtures.py point_in_groups(): /time, /waves, /waves/partitions, /atmosphere, /ocean.
+    expect(plan.time.name).toBe('time');
+    expect(Object.fromEntries(plan.choices.map((c) => [c.role, c.variable]))).toMatchObject({
+      hs: 'waves/hs',
+      wind: 'atmosphere/wspd',
+      'windSea.hs': 'waves/partitions/hs_ww',
+      'swell2.dir': 'waves/partitions/dir_sw2',
+      waterLevel: 'ocean/ssh',
+    });
+    const r = readCfPoint(f, plan, { index: [], waterLevelOffsetM: 0.7 });
+    expectSameAsCsv(r.records, 'point-groups.csv', ['hs', 'tp', 'dir', 'wind', 'windDir']);
+    const rows = expected('point-groups.csv');
+    rows.forEach((row, i) => {
+      for (const p of ['windSea', 'swell1', 'swell2'] as const) {
+        const s = r.partitions[p]!;
+        for (const [k, got] of [
+          ['hs', s.hs[i]],
+          ['tp', s.tp![i]],
+          ['dir', s.dir![i]],
+        ] as const) {
+          // float32 values: within float32's relative precision, directions scaled by 360 (see expectSameAsCsv).
+          expect(Math.abs(got - (row[`${p}.${k}`] as number)), `${p}.${k} at time index ${i}`).toBeLessThan(
+            1e-6 + 2e-7 * (k === 'dir' ? 360 : Math.abs(row[`${p}.${k}`] as number)),
+          );
+        }
+      }
+      expect(r.waterLevel![i]).toBeCloseTo((row.level_above_msl as number) + 0.7, 6);
+    });
+    // A column map may name a variable by its own name when only one group has it.
+    expect(planCfImport(f, { hs: 'hs' }).choices.find((c) => c.role === 'hs')).toMatchObject({ variable: 'waves/hs', via: 'column map' });
+  });
+
+  it('a grid whose dimensions, coordinates and variables all live in one group', async () => {
+    const f = await openFixture('grid-group.nc');
+    const plan = planCfImport(f);
+    expect(plan.time.name).toBe('model/time');
+    expect(plan.pointDims).toEqual(['model/lat', 'model/lon']);
+    const points = listGridPoints(f, plan);
+    // make_fixtures.py grid_in_group(): latitudes 50.0, 50.25; longitudes -6.25, -6.0.
+    expect(points.map((p) => [p.lat, p.lon])).toEqual([
+      [50, -6.25],
+      [50, -6],
+      [50.25, -6.25],
+      [50.25, -6],
+    ]);
+    for (const [j, i] of [
+      [0, 0],
+      [1, 1],
+    ]) {
+      expectSameAsCsv(readCfPoint(f, plan, { index: [j, i] }).records, `grid-group-j${j}-i${i}.csv`, ['hs', 'tp']);
+    }
+  });
+});
+
+describe('a total and partitions that disagree', () => {
+  it('scales the partitions to the given total where they differ by more than 5%, keeping their ratios (docs/domain.md#partitions)', () => {
+    // Written here by hand: three times; wind sea 0.6 m and swell 0.8 m give sqrt(0.36 + 0.64) = 1.0 m
+    // (energies add: common practice, no source). Totals: 1.0 (agrees), 1.04 (4%: kept), 2.0 (100%: scaled).
+    const values: Record<string, number[]> = {
+      time: [0, 1, 2],
+      hs: [1.0, 1.04, 2.0],
+      ww: [0.6, 0.6, 0.6],
+      sw: [0.8, 0.8, 0.8],
+    };
+    const names: Record<string, string> = {
+      hs: 'sea_surface_wave_significant_height',
+      ww: 'sea_surface_wind_wave_significant_height',
+      sw: 'sea_surface_primary_swell_wave_significant_height',
+    };
+    const file: NcFile = {
+      format: 'netcdf4',
+      variables: [
+        { name: 'time', dims: ['time'], shape: [3], attrs: { standard_name: 'time', units: 'hours since 2020-01-01' } },
+        ...Object.entries(names).map(([name, sn]) => ({ name, dims: ['time'], shape: [3], attrs: { standard_name: sn } })),
+      ],
+      readRaw: (name) => Float64Array.from(values[name]),
+    };
+    const r = readCfPoint(file, planCfImport(file), { index: [] });
+    expect(Array.from(r.records.hs)).toEqual([1.0, 1.04, 2.0]);
+    // Time index 2: both doubled (1.2 and 1.6 m, the ratio 0.75 kept); the others as given.
+    expect(Array.from(r.partitions.windSea!.hs).map((x) => +x.toFixed(12))).toEqual([0.6, 0.6, 1.2]);
+    expect(Array.from(r.partitions.swell1!.hs).map((x) => +x.toFixed(12))).toEqual([0.8, 0.8, 1.6]);
+    expect(r.notes.join(' ')).toMatch(/differ by more than 5% in 1 records \(first at time index 2/);
+  });
+});
+
 describe('2-D latitude and longitude (CF 5.2, a curvilinear grid)', () => {
   it('lists the points from 2-D coordinates named by the coordinates attribute and picks the nearest sea point', () => {
     // A 2×2 rotated grid written here by hand: lat(y, x), lon(y, x) in 0-360, one land point.

@@ -37,7 +37,7 @@ export interface ChildServer {
  * Starts `node --import tsx server/index.ts` (the server is this very process, so a SIGKILL
  * reaches it, unlike the tsx command that runs it in a grandchild) and waits for /api/health
  * to answer without `demo: 'loading'`
- * (120 s unless `startTimeoutMs` says otherwise) on a free port or the one given.
+ * (180 s unless `startTimeoutMs` says otherwise) on a free port or the one given.
  */
 export async function startServer(
   dataDir: string,
@@ -64,7 +64,7 @@ export async function startServer(
   child.stdout!.on('data', (d) => (out += d));
   child.stderr!.on('data', (d) => (out += d));
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
-  const deadline = Date.now() + (options.startTimeoutMs ?? 120_000);
+  const deadline = Date.now() + (options.startTimeoutMs ?? 180_000);
   for (;;) {
     if (child.exitCode !== null || child.signalCode !== null) throw new Error(`server exited early:\n${out}`);
     if (Date.now() > deadline) {
