@@ -383,18 +383,24 @@ export class CsvRecordReader {
     }
   }
 
-  private readValue(raw: string, c: ValueColumn): void {
+  /** The number in a cell, or NaN for a missing value or a refused cell (its issue recorded). */
+  private cellNumber(raw: string, column: string): number {
     const s = raw.trim();
     if (s === '') {
-      if (!this.missing.emptyIsMissing) this.v.rowIssue(c.name, raw, 'empty value (not in the missing-value codes)');
-      return;
+      if (!this.missing.emptyIsMissing) this.v.rowIssue(column, raw, 'empty value (not in the missing-value codes)');
+      return NaN;
     }
     const x = parseDecimal(s, this.decimalComma);
     if (Number.isNaN(x)) {
-      if (!this.missing.isMissingText(s)) this.v.rowIssue(c.name, raw, 'not a number');
-      return;
+      if (!this.missing.isMissingText(s)) this.v.rowIssue(column, raw, 'not a number');
+      return NaN;
     }
-    if (this.missing.isMissingNumber(x)) return;
+    return this.missing.isMissingNumber(x) ? NaN : x;
+  }
+
+  private readValue(raw: string, c: ValueColumn): void {
+    const x = this.cellNumber(raw, c.name);
+    if (Number.isNaN(x)) return;
     if (c.variable === WIND_INDEX && x === WIND_MISSING_VALUE) return;
     if (this.goingTo && (c.variable === DIR_INDEX || c.variable === WIND_DIR_INDEX) && x >= 0 && x <= 360) {
       // Going-to to coming-from; out-of-range values pass unchanged so the range check names them.
@@ -406,17 +412,8 @@ export class CsvRecordReader {
 
   /** An optional value (water level m, current speed m/s, current direction deg going-to). */
   private readExtra(raw: string, c: ExtraValueColumn): void {
-    const s = raw.trim();
-    if (s === '') {
-      if (!this.missing.emptyIsMissing) this.v.rowIssue(c.name, raw, 'empty value (not in the missing-value codes)');
-      return;
-    }
-    const x = parseDecimal(s, this.decimalComma);
-    if (Number.isNaN(x)) {
-      if (!this.missing.isMissingText(s)) this.v.rowIssue(c.name, raw, 'not a number');
-      return;
-    }
-    if (this.missing.isMissingNumber(x)) return;
+    const x = this.cellNumber(raw, c.name);
+    if (Number.isNaN(x)) return;
     // Coming-from to going-to; out-of-range values pass unchanged so the range check names them.
     const value = c.column === 'currentDir' && this.currentFrom && x >= 0 && x <= 360 ? (x + 180) % 360 : x;
     this.v.setExtraValue(c.index, c.column === 'currentDir' && value === 360 ? 0 : value, c.name, raw);

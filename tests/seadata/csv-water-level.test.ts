@@ -2,24 +2,9 @@
 // water level is (an import option, never guessed), current directions going-to, errors with line
 // and column.
 import { describe, expect, it } from 'vitest';
-import { CsvTextParser, ImportError, detectColumns, type CsvTextParserOptions, type ImportIssue } from '../../shared/seadata';
+import { issuesOf, parse } from './csv-helpers';
+import { detectColumns } from '../../shared/seadata';
 import { combineWaterLevel, WATER_LEVEL_SOURCES } from '../../shared/seadata/water-level';
-
-function parse(text: string, options: CsvTextParserOptions = {}) {
-  const p = new CsvTextParser(options);
-  p.push(text);
-  return p.end();
-}
-
-function issuesOf(text: string, options: CsvTextParserOptions = {}): ImportIssue[] {
-  try {
-    parse(text, options);
-  } catch (e) {
-    expect(e).toBeInstanceOf(ImportError);
-    return (e as ImportError).issues;
-  }
-  throw new Error('expected an ImportError');
-}
 
 describe('CSV water level and current columns', () => {
   it('detects the usual header names (common practice, no source)', () => {
