@@ -2,6 +2,7 @@
 import os from 'node:os';
 import { describeTideTransformBench, describeTransformBench, runTideTransformBench, runTransformBench } from './transform-bench';
 import { runEngineBench } from './engine-bench';
+import { runEnsembleBench } from './ensemble-bench';
 import { runImportBench } from './import-bench';
 import { runNetcdfBench } from './netcdf-bench';
 import { describeColdStart, measureColdStart } from './cold-start';
@@ -16,6 +17,8 @@ console.log(describeTransformBench(await runTransformBench()));
 console.log(describeTideTransformBench(await runTideTransformBench()));
 console.log('');
 await runEngineBench();
+console.log('');
+await runEnsembleBench();
 console.log('');
 await runImportBench();
 console.log('');

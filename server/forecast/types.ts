@@ -20,6 +20,11 @@ export interface ForecastIssue {
   /** Position the service answered for, deg east in [-180, 180]. */
   longitude: number;
   records: ForecastRecords;
+  /**
+   * Ensemble members beside the control (`records` is the control, member 0), each aligned with
+   * the control's times (the same `timeMs` array); absent or empty without an ensemble.
+   */
+  members?: { member: number; records: ForecastRecords }[];
 }
 
 export interface ForecastQuery {
@@ -27,6 +32,8 @@ export interface ForecastQuery {
   latitude: number;
   /** Data point longitude, deg east, -180..180. */
   longitude: number;
+  /** Ensemble members to ask for beside the control (0 or absent: none). A service without ensembles answers none. */
+  members?: number;
   /** Cancels the request; the promise then rejects with the signal's reason (not a ForecastServiceError). */
   signal?: AbortSignal;
 }
@@ -48,7 +55,7 @@ export interface ForecastProvider {
  */
 export interface ForecastAdapter {
   /** The request for a position, below the configured base URL (which ends with '/'). */
-  requestUrl(base: URL, position: { latitude: number; longitude: number }): URL;
+  requestUrl(base: URL, position: { latitude: number; longitude: number; members?: number }): URL;
   /**
    * Validates a JSON answer and converts it.
    * @throws ForecastServiceError('malformed') naming the first problems

@@ -7,10 +7,15 @@ import { HttpError } from '../http/errors';
 import { createDataset, latestDataset } from './datasets';
 import { toSeaSeries } from './sea-series';
 
+/** Ensemble members the client asks for beside the control (docs/domain.md#forecast-uncertainty). */
+export const ENSEMBLE_MEMBERS_ASKED = 20;
+
 export interface FetchedForecast {
   datasetId: string;
   issuedAt: string;
   records: number;
+  /** Ensemble members stored beside the control (0: the service sent none). */
+  members: number;
   /** false when this issue was already stored (nothing new). */
   isNew: boolean;
 }
@@ -35,7 +40,11 @@ export async function fetchLatestForecast(
   }
   let issue;
   try {
-    issue = await provider.fetchLatest({ latitude: p.dataPointLatitude, longitude: p.dataPointLongitude });
+    issue = await provider.fetchLatest({
+      latitude: p.dataPointLatitude,
+      longitude: p.dataPointLongitude,
+      members: ENSEMBLE_MEMBERS_ASKED,
+    });
   } catch (err) {
     if (err instanceof ForecastServiceError) {
       throw new HttpError('unavailable', `The forecast service failed: ${err.message} The previous forecast is kept.`, { code: err.code });
@@ -44,7 +53,13 @@ export async function fetchLatestForecast(
   }
   const previous = await latestDataset(db, projectId, 'forecast');
   if (previous?.issuedAt && previous.issuedAt.getTime() === issue.issuedAtMs && previous.sourceKind === 'service') {
-    return { datasetId: previous.id, issuedAt: previous.issuedAt.toISOString(), records: previous.recordCount, isNew: false };
+    return {
+      datasetId: previous.id,
+      issuedAt: previous.issuedAt.toISOString(),
+      records: previous.recordCount,
+      members: previous.ensembleMembers,
+      isNew: false,
+    };
   }
   const r = issue.records;
   // A surge the service gives is stored as the water level, a residual added to each worksite's
@@ -80,6 +95,14 @@ export async function fetchLatestForecast(
     },
     series,
     { source: provider.name, ...(hasSurge ? { waterLevelReference: 'residual' } : {}) },
+    (issue.members ?? []).map((m) => ({
+      member: m.member,
+      hs: m.records.hs,
+      tp: m.records.tp,
+      dir: m.records.dir,
+      wind: m.records.wind,
+      windDir: m.records.windDir,
+    })),
   );
-  return { datasetId: row.id, issuedAt: issuedAt.toISOString(), records: row.recordCount, isNew: true };
+  return { datasetId: row.id, issuedAt: issuedAt.toISOString(), records: row.recordCount, members: row.ensembleMembers, isNew: true };
 }

@@ -6,7 +6,7 @@ import {
   type OperationSpec,
   type SiteSeries as EngineSeries,
 } from '../../shared/engine';
-import { transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
+import { prepareSeaInput, transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
 import type { Db } from '../db/client';
 import { operation, projectAlpha, worksite } from '../db/schema';
 import type { SeaSeries } from './series-store';
@@ -180,4 +180,35 @@ export function transformForSite(series: SeaSeries, dataPointDepthM: number | nu
     recordSource: tide?.recordSource ?? null,
     engine: engineSeries(series, transformed, site, tide),
   };
+}
+
+/**
+ * One series (an ensemble member) at several worksites, only what the engine reads: the same chain
+ * as {@link transformForSite} (docs/domain.md#transformation), the series' distinct periods and
+ * directions found once and only Hs and the bed velocities written (the same values bit for bit).
+ * @returns the engine series per worksite id
+ */
+export function engineSeriesAtSites(
+  series: SeaSeries,
+  dataPointDepthM: number | null,
+  sites: readonly WorksiteRow[],
+): Map<string, EngineSeries> {
+  const input = { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir };
+  let prepared: ReturnType<typeof prepareSeaInput> | undefined;
+  const out = new Map<string, EngineSeries>();
+  for (const site of sites) {
+    const tide = siteTide(site, series);
+    const geometry = {
+      depthM: site.depthM,
+      shoreNormalDeg: site.shoreNormalDeg,
+      breakerIndex: site.breakerIndex,
+      transferTable: site.transferTable,
+    };
+    const source = { depthM: dataPointDepthM ?? Infinity };
+    const transformed = tide
+      ? transformToSite({ ...input, waterLevelM: tide.waterLevelM }, source, geometry)
+      : transformToSite(input, source, geometry, { prepared: (prepared ??= prepareSeaInput(input)), fields: 'engine' });
+    out.set(site.id, engineSeries(series, transformed, site, tide));
+  }
+  return out;
 }

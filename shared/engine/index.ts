@@ -34,6 +34,7 @@ export { MS_PER_HOUR, recordsForTr, runRemaining, sumDurations, trThresholdMs, w
 export { goStarts, nextGoStartIndex } from './go-starts';
 export { usableWindows, type WindowOptions } from './usable-windows';
 export { planOperation, type OperationPlan, type PlanOptions } from './plan-operation';
+export { ensembleChances, ensembleChancesMany, type EnsembleChances, type EnsembleScratch } from './ensemble-chance';
 
 // Calendar and hindcast statistics
 export { calendarIndex, zonedMonthStartMs, zoneOffsetMs, type CalendarIndex } from './calendar-index';

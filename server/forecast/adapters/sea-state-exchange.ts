@@ -23,8 +23,14 @@ export function exchangeToRecords(data: SeaStateExchange): ForecastRecords {
   const n = data.series.time.length;
   const timeMs = new Float64Array(n);
   for (let i = 0; i < n; i++) timeMs[i] = Date.parse(data.series.time[i]);
+  return columnsToRecords(timeMs, data.series);
+}
+
+/** One run's columns (the control's or a member's) on the given times. */
+function columnsToRecords(timeMs: Float64Array, columns: object): ForecastRecords {
+  const n = timeMs.length;
   const records = { timeMs } as ForecastRecords;
-  const wire = data.series as unknown as Record<string, (number | null)[] | undefined>;
+  const wire = columns as Record<string, (number | null)[] | undefined>;
   for (const key of EXCHANGE_SERIES_KEYS) {
     const spec: ExchangeSeriesSpec = EXCHANGE_SERIES[key];
     const values = wire[key];
@@ -41,10 +47,11 @@ export function exchangeToRecords(data: SeaStateExchange): ForecastRecords {
 }
 
 export const seaStateExchangeAdapter: ForecastAdapter = {
-  requestUrl(base, { latitude, longitude }) {
+  requestUrl(base, { latitude, longitude, members }) {
     const url = new URL(EXCHANGE_PATH, base);
     url.searchParams.set('lat', String(latitude));
     url.searchParams.set('lon', String(longitude));
+    if (members) url.searchParams.set('members', String(members));
     return url;
   },
   toIssue(json: unknown): ForecastIssue {
@@ -58,11 +65,15 @@ export const seaStateExchangeAdapter: ForecastAdapter = {
       );
     }
     const data = parsed.data;
+    const records = exchangeToRecords(data);
     return {
       issuedAtMs: Date.parse(data.issuedAt),
       latitude: data.position.lat,
       longitude: data.position.lon,
-      records: exchangeToRecords(data),
+      records,
+      members: (data.members ?? [])
+        .map((m) => ({ member: m.member, records: columnsToRecords(records.timeMs, m.series) }))
+        .sort((a, b) => a.member - b.member),
     };
   },
 };

@@ -6,6 +6,7 @@ import { WATER_LEVEL_SOURCE_WORDS } from '../../../../shared/seadata/water-level
 import { useEffect, useRef, type ReactNode } from 'react';
 import type { LimitCheck, OperationSitePlan } from '../../../../shared/api-types-plan';
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
+import { CHANCE_WORDS, chancePercent } from '../../../../shared/status-words';
 import { ErrorNotice, Spinner, Term } from '../../../components/ui';
 import { useHourChain, type HourChain } from '../api/get-hour-chain';
 import { STATUS_META, flagWords, fmt, fmtDir, formatIn, limitWord } from './board-format';
@@ -68,6 +69,17 @@ export function ChainPanel({ projectId, plan, index, timeMs, alpha, datasetId, c
               <span>limited by {limitWord(plan.limiting[index])}</span>
             ) : null}
           </p>
+          {plan.chance ? (
+            <p className="mt-1 text-sm" data-testid="chain-chance">
+              Ensemble: {CHANCE_WORDS.hour} <strong>{chancePercent(plan.chance[index])}</strong>
+              {plan.startChance ? (
+                <>
+                  {' '}
+                  · {CHANCE_WORDS.window} from this hour <strong>{chancePercent(plan.startChance[index])}</strong>
+                </>
+              ) : null}
+            </p>
+          ) : null}
         </div>
         <button
           type="button"
@@ -277,6 +289,25 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
           Result: <strong>{STATUS_META[chain.status].word}</strong>.
         </p>
       </Step>
+      {chain.ensemble ? (
+        <Step n={5} title={`Ensemble spread at the worksite (${chain.ensemble.runs} runs)`}>
+          <p className="mb-1 text-xs text-ink-soft">
+            Hs of the control and every member through the same chain. Chances count the runs on OPLIM (no α); the status above is the
+            control&rsquo;s and still decides go or no-go.
+          </p>
+          <div data-testid="chain-spread">
+            <Facts
+              rows={[
+                ['Hs min', fmt(chain.ensemble.hs.min, 2, 'm')],
+                ['Hs P10', fmt(chain.ensemble.hs.p10, 2, 'm')],
+                ['Hs P50', fmt(chain.ensemble.hs.p50, 2, 'm')],
+                ['Hs P90', fmt(chain.ensemble.hs.p90, 2, 'm')],
+                ['Hs max', fmt(chain.ensemble.hs.max, 2, 'm')],
+              ]}
+            />
+          </div>
+        </Step>
+      ) : null}
       <p className="mt-1 text-xs text-ink-soft">{TRANSFORMATION_CAUTION}</p>
     </div>
   );
