@@ -1,6 +1,6 @@
 // `npm run bench`: speed figures of the hot paths, printed, never asserted in unit tests.
 import os from 'node:os';
-import { describeTransformBench, runTransformBench } from './transform-bench';
+import { describeTideTransformBench, describeTransformBench, runTideTransformBench, runTransformBench } from './transform-bench';
 import { runEngineBench } from './engine-bench';
 import { runEnsembleBench } from './ensemble-bench';
 import { runImportBench } from './import-bench';
@@ -14,6 +14,7 @@ console.log(
     .join(' ')}\n`,
 );
 console.log(describeTransformBench(await runTransformBench()));
+console.log(describeTideTransformBench(await runTideTransformBench()));
 console.log('');
 await runEngineBench();
 console.log('');

@@ -184,7 +184,58 @@ export function describeTransformBench(r: TransformBenchResult): string {
   );
 }
 
+/**
+ * A synthetic water level for the tide figure, m: an invented 1.8 m M2 and 0.6 m S2 around mean sea
+ * level (M2 28.9841042 deg/h, S2 30 deg/h, Schureman 1958), one value per hourly record.
+ */
+export function syntheticWaterLevel(records: number = BENCH_RECORDS): Float64Array {
+  const deg = Math.PI / 180;
+  return Float64Array.from({ length: records }, (_, i) => 1.8 * Math.cos(28.9841042 * i * deg) + 0.6 * Math.cos(30 * i * deg + 1));
+}
+
+/** Result of `runTideTransformBench`: median pass times (all records to all five worksites), ms. */
+export interface TideTransformBenchResult {
+  fixedMs: number;
+  tideMs: number;
+}
+
+/**
+ * The transformation with the tide on (a water level per record, docs/domain.md#tide) against the
+ * fixed depth, output arrays reused, median of `BENCH_RUNS` passes each.
+ */
+export async function runTideTransformBench(): Promise<TideTransformBenchResult> {
+  const input = syntheticSeries();
+  const tidal = { ...input, waterLevelM: syntheticWaterLevel() };
+  const reuse = BENCH_SITES.map(() => createSiteSeries(BENCH_RECORDS));
+  const timed = async (sea: SeaSeriesInput): Promise<number> => {
+    BENCH_SITES.forEach((site, s) => transformToSite(sea, BENCH_SOURCE, site, { out: reuse[s] }));
+    const times: number[] = [];
+    for (let run = 0; run < BENCH_RUNS; run++) {
+      const t0 = performance.now();
+      BENCH_SITES.forEach((site, s) => transformToSite(sea, BENCH_SOURCE, site, { out: reuse[s] }));
+      times.push(performance.now() - t0);
+      await Promise.resolve();
+    }
+    return median(times);
+  };
+  return { fixedMs: await timed(input), tideMs: await timed(tidal) };
+}
+
+/** One line of the tide figure, printed by `npm run bench`. */
+export function describeTideTransformBench(r: TideTransformBenchResult): string {
+  const transforms = BENCH_RECORDS * BENCH_SITES.length;
+  return (
+    `transform with the tide: ${BENCH_RECORDS} hourly records x ${BENCH_SITES.length} worksites, median of ${BENCH_RUNS} runs: ` +
+    `tide off ${r.fixedMs.toFixed(1)} ms (${(transforms / r.fixedMs / 1e3).toFixed(1)} million/s), ` +
+    `tide on ${r.tideMs.toFixed(1)} ms (${(transforms / r.tideMs / 1e3).toFixed(1)} million/s), ` +
+    `${(r.tideMs / r.fixedMs).toFixed(1)}x the fixed-depth time`
+  );
+}
+
 const invokedDirectly = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
 if (invokedDirectly) {
-  void runTransformBench().then((r) => console.log(describeTransformBench(r)));
+  void runTransformBench()
+    .then((r) => console.log(describeTransformBench(r)))
+    .then(runTideTransformBench)
+    .then((r) => console.log(describeTideTransformBench(r)));
 }

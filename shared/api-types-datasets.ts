@@ -20,6 +20,12 @@ export interface DatasetSummary {
    * service, datasets stored before this was asked).
    */
   wind: { anemometerHeightM: number | null; exponent: number | null };
+  /**
+   * What the dataset's water-level column holds (docs/domain.md#tide): 'chart-datum' (m above the
+   * worksite's chart datum, wins over the predicted tide) or 'residual' (surge added to it); null
+   * without a water-level column.
+   */
+  waterLevelReference: 'chart-datum' | 'residual' | null;
   /** Records a regular series of this step would hold from start to end. */
   expectedRecords: number;
   /** Of those, rows absent from the data altogether (not the same as a row with a missing value). */

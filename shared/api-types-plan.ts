@@ -1,3 +1,4 @@
+import type { WaterLevelSource } from './seadata/water-level';
 // Plan answers shared by the API and the client.
 import type { HourStatus, LimitCheck } from './engine/explain-hour';
 import type { TransformChain } from './waves';
@@ -81,13 +82,17 @@ export interface HourChainAnswer {
   transform: TransformChain;
   /**
    * depthM: the chart depth; waterLevel: m above chart datum (null without a tide); depth: the
-   * still-water depth h = depthM + waterLevel the chain used (docs/domain.md#tide); current: m/s or null.
+   * still-water depth h = depthM + waterLevel the chain used (docs/domain.md#tide); waterLevelSource:
+   * where the water level came from; current: m/s or null, as the dataset gives it (surface or
+   * depth-averaged); currentDir: degrees the water flows towards (oceanographic convention), or null.
    */
   site: {
     depthM: number;
     waterLevel: number | null;
+    waterLevelSource: WaterLevelSource;
     depth: number;
     current: number | null;
+    currentDir: number | null;
     hs: number | null;
     bedVelocityLinear: number | null;
     bedVelocitySoulsby: number | null;
@@ -134,8 +139,10 @@ export interface ConditionsAnswer {
   flags: number[];
   /** Water level above chart datum, m (null without a tide), and the still-water depth h, m (docs/domain.md#tide). */
   waterLevel: (number | null)[];
+  /** Where each record's water level came from (docs/domain.md#tide). */
+  waterLevelSource: WaterLevelSource[];
   depth: (number | null)[];
-  /** Current speed, m/s (null where unknown). */
+  /** Current speed, m/s (null where unknown), as the dataset gives it. */
   current: (number | null)[];
   /**
    * Worksite Hs of the swell (both swells together) and of the wind sea, m, where the dataset gives
@@ -143,6 +150,8 @@ export interface ConditionsAnswer {
    */
   swellHs?: (number | null)[];
   windSeaHs?: (number | null)[];
+  /** Current direction, degrees the water flows towards (oceanographic convention; null where unknown). */
+  currentDir: (number | null)[];
   operations: {
     id: string;
     name: string;

@@ -26,6 +26,38 @@ export interface SiteResponse {
   updatedAt: string;
 }
 
+/** A station of the public tide database as the API shows it (docs/domain.md#tide). */
+export interface TideStationInfo {
+  id: string;
+  name: string;
+  /** Great-circle distance from the worksite, km (null when the worksite has no position). */
+  distanceKm: number | null;
+  /** Chart datum the station's levels are referred to (LAT, MLLW, ...). */
+  datum: string | null;
+  latitude: number;
+  longitude: number;
+  kind: 'tide' | 'current';
+  /** reference (own constants) or subordinate (offsets from a reference station). */
+  type: 'reference' | 'subordinate';
+  constituents: number;
+  source: string;
+  /** The notice the database asks to be shown with the station (its NOTICE and attribution). */
+  attribution: string;
+  warnings: string[];
+}
+
+/** The predicted tide (GET …/sites/:siteId/tide and POST …/tide-preview): levels on a grid and the extremes. */
+export interface TideAnswer {
+  times: string[];
+  /** m above chart datum */
+  waterLevel: number[];
+  extremes: { time: string; level: number; kind: 'high' | 'low' }[];
+  datum: string;
+  station: TideStationInfo | null;
+  stepMinutes: number;
+  cautions: readonly string[];
+}
+
 /** An operation with its limits (OPLIM). */
 export interface OperationResponse {
   id: string;

@@ -143,6 +143,8 @@ interface FakeRecord {
   eDir: number;
   /** The partitions with the same errors (Hs 0 = absent; Tp and direction null then). */
   parts: Record<'windSea' | 'swell1' | 'swell2', { hs: number; tp: number | null; dir: number | null }>;
+  /** Surge residual, m (invented, see {@link fakeSurgeM}). */
+  surge: number;
 }
 
 /**
@@ -164,6 +166,7 @@ const FAKE_VALUES: { [K in ExchangeSeriesKey]?: (r: FakeRecord) => number | null
   'swell2.hs': (r) => r.parts.swell2.hs,
   'swell2.tp': (r) => r.parts.swell2.tp,
   'swell2.dir': (r) => r.parts.swell2.dir,
+  surge: (r) => r.surge,
 };
 
 /**
@@ -190,6 +193,18 @@ function fakePartition(
     tp: Math.min(40, Math.max(0.5, Math.round(tpTrue * scaleTp * 10) / 10)),
     dir: Math.round(wrap360(dirTrue + eDir)) % 360,
   };
+}
+
+/**
+ * The fake's invented surge residual at a valid time, m (docs/domain.md#forecast-service): a smooth
+ * field of at most ±0.3 m over 30-hour lattices at the grid node, plus a forecast error of at most
+ * ±(0.02 + 0.01 per day of lead) m that changes from issue to issue like the other errors. Small
+ * and smooth on purpose: it only has to show that a residual reaches the worksite's water level.
+ */
+export function fakeSurgeM(truthSeed: number, errSeed: number, issueIndex: number, tH: number, leadDays: number): number {
+  const truth = 0.3 * smoothNoise(mix32(truthSeed ^ 0x3c6ef372), 9, tH, 30);
+  const error = (0.02 + 0.01 * leadDays) * errorField(errSeed, 6, issueIndex, tH, 30);
+  return Math.round((truth + error) * 100) / 100;
 }
 
 /**
@@ -288,7 +303,9 @@ function forecastColumns(
       swell1: fakePartition(truthParts.swell1, i0, f, near, sHs, sTp, eDir),
       swell2: fakePartition(truthParts.swell2, i0, f, near, sHs, sTp, eDir),
     };
-    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir, parts };
+    // The surge's own field is seeded from the error seed (the grid node's, or an ensemble member's).
+    const surge = fakeSurgeM(errSeed, errSeed, issueIndex, tH, leadDays);
+    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir, parts, surge };
     for (const [key, column] of columns) column[r] = FAKE_VALUES[key]!(record);
   }
   return Object.fromEntries(columns);

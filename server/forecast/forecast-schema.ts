@@ -71,6 +71,8 @@ export const EXCHANGE_SERIES = {
   'swell2.hs': { label: 'secondary swell Hs', unit: 'm', min: 0, max: 25, direction: false, required: false },
   'swell2.tp': { label: 'secondary swell peak period', unit: 's', min: 0.5, max: 40, direction: false, required: false },
   'swell2.dir': { label: 'secondary swell direction, coming from', unit: 'deg', min: 0, max: 360, direction: true, required: false },
+  /** Storm surge: the residual water level to add to the predicted astronomical tide (docs/domain.md#tide). */
+  surge: { label: 'surge residual, added to the predicted tide', unit: 'm', min: -5, max: 5, direction: false, required: false },
 } as const satisfies Record<string, ExchangeSeriesSpec>;
 
 export type ExchangeSeriesKey = keyof typeof EXCHANGE_SERIES;

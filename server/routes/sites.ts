@@ -1,5 +1,12 @@
 import { Router } from 'express';
-import { TideQuery, WorksiteInput, WorksitePatchInput } from '../../shared/schemas/sites';
+import {
+  TIDE_PREVIEW_DAYS,
+  TidePreviewInput,
+  TideQuery,
+  TideStationsQuery,
+  WorksiteInput,
+  WorksitePatchInput,
+} from '../../shared/schemas/sites';
 import type { AppDeps } from '../deps';
 import { HttpError, parseInput } from '../http/errors';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
@@ -75,6 +82,33 @@ export function sitesRoutes({ db, clock }: AppDeps): Router {
         { field: 'latitude', message: 'Set the worksite position first' },
       ]);
     res.json({ stations: nearbyTideStations(site.latitude, site.longitude) });
+  });
+
+  /**
+   * POST /api/projects/:projectId/tide-preview: the tide the worksite form is editing, predicted
+   * for the next 3 days from `from` (default now), before it is saved; 400 naming the field for an
+   * unknown constituent or station. Changes nothing.
+   */
+  router.post('/projects/:projectId/tide-preview', async (req, res) => {
+    await requireCoordinator(db, req, req.params.projectId);
+    const input = parseInput(TidePreviewInput, req.body);
+    const fromMs = input.from ? Date.parse(input.from) : Math.floor(clock().getTime() / 3_600_000) * 3_600_000;
+    const answer = tideAnswer(input.tide, input, fromMs, fromMs + TIDE_PREVIEW_DAYS * 86_400_000);
+    if (!answer)
+      throw new HttpError('validation', 'Invalid body: tide.source: choose constants or a station to preview', [
+        { field: 'tide.source', message: 'Choose constants or a station to preview' },
+      ]);
+    res.json(answer);
+  });
+
+  /**
+   * GET /api/projects/:projectId/tide-stations?latitude=&longitude=: stations of the public tide
+   * database nearest a position (at most 5 within 200 km), for a worksite not yet saved.
+   */
+  router.get('/projects/:projectId/tide-stations', async (req, res) => {
+    await requireProjectMember(db, req, req.params.projectId);
+    const q = parseInput(TideStationsQuery, req.query, 'query');
+    res.json({ stations: nearbyTideStations(q.latitude, q.longitude) });
   });
 
   return router;

@@ -231,7 +231,7 @@ const FLAG_MEMO_BYTES = 16 * 1024 * 1024;
 async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs: Pair[], alpha: boolean): Promise<Map<string, Uint8Array>> {
   const wanted = new Set(pairs.map(pairKey));
   const key = createHash('sha256')
-    .update(JSON.stringify([row.id, limitsVersion(setup, row.dataPointDepthM), alpha, [...wanted].sort()]))
+    .update(JSON.stringify([row.id, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), alpha, [...wanted].sort()]))
     .digest('hex');
   let memo = flagMemos.get(db);
   if (!memo)

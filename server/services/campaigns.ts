@@ -202,7 +202,7 @@ export async function simulateProjectCampaign(
   // the workability statistics (a repeat view, or another member's, costs no recomputation). The
   // finish dates below depend on the clock and are computed on every request.
   const version = createHash('sha256')
-    .update(JSON.stringify([SIMULATION_FORMAT, limitsVersion(setup, row.dataPointDepthM), c.steps, c.timeZone]))
+    .update(JSON.stringify([SIMULATION_FORMAT, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), c.steps, c.timeZone]))
     .digest('hex')
     .slice(0, 32);
   const steps = c.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId, tpopH: ops.get(s.operationId)!.tpopH }));

@@ -192,6 +192,7 @@ export async function importUploadedFile(
       issuedAt: form.kind === 'forecast' ? new Date(result.records.timeMs[0]) : null,
       anemometerHeightM: windHeight,
       windExponent,
+      waterLevelReference: form.waterLevelReference ?? null,
     },
     series,
     {
@@ -201,6 +202,8 @@ export async function importUploadedFile(
       anemometerHeightM: windHeight,
       windExponent,
       ...(format === 'csv' ? { directionConvention: form.directionConvention } : {}),
+      ...(series.extra.waterLevel ? { waterLevelReference: form.waterLevelReference } : {}),
+      ...(series.extra.currentDir ? { currentDirConvention: form.currentDirConvention } : {}),
       ...(members.length > 0 ? { ensembleMembers: members.length } : {}),
     },
     members,

@@ -28,6 +28,8 @@ export interface DatasetMeta {
   /** Anemometer height, m (10 = already at 10 m), and the power-law exponent used; null when not stated. */
   anemometerHeightM?: number | null;
   windExponent?: number | null;
+  /** What the water-level column holds; null without one (docs/domain.md#tide). */
+  waterLevelReference?: 'chart-datum' | 'residual' | null;
 }
 
 /**
@@ -53,6 +55,7 @@ export async function createDataset(
         issuedAt: meta.issuedAt ?? null,
         anemometerHeightM: meta.anemometerHeightM ?? null,
         windExponent: meta.windExponent ?? null,
+        waterLevelReference: series.extra.waterLevel ? (meta.waterLevelReference ?? null) : null,
         stepMinutes: info.stepMinutes,
         startAt: new Date(series.timeMs[0]),
         endAt: new Date(series.timeMs[series.timeMs.length - 1]),
@@ -105,6 +108,7 @@ export function toSummary(r: DatasetRow): DatasetSummary {
     derived: r.derived,
     missingShare: r.recordCount ? (r.missing.hs ?? 0) / r.recordCount : 0,
     wind: { anemometerHeightM: r.anemometerHeightM, exponent: r.windExponent },
+    waterLevelReference: r.waterLevelReference ?? null,
     expectedRecords: grid.expected,
     absentRecords: grid.absent,
     hsGapShare: grid.expected ? (hsMissing + grid.absent) / grid.expected : 0,

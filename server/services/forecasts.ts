@@ -63,12 +63,17 @@ export async function fetchLatestForecast(
     };
   }
   const r = issue.records;
-  // Partitions the service gave (docs/domain.md#partitions) go to the optional columns.
+  // Partitions the service gave (docs/domain.md#partitions) go to the optional columns; a surge is
+  // stored as the water level, a residual added to each worksite's predicted tide
+  // (docs/domain.md#tide); an answer without it stores no water level.
   const extra: ExtraSeries = {};
   for (const c of EXTRA_COLUMNS) {
     const values = (r as Partial<Record<string, Float64Array>>)[c];
     if (values) extra[c] = values;
   }
+  const surge = r.surge;
+  const hasSurge = surge !== undefined && surge.some((x) => x === x);
+  if (hasSurge) extra.waterLevel = surge;
   const series = toSeaSeries({ timeMs: r.timeMs, hs: r.hs, tp: r.tp, dir: r.dir, wind: r.wind, windDir: r.windDir, extra });
   const issuedAt = new Date(issue.issuedAtMs);
   const row = await createDataset(
@@ -87,9 +92,10 @@ export async function fetchLatestForecast(
       sourceKind: 'service',
       format: provider.name,
       issuedAt,
+      waterLevelReference: hasSurge ? 'residual' : null,
     },
     series,
-    { source: provider.name },
+    { source: provider.name, ...(hasSurge ? { waterLevelReference: 'residual' } : {}) },
     (issue.members ?? []).map((m) => ({
       member: m.member,
       hs: m.records.hs,

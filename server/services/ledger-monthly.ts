@@ -70,7 +70,7 @@ async function expectationsFor(
   hindcast: DatasetRow,
   alpha: boolean,
 ): Promise<LedgerExpectation[]> {
-  const version = limitsVersion(setup, hindcast.dataPointDepthM);
+  const version = limitsVersion(setup, hindcast.dataPointDepthM, hindcast.waterLevelReference);
   return cachedStats(db, projectId, hindcast.id, version, alpha ? 'ledger-alpha' : 'ledger', async () =>
     // On an engine worker thread (engine-pool.ts).
     runEngineTask('ledgerExpectations', computeExpectations, await datasetSeries(db, hindcast.id), hindcast, setup, alpha),

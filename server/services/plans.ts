@@ -1,3 +1,4 @@
+import { WATER_LEVEL_SOURCES } from '../../shared/seadata/water-level';
 import {
   LIMIT_NAMES,
   STATUS,
@@ -332,8 +333,8 @@ export async function hourChain(
   let i = -1;
   for (let k = 0; k < series.timeMs.length; k++) if (series.timeMs[k] <= tMs && tMs < series.timeMs[k] + dur[k]) i = k;
   if (i < 0) throw new HttpError('not_found', 'No record at that time');
-  // The water level of the hour (the predicted tide; docs/domain.md#tide) and the extremes for a tide window.
-  const tide = siteTide(site, series.timeMs);
+  // The water level of the hour (a dataset level, the predicted tide, or both; docs/domain.md#tide) and the extremes for a tide window.
+  const tide = siteTide(site, series);
   const waterLevel = tide ? tide.waterLevelM[i] : null;
   const chain = transformOne(
     { hsM: series.hs[i], tpS: series.tp[i], tzS: series.tz[i], dirDeg: series.dir[i], waterLevelM: waterLevel },
@@ -389,9 +390,10 @@ export async function hourChain(
       windMps: series.wind[i],
       depthM: chain.depthM,
       timeMs: series.timeMs[i],
-      ...(tide ? { tide: tide.tide } : {}),
+      ...(tide?.tide ? { tide: tide.tide } : {}),
       ...(hourPartitions ? { partitions: hourPartitions as NonNullable<Parameters<typeof explainHour>[0]['partitions']> } : {}),
       ...(responsePartitions ? { responsePartitions } : {}),
+      ...(series.extra.currentSpeed ? { currentMps: series.extra.currentSpeed[i] } : {}),
     },
     spec,
     setup.alphaTable,
@@ -413,8 +415,10 @@ export async function hourChain(
     site: {
       depthM: site.depthM,
       waterLevel: waterLevel === null ? null : v(waterLevel),
+      waterLevelSource: tide ? WATER_LEVEL_SOURCES[tide.recordSource[i]] : 'none',
       depth: chain.depthM,
-      current: null,
+      current: series.extra.currentSpeed ? v(series.extra.currentSpeed[i]) : null,
+      currentDir: series.extra.currentDir ? v(series.extra.currentDir[i]) : null,
       hs: v(siteHs),
       bedVelocityLinear: v(siteBedLinear),
       bedVelocitySoulsby: v(siteBedSoulsby),
@@ -475,8 +479,10 @@ export async function siteConditions(
     bedVelocitySoulsby: [],
     flags: [],
     waterLevel: [],
+    waterLevelSource: [],
     depth: [],
     current: [],
+    currentDir: [],
     operations: [],
   };
   if (!row) return empty;
@@ -503,7 +509,11 @@ export async function siteConditions(
     flags: Array.from(t.transformed.flags),
     waterLevel: t.waterLevelM ? col(t.waterLevelM) : Array.from(series.timeMs, () => null),
     depth: col(t.engine.depthM ?? new Float64Array(series.timeMs.length).fill(site.depthM)),
-    current: Array.from(series.timeMs, () => null),
+    waterLevelSource: t.recordSource
+      ? Array.from(t.recordSource, (k) => WATER_LEVEL_SOURCES[k])
+      : Array.from(series.timeMs, () => 'none' as const),
+    current: series.extra.currentSpeed ? col(series.extra.currentSpeed) : Array.from(series.timeMs, () => null),
+    currentDir: series.extra.currentDir ? col(series.extra.currentDir) : Array.from(series.timeMs, () => null),
     operations: setup.operations
       .filter((o) => sitesOf(o, setup.sites).some((s) => s.id === site.id))
       .map((o) => {

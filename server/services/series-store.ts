@@ -1,7 +1,8 @@
 import { and, asc, eq, gte, lte } from 'drizzle-orm';
 import { EXTRA_COLUMNS, isExtraColumn, presentExtraColumns, sliceExtra, type ExtraSeries } from '../../shared/seadata/extra-columns';
 import type { Db } from '../db/client';
-import { datasetChunk } from '../db/schema';
+import { dataset, datasetChunk } from '../db/schema';
+import type { WaterLevelReference } from '../../shared/seadata/water-level';
 
 /** Records per stored chunk: about one year of hourly records. */
 export const CHUNK_RECORDS = 8784;
@@ -20,6 +21,11 @@ export interface SeaSeries {
   givenPeriods: Uint8Array;
   /** Optional columns the dataset has (water level, current, partitions); see extra-columns.ts. */
   extra: ExtraSeries;
+  /**
+   * What `extra.waterLevel` holds (docs/domain.md#tide): m above the worksite's chart datum, or a
+   * residual added to the predicted tide; set by `readSeries` from the dataset when it has one.
+   */
+  waterLevelReference?: WaterLevelReference;
 }
 
 export const VALUE_COLUMNS = ['hs', 'tp', 'tz', 'te', 'dir', 'wind', 'windDir'] as const;
@@ -104,6 +110,10 @@ export async function readSeries(db: Db, datasetId: string, range: { fromMs?: nu
     }
     offset += c.count;
   }
+  if (out.extra.waterLevel) {
+    const [meta] = await db.select({ ref: dataset.waterLevelReference }).from(dataset).where(eq(dataset.id, datasetId));
+    if (meta?.ref) out.waterLevelReference = meta.ref;
+  }
   if (range.fromMs === undefined && range.toMs === undefined) return out;
   let lo = 0;
   let hi = total;
@@ -124,6 +134,7 @@ export function sliceSeries(s: SeaSeries, lo: number, hi: number): SeaSeries {
     windDir: s.windDir.slice(lo, hi),
     givenPeriods: s.givenPeriods.slice(lo, hi),
     extra: sliceExtra(s.extra, lo, hi),
+    ...(s.waterLevelReference ? { waterLevelReference: s.waterLevelReference } : {}),
   };
 }
 

@@ -22,6 +22,7 @@ import type { SeaPartitionSeries } from '../../shared/response';
 import type { SeaSeries } from './series-store';
 import { predictExtremes, predictLevels, tidePredictor, type TideStationInfo } from './tide';
 import type { TideExtremes } from '../../shared/engine';
+import { combineWaterLevel, WATER_LEVEL_SOURCES, type WaterLevelSource } from '../../shared/seadata/water-level';
 
 export type WorksiteRow = typeof worksite.$inferSelect;
 export type OperationRow = typeof operation.$inferSelect;
@@ -122,43 +123,76 @@ export interface TransformedSite {
   waterLevelM: Float64Array | null;
   /** Where the water level came from. */
   tideSource: SiteTide['source'] | null;
+  /** Each record's water-level source (index into WATER_LEVEL_SOURCES), or null without a water level. */
+  recordSource: Uint8Array | null;
 }
 
 /** A worksite's water level over a series and the predicted extremes around it (docs/domain.md#tide). */
 export interface SiteTide {
-  /** m above the worksite's chart datum, one per record. */
+  /** m above the worksite's chart datum, one per record (NaN: unknown, the record is missing). */
   waterLevelM: Float64Array;
-  tide: TideExtremes;
-  /** 'predicted': the harmonic prediction (the dataset has no water level). */
-  source: 'predicted';
+  /** Predicted high and low waters around the series; null without a tide set (tide windows find no data). */
+  tide: TideExtremes | null;
+  /**
+   * Where the water level came from (docs/domain.md#tide): 'predicted' (the harmonic prediction),
+   * 'dataset' (the dataset's level referred to chart datum, where it has values) or
+   * 'predicted+residual' (the prediction plus the dataset's surge).
+   */
+  source: Exclude<WaterLevelSource, 'none'>;
+  /** Each record's source, an index into WATER_LEVEL_SOURCES. */
+  recordSource: Uint8Array;
   station: TideStationInfo | null;
+  /** Changes whenever the levels would (tide constants and the dataset's water level), for cache keys. */
+  key: string;
 }
 
 /** Extremes are predicted this far beyond the series, so a tide window (at most 12 h either side) finds its high or low water. */
 const EXTREME_PAD_MS = 13 * 3_600_000;
 const tideCache = new WeakMap<Float64Array, Map<string, SiteTide>>();
 
+/** The series a worksite's water level is read from: its times, and its water-level column when it has one. */
+export type LevelSeries = Pick<SeaSeries, 'timeMs' | 'extra' | 'waterLevelReference'>;
+
 /**
  * The worksite's water level at every record time and the predicted high and low waters around
- * them, or null when the worksite has no tide. Cached per time array and tide constants.
+ * them (docs/domain.md#tide), or null when neither the worksite has a tide nor the dataset a water
+ * level referred to chart datum. A dataset level (chart datum) wins over the prediction; a residual
+ * is added to it (`combineWaterLevel`). Cached per time array (or water-level column) and tide constants.
  */
-export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitude'>, timeMs: Float64Array): SiteTide | null {
+export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitude'>, series: LevelSeries): SiteTide | null {
+  const timeMs = series.timeMs;
+  if (timeMs.length === 0) return null;
   const p = tidePredictor(site.tide, site);
-  if (!p || timeMs.length === 0) return null;
-  let perSeries = tideCache.get(timeMs);
+  const column = series.extra.waterLevel && series.waterLevelReference ? series.extra.waterLevel : null;
+  if (!p && (!column || series.waterLevelReference !== 'chart-datum')) return null;
+  const cacheOn = column ?? timeMs;
+  let perSeries = tideCache.get(cacheOn);
   if (!perSeries) {
     perSeries = new Map();
-    tideCache.set(timeMs, perSeries);
+    tideCache.set(cacheOn, perSeries);
   }
-  const hit = perSeries.get(p.key);
-  if (hit) return hit;
+  const key = `${p?.key ?? 'none'}|${column ? series.waterLevelReference : 'no-level'}`;
+  const hit = perSeries.get(key);
+  if (hit && hit.waterLevelM.length === timeMs.length) return hit;
+  const predicted = p ? predictLevels(p, timeMs) : null;
+  const combined = combineWaterLevel(predicted, column ? { values: column, reference: series.waterLevelReference! } : null)!;
+  const counts = new Uint32Array(WATER_LEVEL_SOURCES.length);
+  for (let i = 0; i < combined.source.length; i++) counts[combined.source[i]]++;
+  const source: SiteTide['source'] =
+    counts[WATER_LEVEL_SOURCES.indexOf('dataset')] > 0
+      ? 'dataset'
+      : counts[WATER_LEVEL_SOURCES.indexOf('predicted+residual')] > 0
+        ? 'predicted+residual'
+        : 'predicted';
   const value: SiteTide = {
-    waterLevelM: predictLevels(p, timeMs),
-    tide: predictExtremes(p, timeMs[0] - EXTREME_PAD_MS, timeMs[timeMs.length - 1] + EXTREME_PAD_MS),
-    source: 'predicted',
-    station: p.station,
+    waterLevelM: combined.levelM,
+    tide: p ? predictExtremes(p, timeMs[0] - EXTREME_PAD_MS, timeMs[timeMs.length - 1] + EXTREME_PAD_MS) : null,
+    source,
+    recordSource: combined.source,
+    station: p?.station ?? null,
+    key,
   };
-  perSeries.set(p.key, value);
+  perSeries.set(key, value);
   return value;
 }
 
@@ -184,8 +218,10 @@ export function engineSeries(
     windMps: series.wind,
     // With a tide the transformation wrote h(t); a reused `out` may hold an earlier worksite's, so only then.
     depthM: tide && transformed.depthM ? transformed.depthM : new Float64Array(series.timeMs.length).fill(site.depthM),
-    ...(tide ? { tide: tide.tide } : {}),
+    ...(tide?.tide ? { tide: tide.tide } : {}),
     ...(partitioned ? { partitions: (transformed as TransformedSeries).partitions } : {}),
+    // The dataset's current speed, m/s, as given (docs/domain.md#tide); without it a current limit finds no data.
+    ...(series.extra.currentSpeed ? { currentMps: series.extra.currentSpeed } : {}),
     responsePartitions: worksitePartitions(series, transformed),
   };
 }
@@ -218,7 +254,7 @@ export function partitionInputOf(extra: ExtraSeries, length: number): PartitionI
  * and packs what the engine needs; `transformed.partitions` holds the worksite partitions. `dataPointDepthM` null means deep water.
  */
 export function transformForSite(series: SeaSeries, dataPointDepthM: number | null, site: WorksiteRow): TransformedSite {
-  const tide = siteTide(site, series.timeMs);
+  const tide = siteTide(site, series);
   const transformed = transformPartitionedToSite(
     { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir, waterLevelM: tide?.waterLevelM ?? null },
     partitionInputOf(series.extra, series.timeMs.length),
@@ -230,6 +266,7 @@ export function transformForSite(series: SeaSeries, dataPointDepthM: number | nu
     transformed,
     waterLevelM: tide?.waterLevelM ?? null,
     tideSource: tide?.source ?? null,
+    recordSource: tide?.recordSource ?? null,
     engine: engineSeries(series, transformed, site, tide),
   };
 }
@@ -251,7 +288,7 @@ export function engineSeriesAtSites(
   let prepared: ReturnType<typeof prepareSeaInput> | undefined;
   const out = new Map<string, EngineSeries>();
   for (const site of sites) {
-    const tide = siteTide(site, series.timeMs);
+    const tide = siteTide(site, series);
     const geometry = {
       depthM: site.depthM,
       shoreNormalDeg: site.shoreNormalDeg,

@@ -14,8 +14,11 @@
 import { constituents as knownConstituents, createTidePredictor, useStation } from '@neaps/tide-predictor';
 import { near, stationsById } from '@neaps/tide-database';
 import type { TideExtremes } from '../../shared/engine';
+import type { TideAnswer, TideStationInfo } from '../../shared/api-types-sites';
 import type { WorksiteTideInput } from '../../shared/schemas/sites';
 import { HttpError } from '../http/errors';
+
+export type { TideAnswer, TideStationInfo };
 
 /** Nodal corrections the predictions use (named in docs/domain.md#tide). */
 export const TIDE_NODE_CORRECTIONS = 'schureman' as const;
@@ -33,26 +36,6 @@ export const TIDE_CAUTIONS = [
 
 const HOUR_MS = 3_600_000;
 const CHUNK_MS = 31 * 86_400_000;
-
-/** A station as the API shows it. */
-export interface TideStationInfo {
-  id: string;
-  name: string;
-  /** Great-circle distance from the worksite, km (null when the worksite has no position). */
-  distanceKm: number | null;
-  /** Chart datum the station's levels are referred to (LAT, MLLW, ...). */
-  datum: string | null;
-  latitude: number;
-  longitude: number;
-  kind: 'tide' | 'current';
-  /** reference (own constants) or subordinate (offsets from a reference station). */
-  type: 'reference' | 'subordinate';
-  constituents: number;
-  source: string;
-  /** The notice the database asks to be shown with the station (its NOTICE and attribution). */
-  attribution: string;
-  warnings: string[];
-}
 
 interface LevelPoint {
   time: Date;
@@ -243,18 +226,6 @@ export function predictExtremes(p: TidePredictor, fromMs: number, toMs: number):
     }
   }
   return { highMs: Float64Array.from(high), lowMs: Float64Array.from(low), fromMs, toMs };
-}
-
-/** The tide answer of the API: levels on a grid and the extremes. */
-export interface TideAnswer {
-  times: string[];
-  /** m above chart datum */
-  waterLevel: number[];
-  extremes: { time: string; level: number; kind: 'high' | 'low' }[];
-  datum: string;
-  station: TideStationInfo | null;
-  stepMinutes: number;
-  cautions: readonly string[];
 }
 
 /**

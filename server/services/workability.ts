@@ -57,7 +57,7 @@ export type DatasetRow = NonNullable<Awaited<ReturnType<typeof latestDataset>>>;
  * 2: Soulsby bed velocity U_s = 2*U_rms (was 1.414*U_rms), weather-restricted range TR <= 96 h,
  * local time step (durations) for series that change step.
  */
-export const STATS_FORMAT = 3;
+export const STATS_FORMAT = 4;
 
 // ---------------------------------------------------------------------------------------------
 // In-process memos (per database handle, so test databases never share entries)
@@ -156,9 +156,13 @@ export async function cachedStats<T>(
  * Version of everything the statistics depend on besides the data: a SHA-256 (hex, first 32
  * characters) of every operation's TPOP, TC, weather-restricted flag, limits and worksites, every
  * worksite's depth, shore-normal bearing, breaker index, time zone and transfer table, the alpha
- * table and the data point depth. Names are left out: a rename keeps the cached numbers.
+ * table, the data point depth and the dataset's water-level source (docs/domain.md#tide). Names are left out: a rename keeps the cached numbers.
  */
-export function limitsVersion(setup: ProjectSetup, dataPointDepthM: number | null): string {
+export function limitsVersion(
+  setup: ProjectSetup,
+  dataPointDepthM: number | null,
+  waterLevelReference: 'chart-datum' | 'residual' | null = null,
+): string {
   const byId = <T extends { id: string }>(rows: T[]) => [...rows].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   const doc = {
     format: STATS_FORMAT,
@@ -175,6 +179,8 @@ export function limitsVersion(setup: ProjectSetup, dataPointDepthM: number | nul
     ]),
     alpha: setup.alphaTable,
     dataPointDepthM,
+    // Which water level the records use: the dataset's own (chart datum or a residual), else the prediction.
+    waterLevel: waterLevelReference ?? 'predicted',
   };
   return createHash('sha256').update(JSON.stringify(doc)).digest('hex').slice(0, 32);
 }
@@ -249,8 +255,8 @@ export function forEachOperationSite(
   for (const site of setup.sites) {
     const pairs = pairsBySite.get(site.id);
     if (!pairs) continue;
-    // The hindcast has no water level: the predicted tide at its times (docs/domain.md#tide).
-    const tide = siteTide(site, series.timeMs);
+    // The hindcast's own water level where it has one (chart datum wins, a residual adds), else the predicted tide at its times (docs/domain.md#tide).
+    const tide = siteTide(site, series);
     const input = tide ? { ...sea, waterLevelM: tide.waterLevelM } : sea;
     const source = { depthM: row.dataPointDepthM ?? Infinity };
     const geometry = {
@@ -373,7 +379,7 @@ export async function projectWorkabilityJson(
 }
 
 async function workabilityEntries(db: Db, row: DatasetRow, setup: ProjectSetup, alpha: boolean): Promise<WorkabilityEntry[]> {
-  const version = limitsVersion(setup, row.dataPointDepthM);
+  const version = limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference);
   const cached = await cachedStats(db, row.projectId, row.id, version, String(alpha), async () =>
     // On an engine worker thread (engine-pool.ts): a cold 30-year table never holds up other requests.
     runEngineTask('workability', computeWorkability, await datasetSeries(db, row.id), row, setup, alpha),

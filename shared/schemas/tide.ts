@@ -90,3 +90,29 @@ export const TideQuery = z
     }
   });
 export type TideQuery = z.infer<typeof TideQuery>;
+
+/** Days of the tide form's preview chart (POST …/tide-preview). */
+export const TIDE_PREVIEW_DAYS = 3;
+
+const position = (what: string, limit: number) =>
+  finite(what).min(-limit, `${what} must be at least -${limit}°`).max(limit, `${what} must be at most ${limit}°`);
+
+/**
+ * `POST /api/projects/:projectId/tide-preview`: the tide the worksite form is editing (not yet
+ * saved) and the worksite's position (for a station's distance); answers the next
+ * {@link TIDE_PREVIEW_DAYS} days from `from` (default now).
+ */
+export const TidePreviewInput = z.object({
+  tide: WorksiteTideInput,
+  latitude: position('Latitude', 90).nullable().default(null),
+  longitude: position('Longitude', 180).nullable().default(null),
+  from: z.iso.datetime({ offset: true, error: 'from must be an ISO 8601 date-time' }).optional(),
+});
+export type TidePreviewInput = z.infer<typeof TidePreviewInput>;
+
+/** `GET /api/projects/:projectId/tide-stations?latitude=&longitude=`: database stations near a position. */
+export const TideStationsQuery = z.object({
+  latitude: z.coerce.number({ error: 'latitude must be a number' }).pipe(position('Latitude', 90)),
+  longitude: z.coerce.number({ error: 'longitude must be a number' }).pipe(position('Longitude', 180)),
+});
+export type TideStationsQuery = z.infer<typeof TideStationsQuery>;

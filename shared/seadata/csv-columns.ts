@@ -24,6 +24,10 @@
  *   (swell2, swell 2, secondary swell, sw2). Quantity words: Hs (hs, hm0, swh, height, h),
  *   Tp (tp, peak period, period, tpeak), direction (dir, direction, mwd, mdir). See
  *   {@link detectPartitionColumns}.
+ * - waterLevel (docs/domain.md#tide): water level, wl, tide (also `tide_m`), sea level, ssh, surge,
+ *   residual, water elevation; what it is (chart datum or a residual) is an import option.
+ * - currentSpeed: current speed, cspd, curspd, cs, current; currentDir: current direction, cdir,
+ *   curdir, current dir (going-to unless the import option says coming-from).
  */
 import { z } from 'zod';
 import '../schemas/words';
@@ -42,6 +46,9 @@ export const ColumnMappingSchema = z.object({
   dir: z.string().min(1).optional(),
   wind: z.string().min(1).optional(),
   windDir: z.string().min(1).optional(),
+  waterLevel: z.string().min(1).optional(),
+  currentSpeed: z.string().min(1).optional(),
+  currentDir: z.string().min(1).optional(),
 });
 export type ColumnMapping = z.infer<typeof ColumnMappingSchema>;
 
@@ -99,7 +106,11 @@ export function normaliseHeader(header: string): string {
   return words.join('');
 }
 
-const NAMES: Record<SeaVariable | 'time', string[]> = {
+/** The optional columns a CSV may map (docs/domain.md#tide), stored as the dataset's extra columns. */
+export const CSV_EXTRA_COLUMNS = ['waterLevel', 'currentSpeed', 'currentDir'] as const;
+export type CsvExtraColumn = (typeof CSV_EXTRA_COLUMNS)[number];
+
+const NAMES: Record<SeaVariable | CsvExtraColumn | 'time', string[]> = {
   time: ['time', 'date', 'datetime', 'date time', 'timestamp', 'valid time', 'date and time', 'time stamp'],
   hs: ['hs', 'hm0', 'swh', 'wvht', 'hsig', 'vhm0', 'significant wave height', 'wave height', 'h s'],
   tp: ['tp', 'dpd', 'peak period', 'peak wave period', 'tpeak', 'vtpk', 'wave peak period'],
@@ -108,10 +119,13 @@ const NAMES: Record<SeaVariable | 'time', string[]> = {
   dir: ['dir', 'mwd', 'mdir', 'dirm', 'wave direction', 'mean wave direction', 'mean direction', 'vmdr'],
   wind: ['wind speed', 'wspd', 'ws', 'u10', 'wind', 'windspeed', 'ws10', 'wind speed 10m', 'wind speed at 10m'],
   windDir: ['wind direction', 'wdir', 'wd', 'winddir', 'wind dir', 'wind from direction'],
+  waterLevel: ['water level', 'wl', 'tide', 'sea level', 'ssh', 'surge', 'residual', 'water elevation', 'sea surface height'],
+  currentSpeed: ['current speed', 'cspd', 'curspd', 'cs', 'current', 'current velocity'],
+  currentDir: ['current direction', 'cdir', 'curdir', 'current dir'],
 };
 
-const LOOKUP = new Map<string, SeaVariable | 'time'>();
-for (const [key, names] of Object.entries(NAMES) as [SeaVariable | 'time', string[]][]) {
+const LOOKUP = new Map<string, SeaVariable | CsvExtraColumn | 'time'>();
+for (const [key, names] of Object.entries(NAMES) as [SeaVariable | CsvExtraColumn | 'time', string[]][]) {
   for (const n of names) {
     const norm = normaliseHeader(n);
     if (!LOOKUP.has(norm)) LOOKUP.set(norm, key);

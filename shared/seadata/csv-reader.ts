@@ -20,13 +20,23 @@
  * Periods that are not mapped or missing stay NaN: nothing is derived here.
  */
 import {
+  CSV_EXTRA_COLUMNS,
   detectColumns,
   detectPartitionColumns,
   detectUnits,
   type ColumnMapping,
+  type CsvExtraColumn,
   type DetectedColumns,
   type PartitionColumn,
 } from './csv-columns';
+import type { ExtraColumn } from './extra-columns';
+import {
+  CURRENT_SPEED_MAX_MPS,
+  WATER_LEVEL_BOUNDS_M,
+  WATER_LEVEL_REFERENCE_WORDS,
+  type CurrentDirConvention,
+  type WaterLevelReference,
+} from './water-level';
 import { ImportError, type ImportIssue } from './issues';
 import { MAX_COLUMNS, tooManyColumnsReason } from './limits';
 import { DEFAULT_MISSING_CODES, MissingCodes } from './missing-codes';
@@ -62,6 +72,13 @@ export interface CsvReaderOptions {
   windExponent?: number;
   /** Direction columns give where waves and wind come from (default) or go to (then 180 deg is added). */
   directionConvention?: DirectionConvention;
+  /**
+   * What a water-level column holds (docs/domain.md#tide): m above the worksite's chart datum or a
+   * residual to add to the predicted tide. Required when a water-level column is mapped.
+   */
+  waterLevelReference?: WaterLevelReference;
+  /** Current directions in the file: flowing towards (default, oceanographic) or coming from (180° added). */
+  currentDirConvention?: CurrentDirConvention;
   /** Called for every data row with how it was read (used by the preview). */
   onRow?: (row: CsvRowResult) => void;
 }
@@ -100,6 +117,24 @@ interface ValueColumn {
   factor: number;
 }
 
+interface ExtraValueColumn {
+  field: number;
+  name: string;
+  /** Index in the validator's optional columns. */
+  index: number;
+  column: CsvExtraColumn;
+}
+
+/** Why an optional value is implausible, or null (bounds in water-level.ts). */
+function extraProblem(column: ExtraColumn, x: number): string | null {
+  if (column === 'waterLevel' && !(x >= WATER_LEVEL_BOUNDS_M.min && x <= WATER_LEVEL_BOUNDS_M.max))
+    return `water level out of range ${WATER_LEVEL_BOUNDS_M.min} to ${WATER_LEVEL_BOUNDS_M.max} m`;
+  if (column === 'currentSpeed' && !(x >= 0 && x <= CURRENT_SPEED_MAX_MPS))
+    return `current speed out of range 0 to ${CURRENT_SPEED_MAX_MPS} m/s`;
+  if (column === 'currentDir' && !(x >= 0 && x <= 360)) return 'current direction out of range 0 to 360°';
+  return null;
+}
+
 /**
  * Streaming reader of CSV rows: `pushRow(fields, line)` for every row (header first), then
  * `end()`.
@@ -129,6 +164,9 @@ export class CsvRecordReader {
   /** Partition columns (docs/domain.md#partitions): `variable` indexes the validator's partition columns. */
   private partColumns: ValueColumn[] = [];
   private partGoingTo: boolean[] = [];
+  private extraColumns: ExtraValueColumn[] = [];
+  private readonly waterLevelReference: WaterLevelReference | undefined;
+  private readonly currentFrom: boolean;
   private fatal: ImportError | null = null;
   private ended = false;
 
@@ -145,6 +183,8 @@ export class CsvRecordReader {
     this.goingTo = options.directionConvention === 'going-to';
     this.onRow = options.onRow;
     this.givenMapping = options.mapping;
+    this.waterLevelReference = options.waterLevelReference;
+    this.currentFrom = options.currentDirConvention === 'coming-from';
 
     this.v.note(`Times without an offset are read in ${options.timeZone ?? 'UTC'}.`);
     this.v.note(windHeightNote(heightM, exponent));
@@ -266,6 +306,14 @@ export class CsvRecordReader {
       else if (variable === 'wind') factor = speedFactorToMs(units.speed) * this.windToTenM;
       columns.push({ field, name: headers[field], variable: index, factor });
     });
+    const extras: ExtraValueColumn[] = [];
+    for (const column of CSV_EXTRA_COLUMNS) {
+      const name = mapping[column];
+      if (name === undefined) continue;
+      const field = find(name);
+      if (field === -1) absent.push(name);
+      else extras.push({ field, name: headers[field], index: extras.length, column });
+    }
     if (absent.length > 0) {
       this.fatal = ImportError.single(line, absent.join(', '), absent.join(', '), 'mapped column not in the header row');
       return;
@@ -279,6 +327,31 @@ export class CsvRecordReader {
       );
       return;
     }
+    const level = extras.find((e) => e.column === 'waterLevel');
+    if (level && this.waterLevelReference === undefined) {
+      this.fatal = ImportError.single(
+        line,
+        level.name,
+        level.name,
+        'water level column: say what it holds (waterLevelReference: chart-datum for m above the worksite’s chart datum, or residual for a surge added to the predicted tide)',
+      );
+      return;
+    }
+    if (level) this.v.note(`Water level (${level.name}): ${WATER_LEVEL_REFERENCE_WORDS[this.waterLevelReference!]}.`);
+    if (extras.some((e) => e.column === 'currentSpeed'))
+      this.v.note('Current speed in m/s, as given (surface or depth-averaged, as the source says).');
+    if (extras.some((e) => e.column === 'currentDir'))
+      this.v.note(
+        this.currentFrom
+          ? 'Current directions are coming-from in the file: 180° added to store the direction the water flows towards.'
+          : 'Current directions are the direction the water flows towards (oceanographic convention), stored as given.',
+      );
+    if (extras.length > 0)
+      this.v.withExtra(
+        extras.map((e) => e.column),
+        extraProblem,
+      );
+    this.extraColumns = extras;
     this.columns = columns;
     // Partitions in the columns left over (NDBC files never have them).
     const parts = detectPartitionColumns(headers, mapping);
@@ -316,6 +389,7 @@ export class CsvRecordReader {
       if (Number.isNaN(timeMs)) v.rowIssue(this.timeLabel, timeRaw, this.times.error);
       for (const c of this.columns) this.readValue(fields[c.field], c);
       for (const c of this.partColumns) this.readPartition(fields[c.field], c);
+      for (const c of this.extraColumns) this.readExtra(fields[c.field], c);
     }
     const kept = v.commitRow(timeMs, this.timeLabel, timeRaw);
     if (this.onRow !== undefined) {
@@ -349,6 +423,11 @@ export class CsvRecordReader {
     return this.missing.isMissingNumber(x) ? null : x;
   }
 
+  /** The number in a cell, or NaN for a missing value or a refused cell (its issue recorded). */
+  private cellNumber(raw: string, column: string): number {
+    return this.numberOf(raw, { name: column } as ValueColumn) ?? NaN;
+  }
+
   private readValue(raw: string, c: ValueColumn): void {
     const x = this.numberOf(raw, c);
     if (x === null) return;
@@ -359,6 +438,15 @@ export class CsvRecordReader {
       return;
     }
     this.v.setValue(c.variable, x * c.factor, c.name, raw);
+  }
+
+  /** An optional value (water level m, current speed m/s, current direction deg going-to). */
+  private readExtra(raw: string, c: ExtraValueColumn): void {
+    const x = this.cellNumber(raw, c.name);
+    if (Number.isNaN(x)) return;
+    // Coming-from to going-to; out-of-range values pass unchanged so the range check names them.
+    const value = c.column === 'currentDir' && this.currentFrom && x >= 0 && x <= 360 ? (x + 180) % 360 : x;
+    this.v.setExtraValue(c.index, c.column === 'currentDir' && value === 360 ? 0 : value, c.name, raw);
   }
 }
 

@@ -19,6 +19,7 @@ import { isValidTimeZone } from './time-zone';
 import { SeaUnitsSchema } from './units';
 import { BAD_ROW_MODES } from './validate';
 import { DIRECTION_CONVENTIONS } from './csv-reader';
+import { CURRENT_DIR_CONVENTIONS, WATER_LEVEL_REFERENCES } from './water-level';
 import { DEFAULT_WIND_EXPONENT, OVER_LAND_WIND_EXPONENT, WIND_REFERENCE_HEIGHT_M } from './wind-height';
 
 /** Kinds of dataset. */
@@ -161,6 +162,14 @@ export const ImportFormSchema = z.object({
   ),
   /** CSV direction columns: where the sea and wind come from (default) or go to (180° is added). */
   directionConvention: z.preprocess(emptyToUndefined, z.enum(DIRECTION_CONVENTIONS).default('coming-from')),
+  /**
+   * CSV water-level column (docs/domain.md#tide): 'chart-datum' (m above the worksite's chart datum,
+   * wins over the predicted tide) or 'residual' (surge added to the predicted tide). Required when
+   * the file has a water-level column; recorded on the dataset.
+   */
+  waterLevelReference: z.preprocess(emptyToUndefined, z.enum(WATER_LEVEL_REFERENCES).optional()),
+  /** CSV current directions: flowing towards (default, oceanographic) or coming from (180° added). */
+  currentDirConvention: z.preprocess(emptyToUndefined, z.enum(CURRENT_DIR_CONVENTIONS).default('going-to')),
 });
 
 /** The anemometer height given (either name), m, or undefined. */
@@ -187,6 +196,8 @@ export function csvOptionsFromForm(form: ImportForm): CsvTextParserOptions {
     anemometerHeightM: anemometerHeightOf(form) ?? WIND_REFERENCE_HEIGHT_M,
     windExponent: form.windExponent ?? DEFAULT_WIND_EXPONENT,
     directionConvention: form.directionConvention,
+    waterLevelReference: form.waterLevelReference,
+    currentDirConvention: form.currentDirConvention,
   };
 }
 

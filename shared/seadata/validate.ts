@@ -26,6 +26,7 @@
 import type { PartitionColumn } from './csv-columns';
 import { IssueList, ImportError, MAX_LISTED_ISSUES, type ImportIssue } from './issues';
 import { SEA_VARIABLES, SeaRecordBuilder, type SeaRecords, type SeaVariable } from './records';
+import type { ExtraColumn } from './extra-columns';
 
 /** Largest accepted significant wave height, m (issue 4). */
 export const HS_MAX_M = 25;
@@ -140,6 +141,9 @@ export class SeaRowValidator {
   private partFlagged = 0;
   private partFlaggedLines: number[] = [];
   private partTotals = 0;
+  private extraNames: ExtraColumn[] = [];
+  private extraRow = new Float64Array(0);
+  private extraCheck: (column: ExtraColumn, value: number) => string | null = () => null;
 
   constructor(
     private readonly format: 'csv' | 'ndbc',
@@ -232,6 +236,7 @@ export class SeaRowValidator {
     this.rowIssueList = null;
     this.row.fill(NaN);
     this.partRow.fill(NaN);
+    this.extraRow.fill(NaN);
     this.rowsRead++;
   }
 
@@ -271,6 +276,27 @@ export class SeaRowValidator {
   }
 
   /**
+   * Switches on optional columns (water level, current: docs/domain.md#tide) before the first row;
+   * their values are checked by `checkExtra` and kept with the row's record.
+   */
+  withExtra(columns: readonly ExtraColumn[], check: (column: ExtraColumn, value: number) => string | null): void {
+    this.extraNames = columns.slice();
+    this.extraRow = new Float64Array(columns.length);
+    this.extraCheck = check;
+    this.builder.withExtra(columns);
+  }
+
+  /** Checks and stores one optional value of the current row (`index` in the `withExtra` list). */
+  setExtraValue(index: number, value: number, column: string, raw: string): void {
+    const reason = this.extraCheck(this.extraNames[index], value);
+    if (reason !== null) {
+      this.rowIssue(column, raw, reason);
+      return;
+    }
+    this.extraRow[index] = value === 0 ? 0 : value;
+  }
+
+  /**
    * Ends the current row: checks its time against the last accepted row and keeps it when the
    * row has no issue. A NaN `timeMs` marks an unparseable time whose issue the reader has added.
    * @returns true when the row became a record.
@@ -305,6 +331,7 @@ export class SeaRowValidator {
     if (this.mode === 'skip' || this.issues.total === 0) {
       this.builder.pushValues(timeMs, r[0], r[1], r[2], r[3], r[4], r[5], r[6]);
       for (let k = 0; k < this.partCols.length; k++) this.builder.setExtra(this.partCols[k], this.partRow[k]);
+      for (let k = 0; k < this.extraNames.length; k++) this.builder.setExtra(this.extraNames[k], this.extraRow[k]);
     }
     return true;
   }

@@ -8,14 +8,15 @@
  * diffraction, currents, local wind growth or bottom friction.
  */
 import { wrapDegrees180, wrapDegrees360 } from './angles';
-import { DEG_TO_RAD, G_DEFAULT_MPS2, RAD_TO_DEG } from './constants';
+import { DEG_TO_RAD, G_DEFAULT_MPS2, RAD_TO_DEG, TWO_PI } from './constants';
+import { relativeDepthFromTable } from './dispersion-table';
 import { celerities } from './celerity';
 import { FloatKeyIndex } from './float-key-index';
-import { csch } from './hyperbolic';
+import { csch, groupCelerityRatio } from './hyperbolic';
 import { JONSWAP_GAMMA_DEFAULT, jonswapTzOverTp } from './period-conversion';
 import { soulsbyVelocityPerHs } from './sea-state';
 import { transferBandIndex, transferSectorIndex, validateTransferTable, type TransferTable } from './transfer-table';
-import { waveNumber } from './wave-number';
+import { DEEP_WATER_KD, waveNumber } from './wave-number';
 
 export type { TransferTable } from './transfer-table';
 
@@ -184,6 +185,7 @@ interface CheckedSetup {
   siteDepthM: number;
   bearing: number | null;
   depthLimitM: number;
+  breakerIndex: number;
   table: TransferTable | null;
 }
 
@@ -211,6 +213,7 @@ function checkSetup(source: SourcePoint, site: SiteGeometry, options: TransformO
     siteDepthM: site.depthM,
     bearing: bearing === null ? null : wrapDegrees360(bearing),
     depthLimitM: site.breakerIndex * site.depthM,
+    breakerIndex: site.breakerIndex,
     table,
   };
 }
@@ -264,6 +267,27 @@ const MODE_NONE = 0;
 const MODE_REFRACT = 1;
 const MODE_TABLE = 2;
 
+/** Per-direction terms (one row of DSTRIDE doubles per distinct direction): wrapped, landward, sin and cos of theta_src, table sector. */
+function directionTerms(dirKeys: Float64Array, table: TransferTable | null, beta: number): Float64Array {
+  const dirTerms = new Float64Array(Math.max(1, dirKeys.length) * DSTRIDE);
+  for (let id = 0; id < dirKeys.length; id++) {
+    const dir = dirKeys[id];
+    const b = id * DSTRIDE;
+    dirTerms[b + D_WRAPPED] = wrapDegrees360(dir);
+    if (table) {
+      dirTerms[b + D_SECTOR] = transferSectorIndex(table, dir);
+    } else {
+      const theta = wrapDegrees180(dir - beta);
+      const landward = theta >= 90 || theta <= -90;
+      const th = theta * DEG_TO_RAD;
+      dirTerms[b + D_LANDWARD] = landward ? 1 : 0;
+      dirTerms[b + D_SIN] = landward ? 0 : Math.sin(th);
+      dirTerms[b + D_COS] = landward ? 0 : Math.cos(th);
+    }
+  }
+  return dirTerms;
+}
+
 /**
  * Transforms a series of sea states from the data point to a worksite (docs/domain.md#transformation, steps 1-6):
  * 1. theta_src = wrap to (-180, 180] of (Dir - beta); no bearing: Kr = 1, direction kept;
@@ -301,7 +325,7 @@ const MODE_TABLE = 2;
  */
 export function transformToSite(input: SeaSeriesInput, source: SourcePoint, site: SiteGeometry, options?: TransformOptions): SiteSeries {
   const setup = checkSetup(source, site, options);
-  if (input.waterLevelM) return transformWithWaterLevel(input, input.waterLevelM, source, site, options);
+  if (input.waterLevelM) return transformWithWaterLevel(input, input.waterLevelM, setup, options);
   const { hsM: hsIn, tpS: tpIn, tzS: tzIn, dirDeg: dirIn } = input;
   const n = hsIn.length;
   if (tpIn.length !== n || tzIn.length !== n || dirIn.length !== n) {
@@ -374,22 +398,7 @@ export function transformToSite(input: SeaSeriesInput, source: SourcePoint, site
     terms[b + T_SOUL] = soulsbyVelocityPerHs(tp * tzOverTp, siteDepthM, g);
     terms[b + T_BAND] = table ? transferBandIndex(table, tp) : 0;
   }
-  const dirTerms = new Float64Array(Math.max(1, dirKeys.length) * DSTRIDE);
-  for (let id = 0; id < dirKeys.length; id++) {
-    const dir = dirKeys[id];
-    const b = id * DSTRIDE;
-    dirTerms[b + D_WRAPPED] = wrapDegrees360(dir);
-    if (table) {
-      dirTerms[b + D_SECTOR] = transferSectorIndex(table, dir);
-    } else {
-      const theta = wrapDegrees180(dir - beta);
-      const landward = theta >= 90 || theta <= -90;
-      const th = theta * DEG_TO_RAD;
-      dirTerms[b + D_LANDWARD] = landward ? 1 : 0;
-      dirTerms[b + D_SIN] = landward ? 0 : Math.sin(th);
-      dirTerms[b + D_COS] = landward ? 0 : Math.cos(th);
-    }
-  }
+  const dirTerms = directionTerms(dirKeys, table, beta);
 
   // Phase 3: every record from those tables (Soulsby from a record's own Tz only where it has one).
   const anyTz = prepared ? prepared.anyTz : hasUsableTz(tzIn);
@@ -527,55 +536,133 @@ function engineFields(
 
 /**
  * The transformation with a depth that moves (docs/domain.md#tide): each record at its own
- * still-water depth h = d_site + level, through {@link transformOne} (the same steps and numbers
- * as a fixed depth of h; dispersion is solved per (period, depth) pair). h <= 0: DRY, outputs NaN.
- * Slower than the fixed-depth path (no per-period cache), about a microsecond or two a record.
+ * still-water depth h = d_site + level, by the same steps as {@link transformOne} at a fixed depth
+ * of h; h <= 0: DRY, outputs NaN; a NaN level: MISSING_INPUT. Dispersion is solved per (period,
+ * depth) pair through the dimensionless lookup `relativeDepthFromTable` (cubic Hermite in ln(k0*h),
+ * exact fallback outside it), so the figures agree with the record-by-record chain within 1e-9
+ * relative (tests/waves/transform-tide-fast.test.ts). Terms of the data point (C, Cg at Tp) are
+ * cached per distinct Tp and the direction terms per distinct direction, as on the fixed-depth
+ * path; `fields` is ignored (every field is filled) and `depthM` holds h.
  */
-function transformWithWaterLevel(
-  input: SeaSeriesInput,
-  level: Float64Array,
-  source: SourcePoint,
-  site: SiteGeometry,
-  options?: TransformOptions,
-): SiteSeries {
-  const n = input.hsM.length;
-  if (input.tpS.length !== n || input.tzS.length !== n || input.dirDeg.length !== n || level.length !== n) {
+function transformWithWaterLevel(input: SeaSeriesInput, level: Float64Array, setup: CheckedSetup, options?: TransformOptions): SiteSeries {
+  const { hsM: hsIn, tpS: tpIn, tzS: tzIn, dirDeg: dirIn } = input;
+  const n = hsIn.length;
+  if (tpIn.length !== n || tzIn.length !== n || dirIn.length !== n || level.length !== n) {
     throw new RangeError('hsM, tpS, tzS, dirDeg and waterLevelM must have the same length');
   }
   const out = options?.out ?? createSiteSeries(n);
   if (out.hsM.length !== n || out.flags.length !== n) throw new RangeError(`every out array must have the input length ${n}`);
   const depth = out.depthM && out.depthM.length === n ? out.depthM : new Float64Array(n);
   out.depthM = depth;
-  const one = { g: options?.g, gamma: options?.gamma };
+  const { g, tzOverTp, siteDepthM, table, breakerIndex } = setup;
+  const mode = table ? MODE_TABLE : setup.bearing !== null ? MODE_REFRACT : MODE_NONE;
+  const beta = setup.bearing ?? 0;
+
+  const prepared = options?.prepared;
+  if (
+    prepared &&
+    (prepared.input.hsM !== hsIn || prepared.input.tpS !== tpIn || prepared.input.tzS !== tzIn || prepared.input.dirDeg !== dirIn)
+  ) {
+    throw new RangeError('options.prepared was made from another input');
+  }
+  const tpIds = prepared ? prepared.tpIds : new Int32Array(n);
+  const tpKeys = prepared ? prepared.tpKeys : distinctIds(tpIn, tpIds, new FloatKeyIndex(1024), true);
+  let dirIds: Int32Array | null = null;
+  let dirKeys: Float64Array = new Float64Array(0);
+  if (mode !== MODE_NONE) {
+    dirIds = prepared ? prepared.dirIds : new Int32Array(n);
+    dirKeys = prepared ? prepared.dirKeys : distinctIds(dirIn, dirIds, new FloatKeyIndex(1024), false);
+  }
+  // Per distinct Tp: C and Cg at the data point, omega, k0 = omega^2/g and the table band.
+  const srcTerms = new Float64Array(Math.max(1, tpKeys.length) * 5);
+  for (let id = 0; id < tpKeys.length; id++) {
+    const tp = tpKeys[id];
+    const src = celerities(tp, setup.sourceDepthM, g);
+    const omega = TWO_PI / tp;
+    srcTerms[id * 5] = src.celerityMps;
+    srcTerms[id * 5 + 1] = src.groupCelerityMps;
+    srcTerms[id * 5 + 2] = omega;
+    srcTerms[id * 5 + 3] = (omega * omega) / g;
+    srcTerms[id * 5 + 4] = table ? transferBandIndex(table, tp) : 0;
+  }
+  const dirTerms = directionTerms(dirKeys, table, beta);
+  const { hsM: hsOut, dirDeg: dirOut, ks: ksOut, kr: krOut, flags: flagsOut } = out;
+  const linOut = out.bedVelocityLinearMps;
+  const soulOut = out.bedVelocitySoulsbyMps;
+
   for (let i = 0; i < n; i++) {
     const eta = level[i];
-    const h = site.depthM + eta;
+    const h = siteDepthM + eta;
     depth[i] = h;
-    let flags: number;
-    if (!(h > 0)) {
-      flags = eta === eta ? TRANSFORM_FLAG.DRY : TRANSFORM_FLAG.MISSING_INPUT;
-      out.hsM[i] = NaN;
-      out.dirDeg[i] = NaN;
-      out.ks[i] = NaN;
-      out.kr[i] = NaN;
-      out.flags[i] = flags;
-      out.bedVelocityLinearMps[i] = NaN;
-      out.bedVelocitySoulsbyMps[i] = NaN;
+    const hs = hsIn[i];
+    const tpId = tpIds[i];
+    const dirId = dirIds === null ? 0 : dirIds[i];
+    if (!(h > 0) || !(hs >= 0 && hs < Infinity) || tpId < 0 || dirId < 0) {
+      hsOut[i] = NaN;
+      dirOut[i] = NaN;
+      ksOut[i] = NaN;
+      krOut[i] = NaN;
+      flagsOut[i] = h > 0 || eta !== eta ? TRANSFORM_FLAG.MISSING_INPUT : TRANSFORM_FLAG.DRY;
+      linOut[i] = NaN;
+      soulOut[i] = NaN;
       continue;
     }
-    const c = transformOne(
-      { hsM: input.hsM[i], tpS: input.tpS[i], tzS: input.tzS[i], dirDeg: input.dirDeg[i] },
-      source,
-      { ...site, depthM: h },
-      one,
-    );
-    out.hsM[i] = c.hsM;
-    out.dirDeg[i] = c.dirDeg;
-    out.ks[i] = c.ks;
-    out.kr[i] = c.kr;
-    out.flags[i] = c.flags;
-    out.bedVelocityLinearMps[i] = c.bedVelocityLinearMps;
-    out.bedVelocitySoulsbyMps[i] = c.bedVelocitySoulsbyMps;
+    // The site's dispersion at (Tp, h), as `celerities` computes it.
+    const base = tpId * 5;
+    const omega = srcTerms[base + 2];
+    const k0 = srcTerms[base + 3];
+    const x = k0 * h;
+    const deep = x >= DEEP_WATER_KD;
+    const kd = deep ? x : relativeDepthFromTable(x);
+    const cSite = deep || kd >= 20 ? g / omega : (omega * h) / kd;
+    const nSite = kd >= 20 ? 0.5 : groupCelerityRatio(kd);
+    const tp = tpKeys[tpId];
+
+    let flags = 0;
+    let ks: number;
+    let kr = 1;
+    let dirSite: number;
+    if (mode === MODE_TABLE) {
+      const dbase = dirId * DSTRIDE;
+      ks = table!.factors[dirTerms[dbase + D_SECTOR]][srcTerms[base + 4]];
+      flags = TRANSFORM_FLAG.TRANSFER_TABLE;
+      dirSite = dirTerms[dbase + D_WRAPPED];
+    } else {
+      ks = Math.sqrt(srcTerms[base + 1] / (nSite * cSite));
+      if (mode === MODE_NONE) {
+        dirSite = wrapDegrees360(dirIn[i]);
+      } else {
+        const dbase = dirId * DSTRIDE;
+        if (dirTerms[dbase + D_LANDWARD] !== 0) {
+          flags = TRANSFORM_FLAG.LANDWARD;
+          dirSite = dirTerms[dbase + D_WRAPPED];
+        } else {
+          const sinSite = dirTerms[dbase + D_SIN] * (cSite / srcTerms[base]);
+          const cos2Site = 1 - sinSite * sinSite;
+          if (cos2Site > 0) {
+            kr = Math.sqrt(dirTerms[dbase + D_COS] / Math.sqrt(cos2Site));
+            dirSite = wrapDegrees360(beta + Math.asin(sinSite) * RAD_TO_DEG);
+          } else {
+            flags = TRANSFORM_FLAG.REFRACTION_SKIPPED;
+            dirSite = dirTerms[dbase + D_WRAPPED];
+          }
+        }
+      }
+    }
+    let hsSite = hs * ks * kr;
+    const limit = breakerIndex * h;
+    if (hsSite > limit) {
+      hsSite = limit;
+      flags |= TRANSFORM_FLAG.DEPTH_LIMITED;
+    }
+    const tz = tzIn[i];
+    hsOut[i] = hsSite;
+    dirOut[i] = dirSite;
+    ksOut[i] = ks;
+    krOut[i] = kr;
+    flagsOut[i] = flags;
+    linOut[i] = hsSite * ((Math.PI * csch(kd)) / tp);
+    soulOut[i] = hsSite * soulsbyVelocityPerHs(tz > 0 && tz < Infinity ? tz : tp * tzOverTp, h, g);
   }
   return out;
 }

@@ -251,6 +251,17 @@ const TABLE: Record<string, RouteCase> = {
     fresh: async () => ({ siteId: await createTideSite(P1.projectId) }),
   },
 
+  'POST /projects/:projectId/tide-preview': {
+    access: 'coordinator',
+    why: 'the tide the worksite form is editing, before it is saved; changes nothing but belongs to setup',
+    body: () => ({ tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1, phase: 0 }], z0: 1, datum: 'LAT' } }),
+  },
+  'GET /projects/:projectId/tide-stations': {
+    access: 'member',
+    why: 'stations of the public tide database near a position; read-only',
+    query: () => ({ latitude: '53.5', longitude: '8.1' }),
+  },
+
   'GET /projects/:projectId/operations': { access: 'member' },
   'POST /projects/:projectId/operations': { access: 'coordinator', body: (p) => operationBody(p.siteId) },
   'GET /projects/:projectId/operations/:operationId': { access: 'member' },

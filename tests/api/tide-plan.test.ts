@@ -65,8 +65,16 @@ describe('tide-bounded windows of the demo', () => {
     const chain = (await as.client.get(`${base}/plan/chain`).query({ operationId: p.operationId, siteId, time: hour })).body;
     const k = tide.times.indexOf(hour);
     expect(k).toBeGreaterThanOrEqual(0);
-    expect(chain.site.waterLevel).toBeCloseTo(tide.waterLevel[k], 3);
-    expect(chain.site.depth).toBeCloseTo(3.5 + tide.waterLevel[k], 3); // chart depth 3.5 m (seed/scenario-sites.ts)
+    // The fake forecast carries a surge: the water level is the predicted tide plus the forecast's
+    // residual at that hour, read back from the forecast's CSV download (docs/domain.md#tide).
+    expect(chain.site.waterLevelSource).toBe('predicted+residual');
+    const csv: string = (await as.coordinator.get(`${base}/datasets/${plan.dataset.id}/csv`)).text;
+    const [header, ...rows] = csv.trim().split('\n');
+    const col = header.split(',').indexOf('waterLevel_m');
+    expect(col).toBeGreaterThan(0);
+    const row = rows.find((r) => r.startsWith(hour))!.split(',');
+    expect(chain.site.waterLevel).toBeCloseTo(tide.waterLevel[k] + Number(row[col]), 3);
+    expect(chain.site.depth).toBeCloseTo(3.5 + chain.site.waterLevel, 9); // chart depth 3.5 m (seed/scenario-sites.ts)
     expect(chain.transform.depthM).toBeCloseTo(chain.site.depth, 9);
     const kinds = chain.checks.map((c: { limit: string }) => c.limit);
     expect(kinds).toEqual(expect.arrayContaining(['minDepth', 'tideWindow']));

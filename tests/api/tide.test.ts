@@ -121,4 +121,57 @@ describe('tide route', () => {
     const long = await client.get(`${base()}/${plain.body.id}/tide`).query({ from: '2026-01-01T00:00:00Z', to: '2026-03-01T00:00:00Z' });
     expect(long.status).toBe(400);
   });
+
+  it('previews an unsaved tide for 3 days: M2 alone gives highs at Z0 + f·H and lows at Z0 - f·H, 12.42 h apart', async () => {
+    const from = '2026-12-01T00:00:00.000Z';
+    const res = await coordinator.post(`/api/projects/${t.demo.projectId}/tide-preview`).send({
+      tide: { source: 'constants', constituents: [{ name: 'M2', amplitude: 1.5, phase: 120 }], z0: 2, datum: 'LAT' },
+      from,
+    });
+    expect(res.status, res.text).toBe(200);
+    // 3 days at 15 minutes, both ends included.
+    expect(res.body.times[0]).toBe(from);
+    expect(res.body.times).toHaveLength(3 * 96 + 1);
+    expect(res.body.datum).toBe('LAT');
+    const highs = res.body.extremes.filter((e: { kind: string }) => e.kind === 'high');
+    const lows = res.body.extremes.filter((e: { kind: string }) => e.kind === 'low');
+    // About 5.8 highs in 3 days at one per 12.4206 h (M2 speed 28.9841042 deg/h, Schureman 1958).
+    expect(highs.length).toBeGreaterThanOrEqual(5);
+    expect(highs.length).toBeLessThanOrEqual(6);
+    // f(M2) within 0.96-1.04 (from memory): highs 3.44-3.56 m, lows 0.44-0.56 m above chart datum.
+    for (const h of highs) expect(h.level >= 3.44 && h.level <= 3.56, `high ${h.level}`).toBe(true);
+    for (const l of lows) expect(l.level >= 0.44 && l.level <= 0.56, `low ${l.level}`).toBe(true);
+    const gapH = (Date.parse(highs[1].time) - Date.parse(highs[0].time)) / 3_600_000;
+    expect(gapH).toBeCloseTo(360 / 28.9841042, 1);
+    expect(res.body.cautions.join(' ')).toMatch(/Not for navigation/);
+  });
+
+  it('previews a station with its distance from the typed position, and names the field of a bad preview', async () => {
+    const [[station, km]] = near({ lat: 53.5, lon: 8.1, maxResults: 1 });
+    const url = `/api/projects/${t.demo.projectId}/tide-preview`;
+    const res = await coordinator.post(url).send({ tide: { source: 'station', stationId: station.id }, latitude: 53.5, longitude: 8.1 });
+    expect(res.status, res.text).toBe(200);
+    expect(res.body.station.id).toBe(station.id);
+    expect(res.body.station.distanceKm).toBeCloseTo(km, 1);
+    const unknown = await coordinator
+      .post(url)
+      .send({ tide: { source: 'constants', z0: 1, constituents: [{ name: 'QQ7', amplitude: 1, phase: 0 }] } });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.details[0].field).toBe('tide.constituents.0.name');
+    const none = await coordinator.post(url).send({ tide: { source: 'none' } });
+    expect(none.status).toBe(400);
+    expect(none.body.error.details[0].field).toBe('tide.source');
+    expect((await client.post(url).send({ tide: { source: 'none' } })).status).toBe(403);
+  });
+
+  it('lists the stations nearest a typed position, nearest first, and refuses a position off the globe', async () => {
+    const url = `/api/projects/${t.demo.projectId}/tide-stations`;
+    const res = await client.get(url).query({ latitude: 53.5, longitude: 8.1 });
+    expect(res.status, res.text).toBe(200);
+    const direct = near({ lat: 53.5, lon: 8.1, maxResults: 5, maxDistance: 200, filter: (s) => s.kind === 'tide' });
+    expect(res.body.stations.map((s: { id: string }) => s.id)).toEqual(direct.map(([s]) => s.id));
+    const bad = await client.get(url).query({ latitude: 91, longitude: 8.1 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.details[0].field).toBe('latitude');
+  });
 });

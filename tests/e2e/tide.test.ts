@@ -57,4 +57,57 @@ describe('the tide strip', () => {
     expect(await strip.textContent()).toMatch(/not for navigation/i);
     await screenshot(page, 'board-tide-strip');
   });
+
+  it('the worksite form previews the constants typed: a 3-day curve with highs and lows, before saving', async () => {
+    const { page } = browser;
+    const projectId = await signIn('coordinator');
+    await page.goto(`${server.baseUrl}/projects/${projectId}/setup?tab=worksites`);
+    await page.getByRole('button', { name: 'Edit Nearshore trench' }).click({ timeout: 60_000 });
+    const form = page.getByRole('form', { name: 'Edit worksite Nearshore trench' });
+    await form.getByLabel('Tide from').selectOption('constants');
+    // Leave one row: M2 alone, 1.2 m about Z0 1.8 m (invented; the demo's own constants are replaced in the form only).
+    while ((await form.getByRole('button', { name: /^Remove constituent/ }).count()) > 1) {
+      await form
+        .getByRole('button', { name: /^Remove constituent/ })
+        .last()
+        .click();
+    }
+    await form.getByLabel('Constituent 1 name').fill('M2');
+    await form.getByLabel('Constituent 1 amplitude, m').fill('1.2');
+    await form.getByLabel('Constituent 1 phase lag, degrees referred to UTC').fill('40');
+    await form.getByLabel(/^Z0, mean sea level above chart datum/).fill('1.8');
+    const preview = form.getByTestId('tide-preview');
+    try {
+      await preview.getByTestId('tide-low').first().waitFor({ timeout: 60_000 });
+      await preview.getByRole('img', { name: /Predicted water level at this worksite/ }).waitFor({ timeout: 10_000 });
+    } catch (err) {
+      await screenshot(page, 'tide-form-failure');
+      throw err;
+    }
+    // Wait for the preview of these constants (an earlier one may still show while the new one loads).
+    await expect
+      .poll(
+        async () => {
+          const highs = await preview.getByTestId('tide-high').allTextContents();
+          return highs.length > 0 && highs.every((h) => Math.abs(Number(/([\d.]+) m$/.exec(h)![1]) - 3.0) < 0.06);
+        },
+        { timeout: 30_000 },
+      )
+      .toBe(true);
+    const highs = await preview.getByTestId('tide-high').allTextContents();
+    const lows = await preview.getByTestId('tide-low').allTextContents();
+    // 3 days of M2 (one high every 12.42 h, M2 speed 28.9841042 deg/h, Schureman 1958): 5 or 6 highs and lows.
+    expect(highs.length).toBeGreaterThanOrEqual(5);
+    expect(highs.length).toBeLessThanOrEqual(6);
+    expect(lows.length).toBeGreaterThanOrEqual(5);
+    // Highs at Z0 + f·H, lows at Z0 - f·H, f(M2) within 0.96-1.04 (from memory): 2.95-3.05 m and 0.55-0.65 m.
+    for (const l of lows) {
+      const level = Number(/([\d.]+) m$/.exec(l)![1]);
+      expect(level).toBeGreaterThanOrEqual(0.55);
+      expect(level).toBeLessThanOrEqual(0.65);
+    }
+    expect(await preview.textContent()).toMatch(/not for navigation/i);
+    expect(await preview.textContent()).toMatch(/surge/i);
+    await screenshot(page, 'setup-tide-form');
+  });
 });

@@ -159,6 +159,25 @@ describe('fake forecasts: deterministic, realistic, changing between issues', ()
     expect(Array.from(otherSeed.records.hs)).not.toEqual(Array.from(a.records.hs));
   });
 
+  it('carries a small, smooth surge residual through the client (docs/domain.md#forecast-service)', async () => {
+    const f = await fake({ clock: () => DEC_3_1425, horizonDays: 10 });
+    const r = await new HttpForecastProvider(f.url).fetchLatest(POSITION);
+    const surge = r.records.surge!;
+    expect(surge).toBeDefined();
+    expect(surge.length).toBe(r.records.timeMs.length);
+    let nonZero = 0;
+    for (let i = 0; i < surge.length; i++) {
+      const leadDays = (r.records.timeMs[i] - r.issuedAtMs) / 86_400_000;
+      // The documented bound: |truth| <= 0.3 m plus |error| <= 0.02 + 0.01 per day of lead, on a 0.01 m grid.
+      expect(Math.abs(surge[i])).toBeLessThanOrEqual(0.3 + 0.02 + 0.01 * leadDays + 0.005);
+      expect(Math.abs(surge[i] * 100 - Math.round(surge[i] * 100))).toBeLessThan(1e-9);
+      if (surge[i] !== 0) nonZero++;
+      // Smooth: a 30-hour lattice moves at most about 0.05 m an hour (common practice for surges, no source: tens of cm over hours).
+      if (i > 0 && r.records.timeMs[i] - r.records.timeMs[i - 1] === HOUR) expect(Math.abs(surge[i] - surge[i - 1])).toBeLessThan(0.06);
+    }
+    expect(nonZero).toBeGreaterThan(surge.length / 2);
+  });
+
   it('serves 7 to 16 days as configured and refuses other horizons', async () => {
     for (const days of [7, 16]) {
       const f = await fake({ clock: () => DEC_3_1425, horizonDays: days });

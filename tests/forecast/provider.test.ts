@@ -177,7 +177,16 @@ describe('HttpForecastProvider with a stubbed fetch', () => {
           issuedAtMs: (json as { issued: number }).issued,
           latitude: 50,
           longitude: -5.5,
-          records: { timeMs: col(0), hs: col(1), tp: col(2), dir: col(3), wind: col(4), windDir: col(5) },
+          // This provider gives no surge: the optional column is all missing.
+          records: {
+            timeMs: col(0),
+            hs: col(1),
+            tp: col(2),
+            dir: col(3),
+            wind: col(4),
+            windDir: col(5),
+            surge: new Float64Array(rows.length).fill(NaN),
+          },
         };
       },
     };

@@ -1,32 +1,8 @@
 // CSV import: dialects, times, units, missing codes, chunking and line numbers.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  CsvRecordReader,
-  CsvTextParser,
-  DEFAULT_MISSING_CODES,
-  ImportError,
-  detectColumns,
-  detectDelimiter,
-  type CsvTextParserOptions,
-  type ImportIssue,
-} from '../../shared/seadata';
-
-function parse(text: string, options: CsvTextParserOptions = {}) {
-  const p = new CsvTextParser(options);
-  p.push(text);
-  return p.end();
-}
-
-function issuesOf(text: string, options: CsvTextParserOptions = {}): ImportIssue[] {
-  try {
-    parse(text, options);
-  } catch (e) {
-    expect(e).toBeInstanceOf(ImportError);
-    return (e as ImportError).issues;
-  }
-  throw new Error('expected an ImportError');
-}
+import { issuesOf, parse } from './csv-helpers';
+import { CsvRecordReader, CsvTextParser, DEFAULT_MISSING_CODES, ImportError, detectColumns, detectDelimiter } from '../../shared/seadata';
 
 const iso = (ms: Float64Array) => Array.from(ms, (t) => new Date(t).toISOString());
 

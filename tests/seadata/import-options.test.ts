@@ -14,6 +14,8 @@ describe('ImportFormSchema', () => {
       dataPointDepth: 'deep',
       onBadRows: 'refuse',
       directionConvention: 'coming-from',
+      // Current directions default to flowing towards, the oceanographic convention (docs/domain.md#tide).
+      currentDirConvention: 'going-to',
     });
     // CSV: no height means already at 10 m, exponent 0.11 (open sea).
     expect(csvOptionsFromForm(f)).toMatchObject({ anemometerHeightM: 10, windExponent: 0.11, directionConvention: 'coming-from' });
@@ -54,6 +56,7 @@ describe('ImportFormSchema', () => {
       anemometerHeightM: 4.1,
       windExponent: 1 / 7,
       directionConvention: 'going-to',
+      currentDirConvention: 'going-to',
     });
     expect(ndbcOptionsFromForm(f)).toEqual({ onBadRows: 'skip', anemometerHeightM: 4.1, windExponent: 1 / 7 });
     // The earlier field name is still read.

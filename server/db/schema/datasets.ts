@@ -48,6 +48,12 @@ export const dataset = pgTable(
     /** Power-law exponent a of U10 = Uz (10/z)^a used at import; null as above. */
     windExponent: doublePrecision(),
     /**
+     * What the dataset's water-level column holds (docs/domain.md#tide): 'chart-datum' (m above the
+     * worksite's chart datum, wins over the prediction) or 'residual' (surge, added to the
+     * prediction); null without a water-level column.
+     */
+    waterLevelReference: text({ enum: ['chart-datum', 'residual'] }),
+    /**
      * Ensemble members stored beside the control (the dataset's own series is the control, member 0);
      * 0 without an ensemble (docs/domain.md#forecast-uncertainty). Their series: forecast_member.
      */

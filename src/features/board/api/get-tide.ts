@@ -1,24 +1,8 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
+import type { TideAnswer } from '../../../../shared/api-types-sites';
 
-/** The predicted tide at a worksite (GET …/sites/:siteId/tide; docs/domain.md#tide). */
-export interface TideAnswer {
-  times: string[];
-  /** m above chart datum */
-  waterLevel: number[];
-  extremes: { time: string; level: number; kind: 'high' | 'low' }[];
-  datum: string;
-  station: {
-    name: string;
-    distanceKm: number | null;
-    datum: string | null;
-    source: string;
-    attribution: string;
-    warnings: string[];
-  } | null;
-  stepMinutes: number;
-  cautions: string[];
-}
+export type { TideAnswer };
 
 export interface TideParams {
   projectId: string;
@@ -27,6 +11,7 @@ export interface TideParams {
   to: string;
 }
 
+/** The predicted tide at a worksite (GET …/sites/:siteId/tide; docs/domain.md#tide). */
 export function getTide({ projectId, siteId, from, to }: TideParams): Promise<TideAnswer> {
   return api<TideAnswer>(`/api/projects/${projectId}/sites/${siteId}/tide?${new URLSearchParams({ from, to })}`);
 }

@@ -2,6 +2,7 @@
 // flags → worksite Hs and bed velocity → each limit at OPLIM and OPWF → margin. A drawer at the
 // right on a laptop, a sheet from the bottom on a phone; not modal, so another hour can be picked
 // while it is open.
+import { WATER_LEVEL_SOURCE_WORDS } from '../../../../shared/seadata/water-level';
 import { useEffect, useRef, type ReactNode } from 'react';
 import type { LimitCheck, OperationSitePlan } from '../../../../shared/api-types-plan';
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
@@ -251,6 +252,23 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
             ['Bed velocity, linear', fmt(chain.site.bedVelocityLinear, 2, 'm/s')],
             ['Bed velocity, Soulsby (2006)', fmt(chain.site.bedVelocitySoulsby, 2, 'm/s')],
             ['Wind at 10 m', fmt(chain.site.wind, 1, 'm/s')],
+            ...(chain.site.waterLevel !== null
+              ? ([
+                  [
+                    'Water level above chart datum',
+                    `${fmt(chain.site.waterLevel, 2, 'm')} (${WATER_LEVEL_SOURCE_WORDS[chain.site.waterLevelSource]})`,
+                  ],
+                  ['Still-water depth h = d + level', fmt(chain.site.depth, 2, 'm')],
+                ] as [string, ReactNode][])
+              : []),
+            ...(chain.site.current !== null
+              ? ([
+                  [
+                    'Current (as the dataset gives it)',
+                    `${fmt(chain.site.current, 2, 'm/s')}${chain.site.currentDir !== null ? `, flowing towards ${fmtDir(chain.site.currentDir)}` : ''}`,
+                  ],
+                ] as [string, ReactNode][])
+              : []),
           ]}
         />
         {chain.partitions ? <PartitionTable partitions={chain.partitions} /> : null}

@@ -29,6 +29,7 @@ export interface ChartOperation {
   tpMax: number | null;
   tpExcluded: [number, number][];
   hasCurve: boolean;
+  currentMax?: number | null;
 }
 
 export interface ConditionsChartsProps {
@@ -180,6 +181,23 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
           ),
       limitValues: operations.flatMap((o) => (o.bedVelocityMax !== null ? [o.bedVelocityMax] : [])),
     },
+    // Current (docs/domain.md#tide): only when the dataset carries a current speed column.
+    ...(conditions.current.some((x) => x !== null)
+      ? [
+          {
+            key: 'current',
+            title: 'Current speed (as the dataset gives it)',
+            unit: 'm/s',
+            decimals: 2,
+            series: [{ id: 'current', name: 'Current', values: conditions.current, light: '#1d4ed8', dark: '#93c5fd' }],
+            markers: (d: boolean) =>
+              operations
+                .filter((o) => o.currentMax != null)
+                .map((o) => limitMarker(o.currentMax!, o.n, `${o.n} current max ${fmt(o.currentMax, 2, 'm/s')}`, false, d)),
+            limitValues: operations.flatMap((o) => (o.currentMax != null ? [o.currentMax] : [])),
+          } satisfies PanelSpec,
+        ]
+      : []),
     {
       key: 'wind',
       title: 'Wind speed at 10 m',

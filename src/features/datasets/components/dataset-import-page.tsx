@@ -1,3 +1,4 @@
+import { CURRENT_DIR_CONVENTIONS, WATER_LEVEL_REFERENCE_WORDS, WATER_LEVEL_REFERENCES } from '../../../../shared/seadata/water-level';
 import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -97,6 +98,9 @@ const ImportPageValues = z.object({
   anemometer: z.string(),
   exponent: z.enum(['open-sea', 'over-land']),
   directionConvention: z.enum(DIRECTION_CONVENTIONS),
+  /** What a water-level column holds ('' = not said; refused when the file has one). */
+  waterLevelReference: z.enum(['', ...WATER_LEVEL_REFERENCES]),
+  currentDirConvention: z.enum(CURRENT_DIR_CONVENTIONS),
   onBadRows: z.enum(BAD_ROW_MODES),
   timeZone: z.string(),
   missingText: z.string(),
@@ -163,6 +167,8 @@ function requestInput(v: ImportPageValues, ctx: ImportContext): Record<string, u
       delimiter: ctx.preview.delimiter,
       decimalComma: ctx.preview.decimalComma,
       directionConvention: v.directionConvention,
+      waterLevelReference: v.waterLevelReference || undefined,
+      currentDirConvention: v.currentDirConvention,
     });
   }
   if (ctx.format === 'netcdf') {
@@ -230,6 +236,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       anemometer: '',
       exponent: 'open-sea',
       directionConvention: 'coming-from',
+      waterLevelReference: '',
+      currentDirConvention: 'going-to',
       onBadRows: 'refuse',
       timeZone: 'UTC',
       missingText: DEFAULT_MISSING_TEXT,
@@ -280,6 +288,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         anemometerHeightM: anemometerValue,
         windExponent,
         directionConvention: v.directionConvention,
+        waterLevelReference: v.waterLevelReference || undefined,
+        currentDirConvention: v.currentDirConvention,
         rows: 12,
       });
       return { preview, error: null };
@@ -300,6 +310,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
     anemometerValue,
     windExponent,
     v.directionConvention,
+    v.waterLevelReference,
+    v.currentDirConvention,
   ]);
 
   const ndbc = useMemo(
@@ -396,6 +408,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
       if (parsed.delimiter) fields.delimiter = parsed.delimiter;
       if (parsed.decimalComma !== undefined) fields.decimalComma = String(parsed.decimalComma);
       fields.directionConvention = parsed.directionConvention;
+      if (parsed.waterLevelReference) fields.waterLevelReference = parsed.waterLevelReference;
+      fields.currentDirConvention = parsed.currentDirConvention;
     }
     if (effectiveFormat === 'netcdf') {
       if (parsed.gridPoint) fields.gridPoint = parsed.gridPoint.join(',');
@@ -591,6 +605,31 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                 <Select id="direction-convention" {...register('directionConvention')}>
                   <option value="coming-from">Coming from (nautical, usual)</option>
                   <option value="going-to">Going to (oceanographic)</option>
+                </Select>
+              </FieldShell>
+            ) : null}
+            {effectiveFormat === 'csv' ? (
+              <FieldShell
+                label="Water level column holds"
+                htmlFor="water-level-reference"
+                hint="Only for a file with a water level (water_level, wl, tide_m, sea_level…): say what it is; it is never guessed."
+              >
+                <Select id="water-level-reference" {...register('waterLevelReference')}>
+                  <option value="">Not said (a file with a water level is refused)</option>
+                  <option value="chart-datum">{WATER_LEVEL_REFERENCE_WORDS['chart-datum']}</option>
+                  <option value="residual">{WATER_LEVEL_REFERENCE_WORDS.residual}</option>
+                </Select>
+              </FieldShell>
+            ) : null}
+            {effectiveFormat === 'csv' ? (
+              <FieldShell
+                label="Current directions in the file"
+                htmlFor="current-dir-convention"
+                hint="Lullwatch stores where the water flows towards (oceanographic). Coming-from directions get 180° added."
+              >
+                <Select id="current-dir-convention" {...register('currentDirConvention')}>
+                  <option value="going-to">Flowing towards (oceanographic, usual)</option>
+                  <option value="coming-from">Coming from</option>
                 </Select>
               </FieldShell>
             ) : null}

@@ -1,3 +1,4 @@
+import { WATER_LEVEL_REFERENCE_WORDS } from '../../../../shared/seadata/water-level';
 import type { ReactNode } from 'react';
 import type { DatasetDetail } from '../../../../shared/api-types-datasets';
 import { Card } from '../../../components/ui';
@@ -110,6 +111,15 @@ export function ImportReportCard({ d }: { d: DatasetDetail }) {
                 </span>
               ) : null}
             </Item>
+            {d.waterLevelReference ? <Item label="Water level">{WATER_LEVEL_REFERENCE_WORDS[d.waterLevelReference]}</Item> : null}
+            {str(d.importReport.currentDirConvention) ? (
+              <Item label="Current directions">
+                stored as flowing towards
+                {d.importReport.currentDirConvention === 'coming-from'
+                  ? ' (the file’s coming-from directions, 180° added)'
+                  : ' (as in the file)'}
+              </Item>
+            ) : null}
             {str(d.importReport.directionConvention) ? (
               <Item label="Directions in the file">
                 {d.importReport.directionConvention === 'going-to' ? 'going to (180° added)' : 'coming from'}

@@ -14,6 +14,7 @@ import { useMapStyle } from '../../../api/map-style';
 import { LazySiteMap } from '../../../components/map/lazy-site-map';
 import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
+import { TideFields, tideFromText, TideText, tideToText } from './tide-fields';
 import { COMMON_TIME_ZONES } from './time-zones';
 import {
   starterTransferTable,
@@ -38,6 +39,7 @@ const WorksiteText = z.object({
   transferTable: z
     .object({ directionSectorsDeg: z.array(pairText), tpBandsS: z.array(pairText), factors: z.array(z.array(z.string())) })
     .nullable(),
+  tide: TideText,
 });
 type WorksiteText = z.infer<typeof WorksiteText>;
 
@@ -55,6 +57,7 @@ const WorksiteFormSchema = WorksiteText.transform((v): WorksiteFormValues => ({
   timeZone: v.timeZone,
   hindcastDatasetId: v.hindcastDatasetId === '' ? null : v.hindcastDatasetId,
   transferTable: v.transferTable ? transferTableFromText(v.transferTable) : null,
+  tide: tideFromText(v.tide),
 })).pipe(WorksiteInput);
 
 function initialValues(site: SiteResponse | null, defaultZone: string): WorksiteText {
@@ -68,6 +71,7 @@ function initialValues(site: SiteResponse | null, defaultZone: string): Worksite
     timeZone: site?.timeZone ?? defaultZone,
     hindcastDatasetId: site?.hindcastDatasetId ?? '',
     transferTable: site?.transferTable ? transferTableToText(site.transferTable) : null,
+    tide: tideToText(site?.tide),
   };
 }
 
@@ -103,6 +107,15 @@ export function WorksiteForm({
     string,
     string,
   ];
+
+  const tide = useWatch({ control: form.control, name: 'tide' }) as TideText;
+  const zoneText = useWatch({ control: form.control, name: 'timeZone' }) as string;
+  const lat = numberOrNull(latText);
+  const lon = numberOrNull(lonText);
+  const position = useMemo(
+    () => (lat !== null && lon !== null && Number.isFinite(lat) && Number.isFinite(lon) ? { latitude: lat, longitude: lon } : null),
+    [lat, lon],
+  );
 
   const setTable = (next: TransferTableText | null) =>
     form.setValue('transferTable', next, { shouldDirty: true, shouldValidate: form.formState.isSubmitted });
@@ -234,6 +247,23 @@ export function WorksiteForm({
           Use a transfer table for this worksite
         </label>
         {table ? <TransferTableEditor value={table} onChange={setTable} errors={errors} /> : null}
+      </FormSection>
+
+      <FormSection
+        id={f('tide')}
+        title="Tide (optional)"
+        hint="The depth then moves with the predicted tide: h(t) = chart depth + water level, in the transformation, the depth limit and the tide and depth limits of operations."
+        error={errorAt(errors, 'tide')}
+      >
+        <TideFields
+          projectId={projectId}
+          idPrefix={f('tide')}
+          value={tide}
+          onChange={(next) => form.setValue('tide', next, { shouldDirty: true, shouldValidate: form.formState.isSubmitted })}
+          errors={errors}
+          position={position}
+          timeZone={zoneText}
+        />
       </FormSection>
 
       {mutation.error ? <ErrorNotice error={mutation.error} /> : null}

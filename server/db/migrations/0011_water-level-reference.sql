@@ -1,0 +1,1 @@
+ALTER TABLE "dataset" ADD COLUMN "water_level_reference" text;
