@@ -2,7 +2,7 @@
 // round-robin proxy on loopback, under the load of `npm run bench:load`, with one instance killed
 // (SIGKILL) in the middle of each measured run and started again 10 s later.
 //
-// It starts a throwaway PostgreSQL cluster (scripts/lib/pg-cluster.ts), a mail catcher that keeps
+// It starts a throwaway PostgreSQL cluster (scripts/lib/pg-cluster.ts), a mail receiver that keeps
 // every Message-ID (server/mail/fake-smtp.ts), two instances with the same secret, the same
 // BASE_URL (the proxy's) and scheduled jobs on, the planning job every --tick seconds (PLAN_CRON),
 // and the proxy (bench/lib/round-robin-proxy.ts). Through the proxy it creates --connections users
@@ -15,7 +15,7 @@
 // Prints and checks: throughput and p50/p99 per phase (both up, one down, both up again); that
 // every failed request was in flight on the killed instance at the kill; that the planning job
 // ran once per project per cron tick across the two instances (plan runs counted in the
-// database); that each outbox e-mail was sent once, except at most one per kill (the catcher counts
+// database); that each outbox e-mail was sent once, except at most one per kill (the receiver counts
 // Message-IDs); that a session made on one instance works on the other, and that a sign-out on one
 // ends it on the other within the documented 5 s. Each check prints met or NOT met with its figure.
 // Exit code 0 whatever the figures (a measurement), 1 when the run itself failed.

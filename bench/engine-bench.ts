@@ -20,7 +20,7 @@ import {
 const HOUR_MS = 3_600_000;
 
 /** Mulberry32: a small seeded generator, so every run builds the same series. */
-function mulberry32(seed: number): () => number {
+export function mulberry32(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
     a = (a + 0x6d2b79f5) >>> 0;

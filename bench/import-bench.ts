@@ -5,16 +5,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
-import request from 'supertest';
-import { createApp } from '../server/app';
-import { createAuth } from '../server/auth';
-import { openDatabase } from '../server/db/client';
-import { migrateDatabase } from '../server/db/migrate';
-import { silentLogger } from '../server/deps';
-import { createForecastProvider } from '../server/forecast';
-import { createMailer } from '../server/mail/mailer';
 import { readSeries } from '../server/services/series-store';
-import { seedDemo } from '../seed/demo';
+import { openBenchApp, timedImport } from './lib/bench-app';
 import { operation, worksite } from '../server/db/schema';
 import { projectWorkability, settleStatsCache } from '../server/services/workability';
 
@@ -43,39 +35,9 @@ export async function runImportBench() {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-bench-'));
   const csv = path.join(dir, 'hindcast-30y.csv');
   const bytes = writeCsv(csv);
-  const database = await openDatabase({ dataDir: path.join(dir, 'db') });
-  await migrateDatabase(database);
-  const forecast = await createForecastProvider();
-  const mailer = await createMailer({ from: 'bench@lullwatch.invalid' });
-  const origin = 'http://localhost:3000';
-  const deps = {
-    db: database.db,
-    database,
-    auth: createAuth(database.db, {
-      secret: 'bench-secret-bench-secret-bench-secret',
-      baseURL: origin,
-      trustedOrigins: [origin],
-      secureCookies: false,
-    }),
-    clock: () => new Date(),
-    log: silentLogger,
-    forecast: forecast.provider,
-    mailer,
-    config: { baseUrl: origin, trustedOrigins: [origin], linkSecret: 'bench', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
-  };
-  const demo = await seedDemo(deps, { hindcastYears: 0, forecast: false });
-  const app = createApp(deps);
-  const agent = request.agent(app);
-  await agent.post('/api/auth/sign-in/email').set('Origin', origin).send({ email: 'coordinator@example.com', password: 'lullwatch-demo' });
-
-  const t0 = performance.now();
-  const res = await agent
-    .post(`/api/projects/${demo.projectId}/datasets`)
-    .field('name', '30-year bench hindcast')
-    .field('kind', 'hindcast')
-    .field('dataPointDepth', 'deep')
-    .attach('file', csv);
-  const importMs = performance.now() - t0;
+  const app = await openBenchApp(dir);
+  const { database } = app;
+  const { res, importMs } = await timedImport(app, '30-year bench hindcast', csv);
   if (res.status !== 201 || res.body.records !== RECORDS) throw new Error(`import failed: ${res.status} ${res.text.slice(0, 300)}`);
 
   const reads: number[] = [];
@@ -88,7 +50,7 @@ export async function runImportBench() {
   // Issue 6: all monthly statistics for 30 years hourly, five worksites, ten operations, cold,
   // server side (read, transform per worksite, engine, cache write), through the service.
   await database.db.insert(worksite).values({
-    projectId: demo.projectId,
+    projectId: app.projectId,
     name: 'Bench berth',
     depthM: 12,
     shoreNormalDeg: 240,
@@ -96,7 +58,7 @@ export async function runImportBench() {
     timeZone: 'Europe/London',
   });
   const extra = [1.0, 1.25, 1.75, 2.25, 2.5].map((hs, i) => ({
-    projectId: demo.projectId,
+    projectId: app.projectId,
     name: `Bench operation ${i + 1}`,
     tpopH: 6 + 6 * i,
     tcH: 4,
@@ -107,16 +69,14 @@ export async function runImportBench() {
   await database.db.insert(operation).values(extra);
   await database.db.update(operation).set({ siteIds: [] });
   const s0 = performance.now();
-  const stats = await projectWorkability(database.db, demo.projectId, { datasetId: res.body.id, alpha: true });
+  const stats = await projectWorkability(database.db, app.projectId, { datasetId: res.body.id, alpha: true });
   const statsColdMs = performance.now() - s0;
   await settleStatsCache(); // the cache row is written after the answer; a later view finds it
   const s1 = performance.now();
-  await projectWorkability(database.db, demo.projectId, { datasetId: res.body.id, alpha: true });
+  await projectWorkability(database.db, app.projectId, { datasetId: res.body.id, alpha: true });
   const statsRepeatMs = performance.now() - s1;
 
-  await forecast.close();
-  await mailer.close();
-  await database.close();
+  await app.close();
   fs.rmSync(dir, { recursive: true, force: true });
   const result = { importMs, readBackMedianMs: median(reads), bytes, statsColdMs, statsRepeatMs, pairs: stats.entries.length };
   console.log(

@@ -23,6 +23,7 @@ import { parseArgs } from 'node:util';
 import { spawn, type ChildProcess } from 'node:child_process';
 import autocannon from 'autocannon';
 import { buildClientIfStale } from '../scripts/lib/client-build';
+import { buildServerBundleIfStale } from '../scripts/lib/server-bundle';
 import { freePort } from '../scripts/lib/free-port';
 import {
   createUsers,
@@ -128,9 +129,10 @@ async function startServer(): Promise<Server> {
     // address (X-Forwarded-For), so the per-address sign-in limit stays as in production.
     TRUST_PROXY: 'loopback',
   });
-  // Node itself with tsx as a loader (not the tsx command), so the pid is the server's.
+  // The bundled server on Node, as `npm start` runs it (the pid is the server's).
   const profile = args.profile ? ['--cpu-prof', '--cpu-prof-dir', path.resolve(args.profile)] : [];
-  const child = spawn(process.execPath, [...profile, '--import', 'tsx', 'server/index.ts'], {
+  const bundle = await buildServerBundleIfStale(ROOT);
+  const child = spawn(process.execPath, [...profile, bundle.entry], {
     cwd: ROOT,
     env,
     stdio: ['ignore', 'pipe', 'pipe'],

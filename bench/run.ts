@@ -2,6 +2,7 @@
 import os from 'node:os';
 import { describeTransformBench, runTransformBench } from './transform-bench';
 import { runEngineBench } from './engine-bench';
+import { runEnsembleBench } from './ensemble-bench';
 import { runImportBench } from './import-bench';
 import { runNetcdfBench } from './netcdf-bench';
 import { describeColdStart, measureColdStart } from './cold-start';
@@ -15,6 +16,8 @@ console.log(
 console.log(describeTransformBench(await runTransformBench()));
 console.log('');
 await runEngineBench();
+console.log('');
+await runEnsembleBench();
 console.log('');
 await runImportBench();
 console.log('');

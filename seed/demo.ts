@@ -1,20 +1,15 @@
+import type { ExtraSeries } from '../shared/seadata/extra-columns';
 import type { AppDeps } from '../server/deps';
 import { campaign, operation, project, projectMember, worksite } from '../server/db/schema';
 import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
 import { toSeaSeries } from '../server/services/sea-series';
-import {
-  buildFakeForecast,
-  exchangeToRecords,
-  generateSyntheticSea,
-  latestIssueTimeMs,
-  truthSeedForPosition,
-  climateForPosition,
-} from '../server/forecast';
+import { generateSyntheticSea, latestIssueTimeMs, truthSeedForPosition, climateForPosition } from '../server/forecast';
 import { recurrenceText } from '../shared/recurrence';
 import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
+import { seedSkillArchive, storeFakeIssue } from './skill-archive';
 import { runEngineTask } from '../server/services/engine-pool';
 import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
 import { DEMO_OPERATIONS, DEMO_SITE_TIDES, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
@@ -30,6 +25,8 @@ export interface DemoIds {
   operationIds: string[];
   hindcastId: string | null;
   forecastId: string | null;
+  /** The invented observation at the data point (with the forecast archive), or null. */
+  observationId: string | null;
 }
 
 export interface SeedOptions {
@@ -42,6 +39,11 @@ export interface SeedOptions {
    * downtime ledger has finished days to propose from forecast before any observation exists.
    */
   pastForecastDays?: number;
+  /**
+   * Days of forecast archive for the skill page (default 60): one past issue a day and an
+   * observation at the data point (seed/skill-archive.ts). Needs `forecast`.
+   */
+  skillArchiveDays?: number;
 }
 
 const DAY_MS = 86_400_000;
@@ -89,7 +91,7 @@ export async function seedDemo(
 }
 
 /** What {@link seedDemoAccounts} made, for {@link seedDemoData}. */
-export interface DemoBase extends Omit<DemoIds, 'hindcastId' | 'forecastId'> {
+export interface DemoBase extends Omit<DemoIds, 'hindcastId' | 'forecastId' | 'observationId'> {
   campaignId: string;
   /** The campaign's timeline (UTC ms): today, its start, the lay's start and finish. */
   todayMs: number;
@@ -221,7 +223,16 @@ export async function seedDemoData(
       hours,
       seed: truthSeedForPosition(DEMO_SEA_SEED, DEMO_PROJECT.dataPointLatitude, DEMO_PROJECT.dataPointLongitude),
       climate: climateForPosition(DEMO_PROJECT.dataPointLatitude),
+      partitions: true,
     });
+    // The same generator's partitions as the fake forecast's (docs/domain.md#partitions).
+    const parts = sea.partitions!;
+    const extra: ExtraSeries = {};
+    for (const k of ['windSea', 'swell1', 'swell2'] as const) {
+      extra[`${k}.hs`] = parts[k].hsM;
+      extra[`${k}.tp`] = parts[k].tpS;
+      extra[`${k}.dir`] = parts[k].dirDeg;
+    }
     const series = toSeaSeries({
       timeMs: sea.timeMs,
       hs: sea.hsM,
@@ -229,6 +240,7 @@ export async function seedDemoData(
       dir: sea.dirDeg,
       wind: sea.windMps,
       windDir: sea.windDirDeg,
+      extra,
     });
     const row = await createDataset(
       db,
@@ -262,49 +274,23 @@ export async function seedDemoData(
     })
     .where(eq(campaign.id, demoCampaign.id));
 
+  // The forecast archive for the skill page (docs/domain.md#forecast-uncertainty): 60 days of
+  // past 12:00 UTC issues and an invented buoy record at the data point.
+  let observationId: string | null = null;
+  const archiveDays = options.skillArchiveDays ?? 60;
+  if ((options.forecast ?? true) && archiveDays > 0) {
+    const started = performance.now();
+    observationId = await seedSkillArchive(db, main.id, DEMO_SEA_SEED, deps.clock().getTime(), { days: archiveDays });
+    deps.log.info('Demo forecast archive seeded', { days: archiveDays, ms: Math.round(performance.now() - started) });
+  }
+
   // Earlier issues of the invented forecast (the 00:00 UTC issue of each of the last days, 48 h
   // long), as if the planning job had stored them: written first, so the current one stays newest.
   const pastDays = options.pastForecastDays ?? 3;
   if ((options.forecast ?? true) && pastDays > 0) {
     const latest = latestIssueTimeMs(deps.clock().getTime());
     for (let k = pastDays; k >= 1; k--) {
-      const issuedAtMs = Math.floor(latest / 86_400_000) * 86_400_000 - k * 86_400_000;
-      const f = buildFakeForecast({
-        seed: DEMO_SEA_SEED,
-        latitude: DEMO_PROJECT.dataPointLatitude,
-        longitude: DEMO_PROJECT.dataPointLongitude,
-        issuedAtMs,
-        horizonDays: 2,
-      });
-      const r = exchangeToRecords(f);
-      const keep = r.timeMs.findIndex((x) => x >= issuedAtMs);
-      const cut = (a: Float64Array) => a.slice(keep);
-      const issuedAt = new Date(issuedAtMs);
-      await createDataset(
-        db,
-        {
-          projectId: main.id,
-          createdBy: null,
-          name: `Forecast issued ${issuedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`,
-          kind: 'forecast',
-          dataPointName: DEMO_PROJECT.dataPointName,
-          dataPointLatitude: f.position.lat,
-          dataPointLongitude: f.position.lon,
-          dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
-          sourceKind: 'service',
-          format: 'fake forecast service (demo)',
-          issuedAt,
-        },
-        toSeaSeries({
-          timeMs: cut(r.timeMs),
-          hs: cut(r.hs),
-          tp: cut(r.tp),
-          dir: cut(r.dir),
-          wind: cut(r.wind),
-          windDir: cut(r.windDir),
-        }),
-        { source: 'fake forecast service (demo)' },
-      );
+      await storeFakeIssue(db, main.id, DEMO_SEA_SEED, Math.floor(latest / 86_400_000) * 86_400_000 - k * 86_400_000, 2);
     }
   }
 
@@ -317,5 +303,5 @@ export async function seedDemoData(
     }
   }
   deps.log.info('Demo scenario seeded', { project: main.id });
-  return { users, projectId: main.id, secondProjectId: base.secondProjectId, siteIds, operationIds, hindcastId, forecastId };
+  return { users, projectId: main.id, secondProjectId: base.secondProjectId, siteIds, operationIds, hindcastId, forecastId, observationId };
 }

@@ -26,6 +26,8 @@ export interface DatasetSummary {
   absentRecords: number;
   /** Share of the expected records without an Hs value: missing values and absent rows together, 0-1. */
   hsGapShare: number;
+  /** Ensemble members stored beside the control (0: a single forecast; docs/domain.md#forecast-uncertainty). */
+  ensembleMembers: number;
   /** In the project's list: the dataset statistics use when none is named (chosen, else the newest hindcast). */
   statisticsDefault?: boolean;
   createdAt: string;

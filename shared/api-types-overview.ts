@@ -25,7 +25,8 @@ export interface OverviewLine {
   limiting: string | null;
   /**
    * Chance of the go-start from an ensemble forecast, 0-1 (docs/domain.md#forecast-uncertainty).
-   * Always null for now: no ensemble forecast is stored yet.
+   * The share of runs (control and members) in which [go-start, go-start + TR) is wholly workable on
+   * OPLIM; null without an ensemble or without a go-start.
    */
   chance: number | null;
   /** The next 48 hours from the current hour: ISO UTC record starts and their statuses. */

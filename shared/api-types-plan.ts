@@ -9,6 +9,12 @@ export interface PlanWindow {
   end: string;
   hours: number;
   minMargin: { perLimit: Record<string, number>; relative: number };
+  /**
+   * Ensemble chance that [start, start + TR) is wholly workable: the share of runs (control and
+   * members, on OPLIM) with a go-start at the window's start; null without an ensemble
+   * (docs/domain.md#forecast-uncertainty).
+   */
+  chance: number | null;
 }
 
 export interface OperationSitePlan {
@@ -38,6 +44,16 @@ export interface OperationSitePlan {
   limiting: (string | null)[];
   /** Smallest relative margin per hour (limit - value)/limit; null = no data. */
   marginRel: (number | null)[];
+  /**
+   * Ensemble chance of workable per hour (0-1: the share of runs, control and members, workable on
+   * OPLIM), null without an ensemble (docs/domain.md#forecast-uncertainty).
+   */
+  chance: number[] | null;
+  /**
+   * Per hour, the ensemble chance that [t, t + TR) is wholly workable (the share of runs with a
+   * go-start there); null without an ensemble or for an operation that is not weather-restricted.
+   */
+  startChance: number[] | null;
   /** Occurrences of a recurring operation in the horizon, judged on [start, start + TR). */
   occurrences: { start: string; status: OccurrenceStatus }[];
 }
@@ -52,6 +68,8 @@ export interface PlanAnswer {
   span?: { from: string; to: string; asAt: string };
   alpha: boolean;
   stepMinutes: number;
+  /** Runs of the ensemble behind the chances (control + members), null for a single forecast. */
+  ensemble?: { runs: number } | null;
   plans: OperationSitePlan[];
 }
 
@@ -74,11 +92,33 @@ export interface HourChainAnswer {
     bedVelocityLinear: number | null;
     bedVelocitySoulsby: number | null;
     wind: number | null;
+    /** Worksite Tp: the most energetic partition's when the hour is combined from partitions (docs/domain.md#partitions). */
+    tp?: number | null;
+    dir?: number | null;
   };
+  /**
+   * The sea's partitions at the data point and at the worksite (docs/domain.md#partitions), when
+   * the dataset gives them and this hour is combined from them; absent otherwise. Hs 0 = absent.
+   */
+  partitions?: {
+    name: 'windSea' | 'swell1' | 'swell2';
+    dataPoint: { hs: number | null; tp: number | null; dir: number | null };
+    site: { hs: number | null; tp: number | null; dir: number | null };
+  }[];
   status: HourStatus;
   checks: LimitCheck[];
   /** The operation is not weather-restricted: the hour is shown against OPLIM for information only. */
   informationOnly: boolean;
+  /**
+   * The ensemble's spread at the worksite in this hour (docs/domain.md#forecast-uncertainty): Hs of
+   * every run (control and members) through the same chain, min, P10, P50, P90 (type 7
+   * quantiles), max, m; `withData` runs had a value. Null for a forecast without members.
+   */
+  ensemble: {
+    runs: number;
+    withData: number;
+    hs: { min: number | null; p10: number | null; p50: number | null; p90: number | null; max: number | null };
+  } | null;
 }
 
 export interface ConditionsAnswer {
@@ -97,6 +137,12 @@ export interface ConditionsAnswer {
   depth: (number | null)[];
   /** Current speed, m/s (null where unknown). */
   current: (number | null)[];
+  /**
+   * Worksite Hs of the swell (both swells together) and of the wind sea, m, where the dataset gives
+   * partitions (docs/domain.md#partitions); absent otherwise, null where unknown.
+   */
+  swellHs?: (number | null)[];
+  windSeaHs?: (number | null)[];
   operations: {
     id: string;
     name: string;

@@ -31,6 +31,8 @@ export interface ProjectDetail extends ProjectSummary {
   dataPointLongitude: number | null;
   dataPointDepthM: number | null;
   forecastSource: 'service' | 'uploads';
+  /** p of the calibrated alpha table (docs/domain.md#calibrated-alpha) */
+  alphaCalibrationP: number;
   createdAt: string;
 }
 

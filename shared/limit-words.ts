@@ -11,6 +11,7 @@ const LIMIT_WORDS: Record<string, string> = {
   maxDepth: 'too much water (above the maximum depth)',
   current: 'current speed',
   tideWindow: 'outside the tide window',
+  hsTarget: 'wave height of a sea partition (swell or wind sea)',
   noData: 'missing sea data',
 };
 

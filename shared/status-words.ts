@@ -74,3 +74,21 @@ export const START_WORDS = {
   earliestMoved: 'earliest start moved',
   nextOccurrence: 'next occurrence',
 } as const;
+
+/**
+ * Ensemble chances in words (docs/domain.md#forecast-uncertainty), the same on the board, in the
+ * chain and in the alerts: a whole percentage of the runs (control and members).
+ */
+export const CHANCE_WORDS = {
+  /** Beside an hour: "chance workable 62 %". */
+  hour: 'chance workable',
+  /** Beside a window: "chance to hold TR 48 %". */
+  window: 'chance to hold TR',
+  /** An alert when a window's chance drops below the subscriber's threshold. */
+  fellBelow: 'window chance fell below',
+} as const;
+
+/** A chance 0-1 as a whole percentage: "62 %" (null: "no ensemble"). */
+export function chancePercent(chance: number | null | undefined): string {
+  return chance === null || chance === undefined ? 'no ensemble' : `${Math.round(chance * 100)} %`;
+}

@@ -13,10 +13,15 @@
  *   (wind 0.04 + 0.035 per day); Tp by exp(e/2); directions shifted by up to 4 deg + 3 deg per day.
  * The error fields are value noise in valid time (30-40 h lattices) blended over a 24-hour lattice
  * of issues, so two issues 6 h apart share most of their error.
+ *
+ * Ensembles (docs/domain.md#forecast-uncertainty): on request the answer also carries members
+ * 1..N, each made by the same method with an error seed of its own (member 0, the control, is
+ * the forecast above). The members scatter around the truth as another forecast would, so their
+ * spread grows with lead time like the error; each is deterministic per (issue, member).
  */
-import { EXCHANGE_SERIES_KEYS, type ExchangeSeriesKey, type SeaStateExchange } from './forecast-schema';
+import { EXCHANGE_SERIES_KEYS, type ExchangeMemberSeries, type ExchangeSeriesKey, type SeaStateExchange } from './forecast-schema';
 import { mix32, seed32, smoothNoise } from './seeded-noise';
-import { generateSyntheticSea, type SeaClimate } from './synthetic-sea';
+import { generateSyntheticSea, type SeaClimate, type SyntheticPartition } from './synthetic-sea';
 
 const MS_PER_HOUR = 3_600_000;
 /** Issues are made every 6 hours, at 00, 06, 12 and 18 UTC. */
@@ -69,6 +74,17 @@ export interface FakeForecastRequest {
   issuedAtMs: number;
   /** Forecast length in days, 1-16 (see {@link fakeForecastLeadHours} for the steps). */
   horizonDays: number;
+  /** Ensemble members beside the control, 0 (default) to {@link MAX_FAKE_MEMBERS}. */
+  members?: number;
+}
+
+/** Most ensemble members the fake makes beside the control. */
+export const MAX_FAKE_MEMBERS = 50;
+
+/** Error seed of one member: the control's (member 0) as before, each other member its own. */
+export function memberErrorSeed(truthSeed: number, member: number): number {
+  const control = mix32(truthSeed ^ 0x5bd1e995);
+  return member === 0 ? control : mix32(control ^ mix32(Math.imul(member, 0x3c6ef372) ^ 0x1b873593));
 }
 
 /** Lead time up to which the fake forecast is hourly, h; 3-hourly after it, as many real services are. */
@@ -125,6 +141,8 @@ interface FakeRecord {
   windDirTrue: number;
   /** Direction error, deg. */
   eDir: number;
+  /** The partitions with the same errors (Hs 0 = absent; Tp and direction null then). */
+  parts: Record<'windSea' | 'swell1' | 'swell2', { hs: number; tp: number | null; dir: number | null }>;
 }
 
 /**
@@ -137,7 +155,42 @@ const FAKE_VALUES: { [K in ExchangeSeriesKey]?: (r: FakeRecord) => number | null
   dir: (r) => Math.round(wrap360(r.dirTrue + r.eDir)) % 360,
   wind: (r) => r.wind,
   windDir: (r) => Math.round(wrap360(r.windDirTrue + 1.5 * r.eDir)) % 360,
+  'windSea.hs': (r) => r.parts.windSea.hs,
+  'windSea.tp': (r) => r.parts.windSea.tp,
+  'windSea.dir': (r) => r.parts.windSea.dir,
+  'swell1.hs': (r) => r.parts.swell1.hs,
+  'swell1.tp': (r) => r.parts.swell1.tp,
+  'swell1.dir': (r) => r.parts.swell1.dir,
+  'swell2.hs': (r) => r.parts.swell2.hs,
+  'swell2.tp': (r) => r.parts.swell2.tp,
+  'swell2.dir': (r) => r.parts.swell2.dir,
 };
+
+/**
+ * One partition of the truth at the shifted time with the record's errors: Hs interpolated and
+ * scaled like the total, Tp and direction from the nearest record (docs/domain.md#partitions).
+ */
+function fakePartition(
+  p: SyntheticPartition,
+  i0: number,
+  f: number,
+  near: number,
+  scaleHs: number,
+  scaleTp: number,
+  eDir: number,
+): FakeRecord['parts']['windSea'] {
+  const a = p.hsM[i0];
+  const b = p.hsM[i0 + 1];
+  const hs = Math.min(25, Math.round((a * (1 - f) + b * f) * scaleHs * 100) / 100);
+  const tpTrue = p.tpS[near] === p.tpS[near] ? p.tpS[near] : a > 0 ? p.tpS[i0] : p.tpS[i0 + 1];
+  const dirTrue = p.dirDeg[near] === p.dirDeg[near] ? p.dirDeg[near] : a > 0 ? p.dirDeg[i0] : p.dirDeg[i0 + 1];
+  if (!(hs > 0) || tpTrue !== tpTrue) return { hs: 0, tp: null, dir: null };
+  return {
+    hs,
+    tp: Math.min(40, Math.max(0.5, Math.round(tpTrue * scaleTp * 10) / 10)),
+    dir: Math.round(wrap360(dirTrue + eDir)) % 360,
+  };
+}
 
 /**
  * Builds one invented forecast answer in the sea-state exchange (forecast-schema.ts).
@@ -151,26 +204,57 @@ export function buildFakeForecast(request: FakeForecastRequest): SeaStateExchang
     throw new RangeError(`horizonDays must be an integer within 1-16, got ${horizonDays}`);
   const latitude = snapToGrid(request.latitude);
   const longitude = snapToGrid(request.longitude);
+  const members = request.members ?? 0;
+  if (!(Number.isInteger(members) && members >= 0 && members <= MAX_FAKE_MEMBERS))
+    throw new RangeError(`members must be an integer within 0-${MAX_FAKE_MEMBERS}, got ${members}`);
   const truthSeed = truthSeedForPosition(request.seed, latitude, longitude);
-  const errSeed = mix32(truthSeed ^ 0x5bd1e995);
   const issueIndex = Math.round(issuedAtMs / cycleMs);
   const leads = fakeForecastLeadHours(horizonDays);
   const n = leads.length;
   const horizonH = leads[n - 1] + 1;
 
   // Truth over the forecast period with a margin for the timing error (at most 20.2 h).
-  const marginH = 24;
   const truth = generateSyntheticSea({
-    startMs: issuedAtMs - marginH * MS_PER_HOUR,
-    hours: horizonH + 2 * marginH,
+    startMs: issuedAtMs - TRUTH_MARGIN_H * MS_PER_HOUR,
+    hours: horizonH + 2 * TRUTH_MARGIN_H,
     seed: truthSeed,
     climate: climateForPosition(latitude),
+    partitions: true,
   });
+  const time = leads.map((h) => iso(issuedAtMs + h * MS_PER_HOUR));
+  const control = forecastColumns(truth, memberErrorSeed(truthSeed, 0), issueIndex, issuedAtMs, leads);
+  const answer: SeaStateExchange = {
+    position: { lat: latitude, lon: longitude },
+    issuedAt: iso(issuedAtMs),
+    series: { time, ...control } as SeaStateExchange['series'],
+  };
+  if (members > 0) {
+    answer.members = [];
+    for (let m = 1; m <= members; m++) {
+      const columns = forecastColumns(truth, memberErrorSeed(truthSeed, m), issueIndex, issuedAtMs, leads);
+      answer.members.push({ member: m, series: columns as ExchangeMemberSeries });
+    }
+  }
+  // The times carry the change from hourly to 3-hourly (the exchange has no single step).
+  return answer;
+}
 
-  const time = new Array<string>(n);
+const TRUTH_MARGIN_H = 24;
+
+/** One run of the fake (the control or a member): the truth seen through the error fields of `errSeed`. */
+function forecastColumns(
+  truth: ReturnType<typeof generateSyntheticSea>,
+  errSeed: number,
+  issueIndex: number,
+  issuedAtMs: number,
+  leads: number[],
+): Record<string, (number | null)[]> {
+  const n = leads.length;
+  const marginH = TRUTH_MARGIN_H;
   const columns = new Map<ExchangeSeriesKey, (number | null)[]>();
   for (const key of EXCHANGE_SERIES_KEYS) if (FAKE_VALUES[key]) columns.set(key, new Array<number | null>(n));
   const last = truth.hsM.length - 1;
+  const truthParts = truth.partitions!;
   for (let r = 0; r < n; r++) {
     const h = leads[r];
     const tMs = issuedAtMs + h * MS_PER_HOUR;
@@ -197,14 +281,15 @@ export function buildFakeForecast(request: FakeForecastRequest): SeaStateExchang
     tp = Math.min(40, Math.max(0.5, Math.round(tp * 10) / 10));
     const wind = Math.min(99.9, Math.max(0, Math.round(windTrue * Math.exp(eWind) * 10) / 10));
 
-    time[r] = iso(tMs);
-    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir };
+    const sHs = Math.exp(eHs);
+    const sTp = Math.exp(eTp);
+    const parts = {
+      windSea: fakePartition(truthParts.windSea, i0, f, near, sHs, sTp, eDir),
+      swell1: fakePartition(truthParts.swell1, i0, f, near, sHs, sTp, eDir),
+      swell2: fakePartition(truthParts.swell2, i0, f, near, sHs, sTp, eDir),
+    };
+    const record: FakeRecord = { hs, tp, wind, dirTrue: truth.dirDeg[near], windDirTrue: truth.windDirDeg[near], eDir, parts };
     for (const [key, column] of columns) column[r] = FAKE_VALUES[key]!(record);
   }
-  // The times carry the change from hourly to 3-hourly (the exchange has no single step).
-  return {
-    position: { lat: latitude, lon: longitude },
-    issuedAt: iso(issuedAtMs),
-    series: { time, ...Object.fromEntries(columns) } as SeaStateExchange['series'],
-  };
+  return Object.fromEntries(columns);
 }

@@ -5,13 +5,14 @@
  * forecasts for any position (see fake-forecast.ts), and can fail on request for the reliability
  * tests.
  *
- * Endpoint: `GET /exchange/sea-state?lat=<deg>&lon=<deg>` -> 200 with a forecast; 400 for a missing or
- * invalid position; 401 when an apiKey is set and the `authorization: Bearer <key>` header does not
+ * Endpoint: `GET /exchange/sea-state?lat=<deg>&lon=<deg>[&members=N]` -> 200 with a forecast (with
+ * N ensemble members beside the control when asked, N within 0-50); 400 for a missing or
+ * invalid position or member count; 401 when an apiKey is set and the `authorization: Bearer <key>` header does not
  * match; 404 for other paths; 405 for other methods. `GET /health` -> 200 `{"ok":true}`.
  */
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { buildFakeForecast, latestIssueTimeMs } from './fake-forecast';
+import { buildFakeForecast, latestIssueTimeMs, MAX_FAKE_MEMBERS } from './fake-forecast';
 import { EXCHANGE_PATH } from './forecast-schema';
 
 /**
@@ -155,12 +156,19 @@ export async function startFakeForecastService(options: FakeForecastServiceOptio
       sendError(res, 400, 'bad_position', 'lat must be a number within -90..90 and lon within -180..180.');
       return;
     }
+    const membersRaw = url.searchParams.get('members');
+    const members = membersRaw === null ? 0 : Number(membersRaw);
+    if (!(Number.isInteger(members) && members >= 0 && members <= MAX_FAKE_MEMBERS)) {
+      sendError(res, 400, 'bad_members', `members must be a whole number within 0..${MAX_FAKE_MEMBERS}.`);
+      return;
+    }
     const forecast = buildFakeForecast({
       seed,
       latitude,
       longitude,
       issuedAtMs: latestIssueTimeMs(clock(), publishDelayHours),
       horizonDays,
+      members,
     });
     if (mode === 'malformed') {
       const text = JSON.stringify(forecast);

@@ -110,14 +110,14 @@ export class HttpForecastProvider implements ForecastProvider {
   }
 
   async fetchLatest(query: ForecastQuery): Promise<ForecastIssue> {
-    const { latitude, longitude, signal } = query;
+    const { latitude, longitude, signal, members } = query;
     if (!(Number.isFinite(latitude) && latitude >= -90 && latitude <= 90))
       throw new RangeError(`latitude must be within -90..90, got ${latitude}`);
     if (!(Number.isFinite(longitude) && longitude >= -180 && longitude <= 180))
       throw new RangeError(`longitude must be within -180..180, got ${longitude}`);
     signal?.throwIfAborted();
 
-    const url = this.adapter.requestUrl(this.base, { latitude, longitude });
+    const url = this.adapter.requestUrl(this.base, { latitude, longitude, ...(members ? { members } : {}) });
     const headers: Record<string, string> = { accept: 'application/json' };
     if (this.apiKey) headers.authorization = `Bearer ${this.apiKey}`;
 

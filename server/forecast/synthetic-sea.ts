@@ -28,6 +28,9 @@
  * - Tp is raised where needed so that Hs/L0 <= 1/16, which keeps the rounded values within the
  *   sea-state steepness limit of 1/15 (DNV-RP-C205: Sp = 2 pi Hs / (g Tp^2) <= 1/15 for Tp <= 8 s,
  *   from memory).
+ * - Partitions on request (docs/domain.md#partitions): wind sea = the breeze's sea and the weather
+ *   systems' seas, swell 1 = the distant swell events, swell 2 = the background swell, each with its
+ *   own Tp (its dominant component's) and energy-weighted direction.
  * - Values are rounded like real data: Hs to 0.01 m, Tp to 0.1 s, wind to 0.1 m/s, directions to 1 deg.
  *
  * Purity: every random draw is a hash of (seed, channel, storm or lattice index) and every value
@@ -79,6 +82,28 @@ export interface SyntheticSeaRequest {
   seed: number;
   /** Overrides of {@link DEFAULT_SEA_CLIMATE}. */
   climate?: Partial<SeaClimate>;
+  /** Also give the sea's partitions (docs/domain.md#partitions); the totals are the same either way. */
+  partitions?: boolean;
+}
+
+/** One partition over the series: Hs (m, 0.01 m; 0 = absent), Tp (s, 0.1 s; NaN when absent), direction (deg, whole; NaN when absent). */
+export interface SyntheticPartition {
+  hsM: Float64Array;
+  tpS: Float64Array;
+  dirDeg: Float64Array;
+}
+
+/**
+ * The partitions of the invented sea (docs/domain.md#partitions): the wind sea is the local
+ * breeze's sea and the weather systems' seas (they follow the wind), swell 1 the long-period
+ * swell from distant storms (11-16 s, from west of the prevailing direction), swell 2 the weak
+ * background swell (8-11 s). Each partition's Hs carries the same short-term noise factor as the
+ * total, so sqrt(sum Hs_i^2) equals the total Hs up to the 0.01 m rounding of each.
+ */
+export interface SyntheticPartitions {
+  windSea: SyntheticPartition;
+  swell1: SyntheticPartition;
+  swell2: SyntheticPartition;
 }
 
 /** Columnar sea-state series; all arrays have the same length. */
@@ -95,6 +120,51 @@ export interface SyntheticSeaSeries {
   windMps: Float64Array;
   /** Wind direction, nautical coming-from, deg in [0, 360), whole degrees. */
   windDirDeg: Float64Array;
+  /** The partitions, when the request asked for them. */
+  partitions?: SyntheticPartitions;
+}
+
+function partitionArrays(n: number): SyntheticPartition {
+  return { hsM: new Float64Array(n), tpS: new Float64Array(n), dirDeg: new Float64Array(n) };
+}
+
+/** One partition accumulated over its components: energy, the dominant component's Tp, the energy-weighted direction vector. */
+class PartitionSum {
+  e = 0;
+  domE = 0;
+  tp = NaN;
+  dx = 0;
+  dy = 0;
+  reset(): void {
+    this.e = 0;
+    this.domE = 0;
+    this.tp = NaN;
+    this.dx = 0;
+    this.dy = 0;
+  }
+  add(e: number, tp: number, dirDeg: number): void {
+    this.e += e;
+    if (e > this.domE) {
+      this.domE = e;
+      this.tp = tp;
+    }
+    this.dx += e * Math.sin(dirDeg * DEG);
+    this.dy += e * Math.cos(dirDeg * DEG);
+  }
+  /** Writes the partition at record i with the total's noise factor; below 0.01 m it is absent. */
+  write(out: SyntheticPartition, i: number, factor: number, noiseTp: number): void {
+    const hs = Math.round(Math.sqrt(this.e) * factor * 100) / 100;
+    if (!(hs >= 0.01)) {
+      out.hsM[i] = 0;
+      out.tpS[i] = NaN;
+      out.dirDeg[i] = NaN;
+      return;
+    }
+    out.hsM[i] = hs;
+    const tp = Math.max(this.tp * noiseTp, Math.sqrt(hs / (L0_PER_TP2 * MAX_STEEPNESS)), 2.5);
+    out.tpS[i] = Math.min(20, Math.round(tp * 10) / 10);
+    out.dirDeg[i] = Math.round(wrap360(Math.atan2(this.dx, this.dy) / DEG)) % 360;
+  }
 }
 
 const MS_PER_HOUR = 3_600_000;
@@ -231,6 +301,13 @@ export function generateSyntheticSea(request: SyntheticSeaRequest): SyntheticSea
     windMps: new Float64Array(n),
     windDirDeg: new Float64Array(n),
   };
+  const parts: SyntheticPartitions | null = request.partitions
+    ? { windSea: partitionArrays(n), swell1: partitionArrays(n), swell2: partitionArrays(n) }
+    : null;
+  if (parts) out.partitions = parts;
+  const windSea = new PartitionSum();
+  const swell1 = new PartitionSum();
+  const swell2 = new PartitionSum();
   if (n === 0) return out;
 
   const stepMs = stepMinutes * 60_000;
@@ -309,6 +386,13 @@ export function generateSyntheticSea(request: SyntheticSeaRequest): SyntheticSea
     const breezeDir = Math.atan2(smoothNoise(seed, Ch.BreezeDirX, tH, 20), smoothNoise(seed, Ch.BreezeDirY, tH, 20)) / DEG;
     const locHs = 0.35 * PM_HS_PER_U2 * breeze * breeze;
     const locTp = 2.2 + 0.35 * breeze;
+    if (parts) {
+      windSea.reset();
+      swell1.reset();
+      swell2.reset();
+      windSea.add(locHs * locHs, locTp, breezeDir);
+      swell2.add(bgHs * bgHs, bgTp, bgDir);
+    }
 
     let energy = bgHs * bgHs + locHs * locHs;
     let domE = bgHs * bgHs;
@@ -342,6 +426,7 @@ export function generateSyntheticSea(request: SyntheticSeaRequest): SyntheticSea
         }
         dx += e * Math.sin(dir * DEG);
         dy += e * Math.cos(dir * DEG);
+        if (parts) windSea.add(e, tp, dir);
       }
       // The wind leads the waves by sLag hours and falls off a little faster than they do.
       const sw = s + sLag[j];
@@ -372,12 +457,15 @@ export function generateSyntheticSea(request: SyntheticSeaRequest): SyntheticSea
       }
       dx += e * Math.sin(wDir[j] * DEG);
       dy += e * Math.cos(wDir[j] * DEG);
+      if (parts) swell1.add(e, wTp[j] - Math.max(-2, Math.min(2, s / 24)), wDir[j]);
     }
 
     // Small short-term variability (3-5 h lattices), then rounding like real data.
-    let hsOut = Math.sqrt(energy) * (1 + 0.05 * smoothNoise(seed, Ch.FastHs, tH, 3));
+    const hsNoise = 1 + 0.05 * smoothNoise(seed, Ch.FastHs, tH, 3);
+    let hsOut = Math.sqrt(energy) * hsNoise;
     hsOut = Math.max(0.05, Math.round(hsOut * 100) / 100);
-    let tpOut = domTp * (1 + 0.03 * smoothNoise(seed, Ch.FastTp, tH, 4));
+    const tpNoise = 1 + 0.03 * smoothNoise(seed, Ch.FastTp, tH, 4);
+    let tpOut = domTp * tpNoise;
     tpOut = Math.max(tpOut, Math.sqrt(hsOut / (L0_PER_TP2 * MAX_STEEPNESS)), 2.5);
     tpOut = Math.min(20, Math.round(tpOut * 10) / 10);
     const dirOut = Math.atan2(dx, dy) / DEG + 4 * smoothNoise(seed, Ch.FastDir, tH, 3);
@@ -387,6 +475,11 @@ export function generateSyntheticSea(request: SyntheticSeaRequest): SyntheticSea
     windOut = Math.min(20, Math.max(2, Math.round(windOut * 10) / 10));
     const windDirOut = Math.atan2(wx, wy) / DEG + 6 * smoothNoise(seed, Ch.FastWindDir, tH, 3);
 
+    if (parts) {
+      windSea.write(parts.windSea, i, hsNoise, tpNoise);
+      swell1.write(parts.swell1, i, hsNoise, tpNoise);
+      swell2.write(parts.swell2, i, hsNoise, tpNoise);
+    }
     out.timeMs[i] = tMs;
     out.hsM[i] = hsOut;
     out.tpS[i] = tpOut;

@@ -1,15 +1,17 @@
 /** The forecast module's interfaces: records, issues, providers and provider adapters. */
-import type { ExchangeSeriesKey } from './forecast-schema';
+import type { ExchangeSeriesKey, RequiredKey } from './forecast-schema';
 
 /**
  * Forecast records in columns: the valid times and one column per variable of the exchange
  * (`EXCHANGE_SERIES` in forecast-schema.ts: hs in m, tp in s, dir and windDir in deg coming-from
- * within [0, 360), wind at 10 m in m/s, ...). NaN marks a value the service left out.
+ * within [0, 360), wind at 10 m in m/s, ...). NaN marks a value the service left out; an optional
+ * member the answer left out (the partitions) has no column.
  */
 export type ForecastRecords = {
   /** Valid times, ms since 1970-01-01T00:00Z, strictly increasing. */
   timeMs: Float64Array;
-} & Record<ExchangeSeriesKey, Float64Array>;
+} & Record<RequiredKey, Float64Array> &
+  Partial<Record<Exclude<ExchangeSeriesKey, RequiredKey>, Float64Array>>;
 
 /** One forecast issue, validated and converted. */
 export interface ForecastIssue {
@@ -20,6 +22,11 @@ export interface ForecastIssue {
   /** Position the service answered for, deg east in [-180, 180]. */
   longitude: number;
   records: ForecastRecords;
+  /**
+   * Ensemble members beside the control (`records` is the control, member 0), each aligned with
+   * the control's times (the same `timeMs` array); absent or empty without an ensemble.
+   */
+  members?: { member: number; records: ForecastRecords }[];
 }
 
 export interface ForecastQuery {
@@ -27,6 +34,8 @@ export interface ForecastQuery {
   latitude: number;
   /** Data point longitude, deg east, -180..180. */
   longitude: number;
+  /** Ensemble members to ask for beside the control (0 or absent: none). A service without ensembles answers none. */
+  members?: number;
   /** Cancels the request; the promise then rejects with the signal's reason (not a ForecastServiceError). */
   signal?: AbortSignal;
 }
@@ -48,7 +57,7 @@ export interface ForecastProvider {
  */
 export interface ForecastAdapter {
   /** The request for a position, below the configured base URL (which ends with '/'). */
-  requestUrl(base: URL, position: { latitude: number; longitude: number }): URL;
+  requestUrl(base: URL, position: { latitude: number; longitude: number; members?: number }): URL;
   /**
    * Validates a JSON answer and converts it.
    * @throws ForecastServiceError('malformed') naming the first problems

@@ -25,6 +25,7 @@ import { calendarRoutes } from './calendar';
 import { recurrenceRoutes } from './recurrence';
 import { internalBackupRoutes } from './internal-backup';
 import { overviewRoutes } from './overview';
+import { forecastSkillRoutes } from './forecast-skill';
 
 /** Every API router, in the order they are mounted under /api. */
 export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
@@ -53,4 +54,5 @@ export const API_ROUTERS: ((deps: AppDeps) => Router)[] = [
   recurrenceRoutes,
   internalBackupRoutes,
   overviewRoutes,
+  forecastSkillRoutes,
 ];

@@ -24,6 +24,7 @@ export function subscriptionRoutes(deps: AppDeps): Router {
         digestTimeZone: 'UTC',
         active: false,
         outlookMoveDays: null,
+        windowChanceBelow: null,
         stored: false,
       },
     );

@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
 import { limitWords } from '../../shared/limit-words';
-import { START_WORDS, statusLabel, STATUS_WORDS } from '../../shared/status-words';
+import { CHANCE_WORDS, START_WORDS, chancePercent, statusLabel, STATUS_WORDS } from '../../shared/status-words';
 import { renderMail } from '../mail/message';
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
@@ -42,6 +42,8 @@ export function describeChange(c: ChangeWithReason, p: PlanSummary): string {
         : `${sentence(START_WORDS.noLongerStartNow)}${why}.`;
     case 'occurrence_no_go':
       return `${statusLabel('not_workable')}: the ${localTime(c.start!, z)} occurrence over its TR of ${p.tr} h${why}.`;
+    case 'window_chance_fell':
+      return `${sentence(CHANCE_WORDS.fellBelow)} ${chancePercent(c.threshold)}: the window ${span} now has a ${CHANCE_WORDS.window} of ${chancePercent(c.chance)} (was ${chancePercent(c.previousChance)}). The plan still counts it ${STATUS_WORDS.workable.word}; the ensemble doubts it.`;
   }
 }
 
@@ -58,6 +60,8 @@ export function shortChange(c: ChangeWithReason, timeZone: string): string {
       return c.startNow ? START_WORDS.startNow : START_WORDS.noLongerStartNow;
     case 'occurrence_no_go':
       return `${STATUS_WORDS.not_workable.word} at ${localTime(c.start!, timeZone)}`;
+    case 'window_chance_fell':
+      return `${CHANCE_WORDS.fellBelow} ${chancePercent(c.threshold)} (${localTime(c.start!, timeZone)})`;
   }
 }
 

@@ -29,6 +29,8 @@ const snapshot = (a: AlphaResponse) => ({ table: a.table, isDefault: a.isDefault
 /**
  * Sets (a table) or resets (null) the project's alpha table inside a transaction and writes the
  * audit entry; nothing is written when nothing changes. Used by the routes and the setup import.
+ * `recordedWithAfter` is kept in the entry's "after" beside the table (the adopted calibration's
+ * data, for instance); with it, an adoption is recorded even when the table is unchanged.
  */
 export async function writeAlpha(
   tx: Db,
@@ -36,13 +38,14 @@ export async function writeAlpha(
   user: SessionUser,
   table: AlphaTable | null,
   action: AuditAction,
+  recordedWithAfter?: Record<string, unknown>,
 ): Promise<AlphaResponse> {
   const before = await getAlpha(tx, projectId);
   if (table === null) {
     if (before.isDefault) return before;
     await tx.delete(projectAlpha).where(eq(projectAlpha.projectId, projectId));
   } else {
-    if (!before.isDefault && JSON.stringify(before.table) === JSON.stringify(table)) return before;
+    if (!recordedWithAfter && !before.isDefault && JSON.stringify(before.table) === JSON.stringify(table)) return before;
     const value = copyTable(table);
     const now = new Date();
     await tx
@@ -59,7 +62,7 @@ export async function writeAlpha(
     entityName: 'Alpha table',
     action,
     before: snapshot(before),
-    after: snapshot(after),
+    after: { ...snapshot(after), ...recordedWithAfter },
   });
   return after;
 }

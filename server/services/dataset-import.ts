@@ -25,6 +25,8 @@ import { createDataset, defaultHindcast, shortDefaultWarning } from './datasets'
 import { toSeaSeries } from './sea-series';
 import { netcdfKind } from './netcdf-file';
 import { readNetcdfPointUpload } from './netcdf-import';
+import { memberColumnOf, readEnsembleCsv } from './ensemble-csv';
+import type { MemberColumns } from './ensemble-store';
 
 export const MAX_UPLOAD_BYTES = 100 * 1024 * 1024;
 /** NetCDF uploads may be larger: only the chosen point's series is read from them. */
@@ -63,6 +65,13 @@ export function safeFileName(name: string): string {
     .trim();
   const kept = Array.from(clean).slice(0, MAX_FILE_NAME).join('').trim();
   return kept === '' || kept === '.' || kept === '..' ? 'upload' : kept;
+}
+
+/** A reader's refusal as the API's error: the file's issues (line, column, value, reason), or the options'. */
+function asHttpError(err: unknown): unknown {
+  if (err instanceof ImportError) return new HttpError('bad_file', `${err.message}`, err.issues);
+  if (err instanceof RangeError) return new HttpError('validation', err.message);
+  return err;
 }
 
 /**
@@ -113,30 +122,44 @@ export async function importUploadedFile(
     );
   }
   const format = form.format === 'auto' ? detectFormat(head) : form.format;
-  const parser = format === 'ndbc' ? new NdbcParser(ndbcOptionsFromForm(form)) : new CsvTextParser(csvOptionsFromForm(form));
-
+  // An ensemble forecast in CSV: a `member` column numbers the runs (docs/domain.md#forecast-uncertainty).
+  const memberColumn = format === 'csv' ? memberColumnOf(head) : null;
+  if (memberColumn && form.kind !== 'forecast') {
+    throw new HttpError('bad_file', `The column "${memberColumn.name}" numbers ensemble members: import this file as a forecast`, [
+      { line: 1, column: memberColumn.name, value: '', reason: 'a member column is only for an ensemble forecast (kind forecast)' },
+    ]);
+  }
+  let members: MemberColumns[] = [];
   let result: ImportResult;
-  try {
-    let bytesRead = 0;
-    let lastReport = 0;
-    const stream = fs.createReadStream(args.file.path, { encoding: 'utf8', highWaterMark: 1 << 20 });
-    for await (const chunk of stream as AsyncIterable<string>) {
-      bytesRead += Buffer.byteLength(chunk, 'utf8');
-      parser.push(chunk);
-      // Refused as a whole (a line or row over the limits, no time column): the rest is not read.
-      if (parser.failed) break;
-      if (args.onProgress && bytesRead - lastReport > 2 << 20) {
-        lastReport = bytesRead;
-        args.onProgress({ phase: 'parsing', bytesRead, totalBytes: args.file.size, rows: linesOf(parser) });
+  if (memberColumn) {
+    try {
+      const ensemble = readEnsembleCsv(await fs.promises.readFile(args.file.path, 'utf8'), memberColumn, csvOptionsFromForm(form));
+      result = ensemble.control;
+      members = ensemble.members;
+    } catch (err) {
+      throw asHttpError(err);
+    }
+  } else {
+    const parser = format === 'ndbc' ? new NdbcParser(ndbcOptionsFromForm(form)) : new CsvTextParser(csvOptionsFromForm(form));
+
+    try {
+      let bytesRead = 0;
+      let lastReport = 0;
+      const stream = fs.createReadStream(args.file.path, { encoding: 'utf8', highWaterMark: 1 << 20 });
+      for await (const chunk of stream as AsyncIterable<string>) {
+        bytesRead += Buffer.byteLength(chunk, 'utf8');
+        parser.push(chunk);
+        // Refused as a whole (a line or row over the limits, no time column): the rest is not read.
+        if (parser.failed) break;
+        if (args.onProgress && bytesRead - lastReport > 2 << 20) {
+          lastReport = bytesRead;
+          args.onProgress({ phase: 'parsing', bytesRead, totalBytes: args.file.size, rows: linesOf(parser) });
+        }
       }
+      result = parser.end();
+    } catch (err) {
+      throw asHttpError(err);
     }
-    result = parser.end();
-  } catch (err) {
-    if (err instanceof ImportError) {
-      throw new HttpError('bad_file', `${err.message}`, err.issues);
-    }
-    if (err instanceof RangeError) throw new HttpError('validation', err.message);
-    throw err;
   }
 
   // Limits are for wind at 10 m; NDBC buoys measure it at about 4-5 m: the height must be stated.
@@ -178,7 +201,9 @@ export async function importUploadedFile(
       anemometerHeightM: windHeight,
       windExponent,
       ...(format === 'csv' ? { directionConvention: form.directionConvention } : {}),
+      ...(members.length > 0 ? { ensembleMembers: members.length } : {}),
     },
+    members,
   );
   // A hindcast shorter than a year that is now the default for statistics (no default chosen, and
   // it is the newest) changes every figure of the project: say so.

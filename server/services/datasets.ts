@@ -10,6 +10,7 @@ import { quantileR7Sorted } from '../../shared/engine/quantile-r7';
 import { EXTRA_COLUMN_UNITS, presentExtraColumns } from '../../shared/seadata/extra-columns';
 import { describeSeries } from './sea-series';
 import { readSeries, writeSeries, type SeaSeries } from './series-store';
+import { writeMembers, type MemberColumns } from './ensemble-store';
 
 export interface DatasetMeta {
   projectId: string;
@@ -29,8 +30,17 @@ export interface DatasetMeta {
   windExponent?: number | null;
 }
 
-/** Stores a dataset and its series in one transaction: either all of it is saved or nothing. */
-export async function createDataset(db: Db, meta: DatasetMeta, series: SeaSeries, importReport: Record<string, unknown>) {
+/**
+ * Stores a dataset and its series in one transaction: either all of it is saved or nothing. An
+ * ensemble forecast's members beside the control (`series`) are stored with it (ensemble-store.ts).
+ */
+export async function createDataset(
+  db: Db,
+  meta: DatasetMeta,
+  series: SeaSeries,
+  importReport: Record<string, unknown>,
+  members: readonly MemberColumns[] = [],
+) {
   if (series.timeMs.length === 0) throw new HttpError('bad_file', 'The file holds no usable record');
   const info = describeSeries(series);
   return db.transaction(async (tx) => {
@@ -50,10 +60,12 @@ export async function createDataset(db: Db, meta: DatasetMeta, series: SeaSeries
         variables: info.variables,
         missing: info.missing,
         derived: info.derived,
+        ensembleMembers: members.length,
         importReport,
       })
       .returning();
     await writeSeries(tx as unknown as Db, row.id, series);
+    if (members.length > 0) await writeMembers(tx as unknown as Db, row.id, series.timeMs.length, members);
     return row;
   });
 }
@@ -96,6 +108,7 @@ export function toSummary(r: DatasetRow): DatasetSummary {
     expectedRecords: grid.expected,
     absentRecords: grid.absent,
     hsGapShare: grid.expected ? (hsMissing + grid.absent) / grid.expected : 0,
+    ensembleMembers: r.ensembleMembers,
     createdAt: r.createdAt.toISOString(),
   };
 }

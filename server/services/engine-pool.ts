@@ -165,6 +165,9 @@ export function sharedSeries<T extends object>(series: T): T {
       const copy = new Uint8Array(new SharedArrayBuffer(v.byteLength) as unknown as ArrayBuffer);
       copy.set(v);
       out[k] = copy;
+    } else if (k === 'extra' && v && typeof v === 'object') {
+      // The optional columns (water level, current, partitions) are shared the same way.
+      out[k] = sharedSeries(v as object);
     } else out[k] = v;
   }
   return out as T;

@@ -1,3 +1,4 @@
+import { EXTRA_COLUMNS, type ExtraSeries } from '../../shared/seadata/extra-columns';
 import { eq } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { project } from '../db/schema';
@@ -7,10 +8,15 @@ import { HttpError } from '../http/errors';
 import { createDataset, latestDataset } from './datasets';
 import { toSeaSeries } from './sea-series';
 
+/** Ensemble members the client asks for beside the control (docs/domain.md#forecast-uncertainty). */
+export const ENSEMBLE_MEMBERS_ASKED = 20;
+
 export interface FetchedForecast {
   datasetId: string;
   issuedAt: string;
   records: number;
+  /** Ensemble members stored beside the control (0: the service sent none). */
+  members: number;
   /** false when this issue was already stored (nothing new). */
   isNew: boolean;
 }
@@ -35,7 +41,11 @@ export async function fetchLatestForecast(
   }
   let issue;
   try {
-    issue = await provider.fetchLatest({ latitude: p.dataPointLatitude, longitude: p.dataPointLongitude });
+    issue = await provider.fetchLatest({
+      latitude: p.dataPointLatitude,
+      longitude: p.dataPointLongitude,
+      members: ENSEMBLE_MEMBERS_ASKED,
+    });
   } catch (err) {
     if (err instanceof ForecastServiceError) {
       throw new HttpError('unavailable', `The forecast service failed: ${err.message} The previous forecast is kept.`, { code: err.code });
@@ -44,10 +54,22 @@ export async function fetchLatestForecast(
   }
   const previous = await latestDataset(db, projectId, 'forecast');
   if (previous?.issuedAt && previous.issuedAt.getTime() === issue.issuedAtMs && previous.sourceKind === 'service') {
-    return { datasetId: previous.id, issuedAt: previous.issuedAt.toISOString(), records: previous.recordCount, isNew: false };
+    return {
+      datasetId: previous.id,
+      issuedAt: previous.issuedAt.toISOString(),
+      records: previous.recordCount,
+      members: previous.ensembleMembers,
+      isNew: false,
+    };
   }
   const r = issue.records;
-  const series = toSeaSeries({ timeMs: r.timeMs, hs: r.hs, tp: r.tp, dir: r.dir, wind: r.wind, windDir: r.windDir });
+  // Partitions the service gave (docs/domain.md#partitions) go to the optional columns.
+  const extra: ExtraSeries = {};
+  for (const c of EXTRA_COLUMNS) {
+    const values = (r as Partial<Record<string, Float64Array>>)[c];
+    if (values) extra[c] = values;
+  }
+  const series = toSeaSeries({ timeMs: r.timeMs, hs: r.hs, tp: r.tp, dir: r.dir, wind: r.wind, windDir: r.windDir, extra });
   const issuedAt = new Date(issue.issuedAtMs);
   const row = await createDataset(
     db,
@@ -68,6 +90,14 @@ export async function fetchLatestForecast(
     },
     series,
     { source: provider.name },
+    (issue.members ?? []).map((m) => ({
+      member: m.member,
+      hs: m.records.hs,
+      tp: m.records.tp,
+      dir: m.records.dir,
+      wind: m.records.wind,
+      windDir: m.records.windDir,
+    })),
   );
-  return { datasetId: row.id, issuedAt: issuedAt.toISOString(), records: row.recordCount, isNew: true };
+  return { datasetId: row.id, issuedAt: issuedAt.toISOString(), records: row.recordCount, members: row.ensembleMembers, isNew: true };
 }

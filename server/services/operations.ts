@@ -33,6 +33,12 @@ export function normalizeLimits(limits: OperationLimits): OperationLimits {
     out.bedVelocityMethod = limits.bedVelocityMethod ?? 'linear';
   }
   if (limits.windMax != null) out.windMax = limits.windMax;
+  // Hs limits on partition targets (docs/domain.md#partitions), T* only on the long-period target.
+  if (limits.hsTargets != null && limits.hsTargets.length > 0)
+    out.hsTargets = limits.hsTargets.map((t) =>
+      t.target === 'longPeriod' ? { target: t.target, minPeriodS: t.minPeriodS, max: t.max } : { target: t.target, max: t.max },
+    );
+  if (limits.tpExcludedMinHs != null) out.tpExcludedMinHs = limits.tpExcludedMinHs;
   return out;
 }
 

@@ -35,6 +35,16 @@ function dominantLimit(p: OperationSitePlan, fromMs: number, toMs: number): stri
   return best;
 }
 
+/**
+ * The ensemble chance that the go-start holds TR (docs/domain.md#forecast-uncertainty): the share of
+ * runs with a go-start at the earliest start (which is the current record when it may start now).
+ */
+function goChance(p: OperationSitePlan): number | null {
+  if (!p.startChance || !p.earliestStart) return null;
+  const i = p.times.indexOf(p.earliestStart);
+  return i < 0 ? null : p.startChance[i];
+}
+
 /** One line of the Overview from one plan row. */
 export function overviewLine(p: OperationSitePlan, nowMs: number, userId: string): OverviewLine {
   const goMs = p.startNow ? nowMs : p.earliestStart ? Date.parse(p.earliestStart) : null;
@@ -57,7 +67,7 @@ export function overviewLine(p: OperationSitePlan, nowMs: number, userId: string
     earliestStart: p.earliestStart,
     windowHours: window ? window.hours : null,
     limiting: p.startNow ? null : dominantLimit(p, nowMs, goMs ?? endMs),
-    chance: null,
+    chance: goChance(p),
     next: { times: idx.map((i) => p.times[i]), status: idx.map((i) => p.status[i]) },
   };
 }

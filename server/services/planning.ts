@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { and, desc, eq, gte, ne } from 'drizzle-orm';
-import { comparePlans, type PlanSummary } from '../../shared/alerts/compare-plans';
+import { chanceDrops, comparePlans, type PlanSummary } from '../../shared/alerts/compare-plans';
 import type { OperationSitePlan } from '../../shared/api-types-plan';
 import type { AppDeps } from '../deps';
 import { alert, planRun, project } from '../db/schema';
@@ -45,7 +45,7 @@ function summarise(p: OperationSitePlan): PlanSummary {
     siteName: p.siteName,
     timeZone: p.timeZone,
     tr: p.tr,
-    windows: p.windows.map(({ start, end, hours }) => ({ start, end, hours })),
+    windows: p.windows.map(({ start, end, hours, chance }) => ({ start, end, hours, chance })),
     earliestStart: p.earliestStart,
     startNow: p.startNow,
     occurrences: p.occurrences,
@@ -105,7 +105,8 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
       return { projectId, status: 'failed', reason: 'No forecast to plan on', planRunId: run.id };
     }
     const summaries = plan.plans.map(summarise);
-    const changes: ChangeWithReason[] = comparePlans(await previousPlans(db, projectId), summaries, {
+    const previous = await previousPlans(db, projectId);
+    const changes: ChangeWithReason[] = comparePlans(previous, summaries, {
       nowMs: now.getTime(),
       earliestMoveHours: deps.config.earliestMoveAlertHours,
     }).map((c) => {
@@ -121,9 +122,17 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
       const k = `${c.operationId}|${c.siteId}`;
       bySite.set(k, [...(bySite.get(k) ?? []), c]);
     }
-    for (const [k, list] of bySite) {
-      const summary = summaries.find((s) => `${s.operationId}|${s.siteId}` === k)!;
+    const previousByKey = new Map((previous ?? []).map((x) => [`${x.operationId}|${x.siteId}`, x]));
+    for (const summary of summaries) {
+      const k = `${summary.operationId}|${summary.siteId}`;
       for (const s of subs.filter((s) => covers(s, summary.operationId, summary.siteId))) {
+        // The plan's changes, and this subscriber's own "window chance fell below" (docs/domain.md#forecast-uncertainty).
+        const own =
+          s.windowChanceBelow === null || s.windowChanceBelow === undefined
+            ? []
+            : chanceDrops(previousByKey.get(k), summary, s.windowChanceBelow / 100, now.getTime());
+        const list: ChangeWithReason[] = [...(bySite.get(k) ?? []), ...own];
+        if (list.length === 0) continue;
         const changeKeys = list
           .map((c) => c.key)
           .sort()

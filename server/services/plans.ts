@@ -1,6 +1,17 @@
-import { LIMIT_NAMES, STATUS, alphaFactor, isWeatherRestricted, planOperation, recordSteps } from '../../shared/engine';
+import {
+  LIMIT_NAMES,
+  STATUS,
+  alphaFactor,
+  ensembleChancesMany,
+  isWeatherRestricted,
+  planOperation,
+  quantileR7Sorted,
+  recordSteps,
+  type EnsembleChances,
+} from '../../shared/engine';
 import { explainHour, type HourStatus } from '../../shared/engine/explain-hour';
-import { transformOne } from '../../shared/waves';
+import { targetHsSeries } from '../../shared/engine/hs-targets';
+import { PARTITION_NAMES, transformOne, transformPartitionedOne } from '../../shared/waves';
 import { expandRecurrence, RecurrenceInput } from '../../shared/recurrence';
 import type { ConditionsAnswer, HourChainAnswer, OccurrenceStatus, OperationSitePlan, PlanAnswer } from '../../shared/api-types-plan';
 import type { Db } from '../db/client';
@@ -8,8 +19,17 @@ import { HttpError } from '../http/errors';
 import { getDatasetRow, latestDataset } from './datasets';
 import { createHash } from 'node:crypto';
 import { encodedAnswer } from './encoded-answers';
-import { loadProjectSetup, operationSpec, siteTide, sitesOf, transformForSite, type ProjectSetup } from './site-context';
-import { readSeries } from './series-store';
+import {
+  engineSeriesAtSites,
+  loadProjectSetup,
+  operationSpec,
+  siteTide,
+  sitesOf,
+  transformForSite,
+  type ProjectSetup,
+} from './site-context';
+import { readSeries, type SeaSeries } from './series-store';
+import { readMembers } from './ensemble-store';
 import { STATS_FORMAT } from './workability';
 
 const STATUS_NAMES: HourStatus[] = [];
@@ -129,6 +149,9 @@ async function computePlan(
   const times = Array.from(series.timeMs, iso);
   const stepMs = row.stepMinutes * 60_000;
   const perSite = new Map(setup.sites.map((s) => [s.id, transformForSite(series, row.dataPointDepthM, s)]));
+  const members = row.ensembleMembers > 0 ? await readMembers(db, row.id, series) : [];
+  const chances = ensembleChancesPerPair(series, members, row.dataPointDepthM, setup, perSite, stepMs);
+  const chance3 = (a: Float64Array) => Array.from(a, (x) => Math.round(x * 1000) / 1000);
   const plans: OperationSitePlan[] = [];
   for (const op of setup.operations) {
     const spec = operationSpec(op);
@@ -138,6 +161,7 @@ async function computePlan(
       const t = perSite.get(site.id)!;
       const plan = planOperation(t.engine, spec, setup.alphaTable, options.now.getTime(), { alpha: options.alpha, stepMs });
       const statusNames = Array.from(plan.status, (s) => STATUS_NAMES[s]);
+      const ch = chances.get(`${op.id}:${site.id}`);
       plans.push({
         operationId: op.id,
         operationName: op.name,
@@ -155,6 +179,7 @@ async function computePlan(
           end: iso(w.endMs),
           hours: w.hours,
           minMargin: { perLimit: w.minMargin.perLimit as Record<string, number>, relative: w.minMargin.relative },
+          chance: ch ? Math.round(ch.start[w.startIndex] * 1000) / 1000 : null,
         })),
         earliestStart: plan.earliestStartMs === null ? null : iso(plan.earliestStartMs),
         startNow: plan.startNow,
@@ -172,6 +197,8 @@ async function computePlan(
         ),
         limiting: Array.from(plan.limiting, (c) => LIMIT_NAMES[c] ?? null),
         marginRel: Array.from(plan.marginRel, (m) => (Number.isFinite(m) ? Math.round(m * 1000) / 1000 : null)),
+        chance: ch ? chance3(ch.hour) : null,
+        startChance: ch && !plan.informationOnly ? chance3(ch.start) : null,
       });
     }
   }
@@ -187,8 +214,35 @@ async function computePlan(
     span: { from: iso(span.fromMs), to: iso(span.toMs), asAt: iso(span.nowMs) },
     alpha: options.alpha,
     stepMinutes: row.stepMinutes,
+    ensemble: members.length > 0 ? { runs: members.length + 1 } : null,
     plans,
   };
+}
+
+/**
+ * Ensemble chances per (operation, worksite) (docs/domain.md#forecast-uncertainty): every run
+ * (the control and each member) transformed to the worksite like the control, all operations at
+ * the worksite evaluated together on OPLIM. Empty without members.
+ */
+export function ensembleChancesPerPair(
+  control: SeaSeries,
+  members: readonly SeaSeries[],
+  dataPointDepthM: number | null,
+  setup: ProjectSetup,
+  perSite: Map<string, ReturnType<typeof transformForSite>>,
+  stepMs: number,
+): Map<string, EnsembleChances> {
+  const out = new Map<string, EnsembleChances>();
+  if (members.length === 0 || control.timeMs.length === 0) return out;
+  const memberSites = members.map((m) => engineSeriesAtSites(m, dataPointDepthM, setup.sites));
+  for (const site of setup.sites) {
+    const ops = setup.operations.filter((op) => sitesOf(op, setup.sites).some((s) => s.id === site.id));
+    if (ops.length === 0) continue;
+    const runs = [perSite.get(site.id)!.engine, ...memberSites.map((m) => m.get(site.id)!)];
+    const result = ensembleChancesMany(runs, ops.map(operationSpec), setup.alphaTable, stepMs);
+    ops.forEach((op, k) => out.set(`${op.id}:${site.id}`, result[k]));
+  }
+  return out;
 }
 
 /** Occurrence starts of a stored recurrence inside the plan's horizon (none when it is not a valid rule). */
@@ -273,17 +327,52 @@ export async function hourChain(
     { depthM: row.dataPointDepthM ?? Infinity },
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
+  // Partitions, each through the chain with its own Tp and direction (docs/domain.md#partitions).
+  const parts: Parameters<typeof transformPartitionedOne>[1] = {};
+  for (const k of PARTITION_NAMES) {
+    const hs = series.extra[`${k}.hs`];
+    if (hs) parts[k] = { hsM: hs[i], tpS: series.extra[`${k}.tp`]?.[i] ?? NaN, dirDeg: series.extra[`${k}.dir`]?.[i] ?? NaN };
+  }
+  const combined = transformPartitionedOne(
+    { hsM: series.hs[i], tpS: series.tp[i], tzS: series.tz[i], dirDeg: series.dir[i], waterLevelM: waterLevel },
+    parts,
+    { depthM: row.dataPointDepthM ?? Infinity },
+    { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
+  );
+  const hasPartitionColumns = Object.keys(parts).length > 0;
+  const hourPartitions = hasPartitionColumns
+    ? Object.fromEntries(
+        PARTITION_NAMES.map((k) => {
+          const p = combined?.partitions.find((c) => c.name === k);
+          return [k, { hsM: combined ? (p ? p.hsM : 0) : NaN, tpS: p ? p.tpS : NaN }];
+        }),
+      )
+    : undefined;
+  const siteHs = combined ? combined.hsM : chain.hsM;
+  const siteTp = combined ? combined.tpS : series.tp[i];
+  const siteBedLinear = combined ? combined.bedVelocityLinearMps : chain.bedVelocityLinearMps;
+  const siteBedSoulsby = combined ? combined.bedVelocitySoulsbyMps : chain.bedVelocitySoulsbyMps;
   const spec = operationSpec(op);
+  // The ensemble's Hs at the worksite in this hour: every run (control and members) through the same chain.
+  const members = row.ensembleMembers > 0 ? await readMembers(db, row.id, series) : [];
+  let ensemble: HourChainAnswer['ensemble'] = null;
+  if (members.length > 0) {
+    const hs = [chain.hsM, ...members.map((m) => siteHsOf(m, i, waterLevel, row.dataPointDepthM, site))].filter((x) => !Number.isNaN(x));
+    hs.sort((a, b) => a - b);
+    const q = (p: number) => (hs.length ? Math.round(quantileR7Sorted(hs, p) * 1000) / 1000 : null);
+    ensemble = { runs: members.length + 1, withData: hs.length, hs: { min: q(0), p10: q(0.1), p50: q(0.5), p90: q(0.9), max: q(1) } };
+  }
   const explained = explainHour(
     {
-      hsM: chain.hsM,
-      tpS: series.tp[i],
-      bedVelocityLinearMps: chain.bedVelocityLinearMps,
-      bedVelocitySoulsbyMps: chain.bedVelocitySoulsbyMps,
+      hsM: siteHs,
+      tpS: siteTp,
+      bedVelocityLinearMps: siteBedLinear,
+      bedVelocitySoulsbyMps: siteBedSoulsby,
       windMps: series.wind[i],
       depthM: chain.depthM,
       timeMs: series.timeMs[i],
       ...(tide ? { tide: tide.tide } : {}),
+      ...(hourPartitions ? { partitions: hourPartitions as NonNullable<Parameters<typeof explainHour>[0]['partitions']> } : {}),
     },
     spec,
     setup.alphaTable,
@@ -307,15 +396,42 @@ export async function hourChain(
       waterLevel: waterLevel === null ? null : v(waterLevel),
       depth: chain.depthM,
       current: null,
-      hs: v(chain.hsM),
-      bedVelocityLinear: v(chain.bedVelocityLinearMps),
-      bedVelocitySoulsby: v(chain.bedVelocitySoulsbyMps),
+      hs: v(siteHs),
+      bedVelocityLinear: v(siteBedLinear),
+      bedVelocitySoulsby: v(siteBedSoulsby),
       wind: v(series.wind[i]),
+      tp: v(siteTp),
+      dir: v(combined ? combined.dirDeg : chain.dirDeg),
     },
+    ...(combined
+      ? {
+          partitions: combined.partitions.map((p) => ({
+            name: p.name,
+            dataPoint: { hs: v(p.hsSrcM), tp: p.hsSrcM > 0 ? v(p.tpS) : null, dir: p.hsSrcM > 0 ? v(p.dirSrcDeg) : null },
+            site: { hs: v(p.hsM), tp: p.hsSrcM > 0 ? v(p.tpS) : null, dir: p.hsSrcM > 0 ? v(p.dirDeg) : null },
+          })),
+        }
+      : {}),
     status: explained.status,
     checks: explained.checks,
     informationOnly: !isWeatherRestricted(spec),
+    ensemble,
   };
+}
+
+/** One run's Hs at the worksite at record i, through the control's chain (docs/domain.md#transformation). */
+function siteHsOf(
+  run: SeaSeries,
+  i: number,
+  waterLevel: number | null,
+  dataPointDepthM: number | null,
+  site: ProjectSetup['sites'][number],
+): number {
+  return transformOne(
+    { hsM: run.hs[i], tpS: run.tp[i], tzS: run.tz[i], dirDeg: run.dir[i], waterLevelM: waterLevel },
+    { depthM: dataPointDepthM ?? Infinity },
+    { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
+  ).hsM;
 }
 
 /** Worksite conditions over a dataset with each operation's limit and forecast limit. */
@@ -354,8 +470,14 @@ export async function siteConditions(
     ...empty,
     times: Array.from(series.timeMs, iso),
     hs: col(t.transformed.hsM),
-    tp: col(series.tp),
+    tp: col(t.engine.tpS),
     dir: col(t.transformed.dirDeg),
+    ...(t.engine.partitions
+      ? {
+          swellHs: col(targetHsSeries(t.engine, 'swell', NaN)),
+          windSeaHs: col(targetHsSeries(t.engine, 'windSea', NaN)),
+        }
+      : {}),
     wind: col(series.wind),
     bedVelocityLinear: col(t.transformed.bedVelocityLinearMps),
     bedVelocitySoulsby: col(t.transformed.bedVelocitySoulsbyMps),

@@ -61,6 +61,7 @@ export async function getProject(db: Db, projectId: string, role: ProjectAccessR
     dataPointLongitude: row.dataPointLongitude,
     dataPointDepthM: row.dataPointDepthM,
     forecastSource: row.forecastSource,
+    alphaCalibrationP: row.alphaCalibrationP,
     createdAt: row.createdAt.toISOString(),
   };
 }

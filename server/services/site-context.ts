@@ -6,7 +6,16 @@ import {
   type OperationSpec,
   type SiteSeries as EngineSeries,
 } from '../../shared/engine';
-import { transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
+import {
+  PARTITION_NAMES,
+  prepareSeaInput,
+  transformPartitionedToSite,
+  transformToSite,
+  type PartitionInput,
+  type PartitionedSiteSeries as TransformedSeries,
+  type SiteSeries as PlainTransformedSeries,
+} from '../../shared/waves';
+import type { ExtraSeries } from '../../shared/seadata/extra-columns';
 import type { Db } from '../db/client';
 import { operation, projectAlpha, worksite } from '../db/schema';
 import type { SeaSeries } from './series-store';
@@ -108,31 +117,58 @@ export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitud
  */
 export function engineSeries(
   series: SeaSeries,
-  transformed: TransformedSeries,
+  transformed: PlainTransformedSeries | TransformedSeries,
   site: Pick<WorksiteRow, 'depthM'>,
   tide: SiteTide | null,
 ): EngineSeries {
+  const partitioned = 'partitions' in transformed && hasPartitionColumns(series.extra);
   return {
     timeMs: series.timeMs,
     hsM: transformed.hsM,
-    tpS: series.tp,
+    // The most energetic partition's Tp where a record is combined from partitions (docs/domain.md#partitions).
+    tpS: partitioned ? (transformed as TransformedSeries).tpS : series.tp,
     bedVelocityLinearMps: transformed.bedVelocityLinearMps,
     bedVelocitySoulsbyMps: transformed.bedVelocitySoulsbyMps,
     windMps: series.wind,
     // With a tide the transformation wrote h(t); a reused `out` may hold an earlier worksite's, so only then.
     depthM: tide && transformed.depthM ? transformed.depthM : new Float64Array(series.timeMs.length).fill(site.depthM),
     ...(tide ? { tide: tide.tide } : {}),
+    ...(partitioned ? { partitions: (transformed as TransformedSeries).partitions } : {}),
   };
 }
 
+/** True when a series has any partition column (docs/domain.md#partitions). */
+export function hasPartitionColumns(extra: ExtraSeries): boolean {
+  return PARTITION_NAMES.some((k) => extra[`${k}.hs`] !== undefined);
+}
+
 /**
- * Transforms a data-point series to a worksite (docs/domain.md#transformation)
- * and packs what the engine needs. `dataPointDepthM` null means deep water.
+ * The partitions of a series' optional columns, for the transformation (docs/domain.md#partitions):
+ * a partition is in the dataset when its Hs column is; a missing Tp or direction column reads as
+ * missing values. Null when the series has none.
+ */
+export function partitionInputOf(extra: ExtraSeries, length: number): PartitionInput | null {
+  if (!hasPartitionColumns(extra)) return null;
+  const out: PartitionInput = {};
+  const nan = () => new Float64Array(length).fill(NaN);
+  for (const k of PARTITION_NAMES) {
+    const hs = extra[`${k}.hs`];
+    if (!hs) continue;
+    out[k] = { hsM: hs, tpS: extra[`${k}.tp`] ?? nan(), dirDeg: extra[`${k}.dir`] ?? nan() };
+  }
+  return out;
+}
+
+/**
+ * Transforms a data-point series to a worksite (docs/domain.md#transformation), each partition
+ * with its own period and direction where the dataset gives them (docs/domain.md#partitions),
+ * and packs what the engine needs; `transformed.partitions` holds the worksite partitions. `dataPointDepthM` null means deep water.
  */
 export function transformForSite(series: SeaSeries, dataPointDepthM: number | null, site: WorksiteRow): TransformedSite {
   const tide = siteTide(site, series.timeMs);
-  const transformed = transformToSite(
+  const transformed = transformPartitionedToSite(
     { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir, waterLevelM: tide?.waterLevelM ?? null },
+    partitionInputOf(series.extra, series.timeMs.length),
     { depthM: dataPointDepthM ?? Infinity },
     { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
   );
@@ -143,4 +179,35 @@ export function transformForSite(series: SeaSeries, dataPointDepthM: number | nu
     tideSource: tide?.source ?? null,
     engine: engineSeries(series, transformed, site, tide),
   };
+}
+
+/**
+ * One series (an ensemble member) at several worksites, only what the engine reads: the same chain
+ * as {@link transformForSite} (docs/domain.md#transformation), the series' distinct periods and
+ * directions found once and only Hs and the bed velocities written (the same values bit for bit).
+ * @returns the engine series per worksite id
+ */
+export function engineSeriesAtSites(
+  series: SeaSeries,
+  dataPointDepthM: number | null,
+  sites: readonly WorksiteRow[],
+): Map<string, EngineSeries> {
+  const input = { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir };
+  let prepared: ReturnType<typeof prepareSeaInput> | undefined;
+  const out = new Map<string, EngineSeries>();
+  for (const site of sites) {
+    const tide = siteTide(site, series.timeMs);
+    const geometry = {
+      depthM: site.depthM,
+      shoreNormalDeg: site.shoreNormalDeg,
+      breakerIndex: site.breakerIndex,
+      transferTable: site.transferTable,
+    };
+    const source = { depthM: dataPointDepthM ?? Infinity };
+    const transformed = tide
+      ? transformToSite({ ...input, waterLevelM: tide.waterLevelM }, source, geometry)
+      : transformToSite(input, source, geometry, { prepared: (prepared ??= prepareSeaInput(input)), fields: 'engine' });
+    out.set(site.id, engineSeries(series, transformed, site, tide));
+  }
+  return out;
 }

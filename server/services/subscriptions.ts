@@ -45,6 +45,7 @@ export async function effectiveSubscriptions(db: Db, projectId: string): Promise
         digestTimeZone: row.digestTimeZone,
         active: row.active,
         outlookMoveDays: row.outlookMoveDays,
+        windowChanceBelow: row.windowChanceBelow,
       });
     } else if (m.role === 'skipper') {
       const assigned = ops.filter((o) => o.skipperIds.includes(m.userId)).map((o) => o.id);
@@ -62,6 +63,7 @@ export async function effectiveSubscriptions(db: Db, projectId: string): Promise
         digestTimeZone: 'UTC',
         active: true,
         outlookMoveDays: null,
+        windowChanceBelow: null,
       });
     }
   }
@@ -122,8 +124,9 @@ export async function unsubscribe(db: Db, userId: string, projectId: string): Pr
     digestTimeZone: 'UTC',
     active: true,
     outlookMoveDays: null,
+    windowChanceBelow: null,
   };
-  const { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, outlookMoveDays } = base;
+  const { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, outlookMoveDays, windowChanceBelow } = base;
   await saveSubscription(db, userId, projectId, {
     operationIds,
     siteIds,
@@ -133,6 +136,7 @@ export async function unsubscribe(db: Db, userId: string, projectId: string): Pr
     digestTimeZone,
     active: false,
     outlookMoveDays,
+    windowChanceBelow,
   });
 }
 

@@ -21,7 +21,13 @@ import {
   type OperationSpec,
   type SiteSeries as EngineSeries,
 } from '../../shared/engine';
-import { createSiteSeries, prepareSeaInput, transformToSite, type SiteSeries as TransformedSeries } from '../../shared/waves';
+import {
+  createSiteSeries,
+  prepareSeaInput,
+  transformPartitionedToSite,
+  transformToSite,
+  type SiteSeries as TransformedSeries,
+} from '../../shared/waves';
 import { csvField } from '../../shared/csv-field';
 import type { WorkabilityCalendarMonth, WorkabilityEntry, WorkabilityMonth, WorkabilityYearMonth } from '../../shared/api-types-downtime';
 import type { Db } from '../db/client';
@@ -32,6 +38,7 @@ import { readSeries, type SeaSeries } from './series-store';
 import {
   engineSeries,
   loadProjectSetup,
+  partitionInputOf,
   operationSpec,
   siteTide,
   sitesOf,
@@ -238,17 +245,24 @@ export function forEachOperationSite(
   // The data point's distinct periods and directions once for every worksite; only the fields the engine reads.
   const sea = { hsM: series.hs, tpS: series.tp, tzS: series.tz, dirDeg: series.dir };
   const prepared = prepareSeaInput(sea);
+  const partitions = partitionInputOf(series.extra, n);
   for (const site of setup.sites) {
     const pairs = pairsBySite.get(site.id);
     if (!pairs) continue;
     // The hindcast has no water level: the predicted tide at its times (docs/domain.md#tide).
     const tide = siteTide(site, series.timeMs);
-    const t = transformToSite(
-      tide ? { ...sea, waterLevelM: tide.waterLevelM } : sea,
-      { depthM: row.dataPointDepthM ?? Infinity },
-      { depthM: site.depthM, shoreNormalDeg: site.shoreNormalDeg, breakerIndex: site.breakerIndex, transferTable: site.transferTable },
-      { out, fields: 'engine', prepared },
-    );
+    const input = tide ? { ...sea, waterLevelM: tide.waterLevelM } : sea;
+    const source = { depthM: row.dataPointDepthM ?? Infinity };
+    const geometry = {
+      depthM: site.depthM,
+      shoreNormalDeg: site.shoreNormalDeg,
+      breakerIndex: site.breakerIndex,
+      transferTable: site.transferTable,
+    };
+    // Partitions go one by one through the chain (docs/domain.md#partitions); total-only data keeps the fast path.
+    const t = partitions
+      ? transformPartitionedToSite(input, partitions, source, geometry)
+      : transformToSite(input, source, geometry, { out, fields: 'engine', prepared });
     const engine: EngineSeries = engineSeries(series, t, site, tide);
     let calendar = calendars.get(site.timeZone);
     if (!calendar) {

@@ -16,13 +16,15 @@ export interface PlanSummary {
   siteName: string;
   timeZone: string;
   tr: number;
-  windows: { start: string; end: string; hours: number }[];
+  /** `chance`: the ensemble chance to hold TR from the window's start (absent or null without an ensemble). */
+  windows: { start: string; end: string; hours: number; chance?: number | null }[];
   earliestStart: string | null;
   startNow: boolean;
   occurrences: { start: string; status: 'go' | 'marginal' | 'no_go' | 'no_data' | 'information' }[];
 }
 
-export type ChangeKind = 'window_opened' | 'window_lost' | 'earliest_moved' | 'start_now_changed' | 'occurrence_no_go';
+export type ChangeKind =
+  'window_opened' | 'window_lost' | 'earliest_moved' | 'start_now_changed' | 'occurrence_no_go' | 'window_chance_fell';
 
 export interface PlanChange {
   kind: ChangeKind;
@@ -40,6 +42,45 @@ export interface PlanChange {
   /** Window opened or lost: the first and the last start still possible at planning time. */
   usableFrom?: string | null;
   lastStart?: string | null;
+  /** Window chance fell: the chance now and in the previous plan (0-1), and the threshold crossed. */
+  chance?: number;
+  previousChance?: number;
+  threshold?: number;
+}
+
+/**
+ * A subscriber's "window chance fell below" alerts (docs/domain.md#forecast-uncertainty): each
+ * window of the new plan still usable at `nowMs` whose ensemble chance to hold TR is below
+ * `threshold` (0-1) while the previous plan's overlapping window had it at or above the threshold.
+ * Nothing without chances in both plans, or without an overlapping window before (a new window is
+ * already announced as new).
+ */
+export function chanceDrops(previous: PlanSummary | undefined, next: PlanSummary, threshold: number, nowMs: number): PlanChange[] {
+  if (!previous) return [];
+  const out: PlanChange[] = [];
+  for (const w of next.windows) {
+    if (w.chance === null || w.chance === undefined || !(w.chance < threshold)) continue;
+    const usable = usableStarts(w, next.tr, nowMs);
+    if (usable === null) continue;
+    const before = previous.windows.find((pw) => overlaps(pw, w) && pw.chance !== null && pw.chance !== undefined);
+    if (!before || !(before.chance! >= threshold)) continue;
+    out.push({
+      kind: 'window_chance_fell',
+      key: `chance<${Math.round(threshold * 100)}:${w.start}`,
+      operationId: next.operationId,
+      siteId: next.siteId,
+      start: w.start,
+      end: w.end,
+      hours: w.hours,
+      previous: before.start,
+      usableFrom: usable.from,
+      lastStart: usable.last,
+      chance: w.chance,
+      previousChance: before.chance!,
+      threshold,
+    });
+  }
+  return out;
 }
 
 const MS_PER_HOUR = 3_600_000;

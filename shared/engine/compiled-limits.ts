@@ -1,5 +1,15 @@
 import { alphaInRow, alphaRowIndex } from './alpha-factor';
-import type { AlphaTable, OperationSpec, TideWindowLimit } from './types';
+import { DEFAULT_BAND_MIN_HS_M } from './hs-targets';
+import type { AlphaTable, HsTarget, OperationSpec, TideWindowLimit } from './types';
+
+/** An Hs max on a target, compiled: OPLIM, OPWF = alpha(OPLIM) * OPLIM with the total's table (docs/domain.md#partitions). */
+export interface CompiledHsTarget {
+  target: HsTarget;
+  /** T*, s (NaN unless long-period). */
+  minPeriodS: number;
+  max: number;
+  opwf: number;
+}
 
 /**
  * An operation's limits prepared for the hot loops: absent limits are NaN or empty arrays,
@@ -42,6 +52,10 @@ export interface CompiledLimits {
   tideWindow: TideWindowLimit | null;
   needDepth: boolean;
   needCurrent: boolean;
+  /** Hs limits on targets (docs/domain.md#partitions); empty: none. */
+  hsTargets: CompiledHsTarget[];
+  /** Excluded bands test partitions with at least this worksite Hs, m. */
+  bandMinHs: number;
   /** Reference period TR = TPOP + TC, h. */
   trH: number;
 }
@@ -108,11 +122,31 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
     throw new RangeError('tide window: before and after must be finite, >= 0 and not both 0');
   }
 
+  const hsTargets: CompiledHsTarget[] = (L.hsTargets ?? []).map((t) => {
+    const max = positiveOrNaN(t.max, `Hs max (${t.target})`);
+    if (max !== max) throw new RangeError(`Hs max (${t.target}) must be set`);
+    const minPeriodS = t.target === 'longPeriod' ? positiveOrNaN(t.minPeriodS, 'long-period T*') : NaN;
+    if (t.target === 'longPeriod' && minPeriodS !== minPeriodS) throw new RangeError('a long-period Hs limit needs its T*');
+    return { target: t.target, minPeriodS, max, opwf: max * alphaInRow(alphaTable, row, max) };
+  });
+  const bandMinHs = L.tpExcludedMinHs ?? DEFAULT_BAND_MIN_HS_M;
+  if (!(bandMinHs >= 0 && bandMinHs < Infinity)) throw new RangeError(`band Hs threshold must be finite and >= 0, got ${bandMinHs}`);
+
   const hasHs = hsMax === hsMax;
   const hasCurve = curve.length >= 2;
   const hasBed = bedMax === bedMax;
   const hasTide = minDepth === minDepth || maxDepth === maxDepth || currentMax === currentMax || tw !== null;
-  if (!hasHs && !hasCurve && tpMin !== tpMin && tpMax !== tpMax && bands.length === 0 && !hasBed && windMax !== windMax && !hasTide) {
+  if (
+    !hasHs &&
+    !hasCurve &&
+    tpMin !== tpMin &&
+    tpMax !== tpMax &&
+    bands.length === 0 &&
+    !hasBed &&
+    windMax !== windMax &&
+    !hasTide &&
+    hsTargets.length === 0
+  ) {
     throw new RangeError('an operation needs at least one limit');
   }
 
@@ -153,6 +187,8 @@ export function compileLimits(op: OperationSpec, alphaTable: AlphaTable, useAlph
     tideWindow: tw,
     needDepth: minDepth === minDepth || maxDepth === maxDepth,
     needCurrent: currentMax === currentMax,
+    hsTargets,
+    bandMinHs,
     trH,
   };
 }

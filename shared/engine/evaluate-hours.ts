@@ -1,4 +1,5 @@
 import { compileLimits } from './compiled-limits';
+import { bandPeriodsAt, targetHsSeries } from './hs-targets';
 import { tideWindowMarginH } from './tide-window';
 import { LIMIT, STATUS, type AlphaTable, type HourlyEvaluation, type OperationSpec, type SiteSeries } from './types';
 
@@ -47,7 +48,9 @@ export function assertSeriesLengths(series: SiteSeries): void {
  * distance to the range over the nearest end's Tp; Tp min (Tp - min)/min; Tp max (max - Tp)/max;
  * bands (distance to the nearest edge)/edge, negative inside; bed velocity and wind (max - value)/max;
  * min depth (h - min)/min, max depth (max - h)/max, current (max - value)/max; tide window the hours
- * inside it (tideWindowMarginH) over its length before + after. Depth needs `series.depthM`, current
+ * inside it (tideWindowMarginH) over its length before + after; Hs on a target (docs/domain.md#partitions)
+ * (OPWF - value)/OPWF, the value from targetHsAt (unknown: no data). With `series.partitions`, the
+ * bands also test every partition whose worksite Hs reaches the operation's threshold. Depth needs `series.depthM`, current
  * `series.currentMps`, the window `series.tide`: without them those limits find no data.
  * OPWF = OPLIM when alpha does not apply.
  *
@@ -121,6 +124,12 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
   const bandFrom = c.bandFrom;
   const bandTo = c.bandTo;
   const nBands = bandFrom.length;
+  // Hs on targets (docs/domain.md#partitions), and the partitions' periods for the bands.
+  const targets = c.hsTargets;
+  const nTargets = targets.length;
+  const targetHs = targets.map((t) => targetHsSeries(series, t.target, t.minPeriodS));
+  const bandTps = new Float64Array(4);
+  const partitionBands = hasBands && series.partitions !== undefined;
 
   for (let i = 0; i < n; i++) {
     const hs = needHs ? hsArr[i] : 0;
@@ -130,7 +139,18 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
     const depth = c.needDepth ? (depthArr ? depthArr[i] : NaN) : 0;
     const current = hasCurrent ? (currentArr ? currentArr[i] : NaN) : 0;
     const tideH = tideWindow ? tideWindowMarginH(series.tide, tideWindow, series.timeMs[i]) : 0;
-    if (hs !== hs || tp !== tp || bed !== bed || wind !== wind || depth !== depth || current !== current || tideH !== tideH) {
+    let targetMissing = false;
+    for (let t = 0; t < nTargets; t++) if (targetHs[t][i] !== targetHs[t][i]) targetMissing = true;
+    if (
+      hs !== hs ||
+      tp !== tp ||
+      bed !== bed ||
+      wind !== wind ||
+      depth !== depth ||
+      current !== current ||
+      tideH !== tideH ||
+      targetMissing
+    ) {
       status[i] = NO_DATA;
       limiting[i] = NONE;
       marginRel[i] = NaN;
@@ -204,19 +224,25 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
     if (hasBands) {
       // Closed bands (docs/domain.md#convention-6): inside, edges included, is broken; the relative margin is the
       // distance to the nearest edge over that edge's Tp, negative inside.
+      // With partitions, every partition with enough worksite Hs is tested too (docs/domain.md#partitions).
       cls = 0;
       rel = Infinity;
-      for (let b = 0; b < nBands; b++) {
-        const lo = bandFrom[b];
-        const hi = bandTo[b];
-        let r: number;
-        if (tp < lo) r = (lo - tp) / lo;
-        else if (tp > hi) r = (tp - hi) / hi;
-        else {
-          cls = 2;
-          r = tp - lo <= hi - tp ? (lo - tp) / lo : (tp - hi) / hi;
+      bandTps[0] = tp;
+      const nTp = partitionBands ? bandPeriodsAt(series, i, c.bandMinHs, bandTps) : 1;
+      for (let q = 0; q < nTp; q++) {
+        const x = bandTps[q];
+        for (let b = 0; b < nBands; b++) {
+          const lo = bandFrom[b];
+          const hi = bandTo[b];
+          let r: number;
+          if (x < lo) r = (lo - x) / lo;
+          else if (x > hi) r = (x - hi) / hi;
+          else {
+            cls = 2;
+            r = x - lo <= hi - x ? (lo - x) / lo : (x - hi) / hi;
+          }
+          if (r < rel) rel = r;
         }
-        if (r < rel) rel = r;
       }
       if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
         bestCls = cls;
@@ -276,6 +302,17 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
         bestCls = cls;
         bestRel = rel;
         bestLim = LIMIT.TIDE_WINDOW;
+      }
+    }
+    for (let t = 0; t < nTargets; t++) {
+      const v = targetHs[t][i];
+      const lim = targets[t];
+      cls = (v > lim.opwf ? 1 : 0) + (v > lim.max ? 1 : 0);
+      rel = (lim.opwf - v) / lim.opwf;
+      if (cls > bestCls || (cls === bestCls && rel < bestRel)) {
+        bestCls = cls;
+        bestRel = rel;
+        bestLim = LIMIT.HS_TARGET;
       }
     }
     status[i] = CLASS_STATUS[bestCls];

@@ -379,7 +379,9 @@ export function evaluateStatusMany(series: SiteSeries, ops: readonly OperationSp
   ops.forEach((op, o) => {
     const buf = options.out?.[o];
     if (buf && buf.length < n) throw new RangeError(`evaluateStatusMany: out buffer ${o} shorter than the series`);
-    if (statusFastPathKnows(op)) {
+    // Bands over a partitioned series test the partitions too: the general path does that.
+    const partitionBands = series.partitions !== undefined && (op.limits.tpExcluded?.length ?? 0) > 0;
+    if (statusFastPathKnows(op) && !partitionBands) {
       compiled.push(compileLimits(op, options.alphaTable, useAlpha));
       fast.push(o);
       result[o] = buf ? (buf.length === n ? buf : buf.subarray(0, n)) : new Uint8Array(n);

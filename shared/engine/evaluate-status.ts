@@ -1,5 +1,6 @@
 import { compileLimits, type CompiledLimits } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
+import { targetHsSeries } from './hs-targets';
 import { tideWindowMarginH } from './tide-window';
 import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './types';
 
@@ -63,12 +64,22 @@ export function evaluateStatus(series: SiteSeries, op: OperationSpec, options: E
     else cls.fill(NO_DATA_CLASS);
   }
   if (c.tideWindow) raiseTideWindow(series, c, cls);
+  // Hs on a target (docs/domain.md#partitions): an unknown partition value is no data.
+  const targetHs = c.hsTargets.map((t) => targetHsSeries(series, t.target, t.minPeriodS));
+  for (const v of targetHs) markMissing(v, cls);
 
   if (c.hsMax === c.hsMax) raiseHs(series.hsM, c.hsMaxOpwf, c.hsMax, cls);
   if (c.curveTp.length >= 2) raiseCurve(series.hsM, series.tpS, c, cls);
   if (c.tpMin === c.tpMin) breakBelow(series.tpS, c.tpMin, cls);
   if (c.tpMax === c.tpMax) breakAbove(series.tpS, c.tpMax, cls);
   for (let b = 0; b < c.bandFrom.length; b++) breakInside(series.tpS, c.bandFrom[b], c.bandTo[b], cls);
+  if (c.bandFrom.length > 0 && series.partitions) {
+    // Every partition with enough worksite Hs is tested too (docs/domain.md#partitions).
+    for (const p of [series.partitions.windSea, series.partitions.swell1, series.partitions.swell2]) {
+      for (let b = 0; b < c.bandFrom.length; b++) breakInsideWhere(p.tpS, p.hsM, c.bandMinHs, c.bandFrom[b], c.bandTo[b], cls);
+    }
+  }
+  c.hsTargets.forEach((t, k) => raiseHs(targetHs[k], t.opwf, t.max, cls));
   if (c.needBed) breakAbove(bed, c.bedMax, cls);
   if (c.needWind) breakAbove(series.windMps, c.windMax, cls);
   if (c.minDepth === c.minDepth && series.depthM) breakBelow(series.depthM, c.minDepth, cls);
@@ -118,6 +129,15 @@ function breakInside(v: Float64Array, from: number, to: number, cls: Uint8Array)
   for (let i = 0; i < cls.length; i++) {
     const x = v[i];
     if (x >= from && x <= to && cls[i] < 2) cls[i] = 2;
+  }
+}
+
+/** A closed excluded band tested on a partition's Tp where its Hs is at least `minHs` (and above 0). */
+function breakInsideWhere(tp: Float64Array, hs: Float64Array, minHs: number, from: number, to: number, cls: Uint8Array): void {
+  for (let i = 0; i < cls.length; i++) {
+    const x = tp[i];
+    const h = hs[i];
+    if (h >= minHs && h > 0 && x >= from && x <= to && cls[i] < 2) cls[i] = 2;
   }
 }
 

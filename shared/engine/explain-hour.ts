@@ -1,6 +1,7 @@
 import { alphaFor } from './alpha-factor';
 import { tideWindowMarginH } from './tide-window';
-import type { AlphaTable, LimitName, OperationSpec, TideExtremes } from './types';
+import { DEFAULT_BAND_MIN_HS_M } from './hs-targets';
+import type { AlphaTable, EnginePartitionName, HsTarget, LimitName, OperationSpec, TideExtremes } from './types';
 
 /** One limit tested against one hour: the values behind the "chain" view of the board. */
 export interface LimitCheck {
@@ -23,6 +24,47 @@ export interface LimitCheck {
   metAtOplim: boolean | null;
   /** Why the limit is broken, in words, where the numbers alone do not say it (the Hs-Tp curve). */
   reason?: string;
+  /** The partition that drives the value (the largest Hs among those the limit takes; for a band, the partition inside it). */
+  drivenBy?: EnginePartitionName;
+}
+
+/** One partition at the worksite for one hour: Hs (m; 0 absent, NaN unknown) and Tp (s). */
+export type HourPartitions = Record<EnginePartitionName, { hsM: number; tpS: number }>;
+
+const PARTITION_ORDER: readonly EnginePartitionName[] = ['windSea', 'swell1', 'swell2'];
+
+/** Words for an Hs target (docs/domain.md#partitions). */
+export const HS_TARGET_LABELS: Record<HsTarget, string> = {
+  total: 'total sea',
+  swell: 'swell',
+  windSea: 'wind sea',
+  longPeriod: 'long-period sea',
+};
+
+/** The partitions a target takes at this hour (present ones only); null when one is unknown. */
+function takenPartitions(p: HourPartitions, target: HsTarget, minPeriodS: number): EnginePartitionName[] | null {
+  const keys: readonly EnginePartitionName[] =
+    target === 'swell' ? ['swell1', 'swell2'] : target === 'windSea' ? ['windSea'] : PARTITION_ORDER;
+  const taken: EnginePartitionName[] = [];
+  for (const k of keys) {
+    const { hsM, tpS } = p[k];
+    if (Number.isNaN(hsM)) return null;
+    if (hsM === 0) continue;
+    if (target === 'longPeriod') {
+      if (Number.isNaN(tpS)) return null;
+      if (tpS < minPeriodS) continue;
+    }
+    taken.push(k);
+  }
+  return taken;
+}
+
+/** The partition with the largest Hs among `keys`, or undefined. */
+function largest(p: HourPartitions | undefined, keys: readonly EnginePartitionName[]): EnginePartitionName | undefined {
+  if (!p) return undefined;
+  let best: EnginePartitionName | undefined;
+  for (const k of keys) if (p[k].hsM > 0 && (best === undefined || p[k].hsM > p[best].hsM)) best = k;
+  return best;
 }
 
 /** A number as people write it: at most one decimal, no trailing zero (14.73 → "14.7", 14 → "14"). */
@@ -58,6 +100,8 @@ export interface HourValues {
   /** The hour's start, UTC epoch ms, and the predicted extremes around it (for a tide window). */
   timeMs?: number;
   tide?: TideExtremes;
+  /** The partitions at the worksite (docs/domain.md#partitions), when the dataset gives them. */
+  partitions?: HourPartitions;
 }
 
 export type HourStatus = 'workable' | 'marginal' | 'not_workable' | 'no_data';
@@ -93,6 +137,10 @@ export function explainHour(
   const tr = op.tpopH + op.tcH;
   const alphaAt = (hsLimit: number) => (useAlpha ? alphaFor(alphaTable, op.tpopH, hsLimit, tr, op.weatherRestricted) : 1);
   const checks: LimitCheck[] = [];
+  const driven = (keys: readonly EnginePartitionName[]) => {
+    const k = largest(v.partitions, keys);
+    return k ? { drivenBy: k } : {};
+  };
   const push = (c: Omit<LimitCheck, 'metAtOplim'> & { metAtOplim?: boolean | null }) => checks.push({ metAtOplim: c.met, ...c });
 
   if (l.hsMax != null) {
@@ -109,6 +157,30 @@ export function explainHour(
       margin: ok(v.hsM) ? opwf - v.hsM : null,
       met: ok(v.hsM) ? v.hsM <= opwf : null,
       metAtOplim: ok(v.hsM) ? v.hsM <= l.hsMax : null,
+      ...driven(PARTITION_ORDER),
+    });
+  }
+  for (const t of l.hsTargets ?? []) {
+    const a = alphaAt(t.max);
+    const opwf = a * t.max;
+    const T = t.minPeriodS ?? NaN;
+    const taken = t.target === 'total' ? [] : v.partitions ? takenPartitions(v.partitions, t.target, T) : null;
+    let value: number | null;
+    if (t.target === 'total') value = ok(v.hsM) ? v.hsM : null;
+    else if (taken === null || !v.partitions) value = null;
+    else value = Math.sqrt(taken.reduce((e, k) => e + v.partitions![k].hsM ** 2, 0));
+    push({
+      limit: 'hsTarget',
+      label: `Hs max (${HS_TARGET_LABELS[t.target]}${t.target === 'longPeriod' ? `, Tp at least ${words1(T)} s` : ''})`,
+      unit: 'm',
+      value,
+      oplim: t.max,
+      opwf,
+      alpha: a,
+      margin: value === null ? null : opwf - value,
+      met: value === null ? null : value <= opwf,
+      metAtOplim: value === null ? null : value <= t.max,
+      ...driven(t.target === 'total' ? PARTITION_ORDER : (taken ?? [])),
     });
   }
   if (l.hsTpCurve && l.hsTpCurve.length >= 2) {
@@ -159,7 +231,32 @@ export function explainHour(
       margin: tp === null ? null : l.tpMax - tp,
       met: tp === null ? null : tp <= l.tpMax,
     });
+  const bandMinHs = l.tpExcludedMinHs ?? DEFAULT_BAND_MIN_HS_M;
   for (const [from, to] of l.tpExcluded ?? []) {
+    // A partition with enough worksite Hs inside the band breaks it too (docs/domain.md#partitions).
+    const resonant =
+      tp === null || !v.partitions
+        ? undefined
+        : PARTITION_ORDER.find((k) => {
+            const p = v.partitions![k];
+            return p.hsM > 0 && p.hsM >= bandMinHs && p.tpS >= from && p.tpS <= to;
+          });
+    if (resonant && !(tp !== null && tp >= from && tp <= to)) {
+      const ptp = v.partitions![resonant].tpS;
+      push({
+        limit: 'tpBand',
+        label: `Excluded Tp ${from}-${to} s`,
+        unit: 's',
+        value: ptp,
+        oplim: Math.abs(ptp - from) <= Math.abs(ptp - to) ? from : to,
+        opwf: null,
+        alpha: null,
+        margin: -Math.min(ptp - from, to - ptp),
+        met: false,
+        drivenBy: resonant,
+      });
+      continue;
+    }
     const inside = tp !== null && tp >= from && tp <= to;
     const edge = tp === null ? null : Math.abs(tp - from) <= Math.abs(tp - to) ? from : to;
     push({

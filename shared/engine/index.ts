@@ -27,6 +27,8 @@ export {
   type StatusManyScratch,
 } from './evaluate-status-many';
 
+export { DEFAULT_BAND_MIN_HS_M, bandPeriodsAt, targetHsAt, targetHsSeries } from './hs-targets';
+
 // Weather windows and the forecast plan
 export { detectStepMs } from './detect-step';
 export { recordSteps, type RecordSteps } from './record-steps';
@@ -34,6 +36,7 @@ export { MS_PER_HOUR, recordsForTr, runRemaining, sumDurations, trThresholdMs, w
 export { goStarts, nextGoStartIndex } from './go-starts';
 export { usableWindows, type WindowOptions } from './usable-windows';
 export { planOperation, type OperationPlan, type PlanOptions } from './plan-operation';
+export { ensembleChances, ensembleChancesMany, type EnsembleChances, type EnsembleScratch } from './ensemble-chance';
 
 // Calendar and hindcast statistics
 export { calendarIndex, zonedMonthStartMs, zoneOffsetMs, type CalendarIndex } from './calendar-index';

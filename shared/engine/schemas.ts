@@ -41,6 +41,9 @@ const tpS = (what: string) => ranged(R.tpS, what, 's');
 /** Allowed bed velocity methods (feeds the zod enum and UI selects). */
 export const BED_VELOCITY_METHODS = ['linear', 'soulsby'] as const;
 
+/** What an Hs limit may target (docs/domain.md#partitions); 'total' is the default. */
+export const HS_TARGETS = ['total', 'swell', 'windSea', 'longPeriod'] as const;
+
 /** High or low water, the reference of a tide window. */
 export const TIDE_REFERENCES = ['high', 'low'] as const;
 
@@ -78,8 +81,25 @@ export const operationLimitsSchema = z
         after: ranged(R.tideWindowH, 'Hours after', 'h'),
       })
       .nullish(),
+    hsTargets: z
+      .array(
+        z.object({
+          target: z.enum(HS_TARGETS),
+          minPeriodS: tpS('Long-period T*').nullish(),
+          max: hsM('Hs max'),
+        }),
+      )
+      .max(8, 'At most 8 Hs limits on targets')
+      .nullish(),
+    tpExcludedMinHs: ranged({ min: 0, max: R.hsM.max }, 'Band Hs threshold', 'm').nullish(),
   })
   .superRefine((v, ctx) => {
+    (v.hsTargets ?? []).forEach((t, i) => {
+      if (t.target === 'longPeriod' && t.minPeriodS == null)
+        ctx.addIssue({ code: 'custom', path: ['hsTargets', i, 'minPeriodS'], message: 'A long-period Hs limit needs its T*' });
+      if (t.target !== 'longPeriod' && t.minPeriodS != null)
+        ctx.addIssue({ code: 'custom', path: ['hsTargets', i, 'minPeriodS'], message: 'T* belongs to a long-period Hs limit only' });
+    });
     const curve = v.hsTpCurve ?? [];
     for (let i = 1; i < curve.length; i++) {
       if (!(curve[i][0] > curve[i - 1][0])) {
@@ -115,7 +135,8 @@ export const operationLimitsSchema = z
       v.minDepth != null ||
       v.maxDepth != null ||
       v.currentMax != null ||
-      v.tideWindow != null;
+      v.tideWindow != null ||
+      (v.hsTargets ?? []).length > 0;
     if (!any) ctx.addIssue({ code: 'custom', path: [], message: 'Set at least one limit' });
   });
 

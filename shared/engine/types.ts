@@ -32,6 +32,34 @@ export interface SiteSeries {
   currentMps?: Float64Array;
   /** Predicted high and low waters around the series (docs/domain.md#tide); only needed by a tide window. */
   tide?: TideExtremes;
+  /**
+   * The sea's partitions at the worksite (docs/domain.md#partitions), when the dataset gives them:
+   * per record Hs (m; 0 = absent that hour, NaN = unknown) and Tp (s). Needed by Hs limits on a
+   * target other than the total; excluded Tp bands test every partition with enough Hs.
+   */
+  partitions?: EnginePartitions;
+}
+
+/** Names of the partitions the engine reads (docs/domain.md#partitions). */
+export type EnginePartitionName = 'windSea' | 'swell1' | 'swell2';
+
+/** Worksite partitions as the engine reads them. */
+export type EnginePartitions = Record<EnginePartitionName, { hsM: Float64Array; tpS: Float64Array }>;
+
+/**
+ * What an Hs limit is compared with (docs/domain.md#partitions): the total sea, all swell
+ * partitions together, the wind sea, or the partitions whose Tp is at least T* (long-period),
+ * each as sqrt(sum Hs_i^2) over the partitions it takes.
+ */
+export type HsTarget = 'total' | 'swell' | 'windSea' | 'longPeriod';
+
+/** An Hs max on a target; alpha applies with the total's table (docs/domain.md#partitions). */
+export interface HsTargetLimit {
+  target: HsTarget;
+  /** T*, s: the long-period target takes the partitions with Tp >= T*; only for 'longPeriod'. */
+  minPeriodS?: number | null;
+  /** Hs max at OPLIM, m. */
+  max: number;
 }
 
 /**
@@ -91,6 +119,13 @@ export interface OperationLimits {
   currentMax?: number | null;
   /** Tide window around the predicted high or low waters; exact, no alpha. */
   tideWindow?: TideWindowLimit | null;
+  /** Hs max on a target other than (or beside) the total sea (docs/domain.md#partitions). */
+  hsTargets?: HsTargetLimit[] | null;
+  /**
+   * Excluded Tp bands test every partition whose worksite Hs is at least this, m (default 0.2,
+   * docs/domain.md#partitions), beside the worksite Tp.
+   */
+  tpExcludedMinHs?: number | null;
 }
 
 /** An operation as the engine needs it. */
@@ -132,12 +167,24 @@ export const LIMIT = {
   MAX_DEPTH: 9,
   CURRENT: 10,
   TIDE_WINDOW: 11,
+  HS_TARGET: 12,
 } as const;
 export type LimitCode = (typeof LIMIT)[keyof typeof LIMIT];
 
 /** Names of the limits, used as keys of per-limit margins. */
 export type LimitName =
-  'hs' | 'hsTpCurve' | 'tpMin' | 'tpMax' | 'tpBand' | 'bedVelocity' | 'wind' | 'minDepth' | 'maxDepth' | 'current' | 'tideWindow';
+  | 'hs'
+  | 'hsTpCurve'
+  | 'tpMin'
+  | 'tpMax'
+  | 'tpBand'
+  | 'bedVelocity'
+  | 'wind'
+  | 'minDepth'
+  | 'maxDepth'
+  | 'current'
+  | 'tideWindow'
+  | 'hsTarget';
 
 /** Name of each limit code, indexed by code; `LIMIT_NAMES[LIMIT.NONE]` is null. */
 export const LIMIT_NAMES: readonly (LimitName | null)[] = [
@@ -153,6 +200,7 @@ export const LIMIT_NAMES: readonly (LimitName | null)[] = [
   'maxDepth',
   'current',
   'tideWindow',
+  'hsTarget',
 ];
 
 /** Hourly evaluation of one operation over a series. */

@@ -1,5 +1,6 @@
 import { alphaAt, bandDistance, compileLimits, curveHsAt } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
+import { bandPeriodsAt, targetHsAt } from './hs-targets';
 import { tideWindowMarginH } from './tide-window';
 import type { AlphaTable, LimitName, OperationSpec, SiteSeries, UsableWindow } from './types';
 import { recordSteps } from './record-steps';
@@ -47,6 +48,7 @@ export function usableWindows(
   const dur = recordSteps(timeMs, stepMs).durationMs;
   const bedArr = c.bedSoulsby ? series.bedVelocitySoulsbyMps : series.bedVelocityLinearMps;
   const relOut = new Float64Array(1);
+  const bandTps = new Float64Array(4);
   const windows: UsableWindow[] = [];
 
   for (let i = 0; i < rem.length;) {
@@ -67,6 +69,10 @@ export function usableWindows(
       for (let k = i; k < i + count; k++) {
         const hs = series.hsM[k];
         const tp = series.tpS[k];
+        for (const t of c.hsTargets) {
+          const v = targetHsAt(series.hsM, series.partitions, k, t.target, t.minPeriodS);
+          low('hsTarget', t.opwf - v, (t.opwf - v) / t.opwf);
+        }
         if (c.hsMax === c.hsMax) low('hs', c.hsMaxOpwf - hs, (c.hsMaxOpwf - hs) / c.hsMaxOpwf);
         if (c.curveTp.length >= 2) {
           const lim = curveHsAt(c, tp);
@@ -76,8 +82,12 @@ export function usableWindows(
         if (c.tpMin === c.tpMin) low('tpMin', tp - c.tpMin, (tp - c.tpMin) / c.tpMin);
         if (c.tpMax === c.tpMax) low('tpMax', c.tpMax - tp, (c.tpMax - tp) / c.tpMax);
         if (c.bandFrom.length > 0) {
-          const d = bandDistance(c, tp, relOut);
-          low('tpBand', d, relOut[0]);
+          // The worksite Tp and every partition with enough Hs (docs/domain.md#partitions).
+          const nTp = bandPeriodsAt(series, k, c.bandMinHs, bandTps);
+          for (let q = 0; q < nTp; q++) {
+            const d = bandDistance(c, bandTps[q], relOut);
+            low('tpBand', d, relOut[0]);
+          }
         }
         if (c.needBed) low('bedVelocity', c.bedMax - bedArr[k], (c.bedMax - bedArr[k]) / c.bedMax);
         if (c.needWind) low('wind', c.windMax - series.windMps[k], (c.windMax - series.windMps[k]) / c.windMax);

@@ -27,6 +27,15 @@ export const SubscriptionInput = z.object({
     .nullable()
     .optional()
     .default(null),
+  /** E-mail when a window's ensemble chance to hold TR falls below this percentage (1-99); null = off. */
+  windowChanceBelow: z
+    .number({ error: 'must be a percentage' })
+    .int('must be a whole percentage')
+    .min(1, 'must be at least 1 %')
+    .max(99, 'must be at most 99 %')
+    .nullable()
+    .optional()
+    .default(null),
 });
 export type SubscriptionInput = z.infer<typeof SubscriptionInput>;
 

@@ -33,6 +33,7 @@ export const LEDGER_LIMITING_VALUES = [
   'maxDepth',
   'current',
   'tideWindow',
+  'hsTarget',
   'noData',
 ] as const;
 export type LedgerLimiting = (typeof LEDGER_LIMITING_VALUES)[number];
@@ -50,6 +51,7 @@ export const LEDGER_LIMITING_LABELS: Record<LedgerLimiting, string> = {
   maxDepth: 'Max depth',
   current: 'Current',
   tideWindow: 'Tide window',
+  hsTarget: 'Hs (partition)',
   noData: 'No data',
 };
 
@@ -166,7 +168,7 @@ export const LedgerConfirmInput = z.object({
   limiting: z
     .enum(LEDGER_LIMITING_VALUES, {
       error:
-        'must be a limiting factor (hs, hsTpCurve, tpMin, tpMax, tpBand, bedVelocity, wind, minDepth, maxDepth, current, tideWindow, noData)',
+        'must be a limiting factor (hs, hsTpCurve, tpMin, tpMax, tpBand, bedVelocity, wind, minDepth, maxDepth, current, tideWindow, hsTarget, noData)',
     })
     .nullable()
     .optional(),

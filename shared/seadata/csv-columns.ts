@@ -17,6 +17,13 @@
  * - dir: dir, mwd, mdir, dirm, wave direction, mean wave direction, mean direction, vmdr.
  * - wind: wind speed, wspd, ws, u10, wind, windspeed, ws10, wind speed 10m.
  * - windDir: wind direction, wdir, wd, winddir, wind dir.
+ * - partitions (docs/domain.md#partitions), detected in the columns left over: a partition word
+ *   and a quantity word in either order, e.g. `hs_windsea`, `wind_sea_hs`, `Hs swell1 [m]`,
+ *   `swell_tp`, `swell2_dir`, `tp_swell_2`. Partition words: wind sea (windsea, wind sea,
+ *   wind_sea, sea, wsea), swell 1 (swell, swell1, swell 1, primary swell, sw1), swell 2
+ *   (swell2, swell 2, secondary swell, sw2). Quantity words: Hs (hs, hm0, swh, height, h),
+ *   Tp (tp, peak period, period, tpeak), direction (dir, direction, mwd, mdir). See
+ *   {@link detectPartitionColumns}.
  */
 import { z } from 'zod';
 import '../schemas/words';
@@ -139,6 +146,53 @@ export function detectColumns(headers: readonly string[]): DetectedColumns {
     if (key === undefined || out[key] !== undefined) continue;
     out[key] = headers[i];
     used.add(i);
+  }
+  return out;
+}
+
+/** The partition columns (optional series columns, docs/domain.md#partitions). */
+export type PartitionColumn =
+  'windSea.hs' | 'windSea.tp' | 'windSea.dir' | 'swell1.hs' | 'swell1.tp' | 'swell1.dir' | 'swell2.hs' | 'swell2.tp' | 'swell2.dir';
+
+const PARTITION_WORDS: Record<'windSea' | 'swell1' | 'swell2', string[]> = {
+  windSea: ['windsea', 'wind sea', 'sea', 'wsea'],
+  swell1: ['swell', 'swell1', 'swell 1', 'primary swell', 'sw1'],
+  swell2: ['swell2', 'swell 2', 'secondary swell', 'sw2'],
+};
+const QUANTITY_WORDS: Record<'hs' | 'tp' | 'dir', string[]> = {
+  hs: ['hs', 'hm0', 'swh', 'height', 'h'],
+  tp: ['tp', 'peak period', 'period', 'tpeak'],
+  dir: ['dir', 'direction', 'mwd', 'mdir'],
+};
+
+const PARTITION_LOOKUP = new Map<string, PartitionColumn>();
+for (const [part, pWords] of Object.entries(PARTITION_WORDS)) {
+  for (const [qty, qWords] of Object.entries(QUANTITY_WORDS)) {
+    for (const pw of pWords) {
+      for (const qw of qWords) {
+        const column = `${part}.${qty}` as PartitionColumn;
+        for (const name of [`${qw} ${pw}`, `${pw} ${qw}`]) {
+          const norm = normaliseHeader(name);
+          if (!PARTITION_LOOKUP.has(norm) && !LOOKUP.has(norm)) PARTITION_LOOKUP.set(norm, column);
+        }
+      }
+    }
+  }
+}
+
+/**
+ * Detects partition columns (see the module comment) among the headers that the sea-state mapping
+ * does not use; each partition column takes the first header that matches.
+ * @example detectPartitionColumns(['time', 'hs', 'hs_windsea', 'swell_tp'], {}) // { 'windSea.hs': 'hs_windsea', 'swell1.tp': 'swell_tp' }
+ */
+export function detectPartitionColumns(headers: readonly string[], mapping: DetectedColumns): Partial<Record<PartitionColumn, string>> {
+  const used = new Set(Object.values(mapping).filter((v): v is string => typeof v === 'string'));
+  const out: Partial<Record<PartitionColumn, string>> = {};
+  for (const h of headers) {
+    if (used.has(h)) continue;
+    const column = PARTITION_LOOKUP.get(normaliseHeader(h));
+    if (column === undefined || out[column] !== undefined) continue;
+    out[column] = h;
   }
   return out;
 }

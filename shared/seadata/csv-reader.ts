@@ -19,7 +19,14 @@
  *
  * Periods that are not mapped or missing stay NaN: nothing is derived here.
  */
-import { detectColumns, detectUnits, type ColumnMapping, type DetectedColumns } from './csv-columns';
+import {
+  detectColumns,
+  detectPartitionColumns,
+  detectUnits,
+  type ColumnMapping,
+  type DetectedColumns,
+  type PartitionColumn,
+} from './csv-columns';
 import { ImportError, type ImportIssue } from './issues';
 import { MAX_COLUMNS, tooManyColumnsReason } from './limits';
 import { DEFAULT_MISSING_CODES, MissingCodes } from './missing-codes';
@@ -119,6 +126,9 @@ export class CsvRecordReader {
   private dateField = -1;
   private timeLabel = '';
   private columns: ValueColumn[] = [];
+  /** Partition columns (docs/domain.md#partitions): `variable` indexes the validator's partition columns. */
+  private partColumns: ValueColumn[] = [];
+  private partGoingTo: boolean[] = [];
   private fatal: ImportError | null = null;
   private ended = false;
 
@@ -270,6 +280,17 @@ export class CsvRecordReader {
       return;
     }
     this.columns = columns;
+    // Partitions in the columns left over (NDBC files never have them).
+    const parts = detectPartitionColumns(headers, mapping);
+    const partNames = Object.keys(parts) as PartitionColumn[];
+    if (partNames.length > 0) {
+      this.v.withPartitions(partNames);
+      this.partColumns = partNames.map((name, k) => {
+        const field = find(parts[name]!);
+        return { field, name: headers[field], variable: k, factor: name.endsWith('.hs') ? heightFactorToM(units.height) : 1 };
+      });
+      this.partGoingTo = partNames.map((name) => this.goingTo && name.endsWith('.dir'));
+    }
     this.mappingUsed = { ...mapping, time: mapping.time };
     const unmapped = SEA_VARIABLES.filter((x) => mapping[x] === undefined);
     if (unmapped.length > 0) this.v.note(`Not in the file: ${unmapped.join(', ')} (left missing, nothing derived here).`);
@@ -294,6 +315,7 @@ export class CsvRecordReader {
       timeMs = this.times.parse(timeRaw, v.lastAcceptedMs);
       if (Number.isNaN(timeMs)) v.rowIssue(this.timeLabel, timeRaw, this.times.error);
       for (const c of this.columns) this.readValue(fields[c.field], c);
+      for (const c of this.partColumns) this.readPartition(fields[c.field], c);
     }
     const kept = v.commitRow(timeMs, this.timeLabel, timeRaw);
     if (this.onRow !== undefined) {
@@ -304,18 +326,32 @@ export class CsvRecordReader {
     }
   }
 
-  private readValue(raw: string, c: ValueColumn): void {
+  /** A partition value: the same text rules as the other columns; Hs in the height unit, directions as the convention says. */
+  private readPartition(raw: string, c: ValueColumn): void {
+    const x = this.numberOf(raw, c);
+    if (x === null) return;
+    const value = this.partGoingTo[c.variable] && x >= 0 && x <= 360 ? (x + 180) % 360 : x * c.factor;
+    this.v.setPartitionValue(c.variable, value, c.name, raw);
+  }
+
+  /** The number in a field, or null when it is missing (a code or an allowed blank) or not a number (the row's issue then added). */
+  private numberOf(raw: string, c: ValueColumn): number | null {
     const s = raw.trim();
     if (s === '') {
       if (!this.missing.emptyIsMissing) this.v.rowIssue(c.name, raw, 'empty value (not in the missing-value codes)');
-      return;
+      return null;
     }
     const x = parseDecimal(s, this.decimalComma);
     if (Number.isNaN(x)) {
       if (!this.missing.isMissingText(s)) this.v.rowIssue(c.name, raw, 'not a number');
-      return;
+      return null;
     }
-    if (this.missing.isMissingNumber(x)) return;
+    return this.missing.isMissingNumber(x) ? null : x;
+  }
+
+  private readValue(raw: string, c: ValueColumn): void {
+    const x = this.numberOf(raw, c);
+    if (x === null) return;
     if (c.variable === WIND_INDEX && x === WIND_MISSING_VALUE) return;
     if (this.goingTo && (c.variable === DIR_INDEX || c.variable === WIND_DIR_INDEX) && x >= 0 && x <= 360) {
       // Going-to to coming-from; out-of-range values pass unchanged so the range check names them.

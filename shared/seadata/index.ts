@@ -59,8 +59,8 @@ export { NdbcParser, looksLikeNdbc } from './ndbc';
 export type { NdbcParserOptions } from './ndbc';
 
 // CSV
-export { ColumnMappingSchema, detectColumns, detectUnits, normaliseHeader, mappedVariables } from './csv-columns';
-export type { ColumnMapping, DetectedColumns } from './csv-columns';
+export { ColumnMappingSchema, detectColumns, detectPartitionColumns, detectUnits, normaliseHeader, mappedVariables } from './csv-columns';
+export type { ColumnMapping, DetectedColumns, PartitionColumn } from './csv-columns';
 export { CsvRecordReader, DIRECTION_CONVENTIONS, WIND_MISSING_VALUE } from './csv-reader';
 export type { CsvReaderOptions, CsvRowResult, DirectionConvention } from './csv-reader';
 export { CsvTextParser, detectDelimiter, firstContentLine, CSV_DELIMITERS, MAX_CSV_ROW_CHARS } from './csv-text-parser';

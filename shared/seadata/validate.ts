@@ -23,6 +23,7 @@
  * nothing is returned. `skip`: a row with any issue is dropped whole (not just the bad value, so a
  * stored record never mixes read and discarded values) and listed in the report.
  */
+import type { PartitionColumn } from './csv-columns';
 import { IssueList, ImportError, MAX_LISTED_ISSUES, type ImportIssue } from './issues';
 import { SEA_VARIABLES, SeaRecordBuilder, type SeaRecords, type SeaVariable } from './records';
 
@@ -88,6 +89,18 @@ export interface ImportReport {
   issueCount: number;
   /** Decisions applied to the whole file (units, corrections, dropped columns). */
   notes: string[];
+  /**
+   * Sea-state partitions the file gave (docs/domain.md#partitions): the partitions that came in,
+   * the records whose given total and partitions differed by more than 5 % (partitions scaled to
+   * the total; the first lines listed), and the totals computed as sqrt(sum Hs_i^2). Absent when
+   * the file has no partition column.
+   */
+  partitions?: {
+    came: ('windSea' | 'swell1' | 'swell2')[];
+    flagged: number;
+    flaggedLines: number[];
+    totalsFromPartitions: number;
+  };
 }
 
 /** What a reader returns from `end()`. */
@@ -99,6 +112,8 @@ export interface ImportResult {
 function isoOrText(ms: number): string {
   return Number.isFinite(ms) && Math.abs(ms) < 8.64e15 ? new Date(ms).toISOString() : String(ms);
 }
+
+const PARTITION_WORDS = { windSea: 'wind sea', swell1: 'swell 1', swell2: 'swell 2' } as const;
 
 /**
  * Row-by-row validator and record collector. A reader calls, per data row:
@@ -119,6 +134,12 @@ export class SeaRowValidator {
   private lastLine = 0;
   private direction: 0 | 1 | -1 = 0; // 0 unknown, 1 ascending, -1 descending
   private readonly notes: string[] = [];
+  /** Optional partition columns (docs/domain.md#partitions), switched on by {@link SeaRowValidator.withPartitions}. */
+  private partCols: PartitionColumn[] = [];
+  private partRow = new Float64Array(0);
+  private partFlagged = 0;
+  private partFlaggedLines: number[] = [];
+  private partTotals = 0;
 
   constructor(
     private readonly format: 'csv' | 'ndbc',
@@ -143,12 +164,74 @@ export class SeaRowValidator {
     return this.row;
   }
 
+  /** Reads these partition columns too (call before the first row). */
+  withPartitions(columns: readonly PartitionColumn[]): void {
+    this.partCols = columns.slice();
+    this.partRow = new Float64Array(columns.length);
+    this.builder.withExtra(columns);
+  }
+
+  /**
+   * Checks and stores one partition value of the current row (index into the columns given to
+   * withPartitions): Hs 0-25 m (0 = the partition is absent), Tp 0.5-40 s (0 read as absent),
+   * direction 0-360 deg (360 stored as 0).
+   */
+  setPartitionValue(index: number, value: number, column: string, raw: string): void {
+    const name = this.partCols[index];
+    const qty = name.slice(name.indexOf('.') + 1);
+    const reason =
+      qty === 'hs'
+        ? implausibleReason('hs', value)
+        : qty === 'tp'
+          ? value === 0
+            ? null
+            : implausibleReason('tp', value)
+          : implausibleReason('dir', value);
+    if (reason !== null) {
+      this.rowIssue(column, raw, reason);
+      return;
+    }
+    this.partRow[index] = qty === 'tp' && value === 0 ? NaN : qty === 'dir' && value === 360 ? 0 : value === 0 ? 0 : value;
+  }
+
+  /**
+   * The partition rules of docs/domain.md#partitions on the current row: without a total, the
+   * total is sqrt(sum Hs_i^2); with a total that differs from it by more than 5 %, the partitions
+   * are scaled to the total (ratios kept) and the record is flagged. Only when every partition Hs
+   * of the row is known (a fill value leaves the row as it is).
+   */
+  private applyPartitionRules(): void {
+    const cols = this.partCols;
+    let e = 0;
+    for (let k = 0; k < cols.length; k++) {
+      if (!cols[k].endsWith('.hs')) continue;
+      const h = this.partRow[k];
+      if (h !== h) return;
+      e += h * h;
+    }
+    const sum = Math.sqrt(e);
+    const total = this.row[0];
+    if (total !== total) {
+      this.row[0] = sum;
+      this.partTotals++;
+      return;
+    }
+    if (Math.abs(sum - total) <= 0.05 * total) return;
+    this.partFlagged++;
+    if (this.partFlaggedLines.length < 20) this.partFlaggedLines.push(this.line);
+    if (sum > 0) {
+      const scale = total / sum;
+      for (let k = 0; k < cols.length; k++) if (cols[k].endsWith('.hs')) this.partRow[k] *= scale;
+    }
+  }
+
   /** Starts a data row at 1-based `line`. */
   beginRow(line: number): void {
     this.line = line;
     this.bad = false;
     this.rowIssueList = null;
     this.row.fill(NaN);
+    this.partRow.fill(NaN);
     this.rowsRead++;
   }
 
@@ -213,6 +296,7 @@ export class SeaRowValidator {
     }
     this.lastMs = timeMs;
     this.lastLine = this.line;
+    if (this.partCols.length > 0) this.applyPartitionRules();
     const r = this.row;
     if (r[0] === r[0] || r[1] === r[1] || r[2] === r[2] || r[3] === r[3] || r[4] === r[4] || r[5] === r[5] || r[6] === r[6]) {
       this.usable++;
@@ -220,8 +304,21 @@ export class SeaRowValidator {
     // In refuse mode nothing is returned once an issue exists: stop collecting to save memory.
     if (this.mode === 'skip' || this.issues.total === 0) {
       this.builder.pushValues(timeMs, r[0], r[1], r[2], r[3], r[4], r[5], r[6]);
+      for (let k = 0; k < this.partCols.length; k++) this.builder.setExtra(this.partCols[k], this.partRow[k]);
     }
     return true;
+  }
+
+  private partitionReport(): NonNullable<ImportReport['partitions']> {
+    const came = (['windSea', 'swell1', 'swell2'] as const).filter((p) => this.partCols.includes(`${p}.hs`));
+    this.note(`Partitions in the file: ${came.map((p) => PARTITION_WORDS[p]).join(', ') || 'none with an Hs column'}.`);
+    if (this.partTotals > 0) this.note(`${this.partTotals} records without a total Hs: total = sqrt(sum of the partitions' Hs^2).`);
+    if (this.partFlagged > 0) {
+      this.note(
+        `${this.partFlagged} records whose total Hs and partitions differed by more than 5 %: partitions scaled to the total (lines ${this.partFlaggedLines.join(', ')}${this.partFlagged > this.partFlaggedLines.length ? ', ...' : ''}).`,
+      );
+    }
+    return { came, flagged: this.partFlagged, flaggedLines: this.partFlaggedLines.slice(), totalsFromPartitions: this.partTotals };
   }
 
   /**
@@ -248,6 +345,7 @@ export class SeaRowValidator {
       this.note('The file is newest-first; records were reversed to oldest-first.');
     }
     const records = this.builder.finish();
+    const partitions = this.partCols.length > 0 ? this.partitionReport() : null;
     return {
       records,
       report: {
@@ -260,6 +358,7 @@ export class SeaRowValidator {
         issues: this.issues.items.slice(),
         issueCount: this.issues.total,
         notes: this.notes.slice(),
+        ...(partitions ? { partitions } : {}),
       },
     };
   }

@@ -38,3 +38,22 @@ export {
   type TransformFlagName,
   type TransformOptions,
 } from './transform';
+
+// Partitions (wind sea and swells) through the transformation
+export {
+  PARTITIONED_FLAG,
+  PARTITION_NAMES,
+  SWELL_PARTITIONS,
+  hasPartitions,
+  recordHasPartitions,
+  totalFromPartitions,
+  transformPartitionedOne,
+  transformPartitionedToSite,
+  type PartitionChain,
+  type PartitionedRecord,
+  type PartitionInput,
+  type PartitionName,
+  type PartitionSeries,
+  type PartitionedSiteSeries,
+  type SitePartitions,
+} from './partitions';

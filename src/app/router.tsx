@@ -72,6 +72,10 @@ export const router = createBrowserRouter([
           { path: 'setup', lazy: page(() => import('../features/setup/components/setup-page'), 'SetupPage') },
           { path: 'downtime', lazy: page(() => import('../features/downtime/components/downtime-page'), 'DowntimePage') },
           { path: 'alerts', lazy: page(() => import('../features/alerts/components/alerts-page'), 'AlertsPage') },
+          {
+            path: 'forecast-skill',
+            lazy: page(() => import('../features/forecast-skill/components/forecast-skill-page'), 'ForecastSkillPage'),
+          },
           { path: 'sea-data', lazy: page(() => import('../features/datasets/components/datasets-page'), 'DatasetsPage') },
           { path: 'sea-data/import', lazy: page(() => import('../features/datasets/components/dataset-import-page'), 'DatasetImportPage') },
           {

@@ -16,5 +16,6 @@ export const PROJECT_SECTIONS: { path: string; label: string; roles: ProjectAcce
   { path: 'downtime', label: 'Downtime', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'alerts', label: 'Alerts', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'sea-data', label: 'Sea data', roles: ['admin', 'coordinator', 'skipper', 'client'] },
+  { path: 'forecast-skill', label: 'Forecast skill', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'settings', label: 'Settings', roles: ['admin', 'coordinator'] },
 ];

@@ -48,7 +48,7 @@ describe('health and sign-in', () => {
   });
 
   it("answers the renamed section's old address with a permanent redirect to the new one", async () => {
-    // Issue 17: "Wave lab" became "Wave calculator"; a bookmark of the old page still works.
+    // Issue 17: the section is the "Wave calculator"; a bookmark of the old address /wave-lab still works.
     const res = await request(t.app).get('/wave-lab?mode=table');
     expect(res.status).toBe(301);
     expect(res.headers.location).toBe('/wave-calculator?mode=table');

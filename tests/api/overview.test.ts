@@ -45,8 +45,11 @@ describe('the project Overview', () => {
       const go = p.startNow ? now.getTime() : p.earliestStart ? Date.parse(p.earliestStart) : null;
       const w = go === null ? undefined : p.windows.find((x) => Date.parse(x.start) <= go && go < Date.parse(x.end));
       expect(l.windowHours).toBe(w ? w.hours : null);
-      // No ensemble forecast is stored: never a chance.
-      expect(l.chance).toBeNull();
+      // The demo's forecast is an ensemble (docs/domain.md#forecast-uncertainty): the chance is the
+      // plan's start chance at the go-start, none without a go-start.
+      const goIndex = p.earliestStart ? p.times.indexOf(p.earliestStart) : -1;
+      expect(l.chance).toBe(goIndex >= 0 && p.startChance ? p.startChance[goIndex] : null);
+      if (goIndex >= 0 && !p.informationOnly) expect(l.chance).toBeGreaterThan(0);
       // The strip: the hours from the one covering now, at most 48 h ahead, with the plan's statuses.
       expect(l.next.times.length).toBeGreaterThan(0);
       const first = Date.parse(l.next.times[0]);

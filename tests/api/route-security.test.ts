@@ -258,6 +258,21 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/alpha': { access: 'member' },
   'PUT /projects/:projectId/alpha': { access: 'coordinator', body: () => alphaTable },
   'DELETE /projects/:projectId/alpha': { access: 'coordinator', why: 'resets to the default table' },
+  'GET /projects/:projectId/alpha/calibrated': {
+    access: 'member',
+    query: (p) => ({ observation: p.datasetId }),
+    queryIds: { observation: 'datasetId' },
+  },
+  'POST /projects/:projectId/alpha/adopt-calibrated': {
+    access: 'coordinator',
+    why: 'allowed callers get 409 here (no forecast archive in the test data), so nothing is adopted',
+    body: (p) => ({ observation: p.datasetId }),
+  },
+  'GET /projects/:projectId/forecast-skill': {
+    access: 'member',
+    query: (p) => ({ observation: p.datasetId }),
+    queryIds: { observation: 'datasetId' },
+  },
 
   'GET /projects/:projectId/export': { access: 'member' },
   'POST /projects/:projectId/import/preview': {

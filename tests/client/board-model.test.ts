@@ -133,6 +133,8 @@ describe('startWords', () => {
     status: [],
     limiting: [],
     marginRel: [],
+    chance: null,
+    startChance: null,
     occurrences: [],
     ...over,
   });

@@ -3,16 +3,9 @@
 // with values drawn on the limits themselves to hit the inclusive edges.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  DEFAULT_ALPHA_TABLE,
-  STATUS,
-  evaluateHours,
-  evaluateStatus,
-  type AlphaTable,
-  type OperationLimits,
-  type OperationSpec,
-} from '../../shared/engine';
+import { DEFAULT_ALPHA_TABLE, STATUS, evaluateHours, evaluateStatus, type AlphaTable, type OperationSpec } from '../../shared/engine';
 import { makeSeries } from './series-factory';
+import { operationArb } from './limit-arbitraries';
 
 /** Alpha by the rule of docs/domain.md#convention-5, looked up naively. */
 function naiveAlpha(table: AlphaTable, op: OperationSpec, hsLimit: number, useAlpha: boolean): number {
@@ -76,50 +69,7 @@ function naiveStatus(r: Rec, op: OperationSpec, useAlpha: boolean): number {
   return broken ? STATUS.NOT_WORKABLE : marginal ? STATUS.MARGINAL : STATUS.WORKABLE;
 }
 
-const round2 = (x: number) => Math.round(x * 100) / 100;
-
-const limitsArb: fc.Arbitrary<OperationLimits> = fc
-  .record(
-    {
-      hsMax: fc.double({ min: 0.5, max: 6, noNaN: true }).map(round2),
-      hsTpCurve: fc
-        .uniqueArray(fc.integer({ min: 3, max: 20 }), { minLength: 2, maxLength: 5 })
-        .chain((tps) =>
-          fc.tuple(
-            ...tps
-              .sort((a, b) => a - b)
-              .map((tp) => fc.double({ min: 0.3, max: 5, noNaN: true }).map((hs) => [tp, round2(hs)] as [number, number])),
-          ),
-        ),
-      tpMin: fc.integer({ min: 3, max: 8 }),
-      tpMax: fc.integer({ min: 9, max: 18 }),
-      tpExcluded: fc.array(
-        fc.tuple(fc.integer({ min: 4, max: 16 }), fc.integer({ min: 1, max: 3 })).map(([a, w]) => [a, a + w] as [number, number]),
-        { minLength: 1, maxLength: 2 },
-      ),
-      bedVelocityMax: fc.constantFrom(0.2, 0.35, 0.5),
-      bedVelocityMethod: fc.constantFrom('linear' as const, 'soulsby' as const),
-      windMax: fc.constantFrom(8, 12, 15),
-    },
-    { requiredKeys: [] },
-  )
-  .filter(
-    (l) =>
-      l.hsMax != null ||
-      l.hsTpCurve != null ||
-      l.tpMin != null ||
-      l.tpMax != null ||
-      l.tpExcluded != null ||
-      l.bedVelocityMax != null ||
-      l.windMax != null,
-  );
-
-const opArb: fc.Arbitrary<OperationSpec> = fc.record({
-  tpopH: fc.constantFrom(3, 12, 20, 36, 48, 60, 72, 80),
-  tcH: fc.constantFrom(0, 6, 24),
-  weatherRestricted: fc.boolean(),
-  limits: limitsArb,
-});
+const opArb = operationArb([0, 6, 24]);
 
 /** Records with values drawn from the limits themselves (edges), near them, anywhere, or missing. */
 function recordsArb(op: OperationSpec): fc.Arbitrary<Rec[]> {

@@ -1,5 +1,5 @@
 // Fault tests: the real server as a child process on a data folder the test owns, the backup and
-// restore commands as child processes, a mail catcher that outlives server restarts, and an
+// restore commands as child processes, a mail receiver that outlives server restarts, and an
 // integrity check of an embedded data folder once no server holds it.
 import fs from 'node:fs';
 import net from 'node:net';
@@ -36,9 +36,9 @@ export async function signIn(baseUrl: string, email: string, password = 'lullwat
 }
 
 // ---------------------------------------------------------------------------------------------
-// A mail catcher owned by the test, so what was delivered is still known after the server dies.
+// A mail receiver owned by the test, so what was delivered is still known after the server dies.
 
-export interface CaughtMail {
+export interface ReceivedMail {
   messageId: string;
   to: string[];
   subject: string;
@@ -52,21 +52,21 @@ export interface CaughtMail {
  * the message as delivered and answer 250, as a mail server that has taken the message does even
  * when its answer no longer reaches the sender.
  */
-export type CatchDecision = 'accept' | 'hold' | { acceptAfter: () => void };
+export type ReceiveDecision = 'accept' | 'hold' | { acceptAfter: () => void };
 
-export interface MailCatcher {
+export interface SmtpReceiver {
   port: number;
   smtpUrl: string;
-  delivered: CaughtMail[];
+  delivered: ReceivedMail[];
   /** Called for each complete message; the default accepts. */
-  decide: (mail: CaughtMail, index: number) => CatchDecision;
+  decide: (mail: ReceivedMail, index: number) => ReceiveDecision;
   /** Messages seen (accepted or not), in order. */
-  seen: CaughtMail[];
+  seen: ReceivedMail[];
   close(): Promise<void>;
 }
 
-export async function startMailCatcher(): Promise<MailCatcher> {
-  const catcher: MailCatcher = {
+export async function startSmtpReceiver(): Promise<SmtpReceiver> {
+  const receiver: SmtpReceiver = {
     port: 0,
     smtpUrl: '',
     delivered: [],
@@ -81,17 +81,17 @@ export async function startMailCatcher(): Promise<MailCatcher> {
     onData(stream, session, callback) {
       simpleParser(stream)
         .then((parsed) => {
-          const mail: CaughtMail = {
+          const mail: ReceivedMail = {
             messageId: parsed.messageId ?? '',
             to: session.envelope.rcptTo.map((r) => r.address),
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',
           };
-          catcher.seen.push(mail);
-          const decision = catcher.decide(mail, catcher.seen.length - 1);
+          receiver.seen.push(mail);
+          const decision = receiver.decide(mail, receiver.seen.length - 1);
           if (decision === 'hold') return; // never answered
           if (typeof decision === 'object') decision.acceptAfter();
-          catcher.delivered.push(mail);
+          receiver.delivered.push(mail);
           callback();
         })
         .catch((err: Error) => callback(err));
@@ -102,10 +102,10 @@ export async function startMailCatcher(): Promise<MailCatcher> {
     server.once('error', reject);
     server.listen(0, '127.0.0.1', () => resolve());
   });
-  catcher.port = (server.server.address() as net.AddressInfo).port;
-  catcher.smtpUrl = `smtp://127.0.0.1:${catcher.port}`;
-  catcher.close = () => new Promise<void>((resolve) => server.close(() => resolve()));
-  return catcher;
+  receiver.port = (server.server.address() as net.AddressInfo).port;
+  receiver.smtpUrl = `smtp://127.0.0.1:${receiver.port}`;
+  receiver.close = () => new Promise<void>((resolve) => server.close(() => resolve()));
+  return receiver;
 }
 
 // ---------------------------------------------------------------------------------------------

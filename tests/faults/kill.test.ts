@@ -1,7 +1,7 @@
 // The server killed with SIGKILL in the middle of its work, then started again on the same data
 // folder: a planning run killed while its alert e-mails are being sent (once while an e-mail waits
 // for the SMTP answer, once right after the answer), and a large import killed while its
-// transaction writes the series. Mail goes to a catcher this test owns, so what was delivered is
+// transaction writes the series. Mail goes to a receiver this test owns, so what was delivered is
 // known across the restarts. After the last kill the data folder is opened directly (the first
 // open after the crash) and checked table by table, key by key, and with amcheck.
 import fs from 'node:fs';
@@ -13,11 +13,11 @@ import {
   integrityProblems,
   serverInfo,
   signIn,
-  startMailCatcher,
+  startSmtpReceiver,
   startServer,
-  type CaughtMail,
+  type ReceivedMail,
   type ChildServer,
-  type MailCatcher,
+  type SmtpReceiver,
 } from './harness';
 import { openDatabase } from '../../server/db/client';
 import { outbox } from '../../server/db/schema';
@@ -30,7 +30,7 @@ const dataDir = path.join(work, 'data');
 // The server's temporary folder (uploads land there), so what a killed upload leaves is removed with the rest.
 const serverTmp = path.join(work, 'tmp');
 fs.mkdirSync(serverTmp);
-let catcher: MailCatcher;
+let receiver: SmtpReceiver;
 let server: ChildServer | undefined;
 let projectId = '';
 /** Outbox ids of the e-mail held without an SMTP answer at the first kill, and of the one accepted just before the second. */
@@ -39,7 +39,8 @@ let racedId = '';
 /** The address of the server that sent the raced e-mail: its unsubscribe link is built on it. */
 let racedBaseUrl = '';
 
-const start = async () => (server = await startServer(dataDir, { SMTP_URL: catcher.smtpUrl, DEMO_HINDCAST_YEARS: '1', TMPDIR: serverTmp }));
+const start = async () =>
+  (server = await startServer(dataDir, { SMTP_URL: receiver.smtpUrl, DEMO_HINDCAST_YEARS: '1', TMPDIR: serverTmp }));
 
 /** Runs the planning job in the server as `npm run plan:once` does (token from server.json); null when the server died. */
 function planOnce(): Promise<{ projects: { status: string; queued?: number }[]; mail: { sent: number } } | null> {
@@ -78,10 +79,10 @@ function waitFor<T>(what: string, timeoutMs: number, setup: (resolve: (v: T) => 
 }
 
 /** The outbox row id in a caught e-mail's Message-ID (`<outbox.<id>@domain>`). */
-const outboxId = (m: CaughtMail) => /^<outbox\.([0-9a-f-]{36})@/.exec(m.messageId)?.[1] ?? `unknown:${m.messageId}`;
+const outboxId = (m: ReceivedMail) => /^<outbox\.([0-9a-f-]{36})@/.exec(m.messageId)?.[1] ?? `unknown:${m.messageId}`;
 
 beforeAll(async () => {
-  catcher = await startMailCatcher();
+  receiver = await startSmtpReceiver();
   await start();
   // Everyone on the cable project hears about every operation at once: plenty of alert e-mails.
   for (const email of ['coordinator@example.com', 'skipper@example.com', 'client@example.com']) {
@@ -102,7 +103,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await server?.kill();
-  await catcher?.close();
+  await receiver?.close();
   fs.rmSync(work, { recursive: true, force: true });
 });
 
@@ -111,7 +112,7 @@ describe('SIGKILL during a planning run and its e-mails', () => {
     // The first e-mail is accepted; the server is killed while the second waits for the 250
     // reply, so it was never accepted (a sender that sees no 250 has not sent the message).
     const held = waitFor<number>('the second alert e-mail', 90_000, (resolve) => {
-      catcher.decide = (_mail, i) => {
+      receiver.decide = (_mail, i) => {
         if (i === 1) {
           resolve(i);
           return 'hold';
@@ -120,20 +121,20 @@ describe('SIGKILL during a planning run and its e-mails', () => {
       };
     });
     const job = planOnce();
-    heldId = outboxId(catcher.seen[await held]);
+    heldId = outboxId(receiver.seen[await held]);
     await server!.kill();
     expect(await job).toBeNull();
-    expect(catcher.delivered).toHaveLength(1);
+    expect(receiver.delivered).toHaveLength(1);
   }, 120_000);
 
   it('after a restart, kills it again when the SMTP server has taken an e-mail but before its answer arrives', async () => {
     await start();
     // The plan of the killed run was committed with its outbox rows before any sending, so a run
-    // on the same forecast queues nothing new and sends the e-mails not yet tried. The catcher
+    // on the same forecast queues nothing new and sends the e-mails not yet tried. The receiver
     // takes the first of them and kills the server just before answering 250: the message is
     // delivered, but the server never learns it.
     const raced = waitFor<number>('an e-mail of the second run', 90_000, (resolve) => {
-      catcher.decide = (_mail, i) => ({
+      receiver.decide = (_mail, i) => ({
         acceptAfter: () => {
           if (server!.child.exitCode === null && server!.child.signalCode === null) process.kill(server!.pid, 'SIGKILL');
           resolve(i);
@@ -145,20 +146,20 @@ describe('SIGKILL during a planning run and its e-mails', () => {
     racedBaseUrl = server!.baseUrl;
     await server!.exited;
     expect(await job).toBeNull();
-    racedId = outboxId(catcher.seen[racedIndex]);
-    expect(catcher.delivered.at(-1)).toBe(catcher.seen[racedIndex]);
+    racedId = outboxId(receiver.seen[racedIndex]);
+    expect(receiver.delivered.at(-1)).toBe(receiver.seen[racedIndex]);
   }, 150_000);
 
   it('after another restart, a run queues nothing new and sends the e-mails not yet tried', async () => {
     await start();
-    catcher.decide = () => 'accept';
+    receiver.decide = () => 'accept';
     const again = await planOnce();
     expect(again).not.toBeNull();
     expect(again!.projects.every((p) => p.status === 'planned')).toBe(true);
     expect(again!.projects.reduce((n, p) => n + (p.queued ?? 0), 0)).toBe(0);
     expect(again!.mail.sent).toBeGreaterThan(0);
     // Nothing but the raced e-mail may have arrived twice so far (its retry is a minute after the claim).
-    const ids = catcher.delivered.map(outboxId).filter((id) => id !== racedId);
+    const ids = receiver.delivered.map(outboxId).filter((id) => id !== racedId);
     expect(new Set(ids).size, 'an e-mail arrived twice').toBe(ids.length);
     expect(ids.every((id) => !id.startsWith('unknown'))).toBe(true);
   }, 150_000);
@@ -307,9 +308,9 @@ describe('SIGKILL during a large import', () => {
 
 describe('after the kills', () => {
   it('delivers every alert e-mail once, except the one taken while its SMTP answer was lost to the kill: twice, as the same message', async () => {
-    // Deliver as the job would two hours later (past every retry time), to the same catcher.
+    // Deliver as the job would two hours later (past every retry time), to the same receiver.
     const database = await openDatabase({ dataDir: path.join(dataDir, 'db') });
-    const mailer = await createMailer({ smtpUrl: catcher.smtpUrl, from: 'Lullwatch <alerts@lullwatch.invalid>' });
+    const mailer = await createMailer({ smtpUrl: receiver.smtpUrl, from: 'Lullwatch <alerts@lullwatch.invalid>' });
     try {
       // The same link settings as the server that sent the first copy (its address and the secret in its data folder).
       const links = {
@@ -321,7 +322,7 @@ describe('after the kills', () => {
       expect(rows.length).toBeGreaterThan(3);
       expect(rows.filter((r) => r.status !== 'sent').map((r) => r.status)).toEqual([]);
       const counts = new Map<string, number>();
-      for (const m of catcher.delivered) counts.set(outboxId(m), (counts.get(outboxId(m)) ?? 0) + 1);
+      for (const m of receiver.delivered) counts.set(outboxId(m), (counts.get(outboxId(m)) ?? 0) + 1);
       expect([...counts.keys()].sort()).toEqual(rows.map((r) => r.id).sort());
       // (Under heavy load a restart can outlast the held e-mail's one-minute retry time; then it may be the raced one.)
       if (heldId !== racedId) expect(counts.get(heldId), 'the e-mail whose SMTP answer never came').toBe(1);
@@ -329,7 +330,7 @@ describe('after the kills', () => {
       // At least once: the e-mail the SMTP server took while its 250 answer was lost with the
       // killed server stayed 'claimed' in the outbox, so the retry sends it again, as the same
       // message (same Message-ID, subject and text).
-      const copies = catcher.delivered.filter((m) => outboxId(m) === racedId);
+      const copies = receiver.delivered.filter((m) => outboxId(m) === racedId);
       expect(copies).toHaveLength(2);
       for (const copy of copies) {
         expect(copy.messageId).toBe(copies[0].messageId);

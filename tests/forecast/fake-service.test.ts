@@ -71,6 +71,26 @@ describe('fake forecast service through HttpForecastProvider', () => {
     expect(Object.keys(body).sort()).toEqual(['issuedAt', 'position', 'series']);
   });
 
+  it('gives wind sea and swells whose energies add up to the total (docs/domain.md#partitions)', () => {
+    const r = issue.records as Record<string, Float64Array> & { timeMs: Float64Array; hs: Float64Array };
+    for (const k of ['windSea', 'swell1', 'swell2'])
+      for (const v of ['hs', 'tp', 'dir']) expect(r[`${k}.${v}`]).toBeInstanceOf(Float64Array);
+    let swellLong = 0;
+    for (let i = 0; i < r.timeMs.length; i++) {
+      const parts = [r['windSea.hs'][i], r['swell1.hs'][i], r['swell2.hs'][i]];
+      expect(parts.every((h) => h >= 0)).toBe(true);
+      // Energies add (common practice, no source); the total is interpolated and rounded on its
+      // own, so allow the 5 % the import tolerates before it rescales.
+      expect(Math.abs(Math.hypot(...parts) - r.hs[i])).toBeLessThanOrEqual(0.05 * r.hs[i] + 0.02);
+      for (const k of ['windSea', 'swell1', 'swell2'] as const) {
+        const absent = r[`${k}.hs`][i] === 0;
+        expect(Number.isNaN(r[`${k}.tp`][i])).toBe(absent);
+      }
+      if (r['swell1.hs'][i] > 0 && r['swell1.tp'][i] >= 10) swellLong++;
+    }
+    expect(swellLong).toBeGreaterThan(r.timeMs.length / 3);
+  });
+
   it('issues on the 00/06/12/18 UTC cycle, hourly then 3-hourly, for 10 days by default', () => {
     expect(new Date(issue.issuedAtMs).toISOString()).toBe('2026-12-03T12:00:00.000Z');
     const t = issue.records.timeMs;

@@ -290,3 +290,56 @@ describe('generateSyntheticSea: realistic values', () => {
     expect(windBig / nBig).toBeGreaterThan(10);
   });
 });
+
+describe('generateSyntheticSea: partitions (docs/domain.md#partitions)', () => {
+  // Two winters and a summer, hourly, with partitions; the totals must be those of the plain call.
+  const start = Date.UTC(2021, 9, 1);
+  const plain = generateSyntheticSea({ startMs: start, hours: 24 * 400, seed: 11 });
+  const split = generateSyntheticSea({ startMs: start, hours: 24 * 400, seed: 11, partitions: true });
+  const p = split.partitions!;
+
+  it('leaves the totals as they are without partitions', () => {
+    expect(plain.partitions).toBeUndefined();
+    for (const c of COLUMNS) expect(Array.from(split[c])).toEqual(Array.from(plain[c]));
+  });
+
+  it('adds energies: sqrt(sum Hs_i^2) is the total within rounding (common practice, no source)', () => {
+    let worst = 0;
+    for (let i = 0; i < split.hsM.length; i++) {
+      const sum = Math.hypot(p.windSea.hsM[i], p.swell1.hsM[i], p.swell2.hsM[i]);
+      // each of four values rounded to 0.01 m; the total floored at 0.05 m
+      worst = Math.max(worst, Math.abs(sum - Math.max(split.hsM[i], 0.05)) - 0.02);
+    }
+    expect(worst).toBeLessThanOrEqual(0.01);
+  });
+
+  it('has a long-period swell from west of the prevailing south-westerly, slowly varying, under a wind sea following the wind', () => {
+    const swellTp: number[] = [];
+    let dirOff = 0;
+    let n = 0;
+    let jumps = 0;
+    let windAgree = 0;
+    let windN = 0;
+    for (let i = 0; i < split.hsM.length; i++) {
+      if (p.swell1.hsM[i] >= 0.3) {
+        swellTp.push(p.swell1.tpS[i]);
+        dirOff += Math.abs(angleDiff(p.swell1.dirDeg[i], 265));
+        n++;
+        if (i > 0 && p.swell1.hsM[i - 1] > 0 && Math.abs(p.swell1.hsM[i] - p.swell1.hsM[i - 1]) > 0.15 * p.swell1.hsM[i]) jumps++;
+      }
+      if (p.windSea.hsM[i] >= 1.5 && split.windMps[i] >= 10) {
+        windN++;
+        if (Math.abs(angleDiff(p.windSea.dirDeg[i], split.windDirDeg[i])) <= 45) windAgree++;
+      }
+    }
+    expect(n).toBeGreaterThan(1000);
+    swellTp.sort((a, b) => a - b);
+    // Swell from distant storms: 11-16 s at the source (common practice: swell periods above 10 s).
+    expect(swellTp[Math.floor(swellTp.length * 0.05)]).toBeGreaterThanOrEqual(10);
+    expect(swellTp[Math.floor(swellTp.length * 0.95)]).toBeLessThanOrEqual(18);
+    expect(dirOff / n).toBeLessThan(20); // about W-WSW
+    expect(jumps / n).toBeLessThan(0.01); // changes over hours, not from one hour to the next
+    expect(windN).toBeGreaterThan(100);
+    expect(windAgree / windN).toBeGreaterThan(0.8);
+  });
+});

@@ -33,6 +33,8 @@ export interface TestAppOptions {
   forecast?: boolean;
   /** Earlier forecast issues, one a day back (default none). */
   pastForecastDays?: number;
+  /** Days of forecast archive and observation for the skill page (default none; needs `forecast`). */
+  skillArchiveDays?: number;
 }
 
 /** The real app on a fresh in-memory database with the demo scenario seeded. */
@@ -68,6 +70,7 @@ export async function createTestApp(options: TestAppOptions = {}): Promise<TestA
     hindcastYears: options.hindcastYears ?? 0,
     forecast: options.forecast ?? false,
     pastForecastDays: options.pastForecastDays ?? 0,
+    skillArchiveDays: options.skillArchiveDays ?? 0,
   });
   const app = createApp(deps);
   return {

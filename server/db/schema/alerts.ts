@@ -99,6 +99,11 @@ export const subscription = pgTable(
     digestTimeZone: text().notNull().default('UTC'),
     /** E-mail when a campaign's P50 finish moves by more than this many days between runs; null = off. */
     outlookMoveDays: integer(),
+    /**
+     * E-mail when a usable window's ensemble chance to hold TR falls below this percentage between
+     * planning runs (docs/domain.md#forecast-uncertainty); null = off.
+     */
+    windowChanceBelow: integer(),
     lastDigestAt: timestamp({ withTimezone: true }),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),

@@ -47,6 +47,11 @@ export const dataset = pgTable(
     anemometerHeightM: doublePrecision(),
     /** Power-law exponent a of U10 = Uz (10/z)^a used at import; null as above. */
     windExponent: doublePrecision(),
+    /**
+     * Ensemble members stored beside the control (the dataset's own series is the control, member 0);
+     * 0 without an ensemble (docs/domain.md#forecast-uncertainty). Their series: forecast_member.
+     */
+    ensembleMembers: integer().notNull().default(0),
     /** Import report: options used, skipped rows. */
     importReport: jsonb().$type<Record<string, unknown>>().notNull(),
     createdBy: text().references(() => user.id, { onDelete: 'set null' }),
@@ -85,4 +90,28 @@ export const datasetChunk = pgTable(
     extra: bytea(),
   },
   (t) => [primaryKey({ columns: [t.datasetId, t.seq] })],
+);
+
+/**
+ * The members of an ensemble forecast beside its control, columnar like dataset_chunk: one row
+ * per (dataset, member, chunk), the values as packed Float64 (NaN = missing) aligned with the
+ * dataset chunk of the same seq (the member has the control's times, which are not stored again).
+ * Periods other than Tp are derived on reading (docs/domain.md#sea-states).
+ */
+export const forecastMember = pgTable(
+  'forecast_member',
+  {
+    datasetId: uuid()
+      .notNull()
+      .references(() => dataset.id, { onDelete: 'cascade' }),
+    member: integer().notNull(),
+    seq: integer().notNull(),
+    count: integer().notNull(),
+    hs: bytea().notNull(),
+    tp: bytea().notNull(),
+    dir: bytea().notNull(),
+    wind: bytea().notNull(),
+    windDir: bytea().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.datasetId, t.member, t.seq] })],
 );

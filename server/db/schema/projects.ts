@@ -24,6 +24,11 @@ export const project = pgTable('project', {
    * deleted) = the newest hindcast. No foreign key: dataset already refers to project.
    */
   defaultHindcastId: uuid(),
+  /**
+   * p of the calibrated alpha table: the accepted chance that the observed Hs exceeds OPLIM
+   * (docs/domain.md#calibrated-alpha); 1e-4 by default.
+   */
+  alphaCalibrationP: doublePrecision().notNull().default(1e-4),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });

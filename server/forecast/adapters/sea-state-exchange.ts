@@ -18,16 +18,23 @@ import type { ForecastAdapter, ForecastIssue, ForecastRecords } from '../types';
 /** At most this many validation problems are listed in an error. */
 const MAX_DETAILS = 5;
 
-/** Columns of a validated answer as records; nulls and left-out members become NaN, 360 deg becomes 0. */
+/** Columns of a validated answer as records; nulls become NaN, 360 deg becomes 0; a left-out optional member has no column. */
 export function exchangeToRecords(data: SeaStateExchange): ForecastRecords {
   const n = data.series.time.length;
   const timeMs = new Float64Array(n);
   for (let i = 0; i < n; i++) timeMs[i] = Date.parse(data.series.time[i]);
+  return columnsToRecords(timeMs, data.series);
+}
+
+/** One run's columns (the control's or a member's) on the given times. */
+function columnsToRecords(timeMs: Float64Array, columns: object): ForecastRecords {
+  const n = timeMs.length;
   const records = { timeMs } as ForecastRecords;
-  const wire = data.series as unknown as Record<string, (number | null)[] | undefined>;
+  const wire = columns as Record<string, (number | null)[] | undefined>;
   for (const key of EXCHANGE_SERIES_KEYS) {
     const spec: ExchangeSeriesSpec = EXCHANGE_SERIES[key];
     const values = wire[key];
+    if (!values && !spec.required) continue;
     const out = new Float64Array(n).fill(NaN);
     if (values) {
       for (let i = 0; i < n; i++) {
@@ -41,10 +48,11 @@ export function exchangeToRecords(data: SeaStateExchange): ForecastRecords {
 }
 
 export const seaStateExchangeAdapter: ForecastAdapter = {
-  requestUrl(base, { latitude, longitude }) {
+  requestUrl(base, { latitude, longitude, members }) {
     const url = new URL(EXCHANGE_PATH, base);
     url.searchParams.set('lat', String(latitude));
     url.searchParams.set('lon', String(longitude));
+    if (members) url.searchParams.set('members', String(members));
     return url;
   },
   toIssue(json: unknown): ForecastIssue {
@@ -58,11 +66,15 @@ export const seaStateExchangeAdapter: ForecastAdapter = {
       );
     }
     const data = parsed.data;
+    const records = exchangeToRecords(data);
     return {
       issuedAtMs: Date.parse(data.issuedAt),
       latitude: data.position.lat,
       longitude: data.position.lon,
-      records: exchangeToRecords(data),
+      records,
+      members: (data.members ?? [])
+        .map((m) => ({ member: m.member, records: columnsToRecords(records.timeMs, m.series) }))
+        .sort((a, b) => a.member - b.member),
     };
   },
 };

@@ -1,7 +1,7 @@
 // "What I hear about": the caller's subscription in this project. Operations and worksites to hear
 // about (none ticked = all), immediate e-mails and/or a daily digest at a local time, and a master
 // switch. Without a stored choice the default applies: skippers hear about their assigned operations.
-import { Controller, useForm, useWatch } from 'react-hook-form';
+import { Controller, useForm, useWatch, type UseFormReturn } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { SubscriptionInput } from '../../../../shared/schemas/alerts';
@@ -196,27 +196,25 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
             </FieldShell>
           </div>
         ) : null}
+        <OptionalWholeNumber
+          form={form}
+          field="windowChanceBelow"
+          id="sub-window-chance"
+          label="Window chance fell below"
+          unit="%"
+          max={99}
+          hint="With an ensemble forecast: e-mail me when a usable window's chance to hold TR falls below this percentage from one planning run to the next (50 is a common choice). Empty: off."
+        />
         {role === 'client' || role === 'coordinator' ? (
-          <FieldShell
+          <OptionalWholeNumber
+            form={form}
+            field="outlookMoveDays"
+            id="sub-outlook-days"
             label="Campaign finish moved"
-            htmlFor="sub-outlook-days"
             unit="days"
-            error={errors.outlookMoveDays?.message}
+            max={365}
             hint="E-mail me when a campaign's P50 finish moves by more than this many days from one planning run to the next. Empty: off."
-          >
-            <Input
-              id="sub-outlook-days"
-              type="number"
-              min={1}
-              max={365}
-              step={1}
-              inputMode="numeric"
-              {...form.register('outlookMoveDays', {
-                setValueAs: (x: unknown) => (x === '' || x === null || x === undefined ? null : Number(x)),
-              })}
-              invalid={!!errors.outlookMoveDays}
-            />
-          </FieldShell>
+          />
         ) : null}
       </fieldset>
 
@@ -238,5 +236,42 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
         ) : null}
       </div>
     </form>
+  );
+}
+
+/** A whole number from 1 to `max` that may be left empty (off), e.g. a threshold of an optional alert. */
+function OptionalWholeNumber({
+  form,
+  field,
+  id,
+  label,
+  unit,
+  max,
+  hint,
+}: {
+  form: UseFormReturn<z.input<typeof SubscriptionInput>, unknown, SubscriptionInput>;
+  field: 'windowChanceBelow' | 'outlookMoveDays';
+  id: string;
+  label: string;
+  unit: string;
+  max: number;
+  hint: string;
+}) {
+  const error = form.formState.errors[field];
+  return (
+    <FieldShell label={label} htmlFor={id} unit={unit} error={error?.message} hint={hint}>
+      <Input
+        id={id}
+        type="number"
+        min={1}
+        max={max}
+        step={1}
+        inputMode="numeric"
+        {...form.register(field, {
+          setValueAs: (x: unknown) => (x === '' || x === null || x === undefined ? null : Number(x)),
+        })}
+        invalid={!!error}
+      />
+    </FieldShell>
   );
 }

@@ -7,6 +7,7 @@ import type { OperationSitePlan } from '../../../../shared/api-types-plan';
 import { OCCURRENCE_META, STATUS_META, formatIn, formatStart, limitWord } from './board-format';
 import { dayRuns, firstAtOrAfter, occurrenceMarks, recordEndMs, startWords, windowBoxes, type VisibleRange } from './board-model';
 import { Term } from '../../../components/ui';
+import { CHANCE_WORDS, START_WORDS, chancePercent } from '../../../../shared/status-words';
 
 export interface SelectedHour {
   operationId: string;
@@ -29,6 +30,8 @@ interface BoardGridProps {
   onSelect: (hour: SelectedHour) => void;
 }
 
+const capitalise = (s: string) => s[0].toUpperCase() + s.slice(1);
+
 const rowKey = (p: { operationId: string; siteId: string }) => `${p.operationId}:${p.siteId}`;
 
 /** Aria label of an hour: 'Tue 3 Dec 14:00, not workable, limited by Hs'. */
@@ -38,11 +41,12 @@ export function hourLabel(plan: OperationSitePlan, index: number, timeMs: number
   const word = STATUS_META[status].word;
   const limit = limitWord(plan.limiting[index]);
   const margin = plan.marginRel[index];
-  if (status === 'no_data') return `${when}, no data`;
+  const chance = plan.chance ? `, ${CHANCE_WORDS.hour} ${chancePercent(plan.chance[index])}` : '';
+  if (status === 'no_data') return `${when}, no data${chance}`;
   if (status === 'workable') {
-    return `${when}, workable${limit ? `, closest limit ${limit}` : ''}${margin !== null ? ` (margin ${Math.round(margin * 100)} %)` : ''}`;
+    return `${when}, workable${limit ? `, closest limit ${limit}` : ''}${margin !== null ? ` (margin ${Math.round(margin * 100)} %)` : ''}${chance}`;
   }
-  return `${when}, ${word}${limit ? `, limited by ${limit}` : ''}`;
+  return `${when}, ${word}${limit ? `, limited by ${limit}` : ''}${chance}`;
 }
 
 export function BoardGrid(props: BoardGridProps) {
@@ -293,6 +297,18 @@ const BoardRow = memo(function BoardRow({
         } ${past ? 'opacity-50' : ''} ${isSelected ? 'z-10 outline-3 -outline-offset-3 outline-lamp' : ''} hover:brightness-110 focus-visible:z-10`}
       >
         {showLetters ? <span aria-hidden>{meta.letter}</span> : null}
+        {plan.chance ? (
+          // The ensemble chance of workable as a thin bar along the cell's foot: its length is the
+          // share (readable without colour); the words are in the cell's label.
+          <span
+            aria-hidden
+            data-testid="chance-bar"
+            data-chance={plan.chance[i]}
+            className="absolute inset-x-0.5 bottom-0.5 h-1 rounded-sm bg-surface/70"
+          >
+            <span className="block h-full rounded-sm bg-ink" style={{ width: `${Math.round(plan.chance[i] * 100)}%` }} />
+          </span>
+        ) : null}
       </button>,
     );
   }
@@ -323,6 +339,12 @@ const BoardRow = memo(function BoardRow({
           {words.text}
           <span className="sr-only"> {words.detail}</span>
         </p>
+        {plan.windows[0] && plan.windows[0].chance !== null && plan.windows[0].chance !== undefined ? (
+          <p className="text-xs text-ink-soft" data-testid="window-chance">
+            {capitalise(START_WORDS.nextWindow)} {formatStart(plan.windows[0].start, plan.timeZone, nowMs)}: {CHANCE_WORDS.window}{' '}
+            <strong className="text-ink">{chancePercent(plan.windows[0].chance)}</strong>
+          </p>
+        ) : null}
         <div className="-ml-2 flex flex-wrap">
           {plan.windows.length > 0 ? (
             <a className={linkClass} href={ics} download>
@@ -349,7 +371,13 @@ const BoardRow = memo(function BoardRow({
             data-testid="window-box"
             className="pointer-events-none absolute inset-y-0.5 z-10 rounded-md border-[3px] border-ink shadow-[0_0_0_1px_var(--color-surface)]"
             style={{ left: `calc(var(--cell) * ${b.start - range.from})`, width: `calc(var(--cell) * ${b.count})` }}
-          />
+          >
+            {b.window.chance !== null && b.window.chance !== undefined ? (
+              <span className="absolute -top-0.5 right-0 rounded-bl-md bg-ink px-1 text-[10px] leading-4 font-bold text-surface">
+                {chancePercent(b.window.chance)}
+              </span>
+            ) : null}
+          </div>
         ))}
         {marks.map((m) => {
           const meta = OCCURRENCE_META[m.status];

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { statusLabel } from '../../../../shared/status-words';
+import { CHANCE_WORDS, statusLabel } from '../../../../shared/status-words';
 import { OCCURRENCE_META, STATUS_META, STATUS_ORDER } from './board-format';
 import { isWideScreen } from './board-controls';
 
@@ -50,6 +50,15 @@ export function BoardLegend({ alpha }: { alpha: boolean }) {
               .map((k, i) => `${i ? ', ' : ''}${OCCURRENCE_META[k].letter} ${OCCURRENCE_META[k].word}`)
               .join('')}
             .
+          </span>
+        </li>
+        <li className="flex items-start gap-2" data-testid="legend-chance">
+          <span className="mt-2 inline-block h-1 w-10 shrink-0 rounded-sm bg-surface-2" aria-hidden>
+            <span className="block h-full w-2/3 rounded-sm bg-ink" />
+          </span>
+          <span>
+            <strong>Bar along an hour&rsquo;s foot</strong> (with an ensemble forecast): the {CHANCE_WORDS.hour}, the share of the
+            forecast&rsquo;s runs workable on OPLIM; the figure on a window is its {CHANCE_WORDS.window}. The status letter still decides.
           </span>
         </li>
         <li className="flex items-start gap-2">

@@ -97,7 +97,11 @@ export function BoardPage() {
   const fetchForecast = useFetchForecast(projectId);
   const nowMs = useBoardNow(plan.data?.generatedAt, plan.dataUpdatedAt);
   const [selected, setSelected] = useState<SelectedHour | null>(null);
-  const closePanel = useCallback(() => setSelected(null), []);
+  // Closing the chain gives the focus back to the hour it belongs to (WCAG 2.4.3), not to the page's start.
+  const closePanel = useCallback(() => {
+    document.querySelector<HTMLElement>('[aria-controls="hour-chain"]')?.focus({ preventScroll: true });
+    setSelected(null);
+  }, []);
   useChainLink(plan.data, filters, setSelected);
 
   const fetchButton = viewer.canFetchForecast ? (

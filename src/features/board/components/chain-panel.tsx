@@ -5,6 +5,7 @@
 import { useEffect, useRef, type ReactNode } from 'react';
 import type { LimitCheck, OperationSitePlan } from '../../../../shared/api-types-plan';
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
+import { CHANCE_WORDS, chancePercent } from '../../../../shared/status-words';
 import { ErrorNotice, Spinner, Term } from '../../../components/ui';
 import { useHourChain, type HourChain } from '../api/get-hour-chain';
 import { STATUS_META, flagWords, fmt, fmtDir, formatIn, limitWord } from './board-format';
@@ -67,6 +68,17 @@ export function ChainPanel({ projectId, plan, index, timeMs, alpha, datasetId, c
               <span>limited by {limitWord(plan.limiting[index])}</span>
             ) : null}
           </p>
+          {plan.chance ? (
+            <p className="mt-1 text-sm" data-testid="chain-chance">
+              Ensemble: {CHANCE_WORDS.hour} <strong>{chancePercent(plan.chance[index])}</strong>
+              {plan.startChance ? (
+                <>
+                  {' '}
+                  · {CHANCE_WORDS.window} from this hour <strong>{chancePercent(plan.startChance[index])}</strong>
+                </>
+              ) : null}
+            </p>
+          ) : null}
         </div>
         <button
           type="button"
@@ -235,12 +247,13 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
         <Facts
           rows={[
             ['Hs', <strong key="hs">{fmt(chain.site.hs, 2, 'm')}</strong>],
-            ['Direction', fmtDir(t.dirDeg)],
+            ['Direction', fmtDir(chain.site.dir ?? t.dirDeg)],
             ['Bed velocity, linear', fmt(chain.site.bedVelocityLinear, 2, 'm/s')],
             ['Bed velocity, Soulsby (2006)', fmt(chain.site.bedVelocitySoulsby, 2, 'm/s')],
             ['Wind at 10 m', fmt(chain.site.wind, 1, 'm/s')],
           ]}
         />
+        {chain.partitions ? <PartitionTable partitions={chain.partitions} /> : null}
       </Step>
       <Step n={4} title="Against each limit">
         <p className="mb-2 text-xs text-ink-soft">
@@ -259,8 +272,62 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
           Result: <strong>{STATUS_META[chain.status].word}</strong>.
         </p>
       </Step>
+      {chain.ensemble ? (
+        <Step n={5} title={`Ensemble spread at the worksite (${chain.ensemble.runs} runs)`}>
+          <p className="mb-1 text-xs text-ink-soft">
+            Hs of the control and every member through the same chain. Chances count the runs on OPLIM (no α); the status above is the
+            control&rsquo;s and still decides go or no-go.
+          </p>
+          <div data-testid="chain-spread">
+            <Facts
+              rows={[
+                ['Hs min', fmt(chain.ensemble.hs.min, 2, 'm')],
+                ['Hs P10', fmt(chain.ensemble.hs.p10, 2, 'm')],
+                ['Hs P50', fmt(chain.ensemble.hs.p50, 2, 'm')],
+                ['Hs P90', fmt(chain.ensemble.hs.p90, 2, 'm')],
+                ['Hs max', fmt(chain.ensemble.hs.max, 2, 'm')],
+              ]}
+            />
+          </div>
+        </Step>
+      ) : null}
       <p className="mt-1 text-xs text-ink-soft">{TRANSFORMATION_CAUTION}</p>
     </div>
+  );
+}
+
+const PARTITION_LABEL = { windSea: 'Wind sea', swell1: 'Swell 1', swell2: 'Swell 2' } as const;
+
+/** Each partition at the data point and at the worksite (docs/domain.md#partitions): the total above is √(ΣHs²) of these. */
+function PartitionTable({ partitions }: { partitions: NonNullable<HourChain['partitions']> }) {
+  return (
+    <table className="mt-2 w-full text-xs tabular-nums" data-testid="chain-partitions">
+      <caption className="text-left text-ink-soft">
+        Partitions, each through the chain with its own Tp and direction; the total is √(ΣHs²)
+      </caption>
+      <thead>
+        <tr className="text-left text-ink-soft">
+          <th scope="col">Partition</th>
+          <th scope="col">Hs at data point</th>
+          <th scope="col">Hs at worksite</th>
+          <th scope="col">Tp</th>
+          <th scope="col">Direction at worksite</th>
+        </tr>
+      </thead>
+      <tbody>
+        {partitions.map((p) => (
+          <tr key={p.name}>
+            <th scope="row" className="text-left font-normal">
+              {PARTITION_LABEL[p.name]}
+            </th>
+            <td>{p.dataPoint.hs === 0 ? 'absent' : fmt(p.dataPoint.hs, 2, 'm')}</td>
+            <td>{p.site.hs === 0 ? 'absent' : fmt(p.site.hs, 2, 'm')}</td>
+            <td>{p.site.tp === null ? '–' : fmt(p.site.tp, 1, 's')}</td>
+            <td>{p.site.dir === null ? '–' : fmtDir(p.site.dir)}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
   );
 }
 
@@ -272,7 +339,10 @@ function LimitRow({ check: c }: { check: LimitCheck }) {
   return (
     <li className="rounded-lg border border-line p-2" data-testid="limit-check">
       <div className="flex items-center justify-between gap-2">
-        <strong className="text-sm">{c.label}</strong>
+        <strong className="text-sm">
+          {c.label}
+          {c.drivenBy ? <span className="font-normal text-ink-soft"> · driven by {PARTITION_LABEL[c.drivenBy].toLowerCase()}</span> : null}
+        </strong>
         <span className={`rounded px-2 py-0.5 text-xs font-bold ${tone}`}>
           {c.met === null ? '?' : c.met ? '✓' : '✗'} {verdict}
         </span>

@@ -17,6 +17,7 @@ const SettingsForm = z.object({
   dataPointLongitude: z.string(),
   dataPointDepthM: z.string(),
   forecastSource: z.enum(['service', 'uploads']),
+  alphaCalibrationP: z.string(),
 });
 type SettingsForm = z.infer<typeof SettingsForm>;
 
@@ -42,6 +43,7 @@ function SettingsEditor({ project }: { project: ProjectDetail }) {
       dataPointLongitude: project.dataPointLongitude?.toString() ?? '',
       dataPointDepthM: project.dataPointDepthM?.toString() ?? '',
       forecastSource: project.forecastSource,
+      alphaCalibrationP: project.alphaCalibrationP.toString(),
     },
   });
   const errors = form.formState.errors;
@@ -52,6 +54,7 @@ function SettingsEditor({ project }: { project: ProjectDetail }) {
       dataPointLatitude: numOrNull(v.dataPointLatitude),
       dataPointLongitude: numOrNull(v.dataPointLongitude),
       dataPointDepthM: numOrNull(v.dataPointDepthM),
+      alphaCalibrationP: numOrNull(v.alphaCalibrationP) ?? undefined,
     });
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
@@ -105,6 +108,14 @@ function SettingsEditor({ project }: { project: ProjectDetail }) {
             {...form.register('dataPointLongitude')}
             invalid={!!errors.dataPointLongitude}
           />
+        </FieldShell>
+        <FieldShell
+          label="p of the calibrated alpha table"
+          htmlFor="alphaCalibrationP"
+          hint="The accepted chance that the observed Hs exceeds the limit when the forecast is at α·OPLIM (1e-4 by default). Used by the Forecast skill page; never adopted by itself."
+          error={errors.alphaCalibrationP?.message}
+        >
+          <Input id="alphaCalibrationP" inputMode="decimal" {...form.register('alphaCalibrationP')} invalid={!!errors.alphaCalibrationP} />
         </FieldShell>
         <div className="flex flex-col gap-3 md:col-span-2">
           {update.error ? <ErrorNotice error={update.error} /> : null}

@@ -4,7 +4,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { alphaFor, WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../../../../shared/engine/alpha-factor';
-import { BED_VELOCITY_METHODS, LIMIT_RANGES, TIDE_REFERENCES } from '../../../../shared/engine/schemas';
+import { BED_VELOCITY_METHODS, HS_TARGETS, LIMIT_RANGES, TIDE_REFERENCES } from '../../../../shared/engine/schemas';
+import { HS_TARGET_LABELS } from '../../../../shared/engine/explain-hour';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
 import { Button, ErrorNotice, FieldShell, Input, Select, TextArea } from '../../../components/ui';
@@ -46,6 +47,9 @@ const OperationText = z.object({
     tideReference: z.enum(['none', ...TIDE_REFERENCES]),
     tideBefore: z.string(),
     tideAfter: z.string(),
+    targetKind: z.enum(['none', ...HS_TARGETS]),
+    targetMax: z.string(),
+    targetMinPeriod: z.string(),
   }),
 });
 type OperationText = z.infer<typeof OperationText>;
@@ -77,6 +81,17 @@ function limitsFromText(l: LimitsText): OperationLimits {
     bedVelocityMax,
     bedVelocityMethod: bedVelocityMax !== null ? l.bedVelocityMethod : undefined,
     windMax: numberOrNull(l.windMax),
+    // One Hs limit on a partition target (docs/domain.md#partitions); further ones kept as they were.
+    hsTargets:
+      l.targetKind === 'none'
+        ? null
+        : [
+            {
+              target: l.targetKind,
+              max: numberFromText(l.targetMax),
+              minPeriodS: l.targetKind === 'longPeriod' ? numberFromText(l.targetMinPeriod) : null,
+            },
+          ],
   };
 }
 
@@ -124,6 +139,9 @@ function initialValues(op: OperationResponse | null): OperationText {
       tideReference: l.tideWindow?.reference ?? 'none',
       tideBefore: textFromNumber(l.tideWindow?.before),
       tideAfter: textFromNumber(l.tideWindow?.after),
+      targetKind: l.hsTargets?.[0]?.target ?? 'none',
+      targetMax: textFromNumber(l.hsTargets?.[0]?.max),
+      targetMinPeriod: textFromNumber(l.hsTargets?.[0]?.minPeriodS),
     },
   };
 }
@@ -375,6 +393,43 @@ export function OperationForm({
             >
               <Input id={f('hsmax')} inputMode="decimal" {...form.register('limits.hsMax')} invalid={!!err('limits.hsMax')} />
             </FieldShell>
+            <FieldShell
+              label="Hs max on"
+              htmlFor={f('hstarget')}
+              error={err('limits.hsTargets')}
+              hint="A second Hs limit on part of the sea, where the data give wind sea and swell: all swell, the wind sea, the long-period sea (Tp at least T*), or the total."
+            >
+              <Select id={f('hstarget')} {...form.register('limits.targetKind')}>
+                <option value="none">No partition limit</option>
+                {HS_TARGETS.map((t) => (
+                  <option key={t} value={t}>
+                    {HS_TARGET_LABELS[t]}
+                  </option>
+                ))}
+              </Select>
+            </FieldShell>
+            {limitsText.targetKind !== 'none' ? (
+              <div className="grid gap-4 sm:grid-cols-2">
+                <FieldShell label="Hs max (target)" unit="m" htmlFor={f('hstargetmax')} error={err('limits.hsTargets.0.max')}>
+                  <Input
+                    id={f('hstargetmax')}
+                    inputMode="decimal"
+                    {...form.register('limits.targetMax')}
+                    invalid={!!err('limits.hsTargets.0.max')}
+                  />
+                </FieldShell>
+                {limitsText.targetKind === 'longPeriod' ? (
+                  <FieldShell label="T*" unit="s" htmlFor={f('hstargett')} error={err('limits.hsTargets.0.minPeriodS')}>
+                    <Input
+                      id={f('hstargett')}
+                      inputMode="decimal"
+                      {...form.register('limits.targetMinPeriod')}
+                      invalid={!!err('limits.hsTargets.0.minPeriodS')}
+                    />
+                  </FieldShell>
+                ) : null}
+              </div>
+            ) : null}
             <CurveEditor
               curve={limitsText.hsTpCurve}
               onChange={(next) => setLimitList('hsTpCurve', next)}

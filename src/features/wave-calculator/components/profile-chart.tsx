@@ -169,6 +169,8 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
   const anyMotion = points.some((p) => p.u > 0 || p.w > 0);
   const common = {
     theme,
+    // The figure around each chart is the image with its words; the chart's own svg is drawing only.
+    role: 'presentation',
     animate: false,
     curve: 'monotoneY' as const,
     yScale: { type: 'linear' as const, min: yMin, max: 0.1 * span },

@@ -1,0 +1,1 @@
+ALTER TABLE "project" ADD COLUMN "alpha_calibration_p" double precision DEFAULT 0.0001 NOT NULL;
