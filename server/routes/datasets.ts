@@ -23,7 +23,7 @@ const DefaultHindcastInput = z.object({ datasetId: z.uuid('must be a dataset id'
 import { importUploadedFile, MAX_NETCDF_UPLOAD_BYTES, MAX_UPLOAD_BYTES, safeFileName } from '../services/dataset-import';
 import { ensurePrivateDir, privateDiskStorage, uploadLimitHit } from '../http/private-uploads';
 import { netcdfKind } from '../services/netcdf-file';
-import { describeNetcdf, withNetcdf } from '../services/netcdf-import';
+import { describeNetcdfUpload } from '../services/netcdf-import';
 import { project } from '../db/schema';
 import { eq } from 'drizzle-orm';
 import { ImportFormSchema } from '../../shared/seadata';
@@ -242,8 +242,11 @@ export function datasetsRoutes({ db }: AppDeps): Router {
       const [p] = await db.select().from(project).where(eq(project.id, access.projectId));
       const release = await importLimiter.acquire('process');
       try {
-        const answer = await withNetcdf(file.path, (f) =>
-          describeNetcdf(f, { name: p.dataPointName, lat: p.dataPointLatitude, lon: p.dataPointLongitude }, fields.variables ?? {}),
+        // On a worker thread stopped after a time limit (a damaged file can make the HDF5 reader loop).
+        const answer = await describeNetcdfUpload(
+          file,
+          { name: p.dataPointName, lat: p.dataPointLatitude, lon: p.dataPointLongitude },
+          fields.variables ?? {},
         );
         res.json(answer);
       } finally {

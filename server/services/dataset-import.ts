@@ -24,7 +24,7 @@ import { HttpError, parseInput } from '../http/errors';
 import { createDataset, defaultHindcast, shortDefaultWarning } from './datasets';
 import { toSeaSeries } from './sea-series';
 import { netcdfKind } from './netcdf-file';
-import { readNetcdfPoint, withNetcdf } from './netcdf-import';
+import { readNetcdfPointUpload } from './netcdf-import';
 import { memberColumnOf, readEnsembleCsv } from './ensemble-csv';
 import type { MemberColumns } from './ensemble-store';
 
@@ -256,22 +256,21 @@ async function importNetcdfUpload(
   form: ReturnType<typeof ImportFormSchema.parse>,
   args: { projectId: string; userId: string; file: UploadedFile; onProgress?: (p: ImportProgress) => void },
 ): Promise<ImportAnswer> {
-  const { result, extra, info } = await withNetcdf(args.file.path, (file) =>
-    readNetcdfPoint(file, {
-      dataPoint: { lat: p.dataPointLatitude, lon: p.dataPointLongitude },
-      gridPoint: form.gridPoint,
-      columns: form.variables,
-      waterLevelOffsetM: form.waterLevelOffset,
-      // Progress as the share of the chosen variables read, in records of the point's series.
-      onVariable: (done, total, n) =>
-        args.onProgress?.({
-          phase: 'parsing',
-          bytesRead: Math.round((args.file.size * done) / total),
-          totalBytes: args.file.size,
-          rows: Math.round((n * done) / total),
-        }),
-    }),
-  );
+  // On a worker thread stopped after a time limit (a damaged file can make the HDF5 reader loop).
+  const { result, extra, info } = await readNetcdfPointUpload(args.file, {
+    dataPoint: { lat: p.dataPointLatitude, lon: p.dataPointLongitude },
+    gridPoint: form.gridPoint,
+    columns: form.variables,
+    waterLevelOffsetM: form.waterLevelOffset,
+    // Progress as the share of the chosen variables read, in records of the point's series.
+    onVariable: (done, total, n) =>
+      args.onProgress?.({
+        phase: 'parsing',
+        bytesRead: Math.round((args.file.size * done) / total),
+        totalBytes: args.file.size,
+        rows: Math.round((n * done) / total),
+      }),
+  });
   const records = result.records;
   let usable = 0;
   for (let i = 0; i < records.hs.length; i++) if (records.hs[i] === records.hs[i]) usable++;

@@ -10,6 +10,7 @@ import os from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { tsWorker } from '../../scripts/lib/ts-worker';
 import type { EngineTaskName, EngineTasks } from './engine-tasks';
+import { errorFromData, type WorkerError } from './worker-errors';
 
 interface Pending {
   resolve: (value: unknown) => void;
@@ -38,22 +39,26 @@ const BUNDLED_WORKER = typeof __LULLWATCH_ENGINE_WORKER__ === 'string' ? __LULLW
 let workers: PoolWorker[] | null = null;
 let nextId = 1;
 
+/** A new engine worker: the bundled one in the built server, else the .ts module under tsx. */
+function newWorker(): Worker {
+  return BUNDLED_WORKER ? new Worker(new URL(BUNDLED_WORKER)) : tsWorker(new URL('./engine-worker.ts', import.meta.url));
+}
+
+type WorkerMessage = { id: number; result?: unknown; error?: WorkerError; progress?: unknown[]; ready?: true };
+
 function start(count: number): PoolWorker[] {
   return Array.from({ length: count }, () => {
-    const worker = BUNDLED_WORKER ? new Worker(new URL(BUNDLED_WORKER)) : tsWorker(new URL('./engine-worker.ts', import.meta.url));
+    const worker = newWorker();
     const pw: PoolWorker = { worker, busy: 0, pending: new Map() };
     // An idle pool never keeps the process alive (tests, scripts); a task in flight does (ref below).
     pw.worker.unref();
-    pw.worker.on('message', (m: { id: number; result?: unknown; error?: { name: string; message: string } }) => {
+    pw.worker.on('message', (m: WorkerMessage) => {
       const p = pw.pending.get(m.id);
       if (!p) return;
       pw.pending.delete(m.id);
       if (--pw.busy === 0) pw.worker.unref();
-      if (m.error) {
-        const err = new Error(m.error.message);
-        err.name = m.error.name;
-        p.reject(err);
-      } else p.resolve(m.result);
+      if (m.error) p.reject(errorFromData(m.error));
+      else p.resolve(m.result);
     });
     pw.worker.on('error', (err) => failAll(pw, err));
     pw.worker.on('exit', (code) => failAll(pw, new Error(`an engine worker stopped (exit code ${code})`)));
@@ -83,7 +88,7 @@ export function runEngineTask<K extends EngineTaskName>(
 ): Promise<ReturnType<EngineTasks[K]>> {
   const count = threadCount();
   if (count === 0) {
-    return Promise.resolve().then(() => (inThread as (...a: unknown[]) => ReturnType<EngineTasks[K]>)(...args));
+    return Promise.resolve().then(() => (inThread as (...a: unknown[]) => unknown)(...args)) as Promise<ReturnType<EngineTasks[K]>>;
   }
   workers ??= start(count);
   const pw = workers.reduce((a, b) => (b.busy < a.busy ? b : a));
@@ -92,6 +97,52 @@ export function runEngineTask<K extends EngineTaskName>(
     pw.pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
     if (pw.busy++ === 0) pw.worker.ref();
     pw.worker.postMessage({ id, name, args });
+  });
+}
+
+/** A task of plain input, with an optional progress callback, run by {@link runIsolatedTask}. */
+export type IsolatedTask<I, P extends unknown[], R> = (input: I, progress?: (...values: P) => void) => R | Promise<R>;
+
+/**
+ * Runs one engine task (by its name in engine-tasks.ts, `inThread` being the same function) on a
+ * fresh worker thread that ends afterwards, or is terminated once `timeoutMs` has passed since it
+ * loaded: for work that a damaged input could keep busy without end (a NetCDF file's HDF5
+ * records), so that it never holds the API thread. The task may be async and may report progress
+ * (its last parameter; `onProgress` gets the values). Errors come back of their own class
+ * (worker-errors.ts); typed arrays in the result are moved, not copied. With ENGINE_THREADS=0 the
+ * task runs on the calling thread and no time limit applies.
+ */
+export function runIsolatedTask<I, P extends unknown[], R>(
+  name: EngineTaskName,
+  inThread: IsolatedTask<I, P, R>,
+  input: I,
+  opts: { timeoutMs: number; timeoutError: () => Error; onProgress?: (...values: P) => void },
+): Promise<R> {
+  if (threadCount() === 0) return Promise.resolve().then(() => inThread(input, opts.onProgress));
+  const worker = newWorker();
+  return new Promise<R>((resolve, reject) => {
+    let timer: NodeJS.Timeout | undefined;
+    let settled = false;
+    const settle = (fn: () => void) => {
+      if (settled) return;
+      settled = true;
+      clearTimeout(timer);
+      fn();
+      void worker.terminate();
+    };
+    worker.on('message', (m: WorkerMessage) => {
+      if (m.ready) {
+        timer = setTimeout(() => settle(() => reject(opts.timeoutError())), opts.timeoutMs);
+        worker.postMessage({ id: 1, name, args: [input], isolated: true });
+      } else if (m.progress) {
+        if (!settled) opts.onProgress?.(...(m.progress as P));
+      } else if (m.error) {
+        const err = errorFromData(m.error);
+        settle(() => reject(err));
+      } else settle(() => resolve(m.result as R));
+    });
+    worker.on('error', (err) => settle(() => reject(err)));
+    worker.on('exit', (code) => settle(() => reject(new Error(`an engine worker stopped (exit code ${code})`))));
   });
 }
 

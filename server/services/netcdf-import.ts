@@ -27,6 +27,7 @@ import {
 } from '../../shared/seadata';
 import type { NetcdfImportInfo, NetcdfPointsAnswer } from '../../shared/api-types-datasets';
 import { HttpError } from '../http/errors';
+import { runIsolatedTask } from './engine-pool';
 import { openNetcdf, type OpenNcFile } from './netcdf-file';
 
 function asHttp(err: unknown): unknown {
@@ -235,4 +236,77 @@ export function extraColumnsOf(result: CfPointResult): { extra: ExtraSeries; not
     else notStored.push('current direction: the file gives the current speed without direction_of_sea_water_velocity');
   }
   return { extra, notStored };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Uploads read on a worker thread with a time limit
+
+/** Default time limit for reading one NetCDF upload, ms (NETCDF_TIME_LIMIT_MS). */
+export const DEFAULT_NETCDF_TIME_LIMIT_MS = 60_000;
+const LIMIT_SCALE_BYTES = 256 * 1024 * 1024;
+
+/**
+ * How long reading an upload of `sizeBytes` may take: NETCDF_TIME_LIMIT_MS (default 60 s), plus
+ * that much again per 256 MB of file (a 339 MB 30-year grid took 22 s on a loaded machine; a
+ * damaged small file that loops is stopped after the base limit).
+ */
+export function netcdfTimeLimitMs(sizeBytes: number): number {
+  const raw = process.env.NETCDF_TIME_LIMIT_MS;
+  const base = raw === undefined || raw === '' ? DEFAULT_NETCDF_TIME_LIMIT_MS : Number(raw);
+  if (!Number.isFinite(base) || base <= 0) throw new Error(`NETCDF_TIME_LIMIT_MS must be a positive number of ms, got ${raw}`);
+  return Math.round(base * (1 + sizeBytes / LIMIT_SCALE_BYTES));
+}
+
+type PointArgs = Omit<Parameters<typeof readNetcdfPoint>[1], 'onVariable'>;
+type DataPoint = Parameters<typeof describeNetcdf>[1];
+
+/** Engine task: the points of the NetCDF file at `path` (describeNetcdf). */
+export function netcdfPointsTask(input: { path: string; dataPoint: DataPoint; columns: NcColumnMap }): Promise<NetcdfPointsAnswer> {
+  return withNetcdf(input.path, (f) => describeNetcdf(f, input.dataPoint, input.columns));
+}
+
+/** Engine task: the chosen point's series of the NetCDF file at `path` (readNetcdfPoint). */
+export function netcdfPointTask(
+  input: { path: string; args: PointArgs },
+  onVariable?: (done: number, total: number, records: number) => void,
+): Promise<ReturnType<typeof readNetcdfPoint>> {
+  return withNetcdf(input.path, (f) => readNetcdfPoint(f, { ...input.args, onVariable }));
+}
+
+function timeLimitError(ms: number): () => HttpError {
+  return () =>
+    new HttpError(
+      'bad_file',
+      `The NetCDF file could not be read within ${Math.round(ms / 1000)} s: it may be damaged (or too large to read here; cut it to the area and time needed)`,
+    );
+}
+
+/** describeNetcdf for an upload, on a worker thread stopped after the time limit (ENGINE_THREADS=0: on this thread, unbounded). */
+export function describeNetcdfUpload(
+  file: { path: string; size: number },
+  dataPoint: DataPoint,
+  columns: NcColumnMap = {},
+): Promise<NetcdfPointsAnswer> {
+  const timeoutMs = netcdfTimeLimitMs(file.size);
+  return runIsolatedTask(
+    'netcdfPoints',
+    netcdfPointsTask,
+    { path: file.path, dataPoint, columns },
+    { timeoutMs, timeoutError: timeLimitError(timeoutMs) },
+  );
+}
+
+/** readNetcdfPoint for an upload, on a worker thread stopped after the time limit (ENGINE_THREADS=0: on this thread, unbounded). */
+export function readNetcdfPointUpload(
+  file: { path: string; size: number },
+  args: Parameters<typeof readNetcdfPoint>[1],
+): Promise<ReturnType<typeof readNetcdfPoint>> {
+  const { onVariable, ...rest } = args;
+  const timeoutMs = netcdfTimeLimitMs(file.size);
+  return runIsolatedTask(
+    'netcdfPoint',
+    netcdfPointTask,
+    { path: file.path, args: rest },
+    { timeoutMs, timeoutError: timeLimitError(timeoutMs), onProgress: onVariable },
+  );
 }

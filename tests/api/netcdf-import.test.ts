@@ -197,6 +197,37 @@ describe('NetCDF import route', () => {
     expect(await count()).toBe(before);
   });
 
+  it('refuses a NetCDF-4 file that makes the HDF5 reader loop within the time limit, answering other requests meanwhile, storing nothing', async () => {
+    // grid-group.nc with byte 6,660 set to 111: HDF5's dimension-scale lookup loops without end
+    // (found by tests/seadata/netcdf-fuzz.test.ts); the upload is read on a worker thread stopped
+    // after NETCDF_TIME_LIMIT_MS (here 2 s).
+    const bytes = readFileSync(path.join(DIR, 'grid-group.nc'));
+    bytes[6660] = 111;
+    const before = await count();
+    const saved = process.env.NETCDF_TIME_LIMIT_MS;
+    process.env.NETCDF_TIME_LIMIT_MS = '2000';
+    try {
+      let doneAt = 0;
+      const upload = importFile(bytes, { name: 'looping', kind: 'hindcast' }, 'looping.nc').then((r) => {
+        doneAt = performance.now();
+        return r;
+      });
+      // Another request while the upload is being read: answered before the upload is refused.
+      await new Promise((r) => setTimeout(r, 200));
+      const other = await as.coordinator.get(base);
+      const otherAt = performance.now();
+      expect(other.status).toBe(200);
+      const res = await upload;
+      expect(otherAt).toBeLessThan(doneAt);
+      expect(res.status, res.text).toBe(400);
+      expect(res.body.error.message).toMatch(/^The NetCDF file could not be read within 2 s: it may be damaged/);
+    } finally {
+      if (saved === undefined) delete process.env.NETCDF_TIME_LIMIT_MS;
+      else process.env.NETCDF_TIME_LIMIT_MS = saved;
+    }
+    expect(await count()).toBe(before);
+  }, 180_000);
+
   it("classic and packed files import with the writer's values", async () => {
     for (const [file, csv, key] of [
       ['classic.nc', 'classic.csv', 'te'],

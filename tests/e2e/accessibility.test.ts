@@ -33,6 +33,7 @@ async function pagesFor(page: Page, account: DemoAccount, projectId: string): Pr
     `${project}/conditions/${sites[0].id}`,
     ...['worksites', 'operations', 'alpha', 'audit', 'exchange'].map((tab) => `${project}/setup?tab=${tab}`),
     `${project}/downtime`,
+    `${project}/forecast-skill`,
     `${project}/alerts`,
     `${project}/sea-data`,
     `${project}/sea-data/${datasets[0].id}`,
