@@ -85,7 +85,7 @@ describe('workability statistics', () => {
     const series = await readSeries(t.database.db, t.demo.hindcastId!);
     // Transformed with the hindcast's own data point depth, as the service does.
     const engineWithDepth = transformForSite(series, await datasetDepth(), site).engine;
-    const spec = operationSpec(op);
+    const spec = operationSpec(op, setup.vessels);
     const status = evaluateStatus(engineWithDepth, spec, { alpha: true, alphaTable: setup.alphaTable });
     const flags = goStarts(engineWithDepth.timeMs, status, HOUR, spec.tpopH + spec.tcH);
     const stats = monthlyStatistics(
@@ -489,6 +489,16 @@ describe('the downtime ledger', () => {
         tp: new Float64Array(n).fill(6),
         dir: new Float64Array(n).fill(250),
         wind: new Float64Array(n).fill(3),
+        // The same calm sea as one wind-sea partition and no swell (Hs 0 = absent,
+        // docs/domain.md#partitions), so limits on the swell find their value.
+        extra: {
+          'windSea.hs': new Float64Array(n).fill(0.2),
+          'windSea.tp': new Float64Array(n).fill(6),
+          'windSea.dir': new Float64Array(n).fill(250),
+          'swell1.hs': new Float64Array(n).fill(0),
+          'swell1.tp': new Float64Array(n).fill(NaN),
+          'swell1.dir': new Float64Array(n).fill(NaN),
+        },
       }),
       {},
     );
@@ -519,6 +529,15 @@ describe('the downtime ledger', () => {
         tp: new Float64Array(fn).fill(6),
         dir: new Float64Array(fn).fill(250),
         wind: Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 3 : 30)),
+        // All of it wind sea, no swell (docs/domain.md#partitions), so swell limits find their value.
+        extra: {
+          'windSea.hs': Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 0.2 : 9)),
+          'windSea.tp': new Float64Array(fn).fill(6),
+          'windSea.dir': new Float64Array(fn).fill(250),
+          'swell1.hs': new Float64Array(fn).fill(0),
+          'swell1.tp': new Float64Array(fn).fill(NaN),
+          'swell1.dir': new Float64Array(fn).fill(NaN),
+        },
       }),
       {},
     );
@@ -583,7 +602,7 @@ describe('the downtime ledger', () => {
         expect(r.proposedLostHours).toBe(24);
         continue;
       }
-      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), {
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op, setup.vessels), {
         alpha: false,
         alphaTable: setup.alphaTable,
       });
@@ -647,7 +666,7 @@ describe('the downtime ledger', () => {
       expect(r.source).toBe('forecast');
       const site = setup.sites.find((s) => s.id === r.siteId)!;
       const op = setup.operations.find((o) => o.id === r.operationId)!;
-      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), {
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op, setup.vessels), {
         alpha: false,
         alphaTable: setup.alphaTable,
       });
@@ -737,7 +756,7 @@ describe('the downtime ledger', () => {
       // the R-7 method (a general-purpose reference library).
       const site = setup.sites.find((s) => s.id === r.siteId)!;
       const op = setup.operations.find((o) => o.id === r.operationId)!;
-      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op), {
+      const ev = evaluateHours(transformForSite(series, depth, site).engine, operationSpec(op, setup.vessels), {
         alpha: false,
         alphaTable: setup.alphaTable,
       });
