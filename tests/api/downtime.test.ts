@@ -167,7 +167,7 @@ describe('workability statistics', () => {
       .send({ limits: { hsMax: 1.0, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
     const restored = (await as.coordinator.get(`${base}/workability`)).body as WorkabilityEntry[];
     expect(restored).toEqual(entries);
-  });
+  }, 240_000);
 
   it('answers a repeat from the stats_cache table when the process has not seen it', async () => {
     const first = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
@@ -779,7 +779,7 @@ describe('the downtime ledger', () => {
       confirmed.reduce((s: number, r: LedgerEntry) => s + r.lostHours!, 0),
       6,
     );
-  });
+  }, 240_000);
 
   // Issue 22: one basis per page. The ledger's expectation follows the page's forecast-limit
   // switch; OPWF = alpha x OPLIM with alpha <= 1 (DOMAIN "Operations and limits") can only make
