@@ -2,7 +2,7 @@ import {
   mostProbableMaximum,
   prepareRao,
   responseLabel,
-  responseMoments,
+  tabulatedResponseMoments,
   responseUnit,
   significantAmplitude,
   zeroCrossingPeriod,
@@ -406,7 +406,7 @@ export function explainHour(
     for (const r of l.responses) {
       const durationH = r.durationH ?? DEFAULT_MPM_DURATION_H;
       const known = rao !== null && rao.amplitudes[r.response] !== undefined && parts.length > 0;
-      const m = known ? responseMoments(rao, r.response, op.vessel!.headingDeg, parts, settings) : null;
+      const m = known ? tabulatedResponseMoments(rao, r.response, op.vessel!.headingDeg, parts, settings) : null;
       const has = m !== null && ok(m.m0) && ok(hsTotal);
       const significant = has ? significantAmplitude(m.m0) : null;
       const mpm = has ? mostProbableMaximum(m.m0, m.m2, durationH) : null;
@@ -418,7 +418,7 @@ export function explainHour(
       let drivenBy: ResponseCheckDetail['drivenBy'] = null;
       if (has && m.m0 > 0 && parts.length > 1) {
         parts.forEach((p, index) => {
-          const share = responseMoments(rao!, r.response, op.vessel!.headingDeg, [p], settings).m0 / m.m0;
+          const share = tabulatedResponseMoments(rao!, r.response, op.vessel!.headingDeg, [p], settings).m0 / m.m0;
           if (!drivenBy || share > drivenBy.share) drivenBy = { kind: p.kind, index, share };
         });
       } else if (has && parts.length === 1) drivenBy = { kind: parts[0].kind, index: 0, share: 1 };

@@ -13,8 +13,8 @@
 import {
   DEFAULT_RESPONSE_SEA,
   prepareRao,
-  responseMoments,
   responseStatistic,
+  tabulatedResponseMoments,
   type RaoTable,
   type ResponseMoments,
   type ResponseSeaSettings,
@@ -93,7 +93,7 @@ function momentSeries(
         rec[k].tpS = parts[k].tpS[i];
         rec[k].dirDeg = parts[k].dirDeg[i];
       }
-      responseMoments(rao, name, headingDeg, rec, settings, m);
+      tabulatedResponseMoments(rao, name, headingDeg, rec, settings, m);
       m0[i] = m.m0;
       m2[i] = m.m2;
     }

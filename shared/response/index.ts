@@ -3,4 +3,5 @@ export * from './jonswap';
 export * from './spreading';
 export * from './rao';
 export * from './response';
+export * from './spread-table';
 export * from './summary';
