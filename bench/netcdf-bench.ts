@@ -11,15 +11,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import request from 'supertest';
-import { createApp } from '../server/app';
-import { createAuth } from '../server/auth';
-import { openDatabase } from '../server/db/client';
-import { migrateDatabase } from '../server/db/migrate';
-import { silentLogger } from '../server/deps';
-import { createForecastProvider } from '../server/forecast';
-import { createMailer } from '../server/mail/mailer';
-import { seedDemo } from '../seed/demo';
+import { openBenchApp, timedImport } from './lib/bench-app';
 
 const PYTHON = process.env.LULLWATCH_PYTHON ?? '/usr/bin/python3';
 const SCRIPT = path.resolve(import.meta.dirname, '../tests/fixtures/netcdf/make_fixtures.py');
@@ -86,46 +78,14 @@ export async function runNetcdfBench(): Promise<NetcdfBenchRun[] | null> {
       console.log(`netcdf import: skipped (${PYTHON} with netCDF4 could not write the file: ${point})`);
       return null;
     }
-    const database = await openDatabase({ dataDir: path.join(dir, 'db') });
-    await migrateDatabase(database);
-    const forecast = await createForecastProvider();
-    const mailer = await createMailer({ from: 'bench@lullwatch.invalid' });
-    const origin = 'http://localhost:3000';
-    const deps = {
-      db: database.db,
-      database,
-      auth: createAuth(database.db, {
-        secret: 'bench-secret-bench-secret-bench-secret',
-        baseURL: origin,
-        trustedOrigins: [origin],
-        secureCookies: false,
-      }),
-      clock: () => new Date(),
-      log: silentLogger,
-      forecast: forecast.provider,
-      mailer,
-      config: { baseUrl: origin, trustedOrigins: [origin], linkSecret: 'bench', earliestMoveAlertHours: 6, mailMaxAttempts: 3 },
-    };
+    const app = await openBenchApp(dir);
     const runs: NetcdfBenchRun[] = [];
     try {
-      const demo = await seedDemo(deps, { hindcastYears: 0, forecast: false });
-      const agent = request.agent(createApp(deps));
-      await agent
-        .post('/api/auth/sign-in/email')
-        .set('Origin', origin)
-        .send({ email: 'coordinator@example.com', password: 'lullwatch-demo' });
       const importOne = async (label: string, f: string, records: number) => {
         const bytes = fs.statSync(f).size;
         const rssBeforeBytes = process.memoryUsage.rss();
         const sampler = rssSampler();
-        const t0 = performance.now();
-        const res = await agent
-          .post(`/api/projects/${demo.projectId}/datasets`)
-          .field('name', label)
-          .field('kind', 'hindcast')
-          .field('dataPointDepth', 'deep')
-          .attach('file', f);
-        const importMs = performance.now() - t0;
+        const { res, importMs } = await timedImport(app, label, f);
         const peakRssBytes = await sampler.stop();
         if (res.status !== 201 || res.body.records !== records)
           throw new Error(`NetCDF import failed: ${res.status} ${res.text.slice(0, 300)}`);
@@ -166,9 +126,7 @@ export async function runNetcdfBench(): Promise<NetcdfBenchRun[] | null> {
       );
       return runs;
     } finally {
-      await forecast.close();
-      await mailer.close();
-      await database.close();
+      await app.close();
     }
   } finally {
     fs.rmSync(dir, { recursive: true, force: true });
