@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { afterAll, beforeAll } from 'vitest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
@@ -106,4 +107,50 @@ export async function signInAll(app: Express) {
     signIn(app, 'client@example.com'),
   ]);
   return { admin, coordinator, skipper, client };
+}
+
+export type SignedIn = Awaited<ReturnType<typeof signInAll>>;
+
+/** What `useSignedInApp` hands a test file: read its fields inside tests and hooks. */
+export interface SignedInApp {
+  /** The app on its own database (`createTestApp`). */
+  readonly t: TestApp;
+  /** One agent a demo account, each signed in. */
+  readonly as: SignedIn;
+  /** `/api/projects/<the demo project's id>` followed by the `path` given. */
+  readonly base: string;
+}
+
+/**
+ * A test file's API set-up in one call at its top: one `beforeAll` makes the app
+ * (`createTestApp(options)`) and signs in every demo account, one `afterAll` closes it.
+ */
+export function useSignedInApp(
+  options: TestAppOptions = {},
+  { path = '', timeoutMs }: { path?: string; timeoutMs?: number } = {},
+): SignedInApp {
+  let app: TestApp | undefined;
+  let agents: SignedIn | undefined;
+  const ready = <T>(value: T | undefined): T => {
+    if (value === undefined) throw new Error('the test app is not ready: read it inside a test or hook');
+    return value;
+  };
+  beforeAll(async () => {
+    app = await createTestApp(options);
+    agents = await signInAll(app.app);
+  }, timeoutMs);
+  afterAll(async () => {
+    await app?.close();
+  });
+  return {
+    get t() {
+      return ready(app);
+    },
+    get as() {
+      return ready(agents);
+    },
+    get base() {
+      return `/api/projects/${ready(app).demo.projectId}${path}`;
+    },
+  };
 }
