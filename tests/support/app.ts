@@ -123,11 +123,12 @@ export interface SignedInApp {
 
 /**
  * A test file's API set-up in one call at its top: one `beforeAll` makes the app
- * (`createTestApp(options)`) and signs in every demo account, one `afterAll` closes it.
+ * (`createTestApp(options)`) and signs in every demo account (within `timeoutMs`, 120 s by default: the
+ * machine may be loaded), one `afterAll` closes it.
  */
 export function useSignedInApp(
   options: TestAppOptions = {},
-  { path = '', timeoutMs }: { path?: string; timeoutMs?: number } = {},
+  { path = '', timeoutMs = 120_000 }: { path?: string; timeoutMs?: number } = {},
 ): SignedInApp {
   let app: TestApp | undefined;
   let agents: SignedIn | undefined;
