@@ -2,7 +2,7 @@
  * Operations of a project with their limits (OPLIM): CRUD in transactions, each change written to
  * the audit trail with the operation's fields (limits, durations, worksites) before and after.
  */
-import { and, asc, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import type { OperationResponse } from '../../shared/api-types-sites';
 import type { OperationLimits } from '../../shared/engine/types';
 import { recurrenceText, type RecurrenceInput } from '../../shared/recurrence';
@@ -12,7 +12,7 @@ import { operation, projectMember, vessel, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { parseInput } from '../http/errors';
 import { recordAudit } from './audit';
-import { assertNameFree, fieldError, projectRow } from './project-rows';
+import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 
 type OperationRow = typeof operation.$inferSelect;
 
@@ -94,10 +94,8 @@ export function operationColumns(input: OperationInput) {
   };
 }
 
-export async function listOperations(db: Db, projectId: string): Promise<OperationResponse[]> {
-  const rows = await db.select().from(operation).where(eq(operation.projectId, projectId)).orderBy(asc(operation.name), asc(operation.id));
-  return rows.map(toOperationResponse);
-}
+export const listOperations = async (db: Db, projectId: string): Promise<OperationResponse[]> =>
+  (await listProjectRows(db, operation, projectId)).map(toOperationResponse);
 
 /** The operation row, or 404 for a malformed id, an unknown id or another project's operation. */
 const operationRow = (db: Db, projectId: string, operationId: string): Promise<OperationRow> =>

@@ -1,4 +1,4 @@
-import { and, eq, type SQL } from 'drizzle-orm';
+import { and, asc, eq, type SQL } from 'drizzle-orm';
 import type { PgColumn, PgTable } from 'drizzle-orm/pg-core';
 import { idParam } from '../../shared/schemas/common';
 import { nameKey } from '../../shared/schemas/sites';
@@ -59,4 +59,17 @@ export async function assertNameFree(
 /** A 400 naming one field, shaped like `parseInput`'s. */
 export function fieldError(field: string, message: string): HttpError {
   return new HttpError('validation', `Invalid body: ${field}: ${message}`, [{ field, message }]);
+}
+
+/** The project's rows of `table` by name (then id, so equal names keep one order). */
+export async function listProjectRows<T extends ProjectTable & { name: PgColumn }>(
+  db: Db,
+  table: T,
+  projectId: string,
+): Promise<T['$inferSelect'][]> {
+  return (await db
+    .select()
+    .from(table as PgTable)
+    .where(eq(table.projectId, projectId))
+    .orderBy(asc(table.name), asc(table.id))) as T['$inferSelect'][];
 }

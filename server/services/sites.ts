@@ -2,7 +2,7 @@
  * Worksites of a project: CRUD in transactions, each change written to the audit trail with the
  * worksite's depth and geometry before and after.
  */
-import { and, asc, eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { SiteResponse } from '../../shared/api-types-sites';
 import { WorksiteInput, type WorksitePatchInput } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
@@ -10,7 +10,7 @@ import { dataset, operation, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
-import { assertNameFree, fieldError, projectRow } from './project-rows';
+import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 import { checkTideInput } from './tide';
 import { auditedOperation, toOperationResponse } from './operations';
 
@@ -59,10 +59,8 @@ export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { 
   };
 }
 
-export async function listSites(db: Db, projectId: string): Promise<SiteResponse[]> {
-  const rows = await db.select().from(worksite).where(eq(worksite.projectId, projectId)).orderBy(asc(worksite.name), asc(worksite.id));
-  return rows.map(toSiteResponse);
-}
+export const listSites = async (db: Db, projectId: string): Promise<SiteResponse[]> =>
+  (await listProjectRows(db, worksite, projectId)).map(toSiteResponse);
 
 /** The worksite row, or 404 for a malformed id, an unknown id or another project's worksite. */
 const siteRow = (db: Db, projectId: string, siteId: string): Promise<WorksiteRow> =>
