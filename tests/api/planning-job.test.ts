@@ -13,6 +13,15 @@ const ctx = useSignedInApp({ clock: () => now });
 
 const inbox = () => ctx.t.mailer.fake!.messages;
 
+/** Stores a demo account's subscription to the demo project (every worksite, active). */
+async function subscribe(
+  who: 'skipper' | 'client',
+  choice: { operationIds: string[]; immediate: boolean; digest: boolean; digestTime: string; digestTimeZone: string },
+) {
+  const res = await ctx.as[who].put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({ ...choice, siteIds: [], active: true });
+  expect(res.status, res.text).toBe(200);
+}
+
 describe('the planning job with the fake forecast service and the fake SMTP server', () => {
   let firstCount = 0;
 
@@ -77,15 +86,7 @@ describe('the planning job with the fake forecast service and the fake SMTP serv
     ctx.t.mailer.fake!.setDown(true);
     now = new Date('2026-12-01T18:20:00Z');
     // Make sure this run has something to say: the skipper now hears about every operation.
-    await ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
-      operationIds: [],
-      siteIds: [],
-      immediate: true,
-      digest: false,
-      digestTime: '06:00',
-      digestTimeZone: 'Europe/London',
-      active: true,
-    });
+    await subscribe('skipper', { operationIds: [], immediate: true, digest: false, digestTime: '06:00', digestTimeZone: 'Europe/London' });
     const res = await ctx.as.admin.post('/api/admin/jobs/plan').send({ projectId: ctx.t.demo.projectId });
     const [p] = res.body.projects;
     expect(p.status).toBe('planned');
@@ -219,14 +220,12 @@ describe('the calendar feed', () => {
     expect(rec.status, rec.text).toBe(200);
     expect((await ctx.as.client.put(`/api/projects/${ctx.t.demo.projectId}/operations/${ctv.id}/recurrence`).send({})).status).toBe(403);
 
-    await ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
+    await subscribe('skipper', {
       operationIds: [ctv.id],
-      siteIds: [],
       immediate: true,
       digest: false,
       digestTime: '06:00',
       digestTimeZone: 'Europe/London',
-      active: true,
     });
     const created = await ctx.as.skipper.post('/api/me/calendar').send({});
     expect(created.status).toBe(201);
@@ -262,15 +261,7 @@ describe('the calendar feed', () => {
 describe('the daily digest', () => {
   it('goes once per local day, at or after the chosen local time', async () => {
     const { queueDigests } = await import('../../server/services/digests');
-    await ctx.as.client.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
-      operationIds: [],
-      siteIds: [],
-      immediate: false,
-      digest: true,
-      digestTime: '07:30',
-      digestTimeZone: 'Europe/Oslo',
-      active: true,
-    });
+    await subscribe('client', { operationIds: [], immediate: false, digest: true, digestTime: '07:30', digestTimeZone: 'Europe/Oslo' });
     const clientMails = () => inbox().filter((m) => m.to.includes('client@example.com'));
     const before = clientMails().length;
     // Europe/Oslo is UTC+1 in December: 07:30 local is 06:30 UTC.
