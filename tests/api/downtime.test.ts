@@ -3,7 +3,7 @@ import Papa from 'papaparse';
 import { quantile } from 'd3-array';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { useSignedInApp } from '../support/app';
+import { useSignedInApp, textBody } from '../support/app';
 import { calendarIndex, evaluateHours, evaluateStatus, goStarts, monthlyStatistics, STATUS } from '../../shared/engine';
 import type {
   CampaignSimulation,
@@ -196,14 +196,7 @@ describe('workability statistics', () => {
 
   it('downloads the same numbers as CSV', async () => {
     const json = (await ctx.as.client.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
-    const res = await ctx.as.client
-      .get(`${ctx.base}/workability.csv`)
-      .buffer(true)
-      .parse((r, cb) => {
-        let s = '';
-        r.on('data', (c: Buffer) => (s += c));
-        r.on('end', () => cb(null, s));
-      });
+    const res = await ctx.as.client.get(`${ctx.base}/workability.csv`).buffer(true).parse(textBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     // papaparse (a general-purpose CSV parser from npm) reads it back.

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
-import { useSignedInApp } from '../support/app';
+import { useSignedInApp, textBody } from '../support/app';
 
 // A fixed clock in a winter month, so the invented forecast has passing weather systems.
 const NOW = new Date('2026-12-01T07:30:00Z');
@@ -112,11 +112,7 @@ describe('the forecast plan', () => {
       .get(`${ctx.base}/plan/windows.ics`)
       .query({ operationId: withWindows.operationId, siteId: withWindows.siteId, alpha: 'false' })
       .buffer(true)
-      .parse((r, cb) => {
-        let s = '';
-        r.on('data', (c: Buffer) => (s += c));
-        r.on('end', () => cb(null, s));
-      });
+      .parse(textBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/calendar/);
     // ical.js (an RFC 5545 parser from npm) reads it back.

@@ -2,7 +2,7 @@ import request from 'supertest';
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
 import { runPlanningJob } from '../../server/services/planning';
-import { TEST_ORIGIN, useSignedInApp } from '../support/app';
+import { TEST_ORIGIN, useSignedInApp, textBody } from '../support/app';
 import { deliverDueMail } from '../../server/services/outbox';
 import { planRun } from '../../server/db/schema';
 
@@ -230,14 +230,7 @@ describe('the calendar feed', () => {
     const created = await ctx.as.skipper.post('/api/me/calendar').send({});
     expect(created.status).toBe(201);
     const path = new URL(created.body.url).pathname;
-    const feed = await request(ctx.t.app)
-      .get(path)
-      .buffer(true)
-      .parse((r, cb) => {
-        let s = '';
-        r.on('data', (c: Buffer) => (s += c));
-        r.on('end', () => cb(null, s));
-      });
+    const feed = await request(ctx.t.app).get(path).buffer(true).parse(textBody);
     expect(feed.status).toBe(200);
     const comp = new ICAL.Component(ICAL.parse(feed.body as string));
     const events = comp.getAllSubcomponents('vevent').map((e) => new ICAL.Event(e));

@@ -1,4 +1,5 @@
 import request from 'supertest';
+import type { Response as SuperagentResponse } from 'superagent';
 import { afterAll, beforeAll } from 'vitest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
@@ -154,4 +155,11 @@ export function useSignedInApp(
       return `/api/projects/${ready(app).demo.projectId}${path}`;
     },
   };
+}
+
+/** A supertest body parser that keeps the answer as text (CSV, iCalendar): `.buffer(true).parse(textBody)`. */
+export function textBody(r: SuperagentResponse, cb: (err: Error | null, body: string) => void): void {
+  let s = '';
+  r.on('data', (c: Buffer) => (s += c));
+  r.on('end', () => cb(null, s));
 }
