@@ -1,6 +1,7 @@
 import { quantile } from 'd3-array';
 import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { NOTHING_CHOSEN } from '../../server/services/subscriptions';
 import { useSignedInApp } from '../support/app';
 import { evaluateStatus, goStarts, simulateOutlook } from '../../shared/engine';
 import type { CampaignOutlookAnswer, CampaignResponse, OutlookHistoryPoint } from '../../shared/api-types-downtime';
@@ -231,16 +232,7 @@ describe('history and alerts', () => {
   it('each planning run stores the outlook; an e-mail goes to a client who asked when the P50 moved more than N days', async () => {
     const before = ((await ctx.as.client.get(`${ctx.base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[]).length;
     // The client asks to hear about moves of more than 2 days.
-    const sub = await ctx.as.client.put(`${ctx.base}/subscription`).send({
-      operationIds: [],
-      siteIds: [],
-      immediate: false,
-      digest: false,
-      digestTime: '06:00',
-      digestTimeZone: 'UTC',
-      active: true,
-      outlookMoveDays: 2,
-    });
+    const sub = await ctx.as.client.put(`${ctx.base}/subscription`).send({ ...NOTHING_CHOSEN, active: true, outlookMoveDays: 2 });
     expect(sub.status, sub.text).toBe(200);
     expect(sub.body.outlookMoveDays).toBe(2);
     // A stored outlook whose P50 is far from anything this run can give (60 days before now).
