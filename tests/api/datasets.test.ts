@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
-import { useSignedInApp } from '../support/app';
+import { useSignedInApp, postForm } from '../support/app';
 import { createApp } from '../../server/app';
 
 // Real NDBC buoy data (public domain, NOAA NDBC), copied unchanged into tests/fixtures/ndbc.
@@ -18,27 +18,24 @@ async function datasetCount(): Promise<number> {
 describe('importing sea-state files', () => {
   it('refuses an NDBC file with wind but no anemometerHeight (400 naming the field), storing nothing', async () => {
     const before = await datasetCount();
-    const res = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Buoy 46026, no height')
-      .field('kind', 'observation')
-      .field('format', 'auto')
-      .field('dataPointDepth', 'deep')
-      .attach('file', path.join(NDBC_FIXTURES, '46026h2016.txt'));
+    const res = await postForm(
+      ctx.as.coordinator,
+      ctx.base,
+      { name: 'Buoy 46026, no height', kind: 'observation', format: 'auto', dataPointDepth: 'deep' },
+      path.join(NDBC_FIXTURES, '46026h2016.txt'),
+    );
     expect(res.status).toBe(400);
     expect(res.body.error.details).toEqual([{ field: 'anemometerHeight', message: 'is required for an NDBC file with wind' }]);
     expect(await datasetCount()).toBe(before);
   });
 
   it('imports a real NDBC historical file and reads it back as columns, wind brought to 10 m', async () => {
-    const res = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Buoy 46026, 2016')
-      .field('kind', 'observation')
-      .field('format', 'auto')
-      .field('dataPointDepth', 'deep')
-      .field('anemometerHeight', '4.1')
-      .attach('file', path.join(NDBC_FIXTURES, '46026h2016.txt'));
+    const res = await postForm(
+      ctx.as.coordinator,
+      ctx.base,
+      { name: 'Buoy 46026, 2016', kind: 'observation', format: 'auto', dataPointDepth: 'deep', anemometerHeight: '4.1' },
+      path.join(NDBC_FIXTURES, '46026h2016.txt'),
+    );
     expect(res.status, res.text).toBe(201);
     expect(res.body.wind).toEqual({ anemometerHeightM: 4.1, exponent: 0.11 });
     // tests/fixtures/ndbc/README.md: 8655 data rows, 2015-12-31 23:50 to 2016-12-31 22:50 UTC.
@@ -75,14 +72,19 @@ describe('importing sea-state files', () => {
 
   it('imports a CSV with the mapping, units and time zone given', async () => {
     const csv = '\uFEFFDate;Hm0 [ft];Tp;Wind speed (kn)\r\n2026-03-29 00:00;3,28084;8,0;10\r\n2026-03-29 03:00;6,56168;9,5;20\r\n';
-    const res = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Consultant extract')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', '35')
-      .field('timeZone', 'Europe/Oslo')
-      .field('units', JSON.stringify({ height: 'ft', speed: 'kn' }))
-      .attach('file', Buffer.from(csv, 'utf8'), 'extract.csv');
+    const res = await postForm(
+      ctx.as.coordinator,
+      ctx.base,
+      {
+        name: 'Consultant extract',
+        kind: 'hindcast',
+        dataPointDepth: '35',
+        timeZone: 'Europe/Oslo',
+        units: JSON.stringify({ height: 'ft', speed: 'kn' }),
+      },
+      Buffer.from(csv, 'utf8'),
+      'extract.csv',
+    );
     expect(res.status, res.text).toBe(201);
     expect(res.body.records).toBe(2);
     // 00:00 in Oslo on 29 March 2026 is still winter time (UTC+1); 03:00 is after the change (UTC+2).
@@ -101,12 +103,13 @@ describe('importing sea-state files', () => {
     // Hourly from 00:00 to 06:00 (7 steps): 03:00 and 04:00 are not in the file, 02:00 has no Hs.
     const csv =
       'time,hs,tp\n2026-01-01 00:00,1.0,8\n2026-01-01 01:00,1.1,8\n2026-01-01 02:00,NaN,8\n2026-01-01 05:00,1.2,8\n2026-01-01 06:00,1.3,8\n';
-    const res = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Gappy buoy')
-      .field('kind', 'observation')
-      .field('dataPointDepth', '35')
-      .attach('file', Buffer.from(csv, 'utf8'), 'gappy.csv');
+    const res = await postForm(
+      ctx.as.coordinator,
+      ctx.base,
+      { name: 'Gappy buoy', kind: 'observation', dataPointDepth: '35' },
+      Buffer.from(csv, 'utf8'),
+      'gappy.csv',
+    );
     expect(res.status, res.text).toBe(201);
     const d = (await ctx.as.coordinator.get(`${ctx.base}/${res.body.id}`)).body;
     expect(d).toMatchObject({ records: 5, expectedRecords: 7, absentRecords: 2, missing: expect.objectContaining({ hs: 1 }) });
@@ -118,12 +121,13 @@ describe('importing sea-state files', () => {
   it('warns when a hindcast shorter than a year becomes the default, and lets the coordinator choose the default', async () => {
     const hours = Array.from({ length: 6 * 24 }, (_, k) => `${new Date(Date.UTC(2025, 5, 1) + k * 3_600_000).toISOString()},1.0,8`);
     const upload = (name: string) =>
-      ctx.as.coordinator
-        .post(ctx.base)
-        .field('name', name)
-        .field('kind', 'hindcast')
-        .field('dataPointDepth', 'deep')
-        .attach('file', Buffer.from(`time,hs,tp\n${hours.join('\n')}\n`, 'utf8'), 'short.csv');
+      postForm(
+        ctx.as.coordinator,
+        ctx.base,
+        { name, kind: 'hindcast', dataPointDepth: 'deep' },
+        Buffer.from(`time,hs,tp\n${hours.join('\n')}\n`, 'utf8'),
+        'short.csv',
+      );
     const first = await upload('Six days of hindcast');
     expect(first.status, first.text).toBe(201);
     // 144 hourly records: 6 days from the first record to the end of the last.
@@ -159,12 +163,13 @@ describe('importing sea-state files', () => {
   it('refuses a bad file whole, naming the line, and stores nothing', async () => {
     const before = await datasetCount();
     const csv = 'time,hs,tp\n2026-01-01T00:00Z,1.0,8\n2026-01-01T01:00Z,-1.0,8\n2026-01-01T02:00Z,1.0,80\n';
-    const res = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Bad')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', Buffer.from(csv), 'bad.csv');
+    const res = await postForm(
+      ctx.as.coordinator,
+      ctx.base,
+      { name: 'Bad', kind: 'hindcast', dataPointDepth: 'deep' },
+      Buffer.from(csv),
+      'bad.csv',
+    );
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('bad_file');
     const lines = res.body.error.details.map((d: { line: number }) => d.line);
@@ -175,13 +180,13 @@ describe('importing sea-state files', () => {
 
   it('skips bad rows when asked and lists them in the import report', async () => {
     const csv = 'time,hs,tp\n2026-01-01T00:00Z,1.0,8\n2026-01-01T01:00Z,-1.0,8\n2026-01-01T02:00Z,1.2,8\n';
-    const res = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Skipping')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .field('onBadRows', 'skip')
-      .attach('file', Buffer.from(csv), 'skip.csv');
+    const res = await postForm(
+      ctx.as.coordinator,
+      ctx.base,
+      { name: 'Skipping', kind: 'hindcast', dataPointDepth: 'deep', onBadRows: 'skip' },
+      Buffer.from(csv),
+      'skip.csv',
+    );
     expect(res.status, res.text).toBe(201);
     expect(res.body.records).toBe(2);
     expect(res.body.skipped).toBe(1);
@@ -191,12 +196,13 @@ describe('importing sea-state files', () => {
 
   it('refuses binary content and a missing file with a clear message', async () => {
     const before = await datasetCount();
-    const bin = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Binary')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', Buffer.from([0x50, 0x4b, 0x03, 0x04, 0, 0, 0, 1, 2, 3]), '../../etc/passwd.csv');
+    const bin = await postForm(
+      ctx.as.coordinator,
+      ctx.base,
+      { name: 'Binary', kind: 'hindcast', dataPointDepth: 'deep' },
+      Buffer.from([0x50, 0x4b, 0x03, 0x04, 0, 0, 0, 1, 2, 3]),
+      '../../etc/passwd.csv',
+    );
     expect(bin.status).toBe(400);
     expect(bin.body.error.message).toMatch(/binary/);
     const none = await ctx.as.coordinator.post(ctx.base).field('name', 'Nothing').field('kind', 'hindcast').field('dataPointDepth', 'deep');
@@ -207,12 +213,7 @@ describe('importing sea-state files', () => {
 
   it('refuses a file over 100 MB with 413 and the limit stated', async () => {
     const big = Buffer.alloc(100 * 1024 * 1024 + 10, 0x31);
-    const res = await ctx.as.coordinator
-      .post(ctx.base)
-      .field('name', 'Huge')
-      .field('kind', 'hindcast')
-      .field('dataPointDepth', 'deep')
-      .attach('file', big, 'huge.csv');
+    const res = await postForm(ctx.as.coordinator, ctx.base, { name: 'Huge', kind: 'hindcast', dataPointDepth: 'deep' }, big, 'huge.csv');
     expect(res.status).toBe(413);
     expect(res.body.error.message).toMatch(/100 MB/);
   });

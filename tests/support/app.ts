@@ -163,3 +163,13 @@ export function textBody(r: SuperagentResponse, cb: (err: Error | null, body: st
   r.on('data', (c: Buffer) => (s += c));
   r.on('end', () => cb(null, s));
 }
+
+/**
+ * POSTs a multipart form as the agent: each field, then `file` (a path, or content with `fileName`)
+ * in the field "file".
+ */
+export function postForm(agent: Agent, url: string, fields: Record<string, string>, file: string | Buffer, fileName?: string) {
+  let req = agent.post(url);
+  for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+  return typeof file === 'string' ? req.attach('file', file) : req.attach('file', file, fileName);
+}
