@@ -11,7 +11,7 @@ import { eq } from 'drizzle-orm';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
 import { seedSkillArchive, storeFakeIssue } from './skill-archive';
 import { runEngineTask } from '../server/services/engine-pool';
-import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
+import { DEMO_GENERATED_DATASET, DEMO_PASSWORD, DEMO_PROJECT, DEMO_SECOND_PROJECT, DEMO_USERS } from './scenario';
 import { DEMO_OPERATIONS, DEMO_SITE_TIDES, DEMO_SITES, DEMO_TIME_ZONE } from './scenario-sites';
 import { DEMO_VESSELS } from './demo-vessels';
 
@@ -260,13 +260,7 @@ export async function seedDemoData(
         createdBy: users.coordinator,
         name: `Varrow offshore hindcast ${endYear - hindcastYears + 1}-${endYear} (invented)`,
         kind: 'hindcast',
-        dataPointName: DEMO_PROJECT.dataPointName,
-        dataPointLatitude: DEMO_PROJECT.dataPointLatitude,
-        dataPointLongitude: DEMO_PROJECT.dataPointLongitude,
-        dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
-        sourceKind: 'upload',
-        originalFileName: null,
-        format: 'generated (demo)',
+        ...DEMO_GENERATED_DATASET,
       },
       series,
       { note: 'Invented demo hindcast from a deterministic generator (seasons and passing storms); not measured data.' },

@@ -26,6 +26,17 @@ export const DEMO_PROJECT = {
   forecastSource: 'service' as const,
 };
 
+/** The fields of a dataset the demo generates at the demo project's data point (no uploaded file). */
+export const DEMO_GENERATED_DATASET = {
+  dataPointName: DEMO_PROJECT.dataPointName,
+  dataPointLatitude: DEMO_PROJECT.dataPointLatitude,
+  dataPointLongitude: DEMO_PROJECT.dataPointLongitude,
+  dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
+  sourceKind: 'upload' as const,
+  originalFileName: null,
+  format: 'generated (demo)',
+};
+
 /** A second, smaller project that the demo client does not belong to (shows per-project access). */
 export const DEMO_SECOND_PROJECT = {
   name: 'Harl Sound pontoon renewal',

@@ -9,7 +9,7 @@ import { buildFakeForecast, climateForPosition, exchangeToRecords, generateSynth
 import { hash01 } from '../server/forecast/seeded-noise';
 import { createDataset } from '../server/services/datasets';
 import { toSeaSeries } from '../server/services/sea-series';
-import { DEMO_PROJECT } from './scenario';
+import { DEMO_GENERATED_DATASET, DEMO_PROJECT } from './scenario';
 
 const HOUR_MS = 3_600_000;
 const DAY_MS = 24 * HOUR_MS;
@@ -93,13 +93,7 @@ export async function seedSkillArchive(
       createdBy: null,
       name: `${DEMO_PROJECT.dataPointName} wave buoy, last ${options.days} days (invented)`,
       kind: 'observation',
-      dataPointName: DEMO_PROJECT.dataPointName,
-      dataPointLatitude: DEMO_PROJECT.dataPointLatitude,
-      dataPointLongitude: DEMO_PROJECT.dataPointLongitude,
-      dataPointDepthM: DEMO_PROJECT.dataPointDepthM,
-      sourceKind: 'upload',
-      originalFileName: null,
-      format: 'generated (demo)',
+      ...DEMO_GENERATED_DATASET,
     },
     toSeaSeries({ timeMs: sea.timeMs, hs, tp: sea.tpS, dir: sea.dirDeg, wind: sea.windMps, windDir: sea.windDirDeg }),
     { note: 'Invented demo observation: the demo sea with a small measurement error; not measured data.' },

@@ -1,35 +1,17 @@
 // Answers of the downtime-schedule routes (workability, campaigns, ledger), shared by the API and
 // the client. Shares are fractions 0-1, durations in hours, times ISO 8601 UTC with `Z`, days
 // YYYY-MM-DD in the worksite's time zone.
+import type { CampaignMonthResult } from './engine/campaign';
+import type { MonthStatisticsBase } from './engine/monthly-statistics';
 import type { LedgerLimiting } from './schemas/downtime';
 
 export type { LedgerLimiting };
 
-/** Statistics of one calendar month over the hindcast years (docs/domain.md#hindcast-statistics). */
-export interface WorkabilityMonth {
-  /** Calendar month 1-12 in the worksite's time zone. */
-  month: number;
-  /** Records in the month, all years (absent rows are not records). */
-  records: number;
-  /** Records whose status is not "no data" (docs/domain.md#convention-13). */
-  recordsWithData: number;
-  /** Workable records / records with data, 0-1; null without data. */
-  workability: number | null;
-  /** Go-start records / records with data, 0-1; null without data. */
-  goStartShare: number | null;
-  /** Mean waiting on weather over the non-censored records, h; null when all are censored. */
-  wowMeanHours: number | null;
-  /** 90th percentile (Hyndman & Fan type 7) of waiting on weather, h. */
-  wowP90Hours: number | null;
-  /** Records with no go-start at or after them before the data end (left out of WoW). */
-  censored: number;
-  /** Usable windows starting in the month. */
-  windows: number;
-  /** Usable windows per month: windows / years with records in the month. */
-  windowsPerMonth: number | null;
-  /** Mean length of those windows, h. */
-  meanWindowHours: number | null;
-}
+/**
+ * Statistics of one calendar month over the hindcast years (docs/domain.md#hindcast-statistics):
+ * the engine's own fields, answered as they are.
+ */
+export type WorkabilityMonth = MonthStatisticsBase;
 
 /** A calendar month over all years: also how many years have records in it. */
 export interface WorkabilityCalendarMonth extends WorkabilityMonth {
@@ -153,22 +135,12 @@ export interface OutlookHistoryPoint {
   forecastIssuedAt: string | null;
 }
 
-/** Simulated duration for one start month (docs/domain.md#hindcast-statistics, #convention-15). */
-export interface CampaignMonthAnswer {
-  /** 1-12: runs start on the 1st at 00:00 in the campaign's time zone, every hindcast year. */
-  startMonth: number;
-  /** Hindcast years simulated for this start month (censored ones included). */
-  years: number;
-  /** Calendar years whose run reached the data end before finishing (left out of the percentiles). */
-  censoredYears: number[];
-  /** Per step (index into `steps`), how many of those years stopped at it. */
-  stuckSteps: { step: number; years: number }[];
-  /** Type-7 percentiles of the duration D over the years that finished, h; null when none did. */
-  p50Hours: number | null;
-  p90Hours: number | null;
-  /** Type-7 percentiles of waiting on weather D - sum of TPOP, h. */
-  wowP50Hours: number | null;
-  wowP90Hours: number | null;
+/**
+ * Simulated duration for one start month (docs/domain.md#hindcast-statistics, #convention-15): the
+ * engine's percentiles of duration and waiting on weather (without the year-by-year runs), with the
+ * next start date and the finish dates from it.
+ */
+export interface CampaignMonthAnswer extends Omit<CampaignMonthResult, 'runs'> {
   /** The next start date for this month (the 1st at 00:00 in the campaign's zone, on or after the planned start or today), ISO UTC. */
   startDate: string;
   /** startDate + P50 / P90 duration, ISO UTC; null with no percentile. */

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { CampaignInput, CampaignPatchInput, OutlookQuery, StepProgressInput } from '../../shared/schemas/downtime';
 import type { AppDeps } from '../deps';
+import { addProjectCollection } from './project-collection';
 import { parseInput } from '../http/errors';
 import { createCampaign, deleteCampaign, getCampaign, listCampaigns, simulateProjectCampaign, updateCampaign } from '../services/campaigns';
 import { campaignOutlookAnswer, outlookHistory, setStepProgress } from '../services/campaign-outlook';
@@ -17,37 +18,19 @@ const SimulateQuery = z.object({ dataset: z.string().uuid('must be a dataset id'
 export function campaignsRoutes({ db, clock }: AppDeps): Router {
   const router = Router();
 
-  /** GET /api/projects/:projectId/campaigns: the project's campaigns by name. */
-  router.get('/projects/:projectId/campaigns', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await listCampaigns(db, access.projectId));
-  });
-
-  /** POST /api/projects/:projectId/campaigns: `{ name, steps: [{ operationId, siteId }], plannedStart?, timeZone? }` → 201 with the campaign (its `id`). */
-  router.post('/projects/:projectId/campaigns', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    const input = parseInput(CampaignInput, req.body);
-    res.status(201).json(await createCampaign(db, access.projectId, input));
-  });
-
-  /** GET /api/projects/:projectId/campaigns/:campaignId */
-  router.get('/projects/:projectId/campaigns/:campaignId', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await getCampaign(db, access.projectId, req.params.campaignId));
-  });
-
-  /** PATCH /api/projects/:projectId/campaigns/:campaignId: any subset; `steps` replaced whole (add, reorder, remove). */
-  router.patch('/projects/:projectId/campaigns/:campaignId', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    const patch = parseInput(CampaignPatchInput, req.body);
-    res.json(await updateCampaign(db, access.projectId, req.params.campaignId, patch));
-  });
-
-  /** DELETE /api/projects/:projectId/campaigns/:campaignId (204). */
-  router.delete('/projects/:projectId/campaigns/:campaignId', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    await deleteCampaign(db, access.projectId, req.params.campaignId);
-    res.status(204).end();
+  /**
+   * /api/projects/:projectId/campaigns: the project's campaigns by name; POST `{ name, steps:
+   * [{ operationId, siteId }], plannedStart?, timeZone? }` → 201 with the campaign (its `id`); GET,
+   * PATCH (any subset; `steps` replaced whole: add, reorder, remove) and DELETE (204) `/:campaignId`.
+   */
+  addProjectCollection(router, db, {
+    name: 'campaigns',
+    idParam: 'campaignId',
+    list: (a) => listCampaigns(db, a.projectId),
+    get: (a, id) => getCampaign(db, a.projectId, id),
+    create: { body: CampaignInput, run: (a, input) => createCampaign(db, a.projectId, input) },
+    update: { body: CampaignPatchInput, run: (a, id, patch) => updateCampaign(db, a.projectId, id, patch) },
+    remove: (a, id) => deleteCampaign(db, a.projectId, id),
   });
 
   /**

@@ -119,6 +119,25 @@ function receiveUpload(req: Request, res: Response): Promise<void> {
   );
 }
 
+/**
+ * Receives the upload ({@link receiveUpload}), refuses a request without a file (400 naming the
+ * field), runs `work` with the file and removes it afterwards, whatever happened.
+ */
+async function withUploadedFile(req: Request, res: Response, work: (file: Express.Multer.File) => Promise<void>): Promise<void> {
+  await receiveUpload(req, res);
+  const file = req.file;
+  try {
+    if (!file) {
+      throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [
+        { field: 'file', message: 'is required' },
+      ]);
+    }
+    await work(file);
+  } finally {
+    if (file) fs.rm(file.path, { force: true }, () => {});
+  }
+}
+
 const RecordsQuery = z.object({
   from: z.iso.datetime({ offset: true }).optional(),
   to: z.iso.datetime({ offset: true }).optional(),
@@ -168,14 +187,7 @@ export function datasetsRoutes({ db }: AppDeps): Router {
    */
   router.post('/projects/:projectId/datasets', async (req, res) => {
     const access = await requireCoordinator(db, req, req.params.projectId);
-    await receiveUpload(req, res);
-    const file = req.file;
-    try {
-      if (!file) {
-        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [
-          { field: 'file', message: 'is required' },
-        ]);
-      }
+    await withUploadedFile(req, res, async (file) => {
       const streamProgress = (req.headers.accept ?? '').includes('application/x-ndjson');
       const args = {
         projectId: access.projectId,
@@ -205,9 +217,7 @@ export function datasetsRoutes({ db }: AppDeps): Router {
         release();
       }
       res.end();
-    } finally {
-      if (file) fs.rm(file.path, { force: true }, () => {});
-    }
+    });
   });
 
   /**
@@ -218,14 +228,7 @@ export function datasetsRoutes({ db }: AppDeps): Router {
    */
   router.post('/projects/:projectId/datasets/netcdf-points', async (req, res) => {
     const access = await requireCoordinator(db, req, req.params.projectId);
-    await receiveUpload(req, res);
-    const file = req.file;
-    try {
-      if (!file) {
-        throw new HttpError('validation', 'Send the file as multipart/form-data in the field "file"', [
-          { field: 'file', message: 'is required' },
-        ]);
-      }
+    await withUploadedFile(req, res, async (file) => {
       const head = Buffer.alloc(8);
       const fd = fs.openSync(file.path, 'r');
       try {
@@ -252,9 +255,7 @@ export function datasetsRoutes({ db }: AppDeps): Router {
       } finally {
         release();
       }
-    } finally {
-      if (file) fs.rm(file.path, { force: true }, () => {});
-    }
+    });
   });
 
   /**

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { AlphaTableInput, OperationInput, OperationPatchInput } from '../../shared/schemas/sites';
 import type { AppDeps } from '../deps';
+import { addProjectCollection } from './project-collection';
 import { parseInput } from '../http/errors';
 import { getAlpha, resetAlpha, setAlpha } from '../services/alpha';
 import { createOperation, deleteOperation, getOperation, listOperations, updateOperation } from '../services/operations';
@@ -10,37 +11,18 @@ import { requireCoordinator, requireProjectMember } from '../services/project-ac
 export function operationsRoutes({ db }: AppDeps): Router {
   const router = Router();
 
-  /** GET /api/projects/:projectId/operations: the project's operations by name. */
-  router.get('/projects/:projectId/operations', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await listOperations(db, access.projectId));
-  });
-
-  /** POST /api/projects/:projectId/operations: a new operation (201 with it). */
-  router.post('/projects/:projectId/operations', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    const input = parseInput(OperationInput, req.body);
-    res.status(201).json(await createOperation(db, access.projectId, access.user, input));
-  });
-
-  /** GET /api/projects/:projectId/operations/:operationId */
-  router.get('/projects/:projectId/operations/:operationId', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await getOperation(db, access.projectId, req.params.operationId));
-  });
-
-  /** PATCH /api/projects/:projectId/operations/:operationId: any subset; `limits` replaced whole. */
-  router.patch('/projects/:projectId/operations/:operationId', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    const patch = parseInput(OperationPatchInput, req.body);
-    res.json(await updateOperation(db, access.projectId, access.user, req.params.operationId, patch));
-  });
-
-  /** DELETE /api/projects/:projectId/operations/:operationId (204). */
-  router.delete('/projects/:projectId/operations/:operationId', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    await deleteOperation(db, access.projectId, access.user, req.params.operationId);
-    res.status(204).end();
+  /**
+   * /api/projects/:projectId/operations: the project's operations by name; POST a new one (201
+   * with it); GET, PATCH (any subset; `limits` replaced whole) and DELETE (204) `/:operationId`.
+   */
+  addProjectCollection(router, db, {
+    name: 'operations',
+    idParam: 'operationId',
+    list: (a) => listOperations(db, a.projectId),
+    get: (a, id) => getOperation(db, a.projectId, id),
+    create: { body: OperationInput, run: (a, input) => createOperation(db, a.projectId, a.user, input) },
+    update: { body: OperationPatchInput, run: (a, id, patch) => updateOperation(db, a.projectId, a.user, id, patch) },
+    remove: (a, id) => deleteOperation(db, a.projectId, a.user, id),
   });
 
   /** GET /api/projects/:projectId/alpha: `{ table, isDefault, note, updatedAt }`. */

@@ -8,6 +8,7 @@ import {
   WorksitePatchInput,
 } from '../../shared/schemas/sites';
 import type { AppDeps } from '../deps';
+import { addProjectCollection } from './project-collection';
 import { HttpError, parseInput } from '../http/errors';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 import { createSite, deleteSite, getSite, listSites, updateSite } from '../services/sites';
@@ -17,37 +18,19 @@ import { nearbyTideStations, tideAnswer } from '../services/tide';
 export function sitesRoutes({ db, clock }: AppDeps): Router {
   const router = Router();
 
-  /** GET /api/projects/:projectId/sites: the project's worksites by name. */
-  router.get('/projects/:projectId/sites', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await listSites(db, access.projectId));
-  });
-
-  /** POST /api/projects/:projectId/sites: a new worksite (201 with it). */
-  router.post('/projects/:projectId/sites', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    const input = parseInput(WorksiteInput, req.body);
-    res.status(201).json(await createSite(db, access.projectId, access.user, input));
-  });
-
-  /** GET /api/projects/:projectId/sites/:siteId */
-  router.get('/projects/:projectId/sites/:siteId', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await getSite(db, access.projectId, req.params.siteId));
-  });
-
-  /** PATCH /api/projects/:projectId/sites/:siteId: any subset of the fields. */
-  router.patch('/projects/:projectId/sites/:siteId', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    const patch = parseInput(WorksitePatchInput, req.body);
-    res.json(await updateSite(db, access.projectId, access.user, req.params.siteId, patch));
-  });
-
-  /** DELETE /api/projects/:projectId/sites/:siteId (204); its id leaves every operation's siteIds. */
-  router.delete('/projects/:projectId/sites/:siteId', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    await deleteSite(db, access.projectId, access.user, req.params.siteId);
-    res.status(204).end();
+  /**
+   * /api/projects/:projectId/sites: the project's worksites by name; POST a new one (201 with it);
+   * GET, PATCH (any subset of the fields) and DELETE `/:siteId` (204; its id leaves every
+   * operation's siteIds).
+   */
+  addProjectCollection(router, db, {
+    name: 'sites',
+    idParam: 'siteId',
+    list: (a) => listSites(db, a.projectId),
+    get: (a, id) => getSite(db, a.projectId, id),
+    create: { body: WorksiteInput, run: (a, input) => createSite(db, a.projectId, a.user, input) },
+    update: { body: WorksitePatchInput, run: (a, id, patch) => updateSite(db, a.projectId, a.user, id, patch) },
+    remove: (a, id) => deleteSite(db, a.projectId, a.user, id),
   });
 
   /**

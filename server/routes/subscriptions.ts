@@ -3,7 +3,7 @@ import { SubscriptionInput } from '../../shared/schemas/alerts';
 import type { AppDeps } from '../deps';
 import { parseInput } from '../http/errors';
 import { requireProjectMember } from '../services/project-access';
-import { mySubscription, saveSubscription } from '../services/subscriptions';
+import { mySubscription, NOTHING_CHOSEN, saveSubscription } from '../services/subscriptions';
 
 /** The caller's alert subscription in a project. */
 export function subscriptionRoutes(deps: AppDeps): Router {
@@ -14,20 +14,7 @@ export function subscriptionRoutes(deps: AppDeps): Router {
   router.get('/projects/:projectId/subscription', async (req, res) => {
     const access = await requireProjectMember(db, req, req.params.projectId);
     const sub = await mySubscription(db, access.user.id, access.projectId);
-    res.json(
-      sub ?? {
-        operationIds: [],
-        siteIds: [],
-        immediate: false,
-        digest: false,
-        digestTime: '06:00',
-        digestTimeZone: 'UTC',
-        active: false,
-        outlookMoveDays: null,
-        windowChanceBelow: null,
-        stored: false,
-      },
-    );
+    res.json(sub ?? { ...NOTHING_CHOSEN, stored: false });
   });
 
   /** PUT /api/projects/:projectId/subscription: choose operations, worksites, immediate alerts and/or a daily digest. */

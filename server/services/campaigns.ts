@@ -16,14 +16,14 @@ import {
 } from '../../shared/engine';
 import type { CampaignMonthAnswer, CampaignResponse, CampaignSimulation } from '../../shared/api-types-downtime';
 import type { CampaignInput, CampaignPatchInput, CampaignStepInput } from '../../shared/schemas/downtime';
-import { idParam } from '../../shared/schemas/common';
 import type { Db } from '../db/client';
 import { campaign } from '../db/schema';
-import { HttpError, notFound } from '../http/errors';
+import { HttpError } from '../http/errors';
 import { loadProjectSetup, sitesOf, type ProjectSetup } from './site-context';
 import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
 import type { SeaSeries } from './series-store';
 import { runEngineTask } from './engine-pool';
+import { projectRow } from './project-rows';
 
 type CampaignRow = typeof campaign.$inferSelect;
 
@@ -94,15 +94,9 @@ export async function listCampaigns(db: Db, projectId: string): Promise<Campaign
   return rows.map(toCampaignResponse);
 }
 
-export async function campaignRow(db: Db, projectId: string, campaignId: string): Promise<CampaignRow> {
-  if (!idParam.safeParse(campaignId).success) throw notFound('Campaign');
-  const [row] = await db
-    .select()
-    .from(campaign)
-    .where(and(eq(campaign.projectId, projectId), eq(campaign.id, campaignId)));
-  if (!row) throw notFound('Campaign');
-  return row;
-}
+/** The campaign row, or 404 for a malformed id, an unknown id or another project's campaign. */
+export const campaignRow = (db: Db, projectId: string, campaignId: string): Promise<CampaignRow> =>
+  projectRow(db, campaign, projectId, campaignId, 'Campaign');
 
 export async function getCampaign(db: Db, projectId: string, campaignId: string): Promise<CampaignResponse> {
   return toCampaignResponse(await campaignRow(db, projectId, campaignId));

@@ -2,17 +2,17 @@
  * Operations of a project with their limits (OPLIM): CRUD in transactions, each change written to
  * the audit trail with the operation's fields (limits, durations, worksites) before and after.
  */
-import { and, asc, eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import type { OperationResponse } from '../../shared/api-types-sites';
 import type { OperationLimits } from '../../shared/engine/types';
-import { idParam } from '../../shared/schemas/common';
 import { recurrenceText, type RecurrenceInput } from '../../shared/recurrence';
-import { nameKey, OperationInput, type OperationPatchInput } from '../../shared/schemas/sites';
+import { OperationInput, type OperationPatchInput } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
 import { operation, projectMember, vessel, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
-import { HttpError, notFound, parseInput } from '../http/errors';
+import { parseInput } from '../http/errors';
 import { recordAudit } from './audit';
+import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 
 type OperationRow = typeof operation.$inferSelect;
 
@@ -94,40 +94,20 @@ export function operationColumns(input: OperationInput) {
   };
 }
 
-function fieldError(field: string, message: string): HttpError {
-  return new HttpError('validation', `Invalid body: ${field}: ${message}`, [{ field, message }]);
-}
-
-export async function listOperations(db: Db, projectId: string): Promise<OperationResponse[]> {
-  const rows = await db.select().from(operation).where(eq(operation.projectId, projectId)).orderBy(asc(operation.name), asc(operation.id));
-  return rows.map(toOperationResponse);
-}
+export const listOperations = async (db: Db, projectId: string): Promise<OperationResponse[]> =>
+  (await listProjectRows(db, operation, projectId)).map(toOperationResponse);
 
 /** The operation row, or 404 for a malformed id, an unknown id or another project's operation. */
-async function operationRow(db: Db, projectId: string, operationId: string): Promise<OperationRow> {
-  if (!idParam.safeParse(operationId).success) throw notFound('Operation');
-  const [row] = await db
-    .select()
-    .from(operation)
-    .where(and(eq(operation.projectId, projectId), eq(operation.id, operationId)));
-  if (!row) throw notFound('Operation');
-  return row;
-}
+const operationRow = (db: Db, projectId: string, operationId: string): Promise<OperationRow> =>
+  projectRow(db, operation, projectId, operationId, 'Operation');
 
 export async function getOperation(db: Db, projectId: string, operationId: string): Promise<OperationResponse> {
   return toOperationResponse(await operationRow(db, projectId, operationId));
 }
 
 /** 409 when another operation of the project has the same name (compared by {@link nameKey}). */
-async function assertOperationNameFree(db: Db, projectId: string, name: string, exceptId?: string): Promise<void> {
-  const key = nameKey(name);
-  const rows = await db.select({ id: operation.id, name: operation.name }).from(operation).where(eq(operation.projectId, projectId));
-  if (rows.some((r) => r.id !== exceptId && nameKey(r.name) === key)) {
-    throw new HttpError('conflict', `An operation named "${name}" already exists in this project`, [
-      { field: 'name', message: 'already used' },
-    ]);
-  }
-}
+const assertOperationNameFree = (db: Db, projectId: string, name: string, exceptId?: string): Promise<void> =>
+  assertNameFree(db, operation, projectId, name, 'An operation', exceptId);
 
 /**
  * 400 naming the first id that is not a worksite of the project, or not a skipper of the project.

@@ -337,6 +337,9 @@ export async function importSetup(
     }
 
     const siteIdByKey = new Map<string, string>();
+    /** One audit entry for a worksite or an operation the document brought in. */
+    const auditImport = (entity: 'worksite' | 'operation', item: { id: string; name: string }, after: unknown) =>
+      recordAudit(tx, { projectId, user, entity, entityId: item.id, entityName: item.name, action: 'import', before: null, after });
     for (const w of doc.worksites) {
       const [row] = await tx
         .insert(worksite)
@@ -344,16 +347,7 @@ export async function importSetup(
         .returning();
       const site = toSiteResponse(row);
       siteIdByKey.set(nameKey(w.name), site.id);
-      await recordAudit(tx, {
-        projectId,
-        user,
-        entity: 'worksite',
-        entityId: site.id,
-        entityName: site.name,
-        action: 'import',
-        before: null,
-        after: auditedSite(site),
-      });
+      await auditImport('worksite', site, auditedSite(site));
     }
 
     const opIdByKey = new Map<string, string>();
@@ -365,16 +359,7 @@ export async function importSetup(
         .returning();
       const op = toOperationResponse(row);
       opIdByKey.set(nameKey(o.name), op.id);
-      await recordAudit(tx, {
-        projectId,
-        user,
-        entity: 'operation',
-        entityId: op.id,
-        entityName: op.name,
-        action: 'import',
-        before: null,
-        after: auditedOperation(op),
-      });
+      await auditImport('operation', op, auditedOperation(op));
     }
 
     // Campaigns follow their operations and worksites: replace mode drops the old ones (their steps

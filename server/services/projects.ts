@@ -7,14 +7,18 @@ import { HttpError } from '../http/errors';
 import type { SessionUser } from '../http/context';
 import type { ProjectAccessRole } from '../../shared/api-types';
 
-/** The caller's projects; administrators see all. */
-export async function listProjects(db: Db, user: SessionUser): Promise<ProjectSummary[]> {
-  const memberships = await db
+/** The projects a user is a member of, by name, with the user's role in each. */
+export const membershipsOf = (db: Db, userId: string) =>
+  db
     .select({ id: project.id, name: project.name, role: projectMember.role })
     .from(projectMember)
     .innerJoin(project, eq(project.id, projectMember.projectId))
-    .where(eq(projectMember.userId, user.id))
+    .where(eq(projectMember.userId, userId))
     .orderBy(asc(project.name));
+
+/** The caller's projects; administrators see all. */
+export async function listProjects(db: Db, user: SessionUser): Promise<ProjectSummary[]> {
+  const memberships = await membershipsOf(db, user.id);
   if (user.role !== 'admin') return memberships;
   const mine = new Map(memberships.map((m) => [m.id, m] as const));
   const all = await db.select({ id: project.id, name: project.name }).from(project).orderBy(asc(project.name));

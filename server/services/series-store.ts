@@ -2,21 +2,14 @@ import { and, asc, eq, gte, lte } from 'drizzle-orm';
 import { EXTRA_COLUMNS, isExtraColumn, presentExtraColumns, sliceExtra, type ExtraSeries } from '../../shared/seadata/extra-columns';
 import type { Db } from '../db/client';
 import { dataset, datasetChunk } from '../db/schema';
+import type { SeaRecords } from '../../shared/seadata/records';
 import type { WaterLevelReference } from '../../shared/seadata/water-level';
 
 /** Records per stored chunk: about one year of hourly records. */
 export const CHUNK_RECORDS = 8784;
 
 /** A sea-state series in memory: UTC ms and SI values, NaN = missing. */
-export interface SeaSeries {
-  timeMs: Float64Array;
-  hs: Float64Array;
-  tp: Float64Array;
-  tz: Float64Array;
-  te: Float64Array;
-  dir: Float64Array;
-  wind: Float64Array;
-  windDir: Float64Array;
+export interface SeaSeries extends Omit<SeaRecords, 'extra'> {
   /** Bit 1: Tp given, 2: Tz given, 4: Te given (the rest derived or missing). */
   givenPeriods: Uint8Array;
   /** Optional columns the dataset has (water level, current, partitions); see extra-columns.ts. */

@@ -2,15 +2,15 @@
  * Worksites of a project: CRUD in transactions, each change written to the audit trail with the
  * worksite's depth and geometry before and after.
  */
-import { and, asc, eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import type { SiteResponse } from '../../shared/api-types-sites';
-import { idParam } from '../../shared/schemas/common';
-import { nameKey, WorksiteInput, type WorksitePatchInput } from '../../shared/schemas/sites';
+import { WorksiteInput, type WorksitePatchInput } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
 import { dataset, operation, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
-import { HttpError, notFound, parseInput } from '../http/errors';
+import { HttpError, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
+import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 import { checkTideInput } from './tide';
 import { auditedOperation, toOperationResponse } from './operations';
 
@@ -59,41 +59,20 @@ export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { 
   };
 }
 
-/** A 400 naming one field, shaped like {@link parseInput}'s. */
-export function fieldError(field: string, message: string): HttpError {
-  return new HttpError('validation', `Invalid body: ${field}: ${message}`, [{ field, message }]);
-}
-
-export async function listSites(db: Db, projectId: string): Promise<SiteResponse[]> {
-  const rows = await db.select().from(worksite).where(eq(worksite.projectId, projectId)).orderBy(asc(worksite.name), asc(worksite.id));
-  return rows.map(toSiteResponse);
-}
+export const listSites = async (db: Db, projectId: string): Promise<SiteResponse[]> =>
+  (await listProjectRows(db, worksite, projectId)).map(toSiteResponse);
 
 /** The worksite row, or 404 for a malformed id, an unknown id or another project's worksite. */
-async function siteRow(db: Db, projectId: string, siteId: string): Promise<WorksiteRow> {
-  if (!idParam.safeParse(siteId).success) throw notFound('Worksite');
-  const [row] = await db
-    .select()
-    .from(worksite)
-    .where(and(eq(worksite.projectId, projectId), eq(worksite.id, siteId)));
-  if (!row) throw notFound('Worksite');
-  return row;
-}
+const siteRow = (db: Db, projectId: string, siteId: string): Promise<WorksiteRow> =>
+  projectRow(db, worksite, projectId, siteId, 'Worksite');
 
 export async function getSite(db: Db, projectId: string, siteId: string): Promise<SiteResponse> {
   return toSiteResponse(await siteRow(db, projectId, siteId));
 }
 
 /** 409 when another worksite of the project has the same name (compared by {@link nameKey}). */
-async function assertSiteNameFree(db: Db, projectId: string, name: string, exceptId?: string): Promise<void> {
-  const key = nameKey(name);
-  const rows = await db.select({ id: worksite.id, name: worksite.name }).from(worksite).where(eq(worksite.projectId, projectId));
-  if (rows.some((r) => r.id !== exceptId && nameKey(r.name) === key)) {
-    throw new HttpError('conflict', `A worksite named "${name}" already exists in this project`, [
-      { field: 'name', message: 'already used' },
-    ]);
-  }
-}
+const assertSiteNameFree = (db: Db, projectId: string, name: string, exceptId?: string): Promise<void> =>
+  assertNameFree(db, worksite, projectId, name, 'A worksite', exceptId);
 
 /** 400 unless the dataset is a hindcast of the same project. */
 async function assertHindcast(db: Db, projectId: string, datasetId: string | null): Promise<void> {

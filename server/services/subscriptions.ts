@@ -55,20 +55,31 @@ export async function effectiveSubscriptions(db: Db, projectId: string): Promise
         email: m.email,
         name: m.name,
         stored: false,
+        ...NOTHING_CHOSEN,
         operationIds: assigned,
-        siteIds: [],
         immediate: true,
-        digest: false,
-        digestTime: '06:00',
-        digestTimeZone: 'UTC',
         active: true,
-        outlookMoveDays: null,
-        windowChanceBelow: null,
       });
     }
   }
   return out;
 }
+
+/**
+ * A subscription with nothing chosen: every operation and worksite, no immediate e-mail, no
+ * digest (06:00 UTC when one is turned on), inactive, no outlook or chance alerts.
+ */
+export const NOTHING_CHOSEN: SubscriptionInput = {
+  operationIds: [],
+  siteIds: [],
+  immediate: false,
+  digest: false,
+  digestTime: '06:00',
+  digestTimeZone: 'UTC',
+  active: false,
+  outlookMoveDays: null,
+  windowChanceBelow: null,
+};
 
 export const covers = (s: SubscriptionInput, operationId: string, siteId: string) =>
   s.active &&
@@ -115,17 +126,7 @@ async function refuseForeignIds(db: Db, projectId: string, input: SubscriptionIn
 /** One-click unsubscribe: stores an inactive subscription (keeping any choices made before). */
 export async function unsubscribe(db: Db, userId: string, projectId: string): Promise<void> {
   const current = await mySubscription(db, userId, projectId);
-  const base: SubscriptionInput = current ?? {
-    operationIds: [],
-    siteIds: [],
-    immediate: true,
-    digest: false,
-    digestTime: '06:00',
-    digestTimeZone: 'UTC',
-    active: true,
-    outlookMoveDays: null,
-    windowChanceBelow: null,
-  };
+  const base: SubscriptionInput = current ?? { ...NOTHING_CHOSEN, immediate: true, active: true };
   const { operationIds, siteIds, immediate, digest, digestTime, digestTimeZone, outlookMoveDays, windowChanceBelow } = base;
   await saveSubscription(db, userId, projectId, {
     operationIds,

@@ -12,16 +12,12 @@ import type { SessionUser } from '../http/context';
 import { passwordProblem } from '../../shared/auth/password-rules';
 import { TEMPORARY_PASSWORD_DAYS } from '../auth';
 import { account } from '../db/schema';
+import { membershipsOf } from './projects';
 
 const DAY_MS = 86_400_000;
 
 export async function describeMe(db: Db, me: SessionUser): Promise<MeResponse> {
-  const memberships = await db
-    .select({ id: project.id, name: project.name, role: projectMember.role })
-    .from(projectMember)
-    .innerJoin(project, eq(project.id, projectMember.projectId))
-    .where(eq(projectMember.userId, me.id))
-    .orderBy(asc(project.name));
+  const memberships = await membershipsOf(db, me.id);
   return {
     id: me.id,
     name: me.name,

@@ -56,6 +56,15 @@ export function relativeDepthFromDeepWater(k0d: number): number {
   throw new Error(`dispersion relation did not converge for k0d = ${k0d}`);
 }
 
+/** The deep-water wavenumber w^2/g, rad/m, after checking the inputs of a wavenumber function. */
+function checkedDeepWaterK(periodS: number, depthM: number, g: number): number {
+  assertPositive('periodS', periodS, false);
+  assertPositive('depthM', depthM, true);
+  assertPositive('g', g, false);
+  const omega = TWO_PI / periodS;
+  return (omega * omega) / g;
+}
+
 /**
  * Explicit approximation of the wavenumber of Fenton & McKee (1990), "On calculating the lengths
  * of water waves", Coastal Engineering 14:499-513:
@@ -71,11 +80,7 @@ export function relativeDepthFromDeepWater(k0d: number): number {
  * @example fentonMcKeeWaveNumber(10, 10) // 0.06693 rad/m (exact: 0.06802)
  */
 export function fentonMcKeeWaveNumber(periodS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
-  assertPositive('periodS', periodS, false);
-  assertPositive('depthM', depthM, true);
-  assertPositive('g', g, false);
-  const omega = TWO_PI / periodS;
-  const k0 = (omega * omega) / g;
+  const k0 = checkedDeepWaterK(periodS, depthM, g);
   if (depthM === Infinity) return k0;
   const k0d = k0 * depthM;
   return k0 / Math.pow(Math.tanh(Math.pow(k0d, 0.75)), 2 / 3);
@@ -101,11 +106,7 @@ export function fentonMcKeeWaveNumber(periodS: number, depthM: number, g: number
  * @example waveNumber(10, 10) // 0.068019 rad/m, i.e. L = 92.37 m
  */
 export function waveNumber(periodS: number, depthM: number, g: number = G_DEFAULT_MPS2): number {
-  assertPositive('periodS', periodS, false);
-  assertPositive('depthM', depthM, true);
-  assertPositive('g', g, false);
-  const omega = TWO_PI / periodS;
-  const k0 = (omega * omega) / g;
+  const k0 = checkedDeepWaterK(periodS, depthM, g);
   if (depthM === Infinity) return k0;
   const k0d = k0 * depthM;
   if (k0d >= DEEP_WATER_KD) return k0;

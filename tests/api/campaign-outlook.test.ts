@@ -1,7 +1,8 @@
 import { quantile } from 'd3-array';
 import { and, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { NOTHING_CHOSEN } from '../../server/services/subscriptions';
+import { useSignedInApp } from '../support/app';
 import { evaluateStatus, goStarts, simulateOutlook } from '../../shared/engine';
 import type { CampaignOutlookAnswer, CampaignResponse, OutlookHistoryPoint } from '../../shared/api-types-downtime';
 import { auditEntry, campaignOutlook, ledgerDay, outbox } from '../../server/db/schema';
@@ -10,9 +11,6 @@ import { loadProjectSetup, operationSpec, transformForSite } from '../../server/
 import { getDatasetRow } from '../../server/services/datasets';
 import { runPlanningJob } from '../../server/services/planning';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
 // A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC and covers the next days; the
 // three-year invented hindcast covers 2023-2025.
 const NOW = new Date('2026-12-01T07:30:00Z');
@@ -20,21 +18,18 @@ const HOUR = 3_600_000;
 let demo: CampaignResponse;
 let fresh: CampaignResponse;
 
+const ctx = useSignedInApp({ hindcastYears: 3, forecast: true, clock: () => NOW }, { timeoutMs: 300_000 });
 beforeAll(async () => {
-  t = await createTestApp({ hindcastYears: 3, forecast: true, clock: () => NOW });
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}`;
-  demo = ((await as.client.get(`${base}/campaigns`)).body as CampaignResponse[])[0];
-  const res = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Outlook test campaign', steps: demo.steps, timeZone: 'UTC' });
+  demo = ((await ctx.as.client.get(`${ctx.base}/campaigns`)).body as CampaignResponse[])[0];
+  const res = await ctx.as.coordinator
+    .post(`${ctx.base}/campaigns`)
+    .send({ name: 'Outlook test campaign', steps: demo.steps, timeZone: 'UTC' });
   expect(res.status, res.text).toBe(201);
   fresh = res.body;
 }, 300_000);
-afterAll(async () => {
-  await t.close();
-});
 
-const outlookOf = async (id: string, agent = as.client) => {
-  const res = await agent.get(`${base}/campaigns/${id}/outlook`);
+const outlookOf = async (id: string, agent = ctx.as.client) => {
+  const res = await agent.get(`${ctx.base}/campaigns/${id}/outlook`);
   expect(res.status, res.text).toBe(200);
   return res.body as CampaignOutlookAnswer;
 };
@@ -44,7 +39,7 @@ describe('the demo campaign (seed)', () => {
     expect(demo.progress[0].status).toBe('done');
     expect(Date.parse(demo.progress[0].doneAt!)).toBeLessThan(NOW.getTime() - 6 * 24 * HOUR);
     expect(demo.progress.slice(1).map((p) => p.status)).toEqual(['planned', 'planned']);
-    const history = (await as.client.get(`${base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[];
+    const history = (await ctx.as.client.get(`${ctx.base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[];
     expect(history.length).toBeGreaterThanOrEqual(14);
     for (const h of history) expect(Date.parse(h.at)).toBeLessThan(NOW.getTime());
     const o = await outlookOf(demo.id);
@@ -56,9 +51,9 @@ describe('GET .../outlook', () => {
   it('answers the fields of the issue, percentiles in order, and the forecast and hindcast parts apart', async () => {
     const o = await outlookOf(fresh.id);
     expect(o.asOf).toBe(NOW.toISOString());
-    const fcRow = await getDatasetRow(t.database.db, t.demo.projectId, t.demo.forecastId!);
+    const fcRow = await getDatasetRow(ctx.t.database.db, ctx.t.demo.projectId, ctx.t.demo.forecastId!);
     expect(o.forecastIssuedAt).toBe(fcRow.issuedAt!.toISOString());
-    expect(o.forecast?.datasetId).toBe(t.demo.forecastId);
+    expect(o.forecast?.datasetId).toBe(ctx.t.demo.forecastId);
     // The demo forecast is an ensemble (control + 20 members, as the fake sends it): each run gives
     // one sample per hindcast year (2023-2025), 21 x 3.
     expect(o.forecast?.members).toBe(21);
@@ -80,9 +75,9 @@ describe('GET .../outlook', () => {
   });
 
   it('equals the engine run on the stored series transformed here (hindcast part), with d3-array quantile (reference library)', async () => {
-    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
-    const row = await getDatasetRow(t.database.db, t.demo.projectId, t.demo.hindcastId!);
-    const series = await readSeries(t.database.db, row.id);
+    const setup = await loadProjectSetup(ctx.t.database.db, ctx.t.demo.projectId);
+    const row = await getDatasetRow(ctx.t.database.db, ctx.t.demo.projectId, ctx.t.demo.hindcastId!);
+    const series = await readSeries(ctx.t.database.db, row.id);
     const flags = fresh.steps.map((s) => {
       const op = setup.operations.find((o) => o.id === s.operationId)!;
       const site = setup.sites.find((x) => x.id === s.siteId)!;
@@ -113,7 +108,7 @@ describe('GET .../outlook', () => {
   });
 
   it('refuses a bad alpha with the field named', async () => {
-    const res = await as.client.get(`${base}/campaigns/${fresh.id}/outlook?alpha=maybe`);
+    const res = await ctx.as.client.get(`${ctx.base}/campaigns/${fresh.id}/outlook?alpha=maybe`);
     expect(res.status).toBe(400);
     expect(res.text).toContain('alpha');
   });
@@ -121,33 +116,33 @@ describe('GET .../outlook', () => {
 
 describe('PATCH .../steps/:index (progress)', () => {
   it('lets only coordinators mark progress; clients and skippers read it', async () => {
-    for (const who of [as.client, as.skipper]) {
-      const res = await who.patch(`${base}/campaigns/${fresh.id}/steps/0`).send({ status: 'started' });
+    for (const who of [ctx.as.client, ctx.as.skipper]) {
+      const res = await who.patch(`${ctx.base}/campaigns/${fresh.id}/steps/0`).send({ status: 'started' });
       expect(res.status).toBe(403);
     }
-    expect((await as.client.get(`${base}/campaigns/${fresh.id}`)).body.progress[0].status).toBe('planned');
-    expect((await as.skipper.get(`${base}/campaigns/${fresh.id}/outlook/history`)).status).toBe(200);
+    expect((await ctx.as.client.get(`${ctx.base}/campaigns/${fresh.id}`)).body.progress[0].status).toBe('planned');
+    expect((await ctx.as.skipper.get(`${ctx.base}/campaigns/${fresh.id}/outlook/history`)).status).toBe(200);
   });
 
   it('refuses out-of-order steps, future times and a done step the ledger does not show, naming the field', async () => {
-    const later = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'started' });
+    const later = await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}/steps/1`).send({ status: 'started' });
     expect(later.status).toBe(409);
     expect(later.text).toContain('Step 1 is not done yet');
-    const future = await as.coordinator
-      .patch(`${base}/campaigns/${fresh.id}/steps/0`)
+    const future = await ctx.as.coordinator
+      .patch(`${ctx.base}/campaigns/${fresh.id}/steps/0`)
       .send({ status: 'done', doneAt: '2026-12-02T00:00:00Z' });
     expect(future.status).toBe(400);
     expect(future.body.error.details[0].field).toBe('doneAt');
-    const noLedger = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/0`).send({ status: 'done' });
+    const noLedger = await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}/steps/0`).send({ status: 'done' });
     expect(noLedger.status).toBe(400);
     expect(noLedger.body.error.details[0].field).toBe('doneAt');
     expect(noLedger.text).toContain('ledger');
-    expect((await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/7`).send({ status: 'done' })).status).toBe(404);
+    expect((await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}/steps/7`).send({ status: 'done' })).status).toBe(404);
   });
 
   it('marking step 1 done moves every sample to step 2, started at its actual end; the change is audited', async () => {
-    const res = await as.coordinator
-      .patch(`${base}/campaigns/${fresh.id}/steps/0`)
+    const res = await ctx.as.coordinator
+      .patch(`${ctx.base}/campaigns/${fresh.id}/steps/0`)
       .send({ status: 'done', startedAt: new Date(NOW.getTime() - 40 * HOUR).toISOString(), doneAt: NOW.toISOString() });
     expect(res.status, res.text).toBe(200);
     expect(res.body.progress[0]).toMatchObject({ status: 'done', doneAt: NOW.toISOString(), source: 'hand' });
@@ -158,11 +153,11 @@ describe('PATCH .../steps/:index (progress)', () => {
     const sumRemaining = 10 + 18;
     if (o.finish.p10) expect(Date.parse(o.finish.p10)).toBeGreaterThanOrEqual(NOW.getTime() + sumRemaining * HOUR);
 
-    const [entry] = await t.database.db
+    const [entry] = await ctx.t.database.db
       .select()
       .from(auditEntry)
       .where(and(eq(auditEntry.entity, 'campaign'), eq(auditEntry.entityId, fresh.id)));
-    expect(entry.userId).toBe(t.demo.users.coordinator);
+    expect(entry.userId).toBe(ctx.t.demo.users.coordinator);
     expect(entry.before).toMatchObject({ step: 0, status: 'planned' });
     expect(entry.after).toMatchObject({ step: 0, status: 'done', doneAt: NOW.toISOString() });
   });
@@ -170,9 +165,9 @@ describe('PATCH .../steps/:index (progress)', () => {
   it('takes the end of a done step from the confirmed ledger days when they show its TPOP worked', async () => {
     // Step 2 (rock berm, TPOP 10 h): two confirmed days, 6 h and then 5 h worked.
     const step = fresh.steps[1];
-    await t.database.db.insert(ledgerDay).values([
+    await ctx.t.database.db.insert(ledgerDay).values([
       {
-        projectId: t.demo.projectId,
+        projectId: ctx.t.demo.projectId,
         operationId: step.operationId,
         siteId: step.siteId,
         day: '2026-11-28',
@@ -183,7 +178,7 @@ describe('PATCH .../steps/:index (progress)', () => {
         status: 'confirmed',
       },
       {
-        projectId: t.demo.projectId,
+        projectId: ctx.t.demo.projectId,
         operationId: step.operationId,
         siteId: step.siteId,
         day: '2026-11-29',
@@ -195,21 +190,21 @@ describe('PATCH .../steps/:index (progress)', () => {
       },
     ]);
     // Its start is after step 1's end (now), so the ledger days before it do not count.
-    const started = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'started' });
+    const started = await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}/steps/1`).send({ status: 'started' });
     expect(started.status, started.text).toBe(200);
     expect(started.body.progress[1]).toMatchObject({ status: 'started', startedAt: NOW.toISOString() });
-    const tooEarly = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'done' });
+    const tooEarly = await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}/steps/1`).send({ status: 'done' });
     expect(tooEarly.status).toBe(400);
     // Back to planned, step 1 back to started with its real start before those days: now the ledger says done.
-    expect((await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'planned' })).status).toBe(200);
+    expect((await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}/steps/1`).send({ status: 'planned' })).status).toBe(200);
     expect(
       (
-        await as.coordinator
-          .patch(`${base}/campaigns/${fresh.id}/steps/0`)
+        await ctx.as.coordinator
+          .patch(`${ctx.base}/campaigns/${fresh.id}/steps/0`)
           .send({ status: 'done', startedAt: '2026-11-25T00:00:00Z', doneAt: '2026-11-27T12:00:00Z' })
       ).status,
     ).toBe(200);
-    const done = await as.coordinator.patch(`${base}/campaigns/${fresh.id}/steps/1`).send({ status: 'done' });
+    const done = await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}/steps/1`).send({ status: 'done' });
     expect(done.status, done.text).toBe(200);
     // Europe/London is UTC in November: the end of 29 November.
     expect(done.body.progress[1]).toMatchObject({
@@ -225,35 +220,26 @@ describe('PATCH .../steps/:index (progress)', () => {
 
 describe('editing the steps of a campaign with progress', () => {
   it('keeps the progress of steps that stay at their index, and drops it from the first step that changes', async () => {
-    const before = (await as.coordinator.get(`${base}/campaigns/${fresh.id}`)).body as CampaignResponse;
+    const before = (await ctx.as.coordinator.get(`${ctx.base}/campaigns/${fresh.id}`)).body as CampaignResponse;
     expect(before.progress.map((p) => p.status)).toEqual(['done', 'done', 'planned']);
-    const shorter = await as.coordinator.patch(`${base}/campaigns/${fresh.id}`).send({ steps: before.steps.slice(0, 2) });
+    const shorter = await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}`).send({ steps: before.steps.slice(0, 2) });
     expect(shorter.status, shorter.text).toBe(200);
     expect(shorter.body.progress.map((p: { status: string }) => p.status)).toEqual(['done', 'done']);
-    const swapped = await as.coordinator.patch(`${base}/campaigns/${fresh.id}`).send({ steps: [before.steps[1], before.steps[0]] });
+    const swapped = await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${fresh.id}`).send({ steps: [before.steps[1], before.steps[0]] });
     expect(swapped.body.progress.map((p: { status: string }) => p.status)).toEqual(['planned', 'planned']);
   });
 });
 
 describe('history and alerts', () => {
   it('each planning run stores the outlook; an e-mail goes to a client who asked when the P50 moved more than N days', async () => {
-    const before = ((await as.client.get(`${base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[]).length;
+    const before = ((await ctx.as.client.get(`${ctx.base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[]).length;
     // The client asks to hear about moves of more than 2 days.
-    const sub = await as.client.put(`${base}/subscription`).send({
-      operationIds: [],
-      siteIds: [],
-      immediate: false,
-      digest: false,
-      digestTime: '06:00',
-      digestTimeZone: 'UTC',
-      active: true,
-      outlookMoveDays: 2,
-    });
+    const sub = await ctx.as.client.put(`${ctx.base}/subscription`).send({ ...NOTHING_CHOSEN, active: true, outlookMoveDays: 2 });
     expect(sub.status, sub.text).toBe(200);
     expect(sub.body.outlookMoveDays).toBe(2);
     // A stored outlook whose P50 is far from anything this run can give (60 days before now).
-    await t.database.db.insert(campaignOutlook).values({
-      projectId: t.demo.projectId,
+    await ctx.t.database.db.insert(campaignOutlook).values({
+      projectId: ctx.t.demo.projectId,
       campaignId: demo.id,
       at: new Date(NOW.getTime() - HOUR),
       p50: new Date(NOW.getTime() - 60 * 24 * HOUR),
@@ -261,20 +247,22 @@ describe('history and alerts', () => {
       samples: 3,
       censored: 0,
     });
-    const job = await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'manual' });
+    const job = await runPlanningJob(ctx.t.deps, { projectId: ctx.t.demo.projectId, trigger: 'manual' });
     expect(job.projects[0].status).toBe('planned');
-    const history = (await as.client.get(`${base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[];
+    const history = (await ctx.as.client.get(`${ctx.base}/campaigns/${demo.id}/outlook/history`)).body as OutlookHistoryPoint[];
     expect(history.length).toBe(before + 2);
     const last = history[history.length - 1];
     expect(last.at).toBe(NOW.toISOString());
-    expect(last.forecastIssuedAt).toBe((await getDatasetRow(t.database.db, t.demo.projectId, t.demo.forecastId!)).issuedAt!.toISOString());
-    const [row] = await t.database.db
+    expect(last.forecastIssuedAt).toBe(
+      (await getDatasetRow(ctx.t.database.db, ctx.t.demo.projectId, ctx.t.demo.forecastId!)).issuedAt!.toISOString(),
+    );
+    const [row] = await ctx.t.database.db
       .select()
       .from(campaignOutlook)
       .where(and(eq(campaignOutlook.campaignId, demo.id), eq(campaignOutlook.at, NOW)));
     expect(row.planRunId).toBe(job.projects[0].planRunId);
 
-    const mails = await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.client));
+    const mails = await ctx.t.database.db.select().from(outbox).where(eq(outbox.userId, ctx.t.demo.users.client));
     const moved = mails.filter((m) => m.idempotencyKey.startsWith(`outlook:${demo.id}:`));
     expect(last.p50).not.toBeNull();
     {
@@ -282,21 +270,21 @@ describe('history and alerts', () => {
       expect(moved[0].subject).toContain('P50 finish moved');
       expect(moved[0].toEmail).toBe('client@example.com');
       // The same run again: the P50 is unchanged, so nothing more is sent.
-      await runPlanningJob(t.deps, { projectId: t.demo.projectId, trigger: 'manual' });
-      const again = (await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.client))).filter((m) =>
+      await runPlanningJob(ctx.t.deps, { projectId: ctx.t.demo.projectId, trigger: 'manual' });
+      const again = (await ctx.t.database.db.select().from(outbox).where(eq(outbox.userId, ctx.t.demo.users.client))).filter((m) =>
         m.idempotencyKey.startsWith(`outlook:${demo.id}:`),
       );
       expect(again).toHaveLength(1);
     }
     // The skipper asked nothing and is not a client or coordinator here: no outlook e-mail.
-    const skipperMails = (await t.database.db.select().from(outbox).where(eq(outbox.userId, t.demo.users.skipper))).filter((m) =>
+    const skipperMails = (await ctx.t.database.db.select().from(outbox).where(eq(outbox.userId, ctx.t.demo.users.skipper))).filter((m) =>
       m.idempotencyKey.startsWith('outlook:'),
     );
     expect(skipperMails).toHaveLength(0);
   });
 
   it('with no forecast, the outlook equals its hindcast-only part', async () => {
-    const del = await as.coordinator.delete(`${base}/datasets/${t.demo.forecastId}`);
+    const del = await ctx.as.coordinator.delete(`${ctx.base}/datasets/${ctx.t.demo.forecastId}`);
     expect([200, 204]).toContain(del.status);
     const o = await outlookOf(demo.id);
     expect(o.forecast).toBeNull();

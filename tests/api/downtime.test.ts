@@ -2,8 +2,8 @@ import request from 'supertest';
 import Papa from 'papaparse';
 import { quantile } from 'd3-array';
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { useSignedInApp, textBody } from '../support/app';
 import { calendarIndex, evaluateHours, evaluateStatus, goStarts, monthlyStatistics, STATUS } from '../../shared/engine';
 import type {
   CampaignSimulation,
@@ -19,9 +19,6 @@ import { toSeaSeries } from '../../server/services/sea-series';
 import { ledgerDay, statsCache } from '../../server/db/schema';
 import { clearStatsMemo, settleStatsCache } from '../../server/services/workability';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
 // A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC and covers the next days; the
 // three-year invented hindcast covers 2023-2025.
 const NOW = new Date('2026-12-01T07:30:00Z');
@@ -30,20 +27,13 @@ const NOW_LEDGER = new Date('2026-12-10T12:00:00Z');
 let now = NOW;
 const HOUR = 3_600_000;
 
-beforeAll(async () => {
-  t = await createTestApp({ hindcastYears: 3, forecast: true, clock: () => now });
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}`;
-});
-afterAll(async () => {
-  await t.close();
-});
+const ctx = useSignedInApp({ hindcastYears: 3, forecast: true, clock: () => now });
 
 const inUnit = (x: number | null) => x === null || (x >= 0 && x <= 1);
 
 async function createOperation(body: Record<string, unknown>): Promise<string> {
-  const res = await as.coordinator
-    .post(`${base}/operations`)
+  const res = await ctx.as.coordinator
+    .post(`${ctx.base}/operations`)
     .send({ description: '', weatherRestricted: true, skipperIds: [], tc: 0, ...body });
   expect(res.status, res.text).toBe(201);
   return res.body.id;
@@ -51,9 +41,9 @@ async function createOperation(body: Record<string, unknown>): Promise<string> {
 
 describe('workability statistics', () => {
   it('answers every operation at each of its worksites, per month and year-month, shares in [0, 1]', async () => {
-    const res = await as.client.get(`${base}/workability`);
+    const res = await ctx.as.client.get(`${ctx.base}/workability`);
     expect(res.status, res.text).toBe(200);
-    expect(res.headers['x-dataset-id']).toBe(t.demo.hindcastId);
+    expect(res.headers['x-dataset-id']).toBe(ctx.t.demo.hindcastId);
     const entries = res.body as WorkabilityEntry[];
     // seed/scenario-sites.ts: 2 + 1 + 2 + 1 + 2 + 1 operation-worksite pairs.
     expect(entries).toHaveLength(9);
@@ -77,12 +67,12 @@ describe('workability statistics', () => {
   });
 
   it('equals the engine run step by step on the same transformed series (one operation)', async () => {
-    const entries = (await as.skipper.get(`${base}/workability`)).body as WorkabilityEntry[];
-    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+    const entries = (await ctx.as.skipper.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
+    const setup = await loadProjectSetup(ctx.t.database.db, ctx.t.demo.projectId);
     const e = entries.find((x) => x.operationName === 'Rock berm placement')!;
     const op = setup.operations.find((o) => o.id === e.operationId)!;
     const site = setup.sites.find((s) => s.id === e.siteId)!;
-    const series = await readSeries(t.database.db, t.demo.hindcastId!);
+    const series = await readSeries(ctx.t.database.db, ctx.t.demo.hindcastId!);
     // Transformed with the hindcast's own data point depth, as the service does.
     const engineWithDepth = transformForSite(series, await datasetDepth(), site).engine;
     const spec = operationSpec(op, setup.vessels);
@@ -112,8 +102,8 @@ describe('workability statistics', () => {
   });
 
   it('never shows less workability without alpha (docs/domain.md#convention-14)', async () => {
-    const withAlpha = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
-    const without = (await as.client.get(`${base}/workability?alpha=false`)).body as WorkabilityEntry[];
+    const withAlpha = (await ctx.as.client.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
+    const without = (await ctx.as.client.get(`${ctx.base}/workability?alpha=false`)).body as WorkabilityEntry[];
     expect(without).toHaveLength(withAlpha.length);
     let larger = 0;
     withAlpha.forEach((e, i) => {
@@ -127,25 +117,25 @@ describe('workability statistics', () => {
   });
 
   it('caches by dataset and limits version: a repeat answers the same, a limit change recomputes', async () => {
-    const first = await as.coordinator.get(`${base}/workability`);
-    const again = await as.coordinator.get(`${base}/workability`);
+    const first = await ctx.as.coordinator.get(`${ctx.base}/workability`);
+    const again = await ctx.as.coordinator.get(`${ctx.base}/workability`);
     expect(again.body).toEqual(first.body);
     const keys = async () => {
       await settleStatsCache();
-      return (await t.database.db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).map(
-        (r) => r.key,
-      );
+      return (
+        await ctx.t.database.db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, ctx.t.demo.projectId))
+      ).map((r) => r.key);
     };
-    const before = (await keys()).filter((k) => k.startsWith(`${t.demo.hindcastId}:`) && k.endsWith(':true'));
+    const before = (await keys()).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(':true'));
     expect(before).toHaveLength(1);
 
     const entries = first.body as WorkabilityEntry[];
     const pull = entries.find((e) => e.operationName === 'Cable pull-in at landfall')!;
-    const patch = await as.coordinator
-      .patch(`${base}/operations/${pull.operationId}`)
+    const patch = await ctx.as.coordinator
+      .patch(`${ctx.base}/operations/${pull.operationId}`)
       .send({ limits: { hsMax: 0.5, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
     expect(patch.status, patch.text).toBe(200);
-    const after = (await as.coordinator.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const after = (await ctx.as.coordinator.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
     const changed = after.find((e) => e.operationId === pull.operationId && e.siteId === pull.siteId)!;
     // A lower Hs limit: never more workable, and less in some month.
     let lower = 0;
@@ -158,62 +148,55 @@ describe('workability statistics', () => {
     const other = after.find((e) => e.operationName === 'Rock berm placement')!;
     expect(other.months).toEqual(entries.find((e) => e.operationName === 'Rock berm placement')!.months);
     // One entry per dataset and variant: the old version is gone.
-    const now = (await keys()).filter((k) => k.startsWith(`${t.demo.hindcastId}:`) && k.endsWith(':true'));
+    const now = (await keys()).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(':true'));
     expect(now).toHaveLength(1);
     expect(now[0]).not.toBe(before[0]);
     // Back as seeded.
-    await as.coordinator
-      .patch(`${base}/operations/${pull.operationId}`)
+    await ctx.as.coordinator
+      .patch(`${ctx.base}/operations/${pull.operationId}`)
       .send({ limits: { hsMax: 1.0, windMax: 12, bedVelocityMax: 0.6, bedVelocityMethod: 'linear' } });
-    const restored = (await as.coordinator.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const restored = (await ctx.as.coordinator.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
     expect(restored).toEqual(entries);
   }, 240_000);
 
   it('answers a repeat from the stats_cache table when the process has not seen it', async () => {
-    const first = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const first = (await ctx.as.client.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
     await settleStatsCache();
     // Mark the stored answer, forget the in-process memo: the marked value comes back.
-    const db = t.database.db;
-    const [row] = (await db.select().from(statsCache).where(eq(statsCache.projectId, t.demo.projectId))).filter(
-      (r) => r.key.startsWith(`${t.demo.hindcastId}:`) && r.key.endsWith(':true'),
+    const db = ctx.t.database.db;
+    const [row] = (await db.select().from(statsCache).where(eq(statsCache.projectId, ctx.t.demo.projectId))).filter(
+      (r) => r.key.startsWith(`${ctx.t.demo.hindcastId}:`) && r.key.endsWith(':true'),
     );
     const stored = row.value as WorkabilityEntry[];
     const mark = stored.find((e) => e.operationId === first[0].operationId && e.siteId === first[0].siteId)!;
     mark.months[0].workability = 0.123456;
     await db.update(statsCache).set({ value: stored }).where(eq(statsCache.key, row.key));
     clearStatsMemo(db);
-    const again = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const again = (await ctx.as.client.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
     expect(again[0].months[0].workability).toBe(0.123456);
     // Put it back as computed.
     mark.months[0].workability = first[0].months[0].workability;
     await db.update(statsCache).set({ value: stored }).where(eq(statsCache.key, row.key));
     clearStatsMemo(db);
-    expect((await as.client.get(`${base}/workability`)).body).toEqual(first);
+    expect((await ctx.as.client.get(`${ctx.base}/workability`)).body).toEqual(first);
   });
 
   it('shows a renamed operation at once (answers kept encoded are keyed by the whole setup)', async () => {
-    const before = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const before = (await ctx.as.client.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
     const { operationId, operationName } = before[0];
-    const renamed = await as.coordinator.patch(`${base}/operations/${operationId}`).send({ name: `${operationName} (renamed)` });
+    const renamed = await ctx.as.coordinator.patch(`${ctx.base}/operations/${operationId}`).send({ name: `${operationName} (renamed)` });
     expect(renamed.status, renamed.text).toBe(200);
-    const after = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
+    const after = (await ctx.as.client.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
     expect(after.filter((e) => e.operationId === operationId).map((e) => e.operationName)).toEqual(
       before.filter((e) => e.operationId === operationId).map(() => `${operationName} (renamed)`),
     );
-    expect((await as.coordinator.patch(`${base}/operations/${operationId}`).send({ name: operationName })).status).toBe(200);
-    expect((await as.client.get(`${base}/workability`)).body).toEqual(before);
+    expect((await ctx.as.coordinator.patch(`${ctx.base}/operations/${operationId}`).send({ name: operationName })).status).toBe(200);
+    expect((await ctx.as.client.get(`${ctx.base}/workability`)).body).toEqual(before);
   });
 
   it('downloads the same numbers as CSV', async () => {
-    const json = (await as.client.get(`${base}/workability`)).body as WorkabilityEntry[];
-    const res = await as.client
-      .get(`${base}/workability.csv`)
-      .buffer(true)
-      .parse((r, cb) => {
-        let s = '';
-        r.on('data', (c: Buffer) => (s += c));
-        r.on('end', () => cb(null, s));
-      });
+    const json = (await ctx.as.client.get(`${ctx.base}/workability`)).body as WorkabilityEntry[];
+    const res = await ctx.as.client.get(`${ctx.base}/workability.csv`).buffer(true).parse(textBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     // papaparse (a general-purpose CSV parser from npm) reads it back.
@@ -228,14 +211,14 @@ describe('workability statistics', () => {
   });
 
   it('refuses a forecast as the statistics dataset and unknown datasets', async () => {
-    expect((await as.client.get(`${base}/workability?dataset=${t.demo.forecastId}`)).status).toBe(400);
-    expect((await as.client.get(`${base}/workability?dataset=00000000-0000-4000-8000-000000000000`)).status).toBe(404);
-    expect((await as.client.get(`${base}/workability?alpha=maybe`)).status).toBe(400);
+    expect((await ctx.as.client.get(`${ctx.base}/workability?dataset=${ctx.t.demo.forecastId}`)).status).toBe(400);
+    expect((await ctx.as.client.get(`${ctx.base}/workability?dataset=00000000-0000-4000-8000-000000000000`)).status).toBe(404);
+    expect((await ctx.as.client.get(`${ctx.base}/workability?alpha=maybe`)).status).toBe(400);
   });
 });
 
 async function datasetDepth(): Promise<number | null> {
-  const res = await as.coordinator.get(`${base}/datasets/${t.demo.hindcastId}`);
+  const res = await ctx.as.coordinator.get(`${ctx.base}/datasets/${ctx.t.demo.hindcastId}`);
   return res.body.dataPoint.depthM;
 }
 
@@ -251,14 +234,14 @@ describe('campaigns', () => {
       tpop: 10,
       tc: 2,
       limits: { hsMax: 20, windMax: 60 },
-      siteIds: [t.demo.siteIds.route],
+      siteIds: [ctx.t.demo.siteIds.route],
     });
     calmB = await createOperation({
       name: 'Calm step B',
       tpop: 6,
       tc: 0,
       limits: { hsMax: 20, windMax: 60 },
-      siteIds: [t.demo.siteIds.substation],
+      siteIds: [ctx.t.demo.siteIds.substation],
     });
     // A Tp window no sea of the invented climate reaches.
     never = await createOperation({
@@ -266,66 +249,66 @@ describe('campaigns', () => {
       tpop: 4,
       tc: 0,
       limits: { tpMin: 39, tpMax: 40 },
-      siteIds: [t.demo.siteIds.route],
+      siteIds: [ctx.t.demo.siteIds.route],
     });
   });
 
   it('creates, lists, reorders and deletes a campaign; validates its steps', async () => {
     const steps = [
-      { operationId: calmA, siteId: t.demo.siteIds.route },
-      { operationId: calmB, siteId: t.demo.siteIds.substation },
+      { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
+      { operationId: calmB, siteId: ctx.t.demo.siteIds.substation },
     ];
-    const created = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Export cable nearshore', steps });
+    const created = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({ name: 'Export cable nearshore', steps });
     expect(created.status, created.text).toBe(201);
     expect(created.body.id).toMatch(/^[0-9a-f-]{36}$/);
     expect(created.body.timeZone).toBe('UTC');
     const id = created.body.id;
-    const list = await as.client.get(`${base}/campaigns`);
+    const list = await ctx.as.client.get(`${ctx.base}/campaigns`);
     expect(list.body.map((c: { id: string }) => c.id)).toContain(id);
 
-    const reordered = await as.coordinator
-      .patch(`${base}/campaigns/${id}`)
+    const reordered = await ctx.as.coordinator
+      .patch(`${ctx.base}/campaigns/${id}`)
       .send({ steps: [steps[1], steps[0], steps[1]], timeZone: 'europe/london' });
     expect(reordered.status, reordered.text).toBe(200);
     expect(reordered.body.steps).toEqual([steps[1], steps[0], steps[1]]);
     expect(reordered.body.timeZone).toBe('Europe/London');
-    expect((await as.client.get(`${base}/campaigns/${id}`)).body.steps).toEqual([steps[1], steps[0], steps[1]]);
+    expect((await ctx.as.client.get(`${ctx.base}/campaigns/${id}`)).body.steps).toEqual([steps[1], steps[0], steps[1]]);
 
     // An operation at a worksite where it does not happen, an unknown one, no steps, too many.
-    const wrongSite = await as.coordinator
-      .post(`${base}/campaigns`)
-      .send({ name: 'x', steps: [{ operationId: calmA, siteId: t.demo.siteIds.cofferdam }] });
+    const wrongSite = await ctx.as.coordinator
+      .post(`${ctx.base}/campaigns`)
+      .send({ name: 'x', steps: [{ operationId: calmA, siteId: ctx.t.demo.siteIds.cofferdam }] });
     expect(wrongSite.status).toBe(400);
     expect(wrongSite.body.error.details[0].field).toBe('steps.0.siteId');
-    const unknown = await as.coordinator
-      .post(`${base}/campaigns`)
-      .send({ name: 'x', steps: [{ operationId: '00000000-0000-4000-8000-000000000000', siteId: t.demo.siteIds.route }] });
+    const unknown = await ctx.as.coordinator
+      .post(`${ctx.base}/campaigns`)
+      .send({ name: 'x', steps: [{ operationId: '00000000-0000-4000-8000-000000000000', siteId: ctx.t.demo.siteIds.route }] });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.details[0].field).toBe('steps.0.operationId');
-    expect((await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: [] })).status).toBe(400);
-    expect((await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps: Array(51).fill(steps[0]) })).status).toBe(400);
-    expect((await as.coordinator.post(`${base}/campaigns`).send({ name: 'x', steps, timeZone: 'Mars/Olympus' })).status).toBe(400);
-    expect((await as.coordinator.patch(`${base}/campaigns/${id}`).send({})).status).toBe(400);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({ name: 'x', steps: [] })).status).toBe(400);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({ name: 'x', steps: Array(51).fill(steps[0]) })).status).toBe(400);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({ name: 'x', steps, timeZone: 'Mars/Olympus' })).status).toBe(400);
+    expect((await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${id}`).send({})).status).toBe(400);
 
-    expect((await as.coordinator.delete(`${base}/campaigns/${id}`)).status).toBe(204);
-    expect((await as.client.get(`${base}/campaigns/${id}`)).status).toBe(404);
+    expect((await ctx.as.coordinator.delete(`${ctx.base}/campaigns/${id}`)).status).toBe(204);
+    expect((await ctx.as.client.get(`${ctx.base}/campaigns/${id}`)).status).toBe(404);
   });
 
   it('simulates: shape per start month, P50 <= P90, WoW = duration - sum of TPOP', async () => {
-    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+    const setup = await loadProjectSetup(ctx.t.database.db, ctx.t.demo.projectId);
     const lay = setup.operations.find((o) => o.name === 'Cable lay, nearshore section')!;
     const berm = setup.operations.find((o) => o.name === 'Rock berm placement')!;
-    const c = await as.coordinator.post(`${base}/campaigns`).send({
+    const c = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({
       name: 'Lay and protect',
       steps: [
-        { operationId: lay.id, siteId: t.demo.siteIds.route },
-        { operationId: berm.id, siteId: t.demo.siteIds.route },
+        { operationId: lay.id, siteId: ctx.t.demo.siteIds.route },
+        { operationId: berm.id, siteId: ctx.t.demo.siteIds.route },
       ],
     });
-    const res = await as.client.post(`${base}/campaigns/${c.body.id}/simulate`);
+    const res = await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate`);
     expect(res.status, res.text).toBe(200);
     const sim = res.body as CampaignSimulation;
-    expect(sim.dataset.id).toBe(t.demo.hindcastId);
+    expect(sim.dataset.id).toBe(ctx.t.demo.hindcastId);
     expect(sim.sumTpopHours).toBe(lay.tpopH + berm.tpopH);
     expect(sim.months.map((m) => m.startMonth)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12]);
     for (const m of sim.months) {
@@ -347,7 +330,7 @@ describe('campaigns', () => {
       expect(Date.parse(m.p50Finish!) - start).toBeCloseTo(m.p50Hours * HOUR, -1);
     }
     // Without alpha the lay is no slower (OPLIM >= OPWF).
-    const without = (await as.client.post(`${base}/campaigns/${c.body.id}/simulate?alpha=false`)).body as CampaignSimulation;
+    const without = (await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate?alpha=false`)).body as CampaignSimulation;
     sim.months.forEach((m, k) => {
       if (m.p50Hours !== null && without.months[k].p50Hours !== null)
         expect(without.months[k].p50Hours!).toBeLessThanOrEqual(m.p50Hours + 1e-9);
@@ -355,20 +338,20 @@ describe('campaigns', () => {
   });
 
   it('caches a simulation by campaign, steps and limits: a repeat answers the same, a step change recomputes', async () => {
-    const db = t.database.db;
-    const setup = await loadProjectSetup(db, t.demo.projectId);
+    const db = ctx.t.database.db;
+    const setup = await loadProjectSetup(db, ctx.t.demo.projectId);
     const lay = setup.operations.find((o) => o.name === 'Cable lay, nearshore section')!;
     const berm = setup.operations.find((o) => o.name === 'Rock berm placement')!;
-    const layStep = { operationId: lay.id, siteId: t.demo.siteIds.route };
-    const bermStep = { operationId: berm.id, siteId: t.demo.siteIds.route };
-    const c = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Cached campaign', steps: [layStep, bermStep] });
+    const layStep = { operationId: lay.id, siteId: ctx.t.demo.siteIds.route };
+    const bermStep = { operationId: berm.id, siteId: ctx.t.demo.siteIds.route };
+    const c = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({ name: 'Cached campaign', steps: [layStep, bermStep] });
     const simulate = async (id: string) => {
-      const res = await as.client.post(`${base}/campaigns/${id}/simulate`);
+      const res = await ctx.as.client.post(`${ctx.base}/campaigns/${id}/simulate`);
       expect(res.status, res.text).toBe(200);
       return res.body as CampaignSimulation;
     };
     const storedKeys = async () =>
-      (await db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, t.demo.projectId)))
+      (await db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.projectId, ctx.t.demo.projectId)))
         .map((r) => r.key)
         .filter((k) => k.endsWith(`:campaign-${c.body.id}-true`));
 
@@ -381,30 +364,30 @@ describe('campaigns', () => {
 
     // Another step list is another version: recomputed (as a new campaign with those steps), and
     // the older stored version is replaced.
-    expect((await as.coordinator.patch(`${base}/campaigns/${c.body.id}`).send({ steps: [bermStep] })).status).toBe(200);
+    expect((await ctx.as.coordinator.patch(`${ctx.base}/campaigns/${c.body.id}`).send({ steps: [bermStep] })).status).toBe(200);
     const changed = await simulate(c.body.id);
-    const fresh = await as.coordinator.post(`${base}/campaigns`).send({ name: 'Berm only', steps: [bermStep] });
+    const fresh = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({ name: 'Berm only', steps: [bermStep] });
     const expected = await simulate(fresh.body.id);
     expect(changed.sumTpopHours).toBe(berm.tpopH);
     expect(changed.months).toEqual(expected.months);
     await settleStatsCache();
     expect(await storedKeys()).toHaveLength(1);
 
-    for (const id of [c.body.id, fresh.body.id]) expect((await as.coordinator.delete(`${base}/campaigns/${id}`)).status).toBe(204);
+    for (const id of [c.body.id, fresh.body.id]) expect((await ctx.as.coordinator.delete(`${ctx.base}/campaigns/${id}`)).status).toBe(204);
   });
 
   it('hand case: in a sea where every hour is workable the campaign takes the sum of TPOP, WoW 0', async () => {
-    const c = await as.coordinator.post(`${base}/campaigns`).send({
+    const c = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({
       name: 'Calm campaign',
       steps: [
-        { operationId: calmA, siteId: t.demo.siteIds.route },
-        { operationId: calmB, siteId: t.demo.siteIds.substation },
-        { operationId: calmA, siteId: t.demo.siteIds.route },
+        { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
+        { operationId: calmB, siteId: ctx.t.demo.siteIds.substation },
+        { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
       ],
       plannedStart: '2027-04-15T00:00:00Z',
     });
     expect(c.status, c.text).toBe(201);
-    const sim = (await as.client.post(`${base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
+    const sim = (await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
     // Hand sum: 10 + 6 + 10 = 26 h.
     expect(sim.sumTpopHours).toBe(26);
     for (const m of sim.months) {
@@ -422,14 +405,14 @@ describe('campaigns', () => {
   });
 
   it('hand case: a step that never gets a go-start censors every year', async () => {
-    const c = await as.coordinator.post(`${base}/campaigns`).send({
+    const c = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({
       name: 'Hopeless',
       steps: [
-        { operationId: calmA, siteId: t.demo.siteIds.route },
-        { operationId: never, siteId: t.demo.siteIds.route },
+        { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
+        { operationId: never, siteId: ctx.t.demo.siteIds.route },
       ],
     });
-    const sim = (await as.client.post(`${base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
+    const sim = (await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
     for (const m of sim.months) {
       expect(m.years).toBe(3);
       expect(m.censoredYears).toEqual([2023, 2024, 2025]);
@@ -448,14 +431,14 @@ describe('campaigns', () => {
   });
 
   it('answers 409 when a stored step no longer fits the project', async () => {
-    const c = await as.coordinator
-      .post(`${base}/campaigns`)
-      .send({ name: 'Moves', steps: [{ operationId: calmB, siteId: t.demo.siteIds.substation }] });
-    await as.coordinator.patch(`${base}/operations/${calmB}`).send({ siteIds: [t.demo.siteIds.route] });
-    const res = await as.client.post(`${base}/campaigns/${c.body.id}/simulate`);
+    const c = await ctx.as.coordinator
+      .post(`${ctx.base}/campaigns`)
+      .send({ name: 'Moves', steps: [{ operationId: calmB, siteId: ctx.t.demo.siteIds.substation }] });
+    await ctx.as.coordinator.patch(`${ctx.base}/operations/${calmB}`).send({ siteIds: [ctx.t.demo.siteIds.route] });
+    const res = await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate`);
     expect(res.status).toBe(409);
     expect(res.body.error.details[0].field).toBe('steps.0.siteId');
-    await as.coordinator.patch(`${base}/operations/${calmB}`).send({ siteIds: [t.demo.siteIds.substation] });
+    await ctx.as.coordinator.patch(`${ctx.base}/operations/${calmB}`).send({ siteIds: [ctx.t.demo.siteIds.substation] });
   });
 });
 
@@ -471,10 +454,10 @@ describe('the downtime ledger', () => {
     const n = 24;
     const timeMs = Float64Array.from({ length: n }, (_, i) => start + i * HOUR);
     const obs = await createDataset(
-      t.database.db,
+      ctx.t.database.db,
       {
-        projectId: t.demo.projectId,
-        createdBy: t.demo.users.coordinator,
+        projectId: ctx.t.demo.projectId,
+        createdBy: ctx.t.demo.users.coordinator,
         name: 'Calm buoy day (test)',
         kind: 'observation',
         dataPointName: 'test buoy',
@@ -510,10 +493,10 @@ describe('the downtime ledger', () => {
     const fTime = Float64Array.from({ length: fn }, (_, i) => fStart + i * HOUR);
     const calm = (i: number) => fTime[i] < Date.UTC(2026, 11, 1, 6);
     const earlier = await createDataset(
-      t.database.db,
+      ctx.t.database.db,
       {
-        projectId: t.demo.projectId,
-        createdBy: t.demo.users.coordinator,
+        projectId: ctx.t.demo.projectId,
+        createdBy: ctx.t.demo.users.coordinator,
         name: 'Forecast issued 2026-11-30 18:00 UTC (test)',
         kind: 'forecast',
         dataPointName: 'test',
@@ -546,12 +529,12 @@ describe('the downtime ledger', () => {
   });
 
   it('proposes days from the data, observation first, then the forecast', async () => {
-    const res = await as.coordinator.post(`${base}/ledger/propose?from=2026-12-01&to=2026-12-31`);
+    const res = await ctx.as.coordinator.post(`${ctx.base}/ledger/propose?from=2026-12-01&to=2026-12-31`);
     expect(res.status, res.text).toBe(200);
     proposed = res.body;
     // The observation, the fake forecast issue and the earlier test issue (for 1 December).
     expect(proposed.sources.map((s) => s.kind).sort()).toEqual(['forecast', 'forecast', 'observation']);
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body as LedgerEntry[];
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-01&to=2026-12-31`)).body as LedgerEntry[];
     expect(rows.length).toBe(proposed.written);
     expect(rows.length).toBeGreaterThan(0);
     for (const r of rows) {
@@ -585,14 +568,14 @@ describe('the downtime ledger', () => {
     for (const n of proposed.notOver)
       expect(n.days).toEqual(Array.from({ length: 22 }, (_, k) => `2026-12-${String(10 + k).padStart(2, '0')}`));
     expect(proposed.uncovered).toEqual([]);
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-01`)).body as LedgerEntry[];
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-01&to=2026-12-01`)).body as LedgerEntry[];
     expect(rows.length).toBe(await pairCount());
     // 1 December: 00:00-06:00 only the earlier issue covers; from 06:00 the newer one decides,
     // also where the earlier one still runs (06:00-12:00, where it is stormy). Hand-built: the
     // earlier issue is calm before 06:00, so only the newer issue's hours can be lost after it.
-    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
-    const series = await readSeries(t.database.db, t.demo.forecastId!);
-    const depth = (await as.coordinator.get(`${base}/datasets/${t.demo.forecastId}`)).body.dataPoint.depthM;
+    const setup = await loadProjectSetup(ctx.t.database.db, ctx.t.demo.projectId);
+    const series = await readSeries(ctx.t.database.db, ctx.t.demo.forecastId!);
+    const depth = (await ctx.as.coordinator.get(`${ctx.base}/datasets/${ctx.t.demo.forecastId}`)).body.dataPoint.depthM;
     const from = Date.UTC(2026, 11, 1, 6);
     for (const r of rows) {
       expect(r.source).toBe('forecast');
@@ -612,31 +595,31 @@ describe('the downtime ledger', () => {
       // The tidal winching stage also loses hours before 06:00 (away from high water), whatever the sea.
       if (r.operationName === 'Pull-in winching at high water') expect(r.proposedLostHours).toBeGreaterThanOrEqual(18 - workable);
       else expect(r.proposedLostHours).toBe(18 - workable);
-      expect(r.datasetId).toBe(t.demo.forecastId);
+      expect(r.datasetId).toBe(ctx.t.demo.forecastId);
     }
     expect(proposed.sources.map((s) => s.id)).toContain(earlierIssueId);
   });
 
   it('refuses to confirm a day that is not over in the worksite’s time zone', async () => {
     // Second project: a worksite in Pacific/Auckland (UTC+13 in December) and one in London.
-    const B = `/api/projects/${t.demo.secondProjectId}`;
+    const B = `/api/projects/${ctx.t.demo.secondProjectId}`;
     const site = async (name: string, timeZone: string) => {
-      const res = await as.coordinator.post(`${B}/sites`).send({ name, depth: 10, timeZone });
+      const res = await ctx.as.coordinator.post(`${B}/sites`).send({ name, depth: 10, timeZone });
       expect(res.status, res.text).toBe(201);
       return res.body.id as string;
     };
     const auckland = await site('Ledger quay, Auckland', 'Pacific/Auckland');
     const london = await site('Ledger quay, London', 'Europe/London');
-    const op = await as.coordinator
+    const op = await ctx.as.coordinator
       .post(`${B}/operations`)
       .send({ name: 'Ledger lift', tpop: 4, tc: 0, weatherRestricted: true, limits: { hsMax: 1 }, siteIds: [auckland, london] });
     expect(op.status, op.text).toBe(201);
     const row = async (siteId: string, day: string) =>
       (
-        await t.database.db
+        await ctx.t.database.db
           .insert(ledgerDay)
           .values({
-            projectId: t.demo.secondProjectId,
+            projectId: ctx.t.demo.secondProjectId,
             operationId: op.body.id,
             siteId,
             day,
@@ -647,21 +630,21 @@ describe('the downtime ledger', () => {
           .returning()
       )[0].id;
     // 10 December ends at 11:00 UTC in Auckland (00:00 on the 11th, UTC+13) and at 24:00 UTC in London.
-    const tooEarly = await as.coordinator.post(`${B}/ledger/${await row(london, '2026-12-10')}/confirm`).send({});
+    const tooEarly = await ctx.as.coordinator.post(`${B}/ledger/${await row(london, '2026-12-10')}/confirm`).send({});
     expect(tooEarly.status).toBe(409);
     expect(tooEarly.body.error.message).toMatch(/2026-12-10 is not over yet at Ledger quay, London \(Europe\/London\)/);
-    const later = await as.coordinator.post(`${B}/ledger/${await row(london, '2026-12-20')}/confirm`).send({});
+    const later = await ctx.as.coordinator.post(`${B}/ledger/${await row(london, '2026-12-20')}/confirm`).send({});
     expect(later.status).toBe(409);
-    const over = await as.coordinator.post(`${B}/ledger/${await row(auckland, '2026-12-10')}/confirm`).send({});
+    const over = await ctx.as.coordinator.post(`${B}/ledger/${await row(auckland, '2026-12-10')}/confirm`).send({});
     expect(over.status, over.text).toBe(200);
     expect(over.body.status).toBe('confirmed');
   });
 
   it('counts a forecast day as planned hours minus workable hours at OPLIM (checked hour by hour)', async () => {
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-04`)).body as LedgerEntry[];
-    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
-    const series = await readSeries(t.database.db, t.demo.forecastId!);
-    const depth = (await as.coordinator.get(`${base}/datasets/${t.demo.forecastId}`)).body.dataPoint.depthM;
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-04&to=2026-12-04`)).body as LedgerEntry[];
+    const setup = await loadProjectSetup(ctx.t.database.db, ctx.t.demo.projectId);
+    const series = await readSeries(ctx.t.database.db, ctx.t.demo.forecastId!);
+    const depth = (await ctx.as.coordinator.get(`${ctx.base}/datasets/${ctx.t.demo.forecastId}`)).body.dataPoint.depthM;
     for (const r of rows) {
       expect(r.source).toBe('forecast');
       const site = setup.sites.find((s) => s.id === r.siteId)!;
@@ -686,17 +669,19 @@ describe('the downtime ledger', () => {
   });
 
   it('confirms a day as proposed or corrected with a note, locks it and audits it', async () => {
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-05`)).body as LedgerEntry[];
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-04&to=2026-12-05`)).body as LedgerEntry[];
     const [a, b] = rows;
     // A correction without a note is refused; so are hours above the planned ones.
-    const noNote = await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: ((a.proposedLostHours ?? 0) + 3) % 24 });
+    const noNote = await ctx.as.coordinator
+      .post(`${ctx.base}/ledger/${a.id}/confirm`)
+      .send({ lostHours: ((a.proposedLostHours ?? 0) + 3) % 24 });
     expect(noNote.status).toBe(400);
     expect(noNote.body.error.details[0].field).toBe('note');
-    expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: 25, note: 'x' })).status).toBe(400);
-    expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ lostHours: -1, note: 'x' })).status).toBe(400);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/ledger/${a.id}/confirm`).send({ lostHours: 25, note: 'x' })).status).toBe(400);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/ledger/${a.id}/confirm`).send({ lostHours: -1, note: 'x' })).status).toBe(400);
 
-    const corrected = await as.coordinator
-      .post(`${base}/ledger/${a.id}/confirm`)
+    const corrected = await ctx.as.coordinator
+      .post(`${ctx.base}/ledger/${a.id}/confirm`)
       .send({ lostHours: 6, limiting: 'wind', note: 'Crew change, spread stood down at noon' });
     expect(corrected.status, corrected.text).toBe(200);
     expect(corrected.body).toMatchObject({
@@ -706,20 +691,20 @@ describe('the downtime ledger', () => {
       note: 'Crew change, spread stood down at noon',
       confirmedBy: expect.any(String),
     });
-    const asIs = await as.coordinator.post(`${base}/ledger/${b.id}/confirm`).send({});
+    const asIs = await ctx.as.coordinator.post(`${ctx.base}/ledger/${b.id}/confirm`).send({});
     expect(asIs.status, asIs.text).toBe(200);
     expect(asIs.body.lostHours).toBe(b.proposedLostHours);
     expect(asIs.body.limiting).toBe(b.proposedLimiting);
 
     // Locked: a second confirmation is refused.
-    expect((await as.coordinator.post(`${base}/ledger/${a.id}/confirm`).send({ note: 'again' })).status).toBe(409);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/ledger/${a.id}/confirm`).send({ note: 'again' })).status).toBe(409);
     // A new proposal leaves confirmed rows as they are.
-    const again = (await as.coordinator.post(`${base}/ledger/propose?from=2026-12-04&to=2026-12-05`)).body as LedgerProposeAnswer;
+    const again = (await ctx.as.coordinator.post(`${ctx.base}/ledger/propose?from=2026-12-04&to=2026-12-05`)).body as LedgerProposeAnswer;
     expect(again.keptConfirmed).toBe(2);
-    const still = (await as.coordinator.get(`${base}/ledger?from=2026-12-04&to=2026-12-04`)).body as LedgerEntry[];
+    const still = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-04&to=2026-12-04`)).body as LedgerEntry[];
     expect(still.find((r) => r.id === a.id)).toMatchObject({ status: 'confirmed', lostHours: 6 });
 
-    const audit = await as.coordinator.get(`${base}/audit?entity=project`);
+    const audit = await ctx.as.coordinator.get(`${ctx.base}/audit?entity=project`);
     expect(audit.status).toBe(200);
     const entry = audit.body.find((e: { entityId: string }) => e.entityId === a.id);
     expect(entry).toMatchObject({
@@ -730,21 +715,21 @@ describe('the downtime ledger', () => {
   });
 
   it('shows clients the confirmed days only', async () => {
-    const rows = (await as.client.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body as LedgerEntry[];
+    const rows = (await ctx.as.client.get(`${ctx.base}/ledger?from=2026-12-01&to=2026-12-31`)).body as LedgerEntry[];
     expect(rows).toHaveLength(2);
     for (const r of rows) expect(r.status).toBe('confirmed');
-    const monthly = (await as.client.get(`${base}/ledger/monthly`)).body as LedgerMonthlyAnswer;
+    const monthly = (await ctx.as.client.get(`${ctx.base}/ledger/monthly`)).body as LedgerMonthlyAnswer;
     for (const r of monthly.rows) expect(r.proposedLostHours).toBeNull();
   });
 
   it('totals each month against the hindcast expectation: P50/P90 as d3-array quantile (R-7)', async () => {
-    const res = await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`);
+    const res = await ctx.as.coordinator.get(`${ctx.base}/ledger/monthly?from=2026-12-01&to=2026-12-31`);
     expect(res.status, res.text).toBe(200);
     const answer = res.body as LedgerMonthlyAnswer;
-    expect(answer.hindcast?.id).toBe(t.demo.hindcastId);
+    expect(answer.hindcast?.id).toBe(ctx.t.demo.hindcastId);
     expect(answer.rows).toHaveLength(await pairCount());
-    const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
-    const series = await readSeries(t.database.db, t.demo.hindcastId!);
+    const setup = await loadProjectSetup(ctx.t.database.db, ctx.t.demo.projectId);
+    const series = await readSeries(ctx.t.database.db, ctx.t.demo.hindcastId!);
     const depth = await datasetDepth();
     let confirmedTotal = 0;
     for (const r of answer.rows) {
@@ -772,7 +757,7 @@ describe('the downtime ledger', () => {
       expect(Math.abs(r.expectedP50Hours! - quantile(lost, 0.5)!)).toBeLessThanOrEqual(0.005);
       expect(Math.abs(r.expectedP90Hours! - quantile(lost, 0.9)!)).toBeLessThanOrEqual(0.005);
     }
-    const confirmed = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).body.filter(
+    const confirmed = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-01&to=2026-12-31`)).body.filter(
       (r: LedgerEntry) => r.status === 'confirmed',
     );
     expect(confirmedTotal).toBeCloseTo(
@@ -785,8 +770,8 @@ describe('the downtime ledger', () => {
   // switch; OPWF = alpha x OPLIM with alpha <= 1 (DOMAIN "Operations and limits") can only make
   // more hours unworkable, so every expected figure is at least the OPLIM one.
   it('computes the expectation on the page’s basis when asked (alpha=true)', async () => {
-    const plain = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
-    const withAlpha = (await as.coordinator.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31&alpha=true`))
+    const plain = (await ctx.as.coordinator.get(`${ctx.base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
+    const withAlpha = (await ctx.as.coordinator.get(`${ctx.base}/ledger/monthly?from=2026-12-01&to=2026-12-31&alpha=true`))
       .body as LedgerMonthlyAnswer;
     expect([plain.alpha, withAlpha.alpha]).toEqual([false, true]);
     let stricter = 0;
@@ -798,68 +783,68 @@ describe('the downtime ledger', () => {
       expect(r.confirmedLostHours).toBe(p.confirmedLostHours);
     }
     expect(stricter).toBeGreaterThan(0);
-    expect((await as.coordinator.get(`${base}/ledger/monthly?alpha=yes`)).status).toBe(400);
+    expect((await ctx.as.coordinator.get(`${ctx.base}/ledger/monthly?alpha=yes`)).status).toBe(400);
   });
 });
 
 /** Operation-worksite pairs of the project now (the campaign tests add three operations). */
 async function pairCount(): Promise<number> {
-  const setup = await loadProjectSetup(t.database.db, t.demo.projectId);
+  const setup = await loadProjectSetup(ctx.t.database.db, ctx.t.demo.projectId);
   return setup.operations.reduce((a, o) => a + (o.siteIds.length === 0 ? setup.sites.length : o.siteIds.length), 0);
 }
 
 describe('who may do what', () => {
   it('lets clients read workability, campaigns and the ledger, and nothing more', async () => {
-    const c = await as.coordinator
-      .post(`${base}/campaigns`)
-      .send({ name: 'Role check', steps: [{ operationId: t.demo.operationIds[0], siteId: t.demo.siteIds.cofferdam }] });
+    const c = await ctx.as.coordinator
+      .post(`${ctx.base}/campaigns`)
+      .send({ name: 'Role check', steps: [{ operationId: ctx.t.demo.operationIds[0], siteId: ctx.t.demo.siteIds.cofferdam }] });
     expect(c.status, c.text).toBe(201);
     const id = c.body.id;
-    for (const who of [as.client, as.skipper]) {
-      expect((await who.get(`${base}/workability`)).status).toBe(200);
-      expect((await who.get(`${base}/campaigns`)).status).toBe(200);
-      expect((await who.get(`${base}/campaigns/${id}`)).status).toBe(200);
-      expect((await who.post(`${base}/campaigns/${id}/simulate`)).status).toBe(200);
-      expect((await who.get(`${base}/ledger?from=2026-12-01&to=2026-12-31`)).status).toBe(200);
-      expect((await who.get(`${base}/ledger/monthly`)).status).toBe(200);
-      expect((await who.post(`${base}/campaigns`).send({ name: 'No', steps: c.body.steps })).status).toBe(403);
-      expect((await who.patch(`${base}/campaigns/${id}`).send({ name: 'No' })).status).toBe(403);
-      expect((await who.delete(`${base}/campaigns/${id}`)).status).toBe(403);
-      expect((await who.post(`${base}/ledger/propose?from=2026-12-01&to=2026-12-02`)).status).toBe(403);
+    for (const who of [ctx.as.client, ctx.as.skipper]) {
+      expect((await who.get(`${ctx.base}/workability`)).status).toBe(200);
+      expect((await who.get(`${ctx.base}/campaigns`)).status).toBe(200);
+      expect((await who.get(`${ctx.base}/campaigns/${id}`)).status).toBe(200);
+      expect((await who.post(`${ctx.base}/campaigns/${id}/simulate`)).status).toBe(200);
+      expect((await who.get(`${ctx.base}/ledger?from=2026-12-01&to=2026-12-31`)).status).toBe(200);
+      expect((await who.get(`${ctx.base}/ledger/monthly`)).status).toBe(200);
+      expect((await who.post(`${ctx.base}/campaigns`).send({ name: 'No', steps: c.body.steps })).status).toBe(403);
+      expect((await who.patch(`${ctx.base}/campaigns/${id}`).send({ name: 'No' })).status).toBe(403);
+      expect((await who.delete(`${ctx.base}/campaigns/${id}`)).status).toBe(403);
+      expect((await who.post(`${ctx.base}/ledger/propose?from=2026-12-01&to=2026-12-02`)).status).toBe(403);
     }
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-06&to=2026-12-06`)).body as LedgerEntry[];
-    expect((await as.client.post(`${base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(403);
-    expect((await as.skipper.post(`${base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(403);
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-06&to=2026-12-06`)).body as LedgerEntry[];
+    expect((await ctx.as.client.post(`${ctx.base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(403);
+    expect((await ctx.as.skipper.post(`${ctx.base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(403);
     // Administrators act as coordinators.
-    expect((await as.admin.post(`${base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(200);
+    expect((await ctx.as.admin.post(`${ctx.base}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(200);
   });
 
   it('answers 401 to anonymous callers', async () => {
-    const anon = request(t.app);
-    expect((await anon.get(`${base}/workability`)).status).toBe(401);
-    expect((await anon.get(`${base}/workability.csv`)).status).toBe(401);
-    expect((await anon.get(`${base}/campaigns`)).status).toBe(401);
-    expect((await anon.post(`${base}/campaigns`).send({})).status).toBe(401);
-    expect((await anon.get(`${base}/ledger?from=2026-12-01&to=2026-12-02`)).status).toBe(401);
-    expect((await anon.post(`${base}/ledger/propose?from=2026-12-01&to=2026-12-02`)).status).toBe(401);
+    const anon = request(ctx.t.app);
+    expect((await anon.get(`${ctx.base}/workability`)).status).toBe(401);
+    expect((await anon.get(`${ctx.base}/workability.csv`)).status).toBe(401);
+    expect((await anon.get(`${ctx.base}/campaigns`)).status).toBe(401);
+    expect((await anon.post(`${ctx.base}/campaigns`).send({})).status).toBe(401);
+    expect((await anon.get(`${ctx.base}/ledger?from=2026-12-01&to=2026-12-02`)).status).toBe(401);
+    expect((await anon.post(`${ctx.base}/ledger/propose?from=2026-12-01&to=2026-12-02`)).status).toBe(401);
   });
 
   it('answers 404 for another project and for ids of this project asked through another', async () => {
-    const other = `/api/projects/${t.demo.secondProjectId}`;
+    const other = `/api/projects/${ctx.t.demo.secondProjectId}`;
     // The client is not a member of the second project.
-    expect((await as.client.get(`${other}/workability`)).status).toBe(404);
-    expect((await as.client.get(`${other}/campaigns`)).status).toBe(404);
-    expect((await as.client.get(`${other}/ledger?from=2026-12-01&to=2026-12-02`)).status).toBe(404);
+    expect((await ctx.as.client.get(`${other}/workability`)).status).toBe(404);
+    expect((await ctx.as.client.get(`${other}/campaigns`)).status).toBe(404);
+    expect((await ctx.as.client.get(`${other}/ledger?from=2026-12-01&to=2026-12-02`)).status).toBe(404);
     // The coordinator is, but this project's campaign and ledger entry are not the second's.
-    const list = (await as.coordinator.get(`${base}/campaigns`)).body;
-    expect((await as.coordinator.get(`${other}/campaigns/${list[0].id}`)).status).toBe(404);
-    expect((await as.coordinator.post(`${other}/campaigns/${list[0].id}/simulate`)).status).toBe(404);
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-07&to=2026-12-07`)).body as LedgerEntry[];
-    expect((await as.coordinator.post(`${other}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(404);
-    expect((await as.coordinator.post(`${base}/ledger/not-an-id/confirm`).send({})).status).toBe(404);
+    const list = (await ctx.as.coordinator.get(`${ctx.base}/campaigns`)).body;
+    expect((await ctx.as.coordinator.get(`${other}/campaigns/${list[0].id}`)).status).toBe(404);
+    expect((await ctx.as.coordinator.post(`${other}/campaigns/${list[0].id}/simulate`)).status).toBe(404);
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-07&to=2026-12-07`)).body as LedgerEntry[];
+    expect((await ctx.as.coordinator.post(`${other}/ledger/${rows[0].id}/confirm`).send({})).status).toBe(404);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/ledger/not-an-id/confirm`).send({})).status).toBe(404);
     // Ranges are checked.
-    expect((await as.coordinator.get(`${base}/ledger?from=2026-12-05&to=2026-12-01`)).status).toBe(400);
-    expect((await as.coordinator.get(`${base}/ledger?from=2026-01-01&to=2026-12-31`)).status).toBe(400);
-    expect((await as.coordinator.get(`${base}/ledger?from=2026-02-30&to=2026-03-01`)).status).toBe(400);
+    expect((await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-05&to=2026-12-01`)).status).toBe(400);
+    expect((await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-01-01&to=2026-12-31`)).status).toBe(400);
+    expect((await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-02-30&to=2026-03-01`)).status).toBe(400);
   });
 });

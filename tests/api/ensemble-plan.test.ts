@@ -1,26 +1,16 @@
 // Ensemble forecasts end to end (docs/domain.md#forecast-uncertainty): the demo's forecast is
 // fetched from the fake with 20 members, stored columnar, read back unchanged, and the plan carries
 // per-hour and per-window chances beside the deterministic status.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { buildFakeForecast, latestIssueTimeMs } from '../../server/forecast';
 import { DEMO_SEA_SEED } from '../../seed/demo';
 import { readMembers } from '../../server/services/ensemble-store';
 import { readSeries } from '../../server/services/series-store';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { useSignedInApp } from '../support/app';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
 const NOW = new Date('2026-12-01T07:30:00Z');
 
-beforeAll(async () => {
-  t = await createTestApp({ clock: () => NOW, forecast: true });
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}`;
-}, 240_000);
-afterAll(async () => {
-  await t?.close();
-});
+const ctx = useSignedInApp({ clock: () => NOW, forecast: true }, { timeoutMs: 240_000 });
 
 interface PlanBody {
   ensemble: { runs: number } | null;
@@ -36,11 +26,11 @@ interface PlanBody {
 
 describe('an ensemble forecast', () => {
   it('is stored with its 20 members, which read back as the fake sent them', async () => {
-    const list = await as.coordinator.get(`${base}/datasets`);
+    const list = await ctx.as.coordinator.get(`${ctx.base}/datasets`);
     const forecast = list.body.find((d: { kind: string }) => d.kind === 'forecast');
     expect(forecast.ensembleMembers).toBe(20);
-    const control = await readSeries(t.deps.db, forecast.id);
-    const members = await readMembers(t.deps.db, forecast.id, control);
+    const control = await readSeries(ctx.t.deps.db, forecast.id);
+    const members = await readMembers(ctx.t.deps.db, forecast.id, control);
     // What the fake answered for the project's data point at that clock (the same request again).
     const sent = buildFakeForecast({
       seed: DEMO_SEA_SEED,
@@ -59,14 +49,14 @@ describe('an ensemble forecast', () => {
       expect(m.timeMs).toBe(control.timeMs);
     }
     // A stretch of the control reads the same stretch of every member.
-    const part = await readSeries(t.deps.db, forecast.id, { fromMs: control.timeMs[10], toMs: control.timeMs[30] });
-    const partMembers = await readMembers(t.deps.db, forecast.id, part);
+    const part = await readSeries(ctx.t.deps.db, forecast.id, { fromMs: control.timeMs[10], toMs: control.timeMs[30] });
+    const partMembers = await readMembers(ctx.t.deps.db, forecast.id, part);
     expect(Array.from(partMembers[3].hs)).toEqual(sent.members![3].series.hs.slice(10, 31));
   });
 
   it('gives the plan a chance per hour and per window, consistent with the control being one of the 21 runs', async () => {
     // On OPLIM (alpha=false) the control's own status is one of the runs counted.
-    const res = await as.skipper.get(`${base}/plan?alpha=false`);
+    const res = await ctx.as.skipper.get(`${ctx.base}/plan?alpha=false`);
     expect(res.status, res.text).toBe(200);
     const body = res.body as PlanBody;
     expect(body.ensemble).toEqual({ runs: 21 });
@@ -97,8 +87,8 @@ describe('an ensemble forecast', () => {
   });
 
   it('has no chances for a dataset without members', async () => {
-    const hindcast = await as.coordinator
-      .post(`${base}/datasets`)
+    const hindcast = await ctx.as.coordinator
+      .post(`${ctx.base}/datasets`)
       .field('name', 'Two days')
       .field('kind', 'hindcast')
       .field('format', 'csv')
@@ -109,7 +99,7 @@ describe('an ensemble forecast', () => {
         'two.csv',
       );
     expect(hindcast.status, hindcast.text).toBe(201);
-    const res = await as.skipper.get(`${base}/plan?dataset=${hindcast.body.id}`);
+    const res = await ctx.as.skipper.get(`${ctx.base}/plan?dataset=${hindcast.body.id}`);
     expect(res.status, res.text).toBe(200);
     const body = res.body as PlanBody;
     expect(body.ensemble).toBeNull();
@@ -122,14 +112,14 @@ describe('an ensemble forecast', () => {
 
 describe('an ensemble forecast from CSV (a member column; 0 = the control)', () => {
   const upload = (name: string, text: string, kind = 'forecast') =>
-    as.coordinator
-      .post(`${base}/datasets`)
+    ctx.as.coordinator
+      .post(`${ctx.base}/datasets`)
       .field('name', name)
       .field('kind', kind)
       .field('format', 'csv')
       .field('dataPointDepth', 'deep')
       .attach('file', Buffer.from(text), `${name}.csv`);
-  const forecasts = async () => (await as.coordinator.get(`${base}/datasets`)).body.length as number;
+  const forecasts = async () => (await ctx.as.coordinator.get(`${ctx.base}/datasets`)).body.length as number;
 
   it('stores the control and each member, rows in any order of members', async () => {
     const text = [
@@ -144,10 +134,10 @@ describe('an ensemble forecast from CSV (a member column; 0 = the control)', () 
     const res = await upload('Ensemble CSV', text);
     expect(res.status, res.text).toBe(201);
     expect(res.body.records).toBe(2);
-    const detail = (await as.coordinator.get(`${base}/datasets`)).body.find((d: { id: string }) => d.id === res.body.id);
+    const detail = (await ctx.as.coordinator.get(`${ctx.base}/datasets`)).body.find((d: { id: string }) => d.id === res.body.id);
     expect(detail.ensembleMembers).toBe(2);
-    const control = await readSeries(t.deps.db, res.body.id);
-    const members = await readMembers(t.deps.db, res.body.id, control);
+    const control = await readSeries(ctx.t.deps.db, res.body.id);
+    const members = await readMembers(ctx.t.deps.db, res.body.id, control);
     // The values as written in the file above.
     expect(Array.from(control.hs)).toEqual([1.0, 1.1]);
     expect(members.map((m) => [m.member, Array.from(m.hs), Array.from(m.tp), Array.from(m.wind)])).toEqual([

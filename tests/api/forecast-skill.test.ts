@@ -3,37 +3,29 @@
 // docs/domain.md#calibrated-alpha). The figures are checked against a brute-force pairing written
 // here from the records API, and the alpha values against the formula with the quantile of
 // @stdlib/stats-base-dists-normal-quantile (a general-purpose reference library).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import quantile from '@stdlib/stats-base-dists-normal-quantile';
 import type { CalibratedAlphaAnswer, ForecastSkillAnswer } from '../../shared/api-types-skill';
 import type { DatasetSummary, RecordsAnswer } from '../../shared/api-types-datasets';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { useSignedInApp } from '../support/app';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
 let observationId: string;
 const now = new Date('2026-12-03T09:30:00Z');
 const HOUR = 3_600_000;
 
+const ctx = useSignedInApp({ forecast: true, skillArchiveDays: 60, clock: () => now }, { timeoutMs: 180_000 });
 beforeAll(async () => {
-  t = await createTestApp({ forecast: true, skillArchiveDays: 60, clock: () => now });
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}`;
-  observationId = t.demo.observationId!;
+  observationId = ctx.t.demo.observationId!;
 }, 180_000);
-afterAll(async () => {
-  await t?.close();
-});
 
 /** Brute force: every forecast record with an observation at exactly the same time (both hourly on the hour). */
 async function bruteForcePairs(): Promise<{ issue: string; leadH: number; fc: number; obs: number }[]> {
-  const list = (await as.coordinator.get(`${base}/datasets`)).body as DatasetSummary[];
-  const obs = (await as.coordinator.get(`${base}/datasets/${observationId}/records`)).body as RecordsAnswer;
+  const list = (await ctx.as.coordinator.get(`${ctx.base}/datasets`)).body as DatasetSummary[];
+  const obs = (await ctx.as.coordinator.get(`${ctx.base}/datasets/${observationId}/records`)).body as RecordsAnswer;
   const obsAt = new Map(obs.time.map((time, i) => [Date.parse(time), obs.hs[i]]));
   const out: { issue: string; leadH: number; fc: number; obs: number }[] = [];
   for (const d of list.filter((x) => x.kind === 'forecast' && x.source.issuedAt)) {
-    const r = (await as.coordinator.get(`${base}/datasets/${d.id}/records`)).body as RecordsAnswer;
+    const r = (await ctx.as.coordinator.get(`${ctx.base}/datasets/${d.id}/records`)).body as RecordsAnswer;
     const issued = Date.parse(d.source.issuedAt!);
     r.time.forEach((time, i) => {
       const leadH = (Date.parse(time) - issued) / HOUR;
@@ -52,7 +44,7 @@ const meanSd = (xs: number[]) => {
 
 describe('GET forecast-skill', () => {
   it('answers the bins of docs/domain.md#forecast-uncertainty with the figures of a brute-force pairing', async () => {
-    const res = await as.client.get(`${base}/forecast-skill?observation=${observationId}`);
+    const res = await ctx.as.client.get(`${ctx.base}/forecast-skill?observation=${observationId}`);
     expect(res.status, res.text).toBe(200);
     const a = res.body as ForecastSkillAnswer;
     expect(a.bins.map((b) => [b.fromH, b.toH])).toEqual([0, 12, 24, 48, 72].flatMap((f, i) => Array(4).fill([f, [12, 24, 48, 72, 96][i]])));
@@ -82,7 +74,7 @@ describe('GET forecast-skill', () => {
   });
 
   it("matches the fake service's documented error model at short lead", async () => {
-    const a = (await as.client.get(`${base}/forecast-skill?observation=${observationId}`)).body as ForecastSkillAnswer;
+    const a = (await ctx.as.client.get(`${ctx.base}/forecast-skill?observation=${observationId}`)).body as ForecastSkillAnswer;
     // server/forecast/fake-forecast.ts: |e| <= 0.03 + 0.035 per day of lead on Hs, plus a timing error of
     // about 1 h at analysis time, and the demo buoy's +-2 %: at lead [0, 12) h the log error stays small.
     const first = a.byLead[0];
@@ -95,11 +87,11 @@ describe('GET forecast-skill', () => {
   });
 
   it('refuses a forecast as the observation, and a missing one, naming the field', async () => {
-    const forecastId = t.demo.forecastId!;
-    const bad = await as.coordinator.get(`${base}/forecast-skill?observation=${forecastId}`);
+    const forecastId = ctx.t.demo.forecastId!;
+    const bad = await ctx.as.coordinator.get(`${ctx.base}/forecast-skill?observation=${forecastId}`);
     expect(bad.status).toBe(400);
     expect(bad.text).toMatch(/observation/);
-    const missing = await as.coordinator.get(`${base}/forecast-skill`);
+    const missing = await ctx.as.coordinator.get(`${ctx.base}/forecast-skill`);
     expect(missing.status).toBe(400);
     expect(missing.text).toMatch(/observation/);
   });
@@ -107,7 +99,7 @@ describe('GET forecast-skill', () => {
 
 describe('GET alpha/calibrated', () => {
   it('gives alpha = min(1, exp(-(mu + z sigma))) per cell at the project p (1e-4), with the bin behind it', async () => {
-    const res = await as.skipper.get(`${base}/alpha/calibrated`);
+    const res = await ctx.as.skipper.get(`${ctx.base}/alpha/calibrated`);
     expect(res.status, res.text).toBe(200);
     const a = res.body as CalibratedAlphaAnswer;
     expect(a.p).toBe(1e-4);
@@ -138,14 +130,14 @@ describe('GET alpha/calibrated', () => {
   });
 
   it('takes p from the query or the project setting, and refuses a p outside 1e-9 - 0.2', async () => {
-    const q = (await as.coordinator.get(`${base}/alpha/calibrated?p=0.01`)).body as CalibratedAlphaAnswer;
+    const q = (await ctx.as.coordinator.get(`${ctx.base}/alpha/calibrated?p=0.01`)).body as CalibratedAlphaAnswer;
     expect(q.p).toBe(0.01);
     // z at p = 0.01 is 2.326 (normal tables, from memory).
     expect(q.z).toBeCloseTo(2.326, 3);
-    const bad = await as.coordinator.get(`${base}/alpha/calibrated?p=0.5`);
+    const bad = await ctx.as.coordinator.get(`${ctx.base}/alpha/calibrated?p=0.5`);
     expect(bad.status).toBe(400);
     expect(bad.text).toMatch(/\bp\b/);
-    const project = (await as.coordinator.get(base)).body;
+    const project = (await ctx.as.coordinator.get(ctx.base)).body;
     const settings = {
       name: project.name,
       description: project.description,
@@ -155,33 +147,33 @@ describe('GET alpha/calibrated', () => {
       dataPointDepthM: project.dataPointDepthM,
       forecastSource: project.forecastSource,
     };
-    expect((await as.coordinator.put(`${base}/settings`).send({ ...settings, alphaCalibrationP: 1e-3 })).status).toBeLessThan(300);
-    expect(((await as.coordinator.get(`${base}/alpha/calibrated`)).body as CalibratedAlphaAnswer).p).toBe(1e-3);
+    expect((await ctx.as.coordinator.put(`${ctx.base}/settings`).send({ ...settings, alphaCalibrationP: 1e-3 })).status).toBeLessThan(300);
+    expect(((await ctx.as.coordinator.get(`${ctx.base}/alpha/calibrated`)).body as CalibratedAlphaAnswer).p).toBe(1e-3);
     // Left out, the setting stays as it is; then back to the default for the tests below.
-    expect((await as.coordinator.put(`${base}/settings`).send(settings)).status).toBeLessThan(300);
-    expect((await as.coordinator.get(base)).body.alphaCalibrationP).toBe(1e-3);
-    expect((await as.coordinator.put(`${base}/settings`).send({ ...settings, alphaCalibrationP: 1e-4 })).status).toBeLessThan(300);
+    expect((await ctx.as.coordinator.put(`${ctx.base}/settings`).send(settings)).status).toBeLessThan(300);
+    expect((await ctx.as.coordinator.get(ctx.base)).body.alphaCalibrationP).toBe(1e-3);
+    expect((await ctx.as.coordinator.put(`${ctx.base}/settings`).send({ ...settings, alphaCalibrationP: 1e-4 })).status).toBeLessThan(300);
   });
 });
 
 describe('POST alpha/adopt-calibrated', () => {
   it('refuses skippers and clients, and adopts nothing by itself', async () => {
     for (const who of ['skipper', 'client'] as const) {
-      const res = await as[who].post(`${base}/alpha/adopt-calibrated`).send({ p: 1e-4, observation: observationId });
+      const res = await ctx.as[who].post(`${ctx.base}/alpha/adopt-calibrated`).send({ p: 1e-4, observation: observationId });
       expect(res.status, who).toBe(403);
     }
-    const alpha = (await as.coordinator.get(`${base}/alpha`)).body;
+    const alpha = (await ctx.as.coordinator.get(`${ctx.base}/alpha`)).body;
     expect(alpha.isDefault).toBe(true);
   });
 
   it('makes the calibrated table the project table, audited with p, the observation, the bins and the counts', async () => {
-    const shown = (await as.coordinator.get(`${base}/alpha/calibrated?observation=${observationId}`)).body as CalibratedAlphaAnswer;
-    const res = await as.coordinator.post(`${base}/alpha/adopt-calibrated`).send({ p: 1e-4, observation: observationId });
+    const shown = (await ctx.as.coordinator.get(`${ctx.base}/alpha/calibrated?observation=${observationId}`)).body as CalibratedAlphaAnswer;
+    const res = await ctx.as.coordinator.post(`${ctx.base}/alpha/adopt-calibrated`).send({ p: 1e-4, observation: observationId });
     expect(res.status, res.text).toBe(200);
-    const alpha = (await as.coordinator.get(`${base}/alpha`)).body;
+    const alpha = (await ctx.as.coordinator.get(`${ctx.base}/alpha`)).body;
     expect(alpha.isDefault).toBe(false);
     expect(alpha.table).toEqual(shown.table);
-    const audit = (await as.coordinator.get(`${base}/audit?entity=alpha`)).body as {
+    const audit = (await ctx.as.coordinator.get(`${ctx.base}/audit?entity=alpha`)).body as {
       after: { table: unknown; calibration: { cells: Record<string, unknown>[][] } & Record<string, unknown> };
       before: { isDefault: boolean };
     }[];
@@ -197,8 +189,8 @@ describe('POST alpha/adopt-calibrated', () => {
   });
 
   it('refuses with 409 when no bin has data', async () => {
-    const other = `/api/projects/${t.demo.secondProjectId}`;
-    const res = await as.coordinator.post(`${other}/alpha/adopt-calibrated`).send({});
+    const other = `/api/projects/${ctx.t.demo.secondProjectId}`;
+    const res = await ctx.as.coordinator.post(`${other}/alpha/adopt-calibrated`).send({});
     expect(res.status).toBe(409);
     expect(res.text).toMatch(/no bin/);
   });

@@ -10,27 +10,19 @@ import ICAL from 'ical.js';
 import Papa from 'papaparse';
 import request from 'supertest';
 import { count, eq, isNull, like } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { queueDigests } from '../../server/services/digests';
 import { dataset, datasetChunk, outbox, worksite } from '../../server/db/schema';
 import { safeFileName } from '../../server/services/dataset-import';
 import { csvField } from '../../shared/csv-field';
 import { MAX_COLUMNS, MAX_LINE_CHARS, binaryMark } from '../../shared/seadata';
 import { toCsv } from '../../src/lib/csv';
-import { createTestApp, signInAll, type Agent, type TestApp } from '../support/app';
+import { type Agent, useSignedInApp } from '../support/app';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
 // The fake forecast service issues every 6 h; this is just after the 06:00 issue.
 const NOW = new Date('2026-12-01T06:20:00Z');
 
-beforeAll(async () => {
-  t = await createTestApp({ clock: () => NOW });
-  as = await signInAll(t.app);
-});
-afterAll(async () => {
-  await t.close();
-});
+const ctx = useSignedInApp({ clock: () => NOW });
 
 /**
  * Strings that break naive code: SQL injection (OWASP SQL Injection Prevention Cheat Sheet),
@@ -62,7 +54,9 @@ const CALM_CSV = (start: number, hours: number) =>
 const SMALL_CSV = CALM_CSV(Date.UTC(2026, 0, 1), 3);
 
 async function tableNames(): Promise<string[]> {
-  const res = (await t.deps.db.execute("select tablename from pg_tables where schemaname = 'public' order by tablename")) as unknown as {
+  const res = (await ctx.t.deps.db.execute(
+    "select tablename from pg_tables where schemaname = 'public' order by tablename",
+  )) as unknown as {
     rows: { tablename: string }[];
   };
   return res.rows.map((r) => r.tablename);
@@ -70,7 +64,7 @@ async function tableNames(): Promise<string[]> {
 
 /** Dataset rows, chunk rows and chunk rows without their dataset. */
 async function storeCounts() {
-  const db = t.deps.db;
+  const db = ctx.t.deps.db;
   const [datasets] = await db.select({ n: count() }).from(dataset);
   const [chunks] = await db.select({ n: count() }).from(datasetChunk);
   const [orphans] = await db
@@ -145,14 +139,14 @@ function asText(req: request.Test) {
 }
 
 async function health(): Promise<void> {
-  const res = await request(t.app).get('/api/health');
+  const res = await request(ctx.t.app).get('/api/health');
   expect(res.status).toBe(200);
 }
 
 /** Runs `refused` and checks: the given status, the JSON error shape, nothing stored, the server answering. */
 async function expectRefusedStoringNothing(refused: () => Promise<request.Response>, status: number) {
   const before = await storeCounts();
-  const listBefore = (await as.coordinator.get(`/api/projects/${t.demo.projectId}/datasets`)).body;
+  const listBefore = (await ctx.as.coordinator.get(`/api/projects/${ctx.t.demo.projectId}/datasets`)).body;
   const res = await refused();
   expect(res.status, res.text.slice(0, 500)).toBe(status);
   expect(res.type).toBe('application/json');
@@ -160,7 +154,7 @@ async function expectRefusedStoringNothing(refused: () => Promise<request.Respon
   expect(typeof res.body.error.code).toBe('string');
   expect(typeof res.body.error.message).toBe('string');
   expect(await storeCounts()).toEqual({ ...before, orphans: 0 });
-  expect((await as.coordinator.get(`/api/projects/${t.demo.projectId}/datasets`)).body).toEqual(listBefore);
+  expect((await ctx.as.coordinator.get(`/api/projects/${ctx.t.demo.projectId}/datasets`)).body).toEqual(listBefore);
   await health();
   return res;
 }
@@ -175,10 +169,10 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
     expect(tablesBefore).toContain('worksite');
 
     for (const s of HOSTILE) {
-      const created = await as.coordinator.post('/api/projects').send({ name: s, description: MULTILINE });
+      const created = await ctx.as.coordinator.post('/api/projects').send({ name: s, description: MULTILINE });
       expect(created.status, created.text).toBe(201);
       projectId ??= created.body.id;
-      const read = await as.coordinator.get(`/api/projects/${created.body.id}`);
+      const read = await ctx.as.coordinator.get(`/api/projects/${created.body.id}`);
       expect(jsonString(read, (b: { name: string }) => b.name)).toBe(s);
       expect(read.body.description).toBe(MULTILINE);
     }
@@ -192,23 +186,23 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       dataPointDepthM: null,
       forecastSource: 'uploads',
     };
-    const put = await as.coordinator.put(`/api/projects/${projectId}/settings`).send(settings);
+    const put = await ctx.as.coordinator.put(`/api/projects/${projectId}/settings`).send(settings);
     expect(put.status, put.text).toBe(200);
     expect(put.body).toMatchObject({ name: HOSTILE[1], description: MULTILINE, dataPointName: HOSTILE[0] });
 
     for (const s of HOSTILE) {
-      const site = await as.coordinator.post(`/api/projects/${projectId}/sites`).send({ name: s, depth: 12, timeZone: 'UTC' });
+      const site = await ctx.as.coordinator.post(`/api/projects/${projectId}/sites`).send({ name: s, depth: 12, timeZone: 'UTC' });
       expect(site.status, site.text).toBe(201);
       siteIds.push(site.body.id);
-      const read = await as.coordinator.get(`/api/projects/${projectId}/sites/${site.body.id}`);
+      const read = await ctx.as.coordinator.get(`/api/projects/${projectId}/sites/${site.body.id}`);
       expect(jsonString(read, (b: { name: string }) => b.name)).toBe(s);
       // And in the table itself (read with a bound parameter, never spliced into SQL).
-      const [row] = await t.deps.db.select({ name: worksite.name }).from(worksite).where(eq(worksite.id, site.body.id));
+      const [row] = await ctx.t.deps.db.select({ name: worksite.name }).from(worksite).where(eq(worksite.id, site.body.id));
       expect(Buffer.from(row.name, 'utf8').equals(Buffer.from(s, 'utf8'))).toBe(true);
     }
 
     for (const [i, s] of HOSTILE.entries()) {
-      const op = await as.coordinator.post(`/api/projects/${projectId}/operations`).send({
+      const op = await ctx.as.coordinator.post(`/api/projects/${projectId}/operations`).send({
         name: s,
         description: MULTILINE,
         tpop: 6,
@@ -219,50 +213,50 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       });
       expect(op.status, op.text).toBe(201);
       operationIds.push(op.body.id);
-      const read = await as.coordinator.get(`/api/projects/${projectId}/operations/${op.body.id}`);
+      const read = await ctx.as.coordinator.get(`/api/projects/${projectId}/operations/${op.body.id}`);
       expect(jsonString(read, (b: { name: string }) => b.name)).toBe(s);
       expect(read.body.description).toBe(MULTILINE);
 
-      const campaign = await as.coordinator
+      const campaign = await ctx.as.coordinator
         .post(`/api/projects/${projectId}/campaigns`)
         .send({ name: s, steps: [{ operationId: op.body.id, siteId: siteIds[i] }] });
       expect(campaign.status, campaign.text).toBe(201);
-      const readCampaign = await as.coordinator.get(`/api/projects/${projectId}/campaigns/${campaign.body.id}`);
+      const readCampaign = await ctx.as.coordinator.get(`/api/projects/${projectId}/campaigns/${campaign.body.id}`);
       expect(jsonString(readCampaign, (b: { name: string }) => b.name)).toBe(s);
 
-      const data = await upload(as.coordinator, projectId, SMALL_CSV, 'small.csv', { name: s });
+      const data = await upload(ctx.as.coordinator, projectId, SMALL_CSV, 'small.csv', { name: s });
       expect(data.status, data.text).toBe(201);
-      const readData = await as.coordinator.get(`/api/projects/${projectId}/datasets/${data.body.id}`);
+      const readData = await ctx.as.coordinator.get(`/api/projects/${projectId}/datasets/${data.body.id}`);
       expect(jsonString(readData, (b: { name: string }) => b.name)).toBe(s);
       // The download's file name is built from the dataset name: only safe characters reach the header.
-      const csv = await as.coordinator.get(`/api/projects/${projectId}/datasets/${data.body.id}/csv`);
+      const csv = await ctx.as.coordinator.get(`/api/projects/${projectId}/datasets/${data.body.id}/csv`);
       expect(csv.headers['content-disposition']).toMatch(/^attachment; filename="[A-Za-z0-9._-]+\.csv"$/);
 
       const email = `hostile-${i}@example.com`;
-      const created = await as.admin.post('/api/admin/users').send({ name: s, email });
+      const created = await ctx.as.admin.post('/api/admin/users').send({ name: s, email });
       expect(created.status, created.text).toBe(201);
-      const users = await as.admin.get('/api/admin/users');
+      const users = await ctx.as.admin.get('/api/admin/users');
       expect(jsonString(users, (b: { email: string; name: string }[]) => b.find((u) => u.email === email)?.name)).toBe(s);
     }
 
     // The audit trail keeps the names too (text and jsonb columns).
-    const audit = await as.coordinator.get(`/api/projects/${projectId}/audit?limit=200`);
+    const audit = await ctx.as.coordinator.get(`/api/projects/${projectId}/audit?limit=200`);
     expect(audit.status, audit.text).toBe(200);
     const names = (audit.body as { entityName: string }[]).map((e) => e.entityName);
     for (const s of HOSTILE) expect(names).toContain(s);
 
     // No statement ran: every table is still there, and the worksites are all stored.
     expect(await tableNames()).toEqual(tablesBefore);
-    const list = await as.coordinator.get(`/api/projects/${projectId}/sites`);
+    const list = await ctx.as.coordinator.get(`/api/projects/${projectId}/sites`);
     expect((list.body as { name: string }[]).map((s) => s.name)).toEqual(expect.arrayContaining(HOSTILE));
   });
 
   it('carries them through a setup export and import into another project unchanged', async () => {
-    const doc = (await as.coordinator.get(`/api/projects/${projectId}/export`)).body;
-    const target = await as.coordinator.post('/api/projects').send({ name: 'Setup import target' });
-    const imported = await as.coordinator.post(`/api/projects/${target.body.id}/import?mode=merge`).send(doc);
+    const doc = (await ctx.as.coordinator.get(`/api/projects/${projectId}/export`)).body;
+    const target = await ctx.as.coordinator.post('/api/projects').send({ name: 'Setup import target' });
+    const imported = await ctx.as.coordinator.post(`/api/projects/${target.body.id}/import?mode=merge`).send(doc);
     expect(imported.status, imported.text).toBe(200);
-    const again = (await as.coordinator.get(`/api/projects/${target.body.id}/export`)).body;
+    const again = (await ctx.as.coordinator.get(`/api/projects/${target.body.id}/export`)).body;
     const names = (d: {
       worksites: { name: string }[];
       operations: { name: string; description: string }[];
@@ -277,19 +271,19 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
   });
 
   it('keeps a ledger note byte for byte', async () => {
-    const obs = await upload(as.coordinator, projectId, CALM_CSV(Date.UTC(2026, 10, 29), 72), 'obs.csv', {
+    const obs = await upload(ctx.as.coordinator, projectId, CALM_CSV(Date.UTC(2026, 10, 29), 72), 'obs.csv', {
       kind: 'observation',
       name: 'Calm observation',
     });
     expect(obs.status, obs.text).toBe(201);
-    const proposed = await as.coordinator.post(`/api/projects/${projectId}/ledger/propose?from=2026-11-30&to=2026-11-30`);
+    const proposed = await ctx.as.coordinator.post(`/api/projects/${projectId}/ledger/propose?from=2026-11-30&to=2026-11-30`);
     expect(proposed.status, proposed.text).toBe(200);
-    const days = (await as.coordinator.get(`/api/projects/${projectId}/ledger?from=2026-11-30&to=2026-11-30`)).body as { id: string }[];
+    const days = (await ctx.as.coordinator.get(`/api/projects/${projectId}/ledger?from=2026-11-30&to=2026-11-30`)).body as { id: string }[];
     expect(days.length).toBeGreaterThan(0);
-    const confirmed = await as.coordinator.post(`/api/projects/${projectId}/ledger/${days[0].id}/confirm`).send({ note: MULTILINE });
+    const confirmed = await ctx.as.coordinator.post(`/api/projects/${projectId}/ledger/${days[0].id}/confirm`).send({ note: MULTILINE });
     expect(confirmed.status, confirmed.text).toBe(200);
     expect(jsonString(confirmed, (b: { note: string }) => b.note)).toBe(MULTILINE);
-    const listed = await as.coordinator.get(`/api/projects/${projectId}/ledger?from=2026-11-30&to=2026-11-30`);
+    const listed = await ctx.as.coordinator.get(`/api/projects/${projectId}/ledger?from=2026-11-30&to=2026-11-30`);
     expect((listed.body as { id: string; note: string }[]).find((d) => d.id === days[0].id)?.note).toBe(MULTILINE);
   });
 
@@ -297,13 +291,13 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
     const A = projectId;
     const site = siteIds[0];
     const cases: [string, () => Promise<request.Response>, string][] = [
-      ['project name', () => as.coordinator.post('/api/projects').send({ name: 'a\u0000b' }), 'name'],
-      ['project description', () => as.coordinator.post('/api/projects').send({ name: 'ok', description: 'x\u0000y' }), 'description'],
-      ['project name, lone surrogate', () => as.coordinator.post('/api/projects').send({ name: 'lone \ud800 half' }), 'name'],
+      ['project name', () => ctx.as.coordinator.post('/api/projects').send({ name: 'a\u0000b' }), 'name'],
+      ['project description', () => ctx.as.coordinator.post('/api/projects').send({ name: 'ok', description: 'x\u0000y' }), 'description'],
+      ['project name, lone surrogate', () => ctx.as.coordinator.post('/api/projects').send({ name: 'lone \ud800 half' }), 'name'],
       [
         'data point name',
         () =>
-          as.coordinator.put(`/api/projects/${A}/settings`).send({
+          ctx.as.coordinator.put(`/api/projects/${A}/settings`).send({
             name: 'ok',
             description: '',
             dataPointName: 'bell\u0007',
@@ -316,14 +310,14 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       ],
       [
         'worksite name',
-        () => as.coordinator.post(`/api/projects/${A}/sites`).send({ name: 'nul\u0000', depth: 10, timeZone: 'UTC' }),
+        () => ctx.as.coordinator.post(`/api/projects/${A}/sites`).send({ name: 'nul\u0000', depth: 10, timeZone: 'UTC' }),
         'name',
       ],
-      ['worksite rename', () => as.coordinator.patch(`/api/projects/${A}/sites/${site}`).send({ name: '\udc00' }), 'name'],
+      ['worksite rename', () => ctx.as.coordinator.patch(`/api/projects/${A}/sites/${site}`).send({ name: '\udc00' }), 'name'],
       [
         'operation description',
         () =>
-          as.coordinator
+          ctx.as.coordinator
             .post(`/api/projects/${A}/operations`)
             .send({ name: 'ok op', description: 'esc \u001b[31m', tpop: 6, tc: 0, weatherRestricted: false, limits: { hsMax: 2 } }),
         'description',
@@ -331,16 +325,16 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       [
         'campaign name',
         () =>
-          as.coordinator
+          ctx.as.coordinator
             .post(`/api/projects/${A}/campaigns`)
             .send({ name: 'c\u0000', steps: [{ operationId: operationIds[0], siteId: site }] }),
         'name',
       ],
-      ['user name', () => as.admin.post('/api/admin/users').send({ name: 'u\u0000', email: 'nul@example.com' }), 'name'],
+      ['user name', () => ctx.as.admin.post('/api/admin/users').send({ name: 'u\u0000', email: 'nul@example.com' }), 'name'],
       [
         'subscription time zone',
         () =>
-          as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
+          ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
             operationIds: [],
             siteIds: [],
             immediate: true,
@@ -354,7 +348,7 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       [
         'subscription digest time',
         () =>
-          as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
+          ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
             operationIds: ["'; DROP TABLE operation;--"],
             siteIds: [],
             immediate: true,
@@ -368,18 +362,18 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       [
         'recurrence rule',
         () =>
-          as.coordinator
+          ctx.as.coordinator
             .put(`/api/projects/${A}/operations/${operationIds[0]}/recurrence`)
             .send({ start: '2027-01-01T06:00', timeZone: 'UTC', rule: 'FREQ=DAILY;X=1\nDTSTART:x' }),
         'rule',
       ],
     ];
-    const doc = (await as.coordinator.get(`/api/projects/${A}/export`)).body;
+    const doc = (await ctx.as.coordinator.get(`/api/projects/${A}/export`)).body;
     cases.push(
       [
         'setup campaign name',
         () =>
-          as.coordinator
+          ctx.as.coordinator
             .post(`/api/projects/${A}/import?mode=merge`)
             .send({ ...doc, worksites: [], operations: [], campaigns: [{ ...doc.campaigns[0], name: 'n\u0000' }] }),
         'campaigns.0.name',
@@ -387,7 +381,7 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       [
         'setup campaign time zone',
         () =>
-          as.coordinator
+          ctx.as.coordinator
             .post(`/api/projects/${A}/import?mode=merge`)
             .send({ ...doc, worksites: [], operations: [], campaigns: [{ ...doc.campaigns[0], timeZone: "UTC'--" }] }),
         'campaigns.0.timeZone',
@@ -405,7 +399,7 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
     }
     // Ids and mapping names are looked up, never stored as given: hostile ones are refused too.
     for (const skipperIds of [['x\u0000'], ["'); DROP TABLE operation;--"], ['\ud800']]) {
-      const res = await as.coordinator
+      const res = await ctx.as.coordinator
         .post(`/api/projects/${A}/operations`)
         .send({ name: 'Skipper probe', tpop: 6, tc: 0, weatherRestricted: false, limits: { hsMax: 2 }, skipperIds });
       expect([400, 409], `${JSON.stringify(skipperIds)}: ${res.text}`).toContain(res.status);
@@ -417,17 +411,17 @@ describe('free text with SQL, markup and unusual Unicode is stored as text', () 
       ['delete', `/api/admin/users/a%00b/projects/${A}`],
       ['patch', "/api/admin/users/x'%3B%20DROP%20TABLE%20%22user%22%3B--"],
     ] as const) {
-      const res = await as.admin[method](url).send(method === 'put' ? { role: 'client' } : { active: false });
+      const res = await ctx.as.admin[method](url).send(method === 'put' ? { role: 'client' } : { active: false });
       expect(res.status, `${method} ${url}: ${res.text}`).toBe(404);
     }
-    const mapping = await upload(as.coordinator, A, SMALL_CSV, 'small.csv', {
+    const mapping = await upload(ctx.as.coordinator, A, SMALL_CSV, 'small.csv', {
       columns: JSON.stringify({ time: 'time\u0000', hs: "hs'); DROP TABLE dataset;--" }),
       missingCodes: JSON.stringify(['\u0000', '<b>']),
     });
     expect(mapping.status, mapping.text).toBe(400);
     expect(mapping.body.error.code).toBe('bad_file');
     expect(mapping.body.error.details[0].value).toBe("time\u2400, hs'); DROP TABLE dataset;--");
-    const nul = await upload(as.coordinator, A, SMALL_CSV, 'small.csv', { name: 'data\u0000set' });
+    const nul = await upload(ctx.as.coordinator, A, SMALL_CSV, 'small.csv', { name: 'data\u0000set' });
     expect(nul.status, nul.text).toBe(400);
     expect(nul.body.error.details[0].field).toBe('name');
     expect(await tableNames()).toEqual(tablesBefore);
@@ -440,28 +434,29 @@ describe('places that render names outside React', () => {
   beforeAll(async () => {
     // Hostile names on everything the skipper hears about: the project, the skipper's operations
     // and every worksite.
-    const A = t.demo.projectId;
-    const project = (await as.coordinator.get(`/api/projects/${A}`)).body;
-    const renamed = await as.coordinator
+    const A = ctx.t.demo.projectId;
+    const project = (await ctx.as.coordinator.get(`/api/projects/${A}`)).body;
+    const renamed = await ctx.as.coordinator
       .put(`/api/projects/${A}/settings`)
       .send({ ...project, name: `${HOSTILE[1]} & co`, description: project.description ?? '' });
     expect(renamed.status, renamed.text).toBe(200);
-    const ops = (await as.coordinator.get(`/api/projects/${A}/operations`)).body as {
+    const ops = (await ctx.as.coordinator.get(`/api/projects/${A}/operations`)).body as {
       id: string;
       name: string;
       siteIds: string[];
       skipperIds: string[];
     }[];
-    skipperOps = ops.filter((o) => o.skipperIds.includes(t.demo.users.skipper));
+    skipperOps = ops.filter((o) => o.skipperIds.includes(ctx.t.demo.users.skipper));
     expect(skipperOps.length).toBeGreaterThan(0);
     for (const [i, op] of skipperOps.entries()) {
       const name = `<script>alert(${i})</script> " onmouseover="x ${i}`;
-      expect((await as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ name })).status).toBe(200);
+      expect((await ctx.as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ name })).status).toBe(200);
       op.name = name;
     }
-    for (const [i, id] of Object.values(t.demo.siteIds).entries()) {
+    for (const [i, id] of Object.values(ctx.t.demo.siteIds).entries()) {
       expect(
-        (await as.coordinator.patch(`/api/projects/${A}/sites/${id}`).send({ name: `</p><img src=x onerror=alert(${i})> ${i}` })).status,
+        (await ctx.as.coordinator.patch(`/api/projects/${A}/sites/${id}`).send({ name: `</p><img src=x onerror=alert(${i})> ${i}` }))
+          .status,
       ).toBe(200);
     }
   });
@@ -475,9 +470,9 @@ describe('places that render names outside React', () => {
   }
 
   it('escapes names in alert e-mails (OWASP XSS Prevention: HTML-encode untrusted text)', async () => {
-    const res = await as.admin.post('/api/admin/jobs/plan').send({ projectId: t.demo.projectId });
+    const res = await ctx.as.admin.post('/api/admin/jobs/plan').send({ projectId: ctx.t.demo.projectId });
     expect(res.status, res.text).toBe(200);
-    const mails = t.mailer.fake!.messages;
+    const mails = ctx.t.mailer.fake!.messages;
     expect(mails.length).toBeGreaterThan(0);
     for (const m of mails) {
       expectEscapedHtml(m.html);
@@ -489,7 +484,7 @@ describe('places that render names outside React', () => {
   });
 
   it('escapes names in the daily digest', async () => {
-    const sub = await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
+    const sub = await ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
       operationIds: [],
       siteIds: [],
       immediate: true,
@@ -499,8 +494,8 @@ describe('places that render names outside React', () => {
       active: true,
     });
     expect(sub.status, sub.text).toBe(200);
-    expect(await queueDigests(t.deps)).toBeGreaterThan(0);
-    const digests = await t.deps.db.select().from(outbox).where(like(outbox.idempotencyKey, 'digest:%'));
+    expect(await queueDigests(ctx.t.deps)).toBeGreaterThan(0);
+    const digests = await ctx.t.deps.db.select().from(outbox).where(like(outbox.idempotencyKey, 'digest:%'));
     expect(digests.length).toBeGreaterThan(0);
     for (const d of digests) {
       expectEscapedHtml(d.html);
@@ -509,7 +504,7 @@ describe('places that render names outside React', () => {
   });
 
   it('never reflects the unsubscribe link parameters into its HTML page', async () => {
-    const res = await request(t.app)
+    const res = await request(ctx.t.app)
       .get('/api/unsubscribe')
       .query({ u: '<script>alert(1)</script>', p: '"><svg onload=alert(1)>', sig: '<b>x</b>' });
     expect(res.status).toBe(400);
@@ -520,20 +515,20 @@ describe('places that render names outside React', () => {
 
   it('escapes RFC 5545 text specials in the .ics export and the calendar feed', async () => {
     // An operation that is always workable, so the forecast gives it windows.
-    const A = t.demo.projectId;
+    const A = ctx.t.demo.projectId;
     const name = 'Calm; a,b\\c "q" <b>x</b> 🌊';
-    const siteId = t.demo.siteIds.route;
-    const op = await as.coordinator
+    const siteId = ctx.t.demo.siteIds.route;
+    const op = await ctx.as.coordinator
       .post(`/api/projects/${A}/operations`)
       .send({ name, tpop: 1, tc: 1, weatherRestricted: true, limits: { hsMax: 20 }, siteIds: [siteId] });
     expect(op.status, op.text).toBe(201);
-    const siteName = (await as.coordinator.get(`/api/projects/${A}/sites/${siteId}`)).body.name as string;
+    const siteName = (await ctx.as.coordinator.get(`/api/projects/${A}/sites/${siteId}`)).body.name as string;
 
     const summaries = (ics: string) => {
       const events = new ICAL.Component(ICAL.parse(ics)).getAllSubcomponents('vevent');
       return events.map((e) => String(e.getFirstPropertyValue('summary')));
     };
-    const ics = await asText(as.skipper.get(`/api/projects/${A}/plan/windows.ics`).query({ operationId: op.body.id, siteId }));
+    const ics = await asText(ctx.as.skipper.get(`/api/projects/${A}/plan/windows.ics`).query({ operationId: op.body.id, siteId }));
     expect(ics.status, ics.body).toBe(200);
     expect(ics.headers['content-disposition']).toMatch(/^attachment; filename="[A-Za-z0-9._-]+-windows\.ics"$/);
     const list = summaries(ics.body);
@@ -543,29 +538,29 @@ describe('places that render names outside React', () => {
     const unfolded = (ics.body as string).replace(/\r\n[ \t]/g, '');
     expect(unfolded).toContain('SUMMARY:Window: Calm\\; a\\,b\\\\c "q" <b>x</b> 🌊');
 
-    const feed = await as.skipper.post('/api/me/calendar');
+    const feed = await ctx.as.skipper.post('/api/me/calendar');
     expect(feed.status).toBe(201);
-    const body = await asText(request(t.app).get(new URL(feed.body.url).pathname));
+    const body = await asText(request(ctx.t.app).get(new URL(feed.body.url).pathname));
     expect(body.status).toBe(200);
     expect(summaries(body.body)).toContain(`Window: ${name} at ${siteName}`);
   });
 
   it('neutralises spreadsheet formulas in the server CSV (OWASP "CSV Injection")', async () => {
-    const A = t.demo.projectId;
-    const hindcast = await upload(as.coordinator, A, CALM_CSV(Date.UTC(2025, 0, 1), 24 * 10), 'hindcast.csv', {
+    const A = ctx.t.demo.projectId;
+    const hindcast = await upload(ctx.as.coordinator, A, CALM_CSV(Date.UTC(2025, 0, 1), 24 * 10), 'hindcast.csv', {
       name: '=cmd|"/C calc"!A0',
     });
     expect(hindcast.status, hindcast.text).toBe(201);
     const formulas = ['=HYPERLINK("http://x.invalid","y")', '@SUM(1+1)', "-2+3+cmd|' /C calc'!A0", '+1+1'];
-    const site = await as.coordinator.post(`/api/projects/${A}/sites`).send({ name: '@SUM(A1:A9)', depth: 20, timeZone: 'UTC' });
+    const site = await ctx.as.coordinator.post(`/api/projects/${A}/sites`).send({ name: '@SUM(A1:A9)', depth: 20, timeZone: 'UTC' });
     expect(site.status, site.text).toBe(201);
     for (const name of formulas) {
-      const op = await as.coordinator
+      const op = await ctx.as.coordinator
         .post(`/api/projects/${A}/operations`)
         .send({ name, tpop: 2, tc: 0, weatherRestricted: false, limits: { hsMax: 1 }, siteIds: [site.body.id] });
       expect(op.status, op.text).toBe(201);
     }
-    const res = await as.client.get(`/api/projects/${A}/workability.csv`).query({ dataset: hindcast.body.id });
+    const res = await ctx.as.client.get(`/api/projects/${A}/workability.csv`).query({ dataset: hindcast.body.id });
     expect(res.status, res.text.slice(0, 300)).toBe(200);
     const rows = Papa.parse<string[]>(res.text.trim(), { delimiter: ',' }).data;
     for (const row of rows) for (const cell of row) expect(isSafeCell(cell), cell).toBe(true);
@@ -603,7 +598,7 @@ describe('CSV fields written by the browser and the server (shared/csv-field.ts)
 describe('oversize bodies', () => {
   it('answers a JSON body over 1 MB with 413 in the JSON error shape, and keeps answering', async () => {
     const body = JSON.stringify({ name: 'x', description: 'y'.repeat(1_100_000) });
-    const res = await as.coordinator.post('/api/projects').set('content-type', 'application/json').send(body);
+    const res = await ctx.as.coordinator.post('/api/projects').set('content-type', 'application/json').send(body);
     expect(res.status).toBe(413);
     expect(res.type).toBe('application/json');
     expect(res.body).toEqual({ error: { code: 'too_large', message: expect.any(String), details: null } });
@@ -612,10 +607,10 @@ describe('oversize bodies', () => {
 
   it('answers deeply nested JSON and a __proto__ key without harm', async () => {
     const deep = `{"name":${'['.repeat(200_000)}${']'.repeat(200_000)}}`;
-    const res = await as.coordinator.post('/api/projects').set('content-type', 'application/json').send(deep);
+    const res = await ctx.as.coordinator.post('/api/projects').set('content-type', 'application/json').send(deep);
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('validation');
-    const proto = await as.coordinator
+    const proto = await ctx.as.coordinator
       .post('/api/projects')
       .set('content-type', 'application/json')
       .send('{"name":"Proto","__proto__":{"polluted":true},"constructor":{"prototype":{"polluted":true}}}');
@@ -628,8 +623,8 @@ describe('oversize bodies', () => {
     const big = Buffer.alloc(100 * 1024 * 1024 + 10, 0x31);
     const res = await expectRefusedStoringNothing(
       () =>
-        as.coordinator
-          .post(`/api/projects/${t.demo.projectId}/datasets`)
+        ctx.as.coordinator
+          .post(`/api/projects/${ctx.t.demo.projectId}/datasets`)
           .field('name', 'Huge')
           .field('kind', 'hindcast')
           .field('dataPointDepth', 'deep')
@@ -642,7 +637,7 @@ describe('oversize bodies', () => {
 
   it('answers a form field over 64 kB with 413, and a malformed multipart body with 400', async () => {
     const long = await expectRefusedStoringNothing(
-      () => upload(as.coordinator, t.demo.projectId, SMALL_CSV, 'a.csv', { units: 'x'.repeat(70 * 1024) }),
+      () => upload(ctx.as.coordinator, ctx.t.demo.projectId, SMALL_CSV, 'a.csv', { units: 'x'.repeat(70 * 1024) }),
       413,
     );
     expect(long.body.error.message).toMatch(/units is longer than the limit of 64 kB/);
@@ -652,8 +647,8 @@ describe('oversize bodies', () => {
     ]);
     const truncated = await expectRefusedStoringNothing(
       () =>
-        as.coordinator
-          .post(`/api/projects/${t.demo.projectId}/datasets`)
+        ctx.as.coordinator
+          .post(`/api/projects/${ctx.t.demo.projectId}/datasets`)
           .set('content-type', cut.type)
           .send(cut.body.subarray(0, cut.body.length - 40)),
       400,
@@ -661,7 +656,10 @@ describe('oversize bodies', () => {
     expect(truncated.body.error.message).toMatch(/multipart/);
     const noBoundary = await expectRefusedStoringNothing(
       () =>
-        as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).set('content-type', 'multipart/form-data').send('--x\r\n\r\n'),
+        ctx.as.coordinator
+          .post(`/api/projects/${ctx.t.demo.projectId}/datasets`)
+          .set('content-type', 'multipart/form-data')
+          .send('--x\r\n\r\n'),
       400,
     );
     expect(noBoundary.body.error.code).toBe('validation');
@@ -673,14 +671,15 @@ describe('oversize bodies', () => {
       { name: 'file', value: SMALL_CSV, filename: 'b.csv' },
     ]);
     await expectRefusedStoringNothing(
-      () => as.coordinator.post(`/api/projects/${t.demo.projectId}/datasets`).set('content-type', twoFiles.type).send(twoFiles.body),
+      () =>
+        ctx.as.coordinator.post(`/api/projects/${ctx.t.demo.projectId}/datasets`).set('content-type', twoFiles.type).send(twoFiles.body),
       400,
     );
   });
 });
 
 describe('hostile uploads', () => {
-  const A = () => t.demo.projectId;
+  const A = () => ctx.t.demo.projectId;
   let uploadsBefore: Set<string>;
 
   beforeAll(() => {
@@ -700,7 +699,7 @@ describe('hostile uploads', () => {
       ['nul.csv', Buffer.from(SMALL_CSV.replace('0.5', '0\u00005'))],
     ];
     for (const [name, content] of files) {
-      const res = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), content, name), 400);
+      const res = await expectRefusedStoringNothing(() => upload(ctx.as.coordinator, A(), content, name), 400);
       expect(res.body.error.code, name).toBe('bad_file');
       expect(res.body.error.message, name).toMatch(
         /not a text file: it holds binary data \(control character U\+00[0-1][0-9A-F] at line \d+, column \d+\)/,
@@ -708,17 +707,17 @@ describe('hostile uploads', () => {
       expect(res.body.error.details[0]).toMatchObject({ line: expect.any(Number), column: expect.stringMatching(/^\d+$/) });
     }
     // The NUL of nul.csv sits on line 2 (the first data row), 27th character.
-    const nul = await upload(as.coordinator, A(), Buffer.from(SMALL_CSV.replace('0.5', '0\u00005')), 'nul.csv');
+    const nul = await upload(ctx.as.coordinator, A(), Buffer.from(SMALL_CSV.replace('0.5', '0\u00005')), 'nul.csv');
     expect(nul.body.error.details[0]).toMatchObject({ line: 2, column: '27' });
   });
 
   it('reads text by its content, not its name: markup is refused as a bad file, listed as text', async () => {
     const svg = '<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"><script>alert(2)</script></svg>\n';
-    const res = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), svg, 'picture.svg'), 400);
+    const res = await expectRefusedStoringNothing(() => upload(ctx.as.coordinator, A(), svg, 'picture.svg'), 400);
     expect(res.body.error.code).toBe('bad_file');
     expect(typeof res.body.error.details[0].value).toBe('string');
     const html = await expectRefusedStoringNothing(
-      () => upload(as.coordinator, A(), '<html><body onload=alert(1)>time,hs</body></html>\n', 'page.html'),
+      () => upload(ctx.as.coordinator, A(), '<html><body onload=alert(1)>time,hs</body></html>\n', 'page.html'),
       400,
     );
     expect(html.body.error.code).toBe('bad_file');
@@ -738,19 +737,19 @@ describe('hostile uploads', () => {
       [`${'🌊'.repeat(250)}.csv`, '🌊'.repeat(200)],
     ];
     for (const [sent, kept, encoded] of names) {
-      const res = await upload(as.coordinator, A(), SMALL_CSV, sent, { name: `Path trick ${kept.slice(0, 20)}` }, encoded);
+      const res = await upload(ctx.as.coordinator, A(), SMALL_CSV, sent, { name: `Path trick ${kept.slice(0, 20)}` }, encoded);
       expect(res.status, `${sent}: ${res.text}`).toBe(201);
-      const detail = await as.coordinator.get(`/api/projects/${A()}/datasets/${res.body.id}`);
+      const detail = await ctx.as.coordinator.get(`/api/projects/${A()}/datasets/${res.body.id}`);
       expect(detail.body.source.fileName, sent).toBe(kept);
       expect(detail.body.importReport.originalFileName, sent).toBe(kept);
       expect(detail.body.name).toBe(`Path trick ${kept.slice(0, 20)}`);
     }
     // Raw control characters in the part header are malformed multipart: refused, nothing stored.
-    const raw = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), SMALL_CSV, 'bell\u0007.csv'), 400);
+    const raw = await expectRefusedStoringNothing(() => upload(ctx.as.coordinator, A(), SMALL_CSV, 'bell\u0007.csv'), 400);
     expect(raw.body.error.message).toMatch(/multipart/);
     // A bare '..' leaves no name at all: multer's parser then reads the part as a plain field, and
     // the upload is refused for its missing file.
-    const dots = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), SMALL_CSV, '..'), 400);
+    const dots = await expectRefusedStoringNothing(() => upload(ctx.as.coordinator, A(), SMALL_CSV, '..'), 400);
     expect(dots.body.error.details[0].field).toBe('file');
     // Nothing was written under the names sent: multer stores uploads under random names in its
     // own folder, and each is removed once read.
@@ -775,11 +774,11 @@ describe('hostile uploads', () => {
   });
 
   it('refuses a header of two million delimiters at line 1, and one of 20,000 columns at the column past the limit', async () => {
-    const wide = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), ','.repeat(2_000_000), 'wide.csv'), 400);
+    const wide = await expectRefusedStoringNothing(() => upload(ctx.as.coordinator, A(), ','.repeat(2_000_000), 'wide.csv'), 400);
     expect(wide.body.error.details[0]).toMatchObject({ line: 1, column: String(MAX_LINE_CHARS + 1) });
     expect(wide.body.error.message).toMatch(/line 1, column 1048577: a row longer than 1 MiB/);
     const columns = await expectRefusedStoringNothing(
-      () => upload(as.coordinator, A(), `time,hs${',x'.repeat(20_000)}\n2026-01-01T00:00Z,1\n`, 'columns.csv'),
+      () => upload(ctx.as.coordinator, A(), `time,hs${',x'.repeat(20_000)}\n2026-01-01T00:00Z,1\n`, 'columns.csv'),
       400,
     );
     expect(columns.body.error.details[0]).toMatchObject({ line: 1, column: String(MAX_COLUMNS + 1) });
@@ -788,31 +787,31 @@ describe('hostile uploads', () => {
 
   it('refuses a CSV or NDBC line over 1 MB, and 1 MB of blanks, naming line and column', async () => {
     const csv = await expectRefusedStoringNothing(
-      () => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n${'9'.repeat(1_200_000)}\n`, 'long.csv'),
+      () => upload(ctx.as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n${'9'.repeat(1_200_000)}\n`, 'long.csv'),
       400,
     );
     expect(csv.body.error.details[0]).toMatchObject({ line: 3, column: String(MAX_LINE_CHARS + 1) });
     // A quote left open is a bad row at its own line (issue 22), not a swallowed rest of the file.
     const quote = await expectRefusedStoringNothing(
-      () => upload(as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n2026-01-01T01:00Z,"1\n${'2\n'.repeat(600_000)}`, 'quote.csv'),
+      () => upload(ctx.as.coordinator, A(), `time,hs\n2026-01-01T00:00Z,1\n2026-01-01T01:00Z,"1\n${'2\n'.repeat(600_000)}`, 'quote.csv'),
       400,
     );
     expect(quote.body.error.details[0]).toMatchObject({ line: 3, column: '19' });
     expect(quote.body.error.message).toMatch(/quote opened here is not closed on its line/);
     const header = '#YY  MM DD hh mm WDIR WSPD GST  WVHT   DPD   APD MWD   PRES  ATMP  WTMP  DEWP  VIS  TIDE\n';
     const ndbc = await expectRefusedStoringNothing(
-      () => upload(as.coordinator, A(), `${header}${'1 '.repeat(3_000_000)}`, '46026h2016.txt'),
+      () => upload(ctx.as.coordinator, A(), `${header}${'1 '.repeat(3_000_000)}`, '46026h2016.txt'),
       400,
     );
     expect(ndbc.body.error.details[0]).toMatchObject({ line: 2, column: String(MAX_LINE_CHARS + 1) });
     // Before the header scan became a plain loop, this held the server for hours.
-    const blanks = await expectRefusedStoringNothing(() => upload(as.coordinator, A(), ' '.repeat(2_000_000), 'blank.csv'), 400);
+    const blanks = await expectRefusedStoringNothing(() => upload(ctx.as.coordinator, A(), ' '.repeat(2_000_000), 'blank.csv'), 400);
     expect(blanks.body.error.details[0].line).toBe(1);
   });
 
   it('stores nothing on a refusal streamed as NDJSON either', async () => {
     const before = await storeCounts();
-    const res = await upload(as.coordinator, A(), `time,hs\n${'1'.repeat(1_200_000)}\n`, 'stream.csv').set(
+    const res = await upload(ctx.as.coordinator, A(), `time,hs\n${'1'.repeat(1_200_000)}\n`, 'stream.csv').set(
       'accept',
       'application/x-ndjson',
     );
@@ -826,10 +825,10 @@ describe('hostile uploads', () => {
     // The binary check reads the first 64 kB; past it, a NUL reaches the CSV reader as a value.
     const rows = CALM_CSV(Date.UTC(2026, 1, 1), 3000).split('\n');
     rows[2500] = rows[2500].replace('0.5', '0\u0000\u0007🌊');
-    const res = await upload(as.coordinator, A(), rows.join('\n'), 'late-nul.csv', { onBadRows: 'skip', name: 'Late NUL' });
+    const res = await upload(ctx.as.coordinator, A(), rows.join('\n'), 'late-nul.csv', { onBadRows: 'skip', name: 'Late NUL' });
     expect(res.status, res.text).toBe(201);
     expect(res.body.skipped).toBe(1);
-    const detail = await as.coordinator.get(`/api/projects/${A()}/datasets/${res.body.id}`);
+    const detail = await ctx.as.coordinator.get(`/api/projects/${A()}/datasets/${res.body.id}`);
     expect(detail.body.importReport.issues[0]).toMatchObject({ line: 2501, column: 'hs', value: '0\u2400\u2407🌊' });
   });
 

@@ -1,14 +1,12 @@
 // The alert and digest e-mails as they arrive: read from the local SMTP fake (smtp-server and
 // mailparser, the real delivery path), not from the functions that write them. Names a user typed
 // must reach the HTML part as text, escaped, and the plain-text part as typed.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { queueDigests } from '../../server/services/digests';
 import { deliverDueMail } from '../../server/services/outbox';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { useSignedInApp } from '../support/app';
 import type { CaughtMessage } from '../../server/mail/fake-smtp';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
 // Just after the fake forecast service's 06:00 issue.
 let now = new Date('2026-12-01T06:20:00Z');
 
@@ -57,32 +55,28 @@ function expectEscaped(m: CaughtMessage, typed: string[]) {
   expect(m.text).toContain(`Stop these e-mails: ${decode(href!)}`);
 }
 
+const ctx = useSignedInApp({ clock: () => now });
 beforeAll(async () => {
-  t = await createTestApp({ clock: () => now });
-  as = await signInAll(t.app);
-  const A = t.demo.projectId;
-  const project = (await as.coordinator.get(`/api/projects/${A}`)).body;
+  const A = ctx.t.demo.projectId;
+  const project = (await ctx.as.coordinator.get(`/api/projects/${A}`)).body;
   expect(
     (
-      await as.coordinator
+      await ctx.as.coordinator
         .put(`/api/projects/${A}/settings`)
         .send({ ...project, name: PROJECT_NAME, description: project.description ?? '' })
     ).status,
   ).toBe(200);
-  const ops = (await as.coordinator.get(`/api/projects/${A}/operations`)).body as { id: string; skipperIds: string[] }[];
-  for (const [i, op] of ops.filter((o) => o.skipperIds.includes(t.demo.users.skipper)).entries()) {
-    expect((await as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ name: OP_NAME(i) })).status).toBe(200);
+  const ops = (await ctx.as.coordinator.get(`/api/projects/${A}/operations`)).body as { id: string; skipperIds: string[] }[];
+  for (const [i, op] of ops.filter((o) => o.skipperIds.includes(ctx.t.demo.users.skipper)).entries()) {
+    expect((await ctx.as.coordinator.patch(`/api/projects/${A}/operations/${op.id}`).send({ name: OP_NAME(i) })).status).toBe(200);
   }
-});
-afterAll(async () => {
-  await t.close();
 });
 
 describe('e-mails read back from the SMTP fake', () => {
   it('alert e-mails carry the names as escaped text in HTML and as typed in plain text', async () => {
-    const res = await as.admin.post('/api/admin/jobs/plan').send({ projectId: t.demo.projectId });
+    const res = await ctx.as.admin.post('/api/admin/jobs/plan').send({ projectId: ctx.t.demo.projectId });
     expect(res.status, res.text).toBe(200);
-    const mails = t.mailer.fake!.messages;
+    const mails = ctx.t.mailer.fake!.messages;
     expect(mails.length).toBeGreaterThan(0);
     for (const m of mails) {
       const op = /^.*?: (.*? lift \d+) at /.exec(m.subject)?.[1];
@@ -94,7 +88,7 @@ describe('e-mails read back from the SMTP fake', () => {
   });
 
   it('the daily digest does the same', async () => {
-    const sub = await as.skipper.put(`/api/projects/${t.demo.projectId}/subscription`).send({
+    const sub = await ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
       operationIds: [],
       siteIds: [],
       immediate: true,
@@ -105,10 +99,10 @@ describe('e-mails read back from the SMTP fake', () => {
     });
     expect(sub.status, sub.text).toBe(200);
     now = new Date('2026-12-01T07:00:00Z');
-    const before = t.mailer.fake!.messages.length;
-    expect(await queueDigests(t.deps)).toBe(1);
-    await deliverDueMail(t.deps.db, t.deps.mailer, now, { maxAttempts: 3, log: t.deps.log, links: t.deps.config });
-    const [digest] = t.mailer.fake!.messages.slice(before);
+    const before = ctx.t.mailer.fake!.messages.length;
+    expect(await queueDigests(ctx.t.deps)).toBe(1);
+    await deliverDueMail(ctx.t.deps.db, ctx.t.deps.mailer, now, { maxAttempts: 3, log: ctx.t.deps.log, links: ctx.t.deps.config });
+    const [digest] = ctx.t.mailer.fake!.messages.slice(before);
     expect(digest.subject).toBe(`${PROJECT_NAME}: windows for Tue 1 Dec`); // 1 December 2026 is a Tuesday (GNU date)
     expectEscaped(digest, [`${PROJECT_NAME}, daily summary`, OP_NAME(0)]);
   });

@@ -6,33 +6,22 @@ import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { MAX_NETCDF_UPLOAD_BYTES } from '../../server/services/dataset-import';
 import { readSeries } from '../../server/services/series-store';
 import { EXTRA_COLUMNS } from '../../shared/seadata';
 import { DEMO_PASSWORD } from '../../seed/scenario';
-import { createTestApp, signInAll, TEST_ORIGIN, type TestApp } from '../support/app';
+import { TEST_ORIGIN, useSignedInApp } from '../support/app';
 
 const DIR = path.resolve(import.meta.dirname, '../fixtures/netcdf');
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
+const ctx = useSignedInApp({}, { path: '/datasets' });
 
-beforeAll(async () => {
-  t = await createTestApp();
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}/datasets`;
-});
-afterAll(async () => {
-  await t.close();
-});
-
-const count = async () => (await as.coordinator.get(base)).body.length as number;
+const count = async () => (await ctx.as.coordinator.get(ctx.base)).body.length as number;
 
 /** Imports a fixture (or bytes, with a file name) as the coordinator: deep data point, the given form fields. */
 function importFile(file: string | Buffer, fields: Record<string, string>, fileName?: string) {
-  let req = as.coordinator.post(base).field('dataPointDepth', 'deep');
+  let req = ctx.as.coordinator.post(ctx.base).field('dataPointDepth', 'deep');
   for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
   return typeof file === 'string' ? req.attach('file', path.join(DIR, file)) : req.attach('file', file, fileName);
 }
@@ -63,7 +52,7 @@ function csvColumn(name: string, key: string): (number | null)[] {
 describe('NetCDF import route', () => {
   it('lists the grid points and the nearest sea point to the demo data point, storing nothing', async () => {
     const before = await count();
-    const res = await as.coordinator.post(`${base}/netcdf-points`).attach('file', path.join(DIR, 'grid-3x3.nc'));
+    const res = await ctx.as.coordinator.post(`${ctx.base}/netcdf-points`).attach('file', path.join(DIR, 'grid-3x3.nc'));
     expect(res.status, res.text).toBe(200);
     expect(res.body.points).toHaveLength(9);
     expect(res.body.nearest).toEqual([1, 1]);
@@ -79,12 +68,12 @@ describe('NetCDF import route', () => {
     expect(res.status, res.text).toBe(201);
     expect(res.body.records).toBe(48);
     expect(res.body.netcdf.point).toMatchObject({ index: [1, 1], lat: 50, lon: -6.5, distanceKm: 36.86, chosen: 'nearest' });
-    const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
+    const recs = await ctx.as.coordinator.get(`${ctx.base}/${res.body.id}/records`);
     const want = csvColumn('grid-3x3-j1-i1.csv', 'hs');
     recs.body.hs.forEach((h: number, i: number) => expect(Math.abs(h - want[i]!)).toBeLessThan(1e-6));
     const wind = csvColumn('grid-3x3-j1-i1.csv', 'wind');
     recs.body.wind.forEach((w: number, i: number) => expect(Math.abs(w - wind[i]!)).toBeLessThan(1e-5));
-    const detail = await as.coordinator.get(`${base}/${res.body.id}`);
+    const detail = await ctx.as.coordinator.get(`${ctx.base}/${res.body.id}`);
     expect(JSON.stringify(detail.body)).toMatch(/36\.86 km from the data point/);
   });
 
@@ -92,7 +81,7 @@ describe('NetCDF import route', () => {
     const res = await importFile('grid-3x3.nc', { name: 'Grid, west point', kind: 'hindcast', gridPoint: '2,0' });
     expect(res.status, res.text).toBe(201);
     expect(res.body.netcdf.point).toMatchObject({ index: [2, 0], lat: 50.5, lon: -7, chosen: 'given' });
-    const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
+    const recs = await ctx.as.coordinator.get(`${ctx.base}/${res.body.id}/records`);
     const want = csvColumn('grid-3x3-j2-i0.csv', 'tp');
     recs.body.tp.forEach((x: number, i: number) => expect(Math.abs(x - want[i]!)).toBeLessThan(1e-5));
     const bad = await importFile('grid-3x3.nc', { name: 'x', kind: 'hindcast', gridPoint: '3,0' });
@@ -122,9 +111,9 @@ describe('NetCDF import route', () => {
     expect(res.body.netcdf.notStored).toEqual([]);
     expect(res.body.netcdf.depthM).toBe(42);
     // Water level: the script's level above mean sea level plus the stated 2.1 m to chart datum.
-    const stored = await readSeries(t.deps.db, res.body.id);
+    const stored = await readSeries(ctx.t.deps.db, res.body.id);
     expectColumn(stored.extra.waterLevel!, csvColumn('point-partitions-water-level.csv', 'level_above_msl'), 2.1);
-    const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
+    const recs = await ctx.as.coordinator.get(`${ctx.base}/${res.body.id}/records`);
     const want = csvColumn('point-partitions.csv', 'hs');
     recs.body.hs.forEach((h: number | null, i: number) =>
       want[i] === null ? expect(h).toBeNull() : expect(Math.abs(h! - want[i]!)).toBeLessThan(1e-6),
@@ -137,11 +126,11 @@ describe('NetCDF import route', () => {
     // make_fixtures.py point_in_groups(): three partitions with Hs, Tp and direction, water level, current.
     expect(res.body.netcdf.extraStored).toEqual([...EXTRA_COLUMNS].sort());
     expect(res.body.variables).toEqual(expect.arrayContaining(['windSea.hs', 'swell2.dir', 'waterLevel', 'currentSpeed', 'currentDir']));
-    const detail = await as.coordinator.get(`${base}/${res.body.id}`);
+    const detail = await ctx.as.coordinator.get(`${ctx.base}/${res.body.id}`);
     expect(JSON.stringify(detail.body.importReport.notes)).toMatch(
       /stored beside the total sea state: currentDir \(deg\), currentSpeed \(m\/s\)/,
     );
-    const s = await readSeries(t.deps.db, res.body.id);
+    const s = await readSeries(ctx.t.deps.db, res.body.id);
     const csv = 'point-groups.csv';
     expectColumn(s.hs, csvColumn(csv, 'hs'));
     for (const p of ['windSea', 'swell1', 'swell2']) {
@@ -163,7 +152,7 @@ describe('NetCDF import route', () => {
     // The demo data point (50.041 N, 5.988 W) is nearest to (50.0 N, 6.0 W), index [0, 1] (script's grid).
     expect(res.body.netcdf.point).toMatchObject({ index: [0, 1], lat: 50, lon: -6, chosen: 'nearest' });
     expect(res.body.netcdf.extraStored).toEqual(['currentDir', 'currentSpeed']);
-    const s = await readSeries(t.deps.db, res.body.id);
+    const s = await readSeries(ctx.t.deps.db, res.body.id);
     const csv = 'grid-group-j0-i1.csv';
     expectColumn(s.hs, csvColumn(csv, 'hs'));
     expectColumn(s.extra.currentSpeed!, csvColumn(csv, 'currentSpeed'));
@@ -173,7 +162,7 @@ describe('NetCDF import route', () => {
   it('a NetCDF forecast becomes the latest forecast, issued at its forecast_reference_time', async () => {
     const res = await importFile('forecast.nc', { name: 'Model run 2026-12-01 00Z', kind: 'forecast' });
     expect(res.status, res.text).toBe(201);
-    const list = (await as.coordinator.get(base)).body as { id: string; kind: string; source: { issuedAt: string | null } }[];
+    const list = (await ctx.as.coordinator.get(ctx.base)).body as { id: string; kind: string; source: { issuedAt: string | null } }[];
     const mine = list.find((d) => d.id === res.body.id)!;
     expect(mine.source.issuedAt).toBe('2026-12-01T00:00:00.000Z');
     const forecasts = list
@@ -214,7 +203,7 @@ describe('NetCDF import route', () => {
       });
       // Another request while the upload is being read: answered before the upload is refused.
       await new Promise((r) => setTimeout(r, 200));
-      const other = await as.coordinator.get(base);
+      const other = await ctx.as.coordinator.get(ctx.base);
       const otherAt = performance.now();
       expect(other.status).toBe(200);
       const res = await upload;
@@ -235,7 +224,7 @@ describe('NetCDF import route', () => {
     ] as const) {
       const res = await importFile(file, { name: file, kind: 'hindcast' });
       expect(res.status, res.text).toBe(201);
-      const recs = await as.coordinator.get(`${base}/${res.body.id}/records`);
+      const recs = await ctx.as.coordinator.get(`${ctx.base}/${res.body.id}/records`);
       const want = csvColumn(csv, key);
       recs.body[key].forEach((x: number | null, i: number) =>
         want[i] === null ? expect(x).toBeNull() : expect(Math.abs(x! - want[i]!)).toBeLessThan(1e-5),
@@ -247,10 +236,10 @@ describe('NetCDF import route', () => {
 describe('NetCDF upload limits', () => {
   /** Sends only the start of a body that declares `declared` bytes; resolves with the answer. */
   async function declareHuge(declared: number, first: Buffer): Promise<{ status: number; body: string; sent: number }> {
-    const server = http.createServer(t.app);
+    const server = http.createServer(ctx.t.app);
     await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
     try {
-      const signIn = await request(t.app)
+      const signIn = await request(ctx.t.app)
         .post('/api/auth/sign-in/email')
         .set('Origin', TEST_ORIGIN)
         .send({ email: 'coordinator@example.com', password: DEMO_PASSWORD });
@@ -265,7 +254,7 @@ describe('NetCDF upload limits', () => {
           host: '127.0.0.1',
           port: (server.address() as AddressInfo).port,
           method: 'POST',
-          path: `${base}`,
+          path: `${ctx.base}`,
           headers: {
             'content-type': `multipart/form-data; boundary=${boundary}`,
             'content-length': String(declared),

@@ -1,34 +1,27 @@
 // GET /api/projects/:projectId/overview: the Overview's answer against the routes it is composed
 // from (the plan, the ledger and its monthly expectation, the outbox), for each role. What each
 // role must get is the issue's list (issue 17, "Overview = today's picture, per role").
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { OverviewAnswer } from '../../shared/api-types-overview';
 import type { PlanAnswer } from '../../shared/api-types-plan';
 import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
 import { outbox } from '../../server/db/schema';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { useSignedInApp } from '../support/app';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
 // A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC; the ledger needs finished days,
 // so the second half of the tests moves the clock on (the earlier issues cover those days).
 let now = new Date('2026-12-01T07:30:00Z');
 const HOUR = 3_600_000;
 
-beforeAll(async () => {
-  t = await createTestApp({ hindcastYears: 3, forecast: true, pastForecastDays: 3, clock: () => now });
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}`;
-}, 120_000);
-afterAll(async () => {
-  await t.close();
-});
+const ctx = useSignedInApp({ hindcastYears: 3, forecast: true, pastForecastDays: 3, clock: () => now }, { timeoutMs: 120_000 });
 
 describe('the project Overview', () => {
   it('gives one line per operation and worksite with the plan’s own go-start', async () => {
-    const [res, planRes] = await Promise.all([as.coordinator.get(`${base}/overview`), as.coordinator.get(`${base}/plan?alpha=true`)]);
+    const [res, planRes] = await Promise.all([
+      ctx.as.coordinator.get(`${ctx.base}/overview`),
+      ctx.as.coordinator.get(`${ctx.base}/plan?alpha=true`),
+    ]);
     expect(res.status, res.text).toBe(200);
     const o = res.body as OverviewAnswer;
     const plan = planRes.body as PlanAnswer;
@@ -70,52 +63,52 @@ describe('the project Overview', () => {
   });
 
   it('gives each role its own parts', async () => {
-    const skipper = (await as.skipper.get(`${base}/overview`)).body as OverviewAnswer;
+    const skipper = (await ctx.as.skipper.get(`${ctx.base}/overview`)).body as OverviewAnswer;
     expect(skipper.coordinator).toBeNull();
     expect(skipper.month).toBeNull();
-    const me = (await as.skipper.get('/api/me')).body as { id: string };
-    const plan = (await as.skipper.get(`${base}/plan?alpha=true`)).body as PlanAnswer;
+    const me = (await ctx.as.skipper.get('/api/me')).body as { id: string };
+    const plan = (await ctx.as.skipper.get(`${ctx.base}/plan?alpha=true`)).body as PlanAnswer;
     for (const l of skipper.lines)
       expect(l.mine).toBe(plan.plans.find((p) => p.operationId === l.operationId && p.siteId === l.siteId)!.skipperIds.includes(me.id));
     expect(skipper.lines.some((l) => l.mine)).toBe(true);
 
-    const client = (await as.client.get(`${base}/overview`)).body as OverviewAnswer;
+    const client = (await ctx.as.client.get(`${ctx.base}/overview`)).body as OverviewAnswer;
     expect(client.coordinator).toBeNull();
     expect(client.month?.rows.length).toBe(plan.plans.length);
 
-    const coordinator = (await as.coordinator.get(`${base}/overview`)).body as OverviewAnswer;
+    const coordinator = (await ctx.as.coordinator.get(`${ctx.base}/overview`)).body as OverviewAnswer;
     expect(coordinator.coordinator).toMatchObject({ ledgerDaysWaiting: 0, oldestWaitingDay: null, failedEmails: 0 });
   });
 
   it('counts the ledger days waiting and the failed e-mails for the coordinator', async () => {
     now = new Date('2026-12-03T10:00:00Z');
-    const proposed = await as.coordinator.post(`${base}/ledger/propose?from=2026-11-30&to=2026-12-02`);
+    const proposed = await ctx.as.coordinator.post(`${ctx.base}/ledger/propose?from=2026-11-30&to=2026-12-02`);
     expect(proposed.status, proposed.text).toBe(200);
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-11-30&to=2026-12-02`)).body as LedgerEntry[];
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-11-30&to=2026-12-02`)).body as LedgerEntry[];
     expect(rows.length).toBeGreaterThan(0);
     // A failed alert e-mail, as the delivery leaves one after its last attempt.
-    await t.database.db.insert(outbox).values({
+    await ctx.t.database.db.insert(outbox).values({
       idempotencyKey: 'overview-test-failed',
-      projectId: t.demo.projectId,
+      projectId: ctx.t.demo.projectId,
       toEmail: 'nobody@example.com',
       subject: 'Test',
       text: 'Test',
       html: '<p>Test</p>',
       status: 'failed',
     });
-    const o = (await as.coordinator.get(`${base}/overview`)).body as OverviewAnswer;
+    const o = (await ctx.as.coordinator.get(`${ctx.base}/overview`)).body as OverviewAnswer;
     expect(o.coordinator?.ledgerDaysWaiting).toBe(rows.filter((r) => r.status === 'proposed').length);
     expect(o.coordinator?.oldestWaitingDay).toBe(rows.map((r) => r.day).sort()[0]);
     expect(o.coordinator?.failedEmails).toBe(1);
-    await t.database.db.delete(outbox).where(eq(outbox.idempotencyKey, 'overview-test-failed'));
+    await ctx.t.database.db.delete(outbox).where(eq(outbox.idempotencyKey, 'overview-test-failed'));
   });
 
   it('gives the client this month’s confirmed downtime with the ledger’s own expectation', async () => {
-    const rows = (await as.coordinator.get(`${base}/ledger?from=2026-12-01&to=2026-12-02`)).body as LedgerEntry[];
+    const rows = (await ctx.as.coordinator.get(`${ctx.base}/ledger?from=2026-12-01&to=2026-12-02`)).body as LedgerEntry[];
     const day = rows.find((r) => r.status === 'proposed')!;
-    expect((await as.coordinator.post(`${base}/ledger/${day.id}/confirm`).send({})).status).toBe(200);
-    const o = (await as.client.get(`${base}/overview`)).body as OverviewAnswer;
-    const monthly = (await as.client.get(`${base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
+    expect((await ctx.as.coordinator.post(`${ctx.base}/ledger/${day.id}/confirm`).send({})).status).toBe(200);
+    const o = (await ctx.as.client.get(`${ctx.base}/overview`)).body as OverviewAnswer;
+    const monthly = (await ctx.as.client.get(`${ctx.base}/ledger/monthly?from=2026-12-01&to=2026-12-31`)).body as LedgerMonthlyAnswer;
     const want = monthly.rows.find((r) => r.operationId === day.operationId && r.siteId === day.siteId)!;
     const got = o.month!.rows.find((r) => r.operationId === day.operationId && r.siteId === day.siteId)!;
     expect(got.month).toBe('2026-12');
@@ -129,7 +122,7 @@ describe('the project Overview', () => {
   });
 
   it('refuses a bad query with the field named', async () => {
-    const res = await as.client.get(`${base}/overview?alpha=maybe`);
+    const res = await ctx.as.client.get(`${ctx.base}/overview?alpha=maybe`);
     expect(res.status).toBe(400);
     expect(JSON.stringify(res.body.error.details)).toContain('alpha');
   });

@@ -3,22 +3,11 @@
 // limit on the swell alone. Worksite values are checked against a hand calculation: deep-water
 // source to 15 m, shoaling only, Ks = sqrt(Cg0/Cg_site) from an independent bisection solver
 // (tests/waves/reference-dispersion.ts); total = sqrt(sum Hs_i^2) (common practice, no source).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { describe, expect, it } from 'vitest';
+import { useSignedInApp } from '../support/app';
 import { refCg } from '../waves/reference-dispersion';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
-
-beforeAll(async () => {
-  t = await createTestApp();
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}`;
-});
-afterAll(async () => {
-  await t.close();
-});
+const ctx = useSignedInApp();
 
 const ks = (tp: number, d: number) => Math.sqrt((9.81 * tp) / (4 * Math.PI) / refCg(tp, d, 9.81));
 
@@ -31,15 +20,15 @@ describe('a partitioned CSV through import, plan and the chain behind an hour', 
       '2026-12-01T02:00Z,1.4,14,260,8,0.8,5,240,1.15,14,260',
       '2026-12-01T03:00Z,1.4,14,260,8,0.8,5,240,-999,14,260', // swell missing
     ].join('\n');
-    const imp = await as.coordinator
-      .post(`${base}/datasets`)
+    const imp = await ctx.as.coordinator
+      .post(`${ctx.base}/datasets`)
       .field('name', 'Partitioned forecast')
       .field('kind', 'forecast')
       .field('dataPointDepth', 'deep')
       .attach('file', Buffer.from(csv), 'partitions.csv');
     expect(imp.status, imp.text).toBe(201);
     expect(imp.body.variables).toEqual(expect.arrayContaining(['windSea.hs', 'swell1.hs', 'swell1.tp']));
-    const detail = await as.coordinator.get(`${base}/datasets/${imp.body.id}`);
+    const detail = await ctx.as.coordinator.get(`${ctx.base}/datasets/${imp.body.id}`);
     expect(detail.body.importReport.partitions).toEqual({
       came: ['windSea', 'swell1'],
       flagged: 1,
@@ -47,9 +36,9 @@ describe('a partitioned CSV through import, plan and the chain behind an hour', 
       totalsFromPartitions: 1,
     });
 
-    const site = await as.coordinator.post(`${base}/sites`).send({ name: 'Partition test site', depth: 15, timeZone: 'UTC' });
+    const site = await ctx.as.coordinator.post(`${ctx.base}/sites`).send({ name: 'Partition test site', depth: 15, timeZone: 'UTC' });
     expect(site.status, site.text).toBe(201);
-    const op = await as.coordinator.post(`${base}/operations`).send({
+    const op = await ctx.as.coordinator.post(`${ctx.base}/operations`).send({
       name: 'Swell-limited lift',
       tpop: 6,
       tc: 0,
@@ -60,8 +49,8 @@ describe('a partitioned CSV through import, plan and the chain behind an hour', 
     expect(op.status, op.text).toBe(201);
 
     const chainAt = async (time: string) => {
-      const res = await as.client
-        .get(`${base}/plan/chain`)
+      const res = await ctx.as.client
+        .get(`${ctx.base}/plan/chain`)
         .query({ dataset: imp.body.id, operationId: op.body.id, siteId: site.body.id, time, alpha: 'false' });
       expect(res.status, res.text).toBe(200);
       return res.body;

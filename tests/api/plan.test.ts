@@ -1,28 +1,18 @@
 import request from 'supertest';
 import ICAL from 'ical.js';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { describe, expect, it } from 'vitest';
+import { useSignedInApp, textBody } from '../support/app';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
-let base: string;
 // A fixed clock in a winter month, so the invented forecast has passing weather systems.
 const NOW = new Date('2026-12-01T07:30:00Z');
 
-beforeAll(async () => {
-  t = await createTestApp({ clock: () => NOW, forecast: true });
-  as = await signInAll(t.app);
-  base = `/api/projects/${t.demo.projectId}`;
-});
-afterAll(async () => {
-  await t.close();
-});
+const ctx = useSignedInApp({ clock: () => NOW, forecast: true });
 
 const HOUR = 3_600_000;
 
 describe('the forecast plan', () => {
   it('answers per operation and worksite with statuses, windows and go-starts', async () => {
-    const res = await as.skipper.get(`${base}/plan`);
+    const res = await ctx.as.skipper.get(`${ctx.base}/plan`);
     expect(res.status, res.text).toBe(200);
     expect(res.body.dataset.kind).toBe('forecast');
     // Every operation at each of its worksites: seed/scenario-sites.ts gives 2 + 1 + 2 + 1 + 2 + 1 pairs.
@@ -68,25 +58,27 @@ describe('the forecast plan', () => {
   });
 
   it('reuses a plan within the clock minute but never across a limit change', async () => {
-    const before = (await as.coordinator.get(`${base}/plan`)).body;
+    const before = (await ctx.as.coordinator.get(`${ctx.base}/plan`)).body;
     const p = before.plans.find((x: { status: string[] }) => x.status.includes('workable'));
     expect(p, 'some operation has workable hours in the invented forecast').toBeDefined();
     // A limit no sea meets (Hs at most 0.1 m, the smallest allowed) makes every hour with data not workable at once.
-    const op = (await as.coordinator.get(`${base}/operations/${p.operationId}`)).body;
-    const changed = await as.coordinator.patch(`${base}/operations/${p.operationId}`).send({ limits: { ...op.limits, hsMax: 0.1 } });
+    const op = (await ctx.as.coordinator.get(`${ctx.base}/operations/${p.operationId}`)).body;
+    const changed = await ctx.as.coordinator
+      .patch(`${ctx.base}/operations/${p.operationId}`)
+      .send({ limits: { ...op.limits, hsMax: 0.1 } });
     expect(changed.status, changed.text).toBe(200);
-    const after = (await as.coordinator.get(`${base}/plan`)).body;
+    const after = (await ctx.as.coordinator.get(`${ctx.base}/plan`)).body;
     const q = after.plans.find((x: { operationId: string; siteId: string }) => x.operationId === p.operationId && x.siteId === p.siteId);
     expect(q.status).not.toContain('workable');
     expect(q.windows).toHaveLength(0);
-    const restored = await as.coordinator.patch(`${base}/operations/${p.operationId}`).send({ limits: op.limits });
+    const restored = await ctx.as.coordinator.patch(`${ctx.base}/operations/${p.operationId}`).send({ limits: op.limits });
     expect(restored.status, restored.text).toBe(200);
-    expect((await as.coordinator.get(`${base}/plan`)).body.plans).toEqual(before.plans);
+    expect((await ctx.as.coordinator.get(`${ctx.base}/plan`)).body.plans).toEqual(before.plans);
   });
 
   it('plans on OPLIM with alpha=false: never fewer workable hours', async () => {
-    const withAlpha = (await as.coordinator.get(`${base}/plan`)).body;
-    const without = (await as.coordinator.get(`${base}/plan?alpha=false`)).body;
+    const withAlpha = (await ctx.as.coordinator.get(`${ctx.base}/plan`)).body;
+    const without = (await ctx.as.coordinator.get(`${ctx.base}/plan?alpha=false`)).body;
     for (let k = 0; k < withAlpha.plans.length; k++) {
       const a = withAlpha.plans[k].status.filter((s: string) => s === 'workable').length;
       const b = without.plans[k].status.filter((s: string) => s === 'workable').length;
@@ -96,10 +88,10 @@ describe('the forecast plan', () => {
   });
 
   it('explains an hour: data point → Ks, Kr → worksite → each limit', async () => {
-    const plan = (await as.client.get(`${base}/plan`)).body;
+    const plan = (await ctx.as.client.get(`${ctx.base}/plan`)).body;
     const p = plan.plans[0];
     const hour = p.times[5];
-    const res = await as.client.get(`${base}/plan/chain`).query({ operationId: p.operationId, siteId: p.siteId, time: hour });
+    const res = await ctx.as.client.get(`${ctx.base}/plan/chain`).query({ operationId: p.operationId, siteId: p.siteId, time: hour });
     expect(res.status, res.text).toBe(200);
     expect(res.body.time).toBe(hour);
     expect(res.body.status).toBe(p.status[5]);
@@ -113,18 +105,14 @@ describe('the forecast plan', () => {
   });
 
   it('exports the usable windows as iCalendar that a general-purpose parser reads', async () => {
-    const plan = (await as.coordinator.get(`${base}/plan?alpha=false`)).body;
+    const plan = (await ctx.as.coordinator.get(`${ctx.base}/plan?alpha=false`)).body;
     const withWindows = plan.plans.find((p: { windows: unknown[] }) => p.windows.length > 0);
     expect(withWindows, 'the invented forecast should open at least one window').toBeTruthy();
-    const res = await as.coordinator
-      .get(`${base}/plan/windows.ics`)
+    const res = await ctx.as.coordinator
+      .get(`${ctx.base}/plan/windows.ics`)
       .query({ operationId: withWindows.operationId, siteId: withWindows.siteId, alpha: 'false' })
       .buffer(true)
-      .parse((r, cb) => {
-        let s = '';
-        r.on('data', (c: Buffer) => (s += c));
-        r.on('end', () => cb(null, s));
-      });
+      .parse(textBody);
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/calendar/);
     // ical.js (an RFC 5545 parser from npm) reads it back.
@@ -136,17 +124,17 @@ describe('the forecast plan', () => {
   });
 
   it('draws worksite conditions with each operation’s limits', async () => {
-    const res = await as.client.get(`${base}/conditions/${t.demo.siteIds.route}`);
+    const res = await ctx.as.client.get(`${ctx.base}/conditions/${ctx.t.demo.siteIds.route}`);
     expect(res.status).toBe(200);
     expect(res.body.hs.length).toBe(res.body.times.length);
     expect(res.body.operations.map((o: { name: string }) => o.name)).toContain('Rock berm placement');
   });
 
   it('keeps the plan to members', async () => {
-    expect((await request(t.app).get(`${base}/plan`)).status).toBe(401);
-    const other = await as.client.get(`/api/projects/${t.demo.secondProjectId}/plan`);
+    expect((await request(ctx.t.app).get(`${ctx.base}/plan`)).status).toBe(401);
+    const other = await ctx.as.client.get(`/api/projects/${ctx.t.demo.secondProjectId}/plan`);
     expect(other.status).toBe(404);
-    expect((await as.client.get(`${base}/plan?dataset=nope`)).status).toBe(400);
-    expect((await as.client.get(`${base}/plan?dataset=00000000-0000-4000-8000-000000000000`)).status).toBe(404);
+    expect((await ctx.as.client.get(`${ctx.base}/plan?dataset=nope`)).status).toBe(400);
+    expect((await ctx.as.client.get(`${ctx.base}/plan?dataset=00000000-0000-4000-8000-000000000000`)).status).toBe(404);
   });
 });

@@ -18,6 +18,7 @@ import crypto from 'node:crypto';
 import request from 'supertest';
 import { asc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { NOTHING_CHOSEN } from '../../server/services/subscriptions';
 import { createTestApp, signInAll, type Agent, type TestApp } from '../support/app';
 import { listApiRoutes, type ApiRoute } from '../../server/routes/route-list';
 import { auditEntry, ledgerDay } from '../../server/db/schema';
@@ -191,15 +192,7 @@ async function calendarFile(): Promise<string> {
 const unsubscribeQuery = (p: Params) =>
   Object.fromEntries(new URL(unsubscribeUrl('http://x.invalid', t.deps.config.linkSecret, p.userId, p.projectId, Date.now())).searchParams);
 
-const subscriptionBody = {
-  operationIds: [],
-  siteIds: [],
-  immediate: false,
-  digest: false,
-  digestTime: '06:00',
-  digestTimeZone: 'UTC',
-  active: true,
-};
+const subscriptionBody = { ...NOTHING_CHOSEN, active: true };
 const recurrenceBody = { start: '2026-01-05T06:00', timeZone: 'UTC', rule: 'FREQ=WEEKLY;COUNT=4' };
 const ledgerRange = { from: '2026-01-01', to: '2026-01-02' };
 

@@ -15,7 +15,7 @@ import { HOUR_STATUS_ORDER, OCCURRENCE_STATUS_WORD, STATUS_WORDS, type StatusWor
 import type { PlanSummary } from '../../shared/alerts/compare-plans';
 import type { OccurrenceStatus } from '../../shared/api-types-plan';
 import { BoardLegend } from '../../src/features/board/components/board-legend';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { createTestApp, signInAll, type TestApp, textBody } from '../support/app';
 
 /** "X Not workable" back to its status, or undefined when the pair is not in the vocabulary. */
 function statusOfLabel(label: string): StatusWord | undefined {
@@ -116,14 +116,7 @@ describe('the calendar feed and the digest of a recurring operation', () => {
   it('the .ics names each occurrence with the letter and word of its status', async () => {
     const created = await as.skipper.post('/api/me/calendar').send({});
     expect(created.status).toBe(201);
-    const feed = await request(t.app)
-      .get(new URL(created.body.url).pathname)
-      .buffer(true)
-      .parse((r, cb) => {
-        let s = '';
-        r.on('data', (c: Buffer) => (s += c));
-        r.on('end', () => cb(null, s));
-      });
+    const feed = await request(t.app).get(new URL(created.body.url).pathname).buffer(true).parse(textBody);
     const events = new ICAL.Component(ICAL.parse(feed.body as string)).getAllSubcomponents('vevent').map((e) => new ICAL.Event(e));
     const occurrences = events.filter((e) => e.uid.startsWith(`occurrence-${ctvPlan.operationId}-`));
     expect(occurrences.length).toBe(ctvPlan.occurrences.length);

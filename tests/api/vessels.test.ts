@@ -2,33 +2,27 @@
 // trips, all-or-nothing import with line and column, fuzzed files, roles. Expected values come from
 // the tables written here and from docs/domain.md#vessel-response (R_s = Hs/2 for a heave RAO of 1).
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { readRaoCsv } from '../../shared/schemas/vessel';
-import { createTestApp, signInAll, type TestApp } from '../support/app';
+import { type SignedIn, useSignedInApp } from '../support/app';
 
-let t: TestApp;
-let as: Awaited<ReturnType<typeof signInAll>>;
 let A: string;
 let B: string;
 
+const ctx = useSignedInApp();
 beforeAll(async () => {
-  t = await createTestApp();
-  as = await signInAll(t.app);
-  A = t.demo.projectId;
-  B = t.demo.secondProjectId;
-});
-afterAll(async () => {
-  await t.close();
+  A = ctx.t.demo.projectId;
+  B = ctx.t.demo.secondProjectId;
 });
 
 let seq = 0;
 const newVessel = async (project = A) => {
-  const res = await as.coordinator.post(`/api/projects/${project}/vessels`).send({ name: `Test vessel ${++seq}` });
+  const res = await ctx.as.coordinator.post(`/api/projects/${project}/vessels`).send({ name: `Test vessel ${++seq}` });
   expect(res.status, res.text).toBe(201);
   return res.body.id as string;
 };
-const upload = (project: string, vesselId: string, csv: string, who: keyof typeof as = 'coordinator') =>
-  as[who].post(`/api/projects/${project}/vessels/${vesselId}/raos`).attach('file', Buffer.from(csv), 'raos.csv');
+const upload = (project: string, vesselId: string, csv: string, who: keyof SignedIn = 'coordinator') =>
+  ctx.as[who].post(`/api/projects/${project}/vessels/${vesselId}/raos`).attach('file', Buffer.from(csv), 'raos.csv');
 
 const HEAVE_ONE = ['period_s,heading_deg,heave_m_per_m', '4,0,1', '20,0,1', '4,180,1', '20,180,1'].join('\n');
 
@@ -51,13 +45,13 @@ describe('vessels and RAO import', () => {
       'roll_deg_per_m',
       'acc_z_m_s2_per_m@crane_tip',
     ]);
-    const read = await as.client.get(`/api/projects/${A}/vessels/${id}/raos`);
+    const read = await ctx.as.client.get(`/api/projects/${A}/vessels/${id}/raos`);
     expect(read.status).toBe(200);
     expect(read.body.responses[1].values).toEqual([
       [0, 0],
       [2, 6],
     ]);
-    const list = await as.skipper.get(`/api/projects/${A}/vessels`);
+    const list = await ctx.as.skipper.get(`/api/projects/${A}/vessels`);
     expect(list.body.find((v: { id: string }) => v.id === id).responses).toHaveLength(3);
   });
 
@@ -77,7 +71,7 @@ describe('vessels and RAO import', () => {
     expect(res.status).toBe(400);
     expect(res.body.error.details[0]).toMatchObject({ line, column });
     expect(res.body.error.details[0].message).toMatch(message);
-    const read = await as.coordinator.get(`/api/projects/${A}/vessels/${id}/raos`);
+    const read = await ctx.as.coordinator.get(`/api/projects/${A}/vessels/${id}/raos`);
     expect(read.body.responses).toEqual([]);
   });
 
@@ -105,16 +99,16 @@ describe('vessels and RAO import', () => {
 
   it('roles: skippers and clients cannot add vessels or import; another project answers 404', async () => {
     const id = await newVessel();
-    expect((await as.skipper.post(`/api/projects/${A}/vessels`).send({ name: 'No' })).status).toBe(403);
+    expect((await ctx.as.skipper.post(`/api/projects/${A}/vessels`).send({ name: 'No' })).status).toBe(403);
     expect((await upload(A, id, HEAVE_ONE, 'client')).status).toBe(403);
-    expect((await as.coordinator.get(`/api/projects/${B}/vessels/${id}/raos`)).status).toBe(404);
+    expect((await ctx.as.coordinator.get(`/api/projects/${B}/vessels/${id}/raos`)).status).toBe(404);
   });
 });
 
 describe('operations with response limits and the response calculator', () => {
   it('a response limit needs a vessel and a heading; with them it is stored and answered', async () => {
     const vesselId = await newVessel();
-    const sites = await as.coordinator.get(`/api/projects/${A}/sites`);
+    const sites = await ctx.as.coordinator.get(`/api/projects/${A}/sites`);
     const base = {
       name: `Response op ${++seq}`,
       tpop: 6,
@@ -123,23 +117,23 @@ describe('operations with response limits and the response calculator', () => {
       siteIds: [sites.body[0].id],
       limits: { responses: [{ response: 'roll_deg_per_m', statistic: 'mpm', max: 4 }] },
     };
-    const refused = await as.coordinator.post(`/api/projects/${A}/operations`).send(base);
+    const refused = await ctx.as.coordinator.post(`/api/projects/${A}/operations`).send(base);
     expect(refused.status).toBe(400);
     expect(JSON.stringify(refused.body.error.details)).toMatch(/need a vessel/);
-    const ok = await as.coordinator.post(`/api/projects/${A}/operations`).send({ ...base, vesselId, heading: 45 });
+    const ok = await ctx.as.coordinator.post(`/api/projects/${A}/operations`).send({ ...base, vesselId, heading: 45 });
     expect(ok.status, ok.text).toBe(201);
     expect(ok.body.vesselId).toBe(vesselId);
     expect(ok.body.heading).toBe(45);
     // The default duration of an mpm limit is 3 h (docs/domain.md#vessel-response).
     expect(ok.body.limits.responses).toEqual([{ response: 'roll_deg_per_m', statistic: 'mpm', durationH: 3, max: 4 }]);
-    const foreign = await as.coordinator.post(`/api/projects/${B}/operations`).send({ ...base, siteIds: [], vesselId, heading: 45 });
+    const foreign = await ctx.as.coordinator.post(`/api/projects/${B}/operations`).send({ ...base, siteIds: [], vesselId, heading: 45 });
     expect(foreign.status).toBe(400);
   });
 
   it('GET /api/wave/response: a heave RAO of 1 gives R_s = Hs/2 (docs/domain.md#vessel-response)', async () => {
     const id = await newVessel();
     expect((await upload(A, id, HEAVE_ONE)).status).toBe(200);
-    const res = await as.skipper.get('/api/wave/response').query({ vesselId: id, heading: 30, hs: 2.6, tp: 8, dir: 200 });
+    const res = await ctx.as.skipper.get('/api/wave/response').query({ vesselId: id, heading: 30, hs: 2.6, tp: 8, dir: 200 });
     expect(res.status, res.text).toBe(200);
     expect(res.body.responses[0].significant).toBeCloseTo(1.3, 10);
     expect(res.body.responses[0].spectrum).toHaveLength(res.body.omega.length);
@@ -147,11 +141,11 @@ describe('operations with response limits and the response calculator', () => {
       { kind: 'windSea', hs: 1.2, tp: 6, dir: 10 },
       { kind: 'swell', hs: 1.6, tp: 14, dir: 250 },
     ]);
-    const p = await as.skipper.get('/api/wave/response').query({ vesselId: id, heading: 0, partitions: parts });
+    const p = await ctx.as.skipper.get('/api/wave/response').query({ vesselId: id, heading: 0, partitions: parts });
     // Energies add: sqrt(1.2^2 + 1.6^2)/2 = 1.0 (by hand).
     expect(p.body.responses[0].significant).toBeCloseTo(1, 10);
     // The client is not a member of project B: its vessels are not found.
     const other = await newVessel(B);
-    expect((await as.client.get('/api/wave/response').query({ vesselId: other, heading: 0, hs: 1, tp: 8, dir: 0 })).status).toBe(404);
+    expect((await ctx.as.client.get('/api/wave/response').query({ vesselId: other, heading: 0, hs: 1, tp: 8, dir: 0 })).status).toBe(404);
   });
 });

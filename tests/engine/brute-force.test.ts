@@ -299,14 +299,19 @@ describe('monthlyStatistics against brute force', () => {
     });
   }
 
+  /** The engine's monthly statistics of a sample (UTC months) beside the brute force's. */
+  const engineAndBruteUtc = (s: Sample) => {
+    const times = Float64Array.from(s.times);
+    const status = Uint8Array.from(s.status);
+    const trH = s.trMin / 60;
+    const got = monthlyStatistics(times, status, goStarts(times, status, s.dtMs, trH), s.dtMs, calendarIndex(times, 'UTC'), trH);
+    return { got, want: bruteMonthly(s, utcKey) };
+  };
+
   it('hourly series with long runs (several windows a month)', () => {
     fc.assert(
       fc.property(sampleArb(HOUR, 1500, 20), (s) => {
-        const times = Float64Array.from(s.times);
-        const status = Uint8Array.from(s.status);
-        const trH = s.trMin / 60;
-        const got = monthlyStatistics(times, status, goStarts(times, status, s.dtMs, trH), s.dtMs, calendarIndex(times, 'UTC'), trH);
-        const want = bruteMonthly(s, utcKey);
+        const { got, want } = engineAndBruteUtc(s);
         got.months.forEach((m, i) => expectStatsClose(m, want.months[i]));
       }),
       { numRuns: 60 },
@@ -318,11 +323,7 @@ describe('monthlyStatistics against brute force', () => {
   it('hourly series on a grid of whole steps (gaps of whole steps only)', () => {
     fc.assert(
       fc.property(sampleArb(HOUR, 1500, 20, true), (s) => {
-        const times = Float64Array.from(s.times);
-        const status = Uint8Array.from(s.status);
-        const trH = s.trMin / 60;
-        const got = monthlyStatistics(times, status, goStarts(times, status, s.dtMs, trH), s.dtMs, calendarIndex(times, 'UTC'), trH);
-        const want = bruteMonthly(s, utcKey);
+        const { got, want } = engineAndBruteUtc(s);
         got.months.forEach((m, i) => expectStatsClose(m, want.months[i]));
         expect(got.yearMonths.map((y) => [y.year, y.month])).toEqual(want.yearMonths.map((y) => [y.year, y.month]));
         got.yearMonths.forEach((y, i) => expectStatsClose(y, want.yearMonths[i]));

@@ -49,3 +49,18 @@ export const operationArb = (tcChoices: number[]): fc.Arbitrary<OperationSpec> =
     weatherRestricted: fc.boolean(),
     limits: limitsArb,
   });
+
+/**
+ * Values near the limits' edges: the edges themselves, just either side of them (0.01 and 0.3
+ * off), anything from `lo` to `hi`, and now and then a missing value (NaN).
+ */
+export const aroundEdges = (edges: number[], lo: number, hi: number): fc.Arbitrary<number> =>
+  fc.oneof(
+    { weight: 3, arbitrary: fc.constantFrom(...edges) },
+    { weight: 3, arbitrary: fc.tuple(fc.constantFrom(...edges), fc.constantFrom(-0.01, 0.01, -0.3, 0.3)).map(([e, d]) => e + d) },
+    { weight: 4, arbitrary: fc.double({ min: lo, max: hi, noNaN: true }) },
+    { weight: 1, arbitrary: fc.constant(NaN) },
+  );
+
+/** A bed velocity (m/s): usual values, anything from 0 to 1, or missing (NaN). */
+export const velocityArb = fc.oneof(fc.constantFrom(0.2, 0.35, 0.5), fc.double({ min: 0, max: 1, noNaN: true }), fc.constant(NaN));

@@ -19,7 +19,7 @@ import {
   type SiteSeries,
 } from '../../shared/engine';
 import { HOUR, T0, makeSeries } from './series-factory';
-import { operationArb, round2 } from './limit-arbitraries';
+import { aroundEdges as around, operationArb, round2, velocityArb as vel } from './limit-arbitraries';
 
 const opArb = operationArb([0, 1, 6, 24]);
 
@@ -32,14 +32,6 @@ function seriesArb(ops: OperationSpec[]): fc.Arbitrary<SiteSeries> {
     ...(op.limits.hsTpCurve ?? []).map((p) => p[0]),
     ...(op.limits.tpExcluded ?? []).flat(),
   ]);
-  const around = (edges: number[], lo: number, hi: number) =>
-    fc.oneof(
-      { weight: 3, arbitrary: fc.constantFrom(...edges) },
-      { weight: 3, arbitrary: fc.tuple(fc.constantFrom(...edges), fc.constantFrom(-0.01, 0.01, -0.3, 0.3)).map(([e, d]) => e + d) },
-      { weight: 4, arbitrary: fc.double({ min: lo, max: hi, noNaN: true }) },
-      { weight: 1, arbitrary: fc.constant(NaN) },
-    );
-  const vel = fc.oneof(fc.constantFrom(0.2, 0.35, 0.5), fc.double({ min: 0, max: 1, noNaN: true }), fc.constant(NaN));
   const wind = fc.oneof(fc.constantFrom(8, 12, 15), fc.double({ min: 0, max: 20, noNaN: true }), fc.constant(NaN));
   return fc
     .array(fc.record({ hs: around(hsEdges, 0, 7), tp: around(tpEdges, 2, 22), lin: vel, soul: vel, wind }), {

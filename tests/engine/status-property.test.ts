@@ -5,7 +5,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_ALPHA_TABLE, STATUS, evaluateHours, evaluateStatus, type AlphaTable, type OperationSpec } from '../../shared/engine';
 import { makeSeries } from './series-factory';
-import { operationArb } from './limit-arbitraries';
+import { aroundEdges as around, operationArb, velocityArb as vel } from './limit-arbitraries';
 
 /** Alpha by the rule of docs/domain.md#convention-5, looked up naively. */
 function naiveAlpha(table: AlphaTable, op: OperationSpec, hsLimit: number, useAlpha: boolean): number {
@@ -76,14 +76,6 @@ function recordsArb(op: OperationSpec): fc.Arbitrary<Rec[]> {
   const L = op.limits;
   const hsEdges = [L.hsMax ?? 1, ...(L.hsTpCurve ?? []).map((p) => p[1])];
   const tpEdges = [L.tpMin ?? 6, L.tpMax ?? 12, ...(L.hsTpCurve ?? []).map((p) => p[0]), ...(L.tpExcluded ?? []).flat()];
-  const around = (edges: number[], lo: number, hi: number) =>
-    fc.oneof(
-      { weight: 3, arbitrary: fc.constantFrom(...edges) },
-      { weight: 3, arbitrary: fc.tuple(fc.constantFrom(...edges), fc.constantFrom(-0.01, 0.01, -0.3, 0.3)).map(([e, d]) => e + d) },
-      { weight: 4, arbitrary: fc.double({ min: lo, max: hi, noNaN: true }) },
-      { weight: 1, arbitrary: fc.constant(NaN) },
-    );
-  const vel = fc.oneof(fc.constantFrom(0.2, 0.35, 0.5), fc.double({ min: 0, max: 1, noNaN: true }), fc.constant(NaN));
   return fc.array(
     fc.record({
       hs: around(hsEdges, 0, 7),

@@ -21,19 +21,7 @@ export function serverInfo(dataDir: string): { pid: number; port: number; jobTok
   return JSON.parse(fs.readFileSync(path.join(dataDir, 'server.json'), 'utf8'));
 }
 
-/** Signs in through the real auth route; returns the Cookie header for later requests. */
-export async function signIn(baseUrl: string, email: string, password = 'lullwatch-demo'): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/sign-in/email`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', origin: baseUrl },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!res.ok) throw new Error(`sign-in as ${email}: ${res.status} ${await res.text()}`);
-  return res.headers
-    .getSetCookie()
-    .map((c) => c.split(';')[0])
-    .join('; ');
-}
+export { signIn } from '../support/child-server';
 
 // ---------------------------------------------------------------------------------------------
 // A mail receiver owned by the test, so what was delivered is still known after the server dies.

@@ -14,7 +14,7 @@ import path from 'node:path';
 import { spawn } from 'node:child_process';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startServer, type ChildServer } from '../support/child-server';
+import { signIn, startServer, type ChildServer } from '../support/child-server';
 import { copyTemplate, withDatabase } from '../support/postgres';
 import { findPgBin } from '../../scripts/lib/pg-cluster';
 
@@ -39,19 +39,6 @@ function pgProgram(program: string, args: string[]): Promise<{ code: number | nu
     child.once('error', reject);
     child.once('exit', (code) => resolve({ code, out }));
   });
-}
-
-async function signIn(base: string, email: string, password = 'lullwatch-demo'): Promise<string> {
-  const res = await fetch(`${base}/api/auth/sign-in/email`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', origin: base },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!res.ok) throw new Error(`sign-in as ${email}: ${res.status} ${await res.text()}`);
-  return res.headers
-    .getSetCookie()
-    .map((c) => c.split(';')[0])
-    .join('; ');
 }
 
 async function getJson<T>(base: string, cookie: string, url: string): Promise<T> {

@@ -1,6 +1,7 @@
 // CSV import: dialects, times, units, missing codes, chunking and line numbers.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { feedInChunks } from '../support/chunks';
 import { issuesOf, parse } from './csv-helpers';
 import { CsvRecordReader, CsvTextParser, DEFAULT_MISSING_CODES, ImportError, detectColumns, detectDelimiter } from '../../shared/seadata';
 
@@ -465,15 +466,7 @@ describe('chunked text gives the same result as one chunk', () => {
     expect(whole.records.timeMs.length).toBeGreaterThan(250);
     fc.assert(
       fc.property(fc.array(fc.integer({ min: 1, max: 4000 }), { minLength: 1, maxLength: 40 }), (sizes) => {
-        const p = new CsvTextParser({ timeZone: 'Europe/Oslo', onBadRows: 'skip' });
-        let pos = 0;
-        let k = 0;
-        while (pos < text.length) {
-          const n = sizes[k++ % sizes.length];
-          p.push(text.slice(pos, pos + n));
-          pos += n;
-        }
-        const got = p.end();
+        const got = feedInChunks(new CsvTextParser({ timeZone: 'Europe/Oslo', onBadRows: 'skip' }), text, sizes);
         expect(got.records).toEqual(whole.records);
         expect(got.report).toEqual(whole.report);
       }),

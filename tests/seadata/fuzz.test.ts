@@ -159,18 +159,25 @@ function feed(p: { push(s: string): void }, text: string, cut: number): void {
   p.push(text.slice(k));
 }
 
+/**
+ * Feeds `text` cut at `cut` to a streaming parser and ends it: valid records or an ImportError,
+ * within 10 s.
+ */
+function parsesOrRefuses(p: NdbcParser | CsvTextParser, text: string, cut: number): void {
+  const t0 = performance.now();
+  const r = returnsOrImportError(() => {
+    feed(p, text, cut);
+    return p.end();
+  });
+  if (r !== undefined) checkRecords(r.records);
+  expect(performance.now() - t0).toBeLessThan(10_000); // hang detection only (issue 8: never hangs), not a speed target
+}
+
 describe('parsers on arbitrary text', () => {
   it('NdbcParser returns valid records or throws ImportError', () => {
     fc.assert(
       fc.property(anyText, modes, fc.nat(500), (text, onBadRows, cut) => {
-        const t0 = performance.now();
-        const p = new NdbcParser({ onBadRows });
-        const r = returnsOrImportError(() => {
-          feed(p, text, cut);
-          return p.end();
-        });
-        if (r !== undefined) checkRecords(r.records);
-        expect(performance.now() - t0).toBeLessThan(10_000); // hang detection only (issue 8: never hangs), not a speed target
+        parsesOrRefuses(new NdbcParser({ onBadRows }), text, cut);
       }),
       { numRuns: 600 },
     );
@@ -184,14 +191,7 @@ describe('parsers on arbitrary text', () => {
         fc.nat(500),
         fc.constantFrom(undefined, 'Europe/Oslo', 'America/New_York'),
         (text, onBadRows, cut, timeZone) => {
-          const t0 = performance.now();
-          const p = new CsvTextParser({ onBadRows, timeZone });
-          const r = returnsOrImportError(() => {
-            feed(p, text, cut);
-            return p.end();
-          });
-          if (r !== undefined) checkRecords(r.records);
-          expect(performance.now() - t0).toBeLessThan(10_000); // hang detection only (issue 8: never hangs), not a speed target
+          parsesOrRefuses(new CsvTextParser({ onBadRows, timeZone }), text, cut);
         },
       ),
       { numRuns: 600 },

@@ -7,6 +7,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { feedInChunks } from '../support/chunks';
 import { ImportError, NdbcParser, detectFormat, looksLikeNdbc, summarise, type SeaRecords } from '../../shared/seadata';
 
 const NDBC_DIR = path.resolve(import.meta.dirname, '../fixtures/ndbc');
@@ -210,15 +211,7 @@ describe('chunked input gives the same result as one chunk', () => {
       const whole = parse(text);
       fc.assert(
         fc.property(fc.array(fc.integer({ min: 7, max: 4000 }), { minLength: 1, maxLength: 50 }), (sizes) => {
-          const p = new NdbcParser();
-          let pos = 0;
-          let k = 0;
-          while (pos < text.length) {
-            const n = sizes[k++ % sizes.length];
-            p.push(text.slice(pos, pos + n));
-            pos += n;
-          }
-          const got = p.end();
+          const got = feedInChunks(new NdbcParser(), text, sizes);
           expect(got.records).toEqual(whole.records);
           expect(got.report).toEqual(whole.report);
         }),

@@ -1,4 +1,6 @@
 import request from 'supertest';
+import type { Response as SuperagentResponse } from 'superagent';
+import { afterAll, beforeAll } from 'vitest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
@@ -106,4 +108,68 @@ export async function signInAll(app: Express) {
     signIn(app, 'client@example.com'),
   ]);
   return { admin, coordinator, skipper, client };
+}
+
+export type SignedIn = Awaited<ReturnType<typeof signInAll>>;
+
+/** What `useSignedInApp` hands a test file: read its fields inside tests and hooks. */
+export interface SignedInApp {
+  /** The app on its own database (`createTestApp`). */
+  readonly t: TestApp;
+  /** One agent a demo account, each signed in. */
+  readonly as: SignedIn;
+  /** `/api/projects/<the demo project's id>` followed by the `path` given. */
+  readonly base: string;
+}
+
+/**
+ * A test file's API set-up in one call at its top: one `beforeAll` makes the app
+ * (`createTestApp(options)`) and signs in every demo account (within `timeoutMs`, 120 s by default: the
+ * machine may be loaded), one `afterAll` closes it.
+ */
+export function useSignedInApp(
+  options: TestAppOptions = {},
+  { path = '', timeoutMs = 120_000 }: { path?: string; timeoutMs?: number } = {},
+): SignedInApp {
+  let app: TestApp | undefined;
+  let agents: SignedIn | undefined;
+  const ready = <T>(value: T | undefined): T => {
+    if (value === undefined) throw new Error('the test app is not ready: read it inside a test or hook');
+    return value;
+  };
+  beforeAll(async () => {
+    app = await createTestApp(options);
+    agents = await signInAll(app.app);
+  }, timeoutMs);
+  afterAll(async () => {
+    await app?.close();
+  });
+  return {
+    get t() {
+      return ready(app);
+    },
+    get as() {
+      return ready(agents);
+    },
+    get base() {
+      return `/api/projects/${ready(app).demo.projectId}${path}`;
+    },
+  };
+}
+
+/** A supertest body parser that keeps the answer as text (CSV, iCalendar): `.buffer(true).parse(textBody)`. */
+export function textBody(r: SuperagentResponse, cb: (err: Error | null, body: string) => void): void {
+  let s = '';
+  r.on('data', (c: Buffer) => (s += c));
+  r.on('end', () => cb(null, s));
+}
+
+/**
+ * POSTs a multipart form as the agent: each field, then `file` (a path, or content with `fileName`)
+ * in the field "file".
+ */
+export function postForm(agent: Agent, url: string, fields: Record<string, string>, file: string | Buffer, fileName?: string) {
+  let req = agent.post(url);
+  for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+  return typeof file === 'string' ? req.attach('file', file) : req.attach('file', file, fileName);
 }

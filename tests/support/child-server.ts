@@ -124,3 +124,17 @@ export function runScript(script: string, args: string[], env: Record<string, st
     child.once('exit', (code) => resolve({ code, stdout, stderr }));
   });
 }
+
+/** Signs in through the real auth route; returns the Cookie header for later requests. */
+export async function signIn(baseUrl: string, email: string, password = 'lullwatch-demo'): Promise<string> {
+  const res = await fetch(`${baseUrl}/api/auth/sign-in/email`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: baseUrl },
+    body: JSON.stringify({ email, password }),
+  });
+  if (!res.ok) throw new Error(`sign-in as ${email}: ${res.status} ${await res.text()}`);
+  return res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
+}

@@ -1,23 +1,19 @@
-import { sql } from 'drizzle-orm';
 import { boolean, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { idColumn, stampColumn } from './columns';
 import { user } from './auth';
-import { project } from './projects';
+import { project, projectIdColumn } from './projects';
 import { dataset } from './datasets';
 
 /** One run of the planning job for one project. */
 export const planRun = pgTable(
   'plan_run',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     datasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
     trigger: text({ enum: ['schedule', 'manual', 'cli'] }).notNull(),
     status: text({ enum: ['running', 'ok', 'failed'] }).notNull(),
-    startedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    startedAt: stampColumn(),
     finishedAt: timestamp({ withTimezone: true }),
     /** Per operation and worksite: windows, earliest start, may-start-now, occurrences. */
     plans: jsonb().$type<unknown[]>(),
@@ -30,12 +26,8 @@ export const planRun = pgTable(
 export const alert = pgTable(
   'alert',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     planRunId: uuid()
       .notNull()
       .references(() => planRun.id, { onDelete: 'cascade' }),
@@ -46,7 +38,7 @@ export const alert = pgTable(
     changeKey: text().notNull(),
     message: text().notNull(),
     details: jsonb().notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
   },
   (t) => [index().on(t.projectId, t.createdAt)],
 );
@@ -55,9 +47,7 @@ export const alert = pgTable(
 export const outbox = pgTable(
   'outbox',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
+    id: idColumn(),
     idempotencyKey: text().notNull().unique(),
     projectId: uuid().references(() => project.id, { onDelete: 'cascade' }),
     userId: text().references(() => user.id, { onDelete: 'set null' }),
@@ -69,9 +59,9 @@ export const outbox = pgTable(
       .notNull()
       .default('pending'),
     attempts: integer().notNull().default(0),
-    nextAttemptAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    nextAttemptAt: stampColumn(),
     lastError: text(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
     sentAt: timestamp({ withTimezone: true }),
   },
   (t) => [index().on(t.status, t.nextAttemptAt)],
@@ -81,15 +71,11 @@ export const outbox = pgTable(
 export const subscription = pgTable(
   'subscription',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
+    id: idColumn(),
     userId: text()
       .notNull()
       .references(() => user.id, { onDelete: 'cascade' }),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    projectId: projectIdColumn(),
     operationIds: jsonb().$type<string[]>().notNull().default([]),
     siteIds: jsonb().$type<string[]>().notNull().default([]),
     immediate: boolean().notNull().default(true),
@@ -106,8 +92,8 @@ export const subscription = pgTable(
     windowChanceBelow: integer(),
     lastDigestAt: timestamp({ withTimezone: true }),
     active: boolean().notNull().default(true),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
+    updatedAt: stampColumn(),
   },
   (t) => [unique().on(t.userId, t.projectId)],
 );
@@ -118,5 +104,5 @@ export const calendarToken = pgTable('calendar_token', {
     .primaryKey()
     .references(() => user.id, { onDelete: 'cascade' }),
   token: text().notNull().unique(),
-  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  createdAt: stampColumn(),
 });

@@ -1,7 +1,7 @@
-import { sql } from 'drizzle-orm';
 import { customType, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { idColumn, stampColumn } from './columns';
 import { user } from './auth';
-import { project } from './projects';
+import { projectIdColumn } from './projects';
 
 /** Raw bytes: packed typed arrays (little-endian) of one chunk of a series. */
 export const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({
@@ -13,12 +13,8 @@ export const DATASET_KIND_VALUES = ['hindcast', 'forecast', 'observation'] as co
 export const dataset = pgTable(
   'dataset',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     name: text().notNull(),
     kind: text({ enum: DATASET_KIND_VALUES }).notNull(),
     dataPointName: text().notNull().default(''),
@@ -61,7 +57,7 @@ export const dataset = pgTable(
     /** Import report: options used, skipped rows. */
     importReport: jsonb().$type<Record<string, unknown>>().notNull(),
     createdBy: text().references(() => user.id, { onDelete: 'set null' }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
   },
   (t) => [index().on(t.projectId, t.kind, t.issuedAt)],
 );

@@ -1,7 +1,7 @@
-import { sql } from 'drizzle-orm';
 import { doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { idColumn, stampColumn } from './columns';
 import { user } from './auth';
-import { project } from './projects';
+import { projectIdColumn } from './projects';
 import { operation, worksite } from './sites';
 import { dataset } from './datasets';
 import { planRun } from './alerts';
@@ -19,12 +19,8 @@ export interface CampaignStepProgress {
 export const campaign = pgTable(
   'campaign',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     name: text().notNull(),
     steps: jsonb().$type<{ operationId: string; siteId: string }[]>().notNull(),
     plannedStart: timestamp({ withTimezone: true }),
@@ -34,8 +30,8 @@ export const campaign = pgTable(
     plannedFinish: timestamp({ withTimezone: true }),
     /** Progress per step, by index: status and actual times (ISO); missing entries are planned. */
     progress: jsonb().$type<CampaignStepProgress[]>().notNull().default([]),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
+    updatedAt: stampColumn(),
   },
   (t) => [index().on(t.projectId)],
 );
@@ -44,12 +40,8 @@ export const campaign = pgTable(
 export const ledgerDay = pgTable(
   'ledger_day',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     operationId: uuid()
       .notNull()
       .references(() => operation.id, { onDelete: 'cascade' }),
@@ -73,8 +65,8 @@ export const ledgerDay = pgTable(
       .default('proposed'),
     confirmedBy: text().references(() => user.id, { onDelete: 'set null' }),
     confirmedAt: timestamp({ withTimezone: true }),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
+    updatedAt: stampColumn(),
   },
   (t) => [unique().on(t.projectId, t.operationId, t.siteId, t.day), index().on(t.projectId, t.day)],
 );
@@ -82,23 +74,17 @@ export const ledgerDay = pgTable(
 /** Cached hindcast statistics, keyed by dataset, a version of the limits and the alpha switch. */
 export const statsCache = pgTable('stats_cache', {
   key: text().primaryKey(),
-  projectId: uuid()
-    .notNull()
-    .references(() => project.id, { onDelete: 'cascade' }),
+  projectId: projectIdColumn(),
   value: jsonb().notNull(),
-  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  createdAt: stampColumn(),
 });
 
 /** The campaign outlook stored by each planning job run (its history is the drift chart). */
 export const campaignOutlook = pgTable(
   'campaign_outlook',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     campaignId: uuid()
       .notNull()
       .references(() => campaign.id, { onDelete: 'cascade' }),

@@ -1,12 +1,10 @@
-import { sql } from 'drizzle-orm';
-import { pgTable, text, timestamp, uuid, unique, index, doublePrecision } from 'drizzle-orm/pg-core';
+import { pgTable, text, uuid, unique, index, doublePrecision } from 'drizzle-orm/pg-core';
+import { idColumn, stampColumn } from './columns';
 import { PROJECT_ROLES } from '../../../shared/auth/roles';
 import { user } from './auth';
 
 export const project = pgTable('project', {
-  id: uuid()
-    .primaryKey()
-    .default(sql`gen_random_uuid()`),
+  id: idColumn(),
   name: text().notNull(),
   description: text().notNull().default(''),
   /** The offshore data point whose sea states feed the project's worksites. */
@@ -29,9 +27,15 @@ export const project = pgTable('project', {
    * (docs/domain.md#calibrated-alpha); 1e-4 by default.
    */
   alphaCalibrationP: doublePrecision().notNull().default(1e-4),
-  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  createdAt: stampColumn(),
+  updatedAt: stampColumn(),
 });
+
+/** The project a row belongs to; deleting the project deletes its rows. */
+export const projectIdColumn = () =>
+  uuid()
+    .notNull()
+    .references(() => project.id, { onDelete: 'cascade' });
 
 /**
  * Per-project roles. A membership table of our own rather than the auth library's organization
@@ -41,17 +45,13 @@ export const project = pgTable('project', {
 export const projectMember = pgTable(
   'project_member',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     userId: text()
       .notNull()
       .references(() => user.id, { onDelete: 'cascade' }),
     role: text({ enum: PROJECT_ROLES }).notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
   },
   (t) => [unique().on(t.projectId, t.userId), index().on(t.userId)],
 );

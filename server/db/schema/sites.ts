@@ -1,7 +1,7 @@
-import { sql } from 'drizzle-orm';
-import { boolean, doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, doublePrecision, index, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core';
+import { idColumn, stampColumn } from './columns';
 import { user } from './auth';
-import { project } from './projects';
+import { project, projectIdColumn } from './projects';
 import { dataset } from './datasets';
 import { vessel } from './vessels';
 
@@ -9,12 +9,8 @@ import { vessel } from './vessels';
 export const worksite = pgTable(
   'worksite',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     name: text().notNull(),
     latitude: doublePrecision(),
     longitude: doublePrecision(),
@@ -35,8 +31,8 @@ export const worksite = pgTable(
       z0?: number;
       datum: string;
     } | null>(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
+    updatedAt: stampColumn(),
   },
   (t) => [index().on(t.projectId)],
 );
@@ -45,12 +41,8 @@ export const worksite = pgTable(
 export const operation = pgTable(
   'operation',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     name: text().notNull(),
     description: text().notNull().default(''),
     tpopH: doublePrecision().notNull(),
@@ -67,8 +59,8 @@ export const operation = pgTable(
     headingDeg: doublePrecision(),
     /** iCalendar RRULE (with DTSTART in the first worksite's zone) for recurring operations. */
     recurrence: jsonb().$type<Record<string, unknown> | null>(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    createdAt: stampColumn(),
+    updatedAt: stampColumn(),
   },
   (t) => [index().on(t.projectId)],
 );
@@ -79,22 +71,18 @@ export const projectAlpha = pgTable('project_alpha', {
     .primaryKey()
     .references(() => project.id, { onDelete: 'cascade' }),
   table: jsonb().$type<{ tpopBoundsH: number[]; hsColumnsM: number[]; values: number[][] }>().notNull(),
-  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  updatedAt: stampColumn(),
 });
 
 /** Who changed a limit, a worksite's depth or the alpha table, when, before and after. Append-only. */
 export const auditEntry = pgTable(
   'audit_entry',
   {
-    id: uuid()
-      .primaryKey()
-      .default(sql`gen_random_uuid()`),
-    projectId: uuid()
-      .notNull()
-      .references(() => project.id, { onDelete: 'cascade' }),
+    id: idColumn(),
+    projectId: projectIdColumn(),
     userId: text().references(() => user.id, { onDelete: 'set null' }),
     userName: text().notNull(),
-    at: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    at: stampColumn(),
     entity: text({ enum: ['operation', 'worksite', 'alpha', 'project', 'campaign', 'vessel'] }).notNull(),
     entityId: text(),
     entityName: text().notNull().default(''),

@@ -47,6 +47,15 @@ export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSel
   return <select ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
 });
 
+/** The options of a select whose values are their own labels (time zones, names). */
+export function PlainOptions({ values }: { values: readonly string[] }) {
+  return values.map((v) => (
+    <option key={v} value={v}>
+      {v}
+    </option>
+  ));
+}
+
 export const TextArea = forwardRef<HTMLTextAreaElement, TextareaHTMLAttributes<HTMLTextAreaElement> & { invalid?: boolean }>(
   function TextArea({ invalid, className = '', ...props }, ref) {
     return <textarea ref={ref} aria-invalid={invalid || undefined} className={`${control} py-2 ${className}`} {...props} />;

@@ -1,6 +1,6 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SubscriptionInput } from '../../../../shared/schemas/alerts';
 import { api } from '../../../lib/api';
+import { useMutationThen } from '../../../lib/use-mutation-then';
 import { subscriptionQueryOptions } from './get-subscription';
 import type { SubscriptionResponse } from './types';
 
@@ -8,13 +8,11 @@ import type { SubscriptionResponse } from './types';
 export const saveSubscription = (projectId: string, input: SubscriptionInput) =>
   api<SubscriptionResponse>(`/api/projects/${projectId}/subscription`, { method: 'PUT', json: input });
 
-export function useSaveSubscription(projectId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: SubscriptionInput) => saveSubscription(projectId, input),
-    onSuccess: (data) => {
+export const useSaveSubscription = (projectId: string) =>
+  useMutationThen(
+    (input: SubscriptionInput) => saveSubscription(projectId, input),
+    (qc, data) => {
       if (data) qc.setQueryData(subscriptionQueryOptions(projectId).queryKey, data);
       return qc.invalidateQueries({ queryKey: subscriptionQueryOptions(projectId).queryKey });
     },
-  });
-}
+  );

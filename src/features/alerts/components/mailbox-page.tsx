@@ -65,9 +65,7 @@ export function MailboxPage() {
           {open ? (
             <MessageView
               key={open.id}
-              subject={open.subject}
-              text={open.text}
-              html={open.html}
+              message={open}
               onClose={() => setOpenId(null)}
               meta={[
                 { label: 'To', value: open.to.join(', ') },

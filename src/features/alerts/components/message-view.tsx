@@ -6,15 +6,14 @@ import { Button } from '../../../components/ui';
 import { Tabs } from '../../../components/ui/tabs';
 
 interface Props {
-  subject: string;
+  /** The e-mail: its subject and its text and HTML bodies (the HTML may be missing). */
+  message: { subject: string; text: string; html: string | null };
   /** header lines shown under the subject: label and value */
   meta: { label: string; value: ReactNode }[];
-  text: string;
-  html: string | null;
   onClose: () => void;
 }
 
-export function MessageView({ subject, meta, text, html, onClose }: Props) {
+export function MessageView({ message: { subject, text, html }, meta, onClose }: Props) {
   const hasHtml = !!html && html.trim().length > 0;
   const [tab, setTab] = useState<'text' | 'html'>(hasHtml ? 'html' : 'text');
   const heading = useRef<HTMLHeadingElement>(null);

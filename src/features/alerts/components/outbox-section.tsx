@@ -93,9 +93,7 @@ export function OutboxSection({ projectId, zone: here }: { projectId: string; zo
         {open ? (
           <MessageView
             key={open.id}
-            subject={open.subject}
-            text={open.text}
-            html={open.html}
+            message={open}
             onClose={() => setOpenId(null)}
             meta={[
               { label: 'To', value: open.toEmail },

@@ -8,7 +8,7 @@ import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { OperationResponse } from '../../../../shared/api-types-sites';
 import { expandRecurrence, RecurrenceInput, recurrenceText, WEEKDAYS } from '../../../../shared/recurrence';
-import { Button, ErrorNotice, FieldShell, Input, Notice, Select } from '../../../components/ui';
+import { Button, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select } from '../../../components/ui';
 import { DateEcho } from '../../../components/ui/date-echo';
 import { useRemoveRecurrence } from '../api/remove-recurrence';
 import { useSaveRecurrence } from '../api/save-recurrence';
@@ -209,11 +209,7 @@ export function RecurrenceEditor({ projectId, operation, stored, defaultTimeZone
           hint="Defaults to the first worksite's zone."
         >
           <Select id={`${idp}-zone`} {...form.register('timeZone')} invalid={!!errors.timeZone}>
-            {allZones.map((z) => (
-              <option key={z} value={z}>
-                {z}
-              </option>
-            ))}
+            <PlainOptions values={allZones} />
           </Select>
         </FieldShell>
       </div>

@@ -7,7 +7,7 @@ import type { z } from 'zod';
 import { SubscriptionInput } from '../../../../shared/schemas/alerts';
 import type { ProjectAccessRole } from '../../../../shared/api-types';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select, Spinner } from '../../../components/ui';
 import { useSubscription } from '../api/get-subscription';
 import { useSaveSubscription } from '../api/save-subscription';
 import type { SubscriptionResponse } from '../api/types';
@@ -187,11 +187,7 @@ function SubscriptionForm({ projectId, role, operations, sites, initial }: Props
               hint="The worksites' zones are in this list too."
             >
               <Select id="sub-digest-zone" {...form.register('digestTimeZone')} invalid={!!errors.digestTimeZone}>
-                {zones.map((z) => (
-                  <option key={z} value={z}>
-                    {z}
-                  </option>
-                ))}
+                <PlainOptions values={zones} />
               </Select>
             </FieldShell>
           </div>

@@ -1,6 +1,6 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
-import { meQueryOptions } from '../../../api/me';
+import { useMutationThen } from '../../../lib/use-mutation-then';
+import { restartSession } from './sign-in';
 
 /**
  * `POST /api/auth/change-password` (the auth library's route): the server ends every other
@@ -10,13 +10,4 @@ export function changePassword(input: { currentPassword: string; newPassword: st
   return api<unknown>('/api/auth/change-password', { method: 'POST', json: { ...input, revokeOtherSessions: true } });
 }
 
-export function useChangePassword() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: changePassword,
-    onSuccess: async () => {
-      qc.clear();
-      await qc.fetchQuery(meQueryOptions());
-    },
-  });
-}
+export const useChangePassword = () => useMutationThen(changePassword, restartSession);

@@ -3,7 +3,7 @@ import { TZDate } from '@date-fns/tz';
 import type { CampaignResponse, CampaignSimulation } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAMPAIGN_MAX_STEPS, CampaignInput } from '../../../../shared/schemas/downtime';
-import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select, Spinner } from '../../../components/ui';
 import { Term } from '../../../components/ui/term';
 import { DateEcho } from '../../../components/ui/date-echo';
 import { ApiError } from '../../../lib/api';
@@ -414,11 +414,7 @@ function CampaignEditor({
           error={fieldErrors.timeZone}
         >
           <Select id="campaign-zone" value={timeZone} onChange={(e) => setTimeZone(e.target.value)}>
-            {zones.map((z) => (
-              <option key={z} value={z}>
-                {z}
-              </option>
-            ))}
+            <PlainOptions values={zones} />
           </Select>
         </FieldShell>
         <FieldShell

@@ -65,20 +65,18 @@ function StatusBadge({ row }: { row: LedgerEntry }) {
   );
 }
 
-/** One ledger day as a card (phones). */
-function LedgerCard({
-  projectId,
-  row: r,
-  canEdit,
-  open,
-  onOpen,
-}: {
+/** A ledger day as shown in the list (a card on phones, a table row on laptops). */
+interface LedgerItemProps {
   projectId: string;
   row: LedgerEntry;
   canEdit: boolean;
+  /** Whether its confirmation form is open. */
   open: boolean;
   onOpen: (v: boolean) => void;
-}) {
+}
+
+/** One ledger day as a card (phones). */
+function LedgerCard({ projectId, row: r, canEdit, open, onOpen }: LedgerItemProps) {
   const { confirmed, lost, limiting, corrected } = shown(r);
   return (
     <li className="rounded-lg border border-line p-3 text-sm">
@@ -339,19 +337,7 @@ function ProposeResult({ answer }: { answer: LedgerProposeAnswer }) {
   );
 }
 
-function LedgerRow({
-  projectId,
-  row: r,
-  canEdit,
-  open,
-  onOpen,
-}: {
-  projectId: string;
-  row: LedgerEntry;
-  canEdit: boolean;
-  open: boolean;
-  onOpen: (v: boolean) => void;
-}) {
+function LedgerRow({ projectId, row: r, canEdit, open, onOpen }: LedgerItemProps) {
   const { confirmed, lost, limiting, corrected } = shown(r);
   return (
     <>

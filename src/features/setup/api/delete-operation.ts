@@ -1,15 +1,13 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
+import { useMutationThen } from '../../../lib/use-mutation-then';
 import { invalidateProjectSetup } from './invalidate-project-setup';
 
 /** `DELETE /api/projects/:projectId/operations/:operationId` (coordinators and admins), 204. */
 export const deleteOperation = (projectId: string, operationId: string) =>
   api<void>(`/api/projects/${projectId}/operations/${operationId}`, { method: 'DELETE' });
 
-export function useDeleteOperation(projectId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (operationId: string) => deleteOperation(projectId, operationId),
-    onSuccess: () => invalidateProjectSetup(qc, projectId),
-  });
-}
+export const useDeleteOperation = (projectId: string) =>
+  useMutationThen(
+    (operationId: string) => deleteOperation(projectId, operationId),
+    (qc) => invalidateProjectSetup(qc, projectId),
+  );

@@ -1,5 +1,5 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api';
+import { useMutationThen } from '../../../lib/use-mutation-then';
 import { invalidateProjectSetup } from './invalidate-project-setup';
 
 /**
@@ -9,10 +9,8 @@ import { invalidateProjectSetup } from './invalidate-project-setup';
 export const deleteSite = (projectId: string, siteId: string) =>
   api<void>(`/api/projects/${projectId}/sites/${siteId}`, { method: 'DELETE' });
 
-export function useDeleteSite(projectId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (siteId: string) => deleteSite(projectId, siteId),
-    onSuccess: () => invalidateProjectSetup(qc, projectId),
-  });
-}
+export const useDeleteSite = (projectId: string) =>
+  useMutationThen(
+    (siteId: string) => deleteSite(projectId, siteId),
+    (qc) => invalidateProjectSetup(qc, projectId),
+  );

@@ -1,7 +1,7 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AlphaResponse } from '../../../../shared/api-types-sites';
 import type { AlphaTableInput } from '../../../../shared/schemas/sites';
 import { api } from '../../../lib/api';
+import { useMutationThen } from '../../../lib/use-mutation-then';
 import { alphaQueryOptions } from './get-alpha';
 import { invalidateProjectSetup } from './invalidate-project-setup';
 
@@ -9,13 +9,11 @@ import { invalidateProjectSetup } from './invalidate-project-setup';
 export const saveAlpha = (projectId: string, table: AlphaTableInput) =>
   api<AlphaResponse>(`/api/projects/${projectId}/alpha`, { method: 'PUT', json: table });
 
-export function useSaveAlpha(projectId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (table: AlphaTableInput) => saveAlpha(projectId, table),
-    onSuccess: (data) => {
+export const useSaveAlpha = (projectId: string) =>
+  useMutationThen(
+    (table: AlphaTableInput) => saveAlpha(projectId, table),
+    (qc, data) => {
       qc.setQueryData(alphaQueryOptions(projectId).queryKey, data);
       return invalidateProjectSetup(qc, projectId);
     },
-  });
-}
+  );

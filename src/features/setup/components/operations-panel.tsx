@@ -1,14 +1,15 @@
-import { useEffect, useRef, useState, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { alphaFor } from '../../../../shared/engine/alpha-factor';
 import type { AlphaTable } from '../../../../shared/engine/types';
-import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
+import { Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { Term } from '../../../components/ui/term';
 import { useDeleteOperation } from '../api/delete-operation';
 import { useAlpha } from '../api/get-alpha';
 import { useOperations } from '../../../api/operations';
 import { useSites } from '../../../api/sites';
-import { ConfirmBox, Tag } from './form-bits';
+import { EditableListFrame, useEditableList } from './editable-list';
+import { Tag } from './form-bits';
 import { fmt, withUnit } from './format';
 import { summarizeLimits } from './limits-summary';
 import { OperationForm } from './operation-form';
@@ -18,129 +19,54 @@ export function OperationsPanel({ projectId, canEdit }: { projectId: string; can
   const ops = useOperations(projectId);
   const sites = useSites(projectId);
   const alpha = useAlpha(projectId);
-  const remove = useDeleteOperation(projectId);
-  const [editing, setEditing] = useState<'new' | string | null>(null);
-  const [confirming, setConfirming] = useState<string | null>(null);
-  const [saved, setSaved] = useState<string | null>(null);
-  const formRef = useRef<HTMLDivElement>(null);
-
-  useEffect(() => {
-    if (editing) formRef.current?.scrollIntoView({ block: 'start', behavior: 'smooth' });
-  }, [editing]);
+  const list = useEditableList(
+    useDeleteOperation(projectId),
+    'Operation',
+    'It leaves the watch board and the statistics; the audit trail keeps its last limits.',
+  );
 
   if (ops.isPending || sites.isPending) return <Spinner label="Loading operations" />;
   if (ops.error) return <ErrorNotice error={ops.error} />;
   if (sites.error) return <ErrorNotice error={sites.error} />;
-  const list = ops.data;
-  const editingOp = editing && editing !== 'new' ? (list.find((o) => o.id === editing) ?? null) : null;
+  const editingOp = list.editing && list.editing !== 'new' ? (ops.data.find((o) => o.id === list.editing) ?? null) : null;
 
   return (
-    <div className="flex flex-col gap-4">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <p className="max-w-3xl text-sm text-ink-soft">
-          Each operation’s limits (OPLIM) are tested hour by hour at its worksites. Weather-restricted operations are planned on the
-          forecast limit OPWF = α·OPLIM for Hs.
-        </p>
-        {canEdit && editing !== 'new' ? (
-          <Button
-            onClick={() => {
-              setEditing('new');
-              setSaved(null);
-            }}
-          >
-            Add operation
-          </Button>
-        ) : null}
-      </div>
-      {saved ? <Notice tone="success">{saved}</Notice> : null}
-      {canEdit && editing ? (
-        <div ref={formRef} className="scroll-mt-4">
-          <Card>
-            <h2 className="mb-4 text-lg font-bold">{editingOp ? `Edit “${editingOp.name}”` : 'New operation'}</h2>
-            <OperationForm
-              key={editing}
-              projectId={projectId}
-              op={editingOp}
+    <EditableListFrame
+      list={list}
+      canEdit={canEdit}
+      intro="Each operation’s limits (OPLIM) are tested hour by hour at its worksites. Weather-restricted operations are planned on the forecast limit OPWF = α·OPLIM for Hs."
+      addLabel="Add operation"
+      formTitle={editingOp ? `Edit “${editingOp.name}”` : 'New operation'}
+      form={
+        <OperationForm
+          key={list.editing}
+          projectId={projectId}
+          op={editingOp}
+          sites={sites.data}
+          alphaTable={alpha.data?.table}
+          onDone={list.formDone}
+        />
+      }
+      empty={
+        ops.data.length === 0
+          ? { title: 'No operations yet.', addHint: 'Add the operations of the campaign with their durations and weather limits.' }
+          : null
+      }
+    >
+      <ul className="grid gap-3 lg:grid-cols-2" aria-label="Operations">
+        {ops.data.map((o) => (
+          <li key={o.id} className="min-w-0">
+            <OperationCard
+              op={o}
               sites={sites.data}
               alphaTable={alpha.data?.table}
-              onDone={(o) => {
-                setEditing(null);
-                if (o) setSaved(`Operation “${o.name}” saved.`);
-              }}
+              actions={canEdit ? list.actions(o) : null}
+              confirm={list.confirming === o.id ? list.confirmBox(o) : null}
             />
-          </Card>
-        </div>
-      ) : null}
-
-      {list.length === 0 ? (
-        <Card>
-          <p className="font-semibold">No operations yet.</p>
-          <p className="mt-1 text-sm text-ink-soft">
-            {canEdit ? 'Add the operations of the campaign with their durations and weather limits.' : 'A marine coordinator adds them.'}
-          </p>
-        </Card>
-      ) : (
-        <ul className="grid gap-3 lg:grid-cols-2" aria-label="Operations">
-          {list.map((o) => (
-            <li key={o.id} className="min-w-0">
-              <OperationCard
-                op={o}
-                sites={sites.data}
-                alphaTable={alpha.data?.table}
-                actions={
-                  canEdit ? (
-                    <div className="flex flex-wrap gap-1">
-                      <Button
-                        variant="secondary"
-                        onClick={() => {
-                          setEditing(o.id);
-                          setSaved(null);
-                        }}
-                        aria-label={`Edit ${o.name}`}
-                      >
-                        Edit
-                      </Button>
-                      <Button
-                        variant="ghost"
-                        className="text-danger"
-                        onClick={() => {
-                          remove.reset();
-                          setConfirming(o.id);
-                          setSaved(null);
-                        }}
-                        aria-label={`Delete ${o.name}`}
-                      >
-                        Delete
-                      </Button>
-                    </div>
-                  ) : null
-                }
-                confirm={
-                  confirming === o.id ? (
-                    <ConfirmBox
-                      what={`“${o.name}”`}
-                      consequence="It leaves the watch board and the statistics; the audit trail keeps its last limits."
-                      onConfirm={() =>
-                        remove.mutate(o.id, {
-                          onSuccess: () => {
-                            setConfirming(null);
-                            setSaved(`Operation “${o.name}” deleted.`);
-                            if (editing === o.id) setEditing(null);
-                          },
-                        })
-                      }
-                      onCancel={() => setConfirming(null)}
-                      pending={remove.isPending}
-                      error={remove.error}
-                    />
-                  ) : null
-                }
-              />
-            </li>
-          ))}
-        </ul>
-      )}
-    </div>
+          </li>
+        ))}
+      </ul>
+    </EditableListFrame>
   );
 }
 

@@ -1,11 +1,12 @@
-import { Fragment, useEffect, useRef, useState } from 'react';
+import { Fragment } from 'react';
 import type { SiteResponse } from '../../../../shared/api-types-sites';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
-import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
+import { Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { useDeleteSite } from '../api/delete-site';
 import { useHindcasts } from '../../../api/datasets';
 import { useSites } from '../../../api/sites';
-import { ConfirmBox, Tag } from './form-bits';
+import { EditableListFrame, useEditableList } from './editable-list';
+import { Tag } from './form-bits';
 import { fmt, position, withUnit } from './format';
 import { TransferTableView } from './transfer-table-editor';
 import { WorksiteForm } from './worksite-form';
@@ -34,198 +35,122 @@ function shoreNormalText(site: SiteResponse): string {
 export function WorksitesPanel({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
   const sites = useSites(projectId);
   const hindcasts = useHindcasts(projectId);
-  const remove = useDeleteSite(projectId);
-  const [editing, setEditing] = useState<'new' | string | null>(null);
-  const [confirming, setConfirming] = useState<string | null>(null);
-  const [saved, setSaved] = useState<string | null>(null);
-  const formRef = useRef<HTMLDivElement>(null);
-
-  useEffect(() => {
-    if (editing) formRef.current?.scrollIntoView({ block: 'start', behavior: 'smooth' });
-  }, [editing]);
+  const editor = useEditableList(
+    useDeleteSite(projectId),
+    'Worksite',
+    'Operations that also work elsewhere lose this worksite from their list; the change is kept in the audit trail.',
+  );
+  const { confirming, confirmBox } = editor;
 
   if (sites.isPending) return <Spinner label="Loading worksites" />;
   if (sites.error) return <ErrorNotice error={sites.error} />;
   const list = sites.data;
-  const editingSite = editing && editing !== 'new' ? (list.find((s) => s.id === editing) ?? null) : null;
+  const editingSite = editor.editing && editor.editing !== 'new' ? (list.find((s) => s.id === editor.editing) ?? null) : null;
   const defaultZone = list[0]?.timeZone ?? browserZone();
-
-  const startDelete = (id: string) => {
-    remove.reset();
-    setConfirming(id);
-    setSaved(null);
-  };
-  const doDelete = (site: SiteResponse) =>
-    remove.mutate(site.id, {
-      onSuccess: () => {
-        setConfirming(null);
-        setSaved(`Worksite “${site.name}” deleted.`);
-        if (editing === site.id) setEditing(null);
-      },
-    });
-  const confirmBox = (site: SiteResponse) => (
-    <ConfirmBox
-      what={`“${site.name}”`}
-      consequence="Operations that also work elsewhere lose this worksite from their list; the change is kept in the audit trail."
-      onConfirm={() => doDelete(site)}
-      onCancel={() => setConfirming(null)}
-      pending={remove.isPending}
-      error={remove.error}
-    />
-  );
-  const actions = (site: SiteResponse) =>
-    canEdit ? (
-      <div className="flex flex-wrap gap-1 md:flex-nowrap">
-        <Button
-          variant="secondary"
-          onClick={() => {
-            setEditing(site.id);
-            setSaved(null);
-          }}
-          aria-label={`Edit ${site.name}`}
-        >
-          Edit
-        </Button>
-        <Button variant="ghost" className="text-danger" onClick={() => startDelete(site.id)} aria-label={`Delete ${site.name}`}>
-          Delete
-        </Button>
-      </div>
-    ) : null;
+  const actions = (site: SiteResponse) => (canEdit ? editor.actions(site, 'flex flex-wrap gap-1 md:flex-nowrap') : null);
 
   return (
-    <div className="flex flex-col gap-4">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <p className="max-w-3xl text-sm text-ink-soft">
-          Where the work happens. Sea states at the data point are carried to each worksite’s depth (refraction by its shore normal,
-          shoaling, the depth limit γb·d), or by its transfer table where one is set.
-        </p>
-        {canEdit && editing !== 'new' ? (
-          <Button
-            onClick={() => {
-              setEditing('new');
-              setSaved(null);
-            }}
-          >
-            Add worksite
-          </Button>
-        ) : null}
-      </div>
-      {saved ? <Notice tone="success">{saved}</Notice> : null}
-      {canEdit && editing ? (
-        <div ref={formRef} className="scroll-mt-4">
-          <Card>
-            <h2 className="mb-4 text-lg font-bold">{editingSite ? `Edit “${editingSite.name}”` : 'New worksite'}</h2>
-            <WorksiteForm
-              key={editing}
-              projectId={projectId}
-              site={editingSite}
-              defaultZone={defaultZone}
-              onDone={(s) => {
-                setEditing(null);
-                if (s) setSaved(`Worksite “${s.name}” saved.`);
-              }}
-            />
-          </Card>
-        </div>
-      ) : null}
-
-      {list.length === 0 ? (
-        <Card>
-          <p className="font-semibold">No worksites yet.</p>
-          <p className="mt-1 text-sm text-ink-soft">
-            {canEdit
-              ? 'Add the places where the operations happen, with their water depth and time zone.'
-              : 'A marine coordinator adds them.'}
-          </p>
-        </Card>
-      ) : (
-        <>
-          {/* Laptop: one table. */}
-          <div className="hidden overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface md:block">
-            <table className="w-full text-sm">
-              <thead className="border-b border-line bg-surface-2">
-                <tr>
-                  <th className={th}>Worksite</th>
-                  <th className={`${th} text-right`}>Depth</th>
-                  <th className={`${th} text-right`}>Shore normal</th>
-                  <th className={`${th} text-right`}>
-                    Breaker index <span className="normal-case">γb</span>
+    <EditableListFrame
+      list={editor}
+      canEdit={canEdit}
+      intro="Where the work happens. Sea states at the data point are carried to each worksite’s depth (refraction by its shore normal, shoaling, the depth limit γb·d), or by its transfer table where one is set."
+      addLabel="Add worksite"
+      formTitle={editingSite ? `Edit “${editingSite.name}”` : 'New worksite'}
+      form={
+        <WorksiteForm key={editor.editing} projectId={projectId} site={editingSite} defaultZone={defaultZone} onDone={editor.formDone} />
+      }
+      empty={
+        list.length === 0
+          ? { title: 'No worksites yet.', addHint: 'Add the places where the operations happen, with their water depth and time zone.' }
+          : null
+      }
+    >
+      <>
+        {/* Laptop: one table. */}
+        <div className="hidden overflow-x-auto rounded-[var(--radius-card)] border border-line bg-surface md:block">
+          <table className="w-full text-sm">
+            <thead className="border-b border-line bg-surface-2">
+              <tr>
+                <th className={th}>Worksite</th>
+                <th className={`${th} text-right`}>Depth</th>
+                <th className={`${th} text-right`}>Shore normal</th>
+                <th className={`${th} text-right`}>
+                  Breaker index <span className="normal-case">γb</span>
+                </th>
+                <th className={th}>Time zone</th>
+                <th className={th}>Hindcast</th>
+                {canEdit ? (
+                  <th className={th}>
+                    <span className="sr-only">Actions</span>
                   </th>
-                  <th className={th}>Time zone</th>
-                  <th className={th}>Hindcast</th>
-                  {canEdit ? (
-                    <th className={th}>
-                      <span className="sr-only">Actions</span>
-                    </th>
-                  ) : null}
-                </tr>
-              </thead>
-              <tbody>
-                {list.map((s) => (
-                  <Fragment key={s.id}>
-                    <tr className="border-b border-line last:border-0">
-                      <td className={td}>
-                        <span className="font-semibold">{s.name}</span>
-                        <TransferTag site={s} />
-                        {s.latitude !== null && s.longitude !== null ? (
-                          <span className="block text-xs text-ink-soft">{position(s.latitude, s.longitude)}</span>
-                        ) : null}
+                ) : null}
+              </tr>
+            </thead>
+            <tbody>
+              {list.map((s) => (
+                <Fragment key={s.id}>
+                  <tr className="border-b border-line last:border-0">
+                    <td className={td}>
+                      <span className="font-semibold">{s.name}</span>
+                      <TransferTag site={s} />
+                      {s.latitude !== null && s.longitude !== null ? (
+                        <span className="block text-xs text-ink-soft">{position(s.latitude, s.longitude)}</span>
+                      ) : null}
+                    </td>
+                    <td className={`${td} text-right tabular-nums whitespace-nowrap`}>{withUnit(s.depth, 'm')}</td>
+                    <td className={`${td} text-right tabular-nums`}>{shoreNormalText(s)}</td>
+                    <td className={`${td} text-right tabular-nums`}>{fmt(s.breakerIndex)}</td>
+                    <td className={td}>{s.timeZone}</td>
+                    <td className={td}>{hindcastName(s, hindcasts.data)}</td>
+                    {canEdit ? <td className={`${td} w-1 whitespace-nowrap`}>{actions(s)}</td> : null}
+                  </tr>
+                  {confirming === s.id ? (
+                    <tr className="border-b border-line">
+                      <td className="px-3 pb-3" colSpan={canEdit ? 7 : 6}>
+                        {confirmBox(s)}
                       </td>
-                      <td className={`${td} text-right tabular-nums whitespace-nowrap`}>{withUnit(s.depth, 'm')}</td>
-                      <td className={`${td} text-right tabular-nums`}>{shoreNormalText(s)}</td>
-                      <td className={`${td} text-right tabular-nums`}>{fmt(s.breakerIndex)}</td>
-                      <td className={td}>{s.timeZone}</td>
-                      <td className={td}>{hindcastName(s, hindcasts.data)}</td>
-                      {canEdit ? <td className={`${td} w-1 whitespace-nowrap`}>{actions(s)}</td> : null}
                     </tr>
-                    {confirming === s.id ? (
-                      <tr className="border-b border-line">
-                        <td className="px-3 pb-3" colSpan={canEdit ? 7 : 6}>
-                          {confirmBox(s)}
-                        </td>
-                      </tr>
-                    ) : null}
-                  </Fragment>
-                ))}
-              </tbody>
-            </table>
-          </div>
-          {/* Phone: one card per worksite. */}
-          <ul className="flex flex-col gap-3 md:hidden">
-            {list.map((s) => (
-              <li key={s.id}>
-                <Card className="!p-4">
-                  <div className="font-semibold">
-                    {s.name}
-                    <TransferTag site={s} />
-                  </div>
-                  <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
-                    <dt className="text-ink-soft">Depth</dt>
-                    <dd>{withUnit(s.depth, 'm')}</dd>
-                    <dt className="text-ink-soft">Shore normal</dt>
-                    <dd>{shoreNormalText(s)}</dd>
-                    <dt className="text-ink-soft">Breaker index γb</dt>
-                    <dd>{fmt(s.breakerIndex)}</dd>
-                    <dt className="text-ink-soft">Time zone</dt>
-                    <dd className="break-words">{s.timeZone}</dd>
-                    <dt className="text-ink-soft">Hindcast</dt>
-                    <dd>{hindcastName(s, hindcasts.data)}</dd>
-                    {s.latitude !== null && s.longitude !== null ? (
-                      <>
-                        <dt className="text-ink-soft">Position</dt>
-                        <dd>{position(s.latitude, s.longitude)}</dd>
-                      </>
-                    ) : null}
-                  </dl>
-                  {canEdit ? <div className="mt-3">{actions(s)}</div> : null}
-                  {confirming === s.id ? <div className="mt-3">{confirmBox(s)}</div> : null}
-                </Card>
-              </li>
-            ))}
-          </ul>
-        </>
-      )}
-    </div>
+                  ) : null}
+                </Fragment>
+              ))}
+            </tbody>
+          </table>
+        </div>
+        {/* Phone: one card per worksite. */}
+        <ul className="flex flex-col gap-3 md:hidden">
+          {list.map((s) => (
+            <li key={s.id}>
+              <Card className="!p-4">
+                <div className="font-semibold">
+                  {s.name}
+                  <TransferTag site={s} />
+                </div>
+                <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-1 text-sm">
+                  <dt className="text-ink-soft">Depth</dt>
+                  <dd>{withUnit(s.depth, 'm')}</dd>
+                  <dt className="text-ink-soft">Shore normal</dt>
+                  <dd>{shoreNormalText(s)}</dd>
+                  <dt className="text-ink-soft">Breaker index γb</dt>
+                  <dd>{fmt(s.breakerIndex)}</dd>
+                  <dt className="text-ink-soft">Time zone</dt>
+                  <dd className="break-words">{s.timeZone}</dd>
+                  <dt className="text-ink-soft">Hindcast</dt>
+                  <dd>{hindcastName(s, hindcasts.data)}</dd>
+                  {s.latitude !== null && s.longitude !== null ? (
+                    <>
+                      <dt className="text-ink-soft">Position</dt>
+                      <dd>{position(s.latitude, s.longitude)}</dd>
+                    </>
+                  ) : null}
+                </dl>
+                {canEdit ? <div className="mt-3">{actions(s)}</div> : null}
+                {confirming === s.id ? <div className="mt-3">{confirmBox(s)}</div> : null}
+              </Card>
+            </li>
+          ))}
+        </ul>
+      </>
+    </EditableListFrame>
   );
 }
 
