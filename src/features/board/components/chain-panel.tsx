@@ -442,7 +442,7 @@ function ResponseDetail({ detail: r, unit }: { detail: ResponseDetailData; unit:
         </div>
         <div>
           <dt className="text-ink-soft">Hs total / equivalent Hs limit</dt>
-          <dd className="tabular-nums">
+          <dd className="tabular-nums" data-testid="response-hs">
             {fmt(r.hsTotal, 2, 'm')} / {r.hsEquivalent === null ? '–' : fmt(r.hsEquivalent, 2, 'm')}
           </dd>
         </div>
