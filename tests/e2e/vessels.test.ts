@@ -78,7 +78,7 @@ describe('vessels and response limits', () => {
     await page.getByRole('button', { name: 'Import this table' }).click();
     await page.getByText('Imported: 2 responses, 3 periods, 3 headings.').waitFor({ timeout: 60_000 });
     // The stored table is shown as the vessel's own.
-    await page.getByRole('heading', { name: 'RAO table', level: 2 }).waitFor({ timeout: 30_000 });
+    await page.getByRole('heading', { name: 'RAO table', exact: true, level: 2 }).waitFor({ timeout: 30_000 });
     const vessels = await getJson<VesselResponse[]>(page, `/api/projects/${projectId}/vessels`);
     const vessel = vessels.find((v) => v.name === 'Trial workboat')!;
     const raos = await getJson<VesselRaosResponse>(page, `/api/projects/${projectId}/vessels/${vessel.id}/raos`);

@@ -1,19 +1,11 @@
 // One response of an RAO table against wave period, one line per relative heading
 // (docs/domain.md#vessel-response). Lines differ by dash pattern as well as colour, and each is
 // named in the key, so the plot reads without colour; the values are in a table below it.
+import { ticks } from 'd3-array';
 import { useId } from 'react';
+import { LINE_COLOURS } from '../../../lib/line-colours';
 import { useIsDark } from '../../../lib/use-is-dark';
 
-/** Light and dark colour of the n-th heading's line (cycled). */
-const LINE_COLOURS: [string, string][] = [
-  ['#0b7a72', '#49c2b3'],
-  ['#c2410c', '#fb923c'],
-  ['#7c3aed', '#c4b5fd'],
-  ['#0369a1', '#7dd3fc'],
-  ['#be185d', '#f9a8d4'],
-  ['#4d7c0f', '#bef264'],
-  ['#a16207', '#fde047'],
-];
 const DASHES = [undefined, '8 4', '2 3', '10 3 2 3', '4 4', '12 4', '1 5'];
 
 /** Headings shown as lines: all up to 8, else about 8 spread evenly (the table below keeps every one). */
@@ -21,14 +13,6 @@ export function headingsToDraw(count: number): number[] {
   if (count <= 8) return Array.from({ length: count }, (_, i) => i);
   const step = (count - 1) / 7;
   return [...new Set(Array.from({ length: 8 }, (_, i) => Math.round(i * step)))];
-}
-
-/** A round axis step for a span (1, 2 or 5 times a power of ten), about `n` steps. */
-function niceStep(span: number, n: number): number {
-  const raw = span / n;
-  const p = 10 ** Math.floor(Math.log10(raw));
-  const m = raw / p;
-  return (m <= 1 ? 1 : m <= 2 ? 2 : m <= 5 ? 5 : 10) * p;
 }
 
 const W = 520;
@@ -58,15 +42,11 @@ export function RaoPlot({
   const x0 = periods[0];
   const x1 = periods[periods.length - 1];
   const yMax = Math.max(1e-9, ...shown.flatMap((h) => values[h]));
-  const yStep = niceStep(yMax, 4);
-  const yTop = Math.ceil(yMax / yStep) * yStep;
-  const xStep = niceStep(x1 - x0, 6);
+  const yTicks = ticks(0, yMax, 4);
+  const yTop = Math.max(yMax, yTicks[yTicks.length - 1] ?? yMax);
   const sx = (x: number) => L + ((x - x0) / (x1 - x0 || 1)) * (W - L - R);
   const sy = (y: number) => H - B - (y / yTop) * (H - T - B);
-  const xTicks: number[] = [];
-  for (let x = Math.ceil(x0 / xStep) * xStep; x <= x1 + 1e-9; x += xStep) xTicks.push(Math.round(x * 1e6) / 1e6);
-  const yTicks: number[] = [];
-  for (let y = 0; y <= yTop + 1e-9; y += yStep) yTicks.push(Math.round(y * 1e6) / 1e6);
+  const xTicks = ticks(x0, x1, 6);
   const perMetre = `${unit} per m`;
   return (
     <figure className="flex flex-col gap-2" data-testid="rao-plot">
