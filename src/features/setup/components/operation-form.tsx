@@ -10,7 +10,7 @@ import { responseLabel, responseUnit } from '../../../../shared/response/rao';
 import { HS_TARGET_LABELS } from '../../../../shared/engine/explain-hour';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
-import { Button, ErrorNotice, FieldShell, Input, Select, TextArea } from '../../../components/ui';
+import { Button, ErrorNotice, FieldShell, Input, Select, Spinner, TextArea } from '../../../components/ui';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 import { useMembers } from '../api/get-members';
@@ -206,7 +206,8 @@ export function OperationForm({
     name: ['tpop', 'tc', 'weatherRestricted', 'siteIds', 'limits', 'skipperIds'],
   });
   const members = useMembers(projectId).data;
-  const vessels = useVessels(projectId).data ?? [];
+  const vesselsQuery = useVessels(projectId);
+  const vessels = vesselsQuery.data ?? [];
   const responseRows = useFieldArray({ control: form.control, name: 'limits.responses' });
   const [vesselIdText] = useWatch({ control: form.control, name: ['vesselId'] });
   const vessel = vessels.find((v) => v.id === vesselIdText);
@@ -550,126 +551,132 @@ export function OperationForm({
         title="Vessel response"
         hint="Limits on what the vessel does (roll, heave, pitch, a point's motion), from its RAO table and each hour's sea at the worksite, partition by partition. Alpha applies through the equivalent Hs limit. Vessels and their RAO tables are on the Vessels page."
       >
-        <div className="grid gap-4 sm:grid-cols-2">
-          <FieldShell
-            label="Vessel"
-            htmlFor={f('vessel-id')}
-            error={err('vesselId')}
-            hint={vessels.length === 0 ? 'No vessels in this project yet.' : 'The vessel the operation is done from, or none.'}
-          >
-            <Select id={f('vessel-id')} {...form.register('vesselId')} invalid={!!err('vesselId')}>
-              <option value="">No vessel</option>
-              {vessels.map((v) => (
-                <option key={v.id} value={v.id}>
-                  {v.name}
-                  {v.responses.length === 0 ? ' (no RAO table yet)' : ''}
-                </option>
-              ))}
-              {vesselIdText && !vessel && vessels.length > 0 ? <option value={vesselIdText}>Vessel not found</option> : null}
-            </Select>
-          </FieldShell>
-          <FieldShell
-            label="Vessel heading"
-            unit="deg true"
-            htmlFor={f('heading')}
-            error={err('heading')}
-            hint="The fixed heading the vessel keeps, 0–360° true; each hour the sea's direction relative to it picks the RAO."
-          >
-            <Input id={f('heading')} inputMode="decimal" {...form.register('heading')} invalid={!!err('heading')} />
-          </FieldShell>
-        </div>
-        {err('limits.responses') ? (
-          <p role="alert" className="text-sm font-semibold text-danger">
-            {err('limits.responses')}
-          </p>
-        ) : null}
-        <ol className="flex flex-col gap-3" aria-label="Response limits">
-          {responseRows.fields.map((row, i) => {
-            const current = limitsText.responses[i];
-            const unit = current ? responseUnit(current.response) : '';
-            const choices =
-              current && current.response && !vesselResponses.includes(current.response)
-                ? [current.response, ...vesselResponses]
-                : vesselResponses;
-            const p = `limits.responses.${i}`;
-            return (
-              <li key={row.id}>
-                <fieldset className="rounded-lg border border-line p-3" data-testid="response-limit">
-                  <legend className="px-1 text-sm font-semibold">Response limit {i + 1}</legend>
-                  <div className="grid gap-3 sm:grid-cols-[2fr_2fr_1fr_1fr_auto] sm:items-start">
-                    <FieldShell label="Response" htmlFor={f(`resp-${i}`)} error={err(`${p}.response`)}>
-                      <Select id={f(`resp-${i}`)} {...form.register(`limits.responses.${i}.response`)} invalid={!!err(`${p}.response`)}>
-                        {choices.length === 0 ? <option value="">Choose a vessel with an RAO table first</option> : null}
-                        {choices.map((c) => (
-                          <option key={c} value={c}>
-                            {responseLabel(c)}
-                            {vesselResponses.includes(c) ? '' : ' (not in the vessel’s RAO table)'}
-                          </option>
-                        ))}
-                      </Select>
-                    </FieldShell>
-                    <FieldShell label="Statistic" htmlFor={f(`stat-${i}`)} error={err(`${p}.statistic`)}>
-                      <Select id={f(`stat-${i}`)} {...form.register(`limits.responses.${i}.statistic`)}>
-                        <option value="significant">Significant amplitude R_s</option>
-                        <option value="mpm">Most probable maximum R_mpm</option>
-                      </Select>
-                    </FieldShell>
-                    <FieldShell
-                      label="Duration"
-                      unit="h"
-                      htmlFor={f(`dur-${i}`)}
-                      error={err(`${p}.durationH`)}
-                      hint={current?.statistic === 'mpm' ? `Blank: ${DEFAULT_MPM_DURATION_H} h.` : 'For R_mpm only.'}
-                    >
-                      <Input
-                        id={f(`dur-${i}`)}
-                        inputMode="decimal"
-                        disabled={current?.statistic !== 'mpm'}
-                        {...form.register(`limits.responses.${i}.durationH`)}
-                        invalid={!!err(`${p}.durationH`)}
-                      />
-                    </FieldShell>
-                    <FieldShell label="Max" unit={unit || undefined} htmlFor={f(`max-${i}`)} error={err(`${p}.max`)}>
-                      <Input
-                        id={f(`max-${i}`)}
-                        inputMode="decimal"
-                        {...form.register(`limits.responses.${i}.max`)}
-                        invalid={!!err(`${p}.max`)}
-                      />
-                    </FieldShell>
-                    <Button
-                      variant="ghost"
-                      className="sm:mt-6"
-                      onClick={() => responseRows.remove(i)}
-                      aria-label={`Remove response limit ${i + 1}`}
-                    >
-                      Remove
-                    </Button>
-                  </div>
-                </fieldset>
-              </li>
-            );
-          })}
-        </ol>
-        <div>
-          <Button
-            variant="secondary"
-            disabled={vesselResponses.length === 0}
-            onClick={() =>
-              responseRows.append({
-                response: vesselResponses[0] ?? '',
-                statistic: 'mpm',
-                durationH: String(DEFAULT_MPM_DURATION_H),
-                max: '',
-              })
-            }
-          >
-            Add a response limit
-          </Button>
-          {vesselResponses.length === 0 ? (
-            <p className="mt-1 text-xs text-ink-soft">Choose a vessel with an RAO table to add limits on its responses.</p>
-          ) : null}
-        </div>
+        {vesselsQuery.isPending ? (
+          <Spinner label="Loading the project’s vessels" />
+        ) : (
+          <>
+            <div className="grid gap-4 sm:grid-cols-2">
+              <FieldShell
+                label="Vessel"
+                htmlFor={f('vessel-id')}
+                error={err('vesselId')}
+                hint={vessels.length === 0 ? 'No vessels in this project yet.' : 'The vessel the operation is done from, or none.'}
+              >
+                <Select id={f('vessel-id')} {...form.register('vesselId')} invalid={!!err('vesselId')}>
+                  <option value="">No vessel</option>
+                  {vessels.map((v) => (
+                    <option key={v.id} value={v.id}>
+                      {v.name}
+                      {v.responses.length === 0 ? ' (no RAO table yet)' : ''}
+                    </option>
+                  ))}
+                  {vesselIdText && !vessel ? <option value={vesselIdText}>Vessel not found</option> : null}
+                </Select>
+              </FieldShell>
+              <FieldShell
+                label="Vessel heading"
+                unit="deg true"
+                htmlFor={f('heading')}
+                error={err('heading')}
+                hint="The fixed heading the vessel keeps, 0–360° true; each hour the sea's direction relative to it picks the RAO."
+              >
+                <Input id={f('heading')} inputMode="decimal" {...form.register('heading')} invalid={!!err('heading')} />
+              </FieldShell>
+            </div>
+            {err('limits.responses') ? (
+              <p role="alert" className="text-sm font-semibold text-danger">
+                {err('limits.responses')}
+              </p>
+            ) : null}
+            <ol className="flex flex-col gap-3" aria-label="Response limits">
+              {responseRows.fields.map((row, i) => {
+                const current = limitsText.responses[i];
+                const unit = current ? responseUnit(current.response) : '';
+                const choices =
+                  current && current.response && !vesselResponses.includes(current.response)
+                    ? [current.response, ...vesselResponses]
+                    : vesselResponses;
+                const p = `limits.responses.${i}`;
+                return (
+                  <li key={row.id}>
+                    <fieldset className="rounded-lg border border-line p-3" data-testid="response-limit">
+                      <legend className="px-1 text-sm font-semibold">Response limit {i + 1}</legend>
+                      <div className="grid gap-3 sm:grid-cols-[2fr_2fr_1fr_1fr_auto] sm:items-start">
+                        <FieldShell label="Response" htmlFor={f(`resp-${i}`)} error={err(`${p}.response`)}>
+                          <Select id={f(`resp-${i}`)} {...form.register(`limits.responses.${i}.response`)} invalid={!!err(`${p}.response`)}>
+                            {choices.length === 0 ? <option value="">Choose a vessel with an RAO table first</option> : null}
+                            {choices.map((c) => (
+                              <option key={c} value={c}>
+                                {responseLabel(c)}
+                                {vesselResponses.includes(c) ? '' : ' (not in the vessel’s RAO table)'}
+                              </option>
+                            ))}
+                          </Select>
+                        </FieldShell>
+                        <FieldShell label="Statistic" htmlFor={f(`stat-${i}`)} error={err(`${p}.statistic`)}>
+                          <Select id={f(`stat-${i}`)} {...form.register(`limits.responses.${i}.statistic`)}>
+                            <option value="significant">Significant amplitude R_s</option>
+                            <option value="mpm">Most probable maximum R_mpm</option>
+                          </Select>
+                        </FieldShell>
+                        <FieldShell
+                          label="Duration"
+                          unit="h"
+                          htmlFor={f(`dur-${i}`)}
+                          error={err(`${p}.durationH`)}
+                          hint={current?.statistic === 'mpm' ? `Blank: ${DEFAULT_MPM_DURATION_H} h.` : 'For R_mpm only.'}
+                        >
+                          <Input
+                            id={f(`dur-${i}`)}
+                            inputMode="decimal"
+                            disabled={current?.statistic !== 'mpm'}
+                            {...form.register(`limits.responses.${i}.durationH`)}
+                            invalid={!!err(`${p}.durationH`)}
+                          />
+                        </FieldShell>
+                        <FieldShell label="Max" unit={unit || undefined} htmlFor={f(`max-${i}`)} error={err(`${p}.max`)}>
+                          <Input
+                            id={f(`max-${i}`)}
+                            inputMode="decimal"
+                            {...form.register(`limits.responses.${i}.max`)}
+                            invalid={!!err(`${p}.max`)}
+                          />
+                        </FieldShell>
+                        <Button
+                          variant="ghost"
+                          className="sm:mt-6"
+                          onClick={() => responseRows.remove(i)}
+                          aria-label={`Remove response limit ${i + 1}`}
+                        >
+                          Remove
+                        </Button>
+                      </div>
+                    </fieldset>
+                  </li>
+                );
+              })}
+            </ol>
+            <div>
+              <Button
+                variant="secondary"
+                disabled={vesselResponses.length === 0}
+                onClick={() =>
+                  responseRows.append({
+                    response: vesselResponses[0] ?? '',
+                    statistic: 'mpm',
+                    durationH: String(DEFAULT_MPM_DURATION_H),
+                    max: '',
+                  })
+                }
+              >
+                Add a response limit
+              </Button>
+              {vesselResponses.length === 0 ? (
+                <p className="mt-1 text-xs text-ink-soft">Choose a vessel with an RAO table to add limits on its responses.</p>
+              ) : null}
+            </div>
+          </>
+        )}
       </FormSection>
 
       <FormSection
