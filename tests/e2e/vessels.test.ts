@@ -107,6 +107,10 @@ describe('vessels and response limits', () => {
     expect(await limit.textContent()).toContain('(deg)');
     await opForm.getByRole('button', { name: 'Save operation' }).click();
     await page.getByText(`Operation “${OPERATION}” saved.`).waitFor({ timeout: 60_000 });
+    // The card says it in words (non-breaking spaces before units are white space to \s).
+    const card = page.getByTestId('operation-card').filter({ hasText: OPERATION });
+    expect(await card.getByTestId('operation-vessel').textContent()).toBe('Vessel: Trial workboat, heading 40° true');
+    expect(await card.getByTestId('limits-summary').textContent()).toMatch(/roll significant ≤ 6\sdeg/);
     const ops = await getJson<OperationResponse[]>(page, `/api/projects/${projectId}/operations`);
     const op = ops.find((o) => o.name === OPERATION)!;
     expect(op.vesselId).toBe(vessel.id);
