@@ -455,7 +455,9 @@ function ResponseDetail({ detail: r, unit }: { detail: ResponseDetailData; unit:
       </p>
       {r.partitions.length > 0 ? (
         <table className="mt-1 w-full text-xs tabular-nums" data-testid="response-partitions">
-          <caption className="text-left text-ink-soft">Sea at the worksite the response is computed from</caption>
+          <caption className="text-left text-ink-soft">
+            Sea at the worksite the response is computed from (a sea without partitions counts as one wind sea)
+          </caption>
           <thead>
             <tr className="text-left text-ink-soft">
               <th scope="col">Partition</th>
