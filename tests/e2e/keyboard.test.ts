@@ -7,7 +7,7 @@ import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { screenshot, useBrowserApp } from '../support/browser';
-import { chooseWithKeys, isFocused, tabTo, typeInto } from '../support/keyboard';
+import { chooseFileWithKeys, chooseWithKeys, isFocused, tabTo, typeInto } from '../support/keyboard';
 
 const app = useBrowserApp({ signIn: 'coordinator' });
 const { server, browser } = app;
@@ -120,10 +120,8 @@ describe('keyboard only', () => {
     const { page } = browser;
     await page.goto(`${server.baseUrl}/projects/${app.projectId}/sea-data/import`);
     const fileInput = page.locator('#file');
-    await tabTo(page, fileInput);
     // Space on a file input opens the system's chooser; the test answers it with the file.
-    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.keyboard.press('Space')]);
-    await chooser.setFiles(NDBC_FILE);
+    await chooseFileWithKeys(page, fileInput, NDBC_FILE);
     await page.getByTestId('ndbc-preview').waitFor({ timeout: 60_000 });
 
     await typeInto(page, page.locator('#name'), 'Keyboard buoy 44013');

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import type { VesselRaosResponse, VesselResponse } from '../../shared/api-types-vessels';
 import type { OperationResponse } from '../../shared/api-types-sites';
 import { openDemoProject, screenshot, useBrowserApp } from '../support/browser';
-import { tabTo, typeInto } from '../support/keyboard';
+import { chooseFileWithKeys, tabTo, typeInto } from '../support/keyboard';
 
 const { server, browser, signIn } = useBrowserApp();
 
@@ -154,10 +154,8 @@ describe('vessels and response limits', () => {
     await page.getByRole('heading', { name: 'Keyboard barge', level: 1 }).waitFor({ timeout: 60_000 });
 
     const fileInput = page.getByLabel('RAO table (CSV)');
-    await tabTo(page, fileInput);
     // Space on a file input opens the system's chooser; the test answers it with the file.
-    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.keyboard.press('Space')]);
-    await chooser.setFiles(csvFile('keyboard-raos.csv', GOOD_CSV));
+    await chooseFileWithKeys(page, fileInput, csvFile('keyboard-raos.csv', GOOD_CSV));
     await page.getByTestId('rao-plot').first().waitFor({ timeout: 30_000 });
     // The values behind a plot open with the keyboard too.
     const summary = page.locator('summary', { hasText: 'Values of roll as a table' });
