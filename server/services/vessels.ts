@@ -8,6 +8,7 @@ import { idParam } from '../../shared/schemas/common';
 import { nameKey } from '../../shared/schemas/sites';
 import { readRaoCsv, type ResponseQuery, type VesselInput } from '../../shared/schemas/vessel';
 import { DEFAULT_RESPONSE_SEA, summariseResponse, type SeaPartition, type VesselResponseSummary } from '../../shared/response';
+import type { VesselRaosResponse, VesselResponse } from '../../shared/api-types-vessels';
 import type { Db } from '../db/client';
 import { vessel } from '../db/schema';
 import type { SessionUser } from '../http/context';
@@ -15,27 +16,6 @@ import { HttpError, notFound } from '../http/errors';
 import { recordAudit } from './audit';
 
 type VesselRow = typeof vessel.$inferSelect;
-
-export interface VesselResponse {
-  id: string;
-  name: string;
-  /** Response columns of its RAO table (empty until one is imported). */
-  responses: string[];
-  raoFileName: string | null;
-  raoImportedAt: string | null;
-}
-
-/** A vessel's RAO table as answered: periods, headings and per response its amplitudes [heading][period]. */
-export interface VesselRaosResponse {
-  vesselId: string;
-  fileName: string | null;
-  importedAt: string | null;
-  /** Periods, s, ascending. */
-  periods: number[];
-  /** Relative headings, deg, ascending (0 = head seas). */
-  headings: number[];
-  responses: { response: string; label: string; unit: string; values: number[][] }[];
-}
 
 const toVessel = (r: VesselRow): VesselResponse => ({
   id: r.id,

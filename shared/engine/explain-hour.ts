@@ -30,6 +30,12 @@ export interface ResponseCheckDetail {
   hsEquivalent: number | null;
   /** The partition that gives most of the response's m0, with its share (0-1). */
   drivenBy: { kind: SeaPartition['kind']; index: number; share: number } | null;
+  /**
+   * The sea the response was computed from, partition by partition, at the worksite (Hs m, Tp s,
+   * direction deg true; null where unknown), with each one's share (0-1) of the response's m0
+   * (null when the response could not be computed or is 0).
+   */
+  partitions: { kind: SeaPartition['kind']; hsM: number | null; tpS: number | null; dirDeg: number | null; share: number | null }[];
 }
 
 /** One limit tested against one hour: the values behind the "chain" view of the board. */
@@ -415,13 +421,18 @@ export function explainHour(
       const hsEq = value === null ? null : value > 0 ? (hsTotal * r.max) / value : Infinity;
       const a = hsEq === null ? null : useAlpha ? alphaFor(alphaTable, op.tpopH, hsEq, tr, op.weatherRestricted) : 1;
       const opwf = a === null ? null : a * r.max;
+      // Each partition's share of m0: the moments add over partitions (docs/domain.md#vessel-response).
+      const shares: (number | null)[] = parts.map(() => null);
+      if (has && m.m0 > 0 && parts.length > 1)
+        parts.forEach(
+          (p, index) => (shares[index] = tabulatedResponseMoments(rao!, r.response, op.vessel!.headingDeg, [p], settings).m0 / m.m0),
+        );
+      else if (has && m.m0 > 0 && parts.length === 1) shares[0] = 1;
       let drivenBy: ResponseCheckDetail['drivenBy'] = null;
-      if (has && m.m0 > 0 && parts.length > 1) {
-        parts.forEach((p, index) => {
-          const share = tabulatedResponseMoments(rao!, r.response, op.vessel!.headingDeg, [p], settings).m0 / m.m0;
-          if (!drivenBy || share > drivenBy.share) drivenBy = { kind: p.kind, index, share };
-        });
-      } else if (has && parts.length === 1) drivenBy = { kind: parts[0].kind, index: 0, share: 1 };
+      shares.forEach((share, index) => {
+        if (share !== null && (!drivenBy || share > drivenBy.share)) drivenBy = { kind: parts[index].kind, index, share };
+      });
+      if (!drivenBy && has && parts.length === 1) drivenBy = { kind: parts[0].kind, index: 0, share: 1 };
       const unit = responseUnit(r.response);
       push({
         limit: 'response',
@@ -444,6 +455,13 @@ export function explainHour(
           hsTotal: ok(hsTotal) ? hsTotal : null,
           hsEquivalent: hsEq !== null && Number.isFinite(hsEq) ? hsEq : null,
           drivenBy,
+          partitions: parts.map((p, index) => ({
+            kind: p.kind,
+            hsM: ok(p.hsM) ? p.hsM : null,
+            tpS: ok(p.tpS) ? p.tpS : null,
+            dirDeg: ok(p.dirDeg) ? p.dirDeg : null,
+            share: shares[index],
+          })),
         },
         ...(!known && op.vessel && rao && rao.amplitudes[r.response] === undefined
           ? { reason: `the vessel has no RAO for ${responseLabel(r.response)}` }

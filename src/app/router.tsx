@@ -76,6 +76,8 @@ export const router = createBrowserRouter([
             path: 'forecast-skill',
             lazy: page(() => import('../features/forecast-skill/components/forecast-skill-page'), 'ForecastSkillPage'),
           },
+          { path: 'vessels', lazy: page(() => import('../features/vessels/components/vessels-page'), 'VesselsPage') },
+          { path: 'vessels/:vesselId', lazy: page(() => import('../features/vessels/components/vessel-page'), 'VesselPage') },
           { path: 'sea-data', lazy: page(() => import('../features/datasets/components/datasets-page'), 'DatasetsPage') },
           { path: 'sea-data/import', lazy: page(() => import('../features/datasets/components/dataset-import-page'), 'DatasetImportPage') },
           {

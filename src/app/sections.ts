@@ -13,6 +13,7 @@ export const PROJECT_SECTIONS: { path: string; label: string; roles: ProjectAcce
   { path: '', label: 'Overview', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'board', label: 'Watch board', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'setup', label: 'Sites & limits', roles: ['admin', 'coordinator', 'skipper', 'client'] },
+  { path: 'vessels', label: 'Vessels', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'downtime', label: 'Downtime', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'alerts', label: 'Alerts', roles: ['admin', 'coordinator', 'skipper', 'client'] },
   { path: 'sea-data', label: 'Sea data', roles: ['admin', 'coordinator', 'skipper', 'client'] },

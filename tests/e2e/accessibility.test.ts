@@ -21,6 +21,7 @@ async function pagesFor(page: Page, account: DemoAccount, projectId: string): Pr
   };
   const sites = await get<{ id: string }[]>(`/api/projects/${projectId}/sites`);
   const datasets = await get<{ id: string }[]>(`/api/projects/${projectId}/datasets`);
+  const vessels = await get<{ id: string }[]>(`/api/projects/${projectId}/vessels`);
   const project = `/projects/${projectId}`;
   const pages = [
     '/',
@@ -37,6 +38,8 @@ async function pagesFor(page: Page, account: DemoAccount, projectId: string): Pr
     `${project}/alerts`,
     `${project}/sea-data`,
     `${project}/sea-data/${datasets[0].id}`,
+    `${project}/vessels`,
+    `${project}/vessels/${vessels[0].id}`,
   ];
   if (account === 'coordinator' || account === 'admin') pages.push(`${project}/settings`, `${project}/sea-data/import`);
   if (account === 'admin') pages.push('/admin/people', '/admin/mailbox');

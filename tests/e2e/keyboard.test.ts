@@ -4,54 +4,16 @@
 // adds an operation and imports a buoy file with Tab, typing, Space and Enter only (no clicks).
 // Addresses are typed into the browser (page.goto) as a keyboard user would.
 import path from 'node:path';
-import type { Locator, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { screenshot, useBrowserApp } from '../support/browser';
+import { chooseFileWithKeys, chooseWithKeys, isFocused, tabTo, typeInto } from '../support/keyboard';
 
 const app = useBrowserApp({ signIn: 'coordinator' });
 const { server, browser } = app;
 
 // NDBC station 44013, 21 Apr to 5 Jun 2022, a public-domain NOAA file (tests/fixtures/ndbc/README.md).
 const NDBC_FILE = path.resolve(import.meta.dirname, '../fixtures/ndbc/44013.txt');
-
-const isFocused = (target: Locator) => target.evaluate((el) => el === document.activeElement);
-const focusedText = (page: Page) =>
-  page.evaluate(() => {
-    const el = document.activeElement;
-    return el ? `${el.tagName.toLowerCase()} "${el.getAttribute('aria-label') ?? el.textContent?.trim().slice(0, 40) ?? ''}"` : 'nothing';
-  });
-
-/** Presses Tab (Shift+Tab with `back`) until `target` has the focus; fails after `max` presses, saying where the focus went. */
-async function tabTo(page: Page, target: Locator, { back = false, max = 120 } = {}): Promise<void> {
-  await target.first().waitFor({ timeout: 60_000 });
-  const passed: string[] = [];
-  for (let i = 0; i < max; i++) {
-    if (await isFocused(target.first())) return;
-    await page.keyboard.press(back ? 'Shift+Tab' : 'Tab');
-    passed.push(await focusedText(page));
-  }
-  throw new Error(`${max} presses of Tab never reached the target; the focus went through: ${passed.slice(-15).join(', ')}`);
-}
-
-/** Tabs to a field, selects what it holds and types the new text. */
-async function typeInto(page: Page, field: Locator, text: string): Promise<void> {
-  await tabTo(page, field);
-  await page.keyboard.press('ControlOrMeta+A');
-  await page.keyboard.type(text);
-}
-
-/** Tabs to a select and picks the option whose label is given, with the arrow keys. */
-async function chooseWithKeys(page: Page, select: Locator, label: string): Promise<void> {
-  await tabTo(page, select);
-  const options = await select.locator('option').allTextContents();
-  const want = options.findIndex((o) => o.trim() === label);
-  if (want < 0) throw new Error(`no option "${label}" in ${JSON.stringify(options)}`);
-  for (let i = 0; i < options.length && (await select.evaluate((s: HTMLSelectElement) => s.selectedIndex)) !== want; i++) {
-    const now = await select.evaluate((s: HTMLSelectElement) => s.selectedIndex);
-    await page.keyboard.press(now < want ? 'ArrowDown' : 'ArrowUp');
-  }
-  expect(await select.evaluate((s: HTMLSelectElement) => s.selectedIndex)).toBe(want);
-}
 
 /** "row:col" of the focused hour button of the board. */
 const focusedCell = (page: Page) => page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.cell ?? null);
@@ -158,10 +120,8 @@ describe('keyboard only', () => {
     const { page } = browser;
     await page.goto(`${server.baseUrl}/projects/${app.projectId}/sea-data/import`);
     const fileInput = page.locator('#file');
-    await tabTo(page, fileInput);
     // Space on a file input opens the system's chooser; the test answers it with the file.
-    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.keyboard.press('Space')]);
-    await chooser.setFiles(NDBC_FILE);
+    await chooseFileWithKeys(page, fileInput, NDBC_FILE);
     await page.getByTestId('ndbc-preview').waitFor({ timeout: 60_000 });
 
     await typeInto(page, page.locator('#name'), 'Keyboard buoy 44013');

@@ -103,4 +103,33 @@ describe('response limits in the engine (docs/domain.md#vessel-response)', () =>
     expect(c.margin).toBeCloseTo(c.opwf! - c.value!, 12);
     expect(['workable', 'marginal', 'not_workable']).toContain(status);
   });
+
+  it('explainHour lists the sea behind a response partition by partition, with each share of m0 (the hour chain shows them)', () => {
+    const sigOp = op({ responses: [{ response: 'heave_m_per_m', statistic: 'significant', max: 2 }] });
+    const hour = (responsePartitions: { kind: 'windSea' | 'swell'; hsM: number; tpS: number; dirDeg: number }[]) =>
+      explainHour(
+        { hsM: 1.6, tpS: 7, bedVelocityLinearMps: 0, bedVelocitySoulsbyMps: 0, windMps: 0, responsePartitions },
+        sigOp,
+        DEFAULT_ALPHA_TABLE,
+      ).checks[0].response!;
+    const r = hour([
+      { kind: 'windSea', hsM: 1.2, tpS: 6, dirDeg: 30 },
+      { kind: 'swell', hsM: 0.8, tpS: 13, dirDeg: 250 },
+    ]);
+    // Heave RAO 1: each partition's m0 is its own Hs²/16, so its share is Hs_i² / ΣHs² (by hand: 1.44/2.08 and 0.64/2.08).
+    expect(r.partitions.map((p) => [p.kind, p.hsM, p.tpS, p.dirDeg])).toEqual([
+      ['windSea', 1.2, 6, 30],
+      ['swell', 0.8, 13, 250],
+    ]);
+    expect(r.partitions[0].share).toBeCloseTo(1.44 / 2.08, 6);
+    expect(r.partitions[1].share).toBeCloseTo(0.64 / 2.08, 6);
+    // A swell alone: the whole response is its own (by definition of the share).
+    const swellOnly = hour([{ kind: 'swell', hsM: 0.8, tpS: 13, dirDeg: 250 }]);
+    expect(swellOnly.partitions[0].share).toBe(1);
+    expect(swellOnly.drivenBy?.kind).toBe('swell');
+    // An unknown Tp: no response, the partition still listed with the unknown as null (docs/domain.md#vessel-response: no data).
+    const unknown = hour([{ kind: 'windSea', hsM: 1.2, tpS: NaN, dirDeg: 30 }]);
+    expect(unknown.significant).toBeNull();
+    expect(unknown.partitions).toEqual([{ kind: 'windSea', hsM: 1.2, tpS: null, dirDeg: 30, share: null }]);
+  });
 });

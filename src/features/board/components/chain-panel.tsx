@@ -390,11 +390,101 @@ function LimitRow({ check: c }: { check: LimitCheck }) {
           <dd className={`tabular-nums ${c.margin !== null && c.margin < 0 ? 'font-bold text-danger' : ''}`}>{fmt(c.margin, d, c.unit)}</dd>
         </div>
       </dl>
+      {c.response ? <ResponseDetail detail={c.response} unit={c.unit} /> : null}
       {c.reason ? (
         <p className="mt-1 text-xs font-semibold" data-testid="limit-reason">
           {c.reason}
         </p>
       ) : null}
     </li>
+  );
+}
+
+type ResponseDetailData = NonNullable<LimitCheck['response']>;
+
+/** Words for the partitions the response engine reads: swells numbered when there are two. */
+function responsePartitionLabels(parts: ResponseDetailData['partitions']): string[] {
+  const swells = parts.filter((p) => p.kind === 'swell').length;
+  let n = 0;
+  return parts.map((p) => (p.kind === 'windSea' ? 'Wind sea' : swells > 1 ? `Swell ${++n}` : 'Swell'));
+}
+
+const percent = (share: number | null) => (share === null ? '–' : `${Math.round(share * 100)} %`);
+
+/**
+ * A response limit's figures (docs/domain.md#vessel-response): R_s and R_mpm (the one the limit
+ * takes marked in words), the response's Tz, the equivalent Hs limit alpha is read at, and the sea
+ * it came from, partition by partition at the worksite, with each one's share of the response.
+ */
+function ResponseDetail({ detail: r, unit }: { detail: ResponseDetailData; unit: string }) {
+  const labels = responsePartitionLabels(r.partitions);
+  const limited = (s: ResponseDetailData['statistic']) => (r.statistic === s ? ' (the limit)' : '');
+  return (
+    <div className="mt-2 border-t border-line pt-2" data-testid="response-detail">
+      <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-xs">
+        <div>
+          <dt className="text-ink-soft">Significant R_s{limited('significant')}</dt>
+          <dd className="tabular-nums" data-testid="response-significant">
+            {fmt(r.significant, 2, unit)}
+          </dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">
+            Most probable max R_mpm, {fmt(r.durationH, 1, 'h')}
+            {limited('mpm')}
+          </dt>
+          <dd className="tabular-nums" data-testid="response-mpm">
+            {fmt(r.mpm, 2, unit)}
+          </dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">Response zero-crossing period</dt>
+          <dd className="tabular-nums">{fmt(r.tz, 1, 's')}</dd>
+        </div>
+        <div>
+          <dt className="text-ink-soft">Hs total / equivalent Hs limit</dt>
+          <dd className="tabular-nums" data-testid="response-hs">
+            {fmt(r.hsTotal, 2, 'm')} / {r.hsEquivalent === null ? '–' : fmt(r.hsEquivalent, 2, 'm')}
+          </dd>
+        </div>
+      </dl>
+      <p className="mt-1 text-xs" data-testid="response-driven-by">
+        {r.drivenBy
+          ? `Driven by the ${labels[r.drivenBy.index].toLowerCase()} (${percent(r.drivenBy.share)} of the response's energy).`
+          : 'No partition drives it: the response could not be computed for this hour.'}
+      </p>
+      {r.partitions.length > 0 ? (
+        <table className="mt-1 w-full text-xs tabular-nums" data-testid="response-partitions">
+          <caption className="text-left text-ink-soft">
+            Sea at the worksite the response is computed from (a sea without partitions counts as one wind sea)
+          </caption>
+          <thead>
+            <tr className="text-left text-ink-soft">
+              <th scope="col">Partition</th>
+              <th scope="col">Hs</th>
+              <th scope="col">Tp</th>
+              <th scope="col">Direction</th>
+              <th scope="col">Share</th>
+            </tr>
+          </thead>
+          <tbody>
+            {r.partitions.map((p, i) => (
+              <tr key={i}>
+                <th scope="row" className="text-left font-normal">
+                  {labels[i]}
+                  {r.drivenBy?.index === i ? ' (drives it)' : ''}
+                </th>
+                <td>{fmt(p.hsM, 2, 'm')}</td>
+                <td>{fmt(p.tpS, 1, 's')}</td>
+                <td>{p.dirDeg === null ? '–' : fmtDir(p.dirDeg)}</td>
+                <td>{percent(p.share)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : (
+        <p className="mt-1 text-xs">No sea at the worksite for this hour: no data.</p>
+      )}
+    </div>
   );
 }

@@ -1,4 +1,6 @@
 import type { OperationLimits } from '../../../../shared/engine/types';
+import { DEFAULT_MPM_DURATION_H } from '../../../../shared/engine/response-limits';
+import { responseLabel, responseUnit } from '../../../../shared/response/rao';
 import { fmt, range, withUnit } from './format';
 
 /** Names of the bed velocity methods, as the limit says which one it is compared with. */
@@ -46,6 +48,11 @@ export function describeLimits(limits: OperationLimits): string[] {
   if (limits.tideWindow)
     out.push(
       `only ${withUnit(limits.tideWindow.before, 'h')} before to ${withUnit(limits.tideWindow.after, 'h')} after ${limits.tideWindow.reference} water`,
+    );
+  // Vessel response limits (docs/domain.md#vessel-response): R_s, or R_mpm over its duration (3 h by default).
+  for (const r of limits.responses ?? [])
+    out.push(
+      `${responseLabel(r.response).toLowerCase()} ${r.statistic === 'significant' ? 'significant' : `most probable max over ${withUnit(r.durationH ?? DEFAULT_MPM_DURATION_H, 'h')}`} ≤ ${withUnit(r.max, responseUnit(r.response))}`,
     );
   return out;
 }

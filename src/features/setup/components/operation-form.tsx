@@ -1,17 +1,20 @@
 import { useId } from 'react';
-import { useForm, useWatch, type FieldErrors } from 'react-hook-form';
+import { useFieldArray, useForm, useWatch, type FieldErrors } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { alphaFor, WEATHER_RESTRICTED_MAX_TPOP_H, WEATHER_RESTRICTED_MAX_TR_H } from '../../../../shared/engine/alpha-factor';
-import { BED_VELOCITY_METHODS, HS_TARGETS, LIMIT_RANGES, TIDE_REFERENCES } from '../../../../shared/engine/schemas';
+import { BED_VELOCITY_METHODS, HS_TARGETS, LIMIT_RANGES, RESPONSE_STATISTICS, TIDE_REFERENCES } from '../../../../shared/engine/schemas';
+import { DEFAULT_MPM_DURATION_H } from '../../../../shared/engine/response-limits';
+import { responseLabel, responseUnit } from '../../../../shared/response/rao';
 import { HS_TARGET_LABELS } from '../../../../shared/engine/explain-hour';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
-import { Button, ErrorNotice, FieldShell, Input, Select, TextArea } from '../../../components/ui';
+import { Button, ErrorNotice, FieldShell, Input, Select, Spinner, TextArea } from '../../../components/ui';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 import { useMembers } from '../api/get-members';
+import { useVessels } from '../../../api/vessels';
 import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { CurveEditor } from './hs-tp-curve-editor';
 import { BandsEditor } from './tp-bands-editor';
@@ -31,6 +34,9 @@ const OperationText = z.object({
   weatherRestricted: z.boolean(),
   siteIds: z.array(z.string()),
   skipperIds: z.array(z.string()),
+  /** '' = no vessel */
+  vesselId: z.string(),
+  heading: z.string(),
   limits: z.object({
     hsMax: z.string(),
     hsTpCurve: z.array(pairText),
@@ -50,6 +56,9 @@ const OperationText = z.object({
     targetKind: z.enum(['none', ...HS_TARGETS]),
     targetMax: z.string(),
     targetMinPeriod: z.string(),
+    responses: z.array(
+      z.object({ response: z.string(), statistic: z.enum(RESPONSE_STATISTICS), durationH: z.string().optional(), max: z.string() }),
+    ),
   }),
 });
 type OperationText = z.infer<typeof OperationText>;
@@ -92,6 +101,16 @@ function limitsFromText(l: LimitsText): OperationLimits {
               minPeriodS: l.targetKind === 'longPeriod' ? numberFromText(l.targetMinPeriod) : null,
             },
           ],
+    // Vessel response limits (docs/domain.md#vessel-response): a blank duration takes the engine's 3 h.
+    responses:
+      l.responses.length > 0
+        ? l.responses.map((r) => ({
+            response: r.response,
+            statistic: r.statistic,
+            durationH: r.statistic === 'mpm' ? numberOrNull(r.durationH ?? '') : null,
+            max: numberFromText(r.max),
+          }))
+        : null,
   };
 }
 
@@ -108,6 +127,8 @@ const OperationFormSchema = OperationText.transform((v): OperationFormValues => 
   weatherRestricted: v.weatherRestricted,
   siteIds: v.siteIds,
   skipperIds: v.skipperIds,
+  vesselId: v.vesselId === '' ? null : v.vesselId,
+  heading: numberOrNull(v.heading),
   limits: limitsFromText(v.limits),
 })).pipe(OperationInput);
 
@@ -123,6 +144,8 @@ function initialValues(op: OperationResponse | null): OperationText {
     weatherRestricted: op?.weatherRestricted ?? true,
     siteIds: op?.siteIds ?? [],
     skipperIds: op?.skipperIds ?? [],
+    vesselId: op?.vesselId ?? '',
+    heading: textFromNumber(op?.heading),
     limits: {
       hsMax: textFromNumber(l.hsMax),
       hsTpCurve: (l.hsTpCurve ?? []).map(pairText2),
@@ -142,6 +165,12 @@ function initialValues(op: OperationResponse | null): OperationText {
       targetKind: l.hsTargets?.[0]?.target ?? 'none',
       targetMax: textFromNumber(l.hsTargets?.[0]?.max),
       targetMinPeriod: textFromNumber(l.hsTargets?.[0]?.minPeriodS),
+      responses: (l.responses ?? []).map((r) => ({
+        response: r.response,
+        statistic: r.statistic,
+        durationH: r.statistic === 'mpm' ? textFromNumber(r.durationH ?? DEFAULT_MPM_DURATION_H) : '',
+        max: textFromNumber(r.max),
+      })),
     },
   };
 }
@@ -177,6 +206,12 @@ export function OperationForm({
     name: ['tpop', 'tc', 'weatherRestricted', 'siteIds', 'limits', 'skipperIds'],
   });
   const members = useMembers(projectId).data;
+  const vesselsQuery = useVessels(projectId);
+  const vessels = vesselsQuery.data ?? [];
+  const responseRows = useFieldArray({ control: form.control, name: 'limits.responses' });
+  const [vesselIdText] = useWatch({ control: form.control, name: ['vesselId'] });
+  const vessel = vessels.find((v) => v.id === vesselIdText);
+  const vesselResponses = vessel?.responses ?? [];
   const skippers = (members ?? []).filter((m) => m.role === 'skipper');
   const setSkipperIds = (next: string[]) => form.setValue('skipperIds', next, { shouldDirty: true, shouldValidate: revalidate });
   const revalidate = form.formState.isSubmitted;
@@ -185,7 +220,10 @@ export function OperationForm({
     form.setValue(`limits.${key}`, next, { shouldDirty: true, shouldValidate: revalidate });
   const setSiteIds = (next: string[]) => form.setValue('siteIds', next, { shouldDirty: true, shouldValidate: revalidate });
 
-  const onSubmit = form.handleSubmit((input) => {
+  const onSubmit = form.handleSubmit((parsed) => {
+    // The spectrum settings of the response limits are not edited here: kept as they were.
+    const responseSea = op?.limits.responseSea;
+    const input = responseSea ? { ...parsed, limits: { ...parsed.limits, responseSea } } : parsed;
     const done = {
       onSuccess: (saved: OperationResponse) => onDone(saved),
       onError: (e: unknown) => applyServerErrors(e, form.setError),
@@ -506,6 +544,139 @@ export function OperationForm({
             <Input id={f('wind')} inputMode="decimal" {...form.register('limits.windMax')} invalid={!!err('limits.windMax')} />
           </FieldShell>
         </div>
+      </FormSection>
+
+      <FormSection
+        id={f('vessel')}
+        title="Vessel response"
+        hint="Limits on what the vessel does (roll, heave, pitch, a point's motion), from its RAO table and each hour's sea at the worksite, partition by partition. Alpha applies through the equivalent Hs limit. Vessels and their RAO tables are on the Vessels page."
+      >
+        {vesselsQuery.isPending ? (
+          <Spinner label="Loading the project’s vessels" />
+        ) : (
+          <>
+            <div className="grid gap-4 sm:grid-cols-2">
+              <FieldShell
+                label="Vessel"
+                htmlFor={f('vessel-id')}
+                error={err('vesselId')}
+                hint={vessels.length === 0 ? 'No vessels in this project yet.' : 'The vessel the operation is done from, or none.'}
+              >
+                <Select id={f('vessel-id')} {...form.register('vesselId')} invalid={!!err('vesselId')}>
+                  <option value="">No vessel</option>
+                  {vessels.map((v) => (
+                    <option key={v.id} value={v.id}>
+                      {v.name}
+                      {v.responses.length === 0 ? ' (no RAO table yet)' : ''}
+                    </option>
+                  ))}
+                  {vesselIdText && !vessel ? <option value={vesselIdText}>Vessel not found</option> : null}
+                </Select>
+              </FieldShell>
+              <FieldShell
+                label="Vessel heading"
+                unit="deg true"
+                htmlFor={f('heading')}
+                error={err('heading')}
+                hint="The fixed heading the vessel keeps, 0–360° true; each hour the sea's direction relative to it picks the RAO."
+              >
+                <Input id={f('heading')} inputMode="decimal" {...form.register('heading')} invalid={!!err('heading')} />
+              </FieldShell>
+            </div>
+            {err('limits.responses') ? (
+              <p role="alert" className="text-sm font-semibold text-danger">
+                {err('limits.responses')}
+              </p>
+            ) : null}
+            <ol className="flex flex-col gap-3" aria-label="Response limits">
+              {responseRows.fields.map((row, i) => {
+                const current = limitsText.responses[i];
+                const unit = current ? responseUnit(current.response) : '';
+                const choices =
+                  current && current.response && !vesselResponses.includes(current.response)
+                    ? [current.response, ...vesselResponses]
+                    : vesselResponses;
+                const p = `limits.responses.${i}`;
+                return (
+                  <li key={row.id}>
+                    <fieldset className="rounded-lg border border-line p-3" data-testid="response-limit">
+                      <legend className="px-1 text-sm font-semibold">Response limit {i + 1}</legend>
+                      <div className="grid gap-3 sm:grid-cols-[2fr_2fr_1fr_1fr_auto] sm:items-start">
+                        <FieldShell label="Response" htmlFor={f(`resp-${i}`)} error={err(`${p}.response`)}>
+                          <Select id={f(`resp-${i}`)} {...form.register(`limits.responses.${i}.response`)} invalid={!!err(`${p}.response`)}>
+                            {choices.length === 0 ? <option value="">Choose a vessel with an RAO table first</option> : null}
+                            {choices.map((c) => (
+                              <option key={c} value={c}>
+                                {responseLabel(c)}
+                                {vesselResponses.includes(c) ? '' : ' (not in the vessel’s RAO table)'}
+                              </option>
+                            ))}
+                          </Select>
+                        </FieldShell>
+                        <FieldShell label="Statistic" htmlFor={f(`stat-${i}`)} error={err(`${p}.statistic`)}>
+                          <Select id={f(`stat-${i}`)} {...form.register(`limits.responses.${i}.statistic`)}>
+                            <option value="significant">Significant amplitude R_s</option>
+                            <option value="mpm">Most probable maximum R_mpm</option>
+                          </Select>
+                        </FieldShell>
+                        <FieldShell
+                          label="Duration"
+                          unit="h"
+                          htmlFor={f(`dur-${i}`)}
+                          error={err(`${p}.durationH`)}
+                          hint={current?.statistic === 'mpm' ? `Blank: ${DEFAULT_MPM_DURATION_H} h.` : 'For R_mpm only.'}
+                        >
+                          <Input
+                            id={f(`dur-${i}`)}
+                            inputMode="decimal"
+                            disabled={current?.statistic !== 'mpm'}
+                            {...form.register(`limits.responses.${i}.durationH`)}
+                            invalid={!!err(`${p}.durationH`)}
+                          />
+                        </FieldShell>
+                        <FieldShell label="Max" unit={unit || undefined} htmlFor={f(`max-${i}`)} error={err(`${p}.max`)}>
+                          <Input
+                            id={f(`max-${i}`)}
+                            inputMode="decimal"
+                            {...form.register(`limits.responses.${i}.max`)}
+                            invalid={!!err(`${p}.max`)}
+                          />
+                        </FieldShell>
+                        <Button
+                          variant="ghost"
+                          className="sm:mt-6"
+                          onClick={() => responseRows.remove(i)}
+                          aria-label={`Remove response limit ${i + 1}`}
+                        >
+                          Remove
+                        </Button>
+                      </div>
+                    </fieldset>
+                  </li>
+                );
+              })}
+            </ol>
+            <div>
+              <Button
+                variant="secondary"
+                disabled={vesselResponses.length === 0}
+                onClick={() =>
+                  responseRows.append({
+                    response: vesselResponses[0] ?? '',
+                    statistic: 'mpm',
+                    durationH: String(DEFAULT_MPM_DURATION_H),
+                    max: '',
+                  })
+                }
+              >
+                Add a response limit
+              </Button>
+              {vesselResponses.length === 0 ? (
+                <p className="mt-1 text-xs text-ink-soft">Choose a vessel with an RAO table to add limits on its responses.</p>
+              ) : null}
+            </div>
+          </>
+        )}
       </FormSection>
 
       <FormSection

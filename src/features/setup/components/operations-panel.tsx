@@ -8,6 +8,7 @@ import { useDeleteOperation } from '../api/delete-operation';
 import { useAlpha } from '../api/get-alpha';
 import { useOperations } from '../../../api/operations';
 import { useSites } from '../../../api/sites';
+import { useVessels } from '../../../api/vessels';
 import { EditableListFrame, useEditableList } from './editable-list';
 import { Tag } from './form-bits';
 import { fmt, withUnit } from './format';
@@ -57,6 +58,7 @@ export function OperationsPanel({ projectId, canEdit }: { projectId: string; can
         {ops.data.map((o) => (
           <li key={o.id} className="min-w-0">
             <OperationCard
+              projectId={projectId}
               op={o}
               sites={sites.data}
               alphaTable={alpha.data?.table}
@@ -96,13 +98,26 @@ function forecastLimitText(op: OperationResponse, table: AlphaTable | undefined)
   return parts.length > 0 ? `On the forecast: ${parts.join(', ')}` : null;
 }
 
+/** The operation's vessel and heading, in words (response limits read them). */
+function VesselLine({ projectId, vesselId, heading }: { projectId: string; vesselId: string; heading: number | null }) {
+  const name = useVessels(projectId).data?.find((v) => v.id === vesselId)?.name;
+  return (
+    <p className="text-sm" data-testid="operation-vessel">
+      <span className="font-semibold">Vessel:</span> {name ?? 'a vessel no longer listed'}
+      {heading !== null ? `, heading ${fmt(heading, 1)}° true` : ', no heading set'}
+    </p>
+  );
+}
+
 function OperationCard({
+  projectId,
   op,
   sites,
   alphaTable,
   actions,
   confirm,
 }: {
+  projectId: string;
   op: OperationResponse;
   sites: SiteResponse[];
   alphaTable: AlphaTable | undefined;
@@ -134,6 +149,7 @@ function OperationCard({
         <span className="font-semibold">Limits:</span> <span data-testid="limits-summary">{summarizeLimits(op.limits)}</span>
         {forecast ? <span className="block text-ink-soft">{forecast}</span> : null}
       </p>
+      {op.vesselId ? <VesselLine projectId={projectId} vesselId={op.vesselId} heading={op.heading} /> : null}
       <dl className="grid grid-cols-3 gap-2 text-center text-sm">
         <div className="rounded-lg bg-surface-2 px-2 py-1.5">
           <dt className="text-xs text-ink-soft">
