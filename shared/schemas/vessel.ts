@@ -257,7 +257,11 @@ export const ResponseForm = z.record(z.string(), z.string()).transform((raw, ctx
       return undefined;
     }
     if (v < range.min || v > range.max) {
-      ctx.addIssue({ code: 'custom', path: [k], message: `${range.what} must be between ${range.min} and ${range.max} ${range.unit}` });
+      ctx.addIssue({
+        code: 'custom',
+        path: [k],
+        message: `${range.what} must be between ${range.min} and ${range.max}${range.unit === '°' ? '°' : ` ${range.unit}`}`,
+      });
       return undefined;
     }
     return v;

@@ -1,36 +1,10 @@
 import { keepPreviousData, queryOptions, skipToken, useQuery } from '@tanstack/react-query';
+import type { VesselResponseSummary } from '../../../../shared/response/summary';
 import type { ResponseRequest } from '../../../../shared/schemas/vessel';
 import { api } from '../../../lib/api';
 
-/** One response of GET /api/wave/response (docs/domain.md#vessel-response). */
-export interface ResponseFigure {
-  response: string;
-  label: string;
-  unit: string;
-  /** R_s = 2 sqrt(m0), in the response's unit. */
-  significant: number;
-  /** R_mpm over 3 h. */
-  mpm3h: number;
-  /** Tz of the response, s (null when the response is zero). */
-  tz: number | null;
-  m0: number;
-  m2: number;
-  outsideShare: number;
-  warning: string | null;
-  /** S_R(omega) on `omega`, unit^2 s/rad. */
-  spectrum: number[];
-}
-
-/** Answer of GET /api/wave/response. */
-export interface VesselResponseAnswer {
-  vesselId: string;
-  heading: number;
-  /** rad/s */
-  omega: number[];
-  /** S(omega) of the sea, m^2 s/rad (all partitions). */
-  waveSpectrum: number[];
-  responses: ResponseFigure[];
-}
+/** Answer of GET /api/wave/response: the spectra's omega (rad/s), the sea's S(omega) and every response. */
+export type VesselResponseAnswer = VesselResponseSummary & { vesselId: string; heading: number };
 
 /** The query string of a response request (partitions as JSON, as the API reads them). */
 export function responseQueryString(q: ResponseRequest): string {

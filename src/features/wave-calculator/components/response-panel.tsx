@@ -155,27 +155,22 @@ function ResponseForm_({
                   {p.label}
                   {p.key === 'windSea' ? null : <span className="ml-1 font-normal text-ink-soft">(leave blank when absent)</span>}
                 </legend>
-                <NumberField
-                  id={`rs-${p.key}-hs`}
-                  label={`${p.label} Hs`}
-                  unit="m"
-                  registration={check.register(`${p.key}Hs`)}
-                  error={errors[`${p.key}Hs`]}
-                />
-                <NumberField
-                  id={`rs-${p.key}-tp`}
-                  label={`${p.label} Tp`}
-                  unit="s"
-                  registration={check.register(`${p.key}Tp`)}
-                  error={errors[`${p.key}Tp`]}
-                />
-                <NumberField
-                  id={`rs-${p.key}-dir`}
-                  label={`${p.label} direction`}
-                  unit="° from"
-                  registration={check.register(`${p.key}Dir`)}
-                  error={errors[`${p.key}Dir`]}
-                />
+                {(
+                  [
+                    ['Hs', 'hs', 'Hs', 'm'],
+                    ['Tp', 'tp', 'Tp', 's'],
+                    ['Dir', 'dir', 'direction', '° from'],
+                  ] as const
+                ).map(([suffix, id, words, unit]) => (
+                  <NumberField
+                    key={suffix}
+                    id={`rs-${p.key}-${id}`}
+                    label={`${p.label} ${words}`}
+                    unit={unit}
+                    registration={check.register(`${p.key}${suffix}`)}
+                    error={errors[`${p.key}${suffix}`]}
+                  />
+                ))}
               </fieldset>
             ))}
           </div>
