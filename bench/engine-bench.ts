@@ -76,7 +76,8 @@ export function syntheticSeries(seed: number): SiteSeries {
   return series;
 }
 
-const OPERATIONS: OperationSpec[] = [
+/** The bench's ten operations (the response bench adds response limits to four of them). */
+export const OPERATIONS: OperationSpec[] = [
   { tpopH: 6, tcH: 6, weatherRestricted: true, limits: { hsMax: 1.5 } },
   { tpopH: 12, tcH: 6, weatherRestricted: true, limits: { hsMax: 2, windMax: 15 } },
   {
@@ -133,7 +134,10 @@ const TIME_ZONES = ['UTC', 'Europe/Oslo', 'Australia/Sydney', 'America/Halifax',
  * time, the process CPU time (user + system; less sensitive to other load on the machine) and a
  * checksum that keeps the work observable.
  */
-function onePass(sites: SiteSeries[]): { ms: number; cpuMs: number; checksum: number } {
+export function onePass(
+  sites: SiteSeries[],
+  operations: readonly OperationSpec[] = OPERATIONS,
+): { ms: number; cpuMs: number; checksum: number } {
   const cpu0 = process.cpuUsage();
   const t0 = performance.now();
   let checksum = 0;
@@ -141,7 +145,7 @@ function onePass(sites: SiteSeries[]): { ms: number; cpuMs: number; checksum: nu
   sites.forEach((series, s) => {
     const stepMs = detectStepMs(series.timeMs);
     const calendar = calendarIndex(series.timeMs, TIME_ZONES[s]);
-    for (const op of OPERATIONS) {
+    for (const op of operations) {
       const r = operationStatistics(series, op, calendar, { alphaTable: DEFAULT_ALPHA_TABLE, stepMs, workspace });
       for (const m of r.statistics.months) checksum += (m.workability ?? 0) + (m.wowP90Hours ?? 0) * 1e-3;
       checksum += r.statistics.yearMonths.length;
@@ -152,7 +156,7 @@ function onePass(sites: SiteSeries[]): { ms: number; cpuMs: number; checksum: nu
   return { ms, cpuMs: (cpu.user + cpu.system) / 1000, checksum };
 }
 
-function median(xs: number[]): number {
+export function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
   return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
 }

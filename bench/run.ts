@@ -2,6 +2,7 @@
 import os from 'node:os';
 import { describeTideTransformBench, describeTransformBench, runTideTransformBench, runTransformBench } from './transform-bench';
 import { runEngineBench } from './engine-bench';
+import { runResponseBench } from './response-bench';
 import { runEnsembleBench } from './ensemble-bench';
 import { runImportBench } from './import-bench';
 import { runNetcdfBench } from './netcdf-bench';
@@ -17,6 +18,8 @@ console.log(describeTransformBench(await runTransformBench()));
 console.log(describeTideTransformBench(await runTideTransformBench()));
 console.log('');
 await runEngineBench();
+console.log('');
+await runResponseBench();
 console.log('');
 await runEnsembleBench();
 console.log('');

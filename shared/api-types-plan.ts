@@ -163,5 +163,18 @@ export interface ConditionsAnswer {
     minDepth?: number | null;
     maxDepth?: number | null;
     currentMax?: number | null;
+    /**
+     * Vessel-response limits (docs/domain.md#vessel-response), present only for an operation that
+     * has them: per hour the governing response (index into `limits`, null: no data), its R / R_lim
+     * (1 = the operation limit), its R, and its forecast limit as a ratio of R_lim (alpha at the
+     * equivalent Hs limit).
+     */
+    responses?: {
+      limits: { response: string; label: string; unit: string; statistic: 'significant' | 'mpm'; durationH: number; max: number }[];
+      governing: (number | null)[];
+      ratio: (number | null)[];
+      value: (number | null)[];
+      forecastRatio: (number | null)[];
+    };
   }[];
 }

@@ -13,6 +13,9 @@ import {
 import { explainHour, type HourStatus } from '../../shared/engine/explain-hour';
 import type { SeaPartition, SeaPartitionSeries } from '../../shared/response';
 import { targetHsSeries } from '../../shared/engine/hs-targets';
+import { compileLimits } from '../../shared/engine/compiled-limits';
+import { DEFAULT_MPM_DURATION_H, governingResponseSeries } from '../../shared/engine/response-limits';
+import { responseLabel, responseUnit } from '../../shared/response/rao';
 import { PARTITION_NAMES, transformOne, transformPartitionedOne } from '../../shared/waves';
 import { expandRecurrence, RecurrenceInput } from '../../shared/recurrence';
 import type { ConditionsAnswer, HourChainAnswer, OccurrenceStatus, OperationSitePlan, PlanAnswer } from '../../shared/api-types-plan';
@@ -530,8 +533,35 @@ export async function siteConditions(
           minDepth: spec.limits.minDepth ?? null,
           maxDepth: spec.limits.maxDepth ?? null,
           currentMax: spec.limits.currentMax ?? null,
+          ...(spec.limits.responses && spec.limits.responses.length > 0
+            ? { responses: conditionsResponses(t.engine, spec, setup.alphaTable, col) }
+            : {}),
         };
       }),
+  };
+}
+
+/** The governing response per hour of an operation with response limits (docs/domain.md#vessel-response). */
+function conditionsResponses(
+  series: Parameters<typeof governingResponseSeries>[0],
+  spec: ReturnType<typeof operationSpec>,
+  alphaTable: ProjectSetup['alphaTable'],
+  col: (a: Float64Array) => (number | null)[],
+): NonNullable<ConditionsAnswer['operations'][number]['responses']> {
+  const g = governingResponseSeries(series, spec, compileLimits(spec, alphaTable, true));
+  return {
+    limits: (spec.limits.responses ?? []).map((r) => ({
+      response: r.response,
+      label: responseLabel(r.response),
+      unit: responseUnit(r.response),
+      statistic: r.statistic,
+      durationH: r.durationH ?? DEFAULT_MPM_DURATION_H,
+      max: r.max,
+    })),
+    governing: Array.from(g.governing, (k) => (k < 0 ? null : k)),
+    ratio: col(g.ratio),
+    value: col(g.value),
+    forecastRatio: col(g.forecastRatio),
   };
 }
 

@@ -149,3 +149,60 @@ export function responseClass(c: CompiledLimits, value: number, max: number, hsT
   out[1] = opwf;
   return (value > opwf ? 1 : 0) + (value > max ? 1 : 0);
 }
+
+/** The response that governs each record of an operation with response limits (the conditions chart). */
+export interface GoverningResponseSeries {
+  /** Per record, the index into the operation's response limits with the largest R / R_lim (-1: no data). */
+  governing: Int8Array;
+  /** Per record, R / R_lim of the governing response (NaN: no data); 1 = at the operation limit. */
+  ratio: Float64Array;
+  /** Per record, the governing response's R, in its unit (NaN: no data). */
+  value: Float64Array;
+  /**
+   * Per record, the governing response's forecast limit as a ratio of R_lim: alpha at the
+   * equivalent Hs limit Hs_eq = Hs * R_lim / R (see the module comment); 1 without alpha.
+   */
+  forecastRatio: Float64Array;
+}
+
+/**
+ * Per record, the response limit nearest to (or furthest past) its operation limit, by R / R_lim,
+ * with its forecast limit as a ratio (docs/domain.md#vessel-response). A record where any response
+ * limit has no data has no governing response (the hour is "no data" for the status as well).
+ */
+export function governingResponseSeries(series: SiteSeries, op: OperationSpec, c: CompiledLimits): GoverningResponseSeries {
+  const n = series.timeMs.length;
+  const out: GoverningResponseSeries = {
+    governing: new Int8Array(n).fill(-1),
+    ratio: new Float64Array(n).fill(NaN),
+    value: new Float64Array(n).fill(NaN),
+    forecastRatio: new Float64Array(n).fill(NaN),
+  };
+  if (c.responses.length === 0) return out;
+  const { values, hsTotal } = responseLimitSeries(series, op, c.responses);
+  const tmp = new Float64Array(2);
+  for (let i = 0; i < n; i++) {
+    let best = -1;
+    let bestRatio = -Infinity;
+    for (let r = 0; r < c.responses.length; r++) {
+      const v = values[r][i];
+      if (v !== v || hsTotal[i] !== hsTotal[i]) {
+        best = -1;
+        break;
+      }
+      const ratio = v / c.responses[r].max;
+      if (ratio > bestRatio) {
+        bestRatio = ratio;
+        best = r;
+      }
+    }
+    if (best < 0) continue;
+    const l = c.responses[best];
+    responseClass(c, values[best][i], l.max, hsTotal[i], tmp);
+    out.governing[i] = best;
+    out.ratio[i] = bestRatio;
+    out.value[i] = values[best][i];
+    out.forecastRatio[i] = tmp[1] / l.max;
+  }
+  return out;
+}

@@ -204,3 +204,89 @@ export const ResponseQuery = z
         if (q[k] === undefined) ctx.addIssue({ code: 'custom', path: [k], message: 'Required (or give partitions)' });
   });
 export type ResponseQuery = z.infer<typeof ResponseQuery>;
+
+/** The sea partitions the response calculator takes, in order (docs/domain.md#partitions). */
+export const RESPONSE_FORM_PARTITIONS = [
+  { key: 'windSea', kind: 'windSea', label: 'Wind sea' },
+  { key: 'swell1', kind: 'swell', label: 'Swell 1' },
+  { key: 'swell2', kind: 'swell', label: 'Swell 2' },
+] as const;
+
+type PartitionKey = (typeof RESPONSE_FORM_PARTITIONS)[number]['key'];
+type ResponseFormKey =
+  'projectId' | 'vesselId' | 'heading' | 'sea' | 'hs' | 'tp' | 'dir' | `${PartitionKey}Hs` | `${PartitionKey}Tp` | `${PartitionKey}Dir`;
+
+/** The text of every field of the wave calculator's response form. */
+export type ResponseFormFields = Record<ResponseFormKey, string>;
+
+/** What the response form asks the API for: GET /api/wave/response with these (partitions as JSON). */
+export interface ResponseRequest {
+  vesselId: string;
+  heading: number;
+  hs?: number;
+  tp?: number;
+  dir?: number;
+  partitions?: { kind: 'windSea' | 'swell'; hs: number; tp: number; dir: number }[];
+}
+
+/** The ranges of ResponseQuery, worded for the form. */
+const FORM_RANGES = {
+  heading: { what: 'Heading', min: 0, max: 360, unit: '°' },
+  hs: { what: 'Hs', min: 0, max: 30, unit: 'm' },
+  tp: { what: 'Tp', min: 1, max: 40, unit: 's' },
+  dir: { what: 'Direction', min: 0, max: 360, unit: '°' },
+} as const;
+
+/**
+ * The response form (the wave calculator's response mode) over the text of its fields: a vessel,
+ * its heading (deg true), and one sea state, either total (Hs, Tp, direction) or partitions (wind
+ * sea and up to two swells; a partition left blank is absent, one given in part names what is
+ * missing). A decimal comma reads as a point. Ranges as ResponseQuery, which the server parses.
+ */
+export const ResponseForm = z.record(z.string(), z.string()).transform((raw, ctx): ResponseRequest => {
+  const text = (k: string) => (raw[k] ?? '').trim();
+  const read = (k: string, range: (typeof FORM_RANGES)[keyof typeof FORM_RANGES], missing: string | null): number | undefined => {
+    const t = text(k);
+    if (t === '') {
+      if (missing) ctx.addIssue({ code: 'custom', path: [k], message: missing });
+      return undefined;
+    }
+    const v = Number(t.replace(',', '.'));
+    if (!Number.isFinite(v) || !/^[+-]?(\d+([.,]\d*)?|[.,]\d+)([eE][+-]?\d+)?$/.test(t)) {
+      ctx.addIssue({ code: 'custom', path: [k], message: `${range.what} must be a number` });
+      return undefined;
+    }
+    if (v < range.min || v > range.max) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [k],
+        message: `${range.what} must be between ${range.min} and ${range.max}${range.unit === '°' ? '°' : ` ${range.unit}`}`,
+      });
+      return undefined;
+    }
+    return v;
+  };
+  const vesselId = text('vesselId');
+  if (!z.uuid().safeParse(vesselId).success) ctx.addIssue({ code: 'custom', path: ['vesselId'], message: 'Choose a vessel' });
+  const heading = read('heading', FORM_RANGES.heading, 'Enter the vessel heading');
+  const out: ResponseRequest = { vesselId, heading: heading ?? NaN };
+  if (text('sea') === 'partitions') {
+    const parts: NonNullable<ResponseRequest['partitions']> = [];
+    for (const p of RESPONSE_FORM_PARTITIONS) {
+      const keys = [`${p.key}Hs`, `${p.key}Tp`, `${p.key}Dir`] as const;
+      if (keys.every((k) => text(k) === '')) continue;
+      const hs = read(keys[0], FORM_RANGES.hs, `Enter the ${p.label.toLowerCase()} Hs (or leave all three blank)`);
+      const tp = read(keys[1], FORM_RANGES.tp, `Enter the ${p.label.toLowerCase()} Tp (or leave all three blank)`);
+      const dir = read(keys[2], FORM_RANGES.dir, `Enter the ${p.label.toLowerCase()} direction (or leave all three blank)`);
+      if (hs !== undefined && tp !== undefined && dir !== undefined) parts.push({ kind: p.kind, hs, tp, dir });
+    }
+    if (RESPONSE_FORM_PARTITIONS.every((p) => [`${p.key}Hs`, `${p.key}Tp`, `${p.key}Dir`].every((k) => text(k) === '')))
+      ctx.addIssue({ code: 'custom', path: ['windSeaHs'], message: 'Give at least one partition' });
+    out.partitions = parts;
+  } else {
+    out.hs = read('hs', FORM_RANGES.hs, 'Enter the significant wave height');
+    out.tp = read('tp', FORM_RANGES.tp, 'Enter the peak period');
+    out.dir = read('dir', FORM_RANGES.dir, 'Enter the direction the waves come from');
+  }
+  return out;
+}) as unknown as z.ZodType<ResponseRequest, ResponseFormFields>;

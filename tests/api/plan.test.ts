@@ -2,6 +2,7 @@ import request from 'supertest';
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
 import { useSignedInApp, textBody } from '../support/app';
+import type { ConditionsAnswer } from '../../shared/api-types-plan';
 
 // A fixed clock in a winter month, so the invented forecast has passing weather systems.
 const NOW = new Date('2026-12-01T07:30:00Z');
@@ -128,6 +129,38 @@ describe('the forecast plan', () => {
     expect(res.status).toBe(200);
     expect(res.body.hs.length).toBe(res.body.times.length);
     expect(res.body.operations.map((o: { name: string }) => o.name)).toContain('Rock berm placement');
+  });
+
+  it('gives the governing response per hour for an operation with response limits, as the hour chain computes it', async () => {
+    const res = await ctx.as.client.get(`${ctx.base}/conditions/${ctx.t.demo.siteIds.route}`);
+    expect(res.status, res.text).toBe(200);
+    type Op = ConditionsAnswer['operations'][number];
+    const ops = res.body.operations as Op[];
+    // Operations without response limits carry none (seed/scenario-sites.ts: the rock berm has Hs, Tp and wind limits only).
+    expect(ops.find((o) => o.name === 'Rock berm placement')!.responses).toBeUndefined();
+    const lay = ops.find((o) => o.name === 'Cable lay, nearshore section')!;
+    const r = lay.responses!;
+    // The demo's limit on the lay barge: roll, most probable maximum over 3 h, at most 4 deg (seed/scenario-sites.ts).
+    expect(r.limits).toEqual([{ response: 'roll_deg_per_m', label: 'Roll', unit: 'deg', statistic: 'mpm', durationH: 3, max: 4 }]);
+    for (const k of ['governing', 'ratio', 'value', 'forecastRatio'] as const) expect(r[k]).toHaveLength(res.body.times.length);
+    const hours = r.governing.flatMap((g, i) => (g === null ? [] : [i]));
+    expect(hours.length, 'the invented forecast gives the worksite partitions at most hours').toBeGreaterThan(res.body.times.length / 2);
+    for (const i of hours) {
+      // R / R_lim, and the forecast limit is alpha x R_lim with alpha of the table (at most 1).
+      expect(r.ratio[i]).toBeCloseTo(r.value[i]! / 4, 2);
+      expect(r.forecastRatio[i]).toBeGreaterThan(0);
+      expect(r.forecastRatio[i]).toBeLessThanOrEqual(1);
+    }
+    // The hour chain works the same hour on its own path (explain-hour.ts, per hour), with alpha.
+    for (const i of [hours[0], hours[Math.floor(hours.length / 2)]]) {
+      const chain = await ctx.as.client
+        .get(`${ctx.base}/plan/chain`)
+        .query({ operationId: lay.id, siteId: ctx.t.demo.siteIds.route, time: res.body.times[i] });
+      expect(chain.status, chain.text).toBe(200);
+      const check = (chain.body.checks as { limit: string; value: number; opwf: number }[]).find((c) => c.limit === 'response')!;
+      expect(r.value[i]).toBeCloseTo(check.value, 2);
+      expect(r.forecastRatio[i]! * 4).toBeCloseTo(check.opwf, 2);
+    }
   });
 
   it('keeps the plan to members', async () => {

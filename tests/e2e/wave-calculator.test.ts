@@ -42,7 +42,7 @@ function kdFromDOverL0(dOverL0: number): number {
 /** A number as the page prints it ("1,234.5", "−0.25") back to a JS number. */
 const shown = (text: string | null) => Number((text ?? '').replace(/,/g, '').replace('−', '-').trim());
 
-const { server, browser } = useBrowserApp();
+const { server, browser, signIn } = useBrowserApp();
 
 describe('wave calculator in the browser', () => {
   it('shows the wavelength of a 10 s wave in 10 m of water as typed', async () => {
@@ -118,6 +118,72 @@ describe('wave calculator in the browser', () => {
     expect(csv).toHaveLength(count(step) + 1);
     expect(csv[1].split(',')).toHaveLength(11);
     await screenshot(page, 'wave-calculator-table');
+  });
+
+  it('gives a vessel’s roll in a sea state as the API computes it, total and in partitions', async () => {
+    const { page } = browser;
+    await signIn('skipper'); // a member of the demo project, which has the demo's vessels
+    await page.goto(`${server.baseUrl}/wave-calculator?mode=response`);
+    await page.getByRole('tab', { name: 'Vessel response', selected: true }).waitFor({ timeout: 60_000 });
+    // The demo's lay barge (seed/demo-vessels.ts: invented RAOs, roll peak near 9 s in beam seas).
+    await page.getByLabel('Vessel', { exact: true }).selectOption({ label: 'Lay barge Kestrel Reach' });
+    const vesselId = await page.getByLabel('Vessel', { exact: true }).inputValue();
+    const caption = page.getByTestId('result-caption');
+    const rollShown = async () => {
+      await page.getByText('Updating').waitFor({ state: 'detached', timeout: 30_000 });
+      return shown(await page.getByTestId('response-row-roll_deg_per_m').getByTestId('response-significant').textContent());
+    };
+    const rollFromApi = (query: Record<string, string>) =>
+      page.evaluate(async (q) => {
+        const res = await fetch(`/api/wave/response?${new URLSearchParams(q)}`);
+        const body = (await res.json()) as { responses: { response: string; significant: number }[] };
+        return body.responses.find((r) => r.response === 'roll_deg_per_m')!.significant;
+      }, query);
+
+    // Beam seas: waves from 95° on a vessel heading 5° (relative heading 90° = from starboard).
+    await page.getByLabel('Vessel heading').fill('5');
+    await page.getByLabel('Significant wave height Hs').fill('2.5');
+    await page.getByLabel('Peak period Tp').fill('9.5');
+    await page.getByLabel('Wave direction').fill('95');
+    await expect.poll(() => caption.textContent(), { timeout: 30_000 }).toBe('Lay barge Kestrel Reach heading 5°');
+    const beamApi = await rollFromApi({ vesselId, heading: '5', hs: '2.5', tp: '9.5', dir: '95' });
+    // The page prints 3 significant figures: at most half a unit of the third figure off the API's answer.
+    await expect.poll(async () => Math.abs((await rollShown()) - beamApi) / beamApi, { timeout: 30_000 }).toBeLessThan(5e-3);
+
+    // Head seas roll the vessel less than beam seas (docs/domain.md#vessel-response: beam seas give the roll peak).
+    // The demo's roll RAO goes with |sin| of the relative heading (seed/demo-vessels.ts); under cos^2 spreading
+    // (n = 2 for a wind sea, docs/domain.md#vessel-response) the mean sin^2 is 1/4 in head seas and 3/4 on the
+    // beam, so head-sea roll is about sqrt(1/3) = 0.58 of beam-sea roll (worked by hand).
+    await page.getByLabel('Wave direction').fill('5');
+    const headApi = await rollFromApi({ vesselId, heading: '5', hs: '2.5', tp: '9.5', dir: '5' });
+    expect(headApi / beamApi).toBeGreaterThan(0.45);
+    expect(headApi / beamApi).toBeLessThan(0.7);
+    await expect.poll(async () => Math.abs((await rollShown()) - headApi) / headApi, { timeout: 30_000 }).toBeLessThan(5e-3);
+
+    // Partitions: a 1.5 m, 6 s wind sea from ahead and a 1 m, 12 s swell on the beam.
+    await page.getByLabel(/^Partitions/).check();
+    await page.getByLabel('Wind sea Hs').fill('1.5');
+    await page.getByLabel('Wind sea Tp').fill('6');
+    await page.getByLabel('Wind sea direction').fill('0');
+    await page.getByLabel('Swell 1 Hs').fill('1');
+    await page.getByLabel('Swell 1 Tp').fill('12');
+    await page.getByLabel('Swell 1 direction').fill('90');
+    for (const k of ['Hs', 'Tp', 'direction']) await page.getByLabel(`Swell 2 ${k}`).fill('');
+    const partitions = [
+      { kind: 'windSea', hs: 1.5, tp: 6, dir: 0 },
+      { kind: 'swell', hs: 1, tp: 12, dir: 90 },
+    ];
+    const partApi = await rollFromApi({ vesselId, heading: '5', partitions: JSON.stringify(partitions) });
+    await expect.poll(async () => Math.abs((await rollShown()) - partApi) / partApi, { timeout: 30_000 }).toBeLessThan(5e-3);
+    await page.locator('[data-testid="spectrum-roll_deg_per_m"] svg').first().waitFor(); // the lazily loaded spectra
+    await screenshot(page, 'wave-calculator-response');
+
+    // A swell given in part: the missing value named in words, before any request.
+    await page.getByLabel('Swell 1 Tp').fill('');
+    const message = page.locator('#rs-swell1-tp-error');
+    await message.waitFor();
+    expect(await message.textContent()).toContain('Enter the swell 1 Tp');
+    await page.getByText('For the last valid inputs').waitFor();
   });
 
   it('sends the old address of the section to the new one', async () => {

@@ -115,3 +115,15 @@ export function flagWords(flags: number, detail: { depthLimitM?: number | null; 
 /** Direction 'coming from', degrees. */
 export const fmtDir = (deg: number | null | undefined) =>
   deg === null || deg === undefined || !Number.isFinite(deg) ? '–' : `${Math.round(deg)}° from`;
+
+/** A response limit in words (docs/domain.md#vessel-response): "Roll most probable max (3 h) ≤ 4 deg". */
+export function responseLimitWords(l: {
+  label: string;
+  statistic: 'significant' | 'mpm';
+  durationH: number;
+  max: number;
+  unit: string;
+}): string {
+  const stat = l.statistic === 'significant' ? 'significant' : `most probable max (${l.durationH} h)`;
+  return `${l.label} ${stat} ≤ ${l.max} ${l.unit}`;
+}

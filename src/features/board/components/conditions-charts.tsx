@@ -10,7 +10,7 @@ import type { CartesianMarkerProps } from '@nivo/core';
 import { addDays, startOfDay } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
-import { fmt, formatIn } from './board-format';
+import { fmt, formatIn, responseLimitWords } from './board-format';
 import { useIsDark } from '../../../lib/use-is-dark';
 import { operationColour } from './operation-colours';
 import { useWidth } from '../../../lib/use-width';
@@ -30,6 +30,8 @@ export interface ChartOperation {
   tpExcluded: [number, number][];
   hasCurve: boolean;
   currentMax?: number | null;
+  /** Vessel-response limits: the governing response per hour (docs/domain.md#vessel-response). */
+  responses?: ConditionsAnswer['operations'][number]['responses'];
 }
 
 export interface ConditionsChartsProps {
@@ -54,7 +56,14 @@ function localMidnights(fromMs: number, toMs: number, zone: string, stepDays: nu
   return out;
 }
 
-const TooltipContext = createContext<{ zone: string; unit: string; decimals: number; names: Record<string, string> }>({
+const TooltipContext = createContext<{
+  zone: string;
+  unit: string;
+  decimals: number;
+  names: Record<string, string>;
+  /** Words after a series' value at record i (the governing response), when the panel has them. */
+  details?: Record<string, (i: number) => string>;
+}>({
   zone: 'UTC',
   unit: '',
   decimals: 2,
@@ -62,7 +71,7 @@ const TooltipContext = createContext<{ zone: string; unit: string; decimals: num
 });
 
 function SliceTip({ slice }: SliceTooltipProps<Series>) {
-  const { zone, unit, decimals, names } = useContext(TooltipContext);
+  const { zone, unit, decimals, names, details } = useContext(TooltipContext);
   const x = slice.points[0]?.data.x as number;
   return (
     <div className="rounded-lg border border-line bg-surface px-3 py-2 text-xs text-ink shadow-lg">
@@ -71,6 +80,7 @@ function SliceTip({ slice }: SliceTooltipProps<Series>) {
         <span key={p.id} className="mt-0.5 flex items-center gap-2">
           <span className="inline-block h-1 w-3 rounded" style={{ background: p.seriesColor }} aria-hidden />
           {names[String(p.seriesId)] ?? String(p.seriesId)}: {fmt(p.data.y as number | null, decimals, unit)}
+          {details?.[String(p.seriesId)] ? ` ${details[String(p.seriesId)](p.indexInSeries)}` : ''}
         </span>
       ))}
     </div>
@@ -89,6 +99,10 @@ interface PanelSpec {
   limitValues: number[];
   bands?: { from: number; to: number; n: number }[];
   note?: string;
+  /** Tooltip words per series and record (see TooltipContext). */
+  details?: Record<string, (i: number) => string>;
+  /** Lines under the chart, also for screen readers. */
+  lines?: string[];
 }
 
 export default function ConditionsCharts({ conditions, operations, nowMs }: ConditionsChartsProps) {
@@ -198,6 +212,67 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
           } satisfies PanelSpec,
         ]
       : []),
+    // Vessel response (docs/domain.md#vessel-response): per operation with response limits, the
+    // response nearest to (or furthest past) its limit each hour, as R / R_lim (1 = OPLIM), with
+    // its forecast limit alpha x R_lim dashed (alpha at the hour's equivalent Hs limit).
+    ...(operations.some((o) => o.responses)
+      ? [
+          {
+            key: 'response',
+            title: 'Governing vessel response, R / R_lim',
+            unit: '',
+            decimals: 2,
+            series: operations.flatMap((o) =>
+              o.responses
+                ? [
+                    {
+                      id: `r${o.n}`,
+                      name: `${o.n} R / R_lim`,
+                      values: o.responses.ratio,
+                      light: operationColour(o.n, false),
+                      dark: operationColour(o.n, true),
+                    },
+                    {
+                      id: `f${o.n}`,
+                      name: `${o.n} OPWF / R_lim`,
+                      values: o.responses.forecastRatio,
+                      light: operationColour(o.n, false),
+                      dark: operationColour(o.n, true),
+                      dashed: true,
+                    },
+                  ]
+                : [],
+            ),
+            markers: (): CartesianMarkerProps[] => [
+              {
+                axis: 'y',
+                value: 1,
+                legend: 'OPLIM (R = R_lim)',
+                lineStyle: { stroke: palette.ink, strokeWidth: 1.5 },
+                textStyle: { fill: palette.ink, fontSize: 10, fontWeight: 700 },
+              },
+            ],
+            limitValues: [1],
+            details: Object.fromEntries(
+              operations.flatMap((o) => {
+                const r = o.responses;
+                if (!r) return [];
+                return [
+                  [
+                    `r${o.n}`,
+                    (i: number) => {
+                      const g = r.governing[i];
+                      return g === null ? '(no data)' : `(${r.limits[g].label}: ${fmt(r.value[i], 2, r.limits[g].unit)})`;
+                    },
+                  ],
+                ];
+              }),
+            ),
+            lines: operations.flatMap((o) => (o.responses ? [responseSummary(o, o.responses, zone, timesMs)] : [])),
+            note: 'Solid: the governing response against its operation limit; dashed: its forecast limit α × R_lim, with α taken at the hour’s equivalent Hs limit. Above 1 the vessel moves more than the limit allows.',
+          } satisfies PanelSpec,
+        ]
+      : []),
     {
       key: 'wind',
       title: 'Wind speed at 10 m',
@@ -287,7 +362,8 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
           <figure key={p.key} className="m-0">
             <figcaption className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm font-semibold">
               <span>
-                {p.title} ({p.unit})
+                {p.title}
+                {p.unit ? ` (${p.unit})` : ''}
               </span>
               {p.series.length > 1
                 ? p.series.map((s) => (
@@ -315,7 +391,7 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
                   Not in this forecast.
                 </div>
               ) : (
-                <TooltipContext.Provider value={{ zone, unit: p.unit, decimals: p.decimals, names }}>
+                <TooltipContext.Provider value={{ zone, unit: p.unit, decimals: p.decimals, names, details: p.details }}>
                   <ResponsiveLine<Series>
                     data={data}
                     xScale={{ type: 'linear', min: fromMs, max: toMs, nice: false }}
@@ -343,10 +419,41 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
                 </TooltipContext.Provider>
               )}
             </div>
+            {p.lines ? (
+              <ul className="mt-1 text-xs" data-testid={`conditions-${p.key}-lines`}>
+                {p.lines.map((line) => (
+                  <li key={line}>{line}</li>
+                ))}
+              </ul>
+            ) : null}
             {p.note ? <p className="mt-1 text-xs text-ink-soft">{p.note}</p> : null}
           </figure>
         );
       })}
     </div>
+  );
+}
+
+/**
+ * One operation's governing response in words: which response governs most hours, the highest
+ * R / R_lim and when, and how many hours are past the limit.
+ */
+function responseSummary(o: ChartOperation, r: NonNullable<ChartOperation['responses']>, zone: string, timesMs: number[]): string {
+  const counts = r.limits.map(() => 0);
+  let top = -1;
+  let over = 0;
+  r.governing.forEach((g, i) => {
+    if (g === null) return;
+    counts[g]++;
+    if (top < 0 || r.ratio[i]! > r.ratio[top]!) top = i;
+    if (r.ratio[i]! > 1) over++;
+  });
+  if (top < 0) return `${o.n} ${o.name}: no response figures (the forecast lacks what the response limits need).`;
+  const most = counts.indexOf(Math.max(...counts));
+  const g = r.governing[top]!;
+  return (
+    `${o.n} ${o.name}: ${r.limits[most].label} governs ${counts[most]} of ${r.governing.length} hours; ` +
+    `highest ${fmt(r.ratio[top], 2, '')} of the limit (${responseLimitWords(r.limits[g])}: ${fmt(r.value[top], 2, r.limits[g].unit)}) ` +
+    `at ${formatIn(timesMs[top], zone)}; ${over} h past the limit.`
   );
 }

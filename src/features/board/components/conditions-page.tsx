@@ -11,7 +11,7 @@ import { useConditions } from '../api/get-conditions';
 import { useOperations } from '../../../api/operations';
 import { usePlan } from '../api/get-plan';
 import { useSites } from '../../../api/sites';
-import { fmt, formatIn, relativeTime } from './board-format';
+import { fmt, formatIn, relativeTime, responseLimitWords } from './board-format';
 import { usePageZone } from '../../../components/page-zone';
 import { zoneStatement } from '../../../../shared/dates';
 import type { ChartOperation } from './conditions-charts';
@@ -192,5 +192,6 @@ function describeLimits(o: ChartOperation): string {
   if (o.bedVelocityMax !== null)
     parts.push(`bed velocity ≤ ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`);
   if (o.windMax !== null) parts.push(`wind ≤ ${fmt(o.windMax, 1, 'm/s')}`);
+  for (const l of o.responses?.limits ?? []) parts.push(responseLimitWords(l));
   return parts.join(' · ') || 'no limits drawn here';
 }

@@ -26,7 +26,7 @@ const LABEL: Record<ProfileSeries['id'], string> = {
   kp: 'Kp(z)',
 };
 
-function themeFor(dark: boolean): PartialTheme {
+export function themeFor(dark: boolean): PartialTheme {
   const ink = dark ? '#e6eef0' : '#10222c';
   const soft = dark ? '#9fb4bc' : '#4a5d66';
   const line = dark ? '#24485a' : '#cfd9d8';

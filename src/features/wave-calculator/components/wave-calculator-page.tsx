@@ -5,23 +5,25 @@ import { ModeTabs, type ModeOption } from './mode-tabs';
 import { RegularWavePanel, DEFAULT_REGULAR_FIELDS, type RegularFields } from './regular-wave-panel';
 import { SeaStatePanel, DEFAULT_SEA_STATE_FIELDS, type SeaStateFields } from './sea-state-panel';
 import { DEFAULT_TABLE_FIELDS, type TableFields } from './wave-table-fields';
+import { DEFAULT_RESPONSE_FIELDS, ResponsePanel, type ResponseFields } from './response-panel';
 
 // The table view brings the table library with it: load it only when it is opened.
 const WaveTablePanel = lazy(() => import('./wave-table-panel'));
 
-type Mode = 'regular' | 'sea-state' | 'table';
+type Mode = 'regular' | 'sea-state' | 'table' | 'response';
 
 const MODES: readonly ModeOption<Mode>[] = [
   { id: 'regular', label: 'Regular wave' },
   { id: 'sea-state', label: 'Sea state' },
   { id: 'table', label: 'Wave table' },
+  { id: 'response', label: 'Vessel response' },
 ];
 
 const isMode = (value: string | null): value is Mode => MODES.some((m) => m.id === value);
 
 /**
- * The wave calculator: linear wave theory for one regular wave, one sea state, or the classic wave
- * table. The mode is in the address (?mode=sea-state) so a view can be bookmarked or shared;
+ * The wave calculator: linear wave theory for one regular wave, one sea state, the classic wave
+ * table, or a vessel's response to one sea state (docs/domain.md#vessel-response). The mode is in the address (?mode=sea-state) so a view can be bookmarked or shared;
  * the inputs of each mode are kept while switching between them.
  */
 export function WaveCalculatorPage() {
@@ -31,6 +33,7 @@ export function WaveCalculatorPage() {
   const [regular, setRegular] = useState<RegularFields>(DEFAULT_REGULAR_FIELDS);
   const [seaState, setSeaState] = useState<SeaStateFields>(DEFAULT_SEA_STATE_FIELDS);
   const [table, setTable] = useState<TableFields>(DEFAULT_TABLE_FIELDS);
+  const [response, setResponse] = useState<ResponseFields>(DEFAULT_RESPONSE_FIELDS);
 
   const setMode = (next: Mode) =>
     setParams(
@@ -47,7 +50,7 @@ export function WaveCalculatorPage() {
     <div>
       <PageHeader
         title="Wave calculator"
-        subtitle="Linear wave theory on demand: one regular wave, a sea state, or the wave table by relative depth."
+        subtitle="Linear wave theory on demand: one regular wave, a sea state, the wave table by relative depth, or a vessel’s response to a sea state."
       />
       <ModeTabs modes={MODES} value={mode} onChange={setMode} label="Calculator" idPrefix="wave-calculator" />
       <div role="tabpanel" id={`wave-calculator-panel-${mode}`} aria-labelledby={`wave-calculator-tab-${mode}`} className="mt-4">
@@ -58,6 +61,7 @@ export function WaveCalculatorPage() {
             <WaveTablePanel fields={table} onChange={setTable} />
           </Suspense>
         ) : null}
+        {mode === 'response' ? <ResponsePanel fields={response} onChange={setResponse} /> : null}
       </div>
     </div>
   );

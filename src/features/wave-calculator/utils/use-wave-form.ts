@@ -47,5 +47,7 @@ export function useWaveForm<T extends FieldValues & Record<string, string>, Out>
     const message = form.formState.errors[key]?.message;
     if (typeof message === 'string') errors[key as keyof T] = readable(message);
   }
-  return { register, errors, typing: debounced !== values, data: parsed.success ? parsed.data : null };
+  /** Sets one field from code (a choice that resets another), validated as if typed. */
+  const setValue = (key: Path<T>, value: string) => form.setValue(key, value as never, { shouldValidate: true, shouldDirty: true });
+  return { register, setValue, values, errors, typing: debounced !== values, data: parsed.success ? parsed.data : null };
 }
