@@ -115,3 +115,7 @@ export function flagWords(flags: number, detail: { depthLimitM?: number | null; 
 /** Direction 'coming from', degrees. */
 export const fmtDir = (deg: number | null | undefined) =>
   deg === null || deg === undefined || !Number.isFinite(deg) ? '–' : `${Math.round(deg)}° from`;
+
+/** A current direction: degrees true the water flows towards (oceanographic convention, docs/domain.md#tide), so no "from". */
+export const fmtTowards = (deg: number | null | undefined) =>
+  deg === null || deg === undefined || !Number.isFinite(deg) ? '–' : `${Math.round(deg)}°`;
