@@ -256,8 +256,8 @@ export function WorksiteForm({
 
       <FormSection
         id={f('tide')}
-        title="Tide (optional)"
-        hint="The depth then moves with the predicted tide: h(t) = chart depth + water level, in the transformation, the depth limit and the tide and depth limits of operations."
+        title="Tide and tidal current (optional)"
+        hint="The depth then moves with the predicted tide: h(t) = chart depth + water level, in the transformation, the depth limit and the tide and depth limits of operations. A current station's predicted tidal current fills the hours a dataset has no current for (the current limit): tidal current only, no wind-driven or surge current; not for navigation."
         error={errorAt(errors, 'tide')}
       >
         <TideFields
@@ -269,14 +269,6 @@ export function WorksiteForm({
           position={position}
           timeZone={zoneText}
         />
-      </FormSection>
-
-      <FormSection
-        id={f('current')}
-        title="Tidal current (optional)"
-        hint="The predicted tidal current of a current station fills the hours where the dataset has no current, for the current limit of operations. Predicted tidal current only: no wind-driven or surge current; not for navigation."
-        error={errorAt(errors, 'currentStationId')}
-      >
         <CurrentStationField
           projectId={projectId}
           idPrefix={f('current')}
