@@ -1,7 +1,7 @@
 // The predicted tidal current on the conditions page in a real browser against the built app and
 // the seeded demo (docs/domain.md#tide): the coordinator places a worksite beside a reference
-// current station of the public tide database and chooses that station (through the same API the
-// worksite form uses); the conditions page then shows the current over time beside the tide,
+// current station of the public tide database and chooses that station in the worksite form; the
+// conditions page then shows the current over time beside the tide,
 // with flood and ebb towards the station's own directions, the station and the cautions.
 import { stationsById } from '@neaps/tide-database';
 import { describe, expect, it } from 'vitest';
@@ -20,20 +20,31 @@ describe('the current on the conditions page', () => {
     async () => {
       const { page } = browser;
       const projectId = await signIn('coordinator');
+      // The worksite form: a position beside the station, then the station among the nearest current stations.
+      await page.goto(`${server.baseUrl}/projects/${projectId}/setup?tab=worksites`, { timeout: 120_000 });
+      await page.getByRole('button', { name: 'Edit Cable route KP 4.5' }).click({ timeout: 60_000 });
+      const form = page.getByRole('form', { name: 'Edit worksite Cable route KP 4.5' });
+      await form.getByLabel(/^Latitude/).fill('41.56');
+      await form.getByLabel(/^Longitude/).fill('-69.99');
+      const field = form.getByTestId('current-station-field');
+      const choice = field.getByRole('radio', { name: /Pollock Rip Channel \(Butler Hole\)/ });
+      try {
+        await choice.waitFor({ timeout: 60_000 });
+      } catch (err) {
+        await screenshot(page, 'current-form-failure');
+        throw err;
+      }
+      // Shown with its distance and its flood and ebb directions (about 1.2 km: haversine, mean Earth radius 6371 km).
+      expect(await field.textContent()).toMatch(
+        /Pollock Rip Channel \(Butler Hole\), 1\.2 km away · US National Oceanic and Atmospheric Administration · flood towards 37°, ebb\s+towards 217°/,
+      );
+      await choice.check();
+      await screenshot(page, 'worksite-form-current-station');
+      await form.getByRole('button', { name: 'Save worksite' }).click();
+      await form.waitFor({ state: 'detached', timeout: 60_000 });
       const sites: SiteResponse[] = await page.evaluate(async (p) => (await fetch(`/api/projects/${p}/sites`)).json(), projectId);
       const site = sites.find((s) => s.name === 'Cable route KP 4.5')!;
-      const status = await page.evaluate(
-        async ({ p, s, id }) =>
-          (
-            await fetch(`/api/projects/${p}/sites/${s}`, {
-              method: 'PATCH',
-              headers: { 'content-type': 'application/json' },
-              body: JSON.stringify({ latitude: 41.56, longitude: -69.99, currentStationId: id }),
-            })
-          ).status,
-        { p: projectId, s: site.id, id: STATION_ID },
-      );
-      expect(status).toBe(200);
+      expect(site.currentStationId).toBe(STATION_ID);
 
       await page.goto(`${server.baseUrl}/projects/${projectId}/conditions/${site.id}`, { timeout: 120_000 });
       const strip = page.getByTestId('current-strip');
