@@ -1,4 +1,5 @@
-import type { WaterLevelSource } from './seadata/water-level';
+import type { CurrentSource, WaterLevelSource } from './seadata/water-level';
+import type { CurrentStationInfo } from './api-types-sites';
 // Plan answers shared by the API and the client.
 import type { HourStatus, LimitCheck } from './engine/explain-hour';
 import type { TransformChain } from './waves';
@@ -83,8 +84,10 @@ export interface HourChainAnswer {
   /**
    * depthM: the chart depth; waterLevel: m above chart datum (null without a tide); depth: the
    * still-water depth h = depthM + waterLevel the chain used (docs/domain.md#tide); waterLevelSource:
-   * where the water level came from; current: m/s or null, as the dataset gives it (surface or
-   * depth-averaged); currentDir: degrees the water flows towards (oceanographic convention), or null.
+   * where the water level came from; current: m/s or null, the dataset's (surface or depth-averaged,
+   * as it gives it) or else the predicted tidal current of the worksite's current station;
+   * currentDir: degrees the water flows towards (oceanographic convention), or null; currentSource:
+   * where the current came from; currentStation: the station's name when the current was predicted.
    */
   site: {
     depthM: number;
@@ -93,6 +96,8 @@ export interface HourChainAnswer {
     depth: number;
     current: number | null;
     currentDir: number | null;
+    currentSource: CurrentSource;
+    currentStation: string | null;
     hs: number | null;
     bedVelocityLinear: number | null;
     bedVelocitySoulsby: number | null;
@@ -142,8 +147,16 @@ export interface ConditionsAnswer {
   /** Where each record's water level came from (docs/domain.md#tide). */
   waterLevelSource: WaterLevelSource[];
   depth: (number | null)[];
-  /** Current speed, m/s (null where unknown), as the dataset gives it. */
+  /**
+   * Current speed, m/s (null where unknown): the dataset's where it has one, else the predicted
+   * tidal current of the worksite's current station (docs/domain.md#tide).
+   */
   current: (number | null)[];
+  /** Where each record's current came from. */
+  currentSource: CurrentSource[];
+  /** The worksite's current station (null: none chosen) and the cautions shown with a predicted current. */
+  currentStation: CurrentStationInfo | null;
+  currentCautions: readonly string[];
   /**
    * Worksite Hs of the swell (both swells together) and of the wind sea, m, where the dataset gives
    * partitions (docs/domain.md#partitions); absent otherwise, null where unknown.

@@ -23,6 +23,8 @@ export interface SiteResponse {
   transferTable: TransferTableInput | null;
   /** tide at the worksite; null = none (depth stays the chart depth) */
   tide: WorksiteTideInput | null;
+  /** current station of the tide database for the predicted tidal current; null = none */
+  currentStationId: string | null;
   updatedAt: string;
 }
 
@@ -44,6 +46,18 @@ export interface TideStationInfo {
   /** The notice the database asks to be shown with the station (its NOTICE and attribution). */
   attribution: string;
   warnings: string[];
+}
+
+/**
+ * A current station of the public tide database (docs/domain.md#tide): its directions of flood and
+ * ebb (degrees true, the direction the water flows towards) and its mean flow (m/s along the flood
+ * direction, added to the harmonic sum).
+ */
+export interface CurrentStationInfo extends TideStationInfo {
+  kind: 'current';
+  floodDir: number | null;
+  ebbDir: number | null;
+  meanFlowMps: number;
 }
 
 /** The predicted tide (GET …/sites/:siteId/tide and POST …/tide-preview): levels on a grid and the extremes. */

@@ -12,7 +12,7 @@ import { addProjectCollection } from './project-collection';
 import { HttpError, parseInput } from '../http/errors';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
 import { createSite, deleteSite, getSite, listSites, updateSite } from '../services/sites';
-import { nearbyTideStations, tideAnswer } from '../services/tide';
+import { nearbyCurrentStations, nearbyTideStations, tideAnswer } from '../services/tide';
 
 /** Worksites: any member reads, coordinators (and administrators) write. */
 export function sitesRoutes({ db, clock }: AppDeps): Router {
@@ -54,20 +54,6 @@ export function sitesRoutes({ db, clock }: AppDeps): Router {
   });
 
   /**
-   * GET /api/projects/:projectId/sites/:siteId/tide-stations: tide stations of the public database
-   * nearest the worksite (at most 5 within 200 km), with distance, datum, source, attribution and warnings.
-   */
-  router.get('/projects/:projectId/sites/:siteId/tide-stations', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    const site = await getSite(db, access.projectId, req.params.siteId);
-    if (site.latitude === null || site.longitude === null)
-      throw new HttpError('validation', 'The worksite needs a position to find tide stations', [
-        { field: 'latitude', message: 'Set the worksite position first' },
-      ]);
-    res.json({ stations: nearbyTideStations(site.latitude, site.longitude) });
-  });
-
-  /**
    * POST /api/projects/:projectId/tide-preview: the tide the worksite form is editing, predicted
    * for the next 3 days from `from` (default now), before it is saved; 400 naming the field for an
    * unknown constituent or station. Changes nothing.
@@ -85,14 +71,33 @@ export function sitesRoutes({ db, clock }: AppDeps): Router {
   });
 
   /**
-   * GET /api/projects/:projectId/tide-stations?latitude=&longitude=: stations of the public tide
-   * database nearest a position (at most 5 within 200 km), for a worksite not yet saved.
+   * Stations of the public tide database nearest a worksite or a typed position (at most 5 within
+   * 200 km), with distance, source, attribution and warnings; any member:
+   * - GET /api/projects/:projectId/sites/:siteId/tide-stations and …/current-stations: near the worksite;
+   * - GET /api/projects/:projectId/tide-stations?latitude=&longitude= and …/current-stations?…: near
+   *   a position, for a worksite not yet saved.
+   * Current stations are the reference current stations with harmonic constituents, with their
+   * flood and ebb directions (docs/domain.md#tide).
    */
-  router.get('/projects/:projectId/tide-stations', async (req, res) => {
-    await requireProjectMember(db, req, req.params.projectId);
-    const q = parseInput(TideStationsQuery, req.query, 'query');
-    res.json({ stations: nearbyTideStations(q.latitude, q.longitude) });
-  });
+  for (const [path, nearby] of [
+    ['tide-stations', nearbyTideStations],
+    ['current-stations', nearbyCurrentStations],
+  ] as const) {
+    router.get(`/projects/:projectId/sites/:siteId/${path}`, async (req, res) => {
+      const access = await requireProjectMember(db, req, req.params.projectId);
+      const site = await getSite(db, access.projectId, req.params.siteId);
+      if (site.latitude === null || site.longitude === null)
+        throw new HttpError('validation', `The worksite needs a position to find ${path.replace('-', ' ')}`, [
+          { field: 'latitude', message: 'Set the worksite position first' },
+        ]);
+      res.json({ stations: nearby(site.latitude, site.longitude) });
+    });
+    router.get(`/projects/:projectId/${path}`, async (req, res) => {
+      await requireProjectMember(db, req, req.params.projectId);
+      const q = parseInput(TideStationsQuery, req.query, 'query');
+      res.json({ stations: nearby(q.latitude, q.longitude) });
+    });
+  }
 
   return router;
 }

@@ -50,6 +50,14 @@ export function normalizeLimits(limits: OperationLimits): OperationLimits {
       t.target === 'longPeriod' ? { target: t.target, minPeriodS: t.minPeriodS, max: t.max } : { target: t.target, max: t.max },
     );
   if (limits.tpExcludedMinHs != null) out.tpExcludedMinHs = limits.tpExcludedMinHs;
+  // The depth, current and tide-window limits (docs/domain.md#tide).
+  if (limits.minDepth != null) out.minDepth = limits.minDepth;
+  if (limits.minDepthParts != null)
+    out.minDepthParts = { draught: limits.minDepthParts.draught, clearance: limits.minDepthParts.clearance };
+  if (limits.maxDepth != null) out.maxDepth = limits.maxDepth;
+  if (limits.currentMax != null) out.currentMax = limits.currentMax;
+  if (limits.tideWindow != null)
+    out.tideWindow = { reference: limits.tideWindow.reference, before: limits.tideWindow.before, after: limits.tideWindow.after };
   return out;
 }
 

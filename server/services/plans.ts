@@ -1,4 +1,4 @@
-import { WATER_LEVEL_SOURCES } from '../../shared/seadata/water-level';
+import { CURRENT_SOURCES, WATER_LEVEL_SOURCES } from '../../shared/seadata/water-level';
 import {
   LIMIT_NAMES,
   STATUS,
@@ -28,6 +28,7 @@ import {
   engineSeriesAtSites,
   loadProjectSetup,
   operationSpec,
+  siteCurrent,
   siteTide,
   sitesOf,
   transformForSite,
@@ -36,6 +37,7 @@ import {
 import { readSeries, type SeaSeries } from './series-store';
 import { readMembers } from './ensemble-store';
 import { STATS_FORMAT } from './workability';
+import { CURRENT_CAUTIONS, currentPredictor } from './tide';
 
 const STATUS_NAMES: HourStatus[] = [];
 STATUS_NAMES[STATUS.NO_DATA] = 'no_data';
@@ -339,6 +341,8 @@ export async function hourChain(
   // The water level of the hour (a dataset level, the predicted tide, or both; docs/domain.md#tide) and the extremes for a tide window.
   const tide = siteTide(site, series);
   const waterLevel = tide ? tide.waterLevelM[i] : null;
+  // The hour's current: the dataset's where it has a speed, else the station's predicted tidal current (docs/domain.md#tide).
+  const current = siteCurrent(site, series);
   const chain = transformOne(
     { hsM: series.hs[i], tpS: series.tp[i], tzS: series.tz[i], dirDeg: series.dir[i], waterLevelM: waterLevel },
     { depthM: row.dataPointDepthM ?? Infinity },
@@ -396,7 +400,7 @@ export async function hourChain(
       ...(tide?.tide ? { tide: tide.tide } : {}),
       ...(hourPartitions ? { partitions: hourPartitions as NonNullable<Parameters<typeof explainHour>[0]['partitions']> } : {}),
       ...(responsePartitions ? { responsePartitions } : {}),
-      ...(series.extra.currentSpeed ? { currentMps: series.extra.currentSpeed[i] } : {}),
+      ...(current ? { currentMps: current.speedMps[i] } : {}),
     },
     spec,
     setup.alphaTable,
@@ -420,8 +424,10 @@ export async function hourChain(
       waterLevel: waterLevel === null ? null : v(waterLevel),
       waterLevelSource: tide ? WATER_LEVEL_SOURCES[tide.recordSource[i]] : 'none',
       depth: chain.depthM,
-      current: series.extra.currentSpeed ? v(series.extra.currentSpeed[i]) : null,
-      currentDir: series.extra.currentDir ? v(series.extra.currentDir[i]) : null,
+      current: current ? v(current.speedMps[i]) : null,
+      currentDir: current ? v(current.dirDeg[i]) : null,
+      currentSource: current ? CURRENT_SOURCES[current.source[i]] : 'none',
+      currentStation: current && CURRENT_SOURCES[current.source[i]] === 'predicted' ? (current.station?.name ?? null) : null,
       hs: v(siteHs),
       bedVelocityLinear: v(siteBedLinear),
       bedVelocitySoulsby: v(siteBedSoulsby),
@@ -486,6 +492,9 @@ export async function siteConditions(
     depth: [],
     current: [],
     currentDir: [],
+    currentSource: [],
+    currentStation: currentPredictor(site.currentStationId, site)?.station ?? null,
+    currentCautions: CURRENT_CAUTIONS,
     operations: [],
   };
   if (!row) return empty;
@@ -515,8 +524,9 @@ export async function siteConditions(
     waterLevelSource: t.recordSource
       ? Array.from(t.recordSource, (k) => WATER_LEVEL_SOURCES[k])
       : Array.from(series.timeMs, () => 'none' as const),
-    current: series.extra.currentSpeed ? col(series.extra.currentSpeed) : Array.from(series.timeMs, () => null),
-    currentDir: series.extra.currentDir ? col(series.extra.currentDir) : Array.from(series.timeMs, () => null),
+    current: t.current ? col(t.current.speedMps) : Array.from(series.timeMs, () => null),
+    currentDir: t.current ? col(t.current.dirDeg) : Array.from(series.timeMs, () => null),
+    currentSource: t.current ? Array.from(t.current.source, (k) => CURRENT_SOURCES[k]) : Array.from(series.timeMs, () => 'none' as const),
     operations: setup.operations
       .filter((o) => sitesOf(o, setup.sites).some((s) => s.id === site.id))
       .map((o) => {

@@ -54,6 +54,7 @@ export async function exportSetup(db: Db, projectId: string, now: Date): Promise
     timeZone: s.timeZone,
     transferTable: s.transferTable,
     tide: s.tide,
+    currentStationId: s.currentStationId,
   }));
   const operations: SetupOperation[] = ops.map((o) => ({
     name: o.name,

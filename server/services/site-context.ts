@@ -20,9 +20,15 @@ import type { Db } from '../db/client';
 import { operation, projectAlpha, vessel, worksite } from '../db/schema';
 import type { SeaPartitionSeries } from '../../shared/response';
 import type { SeaSeries } from './series-store';
-import { predictExtremes, predictLevels, tidePredictor, type TideStationInfo } from './tide';
+import { currentPredictor, predictExtremes, predictLevels, tidePredictor, type CurrentStationInfo, type TideStationInfo } from './tide';
 import type { TideExtremes } from '../../shared/engine';
-import { combineWaterLevel, WATER_LEVEL_SOURCES, type WaterLevelSource } from '../../shared/seadata/water-level';
+import {
+  combineCurrent,
+  combineWaterLevel,
+  WATER_LEVEL_SOURCES,
+  type CombinedCurrent,
+  type WaterLevelSource,
+} from '../../shared/seadata/water-level';
 
 export type WorksiteRow = typeof worksite.$inferSelect;
 export type OperationRow = typeof operation.$inferSelect;
@@ -125,6 +131,8 @@ export interface TransformedSite {
   tideSource: SiteTide['source'] | null;
   /** Each record's water-level source (index into WATER_LEVEL_SOURCES), or null without a water level. */
   recordSource: Uint8Array | null;
+  /** The current per record (dataset or predicted), or null without either. */
+  current: SiteCurrent | null;
 }
 
 /** A worksite's water level over a series and the predicted extremes around it (docs/domain.md#tide). */
@@ -196,6 +204,45 @@ export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitud
   return value;
 }
 
+/** A worksite's current over a series (docs/domain.md#tide): per record the dataset's where it has a speed, else the predicted tidal current. */
+export interface SiteCurrent extends CombinedCurrent {
+  /** The chosen current station, or null (dataset current only). */
+  station: CurrentStationInfo | null;
+  /** Changes whenever the current would (the station), for cache keys. */
+  key: string;
+}
+
+const currentCache = new WeakMap<Float64Array, Map<string, CombinedCurrent>>();
+
+/**
+ * The worksite's current at every record time (docs/domain.md#tide), or null when neither the
+ * dataset has a current speed column nor the worksite a current station: the dataset's speed (and
+ * direction) wins where it has a value, the predicted tidal current of the station fills the rest.
+ * Cached per time array (or speed column) and station.
+ */
+export function siteCurrent(
+  site: Pick<WorksiteRow, 'currentStationId' | 'latitude' | 'longitude'>,
+  series: Pick<SeaSeries, 'timeMs' | 'extra'>,
+): SiteCurrent | null {
+  const timeMs = series.timeMs;
+  const column = series.extra.currentSpeed ?? null;
+  if (timeMs.length === 0 || (!column && !site.currentStationId)) return null;
+  const p = currentPredictor(site.currentStationId, site);
+  const cacheOn = column ?? timeMs;
+  let perSeries = currentCache.get(cacheOn);
+  if (!perSeries) {
+    perSeries = new Map();
+    currentCache.set(cacheOn, perSeries);
+  }
+  const key = `${p?.key ?? 'none'}|${column ? 'dataset' : 'no-current'}`;
+  let combined = perSeries.get(key);
+  if (!combined || combined.speedMps.length !== timeMs.length) {
+    combined = combineCurrent(p ? p.predict(timeMs) : null, column ? { speedMps: column, dirDeg: series.extra.currentDir ?? null } : null)!;
+    perSeries.set(key, combined);
+  }
+  return { ...combined, station: p?.station ?? null, key };
+}
+
 /**
  * What the engine needs of a transformed worksite series: with a tide, the still-water depth
  * h(t) and the predicted extremes; without, the chart depth (so depth limits still apply) and no
@@ -204,9 +251,10 @@ export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitud
 export function engineSeries(
   series: SeaSeries,
   transformed: PlainTransformedSeries | TransformedSeries,
-  site: Pick<WorksiteRow, 'depthM'>,
+  site: Pick<WorksiteRow, 'depthM' | 'currentStationId' | 'latitude' | 'longitude'>,
   tide: SiteTide | null,
 ): EngineSeries {
+  const current = siteCurrent(site, series);
   const partitioned = 'partitions' in transformed && hasPartitionColumns(series.extra);
   return {
     timeMs: series.timeMs,
@@ -220,8 +268,8 @@ export function engineSeries(
     depthM: tide && transformed.depthM ? transformed.depthM : new Float64Array(series.timeMs.length).fill(site.depthM),
     ...(tide?.tide ? { tide: tide.tide } : {}),
     ...(partitioned ? { partitions: (transformed as TransformedSeries).partitions } : {}),
-    // The dataset's current speed, m/s, as given (docs/domain.md#tide); without it a current limit finds no data.
-    ...(series.extra.currentSpeed ? { currentMps: series.extra.currentSpeed } : {}),
+    // The dataset's current speed, m/s, as given, else the predicted tidal current (docs/domain.md#tide); neither: a current limit finds no data.
+    ...(current ? { currentMps: current.speedMps } : {}),
     responsePartitions: worksitePartitions(series, transformed),
   };
 }
@@ -267,6 +315,7 @@ export function transformForSite(series: SeaSeries, dataPointDepthM: number | nu
     waterLevelM: tide?.waterLevelM ?? null,
     tideSource: tide?.source ?? null,
     recordSource: tide?.recordSource ?? null,
+    current: siteCurrent(site, series),
     engine: engineSeries(series, transformed, site, tide),
   };
 }

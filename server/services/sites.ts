@@ -11,7 +11,7 @@ import type { SessionUser } from '../http/context';
 import { HttpError, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
 import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
-import { checkTideInput } from './tide';
+import { checkCurrentStation, checkTideInput } from './tide';
 import { auditedOperation, toOperationResponse } from './operations';
 
 type WorksiteRow = typeof worksite.$inferSelect;
@@ -29,6 +29,7 @@ export function toSiteResponse(row: WorksiteRow): SiteResponse {
     hindcastDatasetId: row.hindcastDatasetId,
     transferTable: row.transferTable ?? null,
     tide: row.tide ?? null,
+    currentStationId: row.currentStationId ?? null,
     updatedAt: row.updatedAt.toISOString(),
   };
 }
@@ -41,10 +42,12 @@ export function auditedSite(site: SiteResponse): Omit<SiteResponse, 'id' | 'upda
 
 /**
  * Column values of a parsed worksite.
- * @throws HttpError 400 for a tide constituent or station the tide package does not know.
+ * @throws HttpError 400 for a tide constituent or station the tide package does not know, or a
+ * current station that is not a predictable current station of the database.
  */
 export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { hindcastDatasetId?: string | null }) {
   checkTideInput(input.tide);
+  checkCurrentStation(input.currentStationId);
   return {
     name: input.name,
     latitude: input.latitude ?? null,
@@ -56,6 +59,7 @@ export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { 
     hindcastDatasetId: input.hindcastDatasetId ?? null,
     transferTable: input.transferTable ?? null,
     tide: input.tide ?? null,
+    currentStationId: input.currentStationId ?? null,
   };
 }
 

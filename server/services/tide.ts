@@ -14,11 +14,11 @@
 import { constituents as knownConstituents, createTidePredictor, useStation } from '@neaps/tide-predictor';
 import { near, stationsById } from '@neaps/tide-database';
 import type { TideExtremes } from '../../shared/engine';
-import type { TideAnswer, TideStationInfo } from '../../shared/api-types-sites';
+import type { CurrentStationInfo, TideAnswer, TideStationInfo } from '../../shared/api-types-sites';
 import type { WorksiteTideInput } from '../../shared/schemas/sites';
 import { HttpError } from '../http/errors';
 
-export type { TideAnswer, TideStationInfo };
+export type { CurrentStationInfo, TideAnswer, TideStationInfo };
 
 /** Nodal corrections the predictions use (named in docs/domain.md#tide). */
 export const TIDE_NODE_CORRECTIONS = 'schureman' as const;
@@ -257,5 +257,129 @@ export function tideAnswer(
     station: p.station,
     stepMinutes: stepMs / 60_000,
     cautions: TIDE_CAUTIONS,
+  };
+}
+
+/**
+ * A current station farther than this from the worksite gets a warning, km (docs/domain.md#tide):
+ * tidal streams change over far shorter distances than the tide's height (a channel, a headland, a
+ * bank), so the limit is a quarter of the tide station's (common practice, no source).
+ */
+export const CURRENT_STATION_FAR_KM = 5;
+/** One international knot, m/s: 1852 m per hour (the international nautical mile of 1929). */
+export const KNOT_MPS = 1852 / 3600;
+/** Words shown beside every predicted current. */
+export const CURRENT_CAUTIONS = [
+  'Predicted tidal current only: wind-driven current, storm surge current and river flow are not included.',
+  'Not for navigation: decision support only; the master decides.',
+  'The station gives the current at its own place and depth; the worksite may differ.',
+] as const;
+
+/** A current station the app can predict: a reference current station with harmonic constituents. */
+function predictableCurrent(s: DbStation): boolean {
+  return s.kind === 'current' && s.type === 'reference' && s.harmonic_constituents.length > 0;
+}
+
+function currentStationInfo(s: DbStation, km: number | null): CurrentStationInfo {
+  const base = stationInfo(s, null);
+  const warnings = base.warnings.filter((w) => !w.startsWith('The station names no chart datum'));
+  if (km !== null && km > CURRENT_STATION_FAR_KM)
+    warnings.unshift(
+      `The current station is ${km.toFixed(1)} km away (over ${CURRENT_STATION_FAR_KM} km): tidal streams change over short distances, the current at the worksite may differ in speed, direction and time.`,
+    );
+  const c = s.current;
+  if (c?.flood_direction == null || c.ebb_direction == null)
+    warnings.push('Incomplete: the station gives no flood or ebb direction, so the current has a speed but no direction.');
+  return {
+    ...base,
+    distanceKm: km,
+    datum: null,
+    kind: 'current',
+    floodDir: c?.flood_direction ?? null,
+    ebbDir: c?.ebb_direction ?? null,
+    meanFlowMps: (c?.mean_flow ?? 0) * KNOT_MPS,
+    warnings,
+  };
+}
+
+/**
+ * Current stations of the database within {@link TIDE_STATION_SEARCH_KM} of a position that the
+ * app can predict (reference stations with harmonic constituents; subordinate stations, given as
+ * offsets from another, are left out), nearest first.
+ */
+export function nearbyCurrentStations(latitude: number, longitude: number, maxResults = 5): CurrentStationInfo[] {
+  return near({ lat: latitude, lon: longitude, maxDistance: TIDE_STATION_SEARCH_KM, maxResults, filter: predictableCurrent }).map(
+    ([s, km]) => currentStationInfo(s, km),
+  );
+}
+
+/** 400 naming `currentStationId` unless it is a current station the app can predict (or null). */
+export function checkCurrentStation(stationId: string | null | undefined): void {
+  if (stationId == null) return;
+  const s = stationsById.get(stationId);
+  const why = !s
+    ? `No station with the id ${stationId}`
+    : s.kind !== 'current'
+      ? `${s.name} is a tide station, not a current station`
+      : !predictableCurrent(s)
+        ? `${s.name} has no harmonic constituents of its own (a subordinate station): choose a reference current station`
+        : null;
+  if (why) throw new HttpError('validation', `Invalid body: currentStationId: ${why}`, [{ field: 'currentStationId', message: why }]);
+}
+
+/** A worksite's predicted tidal current (docs/domain.md#tide). */
+export interface CurrentPredictor {
+  station: CurrentStationInfo;
+  /** Changes whenever the prediction would (for caches). */
+  key: string;
+  /**
+   * Speed (m/s, never negative) and direction (degrees true the water flows towards: the flood
+   * direction while the signed velocity along the axis is positive, the ebb direction while it is
+   * negative, NaN without directions) at each time.
+   */
+  predict(timeMs: Float64Array): { speedMps: Float64Array; dirDeg: Float64Array };
+}
+
+/**
+ * The predictor of a current station's tidal stream, or null for none. The database gives the
+ * stream along the station's flood-ebb axis as harmonic constituents in knots (positive towards
+ * the flood direction) and a mean flow in knots added to their sum; the tide package predicts that
+ * signed sum like a water level (same nodal corrections as the tide), converted here to m/s.
+ * @throws HttpError 400 for an id that is no predictable current station.
+ */
+export function currentPredictor(
+  stationId: string | null | undefined,
+  position?: { latitude: number | null; longitude: number | null },
+): CurrentPredictor | null {
+  if (stationId == null) return null;
+  checkCurrentStation(stationId);
+  const s = stationsById.get(stationId)!;
+  const km =
+    position?.latitude != null && position.longitude != null
+      ? distanceKm(position.latitude, position.longitude, s.latitude, s.longitude)
+      : null;
+  const p = createTidePredictor(s.harmonic_constituents, { offset: s.current?.mean_flow ?? 0, nodeCorrections: TIDE_NODE_CORRECTIONS });
+  // The signed stream in knots through the same chunked, interpolated reader as the tide's levels.
+  const along: TidePredictor = {
+    timeline: (a, b, stepS) => p.getTimelinePrediction({ start: new Date(a), end: new Date(b), timeFidelity: stepS }),
+    extremes: () => [],
+    station: null,
+    key: '',
+  };
+  const flood = s.current?.flood_direction ?? NaN;
+  const ebb = s.current?.ebb_direction ?? NaN;
+  return {
+    station: currentStationInfo(s, km),
+    key: `cur:${s.id}:${TIDE_NODE_CORRECTIONS}`,
+    predict(timeMs) {
+      const knots = predictLevels(along, timeMs);
+      const speedMps = new Float64Array(knots.length);
+      const dirDeg = new Float64Array(knots.length);
+      for (let i = 0; i < knots.length; i++) {
+        speedMps[i] = Math.abs(knots[i]) * KNOT_MPS;
+        dirDeg[i] = knots[i] >= 0 ? flood : ebb;
+      }
+      return { speedMps, dirDeg };
+    },
   };
 }

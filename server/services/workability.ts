@@ -167,7 +167,7 @@ export function limitsVersion(
   const doc = {
     format: STATS_FORMAT,
     operations: byId(setup.operations).map((o) => [o.id, o.tpopH, o.tcH, o.weatherRestricted, canonical(o.limits), [...o.siteIds].sort()]),
-    // The tide constants (or station) change the depth of every record (docs/domain.md#tide).
+    // The tide constants (or station) change the depth of every record, the current station the current (docs/domain.md#tide).
     sites: byId(setup.sites).map((s) => [
       s.id,
       s.depthM,
@@ -176,6 +176,8 @@ export function limitsVersion(
       s.timeZone,
       canonical(s.transferTable),
       canonical(s.tide),
+      // The current station gives the predicted current a current limit reads where the dataset has none.
+      s.currentStationId,
     ]),
     alpha: setup.alphaTable,
     dataPointDepthM,

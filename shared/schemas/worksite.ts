@@ -3,7 +3,7 @@
  * table (docs/domain.md#transformation).
  */
 import { z } from 'zod';
-import { patchSchema } from './common';
+import { patchSchema, storableText } from './common';
 import { canonicalTimeZone, finite, itemName } from './site-fields';
 import { TransferTableInput } from './transfer-table';
 import { WorksiteTideInput } from './tide';
@@ -49,6 +49,8 @@ const worksiteFields = {
   transferTable: TransferTableInput.nullable(),
   /** tide at the worksite (docs/domain.md#tide); null = none */
   tide: WorksiteTideInput.nullable(),
+  /** a current station of the tide database, for predicted tidal current (docs/domain.md#tide); null = none */
+  currentStationId: storableText(z.string().trim().min(1, 'A current station id is needed').max(200)).nullable(),
 };
 
 /** A new worksite (POST), or a whole one (the PATCH service re-checks the merged record with it). */
@@ -61,6 +63,7 @@ export const WorksiteInput = z.object({
   hindcastDatasetId: worksiteFields.hindcastDatasetId.default(null),
   transferTable: worksiteFields.transferTable.default(null),
   tide: worksiteFields.tide.default(null),
+  currentStationId: worksiteFields.currentStationId.default(null),
 });
 export type WorksiteInput = z.infer<typeof WorksiteInput>;
 /** What a form may send (defaults not yet applied). */

@@ -92,3 +92,57 @@ export function combineWaterLevel(
   }
   return { levelM, source };
 }
+
+/** Where the current of a worksite record came from (docs/domain.md#tide). */
+export const CURRENT_SOURCES = ['none', 'dataset', 'predicted'] as const;
+export type CurrentSource = (typeof CURRENT_SOURCES)[number];
+
+/** Words for each current source, for the chain behind an hour and the conditions page. */
+export const CURRENT_SOURCE_WORDS: Readonly<Record<CurrentSource, string>> = {
+  none: 'no current',
+  dataset: 'the dataset’s current (measured or forecast)',
+  predicted: 'the predicted tidal current of the chosen station',
+};
+
+/** The current of each record and where it came from (index into CURRENT_SOURCES). */
+export interface CombinedCurrent {
+  /** m/s; NaN where unknown. */
+  speedMps: Float64Array;
+  /** degrees true the water flows towards; NaN where unknown. */
+  dirDeg: Float64Array;
+  source: Uint8Array;
+}
+
+/**
+ * The worksite's current per record (docs/domain.md#tide), as for the water level: a dataset
+ * speed wins where it has a value (with the dataset's direction, NaN where it has none); elsewhere
+ * the predicted tidal current (speed and direction); neither: null (a current limit finds no data).
+ */
+export function combineCurrent(
+  predicted: { speedMps: Float64Array; dirDeg: Float64Array } | null,
+  dataset: { speedMps: Float64Array; dirDeg: Float64Array | null } | null,
+): CombinedCurrent | null {
+  if (!predicted && !dataset) return null;
+  const n = predicted?.speedMps.length ?? dataset!.speedMps.length;
+  if (predicted && dataset && dataset.speedMps.length !== n)
+    throw new RangeError('the predicted and the dataset currents must have the same length');
+  const speedMps = new Float64Array(n);
+  const dirDeg = new Float64Array(n);
+  const source = new Uint8Array(n);
+  for (let i = 0; i < n; i++) {
+    const d = dataset ? dataset.speedMps[i] : NaN;
+    if (d === d) {
+      speedMps[i] = d;
+      dirDeg[i] = dataset!.dirDeg ? dataset!.dirDeg[i] : NaN;
+      source[i] = 1;
+    } else if (predicted) {
+      speedMps[i] = predicted.speedMps[i];
+      dirDeg[i] = predicted.dirDeg[i];
+      source[i] = 2;
+    } else {
+      speedMps[i] = NaN;
+      dirDeg[i] = NaN;
+    }
+  }
+  return { speedMps, dirDeg, source };
+}

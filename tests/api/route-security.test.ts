@@ -243,6 +243,11 @@ const TABLE: Record<string, RouteCase> = {
     why: 'stations of the public tide database near a worksite with a position; read-only',
     fresh: async () => ({ siteId: await createTideSite(P1.projectId) }),
   },
+  'GET /projects/:projectId/sites/:siteId/current-stations': {
+    access: 'member',
+    why: 'current stations of the public tide database near a worksite with a position; read-only',
+    fresh: async () => ({ siteId: await createTideSite(P1.projectId) }),
+  },
 
   'POST /projects/:projectId/tide-preview': {
     access: 'coordinator',
@@ -253,6 +258,11 @@ const TABLE: Record<string, RouteCase> = {
     access: 'member',
     why: 'stations of the public tide database near a position; read-only',
     query: () => ({ latitude: '53.5', longitude: '8.1' }),
+  },
+  'GET /projects/:projectId/current-stations': {
+    access: 'member',
+    why: 'current stations of the public tide database near a position; read-only',
+    query: () => ({ latitude: '41.55', longitude: '-69.98' }),
   },
 
   'GET /projects/:projectId/operations': { access: 'member' },

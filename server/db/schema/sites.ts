@@ -31,6 +31,8 @@ export const worksite = pgTable(
       z0?: number;
       datum: string;
     } | null>(),
+    /** Current station of the public tide database whose predicted current the worksite uses; null = none (docs/domain.md#tide). */
+    currentStationId: text(),
     createdAt: stampColumn(),
     updatedAt: stampColumn(),
   },

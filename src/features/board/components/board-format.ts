@@ -127,3 +127,6 @@ export function responseLimitWords(l: {
   const stat = l.statistic === 'significant' ? 'significant' : `most probable max (${l.durationH} h)`;
   return `${l.label} ${stat} ≤ ${l.max} ${l.unit}`;
 }
+/** A current direction: degrees true the water flows towards (oceanographic convention, docs/domain.md#tide), so no "from". */
+export const fmtTowards = (deg: number | null | undefined) =>
+  deg === null || deg === undefined || !Number.isFinite(deg) ? '–' : `${Math.round(deg)}°`;

@@ -2,7 +2,7 @@
 // flags → worksite Hs and bed velocity → each limit at OPLIM and OPWF → margin. A drawer at the
 // right on a laptop, a sheet from the bottom on a phone; not modal, so another hour can be picked
 // while it is open.
-import { WATER_LEVEL_SOURCE_WORDS } from '../../../../shared/seadata/water-level';
+import { CURRENT_SOURCE_WORDS, WATER_LEVEL_SOURCE_WORDS } from '../../../../shared/seadata/water-level';
 import { useEffect, useRef, type ReactNode } from 'react';
 import type { LimitCheck, OperationSitePlan } from '../../../../shared/api-types-plan';
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
@@ -10,7 +10,7 @@ import { CHANCE_WORDS, chancePercent } from '../../../../shared/status-words';
 import { ErrorNotice, Spinner } from '../../../components/ui';
 import { Term } from '../../../components/ui/term';
 import { useHourChain, type HourChain } from '../api/get-hour-chain';
-import { STATUS_META, flagWords, fmt, fmtDir, formatIn, limitWord } from './board-format';
+import { STATUS_META, flagWords, fmt, fmtDir, fmtTowards, formatIn, limitWord } from './board-format';
 
 interface ChainPanelProps {
   projectId: string;
@@ -265,8 +265,12 @@ function ChainBody({ chain, alpha, weatherRestricted }: { chain: HourChain; alph
             ...(chain.site.current !== null
               ? ([
                   [
-                    'Current (as the dataset gives it)',
-                    `${fmt(chain.site.current, 2, 'm/s')}${chain.site.currentDir !== null ? `, flowing towards ${fmtDir(chain.site.currentDir)}` : ''}`,
+                    'Current',
+                    `${fmt(chain.site.current, 2, 'm/s')}${chain.site.currentDir !== null ? `, flowing towards ${fmtTowards(chain.site.currentDir)}` : ''} (${
+                      chain.site.currentSource === 'predicted' && chain.site.currentStation
+                        ? `predicted tidal current of station ${chain.site.currentStation}, no wind-driven or surge current`
+                        : CURRENT_SOURCE_WORDS[chain.site.currentSource]
+                    })`,
                   ],
                 ] as [string, ReactNode][])
               : []),

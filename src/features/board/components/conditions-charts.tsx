@@ -195,12 +195,14 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
           ),
       limitValues: operations.flatMap((o) => (o.bedVelocityMax !== null ? [o.bedVelocityMax] : [])),
     },
-    // Current (docs/domain.md#tide): only when the dataset carries a current speed column.
+    // Current (docs/domain.md#tide): the dataset's, else the predicted tidal current of the worksite's station; only when there is one.
     ...(conditions.current.some((x) => x !== null)
       ? [
           {
             key: 'current',
-            title: 'Current speed (as the dataset gives it)',
+            title: conditions.currentSource.some((s) => s === 'predicted')
+              ? 'Current speed (predicted tidal current where the dataset has none)'
+              : 'Current speed (as the dataset gives it)',
             unit: 'm/s',
             decimals: 2,
             series: [{ id: 'current', name: 'Current', values: conditions.current, light: '#1d4ed8', dark: '#93c5fd' }],

@@ -17,6 +17,8 @@ import { zoneStatement } from '../../../../shared/dates';
 import type { ChartOperation } from './conditions-charts';
 import { useIsDark } from '../../../lib/use-is-dark';
 import { operationColour } from './operation-colours';
+import { TideStrip } from './tide-strip';
+import { CurrentStrip } from './current-strip';
 
 const ConditionsCharts = lazy(() => import('./conditions-charts'));
 
@@ -144,6 +146,20 @@ export function ConditionsPage() {
               </ol>
             )}
           </Card>
+          {(site?.tide && site.tide.source !== 'none') || c.currentStation || c.current.some((v) => v !== null) ? (
+            <Card className="flex flex-col gap-3" data-testid="conditions-tide-current">
+              <h2 className="text-lg font-bold">Tide and current</h2>
+              {site?.tide && site.tide.source !== 'none' ? (
+                <TideStrip
+                  projectId={projectId}
+                  site={site}
+                  fromMs={Date.parse(c.times[0])}
+                  toMs={Date.parse(c.times[c.times.length - 1])}
+                />
+              ) : null}
+              <CurrentStrip conditions={c} zone={zone} />
+            </Card>
+          ) : null}
           <Card>
             <Suspense fallback={<Spinner label="Drawing the charts" />}>
               <ConditionsCharts conditions={c} operations={chartOps} nowMs={nowMs} />
@@ -192,6 +208,7 @@ function describeLimits(o: ChartOperation): string {
   if (o.bedVelocityMax !== null)
     parts.push(`bed velocity ≤ ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`);
   if (o.windMax !== null) parts.push(`wind ≤ ${fmt(o.windMax, 1, 'm/s')}`);
+  if (o.currentMax != null) parts.push(`current ≤ ${fmt(o.currentMax, 2, 'm/s')}`);
   for (const l of o.responses?.limits ?? []) parts.push(responseLimitWords(l));
   return parts.join(' · ') || 'no limits drawn here';
 }

@@ -711,7 +711,7 @@ export function OperationForm({
             unit="m/s"
             htmlFor={f('current')}
             error={err('limits.currentMax')}
-            hint={`Current speed, ${rangeHint(R.currentMps, 'm/s')}.`}
+            hint={`Current speed, ${rangeHint(R.currentMps, 'm/s')}: the dataset’s current, else the worksite’s predicted tidal current (no data without either).`}
           >
             <Input id={f('current')} inputMode="decimal" {...form.register('limits.currentMax')} invalid={!!err('limits.currentMax')} />
           </FieldShell>

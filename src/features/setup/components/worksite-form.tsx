@@ -15,6 +15,7 @@ import { LazySiteMap } from '../../../components/map/lazy-site-map';
 import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
 import { TideFields, tideFromText, TideText, tideToText } from './tide-fields';
+import { CurrentStationField } from './current-station-field';
 import { COMMON_TIME_ZONES } from './time-zones';
 import {
   starterTransferTable,
@@ -40,6 +41,7 @@ const WorksiteText = z.object({
     .object({ directionSectorsDeg: z.array(pairText), tpBandsS: z.array(pairText), factors: z.array(z.array(z.string())) })
     .nullable(),
   tide: TideText,
+  currentStationId: z.string(),
 });
 type WorksiteText = z.infer<typeof WorksiteText>;
 
@@ -58,6 +60,7 @@ const WorksiteFormSchema = WorksiteText.transform((v): WorksiteFormValues => ({
   hindcastDatasetId: v.hindcastDatasetId === '' ? null : v.hindcastDatasetId,
   transferTable: v.transferTable ? transferTableFromText(v.transferTable) : null,
   tide: tideFromText(v.tide),
+  currentStationId: v.currentStationId === '' ? null : v.currentStationId,
 })).pipe(WorksiteInput);
 
 function initialValues(site: SiteResponse | null, defaultZone: string): WorksiteText {
@@ -72,6 +75,7 @@ function initialValues(site: SiteResponse | null, defaultZone: string): Worksite
     hindcastDatasetId: site?.hindcastDatasetId ?? '',
     transferTable: site?.transferTable ? transferTableToText(site.transferTable) : null,
     tide: tideToText(site?.tide),
+    currentStationId: site?.currentStationId ?? '',
   };
 }
 
@@ -109,6 +113,7 @@ export function WorksiteForm({
   ];
 
   const tide = useWatch({ control: form.control, name: 'tide' }) as TideText;
+  const currentStationId = useWatch({ control: form.control, name: 'currentStationId' }) as string;
   const zoneText = useWatch({ control: form.control, name: 'timeZone' }) as string;
   const lat = numberOrNull(latText);
   const lon = numberOrNull(lonText);
@@ -251,8 +256,8 @@ export function WorksiteForm({
 
       <FormSection
         id={f('tide')}
-        title="Tide (optional)"
-        hint="The depth then moves with the predicted tide: h(t) = chart depth + water level, in the transformation, the depth limit and the tide and depth limits of operations."
+        title="Tide and tidal current (optional)"
+        hint="The depth then moves with the predicted tide: h(t) = chart depth + water level, in the transformation, the depth limit and the tide and depth limits of operations. A current station's predicted tidal current fills the hours a dataset has no current for (the current limit): tidal current only, no wind-driven or surge current; not for navigation."
         error={errorAt(errors, 'tide')}
       >
         <TideFields
@@ -263,6 +268,14 @@ export function WorksiteForm({
           errors={errors}
           position={position}
           timeZone={zoneText}
+        />
+        <CurrentStationField
+          projectId={projectId}
+          idPrefix={f('current')}
+          position={position}
+          chosen={currentStationId}
+          onChoose={(next) => form.setValue('currentStationId', next, { shouldDirty: true, shouldValidate: form.formState.isSubmitted })}
+          error={errorAt(errors, 'currentStationId')}
         />
       </FormSection>
 

@@ -1,0 +1,1 @@
+ALTER TABLE "worksite" ADD COLUMN "current_station_id" text;
