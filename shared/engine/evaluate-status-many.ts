@@ -244,112 +244,121 @@ function compileGroup(compiled: CompiledLimits[]): Group {
   };
 }
 
-// The passes below are small loops of one kind each (one per input value), so that the JIT
-// compiles each once for every mix of operations (see evaluateStatus).
-
-/** Hs: starts the three masks (missing Hs, Hs limits broken, Hs limits met at OPLIM only). */
-function hsPass(
-  v: Float64Array,
-  need: number,
-  list: AboveList,
-  n: number,
-  missing: Int32Array,
-  broken: Int32Array,
-  marginal: Int32Array,
-): void {
-  const thr = list.thr;
-  const cumB = list.cumBroken;
-  const cumM = list.cumMarginal;
-  const m = thr.length;
-  for (let i = 0; i < n; i++) {
-    const x = v[i];
-    let j = 0;
-    while (j < m && x > thr[j]) j++;
-    missing[i] = x !== x ? need : 0;
-    broken[i] = cumB[j];
-    marginal[i] = cumM[j];
-  }
-}
-
-/** A value compared with maximums (Tp max, bed velocity, wind): adds its missing and broken bits. */
-function abovePass(v: Float64Array, need: number, list: AboveList, n: number, missing: Int32Array, broken: Int32Array): void {
-  const thr = list.thr;
-  const cum = list.cumBroken;
-  const m = thr.length;
-  for (let i = 0; i < n; i++) {
-    const x = v[i];
-    let j = 0;
-    while (j < m && x > thr[j]) j++;
-    if (x !== x) missing[i] |= need;
-    broken[i] |= cum[j];
-  }
-}
-
-/** Tp minimums (as maximums of -Tp) and excluded bands: adds their broken bits. */
-function tpLowPass(
-  v: Float64Array,
-  list: AboveList,
-  bandFrom: Float64Array,
-  bandTo: Float64Array,
-  bandBit: Int32Array,
-  n: number,
-  broken: Int32Array,
-): void {
-  const thr = list.thr;
-  const cum = list.cumBroken;
-  const m = thr.length;
+/**
+ * Every record of a group against every threshold in one pass (Hs, Tp maximums, Tp minimums and
+ * bands, both bed velocities, wind, then each Hs-Tp curve), setting one bit per operation in three
+ * masks: a needed value missing, a limit broken, an Hs limit met at OPLIM only. Each value is
+ * compared with the sorted thresholds of every operation at once (the count of thresholds below
+ * it indexes the OR of their bits). One loop of fixed shape for every mix of operations, so the
+ * JIT compiles it once; the masks are written once per record.
+ */
+function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch): void {
+  const { missing, broken, marginal } = s;
+  const hsV = series.hsM;
+  const tpV = series.tpS;
+  const linV = series.bedVelocityLinearMps;
+  const soulV = series.bedVelocitySoulsbyMps;
+  const windV = series.windMps;
+  const needHs = g.needHs;
+  const needTp = g.needTp;
+  const needLin = g.needLin;
+  const needSoul = g.needSoul;
+  const needWind = g.needWind;
+  const hsT = g.hs.thr;
+  const hsB = g.hs.cumBroken;
+  const hsM = g.hs.cumMarginal;
+  const mHs = hsT.length;
+  const taT = g.tpAbove.thr;
+  const taB = g.tpAbove.cumBroken;
+  const mTa = taT.length;
+  const tbT = g.tpBelow.thr;
+  const tbB = g.tpBelow.cumBroken;
+  const mTb = tbT.length;
+  const bandFrom = g.bandFrom;
+  const bandTo = g.bandTo;
+  const bandBit = g.bandBit;
   const nb = bandFrom.length;
+  const tpLow = mTb > 0 || nb > 0;
+  const lT = g.lin.thr;
+  const lB = g.lin.cumBroken;
+  const mL = lT.length;
+  const sT = g.soul.thr;
+  const sB = g.soul.cumBroken;
+  const mS = sT.length;
+  const wT = g.wind.thr;
+  const wB = g.wind.cumBroken;
+  const mW = wT.length;
+  const curves = g.curves;
+  const nc = curves.length;
   for (let i = 0; i < n; i++) {
-    const x = v[i];
-    const y = -x;
+    let x = hsV[i];
     let j = 0;
-    while (j < m && y > thr[j]) j++;
-    let b = cum[j];
-    for (let k = 0; k < nb; k++) if (x >= bandFrom[k] && x <= bandTo[k]) b |= bandBit[k];
-    broken[i] |= b;
-  }
-}
-
-/** One Hs-Tp curve operation: adds its broken and marginal bits. */
-function curvePass(hs: Float64Array, tp: Float64Array, p: CurveOp, n: number, broken: Int32Array, marginal: Int32Array): void {
-  const bit = p.bit;
-  for (let i = 0; i < n; i++) {
-    const k = curveClass(p, hs[i], tp[i]);
-    if (k === 2) broken[i] |= bit;
-    else if (k === 1) marginal[i] |= bit;
+    while (j < mHs && x > hsT[j]) j++;
+    let miss = x !== x ? needHs : 0;
+    let brk = hsB[j];
+    let mar = hsM[j];
+    if (needTp !== 0) {
+      x = tpV[i];
+      j = 0;
+      while (j < mTa && x > taT[j]) j++;
+      if (x !== x) miss |= needTp;
+      brk |= taB[j];
+    }
+    if (tpLow) {
+      x = tpV[i];
+      const y = -x;
+      j = 0;
+      while (j < mTb && y > tbT[j]) j++;
+      brk |= tbB[j];
+      for (let k = 0; k < nb; k++) if (x >= bandFrom[k] && x <= bandTo[k]) brk |= bandBit[k];
+    }
+    if (needLin !== 0) {
+      x = linV[i];
+      j = 0;
+      while (j < mL && x > lT[j]) j++;
+      if (x !== x) miss |= needLin;
+      brk |= lB[j];
+    }
+    if (needSoul !== 0) {
+      x = soulV[i];
+      j = 0;
+      while (j < mS && x > sT[j]) j++;
+      if (x !== x) miss |= needSoul;
+      brk |= sB[j];
+    }
+    if (needWind !== 0) {
+      x = windV[i];
+      j = 0;
+      while (j < mW && x > wT[j]) j++;
+      if (x !== x) miss |= needWind;
+      brk |= wB[j];
+    }
+    for (let c = 0; c < nc; c++) {
+      const p = curves[c];
+      const k = curveClass(p, hsV[i], tpV[i]);
+      if (k === 2) brk |= p.bit;
+      else if (k === 1) mar |= p.bit;
+    }
+    missing[i] = miss;
+    broken[i] = brk;
+    marginal[i] = mar;
   }
 }
 
 /**
- * Masks to the two bits of each operation's STATUS code (NO_DATA 00, NOT_WORKABLE 01, MARGINAL 10,
- * WORKABLE 11): high = data and nothing broken; low = data and (broken, or not marginal). Written
- * over broken (high) and marginal (low).
+ * Every operation's STATUS code from the three masks, record by record (outs[k]: operation k's
+ * codes). The two bits of each code (NO_DATA 00, NOT_WORKABLE 01, MARGINAL 10, WORKABLE 11):
+ * high = data and nothing broken; low = data and (broken, or not marginal).
  */
-function planesPass(n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array): void {
+function decodePass(n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, outs: Uint8Array[]): void {
+  const K = outs.length;
   for (let i = 0; i < n; i++) {
     const miss = missing[i];
     const brk = broken[i];
-    broken[i] = ~(miss | brk);
-    marginal[i] = ~miss & (brk | ~marginal[i]);
+    const high = ~(miss | brk);
+    const low = ~miss & (brk | ~marginal[i]);
+    for (let k = 0; k < K; k++) outs[k][i] = (((high >>> k) & 1) << 1) | ((low >>> k) & 1);
   }
-}
-
-/** Every record of a group: the two status bits of each of its operations. */
-function maskPasses(series: SiteSeries, g: Group, n: number, s: StatusManyScratch): void {
-  const { missing, broken, marginal } = s;
-  hsPass(series.hsM, g.needHs, g.hs, n, missing, broken, marginal);
-  if (g.needTp !== 0) abovePass(series.tpS, g.needTp, g.tpAbove, n, missing, broken);
-  if (g.tpBelow.thr.length > 0 || g.bandFrom.length > 0) tpLowPass(series.tpS, g.tpBelow, g.bandFrom, g.bandTo, g.bandBit, n, broken);
-  if (g.needLin !== 0) abovePass(series.bedVelocityLinearMps, g.needLin, g.lin, n, missing, broken);
-  if (g.needSoul !== 0) abovePass(series.bedVelocitySoulsbyMps, g.needSoul, g.soul, n, missing, broken);
-  if (g.needWind !== 0) abovePass(series.windMps, g.needWind, g.wind, n, missing, broken);
-  for (const p of g.curves) curvePass(series.hsM, series.tpS, p, n, broken, marginal);
-  planesPass(n, missing, broken, marginal);
-}
-
-/** One operation's STATUS codes from the two planes. */
-function decodePass(k: number, n: number, high: Int32Array, low: Int32Array, out: Uint8Array): void {
-  for (let i = 0; i < n; i++) out[i] = (((high[i] >>> k) & 1) << 1) | ((low[i] >>> k) & 1);
 }
 
 /**
@@ -359,10 +368,10 @@ function decodePass(k: number, n: number, high: Int32Array, low: Int32Array, out
  *
  * Method: the operations whose limits are all of the kinds known here (Hs max, Hs-Tp curve, Tp
  * min/max, excluded Tp bands, bed velocity, wind) are evaluated together, 32 at a time: one pass
- * per input value (Hs, Tp, each bed velocity, wind; one per curve) compares the value with the
- * sorted thresholds of every operation and sets one bit per operation in three masks (a needed
- * value missing, a limit broken, an Hs limit met at OPLIM only); the masks become the two bits of
- * each operation's STATUS code, and a short pass per operation writes its codes. Any other
+ * over the records compares each input value (Hs, Tp, each bed velocity, wind; each curve) with
+ * the sorted thresholds of every operation and sets one bit per operation in three masks (a needed
+ * value missing, a limit broken, an Hs limit met at OPLIM only); a second pass turns the masks
+ * into the two bits of each operation's STATUS code and writes every operation's code. Any other
  * operation (a limit kind added to the engine later) goes to evaluateStatus unchanged, so the
  * results never depend on which path ran (a property test compares the two).
  *
@@ -393,8 +402,14 @@ export function evaluateStatusMany(series: SiteSeries, ops: readonly OperationSp
   const s = options.scratch && options.scratch.missing.length >= n ? options.scratch : createStatusManyScratch(n);
   for (let from = 0; from < fast.length; from += GROUP) {
     const part = compiled.slice(from, from + GROUP);
-    maskPasses(series, compileGroup(part), n, s);
-    for (let k = 0; k < part.length; k++) decodePass(k, n, s.broken, s.marginal, result[fast[from + k]]);
+    maskPass(series, compileGroup(part), n, s);
+    decodePass(
+      n,
+      s.missing,
+      s.broken,
+      s.marginal,
+      part.map((_, k) => result[fast[from + k]]),
+    );
   }
   return result;
 }
