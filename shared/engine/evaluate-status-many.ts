@@ -348,17 +348,58 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch)
 /**
  * Every operation's STATUS code from the three masks, record by record (outs[k]: operation k's
  * codes). The two bits of each code (NO_DATA 00, NOT_WORKABLE 01, MARGINAL 10, WORKABLE 11):
- * high = data and nothing broken; low = data and (broken, or not marginal).
+ * high = data and nothing broken; low = data and (broken, or not marginal). Where every buffer
+ * starts on a 4-byte boundary (as new arrays do), four records at a time (decodeWords).
  */
 function decodePass(n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, outs: Uint8Array[]): void {
   const K = outs.length;
-  for (let i = 0; i < n; i++) {
+  let from = 0;
+  if (LITTLE_ENDIAN && outs.every((o) => o.byteOffset % 4 === 0)) {
+    const words = outs.map((o) => new Uint32Array(o.buffer, o.byteOffset, n >>> 2));
+    from = decodeWords(n >>> 2, missing, broken, marginal, words);
+  }
+  for (let i = from; i < n; i++) {
     const miss = missing[i];
     const brk = broken[i];
     const high = ~(miss | brk);
     const low = ~miss & (brk | ~marginal[i]);
     for (let k = 0; k < K; k++) outs[k][i] = (((high >>> k) & 1) << 1) | ((low >>> k) & 1);
   }
+}
+
+const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
+
+/** decodePass four records at a time, each operation's four codes written as one 32-bit word (little-endian). Returns the records done. */
+function decodeWords(nw: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, words: Uint32Array[]): number {
+  const K = words.length;
+  for (let q = 0; q < nw; q++) {
+    const i = q << 2;
+    let m = missing[i];
+    let b = broken[i];
+    const h0 = ~(m | b);
+    const l0 = ~m & (b | ~marginal[i]);
+    m = missing[i + 1];
+    b = broken[i + 1];
+    const h1 = ~(m | b);
+    const l1 = ~m & (b | ~marginal[i + 1]);
+    m = missing[i + 2];
+    b = broken[i + 2];
+    const h2 = ~(m | b);
+    const l2 = ~m & (b | ~marginal[i + 2]);
+    m = missing[i + 3];
+    b = broken[i + 3];
+    const h3 = ~(m | b);
+    const l3 = ~m & (b | ~marginal[i + 3]);
+    for (let k = 0; k < K; k++) {
+      words[k][q] =
+        (((h0 >>> k) & 1) << 1) |
+        ((l0 >>> k) & 1) |
+        ((((h1 >>> k) & 1) << 9) | (((l1 >>> k) & 1) << 8)) |
+        ((((h2 >>> k) & 1) << 17) | (((l2 >>> k) & 1) << 16)) |
+        ((((h3 >>> k) & 1) << 25) | (((l3 >>> k) & 1) << 24));
+    }
+  }
+  return nw << 2;
 }
 
 /**

@@ -93,6 +93,26 @@ describe('evaluateStatusMany equals the general path, evaluateStatus', () => {
     );
   });
 
+  it('out buffers that do not start on a 4-byte boundary (codes written one byte at a time)', () => {
+    fc.assert(
+      fc.property(
+        fc
+          .array(opArb, { minLength: 1, maxLength: 8 })
+          .chain((ops) => fc.tuple(fc.constant(ops), seriesArb(ops), fc.integer({ min: 1, max: 3 }))),
+        ([ops, series, shift]) => {
+          const n = series.timeMs.length;
+          const out = ops.map(() => new Uint8Array(n + shift).fill(9).subarray(shift));
+          const many = evaluateStatusMany(series, ops, { alphaTable: DEFAULT_ALPHA_TABLE, out });
+          ops.forEach((op, o) => {
+            expect(many[o].byteOffset).toBe(shift);
+            expect(Array.from(many[o])).toEqual(Array.from(evaluateStatus(series, op, { alphaTable: DEFAULT_ALPHA_TABLE })));
+          });
+        },
+      ),
+      { numRuns: 60 },
+    );
+  });
+
   it('the same usable windows and hindcast statistics over a long series with gaps', () => {
     fc.assert(
       fc.property(fc.array(opArb, { minLength: 1, maxLength: 6 }), fc.integer({ min: 1, max: 1_000_000 }), (ops, seed) => {
