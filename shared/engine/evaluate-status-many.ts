@@ -56,6 +56,19 @@ export interface EvaluateStatusManyOptions {
   out?: Uint8Array[];
   /** Reusable work space (see {@link createStatusManyScratch}). */
   scratch?: StatusManyScratch;
+  /**
+   * The series' distinct Tp values and each record's index among them (prepareSeaInput's `tpIds`
+   * and `tpKeys` for the data point whose Tp the series carries): Hs-Tp curves are then
+   * interpolated once per distinct Tp. A record whose Tp is not its key's value (or whose index is
+   * -1) is evaluated directly, so the results never depend on this option.
+   */
+  tpDistinct?: DistinctTp;
+}
+
+/** Distinct values of a Tp series: record i has Tp keys[ids[i]], or ids[i] = -1. */
+export interface DistinctTp {
+  ids: Int32Array;
+  keys: Float64Array;
 }
 
 /** Work space of {@link evaluateStatusMany}: three int32 bit masks per record. */
@@ -104,7 +117,15 @@ interface CurveOp {
   aLastCol: number;
   aFirst: number;
   aLast: number;
+  /** Per distinct Tp (see curveTable); empty when the series' distinct Tp values are not given. */
+  outside: Uint8Array;
+  lim: Float64Array;
+  opwf: Float64Array;
 }
+
+const EMPTY_U8 = new Uint8Array(0);
+const EMPTY_F64 = new Float64Array(0);
+const EMPTY_I32 = new Int32Array(0);
 
 function curveOp(bit: number, c: CompiledLimits): CurveOp {
   const nSeg = c.curveSlope.length;
@@ -131,6 +152,9 @@ function curveOp(bit: number, c: CompiledLimits): CurveOp {
     aLastCol: c.alphaCols[c.alphaCols.length - 1],
     aFirst: aRow !== null ? aRow[0] : 1,
     aLast: aRow !== null ? aRow[nA - 1] : 1,
+    outside: EMPTY_U8,
+    lim: EMPTY_F64,
+    opwf: EMPTY_F64,
   };
 }
 
@@ -141,11 +165,22 @@ function curveOp(bit: number, c: CompiledLimits): CurveOp {
 function curveClass(p: CurveOp, h: number, t: number): number {
   if (t < p.tp0 || t > p.tpN || h > p.hsMax) return 2;
   if (h <= p.sureOk) return 0;
+  const lim = curveLimit(p, t);
+  return (h > lim * curveAlpha(p, lim) ? 1 : 0) + (h > lim ? 1 : 0);
+}
+
+/** The curve's OPLIM at Tp t (within its Tp range), as curveClass computes it. */
+function curveLimit(p: CurveOp, t: number): number {
   const c = p.c;
   const cTp = c.curveTp;
   let s = 0;
   while (s < p.nSeg - 1 && cTp[s + 1] < t) s++;
-  const lim = t === cTp[s + 1] ? c.curveHs[s + 1] : c.curveHs[s] + c.curveSlope[s] * (t - cTp[s]);
+  return t === cTp[s + 1] ? c.curveHs[s + 1] : c.curveHs[s] + c.curveSlope[s] * (t - cTp[s]);
+}
+
+/** Alpha at OPLIM `lim` (1 without alpha), as curveClass computes it. */
+function curveAlpha(p: CurveOp, lim: number): number {
+  const c = p.c;
   let alpha = 1;
   if (p.nA > 0) {
     if (lim <= p.aFirstCol) alpha = p.aFirst;
@@ -157,7 +192,35 @@ function curveClass(p: CurveOp, h: number, t: number): number {
       alpha = (c.alphaRow as Float64Array)[j] + c.alphaSlope[j] * (lim - aCols[j]);
     }
   }
-  return (h > lim * alpha ? 1 : 0) + (h > lim ? 1 : 0);
+  return alpha;
+}
+
+/**
+ * curveClass's terms per distinct Tp (keys): 1 in `outside` where the Tp is outside the curve's
+ * range, else OPLIM in `lim` and OPWF (OPLIM * alpha) in `opwf`, the same numbers curveClass
+ * computes for that Tp; so a record's class takes two look-ups instead of the interpolations.
+ */
+function curveTable(p: CurveOp, keys: Float64Array): void {
+  const m = keys.length;
+  p.outside = new Uint8Array(m);
+  p.lim = new Float64Array(m);
+  p.opwf = new Float64Array(m);
+  for (let k = 0; k < m; k++) {
+    const t = keys[k];
+    if (t < p.tp0 || t > p.tpN) p.outside[k] = 1;
+    else {
+      const lim = curveLimit(p, t);
+      p.lim[k] = lim;
+      p.opwf[k] = lim * curveAlpha(p, lim);
+    }
+  }
+}
+
+/** curveClass of a record whose Tp is keys[id] (curveTable), from the table. */
+function curveClassTabled(p: CurveOp, h: number, id: number): number {
+  if (p.outside[id] === 1 || h > p.hsMax) return 2;
+  if (h <= p.sureOk) return 0;
+  return (h > p.opwf[id] ? 1 : 0) + (h > p.lim[id] ? 1 : 0);
 }
 
 /** One group of up to 32 operations, compiled into per-value threshold lists. */
@@ -252,7 +315,7 @@ function compileGroup(compiled: CompiledLimits[]): Group {
  * it indexes the OR of their bits). One loop of fixed shape for every mix of operations, so the
  * JIT compiles it once; the masks are written once per record.
  */
-function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch): void {
+function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch, tp: DistinctTp | undefined): void {
   const { missing, broken, marginal } = s;
   const hsV = series.hsM;
   const tpV = series.tpS;
@@ -290,6 +353,11 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch)
   const mW = wT.length;
   const curves = g.curves;
   const nc = curves.length;
+  // Curves by table where the distinct Tp values are given (a record whose Tp is not its key's
+  // value, or that has none, takes curveClass itself).
+  const tpIds = tp !== undefined && nc > 0 && tp.ids.length >= n ? tp.ids : EMPTY_I32;
+  const tpKeys = tpIds.length > 0 ? (tp as DistinctTp).keys : EMPTY_F64;
+  if (tpIds.length > 0) for (const p of curves) curveTable(p, tpKeys);
   for (let i = 0; i < n; i++) {
     let x = hsV[i];
     let j = 0;
@@ -333,9 +401,11 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch)
       if (x !== x) miss |= needWind;
       brk |= wB[j];
     }
+    const tpId = tpIds.length > 0 ? tpIds[i] : -1;
+    const tabled = tpId >= 0 && tpKeys[tpId] === tpV[i];
     for (let c = 0; c < nc; c++) {
       const p = curves[c];
-      const k = curveClass(p, hsV[i], tpV[i]);
+      const k = tabled ? curveClassTabled(p, hsV[i], tpId) : curveClass(p, hsV[i], tpV[i]);
       if (k === 2) brk |= p.bit;
       else if (k === 1) mar |= p.bit;
     }
@@ -443,7 +513,7 @@ export function evaluateStatusMany(series: SiteSeries, ops: readonly OperationSp
   const s = options.scratch && options.scratch.missing.length >= n ? options.scratch : createStatusManyScratch(n);
   for (let from = 0; from < fast.length; from += GROUP) {
     const part = compiled.slice(from, from + GROUP);
-    maskPass(series, compileGroup(part), n, s);
+    maskPass(series, compileGroup(part), n, s, options.tpDistinct);
     decodePass(
       n,
       s.missing,
