@@ -7,9 +7,8 @@
  *   worked, or by hand.
  * - Outlook: the remaining steps from now (or from the end of a step under way), first on the
  *   latest forecast's go-starts (with alpha), then each hindcast year from the same calendar time
- *   (see shared/engine/campaign-outlook.ts). Ensembles are not stored yet: the forecast is one
- *   member today, and `forecastMembers` is where each ensemble member will add its own samples
- *   (go-starts at OPLIM).
+ *   (see shared/engine/campaign-outlook.ts). With an ensemble, the control and each member add
+ *   their own samples, all with go-starts at OPLIM (`forecastMembers`).
  * - History: each planning job run stores the outlook (time, P50 and P90 finish, forecast issue),
  *   and e-mails clients and coordinators who asked when the P50 finish moved by more than their
  *   number of days (through the outbox).
@@ -46,6 +45,7 @@ import { zonedDayMs } from '../../shared/ledger/days';
 import { enqueueMail, type OutboxMessage } from './outbox';
 import { ByteBoundedMemo } from './byte-cache';
 import { runEngineTask } from './engine-pool';
+import { readMembers } from './ensemble-store';
 import type { SeaSeries } from './series-store';
 import { loadProjectSetup, type ProjectSetup } from './site-context';
 import { datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
@@ -228,10 +228,25 @@ const FLAG_MEMO_BYTES = 16 * 1024 * 1024;
  * weather-restricted never gets a go-start (docs/domain.md#convention-5): the forecast cannot
  * decide it, so its samples go on in the hindcast.
  */
-async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs: Pair[], alpha: boolean): Promise<Map<string, Uint8Array>> {
+async function goStartFlags(
+  db: Db,
+  row: DatasetRow,
+  setup: ProjectSetup,
+  pairs: Pair[],
+  alpha: boolean,
+  member?: SeaSeries & { member: number },
+): Promise<Map<string, Uint8Array>> {
   const wanted = new Set(pairs.map(pairKey));
   const key = createHash('sha256')
-    .update(JSON.stringify([row.id, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), alpha, [...wanted].sort()]))
+    .update(
+      JSON.stringify([
+        row.id,
+        member?.member ?? null,
+        limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference),
+        alpha,
+        [...wanted].sort(),
+      ]),
+    )
     .digest('hex');
   let memo = flagMemos.get(db);
   if (!memo)
@@ -243,7 +258,8 @@ async function goStartFlags(db: Db, row: DatasetRow, setup: ProjectSetup, pairs:
     );
   return memo.get(key, async () => {
     // On an engine worker thread (engine-pool.ts): a cold transformation of a 30-year hindcast never holds up other requests.
-    const list = await runEngineTask('outlookGoStarts', computeOutlookGoStarts, await datasetSeries(db, row.id), row, setup, pairs, alpha);
+    const series = member ?? (await datasetSeries(db, row.id));
+    const list = await runEngineTask('outlookGoStarts', computeOutlookGoStarts, series, row, setup, pairs, alpha);
     return new Map(pairs.map((p, i) => [pairKey(p), list[i]]));
   });
 }
@@ -291,19 +307,29 @@ async function forecastMembers(
   remaining: Pair[],
   alpha: boolean,
 ): Promise<OutlookForecastMember[]> {
-  const [series, flags] = await Promise.all([datasetSeries(db, row.id), goStartFlags(db, row, setup, remaining, alpha)]);
+  const series = await datasetSeries(db, row.id);
   const n = series.timeMs.length;
   if (n === 0) return [];
   // The forecast ends with its last record's own step (forecasts often go 3-hourly after a few days).
   const lastMs = recordSteps(series.timeMs, row.stepMinutes * 60_000).durationMs[n - 1];
-  return [
-    {
-      label: 'forecast',
-      timeMs: series.timeMs,
-      endMs: series.timeMs[n - 1] + lastMs,
-      goStart: remaining.map((p) => flags.get(pairKey(p))!),
-    },
-  ];
+  const endMs = series.timeMs[n - 1] + lastMs;
+  const runs = row.ensembleMembers > 0 ? await readMembers(db, row.id, series) : [];
+  // Without an ensemble: the deterministic forecast, with alpha as asked. With one: the control and
+  // every member, each one sample per hindcast year, all at OPLIM, as the plan's chances are: the
+  // spread of the runs stands for the forecast's uncertainty, so alpha is not laid on top
+  // (docs/domain.md#forecast-uncertainty).
+  const onOplim = runs.length > 0 ? false : alpha;
+  const flagSets = await Promise.all([
+    goStartFlags(db, row, setup, remaining, onOplim),
+    ...runs.map((m) => goStartFlags(db, row, setup, remaining, false, m)),
+  ]);
+  const labels = ['forecast', ...runs.map((m) => `member ${m.member}`)];
+  return flagSets.map((flags, i) => ({
+    label: labels[i],
+    timeMs: series.timeMs,
+    endMs,
+    goStart: remaining.map((p) => flags.get(pairKey(p))!),
+  }));
 }
 
 function finishOf(x: { p10: number; p50: number; p90: number } | null): OutlookFinish {
@@ -400,7 +426,7 @@ export async function campaignOutlookAnswer(
             issuedAt: fcRow.issuedAt?.toISOString() ?? null,
             end: iso(Math.max(...members.map((m) => m.endMs))),
             members: members.length,
-            ensemble: false,
+            ensemble: members.length > 1,
             stepsStartedInForecast: minStepsInForecast(samples),
             finishedInForecast: samples.length > 0 && samples.every((s) => s.stepsInForecast === remaining.length),
           }

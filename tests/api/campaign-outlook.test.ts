@@ -59,9 +59,11 @@ describe('GET .../outlook', () => {
     const fcRow = await getDatasetRow(t.database.db, t.demo.projectId, t.demo.forecastId!);
     expect(o.forecastIssuedAt).toBe(fcRow.issuedAt!.toISOString());
     expect(o.forecast?.datasetId).toBe(t.demo.forecastId);
-    expect(o.forecast?.members).toBe(1);
-    // One deterministic forecast x three hindcast years (2023-2025).
-    expect(o.samples).toBe(3);
+    // The demo forecast is an ensemble (control + 20 members, as the fake sends it): each run gives
+    // one sample per hindcast year (2023-2025), 21 x 3.
+    expect(o.forecast?.members).toBe(21);
+    expect(o.forecast?.ensemble).toBe(true);
+    expect(o.samples).toBe(21 * 3);
     expect(o.hindcast.samples).toBe(3);
     expect(o.steps.map((s) => s.index)).toEqual([0, 1, 2]);
     const sumTpop = 36 + 10 + 18; // seed/scenario-sites.ts

@@ -75,6 +75,13 @@ async function useTheme(page: Page, theme: 'light' | 'dark'): Promise<void> {
   const isDark = () => page.evaluate(() => document.documentElement.classList.contains('dark'));
   if ((await isDark()) !== (theme === 'dark')) await page.getByRole('button', { name: /^Switch to (light|dark) theme$/ }).click();
   expect(await isDark()).toBe(theme === 'dark');
+  // Colours change through CSS transitions (about 150 ms): axe must read the settled colours, not a
+  // tab half-way between the two themes, so wait until no transition runs (Web Animations API).
+  await page
+    .waitForFunction(() => document.getAnimations().every((a) => !(a instanceof CSSTransition) || a.playState !== 'running'), undefined, {
+      timeout: 10_000,
+    })
+    .catch(() => undefined);
 }
 
 async function checkPages(account: DemoAccount): Promise<void> {

@@ -249,6 +249,20 @@ describe('the People page asks first (issue 22, role changes)', () => {
     await page.getByRole('combobox', { name: label }).selectOption(before);
     await page.getByRole('alertdialog').getByRole('button', { name: 'Change role' }).click();
     await expect.poll(() => page.getByRole('combobox', { name: label }).inputValue()).toBe(before);
+
+    // A new temporary password asks first too, in the page (no browser pop-up); Cancel issues none.
+    await page.getByRole('button', { name: 'New temporary password' }).first().click();
+    const askPassword = page.getByRole('alertdialog');
+    await askPassword.waitFor();
+    expect(await askPassword.textContent()).toMatch(/^Give .* a new temporary password\?.*signed out everywhere/);
+    await askPassword.getByRole('button', { name: 'Cancel' }).click();
+    await askPassword.waitFor({ state: 'detached' });
+    expect(
+      await page
+        .getByText(/temporary password/i)
+        .filter({ hasText: /^[A-Za-z0-9-]{12,}$/ })
+        .count(),
+    ).toBe(0);
     await screenshot(page, 'people-confirm');
     await signOut(page);
   }, 120_000);

@@ -3,4 +3,5 @@ export { FieldShell, Input, Select, TextArea } from './field';
 export { Card, Notice, PageHeader, Spinner } from './card';
 export { ErrorNotice } from './error-notice';
 export { Confirm } from './confirm';
-export { Term } from './term';
+// Term (React Aria's tooltip) is imported from './term' by the pages that use it, so the first
+// page (sign-in and projects list) does not carry the overlay code.

@@ -261,22 +261,26 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
 /** A new temporary password for a forgotten or expired one (ends the user's sessions). */
 function NewTemporaryPassword({ user }: { user: AdminUser }) {
   const issue = useIssueTemporaryPassword();
+  const [asking, setAsking] = useState(false);
   return (
     <div className="mt-2">
-      <Button
-        variant="ghost"
-        disabled={issue.isPending}
-        onClick={() => {
-          if (
-            window.confirm(
-              `Give ${user.name} a new temporary password? Their current password stops working and they are signed out everywhere.`,
-            )
-          )
-            issue.mutate(user.id);
-        }}
-      >
+      <Button variant="ghost" disabled={issue.isPending || asking} onClick={() => setAsking(true)}>
         New temporary password
       </Button>
+      {asking ? (
+        <Confirm
+          title={`Give ${user.name} a new temporary password?`}
+          confirmLabel="Give a new password"
+          busy={issue.isPending}
+          onConfirm={() => {
+            setAsking(false);
+            issue.mutate(user.id);
+          }}
+          onCancel={() => setAsking(false)}
+        >
+          Their current password stops working and they are signed out everywhere.
+        </Confirm>
+      ) : null}
       {issue.error ? <ErrorNotice error={issue.error} /> : null}
       {issue.data ? <TemporaryPassword email={user.email} password={issue.data.temporaryPassword} /> : null}
     </div>

@@ -6,7 +6,7 @@ import { Link } from 'react-router-dom';
 import type { OperationSitePlan } from '../../../../shared/api-types-plan';
 import { OCCURRENCE_META, STATUS_META, formatIn, formatStart, limitWord } from './board-format';
 import { dayRuns, firstAtOrAfter, occurrenceMarks, recordEndMs, startWords, windowBoxes, type VisibleRange } from './board-model';
-import { Term } from '../../../components/ui';
+import { Term } from '../../../components/ui/term';
 import { CHANCE_WORDS, START_WORDS, chancePercent } from '../../../../shared/status-words';
 
 export interface SelectedHour {

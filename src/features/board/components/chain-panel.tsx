@@ -7,7 +7,8 @@ import { useEffect, useRef, type ReactNode } from 'react';
 import type { LimitCheck, OperationSitePlan } from '../../../../shared/api-types-plan';
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
 import { CHANCE_WORDS, chancePercent } from '../../../../shared/status-words';
-import { ErrorNotice, Spinner, Term } from '../../../components/ui';
+import { ErrorNotice, Spinner } from '../../../components/ui';
+import { Term } from '../../../components/ui/term';
 import { useHourChain, type HourChain } from '../api/get-hour-chain';
 import { STATUS_META, flagWords, fmt, fmtDir, formatIn, limitWord } from './board-format';
 

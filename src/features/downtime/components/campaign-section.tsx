@@ -3,7 +3,8 @@ import { TZDate } from '@date-fns/tz';
 import type { CampaignResponse, CampaignSimulation } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAMPAIGN_MAX_STEPS, CampaignInput } from '../../../../shared/schemas/downtime';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner, Term } from '../../../components/ui';
+import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { Term } from '../../../components/ui/term';
 import { DateEcho } from '../../../components/ui/date-echo';
 import { ApiError } from '../../../lib/api';
 import { useCampaigns } from '../api/get-campaigns';
@@ -37,6 +38,7 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
   const campaigns = useCampaigns(projectId);
   const [editing, setEditing] = useState<'new' | 'edit' | null>(null);
   const remove = useDeleteCampaign(projectId);
+  const [askingDelete, setAskingDelete] = useState(false);
   const list = campaigns.data ?? [];
   const selected = list.find((c) => c.id === selectedId) ?? list[0];
   const simulation = useSimulation(projectId, selected && datasetId ? { campaignId: selected.id, datasetId, alpha } : null);
@@ -105,19 +107,26 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
                 <Button variant="secondary" onClick={() => setEditing('edit')}>
                   Edit campaign
                 </Button>
-                <Button
-                  variant="ghost"
-                  disabled={remove.isPending}
-                  onClick={() => {
-                    if (window.confirm(`Delete the campaign “${selected.name}”?`))
-                      remove.mutate(selected.id, { onSuccess: () => onSelect('') });
-                  }}
-                >
+                <Button variant="ghost" disabled={remove.isPending || askingDelete} onClick={() => setAskingDelete(true)}>
                   Delete campaign
                 </Button>
               </div>
             ) : null}
           </div>
+          {askingDelete ? (
+            <Confirm
+              title={`Delete the campaign “${selected.name}”?`}
+              confirmLabel="Delete campaign"
+              busy={remove.isPending}
+              onConfirm={() => {
+                setAskingDelete(false);
+                remove.mutate(selected.id, { onSuccess: () => onSelect('') });
+              }}
+              onCancel={() => setAskingDelete(false)}
+            >
+              Its steps, progress and stored outlooks go with it.
+            </Confirm>
+          ) : null}
           {remove.error ? <ErrorNotice error={remove.error} /> : null}
           <ol className="flex flex-col gap-1 text-sm" aria-label="Steps">
             {selected.steps.map((s, i) => (

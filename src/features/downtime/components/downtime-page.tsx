@@ -4,7 +4,8 @@
 // member reads; coordinators (and admins) edit campaigns and propose/confirm the ledger.
 // The choices live in the address (?dataset=&alpha=off&campaign=&month=) so a view can be shared.
 import { useParams, useSearchParams } from 'react-router-dom';
-import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner, Term } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { Term } from '../../../components/ui/term';
 import { Switch } from '../../../components/ui/switch';
 import { useProjectAccess } from '../../../api/projects';
 import { useStatisticsDatasets } from '../../../api/datasets';

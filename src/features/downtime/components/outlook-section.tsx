@@ -87,8 +87,8 @@ function OutlookFigures({ o, zone, stale }: { o: CampaignOutlookAnswer; zone: st
                   ? 'the forecast alone finishes the work.'
                   : `${o.forecast.stepsStartedInForecast} of ${o.steps.length} remaining step${o.steps.length === 1 ? '' : 's'} start${o.forecast.stepsStartedInForecast === 1 ? 's' : ''} inside it; the hindcast years take over at its end.`}{' '}
                 {o.forecast.ensemble
-                  ? `${o.forecast.members} ensemble members.`
-                  : 'One deterministic forecast (ensembles are not stored yet).'}
+                  ? `The control and ${o.forecast.members - 1} ensemble members, each a sample per hindcast year, at the operation limits (no α).`
+                  : 'One deterministic forecast.'}
               </p>
             ) : (
               <p className="mt-1 text-ink-soft">No forecast: the outlook is the hindcast years alone.</p>

@@ -1,6 +1,7 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
 import type { WorkabilityCalendarMonth, WorkabilityEntry } from '../../../../shared/api-types-downtime';
-import { Button, Card, ErrorNotice, Notice, Select, Spinner, Term } from '../../../components/ui';
+import { Button, Card, ErrorNotice, Notice, Select, Spinner } from '../../../components/ui';
+import { Term } from '../../../components/ui/term';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { hours, MONTH_LONG, MONTH_SHORT, num, pct } from './format';
 import type { HeatRow } from './downtime-heatmap';

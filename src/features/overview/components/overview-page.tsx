@@ -5,7 +5,6 @@ import { Link, useParams } from 'react-router-dom';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import type { OverviewAnswer, OverviewLine } from '../../../../shared/api-types-overview';
 import { formatDay, formatInstant, formatMonth, zoneStatement } from '../../../../shared/dates';
-import { CAUTION_LINE } from '../../../../shared/caution';
 import { useProjectAccess } from '../../../api/projects';
 import { Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { formatPosition } from '../../../lib/format';
@@ -55,7 +54,6 @@ export function ProjectOverviewPage() {
       {o.month && o.lines.length > 0 && role !== 'client' ? <MonthCard month={o.month} /> : null}
       <OverviewMap project={project} waveDirection={o.dataPointNow?.dir ?? null} canEdit={access.canEdit} />
       <AboutCard project={project} o={o} />
-      <p className="text-xs text-ink-soft">{CAUTION_LINE}</p>
     </div>
   );
 }
