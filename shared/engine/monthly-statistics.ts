@@ -142,7 +142,9 @@ function calendarGroups(ym: Int32Array): CalendarGroups {
  * quantileR7Upper). When every time is a whole number of steps after the first (hindcasts, regular
  * forecasts), the waits are not stored per record but as ramps (a wait grows by one step per record
  * back from a go-start), and each percentile is found by bisection on the value, counting through
- * the ramps (exact: the waits are whole steps). Nothing is allocated per record, and nothing proportional to n when `scratch` is
+ * the ramps (exact: the waits are whole steps). A series of one step throughout whose go-starts
+ * are found here (monthlyStatisticsWithGoStarts on a hindcast) goes back through stretches of equal
+ * status instead of single records (backwardPassOneStep). Nothing is allocated per record, and nothing proportional to n when `scratch` is
  * given. The calendar's grouping is cached per calendar array, which must not change afterwards
  * (reuse one calendarIndex for every operation at a worksite). Any other calendar (for example
  * hand-made groups) is handled too, through an index permutation.
