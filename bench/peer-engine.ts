@@ -123,7 +123,13 @@ export function runHindcastAllSites(
     evaluateStatusMany(
       s,
       opsOf[k].map((o) => input.operations[o]),
-      { alphaTable: DEFAULT_ALPHA_TABLE, out: buf.statuses[k], scratch: buf.statusScratch },
+      {
+        alphaTable: DEFAULT_ALPHA_TABLE,
+        out: buf.statuses[k],
+        scratch: buf.statusScratch,
+        // The data point's distinct periods, found once by the transform stage (every worksite has its Tp).
+        tpDistinct: { ids: prepared.tpIds, keys: prepared.tpKeys },
+      },
     ),
   );
   const t2 = clock();

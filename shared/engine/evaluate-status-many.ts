@@ -56,6 +56,19 @@ export interface EvaluateStatusManyOptions {
   out?: Uint8Array[];
   /** Reusable work space (see {@link createStatusManyScratch}). */
   scratch?: StatusManyScratch;
+  /**
+   * The series' distinct Tp values and each record's index among them (prepareSeaInput's `tpIds`
+   * and `tpKeys` for the data point whose Tp the series carries): Hs-Tp curves are then
+   * interpolated once per distinct Tp. A record whose Tp is not its key's value (or whose index is
+   * -1) is evaluated directly, so the results never depend on this option.
+   */
+  tpDistinct?: DistinctTp;
+}
+
+/** Distinct values of a Tp series: record i has Tp keys[ids[i]], or ids[i] = -1. */
+export interface DistinctTp {
+  ids: Int32Array;
+  keys: Float64Array;
 }
 
 /** Work space of {@link evaluateStatusMany}: three int32 bit masks per record. */
@@ -104,7 +117,15 @@ interface CurveOp {
   aLastCol: number;
   aFirst: number;
   aLast: number;
+  /** Per distinct Tp (see curveTable); empty when the series' distinct Tp values are not given. */
+  outside: Uint8Array;
+  lim: Float64Array;
+  opwf: Float64Array;
 }
+
+const EMPTY_U8 = new Uint8Array(0);
+const EMPTY_F64 = new Float64Array(0);
+const EMPTY_I32 = new Int32Array(0);
 
 function curveOp(bit: number, c: CompiledLimits): CurveOp {
   const nSeg = c.curveSlope.length;
@@ -131,6 +152,9 @@ function curveOp(bit: number, c: CompiledLimits): CurveOp {
     aLastCol: c.alphaCols[c.alphaCols.length - 1],
     aFirst: aRow !== null ? aRow[0] : 1,
     aLast: aRow !== null ? aRow[nA - 1] : 1,
+    outside: EMPTY_U8,
+    lim: EMPTY_F64,
+    opwf: EMPTY_F64,
   };
 }
 
@@ -141,11 +165,22 @@ function curveOp(bit: number, c: CompiledLimits): CurveOp {
 function curveClass(p: CurveOp, h: number, t: number): number {
   if (t < p.tp0 || t > p.tpN || h > p.hsMax) return 2;
   if (h <= p.sureOk) return 0;
+  const lim = curveLimit(p, t);
+  return (h > lim * curveAlpha(p, lim) ? 1 : 0) + (h > lim ? 1 : 0);
+}
+
+/** The curve's OPLIM at Tp t (within its Tp range), as curveClass computes it. */
+function curveLimit(p: CurveOp, t: number): number {
   const c = p.c;
   const cTp = c.curveTp;
   let s = 0;
   while (s < p.nSeg - 1 && cTp[s + 1] < t) s++;
-  const lim = t === cTp[s + 1] ? c.curveHs[s + 1] : c.curveHs[s] + c.curveSlope[s] * (t - cTp[s]);
+  return t === cTp[s + 1] ? c.curveHs[s + 1] : c.curveHs[s] + c.curveSlope[s] * (t - cTp[s]);
+}
+
+/** Alpha at OPLIM `lim` (1 without alpha), as curveClass computes it. */
+function curveAlpha(p: CurveOp, lim: number): number {
+  const c = p.c;
   let alpha = 1;
   if (p.nA > 0) {
     if (lim <= p.aFirstCol) alpha = p.aFirst;
@@ -157,7 +192,35 @@ function curveClass(p: CurveOp, h: number, t: number): number {
       alpha = (c.alphaRow as Float64Array)[j] + c.alphaSlope[j] * (lim - aCols[j]);
     }
   }
-  return (h > lim * alpha ? 1 : 0) + (h > lim ? 1 : 0);
+  return alpha;
+}
+
+/**
+ * curveClass's terms per distinct Tp (keys): 1 in `outside` where the Tp is outside the curve's
+ * range, else OPLIM in `lim` and OPWF (OPLIM * alpha) in `opwf`, the same numbers curveClass
+ * computes for that Tp; so a record's class takes two look-ups instead of the interpolations.
+ */
+function curveTable(p: CurveOp, keys: Float64Array): void {
+  const m = keys.length;
+  p.outside = new Uint8Array(m);
+  p.lim = new Float64Array(m);
+  p.opwf = new Float64Array(m);
+  for (let k = 0; k < m; k++) {
+    const t = keys[k];
+    if (t < p.tp0 || t > p.tpN) p.outside[k] = 1;
+    else {
+      const lim = curveLimit(p, t);
+      p.lim[k] = lim;
+      p.opwf[k] = lim * curveAlpha(p, lim);
+    }
+  }
+}
+
+/** curveClass of a record whose Tp is keys[id] (curveTable), from the table. */
+function curveClassTabled(p: CurveOp, h: number, id: number): number {
+  if (p.outside[id] === 1 || h > p.hsMax) return 2;
+  if (h <= p.sureOk) return 0;
+  return (h > p.opwf[id] ? 1 : 0) + (h > p.lim[id] ? 1 : 0);
 }
 
 /** One group of up to 32 operations, compiled into per-value threshold lists. */
@@ -244,112 +307,169 @@ function compileGroup(compiled: CompiledLimits[]): Group {
   };
 }
 
-// The passes below are small loops of one kind each (one per input value), so that the JIT
-// compiles each once for every mix of operations (see evaluateStatus).
-
-/** Hs: starts the three masks (missing Hs, Hs limits broken, Hs limits met at OPLIM only). */
-function hsPass(
-  v: Float64Array,
-  need: number,
-  list: AboveList,
-  n: number,
-  missing: Int32Array,
-  broken: Int32Array,
-  marginal: Int32Array,
-): void {
-  const thr = list.thr;
-  const cumB = list.cumBroken;
-  const cumM = list.cumMarginal;
-  const m = thr.length;
-  for (let i = 0; i < n; i++) {
-    const x = v[i];
-    let j = 0;
-    while (j < m && x > thr[j]) j++;
-    missing[i] = x !== x ? need : 0;
-    broken[i] = cumB[j];
-    marginal[i] = cumM[j];
-  }
-}
-
-/** A value compared with maximums (Tp max, bed velocity, wind): adds its missing and broken bits. */
-function abovePass(v: Float64Array, need: number, list: AboveList, n: number, missing: Int32Array, broken: Int32Array): void {
-  const thr = list.thr;
-  const cum = list.cumBroken;
-  const m = thr.length;
-  for (let i = 0; i < n; i++) {
-    const x = v[i];
-    let j = 0;
-    while (j < m && x > thr[j]) j++;
-    if (x !== x) missing[i] |= need;
-    broken[i] |= cum[j];
-  }
-}
-
-/** Tp minimums (as maximums of -Tp) and excluded bands: adds their broken bits. */
-function tpLowPass(
-  v: Float64Array,
-  list: AboveList,
-  bandFrom: Float64Array,
-  bandTo: Float64Array,
-  bandBit: Int32Array,
-  n: number,
-  broken: Int32Array,
-): void {
-  const thr = list.thr;
-  const cum = list.cumBroken;
-  const m = thr.length;
+/**
+ * Every record of a group against every threshold in one pass (Hs, Tp maximums, Tp minimums and
+ * bands, both bed velocities, wind, then each Hs-Tp curve), setting one bit per operation in three
+ * masks: a needed value missing, a limit broken, an Hs limit met at OPLIM only. Each value is
+ * compared with the sorted thresholds of every operation at once (the count of thresholds below
+ * it indexes the OR of their bits). One loop of fixed shape for every mix of operations, so the
+ * JIT compiles it once; the masks are written once per record.
+ */
+function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch, tp: DistinctTp | undefined): void {
+  const { missing, broken, marginal } = s;
+  const hsV = series.hsM;
+  const tpV = series.tpS;
+  const linV = series.bedVelocityLinearMps;
+  const soulV = series.bedVelocitySoulsbyMps;
+  const windV = series.windMps;
+  const needHs = g.needHs;
+  const needTp = g.needTp;
+  const needLin = g.needLin;
+  const needSoul = g.needSoul;
+  const needWind = g.needWind;
+  const hsT = g.hs.thr;
+  const hsB = g.hs.cumBroken;
+  const hsM = g.hs.cumMarginal;
+  const mHs = hsT.length;
+  const taT = g.tpAbove.thr;
+  const taB = g.tpAbove.cumBroken;
+  const mTa = taT.length;
+  const tbT = g.tpBelow.thr;
+  const tbB = g.tpBelow.cumBroken;
+  const mTb = tbT.length;
+  const bandFrom = g.bandFrom;
+  const bandTo = g.bandTo;
+  const bandBit = g.bandBit;
   const nb = bandFrom.length;
+  const tpLow = mTb > 0 || nb > 0;
+  const lT = g.lin.thr;
+  const lB = g.lin.cumBroken;
+  const mL = lT.length;
+  const sT = g.soul.thr;
+  const sB = g.soul.cumBroken;
+  const mS = sT.length;
+  const wT = g.wind.thr;
+  const wB = g.wind.cumBroken;
+  const mW = wT.length;
+  const curves = g.curves;
+  const nc = curves.length;
+  // Curves by table where the distinct Tp values are given (a record whose Tp is not its key's
+  // value, or that has none, takes curveClass itself).
+  const tpIds = tp !== undefined && nc > 0 && tp.ids.length >= n ? tp.ids : EMPTY_I32;
+  const tpKeys = tpIds.length > 0 ? (tp as DistinctTp).keys : EMPTY_F64;
+  if (tpIds.length > 0) for (const p of curves) curveTable(p, tpKeys);
   for (let i = 0; i < n; i++) {
-    const x = v[i];
-    const y = -x;
+    let x = hsV[i];
     let j = 0;
-    while (j < m && y > thr[j]) j++;
-    let b = cum[j];
-    for (let k = 0; k < nb; k++) if (x >= bandFrom[k] && x <= bandTo[k]) b |= bandBit[k];
-    broken[i] |= b;
-  }
-}
-
-/** One Hs-Tp curve operation: adds its broken and marginal bits. */
-function curvePass(hs: Float64Array, tp: Float64Array, p: CurveOp, n: number, broken: Int32Array, marginal: Int32Array): void {
-  const bit = p.bit;
-  for (let i = 0; i < n; i++) {
-    const k = curveClass(p, hs[i], tp[i]);
-    if (k === 2) broken[i] |= bit;
-    else if (k === 1) marginal[i] |= bit;
+    while (j < mHs && x > hsT[j]) j++;
+    let miss = x !== x ? needHs : 0;
+    let brk = hsB[j];
+    let mar = hsM[j];
+    if (needTp !== 0) {
+      x = tpV[i];
+      j = 0;
+      while (j < mTa && x > taT[j]) j++;
+      if (x !== x) miss |= needTp;
+      brk |= taB[j];
+    }
+    if (tpLow) {
+      x = tpV[i];
+      const y = -x;
+      j = 0;
+      while (j < mTb && y > tbT[j]) j++;
+      brk |= tbB[j];
+      for (let k = 0; k < nb; k++) if (x >= bandFrom[k] && x <= bandTo[k]) brk |= bandBit[k];
+    }
+    if (needLin !== 0) {
+      x = linV[i];
+      j = 0;
+      while (j < mL && x > lT[j]) j++;
+      if (x !== x) miss |= needLin;
+      brk |= lB[j];
+    }
+    if (needSoul !== 0) {
+      x = soulV[i];
+      j = 0;
+      while (j < mS && x > sT[j]) j++;
+      if (x !== x) miss |= needSoul;
+      brk |= sB[j];
+    }
+    if (needWind !== 0) {
+      x = windV[i];
+      j = 0;
+      while (j < mW && x > wT[j]) j++;
+      if (x !== x) miss |= needWind;
+      brk |= wB[j];
+    }
+    const tpId = tpIds.length > 0 ? tpIds[i] : -1;
+    const tabled = tpId >= 0 && tpKeys[tpId] === tpV[i];
+    for (let c = 0; c < nc; c++) {
+      const p = curves[c];
+      const k = tabled ? curveClassTabled(p, hsV[i], tpId) : curveClass(p, hsV[i], tpV[i]);
+      if (k === 2) brk |= p.bit;
+      else if (k === 1) mar |= p.bit;
+    }
+    missing[i] = miss;
+    broken[i] = brk;
+    marginal[i] = mar;
   }
 }
 
 /**
- * Masks to the two bits of each operation's STATUS code (NO_DATA 00, NOT_WORKABLE 01, MARGINAL 10,
- * WORKABLE 11): high = data and nothing broken; low = data and (broken, or not marginal). Written
- * over broken (high) and marginal (low).
+ * Every operation's STATUS code from the three masks, record by record (outs[k]: operation k's
+ * codes). The two bits of each code (NO_DATA 00, NOT_WORKABLE 01, MARGINAL 10, WORKABLE 11):
+ * high = data and nothing broken; low = data and (broken, or not marginal). Where every buffer
+ * starts on a 4-byte boundary (as new arrays do), four records at a time (decodeWords).
  */
-function planesPass(n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array): void {
-  for (let i = 0; i < n; i++) {
+function decodePass(n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, outs: Uint8Array[]): void {
+  const K = outs.length;
+  let from = 0;
+  if (LITTLE_ENDIAN && outs.every((o) => o.byteOffset % 4 === 0)) {
+    const words = outs.map((o) => new Uint32Array(o.buffer, o.byteOffset, n >>> 2));
+    from = decodeWords(n >>> 2, missing, broken, marginal, words);
+  }
+  for (let i = from; i < n; i++) {
     const miss = missing[i];
     const brk = broken[i];
-    broken[i] = ~(miss | brk);
-    marginal[i] = ~miss & (brk | ~marginal[i]);
+    const high = ~(miss | brk);
+    const low = ~miss & (brk | ~marginal[i]);
+    for (let k = 0; k < K; k++) outs[k][i] = (((high >>> k) & 1) << 1) | ((low >>> k) & 1);
   }
 }
 
-/** Every record of a group: the two status bits of each of its operations. */
-function maskPasses(series: SiteSeries, g: Group, n: number, s: StatusManyScratch): void {
-  const { missing, broken, marginal } = s;
-  hsPass(series.hsM, g.needHs, g.hs, n, missing, broken, marginal);
-  if (g.needTp !== 0) abovePass(series.tpS, g.needTp, g.tpAbove, n, missing, broken);
-  if (g.tpBelow.thr.length > 0 || g.bandFrom.length > 0) tpLowPass(series.tpS, g.tpBelow, g.bandFrom, g.bandTo, g.bandBit, n, broken);
-  if (g.needLin !== 0) abovePass(series.bedVelocityLinearMps, g.needLin, g.lin, n, missing, broken);
-  if (g.needSoul !== 0) abovePass(series.bedVelocitySoulsbyMps, g.needSoul, g.soul, n, missing, broken);
-  if (g.needWind !== 0) abovePass(series.windMps, g.needWind, g.wind, n, missing, broken);
-  for (const p of g.curves) curvePass(series.hsM, series.tpS, p, n, broken, marginal);
-  planesPass(n, missing, broken, marginal);
-}
+const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 
-/** One operation's STATUS codes from the two planes. */
-function decodePass(k: number, n: number, high: Int32Array, low: Int32Array, out: Uint8Array): void {
-  for (let i = 0; i < n; i++) out[i] = (((high[i] >>> k) & 1) << 1) | ((low[i] >>> k) & 1);
+/** decodePass four records at a time, each operation's four codes written as one 32-bit word (little-endian). Returns the records done. */
+function decodeWords(nw: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, words: Uint32Array[]): number {
+  const K = words.length;
+  for (let q = 0; q < nw; q++) {
+    const i = q << 2;
+    let m = missing[i];
+    let b = broken[i];
+    const h0 = ~(m | b);
+    const l0 = ~m & (b | ~marginal[i]);
+    m = missing[i + 1];
+    b = broken[i + 1];
+    const h1 = ~(m | b);
+    const l1 = ~m & (b | ~marginal[i + 1]);
+    m = missing[i + 2];
+    b = broken[i + 2];
+    const h2 = ~(m | b);
+    const l2 = ~m & (b | ~marginal[i + 2]);
+    m = missing[i + 3];
+    b = broken[i + 3];
+    const h3 = ~(m | b);
+    const l3 = ~m & (b | ~marginal[i + 3]);
+    for (let k = 0; k < K; k++) {
+      words[k][q] =
+        (((h0 >>> k) & 1) << 1) |
+        ((l0 >>> k) & 1) |
+        ((((h1 >>> k) & 1) << 9) | (((l1 >>> k) & 1) << 8)) |
+        ((((h2 >>> k) & 1) << 17) | (((l2 >>> k) & 1) << 16)) |
+        ((((h3 >>> k) & 1) << 25) | (((l3 >>> k) & 1) << 24));
+    }
+  }
+  return nw << 2;
 }
 
 /**
@@ -359,10 +479,10 @@ function decodePass(k: number, n: number, high: Int32Array, low: Int32Array, out
  *
  * Method: the operations whose limits are all of the kinds known here (Hs max, Hs-Tp curve, Tp
  * min/max, excluded Tp bands, bed velocity, wind) are evaluated together, 32 at a time: one pass
- * per input value (Hs, Tp, each bed velocity, wind; one per curve) compares the value with the
- * sorted thresholds of every operation and sets one bit per operation in three masks (a needed
- * value missing, a limit broken, an Hs limit met at OPLIM only); the masks become the two bits of
- * each operation's STATUS code, and a short pass per operation writes its codes. Any other
+ * over the records compares each input value (Hs, Tp, each bed velocity, wind; each curve) with
+ * the sorted thresholds of every operation and sets one bit per operation in three masks (a needed
+ * value missing, a limit broken, an Hs limit met at OPLIM only); a second pass turns the masks
+ * into the two bits of each operation's STATUS code and writes every operation's code. Any other
  * operation (a limit kind added to the engine later) goes to evaluateStatus unchanged, so the
  * results never depend on which path ran (a property test compares the two).
  *
@@ -393,8 +513,14 @@ export function evaluateStatusMany(series: SiteSeries, ops: readonly OperationSp
   const s = options.scratch && options.scratch.missing.length >= n ? options.scratch : createStatusManyScratch(n);
   for (let from = 0; from < fast.length; from += GROUP) {
     const part = compiled.slice(from, from + GROUP);
-    maskPasses(series, compileGroup(part), n, s);
-    for (let k = 0; k < part.length; k++) decodePass(k, n, s.broken, s.marginal, result[fast[from + k]]);
+    maskPass(series, compileGroup(part), n, s, options.tpDistinct);
+    decodePass(
+      n,
+      s.missing,
+      s.broken,
+      s.marginal,
+      part.map((_, k) => result[fast[from + k]]),
+    );
   }
   return result;
 }

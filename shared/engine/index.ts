@@ -25,6 +25,7 @@ export {
   statusFastPathKnows,
   type EvaluateStatusManyOptions,
   type StatusManyScratch,
+  type DistinctTp,
 } from './evaluate-status-many';
 
 export { DEFAULT_BAND_MIN_HS_M, bandPeriodsAt, targetHsAt, targetHsSeries } from './hs-targets';

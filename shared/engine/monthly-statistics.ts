@@ -142,7 +142,9 @@ function calendarGroups(ym: Int32Array): CalendarGroups {
  * quantileR7Upper). When every time is a whole number of steps after the first (hindcasts, regular
  * forecasts), the waits are not stored per record but as ramps (a wait grows by one step per record
  * back from a go-start), and each percentile is found by bisection on the value, counting through
- * the ramps (exact: the waits are whole steps). Nothing is allocated per record, and nothing proportional to n when `scratch` is
+ * the ramps (exact: the waits are whole steps). A series of one step throughout whose go-starts
+ * are found here (monthlyStatisticsWithGoStarts on a hindcast) goes back through stretches of equal
+ * status instead of single records (backwardPassOneStep). Nothing is allocated per record, and nothing proportional to n when `scratch` is
  * given. The calendar's grouping is cached per calendar array, which must not change afterwards
  * (reuse one calendarIndex for every operation at a worksite). Any other calendar (for example
  * hand-made groups) is handled too, through an index permutation.
@@ -185,6 +187,22 @@ export function monthlyStatisticsWithGoStarts(
   return statisticsCore(timeMs, status, goStartOut, true, stepMs, calendar, trH, scratch);
 }
 
+/**
+ * monthlyStatisticsWithGoStarts by the general record-by-record pass only, never the one-step
+ * shortcut (see {@link backwardPassOneStep}): the reference the tests hold that shortcut to.
+ */
+export function monthlyStatisticsGeneralPath(
+  timeMs: Float64Array,
+  status: Uint8Array,
+  goStartOut: Uint8Array,
+  stepMs: number,
+  calendar: CalendarIndex,
+  trH: number,
+  scratch?: StatisticsScratch,
+): MonthlyStatistics {
+  return statisticsCore(timeMs, status, goStartOut, true, stepMs, calendar, trH, scratch, false);
+}
+
 function statisticsCore(
   timeMs: Float64Array,
   status: Uint8Array,
@@ -194,6 +212,7 @@ function statisticsCore(
   calendar: CalendarIndex,
   trH: number,
   scratch: StatisticsScratch | undefined,
+  allowOneStep = true,
 ): MonthlyStatistics {
   assertStep(stepMs);
   const trMs = trThresholdMs(trH);
@@ -234,7 +253,10 @@ function statisticsCore(
   let firstCensored: number;
   if (order === null) {
     // Ascending calendar: one backward pass, year-month by year-month, does everything.
-    firstCensored = backwardPassGrouped(timeMs, durationMs, continues, status, goStart, findGoStarts, start, trMs, wow, acc, ramps, stepMs);
+    firstCensored =
+      ramps !== null && findGoStarts && allowOneStep && oneStepThroughout(timeMs, durationMs, continues, stepMs)
+        ? backwardPassOneStep(status, goStart, start, recordsReaching(trMs, stepMs), acc, ramps, stepMs)
+        : backwardPassGrouped(timeMs, durationMs, continues, status, goStart, findGoStarts, start, trMs, wow, acc, ramps, stepMs);
   } else {
     firstCensored = backwardPass(timeMs, durationMs, continues, status, goStart, findGoStarts, ymArr, ymMin, trMs, wow, windows, windowMs);
     const sums = new Float64Array(5);
@@ -485,6 +507,150 @@ function backwardPassGrouped(
 }
 
 const EMPTY = new Int32Array(0);
+
+const oneStepCache = new WeakMap<Float64Array, { stepMs: number; oneStep: boolean }>();
+
+/**
+ * True when every spacing of the series is exactly `stepMs`, so that every record lasts one step
+ * and continues the one before it (kept per time array, which must not change afterwards).
+ */
+function oneStepThroughout(timeMs: Float64Array, durationMs: Float64Array, continues: Uint8Array, stepMs: number): boolean {
+  const hit = oneStepCache.get(timeMs);
+  if (hit && hit.stepMs === stepMs) return hit.oneStep;
+  const n = timeMs.length;
+  let oneStep = n >= 2;
+  for (let i = 0; oneStep && i < n - 1; i++) {
+    if (timeMs[i + 1] - timeMs[i] !== stepMs || durationMs[i] !== stepMs || continues[i] !== 1) oneStep = false;
+  }
+  if (oneStep && durationMs[n - 1] !== stepMs) oneStep = false;
+  oneStepCache.set(timeMs, { stepMs, oneStep });
+  return oneStep;
+}
+
+/** The fewest records of `stepMs` each whose summed duration reaches trMs (as the record-by-record sums reach it). */
+function recordsReaching(trMs: number, stepMs: number): number {
+  let k = Math.max(1, Math.ceil(trMs / stepMs));
+  while (k > 1 && (k - 1) * stepMs >= trMs) k--;
+  while (k * stepMs < trMs) k++;
+  return k;
+}
+
+/**
+ * backwardPassGrouped for a series of one step throughout (every spacing exactly `stepMs`, a whole
+ * number of ms; see oneStepThroughout) that finds its go-starts, in whole records instead of ms:
+ * a run's covered time is its record count times the step, the wait of record i is (next go-start
+ * - i) steps, and every sum of durations is a count times the step. Those products and sums are
+ * whole numbers of ms far below 2^53, so they equal the record-by-record float sums exactly.
+ *
+ * It goes back through stretches of equal status rather than record by record: in a stretch of
+ * workable records the go-starts are its first records (those with at least `need` workable
+ * records from them on), so each stretch is one scan for its start and a few sums; the waits are
+ * the ramps between go-starts, never stored per record. Same results as backwardPassGrouped (a
+ * property test holds the two equal).
+ *
+ * @param need records of a usable window (recordsReaching(TR))
+ */
+function backwardPassOneStep(
+  status: Uint8Array,
+  goStart: Uint8Array,
+  start: Int32Array,
+  need: number,
+  acc: Accumulators,
+  ramps: RampSet,
+  stepMs: number,
+): number {
+  const WORKABLE: number = STATUS.WORKABLE;
+  const NO_DATA: number = STATUS.NO_DATA;
+  const n = status.length;
+  const rFirst = ramps.first;
+  const rLength = ramps.length;
+  let nR = 0;
+  let next = -1;
+  let firstCensored = n;
+  let run = 0;
+  for (let g = start.length - 2; g >= 0; g--) {
+    let withData = 0;
+    let workable = 0;
+    let starts = 0;
+    let windows = 0;
+    let windowRecords = 0;
+    let waitSteps = 0;
+    const groupRamps = nR;
+    let zeros = 0;
+    let open = false;
+    let rampA = 0;
+    let rampLen = 0;
+    let maxV = 0;
+    const lo = start[g];
+    let i = start[g + 1] - 1;
+    while (i >= lo) {
+      // The stretch [j, i] of equal status, within the year-month.
+      const st = status[i];
+      let j = i;
+      while (j > lo && status[j - 1] === st) j--;
+      const c = i - j + 1;
+      let gc = 0;
+      if (st === WORKABLE) {
+        // Record k has run + (i - k + 1) workable records from it on: a go-start from k <= kMax.
+        const kMax = i + 1 + run - need;
+        if (kMax >= j) gc = (kMax < i ? kMax : i) - j + 1;
+        run += c;
+        workable += c;
+      } else run = 0;
+      if (st !== NO_DATA) withData += c;
+      for (let k = j; k < j + gc; k++) goStart[k] = 1;
+      for (let k = j + gc; k <= i; k++) goStart[k] = 0;
+      // The records after the go-starts (back from i): they extend the open ramp, or open one.
+      const rest = c - gc;
+      if (rest > 0) {
+        if (open) rampLen += rest;
+        else if (next >= 0) {
+          open = true;
+          rampA = next - i;
+          rampLen = rest;
+        }
+      }
+      if (gc > 0) {
+        starts += gc;
+        zeros += gc;
+        if (next < 0) firstCensored = j + gc;
+        next = j;
+        if (open) {
+          // Waits rampA .. rampA + rampLen - 1 steps.
+          rFirst[nR] = rampA;
+          rLength[nR++] = rampLen;
+          waitSteps += rampLen * rampA + (rampLen * (rampLen - 1)) / 2;
+          if (rampA + rampLen - 1 > maxV) maxV = rampA + rampLen - 1;
+          open = false;
+        }
+      }
+      // j starts its run when the record before it is not workable.
+      if (st === WORKABLE && (j === 0 || status[j - 1] !== WORKABLE) && run >= need) {
+        windows++;
+        windowRecords += run;
+      }
+      i = j - 1;
+    }
+    if (open) {
+      rFirst[nR] = rampA;
+      rLength[nR++] = rampLen;
+      waitSteps += rampLen * rampA + (rampLen * (rampLen - 1)) / 2;
+      if (rampA + rampLen - 1 > maxV) maxV = rampA + rampLen - 1;
+    }
+    ramps.from[g] = groupRamps;
+    ramps.to[g] = nR;
+    ramps.zeros[g] = zeros;
+    ramps.max[g] = maxV;
+    acc.withData[g] = withData;
+    acc.withDataMs[g] = withData * stepMs;
+    acc.workableMs[g] = workable * stepMs;
+    acc.startsMs[g] = starts * stepMs;
+    acc.wowSumMs[g] = waitSteps * stepMs;
+    acc.windows[g] = windows;
+    acc.windowMs[g] = windowRecords * stepMs;
+  }
+  return next < 0 ? 0 : firstCensored;
+}
 
 /**
  * The waits on weather of a series on a grid of whole steps, by year-month, without one value per

@@ -85,6 +85,54 @@ describe('evaluateStatusMany equals the general path, evaluateStatus', () => {
     );
   });
 
+  it('out buffers that do not start on a 4-byte boundary (codes written one byte at a time)', () => {
+    fc.assert(
+      fc.property(
+        fc
+          .array(opArb, { minLength: 1, maxLength: 8 })
+          .chain((ops) => fc.tuple(fc.constant(ops), seriesArb(ops), fc.integer({ min: 1, max: 3 }))),
+        ([ops, series, shift]) => {
+          const n = series.timeMs.length;
+          const out = ops.map(() => new Uint8Array(n + shift).fill(9).subarray(shift));
+          const many = evaluateStatusMany(series, ops, { alphaTable: DEFAULT_ALPHA_TABLE, out });
+          ops.forEach((op, o) => {
+            expect(many[o].byteOffset).toBe(shift);
+            expect(Array.from(many[o])).toEqual(Array.from(evaluateStatus(series, op, { alphaTable: DEFAULT_ALPHA_TABLE })));
+          });
+        },
+      ),
+      { numRuns: 60 },
+    );
+  });
+
+  it("Hs-Tp curves by the series' distinct Tp values (tpDistinct), also with indices that do not fit the records", () => {
+    fc.assert(
+      fc.property(
+        fc
+          .array(opArb, { minLength: 1, maxLength: 8 })
+          .chain((ops) => fc.tuple(fc.constant(ops), seriesArb(ops), fc.array(fc.integer({ min: -1, max: 5 }), { maxLength: 8 }))),
+        ([ops, series, wrong]) => {
+          // Distinct values first seen first; -1 for a missing Tp. Then a few indices spoilt.
+          const keys: number[] = [];
+          const ids = Int32Array.from(series.tpS, (t) => {
+            if (t !== t) return -1;
+            const k = keys.indexOf(t);
+            return k >= 0 ? k : keys.push(t) - 1;
+          });
+          wrong.forEach((id, j) => {
+            if (j < ids.length) ids[(j * 7) % ids.length] = Math.min(id, keys.length - 1);
+          });
+          const tpDistinct = { ids, keys: Float64Array.from(keys) };
+          const many = evaluateStatusMany(series, ops, { alphaTable: DEFAULT_ALPHA_TABLE, tpDistinct });
+          ops.forEach((op, o) => {
+            expect(Array.from(many[o])).toEqual(Array.from(evaluateStatus(series, op, { alphaTable: DEFAULT_ALPHA_TABLE })));
+          });
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
+
   it('the same usable windows and hindcast statistics over a long series with gaps', () => {
     fc.assert(
       fc.property(fc.array(opArb, { minLength: 1, maxLength: 6 }), fc.integer({ min: 1, max: 1_000_000 }), (ops, seed) => {
