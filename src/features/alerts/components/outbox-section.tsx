@@ -8,6 +8,7 @@ import type { OutboxRow, OutboxStatus } from '../api/types';
 import { DATE_STYLE } from '../../../../shared/dates';
 import { timeIn } from './format';
 import { MessageView } from './message-view';
+import { HeadingRow } from '../../../components/ui/table';
 
 const STATUS: Record<OutboxStatus, { label: string; className: string }> = {
   pending: { label: 'Waiting', className: 'bg-st-marginal text-deep' },
@@ -58,23 +59,17 @@ export function OutboxSection({ projectId, zone: here }: { projectId: string; zo
           <div className="overflow-x-auto">
             <table className="w-full border-collapse text-left text-sm">
               <thead>
-                <tr className="border-b border-line text-xs uppercase tracking-wide text-ink-soft">
-                  <th scope="col" className="py-2 pr-3">
-                    Status
-                  </th>
-                  <th scope="col" className="py-2 pr-3">
-                    E-mail
-                  </th>
-                  <th scope="col" className="hidden py-2 pr-3 md:table-cell">
-                    Tries
-                  </th>
-                  <th scope="col" className="hidden py-2 pr-3 md:table-cell">
-                    Written · sent
-                  </th>
-                  <th scope="col" className="py-2">
-                    <span className="sr-only">Open</span>
-                  </th>
-                </tr>
+                <HeadingRow
+                  className="border-b border-line text-xs uppercase tracking-wide text-ink-soft"
+                  cellClassName="py-2 pr-3"
+                  headings={[
+                    'Status',
+                    'E-mail',
+                    { label: 'Tries', className: 'hidden py-2 pr-3 md:table-cell' },
+                    { label: 'Written · sent', className: 'hidden py-2 pr-3 md:table-cell' },
+                    { label: <span className="sr-only">Open</span>, className: 'py-2' },
+                  ]}
+                />
               </thead>
               <tbody>
                 {rows.map((r) => (

@@ -11,6 +11,7 @@ import { ErrorNotice, Spinner } from '../../../components/ui';
 import { Term } from '../../../components/ui/term';
 import { useHourChain, type HourChain } from '../api/get-hour-chain';
 import { STATUS_META, flagWords, fmt, fmtDir, fmtTowards, formatIn, limitWord } from './board-format';
+import { HeadingRow } from '../../../components/ui/table';
 
 interface ChainPanelProps {
   projectId: string;
@@ -329,13 +330,10 @@ function PartitionTable({ partitions }: { partitions: NonNullable<HourChain['par
         Partitions, each through the chain with its own Tp and direction; the total is √(ΣHs²)
       </caption>
       <thead>
-        <tr className="text-left text-ink-soft">
-          <th scope="col">Partition</th>
-          <th scope="col">Hs at data point</th>
-          <th scope="col">Hs at worksite</th>
-          <th scope="col">Tp</th>
-          <th scope="col">Direction at worksite</th>
-        </tr>
+        <HeadingRow
+          className="text-left text-ink-soft"
+          headings={['Partition', 'Hs at data point', 'Hs at worksite', 'Tp', 'Direction at worksite']}
+        />
       </thead>
       <tbody>
         {partitions.map((p) => (
@@ -463,13 +461,7 @@ function ResponseDetail({ detail: r, unit }: { detail: ResponseDetailData; unit:
             Sea at the worksite the response is computed from (a sea without partitions counts as one wind sea)
           </caption>
           <thead>
-            <tr className="text-left text-ink-soft">
-              <th scope="col">Partition</th>
-              <th scope="col">Hs</th>
-              <th scope="col">Tp</th>
-              <th scope="col">Direction</th>
-              <th scope="col">Share</th>
-            </tr>
+            <HeadingRow className="text-left text-ink-soft" headings={['Partition', 'Hs', 'Tp', 'Direction', 'Share']} />
           </thead>
           <tbody>
             {r.partitions.map((p, i) => (

@@ -1,3 +1,4 @@
+import { HeadingRow } from '../../../components/ui/table';
 /** One problem of an imported file, as the API reports it. */
 export interface IssueRow {
   line?: number;
@@ -31,12 +32,11 @@ export function IssuesTable({
           {count > shown.length ? ` (the first ${shown.length} of ${count.toLocaleString('en-GB')})` : ''}
         </caption>
         <thead className="border-y border-line bg-surface-2">
-          <tr>
-            <th className="px-3 py-2 text-right text-xs font-semibold text-ink-soft">Line</th>
-            <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Column</th>
-            <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Value</th>
-            <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">Reason</th>
-          </tr>
+          <HeadingRow
+            cellClassName="px-3 py-2 text-xs font-semibold text-ink-soft"
+            right={[0]}
+            headings={['Line', 'Column', 'Value', 'Reason']}
+          />
         </thead>
         <tbody>
           {shown.map((i, k) => (

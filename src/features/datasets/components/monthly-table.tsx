@@ -1,6 +1,7 @@
 import { ErrorNotice, Spinner } from '../../../components/ui';
 import { useDatasetMonthly } from '../api/get-dataset-monthly';
 import { formatCount, formatUtc, formatValue } from './format';
+import { HeadingRow } from '../../../components/ui/table';
 
 const th = 'sticky top-0 bg-surface-2 px-3 py-2 text-xs font-semibold text-ink-soft';
 
@@ -26,13 +27,7 @@ export function MonthlyTable({
     <div className="max-h-[28rem] overflow-auto rounded-lg border border-line">
       <table className="w-full text-sm" data-testid="monthly-table">
         <thead>
-          <tr>
-            <th className={`${th} text-left`}>Month</th>
-            <th className={`${th} text-right`}>Records</th>
-            <th className={`${th} text-left`}>Hs coverage</th>
-            <th className={`${th} text-right`}>Mean Hs (m)</th>
-            <th className={`${th} text-right`}>P90 Hs (m)</th>
-          </tr>
+          <HeadingRow cellClassName={th} right={[1, 3, 4]} headings={['Month', 'Records', 'Hs coverage', 'Mean Hs (m)', 'P90 Hs (m)']} />
         </thead>
         <tbody>
           {rows.map((r) => {

@@ -1,5 +1,6 @@
 import type { NetcdfPointsAnswer } from '../../../../shared/api-types-datasets';
 import { formatPosition } from '../../../lib/format';
+import { HeadingRow } from '../../../components/ui/table';
 
 const pct = (x: number) => `${Math.round(x * 1000) / 10} %`;
 
@@ -31,14 +32,12 @@ export function NetcdfPointsTable({
           {answer.times.first?.slice(0, 16).replace('T', ' ') ?? '–'} to {answer.times.last?.slice(0, 16).replace('T', ' ') ?? '–'} UTC.
         </caption>
         <thead>
-          <tr className="border-b border-line text-left">
-            <th className="py-2 pr-3">Use</th>
-            <th className="py-2 pr-3">Index</th>
-            <th className="py-2 pr-3">Position</th>
-            <th className="py-2 pr-3 text-right">Distance</th>
-            <th className="py-2 pr-3 text-right">Wave heights missing</th>
-            <th className="py-2">Note</th>
-          </tr>
+          <HeadingRow
+            className="border-b border-line text-left"
+            cellClassName="py-2 pr-3"
+            right={[3, 4]}
+            headings={['Use', 'Index', 'Position', 'Distance', 'Wave heights missing', { label: 'Note', className: 'py-2' }]}
+          />
         </thead>
         <tbody>
           {sorted.map((p) => {

@@ -14,6 +14,7 @@ import { useDeleteCampaign } from '../api/delete-campaign';
 import { useSimulation } from '../api/simulate-campaign';
 import { downloadCsv, slug, toCsv } from '../../../lib/csv';
 import { dateIn, days, hours, MONTH_LONG } from './format';
+import { HeadingRow } from '../../../components/ui/table';
 
 const th = 'sticky top-0 bg-surface-2 px-2 py-2 text-xs font-semibold text-ink-soft';
 const td = 'px-2 py-1 text-right tabular-nums whitespace-nowrap';
@@ -217,32 +218,20 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
         <table className="w-full min-w-[52rem] text-sm" data-testid="campaign-table">
           <caption className="sr-only">Campaign duration and finish dates by start month, P50 and P90 over the hindcast years</caption>
           <thead>
-            <tr>
-              <th scope="col" className={`${th} text-left`}>
-                Start
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                <Term k="p50p90">P50 duration</Term>
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                P90 duration
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                <Term k="wow">WoW P50</Term>
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                <Term k="wow">WoW P90</Term>
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                P50 finish
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                P90 finish
-              </th>
-              <th scope="col" className={`${th} text-left`}>
-                <Term k="censoredYears" />
-              </th>
-            </tr>
+            <HeadingRow
+              cellClassName={th}
+              right={[1, 2, 3, 4, 5, 6]}
+              headings={[
+                'Start',
+                <Term k="p50p90">P50 duration</Term>,
+                'P90 duration',
+                <Term k="wow">WoW P50</Term>,
+                <Term k="wow">WoW P90</Term>,
+                'P50 finish',
+                'P90 finish',
+                <Term k="censoredYears" />,
+              ]}
+            />
           </thead>
           <tbody>
             {sim.months.map((m) => (

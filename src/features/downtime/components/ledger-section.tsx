@@ -14,6 +14,7 @@ import { useProposeLedger } from '../api/propose-ledger';
 import { useConfirmLedger } from '../api/confirm-ledger';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { dayWords, hours, monthRange, monthWords } from './format';
+import { HeadingRow } from '../../../components/ui/table';
 
 const th = 'sticky top-0 bg-surface-2 px-2 py-2 text-xs font-semibold text-ink-soft';
 const td = 'px-2 py-1 text-right tabular-nums whitespace-nowrap';
@@ -261,34 +262,20 @@ export function LedgerSection({
           <table className="w-full min-w-[50rem] text-sm" data-testid="ledger-table">
             <caption className="sr-only">Downtime ledger, {monthWords(month)}</caption>
             <thead>
-              <tr>
-                <th scope="col" className={`${th} text-left`}>
-                  Day
-                </th>
-                <th scope="col" className={`${th} text-left`}>
-                  Operation at worksite
-                </th>
-                <th scope="col" className={`${th} text-right`}>
-                  Planned
-                </th>
-                <th scope="col" className={`${th} text-right`}>
-                  Lost
-                </th>
-                <th scope="col" className={`${th} text-left`}>
-                  Limiting
-                </th>
-                <th scope="col" className={`${th} text-left`}>
-                  Source
-                </th>
-                <th scope="col" className={`${th} text-left`}>
-                  Status
-                </th>
-                {canEdit ? (
-                  <th scope="col" className={`${th} no-print text-left`}>
-                    <span className="sr-only">Action</span>
-                  </th>
-                ) : null}
-              </tr>
+              <HeadingRow
+                cellClassName={th}
+                right={[2, 3]}
+                headings={[
+                  'Day',
+                  'Operation at worksite',
+                  'Planned',
+                  'Lost',
+                  'Limiting',
+                  'Source',
+                  'Status',
+                  canEdit && { label: <span className="sr-only">Action</span>, className: `${th} no-print text-left` },
+                ]}
+              />
             </thead>
             <tbody>
               {rows.map((r) => (
@@ -526,31 +513,19 @@ function MonthlyTotals({
         <table className="w-full min-w-[48rem] text-sm" data-testid="ledger-monthly-table">
           <caption className="sr-only">Confirmed downtime per month against the hindcast expectation</caption>
           <thead>
-            <tr>
-              <th scope="col" className={`${th} text-left`}>
-                Operation at worksite
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                Confirmed days
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                Confirmed lost
-              </th>
-              {!isClient ? (
-                <th scope="col" className={`${th} text-right`}>
-                  Still proposed
-                </th>
-              ) : null}
-              <th scope="col" className={`${th} text-right`}>
-                Expected P50
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                Expected P90
-              </th>
-              <th scope="col" className={`${th} text-right`}>
-                Month
-              </th>
-            </tr>
+            <HeadingRow
+              cellClassName={th}
+              right={[1, 2, 3, 4, 5, 6]}
+              headings={[
+                'Operation at worksite',
+                'Confirmed days',
+                'Confirmed lost',
+                !isClient && 'Still proposed',
+                'Expected P50',
+                'Expected P90',
+                'Month',
+              ]}
+            />
           </thead>
           <tbody>
             {rows.map((r) => {

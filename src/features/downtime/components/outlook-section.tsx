@@ -12,6 +12,7 @@ import { useCampaigns } from '../api/get-campaigns';
 import { useOutlook, useOutlookHistory } from '../api/get-outlook';
 import { useSetStepProgress } from '../api/set-step-progress';
 import { dateIn, hours } from './format';
+import { HeadingRow } from '../../../components/ui/table';
 
 const th = 'bg-surface-2 px-2 py-2 text-left text-xs font-semibold text-ink-soft';
 const td = 'px-2 py-1 whitespace-nowrap';
@@ -159,26 +160,7 @@ function StepsTable({
       <table className="w-full min-w-[44rem] text-sm" data-testid="outlook-steps">
         <caption className="sr-only">Campaign steps: progress and the outlook of their starts</caption>
         <thead>
-          <tr>
-            <th scope="col" className={th}>
-              Step
-            </th>
-            <th scope="col" className={th}>
-              Progress
-            </th>
-            <th scope="col" className={th}>
-              Actual start
-            </th>
-            <th scope="col" className={th}>
-              Actual end
-            </th>
-            <th scope="col" className={th}>
-              P50 start
-            </th>
-            <th scope="col" className={th}>
-              P90 start
-            </th>
-          </tr>
+          <HeadingRow cellClassName={th} headings={['Step', 'Progress', 'Actual start', 'Actual end', 'P50 start', 'P90 start']} />
         </thead>
         <tbody>
           {campaign.steps.map((s, i) => {
@@ -419,20 +401,7 @@ function HistoryTable({ points, zone }: { points: OutlookHistoryPoint[]; zone: s
     <table className="mt-2 text-sm" data-testid="outlook-history-table">
       <caption className="sr-only">Outlook history</caption>
       <thead>
-        <tr>
-          <th scope="col" className={th}>
-            Run
-          </th>
-          <th scope="col" className={th}>
-            P50 finish
-          </th>
-          <th scope="col" className={th}>
-            P90 finish
-          </th>
-          <th scope="col" className={th}>
-            Forecast issued
-          </th>
-        </tr>
+        <HeadingRow cellClassName={th} headings={['Run', 'P50 finish', 'P90 finish', 'Forecast issued']} />
       </thead>
       <tbody>
         {points.map((p) => (

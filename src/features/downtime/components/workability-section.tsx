@@ -5,6 +5,7 @@ import { Term } from '../../../components/ui/term';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { hours, MONTH_LONG, MONTH_SHORT, num, pct } from './format';
 import type { HeatRow } from './downtime-heatmap';
+import { HeadingRow } from '../../../components/ui/table';
 
 // The chart library is large: load it only when the heat map is shown.
 const DowntimeHeatmap = lazy(() => import('./downtime-heatmap'));
@@ -240,35 +241,21 @@ function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
           Expected weather downtime and workability statistics by month for each operation at each worksite
         </caption>
         <thead>
-          <tr>
-            <th scope="col" className={`${th} text-left`}>
-              Month
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              Downtime
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              Workability
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              <Term k="goStart" />
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              <Term k="wow">WoW mean</Term>
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              <Term k="wow">WoW P90</Term>
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              Windows per month
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              Mean window
-            </th>
-            <th scope="col" className={`${th} text-right`}>
-              <Term k="censored">Censored (records)</Term>
-            </th>
-          </tr>
+          <HeadingRow
+            cellClassName={th}
+            right={[1, 2, 3, 4, 5, 6, 7, 8]}
+            headings={[
+              'Month',
+              'Downtime',
+              'Workability',
+              <Term k="goStart" />,
+              <Term k="wow">WoW mean</Term>,
+              <Term k="wow">WoW P90</Term>,
+              'Windows per month',
+              'Mean window',
+              <Term k="censored">Censored (records)</Term>,
+            ]}
+          />
         </thead>
         {entries.map((e) => (
           <tbody key={`${e.operationId}-${e.siteId}`} className="break-inside-avoid">

@@ -12,6 +12,7 @@ import { Button } from '../../../components/ui';
 import { CellInput, errorAt, GridErrors } from './form-bits';
 import { fmt } from './format';
 import { numberFromText, textFromNumber } from './number-text';
+import { HeadingRow } from '../../../components/ui/table';
 
 /** A transfer table as typed: the same shape as {@link TransferTableInput}, every number as text. */
 export interface TransferTableText {
@@ -293,12 +294,11 @@ function CsvIssues({ fileName, issues }: { fileName: string; issues: TransferTab
       <div className="mt-2 max-h-64 overflow-auto">
         <table className="w-full text-left">
           <thead>
-            <tr className="text-xs text-ink-soft">
-              <th className="pr-3">Line</th>
-              <th className="pr-3">Column</th>
-              <th className="pr-3">Cell</th>
-              <th>Problem</th>
-            </tr>
+            <HeadingRow
+              className="text-xs text-ink-soft"
+              cellClassName="pr-3"
+              headings={['Line', 'Column', 'Cell', { label: 'Problem', className: '' }]}
+            />
           </thead>
           <tbody>
             {issues.slice(0, 100).map((i, k) => (

@@ -1,5 +1,6 @@
 import type { RaoCsvProblem } from '../../../../shared/schemas/vessel';
 import { ApiError } from '../../../lib/api';
+import { HeadingRow } from '../../../components/ui/table';
 
 /** The server's 400 details as problems (its messages repeat "line N, column C: " before the words). */
 export function problemsOfError(error: unknown): RaoCsvProblem[] | null {
@@ -20,15 +21,7 @@ export function RaoProblems({ problems, heading }: { problems: RaoCsvProblem[]; 
       </p>
       <table className="mt-2 w-full text-left">
         <thead>
-          <tr>
-            <th scope="col" className="pr-3">
-              Line
-            </th>
-            <th scope="col" className="pr-3">
-              Column
-            </th>
-            <th scope="col">Problem</th>
-          </tr>
+          <HeadingRow headings={[{ label: 'Line', className: 'pr-3' }, { label: 'Column', className: 'pr-3' }, 'Problem']} />
         </thead>
         <tbody>
           {problems.map((p, i) => (

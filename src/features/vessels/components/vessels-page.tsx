@@ -11,6 +11,7 @@ import { usePageZone } from '../../../components/page-zone';
 import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { ApiError } from '../../../lib/api';
 import { useCreateVessel } from '../api/create-vessel';
+import { HeadingRow } from '../../../components/ui/table';
 
 /** Import times are shown in UTC, the time base of the project's stored data. */
 export const VESSEL_ZONE_STATEMENT = zoneStatement('UTC', 'the time base of the project’s stored data');
@@ -46,17 +47,11 @@ export function VesselsPage() {
             <table className="w-full text-left text-sm" data-testid="vessels-table">
               <caption className="sr-only">The project’s vessels</caption>
               <thead>
-                <tr className="text-ink-soft">
-                  <th scope="col" className="py-1 pr-3">
-                    Vessel
-                  </th>
-                  <th scope="col" className="py-1 pr-3">
-                    Responses in its RAO table
-                  </th>
-                  <th scope="col" className="py-1">
-                    Imported
-                  </th>
-                </tr>
+                <HeadingRow
+                  className="text-ink-soft"
+                  cellClassName="py-1 pr-3"
+                  headings={['Vessel', 'Responses in its RAO table', { label: 'Imported', className: 'py-1' }]}
+                />
               </thead>
               <tbody>
                 {vessels.data.map((v) => (

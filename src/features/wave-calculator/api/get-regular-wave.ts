@@ -1,8 +1,6 @@
-import { keepPreviousData, queryOptions, skipToken, useQuery } from '@tanstack/react-query';
 import type { RegularWaveQuery } from '../../../../shared/schemas/wave';
 import type { DepthClass } from '../../../../shared/waves/regular-wave';
-import { api } from '../../../lib/api';
-import { waveQueryString } from './query-string';
+import { calculatorQuery, waveQueryString } from './calculator-query';
 
 /**
  * Answer of GET /api/wave/regular: one regular wave by linear (Airy) theory, SI units.
@@ -50,21 +48,11 @@ export interface RegularWaveAnswer {
   pressureFactor?: number;
 }
 
-export function getRegularWave(q: RegularWaveQuery, signal?: AbortSignal): Promise<RegularWaveAnswer> {
-  const qs = waveQueryString({ period: q.period, height: q.height, depth: q.depth, z: q.z });
-  return api<RegularWaveAnswer>(`/api/wave/regular?${qs}`, { signal });
-}
-
 /**
  * One regular wave; `null` (inputs not valid yet) skips the request and keeps the last answer
  * on screen. The answer is a pure function of the inputs, so it never goes stale.
  */
-export const regularWaveQueryOptions = (q: RegularWaveQuery | null) =>
-  queryOptions({
-    queryKey: ['wave', 'regular', q],
-    queryFn: q ? ({ signal }) => getRegularWave(q, signal) : skipToken,
-    placeholderData: keepPreviousData,
-    staleTime: Infinity,
-  });
-
-export const useRegularWave = (q: RegularWaveQuery | null) => useQuery(regularWaveQueryOptions(q));
+export const regularWaveQuery = calculatorQuery<RegularWaveQuery, RegularWaveAnswer>('regular', (q) =>
+  waveQueryString({ period: q.period, height: q.height, depth: q.depth, z: q.z }),
+);
+export const useRegularWave = regularWaveQuery.use;

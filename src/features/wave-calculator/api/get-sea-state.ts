@@ -1,8 +1,6 @@
-import { keepPreviousData, queryOptions, skipToken, useQuery } from '@tanstack/react-query';
 import type { SeaStateQuery } from '../../../../shared/schemas/wave';
 import type { CompletedPeriods } from '../../../../shared/waves/period-conversion';
-import { api } from '../../../lib/api';
-import { waveQueryString } from './query-string';
+import { calculatorQuery, waveQueryString } from './calculator-query';
 
 /** Answer of GET /api/wave/sea-state, SI units. */
 export interface SeaStateAnswer {
@@ -26,18 +24,8 @@ export interface SeaStateAnswer {
   bedVelocitySoulsbyRms: number;
 }
 
-export function getSeaState(q: SeaStateQuery, signal?: AbortSignal): Promise<SeaStateAnswer> {
-  const qs = waveQueryString({ hs: q.hs, tp: q.tp, tz: q.tz, te: q.te, gamma: q.gamma, depth: q.depth });
-  return api<SeaStateAnswer>(`/api/wave/sea-state?${qs}`, { signal });
-}
-
 /** One sea state; `null` skips the request and keeps the last answer on screen. */
-export const seaStateQueryOptions = (q: SeaStateQuery | null) =>
-  queryOptions({
-    queryKey: ['wave', 'sea-state', q],
-    queryFn: q ? ({ signal }) => getSeaState(q, signal) : skipToken,
-    placeholderData: keepPreviousData,
-    staleTime: Infinity,
-  });
-
-export const useSeaState = (q: SeaStateQuery | null) => useQuery(seaStateQueryOptions(q));
+export const seaStateQuery = calculatorQuery<SeaStateQuery, SeaStateAnswer>('sea-state', (q) =>
+  waveQueryString({ hs: q.hs, tp: q.tp, tz: q.tz, te: q.te, gamma: q.gamma, depth: q.depth }),
+);
+export const useSeaState = seaStateQuery.use;

@@ -1,7 +1,6 @@
-import { keepPreviousData, queryOptions, skipToken, useQuery } from '@tanstack/react-query';
 import type { VesselResponseSummary } from '../../../../shared/response/summary';
 import type { ResponseRequest } from '../../../../shared/schemas/vessel';
-import { api } from '../../../lib/api';
+import { calculatorQuery } from './calculator-query';
 
 /** Answer of GET /api/wave/response: the spectra's omega (rad/s), the sea's S(omega) and every response. */
 export type VesselResponseAnswer = VesselResponseSummary & { vesselId: string; heading: number };
@@ -14,17 +13,6 @@ export function responseQueryString(q: ResponseRequest): string {
   return qs.toString();
 }
 
-export function getVesselResponse(q: ResponseRequest, signal?: AbortSignal): Promise<VesselResponseAnswer> {
-  return api<VesselResponseAnswer>(`/api/wave/response?${responseQueryString(q)}`, { signal });
-}
-
 /** A vessel's responses to one sea state; `null` skips the request and keeps the last answer on screen. */
-export const vesselResponseQueryOptions = (q: ResponseRequest | null) =>
-  queryOptions({
-    queryKey: ['wave', 'response', q],
-    queryFn: q ? ({ signal }) => getVesselResponse(q, signal) : skipToken,
-    placeholderData: keepPreviousData,
-    staleTime: Infinity,
-  });
-
-export const useVesselResponse = (q: ResponseRequest | null) => useQuery(vesselResponseQueryOptions(q));
+export const vesselResponseQuery = calculatorQuery<ResponseRequest, VesselResponseAnswer>('response', responseQueryString);
+export const useVesselResponse = vesselResponseQuery.use;

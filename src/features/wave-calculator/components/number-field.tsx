@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
-import { FieldShell, Input } from '../../../components/ui';
+import { Card, FieldShell, Input } from '../../../components/ui';
 
 interface NumberFieldProps {
   id: string;
@@ -30,5 +30,40 @@ export function NumberField({ id, label, unit, registration, error, hint, placeh
         aria-describedby={error ? `${id}-error` : undefined}
       />
     </FieldShell>
+  );
+}
+
+/** One field of a `NumberFields` list: the form key it edits, and what `NumberField` shows. */
+export interface NumberFieldSpec<K extends string> extends Omit<NumberFieldProps, 'registration' | 'error'> {
+  name: K;
+}
+
+interface NumberFieldsProps<K extends string> {
+  fields: readonly NumberFieldSpec<K>[];
+  register: (name: K) => UseFormRegisterReturn;
+  errors: Partial<Record<K, string>>;
+  className: string;
+}
+
+/** A grid of number fields, one per spec, in the given order: registration and error by the spec's form key. */
+export function NumberFields<K extends string>({ fields, register, errors, className }: NumberFieldsProps<K>) {
+  return (
+    <div className={className}>
+      {fields.map(({ name, ...field }) => (
+        <NumberField key={field.id} {...field} registration={register(name)} error={errors[name]} />
+      ))}
+    </div>
+  );
+}
+
+/** A calculator's inputs: a card named by a heading for screen readers only, holding its number fields. */
+export function InputsCard<K extends string>({ titleId, title, ...fields }: { titleId: string; title: string } & NumberFieldsProps<K>) {
+  return (
+    <Card aria-labelledby={titleId}>
+      <h2 id={titleId} className="sr-only">
+        {title}
+      </h2>
+      <NumberFields {...fields} />
+    </Card>
   );
 }

@@ -6,11 +6,11 @@ import { useRegularWave, type RegularWaveAnswer } from '../api/get-regular-wave'
 import { useWaveProfile } from '../api/get-wave-profile';
 import { breakingCheck } from '../utils/breaking-check';
 import { formatSig } from '../utils/format-number';
-import { serverFieldErrors } from '../utils/server-field-errors';
 import type { RawFields } from '../utils/validate-fields';
-import { useWaveForm } from '../utils/use-wave-form';
-import { LinearTheoryCaution, ResultStatus } from './result-status';
-import { NumberField } from './number-field';
+import { useCalculator } from '../utils/use-calculator';
+import { FirstAnswerStatus, LinearTheoryCaution, ResultStatus } from './result-status';
+import { InputsCard, type NumberFieldSpec } from './number-field';
+import { withSub } from './symbol';
 import { QuantityList } from './quantity-list';
 
 // The chart library is large: it arrives in its own chunk when the first result is drawn.
@@ -21,6 +21,20 @@ export type RegularFields = RawFields<'period' | 'height' | 'depth' | 'z'>;
 /** A 10 s swell, 2 m high, in 10 m of water: the example the handbooks like. */
 export const DEFAULT_REGULAR_FIELDS: RegularFields = { period: '10', height: '2', depth: '10', z: '' };
 
+const REGULAR_INPUTS: readonly NumberFieldSpec<keyof RegularFields>[] = [
+  { name: 'period', id: 'rw-period', label: 'Wave period T', unit: 's', hint: '0.5 to 30 s' },
+  { name: 'height', id: 'rw-height', label: 'Wave height H', unit: 'm', hint: 'Crest to trough, 0 to 40 m' },
+  { name: 'depth', id: 'rw-depth', label: 'Water depth d', unit: 'm', hint: 'Still-water depth, 0.05 to 6000 m' },
+  {
+    name: 'z',
+    id: 'rw-z',
+    label: 'Elevation z',
+    unit: 'm',
+    placeholder: 'optional',
+    hint: 'Up from still water: 0 at the surface, −d at the bed',
+  },
+];
+
 const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
   deep: 'Deep water',
   intermediate: 'Intermediate depth',
@@ -29,60 +43,23 @@ const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
 
 /** Regular-wave mode: inputs, every linear-theory quantity with its unit, and u, w, Kp over depth. */
 export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; onChange: (fields: RegularFields) => void }) {
-  const check = useWaveForm(RegularWaveForm, fields, onChange);
-  const wave = useRegularWave(check.data);
+  const { check, answer: wave, errors, otherError, stale } = useCalculator(RegularWaveForm, fields, onChange, useRegularWave);
   const profile = useWaveProfile(check.data ? { period: check.data.period, height: check.data.height, depth: check.data.depth } : null);
-  const serverErrors = serverFieldErrors(wave.error);
-  const errors: Partial<Record<keyof RegularFields, string>> = { ...serverErrors, ...check.errors };
   const a = wave.data;
   const typing = check.typing;
-  const stale = !check.data || wave.isPlaceholderData;
 
   return (
     <div className="grid grid-cols-1 gap-4">
-      <Card aria-labelledby="regular-inputs-title">
-        <h2 id="regular-inputs-title" className="sr-only">
-          Regular wave inputs
-        </h2>
-        <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          <NumberField
-            id="rw-period"
-            label="Wave period T"
-            unit="s"
-            registration={check.register('period')}
-            error={errors.period}
-            hint="0.5 to 30 s"
-          />
-          <NumberField
-            id="rw-height"
-            label="Wave height H"
-            unit="m"
-            registration={check.register('height')}
-            error={errors.height}
-            hint="Crest to trough, 0 to 40 m"
-          />
-          <NumberField
-            id="rw-depth"
-            label="Water depth d"
-            unit="m"
-            registration={check.register('depth')}
-            error={errors.depth}
-            hint="Still-water depth, 0.05 to 6000 m"
-          />
-          <NumberField
-            id="rw-z"
-            label="Elevation z"
-            unit="m"
-            registration={check.register('z')}
-            error={errors.z}
-            placeholder="optional"
-            hint="Up from still water: 0 at the surface, −d at the bed"
-          />
-        </div>
-      </Card>
+      <InputsCard
+        titleId="regular-inputs-title"
+        title="Regular wave inputs"
+        className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4"
+        fields={REGULAR_INPUTS}
+        register={check.register}
+        errors={errors}
+      />
 
-      {wave.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={wave.error} /> : null}
-      {!a && wave.isFetching ? <Spinner label="Computing" /> : null}
+      <FirstAnswerStatus error={otherError} computing={!a && wave.isFetching} label="Computing" />
 
       {a ? (
         <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">
@@ -154,28 +131,8 @@ function WaveResults({ answer: a }: { answer: RegularWaveAnswer }) {
         items={[
           { id: 'wavelength', label: 'Wavelength', symbol: 'L', value: a.wavelength, unit: 'm' },
           { id: 'celerity', label: 'Celerity (phase speed)', symbol: 'C', value: a.celerity, unit: 'm/s' },
-          {
-            id: 'group-celerity',
-            label: 'Group celerity',
-            symbol: (
-              <>
-                C<sub>g</sub>
-              </>
-            ),
-            value: a.groupCelerity,
-            unit: 'm/s',
-          },
-          {
-            id: 'n',
-            label: 'Group to phase speed',
-            symbol: (
-              <>
-                n = C<sub>g</sub>/C
-              </>
-            ),
-            value: a.n,
-            unit: '–',
-          },
+          { id: 'group-celerity', label: 'Group celerity', symbol: withSub('C', 'g'), value: a.groupCelerity, unit: 'm/s' },
+          { id: 'n', label: 'Group to phase speed', symbol: withSub('n = C', 'g', '/C'), value: a.n, unit: '–' },
           { id: 'wave-number', label: 'Wavenumber', symbol: 'k', value: a.waveNumber, unit: 'rad/m' },
         ]}
       />
@@ -185,33 +142,15 @@ function WaveResults({ answer: a }: { answer: RegularWaveAnswer }) {
           {
             id: 'deep-water-wavelength',
             label: 'Deep-water wavelength',
-            symbol: (
-              <>
-                L<sub>0</sub>
-              </>
-            ),
+            symbol: withSub('L', '0'),
             value: a.deepWaterWavelength,
             unit: 'm',
           },
-          {
-            id: 'deep-water-celerity',
-            label: 'Deep-water celerity',
-            symbol: (
-              <>
-                C<sub>0</sub>
-              </>
-            ),
-            value: a.deepWaterCelerity,
-            unit: 'm/s',
-          },
+          { id: 'deep-water-celerity', label: 'Deep-water celerity', symbol: withSub('C', '0'), value: a.deepWaterCelerity, unit: 'm/s' },
           {
             id: 'shoaling-coefficient',
             label: 'Shoaling coefficient',
-            symbol: (
-              <>
-                K<sub>s</sub>
-              </>
-            ),
+            symbol: withSub('K', 's'),
             value: a.shoalingCoefficient,
             unit: '–',
             note: (
@@ -225,45 +164,15 @@ function WaveResults({ answer: a }: { answer: RegularWaveAnswer }) {
       <QuantityList
         title="At the seabed"
         items={[
-          {
-            id: 'bed-velocity',
-            label: 'Orbital velocity amplitude',
-            symbol: (
-              <>
-                u<sub>b</sub>
-              </>
-            ),
-            value: a.bedVelocity,
-            unit: 'm/s',
-          },
-          {
-            id: 'bed-excursion',
-            label: 'Orbital excursion amplitude',
-            symbol: (
-              <>
-                A<sub>b</sub>
-              </>
-            ),
-            value: a.bedExcursion,
-            unit: 'm',
-          },
+          { id: 'bed-velocity', label: 'Orbital velocity amplitude', symbol: withSub('u', 'b'), value: a.bedVelocity, unit: 'm/s' },
+          { id: 'bed-excursion', label: 'Orbital excursion amplitude', symbol: withSub('A', 'b'), value: a.bedExcursion, unit: 'm' },
         ]}
       />
       <QuantityList
         title="Energy"
         items={[
           { id: 'energy-density', label: 'Energy density', symbol: <>E = ρgH²/8</>, value: a.energyDensity, unit: 'J/m²' },
-          {
-            id: 'power',
-            label: 'Power per metre of crest',
-            symbol: (
-              <>
-                P = E C<sub>g</sub>
-              </>
-            ),
-            value: a.power / 1000,
-            unit: 'kW/m',
-          },
+          { id: 'power', label: 'Power per metre of crest', symbol: withSub('P = E C', 'g'), value: a.power / 1000, unit: 'kW/m' },
         ]}
       />
       {hasZ ? (
@@ -275,11 +184,7 @@ function WaveResults({ answer: a }: { answer: RegularWaveAnswer }) {
             {
               id: 'pressure-factor',
               label: 'Pressure response factor',
-              symbol: (
-                <>
-                  K<sub>p</sub>(z)
-                </>
-              ),
+              symbol: withSub('K', 'p', '(z)'),
               value: a.pressureFactor,
               unit: '–',
             },

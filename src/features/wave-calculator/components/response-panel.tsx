@@ -6,10 +6,11 @@ import { Card, ErrorNotice, FieldShell, Notice, Select, Spinner } from '../../..
 import { useVesselResponse, type VesselResponseAnswer } from '../api/get-vessel-response';
 import { useVesselsOfProjects, type VesselSummary } from '../api/get-vessels';
 import { formatSig } from '../utils/format-number';
-import { serverFieldErrors } from '../utils/server-field-errors';
-import { useWaveForm } from '../utils/use-wave-form';
-import { NumberField } from './number-field';
-import { ResultStatus } from './result-status';
+import { useCalculator } from '../utils/use-calculator';
+import { NumberField, NumberFields, type NumberFieldSpec } from './number-field';
+import { FirstAnswerStatus, ResultStatus } from './result-status';
+import { withSub } from './symbol';
+import { HeadingRow } from '../../../components/ui/table';
 
 // The chart library is large: it arrives in its own chunk when the first result is drawn.
 const ResponseSpectraChart = lazy(() => import('./response-spectra-chart'));
@@ -35,6 +36,12 @@ export const DEFAULT_RESPONSE_FIELDS: ResponseFields = {
   swell2Tp: '',
   swell2Dir: '',
 };
+
+const TOTAL_SEA_INPUTS: readonly NumberFieldSpec<keyof ResponseFields>[] = [
+  { name: 'hs', id: 'rs-hs', label: 'Significant wave height Hs', unit: 'm', hint: '0 to 30 m' },
+  { name: 'tp', id: 'rs-tp', label: 'Peak period Tp', unit: 's', hint: '1 to 40 s' },
+  { name: 'dir', id: 'rs-dir', label: 'Wave direction', unit: '° from', hint: '0 to 360°' },
+];
 
 const withRaos = (vs: VesselSummary[]) => vs.filter((v) => v.responses.length > 0);
 
@@ -79,16 +86,12 @@ function ResponseForm_({
   onChange: (fields: ResponseFields) => void;
   usable: { project: ProjectSummary; vessels: VesselSummary[] }[];
 }) {
-  const check = useWaveForm(ResponseForm, fields, onChange);
-  const answer = useVesselResponse(check.data);
-  const serverErrors = serverFieldErrors(answer.error);
-  const errors: Partial<Record<keyof ResponseFields, string>> = { ...serverErrors, ...check.errors };
+  const { check, answer, errors, otherError, stale } = useCalculator(ResponseForm, fields, onChange, useVesselResponse);
   const v = check.values;
   const project = usable.find((p) => p.project.id === v.projectId) ?? usable[0];
   const vessels = project.vessels;
   const partitioned = v.sea === 'partitions';
   const a = answer.data;
-  const stale = !check.data || answer.isPlaceholderData;
   const projectReg = check.register('projectId');
 
   return (
@@ -175,37 +178,11 @@ function ResponseForm_({
             ))}
           </div>
         ) : (
-          <div className="mt-3 grid gap-3 sm:grid-cols-3">
-            <NumberField
-              id="rs-hs"
-              label="Significant wave height Hs"
-              unit="m"
-              registration={check.register('hs')}
-              error={errors.hs}
-              hint="0 to 30 m"
-            />
-            <NumberField
-              id="rs-tp"
-              label="Peak period Tp"
-              unit="s"
-              registration={check.register('tp')}
-              error={errors.tp}
-              hint="1 to 40 s"
-            />
-            <NumberField
-              id="rs-dir"
-              label="Wave direction"
-              unit="° from"
-              registration={check.register('dir')}
-              error={errors.dir}
-              hint="0 to 360°"
-            />
-          </div>
+          <NumberFields className="mt-3 grid gap-3 sm:grid-cols-3" fields={TOTAL_SEA_INPUTS} register={check.register} errors={errors} />
         )}
       </Card>
 
-      {answer.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={answer.error} /> : null}
-      {!a && answer.isFetching ? <Spinner label="Computing the responses" /> : null}
+      <FirstAnswerStatus error={otherError} computing={!a && answer.isFetching} label="Computing the responses" />
       {a ? (
         <div className={`grid grid-cols-1 gap-4 ${stale && !check.typing ? 'opacity-80' : ''}`}>
           <Card aria-labelledby="response-results-title">
@@ -257,20 +234,12 @@ function ResponseTable({ answer }: { answer: VesselResponseAnswer }) {
           Response of the vessel to the sea state: significant amplitude, most probable maximum over 3 hours and zero-crossing period
         </caption>
         <thead>
-          <tr className="border-b border-line text-left">
-            <th scope="col" className="py-2 pr-3">
-              Response
-            </th>
-            <th scope="col" className="py-2 pr-3 text-right">
-              R<sub>s</sub>, significant
-            </th>
-            <th scope="col" className="py-2 pr-3 text-right">
-              R<sub>mpm</sub>, 3 h
-            </th>
-            <th scope="col" className="py-2 pr-3 text-right">
-              T<sub>z,R</sub>
-            </th>
-          </tr>
+          <HeadingRow
+            className="border-b border-line text-left"
+            cellClassName="py-2 pr-3"
+            right={[1, 2, 3]}
+            headings={['Response', withSub('R', 's', ', significant'), withSub('R', 'mpm', ', 3 h'), withSub('T', 'z,R')]}
+          />
         </thead>
         <tbody>
           {answer.responses.map((r) => (

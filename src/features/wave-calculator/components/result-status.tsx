@@ -1,3 +1,5 @@
+import { ErrorNotice, Spinner } from '../../../components/ui';
+
 /** The line above a result: what it was computed for, and whether it is being updated or is from earlier inputs. */
 export function ResultStatus({ updating, lastValid, caption }: { updating: boolean; lastValid: boolean; caption: string }) {
   return (
@@ -24,5 +26,15 @@ export function LinearTheoryCaution() {
       Linear theory holds for waves of small amplitude. Steep waves, waves near breaking and waves in very shallow water need a higher-order
       theory (Stokes, cnoidal, stream function).
     </p>
+  );
+}
+
+/** Before the first answer: the error that no field shows, or a spinner while the first answer is computed. */
+export function FirstAnswerStatus({ error, computing, label }: { error: unknown; computing: boolean; label: string }) {
+  return (
+    <>
+      <ErrorNotice error={error} />
+      {computing ? <Spinner label={label} /> : null}
+    </>
   );
 }

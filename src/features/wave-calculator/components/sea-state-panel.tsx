@@ -1,91 +1,46 @@
 import type { ReactNode } from 'react';
 import { SeaStateForm } from '../../../../shared/schemas/wave';
-import { Card, ErrorNotice, Spinner } from '../../../components/ui';
+import { Card } from '../../../components/ui';
 import { useSeaState, type SeaStateAnswer } from '../api/get-sea-state';
 import { formatSig } from '../utils/format-number';
-import { serverFieldErrors } from '../utils/server-field-errors';
 import type { RawFields } from '../utils/validate-fields';
-import { useWaveForm } from '../utils/use-wave-form';
-import { NumberField } from './number-field';
+import { useCalculator } from '../utils/use-calculator';
+import { InputsCard, type NumberFieldSpec } from './number-field';
+import { withSub } from './symbol';
 import { QuantityList } from './quantity-list';
-import { LinearTheoryCaution, ResultStatus } from './result-status';
+import { FirstAnswerStatus, LinearTheoryCaution, ResultStatus } from './result-status';
 
 export type SeaStateFields = RawFields<'hs' | 'tp' | 'tz' | 'te' | 'gamma' | 'depth'>;
 
 export const DEFAULT_SEA_STATE_FIELDS: SeaStateFields = { hs: '2', tp: '10', tz: '', te: '', gamma: '', depth: '20' };
 
+const SEA_STATE_INPUTS: readonly NumberFieldSpec<keyof SeaStateFields>[] = [
+  { name: 'hs', id: 'ss-hs', label: 'Significant wave height Hs', unit: 'm', hint: 'Spectral Hm0, 0 to 25 m' },
+  { name: 'tp', id: 'ss-tp', label: 'Peak period Tp', unit: 's', hint: 'Give at least one of Tp, Tz, Te' },
+  { name: 'depth', id: 'ss-depth', label: 'Water depth d', unit: 'm', hint: '0.05 to 6000 m' },
+  { name: 'tz', id: 'ss-tz', label: 'Zero-crossing period Tz', unit: 's', placeholder: 'optional', hint: 'Derived from Tp when blank' },
+  { name: 'te', id: 'ss-te', label: 'Energy period Te', unit: 's', placeholder: 'optional', hint: 'Tm−1,0; derived from Tp when blank' },
+  { name: 'gamma', id: 'ss-gamma', label: 'Peak enhancement γ', placeholder: '3.3', hint: 'JONSWAP, 1 to 7; blank means 3.3' },
+];
+
 /** Sea-state mode: Hs and any of Tp, Tz, Te; derived periods, energy, power and bed velocity by both methods. */
 export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; onChange: (fields: SeaStateFields) => void }) {
-  const check = useWaveForm(SeaStateForm, fields, onChange);
-  const sea = useSeaState(check.data);
-  const serverErrors = serverFieldErrors(sea.error);
-  const errors: Partial<Record<keyof SeaStateFields, string>> = { ...serverErrors, ...check.errors };
+  const { check, answer: sea, errors, otherError, stale } = useCalculator(SeaStateForm, fields, onChange, useSeaState);
   const a = sea.data;
   const typing = check.typing;
-  const stale = !check.data || sea.isPlaceholderData;
 
   return (
     <div className="grid grid-cols-1 gap-4">
-      <Card aria-labelledby="sea-inputs-title">
-        <h2 id="sea-inputs-title" className="sr-only">
-          Sea state inputs
-        </h2>
-        <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-          <NumberField
-            id="ss-hs"
-            label="Significant wave height Hs"
-            unit="m"
-            registration={check.register('hs')}
-            error={errors.hs}
-            hint="Spectral Hm0, 0 to 25 m"
-          />
-          <NumberField
-            id="ss-tp"
-            label="Peak period Tp"
-            unit="s"
-            registration={check.register('tp')}
-            error={errors.tp}
-            hint="Give at least one of Tp, Tz, Te"
-          />
-          <NumberField
-            id="ss-depth"
-            label="Water depth d"
-            unit="m"
-            registration={check.register('depth')}
-            error={errors.depth}
-            hint="0.05 to 6000 m"
-          />
-          <NumberField
-            id="ss-tz"
-            label="Zero-crossing period Tz"
-            unit="s"
-            registration={check.register('tz')}
-            error={errors.tz}
-            placeholder="optional"
-            hint="Derived from Tp when blank"
-          />
-          <NumberField
-            id="ss-te"
-            label="Energy period Te"
-            unit="s"
-            registration={check.register('te')}
-            error={errors.te}
-            placeholder="optional"
-            hint="Tm−1,0; derived from Tp when blank"
-          />
-          <NumberField
-            id="ss-gamma"
-            label="Peak enhancement γ"
-            registration={check.register('gamma')}
-            error={errors.gamma}
-            placeholder="3.3"
-            hint="JONSWAP, 1 to 7; blank means 3.3"
-          />
-        </div>
-      </Card>
+      <InputsCard
+        titleId="sea-inputs-title"
+        title="Sea state inputs"
+        className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3"
+        fields={SEA_STATE_INPUTS}
+        register={check.register}
+        errors={errors}
+      />
 
-      {sea.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={sea.error} /> : null}
-      {!a && sea.isFetching ? <Spinner label="Computing" /> : null}
+      <FirstAnswerStatus error={otherError} computing={!a && sea.isFetching} label="Computing" />
 
       {a ? (
         <div className={`grid grid-cols-1 gap-4 lg:grid-cols-2 ${stale && !typing ? 'opacity-80' : ''}`}>
@@ -115,17 +70,7 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
               <QuantityList
                 title="Energy"
                 items={[
-                  {
-                    id: 'energy',
-                    label: 'Energy density',
-                    symbol: (
-                      <>
-                        E = ρgH<sub>s</sub>²/16
-                      </>
-                    ),
-                    value: a.energy,
-                    unit: 'J/m²',
-                  },
+                  { id: 'energy', label: 'Energy density', symbol: withSub('E = ρgH', 's', '²/16'), value: a.energy, unit: 'J/m²' },
                   {
                     id: 'power',
                     label: 'Wave power per metre of crest',
@@ -146,11 +91,7 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                   {
                     id: 'peak-wavelength',
                     label: 'Peak wavelength',
-                    symbol: (
-                      <>
-                        L<sub>p</sub>
-                      </>
-                    ),
+                    symbol: withSub('L', 'p'),
                     value: a.peakWavelength,
                     unit: 'm',
                     note: 'Linear theory at Tp and depth d',
@@ -158,11 +99,7 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                   {
                     id: 'depth-over-peak-wavelength',
                     label: 'Relative depth',
-                    symbol: (
-                      <>
-                        d/L<sub>p</sub>
-                      </>
-                    ),
+                    symbol: withSub('d/L', 'p'),
                     value: a.depth / a.peakWavelength,
                     unit: '–',
                   },
@@ -174,11 +111,7 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                   {
                     id: 'bed-velocity-linear',
                     label: 'Linear significant',
-                    symbol: (
-                      <>
-                        u<sub>bs</sub>
-                      </>
-                    ),
+                    symbol: withSub('u', 'bs'),
                     value: a.bedVelocityLinear,
                     unit: 'm/s',
                     note: (
@@ -190,18 +123,10 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                   {
                     id: 'bed-velocity-soulsby',
                     label: 'Soulsby (2006)',
-                    symbol: (
-                      <>
-                        U<sub>s</sub>
-                      </>
-                    ),
+                    symbol: withSub('U', 's'),
                     value: a.bedVelocitySoulsby,
                     unit: 'm/s',
-                    note: (
-                      <>
-                        2 · U<sub>rms</sub>: the significant value, from Tz (HR Wallingford TR 155)
-                      </>
-                    ),
+                    note: withSub('2 · U', 'rms', ': the significant value, from Tz (HR Wallingford TR 155)'),
                   },
                 ]}
               />
@@ -211,11 +136,7 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
                   {
                     id: 'bed-velocity-soulsby-rms',
                     label: 'RMS of the near-bed velocity, Soulsby (2006)',
-                    symbol: (
-                      <>
-                        U<sub>rms</sub>
-                      </>
-                    ),
+                    symbol: withSub('U', 'rms'),
                     value: a.bedVelocitySoulsbyRms,
                     unit: 'm/s',
                     note: 'The standard deviation of the velocity over time; not an amplitude, not for a limit stated as significant',
@@ -249,11 +170,7 @@ function PeriodTable({ answer: a }: { answer: SeaStateAnswer }) {
     {
       id: 'tp',
       name: 'Peak period',
-      symbol: (
-        <>
-          T<sub>p</sub>
-        </>
-      ),
+      symbol: withSub('T', 'p'),
       value: p.tpS,
       given: p.sources.tp === 'given',
       how:
@@ -266,11 +183,7 @@ function PeriodTable({ answer: a }: { answer: SeaStateAnswer }) {
     {
       id: 'tz',
       name: 'Mean zero-crossing period',
-      symbol: (
-        <>
-          T<sub>z</sub>
-        </>
-      ),
+      symbol: withSub('T', 'z'),
       value: p.tzS,
       given: p.sources.tz === 'given',
       how: p.sources.tz === 'tp' ? <>Tz = {ratio(p.tzS / p.tpS)} × Tp</> : null,
@@ -278,11 +191,7 @@ function PeriodTable({ answer: a }: { answer: SeaStateAnswer }) {
     {
       id: 'te',
       name: 'Energy period',
-      symbol: (
-        <>
-          T<sub>e</sub>
-        </>
-      ),
+      symbol: withSub('T', 'e'),
       value: p.teS,
       given: p.sources.te === 'given',
       how: p.sources.te === 'tp' ? <>Te = {ratio(p.teS / p.tpS)} × Tp</> : null,

@@ -1,15 +1,15 @@
 import type { ReactNode } from 'react';
 import { createColumnHelper, createSortedRowModel, rowSortingFeature, tableFeatures, useTable } from '@tanstack/react-table';
 import { WaveTableForm } from '../../../../shared/schemas/wave';
-import { Button, Card, ErrorNotice, Spinner } from '../../../components/ui';
+import { Button, Card } from '../../../components/ui';
 import { useWaveTable, type WaveTableRow } from '../api/get-wave-table';
 import { formatSig } from '../utils/format-number';
-import { serverFieldErrors } from '../utils/server-field-errors';
-import { useWaveForm } from '../utils/use-wave-form';
+import { useCalculator } from '../utils/use-calculator';
 import { waveTableCsv } from '../utils/wave-table-csv';
 import { downloadCsv } from '../../../lib/csv';
-import { NumberField } from './number-field';
-import { ResultStatus } from './result-status';
+import { InputsCard, type NumberFieldSpec } from './number-field';
+import { withSub } from './symbol';
+import { FirstAnswerStatus, ResultStatus } from './result-status';
 import type { TableFields } from './wave-table-fields';
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
@@ -17,46 +17,14 @@ const helper = createColumnHelper<typeof features, WaveTableRow>();
 
 /** Header, and the line of the key below the table, of every column in handbook order. */
 const COLUMN_TEXT: { key: keyof WaveTableRow; header: ReactNode; meaning: ReactNode }[] = [
-  {
-    key: 'dOverL0',
-    header: (
-      <>
-        d/L<sub>0</sub>
-      </>
-    ),
-    meaning: (
-      <>
-        depth over the deep-water wavelength L<sub>0</sub> = gT²/2π
-      </>
-    ),
-  },
+  { key: 'dOverL0', header: withSub('d/L', '0'), meaning: withSub('depth over the deep-water wavelength L', '0', ' = gT²/2π') },
   { key: 'dOverL', header: 'd/L', meaning: 'depth over the local wavelength' },
-  {
-    key: 'lOverL0',
-    header: (
-      <>
-        L/L<sub>0</sub>
-      </>
-    ),
-    meaning: (
-      <>
-        local over deep-water wavelength, = C/C<sub>0</sub> = tanh kd
-      </>
-    ),
-  },
+  { key: 'lOverL0', header: withSub('L/L', '0'), meaning: withSub('local over deep-water wavelength, = C/C', '0', ' = tanh kd') },
   { key: 'kd', header: 'kd', meaning: 'relative depth 2πd/L' },
   { key: 'tanhKd', header: 'tanh kd', meaning: null },
   { key: 'sinhKd', header: 'sinh kd', meaning: null },
   { key: 'coshKd', header: 'cosh kd', meaning: null },
-  {
-    key: 'n',
-    header: 'n',
-    meaning: (
-      <>
-        group over phase speed C<sub>g</sub>/C = ½(1 + 2kd/sinh 2kd)
-      </>
-    ),
-  },
+  { key: 'n', header: 'n', meaning: withSub('group over phase speed C', 'g', '/C = ½(1 + 2kd/sinh 2kd)') },
   {
     key: 'cgOverC0',
     header: (
@@ -68,26 +36,14 @@ const COLUMN_TEXT: { key: keyof WaveTableRow; header: ReactNode; meaning: ReactN
   },
   {
     key: 'shoalingCoefficient',
-    header: (
-      <>
-        K<sub>s</sub>
-      </>
-    ),
+    header: withSub('K', 's'),
     meaning: (
       <>
         shoaling coefficient H/H<sub>0</sub>′ = √(C<sub>g0</sub>/C<sub>g</sub>)
       </>
     ),
   },
-  {
-    key: 'bedPressureFactor',
-    header: (
-      <>
-        K<sub>p</sub> bed
-      </>
-    ),
-    meaning: <>pressure response factor at the bed, 1/cosh kd</>,
-  },
+  { key: 'bedPressureFactor', header: withSub('K', 'p', ' bed'), meaning: <>pressure response factor at the bed, 1/cosh kd</> },
 ];
 
 const columns = helper.columns(
@@ -101,41 +57,29 @@ const columns = helper.columns(
   ),
 );
 
+const TABLE_INPUTS: readonly NumberFieldSpec<keyof TableFields>[] = [
+  { name: 'from', id: 'wt-from', label: 'From d/L0', hint: '0.0001 to 100' },
+  { name: 'to', id: 'wt-to', label: 'To d/L0', hint: 'Included when on the step grid' },
+  { name: 'step', id: 'wt-step', label: 'Step of d/L0', hint: 'At most 2,000 rows' },
+];
+
 /** Wave-table mode: d/L0 range and step, a sortable table of the handbook columns, CSV download. Lazy-loaded. */
 export default function WaveTablePanel({ fields, onChange }: { fields: TableFields; onChange: (fields: TableFields) => void }) {
-  const check = useWaveForm(WaveTableForm, fields, onChange);
-  const query = useWaveTable(check.data);
-  const serverErrors = serverFieldErrors(query.error);
-  const errors: Partial<Record<keyof TableFields, string>> = { ...serverErrors, ...check.errors };
+  const { check, answer: query, errors, otherError } = useCalculator(WaveTableForm, fields, onChange, useWaveTable);
   const rows = query.data;
   const typing = check.typing;
 
   return (
     <div className="grid grid-cols-1 gap-4">
-      <Card aria-labelledby="table-inputs-title">
-        <h2 id="table-inputs-title" className="sr-only">
-          Wave table range
-        </h2>
-        <div className="grid gap-3 sm:grid-cols-3">
-          <NumberField id="wt-from" label="From d/L0" registration={check.register('from')} error={errors.from} hint="0.0001 to 100" />
-          <NumberField
-            id="wt-to"
-            label="To d/L0"
-            registration={check.register('to')}
-            error={errors.to}
-            hint="Included when on the step grid"
-          />
-          <NumberField
-            id="wt-step"
-            label="Step of d/L0"
-            registration={check.register('step')}
-            error={errors.step}
-            hint="At most 2,000 rows"
-          />
-        </div>
-      </Card>
-      {query.error && Object.keys(serverErrors).length === 0 ? <ErrorNotice error={query.error} /> : null}
-      {!rows && query.isFetching ? <Spinner label="Computing the table" /> : null}
+      <InputsCard
+        titleId="table-inputs-title"
+        title="Wave table range"
+        className="grid gap-3 sm:grid-cols-3"
+        fields={TABLE_INPUTS}
+        register={check.register}
+        errors={errors}
+      />
+      <FirstAnswerStatus error={otherError} computing={!rows && query.isFetching} label="Computing the table" />
       {rows ? <WaveTable rows={rows} typing={typing} fetching={query.isFetching} lastValid={!check.data} /> : null}
     </div>
   );
