@@ -12,6 +12,7 @@ import { operation, projectMember, vessel, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { parseInput } from '../http/errors';
 import { recordAudit } from './audit';
+import { deleteAudited, insertAudited, updateAudited, type AuditedKind } from './audited-rows';
 import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 
 type OperationRow = typeof operation.$inferSelect;
@@ -87,6 +88,14 @@ export function auditedOperation(op: OperationResponse): Omit<OperationResponse,
 }
 
 /** Column values of a parsed operation. */
+/** Operations in the audit trail: every field but id, recurrence and timestamps. */
+const OPERATIONS: AuditedKind<typeof operation, OperationResponse> = {
+  table: operation,
+  entity: 'operation',
+  toResponse: toOperationResponse,
+  audited: auditedOperation,
+};
+
 export function operationColumns(input: OperationInput) {
   return {
     name: input.name,
@@ -161,22 +170,7 @@ export async function createOperation(db: Db, projectId: string, user: SessionUs
   return db.transaction(async (tx) => {
     await assertOperationNameFree(tx, projectId, input.name);
     await assertReferences(tx, projectId, input);
-    const [row] = await tx
-      .insert(operation)
-      .values({ projectId, ...operationColumns(input) })
-      .returning();
-    const op = toOperationResponse(row);
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: 'operation',
-      entityId: op.id,
-      entityName: op.name,
-      action: 'create',
-      before: null,
-      after: auditedOperation(op),
-    });
-    return op;
+    return insertAudited(tx, OPERATIONS, projectId, user, operationColumns(input));
   });
 }
 
@@ -201,42 +195,14 @@ export async function updateOperation(
     const merged = parseInput(OperationInput, { ...current, ...changes });
     if (patch.name !== undefined) await assertOperationNameFree(tx, projectId, merged.name, operationId);
     await assertReferences(tx, projectId, merged, before);
-    const [updated] = await tx
-      .update(operation)
-      .set({ ...operationColumns(merged), updatedAt: new Date() })
-      .where(and(eq(operation.projectId, projectId), eq(operation.id, operationId)))
-      .returning();
-    const after = toOperationResponse(updated);
-    if (JSON.stringify(auditedOperation(before)) !== JSON.stringify(auditedOperation(after))) {
-      await recordAudit(tx, {
-        projectId,
-        user,
-        entity: 'operation',
-        entityId: operationId,
-        entityName: after.name,
-        action: 'update',
-        before: auditedOperation(before),
-        after: auditedOperation(after),
-      });
-    }
-    return after;
+    return updateAudited(tx, OPERATIONS, projectId, user, before, operationColumns(merged));
   });
 }
 
 export async function deleteOperation(db: Db, projectId: string, user: SessionUser, operationId: string): Promise<void> {
   await db.transaction(async (tx) => {
     const row = await operationRow(tx, projectId, operationId);
-    await tx.delete(operation).where(and(eq(operation.projectId, projectId), eq(operation.id, operationId)));
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: 'operation',
-      entityId: operationId,
-      entityName: row.name,
-      action: 'delete',
-      before: auditedOperation(toOperationResponse(row)),
-      after: null,
-    });
+    await deleteAudited(tx, OPERATIONS, projectId, user, row);
   });
 }
 

@@ -10,6 +10,7 @@ import { dataset, operation, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
+import { deleteAudited, insertAudited, updateAudited, type AuditedKind } from './audited-rows';
 import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 import { checkCurrentStation, checkTideInput } from './tide';
 import { auditedOperation, toOperationResponse } from './operations';
@@ -39,6 +40,14 @@ export function auditedSite(site: SiteResponse): Omit<SiteResponse, 'id' | 'upda
   const { id: _id, updatedAt: _updatedAt, ...rest } = site;
   return rest;
 }
+
+/** Worksites in the audit trail: every field but id and timestamps. */
+const WORKSITES: AuditedKind<typeof worksite, SiteResponse> = {
+  table: worksite,
+  entity: 'worksite',
+  toResponse: toSiteResponse,
+  audited: auditedSite,
+};
 
 /**
  * Column values of a parsed worksite.
@@ -93,22 +102,7 @@ export async function createSite(db: Db, projectId: string, user: SessionUser, i
   return db.transaction(async (tx) => {
     await assertSiteNameFree(tx, projectId, input.name);
     await assertHindcast(tx, projectId, input.hindcastDatasetId);
-    const [row] = await tx
-      .insert(worksite)
-      .values({ projectId, ...siteColumns(input) })
-      .returning();
-    const site = toSiteResponse(row);
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: 'worksite',
-      entityId: site.id,
-      entityName: site.name,
-      action: 'create',
-      before: null,
-      after: auditedSite(site),
-    });
-    return site;
+    return insertAudited(tx, WORKSITES, projectId, user, siteColumns(input));
   });
 }
 
@@ -129,25 +123,7 @@ export async function updateSite(
     const merged = parseInput(WorksiteInput, { ...auditedSite(before), ...definedOnly(patch) });
     if (patch.name !== undefined) await assertSiteNameFree(tx, projectId, merged.name, siteId);
     if (patch.hindcastDatasetId !== undefined) await assertHindcast(tx, projectId, merged.hindcastDatasetId);
-    const [updated] = await tx
-      .update(worksite)
-      .set({ ...siteColumns(merged), updatedAt: new Date() })
-      .where(and(eq(worksite.projectId, projectId), eq(worksite.id, siteId)))
-      .returning();
-    const after = toSiteResponse(updated);
-    if (JSON.stringify(auditedSite(before)) !== JSON.stringify(auditedSite(after))) {
-      await recordAudit(tx, {
-        projectId,
-        user,
-        entity: 'worksite',
-        entityId: siteId,
-        entityName: after.name,
-        action: 'update',
-        before: auditedSite(before),
-        after: auditedSite(after),
-      });
-    }
-    return after;
+    return updateAudited(tx, WORKSITES, projectId, user, before, siteColumns(merged));
   });
 }
 
@@ -160,17 +136,7 @@ export async function deleteSite(db: Db, projectId: string, user: SessionUser, s
   await db.transaction(async (tx) => {
     const row = await siteRow(tx, projectId, siteId);
     await removeSiteFromOperations(tx, projectId, user, siteId);
-    await tx.delete(worksite).where(and(eq(worksite.projectId, projectId), eq(worksite.id, siteId)));
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: 'worksite',
-      entityId: siteId,
-      entityName: row.name,
-      action: 'delete',
-      before: auditedSite(toSiteResponse(row)),
-      after: null,
-    });
+    await deleteAudited(tx, WORKSITES, projectId, user, row);
   });
 }
 
