@@ -208,11 +208,23 @@ export async function importUploadedFile(
     },
     members,
   );
-  // A hindcast shorter than a year that is now the default for statistics (no default chosen, and
-  // it is the newest) changes every figure of the project: say so.
+  return importAnswer(db, args.projectId, row, result.report.rowsSkipped);
+}
+
+/**
+ * The answer of an import: the stored dataset's figures, and a warning when a hindcast shorter than a
+ * year is now the default for statistics (no default chosen, and it is the newest), since that changes
+ * every figure of the project.
+ */
+async function importAnswer(
+  db: Db,
+  projectId: string,
+  row: Awaited<ReturnType<typeof createDataset>>,
+  skipped: number,
+): Promise<ImportAnswer> {
   let warning: string | null = null;
   if (row.kind === 'hindcast') {
-    const def = await defaultHindcast(db, args.projectId);
+    const def = await defaultHindcast(db, projectId);
     if (def?.id === row.id) warning = shortDefaultWarning(row, false);
   }
   return {
@@ -224,7 +236,7 @@ export async function importUploadedFile(
     stepMinutes: row.stepMinutes,
     variables: row.variables,
     missing: row.missing,
-    skipped: result.report.rowsSkipped,
+    skipped,
     wind: { anemometerHeightM: row.anemometerHeightM, exponent: row.windExponent },
   };
 }
@@ -337,22 +349,5 @@ async function importNetcdfUpload(
       windExponent,
     },
   );
-  let warning: string | null = null;
-  if (row.kind === 'hindcast') {
-    const def = await defaultHindcast(db, args.projectId);
-    if (def?.id === row.id) warning = shortDefaultWarning(row, false);
-  }
-  return {
-    warning,
-    id: row.id,
-    records: row.recordCount,
-    start: row.startAt.toISOString(),
-    end: row.endAt.toISOString(),
-    stepMinutes: row.stepMinutes,
-    variables: row.variables,
-    missing: row.missing,
-    skipped: 0,
-    wind: { anemometerHeightM: row.anemometerHeightM, exponent: row.windExponent },
-    netcdf: info,
-  };
+  return { ...(await importAnswer(db, args.projectId, row, 0)), netcdf: info };
 }
