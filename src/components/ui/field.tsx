@@ -47,11 +47,20 @@ export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSel
   return <select ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
 });
 
-/** The options of a select whose values are their own labels (time zones, names). */
-export function PlainOptions({ values }: { values: readonly string[] }) {
+/** The options of a select, in order: each value as its own text (time zones, names), or its text from `labels`. */
+export function PlainOptions<T extends string>({ values, labels }: { values: readonly T[]; labels?: Readonly<Record<T, ReactNode>> }) {
   return values.map((v) => (
     <option key={v} value={v}>
-      {v}
+      {labels ? labels[v] : v}
+    </option>
+  ));
+}
+
+/** The `<option>`s of a list of named things (worksites, operations, datasets...): the id as value, the name as text. */
+export function NamedOptions({ items }: { items: readonly { id: string; name: string }[] }) {
+  return items.map((item) => (
+    <option key={item.id} value={item.id}>
+      {item.name}
     </option>
   ));
 }

@@ -4,7 +4,20 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { CreateUserInput } from '../../../../shared/schemas/projects';
 import { PROJECT_ROLES, PROJECT_ROLE_LABELS, type ProjectRole } from '../../../../shared/auth/roles';
 import type { AdminUser, ProjectSummary } from '../../../../shared/api-types';
-import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import {
+  Button,
+  Card,
+  Confirm,
+  ErrorNotice,
+  FieldShell,
+  Input,
+  NamedOptions,
+  Notice,
+  PageHeader,
+  PlainOptions,
+  Select,
+  Spinner,
+} from '../../../components/ui';
 import { useProjects } from '../../../api/projects';
 import { useAdminUsers, useCreateUser, useIssueTemporaryPassword, useSetMembership, useUpdateUser } from '../api/users';
 
@@ -181,11 +194,7 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
                     );
                   }}
                 >
-                  {PROJECT_ROLES.map((r) => (
-                    <option key={r} value={r}>
-                      {PROJECT_ROLE_LABELS[r]}
-                    </option>
-                  ))}
+                  <PlainOptions values={PROJECT_ROLES} labels={PROJECT_ROLE_LABELS} />
                 </Select>
                 <Button variant="ghost" onClick={() => setPending({ kind: 'remove', projectId: m.projectId, projectName: m.projectName })}>
                   Remove
@@ -227,18 +236,10 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
             onChange={(e) => setProjectId(e.target.value)}
           >
             <option value="">Add to project…</option>
-            {unassigned.map((p) => (
-              <option key={p.id} value={p.id}>
-                {p.name}
-              </option>
-            ))}
+            <NamedOptions items={unassigned} />
           </Select>
           <Select aria-label="Role" className="max-w-56" value={role} onChange={(e) => setRole(e.target.value as ProjectRole)}>
-            {PROJECT_ROLES.map((r) => (
-              <option key={r} value={r}>
-                {PROJECT_ROLE_LABELS[r]}
-              </option>
-            ))}
+            <PlainOptions values={PROJECT_ROLES} labels={PROJECT_ROLE_LABELS} />
           </Select>
           <Button
             variant="secondary"

@@ -1,7 +1,7 @@
 // Filters and display choices of the board. They live in the address (?site=&op=&mine=&alpha=
 // &days=&width=) so a board can be bookmarked or sent to the crew as it is.
 import { useState } from 'react';
-import { FieldShell, Select } from '../../../components/ui';
+import { FieldShell, NamedOptions, Select } from '../../../components/ui';
 import { Switch } from '../../../components/ui/switch';
 
 export type HourWidth = 'narrow' | 'wide';
@@ -52,21 +52,13 @@ export function BoardControls({ filters, onChange, sites, operations, hasOwnOper
           <FieldShell label="Worksite" htmlFor="board-site">
             <Select id="board-site" value={filters.siteId} onChange={(e) => onChange({ siteId: e.target.value })}>
               <option value="">All worksites</option>
-              {sites.map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.name}
-                </option>
-              ))}
+              <NamedOptions items={sites} />
             </Select>
           </FieldShell>
           <FieldShell label="Operation" htmlFor="board-operation">
             <Select id="board-operation" value={filters.operationId} onChange={(e) => onChange({ operationId: e.target.value })}>
               <option value="">All operations</option>
-              {operations.map((o) => (
-                <option key={o.id} value={o.id}>
-                  {o.name}
-                </option>
-              ))}
+              <NamedOptions items={operations} />
             </Select>
           </FieldShell>
           <FieldShell label="Hours shown" htmlFor="board-days">

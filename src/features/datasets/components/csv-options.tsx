@@ -1,5 +1,5 @@
 import type { ColumnMapping, CsvDelimiter, CsvPreview, DateOrder, DetectedColumns, SeaUnits } from '../../../../shared/seadata';
-import { FieldShell, Input, Select } from '../../../components/ui';
+import { FieldShell, Input, PlainOptions, Select } from '../../../components/ui';
 import { formatUtc, formatValue } from './format';
 
 const DELIMITER_NAMES: Record<CsvDelimiter, string> = { ',': 'comma ( , )', ';': 'semicolon ( ; )', '\t': 'tab' };
@@ -88,11 +88,7 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
       <div className="grid gap-4 sm:grid-cols-2">
         <FieldShell label="Delimiter" htmlFor="csv-delimiter" hint={`Detected from the header row: ${DELIMITER_NAMES[preview.delimiter]}.`}>
           <Select id="csv-delimiter" value={preview.delimiter} onChange={(e) => onDelimiter(e.target.value as CsvDelimiter)}>
-            {(Object.keys(DELIMITER_NAMES) as CsvDelimiter[]).map((d) => (
-              <option key={d} value={d}>
-                {DELIMITER_NAMES[d]}
-              </option>
-            ))}
+            <PlainOptions values={Object.keys(DELIMITER_NAMES) as CsvDelimiter[]} labels={DELIMITER_NAMES} />
           </Select>
         </FieldShell>
         <div className="flex flex-col justify-end gap-1">

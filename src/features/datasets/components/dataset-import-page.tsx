@@ -31,7 +31,7 @@ import {
 } from '../../../../shared/seadata';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import { ApiError } from '../../../lib/api';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, PlainOptions, Select, Spinner } from '../../../components/ui';
 import { useProjectAccess } from '../../../api/projects';
 import { MAX_NETCDF_UPLOAD_BYTES, MAX_UPLOAD_BYTES, useImportDataset, type ImportFields, type UploadProgress } from '../api/import-dataset';
 import { useNetcdfPoints } from '../api/list-netcdf-points';
@@ -528,11 +528,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
             </FieldShell>
             <FieldShell label="Kind" htmlFor="kind" hint={KIND_HINTS[v.kind]}>
               <Select id="kind" {...register('kind', { onChange: () => setChosenByUser((c) => ({ ...c, kind: true })) })}>
-                {DATASET_KINDS.map((k) => (
-                  <option key={k} value={k}>
-                    {KIND_LABELS[k]}
-                  </option>
-                ))}
+                <PlainOptions values={DATASET_KINDS} labels={KIND_LABELS} />
               </Select>
             </FieldShell>
             <div className="flex flex-col gap-1">

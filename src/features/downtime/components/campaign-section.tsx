@@ -3,7 +3,19 @@ import { TZDate } from '@date-fns/tz';
 import type { CampaignResponse, CampaignSimulation } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAMPAIGN_MAX_STEPS, CampaignInput } from '../../../../shared/schemas/downtime';
-import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select, Spinner } from '../../../components/ui';
+import {
+  Button,
+  Card,
+  Confirm,
+  ErrorNotice,
+  FieldShell,
+  Input,
+  NamedOptions,
+  Notice,
+  PlainOptions,
+  Select,
+  Spinner,
+} from '../../../components/ui';
 import { Term } from '../../../components/ui/term';
 import { DateEcho } from '../../../components/ui/date-echo';
 import { ApiError } from '../../../lib/api';
@@ -95,11 +107,7 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
             <div className="min-w-60 flex-1 sm:max-w-md">
               <FieldShell label="Campaign" htmlFor="campaign-pick">
                 <Select id="campaign-pick" value={selected.id} onChange={(e) => onSelect(e.target.value)}>
-                  {list.map((c) => (
-                    <option key={c.id} value={c.id}>
-                      {c.name}
-                    </option>
-                  ))}
+                  <NamedOptions items={list} />
                 </Select>
               </FieldShell>
             </div>
@@ -456,11 +464,7 @@ function CampaignEditor({
                     invalid={!!siteErr}
                     onChange={(e) => setStep(i, { siteId: e.target.value })}
                   >
-                    {allowed.map((a) => (
-                      <option key={a.id} value={a.id}>
-                        {a.name}
-                      </option>
-                    ))}
+                    <NamedOptions items={allowed} />
                   </Select>
                 </FieldShell>
               </div>

@@ -7,7 +7,7 @@ import {
   LedgerConfirmInput,
   type LedgerLimiting,
 } from '../../../../shared/schemas/downtime';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select, Spinner } from '../../../components/ui';
 import { useLedger } from '../api/get-ledger';
 import { useLedgerMonthly } from '../api/get-ledger-monthly';
 import { useProposeLedger } from '../api/propose-ledger';
@@ -418,11 +418,7 @@ function ConfirmForm({ projectId, row, onDone }: { projectId: string; row: Ledge
         <FieldShell label="Limiting factor" htmlFor={`${id}-limiting`} error={errors.limiting}>
           <Select id={`${id}-limiting`} value={limiting} onChange={(e) => setLimiting(e.target.value)}>
             <option value="">None</option>
-            {LEDGER_LIMITING_VALUES.map((v) => (
-              <option key={v} value={v}>
-                {LEDGER_LIMITING_LABELS[v]}
-              </option>
-            ))}
+            <PlainOptions values={LEDGER_LIMITING_VALUES} labels={LEDGER_LIMITING_LABELS} />
           </Select>
         </FieldShell>
         <FieldShell label="Note" htmlFor={`${id}-note`} hint="Needed when you change the proposal." error={errors.note}>

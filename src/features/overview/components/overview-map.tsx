@@ -3,7 +3,7 @@ import { useSites } from '../../../api/sites';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import { useMapStyle } from '../../../api/map-style';
 import { LazySiteMap, type MapSite } from '../../../components/map/lazy-site-map';
-import { Card, ErrorNotice, Notice, Select } from '../../../components/ui';
+import { Card, ErrorNotice, NamedOptions, Notice, Select } from '../../../components/ui';
 import { formatPosition } from '../../../lib/format';
 import { useSetSitePosition } from '../api/set-site-position';
 import { useTideStation } from '../api/get-tide-station';
@@ -60,11 +60,7 @@ export function OverviewMap({
             Click the map to set the position of
             <Select id="overview-map-place" value={placing} onChange={(e) => setPlacing(e.target.value)}>
               <option value="">(no worksite: just look)</option>
-              {(sites.data ?? []).map((s) => (
-                <option key={s.id} value={s.id}>
-                  {s.name}
-                </option>
-              ))}
+              <NamedOptions items={sites.data ?? []} />
             </Select>
           </label>
         </div>

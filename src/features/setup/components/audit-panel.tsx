@@ -4,7 +4,7 @@ import type { AuditEntryResponse, SiteResponse } from '../../../../shared/api-ty
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
 import type { AlphaTable } from '../../../../shared/engine/types';
 import { AUDIT_ENTITIES, type AuditEntity, type TransferTableInput } from '../../../../shared/schemas/sites';
-import { Button, Card, ErrorNotice, FieldShell, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, PlainOptions, Select, Spinner } from '../../../components/ui';
 import { useAudit } from '../api/get-audit';
 import { useHindcasts } from '../../../api/datasets';
 import { useSites } from '../../../api/sites';
@@ -173,11 +173,7 @@ export function AuditPanel({ projectId }: { projectId: string }) {
               }}
             >
               <option value="">Every change</option>
-              {AUDIT_ENTITIES.map((e) => (
-                <option key={e} value={e}>
-                  {ENTITY_FILTER_LABEL[e]}
-                </option>
-              ))}
+              <PlainOptions values={AUDIT_ENTITIES} labels={ENTITY_FILTER_LABEL} />
             </Select>
           </FieldShell>
         </div>

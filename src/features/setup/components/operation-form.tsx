@@ -10,7 +10,7 @@ import { responseLabel, responseUnit } from '../../../../shared/response/rao';
 import { HS_TARGET_LABELS } from '../../../../shared/engine/explain-hour';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
-import { Button, ErrorNotice, FieldShell, Input, Select, Spinner, TextArea } from '../../../components/ui';
+import { Button, ErrorNotice, FieldShell, Input, PlainOptions, Select, Spinner, TextArea } from '../../../components/ui';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 import { useMembers } from '../api/get-members';
@@ -439,11 +439,7 @@ export function OperationForm({
             >
               <Select id={f('hstarget')} {...form.register('limits.targetKind')}>
                 <option value="none">No partition limit</option>
-                {HS_TARGETS.map((t) => (
-                  <option key={t} value={t}>
-                    {HS_TARGET_LABELS[t]}
-                  </option>
-                ))}
+                <PlainOptions values={HS_TARGETS} labels={HS_TARGET_LABELS} />
               </Select>
             </FieldShell>
             {limitsText.targetKind !== 'none' ? (
@@ -527,11 +523,7 @@ export function OperationForm({
             hint="Linear: π·Hs/(Tp·sinh(k·d)) at Tp. Soulsby (2006): from Tz over a JONSWAP-type spectrum."
           >
             <Select id={f('ubm')} {...form.register('limits.bedVelocityMethod')}>
-              {BED_VELOCITY_METHODS.map((m) => (
-                <option key={m} value={m}>
-                  {BED_VELOCITY_METHOD_LABEL[m]}
-                </option>
-              ))}
+              <PlainOptions values={BED_VELOCITY_METHODS} labels={BED_VELOCITY_METHOD_LABEL} />
             </Select>
           </FieldShell>
           <FieldShell
