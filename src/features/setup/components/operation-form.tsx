@@ -10,12 +10,12 @@ import { responseLabel, responseUnit } from '../../../../shared/response/rao';
 import { HS_TARGET_LABELS } from '../../../../shared/engine/explain-hour';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
-import { Button, ErrorNotice, FieldShell, Input, PlainOptions, Select, Spinner, TextArea } from '../../../components/ui';
+import { Button, FieldShell, Input, PlainOptions, Select, Spinner, TextArea } from '../../../components/ui';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 import { useMembers } from '../api/get-members';
 import { useVessels } from '../../../api/vessels';
-import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
+import { applyServerErrors, SaveOrCancel, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { CurveEditor } from './hs-tp-curve-editor';
 import { BandsEditor } from './tp-bands-editor';
 import { fmt } from './format';
@@ -747,15 +747,12 @@ export function OperationForm({
         </div>
       </FormSection>
 
-      {mutation.error ? <ErrorNotice error={mutation.error} /> : null}
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={mutation.isPending}>
-          {mutation.isPending ? 'Saving…' : op ? 'Save operation' : 'Add operation'}
-        </Button>
-        <Button variant="secondary" onClick={() => onDone(null)} disabled={mutation.isPending}>
-          Cancel
-        </Button>
-      </div>
+      <SaveOrCancel
+        pending={mutation.isPending}
+        error={mutation.error}
+        label={op ? 'Save operation' : 'Add operation'}
+        onCancel={() => onDone(null)}
+      />
     </form>
   );
 }

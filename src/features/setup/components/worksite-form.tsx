@@ -5,14 +5,14 @@ import { z } from 'zod';
 import type { SiteResponse } from '../../../../shared/api-types-sites';
 import { TRANSFORMATION_CAUTION } from '../../../../shared/caution';
 import { BREAKER_INDEX_RANGE, SITE_DEPTH_RANGE_M, WorksiteInput, type WorksiteFormValues } from '../../../../shared/schemas/sites';
-import { Button, ErrorNotice, FieldShell, Input, Select } from '../../../components/ui';
+import { Button, FieldShell, Input, Select } from '../../../components/ui';
 import { useCreateSite } from '../api/create-site';
 import { useHindcasts } from '../../../api/datasets';
 import { useUpdateSite } from '../api/update-site';
 import { useProject } from '../../../api/projects';
 import { useMapStyle } from '../../../api/map-style';
 import { LazySiteMap } from '../../../components/map/lazy-site-map';
-import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
+import { applyServerErrors, SaveOrCancel, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
 import { TideFields, tideFromText, TideText, tideToText } from './tide-fields';
 import { CurrentStationField } from './current-station-field';
@@ -279,15 +279,12 @@ export function WorksiteForm({
         />
       </FormSection>
 
-      {mutation.error ? <ErrorNotice error={mutation.error} /> : null}
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={mutation.isPending}>
-          {mutation.isPending ? 'Saving…' : site ? 'Save worksite' : 'Add worksite'}
-        </Button>
-        <Button variant="secondary" onClick={() => onDone(null)} disabled={mutation.isPending}>
-          Cancel
-        </Button>
-      </div>
+      <SaveOrCancel
+        pending={mutation.isPending}
+        error={mutation.error}
+        label={site ? 'Save worksite' : 'Add worksite'}
+        onCancel={() => onDone(null)}
+      />
     </form>
   );
 }
