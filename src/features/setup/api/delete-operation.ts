@@ -1,13 +1,9 @@
 import { api } from '../../../lib/api';
-import { useMutationThen } from '../../../lib/use-mutation-then';
-import { invalidateProjectSetup } from './invalidate-project-setup';
+import { useSetupWrite } from './invalidate-project-setup';
 
 /** `DELETE /api/projects/:projectId/operations/:operationId` (coordinators and admins), 204. */
 export const deleteOperation = (projectId: string, operationId: string) =>
   api<void>(`/api/projects/${projectId}/operations/${operationId}`, { method: 'DELETE' });
 
 export const useDeleteOperation = (projectId: string) =>
-  useMutationThen(
-    (operationId: string) => deleteOperation(projectId, operationId),
-    (qc) => invalidateProjectSetup(qc, projectId),
-  );
+  useSetupWrite(projectId, (operationId: string) => deleteOperation(projectId, operationId));

@@ -1,6 +1,5 @@
 import { api } from '../../../lib/api';
-import { useMutationThen } from '../../../lib/use-mutation-then';
-import { invalidateProjectSetup } from './invalidate-project-setup';
+import { useSetupWrite } from './invalidate-project-setup';
 
 /**
  * `DELETE /api/projects/:projectId/sites/:siteId` (coordinators and admins), 204. Answers 409 when
@@ -9,8 +8,4 @@ import { invalidateProjectSetup } from './invalidate-project-setup';
 export const deleteSite = (projectId: string, siteId: string) =>
   api<void>(`/api/projects/${projectId}/sites/${siteId}`, { method: 'DELETE' });
 
-export const useDeleteSite = (projectId: string) =>
-  useMutationThen(
-    (siteId: string) => deleteSite(projectId, siteId),
-    (qc) => invalidateProjectSetup(qc, projectId),
-  );
+export const useDeleteSite = (projectId: string) => useSetupWrite(projectId, (siteId: string) => deleteSite(projectId, siteId));

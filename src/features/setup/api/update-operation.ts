@@ -1,8 +1,7 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { OperationResponse } from '../../../../shared/api-types-sites';
 import type { OperationPatchInput } from '../../../../shared/schemas/sites';
 import { api } from '../../../lib/api';
-import { invalidateProjectSetup } from './invalidate-project-setup';
+import { useSetupWrite } from './invalidate-project-setup';
 
 /**
  * `PATCH /api/projects/:projectId/operations/:operationId` (coordinators and admins): any subset of
@@ -11,11 +10,7 @@ import { invalidateProjectSetup } from './invalidate-project-setup';
 export const updateOperation = (projectId: string, operationId: string, patch: OperationPatchInput) =>
   api<OperationResponse>(`/api/projects/${projectId}/operations/${operationId}`, { method: 'PATCH', json: patch });
 
-export function useUpdateOperation(projectId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: ({ operationId, patch }: { operationId: string; patch: OperationPatchInput }) =>
-      updateOperation(projectId, operationId, patch),
-    onSuccess: () => invalidateProjectSetup(qc, projectId),
-  });
-}
+export const useUpdateOperation = (projectId: string) =>
+  useSetupWrite(projectId, ({ operationId, patch }: { operationId: string; patch: OperationPatchInput }) =>
+    updateOperation(projectId, operationId, patch),
+  );
