@@ -146,6 +146,11 @@ export function LedgerSection({
   const [open, setOpen] = useState<string | null>(null);
   const narrow = useSyncExternalStore(subscribeNarrow, isNarrow, () => false);
   const rows = ledger.data ?? [];
+  // Cards on a narrow screen, table rows on a wide one: the same props either way.
+  const Entry = narrow ? LedgerCard : LedgerRow;
+  const entries = rows.map((r) => (
+    <Entry key={r.id} projectId={projectId} row={r} canEdit={canEdit} open={open === r.id} onOpen={(v) => setOpen(v ? r.id : null)} />
+  ));
 
   function downloadDays() {
     downloadCsv(
@@ -243,16 +248,7 @@ export function LedgerSection({
           data-testid="ledger-list"
           aria-label={`Downtime ledger, ${monthWords(month)}`}
         >
-          {rows.map((r) => (
-            <LedgerCard
-              key={r.id}
-              projectId={projectId}
-              row={r}
-              canEdit={canEdit}
-              open={open === r.id}
-              onOpen={(v) => setOpen(v ? r.id : null)}
-            />
-          ))}
+          {entries}
         </ul>
       ) : null}
       {rows.length > 0 && !narrow ? (
@@ -277,18 +273,7 @@ export function LedgerSection({
                 ]}
               />
             </thead>
-            <tbody>
-              {rows.map((r) => (
-                <LedgerRow
-                  key={r.id}
-                  projectId={projectId}
-                  row={r}
-                  canEdit={canEdit}
-                  open={open === r.id}
-                  onOpen={(v) => setOpen(v ? r.id : null)}
-                />
-              ))}
-            </tbody>
+            <tbody>{entries}</tbody>
           </table>
         </div>
       ) : null}

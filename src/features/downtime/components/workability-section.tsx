@@ -1,5 +1,5 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
-import type { WorkabilityCalendarMonth, WorkabilityEntry } from '../../../../shared/api-types-downtime';
+import type { WorkabilityCalendarMonth, WorkabilityEntry, WorkabilityYearMonth } from '../../../../shared/api-types-downtime';
 import { Button, Card, ErrorNotice, Notice, Select, Spinner } from '../../../components/ui';
 import { Term } from '../../../components/ui/term';
 import { downloadCsv, toCsv } from '../../../lib/csv';
@@ -76,21 +76,7 @@ export function WorkabilitySection({
           'years',
         ],
         entries.flatMap((e) =>
-          e.months.map((m) => [
-            e.operationName,
-            e.siteName,
-            e.timeZone,
-            m.month,
-            m.workability === null ? null : round((1 - m.workability) * 100, 2),
-            m.workability === null ? null : round(m.workability * 100, 2),
-            m.goStartShare === null ? null : round(m.goStartShare * 100, 2),
-            m.wowMeanHours,
-            m.wowP90Hours,
-            m.windowsPerMonth,
-            m.meanWindowHours,
-            m.censored,
-            m.years,
-          ]),
+          e.months.map((m) => [e.operationName, e.siteName, e.timeZone, m.month, ...monthFigures(m, m.windowsPerMonth), m.years]),
         ),
       ),
     );
@@ -115,20 +101,7 @@ export function WorkabilitySection({
           'mean_window_h',
           'censored_records',
         ],
-        chosen.yearMonths.map((m) => [
-          chosen.operationName,
-          chosen.siteName,
-          m.year,
-          m.month,
-          m.workability === null ? null : round((1 - m.workability) * 100, 2),
-          m.workability === null ? null : round(m.workability * 100, 2),
-          m.goStartShare === null ? null : round(m.goStartShare * 100, 2),
-          m.wowMeanHours,
-          m.wowP90Hours,
-          m.windows,
-          m.meanWindowHours,
-          m.censored,
-        ]),
+        chosen.yearMonths.map((m) => [chosen.operationName, chosen.siteName, m.year, m.month, ...monthFigures(m, m.windows)]),
       ),
     );
   }
@@ -213,6 +186,18 @@ export function WorkabilitySection({
 }
 
 const round = (x: number, d: number) => Math.round(x * 10 ** d) / 10 ** d;
+
+/** The CSV columns from downtime_pct to censored_records of a calendar month or a year's month (`windows`: its count of windows). */
+const monthFigures = (m: WorkabilityCalendarMonth | WorkabilityYearMonth, windows: number | null) => [
+  m.workability === null ? null : round((1 - m.workability) * 100, 2),
+  m.workability === null ? null : round(m.workability * 100, 2),
+  m.goStartShare === null ? null : round(m.goStartShare * 100, 2),
+  m.wowMeanHours,
+  m.wowP90Hours,
+  windows,
+  m.meanWindowHours,
+  m.censored,
+];
 
 /** Hours the WoW figures stand on: hours with data that have a go-start after them before the data end. */
 const wowStarts = (m: WorkabilityCalendarMonth) => Math.max(0, m.recordsWithData - m.censored);
