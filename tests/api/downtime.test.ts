@@ -229,28 +229,13 @@ describe('campaigns', () => {
 
   beforeAll(async () => {
     // Limits so loose that every hour of the invented hindcast is workable.
-    calmA = await createOperation({
-      name: 'Calm step A',
-      tpop: 10,
-      tc: 2,
-      limits: { hsMax: 20, windMax: 60 },
-      siteIds: [ctx.t.demo.siteIds.route],
-    });
-    calmB = await createOperation({
-      name: 'Calm step B',
-      tpop: 6,
-      tc: 0,
-      limits: { hsMax: 20, windMax: 60 },
-      siteIds: [ctx.t.demo.siteIds.substation],
-    });
+    const { route, substation } = ctx.t.demo.siteIds;
+    const step = (name: string, tpop: number, tc: number, limits: Record<string, number>, siteId: string) =>
+      createOperation({ name, tpop, tc, limits, siteIds: [siteId] });
+    calmA = await step('Calm step A', 10, 2, { hsMax: 20, windMax: 60 }, route);
+    calmB = await step('Calm step B', 6, 0, { hsMax: 20, windMax: 60 }, substation);
     // A Tp window no sea of the invented climate reaches.
-    never = await createOperation({
-      name: 'Never goes',
-      tpop: 4,
-      tc: 0,
-      limits: { tpMin: 39, tpMax: 40 },
-      siteIds: [ctx.t.demo.siteIds.route],
-    });
+    never = await step('Never goes', 4, 0, { tpMin: 39, tpMax: 40 }, route);
   });
 
   it('creates, lists, reorders and deletes a campaign; validates its steps', async () => {

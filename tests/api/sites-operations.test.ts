@@ -943,34 +943,17 @@ describe('transfer table CSV', () => {
   });
 
   it('allows only the first sector to wrap through north, without overlapping the last one', () => {
-    const base = { tpBandsS: [[0, 30]] as [number, number][] };
-    const ok = {
-      ...base,
-      directionSectorsDeg: [
-        [330, 30],
-        [30, 200],
-        [200, 330],
-      ] as [number, number][],
-      factors: [[1], [1], [1]],
-    };
+    // One Tp band, one factor per sector.
+    const sectors = (...directionSectorsDeg: [number, number][]) => ({
+      tpBandsS: [[0, 30]] as [number, number][],
+      directionSectorsDeg,
+      factors: directionSectorsDeg.map(() => [1]),
+    });
+    const ok = sectors([330, 30], [30, 200], [200, 330]);
     expect(TransferTableInput.safeParse(ok).success).toBe(true);
-    const wrapLater = {
-      ...base,
-      directionSectorsDeg: [
-        [30, 200],
-        [200, 30],
-      ] as [number, number][],
-      factors: [[1], [1]],
-    };
+    const wrapLater = sectors([30, 200], [200, 30]);
     expect(TransferTableInput.safeParse(wrapLater).error?.issues[0].path).toEqual(['directionSectorsDeg', 1, 0]);
-    const overlapWrap = {
-      ...base,
-      directionSectorsDeg: [
-        [330, 30],
-        [30, 340],
-      ] as [number, number][],
-      factors: [[1], [1]],
-    };
+    const overlapWrap = sectors([330, 30], [30, 340]);
     expect(TransferTableInput.safeParse(overlapWrap).error?.issues[0].path).toEqual(['directionSectorsDeg', 1, 1]);
   });
 });

@@ -23,20 +23,26 @@ afterAll(async () => {
 
 const base = () => `/api/projects/${t.demo.projectId}/sites`;
 
+/** A worksite 6 m deep (UTC) at the position, its tide from the station on LAT; 201 expected. */
+async function createStationSite(name: string, latitude: number, longitude: number, stationId: string) {
+  const created = await coordinator.post(base()).send({
+    name,
+    depth: 6,
+    timeZone: 'UTC',
+    latitude,
+    longitude,
+    tide: { source: 'station', stationId, datum: 'LAT' },
+  });
+  expect(created.status, created.text).toBe(201);
+  return created;
+}
+
 describe('tide route', () => {
   it('answers the same levels and extremes as the package called directly for one database station', async () => {
     // A station of the database near a position in the German Bight (the first one the package finds).
     const [[station, km]] = near({ lat: 53.5, lon: 8.1, maxResults: 1 });
     expect(km).toBeLessThan(20);
-    const created = await coordinator.post(base()).send({
-      name: 'Tide check',
-      depth: 6,
-      timeZone: 'UTC',
-      latitude: 53.5,
-      longitude: 8.1,
-      tide: { source: 'station', stationId: station.id, datum: 'LAT' },
-    });
-    expect(created.status, created.text).toBe(201);
+    const created = await createStationSite('Tide check', 53.5, 8.1, station.id);
 
     const from = '2026-12-01T00:00:00.000Z';
     const to = '2026-12-02T00:00:00.000Z';
@@ -72,15 +78,7 @@ describe('tide route', () => {
 
   it('warns about a far station (over 20 km, docs/domain.md#tide)', async () => {
     const [[station]] = near({ lat: 53.5, lon: 8.1, maxResults: 1 });
-    const created = await coordinator.post(base()).send({
-      name: 'Tide far',
-      depth: 6,
-      timeZone: 'UTC',
-      latitude: 54.2,
-      longitude: 7.0,
-      tide: { source: 'station', stationId: station.id, datum: 'LAT' },
-    });
-    expect(created.status, created.text).toBe(201);
+    const created = await createStationSite('Tide far', 54.2, 7.0, station.id);
     const res = await client.get(`${base()}/${created.body.id}/tide`).query({ from: '2026-12-01T00:00:00Z', to: '2026-12-01T06:00:00Z' });
     expect(res.body.station.distanceKm).toBeGreaterThan(20);
     expect(res.body.station.warnings.join(' ')).toMatch(/over 20 km/);

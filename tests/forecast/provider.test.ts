@@ -32,6 +32,15 @@ async function failure(promise: Promise<unknown>): Promise<ForecastServiceError>
   throw new Error('expected the fetch to fail');
 }
 
+/** The error of a fetch from a fake service that fails with `kind`, and the spy its result would have reached. */
+async function failedFetch(kind: Parameters<FakeForecastService['setFailure']>[0]) {
+  const f = await fake();
+  f.setFailure(kind);
+  const store = vi.fn();
+  const err = await failure(new HttpForecastProvider(f.url).fetchLatest(POSITION).then(store));
+  return { err, store };
+}
+
 /** A hand-written valid answer of two hours. */
 function answer(overrides: Record<string, unknown> = {}) {
   return {
@@ -72,20 +81,14 @@ describe('failures of the fake service through the real client', () => {
   });
 
   it('malformed JSON gives code "malformed" and nothing reaches the caller', async () => {
-    const f = await fake();
-    f.setFailure('malformed');
-    const store = vi.fn();
-    const err = await failure(new HttpForecastProvider(f.url).fetchLatest(POSITION).then(store));
+    const { err, store } = await failedFetch('malformed');
     expect(err.code).toBe('malformed');
     expect(err.message).toMatch(/not valid JSON/);
     expect(store).not.toHaveBeenCalled();
   });
 
   it('a schema-invalid answer is refused whole, even when only late values are wrong', async () => {
-    const f = await fake();
-    f.setFailure('schema');
-    const store = vi.fn();
-    const err = await failure(new HttpForecastProvider(f.url).fetchLatest(POSITION).then(store));
+    const { err, store } = await failedFetch('schema');
     expect(err.code).toBe('malformed');
     expect(err.details.join('\n')).toMatch(/series\.hs\.124/);
     expect(err.message).toMatch(/failed validation/);
