@@ -57,26 +57,18 @@ describe('simulateCampaign (docs/domain.md#hindcast-statistics, #convention-15)'
       const d = new Date(t);
       if (d.getUTCDate() === 3 && d.getUTCHours() === 0) third[i] = 1;
     });
-    const [r] = simulateCampaign(
-      times,
-      HOUR,
-      [
-        { goStart: third, tpopH: 10 },
-        { goStart: always, tpopH: 20 },
-      ],
-      { startMonths: [7] },
-    );
+    // The July start of two steps, each given by its go-start flags and TPOP (h).
+    const july = (...steps: [Uint8Array, number][]) =>
+      simulateCampaign(
+        times,
+        HOUR,
+        steps.map(([goStart, tpopH]) => ({ goStart, tpopH })),
+        { startMonths: [7] },
+      )[0];
+    const r = july([third, 10], [always, 20]);
     expect([r.p50Hours, r.wowP50Hours, r.p90Hours, r.wowP90Hours]).toEqual([78, 48, 78, 48]);
     // Second step first: always at start (0-20 h), then the 3rd 00:00 (48 h) + 10 h.
-    const [q] = simulateCampaign(
-      times,
-      HOUR,
-      [
-        { goStart: always, tpopH: 20 },
-        { goStart: third, tpopH: 10 },
-      ],
-      { startMonths: [7] },
-    );
+    const q = july([always, 20], [third, 10]);
     expect(q.p50Hours).toBe(58);
     expect(q.wowP50Hours).toBe(28);
   });
