@@ -4,20 +4,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { CreateUserInput } from '../../../../shared/schemas/projects';
 import { PROJECT_ROLES, PROJECT_ROLE_LABELS, type ProjectRole } from '../../../../shared/auth/roles';
 import type { AdminUser, ProjectSummary } from '../../../../shared/api-types';
-import {
-  Button,
-  Card,
-  Confirm,
-  ErrorNotice,
-  FieldShell,
-  Input,
-  NamedOptions,
-  Notice,
-  PageHeader,
-  PlainOptions,
-  Select,
-  Spinner,
-} from '../../../components/ui';
+import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PageHeader, Select, Spinner } from '../../../components/ui';
+import { NamedOptions, PlainOptions } from '../../../components/ui/field';
 import { useProjects } from '../../../api/projects';
 import { useAdminUsers, useCreateUser, useIssueTemporaryPassword, useSetMembership, useUpdateUser } from '../api/users';
 

@@ -3,19 +3,8 @@ import { TZDate } from '@date-fns/tz';
 import type { CampaignResponse, CampaignSimulation } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAMPAIGN_MAX_STEPS, CampaignInput } from '../../../../shared/schemas/downtime';
-import {
-  Button,
-  Card,
-  Confirm,
-  ErrorNotice,
-  FieldShell,
-  Input,
-  NamedOptions,
-  Notice,
-  PlainOptions,
-  Select,
-  Spinner,
-} from '../../../components/ui';
+import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { NamedOptions, PlainOptions } from '../../../components/ui/field';
 import { Term } from '../../../components/ui/term';
 import { DateEcho } from '../../../components/ui/date-echo';
 import { ApiError } from '../../../lib/api';

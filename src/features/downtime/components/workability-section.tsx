@@ -60,21 +60,7 @@ export function WorkabilitySection({
     downloadCsv(
       `expected-downtime-${alpha ? 'alpha' : 'oplim'}.csv`,
       toCsv(
-        [
-          'operation',
-          'worksite',
-          'time_zone',
-          'month',
-          'downtime_pct',
-          'workability_pct',
-          'go_start_share_pct',
-          'wow_mean_h',
-          'wow_p90_h',
-          'windows_per_month',
-          'mean_window_h',
-          'censored_records',
-          'years',
-        ],
+        ['operation', 'worksite', 'time_zone', 'month', ...monthFigureColumns('windows_per_month'), 'years'],
         entries.flatMap((e) =>
           e.months.map((m) => [e.operationName, e.siteName, e.timeZone, m.month, ...monthFigures(m, m.windowsPerMonth), m.years]),
         ),
@@ -87,20 +73,7 @@ export function WorkabilitySection({
     downloadCsv(
       `downtime-by-year-${alpha ? 'alpha' : 'oplim'}.csv`,
       toCsv(
-        [
-          'operation',
-          'worksite',
-          'year',
-          'month',
-          'downtime_pct',
-          'workability_pct',
-          'go_start_share_pct',
-          'wow_mean_h',
-          'wow_p90_h',
-          'windows',
-          'mean_window_h',
-          'censored_records',
-        ],
+        ['operation', 'worksite', 'year', 'month', ...monthFigureColumns('windows')],
         chosen.yearMonths.map((m) => [chosen.operationName, chosen.siteName, m.year, m.month, ...monthFigures(m, m.windows)]),
       ),
     );
@@ -186,6 +159,18 @@ export function WorkabilitySection({
 }
 
 const round = (x: number, d: number) => Math.round(x * 10 ** d) / 10 ** d;
+
+/** The names of the columns of {@link monthFigures}, the windows column named `windows`. */
+const monthFigureColumns = (windows: string) => [
+  'downtime_pct',
+  'workability_pct',
+  'go_start_share_pct',
+  'wow_mean_h',
+  'wow_p90_h',
+  windows,
+  'mean_window_h',
+  'censored_records',
+];
 
 /** The CSV columns from downtime_pct to censored_records of a calendar month or a year's month (`windows`: its count of windows). */
 const monthFigures = (m: WorkabilityCalendarMonth | WorkabilityYearMonth, windows: number | null) => [
