@@ -4,7 +4,7 @@
  */
 import { and, eq } from 'drizzle-orm';
 import type { PgColumn, PgTable } from 'drizzle-orm/pg-core';
-import type { AuditEntity } from '../../shared/schemas/sites';
+import type { AuditAction, AuditEntity } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
 import type { SessionUser } from '../http/context';
 import { recordAudit } from './audit';
@@ -17,6 +17,20 @@ export interface AuditedKind<T extends AuditedTable, R extends { id: string; nam
   entity: AuditEntity;
   toResponse: (row: T['$inferSelect']) => R;
   audited: (response: R) => unknown;
+}
+
+/** The audit entry of one change to the row `subject` (its id, and its name after the change). */
+function writeEntry<T extends AuditedTable, R extends { id: string; name: string }>(
+  tx: Db,
+  kind: AuditedKind<T, R>,
+  projectId: string,
+  user: SessionUser,
+  action: AuditAction,
+  subject: R,
+  before: unknown,
+  after: unknown,
+): Promise<void> {
+  return recordAudit(tx, { projectId, user, entity: kind.entity, entityId: subject.id, entityName: subject.name, action, before, after });
 }
 
 /** Inserts a row of the project from its column `values` and writes the 'create' entry. */
@@ -32,16 +46,7 @@ export async function insertAudited<T extends AuditedTable, R extends { id: stri
     .values({ projectId, ...values } as never)
     .returning()) as T['$inferSelect'][];
   const created = kind.toResponse(row);
-  await recordAudit(tx, {
-    projectId,
-    user,
-    entity: kind.entity,
-    entityId: created.id,
-    entityName: created.name,
-    action: 'create',
-    before: null,
-    after: kind.audited(created),
-  });
+  await writeEntry(tx, kind, projectId, user, 'create', created, null, kind.audited(created));
   return created;
 }
 
@@ -61,16 +66,7 @@ export async function updateAudited<T extends AuditedTable, R extends { id: stri
     .returning()) as T['$inferSelect'][];
   const after = kind.toResponse(updated);
   if (JSON.stringify(kind.audited(before)) !== JSON.stringify(kind.audited(after))) {
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: kind.entity,
-      entityId: before.id,
-      entityName: after.name,
-      action: 'update',
-      before: kind.audited(before),
-      after: kind.audited(after),
-    });
+    await writeEntry(tx, kind, projectId, user, 'update', after, kind.audited(before), kind.audited(after));
   }
   return after;
 }
@@ -85,14 +81,5 @@ export async function deleteAudited<T extends AuditedTable, R extends { id: stri
 ): Promise<void> {
   const gone = kind.toResponse(row);
   await tx.delete(kind.table).where(and(eq(kind.table.projectId, projectId), eq(kind.table.id, gone.id)));
-  await recordAudit(tx, {
-    projectId,
-    user,
-    entity: kind.entity,
-    entityId: gone.id,
-    entityName: gone.name,
-    action: 'delete',
-    before: kind.audited(gone),
-    after: null,
-  });
+  await writeEntry(tx, kind, projectId, user, 'delete', gone, kind.audited(gone), null);
 }
