@@ -15,6 +15,7 @@ import { useConfirmLedger } from '../api/confirm-ledger';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { dayWords, hours, monthRange, monthWords } from './format';
 import { HeadingRow } from '../../../components/ui/table';
+import { SubmitOrCancel } from '../../../components/ui/form-actions';
 
 const th = 'sticky top-0 bg-surface-2 px-2 py-2 text-xs font-semibold text-ink-soft';
 const td = 'px-2 py-1 text-right tabular-nums whitespace-nowrap';
@@ -410,15 +411,7 @@ function ConfirmForm({ projectId, row, onDone }: { projectId: string; row: Ledge
           <Input id={`${id}-note`} value={note} invalid={!!errors.note} maxLength={2000} onChange={(e) => setNote(e.target.value)} />
         </FieldShell>
       </div>
-      {confirm.error ? <ErrorNotice error={confirm.error} /> : null}
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={confirm.isPending}>
-          {confirm.isPending ? 'Confirming…' : 'Confirm day'}
-        </Button>
-        <Button variant="ghost" onClick={onDone}>
-          Cancel
-        </Button>
-      </div>
+      <SubmitOrCancel pending={confirm.isPending} error={confirm.error} label="Confirm day" pendingLabel="Confirming…" onCancel={onDone} />
     </form>
   );
 }

@@ -2,8 +2,9 @@ import { useNavigate } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CreateProjectInput } from '../../../../shared/schemas/projects';
-import { Button, Card, ErrorNotice, FieldShell, Input } from '../../../components/ui';
+import { Card, FieldShell, Input } from '../../../components/ui';
 import { useCreateProject } from '../api/mutations';
+import { SubmitOrCancel } from '../../../components/ui/form-actions';
 
 /** The "New project" form of the projects page. */
 export default function CreateProjectCard({ onDone }: { onDone: () => void }) {
@@ -22,15 +23,7 @@ export default function CreateProjectCard({ onDone }: { onDone: () => void }) {
         <FieldShell label="Description" htmlFor="project-description" error={form.formState.errors.description?.message}>
           <Input id="project-description" {...form.register('description')} />
         </FieldShell>
-        {create.error ? <ErrorNotice error={create.error} /> : null}
-        <div className="flex gap-2">
-          <Button type="submit" disabled={create.isPending}>
-            Create project
-          </Button>
-          <Button variant="ghost" onClick={onDone}>
-            Cancel
-          </Button>
-        </div>
+        <SubmitOrCancel pending={create.isPending} error={create.error} label="Create project" onCancel={onDone} className="flex gap-2" />
       </form>
     </Card>
   );

@@ -1,7 +1,7 @@
 import { type InputHTMLAttributes, type ReactNode } from 'react';
 import { get, type FieldErrors, type FieldValues, type Path, type Resolver, type UseFormSetError } from 'react-hook-form';
 import { ApiError } from '../../../lib/api';
-import { Button, ErrorNotice } from '../../../components/ui';
+import { Button } from '../../../components/ui';
 
 /** The message of the error at a dotted path of a form's errors ('limits.hsTpCurve.2.0'), if any. */
 export function errorAt(errors: FieldErrors, path: string): string | undefined {
@@ -128,33 +128,6 @@ export function ConfirmBox({
         </Button>
       </div>
     </div>
-  );
-}
-
-/** The end of an add-or-edit form: the error of the save, the submit button ("Saving…" while it saves) and Cancel. */
-export function SaveOrCancel({
-  pending,
-  error,
-  label,
-  onCancel,
-}: {
-  pending: boolean;
-  error: unknown;
-  label: string;
-  onCancel: () => void;
-}) {
-  return (
-    <>
-      <ErrorNotice error={error} />
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" disabled={pending}>
-          {pending ? 'Saving…' : label}
-        </Button>
-        <Button variant="secondary" onClick={onCancel} disabled={pending}>
-          Cancel
-        </Button>
-      </div>
-    </>
   );
 }
 

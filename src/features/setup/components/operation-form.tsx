@@ -15,13 +15,14 @@ import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 import { useMembers } from '../api/get-members';
 import { useVessels } from '../../../api/vessels';
-import { applyServerErrors, SaveOrCancel, blankAware, withSubject, errorAt, FormSection } from './form-bits';
+import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { CurveEditor } from './hs-tp-curve-editor';
 import { BandsEditor } from './tp-bands-editor';
 import { fmt } from './format';
 import { HsTpPlot } from './hs-tp-plot';
 import { BED_VELOCITY_METHOD_LABEL } from './limits-summary';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
+import { SubmitOrCancel } from '../../../components/ui/form-actions';
 
 const pairText = z.tuple([z.string(), z.string()]);
 
@@ -747,11 +748,14 @@ export function OperationForm({
         </div>
       </FormSection>
 
-      <SaveOrCancel
+      <SubmitOrCancel
         pending={mutation.isPending}
         error={mutation.error}
         label={op ? 'Save operation' : 'Add operation'}
+        pendingLabel="Saving…"
         onCancel={() => onDone(null)}
+        cancelVariant="secondary"
+        lockCancel
       />
     </form>
   );

@@ -12,7 +12,7 @@ import { useUpdateSite } from '../api/update-site';
 import { useProject } from '../../../api/projects';
 import { useMapStyle } from '../../../api/map-style';
 import { LazySiteMap } from '../../../components/map/lazy-site-map';
-import { applyServerErrors, SaveOrCancel, blankAware, withSubject, errorAt, FormSection } from './form-bits';
+import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
 import { TideFields, tideFromText, TideText, tideToText } from './tide-fields';
 import { CurrentStationField } from './current-station-field';
@@ -24,6 +24,7 @@ import {
   transferTableToText,
   type TransferTableText,
 } from './transfer-table-editor';
+import { SubmitOrCancel } from '../../../components/ui/form-actions';
 
 const pairText = z.tuple([z.string(), z.string()]);
 
@@ -279,11 +280,14 @@ export function WorksiteForm({
         />
       </FormSection>
 
-      <SaveOrCancel
+      <SubmitOrCancel
         pending={mutation.isPending}
         error={mutation.error}
         label={site ? 'Save worksite' : 'Add worksite'}
+        pendingLabel="Saving…"
         onCancel={() => onDone(null)}
+        cancelVariant="secondary"
+        lockCancel
       />
     </form>
   );
