@@ -38,7 +38,7 @@ import {
   type SeaPartition,
   type SeaPartitionSeries,
 } from './response';
-import { spreadAtGrid, spreadAtPeriodEnds } from './spread-table';
+import { spreadAtGrid, spreadAtPeriodEnds, spreadPositions } from './spread-table';
 import type { Spreading } from './spreading';
 
 /** Shortest and longest peak period of the tables, s (outside: direct integration). */
@@ -82,11 +82,13 @@ export interface MomentTable {
   /** ln gamma of the layers and the Lagrange denominators (DNV rule only). */
   lnGammas: Float64Array;
   lagrangeDen: Float64Array;
+  /** Per Tp node, the grid periods' positions on the spread table (the same for every theta row). */
+  positions: (Float64Array | undefined)[];
   /** Per theta node: [tpNode][layer][a0, a2], NaN until worked. */
   rows: (Float64Array | undefined)[];
   /** Coefficients of the layers for the last gamma asked for. */
   lastGamma: number;
-  coef: Float64Array;
+  coef: Float32Array;
 }
 
 /** Builds an empty table (`gamma`: a fixed value, or 'dnv' for layers over 1-5). */
@@ -136,9 +138,10 @@ export function createMomentTable(
     shapeSums: Float64Array.from(gammas, (g) => jonswapShapeSum(g)),
     lnGammas,
     lagrangeDen,
+    positions: new Array<Float64Array | undefined>(tpNodes),
     rows: new Array<Float64Array | undefined>(360 / grid.thetaStepDeg),
     lastGamma: NaN,
-    coef: new Float64Array(layers),
+    coef: new Float32Array(layers),
   };
 }
 
@@ -170,8 +173,12 @@ const H2 = new Float64Array(GRID_POINTS);
 
 /** Works node (tp node i, theta node k) of every layer into `row`. */
 function workNode(t: MomentTable, row: Float64Array, i: number, k: number): void {
-  const tp = TP_MIN_S * Math.exp(i * t.grid.lnTpStep);
-  spreadAtGrid(t.rao, t.name, t.spreading, tp, k * t.grid.thetaStepDeg, H2);
+  let q = t.positions[i];
+  if (!q) {
+    t.positions[i] = q = new Float64Array(GRID_POINTS);
+    spreadPositions(t.rao, t.name, t.spreading, TP_MIN_S * Math.exp(i * t.grid.lnTpStep), q);
+  }
+  spreadAtGrid(t.rao, t.name, t.spreading, k * t.grid.thetaStepDeg, q, H2);
   const layers = t.gammas.length;
   for (let l = 0; l < layers; l++) {
     const w = t.weights[l];
@@ -199,7 +206,7 @@ function rowOf(t: MomentTable, k: number): Float64Array {
  * Layer coefficients of the DNV layers at s = ln(gamma / 1), 0 <= s <= ln 5, into c[at..]: one-hot at
  * a node, else the Lagrange weights times the layers' shape sums, normalised (see the module comment).
  */
-function lagrangeInto(t: MomentTable, s: number, c: Float32Array | Float64Array, at: number): void {
+function lagrangeInto(t: MomentTable, s: number, c: Float32Array, at: number): void {
   const layers = t.gammas.length;
   const nodes = t.lnGammas;
   let hit = -1;
@@ -216,9 +223,10 @@ function lagrangeInto(t: MomentTable, s: number, c: Float32Array | Float64Array,
     c[at + k] = v;
     sum += v;
   }
-  // Single precision: the series path stores the coefficients per record as float32 (the
-  // rounding, 1e-7 relative, is far below the tabulation's error); the record path rounds alike.
-  for (let k = 0; k < layers; k++) c[at + k] = Math.fround(c[at + k] / sum);
+  // Single precision (float32 arrays), in the record path as in the series path, which keeps them
+  // per record: the rounding, 1e-7 relative, is far below the tabulation's error.
+  const inv = 1 / sum;
+  for (let k = 0; k < layers; k++) c[at + k] *= inv;
 }
 
 /** Layer coefficients for a gamma into t.coef; false when the gamma is outside the layers' range. */
@@ -270,17 +278,21 @@ export function momentTableLookup(t: MomentTable, tpS: number, thetaDeg: number,
   const wBB = fu * fv;
   let a0 = 0;
   let a2 = 0;
+  let cs = 0;
   const c = t.coef;
   for (let l = 0; l < layers; l++) {
     const cl = c[l];
     if (cl === 0) continue;
+    cs += cl;
     const pA = oA + l * V;
     const pB = oB + l * V;
     a0 += cl * (wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB]);
     a2 += cl * (wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1]);
   }
-  out[0] = a0;
-  out[1] = a2;
+  // Divided by the coefficients' sum, which float32 leaves a few 1e-8 off 1 (an RAO of 1 gives
+  // m0 = Hs^2/16 exactly again).
+  out[0] = a0 / cs;
+  out[1] = a2 / cs;
   return true;
 }
 
@@ -510,15 +522,19 @@ export function tabulatedMomentSeries(
       } else {
         a0 = 0;
         a2 = 0;
+        let cs = 0;
         const at = i * layers;
         for (let l = 0; l < layers; l++) {
           const cl = coef[at + l];
           if (cl === 0) continue;
+          cs += cl;
           const pA = oA + l * V;
           const pB = oB + l * V;
           a0 += cl * (wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB]);
           a2 += cl * (wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1]);
         }
+        a0 /= cs;
+        a2 /= cs;
       }
       const h2 = hs * hs;
       const wp = (2 * Math.PI) / tpS[i];

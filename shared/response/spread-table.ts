@@ -1,14 +1,12 @@
 /**
- * Tabulated vessel response for long series (docs/domain.md#vessel-response, "for speed"): the
- * direction-spread squared RAO
+ * Direction-spread squared RAO for the moment tables (docs/domain.md#vessel-response, "for speed"):
  *   H2(T, theta) = sum over direction bins b of D_b |RAO(T, theta + offset_b)|^2
  * depends on the wave period T and the partition's mean relative direction theta only, not on the
- * partition's Hs, Tp or gamma. It is worked once per (vessel table, response, spreading) on a fine
- * grid (the RAO table's period intervals cut to about PERIOD_NODES_WANTED nodes, theta every THETA_STEP_DEG
- * degrees), and a partition's moments are then one sum over the frequency grid of the JONSWAP
- * weights times H2 interpolated bilinearly: about a hundredth of the direct integration's work.
- * A test holds the interpolation error below 0.5 % of m0 against the direct integration of
- * response.ts, as docs/domain.md#vessel-response requires of a tabulation.
+ * partition's Hs, Tp or gamma. It is kept per (vessel table, response, spreading) on a fine grid
+ * (the RAO table's period intervals cut to about PERIOD_NODES_WANTED nodes, theta every
+ * THETA_STEP_DEG degrees), a theta row worked on first use. moment-table.ts sums it against the
+ * JONSWAP weights at its nodes; the tests hold the result within 0.5 % of the direct integration
+ * of response.ts, as docs/domain.md#vessel-response requires of a tabulation.
  */
 import { GRID_POINTS, GRID_X } from './jonswap';
 import { headingPosition, type PreparedRao } from './rao';
@@ -91,24 +89,20 @@ function spreadRow(table: SpreadTable, t: number): number {
 }
 
 /**
- * H2 of the spread table at the frequency grid's periods T_j = Tp / x_j for one partition peak
- * period and a whole degree of relative direction (a row of the table: no interpolation in theta),
- * held at the table's ends as the direct integration holds the RAO.
+ * Positions of the frequency grid's periods T_j = Tp / x_j for one partition peak period on the
+ * spread table's fine period nodes (node index plus fraction), held at the table's ends as the
+ * direct integration holds the RAO: the same for every theta row, so worked once per Tp.
  */
-export function spreadAtGrid(rao: PreparedRao, name: string, spreading: Spreading, tpS: number, thetaDeg: number, h2: Float64Array): void {
-  if (!Number.isInteger(thetaDeg / THETA_STEP_DEG) || thetaDeg < 0 || thetaDeg >= 360)
-    throw new RangeError(`relative direction ${thetaDeg} must be a whole row of the spread table (0-359 deg)`);
+export function spreadPositions(rao: PreparedRao, name: string, spreading: Spreading, tpS: number, q: Float64Array): void {
   const table = spreadTable(rao, name, spreading);
   const periods = rao.periods;
   const np = periods.length;
   const pFirst = periods[0];
   const pLast = periods[np - 1];
-  const v = table.values;
-  const row = spreadRow(table, thetaDeg / THETA_STEP_DEG);
   for (let j = 0; j < GRID_POINTS; j++) {
     const T = tpS / GRID_X[j];
     if (T <= pFirst || T >= pLast) {
-      h2[j] = v[row + (T <= pFirst ? 0 : table.periodNodes - 1)];
+      q[j] = T <= pFirst ? 0 : table.periodNodes - 1;
       continue;
     }
     let lo = 0;
@@ -118,10 +112,33 @@ export function spreadAtGrid(rao: PreparedRao, name: string, spreading: Spreadin
       if (periods[mid] <= T) lo = mid;
       else hi = mid;
     }
-    const q = (lo + (T - periods[lo]) / (periods[hi] - periods[lo])) * table.steps;
-    const qi = Math.min(table.periodNodes - 2, Math.floor(q));
-    const fq = q - qi;
-    h2[j] = v[row + qi] + (v[row + qi + 1] - v[row + qi]) * fq;
+    q[j] = (lo + (T - periods[lo]) / (periods[hi] - periods[lo])) * table.steps;
+  }
+}
+
+/**
+ * H2 of the spread table at positions `q` ({@link spreadPositions}) for a whole degree of relative
+ * direction (a row of the table: no interpolation in theta), linear between the fine period nodes.
+ */
+export function spreadAtGrid(
+  rao: PreparedRao,
+  name: string,
+  spreading: Spreading,
+  thetaDeg: number,
+  q: Float64Array,
+  h2: Float64Array,
+): void {
+  if (!Number.isInteger(thetaDeg / THETA_STEP_DEG) || thetaDeg < 0 || thetaDeg >= 360)
+    throw new RangeError(`relative direction ${thetaDeg} must be a whole row of the spread table (0-359 deg)`);
+  const table = spreadTable(rao, name, spreading);
+  const v = table.values;
+  const row = spreadRow(table, thetaDeg / THETA_STEP_DEG);
+  const lastLow = table.periodNodes - 2;
+  for (let j = 0; j < GRID_POINTS; j++) {
+    const qj = q[j];
+    const qi = Math.min(lastLow, Math.floor(qj));
+    const a = v[row + qi];
+    h2[j] = a + (v[row + qi + 1] - a) * (qj - qi);
   }
 }
 
