@@ -426,7 +426,10 @@ function seriesPrep(p: SeaPartitionSeries, t: MomentTable, settings: ResponseSea
       const hs = p.hsM[i];
       const r = p.tpS[i] / Math.sqrt(hs);
       if (!(hs >= 0)) node = -1;
-      else lagrangeInto(t, r <= 3.6 ? lnDnvMax : r >= 5 ? 0 : Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, i * layers);
+      // At the band's ends one layer (the array starts at 0), as lagrangeInto gives it.
+      else if (r <= 3.6) coef[i * layers + layers - 1] = 1;
+      else if (r >= 5) coef[i * layers] = 1;
+      else lagrangeInto(t, Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, i * layers);
     }
     tpNode[i] = node;
     tpFrac[i] = u - node;
@@ -437,6 +440,88 @@ function seriesPrep(p: SeaPartitionSeries, t: MomentTable, settings: ResponseSea
 }
 
 const REC: SeaPartition = { kind: 'windSea', hsM: 0, tpS: 0, dirDeg: 0 };
+
+/**
+ * The table part of {@link tabulatedMomentSeries} for one partition series (kept small, so that it
+ * is compiled quickly): adds each record's moments from the table, and lists in `pending` the
+ * records the table does not cover (outside it or missing data).
+ */
+function addFromTableSeries(
+  tab: MomentTable,
+  prep: SeriesPrep,
+  p: SeaPartitionSeries,
+  vesselHeadingDeg: number,
+  m0: Float64Array,
+  m2: Float64Array,
+  pending: number[],
+): void {
+  const { hsM, tpS, dirDeg } = p;
+  const { tpNode, tpFrac, coef } = prep;
+  const rows = tab.rows;
+  const layers = tab.gammas.length;
+  const stride = layers * V;
+  const thetaStep = tab.grid.thetaStepDeg;
+  const thetaNodes = tab.thetaNodes;
+  const n = m0.length;
+  for (let i = 0; i < n; i++) {
+    const hs = hsM[i];
+    if (hs === 0) continue;
+    const node = tpNode[i];
+    if (node < 0 || !(hs > 0) || dirDeg[i] !== dirDeg[i]) {
+      pending.push(i);
+      continue;
+    }
+    const fu = tpFrac[i];
+    // Directions and headings lie in 0-360 as a rule: one turn added or taken (no remainder, slow).
+    let theta = dirDeg[i] - vesselHeadingDeg;
+    if (theta < 0) theta += 360;
+    if (theta >= 360) theta -= 360;
+    if (!(theta >= 0 && theta < 360)) theta = ((theta % 360) + 360) % 360;
+    const v = theta / thetaStep;
+    let k = Math.floor(v);
+    const fv = v - k;
+    if (k >= thetaNodes) k -= thetaNodes;
+    const k1 = k + 1 === thetaNodes ? 0 : k + 1;
+    const rowA = rows[k] ?? rowOf(tab, k);
+    const rowB = rows[k1] ?? rowOf(tab, k1);
+    const oA = node * stride;
+    const oB = oA + stride;
+    if (rowA[oA] !== rowA[oA]) workNode(tab, rowA, node, k);
+    if (rowA[oB] !== rowA[oB]) workNode(tab, rowA, node + 1, k);
+    if (rowB[oA] !== rowB[oA]) workNode(tab, rowB, node, k1);
+    if (rowB[oB] !== rowB[oB]) workNode(tab, rowB, node + 1, k1);
+    const wAA = (1 - fu) * (1 - fv);
+    const wBA = fu * (1 - fv);
+    const wAB = (1 - fu) * fv;
+    const wBB = fu * fv;
+    let a0: number;
+    let a2: number;
+    if (coef === null) {
+      a0 = wAA * rowA[oA] + wBA * rowA[oB] + wAB * rowB[oA] + wBB * rowB[oB];
+      a2 = wAA * rowA[oA + 1] + wBA * rowA[oB + 1] + wAB * rowB[oA + 1] + wBB * rowB[oB + 1];
+    } else {
+      a0 = 0;
+      a2 = 0;
+      let cs = 0;
+      const at = i * layers;
+      for (let l = 0; l < layers; l++) {
+        const cl = coef[at + l];
+        if (cl === 0) continue;
+        cs += cl;
+        const pA = oA + l * V;
+        const pB = oB + l * V;
+        a0 += cl * (wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB]);
+        a2 += cl * (wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1]);
+      }
+      a0 /= cs;
+      a2 /= cs;
+    }
+    const h2 = hs * hs;
+    const wp = (2 * Math.PI) / tpS[i];
+    m0[i] += h2 * a0;
+    m2[i] += h2 * wp * wp * a2;
+  }
+}
 
 /**
  * Moments of one response per record of a partition series into m0 and m2 (filled), as
@@ -459,87 +544,30 @@ export function tabulatedMomentSeries(
   const acc = new Float64Array(3);
   for (const p of parts) {
     const t = momentTableFor(rao, name, p.kind, settings);
-    const prep = t ? seriesPrep(p, t, settings) : null;
-    const { hsM, tpS, dirDeg } = p;
-    const tab = t;
-    const tpNode = prep ? prep.tpNode : null;
-    const tpFrac = prep ? prep.tpFrac : null;
-    const coef = prep ? prep.coef : null;
-    const rows = tab ? tab.rows : [];
-    const layers = tab ? tab.gammas.length : 1;
-    const stride = layers * V;
-    const thetaStep = tab ? tab.grid.thetaStepDeg : 1;
-    const thetaNodes = tab ? tab.thetaNodes : 1;
-    for (let i = 0; i < n; i++) {
-      const hs = hsM[i];
+    let pending: number[] | null = null;
+    if (t) {
+      pending = [];
+      addFromTableSeries(t, seriesPrep(p, t, settings), p, vesselHeadingDeg, m0, m2, pending);
+    }
+    // Outside the table, long-crested or missing: record by record, as tabulatedResponseMoments.
+    const count = pending ? pending.length : n;
+    for (let r = 0; r < count; r++) {
+      const i = pending ? pending[r] : r;
+      const hs = p.hsM[i];
       if (hs === 0) continue;
-      const node = tpNode ? tpNode[i] : -1;
-      if (node < 0 || !(hs > 0) || dirDeg[i] !== dirDeg[i]) {
-        // Outside the table, long-crested or missing: record by record, as tabulatedResponseMoments.
-        REC.kind = p.kind;
-        REC.hsM = hs;
-        REC.tpS = tpS[i];
-        REC.dirDeg = dirDeg[i];
-        acc[0] = 0;
-        acc[1] = 0;
-        if (addPartitionMoments(rao, name, vesselHeadingDeg, REC, settings, t, acc, false)) {
-          m0[i] += acc[0];
-          m2[i] += acc[1];
-        } else {
-          m0[i] = NaN;
-          m2[i] = NaN;
-        }
-        continue;
-      }
-      const fu = tpFrac![i];
-      // Directions and headings lie in 0-360 as a rule: one turn added or taken (no remainder, slow).
-      let theta = dirDeg[i] - vesselHeadingDeg;
-      if (theta < 0) theta += 360;
-      if (theta >= 360) theta -= 360;
-      if (!(theta >= 0 && theta < 360)) theta = ((theta % 360) + 360) % 360;
-      const v = theta / thetaStep;
-      let k = Math.floor(v);
-      const fv = v - k;
-      if (k >= thetaNodes) k -= thetaNodes;
-      const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-      const rowA = rows[k] ?? rowOf(tab!, k);
-      const rowB = rows[k1] ?? rowOf(tab!, k1);
-      const oA = node * stride;
-      const oB = oA + stride;
-      if (rowA[oA] !== rowA[oA]) workNode(tab!, rowA, node, k);
-      if (rowA[oB] !== rowA[oB]) workNode(tab!, rowA, node + 1, k);
-      if (rowB[oA] !== rowB[oA]) workNode(tab!, rowB, node, k1);
-      if (rowB[oB] !== rowB[oB]) workNode(tab!, rowB, node + 1, k1);
-      const wAA = (1 - fu) * (1 - fv);
-      const wBA = fu * (1 - fv);
-      const wAB = (1 - fu) * fv;
-      const wBB = fu * fv;
-      let a0: number;
-      let a2: number;
-      if (coef === null) {
-        a0 = wAA * rowA[oA] + wBA * rowA[oB] + wAB * rowB[oA] + wBB * rowB[oB];
-        a2 = wAA * rowA[oA + 1] + wBA * rowA[oB + 1] + wAB * rowB[oA + 1] + wBB * rowB[oB + 1];
+      REC.kind = p.kind;
+      REC.hsM = hs;
+      REC.tpS = p.tpS[i];
+      REC.dirDeg = p.dirDeg[i];
+      acc[0] = 0;
+      acc[1] = 0;
+      if (addPartitionMoments(rao, name, vesselHeadingDeg, REC, settings, t, acc, false)) {
+        m0[i] += acc[0];
+        m2[i] += acc[1];
       } else {
-        a0 = 0;
-        a2 = 0;
-        let cs = 0;
-        const at = i * layers;
-        for (let l = 0; l < layers; l++) {
-          const cl = coef[at + l];
-          if (cl === 0) continue;
-          cs += cl;
-          const pA = oA + l * V;
-          const pB = oB + l * V;
-          a0 += cl * (wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB]);
-          a2 += cl * (wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1]);
-        }
-        a0 /= cs;
-        a2 /= cs;
+        m0[i] = NaN;
+        m2[i] = NaN;
       }
-      const h2 = hs * hs;
-      const wp = (2 * Math.PI) / tpS[i];
-      m0[i] += h2 * a0;
-      m2[i] += h2 * wp * wp * a2;
     }
   }
 }
