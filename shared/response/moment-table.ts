@@ -254,20 +254,40 @@ export function momentTableLookup(t: MomentTable, tpS: number, thetaDeg: number,
   const i = Math.floor(u);
   if (!(i >= 0 && i < t.tpNodes - 1)) return false;
   if (!layerCoefficients(t, gamma)) return false;
-  const fu = u - i;
-  let theta = thetaDeg % 360;
+  readTable(t, i, u - i, thetaDeg, t.gammas.length === 1 ? null : t.coef, 0, out);
+  return true;
+}
+
+/**
+ * Reads the table at Tp node i plus fraction fu and at a relative direction (any real number):
+ * bilinear over the four nodes (worked if not yet), summed over the layers with coefficients
+ * coef[at..] (null: the one layer), into out [a0, a2]. Shared by the record and the series paths.
+ */
+function readTable(
+  t: MomentTable,
+  i: number,
+  fu: number,
+  thetaDeg: number,
+  coef: Float32Array | null,
+  at: number,
+  out: Float64Array,
+): void {
+  // Directions and headings lie in 0-360 as a rule: one turn added or taken (no remainder, slow).
+  let theta = thetaDeg;
   if (theta < 0) theta += 360;
+  if (theta >= 360) theta -= 360;
+  if (!(theta >= 0 && theta < 360)) theta = ((theta % 360) + 360) % 360;
+  const thetaNodes = t.thetaNodes;
   const v = theta / t.grid.thetaStepDeg;
   let k = Math.floor(v);
   const fv = v - k;
-  if (k >= t.thetaNodes) k -= t.thetaNodes;
-  const k1 = k + 1 === t.thetaNodes ? 0 : k + 1;
-  const rowA = rowOf(t, k);
-  const rowB = rowOf(t, k1);
+  if (k >= thetaNodes) k -= thetaNodes;
+  const k1 = k + 1 === thetaNodes ? 0 : k + 1;
+  const rowA = t.rows[k] ?? rowOf(t, k);
+  const rowB = t.rows[k1] ?? rowOf(t, k1);
   const layers = t.gammas.length;
-  const stride = layers * V;
-  const oA = i * stride;
-  const oB = oA + stride;
+  const oA = i * layers * V;
+  const oB = oA + layers * V;
   if (rowA[oA] !== rowA[oA]) workNode(t, rowA, i, k);
   if (rowA[oB] !== rowA[oB]) workNode(t, rowA, i + 1, k);
   if (rowB[oA] !== rowB[oA]) workNode(t, rowB, i, k1);
@@ -276,12 +296,16 @@ export function momentTableLookup(t: MomentTable, tpS: number, thetaDeg: number,
   const wBA = fu * (1 - fv);
   const wAB = (1 - fu) * fv;
   const wBB = fu * fv;
+  if (coef === null) {
+    out[0] = wAA * rowA[oA] + wBA * rowA[oB] + wAB * rowB[oA] + wBB * rowB[oB];
+    out[1] = wAA * rowA[oA + 1] + wBA * rowA[oB + 1] + wAB * rowB[oA + 1] + wBB * rowB[oB + 1];
+    return;
+  }
   let a0 = 0;
   let a2 = 0;
   let cs = 0;
-  const c = t.coef;
   for (let l = 0; l < layers; l++) {
-    const cl = c[l];
+    const cl = coef[at + l];
     if (cl === 0) continue;
     cs += cl;
     const pA = oA + l * V;
@@ -293,7 +317,6 @@ export function momentTableLookup(t: MomentTable, tpS: number, thetaDeg: number,
   // m0 = Hs^2/16 exactly again).
   out[0] = a0 / cs;
   out[1] = a2 / cs;
-  return true;
 }
 
 const UNIT = new Float64Array(V);
@@ -457,12 +480,9 @@ function addFromTableSeries(
 ): void {
   const { hsM, tpS, dirDeg } = p;
   const { tpNode, tpFrac, coef } = prep;
-  const rows = tab.rows;
   const layers = tab.gammas.length;
-  const stride = layers * V;
-  const thetaStep = tab.grid.thetaStepDeg;
-  const thetaNodes = tab.thetaNodes;
   const n = m0.length;
+  const unit = new Float64Array(V);
   for (let i = 0; i < n; i++) {
     const hs = hsM[i];
     if (hs === 0) continue;
@@ -471,55 +491,11 @@ function addFromTableSeries(
       pending.push(i);
       continue;
     }
-    const fu = tpFrac[i];
-    // Directions and headings lie in 0-360 as a rule: one turn added or taken (no remainder, slow).
-    let theta = dirDeg[i] - vesselHeadingDeg;
-    if (theta < 0) theta += 360;
-    if (theta >= 360) theta -= 360;
-    if (!(theta >= 0 && theta < 360)) theta = ((theta % 360) + 360) % 360;
-    const v = theta / thetaStep;
-    let k = Math.floor(v);
-    const fv = v - k;
-    if (k >= thetaNodes) k -= thetaNodes;
-    const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-    const rowA = rows[k] ?? rowOf(tab, k);
-    const rowB = rows[k1] ?? rowOf(tab, k1);
-    const oA = node * stride;
-    const oB = oA + stride;
-    if (rowA[oA] !== rowA[oA]) workNode(tab, rowA, node, k);
-    if (rowA[oB] !== rowA[oB]) workNode(tab, rowA, node + 1, k);
-    if (rowB[oA] !== rowB[oA]) workNode(tab, rowB, node, k1);
-    if (rowB[oB] !== rowB[oB]) workNode(tab, rowB, node + 1, k1);
-    const wAA = (1 - fu) * (1 - fv);
-    const wBA = fu * (1 - fv);
-    const wAB = (1 - fu) * fv;
-    const wBB = fu * fv;
-    let a0: number;
-    let a2: number;
-    if (coef === null) {
-      a0 = wAA * rowA[oA] + wBA * rowA[oB] + wAB * rowB[oA] + wBB * rowB[oB];
-      a2 = wAA * rowA[oA + 1] + wBA * rowA[oB + 1] + wAB * rowB[oA + 1] + wBB * rowB[oB + 1];
-    } else {
-      a0 = 0;
-      a2 = 0;
-      let cs = 0;
-      const at = i * layers;
-      for (let l = 0; l < layers; l++) {
-        const cl = coef[at + l];
-        if (cl === 0) continue;
-        cs += cl;
-        const pA = oA + l * V;
-        const pB = oB + l * V;
-        a0 += cl * (wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB]);
-        a2 += cl * (wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1]);
-      }
-      a0 /= cs;
-      a2 /= cs;
-    }
+    readTable(tab, node, tpFrac[i], dirDeg[i] - vesselHeadingDeg, coef, i * layers, unit);
     const h2 = hs * hs;
     const wp = (2 * Math.PI) / tpS[i];
-    m0[i] += h2 * a0;
-    m2[i] += h2 * wp * wp * a2;
+    m0[i] += h2 * unit[0];
+    m2[i] += h2 * wp * wp * unit[1];
   }
 }
 

@@ -9,7 +9,7 @@
  * of response.ts, as docs/domain.md#vessel-response requires of a tabulation.
  */
 import { GRID_POINTS, GRID_X } from './jonswap';
-import { headingPosition, type PreparedRao } from './rao';
+import { headingPosition, periodSegment, type PreparedRao } from './rao';
 import { spreadingBins, type Spreading } from './spreading';
 
 /**
@@ -105,14 +105,8 @@ export function spreadPositions(rao: PreparedRao, name: string, spreading: Sprea
       q[j] = T <= pFirst ? 0 : table.periodNodes - 1;
       continue;
     }
-    let lo = 0;
-    let hi = np - 1;
-    while (hi - lo > 1) {
-      const mid = (lo + hi) >> 1;
-      if (periods[mid] <= T) lo = mid;
-      else hi = mid;
-    }
-    q[j] = (lo + (T - periods[lo]) / (periods[hi] - periods[lo])) * table.steps;
+    const lo = periodSegment(periods, T);
+    q[j] = (lo + (T - periods[lo]) / (periods[lo + 1] - periods[lo])) * table.steps;
   }
 }
 
