@@ -93,6 +93,8 @@ export interface MomentTable {
   /** Coefficients of the layers for the last gamma asked for. */
   lastGamma: number;
   coef: Float32Array;
+  /** The one layer those coefficients pick (1 there, 0 elsewhere), or -1. */
+  single: number;
 }
 
 /** Builds an empty table (`gamma`: a fixed value, or 'dnv' for layers over 1-5). */
@@ -146,6 +148,7 @@ export function createMomentTable(
     rows: new Array<Float64Array | undefined>(360 / grid.thetaStepDeg),
     lastGamma: NaN,
     coef: new Float32Array(layers),
+    single: -1,
   };
 }
 
@@ -210,14 +213,14 @@ function rowOf(t: MomentTable, k: number): Float64Array {
  * Layer coefficients of the DNV layers at s = ln(gamma / 1), 0 <= s <= ln 5, into c[at..]: one-hot at
  * a node, else the Lagrange weights times the layers' shape sums, normalised (see the module comment).
  */
-function lagrangeInto(t: MomentTable, s: number, c: Float32Array, at: number): void {
+function lagrangeInto(t: MomentTable, s: number, c: Float32Array, at: number): number {
   const layers = t.gammas.length;
   const nodes = t.lnGammas;
   let hit = -1;
   for (let k = 0; k < layers; k++) if (s === nodes[k]) hit = k;
   if (hit >= 0) {
     for (let k = 0; k < layers; k++) c[at + k] = k === hit ? 1 : 0;
-    return;
+    return hit;
   }
   let all = 1;
   for (let m = 0; m < layers; m++) all *= s - nodes[m];
@@ -231,6 +234,7 @@ function lagrangeInto(t: MomentTable, s: number, c: Float32Array, at: number): v
   // per record: the rounding, 1e-7 relative, is far below the tabulation's error.
   const inv = 1 / sum;
   for (let k = 0; k < layers; k++) c[at + k] *= inv;
+  return -1;
 }
 
 /** Layer coefficients for a gamma into t.coef; false when the gamma is outside the layers' range. */
@@ -239,10 +243,11 @@ function layerCoefficients(t: MomentTable, gamma: number): boolean {
   if (t.gammas.length === 1) {
     if (gamma !== t.gammas[0]) return false;
     t.coef[0] = 1;
+    t.single = 0;
   } else {
     if (!(gamma >= DNV_GAMMA_MIN && gamma <= DNV_RULE_MAX)) return false;
     const sMax = t.lnGammas[t.gammas.length - 1];
-    lagrangeInto(t, gamma >= DNV_GAMMA_MAX ? sMax : Math.min(sMax, Math.log(gamma / DNV_GAMMA_MIN)), t.coef, 0);
+    t.single = lagrangeInto(t, gamma >= DNV_GAMMA_MAX ? sMax : Math.min(sMax, Math.log(gamma / DNV_GAMMA_MIN)), t.coef, 0);
   }
   t.lastGamma = gamma;
   return true;
@@ -258,20 +263,22 @@ export function momentTableLookup(t: MomentTable, tpS: number, thetaDeg: number,
   const i = Math.floor(u);
   if (!(i >= 0 && i < t.tpNodes - 1)) return false;
   if (!layerCoefficients(t, gamma)) return false;
-  readTable(t, i, u - i, thetaDeg, t.gammas.length === 1 ? null : t.coef, 0, out);
+  readTable(t, i, u - i, thetaDeg, t.single, t.coef, 0, out);
   return true;
 }
 
 /**
  * Reads the table at Tp node i plus fraction fu and at a relative direction (any real number):
- * bilinear over the four nodes (worked if not yet), summed over the layers with coefficients
- * coef[at..] (null: the one layer), into out [a0, a2]. Shared by the record and the series paths.
+ * bilinear over the four nodes (worked if not yet), of layer `single`, or (single -1) summed over
+ * the layers with coefficients coef[at..], into out [a0, a2]. Shared by the record and the series
+ * paths.
  */
 function readTable(
   t: MomentTable,
   i: number,
   fu: number,
   thetaDeg: number,
+  single: number,
   coef: Float32Array | null,
   at: number,
   out: Float64Array,
@@ -300,9 +307,11 @@ function readTable(
   const wBA = fu * (1 - fv);
   const wAB = (1 - fu) * fv;
   const wBB = fu * fv;
-  if (coef === null) {
-    out[0] = wAA * rowA[oA] + wBA * rowA[oB] + wAB * rowB[oA] + wBB * rowB[oB];
-    out[1] = wAA * rowA[oA + 1] + wBA * rowA[oB + 1] + wAB * rowB[oA + 1] + wBB * rowB[oB + 1];
+  if (single >= 0 || coef === null) {
+    const pA = oA + (single > 0 ? single * V : 0);
+    const pB = oB + (single > 0 ? single * V : 0);
+    out[0] = wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB];
+    out[1] = wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1];
     return;
   }
   let a0 = 0;
@@ -426,6 +435,8 @@ interface SeriesPrep {
   tpFrac: Float64Array;
   /** [record * layers + layer]; null for a fixed gamma (one layer, coefficient 1). */
   coef: Float32Array | null;
+  /** Per record, the one layer its coefficients pick, or -1 (DNV rule only). */
+  single: Int8Array | null;
 }
 
 const preps = new WeakMap<SeaPartitionSeries, Map<string, SeriesPrep>>();
@@ -442,6 +453,7 @@ function seriesPrep(p: SeaPartitionSeries, t: MomentTable, settings: ResponseSea
   const tpNode = new Int32Array(n);
   const tpFrac = new Float64Array(n);
   const coef = dnv ? new Float32Array(n * layers) : null;
+  const single = dnv ? new Int8Array(n) : null;
   const step = t.grid.lnTpStep;
   const lnDnvMax = t.lnGammas[layers - 1];
   for (let i = 0; i < n; i++) {
@@ -454,14 +466,18 @@ function seriesPrep(p: SeaPartitionSeries, t: MomentTable, settings: ResponseSea
       const r = p.tpS[i] / Math.sqrt(hs);
       if (!(hs >= 0)) node = -1;
       // At the band's ends one layer (the array starts at 0), as lagrangeInto gives it.
-      else if (r <= 3.6) coef[i * layers + layers - 1] = 1;
-      else if (r >= 5) coef[i * layers] = 1;
-      else lagrangeInto(t, Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, i * layers);
+      else if (r <= 3.6) {
+        coef[i * layers + layers - 1] = 1;
+        single![i] = layers - 1;
+      } else if (r >= 5) {
+        coef[i * layers] = 1;
+        single![i] = 0;
+      } else single![i] = lagrangeInto(t, Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, i * layers);
     }
     tpNode[i] = node;
     tpFrac[i] = u - node;
   }
-  const prep = { tpNode, tpFrac, coef };
+  const prep = { tpNode, tpFrac, coef, single };
   perSeries.set(key, prep);
   return prep;
 }
@@ -483,7 +499,7 @@ function addFromTableSeries(
   pending: number[],
 ): void {
   const { hsM, tpS, dirDeg } = p;
-  const { tpNode, tpFrac, coef } = prep;
+  const { tpNode, tpFrac, coef, single } = prep;
   const layers = tab.gammas.length;
   const n = m0.length;
   const unit = new Float64Array(V);
@@ -495,7 +511,7 @@ function addFromTableSeries(
       pending.push(i);
       continue;
     }
-    readTable(tab, node, tpFrac[i], dirDeg[i] - vesselHeadingDeg, coef, i * layers, unit);
+    readTable(tab, node, tpFrac[i], dirDeg[i] - vesselHeadingDeg, single ? single[i] : 0, coef, i * layers, unit);
     const h2 = hs * hs;
     const wp = (2 * Math.PI) / tpS[i];
     m0[i] += h2 * unit[0];
