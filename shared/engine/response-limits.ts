@@ -12,13 +12,12 @@
  */
 import {
   DEFAULT_RESPONSE_SEA,
+  mostProbableMaximum,
   prepareRao,
-  responseStatistic,
-  tabulatedResponseMoments,
+  significantAmplitude,
+  tabulatedMomentSeries,
   type RaoTable,
-  type ResponseMoments,
   type ResponseSeaSettings,
-  type SeaPartition,
   type SeaPartitionSeries,
 } from '../response';
 import { alphaAt, type CompiledLimits } from './compiled-limits';
@@ -84,20 +83,7 @@ function momentSeries(
   if (!rao.amplitudes[name]) {
     m0.fill(NaN);
     m2.fill(NaN);
-  } else {
-    const rec: SeaPartition[] = parts.map((p) => ({ kind: p.kind, hsM: 0, tpS: 0, dirDeg: 0 }));
-    const m: ResponseMoments = { m0: 0, m2: 0, m0Outside: 0 };
-    for (let i = 0; i < n; i++) {
-      for (let k = 0; k < parts.length; k++) {
-        rec[k].hsM = parts[k].hsM[i];
-        rec[k].tpS = parts[k].tpS[i];
-        rec[k].dirDeg = parts[k].dirDeg[i];
-      }
-      tabulatedResponseMoments(rao, name, headingDeg, rec, settings, m);
-      m0[i] = m.m0;
-      m2[i] = m.m2;
-    }
-  }
+  } else tabulatedMomentSeries(rao, name, headingDeg, parts, settings, m0, m2);
   const value = { m0, m2 };
   perSeries.set(key, value);
   return value;
@@ -121,17 +107,19 @@ export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limit
     hsTotal.fill(NaN);
     return { values: limits.map(() => new Float64Array(n).fill(NaN)), hsTotal };
   }
-  for (let i = 0; i < n; i++) {
-    let e = 0;
-    for (const p of parts) e += p.hsM[i] * p.hsM[i];
-    hsTotal[i] = Math.sqrt(e);
+  for (const p of parts) {
+    const hs = p.hsM;
+    for (let i = 0; i < n; i++) hsTotal[i] += hs[i] * hs[i];
   }
+  for (let i = 0; i < n; i++) hsTotal[i] = Math.sqrt(hsTotal[i]);
   const settings = responseSettings(op.limits.responseSea);
   const values = limits.map((l) => {
     const ms = momentSeries(parts, op.vessel!.raos, op.vessel!.headingDeg, settings, l.response);
     const out = new Float64Array(n);
     const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
-    for (let i = 0; i < n; i++) out[i] = responseStatistic({ m0: ms.m0[i], m2: ms.m2[i] }, l.statistic, d);
+    const { m0, m2 } = ms;
+    if (l.statistic === 'significant') for (let i = 0; i < n; i++) out[i] = significantAmplitude(m0[i]);
+    else for (let i = 0; i < n; i++) out[i] = mostProbableMaximum(m0[i], m2[i], d);
     return out;
   });
   return { values, hsTotal };

@@ -4,4 +4,5 @@ export * from './spreading';
 export * from './rao';
 export * from './response';
 export * from './spread-table';
+export * from './moment-table';
 export * from './summary';

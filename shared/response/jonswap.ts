@@ -46,16 +46,9 @@ export function dnvGamma(hsM: number, tpS: number): number {
 
 const shapeCache = new Map<number, Float64Array>();
 
-/**
- * Weighted JONSWAP shape on the grid for one gamma: entry j = w_j * s(x_j) with s the shape in x,
- * normalised so that the entries sum to 1/16. Then for a sea of Hs and omega_p,
- * S(omega_j) * d omega_j = Hs^2 * entry_j, and the entries' sum times Hs^2 is Hs^2/16 exactly.
- */
-export function jonswapWeights(gamma: number): Float64Array {
+/** The unnormalised weighted shape w_j * s(x_j) for one gamma into `out`; returns its sum. */
+function rawShape(gamma: number, out: Float64Array): number {
   if (!(gamma >= 1 && gamma <= 20)) throw new RangeError(`JONSWAP gamma ${gamma} must be between 1 and 20`);
-  const hit = shapeCache.get(gamma);
-  if (hit) return hit;
-  const out = new Float64Array(GRID_POINTS);
   let sum = 0;
   const lnGamma = Math.log(gamma);
   for (let j = 0; j < GRID_POINTS; j++) {
@@ -68,10 +61,34 @@ export function jonswapWeights(gamma: number): Float64Array {
     out[j] = v;
     sum += v;
   }
+  return sum;
+}
+
+/**
+ * Weighted JONSWAP shape on the grid for one gamma: entry j = w_j * s(x_j) with s the shape in x,
+ * normalised so that the entries sum to 1/16. Then for a sea of Hs and omega_p,
+ * S(omega_j) * d omega_j = Hs^2 * entry_j, and the entries' sum times Hs^2 is Hs^2/16 exactly.
+ */
+export function jonswapWeights(gamma: number): Float64Array {
+  const hit = shapeCache.get(gamma);
+  if (hit) return hit;
+  const out = new Float64Array(GRID_POINTS);
+  const sum = rawShape(gamma, out);
   for (let j = 0; j < GRID_POINTS; j++) out[j] /= 16 * sum;
   if (shapeCache.size > 4096) shapeCache.clear();
   shapeCache.set(gamma, out);
   return out;
+}
+
+const SCRATCH = new Float64Array(GRID_POINTS);
+
+/**
+ * The sum of the unnormalised weighted shape for one gamma (the divisor {@link jonswapWeights}
+ * normalises by, over 16): sum_j w_j x_j^-5 exp(-1.25 x_j^-4) gamma^r_j. It is a sum of
+ * exponentials in ln gamma, as is the unnormalised sum of weights times any positive function.
+ */
+export function jonswapShapeSum(gamma: number): number {
+  return rawShape(gamma, SCRATCH);
 }
 
 /** S(omega) of one JONSWAP sea at the grid points, m^2 s/rad (for plots): Hs^2 * weights / (w_j * omega_p). */

@@ -145,16 +145,8 @@ export function raoSquaredAtPosition(amp: Float64Array, periods: Float64Array, k
     p = np - 1;
     fp = 0;
   } else {
-    // binary search for the segment
-    let lo = 0;
-    let hi = np - 1;
-    while (hi - lo > 1) {
-      const mid = (lo + hi) >> 1;
-      if (periods[mid] <= periodS) lo = mid;
-      else hi = mid;
-    }
-    p = lo;
-    fp = (periodS - periods[lo]) / (periods[hi] - periods[lo]);
+    p = periodSegment(periods, periodS);
+    fp = (periodS - periods[p]) / (periods[p + 1] - periods[p]);
   }
   const a = k * np + p;
   const b = a + np;
@@ -163,4 +155,16 @@ export function raoSquaredAtPosition(amp: Float64Array, periods: Float64Array, k
   const highRow = amp[b] + (amp[b + p1] - amp[b]) * fp;
   const v = lowRow + (highRow - lowRow) * fh;
   return v * v;
+}
+
+/** Index lo of the segment periods[lo] <= T < periods[lo + 1] holding T (binary search; periods[0] < T < the last period). */
+export function periodSegment(periods: ArrayLike<number>, T: number): number {
+  let lo = 0;
+  let hi = periods.length - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (periods[mid] <= T) lo = mid;
+    else hi = mid;
+  }
+  return lo;
 }

@@ -7,7 +7,7 @@
  * DNV-RP-C205 and DNV-RP-H103, from memory).
  */
 import { dnvGamma, GRID_POINTS, GRID_W, GRID_X, jonswapWeights } from './jonswap';
-import { headingPosition, raoSquaredAtPosition, type PreparedRao } from './rao';
+import { headingPosition, periodSegment, raoSquaredAtPosition, type PreparedRao } from './rao';
 import { spreadingBins, type Spreading } from './spreading';
 
 export type PartitionKind = 'windSea' | 'swell';
@@ -109,15 +109,9 @@ export function responseMoments(
         P_FRAC[j] = 0;
         P_OUT[j] = T < pFirst || T > pLast ? 1 : 0;
       } else {
-        let lo = 0;
-        let hi = np - 1;
-        while (hi - lo > 1) {
-          const mid = (lo + hi) >> 1;
-          if (periods[mid] <= T) lo = mid;
-          else hi = mid;
-        }
+        const lo = periodSegment(periods, T);
         P_IDX[j] = lo;
-        P_FRAC[j] = (T - periods[lo]) / (periods[hi] - periods[lo]);
+        P_FRAC[j] = (T - periods[lo]) / (periods[lo + 1] - periods[lo]);
         P_OUT[j] = 0;
       }
     }

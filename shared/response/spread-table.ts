@@ -1,18 +1,15 @@
 /**
- * Tabulated vessel response for long series (docs/domain.md#vessel-response, "for speed"): the
- * direction-spread squared RAO
+ * Direction-spread squared RAO for the moment tables (docs/domain.md#vessel-response, "for speed"):
  *   H2(T, theta) = sum over direction bins b of D_b |RAO(T, theta + offset_b)|^2
  * depends on the wave period T and the partition's mean relative direction theta only, not on the
- * partition's Hs, Tp or gamma. It is worked once per (vessel table, response, spreading) on a fine
- * grid (the RAO table's period intervals cut to about PERIOD_NODES_WANTED nodes, theta every THETA_STEP_DEG
- * degrees), and a partition's moments are then one sum over the frequency grid of the JONSWAP
- * weights times H2 interpolated bilinearly: about a hundredth of the direct integration's work.
- * A test holds the interpolation error below 0.5 % of m0 against the direct integration of
- * response.ts, as docs/domain.md#vessel-response requires of a tabulation.
+ * partition's Hs, Tp or gamma. It is kept per (vessel table, response, spreading) on a fine grid
+ * (the RAO table's period intervals cut to about PERIOD_NODES_WANTED nodes, theta every
+ * THETA_STEP_DEG degrees), a theta row worked on first use. moment-table.ts sums it against the
+ * JONSWAP weights at its nodes; the tests hold the result within 0.5 % of the direct integration
+ * of response.ts, as docs/domain.md#vessel-response requires of a tabulation.
  */
-import { GRID_POINTS, GRID_X, jonswapWeights } from './jonswap';
-import { headingPosition, type PreparedRao } from './rao';
-import { partitionGamma, responseMoments, type ResponseMoments, type ResponseSeaSettings, type SeaPartition } from './response';
+import { GRID_POINTS, GRID_X } from './jonswap';
+import { headingPosition, periodSegment, type PreparedRao } from './rao';
 import { spreadingBins, type Spreading } from './spreading';
 
 /**
@@ -24,155 +21,136 @@ const PERIOD_NODES_WANTED = 320;
 const THETA_STEP_DEG = 1;
 const THETA_NODES = 360 / THETA_STEP_DEG + 1;
 
-/** H2 on the fine grid: [thetaIndex * periodNodes + periodNode]. */
+/** H2 on the fine grid: [thetaIndex * periodNodes + periodNode]; a theta row is worked on first use. */
 interface SpreadTable {
+  rao: PreparedRao;
+  amp: Float64Array;
+  spreading: Spreading;
   /** Sub-intervals per interval of the table's periods. */
   steps: number;
   periodNodes: number;
   values: Float64Array;
+  /** 1 for a theta row worked. */
+  worked: Uint8Array;
 }
 
 const tables = new WeakMap<PreparedRao, Map<string, SpreadTable>>();
 
-/** The spread table of one response and spreading of a prepared RAO table (worked on first use). */
+/** The spread table of one response and spreading of a prepared RAO table (rows worked on first use). */
 function spreadTable(rao: PreparedRao, name: string, spreading: Spreading): SpreadTable {
   let perRao = tables.get(rao);
   if (!perRao) tables.set(rao, (perRao = new Map()));
   const key = `${name}|${spreading}`;
   const hit = perRao.get(key);
   if (hit) return hit;
-  const amp = rao.amplitudes[name];
   const np = rao.periods.length;
   const steps = Math.max(1, Math.ceil(PERIOD_NODES_WANTED / (np - 1)));
   const periodNodes = (np - 1) * steps + 1;
-  const bins = spreadingBins(spreading);
-  const values = new Float64Array(THETA_NODES * periodNodes);
-  const pos = new Float64Array(2);
-  for (let t = 0; t < THETA_NODES; t++) {
-    const row = t * periodNodes;
-    for (let b = 0; b < bins.weights.length; b++) {
-      headingPosition(rao, t * THETA_STEP_DEG + bins.offsetsDeg[b], pos);
-      const rowA = pos[0] * np;
-      const rowB = rowA + np;
-      const fh = pos[1];
-      const db = bins.weights[b];
-      for (let q = 0; q < periodNodes; q++) {
-        // The same interpolation as the direct integration: linear in period, then in heading.
-        const i = Math.min(np - 2, Math.floor(q / steps));
-        const fp = (q - i * steps) / steps;
-        const low = amp[rowA + i] + (amp[rowA + i + 1] - amp[rowA + i]) * fp;
-        const high = amp[rowB + i] + (amp[rowB + i + 1] - amp[rowB + i]) * fp;
-        const r = low + (high - low) * fh;
-        values[row + q] += db * r * r;
-      }
-    }
-  }
-  const table = { steps, periodNodes, values };
+  const table: SpreadTable = {
+    rao,
+    amp: rao.amplitudes[name],
+    spreading,
+    steps,
+    periodNodes,
+    values: new Float64Array(THETA_NODES * periodNodes),
+    worked: new Uint8Array(THETA_NODES),
+  };
   perRao.set(key, table);
   return table;
 }
 
-const Q_IDX = new Int32Array(GRID_POINTS);
-const Q_FRAC = new Float64Array(GRID_POINTS);
-const Q_OUT = new Uint8Array(GRID_POINTS);
-const ONE: ResponseMoments = { m0: 0, m2: 0, m0Outside: 0 };
+const POS = new Float64Array(2);
+
+/** Works theta row t of the table if not yet worked; returns the row's offset in `values`. */
+function spreadRow(table: SpreadTable, t: number): number {
+  const { rao, amp, steps, periodNodes, values } = table;
+  const row = t * periodNodes;
+  if (table.worked[t]) return row;
+  const np = rao.periods.length;
+  const bins = spreadingBins(table.spreading);
+  for (let b = 0; b < bins.weights.length; b++) {
+    headingPosition(rao, t * THETA_STEP_DEG + bins.offsetsDeg[b], POS);
+    const rowA = POS[0] * np;
+    const rowB = rowA + np;
+    const fh = POS[1];
+    const db = bins.weights[b];
+    for (let q = 0; q < periodNodes; q++) {
+      // The same interpolation as the direct integration: linear in period, then in heading.
+      const i = Math.min(np - 2, Math.floor(q / steps));
+      const fp = (q - i * steps) / steps;
+      const low = amp[rowA + i] + (amp[rowA + i + 1] - amp[rowA + i]) * fp;
+      const high = amp[rowB + i] + (amp[rowB + i + 1] - amp[rowB + i]) * fp;
+      const r = low + (high - low) * fh;
+      values[row + q] += db * r * r;
+    }
+  }
+  table.worked[t] = 1;
+  return row;
+}
 
 /**
- * Moments m0, m2 of one response to a list of partitions, as {@link responseMoments} gives them,
- * from the spread tables (interpolation error below 0.5 % of m0, tested). `out` is filled and returned.
+ * Positions of the frequency grid's periods T_j = Tp / x_j for one partition peak period on the
+ * spread table's fine period nodes (node index plus fraction), held at the table's ends as the
+ * direct integration holds the RAO: the same for every theta row, so worked once per Tp.
  */
-export function tabulatedResponseMoments(
-  rao: PreparedRao,
-  name: string,
-  vesselHeadingDeg: number,
-  partitions: readonly SeaPartition[],
-  settings: ResponseSeaSettings,
-  out: ResponseMoments = { m0: 0, m2: 0, m0Outside: 0 },
-): ResponseMoments {
-  if (!rao.amplitudes[name]) throw new RangeError(`the vessel has no RAO for ${name}`);
+export function spreadPositions(rao: PreparedRao, name: string, spreading: Spreading, tpS: number, q: Float64Array): void {
+  const table = spreadTable(rao, name, spreading);
   const periods = rao.periods;
   const np = periods.length;
-  // A table of one period has nothing to interpolate in period: integrate directly.
-  if (np < 2) return responseMoments(rao, name, vesselHeadingDeg, partitions, settings, out);
   const pFirst = periods[0];
   const pLast = periods[np - 1];
-  let m0 = 0;
-  let m2 = 0;
-  let outside = 0;
-  for (const p of partitions) {
-    const hs = p.hsM;
-    if (hs === 0) continue;
-    const gamma = partitionGamma(p, settings);
-    if (!(hs > 0) || !(p.tpS > 0) || p.dirDeg !== p.dirDeg || gamma !== gamma) {
-      out.m0 = NaN;
-      out.m2 = NaN;
-      out.m0Outside = NaN;
-      return out;
-    }
-    const spreading = p.kind === 'swell' ? settings.swellSpreading : settings.windSeaSpreading;
-    if (spreading === 'long-crested') {
-      // One direction: the direct integration is as cheap as a table, and exact (|RAO|^2 is
-      // quadratic in heading near its zeros, where a linear table would be 4 % out at 1 deg).
-      const one = responseMoments(rao, name, vesselHeadingDeg, [p], settings, ONE);
-      m0 += one.m0;
-      m2 += one.m2;
-      outside += one.m0Outside;
+  for (let j = 0; j < GRID_POINTS; j++) {
+    const T = tpS / GRID_X[j];
+    if (T <= pFirst || T >= pLast) {
+      q[j] = T <= pFirst ? 0 : table.periodNodes - 1;
       continue;
     }
-    const table = spreadTable(rao, name, spreading);
-    const weights = jonswapWeights(gamma);
-    // Fine period node of every grid point (held at the table's ends, as the direct integration).
-    for (let j = 0; j < GRID_POINTS; j++) {
-      const T = p.tpS / GRID_X[j];
-      if (T <= pFirst || T >= pLast) {
-        Q_IDX[j] = T <= pFirst ? 0 : table.periodNodes - 1;
-        Q_FRAC[j] = 0;
-        Q_OUT[j] = T < pFirst || T > pLast ? 1 : 0;
-      } else {
-        let lo = 0;
-        let hi = np - 1;
-        while (hi - lo > 1) {
-          const mid = (lo + hi) >> 1;
-          if (periods[mid] <= T) lo = mid;
-          else hi = mid;
-        }
-        const q = (lo + (T - periods[lo]) / (periods[hi] - periods[lo])) * table.steps;
-        const qi = Math.min(table.periodNodes - 2, Math.floor(q));
-        Q_IDX[j] = qi;
-        Q_FRAC[j] = q - qi;
-        Q_OUT[j] = 0;
-      }
-    }
-    let theta = (p.dirDeg - vesselHeadingDeg) % 360;
-    if (theta < 0) theta += 360;
-    const ti = Math.min(THETA_NODES - 2, Math.floor(theta / THETA_STEP_DEG));
-    const ft = theta / THETA_STEP_DEG - ti;
-    const rowA = ti * table.periodNodes;
-    const rowB = rowA + table.periodNodes;
-    const v = table.values;
-    let a0 = 0;
-    let a2 = 0;
-    let ao = 0;
-    for (let j = 0; j < GRID_POINTS; j++) {
-      const q = Q_IDX[j];
-      const fq = Q_FRAC[j];
-      const q1 = fq > 0 ? q + 1 : q;
-      const low = v[rowA + q] + (v[rowA + q1] - v[rowA + q]) * fq;
-      const high = v[rowB + q] + (v[rowB + q1] - v[rowB + q]) * fq;
-      const e = weights[j] * (low + (high - low) * ft);
-      const x = GRID_X[j];
-      a0 += e;
-      a2 += e * x * x;
-      if (Q_OUT[j]) ao += e;
-    }
-    const wp = (2 * Math.PI) / p.tpS;
-    const h2 = hs * hs;
-    m0 += h2 * a0;
-    m2 += h2 * a2 * wp * wp;
-    outside += h2 * ao;
+    const lo = periodSegment(periods, T);
+    q[j] = (lo + (T - periods[lo]) / (periods[lo + 1] - periods[lo])) * table.steps;
   }
-  out.m0 = m0;
-  out.m2 = m2;
-  out.m0Outside = outside;
-  return out;
+}
+
+/**
+ * H2 of the spread table at positions `q` ({@link spreadPositions}) for a whole degree of relative
+ * direction (a row of the table: no interpolation in theta), linear between the fine period nodes.
+ */
+export function spreadAtGrid(
+  rao: PreparedRao,
+  name: string,
+  spreading: Spreading,
+  thetaDeg: number,
+  q: Float64Array,
+  h2: Float64Array,
+): void {
+  if (!Number.isInteger(thetaDeg / THETA_STEP_DEG) || thetaDeg < 0 || thetaDeg >= 360)
+    throw new RangeError(`relative direction ${thetaDeg} must be a whole row of the spread table (0-359 deg)`);
+  const table = spreadTable(rao, name, spreading);
+  const v = table.values;
+  const row = spreadRow(table, thetaDeg / THETA_STEP_DEG);
+  const lastLow = table.periodNodes - 2;
+  for (let j = 0; j < GRID_POINTS; j++) {
+    const qj = q[j];
+    const qi = Math.min(lastLow, Math.floor(qj));
+    const a = v[row + qi];
+    h2[j] = a + (v[row + qi + 1] - a) * (qj - qi);
+  }
+}
+
+/**
+ * H2 at the RAO table's first and last period for a mean relative direction (linear between the
+ * table's theta rows) into `out` [first, last]: the values the direct integration holds beyond the
+ * table's periods.
+ */
+export function spreadAtPeriodEnds(rao: PreparedRao, name: string, spreading: Spreading, thetaDeg: number, out: Float64Array): void {
+  const table = spreadTable(rao, name, spreading);
+  let theta = thetaDeg % 360;
+  if (theta < 0) theta += 360;
+  const ti = Math.min(THETA_NODES - 2, Math.floor(theta / THETA_STEP_DEG));
+  const ft = theta / THETA_STEP_DEG - ti;
+  const rowA = spreadRow(table, ti);
+  const rowB = spreadRow(table, ti + 1);
+  const v = table.values;
+  const last = table.periodNodes - 1;
+  out[0] = v[rowA] + (v[rowB] - v[rowA]) * ft;
+  out[1] = v[rowA + last] + (v[rowB + last] - v[rowA + last]) * ft;
 }

@@ -1,6 +1,6 @@
 /**
- * The tabulated response (spread tables) against the direct integration it stands in for: the
- * tabulation must keep the interpolation error below 0.5 % of m0 (docs/domain.md#vessel-response
+ * The tabulated response (the moment tables over the spread tables) against the direct
+ * integration it stands in for: the tabulation must keep the interpolation error below 0.5 % of m0 (docs/domain.md#vessel-response
  * allows a tabulation only on that condition). Checked on the demo's invented vessels, whose roll
  * peaks sharply, and on a table with a zero at head seas, over random partitions of both kinds,
  * every spreading, periods inside and outside the tables, and any relative direction.

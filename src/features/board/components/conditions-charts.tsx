@@ -7,8 +7,7 @@
 import { createContext, useContext, useMemo } from 'react';
 import { ResponsiveLine, type LineCustomSvgLayerProps, type SliceTooltipProps } from '@nivo/line';
 import type { CartesianMarkerProps } from '@nivo/core';
-import { addDays, startOfDay } from 'date-fns';
-import { tz } from '@date-fns/tz';
+import { localMidnights } from '../../../lib/local-midnights';
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
 import { fmt, formatIn, responseLimitWords } from './board-format';
 import { useIsDark } from '../../../lib/use-is-dark';
@@ -42,19 +41,6 @@ export interface ConditionsChartsProps {
 
 type Pt = { x: number; y: number | null };
 type Series = { id: string; data: Pt[] };
-
-/** Midnights of the worksite's days from `fromMs` to `toMs`, every `stepDays` days, UTC ms. */
-function localMidnights(fromMs: number, toMs: number, zone: string, stepDays: number): number[] {
-  const inZone = { in: tz(zone) };
-  const out: number[] = [];
-  let d = startOfDay(fromMs, inZone);
-  if (d.getTime() < fromMs) d = addDays(d, 1, inZone);
-  while (d.getTime() <= toMs) {
-    out.push(d.getTime());
-    d = addDays(d, stepDays, inZone);
-  }
-  return out;
-}
 
 const TooltipContext = createContext<{
   zone: string;
@@ -312,7 +298,8 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
                   axis: 'x' as const,
                   value: nowMs,
                   legend: 'now',
-                  legendPosition: 'top-left' as const,
+                  // Right of the line: the forecast starts at now, so the left side is the y axis's ticks.
+                  legendPosition: 'top-right' as const,
                   lineStyle: { stroke: palette.now, strokeWidth: 2 },
                   textStyle: { fill: palette.now, fontSize: 10, fontWeight: 700 },
                 },

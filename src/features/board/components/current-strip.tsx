@@ -32,11 +32,13 @@ export function CurrentStrip({ conditions, zone }: { conditions: ConditionsAnswe
   const { times, current, currentDir, currentSource, currentStation: station, currentCautions } = conditions;
   const known = current.filter((v): v is number => v !== null);
   if (times.length < 2 || known.length === 0) {
-    return station ? (
+    return (
       <p className="text-xs text-ink-soft" data-testid="current-strip">
-        Current station {station.name}: no current in these hours.
+        {station
+          ? `Current station ${station.name}: no current in these hours.`
+          : 'No current here: the sea data has no current and the worksite has no current station (Sites & limits), so a current limit sees no data.'}
       </p>
-    ) : null;
+    );
   }
   const t0 = Date.parse(times[0]);
   const t1 = Date.parse(times[times.length - 1]);
