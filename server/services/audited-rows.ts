@@ -19,67 +19,43 @@ export interface AuditedKind<T extends AuditedTable, R extends { id: string; nam
   audited: (response: R) => unknown;
 }
 
-/** The audit entry of one change to the row `subject` (its id, and its name after the change). */
-function writeEntry<T extends AuditedTable, R extends { id: string; name: string }>(
-  tx: Db,
-  kind: AuditedKind<T, R>,
-  projectId: string,
-  user: SessionUser,
-  action: AuditAction,
-  subject: R,
-  before: unknown,
-  after: unknown,
-): Promise<void> {
-  return recordAudit(tx, { projectId, user, entity: kind.entity, entityId: subject.id, entityName: subject.name, action, before, after });
-}
+/**
+ * The writes of one kind of audited row. `insert` writes the 'create' entry; `update` writes the
+ * column values to the row `before` and an 'update' entry when an audited field changed; `remove`
+ * deletes the row and writes the 'delete' entry.
+ */
+export function auditedRows<T extends AuditedTable, R extends { id: string; name: string }>(kind: AuditedKind<T, R>) {
+  const { table } = kind;
+  const inProject = (projectId: string, id: string) => and(eq(table.projectId, projectId), eq(table.id, id));
+  /** The audit entry of one change to the row `subject` (its id, and its name after the change). */
+  const entry = (tx: Db, projectId: string, user: SessionUser, action: AuditAction, subject: R, before: unknown, after: unknown) =>
+    recordAudit(tx, { projectId, user, entity: kind.entity, entityId: subject.id, entityName: subject.name, action, before, after });
 
-/** Inserts a row of the project from its column `values` and writes the 'create' entry. */
-export async function insertAudited<T extends AuditedTable, R extends { id: string; name: string }>(
-  tx: Db,
-  kind: AuditedKind<T, R>,
-  projectId: string,
-  user: SessionUser,
-  values: Partial<T['$inferInsert']>,
-): Promise<R> {
-  const [row] = (await tx
-    .insert(kind.table)
-    .values({ projectId, ...values } as never)
-    .returning()) as T['$inferSelect'][];
-  const created = kind.toResponse(row);
-  await writeEntry(tx, kind, projectId, user, 'create', created, null, kind.audited(created));
-  return created;
-}
-
-/** Writes the column `values` to the row `before` and, when an audited field changed, the 'update' entry. */
-export async function updateAudited<T extends AuditedTable, R extends { id: string; name: string }>(
-  tx: Db,
-  kind: AuditedKind<T, R>,
-  projectId: string,
-  user: SessionUser,
-  before: R,
-  values: Partial<T['$inferInsert']>,
-): Promise<R> {
-  const [updated] = (await tx
-    .update(kind.table)
-    .set({ ...values, updatedAt: new Date() } as never)
-    .where(and(eq(kind.table.projectId, projectId), eq(kind.table.id, before.id)))
-    .returning()) as T['$inferSelect'][];
-  const after = kind.toResponse(updated);
-  if (JSON.stringify(kind.audited(before)) !== JSON.stringify(kind.audited(after))) {
-    await writeEntry(tx, kind, projectId, user, 'update', after, kind.audited(before), kind.audited(after));
-  }
-  return after;
-}
-
-/** Deletes the project's `row` and writes the 'delete' entry. */
-export async function deleteAudited<T extends AuditedTable, R extends { id: string; name: string }>(
-  tx: Db,
-  kind: AuditedKind<T, R>,
-  projectId: string,
-  user: SessionUser,
-  row: T['$inferSelect'],
-): Promise<void> {
-  const gone = kind.toResponse(row);
-  await tx.delete(kind.table).where(and(eq(kind.table.projectId, projectId), eq(kind.table.id, gone.id)));
-  await writeEntry(tx, kind, projectId, user, 'delete', gone, kind.audited(gone), null);
+  return {
+    async insert(tx: Db, projectId: string, user: SessionUser, values: Partial<T['$inferInsert']>): Promise<R> {
+      const rows = (await tx
+        .insert(table)
+        .values({ projectId, ...values } as never)
+        .returning()) as T['$inferSelect'][];
+      const created = kind.toResponse(rows[0]);
+      await entry(tx, projectId, user, 'create', created, null, kind.audited(created));
+      return created;
+    },
+    async update(tx: Db, projectId: string, user: SessionUser, before: R, values: Partial<T['$inferInsert']>): Promise<R> {
+      const rows = (await tx
+        .update(table)
+        .set({ ...values, updatedAt: new Date() } as never)
+        .where(inProject(projectId, before.id))
+        .returning()) as T['$inferSelect'][];
+      const after = kind.toResponse(rows[0]);
+      const [was, is] = [kind.audited(before), kind.audited(after)];
+      if (JSON.stringify(was) !== JSON.stringify(is)) await entry(tx, projectId, user, 'update', after, was, is);
+      return after;
+    },
+    async remove(tx: Db, projectId: string, user: SessionUser, row: T['$inferSelect']): Promise<void> {
+      const gone = kind.toResponse(row);
+      await tx.delete(table).where(inProject(projectId, gone.id));
+      await entry(tx, projectId, user, 'delete', gone, kind.audited(gone), null);
+    },
+  };
 }

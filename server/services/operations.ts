@@ -12,7 +12,7 @@ import { operation, projectMember, vessel, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { parseInput } from '../http/errors';
 import { recordAudit } from './audit';
-import { deleteAudited, insertAudited, updateAudited, type AuditedKind } from './audited-rows';
+import { auditedRows } from './audited-rows';
 import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 
 type OperationRow = typeof operation.$inferSelect;
@@ -89,12 +89,12 @@ export function auditedOperation(op: OperationResponse): Omit<OperationResponse,
 
 /** Column values of a parsed operation. */
 /** Operations in the audit trail: every field but id, recurrence and timestamps. */
-const OPERATIONS: AuditedKind<typeof operation, OperationResponse> = {
+const OPERATIONS = auditedRows<typeof operation, OperationResponse>({
   table: operation,
   entity: 'operation',
   toResponse: toOperationResponse,
   audited: auditedOperation,
-};
+});
 
 export function operationColumns(input: OperationInput) {
   return {
@@ -170,7 +170,7 @@ export async function createOperation(db: Db, projectId: string, user: SessionUs
   return db.transaction(async (tx) => {
     await assertOperationNameFree(tx, projectId, input.name);
     await assertReferences(tx, projectId, input);
-    return insertAudited(tx, OPERATIONS, projectId, user, operationColumns(input));
+    return OPERATIONS.insert(tx, projectId, user, operationColumns(input));
   });
 }
 
@@ -195,14 +195,14 @@ export async function updateOperation(
     const merged = parseInput(OperationInput, { ...current, ...changes });
     if (patch.name !== undefined) await assertOperationNameFree(tx, projectId, merged.name, operationId);
     await assertReferences(tx, projectId, merged, before);
-    return updateAudited(tx, OPERATIONS, projectId, user, before, operationColumns(merged));
+    return OPERATIONS.update(tx, projectId, user, before, operationColumns(merged));
   });
 }
 
 export async function deleteOperation(db: Db, projectId: string, user: SessionUser, operationId: string): Promise<void> {
   await db.transaction(async (tx) => {
     const row = await operationRow(tx, projectId, operationId);
-    await deleteAudited(tx, OPERATIONS, projectId, user, row);
+    await OPERATIONS.remove(tx, projectId, user, row);
   });
 }
 

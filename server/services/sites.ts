@@ -10,7 +10,7 @@ import { dataset, operation, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, parseInput } from '../http/errors';
 import { recordAudit } from './audit';
-import { deleteAudited, insertAudited, updateAudited, type AuditedKind } from './audited-rows';
+import { auditedRows } from './audited-rows';
 import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
 import { checkCurrentStation, checkTideInput } from './tide';
 import { auditedOperation, toOperationResponse } from './operations';
@@ -42,12 +42,12 @@ export function auditedSite(site: SiteResponse): Omit<SiteResponse, 'id' | 'upda
 }
 
 /** Worksites in the audit trail: every field but id and timestamps. */
-const WORKSITES: AuditedKind<typeof worksite, SiteResponse> = {
+const WORKSITES = auditedRows<typeof worksite, SiteResponse>({
   table: worksite,
   entity: 'worksite',
   toResponse: toSiteResponse,
   audited: auditedSite,
-};
+});
 
 /**
  * Column values of a parsed worksite.
@@ -102,7 +102,7 @@ export async function createSite(db: Db, projectId: string, user: SessionUser, i
   return db.transaction(async (tx) => {
     await assertSiteNameFree(tx, projectId, input.name);
     await assertHindcast(tx, projectId, input.hindcastDatasetId);
-    return insertAudited(tx, WORKSITES, projectId, user, siteColumns(input));
+    return WORKSITES.insert(tx, projectId, user, siteColumns(input));
   });
 }
 
@@ -123,7 +123,7 @@ export async function updateSite(
     const merged = parseInput(WorksiteInput, { ...auditedSite(before), ...definedOnly(patch) });
     if (patch.name !== undefined) await assertSiteNameFree(tx, projectId, merged.name, siteId);
     if (patch.hindcastDatasetId !== undefined) await assertHindcast(tx, projectId, merged.hindcastDatasetId);
-    return updateAudited(tx, WORKSITES, projectId, user, before, siteColumns(merged));
+    return WORKSITES.update(tx, projectId, user, before, siteColumns(merged));
   });
 }
 
@@ -136,7 +136,7 @@ export async function deleteSite(db: Db, projectId: string, user: SessionUser, s
   await db.transaction(async (tx) => {
     const row = await siteRow(tx, projectId, siteId);
     await removeSiteFromOperations(tx, projectId, user, siteId);
-    await deleteAudited(tx, WORKSITES, projectId, user, row);
+    await WORKSITES.remove(tx, projectId, user, row);
   });
 }
 

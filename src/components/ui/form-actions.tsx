@@ -1,13 +1,15 @@
 import { Button } from './button';
 import { ErrorNotice } from './error-notice';
 
+/** A form that edits something and locks Cancel while it saves (the setup's add-or-edit forms). */
+export const EDIT_FORM_ACTIONS = { pendingLabel: 'Saving…', cancelVariant: 'secondary', lockCancel: true } as const;
+
 /**
  * The end of a form: the error of its submission, the submit button (`pendingLabel` while it is
  * sent) and Cancel (`cancelVariant`; `lockCancel` disables it while the form is sent).
  */
 export function SubmitOrCancel({
-  pending,
-  error,
+  mutation: { isPending: pending, error },
   label,
   pendingLabel = label,
   onCancel,
@@ -15,8 +17,8 @@ export function SubmitOrCancel({
   lockCancel = false,
   className = 'flex flex-wrap gap-2',
 }: {
-  pending: boolean;
-  error: unknown;
+  /** The form's write: whether it is being sent, and its error. */
+  mutation: { isPending: boolean; error: unknown };
   label: string;
   pendingLabel?: string;
   onCancel: () => void;

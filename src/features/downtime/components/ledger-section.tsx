@@ -411,7 +411,7 @@ function ConfirmForm({ projectId, row, onDone }: { projectId: string; row: Ledge
           <Input id={`${id}-note`} value={note} invalid={!!errors.note} maxLength={2000} onChange={(e) => setNote(e.target.value)} />
         </FieldShell>
       </div>
-      <SubmitOrCancel pending={confirm.isPending} error={confirm.error} label="Confirm day" pendingLabel="Confirming…" onCancel={onDone} />
+      <SubmitOrCancel mutation={confirm} label="Confirm day" pendingLabel="Confirming…" onCancel={onDone} />
     </form>
   );
 }

@@ -23,7 +23,7 @@ export default function CreateProjectCard({ onDone }: { onDone: () => void }) {
         <FieldShell label="Description" htmlFor="project-description" error={form.formState.errors.description?.message}>
           <Input id="project-description" {...form.register('description')} />
         </FieldShell>
-        <SubmitOrCancel pending={create.isPending} error={create.error} label="Create project" onCancel={onDone} className="flex gap-2" />
+        <SubmitOrCancel mutation={create} label="Create project" onCancel={onDone} className="flex gap-2" />
       </form>
     </Card>
   );

@@ -22,7 +22,7 @@ import { fmt } from './format';
 import { HsTpPlot } from './hs-tp-plot';
 import { BED_VELOCITY_METHOD_LABEL } from './limits-summary';
 import { numberFromText, numberOrNull, textFromNumber } from './number-text';
-import { SubmitOrCancel } from '../../../components/ui/form-actions';
+import { EDIT_FORM_ACTIONS, SubmitOrCancel } from '../../../components/ui/form-actions';
 
 const pairText = z.tuple([z.string(), z.string()]);
 
@@ -749,13 +749,10 @@ export function OperationForm({
       </FormSection>
 
       <SubmitOrCancel
-        pending={mutation.isPending}
-        error={mutation.error}
+        {...EDIT_FORM_ACTIONS}
+        mutation={mutation}
         label={op ? 'Save operation' : 'Add operation'}
-        pendingLabel="Saving…"
         onCancel={() => onDone(null)}
-        cancelVariant="secondary"
-        lockCancel
       />
     </form>
   );

@@ -24,7 +24,7 @@ import {
   transferTableToText,
   type TransferTableText,
 } from './transfer-table-editor';
-import { SubmitOrCancel } from '../../../components/ui/form-actions';
+import { EDIT_FORM_ACTIONS, SubmitOrCancel } from '../../../components/ui/form-actions';
 
 const pairText = z.tuple([z.string(), z.string()]);
 
@@ -281,13 +281,10 @@ export function WorksiteForm({
       </FormSection>
 
       <SubmitOrCancel
-        pending={mutation.isPending}
-        error={mutation.error}
+        {...EDIT_FORM_ACTIONS}
+        mutation={mutation}
         label={site ? 'Save worksite' : 'Add worksite'}
-        pendingLabel="Saving…"
         onCancel={() => onDone(null)}
-        cancelVariant="secondary"
-        lockCancel
       />
     </form>
   );
