@@ -21,19 +21,25 @@ export type RegularFields = RawFields<'period' | 'height' | 'depth' | 'z'>;
 /** A 10 s swell, 2 m high, in 10 m of water: the example the handbooks like. */
 export const DEFAULT_REGULAR_FIELDS: RegularFields = { period: '10', height: '2', depth: '10', z: '' };
 
-const REGULAR_INPUTS: readonly NumberFieldSpec<keyof RegularFields>[] = [
-  { name: 'period', id: 'rw-period', label: 'Wave period T', unit: 's', hint: '0.5 to 30 s' },
-  { name: 'height', id: 'rw-height', label: 'Wave height H', unit: 'm', hint: 'Crest to trough, 0 to 40 m' },
-  { name: 'depth', id: 'rw-depth', label: 'Water depth d', unit: 'm', hint: 'Still-water depth, 0.05 to 6000 m' },
-  {
-    name: 'z',
-    id: 'rw-z',
-    label: 'Elevation z',
-    unit: 'm',
-    placeholder: 'optional',
-    hint: 'Up from still water: 0 at the surface, −d at the bed',
-  },
-];
+/** The inputs' card: its heading (for screen readers), its grid and its fields. */
+const REGULAR_INPUTS = {
+  titleId: 'regular-inputs-title',
+  title: 'Regular wave inputs',
+  className: 'grid gap-3 sm:grid-cols-2 lg:grid-cols-4',
+  fields: [
+    { name: 'period', id: 'rw-period', label: 'Wave period T', unit: 's', hint: '0.5 to 30 s' },
+    { name: 'height', id: 'rw-height', label: 'Wave height H', unit: 'm', hint: 'Crest to trough, 0 to 40 m' },
+    { name: 'depth', id: 'rw-depth', label: 'Water depth d', unit: 'm', hint: 'Still-water depth, 0.05 to 6000 m' },
+    {
+      name: 'z',
+      id: 'rw-z',
+      label: 'Elevation z',
+      unit: 'm',
+      placeholder: 'optional',
+      hint: 'Up from still water: 0 at the surface, −d at the bed',
+    },
+  ] satisfies NumberFieldSpec<keyof RegularFields>[],
+};
 
 const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
   deep: 'Deep water',
@@ -50,14 +56,7 @@ export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; 
 
   return (
     <div className="grid grid-cols-1 gap-4">
-      <InputsCard
-        titleId="regular-inputs-title"
-        title="Regular wave inputs"
-        className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4"
-        fields={REGULAR_INPUTS}
-        register={check.register}
-        errors={errors}
-      />
+      <InputsCard {...REGULAR_INPUTS} register={check.register} errors={errors} />
 
       <FirstAnswerStatus error={otherError} computing={!a && wave.isFetching} label="Computing" />
 

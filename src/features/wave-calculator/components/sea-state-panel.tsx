@@ -14,14 +14,20 @@ export type SeaStateFields = RawFields<'hs' | 'tp' | 'tz' | 'te' | 'gamma' | 'de
 
 export const DEFAULT_SEA_STATE_FIELDS: SeaStateFields = { hs: '2', tp: '10', tz: '', te: '', gamma: '', depth: '20' };
 
-const SEA_STATE_INPUTS: readonly NumberFieldSpec<keyof SeaStateFields>[] = [
-  { name: 'hs', id: 'ss-hs', label: 'Significant wave height Hs', unit: 'm', hint: 'Spectral Hm0, 0 to 25 m' },
-  { name: 'tp', id: 'ss-tp', label: 'Peak period Tp', unit: 's', hint: 'Give at least one of Tp, Tz, Te' },
-  { name: 'depth', id: 'ss-depth', label: 'Water depth d', unit: 'm', hint: '0.05 to 6000 m' },
-  { name: 'tz', id: 'ss-tz', label: 'Zero-crossing period Tz', unit: 's', placeholder: 'optional', hint: 'Derived from Tp when blank' },
-  { name: 'te', id: 'ss-te', label: 'Energy period Te', unit: 's', placeholder: 'optional', hint: 'Tm−1,0; derived from Tp when blank' },
-  { name: 'gamma', id: 'ss-gamma', label: 'Peak enhancement γ', placeholder: '3.3', hint: 'JONSWAP, 1 to 7; blank means 3.3' },
-];
+/** The inputs' card: its heading (for screen readers), its grid and its fields. */
+const SEA_STATE_INPUTS = {
+  titleId: 'sea-inputs-title',
+  title: 'Sea state inputs',
+  className: 'grid gap-3 sm:grid-cols-2 lg:grid-cols-3',
+  fields: [
+    { name: 'hs', id: 'ss-hs', label: 'Significant wave height Hs', unit: 'm', hint: 'Spectral Hm0, 0 to 25 m' },
+    { name: 'tp', id: 'ss-tp', label: 'Peak period Tp', unit: 's', hint: 'Give at least one of Tp, Tz, Te' },
+    { name: 'depth', id: 'ss-depth', label: 'Water depth d', unit: 'm', hint: '0.05 to 6000 m' },
+    { name: 'tz', id: 'ss-tz', label: 'Zero-crossing period Tz', unit: 's', placeholder: 'optional', hint: 'Derived from Tp when blank' },
+    { name: 'te', id: 'ss-te', label: 'Energy period Te', unit: 's', placeholder: 'optional', hint: 'Tm−1,0; derived from Tp when blank' },
+    { name: 'gamma', id: 'ss-gamma', label: 'Peak enhancement γ', placeholder: '3.3', hint: 'JONSWAP, 1 to 7; blank means 3.3' },
+  ] satisfies NumberFieldSpec<keyof SeaStateFields>[],
+};
 
 /** Sea-state mode: Hs and any of Tp, Tz, Te; derived periods, energy, power and bed velocity by both methods. */
 export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; onChange: (fields: SeaStateFields) => void }) {
@@ -31,14 +37,7 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
 
   return (
     <div className="grid grid-cols-1 gap-4">
-      <InputsCard
-        titleId="sea-inputs-title"
-        title="Sea state inputs"
-        className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3"
-        fields={SEA_STATE_INPUTS}
-        register={check.register}
-        errors={errors}
-      />
+      <InputsCard {...SEA_STATE_INPUTS} register={check.register} errors={errors} />
 
       <FirstAnswerStatus error={otherError} computing={!a && sea.isFetching} label="Computing" />
 

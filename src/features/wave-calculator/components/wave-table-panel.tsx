@@ -57,11 +57,17 @@ const columns = helper.columns(
   ),
 );
 
-const TABLE_INPUTS: readonly NumberFieldSpec<keyof TableFields>[] = [
-  { name: 'from', id: 'wt-from', label: 'From d/L0', hint: '0.0001 to 100' },
-  { name: 'to', id: 'wt-to', label: 'To d/L0', hint: 'Included when on the step grid' },
-  { name: 'step', id: 'wt-step', label: 'Step of d/L0', hint: 'At most 2,000 rows' },
-];
+/** The inputs' card: its heading (for screen readers), its grid and its fields. */
+const TABLE_INPUTS = {
+  titleId: 'table-inputs-title',
+  title: 'Wave table range',
+  className: 'grid gap-3 sm:grid-cols-3',
+  fields: [
+    { name: 'from', id: 'wt-from', label: 'From d/L0', hint: '0.0001 to 100' },
+    { name: 'to', id: 'wt-to', label: 'To d/L0', hint: 'Included when on the step grid' },
+    { name: 'step', id: 'wt-step', label: 'Step of d/L0', hint: 'At most 2,000 rows' },
+  ] satisfies NumberFieldSpec<keyof TableFields>[],
+};
 
 /** Wave-table mode: d/L0 range and step, a sortable table of the handbook columns, CSV download. Lazy-loaded. */
 export default function WaveTablePanel({ fields, onChange }: { fields: TableFields; onChange: (fields: TableFields) => void }) {
@@ -71,14 +77,7 @@ export default function WaveTablePanel({ fields, onChange }: { fields: TableFiel
 
   return (
     <div className="grid grid-cols-1 gap-4">
-      <InputsCard
-        titleId="table-inputs-title"
-        title="Wave table range"
-        className="grid gap-3 sm:grid-cols-3"
-        fields={TABLE_INPUTS}
-        register={check.register}
-        errors={errors}
-      />
+      <InputsCard {...TABLE_INPUTS} register={check.register} errors={errors} />
       <FirstAnswerStatus error={otherError} computing={!rows && query.isFetching} label="Computing the table" />
       {rows ? <WaveTable rows={rows} typing={typing} fetching={query.isFetching} lastValid={!check.data} /> : null}
     </div>
