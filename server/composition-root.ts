@@ -156,6 +156,11 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   });
   const schedule = startPlanningSchedule(deps, { planCron: env.PLAN_CRON, enabled: env.JOBS_ENABLED });
   const server = http.createServer(app);
+  // Keep idle connections longer than the usual 60 s idle timeout of proxies and load balancers, so
+  // the server is never the side that closes a socket a client is about to reuse (that race ends a
+  // request with a connection reset); Node's default is 5 s (common practice, no source).
+  server.keepAliveTimeout = 65_000;
+  server.headersTimeout = 66_000;
   await new Promise<void>((resolve, reject) => {
     server.once('error', reject);
     server.listen(port, host, () => resolve());
