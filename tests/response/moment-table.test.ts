@@ -18,11 +18,13 @@ import {
   momentTableLookup,
   prepareRao,
   responseMoments,
+  tabulatedMomentSeries,
   tabulatedResponseMoments,
   type MomentGrid,
   type PreparedRao,
   type ResponseMoments,
   type SeaPartition,
+  type SeaPartitionSeries,
 } from '../../shared/response';
 import { DEMO_VESSELS } from '../../seed/demo-vessels';
 
@@ -185,5 +187,59 @@ describe('per-unit-Hs moment tables', () => {
       /theta step 7/,
     );
     expect(() => createMomentTable(rao, 'no_such', 2, 5)).toThrow(/no RAO for no_such/);
+  });
+});
+
+describe('the series path of the moment tables', () => {
+  /**
+   * tabulatedMomentSeries (the engine's path for long series) must give what the record path
+   * tabulatedResponseMoments gives record by record: the same tables and arithmetic, only
+   * arranged for speed (an internal consistency check; the record path is held to the direct
+   * integration above). The series mixes what the fast path must step aside for: Hs 0, missing
+   * values, Tp outside the tables, the DNV gamma at both ends of its band and inside it, and
+   * relative directions either side of the wrap at 360 deg.
+   */
+  it('equals the record path record by record, across both partition kinds and gamma rules', () => {
+    const n = 4000;
+    const rnd = fc.sample(fc.double({ min: 0, max: 1, noNaN: true }), { numRuns: n * 6, seed: 7 });
+    let at = 0;
+    const next = () => rnd[at++ % rnd.length];
+    const series = (kind: SeaPartition['kind']): SeaPartitionSeries => {
+      const s = { kind, hsM: new Float64Array(n), tpS: new Float64Array(n), dirDeg: new Float64Array(n) };
+      for (let i = 0; i < n; i++) {
+        const u = next();
+        s.hsM[i] = i % 97 === 0 ? 0 : i % 89 === 0 ? NaN : 0.05 + 4 * next();
+        s.tpS[i] = i % 83 === 0 ? 0.5 + 0.4 * u : i % 79 === 0 ? 45 : 2 + 18 * u;
+        s.dirDeg[i] = i % 73 === 0 ? NaN : 360 * next();
+      }
+      return s;
+    };
+    const parts = [series('windSea'), series('swell')];
+    for (const settings of [DEFAULT_RESPONSE_SEA, { ...DEFAULT_RESPONSE_SEA, windSeaGamma: 2.5 }]) {
+      for (const [v, name, heading] of [
+        [0, 'roll_deg_per_m', 0],
+        [1, 'pitch_deg_per_m', 359.5],
+        [1, 'roll_deg_per_m', 181],
+      ] as const) {
+        const rao = prepareRao(DEMO_VESSELS[v].raos);
+        const m0 = new Float64Array(n);
+        const m2 = new Float64Array(n);
+        tabulatedMomentSeries(rao, name, heading, parts, settings, m0, m2);
+        let compared = 0;
+        for (let i = 0; i < n; i++) {
+          const rec = parts.map((p) => ({ kind: p.kind, hsM: p.hsM[i], tpS: p.tpS[i], dirDeg: p.dirDeg[i] }));
+          const one = tabulatedResponseMoments(rao, name, heading, rec, settings);
+          if (one.m0 !== one.m0) {
+            expect(m0[i]).toBeNaN();
+            expect(m2[i]).toBeNaN();
+            continue;
+          }
+          expect(Math.abs(m0[i] - one.m0)).toBeLessThanOrEqual(1e-9 * one.m0);
+          expect(Math.abs(m2[i] - one.m2)).toBeLessThanOrEqual(1e-9 * one.m2);
+          compared++;
+        }
+        expect(compared).toBeGreaterThan(n * 0.9);
+      }
+    }
   });
 });
