@@ -13,3 +13,14 @@ export function localMidnights(fromMs: number, toMs: number, zone: string, stepD
   }
   return out;
 }
+
+const DAY_MS = 86_400_000;
+
+/**
+ * Ticks of a date axis from `fromMs` to `toMs`: local midnights in `zone`, every whole number of
+ * days chosen so that at most `maxTicks` fall in the range (a tick never repeats a day's label).
+ */
+export function dayTicks(fromMs: number, toMs: number, zone: string, maxTicks = 6): number[] {
+  const days = Math.max(1, (toMs - fromMs) / DAY_MS);
+  return localMidnights(fromMs, toMs, zone, Math.max(1, Math.ceil(days / maxTicks)));
+}

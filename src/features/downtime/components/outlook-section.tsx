@@ -13,6 +13,7 @@ import { useOutlook, useOutlookHistory } from '../api/get-outlook';
 import { useSetStepProgress } from '../api/set-step-progress';
 import { dateIn, hours } from './format';
 import { HeadingRow } from '../../../components/ui/table';
+import { dayTicks } from '../../../lib/local-midnights';
 
 const th = 'bg-surface-2 px-2 py-2 text-left text-xs font-semibold text-ink-soft';
 const td = 'px-2 py-1 whitespace-nowrap';
@@ -301,7 +302,6 @@ export function DriftChart({ points, plannedFinish, zone }: { points: OutlookHis
     withP90.length > 0
       ? [...withP90.map((p) => `${X(p.at)},${Y(p.p90!)}`), ...[...withP90].reverse().map((p) => `${X(p.at)},${Y(p.p50)}`)].join(' ')
       : '';
-  const ticks = (a: number, b: number, n: number) => Array.from({ length: n }, (_, i) => a + ((b - a) * i) / (n - 1));
   const label = (t: number) => dateIn(new Date(t).toISOString(), zone, 'd MMM');
   return (
     <div className="flex flex-col gap-2">
@@ -313,7 +313,7 @@ export function DriftChart({ points, plannedFinish, zone }: { points: OutlookHis
         data-testid="outlook-history-chart"
       >
         <title id="drift-title">P50 and P90 finish date at each planning run{planned !== null ? ', with the planned finish' : ''}</title>
-        {ticks(y0, y1, 5).map((t) => (
+        {dayTicks(y0, y1, zone, 5).map((t) => (
           <g key={`y${t}`}>
             <line x1={m.l} x2={W - m.r} y1={Y(t)} y2={Y(t)} stroke="var(--color-line)" strokeWidth={1} />
             <text x={m.l - 6} y={Y(t) + 4} textAnchor="end" fontSize={11} fill="var(--color-ink-soft)">
@@ -321,7 +321,7 @@ export function DriftChart({ points, plannedFinish, zone }: { points: OutlookHis
             </text>
           </g>
         ))}
-        {ticks(x0, x1, 5).map((t) => (
+        {dayTicks(x0, x1, zone, 6).map((t) => (
           <text key={`x${t}`} x={X(t)} y={H - m.b + 16} textAnchor="middle" fontSize={11} fill="var(--color-ink-soft)">
             {label(t)}
           </text>
