@@ -8,6 +8,7 @@ import { createContext, useContext, useMemo } from 'react';
 import { ResponsiveLine, type LineCustomSvgLayerProps, type SliceTooltipProps } from '@nivo/line';
 import type { CartesianMarkerProps } from '@nivo/core';
 import { localMidnights } from '../../../lib/local-midnights';
+import { LABEL_HALO } from '../../../lib/chart-halo';
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
 import { fmt, formatIn, responseLimitWords } from './board-format';
 import { useIsDark } from '../../../lib/use-is-dark';
@@ -122,7 +123,7 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
     value,
     legend,
     lineStyle: { stroke: operationColour(n, isDark), strokeWidth: 2, strokeDasharray: dashed ? '6 4' : undefined },
-    textStyle: { fill: operationColour(n, isDark), fontSize: 10, fontWeight: 700 },
+    textStyle: { ...LABEL_HALO, fill: operationColour(n, isDark), fontSize: 10, fontWeight: 700 },
   });
 
   const panels: PanelSpec[] = [
@@ -237,7 +238,7 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
                 value: 1,
                 legend: 'OPLIM (R = R_lim)',
                 lineStyle: { stroke: palette.ink, strokeWidth: 1.5 },
-                textStyle: { fill: palette.ink, fontSize: 10, fontWeight: 700 },
+                textStyle: { ...LABEL_HALO, fill: palette.ink, fontSize: 10, fontWeight: 700 },
               },
             ],
             limitValues: [1],
@@ -290,8 +291,12 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
         const placed = [...p.markers(dark)]
           .sort((a, b) => Number(a.value) - Number(b.value))
           .map((m, i) => ({ ...m, legendPosition: LABEL_POSITIONS[i % LABEL_POSITIONS.length] }));
+        // Every limit line first, then every label with its halo on top (nivo draws each marker's
+        // label right after its line, so a later line would cross an earlier label); the markers'
+        // layer comes after the data lines for the same reason.
         const markers: CartesianMarkerProps[] = [
-          ...placed,
+          ...placed.map((m) => ({ ...m, legend: undefined })),
+          ...placed.map((m) => ({ ...m, lineStyle: { ...m.lineStyle, stroke: 'none' } })),
           ...(nowMs >= fromMs && nowMs <= toMs
             ? [
                 {
@@ -301,7 +306,7 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
                   // Right of the line: the forecast starts at now, so the left side is the y axis's ticks.
                   legendPosition: 'top-right' as const,
                   lineStyle: { stroke: palette.now, strokeWidth: 2 },
-                  textStyle: { fill: palette.now, fontSize: 10, fontWeight: 700 },
+                  textStyle: { ...LABEL_HALO, fill: palette.now, fontSize: 10, fontWeight: 700 },
                 },
               ]
             : []),
@@ -398,7 +403,7 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
                     axisLeft={{ tickValues: 4, tickSize: 0, tickPadding: 6 }}
                     axisBottom={{ tickValues: ticks, format: (d: number) => formatIn(d, zone, 'EEE d'), tickSize: 4 }}
                     markers={markers}
-                    layers={['grid', BandLayer, 'markers', 'axes', 'areas', LinesLayer, 'crosshair', 'slices']}
+                    layers={['grid', BandLayer, 'axes', 'areas', LinesLayer, 'markers', 'crosshair', 'slices']}
                     enableSlices="x"
                     sliceTooltip={SliceTip}
                     theme={theme}

@@ -6,6 +6,7 @@ import type { WaveProfilePoint } from '../api/get-wave-profile';
 import { useIsDark } from '../../../lib/use-is-dark';
 import { ticks as niceTicks } from 'd3-array';
 import { formatSig } from '../utils/format-number';
+import { LABEL_HALO } from '../../../lib/chart-halo';
 
 interface ProfileSeries extends LineSeries {
   id: 'u' | 'w' | 'kp';
@@ -143,6 +144,7 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
   const pressure: ProfileSeries[] = [{ id: 'kp', data: points.map((p) => ({ x: p.kp, y: p.z })) }];
   const soft = dark ? '#9fb4bc' : '#4a5d66';
   const markerText = { fill: soft, fontSize: 11, fontWeight: 600 };
+  const markerLabel = { ...LABEL_HALO, ...markerText };
   const markers: CartesianMarkerProps<number>[] = [];
   if (zM !== undefined && zM >= bottom) {
     markers.push({
@@ -151,7 +153,7 @@ export default function ProfileChart({ points, depthM, wavelengthM, zM }: Profil
       legend: `z = ${formatSig(zM)} m`,
       legendPosition: 'bottom-left',
       lineStyle: { stroke: markerText.fill, strokeDasharray: '3 3' },
-      textStyle: markerText,
+      textStyle: markerLabel,
     });
   }
   const theme = themeFor(dark);
