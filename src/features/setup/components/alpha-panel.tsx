@@ -10,7 +10,7 @@ import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/
 import { useAlpha } from '../api/get-alpha';
 import { useResetAlpha } from '../api/reset-alpha';
 import { useSaveAlpha } from '../api/save-alpha';
-import { applyServerErrors, blankAware, CellInput, errorAt, GridErrors, Tag } from './form-bits';
+import { applyServerErrors, blankAware, CellInput, errorAt, GridErrors, RemoveButton, Tag } from './form-bits';
 import { fmt } from './format';
 import { numberFromText, textFromNumber } from './number-text';
 
@@ -186,15 +186,12 @@ function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: A
                       error={errorAt(errors, `hsColumnsM.${j}`)}
                       className="w-20"
                     />
-                    <Button
-                      variant="ghost"
-                      className="mt-1 w-full !px-2 text-xs text-ink-soft"
+                    <RemoveButton
+                      label={`Remove Hs column ${j + 1}`}
                       onClick={() => removeColumn(j)}
                       disabled={t.hsColumnsM.length <= 1}
-                      aria-label={`Remove Hs column ${j + 1}`}
-                    >
-                      Remove
-                    </Button>
+                      className="mt-1 w-full"
+                    />
                   </th>
                 ))}
                 <th scope="col" className="px-2 py-2 align-bottom">
@@ -216,16 +213,12 @@ function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: A
                         error={errorAt(errors, `tpopBoundsH.${i}`)}
                         className="w-20"
                       />
-                      <Button
-                        variant="ghost"
-                        className="!px-2 text-xs text-ink-soft"
+                      <RemoveButton
+                        label={`Remove TPOP row ${i + 1}`}
+                        title="Remove this row"
                         onClick={() => removeRow(i)}
                         disabled={t.tpopBoundsH.length <= 1}
-                        aria-label={`Remove TPOP row ${i + 1}`}
-                        title="Remove this row"
-                      >
-                        Remove
-                      </Button>
+                      />
                     </div>
                   </th>
                   {t.values[i]?.map((v, j) => (

@@ -9,7 +9,7 @@ import {
   type TransferTableInput,
 } from '../../../../shared/schemas/sites';
 import { Button } from '../../../components/ui';
-import { CellInput, errorAt, GridErrors } from './form-bits';
+import { CellInput, errorAt, GridErrors, PairCells, RemoveButton, setPairAt } from './form-bits';
 import { fmt } from './format';
 import { numberFromText, textFromNumber } from './number-text';
 import { HeadingRow } from '../../../components/ui/table';
@@ -79,10 +79,8 @@ export function TransferTableEditor({
   const [csv, setCsv] = useState<{ fileName: string; issues: TransferTableCsvIssue[]; read?: string } | null>(null);
   const { directionSectorsDeg: sectors, tpBandsS: bands, factors } = value;
 
-  const setSector = (i: number, k: 0 | 1, text: string) =>
-    onChange({ ...value, directionSectorsDeg: sectors.map((s, r) => (r === i ? (k === 0 ? [text, s[1]] : [s[0], text]) : s)) });
-  const setBand = (j: number, k: 0 | 1, text: string) =>
-    onChange({ ...value, tpBandsS: bands.map((b, c) => (c === j ? (k === 0 ? [text, b[1]] : [b[0], text]) : b)) });
+  const setSector = (i: number, k: 0 | 1, text: string) => onChange({ ...value, directionSectorsDeg: setPairAt(sectors, i, k, text) });
+  const setBand = (j: number, k: 0 | 1, text: string) => onChange({ ...value, tpBandsS: setPairAt(bands, j, k, text) });
   const setFactor = (i: number, j: number, text: string) =>
     onChange({ ...value, factors: factors.map((row, r) => (r === i ? row.map((f, c) => (c === j ? text : f)) : row)) });
   const addSector = () => {
@@ -188,31 +186,22 @@ export function TransferTableEditor({
               {bands.map((b, j) => (
                 <th key={j} scope="col" className="px-1 py-2 align-bottom">
                   <div className="flex items-center gap-1">
-                    <CellInput
-                      label={`Tp band ${j + 1} from, s`}
-                      value={b[0]}
-                      onValue={(t) => setBand(j, 0, t)}
-                      error={err(`tpBandsS.${j}.0`)}
-                      className="w-16"
-                    />
-                    <span aria-hidden>–</span>
-                    <CellInput
-                      label={`Tp band ${j + 1} to, s`}
-                      value={b[1]}
-                      onValue={(t) => setBand(j, 1, t)}
-                      error={err(`tpBandsS.${j}.1`)}
+                    <PairCells
+                      pair={b}
+                      labels={[`Tp band ${j + 1} from, s`, `Tp band ${j + 1} to, s`]}
+                      errors={[err(`tpBandsS.${j}.0`), err(`tpBandsS.${j}.1`)]}
+                      onValue={(k, t) => setBand(j, k, t)}
                       className="w-16"
                     />
                   </div>
-                  <Button
-                    variant="ghost"
-                    className="mt-1 w-full !px-2 text-xs text-ink-soft"
+                  <RemoveButton
+                    label={`Remove Tp band ${j + 1}`}
                     onClick={() => removeBand(j)}
                     disabled={bands.length <= 1}
-                    aria-label={`Remove Tp band ${j + 1}`}
+                    className="mt-1 w-full"
                   >
                     Remove band
-                  </Button>
+                  </RemoveButton>
                 </th>
               ))}
               <th scope="col" className="px-1 py-2 align-bottom">
@@ -227,31 +216,19 @@ export function TransferTableEditor({
               <tr key={i} className="border-t border-line">
                 <th scope="row" className="px-2 py-1">
                   <div className="flex items-center gap-1">
-                    <CellInput
-                      label={`Sector ${i + 1} from, degrees`}
-                      value={s[0]}
-                      onValue={(t) => setSector(i, 0, t)}
-                      error={err(`directionSectorsDeg.${i}.0`)}
+                    <PairCells
+                      pair={s}
+                      labels={[`Sector ${i + 1} from, degrees`, `Sector ${i + 1} to, degrees`]}
+                      errors={[err(`directionSectorsDeg.${i}.0`), err(`directionSectorsDeg.${i}.1`)]}
+                      onValue={(k, t) => setSector(i, k, t)}
                       className="w-16"
                     />
-                    <span aria-hidden>–</span>
-                    <CellInput
-                      label={`Sector ${i + 1} to, degrees`}
-                      value={s[1]}
-                      onValue={(t) => setSector(i, 1, t)}
-                      error={err(`directionSectorsDeg.${i}.1`)}
-                      className="w-16"
-                    />
-                    <Button
-                      variant="ghost"
-                      className="!px-2 text-xs text-ink-soft"
+                    <RemoveButton
+                      label={`Remove sector ${i + 1}`}
+                      title="Remove this sector"
                       onClick={() => removeSector(i)}
                       disabled={sectors.length <= 1}
-                      aria-label={`Remove sector ${i + 1}`}
-                      title="Remove this sector"
-                    >
-                      Remove
-                    </Button>
+                    />
                   </div>
                 </th>
                 {bands.map((b, j) => (
