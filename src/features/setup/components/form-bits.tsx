@@ -69,10 +69,23 @@ export function CellInput({
   );
 }
 
+/**
+ * An editor of a list of [from, to] pairs (curve points, bands): the pairs as typed, the list to
+ * keep after an edit, and the error at a suffix of the list's path ('' the list, '.2.0' a cell).
+ */
+export interface PairListEditorProps {
+  value: [string, string][];
+  onChange: (next: [string, string][]) => void;
+  errorOf: (suffix: string) => string | undefined;
+}
+
 /** A [from, to] pair of a list with one side replaced by what was typed. */
 export function setPairAt(list: [string, string][], i: number, side: 0 | 1, text: string): [string, string][] {
   return list.map((p, r) => (r === i ? (side === 0 ? [text, p[1]] : [p[0], text]) : p));
 }
+
+/** A list without its item at `i` (a removed row or column). */
+export const withoutAt = <T,>(list: readonly T[], i: number): T[] => list.filter((_, k) => k !== i);
 
 /** The two cells of a [from, to] pair side by side ("6 – 10"), each with its own label and error. */
 export function PairCells({
@@ -97,19 +110,22 @@ export function PairCells({
   );
 }
 
-/** The small "Remove" (or other words) button of a grid's row or column, named for screen readers by `label`. */
+/**
+ * The small "Remove" (or other words) button of a grid's row or column, named for screen readers
+ * by `label`; `what` it removes gives its tooltip ("Remove this point").
+ */
 export function RemoveButton({
   label,
   onClick,
   disabled,
-  title,
+  what,
   className = '',
-  children = 'Remove',
+  children,
 }: {
   label: string;
   onClick: () => void;
   disabled?: boolean;
-  title?: string;
+  what?: string;
   className?: string;
   children?: ReactNode;
 }) {
@@ -120,9 +136,9 @@ export function RemoveButton({
       onClick={onClick}
       disabled={disabled}
       aria-label={label}
-      title={title}
+      title={what ? `Remove this ${what}` : undefined}
     >
-      {children}
+      {children ?? 'Remove'}
     </Button>
   );
 }
@@ -373,5 +389,42 @@ export function EditForm({
       {children}
       <SubmitOrCancel {...EDIT_FORM_ACTIONS} mutation={mutation} label={`${isEdit ? 'Save' : 'Add'} ${thing}`} onCancel={onCancel} />
     </form>
+  );
+}
+
+/**
+ * A file chooser shown as a button-like label (`children`): `onFile` gets the file chosen, and the
+ * same file can be chosen again after a fix.
+ */
+export function FilePicker({
+  id,
+  accept,
+  onFile,
+  children,
+}: {
+  id: string;
+  accept: string;
+  onFile: (file: File | undefined) => void;
+  children: ReactNode;
+}) {
+  return (
+    <>
+      <label
+        htmlFor={id}
+        className="inline-flex min-h-11 cursor-pointer items-center rounded-lg border border-line bg-surface-2 px-4 text-sm font-semibold hover:border-accent"
+      >
+        {children}
+      </label>
+      <input
+        id={id}
+        type="file"
+        accept={accept}
+        className="sr-only"
+        onChange={(e) => {
+          onFile(e.target.files?.[0]);
+          e.target.value = '';
+        }}
+      />
+    </>
   );
 }

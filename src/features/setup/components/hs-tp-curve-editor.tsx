@@ -1,6 +1,6 @@
 import { LIMIT_RANGES } from '../../../../shared/engine/schemas';
 import { Button } from '../../../components/ui';
-import { CellInput, GridErrors, rangeHint, RemoveButton, setPairAt } from './form-bits';
+import { CellInput, GridErrors, rangeHint, RemoveButton, setPairAt, type PairListEditorProps, withoutAt } from './form-bits';
 import { numberFromText } from './number-text';
 
 const R = LIMIT_RANGES;
@@ -13,15 +13,7 @@ const POINT_COLUMNS = [
 const SIDES = [0, 1] as const;
 
 /** The Hs–Tp limit curve as an editable point table. */
-export function CurveEditor({
-  curve,
-  onChange,
-  errorOf,
-}: {
-  curve: [string, string][];
-  onChange: (next: [string, string][]) => void;
-  errorOf: (suffix: string) => string | undefined;
-}) {
+export function CurveEditor({ value: curve, onChange, errorOf }: PairListEditorProps) {
   const add = () => {
     const last = curve[curve.length - 1];
     const tp = last ? numberFromText(last[0]) : Number.NaN;
@@ -96,11 +88,7 @@ export function CurveEditor({
                 </td>
               ))}
               <td className="py-1">
-                <RemoveButton
-                  label={`Remove curve point ${i + 1}`}
-                  title="Remove this point"
-                  onClick={() => onChange(curve.filter((_, r) => r !== i))}
-                />
+                <RemoveButton label={`Remove curve point ${i + 1}`} what="point" onClick={() => onChange(withoutAt(curve, i))} />
               </td>
             </tr>
           ))}

@@ -27,6 +27,7 @@ import {
   TickList,
   withSubject,
   type DecimalSpec,
+  type PairListEditorProps,
 } from './form-bits';
 import { CurveEditor } from './hs-tp-curve-editor';
 import { BandsEditor } from './tp-bands-editor';
@@ -276,8 +277,6 @@ export function OperationForm({
   const setSkipperIds = (next: string[]) => form.setValue('skipperIds', next, { shouldDirty: true, shouldValidate: revalidate });
   const revalidate = form.formState.isSubmitted;
 
-  const setLimitList = (key: 'hsTpCurve' | 'tpExcluded', next: [string, string][]) =>
-    form.setValue(`limits.${key}`, next, { shouldDirty: true, shouldValidate: revalidate });
   const setSiteIds = (next: string[]) => form.setValue('siteIds', next, { shouldDirty: true, shouldValidate: revalidate });
 
   const onSubmit = form.handleSubmit((parsed) => {
@@ -324,6 +323,11 @@ export function OperationForm({
 
   const f = (name: string) => `${id}-${name}`;
   const err = (path: string) => errorAt(errors as FieldErrors, path);
+  const pairList = (key: 'hsTpCurve' | 'tpExcluded'): PairListEditorProps => ({
+    value: limitsText[key],
+    onChange: (next) => form.setValue(`limits.${key}`, next, { shouldDirty: true, shouldValidate: revalidate }),
+    errorOf: (suffix) => err(`limits.${key}${suffix}`),
+  });
   const decimal = (name: DecimalName, disabled?: boolean) => {
     const { errorPaths = [name], ...spec } = DECIMAL_FIELDS[name];
     const error = errorPaths.map(err).find(Boolean);
@@ -472,11 +476,7 @@ export function OperationForm({
                 {limitsText.targetKind === 'longPeriod' ? decimal('limits.targetMinPeriod') : null}
               </div>
             ) : null}
-            <CurveEditor
-              curve={limitsText.hsTpCurve}
-              onChange={(next) => setLimitList('hsTpCurve', next)}
-              errorOf={(p) => err(`limits.hsTpCurve${p}`)}
-            />
+            <CurveEditor {...pairList('hsTpCurve')} />
           </div>
           <HsTpPlot
             limits={{
@@ -493,11 +493,7 @@ export function OperationForm({
           {decimal('limits.tpMin')}
           {decimal('limits.tpMax')}
         </div>
-        <BandsEditor
-          bands={limitsText.tpExcluded}
-          onChange={(next) => setLimitList('tpExcluded', next)}
-          errorOf={(p) => err(`limits.tpExcluded${p}`)}
-        />
+        <BandsEditor {...pairList('tpExcluded')} />
         <div className="grid gap-4 sm:grid-cols-3">
           {decimal('limits.bedVelocityMax')}
           <FieldShell

@@ -1,16 +1,8 @@
 import { Button } from '../../../components/ui';
-import { GridErrors, PairCells, RemoveButton, setPairAt } from './form-bits';
+import { GridErrors, PairCells, RemoveButton, setPairAt, type PairListEditorProps, withoutAt } from './form-bits';
 
 /** Excluded Tp bands (closed: both edges excluded), e.g. a vessel's roll resonance. */
-export function BandsEditor({
-  bands,
-  onChange,
-  errorOf,
-}: {
-  bands: [string, string][];
-  onChange: (next: [string, string][]) => void;
-  errorOf: (suffix: string) => string | undefined;
-}) {
+export function BandsEditor({ value: bands, onChange, errorOf }: PairListEditorProps) {
   const messages: { where: string; message: string }[] = [];
   bands.forEach((_, i) => {
     for (const [suffix, where] of [
@@ -39,11 +31,7 @@ export function BandsEditor({
                 className="!w-20"
               />
               <span className="text-ink-soft">s</span>
-              <RemoveButton
-                label={`Remove excluded band ${i + 1}`}
-                title="Remove this band"
-                onClick={() => onChange(bands.filter((_, r) => r !== i))}
-              />
+              <RemoveButton label={`Remove excluded band ${i + 1}`} what="band" onClick={() => onChange(withoutAt(bands, i))} />
             </li>
           ))}
         </ul>
