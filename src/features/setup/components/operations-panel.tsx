@@ -109,6 +109,13 @@ function VesselLine({ projectId, vesselId, heading }: { projectId: string; vesse
   );
 }
 
+/** The duration tiles of an operation's card: the term, any words after it, and the hours shown. */
+const DURATION_TILES = [
+  { term: 'tpop', after: null },
+  { term: 'tc', after: null },
+  { term: 'tr', after: ' = TPOP + TC' },
+] as const;
+
 function OperationCard({
   projectId,
   op,
@@ -151,24 +158,15 @@ function OperationCard({
       </p>
       {op.vesselId ? <VesselLine projectId={projectId} vesselId={op.vesselId} heading={op.heading} /> : null}
       <dl className="grid grid-cols-3 gap-2 text-center text-sm">
-        <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">
-            <Term k="tpop" />
-          </dt>
-          <dd className="font-semibold tabular-nums">{withUnit(op.tpop, 'h')}</dd>
-        </div>
-        <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">
-            <Term k="tc" />
-          </dt>
-          <dd className="font-semibold tabular-nums">{withUnit(op.tc, 'h')}</dd>
-        </div>
-        <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">
-            <Term k="tr" /> = TPOP + TC
-          </dt>
-          <dd className="font-semibold tabular-nums">{withUnit(op.tr, 'h')}</dd>
-        </div>
+        {DURATION_TILES.map(({ term, after }) => (
+          <div key={term} className="rounded-lg bg-surface-2 px-2 py-1.5">
+            <dt className="text-xs text-ink-soft">
+              <Term k={term} />
+              {after}
+            </dt>
+            <dd className="font-semibold tabular-nums">{withUnit(op[term], 'h')}</dd>
+          </div>
+        ))}
       </dl>
       <p className="text-sm">
         <span className="font-semibold">Worksites:</span> {where}
