@@ -1,5 +1,6 @@
 import { LIMIT_RANGES } from '../../../../shared/engine/schemas';
 import { Button } from '../../../components/ui';
+import { HeadingRow } from '../../../components/ui/table';
 import { CellInput, GridErrors, rangeHint, RemoveButton, setPairAt, type PairListEditorProps, withoutAt } from './form-bits';
 import { numberFromText } from './number-text';
 
@@ -60,17 +61,15 @@ export function CurveEditor({ value: curve, onChange, errorOf }: PairListEditorP
       </p>
       <table className="w-full max-w-sm text-sm">
         <thead>
-          <tr className="text-left text-xs text-ink-soft">
-            <th className="w-8 py-1 font-semibold">#</th>
-            {POINT_COLUMNS.map((c) => (
-              <th key={c.where} className="py-1 font-semibold">
-                {c.heading}
-              </th>
-            ))}
-            <th>
-              <span className="sr-only">Remove</span>
-            </th>
-          </tr>
+          <HeadingRow
+            className="text-left text-xs text-ink-soft"
+            cellClassName="py-1 font-semibold"
+            headings={[
+              { label: '#', className: 'w-8 py-1 font-semibold' },
+              ...POINT_COLUMNS.map((c) => c.heading),
+              { label: <span className="sr-only">Remove</span>, className: '' },
+            ]}
+          />
         </thead>
         <tbody>
           {curve.map((p, i) => (
