@@ -24,35 +24,29 @@ export function OperationsPanel({ projectId, canEdit }: { projectId: string; can
     useDeleteOperation(projectId),
     'Operation',
     'It leaves the watch board and the statistics; the audit trail keeps its last limits.',
+    canEdit,
   );
 
   if (ops.isPending || sites.isPending) return <Spinner label="Loading operations" />;
   if (ops.error) return <ErrorNotice error={ops.error} />;
   if (sites.error) return <ErrorNotice error={sites.error} />;
-  const editingOp = list.editing && list.editing !== 'new' ? (ops.data.find((o) => o.id === list.editing) ?? null) : null;
 
   return (
     <EditableListFrame
       list={list}
-      canEdit={canEdit}
+      items={ops.data}
       intro="Each operation’s limits (OPLIM) are tested hour by hour at its worksites. Weather-restricted operations are planned on the forecast limit OPWF = α·OPLIM for Hs."
-      addLabel="Add operation"
-      formTitle={editingOp ? `Edit “${editingOp.name}”` : 'New operation'}
-      form={
+      form={(op) => (
         <OperationForm
           key={list.editing}
           projectId={projectId}
-          op={editingOp}
+          op={op}
           sites={sites.data}
           alphaTable={alpha.data?.table}
           onDone={list.formDone}
         />
-      }
-      empty={
-        ops.data.length === 0
-          ? { title: 'No operations yet.', addHint: 'Add the operations of the campaign with their durations and weather limits.' }
-          : null
-      }
+      )}
+      empty={{ title: 'No operations yet.', addHint: 'Add the operations of the campaign with their durations and weather limits.' }}
     >
       <ul className="grid gap-3 lg:grid-cols-2" aria-label="Operations">
         {ops.data.map((o) => (
@@ -62,7 +56,7 @@ export function OperationsPanel({ projectId, canEdit }: { projectId: string; can
               op={o}
               sites={sites.data}
               alphaTable={alpha.data?.table}
-              actions={canEdit ? list.actions(o) : null}
+              actions={list.actions(o)}
               confirm={list.confirming === o.id ? list.confirmBox(o) : null}
             />
           </li>
