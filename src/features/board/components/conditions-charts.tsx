@@ -12,6 +12,7 @@ import { LABEL_HALO } from '../../../lib/chart-halo';
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
 import { fmt, formatIn, responseLimitWords } from './board-format';
 import { useIsDark } from '../../../lib/use-is-dark';
+import { DrawnLines } from '../../../components/drawn-lines';
 import { operationColour } from './operation-colours';
 import { useWidth } from '../../../lib/use-width';
 
@@ -337,19 +338,8 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
         );
         const dashedIds = new Set(p.series.filter((s) => s.dashed).map((s) => s.id));
         // The lines, drawn here rather than by the library so a second method can be dashed.
-        const LinesLayer = ({ series, lineGenerator }: LineCustomSvgLayerProps<Series>) => (
-          <g>
-            {series.map((s) => (
-              <path
-                key={s.id}
-                d={lineGenerator(s.data.map((d) => d.position)) ?? undefined}
-                fill="none"
-                stroke={s.color}
-                strokeWidth={2}
-                strokeDasharray={dashedIds.has(s.id) ? '6 4' : undefined}
-              />
-            ))}
-          </g>
+        const LinesLayer = (props: LineCustomSvgLayerProps<Series>) => (
+          <DrawnLines {...props} strokeWidth={2} dashOf={(id) => (dashedIds.has(id) ? '6 4' : undefined)} />
         );
         const summary = empty ? 'no values in this forecast' : `highest ${fmt(peak, p.decimals, p.unit)}`;
         return (

@@ -10,7 +10,8 @@ import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/
 import { useAlpha } from '../api/get-alpha';
 import { useResetAlpha } from '../api/reset-alpha';
 import { useSaveAlpha } from '../api/save-alpha';
-import { applyServerErrors, blankAware, CellInput, errorAt, GridErrors, Tag } from './form-bits';
+import { applyServerErrors, blankAware, CellInput, errorAt, GridErrors, Tag, withoutAt } from './form-bits';
+import { FactorGridEditor, FactorGridView } from './factor-grid-view';
 import { fmt } from './format';
 import { numberFromText, textFromNumber } from './number-text';
 
@@ -81,33 +82,12 @@ function AlphaView({ alpha }: { alpha: AlphaResponse }) {
   const t = alpha.table;
   return (
     <Card className="overflow-x-auto !p-0">
-      <table className="w-full text-sm tabular-nums">
-        <caption className="sr-only">Alpha factors by TPOP and Hs limit</caption>
-        <thead className="border-b border-line bg-surface-2">
-          <tr>
-            <th className="px-3 py-2 text-left text-xs font-semibold text-ink-soft">TPOP up to</th>
-            {t.hsColumnsM.map((hs, j) => (
-              <th key={j} className="px-3 py-2 text-right text-xs font-semibold text-ink-soft">
-                Hs {fmt(hs)} m
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {t.tpopBoundsH.map((h, i) => (
-            <tr key={i} className="border-b border-line last:border-0">
-              <th scope="row" className="px-3 py-2 text-left font-semibold">
-                {fmt(h)} h
-              </th>
-              {t.values[i]?.map((v, j) => (
-                <td key={j} className="px-3 py-2 text-right">
-                  {fmt(v, 3)}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <FactorGridView
+        caption="Alpha factors by TPOP and Hs limit"
+        corner="TPOP up to"
+        columns={t.hsColumnsM.map((hs) => `Hs ${fmt(hs)} m`)}
+        rows={t.tpopBoundsH.map((h, i) => ({ heading: `${fmt(h)} h`, factors: t.values[i] ?? [] }))}
+      />
     </Card>
   );
 }
@@ -130,16 +110,23 @@ function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: A
     form.setValue('values', next.values, { shouldDirty: true, shouldValidate: revalidate });
     onDone(null);
   };
-  const setBound = (i: number, text: string) => put({ ...t, tpopBoundsH: t.tpopBoundsH.map((x, r) => (r === i ? text : x)) });
-  const setColumn = (j: number, text: string) => put({ ...t, hsColumnsM: t.hsColumnsM.map((x, c) => (c === j ? text : x)) });
+  /** The input of TPOP bound (row) or Hs limit (column) `k`. */
+  const axisInput = (key: 'tpopBoundsH' | 'hsColumnsM', k: number, label: string) => (
+    <CellInput
+      label={label}
+      value={t[key][k]}
+      onValue={(text) => put({ ...t, [key]: t[key].map((x, c) => (c === k ? text : x)) })}
+      error={errorAt(errors, `${key}.${k}`)}
+      className="w-20"
+    />
+  );
   const setValue = (i: number, j: number, text: string) =>
     put({ ...t, values: t.values.map((row, r) => (r === i ? row.map((x, c) => (c === j ? text : x)) : row)) });
   const addRow = () => put({ ...t, tpopBoundsH: [...t.tpopBoundsH, ''], values: [...t.values, t.hsColumnsM.map(() => '')] });
-  const removeRow = (i: number) =>
-    put({ ...t, tpopBoundsH: t.tpopBoundsH.filter((_, r) => r !== i), values: t.values.filter((_, r) => r !== i) });
+  const removeRow = (i: number) => put({ ...t, tpopBoundsH: withoutAt(t.tpopBoundsH, i), values: withoutAt(t.values, i) });
   const addColumn = () => put({ ...t, hsColumnsM: [...t.hsColumnsM, ''], values: t.values.map((row) => [...row, '']) });
   const removeColumn = (j: number) =>
-    put({ ...t, hsColumnsM: t.hsColumnsM.filter((_, c) => c !== j), values: t.values.map((row) => row.filter((_, c) => c !== j)) });
+    put({ ...t, hsColumnsM: withoutAt(t.hsColumnsM, j), values: t.values.map((row) => withoutAt(row, j)) });
 
   const onSubmit = form.handleSubmit((table) => {
     save.mutate(table, {
@@ -167,83 +154,34 @@ function AlphaEditor({ projectId, alpha, onDone }: { projectId: string; alpha: A
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Alpha table">
       <Card className="!p-0">
         <div className="overflow-x-auto">
-          <table className="text-sm">
-            <caption className="sr-only">Alpha factors by TPOP bound (rows) and Hs limit (columns), editable</caption>
-            <thead className="border-b border-line bg-surface-2">
-              <tr>
-                <th
-                  scope="col"
-                  className="sticky left-0 z-10 bg-surface-2 px-3 py-2 text-left align-bottom text-xs font-semibold text-ink-soft"
-                >
-                  TPOP up to (h) ↓ · Hs limit (m) →
-                </th>
-                {t.hsColumnsM.map((hs, j) => (
-                  <th key={j} scope="col" className="px-1 py-2 align-bottom">
-                    <CellInput
-                      label={`Hs column ${j + 1}, m`}
-                      value={hs}
-                      onValue={(v) => setColumn(j, v)}
-                      error={errorAt(errors, `hsColumnsM.${j}`)}
-                      className="w-20"
-                    />
-                    <Button
-                      variant="ghost"
-                      className="mt-1 w-full !px-2 text-xs text-ink-soft"
-                      onClick={() => removeColumn(j)}
-                      disabled={t.hsColumnsM.length <= 1}
-                      aria-label={`Remove Hs column ${j + 1}`}
-                    >
-                      Remove
-                    </Button>
-                  </th>
-                ))}
-                <th scope="col" className="px-2 py-2 align-bottom">
-                  <Button variant="secondary" onClick={addColumn} className="whitespace-nowrap">
-                    + Hs column
-                  </Button>
-                </th>
-              </tr>
-            </thead>
-            <tbody>
-              {t.tpopBoundsH.map((h, i) => (
-                <tr key={i} className="border-b border-line last:border-0">
-                  <th scope="row" className="sticky left-0 z-10 bg-surface px-2 py-1">
-                    <div className="flex items-center gap-1">
-                      <CellInput
-                        label={`TPOP row ${i + 1} bound, h`}
-                        value={h}
-                        onValue={(v) => setBound(i, v)}
-                        error={errorAt(errors, `tpopBoundsH.${i}`)}
-                        className="w-20"
-                      />
-                      <Button
-                        variant="ghost"
-                        className="!px-2 text-xs text-ink-soft"
-                        onClick={() => removeRow(i)}
-                        disabled={t.tpopBoundsH.length <= 1}
-                        aria-label={`Remove TPOP row ${i + 1}`}
-                        title="Remove this row"
-                      >
-                        Remove
-                      </Button>
-                    </div>
-                  </th>
-                  {t.values[i]?.map((v, j) => (
-                    <td key={j} className="px-1 py-1">
-                      <CellInput
-                        label={`Alpha for TPOP up to ${h || '?'} h and Hs ${t.hsColumnsM[j] || '?'} m`}
-                        value={v}
-                        onValue={(x) => setValue(i, j, x)}
-                        error={errorAt(errors, `values.${i}.${j}`)}
-                        className="w-20"
-                      />
-                    </td>
-                  ))}
-                  <td />
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <FactorGridEditor
+            caption="Alpha factors by TPOP bound (rows) and Hs limit (columns), editable"
+            corner="TPOP up to (h) ↓ · Hs limit (m) →"
+            columns={{
+              count: t.hsColumnsM.length,
+              head: (j) => axisInput('hsColumnsM', j, `Hs column ${j + 1}, m`),
+              removeLabel: (j) => `Remove Hs column ${j + 1}`,
+              onRemove: removeColumn,
+            }}
+            addColumn={
+              <Button variant="secondary" onClick={addColumn} className="whitespace-nowrap">
+                + Hs column
+              </Button>
+            }
+            rows={{
+              count: t.tpopBoundsH.length,
+              head: (i) => axisInput('tpopBoundsH', i, `TPOP row ${i + 1} bound, h`),
+              removeLabel: (i) => `Remove TPOP row ${i + 1}`,
+              onRemove: removeRow,
+            }}
+            removeRowWhat="row"
+            cell={(i, j) => ({
+              label: `Alpha for TPOP up to ${t.tpopBoundsH[i] || '?'} h and Hs ${t.hsColumnsM[j] || '?'} m`,
+              value: t.values[i]?.[j] ?? '',
+              onValue: (x) => setValue(i, j, x),
+              error: errorAt(errors, `values.${i}.${j}`),
+            })}
+          />
         </div>
         <div className="flex flex-wrap items-center gap-3 border-t border-line p-3">
           <Button variant="secondary" onClick={addRow}>

@@ -1,5 +1,6 @@
 import { ErrorNotice } from '../../../components/ui';
 import { useTideStations } from '../api/tide-stations';
+import { StationFieldset, StationRadio } from './station-choice';
 
 const dir = (d: number | null) => (d === null ? 'not given' : `${Math.round(d)}°`);
 
@@ -30,25 +31,12 @@ export function CurrentStationField({
   if (stations.isError) return <ErrorNotice error={stations.error} />;
   const list = stations.data?.stations ?? [];
   const option = (id: string, body: React.ReactNode) => (
-    <label key={id || 'none'} className="flex min-h-11 items-start gap-3 rounded-md border border-line p-2 text-sm">
-      <input
-        type="radio"
-        name={`${idPrefix}-current-station`}
-        className="mt-1 size-5 accent-[var(--color-accent)]"
-        checked={chosen === id}
-        onChange={() => onChoose(id)}
-      />
-      <span>{body}</span>
-    </label>
+    <StationRadio key={id || 'none'} group={`${idPrefix}-current-station`} id={id} chosen={chosen} onChoose={onChoose}>
+      {body}
+    </StationRadio>
   );
   return (
-    <fieldset className="flex flex-col gap-2" data-testid="current-station-field">
-      <legend className="text-sm font-semibold">Current station</legend>
-      {error ? (
-        <p role="alert" className="text-sm text-danger">
-          {error}
-        </p>
-      ) : null}
+    <StationFieldset legend="Current station" error={error} testId="current-station-field">
       {option('', 'None: only a dataset’s own current column (no current limit data without one)')}
       {stations.isPending ? <p className="text-sm text-ink-soft">Looking for current stations…</p> : null}
       {!stations.isPending && list.length === 0 ? (
@@ -68,6 +56,6 @@ export function CurrentStationField({
       {chosen && !list.some((s) => s.id === chosen) && !stations.isPending ? (
         <p className="text-sm text-ink-soft">Chosen: {chosen} (not among the nearest stations of this position).</p>
       ) : null}
-    </fieldset>
+    </StationFieldset>
   );
 }

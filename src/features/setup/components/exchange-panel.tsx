@@ -8,6 +8,7 @@ import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/
 import { exportSetupUrl } from '../api/export-setup';
 import { useImportPreview, useImportSetup } from '../api/import-setup';
 import { withUnit } from './format';
+import { FilePicker } from './form-bits';
 
 /** Largest setup file read in the browser, bytes (the document is small: names, numbers, tables). */
 const MAX_FILE_BYTES = 5 * 1024 * 1024;
@@ -187,22 +188,9 @@ function ImportCard({ projectId }: { projectId: string }) {
       </p>
       <div className="mt-3 flex flex-col gap-4">
         <div className="flex flex-wrap items-center gap-3">
-          <label
-            htmlFor={`${id}-file`}
-            className="inline-flex min-h-11 cursor-pointer items-center rounded-lg border border-line bg-surface-2 px-4 text-sm font-semibold hover:border-accent"
-          >
+          <FilePicker id={`${id}-file`} accept=".json,application/json" onFile={(f) => void onFile(f)}>
             Choose a setup file (.json)…
-          </label>
-          <input
-            id={`${id}-file`}
-            type="file"
-            accept=".json,application/json"
-            className="sr-only"
-            onChange={(e) => {
-              void onFile(e.target.files?.[0]);
-              e.target.value = '';
-            }}
-          />
+          </FilePicker>
           {file ? <span className="text-sm break-all">{file.fileName}</span> : null}
         </div>
 

@@ -1,22 +1,20 @@
 import { LIMIT_RANGES } from '../../../../shared/engine/schemas';
 import { Button } from '../../../components/ui';
-import { CellInput, GridErrors } from './form-bits';
+import { HeadingRow } from '../../../components/ui/table';
+import { CellInput, GridErrors, rangeHint, RemoveButton, setPairAt, type PairListEditorProps, withoutAt } from './form-bits';
 import { numberFromText } from './number-text';
 
 const R = LIMIT_RANGES;
-const rangeHint = (r: { min: number; max: number }, unit: string) => `${r.min}–${r.max} ${unit}`;
+
+/** The two columns of a curve point: heading, the cell's label after "Curve point n", the error list's name. */
+const POINT_COLUMNS = [
+  { heading: 'Tp (s)', label: 'Tp, s', where: 'Tp' },
+  { heading: 'Hs max (m)', label: 'Hs max, m', where: 'Hs' },
+] as const;
+const SIDES = [0, 1] as const;
 
 /** The Hs–Tp limit curve as an editable point table. */
-export function CurveEditor({
-  curve,
-  onChange,
-  errorOf,
-}: {
-  curve: [string, string][];
-  onChange: (next: [string, string][]) => void;
-  errorOf: (suffix: string) => string | undefined;
-}) {
-  const set = (i: number, k: 0 | 1, text: string) => onChange(curve.map((p, r) => (r === i ? (k === 0 ? [text, p[1]] : [p[0], text]) : p)));
+export function CurveEditor({ value: curve, onChange, errorOf }: PairListEditorProps) {
   const add = () => {
     const last = curve[curve.length - 1];
     const tp = last ? numberFromText(last[0]) : Number.NaN;
@@ -49,10 +47,10 @@ export function CurveEditor({
   const root = errorOf('');
   if (root) messages.push({ where: 'Curve', message: root });
   curve.forEach((_, i) => {
-    const a = errorOf(`.${i}.0`);
-    const b = errorOf(`.${i}.1`);
-    if (a) messages.push({ where: `Point ${i + 1} Tp`, message: a });
-    if (b) messages.push({ where: `Point ${i + 1} Hs`, message: b });
+    for (const k of SIDES) {
+      const m = errorOf(`.${i}.${k}`);
+      if (m) messages.push({ where: `Point ${i + 1} ${POINT_COLUMNS[k].where}`, message: m });
+    }
   });
   return (
     <div className="flex flex-col gap-2">
@@ -63,47 +61,33 @@ export function CurveEditor({
       </p>
       <table className="w-full max-w-sm text-sm">
         <thead>
-          <tr className="text-left text-xs text-ink-soft">
-            <th className="w-8 py-1 font-semibold">#</th>
-            <th className="py-1 font-semibold">Tp (s)</th>
-            <th className="py-1 font-semibold">Hs max (m)</th>
-            <th>
-              <span className="sr-only">Remove</span>
-            </th>
-          </tr>
+          <HeadingRow
+            className="text-left text-xs text-ink-soft"
+            cellClassName="py-1 font-semibold"
+            headings={[
+              { label: '#', className: 'w-8 py-1 font-semibold' },
+              ...POINT_COLUMNS.map((c) => c.heading),
+              { label: <span className="sr-only">Remove</span>, className: '' },
+            ]}
+          />
         </thead>
         <tbody>
           {curve.map((p, i) => (
             <tr key={i}>
               <td className="py-1 text-ink-soft tabular-nums">{i + 1}</td>
-              <td className="py-1 pr-2">
-                <CellInput
-                  label={`Curve point ${i + 1} Tp, s`}
-                  value={p[0]}
-                  onValue={(t) => set(i, 0, t)}
-                  error={errorOf(`.${i}.0`)}
-                  className="!w-full"
-                />
-              </td>
-              <td className="py-1 pr-2">
-                <CellInput
-                  label={`Curve point ${i + 1} Hs max, m`}
-                  value={p[1]}
-                  onValue={(t) => set(i, 1, t)}
-                  error={errorOf(`.${i}.1`)}
-                  className="!w-full"
-                />
-              </td>
+              {SIDES.map((k) => (
+                <td key={k} className="py-1 pr-2">
+                  <CellInput
+                    label={`Curve point ${i + 1} ${POINT_COLUMNS[k].label}`}
+                    value={p[k]}
+                    onValue={(t) => onChange(setPairAt(curve, i, k, t))}
+                    error={errorOf(`.${i}.${k}`)}
+                    className="!w-full"
+                  />
+                </td>
+              ))}
               <td className="py-1">
-                <Button
-                  variant="ghost"
-                  className="!px-2 text-xs text-ink-soft"
-                  onClick={() => onChange(curve.filter((_, r) => r !== i))}
-                  aria-label={`Remove curve point ${i + 1}`}
-                  title="Remove this point"
-                >
-                  Remove
-                </Button>
+                <RemoveButton label={`Remove curve point ${i + 1}`} what="point" onClick={() => onChange(withoutAt(curve, i))} />
               </td>
             </tr>
           ))}

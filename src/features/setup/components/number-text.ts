@@ -1,3 +1,5 @@
+import { z } from 'zod';
+
 /**
  * Text-to-number conversion for the setup forms. Inputs keep what was typed; the shared zod
  * schemas then check numbers, so a form and the server refuse the same values with the same words.
@@ -23,4 +25,12 @@ export function numberOrNull(text: string): number | null {
 /** A number back into an input's text ('' for null or undefined). */
 export function textFromNumber(value: number | null | undefined): string {
   return value === null || value === undefined || Number.isNaN(value) ? '' : String(value);
+}
+
+/** A [from, to] pair as typed (a curve point, a band, a sector). */
+export const pairText = z.tuple([z.string(), z.string()]);
+
+/** The schema entries of text inputs kept as typed: each name a string. */
+export function textFields<K extends string>(...names: K[]): Record<K, z.ZodString> {
+  return Object.fromEntries(names.map((name) => [name, z.string()])) as Record<K, z.ZodString>;
 }

@@ -10,53 +10,46 @@ import { responseLabel, responseUnit } from '../../../../shared/response/rao';
 import { HS_TARGET_LABELS } from '../../../../shared/engine/explain-hour';
 import type { AlphaTable, OperationLimits } from '../../../../shared/engine/types';
 import { OperationInput, type OperationFormValues } from '../../../../shared/schemas/sites';
-import { Button, FieldShell, Input, PlainOptions, Select, Spinner, TextArea } from '../../../components/ui';
+import { Button, FieldShell, PlainOptions, Select, Spinner, TextArea } from '../../../components/ui';
 import { useCreateOperation } from '../api/create-operation';
 import { useUpdateOperation } from '../api/update-operation';
 import { useMembers } from '../api/get-members';
 import { useVessels } from '../../../api/vessels';
-import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
+import {
+  applyServerErrors,
+  blankAware,
+  EditForm,
+  DecimalField,
+  errorAt,
+  FormSection,
+  NameField,
+  rangeHint,
+  TickList,
+  withSubject,
+  type DecimalSpec,
+  type PairListEditorProps,
+} from './form-bits';
 import { CurveEditor } from './hs-tp-curve-editor';
 import { BandsEditor } from './tp-bands-editor';
 import { fmt } from './format';
 import { HsTpPlot } from './hs-tp-plot';
 import { BED_VELOCITY_METHOD_LABEL } from './limits-summary';
-import { numberFromText, numberOrNull, textFromNumber } from './number-text';
-import { EDIT_FORM_ACTIONS, SubmitOrCancel } from '../../../components/ui/form-actions';
+import { numberFromText, numberOrNull, pairText, textFields, textFromNumber } from './number-text';
 
-const pairText = z.tuple([z.string(), z.string()]);
-
-/** The operation form as typed: the request body's field names, numbers as text. */
+/** The operation form as typed: the request body's field names, numbers as text; vesselId '' is no vessel. */
 const OperationText = z.object({
-  name: z.string(),
-  description: z.string(),
-  tpop: z.string(),
-  tc: z.string(),
+  ...textFields('name', 'description', 'tpop', 'tc', 'vesselId', 'heading'),
   weatherRestricted: z.boolean(),
   siteIds: z.array(z.string()),
   skipperIds: z.array(z.string()),
-  /** '' = no vessel */
-  vesselId: z.string(),
-  heading: z.string(),
   limits: z.object({
-    hsMax: z.string(),
+    ...textFields('hsMax', 'tpMin', 'tpMax', 'bedVelocityMax', 'windMax', 'draught', 'clearance', 'maxDepth', 'currentMax'),
+    ...textFields('tideBefore', 'tideAfter', 'targetMax', 'targetMinPeriod'),
     hsTpCurve: z.array(pairText),
-    tpMin: z.string(),
-    tpMax: z.string(),
     tpExcluded: z.array(pairText),
-    bedVelocityMax: z.string(),
     bedVelocityMethod: z.enum(BED_VELOCITY_METHODS),
-    windMax: z.string(),
-    draught: z.string(),
-    clearance: z.string(),
-    maxDepth: z.string(),
-    currentMax: z.string(),
     tideReference: z.enum(['none', ...TIDE_REFERENCES]),
-    tideBefore: z.string(),
-    tideAfter: z.string(),
     targetKind: z.enum(['none', ...HS_TARGETS]),
-    targetMax: z.string(),
-    targetMinPeriod: z.string(),
     responses: z.array(
       z.object({ response: z.string(), statistic: z.enum(RESPONSE_STATISTICS), durationH: z.string().optional(), max: z.string() }),
     ),
@@ -177,7 +170,74 @@ function initialValues(op: OperationResponse | null): OperationText {
 }
 
 const R = LIMIT_RANGES;
-const rangeHint = (r: { min: number; max: number }, unit: string) => `${r.min}–${r.max} ${unit}`;
+
+type DecimalName =
+  | 'tpop'
+  | 'tc'
+  | 'heading'
+  | `limits.${'hsMax' | 'targetMax' | 'targetMinPeriod' | 'tpMin' | 'tpMax' | 'bedVelocityMax' | 'windMax'}`
+  | `limits.${'draught' | 'clearance' | 'maxDepth' | 'currentMax' | 'tideBefore' | 'tideAfter'}`;
+
+/**
+ * The form's decimal fields: id, label, unit and hint, and the body paths whose error they show
+ * where those are not the field's own name (the first error found is shown).
+ */
+const DECIMAL_FIELDS: Record<DecimalName, Omit<DecimalSpec<DecimalName>, 'name'> & { errorPaths?: readonly string[] }> = {
+  tpop: {
+    id: 'tpop',
+    label: 'Planned duration TPOP',
+    unit: 'h',
+    hint: `Time the operation takes in workable weather, ${rangeHint(R.tpopH, 'h')}.`,
+  },
+  tc: { id: 'tc', label: 'Contingency TC', unit: 'h', hint: `Allowance for delays and uncertainty in TPOP, ${rangeHint(R.tcH, 'h')}.` },
+  'limits.hsMax': { id: 'hsmax', label: 'Hs max', unit: 'm', hint: `Significant wave height at the worksite, ${rangeHint(R.hsM, 'm')}.` },
+  'limits.targetMax': { id: 'hstargetmax', label: 'Hs max (target)', unit: 'm', errorPaths: ['limits.hsTargets.0.max'] },
+  'limits.targetMinPeriod': { id: 'hstargett', label: 'T*', unit: 's', errorPaths: ['limits.hsTargets.0.minPeriodS'] },
+  'limits.tpMin': { id: 'tpmin', label: 'Tp min', unit: 's', hint: `Peak period, ${rangeHint(R.tpS, 's')}.` },
+  'limits.tpMax': { id: 'tpmax', label: 'Tp max', unit: 's', hint: `Peak period, ${rangeHint(R.tpS, 's')}.` },
+  'limits.bedVelocityMax': {
+    id: 'ub',
+    label: 'Near-bed orbital velocity max',
+    unit: 'm/s',
+    hint: `Significant amplitude at the seabed, ${rangeHint(R.bedVelocityMps, 'm/s')}.`,
+  },
+  'limits.windMax': { id: 'wind', label: 'Wind max', unit: 'm/s', hint: `Mean wind speed at 10 m, ${rangeHint(R.windMps, 'm/s')}.` },
+  heading: {
+    id: 'heading',
+    label: 'Vessel heading',
+    unit: 'deg true',
+    hint: "The fixed heading the vessel keeps, 0–360° true; each hour the sea's direction relative to it picks the RAO.",
+  },
+  'limits.draught': {
+    id: 'draught',
+    label: 'Draught',
+    unit: 'm',
+    hint: 'Min depth = draught + under-keel clearance.',
+    errorPaths: ['limits.minDepthParts.draught', 'limits.minDepth'],
+  },
+  'limits.clearance': { id: 'ukc', label: 'Under-keel clearance', unit: 'm', errorPaths: ['limits.minDepthParts.clearance'] },
+  'limits.maxDepth': { id: 'maxdepth', label: 'Max depth', unit: 'm', hint: `Still-water depth, ${rangeHint(R.depthM, 'm')}.` },
+  'limits.currentMax': {
+    id: 'current',
+    label: 'Current max',
+    unit: 'm/s',
+    hint: `Current speed, ${rangeHint(R.currentMps, 'm/s')}: the dataset’s current, else the worksite’s predicted tidal current (no data without either).`,
+  },
+  'limits.tideBefore': {
+    id: 'tidebefore',
+    label: 'Hours before',
+    unit: 'h',
+    hint: rangeHint(R.tideWindowH, 'h'),
+    errorPaths: ['limits.tideWindow.before'],
+  },
+  'limits.tideAfter': {
+    id: 'tideafter',
+    label: 'Hours after',
+    unit: 'h',
+    hint: rangeHint(R.tideWindowH, 'h'),
+    errorPaths: ['limits.tideWindow.after'],
+  },
+};
 
 /** Add or edit an operation with its limits. `op` null adds one. */
 export function OperationForm({
@@ -217,8 +277,6 @@ export function OperationForm({
   const setSkipperIds = (next: string[]) => form.setValue('skipperIds', next, { shouldDirty: true, shouldValidate: revalidate });
   const revalidate = form.formState.isSubmitted;
 
-  const setLimitList = (key: 'hsTpCurve' | 'tpExcluded', next: [string, string][]) =>
-    form.setValue(`limits.${key}`, next, { shouldDirty: true, shouldValidate: revalidate });
   const setSiteIds = (next: string[]) => form.setValue('siteIds', next, { shouldDirty: true, shouldValidate: revalidate });
 
   const onSubmit = form.handleSubmit((parsed) => {
@@ -265,13 +323,21 @@ export function OperationForm({
 
   const f = (name: string) => `${id}-${name}`;
   const err = (path: string) => errorAt(errors as FieldErrors, path);
+  const pairList = (key: 'hsTpCurve' | 'tpExcluded'): PairListEditorProps => ({
+    value: limitsText[key],
+    onChange: (next) => form.setValue(`limits.${key}`, next, { shouldDirty: true, shouldValidate: revalidate }),
+    errorOf: (suffix) => err(`limits.${key}${suffix}`),
+  });
+  const decimal = (name: DecimalName, disabled?: boolean) => {
+    const { errorPaths = [name], ...spec } = DECIMAL_FIELDS[name];
+    const error = errorPaths.map(err).find(Boolean);
+    return <DecimalField {...spec} id={f(spec.id)} error={error} registration={form.register(name)} disabled={disabled} />;
+  };
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label={op ? `Edit operation ${op.name}` : 'New operation'}>
+    <EditForm thing="operation" editing={op?.name} onSubmit={onSubmit} mutation={mutation} onCancel={() => onDone(null)}>
       <div className="grid gap-4 sm:grid-cols-2">
-        <FieldShell label="Name" htmlFor={f('name')} error={withSubject('Name', errors.name?.message)}>
-          <Input id={f('name')} autoComplete="off" {...form.register('name')} invalid={!!errors.name} />
-        </FieldShell>
+        <NameField id={f('name')} error={errors.name?.message} registration={form.register('name')} />
         <FieldShell
           label="Description"
           htmlFor={f('desc')}
@@ -284,24 +350,8 @@ export function OperationForm({
 
       <FormSection id={f('time')} title="Duration">
         <div className="grid gap-4 sm:grid-cols-3">
-          <FieldShell
-            label="Planned duration TPOP"
-            unit="h"
-            htmlFor={f('tpop')}
-            error={errors.tpop?.message}
-            hint={`Time the operation takes in workable weather, ${rangeHint(R.tpopH, 'h')}.`}
-          >
-            <Input id={f('tpop')} inputMode="decimal" {...form.register('tpop')} invalid={!!errors.tpop} />
-          </FieldShell>
-          <FieldShell
-            label="Contingency TC"
-            unit="h"
-            htmlFor={f('tc')}
-            error={errors.tc?.message}
-            hint={`Allowance for delays and uncertainty in TPOP, ${rangeHint(R.tcH, 'h')}.`}
-          >
-            <Input id={f('tc')} inputMode="decimal" {...form.register('tc')} invalid={!!errors.tc} />
-          </FieldShell>
+          {decimal('tpop')}
+          {decimal('tc')}
           <div className="flex flex-col gap-1">
             <span className="text-sm font-semibold">
               Reference period TR <span className="font-normal text-ink-soft">(h)</span>
@@ -369,22 +419,13 @@ export function OperationForm({
         {sites.length === 0 ? (
           <p className="text-sm text-ink-soft">No worksites yet: the operation will apply to every worksite added later.</p>
         ) : (
-          <div className="grid gap-x-4 sm:grid-cols-2">
-            {sites.map((s) => {
-              const checked = siteIds.includes(s.id);
-              return (
-                <label key={s.id} className="flex min-h-11 items-center gap-3 text-sm">
-                  <input
-                    type="checkbox"
-                    className="size-5 accent-[var(--color-accent)]"
-                    checked={checked}
-                    onChange={(e) => setSiteIds(e.target.checked ? [...siteIds, s.id] : siteIds.filter((x) => x !== s.id))}
-                  />
-                  {s.name} <span className="text-ink-soft">({fmt(s.depth)} m)</span>
-                </label>
-              );
-            })}
-          </div>
+          <TickList items={sites} idOf={(s) => s.id} chosen={siteIds} onChange={setSiteIds}>
+            {(s) => (
+              <>
+                {s.name} <span className="text-ink-soft">({fmt(s.depth)} m)</span>
+              </>
+            )}
+          </TickList>
         )}
       </FormSection>
 
@@ -399,19 +440,13 @@ export function OperationForm({
             No skippers in this project yet: an administrator adds people on the People &amp; access page.
           </p>
         ) : (
-          <div className="grid gap-x-4 sm:grid-cols-2">
-            {skippers.map((m) => (
-              <label key={m.userId} className="flex min-h-11 items-center gap-3 text-sm">
-                <input
-                  type="checkbox"
-                  className="size-5 accent-[var(--color-accent)]"
-                  checked={skipperIds.includes(m.userId)}
-                  onChange={(e) => setSkipperIds(e.target.checked ? [...skipperIds, m.userId] : skipperIds.filter((x) => x !== m.userId))}
-                />
+          <TickList items={skippers} idOf={(m) => m.userId} chosen={skipperIds} onChange={setSkipperIds}>
+            {(m) => (
+              <>
                 {m.name} <span className="text-ink-soft">({m.email})</span>
-              </label>
-            ))}
-          </div>
+              </>
+            )}
+          </TickList>
         )}
       </FormSection>
 
@@ -423,15 +458,7 @@ export function OperationForm({
       >
         <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
           <div className="flex min-w-0 flex-col gap-4">
-            <FieldShell
-              label="Hs max"
-              unit="m"
-              htmlFor={f('hsmax')}
-              error={err('limits.hsMax')}
-              hint={`Significant wave height at the worksite, ${rangeHint(R.hsM, 'm')}.`}
-            >
-              <Input id={f('hsmax')} inputMode="decimal" {...form.register('limits.hsMax')} invalid={!!err('limits.hsMax')} />
-            </FieldShell>
+            {decimal('limits.hsMax')}
             <FieldShell
               label="Hs max on"
               htmlFor={f('hstarget')}
@@ -445,31 +472,11 @@ export function OperationForm({
             </FieldShell>
             {limitsText.targetKind !== 'none' ? (
               <div className="grid gap-4 sm:grid-cols-2">
-                <FieldShell label="Hs max (target)" unit="m" htmlFor={f('hstargetmax')} error={err('limits.hsTargets.0.max')}>
-                  <Input
-                    id={f('hstargetmax')}
-                    inputMode="decimal"
-                    {...form.register('limits.targetMax')}
-                    invalid={!!err('limits.hsTargets.0.max')}
-                  />
-                </FieldShell>
-                {limitsText.targetKind === 'longPeriod' ? (
-                  <FieldShell label="T*" unit="s" htmlFor={f('hstargett')} error={err('limits.hsTargets.0.minPeriodS')}>
-                    <Input
-                      id={f('hstargett')}
-                      inputMode="decimal"
-                      {...form.register('limits.targetMinPeriod')}
-                      invalid={!!err('limits.hsTargets.0.minPeriodS')}
-                    />
-                  </FieldShell>
-                ) : null}
+                {decimal('limits.targetMax')}
+                {limitsText.targetKind === 'longPeriod' ? decimal('limits.targetMinPeriod') : null}
               </div>
             ) : null}
-            <CurveEditor
-              curve={limitsText.hsTpCurve}
-              onChange={(next) => setLimitList('hsTpCurve', next)}
-              errorOf={(p) => err(`limits.hsTpCurve${p}`)}
-            />
+            <CurveEditor {...pairList('hsTpCurve')} />
           </div>
           <HsTpPlot
             limits={{
@@ -483,40 +490,12 @@ export function OperationForm({
           />
         </div>
         <div className="grid gap-4 sm:grid-cols-2">
-          <FieldShell
-            label="Tp min"
-            unit="s"
-            htmlFor={f('tpmin')}
-            error={err('limits.tpMin')}
-            hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}
-          >
-            <Input id={f('tpmin')} inputMode="decimal" {...form.register('limits.tpMin')} invalid={!!err('limits.tpMin')} />
-          </FieldShell>
-          <FieldShell
-            label="Tp max"
-            unit="s"
-            htmlFor={f('tpmax')}
-            error={err('limits.tpMax')}
-            hint={`Peak period, ${rangeHint(R.tpS, 's')}.`}
-          >
-            <Input id={f('tpmax')} inputMode="decimal" {...form.register('limits.tpMax')} invalid={!!err('limits.tpMax')} />
-          </FieldShell>
+          {decimal('limits.tpMin')}
+          {decimal('limits.tpMax')}
         </div>
-        <BandsEditor
-          bands={limitsText.tpExcluded}
-          onChange={(next) => setLimitList('tpExcluded', next)}
-          errorOf={(p) => err(`limits.tpExcluded${p}`)}
-        />
+        <BandsEditor {...pairList('tpExcluded')} />
         <div className="grid gap-4 sm:grid-cols-3">
-          <FieldShell
-            label="Near-bed orbital velocity max"
-            unit="m/s"
-            htmlFor={f('ub')}
-            error={err('limits.bedVelocityMax')}
-            hint={`Significant amplitude at the seabed, ${rangeHint(R.bedVelocityMps, 'm/s')}.`}
-          >
-            <Input id={f('ub')} inputMode="decimal" {...form.register('limits.bedVelocityMax')} invalid={!!err('limits.bedVelocityMax')} />
-          </FieldShell>
+          {decimal('limits.bedVelocityMax')}
           <FieldShell
             label="Bed velocity method"
             htmlFor={f('ubm')}
@@ -527,15 +506,7 @@ export function OperationForm({
               <PlainOptions values={BED_VELOCITY_METHODS} labels={BED_VELOCITY_METHOD_LABEL} />
             </Select>
           </FieldShell>
-          <FieldShell
-            label="Wind max"
-            unit="m/s"
-            htmlFor={f('wind')}
-            error={err('limits.windMax')}
-            hint={`Mean wind speed at 10 m, ${rangeHint(R.windMps, 'm/s')}.`}
-          >
-            <Input id={f('wind')} inputMode="decimal" {...form.register('limits.windMax')} invalid={!!err('limits.windMax')} />
-          </FieldShell>
+          {decimal('limits.windMax')}
         </div>
       </FormSection>
 
@@ -566,15 +537,7 @@ export function OperationForm({
                   {vesselIdText && !vessel ? <option value={vesselIdText}>Vessel not found</option> : null}
                 </Select>
               </FieldShell>
-              <FieldShell
-                label="Vessel heading"
-                unit="deg true"
-                htmlFor={f('heading')}
-                error={err('heading')}
-                hint="The fixed heading the vessel keeps, 0–360° true; each hour the sea's direction relative to it picks the RAO."
-              >
-                <Input id={f('heading')} inputMode="decimal" {...form.register('heading')} invalid={!!err('heading')} />
-              </FieldShell>
+              {decimal('heading')}
             </div>
             {err('limits.responses') ? (
               <p role="alert" className="text-sm font-semibold text-danger">
@@ -612,29 +575,22 @@ export function OperationForm({
                             <option value="mpm">Most probable maximum R_mpm</option>
                           </Select>
                         </FieldShell>
-                        <FieldShell
+                        <DecimalField
+                          id={f(`dur-${i}`)}
                           label="Duration"
                           unit="h"
-                          htmlFor={f(`dur-${i}`)}
-                          error={err(`${p}.durationH`)}
                           hint={current?.statistic === 'mpm' ? `Blank: ${DEFAULT_MPM_DURATION_H} h.` : 'For R_mpm only.'}
-                        >
-                          <Input
-                            id={f(`dur-${i}`)}
-                            inputMode="decimal"
-                            disabled={current?.statistic !== 'mpm'}
-                            {...form.register(`limits.responses.${i}.durationH`)}
-                            invalid={!!err(`${p}.durationH`)}
-                          />
-                        </FieldShell>
-                        <FieldShell label="Max" unit={unit || undefined} htmlFor={f(`max-${i}`)} error={err(`${p}.max`)}>
-                          <Input
-                            id={f(`max-${i}`)}
-                            inputMode="decimal"
-                            {...form.register(`limits.responses.${i}.max`)}
-                            invalid={!!err(`${p}.max`)}
-                          />
-                        </FieldShell>
+                          error={err(`${p}.durationH`)}
+                          registration={form.register(`limits.responses.${i}.durationH`)}
+                          disabled={current?.statistic !== 'mpm'}
+                        />
+                        <DecimalField
+                          id={f(`max-${i}`)}
+                          label="Max"
+                          unit={unit || undefined}
+                          error={err(`${p}.max`)}
+                          registration={form.register(`limits.responses.${i}.max`)}
+                        />
                         <Button
                           variant="ghost"
                           className="sm:mt-6"
@@ -678,36 +634,10 @@ export function OperationForm({
         hint="Checked against the still-water depth h = chart depth + water level, the current and the predicted high and low waters of the worksite's tide. Alpha never applies; without a tide a tide window finds no data."
       >
         <div className="grid gap-4 sm:grid-cols-4">
-          <FieldShell
-            label="Draught"
-            unit="m"
-            htmlFor={f('draught')}
-            error={err('limits.minDepthParts.draught') ?? err('limits.minDepth')}
-            hint="Min depth = draught + under-keel clearance."
-          >
-            <Input id={f('draught')} inputMode="decimal" {...form.register('limits.draught')} invalid={!!err('limits.minDepth')} />
-          </FieldShell>
-          <FieldShell label="Under-keel clearance" unit="m" htmlFor={f('ukc')} error={err('limits.minDepthParts.clearance')}>
-            <Input id={f('ukc')} inputMode="decimal" {...form.register('limits.clearance')} />
-          </FieldShell>
-          <FieldShell
-            label="Max depth"
-            unit="m"
-            htmlFor={f('maxdepth')}
-            error={err('limits.maxDepth')}
-            hint={`Still-water depth, ${rangeHint(R.depthM, 'm')}.`}
-          >
-            <Input id={f('maxdepth')} inputMode="decimal" {...form.register('limits.maxDepth')} invalid={!!err('limits.maxDepth')} />
-          </FieldShell>
-          <FieldShell
-            label="Current max"
-            unit="m/s"
-            htmlFor={f('current')}
-            error={err('limits.currentMax')}
-            hint={`Current speed, ${rangeHint(R.currentMps, 'm/s')}: the dataset’s current, else the worksite’s predicted tidal current (no data without either).`}
-          >
-            <Input id={f('current')} inputMode="decimal" {...form.register('limits.currentMax')} invalid={!!err('limits.currentMax')} />
-          </FieldShell>
+          {decimal('limits.draught')}
+          {decimal('limits.clearance')}
+          {decimal('limits.maxDepth')}
+          {decimal('limits.currentMax')}
         </div>
         <div className="grid gap-4 sm:grid-cols-3">
           <FieldShell label="Tide window around" htmlFor={f('tideref')} error={err('limits.tideWindow')}>
@@ -717,43 +647,10 @@ export function OperationForm({
               <option value="low">Low water</option>
             </Select>
           </FieldShell>
-          <FieldShell
-            label="Hours before"
-            unit="h"
-            htmlFor={f('tidebefore')}
-            error={err('limits.tideWindow.before')}
-            hint={rangeHint(R.tideWindowH, 'h')}
-          >
-            <Input
-              id={f('tidebefore')}
-              inputMode="decimal"
-              {...form.register('limits.tideBefore')}
-              disabled={limitsText.tideReference === 'none'}
-            />
-          </FieldShell>
-          <FieldShell
-            label="Hours after"
-            unit="h"
-            htmlFor={f('tideafter')}
-            error={err('limits.tideWindow.after')}
-            hint={rangeHint(R.tideWindowH, 'h')}
-          >
-            <Input
-              id={f('tideafter')}
-              inputMode="decimal"
-              {...form.register('limits.tideAfter')}
-              disabled={limitsText.tideReference === 'none'}
-            />
-          </FieldShell>
+          {decimal('limits.tideBefore', limitsText.tideReference === 'none')}
+          {decimal('limits.tideAfter', limitsText.tideReference === 'none')}
         </div>
       </FormSection>
-
-      <SubmitOrCancel
-        {...EDIT_FORM_ACTIONS}
-        mutation={mutation}
-        label={op ? 'Save operation' : 'Add operation'}
-        onCancel={() => onDone(null)}
-      />
-    </form>
+    </EditForm>
   );
 }

@@ -24,35 +24,29 @@ export function OperationsPanel({ projectId, canEdit }: { projectId: string; can
     useDeleteOperation(projectId),
     'Operation',
     'It leaves the watch board and the statistics; the audit trail keeps its last limits.',
+    canEdit,
   );
 
   if (ops.isPending || sites.isPending) return <Spinner label="Loading operations" />;
   if (ops.error) return <ErrorNotice error={ops.error} />;
   if (sites.error) return <ErrorNotice error={sites.error} />;
-  const editingOp = list.editing && list.editing !== 'new' ? (ops.data.find((o) => o.id === list.editing) ?? null) : null;
 
   return (
     <EditableListFrame
       list={list}
-      canEdit={canEdit}
+      items={ops.data}
       intro="Each operation’s limits (OPLIM) are tested hour by hour at its worksites. Weather-restricted operations are planned on the forecast limit OPWF = α·OPLIM for Hs."
-      addLabel="Add operation"
-      formTitle={editingOp ? `Edit “${editingOp.name}”` : 'New operation'}
-      form={
+      form={(op) => (
         <OperationForm
           key={list.editing}
           projectId={projectId}
-          op={editingOp}
+          op={op}
           sites={sites.data}
           alphaTable={alpha.data?.table}
           onDone={list.formDone}
         />
-      }
-      empty={
-        ops.data.length === 0
-          ? { title: 'No operations yet.', addHint: 'Add the operations of the campaign with their durations and weather limits.' }
-          : null
-      }
+      )}
+      empty={{ title: 'No operations yet.', addHint: 'Add the operations of the campaign with their durations and weather limits.' }}
     >
       <ul className="grid gap-3 lg:grid-cols-2" aria-label="Operations">
         {ops.data.map((o) => (
@@ -62,7 +56,7 @@ export function OperationsPanel({ projectId, canEdit }: { projectId: string; can
               op={o}
               sites={sites.data}
               alphaTable={alpha.data?.table}
-              actions={canEdit ? list.actions(o) : null}
+              actions={list.actions(o)}
               confirm={list.confirming === o.id ? list.confirmBox(o) : null}
             />
           </li>
@@ -109,6 +103,13 @@ function VesselLine({ projectId, vesselId, heading }: { projectId: string; vesse
   );
 }
 
+/** The duration tiles of an operation's card: the term, any words after it, and the hours shown. */
+const DURATION_TILES = [
+  { term: 'tpop', after: null },
+  { term: 'tc', after: null },
+  { term: 'tr', after: ' = TPOP + TC' },
+] as const;
+
 function OperationCard({
   projectId,
   op,
@@ -151,24 +152,15 @@ function OperationCard({
       </p>
       {op.vesselId ? <VesselLine projectId={projectId} vesselId={op.vesselId} heading={op.heading} /> : null}
       <dl className="grid grid-cols-3 gap-2 text-center text-sm">
-        <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">
-            <Term k="tpop" />
-          </dt>
-          <dd className="font-semibold tabular-nums">{withUnit(op.tpop, 'h')}</dd>
-        </div>
-        <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">
-            <Term k="tc" />
-          </dt>
-          <dd className="font-semibold tabular-nums">{withUnit(op.tc, 'h')}</dd>
-        </div>
-        <div className="rounded-lg bg-surface-2 px-2 py-1.5">
-          <dt className="text-xs text-ink-soft">
-            <Term k="tr" /> = TPOP + TC
-          </dt>
-          <dd className="font-semibold tabular-nums">{withUnit(op.tr, 'h')}</dd>
-        </div>
+        {DURATION_TILES.map(({ term, after }) => (
+          <div key={term} className="rounded-lg bg-surface-2 px-2 py-1.5">
+            <dt className="text-xs text-ink-soft">
+              <Term k={term} />
+              {after}
+            </dt>
+            <dd className="font-semibold tabular-nums">{withUnit(op[term], 'h')}</dd>
+          </div>
+        ))}
       </dl>
       <p className="text-sm">
         <span className="font-semibold">Worksites:</span> {where}

@@ -8,6 +8,7 @@ import { useTidePreview } from '../api/tide-preview';
 import { useTideStations } from '../api/tide-stations';
 import { CellInput, errorAt, GridErrors } from './form-bits';
 import { numberFromText, textFromNumber } from './number-text';
+import { StationFieldset, StationRadio } from './station-choice';
 
 /** The tide section as typed: the request body's field names, numbers as text. */
 export const TideText = z.object({
@@ -45,6 +46,24 @@ export function tideFromText(t: TideText): z.input<typeof WorksiteTideInput> | n
   };
 }
 
+type Constituent = TideText['constituents'][number];
+
+/**
+ * The columns of the constituents' table: heading, what the cell's label and error name it, and
+ * for the name (text, where the others are numbers) the cell's own input mode and alignment.
+ */
+const CONSTITUENT_COLUMNS: {
+  field: keyof Constituent;
+  heading: string;
+  label: string;
+  where: string;
+  cell?: { inputMode: 'text'; className: string };
+}[] = [
+  { field: 'name', heading: 'Name', label: 'name', where: 'name', cell: { inputMode: 'text', className: 'text-left' } },
+  { field: 'amplitude', heading: 'Amplitude (m)', label: 'amplitude, m', where: 'amplitude' },
+  { field: 'phase', heading: 'Phase lag (° UTC)', label: 'phase lag, degrees referred to UTC', where: 'phase lag' },
+];
+
 /** The value after it stopped changing for `ms`. */
 function useSettled<T>(value: T, ms: number): T {
   const [settled, setSettled] = useState(value);
@@ -81,12 +100,12 @@ export function TideFields({
 }) {
   const set = (patch: Partial<TideText>) => onChange({ ...value, ...patch });
   const rows = value.constituents;
-  const setRow = (i: number, patch: Partial<TideText['constituents'][number]>) =>
-    set({ constituents: rows.map((r, k) => (k === i ? { ...r, ...patch } : r)) });
+  const setRow = (i: number, patch: Partial<Constituent>) => set({ constituents: rows.map((r, k) => (k === i ? { ...r, ...patch } : r)) });
+  const cellError = (i: number, field: keyof Constituent) => errorAt(errors, `tide.constituents.${i}.${field}`);
   const rowErrors = rows.flatMap((_, i) =>
-    (['name', 'amplitude', 'phase'] as const).flatMap((field) => {
-      const message = errorAt(errors, `tide.constituents.${i}.${field}`);
-      return message ? [{ where: `Row ${i + 1}, ${field === 'phase' ? 'phase lag' : field}`, message }] : [];
+    CONSTITUENT_COLUMNS.flatMap(({ field, where }) => {
+      const message = cellError(i, field);
+      return message ? [{ where: `Row ${i + 1}, ${where}`, message }] : [];
     }),
   );
 
@@ -141,41 +160,28 @@ export function TideFields({
           <table className="w-fit text-sm" aria-label="Tide constituents">
             <thead>
               <tr className="text-left text-ink-soft">
-                <th className="pr-2 font-semibold">Name</th>
-                <th className="pr-2 font-semibold">Amplitude (m)</th>
-                <th className="pr-2 font-semibold">Phase lag (° UTC)</th>
+                {CONSTITUENT_COLUMNS.map((c) => (
+                  <th key={c.field} className="pr-2 font-semibold">
+                    {c.heading}
+                  </th>
+                ))}
                 <th />
               </tr>
             </thead>
             <tbody>
               {rows.map((r, i) => (
                 <tr key={i}>
-                  <td className="pr-2 py-0.5">
-                    <CellInput
-                      label={`Constituent ${i + 1} name`}
-                      inputMode="text"
-                      className="text-left"
-                      value={r.name}
-                      onValue={(name) => setRow(i, { name })}
-                      error={errorAt(errors, `tide.constituents.${i}.name`)}
-                    />
-                  </td>
-                  <td className="pr-2 py-0.5">
-                    <CellInput
-                      label={`Constituent ${i + 1} amplitude, m`}
-                      value={r.amplitude}
-                      onValue={(amplitude) => setRow(i, { amplitude })}
-                      error={errorAt(errors, `tide.constituents.${i}.amplitude`)}
-                    />
-                  </td>
-                  <td className="pr-2 py-0.5">
-                    <CellInput
-                      label={`Constituent ${i + 1} phase lag, degrees referred to UTC`}
-                      value={r.phase}
-                      onValue={(phase) => setRow(i, { phase })}
-                      error={errorAt(errors, `tide.constituents.${i}.phase`)}
-                    />
-                  </td>
+                  {CONSTITUENT_COLUMNS.map(({ field, label, cell }) => (
+                    <td key={field} className="pr-2 py-0.5">
+                      <CellInput
+                        label={`Constituent ${i + 1} ${label}`}
+                        {...cell}
+                        value={r[field]}
+                        onValue={(text) => setRow(i, { [field]: text })}
+                        error={cellError(i, field)}
+                      />
+                    </td>
+                  ))}
                   <td>
                     <Button
                       variant="secondary"
@@ -279,34 +285,19 @@ function StationChooser({
   if (stations.isError) return <ErrorNotice error={stations.error} />;
   const list = stations.data?.stations ?? [];
   return (
-    <fieldset className="flex flex-col gap-2">
-      <legend className="text-sm font-semibold">Tide station</legend>
-      {error ? (
-        <p role="alert" className="text-sm text-danger">
-          {error}
-        </p>
-      ) : null}
+    <StationFieldset legend="Tide station" error={error}>
       {stations.isPending ? <p className="text-sm text-ink-soft">Looking for stations…</p> : null}
       {!stations.isPending && list.length === 0 ? (
         <p className="text-sm text-ink-soft">No station of the database within 200 km: enter harmonic constants instead.</p>
       ) : null}
       {list.map((s) => (
-        <label key={s.id} className="flex min-h-11 items-start gap-3 rounded-md border border-line p-2 text-sm">
-          <input
-            type="radio"
-            name={`${idPrefix}-station`}
-            className="mt-1 size-5 accent-[var(--color-accent)]"
-            checked={chosen === s.id}
-            onChange={() => onChoose(s.id)}
-          />
-          <span>
-            <span className="font-semibold">{s.name}</span>
-            {s.distanceKm !== null ? `, ${s.distanceKm.toFixed(1)} km away` : ''} · datum {s.datum ?? 'not named'} · {s.source} ·{' '}
-            {s.constituents} constituents{s.type === 'subordinate' ? ' · subordinate' : ''}
-            {s.warnings.length > 0 ? <span className="block text-danger">{s.warnings.join(' ')}</span> : null}
-          </span>
-        </label>
+        <StationRadio key={s.id} group={`${idPrefix}-station`} id={s.id} chosen={chosen} onChoose={onChoose}>
+          <span className="font-semibold">{s.name}</span>
+          {s.distanceKm !== null ? `, ${s.distanceKm.toFixed(1)} km away` : ''} · datum {s.datum ?? 'not named'} · {s.source} ·{' '}
+          {s.constituents} constituents{s.type === 'subordinate' ? ' · subordinate' : ''}
+          {s.warnings.length > 0 ? <span className="block text-danger">{s.warnings.join(' ')}</span> : null}
+        </StationRadio>
       ))}
-    </fieldset>
+    </StationFieldset>
   );
 }

@@ -1,17 +1,8 @@
 import { Button } from '../../../components/ui';
-import { CellInput, GridErrors } from './form-bits';
+import { GridErrors, PairCells, RemoveButton, setPairAt, type PairListEditorProps, withoutAt } from './form-bits';
 
 /** Excluded Tp bands (closed: both edges excluded), e.g. a vessel's roll resonance. */
-export function BandsEditor({
-  bands,
-  onChange,
-  errorOf,
-}: {
-  bands: [string, string][];
-  onChange: (next: [string, string][]) => void;
-  errorOf: (suffix: string) => string | undefined;
-}) {
-  const set = (i: number, k: 0 | 1, text: string) => onChange(bands.map((p, r) => (r === i ? (k === 0 ? [text, p[1]] : [p[0], text]) : p)));
+export function BandsEditor({ value: bands, onChange, errorOf }: PairListEditorProps) {
   const messages: { where: string; message: string }[] = [];
   bands.forEach((_, i) => {
     for (const [suffix, where] of [
@@ -32,31 +23,15 @@ export function BandsEditor({
           {bands.map((b, i) => (
             <li key={i} className="flex flex-wrap items-center gap-2 text-sm">
               <span className="w-14 text-ink-soft">Band {i + 1}</span>
-              <CellInput
-                label={`Excluded band ${i + 1} from, s`}
-                value={b[0]}
-                onValue={(t) => set(i, 0, t)}
-                error={errorOf(`.${i}.0`) ?? errorOf(`.${i}`)}
-                className="!w-20"
-              />
-              <span aria-hidden>–</span>
-              <CellInput
-                label={`Excluded band ${i + 1} to, s`}
-                value={b[1]}
-                onValue={(t) => set(i, 1, t)}
-                error={errorOf(`.${i}.1`) ?? errorOf(`.${i}`)}
+              <PairCells
+                pair={b}
+                labels={[`Excluded band ${i + 1} from, s`, `Excluded band ${i + 1} to, s`]}
+                errors={[errorOf(`.${i}.0`) ?? errorOf(`.${i}`), errorOf(`.${i}.1`) ?? errorOf(`.${i}`)]}
+                onValue={(k, t) => onChange(setPairAt(bands, i, k, t))}
                 className="!w-20"
               />
               <span className="text-ink-soft">s</span>
-              <Button
-                variant="ghost"
-                className="!px-2 text-xs text-ink-soft"
-                onClick={() => onChange(bands.filter((_, r) => r !== i))}
-                aria-label={`Remove excluded band ${i + 1}`}
-                title="Remove this band"
-              >
-                Remove
-              </Button>
+              <RemoveButton label={`Remove excluded band ${i + 1}`} what="band" onClick={() => onChange(withoutAt(bands, i))} />
             </li>
           ))}
         </ul>

@@ -9,7 +9,8 @@ import {
   type TransferTableInput,
 } from '../../../../shared/schemas/sites';
 import { Button } from '../../../components/ui';
-import { CellInput, errorAt, GridErrors } from './form-bits';
+import { errorAt, FilePicker, GridErrors, PairCells, setPairAt, withoutAt } from './form-bits';
+import { FactorGridEditor, FactorGridView } from './factor-grid-view';
 import { fmt } from './format';
 import { numberFromText, textFromNumber } from './number-text';
 import { HeadingRow } from '../../../components/ui/table';
@@ -21,24 +22,23 @@ export interface TransferTableText {
   factors: string[][];
 }
 
-export function transferTableToText(t: TransferTableInput): TransferTableText {
-  const pair = ([a, b]: [number, number]): [string, string] => [textFromNumber(a), textFromNumber(b)];
+/** A transfer table with every number (or text) converted by `f`. */
+function mapTransferTable<A, B>(
+  t: { directionSectorsDeg: [A, A][]; tpBandsS: [A, A][]; factors: A[][] },
+  f: (x: A) => B,
+): { directionSectorsDeg: [B, B][]; tpBandsS: [B, B][]; factors: B[][] } {
+  const pair = ([a, b]: [A, A]): [B, B] => [f(a), f(b)];
   return {
     directionSectorsDeg: t.directionSectorsDeg.map(pair),
     tpBandsS: t.tpBandsS.map(pair),
-    factors: t.factors.map((row) => row.map(textFromNumber)),
+    factors: t.factors.map((row) => row.map(f)),
   };
 }
 
+export const transferTableToText = (t: TransferTableInput): TransferTableText => mapTransferTable(t, textFromNumber);
+
 /** Text to numbers (NaN where malformed; the schema then names the cell). */
-export function transferTableFromText(t: TransferTableText): TransferTableInput {
-  const pair = ([a, b]: [string, string]): [number, number] => [numberFromText(a), numberFromText(b)];
-  return {
-    directionSectorsDeg: t.directionSectorsDeg.map(pair),
-    tpBandsS: t.tpBandsS.map(pair),
-    factors: t.factors.map((row) => row.map(numberFromText)),
-  };
-}
+export const transferTableFromText = (t: TransferTableText): TransferTableInput => mapTransferTable(t, numberFromText);
 
 /**
  * A starting table: one sector for every direction and three Tp bands, factor 1 (no change), to
@@ -79,10 +79,8 @@ export function TransferTableEditor({
   const [csv, setCsv] = useState<{ fileName: string; issues: TransferTableCsvIssue[]; read?: string } | null>(null);
   const { directionSectorsDeg: sectors, tpBandsS: bands, factors } = value;
 
-  const setSector = (i: number, k: 0 | 1, text: string) =>
-    onChange({ ...value, directionSectorsDeg: sectors.map((s, r) => (r === i ? (k === 0 ? [text, s[1]] : [s[0], text]) : s)) });
-  const setBand = (j: number, k: 0 | 1, text: string) =>
-    onChange({ ...value, tpBandsS: bands.map((b, c) => (c === j ? (k === 0 ? [text, b[1]] : [b[0], text]) : b)) });
+  const setSector = (i: number, k: 0 | 1, text: string) => onChange({ ...value, directionSectorsDeg: setPairAt(sectors, i, k, text) });
+  const setBand = (j: number, k: 0 | 1, text: string) => onChange({ ...value, tpBandsS: setPairAt(bands, j, k, text) });
   const setFactor = (i: number, j: number, text: string) =>
     onChange({ ...value, factors: factors.map((row, r) => (r === i ? row.map((f, c) => (c === j ? text : f)) : row)) });
   const addSector = () => {
@@ -93,14 +91,12 @@ export function TransferTableEditor({
       factors: [...factors, bands.map(() => '1')],
     });
   };
-  const removeSector = (i: number) =>
-    onChange({ ...value, directionSectorsDeg: sectors.filter((_, r) => r !== i), factors: factors.filter((_, r) => r !== i) });
+  const removeSector = (i: number) => onChange({ ...value, directionSectorsDeg: withoutAt(sectors, i), factors: withoutAt(factors, i) });
   const addBand = () => {
     const last = bands[bands.length - 1];
     onChange({ ...value, tpBandsS: [...bands, [last?.[1] ?? '0', '']], factors: factors.map((row) => [...row, '1']) });
   };
-  const removeBand = (j: number) =>
-    onChange({ ...value, tpBandsS: bands.filter((_, c) => c !== j), factors: factors.map((row) => row.filter((_, c) => c !== j)) });
+  const removeBand = (j: number) => onChange({ ...value, tpBandsS: withoutAt(bands, j), factors: factors.map((row) => withoutAt(row, j)) });
 
   const onFile = async (file: File | undefined) => {
     if (!file) return;
@@ -140,22 +136,9 @@ export function TransferTableEditor({
   return (
     <div className="flex min-w-0 flex-col gap-3">
       <div className="flex flex-wrap items-center gap-3">
-        <label
-          htmlFor={`${id}-csv`}
-          className="inline-flex min-h-11 cursor-pointer items-center rounded-lg border border-line bg-surface-2 px-4 text-sm font-semibold hover:border-accent"
-        >
+        <FilePicker id={`${id}-csv`} accept=".csv,.txt,text/csv,text/plain" onFile={(f) => void onFile(f)}>
           Read from a CSV file…
-        </label>
-        <input
-          id={`${id}-csv`}
-          type="file"
-          accept=".csv,.txt,text/csv,text/plain"
-          className="sr-only"
-          onChange={(e) => {
-            void onFile(e.target.files?.[0]);
-            e.target.value = '';
-          }}
-        />
+        </FilePicker>
         <details className="text-sm text-ink-soft">
           <summary className="inline-flex min-h-11 cursor-pointer items-center">CSV layout</summary>
           <p className="mt-1">
@@ -175,101 +158,58 @@ export function TransferTableEditor({
       {csv && csv.issues.length > 0 ? <CsvIssues fileName={csv.fileName} issues={csv.issues} /> : null}
 
       <div className="overflow-x-auto rounded-lg border border-line">
-        <table className="text-sm">
-          <caption className="sr-only">
-            Transfer table: Hs at the worksite divided by Hs at the data point, by direction sector and Tp band
-          </caption>
-          <thead className="bg-surface-2">
-            <tr>
-              <th scope="col" className="px-2 py-2 text-left align-bottom text-xs font-semibold text-ink-soft">
-                Sector from–to (°)
-                <span className="block font-normal">↓ coming from · Tp band (s) →</span>
-              </th>
-              {bands.map((b, j) => (
-                <th key={j} scope="col" className="px-1 py-2 align-bottom">
-                  <div className="flex items-center gap-1">
-                    <CellInput
-                      label={`Tp band ${j + 1} from, s`}
-                      value={b[0]}
-                      onValue={(t) => setBand(j, 0, t)}
-                      error={err(`tpBandsS.${j}.0`)}
-                      className="w-16"
-                    />
-                    <span aria-hidden>–</span>
-                    <CellInput
-                      label={`Tp band ${j + 1} to, s`}
-                      value={b[1]}
-                      onValue={(t) => setBand(j, 1, t)}
-                      error={err(`tpBandsS.${j}.1`)}
-                      className="w-16"
-                    />
-                  </div>
-                  <Button
-                    variant="ghost"
-                    className="mt-1 w-full !px-2 text-xs text-ink-soft"
-                    onClick={() => removeBand(j)}
-                    disabled={bands.length <= 1}
-                    aria-label={`Remove Tp band ${j + 1}`}
-                  >
-                    Remove band
-                  </Button>
-                </th>
-              ))}
-              <th scope="col" className="px-1 py-2 align-bottom">
-                <Button variant="secondary" onClick={addBand} disabled={bands.length >= TRANSFER_MAX_BANDS} className="whitespace-nowrap">
-                  + Tp band
-                </Button>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {sectors.map((s, i) => (
-              <tr key={i} className="border-t border-line">
-                <th scope="row" className="px-2 py-1">
-                  <div className="flex items-center gap-1">
-                    <CellInput
-                      label={`Sector ${i + 1} from, degrees`}
-                      value={s[0]}
-                      onValue={(t) => setSector(i, 0, t)}
-                      error={err(`directionSectorsDeg.${i}.0`)}
-                      className="w-16"
-                    />
-                    <span aria-hidden>–</span>
-                    <CellInput
-                      label={`Sector ${i + 1} to, degrees`}
-                      value={s[1]}
-                      onValue={(t) => setSector(i, 1, t)}
-                      error={err(`directionSectorsDeg.${i}.1`)}
-                      className="w-16"
-                    />
-                    <Button
-                      variant="ghost"
-                      className="!px-2 text-xs text-ink-soft"
-                      onClick={() => removeSector(i)}
-                      disabled={sectors.length <= 1}
-                      aria-label={`Remove sector ${i + 1}`}
-                      title="Remove this sector"
-                    >
-                      Remove
-                    </Button>
-                  </div>
-                </th>
-                {bands.map((b, j) => (
-                  <td key={j} className="px-1 py-1">
-                    <CellInput
-                      label={`Factor for sector ${sectorLabel(s)}, Tp band ${bandLabel(b)}`}
-                      value={factors[i]?.[j] ?? ''}
-                      onValue={(t) => setFactor(i, j, t)}
-                      error={err(`factors.${i}.${j}`)}
-                      className="w-20"
-                    />
-                  </td>
-                ))}
-                <td />
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <FactorGridEditor
+          caption="Transfer table: Hs at the worksite divided by Hs at the data point, by direction sector and Tp band"
+          corner={
+            <>
+              Sector from–to (°)
+              <span className="block font-normal">↓ coming from · Tp band (s) →</span>
+            </>
+          }
+          columns={{
+            count: bands.length,
+            head: (j) => (
+              <div className="flex items-center gap-1">
+                <PairCells
+                  pair={bands[j]}
+                  labels={[`Tp band ${j + 1} from, s`, `Tp band ${j + 1} to, s`]}
+                  errors={[err(`tpBandsS.${j}.0`), err(`tpBandsS.${j}.1`)]}
+                  onValue={(k, t) => setBand(j, k, t)}
+                  className="w-16"
+                />
+              </div>
+            ),
+            removeLabel: (j) => `Remove Tp band ${j + 1}`,
+            onRemove: removeBand,
+          }}
+          removeColumnText="Remove band"
+          addColumn={
+            <Button variant="secondary" onClick={addBand} disabled={bands.length >= TRANSFER_MAX_BANDS} className="whitespace-nowrap">
+              + Tp band
+            </Button>
+          }
+          rows={{
+            count: sectors.length,
+            head: (i) => (
+              <PairCells
+                pair={sectors[i]}
+                labels={[`Sector ${i + 1} from, degrees`, `Sector ${i + 1} to, degrees`]}
+                errors={[err(`directionSectorsDeg.${i}.0`), err(`directionSectorsDeg.${i}.1`)]}
+                onValue={(k, t) => setSector(i, k, t)}
+                className="w-16"
+              />
+            ),
+            removeLabel: (i) => `Remove sector ${i + 1}`,
+            onRemove: removeSector,
+          }}
+          removeRowWhat="sector"
+          cell={(i, j) => ({
+            label: `Factor for sector ${sectorLabel(sectors[i])}, Tp band ${bandLabel(bands[j])}`,
+            value: factors[i]?.[j] ?? '',
+            onValue: (t) => setFactor(i, j, t),
+            error: err(`factors.${i}.${j}`),
+          })}
+        />
       </div>
       <div className="flex flex-wrap items-center gap-3">
         <Button variant="secondary" onClick={addSector} disabled={sectors.length >= TRANSFER_MAX_SECTORS}>
@@ -320,33 +260,13 @@ function CsvIssues({ fileName, issues }: { fileName: string; issues: TransferTab
 export function TransferTableView({ table }: { table: TransferTableInput }) {
   return (
     <div className="overflow-x-auto">
-      <table className="text-xs tabular-nums">
-        <caption className="sr-only">Transfer table factors Hs site / Hs data point</caption>
-        <thead>
-          <tr className="text-ink-soft">
-            <th className="px-2 py-1 text-left font-semibold">Sector \ Tp</th>
-            {table.tpBandsS.map(([a, b], j) => (
-              <th key={j} className="px-2 py-1 text-right font-semibold whitespace-nowrap">
-                {fmt(a)}–{fmt(b)} s
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {table.directionSectorsDeg.map(([a, b], i) => (
-            <tr key={i} className="border-t border-line">
-              <th scope="row" className="px-2 py-1 text-left font-semibold whitespace-nowrap">
-                {fmt(a)}–{fmt(b)}°
-              </th>
-              {table.factors[i]?.map((f, j) => (
-                <td key={j} className="px-2 py-1 text-right">
-                  {fmt(f, 3)}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <FactorGridView
+        compact
+        caption="Transfer table factors Hs site / Hs data point"
+        corner="Sector \ Tp"
+        columns={table.tpBandsS.map(([a, b]) => `${fmt(a)}–${fmt(b)} s`)}
+        rows={table.directionSectorsDeg.map(([a, b], i) => ({ heading: `${fmt(a)}–${fmt(b)}°`, factors: table.factors[i] ?? [] }))}
+      />
     </div>
   );
 }

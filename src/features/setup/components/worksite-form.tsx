@@ -12,8 +12,8 @@ import { useUpdateSite } from '../api/update-site';
 import { useProject } from '../../../api/projects';
 import { useMapStyle } from '../../../api/map-style';
 import { LazySiteMap } from '../../../components/map/lazy-site-map';
-import { applyServerErrors, blankAware, withSubject, errorAt, FormSection } from './form-bits';
-import { numberFromText, numberOrNull, textFromNumber } from './number-text';
+import { applyServerErrors, blankAware, EditForm, DecimalFields, errorAt, FormSection, NameField, type DecimalSpec } from './form-bits';
+import { numberFromText, numberOrNull, pairText, textFields, textFromNumber } from './number-text';
 import { TideFields, tideFromText, TideText, tideToText } from './tide-fields';
 import { CurrentStationField } from './current-station-field';
 import { COMMON_TIME_ZONES } from './time-zones';
@@ -24,25 +24,24 @@ import {
   transferTableToText,
   type TransferTableText,
 } from './transfer-table-editor';
-import { EDIT_FORM_ACTIONS, SubmitOrCancel } from '../../../components/ui/form-actions';
-
-const pairText = z.tuple([z.string(), z.string()]);
 
 /** The worksite form as typed: the request body's field names, numbers as text. */
 const WorksiteText = z.object({
-  name: z.string(),
-  latitude: z.string(),
-  longitude: z.string(),
-  depth: z.string(),
-  shoreNormal: z.string(),
-  breakerIndex: z.string(),
-  timeZone: z.string(),
-  hindcastDatasetId: z.string(),
+  ...textFields(
+    'name',
+    'latitude',
+    'longitude',
+    'depth',
+    'shoreNormal',
+    'breakerIndex',
+    'timeZone',
+    'hindcastDatasetId',
+    'currentStationId',
+  ),
   transferTable: z
     .object({ directionSectorsDeg: z.array(pairText), tpBandsS: z.array(pairText), factors: z.array(z.array(z.string())) })
     .nullable(),
   tide: TideText,
-  currentStationId: z.string(),
 });
 type WorksiteText = z.infer<typeof WorksiteText>;
 
@@ -79,6 +78,39 @@ function initialValues(site: SiteResponse | null, defaultZone: string): Worksite
     currentStationId: site?.currentStationId ?? '',
   };
 }
+
+type DecimalName = 'depth' | 'shoreNormal' | 'breakerIndex' | 'latitude' | 'longitude';
+
+/** Depth, shore normal and breaker index: the first row of the form's numbers. */
+const PLACE_FIELDS: DecimalSpec<DecimalName>[] = [
+  {
+    name: 'depth',
+    id: 'depth',
+    label: 'Water depth',
+    unit: 'm',
+    hint: `Still-water depth d at the worksite, ${SITE_DEPTH_RANGE_M.min}–${SITE_DEPTH_RANGE_M.max} m.`,
+  },
+  {
+    name: 'shoreNormal',
+    id: 'shore',
+    label: 'Shore normal',
+    unit: '° from true north',
+    hint: 'Coming-from direction of waves that cross the depth contours head-on; leave empty for no refraction.',
+  },
+  {
+    name: 'breakerIndex',
+    id: 'gamma',
+    label: 'Breaker index γb',
+    unit: 'Hs/d',
+    hint: `Depth limit Hs ≤ γb·d; ${BREAKER_INDEX_RANGE.default} is common practice (${BREAKER_INDEX_RANGE.min}–${BREAKER_INDEX_RANGE.max}).`,
+  },
+];
+
+/** The position, optional (the map below fills it in too). */
+const POSITION_FIELDS: DecimalSpec<DecimalName>[] = [
+  { name: 'latitude', id: 'lat', label: 'Latitude', unit: '° north, negative south', hint: 'Optional.' },
+  { name: 'longitude', id: 'lon', label: 'Longitude', unit: '° east, negative west', hint: 'Optional.' },
+];
 
 /**
  * Add or edit a worksite. `site` null adds one; `defaultZone` starts a new worksite in the zone
@@ -133,15 +165,18 @@ export function WorksiteForm({
   });
 
   const f = (name: string) => `${id}-${name}`;
+  const bind = ({ name, id }: DecimalSpec<DecimalName>) => ({
+    id: f(id),
+    error: errors[name]?.message,
+    registration: form.register(name),
+  });
   const hindcastList = hindcasts.data ?? [];
   const knownHindcast = !site?.hindcastDatasetId || hindcastList.some((d) => d.id === site.hindcastDatasetId);
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label={site ? `Edit worksite ${site.name}` : 'New worksite'}>
+    <EditForm thing="worksite" editing={site?.name} onSubmit={onSubmit} mutation={mutation} onCancel={() => onDone(null)}>
       <div className="grid gap-4 sm:grid-cols-2">
-        <FieldShell label="Name" htmlFor={f('name')} error={withSubject('Name', errors.name?.message)}>
-          <Input id={f('name')} autoComplete="off" {...form.register('name')} invalid={!!errors.name} />
-        </FieldShell>
+        <NameField id={f('name')} error={errors.name?.message} registration={form.register('name')} />
         <FieldShell
           label="Time zone"
           htmlFor={f('tz')}
@@ -164,41 +199,10 @@ export function WorksiteForm({
         </FieldShell>
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
-        <FieldShell
-          label="Water depth"
-          unit="m"
-          htmlFor={f('depth')}
-          error={errors.depth?.message}
-          hint={`Still-water depth d at the worksite, ${SITE_DEPTH_RANGE_M.min}–${SITE_DEPTH_RANGE_M.max} m.`}
-        >
-          <Input id={f('depth')} inputMode="decimal" {...form.register('depth')} invalid={!!errors.depth} />
-        </FieldShell>
-        <FieldShell
-          label="Shore normal"
-          unit="° from true north"
-          htmlFor={f('shore')}
-          error={errors.shoreNormal?.message}
-          hint="Coming-from direction of waves that cross the depth contours head-on; leave empty for no refraction."
-        >
-          <Input id={f('shore')} inputMode="decimal" {...form.register('shoreNormal')} invalid={!!errors.shoreNormal} />
-        </FieldShell>
-        <FieldShell
-          label="Breaker index γb"
-          unit="Hs/d"
-          htmlFor={f('gamma')}
-          error={errors.breakerIndex?.message}
-          hint={`Depth limit Hs ≤ γb·d; ${BREAKER_INDEX_RANGE.default} is common practice (${BREAKER_INDEX_RANGE.min}–${BREAKER_INDEX_RANGE.max}).`}
-        >
-          <Input id={f('gamma')} inputMode="decimal" {...form.register('breakerIndex')} invalid={!!errors.breakerIndex} />
-        </FieldShell>
+        <DecimalFields fields={PLACE_FIELDS} bind={bind} />
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
-        <FieldShell label="Latitude" unit="° north, negative south" htmlFor={f('lat')} error={errors.latitude?.message} hint="Optional.">
-          <Input id={f('lat')} inputMode="decimal" {...form.register('latitude')} invalid={!!errors.latitude} />
-        </FieldShell>
-        <FieldShell label="Longitude" unit="° east, negative west" htmlFor={f('lon')} error={errors.longitude?.message} hint="Optional.">
-          <Input id={f('lon')} inputMode="decimal" {...form.register('longitude')} invalid={!!errors.longitude} />
-        </FieldShell>
+        <DecimalFields fields={POSITION_FIELDS} bind={bind} />
         <FieldShell
           label="Hindcast for statistics"
           htmlFor={f('hindcast')}
@@ -279,14 +283,7 @@ export function WorksiteForm({
           error={errorAt(errors, 'currentStationId')}
         />
       </FormSection>
-
-      <SubmitOrCancel
-        {...EDIT_FORM_ACTIONS}
-        mutation={mutation}
-        label={site ? 'Save worksite' : 'Add worksite'}
-        onCancel={() => onDone(null)}
-      />
-    </form>
+    </EditForm>
   );
 }
 

@@ -39,31 +39,25 @@ export function WorksitesPanel({ projectId, canEdit }: { projectId: string; canE
     useDeleteSite(projectId),
     'Worksite',
     'Operations that also work elsewhere lose this worksite from their list; the change is kept in the audit trail.',
+    canEdit,
   );
   const { confirming, confirmBox } = editor;
 
   if (sites.isPending) return <Spinner label="Loading worksites" />;
   if (sites.error) return <ErrorNotice error={sites.error} />;
   const list = sites.data;
-  const editingSite = editor.editing && editor.editing !== 'new' ? (list.find((s) => s.id === editor.editing) ?? null) : null;
   const defaultZone = list[0]?.timeZone ?? browserZone();
-  const actions = (site: SiteResponse) => (canEdit ? editor.actions(site, 'flex flex-wrap gap-1 md:flex-nowrap') : null);
+  const actions = (site: SiteResponse) => editor.actions(site, 'flex flex-wrap gap-1 md:flex-nowrap');
 
   return (
     <EditableListFrame
       list={editor}
-      canEdit={canEdit}
+      items={list}
       intro="Where the work happens. Sea states at the data point are carried to each worksite’s depth (refraction by its shore normal, shoaling, the depth limit γb·d), or by its transfer table where one is set."
-      addLabel="Add worksite"
-      formTitle={editingSite ? `Edit “${editingSite.name}”` : 'New worksite'}
-      form={
-        <WorksiteForm key={editor.editing} projectId={projectId} site={editingSite} defaultZone={defaultZone} onDone={editor.formDone} />
-      }
-      empty={
-        list.length === 0
-          ? { title: 'No worksites yet.', addHint: 'Add the places where the operations happen, with their water depth and time zone.' }
-          : null
-      }
+      form={(site) => (
+        <WorksiteForm key={editor.editing} projectId={projectId} site={site} defaultZone={defaultZone} onDone={editor.formDone} />
+      )}
+      empty={{ title: 'No worksites yet.', addHint: 'Add the places where the operations happen, with their water depth and time zone.' }}
     >
       <>
         {/* Laptop: one table. */}

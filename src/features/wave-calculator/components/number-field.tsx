@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import type { UseFormRegisterReturn } from 'react-hook-form';
 import { Card, FieldShell, Input } from '../../../components/ui';
+import { FirstAnswerStatus } from './result-status';
 
 interface NumberFieldProps {
   id: string;
@@ -65,5 +66,41 @@ export function InputsCard<K extends string>({ titleId, title, ...fields }: { ti
       </h2>
       <NumberFields {...fields} />
     </Card>
+  );
+}
+
+/** A calculator's answer as `useCalculator` gives it: the form, the query, the messages by field and the error no field shows. */
+interface Calculation<K extends string, A> {
+  check: { register: (name: K) => UseFormRegisterReturn };
+  answer: { data: A | undefined; isFetching: boolean };
+  errors: Partial<Record<K, string>>;
+  otherError: unknown;
+}
+
+/**
+ * A calculator mode's panel: its inputs card, before the first answer the error no field shows or
+ * a spinner (`computingLabel`), then the results drawn from the answer, and `after` them, always.
+ */
+export function CalculatorPanel<K extends string, A>({
+  inputs,
+  calculation: { check, answer, errors, otherError },
+  computingLabel = 'Computing',
+  results,
+  after,
+}: {
+  inputs: { titleId: string; title: string; className: string; fields: readonly NumberFieldSpec<K>[] };
+  calculation: Calculation<K, A>;
+  computingLabel?: string;
+  results: (answer: A) => ReactNode;
+  after?: ReactNode;
+}) {
+  const a = answer.data;
+  return (
+    <div className="grid grid-cols-1 gap-4">
+      <InputsCard {...inputs} register={check.register} errors={errors} />
+      <FirstAnswerStatus error={otherError} computing={!a && answer.isFetching} label={computingLabel} />
+      {a ? results(a) : null}
+      {after}
+    </div>
   );
 }

@@ -4,6 +4,7 @@ import type { CartesianMarkerProps } from '@nivo/core';
 import type { PartialTheme } from '@nivo/theming';
 import type { WaveProfilePoint } from '../api/get-wave-profile';
 import { useIsDark } from '../../../lib/use-is-dark';
+import { DrawnLines } from '../../../components/drawn-lines';
 import { ticks as niceTicks } from 'd3-array';
 import { formatSig } from '../utils/format-number';
 import { LABEL_HALO } from '../../../lib/chart-halo';
@@ -88,22 +89,8 @@ function makeWaterLayer(patternId: string, depthM: number, showBed: boolean, col
 }
 
 /** Draws the series' lines itself so that w can be dashed. */
-function StyledLines({ series, lineGenerator }: LineCustomSvgLayerProps<ProfileSeries>) {
-  return (
-    <g>
-      {series.map((s) => (
-        <path
-          key={s.id}
-          d={lineGenerator(s.data.map((d) => d.position)) ?? undefined}
-          fill="none"
-          stroke={s.color}
-          strokeWidth={2.5}
-          strokeDasharray={DASH[s.id]}
-          strokeLinejoin="round"
-        />
-      ))}
-    </g>
-  );
+function StyledLines(props: LineCustomSvgLayerProps<ProfileSeries>) {
+  return <DrawnLines {...props} strokeWidth={2.5} dashOf={(id) => DASH[id]} lineJoin="round" />;
 }
 
 function SliceTooltip({ slice }: SliceTooltipProps<ProfileSeries>) {

@@ -8,8 +8,8 @@ import { breakingCheck } from '../utils/breaking-check';
 import { formatSig } from '../utils/format-number';
 import type { RawFields } from '../utils/validate-fields';
 import { useCalculator } from '../utils/use-calculator';
-import { FirstAnswerStatus, LinearTheoryCaution, ResultStatus } from './result-status';
-import { InputsCard, type NumberFieldSpec } from './number-field';
+import { LinearTheoryCaution, ResultStatus } from './result-status';
+import { CalculatorPanel, type NumberFieldSpec } from './number-field';
 import { withSub } from './symbol';
 import { QuantityList } from './quantity-list';
 
@@ -49,18 +49,17 @@ const DEPTH_CLASS_WORDS: Record<DepthClass, string> = {
 
 /** Regular-wave mode: inputs, every linear-theory quantity with its unit, and u, w, Kp over depth. */
 export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; onChange: (fields: RegularFields) => void }) {
-  const { check, answer: wave, errors, otherError, stale } = useCalculator(RegularWaveForm, fields, onChange, useRegularWave);
+  const calculation = useCalculator(RegularWaveForm, fields, onChange, useRegularWave);
+  const { check, answer: wave, stale } = calculation;
   const profile = useWaveProfile(check.data ? { period: check.data.period, height: check.data.height, depth: check.data.depth } : null);
-  const a = wave.data;
   const typing = check.typing;
 
   return (
-    <div className="grid grid-cols-1 gap-4">
-      <InputsCard {...REGULAR_INPUTS} register={check.register} errors={errors} />
-
-      <FirstAnswerStatus error={otherError} computing={!a && wave.isFetching} label="Computing" />
-
-      {a ? (
+    <CalculatorPanel
+      inputs={REGULAR_INPUTS}
+      calculation={calculation}
+      after={<TheoryNote />}
+      results={(a) => (
         <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">
           <Card aria-labelledby="regular-results-title" className={stale && !typing ? 'opacity-80' : ''}>
             <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
@@ -100,10 +99,8 @@ export function RegularWavePanel({ fields, onChange }: { fields: RegularFields; 
             )}
           </Card>
         </div>
-      ) : null}
-
-      <TheoryNote />
-    </div>
+      )}
+    />
   );
 }
 

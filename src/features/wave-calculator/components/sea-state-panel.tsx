@@ -5,10 +5,10 @@ import { useSeaState, type SeaStateAnswer } from '../api/get-sea-state';
 import { formatSig } from '../utils/format-number';
 import type { RawFields } from '../utils/validate-fields';
 import { useCalculator } from '../utils/use-calculator';
-import { InputsCard, type NumberFieldSpec } from './number-field';
+import { CalculatorPanel, type NumberFieldSpec } from './number-field';
 import { withSub } from './symbol';
 import { QuantityList } from './quantity-list';
-import { FirstAnswerStatus, LinearTheoryCaution, ResultStatus } from './result-status';
+import { LinearTheoryCaution, ResultStatus } from './result-status';
 
 export type SeaStateFields = RawFields<'hs' | 'tp' | 'tz' | 'te' | 'gamma' | 'depth'>;
 
@@ -31,17 +31,15 @@ const SEA_STATE_INPUTS = {
 
 /** Sea-state mode: Hs and any of Tp, Tz, Te; derived periods, energy, power and bed velocity by both methods. */
 export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; onChange: (fields: SeaStateFields) => void }) {
-  const { check, answer: sea, errors, otherError, stale } = useCalculator(SeaStateForm, fields, onChange, useSeaState);
-  const a = sea.data;
+  const calculation = useCalculator(SeaStateForm, fields, onChange, useSeaState);
+  const { check, answer: sea, stale } = calculation;
   const typing = check.typing;
 
   return (
-    <div className="grid grid-cols-1 gap-4">
-      <InputsCard {...SEA_STATE_INPUTS} register={check.register} errors={errors} />
-
-      <FirstAnswerStatus error={otherError} computing={!a && sea.isFetching} label="Computing" />
-
-      {a ? (
+    <CalculatorPanel
+      inputs={SEA_STATE_INPUTS}
+      calculation={calculation}
+      results={(a) => (
         <div className={`grid grid-cols-1 gap-4 lg:grid-cols-2 ${stale && !typing ? 'opacity-80' : ''}`}>
           <Card aria-labelledby="periods-title" className="self-start">
             <div className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
@@ -147,8 +145,8 @@ export function SeaStatePanel({ fields, onChange }: { fields: SeaStateFields; on
             <LinearTheoryCaution />
           </Card>
         </div>
-      ) : null}
-    </div>
+      )}
+    />
   );
 }
 

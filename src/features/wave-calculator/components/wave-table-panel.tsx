@@ -7,9 +7,9 @@ import { formatSig } from '../utils/format-number';
 import { useCalculator } from '../utils/use-calculator';
 import { waveTableCsv } from '../utils/wave-table-csv';
 import { downloadCsv } from '../../../lib/csv';
-import { InputsCard, type NumberFieldSpec } from './number-field';
+import { CalculatorPanel, type NumberFieldSpec } from './number-field';
 import { withSub } from './symbol';
-import { FirstAnswerStatus, ResultStatus } from './result-status';
+import { ResultStatus } from './result-status';
 import type { TableFields } from './wave-table-fields';
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
@@ -71,16 +71,16 @@ const TABLE_INPUTS = {
 
 /** Wave-table mode: d/L0 range and step, a sortable table of the handbook columns, CSV download. Lazy-loaded. */
 export default function WaveTablePanel({ fields, onChange }: { fields: TableFields; onChange: (fields: TableFields) => void }) {
-  const { check, answer: query, errors, otherError } = useCalculator(WaveTableForm, fields, onChange, useWaveTable);
-  const rows = query.data;
-  const typing = check.typing;
+  const calculation = useCalculator(WaveTableForm, fields, onChange, useWaveTable);
+  const { check, answer: query } = calculation;
 
   return (
-    <div className="grid grid-cols-1 gap-4">
-      <InputsCard {...TABLE_INPUTS} register={check.register} errors={errors} />
-      <FirstAnswerStatus error={otherError} computing={!rows && query.isFetching} label="Computing the table" />
-      {rows ? <WaveTable rows={rows} typing={typing} fetching={query.isFetching} lastValid={!check.data} /> : null}
-    </div>
+    <CalculatorPanel
+      inputs={TABLE_INPUTS}
+      calculation={calculation}
+      computingLabel="Computing the table"
+      results={(rows) => <WaveTable rows={rows} typing={check.typing} fetching={query.isFetching} lastValid={!check.data} />}
+    />
   );
 }
 
