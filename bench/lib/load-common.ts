@@ -4,6 +4,37 @@
 import autocannon from 'autocannon';
 
 // ---------------------------------------------------------------------------------------------
+// Options
+
+/** The command-line options both benches take, for parseArgs (each adds --duration, its own default, and its own). */
+export const LOAD_OPTIONS = {
+  years: { type: 'string', default: '20' },
+  warmup: { type: 'string', default: '5' },
+  connections: { type: 'string', default: '50' },
+  'page-every': { type: 'string', default: '10' },
+} as const;
+
+/** A whole-number option from `min` to `max`; otherwise prints the rule and exits with 1. */
+export function intOption(name: string, value: string, min: number, max: number): number {
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < min || n > max) {
+    console.error(`--${name} must be a whole number from ${min} to ${max} (got ${value})`);
+    process.exit(1);
+  }
+  return n;
+}
+
+/** The options of LOAD_OPTIONS as numbers: demo hindcast years, warm-up s, users, the paced run's pace (s). */
+export function loadSettings(args: { years: string; warmup: string; connections: string; 'page-every': string }) {
+  return {
+    years: intOption('years', args.years, 1, 60),
+    warmupS: intOption('warmup', args.warmup, 0, 600),
+    connections: intOption('connections', args.connections, 1, 500),
+    pageEveryS: intOption('page-every', args['page-every'], 1, 3600),
+  };
+}
+
+// ---------------------------------------------------------------------------------------------
 // Users and sessions through the API
 
 export const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
