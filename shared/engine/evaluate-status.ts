@@ -1,6 +1,6 @@
 import { compileLimits, type CompiledLimits } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
-import { curveClass, prepareCurve } from './hs-tp-curve';
+import { curveAlpha, curveLimit, prepareCurve } from './hs-tp-curve';
 import { targetHsSeries } from './hs-targets';
 import { responseClass, responseLimitSeries } from './response-limits';
 import { tideWindowMarginH } from './tide-window';
@@ -169,8 +169,18 @@ function breakInsideWhere(tp: Float64Array, hs: Float64Array, minHs: number, fro
  */
 function raiseCurve(hs: Float64Array, tp: Float64Array, c: CompiledLimits, cls: Uint8Array): void {
   const curve = prepareCurve(c);
+  // curveClass (hs-tp-curve.ts) with the bounds held here: the interpolation only in between.
+  const { tp0, tpN, hsMax, sureOk } = curve;
   for (let i = 0; i < cls.length; i++) {
-    const k = curveClass(curve, hs[i], tp[i]);
+    const h = hs[i];
+    const t = tp[i];
+    let k: number;
+    if (t < tp0 || t > tpN || h > hsMax) k = 2;
+    else if (h <= sureOk) k = 0;
+    else {
+      const lim = curveLimit(curve, t);
+      k = (h > lim * curveAlpha(curve, lim) ? 1 : 0) + (h > lim ? 1 : 0);
+    }
     if (k > cls[i]) cls[i] = k;
   }
 }
