@@ -45,7 +45,7 @@ import {
   expectOk,
   intOption,
   loadSettings,
-  LOAD_OPTIONS,
+  loadOptions,
   ms,
   pageRequests,
   percentile,
@@ -66,8 +66,7 @@ const RECOVERY_SHARE = 0.8;
 
 const { values: args } = parseArgs({
   options: {
-    ...LOAD_OPTIONS,
-    duration: { type: 'string', default: '90' },
+    ...loadOptions('90'),
     'kill-at': { type: 'string', default: '20' },
     down: { type: 'string', default: '10' },
     tick: { type: 'string', default: '30' },

@@ -36,7 +36,7 @@ import {
   runCannon,
   intOption,
   loadSettings,
-  LOAD_OPTIONS,
+  loadOptions,
   signIn,
   sleep,
   type EndpointStats,
@@ -62,8 +62,7 @@ const STEADY_SHARE = 0.1;
 
 const { values: args } = parseArgs({
   options: {
-    ...LOAD_OPTIONS,
-    duration: { type: 'string', default: '30' },
+    ...loadOptions('30'),
     profile: { type: 'string' },
   },
 });

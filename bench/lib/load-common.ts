@@ -6,13 +6,19 @@ import autocannon from 'autocannon';
 // ---------------------------------------------------------------------------------------------
 // Options
 
-/** The command-line options both benches take, for parseArgs (each adds --duration, its own default, and its own). */
-export const LOAD_OPTIONS = {
-  years: { type: 'string', default: '20' },
-  warmup: { type: 'string', default: '5' },
-  connections: { type: 'string', default: '50' },
-  'page-every': { type: 'string', default: '10' },
-} as const;
+/**
+ * The command-line options both benches take, for parseArgs (each adds its own): --duration with
+ * the bench's default (s), --years, --warmup, --connections and --page-every.
+ */
+export function loadOptions(durationDefault: string) {
+  return {
+    years: { type: 'string', default: '20' },
+    duration: { type: 'string', default: durationDefault },
+    warmup: { type: 'string', default: '5' },
+    connections: { type: 'string', default: '50' },
+    'page-every': { type: 'string', default: '10' },
+  } as const;
+}
 
 /** A whole-number option from `min` to `max`; otherwise prints the rule and exits with 1. */
 export function intOption(name: string, value: string, min: number, max: number): number {
@@ -24,7 +30,7 @@ export function intOption(name: string, value: string, min: number, max: number)
   return n;
 }
 
-/** The options of LOAD_OPTIONS as numbers: demo hindcast years, warm-up s, users, the paced run's pace (s). */
+/** The options of loadOptions but --duration as numbers: demo hindcast years, warm-up s, users, the paced run's pace (s). */
 export function loadSettings(args: { years: string; warmup: string; connections: string; 'page-every': string }) {
   return {
     years: intOption('years', args.years, 1, 60),
