@@ -45,7 +45,9 @@ import {
   expectOk,
   intOption,
   loadSettings,
+  loadAverages,
   loadOptions,
+  machineLine,
   ms,
   pageRequests,
   percentile,
@@ -260,13 +262,7 @@ function printRun(r: RunReport): void {
 // ---------------------------------------------------------------------------------------------
 
 async function main(): Promise<void> {
-  const cpus = os.cpus();
-  console.log(
-    `Lullwatch cluster bench on ${cpus.length} cores (${cpus[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os
-      .loadavg()
-      .map((x) => x.toFixed(1))
-      .join(' ')}`,
-  );
+  console.log(machineLine('cluster'));
   console.log(
     `Two instances, demo hindcast ${YEARS} years, ${CONNECTIONS} users; runs of ${DURATION_S} s (kill at ${KILL_AT_S} s, restart ${DOWN_S} s later); planning every ${TICK_S} s\n`,
   );
@@ -542,12 +538,7 @@ async function main(): Promise<void> {
     `${outboxRows.length} in the outbox (${mailN} written by the bench), ${caught.size} distinct Message-IDs caught, ${dup} caught twice or more, ${unsent.length} never caught; ${pending === 0 ? 'outbox empty' : `${pending} not sent`}`,
   );
 
-  console.log(
-    `\nLoad ${((loadEnd - loadStart) / 1000).toFixed(0)} s; load average ${os
-      .loadavg()
-      .map((x) => x.toFixed(1))
-      .join(' ')} at the end`,
-  );
+  console.log(`\nLoad ${((loadEnd - loadStart) / 1000).toFixed(0)} s; load average ${loadAverages()} at the end`);
   const notMet = checks.filter((c) => !c.ok);
   console.log(
     notMet.length === 0

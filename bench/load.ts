@@ -37,6 +37,7 @@ import {
   intOption,
   loadSettings,
   loadOptions,
+  machineLine,
   signIn,
   sleep,
   type EndpointStats,
@@ -184,13 +185,7 @@ const mib = (x: number | null) => (x === null ? 'n/a' : `${x.toFixed(0)} MiB`);
 // ---------------------------------------------------------------------------------------------
 
 async function main(): Promise<void> {
-  const cpus = os.cpus();
-  console.log(
-    `Lullwatch load bench on ${cpus.length} cores (${cpus[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os
-      .loadavg()
-      .map((x) => x.toFixed(1))
-      .join(' ')}`,
-  );
+  console.log(machineLine('load'));
   console.log(`Demo hindcast ${YEARS} years; ${CONNECTIONS} users and connections; warm-up ${WARMUP_S} s; measured ${DURATION_S} s\n`);
 
   buildClientIfStale(ROOT);

@@ -1,6 +1,7 @@
 // What `npm run bench:load` and `npm run bench:cluster` share: users created and signed in through
 // the API, the requests of the watch board and the downtime page, and autocannon with one
 // connection (and session cookie) per user, closed-loop or paced.
+import os from 'node:os';
 import autocannon from 'autocannon';
 
 // ---------------------------------------------------------------------------------------------
@@ -246,3 +247,16 @@ export function percentile(sorted: number[], p: number): number {
 }
 
 export const ms = (x: number) => (Number.isFinite(x) ? `${x.toFixed(0)} ms` : 'n/a');
+
+/** The 1-, 5- and 15-minute load averages, e.g. "1.2 0.8 0.5". */
+export const loadAverages = () =>
+  os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ');
+
+/** A bench's first line: the machine's cores and CPU, Node's version and the load averages. */
+export function machineLine(bench: string): string {
+  const cpus = os.cpus();
+  return `Lullwatch ${bench} bench on ${cpus.length} cores (${cpus[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${loadAverages()}`;
+}
