@@ -43,6 +43,11 @@ import {
   call,
   createUsers,
   expectOk,
+  intOption,
+  loadSettings,
+  loadAverages,
+  loadOptions,
+  machineLine,
   ms,
   pageRequests,
   percentile,
@@ -63,35 +68,19 @@ const RECOVERY_SHARE = 0.8;
 
 const { values: args } = parseArgs({
   options: {
-    years: { type: 'string', default: '20' },
-    duration: { type: 'string', default: '90' },
-    warmup: { type: 'string', default: '5' },
-    connections: { type: 'string', default: '50' },
-    'page-every': { type: 'string', default: '10' },
+    ...loadOptions('90'),
     'kill-at': { type: 'string', default: '20' },
     down: { type: 'string', default: '10' },
     tick: { type: 'string', default: '30' },
   },
 });
 
-function positiveInt(name: string, value: string, min: number, max: number): number {
-  const n = Number(value);
-  if (!Number.isInteger(n) || n < min || n > max) {
-    console.error(`--${name} must be a whole number from ${min} to ${max} (got ${value})`);
-    process.exit(1);
-  }
-  return n;
-}
-
-const YEARS = positiveInt('years', args.years, 1, 60);
-const DURATION_S = positiveInt('duration', args.duration, 10, 3600);
-const WARMUP_S = positiveInt('warmup', args.warmup, 0, 600);
-const CONNECTIONS = positiveInt('connections', args.connections, 1, 500);
-const PAGE_EVERY_S = positiveInt('page-every', args['page-every'], 1, 3600);
-const KILL_AT_S = positiveInt('kill-at', args['kill-at'], 1, DURATION_S - 1);
-const DOWN_S = positiveInt('down', args.down, 0, 600);
+const DURATION_S = intOption('duration', args.duration, 10, 3600);
+const { years: YEARS, warmupS: WARMUP_S, connections: CONNECTIONS, pageEveryS: PAGE_EVERY_S } = loadSettings(args);
+const KILL_AT_S = intOption('kill-at', args['kill-at'], 1, DURATION_S - 1);
+const DOWN_S = intOption('down', args.down, 0, 600);
 /** The planning job's period; a divisor of 60 so that `*\/TICK * * * * *` ticks evenly. */
-const TICK_S = positiveInt('tick', args.tick, 5, 30);
+const TICK_S = intOption('tick', args.tick, 5, 30);
 if (60 % TICK_S !== 0) {
   console.error(`--tick must divide 60 (got ${TICK_S})`);
   process.exit(1);
@@ -107,6 +96,8 @@ let benchDb: Database | null = null;
 /** The bench's own connection for counting (plan runs, the outbox). */
 let reader: pg.Client = null as unknown as pg.Client;
 let cannon: autocannon.Instance | null = null;
+/** The shared runner's hooks: keep the running instance in `cannon` so a stop signal ends it. */
+const keepCannon = { onStart: (i: autocannon.Instance) => (cannon = i) };
 const instances = new Map<string, ChildServer>();
 const workDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lullwatch-cluster-'));
 
@@ -226,7 +217,7 @@ async function measuredRun(
     );
   })();
   const result = await runCannon(proxyUrl, users, requests, DURATION_S, null, overallRate, {
-    onStart: (i) => (cannon = i),
+    ...keepCannon,
     onResponse: (_name, status, latency) => samples.push({ start: Date.now() - latency, ms: latency, status }),
   });
   const end = Date.now();
@@ -271,13 +262,7 @@ function printRun(r: RunReport): void {
 // ---------------------------------------------------------------------------------------------
 
 async function main(): Promise<void> {
-  const cpus = os.cpus();
-  console.log(
-    `Lullwatch cluster bench on ${cpus.length} cores (${cpus[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os
-      .loadavg()
-      .map((x) => x.toFixed(1))
-      .join(' ')}`,
-  );
+  console.log(machineLine('cluster'));
   console.log(
     `Two instances, demo hindcast ${YEARS} years, ${CONNECTIONS} users; runs of ${DURATION_S} s (kill at ${KILL_AT_S} s, restart ${DOWN_S} s later); planning every ${TICK_S} s\n`,
   );
@@ -384,7 +369,7 @@ async function main(): Promise<void> {
   }
   if (WARMUP_S > 0) {
     console.log(`Warm-up through the proxy: ${WARMUP_S} s (not measured)`);
-    await runCannon(proxyUrl, users, requests, WARMUP_S, null, undefined, { onStart: (i) => (cannon = i) });
+    await runCannon(proxyUrl, users, requests, WARMUP_S, null, undefined, keepCannon);
     for (let i = 0; i < 3; i++) await call(proxyUrl, 'GET', '/api/health');
   }
 
@@ -553,12 +538,7 @@ async function main(): Promise<void> {
     `${outboxRows.length} in the outbox (${mailN} written by the bench), ${caught.size} distinct Message-IDs caught, ${dup} caught twice or more, ${unsent.length} never caught; ${pending === 0 ? 'outbox empty' : `${pending} not sent`}`,
   );
 
-  console.log(
-    `\nLoad ${((loadEnd - loadStart) / 1000).toFixed(0)} s; load average ${os
-      .loadavg()
-      .map((x) => x.toFixed(1))
-      .join(' ')} at the end`,
-  );
+  console.log(`\nLoad ${((loadEnd - loadStart) / 1000).toFixed(0)} s; load average ${loadAverages()} at the end`);
   const notMet = checks.filter((c) => !c.ok);
   console.log(
     notMet.length === 0

@@ -16,20 +16,12 @@ import {
   type OperationSpec,
   type SiteSeries,
 } from '../shared/engine/index';
+import { median, mulberry32 } from './lib/random';
+
+// The response bench takes these from here.
+export { median, mulberry32 };
 
 const HOUR_MS = 3_600_000;
-
-/** Mulberry32: a small seeded generator, so every run builds the same series. */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * A synthetic worksite series: 1994-01-01 to 2023-12-31 hourly (262,968 hours), seasonal Hs with
@@ -154,11 +146,6 @@ export function onePass(
   const ms = performance.now() - t0;
   const cpu = process.cpuUsage(cpu0);
   return { ms, cpuMs: (cpu.user + cpu.system) / 1000, checksum };
-}
-
-export function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
 }
 
 /** Result of {@link runEngineBench}. */

@@ -9,7 +9,7 @@
  * Run alone: `npx tsx bench/ensemble-bench.ts`.
  */
 import { pathToFileURL } from 'node:url';
-import { mulberry32 } from './engine-bench';
+import { mulberry32 } from './lib/random';
 import { performance } from 'node:perf_hooks';
 import { DEFAULT_ALPHA_TABLE } from '../shared/engine/index';
 import { generateSyntheticSea } from '../server/forecast/synthetic-sea';

@@ -33,7 +33,11 @@ import {
   pageRequests,
   percentile,
   ROLES,
-  runCannon as runCannonWith,
+  runCannon,
+  intOption,
+  loadSettings,
+  loadOptions,
+  machineLine,
   signIn,
   sleep,
   type EndpointStats,
@@ -43,17 +47,6 @@ import {
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 
-/** autocannon through the shared runner, kept in `cannon` so a stop signal ends it. */
-function runCannon(
-  baseUrl: string,
-  users: LoadUser[],
-  requests: PageRequest[],
-  seconds: number,
-  stats: Map<string, EndpointStats> | null,
-  overallRate?: number,
-) {
-  return runCannonWith(baseUrl, users, requests, seconds, stats, overallRate, { onStart: (i) => (cannon = i) });
-}
 const DEMO_PASSWORD = 'lullwatch-demo';
 const ADMIN_EMAIL = 'admin@example.com';
 
@@ -70,30 +63,14 @@ const STEADY_SHARE = 0.1;
 
 const { values: args } = parseArgs({
   options: {
-    years: { type: 'string', default: '20' },
-    duration: { type: 'string', default: '30' },
-    warmup: { type: 'string', default: '5' },
-    connections: { type: 'string', default: '50' },
-    'page-every': { type: 'string', default: '10' },
+    ...loadOptions('30'),
     profile: { type: 'string' },
   },
 });
 
-function positiveInt(name: string, value: string, min: number, max: number): number {
-  const n = Number(value);
-  if (!Number.isInteger(n) || n < min || n > max) {
-    console.error(`--${name} must be a whole number from ${min} to ${max} (got ${value})`);
-    process.exit(1);
-  }
-  return n;
-}
-
-const YEARS = positiveInt('years', args.years, 1, 60);
-const DURATION_S = positiveInt('duration', args.duration, 1, 3600);
-const WARMUP_S = positiveInt('warmup', args.warmup, 0, 600);
-const CONNECTIONS = positiveInt('connections', args.connections, 1, 500);
-/** Paced run: each user opens the board and the downtime page once every this many seconds. */
-const PAGE_EVERY_S = positiveInt('page-every', args['page-every'], 1, 3600);
+const DURATION_S = intOption('duration', args.duration, 1, 3600);
+/** Paced run: each user opens the board and the downtime page once every PAGE_EVERY_S seconds. */
+const { years: YEARS, warmupS: WARMUP_S, connections: CONNECTIONS, pageEveryS: PAGE_EVERY_S } = loadSettings(args);
 
 // ---------------------------------------------------------------------------------------------
 // The server as a child process
@@ -108,6 +85,8 @@ interface Server {
 let server: Server | null = null;
 let dataDir: string | null = null;
 let cannon: autocannon.Instance | null = null;
+/** The shared runner's hooks: keep the running instance in `cannon` so a stop signal ends it. */
+const keepCannon = { onStart: (i: autocannon.Instance) => (cannon = i) };
 
 async function startServer(): Promise<Server> {
   const port = await freePort();
@@ -206,13 +185,7 @@ const mib = (x: number | null) => (x === null ? 'n/a' : `${x.toFixed(0)} MiB`);
 // ---------------------------------------------------------------------------------------------
 
 async function main(): Promise<void> {
-  const cpus = os.cpus();
-  console.log(
-    `Lullwatch load bench on ${cpus.length} cores (${cpus[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${os
-      .loadavg()
-      .map((x) => x.toFixed(1))
-      .join(' ')}`,
-  );
+  console.log(machineLine('load'));
   console.log(`Demo hindcast ${YEARS} years; ${CONNECTIONS} users and connections; warm-up ${WARMUP_S} s; measured ${DURATION_S} s\n`);
 
   buildClientIfStale(ROOT);
@@ -247,7 +220,7 @@ async function main(): Promise<void> {
   const rssBeforeWarmup = rssMiB(s.pid);
   if (WARMUP_S > 0) {
     console.log(`\nWarm-up: ${WARMUP_S} s, ${users.length} connections (not measured)...`);
-    await runCannon(s.baseUrl, users, requests, WARMUP_S, null);
+    await runCannon(s.baseUrl, users, requests, WARMUP_S, null, undefined, keepCannon);
     // The server finishes the requests the stopped connections left behind before the measured
     // run starts: its answers queue behind them.
     for (let i = 0; i < 3; i++) await call(s.baseUrl, 'GET', '/api/health');
@@ -264,7 +237,7 @@ async function main(): Promise<void> {
   const loadAtStart = os.loadavg()[0];
   let result: autocannon.Result;
   try {
-    result = await runCannon(s.baseUrl, users, requests, DURATION_S, stats);
+    result = await runCannon(s.baseUrl, users, requests, DURATION_S, stats, undefined, keepCannon);
   } finally {
     clearInterval(sampler);
   }
@@ -307,7 +280,7 @@ async function main(): Promise<void> {
   console.log(
     `\nPaced run: ${DURATION_S} s, each user opens both pages every ${PAGE_EVERY_S} s (${rate.toFixed(2)} requests/s per user, ${(rate * users.length).toFixed(0)}/s in all)...`,
   );
-  const paced = await runCannon(s.baseUrl, users, requests, DURATION_S, null, Math.max(1, Math.round(rate * users.length)));
+  const paced = await runCannon(s.baseUrl, users, requests, DURATION_S, null, Math.max(1, Math.round(rate * users.length)), keepCannon);
   console.log(
     `  requests/s      mean ${paced.requests.average.toFixed(1)} (total ${paced.requests.total} in ${paced.duration.toFixed(1)} s)`,
   );
@@ -383,7 +356,7 @@ async function heavyRun(
   const me: PageRequest[] = [{ name: 'me', method: 'GET', path: '/api/me' }];
   let result: autocannon.Result;
   try {
-    result = await runCannon(baseUrl, users, me, DURATION_S, null, users.length);
+    result = await runCannon(baseUrl, users, me, DURATION_S, null, users.length, keepCannon);
   } finally {
     stop = true;
     await worker;

@@ -14,24 +14,13 @@ import {
   type SiteSeries,
   type SourcePoint,
 } from '../shared/waves/index';
+import { median, mulberry32 } from './lib/random';
 
 /** Hourly records in 30 years (1990-2019, 7 leap days): 10,957 days x 24. */
 export const BENCH_RECORDS = 262_968;
 
 /** Timed runs; the figure is their median. */
 export const BENCH_RUNS = 7;
-
-/** Deterministic PRNG (mulberry32), uniform in [0, 1). */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * Synthetic hourly series: seasonal Hs with a slowly varying random component (0.1-9 m, 0.01 m
@@ -96,12 +85,6 @@ export const BENCH_SITES: SiteGeometry[] = [
 
 /** Source point of the synthetic dataset: 60 m of water. */
 export const BENCH_SOURCE: SourcePoint = { depthM: 60 };
-
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
-  const mid = s.length >> 1;
-  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
-}
 
 /** Result of `runTransformBench`. */
 export interface TransformBenchResult {

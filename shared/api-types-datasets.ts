@@ -111,15 +111,19 @@ export interface NetcdfImportInfo {
   depthM: number | null;
 }
 
-/** Records as columnar arrays; times ISO UTC; null = missing. */
-export interface RecordsAnswer {
-  time: string[];
+/** The sea-state columns every series answer has, one value per record: Hs, Tp, direction, wind speed; null = missing. */
+export interface SeaStateColumns {
   hs: (number | null)[];
   tp: (number | null)[];
-  tz: (number | null)[];
-  te: (number | null)[];
   dir: (number | null)[];
   wind: (number | null)[];
+}
+
+/** Records as columnar arrays; times ISO UTC; null = missing. */
+export interface RecordsAnswer extends SeaStateColumns {
+  time: string[];
+  tz: (number | null)[];
+  te: (number | null)[];
   windDir: (number | null)[];
   /** Per record: which periods were given in the source (the rest derived). */
   given: { tp: boolean[]; tz: boolean[]; te: boolean[] };

@@ -1,5 +1,6 @@
 import type { CurrentSource, WaterLevelSource } from './seadata/water-level';
 import type { CurrentStationInfo } from './api-types-sites';
+import type { SeaStateColumns } from './api-types-datasets';
 // Plan answers shared by the API and the client.
 import type { HourStatus, LimitCheck } from './engine/explain-hour';
 import type { TransformChain } from './waves';
@@ -131,14 +132,10 @@ export interface HourChainAnswer {
   } | null;
 }
 
-export interface ConditionsAnswer {
+export interface ConditionsAnswer extends SeaStateColumns {
   siteId: string;
   timeZone: string;
   times: string[];
-  hs: (number | null)[];
-  tp: (number | null)[];
-  dir: (number | null)[];
-  wind: (number | null)[];
   bedVelocityLinear: (number | null)[];
   bedVelocitySoulsby: (number | null)[];
   flags: number[];

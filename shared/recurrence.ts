@@ -2,7 +2,7 @@ import * as rruleModule from 'rrule';
 import type { Options } from 'rrule';
 import { TZDate } from '@date-fns/tz';
 import { z } from 'zod';
-import './schemas/words';
+import { knownTimeZone } from './schemas/common';
 
 // rrule ships a UMD main that Node's ESM loader exposes as a default export; Vite exposes names.
 export const rrule = (
@@ -18,14 +18,7 @@ export const WEEKDAYS = ['MO', 'TU', 'WE', 'TH', 'FR', 'SA', 'SU'] as const;
 export const RecurrenceInput = z.object({
   /** First occurrence, local wall time 'YYYY-MM-DDTHH:mm' in `timeZone`. */
   start: z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, 'must be a local date and time YYYY-MM-DDTHH:mm'),
-  timeZone: z.string().refine((z) => {
-    try {
-      new Intl.DateTimeFormat('en', { timeZone: z });
-      return true;
-    } catch {
-      return false;
-    }
-  }, 'unknown time zone'),
+  timeZone: knownTimeZone(),
   /** The rule's body, e.g. 'FREQ=WEEKLY;BYDAY=MO,WE,FR' (no DTSTART: `start` is it). */
   rule: z
     .string()

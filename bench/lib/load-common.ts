@@ -1,7 +1,45 @@
 // What `npm run bench:load` and `npm run bench:cluster` share: users created and signed in through
 // the API, the requests of the watch board and the downtime page, and autocannon with one
 // connection (and session cookie) per user, closed-loop or paced.
+import os from 'node:os';
 import autocannon from 'autocannon';
+
+// ---------------------------------------------------------------------------------------------
+// Options
+
+/**
+ * The command-line options both benches take, for parseArgs (each adds its own): --duration with
+ * the bench's default (s), --years, --warmup, --connections and --page-every.
+ */
+export function loadOptions(durationDefault: string) {
+  return {
+    years: { type: 'string', default: '20' },
+    duration: { type: 'string', default: durationDefault },
+    warmup: { type: 'string', default: '5' },
+    connections: { type: 'string', default: '50' },
+    'page-every': { type: 'string', default: '10' },
+  } as const;
+}
+
+/** A whole-number option from `min` to `max`; otherwise prints the rule and exits with 1. */
+export function intOption(name: string, value: string, min: number, max: number): number {
+  const n = Number(value);
+  if (!Number.isInteger(n) || n < min || n > max) {
+    console.error(`--${name} must be a whole number from ${min} to ${max} (got ${value})`);
+    process.exit(1);
+  }
+  return n;
+}
+
+/** The options of loadOptions but --duration as numbers: demo hindcast years, warm-up s, users, the paced run's pace (s). */
+export function loadSettings(args: { years: string; warmup: string; connections: string; 'page-every': string }) {
+  return {
+    years: intOption('years', args.years, 1, 60),
+    warmupS: intOption('warmup', args.warmup, 0, 600),
+    connections: intOption('connections', args.connections, 1, 500),
+    pageEveryS: intOption('page-every', args['page-every'], 1, 3600),
+  };
+}
 
 // ---------------------------------------------------------------------------------------------
 // Users and sessions through the API
@@ -209,3 +247,16 @@ export function percentile(sorted: number[], p: number): number {
 }
 
 export const ms = (x: number) => (Number.isFinite(x) ? `${x.toFixed(0)} ms` : 'n/a');
+
+/** The 1-, 5- and 15-minute load averages, e.g. "1.2 0.8 0.5". */
+export const loadAverages = () =>
+  os
+    .loadavg()
+    .map((x) => x.toFixed(1))
+    .join(' ');
+
+/** A bench's first line: the machine's cores and CPU, Node's version and the load averages. */
+export function machineLine(bench: string): string {
+  const cpus = os.cpus();
+  return `Lullwatch ${bench} bench on ${cpus.length} cores (${cpus[0]?.model ?? 'unknown CPU'}), Node ${process.version}, load average ${loadAverages()}`;
+}

@@ -1,5 +1,6 @@
 import { compileLimits } from './compiled-limits';
 import { bandPeriodsAt, targetHsSeries } from './hs-targets';
+import { curveAlpha, curveLimit, prepareCurve, type PreparedCurve } from './hs-tp-curve';
 import { responseClass, responseLimitSeries } from './response-limits';
 import { tideWindowMarginH } from './tide-window';
 import { LIMIT, STATUS, type AlphaTable, type HourlyEvaluation, type OperationSpec, type SiteSeries } from './types';
@@ -90,8 +91,9 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
   const { needHs, needTp, needBed, needWind, hsMax, hsMaxOpwf, tpMin, tpMax, bedMax, windMax } = c;
   const hasHs = hsMax === hsMax;
   const hasCurve = c.curveTp.length >= 2;
-  const curveTp0 = hasCurve ? c.curveTp[0] : NaN;
-  const curveTpN = hasCurve ? c.curveTp[c.curveTp.length - 1] : NaN;
+  const curve = hasCurve ? prepareCurve(c) : null;
+  const curveTp0 = curve !== null ? curve.tp0 : NaN;
+  const curveTpN = curve !== null ? curve.tpN : NaN;
   const hasTpMin = tpMin === tpMin;
   const hasTpMax = tpMax === tpMax;
   const hasBands = c.bandFrom.length > 0;
@@ -108,20 +110,6 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
   const NO_DATA: number = STATUS.NO_DATA;
   const NONE: number = LIMIT.NONE;
   const CLASS_STATUS = Uint8Array.of(STATUS.WORKABLE, STATUS.MARGINAL, STATUS.NOT_WORKABLE);
-  // Curve segments and alpha columns with their slopes, for inline interpolation (kept in step
-  // with evaluateStatus).
-  const cTp = c.curveTp;
-  const cHs = c.curveHs;
-  const cSlope = c.curveSlope;
-  const nSeg = cSlope.length;
-  const aRow = c.alphaRow;
-  const aCols = c.alphaCols;
-  const aSlope = c.alphaSlope;
-  const nA = aRow === null ? 0 : aCols.length;
-  const aFirstCol = aCols[0];
-  const aLastCol = aCols[aCols.length - 1];
-  const aFirst = aRow !== null ? aRow[0] : 1;
-  const aLast = aRow !== null ? aRow[nA - 1] : 1;
   const bandFrom = c.bandFrom;
   const bandTo = c.bandTo;
   const nBands = bandFrom.length;
@@ -178,22 +166,9 @@ export function evaluateHours(series: SiteSeries, op: OperationSpec, options: Ev
         cls = 2;
         rel = (curveTpN - tp) * invCurveN;
       } else {
-        // Curve Hs limit at Tp (linear between points), then alpha at that limit (linear between
-        // the table's Hs columns, end columns outside).
-        let k = 0;
-        while (k < nSeg - 1 && cTp[k + 1] < tp) k++;
-        // At a curve point the limit is that point's Hs exactly (limits are inclusive, docs/domain.md#convention-6).
-        const lim = tp === cTp[k + 1] ? cHs[k + 1] : cHs[k] + cSlope[k] * (tp - cTp[k]);
-        let alpha = 1;
-        if (nA > 0) {
-          if (lim <= aFirstCol) alpha = aFirst;
-          else if (lim >= aLastCol) alpha = aLast;
-          else {
-            let j = 0;
-            while (aCols[j + 1] < lim) j++;
-            alpha = (aRow as Float64Array)[j] + aSlope[j] * (lim - aCols[j]);
-          }
-        }
+        // Curve Hs limit at Tp, then alpha at that limit (hs-tp-curve.ts, as evaluateStatus).
+        const lim = curveLimit(curve as PreparedCurve, tp);
+        const alpha = curveAlpha(curve as PreparedCurve, lim);
         const opwf = lim * alpha;
         cls = (hs > opwf ? 1 : 0) + (hs > lim ? 1 : 0);
         rel = opwf > 0 ? (opwf - hs) / opwf : hs <= 0 ? 0 : -Infinity;

@@ -1,6 +1,7 @@
 import { compileLimits, type CompiledLimits } from './compiled-limits';
 import { evaluateStatus } from './evaluate-status';
 import { assertSeriesLengths } from './evaluate-hours';
+import { curveAlpha, curveClass, curveLimit, prepareCurve, type PreparedCurve } from './hs-tp-curve';
 import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './types';
 
 /**
@@ -103,20 +104,10 @@ function aboveList(entries: { thr: number; broken: number; marginal: number }[])
   return { thr, cumBroken, cumMarginal };
 }
 
-/** An Hs-Tp curve operation, prepared as evaluateStatus prepares it. */
+/** An Hs-Tp curve operation: its bit and its curve, prepared as evaluateStatus prepares it. */
 interface CurveOp {
   bit: number;
-  c: CompiledLimits;
-  tp0: number;
-  tpN: number;
-  hsMax: number;
-  sureOk: number;
-  nSeg: number;
-  nA: number;
-  aFirstCol: number;
-  aLastCol: number;
-  aFirst: number;
-  aLast: number;
+  curve: PreparedCurve;
   /** Per distinct Tp (see curveTable); empty when the series' distinct Tp values are not given. */
   outside: Uint8Array;
   lim: Float64Array;
@@ -128,71 +119,7 @@ const EMPTY_F64 = new Float64Array(0);
 const EMPTY_I32 = new Int32Array(0);
 
 function curveOp(bit: number, c: CompiledLimits): CurveOp {
-  const nSeg = c.curveSlope.length;
-  const aRow = c.alphaRow;
-  const nA = aRow === null ? 0 : c.alphaCols.length;
-  let hsMin = Infinity;
-  let hsMax = -Infinity;
-  for (let k = 0; k < c.curveHs.length; k++) {
-    if (c.curveHs[k] < hsMin) hsMin = c.curveHs[k];
-    if (c.curveHs[k] > hsMax) hsMax = c.curveHs[k];
-  }
-  let alphaMin = 1;
-  if (aRow !== null) for (let k = 0; k < aRow.length; k++) if (aRow[k] < alphaMin) alphaMin = aRow[k];
-  return {
-    bit,
-    c,
-    tp0: c.curveTp[0],
-    tpN: c.curveTp[nSeg],
-    hsMax,
-    sureOk: hsMin * alphaMin,
-    nSeg,
-    nA,
-    aFirstCol: c.alphaCols[0],
-    aLastCol: c.alphaCols[c.alphaCols.length - 1],
-    aFirst: aRow !== null ? aRow[0] : 1,
-    aLast: aRow !== null ? aRow[nA - 1] : 1,
-    outside: EMPTY_U8,
-    lim: EMPTY_F64,
-    opwf: EMPTY_F64,
-  };
-}
-
-/**
- * Class of one record against a curve: 0 met, 1 met at OPLIM only, 2 broken. The same arithmetic,
- * in the same order, as evaluateStatus's curve pass (docs/domain.md#convention-5, #convention-6).
- */
-function curveClass(p: CurveOp, h: number, t: number): number {
-  if (t < p.tp0 || t > p.tpN || h > p.hsMax) return 2;
-  if (h <= p.sureOk) return 0;
-  const lim = curveLimit(p, t);
-  return (h > lim * curveAlpha(p, lim) ? 1 : 0) + (h > lim ? 1 : 0);
-}
-
-/** The curve's OPLIM at Tp t (within its Tp range), as curveClass computes it. */
-function curveLimit(p: CurveOp, t: number): number {
-  const c = p.c;
-  const cTp = c.curveTp;
-  let s = 0;
-  while (s < p.nSeg - 1 && cTp[s + 1] < t) s++;
-  return t === cTp[s + 1] ? c.curveHs[s + 1] : c.curveHs[s] + c.curveSlope[s] * (t - cTp[s]);
-}
-
-/** Alpha at OPLIM `lim` (1 without alpha), as curveClass computes it. */
-function curveAlpha(p: CurveOp, lim: number): number {
-  const c = p.c;
-  let alpha = 1;
-  if (p.nA > 0) {
-    if (lim <= p.aFirstCol) alpha = p.aFirst;
-    else if (lim >= p.aLastCol) alpha = p.aLast;
-    else {
-      const aCols = c.alphaCols;
-      let j = 0;
-      while (aCols[j + 1] < lim) j++;
-      alpha = (c.alphaRow as Float64Array)[j] + c.alphaSlope[j] * (lim - aCols[j]);
-    }
-  }
-  return alpha;
+  return { bit, curve: prepareCurve(c), outside: EMPTY_U8, lim: EMPTY_F64, opwf: EMPTY_F64 };
 }
 
 /**
@@ -205,21 +132,22 @@ function curveTable(p: CurveOp, keys: Float64Array): void {
   p.outside = new Uint8Array(m);
   p.lim = new Float64Array(m);
   p.opwf = new Float64Array(m);
+  const curve = p.curve;
   for (let k = 0; k < m; k++) {
     const t = keys[k];
-    if (t < p.tp0 || t > p.tpN) p.outside[k] = 1;
+    if (t < curve.tp0 || t > curve.tpN) p.outside[k] = 1;
     else {
-      const lim = curveLimit(p, t);
+      const lim = curveLimit(curve, t);
       p.lim[k] = lim;
-      p.opwf[k] = lim * curveAlpha(p, lim);
+      p.opwf[k] = lim * curveAlpha(curve, lim);
     }
   }
 }
 
 /** curveClass of a record whose Tp is keys[id] (curveTable), from the table. */
 function curveClassTabled(p: CurveOp, h: number, id: number): number {
-  if (p.outside[id] === 1 || h > p.hsMax) return 2;
-  if (h <= p.sureOk) return 0;
+  if (p.outside[id] === 1 || h > p.curve.hsMax) return 2;
+  if (h <= p.curve.sureOk) return 0;
   return (h > p.opwf[id] ? 1 : 0) + (h > p.lim[id] ? 1 : 0);
 }
 
@@ -405,7 +333,7 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch,
     const tabled = tpId >= 0 && tpKeys[tpId] === tpV[i];
     for (let c = 0; c < nc; c++) {
       const p = curves[c];
-      const k = tabled ? curveClassTabled(p, hsV[i], tpId) : curveClass(p, hsV[i], tpV[i]);
+      const k = tabled ? curveClassTabled(p, hsV[i], tpId) : curveClass(p.curve, hsV[i], tpV[i]);
       if (k === 2) brk |= p.bit;
       else if (k === 1) mar |= p.bit;
     }

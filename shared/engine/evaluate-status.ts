@@ -1,5 +1,6 @@
 import { compileLimits, type CompiledLimits } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
+import { curveAlpha, curveLimit, prepareCurve } from './hs-tp-curve';
 import { targetHsSeries } from './hs-targets';
 import { responseClass, responseLimitSeries } from './response-limits';
 import { tideWindowMarginH } from './tide-window';
@@ -167,30 +168,9 @@ function breakInsideWhere(tp: Float64Array, hs: Float64Array, minHs: number, fro
  * in between need the interpolation.
  */
 function raiseCurve(hs: Float64Array, tp: Float64Array, c: CompiledLimits, cls: Uint8Array): void {
-  const cTp = c.curveTp;
-  const cHs = c.curveHs;
-  const cSlope = c.curveSlope;
-  const nSeg = cSlope.length;
-  const tp0 = cTp[0];
-  const tpN = cTp[nSeg];
-  const aRow = c.alphaRow;
-  const aCols = c.alphaCols;
-  const aSlope = c.alphaSlope;
-  const nA = aRow === null ? 0 : aCols.length;
-  const aFirstCol = aCols[0];
-  const aLastCol = aCols[aCols.length - 1];
-  const aFirst = aRow !== null ? aRow[0] : 1;
-  const aLast = aRow !== null ? aRow[nA - 1] : 1;
-  let hsMin = Infinity;
-  let hsMax = -Infinity;
-  for (let k = 0; k < cHs.length; k++) {
-    if (cHs[k] < hsMin) hsMin = cHs[k];
-    if (cHs[k] > hsMax) hsMax = cHs[k];
-  }
-  let alphaMin = 1;
-  if (aRow !== null) for (let k = 0; k < aRow.length; k++) if (aRow[k] < alphaMin) alphaMin = aRow[k];
-  const sureOk = hsMin * alphaMin;
-
+  const curve = prepareCurve(c);
+  // curveClass (hs-tp-curve.ts) with the bounds held here: the interpolation only in between.
+  const { tp0, tpN, hsMax, sureOk } = curve;
   for (let i = 0; i < cls.length; i++) {
     const h = hs[i];
     const t = tp[i];
@@ -198,21 +178,8 @@ function raiseCurve(hs: Float64Array, tp: Float64Array, c: CompiledLimits, cls: 
     if (t < tp0 || t > tpN || h > hsMax) k = 2;
     else if (h <= sureOk) k = 0;
     else {
-      let s = 0;
-      while (s < nSeg - 1 && cTp[s + 1] < t) s++;
-      // At a curve point the limit is that point's Hs exactly (limits are inclusive, docs/domain.md#convention-6).
-      const lim = t === cTp[s + 1] ? cHs[s + 1] : cHs[s] + cSlope[s] * (t - cTp[s]);
-      let alpha = 1;
-      if (nA > 0) {
-        if (lim <= aFirstCol) alpha = aFirst;
-        else if (lim >= aLastCol) alpha = aLast;
-        else {
-          let j = 0;
-          while (aCols[j + 1] < lim) j++;
-          alpha = (aRow as Float64Array)[j] + aSlope[j] * (lim - aCols[j]);
-        }
-      }
-      k = (h > lim * alpha ? 1 : 0) + (h > lim ? 1 : 0);
+      const lim = curveLimit(curve, t);
+      k = (h > lim * curveAlpha(curve, lim) ? 1 : 0) + (h > lim ? 1 : 0);
     }
     if (k > cls[i]) cls[i] = k;
   }

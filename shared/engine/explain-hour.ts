@@ -147,6 +147,31 @@ export type HourStatus = 'workable' | 'marginal' | 'not_workable' | 'no_data';
 
 const ok = (x: number) => !Number.isNaN(x);
 
+/**
+ * The check of a limit without alpha: a maximum (met at or below `oplim`, margin oplim - value) or
+ * a minimum (met at or above, margin value - oplim); no figures where the value is missing (null).
+ */
+function plainCheck(
+  limit: LimitName,
+  label: string,
+  unit: LimitCheck['unit'],
+  value: number | null,
+  oplim: number,
+  sense: 'max' | 'min',
+): Omit<LimitCheck, 'metAtOplim'> {
+  return {
+    limit,
+    label,
+    unit,
+    value,
+    oplim,
+    opwf: null,
+    alpha: null,
+    margin: value === null ? null : sense === 'max' ? oplim - value : value - oplim,
+    met: value === null ? null : sense === 'max' ? value <= oplim : value >= oplim,
+  };
+}
+
 /** Linear interpolation of the Hs-Tp curve at tp; null outside its (closed) Tp range. */
 function curveAt(curve: [number, number][], tp: number): number | null {
   if (tp < curve[0][0] || tp > curve[curve.length - 1][0]) return null;
@@ -246,30 +271,8 @@ export function explainHour(
     });
   }
   const tp = ok(v.tpS) ? v.tpS : null;
-  if (l.tpMin != null)
-    push({
-      limit: 'tpMin',
-      label: 'Tp min',
-      unit: 's',
-      value: tp,
-      oplim: l.tpMin,
-      opwf: null,
-      alpha: null,
-      margin: tp === null ? null : tp - l.tpMin,
-      met: tp === null ? null : tp >= l.tpMin,
-    });
-  if (l.tpMax != null)
-    push({
-      limit: 'tpMax',
-      label: 'Tp max',
-      unit: 's',
-      value: tp,
-      oplim: l.tpMax,
-      opwf: null,
-      alpha: null,
-      margin: tp === null ? null : l.tpMax - tp,
-      met: tp === null ? null : tp <= l.tpMax,
-    });
+  if (l.tpMin != null) push(plainCheck('tpMin', 'Tp min', 's', tp, l.tpMin, 'min'));
+  if (l.tpMax != null) push(plainCheck('tpMax', 'Tp max', 's', tp, l.tpMax, 'max'));
   const bandMinHs = l.tpExcludedMinHs ?? DEFAULT_BAND_MIN_HS_M;
   for (const [from, to] of l.tpExcluded ?? []) {
     // A partition with enough worksite Hs inside the band breaks it too (docs/domain.md#partitions).
@@ -314,31 +317,11 @@ export function explainHour(
     const soulsby = l.bedVelocityMethod === 'soulsby';
     const u = soulsby ? v.bedVelocitySoulsbyMps : v.bedVelocityLinearMps;
     const has = ok(u) && ok(v.hsM) && ok(v.tpS);
-    push({
-      limit: 'bedVelocity',
-      label: `Bed velocity max (${soulsby ? 'Soulsby 2006' : 'linear'})`,
-      unit: 'm/s',
-      value: has ? u : null,
-      oplim: l.bedVelocityMax,
-      opwf: null,
-      alpha: null,
-      margin: has ? l.bedVelocityMax - u : null,
-      met: has ? u <= l.bedVelocityMax : null,
-    });
+    const label = `Bed velocity max (${soulsby ? 'Soulsby 2006' : 'linear'})`;
+    push(plainCheck('bedVelocity', label, 'm/s', has ? u : null, l.bedVelocityMax, 'max'));
   }
   if (l.windMax != null) {
-    const w = ok(v.windMps) ? v.windMps : null;
-    push({
-      limit: 'wind',
-      label: 'Wind max',
-      unit: 'm/s',
-      value: w,
-      oplim: l.windMax,
-      opwf: null,
-      alpha: null,
-      margin: w === null ? null : l.windMax - w,
-      met: w === null ? null : w <= l.windMax,
-    });
+    push(plainCheck('wind', 'Wind max', 'm/s', ok(v.windMps) ? v.windMps : null, l.windMax, 'max'));
   }
 
   // Exact limits of docs/domain.md#tide: alpha never applies.
@@ -347,44 +330,12 @@ export function explainHour(
     const parts = l.minDepthParts
       ? ` (draught ${words1(l.minDepthParts.draught)} m + clearance ${words1(l.minDepthParts.clearance)} m)`
       : '';
-    push({
-      limit: 'minDepth',
-      label: `Min depth${parts}`,
-      unit: 'm',
-      value: depth,
-      oplim: l.minDepth,
-      opwf: null,
-      alpha: null,
-      margin: depth === null ? null : depth - l.minDepth,
-      met: depth === null ? null : depth >= l.minDepth,
-    });
+    push(plainCheck('minDepth', `Min depth${parts}`, 'm', depth, l.minDepth, 'min'));
   }
-  if (l.maxDepth != null) {
-    push({
-      limit: 'maxDepth',
-      label: 'Max depth',
-      unit: 'm',
-      value: depth,
-      oplim: l.maxDepth,
-      opwf: null,
-      alpha: null,
-      margin: depth === null ? null : l.maxDepth - depth,
-      met: depth === null ? null : depth <= l.maxDepth,
-    });
-  }
+  if (l.maxDepth != null) push(plainCheck('maxDepth', 'Max depth', 'm', depth, l.maxDepth, 'max'));
   if (l.currentMax != null) {
     const cur = v.currentMps !== undefined && ok(v.currentMps) ? v.currentMps : null;
-    push({
-      limit: 'current',
-      label: 'Current max',
-      unit: 'm/s',
-      value: cur,
-      oplim: l.currentMax,
-      opwf: null,
-      alpha: null,
-      margin: cur === null ? null : l.currentMax - cur,
-      met: cur === null ? null : cur <= l.currentMax,
-    });
+    push(plainCheck('current', 'Current max', 'm/s', cur, l.currentMax, 'max'));
   }
   if (l.tideWindow) {
     const tw = l.tideWindow;

@@ -214,25 +214,8 @@ export const LIMIT = {
 } as const;
 export type LimitCode = (typeof LIMIT)[keyof typeof LIMIT];
 
-/** Names of the limits, used as keys of per-limit margins. */
-export type LimitName =
-  | 'hs'
-  | 'hsTpCurve'
-  | 'tpMin'
-  | 'tpMax'
-  | 'tpBand'
-  | 'bedVelocity'
-  | 'wind'
-  | 'minDepth'
-  | 'maxDepth'
-  | 'current'
-  | 'tideWindow'
-  | 'hsTarget'
-  | 'response';
-
-/** Name of each limit code, indexed by code; `LIMIT_NAMES[LIMIT.NONE]` is null. */
-export const LIMIT_NAMES: readonly (LimitName | null)[] = [
-  null,
+/** Names of the limits, in the order of their LIMIT codes (from LIMIT.HS). */
+export const LIMIT_NAME_LIST = [
   'hs',
   'hsTpCurve',
   'tpMin',
@@ -246,7 +229,13 @@ export const LIMIT_NAMES: readonly (LimitName | null)[] = [
   'tideWindow',
   'hsTarget',
   'response',
-];
+] as const;
+
+/** Names of the limits, used as keys of per-limit margins. */
+export type LimitName = (typeof LIMIT_NAME_LIST)[number];
+
+/** Name of each limit code, indexed by code; `LIMIT_NAMES[LIMIT.NONE]` is null. */
+export const LIMIT_NAMES: readonly (LimitName | null)[] = [null, ...LIMIT_NAME_LIST];
 
 /** Hourly evaluation of one operation over a series. */
 export interface HourlyEvaluation {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import './words';
+import { knownTimeZone } from './common';
 
 export const SubscriptionInput = z.object({
   /** Operations to hear about; empty = all of the project's. */
@@ -9,14 +9,7 @@ export const SubscriptionInput = z.object({
   immediate: z.boolean(),
   digest: z.boolean(),
   digestTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'must be a local time HH:MM'),
-  digestTimeZone: z.string().refine((zone) => {
-    try {
-      new Intl.DateTimeFormat('en', { timeZone: zone });
-      return true;
-    } catch {
-      return false;
-    }
-  }, 'unknown time zone'),
+  digestTimeZone: knownTimeZone(),
   active: z.boolean(),
   /** E-mail when a campaign's P50 finish moves by more than this many days between planning runs (clients and coordinators); null = off. */
   outlookMoveDays: z

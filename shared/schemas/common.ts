@@ -24,6 +24,19 @@ export function hasLoneSurrogate(s: string): boolean {
   return /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/.test(s);
 }
 
+/** True when the runtime knows the time zone (an IANA name such as 'Europe/Oslo', or an offset). */
+export function isKnownTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: zone });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** A time zone the runtime knows (see {@link isKnownTimeZone}), kept as written. */
+export const knownTimeZone = () => z.string().refine(isKnownTimeZone, 'unknown time zone');
+
 /** The checks every stored text gets (see {@link hasControlChars}, {@link hasLoneSurrogate}). */
 export const storableText = <S extends z.ZodType<string>>(schema: S) =>
   schema

@@ -5,6 +5,7 @@
  * same values with the same messages.
  */
 import { z } from 'zod';
+import { LIMIT_NAME_LIST } from '../engine/types';
 import { canonicalTimeZone } from './site-fields';
 import { longText, nameText, patchSchema } from './common';
 
@@ -21,22 +22,7 @@ export const LEDGER_MAX_DAYS = 93;
 export const LEDGER_MAX_DAY_HOURS = 25;
 
 /** Limiting factors a ledger day may name: the engine's limit names, or no data. */
-export const LEDGER_LIMITING_VALUES = [
-  'hs',
-  'hsTpCurve',
-  'tpMin',
-  'tpMax',
-  'tpBand',
-  'bedVelocity',
-  'wind',
-  'minDepth',
-  'maxDepth',
-  'current',
-  'tideWindow',
-  'hsTarget',
-  'response',
-  'noData',
-] as const;
+export const LEDGER_LIMITING_VALUES = [...LIMIT_NAME_LIST, 'noData'] as const;
 export type LedgerLimiting = (typeof LEDGER_LIMITING_VALUES)[number];
 
 /** Words for each limiting factor, for tables and the report. */

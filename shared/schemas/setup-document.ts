@@ -89,6 +89,27 @@ export const SetupCampaign = z.object({
 });
 export type SetupCampaign = z.infer<typeof SetupCampaign>;
 
+/**
+ * The name keys (nameKey) of a document's worksites or operations, with an issue on each name
+ * used twice; `then` checks each item further, right after its name.
+ */
+function namesUsedOnce<T extends { name: string }>(
+  items: readonly T[],
+  field: 'worksites' | 'operations',
+  what: string,
+  ctx: z.RefinementCtx,
+  then?: (item: T, i: number) => void,
+): Set<string> {
+  const keys = new Set<string>();
+  items.forEach((item, i) => {
+    const key = nameKey(item.name);
+    if (keys.has(key)) ctx.addIssue({ code: 'custom', path: [field, i, 'name'], message: `${what} name "${item.name}" is used twice` });
+    keys.add(key);
+    then?.(item, i);
+  });
+  return keys;
+}
+
 export const ProjectSetupDocument = z
   .object({
     format: z.literal(SETUP_FORMAT, { error: `format must be "${SETUP_FORMAT}"` }),
@@ -101,25 +122,14 @@ export const ProjectSetupDocument = z
     campaigns: z.array(SetupCampaign).max(200, 'At most 200 campaigns').optional(),
   })
   .superRefine((doc, ctx) => {
-    const sites = new Set<string>();
-    doc.worksites.forEach((w, i) => {
-      const key = nameKey(w.name);
-      if (sites.has(key))
-        ctx.addIssue({ code: 'custom', path: ['worksites', i, 'name'], message: `Worksite name "${w.name}" is used twice` });
-      sites.add(key);
-    });
-    const ops = new Set<string>();
-    doc.operations.forEach((o, i) => {
-      const key = nameKey(o.name);
-      if (ops.has(key))
-        ctx.addIssue({ code: 'custom', path: ['operations', i, 'name'], message: `Operation name "${o.name}" is used twice` });
-      ops.add(key);
+    const sites = namesUsedOnce(doc.worksites, 'worksites', 'Worksite', ctx);
+    const ops = namesUsedOnce(doc.operations, 'operations', 'Operation', ctx, (o, i) =>
       o.siteNames.forEach((s, j) => {
         if (!sites.has(nameKey(s))) {
           ctx.addIssue({ code: 'custom', path: ['operations', i, 'siteNames', j], message: `No worksite named "${s}" in the document` });
         }
-      });
-    });
+      }),
+    );
     (doc.campaigns ?? []).forEach((c, i) =>
       c.steps.forEach((step, j) => {
         if (!ops.has(nameKey(step.operationName))) {

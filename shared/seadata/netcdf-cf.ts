@@ -784,6 +784,29 @@ function fromComponents(east: Float64Array, north: Float64Array, sense: 'from' |
   return [speed, dir];
 }
 
+/**
+ * Speed and direction from the east and north component series when both were read (see
+ * fromComponents), set under the roles `speedRole` and `dirRole`.
+ *
+ * @returns true when both components were there and the two series are set.
+ */
+function setFromComponents(
+  series: Map<CfRole, Float64Array>,
+  eastRole: CfRole,
+  northRole: CfRole,
+  sense: 'from' | 'to',
+  speedRole: CfRole,
+  dirRole: CfRole,
+): boolean {
+  const east = series.get(eastRole);
+  const north = series.get(northRole);
+  if (!east || !north) return false;
+  const [speed, dir] = fromComponents(east, north, sense);
+  series.set(speedRole, speed);
+  series.set(dirRole, dir);
+  return true;
+}
+
 const toFrom = (dir: Float64Array) => {
   for (let i = 0; i < dir.length; i++) if (dir[i] === dir[i]) dir[i] = (dir[i] + 180) % 360;
 };
@@ -816,22 +839,12 @@ export function readCfPoint(file: NcFile, plan: CfPlan, options: CfPointOptions)
   }
 
   // Wind from components: speed and the direction it comes from (meteorological convention).
-  const u = series.get('u');
-  const vv = series.get('v');
-  if (u && vv) {
-    const [wind, windDir] = fromComponents(u, vv, 'from');
-    series.set('wind', wind);
-    series.set('windDir', windDir);
+  if (setFromComponents(series, 'u', 'v', 'from', 'wind', 'windDir')) {
     notes.push('wind speed and coming-from direction computed from eastward_wind and northward_wind');
   }
 
   // Current from components: speed and the direction the water flows towards.
-  const cu = series.get('currentU');
-  const cv = series.get('currentV');
-  if (cu && cv) {
-    const [speed, dir] = fromComponents(cu, cv, 'to');
-    series.set('currentSpeed', speed);
-    series.set('currentDir', dir);
+  if (setFromComponents(series, 'currentU', 'currentV', 'to', 'currentSpeed', 'currentDir')) {
     notes.push(
       `current speed and going-to direction computed from ${CURRENT_NAMES.u} and ${CURRENT_NAMES.v} (stored going-to, the oceanographic convention)`,
     );

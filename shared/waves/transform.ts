@@ -792,6 +792,56 @@ export interface TransformChain {
 }
 
 /**
+ * The chain of a record that gives no sea state at the worksite: the inputs as given, every
+ * computed step NaN.
+ *
+ * @param record - the record (its Hs, Tp and direction are echoed).
+ * @param shoreNormalDeg - the worksite's shore normal (deg) or null.
+ * @param waterLevelM - the water level used (m).
+ * @param depthM - the still-water depth at the worksite (m).
+ * @param depthLimitM - gamma_b*h (m), NaN when not reached.
+ * @param flags - TRANSFORM_FLAG bits (DRY or MISSING_INPUT).
+ * @returns the `TransformChain` with NaN outputs.
+ */
+function unresolvedChain(
+  record: SeaRecordInput,
+  shoreNormalDeg: number | null,
+  waterLevelM: number,
+  depthM: number,
+  depthLimitM: number,
+  flags: number,
+): TransformChain {
+  return {
+    hsSrcM: record.hsM,
+    tpS: record.tpS,
+    tzS: NaN,
+    tzSource: 'missing',
+    dirSrcDeg: record.dirDeg ?? NaN,
+    missing: null,
+    shoreNormalDeg,
+    thetaSrcDeg: NaN,
+    thetaSiteDeg: NaN,
+    cSrcMps: NaN,
+    cSiteMps: NaN,
+    cgSrcMps: NaN,
+    cgSiteMps: NaN,
+    ks: NaN,
+    kr: NaN,
+    transferFactor: NaN,
+    hsBeforeCapM: NaN,
+    waterLevelM,
+    depthM,
+    depthLimitM,
+    hsM: NaN,
+    dirDeg: NaN,
+    flags,
+    flagNames: transformFlagNames(flags),
+    bedVelocityLinearMps: NaN,
+    bedVelocitySoulsbyMps: NaN,
+  };
+}
+
+/**
  * Transforms one record and returns every step of the chain (same rules as `transformToSite`, and
  * the same numbers bit for bit: the series path caches exactly these per-period terms).
  *
@@ -814,34 +864,7 @@ export function transformOne(
     // Dry (or an unknown level): no wave data at the worksite this hour (docs/domain.md#tide).
     checkSetup(source, site, options);
     const flags = eta === eta ? TRANSFORM_FLAG.DRY : TRANSFORM_FLAG.MISSING_INPUT;
-    return {
-      hsSrcM: record.hsM,
-      tpS: record.tpS,
-      tzS: NaN,
-      tzSource: 'missing',
-      dirSrcDeg: record.dirDeg ?? NaN,
-      missing: null,
-      shoreNormalDeg: site.shoreNormalDeg ?? null,
-      thetaSrcDeg: NaN,
-      thetaSiteDeg: NaN,
-      cSrcMps: NaN,
-      cSiteMps: NaN,
-      cgSrcMps: NaN,
-      cgSiteMps: NaN,
-      ks: NaN,
-      kr: NaN,
-      transferFactor: NaN,
-      hsBeforeCapM: NaN,
-      waterLevelM: eta,
-      depthM: h,
-      depthLimitM: NaN,
-      hsM: NaN,
-      dirDeg: NaN,
-      flags,
-      flagNames: transformFlagNames(flags),
-      bedVelocityLinearMps: NaN,
-      bedVelocitySoulsbyMps: NaN,
-    };
+    return unresolvedChain(record, site.shoreNormalDeg ?? null, eta, h, NaN, flags);
   }
   const setup = checkSetup(source, eta === 0 ? site : { ...site, depthM: h }, options);
   const { g, tzOverTp, siteDepthM, depthLimitM, table, bearing } = setup;
@@ -849,34 +872,7 @@ export function transformOne(
   const tp = record.tpS;
   const dir = record.dirDeg ?? NaN;
   const tzGiven = record.tzS ?? NaN;
-  const chain: TransformChain = {
-    hsSrcM: hs,
-    tpS: tp,
-    tzS: NaN,
-    tzSource: 'missing',
-    dirSrcDeg: dir,
-    missing: null,
-    shoreNormalDeg: bearing,
-    thetaSrcDeg: NaN,
-    thetaSiteDeg: NaN,
-    cSrcMps: NaN,
-    cSiteMps: NaN,
-    cgSrcMps: NaN,
-    cgSiteMps: NaN,
-    ks: NaN,
-    kr: NaN,
-    transferFactor: NaN,
-    hsBeforeCapM: NaN,
-    waterLevelM: eta,
-    depthM: h,
-    depthLimitM,
-    hsM: NaN,
-    dirDeg: NaN,
-    flags: TRANSFORM_FLAG.MISSING_INPUT,
-    flagNames: ['MISSING_INPUT'],
-    bedVelocityLinearMps: NaN,
-    bedVelocitySoulsbyMps: NaN,
-  };
+  const chain = unresolvedChain(record, bearing, eta, h, depthLimitM, TRANSFORM_FLAG.MISSING_INPUT);
   if (!(hs >= 0 && hs < Infinity)) return { ...chain, missing: 'hs' };
   if (!(tp > 0 && tp < Infinity)) return { ...chain, missing: 'tp' };
   if ((table || bearing !== null) && Number.isNaN(dir)) return { ...chain, missing: 'dir' };

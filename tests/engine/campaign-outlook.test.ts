@@ -9,6 +9,7 @@ import {
   simulateOutlook,
   type OutlookForecastMember,
 } from '../../shared/engine';
+import { mulberry32 } from '../../bench/lib/random';
 
 const HOUR = 3_600_000;
 
@@ -17,18 +18,6 @@ function hourlyAxis(fromYear: number, toYear: number): Float64Array {
   const t0 = Date.UTC(fromYear, 0, 1);
   const n = (Date.UTC(toYear + 1, 0, 1) - t0) / HOUR;
   return Float64Array.from({ length: n }, (_, i) => t0 + i * HOUR);
-}
-
-/** A small deterministic pseudo-random generator (mulberry32), so a failing case can be rerun. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 interface BruteSample {
@@ -110,7 +99,7 @@ describe('simulateOutlook against a brute-force simulation (issue 21 rule; docs/
         fc.integer({ min: 0, max: 60 }),
         fc.boolean(),
         (seed, tpopH, nowOffsetH, withForecast) => {
-          const r = rng(seed);
+          const r = mulberry32(seed);
           // Sparse go-starts (about 1 in 60 hours in the hindcast, 1 in 30 in the forecast); none in
           // the hindcast's last two months for the last step, so late samples are censored.
           const hindFlags = tpopH.map((_, s) =>
@@ -182,7 +171,7 @@ describe('simulateOutlook against a brute-force simulation (issue 21 rule; docs/
   });
 
   it('with no forecast, equals the hindcast-only campaign simulation started at the current time (simulateCampaign, a separate function)', () => {
-    const r = rng(7);
+    const r = mulberry32(7);
     const flags = [Uint8Array.from(hindTimes, () => (r() < 0.02 ? 1 : 0)), Uint8Array.from(hindTimes, () => (r() < 0.01 ? 1 : 0))];
     // Now is the 1st of March at 00:00 UTC of a future year: the start date simulateCampaign uses.
     const nowMs = Date.UTC(2027, 2, 1);
