@@ -10,14 +10,20 @@ const T0 = Date.UTC(2026, 0, 1);
 const hours = (...h: number[]) => Float64Array.from(h, (x) => T0 + x * HOUR);
 const asPairs = (points: { x: Date; y: number | null }[]) => points.map((p) => [(p.x.getTime() - T0) / HOUR, p.y]);
 
+/** Thins records at these hours after T0 (step 1 h) over [T0, T0 + endH hours) into at most maxPoints; points as [hour, value]. */
+function thinHourly(at: number[], values: number[], endH: number, maxPoints: number) {
+  const { points, bucketMs } = maxPerBucket(hours(...at), Float64Array.from(values), T0, T0 + endH * HOUR, maxPoints, HOUR);
+  return { pairs: asPairs(points), bucketMs };
+}
+
 describe('maxPerBucket', () => {
   it('keeps each bucket’s highest value, so a one-hour storm peak survives thinning', () => {
     // 12 hourly records into 3 buckets of 4 h; a peak of 5.2 m at hour 6, a missing value at hour 9.
-    const hs = Float64Array.from([1, 1.2, 1.1, 0.9, 2, 2.5, 5.2, 2.1, 1.5, NaN, 1.4, 1.3]);
-    const { points, bucketMs } = maxPerBucket(hours(0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11), hs, T0, T0 + 12 * HOUR, 3, HOUR);
+    const hs = [1, 1.2, 1.1, 0.9, 2, 2.5, 5.2, 2.1, 1.5, NaN, 1.4, 1.3];
+    const { pairs, bucketMs } = thinHourly([0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11], hs, 12, 3);
     expect(bucketMs).toBe(4 * HOUR);
     // Points at the middle of each bucket (2 h, 6 h, 10 h); maxima counted by hand.
-    expect(asPairs(points)).toEqual([
+    expect(pairs).toEqual([
       [2, 1.2],
       [6, 5.2],
       [10, 1.5],
@@ -25,15 +31,8 @@ describe('maxPerBucket', () => {
   });
 
   it('gives a null point for a bucket without a value, so the line breaks there', () => {
-    const { points } = maxPerBucket(
-      hours(0, 1, 2, 3, 8, 9, 10, 11),
-      Float64Array.from([1, 2, 3, 4, 5, 6, 7, 8]),
-      T0,
-      T0 + 12 * HOUR,
-      3,
-      HOUR,
-    );
-    expect(asPairs(points)).toEqual([
+    const { pairs } = thinHourly([0, 1, 2, 3, 8, 9, 10, 11], [1, 2, 3, 4, 5, 6, 7, 8], 12, 3);
+    expect(pairs).toEqual([
       [2, 4],
       [6, null],
       [10, 8],
@@ -41,9 +40,9 @@ describe('maxPerBucket', () => {
   });
 
   it('returns few records as they are, missing values as null, with no break inside a steady step', () => {
-    const { points, bucketMs } = maxPerBucket(hours(0, 1, 2, 3, 4), Float64Array.from([1, NaN, 3, 4, 5]), T0, T0 + 5 * HOUR, 10, HOUR);
+    const { pairs, bucketMs } = thinHourly([0, 1, 2, 3, 4], [1, NaN, 3, 4, 5], 5, 10);
     expect(bucketMs).toBe(0);
-    expect(asPairs(points)).toEqual([
+    expect(pairs).toEqual([
       [0, 1],
       [1, null],
       [2, 3],
@@ -54,15 +53,8 @@ describe('maxPerBucket', () => {
 
   it('breaks raw records at a gap, one step after the last record before it', () => {
     // Hourly, then 5 h missing (a spacing of 6 h > 1.5 x 1 h on both sides), then hourly again.
-    const { points } = maxPerBucket(
-      hours(0, 1, 2, 3, 9, 10, 11, 12),
-      Float64Array.from([1, 1, 1, 1, 2, 2, 2, 2]),
-      T0,
-      T0 + 13 * HOUR,
-      100,
-      HOUR,
-    );
-    expect(asPairs(points)).toEqual([
+    const { pairs } = thinHourly([0, 1, 2, 3, 9, 10, 11, 12], [1, 1, 1, 1, 2, 2, 2, 2], 13, 100);
+    expect(pairs).toEqual([
       [0, 1],
       [1, 1],
       [2, 1],
@@ -76,10 +68,10 @@ describe('maxPerBucket', () => {
   });
 
   it('does not break a forecast that turns from hourly to 3-hourly', () => {
-    const times = hours(0, 1, 2, 3, 4, 7, 10, 13, 16);
-    const { points } = maxPerBucket(times, new Float64Array(times.length).fill(1), T0, T0 + 19 * HOUR, 100, HOUR);
-    expect(points.some((p) => p.y === null)).toBe(false);
-    expect(points).toHaveLength(times.length);
+    const at = [0, 1, 2, 3, 4, 7, 10, 13, 16];
+    const { pairs } = thinHourly(at, Array<number>(at.length).fill(1), 19, 100);
+    expect(pairs.some(([, y]) => y === null)).toBe(false);
+    expect(pairs).toHaveLength(at.length);
   });
 
   it('answers nothing for no records', () => {
