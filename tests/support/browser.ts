@@ -126,6 +126,13 @@ export async function openDemoProject(page: Page, section?: string): Promise<voi
   if (section) await nav.getByRole('link', { name: section }).click();
 }
 
+/** Signs in with `email`, opens `section` of the demo project from the projects list and waits for its `heading`. */
+export async function signInAndOpenSection(page: Page, baseUrl: string, email: string, section: string, heading: string): Promise<void> {
+  await signInAs(page, baseUrl, email);
+  await openDemoProject(page, section);
+  await page.getByRole('heading', { name: heading }).waitFor();
+}
+
 /** The demo accounts of the seed (seed/scenario.ts), by role. */
 export type DemoAccount = (typeof DEMO_USERS)[number]['key'];
 
