@@ -90,6 +90,24 @@ function parseSetCookies(header: string | string[] | undefined) {
   });
 }
 
+/**
+ * An app with a sign-in limit of `limit` attempts a minute, served on a real socket (`serve` makes
+ * the served app from the test app; by default the test app itself): one `beforeAll` starts it, one
+ * `afterAll` closes it. Read its fields inside tests.
+ */
+function useRateLimitedServer(limit: number, serve: (t: TestApp) => Express = (t) => t.app) {
+  const running = {} as { t: TestApp; server: Listening };
+  beforeAll(async () => {
+    running.t = await createTestApp({ signInPerMinute: limit });
+    running.server = await listen(serve(running.t));
+  });
+  afterAll(async () => {
+    await running.server?.close();
+    await running.t?.close();
+  });
+  return running;
+}
+
 /** The `name=value` of the session cookie set by a sign-in answer. */
 function sessionCookieOf(res: { headers: Record<string, unknown> }): string {
   const cookie = parseSetCookies(res.headers['set-cookie'] as string[] | undefined).find((c) => c.name.endsWith('lullwatch.session_token'));
@@ -101,28 +119,21 @@ describe('sign-in rate limit per client address', () => {
   // OWASP Authentication Cheat Sheet ("Protect against automated attacks": rate limiting) and
   // OWASP ASVS V2.2.1 (anti-automation on authentication), cited from memory.
   const LIMIT = 3;
-  let t: TestApp;
-  let server: Listening;
-
-  beforeAll(async () => {
-    t = await createTestApp({ signInPerMinute: LIMIT });
-    server = await listen(t.app);
-  });
-  afterAll(async () => {
-    await server?.close();
-    await t?.close();
-  });
+  const app = useRateLimitedServer(LIMIT);
 
   it('answers 429 after the configured number of attempts, even to the right password', async () => {
     for (let i = 0; i < LIMIT; i++) {
-      const res = await postFrom(server.port, '127.0.0.1', SIGN_IN, { email: 'coordinator@example.com', password: 'wrong-password-1' });
+      const res = await postFrom(app.server.port, '127.0.0.1', SIGN_IN, { email: 'coordinator@example.com', password: 'wrong-password-1' });
       expect(res.status, `attempt ${i + 1}`).toBe(401);
     }
-    const blocked = await postFrom(server.port, '127.0.0.1', SIGN_IN, { email: 'coordinator@example.com', password: 'wrong-password-1' });
+    const blocked = await postFrom(app.server.port, '127.0.0.1', SIGN_IN, {
+      email: 'coordinator@example.com',
+      password: 'wrong-password-1',
+    });
     expect(blocked.status).toBe(429);
     expect(Number(blocked.headers['x-retry-after'])).toBeGreaterThan(0);
     // Blocked means blocked: the right password gets no session either, so guessing cannot go on.
-    const right = await postFrom(server.port, '127.0.0.1', SIGN_IN, { email: 'coordinator@example.com', password: DEMO_PASSWORD });
+    const right = await postFrom(app.server.port, '127.0.0.1', SIGN_IN, { email: 'coordinator@example.com', password: DEMO_PASSWORD });
     expect(right.status).toBe(429);
     expect(right.headers['set-cookie']).toBeUndefined();
   });
@@ -131,7 +142,7 @@ describe('sign-in rate limit per client address', () => {
     const emails = ['a@example.com', 'b@example.com', 'c@example.com', 'd@example.com'];
     const statuses: number[] = [];
     for (const email of emails)
-      statuses.push((await postFrom(server.port, '127.0.0.3', SIGN_IN, { email, password: 'wrong-password-2' })).status);
+      statuses.push((await postFrom(app.server.port, '127.0.0.3', SIGN_IN, { email, password: 'wrong-password-2' })).status);
     expect(statuses).toEqual([401, 401, 401, 429]);
   });
 
@@ -143,7 +154,13 @@ describe('sign-in rate limit per client address', () => {
       { [CLIENT_IP_HEADER]: '203.0.113.10', 'x-forwarded-for': '203.0.113.10' },
     ];
     for (const headers of attempts) {
-      const res = await postFrom(server.port, '127.0.0.1', SIGN_IN, { email: 'coordinator@example.com', password: DEMO_PASSWORD }, headers);
+      const res = await postFrom(
+        app.server.port,
+        '127.0.0.1',
+        SIGN_IN,
+        { email: 'coordinator@example.com', password: DEMO_PASSWORD },
+        headers,
+      );
       expect(res.status, JSON.stringify(headers)).toBe(429);
     }
   });
@@ -151,14 +168,14 @@ describe('sign-in rate limit per client address', () => {
   it('does not block another client address', async () => {
     // Another account: the coordinator's own account is now in its per-account back-off after
     // the attempts above (tests/api/probe-findings.test.ts covers that back-off).
-    const res = await postFrom(server.port, '127.0.0.2', SIGN_IN, { email: 'skipper@example.com', password: DEMO_PASSWORD });
+    const res = await postFrom(app.server.port, '127.0.0.2', SIGN_IN, { email: 'skipper@example.com', password: DEMO_PASSWORD });
     expect(res.status).toBe(200);
     expect(sessionCookieOf(res)).toMatch(/session_token=/);
   });
 
   it('keeps the count in the database, so a second app instance on the same database also refuses', async () => {
     // DEVELOPERS.md "Sign-in rate limits in the database (several instances share them)".
-    const other = createApp(t.deps);
+    const other = createApp(app.t.deps);
     const res = await request(other)
       .post(SIGN_IN)
       .set('Origin', TEST_ORIGIN)
@@ -169,23 +186,13 @@ describe('sign-in rate limit per client address', () => {
 
 describe('sign-in rate limit behind a trusted proxy', () => {
   const LIMIT = 3;
-  let t: TestApp;
-  let server: Listening;
-
-  beforeAll(async () => {
-    t = await createTestApp({ signInPerMinute: LIMIT });
-    // The proxy is on loopback; the client address is the nearest untrusted hop in X-Forwarded-For.
-    server = await listen(createApp(t.deps, { trustProxy: 'loopback' }));
-  });
-  afterAll(async () => {
-    await server?.close();
-    await t?.close();
-  });
+  // The proxy is on loopback; the client address is the nearest untrusted hop in X-Forwarded-For.
+  const app = useRateLimitedServer(LIMIT, (t) => createApp(t.deps, { trustProxy: 'loopback' }));
 
   it('keys the limit on the forwarded client, and a forged leftmost address changes nothing', async () => {
     const attempt = (forwardedFor: string) =>
       postFrom(
-        server.port,
+        app.server.port,
         '127.0.0.1',
         SIGN_IN,
         { email: 'skipper@example.com', password: 'wrong-password-3' },
@@ -198,7 +205,7 @@ describe('sign-in rate limit behind a trusted proxy', () => {
     // Another client behind the same proxy is not blocked (another account: this one is in its
     // per-account back-off after five attempts).
     const other = await postFrom(
-      server.port,
+      app.server.port,
       '127.0.0.1',
       SIGN_IN,
       { email: 'client@example.com', password: 'wrong-password-3' },

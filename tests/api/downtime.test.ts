@@ -16,6 +16,7 @@ import { readSeries } from '../../server/services/series-store';
 import { loadProjectSetup, operationSpec, transformForSite } from '../../server/services/site-context';
 import { createDataset } from '../../server/services/datasets';
 import { toSeaSeries } from '../../server/services/sea-series';
+import type { DemoIds } from '../../seed/demo';
 import { ledgerDay, statsCache } from '../../server/db/schema';
 import { clearStatsMemo, settleStatsCache } from '../../server/services/workability';
 
@@ -238,6 +239,18 @@ describe('campaigns', () => {
     never = await step('Never goes', 4, 0, { tpMin: 39, tpMax: 40 }, route);
   });
 
+  /**
+   * Creates a campaign as the coordinator, its steps each an operation at one of the demo sites, and
+   * answers its simulation as the client sees it.
+   */
+  async function createAndSimulate(name: string, steps: [string, keyof DemoIds['siteIds']][], plannedStart?: string) {
+    const c = await ctx.as.coordinator
+      .post(`${ctx.base}/campaigns`)
+      .send({ name, steps: steps.map(([operationId, site]) => ({ operationId, siteId: ctx.t.demo.siteIds[site] })), plannedStart });
+    expect(c.status, c.text).toBe(201);
+    return (await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
+  }
+
   it('creates, lists, reorders and deletes a campaign; validates its steps', async () => {
     const steps = [
       { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
@@ -362,17 +375,15 @@ describe('campaigns', () => {
   });
 
   it('hand case: in a sea where every hour is workable the campaign takes the sum of TPOP, WoW 0', async () => {
-    const c = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({
-      name: 'Calm campaign',
-      steps: [
-        { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
-        { operationId: calmB, siteId: ctx.t.demo.siteIds.substation },
-        { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
+    const sim = await createAndSimulate(
+      'Calm campaign',
+      [
+        [calmA, 'route'],
+        [calmB, 'substation'],
+        [calmA, 'route'],
       ],
-      plannedStart: '2027-04-15T00:00:00Z',
-    });
-    expect(c.status, c.text).toBe(201);
-    const sim = (await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
+      '2027-04-15T00:00:00Z',
+    );
     // Hand sum: 10 + 6 + 10 = 26 h.
     expect(sim.sumTpopHours).toBe(26);
     for (const m of sim.months) {
@@ -390,14 +401,10 @@ describe('campaigns', () => {
   });
 
   it('hand case: a step that never gets a go-start censors every year', async () => {
-    const c = await ctx.as.coordinator.post(`${ctx.base}/campaigns`).send({
-      name: 'Hopeless',
-      steps: [
-        { operationId: calmA, siteId: ctx.t.demo.siteIds.route },
-        { operationId: never, siteId: ctx.t.demo.siteIds.route },
-      ],
-    });
-    const sim = (await ctx.as.client.post(`${ctx.base}/campaigns/${c.body.id}/simulate`)).body as CampaignSimulation;
+    const sim = await createAndSimulate('Hopeless', [
+      [calmA, 'route'],
+      [never, 'route'],
+    ]);
     for (const m of sim.months) {
       expect(m.years).toBe(3);
       expect(m.censoredYears).toEqual([2023, 2024, 2025]);
@@ -427,6 +434,47 @@ describe('campaigns', () => {
   });
 });
 
+/**
+ * Stores a sea of Tp 6 s from 250° in the demo project, all of it one wind-sea partition and no
+ * swell (Hs 0 = absent, docs/domain.md#partitions), so limits on the swell find their value.
+ */
+async function storeWindSeaOnly(
+  meta: { name: string; kind: 'observation' | 'forecast'; dataPointName: string; issuedAt?: Date },
+  timeMs: Float64Array,
+  hs: Float64Array,
+  wind: Float64Array,
+) {
+  const n = timeMs.length;
+  return createDataset(
+    ctx.t.database.db,
+    {
+      projectId: ctx.t.demo.projectId,
+      createdBy: ctx.t.demo.users.coordinator,
+      dataPointLatitude: null,
+      dataPointLongitude: null,
+      dataPointDepthM: null,
+      sourceKind: 'upload',
+      ...meta,
+    },
+    toSeaSeries({
+      timeMs,
+      hs,
+      tp: new Float64Array(n).fill(6),
+      dir: new Float64Array(n).fill(250),
+      wind,
+      extra: {
+        'windSea.hs': hs.slice(),
+        'windSea.tp': new Float64Array(n).fill(6),
+        'windSea.dir': new Float64Array(n).fill(250),
+        'swell1.hs': new Float64Array(n).fill(0),
+        'swell1.tp': new Float64Array(n).fill(NaN),
+        'swell1.dir': new Float64Array(n).fill(NaN),
+      },
+    }),
+    {},
+  );
+}
+
 describe('the downtime ledger', () => {
   let proposed: LedgerProposeAnswer;
   let obsId: string;
@@ -438,37 +486,11 @@ describe('the downtime ledger', () => {
     const start = Date.UTC(2026, 11, 3);
     const n = 24;
     const timeMs = Float64Array.from({ length: n }, (_, i) => start + i * HOUR);
-    const obs = await createDataset(
-      ctx.t.database.db,
-      {
-        projectId: ctx.t.demo.projectId,
-        createdBy: ctx.t.demo.users.coordinator,
-        name: 'Calm buoy day (test)',
-        kind: 'observation',
-        dataPointName: 'test buoy',
-        dataPointLatitude: null,
-        dataPointLongitude: null,
-        dataPointDepthM: null,
-        sourceKind: 'upload',
-      },
-      toSeaSeries({
-        timeMs,
-        hs: new Float64Array(n).fill(0.2),
-        tp: new Float64Array(n).fill(6),
-        dir: new Float64Array(n).fill(250),
-        wind: new Float64Array(n).fill(3),
-        // The same calm sea as one wind-sea partition and no swell (Hs 0 = absent,
-        // docs/domain.md#partitions), so limits on the swell find their value.
-        extra: {
-          'windSea.hs': new Float64Array(n).fill(0.2),
-          'windSea.tp': new Float64Array(n).fill(6),
-          'windSea.dir': new Float64Array(n).fill(250),
-          'swell1.hs': new Float64Array(n).fill(0),
-          'swell1.tp': new Float64Array(n).fill(NaN),
-          'swell1.dir': new Float64Array(n).fill(NaN),
-        },
-      }),
-      {},
+    const obs = await storeWindSeaOnly(
+      { name: 'Calm buoy day (test)', kind: 'observation', dataPointName: 'test buoy' },
+      timeMs,
+      new Float64Array(n).fill(0.2),
+      new Float64Array(n).fill(3),
     );
     obsId = obs.id;
     // An earlier forecast issue (30 November 18:00 UTC, 18 hours): calm until 06:00 on
@@ -477,37 +499,11 @@ describe('the downtime ledger', () => {
     const fn = 18;
     const fTime = Float64Array.from({ length: fn }, (_, i) => fStart + i * HOUR);
     const calm = (i: number) => fTime[i] < Date.UTC(2026, 11, 1, 6);
-    const earlier = await createDataset(
-      ctx.t.database.db,
-      {
-        projectId: ctx.t.demo.projectId,
-        createdBy: ctx.t.demo.users.coordinator,
-        name: 'Forecast issued 2026-11-30 18:00 UTC (test)',
-        kind: 'forecast',
-        dataPointName: 'test',
-        dataPointLatitude: null,
-        dataPointLongitude: null,
-        dataPointDepthM: null,
-        sourceKind: 'upload',
-        issuedAt: new Date(fStart),
-      },
-      toSeaSeries({
-        timeMs: fTime,
-        hs: Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 0.2 : 9)),
-        tp: new Float64Array(fn).fill(6),
-        dir: new Float64Array(fn).fill(250),
-        wind: Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 3 : 30)),
-        // All of it wind sea, no swell (docs/domain.md#partitions), so swell limits find their value.
-        extra: {
-          'windSea.hs': Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 0.2 : 9)),
-          'windSea.tp': new Float64Array(fn).fill(6),
-          'windSea.dir': new Float64Array(fn).fill(250),
-          'swell1.hs': new Float64Array(fn).fill(0),
-          'swell1.tp': new Float64Array(fn).fill(NaN),
-          'swell1.dir': new Float64Array(fn).fill(NaN),
-        },
-      }),
-      {},
+    const earlier = await storeWindSeaOnly(
+      { name: 'Forecast issued 2026-11-30 18:00 UTC (test)', kind: 'forecast', dataPointName: 'test', issuedAt: new Date(fStart) },
+      fTime,
+      Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 0.2 : 9)),
+      Float64Array.from({ length: fn }, (_, i) => (calm(i) ? 3 : 30)),
     );
     earlierIssueId = earlier.id;
     now = NOW_LEDGER;

@@ -17,7 +17,7 @@ import { safeFileName } from '../../server/services/dataset-import';
 import { csvField } from '../../shared/csv-field';
 import { MAX_COLUMNS, MAX_LINE_CHARS, binaryMark } from '../../shared/seadata';
 import { toCsv } from '../../src/lib/csv';
-import { type Agent, useSignedInApp } from '../support/app';
+import { type Agent, planAndReadMail, subscribeSkipperToDigest, useSignedInApp } from '../support/app';
 
 // The fake forecast service issues every 6 h; this is just after the 06:00 issue.
 const NOW = new Date('2026-12-01T06:20:00Z');
@@ -461,11 +461,7 @@ describe('places that render names outside React', () => {
   }
 
   it('escapes names in alert e-mails (OWASP XSS Prevention: HTML-encode untrusted text)', async () => {
-    const res = await ctx.as.admin.post('/api/admin/jobs/plan').send({ projectId: ctx.t.demo.projectId });
-    expect(res.status, res.text).toBe(200);
-    const mails = ctx.t.mailer.fake!.messages;
-    expect(mails.length).toBeGreaterThan(0);
-    for (const m of mails) {
+    for (const m of await planAndReadMail(ctx)) {
       expectEscapedHtml(m.html);
       expect(m.html).toContain('&lt;script&gt;alert(1)&lt;/script&gt; &amp; co'); // the project name
       // The plain-text part and the subject are text: the names appear as typed.
@@ -475,16 +471,7 @@ describe('places that render names outside React', () => {
   });
 
   it('escapes names in the daily digest', async () => {
-    const sub = await ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
-      operationIds: [],
-      siteIds: [],
-      immediate: true,
-      digest: true,
-      digestTime: '00:00',
-      digestTimeZone: 'UTC',
-      active: true,
-    });
-    expect(sub.status, sub.text).toBe(200);
+    await subscribeSkipperToDigest(ctx, '00:00');
     expect(await queueDigests(ctx.t.deps)).toBeGreaterThan(0);
     const digests = await ctx.t.deps.db.select().from(outbox).where(like(outbox.idempotencyKey, 'digest:%'));
     expect(digests.length).toBeGreaterThan(0);
@@ -751,15 +738,20 @@ describe('hostile uploads', () => {
     for (const n of fs.readdirSync(UPLOAD_DIR)) expect(n).toMatch(/^[0-9a-f]{32}$/);
   });
 
-  it('cleans file names even where the multipart parser would not (a second line of defence)', () => {
-    expect(safeFileName('../../etc/passwd')).toBe('passwd');
-    expect(safeFileName('..\\..\\x.csv')).toBe('x.csv');
-    expect(safeFileName('C:evil.csv')).toBe('evil.csv');
-    expect(safeFileName('..')).toBe('upload');
-    expect(safeFileName('a\u0000b\u001b[31m\u009b.csv')).toBe('ab[31m.csv');
-    expect(safeFileName('invoice\u202Egpj.exe')).toBe('invoicegpj.exe');
-    expect(safeFileName(`${'x'.repeat(199)}🌊🌊`)).toBe(`${'x'.repeat(199)}🌊`);
-    expect(safeFileName('\ud800.csv')).toBe('\ufffd.csv');
+  it.each([
+    ['../../etc/passwd', 'passwd'],
+    ['..\\..\\x.csv', 'x.csv'],
+    ['C:evil.csv', 'evil.csv'],
+    ['..', 'upload'],
+    ['a\u0000b\u001b[31m\u009b.csv', 'ab[31m.csv'],
+    ['invoice\u202Egpj.exe', 'invoicegpj.exe'],
+    [`${'x'.repeat(199)}🌊🌊`, `${'x'.repeat(199)}🌊`],
+    ['\ud800.csv', '\ufffd.csv'],
+  ])('cleans file names even where the multipart parser would not (a second line of defence): %j', (name, expected) => {
+    expect(safeFileName(name)).toBe(expected);
+  });
+
+  it('finds the first control character that marks a binary file, and passes the ones a text file may hold', () => {
     expect(binaryMark('time,hs\r\n\f\u001a')).toBeNull();
     expect(binaryMark('time,hs\nab\u0001')).toEqual({ line: 2, column: 3, code: 1 });
   });

@@ -4,7 +4,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { queueDigests } from '../../server/services/digests';
 import { deliverDueMail } from '../../server/services/outbox';
-import { useSignedInApp } from '../support/app';
+import { planAndReadMail, subscribeSkipperToDigest, useSignedInApp } from '../support/app';
 import type { CaughtMessage } from '../../server/mail/fake-smtp';
 
 // Just after the fake forecast service's 06:00 issue.
@@ -74,11 +74,7 @@ beforeAll(async () => {
 
 describe('e-mails read back from the SMTP fake', () => {
   it('alert e-mails carry the names as escaped text in HTML and as typed in plain text', async () => {
-    const res = await ctx.as.admin.post('/api/admin/jobs/plan').send({ projectId: ctx.t.demo.projectId });
-    expect(res.status, res.text).toBe(200);
-    const mails = ctx.t.mailer.fake!.messages;
-    expect(mails.length).toBeGreaterThan(0);
-    for (const m of mails) {
+    for (const m of await planAndReadMail(ctx)) {
       const op = /^.*?: (.*? lift \d+) at /.exec(m.subject)?.[1];
       expect(op, m.subject).toBeDefined();
       // The subject is a header, not HTML: the names as typed.
@@ -88,16 +84,7 @@ describe('e-mails read back from the SMTP fake', () => {
   });
 
   it('the daily digest does the same', async () => {
-    const sub = await ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
-      operationIds: [],
-      siteIds: [],
-      immediate: true,
-      digest: true,
-      digestTime: '06:00',
-      digestTimeZone: 'UTC',
-      active: true,
-    });
-    expect(sub.status, sub.text).toBe(200);
+    await subscribeSkipperToDigest(ctx, '06:00');
     now = new Date('2026-12-01T07:00:00Z');
     const before = ctx.t.mailer.fake!.messages.length;
     expect(await queueDigests(ctx.t.deps)).toBe(1);

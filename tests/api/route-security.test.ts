@@ -196,6 +196,11 @@ const subscriptionBody = { ...NOTHING_CHOSEN, active: true };
 const recurrenceBody = { start: '2026-01-05T06:00', timeZone: 'UTC', rule: 'FREQ=WEEKLY;COUNT=4' };
 const ledgerRange = { from: '2026-01-01', to: '2026-01-02' };
 
+/** A query naming one of the project's datasets as `?<name>=`, checked with ids of other projects too. */
+function datasetQuery(name: string): Pick<RouteCase, 'query' | 'queryIds'> {
+  return { query: (p) => ({ [name]: p.datasetId }), queryIds: { [name]: 'datasetId' } };
+}
+
 /** Every /api route and who may call it. Keys: method and path pattern, without the /api prefix. */
 const TABLE: Record<string, RouteCase> = {
   'GET /health': { access: 'public', status: 200, why: 'liveness probe for a load balancer; answers only { ok }, no data' },
@@ -279,21 +284,13 @@ const TABLE: Record<string, RouteCase> = {
   'GET /projects/:projectId/alpha': { access: 'member' },
   'PUT /projects/:projectId/alpha': { access: 'coordinator', body: () => alphaTable },
   'DELETE /projects/:projectId/alpha': { access: 'coordinator', why: 'resets to the default table' },
-  'GET /projects/:projectId/alpha/calibrated': {
-    access: 'member',
-    query: (p) => ({ observation: p.datasetId }),
-    queryIds: { observation: 'datasetId' },
-  },
+  'GET /projects/:projectId/alpha/calibrated': { access: 'member', ...datasetQuery('observation') },
   'POST /projects/:projectId/alpha/adopt-calibrated': {
     access: 'coordinator',
     why: 'allowed callers get 409 here (no forecast archive in the test data), so nothing is adopted',
     body: (p) => ({ observation: p.datasetId }),
   },
-  'GET /projects/:projectId/forecast-skill': {
-    access: 'member',
-    query: (p) => ({ observation: p.datasetId }),
-    queryIds: { observation: 'datasetId' },
-  },
+  'GET /projects/:projectId/forecast-skill': { access: 'member', ...datasetQuery('observation') },
 
   'GET /projects/:projectId/export': { access: 'member' },
   'POST /projects/:projectId/import/preview': {
@@ -349,7 +346,7 @@ const TABLE: Record<string, RouteCase> = {
 
   'GET /projects/:projectId/overview': { access: 'member', why: 'each role sees its own parts (coordinator counts only for coordinators)' },
   'GET /map-style': { access: 'signedIn', why: 'the tile style address and attribution only, no project data' },
-  'GET /projects/:projectId/plan': { access: 'member', query: (p) => ({ dataset: p.datasetId }), queryIds: { dataset: 'datasetId' } },
+  'GET /projects/:projectId/plan': { access: 'member', ...datasetQuery('dataset') },
   'GET /projects/:projectId/plan/chain': {
     access: 'member',
     query: (p) => ({ dataset: p.datasetId, operationId: p.operationId, siteId: p.siteId, time: firstRecordTime }),
@@ -360,21 +357,9 @@ const TABLE: Record<string, RouteCase> = {
     query: (p) => ({ dataset: p.datasetId, operationId: p.operationId, siteId: p.siteId }),
     queryIds: { dataset: 'datasetId', operationId: 'operationId', siteId: 'siteId' },
   },
-  'GET /projects/:projectId/conditions/:siteId': {
-    access: 'member',
-    query: (p) => ({ dataset: p.datasetId }),
-    queryIds: { dataset: 'datasetId' },
-  },
-  'GET /projects/:projectId/workability': {
-    access: 'member',
-    query: (p) => ({ dataset: p.datasetId }),
-    queryIds: { dataset: 'datasetId' },
-  },
-  'GET /projects/:projectId/workability.csv': {
-    access: 'member',
-    query: (p) => ({ dataset: p.datasetId }),
-    queryIds: { dataset: 'datasetId' },
-  },
+  'GET /projects/:projectId/conditions/:siteId': { access: 'member', ...datasetQuery('dataset') },
+  'GET /projects/:projectId/workability': { access: 'member', ...datasetQuery('dataset') },
+  'GET /projects/:projectId/workability.csv': { access: 'member', ...datasetQuery('dataset') },
 
   'GET /projects/:projectId/campaigns': { access: 'member' },
   'POST /projects/:projectId/campaigns': {
@@ -390,8 +375,7 @@ const TABLE: Record<string, RouteCase> = {
   'POST /projects/:projectId/campaigns/:campaignId/simulate': {
     access: 'member',
     why: 'a read: it simulates and stores nothing',
-    query: (p) => ({ dataset: p.datasetId }),
-    queryIds: { dataset: 'datasetId' },
+    ...datasetQuery('dataset'),
   },
   'PATCH /projects/:projectId/campaigns/:campaignId/steps/:index': {
     access: 'coordinator',
@@ -408,11 +392,7 @@ const TABLE: Record<string, RouteCase> = {
 
   'POST /projects/:projectId/ledger/propose': { access: 'coordinator', query: () => ledgerRange },
   'GET /projects/:projectId/ledger': { access: 'member', why: 'clients see confirmed days only', query: () => ledgerRange },
-  'GET /projects/:projectId/ledger/monthly': {
-    access: 'member',
-    query: (p) => ({ dataset: p.datasetId }),
-    queryIds: { dataset: 'datasetId' },
-  },
+  'GET /projects/:projectId/ledger/monthly': { access: 'member', ...datasetQuery('dataset') },
   'POST /projects/:projectId/ledger/:entryId/confirm': {
     access: 'coordinator',
     body: () => ({}),

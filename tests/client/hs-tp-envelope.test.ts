@@ -6,37 +6,30 @@ import { describe, expect, it } from 'vitest';
 import { hsLimitAt, hsTpEnvelope, usableCurve, type EnvelopeLimits } from '../../src/features/setup/components/hs-tp-envelope';
 
 const none: EnvelopeLimits = { hsMax: null, curve: [], tpMin: null, tpMax: null, bands: [] };
+/** No limits but these. */
+const only = (limits: Partial<EnvelopeLimits>): EnvelopeLimits => ({ ...none, ...limits });
+/** A curve rising from Hs 1 m at Tp 4 s to 3 m at 8 s. */
+const RISING: [number, number][] = [
+  [4, 1],
+  [8, 3],
+];
 
 describe('hsLimitAt', () => {
   it('takes the lower of Hs max and the curve, interpolated linearly', () => {
-    const l = {
-      ...none,
-      hsMax: 2.5,
-      curve: [
-        [4, 1],
-        [8, 3],
-        [12, 2],
-      ] as [number, number][],
-    };
+    const l = only({ hsMax: 2.5, curve: [...RISING, [12, 2]] });
     expect(hsLimitAt(l, 6).hs).toBeCloseTo(2, 12); // halfway from 1 m to 3 m
     expect(hsLimitAt(l, 8).hs).toBe(2.5); // curve 3 m, capped by Hs max
     expect(hsLimitAt(l, 11).hs).toBeCloseTo(2.25, 12); // 3 - (3 - 2) * 3/4
   });
   it('is a no-go outside the curve, edges included in the range (closed)', () => {
-    const l = {
-      ...none,
-      curve: [
-        [4, 1],
-        [8, 3],
-      ] as [number, number][],
-    };
+    const l = only({ curve: RISING });
     expect(hsLimitAt(l, 4).hs).toBe(1);
     expect(hsLimitAt(l, 8).hs).toBe(3);
     expect(hsLimitAt(l, 3.99)).toEqual({ hs: null, reason: 'outside the curve' });
     expect(hsLimitAt(l, 8.01)).toEqual({ hs: null, reason: 'outside the curve' });
   });
   it('keeps Tp min and max inclusive and excluded bands closed', () => {
-    const l = { ...none, hsMax: 2, tpMin: 5, tpMax: 15, bands: [[9, 11]] as [number, number][] };
+    const l = only({ hsMax: 2, tpMin: 5, tpMax: 15, bands: [[9, 11]] });
     expect(hsLimitAt(l, 5).hs).toBe(2);
     expect(hsLimitAt(l, 15).hs).toBe(2);
     expect(hsLimitAt(l, 4.9).reason).toBe('below Tp min');
@@ -46,7 +39,7 @@ describe('hsLimitAt', () => {
     expect(hsLimitAt(l, 11.01).hs).toBe(2);
   });
   it('has no Hs limit (Infinity) when only Tp limits are set', () => {
-    expect(hsLimitAt({ ...none, tpMin: 5 }, 6).hs).toBe(Infinity);
+    expect(hsLimitAt(only({ tpMin: 5 }), 6).hs).toBe(Infinity);
   });
 });
 
@@ -79,15 +72,7 @@ describe('usableCurve', () => {
 
 describe('hsTpEnvelope', () => {
   it('splits at Tp bounds, band edges and where Hs max crosses the curve, covering [0, end] without gaps', () => {
-    const l = {
-      ...none,
-      hsMax: 2,
-      curve: [
-        [4, 1],
-        [8, 3],
-      ] as [number, number][],
-      bands: [[6.5, 7]] as [number, number][],
-    };
+    const l = only({ hsMax: 2, curve: RISING, bands: [[6.5, 7]] });
     const pieces = hsTpEnvelope(l, 10);
     expect(pieces[0].fromS).toBe(0);
     expect(pieces[pieces.length - 1].toS).toBe(10);

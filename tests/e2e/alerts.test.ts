@@ -3,25 +3,19 @@
 // reads what the run did; the skipper (subscribed to their operations by default) is e-mailed, and
 // the administrator reads that e-mail in the Mailbox. Clients see no coordinator tools.
 import { describe, expect, it } from 'vitest';
-import { screenshot, useBrowserApp } from '../support/browser';
+import { screenshot, useBrowserApp, waitOrScreenshot } from '../support/browser';
 
-const { server, browser, signIn } = useBrowserApp();
+const { server, browser, signIn, openProject } = useBrowserApp();
 
 describe('alerts', () => {
   it('lets the coordinator re-plan now and see what the run did', async () => {
     const { page } = browser;
-    const projectId = await signIn('coordinator');
-    await page.goto(`${server.baseUrl}/projects/${projectId}/alerts`);
+    await openProject('coordinator', 'alerts');
     await page.getByRole('heading', { name: 'What I hear about' }).waitFor({ timeout: 30_000 });
 
     await page.getByTestId('replan-button').click();
     const result = page.getByTestId('replan-result');
-    try {
-      await result.waitFor({ timeout: 90_000 });
-    } catch (err) {
-      await screenshot(page, 'alerts-replan-failure');
-      throw err;
-    }
+    await waitOrScreenshot(page, result, 'alerts-replan', 90_000);
     const text = (await result.textContent()) ?? '';
     // The demo project uses the forecast service: the run names the forecast, the plans and the outbox.
     expect(text).toMatch(/Planned at \d{2}:\d{2}:\d{2}/);
@@ -62,8 +56,7 @@ describe('alerts', () => {
 
   it('gives a client their own choices but no coordinator tools', async () => {
     const { page } = browser;
-    const projectId = await signIn('client');
-    await page.goto(`${server.baseUrl}/projects/${projectId}/alerts`);
+    await openProject('client', 'alerts');
     await page.getByTestId('subscription-form').waitFor({ timeout: 30_000 });
     await page.getByRole('heading', { name: 'Recent alerts' }).waitFor();
     expect(await page.getByTestId('replan-button').count()).toBe(0);

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import type { PlanAnswer } from '../../shared/api-types-plan';
 import type { OperationResponse } from '../../shared/api-types-sites';
-import { screenshot, useBrowserApp } from '../support/browser';
+import { screenshot, useBrowserApp, waitOrScreenshot } from '../support/browser';
 
 const { server, browser, signIn } = useBrowserApp();
 
@@ -15,20 +15,7 @@ async function openBoard(page: Page, projectId: string, query = ''): Promise<voi
 }
 
 /** Waits for the board's hour buttons; on failure keeps a screenshot and says what the page showed. */
-async function waitForCells(page: Page): Promise<void> {
-  try {
-    await page.getByTestId('hour-cell').first().waitFor({ timeout: 30_000 });
-  } catch (err) {
-    await screenshot(page, 'board-failure');
-    const shown = (
-      (await page
-        .locator('main')
-        .textContent()
-        .catch(() => '')) ?? ''
-    ).slice(0, 600);
-    throw new Error(`No hour cells on ${page.url()}: ${shown}`, { cause: err });
-  }
-}
+const waitForCells = (page: Page) => waitOrScreenshot(page, page.getByTestId('hour-cell').first(), 'board');
 
 /** Workable hour buttons in the rows of one operation (every worksite it is planned at). */
 const workableCells = (page: Page, operationId: string) =>

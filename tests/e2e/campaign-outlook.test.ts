@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
+import { openDemoProject, screenshot, signInAndOpenSection, signInAs, useBrowserApp } from '../support/browser';
 
 const { server, browser } = useBrowserApp();
 
@@ -9,9 +9,7 @@ const DATE = /^(Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2} \d{4}$/;
 describe('the live campaign outlook in the browser', () => {
   it('shows the client the outlook dates and the history chart, with no progress controls', async () => {
     const { page } = browser;
-    await signInAs(page, server.baseUrl, 'client@example.com');
-    await openDemoProject(page, 'Downtime');
-    await page.getByRole('heading', { name: 'Live outlook: when will we finish?' }).waitFor();
+    await signInAndOpenSection(page, server.baseUrl, 'client@example.com', 'Downtime', 'Live outlook: when will we finish?');
 
     const p50 = page.getByTestId('outlook-p50');
     await p50.waitFor({ timeout: 120_000 });

@@ -6,7 +6,7 @@
 import { stationsById } from '@neaps/tide-database';
 import { describe, expect, it } from 'vitest';
 import type { SiteResponse } from '../../shared/api-types-sites';
-import { screenshot, useBrowserApp } from '../support/browser';
+import { screenshot, useBrowserApp, waitOrScreenshot } from '../support/browser';
 
 const { server, browser, signIn } = useBrowserApp();
 
@@ -28,12 +28,7 @@ describe('the current on the conditions page', () => {
       await form.getByLabel(/^Longitude/).fill('-69.99');
       const field = form.getByTestId('current-station-field');
       const choice = field.getByRole('radio', { name: /Pollock Rip Channel \(Butler Hole\)/ });
-      try {
-        await choice.waitFor({ timeout: 60_000 });
-      } catch (err) {
-        await screenshot(page, 'current-form-failure');
-        throw err;
-      }
+      await waitOrScreenshot(page, choice, 'current-form', 60_000);
       // Shown with its distance and its flood and ebb directions (about 1.2 km: haversine, mean Earth radius 6371 km).
       expect(await field.textContent()).toMatch(
         /Pollock Rip Channel \(Butler Hole\), 1\.2 km away · US National Oceanic and Atmospheric Administration · flood towards 37°, ebb\s+towards 217°/,
@@ -48,12 +43,7 @@ describe('the current on the conditions page', () => {
 
       await page.goto(`${server.baseUrl}/projects/${projectId}/conditions/${site.id}`, { timeout: 120_000 });
       const strip = page.getByTestId('current-strip');
-      try {
-        await strip.waitFor({ timeout: 120_000 });
-      } catch (err) {
-        await screenshot(page, 'current-strip-failure');
-        throw err;
-      }
+      await waitOrScreenshot(page, strip, 'current-strip', 120_000);
       const station = stationsById.get(STATION_ID)!;
       // The station's own flood and ebb directions, as the database gives them (37° and 217° true).
       const flood = station.current!.flood_direction!;

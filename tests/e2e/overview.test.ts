@@ -9,24 +9,9 @@ import type { SiteResponse } from '../../shared/api-types-sites';
 import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
 import type { MeResponse } from '../../shared/api-types';
 import { formatInstant } from '../../shared/dates';
-import { demoProjectId, openBrowser, screenshot, signInAs, useBrowserApp } from '../support/browser';
+import { demoProjectId, openBrowser, screenshot, signInAs, useBrowserApp, waitOrScreenshot } from '../support/browser';
 
 const { server, browser, signIn } = useBrowserApp();
-
-async function waitFor(page: Page, testId: string, name: string): Promise<void> {
-  try {
-    await page.getByTestId(testId).first().waitFor({ timeout: 30_000 });
-  } catch (err) {
-    await screenshot(page, `${name}-failure`);
-    const shown = (
-      (await page
-        .locator('main')
-        .textContent()
-        .catch(() => '')) ?? ''
-    ).slice(0, 600);
-    throw new Error(`No ${testId} on ${page.url()}: ${shown}`, { cause: err });
-  }
-}
 
 const getJson = async <T>(page: Page, path: string): Promise<T> => {
   const res = await page.request.get(`${server.baseUrl}${path}`);
@@ -39,7 +24,7 @@ describe('the project Overview', () => {
     const { page } = browser;
     const projectId = await signIn('coordinator');
     await page.goto(`${server.baseUrl}/projects/${projectId}`);
-    await waitFor(page, 'overview-line', 'overview-coordinator');
+    await waitOrScreenshot(page, page.getByTestId('overview-line').first(), 'overview-coordinator');
 
     const plan = await getJson<PlanAnswer>(page, `/api/projects/${projectId}/plan?alpha=true`);
     expect(plan.plans.length).toBeGreaterThan(0);
@@ -132,7 +117,7 @@ describe('the project Overview', () => {
       await signInAs(page, server.baseUrl, 'skipper@example.com');
       const projectId = await demoProjectId(page, server.baseUrl);
       await page.goto(`${server.baseUrl}/projects/${projectId}`);
-      await waitFor(page, 'my-operation-card', 'overview-skipper');
+      await waitOrScreenshot(page, page.getByTestId('my-operation-card').first(), 'overview-skipper');
       const me = await getJson<MeResponse>(page, '/api/me');
       const plan = await getJson<PlanAnswer>(page, `/api/projects/${projectId}/plan?alpha=true`);
       const mine = plan.plans.filter((p) => p.skipperIds.includes(me.id));
@@ -210,7 +195,7 @@ describe('the project Overview', () => {
 
     await signIn('client');
     await page.goto(`${server.baseUrl}/projects/${projectId}`);
-    await waitFor(page, 'month-row', 'overview-client');
+    await waitOrScreenshot(page, page.getByTestId('month-row').first(), 'overview-client');
     const card = page.getByTestId('month-card');
     expect(await card.getByRole('heading', { level: 2 }).textContent()).toMatch(/^Downtime in [A-Z][a-z]+ \d{4}$/);
     // The client sees no coordinator part.

@@ -3,7 +3,7 @@
 // Needs the built client (`npx vite build`).
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
+import { screenshot, signInAndOpenSection, signInAs, useBrowserApp } from '../support/browser';
 
 // NOAA NDBC station 44014, 2017 historical stdmet file (public domain), kept in the shared test data.
 const NDBC_FILE = path.resolve(import.meta.dirname, '../fixtures/ndbc/44014h2017.txt');
@@ -18,9 +18,7 @@ let datasetPath = '';
 describe('sea data pages', () => {
   it('lets the coordinator import an NDBC file with a progress bar and opens the new dataset', async () => {
     const { page } = browser;
-    await signInAs(page, server.baseUrl, 'coordinator@example.com');
-    await openDemoProject(page, 'Sea data');
-    await page.getByRole('heading', { name: 'Sea data' }).waitFor();
+    await signInAndOpenSection(page, server.baseUrl, 'coordinator@example.com', 'Sea data', 'Sea data');
     seaDataPath = new URL(page.url()).pathname;
 
     await page.getByRole('link', { name: 'Import a file' }).click();

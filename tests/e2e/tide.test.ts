@@ -3,9 +3,20 @@
 // setup page uses), and the board's tide strip under the rows shows its high and low waters.
 import { describe, expect, it } from 'vitest';
 import type { SiteResponse } from '../../shared/api-types-sites';
-import { screenshot, useBrowserApp } from '../support/browser';
+import { screenshot, useBrowserApp, waitOrScreenshot } from '../support/browser';
 
 const { server, browser, signIn } = useBrowserApp();
+
+/** The level of a high- or low-water label, which ends with it: "... 3.50 m". */
+const levelOf = (label: string) => Number(/([\d.]+) m$/.exec(label)![1]);
+
+/** Every high- or low-water label gives a level within [min, max] m. */
+function expectLevelsWithin(labels: string[], min: number, max: number) {
+  for (const label of labels) {
+    expect(levelOf(label), label).toBeGreaterThanOrEqual(min);
+    expect(levelOf(label), label).toBeLessThanOrEqual(max);
+  }
+}
 
 describe('the tide strip', () => {
   it('shows highs and lows under the board after the coordinator gives the landfall site a tide', async () => {
@@ -31,12 +42,7 @@ describe('the tide strip', () => {
 
     await page.goto(`${server.baseUrl}/projects/${projectId}/board?site=${landfall.id}`);
     const strip = page.getByTestId('tide-strip').first();
-    try {
-      await strip.waitFor({ timeout: 30_000 });
-    } catch (err) {
-      await screenshot(page, 'tide-strip-failure');
-      throw err;
-    }
+    await waitOrScreenshot(page, strip, 'tide-strip');
     expect(await strip.textContent()).toContain('Tide at Landfall cofferdam');
     const highs = await strip.getByTestId('tide-high').allTextContents();
     const lows = await strip.getByTestId('tide-low').allTextContents();
@@ -44,16 +50,8 @@ describe('the tide strip', () => {
     expect(highs.length).toBeGreaterThanOrEqual(1);
     expect(lows.length).toBeGreaterThanOrEqual(1);
     // Highs at Z0 + f·H and lows at Z0 - f·H, f(M2) within 0.96-1.04 (from memory): 3.44-3.56 m and 0.44-0.56 m.
-    for (const h of highs) {
-      const level = Number(/([\d.]+) m$/.exec(h)![1]);
-      expect(level).toBeGreaterThanOrEqual(3.44);
-      expect(level).toBeLessThanOrEqual(3.56);
-    }
-    for (const l of lows) {
-      const level = Number(/([\d.]+) m$/.exec(l)![1]);
-      expect(level).toBeGreaterThanOrEqual(0.44);
-      expect(level).toBeLessThanOrEqual(0.56);
-    }
+    expectLevelsWithin(highs, 3.44, 3.56);
+    expectLevelsWithin(lows, 0.44, 0.56);
     expect(await strip.textContent()).toMatch(/not for navigation/i);
     await screenshot(page, 'board-tide-strip');
   });
@@ -89,7 +87,7 @@ describe('the tide strip', () => {
       .poll(
         async () => {
           const highs = await preview.getByTestId('tide-high').allTextContents();
-          return highs.length > 0 && highs.every((h) => Math.abs(Number(/([\d.]+) m$/.exec(h)![1]) - 3.0) < 0.06);
+          return highs.length > 0 && highs.every((h) => Math.abs(levelOf(h) - 3.0) < 0.06);
         },
         { timeout: 30_000 },
       )
@@ -101,11 +99,7 @@ describe('the tide strip', () => {
     expect(highs.length).toBeLessThanOrEqual(6);
     expect(lows.length).toBeGreaterThanOrEqual(5);
     // Highs at Z0 + f·H, lows at Z0 - f·H, f(M2) within 0.96-1.04 (from memory): 2.95-3.05 m and 0.55-0.65 m.
-    for (const l of lows) {
-      const level = Number(/([\d.]+) m$/.exec(l)![1]);
-      expect(level).toBeGreaterThanOrEqual(0.55);
-      expect(level).toBeLessThanOrEqual(0.65);
-    }
+    expectLevelsWithin(lows, 0.55, 0.65);
     expect(await preview.textContent()).toMatch(/not for navigation/i);
     expect(await preview.textContent()).toMatch(/surge/i);
     await screenshot(page, 'setup-tide-form');

@@ -9,7 +9,7 @@ import type { OperationResponse } from '../../shared/api-types-sites';
 import { openDemoProject, screenshot, useBrowserApp } from '../support/browser';
 import { chooseFileWithKeys, tabTo, typeInto } from '../support/keyboard';
 
-const { server, browser, signIn } = useBrowserApp();
+const { server, browser, signIn, openProject } = useBrowserApp();
 
 const OPERATION = 'ROV burial survey';
 
@@ -144,8 +144,7 @@ describe('vessels and response limits', () => {
 
   it('imports an RAO table with the keyboard only', async () => {
     const { page } = browser;
-    const projectId = await signIn('coordinator');
-    await page.goto(`${server.baseUrl}/projects/${projectId}/vessels`);
+    const projectId = await openProject('coordinator', 'vessels');
     await typeInto(page, page.getByLabel('Vessel name'), 'Keyboard barge');
     await page.keyboard.press('Enter');
     const open = page.getByRole('link', { name: 'Open it to import its RAOs' });

@@ -87,28 +87,28 @@ describe('answers kept while the data stay the same', () => {
       next();
     });
     tiny.use(mw);
-    tiny.get('/api/projects/:id/plan', (_req, res) => {
-      computed++;
-      res.json({ computed });
-    });
-    tiny.get('/api/projects/:id/sites', (_req, res) => {
-      computed++;
-      res.json({ computed });
-    });
+    for (const route of ['plan', 'sites']) {
+      tiny.get(`/api/projects/:id/${route}`, (_req, res) => {
+        computed++;
+        res.json({ computed });
+      });
+    }
+    /** How many answers had been computed when this one was: a cached answer repeats its count. */
+    const countIn = async (url: string) => ((await request(tiny).get(url)).body as { computed: number }).computed;
+    /** Asks for `url` (answer number `count`), again 1 ms before `keptMs` has passed (the same answer), and at `keptMs` (a new one). */
+    const expectKeptFor = async (url: string, keptMs: number, count: number) => {
+      expect(await countIn(url)).toBe(count);
+      now += keptMs - 1;
+      expect(await countIn(url)).toBe(count);
+      now += 1;
+      expect(await countIn(url)).toBe(count + 1);
+    };
     const plan = '/api/projects/p1/plan?alpha=true';
-    expect((await request(tiny).get(plan)).body).toEqual({ computed: 1 });
-    now += 4999;
-    expect((await request(tiny).get(plan)).body).toEqual({ computed: 1 });
-    now += 1;
-    expect((await request(tiny).get(plan)).body).toEqual({ computed: 2 });
+    await expectKeptFor(plan, 5000, 1);
+    // A write (a new generation) drops it at once.
     gen++;
-    expect((await request(tiny).get(plan)).body).toEqual({ computed: 3 });
-    const sites = '/api/projects/p1/sites';
-    expect((await request(tiny).get(sites)).body).toEqual({ computed: 4 });
-    now += 59_999;
-    expect((await request(tiny).get(sites)).body).toEqual({ computed: 4 });
-    now += 1;
-    expect((await request(tiny).get(sites)).body).toEqual({ computed: 5 });
+    expect(await countIn(plan)).toBe(3);
+    await expectKeptFor('/api/projects/p1/sites', 12 * 5000, 4);
   });
 });
 

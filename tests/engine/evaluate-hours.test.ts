@@ -10,6 +10,9 @@ function oplim(limits: OperationLimits): OperationSpec {
   return { tpopH: 6, tcH: 0, weatherRestricted: false, limits };
 }
 
+/** An operation limited by an Hs-Tp curve through these points (Tp s, Hs m) alone. */
+const curveOp = (...points: [number, number][]) => oplim({ hsTpCurve: points });
+
 function statuses(cols: Columns, op: OperationSpec, alpha = true): number[] {
   return Array.from(evaluateHours(makeSeries(cols), op, { alpha, alphaTable: DEFAULT_ALPHA_TABLE }).status);
 }
@@ -83,13 +86,7 @@ describe('evaluateHours: each limit alone, inclusive (docs/domain.md#convention-
 
 describe('evaluateHours: Hs-Tp curve (docs/domain.md#convention-6: range closed, outside not workable)', () => {
   // Curve points (Tp s, Hs m): (4, 1.0), (8, 2.0), (12, 1.5).
-  const op = oplim({
-    hsTpCurve: [
-      [4, 1],
-      [8, 2],
-      [12, 1.5],
-    ],
-  });
+  const op = curveOp([4, 1], [8, 2], [12, 1.5]);
 
   it('exactly on the edges of the Tp range is inside; just outside is not workable even in calm seas', () => {
     expect(statuses({ tpS: [4, 12, 3.99, 12.01], hsM: [1, 1.5, 0, 0] }, op)).toEqual([WORKABLE, WORKABLE, NOT_WORKABLE, NOT_WORKABLE]);
@@ -138,19 +135,8 @@ describe('evaluateHours: alpha and the marginal status (docs/domain.md#conventio
   it('the curve takes alpha at the curve value for the record Tp', () => {
     // TPOP 12 h (row 12 h). Tp 6 s: curve 1.5 m, alpha = 0.65 + 0.5 * (0.76 - 0.65) = 0.705,
     // OPWF = 1.0575 m. Tp 8 s: curve 2.0 m, alpha 0.76, OPWF 1.52 m.
-    const curveOp: OperationSpec = {
-      tpopH: 12,
-      tcH: 0,
-      weatherRestricted: true,
-      limits: {
-        hsTpCurve: [
-          [4, 1],
-          [8, 2],
-          [12, 1.5],
-        ],
-      },
-    };
-    expect(statuses({ tpS: [6, 6, 6, 6, 8, 8], hsM: [1.05, 1.06, 1.5, 1.51, 1.52, 1.53] }, curveOp)).toEqual([
+    const restricted: OperationSpec = { ...curveOp([4, 1], [8, 2], [12, 1.5]), tpopH: 12, weatherRestricted: true };
+    expect(statuses({ tpS: [6, 6, 6, 6, 8, 8], hsM: [1.05, 1.06, 1.5, 1.51, 1.52, 1.53] }, restricted)).toEqual([
       WORKABLE,
       MARGINAL,
       MARGINAL,
@@ -228,33 +214,16 @@ describe('evaluateHours: no data wins, limiting factor and margins', () => {
   it('rejects an operation without limits and a malformed curve', () => {
     const series = makeSeries({ hsM: [1] });
     expect(() => evaluateHours(series, oplim({}), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
-    expect(() =>
-      evaluateHours(
-        series,
-        oplim({
-          hsTpCurve: [
-            [8, 1],
-            [6, 2],
-          ],
-        }),
-        { alphaTable: DEFAULT_ALPHA_TABLE },
-      ),
-    ).toThrow(RangeError);
+    expect(() => evaluateHours(series, curveOp([8, 1], [6, 2]), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
     expect(() => evaluateHours(series, oplim({ tpExcluded: [[9, 8]] }), { alphaTable: DEFAULT_ALPHA_TABLE })).toThrow(RangeError);
   });
 });
 
 // Issue 22: the hour chain said "outside the curve" without saying why.
 describe('the hour chain says why the Hs-Tp curve failed', () => {
-  const curveOp = oplim({
-    hsTpCurve: [
-      [6, 1.2],
-      [10, 2],
-      [14, 1.5],
-    ],
-  });
+  const op = curveOp([6, 1.2], [10, 2], [14, 1.5]);
   const hour = (hsM: number, tpS: number) => ({ hsM, tpS, bedVelocityLinearMps: NaN, bedVelocitySoulsbyMps: NaN, windMps: NaN });
-  const curveCheck = (hsM: number, tpS: number) => explainHour(hour(hsM, tpS), curveOp, DEFAULT_ALPHA_TABLE).checks[0];
+  const curveCheck = (hsM: number, tpS: number) => explainHour(hour(hsM, tpS), op, DEFAULT_ALPHA_TABLE).checks[0];
 
   it('names the curve end a Tp is beyond, the first point a Tp is below, and the Hs above the curve', () => {
     expect(curveCheck(0.5, 14.73)).toMatchObject({ met: false, reason: "Tp 14.7 s is beyond the curve's last point at 14 s" });

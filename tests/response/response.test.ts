@@ -171,33 +171,14 @@ describe('RAO interpolation (docs/domain.md#vessel-response)', () => {
     expect(amp(30, 90)).toBe(4);
   });
   it('a 0-180 deg table is mirrored: 270 deg reads 90 deg, 315 reads 45', () => {
-    const half = {
-      periodsS: [5, 10],
-      headingsDeg: [0, 90, 180],
-      responses: {
-        roll_deg_per_m: [
-          [0, 0],
-          [4, 8],
-          [0, 0],
-        ],
-      },
-    };
-    const r = prepareRao(half);
+    // Roll in beam seas (90 deg) only: 4 deg/m at 5 s, 8 deg/m at 10 s.
+    const r = prepareRao(tableOf('roll_deg_per_m', [0, 90, 180], [5, 10], (t, h) => (h === 90 ? 0.8 * t : 0)));
     expect(Math.sqrt(raoSquaredAt(r, 'roll_deg_per_m', 5, 270))).toBeCloseTo(4, 12);
     expect(Math.sqrt(raoSquaredAt(r, 'roll_deg_per_m', 10, 315))).toBeCloseTo(4, 12);
   });
   it('a table with both 0 and 360 deg uses 0 deg once', () => {
-    const full = {
-      periodsS: [5, 10],
-      headingsDeg: [0, 180, 360],
-      responses: {
-        heave_m_per_m: [
-          [1, 1],
-          [3, 3],
-          [1, 1],
-        ],
-      },
-    };
+    // Heave 1 m/m at 0 and 360 deg, 3 m/m at 180 deg.
+    const full = tableOf('heave_m_per_m', [0, 180, 360], [5, 10], (_, h) => (h === 180 ? 3 : 1));
     expect(Math.sqrt(raoSquaredAt(prepareRao(full), 'heave_m_per_m', 5, 270))).toBeCloseTo(2, 12);
   });
 });

@@ -3,15 +3,17 @@ import { describe, expect, it } from 'vitest';
 import { ColumnMappingSchema, detectColumns, detectUnits, normaliseHeader, previewCsv } from '../../shared/seadata';
 
 describe('normaliseHeader', () => {
-  it('drops case, bracketed units, trailing unit words and separators', () => {
-    expect(normaliseHeader(' Wind_Speed [m/s] ')).toBe('windspeed');
-    expect(normaliseHeader('Hs (m)')).toBe('hs');
-    expect(normaliseHeader('hs_m')).toBe('hs');
-    expect(normaliseHeader('Tm-10')).toBe('tm10');
-    expect(normaliseHeader('time UTC')).toBe('time');
-    expect(normaliseHeader('\uFEFF"Significant Wave Height"')).toBe('significantwaveheight');
+  it.each([
+    [' Wind_Speed [m/s] ', 'windspeed'],
+    ['Hs (m)', 'hs'],
+    ['hs_m', 'hs'],
+    ['Tm-10', 'tm10'],
+    ['time UTC', 'time'],
+    ['\uFEFF"Significant Wave Height"', 'significantwaveheight'],
     // A lone unit-like word is kept.
-    expect(normaliseHeader('m')).toBe('m');
+    ['m', 'm'],
+  ])('drops case, bracketed units, trailing unit words and separators: %j reads %j', (header, expected) => {
+    expect(normaliseHeader(header)).toBe(expected);
   });
 });
 

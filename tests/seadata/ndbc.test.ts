@@ -235,20 +235,22 @@ describe('header variants', () => {
   // each; the values are those of 44014h1997.txt line 3 "97 01 01 01  13 11.4 13.3  1.31 ...".
   const expected = { hs: 1.31, tp: 4, tz: 3.75, te: NaN, dir: 5, wind: 11.4, windDir: 13 };
 
-  it('1999-2004: YYYY, no minute, TIDE', () => {
-    const text =
-      'YYYY MM DD hh WD  WSPD GST  WVHT  DPD   APD  MWD  BAR    ATMP  WTMP  DEWP  VIS  TIDE\n' +
-      '2003 01 01 01  13 11.4 13.3  1.31  4.00  3.75   5 1021.2   9.1   9.7 999.0 99.0 99.00\n';
-    const { records } = parse(text);
-    expect(row(records, '2003-01-01T01:00:00Z')).toEqual(expected);
-  });
-
-  it('2005-2006: YYYY with minute column', () => {
-    const text =
-      'YYYY MM DD hh mm  WD  WSPD GST  WVHT  DPD   APD  MWD  BAR    ATMP  WTMP  DEWP  VIS  TIDE\n' +
-      '2005 07 04 01 50  13 11.4 13.3  1.31  4.00  3.75   5 1021.2   9.1   9.7 999.0 99.0 99.00\n';
-    const { records } = parse(text);
-    expect(row(records, '2005-07-04T01:50:00Z')).toEqual(expected);
+  it.each([
+    {
+      layout: '1999-2004: YYYY, no minute, TIDE',
+      header: 'YYYY MM DD hh WD  WSPD GST  WVHT  DPD   APD  MWD  BAR    ATMP  WTMP  DEWP  VIS  TIDE',
+      line: '2003 01 01 01  13 11.4 13.3  1.31  4.00  3.75   5 1021.2   9.1   9.7 999.0 99.0 99.00',
+      time: '2003-01-01T01:00:00Z',
+    },
+    {
+      layout: '2005-2006: YYYY with minute column',
+      header: 'YYYY MM DD hh mm  WD  WSPD GST  WVHT  DPD   APD  MWD  BAR    ATMP  WTMP  DEWP  VIS  TIDE',
+      line: '2005 07 04 01 50  13 11.4 13.3  1.31  4.00  3.75   5 1021.2   9.1   9.7 999.0 99.0 99.00',
+      time: '2005-07-04T01:50:00Z',
+    },
+  ])('$layout', ({ header, line, time }) => {
+    const { records } = parse(`${header}\n${line}\n`);
+    expect(row(records, time)).toEqual(expected);
   });
 
   it('two files joined end to end: the second header is read anew', () => {

@@ -68,6 +68,16 @@ afterEach(() => {
   while (open.length) open.pop()!.close();
 });
 
+/** Opens a gridded fixture, plans its import and lists its points. */
+async function openGrid(name: string) {
+  const f = await openFixture(name);
+  const plan = planCfImport(f);
+  return { f, plan, points: listGridPoints(f, plan) };
+}
+
+/** Every [lat, lon] of a regular grid, latitude outermost (the order of the file's dimensions). */
+const everyLatLon = (lats: number[], lons: number[]) => lats.flatMap((lat) => lons.map((lon) => [lat, lon]));
+
 describe('NetCDF point files, values as the independent writer read them back', () => {
   it('classic file (CDF-1, unlimited time, wind as speed and direction, proleptic_gregorian)', async () => {
     const f = await openFixture('classic.nc');
@@ -134,21 +144,9 @@ describe('NetCDF point files, values as the independent writer read them back', 
 
 describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
   it('lists nine points with longitudes in -180..180 and finds the nearest sea point, skipping land and mostly-missing points', async () => {
-    const f = await openFixture('grid-3x3.nc');
-    const plan = planCfImport(f);
+    const { f, plan, points } = await openGrid('grid-3x3.nc');
     expect(plan.pointDims).toEqual(['latitude', 'longitude']);
-    const points = listGridPoints(f, plan);
-    expect(points.map((p) => [p.lat, p.lon])).toEqual([
-      [49.5, -7],
-      [49.5, -6.5],
-      [49.5, -6],
-      [50, -7],
-      [50, -6.5],
-      [50, -6],
-      [50.5, -7],
-      [50.5, -6.5],
-      [50.5, -6],
-    ]);
+    expect(points.map((p) => [p.lat, p.lon])).toEqual(everyLatLon([49.5, 50, 50.5], [-7, -6.5, -6]));
     scanMissingShares(f, plan, points);
     // Script: (50, -6) and (50.5, -6) all fill; (49.5, -6) 30 of 48 missing.
     expect(points.map((p) => p.missingShare)).toEqual([0, 0, 0.625, 0, 0, 1, 0, 0, 1]);
@@ -163,10 +161,8 @@ describe('NetCDF grid (3×3, longitudes 0-360, land points)', () => {
   });
 
   it('the same grid as a classic 64-bit-offset file reads the same values at every point (our own byte-offset reads)', async () => {
-    const f = await openFixture('grid-3x3-classic.nc');
+    const { f, plan, points } = await openGrid('grid-3x3-classic.nc');
     expect(f.format).toBe('classic');
-    const plan = planCfImport(f);
-    const points = listGridPoints(f, plan);
     scanMissingShares(f, plan, points);
     expect(points.map((p) => p.missingShare)).toEqual([0, 0, 0.625, 0, 0, 1, 0, 0, 1]);
     for (const p of points) {
@@ -225,18 +221,11 @@ describe('NetCDF-4 groups (variables read wherever the writer put them)', () => 
   });
 
   it('a grid whose dimensions, coordinates and variables all live in one group', async () => {
-    const f = await openFixture('grid-group.nc');
-    const plan = planCfImport(f);
+    const { f, plan, points } = await openGrid('grid-group.nc');
     expect(plan.time.name).toBe('model/time');
     expect(plan.pointDims).toEqual(['model/lat', 'model/lon']);
-    const points = listGridPoints(f, plan);
     // make_fixtures.py grid_in_group(): latitudes 50.0, 50.25; longitudes -6.25, -6.0.
-    expect(points.map((p) => [p.lat, p.lon])).toEqual([
-      [50, -6.25],
-      [50, -6],
-      [50.25, -6.25],
-      [50.25, -6],
-    ]);
+    expect(points.map((p) => [p.lat, p.lon])).toEqual(everyLatLon([50, 50.25], [-6.25, -6]));
     for (const [j, i] of [
       [0, 0],
       [1, 1],

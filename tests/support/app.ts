@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { Response as SuperagentResponse } from 'superagent';
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { createAuth } from '../../server/auth';
@@ -11,6 +11,7 @@ import { DEMO_PASSWORD } from '../../seed/scenario';
 import { createTestDatabase } from './db';
 import { createForecastProvider, type ForecastSetup } from '../../server/forecast';
 import { createMailer, type Mailer } from '../../server/mail/mailer';
+import type { CaughtMessage } from '../../server/mail/fake-smtp';
 
 export const TEST_ORIGIN = 'http://localhost:3000';
 
@@ -155,6 +156,32 @@ export function useSignedInApp(
       return `/api/projects/${ready(app).demo.projectId}${path}`;
     },
   };
+}
+
+/**
+ * Runs the planning job on the demo project as the admin (it must answer 200) and returns the
+ * e-mails the fake SMTP server has caught, at least one.
+ */
+export async function planAndReadMail(ctx: SignedInApp): Promise<CaughtMessage[]> {
+  const res = await ctx.as.admin.post('/api/admin/jobs/plan').send({ projectId: ctx.t.demo.projectId });
+  expect(res.status, res.text).toBe(200);
+  const mails = ctx.t.mailer.fake!.messages;
+  expect(mails.length).toBeGreaterThan(0);
+  return mails;
+}
+
+/** Subscribes the demo skipper to immediate alerts and to a daily digest at this UTC time (it must answer 200). */
+export async function subscribeSkipperToDigest(ctx: SignedInApp, digestTime: string): Promise<void> {
+  const sub = await ctx.as.skipper.put(`/api/projects/${ctx.t.demo.projectId}/subscription`).send({
+    operationIds: [],
+    siteIds: [],
+    immediate: true,
+    digest: true,
+    digestTime,
+    digestTimeZone: 'UTC',
+    active: true,
+  });
+  expect(sub.status, sub.text).toBe(200);
 }
 
 /** A supertest body parser that keeps the answer as text (CSV, iCalendar): `.buffer(true).parse(textBody)`. */

@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
 import { DEMO_PASSWORD, DEMO_PROJECT, DEMO_USERS } from '../../seed/scenario';
 import { ROOT, startServer as startChildServer } from './child-server';
@@ -81,6 +81,25 @@ export async function screenshot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
 }
 
+/**
+ * Waits for `target` (30 s unless given); on failure keeps a screenshot `<name>-failure` and says
+ * what the page's main part showed.
+ */
+export async function waitOrScreenshot(page: Page, target: Locator, name: string, timeout = 30_000): Promise<void> {
+  try {
+    await target.waitFor({ timeout });
+  } catch (err) {
+    await screenshot(page, `${name}-failure`);
+    const shown = (
+      (await page
+        .locator('main')
+        .textContent()
+        .catch(() => '')) ?? ''
+    ).slice(0, 600);
+    throw new Error(`${name}: not shown on ${page.url()}: ${shown}`, { cause: err });
+  }
+}
+
 export async function signInAs(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
@@ -105,6 +124,13 @@ export async function openDemoProject(page: Page, section?: string): Promise<voi
   const nav = page.getByRole('navigation', { name: 'Project' });
   await nav.waitFor();
   if (section) await nav.getByRole('link', { name: section }).click();
+}
+
+/** Signs in with `email`, opens `section` of the demo project from the projects list and waits for its `heading`. */
+export async function signInAndOpenSection(page: Page, baseUrl: string, email: string, section: string, heading: string): Promise<void> {
+  await signInAs(page, baseUrl, email);
+  await openDemoProject(page, section);
+  await page.getByRole('heading', { name: heading }).waitFor();
 }
 
 /** The demo accounts of the seed (seed/scenario.ts), by role. */
@@ -133,6 +159,22 @@ export interface BrowserApp {
   readonly projectId: string;
   /** Signs out whoever was signed in (clears the cookies), signs in as a demo account and returns the demo project's id. */
   signIn(account: DemoAccount): Promise<string>;
+  /** `signIn(account)`, then opens a section of the demo project (e.g. `'alerts'`); returns the project's id. */
+  openProject(account: DemoAccount, section: string): Promise<string>;
+}
+
+/**
+ * A stand-in for an object made later (in a hook): each field read, or method called, on it is read
+ * from `current()` at that moment.
+ */
+function readLater<T extends object>(current: () => T): T {
+  return new Proxy({} as T, {
+    get(_, key) {
+      const target = current();
+      const value: unknown = Reflect.get(target, key);
+      return typeof value === 'function' ? value.bind(target) : value;
+    },
+  });
 }
 
 /**
@@ -148,30 +190,19 @@ export function useBrowserApp(options: BrowserAppOptions = {}): BrowserApp {
     if (value === undefined) throw new Error(`${what} is not ready: read it inside a test or hook, after useBrowserApp's set-up`);
     return value;
   };
-  const server: RunningServer = {
-    get baseUrl() {
-      return ready(running, 'the server').baseUrl;
-    },
-    get dataDir() {
-      return ready(running, 'the server').dataDir;
-    },
-    stop: () => ready(running, 'the server').stop(),
-  };
-  const browser: Browser = {
-    get context() {
-      return ready(open, 'the browser').context;
-    },
-    get page() {
-      return ready(open, 'the browser').page;
-    },
-    close: () => ready(open, 'the browser').close(),
-  };
+  const server = readLater<RunningServer>(() => ready(running, 'the server'));
+  const browser = readLater<Browser>(() => ready(open, 'the browser'));
   async function signIn(account: DemoAccount): Promise<string> {
     const { page, context } = browser;
     await context.clearCookies();
     await signInAs(page, server.baseUrl, demoEmail(account));
     project = await demoProjectId(page, server.baseUrl);
     return project;
+  }
+  async function openProject(account: DemoAccount, section: string): Promise<string> {
+    const projectId = await signIn(account);
+    await browser.page.goto(`${server.baseUrl}/projects/${projectId}/${section}`);
+    return projectId;
   }
 
   const timeoutMs = options.timeoutMs ?? 480_000;
@@ -189,6 +220,7 @@ export function useBrowserApp(options: BrowserAppOptions = {}): BrowserApp {
     server,
     browser,
     signIn,
+    openProject,
     get projectId() {
       return ready(project, 'the demo project id (sign in first)');
     },

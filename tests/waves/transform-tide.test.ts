@@ -8,6 +8,27 @@ import { TRANSFORM_FLAG, transformOne, transformToSite } from '../../shared/wave
 // M2 period 12.4206 h (speed 28.9841042 deg/h, Schureman 1958).
 const M2_PERIOD_H = 360 / 28.9841042;
 
+/** An offshore sea of constant Hs and Tp brought to a site of this chart depth, one record per water level. */
+function transformWithTide(level: Float64Array, hsM: number, tpS: number, depthM: number) {
+  const n = level.length;
+  return transformToSite(
+    {
+      hsM: new Float64Array(n).fill(hsM),
+      tpS: new Float64Array(n).fill(tpS),
+      tzS: new Float64Array(n).fill(NaN),
+      dirDeg: new Float64Array(n).fill(NaN),
+      waterLevelM: level,
+    },
+    { depthM: Infinity },
+    { depthM, shoreNormalDeg: null, breakerIndex: 0.6 },
+  );
+}
+
+/** One hour at a site of this chart depth (breaker index 0.6). */
+function transformHour(hour: Parameters<typeof transformOne>[0], depthM: number) {
+  return transformOne(hour, { depthM: Infinity }, { depthM, shoreNormalDeg: null, breakerIndex: 0.6 });
+}
+
 describe('depth that moves with the tide', () => {
   it('caps Hs at gamma_b*h(t): a 2 m site with a 1.5 m M2 swings between 0.6*0.5 and 0.6*3.5 m under a large sea', () => {
     // Worked by hand: h = 2 + 1.5 cos(2 pi t / T_M2); at high water h = 3.5 m, cap 0.6*3.5 = 2.1 m; at low
@@ -16,17 +37,7 @@ describe('depth that moves with the tide', () => {
     const n = 26;
     const times = Array.from({ length: n }, (_, k) => (k * M2_PERIOD_H) / 24);
     const level = Float64Array.from(times, (t) => 1.5 * Math.cos((2 * Math.PI * t) / M2_PERIOD_H));
-    const out = transformToSite(
-      {
-        hsM: new Float64Array(n).fill(6),
-        tpS: new Float64Array(n).fill(10),
-        tzS: new Float64Array(n).fill(NaN),
-        dirDeg: new Float64Array(n).fill(NaN),
-        waterLevelM: level,
-      },
-      { depthM: Infinity },
-      { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
-    );
+    const out = transformWithTide(level, 6, 10, 2);
     expect(out.hsM[0]).toBeCloseTo(2.1, 12); // high water, t = 0
     expect(out.hsM[12]).toBeCloseTo(0.3, 12); // low water, t = T/2
     expect(out.hsM[24]).toBeCloseTo(2.1, 12); // high water again, t = T
@@ -41,18 +52,7 @@ describe('depth that moves with the tide', () => {
     // Shallow water (common practice, no source): Cg -> sqrt(g h), so Ks = sqrt(Cg0/Cg) grows as h falls,
     // and the linear bed velocity pi Hs/(T sinh(k h)) grows too. A small offshore sea, no cap.
     const level = Float64Array.of(1.5, 0, -1.5);
-    const n = 3;
-    const out = transformToSite(
-      {
-        hsM: new Float64Array(n).fill(0.2),
-        tpS: new Float64Array(n).fill(8),
-        tzS: new Float64Array(n).fill(NaN),
-        dirDeg: new Float64Array(n).fill(NaN),
-        waterLevelM: level,
-      },
-      { depthM: Infinity },
-      { depthM: 4, shoreNormalDeg: null, breakerIndex: 0.6 },
-    );
+    const out = transformWithTide(level, 0.2, 8, 4);
     expect(out.ks[0]).toBeLessThan(out.ks[1]);
     expect(out.ks[1]).toBeLessThan(out.ks[2]);
     expect(out.bedVelocityLinearMps[0]).toBeLessThan(out.bedVelocityLinearMps[2]);
@@ -71,37 +71,18 @@ describe('depth that moves with the tide', () => {
 
   it('flags a dry hour (h <= 0) as no data, and a missing level as missing', () => {
     const level = Float64Array.of(-2.5, -2, NaN, 0.3);
-    const n = 4;
-    const out = transformToSite(
-      {
-        hsM: new Float64Array(n).fill(1),
-        tpS: new Float64Array(n).fill(8),
-        tzS: new Float64Array(n).fill(NaN),
-        dirDeg: new Float64Array(n).fill(NaN),
-        waterLevelM: level,
-      },
-      { depthM: Infinity },
-      { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
-    );
+    const out = transformWithTide(level, 1, 8, 2);
     expect(out.flags[0]).toBe(TRANSFORM_FLAG.DRY); // h = -0.5 m
     expect(out.flags[1]).toBe(TRANSFORM_FLAG.DRY); // h = 0 m exactly: dry (h <= 0)
     expect(out.flags[2]).toBe(TRANSFORM_FLAG.MISSING_INPUT);
     expect(Number.isNaN(out.hsM[0]) && Number.isNaN(out.bedVelocityLinearMps[1]) && Number.isNaN(out.hsM[2])).toBe(true);
     expect(out.hsM[3]).toBeGreaterThan(0);
     // The chain of one hour shows the water level and the depth used.
-    const chain = transformOne(
-      { hsM: 1, tpS: 8, waterLevelM: 0.3 },
-      { depthM: Infinity },
-      { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
-    );
+    const chain = transformHour({ hsM: 1, tpS: 8, waterLevelM: 0.3 }, 2);
     expect(chain.waterLevelM).toBe(0.3);
     expect(chain.depthM).toBeCloseTo(2.3, 12);
     expect(chain.depthLimitM).toBeCloseTo(0.6 * 2.3, 12);
-    const dry = transformOne(
-      { hsM: 1, tpS: 8, waterLevelM: -2.1 },
-      { depthM: Infinity },
-      { depthM: 2, shoreNormalDeg: null, breakerIndex: 0.6 },
-    );
+    const dry = transformHour({ hsM: 1, tpS: 8, waterLevelM: -2.1 }, 2);
     expect(dry.flagNames).toEqual(['DRY']);
   });
 });
