@@ -1,5 +1,5 @@
-import { customType, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { idColumn, stampColumn } from './columns';
+import { customType, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text } from 'drizzle-orm/pg-core';
+import { idColumn, instantColumn, ownerColumn, stampColumn } from './columns';
 import { user } from './auth';
 import { projectIdColumn } from './projects';
 
@@ -26,10 +26,10 @@ export const dataset = pgTable(
     sourceKind: text({ enum: ['upload', 'service'] }).notNull(),
     originalFileName: text(),
     format: text(),
-    issuedAt: timestamp({ withTimezone: true }),
+    issuedAt: instantColumn(),
     stepMinutes: doublePrecision().notNull(),
-    startAt: timestamp({ withTimezone: true }).notNull(),
-    endAt: timestamp({ withTimezone: true }).notNull(),
+    startAt: instantColumn().notNull(),
+    endAt: instantColumn().notNull(),
     recordCount: integer().notNull(),
     variables: jsonb().$type<string[]>().notNull(),
     missing: jsonb().$type<Record<string, number>>().notNull(),
@@ -70,12 +70,10 @@ export const dataset = pgTable(
 export const datasetChunk = pgTable(
   'dataset_chunk',
   {
-    datasetId: uuid()
-      .notNull()
-      .references(() => dataset.id, { onDelete: 'cascade' }),
+    datasetId: ownerColumn(() => dataset.id),
     seq: integer().notNull(),
-    startAt: timestamp({ withTimezone: true }).notNull(),
-    endAt: timestamp({ withTimezone: true }).notNull(),
+    startAt: instantColumn().notNull(),
+    endAt: instantColumn().notNull(),
     count: integer().notNull(),
     timeMs: bytea().notNull(),
     hs: bytea().notNull(),
@@ -103,9 +101,7 @@ export const datasetChunk = pgTable(
 export const forecastMember = pgTable(
   'forecast_member',
   {
-    datasetId: uuid()
-      .notNull()
-      .references(() => dataset.id, { onDelete: 'cascade' }),
+    datasetId: ownerColumn(() => dataset.id),
     member: integer().notNull(),
     seq: integer().notNull(),
     count: integer().notNull(),
