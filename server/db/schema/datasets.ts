@@ -8,6 +8,18 @@ export const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({
   dataType: () => 'bytea',
 });
 
+/** One packed column of a chunk (a value per record), required. */
+const packedColumn = () => bytea().notNull();
+
+/** The packed columns a forecast member stores, as its control's chunk does: Hs, Tp, direction, wind and its direction. */
+const memberColumns = () => ({
+  hs: packedColumn(),
+  tp: packedColumn(),
+  dir: packedColumn(),
+  wind: packedColumn(),
+  windDir: packedColumn(),
+});
+
 export const DATASET_KIND_VALUES = ['hindcast', 'forecast', 'observation'] as const;
 
 export const dataset = pgTable(
@@ -75,15 +87,11 @@ export const datasetChunk = pgTable(
     startAt: instantColumn().notNull(),
     endAt: instantColumn().notNull(),
     count: integer().notNull(),
-    timeMs: bytea().notNull(),
-    hs: bytea().notNull(),
-    tp: bytea().notNull(),
-    tz: bytea().notNull(),
-    te: bytea().notNull(),
-    dir: bytea().notNull(),
-    wind: bytea().notNull(),
-    windDir: bytea().notNull(),
-    givenPeriods: bytea().notNull(),
+    timeMs: packedColumn(),
+    ...memberColumns(),
+    tz: packedColumn(),
+    te: packedColumn(),
+    givenPeriods: packedColumn(),
     /** Names of the optional columns in `extra`, in order (shared/seadata/extra-columns.ts). */
     extraColumns: jsonb().$type<string[]>().notNull().default([]),
     /** The optional columns' packed Float64 values, one column after the other; null when none. */
@@ -105,11 +113,7 @@ export const forecastMember = pgTable(
     member: integer().notNull(),
     seq: integer().notNull(),
     count: integer().notNull(),
-    hs: bytea().notNull(),
-    tp: bytea().notNull(),
-    dir: bytea().notNull(),
-    wind: bytea().notNull(),
-    windDir: bytea().notNull(),
+    ...memberColumns(),
   },
   (t) => [primaryKey({ columns: [t.datasetId, t.member, t.seq] })],
 );
