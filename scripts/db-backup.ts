@@ -6,20 +6,10 @@
 // With DATABASE_URL (a PostgreSQL server) it prints the pg_dump command to use and exits with 2.
 import fs from 'node:fs';
 import path from 'node:path';
-import { loadEnv } from '../server/env';
 import { claimDataDir, releaseDataDir } from '../server/data-dir-claim';
-import { dbFolder, formatSize, postgresAdvice, readBackupFile, runningServer, stamp, writeAtomically } from './db-common';
+import { dbFolder, fail, formatSize, readBackupFile, runningServer, stamp, startDbCommand, writeAtomically } from './db-common';
 
-function fail(message: string, code = 1): never {
-  console.error(message);
-  process.exit(code);
-}
-
-// Checked before the rest of the environment: on a PostgreSQL server only the advice matters.
-if (process.env.DATABASE_URL) fail(postgresAdvice('backup'), 2);
-const env = loadEnv();
-
-const given = process.argv.slice(2).find((a) => !a.startsWith('--'));
+const { env, dataDir, given } = startDbCommand('backup');
 let target: string;
 if (given) {
   target = path.resolve(given);
@@ -30,7 +20,6 @@ if (given) {
   for (let n = 2; fs.existsSync(target); n++) target = `${base}-${n}.tar.gz`;
 }
 
-const dataDir = path.resolve(env.DATA_DIR);
 const server = runningServer(dataDir);
 let size: number;
 if (server && server.port === null) {

@@ -4,6 +4,24 @@ import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { liveClaim, type ServerClaim } from '../server/data-dir-claim';
+import { loadEnv, type Env } from '../server/env';
+
+/** Prints `message` on stderr and ends the command with exit code `code`. */
+export function fail(message: string, code = 1): never {
+  console.error(message);
+  process.exit(code);
+}
+
+/**
+ * The start of `npm run db:<what>`: with DATABASE_URL (a PostgreSQL server) only the advice
+ * matters, so it is checked before the rest of the environment (exit 2); otherwise the
+ * environment, DATA_DIR as an absolute path and the file named on the command line, if any.
+ */
+export function startDbCommand(what: 'backup' | 'restore'): { env: Env; dataDir: string; given: string | undefined } {
+  if (process.env.DATABASE_URL) fail(postgresAdvice(what), 2);
+  const env = loadEnv();
+  return { env, dataDir: path.resolve(env.DATA_DIR), given: process.argv.slice(2).find((a) => !a.startsWith('--')) };
+}
 
 /** What a running server writes to DATA_DIR/server.json (server/data-dir-claim.ts). */
 export type ServerInfo = ServerClaim;

@@ -12,23 +12,12 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import type { PGlite } from '@electric-sql/pglite';
-import { loadEnv } from '../server/env';
 import { claimDataDir, releaseDataDir } from '../server/data-dir-claim';
-import { BackupFileError, dbFolder, formatSize, postgresAdvice, readBackupFile, runningServer, stamp } from './db-common';
+import { BackupFileError, dbFolder, fail, formatSize, readBackupFile, runningServer, stamp, startDbCommand } from './db-common';
 
-function fail(message: string, code = 1): never {
-  console.error(message);
-  process.exit(code);
-}
-
-// Checked before the rest of the environment: on a PostgreSQL server only the advice matters.
-if (process.env.DATABASE_URL) fail(postgresAdvice('restore'), 2);
-const env = loadEnv();
-
-const given = process.argv.slice(2).find((a) => !a.startsWith('--'));
+const { dataDir, given } = startDbCommand('restore');
 if (!given) fail('Usage: npm run db:restore -- <backup file>   (a .tar.gz written by npm run db:backup)');
 const file = path.resolve(given);
-const dataDir = path.resolve(env.DATA_DIR);
 
 function refuseWhileServing(): void {
   const server = runningServer(dataDir);

@@ -125,22 +125,12 @@ export async function seedDemoAccounts(deps: Pick<AppDeps, 'db' | 'auth' | 'cloc
   ]);
 
   const siteIds = {} as DemoIds['siteIds'];
-  for (const s of DEMO_SITES) {
+  for (const { key, ...columns } of DEMO_SITES) {
     const [row] = await db
       .insert(worksite)
-      .values({
-        projectId: main.id,
-        name: s.name,
-        depthM: s.depthM,
-        shoreNormalDeg: s.shoreNormalDeg,
-        breakerIndex: s.breakerIndex,
-        latitude: s.latitude,
-        longitude: s.longitude,
-        timeZone: DEMO_TIME_ZONE,
-        tide: DEMO_SITE_TIDES[s.key] ?? null,
-      })
+      .values({ projectId: main.id, ...columns, timeZone: DEMO_TIME_ZONE, tide: DEMO_SITE_TIDES[key] ?? null })
       .returning({ id: worksite.id });
-    siteIds[s.key] = row.id;
+    siteIds[key] = row.id;
   }
   const vesselIds = {} as Record<(typeof DEMO_VESSELS)[number]['key'], string>;
   for (const v of DEMO_VESSELS) {
@@ -151,22 +141,17 @@ export async function seedDemoAccounts(deps: Pick<AppDeps, 'db' | 'auth' | 'cloc
     vesselIds[v.key] = row.id;
   }
   const operationIds: string[] = [];
-  for (const o of DEMO_OPERATIONS) {
+  for (const { sites, skipper, recurrence, vessel: from, ...columns } of DEMO_OPERATIONS) {
     const [row] = await db
       .insert(operation)
       .values({
         projectId: main.id,
-        name: o.name,
-        description: o.description,
-        tpopH: o.tpopH,
-        tcH: o.tcH,
-        weatherRestricted: o.weatherRestricted,
-        limits: o.limits,
-        siteIds: o.sites.map((k) => siteIds[k]),
-        skipperIds: o.skipper ? [users.skipper] : [],
-        recurrence: o.recurrence ? { ...o.recurrence, text: recurrenceText(o.recurrence) } : null,
-        vesselId: o.vessel ? vesselIds[o.vessel.key] : null,
-        headingDeg: o.vessel?.headingDeg ?? null,
+        ...columns,
+        siteIds: sites.map((k) => siteIds[k]),
+        skipperIds: skipper ? [users.skipper] : [],
+        recurrence: recurrence ? { ...recurrence, text: recurrenceText(recurrence) } : null,
+        vesselId: from ? vesselIds[from.key] : null,
+        headingDeg: from?.headingDeg ?? null,
       })
       .returning({ id: operation.id });
     operationIds.push(row.id);

@@ -5,38 +5,18 @@
 import { startFakeForecastService, type FakeForecastService, type FakeForecastServiceOptions } from './fake-service';
 import { HttpForecastProvider, type ForecastProvider } from './provider';
 
-// Provider interface and HTTP client
-export { HttpForecastProvider } from './provider';
-export type {
-  ForecastAdapter,
-  ForecastIssue,
-  ForecastProvider,
-  ForecastQuery,
-  ForecastRecords,
-  HttpForecastProviderOptions,
-} from './provider';
-export { seaStateExchangeAdapter, exchangeToRecords } from './adapters/sea-state-exchange';
-export { ForecastServiceError } from './forecast-service-error';
-export type { ForecastServiceErrorCode } from './forecast-service-error';
-// Wire format: our own sea-state exchange
-export { seaStateExchangeSchema, EXCHANGE_PATH, EXCHANGE_SERIES, EXCHANGE_SERIES_KEYS, MAX_FORECAST_STEPS } from './forecast-schema';
-export type { ExchangeSeriesKey, ExchangeSeriesSpec, SeaStateExchange } from './forecast-schema';
-// Local fake service
-export { startFakeForecastService } from './fake-service';
-export type { FakeFailureMode, FakeForecastRequestLog, FakeForecastService, FakeForecastServiceOptions } from './fake-service';
-export {
-  buildFakeForecast,
-  latestIssueTimeMs,
-  snapToGrid,
-  truthSeedForPosition,
-  climateForPosition,
-  ISSUE_CYCLE_HOURS,
-  FAKE_GRID_DEG,
-} from './fake-forecast';
-export type { FakeForecastRequest } from './fake-forecast';
-// Invented sea states
-export { generateSyntheticSea, DEFAULT_SEA_CLIMATE } from './synthetic-sea';
-export type { SeaClimate, SyntheticSeaRequest, SyntheticSeaSeries } from './synthetic-sea';
+// Each module's whole public surface:
+// the provider interface and its HTTP client, with the adapter of our own exchange shape;
+export * from './provider';
+export * from './adapters/sea-state-exchange';
+export * from './forecast-service-error';
+// the wire format: our own sea-state exchange;
+export * from './forecast-schema';
+// the local fake service and its forecasts;
+export * from './fake-service';
+export * from './fake-forecast';
+// the invented sea states.
+export * from './synthetic-sea';
 
 export interface ForecastConfig {
   /** Base URL of the hosted forecast service; when absent the local fake is started. */

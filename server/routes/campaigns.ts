@@ -2,11 +2,10 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { CampaignInput, CampaignPatchInput, OutlookQuery, StepProgressInput } from '../../shared/schemas/downtime';
 import type { AppDeps } from '../deps';
-import { addProjectCollection } from './project-collection';
+import { addProjectCollection, projectRoutes } from './project-collection';
 import { parseInput } from '../http/errors';
 import { createCampaign, deleteCampaign, getCampaign, listCampaigns, simulateProjectCampaign, updateCampaign } from '../services/campaigns';
 import { campaignOutlookAnswer, outlookHistory, setStepProgress } from '../services/campaign-outlook';
-import { requireCoordinator, requireProjectMember } from '../services/project-access';
 
 const alphaFlag = z
   .enum(['true', 'false'])
@@ -17,19 +16,19 @@ const SimulateQuery = z.object({ dataset: z.string().uuid('must be a dataset id'
 /** Campaigns (ordered operation-at-worksite steps): every member reads and simulates, coordinators edit. */
 export function campaignsRoutes({ db, clock }: AppDeps): Router {
   const router = Router();
+  const project = projectRoutes(router, db);
 
   /**
    * /api/projects/:projectId/campaigns: the project's campaigns by name; POST `{ name, steps:
    * [{ operationId, siteId }], plannedStart?, timeZone? }` → 201 with the campaign (its `id`); GET,
    * PATCH (any subset; `steps` replaced whole: add, reorder, remove) and DELETE (204) `/:campaignId`.
    */
-  addProjectCollection(router, db, {
-    name: 'campaigns',
-    idParam: 'campaignId',
+  addProjectCollection(router, db, 'campaigns/:campaignId', {
     list: (a) => listCampaigns(db, a.projectId),
     get: (a, id) => getCampaign(db, a.projectId, id),
-    create: { body: CampaignInput, run: (a, input) => createCampaign(db, a.projectId, input) },
-    update: { body: CampaignPatchInput, run: (a, id, patch) => updateCampaign(db, a.projectId, id, patch) },
+    body: { create: CampaignInput, update: CampaignPatchInput },
+    create: (a, input) => createCampaign(db, a.projectId, input),
+    update: (a, id, patch) => updateCampaign(db, a.projectId, id, patch),
     remove: (a, id) => deleteCampaign(db, a.projectId, id),
   });
 
@@ -38,12 +37,9 @@ export function campaignsRoutes({ db, clock }: AppDeps): Router {
    * month 1-12 (the 1st at 00:00 in the campaign's zone, every hindcast year) P50/P90 of duration
    * and waiting on weather (h), censored years, and P50/P90 finish dates from the next start date.
    */
-  router.post('/projects/:projectId/campaigns/:campaignId/simulate', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
+  project.post('campaigns/:campaignId/simulate', 'member', (a, req) => {
     const q = parseInput(SimulateQuery, req.query, 'query');
-    res.json(
-      await simulateProjectCampaign(db, access.projectId, req.params.campaignId, { datasetId: q.dataset, alpha: q.alpha, now: clock() }),
-    );
+    return simulateProjectCampaign(db, a.projectId, req.params.campaignId, { datasetId: q.dataset, alpha: q.alpha, now: clock() });
   });
 
   /**
@@ -51,10 +47,9 @@ export function campaignsRoutes({ db, clock }: AppDeps): Router {
    * `{ status: 'planned' | 'started' | 'done', startedAt?, doneAt? }` for the 0-based step; 'done'
    * without `doneAt` takes the end from the confirmed ledger days when they show the step worked.
    */
-  router.patch('/projects/:projectId/campaigns/:campaignId/steps/:index', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
+  project.patch('campaigns/:campaignId/steps/:index', 'coordinator', (a, req) => {
     const input = parseInput(StepProgressInput, req.body);
-    res.json(await setStepProgress(db, access.projectId, req.params.campaignId, req.params.index, input, access.user, clock()));
+    return setStepProgress(db, a.projectId, req.params.campaignId, req.params.index, input, a.user, clock());
   });
 
   /**
@@ -62,17 +57,13 @@ export function campaignsRoutes({ db, clock }: AppDeps): Router {
    * steps on the latest forecast then each hindcast year: P10/P50/P90 finish, remaining waiting on
    * weather, each step's start, the forecast and hindcast-only parts apart.
    */
-  router.get('/projects/:projectId/campaigns/:campaignId/outlook', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
+  project.get('campaigns/:campaignId/outlook', 'member', (a, req) => {
     const q = parseInput(OutlookQuery, req.query, 'query');
-    res.json(await campaignOutlookAnswer(db, access.projectId, req.params.campaignId, { alpha: q.alpha, now: clock() }));
+    return campaignOutlookAnswer(db, a.projectId, req.params.campaignId, { alpha: q.alpha, now: clock() });
   });
 
   /** GET /api/projects/:projectId/campaigns/:campaignId/outlook/history: `[{ at, p50, p90, forecastIssuedAt }]`, oldest first. */
-  router.get('/projects/:projectId/campaigns/:campaignId/outlook/history', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await outlookHistory(db, access.projectId, req.params.campaignId));
-  });
+  project.get('campaigns/:campaignId/outlook/history', 'member', (a, req) => outlookHistory(db, a.projectId, req.params.campaignId));
 
   return router;
 }

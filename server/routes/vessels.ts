@@ -3,7 +3,7 @@ import multer from 'multer';
 import { VesselInput } from '../../shared/schemas/vessel';
 import type { AppDeps } from '../deps';
 import { HttpError, parseInput } from '../http/errors';
-import { requireCoordinator, requireProjectMember } from '../services/project-access';
+import { projectRoutes } from './project-collection';
 import { createVessel, getVesselRaos, importVesselRaos, listVessels, vesselRow } from '../services/vessels';
 
 /** Largest RAO file, bytes (a dense table of 20 000 rows is well under 2 MB). */
@@ -45,33 +45,23 @@ function receiveRaoFile(req: Request, res: Response): Promise<Express.Multer.Fil
 /** Vessels and their RAO tables (docs/domain.md#vessel-response): any member reads, coordinators write. */
 export function vesselsRoutes({ db }: AppDeps): Router {
   const router = Router();
+  const project = projectRoutes(router, db);
 
   /** GET /api/projects/:projectId/vessels: the project's vessels by name. */
-  router.get('/projects/:projectId/vessels', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await listVessels(db, access.projectId));
-  });
+  project.get('vessels', 'member', (a) => listVessels(db, a.projectId));
 
   /** POST /api/projects/:projectId/vessels: `{ name }` -> 201 with the vessel. */
-  router.post('/projects/:projectId/vessels', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    const input = parseInput(VesselInput, req.body);
-    res.status(201).json(await createVessel(db, access.projectId, access.user, input));
-  });
+  project.create('vessels', 'coordinator', (a, req) => createVessel(db, a.projectId, a.user, parseInput(VesselInput, req.body)));
 
   /** GET /api/projects/:projectId/vessels/:vesselId/raos: `{ periods, headings, responses }`. */
-  router.get('/projects/:projectId/vessels/:vesselId/raos', async (req, res) => {
-    const access = await requireProjectMember(db, req, req.params.projectId);
-    res.json(await getVesselRaos(db, access.projectId, req.params.vesselId));
-  });
+  project.get('vessels/:vesselId/raos', 'member', (a, req) => getVesselRaos(db, a.projectId, req.params.vesselId));
 
   /** POST /api/projects/:projectId/vessels/:vesselId/raos: multipart `file` (CSV) -> the new table, or 400 with every problem. */
-  router.post('/projects/:projectId/vessels/:vesselId/raos', async (req, res) => {
-    const access = await requireCoordinator(db, req, req.params.projectId);
-    await vesselRow(db, access.projectId, req.params.vesselId); // 404 before the upload is read
+  project.post('vessels/:vesselId/raos', 'coordinator', async (a, req, res) => {
+    await vesselRow(db, a.projectId, req.params.vesselId); // 404 before the upload is read
     const file = await receiveRaoFile(req, res);
     const text = new TextDecoder('utf-8', { fatal: false }).decode(file.buffer);
-    res.json(await importVesselRaos(db, access.projectId, access.user, req.params.vesselId, file.originalname || 'raos.csv', text));
+    return importVesselRaos(db, a.projectId, a.user, req.params.vesselId, file.originalname || 'raos.csv', text);
   });
 
   return router;

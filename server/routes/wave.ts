@@ -1,4 +1,5 @@
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
+import type { z } from 'zod';
 import { RegularWaveQuery, SeaStateQuery, WaveTableQuery } from '../../shared/schemas/wave';
 import { ResponseQuery } from '../../shared/schemas/vessel';
 import { requireProjectMember } from '../services/project-access';
@@ -18,6 +19,15 @@ function physics<T>(fn: () => T): T {
   }
 }
 
+/** A calculator route: any signed-in user; the query parsed by `schema`, answered by `answer`. */
+function calculator<S extends z.ZodType>(schema: S, answer: (query: z.infer<S>) => unknown): RequestHandler {
+  return (req, res) => {
+    requireUser(req);
+    const q = parseInput(schema, req.query, 'query');
+    res.json(physics(() => answer(q)));
+  };
+}
+
 export function waveRoutes({ db }: AppDeps): Router {
   const router = Router();
 
@@ -35,32 +45,16 @@ export function waveRoutes({ db }: AppDeps): Router {
   });
 
   /** GET /api/wave/regular?period=&height=&depth=&z=: one regular wave by linear theory (SI units). */
-  router.get('/wave/regular', (req, res) => {
-    requireUser(req);
-    const q = parseInput(RegularWaveQuery, req.query, 'query');
-    res.json(physics(() => regularWaveAnswer(q)));
-  });
+  router.get('/wave/regular', calculator(RegularWaveQuery, regularWaveAnswer));
 
   /** GET /api/wave/profile?period=&height=&depth=: u(z), w(z), Kp(z) from the bed (or L/2) to the surface. */
-  router.get('/wave/profile', (req, res) => {
-    requireUser(req);
-    const q = parseInput(RegularWaveQuery, req.query, 'query');
-    res.json(physics(() => regularWaveProfile(q)));
-  });
+  router.get('/wave/profile', calculator(RegularWaveQuery, regularWaveProfile));
 
   /** GET /api/wave/table?from=&to=&step=: wave table rows by d/L0 (at most 2,000). */
-  router.get('/wave/table', (req, res) => {
-    requireUser(req);
-    const q = parseInput(WaveTableQuery, req.query, 'query');
-    res.json(physics(() => waveTableAnswer(q)));
-  });
+  router.get('/wave/table', calculator(WaveTableQuery, waveTableAnswer));
 
   /** GET /api/wave/sea-state?hs=&tp=&depth= (tz, te, gamma optional): periods, energy, power, bed velocity both ways. */
-  router.get('/wave/sea-state', (req, res) => {
-    requireUser(req);
-    const q = parseInput(SeaStateQuery, req.query, 'query');
-    res.json(physics(() => seaStateAnswer(q)));
-  });
+  router.get('/wave/sea-state', calculator(SeaStateQuery, seaStateAnswer));
 
   return router;
 }

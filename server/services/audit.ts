@@ -7,43 +7,32 @@
  */
 import { and, desc, eq, sql } from 'drizzle-orm';
 import type { AuditEntryResponse } from '../../shared/api-types-sites';
-import type { AuditAction, AuditEntity } from '../../shared/schemas/sites';
+import type { AuditEntity } from '../../shared/schemas/sites';
 import type { Db } from '../db/client';
 import { auditEntry, user } from '../db/schema';
 import type { SessionUser } from '../http/context';
 
-export interface AuditRecord {
+/** One change to write: what changed and how, as an entry answers it (before: null on create/import; after: null on delete). */
+export interface AuditRecord extends Pick<AuditEntryResponse, 'entity' | 'entityId' | 'entityName' | 'action' | 'before' | 'after'> {
   projectId: string;
   /** who made the change (id and display name are both kept: the name stays if the user goes) */
   user: Pick<SessionUser, 'id' | 'name'>;
-  entity: AuditEntity;
-  entityId: string | null;
-  entityName: string;
-  action: AuditAction;
-  /** JSON snapshot of the audited fields before; null on create/import */
-  before: unknown;
-  /** JSON snapshot after; null on delete */
-  after: unknown;
 }
 
 /**
  * Appends one entry. Call it with the transaction that makes the change, so the change and its
  * entry are written together or not at all.
  */
-export async function recordAudit(tx: Db, record: AuditRecord): Promise<void> {
+export async function recordAudit(tx: Db, { user, before, after, ...change }: AuditRecord): Promise<void> {
   await tx.insert(auditEntry).values({
-    projectId: record.projectId,
+    ...change,
     // The statement's own clock (now() is the transaction's start): entries written by one
     // transaction keep their order.
     at: sql`clock_timestamp()`,
-    userId: record.user.id,
-    userName: record.user.name,
-    entity: record.entity,
-    entityId: record.entityId,
-    entityName: record.entityName,
-    action: record.action,
-    before: record.before ?? null,
-    after: record.after ?? null,
+    userId: user.id,
+    userName: user.name,
+    before: before ?? null,
+    after: after ?? null,
   });
 }
 

@@ -18,10 +18,8 @@ import { and, asc, desc, eq, gte, inArray, isNotNull } from 'drizzle-orm';
 import { TZDate } from '@date-fns/tz';
 import { format } from 'date-fns';
 import {
-  evaluateStatus,
   isWeatherRestricted,
   recordSteps,
-  goStarts,
   outlookPercentiles,
   outlookStart,
   simulateOutlook,
@@ -38,8 +36,9 @@ import type { SessionUser } from '../http/context';
 import { HttpError } from '../http/errors';
 import { renderMail } from '../mail/message';
 import { UNSUBSCRIBE_LINK_MARK } from './alert-mail';
+import { ledgerDaysWhere } from './ledger-entries';
 import { recordAudit } from './audit';
-import { assertSteps, campaignRow, toCampaignResponse } from './campaigns';
+import { assertSteps, campaignRow, goStartsByPair, pairKey, toCampaignResponse, type Pair } from './campaigns';
 import { latestDataset } from './datasets';
 import { zonedDayMs } from '../../shared/ledger/days';
 import { enqueueMail, type OutboxMessage } from './outbox';
@@ -48,7 +47,7 @@ import { runEngineTask } from './engine-pool';
 import { readMembers } from './ensemble-store';
 import type { SeaSeries } from './series-store';
 import { loadProjectSetup, type ProjectSetup } from './site-context';
-import { datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
+import { datasetSeries, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
 
 const MS_PER_HOUR = 3_600_000;
 const MS_PER_DAY = 86_400_000;
@@ -74,12 +73,12 @@ export async function ledgerDoneAt(
     .select({ day: ledgerDay.day, plannedHours: ledgerDay.plannedHours, lostHours: ledgerDay.lostHours })
     .from(ledgerDay)
     .where(
-      and(
-        eq(ledgerDay.projectId, projectId),
+      ledgerDaysWhere(
+        projectId,
+        'confirmed',
         eq(ledgerDay.operationId, step.operationId),
         eq(ledgerDay.siteId, step.siteId),
-        eq(ledgerDay.status, 'confirmed'),
-        ...(fromDay ? [gte(ledgerDay.day, fromDay)] : []),
+        fromDay ? gte(ledgerDay.day, fromDay) : undefined,
       ),
     )
     .orderBy(asc(ledgerDay.day));
@@ -214,9 +213,6 @@ export async function setStepProgress(
 // Outlook
 // ---------------------------------------------------------------------------------------------
 
-type Pair = { operationId: string; siteId: string };
-const pairKey = (p: Pair) => `${p.operationId}|${p.siteId}`;
-
 /** Go-start flags per (operation, worksite) on a stored dataset, kept per database handle (stored datasets never change). */
 const flagMemos = new WeakMap<Db, ByteBoundedMemo<Map<string, Uint8Array>>>();
 /** Bytes of go-start flags kept per database handle (one byte per record and pair). */
@@ -275,24 +271,7 @@ export function computeOutlookGoStarts(
   pairs: Pair[],
   alpha: boolean,
 ): Uint8Array[] {
-  const wanted = new Set(pairs.map(pairKey));
-  const stepMs = row.stepMinutes * 60_000;
-  const flags = new Map<string, Uint8Array>();
-  forEachOperationSite(
-    series,
-    row,
-    setup,
-    ({ op, spec, site, engine, workspace }) => {
-      const key = pairKey({ operationId: op.id, siteId: site.id });
-      if (row.kind === 'forecast' && !isWeatherRestricted(spec)) {
-        flags.set(key, new Uint8Array(engine.timeMs.length));
-        return;
-      }
-      const status = evaluateStatus(engine, spec, { alpha, alphaTable: setup.alphaTable, out: workspace.status });
-      flags.set(key, goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
-    },
-    (opId, siteId) => wanted.has(`${opId}|${siteId}`),
-  );
+  const flags = goStartsByPair(series, row, setup, pairs, alpha, (spec) => row.kind === 'forecast' && !isWeatherRestricted(spec));
   return pairs.map((p) => flags.get(pairKey(p))!);
 }
 

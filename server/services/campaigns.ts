@@ -13,6 +13,7 @@ import {
   zoneOffsetMs,
   type CampaignMonthResult,
   type CampaignStep,
+  type OperationSpec,
 } from '../../shared/engine';
 import type { CampaignMonthAnswer, CampaignResponse, CampaignSimulation } from '../../shared/api-types-downtime';
 import type { CampaignInput, CampaignPatchInput, CampaignStepInput } from '../../shared/schemas/downtime';
@@ -258,6 +259,44 @@ export async function simulateProjectCampaign(
   };
 }
 
+/** An (operation, worksite) pair of a campaign step, and its key in maps of go-start flags. */
+export type Pair = { operationId: string; siteId: string };
+export const pairKey = (p: Pair) => `${p.operationId}|${p.siteId}`;
+
+/**
+ * Go-start flags (TR = TPOP + TC wholly workable, with or without alpha) of each wanted pair on
+ * the series transformed to its worksite, by {@link pairKey}; a pair whose spec `noGoStart` picks
+ * gets none at all.
+ */
+export function goStartsByPair(
+  series: SeaSeries,
+  row: DatasetRow,
+  setup: ProjectSetup,
+  pairs: Pair[],
+  alpha: boolean,
+  noGoStart: (spec: OperationSpec) => boolean = () => false,
+): Map<string, Uint8Array> {
+  const wanted = new Set(pairs.map(pairKey));
+  const stepMs = row.stepMinutes * 60_000;
+  const flags = new Map<string, Uint8Array>();
+  forEachOperationSite(
+    series,
+    row,
+    setup,
+    ({ op, spec, site, engine, workspace }) => {
+      const key = pairKey({ operationId: op.id, siteId: site.id });
+      if (noGoStart(spec)) {
+        flags.set(key, new Uint8Array(engine.timeMs.length));
+        return;
+      }
+      const status = evaluateStatus(engine, spec, { alpha, alphaTable: setup.alphaTable, out: workspace.status });
+      flags.set(key, goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
+    },
+    (operationId, siteId) => wanted.has(pairKey({ operationId, siteId })),
+  );
+  return flags;
+}
+
 /**
  * The simulated months of a campaign's steps on a hindcast (numbers only, what is cached): the
  * go-start flags of each distinct (operation, worksite) step on the transformed series, then
@@ -272,20 +311,8 @@ export function computeCampaignMonths(
   alpha: boolean,
 ): Simulated {
   const stepMs = row.stepMinutes * 60_000;
-  const key = (opId: string, siteId: string) => `${opId}|${siteId}`;
-  const wanted = new Set(steps.map((s) => key(s.operationId, s.siteId)));
-  const flags = new Map<string, Uint8Array>();
-  forEachOperationSite(
-    series,
-    row,
-    setup,
-    ({ op, spec, site, engine, workspace }) => {
-      const status = evaluateStatus(engine, spec, { alpha, alphaTable: setup.alphaTable, out: workspace.status });
-      flags.set(key(op.id, site.id), goStarts(engine.timeMs, status, stepMs, spec.tpopH + spec.tcH));
-    },
-    (opId, siteId) => wanted.has(key(opId, siteId)),
-  );
-  const campaignSteps: CampaignStep[] = steps.map((s) => ({ goStart: flags.get(key(s.operationId, s.siteId))!, tpopH: s.tpopH }));
+  const flags = goStartsByPair(series, row, setup, steps, alpha);
+  const campaignSteps: CampaignStep[] = steps.map((s) => ({ goStart: flags.get(pairKey(s))!, tpopH: s.tpopH }));
   const dtH = stepMs / MS_PER_HOUR;
   return {
     months: simulateCampaign(series.timeMs, stepMs, campaignSteps, { timeZone }).map(({ runs: _runs, ...month }) => month),

@@ -178,16 +178,10 @@ export async function importUploadedFile(
   const row = await createDataset(
     db,
     {
-      projectId: args.projectId,
-      createdBy: args.userId,
-      name: form.name,
-      kind: form.kind,
-      dataPointName: p.dataPointName,
+      ...uploadColumns(p, form, args),
       dataPointLatitude: p.dataPointLatitude,
       dataPointLongitude: p.dataPointLongitude,
-      dataPointDepthM: form.dataPointDepth === 'deep' ? null : form.dataPointDepth,
-      sourceKind: 'upload',
-      originalFileName: safeFileName(args.file.originalName),
+      dataPointDepthM: formDepth(form),
       format,
       issuedAt: form.kind === 'forecast' ? new Date(result.records.timeMs[0]) : null,
       anemometerHeightM: windHeight,
@@ -210,6 +204,24 @@ export async function importUploadedFile(
   );
   return importAnswer(db, args.projectId, row, result.report.rowsSkipped);
 }
+
+type ImportForm = ReturnType<typeof ImportFormSchema.parse>;
+
+/** The columns of an uploaded dataset that every format fills alike: the project, who, the name and kind, the file. */
+function uploadColumns(p: typeof project.$inferSelect, form: ImportForm, args: { projectId: string; userId: string; file: UploadedFile }) {
+  return {
+    projectId: args.projectId,
+    createdBy: args.userId,
+    name: form.name,
+    kind: form.kind,
+    dataPointName: p.dataPointName,
+    sourceKind: 'upload' as const,
+    originalFileName: safeFileName(args.file.originalName),
+  };
+}
+
+/** The data point's depth the form states (null: deep water). */
+const formDepth = (form: ImportForm): number | null => (form.dataPointDepth === 'deep' ? null : form.dataPointDepth);
 
 /**
  * The answer of an import: the stored dataset's figures, and a warning when a hindcast shorter than a
@@ -265,7 +277,7 @@ async function readHeadBytes(path: string, bytes: number): Promise<Buffer> {
 async function importNetcdfUpload(
   db: Db,
   p: typeof project.$inferSelect,
-  form: ReturnType<typeof ImportFormSchema.parse>,
+  form: ImportForm,
   args: { projectId: string; userId: string; file: UploadedFile; onProgress?: (p: ImportProgress) => void },
 ): Promise<ImportAnswer> {
   // On a worker thread stopped after a time limit (a damaged file can make the HDF5 reader loop).
@@ -297,22 +309,14 @@ async function importNetcdfUpload(
   }
   args.onProgress?.({ phase: 'saving', bytesRead: args.file.size, totalBytes: args.file.size, rows: records.timeMs.length });
   const series = toSeaSeries({ ...records, extra });
-  // The model's depth at the point sets the data point's depth when the file gives it.
-  const formDepth = form.dataPointDepth === 'deep' ? null : form.dataPointDepth;
-  const depth = info.depthM ?? formDepth;
   const row = await createDataset(
     db,
     {
-      projectId: args.projectId,
-      createdBy: args.userId,
-      name: form.name,
-      kind: form.kind,
-      dataPointName: p.dataPointName,
+      ...uploadColumns(p, form, args),
       dataPointLatitude: info.point.lat ?? p.dataPointLatitude,
       dataPointLongitude: info.point.lon ?? p.dataPointLongitude,
-      dataPointDepthM: depth,
-      sourceKind: 'upload',
-      originalFileName: safeFileName(args.file.originalName),
+      // The model's depth at the point sets the data point's depth when the file gives it.
+      dataPointDepthM: info.depthM ?? formDepth(form),
       format: 'netcdf',
       issuedAt: form.kind === 'forecast' ? new Date(result.forecastReferenceMs ?? records.timeMs[0]) : null,
       anemometerHeightM: windHeight,
@@ -338,7 +342,7 @@ async function importNetcdfUpload(
         ...info.notStored,
         ...info.notes,
         ...(givenHeight === undefined ? ['wind taken as given at 10 m above the sea (no anemometer height stated)'] : []),
-        ...(info.depthM !== null && formDepth !== info.depthM
+        ...(info.depthM !== null && formDepth(form) !== info.depthM
           ? [`data point depth set to the file's model depth of ${info.depthM} m (the form said ${form.dataPointDepth})`]
           : []),
       ],

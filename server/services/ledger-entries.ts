@@ -2,7 +2,7 @@
  * The ledger's rows as read and confirmed: the coordinator confirms a proposed day as it stands
  * or corrected with a note, which locks it; clients read the confirmed days only.
  */
-import { and, asc, eq, gte, lte } from 'drizzle-orm';
+import { and, asc, eq, gte, lte, type SQL } from 'drizzle-orm';
 import type { LedgerEntry } from '../../shared/api-types-downtime';
 import type { ProjectAccessRole } from '../../shared/api-types';
 import { zonedDayMs } from '../../shared/ledger/days';
@@ -62,6 +62,10 @@ function toEntry(r: LedgerJoined): LedgerEntry {
 
 /** Clients see the confirmed ledger only; proposals are the coordinator's working draft. */
 export const confirmedOnly = (role: ProjectAccessRole) => role === 'client';
+
+/** The project's ledger days of `status` that meet every one of `more`. */
+export const ledgerDaysWhere = (projectId: string, status: 'proposed' | 'confirmed', ...more: (SQL | undefined)[]) =>
+  and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, status), ...more);
 
 /** Ledger rows from `from` to `to` (inclusive), by day, operation and worksite. */
 export async function listLedger(

@@ -18,6 +18,7 @@ import { daysOf, tallyDay, tallyStitched, zonedDayMs, type DayTally, type Status
 import type { Db } from '../db/client';
 import { dataset, ledgerDay } from '../db/schema';
 import { readSeries, type SeaSeries } from './series-store';
+import { ledgerDaysWhere } from './ledger-entries';
 import { loadProjectSetup, operationSpec, sitesOf, transformForSite, type ProjectSetup, type WorksiteRow } from './site-context';
 
 const MS_PER_HOUR = 3_600_000;
@@ -141,14 +142,7 @@ export async function proposeLedger(
   const confirmed = await db
     .select({ operationId: ledgerDay.operationId, siteId: ledgerDay.siteId, day: ledgerDay.day })
     .from(ledgerDay)
-    .where(
-      and(
-        eq(ledgerDay.projectId, projectId),
-        eq(ledgerDay.status, 'confirmed'),
-        gte(ledgerDay.day, range.from),
-        lte(ledgerDay.day, range.to),
-      ),
-    );
+    .where(ledgerDaysWhere(projectId, 'confirmed', gte(ledgerDay.day, range.from), lte(ledgerDay.day, range.to)));
   const locked = new Set(confirmed.map((r) => `${r.operationId}|${r.siteId}|${r.day}`));
   let keptConfirmed = 0;
 

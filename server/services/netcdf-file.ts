@@ -23,6 +23,13 @@ function bad(reason: string): ImportError {
   return new ImportError([{ line: 0, column: '', value: '', reason }], 1, `The NetCDF file cannot be read: ${reason}`);
 }
 
+/** What `byName` holds for the variable `name`; refused as a bad file when there is no such variable. */
+function variableOf<T>(byName: Map<string, T>, name: string): T {
+  const found = byName.get(name);
+  if (found === undefined) throw bad(`no variable ${name}`);
+  return found;
+}
+
 /** Opens a NetCDF file of either kind; errors of a damaged file become an ImportError. */
 export async function openNetcdf(path: string): Promise<OpenNcFile> {
   const head = Buffer.alloc(8);
@@ -161,8 +168,7 @@ async function openNetcdf4(path: string): Promise<OpenNcFile> {
       format: 'netcdf4',
       variables,
       readRaw(name, start, count) {
-        const d = datasets.get(name);
-        if (!d) throw bad(`no variable ${name}`);
+        const d = variableOf(datasets, name);
         try {
           if (start.length === 0) return toFloat64(d.value, name);
           const ranges = start.map((s, k) => [s, s + count[k]] as [number, number]);
@@ -277,8 +283,7 @@ function openClassic(path: string): OpenNcFile {
     format: 'classic',
     variables,
     readRaw(name, start, count) {
-      const l = layout.get(name);
-      if (!l) throw bad(`no variable ${name}`);
+      const l = variableOf(layout, name);
       const type = CLASSIC_TYPES[l.v.type];
       if (!type) throw bad(`variable ${name} has type ${l.v.type}, which is not read`);
       const { shape } = l;

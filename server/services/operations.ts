@@ -10,10 +10,9 @@ import { OperationInput, type OperationPatchInput } from '../../shared/schemas/s
 import type { Db } from '../db/client';
 import { operation, projectMember, vessel, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
-import { parseInput } from '../http/errors';
 import { recordAudit } from './audit';
 import { auditedRows } from './audited-rows';
-import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
+import { fieldError } from './project-rows';
 
 type OperationRow = typeof operation.$inferSelect;
 
@@ -87,15 +86,14 @@ export function auditedOperation(op: OperationResponse): Omit<OperationResponse,
   return rest;
 }
 
-/** Column values of a parsed operation. */
 /** Operations in the audit trail: every field but id, recurrence and timestamps. */
-const OPERATIONS = auditedRows<typeof operation, OperationResponse>({
-  table: operation,
-  entity: 'operation',
+export const OPERATIONS = auditedRows(operation, 'operation', {
   toResponse: toOperationResponse,
   audited: auditedOperation,
+  names: ['Operation', 'An operation'],
 });
 
+/** Column values of a parsed operation. */
 export function operationColumns(input: OperationInput) {
   return {
     name: input.name,
@@ -111,20 +109,8 @@ export function operationColumns(input: OperationInput) {
   };
 }
 
-export const listOperations = async (db: Db, projectId: string): Promise<OperationResponse[]> =>
-  (await listProjectRows(db, operation, projectId)).map(toOperationResponse);
-
-/** The operation row, or 404 for a malformed id, an unknown id or another project's operation. */
-const operationRow = (db: Db, projectId: string, operationId: string): Promise<OperationRow> =>
-  projectRow(db, operation, projectId, operationId, 'Operation');
-
-export async function getOperation(db: Db, projectId: string, operationId: string): Promise<OperationResponse> {
-  return toOperationResponse(await operationRow(db, projectId, operationId));
-}
-
-/** 409 when another operation of the project has the same name (compared by {@link nameKey}). */
-const assertOperationNameFree = (db: Db, projectId: string, name: string, exceptId?: string): Promise<void> =>
-  assertNameFree(db, operation, projectId, name, 'An operation', exceptId);
+export const listOperations = OPERATIONS.list;
+export const getOperation = OPERATIONS.get;
 
 /**
  * 400 naming the first id that is not a worksite of the project, or not a skipper of the project.
@@ -168,7 +154,7 @@ async function assertReferences(
 
 export async function createOperation(db: Db, projectId: string, user: SessionUser, input: OperationInput): Promise<OperationResponse> {
   return db.transaction(async (tx) => {
-    await assertOperationNameFree(tx, projectId, input.name);
+    await OPERATIONS.assertNameFree(tx, projectId, input.name);
     await assertReferences(tx, projectId, input);
     return OPERATIONS.insert(tx, projectId, user, operationColumns(input));
   });
@@ -188,12 +174,10 @@ export async function updateOperation(
   patch: OperationPatchInput,
 ): Promise<OperationResponse> {
   return db.transaction(async (tx) => {
-    const row = await operationRow(tx, projectId, operationId);
-    const before = toOperationResponse(row);
-    const { tr: _tr, ...current } = auditedOperation(before);
-    const changes = Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined));
-    const merged = parseInput(OperationInput, { ...current, ...changes });
-    if (patch.name !== undefined) await assertOperationNameFree(tx, projectId, merged.name, operationId);
+    const { before, merged } = await OPERATIONS.patched(tx, projectId, operationId, patch, OperationInput, (op) => {
+      const { tr: _tr, ...current } = auditedOperation(op);
+      return current;
+    });
     await assertReferences(tx, projectId, merged, before);
     return OPERATIONS.update(tx, projectId, user, before, operationColumns(merged));
   });
@@ -201,7 +185,7 @@ export async function updateOperation(
 
 export async function deleteOperation(db: Db, projectId: string, user: SessionUser, operationId: string): Promise<void> {
   await db.transaction(async (tx) => {
-    const row = await operationRow(tx, projectId, operationId);
+    const row = await OPERATIONS.row(tx, projectId, operationId);
     await OPERATIONS.remove(tx, projectId, user, row);
   });
 }
@@ -219,7 +203,7 @@ export async function setOperationRecurrence(
 ): Promise<(RecurrenceInput & { text: string }) | null> {
   const value = input ? { ...input, text: recurrenceText(input) } : null;
   await db.transaction(async (tx) => {
-    const row = await operationRow(tx, projectId, operationId);
+    const row = await OPERATIONS.row(tx, projectId, operationId);
     await tx.update(operation).set({ recurrence: value, updatedAt: new Date() }).where(eq(operation.id, row.id));
     await recordAudit(tx, {
       projectId,

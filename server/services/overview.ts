@@ -11,8 +11,9 @@ import type { OverviewAnswer, OverviewLine, OverviewMonthRow } from '../../share
 import type { Db } from '../db/client';
 import { alert, ledgerDay, outbox, planRun } from '../db/schema';
 import { listDatasets } from './datasets';
+import { ledgerDaysWhere } from './ledger-entries';
 import { ledgerExpectations } from './ledger-monthly';
-import { projectPlan } from './plans';
+import { dominantLimit, projectPlan } from './plans';
 import { readSeries } from './series-store';
 import { loadProjectSetup, sitesOf } from './site-context';
 
@@ -21,19 +22,6 @@ const MS_PER_HOUR = 3_600_000;
 export const NEXT_HOURS = 48;
 /** A dataset whose Hs steps are missing above this share is listed with a warning (common practice, no source). */
 export const GAP_WARNING_SHARE = 0.05;
-
-/** The limit that decides most not-workable hours in [fromMs, toMs) of a plan. */
-function dominantLimit(p: OperationSitePlan, fromMs: number, toMs: number): string | null {
-  const counts = new Map<string, number>();
-  p.times.forEach((t, i) => {
-    const ms = Date.parse(t);
-    const name = p.limiting[i];
-    if (ms >= fromMs && ms < toMs && name && p.status[i] !== 'workable') counts.set(name, (counts.get(name) ?? 0) + 1);
-  });
-  let best: string | null = null;
-  for (const [k, v] of counts) if (!best || v > counts.get(best)!) best = k;
-  return best;
-}
 
 /**
  * The ensemble chance that the go-start holds TR (docs/domain.md#forecast-uncertainty): the share of
@@ -83,7 +71,7 @@ async function monthPicture(db: Db, projectId: string, nowMs: number): Promise<O
   const confirmed = await db
     .select({ operationId: ledgerDay.operationId, siteId: ledgerDay.siteId, day: ledgerDay.day, lostHours: ledgerDay.lostHours })
     .from(ledgerDay)
-    .where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, 'confirmed')));
+    .where(ledgerDaysWhere(projectId, 'confirmed'));
   const rows: OverviewMonthRow[] = [];
   for (const op of setup.operations)
     for (const site of sitesOf(op, setup.sites)) {
@@ -111,16 +99,8 @@ async function monthPicture(db: Db, projectId: string, nowMs: number): Promise<O
 
 async function coordinatorPicture(db: Db, projectId: string): Promise<NonNullable<OverviewAnswer['coordinator']>> {
   const [[waiting], [oldest], [failed], datasets] = await Promise.all([
-    db
-      .select({ n: count() })
-      .from(ledgerDay)
-      .where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, 'proposed'))),
-    db
-      .select({ day: ledgerDay.day })
-      .from(ledgerDay)
-      .where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, 'proposed')))
-      .orderBy(asc(ledgerDay.day))
-      .limit(1),
+    db.select({ n: count() }).from(ledgerDay).where(ledgerDaysWhere(projectId, 'proposed')),
+    db.select({ day: ledgerDay.day }).from(ledgerDay).where(ledgerDaysWhere(projectId, 'proposed')).orderBy(asc(ledgerDay.day)).limit(1),
     db
       .select({ n: count() })
       .from(outbox)

@@ -5,7 +5,7 @@ import type { OperationSitePlan } from '../../shared/api-types-plan';
 import type { AppDeps } from '../deps';
 import { alert, planRun, project } from '../db/schema';
 import { fetchLatestForecast } from './forecasts';
-import { projectPlan } from './plans';
+import { dominantLimit, projectPlan } from './plans';
 import { recordCampaignOutlooks } from './campaign-outlook';
 import { covers, effectiveSubscriptions } from './subscriptions';
 import { alertEmail, type ChangeWithReason, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
@@ -52,20 +52,10 @@ function summarise(p: OperationSitePlan): PlanSummary {
   };
 }
 
-/** The limit that decides most often over [start, end) of a plan (why a window was lost). */
-function dominantLimit(p: OperationSitePlan, start: string | null, end: string | null): string | null {
-  if (!start) return null;
+/** Why a window was lost: the limit that decides most often over [start, end) of the plan (TR from start without an end). */
+function lossReason(p: OperationSitePlan, start: string, end: string | null): string | null {
   const t0 = Date.parse(start);
-  const t1 = end ? Date.parse(end) : t0 + p.tr * 3_600_000;
-  const counts = new Map<string, number>();
-  p.times.forEach((t, i) => {
-    const ms = Date.parse(t);
-    const name = p.limiting[i];
-    if (ms >= t0 && ms < t1 && name && p.status[i] !== 'workable') counts.set(name, (counts.get(name) ?? 0) + 1);
-  });
-  let best: string | null = null;
-  for (const [k, v] of counts) if (!best || v > counts.get(best)!) best = k;
-  return best;
+  return dominantLimit(p, t0, end ? Date.parse(end) : t0 + p.tr * 3_600_000);
 }
 
 async function previousPlans(db: Db, projectId: string): Promise<PlanSummary[] | null> {
@@ -112,7 +102,7 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
     }).map((c) => {
       const full = plan.plans.find((x) => x.operationId === c.operationId && x.siteId === c.siteId)!;
       const needsReason = c.kind === 'window_lost' || c.kind === 'occurrence_no_go' || (c.kind === 'start_now_changed' && !c.startNow);
-      return { ...c, reason: needsReason ? dominantLimit(full, c.start ?? now.toISOString(), c.end) : null };
+      return { ...c, reason: needsReason ? lossReason(full, c.start ?? now.toISOString(), c.end) : null };
     });
 
     const subs = (await effectiveSubscriptions(db, projectId)).filter((s) => s.immediate);

@@ -55,6 +55,19 @@ async function planDataset(db: Db, projectId: string, datasetId?: string) {
 
 type PlanRow = NonNullable<Awaited<ReturnType<typeof planDataset>>>;
 
+/** The limit that decides most not-workable hours in [fromMs, toMs) of a plan. */
+export function dominantLimit(p: OperationSitePlan, fromMs: number, toMs: number): string | null {
+  const counts = new Map<string, number>();
+  p.times.forEach((t, i) => {
+    const ms = Date.parse(t);
+    const name = p.limiting[i];
+    if (ms >= fromMs && ms < toMs && name && p.status[i] !== 'workable') counts.set(name, (counts.get(name) ?? 0) + 1);
+  });
+  let best: string | null = null;
+  for (const [k, v] of counts) if (!best || v > counts.get(best)!) best = k;
+  return best;
+}
+
 /** Longest span a plan covers: a forecast's horizon, or a chosen stretch of a hindcast. */
 export const MAX_PLAN_DAYS = 31;
 const DAY_MS = 86_400_000;

@@ -29,8 +29,8 @@ import type { SessionUser } from '../http/context';
 import { HttpError, notFound } from '../http/errors';
 import { getAlpha, writeAlpha } from './alpha';
 import { recordAudit } from './audit';
-import { auditedOperation, operationColumns, toOperationResponse } from './operations';
-import { auditedSite, siteColumns, toSiteResponse } from './sites';
+import { auditedOperation, OPERATIONS, operationColumns, toOperationResponse } from './operations';
+import { auditedSite, siteColumns, toSiteResponse, WORKSITES } from './sites';
 
 /** The project's setup as a document; `now` stamps `exportedAt`. */
 export async function exportSetup(db: Db, projectId: string, now: Date): Promise<ProjectSetupDocument> {
@@ -307,32 +307,8 @@ export async function importSetup(
     let deletedSites = 0;
     let deletedOps = 0;
     if (mode === 'replace') {
-      for (const o of existingOps) {
-        await tx.delete(operation).where(eq(operation.id, o.id));
-        await recordAudit(tx, {
-          projectId,
-          user,
-          entity: 'operation',
-          entityId: o.id,
-          entityName: o.name,
-          action: 'delete',
-          before: auditedOperation(toOperationResponse(o)),
-          after: null,
-        });
-      }
-      for (const s of existingSites) {
-        await tx.delete(worksite).where(eq(worksite.id, s.id));
-        await recordAudit(tx, {
-          projectId,
-          user,
-          entity: 'worksite',
-          entityId: s.id,
-          entityName: s.name,
-          action: 'delete',
-          before: auditedSite(toSiteResponse(s)),
-          after: null,
-        });
-      }
+      for (const o of existingOps) await OPERATIONS.remove(tx, projectId, user, o);
+      for (const s of existingSites) await WORKSITES.remove(tx, projectId, user, s);
       deletedOps = existingOps.length;
       deletedSites = existingSites.length;
     }

@@ -8,12 +8,11 @@ import { WorksiteInput, type WorksitePatchInput } from '../../shared/schemas/sit
 import type { Db } from '../db/client';
 import { dataset, operation, worksite } from '../db/schema';
 import type { SessionUser } from '../http/context';
-import { HttpError, parseInput } from '../http/errors';
-import { recordAudit } from './audit';
+import { HttpError } from '../http/errors';
 import { auditedRows } from './audited-rows';
-import { assertNameFree, fieldError, listProjectRows, projectRow } from './project-rows';
+import { fieldError } from './project-rows';
 import { checkCurrentStation, checkTideInput } from './tide';
-import { auditedOperation, toOperationResponse } from './operations';
+import { OPERATIONS, toOperationResponse } from './operations';
 
 type WorksiteRow = typeof worksite.$inferSelect;
 
@@ -42,11 +41,10 @@ export function auditedSite(site: SiteResponse): Omit<SiteResponse, 'id' | 'upda
 }
 
 /** Worksites in the audit trail: every field but id and timestamps. */
-const WORKSITES = auditedRows<typeof worksite, SiteResponse>({
-  table: worksite,
-  entity: 'worksite',
+export const WORKSITES = auditedRows(worksite, 'worksite', {
   toResponse: toSiteResponse,
   audited: auditedSite,
+  names: ['Worksite', 'A worksite'],
 });
 
 /**
@@ -72,20 +70,8 @@ export function siteColumns(input: Omit<WorksiteInput, 'hindcastDatasetId'> & { 
   };
 }
 
-export const listSites = async (db: Db, projectId: string): Promise<SiteResponse[]> =>
-  (await listProjectRows(db, worksite, projectId)).map(toSiteResponse);
-
-/** The worksite row, or 404 for a malformed id, an unknown id or another project's worksite. */
-const siteRow = (db: Db, projectId: string, siteId: string): Promise<WorksiteRow> =>
-  projectRow(db, worksite, projectId, siteId, 'Worksite');
-
-export async function getSite(db: Db, projectId: string, siteId: string): Promise<SiteResponse> {
-  return toSiteResponse(await siteRow(db, projectId, siteId));
-}
-
-/** 409 when another worksite of the project has the same name (compared by {@link nameKey}). */
-const assertSiteNameFree = (db: Db, projectId: string, name: string, exceptId?: string): Promise<void> =>
-  assertNameFree(db, worksite, projectId, name, 'A worksite', exceptId);
+export const listSites = WORKSITES.list;
+export const getSite = WORKSITES.get;
 
 /** 400 unless the dataset is a hindcast of the same project. */
 async function assertHindcast(db: Db, projectId: string, datasetId: string | null): Promise<void> {
@@ -100,7 +86,7 @@ async function assertHindcast(db: Db, projectId: string, datasetId: string | nul
 
 export async function createSite(db: Db, projectId: string, user: SessionUser, input: WorksiteInput): Promise<SiteResponse> {
   return db.transaction(async (tx) => {
-    await assertSiteNameFree(tx, projectId, input.name);
+    await WORKSITES.assertNameFree(tx, projectId, input.name);
     await assertHindcast(tx, projectId, input.hindcastDatasetId);
     return WORKSITES.insert(tx, projectId, user, siteColumns(input));
   });
@@ -118,10 +104,7 @@ export async function updateSite(
   patch: WorksitePatchInput,
 ): Promise<SiteResponse> {
   return db.transaction(async (tx) => {
-    const row = await siteRow(tx, projectId, siteId);
-    const before = toSiteResponse(row);
-    const merged = parseInput(WorksiteInput, { ...auditedSite(before), ...definedOnly(patch) });
-    if (patch.name !== undefined) await assertSiteNameFree(tx, projectId, merged.name, siteId);
+    const { before, merged } = await WORKSITES.patched(tx, projectId, siteId, patch, WorksiteInput, auditedSite);
     if (patch.hindcastDatasetId !== undefined) await assertHindcast(tx, projectId, merged.hindcastDatasetId);
     return WORKSITES.update(tx, projectId, user, before, siteColumns(merged));
   });
@@ -134,7 +117,7 @@ export async function updateSite(
  */
 export async function deleteSite(db: Db, projectId: string, user: SessionUser, siteId: string): Promise<void> {
   await db.transaction(async (tx) => {
-    const row = await siteRow(tx, projectId, siteId);
+    const row = await WORKSITES.row(tx, projectId, siteId);
     await removeSiteFromOperations(tx, projectId, user, siteId);
     await WORKSITES.remove(tx, projectId, user, row);
   });
@@ -154,25 +137,6 @@ async function removeSiteFromOperations(tx: Db, projectId: string, user: Session
   }
   for (const op of ops) {
     if (!op.siteIds.includes(siteId)) continue;
-    const [updated] = await tx
-      .update(operation)
-      .set({ siteIds: op.siteIds.filter((id) => id !== siteId), updatedAt: new Date() })
-      .where(eq(operation.id, op.id))
-      .returning();
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: 'operation',
-      entityId: op.id,
-      entityName: op.name,
-      action: 'update',
-      before: auditedOperation(toOperationResponse(op)),
-      after: auditedOperation(toOperationResponse(updated)),
-    });
+    await OPERATIONS.update(tx, projectId, user, toOperationResponse(op), { siteIds: op.siteIds.filter((id) => id !== siteId) });
   }
-}
-
-/** The keys of an object whose value is not undefined. */
-export function definedOnly<T extends object>(o: T): Partial<T> {
-  return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as Partial<T>;
 }

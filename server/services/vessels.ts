@@ -2,10 +2,9 @@
  * Vessels of a project and their RAO tables (docs/domain.md#vessel-response). An RAO import
  * replaces the vessel's table as a whole, or changes nothing (all or nothing), and is audited.
  */
-import { and, asc, eq } from 'drizzle-orm';
+import { and, eq } from 'drizzle-orm';
 import { responseLabel, responseUnit, type RaoTable } from '../../shared/response/rao';
-import { idParam } from '../../shared/schemas/common';
-import { nameKey } from '../../shared/schemas/sites';
+import type { AuditAction } from '../../shared/schemas/sites';
 import { readRaoCsv, type ResponseQuery, type VesselInput } from '../../shared/schemas/vessel';
 import { DEFAULT_RESPONSE_SEA, summariseResponse, type SeaPartition, type VesselResponseSummary } from '../../shared/response';
 import type { VesselRaosResponse, VesselResponse } from '../../shared/api-types-vessels';
@@ -14,6 +13,7 @@ import { vessel } from '../db/schema';
 import type { SessionUser } from '../http/context';
 import { HttpError, notFound } from '../http/errors';
 import { recordAudit } from './audit';
+import { assertNameFree, listProjectRows, projectRow } from './project-rows';
 
 type VesselRow = typeof vessel.$inferSelect;
 
@@ -26,40 +26,22 @@ const toVessel = (r: VesselRow): VesselResponse => ({
 });
 
 export async function listVessels(db: Db, projectId: string): Promise<VesselResponse[]> {
-  const rows = await db.select().from(vessel).where(eq(vessel.projectId, projectId)).orderBy(asc(vessel.name), asc(vessel.id));
-  return rows.map(toVessel);
+  return (await listProjectRows(db, vessel, projectId)).map(toVessel);
 }
 
 /** The vessel row, or 404 for a malformed id, an unknown id or another project's vessel. */
-export async function vesselRow(db: Db, projectId: string, vesselId: string): Promise<VesselRow> {
-  if (!idParam.safeParse(vesselId).success) throw notFound('Vessel');
-  const [row] = await db
-    .select()
-    .from(vessel)
-    .where(and(eq(vessel.projectId, projectId), eq(vessel.id, vesselId)));
-  if (!row) throw notFound('Vessel');
-  return row;
-}
+export const vesselRow = (db: Db, projectId: string, vesselId: string): Promise<VesselRow> =>
+  projectRow(db, vessel, projectId, vesselId, 'Vessel');
+
+/** The audit entry of one change to the vessel `row` (its id, and its name after the change). */
+const vesselAudit = (tx: Db, projectId: string, user: SessionUser, row: VesselRow, action: AuditAction, before: unknown, after: unknown) =>
+  recordAudit(tx, { projectId, user, entity: 'vessel', entityId: row.id, entityName: row.name, action, before, after });
 
 export async function createVessel(db: Db, projectId: string, user: SessionUser, input: VesselInput): Promise<VesselResponse> {
   return db.transaction(async (tx) => {
-    const rows = await tx.select({ name: vessel.name }).from(vessel).where(eq(vessel.projectId, projectId));
-    if (rows.some((r) => nameKey(r.name) === nameKey(input.name))) {
-      throw new HttpError('conflict', `A vessel named "${input.name}" already exists in this project`, [
-        { field: 'name', message: 'already used' },
-      ]);
-    }
+    await assertNameFree(tx, vessel, projectId, input.name, 'A vessel');
     const [row] = await tx.insert(vessel).values({ projectId, name: input.name }).returning();
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: 'vessel',
-      entityId: row.id,
-      entityName: row.name,
-      action: 'create',
-      before: null,
-      after: { name: row.name },
-    });
+    await vesselAudit(tx, projectId, user, row, 'create', null, { name: row.name });
     return toVessel(row);
   });
 }
@@ -122,21 +104,14 @@ export async function importVesselRaos(
       .set({ raos: table, raoFileName: fileName, raoImportedAt: new Date(), updatedAt: new Date() })
       .where(and(eq(vessel.projectId, projectId), eq(vessel.id, vesselId)))
       .returning();
-    await recordAudit(tx, {
-      projectId,
-      user,
-      entity: 'vessel',
-      entityId: row.id,
-      entityName: row.name,
-      action: 'update',
-      before: { raoFileName: before.raoFileName, responses: before.raos ? Object.keys(before.raos.responses) : [] },
-      after: {
-        raoFileName: fileName,
-        responses: Object.keys(table.responses),
-        periods: table.periodsS.length,
-        headings: table.headingsDeg.length,
-      },
-    });
+    const was = { raoFileName: before.raoFileName, responses: before.raos ? Object.keys(before.raos.responses) : [] };
+    const is = {
+      raoFileName: fileName,
+      responses: Object.keys(table.responses),
+      periods: table.periodsS.length,
+      headings: table.headingsDeg.length,
+    };
+    await vesselAudit(tx, projectId, user, row, 'update', was, is);
     return toRaosResponse(row);
   });
 }

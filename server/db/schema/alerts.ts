@@ -1,5 +1,5 @@
-import { boolean, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
-import { idColumn, stampColumn } from './columns';
+import { boolean, index, integer, jsonb, pgTable, text, unique, uuid } from 'drizzle-orm/pg-core';
+import { idColumn, instantColumn, ownerColumn, optionalRefColumn, stampColumn, stampColumns } from './columns';
 import { user } from './auth';
 import { project, projectIdColumn } from './projects';
 import { dataset } from './datasets';
@@ -10,11 +10,11 @@ export const planRun = pgTable(
   {
     id: idColumn(),
     projectId: projectIdColumn(),
-    datasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
+    datasetId: optionalRefColumn(() => dataset.id),
     trigger: text({ enum: ['schedule', 'manual', 'cli'] }).notNull(),
     status: text({ enum: ['running', 'ok', 'failed'] }).notNull(),
     startedAt: stampColumn(),
-    finishedAt: timestamp({ withTimezone: true }),
+    finishedAt: instantColumn(),
     /** Per operation and worksite: windows, earliest start, may-start-now, occurrences. */
     plans: jsonb().$type<unknown[]>(),
     error: text(),
@@ -28,9 +28,7 @@ export const alert = pgTable(
   {
     id: idColumn(),
     projectId: projectIdColumn(),
-    planRunId: uuid()
-      .notNull()
-      .references(() => planRun.id, { onDelete: 'cascade' }),
+    planRunId: ownerColumn(() => planRun.id),
     operationId: uuid().notNull(),
     siteId: uuid().notNull(),
     kind: text().notNull(),
@@ -62,7 +60,7 @@ export const outbox = pgTable(
     nextAttemptAt: stampColumn(),
     lastError: text(),
     createdAt: stampColumn(),
-    sentAt: timestamp({ withTimezone: true }),
+    sentAt: instantColumn(),
   },
   (t) => [index().on(t.status, t.nextAttemptAt)],
 );
@@ -90,10 +88,9 @@ export const subscription = pgTable(
      * planning runs (docs/domain.md#forecast-uncertainty); null = off.
      */
     windowChanceBelow: integer(),
-    lastDigestAt: timestamp({ withTimezone: true }),
+    lastDigestAt: instantColumn(),
     active: boolean().notNull().default(true),
-    createdAt: stampColumn(),
-    updatedAt: stampColumn(),
+    ...stampColumns(),
   },
   (t) => [unique().on(t.userId, t.projectId)],
 );

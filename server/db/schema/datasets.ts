@@ -1,11 +1,23 @@
-import { customType, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
-import { idColumn, stampColumn } from './columns';
+import { customType, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text } from 'drizzle-orm/pg-core';
+import { idColumn, instantColumn, ownerColumn, stampColumn } from './columns';
 import { user } from './auth';
 import { projectIdColumn } from './projects';
 
 /** Raw bytes: packed typed arrays (little-endian) of one chunk of a series. */
 export const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({
   dataType: () => 'bytea',
+});
+
+/** One packed column of a chunk (a value per record), required. */
+const packedColumn = () => bytea().notNull();
+
+/** The packed columns a forecast member stores, as its control's chunk does: Hs, Tp, direction, wind and its direction. */
+const memberColumns = () => ({
+  hs: packedColumn(),
+  tp: packedColumn(),
+  dir: packedColumn(),
+  wind: packedColumn(),
+  windDir: packedColumn(),
 });
 
 export const DATASET_KIND_VALUES = ['hindcast', 'forecast', 'observation'] as const;
@@ -26,10 +38,10 @@ export const dataset = pgTable(
     sourceKind: text({ enum: ['upload', 'service'] }).notNull(),
     originalFileName: text(),
     format: text(),
-    issuedAt: timestamp({ withTimezone: true }),
+    issuedAt: instantColumn(),
     stepMinutes: doublePrecision().notNull(),
-    startAt: timestamp({ withTimezone: true }).notNull(),
-    endAt: timestamp({ withTimezone: true }).notNull(),
+    startAt: instantColumn().notNull(),
+    endAt: instantColumn().notNull(),
     recordCount: integer().notNull(),
     variables: jsonb().$type<string[]>().notNull(),
     missing: jsonb().$type<Record<string, number>>().notNull(),
@@ -70,22 +82,16 @@ export const dataset = pgTable(
 export const datasetChunk = pgTable(
   'dataset_chunk',
   {
-    datasetId: uuid()
-      .notNull()
-      .references(() => dataset.id, { onDelete: 'cascade' }),
+    datasetId: ownerColumn(() => dataset.id),
     seq: integer().notNull(),
-    startAt: timestamp({ withTimezone: true }).notNull(),
-    endAt: timestamp({ withTimezone: true }).notNull(),
+    startAt: instantColumn().notNull(),
+    endAt: instantColumn().notNull(),
     count: integer().notNull(),
-    timeMs: bytea().notNull(),
-    hs: bytea().notNull(),
-    tp: bytea().notNull(),
-    tz: bytea().notNull(),
-    te: bytea().notNull(),
-    dir: bytea().notNull(),
-    wind: bytea().notNull(),
-    windDir: bytea().notNull(),
-    givenPeriods: bytea().notNull(),
+    timeMs: packedColumn(),
+    ...memberColumns(),
+    tz: packedColumn(),
+    te: packedColumn(),
+    givenPeriods: packedColumn(),
     /** Names of the optional columns in `extra`, in order (shared/seadata/extra-columns.ts). */
     extraColumns: jsonb().$type<string[]>().notNull().default([]),
     /** The optional columns' packed Float64 values, one column after the other; null when none. */
@@ -103,17 +109,11 @@ export const datasetChunk = pgTable(
 export const forecastMember = pgTable(
   'forecast_member',
   {
-    datasetId: uuid()
-      .notNull()
-      .references(() => dataset.id, { onDelete: 'cascade' }),
+    datasetId: ownerColumn(() => dataset.id),
     member: integer().notNull(),
     seq: integer().notNull(),
     count: integer().notNull(),
-    hs: bytea().notNull(),
-    tp: bytea().notNull(),
-    dir: bytea().notNull(),
-    wind: bytea().notNull(),
-    windDir: bytea().notNull(),
+    ...memberColumns(),
   },
   (t) => [primaryKey({ columns: [t.datasetId, t.member, t.seq] })],
 );

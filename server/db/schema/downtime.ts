@@ -1,5 +1,5 @@
-import { doublePrecision, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
-import { idColumn, stampColumn } from './columns';
+import { doublePrecision, index, integer, jsonb, pgTable, text, unique } from 'drizzle-orm/pg-core';
+import { idColumn, instantColumn, ownerColumn, optionalRefColumn, stampColumn, stampColumns } from './columns';
 import { user } from './auth';
 import { projectIdColumn } from './projects';
 import { operation, worksite } from './sites';
@@ -23,15 +23,14 @@ export const campaign = pgTable(
     projectId: projectIdColumn(),
     name: text().notNull(),
     steps: jsonb().$type<{ operationId: string; siteId: string }[]>().notNull(),
-    plannedStart: timestamp({ withTimezone: true }),
+    plannedStart: instantColumn(),
     /** Zone of the simulated start dates (the 1st at 00:00); UTC by default (docs/domain.md#convention-15). */
     timeZone: text().notNull().default('UTC'),
     /** The finish date promised in the plan (drawn on the outlook chart); null = none. */
-    plannedFinish: timestamp({ withTimezone: true }),
+    plannedFinish: instantColumn(),
     /** Progress per step, by index: status and actual times (ISO); missing entries are planned. */
     progress: jsonb().$type<CampaignStepProgress[]>().notNull().default([]),
-    createdAt: stampColumn(),
-    updatedAt: stampColumn(),
+    ...stampColumns(),
   },
   (t) => [index().on(t.projectId)],
 );
@@ -42,12 +41,8 @@ export const ledgerDay = pgTable(
   {
     id: idColumn(),
     projectId: projectIdColumn(),
-    operationId: uuid()
-      .notNull()
-      .references(() => operation.id, { onDelete: 'cascade' }),
-    siteId: uuid()
-      .notNull()
-      .references(() => worksite.id, { onDelete: 'cascade' }),
+    operationId: ownerColumn(() => operation.id),
+    siteId: ownerColumn(() => worksite.id),
     /** Calendar day in the worksite's time zone, YYYY-MM-DD. */
     day: text().notNull(),
     plannedHours: doublePrecision().notNull(),
@@ -59,14 +54,13 @@ export const ledgerDay = pgTable(
     limiting: text(),
     note: text().notNull().default(''),
     source: text({ enum: ['observation', 'forecast'] }).notNull(),
-    datasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
+    datasetId: optionalRefColumn(() => dataset.id),
     status: text({ enum: ['proposed', 'confirmed'] })
       .notNull()
       .default('proposed'),
     confirmedBy: text().references(() => user.id, { onDelete: 'set null' }),
-    confirmedAt: timestamp({ withTimezone: true }),
-    createdAt: stampColumn(),
-    updatedAt: stampColumn(),
+    confirmedAt: instantColumn(),
+    ...stampColumns(),
   },
   (t) => [unique().on(t.projectId, t.operationId, t.siteId, t.day), index().on(t.projectId, t.day)],
 );
@@ -85,15 +79,13 @@ export const campaignOutlook = pgTable(
   {
     id: idColumn(),
     projectId: projectIdColumn(),
-    campaignId: uuid()
-      .notNull()
-      .references(() => campaign.id, { onDelete: 'cascade' }),
+    campaignId: ownerColumn(() => campaign.id),
     /** The planning run that computed it; null for outlooks written otherwise (the demo's history). */
-    planRunId: uuid().references(() => planRun.id, { onDelete: 'set null' }),
-    at: timestamp({ withTimezone: true }).notNull(),
-    p50: timestamp({ withTimezone: true }),
-    p90: timestamp({ withTimezone: true }),
-    forecastIssuedAt: timestamp({ withTimezone: true }),
+    planRunId: optionalRefColumn(() => planRun.id),
+    at: instantColumn().notNull(),
+    p50: instantColumn(),
+    p90: instantColumn(),
+    forecastIssuedAt: instantColumn(),
     samples: integer().notNull(),
     censored: integer().notNull(),
   },

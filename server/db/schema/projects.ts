@@ -1,5 +1,5 @@
 import { pgTable, text, uuid, unique, index, doublePrecision } from 'drizzle-orm/pg-core';
-import { idColumn, stampColumn } from './columns';
+import { idColumn, ownerColumn, stampColumn, stampColumns } from './columns';
 import { PROJECT_ROLES } from '../../../shared/auth/roles';
 import { user } from './auth';
 
@@ -27,15 +27,11 @@ export const project = pgTable('project', {
    * (docs/domain.md#calibrated-alpha); 1e-4 by default.
    */
   alphaCalibrationP: doublePrecision().notNull().default(1e-4),
-  createdAt: stampColumn(),
-  updatedAt: stampColumn(),
+  ...stampColumns(),
 });
 
 /** The project a row belongs to; deleting the project deletes its rows. */
-export const projectIdColumn = () =>
-  uuid()
-    .notNull()
-    .references(() => project.id, { onDelete: 'cascade' });
+export const projectIdColumn = () => ownerColumn(() => project.id);
 
 /**
  * Per-project roles. A membership table of our own rather than the auth library's organization

@@ -1,5 +1,5 @@
 import { boolean, doublePrecision, index, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core';
-import { idColumn, stampColumn } from './columns';
+import { idColumn, optionalRefColumn, stampColumn, stampColumns } from './columns';
 import { user } from './auth';
 import { project, projectIdColumn } from './projects';
 import { dataset } from './datasets';
@@ -20,7 +20,7 @@ export const worksite = pgTable(
     breakerIndex: doublePrecision().notNull().default(0.6),
     timeZone: text().notNull().default('UTC'),
     /** A specific hindcast for statistics; null = the project's newest hindcast. */
-    hindcastDatasetId: uuid().references(() => dataset.id, { onDelete: 'set null' }),
+    hindcastDatasetId: optionalRefColumn(() => dataset.id),
     /** Optional site-specific transfer table (direction sector × Tp band → Hs factor). */
     transferTable: jsonb().$type<{ directionSectorsDeg: [number, number][]; tpBandsS: [number, number][]; factors: number[][] } | null>(),
     /** Tide at the worksite (constants, a database station, or none); null = none (docs/domain.md#tide). */
@@ -33,8 +33,7 @@ export const worksite = pgTable(
     } | null>(),
     /** Current station of the public tide database whose predicted current the worksite uses; null = none (docs/domain.md#tide). */
     currentStationId: text(),
-    createdAt: stampColumn(),
-    updatedAt: stampColumn(),
+    ...stampColumns(),
   },
   (t) => [index().on(t.projectId)],
 );
@@ -56,13 +55,12 @@ export const operation = pgTable(
     /** Skippers assigned to the operation (user ids). */
     skipperIds: jsonb().$type<string[]>().notNull().default([]),
     /** The vessel the operation is done from (response limits need it); null = none. */
-    vesselId: uuid().references(() => vessel.id, { onDelete: 'set null' }),
+    vesselId: optionalRefColumn(() => vessel.id),
     /** The vessel's fixed heading during the operation, deg true; null = none. */
     headingDeg: doublePrecision(),
     /** iCalendar RRULE (with DTSTART in the first worksite's zone) for recurring operations. */
     recurrence: jsonb().$type<Record<string, unknown> | null>(),
-    createdAt: stampColumn(),
-    updatedAt: stampColumn(),
+    ...stampColumns(),
   },
   (t) => [index().on(t.projectId)],
 );
