@@ -1,5 +1,5 @@
 export { Button } from './button';
-export { FieldShell, Input, NamedOptions, PlainOptions, Select, TextArea } from './field';
+export { Checkbox, FieldShell, Input, NamedOptions, PlainOptions, Select, TextArea, TextField } from './field';
 export { Card, Notice, PageHeader, Spinner } from './card';
 export { ErrorNotice } from './error-notice';
 export { Confirm } from './confirm';

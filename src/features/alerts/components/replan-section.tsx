@@ -37,11 +37,7 @@ export function ReplanSection({ projectId, operations, sites, zone: here }: Prop
           {replan.isPending ? 'Planning…' : 'Re-plan now'}
         </Button>
       </div>
-      {replan.error ? (
-        <div className="mt-3">
-          <ErrorNotice error={replan.error} />
-        </div>
-      ) : null}
+      <ErrorNotice error={replan.error} className="mt-3" />
       {result && mine ? (
         <div className="mt-4 flex flex-col gap-3" data-testid="replan-result" aria-live="polite">
           <RunSummary run={mine} startedAt={result.startedAt} here={here} operations={operations} sites={sites} />
