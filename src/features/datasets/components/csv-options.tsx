@@ -1,5 +1,5 @@
 import type { ColumnMapping, CsvDelimiter, CsvPreview, DateOrder, DetectedColumns, SeaUnits } from '../../../../shared/seadata';
-import { FieldShell, Input, PlainOptions, Select } from '../../../components/ui';
+import { Checkbox, FieldShell, Input, PlainOptions, Select } from '../../../components/ui';
 import { formatUtc, formatValue } from './format';
 
 const DELIMITER_NAMES: Record<CsvDelimiter, string> = { ',': 'comma ( , )', ';': 'semicolon ( ; )', '\t': 'tab' };
@@ -92,15 +92,9 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
           </Select>
         </FieldShell>
         <div className="flex flex-col justify-end gap-1">
-          <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
-            <input
-              type="checkbox"
-              className="size-5 accent-[var(--color-accent)]"
-              checked={values.decimalComma}
-              onChange={(e) => onChange({ decimalComma: e.target.checked })}
-            />
+          <Checkbox checked={values.decimalComma} onChange={(e) => onChange({ decimalComma: e.target.checked })}>
             Decimal comma (1,5 means 1.5)
-          </label>
+          </Checkbox>
           <p className="text-xs text-ink-soft">On by default for semicolon files.</p>
         </div>
       </div>
@@ -206,15 +200,9 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
           </FieldShell>
         </div>
         <div className="flex flex-col justify-end">
-          <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
-            <input
-              type="checkbox"
-              className="size-5 accent-[var(--color-accent)]"
-              checked={values.emptyIsMissing}
-              onChange={(e) => onChange({ emptyIsMissing: e.target.checked })}
-            />
+          <Checkbox checked={values.emptyIsMissing} onChange={(e) => onChange({ emptyIsMissing: e.target.checked })}>
             Empty cells are missing values
-          </label>
+          </Checkbox>
         </div>
         {showDateOrder ? (
           <FieldShell
