@@ -313,12 +313,12 @@ function ImportForm({ project }: { project: ProjectDetail }) {
     },
   });
   const { register, setValue, clearErrors, formState, control } = form;
-  /** A number field's input: the decimal keyboard, registered, its error cleared as it is typed in. */
-  const decimalInput = (name: 'depth' | 'anemometer' | 'waterLevelOffset') => ({
-    inputMode: 'decimal' as const,
-    ...register(name, { onChange: () => clearErrors(name) }),
-  });
   const errors = formState.errors;
+  type HeightName = 'depth' | 'anemometer' | 'waterLevelOffset';
+  /** A height field's props: metres, its error, the decimal keyboard. */
+  const metres = (name: HeightName) => ({ unit: 'm', error: errors[name]?.message, inputMode: 'decimal' as const });
+  /** The same, registered, its error cleared as it is typed in. */
+  const metresInput = (name: HeightName) => ({ ...metres(name), ...register(name, { onChange: () => clearErrors(name) }) });
   const v = useWatch({ control }) as ImportPageValues;
   const windExponent = v.exponent === 'over-land' ? OVER_LAND_WIND_EXPONENT : DEFAULT_WIND_EXPONENT;
 
@@ -600,11 +600,9 @@ function ImportForm({ project }: { project: ProjectDetail }) {
             <div className="flex flex-col gap-1">
               <TextField
                 label="Water depth at the data point"
-                unit="m"
                 id="depth"
-                error={errors.depth?.message}
                 hint={`Project setting: ${formatDepth(project.dataPointDepthM)}.${isNetcdf ? ' A model depth in the file replaces it.' : ''}`}
-                {...(v.deep ? { inputMode: 'decimal', value: '', placeholder: 'deep water', disabled: true } : decimalInput('depth'))}
+                {...(v.deep ? { ...metres('depth'), value: '', placeholder: 'deep water', disabled: true } : metresInput('depth'))}
               />
               <Checkbox {...register('deep', { onChange: () => clearErrors('depth') })}>
                 Deep water (depth unknown or no effect on the waves)
@@ -614,9 +612,7 @@ function ImportForm({ project }: { project: ProjectDetail }) {
               label={
                 effectiveFormat === 'ndbc' ? 'Anemometer height above the sea (required for buoy wind)' : 'Anemometer height above the sea'
               }
-              unit="m"
               id="anemometer"
-              error={errors.anemometer?.message ?? anemometerError}
               hint={
                 effectiveFormat === 'ndbc'
                   ? 'Limits are for wind at 10 m; NDBC buoys measure it at about 4-5 m (see the station page). Enter the height, or 10 when the wind is already at 10 m. Wind becomes U10 = Uz·(10/z)^a.'
@@ -625,7 +621,8 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                     : 'Empty: the wind in the file is already at 10 m (no correction). Enter the height when it is not; wind becomes U10 = Uz·(10/z)^a.'
               }
               placeholder={effectiveFormat === 'ndbc' ? 'e.g. 4.1' : 'already at 10 m'}
-              {...decimalInput('anemometer')}
+              {...metresInput('anemometer')}
+              error={errors.anemometer?.message ?? anemometerError}
             />
             {CHOICE_FIELDS.filter((f) => !f.csvOnly || effectiveFormat === 'csv').map((f) => (
               <FieldShell key={f.id} label={f.label} htmlFor={f.id} hint={f.hint}>
@@ -735,11 +732,9 @@ function ImportForm({ project }: { project: ProjectDetail }) {
             <div className="grid gap-4 md:grid-cols-2">
               <TextField
                 label="Water level datum above chart datum"
-                unit="m"
                 id="water-level-offset"
-                error={errors.waterLevelOffset?.message}
                 hint="Only for files with a water level: the height of the datum its standard name states (e.g. mean sea level) above the worksite's chart datum. Without it such a file is refused; a datum is never guessed."
-                {...decimalInput('waterLevelOffset')}
+                {...metresInput('waterLevelOffset')}
               />
             </div>
           </Card>
