@@ -110,55 +110,57 @@ function arrow(bearing: number, colour: string, lengthPx: number, title: string)
   return svg;
 }
 
-function siteMarker(site: MapSite, highlighted: boolean): HTMLElement {
+/**
+ * A marker's element, `sizePx` square: its arrow (when there is one) under the shape, drawn by
+ * `shapeCss`, and the name beside it; named for screen readers by `label`.
+ */
+function markerElement(m: { testid: string; label: string; sizePx: number; arrow: SVGSVGElement | null; shapeCss: string; name: string }) {
   const el = document.createElement('div');
-  el.dataset.testid = 'map-site-marker';
-  el.dataset.siteId = site.id;
+  el.dataset.testid = m.testid;
   el.setAttribute('role', 'img');
-  el.setAttribute(
-    'aria-label',
-    `Worksite ${site.name}${site.shoreNormal !== null ? `, shore normal ${Math.round(site.shoreNormal)}°` : ''}`,
-  );
+  el.setAttribute('aria-label', m.label);
   el.style.position = 'relative';
-  el.style.width = '18px';
-  el.style.height = '18px';
-  // The shore normal is a "coming from" bearing: the arrow points from the worksite out to sea along it.
-  if (site.shoreNormal !== null) el.append(arrow(site.shoreNormal, '#0b7a72', 34, `Shore normal ${Math.round(site.shoreNormal)}°`));
-  const dot = document.createElement('div');
-  dot.style.cssText = `position:absolute;inset:0;border-radius:50%;border:2px solid #fff;background:${highlighted ? '#f2c46d' : '#0e2a3b'};box-shadow:0 0 0 1px #0e2a3b`;
-  el.append(dot);
+  el.style.width = `${m.sizePx}px`;
+  el.style.height = `${m.sizePx}px`;
+  if (m.arrow) el.append(m.arrow);
+  const shape = document.createElement('div');
+  shape.style.cssText = `position:absolute;inset:0;${m.shapeCss};border:2px solid #fff;box-shadow:0 0 0 1px #0e2a3b`;
+  el.append(shape);
   const name = document.createElement('div');
-  name.textContent = site.name;
-  name.style.cssText =
-    'position:absolute;left:22px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff';
+  name.textContent = m.name;
+  name.style.cssText = `position:absolute;left:${m.sizePx + 4}px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff`;
   el.append(name);
   return el;
 }
 
-function pointMarker(p: MapPoint, kind: 'data-point' | 'tide-station', waveDirection: number | null): HTMLElement {
-  const el = document.createElement('div');
-  el.dataset.testid = kind === 'data-point' ? 'map-data-point' : 'map-tide-station';
-  el.setAttribute('role', 'img');
-  const what = kind === 'data-point' ? 'Offshore data point' : 'Tide station';
-  el.setAttribute(
-    'aria-label',
-    `${what} ${p.name}${waveDirection !== null ? `, mean wave direction ${Math.round(waveDirection)}° (coming from)` : ''}`,
-  );
-  el.style.position = 'relative';
-  el.style.width = '16px';
-  el.style.height = '16px';
-  // Waves "coming from" d travel towards d + 180°: the arrow shows the way they go.
-  if (waveDirection !== null)
-    el.append(arrow((waveDirection + 180) % 360, '#b4233c', 40, `Mean wave direction ${Math.round(waveDirection)}° (coming from)`));
-  const box = document.createElement('div');
-  box.style.cssText = `position:absolute;inset:0;transform:rotate(45deg);border:2px solid #fff;background:${kind === 'data-point' ? '#b4233c' : '#16415a'};box-shadow:0 0 0 1px #0e2a3b`;
-  el.append(box);
-  const name = document.createElement('div');
-  name.textContent = p.name;
-  name.style.cssText =
-    'position:absolute;left:20px;top:-2px;white-space:nowrap;font-size:12px;font-weight:600;color:#0e2a3b;text-shadow:0 0 3px #fff,0 0 3px #fff';
-  el.append(name);
+function siteMarker(site: MapSite, highlighted: boolean): HTMLElement {
+  const el = markerElement({
+    testid: 'map-site-marker',
+    label: `Worksite ${site.name}${site.shoreNormal !== null ? `, shore normal ${Math.round(site.shoreNormal)}°` : ''}`,
+    sizePx: 18,
+    // The shore normal is a "coming from" bearing: the arrow points from the worksite out to sea along it.
+    arrow: site.shoreNormal !== null ? arrow(site.shoreNormal, '#0b7a72', 34, `Shore normal ${Math.round(site.shoreNormal)}°`) : null,
+    shapeCss: `border-radius:50%;background:${highlighted ? '#f2c46d' : '#0e2a3b'}`,
+    name: site.name,
+  });
+  el.dataset.siteId = site.id;
   return el;
+}
+
+function pointMarker(p: MapPoint, kind: 'data-point' | 'tide-station', waveDirection: number | null): HTMLElement {
+  const what = kind === 'data-point' ? 'Offshore data point' : 'Tide station';
+  return markerElement({
+    testid: kind === 'data-point' ? 'map-data-point' : 'map-tide-station',
+    label: `${what} ${p.name}${waveDirection !== null ? `, mean wave direction ${Math.round(waveDirection)}° (coming from)` : ''}`,
+    sizePx: 16,
+    // Waves "coming from" d travel towards d + 180°: the arrow shows the way they go.
+    arrow:
+      waveDirection !== null
+        ? arrow((waveDirection + 180) % 360, '#b4233c', 40, `Mean wave direction ${Math.round(waveDirection)}° (coming from)`)
+        : null,
+    shapeCss: `transform:rotate(45deg);background:${kind === 'data-point' ? '#b4233c' : '#16415a'}`,
+    name: p.name,
+  });
 }
 
 export function SiteMap({

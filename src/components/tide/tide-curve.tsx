@@ -2,6 +2,7 @@ import type { TideAnswer } from '../../../shared/api-types-sites';
 import { DATE_STYLE } from '../../../shared/dates';
 import { formatAt } from '../../lib/format';
 import { localMidnights } from '../../lib/local-midnights';
+import { HAIRLINE, LevelLine } from './level-line';
 
 const W = 1000;
 const H = 120;
@@ -37,19 +38,9 @@ export function TideCurve({ answer, zone, label }: { answer: TideAnswer; zone: s
         </span>
         <svg viewBox={`0 0 ${W} ${H}`} className="h-28 w-full" role="img" aria-label={label} preserveAspectRatio="none">
           {midnights.map((m) => (
-            <line key={m} x1={x(m)} x2={x(m)} y1={0} y2={H} stroke="var(--color-line)" strokeWidth={1} vectorEffect="non-scaling-stroke" />
+            <line key={m} x1={x(m)} x2={x(m)} y1={0} y2={H} stroke="var(--color-line)" {...HAIRLINE} />
           ))}
-          {lo < 0 && hi > 0 ? (
-            <line
-              x1={PAD}
-              x2={W - PAD}
-              y1={y(0)}
-              y2={y(0)}
-              stroke="var(--color-ink-soft, #666)"
-              strokeDasharray="4 4"
-              vectorEffect="non-scaling-stroke"
-            />
-          ) : null}
+          {lo < 0 && hi > 0 ? <LevelLine x1={PAD} x2={W - PAD} y={y(0)} stroke="var(--color-ink-soft, #666)" dashed /> : null}
           <path d={path} fill="none" stroke="var(--color-accent)" strokeWidth={2} vectorEffect="non-scaling-stroke" />
           {extremes.map((e) => (
             <circle

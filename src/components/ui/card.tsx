@@ -4,6 +4,43 @@ export function Card({ className = '', ...props }: HTMLAttributes<HTMLElement>) 
   return <section className={`rounded-[var(--radius-card)] border border-line bg-surface p-4 sm:p-5 ${className}`} {...props} />;
 }
 
+/**
+ * A section card's heading: the h2 whose `id` names the card (its `aria-labelledby`), and the
+ * intro paragraph under it (`narrow`: kept to a reading measure on a wide card).
+ */
+export function SectionHeading({ id, title, narrow, children }: { id: string; title: ReactNode; narrow?: boolean; children: ReactNode }) {
+  return (
+    <>
+      <h2 id={id} className="text-lg font-bold">
+        {title}
+      </h2>
+      <p className={narrow ? 'mt-1 max-w-3xl text-sm text-ink-soft' : 'mt-1 text-sm text-ink-soft'}>{children}</p>
+    </>
+  );
+}
+
+/** A card that is a region named by its heading: the title, the intro paragraph, then `children`. */
+export function SectionCard({
+  titleId,
+  title,
+  intro,
+  children,
+}: {
+  titleId: string;
+  title: ReactNode;
+  intro: ReactNode;
+  children: ReactNode;
+}) {
+  return (
+    <Card aria-labelledby={titleId}>
+      <SectionHeading id={titleId} title={title}>
+        {intro}
+      </SectionHeading>
+      {children}
+    </Card>
+  );
+}
+
 export function PageHeader({ title, subtitle, actions }: { title: string; subtitle?: ReactNode; actions?: ReactNode }) {
   return (
     <header className="mb-5 flex flex-wrap items-end justify-between gap-3">

@@ -2,9 +2,19 @@ import { fieldLabel, problemSentence } from '../../../shared/schemas/words';
 import { ApiError } from '../../lib/api';
 import { Notice } from './card';
 
-/** Shows an API error in words, with the fields or lines it names. */
-export function ErrorNotice({ error }: { error: unknown }) {
+/**
+ * Shows an API error in words, with the fields or lines it names; nothing without an error.
+ * `className` (spacing such as `mt-3`) puts the notice in a box of that class.
+ */
+export function ErrorNotice({ error, className }: { error: unknown; className?: string }) {
   if (!error) return null;
+  if (className) {
+    return (
+      <div className={className}>
+        <ErrorNotice error={error} />
+      </div>
+    );
+  }
   const message = error instanceof Error ? error.message : String(error);
   const details = error instanceof ApiError && error.details ? error.details.slice(0, 20) : [];
   return (

@@ -47,6 +47,36 @@ export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSel
   return <select ref={ref} aria-invalid={invalid || undefined} className={`${control} ${className}`} {...props} />;
 });
 
+type InputProps = InputHTMLAttributes<HTMLInputElement>;
+
+/**
+ * A labelled text input in its `FieldShell`: the input is marked invalid while `error` is set.
+ * The rest of the props (or react-hook-form's `register`) go to the input.
+ */
+export const TextField = forwardRef<
+  HTMLInputElement,
+  Omit<InputProps, 'id'> & { id: string; label: string; hint?: ReactNode; error?: string; unit?: string }
+>(function TextField({ id, label, hint, error, unit, ...props }, ref) {
+  return (
+    <FieldShell label={label} htmlFor={id} hint={hint} error={error} unit={unit}>
+      <Input ref={ref} id={id} invalid={!!error} {...props} />
+    </FieldShell>
+  );
+});
+
+/** A checkbox at least 44 px tall with its text in the label. */
+export const Checkbox = forwardRef<HTMLInputElement, Omit<InputProps, 'type'> & { children: ReactNode }>(function Checkbox(
+  { children, ...props },
+  ref,
+) {
+  return (
+    <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
+      <input ref={ref} type="checkbox" className="size-5 accent-[var(--color-accent)]" {...props} />
+      {children}
+    </label>
+  );
+});
+
 /** The options of a select, in order: each value as its own text (time zones, names), or its text from `labels`. */
 export function PlainOptions<T extends string>({ values, labels }: { values: readonly T[]; labels?: Readonly<Record<T, ReactNode>> }) {
   return values.map((v) => (

@@ -1,6 +1,6 @@
 export { Button } from './button';
-export { FieldShell, Input, NamedOptions, PlainOptions, Select, TextArea } from './field';
-export { Card, Notice, PageHeader, Spinner } from './card';
+export { Checkbox, FieldShell, Input, NamedOptions, PlainOptions, Select, TextArea, TextField } from './field';
+export { Card, Notice, PageHeader, SectionCard, SectionHeading, Spinner } from './card';
 export { ErrorNotice } from './error-notice';
 export { Confirm } from './confirm';
 // Term (React Aria's tooltip) is imported from './term' by the pages that use it, so the first

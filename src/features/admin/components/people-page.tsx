@@ -62,11 +62,7 @@ function CreateUserCard() {
           Create user
         </Button>
       </form>
-      {create.error ? (
-        <div className="mt-3">
-          <ErrorNotice error={create.error} />
-        </div>
-      ) : null}
+      <ErrorNotice error={create.error} className="mt-3" />
       {shown ? <TemporaryPassword email={shown.email} password={shown.password} /> : null}
     </Card>
   );
@@ -158,11 +154,7 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
           They are signed out at once and can no longer sign in or receive alerts. You can reactivate them later.
         </Confirm>
       ) : null}
-      {update.error ? (
-        <div className="mt-2">
-          <ErrorNotice error={update.error} />
-        </div>
-      ) : null}
+      <ErrorNotice error={update.error} className="mt-2" />
       <NewTemporaryPassword user={user} />
       <ul className="mt-3 grid gap-2">
         {user.projects.map((m) => {
@@ -238,11 +230,7 @@ function UserCard({ user, projects }: { user: AdminUser; projects: ProjectSummar
           </Button>
         </div>
       ) : null}
-      {membership.error ? (
-        <div className="mt-2">
-          <ErrorNotice error={membership.error} />
-        </div>
-      ) : null}
+      <ErrorNotice error={membership.error} className="mt-2" />
     </Card>
   );
 }

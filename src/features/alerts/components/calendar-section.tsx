@@ -3,7 +3,7 @@
 // (the old address stops working) or revoked.
 import { useState } from 'react';
 import { OCCURRENCE_VERDICTS } from '../../../../shared/status-words';
-import { Button, Card, ErrorNotice, Input, Notice, Spinner } from '../../../components/ui';
+import { Button, ErrorNotice, Input, Notice, SectionCard, Spinner } from '../../../components/ui';
 import { useCalendarFeed } from '../api/get-calendar-feed';
 import { useCreateCalendarFeed } from '../api/create-calendar-feed';
 import { useRevokeCalendarFeed } from '../api/revoke-calendar-feed';
@@ -33,14 +33,16 @@ export function CalendarSection() {
   }
 
   return (
-    <Card aria-labelledby="cal-title">
-      <h2 id="cal-title" className="text-lg font-bold">
-        Calendar feed
-      </h2>
-      <p className="mt-1 text-sm text-ink-soft">
-        Usable weather windows and recurring-operation occurrences ({OCCURRENCE_VERDICTS}) of everything you hear about, in every project
-        you belong to, kept up to date in your calendar.
-      </p>
+    <SectionCard
+      titleId="cal-title"
+      title="Calendar feed"
+      intro={
+        <>
+          Usable weather windows and recurring-operation occurrences ({OCCURRENCE_VERDICTS}) of everything you hear about, in every project
+          you belong to, kept up to date in your calendar.
+        </>
+      }
+    >
       <div className="mt-4 flex flex-col gap-3">
         {feed.isPending ? <Spinner label="Reading your feed address" /> : null}
         {feed.error ? <ErrorNotice error={feed.error} /> : null}
@@ -125,6 +127,6 @@ export function CalendarSection() {
         {create.error ? <ErrorNotice error={create.error} /> : null}
         {revoke.error ? <ErrorNotice error={revoke.error} /> : null}
       </div>
-    </Card>
+    </SectionCard>
   );
 }

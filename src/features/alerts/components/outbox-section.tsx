@@ -2,7 +2,7 @@
 // with its delivery status. Failed ones (given up after the set number of tries) are highlighted
 // with the last SMTP error; any one can be opened to read its text and HTML.
 import { useState } from 'react';
-import { Button, Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, Notice, SectionHeading, Spinner } from '../../../components/ui';
 import { useOutbox } from '../api/get-outbox';
 import type { OutboxRow, OutboxStatus } from '../api/types';
 import { DATE_STYLE } from '../../../../shared/dates';
@@ -28,12 +28,9 @@ export function OutboxSection({ projectId, zone: here }: { projectId: string; zo
     <Card aria-labelledby="outbox-title">
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div>
-          <h2 id="outbox-title" className="text-lg font-bold">
-            Outbox
-          </h2>
-          <p className="mt-1 text-sm text-ink-soft">
+          <SectionHeading id="outbox-title" title="Outbox">
             Every alert e-mail is written here first, then sent; a failed send is retried with growing pauses.
-          </p>
+          </SectionHeading>
         </div>
         <Button variant="secondary" onClick={() => void outbox.refetch()} disabled={outbox.isFetching}>
           {outbox.isFetching ? 'Reading…' : 'Refresh'}

@@ -2,7 +2,7 @@
 // operation and worksite, what changed, times in the worksite's zone and the limiting factor.
 import { useState } from 'react';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
-import { Button, Card, ErrorNotice, Spinner } from '../../../components/ui';
+import { Button, ErrorNotice, SectionCard, Spinner } from '../../../components/ui';
 import { useAlerts } from '../api/get-alerts';
 import { alertText, TONE_CLASS } from './alert-words';
 import { DATE_STYLE } from '../../../../shared/dates';
@@ -25,11 +25,7 @@ export function RecentAlertsSection({ projectId, operations, sites, zone: here }
   const list = alerts.data ?? [];
   const shown = all ? list : list.slice(0, FIRST_SHOWN);
   return (
-    <Card aria-labelledby="recent-title">
-      <h2 id="recent-title" className="text-lg font-bold">
-        Recent alerts
-      </h2>
-      <p className="mt-1 text-sm text-ink-soft">What the last planning runs changed, for everyone in the project.</p>
+    <SectionCard titleId="recent-title" title="Recent alerts" intro="What the last planning runs changed, for everyone in the project.">
       <div className="mt-4">
         {alerts.isPending ? <Spinner label="Reading the alerts" /> : null}
         {alerts.error ? <ErrorNotice error={alerts.error} /> : null}
@@ -73,6 +69,6 @@ export function RecentAlertsSection({ projectId, operations, sites, zone: here }
           </Button>
         ) : null}
       </div>
-    </Card>
+    </SectionCard>
   );
 }

@@ -5,7 +5,7 @@ import { useState } from 'react';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { recurrenceText, RecurrenceInput } from '../../../../shared/recurrence';
 import { OCCURRENCE_VERDICTS, STATUS_WORDS } from '../../../../shared/status-words';
-import { Button, Card } from '../../../components/ui';
+import { Button, SectionCard } from '../../../components/ui';
 import type { StoredRecurrence } from '../api/types';
 import { RecurrenceEditor } from './recurrence-editor';
 import { parseRule, ruleInWords } from './recurrence-rule';
@@ -26,23 +26,25 @@ export function storedRecurrence(op: OperationResponse): StoredRecurrence | null
 
 export function RecurrenceSection({ projectId, operations, sites }: Props) {
   return (
-    <Card aria-labelledby="rec-title">
-      <h2 id="rec-title" className="text-lg font-bold">
-        Recurring operations
-      </h2>
-      <p className="mt-1 text-sm text-ink-soft">
-        An operation that repeats, such as a crew change on set days, is judged {OCCURRENCE_VERDICTS} for each occurrence from the hours
-        [start, start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning{' '}
-        {STATUS_WORDS.not_workable.word} is an alert. A rule keeps its wall-clock time, so 06:00 stays 06:00 across a daylight-saving
-        change.
-      </p>
+    <SectionCard
+      titleId="rec-title"
+      title="Recurring operations"
+      intro={
+        <>
+          An operation that repeats, such as a crew change on set days, is judged {OCCURRENCE_VERDICTS} for each occurrence from the hours
+          [start, start + TR). Occurrences appear on the board and in the calendar feed, and an occurrence turning{' '}
+          {STATUS_WORDS.not_workable.word} is an alert. A rule keeps its wall-clock time, so 06:00 stays 06:00 across a daylight-saving
+          change.
+        </>
+      }
+    >
       {operations.length === 0 ? <p className="mt-3 text-sm text-ink-soft">This project has no operations yet.</p> : null}
       <ul className="mt-4 flex flex-col gap-3">
         {operations.map((op) => (
           <OperationRecurrence key={op.id} projectId={projectId} op={op} sites={sites} />
         ))}
       </ul>
-    </Card>
+    </SectionCard>
   );
 }
 

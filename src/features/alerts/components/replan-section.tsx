@@ -2,7 +2,7 @@
 // shows what it did: the forecast planned on, how many plans, which alerts it found, how many
 // e-mails it wrote to the outbox, and what the delivery that follows sent.
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
-import { Button, Card, ErrorNotice, Notice } from '../../../components/ui';
+import { Button, ErrorNotice, Notice, SectionCard } from '../../../components/ui';
 import { useReplan } from '../api/replan';
 import type { ProjectJobResult } from '../api/types';
 import { KIND_WORDS } from './alert-words';
@@ -24,24 +24,17 @@ export function ReplanSection({ projectId, operations, sites, zone: here }: Prop
   const result = replan.data;
   const mine = result?.projects.find((p) => p.projectId === projectId) ?? result?.projects[0];
   return (
-    <Card aria-labelledby="replan-title">
-      <h2 id="replan-title" className="text-lg font-bold">
-        Re-plan now
-      </h2>
-      <p className="mt-1 text-sm text-ink-soft">
-        The planning job runs by itself on a schedule. Run it now to fetch the latest forecast (when the project uses the forecast service),
-        plan every operation at every worksite, and queue alert e-mails for what changed.
-      </p>
+    <SectionCard
+      titleId="replan-title"
+      title="Re-plan now"
+      intro="The planning job runs by itself on a schedule. Run it now to fetch the latest forecast (when the project uses the forecast service), plan every operation at every worksite, and queue alert e-mails for what changed."
+    >
       <div className="mt-3">
         <Button onClick={() => replan.mutate()} disabled={replan.isPending} data-testid="replan-button">
           {replan.isPending ? 'Planning…' : 'Re-plan now'}
         </Button>
       </div>
-      {replan.error ? (
-        <div className="mt-3">
-          <ErrorNotice error={replan.error} />
-        </div>
-      ) : null}
+      <ErrorNotice error={replan.error} className="mt-3" />
       {result && mine ? (
         <div className="mt-4 flex flex-col gap-3" data-testid="replan-result" aria-live="polite">
           <RunSummary run={mine} startedAt={result.startedAt} here={here} operations={operations} sites={sites} />
@@ -52,7 +45,7 @@ export function ReplanSection({ projectId, operations, sites, zone: here }: Prop
           </p>
         </div>
       ) : null}
-    </Card>
+    </SectionCard>
   );
 }
 

@@ -7,7 +7,7 @@ import type { z } from 'zod';
 import { SubscriptionInput } from '../../../../shared/schemas/alerts';
 import type { ProjectAccessRole } from '../../../../shared/api-types';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select, Spinner } from '../../../components/ui';
+import { Button, ErrorNotice, FieldShell, Input, Notice, PlainOptions, SectionCard, Select, Spinner } from '../../../components/ui';
 import { useSubscription } from '../api/get-subscription';
 import { useSaveSubscription } from '../api/save-subscription';
 import type { SubscriptionResponse } from '../api/types';
@@ -25,20 +25,17 @@ interface Props {
 export function SubscriptionSection({ projectId, role, operations, sites }: Props) {
   const sub = useSubscription(projectId);
   return (
-    <Card aria-labelledby="sub-title">
-      <h2 id="sub-title" className="text-lg font-bold">
-        What I hear about
-      </h2>
-      <p className="mt-1 text-sm text-ink-soft">
-        When a new forecast opens, shortens or closes a weather window, or moves the earliest start, Lullwatch can e-mail you. Choose what
-        concerns you; the calendar feed below follows the same choice.
-      </p>
+    <SectionCard
+      titleId="sub-title"
+      title="What I hear about"
+      intro="When a new forecast opens, shortens or closes a weather window, or moves the earliest start, Lullwatch can e-mail you. Choose what concerns you; the calendar feed below follows the same choice."
+    >
       <div className="mt-4">
         {sub.isPending ? <Spinner label="Reading your alert choices" /> : null}
         {sub.error ? <ErrorNotice error={sub.error} /> : null}
         {sub.data ? <SubscriptionForm projectId={projectId} role={role} operations={operations} sites={sites} initial={sub.data} /> : null}
       </div>
-    </Card>
+    </SectionCard>
   );
 }
 

@@ -3,9 +3,14 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { PASSWORD_MIN_LENGTH, passwordProblem } from '../../../../shared/auth/password-rules';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader } from '../../../components/ui';
+import { Button, Card, ErrorNotice, Notice, PageHeader, TextField } from '../../../components/ui';
 import { useMe } from '../../../api/me';
 import { useChangePassword } from '../api/change-password';
+
+/** A controlled password input's props. */
+function passwordInput(value: string, set: (value: string) => void) {
+  return { type: 'password', value, onChange: (e: React.ChangeEvent<HTMLInputElement>) => set(e.target.value) };
+}
 
 export function AccountPage() {
   const me = useMe();
@@ -59,40 +64,27 @@ export function AccountPage() {
       <Card>
         <h2 className="mb-3 text-lg font-bold">Change your password</h2>
         <form className="grid gap-3" onSubmit={submit} noValidate>
-          <FieldShell label={forced ? 'Temporary password' : 'Current password'} htmlFor="current-password">
-            <Input
-              id="current-password"
-              type="password"
-              autoComplete="current-password"
-              value={current}
-              onChange={(e) => setCurrent(e.target.value)}
-            />
-          </FieldShell>
-          <FieldShell
+          <TextField
+            label={forced ? 'Temporary password' : 'Current password'}
+            id="current-password"
+            autoComplete="current-password"
+            {...passwordInput(current, setCurrent)}
+          />
+          <TextField
             label="New password"
-            htmlFor="new-password"
+            id="new-password"
+            autoComplete="new-password"
             hint={`At least ${PASSWORD_MIN_LENGTH} characters; a few unrelated words make a good one. Not your e-mail, not a common password.`}
             error={problems.next}
-          >
-            <Input
-              id="new-password"
-              type="password"
-              autoComplete="new-password"
-              value={next}
-              onChange={(e) => setNext(e.target.value)}
-              invalid={!!problems.next}
-            />
-          </FieldShell>
-          <FieldShell label="New password again" htmlFor="repeat-password" error={problems.repeat}>
-            <Input
-              id="repeat-password"
-              type="password"
-              autoComplete="new-password"
-              value={repeat}
-              onChange={(e) => setRepeat(e.target.value)}
-              invalid={!!problems.repeat}
-            />
-          </FieldShell>
+            {...passwordInput(next, setNext)}
+          />
+          <TextField
+            label="New password again"
+            id="repeat-password"
+            autoComplete="new-password"
+            error={problems.repeat}
+            {...passwordInput(repeat, setRepeat)}
+          />
           <p className="text-sm text-ink-soft">Changing your password signs you out on every other device.</p>
           <div>
             <Button type="submit" disabled={change.isPending || !current || !next}>
@@ -100,11 +92,7 @@ export function AccountPage() {
             </Button>
           </div>
         </form>
-        {change.error ? (
-          <div className="mt-3">
-            <ErrorNotice error={change.error} />
-          </div>
-        ) : null}
+        <ErrorNotice error={change.error} className="mt-3" />
       </Card>
     </div>
   );

@@ -1,6 +1,6 @@
 import { useForm } from 'react-hook-form';
 import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
-import { Button, ErrorNotice, FieldShell, Input } from '../../../components/ui';
+import { Button, ErrorNotice, TextField } from '../../../components/ui';
 import { useMe } from '../../../api/me';
 import { useSignIn } from '../api/sign-in';
 import { Caution } from '../../../components/caution';
@@ -14,6 +14,10 @@ const emailRules = {
   validate: (v: string) => EMAIL_SHAPE.test(v) || 'Enter your e-mail address',
 };
 const passwordRules = { required: 'Enter your password' };
+const SIGN_IN_FIELDS = [
+  { name: 'email', label: 'E-mail', type: 'email', autoComplete: 'username', rules: emailRules },
+  { name: 'password', label: 'Password', type: 'password', autoComplete: 'current-password', rules: passwordRules },
+] as const;
 
 export function SignInPage() {
   const me = useMe();
@@ -43,24 +47,9 @@ export function SignInPage() {
           noValidate
         >
           <h1 className="text-xl font-bold">Sign in</h1>
-          <FieldShell label="E-mail" htmlFor="email" error={form.formState.errors.email?.message}>
-            <Input
-              id="email"
-              type="email"
-              autoComplete="username"
-              {...form.register('email', emailRules)}
-              invalid={!!form.formState.errors.email}
-            />
-          </FieldShell>
-          <FieldShell label="Password" htmlFor="password" error={form.formState.errors.password?.message}>
-            <Input
-              id="password"
-              type="password"
-              autoComplete="current-password"
-              {...form.register('password', passwordRules)}
-              invalid={!!form.formState.errors.password}
-            />
-          </FieldShell>
+          {SIGN_IN_FIELDS.map(({ name, rules, ...field }) => (
+            <TextField key={name} id={name} {...field} error={form.formState.errors[name]?.message} {...form.register(name, rules)} />
+          ))}
           {signIn.error ? <ErrorNotice error={signIn.error} /> : null}
           <Button type="submit" disabled={signIn.isPending}>
             {signIn.isPending ? 'Signing in…' : 'Sign in'}

@@ -38,6 +38,11 @@ export function BoardControls({ filters, onChange, sites, operations, hasOwnOper
     filters.days === null ? 'whole forecast' : `${filters.days} days`,
     `${filters.width} hours`,
   ].join(' · ');
+  /** The worksite and operation filters: one of the project's named things, or all of them. */
+  const namedFilters = [
+    { key: 'siteId', id: 'board-site', label: 'Worksite', all: 'All worksites', items: sites },
+    { key: 'operationId', id: 'board-operation', label: 'Operation', all: 'All operations', items: operations },
+  ] as const;
   return (
     <div className="flex flex-col gap-3">
       <details className="group" open={openAtFirst}>
@@ -49,18 +54,14 @@ export function BoardControls({ filters, onChange, sites, operations, hasOwnOper
           <span className="truncate text-ink-soft">{summary}</span>
         </summary>
         <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          <FieldShell label="Worksite" htmlFor="board-site">
-            <Select id="board-site" value={filters.siteId} onChange={(e) => onChange({ siteId: e.target.value })}>
-              <option value="">All worksites</option>
-              <NamedOptions items={sites} />
-            </Select>
-          </FieldShell>
-          <FieldShell label="Operation" htmlFor="board-operation">
-            <Select id="board-operation" value={filters.operationId} onChange={(e) => onChange({ operationId: e.target.value })}>
-              <option value="">All operations</option>
-              <NamedOptions items={operations} />
-            </Select>
-          </FieldShell>
+          {namedFilters.map((f) => (
+            <FieldShell key={f.id} label={f.label} htmlFor={f.id}>
+              <Select id={f.id} value={filters[f.key]} onChange={(e) => onChange({ [f.key]: e.target.value })}>
+                <option value="">{f.all}</option>
+                <NamedOptions items={f.items} />
+              </Select>
+            </FieldShell>
+          ))}
           <FieldShell label="Hours shown" htmlFor="board-days">
             <Select
               id="board-days"

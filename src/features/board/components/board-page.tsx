@@ -8,6 +8,7 @@ import type { PlanAnswer } from '../../../../shared/api-types-plan';
 import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { usePageZone } from '../../../components/page-zone';
 import { localTimeZone, worksiteZoneStatement } from '../../../../shared/dates';
+import { FetchForecastButton } from '../../../components/fetch-forecast-button';
 import { useFetchForecast } from '../../../api/forecasts';
 import { usePlan } from '../api/get-plan';
 import { useViewer } from '../api/get-viewer';
@@ -104,18 +105,7 @@ export function BoardPage() {
   }, []);
   useChainLink(plan.data, filters, setSelected);
 
-  const fetchButton = viewer.canFetchForecast ? (
-    <Button variant="secondary" onClick={() => fetchForecast.mutate()} disabled={fetchForecast.isPending}>
-      {fetchForecast.isPending ? (
-        <>
-          <span className="size-4 animate-spin rounded-full border-2 border-line border-t-accent" aria-hidden />
-          Fetching forecast…
-        </>
-      ) : (
-        'Fetch latest forecast'
-      )}
-    </Button>
-  ) : null;
+  const fetchButton = viewer.canFetchForecast ? <FetchForecastButton fetchForecast={fetchForecast} /> : null;
 
   return (
     <div>

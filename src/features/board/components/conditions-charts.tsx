@@ -11,28 +11,25 @@ import { localMidnights } from '../../../lib/local-midnights';
 import { LABEL_HALO } from '../../../lib/chart-halo';
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
 import { fmt, formatIn, responseLimitWords } from './board-format';
+import { chartPalette, nivoLineTheme } from '../../../lib/chart-theme';
 import { useIsDark } from '../../../lib/use-is-dark';
 import { DrawnLines } from '../../../components/drawn-lines';
 import { operationColour } from './operation-colours';
 import { useWidth } from '../../../lib/use-width';
 
-/** An operation at the worksite with the limits the charts draw, numbered for the key. */
-export interface ChartOperation {
+/**
+ * An operation at the worksite with the limits the charts draw, numbered for the key: the answer's
+ * limits (with its vessel-response limits, docs/domain.md#vessel-response) and the Tp limits.
+ */
+export interface ChartOperation extends Pick<
+  ConditionsAnswer['operations'][number],
+  'id' | 'name' | 'hsMax' | 'hsMaxForecast' | 'windMax' | 'bedVelocityMax' | 'bedVelocityMethod' | 'currentMax' | 'responses'
+> {
   n: number;
-  id: string;
-  name: string;
-  hsMax: number | null;
-  hsMaxForecast: number | null;
-  windMax: number | null;
-  bedVelocityMax: number | null;
-  bedVelocityMethod: string | null;
   tpMin: number | null;
   tpMax: number | null;
   tpExcluded: [number, number][];
   hasCurve: boolean;
-  currentMax?: number | null;
-  /** Vessel-response limits: the governing response per hour (docs/domain.md#vessel-response). */
-  responses?: ConditionsAnswer['operations'][number]['responses'];
 }
 
 export interface ConditionsChartsProps {
@@ -106,18 +103,8 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
   const ticks = useMemo(() => localMidnights(fromMs, toMs, zone, stepDays), [fromMs, toMs, zone, stepDays]);
   const allMidnights = useMemo(() => localMidnights(fromMs, toMs, zone, 1), [fromMs, toMs, zone]);
 
-  const palette = dark
-    ? { text: '#9fb4bc', line: '#24485a', ink: '#e6eef0', now: '#f2c46d' }
-    : { text: '#4a5d66', line: '#cfd9d8', ink: '#10222c', now: '#b7791f' };
-  const theme = {
-    text: { fill: palette.text, fontSize: 11, fontFamily: 'inherit' },
-    axis: {
-      domain: { line: { stroke: palette.line, strokeWidth: 1 } },
-      ticks: { line: { stroke: palette.line, strokeWidth: 1 }, text: { fill: palette.text, fontSize: 11 } },
-    },
-    grid: { line: { stroke: palette.line, strokeWidth: 1, strokeOpacity: 0.7 } },
-    crosshair: { line: { stroke: palette.ink, strokeWidth: 1, strokeOpacity: 0.5 } },
-  };
+  const palette = chartPalette(dark);
+  const theme = nivoLineTheme(palette, 0.7);
 
   const limitMarker = (value: number, n: number, legend: string, dashed: boolean, isDark: boolean): CartesianMarkerProps => ({
     axis: 'y',
@@ -126,6 +113,13 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
     lineStyle: { stroke: operationColour(n, isDark), strokeWidth: 2, strokeDasharray: dashed ? '6 4' : undefined },
     textStyle: { ...LABEL_HALO, fill: operationColour(n, isDark), fontSize: 10, fontWeight: 700 },
   });
+  /** Every operation's markers for the limits it sets: `limitsOf(o)` gives [value, legend after its number, dashed]. */
+  const limitMarkers = (isDark: boolean, limitsOf: (o: ChartOperation) => [number | null | undefined, string, boolean?][]) =>
+    operations.flatMap((o) =>
+      limitsOf(o).flatMap(([value, legend, dashed = false]) =>
+        value != null ? [limitMarker(value, o.n, `${o.n} ${legend}`, dashed, isDark)] : [],
+      ),
+    );
 
   const panels: PanelSpec[] = [
     {
@@ -135,11 +129,9 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
       decimals: 2,
       series: [{ id: 'hs', name: 'Hs at the worksite', values: conditions.hs, light: '#0b7a72', dark: '#49c2b3' }],
       markers: (d) =>
-        operations.flatMap((o) => [
-          ...(o.hsMax !== null ? [limitMarker(o.hsMax, o.n, `${o.n} OPLIM ${fmt(o.hsMax, 2, 'm')}`, false, d)] : []),
-          ...(o.hsMaxForecast !== null && o.hsMaxForecast !== o.hsMax
-            ? [limitMarker(o.hsMaxForecast, o.n, `${o.n} OPWF ${fmt(o.hsMaxForecast, 2, 'm')}`, true, d)]
-            : []),
+        limitMarkers(d, (o) => [
+          [o.hsMax, `OPLIM ${fmt(o.hsMax, 2, 'm')}`],
+          [o.hsMaxForecast !== o.hsMax ? o.hsMaxForecast : null, `OPWF ${fmt(o.hsMaxForecast, 2, 'm')}`, true],
         ]),
       limitValues: operations.flatMap((o) => [o.hsMax, o.hsMaxForecast].filter((v): v is number => v !== null)),
       note: operations.some((o) => o.hasCurve)
@@ -153,9 +145,9 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
       decimals: 1,
       series: [{ id: 'tp', name: 'Tp', values: conditions.tp, light: '#334155', dark: '#cbd5e1' }],
       markers: (d) =>
-        operations.flatMap((o) => [
-          ...(o.tpMin !== null ? [limitMarker(o.tpMin, o.n, `${o.n} Tp min ${fmt(o.tpMin, 1, 's')}`, false, d)] : []),
-          ...(o.tpMax !== null ? [limitMarker(o.tpMax, o.n, `${o.n} Tp max ${fmt(o.tpMax, 1, 's')}`, false, d)] : []),
+        limitMarkers(d, (o) => [
+          [o.tpMin, `Tp min ${fmt(o.tpMin, 1, 's')}`],
+          [o.tpMax, `Tp max ${fmt(o.tpMax, 1, 's')}`],
         ]),
       limitValues: operations.flatMap((o) => [o.tpMin, o.tpMax, ...o.tpExcluded.flat()].filter((v): v is number => v !== null)),
       bands: operations.flatMap((o) => o.tpExcluded.map(([from, to]) => ({ from, to, n: o.n }))),
@@ -170,17 +162,9 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
         { id: 'soulsby', name: 'Soulsby (2006)', values: conditions.bedVelocitySoulsby, light: '#475569', dark: '#cbd5e1', dashed: true },
       ],
       markers: (d) =>
-        operations
-          .filter((o) => o.bedVelocityMax !== null)
-          .map((o) =>
-            limitMarker(
-              o.bedVelocityMax!,
-              o.n,
-              `${o.n} max ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`,
-              false,
-              d,
-            ),
-          ),
+        limitMarkers(d, (o) => [
+          [o.bedVelocityMax, `max ${fmt(o.bedVelocityMax, 2, 'm/s')} (${o.bedVelocityMethod === 'soulsby' ? 'Soulsby' : 'linear'})`],
+        ]),
       limitValues: operations.flatMap((o) => (o.bedVelocityMax !== null ? [o.bedVelocityMax] : [])),
     },
     // Current (docs/domain.md#tide): the dataset's, else the predicted tidal current of the worksite's station; only when there is one.
@@ -194,10 +178,7 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
             unit: 'm/s',
             decimals: 2,
             series: [{ id: 'current', name: 'Current', values: conditions.current, light: '#1d4ed8', dark: '#93c5fd' }],
-            markers: (d: boolean) =>
-              operations
-                .filter((o) => o.currentMax != null)
-                .map((o) => limitMarker(o.currentMax!, o.n, `${o.n} current max ${fmt(o.currentMax, 2, 'm/s')}`, false, d)),
+            markers: (d: boolean) => limitMarkers(d, (o) => [[o.currentMax, `current max ${fmt(o.currentMax, 2, 'm/s')}`]]),
             limitValues: operations.flatMap((o) => (o.currentMax != null ? [o.currentMax] : [])),
           } satisfies PanelSpec,
         ]
@@ -269,10 +250,7 @@ export default function ConditionsCharts({ conditions, operations, nowMs }: Cond
       unit: 'm/s',
       decimals: 1,
       series: [{ id: 'wind', name: 'Wind', values: conditions.wind, light: '#334155', dark: '#cbd5e1' }],
-      markers: (d) =>
-        operations
-          .filter((o) => o.windMax !== null)
-          .map((o) => limitMarker(o.windMax!, o.n, `${o.n} max ${fmt(o.windMax, 1, 'm/s')}`, false, d)),
+      markers: (d) => limitMarkers(d, (o) => [[o.windMax, `max ${fmt(o.windMax, 1, 'm/s')}`]]),
       limitValues: operations.flatMap((o) => (o.windMax !== null ? [o.windMax] : [])),
     },
   ];

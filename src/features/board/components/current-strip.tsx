@@ -1,6 +1,7 @@
 import type { ConditionsAnswer } from '../../../../shared/api-types-plan';
 import { CURRENT_SOURCE_WORDS } from '../../../../shared/seadata/water-level';
 import { formatAt } from '../../../lib/format';
+import { LevelLine } from '../../../components/tide/level-line';
 import { fmt, fmtTowards } from './board-format';
 
 const W = 1000;
@@ -73,15 +74,7 @@ export function CurrentStrip({ conditions, zone }: { conditions: ConditionsAnswe
         aria-label="Current speed over time"
         preserveAspectRatio="none"
       >
-        <line
-          x1={PAD}
-          x2={W - PAD}
-          y1={y(0)}
-          y2={y(0)}
-          stroke="var(--color-line, #ccc)"
-          strokeWidth={1}
-          vectorEffect="non-scaling-stroke"
-        />
+        <LevelLine x1={PAD} x2={W - PAD} y={y(0)} stroke="var(--color-line, #ccc)" />
         {segments.map((s) => (
           <path
             key={s.key}

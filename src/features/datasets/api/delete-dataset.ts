@@ -1,16 +1,12 @@
-import { api } from '../../../lib/api';
-import { useMutationThen } from '../../../lib/use-mutation-then';
+import { useDeleteRow } from '../../../lib/use-delete-row';
 import { datasetsQueryOptions } from '../../../api/datasets';
 
 /** `DELETE /api/projects/:projectId/datasets/:datasetId` (coordinators and admins). */
-export const deleteDataset = (projectId: string, datasetId: string) =>
-  api<void>(`/api/projects/${projectId}/datasets/${datasetId}`, { method: 'DELETE' });
-
-export const useDeleteDataset = (projectId: string) =>
-  useMutationThen(
-    (datasetId: string) => deleteDataset(projectId, datasetId),
-    (qc, _data, datasetId) => {
-      qc.removeQueries({ queryKey: [...datasetsQueryOptions(projectId).queryKey, { id: datasetId }] });
-      void qc.invalidateQueries({ queryKey: datasetsQueryOptions(projectId).queryKey, exact: true });
-    },
-  );
+export function useDeleteDataset(projectId: string) {
+  const list = datasetsQueryOptions(projectId).queryKey;
+  return useDeleteRow((datasetId) => `/api/projects/${projectId}/datasets/${datasetId}`, {
+    list,
+    row: (datasetId) => [...list, { id: datasetId }],
+    exact: true,
+  });
+}

@@ -1,6 +1,6 @@
 import type { ColumnMapping, CsvDelimiter, CsvPreview, DateOrder, DetectedColumns, SeaUnits } from '../../../../shared/seadata';
-import { FieldShell, Input, PlainOptions, Select } from '../../../components/ui';
-import { formatUtc, formatValue } from './format';
+import { Checkbox, FieldShell, Input, PlainOptions, Select } from '../../../components/ui';
+import { formatUtc, formatValue, previewColumns } from './format';
 
 const DELIMITER_NAMES: Record<CsvDelimiter, string> = { ',': 'comma ( , )', ';': 'semicolon ( ; )', '\t': 'tab' };
 
@@ -92,15 +92,9 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
           </Select>
         </FieldShell>
         <div className="flex flex-col justify-end gap-1">
-          <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
-            <input
-              type="checkbox"
-              className="size-5 accent-[var(--color-accent)]"
-              checked={values.decimalComma}
-              onChange={(e) => onChange({ decimalComma: e.target.checked })}
-            />
+          <Checkbox checked={values.decimalComma} onChange={(e) => onChange({ decimalComma: e.target.checked })}>
             Decimal comma (1,5 means 1.5)
-          </label>
+          </Checkbox>
           <p className="text-xs text-ink-soft">On by default for semicolon files.</p>
         </div>
       </div>
@@ -206,15 +200,9 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
           </FieldShell>
         </div>
         <div className="flex flex-col justify-end">
-          <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
-            <input
-              type="checkbox"
-              className="size-5 accent-[var(--color-accent)]"
-              checked={values.emptyIsMissing}
-              onChange={(e) => onChange({ emptyIsMissing: e.target.checked })}
-            />
+          <Checkbox checked={values.emptyIsMissing} onChange={(e) => onChange({ emptyIsMissing: e.target.checked })}>
             Empty cells are missing values
-          </label>
+          </Checkbox>
         </div>
         {showDateOrder ? (
           <FieldShell
@@ -245,15 +233,15 @@ export function CsvOptions({ preview, values, showDateOrder, errors, onDelimiter
   );
 }
 
-const PREVIEW_COLUMNS: { key: keyof ColumnMapping & keyof CsvPreview['rows'][number]['values']; label: string; decimals: number }[] = [
-  { key: 'hs', label: 'Hs (m)', decimals: 2 },
-  { key: 'tp', label: 'Tp (s)', decimals: 1 },
-  { key: 'tz', label: 'Tz (s)', decimals: 1 },
-  { key: 'te', label: 'Te (s)', decimals: 1 },
-  { key: 'dir', label: 'Dir (°)', decimals: 0 },
-  { key: 'wind', label: 'Wind (m/s)', decimals: 1 },
-  { key: 'windDir', label: 'Wind dir (°)', decimals: 0 },
-];
+const PREVIEW_COLUMNS = previewColumns<keyof ColumnMapping & keyof CsvPreview['rows'][number]['values']>([
+  ['hs', 2],
+  ['tp', 1],
+  ['tz', 1],
+  ['te', 1],
+  ['dir', 0],
+  ['wind', 1],
+  ['windDir', 0],
+]);
 
 /**
  * The first rows as the import will read them: UTC time and SI values, with the text as written

@@ -31,7 +31,19 @@ import {
 } from '../../../../shared/seadata';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import { ApiError } from '../../../lib/api';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PageHeader, PlainOptions, Select, Spinner } from '../../../components/ui';
+import {
+  Button,
+  Card,
+  Checkbox,
+  ErrorNotice,
+  FieldShell,
+  Notice,
+  PageHeader,
+  PlainOptions,
+  Select,
+  Spinner,
+  TextField,
+} from '../../../components/ui';
 import { useProjectAccess } from '../../../api/projects';
 import { MAX_NETCDF_UPLOAD_BYTES, MAX_UPLOAD_BYTES, useImportDataset, type ImportFields, type UploadProgress } from '../api/import-dataset';
 import { useNetcdfPoints } from '../api/list-netcdf-points';
@@ -54,6 +66,55 @@ const KIND_HINTS: Record<DatasetKind, string> = {
 };
 
 const DEFAULT_MISSING_TEXT = DEFAULT_MISSING_CODES.filter((c) => c !== '').join(', ');
+
+/** The import's multiple-choice settings, as [value, text] options; the last three only a CSV file needs. */
+const CHOICE_FIELDS = [
+  {
+    name: 'exponent',
+    id: 'wind-exponent',
+    label: 'Wind profile exponent a',
+    hint: '0.11 over the open sea (Hsu, Meindl & Gilhousen 1994); 1/7 is an over-land value. Used only when the height is not 10 m.',
+    options: [
+      ['open-sea', '0.11 (open sea)'],
+      ['over-land', '1/7 (over land)'],
+    ],
+    csvOnly: false,
+  },
+  {
+    name: 'directionConvention',
+    id: 'direction-convention',
+    label: 'Directions in the file',
+    hint: 'Lullwatch stores where waves and wind come from. Going-to directions get 180° added.',
+    options: [
+      ['coming-from', 'Coming from (nautical, usual)'],
+      ['going-to', 'Going to (oceanographic)'],
+    ],
+    csvOnly: true,
+  },
+  {
+    name: 'waterLevelReference',
+    id: 'water-level-reference',
+    label: 'Water level column holds',
+    hint: 'Only for a file with a water level (water_level, wl, tide_m, sea_level…): say what it is; it is never guessed.',
+    options: [
+      ['', 'Not said (a file with a water level is refused)'],
+      ['chart-datum', WATER_LEVEL_REFERENCE_WORDS['chart-datum']],
+      ['residual', WATER_LEVEL_REFERENCE_WORDS.residual],
+    ],
+    csvOnly: true,
+  },
+  {
+    name: 'currentDirConvention',
+    id: 'current-dir-convention',
+    label: 'Current directions in the file',
+    hint: 'Lullwatch stores where the water flows towards (oceanographic). Coming-from directions get 180° added.',
+    options: [
+      ['going-to', 'Flowing towards (oceanographic, usual)'],
+      ['coming-from', 'Coming from'],
+    ],
+    csvOnly: true,
+  },
+] as const;
 
 /** `/projects/:projectId/sea-data/import`: coordinators and admins bring a CSV, NDBC or NetCDF file. */
 /** Why an NDBC file with wind cannot be imported yet. */
@@ -253,6 +314,11 @@ function ImportForm({ project }: { project: ProjectDetail }) {
   });
   const { register, setValue, clearErrors, formState, control } = form;
   const errors = formState.errors;
+  type HeightName = 'depth' | 'anemometer' | 'waterLevelOffset';
+  /** A height field's props: metres, its error, the decimal keyboard. */
+  const metres = (name: HeightName) => ({ unit: 'm', error: errors[name]?.message, inputMode: 'decimal' as const });
+  /** The same, registered, its error cleared as it is typed in. */
+  const metresInput = (name: HeightName) => ({ ...metres(name), ...register(name, { onChange: () => clearErrors(name) }) });
   const v = useWatch({ control }) as ImportPageValues;
   const windExponent = v.exponent === 'over-land' ? OVER_LAND_WIND_EXPONENT : DEFAULT_WIND_EXPONENT;
 
@@ -518,54 +584,35 @@ function ImportForm({ project }: { project: ProjectDetail }) {
         <Card>
           <h2 className="mb-3 text-lg font-bold">2. About the data</h2>
           <div className="grid gap-4 md:grid-cols-2">
-            <FieldShell label="Name" htmlFor="name" error={errors.name?.message} hint="Shown in lists and plans.">
-              <Input
-                id="name"
-                maxLength={120}
-                invalid={!!errors.name}
-                {...register('name', { onChange: () => setChosenByUser((c) => ({ ...c, name: true })) })}
-              />
-            </FieldShell>
+            <TextField
+              label="Name"
+              id="name"
+              error={errors.name?.message}
+              hint="Shown in lists and plans."
+              maxLength={120}
+              {...register('name', { onChange: () => setChosenByUser((c) => ({ ...c, name: true })) })}
+            />
             <FieldShell label="Kind" htmlFor="kind" hint={KIND_HINTS[v.kind]}>
               <Select id="kind" {...register('kind', { onChange: () => setChosenByUser((c) => ({ ...c, kind: true })) })}>
                 <PlainOptions values={DATASET_KINDS} labels={KIND_LABELS} />
               </Select>
             </FieldShell>
             <div className="flex flex-col gap-1">
-              <FieldShell
+              <TextField
                 label="Water depth at the data point"
-                unit="m"
-                htmlFor="depth"
-                error={errors.depth?.message}
+                id="depth"
                 hint={`Project setting: ${formatDepth(project.dataPointDepthM)}.${isNetcdf ? ' A model depth in the file replaces it.' : ''}`}
-              >
-                {v.deep ? (
-                  <Input id="depth" inputMode="decimal" value="" placeholder="deep water" disabled />
-                ) : (
-                  <Input
-                    id="depth"
-                    inputMode="decimal"
-                    invalid={!!errors.depth}
-                    {...register('depth', { onChange: () => clearErrors('depth') })}
-                  />
-                )}
-              </FieldShell>
-              <label className="flex min-h-11 items-center gap-3 text-sm font-semibold">
-                <input
-                  type="checkbox"
-                  className="size-5 accent-[var(--color-accent)]"
-                  {...register('deep', { onChange: () => clearErrors('depth') })}
-                />
+                {...(v.deep ? { ...metres('depth'), value: '', placeholder: 'deep water', disabled: true } : metresInput('depth'))}
+              />
+              <Checkbox {...register('deep', { onChange: () => clearErrors('depth') })}>
                 Deep water (depth unknown or no effect on the waves)
-              </label>
+              </Checkbox>
             </div>
-            <FieldShell
+            <TextField
               label={
                 effectiveFormat === 'ndbc' ? 'Anemometer height above the sea (required for buoy wind)' : 'Anemometer height above the sea'
               }
-              unit="m"
-              htmlFor="anemometer"
-              error={errors.anemometer?.message ?? anemometerError}
+              id="anemometer"
               hint={
                 effectiveFormat === 'ndbc'
                   ? 'Limits are for wind at 10 m; NDBC buoys measure it at about 4-5 m (see the station page). Enter the height, or 10 when the wind is already at 10 m. Wind becomes U10 = Uz·(10/z)^a.'
@@ -573,62 +620,21 @@ function ImportForm({ project }: { project: ProjectDetail }) {
                     ? 'Empty: the wind in the file is taken as given at 10 m (as wave models give it). Enter the height when it is not; wind becomes U10 = Uz·(10/z)^a.'
                     : 'Empty: the wind in the file is already at 10 m (no correction). Enter the height when it is not; wind becomes U10 = Uz·(10/z)^a.'
               }
-            >
-              <Input
-                id="anemometer"
-                inputMode="decimal"
-                placeholder={effectiveFormat === 'ndbc' ? 'e.g. 4.1' : 'already at 10 m'}
-                invalid={!!anemometerError || !!errors.anemometer}
-                {...register('anemometer', { onChange: () => clearErrors('anemometer') })}
-              />
-            </FieldShell>
-            <FieldShell
-              label="Wind profile exponent a"
-              htmlFor="wind-exponent"
-              hint="0.11 over the open sea (Hsu, Meindl & Gilhousen 1994); 1/7 is an over-land value. Used only when the height is not 10 m."
-            >
-              <Select id="wind-exponent" {...register('exponent')}>
-                <option value="open-sea">0.11 (open sea)</option>
-                <option value="over-land">1/7 (over land)</option>
-              </Select>
-            </FieldShell>
-            {effectiveFormat === 'csv' ? (
-              <FieldShell
-                label="Directions in the file"
-                htmlFor="direction-convention"
-                hint="Lullwatch stores where waves and wind come from. Going-to directions get 180° added."
-              >
-                <Select id="direction-convention" {...register('directionConvention')}>
-                  <option value="coming-from">Coming from (nautical, usual)</option>
-                  <option value="going-to">Going to (oceanographic)</option>
+              placeholder={effectiveFormat === 'ndbc' ? 'e.g. 4.1' : 'already at 10 m'}
+              {...metresInput('anemometer')}
+              error={errors.anemometer?.message ?? anemometerError}
+            />
+            {CHOICE_FIELDS.filter((f) => !f.csvOnly || effectiveFormat === 'csv').map((f) => (
+              <FieldShell key={f.id} label={f.label} htmlFor={f.id} hint={f.hint}>
+                <Select id={f.id} {...register(f.name)}>
+                  {f.options.map(([value, text]) => (
+                    <option key={value} value={value}>
+                      {text}
+                    </option>
+                  ))}
                 </Select>
               </FieldShell>
-            ) : null}
-            {effectiveFormat === 'csv' ? (
-              <FieldShell
-                label="Water level column holds"
-                htmlFor="water-level-reference"
-                hint="Only for a file with a water level (water_level, wl, tide_m, sea_level…): say what it is; it is never guessed."
-              >
-                <Select id="water-level-reference" {...register('waterLevelReference')}>
-                  <option value="">Not said (a file with a water level is refused)</option>
-                  <option value="chart-datum">{WATER_LEVEL_REFERENCE_WORDS['chart-datum']}</option>
-                  <option value="residual">{WATER_LEVEL_REFERENCE_WORDS.residual}</option>
-                </Select>
-              </FieldShell>
-            ) : null}
-            {effectiveFormat === 'csv' ? (
-              <FieldShell
-                label="Current directions in the file"
-                htmlFor="current-dir-convention"
-                hint="Lullwatch stores where the water flows towards (oceanographic). Coming-from directions get 180° added."
-              >
-                <Select id="current-dir-convention" {...register('currentDirConvention')}>
-                  <option value="going-to">Flowing towards (oceanographic, usual)</option>
-                  <option value="coming-from">Coming from</option>
-                </Select>
-              </FieldShell>
-            ) : null}
+            ))}
             {needHeight ? <Notice tone="error">{NEED_HEIGHT}</Notice> : null}
           </div>
         </Card>
@@ -724,20 +730,12 @@ function ImportForm({ project }: { project: ProjectDetail }) {
               </div>
             ) : null}
             <div className="grid gap-4 md:grid-cols-2">
-              <FieldShell
+              <TextField
                 label="Water level datum above chart datum"
-                unit="m"
-                htmlFor="water-level-offset"
-                error={errors.waterLevelOffset?.message}
+                id="water-level-offset"
                 hint="Only for files with a water level: the height of the datum its standard name states (e.g. mean sea level) above the worksite's chart datum. Without it such a file is refused; a datum is never guessed."
-              >
-                <Input
-                  id="water-level-offset"
-                  inputMode="decimal"
-                  invalid={!!errors.waterLevelOffset}
-                  {...register('waterLevelOffset', { onChange: () => clearErrors('waterLevelOffset') })}
-                />
-              </FieldShell>
+                {...metresInput('waterLevelOffset')}
+              />
             </div>
           </Card>
         ) : null}

@@ -2,8 +2,9 @@ import { Link, useLocation, useParams } from 'react-router-dom';
 import { usePageZone } from '../../../components/page-zone';
 import { DATA_ZONE_STATEMENT } from './data-zone';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
-import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
+import { Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { useDatasets } from '../../../api/datasets';
+import { FetchForecastButton } from '../../../components/fetch-forecast-button';
 import { useFetchForecast } from '../../../api/forecasts';
 import { useProjectAccess } from '../../../api/projects';
 import { useSetDefaultHindcast } from '../api/set-default-hindcast';
@@ -39,16 +40,7 @@ export function DatasetsPage() {
       <Link to={`/projects/${projectId}/sea-data/import`} className={linkButton}>
         Import a file
       </Link>
-      <Button variant="secondary" onClick={() => fetchForecast.mutate()} disabled={fetchForecast.isPending}>
-        {fetchForecast.isPending ? (
-          <>
-            <span className="size-4 animate-spin rounded-full border-2 border-line border-t-accent" aria-hidden />
-            Fetching forecast…
-          </>
-        ) : (
-          'Fetch latest forecast'
-        )}
-      </Button>
+      <FetchForecastButton fetchForecast={fetchForecast} />
     </>
   ) : undefined;
 

@@ -86,3 +86,18 @@ export const VARIABLE_LABELS: Record<string, { label: string; unit: string }> = 
   wind: { label: 'Wind speed', unit: 'm/s' },
   windDir: { label: 'Wind direction', unit: '° from' },
 };
+
+/** The preview tables' column headings, by stored variable. */
+const COLUMN_HEADINGS = {
+  hs: 'Hs (m)',
+  tp: 'Tp (s)',
+  tz: 'Tz (s)',
+  te: 'Te (s)',
+  dir: 'Dir (°)',
+  wind: 'Wind (m/s)',
+  windDir: 'Wind dir (°)',
+};
+
+/** A preview table's columns from [variable, decimals shown] pairs, in order, each with its heading. */
+export const previewColumns = <K extends keyof typeof COLUMN_HEADINGS>(columns: [K, number][]) =>
+  columns.map(([key, decimals]) => ({ key, label: COLUMN_HEADINGS[key], decimals }));

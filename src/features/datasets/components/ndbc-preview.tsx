@@ -1,5 +1,5 @@
 import { ImportError, NdbcParser, type ImportIssue, type SeaRecords } from '../../../../shared/seadata';
-import { formatUtc, formatValue } from './format';
+import { formatUtc, formatValue, previewColumns } from './format';
 
 export interface NdbcPreview {
   /** The first records, oldest first. */
@@ -27,14 +27,14 @@ export function previewNdbc(head: string, anemometerHeightM: number | undefined,
   }
 }
 
-const COLS: { key: keyof Omit<SeaRecords, 'timeMs' | 'extra'>; label: string; decimals: number }[] = [
-  { key: 'hs', label: 'Hs (m)', decimals: 2 },
-  { key: 'tp', label: 'Tp (s)', decimals: 2 },
-  { key: 'tz', label: 'Tz (s)', decimals: 2 },
-  { key: 'dir', label: 'Dir (°)', decimals: 0 },
-  { key: 'wind', label: 'Wind (m/s)', decimals: 1 },
-  { key: 'windDir', label: 'Wind dir (°)', decimals: 0 },
-];
+const COLS = previewColumns<keyof Omit<SeaRecords, 'timeMs' | 'extra'>>([
+  ['hs', 2],
+  ['tp', 2],
+  ['tz', 2],
+  ['dir', 0],
+  ['wind', 1],
+  ['windDir', 0],
+]);
 
 /** The first records of an NDBC file as they will be stored. */
 export function NdbcPreviewTable({ preview, rows = 12 }: { preview: NdbcPreview; rows?: number }) {

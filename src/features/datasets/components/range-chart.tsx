@@ -128,30 +128,7 @@ export function RangeChart({
           </Button>
         </div>
         <div className="grid gap-3 sm:grid-cols-[auto_auto_1fr] sm:items-end">
-          <label className="flex flex-col gap-1 text-sm font-semibold">
-            From
-            <input
-              type="date"
-              className="min-h-11 rounded-lg border border-line bg-surface px-3 text-base font-normal text-ink"
-              min={utcDateInput(startMs)}
-              max={utcDateInput(endMs)}
-              value={utcDateInput(current.fromMs)}
-              onChange={(e) => pickDates(e.target.value, utcDateInput(current.toMs))}
-            />
-            <DateEcho value={utcDateInput(current.fromMs)} />
-          </label>
-          <label className="flex flex-col gap-1 text-sm font-semibold">
-            To
-            <input
-              type="date"
-              className="min-h-11 rounded-lg border border-line bg-surface px-3 text-base font-normal text-ink"
-              min={utcDateInput(startMs)}
-              max={utcDateInput(endMs)}
-              value={utcDateInput(current.toMs)}
-              onChange={(e) => pickDates(utcDateInput(current.fromMs), e.target.value)}
-            />
-            <DateEcho value={utcDateInput(current.toMs)} />
-          </label>
+          <DateRangeFields startMs={startMs} endMs={endMs} chosen={current} onPick={pickDates} />
           <label className="flex flex-col gap-1 text-sm font-semibold">
             Move through the dataset
             <input
@@ -192,4 +169,41 @@ export function RangeChart({
       ) : null}
     </div>
   );
+}
+
+/**
+ * The "From" and "To" UTC date inputs of a range inside [startMs, endMs], each with its date
+ * echoed in words; `onPick` gets both dates (YYYY-MM-DD) when either changes.
+ */
+function DateRangeFields({
+  startMs,
+  endMs,
+  chosen,
+  onPick,
+}: {
+  startMs: number;
+  endMs: number;
+  chosen: NonNullable<ChartView>;
+  onPick: (from: string, to: string) => void;
+}) {
+  const from = utcDateInput(chosen.fromMs);
+  const to = utcDateInput(chosen.toMs);
+  const ends = [
+    { label: 'From', value: from, pick: (d: string) => onPick(d, to) },
+    { label: 'To', value: to, pick: (d: string) => onPick(from, d) },
+  ];
+  return ends.map((end) => (
+    <label key={end.label} className="flex flex-col gap-1 text-sm font-semibold">
+      {end.label}
+      <input
+        type="date"
+        className="min-h-11 rounded-lg border border-line bg-surface px-3 text-base font-normal text-ink"
+        min={utcDateInput(startMs)}
+        max={utcDateInput(endMs)}
+        value={end.value}
+        onChange={(e) => end.pick(e.target.value)}
+      />
+      <DateEcho value={end.value} />
+    </label>
+  ));
 }

@@ -5,6 +5,7 @@ import { ResponsiveLine, type PointTooltipProps } from '@nivo/line';
 import type { SeriesColumns } from '../api/get-dataset-records';
 import { maxPerBucket, type ChartPoint } from './downsample';
 import { formatStep, formatUtc } from './format';
+import { chartPalette, nivoLineTheme } from '../../../lib/chart-theme';
 import { useIsDark } from '../../../lib/use-is-dark';
 import { useWidth } from '../../../lib/use-width';
 
@@ -94,18 +95,8 @@ export default function SeriesChart({ columns, fromMs, toMs, stepMinutes }: Seri
 
   const ticks = pickTicks(span, Math.max(width - 70, 120), 80);
   const bucketMs = thinned.hs.bucketMs;
-  const palette = dark
-    ? { text: '#9fb4bc', line: '#24485a', ink: '#e6eef0', surface: '#16303d' }
-    : { text: '#4a5d66', line: '#cfd9d8', ink: '#10222c', surface: '#ffffff' };
-  const theme = {
-    text: { fill: palette.text, fontSize: 11, fontFamily: 'inherit' },
-    axis: {
-      domain: { line: { stroke: palette.line, strokeWidth: 1 } },
-      ticks: { line: { stroke: palette.line, strokeWidth: 1 }, text: { fill: palette.text, fontSize: 11 } },
-    },
-    grid: { line: { stroke: palette.line, strokeWidth: 1, strokeOpacity: 0.6 } },
-    crosshair: { line: { stroke: palette.ink, strokeWidth: 1, strokeOpacity: 0.5 } },
-  };
+  const palette = chartPalette(dark);
+  const theme = nivoLineTheme(palette, 0.6);
 
   return (
     <div ref={ref} className="flex flex-col gap-2" data-testid="series-chart">

@@ -3,7 +3,7 @@ import { TZDate } from '@date-fns/tz';
 import type { CampaignResponse, CampaignSimulation } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
 import { CAMPAIGN_MAX_STEPS, CampaignInput } from '../../../../shared/schemas/downtime';
-import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, SectionHeading, Select, Spinner } from '../../../components/ui';
 import { NamedOptions, PlainOptions } from '../../../components/ui/field';
 import { Term } from '../../../components/ui/term';
 import { DateEcho } from '../../../components/ui/date-echo';
@@ -51,13 +51,10 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
     <Card className="flex flex-col gap-4" aria-labelledby="campaigns-title">
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div>
-          <h2 id="campaigns-title" className="text-lg font-bold">
-            Campaign duration
-          </h2>
-          <p className="mt-1 max-w-3xl text-sm text-ink-soft">
+          <SectionHeading id="campaigns-title" title="Campaign duration" narrow>
             The steps run in order; each waits for its first go-start (TR wholly workable) and then takes its TPOP. Simulated from the 1st
             of each month in every hindcast year.
-          </p>
+          </SectionHeading>
         </div>
         {canEdit && editing === null ? (
           <Button className="no-print" onClick={() => setEditing('new')}>

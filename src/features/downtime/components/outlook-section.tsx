@@ -6,7 +6,7 @@ import { useState } from 'react';
 import { TZDate } from '@date-fns/tz';
 import type { CampaignOutlookAnswer, CampaignResponse, OutlookHistoryPoint } from '../../../../shared/api-types-downtime';
 import type { OperationResponse, SiteResponse } from '../../../../shared/api-types-sites';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, SectionHeading, Select, Spinner } from '../../../components/ui';
 import { DateEcho } from '../../../components/ui/date-echo';
 import { useCampaigns } from '../api/get-campaigns';
 import { useOutlook, useOutlookHistory } from '../api/get-outlook';
@@ -41,14 +41,11 @@ export function OutlookSection({ projectId, canEdit, alpha, operations, sites, s
   return (
     <Card className="flex flex-col gap-4" aria-labelledby="outlook-title" data-testid="outlook-section">
       <div>
-        <h2 id="outlook-title" className="text-lg font-bold">
-          Live outlook: when will we finish?
-        </h2>
-        <p className="mt-1 max-w-3xl text-sm text-ink-soft">
+        <SectionHeading id="outlook-title" title="Live outlook: when will we finish?" narrow>
           {selected.name}, as of now: the steps not yet done, in order, first on the latest forecast’s go-starts
           {alpha ? ' (with α)' : ' (at OPLIM)'}, then each hindcast year from the same calendar time. Each forecast × hindcast year pair is
           one sample.
-        </p>
+        </SectionHeading>
       </div>
       {outlook.error ? <ErrorNotice error={outlook.error} /> : null}
       {outlook.isPending ? <Spinner label="Working out the outlook" /> : null}

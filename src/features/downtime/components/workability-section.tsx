@@ -1,6 +1,6 @@
 import { lazy, Suspense, useMemo, useState } from 'react';
 import type { WorkabilityCalendarMonth, WorkabilityEntry, WorkabilityYearMonth } from '../../../../shared/api-types-downtime';
-import { Button, Card, ErrorNotice, Notice, Select, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, Notice, SectionHeading, Select, Spinner } from '../../../components/ui';
 import { Term } from '../../../components/ui/term';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { hours, MONTH_LONG, MONTH_SHORT, num, pct } from './format';
@@ -83,13 +83,10 @@ export function WorkabilitySection({
     <Card className="flex flex-col gap-4" aria-labelledby="expected-downtime-title">
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div>
-          <h2 id="expected-downtime-title" className="text-lg font-bold">
-            Expected weather downtime by month
-          </h2>
-          <p className="mt-1 max-w-3xl text-sm text-ink-soft">
+          <SectionHeading id="expected-downtime-title" title="Expected weather downtime by month" narrow>
             Share of hours not workable (100 % − workability) in each calendar month of {datasetName || 'the hindcast'}, months as the
             worksite’s calendar has them (basis at the top of the page).
-          </p>
+          </SectionHeading>
         </div>
         <Button variant="secondary" className="no-print" onClick={downloadMonths} disabled={!entries || entries.length === 0}>
           Download CSV

@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { ProjectSettingsInput } from '../../../../shared/schemas/projects';
 import type { ProjectDetail } from '../../../../shared/api-types';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner, TextArea } from '../../../components/ui';
+import { Button, Card, ErrorNotice, FieldShell, Input, Notice, Select, Spinner, TextArea, TextField } from '../../../components/ui';
 import { useProject } from '../../../api/projects';
 import { useUpdateProjectSettings } from '../api/mutations';
 
@@ -20,6 +20,18 @@ const SettingsForm = z.object({
   alphaCalibrationP: z.string(),
 });
 type SettingsForm = z.infer<typeof SettingsForm>;
+
+/** The settings typed as numbers, in the form's order. */
+const NUMBER_FIELDS = [
+  { name: 'dataPointDepthM', label: 'Water depth at the data point', unit: 'm', hint: 'Leave empty for deep water.' },
+  { name: 'dataPointLatitude', label: 'Latitude', unit: '° north, negative south' },
+  { name: 'dataPointLongitude', label: 'Longitude', unit: '° east, negative west' },
+  {
+    name: 'alphaCalibrationP',
+    label: 'p of the calibrated alpha table',
+    hint: 'The accepted chance that the observed Hs exceeds the limit when the forecast is at α·OPLIM (1e-4 by default). Used by the Forecast skill page; never adopted by itself.',
+  },
+] as const;
 
 const numOrNull = (s: string) => (s.trim() === '' ? null : Number(s));
 
@@ -68,9 +80,7 @@ function SettingsEditor({ project }: { project: ProjectDetail }) {
   return (
     <Card>
       <form className="grid gap-4 md:grid-cols-2" onSubmit={onSubmit} noValidate>
-        <FieldShell label="Project name" htmlFor="name" error={errors.name?.message}>
-          <Input id="name" {...form.register('name')} invalid={!!errors.name} />
-        </FieldShell>
+        <TextField label="Project name" id="name" error={errors.name?.message} {...form.register('name')} />
         <FieldShell
           label="Forecast source"
           htmlFor="forecastSource"
@@ -89,34 +99,9 @@ function SettingsEditor({ project }: { project: ProjectDetail }) {
         <FieldShell label="Data point name" htmlFor="dataPointName" error={errors.dataPointName?.message}>
           <Input id="dataPointName" {...form.register('dataPointName')} />
         </FieldShell>
-        <FieldShell
-          label="Water depth at the data point"
-          unit="m"
-          htmlFor="dataPointDepthM"
-          hint="Leave empty for deep water."
-          error={errors.dataPointDepthM?.message}
-        >
-          <Input id="dataPointDepthM" inputMode="decimal" {...form.register('dataPointDepthM')} invalid={!!errors.dataPointDepthM} />
-        </FieldShell>
-        <FieldShell label="Latitude" unit="° north, negative south" htmlFor="dataPointLatitude" error={errors.dataPointLatitude?.message}>
-          <Input id="dataPointLatitude" inputMode="decimal" {...form.register('dataPointLatitude')} invalid={!!errors.dataPointLatitude} />
-        </FieldShell>
-        <FieldShell label="Longitude" unit="° east, negative west" htmlFor="dataPointLongitude" error={errors.dataPointLongitude?.message}>
-          <Input
-            id="dataPointLongitude"
-            inputMode="decimal"
-            {...form.register('dataPointLongitude')}
-            invalid={!!errors.dataPointLongitude}
-          />
-        </FieldShell>
-        <FieldShell
-          label="p of the calibrated alpha table"
-          htmlFor="alphaCalibrationP"
-          hint="The accepted chance that the observed Hs exceeds the limit when the forecast is at α·OPLIM (1e-4 by default). Used by the Forecast skill page; never adopted by itself."
-          error={errors.alphaCalibrationP?.message}
-        >
-          <Input id="alphaCalibrationP" inputMode="decimal" {...form.register('alphaCalibrationP')} invalid={!!errors.alphaCalibrationP} />
-        </FieldShell>
+        {NUMBER_FIELDS.map(({ name, ...field }) => (
+          <TextField key={name} id={name} {...field} inputMode="decimal" error={errors[name]?.message} {...form.register(name)} />
+        ))}
         <div className="flex flex-col gap-3 md:col-span-2">
           {update.error ? <ErrorNotice error={update.error} /> : null}
           {update.isSuccess && !form.formState.isDirty ? <Notice tone="success">Settings saved.</Notice> : null}
