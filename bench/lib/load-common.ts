@@ -121,10 +121,20 @@ export async function createUsers(baseUrl: string, projectId: string, adminCooki
       body: { name: `Load user ${i + 1}`, email },
     });
     await expectOk(baseUrl, 'PUT', `/api/admin/users/${created.user.id}/projects/${projectId}`, { cookie: adminCookie, body: { role } });
-    // Users sign in with the temporary password as given (the product asks for no change first).
-    // Addresses from 198.51.100.0/24, a range reserved for documentation.
-    const cookie = await signIn(baseUrl, email, created.temporaryPassword, `198.51.100.${(i % 250) + 1}`);
-    users.push({ email, role, cookie });
+    // Users sign in with the temporary password, then change it as the product asks before
+    // anything else (the session stays). Addresses from 198.51.100.0/24, reserved for documentation.
+    const address = `198.51.100.${(i % 250) + 1}`;
+    const cookie = await signIn(baseUrl, email, created.temporaryPassword, address);
+    const { res } = await call(baseUrl, 'POST', '/api/auth/change-password', {
+      cookie,
+      body: { currentPassword: created.temporaryPassword, newPassword: `Kelp-tide-${stamp}-${i + 1}`, revokeOtherSessions: false },
+      headers: { 'x-forwarded-for': address, origin: baseUrl },
+    });
+    if (!res.ok) throw new Error(`password change of ${email} answered ${res.status}`);
+    // Any cookie the change sets replaces the one of that name.
+    const jar = new Map(cookie.split('; ').map((c) => [c.split('=')[0], c] as const));
+    for (const c of res.headers.getSetCookie()) jar.set(c.split('=')[0], c.split(';')[0]);
+    users.push({ email, role, cookie: [...jar.values()].join('; ') });
   }
   return users;
 }
