@@ -1,7 +1,7 @@
 // `npm run bench:peer`: Lullwatch's engine against the NumPy peer on the same input, in the same run.
 //
-// The peer is a vectorised NumPy script kept beside the repository (default
-// ../shared/bench/bench_numpy.py; `--peer PATH` or LULLWATCH_NUMPY_PEER=PATH names another copy).
+// The peer is a vectorised NumPy script, the company's own baseline, kept in this repository
+// (bench/numpy-peer/bench_numpy.py; `--peer PATH` or LULLWATCH_NUMPY_PEER=PATH names another copy).
 // This script:
 // 1. has the peer write its synthetic input as CSV (`--write-csv`, 30 years hourly at a 60 m data
 //    point) and reads the peer's SITES, OPS and data point depth from the script itself;
@@ -27,7 +27,7 @@ import type { SiteGeometry } from '../shared/waves/index';
 import { EnginePool, runHindcastAllSites, type HindcastInput, type StageTimes } from './peer-engine';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
-const DEFAULT_PEER = path.join('..', 'shared', 'bench', 'bench_numpy.py');
+const DEFAULT_PEER = path.join('bench', 'numpy-peer', 'bench_numpy.py');
 const AIM_RATIO = 3;
 
 const { values: args } = parseArgs({
