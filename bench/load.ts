@@ -13,9 +13,11 @@
 //
 // Three measured runs: a closed loop (every connection sends its next request as soon as the last
 // one is answered: the most the server can take), a paced run (each user opens both pages once
-// every --page-every seconds, a busy office's pace), and a heavy run: the users ask for /api/me
-// once a second each while a coordinator keeps changing a limit and asking for the workability
-// table and the campaign simulation again, so each is computed cold over the whole hindcast.
+// every --page-every seconds, a busy office's pace, the users' visits spread over that period;
+// then the same rate as autocannon's overallRate makes it, one burst a second, for comparison),
+// and a heavy run: the users ask for /api/me once a second each (their seconds spread) while a
+// coordinator keeps changing a limit and asking for the workability table and the campaign
+// simulation again, so each is computed cold over the whole hindcast.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -34,6 +36,7 @@ import {
   percentile,
   ROLES,
   runCannon,
+  runPaced,
   intOption,
   loadSettings,
   loadOptions,
@@ -43,6 +46,7 @@ import {
   type EndpointStats,
   type LoadUser,
   type PageRequest,
+  type PacedResult,
 } from './lib/load-common';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
@@ -280,22 +284,31 @@ async function main(): Promise<void> {
   console.log(
     `\nPaced run: ${DURATION_S} s, each user opens both pages every ${PAGE_EVERY_S} s (${rate.toFixed(2)} requests/s per user, ${(rate * users.length).toFixed(0)}/s in all)...`,
   );
-  const paced = await runCannon(s.baseUrl, users, requests, DURATION_S, null, Math.max(1, Math.round(rate * users.length)), keepCannon);
+  const paced = await runPaced(s.baseUrl, users, requests, DURATION_S, PAGE_EVERY_S);
+  const pacedP99 = percentile(paced.latencies, 99);
   console.log(
-    `  requests/s      mean ${paced.requests.average.toFixed(1)} (total ${paced.requests.total} in ${paced.duration.toFixed(1)} s)`,
+    `  requests/s      mean ${(paced.latencies.length / paced.seconds).toFixed(1)} (total ${paced.latencies.length} in ${paced.seconds.toFixed(1)} s); users' visits spread over the ${PAGE_EVERY_S} s`,
   );
   console.log(
-    `  latency         p50 ${ms(paced.latency.p50)}, p97.5 ${ms(paced.latency.p97_5)}, p99 ${ms(paced.latency.p99)}, max ${ms(paced.latency.max)}, mean ${paced.latency.average.toFixed(1)} ms`,
+    `  latency         p50 ${ms(percentile(paced.latencies, 50))}, p97.5 ${ms(percentile(paced.latencies, 97.5))}, p99 ${ms(pacedP99)}, max ${ms(paced.latencies[paced.latencies.length - 1] ?? NaN)}`,
   );
-  console.log(`  errors          ${paced.errors} (timeouts ${paced.timeouts}), non-2xx ${paced.non2xx}`);
+  console.log(`  errors          ${paced.errors}, non-2xx ${paced.non2xx}`);
+  // The same rate as autocannon's overallRate gives it (every connection's request due at the
+  // same instant each second): kept beside it, as earlier rounds measured it that way.
+  const bursts = await runCannon(s.baseUrl, users, requests, DURATION_S, null, Math.max(1, Math.round(rate * users.length)), keepCannon);
+  console.log(
+    `  (autocannon's overallRate, ${bursts.requests.average.toFixed(1)} requests/s released in one burst each second: p50 ${ms(bursts.latency.p50)}, p99 ${ms(bursts.latency.p99)}, errors ${bursts.errors}, non-2xx ${bursts.non2xx})`,
+  );
 
   const heavy = await heavyRun(s.baseUrl, demo.id, adminCookie, users, requests);
 
-  const pacedFailures = paced.errors + paced.non2xx;
+  const pacedFailures = paced.errors + paced.non2xx + bursts.errors + bursts.non2xx;
   const mark = (ok: boolean | null) => (ok === null ? 'not measured' : ok ? 'met' : 'NOT met');
   console.log('\nAims');
   console.log(`  closed loop p99 under ${AIM_P99_MS} ms: ${mark(p99Met)} (${ms(p99)})`);
-  console.log(`  paced p99 under ${AIM_PACED_P99_MS} ms: ${mark(paced.latency.p99 < AIM_PACED_P99_MS)} (${ms(paced.latency.p99)})`);
+  console.log(
+    `  paced p99 under ${AIM_PACED_P99_MS} ms: ${mark(pacedP99 < AIM_PACED_P99_MS)} (${ms(pacedP99)}; in autocannon's bursts ${ms(bursts.latency.p99)})`,
+  );
   console.log(
     `  /api/me p99 under ${AIM_HEAVY_ME_P99_MS} ms beside cold heavy work: ${mark(heavy.meP99 < AIM_HEAVY_ME_P99_MS && heavy.computations > 0)} (${ms(heavy.meP99)}, ${heavy.computations} cold computations)`,
   );
@@ -354,24 +367,23 @@ async function heavyRun(
     await call(baseUrl, 'PATCH', `${p}/operations/${op.id}`, { cookie: adminCookie, body: { limits: op.limits } });
   })();
   const me: PageRequest[] = [{ name: 'me', method: 'GET', path: '/api/me' }];
-  let result: autocannon.Result;
+  let result: PacedResult;
   try {
-    result = await runCannon(baseUrl, users, me, DURATION_S, null, users.length, keepCannon);
+    result = await runPaced(baseUrl, users, me, DURATION_S, 1);
   } finally {
     stop = true;
     await worker;
   }
   times.sort((a, b) => a - b);
+  const meP99 = percentile(result.latencies, 99);
   console.log(
-    `  /api/me         requests ${result.requests.total}; latency p50 ${ms(result.latency.p50)}, p99 ${ms(result.latency.p99)}, max ${ms(result.latency.max)}`,
+    `  /api/me         requests ${result.latencies.length}, the users' seconds spread; latency p50 ${ms(percentile(result.latencies, 50))}, p99 ${ms(meP99)}, max ${ms(result.latencies[result.latencies.length - 1] ?? NaN)}`,
   );
   console.log(
     `  cold answers    ${computations} (workability and simulation), each p50 ${ms(percentile(times, 50))}, max ${ms(times[times.length - 1] ?? NaN)}`,
   );
-  console.log(
-    `  errors          ${result.errors} (timeouts ${result.timeouts}), non-2xx ${result.non2xx}; heavy requests failed ${failures}`,
-  );
-  return { meP99: result.latency.p99, computations, failures: failures + result.errors + result.non2xx };
+  console.log(`  errors          ${result.errors}, non-2xx ${result.non2xx}; heavy requests failed ${failures}`);
+  return { meP99, computations, failures: failures + result.errors + result.non2xx };
 }
 
 let failed = false;

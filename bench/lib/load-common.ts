@@ -146,6 +146,8 @@ export interface PageRequest {
   name: string;
   method: 'GET' | 'POST';
   path: string;
+  /** The page that asks for it (a paced visit opens one page at a time). */
+  page?: 'board' | 'downtime';
 }
 
 /**
@@ -168,18 +170,19 @@ export async function pageRequests(baseUrl: string, projectId: string, cookie: s
   const range = new URLSearchParams({ from: `${month}-01`, to: `${month}-${String(lastDay).padStart(2, '0')}` });
   const withDataset = new URLSearchParams({ dataset: hindcast.id, alpha: 'true' });
   const list: PageRequest[] = [
-    { name: 'me', method: 'GET', path: '/api/me' },
-    { name: 'project', method: 'GET', path: p },
-    { name: 'plan', method: 'GET', path: `${p}/plan?alpha=true` },
-    { name: 'datasets', method: 'GET', path: `${p}/datasets` },
-    { name: 'operations', method: 'GET', path: `${p}/operations` },
-    { name: 'sites', method: 'GET', path: `${p}/sites` },
-    { name: 'workability', method: 'GET', path: `${p}/workability?${withDataset}` },
-    { name: 'ledger', method: 'GET', path: `${p}/ledger?${range}` },
-    { name: 'ledger monthly', method: 'GET', path: `${p}/ledger/monthly?${range}&dataset=${hindcast.id}` },
-    { name: 'campaigns', method: 'GET', path: `${p}/campaigns` },
+    { name: 'me', method: 'GET', path: '/api/me', page: 'board' },
+    { name: 'project', method: 'GET', path: p, page: 'board' },
+    { name: 'plan', method: 'GET', path: `${p}/plan?alpha=true`, page: 'board' },
+    { name: 'datasets', method: 'GET', path: `${p}/datasets`, page: 'downtime' },
+    { name: 'operations', method: 'GET', path: `${p}/operations`, page: 'downtime' },
+    { name: 'sites', method: 'GET', path: `${p}/sites`, page: 'downtime' },
+    { name: 'workability', method: 'GET', path: `${p}/workability?${withDataset}`, page: 'downtime' },
+    { name: 'ledger', method: 'GET', path: `${p}/ledger?${range}`, page: 'downtime' },
+    { name: 'ledger monthly', method: 'GET', path: `${p}/ledger/monthly?${range}&dataset=${hindcast.id}`, page: 'downtime' },
+    { name: 'campaigns', method: 'GET', path: `${p}/campaigns`, page: 'downtime' },
   ];
-  if (campaigns[0]) list.push({ name: 'simulate', method: 'POST', path: `${p}/campaigns/${campaigns[0].id}/simulate?${withDataset}` });
+  if (campaigns[0])
+    list.push({ name: 'simulate', method: 'POST', path: `${p}/campaigns/${campaigns[0].id}/simulate?${withDataset}`, page: 'downtime' });
   return list;
 }
 
@@ -249,6 +252,72 @@ export function runCannon(
     );
     hooks.onStart?.(instance);
   });
+}
+
+/** What a paced run measured: every answer's latency (sorted, ms), failures, wall time. */
+export interface PacedResult {
+  latencies: number[];
+  errors: number;
+  non2xx: number;
+  seconds: number;
+}
+
+/**
+ * Paced load as people make it: each user opens every page once every `everyS` seconds, the
+ * users' first visits spread evenly over the first period (user i at i/n of it: people do not open
+ * a page in step), the pages following each other evenly within the period. A visit sends all of
+ * its page's requests at once, as a page asks for its data when it opens; a slow answer does not
+ * hold the user's next visit back. Latency runs from sending a request to the end of its answer's
+ * body. (autocannon's `overallRate` releases every connection's request at the same instant each
+ * second: bursts of one request per user, not a pace.)
+ */
+export async function runPaced(
+  baseUrl: string,
+  users: LoadUser[],
+  requests: PageRequest[],
+  seconds: number,
+  everyS: number,
+  origin = baseUrl,
+): Promise<PacedResult> {
+  const latencies: number[] = [];
+  let errors = 0;
+  let non2xx = 0;
+  const t0 = performance.now();
+  const end = t0 + seconds * 1000;
+  // One visit per page, the pages spread over the period (the board, then the downtime page half a period later).
+  const pages = [...new Set(requests.map((r) => r.page ?? ''))].map((page) => requests.filter((r) => (r.page ?? '') === page));
+  const visit = (user: LoadUser, pageRequests: PageRequest[]) =>
+    Promise.all(
+      pageRequests.map(async (r) => {
+        const start = performance.now();
+        try {
+          const res = await fetch(`${baseUrl}${r.path}`, {
+            method: r.method,
+            headers: { cookie: user.cookie, origin, accept: 'application/json' },
+            signal: AbortSignal.timeout(10_000),
+          });
+          await res.arrayBuffer();
+          latencies.push(performance.now() - start);
+          if (res.status < 200 || res.status > 299) non2xx++;
+        } catch {
+          errors++;
+        }
+      }),
+    );
+  await Promise.all(
+    users.map(async (user, i) => {
+      const visits: Promise<unknown>[] = [];
+      const first = t0 + (i / users.length) * everyS * 1000;
+      const step = (everyS * 1000) / pages.length;
+      for (let k = 0, next = first; next < end; k++, next = first + k * step) {
+        await sleep(Math.max(0, next - performance.now()));
+        visits.push(visit(user, pages[k % pages.length]));
+      }
+      await Promise.all(visits);
+    }),
+  );
+  latencies.sort((a, b) => a - b);
+  return { latencies, errors, non2xx, seconds: (performance.now() - t0) / 1000 };
 }
 
 export function percentile(sorted: number[], p: number): number {
