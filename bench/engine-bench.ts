@@ -18,9 +18,6 @@ import {
 } from '../shared/engine/index';
 import { median, mulberry32 } from './lib/random';
 
-// The response bench takes these from here.
-export { median, mulberry32 };
-
 const HOUR_MS = 3_600_000;
 
 /**

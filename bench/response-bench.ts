@@ -14,7 +14,8 @@ import { isMainThread } from 'node:worker_threads';
 import { tsWorker } from '../scripts/lib/ts-worker';
 import { DEMO_VESSELS } from '../seed/demo-vessels';
 import type { OperationSpec, SiteSeries } from '../shared/engine/index';
-import { median, mulberry32, onePass, OPERATIONS, syntheticSeries } from './engine-bench';
+import { onePass, OPERATIONS, syntheticSeries } from './engine-bench';
+import { median, mulberry32 } from './lib/random';
 
 /** Aims of issue 14, ms and ratio. */
 export const RESPONSE_COLD_AIM_MS = 2000;
