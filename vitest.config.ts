@@ -11,5 +11,8 @@ export default defineConfig({
     setupFiles: ['tests/support/matchers.ts'],
     pool: 'forks',
     maxWorkers: 2,
+    // Engine threads at the test processes' own priority: two test files share the cores, and a
+    // lowered engine thread would only wait behind the other file (tests/engine/engine-priority.test.ts sets it).
+    env: { ENGINE_NICE: '0' },
   },
 });

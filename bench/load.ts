@@ -23,6 +23,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { spawn, type ChildProcess } from 'node:child_process';
+import { monitorEventLoopDelay } from 'node:perf_hooks';
 import autocannon from 'autocannon';
 import { buildClientIfStale } from '../scripts/lib/client-build';
 import { buildServerBundleIfStale } from '../scripts/lib/server-bundle';
@@ -284,7 +285,11 @@ async function main(): Promise<void> {
   console.log(
     `\nPaced run: ${DURATION_S} s, each user opens both pages every ${PAGE_EVERY_S} s (${rate.toFixed(2)} requests/s per user, ${(rate * users.length).toFixed(0)}/s in all)...`,
   );
+  // The bench's own event-loop delay meanwhile: a late timer here adds to every latency it measures.
+  const benchDelay = monitorEventLoopDelay({ resolution: 10 });
+  benchDelay.enable();
   const paced = await runPaced(s.baseUrl, users, requests, DURATION_S, PAGE_EVERY_S);
+  benchDelay.disable();
   const pacedP99 = percentile(paced.latencies, 99);
   console.log(
     `  requests/s      mean ${(paced.latencies.length / paced.seconds).toFixed(1)} (total ${paced.latencies.length} in ${paced.seconds.toFixed(1)} s); users' visits spread over the ${PAGE_EVERY_S} s`,
@@ -293,6 +298,15 @@ async function main(): Promise<void> {
     `  latency         p50 ${ms(percentile(paced.latencies, 50))}, p97.5 ${ms(percentile(paced.latencies, 97.5))}, p99 ${ms(pacedP99)}, max ${ms(paced.latencies[paced.latencies.length - 1] ?? NaN)}`,
   );
   console.log(`  errors          ${paced.errors}, non-2xx ${paced.non2xx}`);
+  console.log(
+    `  bench's own event-loop delay p99 ${ms(benchDelay.percentile(99) / 1e6)}, max ${ms(benchDelay.max / 1e6)} (its lateness is in the figures above)`,
+  );
+  for (const r of requests) {
+    const list = paced.byName.get(r.name) ?? [];
+    console.log(
+      `  ${r.name.padEnd(width)}  n ${String(list.length).padStart(6)}  p50 ${ms(percentile(list, 50)).padStart(7)}  p99 ${ms(percentile(list, 99)).padStart(7)}  max ${ms(list[list.length - 1] ?? NaN).padStart(7)}`,
+    );
+  }
   // The same rate as autocannon's overallRate gives it (every connection's request due at the
   // same instant each second): kept beside it, as earlier rounds measured it that way.
   const bursts = await runCannon(s.baseUrl, users, requests, DURATION_S, null, Math.max(1, Math.round(rate * users.length)), keepCannon);

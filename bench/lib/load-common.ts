@@ -256,7 +256,10 @@ export function runCannon(
 
 /** What a paced run measured: every answer's latency (sorted, ms), failures, wall time. */
 export interface PacedResult {
+  /** Every answer's latency in ms, sorted. */
   latencies: number[];
+  /** The same by request name, sorted. */
+  byName: Map<string, number[]>;
   errors: number;
   non2xx: number;
   seconds: number;
@@ -280,6 +283,7 @@ export async function runPaced(
   origin = baseUrl,
 ): Promise<PacedResult> {
   const latencies: number[] = [];
+  const byName = new Map<string, number[]>();
   let errors = 0;
   let non2xx = 0;
   const t0 = performance.now();
@@ -297,7 +301,9 @@ export async function runPaced(
             signal: AbortSignal.timeout(10_000),
           });
           await res.arrayBuffer();
-          latencies.push(performance.now() - start);
+          const took = performance.now() - start;
+          latencies.push(took);
+          byName.set(r.name, [...(byName.get(r.name) ?? []), took]);
           if (res.status < 200 || res.status > 299) non2xx++;
         } catch {
           errors++;
@@ -317,7 +323,8 @@ export async function runPaced(
     }),
   );
   latencies.sort((a, b) => a - b);
-  return { latencies, errors, non2xx, seconds: (performance.now() - t0) / 1000 };
+  for (const list of byName.values()) list.sort((a, b) => a - b);
+  return { latencies, byName, errors, non2xx, seconds: (performance.now() - t0) / 1000 };
 }
 
 export function percentile(sorted: number[], p: number): number {

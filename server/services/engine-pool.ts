@@ -5,10 +5,12 @@
 // memory (SharedArrayBuffer), and a message carrying views of shared memory shares it. Tasks are
 // plain functions of plain data (engine-tasks.ts); the pool runs them in order per worker, on the
 // least busy worker. ENGINE_THREADS sets the number of workers (default 1: the API thread and one
-// engine thread on a 2-core machine); 0 runs the tasks on the API thread (as before).
+// engine thread on a 2-core machine); 0 runs the tasks on the API thread (as before). Engine
+// threads run below the API thread's CPU priority (ENGINE_NICE, engine-priority.ts).
 import os from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { tsWorker } from '../../scripts/lib/ts-worker';
+import { engineNice } from './engine-priority';
 import type { EngineTaskName, EngineTasks } from './engine-tasks';
 import { errorFromData, type WorkerError } from './worker-errors';
 
@@ -47,6 +49,7 @@ function newWorker(): Worker {
 type WorkerMessage = { id: number; result?: unknown; error?: WorkerError; progress?: unknown[]; ready?: true };
 
 function start(count: number): PoolWorker[] {
+  engineNice(process.env.ENGINE_NICE); // a wrong ENGINE_NICE fails here, on the calling thread, not in each worker
   return Array.from({ length: count }, () => {
     const worker = newWorker();
     const pw: PoolWorker = { worker, busy: 0, pending: new Map() };

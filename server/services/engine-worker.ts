@@ -3,11 +3,14 @@
 // a progress callback as its last argument, and its result's typed arrays are moved, not copied.
 // Errors go back as plain data (worker-errors.ts) and are rebuilt of their own class.
 import { parentPort } from 'node:worker_threads';
+import { engineNice, lowerThisThread } from './engine-priority';
 import { ENGINE_TASKS, type EngineTaskName } from './engine-tasks';
 import { errorToData } from './worker-errors';
 
 if (!parentPort) throw new Error('engine-worker.ts runs as a worker thread');
 const port = parentPort;
+// Below the API thread, so requests are answered first while a computation runs (engine-priority.ts).
+lowerThisThread(engineNice(process.env.ENGINE_NICE));
 
 /** The buffers of the typed arrays in a result (not shared memory), to move them to the API thread. */
 function transferables(value: unknown, out = new Set<ArrayBuffer>(), depth = 0): Set<ArrayBuffer> {
