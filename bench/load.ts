@@ -7,7 +7,9 @@
 // itself failed.
 //
 // Options: --years N (demo hindcast length, default 20), --duration S (measured run, default 30),
-// --warmup S (unmeasured run before it, default 5), --connections N (= users, default 50),
+// --warmup S (unmeasured run before it, default 30: long enough for V8's first full garbage
+// collection under this load, so the RSS after it is the heap's working size and not the low point
+// before that collection), --connections N (= users, default 50),
 // --page-every S (the paced run's pace, default 10), --profile DIR (the server writes a V8 CPU
 // profile of the whole run into DIR when it stops; open it in Chromium's DevTools).
 //
@@ -68,7 +70,7 @@ const STEADY_SHARE = 0.1;
 
 const { values: args } = parseArgs({
   options: {
-    ...loadOptions('30'),
+    ...loadOptions('30', '30'),
     profile: { type: 'string' },
   },
 });
@@ -268,6 +270,14 @@ async function main(): Promise<void> {
   console.log(
     `  server RSS      before warm-up ${mib(rssBeforeWarmup)}, after warm-up ${mib(rssAfterWarmup)}, peak ${mib(peak)}, end ${mib(rssEnd)}`,
   );
+  // The highest RSS of each tenth of the run: a leak shows as a rise from tenth to tenth, the
+  // garbage collector's saw as ups and downs.
+  const tenths = Array.from({ length: 10 }, (_, k) =>
+    samples.slice(Math.floor((k * samples.length) / 10), Math.floor(((k + 1) * samples.length) / 10)),
+  )
+    .filter((part) => part.length > 0)
+    .map((part) => Math.max(...part).toFixed(0));
+  console.log(`  RSS per tenth   highest of each tenth of the run, MiB: ${tenths.join(', ')}`);
   console.log(`  load average    ${loadAtStart.toFixed(1)} at start, ${loadAtEnd.toFixed(1)} at end (1 minute)`);
 
   console.log('\nPer request (latency as autocannon measured it, one connection per user)');

@@ -11,11 +11,11 @@ import autocannon from 'autocannon';
  * The command-line options both benches take, for parseArgs (each adds its own): --duration with
  * the bench's default (s), --years, --warmup, --connections and --page-every.
  */
-export function loadOptions(durationDefault: string) {
+export function loadOptions(durationDefault: string, warmupDefault = '5') {
   return {
     years: { type: 'string', default: '20' },
     duration: { type: 'string', default: durationDefault },
-    warmup: { type: 'string', default: '5' },
+    warmup: { type: 'string', default: warmupDefault },
     connections: { type: 'string', default: '50' },
     'page-every': { type: 'string', default: '10' },
   } as const;
