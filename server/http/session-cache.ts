@@ -28,22 +28,38 @@ export function createSessionReader(auth: Auth, ttlMs = SESSION_CACHE_MS): Sessi
     maxSize: MAX_BYTES,
     sizeCalculation: (v, key) => key.length + 64 + (v.user ? v.user.id.length + v.user.name.length + v.user.email.length : 0),
   });
+  // Lookups under way by Cookie header: a page sends its requests together, and they share one
+  // lookup instead of each making its own (under paced load that was most of a visit's work).
+  const pending = new Map<string, Promise<SessionUser | null>>();
   // Bumped on every forget: a lookup that started before a change is not stored after it.
   let generation = 0;
   const forget = () => {
     generation++;
     cache.clear();
+    pending.clear();
   };
   return {
-    async read(req) {
+    read(req) {
       const key = req.headers.cookie;
       if (!key || ttlMs <= 0) return readSessionUser(auth, req);
       const hit = cache.get(key);
-      if (hit && Date.now() - hit.at < ttlMs) return hit.user;
+      if (hit && Date.now() - hit.at < ttlMs) return Promise.resolve(hit.user);
+      const waiting = pending.get(key);
+      if (waiting) return waiting;
       const started = generation;
-      const user = await readSessionUser(auth, req);
-      if (started === generation) cache.set(key, { at: Date.now(), user });
-      return user;
+      const lookup = readSessionUser(auth, req).then(
+        (user) => {
+          if (pending.get(key) === lookup) pending.delete(key);
+          if (started === generation) cache.set(key, { at: Date.now(), user });
+          return user;
+        },
+        (err: unknown) => {
+          if (pending.get(key) === lookup) pending.delete(key);
+          throw err;
+        },
+      );
+      pending.set(key, lookup);
+      return lookup;
     },
     forgetAfterChange(req, res, next) {
       if (req.method !== 'GET' && req.method !== 'HEAD' && req.method !== 'OPTIONS') {

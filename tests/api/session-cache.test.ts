@@ -3,7 +3,7 @@
 // database. Common practice for signed session caches, no source: the window is the trade-off
 // written beside the code and in the README.
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createApp } from '../../server/app';
 import { DEMO_PASSWORD } from '../../seed/scenario';
 import { createTestApp, signIn, TEST_ORIGIN, type TestApp } from '../support/app';
@@ -76,6 +76,25 @@ describe('session lookups reused for a few seconds per instance', () => {
     const a = createApp(t.deps, { sessionCacheMs: 0 });
     const b = createApp(t.deps, { sessionCacheMs: 0 });
     expect((await signOutAfterALookup(a, b, 'coordinator@example.com')).onOther).toBe(401);
+  });
+
+  it('looks a session up once for the requests a page sends together with one cookie', async () => {
+    const a = createApp(t.deps);
+    const cookie = await sessionCookie(a, 'skipper@example.com');
+    // The real lookup, counted (the spy calls through to the auth library).
+    const getSession = vi.spyOn(t.deps.auth.api, 'getSession');
+    try {
+      const answers = await Promise.all(Array.from({ length: 6 }, () => me(a, cookie)));
+      expect(answers.map((r) => r.status)).toEqual([200, 200, 200, 200, 200, 200]);
+      expect(answers.every((r) => r.body.email === 'skipper@example.com')).toBe(true);
+      expect(getSession).toHaveBeenCalledTimes(1);
+      // Another browser (another cookie) has its own lookup.
+      const other = await sessionCookie(a, 'client@example.com');
+      expect((await me(a, other)).body.email).toBe('client@example.com');
+      expect(getSession).toHaveBeenCalledTimes(2);
+    } finally {
+      getSession.mockRestore();
+    }
   });
 
   it('reuses a lookup on another instance within the window (the documented trade-off)', async () => {
