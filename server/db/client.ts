@@ -39,6 +39,19 @@ export interface Database {
 /** Statements that never change data. */
 const READ_ONLY_SQL = /^\s*(select|show|explain)\b/i;
 
+/** The write generation of each embedded database handle (see {@link writeGenerationOf}). */
+const generations = new WeakMap<Db, () => number>();
+
+/**
+ * The write generation of an embedded database handle: a number that moves when any statement
+ * that may change data starts and again when it ends, so a value read while it stays the same is
+ * still current. Undefined for a database server (other instances write unseen) and for a
+ * transaction's handle.
+ */
+export function writeGenerationOf(db: Db): (() => number) | undefined {
+  return generations.get(db);
+}
+
 /** Wraps the embedded engine's query, exec and transaction so that every possible write moves the generation. */
 function countWrites(pglite: PGlite): () => number {
   let generation = 0;
@@ -132,6 +145,7 @@ export async function openDatabase(config: DatabaseConfig): Promise<Database> {
   await pglite.waitReady;
   const writeGeneration = countWrites(pglite);
   const db = drizzlePglite({ client: pglite, schema, casing: 'snake_case' }) as unknown as Db;
+  generations.set(db, writeGeneration);
   const held = new Set<number>();
   return {
     db,

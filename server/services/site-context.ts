@@ -16,7 +16,7 @@ import {
   type SiteSeries as PlainTransformedSeries,
 } from '../../shared/waves';
 import type { ExtraSeries } from '../../shared/seadata/extra-columns';
-import type { Db } from '../db/client';
+import { writeGenerationOf, type Db } from '../db/client';
 import { operation, projectAlpha, vessel, worksite } from '../db/schema';
 import type { SeaPartitionSeries } from '../../shared/response';
 import type { SeaSeries } from './series-store';
@@ -44,7 +44,39 @@ export interface ProjectSetup {
   alphaIsDefault: boolean;
 }
 
-export async function loadProjectSetup(db: Db, projectId: string): Promise<ProjectSetup> {
+/** Setups read per embedded database handle, by project, with the write generation they were read at. */
+const setupMemos = new WeakMap<Db, Map<string, { generation: number; setup: Promise<ProjectSetup> }>>();
+
+/**
+ * The project's setup. On the embedded database it is read once per write generation and shared
+ * (server/db/client.ts writeGenerationOf): the plan, workability, ledger and simulation answers each
+ * need it, and reading and parsing it (the vessels' RAO tables) was a large part of a page visit's
+ * work. What it returns is frozen: callers read it and never change it.
+ */
+export function loadProjectSetup(db: Db, projectId: string): Promise<ProjectSetup> {
+  const generation = writeGenerationOf(db)?.();
+  if (generation === undefined) return readProjectSetup(db, projectId);
+  let memo = setupMemos.get(db);
+  if (!memo) setupMemos.set(db, (memo = new Map()));
+  const kept = memo.get(projectId);
+  if (kept && kept.generation === generation) return kept.setup;
+  const setup = readProjectSetup(db, projectId).then(deepFreeze);
+  const entry = { generation, setup };
+  memo.set(projectId, entry);
+  setup.catch(() => memo.get(projectId) === entry && memo.delete(projectId));
+  return setup;
+}
+
+/** Freezes a plain value and everything in it (Dates are left as they are). */
+function deepFreeze<T>(value: T): T {
+  if (value && typeof value === 'object' && !(value instanceof Date) && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const v of Object.values(value)) deepFreeze(v);
+  }
+  return value;
+}
+
+async function readProjectSetup(db: Db, projectId: string): Promise<ProjectSetup> {
   const [sites, operations, alphaRows, vessels] = await Promise.all([
     db.select().from(worksite).where(eq(worksite.projectId, projectId)).orderBy(asc(worksite.name)),
     db.select().from(operation).where(eq(operation.projectId, projectId)).orderBy(asc(operation.name)),
