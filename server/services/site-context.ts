@@ -67,9 +67,9 @@ export function loadProjectSetup(db: Db, projectId: string): Promise<ProjectSetu
   return setup;
 }
 
-/** Freezes a plain value and everything in it (Dates are left as they are). */
+/** Freezes a plain value and everything in it (Dates and typed arrays, which cannot be frozen, are left as they are). */
 function deepFreeze<T>(value: T): T {
-  if (value && typeof value === 'object' && !(value instanceof Date) && !Object.isFrozen(value)) {
+  if (value && typeof value === 'object' && !(value instanceof Date) && !ArrayBuffer.isView(value) && !Object.isFrozen(value)) {
     Object.freeze(value);
     for (const v of Object.values(value)) deepFreeze(v);
   }
