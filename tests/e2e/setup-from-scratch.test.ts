@@ -11,7 +11,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openDemoProject, screenshot, useBrowserApp } from '../support/browser';
+import { openDemoProject, screenshot, useBrowserApp, waitOrScreenshot } from '../support/browser';
 
 const { server, browser } = useBrowserApp();
 let tmp: string;
@@ -207,6 +207,9 @@ describe('the coordinator sets a project up from scratch', () => {
     await nav.getByRole('link', { name: 'Downtime' }).click();
     await page.getByRole('button', { name: 'New campaign' }).click();
     const campaign = page.getByRole('form', { name: 'New campaign' });
+    // Steps choose among the project's operations, so the button is enabled once they are in (a
+    // failure keeps a screenshot and says what the page showed: CI once waited 45 s here, unexplained).
+    await waitOrScreenshot(page, campaign.getByRole('button', { name: 'Add step', disabled: false }), 'walk-campaign-form', 45_000);
     await campaign.getByRole('button', { name: 'Add step' }).click();
     await campaign.getByRole('button', { name: 'Create campaign' }).click();
     await expectNoRawErrors(page, 'campaign, no name');
