@@ -2,7 +2,7 @@ import { compileLimits, type CompiledLimits } from './compiled-limits';
 import { assertSeriesLengths } from './evaluate-hours';
 import { curveAlpha, curveLimit, prepareCurve } from './hs-tp-curve';
 import { targetHsSeries } from './hs-targets';
-import { responseClass, responseLimitSeries } from './response-limits';
+import { raiseResponseClasses } from './response-limits';
 import { tideWindowMarginH } from './tide-window';
 import { STATUS, type AlphaTable, type OperationSpec, type SiteSeries } from './types';
 
@@ -87,27 +87,10 @@ export function evaluateStatus(series: SiteSeries, op: OperationSpec, options: E
   if (c.minDepth === c.minDepth && series.depthM) breakBelow(series.depthM, c.minDepth, cls);
   if (c.maxDepth === c.maxDepth && series.depthM) breakAbove(series.depthM, c.maxDepth, cls);
   if (c.needCurrent && series.currentMps) breakAbove(series.currentMps, c.currentMax, cls);
-  if (c.responses.length > 0) raiseResponses(series, op, c, cls);
+  if (c.responses.length > 0) raiseResponseClasses(series, op, c, cls, NO_DATA_CLASS);
 
   for (let i = 0; i < n; i++) cls[i] = CLASS_TO_STATUS[cls[i]];
   return cls;
-}
-
-/** Response limits (docs/domain.md#vessel-response): NaN no data; alpha through the equivalent Hs. */
-function raiseResponses(series: SiteSeries, op: OperationSpec, c: CompiledLimits, cls: Uint8Array): void {
-  const { values, hsTotal } = responseLimitSeries(series, op, c.responses);
-  const tmp = new Float64Array(2);
-  c.responses.forEach((l, r) => {
-    const v = values[r];
-    for (let i = 0; i < cls.length; i++) {
-      if (v[i] !== v[i] || hsTotal[i] !== hsTotal[i]) {
-        cls[i] = NO_DATA_CLASS;
-        continue;
-      }
-      const k = responseClass(c, v[i], l.max, hsTotal[i], tmp);
-      if (k > cls[i]) cls[i] = k;
-    }
-  });
 }
 
 /** Tide window: outside it broken, no extremes for the record no data (tideWindowMarginH). */

@@ -16,7 +16,7 @@ import {
   prepareRao,
   significantAmplitude,
   tabulatedMomentSeries,
-  type RaoTable,
+  type SkipRecords,
   type ResponseSeaSettings,
   type SeaPartitionSeries,
 } from '../response';
@@ -43,50 +43,38 @@ export function totalHs(partitions: readonly { hsM: number }[]): number {
   return Math.sqrt(e);
 }
 
-const tableIds = new WeakMap<RaoTable, number>();
-let nextTableId = 1;
-function tableId(t: RaoTable): number {
-  let id = tableIds.get(t);
-  if (id === undefined) {
-    id = nextTableId++;
-    tableIds.set(t, id);
+/** Moments m0, m2 of one response per record, in buffers kept per thread (fresh memory costs more than the work). */
+let scratchM0 = new Float64Array(0);
+let scratchM2 = new Float64Array(0);
+
+function momentScratch(n: number): { m0: Float64Array; m2: Float64Array } {
+  if (scratchM0.length < n) {
+    scratchM0 = new Float64Array(n);
+    scratchM2 = new Float64Array(n);
   }
-  return id;
+  return { m0: scratchM0.subarray(0, n), m2: scratchM2.subarray(0, n) };
 }
 
-interface MomentSeries {
-  m0: Float64Array;
-  m2: Float64Array;
-}
-const momentCache = new WeakMap<SeaPartitionSeries[], Map<string, MomentSeries>>();
-
-/** Moments of one response per record of the partition series (cached per series, vessel, heading and settings). */
-function momentSeries(
-  parts: SeaPartitionSeries[],
-  raos: RaoTable,
-  headingDeg: number,
+/**
+ * Works the moments of one response over the series into the thread's scratch buffers (NaN
+ * throughout when the vessel has no RAO for it); `skip` as in tabulatedMomentSeries. The buffers
+ * are overwritten by the next call.
+ */
+function momentsInto(
+  parts: readonly SeaPartitionSeries[],
+  vessel: NonNullable<OperationSpec['vessel']>,
   settings: ResponseSeaSettings,
   name: string,
-): MomentSeries {
-  let perSeries = momentCache.get(parts);
-  if (!perSeries) {
-    perSeries = new Map();
-    momentCache.set(parts, perSeries);
-  }
-  const key = `${tableId(raos)}|${headingDeg}|${settings.windSeaGamma}|${settings.swellGamma}|${settings.windSeaSpreading}|${settings.swellSpreading}|${name}`;
-  const hit = perSeries.get(key);
-  if (hit) return hit;
-  const rao = prepareRao(raos);
-  const n = parts.length ? parts[0].hsM.length : 0;
-  const m0 = new Float64Array(n);
-  const m2 = new Float64Array(n);
+  n: number,
+  skip: SkipRecords | null,
+): { m0: Float64Array; m2: Float64Array } {
+  const out = momentScratch(n);
+  const rao = prepareRao(vessel.raos);
   if (!rao.amplitudes[name]) {
-    m0.fill(NaN);
-    m2.fill(NaN);
-  } else tabulatedMomentSeries(rao, name, headingDeg, parts, settings, m0, m2);
-  const value = { m0, m2 };
-  perSeries.set(key, value);
-  return value;
+    out.m0.fill(NaN);
+    out.m2.fill(NaN);
+  } else tabulatedMomentSeries(rao, name, vessel.headingDeg, parts, settings, out.m0, out.m2, skip);
+  return out;
 }
 
 /** Per response limit of the operation, its statistic per record (NaN: no data), and the total Hs per record. */
@@ -103,9 +91,11 @@ export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limit
   const n = series.timeMs.length;
   const parts = series.responsePartitions;
   const hsTotal = new Float64Array(n);
+  const values = limits.map(() => new Float64Array(n));
   if (!parts || parts.length === 0 || !op.vessel) {
     hsTotal.fill(NaN);
-    return { values: limits.map(() => new Float64Array(n).fill(NaN)), hsTotal };
+    for (const v of values) v.fill(NaN);
+    return { values, hsTotal };
   }
   for (const p of parts) {
     const hs = p.hsM;
@@ -113,16 +103,62 @@ export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limit
   }
   for (let i = 0; i < n; i++) hsTotal[i] = Math.sqrt(hsTotal[i]);
   const settings = responseSettings(op.limits.responseSea);
-  const values = limits.map((l) => {
-    const ms = momentSeries(parts, op.vessel!.raos, op.vessel!.headingDeg, settings, l.response);
-    const out = new Float64Array(n);
-    const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
-    const { m0, m2 } = ms;
-    if (l.statistic === 'significant') for (let i = 0; i < n; i++) out[i] = significantAmplitude(m0[i]);
-    else for (let i = 0; i < n; i++) out[i] = mostProbableMaximum(m0[i], m2[i], d);
-    return out;
-  });
+  // One moment pass per response named, for every limit on it.
+  for (const name of new Set(limits.map((l) => l.response))) {
+    const { m0, m2 } = momentsInto(parts, op.vessel, settings, name, n, null);
+    limits.forEach((l, r) => {
+      if (l.response !== name) return;
+      const out = values[r];
+      const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
+      if (l.statistic === 'significant') for (let i = 0; i < n; i++) out[i] = significantAmplitude(m0[i]);
+      else for (let i = 0; i < n; i++) out[i] = mostProbableMaximum(m0[i], m2[i], d);
+    });
+  }
   return { values, hsTotal };
+}
+
+/**
+ * The status pass of the response limits (docs/domain.md#vessel-response): raises each record's
+ * class `cls` (0 met, 1 met at OPLIM only, 2 broken, `noData` no data) by the operation's
+ * response limits, as {@link responseClass} classes a value; a record without its response's data
+ * becomes `noData`. A record already broken or without data keeps its class unless its response
+ * data is missing, so its response is not worked (the class could not rise further).
+ */
+export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: CompiledLimits, cls: Uint8Array, noData: number): void {
+  const n = cls.length;
+  const parts = series.responsePartitions;
+  if (!parts || parts.length === 0 || !op.vessel) {
+    cls.fill(noData);
+    return;
+  }
+  const settings = responseSettings(op.limits.responseSea);
+  const skip: SkipRecords = { classes: cls, from: 2 };
+  const tmp = new Float64Array(2);
+  const hsOf = parts.map((p) => p.hsM);
+  const np = hsOf.length;
+  // Alpha is linear between its table's columns and held beyond them, so never below the row's
+  // least value: a response at or under that share of its limit is met at OPWF whatever Hs_eq.
+  const alphaLeast = Math.min(1, ...(c.alphaRow ?? [1]));
+  for (const l of c.responses) {
+    const { m0, m2 } = momentsInto(parts, op.vessel, settings, l.response, n, skip);
+    const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
+    const significant = l.statistic === 'significant';
+    const surelyMet = alphaLeast * l.max;
+    for (let i = 0; i < n; i++) {
+      const a = m0[i];
+      if (a !== a || m2[i] !== m2[i]) {
+        cls[i] = noData;
+        continue;
+      }
+      if (cls[i] >= 2) continue;
+      const value = significant ? significantAmplitude(a) : mostProbableMaximum(a, m2[i], d);
+      if (value <= surelyMet) continue;
+      let e = 0;
+      for (let q = 0; q < np; q++) e += hsOf[q][i] * hsOf[q][i];
+      const k = responseClass(c, value, l.max, Math.sqrt(e), tmp);
+      if (k > cls[i]) cls[i] = k;
+    }
+  }
 }
 
 /**

@@ -12,8 +12,9 @@
  * sum over the frequency grid.
  *
  * The table (MOMENT_GRID): ln Tp every 0.01 (1 %) from TP_MIN_S to TP_MAX_S, theta every 1 deg
- * all round (360 wraps to 0), bilinear in (ln Tp, theta). Nodes are worked lazily on first use (NaN
- * marks a node not yet worked; a theta row is allocated on first use), since a series touches a
+ * all round (360 wraps to 0), read bilinearly: linear in Tp between its two nodes (the interval
+ * found by a lookup, not a logarithm) and in theta. Nodes are worked lazily on first use (NaN
+ * marks a node not yet worked; a Tp node's row is allocated on first use), since a series touches a
  * small part of the table. Gamma:
  *  - a fixed gamma (swell, or a wind sea of fixed gamma): one layer at that gamma;
  *  - the DNV rule (gamma 1-5): layers at 5 Chebyshev-Lobatto nodes in s = ln gamma over
@@ -25,8 +26,8 @@
  *    a0 = N / (16 S); with a0_k = N_k / (16 S_k) stored per node that is
  *    a0 = sum_k L_k(s) S_k a0_k / sum_k L_k(s) S_k. At gamma 1 and 5 (both nodes) it is exact.
  *    The coefficients are kept in float32 and the sum divided by their sum.
- * The largest error against the direct integration measured by the tests is 0.2 % (from the
- * steps in ln Tp, which also the record path through the hour chain reads).
+ * The largest error against the direct integration measured by the tests is 0.25 % (from the
+ * steps in Tp, which also the record path through the hour chain reads).
  * Long-crested partitions, a table of one period, and a Tp outside TP_MIN_S-TP_MAX_S keep the
  * direct integration (a linear table in theta would be several per cent out near an RAO's zero
  * when the sea is long-crested). Tests hold m0 and m2 within 0.5 % of the direct
@@ -71,6 +72,58 @@ const DNV_RULE_MAX = Math.exp(5.75 - 1.15 * 3.6);
 /** Values per node and layer: a0, a2. */
 const V = 2;
 
+/**
+ * The Tp axis of the tables of one ln Tp step: the nodes' periods, the inverse widths of their
+ * intervals, and a uniform lookup (cells no wider than the narrowest interval, so a cell holds at
+ * most one node) that finds a period's interval without a logarithm.
+ */
+interface TpAxis {
+  nodeS: Float64Array;
+  invWidth: Float64Array;
+  cellInv: number;
+  cellNode: Int32Array;
+}
+
+const axes = new Map<number, TpAxis>();
+
+function tpAxis(lnTpStep: number): TpAxis {
+  const hit = axes.get(lnTpStep);
+  if (hit) return hit;
+  const nodes = Math.floor(Math.log(TP_MAX_S / TP_MIN_S) / lnTpStep) + 1;
+  const nodeS = Float64Array.from({ length: nodes }, (_, i) => TP_MIN_S * Math.exp(i * lnTpStep));
+  const invWidth = new Float64Array(nodes);
+  for (let i = 0; i + 1 < nodes; i++) invWidth[i] = 1 / (nodeS[i + 1] - nodeS[i]);
+  // The narrowest interval is the first; a cell a little narrower still.
+  const cellS = 0.999 * (nodeS[1] - nodeS[0]);
+  const cellNode = new Int32Array(Math.ceil((nodeS[nodes - 1] - TP_MIN_S) / cellS) + 1);
+  for (let c = 0, i = 0; c < cellNode.length; c++) {
+    const start = TP_MIN_S + c * cellS;
+    while (i + 1 < nodes && nodeS[i + 1] <= start) i++;
+    cellNode[c] = i;
+  }
+  const axis = { nodeS, invWidth, cellInv: 1 / cellS, cellNode };
+  axes.set(lnTpStep, axis);
+  return axis;
+}
+
+/**
+ * The interval of a peak period on the axis: its lower node (-1 outside Tp_0 <= Tp < Tp_last, or
+ * a missing Tp) and, into `frac[0]`, the fraction of the interval, linear in Tp.
+ */
+function tpInterval(axis: TpAxis, tpS: number, frac: Float64Array): number {
+  const c = Math.floor((tpS - TP_MIN_S) * axis.cellInv);
+  const cells = axis.cellNode;
+  if (!(c >= 0 && c < cells.length)) return -1;
+  const nodeS = axis.nodeS;
+  let i = cells[c];
+  // Rounding in the cell's index may put the period a node either side.
+  if (tpS < nodeS[i] && i > 0) i--;
+  else if (tpS >= nodeS[i + 1]) i++;
+  if (!(tpS >= nodeS[i] && i + 1 < nodeS.length)) return -1;
+  frac[0] = (tpS - nodeS[i]) * axis.invWidth[i];
+  return i;
+}
+
 /** One moment table; see the module comment. */
 export interface MomentTable {
   rao: PreparedRao;
@@ -78,6 +131,7 @@ export interface MomentTable {
   spreading: Spreading;
   grid: MomentGrid;
   tpNodes: number;
+  tpAxis: TpAxis;
   thetaNodes: number;
   /** Per layer: its gamma, normalised weights and unnormalised sum. */
   gammas: Float64Array;
@@ -86,10 +140,12 @@ export interface MomentTable {
   /** ln gamma of the layers and the Lagrange denominators (DNV rule only). */
   lnGammas: Float64Array;
   lagrangeDen: Float64Array;
-  /** Per Tp node, the grid periods' positions on the spread table (the same for every theta row). */
+  /** Per Tp node, the grid periods' positions on the spread table (the same for every theta node). */
   positions: (Float64Array | undefined)[];
-  /** Per theta node: [tpNode][layer][a0, a2], NaN until worked. */
+  /** Per Tp node: [thetaNode][layer][a0, a2], NaN until worked (a record's neighbours in time share Tp nodes). */
   rows: (Float64Array | undefined)[];
+  /** Per cell [thetaNode * tpNodes + tpNode]: 1 once its four corner nodes are worked (series path). */
+  cells: Uint8Array;
   /** Coefficients of the layers for the last gamma asked for. */
   lastGamma: number;
   coef: Float32Array;
@@ -131,13 +187,15 @@ export function createMomentTable(
     for (let m = 0; m < layers; m++) if (m !== k) d *= lnGammas[k] - lnGammas[m];
     lagrangeDen[k] = d;
   }
-  const tpNodes = Math.floor(Math.log(TP_MAX_S / TP_MIN_S) / grid.lnTpStep) + 1;
+  const axis = tpAxis(grid.lnTpStep);
+  const tpNodes = axis.nodeS.length;
   return {
     rao,
     name,
     spreading,
     grid,
     tpNodes,
+    tpAxis: axis,
     thetaNodes: 360 / grid.thetaStepDeg,
     gammas,
     weights: Array.from(gammas, (g) => jonswapWeights(g)),
@@ -146,6 +204,7 @@ export function createMomentTable(
     lagrangeDen,
     positions: new Array<Float64Array | undefined>(tpNodes),
     rows: new Array<Float64Array | undefined>(360 / grid.thetaStepDeg),
+    cells: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
     lastGamma: NaN,
     coef: new Float32Array(layers),
     single: -1,
@@ -178,12 +237,12 @@ export function momentTableFor(
 
 const H2 = new Float64Array(GRID_POINTS);
 
-/** Works node (tp node i, theta node k) of every layer into `row`. */
+/** Works node (tp node i, theta node k) of every layer into `row` (Tp node i's). */
 function workNode(t: MomentTable, row: Float64Array, i: number, k: number): void {
   let q = t.positions[i];
   if (!q) {
     t.positions[i] = q = new Float64Array(GRID_POINTS);
-    spreadPositions(t.rao, t.name, t.spreading, TP_MIN_S * Math.exp(i * t.grid.lnTpStep), q);
+    spreadPositions(t.rao, t.name, t.spreading, t.tpAxis.nodeS[i], q);
   }
   spreadAtGrid(t.rao, t.name, t.spreading, k * t.grid.thetaStepDeg, q, H2);
   const layers = t.gammas.length;
@@ -197,15 +256,15 @@ function workNode(t: MomentTable, row: Float64Array, i: number, k: number): void
       a0 += e;
       a2 += e * x * x;
     }
-    const o = (i * layers + l) * V;
+    const o = (k * layers + l) * V;
     row[o] = a0;
     row[o + 1] = a2;
   }
 }
 
-function rowOf(t: MomentTable, k: number): Float64Array {
-  let row = t.rows[k];
-  if (!row) t.rows[k] = row = new Float64Array(t.tpNodes * t.gammas.length * V).fill(NaN);
+function rowOf(t: MomentTable, i: number): Float64Array {
+  let row = t.rows[i];
+  if (!row) t.rows[i] = row = new Float64Array(t.thetaNodes * t.gammas.length * V).fill(NaN);
   return row;
 }
 
@@ -253,17 +312,18 @@ function layerCoefficients(t: MomentTable, gamma: number): boolean {
   return true;
 }
 
+const FRAC = new Float64Array(1);
+
 /**
  * Per-unit-Hs moments of one partition from the table into `out` [a0, a2] (m0 = Hs^2 a0,
  * m2 = Hs^2 omega_p^2 a2); false, with `out` untouched, when Tp or gamma is outside the table.
  * `thetaDeg` is the mean relative direction, any real number (taken modulo 360).
  */
 export function momentTableLookup(t: MomentTable, tpS: number, thetaDeg: number, gamma: number, out: Float64Array): boolean {
-  const u = Math.log(tpS / TP_MIN_S) / t.grid.lnTpStep;
-  const i = Math.floor(u);
-  if (!(i >= 0 && i < t.tpNodes - 1)) return false;
+  const i = tpInterval(t.tpAxis, tpS, FRAC);
+  if (i < 0) return false;
   if (!layerCoefficients(t, gamma)) return false;
-  readTable(t, i, u - i, thetaDeg, t.single, t.coef, 0, out);
+  readTable(t, i, FRAC[0], thetaDeg, t.single, t.coef, 0, out);
   return true;
 }
 
@@ -294,15 +354,16 @@ function readTable(
   const fv = v - k;
   if (k >= thetaNodes) k -= thetaNodes;
   const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-  const rowA = t.rows[k] ?? rowOf(t, k);
-  const rowB = t.rows[k1] ?? rowOf(t, k1);
+  const rowLo = t.rows[i] ?? rowOf(t, i);
+  const rowHi = t.rows[i + 1] ?? rowOf(t, i + 1);
   const layers = t.gammas.length;
-  const oA = i * layers * V;
-  const oB = oA + layers * V;
-  if (rowA[oA] !== rowA[oA]) workNode(t, rowA, i, k);
-  if (rowA[oB] !== rowA[oB]) workNode(t, rowA, i + 1, k);
-  if (rowB[oA] !== rowB[oA]) workNode(t, rowB, i, k1);
-  if (rowB[oB] !== rowB[oB]) workNode(t, rowB, i + 1, k1);
+  // Theta nodes k and k1 within the rows of Tp nodes i and i + 1.
+  const oA = k * layers * V;
+  const oB = k1 * layers * V;
+  if (rowLo[oA] !== rowLo[oA]) workNode(t, rowLo, i, k);
+  if (rowHi[oA] !== rowHi[oA]) workNode(t, rowHi, i + 1, k);
+  if (rowLo[oB] !== rowLo[oB]) workNode(t, rowLo, i, k1);
+  if (rowHi[oB] !== rowHi[oB]) workNode(t, rowHi, i + 1, k1);
   const wAA = (1 - fu) * (1 - fv);
   const wBA = fu * (1 - fv);
   const wAB = (1 - fu) * fv;
@@ -310,8 +371,8 @@ function readTable(
   if (single >= 0 || coef === null) {
     const pA = oA + (single > 0 ? single * V : 0);
     const pB = oB + (single > 0 ? single * V : 0);
-    out[0] = wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB];
-    out[1] = wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1];
+    out[0] = wAA * rowLo[pA] + wBA * rowHi[pA] + wAB * rowLo[pB] + wBB * rowHi[pB];
+    out[1] = wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1];
     return;
   }
   let a0 = 0;
@@ -323,8 +384,8 @@ function readTable(
     cs += cl;
     const pA = oA + l * V;
     const pB = oB + l * V;
-    a0 += cl * (wAA * rowA[pA] + wBA * rowA[pB] + wAB * rowB[pA] + wBB * rowB[pB]);
-    a2 += cl * (wAA * rowA[pA + 1] + wBA * rowA[pB + 1] + wAB * rowB[pA + 1] + wBB * rowB[pB + 1]);
+    a0 += cl * (wAA * rowLo[pA] + wBA * rowHi[pA] + wAB * rowLo[pB] + wBB * rowHi[pB]);
+    a2 += cl * (wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1]);
   }
   // Divided by the coefficients' sum, which float32 leaves a few 1e-8 off 1 (an RAO of 1 gives
   // m0 = Hs^2/16 exactly again).
@@ -377,8 +438,8 @@ export function addPartitionMoments(
 ): boolean {
   const hs = p.hsM;
   if (hs === 0) return true;
+  if (partitionMissing(p, settings)) return false;
   const gamma = partitionGamma(p, settings);
-  if (!(hs > 0) || !(p.tpS > 0) || p.dirDeg !== p.dirDeg || gamma !== gamma) return false;
   const h2 = hs * hs;
   const theta = p.dirDeg - vesselHeadingDeg;
   if (table && momentTableLookup(table, p.tpS, theta, gamma, UNIT)) {
@@ -393,6 +454,17 @@ export function addPartitionMoments(
   acc[1] += one.m2;
   acc[2] += one.m0Outside;
   return true;
+}
+
+/**
+ * True when a partition of Hs other than 0 misses what its spectrum needs (Hs, Tp, direction or
+ * gamma): the record is "no data" (docs/domain.md#vessel-response).
+ */
+export function partitionMissing(p: SeaPartition, settings: ResponseSeaSettings): boolean {
+  const hs = p.hsM;
+  if (hs === 0) return false;
+  const gamma = partitionGamma(p, settings);
+  return !(hs > 0) || !(p.tpS > 0) || p.dirDeg !== p.dirDeg || gamma !== gamma;
 }
 
 const ACC = new Float64Array(3);
@@ -425,104 +497,141 @@ export function tabulatedResponseMoments(
   return out;
 }
 
-/**
- * What a partition series needs for every table of its kind, worked once per series and gamma
- * rule: per record the Tp node (-1: outside the tables or missing, so the record is integrated
- * directly) and its fraction, and the gamma layers' coefficients (DNV rule only).
- */
-interface SeriesPrep {
-  tpNode: Int32Array;
-  tpFrac: Float64Array;
-  /** [record * layers + layer]; null for a fixed gamma (one layer, coefficient 1). */
-  coef: Float32Array | null;
-  /** Per record, the one layer its coefficients pick, or -1 (DNV rule only). */
-  single: Int8Array | null;
-}
-
-const preps = new WeakMap<SeaPartitionSeries, Map<string, SeriesPrep>>();
-
-function seriesPrep(p: SeaPartitionSeries, t: MomentTable, settings: ResponseSeaSettings): SeriesPrep {
-  let perSeries = preps.get(p);
-  if (!perSeries) preps.set(p, (perSeries = new Map()));
-  const dnv = p.kind === 'windSea' && settings.windSeaGamma === 'dnv';
-  const key = `${t.grid.lnTpStep}|${t.gammas.length}|${dnv ? 'dnv' : 'fixed'}`;
-  const hit = perSeries.get(key);
-  if (hit) return hit;
-  const n = p.hsM.length;
-  const layers = t.gammas.length;
-  const tpNode = new Int32Array(n);
-  const tpFrac = new Float64Array(n);
-  const coef = dnv ? new Float32Array(n * layers) : null;
-  const single = dnv ? new Int8Array(n) : null;
-  const step = t.grid.lnTpStep;
-  const lnDnvMax = t.lnGammas[layers - 1];
-  for (let i = 0; i < n; i++) {
-    const u = Math.log(p.tpS[i] / TP_MIN_S) / step;
-    let node = Math.floor(u);
-    if (!(node >= 0 && node < t.tpNodes - 1)) node = -1;
-    if (coef && node >= 0) {
-      // The DNV rule in s = ln gamma: 5.75 - 1.15 r, held at ln 5 (r <= 3.6) and 0 (r >= 5).
-      const hs = p.hsM[i];
-      const r = p.tpS[i] / Math.sqrt(hs);
-      if (!(hs >= 0)) node = -1;
-      // At the band's ends one layer (the array starts at 0), as lagrangeInto gives it.
-      else if (r <= 3.6) {
-        coef[i * layers + layers - 1] = 1;
-        single![i] = layers - 1;
-      } else if (r >= 5) {
-        coef[i * layers] = 1;
-        single![i] = 0;
-      } else single![i] = lagrangeInto(t, Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, i * layers);
-    }
-    tpNode[i] = node;
-    tpFrac[i] = u - node;
-  }
-  const prep = { tpNode, tpFrac, coef, single };
-  perSeries.set(key, prep);
-  return prep;
-}
-
 const REC: SeaPartition = { kind: 'windSea', hsM: 0, tpS: 0, dirDeg: 0 };
 
+/** Works the four corner nodes of cell (tp node i, theta nodes k, k1) if not yet, and marks the cell. */
+function workCell(t: MomentTable, i: number, k: number, k1: number): void {
+  const rowLo = rowOf(t, i);
+  const rowHi = rowOf(t, i + 1);
+  const layers = t.gammas.length;
+  const oA = k * layers * V;
+  const oB = k1 * layers * V;
+  if (rowLo[oA] !== rowLo[oA]) workNode(t, rowLo, i, k);
+  if (rowHi[oA] !== rowHi[oA]) workNode(t, rowHi, i + 1, k);
+  if (rowLo[oB] !== rowLo[oB]) workNode(t, rowLo, i, k1);
+  if (rowHi[oB] !== rowHi[oB]) workNode(t, rowHi, i + 1, k1);
+  t.cells[k * t.tpNodes + i] = 1;
+}
+
+/** Records a series pass leaves out: `classes[i] >= from` (see {@link tabulatedMomentSeries}). */
+export interface SkipRecords {
+  classes: Uint8Array;
+  from: number;
+}
+
 /**
- * The table part of {@link tabulatedMomentSeries} for one partition series (kept small, so that it
- * is compiled quickly): adds each record's moments from the table, and lists in `pending` the
- * records the table does not cover (outside it or missing data).
+ * The table part of {@link tabulatedMomentSeries} for one partition series: adds each record's
+ * moments from the table with the record path's arithmetic (readTable, lagrangeInto), worked in
+ * the loop rather than kept per record (fresh memory costs more here than a logarithm), with one
+ * check per cell instead of four per node. Lists in `pending` the records the table does not
+ * cover (Tp outside it, missing data); leaves out the records `skip` names.
  */
 function addFromTableSeries(
   tab: MomentTable,
-  prep: SeriesPrep,
   p: SeaPartitionSeries,
+  dnv: boolean,
   vesselHeadingDeg: number,
   m0: Float64Array,
   m2: Float64Array,
   pending: number[],
+  skip: SkipRecords | null,
 ): void {
   const { hsM, tpS, dirDeg } = p;
-  const { tpNode, tpFrac, coef, single } = prep;
   const layers = tab.gammas.length;
+  const stride = layers * V;
+  const thetaNodes = tab.thetaNodes;
+  const tpNodes = tab.tpNodes;
+  const axis = tab.tpAxis;
+  const frac = new Float64Array(1);
+  const thetaStep = tab.grid.thetaStepDeg;
+  const lnDnvMax = tab.lnGammas[layers - 1];
+  const cells = tab.cells;
+  const rows = tab.rows;
+  const coef = LAYER_COEF.length >= layers ? LAYER_COEF : new Float32Array(layers);
+  const skipClasses = skip ? skip.classes : null;
+  const skipFrom = skip ? skip.from : 0;
   const n = m0.length;
-  const unit = new Float64Array(V);
   for (let i = 0; i < n; i++) {
     const hs = hsM[i];
     if (hs === 0) continue;
-    const node = tpNode[i];
-    if (node < 0 || !(hs > 0) || dirDeg[i] !== dirDeg[i]) {
+    const tp = tpS[i];
+    if (skipClasses !== null && skipClasses[i] >= skipFrom) {
+      // Left out: only missing data matters (the record loop marks it).
+      if (!(hs > 0 && tp > 0 && dirDeg[i] === dirDeg[i])) pending.push(i);
+      continue;
+    }
+    const node = tpInterval(axis, tp, frac);
+    if (!(node >= 0 && hs > 0 && dirDeg[i] === dirDeg[i])) {
       pending.push(i);
       continue;
     }
-    readTable(tab, node, tpFrac[i], dirDeg[i] - vesselHeadingDeg, single ? single[i] : 0, coef, i * layers, unit);
+    // As readTable: one turn added or taken, the remainder only for the rare rest.
+    let theta = dirDeg[i] - vesselHeadingDeg;
+    if (theta < 0) theta += 360;
+    if (theta >= 360) theta -= 360;
+    if (!(theta >= 0 && theta < 360)) theta = ((theta % 360) + 360) % 360;
+    const v = theta / thetaStep;
+    let k = Math.floor(v);
+    const fv = v - k;
+    if (k >= thetaNodes) k -= thetaNodes;
+    const k1 = k + 1 === thetaNodes ? 0 : k + 1;
+    if (cells[k * tpNodes + node] === 0) workCell(tab, node, k, k1);
+    // The DNV rule in s = ln gamma: 5.75 - 1.15 r, held at ln 5 (r <= 3.6) and 0 (r >= 5); at the
+    // band's ends one layer, as lagrangeInto gives it.
+    let one = 0;
+    if (dnv) {
+      const r = tp / Math.sqrt(hs);
+      one = r <= 3.6 ? layers - 1 : r >= 5 ? 0 : lagrangeInto(tab, Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, 0);
+    }
+    const rowLo = rows[node]!;
+    const rowHi = rows[node + 1]!;
+    const fu = frac[0];
+    const wAA = (1 - fu) * (1 - fv);
+    const wBA = fu * (1 - fv);
+    const wAB = (1 - fu) * fv;
+    const wBB = fu * fv;
+    const oA = k * stride;
+    const oB = k1 * stride;
+    let a0: number;
+    let a2: number;
+    if (one >= 0) {
+      const pA = oA + one * V;
+      const pB = oB + one * V;
+      a0 = wAA * rowLo[pA] + wBA * rowHi[pA] + wAB * rowLo[pB] + wBB * rowHi[pB];
+      a2 = wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1];
+    } else {
+      a0 = 0;
+      a2 = 0;
+      let cs = 0;
+      for (let l = 0; l < layers; l++) {
+        const cl = coef[l];
+        if (cl === 0) continue;
+        cs += cl;
+        const pA = oA + l * V;
+        const pB = oB + l * V;
+        a0 += cl * (wAA * rowLo[pA] + wBA * rowHi[pA] + wAB * rowLo[pB] + wBB * rowHi[pB]);
+        a2 += cl * (wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1]);
+      }
+      a0 /= cs;
+      a2 /= cs;
+    }
+    // The record path's products: Hs^2 a0 and ((Hs^2 omega_p) omega_p) a2.
     const h2 = hs * hs;
-    const wp = (2 * Math.PI) / tpS[i];
-    m0[i] += h2 * unit[0];
-    m2[i] += h2 * wp * wp * unit[1];
+    const wp = (2 * Math.PI) / tp;
+    m0[i] += h2 * a0;
+    m2[i] += h2 * wp * wp * a2;
   }
 }
+
+/** Layer coefficients of one record (float32, as the record path keeps them). */
+const LAYER_COEF = new Float32Array(16);
 
 /**
  * Moments of one response per record of a partition series into m0 and m2 (filled), as
  * {@link tabulatedResponseMoments} gives them record by record (the same tables, the same
  * arithmetic), one partition after the other: a record missing any partition's data is NaN.
+ * Records that `skip` names (`classes[i] >= from`: the status path's records already broken or
+ * without data) are only checked for missing data: NaN there, else left at 0.
  */
 export function tabulatedMomentSeries(
   rao: PreparedRao,
@@ -532,38 +641,39 @@ export function tabulatedMomentSeries(
   settings: ResponseSeaSettings,
   m0: Float64Array,
   m2: Float64Array,
+  skip: SkipRecords | null = null,
 ): void {
   if (!rao.amplitudes[name]) throw new RangeError(`the vessel has no RAO for ${name}`);
   m0.fill(0);
   m2.fill(0);
   const n = m0.length;
   const acc = new Float64Array(3);
+  const pending: number[] = [];
   for (const p of parts) {
     const t = momentTableFor(rao, name, p.kind, settings);
-    let pending: number[] | null = null;
-    if (t) {
-      pending = [];
-      addFromTableSeries(t, seriesPrep(p, t, settings), p, vesselHeadingDeg, m0, m2, pending);
-    }
+    pending.length = 0;
+    if (t) addFromTableSeries(t, p, p.kind === 'windSea' && settings.windSeaGamma === 'dnv', vesselHeadingDeg, m0, m2, pending, skip);
     // Outside the table, long-crested or missing: record by record, as tabulatedResponseMoments.
-    const count = pending ? pending.length : n;
+    const count = t ? pending.length : n;
     for (let r = 0; r < count; r++) {
-      const i = pending ? pending[r] : r;
+      const i = t ? pending[r] : r;
       const hs = p.hsM[i];
       if (hs === 0) continue;
       REC.kind = p.kind;
       REC.hsM = hs;
       REC.tpS = p.tpS[i];
       REC.dirDeg = p.dirDeg[i];
-      acc[0] = 0;
-      acc[1] = 0;
-      if (addPartitionMoments(rao, name, vesselHeadingDeg, REC, settings, t, acc, false)) {
-        m0[i] += acc[0];
-        m2[i] += acc[1];
-      } else {
+      if (partitionMissing(REC, settings)) {
         m0[i] = NaN;
         m2[i] = NaN;
+        continue;
       }
+      if (skip && skip.classes[i] >= skip.from) continue;
+      acc[0] = 0;
+      acc[1] = 0;
+      addPartitionMoments(rao, name, vesselHeadingDeg, REC, settings, t, acc, false);
+      m0[i] += acc[0];
+      m2[i] += acc[1];
     }
   }
 }

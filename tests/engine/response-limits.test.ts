@@ -11,6 +11,8 @@ import {
 } from '../../shared/engine';
 import { explainHour } from '../../shared/engine/explain-hour';
 import type { RaoTable } from '../../shared/response';
+import { mulberry32 } from '../../bench/lib/random';
+import { DEMO_VESSELS } from '../../seed/demo-vessels';
 import { makeSeries } from './series-factory';
 
 // Heave RAO 1 everywhere: R_s = Hs/2 (heave follows the surface; docs/domain.md#vessel-response).
@@ -131,5 +133,70 @@ describe('response limits in the engine (docs/domain.md#vessel-response)', () =>
     const unknown = hour([{ kind: 'windSea', hsM: 1.2, tpS: NaN, dirDeg: 30 }]);
     expect(unknown.significant).toBeNull();
     expect(unknown.partitions).toEqual([{ kind: 'windSea', hsM: 1.2, tpS: null, dirDeg: 30, share: null }]);
+  });
+
+  it('the status pass gives what record-by-record classing gives (evaluateHours), though it leaves out work it need not do', () => {
+    // evaluateStatus works no response for a record already broken or without data, and no alpha
+    // where R is at or under the alpha row's least share of R_lim; evaluateHours classes every
+    // record in full. A wind sea and a swell with Hs 0, missing values and Tp outside the tables.
+    const n = 3000;
+    const rnd = mulberry32(20261204);
+    const hs = Array.from({ length: n }, () => 0.2 + 3.5 * rnd() ** 2);
+    const s = makeSeries({ hsM: hs, tpS: hs.map((h) => 4 + 2 * h + rnd()), windMps: hs.map((h) => 3 + 4 * h * rnd()) });
+    const part = (kind: 'windSea' | 'swell', share: number, tp: () => number, dir: () => number) => ({
+      kind,
+      hsM: Float64Array.from(hs, (h, i) => (i % 211 === 0 ? NaN : i % 101 === 0 ? 0 : share * h)),
+      tpS: Float64Array.from(hs, (_, i) => (i % 307 === 0 ? 45 : i % 401 === 0 ? NaN : tp())),
+      dirDeg: Float64Array.from(hs, (_, i) => (i % 503 === 0 ? NaN : dir())),
+    });
+    s.responsePartitions = [
+      part(
+        'windSea',
+        0.8,
+        () => 3 + 6 * rnd(),
+        () => 200 + 60 * rnd(),
+      ),
+      part(
+        'swell',
+        0.6,
+        () => 10 + 6 * rnd(),
+        () => 250 + 30 * rnd(),
+      ),
+    ];
+    const vessel = (key: 'ctv' | 'layBarge', headingDeg: number) => ({ raos: DEMO_VESSELS.find((v) => v.key === key)!.raos, headingDeg });
+    const ops = [
+      op(
+        { hsMax: 1.5, windMax: 9, responses: [{ response: 'roll_deg_per_m', statistic: 'mpm', durationH: 3, max: 6 }] },
+        vessel('ctv', 180),
+      ),
+      op(
+        {
+          tpMax: 12,
+          responses: [
+            { response: 'roll_deg_per_m', statistic: 'mpm', max: 4 },
+            { response: 'pitch_deg_per_m', statistic: 'significant', max: 1 },
+          ],
+        },
+        vessel('layBarge', 300),
+      ),
+      op(
+        { hsMax: 2.5, responses: [{ response: 'vel_z_m_s_per_m@lay_chute', statistic: 'significant', max: 0.4 }] },
+        vessel('layBarge', 90),
+      ),
+    ];
+    const seen = new Set<number>();
+    for (const alpha of [true, false]) {
+      for (const o of ops) {
+        const fast = evaluateStatus(s, o, { alphaTable: DEFAULT_ALPHA_TABLE, alpha });
+        const full = evaluateHours(s, o, { alphaTable: DEFAULT_ALPHA_TABLE, alpha }).status;
+        expect(Array.from(fast)).toEqual(Array.from(full));
+        // The responses decide some records: without them the statuses differ.
+        const bare = evaluateStatus(s, { ...o, limits: { ...o.limits, responses: [] } }, { alphaTable: DEFAULT_ALPHA_TABLE, alpha });
+        expect(fast.some((v, i) => v !== bare[i])).toBe(true);
+        fast.forEach((v) => seen.add(v));
+      }
+    }
+    // Every status occurs, no data included.
+    expect([...seen].sort()).toEqual([STATUS.NO_DATA, STATUS.NOT_WORKABLE, STATUS.MARGINAL, STATUS.WORKABLE].sort());
   });
 });
