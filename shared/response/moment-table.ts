@@ -136,6 +136,8 @@ export interface MomentTable {
   /** Per layer: its gamma, normalised weights and unnormalised sum. */
   gammas: Float64Array;
   weights: Float64Array[];
+  /** The weights times x_j^2 (the m2 sums). */
+  weightsX2: Float64Array[];
   shapeSums: Float64Array;
   /** ln gamma of the layers and the Lagrange denominators (DNV rule only). */
   lnGammas: Float64Array;
@@ -189,6 +191,7 @@ export function createMomentTable(
   }
   const axis = tpAxis(grid.lnTpStep);
   const tpNodes = axis.nodeS.length;
+  const weights = Array.from(gammas, (g) => jonswapWeights(g));
   return {
     rao,
     name,
@@ -198,7 +201,8 @@ export function createMomentTable(
     tpAxis: axis,
     thetaNodes: 360 / grid.thetaStepDeg,
     gammas,
-    weights: Array.from(gammas, (g) => jonswapWeights(g)),
+    weights,
+    weightsX2: weights.map((w) => w.map((wj, j) => wj * GRID_X[j] * GRID_X[j])),
     shapeSums: Float64Array.from(gammas, (g) => jonswapShapeSum(g)),
     lnGammas,
     lagrangeDen,
@@ -248,13 +252,13 @@ function workNode(t: MomentTable, row: Float64Array, i: number, k: number): void
   const layers = t.gammas.length;
   for (let l = 0; l < layers; l++) {
     const w = t.weights[l];
+    const wx2 = t.weightsX2[l];
     let a0 = 0;
     let a2 = 0;
     for (let j = 0; j < GRID_POINTS; j++) {
-      const e = w[j] * H2[j];
-      const x = GRID_X[j];
-      a0 += e;
-      a2 += e * x * x;
+      const h = H2[j];
+      a0 += w[j] * h;
+      a2 += wx2[j] * h;
     }
     const o = (k * layers + l) * V;
     row[o] = a0;
