@@ -539,6 +539,7 @@ function addFromTableSeries(
   m2: Float64Array,
   pending: number[],
   skip: SkipRecords | null,
+  overwrite: boolean,
 ): void {
   const { hsM, tpS, dirDeg } = p;
   const layers = tab.gammas.length;
@@ -557,15 +558,16 @@ function addFromTableSeries(
   const n = m0.length;
   for (let i = 0; i < n; i++) {
     const hs = hsM[i];
-    if (hs === 0) continue;
     const tp = tpS[i];
-    if (skipClasses !== null && skipClasses[i] >= skipFrom) {
-      // Left out: only missing data matters (the record loop marks it).
-      if (!(hs > 0 && tp > 0 && dirDeg[i] === dirDeg[i])) pending.push(i);
+    if (hs === 0 || (skipClasses !== null && skipClasses[i] >= skipFrom)) {
+      if (overwrite) m0[i] = m2[i] = 0;
+      // Hs 0 adds nothing; a record left out matters only if data are missing (the record loop marks it).
+      if (hs !== 0 && !(hs > 0 && tp > 0 && dirDeg[i] === dirDeg[i])) pending.push(i);
       continue;
     }
     const node = tpInterval(axis, tp, frac);
     if (!(node >= 0 && hs > 0 && dirDeg[i] === dirDeg[i])) {
+      if (overwrite) m0[i] = m2[i] = 0;
       pending.push(i);
       continue;
     }
@@ -622,8 +624,13 @@ function addFromTableSeries(
     // The record path's products: Hs^2 a0 and ((Hs^2 omega_p) omega_p) a2.
     const h2 = hs * hs;
     const wp = (2 * Math.PI) / tp;
-    m0[i] += h2 * a0;
-    m2[i] += h2 * wp * wp * a2;
+    if (overwrite) {
+      m0[i] = h2 * a0;
+      m2[i] = h2 * wp * wp * a2;
+    } else {
+      m0[i] += h2 * a0;
+      m2[i] += h2 * wp * wp * a2;
+    }
   }
 }
 
@@ -648,15 +655,21 @@ export function tabulatedMomentSeries(
   skip: SkipRecords | null = null,
 ): void {
   if (!rao.amplitudes[name]) throw new RangeError(`the vessel has no RAO for ${name}`);
-  m0.fill(0);
-  m2.fill(0);
   const n = m0.length;
   const acc = new Float64Array(3);
   const pending: number[] = [];
+  let written = false;
   for (const p of parts) {
     const t = momentTableFor(rao, name, p.kind, settings);
     pending.length = 0;
-    if (t) addFromTableSeries(t, p, p.kind === 'windSea' && settings.windSeaGamma === 'dnv', vesselHeadingDeg, m0, m2, pending, skip);
+    // The first partition read from a table writes every record; else zeros first.
+    if (!written && !t) {
+      m0.fill(0);
+      m2.fill(0);
+    }
+    const overwrite = !written;
+    written = true;
+    if (t) addFromTableSeries(t, p, p.kind === 'windSea' && settings.windSeaGamma === 'dnv', vesselHeadingDeg, m0, m2, pending, skip, overwrite);
     // Outside the table, long-crested or missing: record by record, as tabulatedResponseMoments.
     const count = t ? pending.length : n;
     for (let r = 0; r < count; r++) {
@@ -679,5 +692,9 @@ export function tabulatedMomentSeries(
       m0[i] += acc[0];
       m2[i] += acc[1];
     }
+  }
+  if (!written) {
+    m0.fill(0);
+    m2.fill(0);
   }
 }
