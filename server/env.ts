@@ -2,6 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import crypto from 'node:crypto';
 import { z } from 'zod';
+import { engineNiceSchema } from './services/engine-priority';
 
 const EnvSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -59,8 +60,8 @@ const EnvSchema = z.object({
   ANSWER_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
   /** Engine worker threads for heavy computations (0 = on the API thread). Read by engine-pool.ts. */
   ENGINE_THREADS: z.coerce.number().int().min(0).max(64).default(1),
-  /** Nice value of engine threads, 0-19 (higher = lower priority than the API thread). Read by engine-priority.ts. */
-  ENGINE_NICE: z.coerce.number().int().min(0).max(19).default(10),
+  /** Nice value of engine threads, 0-19 (higher = lower priority than the API thread); the rule is engine-priority.ts's. */
+  ENGINE_NICE: engineNiceSchema,
   /** Longest a NetCDF upload may be read, ms, plus as much again per 256 MB (needs ENGINE_THREADS > 0). Read by netcdf-import.ts. */
   NETCDF_TIME_LIMIT_MS: z.coerce.number().int().min(1).default(60_000),
   /** Seed the invented demo scenario into an empty database (default on). */

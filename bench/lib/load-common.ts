@@ -303,7 +303,9 @@ export async function runPaced(
           await res.arrayBuffer();
           const took = performance.now() - start;
           latencies.push(took);
-          byName.set(r.name, [...(byName.get(r.name) ?? []), took]);
+          let list = byName.get(r.name);
+          if (!list) byName.set(r.name, (list = []));
+          list.push(took);
           if (res.status < 200 || res.status > 299) non2xx++;
         } catch {
           errors++;

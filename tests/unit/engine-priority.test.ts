@@ -5,6 +5,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import { describe, expect, it } from 'vitest';
 import { tsWorker } from '../../scripts/lib/ts-worker';
+import { loadEnv } from '../../server/env';
 import { DEFAULT_ENGINE_NICE, engineNice } from '../../server/services/engine-priority';
 
 /** Nice value of each thread of this process, by thread id. */
@@ -27,6 +28,13 @@ describe('engine thread priority', () => {
     expect(engineNice('19')).toBe(19);
     for (const bad of ['-1', '20', '2.5', 'low'])
       expect(() => engineNice(bad)).toThrow(`ENGINE_NICE must be a whole number from 0 to 19, got ${bad}`);
+  });
+
+  it('the server reads ENGINE_NICE by the same rule at start (an empty value is the default there too)', () => {
+    expect(loadEnv({ ENGINE_NICE: '' }).ENGINE_NICE).toBe(DEFAULT_ENGINE_NICE);
+    expect(loadEnv({}).ENGINE_NICE).toBe(DEFAULT_ENGINE_NICE);
+    expect(loadEnv({ ENGINE_NICE: '3' }).ENGINE_NICE).toBe(3);
+    expect(() => loadEnv({ ENGINE_NICE: '20' })).toThrow(/ENGINE_NICE/);
   });
 
   it.runIf(process.platform === 'linux')('lowers the engine worker thread only, not the thread that started it', async () => {
