@@ -23,43 +23,34 @@ export interface SessionReader {
 }
 
 export function createSessionReader(auth: Auth, ttlMs = SESSION_CACHE_MS): SessionReader {
-  const cache = new LRUCache<string, { at: number; user: SessionUser | null }>({
+  // fetch() shares a lookup under way by Cookie header: a page sends its requests together, and
+  // they share one lookup instead of each making its own (under paced load that was most of a
+  // visit's work). Emptying the cache rejects the lookups under way, so none is stored after a change.
+  const cache = new LRUCache<string, { user: SessionUser | null }, Request>({
     max: MAX_ENTRIES,
     maxSize: MAX_BYTES,
     sizeCalculation: (v, key) => key.length + 64 + (v.user ? v.user.id.length + v.user.name.length + v.user.email.length : 0),
+    ttl: Math.max(1, ttlMs),
+    fetchMethod: async (_key, _stale, { context }) => ({ user: await readSessionUser(auth, context) }),
   });
-  // Lookups under way by Cookie header: a page sends its requests together, and they share one
-  // lookup instead of each making its own (under paced load that was most of a visit's work).
-  const pending = new Map<string, Promise<SessionUser | null>>();
-  // Bumped on every forget: a lookup that started before a change is not stored after it.
+  // Bumped on every forget: a lookup the forget rejected is made again, after the change.
   let generation = 0;
   const forget = () => {
     generation++;
     cache.clear();
-    pending.clear();
   };
   return {
     read(req) {
       const key = req.headers.cookie;
       if (!key || ttlMs <= 0) return readSessionUser(auth, req);
-      const hit = cache.get(key);
-      if (hit && Date.now() - hit.at < ttlMs) return Promise.resolve(hit.user);
-      const waiting = pending.get(key);
-      if (waiting) return waiting;
       const started = generation;
-      const lookup = readSessionUser(auth, req).then(
-        (user) => {
-          if (pending.get(key) === lookup) pending.delete(key);
-          if (started === generation) cache.set(key, { at: Date.now(), user });
-          return user;
-        },
+      return cache.fetch(key, { context: req }).then(
+        (entry) => (entry ? entry.user : readSessionUser(auth, req)),
         (err: unknown) => {
-          if (pending.get(key) === lookup) pending.delete(key);
+          if (generation !== started) return readSessionUser(auth, req);
           throw err;
         },
       );
-      pending.set(key, lookup);
-      return lookup;
     },
     forgetAfterChange(req, res, next) {
       if (req.method !== 'GET' && req.method !== 'HEAD' && req.method !== 'OPTIONS') {
