@@ -669,7 +669,8 @@ export function tabulatedMomentSeries(
     }
     const overwrite = !written;
     written = true;
-    if (t) addFromTableSeries(t, p, p.kind === 'windSea' && settings.windSeaGamma === 'dnv', vesselHeadingDeg, m0, m2, pending, skip, overwrite);
+    if (t)
+      addFromTableSeries(t, p, p.kind === 'windSea' && settings.windSeaGamma === 'dnv', vesselHeadingDeg, m0, m2, pending, skip, overwrite);
     // Outside the table, long-crested or missing: record by record, as tabulatedResponseMoments.
     const count = t ? pending.length : n;
     for (let r = 0; r < count; r++) {
