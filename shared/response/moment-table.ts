@@ -358,16 +358,13 @@ function readTable(
   const fv = v - k;
   if (k >= thetaNodes) k -= thetaNodes;
   const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-  const rowLo = t.rows[i] ?? rowOf(t, i);
-  const rowHi = t.rows[i + 1] ?? rowOf(t, i + 1);
+  if (t.cells[k * t.tpNodes + i] === 0) workCell(t, i, k, k1);
+  const rowLo = t.rows[i]!;
+  const rowHi = t.rows[i + 1]!;
   const layers = t.gammas.length;
   // Theta nodes k and k1 within the rows of Tp nodes i and i + 1.
   const oA = k * layers * V;
   const oB = k1 * layers * V;
-  if (rowLo[oA] !== rowLo[oA]) workNode(t, rowLo, i, k);
-  if (rowHi[oA] !== rowHi[oA]) workNode(t, rowHi, i + 1, k);
-  if (rowLo[oB] !== rowLo[oB]) workNode(t, rowLo, i, k1);
-  if (rowHi[oB] !== rowHi[oB]) workNode(t, rowHi, i + 1, k1);
   const wAA = (1 - fu) * (1 - fv);
   const wBA = fu * (1 - fv);
   const wAB = (1 - fu) * fv;
@@ -379,6 +376,32 @@ function readTable(
     out[1] = wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1];
     return;
   }
+  CORNERS[0] = wAA;
+  CORNERS[1] = wBA;
+  CORNERS[2] = wAB;
+  CORNERS[3] = wBB;
+  layerSum(rowLo, rowHi, oA, oB, CORNERS, coef, at, layers, out);
+}
+
+/** Bilinear weights of the four corners: (Tp i, theta k), (i + 1, k), (i, k1), (i + 1, k1). */
+const CORNERS = new Float64Array(4);
+
+/**
+ * The layers' bilinear reads (corner weights w) weighted by coef[at..] into out [a0, a2], divided
+ * by the coefficients' sum, which float32 leaves a few 1e-8 off 1 (an RAO of 1 gives m0 = Hs^2/16
+ * exactly again). Shared by the record and the series paths (DNV gamma inside its band).
+ */
+function layerSum(
+  rowLo: Float64Array,
+  rowHi: Float64Array,
+  oA: number,
+  oB: number,
+  w: Float64Array,
+  coef: Float32Array,
+  at: number,
+  layers: number,
+  out: Float64Array,
+): void {
   let a0 = 0;
   let a2 = 0;
   let cs = 0;
@@ -388,11 +411,9 @@ function readTable(
     cs += cl;
     const pA = oA + l * V;
     const pB = oB + l * V;
-    a0 += cl * (wAA * rowLo[pA] + wBA * rowHi[pA] + wAB * rowLo[pB] + wBB * rowHi[pB]);
-    a2 += cl * (wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1]);
+    a0 += cl * (w[0] * rowLo[pA] + w[1] * rowHi[pA] + w[2] * rowLo[pB] + w[3] * rowHi[pB]);
+    a2 += cl * (w[0] * rowLo[pA + 1] + w[1] * rowHi[pA + 1] + w[2] * rowLo[pB + 1] + w[3] * rowHi[pB + 1]);
   }
-  // Divided by the coefficients' sum, which float32 leaves a few 1e-8 off 1 (an RAO of 1 gives
-  // m0 = Hs^2/16 exactly again).
   out[0] = a0 / cs;
   out[1] = a2 / cs;
 }
@@ -606,20 +627,13 @@ function addFromTableSeries(
       a0 = wAA * rowLo[pA] + wBA * rowHi[pA] + wAB * rowLo[pB] + wBB * rowHi[pB];
       a2 = wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1];
     } else {
-      a0 = 0;
-      a2 = 0;
-      let cs = 0;
-      for (let l = 0; l < layers; l++) {
-        const cl = coef[l];
-        if (cl === 0) continue;
-        cs += cl;
-        const pA = oA + l * V;
-        const pB = oB + l * V;
-        a0 += cl * (wAA * rowLo[pA] + wBA * rowHi[pA] + wAB * rowLo[pB] + wBB * rowHi[pB]);
-        a2 += cl * (wAA * rowLo[pA + 1] + wBA * rowHi[pA + 1] + wAB * rowLo[pB + 1] + wBB * rowHi[pB + 1]);
-      }
-      a0 /= cs;
-      a2 /= cs;
+      CORNERS[0] = wAA;
+      CORNERS[1] = wBA;
+      CORNERS[2] = wAB;
+      CORNERS[3] = wBB;
+      layerSum(rowLo, rowHi, oA, oB, CORNERS, coef, 0, layers, SUM);
+      a0 = SUM[0];
+      a2 = SUM[1];
     }
     // The record path's products: Hs^2 a0 and ((Hs^2 omega_p) omega_p) a2.
     const h2 = hs * hs;
@@ -633,6 +647,9 @@ function addFromTableSeries(
     }
   }
 }
+
+/** The layers' sums of one record. */
+const SUM = new Float64Array(2);
 
 /** Layer coefficients of one record (float32, as the record path keeps them). */
 const LAYER_COEF = new Float32Array(16);
