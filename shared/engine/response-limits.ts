@@ -139,24 +139,29 @@ export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: C
   // Alpha is linear between its table's columns and held beyond them, so never below the row's
   // least value: a response at or under that share of its limit is met at OPWF whatever Hs_eq.
   const alphaLeast = Math.min(1, ...(c.alphaRow ?? [1]));
-  for (const l of c.responses) {
-    const { m0, m2 } = momentsInto(parts, op.vessel, settings, l.response, n, skip);
-    const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
-    const significant = l.statistic === 'significant';
-    const surelyMet = alphaLeast * l.max;
-    for (let i = 0; i < n; i++) {
-      const a = m0[i];
-      if (a !== a || m2[i] !== m2[i]) {
-        cls[i] = noData;
-        continue;
+  // One moment pass per response named, for every limit on it (a record left out then is broken
+  // or without data, and stays so).
+  for (const name of new Set(c.responses.map((l) => l.response))) {
+    const { m0, m2 } = momentsInto(parts, op.vessel, settings, name, n, skip);
+    for (const l of c.responses) {
+      if (l.response !== name) continue;
+      const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
+      const significant = l.statistic === 'significant';
+      const surelyMet = alphaLeast * l.max;
+      for (let i = 0; i < n; i++) {
+        const a = m0[i];
+        if (a !== a || m2[i] !== m2[i]) {
+          cls[i] = noData;
+          continue;
+        }
+        if (cls[i] >= 2) continue;
+        const value = significant ? significantAmplitude(a) : mostProbableMaximum(a, m2[i], d);
+        if (value <= surelyMet) continue;
+        let e = 0;
+        for (let q = 0; q < np; q++) e += hsOf[q][i] * hsOf[q][i];
+        const k = responseClass(c, value, l.max, Math.sqrt(e), tmp);
+        if (k > cls[i]) cls[i] = k;
       }
-      if (cls[i] >= 2) continue;
-      const value = significant ? significantAmplitude(a) : mostProbableMaximum(a, m2[i], d);
-      if (value <= surelyMet) continue;
-      let e = 0;
-      for (let q = 0; q < np; q++) e += hsOf[q][i] * hsOf[q][i];
-      const k = responseClass(c, value, l.max, Math.sqrt(e), tmp);
-      if (k > cls[i]) cls[i] = k;
     }
   }
 }

@@ -207,7 +207,7 @@ export function createMomentTable(
     lnGammas,
     lagrangeDen,
     positions: new Array<Float64Array | undefined>(tpNodes),
-    rows: new Array<Float64Array | undefined>(360 / grid.thetaStepDeg),
+    rows: new Array<Float64Array | undefined>(tpNodes),
     cells: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
     lastGamma: NaN,
     coef: new Float32Array(layers),

@@ -175,6 +175,8 @@ describe('response limits in the engine (docs/domain.md#vessel-response)', () =>
           responses: [
             { response: 'roll_deg_per_m', statistic: 'mpm', max: 4 },
             { response: 'pitch_deg_per_m', statistic: 'significant', max: 1 },
+            // A second limit on the same response (its moments are worked once for both).
+            { response: 'roll_deg_per_m', statistic: 'significant', max: 1.6 },
           ],
         },
         vessel('layBarge', 300),
