@@ -84,71 +84,117 @@ export function createStatusManyScratch(length: number): StatusManyScratch {
   return { missing: new Int32Array(length), broken: new Int32Array(length), marginal: new Int32Array(length) };
 }
 
-/** Thresholds of one value, ascending, with the OR of the bits of every threshold up to each (index 0: none). */
+/**
+ * Thresholds of one value, ascending, with the OR of the bits of every threshold up to each (index
+ * 0: none), and a bucket index over the thresholds' range: a value finds how many thresholds lie
+ * below it in about one step instead of a walk through all of them (see {@link countBelow}).
+ */
 interface AboveList {
   thr: Float64Array;
   /** cum[j]: bits of thresholds 0..j-1 (a value above j thresholds sets cum[j]). */
   cumBroken: Int32Array;
   cumMarginal: Int32Array;
+  /** Bucket of a value: bucketOf(x, lo, scale, last). */
+  lo: number;
+  scale: number;
+  last: number;
+  /** first[b]: thresholds whose bucket is before b (each below every value in bucket b). */
+  first: Int32Array;
+}
+
+/** Buckets per threshold (the index stays small: at most MAX_BUCKETS). */
+const BUCKETS_PER_THRESHOLD = 64;
+const MAX_BUCKETS = 4096;
+
+/**
+ * The bucket of x, 0..last: (x - lo) * scale truncated, clamped; NaN in bucket 0. Non-decreasing
+ * in x (each step rounds monotonically), so a threshold in an earlier bucket than x is below x,
+ * and one in a later bucket is above it.
+ */
+function bucketOf(x: number, lo: number, scale: number, last: number): number {
+  const b = (x - lo) * scale;
+  return b >= last ? last : b > 0 ? b | 0 : 0;
+}
+
+/**
+ * How many thresholds lie strictly below x (NaN: none), as a walk from the first would count
+ * them: the thresholds of earlier buckets, then a walk through those of x's own bucket only.
+ */
+function countBelow(a: AboveList, x: number): number {
+  const thr = a.thr;
+  const m = thr.length;
+  let j = a.first[bucketOf(x, a.lo, a.scale, a.last)];
+  while (j < m && x > thr[j]) j++;
+  return j;
 }
 
 function aboveList(entries: { thr: number; broken: number; marginal: number }[]): AboveList {
   entries.sort((a, b) => a.thr - b.thr);
+  const m = entries.length;
   const thr = Float64Array.from(entries, (e) => e.thr);
-  const cumBroken = new Int32Array(entries.length + 1);
-  const cumMarginal = new Int32Array(entries.length + 1);
-  for (let j = 0; j < entries.length; j++) {
+  const cumBroken = new Int32Array(m + 1);
+  const cumMarginal = new Int32Array(m + 1);
+  for (let j = 0; j < m; j++) {
     cumBroken[j + 1] = cumBroken[j] | entries[j].broken;
     cumMarginal[j + 1] = cumMarginal[j] | entries[j].marginal;
   }
-  return { thr, cumBroken, cumMarginal };
+  // Buckets over [thr[0], thr[m - 1]], and one more for every value above the last threshold.
+  let lo = 0;
+  let scale = 0;
+  let last = 0;
+  if (m > 0) {
+    const span = thr[m - 1] - thr[0];
+    lo = thr[0];
+    last = span > 0 && Number.isFinite(span) ? Math.min(MAX_BUCKETS, BUCKETS_PER_THRESHOLD * m) : 1;
+    scale = span > 0 && Number.isFinite(span) ? (last - 1) / span : 1;
+  }
+  const first = new Int32Array(last + 1);
+  for (let j = 0; j < m; j++) {
+    const b = bucketOf(thr[j], lo, scale, last);
+    if (b < last) first[b + 1]++;
+  }
+  for (let b = 0; b < last; b++) first[b + 1] += first[b];
+  return { thr, cumBroken, cumMarginal, lo, scale, last, first };
 }
 
 /** An Hs-Tp curve operation: its bit and its curve, prepared as evaluateStatus prepares it. */
 interface CurveOp {
   bit: number;
   curve: PreparedCurve;
-  /** Per distinct Tp (see curveTable); empty when the series' distinct Tp values are not given. */
-  outside: Uint8Array;
-  lim: Float64Array;
-  opwf: Float64Array;
 }
 
-const EMPTY_U8 = new Uint8Array(0);
 const EMPTY_F64 = new Float64Array(0);
 const EMPTY_I32 = new Int32Array(0);
 
 function curveOp(bit: number, c: CompiledLimits): CurveOp {
-  return { bit, curve: prepareCurve(c), outside: EMPTY_U8, lim: EMPTY_F64, opwf: EMPTY_F64 };
+  return { bit, curve: prepareCurve(c) };
 }
 
 /**
- * curveClass's terms per distinct Tp (keys): 1 in `outside` where the Tp is outside the curve's
- * range, else OPLIM in `lim` and OPWF (OPLIM * alpha) in `opwf`, the same numbers curveClass
- * computes for that Tp; so a record's class takes two look-ups instead of the interpolations.
+ * The curves' terms per distinct Tp (keys), written at [c * keys.length + k] for curve c and key k,
+ * so that a record's class takes two comparisons (curveClass, the same numbers): where the key is
+ * inside the curve's range, `lim` holds OPLIM clamped to [sureOk, the curve's highest Hs] and `opwf`
+ * OPLIM * alpha raised to sureOk; then a record above `lim` breaks the limit and one above `opwf`
+ * only meets it at OPLIM, exactly as curveClass finds (the clamps stand for its two shortcuts).
+ * A key outside the range sets the curve's bit in `outsideBits` (a broken limit for any Hs).
  */
-function curveTable(p: CurveOp, keys: Float64Array): void {
+function curveTables(curves: CurveOp[], keys: Float64Array, lim: Float64Array, opwf: Float64Array, outsideBits: Int32Array): void {
   const m = keys.length;
-  p.outside = new Uint8Array(m);
-  p.lim = new Float64Array(m);
-  p.opwf = new Float64Array(m);
-  const curve = p.curve;
-  for (let k = 0; k < m; k++) {
-    const t = keys[k];
-    if (t < curve.tp0 || t > curve.tpN) p.outside[k] = 1;
-    else {
-      const lim = curveLimit(curve, t);
-      p.lim[k] = lim;
-      p.opwf[k] = lim * curveAlpha(curve, lim);
+  curves.forEach((p, c) => {
+    const curve = p.curve;
+    for (let k = 0; k < m; k++) {
+      const t = keys[k];
+      if (t < curve.tp0 || t > curve.tpN) {
+        outsideBits[k] |= p.bit;
+        lim[c * m + k] = -Infinity;
+        opwf[c * m + k] = -Infinity;
+      } else {
+        const l = curveLimit(curve, t);
+        lim[c * m + k] = Math.max(Math.min(l, curve.hsMax), curve.sureOk);
+        opwf[c * m + k] = Math.max(l * curveAlpha(curve, l), curve.sureOk);
+      }
     }
-  }
-}
-
-/** curveClass of a record whose Tp is keys[id] (curveTable), from the table. */
-function curveClassTabled(p: CurveOp, h: number, id: number): number {
-  if (p.outside[id] === 1 || h > p.curve.hsMax) return 2;
-  if (h <= p.curve.sureOk) return 0;
-  return (h > p.opwf[id] ? 1 : 0) + (h > p.lim[id] ? 1 : 0);
+  });
 }
 
 /** One group of up to 32 operations, compiled into per-value threshold lists. */
@@ -236,11 +282,24 @@ function compileGroup(compiled: CompiledLimits[]): Group {
 }
 
 /**
+ * The bits a Tp value breaks in a group (Tp maximums, Tp minimums, excluded bands), as maskPass
+ * finds them per record.
+ */
+function tpBrokenBits(g: Group, x: number): number {
+  let brk = g.tpAbove.cumBroken[countBelow(g.tpAbove, x)];
+  brk |= g.tpBelow.cumBroken[countBelow(g.tpBelow, -x)];
+  for (let k = 0; k < g.bandFrom.length; k++) if (x >= g.bandFrom[k] && x <= g.bandTo[k]) brk |= g.bandBit[k];
+  return brk;
+}
+
+/**
  * Every record of a group against every threshold in one pass (Hs, Tp maximums, Tp minimums and
  * bands, both bed velocities, wind, then each Hs-Tp curve), setting one bit per operation in three
  * masks: a needed value missing, a limit broken, an Hs limit met at OPLIM only. Each value is
- * compared with the sorted thresholds of every operation at once (the count of thresholds below
- * it indexes the OR of their bits). One loop of fixed shape for every mix of operations, so the
+ * compared with the sorted thresholds of every operation at once: the count of thresholds below
+ * it (found through the list's bucket index, countBelow) indexes the OR of their bits. Where the
+ * series' distinct Tp values are given, the Tp limits' bits and the curves' terms are worked once
+ * per distinct value and looked up. One loop of fixed shape for every mix of operations, so the
  * JIT compiles it once; the masks are written once per record.
  */
 function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch, tp: DistinctTp | undefined): void {
@@ -255,21 +314,15 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch,
   const needLin = g.needLin;
   const needSoul = g.needSoul;
   const needWind = g.needWind;
+  // Each list's thresholds, bits and bucket index in locals (countBelow written out in the loop).
   const hsT = g.hs.thr;
   const hsB = g.hs.cumBroken;
   const hsM = g.hs.cumMarginal;
   const mHs = hsT.length;
-  const taT = g.tpAbove.thr;
-  const taB = g.tpAbove.cumBroken;
-  const mTa = taT.length;
-  const tbT = g.tpBelow.thr;
-  const tbB = g.tpBelow.cumBroken;
-  const mTb = tbT.length;
-  const bandFrom = g.bandFrom;
-  const bandTo = g.bandTo;
-  const bandBit = g.bandBit;
-  const nb = bandFrom.length;
-  const tpLow = mTb > 0 || nb > 0;
+  const hsF = g.hs.first;
+  const hsLo = g.hs.lo;
+  const hsSc = g.hs.scale;
+  const hsLast = g.hs.last;
   const lT = g.lin.thr;
   const lB = g.lin.cumBroken;
   const mL = lT.length;
@@ -279,35 +332,34 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch,
   const wT = g.wind.thr;
   const wB = g.wind.cumBroken;
   const mW = wT.length;
+  const wF = g.wind.first;
+  const wLo = g.wind.lo;
+  const wSc = g.wind.scale;
+  const wLast = g.wind.last;
+  const tpLimited = needTp !== 0 || g.tpBelow.thr.length > 0 || g.bandFrom.length > 0;
   const curves = g.curves;
   const nc = curves.length;
-  // Curves by table where the distinct Tp values are given (a record whose Tp is not its key's
-  // value, or that has none, takes curveClass itself).
-  const tpIds = tp !== undefined && nc > 0 && tp.ids.length >= n ? tp.ids : EMPTY_I32;
+  // Per distinct Tp: the bits the Tp limits and the curves' ranges break (tpBits) and the curves'
+  // terms (curveTables). A record whose Tp is not its key's value, or that has none, is worked
+  // directly, as evaluateStatus works it.
+  const tpIds = tp !== undefined && (tpLimited || nc > 0) && tp.ids.length >= n ? tp.ids : EMPTY_I32;
   const tpKeys = tpIds.length > 0 ? (tp as DistinctTp).keys : EMPTY_F64;
-  if (tpIds.length > 0) for (const p of curves) curveTable(p, tpKeys);
+  const nKeys = tpKeys.length;
+  const tpBits = new Int32Array(nKeys);
+  const cLim = new Float64Array(nc * nKeys);
+  const cOpwf = new Float64Array(nc * nKeys);
+  const cBit = Int32Array.from(curves, (p) => p.bit);
+  if (tpLimited) for (let k = 0; k < nKeys; k++) tpBits[k] = tpBrokenBits(g, tpKeys[k]);
+  if (nKeys > 0) curveTables(curves, tpKeys, cLim, cOpwf, tpBits);
   for (let i = 0; i < n; i++) {
     let x = hsV[i];
-    let j = 0;
+    let b = (x - hsLo) * hsSc;
+    let j = hsF[b >= hsLast ? hsLast : b > 0 ? b | 0 : 0];
     while (j < mHs && x > hsT[j]) j++;
     let miss = x !== x ? needHs : 0;
     let brk = hsB[j];
     let mar = hsM[j];
-    if (needTp !== 0) {
-      x = tpV[i];
-      j = 0;
-      while (j < mTa && x > taT[j]) j++;
-      if (x !== x) miss |= needTp;
-      brk |= taB[j];
-    }
-    if (tpLow) {
-      x = tpV[i];
-      const y = -x;
-      j = 0;
-      while (j < mTb && y > tbT[j]) j++;
-      brk |= tbB[j];
-      for (let k = 0; k < nb; k++) if (x >= bandFrom[k] && x <= bandTo[k]) brk |= bandBit[k];
-    }
+    const h = x;
     if (needLin !== 0) {
       x = linV[i];
       j = 0;
@@ -324,18 +376,29 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch,
     }
     if (needWind !== 0) {
       x = windV[i];
-      j = 0;
+      b = (x - wLo) * wSc;
+      j = wF[b >= wLast ? wLast : b > 0 ? b | 0 : 0];
       while (j < mW && x > wT[j]) j++;
       if (x !== x) miss |= needWind;
       brk |= wB[j];
     }
+    // Tp limits and curves: by the distinct Tp's tables where the record's Tp is its key's value.
     const tpId = tpIds.length > 0 ? tpIds[i] : -1;
-    const tabled = tpId >= 0 && tpKeys[tpId] === tpV[i];
-    for (let c = 0; c < nc; c++) {
-      const p = curves[c];
-      const k = tabled ? curveClassTabled(p, hsV[i], tpId) : curveClass(p.curve, hsV[i], tpV[i]);
-      if (k === 2) brk |= p.bit;
-      else if (k === 1) mar |= p.bit;
+    if (tpId >= 0 && tpKeys[tpId] === tpV[i]) {
+      brk |= tpBits[tpId];
+      for (let c = 0, o = tpId; c < nc; c++, o += nKeys) {
+        if (h > cLim[o]) brk |= cBit[c];
+        else if (h > cOpwf[o]) mar |= cBit[c];
+      }
+    } else {
+      x = tpV[i];
+      if (x !== x) miss |= needTp;
+      if (tpLimited) brk |= tpBrokenBits(g, x);
+      for (let c = 0; c < nc; c++) {
+        const k = curveClass(curves[c].curve, h, x);
+        if (k === 2) brk |= cBit[c];
+        else if (k === 1) mar |= cBit[c];
+      }
     }
     missing[i] = miss;
     broken[i] = brk;

@@ -507,6 +507,7 @@ function backwardPassGrouped(
 }
 
 const EMPTY = new Int32Array(0);
+const EMPTY_U32 = new Uint32Array(0);
 
 const oneStepCache = new WeakMap<Float64Array, { stepMs: number; oneStep: boolean }>();
 
@@ -564,6 +565,10 @@ function backwardPassOneStep(
   const n = status.length;
   const rFirst = ramps.first;
   const rLength = ramps.length;
+  // Stretches are scanned four records at a time where the status buffer allows 32-bit reads.
+  const words = status.byteOffset % 4 === 0 ? new Uint32Array(status.buffer, status.byteOffset, n >>> 2) : EMPTY_U32;
+  // Every record is written 0 here and only the go-starts 1 below.
+  goStart.fill(0, 0, n);
   let nR = 0;
   let next = -1;
   let firstCensored = n;
@@ -587,6 +592,12 @@ function backwardPassOneStep(
       // The stretch [j, i] of equal status, within the year-month.
       const st = status[i];
       let j = i;
+      while (j > lo && (j & 3) !== 0 && status[j - 1] === st) j--;
+      if ((j & 3) === 0 && j - 4 >= lo && words.length > 0) {
+        // Whole words of four equal codes, then the rest one by one.
+        const four = st * 0x01010101;
+        while (j - 4 >= lo && words[(j >>> 2) - 1] === four) j -= 4;
+      }
       while (j > lo && status[j - 1] === st) j--;
       const c = i - j + 1;
       let gc = 0;
@@ -598,8 +609,8 @@ function backwardPassOneStep(
         workable += c;
       } else run = 0;
       if (st !== NO_DATA) withData += c;
-      for (let k = j; k < j + gc; k++) goStart[k] = 1;
-      for (let k = j + gc; k <= i; k++) goStart[k] = 0;
+      if (gc > 16) goStart.fill(1, j, j + gc);
+      else for (let k = j; k < j + gc; k++) goStart[k] = 1;
       // The records after the go-starts (back from i): they extend the open ramp, or open one.
       const rest = c - gc;
       if (rest > 0) {

@@ -71,4 +71,22 @@ describe('statistics of a series of one step: the shortcut equals the general pa
       { numRuns: 40 },
     );
   });
+  it('status buffers at any byte offset (stretches are read four records at a time only where aligned)', () => {
+    fc.assert(
+      fc.property(statusesArb(120), fc.integer({ min: 0, max: 7 }), fc.integer({ min: 1, max: 48 }), (codes, shift, trH) => {
+        const n = codes.length;
+        const status = new Uint8Array(n + shift).subarray(shift);
+        status.set(codes);
+        const timeMs = Float64Array.from({ length: n }, (_, i) => Date.UTC(2003, 5, 17) + i * HOUR);
+        const calendar = calendarIndex(timeMs, 'UTC');
+        const found = new Uint8Array(n).fill(9);
+        const reference = new Uint8Array(n).fill(9);
+        expect(monthlyStatisticsWithGoStarts(timeMs, status, found, HOUR, calendar, trH)).toEqual(
+          monthlyStatisticsGeneralPath(timeMs, codes, reference, HOUR, calendar, trH),
+        );
+        expect(Array.from(found)).toEqual(Array.from(reference));
+      }),
+      { numRuns: 80 },
+    );
+  });
 });

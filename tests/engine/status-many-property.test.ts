@@ -19,7 +19,7 @@ import {
   type SiteSeries,
 } from '../../shared/engine';
 import { HOUR, T0, makeSeries } from './series-factory';
-import { aroundEdges as around, operationArb, round2, velocityArb as vel } from './limit-arbitraries';
+import { aroundEdges as around, limitsArb, operationArb, round2, velocityArb as vel } from './limit-arbitraries';
 
 const opArb = operationArb([0, 1, 6, 24]);
 
@@ -130,6 +130,39 @@ describe('evaluateStatusMany equals the general path, evaluateStatus', () => {
         },
       ),
       { numRuns: 200 },
+    );
+  });
+
+  it('Hs-Tp curves and Tp limits by distinct Tp on a grid of every edge: curve points, between them, outside, at OPWF and OPLIM', () => {
+    fc.assert(
+      fc.property(limitsArb, fc.boolean(), fc.constantFrom(3, 12, 36, 72), (limits, alpha, tpopH) => {
+        const op: OperationSpec = { tpopH, tcH: 6, weatherRestricted: true, limits };
+        const curve = limits.hsTpCurve ?? [];
+        const tpGrid = [
+          ...curve.flatMap(([t], k) => [t, t - 0.01, t + 0.01, k > 0 ? (t + curve[k - 1][0]) / 2 : t - 1]),
+          ...(limits.tpExcluded ?? []).flat(),
+          limits.tpMin ?? 4,
+          limits.tpMax ?? 14,
+          2,
+          25,
+          NaN,
+        ];
+        // Hs at each curve point, a hair either side, at its OPWF for every alpha row, and beyond.
+        const hsGrid = [
+          ...curve.flatMap(([, h]) => [h, h - 1e-9, h + 1e-9, h * 0.6, h * 0.65, h * 0.7, h * 0.76, h * 0.8]),
+          limits.hsMax ?? 1,
+          0.05,
+          9,
+          NaN,
+        ];
+        const cells = tpGrid.flatMap((tp) => hsGrid.map((hs) => ({ tp, hs })));
+        const series = makeSeries({ hsM: cells.map((c) => c.hs), tpS: cells.map((c) => c.tp), windMps: cells.map(() => 5) });
+        const keys = [...new Set(tpGrid.filter((t) => t === t))];
+        const tpDistinct = { ids: Int32Array.from(series.tpS, (t) => keys.indexOf(t)), keys: Float64Array.from(keys) };
+        const [many] = evaluateStatusMany(series, [op], { alpha, alphaTable: DEFAULT_ALPHA_TABLE, tpDistinct });
+        expect(Array.from(many)).toEqual(Array.from(evaluateStatus(series, op, { alpha, alphaTable: DEFAULT_ALPHA_TABLE })));
+      }),
+      { numRuns: 300 },
     );
   });
 
