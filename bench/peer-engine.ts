@@ -1,6 +1,7 @@
 // The work `npm run bench:peer` times on our side: transform the data point's series to each
 // worksite, hourly status of every operation there, then every monthly and year-month statistic;
-// on the main thread or on worker threads, each taking an equal share of the (worksite, operation) pairs.
+// on the main thread, or on worker threads that split each worksite's records (transform, status)
+// and its operations (statistics) between them.
 import type { Worker } from 'node:worker_threads';
 import { tsWorker } from '../scripts/lib/ts-worker';
 import {
@@ -11,6 +12,7 @@ import {
   detectStepMs,
   evaluateStatusMany,
   monthlyStatisticsWithGoStarts,
+  type CalendarIndex,
   type OperationSpec,
   type SiteSeries as EngineSeries,
   type StatisticsScratch,
@@ -47,106 +49,149 @@ export interface StageTimes {
 }
 
 /**
+ * One thread's share of a run, and what the threads share. Worksite by worksite, thread `worker`
+ * of `workers` transforms records [lo, hi) and evaluates their status for every operation (both are
+ * record by record), writing the codes into `status`; after a barrier it works the statistics of
+ * the operations o with o % workers === worker over the whole series. Two sets of status buffers
+ * (by worksite parity) let a thread start the next worksite while another still reads the last.
+ */
+export interface RunShare {
+  worker: number;
+  workers: number;
+  /** sets x operations x records status codes (sets: 2 with several threads, else 1). */
+  status: Uint8Array<ArrayBufferLike>;
+  /** Barrier counter (several threads only), set to 0 before each run. */
+  barrier: Int32Array | null;
+}
+
+/**
  * Buffers one thread keeps from run to run, as a server's engine worker keeps its workspace:
- * the worksite series, the status arrays and the statistics' scratch.
+ * one worksite's series for its records, the statistics' scratch and the status scratch.
  */
 interface RunBuffers {
   n: number;
-  sites: TransformedSeries[];
-  statuses: Uint8Array[][];
+  part: number;
+  site: TransformedSeries;
+  tzS: Float64Array;
   goStart: Uint8Array;
   scratch: StatisticsScratch;
   statusScratch: StatusManyScratch;
+  /** The status codes on one thread (operations x records); threads share theirs (RunShare). */
+  status: Uint8Array<ArrayBufferLike>;
 }
 
 let buffers: RunBuffers | null = null;
 
-function runBuffers(n: number, sites: number, ops: number): RunBuffers {
-  if (!buffers || buffers.n !== n) {
+function runBuffers(n: number, part: number): RunBuffers {
+  if (!buffers || buffers.n !== n || buffers.part !== part) {
     buffers = {
       n,
-      sites: [],
-      statuses: [],
+      part,
+      site: createSiteSeries(part),
+      tzS: new Float64Array(part),
       goStart: new Uint8Array(n),
       scratch: createStatisticsScratch(n),
-      statusScratch: createStatusManyScratch(n),
+      statusScratch: createStatusManyScratch(part),
+      status: new Uint8Array(0),
     };
   }
-  while (buffers.sites.length < sites) buffers.sites.push(createSiteSeries(n));
-  while (buffers.statuses.length < sites) buffers.statuses.push([]);
-  for (const list of buffers.statuses) while (list.length < ops) list.push(new Uint8Array(n));
   return buffers;
 }
 
-/** A share of the work: (worksite, operation) pairs as worksite * operations + operation, ascending. */
-export type PairList = number[];
+/** The records of share `worker` of `workers`: equal parts, each starting on a 64-record boundary. */
+export function shareRange(n: number, worker: number, workers: number): [number, number] {
+  const at = (w: number) => (w >= workers ? n : Math.min(n, Math.floor((n * w) / workers / 64) * 64));
+  return [at(worker), at(worker + 1)];
+}
 
-/** Every (worksite, operation) pair. */
-export function allPairs(input: HindcastInput): PairList {
-  return Array.from({ length: input.sites.length * input.operations.length }, (_, k) => k);
+/** Waits until every thread has arrived at barrier `round` (1, 2, ... within a run); gives up after a minute. */
+function barrier(counter: Int32Array, workers: number, round: number): void {
+  const target = round * workers;
+  if (Atomics.add(counter, 0, 1) + 1 === target) {
+    Atomics.notify(counter, 0);
+    return;
+  }
+  const until = Date.now() + 60_000;
+  for (let v = Atomics.load(counter, 0); v < target; v = Atomics.load(counter, 0)) {
+    if (Date.now() > until || Atomics.wait(counter, 0, v, 60_000) === 'timed-out')
+      throw new Error(`peer bench: a thread did not reach barrier ${round}`);
+  }
 }
 
 /**
- * Transform, status and statistics of the given (worksite, operation) pairs (all when omitted), one
- * stage after the other, as the workability service does it: the data point's distinct values found
- * once for every worksite, only the fields the engine reads transformed, the status of a worksite's
- * operations in one evaluateStatusMany call, one calendar for the series, buffers reused from run
- * to run. `clock` times the stages (ms; default wall time).
+ * Transform, status and statistics, one worksite after the other, as the workability service does
+ * it: the data point's distinct values found once for every worksite, only the fields the engine
+ * reads transformed, the status of a worksite's operations in one evaluateStatusMany call, one
+ * calendar for the series, buffers reused from run to run. On one thread (the default share) every
+ * record and operation; see {@link RunShare} for a thread's part. `clock` times the stages (ms;
+ * default wall time), each stage's time summed over the worksites; a thread's wait at the barrier
+ * counts in its status time.
  */
 export function runHindcastAllSites(
   input: HindcastInput,
-  pairs: PairList = allPairs(input),
+  share: RunShare = { worker: 0, workers: 1, status: new Uint8Array(0), barrier: null },
   clock: () => number = () => performance.now(),
 ): StageTimes {
   const n = input.timeMs.length;
   const nOps = input.operations.length;
-  const indices = [...new Set(pairs.map((p) => Math.floor(p / nOps)))];
-  const opsOf = indices.map((s) => pairs.filter((p) => Math.floor(p / nOps) === s).map((p) => p % nOps));
-  const buf = runBuffers(n, indices.length, nOps);
+  const [lo, hi] = shareRange(n, share.worker, share.workers);
+  const buf = runBuffers(n, hi - lo);
+  const sets = share.workers > 1 ? 2 : 1;
+  if (share.status.length < sets * nOps * n && buf.status.length < sets * nOps * n) buf.status = new Uint8Array(sets * nOps * n);
+  const status = share.status.length >= sets * nOps * n ? share.status : buf.status;
+  const codes = (set: number, o: number) => status.subarray((set * nOps + o) * n, (set * nOps + o + 1) * n);
+  const mine = input.operations.map((_, o) => o).filter((o) => o % share.workers === share.worker);
   const t0 = clock();
-  const tzS = new Float64Array(n).fill(NaN); // no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8)
-  const sea = { hsM: input.hs, tpS: input.tp, tzS, dirDeg: input.dir };
-  const prepared = prepareSeaInput(sea);
-  const transformed = indices.map((s, k) =>
-    transformToSite(sea, { depthM: input.sourceDepthM }, input.sites[s], { out: buf.sites[k], fields: 'engine', prepared }),
-  );
-  const t1 = clock();
-  const series: EngineSeries[] = transformed.map((t) => ({
-    timeMs: input.timeMs,
-    hsM: t.hsM,
-    tpS: input.tp,
-    bedVelocityLinearMps: t.bedVelocityLinearMps,
-    bedVelocitySoulsbyMps: t.bedVelocitySoulsbyMps,
-    windMps: input.wind,
-  }));
-  const statuses = series.map((s, k) =>
-    evaluateStatusMany(
-      s,
-      opsOf[k].map((o) => input.operations[o]),
-      {
-        alphaTable: DEFAULT_ALPHA_TABLE,
-        out: buf.statuses[k],
-        scratch: buf.statusScratch,
-        // The data point's distinct periods, found once by the transform stage (every worksite has its Tp).
-        tpDistinct: { ids: prepared.tpIds, keys: prepared.tpKeys },
-      },
-    ),
-  );
-  const t2 = clock();
+  let transform = 0;
+  let statusMs = 0;
+  let statistics = 0;
   let checksum = 0;
-  const stepMs = detectStepMs(input.timeMs);
-  const calendar = calendarIndex(input.timeMs, 'UTC');
-  series.forEach((s, k) => {
-    opsOf[k].forEach((o, j) => {
+  // This share's records of the data point; no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8).
+  const tzS = buf.tzS.fill(NaN);
+  const sea = { hsM: input.hs.subarray(lo, hi), tpS: input.tp.subarray(lo, hi), tzS, dirDeg: input.dir.subarray(lo, hi) };
+  const prepared = prepareSeaInput(sea);
+  let t = clock();
+  transform += t - t0;
+  let calendar: CalendarIndex | null = null;
+  let stepMs = 0;
+  input.sites.forEach((site, k) => {
+    const set = k % sets;
+    transformToSite(sea, { depthM: input.sourceDepthM }, site, { out: buf.site, fields: 'engine', prepared });
+    const t1 = clock();
+    transform += t1 - t;
+    const series: EngineSeries = {
+      timeMs: input.timeMs.subarray(lo, hi),
+      hsM: buf.site.hsM,
+      tpS: sea.tpS,
+      bedVelocityLinearMps: buf.site.bedVelocityLinearMps,
+      bedVelocitySoulsbyMps: buf.site.bedVelocitySoulsbyMps,
+      windMps: input.wind.subarray(lo, hi),
+    };
+    evaluateStatusMany(series, input.operations, {
+      alphaTable: DEFAULT_ALPHA_TABLE,
+      out: input.operations.map((_, o) => codes(set, o).subarray(lo, hi)),
+      scratch: buf.statusScratch,
+      // The data point's distinct periods, found once by the transform stage (every worksite has its Tp).
+      tpDistinct: { ids: prepared.tpIds, keys: prepared.tpKeys },
+    });
+    if (share.barrier) barrier(share.barrier, share.workers, k + 1);
+    const t2 = clock();
+    statusMs += t2 - t1;
+    if (calendar === null) {
+      stepMs = detectStepMs(input.timeMs);
+      calendar = calendarIndex(input.timeMs, 'UTC');
+    }
+    for (const o of mine) {
       const op = input.operations[o];
-      const r = monthlyStatisticsWithGoStarts(s.timeMs, statuses[k][j], buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
+      const r = monthlyStatisticsWithGoStarts(input.timeMs, codes(set, o), buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
       for (const m of r.months)
         checksum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
       for (const ym of r.yearMonths) checksum += (ym.wowP90Hours ?? 0) * 1e-6;
-    });
+    }
+    t = clock();
+    statistics += t - t2;
   });
-  const t3 = clock();
-  return { transform: t1 - t0, status: t2 - t1, statistics: t3 - t2, total: t3 - t0, checksum };
+  return { transform, status: statusMs, statistics, total: t - t0, checksum };
 }
 
 /** Copies a Float64Array into shared memory (so workers read it without a copy). */
@@ -157,9 +202,9 @@ function shared(a: Float64Array): Float64Array {
 }
 
 /**
- * Worker threads that each take an equal share of the (worksite, operation) pairs. The input is placed in shared memory once per
- * input (not timed, like the peer's arrays already in memory); a run's total is the wall time from
- * posting the work to the last answer.
+ * Worker threads that share each run (see {@link RunShare}). The input and the status buffers are
+ * placed in shared memory once per input (not timed, like the peer's arrays already in memory); a
+ * run's total is the wall time from posting the work to the last answer.
  */
 export class EnginePool {
   private constructor(private readonly workers: Worker[]) {}
@@ -181,6 +226,8 @@ export class EnginePool {
 
   private sharedInput: HindcastInput | null = null;
   private sharedFrom: HindcastInput | null = null;
+  private status: Uint8Array<ArrayBufferLike> = new Uint8Array(0);
+  private readonly barrier = new Int32Array(new SharedArrayBuffer(4));
 
   async run(input: HindcastInput): Promise<StageTimes> {
     if (this.sharedFrom !== input) {
@@ -193,21 +240,23 @@ export class EnginePool {
         wind: shared(input.wind),
       };
       this.sharedFrom = input;
+      this.status = new Uint8Array(new SharedArrayBuffer(2 * input.operations.length * input.timeMs.length));
     }
     const work = this.sharedInput as HindcastInput;
-    // The (worksite, operation) pairs in equal contiguous shares (5 x 10 on 2 threads: 25 each; a
-    // worksite split between two threads is transformed by both, a small part of the work).
-    const pairs = allPairs(work);
-    const per = Math.ceil(pairs.length / this.workers.length);
-    const parts = this.workers.map((_, w) => pairs.slice(w * per, (w + 1) * per));
+    Atomics.store(this.barrier, 0, 0);
     const t0 = performance.now();
     const answers = await Promise.all(
       this.workers.map(
-        (w, i) =>
+        (w, worker) =>
           new Promise<StageTimes>((resolve, reject) => {
-            w.once('message', (m: StageTimes) => resolve(m));
-            w.once('error', reject);
-            w.postMessage({ input: work, pairs: parts[i] });
+            const onError = (err: Error) => reject(err);
+            w.once('message', (m: StageTimes) => {
+              w.off('error', onError);
+              resolve(m);
+            });
+            w.once('error', onError);
+            const share: RunShare = { worker, workers: this.workers.length, status: this.status, barrier: this.barrier };
+            w.postMessage({ input: work, share });
           }),
       ),
     );

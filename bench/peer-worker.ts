@@ -1,10 +1,10 @@
-// Worker thread of bench/peer-engine.ts: runs transform, status and statistics for the (worksite, operation) pairs it is given.
+// Worker thread of bench/peer-engine.ts: runs its share of transform, status and statistics (see RunShare).
 import { parentPort } from 'node:worker_threads';
-import { runHindcastAllSites, type HindcastInput } from './peer-engine';
+import { runHindcastAllSites, type HindcastInput, type RunShare } from './peer-engine';
 
 if (!parentPort) throw new Error('peer-worker.ts runs as a worker thread');
 const port = parentPort;
-port.on('message', (m: { input: HindcastInput; pairs: number[] }) => {
-  port.postMessage(runHindcastAllSites(m.input, m.pairs));
+port.on('message', (m: { input: HindcastInput; share: RunShare }) => {
+  port.postMessage(runHindcastAllSites(m.input, m.share));
 });
 port.postMessage('ready');
