@@ -15,8 +15,10 @@
 // Exit code: 0 whatever the figures (a measurement); 2 when python3, NumPy/SciPy or the peer script
 // is missing (with how to install them); 1 when the run itself failed.
 //
-// Options: --peer PATH, --runs N (default 5), --cpu (both sides on one thread, in process CPU time), --threads N (worker threads sharing the (worksite, operation) pairs; default
-// the number of cores, at most the number of worksites; 1 runs everything on the main thread).
+// Options: --peer PATH, --runs N (default 5), --cpu (both sides on one thread, in process CPU time),
+// --threads N (worker threads that split each worksite's records for the transform and the status,
+// and its operations for the statistics; default the number of cores, at most 5; 1 runs everything
+// on the main thread).
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -239,7 +241,7 @@ async function main(): Promise<void> {
     );
     if (CPU) console.log('--cpu: every figure below is process CPU time (both sides on one thread), not wall time');
     console.log(
-      `Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads sharing the (worksite, operation) pairs`}; ${RUNS} runs, the first cold\n`,
+      `Ours: transform + status + statistics (months in UTC), ${THREADS === 1 ? 'on the main thread' : `${THREADS} worker threads splitting each worksite's records (transform, status) and operations (statistics)`}; ${RUNS} runs, the first cold\n`,
     );
 
     // Ours: the first run is the cold one (fresh process, and fresh workers when threads are used).
