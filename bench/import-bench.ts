@@ -8,6 +8,7 @@ import { pathToFileURL } from 'node:url';
 import { readSeries } from '../server/services/series-store';
 import { openBenchApp, timedImport } from './lib/bench-app';
 import { operation, worksite } from '../server/db/schema';
+import { startEnginePool } from '../server/services/engine-pool';
 import { projectWorkability, settleStatsCache } from '../server/services/workability';
 
 const RECORDS = 262_968; // 1996-01-01 to 2025-12-31 hourly
@@ -68,6 +69,11 @@ export async function runImportBench() {
   }));
   await database.db.insert(operation).values(extra);
   await database.db.update(operation).set({ siteIds: [] });
+  // The engine thread is started first and timed apart: under tsx it compiles every engine module
+  // as it loads (seconds); the built server's bundled thread starts far faster, once per process.
+  const w0 = performance.now();
+  await startEnginePool();
+  const poolStartMs = performance.now() - w0;
   const s0 = performance.now();
   const stats = await projectWorkability(database.db, app.projectId, { datasetId: res.body.id, alpha: true });
   const statsColdMs = performance.now() - s0;
@@ -78,11 +84,12 @@ export async function runImportBench() {
 
   await app.close();
   fs.rmSync(dir, { recursive: true, force: true });
-  const result = { importMs, readBackMedianMs: median(reads), bytes, statsColdMs, statsRepeatMs, pairs: stats.entries.length };
+  const result = { importMs, readBackMedianMs: median(reads), bytes, statsColdMs, statsRepeatMs, poolStartMs, pairs: stats.entries.length };
   console.log(
     `import: 30-year hourly CSV (${RECORDS} records, ${(bytes / 1e6).toFixed(1)} MB) through the API into an on-disk database: ${importMs.toFixed(0)} ms\n` +
       `  read back into typed arrays: median ${result.readBackMedianMs.toFixed(0)} ms of 5 (${reads.map((x) => x.toFixed(0)).join(', ')} ms)\n` +
-      `workability: all monthly statistics, ${result.pairs} operation x worksite pairs (5 worksites, 10 operations) over the 30 years, server side: cold ${statsColdMs.toFixed(0)} ms, repeat (cached) ${statsRepeatMs.toFixed(0)} ms`,
+      `workability: all monthly statistics, ${result.pairs} operation x worksite pairs (5 worksites, 10 operations) over the 30 years, server side: cold ${statsColdMs.toFixed(0)} ms, repeat (cached) ${statsRepeatMs.toFixed(0)} ms\n` +
+      `  (on the engine thread, started beforehand: ${process.env.ENGINE_THREADS === '0' ? 'none, ENGINE_THREADS=0' : `${poolStartMs.toFixed(0)} ms under tsx`}, not in the cold figure)`,
   );
   return result;
 }

@@ -23,6 +23,8 @@ interface PoolWorker {
   worker: Worker;
   busy: number;
   pending: Map<number, Pending>;
+  /** Settles once the worker has loaded its modules (its first message), or has failed to. */
+  loaded: Promise<void>;
 }
 
 /** Workers from ENGINE_THREADS (0 = none), default 1, at most the number of cores. */
@@ -52,7 +54,13 @@ function start(count: number): PoolWorker[] {
   engineNice(process.env.ENGINE_NICE); // a wrong ENGINE_NICE fails here, on the calling thread, not in each worker
   return Array.from({ length: count }, () => {
     const worker = newWorker();
-    const pw: PoolWorker = { worker, busy: 0, pending: new Map() };
+    const loaded = new Promise<void>((resolve, reject) => {
+      worker.once('message', () => resolve());
+      worker.once('error', reject);
+      worker.once('exit', (code) => reject(new Error(`an engine worker stopped while loading (exit code ${code})`)));
+    });
+    loaded.catch(() => undefined); // a failure reaches the tasks through failAll; startEnginePool rethrows it
+    const pw: PoolWorker = { worker, busy: 0, pending: new Map(), loaded };
     // An idle pool never keeps the process alive (tests, scripts); a task in flight does (ref below).
     pw.worker.unref();
     pw.worker.on('message', (m: WorkerMessage) => {
@@ -147,6 +155,19 @@ export function runIsolatedTask<I, P extends unknown[], R>(
     worker.on('error', (err) => settle(() => reject(err)));
     worker.on('exit', (code) => settle(() => reject(new Error(`an engine worker stopped (exit code ${code})`))));
   });
+}
+
+/**
+ * Starts the engine threads now if they are not running, and resolves once each has loaded (they
+ * otherwise start at the first task). The benches use it to time a cold computation apart from the
+ * threads' start, which under tsx (each module compiled on load) takes seconds. Resolves at once
+ * with ENGINE_THREADS=0.
+ */
+export async function startEnginePool(): Promise<void> {
+  const count = threadCount();
+  if (count === 0) return;
+  workers ??= start(count);
+  await Promise.all(workers.map((pw) => pw.loaded));
 }
 
 /** Stops the workers (orderly shutdown). */
