@@ -26,9 +26,16 @@ export function sameValues(a: Float64Array, b: Float64Array): boolean {
 export class SeriesValueCache<V> {
   private readonly entries: LRUCache<string, Entry<V>>;
 
-  /** @param sizeOf bytes a value holds (its own arrays; the input arrays are shared with the series) */
+  /**
+   * @param maxBytes bound on the bytes held: each value's own arrays, and the input arrays it keeps
+   *   for the check (counted with every entry that keeps them, so the bound is never exceeded)
+   * @param sizeOf bytes a value's own arrays hold
+   */
   constructor(maxBytes: number, sizeOf: (value: V) => number) {
-    this.entries = new LRUCache<string, Entry<V>>({ maxSize: maxBytes, sizeCalculation: (e) => Math.max(1, Math.ceil(sizeOf(e.value))) });
+    this.entries = new LRUCache<string, Entry<V>>({
+      maxSize: maxBytes,
+      sizeCalculation: (e) => Math.max(1, Math.ceil(sizeOf(e.value) + e.arrays.reduce((sum, a) => sum + a.byteLength, 0))),
+    });
   }
 
   private static slot(key: string, arrays: Float64Array[]): string {

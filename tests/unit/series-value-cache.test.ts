@@ -28,16 +28,24 @@ describe('SeriesValueCache', () => {
     expect(cache.get('k', [times])).toBeUndefined();
   });
 
-  it('drops the least recently used values beyond its byte bound', () => {
+  it('drops the least recently used values beyond its byte bound (values and the inputs they keep)', () => {
+    // Each entry: 100 bytes of value and 16 bytes of input (two float64), 116 in all.
     const cache = new SeriesValueCache<number>(250, () => 100);
     const a = (x: number) => Float64Array.of(x, x + 1);
     cache.set('k', [a(1)], 1);
     cache.set('k', [a(2)], 2);
     expect(cache.get('k', [a(1)])).toBe(1); // 1 is now the most recent
-    cache.set('k', [a(3)], 3); // 300 bytes: the least recent (2) goes
+    cache.set('k', [a(3)], 3); // 348 bytes: the least recent (2) goes
     expect(cache.get('k', [a(2)])).toBeUndefined();
     expect(cache.get('k', [a(1)])).toBe(1);
     expect(cache.get('k', [a(3)])).toBe(3);
+    // Inputs count too: with 128 bytes of input per entry (two make 256 > 250) only one fits.
+    const inputs = new SeriesValueCache<number>(250, () => 0);
+    const long = (x: number) => new Float64Array(16).fill(x);
+    inputs.set('k', [long(1)], 1);
+    inputs.set('k', [long(2)], 2);
+    expect(inputs.get('k', [long(2)])).toBe(2);
+    expect(inputs.get('k', [long(1)])).toBeUndefined();
   });
 
   it('sameValues: equal lengths and values, NaN equal to NaN, -0 equal to 0', () => {
