@@ -22,7 +22,6 @@ import type { SeaPartitionSeries } from '../../shared/response';
 import type { SeaSeries } from './series-store';
 import { currentPredictor, predictExtremes, predictLevels, tidePredictor, type CurrentStationInfo, type TideStationInfo } from './tide';
 import type { TideExtremes } from '../../shared/engine';
-import { SeriesValueCache } from './series-value-cache';
 import {
   combineCurrent,
   combineWaterLevel,
@@ -190,11 +189,6 @@ export interface SiteTide {
 /** Extremes are predicted this far beyond the series, so a tide window (at most 12 h either side) finds its high or low water. */
 const EXTREME_PAD_MS = 13 * 3_600_000;
 const tideCache = new WeakMap<Float64Array, Map<string, SiteTide>>();
-/** The same by the series' values, for engine threads that get a new view of a series with each task (series-value-cache.ts). */
-const tideByValue = new SeriesValueCache<SiteTide>(
-  64 * 2 ** 20,
-  (v) => v.waterLevelM.byteLength + v.recordSource.byteLength + (v.tide ? v.tide.highMs.byteLength + v.tide.lowMs.byteLength : 0),
-);
 
 /** The series a worksite's water level is read from: its times, and its water-level column when it has one. */
 export type LevelSeries = Pick<SeaSeries, 'timeMs' | 'extra' | 'waterLevelReference'>;
@@ -220,12 +214,6 @@ export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitud
   const key = `${p?.key ?? 'none'}|${column ? series.waterLevelReference : 'no-level'}`;
   const hit = perSeries.get(key);
   if (hit && hit.waterLevelM.length === timeMs.length) return hit;
-  const inputs = column ? [timeMs, column] : [timeMs];
-  const same = tideByValue.get(key, inputs);
-  if (same) {
-    perSeries.set(key, same);
-    return same;
-  }
   const predicted = p ? predictLevels(p, timeMs) : null;
   const combined = combineWaterLevel(predicted, column ? { values: column, reference: series.waterLevelReference! } : null)!;
   const counts = new Uint32Array(WATER_LEVEL_SOURCES.length);
@@ -245,7 +233,6 @@ export function siteTide(site: Pick<WorksiteRow, 'tide' | 'latitude' | 'longitud
     key,
   };
   perSeries.set(key, value);
-  tideByValue.set(key, inputs, value);
   return value;
 }
 
@@ -258,10 +245,6 @@ export interface SiteCurrent extends CombinedCurrent {
 }
 
 const currentCache = new WeakMap<Float64Array, Map<string, CombinedCurrent>>();
-const currentByValue = new SeriesValueCache<CombinedCurrent>(
-  64 * 2 ** 20,
-  (c) => c.speedMps.byteLength + c.dirDeg.byteLength + c.source.byteLength,
-);
 
 /**
  * The worksite's current at every record time (docs/domain.md#tide), or null when neither the
@@ -286,13 +269,7 @@ export function siteCurrent(
   const key = `${p?.key ?? 'none'}|${column ? 'dataset' : 'no-current'}`;
   let combined = perSeries.get(key);
   if (!combined || combined.speedMps.length !== timeMs.length) {
-    const dirColumn = column ? (series.extra.currentDir ?? null) : null;
-    const inputs = [timeMs, ...(column ? [column] : []), ...(dirColumn ? [dirColumn] : [])];
-    combined = currentByValue.get(key, inputs);
-    if (!combined) {
-      combined = combineCurrent(p ? p.predict(timeMs) : null, column ? { speedMps: column, dirDeg: dirColumn } : null)!;
-      currentByValue.set(key, inputs, combined);
-    }
+    combined = combineCurrent(p ? p.predict(timeMs) : null, column ? { speedMps: column, dirDeg: series.extra.currentDir ?? null } : null)!;
     perSeries.set(key, combined);
   }
   return { ...combined, station: p?.station ?? null, key };

@@ -1,9 +1,9 @@
-// Results worked from a long series kept by the series' values (server/services/series-value-cache.ts):
-// an engine thread gets a new view of the same shared series with each task, and the worksite's
-// predicted tide over a 30-year hindcast (about 0.6 s) was worked again on every task. No outside
-// figures here: the checks are that an equal series finds the kept result and any change misses.
+// Values kept by the contents of long series (server/services/series-value-cache.ts): an engine
+// thread gets a new view of the same shared series with each task, and the worksite's predicted
+// tide over a 30-year hindcast (about 0.6 s) was worked again on every task. No outside figures
+// here: the checks are that an equal series finds the kept one and any change misses.
 import { describe, expect, it } from 'vitest';
-import { SeriesValueCache, sameValues } from '../../server/services/series-value-cache';
+import { SeriesCanon, SeriesValueCache, sameValues } from '../../server/services/series-value-cache';
 import { siteTide } from '../../server/services/site-context';
 
 const HOUR_MS = 3_600_000;
@@ -55,27 +55,49 @@ describe('SeriesValueCache', () => {
   });
 });
 
-describe('siteTide over a new view of the same times', () => {
-  it('gives the result already worked (the same object), and a new one for other times or another tide', () => {
-    const site = {
-      tide: { source: 'constants' as const, constituents: [{ name: 'M2', amplitude: 1.5, phase: 0 }], z0: 2, datum: 'LAT' },
-      latitude: null,
-      longitude: null,
-    };
-    const times = Float64Array.from({ length: 24 * 60 }, (_, i) => T0 + i * HOUR_MS);
-    const series = (timeMs: Float64Array) => ({ timeMs, extra: {}, waterLevelReference: undefined });
-    const first = siteTide(site, series(times))!;
-    expect(first.waterLevelM.length).toBe(times.length);
-    // A message to an engine thread makes a new array over the same values.
-    expect(siteTide(site, series(new Float64Array(times)))).toBe(first);
-    const later = Float64Array.from(times, (t) => t + HOUR_MS);
-    const shifted = siteTide(site, series(later))!;
-    expect(shifted).not.toBe(first);
-    // One hour later the level at record i is the first run's level at record i + 1.
-    expect(shifted.waterLevelM[10]).toBeCloseTo(first.waterLevelM[11], 4); // node factors taken at each series' own time: 1e-6 m apart
-    const otherTide = { ...site, tide: { ...site.tide, z0: 3 } };
-    const raised = siteTide(otherTide, series(new Float64Array(times)))!;
-    expect(raised).not.toBe(first);
-    expect(raised.waterLevelM[5] - first.waterLevelM[5]).toBeCloseTo(1, 9);
+describe("SeriesCanon (the engine thread's task inputs)", () => {
+  const site = {
+    tide: { source: 'constants' as const, constituents: [{ name: 'M2', amplitude: 1.5, phase: 0 }], z0: 2, datum: 'LAT' },
+    latitude: null,
+    longitude: null,
+  };
+  const n = 24 * 60;
+  const series = () => ({
+    timeMs: Float64Array.from({ length: n }, (_, i) => T0 + i * HOUR_MS),
+    hs: Float64Array.from({ length: n }, (_, i) => (i % 50 === 0 ? NaN : 1 + Math.sin(i / 9))),
+    flags: new Uint8Array(n).fill(1),
+    extra: { waterLevel: Float64Array.from({ length: n }, (_, i) => Math.cos(i / 12)) },
+    waterLevelReference: 'residual' as const,
+  });
+
+  it('gives back the series seen first for an equal one (new arrays, every field equal), else the one given', () => {
+    const canon = new SeriesCanon(64 * 2 ** 20);
+    const first = series();
+    expect(canon.canonical(first)).toBe(first);
+    expect(canon.canonical(series())).toBe(first); // as a message to an engine thread makes new views
+    const level = series();
+    level.extra.waterLevel[700] += 0.01;
+    expect(canon.canonical(level)).toBe(level);
+    const flagged = series();
+    flagged.flags[3] = 0;
+    expect(canon.canonical(flagged)).toBe(flagged);
+    const referred = { ...series(), waterLevelReference: 'chart-datum' as const };
+    expect(canon.canonical(referred)).toBe(referred);
+    const notSeries = { id: 'row', depthM: 12 };
+    expect(canon.canonical(notSeries)).toBe(notSeries);
+    expect(canon.canonical(null)).toBeNull();
+  });
+
+  it("so the worksite's tide, cached by its time array, is found again for a new view of the same series", () => {
+    const canon = new SeriesCanon(64 * 2 ** 20);
+    const asSeen = (s: ReturnType<typeof series>) => ({ timeMs: s.timeMs, extra: {}, waterLevelReference: undefined });
+    const first = canon.canonical(series());
+    const tide = siteTide(site, asSeen(first))!;
+    expect(tide.waterLevelM.length).toBe(n);
+    expect(siteTide(site, asSeen(canon.canonical(series())))).toBe(tide);
+    // Without the canon a new view is a new array: the tide is worked again (a new object, equal values).
+    const again = siteTide(site, asSeen(series()))!;
+    expect(again).not.toBe(tide);
+    expect(Array.from(again.waterLevelM)).toEqual(Array.from(tide.waterLevelM));
   });
 });
