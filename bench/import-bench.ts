@@ -5,9 +5,9 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { eq } from 'drizzle-orm';
 import { readSeries } from '../server/services/series-store';
 import { openBenchApp, timedImport } from './lib/bench-app';
-import { eq } from 'drizzle-orm';
 import { operation, worksite } from '../server/db/schema';
 import { startEnginePool } from '../server/services/engine-pool';
 import { projectWorkability, settleStatsCache } from '../server/services/workability';
@@ -71,7 +71,7 @@ export async function runImportBench() {
   await database.db.insert(operation).values(extra);
   await database.db.update(operation).set({ siteIds: [] });
   // The engine thread is started first and timed apart: under tsx it compiles every engine module
-  // as it loads (seconds); the built server's bundled thread starts far faster, once per process.
+  // as it loads (seconds), once per process; the built server starts a bundled thread instead.
   const w0 = performance.now();
   await startEnginePool();
   const poolStartMs = performance.now() - w0;
