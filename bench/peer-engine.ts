@@ -46,21 +46,28 @@ export interface StageTimes {
   total: number;
   /** Sum of figures of the results, so that no work can be skipped; equal on every run. */
   checksum: number;
+  /** Of the status time, ms spent waiting at the barriers for the other threads (0 on one thread). */
+  waitMs: number;
 }
 
 /**
  * One thread's share of a run, and what the threads share. Worksite by worksite, thread `worker`
  * of `workers` transforms records [lo, hi) and evaluates their status for every operation (both are
- * record by record), writing the codes into `status`; after a barrier it works the statistics of
- * the operations o with o % workers === worker over the whole series. Two sets of status buffers
- * (by worksite parity) let a thread start the next worksite while another still reads the last.
+ * record by record), writing the codes into `status`; after a barrier the threads work the
+ * statistics of the worksite's operations over the whole series, each taking the next operation
+ * not yet taken (a shared counter per worksite), so that a thread given cheaper operations does not
+ * wait for the other at the next barrier. Two sets of status buffers (by worksite parity) let a
+ * thread start the next worksite while another still reads the last.
  */
 export interface RunShare {
   worker: number;
   workers: number;
   /** sets x operations x records status codes (sets: 2 with several threads, else 1). */
   status: Uint8Array<ArrayBufferLike>;
-  /** Barrier counter (several threads only), set to 0 before each run. */
+  /**
+   * Several threads only, every element set to 0 before each run: [0] the barrier counter, then
+   * per worksite k the count of its operations taken ([1 + k]).
+   */
   barrier: Int32Array | null;
 }
 
@@ -140,12 +147,16 @@ export function runHindcastAllSites(
   if (share.status.length < sets * nOps * n && buf.status.length < sets * nOps * n) buf.status = new Uint8Array(sets * nOps * n);
   const status = share.status.length >= sets * nOps * n ? share.status : buf.status;
   const codes = (set: number, o: number) => status.subarray((set * nOps + o) * n, (set * nOps + o + 1) * n);
-  const mine = input.operations.map((_, o) => o).filter((o) => o % share.workers === share.worker);
+  // The next operation of worksite k whose statistics this thread works (every one, on one thread).
+  const counters = share.barrier;
+  let taken = 0;
+  const nextOp = (k: number) => (counters ? Atomics.add(counters, 1 + k, 1) : taken++);
   const t0 = clock();
   let transform = 0;
   let statusMs = 0;
   let statistics = 0;
   let checksum = 0;
+  let waitMs = 0;
   // This share's records of the data point; no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8).
   const tzS = buf.tzS.fill(NaN);
   const sea = { hsM: input.hs.subarray(lo, hi), tpS: input.tp.subarray(lo, hi), tzS, dirDeg: input.dir.subarray(lo, hi) };
@@ -174,14 +185,17 @@ export function runHindcastAllSites(
       // The data point's distinct periods, found once by the transform stage (every worksite has its Tp).
       tpDistinct: { ids: prepared.tpIds, keys: prepared.tpKeys },
     });
+    const tw = clock();
     if (share.barrier) barrier(share.barrier, share.workers, k + 1);
     const t2 = clock();
+    waitMs += t2 - tw;
     statusMs += t2 - t1;
     if (calendar === null) {
       stepMs = detectStepMs(input.timeMs);
       calendar = calendarIndex(input.timeMs, 'UTC');
     }
-    for (const o of mine) {
+    taken = 0;
+    for (let o = nextOp(k); o < nOps; o = nextOp(k)) {
       const op = input.operations[o];
       const r = monthlyStatisticsWithGoStarts(input.timeMs, codes(set, o), buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
       for (const m of r.months)
@@ -191,7 +205,7 @@ export function runHindcastAllSites(
     t = clock();
     statistics += t - t2;
   });
-  return { transform, status: statusMs, statistics, total: t - t0, checksum };
+  return { transform, status: statusMs, statistics, total: t - t0, checksum, waitMs };
 }
 
 /** Copies a Float64Array into shared memory (so workers read it without a copy). */
@@ -201,10 +215,19 @@ function shared(a: Float64Array): Float64Array {
   return s;
 }
 
+/** A message to a thread of {@link EnginePool}: a new input and share, or none to run again on those it holds. */
+export interface PoolMessage {
+  input?: HindcastInput;
+  share?: RunShare;
+}
+
 /**
  * Worker threads that share each run (see {@link RunShare}). The input and the status buffers are
- * placed in shared memory once per input (not timed, like the peer's arrays already in memory); a
- * run's total is the wall time from posting the work to the last answer.
+ * placed in shared memory and handed to the threads once per input (not timed, like the peer's
+ * arrays already in memory); each thread keeps them from run to run, as the server's engine thread
+ * keeps a series it has seen (so per-series caches, such as the record steps of the time axis, hold
+ * on the threads as on the main thread). A run's total is the wall time from posting the work to the
+ * last answer.
  */
 export class EnginePool {
   private constructor(private readonly workers: Worker[]) {}
@@ -224,14 +247,13 @@ export class EnginePool {
     return new EnginePool(workers);
   }
 
-  private sharedInput: HindcastInput | null = null;
   private sharedFrom: HindcastInput | null = null;
-  private status: Uint8Array<ArrayBufferLike> = new Uint8Array(0);
-  private readonly barrier = new Int32Array(new SharedArrayBuffer(4));
+  private barrier: Int32Array<ArrayBufferLike> = new Int32Array(0);
 
   async run(input: HindcastInput): Promise<StageTimes> {
+    let messages: PoolMessage[] = this.workers.map(() => ({}));
     if (this.sharedFrom !== input) {
-      this.sharedInput = {
+      const work: HindcastInput = {
         ...input,
         timeMs: shared(input.timeMs),
         hs: shared(input.hs),
@@ -240,10 +262,12 @@ export class EnginePool {
         wind: shared(input.wind),
       };
       this.sharedFrom = input;
-      this.status = new Uint8Array(new SharedArrayBuffer(2 * input.operations.length * input.timeMs.length));
+      const status = new Uint8Array(new SharedArrayBuffer(2 * input.operations.length * input.timeMs.length));
+      this.barrier = new Int32Array(new SharedArrayBuffer(4 * (1 + input.sites.length)));
+      const workers = this.workers.length;
+      messages = this.workers.map((_, worker) => ({ input: work, share: { worker, workers, status, barrier: this.barrier } }));
     }
-    const work = this.sharedInput as HindcastInput;
-    Atomics.store(this.barrier, 0, 0);
+    this.barrier.fill(0);
     const t0 = performance.now();
     const answers = await Promise.all(
       this.workers.map(
@@ -255,8 +279,7 @@ export class EnginePool {
               resolve(m);
             });
             w.once('error', onError);
-            const share: RunShare = { worker, workers: this.workers.length, status: this.status, barrier: this.barrier };
-            w.postMessage({ input: work, share });
+            w.postMessage(messages[worker]);
           }),
       ),
     );
@@ -268,6 +291,7 @@ export class EnginePool {
       statistics: slowest('statistics'),
       total,
       checksum: answers.reduce((a, b) => a + b.checksum, 0),
+      waitMs: Math.max(...answers.map((a) => a.waitMs)),
     };
   }
 
