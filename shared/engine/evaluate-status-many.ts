@@ -72,16 +72,24 @@ export interface DistinctTp {
   keys: Float64Array;
 }
 
-/** Work space of {@link evaluateStatusMany}: three int32 bit masks per record. */
+/** Work space of {@link evaluateStatusMany}: three int32 bit masks per record of one chunk. */
 export interface StatusManyScratch {
   missing: Int32Array;
   broken: Int32Array;
   marginal: Int32Array;
 }
 
-/** Work space for series of up to `length` records. */
+/**
+ * Records per step of the two passes: the masks of one chunk (3 x 4 bytes per record, 48 kB) are
+ * decoded while they are still in the processor's cache, not written for the whole series and
+ * read back from memory. A multiple of 4, so that every chunk but the last decodes by words.
+ */
+const CHUNK = 4096;
+
+/** Work space for series of up to `length` records (the passes need one chunk of it at most). */
 export function createStatusManyScratch(length: number): StatusManyScratch {
-  return { missing: new Int32Array(length), broken: new Int32Array(length), marginal: new Int32Array(length) };
+  const m = Math.min(length, CHUNK);
+  return { missing: new Int32Array(m), broken: new Int32Array(m), marginal: new Int32Array(m) };
 }
 
 /**
@@ -293,16 +301,47 @@ function tpBrokenBits(g: Group, x: number): number {
 }
 
 /**
- * Every record of a group against every threshold in one pass (Hs, Tp maximums, Tp minimums and
- * bands, both bed velocities, wind, then each Hs-Tp curve), setting one bit per operation in three
- * masks: a needed value missing, a limit broken, an Hs limit met at OPLIM only. Each value is
- * compared with the sorted thresholds of every operation at once: the count of thresholds below
- * it (found through the list's bucket index, countBelow) indexes the OR of their bits. Where the
- * series' distinct Tp values are given, the Tp limits' bits and the curves' terms are worked once
- * per distinct value and looked up. One loop of fixed shape for every mix of operations, so the
- * JIT compiles it once; the masks are written once per record.
+ * A group's per-distinct-Tp tables (see maskPass): the bits the Tp limits and the curves' ranges
+ * break for each distinct Tp, and the curves' terms (curveTables).
  */
-function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch, tp: DistinctTp | undefined): void {
+interface TpTables {
+  ids: Int32Array;
+  keys: Float64Array;
+  bits: Int32Array;
+  cLim: Float64Array;
+  cOpwf: Float64Array;
+  cBit: Int32Array;
+  tpLimited: boolean;
+}
+
+function tpTables(g: Group, n: number, tp: DistinctTp | undefined): TpTables {
+  const tpLimited = g.needTp !== 0 || g.tpBelow.thr.length > 0 || g.bandFrom.length > 0;
+  const nc = g.curves.length;
+  const ids = tp !== undefined && (tpLimited || nc > 0) && tp.ids.length >= n ? tp.ids : EMPTY_I32;
+  const keys = ids.length > 0 ? (tp as DistinctTp).keys : EMPTY_F64;
+  const nKeys = keys.length;
+  const bits = new Int32Array(nKeys);
+  const cLim = new Float64Array(nc * nKeys);
+  const cOpwf = new Float64Array(nc * nKeys);
+  const cBit = Int32Array.from(g.curves, (p) => p.bit);
+  if (tpLimited) for (let k = 0; k < nKeys; k++) bits[k] = tpBrokenBits(g, keys[k]);
+  if (nKeys > 0) curveTables(g.curves, keys, cLim, cOpwf, bits);
+  return { ids, keys, bits, cLim, cOpwf, cBit, tpLimited };
+}
+
+/**
+ * Records [from, to) of a group against every threshold in one pass (Hs, Tp maximums, Tp minimums
+ * and bands, both bed velocities, wind, then each Hs-Tp curve), setting one bit per operation in
+ * three masks (record i at i - from): a needed value missing, a limit broken, an Hs limit met at
+ * OPLIM only. Each value is compared with the sorted thresholds of every operation at once: the
+ * count of thresholds below it (found through the list's bucket index, countBelow) indexes the OR of
+ * their bits. Where the series' distinct Tp values are given, the Tp limits' bits and the curves'
+ * terms come from the tables worked once per distinct value (tpTables); a record whose Tp is not
+ * its key's value, or that has none, is worked directly, as evaluateStatus works it. One loop of
+ * fixed shape for every mix of operations, so the JIT compiles it once; the masks are written once
+ * per record.
+ */
+function maskPass(series: SiteSeries, g: Group, t: TpTables, from: number, to: number, s: StatusManyScratch): void {
   const { missing, broken, marginal } = s;
   const hsV = series.hsM;
   const tpV = series.tpS;
@@ -336,22 +375,11 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch,
   const wLo = g.wind.lo;
   const wSc = g.wind.scale;
   const wLast = g.wind.last;
-  const tpLimited = needTp !== 0 || g.tpBelow.thr.length > 0 || g.bandFrom.length > 0;
   const curves = g.curves;
   const nc = curves.length;
-  // Per distinct Tp: the bits the Tp limits and the curves' ranges break (tpBits) and the curves'
-  // terms (curveTables). A record whose Tp is not its key's value, or that has none, is worked
-  // directly, as evaluateStatus works it.
-  const tpIds = tp !== undefined && (tpLimited || nc > 0) && tp.ids.length >= n ? tp.ids : EMPTY_I32;
-  const tpKeys = tpIds.length > 0 ? (tp as DistinctTp).keys : EMPTY_F64;
+  const { ids: tpIds, keys: tpKeys, bits: tpBits, cLim, cOpwf, cBit, tpLimited } = t;
   const nKeys = tpKeys.length;
-  const tpBits = new Int32Array(nKeys);
-  const cLim = new Float64Array(nc * nKeys);
-  const cOpwf = new Float64Array(nc * nKeys);
-  const cBit = Int32Array.from(curves, (p) => p.bit);
-  if (tpLimited) for (let k = 0; k < nKeys; k++) tpBits[k] = tpBrokenBits(g, tpKeys[k]);
-  if (nKeys > 0) curveTables(curves, tpKeys, cLim, cOpwf, tpBits);
-  for (let i = 0; i < n; i++) {
+  for (let i = from; i < to; i++) {
     let x = hsV[i];
     let b = (x - hsLo) * hsSc;
     let j = hsF[b >= hsLast ? hsLast : b > 0 ? b | 0 : 0];
@@ -400,41 +428,52 @@ function maskPass(series: SiteSeries, g: Group, n: number, s: StatusManyScratch,
         else if (k === 1) mar |= cBit[c];
       }
     }
-    missing[i] = miss;
-    broken[i] = brk;
-    marginal[i] = mar;
+    const r = i - from;
+    missing[r] = miss;
+    broken[r] = brk;
+    marginal[r] = mar;
   }
 }
 
 /**
- * Every operation's STATUS code from the three masks, record by record (outs[k]: operation k's
- * codes). The two bits of each code (NO_DATA 00, NOT_WORKABLE 01, MARGINAL 10, WORKABLE 11):
- * high = data and nothing broken; low = data and (broken, or not marginal). Where every buffer
- * starts on a 4-byte boundary (as new arrays do), four records at a time (decodeWords).
+ * Every operation's STATUS code for records [from, to) from the three masks of those records
+ * (record i at i - from; outs[k]: operation k's codes). The two bits of each code (NO_DATA 00,
+ * NOT_WORKABLE 01, MARGINAL 10, WORKABLE 11): high = data and nothing broken; low = data and
+ * (broken, or not marginal). With `words` (every buffer starting on a 4-byte boundary, as new
+ * arrays do) and `from` a multiple of 4, four records at a time (decodeWords).
  */
-function decodePass(n: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, outs: Uint8Array[]): void {
+function decodePass(from: number, to: number, s: StatusManyScratch, outs: Uint8Array[], words: Uint32Array[] | null): void {
+  const { missing, broken, marginal } = s;
   const K = outs.length;
-  let from = 0;
-  if (LITTLE_ENDIAN && outs.every((o) => o.byteOffset % 4 === 0)) {
-    const words = outs.map((o) => new Uint32Array(o.buffer, o.byteOffset, n >>> 2));
-    from = decodeWords(n >>> 2, missing, broken, marginal, words);
-  }
-  for (let i = from; i < n; i++) {
-    const miss = missing[i];
-    const brk = broken[i];
+  let i = from;
+  if (words !== null && from % 4 === 0) i += decodeWords(from >>> 2, (to - from) >>> 2, missing, broken, marginal, words);
+  for (; i < to; i++) {
+    const r = i - from;
+    const miss = missing[r];
+    const brk = broken[r];
     const high = ~(miss | brk);
-    const low = ~miss & (brk | ~marginal[i]);
+    const low = ~miss & (brk | ~marginal[r]);
     for (let k = 0; k < K; k++) outs[k][i] = (((high >>> k) & 1) << 1) | ((low >>> k) & 1);
   }
 }
 
 const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
 
-/** decodePass four records at a time, each operation's four codes written as one 32-bit word (little-endian). Returns the records done. */
-function decodeWords(nw: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, words: Uint32Array[]): number {
+/** 32-bit views of the operations' code buffers (n records), or null where one does not start on a 4-byte boundary. */
+function wordViews(outs: Uint8Array[], n: number): Uint32Array[] | null {
+  if (!LITTLE_ENDIAN || !outs.every((o) => o.byteOffset % 4 === 0)) return null;
+  return outs.map((o) => new Uint32Array(o.buffer, o.byteOffset, n >>> 2));
+}
+
+/**
+ * decodePass four records at a time from word q0 (record 4 * q0, the masks' index 0) for nw words,
+ * each operation's four codes written as one 32-bit word (little-endian). Returns the records done.
+ */
+function decodeWords(q0: number, nw: number, missing: Int32Array, broken: Int32Array, marginal: Int32Array, words: Uint32Array[]): number {
   const K = words.length;
-  for (let q = 0; q < nw; q++) {
-    const i = q << 2;
+  for (let w = 0; w < nw; w++) {
+    const i = w << 2;
+    const q = q0 + w;
     let m = missing[i];
     let b = broken[i];
     const h0 = ~(m | b);
@@ -473,7 +512,8 @@ function decodeWords(nw: number, missing: Int32Array, broken: Int32Array, margin
  * over the records compares each input value (Hs, Tp, each bed velocity, wind; each curve) with
  * the sorted thresholds of every operation and sets one bit per operation in three masks (a needed
  * value missing, a limit broken, an Hs limit met at OPLIM only); a second pass turns the masks
- * into the two bits of each operation's STATUS code and writes every operation's code. Any other
+ * into the two bits of each operation's STATUS code and writes every operation's code. The two
+ * passes take the records a chunk at a time (CHUNK), so the masks never leave the cache. Any other
  * operation (a limit kind added to the engine later) goes to evaluateStatus unchanged, so the
  * results never depend on which path ran (a property test compares the two).
  *
@@ -501,17 +541,19 @@ export function evaluateStatusMany(series: SiteSeries, ops: readonly OperationSp
     }
   });
   if (fast.length === 0) return result;
-  const s = options.scratch && options.scratch.missing.length >= n ? options.scratch : createStatusManyScratch(n);
-  for (let from = 0; from < fast.length; from += GROUP) {
-    const part = compiled.slice(from, from + GROUP);
-    maskPass(series, compileGroup(part), n, s, options.tpDistinct);
-    decodePass(
-      n,
-      s.missing,
-      s.broken,
-      s.marginal,
-      part.map((_, k) => result[fast[from + k]]),
-    );
+  const s = options.scratch && options.scratch.missing.length >= Math.min(n, CHUNK) ? options.scratch : createStatusManyScratch(n);
+  const chunk = Math.min(CHUNK, s.missing.length, s.broken.length, s.marginal.length);
+  for (let first = 0; first < fast.length; first += GROUP) {
+    const part = compiled.slice(first, first + GROUP);
+    const g = compileGroup(part);
+    const tables = tpTables(g, n, options.tpDistinct);
+    const outs = part.map((_, k) => result[fast[first + k]]);
+    const words = wordViews(outs, n);
+    for (let from = 0; from < n; from += chunk) {
+      const to = Math.min(n, from + chunk);
+      maskPass(series, g, tables, from, to, s);
+      decodePass(from, to, s, outs, words);
+    }
   }
   return result;
 }

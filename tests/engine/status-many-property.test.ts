@@ -85,6 +85,40 @@ describe('evaluateStatusMany equals the general path, evaluateStatus', () => {
     );
   });
 
+  it('series longer than one step of the two passes (several chunks of records and a tail), with and without distinct Tp', () => {
+    fc.assert(
+      fc.property(
+        fc
+          .array(opArb, { minLength: 1, maxLength: 10 })
+          .chain((ops) => fc.tuple(fc.constant(ops), seriesArb(ops), fc.integer({ min: 8192, max: 13000 }), fc.boolean())),
+        ([ops, short, n, distinct]) => {
+          // The random records repeated to n (more than two chunks of 4096, any tail length).
+          const m = short.timeMs.length;
+          const tile = (a: Float64Array) => Array.from({ length: n }, (_, i) => a[i % m]);
+          const series = makeSeries({
+            hsM: tile(short.hsM),
+            tpS: tile(short.tpS),
+            bedVelocityLinearMps: tile(short.bedVelocityLinearMps),
+            bedVelocitySoulsbyMps: tile(short.bedVelocitySoulsbyMps),
+            windMps: tile(short.windMps),
+          });
+          const keys = Array.from(new Set(Array.from(series.tpS).filter((t) => t === t)));
+          const ids = Int32Array.from(series.tpS, (t) => keys.indexOf(t));
+          const tpDistinct = distinct ? { ids, keys: Float64Array.from(keys) } : undefined;
+          const many = evaluateStatusMany(series, ops, {
+            alphaTable: DEFAULT_ALPHA_TABLE,
+            tpDistinct,
+            scratch: createStatusManyScratch(n),
+          });
+          ops.forEach((op, o) => {
+            expect(Array.from(many[o])).toEqual(Array.from(evaluateStatus(series, op, { alphaTable: DEFAULT_ALPHA_TABLE })));
+          });
+        },
+      ),
+      { numRuns: 25 },
+    );
+  });
+
   it('out buffers that do not start on a 4-byte boundary (codes written one byte at a time)', () => {
     fc.assert(
       fc.property(
