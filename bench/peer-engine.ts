@@ -44,7 +44,12 @@ export interface StageTimes {
   status: number;
   statistics: number;
   total: number;
-  /** Sum of figures of the results, so that no work can be skipped; equal on every run. */
+  /**
+   * Per (worksite, operation), at [site * operations + o], a sum of figures of its statistics (0
+   * where another thread worked it), so that no work can be skipped and runs can be compared.
+   */
+  sums: number[];
+  /** The sums added in index order: equal on every run, on one thread or several. */
   checksum: number;
   /** Of the status time, ms spent waiting at the barriers for the other threads (0 on one thread). */
   waitMs: number;
@@ -155,7 +160,7 @@ export function runHindcastAllSites(
   let transform = 0;
   let statusMs = 0;
   let statistics = 0;
-  let checksum = 0;
+  const sums = new Array<number>(input.sites.length * nOps).fill(0);
   let waitMs = 0;
   // This share's records of the data point; no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8).
   const tzS = buf.tzS.fill(NaN);
@@ -198,14 +203,22 @@ export function runHindcastAllSites(
     for (let o = nextOp(k); o < nOps; o = nextOp(k)) {
       const op = input.operations[o];
       const r = monthlyStatisticsWithGoStarts(input.timeMs, codes(set, o), buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
+      let sum = 0;
       for (const m of r.months)
-        checksum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
-      for (const ym of r.yearMonths) checksum += (ym.wowP90Hours ?? 0) * 1e-6;
+        sum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
+      for (const ym of r.yearMonths) sum += (ym.wowP90Hours ?? 0) * 1e-6;
+      sums[k * nOps + o] = sum;
     }
     t = clock();
     statistics += t - t2;
   });
-  return { transform, status: statusMs, statistics, total: t - t0, checksum, waitMs };
+  return { transform, status: statusMs, statistics, total: t - t0, sums, checksum: sumInOrder(sums), waitMs };
+}
+
+function sumInOrder(sums: readonly number[]): number {
+  let total = 0;
+  for (const x of sums) total += x;
+  return total;
 }
 
 /** Copies a Float64Array into shared memory (so workers read it without a copy). */
@@ -285,12 +298,15 @@ export class EnginePool {
     );
     const total = performance.now() - t0;
     const slowest = (k: 'transform' | 'status' | 'statistics') => Math.max(...answers.map((a) => a[k]));
+    // Each (worksite, operation) was worked by one thread: 0 in the other threads' sums.
+    const sums = answers[0].sums.map((_, j) => answers.reduce((a, b) => a + b.sums[j], 0));
     return {
       transform: slowest('transform'),
       status: slowest('status'),
       statistics: slowest('statistics'),
       total,
-      checksum: answers.reduce((a, b) => a + b.checksum, 0),
+      sums,
+      checksum: sumInOrder(sums),
       waitMs: Math.max(...answers.map((a) => a.waitMs)),
     };
   }
