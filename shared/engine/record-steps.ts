@@ -68,6 +68,15 @@ function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
     return result;
   }
   const m = n - 1;
+  // One spacing throughout (the usual hindcast or forecast grid): a single stretch, so every
+  // record lasts that spacing and continues into the next; the general rules below give exactly
+  // this, with five passes and three temporary arrays.
+  const s0 = timeMs[1] - timeMs[0];
+  if (m >= 3 && s0 > 0 && s0 < Infinity && evenlySpaced(timeMs, s0)) {
+    durationMs.fill(s0);
+    continues.fill(1, 0, m);
+    return result;
+  }
   // Spacing i is timeMs[i + 1] - timeMs[i]. stretchStep[i]: its value when it belongs to a stretch
   // (at least 3 equal spacings in a row), else NaN.
   const stretchStep = new Float64Array(m);
@@ -104,6 +113,12 @@ function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
   // The last record: the step of the spacing before it, or after a gap the step after that gap.
   durationMs[m] = continues[m - 1] === 1 ? durationMs[m - 1] : after[m - 1];
   return result;
+}
+
+/** True when every spacing of the series equals `step` (compared as markStretches compares them). */
+function evenlySpaced(timeMs: Float64Array, step: number): boolean {
+  for (let i = 1; i + 1 < timeMs.length; i++) if (timeMs[i + 1] - timeMs[i] !== step) return false;
+  return true;
 }
 
 /** Writes the spacing into `out[i]` where spacing i belongs to a run of >= 3 equal spacings, else NaN. */
