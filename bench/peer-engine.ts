@@ -134,7 +134,11 @@ function barrier(counter: Int32Array, workers: number, round: number): void {
  * Transform, status and statistics, one worksite after the other, as the workability service does
  * it: the data point's distinct values found once for every worksite, only the fields the engine
  * reads transformed, the status of a worksite's operations in one evaluateStatusMany call, one
- * calendar for the series, buffers reused from run to run. On one thread (the default share) every
+ * calendar for the series, buffers reused from run to run. Every run works the time axis's
+ * groundwork afresh (the median step, the record steps with their gaps, the calendar), as the peer
+ * times its own with its statistics: the statistics read a new view of the time axis on each run,
+ * so the record steps the engine keeps per time array are not found from an earlier run. On one
+ * thread (the default share) every
  * record and operation; see {@link RunShare} for a thread's part. `clock` times the stages (ms;
  * default wall time), each stage's time summed over the worksites; a thread's wait at the barrier
  * counts in its status time.
@@ -146,6 +150,7 @@ export function runHindcastAllSites(
 ): StageTimes {
   const n = input.timeMs.length;
   const nOps = input.operations.length;
+  const timeAxis = input.timeMs.subarray(0); // a new view on every run (see above)
   const [lo, hi] = shareRange(n, share.worker, share.workers);
   const buf = runBuffers(n, hi - lo);
   const sets = share.workers > 1 ? 2 : 1;
@@ -196,13 +201,13 @@ export function runHindcastAllSites(
     waitMs += t2 - tw;
     statusMs += t2 - t1;
     if (calendar === null) {
-      stepMs = detectStepMs(input.timeMs);
-      calendar = calendarIndex(input.timeMs, 'UTC');
+      stepMs = detectStepMs(timeAxis);
+      calendar = calendarIndex(timeAxis, 'UTC');
     }
     taken = 0;
     for (let o = nextOp(k); o < nOps; o = nextOp(k)) {
       const op = input.operations[o];
-      const r = monthlyStatisticsWithGoStarts(input.timeMs, codes(set, o), buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
+      const r = monthlyStatisticsWithGoStarts(timeAxis, codes(set, o), buf.goStart, stepMs, calendar, op.tpopH + op.tcH, buf.scratch);
       let sum = 0;
       for (const m of r.months)
         sum += (m.workability ?? 0) + (m.goStartShare ?? 0) + (m.wowP90Hours ?? 0) * 1e-3 + (m.windowsPerMonth ?? 0) * 1e-2;
@@ -238,9 +243,8 @@ export interface PoolMessage {
  * Worker threads that share each run (see {@link RunShare}). The input and the status buffers are
  * placed in shared memory and handed to the threads once per input (not timed, like the peer's
  * arrays already in memory); each thread keeps them from run to run, as the server's engine thread
- * keeps a series it has seen (so per-series caches, such as the record steps of the time axis, hold
- * on the threads as on the main thread). A run's total is the wall time from posting the work to the
- * last answer.
+ * keeps a series it has seen, and works the time axis's groundwork afresh on every run, as on the
+ * main thread. A run's total is the wall time from posting the work to the last answer.
  */
 export class EnginePool {
   private constructor(private readonly workers: Worker[]) {}
