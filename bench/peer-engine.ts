@@ -78,7 +78,8 @@ export interface RunShare {
 
 /**
  * Buffers one thread keeps from run to run, as a server's engine worker keeps its workspace:
- * one worksite's series for its records, the statistics' scratch and the status scratch.
+ * one worksite's series for its records, the statistics' scratch and the status scratch, the data
+ * point's record indices and the calendar (fresh memory costs a page fault per 4 kB here).
  */
 interface RunBuffers {
   n: number;
@@ -90,6 +91,9 @@ interface RunBuffers {
   statusScratch: StatusManyScratch;
   /** The status codes on one thread (operations x records); threads share theirs (RunShare). */
   status: Uint8Array<ArrayBufferLike>;
+  /** prepareSeaInput's record indices (this thread's records) and the calendar (every record). */
+  ids: { tpIds: Int32Array; dirIds: Int32Array };
+  calendar: { month: Uint8Array; yearMonth: Int32Array };
 }
 
 let buffers: RunBuffers | null = null;
@@ -105,6 +109,8 @@ function runBuffers(n: number, part: number): RunBuffers {
       scratch: createStatisticsScratch(n),
       statusScratch: createStatusManyScratch(part),
       status: new Uint8Array(0),
+      ids: { tpIds: new Int32Array(part), dirIds: new Int32Array(part) },
+      calendar: { month: new Uint8Array(n), yearMonth: new Int32Array(n) },
     };
   }
   return buffers;
@@ -170,7 +176,7 @@ export function runHindcastAllSites(
   // This share's records of the data point; no Tz in the peer's data: Soulsby takes Tz from Tp (docs/domain.md#convention-8).
   const tzS = buf.tzS.fill(NaN);
   const sea = { hsM: input.hs.subarray(lo, hi), tpS: input.tp.subarray(lo, hi), tzS, dirDeg: input.dir.subarray(lo, hi) };
-  const prepared = prepareSeaInput(sea);
+  const prepared = prepareSeaInput(sea, buf.ids);
   let t = clock();
   transform += t - t0;
   let calendar: CalendarIndex | null = null;
@@ -202,7 +208,7 @@ export function runHindcastAllSites(
     statusMs += t2 - t1;
     if (calendar === null) {
       stepMs = detectStepMs(timeAxis);
-      calendar = calendarIndex(timeAxis, 'UTC');
+      calendar = calendarIndex(timeAxis, 'UTC', buf.calendar);
     }
     taken = 0;
     for (let o = nextOp(k); o < nOps; o = nextOp(k)) {

@@ -22,7 +22,9 @@
  *   the fallback step (the caller's dt, by default the median spacing) for every record.
  *
  * The result is kept per time array (a WeakMap), so every operation at every worksite of one series
- * shares one computation; time arrays must not change after use.
+ * shares one computation; time arrays must not change after use. An evenly spaced series' result is
+ * also kept by its shape (records, spacing), so another time array of that shape shares it. Results
+ * are shared: callers read them and never write into them.
  */
 import { detectStepMs } from './detect-step';
 
@@ -37,6 +39,14 @@ export interface RecordSteps {
 }
 
 const cache = new WeakMap<Float64Array, RecordSteps>();
+
+/**
+ * Steps of evenly spaced series by (records, spacing, fallback): they depend on nothing else, so a
+ * new time array of the same shape (another worksite's copy, a new view) gets the same arrays
+ * after one pass over its times, not fresh memory. A few shapes only (oldest dropped first).
+ */
+const evenCache = new Map<string, RecordSteps>();
+const EVEN_CACHE_SIZE = 8;
 
 /**
  * Local steps of a series (see the module comment).
@@ -59,6 +69,13 @@ export function recordSteps(timeMs: Float64Array, fallbackStepMs?: number): Reco
 
 function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
   const n = timeMs.length;
+  // One spacing throughout (the usual hindcast or forecast grid): a single stretch, so every
+  // record lasts that spacing and continues into the next; the general rules below give exactly
+  // this, with five passes and three temporary arrays.
+  if (n >= 4) {
+    const s0 = timeMs[1] - timeMs[0];
+    if (s0 > 0 && s0 < Infinity && evenlySpaced(timeMs, s0)) return evenSteps(n, s0, fallback);
+  }
   const durationMs = new Float64Array(n);
   const continues = new Uint8Array(n);
   const result = { durationMs, continues, fallbackStepMs: fallback };
@@ -68,15 +85,6 @@ function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
     return result;
   }
   const m = n - 1;
-  // One spacing throughout (the usual hindcast or forecast grid): a single stretch, so every
-  // record lasts that spacing and continues into the next; the general rules below give exactly
-  // this, with five passes and three temporary arrays.
-  const s0 = timeMs[1] - timeMs[0];
-  if (m >= 3 && s0 > 0 && s0 < Infinity && evenlySpaced(timeMs, s0)) {
-    durationMs.fill(s0);
-    continues.fill(1, 0, m);
-    return result;
-  }
   // Spacing i is timeMs[i + 1] - timeMs[i]. stretchStep[i]: its value when it belongs to a stretch
   // (at least 3 equal spacings in a row), else NaN.
   const stretchStep = new Float64Array(m);
@@ -113,6 +121,19 @@ function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
   // The last record: the step of the spacing before it, or after a gap the step after that gap.
   durationMs[m] = continues[m - 1] === 1 ? durationMs[m - 1] : after[m - 1];
   return result;
+}
+
+/** The steps of an evenly spaced series of n records, `step` apart (see evenCache). */
+function evenSteps(n: number, step: number, fallback: number): RecordSteps {
+  const key = `${n}|${step}|${fallback}`;
+  const hit = evenCache.get(key);
+  if (hit) return hit;
+  const durationMs = new Float64Array(n).fill(step);
+  const continues = new Uint8Array(n).fill(1, 0, n - 1);
+  const steps = { durationMs, continues, fallbackStepMs: fallback };
+  if (evenCache.size >= EVEN_CACHE_SIZE) evenCache.delete(evenCache.keys().next().value as string);
+  evenCache.set(key, steps);
+  return steps;
 }
 
 /** True when every spacing of the series equals `step` (compared as markStretches compares them). */

@@ -24,6 +24,13 @@ describe('calendarIndex against @date-fns/tz (TZDate) across DST changes (docs/d
         if (cal.month[i] !== m || cal.yearMonth[i] !== y * 12 + m) mismatches++;
       }
       expect(mismatches).toBe(0);
+      // Into reused buffers (longer, holding another series' months): the same months, in views of them.
+      const into = { month: new Uint8Array(n + 9).fill(13), yearMonth: new Int32Array(n + 9).fill(-1) };
+      const again = calendarIndex(times, zone, into);
+      expect(again.month.buffer).toBe(into.month.buffer);
+      expect(again.yearMonth).toHaveLength(n);
+      expect(Array.from(again.yearMonth)).toEqual(Array.from(cal.yearMonth));
+      expect(Array.from(again.month)).toEqual(Array.from(cal.month));
     });
   }
 
@@ -45,6 +52,9 @@ describe('calendarIndex against @date-fns/tz (TZDate) across DST changes (docs/d
   it('rejects an unknown time zone and times that go back', () => {
     expect(() => calendarIndex(Float64Array.of(0, HOUR), 'Mars/Olympus_Mons')).toThrow(RangeError);
     expect(() => calendarIndex(Float64Array.of(Date.UTC(2020, 5, 1), Date.UTC(2020, 3, 1)), 'UTC')).toThrow(RangeError);
+    expect(() => calendarIndex(Float64Array.of(0, HOUR), 'UTC', { month: new Uint8Array(1), yearMonth: new Int32Array(2) })).toThrow(
+      /buffers shorter than the series/,
+    );
   });
 });
 

@@ -67,7 +67,15 @@ describe("transformToSite: fields 'engine' and a prepared input give the default
         fc.array(siteArb, { minLength: 1, maxLength: 4 }),
         fc.constantFrom(60, 20, Infinity),
         (input, sites, srcDepth) => {
-          const prepared = prepareSeaInput(input);
+          // Into buffers longer than the series, filled with junk first: the same ids and keys.
+          const n = input.hsM.length;
+          const buffers = { tpIds: new Int32Array(n + 5).fill(77), dirIds: new Int32Array(n + 5).fill(77) };
+          const prepared = prepareSeaInput(input, buffers);
+          const fresh = prepareSeaInput(input);
+          expect(Array.from(prepared.tpIds)).toEqual(Array.from(fresh.tpIds));
+          expect(Array.from(prepared.dirIds)).toEqual(Array.from(fresh.dirIds));
+          expect(Array.from(prepared.tpKeys)).toEqual(Array.from(fresh.tpKeys));
+          expect(prepared.tpIds.buffer).toBe(buffers.tpIds.buffer);
           for (const site of sites) {
             const want = transformToSite(input, { depthM: srcDepth }, site);
             const fast = transformToSite(input, { depthM: srcDepth }, site, {
@@ -88,6 +96,16 @@ describe("transformToSite: fields 'engine' and a prepared input give the default
       ),
       { numRuns: 300 },
     );
+  });
+
+  it('buffers shorter than the series are refused', () => {
+    const a: SeaSeriesInput = {
+      hsM: Float64Array.of(1, 2),
+      tpS: Float64Array.of(8, 9),
+      tzS: Float64Array.of(NaN, NaN),
+      dirDeg: Float64Array.of(250, 260),
+    };
+    expect(() => prepareSeaInput(a, { tpIds: new Int32Array(1), dirIds: new Int32Array(2) })).toThrow(/buffers shorter than the series/);
   });
 
   it('a prepared input of another series is refused', () => {
