@@ -13,9 +13,10 @@
  *
  * The table (MOMENT_GRID): ln Tp every 0.01 (1 %) from TP_MIN_S to TP_MAX_S, theta every 1 deg
  * all round (360 wraps to 0), read bilinearly: linear in Tp between its two nodes (the interval
- * found by a lookup, not a logarithm) and in theta. Nodes are worked lazily on first use (NaN
- * marks a node not yet worked; a Tp node's row is allocated on first use), since a series touches a
- * small part of the table. Gamma:
+ * found by a lookup, not a logarithm) and in theta. Nodes are worked lazily on first use (`worked`
+ * marks a node once worked; a Tp node's row is allocated on first use and only the parts of it
+ * worked are ever written, so the rest never costs a page of fresh memory), since a series touches
+ * a small part of the table. Gamma:
  *  - a fixed gamma (swell, or a wind sea of fixed gamma): one layer at that gamma;
  *  - the DNV rule (gamma 1-5): layers at 5 Chebyshev-Lobatto nodes in s = ln gamma over
  *    [0, ln 5] and Lagrange interpolation in s. The unnormalised sums N(s) = sum_j g_j(gamma) H2_j
@@ -144,8 +145,10 @@ export interface MomentTable {
   lagrangeDen: Float64Array;
   /** Per Tp node, the grid periods' positions on the spread table (the same for every theta node). */
   positions: (Float64Array | undefined)[];
-  /** Per Tp node: [thetaNode][layer][a0, a2], NaN until worked (a record's neighbours in time share Tp nodes). */
+  /** Per Tp node: [thetaNode][layer][a0, a2], read only once worked (a record's neighbours in time share Tp nodes). */
   rows: (Float64Array | undefined)[];
+  /** Per node [thetaNode * tpNodes + tpNode]: 1 once worked. */
+  worked: Uint8Array;
   /** Per cell [thetaNode * tpNodes + tpNode]: 1 once its four corner nodes are worked (series path). */
   cells: Uint8Array;
   /** Coefficients of the layers for the last gamma asked for. */
@@ -209,6 +212,7 @@ export function createMomentTable(
     positions: new Array<Float64Array | undefined>(tpNodes),
     rows: new Array<Float64Array | undefined>(tpNodes),
     cells: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
+    worked: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
     lastGamma: NaN,
     coef: new Float32Array(layers),
     single: -1,
@@ -264,11 +268,12 @@ function workNode(t: MomentTable, row: Float64Array, i: number, k: number): void
     row[o] = a0;
     row[o + 1] = a2;
   }
+  t.worked[k * t.tpNodes + i] = 1;
 }
 
 function rowOf(t: MomentTable, i: number): Float64Array {
   let row = t.rows[i];
-  if (!row) t.rows[i] = row = new Float64Array(t.thetaNodes * t.gammas.length * V).fill(NaN);
+  if (!row) t.rows[i] = row = new Float64Array(t.thetaNodes * t.gammas.length * V); // zeros, untouched until worked
   return row;
 }
 
@@ -528,14 +533,13 @@ const REC: SeaPartition = { kind: 'windSea', hsM: 0, tpS: 0, dirDeg: 0 };
 function workCell(t: MomentTable, i: number, k: number, k1: number): void {
   const rowLo = rowOf(t, i);
   const rowHi = rowOf(t, i + 1);
-  const layers = t.gammas.length;
-  const oA = k * layers * V;
-  const oB = k1 * layers * V;
-  if (rowLo[oA] !== rowLo[oA]) workNode(t, rowLo, i, k);
-  if (rowHi[oA] !== rowHi[oA]) workNode(t, rowHi, i + 1, k);
-  if (rowLo[oB] !== rowLo[oB]) workNode(t, rowLo, i, k1);
-  if (rowHi[oB] !== rowHi[oB]) workNode(t, rowHi, i + 1, k1);
-  t.cells[k * t.tpNodes + i] = 1;
+  const worked = t.worked;
+  const tpNodes = t.tpNodes;
+  if (worked[k * tpNodes + i] === 0) workNode(t, rowLo, i, k);
+  if (worked[k * tpNodes + i + 1] === 0) workNode(t, rowHi, i + 1, k);
+  if (worked[k1 * tpNodes + i] === 0) workNode(t, rowLo, i, k1);
+  if (worked[k1 * tpNodes + i + 1] === 0) workNode(t, rowHi, i + 1, k1);
+  t.cells[k * tpNodes + i] = 1;
 }
 
 /** Records a series pass leaves out: `classes[i] >= from` (see {@link tabulatedMomentSeries}). */
