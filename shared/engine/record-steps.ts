@@ -71,7 +71,7 @@ function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
   const n = timeMs.length;
   // One spacing throughout (the usual hindcast or forecast grid): a single stretch, so every
   // record lasts that spacing and continues into the next; the general rules below give exactly
-  // this, with five passes and three temporary arrays.
+  // this, in three passes.
   if (n >= 4) {
     const s0 = timeMs[1] - timeMs[0];
     if (s0 > 0 && s0 < Infinity && evenlySpaced(timeMs, s0)) return evenSteps(n, s0, fallback);
@@ -85,41 +85,35 @@ function computeSteps(timeMs: Float64Array, fallback: number): RecordSteps {
     return result;
   }
   const m = n - 1;
-  // Spacing i is timeMs[i + 1] - timeMs[i]. stretchStep[i]: its value when it belongs to a stretch
-  // (at least 3 equal spacings in a row), else NaN.
-  const stretchStep = new Float64Array(m);
-  markStretches(timeMs, stretchStep);
-  // Step before each spacing (nearest stretch at or before it) and after it (at or after it).
-  const before = new Float64Array(m);
-  const after = new Float64Array(m);
-  let last = NaN;
-  for (let i = 0; i < m; i++) {
-    const v = stretchStep[i];
-    if (v === v) last = v;
-    before[i] = last;
-  }
-  last = NaN;
+  // Spacing i is timeMs[i + 1] - timeMs[i]. The two output arrays serve as the work space (no
+  // temporary arrays: fresh memory costs a page fault per 4 kB): `continues[i]` first marks the
+  // spacings that belong to a stretch (at least 3 equal spacings in a row), and `durationMs[i]`
+  // first holds the step after each spacing (the nearest stretch at or after it; NaN for none).
+  markStretches(timeMs, continues);
+  let after = NaN;
   for (let i = m - 1; i >= 0; i--) {
-    const v = stretchStep[i];
-    if (v === v) last = v;
-    after[i] = last;
+    if (continues[i] === 1) after = timeMs[i + 1] - timeMs[i];
+    durationMs[i] = after;
   }
+  // Forward: the step before each spacing (the nearest stretch at or before it), then the record's.
+  let before = NaN;
+  let lastAfter = NaN;
   for (let i = 0; i < m; i++) {
-    let b = before[i];
-    let a = after[i];
+    const s = timeMs[i + 1] - timeMs[i];
+    const inStretch = continues[i] === 1;
+    if (inStretch) before = s;
+    let b = before;
+    let a = durationMs[i];
     if (b !== b) b = a === a ? a : fallback;
     if (a !== a) a = b;
-    const s = timeMs[i + 1] - timeMs[i];
-    const inStretch = stretchStep[i] === stretchStep[i];
     const gap = !inStretch && s > 1.5 * b && s > 1.5 * a;
     continues[i] = gap ? 0 : 1;
     // The record takes its stretch's step: that of the spacing after it, or the step before a gap.
     durationMs[i] = inStretch ? s : b;
-    before[i] = b;
-    after[i] = a;
+    lastAfter = a;
   }
   // The last record: the step of the spacing before it, or after a gap the step after that gap.
-  durationMs[m] = continues[m - 1] === 1 ? durationMs[m - 1] : after[m - 1];
+  durationMs[m] = continues[m - 1] === 1 ? durationMs[m - 1] : lastAfter;
   return result;
 }
 
@@ -142,16 +136,16 @@ function evenlySpaced(timeMs: Float64Array, step: number): boolean {
   return true;
 }
 
-/** Writes the spacing into `out[i]` where spacing i belongs to a run of >= 3 equal spacings, else NaN. */
-function markStretches(timeMs: Float64Array, out: Float64Array): void {
-  const m = out.length;
+/** Sets `inStretch[i]` to 1 where spacing i belongs to a run of >= 3 equal spacings, else 0 (i < n - 1). */
+function markStretches(timeMs: Float64Array, inStretch: Uint8Array): void {
+  const m = timeMs.length - 1;
   let i = 0;
   while (i < m) {
     const s = timeMs[i + 1] - timeMs[i];
     let j = i + 1;
     while (j < m && timeMs[j + 1] - timeMs[j] === s) j++;
-    const v = j - i >= 3 ? s : NaN;
-    for (let k = i; k < j; k++) out[k] = v;
+    const v = j - i >= 3 ? 1 : 0;
+    for (let k = i; k < j; k++) inStretch[k] = v;
     i = j;
   }
 }
