@@ -49,8 +49,10 @@ let scratchM2 = new Float64Array(0);
 
 function momentScratch(n: number): { m0: Float64Array; m2: Float64Array } {
   if (scratchM0.length < n) {
-    scratchM0 = new Float64Array(n);
-    scratchM2 = new Float64Array(n);
+    // With room to spare, so that worksites a few records longer than the first reuse it.
+    const size = n + (n >> 4);
+    scratchM0 = new Float64Array(size);
+    scratchM2 = new Float64Array(size);
   }
   return { m0: scratchM0.subarray(0, n), m2: scratchM2.subarray(0, n) };
 }
