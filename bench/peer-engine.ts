@@ -143,7 +143,9 @@ function barrier(counter: Int32Array, workers: number, round: number): void {
  * calendar for the series, buffers reused from run to run. Every run works the time axis's
  * groundwork afresh (the median step, the record steps with their gaps, the calendar), as the peer
  * times its own with its statistics: the statistics read a new view of the time axis on each run,
- * so the record steps the engine keeps per time array are not found from an earlier run. On one
+ * so the record steps the engine keeps per time array are not found from an earlier run (an evenly
+ * spaced axis is still checked record by record; only its result arrays, kept by shape, are
+ * reused). On one
  * thread (the default share) every
  * record and operation; see {@link RunShare} for a thread's part. `clock` times the stages (ms;
  * default wall time), each stage's time summed over the worksites; a thread's wait at the barrier
