@@ -12,11 +12,13 @@
  */
 import {
   DEFAULT_RESPONSE_SEA,
+  GRID_X_MIN,
   mostProbableMaximum,
   prepareRao,
   significantAmplitude,
+  markMissingPartitions,
   tabulatedMomentSeries,
-  type SkipRecords,
+  tabulatedMomentsOfOpen,
   type ResponseSeaSettings,
   type SeaPartitionSeries,
 } from '../response';
@@ -43,24 +45,28 @@ export function totalHs(partitions: readonly { hsM: number }[]): number {
   return Math.sqrt(e);
 }
 
-/** Moments m0, m2 of one response per record, in buffers kept per thread (fresh memory costs more than the work). */
+/**
+ * Moments m0, m2 of one response per record, and a list of records, in buffers kept per thread
+ * (fresh memory costs more than the work here).
+ */
 let scratchM0 = new Float64Array(0);
 let scratchM2 = new Float64Array(0);
+let scratchOpen = new Int32Array(0);
 
-function momentScratch(n: number): { m0: Float64Array; m2: Float64Array } {
+function momentScratch(n: number): { m0: Float64Array; m2: Float64Array; open: Int32Array } {
   if (scratchM0.length < n) {
     // With room to spare, so that worksites a few records longer than the first reuse it.
     const size = n + (n >> 4);
     scratchM0 = new Float64Array(size);
     scratchM2 = new Float64Array(size);
+    scratchOpen = new Int32Array(size);
   }
-  return { m0: scratchM0.subarray(0, n), m2: scratchM2.subarray(0, n) };
+  return { m0: scratchM0.subarray(0, n), m2: scratchM2.subarray(0, n), open: scratchOpen };
 }
 
 /**
  * Works the moments of one response over the series into the thread's scratch buffers (NaN
- * throughout when the vessel has no RAO for it); `skip` as in tabulatedMomentSeries. The buffers
- * are overwritten by the next call.
+ * throughout when the vessel has no RAO for it). The buffers are overwritten by the next call.
  */
 function momentsInto(
   parts: readonly SeaPartitionSeries[],
@@ -68,14 +74,13 @@ function momentsInto(
   settings: ResponseSeaSettings,
   name: string,
   n: number,
-  skip: SkipRecords | null,
 ): { m0: Float64Array; m2: Float64Array } {
   const out = momentScratch(n);
   const rao = prepareRao(vessel.raos);
   if (!rao.amplitudes[name]) {
     out.m0.fill(NaN);
     out.m2.fill(NaN);
-  } else tabulatedMomentSeries(rao, name, vessel.headingDeg, parts, settings, out.m0, out.m2, skip);
+  } else tabulatedMomentSeries(rao, name, vessel.headingDeg, parts, settings, out.m0, out.m2);
   return out;
 }
 
@@ -107,7 +112,7 @@ export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limit
   const settings = responseSettings(op.limits.responseSea);
   // One moment pass per response named, for every limit on it.
   for (const name of new Set(limits.map((l) => l.response))) {
-    const { m0, m2 } = momentsInto(parts, op.vessel, settings, name, n, null);
+    const { m0, m2 } = momentsInto(parts, op.vessel, settings, name, n);
     limits.forEach((l, r) => {
       if (l.response !== name) return;
       const out = values[r];
@@ -119,12 +124,53 @@ export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limit
   return { values, hsTotal };
 }
 
+/** Relative margin on a surely-broken bound, far above the rounding of the exact path's sqrt and log. */
+const BREAK_MARGIN = 1e-9;
+
+/**
+ * Longest zero-crossing period a response to the series can have, s: every partition's spectrum
+ * lies on omega >= GRID_X_MIN omega_p, so m2 >= (GRID_X_MIN 2 pi / Tp)^2 m0 for each and for their
+ * sum, and Tz_R = 2 pi sqrt(m0/m2) <= Tp / GRID_X_MIN for the longest Tp of the series' partitions
+ * (1 % more for the table's interpolation); Infinity when a Tp is infinite.
+ */
+function longestResponseTzS(parts: readonly SeaPartitionSeries[]): number {
+  let top = 0;
+  for (const p of parts) top = Math.max(top, longestPeriod(p.tpS));
+  return (1.01 * top) / GRID_X_MIN;
+}
+
+/** Longest period of a series (NaN left out), kept per array: every operation on the worksite asks. */
+const longestCache = new WeakMap<Float64Array, number>();
+
+function longestPeriod(tpS: Float64Array): number {
+  const hit = longestCache.get(tpS);
+  if (hit !== undefined) return hit;
+  let top = 0;
+  for (let i = 0; i < tpS.length; i++) if (tpS[i] > top) top = tpS[i];
+  longestCache.set(tpS, top);
+  return top;
+}
+
+/**
+ * m0 above which a record surely breaks the limit (R > R_lim), whatever the rest of its sea
+ * (Infinity: no such bound). R_s = 2 sqrt(m0) > R_lim when m0 > R_lim^2 / 4. For R_mpm, with
+ * Tz_R <= tzTopS, ln(tau/Tz_R) >= ln(tau/tzTopS) = L, so R_mpm^2 >= 2 m0 L > R_lim^2 when
+ * m0 > R_lim^2 / (2 L). With every alpha at most 1, R > R_lim is class 2 (broken).
+ */
+export function surelyBrokenM0(l: ResponseLimit, tzTopS: number): number {
+  if (l.statistic === 'significant') return ((l.max * l.max) / 4) * (1 + BREAK_MARGIN);
+  const lnCycles = Math.log(((l.durationH ?? DEFAULT_MPM_DURATION_H) * 3600) / tzTopS);
+  return lnCycles > 0 ? ((l.max * l.max) / (2 * lnCycles)) * (1 + BREAK_MARGIN) : Infinity;
+}
+
 /**
  * The status pass of the response limits (docs/domain.md#vessel-response): raises each record's
  * class `cls` (0 met, 1 met at OPLIM only, 2 broken, `noData` no data) by the operation's
  * response limits, as {@link responseClass} classes a value; a record without its response's data
  * becomes `noData`. A record already broken or without data keeps its class unless its response
- * data is missing, so its response is not worked (the class could not rise further).
+ * data is missing, so its response is not worked (the class could not rise further): the moment
+ * passes go over a list of the records still open. Where every alpha is at most 1, a record whose
+ * m0 (after any partition) is above {@link surelyBrokenM0} is broken without its statistic.
  */
 export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: CompiledLimits, cls: Uint8Array, noData: number): void {
   const n = cls.length;
@@ -134,37 +180,133 @@ export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: C
     return;
   }
   const settings = responseSettings(op.limits.responseSea);
-  const skip: SkipRecords = { classes: cls, from: 2 };
-  const tmp = new Float64Array(2);
+  const rao = prepareRao(op.vessel.raos);
   const hsOf = parts.map((p) => p.hsM);
-  const np = hsOf.length;
   // Alpha is linear between its table's columns and held beyond them, so never below the row's
   // least value: a response at or under that share of its limit is met at OPWF whatever Hs_eq.
   const alphaLeast = Math.min(1, ...(c.alphaRow ?? [1]));
-  // One moment pass per response named, for every limit on it (a record left out then is broken
-  // or without data, and stays so).
-  for (const name of new Set(c.responses.map((l) => l.response))) {
-    const { m0, m2 } = momentsInto(parts, op.vessel, settings, name, n, skip);
-    for (const l of c.responses) {
-      if (l.response !== name) continue;
-      const d = l.durationH ?? DEFAULT_MPM_DURATION_H;
-      const significant = l.statistic === 'significant';
-      const surelyMet = alphaLeast * l.max;
-      for (let i = 0; i < n; i++) {
-        const a = m0[i];
-        if (a !== a || m2[i] !== m2[i]) {
-          cls[i] = noData;
-          continue;
-        }
-        if (cls[i] >= 2) continue;
-        const value = significant ? significantAmplitude(a) : mostProbableMaximum(a, m2[i], d);
-        if (value <= surelyMet) continue;
-        let e = 0;
-        for (let q = 0; q < np; q++) e += hsOf[q][i] * hsOf[q][i];
-        const k = responseClass(c, value, l.max, Math.sqrt(e), tmp);
-        if (k > cls[i]) cls[i] = k;
+  const tzTopS = c.responses.some((l) => l.statistic === 'mpm') ? longestResponseTzS(parts) : Infinity;
+  // A missing partition value makes the record "no data" whatever else (and needs no moments).
+  markMissingPartitions(parts, settings, cls, noData);
+  const { m0, m2, open } = momentScratch(n);
+  let count = keepOpen(open, -1, cls);
+  // One moment pass per response named, for every limit on it, over the records still open.
+  const names = [...new Set(c.responses.map((l) => l.response))];
+  for (let k = 0; k < names.length; k++) {
+    const name = names[k];
+    const onName = c.responses.filter((l) => l.response === name);
+    count = keepOpen(open, count, cls);
+    if (!rao.amplitudes[name]) {
+      // No RAO for the response: no data throughout.
+      cls.fill(noData);
+      return;
+    }
+    // Alpha is at most 1 (the alpha table is checked so), so a response over its limit is broken
+    // whatever alpha: such records are classed from a bound on m0 without the statistic, and left
+    // out of the partitions after the one that showed it.
+    const breakAboveM0 = Math.min(...onName.map((l) => surelyBrokenM0(l, tzTopS)));
+    count = tabulatedMomentsOfOpen(rao, name, op.vessel.headingDeg, parts, settings, m0, m2, open, count, cls, 2, breakAboveM0);
+    for (const l of onName) classOpenRecords(open, count, m0, m2, cls, noData, hsOf, c, l, alphaLeast, surelyBrokenM0(l, tzTopS));
+  }
+}
+
+/**
+ * Keeps in open[0..count) the records of class below 2 (met, or met at OPLIM only), in order, and
+ * returns how many; `count` -1 lists them from every record of `cls`.
+ */
+function keepOpen(open: Int32Array, count: number, cls: Uint8Array): number {
+  let kept = 0;
+  if (count < 0) {
+    for (let i = 0; i < cls.length; i++) {
+      open[kept] = i;
+      if (cls[i] < 2) kept++;
+    }
+    return kept;
+  }
+  for (let r = 0; r < count; r++) {
+    const i = open[r];
+    open[kept] = i;
+    if (cls[i] < 2) kept++;
+  }
+  return kept;
+}
+
+/**
+ * Raises the classes of the records open[0..count) by one response limit from the moments (NaN:
+ * no data); `brokenAbove` from {@link surelyBrokenM0}. Alpha is at most 1, so a value over
+ * its limit is broken whatever alpha. Apart from the caller so that its loop takes only typed arrays and numbers:
+ * optimised early, and nothing boxed.
+ */
+function classOpenRecords(
+  open: Int32Array,
+  count: number,
+  m0: Float64Array,
+  m2: Float64Array,
+  cls: Uint8Array,
+  noData: number,
+  hsOf: readonly Float64Array[],
+  c: CompiledLimits,
+  l: ResponseLimit,
+  alphaLeast: number,
+  brokenAbove: number,
+): void {
+  const tauS = (l.durationH ?? DEFAULT_MPM_DURATION_H) * 3600;
+  const significant = l.statistic === 'significant';
+  const max = l.max;
+  const surelyMet = alphaLeast * max;
+  const np = hsOf.length;
+  const alphaRow = c.alphaRow;
+  const alphaCols = c.alphaCols;
+  const lastCol = alphaCols.length - 1;
+  for (let r = 0; r < count; r++) {
+    const i = open[r];
+    const a = m0[i];
+    if (a !== a || m2[i] !== m2[i]) {
+      cls[i] = noData;
+      continue;
+    }
+    if (cls[i] >= 2) continue;
+    if (a > brokenAbove) {
+      cls[i] = 2;
+      continue;
+    }
+    // significantAmplitude and mostProbableMaximum written out, with the same arithmetic: a call
+    // that takes or returns a number that is not a small integer may box it, and so may a
+    // conditional that mixes a computed number with the global NaN (both measured: tens of MB of
+    // garbage a pass). Tz_R = 2 pi sqrt(m0/m2); R_mpm = 0 where there is none or N <= 1.
+    let value = 0;
+    if (significant) value = 2 * Math.sqrt(a);
+    else {
+      const b = m2[i];
+      if (a > 0 && b > 0) {
+        const cycles = tauS / (2 * Math.PI * Math.sqrt(a / b));
+        if (cycles > 1) value = Math.sqrt(2 * a * Math.log(cycles));
       }
     }
+    if (value <= surelyMet) continue;
+    if (value > max) {
+      cls[i] = 2;
+      continue;
+    }
+    // responseClass and alphaAt, written out for the same reason: Hs_eq = Hs R_lim / R, alpha
+    // there (linear between the row's columns, held beyond), OPWF_R = alpha R_lim.
+    let e = 0;
+    for (let q = 0; q < np; q++) e += hsOf[q][i] * hsOf[q][i];
+    const hsEq = (Math.sqrt(e) * max) / value;
+    let alpha = 1;
+    if (alphaRow !== null) {
+      // R = 0: Hs_eq is infinite, the row's last value (as alphaAt gives it).
+      if (!(value > 0)) alpha = alphaRow[lastCol];
+      else if (hsEq <= alphaCols[0]) alpha = alphaRow[0];
+      else if (hsEq >= alphaCols[lastCol]) alpha = alphaRow[lastCol];
+      else {
+        let j = 1;
+        while (alphaCols[j] < hsEq) j++;
+        alpha = alphaRow[j - 1] + ((alphaRow[j] - alphaRow[j - 1]) * (hsEq - alphaCols[j - 1])) / (alphaCols[j] - alphaCols[j - 1]);
+      }
+    }
+    const k = (value > alpha * max ? 1 : 0) + (value > max ? 1 : 0);
+    if (k > cls[i]) cls[i] = k;
   }
 }
 

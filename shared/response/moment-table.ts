@@ -146,10 +146,10 @@ export interface MomentTable {
   /** Per Tp node, the grid periods' positions on the spread table (the same for every theta node). */
   positions: (Float64Array | undefined)[];
   /** Per Tp node: [thetaNode][layer][a0, a2], read only once worked (a record's neighbours in time share Tp nodes). */
-  rows: (Float64Array | undefined)[];
-  /** Per node [thetaNode * tpNodes + tpNode]: 1 once worked. */
+  rows: (Float32Array | undefined)[];
+  /** Per node [tpNode * thetaNodes + thetaNode]: 1 once worked. */
   worked: Uint8Array;
-  /** Per cell [thetaNode * tpNodes + tpNode]: 1 once its four corner nodes are worked (series path). */
+  /** Per cell [tpNode * thetaNodes + thetaNode]: 1 once its four corner nodes are worked (a record's neighbours in time share Tp nodes: nearby bytes). */
   cells: Uint8Array;
   /** Coefficients of the layers for the last gamma asked for. */
   lastGamma: number;
@@ -210,7 +210,7 @@ export function createMomentTable(
     lnGammas,
     lagrangeDen,
     positions: new Array<Float64Array | undefined>(tpNodes),
-    rows: new Array<Float64Array | undefined>(tpNodes),
+    rows: new Array<Float32Array | undefined>(tpNodes),
     cells: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
     worked: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
     lastGamma: NaN,
@@ -246,7 +246,7 @@ export function momentTableFor(
 const H2 = new Float64Array(GRID_POINTS);
 
 /** Works node (tp node i, theta node k) of every layer into `row` (Tp node i's). */
-function workNode(t: MomentTable, row: Float64Array, i: number, k: number): void {
+function workNode(t: MomentTable, row: Float32Array, i: number, k: number): void {
   let q = t.positions[i];
   if (!q) {
     t.positions[i] = q = new Float64Array(GRID_POINTS);
@@ -268,12 +268,12 @@ function workNode(t: MomentTable, row: Float64Array, i: number, k: number): void
     row[o] = a0;
     row[o + 1] = a2;
   }
-  t.worked[k * t.tpNodes + i] = 1;
+  t.worked[i * t.thetaNodes + k] = 1;
 }
 
-function rowOf(t: MomentTable, i: number): Float64Array {
+function rowOf(t: MomentTable, i: number): Float32Array {
   let row = t.rows[i];
-  if (!row) t.rows[i] = row = new Float64Array(t.thetaNodes * t.gammas.length * V); // zeros, untouched until worked
+  if (!row) t.rows[i] = row = new Float32Array(t.thetaNodes * t.gammas.length * V); // zeros, untouched until worked
   return row;
 }
 
@@ -363,7 +363,7 @@ function readTable(
   const fv = v - k;
   if (k >= thetaNodes) k -= thetaNodes;
   const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-  if (t.cells[k * t.tpNodes + i] === 0) workCell(t, i, k, k1);
+  if (t.cells[i * thetaNodes + k] === 0) workCell(t, i, k, k1);
   const rowLo = t.rows[i]!;
   const rowHi = t.rows[i + 1]!;
   const layers = t.gammas.length;
@@ -397,8 +397,8 @@ const CORNERS = new Float64Array(4);
  * exactly again). Shared by the record and the series paths (DNV gamma inside its band).
  */
 function layerSum(
-  rowLo: Float64Array,
-  rowHi: Float64Array,
+  rowLo: Float32Array,
+  rowHi: Float32Array,
   oA: number,
   oB: number,
   w: Float64Array,
@@ -534,26 +534,96 @@ function workCell(t: MomentTable, i: number, k: number, k1: number): void {
   const rowLo = rowOf(t, i);
   const rowHi = rowOf(t, i + 1);
   const worked = t.worked;
-  const tpNodes = t.tpNodes;
-  if (worked[k * tpNodes + i] === 0) workNode(t, rowLo, i, k);
-  if (worked[k * tpNodes + i + 1] === 0) workNode(t, rowHi, i + 1, k);
-  if (worked[k1 * tpNodes + i] === 0) workNode(t, rowLo, i, k1);
-  if (worked[k1 * tpNodes + i + 1] === 0) workNode(t, rowHi, i + 1, k1);
-  t.cells[k * tpNodes + i] = 1;
+  const lo = i * t.thetaNodes;
+  const hi = lo + t.thetaNodes;
+  if (worked[lo + k] === 0) workNode(t, rowLo, i, k);
+  if (worked[hi + k] === 0) workNode(t, rowHi, i + 1, k);
+  if (worked[lo + k1] === 0) workNode(t, rowLo, i, k1);
+  if (worked[hi + k1] === 0) workNode(t, rowHi, i + 1, k1);
+  t.cells[lo + k] = 1;
 }
 
-/** Records a series pass leaves out: `classes[i] >= from` (see {@link tabulatedMomentSeries}). */
-export interface SkipRecords {
-  classes: Uint8Array;
-  from: number;
+/**
+ * Keeps in open[0..count) the records whose m0 is at most `above` (or NaN), in order, and gives the
+ * others class `from`; returns how many are kept.
+ */
+function keepUnder(open: Int32Array, count: number, m0: Float64Array, above: number, classes: Uint8Array, from: number): number {
+  let kept = 0;
+  for (let r = 0; r < count; r++) {
+    const i = open[r];
+    open[kept] = i;
+    if (m0[i] > above) classes[i] = from;
+    else kept++;
+  }
+  return kept;
+}
+
+/** Records of a partition series with a missing value, by its arrays and the gamma that applies. */
+interface MissingRecords {
+  tpS: Float64Array;
+  dirDeg: Float64Array;
+  key: string;
+  records: Int32Array;
+}
+
+/**
+ * Kept per partition series (by its Hs array, then the Tp and direction arrays and the gamma
+ * setting), since every operation with response limits on a worksite asks for the same. A new
+ * series, or new contents in a reused buffer, comes as new arrays (the engine's rule for caches
+ * keyed by array).
+ */
+const missingCache = new WeakMap<Float64Array, MissingRecords[]>();
+
+/** The records of `p` where a partition of Hs other than 0 misses what its spectrum needs ({@link partitionMissing}), ascending. */
+export function missingPartitionRecords(p: SeaPartitionSeries, settings: ResponseSeaSettings): Int32Array {
+  const gamma = p.kind === 'swell' ? settings.swellGamma : settings.windSeaGamma;
+  const key = `${p.kind}|${gamma}`;
+  let list = missingCache.get(p.hsM);
+  if (!list) missingCache.set(p.hsM, (list = []));
+  const hit = list.find((m) => m.tpS === p.tpS && m.dirDeg === p.dirDeg && m.key === key);
+  if (hit) return hit.records;
+  const { hsM, tpS, dirDeg } = p;
+  const found: number[] = [];
+  for (let i = 0; i < hsM.length; i++) {
+    const hs = hsM[i];
+    // The common case first: a fixed gamma is never missing, the DNV rule's only where Hs or Tp is.
+    if (hs === 0 || (hs > 0 && tpS[i] > 0 && dirDeg[i] === dirDeg[i] && hs < Infinity)) continue;
+    REC.kind = p.kind;
+    REC.hsM = hs;
+    REC.tpS = tpS[i];
+    REC.dirDeg = dirDeg[i];
+    if (partitionMissing(REC, settings)) found.push(i);
+  }
+  const records = Int32Array.from(found);
+  // A few entries per Hs array at most (the settings of the operations on it).
+  if (list.length >= 8) list.shift();
+  list.push({ tpS, dirDeg, key, records });
+  return records;
+}
+
+/**
+ * Gives class `noData` to every record where a partition of Hs other than 0 misses what its
+ * spectrum needs, as {@link partitionMissing} judges it (docs/domain.md#vessel-response).
+ */
+export function markMissingPartitions(
+  parts: readonly SeaPartitionSeries[],
+  settings: ResponseSeaSettings,
+  classes: Uint8Array,
+  noData: number,
+): void {
+  for (const p of parts) {
+    const records = missingPartitionRecords(p, settings);
+    for (let r = 0; r < records.length; r++) if (records[r] < classes.length) classes[records[r]] = noData;
+  }
 }
 
 /**
  * The table part of {@link tabulatedMomentSeries} for one partition series: adds each record's
  * moments from the table with the record path's arithmetic (readTable, lagrangeInto), worked in
  * the loop rather than kept per record (fresh memory costs more here than a logarithm), with one
- * check per cell instead of four per node. Lists in `pending` the records the table does not
- * cover (Tp outside it, missing data); leaves out the records `skip` names.
+ * check per cell instead of four per node. Works the records open[0..count) (all `count` from 0
+ * when `open` is null); lists in `pending` those the table does not cover (Tp outside it, missing
+ * data).
  */
 function addFromTableSeries(
   tab: MomentTable,
@@ -563,14 +633,14 @@ function addFromTableSeries(
   m0: Float64Array,
   m2: Float64Array,
   pending: number[],
-  skip: SkipRecords | null,
+  open: Int32Array | null,
+  count: number,
   overwrite: boolean,
 ): void {
   const { hsM, tpS, dirDeg } = p;
   const layers = tab.gammas.length;
   const stride = layers * V;
   const thetaNodes = tab.thetaNodes;
-  const tpNodes = tab.tpNodes;
   const axis = tab.tpAxis;
   const frac = new Float64Array(1);
   const thetaStep = tab.grid.thetaStepDeg;
@@ -578,16 +648,12 @@ function addFromTableSeries(
   const cells = tab.cells;
   const rows = tab.rows;
   const coef = LAYER_COEF.length >= layers ? LAYER_COEF : new Float32Array(layers);
-  const skipClasses = skip ? skip.classes : null;
-  const skipFrom = skip ? skip.from : 0;
-  const n = m0.length;
-  for (let i = 0; i < n; i++) {
+  for (let r = 0; r < count; r++) {
+    const i = open === null ? r : open[r];
     const hs = hsM[i];
     const tp = tpS[i];
-    if (hs === 0 || (skipClasses !== null && skipClasses[i] >= skipFrom)) {
+    if (hs === 0) {
       if (overwrite) m0[i] = m2[i] = 0;
-      // Hs 0 adds nothing; a record left out matters only if data are missing (the record loop marks it).
-      if (hs !== 0 && !(hs > 0 && tp > 0 && dirDeg[i] === dirDeg[i])) pending.push(i);
       continue;
     }
     const node = tpInterval(axis, tp, frac);
@@ -606,7 +672,7 @@ function addFromTableSeries(
     const fv = v - k;
     if (k >= thetaNodes) k -= thetaNodes;
     const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-    if (cells[k * tpNodes + node] === 0) workCell(tab, node, k, k1);
+    if (cells[node * thetaNodes + k] === 0) workCell(tab, node, k, k1);
     // The DNV rule in s = ln gamma: 5.75 - 1.15 r, held at ln 5 (r <= 3.6) and 0 (r >= 5); at the
     // band's ends one layer, as lagrangeInto gives it.
     let one = 0;
@@ -662,8 +728,6 @@ const LAYER_COEF = new Float32Array(16);
  * Moments of one response per record of a partition series into m0 and m2 (filled), as
  * {@link tabulatedResponseMoments} gives them record by record (the same tables, the same
  * arithmetic), one partition after the other: a record missing any partition's data is NaN.
- * Records that `skip` names (`classes[i] >= from`: the status path's records already broken or
- * without data) are only checked for missing data: NaN there, else left at 0.
  */
 export function tabulatedMomentSeries(
   rao: PreparedRao,
@@ -673,29 +737,78 @@ export function tabulatedMomentSeries(
   settings: ResponseSeaSettings,
   m0: Float64Array,
   m2: Float64Array,
-  skip: SkipRecords | null = null,
 ): void {
+  momentsOfRecords(rao, name, vesselHeadingDeg, parts, settings, m0, m2, null, m0.length, null, 0, Infinity);
+}
+
+/**
+ * The status path's {@link tabulatedMomentSeries}: works only the records open[0..count), whose
+ * moments it writes into m0 and m2 (the rest are left as they were), and returns how many of them
+ * stay open. After each partition but the last, a record whose m0 so far is above `breakAboveM0`
+ * gets class `from` in `classes` and leaves the list: partitions only add to m0, so the caller
+ * sets the bound where m0 above it surely breaks its limit whatever the rest of the sea
+ * (Infinity: none). The list is compacted in place, in order.
+ */
+export function tabulatedMomentsOfOpen(
+  rao: PreparedRao,
+  name: string,
+  vesselHeadingDeg: number,
+  parts: readonly SeaPartitionSeries[],
+  settings: ResponseSeaSettings,
+  m0: Float64Array,
+  m2: Float64Array,
+  open: Int32Array,
+  count: number,
+  classes: Uint8Array,
+  from: number,
+  breakAboveM0: number,
+): number {
+  return momentsOfRecords(rao, name, vesselHeadingDeg, parts, settings, m0, m2, open, count, classes, from, breakAboveM0);
+}
+
+function momentsOfRecords(
+  rao: PreparedRao,
+  name: string,
+  vesselHeadingDeg: number,
+  parts: readonly SeaPartitionSeries[],
+  settings: ResponseSeaSettings,
+  m0: Float64Array,
+  m2: Float64Array,
+  open: Int32Array | null,
+  count: number,
+  classes: Uint8Array | null,
+  from: number,
+  breakAboveM0: number,
+): number {
   if (!rao.amplitudes[name]) throw new RangeError(`the vessel has no RAO for ${name}`);
-  const n = m0.length;
   const acc = new Float64Array(3);
   const pending: number[] = [];
   let written = false;
-  for (const p of parts) {
+  for (let q = 0; q < parts.length; q++) {
+    const p = parts[q];
     const t = momentTableFor(rao, name, p.kind, settings);
     pending.length = 0;
-    // The first partition read from a table writes every record; else zeros first.
-    if (!written && !t) {
-      m0.fill(0);
-      m2.fill(0);
-    }
+    // The first partition writes every record worked (zeros first when it is not read from a table).
     const overwrite = !written;
+    if (overwrite && !t) zeroRecords(m0, m2, open, count);
     written = true;
     if (t)
-      addFromTableSeries(t, p, p.kind === 'windSea' && settings.windSeaGamma === 'dnv', vesselHeadingDeg, m0, m2, pending, skip, overwrite);
+      addFromTableSeries(
+        t,
+        p,
+        p.kind === 'windSea' && settings.windSeaGamma === 'dnv',
+        vesselHeadingDeg,
+        m0,
+        m2,
+        pending,
+        open,
+        count,
+        overwrite,
+      );
     // Outside the table, long-crested or missing: record by record, as tabulatedResponseMoments.
-    const count = t ? pending.length : n;
-    for (let r = 0; r < count; r++) {
-      const i = t ? pending[r] : r;
+    const worked = t ? pending.length : count;
+    for (let r = 0; r < worked; r++) {
+      const i = t ? pending[r] : open === null ? r : open[r];
       const hs = p.hsM[i];
       if (hs === 0) continue;
       REC.kind = p.kind;
@@ -707,16 +820,25 @@ export function tabulatedMomentSeries(
         m2[i] = NaN;
         continue;
       }
-      if (skip && skip.classes[i] >= skip.from) continue;
       acc[0] = 0;
       acc[1] = 0;
       addPartitionMoments(rao, name, vesselHeadingDeg, REC, settings, t, acc, false);
       m0[i] += acc[0];
       m2[i] += acc[1];
     }
+    if (open !== null && classes !== null && breakAboveM0 < Infinity && q < parts.length - 1)
+      count = keepUnder(open, count, m0, breakAboveM0, classes, from);
   }
-  if (!written) {
-    m0.fill(0);
-    m2.fill(0);
+  if (!written) zeroRecords(m0, m2, open, count);
+  return count;
+}
+
+/** Zeros m0 and m2 at the records open[0..count) (the first `count` when `open` is null). */
+function zeroRecords(m0: Float64Array, m2: Float64Array, open: Int32Array | null, count: number): void {
+  if (open === null) {
+    m0.fill(0, 0, count);
+    m2.fill(0, 0, count);
+    return;
   }
+  for (let r = 0; r < count; r++) m0[open[r]] = m2[open[r]] = 0;
 }

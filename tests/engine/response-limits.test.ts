@@ -10,7 +10,8 @@ import {
   type SiteSeries,
 } from '../../shared/engine';
 import { explainHour } from '../../shared/engine/explain-hour';
-import type { RaoTable } from '../../shared/response';
+import { responseSettings, surelyBrokenM0 } from '../../shared/engine/response-limits';
+import { GRID_X_MIN, prepareRao, responseMoments, type RaoTable } from '../../shared/response';
 import { mulberry32 } from '../../bench/lib/random';
 import { DEMO_VESSELS } from '../../seed/demo-vessels';
 import { makeSeries } from './series-factory';
@@ -187,18 +188,60 @@ describe('response limits in the engine (docs/domain.md#vessel-response)', () =>
       ),
     ];
     const seen = new Set<number>();
-    for (const alpha of [true, false]) {
+    for (const [alpha, alphaTable] of [
+      [true, DEFAULT_ALPHA_TABLE],
+      [false, DEFAULT_ALPHA_TABLE],
+    ] as const) {
       for (const o of ops) {
-        const fast = evaluateStatus(s, o, { alphaTable: DEFAULT_ALPHA_TABLE, alpha });
-        const full = evaluateHours(s, o, { alphaTable: DEFAULT_ALPHA_TABLE, alpha }).status;
+        const fast = evaluateStatus(s, o, { alphaTable, alpha });
+        const full = evaluateHours(s, o, { alphaTable, alpha }).status;
         expect(Array.from(fast)).toEqual(Array.from(full));
         // The responses decide some records: without them the statuses differ.
-        const bare = evaluateStatus(s, { ...o, limits: { ...o.limits, responses: [] } }, { alphaTable: DEFAULT_ALPHA_TABLE, alpha });
+        const bare = evaluateStatus(s, { ...o, limits: { ...o.limits, responses: [] } }, { alphaTable, alpha });
         expect(fast.some((v, i) => v !== bare[i])).toBe(true);
         fast.forEach((v) => seen.add(v));
       }
     }
     // Every status occurs, no data included.
     expect([...seen].sort()).toEqual([STATUS.NO_DATA, STATUS.NOT_WORKABLE, STATUS.MARGINAL, STATUS.WORKABLE].sort());
+  });
+
+  it('a record past the surely-broken m0 bound is past its limit, for R_s and for R_mpm (the status pass classes it without the statistic)', () => {
+    // The bound (docs/domain.md#vessel-response): R_s = 2 sqrt(m0) > R_lim for m0 > R_lim^2/4; for
+    // R_mpm, Tz_R <= Tp_max / 0.2 because every partition's spectrum lies on omega >= 0.2 omega_p,
+    // so ln(tau/Tz_R) >= ln(tau/Tz_top). Checked here on the direct integration of random seas
+    // through the demo vessels' RAOs, each record's statistic worked in the test from m0 and m2.
+    const rnd = mulberry32(20261205);
+    const settings = responseSettings(undefined);
+    let broken = 0;
+    let checked = 0;
+    for (const v of DEMO_VESSELS) {
+      const rao = prepareRao(v.raos);
+      for (const name of rao.names) {
+        for (let k = 0; k < 60; k++) {
+          const parts = [
+            { kind: 'windSea' as const, hsM: 0.3 + 3 * rnd(), tpS: 2 + 10 * rnd(), dirDeg: 360 * rnd() },
+            { kind: 'swell' as const, hsM: 2 * rnd(), tpS: 8 + 12 * rnd(), dirDeg: 360 * rnd() },
+          ];
+          const m = responseMoments(rao, name, 360 * rnd(), parts, settings);
+          const tzTop = (1.01 * Math.max(...parts.map((p) => p.tpS))) / GRID_X_MIN;
+          const tz = 2 * Math.PI * Math.sqrt(m.m0 / m.m2);
+          expect(tz).toBeLessThanOrEqual(tzTop);
+          for (const limit of [
+            { response: name, statistic: 'significant' as const, max: 0.5 + 4 * rnd() },
+            { response: name, statistic: 'mpm' as const, durationH: 1 + 5 * rnd(), max: 1 + 8 * rnd() },
+          ]) {
+            checked++;
+            if (!(m.m0 > surelyBrokenM0(limit, tzTop))) continue;
+            broken++;
+            const tau = (limit.durationH ?? 3) * 3600;
+            const value = limit.statistic === 'significant' ? 2 * Math.sqrt(m.m0) : Math.sqrt(2 * m.m0 * Math.log(tau / tz));
+            expect(value).toBeGreaterThan(limit.max);
+          }
+        }
+      }
+    }
+    // The bound decides a good share of the seas, so the check above is not empty.
+    expect(broken).toBeGreaterThan(checked / 10);
   });
 });
