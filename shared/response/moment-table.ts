@@ -13,10 +13,10 @@
  *
  * The table (MOMENT_GRID): ln Tp every 0.01 (1 %) from TP_MIN_S to TP_MAX_S, theta every 1 deg
  * all round (360 wraps to 0), read bilinearly: linear in Tp between its two nodes (the interval
- * found by a lookup, not a logarithm) and in theta. Nodes are worked lazily on first use (`worked`
- * marks a node once worked; a Tp node's row is allocated on first use and only the parts of it
- * worked are ever written, so the rest never costs a page of fresh memory), since a series touches
- * a small part of the table. Gamma:
+ * found by a lookup, not a logarithm) and in theta. Nodes are worked lazily on first use, layer
+ * by layer (`worked` holds a node's layers worked; a Tp node's row is allocated on first use and
+ * only the parts of it worked are ever written, so the rest never costs a page of fresh memory),
+ * since a series touches a small part of the table. Gamma:
  *  - a fixed gamma (swell, or a wind sea of fixed gamma): one layer at that gamma;
  *  - the DNV rule (gamma 1-5): layers at 5 Chebyshev-Lobatto nodes in s = ln gamma over
  *    [0, ln 5] and Lagrange interpolation in s. The unnormalised sums N(s) = sum_j g_j(gamma) H2_j
@@ -147,10 +147,15 @@ export interface MomentTable {
   positions: (Float64Array | undefined)[];
   /** Per Tp node: [thetaNode][layer][a0, a2], read only once worked (a record's neighbours in time share Tp nodes). */
   rows: (Float32Array | undefined)[];
-  /** Per node [tpNode * thetaNodes + thetaNode]: 1 once worked. */
+  /** Per node [tpNode * thetaNodes + thetaNode]: the layers worked there, bit l for layer l. */
   worked: Uint8Array;
-  /** Per cell [tpNode * thetaNodes + thetaNode]: 1 once its four corner nodes are worked (a record's neighbours in time share Tp nodes: nearby bytes). */
+  /**
+   * Per cell [tpNode * thetaNodes + thetaNode]: the layers worked at all four of its corner nodes,
+   * bit l for layer l (a record's neighbours in time share Tp nodes: nearby bytes).
+   */
   cells: Uint8Array;
+  /** Bits of every layer. */
+  allLayers: number;
   /** Coefficients of the layers for the last gamma asked for. */
   lastGamma: number;
   coef: Float32Array;
@@ -171,7 +176,8 @@ export function createMomentTable(
     throw new RangeError(`theta step ${grid.thetaStepDeg} must be a whole number of degrees dividing 360`);
   if (!(grid.lnTpStep > 0)) throw new RangeError(`ln Tp step ${grid.lnTpStep} must be above 0`);
   const layers = gamma === 'dnv' ? grid.gammaNodes : 1;
-  if (!(Number.isInteger(layers) && layers >= 1)) throw new RangeError(`gamma nodes ${grid.gammaNodes} must be a whole number, at least 1`);
+  if (!(Number.isInteger(layers) && layers >= 1 && layers <= 8))
+    throw new RangeError(`gamma nodes ${grid.gammaNodes} must be a whole number from 1 to 8`);
   const gammas = new Float64Array(layers);
   const lnGammas = new Float64Array(layers);
   if (gamma === 'dnv') {
@@ -213,6 +219,7 @@ export function createMomentTable(
     rows: new Array<Float32Array | undefined>(tpNodes),
     cells: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
     worked: new Uint8Array((360 / grid.thetaStepDeg) * tpNodes),
+    allLayers: (1 << layers) - 1,
     lastGamma: NaN,
     coef: new Float32Array(layers),
     single: -1,
@@ -245,8 +252,15 @@ export function momentTableFor(
 
 const H2 = new Float64Array(GRID_POINTS);
 
-/** Works node (tp node i, theta node k) of every layer into `row` (Tp node i's). */
-function workNode(t: MomentTable, row: Float32Array, i: number, k: number): void {
+/**
+ * Works the layers `need` (bit l: layer l) of node (tp node i, theta node k) not yet worked into
+ * `row` (Tp node i's). A series of wind sea mostly reads one layer (gamma 1 or 5 outside the DNV
+ * rule's band), so the others are worked only when a record asks for them.
+ */
+function workNode(t: MomentTable, row: Float32Array, i: number, k: number, need: number): void {
+  const at = i * t.thetaNodes + k;
+  const missing = need & ~t.worked[at];
+  if (missing === 0) return;
   let q = t.positions[i];
   if (!q) {
     t.positions[i] = q = new Float64Array(GRID_POINTS);
@@ -255,6 +269,7 @@ function workNode(t: MomentTable, row: Float32Array, i: number, k: number): void
   spreadAtGrid(t.rao, t.name, t.spreading, k * t.grid.thetaStepDeg, q, H2);
   const layers = t.gammas.length;
   for (let l = 0; l < layers; l++) {
+    if ((missing & (1 << l)) === 0) continue;
     const w = t.weights[l];
     const wx2 = t.weightsX2[l];
     let a0 = 0;
@@ -268,7 +283,7 @@ function workNode(t: MomentTable, row: Float32Array, i: number, k: number): void
     row[o] = a0;
     row[o + 1] = a2;
   }
-  t.worked[i * t.thetaNodes + k] = 1;
+  t.worked[at] |= missing;
 }
 
 function rowOf(t: MomentTable, i: number): Float32Array {
@@ -363,7 +378,8 @@ function readTable(
   const fv = v - k;
   if (k >= thetaNodes) k -= thetaNodes;
   const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-  if (t.cells[i * thetaNodes + k] === 0) workCell(t, i, k, k1);
+  const need = single >= 0 ? 1 << single : coef === null ? 1 : t.allLayers;
+  if ((t.cells[i * thetaNodes + k] & need) !== need) workCell(t, i, k, k1, need);
   const rowLo = t.rows[i]!;
   const rowHi = t.rows[i + 1]!;
   const layers = t.gammas.length;
@@ -529,18 +545,15 @@ export function tabulatedResponseMoments(
 
 const REC: SeaPartition = { kind: 'windSea', hsM: 0, tpS: 0, dirDeg: 0 };
 
-/** Works the four corner nodes of cell (tp node i, theta nodes k, k1) if not yet, and marks the cell. */
-function workCell(t: MomentTable, i: number, k: number, k1: number): void {
+/** Works the layers `need` at the four corner nodes of cell (tp node i, theta nodes k, k1) where not yet, and marks the cell. */
+function workCell(t: MomentTable, i: number, k: number, k1: number, need: number): void {
   const rowLo = rowOf(t, i);
   const rowHi = rowOf(t, i + 1);
-  const worked = t.worked;
-  const lo = i * t.thetaNodes;
-  const hi = lo + t.thetaNodes;
-  if (worked[lo + k] === 0) workNode(t, rowLo, i, k);
-  if (worked[hi + k] === 0) workNode(t, rowHi, i + 1, k);
-  if (worked[lo + k1] === 0) workNode(t, rowLo, i, k1);
-  if (worked[hi + k1] === 0) workNode(t, rowHi, i + 1, k1);
-  t.cells[lo + k] = 1;
+  workNode(t, rowLo, i, k, need);
+  workNode(t, rowHi, i + 1, k, need);
+  workNode(t, rowLo, i, k1, need);
+  workNode(t, rowHi, i + 1, k1, need);
+  t.cells[i * t.thetaNodes + k] |= need;
 }
 
 /**
@@ -646,6 +659,7 @@ function addFromTableSeries(
   const thetaStep = tab.grid.thetaStepDeg;
   const lnDnvMax = tab.lnGammas[layers - 1];
   const cells = tab.cells;
+  const allLayers = tab.allLayers;
   const rows = tab.rows;
   const coef = LAYER_COEF.length >= layers ? LAYER_COEF : new Float32Array(layers);
   for (let r = 0; r < count; r++) {
@@ -672,7 +686,6 @@ function addFromTableSeries(
     const fv = v - k;
     if (k >= thetaNodes) k -= thetaNodes;
     const k1 = k + 1 === thetaNodes ? 0 : k + 1;
-    if (cells[node * thetaNodes + k] === 0) workCell(tab, node, k, k1);
     // The DNV rule in s = ln gamma: 5.75 - 1.15 r, held at ln 5 (r <= 3.6) and 0 (r >= 5); at the
     // band's ends one layer, as lagrangeInto gives it.
     let one = 0;
@@ -680,6 +693,8 @@ function addFromTableSeries(
       const r = tp / Math.sqrt(hs);
       one = r <= 3.6 ? layers - 1 : r >= 5 ? 0 : lagrangeInto(tab, Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, 0);
     }
+    const need = one >= 0 ? 1 << one : allLayers;
+    if ((cells[node * thetaNodes + k] & need) !== need) workCell(tab, node, k, k1, need);
     const rowLo = rows[node]!;
     const rowHi = rows[node + 1]!;
     const fu = frac[0];
