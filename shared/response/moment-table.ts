@@ -650,6 +650,36 @@ function addFromTableSeries(
   count: number,
   overwrite: boolean,
 ): void {
+  // The reading loop stops at a record whose cell lacks a layer it needs; the cell is worked here
+  // and the loop goes on from that record. So the loop stays small and apart from the table's
+  // building: the optimiser compiles it sooner, and does not throw it away when the building code
+  // changes (measured: a fifth of the cold run's compiling, and fewer fresh pages).
+  let r = 0;
+  while ((r = readFromTable(tab, p, dnv, vesselHeadingDeg, m0, m2, pending, open, r, count, overwrite)) < count)
+    workCell(tab, MISS[0], MISS[1], MISS[2], MISS[3]);
+}
+
+/** Where {@link readFromTable} stopped: the cell's Tp node, its theta nodes k and k1, and the layers needed. */
+const MISS = new Int32Array(4);
+
+/**
+ * The loop of {@link addFromTableSeries} from position `start`: returns the position of the first
+ * record whose cell lacks a layer it needs (that cell in MISS, the record not yet read), or
+ * `count` when all are read.
+ */
+function readFromTable(
+  tab: MomentTable,
+  p: SeaPartitionSeries,
+  dnv: boolean,
+  vesselHeadingDeg: number,
+  m0: Float64Array,
+  m2: Float64Array,
+  pending: number[],
+  open: Int32Array | null,
+  start: number,
+  count: number,
+  overwrite: boolean,
+): number {
   const { hsM, tpS, dirDeg } = p;
   const layers = tab.gammas.length;
   const stride = layers * V;
@@ -662,7 +692,7 @@ function addFromTableSeries(
   const allLayers = tab.allLayers;
   const rows = tab.rows;
   const coef = LAYER_COEF.length >= layers ? LAYER_COEF : new Float32Array(layers);
-  for (let r = 0; r < count; r++) {
+  for (let r = start; r < count; r++) {
     const i = open === null ? r : open[r];
     const hs = hsM[i];
     const tp = tpS[i];
@@ -694,7 +724,13 @@ function addFromTableSeries(
       one = r <= 3.6 ? layers - 1 : r >= 5 ? 0 : lagrangeInto(tab, Math.min(lnDnvMax, 5.75 - 1.15 * r), coef, 0);
     }
     const need = one >= 0 ? 1 << one : allLayers;
-    if ((cells[node * thetaNodes + k] & need) !== need) workCell(tab, node, k, k1, need);
+    if ((cells[node * thetaNodes + k] & need) !== need) {
+      MISS[0] = node;
+      MISS[1] = k;
+      MISS[2] = k1;
+      MISS[3] = need;
+      return r;
+    }
     const rowLo = rows[node]!;
     const rowHi = rows[node + 1]!;
     const fu = frac[0];
@@ -731,6 +767,7 @@ function addFromTableSeries(
       m2[i] += h2 * wp * wp * a2;
     }
   }
+  return count;
 }
 
 /** The layers' sums of one record. */
