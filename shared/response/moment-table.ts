@@ -44,7 +44,7 @@ import {
   type SeaPartition,
   type SeaPartitionSeries,
 } from './response';
-import { spreadAtGrid, spreadAtPeriodEnds, spreadPositions } from './spread-table';
+import { spreadAtGrid, spreadAtPeriodEnds, spreadPositions, spreadTableOf, type SpreadTable } from './spread-table';
 import type { Spreading } from './spreading';
 
 /** Shortest and longest peak period of the tables, s (outside: direct integration). */
@@ -130,6 +130,8 @@ export interface MomentTable {
   rao: PreparedRao;
   name: string;
   spreading: Spreading;
+  /** The spread table it sums (the same response and spreading). */
+  spread: SpreadTable;
   grid: MomentGrid;
   tpNodes: number;
   tpAxis: TpAxis;
@@ -205,6 +207,7 @@ export function createMomentTable(
     rao,
     name,
     spreading,
+    spread: spreadTableOf(rao, name, spreading),
     grid,
     tpNodes,
     tpAxis: axis,
@@ -264,26 +267,29 @@ function workNode(t: MomentTable, row: Float32Array, i: number, k: number, need:
   let q = t.positions[i];
   if (!q) {
     t.positions[i] = q = new Float64Array(GRID_POINTS);
-    spreadPositions(t.rao, t.name, t.spreading, t.tpAxis.nodeS[i], q);
+    spreadPositions(t.spread, t.tpAxis.nodeS[i], q);
   }
-  spreadAtGrid(t.rao, t.name, t.spreading, k * t.grid.thetaStepDeg, q, H2);
+  spreadAtGrid(t.spread, k * t.grid.thetaStepDeg, q, H2);
   const layers = t.gammas.length;
-  for (let l = 0; l < layers; l++) {
-    if ((missing & (1 << l)) === 0) continue;
-    const w = t.weights[l];
-    const wx2 = t.weightsX2[l];
-    let a0 = 0;
-    let a2 = 0;
-    for (let j = 0; j < GRID_POINTS; j++) {
-      const h = H2[j];
-      a0 += w[j] * h;
-      a2 += wx2[j] * h;
-    }
-    const o = (k * layers + l) * V;
-    row[o] = a0;
-    row[o + 1] = a2;
-  }
+  for (let l = 0; l < layers; l++)
+    if ((missing & (1 << l)) !== 0) layerMoments(t.weights[l], t.weightsX2[l], H2, row, (k * layers + l) * V);
   t.worked[at] |= missing;
+}
+
+/**
+ * One layer's node: a0 = sum w_j H2_j and a2 = sum w_j x_j^2 H2_j into row[o], row[o + 1]. Apart
+ * from workNode so that the optimiser compiles this loop once, on typed arrays only.
+ */
+function layerMoments(w: Float64Array, wx2: Float64Array, h2: Float64Array, row: Float32Array, o: number): void {
+  let a0 = 0;
+  let a2 = 0;
+  for (let j = 0; j < GRID_POINTS; j++) {
+    const h = h2[j];
+    a0 += w[j] * h;
+    a2 += wx2[j] * h;
+  }
+  row[o] = a0;
+  row[o + 1] = a2;
 }
 
 function rowOf(t: MomentTable, i: number): Float32Array {
@@ -462,7 +468,7 @@ function outsidePerUnit(t: MomentTable, tpS: number, thetaDeg: number, gamma: nu
     if (T < pFirst) below += w[j];
     else if (T > pLast) above += w[j];
   }
-  spreadAtPeriodEnds(t.rao, t.name, t.spreading, thetaDeg, ENDS);
+  spreadAtPeriodEnds(t.spread, thetaDeg, ENDS);
   return below * ENDS[0] + above * ENDS[1];
 }
 

@@ -22,7 +22,7 @@ const THETA_STEP_DEG = 1;
 const THETA_NODES = 360 / THETA_STEP_DEG + 1;
 
 /** H2 on the fine grid: [thetaIndex * periodNodes + periodNode]; a theta row is worked on first use. */
-interface SpreadTable {
+export interface SpreadTable {
   rao: PreparedRao;
   amp: Float64Array;
   spreading: Spreading;
@@ -36,8 +36,11 @@ interface SpreadTable {
 
 const tables = new WeakMap<PreparedRao, Map<string, SpreadTable>>();
 
-/** The spread table of one response and spreading of a prepared RAO table (rows worked on first use). */
-function spreadTable(rao: PreparedRao, name: string, spreading: Spreading): SpreadTable {
+/**
+ * The spread table of one response and spreading of a prepared RAO table (rows worked on first
+ * use). A moment table keeps it, so that its nodes need no lookup by name.
+ */
+export function spreadTableOf(rao: PreparedRao, name: string, spreading: Spreading): SpreadTable {
   let perRao = tables.get(rao);
   if (!perRao) tables.set(rao, (perRao = new Map()));
   const key = `${name}|${spreading}`;
@@ -63,29 +66,45 @@ const POS = new Float64Array(2);
 
 /** Works theta row t of the table if not yet worked; returns the row's offset in `values`. */
 function spreadRow(table: SpreadTable, t: number): number {
-  const { rao, amp, steps, periodNodes, values } = table;
-  const row = t * periodNodes;
+  const row = t * table.periodNodes;
   if (table.worked[t]) return row;
+  const rao = table.rao;
   const np = rao.periods.length;
   const bins = spreadingBins(table.spreading);
   for (let b = 0; b < bins.weights.length; b++) {
     headingPosition(rao, t * THETA_STEP_DEG + bins.offsetsDeg[b], POS);
-    const rowA = POS[0] * np;
-    const rowB = rowA + np;
-    const fh = POS[1];
-    const db = bins.weights[b];
-    for (let q = 0; q < periodNodes; q++) {
-      // The same interpolation as the direct integration: linear in period, then in heading.
-      const i = Math.min(np - 2, Math.floor(q / steps));
-      const fp = (q - i * steps) / steps;
-      const low = amp[rowA + i] + (amp[rowA + i + 1] - amp[rowA + i]) * fp;
-      const high = amp[rowB + i] + (amp[rowB + i + 1] - amp[rowB + i]) * fp;
-      const r = low + (high - low) * fh;
-      values[row + q] += db * r * r;
-    }
+    addBin(table.values, row, table.amp, POS[0] * np, np, POS[1], bins.weights[b], table.steps, table.periodNodes);
   }
   table.worked[t] = 1;
   return row;
+}
+
+/**
+ * Adds one direction bin (weight db) to a theta row: |RAO|^2 on the fine period nodes, the same
+ * interpolation as the direct integration (linear in period, then in heading between the RAO
+ * rows at rowA and rowA + np, fraction fh). Apart from spreadRow so that the optimiser compiles
+ * this loop once, on typed arrays and numbers only.
+ */
+function addBin(
+  values: Float64Array,
+  row: number,
+  amp: Float64Array,
+  rowA: number,
+  np: number,
+  fh: number,
+  db: number,
+  steps: number,
+  periodNodes: number,
+): void {
+  const rowB = rowA + np;
+  for (let q = 0; q < periodNodes; q++) {
+    const i = Math.min(np - 2, Math.floor(q / steps));
+    const fp = (q - i * steps) / steps;
+    const low = amp[rowA + i] + (amp[rowA + i + 1] - amp[rowA + i]) * fp;
+    const high = amp[rowB + i] + (amp[rowB + i + 1] - amp[rowB + i]) * fp;
+    const r = low + (high - low) * fh;
+    values[row + q] += db * r * r;
+  }
 }
 
 /**
@@ -93,9 +112,8 @@ function spreadRow(table: SpreadTable, t: number): number {
  * spread table's fine period nodes (node index plus fraction), held at the table's ends as the
  * direct integration holds the RAO: the same for every theta row, so worked once per Tp.
  */
-export function spreadPositions(rao: PreparedRao, name: string, spreading: Spreading, tpS: number, q: Float64Array): void {
-  const table = spreadTable(rao, name, spreading);
-  const periods = rao.periods;
+export function spreadPositions(table: SpreadTable, tpS: number, q: Float64Array): void {
+  const periods = table.rao.periods;
   const np = periods.length;
   const pFirst = periods[0];
   const pLast = periods[np - 1];
@@ -114,17 +132,9 @@ export function spreadPositions(rao: PreparedRao, name: string, spreading: Sprea
  * H2 of the spread table at positions `q` ({@link spreadPositions}) for a whole degree of relative
  * direction (a row of the table: no interpolation in theta), linear between the fine period nodes.
  */
-export function spreadAtGrid(
-  rao: PreparedRao,
-  name: string,
-  spreading: Spreading,
-  thetaDeg: number,
-  q: Float64Array,
-  h2: Float64Array,
-): void {
+export function spreadAtGrid(table: SpreadTable, thetaDeg: number, q: Float64Array, h2: Float64Array): void {
   if (!Number.isInteger(thetaDeg / THETA_STEP_DEG) || thetaDeg < 0 || thetaDeg >= 360)
     throw new RangeError(`relative direction ${thetaDeg} must be a whole row of the spread table (0-359 deg)`);
-  const table = spreadTable(rao, name, spreading);
   const v = table.values;
   const row = spreadRow(table, thetaDeg / THETA_STEP_DEG);
   const lastLow = table.periodNodes - 2;
@@ -141,8 +151,7 @@ export function spreadAtGrid(
  * table's theta rows) into `out` [first, last]: the values the direct integration holds beyond the
  * table's periods.
  */
-export function spreadAtPeriodEnds(rao: PreparedRao, name: string, spreading: Spreading, thetaDeg: number, out: Float64Array): void {
-  const table = spreadTable(rao, name, spreading);
+export function spreadAtPeriodEnds(table: SpreadTable, thetaDeg: number, out: Float64Array): void {
   let theta = thetaDeg % 360;
   if (theta < 0) theta += 360;
   const ti = Math.min(THETA_NODES - 2, Math.floor(theta / THETA_STEP_DEG));
