@@ -678,34 +678,7 @@ function transformWithWaterLevel(input: SeaSeriesInput, level: Float64Array, set
  * the distinct values in id order.
  */
 function distinctIds(values: Float64Array, ids: Int32Array, index: FloatKeyIndex, positiveFinite: boolean): Float64Array {
-  let keys = new Float64Array(1024);
-  let last = NaN;
-  let lastId = -1;
-  for (let i = 0; i < values.length; i++) {
-    const v = values[i];
-    if (v !== v || (positiveFinite && !(v > 0 && v < Infinity))) {
-      ids[i] = -1;
-      continue;
-    }
-    if (v === last) {
-      ids[i] = lastId;
-      continue;
-    }
-    let id = index.find(v);
-    if (id < 0) {
-      id = index.add(v);
-      if (id >= keys.length) {
-        const grown = new Float64Array(keys.length * 2);
-        grown.set(keys);
-        keys = grown;
-      }
-      keys[id] = v;
-    }
-    ids[i] = id;
-    last = v;
-    lastId = id;
-  }
-  return keys.subarray(0, index.size);
+  return index.assignIds(values, ids, positiveFinite);
 }
 
 /** Soulsby velocity per metre of Hs from each record's own Tz (NaN where Tz is missing or invalid), cached by exact Tz. */
