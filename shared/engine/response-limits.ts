@@ -127,6 +127,29 @@ export function responseLimitSeries(series: SiteSeries, op: OperationSpec, limit
 /** Relative margin on a surely-broken bound, far above the rounding of the exact path's sqrt and log. */
 const BREAK_MARGIN = 1e-9;
 
+const LOG_BITS = new Float64Array(1);
+const LOG_WORDS = new Uint32Array(LOG_BITS.buffer);
+/** The word of a float64 that holds its sign, exponent and top 20 mantissa bits (byte order of this machine). */
+const HIGH_WORD = new Uint8Array(Uint16Array.of(1).buffer)[0] === 1 ? 1 : 0;
+
+/**
+ * A lower bound of ln x for x >= 1 without the logarithm: with x = m 2^e (1 <= m < 2),
+ * ln x = (e + log2 m) ln 2 and log2 m >= m - 1 (the chord of a concave curve), m - 1 read from the
+ * top 20 bits of the mantissa (rounded down). The bound is at most LN_CHORD_GAP under ln x; a
+ * test holds both bounds on random x.
+ */
+export function lnBelow(x: number): number {
+  LOG_BITS[0] = x;
+  const high = LOG_WORDS[HIGH_WORD];
+  return ((high >>> 20) - 1023 + (high & 0xfffff) / 1048576) * Math.LN2;
+}
+
+/**
+ * The largest gap between ln x and {@link lnBelow}: max over m in [1, 2] of ln m - (m - 1) ln 2
+ * (at m = 1/ln 2: 0.05966), plus the 20-bit rounding (2^-20 ln 2) and a margin.
+ */
+export const LN_CHORD_GAP = 0.0597 + 1e-6;
+
 /**
  * Longest zero-crossing period a response to the series can have, s: every partition's spectrum
  * lies on omega >= GRID_X_MIN omega_p, so m2 >= (GRID_X_MIN 2 pi / Tp)^2 m0 for each and for their
@@ -254,6 +277,8 @@ function classOpenRecords(
   const significant = l.statistic === 'significant';
   const max = l.max;
   const surelyMet = alphaLeast * max;
+  const maxSquared = max * max * (1 + BREAK_MARGIN);
+  const surelyMetSquared = surelyMet * surelyMet * (1 - BREAK_MARGIN);
   const np = hsOf.length;
   const alphaRow = c.alphaRow;
   const alphaCols = c.alphaCols;
@@ -280,7 +305,18 @@ function classOpenRecords(
       const b = m2[i];
       if (a > 0 && b > 0) {
         const cycles = tauS / (2 * Math.PI * Math.sqrt(a / b));
-        if (cycles > 1) value = Math.sqrt(2 * a * Math.log(cycles));
+        if (cycles > 1) {
+          // R_mpm^2 = 2 m0 ln N. Most records are decided by bounds on ln N from N's binary
+          // exponent and leading bits (lnBelow, lnBelow + LN_CHORD_GAP), without the logarithm:
+          // broken past max^2, met at OPWF under surelyMet^2 (margins far above rounding).
+          const lnLow = lnBelow(cycles);
+          if (2 * a * lnLow > maxSquared) {
+            cls[i] = 2;
+            continue;
+          }
+          if (2 * a * (lnLow + LN_CHORD_GAP) < surelyMetSquared) continue;
+          value = Math.sqrt(2 * a * Math.log(cycles));
+        }
       }
     }
     if (value <= surelyMet) continue;

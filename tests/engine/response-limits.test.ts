@@ -10,7 +10,7 @@ import {
   type SiteSeries,
 } from '../../shared/engine';
 import { explainHour } from '../../shared/engine/explain-hour';
-import { responseSettings, surelyBrokenM0 } from '../../shared/engine/response-limits';
+import { LN_CHORD_GAP, lnBelow, responseSettings, surelyBrokenM0 } from '../../shared/engine/response-limits';
 import { GRID_X_MIN, prepareRao, responseMoments, type RaoTable } from '../../shared/response';
 import { mulberry32 } from '../../bench/lib/random';
 import { DEMO_VESSELS } from '../../seed/demo-vessels';
@@ -243,5 +243,22 @@ describe('response limits in the engine (docs/domain.md#vessel-response)', () =>
     }
     // The bound decides a good share of the seas, so the check above is not empty.
     expect(broken).toBeGreaterThan(checked / 10);
+  });
+
+  it('lnBelow bounds ln x from below, within LN_CHORD_GAP (the status pass decides most R_mpm without the logarithm)', () => {
+    // ln x = (e + log2 m) ln 2 for x = m 2^e; log2 m >= m - 1 on [1, 2] (chord of a concave
+    // curve), the largest gap ln m - (m - 1) ln 2 is at m = 1/ln 2: 0.0597 (worked by hand).
+    const rnd = mulberry32(12052026);
+    const xs = [1, 1.5, 2, 2 ** 10, 1 / Math.LN2, 2 / Math.LN2, 3600, 10800 / 7.3, 1e6, 1.0000001];
+    for (let k = 0; k < 20_000; k++) xs.push(1 + Math.exp(16 * rnd()) * rnd());
+    let widest = 0;
+    for (const x of xs) {
+      const low = lnBelow(x);
+      expect(low).toBeLessThanOrEqual(Math.log(x));
+      expect(Math.log(x) - low).toBeLessThanOrEqual(LN_CHORD_GAP);
+      widest = Math.max(widest, Math.log(x) - low);
+    }
+    // The gap is reached, so the constant is not loose by much.
+    expect(widest).toBeGreaterThan(0.059);
   });
 });
