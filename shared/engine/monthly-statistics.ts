@@ -902,7 +902,7 @@ function meanHours(sumMs: number, count: number): number | null {
   return count > 0 ? sumMs / count / MS_PER_HOUR : null;
 }
 
-/** A calendar month's figures over the years from its sums. */
+/** A calendar month's figures over the years from its sums: a year-month's, with the windows shared over its years. */
 function summarise(
   month: number,
   records: number,
@@ -918,20 +918,23 @@ function summarise(
   windowMs: number,
   years: number,
 ): MonthStatistics {
-  return {
+  // Twelve a series: the spread costs nothing that matters here.
+  const { year: _year, ...figures } = yearMonthSummary(
+    0,
     month,
     records,
-    recordsWithData: withData,
-    workability: shareOfData(workableMs, withData, withDataMs),
-    goStartShare: shareOfData(startsMs, withData, withDataMs),
-    wowMeanHours: meanHours(wowSumMs, wowCount),
+    withData,
+    withDataMs,
+    workableMs,
+    startsMs,
+    wowCount,
+    wowSumMs,
     wowP90Hours,
     censored,
     windows,
-    windowsPerMonth: years > 0 ? windows / years : null,
-    meanWindowHours: meanHours(windowMs, windows),
-    years,
-  };
+    windowMs,
+  );
+  return { ...figures, windowsPerMonth: years > 0 ? windows / years : null, years };
 }
 
 /**
