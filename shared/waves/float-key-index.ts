@@ -70,40 +70,24 @@ export class FloatKeyIndex {
    * The id of every value of `values` into `ids`, adding the new ones (-1 for NaN and, with
    * `positiveFinite`, for any value not in (0, Infinity)); returns the distinct values by id. On
    * an empty index.
-   * One loop with the hashing written out: a number handed to a call per value may be boxed
-   * (measured: 8 MB of garbage a 30-year series).
    */
   assignIds(values: Float64Array, ids: Int32Array, positiveFinite: boolean): Float64Array {
     if (this.count > 0) throw new RangeError('assignIds works on an empty index');
     let keys = new Float64Array(1024);
-    const scratch = this.scratch;
-    const bits = this.scratchBits;
     for (let n = 0; n < values.length; n++) {
       const v = values[n];
       if (v !== v || (positiveFinite && !(v > 0 && v < Infinity))) {
         ids[n] = -1;
         continue;
       }
-      // The same as the record before (which then has its id): compared with the array, not
-      // with a number kept from the last turn (that one was boxed on every turn, measured).
+      // The same as the record before (which then has its id): compared with the array, not with
+      // a number kept from the last turn, which the optimiser boxed on every turn (8 MB of
+      // garbage a 30-year series, measured).
       if (n > 0 && v === values[n - 1]) {
         ids[n] = ids[n - 1];
         continue;
       }
-      // find(v), written out (+0 and -0 are one key: v + 0 is +0 for both).
-      scratch[0] = v + 0;
-      const h = Math.imul(bits[0] ^ Math.imul(bits[1], 0x85ebca6b), 0x9e3779b1);
-      let i = (h ^ (h >>> 15)) & this.mask;
-      let id = -1;
-      for (;;) {
-        const at = this.slots[i];
-        if (at < 0) break;
-        if (this.keys[i] === v) {
-          id = at;
-          break;
-        }
-        i = (i + 1) & this.mask;
-      }
+      let id = this.find(v);
       if (id < 0) {
         id = this.add(v);
         if (id >= keys.length) {

@@ -156,9 +156,9 @@ export function prepareSeaInput(input: SeaSeriesInput, buffers?: { tpIds: Int32A
     throw new RangeError(`prepareSeaInput: buffers shorter than the series (${n} records)`);
   }
   const tpIds = buffers ? buffers.tpIds.subarray(0, n) : new Int32Array(n);
-  const tpKeys = distinctIds(input.tpS, tpIds, new FloatKeyIndex(1024), true);
+  const tpKeys = new FloatKeyIndex(1024).assignIds(input.tpS, tpIds, true);
   const dirIds = buffers ? buffers.dirIds.subarray(0, n) : new Int32Array(n);
-  const dirKeys = distinctIds(input.dirDeg, dirIds, new FloatKeyIndex(1024), false);
+  const dirKeys = new FloatKeyIndex(1024).assignIds(input.dirDeg, dirIds, false);
   return { input, tpIds, tpKeys, dirIds, dirKeys, anyTz: hasUsableTz(input.tzS) };
 }
 
@@ -384,10 +384,10 @@ export function transformToSite(input: SeaSeriesInput, source: SourcePoint, site
     }
   } else {
     tpIds = new Int32Array(n);
-    tpKeys = distinctIds(tpIn, tpIds, new FloatKeyIndex(1024), true);
+    tpKeys = new FloatKeyIndex(1024).assignIds(tpIn, tpIds, true);
     if (mode !== MODE_NONE) {
       dirIds = new Int32Array(n);
-      dirKeys = distinctIds(dirIn, dirIds, new FloatKeyIndex(1024), false);
+      dirKeys = new FloatKeyIndex(1024).assignIds(dirIn, dirIds, false);
     }
   }
 
@@ -571,12 +571,12 @@ function transformWithWaterLevel(input: SeaSeriesInput, level: Float64Array, set
     throw new RangeError('options.prepared was made from another input');
   }
   const tpIds = prepared ? prepared.tpIds : new Int32Array(n);
-  const tpKeys = prepared ? prepared.tpKeys : distinctIds(tpIn, tpIds, new FloatKeyIndex(1024), true);
+  const tpKeys = prepared ? prepared.tpKeys : new FloatKeyIndex(1024).assignIds(tpIn, tpIds, true);
   let dirIds: Int32Array | null = null;
   let dirKeys: Float64Array = new Float64Array(0);
   if (mode !== MODE_NONE) {
     dirIds = prepared ? prepared.dirIds : new Int32Array(n);
-    dirKeys = prepared ? prepared.dirKeys : distinctIds(dirIn, dirIds, new FloatKeyIndex(1024), false);
+    dirKeys = prepared ? prepared.dirKeys : new FloatKeyIndex(1024).assignIds(dirIn, dirIds, false);
   }
   // Per distinct Tp: C and Cg at the data point, omega, k0 = omega^2/g and the table band.
   const srcTerms = new Float64Array(Math.max(1, tpKeys.length) * 5);
@@ -670,15 +670,6 @@ function transformWithWaterLevel(input: SeaSeriesInput, level: Float64Array, set
     soulOut[i] = hsSite * soulsbyVelocityPerHs(tz > 0 && tz < Infinity ? tz : tp * tzOverTp, h, g);
   }
   return out;
-}
-
-/**
- * Indices of each record's value among the distinct values (found with `index`, first seen first);
- * -1 for NaN, and with `positiveFinite` also for values that are not finite and positive. Returns
- * the distinct values in id order.
- */
-function distinctIds(values: Float64Array, ids: Int32Array, index: FloatKeyIndex, positiveFinite: boolean): Float64Array {
-  return index.assignIds(values, ids, positiveFinite);
 }
 
 /** Soulsby velocity per metre of Hs from each record's own Tz (NaN where Tz is missing or invalid), cached by exact Tz. */
