@@ -192,8 +192,8 @@ export function surelyBrokenM0(l: ResponseLimit, tzTopS: number): number {
  * response limits, as {@link responseClass} classes a value; a record without its response's data
  * becomes `noData`. A record already broken or without data keeps its class unless its response
  * data is missing, so its response is not worked (the class could not rise further): the moment
- * passes go over a list of the records still open. Where every alpha is at most 1, a record whose
- * m0 (after any partition) is above {@link surelyBrokenM0} is broken without its statistic.
+ * passes go over a list of the records still open. Alpha is at most 1, so a record whose m0 (after
+ * any partition) is above {@link surelyBrokenM0} is broken without its statistic.
  */
 export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: CompiledLimits, cls: Uint8Array, noData: number): void {
   const n = cls.length;
@@ -202,8 +202,14 @@ export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: C
     cls.fill(noData);
     return;
   }
-  const settings = responseSettings(op.limits.responseSea);
   const rao = prepareRao(op.vessel.raos);
+  const names = [...new Set(c.responses.map((l) => l.response))];
+  if (names.some((name) => !rao.amplitudes[name])) {
+    // No RAO for a limited response: no data throughout.
+    cls.fill(noData);
+    return;
+  }
+  const settings = responseSettings(op.limits.responseSea);
   const hsOf = parts.map((p) => p.hsM);
   // Alpha is linear between its table's columns and held beyond them, so never below the row's
   // least value: a response at or under that share of its limit is met at OPWF whatever Hs_eq.
@@ -214,16 +220,10 @@ export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: C
   const { m0, m2, open } = momentScratch(n);
   let count = keepOpen(open, -1, cls);
   // One moment pass per response named, for every limit on it, over the records still open.
-  const names = [...new Set(c.responses.map((l) => l.response))];
   for (let k = 0; k < names.length; k++) {
     const name = names[k];
     const onName = c.responses.filter((l) => l.response === name);
     count = keepOpen(open, count, cls);
-    if (!rao.amplitudes[name]) {
-      // No RAO for the response: no data throughout.
-      cls.fill(noData);
-      return;
-    }
     // Alpha is at most 1 (the alpha table is checked so), so a response over its limit is broken
     // whatever alpha: such records are classed from a bound on m0 without the statistic, and left
     // out of the partitions after the one that showed it.
@@ -256,9 +256,9 @@ function keepOpen(open: Int32Array, count: number, cls: Uint8Array): number {
 
 /**
  * Raises the classes of the records open[0..count) by one response limit from the moments (NaN:
- * no data); `brokenAbove` from {@link surelyBrokenM0}. Alpha is at most 1, so a value over
- * its limit is broken whatever alpha. Apart from the caller so that its loop takes only typed arrays and numbers:
- * optimised early, and nothing boxed.
+ * no data); `brokenAbove` from {@link surelyBrokenM0}. Alpha is at most 1, so a value over its
+ * limit is broken whatever alpha. Apart from the caller so that its loop takes only typed arrays
+ * and numbers: optimised early, and never thrown away when the caller meets new shapes.
  */
 function classOpenRecords(
   open: Int32Array,
@@ -295,10 +295,10 @@ function classOpenRecords(
       cls[i] = 2;
       continue;
     }
-    // significantAmplitude and mostProbableMaximum written out, with the same arithmetic: a call
-    // that takes or returns a number that is not a small integer may box it, and so may a
-    // conditional that mixes a computed number with the global NaN (both measured: tens of MB of
-    // garbage a pass). Tz_R = 2 pi sqrt(m0/m2); R_mpm = 0 where there is none or N <= 1.
+    // significantAmplitude and mostProbableMaximum written out, with the same arithmetic, so that
+    // the loop depends on no inlining; no conditional mixes a computed number with the global NaN
+    // (that one boxed a number per record, measured). Tz_R = 2 pi sqrt(m0/m2); R_mpm = 0 where
+    // there is none or N <= 1.
     let value = 0;
     if (significant) value = 2 * Math.sqrt(a);
     else {
