@@ -223,7 +223,8 @@ export function raiseResponseClasses(series: SiteSeries, op: OperationSpec, c: C
   for (let k = 0; k < names.length; k++) {
     const name = names[k];
     const onName = c.responses.filter((l) => l.response === name);
-    count = keepOpen(open, count, cls);
+    // The records the last name's limits broke leave the list (the first name finds it fresh).
+    if (k > 0) count = keepOpen(open, count, cls);
     // Alpha is at most 1 (the alpha table is checked so), so a response over its limit is broken
     // whatever alpha: such records are classed from a bound on m0 without the statistic, and left
     // out of the partitions after the one that showed it.
