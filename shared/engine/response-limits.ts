@@ -168,9 +168,15 @@ const longestCache = new WeakMap<Float64Array, number>();
 function longestPeriod(tpS: Float64Array): number {
   const hit = longestCache.get(tpS);
   if (hit !== undefined) return hit;
-  let top = 0;
-  for (let i = 0; i < tpS.length; i++) if (tpS[i] > top) top = tpS[i];
+  const top = largestPositive(tpS);
   longestCache.set(tpS, top);
+  return top;
+}
+
+/** The largest value of a series above 0 (NaN left out), 0 when none: a loop of its own, optimised once. */
+function largestPositive(values: Float64Array): number {
+  let top = 0;
+  for (let i = 0; i < values.length; i++) if (values[i] > top) top = values[i];
   return top;
 }
 

@@ -113,18 +113,26 @@ function addBin(
  * direct integration holds the RAO: the same for every theta row, so worked once per Tp.
  */
 export function spreadPositions(table: SpreadTable, tpS: number, q: Float64Array): void {
-  const periods = table.rao.periods;
+  positionsOnNodes(table.rao.periods, table.periodNodes, table.steps, tpS, q);
+}
+
+/**
+ * The loop of {@link spreadPositions}, on typed arrays and numbers only: optimised once, and not
+ * thrown away when the optimiser drops its caller for a new shape of table (measured with
+ * --trace-deopt: the tables' building functions were dropped two or three times in a cold run).
+ */
+function positionsOnNodes(periods: Float64Array, periodNodes: number, steps: number, tpS: number, q: Float64Array): void {
   const np = periods.length;
   const pFirst = periods[0];
   const pLast = periods[np - 1];
   for (let j = 0; j < GRID_POINTS; j++) {
     const T = tpS / GRID_X[j];
     if (T <= pFirst || T >= pLast) {
-      q[j] = T <= pFirst ? 0 : table.periodNodes - 1;
+      q[j] = T <= pFirst ? 0 : periodNodes - 1;
       continue;
     }
     const lo = periodSegment(periods, T);
-    q[j] = (lo + (T - periods[lo]) / (periods[lo + 1] - periods[lo])) * table.steps;
+    q[j] = (lo + (T - periods[lo]) / (periods[lo + 1] - periods[lo])) * steps;
   }
 }
 
@@ -135,9 +143,11 @@ export function spreadPositions(table: SpreadTable, tpS: number, q: Float64Array
 export function spreadAtGrid(table: SpreadTable, thetaDeg: number, q: Float64Array, h2: Float64Array): void {
   if (!Number.isInteger(thetaDeg / THETA_STEP_DEG) || thetaDeg < 0 || thetaDeg >= 360)
     throw new RangeError(`relative direction ${thetaDeg} must be a whole row of the spread table (0-359 deg)`);
-  const v = table.values;
-  const row = spreadRow(table, thetaDeg / THETA_STEP_DEG);
-  const lastLow = table.periodNodes - 2;
+  rowAtPositions(table.values, spreadRow(table, thetaDeg / THETA_STEP_DEG), table.periodNodes - 2, q, h2);
+}
+
+/** The loop of {@link spreadAtGrid}, on typed arrays and numbers only (as {@link positionsOnNodes}). */
+function rowAtPositions(v: Float64Array, row: number, lastLow: number, q: Float64Array, h2: Float64Array): void {
   for (let j = 0; j < GRID_POINTS; j++) {
     const qj = q[j];
     const qi = Math.min(lastLow, Math.floor(qj));
