@@ -13,10 +13,11 @@
  *
  * The table (MOMENT_GRID): ln Tp every 0.01 (1 %) from TP_MIN_S to TP_MAX_S, theta every 2 deg
  * all round (360 wraps to 0; our choice, docs/domain.md#vessel-response), read bilinearly: linear
- * in Tp between its two nodes (the interval found by a lookup, not a logarithm) and in theta. Nodes are worked lazily on first use, layer
- * by layer (`worked` holds a node's layers worked; a Tp node's row is allocated on first use and
- * only the parts of it worked are ever written, so the rest never costs a page of fresh memory),
- * since a series touches a small part of the table. Gamma:
+ * in Tp between its two nodes (the interval found by a lookup, not a logarithm) and in theta.
+ * Nodes are worked lazily on first use, layer by layer (`worked` holds a node's layers worked; a
+ * Tp node's row is allocated on first use and only the parts of it worked are ever written, so
+ * the rest never costs a page of fresh memory), since a series touches a small part of the table.
+ * Gamma:
  *  - a fixed gamma (swell, or a wind sea of fixed gamma): one layer at that gamma;
  *  - the DNV rule (gamma 1-5): layers at 5 Chebyshev-Lobatto nodes in s = ln gamma over
  *    [0, ln 5] and Lagrange interpolation in s. The unnormalised sums N(s) = sum_j g_j(gamma) H2_j
