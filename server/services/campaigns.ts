@@ -30,8 +30,11 @@ type CampaignRow = typeof campaign.$inferSelect;
 
 const MS_PER_HOUR = 3_600_000;
 
-/** Bump when the simulation or the fields kept of it change, so cached answers are not reused. */
-const SIMULATION_FORMAT = 2;
+/**
+ * Bump when the simulation or the fields kept of it change, so cached answers are not reused.
+ * 3: the response limits' moment tables step theta every 2 deg (was 1 deg).
+ */
+const SIMULATION_FORMAT = 3;
 
 /** What is cached of a start month's simulation (the per-year runs are not answered). */
 export type SimulatedMonth = Omit<CampaignMonthResult, 'runs'>;
