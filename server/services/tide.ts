@@ -7,7 +7,9 @@
  * Harmonic Analysis and Prediction of Tides"). The package computes the astronomical arguments and
  * the nodal factors f, u; we ask it for Schureman's nodal corrections (`nodeCorrections:
  * 'schureman'`, the package's other choice is the IHO table) and take them as it computes them.
- * Long spans are predicted in chunks of at most 31 days, so f and u follow the 18.6-year cycle.
+ * The package (0.11.0) takes V0 at a span's start and renews f and u every 24 hours within the span
+ * (at each day's middle), so they follow the 18.6-year cycle; long spans are predicted in chunks of
+ * at most 31 days, which keeps each call's list of points short.
  *
  * Cautions to show with every prediction: predicted tide excludes surge; not for navigation.
  */
@@ -178,9 +180,8 @@ export function tidePredictor(
 /**
  * Predicted level at each time, m above chart datum (NaN never: every time gets a level).
  *
- * Chunks of at most 31 days (the package takes the nodal factors f, u at a span's start, so they
- * are renewed each chunk; over 31 days they change by under 0.1 mm on a 1.5 m M2); within a
- * chunk, times all on whole hours take an hourly timeline, other times a 5-minute one with linear
+ * Chunks of at most 31 days, each a span of its own (the package takes V0 at a span's start and
+ * renews the nodal factors f, u every 24 hours within it); within a chunk, times all on whole hours take an hourly timeline, other times a 5-minute one with linear
  * interpolation between its points (the straight line misses a sine of amplitude A by at most
  * A*(omega*dt)^2/8: 0.7 mm for an M2 amplitude of 3 m).
  */
