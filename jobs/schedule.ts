@@ -3,6 +3,7 @@ import type { AppDeps } from '../server/deps';
 import { deliverDueMail } from '../server/services/outbox';
 import { runPlanningJob } from '../server/services/planning';
 import { queueDigests } from '../server/services/digests';
+import { workStatisticsAhead } from '../server/services/statistics-ahead';
 
 export interface Schedule {
   stop(): void;
@@ -13,9 +14,11 @@ export interface Schedule {
 /**
  * The scheduled work of one app instance (node-cron, UTC): the planning job on `planCron`
  * (default every 6 hours at minute 15), e-mail delivery every minute, daily digests every 15
- * minutes. `noOverlap` keeps one run of each at a time in this process; the planning job also
- * takes a database advisory lock per project against other instances, and plans a project once
- * per tick across them.
+ * minutes, and every 2 minutes the workability statistics each project's Downtime page opens on,
+ * worked out ahead where they are not stored for the present data and limits. `noOverlap` keeps
+ * one run of each at a time in this process; the planning job also takes a database advisory lock
+ * per project against other instances, and plans a project once per tick across them; the
+ * statistics take a lock of their own per project and skip what another instance stored.
  */
 export function startPlanningSchedule(deps: AppDeps, options: { planCron: string; enabled: boolean }): Schedule {
   if (!options.enabled) return { stop: () => {}, idle: async () => {} };
@@ -56,6 +59,11 @@ export function startPlanningSchedule(deps: AppDeps, options: { planCron: string
       '*/15 * * * *',
       guard('Daily digests', () => queueDigests(deps)),
       { name: 'digest', noOverlap: true, timezone: 'UTC' },
+    ),
+    cron.createTask(
+      '*/2 * * * *',
+      guard('Statistics ahead', () => workStatisticsAhead(deps)),
+      { name: 'statistics', noOverlap: true, timezone: 'UTC' },
     ),
   ];
   for (const t of tasks) void t.start();

@@ -47,7 +47,7 @@ const EnvSchema = z.object({
   PLAN_CRON: z.string().default('15 */6 * * *'),
   /** An earliest start moving by more than this many hours is an alert. */
   ALERT_EARLIEST_MOVE_HOURS: z.coerce.number().min(0).max(240).default(6),
-  /** Run the scheduled planning and mail delivery in this process (default on). */
+  /** Run the scheduled planning, mail delivery, digests and statistics worked out ahead in this process (default on). */
   JOBS_ENABLED: z
     .enum(['true', 'false'])
     .default('true')

@@ -100,6 +100,11 @@ export function datasetSeries(db: Db, datasetId: string): Promise<SeaSeries> {
   return memoOf(db).series.get(datasetId, () => readSeries(db, datasetId).then(sharedSeries));
 }
 
+/** The `stats_cache` key of one dataset, limits version and variant. */
+function statsKey(datasetId: string, version: string, variant: string): string {
+  return `${datasetId}:${version}:${variant}`;
+}
+
 /** Cache writes not finished yet. */
 const pendingWrites = new Set<Promise<void>>();
 
@@ -122,7 +127,7 @@ export async function cachedStats<T>(
   variant: string,
   compute: () => Promise<T>,
 ): Promise<T> {
-  const key = `${datasetId}:${version}:${variant}`;
+  const key = statsKey(datasetId, version, variant);
   const m = memoOf(db);
   const p = async () => {
     const [row] = await db.select({ value: statsCache.value }).from(statsCache).where(eq(statsCache.key, key));
@@ -357,6 +362,24 @@ export async function projectWorkability(
   if (!row) return { dataset: null, entries: [] };
   const setup = await loadProjectSetup(db, projectId);
   return { dataset: row, entries: await workabilityEntries(db, row, setup, options.alpha) };
+}
+
+/**
+ * Works out and stores the workability statistics the Downtime page opens on (the project's
+ * default hindcast, forecast limits on) when the `stats_cache` table does not hold them for the
+ * present limits yet; true when it worked them out, false when they were stored or the project
+ * has no hindcast. For the scheduled work (server/services/statistics-ahead.ts).
+ */
+export async function storeDefaultWorkability(db: Db, projectId: string): Promise<boolean> {
+  const row = await statisticsDataset(db, projectId);
+  if (!row) return false;
+  const setup = await loadProjectSetup(db, projectId);
+  const key = statsKey(row.id, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), String(true));
+  const [stored] = await db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.key, key));
+  if (stored) return false;
+  await workabilityEntries(db, row, setup, true);
+  await settleStatsCache();
+  return true;
 }
 
 /**
