@@ -21,7 +21,16 @@ import type { Db } from '../db/client';
 import { campaign } from '../db/schema';
 import { HttpError } from '../http/errors';
 import { loadProjectSetup, sitesOf, type ProjectSetup } from './site-context';
-import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
+import {
+  cachedStats,
+  datasetSeries,
+  forEachOperationSite,
+  limitsVersion,
+  settleStatsCache,
+  statisticsDataset,
+  statsStored,
+  type DatasetRow,
+} from './workability';
 import type { SeaSeries } from './series-store';
 import { runEngineTask } from './engine-pool';
 import { projectRow } from './project-rows';
@@ -171,6 +180,39 @@ export function nextMonthStartMs(month: number, notBeforeMs: number, timeZone: s
   return t;
 }
 
+/** The version a campaign's cached simulation is stored under: the format, the limits version, the steps in order and the time zone. */
+function simulationVersion(setup: ProjectSetup, row: DatasetRow, c: CampaignResponse): string {
+  return createHash('sha256')
+    .update(JSON.stringify([SIMULATION_FORMAT, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), c.steps, c.timeZone]))
+    .digest('hex')
+    .slice(0, 32);
+}
+
+const simulationVariant = (c: CampaignResponse, alpha: boolean) => `campaign-${c.id}-${alpha}`;
+
+/**
+ * Works out and stores the simulation the Downtime page opens on (the project's first campaign in
+ * the page's order, on the default hindcast, forecast limits on) when the `stats_cache` table does
+ * not hold it for the present limits yet; true when it worked it out, false when it was stored,
+ * or there is no campaign, no hindcast, or a step that no longer fits (the page says so). For the
+ * scheduled work (server/services/statistics-ahead.ts).
+ */
+export async function storeDefaultSimulation(db: Db, projectId: string, now: Date): Promise<boolean> {
+  const [first] = await listCampaigns(db, projectId);
+  if (!first) return false;
+  const [row, setup] = await Promise.all([statisticsDataset(db, projectId), loadProjectSetup(db, projectId)]);
+  if (!row) return false;
+  try {
+    assertSteps(setup, first.steps, 'conflict');
+  } catch {
+    return false;
+  }
+  if (await statsStored(db, row.id, simulationVersion(setup, row, first), simulationVariant(first, true))) return false;
+  await simulateProjectCampaign(db, projectId, first.id, { alpha: true, now });
+  await settleStatsCache();
+  return true;
+}
+
 /**
  * Simulates a campaign through every hindcast year for each start month 1-12 (docs/domain.md#campaigns,
  * #convention-15): runs start on the 1st at 00:00 in the campaign's time
@@ -199,12 +241,9 @@ export async function simulateProjectCampaign(
   // table, data point depth), the steps in order, the time zone and alpha: cached under those like
   // the workability statistics (a repeat view, or another member's, costs no recomputation). The
   // finish dates below depend on the clock and are computed on every request.
-  const version = createHash('sha256')
-    .update(JSON.stringify([SIMULATION_FORMAT, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), c.steps, c.timeZone]))
-    .digest('hex')
-    .slice(0, 32);
+  const version = simulationVersion(setup, row, c);
   const steps = c.steps.map((s) => ({ operationId: s.operationId, siteId: s.siteId, tpopH: ops.get(s.operationId)!.tpopH }));
-  const simulated = await cachedStats<Simulated>(db, projectId, row.id, version, `campaign-${c.id}-${options.alpha}`, async () =>
+  const simulated = await cachedStats<Simulated>(db, projectId, row.id, version, simulationVariant(c, options.alpha), async () =>
     // On an engine worker thread (engine-pool.ts): a cold 30-year simulation never holds up other requests.
     runEngineTask('campaign', computeCampaignMonths, await datasetSeries(db, row.id), row, setup, steps, c.timeZone, options.alpha),
   );

@@ -1,11 +1,13 @@
 // Statistics worked out ahead (scheduled work, jobs/schedule.ts): after a hindcast import, a change
-// of the default hindcast or of any limit, the next run works out the workability statistics the
-// Downtime page opens on and stores them, so the first person to open the page finds them ready
-// instead of waiting for a cold 30-year computation (1.5-2 s on the bench's project). The work runs
-// on the engine thread, below the API thread's priority (engine-pool.ts).
+// of the default hindcast, of a campaign or of any limit, the next run works out what the Downtime
+// page opens on (the workability statistics, and the first campaign's simulation, forecast limits
+// on) and stores it, so the first person to open the page finds it ready instead of waiting for a
+// cold 30-year computation (1.5-2 s on the bench's project). The work runs on the engine thread,
+// below the API thread's priority (engine-pool.ts).
 import crypto from 'node:crypto';
 import type { AppDeps } from '../deps';
 import { project } from '../db/schema';
+import { storeDefaultSimulation } from './campaigns';
 import { storeDefaultWorkability } from './workability';
 
 /** The advisory lock of one project's statistics work (apart from its planning lock). */
@@ -14,8 +16,8 @@ export function statisticsLockKey(projectId: string): number {
 }
 
 /**
- * What one run did: the projects whose statistics it worked out; how many had nothing to do (stored
- * already, or no hindcast), were held by another instance, or failed.
+ * What one run did: the projects where it worked something out; how many had nothing to do (all
+ * stored already, or no hindcast), were held by another instance, or failed.
  */
 export interface StatisticsAheadResult {
   worked: string[];
@@ -34,7 +36,11 @@ export async function workStatisticsAhead(deps: AppDeps): Promise<StatisticsAhea
   const ids = (await deps.db.select({ id: project.id }).from(project)).map((r) => r.id);
   for (const projectId of ids) {
     try {
-      const locked = await deps.database.withAdvisoryLock(statisticsLockKey(projectId), () => storeDefaultWorkability(deps.db, projectId));
+      const locked = await deps.database.withAdvisoryLock(statisticsLockKey(projectId), async () => {
+        const workability = await storeDefaultWorkability(deps.db, projectId);
+        const simulation = await storeDefaultSimulation(deps.db, projectId, deps.clock());
+        return workability || simulation;
+      });
       if (!locked.acquired) result.busy++;
       else if (locked.value) result.worked.push(projectId);
       else result.unchanged++;

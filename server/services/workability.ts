@@ -105,6 +105,15 @@ function statsKey(datasetId: string, version: string, variant: string): string {
   return `${datasetId}:${version}:${variant}`;
 }
 
+/** True when the `stats_cache` table holds the entry of one dataset, version and variant. */
+export async function statsStored(db: Db, datasetId: string, version: string, variant: string): Promise<boolean> {
+  const [row] = await db
+    .select({ key: statsCache.key })
+    .from(statsCache)
+    .where(eq(statsCache.key, statsKey(datasetId, version, variant)));
+  return row !== undefined;
+}
+
 /** Cache writes not finished yet. */
 const pendingWrites = new Set<Promise<void>>();
 
@@ -374,9 +383,7 @@ export async function storeDefaultWorkability(db: Db, projectId: string): Promis
   const row = await statisticsDataset(db, projectId);
   if (!row) return false;
   const setup = await loadProjectSetup(db, projectId);
-  const key = statsKey(row.id, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), String(true));
-  const [stored] = await db.select({ key: statsCache.key }).from(statsCache).where(eq(statsCache.key, key));
-  if (stored) return false;
+  if (await statsStored(db, row.id, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), String(true))) return false;
   await workabilityEntries(db, row, setup, true);
   await settleStatsCache();
   return true;
