@@ -15,7 +15,8 @@ export interface Schedule {
  * The scheduled work of one app instance (node-cron, UTC): the planning job on `planCron`
  * (default every 6 hours at minute 15), e-mail delivery every minute, daily digests every 15
  * minutes, and every 2 minutes what each project's Downtime page opens on (workability statistics,
- * the first campaign's simulation), worked out ahead where not stored for the present data and limits. `noOverlap` keeps
+ * the first campaign's simulation, the ledger's hindcast expectation), worked out ahead where not
+ * stored for the present data and limits. `noOverlap` keeps
  * one run of each at a time in this process; the planning job also takes a database advisory lock
  * per project against other instances, and plans a project once per tick across them; the
  * statistics take a lock of their own per project and skip what another instance stored.

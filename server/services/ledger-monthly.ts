@@ -14,7 +14,16 @@ import { ledgerDay } from '../db/schema';
 import type { SeaSeries } from './series-store';
 import type { ProjectSetup } from './site-context';
 import { loadProjectSetup } from './site-context';
-import { cachedStats, datasetSeries, forEachOperationSite, limitsVersion, statisticsDataset, type DatasetRow } from './workability';
+import {
+  cachedStats,
+  datasetSeries,
+  forEachOperationSite,
+  limitsVersion,
+  settleStatsCache,
+  statisticsDataset,
+  statsStored,
+  type DatasetRow,
+} from './workability';
 import { runEngineTask } from './engine-pool';
 import { confirmedOnly } from './ledger-entries';
 
@@ -63,6 +72,23 @@ export async function ledgerExpectations(
   return { hindcast, expectations: await expectationsFor(db, projectId, setup, hindcast, options.alpha ?? false) };
 }
 
+/**
+ * Works out and stores the hindcast expectation the Downtime page's ledger opens on (the default
+ * hindcast, forecast limits on) when the `stats_cache` table does not hold it for the present
+ * limits yet; true when it worked it out. For the scheduled work (server/services/statistics-ahead.ts).
+ */
+export async function storeDefaultLedgerExpectations(db: Db, projectId: string): Promise<boolean> {
+  const [setup, hindcast] = await Promise.all([loadProjectSetup(db, projectId), statisticsDataset(db, projectId)]);
+  if (!hindcast) return false;
+  const version = limitsVersion(setup, hindcast.dataPointDepthM, hindcast.waterLevelReference);
+  if (await statsStored(db, hindcast.id, version, expectationVariant(true))) return false;
+  await expectationsFor(db, projectId, setup, hindcast, true);
+  await settleStatsCache();
+  return true;
+}
+
+const expectationVariant = (alpha: boolean) => (alpha ? 'ledger-alpha' : 'ledger');
+
 async function expectationsFor(
   db: Db,
   projectId: string,
@@ -71,7 +97,7 @@ async function expectationsFor(
   alpha: boolean,
 ): Promise<LedgerExpectation[]> {
   const version = limitsVersion(setup, hindcast.dataPointDepthM, hindcast.waterLevelReference);
-  return cachedStats(db, projectId, hindcast.id, version, alpha ? 'ledger-alpha' : 'ledger', async () =>
+  return cachedStats(db, projectId, hindcast.id, version, expectationVariant(alpha), async () =>
     // On an engine worker thread (engine-pool.ts).
     runEngineTask('ledgerExpectations', computeExpectations, await datasetSeries(db, hindcast.id), hindcast, setup, alpha),
   );

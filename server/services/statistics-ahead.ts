@@ -1,13 +1,16 @@
 // Statistics worked out ahead (scheduled work, jobs/schedule.ts): after a hindcast import, a change
 // of the default hindcast, of a campaign or of any limit, the next run works out what the Downtime
-// page opens on (the workability statistics, and the first campaign's simulation, forecast limits
-// on) and stores it, so the first person to open the page finds it ready instead of waiting for a
-// cold 30-year computation (1.5-2 s on the bench's project). The work runs on the engine thread,
-// below the API thread's priority (engine-pool.ts).
+// page opens on (the workability statistics, the first campaign's simulation and the ledger's
+// hindcast expectation, forecast limits on) and stores it, so the first person to open the page
+// finds it ready instead of waiting for a cold 30-year computation (1.5-2 s for the workability
+// alone on the bench's project). The work runs on the engine thread, below the API thread's
+// priority (engine-pool.ts). The campaign's live outlook is not stored here: the planning job
+// works it out on every new forecast.
 import crypto from 'node:crypto';
 import type { AppDeps } from '../deps';
 import { project } from '../db/schema';
 import { storeDefaultSimulation } from './campaigns';
+import { storeDefaultLedgerExpectations } from './ledger-monthly';
 import { storeDefaultWorkability } from './workability';
 
 /** The advisory lock of one project's statistics work (apart from its planning lock). */
@@ -39,7 +42,8 @@ export async function workStatisticsAhead(deps: AppDeps): Promise<StatisticsAhea
       const locked = await deps.database.withAdvisoryLock(statisticsLockKey(projectId), async () => {
         const workability = await storeDefaultWorkability(deps.db, projectId);
         const simulation = await storeDefaultSimulation(deps.db, projectId, deps.clock());
-        return workability || simulation;
+        const ledger = await storeDefaultLedgerExpectations(deps.db, projectId);
+        return workability || simulation || ledger;
       });
       if (!locked.acquired) result.busy++;
       else if (locked.value) result.worked.push(projectId);

@@ -1,8 +1,9 @@
 /**
  * Statistics worked out ahead (server/services/statistics-ahead.ts, run every 2 minutes by
- * jobs/schedule.ts): a run stores what the Downtime page opens on (the workability statistics and
- * the first campaign's simulation, default hindcast, forecast limits on) for every project with a
- * hindcast, once per data and limits, and the page then answers from what it stored.
+ * jobs/schedule.ts): a run stores what the Downtime page opens on (the workability statistics, the
+ * first campaign's simulation and the ledger's hindcast expectation, default hindcast, forecast
+ * limits on) for every project with a hindcast, once per data and limits, and the page then
+ * answers from what it stored.
  */
 import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
@@ -23,6 +24,15 @@ async function storedKeys(): Promise<string[]> {
   return rows.map((r) => r.key).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(':true'));
 }
 
+/** The stored keys of the ledger's hindcast expectation on the demo hindcast, forecast limits on. */
+async function storedLedgerKeys(): Promise<string[]> {
+  const rows = await ctx.t.database.db
+    .select({ key: statsCache.key })
+    .from(statsCache)
+    .where(eq(statsCache.projectId, ctx.t.demo.projectId));
+  return rows.map((r) => r.key).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(':ledger-alpha'));
+}
+
 /** The stored keys of the first campaign's simulation on the demo hindcast, forecast limits on. */
 async function storedSimulationKeys(): Promise<string[]> {
   const [first] = (await ctx.as.client.get(`${ctx.base}/campaigns`)).body as CampaignResponse[];
@@ -37,6 +47,7 @@ describe('statistics worked out ahead', () => {
   it('stores the Downtime page statistics of each project with a hindcast, and only when they are not stored yet', async () => {
     expect(await storedKeys()).toEqual([]);
     expect(await storedSimulationKeys()).toEqual([]);
+    expect(await storedLedgerKeys()).toEqual([]);
     const first = await workStatisticsAhead(ctx.t.deps);
     // The seeded cable project has the hindcast; the pontoon project has none (nothing to do).
     expect(first).toEqual({ worked: [ctx.t.demo.projectId], unchanged: 1, busy: 0, failed: 0 });
@@ -44,11 +55,14 @@ describe('statistics worked out ahead', () => {
     expect(keys).toHaveLength(1);
     const simulationKeys = await storedSimulationKeys();
     expect(simulationKeys).toHaveLength(1);
+    const ledgerKeys = await storedLedgerKeys();
+    expect(ledgerKeys).toHaveLength(1);
 
     const second = await workStatisticsAhead(ctx.t.deps);
     expect(second).toEqual({ worked: [], unchanged: 2, busy: 0, failed: 0 });
     expect(await storedKeys()).toEqual(keys);
     expect(await storedSimulationKeys()).toEqual(simulationKeys);
+    expect(await storedLedgerKeys()).toEqual(ledgerKeys);
   });
 
   it('stores the campaign simulation the page then answers from', async () => {
