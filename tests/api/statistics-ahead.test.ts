@@ -15,32 +15,24 @@ import { clearStatsMemo } from '../../server/services/workability';
 
 const ctx = useSignedInApp({ hindcastYears: 1 });
 
-/** The stored keys of the demo hindcast's statistics with forecast limits on. */
-async function storedKeys(): Promise<string[]> {
+/** The stored `stats_cache` keys of the demo hindcast whose variant is `variant`. */
+async function storedKeysOf(variant: string): Promise<string[]> {
   const rows = await ctx.t.database.db
     .select({ key: statsCache.key })
     .from(statsCache)
     .where(eq(statsCache.projectId, ctx.t.demo.projectId));
-  return rows.map((r) => r.key).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(':true'));
+  return rows.map((r) => r.key).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(`:${variant}`));
 }
 
-/** The stored keys of the ledger's hindcast expectation on the demo hindcast, forecast limits on. */
-async function storedLedgerKeys(): Promise<string[]> {
-  const rows = await ctx.t.database.db
-    .select({ key: statsCache.key })
-    .from(statsCache)
-    .where(eq(statsCache.projectId, ctx.t.demo.projectId));
-  return rows.map((r) => r.key).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(':ledger-alpha'));
-}
+/** The workability statistics with forecast limits on. */
+const storedKeys = () => storedKeysOf('true');
+/** The ledger's hindcast expectation, forecast limits on. */
+const storedLedgerKeys = () => storedKeysOf('ledger-alpha');
 
-/** The stored keys of the first campaign's simulation on the demo hindcast, forecast limits on. */
+/** The first campaign's simulation, forecast limits on. */
 async function storedSimulationKeys(): Promise<string[]> {
   const [first] = (await ctx.as.client.get(`${ctx.base}/campaigns`)).body as CampaignResponse[];
-  const rows = await ctx.t.database.db
-    .select({ key: statsCache.key })
-    .from(statsCache)
-    .where(eq(statsCache.projectId, ctx.t.demo.projectId));
-  return rows.map((r) => r.key).filter((k) => k.startsWith(`${ctx.t.demo.hindcastId}:`) && k.endsWith(`:campaign-${first.id}-true`));
+  return storedKeysOf(`campaign-${first.id}-true`);
 }
 
 describe('statistics worked out ahead', () => {
