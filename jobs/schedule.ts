@@ -16,10 +16,10 @@ export interface Schedule {
  * (default every 6 hours at minute 15), e-mail delivery every minute, daily digests every 15
  * minutes, and every 2 minutes what each project's Downtime page opens on (workability statistics,
  * the first campaign's simulation, the ledger's hindcast expectation), worked out ahead where not
- * stored for the present data and limits. `noOverlap` keeps
- * one run of each at a time in this process; the planning job also takes a database advisory lock
- * per project against other instances, and plans a project once per tick across them; the
- * statistics take a lock of their own per project and skip what another instance stored.
+ * stored for the present data and limits. `noOverlap` keeps one run of each at a time in this
+ * process; the planning job also takes a database advisory lock per project against other
+ * instances, and plans a project once per tick across them; the statistics take a lock of their
+ * own per project and skip what another instance stored.
  */
 export function startPlanningSchedule(deps: AppDeps, options: { planCron: string; enabled: boolean }): Schedule {
   if (!options.enabled) return { stop: () => {}, idle: async () => {} };
