@@ -118,25 +118,44 @@ const BYTEA_SERIALIZERS = {
 export async function openDatabase(config: DatabaseConfig): Promise<Database> {
   if (config.databaseUrl) {
     const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 10 });
+    // A connection the server closes (a restart, a failover, an administrator) emits 'error': through
+    // the pool while idle, on the connection itself while checked out or closing. Unheard, that
+    // error would end the process; heard, the connection is dropped and the next query opens another
+    // (a query running on it fails with its own error, to its caller).
+    let ending = false;
+    const onConnectionError = (err: Error) => {
+      if (!ending) console.warn(`[lullwatch] The database server closed a connection (${err.message}); the next query opens another.`);
+    };
+    pool.on('error', onConnectionError);
+    pool.on('connect', (client) => client.on('error', onConnectionError));
     const db = drizzleNodePg({ client: pool, schema, casing: 'snake_case' }) as unknown as Db;
     return {
       db,
       kind: 'postgres',
       async withAdvisoryLock(key, fn) {
         const client = await pool.connect();
+        let broken: Error | undefined;
         try {
           const { rows } = await client.query<{ ok: boolean }>('select pg_try_advisory_lock($1, $2) as ok', [LOCK_NAMESPACE, key]);
           if (!rows[0]?.ok) return { acquired: false };
           try {
             return { acquired: true, value: await fn() };
           } finally {
-            await client.query('select pg_advisory_unlock($1, $2)', [LOCK_NAMESPACE, key]);
+            try {
+              await client.query('select pg_advisory_unlock($1, $2)', [LOCK_NAMESPACE, key]);
+            } catch (err) {
+              // The session is gone, and a session-level lock with it: the work's own outcome stands.
+              broken = err instanceof Error ? err : new Error(String(err));
+            }
           }
         } finally {
-          client.release();
+          client.release(broken);
         }
       },
-      close: () => pool.end(),
+      close: () => {
+        ending = true;
+        return pool.end();
+      },
     };
   }
   const dataDir = config.dataDir && config.dataDir !== 'memory://' ? path.resolve(config.dataDir) : undefined;
