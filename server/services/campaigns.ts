@@ -194,21 +194,19 @@ const simulationVariant = (c: CampaignResponse, alpha: boolean) => `campaign-${c
  * Works out and stores the simulation the Downtime page opens on (the project's first campaign in
  * the page's order, on the default hindcast, forecast limits on) when the `stats_cache` table does
  * not hold it for the present limits yet; true when it worked it out, false when it was stored,
- * or there is no campaign, no hindcast, or a step that no longer fits (the page says so). For the
- * scheduled work (server/services/statistics-ahead.ts).
+ * or there is no campaign, or a step that no longer fits (the page says so). `row` is the
+ * project's default hindcast. For the scheduled work (server/services/statistics-ahead.ts).
  */
-export async function storeDefaultSimulation(db: Db, projectId: string, now: Date): Promise<boolean> {
-  const [first] = await listCampaigns(db, projectId);
+export async function storeDefaultSimulation(db: Db, row: DatasetRow, setup: ProjectSetup, now: Date): Promise<boolean> {
+  const [first] = await listCampaigns(db, row.projectId);
   if (!first) return false;
-  const [row, setup] = await Promise.all([statisticsDataset(db, projectId), loadProjectSetup(db, projectId)]);
-  if (!row) return false;
   try {
     assertSteps(setup, first.steps, 'conflict');
   } catch {
     return false;
   }
   if (await statsStored(db, row.id, simulationVersion(setup, row, first), simulationVariant(first, true))) return false;
-  await simulateProjectCampaign(db, projectId, first.id, { alpha: true, now });
+  await simulateProjectCampaign(db, row.projectId, first.id, { alpha: true, now });
   await settleStatsCache();
   return true;
 }

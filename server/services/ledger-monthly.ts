@@ -75,14 +75,13 @@ export async function ledgerExpectations(
 /**
  * Works out and stores the hindcast expectation the Downtime page's ledger opens on (the default
  * hindcast, forecast limits on) when the `stats_cache` table does not hold it for the present
- * limits yet; true when it worked it out. For the scheduled work (server/services/statistics-ahead.ts).
+ * limits yet; true when it worked it out. `hindcast` is the project's default. For the scheduled
+ * work (server/services/statistics-ahead.ts).
  */
-export async function storeDefaultLedgerExpectations(db: Db, projectId: string): Promise<boolean> {
-  const [setup, hindcast] = await Promise.all([loadProjectSetup(db, projectId), statisticsDataset(db, projectId)]);
-  if (!hindcast) return false;
+export async function storeDefaultLedgerExpectations(db: Db, hindcast: DatasetRow, setup: ProjectSetup): Promise<boolean> {
   const version = limitsVersion(setup, hindcast.dataPointDepthM, hindcast.waterLevelReference);
   if (await statsStored(db, hindcast.id, version, expectationVariant(true))) return false;
-  await expectationsFor(db, projectId, setup, hindcast, true);
+  await expectationsFor(db, hindcast.projectId, setup, hindcast, true);
   await settleStatsCache();
   return true;
 }

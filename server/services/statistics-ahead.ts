@@ -11,7 +11,8 @@ import type { AppDeps } from '../deps';
 import { project } from '../db/schema';
 import { storeDefaultSimulation } from './campaigns';
 import { storeDefaultLedgerExpectations } from './ledger-monthly';
-import { storeDefaultWorkability } from './workability';
+import { loadProjectSetup } from './site-context';
+import { statisticsDataset, storeDefaultWorkability } from './workability';
 
 /** The advisory lock of one project's statistics work (apart from its planning lock). */
 export function statisticsLockKey(projectId: string): number {
@@ -40,9 +41,13 @@ export async function workStatisticsAhead(deps: AppDeps): Promise<StatisticsAhea
   for (const projectId of ids) {
     try {
       const locked = await deps.database.withAdvisoryLock(statisticsLockKey(projectId), async () => {
-        const workability = await storeDefaultWorkability(deps.db, projectId);
-        const simulation = await storeDefaultSimulation(deps.db, projectId, deps.clock());
-        const ledger = await storeDefaultLedgerExpectations(deps.db, projectId);
+        // The default hindcast and the setup read once, for the three.
+        const row = await statisticsDataset(deps.db, projectId);
+        if (!row) return false;
+        const setup = await loadProjectSetup(deps.db, projectId);
+        const workability = await storeDefaultWorkability(deps.db, row, setup);
+        const simulation = await storeDefaultSimulation(deps.db, row, setup, deps.clock());
+        const ledger = await storeDefaultLedgerExpectations(deps.db, row, setup);
         return workability || simulation || ledger;
       });
       if (!locked.acquired) result.busy++;

@@ -376,13 +376,10 @@ export async function projectWorkability(
 /**
  * Works out and stores the workability statistics the Downtime page opens on (the project's
  * default hindcast, forecast limits on) when the `stats_cache` table does not hold them for the
- * present limits yet; true when it worked them out, false when they were stored or the project
- * has no hindcast. For the scheduled work (server/services/statistics-ahead.ts).
+ * present limits yet; true when it worked them out, false when they were stored. `row` is the
+ * project's default hindcast. For the scheduled work (server/services/statistics-ahead.ts).
  */
-export async function storeDefaultWorkability(db: Db, projectId: string): Promise<boolean> {
-  const row = await statisticsDataset(db, projectId);
-  if (!row) return false;
-  const setup = await loadProjectSetup(db, projectId);
+export async function storeDefaultWorkability(db: Db, row: DatasetRow, setup: ProjectSetup): Promise<boolean> {
   if (await statsStored(db, row.id, limitsVersion(setup, row.dataPointDepthM, row.waterLevelReference), String(true))) return false;
   await workabilityEntries(db, row, setup, true);
   await settleStatsCache();
