@@ -33,12 +33,17 @@ export interface OverviewLine {
   next: { times: string[]; status: HourStatus[] };
 }
 
-/** A change the planning job found in its latest run, against the run before. */
+/**
+ * What the planning job's latest run changed for one operation at one worksite, against the run
+ * before: how many changes of each kind (window_opened, window_lost, earliest_moved,
+ * start_now_changed, occurrence_no_go). The Alerts page lists each with its times.
+ */
 export interface OverviewChange {
   operationId: string;
+  operationName: string;
   siteId: string;
-  kind: string;
-  message: string;
+  siteName: string;
+  counts: Partial<Record<string, number>>;
 }
 
 /** One operation at a worksite this month: confirmed downtime against the hindcast expectation. */
@@ -67,7 +72,7 @@ export interface OverviewAnswer {
   forecast: { id: string; name: string; issuedAt: string | null; start: string; end: string } | null;
   /** Sea state at the data point at the current hour of the forecast (direction "coming from", degrees). */
   dataPointNow: { time: string; hs: number | null; tp: number | null; dir: number | null } | null;
-  /** The planning job's latest good run and the changes it found against the one before. */
+  /** The planning job's latest good run and the changes it found against the one before, per operation and worksite. */
   lastPlan: { at: string; changes: OverviewChange[] } | null;
   lines: OverviewLine[];
   /** Coordinators and administrators only. */

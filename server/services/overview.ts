@@ -7,7 +7,7 @@ import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { ProjectAccessRole } from '../../shared/api-types';
 import type { OperationSitePlan } from '../../shared/api-types-plan';
-import type { OverviewAnswer, OverviewLine, OverviewMonthRow } from '../../shared/api-types-overview';
+import type { OverviewAnswer, OverviewChange, OverviewLine, OverviewMonthRow } from '../../shared/api-types-overview';
 import type { Db } from '../db/client';
 import { alert, ledgerDay, outbox, planRun } from '../db/schema';
 import { listDatasets } from './datasets';
@@ -157,14 +157,7 @@ export async function projectOverview(
     .where(and(eq(planRun.projectId, projectId), eq(planRun.status, 'ok')))
     .orderBy(desc(planRun.startedAt))
     .limit(1);
-  const changes = run
-    ? await db
-        .select({ operationId: alert.operationId, siteId: alert.siteId, kind: alert.kind, message: alert.message })
-        .from(alert)
-        .where(eq(alert.planRunId, run.id))
-        .orderBy(asc(alert.createdAt))
-        .limit(50)
-    : [];
+  const changes = run ? await changesOfRun(db, run.id, plan.plans) : [];
 
   const coordinator = caller.role === 'coordinator' || caller.role === 'admin' ? await coordinatorPicture(db, projectId) : null;
   const month = caller.role === 'skipper' ? null : await monthPicture(db, projectId, nowMs);
@@ -180,4 +173,38 @@ export async function projectOverview(
     coordinator,
     month,
   };
+}
+
+/**
+ * A planning run's changes counted by kind per operation and worksite, in the plan's order of
+ * operations and worksites (names from the plan, else the alert's own operation name).
+ */
+async function changesOfRun(db: Db, planRunId: string, plans: readonly OperationSitePlan[]): Promise<OverviewChange[]> {
+  const rows = await db
+    .select({ operationId: alert.operationId, siteId: alert.siteId, kind: alert.kind, operationName: alert.message, n: count() })
+    .from(alert)
+    .where(eq(alert.planRunId, planRunId))
+    .groupBy(alert.operationId, alert.siteId, alert.kind, alert.message);
+  const order = (r: { operationId: string; siteId: string }) => {
+    const i = plans.findIndex((p) => p.operationId === r.operationId && p.siteId === r.siteId);
+    return i < 0 ? plans.length : i;
+  };
+  const groups = new Map<string, OverviewChange>();
+  for (const r of [...rows].sort((a, b) => order(a) - order(b))) {
+    const key = `${r.operationId}|${r.siteId}`;
+    let g = groups.get(key);
+    if (!g) {
+      const p = plans.find((x) => x.operationId === r.operationId && x.siteId === r.siteId);
+      g = {
+        operationId: r.operationId,
+        operationName: p?.operationName ?? r.operationName,
+        siteId: r.siteId,
+        siteName: p?.siteName ?? '',
+        counts: {},
+      };
+      groups.set(key, g);
+    }
+    g.counts[r.kind] = (g.counts[r.kind] ?? 0) + r.n;
+  }
+  return [...groups.values()];
 }

@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import type { OverviewAnswer } from '../../shared/api-types-overview';
 import type { PlanAnswer } from '../../shared/api-types-plan';
 import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
-import { outbox } from '../../server/db/schema';
+import { alert, outbox } from '../../server/db/schema';
 import { useSignedInApp } from '../support/app';
 
 // A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC; the ledger needs finished days,
@@ -78,6 +78,31 @@ describe('the project Overview', () => {
 
     const coordinator = (await ctx.as.coordinator.get(`${ctx.base}/overview`)).body as OverviewAnswer;
     expect(coordinator.coordinator).toMatchObject({ ledgerDaysWaiting: 0, oldestWaitingDay: null, failedEmails: 0 });
+  });
+
+  it('says what the last planning run changed, counted by kind per operation and worksite', async () => {
+    expect(((await ctx.as.coordinator.get(`${ctx.base}/overview`)).body as OverviewAnswer).lastPlan).toBeNull();
+    const job = await ctx.as.coordinator.post(`${ctx.base}/replan`).send({});
+    expect(job.status, job.text).toBe(200);
+    const runId = job.body.projects[0].planRunId as string;
+    const stored = await ctx.t.database.db.select().from(alert).where(eq(alert.planRunId, runId));
+    // The first run against no plan before: every usable window is new, so there are changes.
+    expect(stored.length).toBeGreaterThan(0);
+    const o = (await ctx.as.client.get(`${ctx.base}/overview`)).body as OverviewAnswer;
+    const plan = (await ctx.as.client.get(`${ctx.base}/plan?alpha=true`)).body as PlanAnswer;
+    expect(o.lastPlan).not.toBeNull();
+    const groups = o.lastPlan!.changes;
+    // One entry per operation and worksite with a change, each change counted once under its kind.
+    expect(new Set(groups.map((g) => `${g.operationId}|${g.siteId}`)).size).toBe(groups.length);
+    expect(new Set(groups.map((g) => `${g.operationId}|${g.siteId}`))).toEqual(new Set(stored.map((a) => `${a.operationId}|${a.siteId}`)));
+    for (const g of groups) {
+      const own = stored.filter((a) => a.operationId === g.operationId && a.siteId === g.siteId);
+      const byKind: Record<string, number> = {};
+      for (const a of own) byKind[a.kind] = (byKind[a.kind] ?? 0) + 1;
+      expect(g.counts).toEqual(byKind);
+      const p = plan.plans.find((x) => x.operationId === g.operationId && x.siteId === g.siteId)!;
+      expect([g.operationName, g.siteName]).toEqual([p.operationName, p.siteName]);
+    }
   });
 
   it('counts the ledger days waiting and the failed e-mails for the coordinator', async () => {

@@ -6,7 +6,14 @@
 // is UTC+1 in December, Europe/London UTC+0, America/St_Johns UTC-3:30.
 import { describe, expect, it } from 'vitest';
 import type { OverviewLine } from '../../shared/api-types-overview';
-import { aheadWords, forecastAgeWords, hoursWords, plainLine, startSentence } from '../../src/features/overview/components/plain-line';
+import {
+  aheadWords,
+  changeCountWords,
+  forecastAgeWords,
+  hoursWords,
+  plainLine,
+  startSentence,
+} from '../../src/features/overview/components/plain-line';
 
 const NOW = Date.parse('2026-12-03T18:00:00Z');
 const FORECAST_END = '2026-12-13T18:00:00Z';
@@ -85,5 +92,27 @@ describe('hours and ages in words', () => {
   it('gives the forecast’s issue time and age', () => {
     expect(forecastAgeWords('2026-12-03T06:00:00Z', 'Europe/London', NOW)).toBe('Forecast issued Thu 3 Dec 06:00, 12 h old');
     expect(forecastAgeWords(null, 'Europe/London', NOW)).toBe('Forecast issue time unknown');
+  });
+});
+
+describe('a planning run’s changes at one operation and worksite', () => {
+  const change = (counts: Record<string, number>) => ({
+    operationId: 'op',
+    operationName: 'Cable pull-in',
+    siteId: 'site',
+    siteName: 'Landfall',
+    counts,
+  });
+
+  it('counts each kind in a fixed order, singular and plural', () => {
+    expect(changeCountWords(change({ occurrence_no_go: 2, window_opened: 4 }))).toBe('4 new windows, 2 occurrences not workable');
+    expect(changeCountWords(change({ window_lost: 1, earliest_moved: 1, start_now_changed: 1 }))).toBe(
+      '1 window lost, 1 earliest start moved, 1 “may start now” changed',
+    );
+    expect(changeCountWords(change({ window_opened: 1, window_lost: 3 }))).toBe('1 new window, 3 windows lost');
+  });
+
+  it('counts a kind it has no words for as other changes, never drops it', () => {
+    expect(changeCountWords(change({ window_opened: 2, some_new_kind: 3 }))).toBe('2 new windows, 3 other changes');
   });
 });

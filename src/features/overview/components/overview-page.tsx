@@ -10,7 +10,7 @@ import { Card, ErrorNotice, Spinner } from '../../../components/ui';
 import { formatPosition } from '../../../lib/format';
 import { useOverview } from '../api/get-overview';
 import { HourStrip, statusWord } from './hour-strip';
-import { forecastAgeWords, hoursWords, plainLine, startSentence } from './plain-line';
+import { changeCountWords, forecastAgeWords, hoursWords, plainLine, startSentence } from './plain-line';
 import { OverviewMap } from './overview-map';
 
 /** Hours of a month as plain hours ("212.5 h"), so P50, P90 and the confirmed hours read on one scale. */
@@ -46,7 +46,7 @@ export function ProjectOverviewPage() {
 
   return (
     <div className="grid min-w-0 gap-4" data-testid="overview">
-      <ForecastCard o={o} nowMs={nowMs} zone={zone} />
+      <ForecastCard projectId={projectId} o={o} nowMs={nowMs} zone={zone} />
       {role === 'skipper' ? <MyOperations projectId={projectId} lines={mine} forecastEnd={o.forecast?.end ?? null} nowMs={nowMs} /> : null}
       {o.coordinator ? <CoordinatorCard projectId={projectId} c={o.coordinator} /> : null}
       {o.month && o.lines.length > 0 && role === 'client' ? <MonthCard month={o.month} /> : null}
@@ -95,7 +95,7 @@ function AboutCard({ project: p, o }: { project: ProjectDetail; o: OverviewAnswe
   );
 }
 
-function ForecastCard({ o, nowMs, zone }: { o: OverviewAnswer; nowMs: number; zone: string | null }) {
+function ForecastCard({ projectId, o, nowMs, zone }: { projectId: string; o: OverviewAnswer; nowMs: number; zone: string | null }) {
   const z = zone ?? 'UTC';
   return (
     <Card aria-labelledby="overview-forecast-title">
@@ -120,12 +120,25 @@ function ForecastCard({ o, nowMs, zone }: { o: OverviewAnswer; nowMs: number; zo
             <>
               <p className="font-semibold">Changed at the last planning run ({formatInstant(o.lastPlan.at, z, 'dateTime')}):</p>
               <ul className="mt-1 list-disc pl-5">
-                {o.lastPlan.changes.map((c, i) => (
-                  <li key={i} className="break-words">
-                    {c.message}
+                {o.lastPlan.changes.map((c) => (
+                  <li key={`${c.operationId}|${c.siteId}`} className="break-words">
+                    <span className="font-semibold">{c.operationName}</span>
+                    {c.siteName ? (
+                      <>
+                        {' '}
+                        at <span className="font-semibold">{c.siteName}</span>
+                      </>
+                    ) : null}
+                    : {changeCountWords(c)}
                   </li>
                 ))}
               </ul>
+              <p className="mt-1">
+                <Link className="font-semibold text-accent underline" to={`/projects/${projectId}/alerts`}>
+                  Each change with its times
+                </Link>{' '}
+                is on the Alerts page.
+              </p>
             </>
           ) : (
             <p>Nothing changed at the last planning run ({formatInstant(o.lastPlan.at, z, 'dateTime')}).</p>

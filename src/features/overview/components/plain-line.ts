@@ -2,7 +2,8 @@
 // worksite's zone in the product's date style (shared/dates.ts); limits are named as in alerts.
 import { formatInstant } from '../../../../shared/dates';
 import { limitWords } from '../../../../shared/limit-words';
-import type { OverviewLine } from '../../../../shared/api-types-overview';
+import type { OverviewChange, OverviewLine } from '../../../../shared/api-types-overview';
+import { START_WORDS, STATUS_WORDS } from '../../../../shared/status-words';
 
 const MS_PER_HOUR = 3_600_000;
 
@@ -57,4 +58,25 @@ export function forecastAgeWords(issuedAt: string | null, timeZone: string, nowM
   const hours = (nowMs - Date.parse(issuedAt)) / MS_PER_HOUR;
   const age = hours < 1 ? `${Math.max(0, Math.round(hours * 60))} min` : hoursWords(Math.round(hours));
   return `Forecast issued ${formatInstant(issuedAt, timeZone, 'dateTime')}, ${age} old`;
+}
+
+/** Each change kind of a planning run, in the order said, as one change and as several. */
+const CHANGE_KIND_WORDS: [kind: string, one: string, many: string][] = [
+  ['window_opened', START_WORDS.newWindow, `${START_WORDS.newWindow}s`],
+  ['window_lost', START_WORDS.windowLost, 'windows lost'],
+  ['earliest_moved', START_WORDS.earliestMoved, START_WORDS.earliestMoved],
+  ['start_now_changed', `“${START_WORDS.startNow}” changed`, `“${START_WORDS.startNow}” changed`],
+  ['occurrence_no_go', `occurrence ${STATUS_WORDS.not_workable.word}`, `occurrences ${STATUS_WORDS.not_workable.word}`],
+];
+
+/** A planning run's changes at one operation and worksite, counted: "4 new windows, 2 occurrences not workable". */
+export function changeCountWords(change: OverviewChange): string {
+  const known = new Set(CHANGE_KIND_WORDS.map(([kind]) => kind));
+  const parts = CHANGE_KIND_WORDS.filter(([kind]) => (change.counts[kind] ?? 0) > 0).map(([kind, one, many]) => {
+    const n = change.counts[kind]!;
+    return n === 1 ? `1 ${one}` : `${n} ${many}`;
+  });
+  const other = Object.entries(change.counts).reduce((sum, [kind, n]) => sum + (known.has(kind) ? 0 : (n ?? 0)), 0);
+  if (other > 0) parts.push(other === 1 ? '1 other change' : `${other} other changes`);
+  return parts.join(', ');
 }
