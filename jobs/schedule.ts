@@ -1,7 +1,7 @@
 import cron, { type TaskContext } from 'node-cron';
 import type { AppDeps } from '../server/deps';
 import { deliverDueMail } from '../server/services/outbox';
-import { runPlanningJob } from '../server/services/planning';
+import { planNewForecasts, runPlanningJob } from '../server/services/planning';
 import { queueDigests } from '../server/services/digests';
 import { workStatisticsAhead } from '../server/services/statistics-ahead';
 
@@ -13,7 +13,8 @@ export interface Schedule {
 
 /**
  * The scheduled work of one app instance (node-cron, UTC): the planning job on `planCron`
- * (default every 6 hours at minute 15), e-mail delivery every minute, daily digests every 15
+ * (default every 6 hours at minute 15), every minute the planning of a new latest forecast stored
+ * outside the job (fetched by a coordinator, imported), e-mail delivery every minute, daily digests every 15
  * minutes, and every 2 minutes what each project's Downtime page opens on (workability statistics,
  * the first campaign's simulation, the ledger's hindcast expectation), worked out ahead where not
  * stored for the present data and limits. `noOverlap` keeps one run of each at a time in this
@@ -44,6 +45,13 @@ export function startPlanningSchedule(deps: AppDeps, options: { planCron: string
         timezone: 'UTC',
         missedExecutionTolerance: 6 * 3_600_000,
       },
+    ),
+    // A new latest forecast stored outside the job (fetched by a coordinator, imported, the demo's
+    // first) is planned, and its alerts queued, within the minute.
+    cron.createTask(
+      '* * * * *',
+      guard('Planning new forecasts', () => planNewForecasts(deps)),
+      { name: 'new-forecasts', noOverlap: true, timezone: 'UTC' },
     ),
     cron.createTask(
       '* * * * *',

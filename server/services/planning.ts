@@ -5,6 +5,7 @@ import type { OperationSitePlan } from '../../shared/api-types-plan';
 import type { AppDeps } from '../deps';
 import { alert, planRun, project } from '../db/schema';
 import { fetchLatestForecast } from './forecasts';
+import { latestDataset } from './datasets';
 import { dominantLimit, projectPlan } from './plans';
 import { recordCampaignOutlooks } from './campaign-outlook';
 import { covers, effectiveSubscriptions } from './subscriptions';
@@ -12,7 +13,11 @@ import { alertEmail, type ChangeWithReason, UNSUBSCRIBE_LINK_MARK } from './aler
 import { deliverDueMail, enqueueMail, type OutboxMessage } from './outbox';
 import type { Db } from '../db/client';
 
-export type JobTrigger = 'schedule' | 'manual' | 'cli';
+/**
+ * What started a planning run: the schedule, a person (an administrator or "Re-plan now"),
+ * `npm run plan:once`, or a new latest forecast stored outside the job (planned at once).
+ */
+export type JobTrigger = 'schedule' | 'manual' | 'cli' | 'forecast';
 
 export interface ProjectJobResult {
   projectId: string;
@@ -69,20 +74,25 @@ async function previousPlans(db: Db, projectId: string): Promise<PlanSummary[] |
 }
 
 /**
- * Plans one project: fetches the latest forecast (when the project uses the service), plans every
- * operation at every worksite, compares with the last good plan, and writes the run, its alerts
- * and the alert e-mails (outbox) in one transaction. A forecast-service failure fails the run
- * and leaves the last plan and its forecast in place.
+ * Plans one project: fetches the latest forecast (when the project uses the service, and the run
+ * is not for a forecast just stored), plans every operation at every worksite, compares with the
+ * last good plan, and writes the run, its alerts and the alert e-mails (outbox) in one
+ * transaction. A forecast-service failure fails the run and leaves the last plan and its forecast
+ * in place. A run for a new forecast holds that forecast's id from its start, so that a failed one
+ * is not tried again on every tick ({@link planNewForecasts}).
  */
-async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger): Promise<ProjectJobResult> {
+async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger, forecastId?: string): Promise<ProjectJobResult> {
   const { db, log } = deps;
   const [p] = await db.select().from(project).where(eq(project.id, projectId));
   if (!p) return { projectId, status: 'skipped', reason: 'project not found' };
   const now = deps.clock();
-  const [run] = await db.insert(planRun).values({ projectId, trigger, status: 'running', startedAt: now }).returning({ id: planRun.id });
+  const [run] = await db
+    .insert(planRun)
+    .values({ projectId, trigger, status: 'running', startedAt: now, datasetId: forecastId ?? null })
+    .returning({ id: planRun.id });
   let forecast: ProjectJobResult['forecast'] = null;
   try {
-    if (p.forecastSource === 'service') {
+    if (p.forecastSource === 'service' && trigger !== 'forecast') {
       const fetched = await fetchLatestForecast(db, deps.forecast, projectId, null);
       forecast = { issuedAt: fetched.issuedAt, isNew: fetched.isNew };
     }
@@ -199,7 +209,7 @@ async function planProject(deps: AppDeps, projectId: string, trigger: JobTrigger
  */
 export async function runPlanningJob(
   deps: AppDeps,
-  options: { projectId?: string; trigger: JobTrigger; tickAt?: Date },
+  options: { projectId?: string; trigger: JobTrigger; tickAt?: Date; forecastId?: string },
 ): Promise<JobResult> {
   const startedAt = deps.clock().toISOString();
   const ids = options.projectId
@@ -225,7 +235,12 @@ export async function runPlanningJob(
           .limit(1);
         if (done) return { projectId, status: 'skipped', reason: 'planned on this tick by another instance', planRunId: done.id };
       }
-      return planProject(deps, projectId, options.trigger);
+      // Under the lock: a new forecast that another run (or instance) took up meanwhile.
+      if (options.forecastId) {
+        const taken = await runOnDataset(deps.db, projectId, options.forecastId);
+        if (taken) return { projectId, status: 'skipped', reason: 'this forecast is planned already', planRunId: taken };
+      }
+      return planProject(deps, projectId, options.trigger, options.forecastId);
     });
     projects.push(locked.acquired ? locked.value : { projectId, status: 'skipped', reason: 'another planning run holds this project' });
   }
@@ -235,4 +250,33 @@ export async function runPlanningJob(
     links: deps.config,
   });
   return { startedAt, projects, mail };
+}
+
+/** A planning run of the project that planned (or, started for it, tried) this dataset; null when none. */
+async function runOnDataset(db: Db, projectId: string, datasetId: string): Promise<string | null> {
+  const [row] = await db
+    .select({ id: planRun.id })
+    .from(planRun)
+    .where(and(eq(planRun.projectId, projectId), eq(planRun.datasetId, datasetId)))
+    .limit(1);
+  return row?.id ?? null;
+}
+
+/**
+ * Plans at once every project whose latest forecast (the one the board shows) no planning run has
+ * planned or tried yet: a forecast a coordinator fetched, an imported forecast file, the demo's
+ * first forecast. So every new forecast is planned, and its alerts e-mailed, within the schedule's
+ * minute rather than at the next planning tick. Such a run plans the stored forecast without asking
+ * the forecast service again. Returns the runs made (none when every latest forecast is planned).
+ */
+export async function planNewForecasts(deps: AppDeps): Promise<ProjectJobResult[]> {
+  const ids = (await deps.db.select({ id: project.id }).from(project)).map((r) => r.id);
+  const results: ProjectJobResult[] = [];
+  for (const projectId of ids) {
+    const latest = await latestDataset(deps.db, projectId, 'forecast');
+    if (!latest || (await runOnDataset(deps.db, projectId, latest.id))) continue;
+    const job = await runPlanningJob(deps, { projectId, trigger: 'forecast', forecastId: latest.id });
+    results.push(...job.projects);
+  }
+  return results;
 }

@@ -11,7 +11,7 @@ export const planRun = pgTable(
     id: idColumn(),
     projectId: projectIdColumn(),
     datasetId: optionalRefColumn(() => dataset.id),
-    trigger: text({ enum: ['schedule', 'manual', 'cli'] }).notNull(),
+    trigger: text({ enum: ['schedule', 'manual', 'cli', 'forecast'] }).notNull(),
     status: text({ enum: ['running', 'ok', 'failed'] }).notNull(),
     startedAt: stampColumn(),
     finishedAt: instantColumn(),
