@@ -82,6 +82,17 @@ describe('sea data pages', () => {
     expect(await page.getByRole('link', { name: 'Import a file' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: 'Fetch latest forecast' }).count()).toBe(0);
     await screenshot(page, 'sea-data-client-list');
+    // The forecast issues (the demo keeps weeks of them, four a day) show the newest 12 until asked for all.
+    const forecastRows = page.locator('section[aria-labelledby="forecast-heading"] tbody tr');
+    const showAll = page.getByRole('button', { name: /^Show all \d+ forecasts$/ });
+    await showAll.waitFor();
+    const total = Number((await showAll.innerText()).match(/\d+/)![0]);
+    expect(total).toBeGreaterThan(12);
+    expect(await forecastRows.count()).toBe(12);
+    expect(await forecastRows.first().innerText()).toMatch(/Latest issue/);
+    await showAll.click();
+    await expect.poll(() => forecastRows.count()).toBe(total);
+    await page.getByRole('button', { name: 'Show the newest 12 only' }).waitFor();
 
     await page.goto(`${server.baseUrl}${datasetPath}`);
     await page.getByRole('heading', { name: '44014h2017' }).waitFor();

@@ -27,7 +27,7 @@ export function ReplanSection({ projectId, operations, sites, zone: here }: Prop
     <SectionCard
       titleId="replan-title"
       title="Re-plan now"
-      intro="The planning job runs by itself on a schedule. Run it now to fetch the latest forecast (when the project uses the forecast service), plan every operation at every worksite, and queue alert e-mails for what changed."
+      intro="The planning job runs by itself on a schedule, and within a minute of a new forecast stored here (fetched or imported). Run it now to fetch the latest forecast (when the project uses the forecast service), plan every operation at every worksite, and queue alert e-mails for what changed."
     >
       <div className="mt-3">
         <Button onClick={() => replan.mutate()} disabled={replan.isPending} data-testid="replan-button">

@@ -1,8 +1,9 @@
+import { useState } from 'react';
 import { Link, useLocation, useParams } from 'react-router-dom';
 import { usePageZone } from '../../../components/page-zone';
 import { DATA_ZONE_STATEMENT } from './data-zone';
 import type { DatasetSummary } from '../../../../shared/api-types-datasets';
-import { Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
+import { Button, Card, ErrorNotice, Notice, PageHeader, Spinner } from '../../../components/ui';
 import { useDatasets } from '../../../api/datasets';
 import { FetchForecastButton } from '../../../components/fetch-forecast-button';
 import { useFetchForecast } from '../../../api/forecasts';
@@ -156,10 +157,28 @@ function DatasetGroups({ projectId, all, canEdit }: { projectId: string; all: Da
         {forecasts.length === 0 ? (
           <p className="text-sm text-ink-soft">No forecast stored yet.</p>
         ) : (
-          <DatasetTable projectId={projectId} rows={forecasts} latestId={forecasts[0].id} />
+          <ForecastTable projectId={projectId} forecasts={forecasts} />
         )}
       </section>
     </div>
+  );
+}
+
+/** Forecast issues shown before "Show all": four issues a day make a long list within weeks. */
+const FORECASTS_SHOWN = 12;
+
+function ForecastTable({ projectId, forecasts }: { projectId: string; forecasts: DatasetSummary[] }) {
+  const [all, setAll] = useState(false);
+  const rows = all ? forecasts : forecasts.slice(0, FORECASTS_SHOWN);
+  return (
+    <>
+      <DatasetTable projectId={projectId} rows={rows} latestId={forecasts[0].id} />
+      {forecasts.length > FORECASTS_SHOWN ? (
+        <Button variant="secondary" className="mt-2" onClick={() => setAll((x) => !x)} aria-expanded={all}>
+          {all ? `Show the newest ${FORECASTS_SHOWN} only` : `Show all ${formatCount(forecasts.length)} forecasts`}
+        </Button>
+      ) : null}
+    </>
   );
 }
 
