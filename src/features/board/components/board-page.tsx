@@ -119,7 +119,7 @@ export function BoardPage() {
         {fetchForecast.data ? (
           <Notice tone="success">
             {fetchForecast.data.isNew
-              ? `New forecast stored: ${fetchForecast.data.records} hourly records. The board below is planned on it; the planning job plans it within a minute and e-mails the changes to those subscribed.`
+              ? `New forecast stored: ${fetchForecast.data.records} hourly records. The board below is planned on it; within a minute the planning job compares it with the last plan and e-mails the changes to those subscribed.`
               : 'The forecast service has nothing newer than the forecast already on the board.'}
           </Notice>
         ) : null}

@@ -62,7 +62,7 @@ export function DatasetsPage() {
         {fetchForecast.data ? (
           <Notice tone="success">
             {fetchForecast.data.isNew
-              ? `New forecast issued ${formatUtc(fetchForecast.data.issuedAt)} stored: ${formatCount(fetchForecast.data.records)} records. The planning job plans it within a minute and e-mails the changes to those subscribed.`
+              ? `New forecast issued ${formatUtc(fetchForecast.data.issuedAt)} stored: ${formatCount(fetchForecast.data.records)} records. Within a minute the planning job compares it with the last plan and e-mails the changes to those subscribed.`
               : `The service has nothing newer: the forecast issued ${formatUtc(fetchForecast.data.issuedAt)} is already stored.`}{' '}
             <Link className="font-semibold underline" to={`/projects/${projectId}/sea-data/${fetchForecast.data.datasetId}`}>
               Open it
