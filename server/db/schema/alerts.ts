@@ -19,7 +19,8 @@ export const planRun = pgTable(
     plans: jsonb().$type<unknown[]>(),
     error: text(),
   },
-  (t) => [index().on(t.projectId, t.startedAt)],
+  // The second: "has a run planned (or tried) this forecast?", asked every minute per project.
+  (t) => [index().on(t.projectId, t.startedAt), index().on(t.projectId, t.datasetId)],
 );
 
 /** A change between two plans that people hear about. */

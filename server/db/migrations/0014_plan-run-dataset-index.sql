@@ -1,0 +1,1 @@
+CREATE INDEX "plan_run_project_id_dataset_id_index" ON "plan_run" USING btree ("project_id","dataset_id");
