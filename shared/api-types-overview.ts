@@ -74,6 +74,12 @@ export interface OverviewAnswer {
   dataPointNow: { time: string; hs: number | null; tp: number | null; dir: number | null } | null;
   /** The planning job's latest good run and the changes it found against the one before, per operation and worksite. */
   lastPlan: { at: string; changes: OverviewChange[] } | null;
+  /**
+   * The planning job's latest failed run when it came after the latest good one (the plan and its
+   * alerts are then older than they should be), else null; `error` for coordinators and
+   * administrators only (null for others).
+   */
+  failedPlan: { at: string; error: string | null } | null;
   lines: OverviewLine[];
   /** Coordinators and administrators only. */
   coordinator: {

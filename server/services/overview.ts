@@ -2,7 +2,7 @@
  * The project Overview: today's picture for the person looking at it, composed from the services
  * behind the plan, the ledger, the outbox and the datasets (no numbers of its own).
  */
-import { and, asc, count, desc, eq } from 'drizzle-orm';
+import { and, asc, count, desc, eq, gt } from 'drizzle-orm';
 import { format } from 'date-fns';
 import { tz } from '@date-fns/tz';
 import type { ProjectAccessRole } from '../../shared/api-types';
@@ -158,8 +158,15 @@ export async function projectOverview(
     .orderBy(desc(planRun.startedAt))
     .limit(1);
   const changes = run ? await changesOfRun(db, run.id, plan.plans) : [];
+  const coordinating = caller.role === 'coordinator' || caller.role === 'admin';
+  const [failed] = await db
+    .select({ at: planRun.startedAt, error: planRun.error })
+    .from(planRun)
+    .where(and(eq(planRun.projectId, projectId), eq(planRun.status, 'failed'), run ? gt(planRun.startedAt, run.at) : undefined))
+    .orderBy(desc(planRun.startedAt))
+    .limit(1);
 
-  const coordinator = caller.role === 'coordinator' || caller.role === 'admin' ? await coordinatorPicture(db, projectId) : null;
+  const coordinator = coordinating ? await coordinatorPicture(db, projectId) : null;
   const month = caller.role === 'skipper' ? null : await monthPicture(db, projectId, nowMs);
   return {
     generatedAt: options.now.toISOString(),
@@ -169,6 +176,7 @@ export async function projectOverview(
       : null,
     dataPointNow,
     lastPlan: run ? { at: run.at.toISOString(), changes } : null,
+    failedPlan: failed ? { at: failed.at.toISOString(), error: coordinating ? (failed.error ?? null) : null } : null,
     lines,
     coordinator,
     month,

@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import type { OverviewAnswer } from '../../shared/api-types-overview';
 import type { PlanAnswer } from '../../shared/api-types-plan';
 import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
-import { alert, outbox } from '../../server/db/schema';
+import { alert, outbox, planRun } from '../../server/db/schema';
 import { useSignedInApp } from '../support/app';
 
 // A fixed clock: the fake forecast is issued 2026-12-01 06:00 UTC; the ledger needs finished days,
@@ -103,6 +103,33 @@ describe('the project Overview', () => {
       const p = plan.plans.find((x) => x.operationId === g.operationId && x.siteId === g.siteId)!;
       expect([g.operationName, g.siteName]).toEqual([p.operationName, p.siteName]);
     }
+  });
+
+  it('says when the planning job failed after its last good run, the error to coordinators only', async () => {
+    const good = ((await ctx.as.client.get(`${ctx.base}/overview`)).body as OverviewAnswer).lastPlan!;
+    expect(((await ctx.as.client.get(`${ctx.base}/overview`)).body as OverviewAnswer).failedPlan).toBeNull();
+    // A failed run before the good one says nothing; one after it does.
+    const before = new Date(Date.parse(good.at) - 60_000);
+    const after = new Date(Date.parse(good.at) + 60_000);
+    await ctx.t.database.db.insert(planRun).values([
+      { projectId: ctx.t.demo.projectId, trigger: 'schedule', status: 'failed', startedAt: before, error: 'an older failure' },
+      {
+        projectId: ctx.t.demo.projectId,
+        trigger: 'schedule',
+        status: 'failed',
+        startedAt: after,
+        error: 'The forecast service did not answer',
+      },
+    ]);
+    const coordinator = (await ctx.as.coordinator.get(`${ctx.base}/overview`)).body as OverviewAnswer;
+    expect(coordinator.failedPlan).toEqual({ at: after.toISOString(), error: 'The forecast service did not answer' });
+    expect(coordinator.lastPlan!.at).toBe(good.at);
+    const client = (await ctx.as.client.get(`${ctx.base}/overview`)).body as OverviewAnswer;
+    expect(client.failedPlan).toEqual({ at: after.toISOString(), error: null });
+    // A good run after the failure clears it.
+    now = new Date(Date.parse(good.at) + 5 * 60_000);
+    expect((await ctx.as.coordinator.post(`${ctx.base}/replan`).send({})).status).toBe(200);
+    expect(((await ctx.as.coordinator.get(`${ctx.base}/overview`)).body as OverviewAnswer).failedPlan).toBeNull();
   });
 
   it('counts the ledger days waiting and the failed e-mails for the coordinator', async () => {

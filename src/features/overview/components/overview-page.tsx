@@ -6,7 +6,7 @@ import type { ProjectDetail } from '../../../../shared/api-types';
 import type { OverviewAnswer, OverviewLine } from '../../../../shared/api-types-overview';
 import { formatDay, formatInstant, formatMonth, zoneStatement } from '../../../../shared/dates';
 import { useProjectAccess } from '../../../api/projects';
-import { Card, ErrorNotice, Spinner } from '../../../components/ui';
+import { Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
 import { formatPosition } from '../../../lib/format';
 import { useOverview } from '../api/get-overview';
 import { HourStrip, statusWord } from './hour-strip';
@@ -147,6 +147,18 @@ function ForecastCard({ projectId, o, nowMs, zone }: { projectId: string; o: Ove
           <p className="text-ink-soft">No planning run yet: changes appear here after the next one.</p>
         )}
       </div>
+      {o.failedPlan ? (
+        <div className="mt-3" data-testid="plan-failed">
+          <Notice tone="error">
+            <span className="font-semibold">The planning run of {formatInstant(o.failedPlan.at, z, 'dateTime')} failed</span>
+            {o.failedPlan.error ? `: ${o.failedPlan.error}` : ''}.{' '}
+            {o.lastPlan
+              ? `Alerts and e-mails are still those of the last good run (${formatInstant(o.lastPlan.at, z, 'dateTime')}).`
+              : 'No alerts have gone out yet.'}{' '}
+            The next planning tick tries again; a coordinator can also re-plan now on the Alerts page.
+          </Notice>
+        </div>
+      ) : null}
     </Card>
   );
 }
