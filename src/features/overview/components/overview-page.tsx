@@ -151,7 +151,7 @@ function ForecastCard({ projectId, o, nowMs, zone }: { projectId: string; o: Ove
         <div className="mt-3" data-testid="plan-failed">
           <Notice tone="error">
             <span className="font-semibold">The planning run of {formatInstant(o.failedPlan.at, z, 'dateTime')} failed</span>
-            {o.failedPlan.error ? `: ${o.failedPlan.error}` : ''}.{' '}
+            {o.failedPlan.error ? `: ${o.failedPlan.error.replace(/[.\s]+$/, '')}` : ''}.{' '}
             {o.lastPlan
               ? `Alerts and e-mails are still those of the last good run (${formatInstant(o.lastPlan.at, z, 'dateTime')}).`
               : 'No alerts have gone out yet.'}{' '}
