@@ -10,6 +10,7 @@ import {
   aheadWords,
   changeCountWords,
   forecastAgeWords,
+  goStartWords,
   hoursWords,
   plainLine,
   startSentence,
@@ -75,6 +76,18 @@ describe('the plain line', () => {
   it('never promises a go-start for an operation that is not weather-restricted (docs/domain.md#convention-5)', () => {
     const l = line({ informationOnly: true, limiting: 'hs', earliestStart: null });
     expect(plainLine(l, NOW, FORECAST_END)).toBe('not weather-restricted: statuses for information, no go-start planned');
+  });
+});
+
+describe('the go-start field of a skipper’s card (labelled “Next go-start” already)', () => {
+  it('gives the go-start without repeating its label', () => {
+    const l = line({ earliestStart: '2026-12-04T14:00:00Z', windowHours: 35 });
+    expect(goStartWords(l, NOW, FORECAST_END)).toBe('Fri 4 Dec 14:00 (in 20 h)');
+  });
+  it('says now, none in the forecast, or none planned', () => {
+    expect(goStartWords(line({ startNow: true, windowHours: 35 }), NOW, FORECAST_END)).toBe('now');
+    expect(goStartWords(line({}), NOW, FORECAST_END)).toBe('no window in this forecast (to Sun 13 Dec)');
+    expect(goStartWords(line({ informationOnly: true }), NOW, FORECAST_END)).toBe('none planned: not weather-restricted');
   });
 });
 

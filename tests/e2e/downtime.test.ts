@@ -75,6 +75,15 @@ describe('the downtime schedule in the browser', () => {
     const ledger = page.getByTestId('ledger-table');
     await ledger.waitFor();
     expect(await ledger.getByText('Confirmed').count()).toBe(1);
+    // The campaign's start months read in the order they come, from the planned start's month on:
+    // twelve starts within a year, each later than the one above.
+    const campaign = page.getByTestId('campaign-table');
+    await campaign.waitFor({ timeout: 120_000 });
+    const starts = await campaign.locator('tbody th[scope="row"]').allTextContents();
+    const ms = starts.map((t) => Date.parse(`${/\d{1,2} [A-Z][a-z]{2} \d{4}/.exec(t)?.[0]} 12:00 UTC`));
+    expect(ms).toHaveLength(12);
+    expect(ms.every((t, i) => Number.isFinite(t) && (i === 0 || t > ms[i - 1]))).toBe(true);
+    expect(ms[11] - ms[0]).toBeLessThan(366 * 86_400_000);
     expect(await ledger.getByText('Proposed').count()).toBe(0);
     await screenshot(page, 'downtime-client');
     await signOut();

@@ -139,8 +139,8 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
           <p className="text-xs text-ink-soft">
             Start dates: the 1st at 00:00
             {selected.plannedStart
-              ? `, from the planned start ${dateIn(selected.plannedStart, selected.timeZone)}`
-              : ', the next ones from today'}
+              ? `, from the month of the planned start (${dateIn(selected.plannedStart, selected.timeZone)}) on, in that order`
+              : ', the next ones from today, in that order'}
             .
           </p>
           {!datasetId ? <Notice>Simulations need a hindcast: a coordinator imports one under Sea data.</Notice> : null}
@@ -156,6 +156,8 @@ export function CampaignSection({ projectId, canEdit, datasetId, alpha, operatio
 /** P50/P90 of duration and waiting on weather, and finish dates, per start month. */
 function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; campaign: CampaignResponse; stale: boolean }) {
   const zone = sim.timeZone;
+  // In the order the starts come, from the planned start's month (the server answers by calendar month).
+  const months = [...sim.months].sort((a, b) => Date.parse(a.startDate) - Date.parse(b.startDate));
   function download() {
     downloadCsv(
       `campaign-${slug(campaign.name)}.csv`,
@@ -175,7 +177,7 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
           'alpha',
           'hindcast',
         ],
-        sim.months.map((m) => [
+        months.map((m) => [
           campaign.name,
           m.startMonth,
           dateIn(m.startDate, zone, 'yyyy-MM-dd'),
@@ -228,7 +230,7 @@ function SimulationTable({ sim, campaign, stale }: { sim: CampaignSimulation; ca
             />
           </thead>
           <tbody>
-            {sim.months.map((m) => (
+            {months.map((m) => (
               <tr key={m.startMonth} className="border-t border-line/60">
                 <th scope="row" className="px-2 py-1 text-left font-normal whitespace-nowrap">
                   <span className="font-semibold">{MONTH_LONG[m.startMonth - 1]}</span>{' '}

@@ -43,7 +43,12 @@ export function OutlookSection({ projectId, canEdit, alpha, operations, sites, s
       <div>
         <SectionHeading id="outlook-title" title="Live outlook: when will we finish?" narrow>
           {selected.name}, as of now: the steps not yet done, in order, first on the latest forecast’s go-starts
-          {alpha ? ' (with α)' : ' (at OPLIM)'}, then each hindcast year from the same calendar time. Each forecast × hindcast year pair is
+          {o?.forecast?.ensemble
+            ? ' (each run of its ensemble at OPLIM: the runs’ spread stands for its uncertainty)'
+            : alpha
+              ? ' (with α)'
+              : ' (at OPLIM)'}
+          , then each hindcast year from the same calendar time{alpha ? ' (with α)' : ' (at OPLIM)'}. Each forecast × hindcast year pair is
           one sample.
         </SectionHeading>
       </div>

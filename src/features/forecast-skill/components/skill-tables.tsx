@@ -5,7 +5,12 @@ import { Card } from '../../../components/ui';
 const th = 'px-3 py-2 text-left text-xs font-semibold text-ink-soft';
 const hsLabel = (from: number, to: number | null) =>
   to === null ? `Hs ≥ ${trimmed(from, 1)} m` : `Hs ${trimmed(from, 1)}–${trimmed(to, 1)} m`;
-const num = (v: number | null, d = 3) => (v === null ? '–' : trimmed(v, d));
+/** A statistic with three fixed decimals (aligned in the columns) and a true minus sign; never "−0.000". */
+const num = (v: number | null, d = 3) => {
+  if (v === null || !Number.isFinite(v)) return '–';
+  const text = v.toFixed(d);
+  return Number(text) === 0 ? (0).toFixed(d) : text.replace('-', '−');
+};
 
 /** Few distinct issues: the honest sample size is small (docs/domain.md#forecast-uncertainty). */
 function FewMark({ issues, few }: { issues: number; few: number }) {

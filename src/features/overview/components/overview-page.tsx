@@ -10,11 +10,13 @@ import { Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
 import { formatPosition } from '../../../lib/format';
 import { useOverview } from '../api/get-overview';
 import { HourStrip, statusWord } from './hour-strip';
-import { changeCountWords, forecastAgeWords, hoursWords, plainLine, startSentence } from './plain-line';
+import { changeCountWords, forecastAgeWords, hoursWords, plainLine, goStartWords } from './plain-line';
 import { OverviewMap } from './overview-map';
 
 /** Hours of a month as plain hours ("212.5 h"), so P50, P90 and the confirmed hours read on one scale. */
 const plainHours = (h: number) => `${Math.round(h * 10) / 10} h`;
+/** A month's expected lost hours (P50, P90 over the hindcast years): whole hours, tenths would be false precision. */
+const wholeHours = (h: number) => `${Math.round(h)} h`;
 
 /** The hour now in words; a workable hour that cannot start the operation says why. */
 function nowWords(l: OverviewLine): string {
@@ -233,7 +235,7 @@ function MyOperations({
                 <dd data-testid="card-now">{l.informationOnly ? 'for information only' : l.startNow ? 'may start now' : nowWords(l)}</dd>
                 <dt className="text-ink-soft">Next go-start</dt>
                 <dd className="break-words" data-testid="card-next">
-                  {startSentence({ ...l, windowHours: null }, nowMs, forecastEnd)}
+                  {goStartWords(l, nowMs, forecastEnd)}
                 </dd>
                 <dt className="text-ink-soft">Window</dt>
                 <dd data-testid="card-window">
@@ -346,8 +348,8 @@ function MonthCard({ month }: { month: NonNullable<OverviewAnswer['month']> }) {
               </p>
               <p className="text-sm break-words" data-testid="month-words">
                 {plainHours(r.confirmedLostHours)} lost on {r.confirmedDays} confirmed day{r.confirmedDays === 1 ? '' : 's'} of {r.daysOver}{' '}
-                so far; expected for the month: P50 {r.expectedP50Hours === null ? '–' : plainHours(r.expectedP50Hours)}, P90{' '}
-                {r.expectedP90Hours === null ? '–' : plainHours(r.expectedP90Hours)}
+                so far; expected for the month: P50 {r.expectedP50Hours === null ? '–' : wholeHours(r.expectedP50Hours)}, P90{' '}
+                {r.expectedP90Hours === null ? '–' : wholeHours(r.expectedP90Hours)}
                 {r.hindcastYears ? ` (${r.hindcastYears} years)` : ''}
                 {verdict}.
               </p>

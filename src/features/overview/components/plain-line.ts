@@ -33,8 +33,19 @@ export function startSentence(line: OverviewLine, nowMs: number, forecastEnd: st
   if (line.informationOnly) return 'not weather-restricted: statuses for information, no go-start planned';
   const window = line.windowHours !== null ? `, window ${hoursWords(line.windowHours)}` : '';
   if (line.startNow) return `may start now${window}`;
+  if (line.earliestStart) return `next go-start ${goStartWords(line, nowMs, forecastEnd)}${window}`;
+  return goStartWords(line, nowMs, forecastEnd);
+}
+
+/**
+ * The go-start alone, for a field already labelled "Next go-start": "Thu 4 Dec 14:00 (in 20 h)",
+ * "now", "no window in this forecast (to Sun 13 Dec)".
+ */
+export function goStartWords(line: OverviewLine, nowMs: number, forecastEnd: string | null): string {
+  if (line.informationOnly) return 'none planned: not weather-restricted';
+  if (line.startNow) return 'now';
   if (line.earliestStart)
-    return `next go-start ${startWords(line.earliestStart, line.timeZone, nowMs)} (${aheadWords(Date.parse(line.earliestStart), nowMs)})${window}`;
+    return `${startWords(line.earliestStart, line.timeZone, nowMs)} (${aheadWords(Date.parse(line.earliestStart), nowMs)})`;
   const to = forecastEnd ? ` (to ${formatInstant(forecastEnd, line.timeZone, 'day')})` : '';
   return `no window in this forecast${to}`;
 }
