@@ -89,9 +89,23 @@ export interface OverviewAnswer {
     /** Alert e-mails that gave up after their last attempt. */
     failedEmails: number;
     datasetsWithWarnings: { id: string; name: string; warnings: string[] }[];
+    /** What the project has of what planning needs (the Overview's set-up steps while one is missing). */
+    setup: OverviewSetup;
   } | null;
   /** Clients, coordinators and administrators: this month's confirmed downtime against expectation. */
   month: { hindcast: { id: string; name: string } | null; rows: OverviewMonthRow[] } | null;
+}
+
+/** Counts behind the Overview's set-up steps (coordinators and administrators). */
+export interface OverviewSetup {
+  worksites: number;
+  operations: number;
+  /** The offshore data point has a position (its depth may be deep water). */
+  dataPointPlaced: boolean;
+  /** Hindcasts and observation records: what downtime statistics and campaign durations read. */
+  statisticsDatasets: number;
+  forecasts: number;
+  forecastSource: 'service' | 'uploads';
 }
 
 /** GET /api/map-style: the tile style set for production (MAP_STYLE_URL), else null (the built-in coastline). */

@@ -9,7 +9,7 @@ import type { ProjectAccessRole } from '../../shared/api-types';
 import type { OperationSitePlan } from '../../shared/api-types-plan';
 import type { OverviewAnswer, OverviewChange, OverviewLine, OverviewMonthRow } from '../../shared/api-types-overview';
 import type { Db } from '../db/client';
-import { alert, ledgerDay, outbox, planRun } from '../db/schema';
+import { alert, ledgerDay, outbox, planRun, project } from '../db/schema';
 import { listDatasets } from './datasets';
 import { ledgerDaysWhere } from './ledger-entries';
 import { ledgerExpectations } from './ledger-monthly';
@@ -98,7 +98,7 @@ async function monthPicture(db: Db, projectId: string, nowMs: number): Promise<O
 }
 
 async function coordinatorPicture(db: Db, projectId: string): Promise<NonNullable<OverviewAnswer['coordinator']>> {
-  const [[waiting], [oldest], [failed], datasets] = await Promise.all([
+  const [[waiting], [oldest], [failed], datasets, setup, [place]] = await Promise.all([
     db.select({ n: count() }).from(ledgerDay).where(ledgerDaysWhere(projectId, 'proposed')),
     db.select({ day: ledgerDay.day }).from(ledgerDay).where(ledgerDaysWhere(projectId, 'proposed')).orderBy(asc(ledgerDay.day)).limit(1),
     db
@@ -106,6 +106,11 @@ async function coordinatorPicture(db: Db, projectId: string): Promise<NonNullabl
       .from(outbox)
       .where(and(eq(outbox.projectId, projectId), eq(outbox.status, 'failed'))),
     listDatasets(db, projectId),
+    loadProjectSetup(db, projectId),
+    db
+      .select({ latitude: project.dataPointLatitude, longitude: project.dataPointLongitude, forecastSource: project.forecastSource })
+      .from(project)
+      .where(eq(project.id, projectId)),
   ]);
   const withWarnings = datasets
     .map((d) => {
@@ -124,6 +129,14 @@ async function coordinatorPicture(db: Db, projectId: string): Promise<NonNullabl
     oldestWaitingDay: oldest?.day ?? null,
     failedEmails: failed?.n ?? 0,
     datasetsWithWarnings: withWarnings,
+    setup: {
+      worksites: setup.sites.length,
+      operations: setup.operations.length,
+      dataPointPlaced: place?.latitude != null && place.longitude != null,
+      statisticsDatasets: datasets.filter((d) => d.kind === 'hindcast' || d.kind === 'observation').length,
+      forecasts: datasets.filter((d) => d.kind === 'forecast').length,
+      forecastSource: place?.forecastSource ?? 'service',
+    },
   };
 }
 

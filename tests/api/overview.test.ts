@@ -78,6 +78,32 @@ describe('the project Overview', () => {
 
     const coordinator = (await ctx.as.coordinator.get(`${ctx.base}/overview`)).body as OverviewAnswer;
     expect(coordinator.coordinator).toMatchObject({ ledgerDaysWaiting: 0, oldestWaitingDay: null, failedEmails: 0 });
+    // The set-up steps' counts are those of the routes that list each part.
+    const [sites, operations, datasets, project] = await Promise.all(
+      ['/sites', '/operations', '/datasets', ''].map(async (path) => (await ctx.as.coordinator.get(`${ctx.base}${path}`)).body),
+    );
+    const kinds = (datasets as { kind: string }[]).map((d) => d.kind);
+    expect(coordinator.coordinator!.setup).toEqual({
+      worksites: (sites as unknown[]).length,
+      operations: (operations as unknown[]).length,
+      dataPointPlaced: project.dataPointLatitude != null && project.dataPointLongitude != null,
+      statisticsDatasets: kinds.filter((k) => k === 'hindcast' || k === 'observation').length,
+      forecasts: kinds.filter((k) => k === 'forecast').length,
+      forecastSource: project.forecastSource,
+    });
+    expect(coordinator.coordinator!.setup.worksites).toBeGreaterThan(0);
+    expect(coordinator.coordinator!.setup.forecasts).toBeGreaterThan(0);
+  });
+
+  it('counts a new project’s set-up steps from nothing, and each part as it is added', async () => {
+    const created = await ctx.as.coordinator.post('/api/projects').send({ name: 'Empty quay works' });
+    expect(created.status, created.text).toBe(201);
+    const base = `/api/projects/${created.body.id as string}`;
+    const setupOf = async () => ((await ctx.as.coordinator.get(`${base}/overview`)).body as OverviewAnswer).coordinator!.setup;
+    expect(await setupOf()).toMatchObject({ worksites: 0, operations: 0, dataPointPlaced: false, statisticsDatasets: 0, forecasts: 0 });
+    const site = await ctx.as.coordinator.post(`${base}/sites`).send({ name: 'Quay head', depth: 6, timeZone: 'Europe/London' });
+    expect(site.status, site.text).toBe(201);
+    expect((await setupOf()).worksites).toBe(1);
   });
 
   it('says what the last planning run changed, counted by kind per operation and worksite', async () => {

@@ -9,6 +9,7 @@ import type { SiteResponse } from '../../shared/api-types-sites';
 import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
 import type { MeResponse } from '../../shared/api-types';
 import { formatInstant } from '../../shared/dates';
+import { DEMO_SECOND_PROJECT } from '../../seed/scenario';
 import { demoProjectId, openBrowser, screenshot, signInAs, useBrowserApp, waitOrScreenshot } from '../support/browser';
 
 const { server, browser, signIn } = useBrowserApp();
@@ -62,7 +63,32 @@ describe('the project Overview', () => {
     expect(await page.getByTestId('forecast-age').textContent()).toMatch(
       /^Forecast issued (Mon|Tue|Wed|Thu|Fri|Sat|Sun) \d{1,2} [A-Z][a-z]{2} \d{2}:\d{2}, .* old/,
     );
+    // The demo project has every set-up step done: no set-up list.
+    expect(await page.getByTestId('setup-steps').count()).toBe(0);
     await screenshot(page, 'overview-coordinator');
+  }, 120_000);
+
+  it('lists the set-up steps of the coordinator’s empty second project, each linking to its page', async () => {
+    const { page } = browser;
+    await signIn('coordinator');
+    const projects = await getJson<{ id: string; name: string }[]>(page, '/api/projects');
+    const second = projects.find((p) => p.name === DEMO_SECOND_PROJECT.name)!;
+    expect(second).toBeDefined();
+    await page.goto(`${server.baseUrl}/projects/${second.id}`);
+    const steps = page.getByTestId('setup-steps');
+    await waitOrScreenshot(page, steps, 'overview-setup-steps');
+    // Its parts as the routes list them (the seed gives it no worksite, operation or sea data).
+    const [sites, datasets] = await Promise.all([
+      getJson<unknown[]>(page, `/api/projects/${second.id}/sites`),
+      getJson<unknown[]>(page, `/api/projects/${second.id}/datasets`),
+    ]);
+    expect(await steps.locator('[data-testid="setup-step-worksites"]').getAttribute('data-done')).toBe(String(sites.length > 0));
+    expect(await steps.locator('[data-testid="setup-step-forecasts"]').getAttribute('data-done')).toBe('false');
+    expect(datasets).toHaveLength(0);
+    expect(await steps.locator('li').count()).toBe(5);
+    await steps.getByRole('link', { name: 'Add a worksite' }).click();
+    await page.waitForURL(/\/setup\?tab=worksites$/);
+    await page.getByRole('button', { name: 'Add worksite' }).waitFor();
   }, 120_000);
 
   it('draws the map on the built-in coastline with one marker per worksite and no request outside the app', async () => {

@@ -12,6 +12,7 @@ import { useOverview } from '../api/get-overview';
 import { HourStrip, statusWord } from './hour-strip';
 import { changeCountWords, forecastAgeWords, hoursWords, plainLine, goStartWords } from './plain-line';
 import { OverviewMap } from './overview-map';
+import { SetupCard } from './setup-card';
 
 /** Hours of a month as plain hours ("212.5 h"), so P50, P90 and the confirmed hours read on one scale. */
 const plainHours = (h: number) => `${Math.round(h * 10) / 10} h`;
@@ -48,6 +49,7 @@ export function ProjectOverviewPage() {
 
   return (
     <div className="grid min-w-0 gap-4" data-testid="overview">
+      {o.coordinator ? <SetupCard projectId={projectId} setup={o.coordinator.setup} /> : null}
       <ForecastCard projectId={projectId} o={o} nowMs={nowMs} zone={zone} />
       {role === 'skipper' ? <MyOperations projectId={projectId} lines={mine} forecastEnd={o.forecast?.end ?? null} nowMs={nowMs} /> : null}
       {o.coordinator ? <CoordinatorCard projectId={projectId} c={o.coordinator} /> : null}
