@@ -4,6 +4,7 @@ import { deliverDueMail } from '../server/services/outbox';
 import { planNewForecasts, runPlanningJob } from '../server/services/planning';
 import { queueDigests } from '../server/services/digests';
 import { workStatisticsAhead } from '../server/services/statistics-ahead';
+import { proposeLedgerAhead } from '../server/services/ledger-ahead';
 
 export interface Schedule {
   stop(): void;
@@ -17,7 +18,8 @@ export interface Schedule {
  * outside the job (fetched by a coordinator, imported), e-mail delivery every minute, daily digests every 15
  * minutes, and every 2 minutes what each project's Downtime page opens on (workability statistics,
  * the first campaign's simulation, the ledger's hindcast expectation), worked out ahead where not
- * stored for the present data and limits. `noOverlap` keeps one run of each at a time in this
+ * stored for the present data and limits, and every hour at minute 25 the ledger days of the last
+ * week that are over, proposed from the data where they changed (never a confirmed one). `noOverlap` keeps one run of each at a time in this
  * process; the planning job also takes a database advisory lock per project against other
  * instances, and plans a project once per tick across them; the statistics take a lock of their
  * own per project and skip what another instance stored.
@@ -73,6 +75,12 @@ export function startPlanningSchedule(deps: AppDeps, options: { planCron: string
       '*/2 * * * *',
       guard('Statistics ahead', () => workStatisticsAhead(deps)),
       { name: 'statistics', noOverlap: true, timezone: 'UTC' },
+    ),
+    // Each hour: the last week's finished days proposed to the ledger where they changed.
+    cron.createTask(
+      '25 * * * *',
+      guard('Ledger proposals', () => proposeLedgerAhead(deps)),
+      { name: 'ledger', noOverlap: true, timezone: 'UTC' },
     ),
   ];
   for (const t of tasks) void t.start();

@@ -27,6 +27,18 @@ const sqlExcluded = (column: string) => sql.raw(`excluded.${column}`);
 
 type DatasetRowFull = typeof dataset.$inferSelect;
 
+export interface ProposeOptions {
+  /**
+   * Write only new days and proposed days whose figures or source change (the scheduled proposals:
+   * an unchanged day keeps its update time). `written` then counts those, and `keptConfirmed` only
+   * the days found confirmed before writing.
+   */
+  onlyChanged?: boolean;
+}
+
+/** The upsert's row differs from the stored one in what a proposal says (NULLs compared as values). */
+const PROPOSAL_CHANGED = sql`(${ledgerDay.plannedHours}, ${ledgerDay.proposedLostHours}, ${ledgerDay.proposedLimiting}, ${ledgerDay.source}, ${ledgerDay.datasetId}) is distinct from (excluded.planned_hours, excluded.proposed_lost_hours, excluded.proposed_limiting, excluded.source, excluded.dataset_id)`;
+
 /** Does the dataset's record span cover [startMs, endMs)? */
 const spans = (d: DatasetRowFull, startMs: number, endMs: number) =>
   d.startAt.getTime() <= startMs && d.endAt.getTime() + d.stepMinutes * 60_000 >= endMs;
@@ -62,6 +74,7 @@ export async function proposeLedger(
   projectId: string,
   range: { from: string; to: string },
   now: Date,
+  options: ProposeOptions = {},
 ): Promise<LedgerProposeAnswer> {
   const setup = await loadProjectSetup(db, projectId);
   const days = daysOf(range.from, range.to);
@@ -235,12 +248,14 @@ export async function proposeLedger(
           datasetId: sqlExcluded('dataset_id'),
           updatedAt: new Date(),
         },
-        // Never touch a confirmed row (also when one was confirmed while this ran).
-        setWhere: eq(ledgerDay.status, 'proposed'),
+        // Never touch a confirmed row (also when one was confirmed while this ran); with
+        // onlyChanged, nor a proposed row whose figures and source stay the same.
+        setWhere: options.onlyChanged ? and(eq(ledgerDay.status, 'proposed'), PROPOSAL_CHANGED) : eq(ledgerDay.status, 'proposed'),
       })
       .returning({ id: ledgerDay.id });
     written += done.length;
   }
-  keptConfirmed += rows.length - written;
+  // Rows the upsert left alone were confirmed meanwhile (or, with onlyChanged, may be unchanged).
+  if (!options.onlyChanged) keptConfirmed += rows.length - written;
   return { written, keptConfirmed, uncovered, notOver, sources };
 }

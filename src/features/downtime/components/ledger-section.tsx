@@ -205,7 +205,7 @@ export function LedgerSection({
             as lost.
             {isClient
               ? ' Confirmed days only.'
-              : ' Only days that are over are proposed: from the newest observation covering the day, else from the forecast issues that covered it (marked “From forecast”). The coordinator confirms or corrects each finished day.'}
+              : ' Only days that are over are proposed: from the newest observation covering the day, else from the forecast issues that covered it (marked “From forecast”). The last week’s days are proposed every hour by themselves; “Propose from data” does it at once for any month. The coordinator confirms or corrects each finished day.'}
           </p>
         </div>
       </div>
