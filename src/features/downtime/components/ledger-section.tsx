@@ -255,6 +255,10 @@ export function LedgerSection({
       {rows.length > 0 && !narrow ? (
         <div
           className={`max-h-[36rem] overflow-auto rounded-lg border border-line print:max-h-none print:overflow-visible ${ledger.isFetching ? 'opacity-60' : ''}`}
+          // Scrolls with the keyboard too (focusable), also where it holds no button (clients, skippers).
+          tabIndex={0}
+          role="region"
+          aria-label={`Downtime ledger, ${monthWords(month)}, scrolls`}
         >
           <table className="w-full min-w-[50rem] text-sm" data-testid="ledger-table">
             <caption className="sr-only">Downtime ledger, {monthWords(month)}</caption>

@@ -202,7 +202,13 @@ function thinNote(m: WorkabilityCalendarMonth): string | null {
 /** The same numbers as the heat map, and the other statistics, one row group per operation at a worksite. */
 function MonthlyTable({ entries }: { entries: WorkabilityEntry[] }) {
   return (
-    <div className="mt-4 max-h-[36rem] overflow-auto rounded-lg border border-line print:max-h-none print:overflow-visible">
+    <div
+      className="mt-4 max-h-[36rem] overflow-auto rounded-lg border border-line print:max-h-none print:overflow-visible"
+      // Scrolls with the keyboard too, whatever the table holds.
+      tabIndex={0}
+      role="region"
+      aria-label="Workability statistics by month, scrolls"
+    >
       <table className="w-full min-w-[52rem] text-sm" data-testid="workability-table">
         <caption className="sr-only">
           Expected weather downtime and workability statistics by month for each operation at each worksite
