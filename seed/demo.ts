@@ -1,13 +1,15 @@
 import type { ExtraSeries } from '../shared/seadata/extra-columns';
 import type { AppDeps } from '../server/deps';
-import { campaign, operation, project, projectMember, vessel, worksite } from '../server/db/schema';
+import { campaign, ledgerDay, operation, project, projectMember, vessel, worksite } from '../server/db/schema';
 import { createUser } from '../server/services/users';
 import { createDataset } from '../server/services/datasets';
 import { fetchLatestForecast } from '../server/services/forecasts';
 import { toSeaSeries } from '../server/services/sea-series';
 import { generateSyntheticSea, latestIssueTimeMs, truthSeedForPosition, climateForPosition } from '../server/forecast';
 import { recurrenceText } from '../shared/recurrence';
-import { eq } from 'drizzle-orm';
+import { and, asc, eq, lte } from 'drizzle-orm';
+import { proposeLedger } from '../server/services/ledger-propose';
+import { confirmLedger } from '../server/services/ledger-entries';
 import { campaignOutlookAnswer, storeOutlook } from '../server/services/campaign-outlook';
 import { seedSkillArchive, storeFakeIssue } from './skill-archive';
 import { runEngineTask } from '../server/services/engine-pool';
@@ -45,6 +47,11 @@ export interface SeedOptions {
    * observation at the data point (seed/skill-archive.ts). Needs `forecast`.
    */
   skillArchiveDays?: number;
+  /**
+   * The downtime ledger as a coordinator keeps it ({@link seedLedger}); off by default, so tests
+   * start on an empty ledger (`npm start` turns it on). Needs the forecast archive's observation.
+   */
+  ledger?: boolean;
 }
 
 const DAY_MS = 86_400_000;
@@ -81,6 +88,43 @@ async function seedOutlookHistory(
         .set({ plannedFinish: new Date(answer.finish.p50) })
         .where(eq(campaign.id, campaignId));
   }
+}
+
+/**
+ * The ledger as a coordinator keeps it: every finished day since the campaign's start proposed from
+ * the data (the invented buoy record), confirmed up to the day before yesterday, the crew transfer's
+ * first day with hours lost corrected by 2 h with a note; yesterday is left waiting for
+ * confirmation. Returns the days confirmed.
+ */
+async function seedLedger(deps: Pick<AppDeps, 'db' | 'clock'>, projectId: string, coordinatorId: string, fromMs: number): Promise<number> {
+  const now = deps.clock();
+  const day = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+  await proposeLedger(deps.db, projectId, { from: day(fromMs), to: day(now.getTime()) }, now);
+  const rows = await deps.db
+    .select({ id: ledgerDay.id, operationId: ledgerDay.operationId, planned: ledgerDay.plannedHours, lost: ledgerDay.proposedLostHours })
+    .from(ledgerDay)
+    .where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.status, 'proposed'), lte(ledgerDay.day, day(now.getTime() - 2 * DAY_MS))))
+    .orderBy(asc(ledgerDay.day));
+  const who = DEMO_USERS.find((u) => u.key === 'coordinator')!;
+  const actor = { id: coordinatorId, name: who.name, email: who.email, role: 'user' as const };
+  const [transfer] = await deps.db
+    .select({ id: operation.id })
+    .from(operation)
+    .where(and(eq(operation.projectId, projectId), eq(operation.name, 'Crew transfer (CTV Sable Wren)')));
+  let corrected = false;
+  for (const r of rows) {
+    const correct: boolean = !corrected && r.operationId === transfer?.id && r.lost > 0 && r.lost + 2 <= r.planned;
+    corrected ||= correct;
+    await confirmLedger(
+      deps.db,
+      projectId,
+      actor,
+      r.id,
+      correct ? { lostHours: r.lost + 2, note: 'Skipper’s log: transfers stood down 2 h longer while the swell eased.' } : { note: '' },
+      now,
+    );
+  }
+  return rows.length;
 }
 
 /** Seeds the invented demo scenario into an empty database: {@link seedDemoAccounts}, then {@link seedDemoData}. */
@@ -291,6 +335,11 @@ export async function seedDemoData(
     } catch (err) {
       deps.log.warn('Demo forecast not fetched', { err: err instanceof Error ? err.message : String(err) });
     }
+  }
+  if (options.ledger && observationId) {
+    const started = performance.now();
+    const confirmed = await seedLedger(deps, main.id, users.coordinator, campaignStartMs);
+    deps.log.info('Demo ledger seeded', { confirmedDays: confirmed, ms: Math.round(performance.now() - started) });
   }
   deps.log.info('Demo scenario seeded', { project: main.id });
   return { users, projectId: main.id, secondProjectId: base.secondProjectId, siteIds, operationIds, hindcastId, forecastId, observationId };

@@ -4,6 +4,7 @@
  * record at the data point, so the forecast-skill page and the calibrated alpha table show
  * something believable on the first start. Invented, not measured.
  */
+import type { ExtraSeries } from '../shared/seadata/extra-columns';
 import type { Db } from '../server/db/client';
 import { buildFakeForecast, climateForPosition, exchangeToRecords, generateSyntheticSea, truthSeedForPosition } from '../server/forecast';
 import { hash01 } from '../server/forecast/seeded-noise';
@@ -62,7 +63,8 @@ export interface SkillArchiveOptions {
  * fake's generator, so its error model is the fake's: a few percent at analysis time growing with
  * lead), then an hourly observation at the data point from the first issue to the last full hour:
  * the fake's synthetic truth with a small measurement error (Hs times exp(u), u uniform within
- * +-2 %, rounded to 1 cm as a wave buoy reports). Returns the observation dataset's id.
+ * +-2 %, rounded to 1 cm as a wave buoy reports), with its wind sea and swells as a directional buoy
+ * gives them (each Hs with the same error). Returns the observation dataset's id.
  */
 export async function seedSkillArchive(
   db: Db,
@@ -84,8 +86,19 @@ export async function seedSkillArchive(
     hours,
     seed: truthSeed,
     climate: climateForPosition(DEMO_PROJECT.dataPointLatitude),
+    partitions: true,
   });
-  const hs = sea.hsM.map((v, i) => Math.round(v * Math.exp(0.04 * (hash01(truthSeed, 7, i) - 0.5)) * 100) / 100);
+  const error = sea.hsM.map((_, i) => Math.exp(0.04 * (hash01(truthSeed, 7, i) - 0.5)));
+  const hs = sea.hsM.map((v, i) => Math.round(v * error[i] * 100) / 100);
+  // A directional buoy's partitions (wind sea, two swells), each Hs with the total's error, so
+  // their energies still add up to the total's (docs/domain.md#partitions).
+  const parts = sea.partitions!;
+  const extra: ExtraSeries = {};
+  for (const k of ['windSea', 'swell1', 'swell2'] as const) {
+    extra[`${k}.hs`] = parts[k].hsM.map((v, i) => Math.round(v * error[i] * 100) / 100);
+    extra[`${k}.tp`] = parts[k].tpS;
+    extra[`${k}.dir`] = parts[k].dirDeg;
+  }
   const row = await createDataset(
     db,
     {
@@ -95,7 +108,7 @@ export async function seedSkillArchive(
       kind: 'observation',
       ...DEMO_GENERATED_DATASET,
     },
-    toSeaSeries({ timeMs: sea.timeMs, hs, tp: sea.tpS, dir: sea.dirDeg, wind: sea.windMps, windDir: sea.windDirDeg }),
+    toSeaSeries({ timeMs: sea.timeMs, hs, tp: sea.tpS, dir: sea.dirDeg, wind: sea.windMps, windDir: sea.windDirDeg, extra }),
     { note: 'Invented demo observation: the demo sea with a small measurement error; not measured data.' },
   );
   return row.id;

@@ -122,7 +122,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
       if (database.kind === 'pglite') {
         fs.writeFileSync(demoMarker, 'the demo sea data are loading\n');
         demoBase = await seedDemoAccounts(deps);
-      } else await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS });
+      } else await seedDemo(deps, { hindcastYears: env.DEMO_HINDCAST_YEARS, ledger: true });
       seeded = true;
     }
   });
@@ -179,7 +179,7 @@ async function startOnClaimedFolder(env: Env, log: Logger, jobToken: string): Pr
   if (base) {
     startup.demoLoading = true;
     log.info('Loading the demo sea data (hindcast, campaign outlooks, forecasts) while the server answers');
-    demoData = seedDemoData(deps, base, { hindcastYears: env.DEMO_HINDCAST_YEARS })
+    demoData = seedDemoData(deps, base, { hindcastYears: env.DEMO_HINDCAST_YEARS, ledger: true })
       .then(
         () => {
           fs.rmSync(demoMarker, { force: true });

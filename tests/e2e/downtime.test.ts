@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
 import { demoProjectId, openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
 const { server, browser } = useBrowserApp();
@@ -24,6 +25,13 @@ describe('the downtime schedule in the browser', () => {
   it('lets the coordinator propose the ledger for a month and confirm a day', async () => {
     const { page } = browser;
     await openDowntime('coordinator@example.com');
+    // The demo's ledger is kept up to the day before yesterday (seed/demo.ts, seedLedger).
+    const month = coveredMonth();
+    const base = `${server.baseUrl}/api/projects/${await demoProjectId(page, server.baseUrl)}`;
+    const range = `from=${month}-01&to=${month}-31`;
+    const confirmedIn = async () =>
+      ((await (await page.request.get(`${base}/ledger?${range}`)).json()) as LedgerEntry[]).filter((r) => r.status === 'confirmed');
+    const before = (await confirmedIn()).length;
     await page.getByRole('button', { name: 'Propose from data' }).click();
     await page.getByText(/days? proposed/).waitFor({ timeout: 60_000 });
     const confirm = page.getByRole('button', { name: /^Confirm \d{4}-\d{2}-\d{2},/ }).first();
@@ -33,15 +41,23 @@ describe('the downtime schedule in the browser', () => {
     await page.getByRole('form', { name: label }).waitFor();
     await page.getByRole('button', { name: 'Confirm day' }).click();
     await page.getByRole('form', { name: label }).waitFor({ state: 'detached' });
+    const confirmed = await confirmedIn();
+    expect(confirmed).toHaveLength(before + 1);
+    const day = confirmed.find((r) => label === `Confirm ${r.day}, ${r.operationName} at ${r.siteName}`)!;
+    expect(day).toBeDefined();
     const table = page.getByTestId('ledger-table');
-    await table
-      .getByText(/Confirmed/)
-      .first()
-      .waitFor();
-    expect(await table.getByText(/Confirmed/).count()).toBe(1);
+    await expect.poll(() => table.getByText(/Confirmed/).count(), { timeout: 30_000 }).toBe(confirmed.length);
     // The monthly totals count the confirmed day (they refetch after the confirmation).
+    const monthly = (await (await page.request.get(`${base}/ledger/monthly?${range}`)).json()) as LedgerMonthlyAnswer;
+    const row = monthly.rows.find((r) => r.operationId === day.operationId && r.siteId === day.siteId && r.month === month)!;
+    expect(row.confirmedDays).toBe(confirmed.filter((r) => r.operationId === day.operationId && r.siteId === day.siteId).length);
+    const rowCells = page
+      .getByTestId('ledger-monthly-table')
+      .locator('tr')
+      .filter({ has: page.locator('th', { hasText: day.operationName }) })
+      .filter({ hasText: `at ${day.siteName}` });
     await expect
-      .poll(() => page.getByTestId('ledger-monthly-table').getByText('1 of', { exact: false }).count(), { timeout: 30_000 })
+      .poll(() => rowCells.getByText(`${row.confirmedDays} of ${row.days}`, { exact: true }).count(), { timeout: 30_000 })
       .toBe(1);
     await screenshot(page, 'downtime-coordinator-ledger');
     await signOut();
@@ -74,7 +90,17 @@ describe('the downtime schedule in the browser', () => {
     // The day the coordinator confirmed; nothing merely proposed.
     const ledger = page.getByTestId('ledger-table');
     await ledger.waitFor();
-    expect(await ledger.getByText('Confirmed').count()).toBe(1);
+    // The confirmed days of the month (the demo's kept ledger and the day the coordinator confirmed);
+    // nothing merely proposed.
+    const month = coveredMonth();
+    const all = (await (
+      await page.request.get(
+        `${server.baseUrl}/api/projects/${await demoProjectId(page, server.baseUrl)}/ledger?from=${month}-01&to=${month}-31`,
+      )
+    ).json()) as LedgerEntry[];
+    expect(all.every((r) => r.status === 'confirmed')).toBe(true);
+    expect(all.length).toBeGreaterThan(0);
+    expect(await ledger.getByText('Confirmed').count()).toBe(all.length);
     // The campaign's start months read in the order they come, from the planned start's month on:
     // twelve starts within a year, each later than the one above.
     const campaign = page.getByTestId('campaign-table');
