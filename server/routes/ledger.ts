@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { LedgerConfirmInput, LedgerRangeQuery, isoDay } from '../../shared/schemas/downtime';
+import { LedgerConfirmDayInput, LedgerConfirmInput, LedgerRangeQuery, isoDay } from '../../shared/schemas/downtime';
 import type { AppDeps } from '../deps';
 import { parseInput } from '../http/errors';
-import { confirmLedger, listLedger } from '../services/ledger-entries';
+import { confirmLedger, confirmLedgerDay, listLedger } from '../services/ledger-entries';
 import { ledgerMonthly } from '../services/ledger-monthly';
 import { proposeLedger } from '../services/ledger-propose';
 import { requireCoordinator, requireProjectMember } from '../services/project-access';
@@ -66,6 +66,18 @@ export function ledgerRoutes({ db, clock }: AppDeps): Router {
     const access = await requireCoordinator(db, req, req.params.projectId);
     const input = parseInput(LedgerConfirmInput, req.body ?? {});
     res.json(await confirmLedger(db, access.projectId, access.user, req.params.entryId, input, clock()));
+  });
+
+  /**
+   * POST /api/projects/:projectId/ledger/confirm-day `{ day, siteId?, note? }`: confirms every
+   * proposed entry of the day (of one worksite when given) as proposed, all or none; 409 when none
+   * is proposed or the day is not over yet at one of its worksites. Each entry is audited.
+   * → the confirmed entries.
+   */
+  router.post('/projects/:projectId/ledger/confirm-day', async (req, res) => {
+    const access = await requireCoordinator(db, req, req.params.projectId);
+    const input = parseInput(LedgerConfirmDayInput, req.body ?? {});
+    res.json(await confirmLedgerDay(db, access.projectId, access.user, input, clock()));
   });
 
   return router;

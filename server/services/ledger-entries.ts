@@ -6,7 +6,12 @@ import { and, asc, eq, gte, lte, type SQL } from 'drizzle-orm';
 import type { LedgerEntry } from '../../shared/api-types-downtime';
 import type { ProjectAccessRole } from '../../shared/api-types';
 import { zonedDayMs } from '../../shared/ledger/days';
-import { LEDGER_LIMITING_VALUES, type LedgerConfirmInput, type LedgerLimiting } from '../../shared/schemas/downtime';
+import {
+  LEDGER_LIMITING_VALUES,
+  type LedgerConfirmDayInput,
+  type LedgerConfirmInput,
+  type LedgerLimiting,
+} from '../../shared/schemas/downtime';
 import { idParam } from '../../shared/schemas/common';
 import type { Db } from '../db/client';
 import { dataset, ledgerDay, operation, user, worksite } from '../db/schema';
@@ -100,55 +105,104 @@ export async function confirmLedger(
   now: Date,
 ): Promise<LedgerEntry> {
   if (!idParam.safeParse(entryId).success) throw notFound('Ledger entry');
+  return db.transaction((tx) => confirmRow(tx, projectId, actor, entryId, input, now));
+}
+
+/** {@link confirmLedger} inside a transaction the caller holds (one entry). */
+async function confirmRow(
+  tx: Db,
+  projectId: string,
+  actor: SessionUser,
+  entryId: string,
+  input: LedgerConfirmInput,
+  now: Date,
+): Promise<LedgerEntry> {
+  const [current] = await ledgerSelect(tx).where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.id, entryId)));
+  if (!current) throw notFound('Ledger entry');
+  const d = current.row;
+  if (d.status === 'confirmed') throw new HttpError('conflict', `${d.day} is already confirmed and locked`);
+  const { endMs } = zonedDayMs(d.day, current.siteTimeZone);
+  if (endMs > now.getTime()) {
+    throw new HttpError(
+      'conflict',
+      `${d.day} is not over yet at ${current.siteName} (${current.siteTimeZone}): a day can be confirmed once it has ended there, from ${new Date(endMs).toISOString().slice(0, 16).replace('T', ' ')} UTC`,
+    );
+  }
+  const lostHours = input.lostHours ?? d.proposedLostHours;
+  const limiting = input.limiting !== undefined ? input.limiting : asLimiting(d.proposedLimiting);
+  if (lostHours > d.plannedHours) {
+    throw new HttpError('validation', `Invalid body: lostHours: must be at most the ${d.plannedHours} h planned`, [
+      { field: 'lostHours', message: `must be at most the ${d.plannedHours} h planned` },
+    ]);
+  }
+  const corrected = lostHours !== d.proposedLostHours || limiting !== asLimiting(d.proposedLimiting);
+  const note = input.note.trim();
+  if (corrected && note === '') {
+    throw new HttpError('validation', 'Invalid body: note: a corrected value needs a note saying why', [
+      { field: 'note', message: 'a corrected value needs a note saying why' },
+    ]);
+  }
+  const [updated] = await tx
+    .update(ledgerDay)
+    .set({ status: 'confirmed', lostHours, limiting, note, confirmedBy: actor.id, confirmedAt: new Date(), updatedAt: new Date() })
+    .where(and(eq(ledgerDay.id, entryId), eq(ledgerDay.status, 'proposed')))
+    .returning({ id: ledgerDay.id });
+  if (!updated) throw new HttpError('conflict', `${d.day} is already confirmed and locked`);
+  await recordAudit(tx, {
+    projectId,
+    user: actor,
+    entity: 'project',
+    entityId: d.id,
+    entityName: `Downtime ledger ${d.day}: ${current.operationName} at ${current.siteName}`,
+    action: 'update',
+    before: {
+      status: 'proposed',
+      lostHours: d.proposedLostHours,
+      limiting: d.proposedLimiting,
+      plannedHours: d.plannedHours,
+      source: d.source,
+    },
+    after: { status: 'confirmed', lostHours, limiting, plannedHours: d.plannedHours, note, corrected },
+  });
+  const [after] = await ledgerSelect(tx).where(eq(ledgerDay.id, entryId));
+  return toEntry(after);
+}
+
+/**
+ * Confirms every proposed entry of one day (in each worksite's zone; of one worksite when
+ * `siteId` is given) as proposed, all or none, each written to the audit trail as
+ * {@link confirmLedger} writes it; confirmed entries of the day stay as they are.
+ * @throws HttpError 409 when the day has no proposed entry, or is not over yet at one of its
+ *   worksites (nothing is confirmed then); 404 for an unknown worksite.
+ */
+export async function confirmLedgerDay(
+  db: Db,
+  projectId: string,
+  actor: SessionUser,
+  input: LedgerConfirmDayInput,
+  now: Date,
+): Promise<LedgerEntry[]> {
   return db.transaction(async (tx) => {
-    const [current] = await ledgerSelect(tx).where(and(eq(ledgerDay.projectId, projectId), eq(ledgerDay.id, entryId)));
-    if (!current) throw notFound('Ledger entry');
-    const d = current.row;
-    if (d.status === 'confirmed') throw new HttpError('conflict', `${d.day} is already confirmed and locked`);
-    const { endMs } = zonedDayMs(d.day, current.siteTimeZone);
-    if (endMs > now.getTime()) {
-      throw new HttpError(
-        'conflict',
-        `${d.day} is not over yet at ${current.siteName} (${current.siteTimeZone}): a day can be confirmed once it has ended there, from ${new Date(endMs).toISOString().slice(0, 16).replace('T', ' ')} UTC`,
-      );
+    if (input.siteId) {
+      const [site] = await tx
+        .select({ id: worksite.id })
+        .from(worksite)
+        .where(and(eq(worksite.projectId, projectId), eq(worksite.id, input.siteId)));
+      if (!site) throw notFound('Worksite');
     }
-    const lostHours = input.lostHours ?? d.proposedLostHours;
-    const limiting = input.limiting !== undefined ? input.limiting : asLimiting(d.proposedLimiting);
-    if (lostHours > d.plannedHours) {
-      throw new HttpError('validation', `Invalid body: lostHours: must be at most the ${d.plannedHours} h planned`, [
-        { field: 'lostHours', message: `must be at most the ${d.plannedHours} h planned` },
-      ]);
-    }
-    const corrected = lostHours !== d.proposedLostHours || limiting !== asLimiting(d.proposedLimiting);
-    const note = input.note.trim();
-    if (corrected && note === '') {
-      throw new HttpError('validation', 'Invalid body: note: a corrected value needs a note saying why', [
-        { field: 'note', message: 'a corrected value needs a note saying why' },
-      ]);
-    }
-    const [updated] = await tx
-      .update(ledgerDay)
-      .set({ status: 'confirmed', lostHours, limiting, note, confirmedBy: actor.id, confirmedAt: new Date(), updatedAt: new Date() })
-      .where(and(eq(ledgerDay.id, entryId), eq(ledgerDay.status, 'proposed')))
-      .returning({ id: ledgerDay.id });
-    if (!updated) throw new HttpError('conflict', `${d.day} is already confirmed and locked`);
-    await recordAudit(tx, {
-      projectId,
-      user: actor,
-      entity: 'project',
-      entityId: d.id,
-      entityName: `Downtime ledger ${d.day}: ${current.operationName} at ${current.siteName}`,
-      action: 'update',
-      before: {
-        status: 'proposed',
-        lostHours: d.proposedLostHours,
-        limiting: d.proposedLimiting,
-        plannedHours: d.plannedHours,
-        source: d.source,
-      },
-      after: { status: 'confirmed', lostHours, limiting, plannedHours: d.plannedHours, note, corrected },
-    });
-    const [after] = await ledgerSelect(tx).where(eq(ledgerDay.id, entryId));
-    return toEntry(after);
+    const ids = await tx
+      .select({ id: ledgerDay.id })
+      .from(ledgerDay)
+      .where(
+        and(
+          ledgerDaysWhere(projectId, 'proposed', eq(ledgerDay.day, input.day)),
+          input.siteId ? eq(ledgerDay.siteId, input.siteId) : undefined,
+        ),
+      )
+      .orderBy(asc(ledgerDay.siteId), asc(ledgerDay.operationId));
+    if (ids.length === 0) throw new HttpError('conflict', `${input.day} has no proposed entry to confirm`);
+    const confirmed: LedgerEntry[] = [];
+    for (const { id } of ids) confirmed.push(await confirmRow(tx, projectId, actor, id, { note: input.note }, now));
+    return confirmed;
   });
 }

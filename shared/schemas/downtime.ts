@@ -163,3 +163,14 @@ export const LedgerConfirmInput = z.object({
   note: longText(2000).optional().default(''),
 });
 export type LedgerConfirmInput = z.infer<typeof LedgerConfirmInput>;
+
+/**
+ * POST …/ledger/confirm-day: every proposed entry of one day (of one worksite, or of all) confirmed
+ * as proposed, all or none; the note goes with each.
+ */
+export const LedgerConfirmDayInput = z.object({
+  day: isoDay,
+  siteId: z.string().uuid('must be a worksite id').optional(),
+  note: longText(2000).optional().default(''),
+});
+export type LedgerConfirmDayInput = z.infer<typeof LedgerConfirmDayInput>;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { LedgerEntry, LedgerMonthlyAnswer } from '../../shared/api-types-downtime';
+import { formatDay } from '../../shared/dates';
 import { demoProjectId, openDemoProject, screenshot, signInAs, useBrowserApp } from '../support/browser';
 
 const { server, browser } = useBrowserApp();
@@ -59,6 +60,30 @@ describe('the downtime schedule in the browser', () => {
     await expect
       .poll(() => rowCells.getByText(`${row.confirmedDays} of ${row.days}`, { exact: true }).count(), { timeout: 30_000 })
       .toBe(1);
+    // The rest of that day confirmed in one go, as proposed, after a question.
+    const waiting = page.getByTestId('days-waiting');
+    const proposedLeft = ((await (await page.request.get(`${base}/ledger?from=${day.day}&to=${day.day}`)).json()) as LedgerEntry[]).filter(
+      (r) => r.status === 'proposed',
+    );
+    // The demo day holds one entry per operation and worksite: the rest are still proposed.
+    expect(proposedLeft.length).toBeGreaterThan(0);
+    await waiting
+      .getByRole('button', { name: `Confirm ${formatDay(day.day, 'day')} as proposed (${proposedLeft.length})`, exact: true })
+      .click();
+    await page.getByRole('button', { name: 'Confirm the day' }).click();
+    await expect
+      .poll(async () =>
+        ((await (await page.request.get(`${base}/ledger?from=${day.day}&to=${day.day}`)).json()) as LedgerEntry[]).every(
+          (r) => r.status === 'confirmed',
+        ),
+      )
+      .toBe(true);
+    for (const r of proposedLeft) {
+      const now = ((await (await page.request.get(`${base}/ledger?from=${day.day}&to=${day.day}`)).json()) as LedgerEntry[]).find(
+        (x) => x.id === r.id,
+      )!;
+      expect(now).toMatchObject({ status: 'confirmed', lostHours: r.proposedLostHours });
+    }
     await screenshot(page, 'downtime-coordinator-ledger');
     await signOut();
   }, 150_000);

@@ -1,4 +1,5 @@
 import { useState, useSyncExternalStore } from 'react';
+import { DATE_STYLE } from '../../../../shared/dates';
 import { format } from 'date-fns';
 import type { LedgerEntry, LedgerMonthRow, LedgerProposeAnswer } from '../../../../shared/api-types-downtime';
 import {
@@ -7,11 +8,12 @@ import {
   LedgerConfirmInput,
   type LedgerLimiting,
 } from '../../../../shared/schemas/downtime';
-import { Button, Card, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select, Spinner } from '../../../components/ui';
+import { Button, Card, Confirm, ErrorNotice, FieldShell, Input, Notice, PlainOptions, Select, Spinner } from '../../../components/ui';
 import { useLedger } from '../api/get-ledger';
 import { useLedgerMonthly } from '../api/get-ledger-monthly';
 import { useProposeLedger } from '../api/propose-ledger';
 import { useConfirmLedger } from '../api/confirm-ledger';
+import { useConfirmLedgerDay } from '../api/confirm-ledger-day';
 import { downloadCsv, toCsv } from '../../../lib/csv';
 import { dayWords, hours, monthRange, monthWords } from './format';
 import { HeadingRow } from '../../../components/ui/table';
@@ -114,6 +116,52 @@ function LedgerCard({ projectId, row: r, canEdit, open, onOpen }: LedgerItemProp
         </div>
       ) : null}
     </li>
+  );
+}
+
+/**
+ * The month's days with proposals still to confirm, each with a button that confirms the whole day
+ * as proposed (every operation at every worksite; all or none), after a question. A day to correct
+ * is confirmed entry by entry in the table first.
+ */
+function DaysWaiting({ projectId, rows }: { projectId: string; rows: LedgerEntry[] }) {
+  const confirmDay = useConfirmLedgerDay(projectId);
+  const [asking, setAsking] = useState<string | null>(null);
+  const counts = new Map<string, number>();
+  for (const r of rows) if (r.status === 'proposed') counts.set(r.day, (counts.get(r.day) ?? 0) + 1);
+  const days = [...counts].sort(([a], [b]) => a.localeCompare(b));
+  if (days.length === 0) return null;
+  return (
+    <div className="no-print flex flex-col gap-2" data-testid="days-waiting">
+      <p className="text-sm">
+        <span className="font-semibold">Days waiting for confirmation.</span>{' '}
+        <span className="text-ink-soft">
+          Confirm a day as proposed in one go, or each entry in the table (to correct one, with a note).
+        </span>
+      </p>
+      <ul className="flex flex-wrap gap-2">
+        {days.map(([day, n]) => (
+          <li key={day}>
+            <Button variant="secondary" disabled={confirmDay.isPending} onClick={() => setAsking(day)}>
+              Confirm {dayWords(day, DATE_STYLE.day)} as proposed ({n})
+            </Button>
+          </li>
+        ))}
+      </ul>
+      {asking ? (
+        <Confirm
+          title={`Confirm the ${counts.get(asking) ?? 0} proposals of ${dayWords(asking)} as proposed?`}
+          confirmLabel="Confirm the day"
+          tone="primary"
+          busy={confirmDay.isPending}
+          onConfirm={() => confirmDay.mutate({ day: asking }, { onSettled: () => setAsking(null) })}
+          onCancel={() => setAsking(null)}
+        >
+          Each entry keeps the hours lost and the limiting factor proposed from the data, and is locked; the audit trail records each.
+        </Confirm>
+      ) : null}
+      {confirmDay.error ? <ErrorNotice error={confirmDay.error} /> : null}
+    </div>
   );
 }
 
@@ -232,6 +280,7 @@ export function LedgerSection({
       <p className="hidden text-sm font-semibold print:block">{monthWords(month)}</p>
       {propose.error ? <ErrorNotice error={propose.error} /> : null}
       {propose.data ? <ProposeResult answer={propose.data} /> : null}
+      {canEdit ? <DaysWaiting projectId={projectId} rows={rows} /> : null}
       {ledger.error ? <ErrorNotice error={ledger.error} /> : null}
       {ledger.isPending ? <Spinner label="Reading the ledger" /> : null}
       {!ledger.isPending && rows.length === 0 ? (
