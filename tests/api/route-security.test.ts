@@ -167,12 +167,16 @@ async function createCampaign(projectId: string, operationId: string, siteId: st
 }
 
 /** A proposed ledger day, written directly (proposals need observations this file does not load). */
+/** The day of each ledger entry made here, by id (a day's confirmation names the day). */
+const ledgerEntryDays = new Map<string, string>();
+
 async function createLedgerEntry(projectId: string, operationId: string, siteId: string): Promise<string> {
   const day = new Date(Date.UTC(2025, 0, 1) + next() * 86_400_000).toISOString().slice(0, 10);
   const [row] = await t.database.db
     .insert(ledgerDay)
     .values({ projectId, operationId, siteId, day, plannedHours: 10, proposedLostHours: 2, proposedLimiting: 'hs', source: 'forecast' })
     .returning({ id: ledgerDay.id });
+  ledgerEntryDays.set(row.id, day);
   return row.id;
 }
 
@@ -396,6 +400,12 @@ const TABLE: Record<string, RouteCase> = {
   'POST /projects/:projectId/ledger/:entryId/confirm': {
     access: 'coordinator',
     body: () => ({}),
+    fresh: async () => ({ entryId: await createLedgerEntry(P1.projectId, P1.operationId, P1.siteId) }),
+  },
+  'POST /projects/:projectId/ledger/confirm-day': {
+    access: 'coordinator',
+    why: 'confirms every proposal of a fresh day made for the call',
+    body: (p) => ({ day: ledgerEntryDays.get(p.entryId) }),
     fresh: async () => ({ entryId: await createLedgerEntry(P1.projectId, P1.operationId, P1.siteId) }),
   },
 
