@@ -96,7 +96,13 @@ async function seedOutlookHistory(
  * first day with hours lost corrected by 2 h with a note; yesterday is left waiting for
  * confirmation. Returns the days confirmed.
  */
-async function seedLedger(deps: Pick<AppDeps, 'db' | 'clock'>, projectId: string, coordinatorId: string, fromMs: number): Promise<number> {
+async function seedLedger(
+  deps: Pick<AppDeps, 'db' | 'clock'>,
+  projectId: string,
+  coordinatorId: string,
+  fromMs: number,
+  transferOperationId: string,
+): Promise<number> {
   const now = deps.clock();
   const day = (ms: number) => new Date(ms).toISOString().slice(0, 10);
   await proposeLedger(deps.db, projectId, { from: day(fromMs), to: day(now.getTime()) }, now);
@@ -107,13 +113,9 @@ async function seedLedger(deps: Pick<AppDeps, 'db' | 'clock'>, projectId: string
     .orderBy(asc(ledgerDay.day));
   const who = DEMO_USERS.find((u) => u.key === 'coordinator')!;
   const actor = { id: coordinatorId, name: who.name, email: who.email, role: 'user' as const };
-  const [transfer] = await deps.db
-    .select({ id: operation.id })
-    .from(operation)
-    .where(and(eq(operation.projectId, projectId), eq(operation.name, 'Crew transfer (CTV Sable Wren)')));
   let corrected = false;
   for (const r of rows) {
-    const correct: boolean = !corrected && r.operationId === transfer?.id && r.lost > 0 && r.lost + 2 <= r.planned;
+    const correct: boolean = !corrected && r.operationId === transferOperationId && r.lost > 0 && r.lost + 2 <= r.planned;
     corrected ||= correct;
     await confirmLedger(
       deps.db,
@@ -338,7 +340,8 @@ export async function seedDemoData(
   }
   if (options.ledger && observationId) {
     const started = performance.now();
-    const confirmed = await seedLedger(deps, main.id, users.coordinator, campaignStartMs);
+    const transferId = operationIds[DEMO_OPERATIONS.findIndex((o) => o.name === 'Crew transfer (CTV Sable Wren)')];
+    const confirmed = await seedLedger(deps, main.id, users.coordinator, campaignStartMs, transferId);
     deps.log.info('Demo ledger seeded', { confirmedDays: confirmed, ms: Math.round(performance.now() - started) });
   }
   deps.log.info('Demo scenario seeded', { project: main.id });

@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
@@ -34,6 +35,14 @@ export interface Database {
    */
   writeGeneration?: () => number;
   close(): Promise<void>;
+}
+
+/**
+ * A stable 31-bit advisory-lock key for one kind of work on one project (`plan`, `statistics`,
+ * `ledger`...), so that each kind excludes only its own other runs.
+ */
+export function advisoryLockKey(kind: string, projectId: string): number {
+  return crypto.createHash('sha256').update(`${kind}:${projectId}`).digest().readInt32BE(0) & 0x7fffffff;
 }
 
 /** Statements that never change data. */

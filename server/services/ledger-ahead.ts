@@ -4,7 +4,7 @@
 // for confirmation in the morning, and a day first proposed from the forecast is proposed again from
 // an observation record imported later. Proposals are drafts: nothing reaches a client until a
 // coordinator confirms the day.
-import crypto from 'node:crypto';
+import { advisoryLockKey } from '../db/client';
 import type { AppDeps } from '../deps';
 import { project } from '../db/schema';
 import { proposeLedger } from './ledger-propose';
@@ -14,7 +14,7 @@ export const LEDGER_AHEAD_DAYS = 7;
 
 /** The advisory lock of one project's scheduled proposals (apart from its planning lock). */
 export function ledgerLockKey(projectId: string): number {
-  return crypto.createHash('sha256').update(`ledger:${projectId}`).digest().readInt32BE(0) & 0x7fffffff;
+  return advisoryLockKey('ledger', projectId);
 }
 
 export interface LedgerAheadResult {

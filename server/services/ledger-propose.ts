@@ -37,7 +37,7 @@ export interface ProposeOptions {
 }
 
 /** The upsert's row differs from the stored one in what a proposal says (NULLs compared as values). */
-const PROPOSAL_CHANGED = sql`(${ledgerDay.plannedHours}, ${ledgerDay.proposedLostHours}, ${ledgerDay.proposedLimiting}, ${ledgerDay.source}, ${ledgerDay.datasetId}) is distinct from (excluded.planned_hours, excluded.proposed_lost_hours, excluded.proposed_limiting, excluded.source, excluded.dataset_id)`;
+const PROPOSAL_CHANGED = sql`(${ledgerDay.plannedHours}, ${ledgerDay.proposedLostHours}, ${ledgerDay.proposedLimiting}, ${ledgerDay.source}, ${ledgerDay.datasetId}) is distinct from (${sqlExcluded('planned_hours')}, ${sqlExcluded('proposed_lost_hours')}, ${sqlExcluded('proposed_limiting')}, ${sqlExcluded('source')}, ${sqlExcluded('dataset_id')})`;
 
 /** Does the dataset's record span cover [startMs, endMs)? */
 const spans = (d: DatasetRowFull, startMs: number, endMs: number) =>

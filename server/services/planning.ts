@@ -11,7 +11,7 @@ import { recordCampaignOutlooks } from './campaign-outlook';
 import { covers, effectiveSubscriptions } from './subscriptions';
 import { alertEmail, type ChangeWithReason, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { deliverDueMail, enqueueMail, type OutboxMessage } from './outbox';
-import type { Db } from '../db/client';
+import { advisoryLockKey, type Db } from '../db/client';
 
 /**
  * What started a planning run: the schedule, a person (an administrator or "Re-plan now"),
@@ -39,7 +39,7 @@ export interface JobResult {
 
 /** A stable 31-bit advisory-lock key per project. */
 export function projectLockKey(projectId: string): number {
-  return crypto.createHash('sha256').update(`plan:${projectId}`).digest().readInt32BE(0) & 0x7fffffff;
+  return advisoryLockKey('plan', projectId);
 }
 
 function summarise(p: OperationSitePlan): PlanSummary {

@@ -6,7 +6,7 @@
 // alone on the bench's project). The work runs on the engine thread, below the API thread's
 // priority (engine-pool.ts). The campaign's live outlook is not stored here: the planning job
 // works it out on every new forecast.
-import crypto from 'node:crypto';
+import { advisoryLockKey } from '../db/client';
 import type { AppDeps } from '../deps';
 import { project } from '../db/schema';
 import { storeDefaultSimulation } from './campaigns';
@@ -16,7 +16,7 @@ import { statisticsDataset, storeDefaultWorkability } from './workability';
 
 /** The advisory lock of one project's statistics work (apart from its planning lock). */
 export function statisticsLockKey(projectId: string): number {
-  return crypto.createHash('sha256').update(`statistics:${projectId}`).digest().readInt32BE(0) & 0x7fffffff;
+  return advisoryLockKey('statistics', projectId);
 }
 
 /**

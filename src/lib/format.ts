@@ -36,3 +36,6 @@ export function fixedWithUnit(value: number | null | undefined, decimals: number
   if (value === null || value === undefined || !Number.isFinite(value)) return DASH;
   return unit ? `${value.toFixed(decimals)} ${unit}` : value.toFixed(decimals);
 }
+
+/** A count with its noun, singular or plural: "1 worksite", "3 operations". */
+export const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;

@@ -8,6 +8,7 @@ import type { ProjectJobResult } from '../api/types';
 import { KIND_WORDS } from './alert-words';
 import { DATE_STYLE } from '../../../../shared/dates';
 import { timeIn } from './format';
+import { plural } from '../../../lib/format';
 
 interface Props {
   projectId: string;
@@ -16,8 +17,6 @@ interface Props {
   /** The page's zone for times that belong to no worksite. */
   zone: string;
 }
-
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 export function ReplanSection({ projectId, operations, sites, zone: here }: Props) {
   const replan = useReplan(projectId);

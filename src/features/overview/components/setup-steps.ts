@@ -1,6 +1,7 @@
 // The Overview's set-up steps for coordinators: what planning needs that the project lacks yet,
 // each with the page that does it. Pure, so that the words and the order are tested alone.
 import type { OverviewSetup } from '../../../../shared/api-types-overview';
+import { plural } from '../../../lib/format';
 
 export interface SetupStep {
   key: 'worksites' | 'operations' | 'dataPoint' | 'statistics' | 'forecasts';
@@ -12,8 +13,6 @@ export interface SetupStep {
   path: string;
   action: string;
 }
-
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 /** The steps in the order they are best taken: where, what, from which sea data point, with which data. */
 export function setupSteps(s: OverviewSetup): SetupStep[] {

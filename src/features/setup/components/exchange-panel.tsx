@@ -9,6 +9,7 @@ import { exportSetupUrl } from '../api/export-setup';
 import { useImportPreview, useImportSetup } from '../api/import-setup';
 import { withUnit } from './format';
 import { FilePicker } from './form-bits';
+import { plural } from '../../../lib/format';
 
 /** Largest setup file read in the browser, bytes (the document is small: names, numbers, tables). */
 const MAX_FILE_BYTES = 5 * 1024 * 1024;
@@ -69,7 +70,6 @@ function resultText(r: ImportResultResponse): string {
 
 const names = (list: string[], max = 8) =>
   list.length === 0 ? '' : `: ${list.slice(0, max).join(', ')}${list.length > max ? `, and ${list.length - max} more` : ''}`;
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 /** Everything replace removes, item by item (only what there is). */
 function removedItems(r: ImportPreviewResponse['removes']): string[] {
