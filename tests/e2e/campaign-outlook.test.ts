@@ -47,6 +47,16 @@ describe('the live campaign outlook in the browser', () => {
       .getByText(/Live outlook: from the time printed/)
       .waitFor();
     expect(await page.getByTestId('outlook-section').isVisible()).toBe(true);
+    // Its "Limits used (OPLIM)" names every limit the schedule was worked from: the demo's cable lay
+    // (seed/scenario-sites.ts) also has a long-period swell limit and a roll limit at a fixed heading.
+    const cableLay = page
+      .getByTestId('print-report')
+      .getByRole('listitem')
+      .filter({ hasText: /^Cable lay, nearshore section:/ });
+    const cableLayText = (await cableLay.textContent())!.replace(/\u202f/g, ' ');
+    expect(cableLayText).toContain('long-period sea (Tp ≥ 12 s) Hs ≤ 0.8 m');
+    expect(cableLayText).toContain('roll most probable max over 3 h ≤ 4 deg');
+    expect(cableLayText).toMatch(/vessel heading \d+° true/);
     const printed = page.getByTestId('outlook-history-table').last();
     expect(await printed.isVisible()).toBe(true);
     expect(await printed.locator('tbody tr').count()).toBeGreaterThanOrEqual(14);

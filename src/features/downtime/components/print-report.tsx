@@ -6,7 +6,7 @@ import type { OperationResponse, SiteResponse } from '../../../../shared/api-typ
 import { CAUTION_LINE, TRANSFORMATION_CAUTION } from '../../../../shared/caution';
 import { formatInstant } from '../../../../shared/dates';
 import { dateIn } from './format';
-import { limitsInWords } from './limits-words';
+import { describeLimits } from '../../../../shared/limits-in-words';
 
 interface Props {
   projectName: string;
@@ -43,7 +43,7 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
         {operations.map((o) => (
           <li key={o.id}>
             <span className="font-semibold">{o.name}</span>: TPOP {o.tpop} h, TC {o.tc} h (TR {o.tr} h)
-            {o.weatherRestricted ? ', weather-restricted' : ''}; {limitsInWords(o.limits)}; at{' '}
+            {o.weatherRestricted ? ', weather-restricted' : ''}; {limitsLine(o)}; at{' '}
             {o.siteIds.length === 0 ? 'every worksite' : o.siteIds.map((id) => siteName.get(id) ?? 'a removed worksite').join(', ')}.
           </li>
         ))}
@@ -104,4 +104,14 @@ export function PrintReport({ projectName, hindcast, ledgerSources, alpha, opera
       <p className="mt-4 border-t border-black/30 pt-2 font-semibold">{CAUTION_LINE}</p>
     </section>
   );
+}
+
+/**
+ * The operation's limits in full words (shared/limits-in-words.ts), and for response limits the
+ * vessel's fixed heading they were worked at (docs/domain.md#vessel-response).
+ */
+function limitsLine(o: OperationResponse): string {
+  const words = describeLimits(o.limits, 'full');
+  if ((o.limits.responses?.length ?? 0) > 0 && o.heading !== null) words.push(`vessel heading ${o.heading}° true`);
+  return words.length > 0 ? words.join('; ') : 'no limit set';
 }

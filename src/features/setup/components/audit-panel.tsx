@@ -10,7 +10,7 @@ import { useHindcasts } from '../../../api/datasets';
 import { useSites } from '../../../api/sites';
 import { auditChanges, type FieldChange } from './audit-diff';
 import { fmt, range, withUnit } from './format';
-import { BED_VELOCITY_METHOD_LABEL } from './limits-summary';
+import { BED_VELOCITY_METHOD_LABEL } from '../../../../shared/limits-in-words';
 
 const ENTITY_LABEL: Record<AuditEntity, string> = {
   operation: 'Operation',

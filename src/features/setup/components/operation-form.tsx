@@ -33,7 +33,7 @@ import { CurveEditor } from './hs-tp-curve-editor';
 import { BandsEditor } from './tp-bands-editor';
 import { fmt } from './format';
 import { HsTpPlot } from './hs-tp-plot';
-import { BED_VELOCITY_METHOD_LABEL } from './limits-summary';
+import { BED_VELOCITY_METHOD_LABEL } from '../../../../shared/limits-in-words';
 import { numberFromText, numberOrNull, pairText, textFields, textFromNumber } from './number-text';
 
 /** The operation form as typed: the request body's field names, numbers as text; vesselId '' is no vessel. */
