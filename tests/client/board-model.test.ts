@@ -151,6 +151,34 @@ describe('startWords', () => {
     const words = startWords(plan({ earliestStart: '2027-01-05T07:00:00Z' }), Date.parse('2026-12-30T14:00:00Z'));
     expect(words.text).toBe('Earliest start: Tue 5 Jan 2027 07:00');
   });
+
+  it('gives the planned finish at go-start + TPOP and the end of the contingency at go-start + TR', () => {
+    // Go-start Tue 8 Dec 20:00 GMT; TPOP 4 h -> Wed 9 Dec 00:00; TR 6 h -> Wed 9 Dec 02:00
+    // (9 December 2026 is a Wednesday, calendar): the finish crosses midnight into the next day.
+    const words = startWords(plan({ earliestStart: '2026-12-08T20:00:00Z' }), Date.parse('2026-12-03T14:00:00Z'));
+    expect(words.finish).toBe('Planned finish Wed 9 Dec 00:00, contingency to Wed 9 Dec 02:00');
+  });
+
+  it('finishes from the hour that covers now when the operation may start now, in the worksite zone', () => {
+    // Records 12:00, 13:00, 14:00 UTC; now 13:40 UTC is in the 13:00 record. Oslo is UTC+1 in
+    // December: the go-start is 14:00 local, TPOP 4 h -> 18:00, TR 6 h -> 20:00 (Thu 3 Dec 2026).
+    const times = ['2026-12-03T12:00:00Z', '2026-12-03T13:00:00Z', '2026-12-03T14:00:00Z'];
+    const words = startWords(
+      plan({
+        timeZone: 'Europe/Oslo',
+        startNow: true,
+        times,
+        windows: [{ start: times[0], end: '2026-12-03T20:00:00Z', hours: 8 } as never],
+      }),
+      Date.parse('2026-12-03T13:40:00Z'),
+    );
+    expect(words.finish).toBe('Planned finish Thu 3 Dec 18:00, contingency to Thu 3 Dec 20:00');
+  });
+
+  it('names no finish without a go-start, nor for work that is not weather-restricted', () => {
+    expect(startWords(plan({}), Date.parse('2026-12-03T14:00:00Z')).finish).toBeNull();
+    expect(startWords(plan({ informationOnly: true }), Date.parse('2026-12-03T14:00:00Z')).finish).toBeNull();
+  });
 });
 
 describe('recordAt: the record that holds an instant (the Overview card link opens its chain)', () => {

@@ -38,6 +38,12 @@ describe('the watch board', () => {
     expect(words.length).toBeGreaterThan(0);
     for (const w of words)
       expect(w).toMatch(/^(▶ )?(May start now|Earliest start: \w{3} \d{1,2} \w{3}( \d{4})? \d{2}:\d{2}|No window in this forecast)/);
+    // A row with a start also says when the work is planned to end: go-start + TPOP, and the
+    // contingency's end, go-start + TR (docs/domain.md#weather-windows).
+    const starting = words.filter((w) => !/No window in this forecast|Not weather-restricted/.test(w)).length;
+    const finishes = await page.getByTestId('finish-words').allTextContents();
+    expect(finishes.length).toBe(starting);
+    for (const f of finishes) expect(f).toMatch(/^Planned finish \w{3} \d{1,2} \w{3}( \d{4})? \d{2}:\d{2}(, contingency to .+)?$/);
 
     const cell = page.getByTestId('hour-cell').first();
     const label = await cell.getAttribute('aria-label');

@@ -339,6 +339,11 @@ const BoardRow = memo(function BoardRow({
           {words.text}
           <span className="sr-only"> {words.detail}</span>
         </p>
+        {words.finish ? (
+          <p className="text-xs text-ink-soft" data-testid="finish-words">
+            {words.finish}
+          </p>
+        ) : null}
         {plan.windows[0] && plan.windows[0].chance !== null && plan.windows[0].chance !== undefined ? (
           <p className="text-xs text-ink-soft" data-testid="window-chance">
             {capitalise(START_WORDS.nextWindow)} {formatStart(plan.windows[0].start, plan.timeZone, nowMs)}: {CHANCE_WORDS.window}{' '}

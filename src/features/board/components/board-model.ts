@@ -166,6 +166,36 @@ export interface StartWords {
   text: string;
   /** Longer form for screen readers and tooltips (full date and zone). */
   detail: string;
+  /**
+   * When the work started at that go-start is planned to end (go-start + TPOP) and its contingency
+   * runs out (go-start + TR), "Planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00";
+   * null without a go-start.
+   */
+  finish: string | null;
+}
+
+const MS_PER_HOUR = 3_600_000;
+
+/**
+ * The finish of work begun at a go-start: planned at go-start + TPOP, at the latest (contingency
+ * used up) at go-start + TR; the go-start guarantees [go-start, go-start + TR) workable
+ * (docs/domain.md#weather-windows), so both fall inside the window.
+ */
+export function finishWords(goStartMs: number, plan: Pick<OperationSitePlan, 'tpop' | 'tr' | 'timeZone'>, nowMs: number): string {
+  const planned = formatStart(goStartMs + plan.tpop * MS_PER_HOUR, plan.timeZone, nowMs);
+  if (plan.tr <= plan.tpop) return `Planned finish ${planned}`;
+  return `Planned finish ${planned}, contingency to ${formatStart(goStartMs + plan.tr * MS_PER_HOUR, plan.timeZone, nowMs)}`;
+}
+
+/** The record that covers an instant (each stands for [t, next t)), as its start; null before the first. */
+function recordStartAt(times: string[], ms: number): number | null {
+  let at: number | null = null;
+  for (const t of times) {
+    const tMs = Date.parse(t);
+    if (tMs > ms) break;
+    at = tMs;
+  }
+  return at;
 }
 
 export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
@@ -174,6 +204,7 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     return {
       tone: 'none',
       text: 'Not weather-restricted: for information only',
+      finish: null,
       detail: `Not weather-restricted (TPOP ${plan.tpop} h, TR ${plan.tr} h; weather-restricted needs TPOP up to 72 h and TR up to 96 h, and the mark): its hours are shown against OPLIM for information only. It gets no go-start, window or "may start now" from a forecast: plan it for statistical extremes or split it into sub-operations with safe points.`,
     };
   }
@@ -182,9 +213,12 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     // What is left of the window matters on deck, not its whole length (which began earlier).
     const leftH = w ? Math.floor((Date.parse(w.end) - nowMs) / 3_600_000) : 0;
     const until = w ? `, window until ${formatStart(w.end, zone, nowMs)}, ${formatHours(leftH)} left` : '';
+    // Started now, the work's go-start is the record that covers now.
+    const goStartMs = recordStartAt(plan.times, nowMs);
     return {
       tone: 'now',
       text: `May start now${until}`,
+      finish: goStartMs === null ? null : finishWords(goStartMs, plan, nowMs),
       detail: `May start now${w ? `: the window runs until ${formatIn(w.end, zone)}, ${formatHours(w.hours)} long in all` : ''}.`,
     };
   }
@@ -194,12 +228,14 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     return {
       tone: 'later',
       text: `Earliest start: ${formatStart(ms, zone, nowMs)}${w ? `, window ${formatHours(w.hours)}` : ''}`,
+      finish: finishWords(ms, plan, nowMs),
       detail: `Earliest go-start ${formatIn(ms, zone)}${w ? `, in a window of ${formatHours(w.hours)}` : ''}.`,
     };
   }
   return {
     tone: 'none',
     text: 'No window in this forecast',
+    finish: null,
     detail: `No run of workable hours at least TR = ${plan.tr} h long in this forecast.`,
   };
 }
