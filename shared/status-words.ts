@@ -48,7 +48,8 @@ export const OCCURRENCE_STATUS_WORD: Record<OccurrenceStatus, StatusWord> = {
 /** The verdicts an occurrence of a weather-restricted operation can get, in running text. */
 export const OCCURRENCE_VERDICTS = `${STATUS_WORDS.workable.word}, ${STATUS_WORDS.marginal.word} or ${STATUS_WORDS.not_workable.word}`;
 
-const capitalised = (s: string) => s[0].toUpperCase() + s.slice(1);
+/** Words with a capital first letter, to start a sentence or a line. */
+export const capitalised = (s: string) => s[0].toUpperCase() + s.slice(1);
 
 /** The letter and the word, as a label: "X Not workable". */
 export function statusLabel(status: StatusWord): string {
@@ -74,6 +75,20 @@ export const START_WORDS = {
   earliestMoved: 'earliest start moved',
   nextOccurrence: 'next occurrence',
 } as const;
+
+const MS_PER_HOUR = 3_600_000;
+
+/**
+ * When work begun at a go-start ends, the same words on the board and in the e-mails (lower case, to
+ * start a sentence capitalise it): planned at
+ * go-start + TPOP, at the latest (contingency used up) at go-start + TR. The go-start holds
+ * [go-start, go-start + TR) workable (docs/domain.md#weather-windows), so both fall inside the
+ * window. `when` writes an instant in the reader's words (date, time, zone as the page or e-mail has them).
+ */
+export function finishWords(goStartMs: number, tpopH: number, trH: number, when: (ms: number) => string): string {
+  const planned = `planned finish ${when(goStartMs + tpopH * MS_PER_HOUR)}`;
+  return trH > tpopH ? `${planned}, contingency to ${when(goStartMs + trH * MS_PER_HOUR)}` : planned;
+}
 
 /**
  * Ensemble chances in words (docs/domain.md#forecast-uncertainty), the same on the board, in the

@@ -2,12 +2,12 @@ import crypto from 'node:crypto';
 import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
 import { limitWords } from '../../shared/limit-words';
-import { CHANCE_WORDS, START_WORDS, chancePercent, statusLabel, STATUS_WORDS } from '../../shared/status-words';
+import { CHANCE_WORDS, START_WORDS, capitalised, chancePercent, finishWords, statusLabel, STATUS_WORDS } from '../../shared/status-words';
 import { renderMail } from '../mail/message';
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
-export function localTime(iso: string, timeZone: string): string {
-  return formatInstant(iso, timeZone, 'dateTime');
+export function localTime(instant: string | number, timeZone: string): string {
+  return formatInstant(instant, timeZone, 'dateTime');
 }
 
 export interface ChangeWithReason extends PlanChange {
@@ -15,7 +15,7 @@ export interface ChangeWithReason extends PlanChange {
   reason?: string | null;
 }
 
-const sentence = (s: string) => s[0].toUpperCase() + s.slice(1);
+const sentence = capitalised;
 
 /** "from Thu 3 Dec 15:00 to Thu 3 Dec 20:00" (or "at …" when only one start is left). */
 function startsWords(c: ChangeWithReason, timeZone: string): string {
@@ -113,6 +113,18 @@ export function nextStartWords(plan: PlanSummary): string {
 }
 
 /**
+ * When work begun at the plan's next start ends (shared/status-words.ts `finishWords`): "Started at
+ * Tue 8 Dec 01:00, planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00."; null without
+ * a start or without TPOP (a plan run stored before it was kept).
+ */
+export function finishLine(plan: PlanSummary): string | null {
+  if (!plan.earliestStart || plan.tpop === undefined) return null;
+  const z = plan.timeZone;
+  const when = (ms: number) => localTime(ms, z);
+  return `Started at ${localTime(plan.earliestStart, z)}, ${finishWords(Date.parse(plan.earliestStart), plan.tpop, plan.tr, when)}.`;
+}
+
+/**
  * One e-mail for one recipient about one operation at one worksite. The subject names the
  * project, the operation and worksite, the next start still possible (with its date) and what
  * changed.
@@ -128,11 +140,12 @@ export async function alertEmail(args: {
   const more = changes.length > 1 ? ` (+${changes.length - 1} more)` : '';
   const headline = `${shortChange(changes[0], plan.timeZone)}${more}`;
   const subject = `${args.projectName}: ${plan.operationName} at ${plan.siteName}, ${nextStartWords(plan)} (${headline})`;
+  const finish = finishLine(plan);
   const parts = await renderMail({
     heading: `${plan.operationName} at ${plan.siteName}`,
     subheading: `${args.projectName} · times are ${plan.timeZone}`,
     textHead: [`${plan.operationName} at ${plan.siteName} (${args.projectName})`, `Times are ${plan.timeZone}.`],
-    points: changes.map((c) => describeChange(c, plan)),
+    points: [...changes.map((c) => describeChange(c, plan)), ...(finish ? [finish] : [])],
     action: { label: 'Open the watch board', textLabel: 'Board', url: args.boardUrl },
     unsubscribeUrl: args.unsubscribeUrl,
   });

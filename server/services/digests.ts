@@ -4,7 +4,7 @@ import { TZDate } from '@date-fns/tz';
 import type { PlanSummary } from '../../shared/alerts/compare-plans';
 import type { AppDeps } from '../deps';
 import { planRun, project } from '../db/schema';
-import { occurrenceLabel, START_WORDS } from '../../shared/status-words';
+import { finishWords, occurrenceLabel, START_WORDS } from '../../shared/status-words';
 import { renderMail } from '../mail/message';
 import { localTime, UNSUBSCRIBE_LINK_MARK } from './alert-mail';
 import { enqueueMail } from './outbox';
@@ -19,13 +19,19 @@ export function digestLine(pl: PlanSummary, nowMs: number): string {
   const state = pl.startNow
     ? START_WORDS.startNow
     : next
-      ? `${START_WORDS.nextWindow} ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})`
+      ? `${START_WORDS.nextWindow} ${localTime(next.start, pl.timeZone)} (${next.hours} h, ${pl.timeZone})${windowFinish(pl, next.start)}`
       : START_WORDS.noWindow;
   const occurrence = pl.occurrences.find((o) => Date.parse(o.start) >= nowMs);
   const occurrenceWords = occurrence
     ? `; ${START_WORDS.nextOccurrence} ${localTime(occurrence.start, pl.timeZone)}: ${occurrenceLabel(occurrence.status)}`
     : '';
   return `${pl.operationName} at ${pl.siteName}: ${state}${occurrenceWords}`;
+}
+
+/** ", planned finish …, contingency to …" for work begun at a window's start (a go-start); empty without TPOP. */
+function windowFinish(pl: PlanSummary, start: string): string {
+  if (pl.tpop === undefined) return '';
+  return `, ${finishWords(Date.parse(start), pl.tpop, pl.tr, (ms) => localTime(ms, pl.timeZone))}`;
 }
 
 /**

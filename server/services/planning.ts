@@ -50,6 +50,7 @@ function summarise(p: OperationSitePlan): PlanSummary {
     siteName: p.siteName,
     timeZone: p.timeZone,
     tr: p.tr,
+    tpop: p.tpop,
     windows: p.windows.map(({ start, end, hours, chance }) => ({ start, end, hours, chance })),
     earliestStart: p.earliestStart,
     startNow: p.startNow,

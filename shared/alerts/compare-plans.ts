@@ -16,6 +16,8 @@ export interface PlanSummary {
   siteName: string;
   timeZone: string;
   tr: number;
+  /** Planned duration TPOP, h; absent in plan runs stored before it was kept. */
+  tpop?: number;
   /** `chance`: the ensemble chance to hold TR from the window's start (absent or null without an ensemble). */
   windows: { start: string; end: string; hours: number; chance?: number | null }[];
   earliestStart: string | null;

@@ -9,7 +9,7 @@ import { createElement } from 'react';
 import { renderToStaticMarkup } from 'react-dom/server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { alertEmail } from '../../server/services/alert-mail';
-import { queueDigests } from '../../server/services/digests';
+import { digestLine, queueDigests } from '../../server/services/digests';
 import { deliverDueMail } from '../../server/services/outbox';
 import { HOUR_STATUS_ORDER, OCCURRENCE_STATUS_WORD, STATUS_WORDS, type StatusWord } from '../../shared/status-words';
 import type { PlanSummary } from '../../shared/alerts/compare-plans';
@@ -88,6 +88,57 @@ describe('the alert e-mail', () => {
     for (const point of [textPoint, htmlPoint]) expect(statusOfLabel(point.split(':')[0])).toBe('not_workable');
     // The subject, in running text, uses the same word.
     expect(mail.subject).toContain(`(${STATUS_WORDS.not_workable.word} at Fri 4 Dec 06:00)`); // 4 Dec 2026 is a Friday (GNU date)
+  });
+});
+
+describe('the alert e-mail: when the work ends', () => {
+  const plan = (over: Partial<PlanSummary>) =>
+    ({
+      operationId: 'o',
+      siteId: 's',
+      operationName: 'Cable lay',
+      siteName: 'KP 4.5',
+      timeZone: 'UTC',
+      tr: 48,
+      tpop: 36,
+      startNow: false,
+      earliestStart: '2026-12-08T01:00:00.000Z',
+      windows: [{ start: '2026-12-08T01:00:00.000Z', end: '2026-12-10T18:00:00.000Z', hours: 65 }],
+      occurrences: [],
+      ...over,
+    }) as PlanSummary;
+  const opened = {
+    kind: 'window_opened',
+    operationId: 'o',
+    siteId: 's',
+    key: 'k',
+    start: '2026-12-08T01:00:00.000Z',
+    end: '2026-12-10T18:00:00.000Z',
+    hours: 65,
+  };
+  const mailOf = (p: PlanSummary) =>
+    alertEmail({ plan: p, changes: [opened as never], projectName: 'Reach', boardUrl: 'http://x/b', unsubscribeUrl: 'http://x/u' });
+
+  it('says when work begun at the next start is planned to finish (+ TPOP) and its contingency ends (+ TR)', async () => {
+    // Tue 8 Dec 2026 01:00 UTC + 36 h = Wed 9 Dec 13:00; + 48 h = Thu 10 Dec 01:00 (calendar).
+    const mail = await mailOf(plan({}));
+    const line = 'Started at Tue 8 Dec 01:00, planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00.';
+    expect(mail.text).toContain(`- ${line}`);
+    expect(mail.html).toContain(line);
+  });
+
+  it('gives the daily digest the finish of work begun at the start of the next window', () => {
+    expect(digestLine(plan({}), Date.parse('2026-12-05T07:00:00Z'))).toBe(
+      'Cable lay at KP 4.5: next window Tue 8 Dec 01:00 (65 h, UTC), planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00',
+    );
+    expect(digestLine(plan({ tpop: undefined }), Date.parse('2026-12-05T07:00:00Z'))).toBe(
+      'Cable lay at KP 4.5: next window Tue 8 Dec 01:00 (65 h, UTC)',
+    );
+  });
+
+  it('says nothing of a finish without a start, or for a plan run stored before TPOP was kept', async () => {
+    expect((await mailOf(plan({ earliestStart: null }))).text).not.toMatch(/planned finish/);
+    expect((await mailOf(plan({ tpop: undefined }))).text).not.toMatch(/planned finish/);
   });
 });
 

@@ -7,7 +7,7 @@ import type { OperationSitePlan } from '../../../../shared/api-types-plan';
 import { OCCURRENCE_META, STATUS_META, formatIn, formatStart, limitWord } from './board-format';
 import { dayRuns, firstAtOrAfter, occurrenceMarks, recordEndMs, startWords, windowBoxes, type VisibleRange } from './board-model';
 import { Term } from '../../../components/ui/term';
-import { CHANCE_WORDS, START_WORDS, chancePercent } from '../../../../shared/status-words';
+import { CHANCE_WORDS, START_WORDS, capitalised, chancePercent } from '../../../../shared/status-words';
 
 export interface SelectedHour {
   operationId: string;
@@ -29,8 +29,6 @@ interface BoardGridProps {
   selected: SelectedHour | null;
   onSelect: (hour: SelectedHour) => void;
 }
-
-const capitalise = (s: string) => s[0].toUpperCase() + s.slice(1);
 
 const rowKey = (p: { operationId: string; siteId: string }) => `${p.operationId}:${p.siteId}`;
 
@@ -346,7 +344,7 @@ const BoardRow = memo(function BoardRow({
         ) : null}
         {plan.windows[0] && plan.windows[0].chance !== null && plan.windows[0].chance !== undefined ? (
           <p className="text-xs text-ink-soft" data-testid="window-chance">
-            {capitalise(START_WORDS.nextWindow)} {formatStart(plan.windows[0].start, plan.timeZone, nowMs)}: {CHANCE_WORDS.window}{' '}
+            {capitalised(START_WORDS.nextWindow)} {formatStart(plan.windows[0].start, plan.timeZone, nowMs)}: {CHANCE_WORDS.window}{' '}
             <strong className="text-ink">{chancePercent(plan.windows[0].chance)}</strong>
           </p>
         ) : null}

@@ -1,6 +1,7 @@
 // Pure helpers that turn a plan answer into what the board draws: the visible hours, the day
 // runs of the header, the window boxes, and the start of a row in words.
 import type { OccurrenceStatus, OperationSitePlan, PlanWindow } from '../../../../shared/api-types-plan';
+import { capitalised, finishWords } from '../../../../shared/status-words';
 import { dayKey, formatHours, formatIn, formatStart } from './board-format';
 
 /** The hours on screen: indices [from, to) into the plan's `times`. */
@@ -174,17 +175,9 @@ export interface StartWords {
   finish: string | null;
 }
 
-const MS_PER_HOUR = 3_600_000;
-
-/**
- * The finish of work begun at a go-start: planned at go-start + TPOP, at the latest (contingency
- * used up) at go-start + TR; the go-start guarantees [go-start, go-start + TR) workable
- * (docs/domain.md#weather-windows), so both fall inside the window.
- */
-export function finishWords(goStartMs: number, plan: Pick<OperationSitePlan, 'tpop' | 'tr' | 'timeZone'>, nowMs: number): string {
-  const planned = formatStart(goStartMs + plan.tpop * MS_PER_HOUR, plan.timeZone, nowMs);
-  if (plan.tr <= plan.tpop) return `Planned finish ${planned}`;
-  return `Planned finish ${planned}, contingency to ${formatStart(goStartMs + plan.tr * MS_PER_HOUR, plan.timeZone, nowMs)}`;
+/** The finish of work begun at a go-start, in the board's words (shared/status-words.ts). */
+export function finishWordsOnBoard(goStartMs: number, plan: Pick<OperationSitePlan, 'tpop' | 'tr' | 'timeZone'>, nowMs: number): string {
+  return capitalised(finishWords(goStartMs, plan.tpop, plan.tr, (ms) => formatStart(ms, plan.timeZone, nowMs)));
 }
 
 /** The record that covers an instant (each stands for [t, next t)), as its start; null before the first. */
@@ -218,7 +211,7 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     return {
       tone: 'now',
       text: `May start now${until}`,
-      finish: goStartMs === null ? null : finishWords(goStartMs, plan, nowMs),
+      finish: goStartMs === null ? null : finishWordsOnBoard(goStartMs, plan, nowMs),
       detail: `May start now${w ? `: the window runs until ${formatIn(w.end, zone)}, ${formatHours(w.hours)} long in all` : ''}.`,
     };
   }
@@ -228,7 +221,7 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     return {
       tone: 'later',
       text: `Earliest start: ${formatStart(ms, zone, nowMs)}${w ? `, window ${formatHours(w.hours)}` : ''}`,
-      finish: finishWords(ms, plan, nowMs),
+      finish: finishWordsOnBoard(ms, plan, nowMs),
       detail: `Earliest go-start ${formatIn(ms, zone)}${w ? `, in a window of ${formatHours(w.hours)}` : ''}.`,
     };
   }

@@ -367,6 +367,7 @@ function NextStarts({ plans, nowMs }: { plans: PlanAnswer['plans']; nowMs: numbe
               >
                 {w.text}
               </span>
+              {w.finish ? <span className="block text-xs text-ink-soft">{w.finish}</span> : null}
             </li>
           );
         })}
