@@ -12,6 +12,8 @@ export interface OverviewLine {
   timeZone: string;
   /** Operation reference period TR, h. */
   tr: number;
+  /** Planned duration TPOP, h (the planned finish is the go-start + TPOP). */
+  tpop: number;
   /** Not weather-restricted (docs/domain.md#convention-5): statuses are for information only, never a go-start. */
   informationOnly: boolean;
   /** The caller is one of the operation's skippers. */

@@ -86,7 +86,12 @@ const MS_PER_HOUR = 3_600_000;
  * window. `when` writes an instant in the reader's words (date, time, zone as the page or e-mail has them).
  */
 export function finishWords(goStartMs: number, tpopH: number, trH: number, when: (ms: number) => string): string {
-  const planned = `planned finish ${when(goStartMs + tpopH * MS_PER_HOUR)}`;
+  return `planned finish ${finishSpan(goStartMs, tpopH, trH, when)}`;
+}
+
+/** {@link finishWords} without its label, for a field already labelled "Planned finish": "Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00". */
+export function finishSpan(goStartMs: number, tpopH: number, trH: number, when: (ms: number) => string): string {
+  const planned = when(goStartMs + tpopH * MS_PER_HOUR);
   return trH > tpopH ? `${planned}, contingency to ${when(goStartMs + trH * MS_PER_HOUR)}` : planned;
 }
 

@@ -49,6 +49,7 @@ export function overviewLine(p: OperationSitePlan, nowMs: number, userId: string
     siteName: p.siteName,
     timeZone: p.timeZone,
     tr: p.tr,
+    tpop: p.tpop,
     informationOnly: p.informationOnly,
     mine: p.skipperIds.includes(userId),
     startNow: p.startNow,

@@ -26,6 +26,7 @@ const line = (over: Partial<OverviewLine>): OverviewLine => ({
   siteName: 'Landfall',
   timeZone: 'Europe/London',
   tr: 12,
+  tpop: 8,
   informationOnly: false,
   mine: false,
   startNow: false,

@@ -156,6 +156,16 @@ describe('the project Overview', () => {
         expect(await card.getByTestId('card-now').textContent()).toMatch(
           /^(may start now|workable, but not for TR = [\d.]+ h from now|marginal|not workable|no data|for information only)$/,
         );
+        // With a go-start, the planned finish: go-start + TPOP, and the contingency's end at go-start + TR.
+        if (p.earliestStart && !p.informationOnly) {
+          const goMs = Date.parse(p.earliestStart);
+          const finish = (await card.getByTestId('card-finish').textContent())!;
+          // The year is written only when it is not this year (as every go-start on the page).
+          const when = (ms: number) =>
+            formatInstant(ms, p.timeZone, new Date(ms).getUTCFullYear() === new Date().getUTCFullYear() ? 'dateTime' : 'dateTimeYear');
+          const planned = when(goMs + p.tpop * 3_600_000);
+          expect(finish).toBe(p.tr > p.tpop ? `${planned}, contingency to ${when(goMs + p.tr * 3_600_000)}` : planned);
+        } else expect(await card.getByTestId('card-finish').count()).toBe(0);
         // The next 48 hours as a strip: one cell per forecast hour ahead (at most 48).
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeGreaterThan(0);
         expect(await card.getByTestId('hour-strip').locator('span').count()).toBeLessThanOrEqual(48);

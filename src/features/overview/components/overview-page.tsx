@@ -5,12 +5,13 @@ import { Link, useParams } from 'react-router-dom';
 import type { ProjectDetail } from '../../../../shared/api-types';
 import type { OverviewAnswer, OverviewLine } from '../../../../shared/api-types-overview';
 import { formatDay, formatInstant, formatMonth, zoneStatement } from '../../../../shared/dates';
+import { finishSpan } from '../../../../shared/status-words';
 import { useProjectAccess } from '../../../api/projects';
 import { Card, ErrorNotice, Notice, Spinner } from '../../../components/ui';
 import { formatPosition } from '../../../lib/format';
 import { useOverview } from '../api/get-overview';
 import { HourStrip, statusWord } from './hour-strip';
-import { changeCountWords, forecastAgeWords, hoursWords, plainLine, goStartWords } from './plain-line';
+import { changeCountWords, forecastAgeWords, hoursWords, plainLine, goStartWords, startWords } from './plain-line';
 import { OverviewMap } from './overview-map';
 import { SetupCard } from './setup-card';
 
@@ -239,6 +240,14 @@ function MyOperations({
                 <dd className="break-words" data-testid="card-next">
                   {goStartWords(l, nowMs, forecastEnd)}
                 </dd>
+                {l.earliestStart && !l.informationOnly ? (
+                  <>
+                    <dt className="text-ink-soft">Planned finish</dt>
+                    <dd className="break-words" data-testid="card-finish">
+                      {finishSpan(Date.parse(l.earliestStart), l.tpop, l.tr, (ms) => startWords(ms, l.timeZone, nowMs))}
+                    </dd>
+                  </>
+                ) : null}
                 <dt className="text-ink-soft">Window</dt>
                 <dd data-testid="card-window">
                   {l.windowHours !== null ? hoursWords(l.windowHours) : '–'} (TR {hoursWords(l.tr)})

@@ -23,7 +23,7 @@ export function aheadWords(instantMs: number, nowMs: number): string {
 }
 
 /** A go-start in the date style, the year added when it is not this year ("Thu 4 Dec 14:00"). */
-export function startWords(instant: string, timeZone: string, nowMs: number): string {
+export function startWords(instant: string | number, timeZone: string, nowMs: number): string {
   const sameYear = formatInstant(instant, timeZone, 'dayYear').slice(-4) === formatInstant(nowMs, timeZone, 'dayYear').slice(-4);
   return formatInstant(instant, timeZone, sameYear ? 'dateTime' : 'dateTimeYear');
 }
