@@ -113,15 +113,15 @@ export function nextStartWords(plan: PlanSummary): string {
 }
 
 /**
- * When work begun at the plan's next start ends (shared/status-words.ts `finishWords`): "Started at
- * Tue 8 Dec 01:00, planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00."; null without
+ * When work begun at the plan's next start ends (shared/status-words.ts `finishWords`): "If started at
+ * Tue 8 Dec 01:00: planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00."; null without
  * a start or without TPOP (a plan run stored before it was kept).
  */
 export function finishLine(plan: PlanSummary): string | null {
   if (!plan.earliestStart || plan.tpop === undefined) return null;
   const z = plan.timeZone;
   const when = (ms: number) => localTime(ms, z);
-  return `Started at ${localTime(plan.earliestStart, z)}, ${finishWords(Date.parse(plan.earliestStart), plan.tpop, plan.tr, when)}.`;
+  return `If started at ${localTime(plan.earliestStart, z)}: ${finishWords(Date.parse(plan.earliestStart), plan.tpop, plan.tr, when)}.`;
 }
 
 /**

@@ -122,7 +122,7 @@ describe('the alert e-mail: when the work ends', () => {
   it('says when work begun at the next start is planned to finish (+ TPOP) and its contingency ends (+ TR)', async () => {
     // Tue 8 Dec 2026 01:00 UTC + 36 h = Wed 9 Dec 13:00; + 48 h = Thu 10 Dec 01:00 (calendar).
     const mail = await mailOf(plan({}));
-    const line = 'Started at Tue 8 Dec 01:00, planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00.';
+    const line = 'If started at Tue 8 Dec 01:00: planned finish Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00.';
     expect(mail.text).toContain(`- ${line}`);
     expect(mail.html).toContain(line);
   });
