@@ -4,7 +4,7 @@ import type { AppDeps } from '../deps';
 import { HttpError, parseInput } from '../http/errors';
 import { requireProjectMember } from '../services/project-access';
 import { hourChain, projectPlan, projectPlanJson, siteConditions } from '../services/plans';
-import { icsDocument } from '../services/calendar';
+import { icsDocument, windowFinishSentence } from '../services/calendar';
 import { CAUTION_LINE } from '../../shared/caution';
 
 const alphaFlag = z
@@ -71,7 +71,7 @@ export function planRoutes({ db, clock }: AppDeps): Router {
         start: new Date(w.start),
         end: new Date(w.end),
         summary: `Window: ${p.operationName} at ${p.siteName}`,
-        description: `Usable weather window of ${w.hours} h (TR ${p.tr} h) from ${plan.dataset?.name ?? 'the forecast'}. ${CAUTION_LINE}`,
+        description: `Usable weather window of ${w.hours} h (TR ${p.tr} h) from ${plan.dataset?.name ?? 'the forecast'}. ${windowFinishSentence(w.start, p.tpop, p.tr, p.timeZone)} ${CAUTION_LINE}`,
       })),
     );
     const name = rows[0].operationName.replace(/[^A-Za-z0-9._-]+/g, '-').slice(0, 60);

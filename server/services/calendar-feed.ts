@@ -4,7 +4,7 @@ import type { Db } from '../db/client';
 import { calendarToken, project, projectMember, user } from '../db/schema';
 import { CAUTION_LINE } from '../../shared/caution';
 import { occurrenceLabel } from '../../shared/status-words';
-import { icsDocument, type CalendarEvent } from './calendar';
+import { icsDocument, windowFinishSentence, type CalendarEvent } from './calendar';
 import { projectPlan } from './plans';
 import { covers, mySubscription } from './subscriptions';
 
@@ -52,7 +52,7 @@ export async function calendarFeed(db: Db, token: string, now: Date): Promise<st
           start: new Date(w.start),
           end: new Date(w.end),
           summary: `Window: ${op.operationName} at ${op.siteName}`,
-          description: `${p.name}. Usable weather window of ${w.hours} h (TR ${op.tr} h). ${CAUTION_LINE}`,
+          description: `${p.name}. Usable weather window of ${w.hours} h (TR ${op.tr} h). ${windowFinishSentence(w.start, op.tpop, op.tr, op.timeZone)} ${CAUTION_LINE}`,
         });
       }
       for (const o of op.occurrences) {

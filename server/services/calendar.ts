@@ -1,4 +1,6 @@
 import ical from 'ical-generator';
+import { formatInstant } from '../../shared/dates';
+import { finishWords } from '../../shared/status-words';
 
 export interface CalendarEvent {
   uid: string;
@@ -16,4 +18,14 @@ export function icsDocument(name: string, events: CalendarEvent[]): string {
     cal.createEvent({ id: e.uid, start: e.start, end: e.end, summary: e.summary, description: e.description, url: e.url, timezone: 'UTC' });
   }
   return cal.toString();
+}
+
+/**
+ * A window event's finish, in the worksite's zone: "If started at Tue 8 Dec 01:00: planned finish
+ * Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00 (Europe/London)." (shared/status-words.ts).
+ */
+export function windowFinishSentence(windowStart: string, tpopH: number, trH: number, timeZone: string): string {
+  const startMs = Date.parse(windowStart);
+  const when = (ms: number) => formatInstant(ms, timeZone, 'dateTime');
+  return `If started at ${when(startMs)}: ${finishWords(startMs, tpopH, trH, when)} (${timeZone}).`;
 }

@@ -3,6 +3,7 @@ import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
 import { useSignedInApp, textBody } from '../support/app';
 import type { ConditionsAnswer } from '../../shared/api-types-plan';
+import { formatInstant } from '../../shared/dates';
 
 // A fixed clock in a winter month, so the invented forecast has passing weather systems.
 const NOW = new Date('2026-12-01T07:30:00Z');
@@ -122,6 +123,13 @@ describe('the forecast plan', () => {
     expect(events).toHaveLength(withWindows.windows.length);
     expect(events[0].startDate.toJSDate().toISOString()).toBe(withWindows.windows[0].start);
     expect(events[0].endDate.toJSDate().toISOString()).toBe(withWindows.windows[0].end);
+    // Work begun at the window's start: planned to finish at + TPOP, contingency to + TR, in the
+    // worksite's zone (the demo's worksites are on Europe/London, GMT in winter).
+    const startMs = Date.parse(withWindows.windows[0].start);
+    const when = (ms: number) => formatInstant(ms, withWindows.timeZone, 'dateTime');
+    expect(events[0].description).toContain(
+      `If started at ${when(startMs)}: planned finish ${when(startMs + withWindows.tpop * 3_600_000)}, contingency to ${when(startMs + withWindows.tr * 3_600_000)} (${withWindows.timeZone}).`,
+    );
   });
 
   it('draws worksite conditions with each operation’s limits', async () => {
