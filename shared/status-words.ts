@@ -89,6 +89,11 @@ export function finishWords(goStartMs: number, tpopH: number, trH: number, when:
   return `planned finish ${finishSpan(goStartMs, tpopH, trH, when)}`;
 }
 
+/** {@link finishWords} of a go-start that has not come yet: "If started at Tue 8 Dec 01:00: planned finish …". */
+export function ifStartedWords(goStartMs: number, tpopH: number, trH: number, when: (ms: number) => string): string {
+  return `If started at ${when(goStartMs)}: ${finishWords(goStartMs, tpopH, trH, when)}`;
+}
+
 /** {@link finishWords} without its label, for a field already labelled "Planned finish": "Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00". */
 export function finishSpan(goStartMs: number, tpopH: number, trH: number, when: (ms: number) => string): string {
   const planned = when(goStartMs + tpopH * MS_PER_HOUR);

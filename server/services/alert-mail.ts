@@ -2,7 +2,15 @@ import crypto from 'node:crypto';
 import { formatInstant } from '../../shared/dates';
 import type { PlanChange, PlanSummary } from '../../shared/alerts/compare-plans';
 import { limitWords } from '../../shared/limit-words';
-import { CHANCE_WORDS, START_WORDS, capitalised, chancePercent, finishWords, statusLabel, STATUS_WORDS } from '../../shared/status-words';
+import {
+  CHANCE_WORDS,
+  START_WORDS,
+  capitalised,
+  chancePercent,
+  ifStartedWords,
+  statusLabel,
+  STATUS_WORDS,
+} from '../../shared/status-words';
 import { renderMail } from '../mail/message';
 
 /** A time in the worksite's zone, short and readable on a phone: "Tue 3 Dec 14:00". */
@@ -120,8 +128,7 @@ export function nextStartWords(plan: PlanSummary): string {
 export function finishLine(plan: PlanSummary): string | null {
   if (!plan.earliestStart || plan.tpop === undefined) return null;
   const z = plan.timeZone;
-  const when = (ms: number) => localTime(ms, z);
-  return `If started at ${localTime(plan.earliestStart, z)}: ${finishWords(Date.parse(plan.earliestStart), plan.tpop, plan.tr, when)}.`;
+  return `${ifStartedWords(Date.parse(plan.earliestStart), plan.tpop, plan.tr, (ms) => localTime(ms, z))}.`;
 }
 
 /**

@@ -1,6 +1,6 @@
 import ical from 'ical-generator';
 import { formatInstant } from '../../shared/dates';
-import { finishWords } from '../../shared/status-words';
+import { ifStartedWords } from '../../shared/status-words';
 
 export interface CalendarEvent {
   uid: string;
@@ -25,7 +25,5 @@ export function icsDocument(name: string, events: CalendarEvent[]): string {
  * Wed 9 Dec 13:00, contingency to Thu 10 Dec 01:00 (Europe/London)." (shared/status-words.ts).
  */
 export function windowFinishSentence(windowStart: string, tpopH: number, trH: number, timeZone: string): string {
-  const startMs = Date.parse(windowStart);
-  const when = (ms: number) => formatInstant(ms, timeZone, 'dateTime');
-  return `If started at ${when(startMs)}: ${finishWords(startMs, tpopH, trH, when)} (${timeZone}).`;
+  return `${ifStartedWords(Date.parse(windowStart), tpopH, trH, (ms) => formatInstant(ms, timeZone, 'dateTime'))} (${timeZone}).`;
 }

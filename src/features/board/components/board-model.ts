@@ -175,20 +175,10 @@ export interface StartWords {
   finish: string | null;
 }
 
-/** The finish of work begun at a go-start, in the board's words (shared/status-words.ts). */
-export function finishWordsOnBoard(goStartMs: number, plan: Pick<OperationSitePlan, 'tpop' | 'tr' | 'timeZone'>, nowMs: number): string {
-  return capitalised(finishWords(goStartMs, plan.tpop, plan.tr, (ms) => formatStart(ms, plan.timeZone, nowMs)));
-}
-
-/** The record that covers an instant (each stands for [t, next t)), as its start; null before the first. */
-function recordStartAt(times: string[], ms: number): number | null {
-  let at: number | null = null;
-  for (const t of times) {
-    const tMs = Date.parse(t);
-    if (tMs > ms) break;
-    at = tMs;
-  }
-  return at;
+/** The finish of work begun at a go-start, in the board's words (shared/status-words.ts); null without one. */
+function finishOnBoard(goStart: string | null, plan: Pick<OperationSitePlan, 'tpop' | 'tr' | 'timeZone'>, nowMs: number): string | null {
+  if (goStart === null) return null;
+  return capitalised(finishWords(Date.parse(goStart), plan.tpop, plan.tr, (ms) => formatStart(ms, plan.timeZone, nowMs)));
 }
 
 export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
@@ -206,12 +196,11 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     // What is left of the window matters on deck, not its whole length (which began earlier).
     const leftH = w ? Math.floor((Date.parse(w.end) - nowMs) / 3_600_000) : 0;
     const until = w ? `, window until ${formatStart(w.end, zone, nowMs)}, ${formatHours(leftH)} left` : '';
-    // Started now, the work's go-start is the record that covers now.
-    const goStartMs = recordStartAt(plan.times, nowMs);
     return {
       tone: 'now',
       text: `May start now${until}`,
-      finish: goStartMs === null ? null : finishWordsOnBoard(goStartMs, plan, nowMs),
+      // Started now: the plan's earliest go-start is then the record that covers now.
+      finish: finishOnBoard(plan.earliestStart, plan, nowMs),
       detail: `May start now${w ? `: the window runs until ${formatIn(w.end, zone)}, ${formatHours(w.hours)} long in all` : ''}.`,
     };
   }
@@ -221,7 +210,7 @@ export function startWords(plan: OperationSitePlan, nowMs: number): StartWords {
     return {
       tone: 'later',
       text: `Earliest start: ${formatStart(ms, zone, nowMs)}${w ? `, window ${formatHours(w.hours)}` : ''}`,
-      finish: finishWordsOnBoard(ms, plan, nowMs),
+      finish: finishOnBoard(plan.earliestStart, plan, nowMs),
       detail: `Earliest go-start ${formatIn(ms, zone)}${w ? `, in a window of ${formatHours(w.hours)}` : ''}.`,
     };
   }
